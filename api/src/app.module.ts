@@ -1,0 +1,37 @@
+import path from 'node:path';
+import { Module } from '@nestjs/common';
+import { ConfigModule } from '@nestjs/config';
+import { ServeStaticModule } from '@nestjs/serve-static';
+import { configuration } from './config/configuration';
+import { DatabaseModule } from './database/database.module';
+import { HealthModule } from './health/health.module';
+import { ShopModule } from './shop/shop.module';
+
+const repoRoot = path.resolve(__dirname, '..', '..', '..');
+const servesApps = process.env.SERVE_APPS !== 'false';
+
+@Module({
+  imports: [
+    ConfigModule.forRoot({ isGlobal: true, load: [configuration], ignoreEnvFile: true }),
+    DatabaseModule,
+    ...(servesApps
+      ? [
+          // The backoffice first, so its client-side routes fall back to its own index.html.
+          ServeStaticModule.forRoot(
+            {
+              rootPath: path.join(repoRoot, 'backoffice', 'dist'),
+              serveRoot: '/backoffice',
+              exclude: ['/api/{*path}'],
+            },
+            {
+              rootPath: path.join(repoRoot, 'storefront', 'dist'),
+              exclude: ['/api/{*path}', '/backoffice/{*path}'],
+            },
+          ),
+        ]
+      : []),
+    HealthModule,
+    ShopModule,
+  ],
+})
+export class AppModule {}

@@ -1,0 +1,24 @@
+import { INestApplication, ValidationPipe } from '@nestjs/common';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import cookieParser from 'cookie-parser';
+
+/** Everything main.ts and the API tests both need, so tests exercise the app as it runs. */
+export function configureApp(app: INestApplication): INestApplication {
+  app.setGlobalPrefix('api');
+  app.use(cookieParser());
+  app.useGlobalPipes(
+    new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),
+  );
+  app.enableShutdownHooks();
+  const document = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder()
+      .setTitle('Loomwright API')
+      .setDescription('Quotes, bookings, deposits and bench planning for a pedalboard shop.')
+      .setVersion('0.1.0')
+      .addCookieAuth('lw_session')
+      .build(),
+  );
+  SwaggerModule.setup('api/docs', app, document);
+  return app;
+}

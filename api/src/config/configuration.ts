@@ -1,0 +1,77 @@
+import { z } from 'zod';
+
+/**
+ * Environment, validated once at boot. Each concern reads its own group through
+ * ConfigService.get('<group>', { infer: true }); a bad value stops the start with a readable message.
+ */
+const port = (fallback: number) => z.coerce.number().int().min(1).max(65535).default(fallback);
+
+const environmentSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  PORT: port(3000),
+  PUBLIC_URL: z.string().url().default('http://localhost:3000'),
+  DATABASE_URL: z.string().default('postgres://postgres@127.0.0.1:54329/loomwright'),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
+  JWT_SECRET: z.string().min(16).default('loomwright-development-secret-change-me'),
+  SESSION_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
+  STRIPE_SECRET_KEY: z.string().default('sk_test_loomwright_local'),
+  STRIPE_WEBHOOK_SECRET: z.string().default('whsec_loomwright_local'),
+  STRIPE_API_HOST: z.string().default('127.0.0.1'),
+  STRIPE_API_PORT: port(4242),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).default('http'),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: port(2525),
+  SMTP_SECURE: z.enum(['true', 'false']).default('false'),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().default('Copperline Rig Works <bench@shop.example>'),
+  UPLOADS_DIR: z.string().default('.data/uploads'),
+  SERVE_APPS: z.enum(['true', 'false']).default('true'),
+  SEED_DEMO: z.enum(['true', 'false']).default('true'),
+  RUN_WORKERS: z.enum(['true', 'false']).default('true'),
+});
+
+export type Environment = z.infer<typeof environmentSchema>;
+
+export function validateEnvironment(raw: Record<string, unknown>): Environment {
+  const parsed = environmentSchema.safeParse(raw);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    throw new Error(`Loomwright cannot start: the environment has bad settings:\n${problems}`);
+  }
+  return parsed.data;
+}
+
+export function configuration() {
+  const env = validateEnvironment(process.env);
+  return {
+    app: {
+      nodeEnv: env.NODE_ENV,
+      port: env.PORT,
+      publicUrl: env.PUBLIC_URL.replace(/\/$/, ''),
+      serveApps: env.SERVE_APPS === 'true',
+      seedDemo: env.SEED_DEMO === 'true',
+      runWorkers: env.RUN_WORKERS === 'true',
+      uploadsDir: env.UPLOADS_DIR,
+    },
+    database: { url: env.DATABASE_URL, poolMax: env.DATABASE_POOL_MAX },
+    auth: { jwtSecret: env.JWT_SECRET, sessionMinutes: env.SESSION_MINUTES },
+    payments: {
+      secretKey: env.STRIPE_SECRET_KEY,
+      webhookSecret: env.STRIPE_WEBHOOK_SECRET,
+      host: env.STRIPE_API_HOST,
+      port: env.STRIPE_API_PORT,
+      protocol: env.STRIPE_API_PROTOCOL,
+    },
+    mail: {
+      host: env.SMTP_HOST,
+      port: env.SMTP_PORT,
+      secure: env.SMTP_SECURE === 'true',
+      user: env.SMTP_USER,
+      password: env.SMTP_PASSWORD,
+      from: env.MAIL_FROM,
+    },
+  };
+}
+
+export type AppConfig = ReturnType<typeof configuration>;

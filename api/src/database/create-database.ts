@@ -1,0 +1,21 @@
+import { Kysely, PostgresDialect } from 'kysely';
+import { Pool, types } from 'pg';
+import { Database, DB } from './database';
+
+// numeric (1700) and int8 (20) stay strings so money never passes through a float.
+types.setTypeParser(1700, (v) => v);
+types.setTypeParser(20, (v) => v);
+// date columns (1082) stay 'YYYY-MM-DD': a bench date is a calendar day, not an instant.
+types.setTypeParser(1082, (v) => v);
+
+export function createDatabase(url: string, poolMax = 10): Database {
+  const pool = new Pool({
+    connectionString: url,
+    max: poolMax,
+    connectionTimeoutMillis: 3_000,
+    idleTimeoutMillis: 10_000,
+  });
+  // A dropped connection (database restarted) must not crash the process; the pool reconnects.
+  pool.on('error', () => undefined);
+  return new Kysely<DB>({ dialect: new PostgresDialect({ pool }) }) as Database;
+}

@@ -1,0 +1,10 @@
+import type { Migration } from 'kysely';
+import * as foundation from './20261201_0001_foundation';
+
+/**
+ * Every migration, by its sortable name. Listed statically so the same list runs from the
+ * compiled build and under vitest; append new ones at the end, never rename old ones.
+ */
+export const migrations: Record<string, Migration> = {
+  '20261201_0001_foundation': foundation,
+};

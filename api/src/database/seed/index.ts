@@ -1,0 +1,15 @@
+import type { Kysely } from 'kysely';
+import type { DB } from '../database';
+import { seedShop } from './seed-shop';
+
+/**
+ * Seeds the invented demo shop. Each domain contributes one idempotent step, in dependency order
+ * (the shop, then people, then the price book, then bookings that refer to both).
+ */
+export const seedSteps: Array<{ name: string; run: (db: Kysely<DB>) => Promise<void> }> = [
+  { name: 'shop', run: seedShop },
+];
+
+export async function seedDemoShop(db: Kysely<DB>): Promise<void> {
+  for (const step of seedSteps) await step.run(db);
+}

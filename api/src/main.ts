@@ -1,0 +1,22 @@
+import 'reflect-metadata';
+import { Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { NestFactory } from '@nestjs/core';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { AppModule } from './app.module';
+import { configureApp } from './app.setup';
+import type { AppConfig } from './config/configuration';
+
+async function bootstrap() {
+  // rawBody keeps the exact bytes of webhook calls, which their signatures are computed over.
+  const app = await NestFactory.create<NestExpressApplication>(AppModule, { rawBody: true });
+  configureApp(app);
+  const { port } = app.get(ConfigService<AppConfig, true>).get('app', { infer: true });
+  await app.listen(port, '0.0.0.0');
+  Logger.log(`API listening on http://localhost:${port}/api`, 'Loomwright');
+}
+
+bootstrap().catch((error: unknown) => {
+  console.error(error instanceof Error ? error.message : error);
+  process.exit(1);
+});

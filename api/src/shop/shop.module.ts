@@ -1,0 +1,7 @@
+import { Module } from '@nestjs/common';
+import { ShopController } from './shop.controller';
+import { ShopRepository } from './shop.repository';
+import { ShopService } from './shop.service';
+
+@Module({ controllers: [ShopController], providers: [ShopService, ShopRepository], exports: [ShopService] })
+export class ShopModule {}

@@ -1,0 +1,21 @@
+import { Injectable, NotFoundException } from '@nestjs/common';
+import type { ShopProfile } from '@loomwright/shared';
+import { ShopRepository } from './shop.repository';
+
+@Injectable()
+export class ShopService {
+  constructor(private readonly shops: ShopRepository) {}
+
+  async profile(): Promise<ShopProfile> {
+    const row = await this.shops.findSettings();
+    if (!row) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
+    return {
+      name: row.name,
+      tagline: row.tagline,
+      currency: row.currency.trim(),
+      countryCode: row.country_code.trim(),
+      timezone: row.timezone,
+      contactEmail: row.contact_email,
+    };
+  }
+}

@@ -1,0 +1,20 @@
+import path from 'node:path';
+import swc from 'unplugin-swc';
+import { defineConfig } from 'vitest/config';
+
+// SWC compiles the API's TypeScript in tests so Nest's decorator metadata (constructor injection)
+// is emitted exactly as tsc emits it for the build.
+export default defineConfig({
+  plugins: [swc.vite({ module: { type: 'es6' } })],
+  resolve: {
+    alias: { '@loomwright/shared': path.resolve(__dirname, '../shared/src/index.ts') },
+  },
+  test: {
+    name: 'api',
+    root: __dirname,
+    include: ['src/**/*.spec.ts', 'test/**/*.spec.ts', 'fakes/**/*.spec.ts'],
+    environment: 'node',
+    testTimeout: 30_000,
+    hookTimeout: 60_000,
+  },
+});

@@ -1,0 +1,22 @@
+import { createBrowserRouter, RouterProvider } from 'react-router';
+import { AppLayout } from 'src/components/AppLayout';
+import { RouteError } from 'src/components/RouteError';
+
+const router = createBrowserRouter(
+  [
+    {
+      path: '/',
+      element: <AppLayout />,
+      errorElement: <RouteError />,
+      children: [
+        { index: true, lazy: () => import('src/app/routes/overview') },
+        { path: '*', lazy: () => import('src/app/routes/not-found') },
+      ],
+    },
+  ],
+  { basename: '/backoffice' },
+);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

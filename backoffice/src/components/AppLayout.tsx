@@ -1,0 +1,69 @@
+import Box from '@mui/joy/Box';
+import List from '@mui/joy/List';
+import ListItem from '@mui/joy/ListItem';
+import ListItemButton from '@mui/joy/ListItemButton';
+import Sheet from '@mui/joy/Sheet';
+import Typography from '@mui/joy/Typography';
+import { Suspense } from 'react';
+import { NavLink, Outlet } from 'react-router';
+import { PageLoading } from 'src/components/PageLoading';
+import { useHealth } from 'src/features/shop/api/get-health';
+import { useShop } from 'src/features/shop/api/get-shop';
+
+export const navigation = [
+  { to: '/', label: 'Overview', end: true },
+  { to: '/requests', label: 'Requests' },
+  { to: '/bench', label: 'Bench' },
+  { to: '/builds', label: 'Builds' },
+  { to: '/customers', label: 'Customers' },
+  { to: '/price-book', label: 'Price book' },
+  { to: '/team', label: 'Team' },
+  { to: '/settings', label: 'Settings' },
+  { to: '/mail', label: 'Mail log' },
+];
+
+export function AppLayout() {
+  const shop = useShop();
+  const health = useHealth();
+  return (
+    <Box sx={{ minHeight: '100dvh', display: 'grid', gridTemplateColumns: { xs: '1fr', md: '232px 1fr' } }}>
+      <Sheet
+        component="aside"
+        variant="soft"
+        color="primary"
+        sx={{ p: 2, display: 'flex', flexDirection: 'column', gap: 2, borderRight: '1px solid', borderColor: 'divider' }}
+      >
+        <Box>
+          <Typography level="title-lg">{shop.data?.name ?? 'Loomwright'}</Typography>
+          <Typography level="body-xs">Backoffice</Typography>
+        </Box>
+        <List component="nav" aria-label="Backoffice" size="sm" sx={{ '--ListItem-radius': '6px', flex: 'none' }}>
+          {navigation.map((item) => (
+            <ListItem key={item.to}>
+              <ListItemButton
+                component={NavLink}
+                to={item.to}
+                end={item.end}
+                sx={{ '&.active': { fontWeight: 'lg', bgcolor: 'background.surface', boxShadow: 'sm' } }}
+              >
+                {item.label}
+              </ListItemButton>
+            </ListItem>
+          ))}
+        </List>
+        <Typography level="body-xs" sx={{ mt: 'auto' }} role="status">
+          {health.isError || health.data?.db === 'down'
+            ? 'Database not answering'
+            : health.data
+              ? 'API and database up'
+              : 'Checking the API…'}
+        </Typography>
+      </Sheet>
+      <Box component="main" id="main" sx={{ p: { xs: 2, md: 3 }, minWidth: 0 }}>
+        <Suspense fallback={<PageLoading />}>
+          <Outlet />
+        </Suspense>
+      </Box>
+    </Box>
+  );
+}

@@ -1,0 +1,63 @@
+import path from 'node:path';
+import { defineConfig } from '@playwright/test';
+
+// The product as `npm start` runs it, on ports the test command picked (or the usual ones).
+const port = Number(process.env.E2E_PORT ?? 3100);
+const paymentPort = Number(process.env.E2E_PAYMENT_PORT ?? 4342);
+const smtpPort = Number(process.env.E2E_SMTP_PORT ?? 2625);
+const mailHttpPort = Number(process.env.E2E_MAIL_HTTP_PORT ?? 8125);
+const pgPort = Number(process.env.TEST_PG_PORT ?? 54339);
+export const baseURL = `http://localhost:${port}`;
+
+process.env.E2E_BASE_URL = baseURL;
+process.env.E2E_PAYMENT_URL = `http://127.0.0.1:${paymentPort}`;
+process.env.E2E_MAIL_URL = `http://127.0.0.1:${mailHttpPort}`;
+
+export default defineConfig({
+  testDir: './tests',
+  outputDir: './test-results',
+  timeout: 90_000,
+  expect: { timeout: 10_000 },
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  reporter: [['list'], ['html', { open: 'never', outputFolder: 'playwright-report' }]],
+  use: {
+    baseURL,
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+    launchOptions: {
+      // Debian's Chromium; Playwright never downloads a browser of its own here.
+      executablePath: process.env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium',
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+        '--no-first-run',
+      ],
+    },
+  },
+  webServer: {
+    command: `node ${path.resolve(__dirname, '../api/scripts/stack.mjs')}`,
+    url: `${baseURL}/api/health`,
+    timeout: 180_000,
+    reuseExistingServer: false,
+    gracefulShutdown: { signal: 'SIGTERM', timeout: 10_000 },
+    stdout: 'ignore',
+    stderr: 'pipe',
+    env: {
+      PORT: String(port),
+      PUBLIC_URL: baseURL,
+      PG_PORT: String(pgPort),
+      PG_DATA: process.env.E2E_PG_DATA ?? '.data/postgres-test',
+      DB_NAME: 'loomwright_e2e',
+      FRESH_DATABASE: 'true',
+      PAYMENT_FAKE_PORT: String(paymentPort),
+      MAIL_FAKE_SMTP_PORT: String(smtpPort),
+      MAIL_FAKE_HTTP_PORT: String(mailHttpPort),
+      NODE_ENV: 'test',
+    },
+  },
+});

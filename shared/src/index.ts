@@ -1,0 +1,3 @@
+export * from './api-types';
+export * from './api-client';
+export * from './design-tokens';

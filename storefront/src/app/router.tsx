@@ -1,0 +1,20 @@
+import { createBrowserRouter, RouterProvider } from 'react-router';
+import { AppLayout } from 'src/components/AppLayout';
+import { RouteError } from 'src/components/RouteError';
+
+// Each screen is its own chunk, so the first load ships only what the first screen needs.
+const router = createBrowserRouter([
+  {
+    path: '/',
+    element: <AppLayout />,
+    errorElement: <RouteError />,
+    children: [
+      { index: true, lazy: () => import('src/app/routes/home') },
+      { path: '*', lazy: () => import('src/app/routes/not-found') },
+    ],
+  },
+]);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,65 @@
+import Box from '@mui/joy/Box';
+import Link from '@mui/joy/Link';
+import Sheet from '@mui/joy/Sheet';
+import Typography from '@mui/joy/Typography';
+import { Suspense } from 'react';
+import { Link as RouterLink, Outlet } from 'react-router';
+import { useHealth } from 'src/features/shop/api/get-health';
+import { useShop } from 'src/features/shop/api/get-shop';
+import { PageLoading } from 'src/components/PageLoading';
+
+export function AppLayout() {
+  const shop = useShop();
+  const health = useHealth();
+  return (
+    <Box sx={{ minHeight: '100dvh', display: 'flex', flexDirection: 'column' }}>
+      <Box component="a" href="#main" sx={{ position: 'absolute', left: -9999, '&:focus': { left: 16, top: 16, zIndex: 10 } }}>
+        Skip to content
+      </Box>
+      <Sheet
+        component="header"
+        sx={{ px: { xs: 2, md: 4 }, py: 2, display: 'flex', alignItems: 'center', gap: 3, borderBottom: '1px solid', borderColor: 'divider' }}
+      >
+        <Link component={RouterLink} to="/" underline="none" color="neutral" sx={{ gap: 1.5 }}>
+          <BoardMark />
+          <Box>
+            <Typography level="title-lg" component="span" sx={{ display: 'block' }}>
+              {shop.data?.name ?? 'Loomwright'}
+            </Typography>
+            <Typography level="body-xs" component="span">pedalboards wired by hand</Typography>
+          </Box>
+        </Link>
+        <Box component="nav" aria-label="Main" sx={{ ml: 'auto', display: 'flex', gap: 2, flexWrap: 'wrap' }}>
+          <Link component={RouterLink} to="/configure">Configure a board</Link>
+        </Box>
+      </Sheet>
+      <Box component="main" id="main" sx={{ flex: 1, px: { xs: 2, md: 4 }, py: { xs: 3, md: 5 } }}>
+        <Suspense fallback={<PageLoading />}>
+          <Outlet />
+        </Suspense>
+      </Box>
+      <Box component="footer" sx={{ px: { xs: 2, md: 4 }, py: 2, borderTop: '1px solid', borderColor: 'divider' }}>
+        <Typography level="body-xs">
+          {shop.data ? `${shop.data.name} · ${shop.data.contactEmail}` : 'Loomwright'} ·{' '}
+          {health.isError || health.data?.db === 'down'
+            ? 'The shop’s booking system is not answering right now; try again shortly.'
+            : health.data
+              ? 'Booking system online'
+              : 'Checking the booking system…'}
+        </Typography>
+      </Box>
+    </Box>
+  );
+}
+
+/** Our mark: a board seen from above with three pedals on it. */
+function BoardMark() {
+  return (
+    <Box component="svg" viewBox="0 0 40 28" width={40} height={28} aria-hidden sx={{ flex: 'none' }}>
+      <Box component="rect" x="1" y="4" width="38" height="20" rx="4" sx={{ fill: 'var(--joy-palette-primary-600)' }} />
+      <Box component="rect" x="5" y="9" width="8" height="10" rx="1.5" sx={{ fill: 'var(--joy-palette-neutral-50)' }} />
+      <Box component="rect" x="16" y="9" width="8" height="10" rx="1.5" sx={{ fill: 'var(--joy-palette-accent-400)' }} />
+      <Box component="rect" x="27" y="9" width="8" height="10" rx="1.5" sx={{ fill: 'var(--joy-palette-neutral-50)' }} />
+    </Box>
+  );
+}

@@ -1,0 +1,26 @@
+import path from 'node:path';
+import react from '@vitejs/plugin-react';
+import { defineConfig } from 'vitest/config';
+
+const apiTarget = process.env.API_URL ?? 'http://localhost:3000';
+
+export default defineConfig({
+  plugins: [react()],
+  base: '/',
+  resolve: {
+    alias: {
+      src: path.resolve(__dirname, 'src'),
+      '@loomwright/shared/joy-theme': path.resolve(__dirname, '../shared/src/joy-theme.ts'),
+      '@loomwright/shared': path.resolve(__dirname, '../shared/src/index.ts'),
+    },
+  },
+  server: { port: 5173, proxy: { '/api': apiTarget } },
+  build: { outDir: 'dist', sourcemap: false },
+  test: {
+    name: 'storefront',
+    root: __dirname,
+    environment: 'jsdom',
+    include: ['src/**/*.spec.{ts,tsx}'],
+    passWithNoTests: true,
+  },
+});
