@@ -2,6 +2,7 @@ import path from 'node:path';
 import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { ServeStaticModule } from '@nestjs/serve-static';
+import { AuthModule } from './auth/auth.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
@@ -30,6 +31,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
           ),
         ]
       : []),
+    AuthModule,
     HealthModule,
     ShopModule,
   ],

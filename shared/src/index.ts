@@ -1,3 +1,6 @@
 export * from './api-types';
 export * from './api-client';
 export * from './design-tokens';
+export * from './domain';
+export * from './price-book/types';
+export * from './estimate/types';

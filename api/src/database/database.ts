@@ -1,11 +1,28 @@
 import type { ColumnType, Generated, JSONColumnType } from 'kysely';
 import { Kysely } from 'kysely';
+import type {
+  BookingState,
+  BuilderLevel,
+  EstimateResult,
+  PriceBook,
+  RigConfiguration,
+  UserRole,
+  WeeklyHours,
+} from '@loomwright/shared';
 
 /**
- * The typed shape of every table. Each domain adds its tables here beside its migration.
- * numeric and bigint columns arrive from pg as strings: money stays a decimal string until decimal.js.
+ * The typed shape of every table (see migrations/ for the constraints behind them).
+ * numeric and bigint columns arrive from pg as strings, date columns as 'YYYY-MM-DD' strings:
+ * money stays a decimal string until decimal.js takes it; a bench day is a calendar day.
  */
 export type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
+export type NullableTimestamp = ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
+/** numeric: read as a decimal string, written from a string or a number. */
+export type Numeric = ColumnType<string, string | number, string | number>;
+export type NullableNumeric = ColumnType<string | null, string | number | null | undefined, string | number | null>;
+/** date: 'YYYY-MM-DD'. */
+export type CalendarDay = ColumnType<string, string, string>;
+export type NullableCalendarDay = ColumnType<string | null, string | null | undefined, string | null>;
 
 export interface ShopSettingsTable {
   id: Generated<number>;
@@ -18,11 +35,229 @@ export interface ShopSettingsTable {
   updated_at: Generated<Timestamp>;
 }
 
+export interface UsersTable {
+  id: Generated<string>;
+  email: string;
+  name: string;
+  role: UserRole;
+  password_hash: string | null;
+  phone: string | null;
+  created_at: Generated<Timestamp>;
+  last_sign_in_at: NullableTimestamp;
+}
+
+export interface AuthTokensTable {
+  id: Generated<string>;
+  user_id: string;
+  purpose: 'password_reset' | 'staff_invite';
+  token_hash: string;
+  expires_at: Timestamp;
+  used_at: NullableTimestamp;
+  created_at: Generated<Timestamp>;
+}
+
+export interface BuildersTable {
+  id: Generated<string>;
+  user_id: string;
+  level: BuilderLevel;
+  hourly_rate: Numeric;
+  weekly_hours: JSONColumnType<WeeklyHours>;
+  active: Generated<boolean>;
+  created_at: Generated<Timestamp>;
+}
+
+export interface ShopClosuresTable {
+  id: Generated<string>;
+  starts_on: CalendarDay;
+  ends_on: CalendarDay;
+  reason: string;
+}
+
+export interface PriceBookVersionsTable {
+  version: number;
+  currency: string;
+  book: JSONColumnType<PriceBook>;
+  notes: Generated<string>;
+  published_by: string | null;
+  published_at: Generated<Timestamp>;
+}
+
+export interface BookingsTable {
+  id: Generated<string>;
+  reference: string;
+  customer_id: string;
+  state: BookingState;
+  configuration: JSONColumnType<RigConfiguration>;
+  customer_notes: Generated<string>;
+  builder_id: string | null;
+  bench_date: NullableCalendarDay;
+  expected_completion: NullableCalendarDay;
+  awaiting_layout_approval: Generated<boolean>;
+  inbound_carrier: string | null;
+  inbound_tracking: string | null;
+  decline_reason: string | null;
+  cancel_reason: string | null;
+  balance_waived_reason: string | null;
+  level_override_reason: string | null;
+  created_at: Generated<Timestamp>;
+  updated_at: Generated<Timestamp>;
+}
+
+export interface QuotesTable {
+  id: Generated<string>;
+  booking_id: string;
+  kind: 'estimate' | 'firm';
+  price_book_version: number;
+  currency: string;
+  configuration: JSONColumnType<RigConfiguration>;
+  estimate: JSONColumnType<EstimateResult>;
+  labor_hours: Numeric;
+  total_low: Numeric;
+  total_high: Numeric;
+  deposit: Numeric;
+  hourly_rate: NullableNumeric;
+  labor_total: NullableNumeric;
+  total: NullableNumeric;
+  builder_id: string | null;
+  expires_at: Timestamp;
+  created_at: Generated<Timestamp>;
+}
+
+export interface BookingEventsTable {
+  id: Generated<string>;
+  booking_id: string;
+  from_state: string | null;
+  to_state: string;
+  actor_id: string | null;
+  actor_label: string;
+  note: Generated<string>;
+  created_at: Generated<Timestamp>;
+}
+
+export type PaymentStatus = 'pending' | 'paid' | 'failed' | 'expired' | 'refunded';
+
+export interface PaymentsTable {
+  id: Generated<string>;
+  booking_id: string;
+  kind: 'deposit' | 'balance';
+  amount: Numeric;
+  amount_minor: ColumnType<string, string | number | bigint, string | number | bigint>;
+  currency: string;
+  status: PaymentStatus;
+  checkout_session_id: string | null;
+  checkout_url: string | null;
+  payment_intent_id: string | null;
+  refund_id: string | null;
+  failure_message: string | null;
+  paid_at: NullableTimestamp;
+  refunded_at: NullableTimestamp;
+  created_at: Generated<Timestamp>;
+  updated_at: Generated<Timestamp>;
+}
+
+export interface PaymentEventsTable {
+  event_id: string;
+  type: string;
+  payload: JSONColumnType<Record<string, unknown>>;
+  received_at: Generated<Timestamp>;
+}
+
+export interface BookingExtrasTable {
+  id: Generated<string>;
+  booking_id: string;
+  description: string;
+  amount: Numeric;
+  reason: string;
+  status: 'proposed' | 'approved' | 'declined';
+  proposed_by: string | null;
+  decided_at: NullableTimestamp;
+  created_at: Generated<Timestamp>;
+}
+
+export interface PhotosTable {
+  id: Generated<string>;
+  booking_id: string;
+  uploaded_by: string;
+  kind: 'customer' | 'intake' | 'build';
+  storage_key: string;
+  content_type: string;
+  size_bytes: number;
+  caption: Generated<string>;
+  created_at: Generated<Timestamp>;
+}
+
+export interface IntakeItemsTable {
+  id: Generated<string>;
+  booking_id: string;
+  item: string;
+  condition: 'working' | 'faulty';
+  note: Generated<string>;
+  photo_id: string | null;
+  recorded_by: string;
+  created_at: Generated<Timestamp>;
+}
+
+export interface TimeEntriesTable {
+  id: Generated<string>;
+  booking_id: string;
+  builder_id: string;
+  worked_on: CalendarDay;
+  hours: Numeric;
+  note: Generated<string>;
+  created_at: Generated<Timestamp>;
+}
+
+export interface BenchAllocationsTable {
+  id: Generated<string>;
+  booking_id: string;
+  builder_id: string;
+  day: CalendarDay;
+  /** numrange as text, e.g. '[0,3.5)'; write with sql`numrange(${from}, ${to})`. */
+  hours: string;
+  day_capacity: Numeric;
+}
+
+export type MailState = 'queued' | 'sending' | 'sent' | 'failed';
+
+export interface MailOutboxTable {
+  id: Generated<string>;
+  message_id: string;
+  template: string;
+  to_address: string;
+  data: JSONColumnType<Record<string, unknown>>;
+  subject: string | null;
+  booking_id: string | null;
+  user_id: string | null;
+  state: Generated<MailState>;
+  attempts: Generated<number>;
+  last_error: string | null;
+  dedupe_key: string | null;
+  created_at: Generated<Timestamp>;
+  sent_at: NullableTimestamp;
+}
+
 export interface DB {
   shop_settings: ShopSettingsTable;
+  users: UsersTable;
+  auth_tokens: AuthTokensTable;
+  builders: BuildersTable;
+  shop_closures: ShopClosuresTable;
+  price_book_versions: PriceBookVersionsTable;
+  bookings: BookingsTable;
+  quotes: QuotesTable;
+  booking_events: BookingEventsTable;
+  payments: PaymentsTable;
+  payment_events: PaymentEventsTable;
+  booking_extras: BookingExtrasTable;
+  photos: PhotosTable;
+  intake_items: IntakeItemsTable;
+  time_entries: TimeEntriesTable;
+  bench_allocations: BenchAllocationsTable;
+  mail_outbox: MailOutboxTable;
 }
 
 /** The database as its own DI token: inject `Database` anywhere a Kysely instance is needed. */
 export class Database extends Kysely<DB> {}
 
-export type { JSONColumnType };
+/** Repository methods take either the database or an open transaction. */
+export type Executor = Kysely<DB>;

@@ -1,5 +1,6 @@
 import type { Migration } from 'kysely';
 import * as foundation from './20261201_0001_foundation';
+import * as domain from './20261201_0002_domain';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -7,4 +8,5 @@ import * as foundation from './20261201_0001_foundation';
  */
 export const migrations: Record<string, Migration> = {
   '20261201_0001_foundation': foundation,
+  '20261201_0002_domain': domain,
 };

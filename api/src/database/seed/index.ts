@@ -1,5 +1,6 @@
 import type { Kysely } from 'kysely';
 import type { DB } from '../database';
+import { seedPeople } from './seed-people';
 import { seedShop } from './seed-shop';
 
 /**
@@ -8,6 +9,7 @@ import { seedShop } from './seed-shop';
  */
 export const seedSteps: Array<{ name: string; run: (db: Kysely<DB>) => Promise<void> }> = [
   { name: 'shop', run: seedShop },
+  { name: 'people', run: seedPeople },
 ];
 
 export async function seedDemoShop(db: Kysely<DB>): Promise<void> {

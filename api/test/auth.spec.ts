@@ -1,0 +1,57 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from './support/test-app';
+
+const sessionCookie = (res: { headers: Record<string, unknown> }) =>
+  ((res.headers['set-cookie'] as string[] | undefined) ?? []).find((c) => c.startsWith('lw_session='));
+
+describe('sign-up, sign-in, me and sign-out', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(async () => t.close());
+
+  it('signs a new player up as a customer with an httpOnly, SameSite session cookie', async () => {
+    const res = await t
+      .http()
+      .post('/api/auth/sign-up')
+      .send({ email: 'Juniper.Marsh@Mail.Example', password: 'a-long-password', name: 'Juniper Marsh' })
+      .expect(201);
+    expect(res.body.user).toMatchObject({ email: 'juniper.marsh@mail.example', role: 'customer' });
+    const cookie = sessionCookie(res)!;
+    expect(cookie).toMatch(/HttpOnly/i);
+    expect(cookie).toMatch(/SameSite=Lax/i);
+    const row = await t.db.selectFrom('users').select(['password_hash']).where('email', '=', 'juniper.marsh@mail.example').executeTakeFirstOrThrow();
+    // OWASP Password Storage Cheat Sheet, scrypt: N=2^17, r=8, p=1.
+    expect(row.password_hash).toMatch(/^scrypt\$131072\$8\$1\$/);
+  });
+
+  it('treats e-mail case-insensitively: the same address in capitals is refused with 409', async () => {
+    const res = await t.http().post('/api/auth/sign-up').send({ email: 'JUNIPER.MARSH@mail.example', password: 'another-password', name: 'J' });
+    expect(res.status).toBe(409);
+  });
+
+  it('names the field when sign-up input is bad', async () => {
+    const res = await t.http().post('/api/auth/sign-up').send({ email: 'not-an-email', password: 'short', name: '' }).expect(400);
+    const text = JSON.stringify(res.body.message);
+    expect(text).toContain('email');
+    expect(text).toContain('password');
+  });
+
+  it('signs the demo player in, answers me, and forgets the session on sign-out', async () => {
+    const agent = (await import('supertest')).default.agent(t.app.getHttpServer());
+    await agent.post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'demo-pass-2026' }).expect(200);
+    const me = await agent.get('/api/auth/me').expect(200);
+    expect(me.body.user).toMatchObject({ email: 'player@mail.example', role: 'customer' });
+    await agent.post('/api/auth/sign-out').expect(200);
+    await agent.get('/api/auth/me').expect(401);
+  });
+
+  it('gives one answer for an unknown e-mail and a wrong password', async () => {
+    const unknown = await t.http().post('/api/auth/sign-in').send({ email: 'nobody@mail.example', password: 'whatever-123' });
+    const wrong = await t.http().post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'whatever-123' });
+    expect(unknown.status).toBe(401);
+    expect(wrong.status).toBe(401);
+    expect(unknown.body.message).toBe(wrong.body.message);
+  });
+});
