@@ -6,6 +6,7 @@ import { AuthModule } from './auth/auth.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
+import { MailModule } from './mail/mail.module';
 import { ShopModule } from './shop/shop.module';
 
 const repoRoot = path.resolve(__dirname, '..', '..', '..');
@@ -33,6 +34,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
       : []),
     AuthModule,
     HealthModule,
+    MailModule,
     ShopModule,
   ],
 })

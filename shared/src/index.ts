@@ -4,3 +4,4 @@ export * from './design-tokens';
 export * from './domain';
 export * from './price-book/types';
 export * from './estimate/types';
+export * from './booking-types';
