@@ -5,3 +5,4 @@ export * from './domain';
 export * from './price-book/types';
 export * from './estimate/types';
 export * from './booking-types';
+export * from './estimate/url-codec';
