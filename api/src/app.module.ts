@@ -6,6 +6,7 @@ import { AuthModule } from './auth/auth.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
+import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { ShopModule } from './shop/shop.module';
 
@@ -34,6 +35,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
       : []),
     AuthModule,
     HealthModule,
+    InvitationsModule,
     MailModule,
     ShopModule,
   ],
