@@ -7,6 +7,7 @@ import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
 import { HealthModule } from './health/health.module';
+import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { PriceBookModule } from './price-book/price-book.module';
 import { ShopModule } from './shop/shop.module';
@@ -36,6 +37,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
       : []),
     AuthModule,
     HealthModule,
+    InvitationsModule,
     MailModule,
     ShopModule,
     PriceBookModule,
