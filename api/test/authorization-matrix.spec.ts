@@ -73,6 +73,11 @@ const matrix: Record<string, Entry> = {
   'POST /api/auth/password-reset/confirm': open(400),
   'POST /api/invitations': ownerOnly(400),
   'POST /api/invitations/accept': open(400),
+  // price book and estimates
+  'GET /api/catalog': open(200),
+  'POST /api/estimates': open(400),
+  'GET /api/price-book': staff(200),
+  'POST /api/price-book': ownerOnly(400),
 };
 
 async function makeFixtures(t: TestApp): Promise<Fixtures> {
