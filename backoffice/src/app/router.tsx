@@ -10,6 +10,7 @@ const router = createBrowserRouter(
       errorElement: <RouteError />,
       children: [
         { index: true, lazy: () => import('src/app/routes/overview') },
+        { path: 'mail', lazy: () => import('src/app/routes/mail-log') },
         { path: '*', lazy: () => import('src/app/routes/not-found') },
       ],
     },
