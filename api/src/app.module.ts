@@ -8,6 +8,7 @@ import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
 import { MailModule } from './mail/mail.module';
+import { PaymentsModule } from './payments/payments.module';
 import { ShopModule } from './shop/shop.module';
 
 const repoRoot = path.resolve(__dirname, '..', '..', '..');
@@ -37,6 +38,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     BookingsModule,
     HealthModule,
     MailModule,
+    PaymentsModule,
     ShopModule,
   ],
 })
