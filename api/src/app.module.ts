@@ -3,12 +3,14 @@ import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
+import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
+import { PaymentsModule } from './payments/payments.module';
 import { PriceBookModule } from './price-book/price-book.module';
 import { ShopModule } from './shop/shop.module';
 
@@ -36,9 +38,11 @@ const servesApps = process.env.SERVE_APPS !== 'false';
         ]
       : []),
     AuthModule,
+    BookingsModule,
     HealthModule,
     InvitationsModule,
     MailModule,
+    PaymentsModule,
     ShopModule,
     PriceBookModule,
     EstimatesModule,
