@@ -6,3 +6,4 @@ export * from './price-book/types';
 export * from './estimate/types';
 export * from './booking-types';
 export * from './estimate/url-codec';
+export * from './bench-types';
