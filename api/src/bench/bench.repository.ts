@@ -36,7 +36,7 @@ export class BenchRepository {
       .innerJoin('users', 'users.id', 'builders.user_id')
       .select(['builders.id', 'builders.user_id', 'users.name', 'builders.level', 'builders.hourly_rate', 'builders.weekly_hours', 'builders.active'])
       .where('builders.id', '=', builderId)
-      .forUpdate('builders')
+      .forNoKeyUpdate('builders')
       .executeTakeFirst();
   }
 
