@@ -5,6 +5,7 @@ import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
 import { BenchModule } from './bench/bench.module';
 import { BuildsModule } from './builds/builds.module';
+import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
@@ -35,6 +36,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
         ]
       : []),
     AuthModule,
+    BookingsModule,
     HealthModule,
     MailModule,
     ShopModule,
