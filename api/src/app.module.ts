@@ -5,6 +5,9 @@ import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
 import { BenchModule } from './bench/bench.module';
 import { BuildsModule } from './builds/builds.module';
+import { CustomersModule } from './customers/customers.module';
+import { SettingsModule } from './settings/settings.module';
+import { TeamModule } from './team/team.module';
 import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
@@ -42,6 +45,9 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     ShopModule,
     BenchModule,
     BuildsModule,
+    TeamModule,
+    SettingsModule,
+    CustomersModule,
   ],
 })
 export class AppModule {}

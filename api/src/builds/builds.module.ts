@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { BenchModule } from '../bench/bench.module';
+import { BookingsModule } from '../bookings/bookings.module';
 import { MailModule } from '../mail/mail.module';
 import { BuildHistory } from './build-history';
 import { BuildRecordsService } from './build-records.service';
@@ -8,7 +9,7 @@ import { BuildsRepository } from './builds.repository';
 import { BuildsService } from './builds.service';
 
 @Module({
-  imports: [BenchModule, MailModule],
+  imports: [BenchModule, BookingsModule, MailModule],
   controllers: [BuildsController],
   providers: [BuildsService, BuildRecordsService, BuildsRepository, BuildHistory],
   exports: [BuildsService],
