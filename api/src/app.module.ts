@@ -11,8 +11,11 @@ import { TeamModule } from './team/team.module';
 import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
+import { EstimatesModule } from './estimates/estimates.module';
 import { HealthModule } from './health/health.module';
 import { MailModule } from './mail/mail.module';
+import { PaymentsModule } from './payments/payments.module';
+import { PriceBookModule } from './price-book/price-book.module';
 import { ShopModule } from './shop/shop.module';
 
 const repoRoot = path.resolve(__dirname, '..', '..', '..');
@@ -42,12 +45,15 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     BookingsModule,
     HealthModule,
     MailModule,
+    PaymentsModule,
     ShopModule,
     BenchModule,
     BuildsModule,
     TeamModule,
     SettingsModule,
     CustomersModule,
+    PriceBookModule,
+    EstimatesModule,
   ],
 })
 export class AppModule {}

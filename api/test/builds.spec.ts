@@ -199,6 +199,12 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     const paid = await createBooking(t.db, { laborHours: '2.00' });
     const byBuilder = await master.post(`/api/bookings/${paid.id}/decline`).send({ reason: 'No room this season.' });
     expect(byBuilder.status).toBe(403);
+    // A deposit with no provider payment behind it cannot be refunded automatically: the decline is refused whole.
+    const noProvider = await owner.post(`/api/bookings/${paid.id}/decline`).send({ reason: 'No room this season.' });
+    expect(noProvider.status).toBe(409);
+    expect(noProvider.body.message).toMatch(/no provider payment to refund/);
+    expect((await t.db.selectFrom('bookings').select('state').where('id', '=', paid.id).executeTakeFirstOrThrow()).state).toBe('deposit_paid');
+    expect((await t.db.selectFrom('booking_events').select('id').where('booking_id', '=', paid.id).execute()).length).toBe(0);
     expect((await owner.post(`/api/bookings/${paid.id}/decline`).send({})).body.message).toEqual(expect.arrayContaining(['reason must say why, in at least a few words']));
   });
 });

@@ -13,7 +13,9 @@ import { BenchService } from '../bench/bench.service';
 import { addDays } from '../bench/calendar-days';
 import { shipByDate, toHours } from '../bench/scheduling';
 import { Database, type Executor } from '../database/database';
+import { actorOf } from '../bookings/bookings.service';
 import { MailService } from '../mail/mail.service';
+import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
 import type { AcceptBookingDto } from './dto/accept-booking.dto';
@@ -35,6 +37,7 @@ export class BuildsService {
     private readonly bench: BenchService,
     private readonly history: BuildHistory,
     private readonly mail: MailService,
+    private readonly payments: PaymentsService,
   ) {}
 
   async accept(user: AuthUser, bookingId: string, dto: AcceptBookingDto): Promise<AcceptBookingResponse> {
@@ -187,7 +190,14 @@ export class BuildsService {
       const updated = await this.history.move(trx, booking, ['requested', 'deposit_paid'], 'declined', user, `Declined: ${reason.trim()}`, {
         decline_reason: reason.trim(),
       });
+      // State first, refund second, one transaction: a refused decline never leaves money refunded behind it.
       const deposit = (await this.builds.payments(trx, bookingId)).find((p) => p.kind === 'deposit' && p.status === 'paid');
+      const refunded = paid && deposit ? await this.payments.refundDeposit(trx, bookingId, actorOf(user), `Declined: ${reason.trim()}`) : null;
+      if (deposit && !refunded) {
+        throw new ConflictException(
+          `The deposit of ${booking.reference} has no provider payment to refund automatically; refund it with the payment provider first, then decline.`,
+        );
+      }
       await this.mail.enqueue(trx, {
         template: 'booking-declined',
         to: booking.customer_email,
@@ -198,9 +208,10 @@ export class BuildsService {
           customerName: booking.customer_name,
           reference: booking.reference,
           reason: reason.trim(),
-          depositRefunded: paid && !!deposit,
-          refundAmount: deposit?.amount ?? null,
-          currency: deposit?.currency.trim() ?? null,
+          depositRefunded: !!refunded,
+          refundAmount: refunded?.amount ?? null,
+          refundPending: refunded ? refunded.status !== 'refunded' : false,
+          currency: refunded?.currency.trim() ?? null,
         },
       });
       return { bookingId, state: updated.state, awaitingLayoutApproval: updated.awaiting_layout_approval };
