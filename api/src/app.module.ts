@@ -3,6 +3,11 @@ import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
+import { BenchModule } from './bench/bench.module';
+import { BuildsModule } from './builds/builds.module';
+import { CustomersModule } from './customers/customers.module';
+import { SettingsModule } from './settings/settings.module';
+import { TeamModule } from './team/team.module';
 import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
@@ -44,6 +49,11 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     MailModule,
     PaymentsModule,
     ShopModule,
+    BenchModule,
+    BuildsModule,
+    TeamModule,
+    SettingsModule,
+    CustomersModule,
     PriceBookModule,
     EstimatesModule,
   ],

@@ -6,6 +6,7 @@ export * from './price-book/types';
 export * from './estimate/types';
 export * from './booking-types';
 export * from './estimate/url-codec';
+export * from './bench-types';
 export * from './estimate/estimate-engine';
 export * from './auth-schemas';
 export * from './mail-types';
