@@ -10,6 +10,7 @@ const router = createBrowserRouter([
     errorElement: <RouteError />,
     children: [
       { index: true, lazy: () => import('src/app/routes/home') },
+      { path: 'configure', lazy: () => import('src/app/routes/configure') },
       { path: '*', lazy: () => import('src/app/routes/not-found') },
     ],
   },
