@@ -60,16 +60,15 @@ export function PedalRow({
     error?: FieldError,
   ) => (
     <FormControl error={!!error}>
-      <FormLabel htmlFor={`${id}-${field}`}>{label}</FormLabel>
+      <FormLabel>{label}</FormLabel>
       <Input
-        id={`${id}-${field}`}
         type="number"
         placeholder={placeholder}
-        slotProps={{ input: { inputMode: 'decimal', 'aria-describedby': error ? `${id}-${field}-error` : undefined } }}
+        slotProps={{ input: { inputMode: 'decimal' } }}
         sx={{ fontVariantNumeric: 'tabular-nums' }}
         {...register(`pedals.${index}.${field}`, { setValueAs: optionalNumber })}
       />
-      {error ? <FormHelperText id={`${id}-${field}-error`}>{error.message}</FormHelperText> : null}
+      {error ? <FormHelperText>{error.message}</FormHelperText> : null}
     </FormControl>
   );
 
@@ -118,12 +117,12 @@ export function PedalRow({
         sx={{ display: open ? 'grid' : 'none', gap: 1.5, gridTemplateColumns: { xs: '1fr', sm: 'repeat(2, minmax(0, 1fr))', lg: 'repeat(4, minmax(0, 1fr))' } }}
       >
         <FormControl error={!!errors?.name} sx={{ gridColumn: { sm: 'span 2' } }}>
-          <FormLabel htmlFor={`${id}-name`}>Name or type</FormLabel>
-          <Input id={`${id}-name`} placeholder="e.g. fuzz, analog delay" {...register(`pedals.${index}.name`)} />
+          <FormLabel>Name or type</FormLabel>
+          <Input placeholder="e.g. fuzz, analog delay" {...register(`pedals.${index}.name`)} />
           {errors?.name ? <FormHelperText>{errors.name.message}</FormHelperText> : null}
         </FormControl>
         <FormControl sx={{ gridColumn: { sm: 'span 2' } }}>
-          <FormLabel id={`${id}-kind-label`}>Size and sort</FormLabel>
+          <FormLabel>Size and sort</FormLabel>
           <Controller
             control={control}
             name={`pedals.${index}.kind`}
@@ -132,7 +131,6 @@ export function PedalRow({
                 value={field.value ?? 'other'}
                 onChange={(_, v) => field.onChange(v ?? undefined)}
                 onBlur={field.onBlur}
-                slotProps={{ button: { 'aria-labelledby': `${id}-kind-label`, id: `${id}-kind` } }}
               >
                 {kinds.map((k) => (
                   <Option key={k} value={k}>
@@ -159,7 +157,7 @@ export function PedalRow({
         {numberField('currentMa', 'Current draw (mA)', `typical ${typical.currentMa}`, errors?.currentMa)}
         {numberField('voltage', 'Voltage (V)', '9', errors?.voltage)}
         <FormControl>
-          <FormLabel id={`${id}-polarity-label`}>Plug polarity</FormLabel>
+          <FormLabel>Plug polarity</FormLabel>
           <Controller
             control={control}
             name={`pedals.${index}.polarity`}
@@ -167,7 +165,6 @@ export function PedalRow({
               <Select
                 value={field.value ?? 'center_negative'}
                 onChange={(_, v) => field.onChange(v ?? undefined)}
-                slotProps={{ button: { 'aria-labelledby': `${id}-polarity-label` } }}
               >
                 <Option value="center_negative">Centre negative (most pedals)</Option>
                 <Option value="center_positive">Centre positive</Option>
@@ -176,7 +173,7 @@ export function PedalRow({
           />
         </FormControl>
         <FormControl>
-          <FormLabel id={`${id}-supply-label`}>Current type</FormLabel>
+          <FormLabel>Current type</FormLabel>
           <Controller
             control={control}
             name={`pedals.${index}.supply`}
@@ -184,7 +181,6 @@ export function PedalRow({
               <Select
                 value={field.value ?? 'dc'}
                 onChange={(_, v) => field.onChange(v ?? undefined)}
-                slotProps={{ button: { 'aria-labelledby': `${id}-supply-label` } }}
               >
                 <Option value="dc">DC (most pedals)</Option>
                 <Option value="ac">AC</Option>

@@ -35,17 +35,17 @@ export function PowerOutputsFields({ form }: { form: UseFormReturn<PedalForm> })
               sx={{ p: 1.5, display: 'grid', gap: 1.5, gridTemplateColumns: { xs: '1fr 1fr', md: '2fr 1fr 1fr auto auto' }, alignItems: 'end' }}
             >
               <FormControl sx={{ gridColumn: { xs: '1 / -1', md: 'auto' } }}>
-                <FormLabel htmlFor={`output-${field.id}-label`}>Output {n} name</FormLabel>
-                <Input id={`output-${field.id}-label`} placeholder={`Output ${n}`} {...register(`outputs.${index}.label`, { setValueAs: (v) => (v === '' ? undefined : v) })} />
+                <FormLabel>Output {n} name</FormLabel>
+                <Input placeholder={`Output ${n}`} {...register(`outputs.${index}.label`, { setValueAs: (v) => (v === '' ? undefined : v) })} />
               </FormControl>
               <FormControl error={!!errors?.voltage}>
-                <FormLabel htmlFor={`output-${field.id}-voltage`}>Voltage (V)</FormLabel>
-                <Input id={`output-${field.id}-voltage`} type="number" {...register(`outputs.${index}.voltage`, { setValueAs: optionalNumber })} />
+                <FormLabel>Voltage (V)</FormLabel>
+                <Input type="number" {...register(`outputs.${index}.voltage`, { setValueAs: optionalNumber })} />
                 {errors?.voltage ? <FormHelperText>{errors.voltage.message}</FormHelperText> : null}
               </FormControl>
               <FormControl error={!!errors?.currentMa}>
-                <FormLabel htmlFor={`output-${field.id}-current`}>Rating (mA)</FormLabel>
-                <Input id={`output-${field.id}-current`} type="number" {...register(`outputs.${index}.currentMa`, { setValueAs: optionalNumber })} />
+                <FormLabel>Rating (mA)</FormLabel>
+                <Input type="number" {...register(`outputs.${index}.currentMa`, { setValueAs: optionalNumber })} />
                 {errors?.currentMa ? <FormHelperText>{errors.currentMa.message}</FormHelperText> : null}
               </FormControl>
               <Controller

@@ -67,8 +67,8 @@ export default function PedalsStep({ catalog, configuration, update, live, setLe
         fit with your own figures.
       </StepHeading>
 
-      <FormControl sx={{ mb: 3 }}>
-        <FormLabel id="pedal-mode-label">How do you want to describe them?</FormLabel>
+      <Box sx={{ mb: 3 }}>
+        <Typography id="pedal-mode-label" level="title-sm" component="p" sx={{ mb: 1 }}>How do you want to describe them?</Typography>
         <RadioGroup
           aria-labelledby="pedal-mode-label"
           orientation="horizontal"
@@ -80,13 +80,13 @@ export default function PedalsStep({ catalog, configuration, update, live, setLe
           <Radio value="list" label="List each pedal" />
         </RadioGroup>
         {switcher ? (
-          <FormHelperText>A switcher board needs the list, so we know which pedals sit in loops.</FormHelperText>
+          <Typography level="body-sm" sx={{ mt: 0.5 }}>A switcher board needs the list, so we know which pedals sit in loops.</Typography>
         ) : null}
-      </FormControl>
+      </Box>
 
       {mode === 'count' ? (
         <FormControl error={!!formState.errors.pedalCount} sx={{ maxWidth: 360 }}>
-          <FormLabel htmlFor="pedal-count">Number of pedals</FormLabel>
+          <FormLabel>Number of pedals</FormLabel>
           <Box sx={{ display: 'flex', gap: 1, alignItems: 'center' }}>
             <IconButton
               variant="outlined"
@@ -97,9 +97,8 @@ export default function PedalsStep({ catalog, configuration, update, live, setLe
               <MinusIcon />
             </IconButton>
             <Input
-              id="pedal-count"
               type="number"
-              slotProps={{ input: { min: 1, max: 60, inputMode: 'numeric', 'aria-describedby': 'pedal-count-help' } }}
+              slotProps={{ input: { min: 1, max: 60, inputMode: 'numeric' } }}
               sx={{ width: 96, fontVariantNumeric: 'tabular-nums' }}
               {...register('pedalCount', { setValueAs: optionalNumber })}
             />
@@ -111,7 +110,7 @@ export default function PedalsStep({ catalog, configuration, update, live, setLe
               <PlusIcon />
             </IconButton>
           </Box>
-          <FormHelperText id="pedal-count-help">
+          <FormHelperText>
             {formState.errors.pedalCount?.message ?? 'Priced as plain powered pedals, one after another in series.'}
           </FormHelperText>
         </FormControl>
