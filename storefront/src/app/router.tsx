@@ -15,6 +15,7 @@ const router = createBrowserRouter([
       { path: 'forgot-password', lazy: () => import('src/app/routes/forgot-password') },
       { path: 'reset-password', lazy: () => import('src/app/routes/reset-password') },
       { path: 'account', lazy: () => import('src/app/routes/account') },
+      { path: 'configure', lazy: () => import('src/app/routes/configure') },
       { path: '*', lazy: () => import('src/app/routes/not-found') },
     ],
   },
