@@ -3,6 +3,7 @@ import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
+import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
@@ -33,6 +34,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
         ]
       : []),
     AuthModule,
+    BookingsModule,
     HealthModule,
     MailModule,
     ShopModule,
