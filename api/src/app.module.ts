@@ -6,8 +6,10 @@ import { AuthModule } from './auth/auth.module';
 import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
+import { EstimatesModule } from './estimates/estimates.module';
 import { HealthModule } from './health/health.module';
 import { MailModule } from './mail/mail.module';
+import { PriceBookModule } from './price-book/price-book.module';
 import { ShopModule } from './shop/shop.module';
 
 const repoRoot = path.resolve(__dirname, '..', '..', '..');
@@ -38,6 +40,8 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     HealthModule,
     MailModule,
     ShopModule,
+    PriceBookModule,
+    EstimatesModule,
   ],
 })
 export class AppModule {}

@@ -7,3 +7,4 @@ export * from './estimate/types';
 export * from './booking-types';
 export * from './estimate/url-codec';
 export * from './bench-types';
+export * from './estimate/estimate-engine';
