@@ -14,8 +14,6 @@ export interface BookingListQuery {
   deposit?: DepositStatus;
   /** Customer name, e-mail or booking reference. */
   q?: string;
-  customerId?: string;
-  builderId?: string;
 }
 
 export const listBookings = (query: BookingListQuery, signal?: AbortSignal) =>
