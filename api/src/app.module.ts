@@ -10,6 +10,7 @@ import { EstimatesModule } from './estimates/estimates.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
+import { PaymentsModule } from './payments/payments.module';
 import { PriceBookModule } from './price-book/price-book.module';
 import { ShopModule } from './shop/shop.module';
 
@@ -41,6 +42,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     HealthModule,
     InvitationsModule,
     MailModule,
+    PaymentsModule,
     ShopModule,
     PriceBookModule,
     EstimatesModule,

@@ -1,6 +1,6 @@
 import { demoPriceBook, estimateRig } from '@loomwright/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { referenceBoard, statedLaborRanges } from './support/reference-rigs';
+import { referenceBoard, statedLaborRanges } from '../../shared/src/estimate/reference-rigs.fixture';
 import { createTestApp, type TestApp } from './support/test-app';
 
 describe('POST /api/estimates', () => {

@@ -1,6 +1,8 @@
-import { Module, ServiceUnavailableException } from '@nestjs/common';
+import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import type { AppConfig } from '../config/configuration';
+import { EstimatesModule } from '../estimates/estimates.module';
+import { EstimatesService } from '../estimates/estimates.service';
 import { MailModule } from '../mail/mail.module';
 import { BookingPhotosService } from './booking-photos.service';
 import { BookingsController } from './bookings.controller';
@@ -10,7 +12,7 @@ import { LocalDiskPhotoStorage, PhotoStorage } from './photo-storage';
 import { QuotePricer } from './quote-pricer';
 
 @Module({
-  imports: [MailModule],
+  imports: [MailModule, EstimatesModule],
   controllers: [BookingsController],
   providers: [
     BookingsService,
@@ -21,15 +23,7 @@ import { QuotePricer } from './quote-pricer';
       inject: [ConfigService],
       useFactory: (config: ConfigService<AppConfig, true>) => new LocalDiskPhotoStorage(config.get('app', { infer: true }).uploadsDir),
     },
-    {
-      // Until the estimate engine's module is merged, requests cannot be priced; say so plainly.
-      provide: QuotePricer,
-      useValue: {
-        price: async () => {
-          throw new ServiceUnavailableException('Pricing is not available yet: the estimate engine is not installed.');
-        },
-      } satisfies QuotePricer,
-    },
+    { provide: QuotePricer, useExisting: EstimatesService },
   ],
   exports: [BookingsService],
 })

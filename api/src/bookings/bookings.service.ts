@@ -1,6 +1,6 @@
-import { BadRequestException, ConflictException, HttpException, Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import type { AuthUser, BookingDetail, BookingState, BookingSummary, Page, RigConfiguration } from '@loomwright/shared';
-import { bookingStateLabels, staffRoles } from '@loomwright/shared';
+import { bookingStateLabels, describeIssues, rigConfigurationSchema, staffRoles } from '@loomwright/shared';
 import Decimal from 'decimal.js';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
@@ -34,9 +34,12 @@ export class BookingsService {
 
   /** A player's request: re-priced here (the client's figures are never trusted) and snapshotted. */
   async create(user: AuthUser, dto: CreateBookingDto): Promise<BookingDetail> {
-    const configuration = dto.configuration as unknown as RigConfiguration;
+    const parsed = rigConfigurationSchema.safeParse(dto.configuration);
+    // The same schema and words as POST /api/estimates and the configurator's forms.
+    if (!parsed.success) throw new BadRequestException(describeIssues(parsed.error).map((m) => `configuration.${m}`));
+    const configuration: RigConfiguration = parsed.data;
     const id = await this.db.transaction().execute(async (trx) => {
-      const estimate = await this.priceOrExplain(configuration, trx);
+      const estimate = await this.pricer.price(configuration, trx);
       const reference = await this.bookings.nextReference(trx);
       const booking = await this.bookings.insertBooking(trx, {
         reference,
@@ -86,20 +89,6 @@ export class BookingsService {
       return booking.id;
     });
     return this.getDetail(id);
-  }
-
-  private async priceOrExplain(configuration: RigConfiguration, trx: Executor) {
-    try {
-      return await this.pricer.price(configuration, trx);
-    } catch (error) {
-      if (error instanceof HttpException) throw error;
-      // The engine rejects configurations it cannot price (unknown surface, bad counts): that is
-      // the player's input, so it is a 400 in words, never a 500.
-      if (error instanceof Error && /zod|invalid|unknown|not found|must/i.test(`${error.name} ${error.message}`)) {
-        throw new BadRequestException(`configuration: ${error.message}`);
-      }
-      throw error;
-    }
   }
 
   async list(user: AuthUser, query: ListBookingsDto): Promise<Page<BookingSummary>> {

@@ -4,6 +4,10 @@ import type { PowerAssignment, PowerBudget, PowerOutputLoad, RigDevice, SignalCh
 /** P = V × I, with I in mA; rounded to the milliwatt for display. */
 export const wattsOf = (volts: number, milliamps: number): number => Math.round(volts * milliamps) / 1000;
 
+/** R = V / I (Ohm's law), I in mA; rounded to a tenth of an ohm. Null for no current. */
+export const ohmsOf = (volts: number, milliamps: number): number | null =>
+  milliamps > 0 ? Math.round((volts * 10000) / milliamps) / 10 : null;
+
 const describe = (d: RigDevice) => `${d.name} (${d.voltage} V${d.supply === 'ac' ? ' AC' : ''}, ${d.budgetMa} mA${d.drawFromMemory ? ' assumed' : ''})`;
 
 /**
@@ -117,6 +121,8 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
       ratingW: wattsOf(output.voltage, output.currentMa),
       loadW: wattsOf(output.voltage, loadMa),
       headroomW: wattsOf(output.voltage, output.currentMa - loadMa),
+      minimumLoadOhms: ohmsOf(output.voltage, output.currentMa)!,
+      loadOhms: ohmsOf(output.voltage, loadMa),
       devices: devices.map((d) => d.name),
       flags,
     };
