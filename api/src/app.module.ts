@@ -3,6 +3,8 @@ import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
+import { BenchModule } from './bench/bench.module';
+import { BuildsModule } from './builds/builds.module';
 import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
@@ -46,6 +48,8 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     ShopModule,
     PriceBookModule,
     EstimatesModule,
+    BenchModule,
+    BuildsModule,
   ],
 })
 export class AppModule {}
