@@ -6,6 +6,7 @@ import { AuthModule } from './auth/auth.module';
 import { BenchModule } from './bench/bench.module';
 import { BuildsModule } from './builds/builds.module';
 import { BookingsModule } from './bookings/bookings.module';
+import { BuildSheetsModule } from './build-sheets/build-sheets.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
@@ -50,6 +51,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     EstimatesModule,
     BenchModule,
     BuildsModule,
+    BuildSheetsModule,
   ],
 })
 export class AppModule {}
