@@ -10,6 +10,11 @@ const router = createBrowserRouter([
     errorElement: <RouteError />,
     children: [
       { index: true, lazy: () => import('src/app/routes/home') },
+      { path: 'sign-in', lazy: () => import('src/app/routes/sign-in') },
+      { path: 'sign-up', lazy: () => import('src/app/routes/sign-up') },
+      { path: 'forgot-password', lazy: () => import('src/app/routes/forgot-password') },
+      { path: 'reset-password', lazy: () => import('src/app/routes/reset-password') },
+      { path: 'account', lazy: () => import('src/app/routes/account') },
       { path: '*', lazy: () => import('src/app/routes/not-found') },
     ],
   },
