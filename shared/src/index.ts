@@ -9,3 +9,4 @@ export * from './estimate/url-codec';
 export * from './bench-types';
 export * from './estimate/estimate-engine';
 export * from './auth-schemas';
+export * from './mail-types';

@@ -20,6 +20,7 @@ const router = createBrowserRouter(
         { path: 'price-book', lazy: () => import('src/app/routes/price-book') },
         { path: 'team', lazy: () => import('src/app/routes/team') },
         { path: 'settings', lazy: () => import('src/app/routes/settings') },
+        { path: 'mail', lazy: () => import('src/app/routes/mail-log') },
         { path: '*', lazy: () => import('src/app/routes/not-found') },
       ],
     },
