@@ -28,7 +28,7 @@ import { HoursPanel } from 'src/features/builds/components/HoursPanel';
 import { IntakePanel } from 'src/features/builds/components/IntakePanel';
 import { SafetyNote } from 'src/features/builds/components/SafetyNote';
 import { StateActions } from 'src/features/builds/components/StateActions';
-import { useMe } from 'src/features/session/api/get-me';
+import { useMe } from 'src/features/auth/api/get-me';
 
 export function Component() {
   const { bookingId = '' } = useParams();

@@ -9,7 +9,7 @@ import { PageHeader } from 'src/components/PageHeader';
 import { PageLoading } from 'src/components/PageLoading';
 import { usePriceBook } from 'src/features/price-book/api/get-price-book';
 import { PriceBookForm } from 'src/features/price-book/components/PriceBookForm';
-import { useMe } from 'src/features/session/api/get-me';
+import { useMe } from 'src/features/auth/api/get-me';
 import { formatStamp } from 'src/lib/format';
 
 export function Component() {

@@ -20,7 +20,7 @@ import { useBookings, type BookingSort } from 'src/features/bookings/api/list-bo
 import { BookingDetails } from 'src/features/bookings/components/BookingDetails';
 import { AcceptDialog } from 'src/features/requests/components/AcceptDialog';
 import { DeclineDialog } from 'src/features/requests/components/DeclineDialog';
-import { useMe } from 'src/features/session/api/get-me';
+import { useMe } from 'src/features/auth/api/get-me';
 import { formatDay, formatHours, formatMoney, formatMoneyRange, formatStamp } from 'src/lib/format';
 import { useListParams } from 'src/lib/use-list-params';
 

@@ -8,7 +8,7 @@ import { ErrorNote } from 'src/components/ErrorNote';
 import { Notice } from 'src/components/Notice';
 import { PageHeader } from 'src/components/PageHeader';
 import { PageLoading } from 'src/components/PageLoading';
-import { useMe } from 'src/features/session/api/get-me';
+import { useMe } from 'src/features/auth/api/get-me';
 import { useSettings } from 'src/features/settings/api/get-settings';
 import { ClosuresList } from 'src/features/settings/components/ClosuresList';
 import { ShopDetailsForm } from 'src/features/settings/components/ShopDetailsForm';

@@ -8,7 +8,7 @@ import { ErrorNote } from 'src/components/ErrorNote';
 import { Notice } from 'src/components/Notice';
 import { PageHeader } from 'src/components/PageHeader';
 import { PageLoading } from 'src/components/PageLoading';
-import { useMe } from 'src/features/session/api/get-me';
+import { useMe } from 'src/features/auth/api/get-me';
 import { useTeam } from 'src/features/team/api/get-team';
 import { TeamMemberDialog, weekdays } from 'src/features/team/components/TeamMemberDialog';
 import { formatHours, formatMoney } from 'src/lib/format';
