@@ -51,7 +51,7 @@ describe('POST /api/estimates', () => {
     const { powerBudget, boardFit, cableSchedule } = res.body.checks;
     // 13 pedals × 90 mA = 1170 mA against 2 × 500 mA: 170 mA short, 1.53 W at 9 V (P = V × I).
     expect(powerBudget).toMatchObject({ status: 'problem', totalDrawMa: 1170, totalRatingMa: 1000, totalHeadroomMa: -170, totalHeadroomW: -1.53 });
-    expect(boardFit).toMatchObject({ status: 'problem', areaFits: false, smallestFittingSurfaceId: 'ridge-100' });
+    expect(boardFit).toMatchObject({ status: 'problem', areaFits: false, smallestFittingSurfaceId: 'ridge-81' });
     expect(cableSchedule).toMatchObject({ patchCount: 12, plugCount: 24 });
     expect(res.body.notes.some((n: string) => n.includes('Overloaded'))).toBe(true);
     expect(res.body.notes.some((n: string) => n.includes('Slate 46'))).toBe(true);
