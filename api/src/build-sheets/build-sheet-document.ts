@@ -64,7 +64,8 @@ class Sheet {
   }
 
   heading(text: string) {
-    this.ensureRoom(48);
+    // A heading keeps at least its first table rows with it.
+    this.ensureRoom(90);
     this.doc.moveDown(0.8).font('bold').fontSize(12.5).text(text, MARGIN, this.doc.y).font('body').fontSize(9.5).moveDown(0.3);
   }
 
@@ -217,7 +218,7 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   sheet.table(
     ['#', 'From', 'To', 'Length', 'Spare', 'Plugs'],
     cables.patches.map((c) => [String(c.number), c.from, c.to, `${c.lengthFeet} ft`, `${c.spareFeet} ft`, String(c.plugs)]),
-    [0.06, 0.34, 0.34, 0.1, 0.1, 0.06],
+    [0.05, 0.33, 0.33, 0.1, 0.1, 0.09],
   );
   sheet.paragraph(`${cables.patchCount} patch cables, ${cables.plugCount} plugs, ${cables.cableFeet} ft of cable including ${cables.spareFeet} ft spare.`, { bold: true });
   sheet.paragraph(`Power leads: ${cables.barrelPlugCount} DC barrel plugs.`);
