@@ -12,6 +12,7 @@ const router = createBrowserRouter(
       errorElement: <RouteError />,
       children: [
         { index: true, lazy: () => import('src/app/routes/overview') },
+        { path: 'team/invite', lazy: () => import('src/app/routes/invite-builder') },
         { path: '*', lazy: () => import('src/app/routes/not-found') },
       ],
     },
