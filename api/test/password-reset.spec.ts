@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import { JwtService } from '@nestjs/jwt';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { clearTables, createTestApp, type TestApp } from './support/test-app';
@@ -12,7 +13,7 @@ const tokenFrom = (resetUrl: unknown) => new URL(String(resetUrl)).searchParams.
 describe('password reset by e-mail', () => {
   let t: TestApp;
   beforeAll(async () => {
-    t = await createTestApp({ env: { AUTH_THROTTLE_LIMIT: '1000', PUBLIC_URL: 'http://shop.test' } });
+    t = await createTestApp();
   });
   afterAll(async () => t.close());
   beforeEach(async () => clearTables(t.db, ['auth_tokens', 'mail_outbox']));
@@ -33,7 +34,7 @@ describe('password reset by e-mail', () => {
     const [mail] = await resetMails(t, 'player@mail.example');
     const data = mail!.data as { name: string; resetUrl: string; expiresAt: string };
     expect(data.name).toBe('Rowan Achterberg');
-    expect(data.resetUrl).toMatch(/^http:\/\/shop\.test\/reset-password\?token=[A-Za-z0-9_-]{43}$/);
+    expect(data.resetUrl).toMatch(/^https?:\/\/[^/]+\/reset-password\?token=[A-Za-z0-9_-]{43}$/);
     const token = tokenFrom(data.resetUrl);
     const rows = await t.db.selectFrom('auth_tokens').selectAll().execute();
     expect(rows).toHaveLength(1);
@@ -62,6 +63,22 @@ describe('password reset by e-mail', () => {
     expect(again.status).toBe(400);
     expect(again.body.message).toMatch(/expired or was already used/);
     await t.http().post('/api/auth/sign-in').send({ email: 'cass@mail.example', password: 'yet-another-secret' }).expect(401);
+  });
+
+  it('ends sessions that were signed in before the reset', async () => {
+    const row = await t.db.selectFrom('users').selectAll().where('email', '=', 'player@mail.example').executeTakeFirstOrThrow();
+    const iat = Math.floor(Date.now() / 1000) - 60; // signed in a minute ago, e.g. on a lost phone
+    const old = t.app.get(JwtService).sign({ sub: row.id, email: row.email, name: row.name, role: row.role, iat }, { expiresIn: 1800 });
+    await t.http().get('/api/auth/me').set('Cookie', `lw_session=${old}`).expect(200);
+
+    await t.http().post('/api/auth/password-reset').send({ email: 'player@mail.example' }).expect(202);
+    const token = tokenFrom((await resetMails(t, 'player@mail.example'))[0]!.data.resetUrl);
+    const done = await t.http().post('/api/auth/password-reset/confirm').send({ token, password: 'locked-out-the-thief' }).expect(200);
+
+    const refused = await t.http().get('/api/auth/me').set('Cookie', `lw_session=${old}`);
+    expect(refused.status).toBe(401);
+    expect(refused.body.message).toMatch(/password was changed/);
+    await t.http().get('/api/auth/me').set('Cookie', asRequestCookie(sessionCookieOf(done)!)).expect(200);
   });
 
   it('refuses an expired link', async () => {

@@ -30,6 +30,7 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
   }
 
   override handleRequest<TUser>(error: unknown, user: TUser | false): TUser {
+    if (error instanceof UnauthorizedException) throw error; // a reason worth telling (password changed)
     if (error || !user) throw new UnauthorizedException('Please sign in to do this.');
     return user;
   }

@@ -1,5 +1,6 @@
 import { CallHandler, ExecutionContext, Injectable, NestInterceptor, SetMetadata } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
+import type { AuthUser } from '@loomwright/shared';
 import type { Response } from 'express';
 import { from, Observable, switchMap } from 'rxjs';
 import { AuthService } from './auth.service';
@@ -11,8 +12,7 @@ export const SkipSessionRenewal = () => SetMetadata(SKIP_SESSION_RENEWAL, true);
 /**
  * Sliding sessions: the token is short-lived, and once more than half its lifetime has passed a
  * request that carries it gets a fresh one. An active player stays signed in; an idle one is
- * signed out when the token runs out. The fresh token is built from the stored account, so a
- * changed name or role, or a removed account, takes effect at the next renewal.
+ * signed out when the token runs out.
  */
 @Injectable()
 export class SessionRenewalInterceptor implements NestInterceptor {
@@ -28,12 +28,12 @@ export class SessionRenewalInterceptor implements NestInterceptor {
   private async renewIfDue(context: ExecutionContext): Promise<void> {
     if (context.getType() !== 'http') return;
     if (this.reflector.getAllAndOverride<boolean>(SKIP_SESSION_RENEWAL, [context.getHandler(), context.getClass()])) return;
-    const req = context.switchToHttp().getRequest<{ user?: { id: string; issuedAt?: number } }>();
+    const req = context.switchToHttp().getRequest<{ user?: AuthUser & { issuedAt?: number } }>();
     const issuedAt = req.user?.issuedAt;
     if (!req.user || issuedAt === undefined) return;
     const ageMs = Date.now() - issuedAt * 1000;
     if (ageMs <= this.auth.sessionMs / 2) return;
-    const user = await this.auth.findUser(req.user.id);
-    if (user) this.auth.startSession(context.switchToHttp().getResponse<Response>(), user);
+    // req.user was read from the database by the JWT strategy, so the new token carries today's name and role.
+    this.auth.startSession(context.switchToHttp().getResponse<Response>(), req.user);
   }
 }

@@ -44,6 +44,7 @@ export interface UsersTable {
   phone: string | null;
   created_at: Generated<Timestamp>;
   last_sign_in_at: NullableTimestamp;
+  password_changed_at: NullableTimestamp;
 }
 
 export interface AuthTokensTable {

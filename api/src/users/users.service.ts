@@ -28,7 +28,7 @@ export class UsersService {
   }
 
   setPassword(id: string, passwordHash: string, trx?: Executor) {
-    return this.users.update(id, { password_hash: passwordHash }, trx);
+    return this.users.update(id, { password_hash: passwordHash, password_changed_at: new Date() }, trx);
   }
 
   recordSignIn(id: string, trx?: Executor) {

@@ -66,6 +66,8 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     SEED_DEMO: options.seed === false ? 'false' : 'true',
     RUN_WORKERS: 'false',
     JWT_SECRET: 'loomwright-test-secret-0123456789',
+    // Tests sign in often from one address; throttling.spec.ts sets its own small limit.
+    AUTH_THROTTLE_LIMIT: '1000',
     ...options.env,
   });
   // Imported after the environment is set: the module reads it while it is being declared.

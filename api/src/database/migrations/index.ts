@@ -2,6 +2,7 @@ import type { Migration } from 'kysely';
 import * as foundation from './20261201_0001_foundation';
 import * as domain from './20261201_0002_domain';
 import * as mailDelivery from './20261201_0400_mail_delivery';
+import * as passwordChangedAt from './20261201_0200_password_changed_at';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -10,5 +11,6 @@ import * as mailDelivery from './20261201_0400_mail_delivery';
 export const migrations: Record<string, Migration> = {
   '20261201_0001_foundation': foundation,
   '20261201_0002_domain': domain,
+  '20261201_0200_password_changed_at': passwordChangedAt,
   '20261201_0400_mail_delivery': mailDelivery,
 };
