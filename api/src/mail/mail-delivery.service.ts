@@ -26,8 +26,9 @@ export const OUTCOME_UNKNOWN =
  *    crashed after the mail went out) finds nothing to claim and ends.
  * 3. Only a definite "not taken" goes back to 'queued': a refused connection, or an SMTP 4yz reply.
  *    A 5yz reply, or data the template cannot render, ends in 'failed' with the reason.
- * 4. A claim whose outcome is unknown — no reply after the body was sent, or a sender that died
- *    between the claim and marking it sent (found by the sweep after SEND_LEASE_SECONDS) — ends
+ * 4. A claim whose outcome is unknown — the connection dropped or went silent once the SMTP
+ *    session was under way (see classifySmtpError), or a sender that died between the claim and
+ *    marking it sent (found by the sweep after SEND_LEASE_SECONDS) — ends
  *    in 'failed' with OUTCOME_UNKNOWN, never re-sent by itself: the owner decides in the mail log.
  * So no automatic path hands one row to the mail server twice, and no row is dropped silently:
  * each ends 'sent' or 'failed' with its reason in the log. Every send carries the row's stable
