@@ -93,7 +93,7 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
         template: 'welcome',
         to_address: 'swept@mail.example',
         data: JSON.stringify({ name: 'Sam' }),
-        created_at: new Date(Date.now() - 5 * 60_000),
+        created_at: sql`now() - interval '5 minutes'`,
       })
       .returning('id')
       .executeTakeFirstOrThrow();

@@ -31,7 +31,6 @@ describe('classifySmtpError on real SMTP failures', () => {
     port = (server.server.address() as AddressInfo).port;
   });
   afterAll(async () => {
-    server.server.closeAllConnections?.();
     await new Promise<void>((resolve) => server.close(() => resolve()));
   });
 
