@@ -38,6 +38,7 @@ export const OUTCOME_UNKNOWN =
 export class MailDeliveryService {
   private readonly logger = new Logger('Mail');
   private readonly maxAttempts: number;
+  private readonly publicUrl: string;
 
   constructor(
     private readonly outbox: MailOutboxRepository,
@@ -46,6 +47,7 @@ export class MailDeliveryService {
     config: ConfigService<AppConfig, true>,
   ) {
     this.maxAttempts = config.get('mail', { infer: true }).maxAttempts;
+    this.publicUrl = config.get('app', { infer: true }).publicUrl;
   }
 
   async deliverOne(id: string): Promise<DeliveryOutcome> {
@@ -55,7 +57,7 @@ export class MailDeliveryService {
     let rendered: RenderedMail;
     try {
       const shop = await this.shop.profile();
-      rendered = renderMail(row.template, row.data, shop);
+      rendered = renderMail(row.template, row.data, { ...shop, publicUrl: this.publicUrl }, { bookingId: row.booking_id });
     } catch (error) {
       const permanent = error instanceof MailDataError;
       const reason = permanent ? `The message cannot be written: ${(error as Error).message}.` : describeSmtpError(error);
