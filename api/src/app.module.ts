@@ -13,6 +13,7 @@ import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
 import { HealthModule } from './health/health.module';
+import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { PaymentsModule } from './payments/payments.module';
 import { PriceBookModule } from './price-book/price-book.module';
@@ -44,6 +45,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     AuthModule,
     BookingsModule,
     HealthModule,
+    InvitationsModule,
     MailModule,
     PaymentsModule,
     ShopModule,

@@ -8,3 +8,5 @@ export * from './booking-types';
 export * from './estimate/url-codec';
 export * from './bench-types';
 export * from './estimate/estimate-engine';
+export * from './auth-schemas';
+export * from './booking-schemas';
