@@ -3,10 +3,20 @@ import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
+import { BenchModule } from './bench/bench.module';
+import { BuildsModule } from './builds/builds.module';
+import { CustomersModule } from './customers/customers.module';
+import { SettingsModule } from './settings/settings.module';
+import { TeamModule } from './team/team.module';
+import { BookingsModule } from './bookings/bookings.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
+import { EstimatesModule } from './estimates/estimates.module';
 import { HealthModule } from './health/health.module';
+import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
+import { PaymentsModule } from './payments/payments.module';
+import { PriceBookModule } from './price-book/price-book.module';
 import { ShopModule } from './shop/shop.module';
 
 const repoRoot = path.resolve(__dirname, '..', '..', '..');
@@ -33,9 +43,19 @@ const servesApps = process.env.SERVE_APPS !== 'false';
         ]
       : []),
     AuthModule,
+    BookingsModule,
     HealthModule,
+    InvitationsModule,
     MailModule,
+    PaymentsModule,
     ShopModule,
+    BenchModule,
+    BuildsModule,
+    TeamModule,
+    SettingsModule,
+    CustomersModule,
+    PriceBookModule,
+    EstimatesModule,
   ],
 })
 export class AppModule {}

@@ -24,11 +24,17 @@ describe('sign-up, sign-in, me and sign-out', () => {
     const row = await t.db.selectFrom('users').select(['password_hash']).where('email', '=', 'juniper.marsh@mail.example').executeTakeFirstOrThrow();
     // OWASP Password Storage Cheat Sheet, scrypt: N=2^17, r=8, p=1.
     expect(row.password_hash).toMatch(/^scrypt\$131072\$8\$1\$/);
+    // The welcome e-mail is queued with the account, once.
+    const mails = await t.db.selectFrom('mail_outbox').select(['template', 'to_address', 'data']).where('to_address', '=', 'juniper.marsh@mail.example').execute();
+    expect(mails).toHaveLength(1);
+    expect(mails[0]).toMatchObject({ template: 'welcome', data: { name: 'Juniper Marsh' } });
   });
 
   it('treats e-mail case-insensitively: the same address in capitals is refused with 409', async () => {
     const res = await t.http().post('/api/auth/sign-up').send({ email: 'JUNIPER.MARSH@mail.example', password: 'another-password', name: 'J' });
     expect(res.status).toBe(409);
+    const mails = await t.db.selectFrom('mail_outbox').select('id').where('template', '=', 'welcome').execute();
+    expect(mails).toHaveLength(1);
   });
 
   it('names the field when sign-up input is bad', async () => {

@@ -7,3 +7,7 @@ export * from './estimate/types';
 export * from './booking-types';
 export * from './estimate/url-codec';
 export * from './mail-types';
+export * from './bench-types';
+export * from './estimate/estimate-engine';
+export * from './auth-schemas';
+export * from './booking-schemas';

@@ -1,57 +1,78 @@
-import { Body, Controller, Get, HttpCode, Post, Res } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
-import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { AuthUser } from '@loomwright/shared';
+import { Body, Controller, Get, HttpCode, Post, Res, UseGuards } from '@nestjs/common';
+import { ApiAcceptedResponse, ApiOkResponse, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
+import { ThrottlerGuard } from '@nestjs/throttler';
+import { authMessages, type AuthUser } from '@loomwright/shared';
 import type { Response } from 'express';
-import type { AppConfig } from '../config/configuration';
 import { AuthService } from './auth.service';
 import { CurrentUser } from './current-user.decorator';
+import { ConfirmPasswordResetDto } from './dto/confirm-password-reset.dto';
+import { RequestPasswordResetDto } from './dto/request-password-reset.dto';
 import { SignInDto } from './dto/sign-in.dto';
 import { SignUpDto } from './dto/sign-up.dto';
 import { Public } from './public.decorator';
-import { SESSION_COOKIE, sessionCookieOptions } from './session-cookie';
+import { SkipSessionRenewal } from './session-renewal.interceptor';
 
 @ApiTags('auth')
+@ApiTooManyRequestsResponse({ description: authMessages.throttled })
 @Controller('auth')
 export class AuthController {
-  constructor(
-    private readonly auth: AuthService,
-    private readonly config: ConfigService<AppConfig, true>,
-  ) {}
-
-  private startSession(res: Response, user: AuthUser) {
-    const nodeEnv = this.config.get('app', { infer: true }).nodeEnv;
-    res.cookie(SESSION_COOKIE, this.auth.issueToken(user), sessionCookieOptions(nodeEnv, this.auth.sessionMs));
-  }
+  constructor(private readonly auth: AuthService) {}
 
   @Public()
+  @UseGuards(ThrottlerGuard)
+  @SkipSessionRenewal()
   @Post('sign-up')
   @ApiOkResponse({ description: 'The new player account; the session cookie is set.' })
   async signUp(@Body() body: SignUpDto, @Res({ passthrough: true }) res: Response) {
     const user = await this.auth.signUp(body);
-    this.startSession(res, user);
+    this.auth.startSession(res, user);
     return { user };
   }
 
   @Public()
+  @UseGuards(ThrottlerGuard)
+  @SkipSessionRenewal()
   @Post('sign-in')
   @HttpCode(200)
   async signIn(@Body() body: SignInDto, @Res({ passthrough: true }) res: Response) {
     const user = await this.auth.signIn(body.email, body.password);
-    this.startSession(res, user);
+    this.auth.startSession(res, user);
     return { user };
   }
 
   @Public()
+  @SkipSessionRenewal()
   @Post('sign-out')
   @HttpCode(200)
   signOut(@Res({ passthrough: true }) res: Response) {
-    res.clearCookie(SESSION_COOKIE, { path: '/' });
+    this.auth.endSession(res);
     return { signedOut: true };
   }
 
   @Get('me')
   async me(@CurrentUser() user: AuthUser) {
     return { user: await this.auth.currentUser(user.id) };
+  }
+
+  @Public()
+  @UseGuards(ThrottlerGuard)
+  @Post('password-reset')
+  @HttpCode(202)
+  @ApiAcceptedResponse({ description: 'The same answer whether or not the e-mail has an account.' })
+  async requestPasswordReset(@Body() body: RequestPasswordResetDto) {
+    await this.auth.requestPasswordReset(body.email);
+    return { message: authMessages.resetRequested };
+  }
+
+  @Public()
+  @UseGuards(ThrottlerGuard)
+  @SkipSessionRenewal()
+  @Post('password-reset/confirm')
+  @HttpCode(200)
+  @ApiOkResponse({ description: 'The password is changed and the session cookie is set.' })
+  async confirmPasswordReset(@Body() body: ConfirmPasswordResetDto, @Res({ passthrough: true }) res: Response) {
+    const user = await this.auth.confirmPasswordReset(body.token, body.password);
+    this.auth.startSession(res, user);
+    return { user };
   }
 }

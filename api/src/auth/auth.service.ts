@@ -1,18 +1,26 @@
-import { ConflictException, Injectable, UnauthorizedException } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, UnauthorizedException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { JwtService } from '@nestjs/jwt';
-import type { AuthUser } from '@loomwright/shared';
+import { authMessages, type AuthUser } from '@loomwright/shared';
+import type { Response } from 'express';
 import type { AppConfig } from '../config/configuration';
+import { Database } from '../database/database';
+import { MailService } from '../mail/mail.service';
 import { toAuthUser, UsersService } from '../users/users.service';
+import { AuthTokensService } from './auth-tokens.service';
 import type { SessionPayload } from './jwt.strategy';
 import { decoyPasswordHash, hashPassword, verifyPassword } from './password';
+import { SESSION_COOKIE, sessionCookieOptions } from './session-cookie';
 
 const UNIQUE_VIOLATION = '23505';
 
 @Injectable()
 export class AuthService {
   constructor(
+    private readonly db: Database,
     private readonly users: UsersService,
+    private readonly tokens: AuthTokensService,
+    private readonly mail: MailService,
     private readonly jwt: JwtService,
     private readonly config: ConfigService<AppConfig, true>,
   ) {}
@@ -21,13 +29,28 @@ export class AuthService {
     return this.config.get('auth', { infer: true }).sessionMinutes * 60_000;
   }
 
+  private get publicUrl(): string {
+    return this.config.get('app', { infer: true }).publicUrl;
+  }
+
   /** Players sign themselves up; staff accounts only come from the owner's invitation. */
   async signUp(input: { email: string; password: string; name: string }): Promise<AuthUser> {
     const passwordHash = await hashPassword(input.password);
     try {
-      const row = await this.users.create({ email: input.email, name: input.name, role: 'customer', passwordHash });
-      return toAuthUser(row);
+      return await this.db.transaction().execute(async (trx) => {
+        const row = await this.users.create({ email: input.email, name: input.name, role: 'customer', passwordHash }, trx);
+        await this.mail.enqueue(trx, {
+          template: 'welcome',
+          to: row.email,
+          userId: row.id,
+          data: { name: row.name, configureUrl: `${this.publicUrl}/configure`, accountUrl: `${this.publicUrl}/account` },
+          dedupeKey: `welcome:${row.id}`,
+        });
+        return toAuthUser(row);
+      });
     } catch (error) {
+      // Sign-up is the one place an address's use shows: a second account cannot share it. The
+      // answer points to the reset, and the route is throttled like sign-in.
       if ((error as { code?: string }).code === UNIQUE_VIOLATION) {
         throw new ConflictException('An account with this e-mail already exists. Sign in, or reset your password.');
       }
@@ -35,7 +58,7 @@ export class AuthService {
     }
   }
 
-  /** One answer for "no such e-mail" and "wrong password", in about the same time. */
+  /** One answer for "no such e-mail", "no password yet" and "wrong password", in about the same time. */
   async signIn(email: string, password: string): Promise<AuthUser> {
     const row = await this.users.findByEmail(email);
     const ok = await verifyPassword(password, row?.password_hash ?? (await decoyPasswordHash()));
@@ -46,14 +69,69 @@ export class AuthService {
     return toAuthUser(row);
   }
 
+  /**
+   * Always the same outcome for the caller, registered or not (OWASP Forgot Password Cheat Sheet:
+   * "return a consistent message for both existent and non-existent accounts"). For a known
+   * address a single-use link is e-mailed; the e-mail is queued in the token's transaction.
+   */
+  async requestPasswordReset(email: string): Promise<void> {
+    const lifetimeMs = this.config.get('auth', { infer: true }).passwordResetMinutes * 60_000;
+    await this.db.transaction().execute(async (trx) => {
+      const row = await this.users.findByEmail(email, trx);
+      if (!row) return;
+      const { token, expiresAt } = await this.tokens.issue(trx, row.id, 'password_reset', lifetimeMs);
+      await this.mail.enqueue(trx, {
+        template: 'password-reset',
+        to: row.email,
+        userId: row.id,
+        data: {
+          name: row.name,
+          resetUrl: `${this.publicUrl}/reset-password?token=${encodeURIComponent(token)}`,
+          expiresAt: expiresAt.toISOString(),
+        },
+      });
+    });
+  }
+
+  /** Spends the token, sets the password and retires any other reset links of the account. */
+  async confirmPasswordReset(token: string, password: string): Promise<AuthUser> {
+    const passwordHash = await hashPassword(password);
+    return this.db.transaction().execute(async (trx) => {
+      const userId = await this.tokens.consume(trx, token, 'password_reset');
+      if (!userId) throw new BadRequestException(authMessages.resetTokenInvalid);
+      await this.tokens.retireUnused(trx, userId, 'password_reset');
+      const row = await this.users.setPassword(userId, passwordHash, trx);
+      if (!row) throw new BadRequestException(authMessages.resetTokenInvalid);
+      await this.users.recordSignIn(userId, trx);
+      return toAuthUser(row);
+    });
+  }
+
   issueToken(user: AuthUser): string {
     const payload: SessionPayload = { sub: user.id, email: user.email, name: user.name, role: user.role };
     return this.jwt.sign(payload, { expiresIn: Math.floor(this.sessionMs / 1000) });
   }
 
-  async currentUser(id: string): Promise<AuthUser> {
+  /** Sets (or replaces) the session cookie for this user. */
+  startSession(res: Response, user: AuthUser): void {
+    const nodeEnv = this.config.get('app', { infer: true }).nodeEnv;
+    res.cookie(SESSION_COOKIE, this.issueToken(user), sessionCookieOptions(nodeEnv, this.sessionMs));
+  }
+
+  endSession(res: Response): void {
+    const nodeEnv = this.config.get('app', { infer: true }).nodeEnv;
+    const { maxAge: _maxAge, ...options } = sessionCookieOptions(nodeEnv, 0);
+    res.clearCookie(SESSION_COOKIE, options);
+  }
+
+  async findUser(id: string): Promise<AuthUser | undefined> {
     const row = await this.users.findById(id);
-    if (!row) throw new UnauthorizedException('Your session has ended; please sign in again.');
-    return toAuthUser(row);
+    return row ? toAuthUser(row) : undefined;
+  }
+
+  async currentUser(id: string): Promise<AuthUser> {
+    const user = await this.findUser(id);
+    if (!user) throw new UnauthorizedException('Your session has ended; please sign in again.');
+    return user;
   }
 }

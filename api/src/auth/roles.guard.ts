@@ -13,7 +13,11 @@ export class RolesGuard implements CanActivate {
     const user: AuthUser | undefined = context.switchToHttp().getRequest().user;
     if (!user || !roles.includes(user.role)) {
       throw new ForbiddenException(
-        roles.includes('customer') ? 'Your account cannot do this.' : 'This is for the shop’s staff only.',
+        roles.includes('customer')
+          ? 'Your account cannot do this.'
+          : roles.includes('builder')
+            ? 'This is for the shop’s staff only.'
+            : 'Only the shop owner can do this.',
       );
     }
     return true;

@@ -4,6 +4,8 @@ import { RouteError } from 'src/components/RouteError';
 
 const router = createBrowserRouter(
   [
+    { path: '/sign-in', lazy: () => import('src/app/routes/sign-in'), errorElement: <RouteError /> },
+    { path: '/accept-invite', lazy: () => import('src/app/routes/accept-invite'), errorElement: <RouteError /> },
     {
       path: '/',
       element: <AppLayout />,

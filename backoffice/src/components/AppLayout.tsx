@@ -5,8 +5,12 @@ import ListItemButton from '@mui/joy/ListItemButton';
 import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import { Suspense } from 'react';
-import { NavLink, Outlet } from 'react-router';
+import { staffRoles, type AuthUser } from '@loomwright/shared';
+import { Navigate, NavLink, Outlet, useLocation } from 'react-router';
 import { PageLoading } from 'src/components/PageLoading';
+import { useMe } from 'src/features/auth/api/get-me';
+import { SignedInStaff } from 'src/features/auth/components/SignedInStaff';
+import { StaffOnly } from 'src/features/auth/components/StaffOnly';
 import { useHealth } from 'src/features/shop/api/get-health';
 import { useShop } from 'src/features/shop/api/get-shop';
 
@@ -22,7 +26,25 @@ export const navigation = [
   { to: '/mail', label: 'Mail log' },
 ];
 
+/**
+ * Every backoffice page sits inside this layout, so this is where staff-only is enforced in the
+ * browser (the API enforces it again on every route): nobody signed in → the sign-in page, and
+ * back here afterwards; a player's account → a plain "staff only" page with a way to sign out.
+ */
 export function AppLayout() {
+  const me = useMe();
+  const location = useLocation();
+  if (me.isPending) return <PageLoading label="Checking who is signed in…" />;
+  if (me.isError) return <PageLoading label={me.error.message} />;
+  if (!me.data) {
+    const next = `${location.pathname}${location.search}`;
+    return <Navigate to={next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`} replace />;
+  }
+  if (!staffRoles.includes(me.data.role)) return <StaffOnly user={me.data} />;
+  return <StaffLayout user={me.data} />;
+}
+
+function StaffLayout({ user }: { user: AuthUser }) {
   const shop = useShop();
   const health = useHealth();
   return (
@@ -51,7 +73,10 @@ export function AppLayout() {
             </ListItem>
           ))}
         </List>
-        <Typography level="body-xs" sx={{ mt: 'auto' }} role="status">
+        <Box sx={{ mt: 'auto' }}>
+          <SignedInStaff user={user} />
+        </Box>
+        <Typography level="body-xs" role="status">
           {health.isError || health.data?.db === 'down'
             ? 'Database not answering'
             : health.data

@@ -1,4 +1,5 @@
 import type { BuilderLevel } from '../domain';
+import type { RigChecks } from '../checks/types';
 
 /** What the player tells us about their rig. POST /api/estimates takes this shape. */
 export interface RigConfiguration {
@@ -42,6 +43,8 @@ export interface PedalInput {
   supply?: 'dc' | 'ac';
   widthMm?: number;
   depthMm?: number;
+  /** Index into `powerSupply.outputs` when the player already knows which output feeds it. */
+  powerOutput?: number;
 }
 
 export interface PowerOutputInput {
@@ -82,6 +85,6 @@ export interface EstimateResult {
   minimumLevel: BuilderLevel;
   minimumLevelReasons: string[];
   notes: string[];
-  /** Engineering checks (power budget, board fit, cable schedule); shapes in ./checks. */
-  checks?: Record<string, unknown>;
+  /** Engineering checks (power budget, board fit, cable schedule, complexity); shapes in ../checks/types. */
+  checks?: RigChecks;
 }

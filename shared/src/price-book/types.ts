@@ -73,6 +73,8 @@ export interface FunctionItem {
   functionCount: number;
   /** Extra audio patch cables (two plugs each) the function adds. */
   extraPatchCables: number;
+  /** The least experienced level the shop lets wire this function; absent means journeyman. */
+  minimumLevel?: BuilderLevel;
 }
 
 export interface LevelItem {
@@ -105,4 +107,25 @@ export interface Catalog {
   depositPolicy: DepositPolicy;
   materials: MaterialsRates;
   labor: LaborRates;
+}
+
+/** One published version, as listed in the backoffice. */
+export interface PriceBookVersionSummary {
+  version: number;
+  currency: string;
+  notes: string;
+  publishedAt: string;
+  publishedBy: string | null;
+}
+
+/** GET /api/price-book (staff): the current book in full and every version published so far. */
+export interface PriceBookOverview {
+  current: PriceBookVersionSummary & { book: PriceBook };
+  versions: PriceBookVersionSummary[];
+}
+
+/** POST /api/price-book (owner): the whole new book; it becomes the next version. */
+export interface PublishPriceBookRequest {
+  book: PriceBook;
+  notes?: string;
 }

@@ -4,6 +4,7 @@ import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import { Suspense } from 'react';
 import { Link as RouterLink, Outlet } from 'react-router';
+import { AccountNav } from 'src/features/auth/components/AccountNav';
 import { useHealth } from 'src/features/shop/api/get-health';
 import { useShop } from 'src/features/shop/api/get-shop';
 import { PageLoading } from 'src/components/PageLoading';
@@ -29,8 +30,9 @@ export function AppLayout() {
             <Typography level="body-xs" component="span">pedalboards wired by hand</Typography>
           </Box>
         </Link>
-        <Box component="nav" aria-label="Main" sx={{ ml: 'auto', display: 'flex', gap: 2, flexWrap: 'wrap' }}>
+        <Box component="nav" aria-label="Main" sx={{ ml: 'auto', display: 'flex', alignItems: 'center', gap: 2, flexWrap: 'wrap' }}>
           <Link component={RouterLink} to="/configure">Configure a board</Link>
+          <AccountNav />
         </Box>
       </Sheet>
       <Box component="main" id="main" sx={{ flex: 1, px: { xs: 2, md: 4 }, py: { xs: 3, md: 5 } }}>

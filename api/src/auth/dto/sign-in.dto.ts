@@ -1,17 +1,16 @@
+import { authMessages, PASSWORD_MAX_LENGTH } from '@loomwright/shared';
 import { ApiProperty } from '@nestjs/swagger';
-import { Transform } from 'class-transformer';
-import { IsEmail, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsString, MaxLength, MinLength } from 'class-validator';
+import { IsAccountEmail } from './account-email';
 
 export class SignInDto {
   @ApiProperty({ example: 'player@mail.example' })
-  @Transform(({ value }) => (typeof value === 'string' ? value.trim().toLowerCase() : value))
-  @IsEmail({}, { message: 'email must be an e-mail address, like name@example.com' })
-  @MaxLength(254)
+  @IsAccountEmail()
   email: string;
 
   @ApiProperty()
-  @IsString()
-  @MinLength(1, { message: 'password must not be empty' })
-  @MaxLength(200)
+  @IsString({ message: authMessages.passwordEmpty })
+  @MinLength(1, { message: authMessages.passwordEmpty })
+  @MaxLength(PASSWORD_MAX_LENGTH, { message: authMessages.passwordLong })
   password: string;
 }

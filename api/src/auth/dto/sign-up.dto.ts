@@ -1,24 +1,23 @@
+import { authMessages } from '@loomwright/shared';
 import { ApiProperty } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import { IsEmail, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsString, MaxLength, MinLength } from 'class-validator';
+import { IsAccountEmail } from './account-email';
+import { IsNewPassword } from './new-password';
 
 export class SignUpDto {
   @ApiProperty({ example: 'new.player@mail.example' })
-  @Transform(({ value }) => (typeof value === 'string' ? value.trim().toLowerCase() : value))
-  @IsEmail({}, { message: 'email must be an e-mail address, like name@example.com' })
-  @MaxLength(254)
+  @IsAccountEmail()
   email: string;
 
   @ApiProperty({ minLength: 10, description: 'At least 10 characters.' })
-  @IsString()
-  @MinLength(10, { message: 'password must be at least 10 characters long' })
-  @MaxLength(200)
+  @IsNewPassword()
   password: string;
 
   @ApiProperty({ example: 'Juniper Marsh' })
   @Transform(({ value }) => (typeof value === 'string' ? value.trim() : value))
-  @IsString()
-  @MinLength(1, { message: 'name must not be empty' })
-  @MaxLength(120)
+  @IsString({ message: authMessages.nameEmpty })
+  @MinLength(1, { message: authMessages.nameEmpty })
+  @MaxLength(120, { message: authMessages.nameLong })
   name: string;
 }

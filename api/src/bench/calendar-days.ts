@@ -1,0 +1,38 @@
+/**
+ * Calendar-day arithmetic on 'YYYY-MM-DD' strings. A bench day is a day on the shop's wall
+ * calendar, not an instant, so everything here runs on UTC midnights and never sees a time zone.
+ */
+const DAY_MS = 86_400_000;
+const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
+
+export function isCalendarDay(value: unknown): value is string {
+  if (typeof value !== 'string' || !ISO_DAY.test(value)) return false;
+  const d = new Date(`${value}T00:00:00Z`);
+  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === value;
+}
+
+export function addDays(day: string, days: number): string {
+  return new Date(Date.parse(`${day}T00:00:00Z`) + days * DAY_MS).toISOString().slice(0, 10);
+}
+
+export function daysBetween(from: string, to: string): number {
+  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / DAY_MS);
+}
+
+/** ISO weekday: 1 = Monday … 7 = Sunday (ISO 8601). */
+export function isoWeekday(day: string): 1 | 2 | 3 | 4 | 5 | 6 | 7 {
+  const js = new Date(`${day}T00:00:00Z`).getUTCDay();
+  return (js === 0 ? 7 : js) as 1 | 2 | 3 | 4 | 5 | 6 | 7;
+}
+
+export function eachDay(from: string, to: string): string[] {
+  const out: string[] = [];
+  for (let d = from; d <= to; d = addDays(d, 1)) out.push(d);
+  return out;
+}
+
+/** Today's calendar day in the shop's time zone (the shop's wall clock decides what "today" is). */
+export function todayIn(timeZone: string, now: Date = new Date()): string {
+  // en-CA formats as YYYY-MM-DD.
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
+}

@@ -1,0 +1,148 @@
+import type {
+  BookingDetail,
+  BookingEventView,
+  BookingState,
+  BookingSummary,
+  BuilderLevel,
+  PaymentView,
+  PhotoView,
+  QuoteView,
+  RigConfiguration,
+} from '@loomwright/shared';
+import type { BookingEventRow, BookingListRow, PaymentRow, PhotoRow, QuoteRow } from './bookings.repository';
+
+// Timestamps arrive as Date from pg; the Generated<ColumnType> wrapper hides that from the type.
+const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
+
+export function pedalCountOf(config: RigConfiguration): number {
+  return config.pedals?.length ?? config.pedalCount ?? 0;
+}
+
+/** One line for tables: "12 pedals · switcher (8 loops) · stereo output". */
+export function summaryLine(config: RigConfiguration): string {
+  const count = pedalCountOf(config);
+  const parts = [`${count} ${count === 1 ? 'pedal' : 'pedals'}`];
+  if (config.routing?.mode === 'switcher') {
+    const loops = (config.pedals ?? []).filter((p) => p.inLoop).length;
+    parts.push(`switcher (${loops} ${loops === 1 ? 'loop' : 'loops'})`);
+  } else {
+    parts.push('serial');
+  }
+  for (const code of config.functions ?? []) parts.push(code.replace(/[_-]+/g, ' '));
+  return parts.join(' · ');
+}
+
+export function quoteView(row: QuoteRow): QuoteView {
+  return {
+    id: row.id,
+    kind: row.kind,
+    priceBookVersion: row.price_book_version,
+    currency: row.currency.trim(),
+    estimate: row.estimate,
+    laborHours: row.labor_hours,
+    totalLow: row.total_low,
+    totalHigh: row.total_high,
+    deposit: row.deposit,
+    hourlyRate: row.hourly_rate,
+    laborTotal: row.labor_total,
+    total: row.total,
+    expiresAt: iso(row.expires_at),
+    createdAt: iso(row.created_at),
+  };
+}
+
+export function paymentView(row: PaymentRow): PaymentView {
+  return {
+    id: row.id,
+    kind: row.kind,
+    amount: row.amount,
+    currency: row.currency.trim(),
+    status: row.status,
+    failureMessage: row.failure_message,
+    paidAt: row.paid_at ? iso(row.paid_at) : null,
+    refundedAt: row.refunded_at ? iso(row.refunded_at) : null,
+    createdAt: iso(row.created_at),
+  };
+}
+
+export function eventView(row: BookingEventRow): BookingEventView {
+  return {
+    id: String(row.id),
+    fromState: row.from_state as BookingState | null,
+    toState: row.to_state as BookingState,
+    actor: row.actor_label,
+    note: row.note,
+    at: iso(row.created_at),
+  };
+}
+
+export function photoView(row: PhotoRow): PhotoView {
+  return {
+    id: row.id,
+    kind: row.kind,
+    caption: row.caption,
+    contentType: row.content_type,
+    url: `/api/bookings/${row.booking_id}/photos/${row.id}`,
+    createdAt: iso(row.created_at),
+  };
+}
+
+/** The first estimate is the booking's quote; the newest firm quote (if any) is the firm one. */
+export function pickQuotes(quotes: QuoteRow[]): { estimate: QuoteRow | undefined; firm: QuoteRow | undefined } {
+  return {
+    estimate: quotes.find((q) => q.kind === 'estimate'),
+    firm: [...quotes].reverse().find((q) => q.kind === 'firm'),
+  };
+}
+
+export function summaryView(row: BookingListRow, quotes: QuoteRow[]): BookingSummary {
+  const { estimate, firm } = pickQuotes(quotes);
+  const config = row.configuration;
+  return {
+    id: row.id,
+    reference: row.reference,
+    state: row.state,
+    customer: { id: row.customer_id, name: row.customer_name, email: row.customer_email },
+    builder:
+      row.builder_id && row.builder_user_id
+        ? { id: row.builder_id, userId: row.builder_user_id, name: row.builder_name ?? '', level: row.builder_level as BuilderLevel }
+        : null,
+    benchDate: row.bench_date,
+    expectedCompletion: row.expected_completion,
+    currency: (firm ?? estimate)?.currency.trim() ?? '',
+    laborHours: (firm ?? estimate)?.labor_hours ?? '0',
+    totalLow: estimate?.total_low ?? '0',
+    totalHigh: estimate?.total_high ?? '0',
+    firmTotal: firm?.total ?? null,
+    deposit: estimate?.deposit ?? '0',
+    depositStatus: row.deposit_status,
+    pedalCount: pedalCountOf(config),
+    routingMode: config.routing?.mode === 'switcher' ? 'switcher' : 'serial',
+    summary: summaryLine(config),
+    createdAt: iso(row.created_at),
+    updatedAt: iso(row.updated_at),
+  };
+}
+
+export function detailView(
+  row: BookingListRow,
+  parts: { quotes: QuoteRow[]; payments: PaymentRow[]; events: BookingEventRow[]; photos: PhotoRow[]; balanceDue: string | null },
+): BookingDetail {
+  const { estimate, firm } = pickQuotes(parts.quotes);
+  if (!estimate) throw new Error(`booking ${row.id} has no estimate quote`);
+  return {
+    ...summaryView(row, parts.quotes),
+    configuration: row.configuration,
+    customerNotes: row.customer_notes,
+    quote: quoteView(estimate),
+    firmQuote: firm ? quoteView(firm) : null,
+    payments: parts.payments.map(paymentView),
+    events: parts.events.map(eventView),
+    photos: parts.photos.map(photoView),
+    inbound: row.inbound_carrier || row.inbound_tracking ? { carrier: row.inbound_carrier ?? '', tracking: row.inbound_tracking ?? '' } : null,
+    awaitingLayoutApproval: row.awaiting_layout_approval,
+    declineReason: row.decline_reason,
+    cancelReason: row.cancel_reason,
+    balanceDue: parts.balanceDue,
+  };
+}

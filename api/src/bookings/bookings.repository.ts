@@ -1,0 +1,192 @@
+import { Injectable } from '@nestjs/common';
+import { sql, type Insertable, type Selectable, type Updateable } from 'kysely';
+import type {
+  BookingEventsTable,
+  BookingsTable,
+  Executor,
+  PaymentsTable,
+  PhotosTable,
+  QuotesTable,
+} from '../database/database';
+import { Database } from '../database/database';
+
+export type BookingRow = Selectable<BookingsTable>;
+export type QuoteRow = Selectable<QuotesTable>;
+export type PaymentRow = Selectable<PaymentsTable>;
+export type BookingEventRow = Selectable<BookingEventsTable>;
+export type PhotoRow = Selectable<PhotosTable>;
+
+export interface BookingListRow extends BookingRow {
+  customer_name: string;
+  customer_email: string;
+  builder_user_id: string | null;
+  builder_name: string | null;
+  builder_level: string | null;
+  deposit_status: 'unpaid' | 'pending' | 'paid' | 'refunded';
+}
+
+export interface BookingListQuery {
+  customerId?: string;
+  state?: string;
+  depositStatus?: string;
+  q?: string;
+  sort: 'created_at' | 'updated_at' | 'reference' | 'state' | 'bench_date';
+  order: 'asc' | 'desc';
+  limit: number;
+  offset: number;
+}
+
+// A booking's deposit in one word, from its payment rows: paid wins over an open checkout.
+const depositStatusSql = sql<'unpaid' | 'pending' | 'paid' | 'refunded'>`(
+  case
+    when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'paid') then 'paid'
+    when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'refunded') then 'refunded'
+    when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'pending') then 'pending'
+    else 'unpaid'
+  end)`;
+
+@Injectable()
+export class BookingsRepository {
+  constructor(private readonly db: Database) {}
+
+  async nextReference(trx: Executor = this.db): Promise<string> {
+    const { rows } = await sql<{ n: string }>`select nextval('booking_reference_seq')::text as n`.execute(trx);
+    return `LW-${rows[0].n}`;
+  }
+
+  insertBooking(trx: Executor, values: Insertable<BookingsTable>) {
+    return trx.insertInto('bookings').values(values).returningAll().executeTakeFirstOrThrow();
+  }
+
+  insertQuote(trx: Executor, values: Insertable<QuotesTable>) {
+    return trx.insertInto('quotes').values(values).returningAll().executeTakeFirstOrThrow();
+  }
+
+  insertEvent(trx: Executor, values: Insertable<BookingEventsTable>) {
+    return trx.insertInto('booking_events').values(values).returningAll().executeTakeFirstOrThrow();
+  }
+
+  findById(id: string, trx: Executor = this.db) {
+    return trx.selectFrom('bookings').selectAll().where('id', '=', id).executeTakeFirst();
+  }
+
+  /** Row lock held until the caller's transaction ends: state changes on one booking queue up. */
+  lockById(trx: Executor, id: string) {
+    return trx.selectFrom('bookings').selectAll().where('id', '=', id).forUpdate().executeTakeFirst();
+  }
+
+  update(trx: Executor, id: string, patch: Updateable<BookingsTable>) {
+    return trx
+      .updateTable('bookings')
+      // Generated<Timestamp> hides the writable type of updated_at, hence the cast.
+      .set({ ...patch, updated_at: sql`now()` } as unknown as Updateable<BookingsTable>)
+      .where('id', '=', id)
+      .returningAll()
+      .executeTakeFirstOrThrow();
+  }
+
+  private listBase(trx: Executor, query: Omit<BookingListQuery, 'sort' | 'order' | 'limit' | 'offset'>) {
+    let qb = trx
+      .selectFrom('bookings')
+      .innerJoin('users as customer', 'customer.id', 'bookings.customer_id')
+      .leftJoin('builders', 'builders.id', 'bookings.builder_id')
+      .leftJoin('users as builder_user', 'builder_user.id', 'builders.user_id');
+    if (query.customerId) qb = qb.where('bookings.customer_id', '=', query.customerId);
+    if (query.state) qb = qb.where('bookings.state', '=', query.state as BookingRow['state']);
+    if (query.depositStatus) qb = qb.where(depositStatusSql, '=', query.depositStatus as 'paid');
+    if (query.q) {
+      const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      qb = qb.where((eb) =>
+        eb.or([
+          eb('bookings.reference', 'ilike', pattern),
+          eb('customer.name', 'ilike', pattern),
+          eb(sql`customer.email::text`, 'ilike', pattern),
+        ]),
+      );
+    }
+    return qb;
+  }
+
+  async list(query: BookingListQuery, trx: Executor = this.db): Promise<{ rows: BookingListRow[]; total: number }> {
+    const base = this.listBase(trx, query);
+    const { total } = await base
+      .select((eb) => eb.fn.countAll<string>().as('total'))
+      .executeTakeFirstOrThrow();
+    const rows = await base
+      .selectAll('bookings')
+      .select([
+        'customer.name as customer_name',
+        'customer.email as customer_email',
+        'builder_user.id as builder_user_id',
+        'builder_user.name as builder_name',
+        'builders.level as builder_level',
+        depositStatusSql.as('deposit_status'),
+      ])
+      .orderBy(`bookings.${query.sort}`, query.order)
+      .orderBy('bookings.id')
+      .limit(query.limit)
+      .offset(query.offset)
+      .execute();
+    return { rows: rows as BookingListRow[], total: Number(total) };
+  }
+
+  async findListRow(id: string, trx: Executor = this.db): Promise<BookingListRow | undefined> {
+    const row = await this.listBase(trx, {})
+      .selectAll('bookings')
+      .select([
+        'customer.name as customer_name',
+        'customer.email as customer_email',
+        'builder_user.id as builder_user_id',
+        'builder_user.name as builder_name',
+        'builders.level as builder_level',
+        depositStatusSql.as('deposit_status'),
+      ])
+      .where('bookings.id', '=', id)
+      .executeTakeFirst();
+    return row as BookingListRow | undefined;
+  }
+
+  quotesFor(bookingIds: string[], trx: Executor = this.db): Promise<QuoteRow[]> {
+    if (bookingIds.length === 0) return Promise.resolve([]);
+    return trx.selectFrom('quotes').selectAll().where('booking_id', 'in', bookingIds).orderBy('created_at').orderBy('id').execute();
+  }
+
+  paymentsFor(bookingId: string, trx: Executor = this.db): Promise<PaymentRow[]> {
+    return trx.selectFrom('payments').selectAll().where('booking_id', '=', bookingId).orderBy('created_at').execute();
+  }
+
+  eventsFor(bookingId: string, trx: Executor = this.db): Promise<BookingEventRow[]> {
+    return trx.selectFrom('booking_events').selectAll().where('booking_id', '=', bookingId).orderBy('id').execute();
+  }
+
+  photosFor(bookingId: string, trx: Executor = this.db): Promise<PhotoRow[]> {
+    return trx.selectFrom('photos').selectAll().where('booking_id', '=', bookingId).orderBy('created_at').execute();
+  }
+
+  async approvedExtrasTotal(bookingId: string, trx: Executor = this.db): Promise<string> {
+    const row = await trx
+      .selectFrom('booking_extras')
+      .select(sql<string>`coalesce(sum(amount), 0)::text`.as('total'))
+      .where('booking_id', '=', bookingId)
+      .where('status', '=', 'approved')
+      .executeTakeFirstOrThrow();
+    return row.total;
+  }
+
+  countPhotos(trx: Executor, bookingId: string) {
+    return trx
+      .selectFrom('photos')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('booking_id', '=', bookingId)
+      .executeTakeFirstOrThrow()
+      .then((r) => Number(r.n));
+  }
+
+  insertPhoto(trx: Executor, values: Insertable<PhotosTable>) {
+    return trx.insertInto('photos').values(values).returningAll().executeTakeFirstOrThrow();
+  }
+
+  findPhoto(bookingId: string, photoId: string, trx: Executor = this.db) {
+    return trx.selectFrom('photos').selectAll().where('booking_id', '=', bookingId).where('id', '=', photoId).executeTakeFirst();
+  }
+}

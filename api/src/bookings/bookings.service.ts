@@ -1,0 +1,223 @@
+import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import type { AuthUser, BookingDetail, BookingState, BookingSummary, Page, RigConfiguration } from '@loomwright/shared';
+import { bookingStateLabels, describeIssues, rigConfigurationSchema, staffRoles } from '@loomwright/shared';
+import Decimal from 'decimal.js';
+import { Database, type Executor } from '../database/database';
+import { MailService } from '../mail/mail.service';
+import { detailView, summaryView } from './booking-view';
+import { BookingsRepository, type BookingRow } from './bookings.repository';
+import type { CreateBookingDto } from './dto/create-booking.dto';
+import type { ListBookingsDto } from './dto/list-bookings.dto';
+import type { RecordShipmentDto } from './dto/record-shipment.dto';
+import { QuotePricer } from './quote-pricer';
+
+/** Who made a change, as the timeline shows it. `id` is null for the system (e.g. a webhook). */
+export interface BookingActor {
+  id: string | null;
+  label: string;
+}
+
+/** An estimate holds its price this long; after that the shop re-prices before accepting. */
+export const QUOTE_VALID_DAYS = 30;
+
+export const actorOf = (user: AuthUser): BookingActor => ({ id: user.id, label: user.name });
+const isStaff = (user: AuthUser) => staffRoles.includes(user.role);
+
+@Injectable()
+export class BookingsService {
+  constructor(
+    private readonly db: Database,
+    private readonly bookings: BookingsRepository,
+    private readonly pricer: QuotePricer,
+    private readonly mail: MailService,
+  ) {}
+
+  /** A player's request: re-priced here (the client's figures are never trusted) and snapshotted. */
+  async create(user: AuthUser, dto: CreateBookingDto): Promise<BookingDetail> {
+    const parsed = rigConfigurationSchema.safeParse(dto.configuration);
+    // The same schema and words as POST /api/estimates and the configurator's forms.
+    if (!parsed.success) throw new BadRequestException(describeIssues(parsed.error).map((m) => `configuration.${m}`));
+    const configuration: RigConfiguration = parsed.data;
+    const id = await this.db.transaction().execute(async (trx) => {
+      const estimate = await this.pricer.price(configuration, trx);
+      const reference = await this.bookings.nextReference(trx);
+      const booking = await this.bookings.insertBooking(trx, {
+        reference,
+        customer_id: user.id,
+        state: 'requested',
+        configuration: JSON.stringify(configuration),
+        customer_notes: dto.notes?.trim() ?? '',
+      });
+      const expiresAt = new Date(Date.now() + QUOTE_VALID_DAYS * 24 * 60 * 60 * 1000);
+      await this.bookings.insertQuote(trx, {
+        booking_id: booking.id,
+        kind: 'estimate',
+        price_book_version: estimate.priceBookVersion,
+        currency: estimate.currency,
+        configuration: JSON.stringify(configuration),
+        estimate: JSON.stringify(estimate),
+        labor_hours: estimate.laborHours,
+        total_low: estimate.totalLow,
+        total_high: estimate.totalHigh,
+        deposit: estimate.deposit,
+        expires_at: expiresAt,
+      });
+      await this.bookings.insertEvent(trx, {
+        booking_id: booking.id,
+        from_state: null,
+        to_state: 'requested',
+        actor_id: user.id,
+        actor_label: user.name,
+        note: 'Build requested from the storefront.',
+      });
+      await this.mail.enqueue(trx, {
+        template: 'booking-requested',
+        to: user.email,
+        bookingId: booking.id,
+        userId: user.id,
+        data: {
+          name: user.name,
+          reference,
+          totalLow: estimate.totalLow,
+          totalHigh: estimate.totalHigh,
+          deposit: estimate.deposit,
+          currency: estimate.currency,
+          quoteExpiresAt: expiresAt.toISOString(),
+        },
+        dedupeKey: `booking-requested:${booking.id}`,
+      });
+      return booking.id;
+    });
+    return this.getDetail(id);
+  }
+
+  async list(user: AuthUser, query: ListBookingsDto): Promise<Page<BookingSummary>> {
+    const page = query.page ?? 1;
+    const pageSize = query.pageSize ?? 25;
+    const { rows, total } = await this.bookings.list({
+      customerId: isStaff(user) ? undefined : user.id,
+      state: query.state,
+      depositStatus: query.deposit,
+      q: query.q?.trim() || undefined,
+      sort: query.sort ?? 'created_at',
+      order: query.order ?? 'desc',
+      limit: pageSize,
+      offset: (page - 1) * pageSize,
+    });
+    const quotes = await this.bookings.quotesFor(rows.map((r) => r.id));
+    return {
+      items: rows.map((row) => summaryView(row, quotes.filter((q) => q.booking_id === row.id))),
+      total,
+      page,
+      pageSize,
+    };
+  }
+
+  /** The full booking (staff view); throws 404 when it does not exist. */
+  async getDetail(id: string, trx: Executor = this.db): Promise<BookingDetail> {
+    const row = await this.bookings.findListRow(id, trx);
+    if (!row) throw new NotFoundException(`There is no booking ${id}.`);
+    const [quotes, payments, events, photos] = await Promise.all([
+      this.bookings.quotesFor([id], trx),
+      this.bookings.paymentsFor(id, trx),
+      this.bookings.eventsFor(id, trx),
+      this.bookings.photosFor(id, trx),
+    ]);
+    const balanceDue = await this.balanceDue(id, trx);
+    return detailView(row, { quotes, payments, events, photos, balanceDue });
+  }
+
+  /** As getDetail, but a player only ever sees their own: another's booking is simply not there. */
+  async getDetailFor(user: AuthUser, id: string): Promise<BookingDetail> {
+    await this.findVisible(user, id);
+    return this.getDetail(id);
+  }
+
+  async findVisible(user: AuthUser, id: string, trx: Executor = this.db): Promise<BookingRow> {
+    const row = await this.bookings.findById(id, trx);
+    if (!row || (!isStaff(user) && row.customer_id !== user.id)) {
+      throw new NotFoundException(`There is no booking ${id} in your account.`);
+    }
+    return row;
+  }
+
+  /** Firm total + approved extras − deposit paid; null until a firm quote exists. */
+  async balanceDue(id: string, trx: Executor = this.db): Promise<string | null> {
+    const quotes = await this.bookings.quotesFor([id], trx);
+    const firm = [...quotes].reverse().find((q) => q.kind === 'firm');
+    if (!firm?.total) return null;
+    const extras = await this.bookings.approvedExtrasTotal(id, trx);
+    const payments = await this.bookings.paymentsFor(id, trx);
+    const depositPaid = payments
+      .filter((p) => p.kind === 'deposit' && p.status === 'paid')
+      .reduce((sum, p) => sum.plus(p.amount), new Decimal(0));
+    const due = new Decimal(firm.total).plus(extras).minus(depositPaid);
+    return Decimal.max(due, 0).toFixed(2);
+  }
+
+  /**
+   * Moves a booking from one of `allowedFrom` to `to` and records who did it. The row is locked
+   * `for update`, so two concurrent changes to one booking are applied one after the other and the
+   * second sees the first's state.
+   */
+  async transition(
+    trx: Executor,
+    bookingId: string,
+    allowedFrom: BookingState[],
+    to: BookingState,
+    actor: BookingActor,
+    note = '',
+  ): Promise<BookingRow> {
+    const row = await this.bookings.lockById(trx, bookingId);
+    if (!row) throw new NotFoundException(`There is no booking ${bookingId}.`);
+    if (!allowedFrom.includes(row.state)) {
+      throw new ConflictException(
+        `Booking ${row.reference} is "${bookingStateLabels[row.state]}", so it cannot become "${bookingStateLabels[to]}"; ` +
+          `that needs it to be ${allowedFrom.map((s) => `"${bookingStateLabels[s]}"`).join(' or ')}.`,
+      );
+    }
+    const updated = await this.bookings.update(trx, bookingId, { state: to });
+    await this.bookings.insertEvent(trx, {
+      booking_id: bookingId,
+      from_state: row.state,
+      to_state: to,
+      actor_id: actor.id,
+      actor_label: actor.label,
+      note,
+    });
+    return updated;
+  }
+
+  /** Locks the row and returns it, for callers that change a booking without changing its state. */
+  lock(trx: Executor, bookingId: string) {
+    return this.bookings.lockById(trx, bookingId);
+  }
+
+  update(trx: Executor, bookingId: string, patch: Parameters<BookingsRepository['update']>[2]) {
+    return this.bookings.update(trx, bookingId, patch);
+  }
+
+  /** The player records the parcel carrying their pedals to the shop. */
+  async recordShipment(user: AuthUser, id: string, dto: RecordShipmentDto): Promise<BookingDetail> {
+    await this.db.transaction().execute(async (trx) => {
+      const row = await this.findVisible(user, id, trx);
+      const locked = await this.bookings.lockById(trx, row.id);
+      const open: BookingState[] = ['requested', 'deposit_paid', 'scheduled'];
+      if (!locked || !open.includes(locked.state)) {
+        throw new ConflictException(
+          `Booking ${row.reference} is "${bookingStateLabels[row.state]}"; tracking can be recorded until the shop checks the pedals in.`,
+        );
+      }
+      await this.bookings.update(trx, id, { inbound_carrier: dto.carrier.trim(), inbound_tracking: dto.tracking.trim() });
+      await this.bookings.insertEvent(trx, {
+        booking_id: id,
+        from_state: locked.state,
+        to_state: locked.state,
+        actor_id: user.id,
+        actor_label: user.name,
+        note: `Pedals shipped with ${dto.carrier.trim()}, tracking ${dto.tracking.trim()}.`,
+      });
+    });
+    return this.getDetail(id);
+  }
+}

@@ -1,0 +1,40 @@
+import { Injectable } from '@nestjs/common';
+import type { Updateable } from 'kysely';
+import type { AuthUser, BookingState } from '@loomwright/shared';
+import { actorOf, BookingsService } from '../bookings/bookings.service';
+import type { BookingsTable, Executor } from '../database/database';
+import { BuildsRepository } from './builds.repository';
+
+export const stateWords = (state: string) => state.replace(/_/g, ' ');
+
+/**
+ * Every change to a build goes through here so it lands in booking_events with who and when,
+ * in the same transaction as the change itself. State moves use the bookings domain's own
+ * transition, so the storefront timeline and the backoffice read one history.
+ */
+@Injectable()
+export class BuildHistory {
+  constructor(
+    private readonly builds: BuildsRepository,
+    private readonly bookings: BookingsService,
+  ) {}
+
+  async move(
+    trx: Executor,
+    booking: { id: string },
+    allowedFrom: BookingState[],
+    to: BookingState,
+    actor: AuthUser,
+    note: string,
+    values: Updateable<BookingsTable> = {},
+  ) {
+    const moved = await this.bookings.transition(trx, booking.id, allowedFrom, to, actorOf(actor), note);
+    return Object.keys(values).length ? this.bookings.update(trx, booking.id, values) : moved;
+  }
+
+  /** A change that keeps the state (hours, intake, extras, layout): still one line of history. */
+  note(trx: Executor, booking: { id: string; state: BookingState }, actor: AuthUser, note: string) {
+    const who = actorOf(actor);
+    return this.builds.insertEvent(trx, { bookingId: booking.id, from: booking.state, to: booking.state, actorId: who.id, actorLabel: who.label, note });
+  }
+}

@@ -1,0 +1,323 @@
+import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import Decimal from 'decimal.js';
+import {
+  benchTransitions,
+  levelRank,
+  type AcceptBookingResponse,
+  type AuthUser,
+  type BenchState,
+  type BookingDetail,
+  type BookingState,
+  type BookingStateResponse,
+} from '@loomwright/shared';
+import { BenchService } from '../bench/bench.service';
+import { addDays } from '../bench/calendar-days';
+import { shipByDate, toHours } from '../bench/scheduling';
+import { Database, type Executor } from '../database/database';
+import { actorOf, BookingsService } from '../bookings/bookings.service';
+import { MailService } from '../mail/mail.service';
+import { PaymentsService } from '../payments/payments.service';
+import { BuildHistory, stateWords } from './build-history';
+import { BuildsRepository } from './builds.repository';
+import type { AcceptBookingDto } from './dto/accept-booking.dto';
+import { firmQuoteFigures } from './firm-quote';
+import { whatToShip } from './what-to-ship';
+
+/** PostgreSQL SQLSTATEs the bench constraints raise (PostgreSQL docs, Appendix A "Error Codes"). */
+const EXCLUSION_VIOLATION = '23P01';
+const CHECK_VIOLATION = '23514';
+
+/** The state moves that tell the player something by e-mail. */
+const MAILED_STATES: BenchState[] = ['pedals_received', 'ready', 'delivered'];
+
+@Injectable()
+export class BuildsService {
+  constructor(
+    private readonly db: Database,
+    private readonly builds: BuildsRepository,
+    private readonly bench: BenchService,
+    private readonly history: BuildHistory,
+    private readonly mail: MailService,
+    private readonly payments: PaymentsService,
+    private readonly bookings: BookingsService,
+  ) {}
+
+  async accept(user: AuthUser, bookingId: string, dto: AcceptBookingDto): Promise<AcceptBookingResponse> {
+    try {
+      return await this.db.transaction().execute((trx) => this.acceptIn(trx, user, bookingId, dto));
+    } catch (error) {
+      const code = (error as { code?: string }).code;
+      if (code === EXCLUSION_VIOLATION || code === CHECK_VIOLATION) {
+        // The database refused overlapping or over-capacity bench time: someone else got there first.
+        throw new ConflictException('That bench time was just taken; pick another date.');
+      }
+      throw error;
+    }
+  }
+
+  private async acceptIn(trx: Executor, user: AuthUser, bookingId: string, dto: AcceptBookingDto): Promise<AcceptBookingResponse> {
+    // Lock order is always booking, then builder, so concurrent acceptances cannot deadlock.
+    const booking = await this.builds.lockBooking(trx, bookingId);
+    if (!booking) throw new NotFoundException('There is no booking with that id.');
+    if (booking.state !== 'deposit_paid') {
+      throw new ConflictException(
+        `Booking ${booking.reference} is ${stateWords(booking.state)}; a build can be accepted only once its deposit is paid and before it is scheduled.`,
+      );
+    }
+    const facts = await this.bench.planningFacts(trx, bookingId);
+    const builder = await this.bench.lockBuilder(trx, dto.builderId);
+    if (!builder) throw new NotFoundException('There is no builder with that builderId.');
+    if (!builder.active) throw new ConflictException(`${builder.name} is not taking builds (inactive on the team).`);
+
+    const belowLevel = levelRank(builder.level) < levelRank(facts.minimumLevel);
+    if (belowLevel) {
+      if (user.role !== 'owner') {
+        throw new ForbiddenException(
+          `This rig needs at least a ${facts.minimumLevel} builder and ${builder.name} is ${builder.level}; only the owner can assign them, with a reason.`,
+        );
+      }
+      if (!dto.levelOverrideReason?.trim()) {
+        throw new BadRequestException(
+          `levelOverrideReason is required: this rig needs at least a ${facts.minimumLevel} builder and ${builder.name} is ${builder.level}.`,
+        );
+      }
+    } else if (dto.levelOverrideReason) {
+      throw new BadRequestException(`levelOverrideReason is only for a builder below the rig's minimum level; ${builder.name} meets it.`);
+    }
+
+    const shop = await this.bench.shopCalendar(trx);
+    if (dto.benchDate < shop.today) throw new BadRequestException(`benchDate ${dto.benchDate} is in the past; the shop's today is ${shop.today}.`);
+    const plan = await this.bench.planFor(trx, builder.weekly_hours, builder.id, facts.laborHours, shop, { benchDate: dto.benchDate });
+    if (!plan.ok) throw new ConflictException(plan.message);
+    await this.bench.allocate(trx, bookingId, builder.id, builder.weekly_hours, shop, plan);
+
+    const payments = await this.builds.payments(trx, bookingId);
+    const depositPaid = payments.find((p) => p.kind === 'deposit' && p.status === 'paid')?.amount ?? facts.deposit;
+    const figures = firmQuoteFigures({
+      hourlyRate: builder.hourly_rate,
+      laborHours: facts.laborHours,
+      materialsTotal: facts.materialsTotal,
+      deposit: depositPaid,
+    });
+    const est = facts.estimateQuote;
+    const firm = await this.builds.insertQuote(trx, {
+      booking_id: bookingId,
+      kind: 'firm',
+      price_book_version: est.price_book_version,
+      currency: est.currency,
+      configuration: JSON.stringify(est.configuration),
+      estimate: JSON.stringify(est.estimate),
+      labor_hours: facts.laborHours,
+      total_low: figures.total,
+      total_high: figures.total,
+      deposit: depositPaid,
+      hourly_rate: builder.hourly_rate,
+      labor_total: figures.laborTotal,
+      total: figures.total,
+      builder_id: builder.id,
+      // A firm quote holds for the build it was given for; a year covers any queue we plan.
+      expires_at: new Date(Date.parse(`${addDays(plan.expectedCompletion, 365)}T00:00:00Z`)),
+    });
+
+    const shipBy = shipByDate(plan.benchDate, shop);
+    const levelNote = belowLevel ? ` Level override: ${dto.levelOverrideReason!.trim()}` : '';
+    await this.history.move(
+      trx,
+      booking,
+      ['deposit_paid'],
+      'scheduled',
+      user,
+      `Accepted for ${builder.name} (${builder.level}); bench date ${plan.benchDate}, expected completion ${plan.expectedCompletion}.${levelNote}`,
+      {
+        builder_id: builder.id,
+        bench_date: plan.benchDate,
+        expected_completion: plan.expectedCompletion,
+        level_override_reason: belowLevel ? dto.levelOverrideReason!.trim() : null,
+      },
+    );
+    await this.mail.enqueue(trx, {
+      template: 'booking-scheduled',
+      to: booking.customer_email,
+      bookingId,
+      userId: booking.customer_id,
+      dedupeKey: `scheduled:${bookingId}:${plan.benchDate}`,
+      data: {
+        customerName: booking.customer_name,
+        reference: booking.reference,
+        benchDate: plan.benchDate,
+        shipBy,
+        expectedCompletion: plan.expectedCompletion,
+        builderLevel: builder.level,
+        builderName: builder.name,
+        firmTotal: figures.total,
+        deposit: depositPaid,
+        balanceDue: figures.balanceDue,
+        currency: facts.currency,
+        whatToShip: whatToShip(booking.configuration),
+      },
+    });
+    return {
+      bookingId,
+      state: 'scheduled',
+      builderId: builder.id,
+      benchDate: plan.benchDate,
+      expectedCompletion: plan.expectedCompletion,
+      shipBy,
+      plan: plan.days.map((d) => ({ date: d.day, hours: toHours(d.hours) })),
+      firmQuote: {
+        id: firm.id,
+        hourlyRate: builder.hourly_rate,
+        laborHours: facts.laborHours,
+        laborTotal: figures.laborTotal,
+        materialsTotal: new Decimal(facts.materialsTotal).toFixed(2),
+        total: figures.total,
+        deposit: depositPaid,
+        balanceDue: figures.balanceDue,
+        currency: facts.currency,
+      },
+    };
+  }
+
+  async decline(user: AuthUser, bookingId: string, reason: string): Promise<BookingDetail> {
+    await this.db.transaction().execute(async (trx) => {
+      const booking = await this.builds.lockBooking(trx, bookingId);
+      if (!booking) throw new NotFoundException('There is no booking with that id.');
+      if (!['requested', 'deposit_paid'].includes(booking.state)) {
+        throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; only a request can be declined.`);
+      }
+      const paid = booking.state === 'deposit_paid';
+      if (paid && user.role !== 'owner') {
+        throw new ForbiddenException('Only the owner can decline a paid request, because it refunds the deposit.');
+      }
+      await this.history.move(trx, booking, ['requested', 'deposit_paid'], 'declined', user, `Declined: ${reason.trim()}`, {
+        decline_reason: reason.trim(),
+      });
+      // State first, refund second, one transaction: a refused decline never leaves money refunded behind it.
+      const deposit = (await this.builds.payments(trx, bookingId)).find((p) => p.kind === 'deposit' && p.status === 'paid');
+      const refunded = paid && deposit ? await this.payments.refundDeposit(trx, bookingId, actorOf(user), `Declined: ${reason.trim()}`) : null;
+      if (deposit && !refunded) {
+        throw new ConflictException(
+          `The deposit of ${booking.reference} has no provider payment to refund automatically; refund it with the payment provider first, then decline.`,
+        );
+      }
+      await this.mail.enqueue(trx, {
+        template: 'booking-declined',
+        to: booking.customer_email,
+        bookingId,
+        userId: booking.customer_id,
+        dedupeKey: `declined:${bookingId}`,
+        data: {
+          customerName: booking.customer_name,
+          reference: booking.reference,
+          reason: reason.trim(),
+          depositRefunded: !!refunded,
+          refundAmount: refunded?.amount ?? null,
+          refundPending: refunded ? refunded.status !== 'refunded' : false,
+          currency: refunded?.currency.trim() ?? null,
+        },
+      });
+    });
+    return this.bookings.getDetail(bookingId);
+  }
+
+  async changeState(user: AuthUser, bookingId: string, to: BenchState, note = ''): Promise<BookingStateResponse> {
+    return this.db.transaction().execute(async (trx) => {
+      const booking = await this.builds.lockBooking(trx, bookingId);
+      if (!booking) throw new NotFoundException('There is no booking with that id.');
+      const from = booking.state as BenchState;
+      const allowed = benchTransitions[from as BenchState];
+      if (!allowed || !allowed.includes(to)) {
+        const next = allowed?.length ? `; from there it can move to ${allowed.map(stateWords).join(' or ')}` : '';
+        throw new ConflictException(`Booking ${booking.reference} is ${stateWords(from)} and cannot move to ${stateWords(to)}${next}.`);
+      }
+      if (to === 'pedals_received' && (await this.builds.intakeItems(trx, bookingId)).length === 0) {
+        throw new ConflictException('Record the intake first (each pedal and the supply as working or faulty), then mark the pedals received.');
+      }
+      if (to === 'testing' && booking.awaiting_layout_approval) {
+        throw new ConflictException(`Booking ${booking.reference} is waiting for the player's layout approval; testing starts after it.`);
+      }
+      const balance = await this.balance(trx, bookingId);
+      if (to === 'delivered' && !booking.balance_waived_reason && balance.outstanding.gt(0)) {
+        throw new ConflictException(
+          `The balance of ${balance.outstanding.toFixed(2)} ${balance.currency} is not paid yet; deliver once it is paid or the owner waives it with a reason.`,
+        );
+      }
+      const updated = await this.history.move(trx, booking, [from], to, user, note.trim() || `Moved to ${stateWords(to)}.`);
+      if (to === 'ready') {
+        await this.mail.enqueue(trx, {
+          template: 'balance-requested',
+          to: booking.customer_email,
+          bookingId,
+          userId: booking.customer_id,
+          dedupeKey: `balance:${bookingId}`,
+          data: {
+            customerName: booking.customer_name,
+            reference: booking.reference,
+            firmTotal: balance.firmTotal.toFixed(2),
+            extras: balance.extras.toFixed(2),
+            depositPaid: balance.depositPaid.toFixed(2),
+            balanceDue: balance.outstanding.toFixed(2),
+            currency: balance.currency,
+          },
+        });
+      }
+      if (MAILED_STATES.includes(to)) {
+        const faulty = to === 'pedals_received' ? (await this.builds.intakeItems(trx, bookingId)).filter((i) => i.condition === 'faulty') : [];
+        await this.mail.enqueue(trx, {
+          template: 'status-changed',
+          to: booking.customer_email,
+          bookingId,
+          userId: booking.customer_id,
+          dedupeKey: `status:${bookingId}:${to}`,
+          data: {
+            customerName: booking.customer_name,
+            reference: booking.reference,
+            fromState: from,
+            state: to,
+            note: note.trim(),
+            faultyItems: faulty.map((i) => ({ item: i.item, note: i.note })),
+          },
+        });
+      }
+      return { bookingId, state: updated.state, awaitingLayoutApproval: updated.awaiting_layout_approval };
+    });
+  }
+
+  async waiveBalance(user: AuthUser, bookingId: string, reason: string): Promise<BookingStateResponse> {
+    return this.db.transaction().execute(async (trx) => {
+      const booking = await this.builds.lockBooking(trx, bookingId);
+      if (!booking) throw new NotFoundException('There is no booking with that id.');
+      if (booking.state !== 'ready') {
+        throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; a balance can be waived once the build is ready.`);
+      }
+      if (booking.balance_waived_reason) throw new ConflictException(`The balance of ${booking.reference} is already waived.`);
+      await this.builds.updateBooking(trx, bookingId, ['ready'], { balance_waived_reason: reason.trim() });
+      await this.history.note(trx, booking, user, `Balance waived: ${reason.trim()}`);
+      return { bookingId, state: booking.state, awaitingLayoutApproval: booking.awaiting_layout_approval };
+    });
+  }
+
+  /** Firm total + approved extras − deposit paid, less any balance already paid. */
+  async balance(trx: Executor, bookingId: string) {
+    const [firm, extras, payments] = await Promise.all([
+      this.builds.latestFirmQuote(trx, bookingId),
+      this.builds.approvedExtrasTotal(trx, bookingId),
+      this.builds.payments(trx, bookingId),
+    ]);
+    const firmTotal = new Decimal(firm?.total ?? 0);
+    const depositPaid = payments.filter((p) => p.kind === 'deposit' && p.status === 'paid').reduce((s, p) => s.plus(p.amount), new Decimal(0));
+    const balancePaid = payments.filter((p) => p.kind === 'balance' && p.status === 'paid').reduce((s, p) => s.plus(p.amount), new Decimal(0));
+    const due = Decimal.max(0, firmTotal.plus(extras.total).minus(depositPaid));
+    return {
+      firmTotal,
+      extras: new Decimal(extras.total),
+      depositPaid,
+      balanceDue: due,
+      outstanding: Decimal.max(0, due.minus(balancePaid)),
+      currency: (firm?.currency ?? payments[0]?.currency ?? 'USD').trim(),
+    };
+  }
+
+  /** Bench states in which the shop is working on a build (for records that only make sense then). */
+  static readonly workingStates: BookingState[] = ['pedals_received', 'on_bench', 'testing', 'ready'];
+}

@@ -1,0 +1,41 @@
+import { Body, Controller, HttpCode, Post, Res, UseGuards } from '@nestjs/common';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ThrottlerGuard } from '@nestjs/throttler';
+import type { AuthUser } from '@loomwright/shared';
+import type { Response } from 'express';
+import { AuthService } from '../auth/auth.service';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Public } from '../auth/public.decorator';
+import { Roles } from '../auth/roles.decorator';
+import { SkipSessionRenewal } from '../auth/session-renewal.interceptor';
+import { AcceptInvitationDto } from './dto/accept-invitation.dto';
+import { CreateInvitationDto } from './dto/create-invitation.dto';
+import { InvitationsService } from './invitations.service';
+
+@ApiTags('team')
+@Controller('invitations')
+export class InvitationsController {
+  constructor(
+    private readonly invitations: InvitationsService,
+    private readonly auth: AuthService,
+  ) {}
+
+  @Roles('owner')
+  @Post()
+  @ApiCreatedResponse({ description: 'The invited builder, their bench profile id and when the link expires.' })
+  invite(@Body() body: CreateInvitationDto, @CurrentUser() owner: AuthUser) {
+    return this.invitations.invite(body, owner);
+  }
+
+  @Public()
+  @UseGuards(ThrottlerGuard)
+  @SkipSessionRenewal()
+  @Post('accept')
+  @HttpCode(200)
+  @ApiOkResponse({ description: 'The password is set and the session cookie is set.' })
+  async accept(@Body() body: AcceptInvitationDto, @Res({ passthrough: true }) res: Response) {
+    const user = await this.invitations.accept(body.token, body.password);
+    this.auth.startSession(res, user);
+    return { user };
+  }
+}

@@ -1,0 +1,55 @@
+import { Body, Controller, Headers, HttpCode, Param, Post, Req, type RawBodyRequest } from '@nestjs/common';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { AuthUser } from '@loomwright/shared';
+import type { Request } from 'express';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Public } from '../auth/public.decorator';
+import { Roles } from '../auth/roles.decorator';
+import { bookingIdPipe } from '../bookings/booking-id.pipe';
+import { CancelBookingDto } from '../bookings/dto/cancel-booking.dto';
+import { RefundDepositDto } from './dto/refund-deposit.dto';
+import { PaymentWebhooksService } from './payment-webhooks.service';
+import { PaymentsService } from './payments.service';
+
+@ApiTags('payments')
+@Controller()
+export class PaymentsController {
+  constructor(
+    private readonly payments: PaymentsService,
+    private readonly webhooks: PaymentWebhooksService,
+  ) {}
+
+  @Post('bookings/:id/checkout')
+  @Roles('customer')
+  @HttpCode(200)
+  @ApiOkResponse({ description: '{ url } of the hosted checkout for what is due (deposit, later balance); the same session on repeat.' })
+  async checkout(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
+    const { url } = await this.payments.checkout(user, id);
+    return { url };
+  }
+
+  @Post('bookings/:id/cancel')
+  @Roles('customer')
+  @HttpCode(200)
+  @ApiOkResponse({ description: 'Cancels a request before it is scheduled; a paid deposit is refunded.' })
+  cancel(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body() dto: CancelBookingDto) {
+    return this.payments.cancel(user, id, dto.reason);
+  }
+
+  @Post('bookings/:id/refund')
+  @Roles('owner')
+  @HttpCode(200)
+  @ApiOkResponse({ description: "Refunds the booking's paid deposit through the payment provider." })
+  refund(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body() dto: RefundDepositDto) {
+    return this.payments.refundByOwner(user, id, dto.reason.trim());
+  }
+
+  @Public()
+  @Post('payments/webhook')
+  @HttpCode(200)
+  @ApiCreatedResponse({ description: 'Signed events from the payment provider; a bad signature gets 400.' })
+  webhook(@Req() req: RawBodyRequest<Request>, @Headers('stripe-signature') signature: string | undefined) {
+    const event = this.webhooks.verify(req.rawBody, signature);
+    return this.webhooks.handle(event);
+  }
+}

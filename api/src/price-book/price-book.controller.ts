@@ -1,0 +1,40 @@
+import { Body, Controller, Get, Post } from '@nestjs/common';
+import { ApiBody, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { publishPriceBookSchema, type AuthUser, type PriceBook } from '@loomwright/shared';
+import { z } from 'zod';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Public } from '../auth/public.decorator';
+import { Roles } from '../auth/roles.decorator';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
+import { PriceBookService } from './price-book.service';
+
+@ApiTags('price book')
+@Controller()
+export class PriceBookController {
+  constructor(private readonly priceBook: PriceBookService) {}
+
+  @Public()
+  @Get('catalog')
+  @ApiOkResponse({ description: "The current price book's surfaces, cases, functions, levels and deposit policy." })
+  catalog() {
+    return this.priceBook.catalog();
+  }
+
+  @Roles('builder', 'owner')
+  @Get('price-book')
+  @ApiOkResponse({ description: 'The current book in full and every published version.' })
+  overview() {
+    return this.priceBook.overview();
+  }
+
+  @Roles('owner')
+  @Post('price-book')
+  @ApiBody({ schema: z.toJSONSchema(publishPriceBookSchema, { io: 'input', unrepresentable: 'any' }) as object })
+  @ApiCreatedResponse({ description: 'The new version; quotes priced earlier keep theirs.' })
+  publish(
+    @Body(new ZodValidationPipe(publishPriceBookSchema)) body: { book: PriceBook; notes: string },
+    @CurrentUser() user: AuthUser,
+  ) {
+    return this.priceBook.publish(body.book, body.notes, user.id);
+  }
+}

@@ -1,0 +1,7 @@
+import { Module } from '@nestjs/common';
+import { PriceBookController } from './price-book.controller';
+import { PriceBookRepository } from './price-book.repository';
+import { PriceBookService } from './price-book.service';
+
+@Module({ controllers: [PriceBookController], providers: [PriceBookService, PriceBookRepository], exports: [PriceBookService] })
+export class PriceBookModule {}

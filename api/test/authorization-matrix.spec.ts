@@ -1,0 +1,159 @@
+import type { Express } from 'express';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from './support/test-app';
+import { sessionCookieFor } from './support/sessions';
+
+/**
+ * THE AUTHORIZATION MATRIX: every route the API registers, called as each kind of person, with
+ * the status each must get. The route list is read from Express after app.init(), so a route
+ * added anywhere without a line here FAILS this test, and so does a line for a route that is gone.
+ *
+ * HOW TO ADD YOUR ROUTE (one line in `matrix` below, key = "METHOD /api/path" exactly as registered):
+ *
+ *   'GET /api/bench': staff(200),
+ *   'POST /api/bookings/:id/accept': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/accept` },
+ *
+ * Statuses are in the order [anonymous, customer A, customer B, builder, owner]. Helpers:
+ *   open(s)       everyone gets s                       → [s, s, s, s, s]
+ *   signedIn(s)   any signed-in person                  → [401, s, s, s, s]
+ *   staff(s)      builders and the owner                → [401, 403, 403, s, s]
+ *   ownerOnly(s)  the owner                             → [401, 403, 403, 403, s]
+ *   ownedByA(s, other)  customer A's own thing: A and staff get s, B gets `other` (403 or 404)
+ *   or write the five statuses yourself: { expect: [401, 200, 404, 200, 200] }.
+ * A route with :params needs `path: (fx) => …` using the fixtures in `Fixtures` (add one there
+ * if you need another row; create it in `makeFixtures`). POST/PUT/PATCH send `{}` unless you set
+ * `body`: an empty body is the cheap way to reach the validation pipe, so "allowed" shows as 400
+ * without changing data, and "not allowed" still shows as 401/403 because guards run before pipes.
+ * Anything that answers 500 for any caller fails, whatever the line says.
+ */
+type Status = number;
+type Who = 'anonymous' | 'customerA' | 'customerB' | 'builder' | 'owner';
+const callers: Who[] = ['anonymous', 'customerA', 'customerB', 'builder', 'owner'];
+
+interface Fixtures {
+  customerA: string;
+  customerB: string;
+  builderUser: string;
+  builderId: string;
+  /** A booking (state 'requested') that belongs to customer A. */
+  bookingOfA: string;
+}
+
+interface Entry {
+  expect: [Status, Status, Status, Status, Status];
+  path?: (fx: Fixtures) => string;
+  body?: unknown;
+}
+
+const open = (s: Status): Entry => ({ expect: [s, s, s, s, s] });
+const signedIn = (s: Status): Entry => ({ expect: [401, s, s, s, s] });
+const staff = (s: Status): Entry => ({ expect: [401, 403, 403, s, s] });
+const ownerOnly = (s: Status): Entry => ({ expect: [401, 403, 403, 403, s] });
+const ownedByA = (s: Status, other: 403 | 404 = 404): Entry => ({ expect: [401, s, other, s, s] });
+
+const matrix: Record<string, Entry> = {
+  // API documentation (served by @nestjs/swagger outside the guards: open by design).
+  'GET /api/docs': open(200),
+  'GET /api/docs/': open(200),
+  'GET /api/docs/index.html': open(200),
+  'GET /api/docs/swagger-ui-init.js': open(200),
+  'GET /api/docs/docs/swagger-ui-init.js': open(200),
+  'GET /api/docs/LICENSE': open(404), // registered by swagger-ui, but the file is not shipped
+  'GET /api/docs-json': open(200),
+  'GET /api/docs-yaml': open(200),
+  // health and shop profile
+  'GET /api/health': open(200),
+  'GET /api/shop': open(200),
+  // accounts
+  'POST /api/auth/sign-up': open(400),
+  'POST /api/auth/sign-in': open(400),
+  'POST /api/auth/sign-out': open(200),
+  'GET /api/auth/me': signedIn(200),
+  'POST /api/auth/password-reset': open(400),
+  'POST /api/auth/password-reset/confirm': open(400),
+  'POST /api/invitations': ownerOnly(400),
+  'POST /api/invitations/accept': open(400),
+};
+
+async function makeFixtures(t: TestApp): Promise<Fixtures> {
+  const idOf = async (email: string) => (await t.db.selectFrom('users').select('id').where('email', '=', email).executeTakeFirstOrThrow()).id;
+  const customerA = await idOf('player@mail.example');
+  const builderUser = await idOf('builder@shop.example');
+  const builder = await t.db.selectFrom('builders').select('id').where('user_id', '=', builderUser).executeTakeFirstOrThrow();
+  const booking = await t.db
+    .insertInto('bookings')
+    .values({ reference: 'LW-MATRIX-A', customer_id: customerA, state: 'requested', configuration: JSON.stringify({}) })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return { customerA, customerB: await idOf('cass@mail.example'), builderUser, builderId: builder.id, bookingOfA: booking.id };
+}
+
+/** "METHOD /path" for every route on the Express router (Express 5 keeps them in app.router.stack). */
+function registeredRoutes(t: TestApp): string[] {
+  const express = t.app.getHttpAdapter().getInstance() as Express & { router: { stack: Array<{ route?: { path: string; methods: Record<string, boolean> } }> } };
+  const keys = new Set<string>();
+  for (const layer of express.router.stack) {
+    if (!layer.route) continue;
+    for (const [method, on] of Object.entries(layer.route.methods)) if (on && method !== '_all') keys.add(`${method.toUpperCase()} ${layer.route.path}`);
+  }
+  return [...keys].sort();
+}
+
+describe('authorization matrix: every route, every kind of caller', () => {
+  let t: TestApp;
+  let fx: Fixtures;
+  let cookies: Record<Who, string | undefined>;
+
+  beforeAll(async () => {
+    // The matrix calls each throttled route five times; keep the limit out of its way.
+    t = await createTestApp({ env: { AUTH_THROTTLE_LIMIT: '1000' } });
+    fx = await makeFixtures(t);
+    cookies = {
+      anonymous: undefined,
+      customerA: await sessionCookieFor(t, 'customerA'),
+      customerB: await sessionCookieFor(t, 'customerB'),
+      builder: await sessionCookieFor(t, 'builder'),
+      owner: await sessionCookieFor(t, 'owner'),
+    };
+  });
+  afterAll(async () => t.close());
+
+  it('has exactly one line for every registered route', () => {
+    const routes = registeredRoutes(t);
+    const missing = routes.filter((r) => !(r in matrix));
+    const stale = Object.keys(matrix).filter((r) => !routes.includes(r));
+    expect(missing, `add a line to the matrix in ${__filename} for: ${missing.map((m) => `'${m}': staff(200),`).join(' ')}`).toEqual([]);
+    expect(stale, 'these matrix lines name routes the API no longer registers').toEqual([]);
+    expect(routes.length).toBeGreaterThan(10);
+  });
+
+  it('answers every caller as the matrix says', async () => {
+    const problems: string[] = [];
+    for (const route of registeredRoutes(t)) {
+      const entry = matrix[route];
+      if (!entry) continue; // reported by the test above
+      const [method, pattern] = route.split(' ') as [string, string];
+      const url = entry.path ? entry.path(fx) : pattern;
+      if (url.includes('/:')) {
+        problems.push(`${route}: give the line a path: (fx) => … that fills its :params`);
+        continue;
+      }
+      for (const [index, who] of callers.entries()) {
+        let req = t.http()[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](url);
+        if (cookies[who]) req = req.set('Cookie', cookies[who]!);
+        const sendsBody = ['POST', 'PUT', 'PATCH'].includes(method);
+        const res = await (sendsBody ? req.send((entry.body ?? {}) as object) : req);
+        const expected = entry.expect[index]!;
+        if (res.status !== expected || res.status >= 500) {
+          problems.push(`${route} as ${who}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body?.message ?? '')}`);
+        }
+        // A refusal always says why in words.
+        if (res.status >= 400 && res.status < 500 && !pattern.startsWith('/api/docs')) {
+          const message = res.body?.message;
+          if (!message || (typeof message === 'string' && message.length < 8)) problems.push(`${route} as ${who}: ${res.status} without a message in words`);
+        }
+      }
+    }
+    expect(problems).toEqual([]);
+  });
+});

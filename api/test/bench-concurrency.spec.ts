@@ -1,0 +1,125 @@
+import { sql } from 'kysely';
+import { Client } from 'pg';
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { addDays } from '../src/bench/calendar-days';
+import { builderId, createBooking, quietMondayWeeksAhead, signIn } from './support/bench-fixtures';
+import { clearTables, createTestApp, type TestApp } from './support/test-app';
+
+/**
+ * Overbooking must be impossible in the database, not only in the planner: these tests fire many
+ * acceptances at once for one builder and check the bench through SQL afterwards.
+ */
+describe('concurrent acceptances for one builder', () => {
+  let t: TestApp;
+  let master: string;
+  let monday: string;
+
+  beforeAll(async () => {
+    t = await createTestApp({ env: { DATABASE_POOL_MAX: '30' } });
+    master = await builderId(t.db, 'builder@shop.example');
+    monday = quietMondayWeeksAhead(3);
+  });
+  afterAll(async () => t.close());
+  beforeEach(async () => clearTables(t.db, ['bench_allocations', 'booking_events', 'mail_outbox', 'payments', 'quotes', 'bookings']));
+
+  /** Per day: the hours booked, the capacity recorded, and whether any two slices overlap. */
+  async function benchThroughSql() {
+    const days = await sql<{ day: string; booked: string; capacity: string }>`
+      select day::text, sum(upper(hours) - lower(hours))::text as booked, max(day_capacity)::text as capacity
+      from bench_allocations where builder_id = ${master} group by day order by day`.execute(t.db);
+    const overlaps = await sql<{ n: string }>`
+      select count(*)::text as n from bench_allocations a join bench_allocations b
+        on a.id < b.id and a.builder_id = b.builder_id and a.day = b.day and a.hours && b.hours`.execute(t.db);
+    return { days: days.rows, overlaps: Number(overlaps.rows[0].n) };
+  }
+
+  it('20 acceptances of 2.5 h builds on one Monday: exactly the three that can start that day succeed', async () => {
+    const bookings = await Promise.all(Array.from({ length: 20 }, () => createBooking(t.db, { laborHours: '2.50' })));
+    const agent = await signIn(t.app, 'builder@shop.example');
+    const results = await Promise.all(
+      bookings.map((b) => agent.post(`/api/bookings/${b.id}/accept`).send({ builderId: master, benchDate: monday })),
+    );
+    const ok = results.filter((r) => r.status === 200);
+    const refused = results.filter((r) => r.status === 409);
+    // The master works 7 h on a Monday: 2.5 + 2.5 + 2 h fit (the third spills 0.5 h into Tuesday); the rest find Monday full.
+    expect(ok).toHaveLength(3);
+    expect(refused).toHaveLength(17);
+    for (const r of refused) expect(r.body.message).toMatch(/bench time/i);
+
+    const bench = await benchThroughSql();
+    expect(bench.overlaps).toBe(0);
+    expect(bench.days).toEqual([
+      { day: monday, booked: '7.00', capacity: '7.00' },
+      { day: addDays(monday, 1), booked: '0.50', capacity: '7.00' },
+    ]);
+    const scheduled = await t.db.selectFrom('bookings').select(['id']).where('state', '=', 'scheduled').execute();
+    expect(scheduled).toHaveLength(3);
+    // Each success has its firm quote and its one e-mail; the refused ones left nothing behind.
+    expect(await t.db.selectFrom('quotes').select('id').where('kind', '=', 'firm').execute()).toHaveLength(3);
+    expect(await t.db.selectFrom('mail_outbox').select('id').where('template', '=', 'booking-scheduled').execute()).toHaveLength(3);
+  });
+
+  it('24 acceptances of full-day builds spread over four days: one per day, never more than capacity', async () => {
+    const bookings = await Promise.all(Array.from({ length: 24 }, () => createBooking(t.db, { laborHours: '7.00' })));
+    const agent = await signIn(t.app, 'owner@shop.example');
+    const results = await Promise.all(
+      bookings.map((b, i) => agent.post(`/api/bookings/${b.id}/accept`).send({ builderId: master, benchDate: addDays(monday, i % 4) })),
+    );
+    expect(results.filter((r) => r.status === 200)).toHaveLength(4);
+    expect(results.filter((r) => r.status === 409)).toHaveLength(20);
+    expect(results.every((r) => r.status === 200 || r.status === 409)).toBe(true);
+    const bench = await benchThroughSql();
+    expect(bench.overlaps).toBe(0);
+    expect(bench.days.map((d) => d.day)).toEqual([0, 1, 2, 3].map((i) => addDays(monday, i)));
+    for (const d of bench.days) expect(Number(d.booked)).toBeLessThanOrEqual(Number(d.capacity));
+  });
+
+  it('the same booking accepted twice at once is scheduled once', async () => {
+    const booking = await createBooking(t.db, { laborHours: '3.00' });
+    const agent = await signIn(t.app, 'builder@shop.example');
+    const results = await Promise.all(
+      Array.from({ length: 20 }, (_, i) => agent.post(`/api/bookings/${booking.id}/accept`).send({ builderId: master, benchDate: addDays(monday, i % 3) })),
+    );
+    expect(results.filter((r) => r.status === 200)).toHaveLength(1);
+    expect(results.filter((r) => r.status === 409).every((r) => /deposit is paid and before it is scheduled/.test(r.body.message))).toBe(true);
+    const slices = await t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute();
+    expect(slices).toHaveLength(1);
+  });
+
+  it('the exclusion constraint is the last guard: time taken behind the planner’s back gives 409 in words', async () => {
+    const mine = await createBooking(t.db, { laborHours: '2.00' });
+    const other = await createBooking(t.db, { laborHours: '7.00' });
+    const agent = await signIn(t.app, 'builder@shop.example');
+    // A writer that skips the builder lock holds Monday's hours in an open transaction …
+    const raw = new Client({ connectionString: process.env.DATABASE_URL });
+    await raw.connect();
+    await raw.query('begin');
+    await raw.query(`insert into bench_allocations (booking_id, builder_id, day, hours, day_capacity) values ($1, $2, $3, numrange(0, 7), 7)`, [
+      other.id,
+      master,
+      monday,
+    ]);
+    // … the acceptance plans on the committed bench, [0, 2) looks free, and its insert waits on the constraint.
+    const pending = agent.post(`/api/bookings/${mine.id}/accept`).send({ builderId: master, benchDate: monday }).then((r) => r);
+    await new Promise((resolve) => setTimeout(resolve, 500));
+    await raw.query('commit');
+    await raw.end();
+    const res = await pending;
+    expect(res.status).toBe(409);
+    expect(res.body.message).toBe('That bench time was just taken; pick another date.');
+    const booking = await t.db.selectFrom('bookings').select('state').where('id', '=', mine.id).executeTakeFirstOrThrow();
+    expect(booking.state).toBe('deposit_paid');
+  });
+
+  it('the database itself refuses overlapping slices and slices past the day’s capacity', async () => {
+    const b = await createBooking(t.db, { laborHours: '1.00' });
+    const insert = (from: number, to: number, cap: number) =>
+      sql`insert into bench_allocations (booking_id, builder_id, day, hours, day_capacity) values (${b.id}, ${master}, ${monday}, numrange(${from}, ${to}), ${cap})`.execute(
+        t.db,
+      );
+    await insert(0, 3, 7);
+    await expect(insert(2, 4, 7)).rejects.toMatchObject({ code: '23P01' });
+    await expect(insert(3, 8, 7)).rejects.toMatchObject({ code: '23514' });
+    await expect(insert(3, 7, 7)).resolves.toBeDefined();
+  });
+});

@@ -1,0 +1,115 @@
+import { demoPriceBook, estimateRig } from '@loomwright/shared';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { referenceBoard, statedLaborRanges } from '../../shared/src/estimate/reference-rigs.fixture';
+import { createTestApp, type TestApp } from './support/test-app';
+
+describe('POST /api/estimates', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(async () => {
+    await t?.close();
+  });
+
+  it.each(statedLaborRanges)('prices the $mode reference board at $level rates with the engine’s numbers, inside the stated range', async ({ mode, level, low, high }) => {
+    const config = referenceBoard(mode, level);
+    const res = await t.http().post('/api/estimates').send(config).expect(200);
+    // The seeded book is the demo book, version 1: the HTTP answer is the engine's answer.
+    const expected = estimateRig(config, demoPriceBook, { version: 1 });
+    expect(res.body).toEqual(JSON.parse(JSON.stringify(expected)));
+    // Stated figures (common practice, no published source) widened by 5% at each end.
+    expect(Number(res.body.laborLow)).toBeGreaterThanOrEqual(low * 0.95);
+    expect(Number(res.body.laborHigh)).toBeLessThanOrEqual(high * 1.05);
+    const mid = (Number(res.body.laborLow) + Number(res.body.laborHigh)) / 2;
+    expect(Math.abs(mid - (low + high) / 2)).toBeLessThanOrEqual(((low + high) / 2) * 0.1);
+  });
+
+  it('answers a quick pedal count on a serial board', async () => {
+    const res = await t
+      .http()
+      .post('/api/estimates')
+      .send({ surfaceId: 'slate-46', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 5, functions: [], level: 'apprentice' })
+      .expect(200);
+    expect(res.body.priceBookVersion).toBe(1);
+    expect(res.body.currency).toBe('USD');
+    // 5 pedals in series: 4 patches, 8 plugs, 5 barrel plugs; 5 h + 1 h for the supply.
+    const line = (code: string) => res.body.lines.find((l: { code: string }) => l.code === code);
+    expect(line('patch_plugs').quantity).toBe('8');
+    expect(line('dc_barrel_plugs').quantity).toBe('5');
+    expect(res.body.laborHours).toBe('6.00');
+  });
+
+  const base = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' };
+  const bad: Array<[string, unknown, string]> = [
+    ['an unknown surface', { ...base, surfaceId: 'plank-9000' }, 'surfaceId'],
+    ['an unknown case', { ...base, caseId: 'shoebox' }, 'caseId'],
+    ['an unknown function', { ...base, functions: ['laser_show'] }, 'functions[0]'],
+    ['a negative pedal count', { ...base, pedalCount: -3 }, 'pedalCount'],
+    ['an absurd pedal count', { ...base, pedalCount: 100000 }, 'pedalCount'],
+    ['a fractional pedal count', { ...base, pedalCount: 2.5 }, 'pedalCount'],
+    ['a pedal count as text', { ...base, pedalCount: 'lots' }, 'pedalCount'],
+    [
+      'a loop pedal on a serial board',
+      { ...base, pedalCount: undefined, pedals: [{ name: 'fuzz', powered: true, inLoop: true }] },
+      'pedals[0].inLoop',
+    ],
+    ['an unknown level', { ...base, level: 'wizard' }, 'level'],
+    ['an unknown routing', { ...base, routing: { mode: 'wireless' } }, 'routing.mode'],
+    ['no pedals at all', { ...base, pedalCount: undefined }, 'pedals'],
+    ['a negative current draw', { ...base, pedalCount: undefined, pedals: [{ name: 'fuzz', powered: true, inLoop: false, currentMa: -5 }] }, 'pedals[0].currentMa'],
+  ];
+  it.each(bad)('answers 400 naming the field for %s', async (_what, body, field) => {
+    const res = await t.http().post('/api/estimates').send(body as object);
+    expect(res.status).toBe(400);
+    const messages: string[] = Array.isArray(res.body.message) ? res.body.message : [res.body.message];
+    expect(messages.some((m) => m.startsWith(`${field}:`))).toBe(true);
+  });
+
+  const garbage: Array<[string, string]> = [
+    ['malformed JSON', '{"surfaceId": '],
+    ['a JSON string', '"serial please"'],
+    ['a JSON number', '42'],
+    ['null', 'null'],
+    ['an array', '[1,2,3]'],
+    ['an empty object', '{}'],
+    ['deeply wrong types', '{"surfaceId":{"$gt":""},"caseId":[],"routing":"serial","pedals":"many","functions":{},"level":7}'],
+    ['a prototype key', '{"__proto__":{"polluted":true},"surfaceId":"slate-61"}'],
+    ['huge numbers', '{"surfaceId":"slate-61","caseId":"shell-hard","routing":{"mode":"serial"},"pedals":[{"name":"x","powered":true,"inLoop":false,"currentMa":1e308,"widthMm":1e400}],"functions":[],"level":"master"}'],
+  ];
+  it.each(garbage)('answers 400, never 500, to %s', async (_what, raw) => {
+    const res = await t.http().post('/api/estimates').set('content-type', 'application/json').send(raw);
+    expect(res.status).toBe(400);
+    expect(JSON.stringify(res.body.message)).toBeTruthy();
+  });
+
+  it('answers 400 to a form-encoded or text body', async () => {
+    const text = await t.http().post('/api/estimates').set('content-type', 'text/plain').send('pedals=12');
+    expect(text.status).toBe(400);
+    const form = await t.http().post('/api/estimates').type('form').send({ surfaceId: 'slate-61' });
+    expect(form.status).toBe(400);
+  });
+});
+
+describe('GET /api/catalog', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(async () => {
+    await t?.close();
+  });
+
+  it('answers the current book: surfaces, cases, functions, levels, deposit policy, each with an id', async () => {
+    const res = await t.http().get('/api/catalog').expect(200);
+    expect(res.body).toMatchObject({ priceBookVersion: 1, currency: 'USD' });
+    for (const key of ['surfaces', 'cases', 'functions', 'levels'] as const) {
+      expect(res.body[key].length).toBeGreaterThan(0);
+      for (const item of res.body[key]) expect(typeof item.id).toBe('string');
+    }
+    for (const fn of res.body.functions) expect(typeof fn.code).toBe('string');
+    expect(res.body.levels.map((l: { code: string }) => l.code).sort()).toEqual(['apprentice', 'journeyman', 'master']);
+    expect(res.body.depositPolicy).toEqual({ percent: '25', minimum: '100.00', description: expect.any(String) });
+    expect(res.body.cases.find((c: { kind: string }) => c.kind === 'soft_bag').notRecommended).toBe(true);
+  });
+});

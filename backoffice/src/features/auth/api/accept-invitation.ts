@@ -1,0 +1,18 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { AcceptInvitationInput, AuthSessionResponse } from '@loomwright/shared';
+import { api } from 'src/lib/api-client';
+import { authKeys } from './get-me';
+
+export const acceptInvitation = (input: AcceptInvitationInput) => api.post<AuthSessionResponse>('/invitations/accept', input);
+
+/** Accepting sets the first password and signs the new builder in. */
+export function useAcceptInvitation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: acceptInvitation,
+    onSuccess: ({ user }) => {
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'shop' });
+      queryClient.setQueryData(authKeys.me(), user);
+    },
+  });
+}

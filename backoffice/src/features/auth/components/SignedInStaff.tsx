@@ -1,0 +1,28 @@
+import Button from '@mui/joy/Button';
+import Stack from '@mui/joy/Stack';
+import Typography from '@mui/joy/Typography';
+import type { AuthUser } from '@loomwright/shared';
+import { useNavigate } from 'react-router';
+import { useSignOut } from 'src/features/auth/api/sign-out';
+
+/** The signed-in staff member at the foot of the left navigation. */
+export function SignedInStaff({ user }: { user: AuthUser }) {
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  return (
+    <Stack gap={0.5} aria-label="Signed in">
+      <Typography level="title-sm">{user.name}</Typography>
+      <Typography level="body-xs">{user.role === 'owner' ? 'Owner' : 'Builder'}</Typography>
+      <Button
+        size="sm"
+        variant="outlined"
+        color="neutral"
+        loading={signOut.isPending}
+        onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}
+        sx={{ alignSelf: 'flex-start', mt: 0.5 }}
+      >
+        Sign out
+      </Button>
+    </Stack>
+  );
+}

@@ -1,0 +1,105 @@
+import { z } from 'zod';
+import { builderLevels } from './domain';
+
+/**
+ * Account forms, shared by the API's DTOs and both apps' forms, so a bad value is refused with the
+ * same words everywhere. Messages name the field and say what to do.
+ */
+export const PASSWORD_MIN_LENGTH = 10;
+export const PASSWORD_MAX_LENGTH = 200;
+
+export const authMessages = {
+  email: 'email must be an e-mail address, like name@example.com',
+  passwordEmpty: 'password must not be empty',
+  passwordShort: `password must be at least ${PASSWORD_MIN_LENGTH} characters long`,
+  passwordLong: `password must be at most ${PASSWORD_MAX_LENGTH} characters long`,
+  passwordsDiffer: 'the two passwords do not match; type the same password twice',
+  nameEmpty: 'name must not be empty',
+  nameLong: 'name must be at most 120 characters long',
+  token: 'token is missing or malformed; open the link from the e-mail again',
+  level: `level must be one of ${builderLevels.join(', ')}`,
+  hourlyRate: 'hourlyRate must be an amount above 0 with at most two decimals, like 85.00',
+  /** The one answer to a reset request, whether or not the e-mail has an account. */
+  resetRequested:
+    'If an account uses that e-mail, a link to choose a new password is on its way. It works once and expires within an hour.',
+  resetTokenInvalid: 'This reset link has expired or was already used. Ask for a new one from the sign-in page.',
+  inviteTokenInvalid: 'This invitation link has expired or was already used. Ask the shop owner to send a new one.',
+  throttled: 'Too many attempts in a short time. Wait a minute, then try again.',
+} as const;
+
+const email = z
+  .string({ message: authMessages.email })
+  .trim()
+  .toLowerCase()
+  .max(254, { message: authMessages.email })
+  .pipe(z.email({ message: authMessages.email }));
+
+const newPassword = z
+  .string({ message: authMessages.passwordShort })
+  .min(PASSWORD_MIN_LENGTH, { message: authMessages.passwordShort })
+  .max(PASSWORD_MAX_LENGTH, { message: authMessages.passwordLong });
+
+const name = z
+  .string({ message: authMessages.nameEmpty })
+  .trim()
+  .min(1, { message: authMessages.nameEmpty })
+  .max(120, { message: authMessages.nameLong });
+
+// Reset and invitation tokens are 32 random bytes, base64url: 43 characters.
+const token = z.string({ message: authMessages.token }).regex(/^[A-Za-z0-9_-]{43}$/, { message: authMessages.token });
+
+export const signInSchema = z.object({
+  email,
+  password: z.string({ message: authMessages.passwordEmpty }).min(1, { message: authMessages.passwordEmpty }).max(PASSWORD_MAX_LENGTH),
+});
+export type SignInInput = z.infer<typeof signInSchema>;
+
+export const signUpSchema = z.object({ name, email, password: newPassword });
+export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const passwordResetRequestSchema = z.object({ email });
+export type PasswordResetRequestInput = z.infer<typeof passwordResetRequestSchema>;
+
+export const passwordResetConfirmSchema = z.object({ token, password: newPassword });
+export type PasswordResetConfirmInput = z.infer<typeof passwordResetConfirmSchema>;
+
+export const acceptInvitationSchema = z.object({ token, password: newPassword });
+export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
+
+export const inviteStaffSchema = z.object({
+  email,
+  name,
+  level: z.enum(builderLevels, { message: authMessages.level }),
+  hourlyRate: z
+    .string({ message: authMessages.hourlyRate })
+    .trim()
+    .regex(/^\d{1,6}(\.\d{1,2})?$/, { message: authMessages.hourlyRate })
+    .refine((value) => Number(value) > 0, { message: authMessages.hourlyRate }),
+});
+export type InviteStaffInput = z.infer<typeof inviteStaffSchema>;
+
+/** The form that asks for the new password twice (the API takes it once). */
+export const newPasswordFormSchema = z
+  .object({ password: newPassword, repeatPassword: z.string() })
+  .refine((v) => v.password === v.repeatPassword, { message: authMessages.passwordsDiffer, path: ['repeatPassword'] });
+export type NewPasswordFormInput = z.infer<typeof newPasswordFormSchema>;
+
+/**
+ * Where to go after signing in: only a path inside this app (starts with one "/"), never another
+ * site, so a crafted link cannot send a player elsewhere after they sign in.
+ */
+export function safeNextPath(next: string | null | undefined, fallback = '/'): string {
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.includes('\\')) return fallback;
+  return next;
+}
+
+export interface AuthSessionResponse {
+  user: import('./domain').AuthUser;
+}
+
+export interface InvitationCreated {
+  user: import('./domain').AuthUser;
+  builderId: string;
+  expiresAt: string;
+  resent: boolean;
+}

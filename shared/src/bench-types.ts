@@ -1,0 +1,257 @@
+import type { BuilderRef, PersonRef, Page } from './booking-types';
+import type { BookingState, BuilderLevel, WeeklyHours } from './domain';
+
+/**
+ * Shapes of the bench, builds, team, settings and customers routes. Hours are plain numbers
+ * (two decimals at most); money stays a decimal string; days are 'YYYY-MM-DD'.
+ */
+
+/** One build's share of one builder's day on the bench. */
+export interface BenchBuild {
+  bookingId: string;
+  reference: string;
+  customerName: string;
+  state: BookingState;
+  hours: number;
+}
+
+/** Why a day holds no bench time, in words ("Thanksgiving Day", "Shop closed: stocktake", "Day off"). */
+export type BenchDayOff = { kind: 'holiday' | 'closure' | 'day_off'; label: string } | null;
+
+export interface BenchDay {
+  date: string;
+  capacityHours: number;
+  bookedHours: number;
+  freeHours: number;
+  off: BenchDayOff;
+  builds: BenchBuild[];
+}
+
+export interface BenchBuilder extends BuilderRef {
+  hourlyRate: string;
+  weeklyHours: WeeklyHours;
+  active: boolean;
+  /** The signed-in builder's own row (listed first). */
+  isMe: boolean;
+}
+
+/** GET /api/bench?from=&to=&builderId= */
+export interface BenchView {
+  from: string;
+  to: string;
+  builders: Array<{ builder: BenchBuilder; days: BenchDay[] }>;
+}
+
+/** One builder's earliest start for a build (GET /api/bench/suggest?bookingId=&builderId=). */
+export interface BenchSuggestion {
+  builder: BenchBuilder;
+  benchDate: string;
+  expectedCompletion: string;
+  /** When the player should ship or drop off their pedals (a few working days before). */
+  shipBy: string;
+  /** Each day the build would take and how many hours on it. */
+  plan: Array<{ date: string; hours: number }>;
+  /** Builder's rate × labor hours (decimal string), and that plus materials. */
+  laborTotal: string;
+  firmTotal: string;
+  /** False when the builder is below the rig's minimum level (only the owner may assign, with a reason). */
+  meetsMinimumLevel: boolean;
+}
+
+export interface BenchSuggestResponse {
+  bookingId: string;
+  reference: string;
+  laborHours: number;
+  minimumLevel: BuilderLevel;
+  currency: string;
+  materialsTotal: string;
+  deposit: string;
+  /** Eligible builders, earliest start first (the signed-in builder first on a tie). */
+  suggestions: BenchSuggestion[];
+  /** Builders left out, and why in words. */
+  ineligible: Array<{ builder: BuilderRef; reason: string }>;
+}
+
+/** POST /api/bookings/:id/accept */
+export interface AcceptBookingRequest {
+  builderId: string;
+  benchDate: string;
+  /** Owner only: assign a builder below the rig's minimum level. */
+  levelOverrideReason?: string;
+}
+
+export interface AcceptBookingResponse {
+  bookingId: string;
+  state: 'scheduled';
+  builderId: string;
+  benchDate: string;
+  expectedCompletion: string;
+  shipBy: string;
+  plan: Array<{ date: string; hours: number }>;
+  firmQuote: {
+    id: string;
+    hourlyRate: string;
+    laborHours: string;
+    laborTotal: string;
+    materialsTotal: string;
+    total: string;
+    deposit: string;
+    balanceDue: string;
+    currency: string;
+  };
+}
+
+/** POST /api/bookings/:id/decline answers with the booking's BookingDetail. */
+export interface DeclineBookingRequest {
+  reason: string;
+}
+
+/** The moves a build makes on the bench, in order. */
+export const benchStates = ['scheduled', 'pedals_received', 'on_bench', 'testing', 'ready', 'delivered'] as const;
+export type BenchState = (typeof benchStates)[number];
+
+/** Allowed moves through POST /api/bookings/:id/state (testing may go back to the bench for a fix). */
+export const benchTransitions: Record<BenchState, BenchState[]> = {
+  scheduled: ['pedals_received'],
+  pedals_received: ['on_bench'],
+  on_bench: ['testing'],
+  testing: ['ready', 'on_bench'],
+  ready: ['delivered'],
+  delivered: [],
+};
+
+export interface ChangeStateRequest {
+  to: BenchState;
+  note?: string;
+}
+
+export interface BookingStateResponse {
+  bookingId: string;
+  state: BookingState;
+  awaitingLayoutApproval: boolean;
+}
+
+export interface TimeEntryView {
+  id: string;
+  builder: BuilderRef;
+  workedOn: string;
+  hours: number;
+  note: string;
+  createdAt: string;
+}
+
+export interface TimeEntriesResponse {
+  entries: TimeEntryView[];
+  totalHours: number;
+  /** The hours the firm quote planned, for "spent vs planned". */
+  plannedHours: number | null;
+}
+
+export interface IntakeItemView {
+  id: string;
+  item: string;
+  condition: 'working' | 'faulty';
+  note: string;
+  recordedBy: string;
+  createdAt: string;
+}
+
+export interface ExtraView {
+  id: string;
+  description: string;
+  amount: string;
+  reason: string;
+  status: 'proposed' | 'approved' | 'declined';
+  decidedAt: string | null;
+  createdAt: string;
+}
+
+/** GET /api/team */
+export interface TeamMember extends BuilderRef {
+  email: string;
+  hourlyRate: string;
+  weeklyHours: WeeklyHours;
+  weeklyCapacityHours: number;
+  active: boolean;
+}
+
+export interface UpdateTeamMemberRequest {
+  level?: BuilderLevel;
+  hourlyRate?: string;
+  weeklyHours?: WeeklyHours;
+  active?: boolean;
+}
+
+export interface ShopClosureView {
+  id: string;
+  startsOn: string;
+  endsOn: string;
+  reason: string;
+}
+
+/** POST /api/settings/closures: the closure, and builds already on the bench in those days (they do not move by themselves). */
+export interface AddClosureResponse extends ShopClosureView {
+  buildsOnBenchThen: Array<{ bookingId: string; reference: string; days: string[] }>;
+}
+
+/** GET /api/settings */
+export interface ShopSettingsView {
+  name: string;
+  tagline: string;
+  currency: string;
+  countryCode: string;
+  timezone: string;
+  contactEmail: string;
+  closures: ShopClosureView[];
+  /** The public holidays of the shop's country in the coming twelve months (date-holidays). */
+  upcomingHolidays: Array<{ date: string; name: string }>;
+}
+
+export interface UpdateShopSettingsRequest {
+  name?: string;
+  tagline?: string;
+  contactEmail?: string;
+  countryCode?: string;
+  timezone?: string;
+}
+
+/** GET /api/customers?page=&pageSize=&sort=name|email|createdAt|buildCount&order=asc|desc&search= */
+export interface CustomerSummary extends PersonRef {
+  phone: string | null;
+  createdAt: string;
+  buildCount: number;
+  activeBuildCount: number;
+  lastBookingAt: string | null;
+}
+export type CustomerPage = Page<CustomerSummary>;
+
+export interface CustomerDetail extends CustomerSummary {
+  builds: Array<{
+    id: string;
+    reference: string;
+    state: BookingState;
+    benchDate: string | null;
+    createdAt: string;
+  }>;
+  payments: Array<{
+    id: string;
+    bookingId: string;
+    reference: string;
+    kind: 'deposit' | 'balance';
+    amount: string;
+    currency: string;
+    status: string;
+    paidAt: string | null;
+    createdAt: string;
+  }>;
+  messages: Array<{
+    id: string;
+    template: string;
+    subject: string | null;
+    toAddress: string;
+    state: string;
+    bookingId: string | null;
+    createdAt: string;
+    sentAt: string | null;
+  }>;
+}

@@ -1,0 +1,61 @@
+import Decimal from 'decimal.js';
+import type { FunctionItem, MaterialsRates } from '../price-book/types';
+import type { CableSchedule, PatchCable, SignalChain } from './types';
+import { BARREL_CONNECTOR } from './typical-hardware';
+import { deviceById } from './signal-chain';
+
+/**
+ * Every audio patch the routing needs, computed once: the estimate prices these counts and the
+ * build sheet prints them. A serial chain of n devices takes n − 1 patches (the player's own
+ * instrument and amp cables reach the ends); each switcher loop takes a send and a return patch;
+ * each function adds the patches the price book lists for it. Two plugs per patch.
+ */
+export function cableScheduleOf(chain: SignalChain, functions: FunctionItem[], rates: MaterialsRates): CableSchedule {
+  const lengthFeet = new Decimal(rates.patchLengthFeet);
+  const spareFeet = new Decimal(rates.spareFeetPerPatch);
+  const patches: PatchCable[] = [];
+  const add = (from: string, to: string, purpose: PatchCable['purpose']) =>
+    patches.push({
+      number: patches.length + 1,
+      from,
+      to,
+      purpose,
+      lengthFeet: lengthFeet.toFixed(2),
+      spareFeet: spareFeet.toFixed(2),
+      plugs: 2,
+    });
+  const nameOf = (id: string) => deviceById(chain, id).name;
+
+  for (let i = 0; i + 1 < chain.main.length; i++) {
+    add(`${nameOf(chain.main[i])} output`, `${nameOf(chain.main[i + 1])} input`, 'chain');
+  }
+  if (chain.switcherId) {
+    const switcher = nameOf(chain.switcherId);
+    for (const { loop, deviceId } of chain.loops) {
+      add(`${switcher} loop ${loop} send`, `${nameOf(deviceId)} input`, 'loop_send');
+      add(`${nameOf(deviceId)} output`, `${switcher} loop ${loop} return`, 'loop_return');
+    }
+  }
+  for (const fn of functions) {
+    for (let j = 1; j <= fn.extraPatchCables; j++) {
+      add(fn.name, `patch ${j} of ${fn.extraPatchCables}`, 'function');
+    }
+  }
+
+  const powered = chain.devices.filter((d) => d.powered);
+  return {
+    patches,
+    patchCount: patches.length,
+    plugCount: patches.length * 2,
+    cableFeet: lengthFeet.plus(spareFeet).times(patches.length).toFixed(2),
+    spareFeet: spareFeet.times(patches.length).toFixed(2),
+    powerLeads: powered.map((d) => ({
+      device: d.name,
+      voltage: d.voltage,
+      supply: d.supply,
+      polarity: d.polarity,
+      connector: BARREL_CONNECTOR,
+    })),
+    barrelPlugCount: powered.length,
+  };
+}

@@ -1,0 +1,156 @@
+import type { BuilderLevel } from '../domain';
+import type { PedalKind } from '../estimate/types';
+
+/** ok: nothing to act on · warning: worth a look · problem: the rig will not work as listed · unknown: not enough data. */
+export type CheckStatus = 'ok' | 'warning' | 'problem' | 'unknown';
+
+/** One device on the board, with the figures the checks use (the player's own, or typical ones). */
+export interface RigDevice {
+  id: string;
+  /** Position in the player's pedal list; null for the switcher the routing implies. */
+  listIndex: number | null;
+  name: string;
+  kind: PedalKind;
+  powered: boolean;
+  /** Loop number on the switcher (1-based), null when the device sits in the main chain. */
+  loop: number | null;
+  voltage: number;
+  supply: 'dc' | 'ac';
+  polarity: 'center_negative' | 'center_positive';
+  /** The player's figure, or null when unknown. */
+  currentMa: number | null;
+  /** The figure the budget uses: the player's, or the typical one for the kind. */
+  budgetMa: number;
+  drawFromMemory: boolean;
+  widthMm: number;
+  depthMm: number;
+  footprintFromMemory: boolean;
+  powerOutput: number | null;
+}
+
+export interface SignalChain {
+  routing: 'serial' | 'switcher';
+  devices: RigDevice[];
+  /** Device ids in signal order, the switcher standing for all of its loops. */
+  main: string[];
+  loops: Array<{ loop: number; deviceId: string }>;
+  /** The switcher's id on a switcher board. */
+  switcherId: string | null;
+}
+
+export interface PatchCable {
+  number: number;
+  from: string;
+  to: string;
+  purpose: 'chain' | 'loop_send' | 'loop_return' | 'function';
+  lengthFeet: string;
+  spareFeet: string;
+  plugs: number;
+}
+
+export interface PowerLead {
+  device: string;
+  voltage: number;
+  supply: 'dc' | 'ac';
+  polarity: 'center_negative' | 'center_positive';
+  connector: string;
+}
+
+export interface CableSchedule {
+  patches: PatchCable[];
+  patchCount: number;
+  plugCount: number;
+  /** Cable to buy: every patch's length plus its spare allowance. */
+  cableFeet: string;
+  spareFeet: string;
+  powerLeads: PowerLead[];
+  barrelPlugCount: number;
+}
+
+export interface PowerOutputLoad {
+  output: number;
+  label: string;
+  voltage: number;
+  supply: 'dc' | 'ac';
+  isolated: boolean;
+  ratingMa: number;
+  loadMa: number;
+  headroomMa: number;
+  ratingW: number;
+  loadW: number;
+  headroomW: number;
+  /** Ohm's law, R = V / I: the smallest load this output is rated to drive, and the load it sees. */
+  minimumLoadOhms: number;
+  loadOhms: number | null;
+  devices: string[];
+  flags: string[];
+}
+
+export interface PowerAssignment {
+  device: string;
+  output: number | null;
+  voltage: number;
+  currentMa: number;
+  drawFromMemory: boolean;
+}
+
+export interface PowerBudget {
+  status: CheckStatus;
+  supplyListed: boolean;
+  outputs: PowerOutputLoad[];
+  assignments: PowerAssignment[];
+  unassigned: Array<{ device: string; reason: string }>;
+  totalDrawMa: number;
+  totalDrawW: number;
+  totalRatingMa: number | null;
+  totalRatingW: number | null;
+  totalHeadroomMa: number | null;
+  totalHeadroomW: number | null;
+  warnings: string[];
+}
+
+export interface LayoutPlacement {
+  device: string;
+  row: number;
+  /** Millimetres from the surface's back-left corner (a top view: x to the right, y towards the player). */
+  x: number;
+  y: number;
+  widthMm: number;
+  depthMm: number;
+}
+
+export interface BoardFit {
+  status: CheckStatus;
+  surfaceId: string;
+  usableWidthMm: number;
+  usableDepthMm: number;
+  spacingMm: number;
+  footprintAreaMm2: number;
+  /** Footprints grown by the spacing allowance. */
+  requiredAreaMm2: number;
+  usableAreaMm2: number;
+  /** requiredAreaMm2 / usableAreaMm2; above 1 nothing can fit. */
+  fillRatio: number;
+  areaFits: boolean;
+  layoutFits: boolean;
+  layout: LayoutPlacement[];
+  unplaced: string[];
+  smallestFittingSurfaceId: string | null;
+  warnings: string[];
+}
+
+export interface Complexity {
+  minimumLevel: BuilderLevel;
+  reasons: string[];
+  loops: number;
+  functionCount: number;
+  voltages: number[];
+}
+
+export interface RigChecks {
+  signalChain: SignalChain;
+  cableSchedule: CableSchedule;
+  powerBudget: PowerBudget;
+  boardFit: BoardFit;
+  complexity: Complexity;
+}

@@ -1,0 +1,233 @@
+import Decimal from 'decimal.js';
+import { boardFitOf } from '../checks/board-fit';
+import { cableScheduleOf } from '../checks/cable-schedule';
+import { complexityOf } from '../checks/complexity';
+import { powerBudgetOf } from '../checks/power-budget';
+import { signalChainOf } from '../checks/signal-chain';
+import type { RigChecks, SignalChain } from '../checks/types';
+import { levelRank } from '../domain';
+import type { FunctionItem, PriceBook } from '../price-book/types';
+import { EstimateInputError } from './errors';
+import { formatMoney, minorUnitDigits, roundToMinorUnit } from './money';
+import type { EstimateLine, EstimateResult, RigConfiguration } from './types';
+
+const hours = (d: Decimal) => d.toFixed(2);
+const count = (n: number) => String(n);
+
+/** Looks every id of the configuration up in the book; a miss is the player's to fix, by field. */
+function resolve(config: RigConfiguration, book: PriceBook) {
+  if (minorUnitDigits(book.currency) === undefined) throw new EstimateInputError('currency', `${book.currency} is not an ISO 4217 currency`);
+  const surface = book.surfaces.find((s) => s.id === config.surfaceId);
+  if (!surface) throw new EstimateInputError('surfaceId', `no surface ${config.surfaceId} in the price book; choose one of ${book.surfaces.map((s) => s.id).join(', ')}`);
+  const rigCase = book.cases.find((c) => c.id === config.caseId);
+  if (!rigCase) throw new EstimateInputError('caseId', `no case ${config.caseId} in the price book; choose one of ${book.cases.map((c) => c.id).join(', ')}`);
+  if (rigCase.fitsSurfaceIds.length > 0 && !rigCase.fitsSurfaceIds.includes(surface.id)) {
+    throw new EstimateInputError('caseId', `the ${rigCase.name} does not fit the ${surface.name}`);
+  }
+  const functions: FunctionItem[] = config.functions.map((code, i) => {
+    const fn = book.functions.find((f) => f.code === code);
+    if (!fn) throw new EstimateInputError(`functions[${i}]`, `no function ${code} in the price book; choose from ${book.functions.map((f) => f.code).join(', ')}`);
+    return fn;
+  });
+  const level = book.levels.find((l) => l.code === config.level);
+  if (!level) throw new EstimateInputError('level', `no ${config.level} rates in the price book`);
+  return { surface, rigCase, functions, level };
+}
+
+interface LaborItem {
+  code: string;
+  label: string;
+  hours: Decimal;
+  quantity: string;
+  unit: string;
+  explanation: string;
+}
+
+/**
+ * Hours by the trade's rule: each device in the main chain (the switcher too) and the customer's
+ * supply take the serial hours; each pedal wired through a switcher loop takes the loop hours,
+ * since both of its ends are cabled; each function its own hours (wet/dry/wet counting as two).
+ */
+function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBook): LaborItem[] {
+  const serialHours = new Decimal(book.labor.hoursPerDeviceSerial);
+  const loopHours = new Decimal(book.labor.hoursPerDeviceSwitcher);
+  const mainDevices = chain.main.length;
+  const loopDevices = chain.loops.length;
+  const items: LaborItem[] = [
+    {
+      code: 'labor_devices',
+      label: chain.routing === 'serial' ? 'Mount and wire each device in series' : 'Mount and wire each device outside the loops (the switcher too)',
+      hours: serialHours.times(mainDevices),
+      quantity: count(mainDevices),
+      unit: 'device',
+      explanation: `${mainDevices} × ${serialHours.toFixed(2)} h`,
+    },
+  ];
+  if (loopDevices > 0) {
+    items.push({
+      code: 'labor_loop_devices',
+      label: 'Mount and wire each pedal through a switcher loop (send and return)',
+      hours: loopHours.times(loopDevices),
+      quantity: count(loopDevices),
+      unit: 'device',
+      explanation: `${loopDevices} × ${loopHours.toFixed(2)} h`,
+    });
+  }
+  if (chain.devices.some((d) => d.powered)) {
+    items.push({
+      code: 'labor_power_supply',
+      label: "Mount your power supply, cut its leads to length and fit new plugs",
+      hours: serialHours,
+      quantity: '1',
+      unit: 'supply',
+      explanation: `1 × ${serialHours.toFixed(2)} h`,
+    });
+  }
+  for (const fn of functions) {
+    const h = new Decimal(fn.laborHours);
+    items.push({
+      code: `function_${fn.code}`,
+      label: fn.name,
+      hours: h,
+      quantity: count(1),
+      unit: 'function',
+      explanation: fn.functionCount > 1 ? `${h.toFixed(2)} h (counts as ${fn.functionCount} functions)` : `${h.toFixed(2)} h`,
+    });
+  }
+  return items;
+}
+
+/**
+ * Prices a rig from one price book version: itemized materials, labor at the level's rate range,
+ * totals, the deposit by the shop's policy, and the engineering checks. Pure: the same inputs
+ * always give the same answer, so an old quote can be re-derived from its stored version.
+ */
+export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { version: number }): EstimateResult {
+  const { surface, rigCase, functions, level } = resolve(config, book);
+  const currency = book.currency;
+  const money = (v: Decimal.Value) => roundToMinorUnit(v, currency);
+  const fmt = (v: Decimal.Value) => formatMoney(v, currency);
+
+  const chain = signalChainOf(config);
+  const schedule = cableScheduleOf(chain, functions, book.materials);
+  const powerBudget = powerBudgetOf(chain, config.powerSupply?.outputs);
+  const boardFit = boardFitOf(chain, surface, book.surfaces);
+  const complexity = complexityOf(chain, functions);
+  const checks: RigChecks = { signalChain: chain, cableSchedule: schedule, powerBudget, boardFit, complexity };
+
+  const m = book.materials;
+  const mounted = chain.devices.length;
+  const fastenerRate = chain.routing === 'switcher' ? m.fastenersPerPedalSwitcher : m.fastenersPerPedalSerial;
+  const hookFeet = new Decimal(m.hookAndLoopFeetPerPedal).times(mounted);
+  const materialLine = (code: string, label: string, quantity: Decimal.Value, unit: string, unitPrice: string, explanation?: string): EstimateLine => ({
+    code,
+    label,
+    kind: 'materials',
+    quantity: typeof quantity === 'number' ? count(quantity) : new Decimal(quantity).toFixed(2),
+    unit,
+    unitPrice,
+    amount: fmt(money(new Decimal(unitPrice).times(quantity))),
+    ...(explanation ? { explanation } : {}),
+  });
+
+  const lines: EstimateLine[] = [
+    materialLine('surface', surface.name, 1, 'each', surface.price),
+    materialLine('case', rigCase.name, 1, 'each', rigCase.price),
+    materialLine('fasteners', 'Fasteners, tie-down mounts and zip ties', mounted, 'device', fastenerRate,
+      `${chain.routing === 'switcher' ? 'switcher' : 'serial'} board rate per mounted device`),
+    materialLine('hook_and_loop', 'Hook-and-loop', hookFeet, 'ft', m.hookAndLoopPricePerFoot, `${m.hookAndLoopFeetPerPedal} ft per device`),
+  ];
+  if (schedule.patchCount > 0) {
+    lines.push(
+      materialLine('patch_cable', 'Audio patch cable', schedule.cableFeet, 'ft', m.cablePricePerFoot,
+        `${schedule.patchCount} patches × (${m.patchLengthFeet} ft + ${m.spareFeetPerPatch} ft spare)`),
+      materialLine('patch_plugs', 'Patch cable plugs', schedule.plugCount, 'plug', m.plugPrice, `2 per patch × ${schedule.patchCount}`),
+    );
+  }
+  if (schedule.barrelPlugCount > 0) {
+    lines.push(materialLine('dc_barrel_plugs', 'DC barrel plugs for your supply leads', schedule.barrelPlugCount, 'plug', m.barrelPlugPrice,
+      'one per powered device, the switcher too'));
+  }
+
+  const rateLow = new Decimal(level.rateLow);
+  const rateHigh = new Decimal(level.rateHigh);
+  let laborHours = new Decimal(0);
+  for (const item of laborItems(chain, functions, book)) {
+    laborHours = laborHours.plus(item.hours);
+    lines.push({
+      code: item.code,
+      label: item.label,
+      kind: 'labor',
+      quantity: hours(item.hours),
+      unit: 'h',
+      unitPrice: fmt(rateLow),
+      amount: fmt(money(item.hours.times(rateLow))),
+      amountHigh: fmt(money(item.hours.times(rateHigh))),
+      explanation: `${item.quantity} ${item.unit}${item.quantity === '1' ? '' : 's'}: ${item.explanation}, at ${fmt(rateLow)}–${fmt(rateHigh)} per hour`,
+    });
+  }
+
+  // Totals are sums of the rounded lines, so the lines always add up to them exactly.
+  const sum = (pick: (l: EstimateLine) => string | undefined, kind: EstimateLine['kind']) =>
+    lines.filter((l) => l.kind === kind).reduce((s, l) => s.plus(pick(l) ?? l.amount), new Decimal(0));
+  const materialsTotal = sum((l) => l.amount, 'materials');
+  const laborLow = sum((l) => l.amount, 'labor');
+  const laborHigh = sum((l) => l.amountHigh, 'labor');
+  const totalLow = materialsTotal.plus(laborLow);
+  const totalHigh = materialsTotal.plus(laborHigh);
+  const deposit = depositFor(totalHigh, totalLow, book, currency);
+
+  return {
+    priceBookVersion: meta.version,
+    currency,
+    level: config.level,
+    lines,
+    laborHours: hours(laborHours),
+    materialsTotal: fmt(materialsTotal),
+    laborLow: fmt(laborLow),
+    laborHigh: fmt(laborHigh),
+    totalLow: fmt(totalLow),
+    totalHigh: fmt(totalHigh),
+    deposit: fmt(deposit),
+    rate: { low: fmt(rateLow), high: fmt(rateHigh) },
+    minimumLevel: complexity.minimumLevel,
+    minimumLevelReasons: complexity.reasons,
+    notes: notesFor(config, checks, rigCase, book),
+    checks,
+  };
+}
+
+/**
+ * The policy's share of the high end, never below its minimum, and never more than the low end
+ * of the estimate itself; rounded to the currency's minor unit (ISO 4217).
+ */
+export function depositFor(totalHigh: Decimal.Value, totalLow: Decimal.Value, book: PriceBook, currency = book.currency): Decimal {
+  const share = new Decimal(totalHigh).times(book.depositPolicy.percent).dividedBy(100);
+  const floor = Decimal.max(share, book.depositPolicy.minimum);
+  return roundToMinorUnit(Decimal.min(floor, totalLow), currency);
+}
+
+function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBook['cases'][number], book: PriceBook): string[] {
+  const notes: string[] = [];
+  if (rigCase.notRecommended) {
+    notes.push(rigCase.caution ?? `A ${rigCase.name} is not recommended for a loaded board: it does not protect the pedals and jacks in transit.`);
+  }
+  const { complexity, powerBudget, boardFit } = checks;
+  if (levelRank(config.level) < levelRank(complexity.minimumLevel)) {
+    const level = book.levels.find((l) => l.code === complexity.minimumLevel);
+    notes.push(
+      `This rig calls for at least a ${level?.name ?? complexity.minimumLevel} builder (${complexity.reasons.join('; ')}); the shop will assign one, at that level's rate.`,
+    );
+  }
+  notes.push(...powerBudget.warnings);
+  if (boardFit.status !== 'ok') notes.push(...boardFit.warnings.filter((w) => !w.includes('from memory')));
+  if (checks.signalChain.loops.length > 12) {
+    notes.push(`${checks.signalChain.loops.length} loops is more than most switchers have (8 to 12); check yours.`);
+  }
+  if (checks.signalChain.devices.some((d) => d.powered)) {
+    notes.push('Your supply plugs into the mains: any mains wiring or power inlet is work for a qualified person under local electrical codes.');
+  }
+  if (rigCase.kind === 'road_case') notes.push('A loaded road case is heavy: lift it with two people.');
+  notes.push('Pedals, power supply and switcher are yours to supply; they are not in this estimate.');
+  return notes;
+}

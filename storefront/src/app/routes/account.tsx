@@ -1,0 +1,23 @@
+import Button from '@mui/joy/Button';
+import Stack from '@mui/joy/Stack';
+import { Link as RouterLink, Navigate, useNavigate } from 'react-router';
+import { PageLoading } from 'src/components/PageLoading';
+import { useMe } from 'src/features/auth/api/get-me';
+import { AccountSummary } from 'src/features/auth/components/AccountSummary';
+import { AuthCard } from 'src/features/auth/components/AuthCard';
+
+export function Component() {
+  const me = useMe();
+  const navigate = useNavigate();
+  if (me.isPending) return <PageLoading />;
+  if (!me.data) return <Navigate to="/sign-in?next=%2Faccount" replace />;
+  return (
+    <AuthCard title="My account">
+      <AccountSummary user={me.data} onSignedOut={() => navigate('/', { replace: true })} />
+      <Stack direction="row" gap={1} flexWrap="wrap">
+        <Button component={RouterLink} to="/builds" variant="plain">My builds</Button>
+        <Button component={RouterLink} to="/forgot-password" variant="plain">Change my password</Button>
+      </Stack>
+    </AuthCard>
+  );
+}

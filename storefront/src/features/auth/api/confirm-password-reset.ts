@@ -1,0 +1,19 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { AuthSessionResponse, PasswordResetConfirmInput } from '@loomwright/shared';
+import { api } from 'src/lib/api-client';
+import { authKeys } from './get-me';
+
+export const confirmPasswordReset = (input: PasswordResetConfirmInput) =>
+  api.post<AuthSessionResponse>('/auth/password-reset/confirm', input);
+
+/** A successful reset also signs the player in. */
+export function useConfirmPasswordReset() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: confirmPasswordReset,
+    onSuccess: ({ user }) => {
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'shop' });
+      queryClient.setQueryData(authKeys.me(), user);
+    },
+  });
+}

@@ -1,0 +1,20 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { ApiError, type AuthSessionResponse, type AuthUser } from '@loomwright/shared';
+import { api } from 'src/lib/api-client';
+
+/** Every query about the signed-in person lives under this key; sign-in and sign-out reset it. */
+export const authKeys = { all: ['auth'] as const, me: () => ['auth', 'me'] as const };
+
+/** The signed-in player, or null when nobody is signed in (a 401 is an answer here, not an error). */
+export async function getMe(signal?: AbortSignal): Promise<AuthUser | null> {
+  try {
+    return (await api.get<AuthSessionResponse>('/auth/me', { signal })).user;
+  } catch (error) {
+    if (error instanceof ApiError && error.status === 401) return null;
+    throw error;
+  }
+}
+
+export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 60_000 });
+
+export const useMe = () => useQuery(meQueryOptions());

@@ -1,0 +1,27 @@
+import Link from '@mui/joy/Link';
+import Typography from '@mui/joy/Typography';
+import { Link as RouterLink, useLocation } from 'react-router';
+import { useMe } from 'src/features/auth/api/get-me';
+
+const accountPages = ['/sign-in', '/sign-up', '/forgot-password', '/reset-password'];
+
+/** The header's account links: "Sign in" (returning here afterwards), or the player's name and pages. */
+export function AccountNav() {
+  const me = useMe();
+  const location = useLocation();
+  if (me.isPending) return null;
+  if (!me.data) {
+    const here = `${location.pathname}${location.search}`;
+    const next = accountPages.includes(location.pathname) || here === '/' ? '' : `?next=${encodeURIComponent(here)}`;
+    return <Link component={RouterLink} to={`/sign-in${next}`}>Sign in</Link>;
+  }
+  return (
+    <>
+      <Typography component="span" level="body-md" sx={{ color: 'text.secondary' }} aria-label="Signed in as">
+        {me.data.name}
+      </Typography>
+      <Link component={RouterLink} to="/builds">My builds</Link>
+      <Link component={RouterLink} to="/account">Account</Link>
+    </>
+  );
+}

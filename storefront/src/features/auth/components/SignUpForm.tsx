@@ -1,0 +1,41 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import Alert from '@mui/joy/Alert';
+import Button from '@mui/joy/Button';
+import Link from '@mui/joy/Link';
+import Stack from '@mui/joy/Stack';
+import Typography from '@mui/joy/Typography';
+import { PASSWORD_MIN_LENGTH, signUpSchema } from '@loomwright/shared';
+import { useForm } from 'react-hook-form';
+import { Link as RouterLink } from 'react-router';
+import { useSignUp } from 'src/features/auth/api/sign-up';
+import { FormTextField } from './FormTextField';
+
+export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void; signInHref: string }) {
+  const signUp = useSignUp();
+  const { register, handleSubmit, formState } = useForm({
+    resolver: zodResolver(signUpSchema),
+    defaultValues: { name: '', email: '', password: '' },
+  });
+  const onSubmit = handleSubmit((values) => signUp.mutate(values, { onSuccess: onSignedUp }));
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Create an account">
+      <Stack gap={2}>
+        {signUp.error && <Alert color="danger" role="alert">{signUp.error.message}</Alert>}
+        <FormTextField label="Your name" autoComplete="name" autoFocus registration={register('name')} error={formState.errors.name} />
+        <FormTextField label="E-mail" type="email" autoComplete="email" registration={register('email')} error={formState.errors.email} hint="We send your quote, bench date and build updates here." />
+        <FormTextField
+          label="Password"
+          type="password"
+          autoComplete="new-password"
+          registration={register('password')}
+          error={formState.errors.password}
+          hint={`At least ${PASSWORD_MIN_LENGTH} characters; a short sentence works well.`}
+        />
+        <Button type="submit" loading={signUp.isPending}>Create account</Button>
+        <Typography level="body-sm">
+          Already have an account? <Link component={RouterLink} to={signInHref}>Sign in</Link>
+        </Typography>
+      </Stack>
+    </form>
+  );
+}
