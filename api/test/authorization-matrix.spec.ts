@@ -73,6 +73,9 @@ const matrix: Record<string, Entry> = {
   'POST /api/auth/password-reset/confirm': open(400),
   'POST /api/invitations': ownerOnly(400),
   'POST /api/invitations/accept': open(400),
+  // mail log
+  'GET /api/mail': staff(200),
+  'POST /api/mail/:id/resend': { expect: [401, 403, 403, 403, 404], path: () => '/api/mail/00000000-0000-4000-8000-000000000000/resend' },
 };
 
 async function makeFixtures(t: TestApp): Promise<Fixtures> {
