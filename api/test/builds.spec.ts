@@ -192,7 +192,11 @@ describe('accepting a build, its firm quote and its way through the bench', () =
 
   it('declines a request; only the owner may decline a paid one', async () => {
     const unpaid = await createBooking(t.db, { laborHours: '2.00', state: 'requested' });
-    await master.post(`/api/bookings/${unpaid.id}/decline`).send({ reason: 'We do not wire this kind of rig.' }).expect(200);
+    const declined = await master.post(`/api/bookings/${unpaid.id}/decline`).send({ reason: 'We do not wire this kind of rig.' }).expect(200);
+    expect(declined.body).toMatchObject({ id: unpaid.id, state: 'declined', declineReason: 'We do not wire this kind of rig.' });
+    const declineMail = await t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', unpaid.id).executeTakeFirstOrThrow();
+    expect(declineMail).toMatchObject({ template: 'booking-declined', to_address: 'player@mail.example' });
+    expect(declineMail.data).toMatchObject({ reason: 'We do not wire this kind of rig.', depositRefunded: false });
     const row = await t.db.selectFrom('bookings').select(['state', 'decline_reason']).where('id', '=', unpaid.id).executeTakeFirstOrThrow();
     expect(row).toEqual({ state: 'declined', decline_reason: 'We do not wire this kind of rig.' });
     expect((await master.post(`/api/bookings/${unpaid.id}/decline`).send({ reason: 'again please' })).status).toBe(409);
@@ -287,14 +291,14 @@ describe('who may use the bench, team, settings and customers routes', () => {
     expect(gb.body.upcomingHolidays.map((h: { name: string }) => h.name)).toContain('Christmas Day');
 
     const closure = await agents.owner.post('/api/settings/closures').send({ startsOn: '2030-01-02', endsOn: '2030-01-03', reason: 'Stocktake' }).expect(201);
-    expect(closure.body.closure).toMatchObject({ startsOn: '2030-01-02', endsOn: '2030-01-03' });
+    expect(closure.body).toMatchObject({ startsOn: '2030-01-02', endsOn: '2030-01-03', buildsOnBenchThen: [] });
     expect((await agents.owner.post('/api/settings/closures').send({ startsOn: '2030-01-05', endsOn: '2030-01-04', reason: 'Backwards' })).body.message).toMatch(
       /endsOn must be on or after startsOn/,
     );
     const bench = await agents.owner.get(`/api/bench?from=2030-01-02&to=2030-01-02&builderId=${someBuilder}`).expect(200);
     expect(bench.body.builders[0].days[0]).toMatchObject({ capacityHours: 0, off: { kind: 'closure', label: 'Shop closed: Stocktake' } });
-    await agents.owner.delete(`/api/settings/closures/${closure.body.closure.id}`).expect(204);
-    expect((await agents.owner.delete(`/api/settings/closures/${closure.body.closure.id}`)).status).toBe(404);
+    await agents.owner.delete(`/api/settings/closures/${closure.body.id}`).expect(204);
+    expect((await agents.owner.delete(`/api/settings/closures/${closure.body.id}`)).status).toBe(404);
   });
 
   it('pages, sorts and searches customers on the server, with their builds, payments and messages', async () => {

@@ -6,6 +6,7 @@ import {
   type AcceptBookingResponse,
   type AuthUser,
   type BenchState,
+  type BookingDetail,
   type BookingState,
   type BookingStateResponse,
 } from '@loomwright/shared';
@@ -13,7 +14,7 @@ import { BenchService } from '../bench/bench.service';
 import { addDays } from '../bench/calendar-days';
 import { shipByDate, toHours } from '../bench/scheduling';
 import { Database, type Executor } from '../database/database';
-import { actorOf } from '../bookings/bookings.service';
+import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { MailService } from '../mail/mail.service';
 import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
@@ -38,6 +39,7 @@ export class BuildsService {
     private readonly history: BuildHistory,
     private readonly mail: MailService,
     private readonly payments: PaymentsService,
+    private readonly bookings: BookingsService,
   ) {}
 
   async accept(user: AuthUser, bookingId: string, dto: AcceptBookingDto): Promise<AcceptBookingResponse> {
@@ -176,8 +178,8 @@ export class BuildsService {
     };
   }
 
-  async decline(user: AuthUser, bookingId: string, reason: string): Promise<BookingStateResponse> {
-    return this.db.transaction().execute(async (trx) => {
+  async decline(user: AuthUser, bookingId: string, reason: string): Promise<BookingDetail> {
+    await this.db.transaction().execute(async (trx) => {
       const booking = await this.builds.lockBooking(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');
       if (!['requested', 'deposit_paid'].includes(booking.state)) {
@@ -187,7 +189,7 @@ export class BuildsService {
       if (paid && user.role !== 'owner') {
         throw new ForbiddenException('Only the owner can decline a paid request, because it refunds the deposit.');
       }
-      const updated = await this.history.move(trx, booking, ['requested', 'deposit_paid'], 'declined', user, `Declined: ${reason.trim()}`, {
+      await this.history.move(trx, booking, ['requested', 'deposit_paid'], 'declined', user, `Declined: ${reason.trim()}`, {
         decline_reason: reason.trim(),
       });
       // State first, refund second, one transaction: a refused decline never leaves money refunded behind it.
@@ -214,8 +216,8 @@ export class BuildsService {
           currency: refunded?.currency.trim() ?? null,
         },
       });
-      return { bookingId, state: updated.state, awaitingLayoutApproval: updated.awaiting_layout_approval };
     });
+    return this.bookings.getDetail(bookingId);
   }
 
   async changeState(user: AuthUser, bookingId: string, to: BenchState, note = ''): Promise<BookingStateResponse> {

@@ -1,6 +1,6 @@
 import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { ShopClosureView, ShopSettingsView } from '@loomwright/shared';
+import type { AddClosureResponse, ShopClosureView, ShopSettingsView } from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
 import { CreateClosureDto } from './dto/create-closure.dto';
 import { UpdateSettingsDto } from './dto/update-settings.dto';
@@ -33,7 +33,7 @@ export class SettingsController {
 
   @Post('closures')
   @Roles('owner')
-  addClosure(@Body() dto: CreateClosureDto) {
+  addClosure(@Body() dto: CreateClosureDto): Promise<AddClosureResponse> {
     return this.settings.addClosure(dto);
   }
 

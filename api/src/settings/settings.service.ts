@@ -1,5 +1,5 @@
 import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
-import type { ShopClosureView, ShopSettingsView } from '@loomwright/shared';
+import type { AddClosureResponse, ShopClosureView, ShopSettingsView } from '@loomwright/shared';
 import { addDays, daysBetween, todayIn } from '../bench/calendar-days';
 import { isKnownCountry, publicHolidaysBetween } from '../bench/public-holidays';
 import { Database } from '../database/database';
@@ -68,7 +68,7 @@ export class SettingsService {
   }
 
   /** Adds a closure; builds already on the bench in those days are listed so the shop can move them. */
-  async addClosure(dto: CreateClosureDto) {
+  async addClosure(dto: CreateClosureDto): Promise<AddClosureResponse> {
     const span = daysBetween(dto.startsOn, dto.endsOn);
     if (span < 0) throw new BadRequestException('endsOn must be on or after startsOn.');
     if (span >= MAX_CLOSURE_DAYS) throw new BadRequestException(`A closure can last at most ${MAX_CLOSURE_DAYS} days; add another for longer.`);
@@ -76,7 +76,10 @@ export class SettingsService {
       const row = await this.settings.insertClosure(trx, { startsOn: dto.startsOn, endsOn: dto.endsOn, reason: dto.reason.trim() });
       const affected = await this.settings.buildsWithBenchTimeBetween(trx, dto.startsOn, dto.endsOn);
       return {
-        closure: { id: row.id, startsOn: row.starts_on, endsOn: row.ends_on, reason: row.reason } satisfies ShopClosureView,
+        id: row.id,
+        startsOn: row.starts_on,
+        endsOn: row.ends_on,
+        reason: row.reason,
         buildsOnBenchThen: affected.map((a) => ({ bookingId: a.id, reference: a.reference, days: a.days })),
       };
     });
