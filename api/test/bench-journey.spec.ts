@@ -1,0 +1,52 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BenchSuggestResponse } from '@loomwright/shared';
+import { eventually, payOnHostedPage, startPaymentHarness, type PaymentHarness } from './support/payment-harness';
+
+// A plain serial board from the demo price book.
+const serialBoard = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'apprentice' };
+// Stripe testing documentation, "Test card numbers": 4242 4242 4242 4242 succeeds.
+const SUCCESS_CARD = '4242 4242 4242 4242';
+
+describe('from a paid request to the bench, and the owner’s refunding decline, through the payment fake', () => {
+  let h: PaymentHarness;
+  beforeAll(async () => {
+    h = await startPaymentHarness();
+  }, 60_000);
+  afterAll(async () => h?.close());
+
+  async function paidRequest() {
+    const player = await h.signIn('player@mail.example');
+    const booking = (await player.post('/api/bookings').send({ configuration: serialBoard }).expect(201)).body as { id: string; reference: string; deposit: string };
+    const url = (await player.post(`/api/bookings/${booking.id}/checkout`).send({}).expect(200)).body.url as string;
+    expect((await payOnHostedPage(url, SUCCESS_CARD)).status).toBe(303);
+    await eventually(async () => (await player.get(`/api/bookings/${booking.id}`)).body.state === 'deposit_paid', 'the deposit webhook');
+    return { player, booking };
+  }
+
+  it('a builder accepts at the suggested date; the player sees the firm quote and the bench date', async () => {
+    const { player, booking } = await paidRequest();
+    const builder = await h.signIn('builder@shop.example');
+    const suggest = (await builder.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse;
+    const mine = suggest.suggestions.find((s) => s.builder.isMe)!;
+    expect(mine).toBeDefined();
+    await builder.post(`/api/bookings/${booking.id}/accept`).send({ builderId: mine.builder.id, benchDate: mine.benchDate }).expect(200);
+    const detail = (await player.get(`/api/bookings/${booking.id}`).expect(200)).body;
+    expect(detail).toMatchObject({ state: 'scheduled', benchDate: mine.benchDate, expectedCompletion: mine.expectedCompletion, firmTotal: mine.firmTotal });
+    expect(detail.firmQuote).toMatchObject({ kind: 'firm', hourlyRate: '125.00', total: mine.firmTotal });
+    const bench = (await builder.get(`/api/bench?from=${mine.benchDate}&to=${mine.benchDate}`).expect(200)).body;
+    expect(bench.builders[0].days[0].builds.map((b: { reference: string }) => b.reference)).toContain(booking.reference);
+  });
+
+  it('the owner declines a paid request and the deposit goes back through the provider, once', async () => {
+    const { booking } = await paidRequest();
+    const owner = await h.signIn('owner@shop.example');
+    const res = await owner.post(`/api/bookings/${booking.id}/decline`).send({ reason: 'We cannot source a case for this surface.' }).expect(200);
+    expect(res.body.state).toBe('declined');
+    const deposit = await h.t.db.selectFrom('payments').selectAll().where('booking_id', '=', booking.id).where('kind', '=', 'deposit').executeTakeFirstOrThrow();
+    expect(deposit.refund_id).toMatch(/^re_/);
+    expect([...h.fake.store.refunds.values()].filter((r) => r.payment_intent === deposit.payment_intent_id)).toHaveLength(1);
+    const mail = await h.t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', booking.id).where('template', '=', 'booking-declined').executeTakeFirstOrThrow();
+    expect(mail.data).toMatchObject({ depositRefunded: true, refundAmount: booking.deposit });
+    expect((await owner.post(`/api/bookings/${booking.id}/decline`).send({ reason: 'twice over' })).status).toBe(409);
+  });
+});
