@@ -60,7 +60,8 @@ async function expectNoSeriousAxeViolations(page: Page, where: string) {
 
 async function shoot(page: Page, testInfo: TestInfo, name: string) {
   await page.waitForTimeout(150);
-  await page.screenshot({ path: testInfo.outputPath(`${name}.png`), fullPage: true });
+  await page.screenshot({ path: testInfo.outputPath(`${name}.png`) });
+  await page.screenshot({ path: testInfo.outputPath(`${name}-full.png`), fullPage: true });
 }
 
 async function expectStep(page: Page, title: string) {
@@ -184,6 +185,7 @@ test.describe('configurator', () => {
     await page.keyboard.type('Analog delay');
     await page.getByRole('spinbutton', { name: 'Current draw (mA)' }).fill('120');
     await expect.poll(async () => (await configurationInUrl(page)).pedals.at(-1)).toMatchObject({ name: 'Analog delay', currentMa: 120 });
+    await expectNoSeriousAxeViolations(page, 'Pedals with an open pedal row');
     await page.getByRole('button', { name: 'Move Analog delay up' }).click();
     await expect.poll(async () => (await configurationInUrl(page)).pedals.map((p: { name: string }) => p.name).slice(-2)).toEqual(['Analog delay', 'Pedal 6']);
     await page.getByRole('button', { name: 'Remove Pedal 1' }).click();
