@@ -3,6 +3,7 @@ import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
+import { BuildSheetsModule } from './build-sheets/build-sheets.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
@@ -40,6 +41,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     ShopModule,
     PriceBookModule,
     EstimatesModule,
+    BuildSheetsModule,
   ],
 })
 export class AppModule {}

@@ -79,6 +79,9 @@ export interface PowerOutputLoad {
   ratingW: number;
   loadW: number;
   headroomW: number;
+  /** Ohm's law, R = V / I: the smallest load this output is rated to drive, and the load it sees. */
+  minimumLoadOhms: number;
+  loadOhms: number | null;
   devices: string[];
   flags: string[];
 }

@@ -9,6 +9,6 @@ export * from '../checks/types';
 export { typicalHardware, DEFAULT_VOLTAGE, BARREL_CONNECTOR } from '../checks/typical-hardware';
 export { signalChainOf, listedPedals } from '../checks/signal-chain';
 export { cableScheduleOf } from '../checks/cable-schedule';
-export { powerBudgetOf, wattsOf } from '../checks/power-budget';
+export { powerBudgetOf, wattsOf, ohmsOf } from '../checks/power-budget';
 export { boardFitOf, rowLayout, SPACING_MM } from '../checks/board-fit';
 export { complexityOf } from '../checks/complexity';

@@ -1,4 +1,5 @@
-import type { BuilderLevel, PedalInput, RigConfiguration } from '@loomwright/shared';
+import type { BuilderLevel } from '../domain';
+import type { PedalInput, RigConfiguration } from './types';
 
 /**
  * The reference board of the trade's labor figures: an input/output buffer box, a tuner, a wah and
