@@ -104,7 +104,7 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
           <Typography level="body-sm">Working out the first figures…</Typography>
         ) : null}
         {e && e.notes.length ? (
-          <Box component="ul" sx={{ m: 0, mt: 1.5, pl: 2.5, display: 'grid', gap: 0.5 }} aria-label="Notes">
+          <Box component="ul" sx={{ m: 0, mt: 1.5, pl: 2, display: 'grid', gap: 0.5 }} aria-label="Notes">
             {e.notes.slice(0, 4).map((n) => (
               <Typography component="li" level="body-xs" key={n}>{n}</Typography>
             ))}

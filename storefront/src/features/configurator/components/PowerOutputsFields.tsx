@@ -32,7 +32,7 @@ export function PowerOutputsFields({ form }: { form: UseFormReturn<PedalForm> })
               component="li"
               key={field.id}
               variant="outlined"
-              sx={{ p: 1.5, display: 'grid', gap: 1.5, gridTemplateColumns: { xs: '1fr 1fr', md: '2fr 1fr 1fr auto auto' }, alignItems: 'end' }}
+              sx={{ p: 1.5, display: 'grid', gap: 1.5, gridTemplateColumns: { xs: 'repeat(2, minmax(0, 1fr))', md: 'minmax(0, 2fr) minmax(0, 1fr) minmax(0, 1fr) auto auto' }, '& .MuiInput-root': { minWidth: 0 }, alignItems: 'end' }}
             >
               <FormControl sx={{ gridColumn: { xs: '1 / -1', md: 'auto' } }}>
                 <FormLabel>Output {n} name</FormLabel>

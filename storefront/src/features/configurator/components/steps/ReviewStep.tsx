@@ -29,11 +29,11 @@ export default function ReviewStep({ catalog, configuration, live }: StepProps) 
       {!e ? (
         <Typography>{live.error ? `The estimate could not be made: ${live.error.message}` : 'Working out the estimate…'}</Typography>
       ) : (
-        <Box sx={{ display: 'grid', gap: 4 }} aria-busy={live.isUpdating}>
+        <Box sx={{ display: 'grid', gap: 4, gridTemplateColumns: 'minmax(0, 1fr)' }} aria-busy={live.isUpdating}>
           <Box component="section" aria-labelledby="materials-heading">
             <Typography level="title-lg" component="h3" id="materials-heading" sx={{ mb: 1 }}>Materials</Typography>
-            <Box sx={{ overflowX: 'auto' }}>
-              <Table size="sm" aria-labelledby="materials-heading" sx={{ minWidth: 480, '& td:nth-of-type(n+2), & th:nth-of-type(n+2)': { textAlign: 'right' } }}>
+            <Box>
+              <Table size="sm" aria-labelledby="materials-heading" sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}>
                 <thead>
                   <tr><th scope="col" style={{ width: '46%' }}>Item</th><th scope="col">Quantity</th><th scope="col">Each</th><th scope="col">Amount</th></tr>
                 </thead>
@@ -55,8 +55,8 @@ export default function ReviewStep({ catalog, configuration, live }: StepProps) 
           </Box>
           <Box component="section" aria-labelledby="labor-heading">
             <Typography level="title-lg" component="h3" id="labor-heading" sx={{ mb: 1 }}>Labor</Typography>
-            <Box sx={{ overflowX: 'auto' }}>
-              <Table size="sm" aria-labelledby="labor-heading" sx={{ minWidth: 480, '& td:nth-of-type(n+2), & th:nth-of-type(n+2)': { textAlign: 'right' } }}>
+            <Box>
+              <Table size="sm" aria-labelledby="labor-heading" sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}>
                 <thead>
                   <tr><th scope="col" style={{ width: '46%' }}>Work</th><th scope="col">Hours</th><th scope="col">Amount</th></tr>
                 </thead>
