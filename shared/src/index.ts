@@ -10,3 +10,6 @@ export * from './bench-types';
 export * from './estimate/estimate-engine';
 export * from './auth-schemas';
 export * from './mail-types';
+export * from './estimate/estimate-engine';
+export * from './auth-schemas';
+export * from './booking-schemas';

@@ -32,7 +32,7 @@ export class WebhookSender {
   private closed = false;
 
   constructor(
-    private readonly url: string | undefined,
+    public url: string | undefined,
     private readonly secret: string,
     private readonly retryDelaysMs: number[],
   ) {}

@@ -42,11 +42,14 @@ export class PaymentWebhooksService {
   }
 
   async handle(event: Stripe.Event): Promise<{ received: true; duplicate: boolean }> {
+    // Read before the transaction: inside it, every query must use that transaction's connection,
+    // or concurrent deliveries could each hold one and wait for a second from an empty pool.
+    const shopEmail = event.type === 'checkout.session.completed' ? (await this.shop.profile()).contactEmail : '';
     const fresh = await this.db.transaction().execute(async (trx) => {
       if (!(await this.payments.recordEvent(trx, { id: event.id, type: event.type, payload: event }))) return false;
       switch (event.type) {
         case 'checkout.session.completed':
-          await this.sessionCompleted(trx, event.data.object);
+          await this.sessionCompleted(trx, event.data.object, shopEmail);
           break;
         case 'checkout.session.expired':
           await this.sessionExpired(trx, event.data.object);
@@ -66,7 +69,7 @@ export class PaymentWebhooksService {
     return { received: true, duplicate: !fresh };
   }
 
-  private async sessionCompleted(trx: Executor, session: Stripe.Checkout.Session) {
+  private async sessionCompleted(trx: Executor, session: Stripe.Checkout.Session, shopEmail: string) {
     const payment = await this.payments.lockBySession(trx, session.id);
     if (!payment) {
       this.logger.warn(`checkout ${session.id} completed but no payment row knows it (booking ${session.metadata?.bookingId ?? '?'})`);
@@ -87,11 +90,11 @@ export class PaymentWebhooksService {
       payment_intent_id: intentId,
       failure_message: null,
     });
-    if (paid.kind === 'deposit') await this.depositPaid(trx, paid);
+    if (paid.kind === 'deposit') await this.depositPaid(trx, paid, shopEmail);
     else await this.balancePaid(trx, paid);
   }
 
-  private async depositPaid(trx: Executor, payment: PaymentRow) {
+  private async depositPaid(trx: Executor, payment: PaymentRow, shopEmail: string) {
     const booking = await this.bookings.lock(trx, payment.booking_id);
     if (!booking) return;
     if (booking.state !== 'requested') {
@@ -101,7 +104,6 @@ export class PaymentWebhooksService {
     }
     await this.bookings.transition(trx, booking.id, ['requested'], 'deposit_paid', provider, `Deposit of ${payment.amount} ${payment.currency.trim()} received.`);
     const detail = await this.bookings.getDetail(booking.id, trx);
-    const shop = await this.shop.profile();
     const publicUrl = this.config.get('app', { infer: true }).publicUrl;
     const data = {
       name: detail.customer.name,
@@ -125,7 +127,7 @@ export class PaymentWebhooksService {
     });
     await this.mail.enqueue(trx, {
       template: 'shop-new-paid-request',
-      to: shop.contactEmail,
+      to: shopEmail,
       bookingId: detail.id,
       data,
       dedupeKey: `shop-new-paid-request:${payment.id}`,

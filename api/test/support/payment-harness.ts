@@ -1,0 +1,77 @@
+import { mkdtemp } from 'node:fs/promises';
+import type { AddressInfo } from 'node:net';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import { startPaymentFake, type PaymentFake } from '../../fakes/payment/payment-fake';
+import { createTestApp, type TestApp } from './test-app';
+
+export const WEBHOOK_SECRET = 'whsec_loomwright_test_0123456789';
+
+export interface PaymentHarness {
+  t: TestApp;
+  fake: PaymentFake;
+  apiUrl: string;
+  uploadsDir: string;
+  signIn: (email: string) => Promise<ReturnType<typeof request.agent>>;
+  close: () => Promise<void>;
+}
+
+/**
+ * The API listening on a real port with the payment fake running in-process beside it: the fake
+ * answers the SDK and posts signed webhooks back to the API over HTTP, as it does under npm start.
+ */
+export async function startPaymentHarness(): Promise<PaymentHarness> {
+  const fake = await startPaymentFake({ port: 0, webhookSecret: WEBHOOK_SECRET, retryDelaysMs: [50, 100, 200, 400] });
+  const uploadsDir = await mkdtemp(path.join(tmpdir(), 'lw-uploads-'));
+  const t = await createTestApp({
+    env: {
+      STRIPE_SECRET_KEY: 'sk_test_loomwright_suite',
+      STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
+      STRIPE_API_HOST: '127.0.0.1',
+      STRIPE_API_PORT: String(fake.port),
+      STRIPE_API_PROTOCOL: 'http',
+      PUBLIC_URL: 'http://storefront.test',
+      UPLOADS_DIR: uploadsDir,
+    },
+  });
+  await t.app.listen(0, '127.0.0.1');
+  const apiUrl = `http://127.0.0.1:${(t.app.getHttpServer().address() as AddressInfo).port}`;
+  fake.webhooks.url = `${apiUrl}/api/payments/webhook`;
+  return {
+    t,
+    fake,
+    apiUrl,
+    uploadsDir,
+    signIn: async (email) => {
+      const agent = request.agent(t.app.getHttpServer());
+      await agent.post('/api/auth/sign-in').send({ email, password: 'demo-pass-2026' }).expect(200);
+      return agent;
+    },
+    close: async () => {
+      await fake.close();
+      await t.close();
+    },
+  };
+}
+
+/** Polls until `check` returns a value (the webhook travels asynchronously), or fails after a while. */
+export async function eventually<T>(check: () => Promise<T | undefined | null | false>, what: string, timeoutMs = 8000): Promise<T> {
+  const end = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await check();
+    if (value) return value;
+    if (Date.now() > end) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+/** Types a card into the fake's hosted page, as the player's browser would post the form. */
+export function payOnHostedPage(checkoutUrl: string, card: string) {
+  return fetch(checkoutUrl, {
+    method: 'POST',
+    headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ card, expiry: '12/34', cvc: '123' }),
+    redirect: 'manual',
+  });
+}

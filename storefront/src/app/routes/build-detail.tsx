@@ -1,0 +1,96 @@
+import Alert from '@mui/joy/Alert';
+import Card from '@mui/joy/Card';
+import Grid from '@mui/joy/Grid';
+import Stack from '@mui/joy/Stack';
+import Typography from '@mui/joy/Typography';
+import { Navigate, useLocation, useParams } from 'react-router';
+import type { BookingState } from '@loomwright/shared';
+import { PageLoading } from 'src/components/PageLoading';
+import { useMe } from 'src/features/auth/api/get-me';
+import { useBooking } from 'src/features/bookings/api/get-booking';
+import { BookingStateChip } from 'src/features/bookings/components/BookingStateChip';
+import { CancelBooking } from 'src/features/bookings/components/CancelBooking';
+import { PaymentsList } from 'src/features/bookings/components/PaymentsList';
+import { PhotoPanel } from 'src/features/bookings/components/PhotoPanel';
+import { QuoteLines } from 'src/features/bookings/components/QuoteLines';
+import { ShipmentForm } from 'src/features/bookings/components/ShipmentForm';
+import { StatusTimeline } from 'src/features/bookings/components/StatusTimeline';
+import { PayButton } from 'src/features/payments/components/PayButton';
+import { formatAmount, formatDay } from 'src/lib/booking-format';
+
+const shippable: BookingState[] = ['requested', 'deposit_paid', 'scheduled'];
+const cancellable: BookingState[] = ['requested', 'deposit_paid'];
+
+function Section({ title, children }: { title: string; children: React.ReactNode }) {
+  return (
+    <Card variant="outlined" component="section" aria-label={title}>
+      <Typography level="title-md" component="h2">{title}</Typography>
+      {children}
+    </Card>
+  );
+}
+
+export function Component() {
+  const { id = '' } = useParams();
+  const me = useMe();
+  const location = useLocation();
+  const booking = useBooking(id);
+  if (me.isPending) return <PageLoading />;
+  if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname)}`} replace />;
+  if (booking.isPending) return <PageLoading label="Loading the build…" />;
+  if (booking.error) return <Alert color="danger" role="alert">{booking.error.message}</Alert>;
+  const b = booking.data;
+  const isPlayer = me.data.id === b.customer.id;
+
+  return (
+    <Stack gap={2} sx={{ maxWidth: 1080, mx: 'auto' }}>
+      <Stack direction="row" gap={2} alignItems="center" flexWrap="wrap">
+        <Typography level="h1" sx={{ fontSize: 'xl2' }}>Build {b.reference}</Typography>
+        <BookingStateChip state={b.state} />
+      </Stack>
+      <Typography>{b.summary}</Typography>
+      {b.declineReason && <Alert color="warning">The shop declined this build: {b.declineReason}</Alert>}
+      {b.cancelReason && b.state === 'cancelled' && <Alert color="neutral">Cancelled: {b.cancelReason}</Alert>}
+      {b.awaitingLayoutApproval && <Alert color="warning">The builder is waiting for you to approve the layout before cutting cables.</Alert>}
+
+      <Grid container spacing={2}>
+        <Grid xs={12} md={7}>
+          <Stack gap={2}>
+            <Section title={b.firmQuote ? 'Firm quote' : 'Estimate'}>
+              <QuoteLines quote={b.firmQuote ?? b.quote} />
+            </Section>
+            <Section title="Photos">
+              <PhotoPanel bookingId={b.id} photos={b.photos} />
+            </Section>
+            {isPlayer && shippable.includes(b.state) && (
+              <Section title="Shipping your pedals in">
+                <ShipmentForm bookingId={b.id} current={b.inbound} />
+              </Section>
+            )}
+          </Stack>
+        </Grid>
+        <Grid xs={12} md={5}>
+          <Stack gap={2}>
+            <Section title="Bench">
+              <Typography>Bench date: <b>{formatDay(b.benchDate)}</b></Typography>
+              <Typography>Expected completion: {formatDay(b.expectedCompletion)}</Typography>
+              {b.builder && <Typography>Builder: {b.builder.name} ({b.builder.level})</Typography>}
+              {!b.benchDate && <Typography level="body-sm">The shop sets a bench date once the deposit is paid.</Typography>}
+            </Section>
+            <Section title="Payments">
+              <Typography sx={{ fontVariantNumeric: 'tabular-nums' }}>Deposit: {formatAmount(b.deposit, b.currency)}</Typography>
+              {b.balanceDue && <Typography sx={{ fontVariantNumeric: 'tabular-nums' }}>Balance due: {formatAmount(b.balanceDue, b.currency)}</Typography>}
+              <PaymentsList payments={b.payments} />
+              {isPlayer && b.state === 'requested' && b.depositStatus !== 'paid' && <PayButton bookingId={b.id} label="Pay the deposit" />}
+              {isPlayer && b.state === 'ready' && b.balanceDue && Number(b.balanceDue) > 0 && <PayButton bookingId={b.id} label="Pay the balance" />}
+            </Section>
+            <Section title="Status history">
+              <StatusTimeline events={b.events} />
+              {isPlayer && cancellable.includes(b.state) && <CancelBooking bookingId={b.id} depositPaid={b.depositStatus === 'paid'} />}
+            </Section>
+          </Stack>
+        </Grid>
+      </Grid>
+    </Stack>
+  );
+}

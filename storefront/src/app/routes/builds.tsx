@@ -1,0 +1,75 @@
+import Alert from '@mui/joy/Alert';
+import Button from '@mui/joy/Button';
+import Link from '@mui/joy/Link';
+import Stack from '@mui/joy/Stack';
+import Table from '@mui/joy/Table';
+import Typography from '@mui/joy/Typography';
+import { useState } from 'react';
+import { Link as RouterLink, Navigate, useLocation } from 'react-router';
+import { PageLoading } from 'src/components/PageLoading';
+import { useMe } from 'src/features/auth/api/get-me';
+import { useBookings } from 'src/features/bookings/api/get-bookings';
+import { BookingStateChip } from 'src/features/bookings/components/BookingStateChip';
+import { formatDay, formatRange } from 'src/lib/booking-format';
+
+const PAGE_SIZE = 20;
+const depositWords = { unpaid: 'Not paid', pending: 'Checkout open', paid: 'Paid', refunded: 'Refunded' } as const;
+
+export function Component() {
+  const me = useMe();
+  const location = useLocation();
+  const [page, setPage] = useState(1);
+  const list = useBookings({ page, pageSize: PAGE_SIZE });
+  if (me.isPending) return <PageLoading />;
+  if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname)}`} replace />;
+  if (list.isPending) return <PageLoading label="Loading your builds…" />;
+  if (list.error) return <Alert color="danger" role="alert">{list.error.message}</Alert>;
+  const { items, total } = list.data;
+  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
+
+  return (
+    <Stack gap={2} sx={{ maxWidth: 1080, mx: 'auto' }}>
+      <Typography level="h1" sx={{ fontSize: 'xl2' }}>My builds</Typography>
+      {items.length === 0 ? (
+        <Stack gap={1} alignItems="flex-start">
+          <Typography>You have not requested a build yet.</Typography>
+          <Button component={RouterLink} to="/configure" color="accent">Configure a board</Button>
+        </Stack>
+      ) : (
+        <Table aria-label="My builds" sx={{ fontVariantNumeric: 'tabular-nums' }} stickyHeader>
+          <thead>
+            <tr>
+              <th>Build</th>
+              <th>Board</th>
+              <th>Status</th>
+              <th>Deposit</th>
+              <th>Bench date</th>
+              <th>Total</th>
+            </tr>
+          </thead>
+          <tbody>
+            {items.map((b) => (
+              <tr key={b.id}>
+                <td>
+                  <Link component={RouterLink} to={`/builds/${b.id}`}>{b.reference}</Link>
+                </td>
+                <td>{b.summary}</td>
+                <td><BookingStateChip state={b.state} /></td>
+                <td>{depositWords[b.depositStatus]}</td>
+                <td>{formatDay(b.benchDate)}</td>
+                <td>{b.firmTotal ? formatRange(b.firmTotal, b.firmTotal, b.currency) : formatRange(b.totalLow, b.totalHigh, b.currency)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </Table>
+      )}
+      {pages > 1 && (
+        <Stack direction="row" gap={1} alignItems="center">
+          <Button variant="outlined" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>Previous</Button>
+          <Typography>Page {page} of {pages}</Typography>
+          <Button variant="outlined" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>Next</Button>
+        </Stack>
+      )}
+    </Stack>
+  );
+}

@@ -1,0 +1,45 @@
+import Table from '@mui/joy/Table';
+import Typography from '@mui/joy/Typography';
+import type { PaymentView } from '@loomwright/shared';
+import { formatAmount, formatMoment } from 'src/lib/booking-format';
+
+const statusWords: Record<PaymentView['status'], string> = {
+  pending: 'Waiting for payment',
+  paid: 'Paid',
+  failed: 'Not paid: the card was refused',
+  expired: 'Checkout closed without payment',
+  refunded: 'Refunded',
+};
+
+export function PaymentsList({ payments }: { payments: PaymentView[] }) {
+  if (payments.length === 0) return <Typography level="body-sm">No payments yet.</Typography>;
+  return (
+    <Table size="sm" aria-label="Payments" sx={{ fontVariantNumeric: 'tabular-nums' }}>
+      <thead>
+        <tr>
+          <th>What</th>
+          <th>Amount</th>
+          <th>Status</th>
+        </tr>
+      </thead>
+      <tbody>
+        {payments.map((p) => (
+          <tr key={p.id}>
+            <td>{p.kind === 'deposit' ? 'Deposit' : 'Balance'}</td>
+            <td>{formatAmount(p.amount, p.currency)}</td>
+            <td>
+              {statusWords[p.status]}
+              {p.status === 'paid' && p.paidAt ? `, ${formatMoment(p.paidAt)}` : ''}
+              {p.status === 'refunded' && p.refundedAt ? `, ${formatMoment(p.refundedAt)}` : ''}
+              {p.failureMessage && p.status !== 'paid' && (
+                <Typography level="body-xs" color="danger">
+                  {p.failureMessage}
+                </Typography>
+              )}
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </Table>
+  );
+}
