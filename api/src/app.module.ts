@@ -5,6 +5,9 @@ import { ServeStaticModule } from '@nestjs/serve-static';
 import { AuthModule } from './auth/auth.module';
 import { BenchModule } from './bench/bench.module';
 import { BuildsModule } from './builds/builds.module';
+import { CustomersModule } from './customers/customers.module';
+import { SettingsModule } from './settings/settings.module';
+import { TeamModule } from './team/team.module';
 import { BookingsModule } from './bookings/bookings.module';
 import { BuildSheetsModule } from './build-sheets/build-sheets.module';
 import { configuration } from './config/configuration';
@@ -52,6 +55,9 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     BenchModule,
     BuildsModule,
     BuildSheetsModule,
+    TeamModule,
+    SettingsModule,
+    CustomersModule,
   ],
 })
 export class AppModule {}

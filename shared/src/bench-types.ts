@@ -101,6 +101,7 @@ export interface AcceptBookingResponse {
   };
 }
 
+/** POST /api/bookings/:id/decline answers with the booking's BookingDetail. */
 export interface DeclineBookingRequest {
   reason: string;
 }
@@ -186,6 +187,11 @@ export interface ShopClosureView {
   startsOn: string;
   endsOn: string;
   reason: string;
+}
+
+/** POST /api/settings/closures: the closure, and builds already on the bench in those days (they do not move by themselves). */
+export interface AddClosureResponse extends ShopClosureView {
+  buildsOnBenchThen: Array<{ bookingId: string; reference: string; days: string[] }>;
 }
 
 /** GET /api/settings */

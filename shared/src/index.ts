@@ -10,6 +10,4 @@ export * from './bench-types';
 export * from './estimate/estimate-engine';
 export * from './auth-schemas';
 export * from './mail-types';
-export * from './estimate/estimate-engine';
-export * from './auth-schemas';
 export * from './booking-schemas';

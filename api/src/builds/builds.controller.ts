@@ -1,6 +1,6 @@
 import { BadRequestException, Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { AcceptBookingResponse, AuthUser, BookingStateResponse, ExtraView, IntakeItemView, TimeEntriesResponse } from '@loomwright/shared';
+import type { AcceptBookingResponse, AuthUser, BookingDetail, BookingStateResponse, ExtraView, IntakeItemView, TimeEntriesResponse } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { BuildRecordsService } from './build-records.service';
@@ -38,7 +38,7 @@ export class BuildsController {
   @Post('decline')
   @HttpCode(200)
   @Roles('builder', 'owner')
-  decline(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: DeclineBookingDto): Promise<BookingStateResponse> {
+  decline(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: DeclineBookingDto): Promise<BookingDetail> {
     return this.builds.decline(user, id, dto.reason);
   }
 

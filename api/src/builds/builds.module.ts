@@ -1,6 +1,8 @@
 import { Module } from '@nestjs/common';
 import { BenchModule } from '../bench/bench.module';
+import { BookingsModule } from '../bookings/bookings.module';
 import { MailModule } from '../mail/mail.module';
+import { PaymentsModule } from '../payments/payments.module';
 import { BuildHistory } from './build-history';
 import { BuildRecordsService } from './build-records.service';
 import { BuildsController } from './builds.controller';
@@ -8,7 +10,7 @@ import { BuildsRepository } from './builds.repository';
 import { BuildsService } from './builds.service';
 
 @Module({
-  imports: [BenchModule, MailModule],
+  imports: [BenchModule, BookingsModule, MailModule, PaymentsModule],
   controllers: [BuildsController],
   providers: [BuildsService, BuildRecordsService, BuildsRepository, BuildHistory],
   exports: [BuildsService],

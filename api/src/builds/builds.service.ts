@@ -6,6 +6,7 @@ import {
   type AcceptBookingResponse,
   type AuthUser,
   type BenchState,
+  type BookingDetail,
   type BookingState,
   type BookingStateResponse,
 } from '@loomwright/shared';
@@ -13,7 +14,9 @@ import { BenchService } from '../bench/bench.service';
 import { addDays } from '../bench/calendar-days';
 import { shipByDate, toHours } from '../bench/scheduling';
 import { Database, type Executor } from '../database/database';
+import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { MailService } from '../mail/mail.service';
+import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
 import type { AcceptBookingDto } from './dto/accept-booking.dto';
@@ -35,6 +38,8 @@ export class BuildsService {
     private readonly bench: BenchService,
     private readonly history: BuildHistory,
     private readonly mail: MailService,
+    private readonly payments: PaymentsService,
+    private readonly bookings: BookingsService,
   ) {}
 
   async accept(user: AuthUser, bookingId: string, dto: AcceptBookingDto): Promise<AcceptBookingResponse> {
@@ -173,8 +178,8 @@ export class BuildsService {
     };
   }
 
-  async decline(user: AuthUser, bookingId: string, reason: string): Promise<BookingStateResponse> {
-    return this.db.transaction().execute(async (trx) => {
+  async decline(user: AuthUser, bookingId: string, reason: string): Promise<BookingDetail> {
+    await this.db.transaction().execute(async (trx) => {
       const booking = await this.builds.lockBooking(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');
       if (!['requested', 'deposit_paid'].includes(booking.state)) {
@@ -184,10 +189,17 @@ export class BuildsService {
       if (paid && user.role !== 'owner') {
         throw new ForbiddenException('Only the owner can decline a paid request, because it refunds the deposit.');
       }
-      const updated = await this.history.move(trx, booking, ['requested', 'deposit_paid'], 'declined', user, `Declined: ${reason.trim()}`, {
+      await this.history.move(trx, booking, ['requested', 'deposit_paid'], 'declined', user, `Declined: ${reason.trim()}`, {
         decline_reason: reason.trim(),
       });
+      // State first, refund second, one transaction: a refused decline never leaves money refunded behind it.
       const deposit = (await this.builds.payments(trx, bookingId)).find((p) => p.kind === 'deposit' && p.status === 'paid');
+      const refunded = paid && deposit ? await this.payments.refundDeposit(trx, bookingId, actorOf(user), `Declined: ${reason.trim()}`) : null;
+      if (deposit && !refunded) {
+        throw new ConflictException(
+          `The deposit of ${booking.reference} has no provider payment to refund automatically; refund it with the payment provider first, then decline.`,
+        );
+      }
       await this.mail.enqueue(trx, {
         template: 'booking-declined',
         to: booking.customer_email,
@@ -198,13 +210,14 @@ export class BuildsService {
           customerName: booking.customer_name,
           reference: booking.reference,
           reason: reason.trim(),
-          depositRefunded: paid && !!deposit,
-          refundAmount: deposit?.amount ?? null,
-          currency: deposit?.currency.trim() ?? null,
+          depositRefunded: !!refunded,
+          refundAmount: refunded?.amount ?? null,
+          refundPending: refunded ? refunded.status !== 'refunded' : false,
+          currency: refunded?.currency.trim() ?? null,
         },
       });
-      return { bookingId, state: updated.state, awaitingLayoutApproval: updated.awaiting_layout_approval };
     });
+    return this.bookings.getDetail(bookingId);
   }
 
   async changeState(user: AuthUser, bookingId: string, to: BenchState, note = ''): Promise<BookingStateResponse> {

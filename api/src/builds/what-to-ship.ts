@@ -2,8 +2,7 @@ import type { RigConfiguration } from '@loomwright/shared';
 
 /**
  * What the player sends in, from their configuration: their own pedals, supply and switcher
- * (the shop supplies materials only), with the packing habits the trade asks for
- * (common practice, no published source).
+ * (the shop supplies materials only). The scheduled e-mail adds its own packing advice.
  */
 export function whatToShip(configuration: RigConfiguration): string[] {
   const items: string[] = [];
@@ -15,7 +14,5 @@ export function whatToShip(configuration: RigConfiguration): string[] {
   }
   items.push('Your power supply with its mains lead, labelled with your name');
   if (configuration.routing?.mode === 'switcher') items.push('Your loop switcher and its power lead, labelled');
-  items.push('Pack each pedal separately and take out any batteries');
-  items.push('Note the parcel’s carrier and tracking number on your build page');
   return items;
 }

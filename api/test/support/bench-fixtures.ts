@@ -124,14 +124,14 @@ export async function createBooking(
   return booking;
 }
 
-/** A Monday at least `weeksAhead` weeks from now whose whole week has no US public holiday (date-holidays). */
+/** A Monday at least `weeksAhead` weeks from now; neither its week nor the week before has a US public holiday (date-holidays). */
 export function quietMondayWeeksAhead(weeksAhead: number): string {
   const d = new Date();
   d.setUTCDate(d.getUTCDate() + weeksAhead * 7);
   while (d.getUTCDay() !== 1) d.setUTCDate(d.getUTCDate() + 1);
   for (;;) {
     const monday = d.toISOString().slice(0, 10);
-    if (publicHolidaysBetween('US', monday, addDays(monday, 6)).size === 0) return monday;
+    if (publicHolidaysBetween('US', addDays(monday, -7), addDays(monday, 6)).size === 0) return monday;
     d.setUTCDate(d.getUTCDate() + 7);
   }
 }

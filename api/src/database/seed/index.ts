@@ -1,5 +1,6 @@
 import type { Kysely } from 'kysely';
 import type { DB } from '../database';
+import { seedBookings } from './seed-bookings';
 import { seedPeople } from './seed-people';
 import { seedPriceBook } from './seed-price-book';
 import { seedShop } from './seed-shop';
@@ -12,6 +13,7 @@ export const seedSteps: Array<{ name: string; run: (db: Kysely<DB>) => Promise<v
   { name: 'shop', run: seedShop },
   { name: 'people', run: seedPeople },
   { name: 'price-book', run: seedPriceBook },
+  { name: 'bookings', run: seedBookings },
 ];
 
 export async function seedDemoShop(db: Kysely<DB>): Promise<void> {

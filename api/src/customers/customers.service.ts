@@ -1,0 +1,72 @@
+import { Injectable, NotFoundException } from '@nestjs/common';
+import type { CustomerDetail, CustomerPage, CustomerSummary } from '@loomwright/shared';
+import { Database } from '../database/database';
+import { CustomersRepository } from './customers.repository';
+import type { ListCustomersDto } from './dto/list-customers.dto';
+
+// Generated<Timestamp> columns come back typed as the column type; at runtime pg gives a Date.
+const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
+const isoOrNull = (d: unknown) => (d ? iso(d) : null);
+
+type SummaryRow = NonNullable<Awaited<ReturnType<CustomersRepository['summary']>>>;
+
+@Injectable()
+export class CustomersService {
+  constructor(
+    private readonly db: Database,
+    private readonly customers: CustomersRepository,
+  ) {}
+
+  async list(query: ListCustomersDto): Promise<CustomerPage> {
+    const { rows, total } = await this.customers.page(this.db, query);
+    return { items: rows.map((r) => this.toSummary(r)), total, page: query.page, pageSize: query.pageSize };
+  }
+
+  async detail(id: string): Promise<CustomerDetail> {
+    const row = await this.customers.summary(this.db, id);
+    if (!row) throw new NotFoundException('There is no customer with that id.');
+    const [builds, payments, messages] = await Promise.all([
+      this.customers.builds(this.db, id),
+      this.customers.payments(this.db, id),
+      this.customers.messages(this.db, id, row.email),
+    ]);
+    return {
+      ...this.toSummary(row),
+      builds: builds.map((b) => ({ id: b.id, reference: b.reference, state: b.state, benchDate: b.bench_date, createdAt: iso(b.created_at) })),
+      payments: payments.map((p) => ({
+        id: p.id,
+        bookingId: p.booking_id,
+        reference: p.reference,
+        kind: p.kind,
+        amount: p.amount,
+        currency: p.currency.trim(),
+        status: p.status,
+        paidAt: isoOrNull(p.paid_at),
+        createdAt: iso(p.created_at),
+      })),
+      messages: messages.map((m) => ({
+        id: m.id,
+        template: m.template,
+        subject: m.subject,
+        toAddress: m.to_address,
+        state: m.state,
+        bookingId: m.booking_id,
+        createdAt: iso(m.created_at),
+        sentAt: isoOrNull(m.sent_at),
+      })),
+    };
+  }
+
+  private toSummary(r: SummaryRow): CustomerSummary {
+    return {
+      id: r.id,
+      name: r.name,
+      email: r.email,
+      phone: r.phone,
+      createdAt: iso(r.created_at),
+      buildCount: Number(r.build_count),
+      activeBuildCount: Number(r.active_build_count),
+      lastBookingAt: isoOrNull(r.last_booking_at),
+    };
+  }
+}
