@@ -40,6 +40,23 @@ describe('POST /api/estimates', () => {
     expect(res.body.laborHours).toBe('6.00');
   });
 
+  it('tells the player about an under-sized supply and a surface too small, with the checks beside the price', async () => {
+    const config = {
+      ...referenceBoard('serial', 'journeyman'),
+      surfaceId: 'slate-46',
+      pedals: referenceBoard('serial', 'journeyman').pedals!.map((p) => ({ ...p, currentMa: 90 })),
+      powerSupply: { outputs: [{ voltage: 9, currentMa: 500, isolated: false }, { voltage: 9, currentMa: 500, isolated: false }] },
+    };
+    const res = await t.http().post('/api/estimates').send(config).expect(200);
+    const { powerBudget, boardFit, cableSchedule } = res.body.checks;
+    // 13 pedals × 90 mA = 1170 mA against 2 × 500 mA: 170 mA short, 1.53 W at 9 V (P = V × I).
+    expect(powerBudget).toMatchObject({ status: 'problem', totalDrawMa: 1170, totalRatingMa: 1000, totalHeadroomMa: -170, totalHeadroomW: -1.53 });
+    expect(boardFit).toMatchObject({ status: 'problem', areaFits: false, smallestFittingSurfaceId: 'ridge-81' });
+    expect(cableSchedule).toMatchObject({ patchCount: 12, plugCount: 24 });
+    expect(res.body.notes.some((n: string) => n.includes('Overloaded'))).toBe(true);
+    expect(res.body.notes.some((n: string) => n.includes('Slate 46'))).toBe(true);
+  });
+
   const base = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' };
   const bad: Array<[string, unknown, string]> = [
     ['an unknown surface', { ...base, surfaceId: 'plank-9000' }, 'surfaceId'],

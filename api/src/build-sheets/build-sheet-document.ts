@@ -64,7 +64,8 @@ class Sheet {
   }
 
   heading(text: string) {
-    this.ensureRoom(48);
+    // A heading keeps at least its first table rows with it.
+    this.ensureRoom(90);
     this.doc.moveDown(0.8).font('bold').fontSize(12.5).text(text, MARGIN, this.doc.y).font('body').fontSize(9.5).moveDown(0.3);
   }
 

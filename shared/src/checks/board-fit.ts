@@ -13,43 +13,75 @@ interface RowLayout {
   unplaced: string[];
 }
 
+interface Segment {
+  x: number;
+  width: number;
+  /** How far from the front edge this stretch of the board is already filled. */
+  filled: number;
+}
+
 /**
- * A plain row layout (first-fit decreasing by depth): devices sorted deepest first fill rows from
- * the front edge, each new row behind the last. Not an optimal packing, which is why the area
- * bound is reported beside it: above the bound nothing fits, below it a builder may still find a
- * tighter layout than rows.
+ * A plain layout in rows from the front edge (the player's side) towards the back: devices,
+ * deepest first, each go where they sit closest to the front, leftmost on a tie (a skyline
+ * packing), so shallow pedals stack in two rows beside a deep treadle. Not an optimal packing,
+ * which is why the area bound is reported beside it: above the bound nothing fits, below it a
+ * builder may still find a tighter layout.
  */
 export function rowLayout(devices: RigDevice[], widthMm: number, depthMm: number, spacingMm = SPACING_MM): RowLayout {
   const items = devices
     .map((d) => ({ d, w: d.widthMm + spacingMm, h: d.depthMm + spacingMm }))
     .sort((a, b) => b.h - a.h || b.w - a.w);
-  const rows: Array<{ depth: number; used: number; offset: number }> = [];
-  const placements: LayoutPlacement[] = [];
+  let skyline: Segment[] = [{ x: 0, width: widthMm, filled: 0 }];
+  const placed: Array<{ d: RigDevice; x: number; offset: number; h: number }> = [];
   const unplaced: string[] = [];
   for (const item of items) {
-    let row = rows.findIndex((r) => r.used + item.w <= widthMm && item.h <= r.depth);
-    if (row < 0) {
-      const offset = rows.reduce((s, r) => s + r.depth, 0);
-      if (item.w > widthMm || offset + item.h > depthMm) {
-        unplaced.push(item.d.name);
-        continue;
-      }
-      rows.push({ depth: item.h, used: 0, offset });
-      row = rows.length - 1;
+    let best: { x: number; offset: number } | null = null;
+    for (let i = 0; i < skyline.length; i++) {
+      const x = skyline[i].x;
+      if (x + item.w > widthMm) break;
+      let offset = 0;
+      for (let j = i; j < skyline.length && skyline[j].x < x + item.w; j++) offset = Math.max(offset, skyline[j].filled);
+      if (offset + item.h <= depthMm && (!best || offset < best.offset)) best = { x, offset };
     }
-    const r = rows[row];
-    placements.push({
-      device: item.d.name,
-      row,
-      x: r.used + spacingMm / 2,
-      // Rows fill from the front (the player's side, y = depthMm) towards the back (y = 0).
-      y: depthMm - r.offset - item.h + spacingMm / 2,
-      widthMm: item.d.widthMm,
-      depthMm: item.d.depthMm,
-    });
-    r.used += item.w;
+    if (!best) {
+      unplaced.push(item.d.name);
+      continue;
+    }
+    placed.push({ d: item.d, x: best.x, offset: best.offset, h: item.h });
+    skyline = raise(skyline, best.x, item.w, best.offset + item.h);
   }
+  const bands = [...new Set(placed.map((p) => p.offset))].sort((a, b) => a - b);
+  const placements = placed.map(({ d, x, offset, h }) => ({
+    device: d.name,
+    row: bands.indexOf(offset),
+    x: x + spacingMm / 2,
+    // The front edge is y = depthMm in the top view; the first row sits against it.
+    y: depthMm - offset - h + spacingMm / 2,
+    widthMm: d.widthMm,
+    depthMm: d.depthMm,
+  }));
   return { fits: unplaced.length === 0, placements, unplaced };
+}
+
+function raise(skyline: Segment[], x: number, width: number, filled: number): Segment[] {
+  const out: Segment[] = [];
+  for (const s of skyline) {
+    if (s.x + s.width <= x || s.x >= x + width) {
+      out.push(s);
+      continue;
+    }
+    if (s.x < x) out.push({ x: s.x, width: x - s.x, filled: s.filled });
+    if (s.x + s.width > x + width) out.push({ x: x + width, width: s.x + s.width - x - width, filled: s.filled });
+  }
+  out.push({ x, width, filled });
+  out.sort((a, b) => a.x - b.x);
+  const merged: Segment[] = [];
+  for (const s of out) {
+    const last = merged[merged.length - 1];
+    if (last && last.filled === s.filled && last.x + last.width === s.x) last.width += s.width;
+    else merged.push({ ...s });
+  }
+  return merged;
 }
 
 const areaWithSpacing = (devices: RigDevice[], spacingMm: number) =>

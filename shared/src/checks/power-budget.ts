@@ -49,15 +49,20 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
     };
   }
 
-  const loads: Array<{ output: PowerOutputInput; devices: RigDevice[]; flags: string[] }> = outputs.map((output) => ({
+  const loads: Array<{ output: PowerOutputInput; devices: RigDevice[]; flags: string[]; loadMa: number }> = outputs.map((output) => ({
     output,
     devices: [],
     flags: [],
+    loadMa: 0,
   }));
   const assignedTo = new Map<RigDevice, number | null>();
   const unassigned: PowerBudget['unassigned'] = [];
   const supplyOf = (o: PowerOutputInput) => o.supply ?? 'dc';
-  const loadOf = (i: number) => loads[i].devices.reduce((s, d) => s + d.budgetMa, 0);
+  const place = (d: RigDevice, i: number) => {
+    loads[i].devices.push(d);
+    loads[i].loadMa += d.budgetMa;
+    assignedTo.set(d, i);
+  };
 
   for (const d of powered) {
     if (d.powerOutput === null) continue;
@@ -67,8 +72,7 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
       assignedTo.set(d, null);
       continue;
     }
-    slot.devices.push(d);
-    assignedTo.set(d, d.powerOutput);
+    place(d, d.powerOutput);
     if (slot.output.voltage !== d.voltage) {
       slot.flags.push(`Voltage mismatch: ${d.name} needs ${d.voltage} V, this output gives ${slot.output.voltage} V.`);
     }
@@ -79,28 +83,32 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
 
   const rest = powered.filter((d) => !assignedTo.has(d)).sort((a, b) => b.budgetMa - a.budgetMa);
   for (const d of rest) {
-    const matching = loads
-      .map((slot, i) => ({ slot, i }))
-      .filter(({ slot }) => slot.output.voltage === d.voltage && supplyOf(slot.output) === d.supply);
-    if (matching.length === 0) {
+    // Free output holding the draw with the least to spare; else the largest free one; else the
+    // matching output with the most headroom left (a daisy chain).
+    let holding = -1;
+    let largestFree = -1;
+    let mostHeadroom = -1;
+    loads.forEach((slot, i) => {
+      if (slot.output.voltage !== d.voltage || supplyOf(slot.output) !== d.supply) return;
+      const rating = slot.output.currentMa;
+      if (slot.devices.length === 0) {
+        if (rating >= d.budgetMa && (holding < 0 || rating < loads[holding].output.currentMa)) holding = i;
+        if (largestFree < 0 || rating > loads[largestFree].output.currentMa) largestFree = i;
+      }
+      if (mostHeadroom < 0 || rating - slot.loadMa > loads[mostHeadroom].output.currentMa - loads[mostHeadroom].loadMa) mostHeadroom = i;
+    });
+    const pick = holding >= 0 ? holding : largestFree >= 0 ? largestFree : mostHeadroom;
+    if (pick < 0) {
       unassigned.push({ device: d.name, reason: `no ${d.voltage} V ${d.supply.toUpperCase()} output on the supply` });
       assignedTo.set(d, null);
       continue;
     }
-    const free = matching.filter(({ slot }) => slot.devices.length === 0);
-    const holding = free.filter(({ slot }) => slot.output.currentMa >= d.budgetMa).sort((a, b) => a.slot.output.currentMa - b.slot.output.currentMa);
-    const pick =
-      holding[0] ??
-      free.sort((a, b) => b.slot.output.currentMa - a.slot.output.currentMa)[0] ??
-      matching.sort((a, b) => b.slot.output.currentMa - loadOf(b.i) - (a.slot.output.currentMa - loadOf(a.i)))[0];
-    pick.slot.devices.push(d);
-    assignedTo.set(d, pick.i);
+    place(d, pick);
   }
 
-  const outputLoads: PowerOutputLoad[] = loads.map(({ output, devices, flags }, i) => {
-    const loadMa = devices.reduce((s, d) => s + d.budgetMa, 0);
+  const outputLoads: PowerOutputLoad[] = loads.map(({ output, devices, flags, loadMa }, i) => {
     if (loadMa > output.currentMa) {
-      flags.push(`Overloaded: ${loadMa} mA drawn from a ${output.currentMa} mA output (${devices.map(describe).join('; ')}).`);
+      flags.push(`Overloaded: ${loadMa} mA drawn from a ${output.currentMa} mA output.`);
     }
     if (devices.length > 1) {
       flags.push(
@@ -129,7 +137,12 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
   });
 
   for (const u of unassigned) warnings.push(`${u.device} has no output: ${u.reason}.`);
-  for (const o of outputLoads) for (const f of o.flags) if (!f.startsWith('Shared')) warnings.push(`${o.label}: ${f}`);
+  for (const o of outputLoads) {
+    for (const f of o.flags) {
+      if (f.startsWith('Overloaded')) warnings.push(`${o.label}: ${f.replace(/\.$/, '')} (${loads[o.output].devices.map(describe).join('; ')}).`);
+      else if (!f.startsWith('Shared')) warnings.push(`${o.label}: ${f}`);
+    }
+  }
 
   const totalRatingMa = outputs.reduce((s, o) => s + o.currentMa, 0);
   const totalRatingW = Math.round(outputs.reduce((s, o) => s + o.voltage * o.currentMa, 0)) / 1000;

@@ -8,7 +8,7 @@ import type { RigChecks, SignalChain } from '../checks/types';
 import { levelRank } from '../domain';
 import type { FunctionItem, PriceBook } from '../price-book/types';
 import { EstimateInputError } from './errors';
-import { formatMoney, minorUnitDigits, roundToMinorUnit } from './money';
+import { minorUnitDigits, roundToMinorUnit } from './money';
 import type { EstimateLine, EstimateResult, RigConfiguration } from './types';
 
 const hours = (d: Decimal) => d.toFixed(2);
@@ -105,8 +105,9 @@ function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBo
 export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { version: number }): EstimateResult {
   const { surface, rigCase, functions, level } = resolve(config, book);
   const currency = book.currency;
-  const money = (v: Decimal.Value) => roundToMinorUnit(v, currency);
-  const fmt = (v: Decimal.Value) => formatMoney(v, currency);
+  const digits = minorUnitDigits(currency)!;
+  // Each line is rounded to the minor unit (ISO 4217) once, here; every total is a sum of these.
+  const fmt = (v: Decimal.Value) => (v instanceof Decimal ? v : new Decimal(v)).toFixed(digits, Decimal.ROUND_HALF_UP);
 
   const chain = signalChainOf(config);
   const schedule = cableScheduleOf(chain, functions, book.materials);
@@ -126,7 +127,7 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
     quantity: typeof quantity === 'number' ? count(quantity) : new Decimal(quantity).toFixed(2),
     unit,
     unitPrice,
-    amount: fmt(money(new Decimal(unitPrice).times(quantity))),
+    amount: fmt(new Decimal(unitPrice).times(quantity)),
     ...(explanation ? { explanation } : {}),
   });
 
@@ -161,8 +162,8 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
       quantity: hours(item.hours),
       unit: 'h',
       unitPrice: fmt(rateLow),
-      amount: fmt(money(item.hours.times(rateLow))),
-      amountHigh: fmt(money(item.hours.times(rateHigh))),
+      amount: fmt(item.hours.times(rateLow)),
+      amountHigh: fmt(item.hours.times(rateHigh)),
       explanation: `${item.quantity} ${item.unit}${item.quantity === '1' ? '' : 's'}: ${item.explanation}, at ${fmt(rateLow)}–${fmt(rateHigh)} per hour`,
     });
   }

@@ -6,9 +6,12 @@ import Decimal from 'decimal.js';
  * (USD 2, JPY 0, BHD 3), read from the `currency-codes` package's copy of the ISO table.
  * Undefined for a code ISO 4217 does not list.
  */
+const digitsByCode = new Map<string, number | undefined>();
+
 export function minorUnitDigits(currency: string): number | undefined {
-  const record = currencyByCode(currency.toUpperCase());
-  return record ? record.digits : undefined;
+  // The package searches its table linearly; every line of every estimate asks, so remember.
+  if (!digitsByCode.has(currency)) digitsByCode.set(currency, currencyByCode(currency.toUpperCase())?.digits);
+  return digitsByCode.get(currency);
 }
 
 export function isKnownCurrency(currency: string): boolean {
