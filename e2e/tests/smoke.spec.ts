@@ -9,7 +9,12 @@ test('the storefront and the backoffice load, name the shop and report the datab
   await expect(page.getByRole('link', { name: new RegExp(shop.name) })).toBeVisible();
   await expect(page.getByText('Booking system online')).toBeVisible();
 
+  // The backoffice is staff-only: it asks for a sign-in first.
   await page.goto('/backoffice/');
+  await expect(page.getByRole('heading', { name: 'Staff sign in' })).toBeVisible();
+  await page.getByLabel('E-mail').fill('owner@shop.example');
+  await page.getByLabel('Password').fill('demo-pass-2026');
+  await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
   await expect(page.getByText('API and database up')).toBeVisible();
 

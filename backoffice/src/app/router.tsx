@@ -21,6 +21,7 @@ const router = createBrowserRouter(
         { path: 'team', lazy: () => import('src/app/routes/team') },
         { path: 'settings', lazy: () => import('src/app/routes/settings') },
         { path: 'mail', lazy: () => import('src/app/routes/mail-log') },
+        { path: 'team/invite', lazy: () => import('src/app/routes/invite-builder') },
         { path: '*', lazy: () => import('src/app/routes/not-found') },
       ],
     },

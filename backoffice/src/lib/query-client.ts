@@ -1,8 +1,15 @@
-import { QueryClient } from '@tanstack/react-query';
+import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
 import { ApiError } from '@loomwright/shared';
 
 export function createQueryClient() {
-  return new QueryClient({
+  // A 401 from any call means the session ran out: ask "who is signed in?" again, so the screens
+  // that depend on it (the header, the staff guard) catch up at once.
+  const onError = (error: unknown) => {
+    if (error instanceof ApiError && error.status === 401) void client.invalidateQueries({ queryKey: ['auth', 'me'] });
+  };
+  const client: QueryClient = new QueryClient({
+    queryCache: new QueryCache({ onError }),
+    mutationCache: new MutationCache({ onError }),
     defaultOptions: {
       queries: {
         staleTime: 30_000,
@@ -11,4 +18,5 @@ export function createQueryClient() {
       },
     },
   });
+  return client;
 }

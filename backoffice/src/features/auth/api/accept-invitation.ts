@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AcceptInvitationInput, AuthSessionResponse } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { authKeys } from './get-me';
+import { switchPerson } from './get-me';
 
 export const acceptInvitation = (input: AcceptInvitationInput) => api.post<AuthSessionResponse>('/invitations/accept', input);
 
@@ -10,9 +10,6 @@ export function useAcceptInvitation() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: acceptInvitation,
-    onSuccess: ({ user }) => {
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'shop' });
-      queryClient.setQueryData(authKeys.me(), user);
-    },
+    onSuccess: ({ user }) => switchPerson(queryClient, user),
   });
 }

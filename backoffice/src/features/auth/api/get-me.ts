@@ -1,4 +1,4 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
 import { ApiError, type AuthSessionResponse, type AuthUser } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
 
@@ -18,3 +18,13 @@ export async function getMe(signal?: AbortSignal): Promise<AuthUser | null> {
 export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 60_000 });
 
 export const useMe = () => useQuery(meQueryOptions());
+
+/**
+ * After a sign-in, sign-up or sign-out: drop everything cached for the previous person (the shop
+ * profile stays), then record who is here now. The "me" query is updated in place rather than
+ * removed, so every screen watching it re-renders at once.
+ */
+export function switchPerson(queryClient: QueryClient, user: AuthUser | null): void {
+  queryClient.removeQueries({ predicate: (q) => !['shop', 'auth'].includes(String(q.queryKey[0])) });
+  queryClient.setQueryData(authKeys.me(), user);
+}

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AuthSessionResponse, PasswordResetConfirmInput } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { authKeys } from './get-me';
+import { switchPerson } from './get-me';
 
 export const confirmPasswordReset = (input: PasswordResetConfirmInput) =>
   api.post<AuthSessionResponse>('/auth/password-reset/confirm', input);
@@ -11,9 +11,6 @@ export function useConfirmPasswordReset() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: confirmPasswordReset,
-    onSuccess: ({ user }) => {
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'shop' });
-      queryClient.setQueryData(authKeys.me(), user);
-    },
+    onSuccess: ({ user }) => switchPerson(queryClient, user),
   });
 }

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from 'src/lib/api-client';
-import { authKeys } from './get-me';
+import { switchPerson } from './get-me';
 
 export const signOut = () => api.post<{ signedOut: true }>('/auth/sign-out');
 
@@ -8,10 +8,6 @@ export function useSignOut() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signOut,
-    onSuccess: () => {
-      // The next person on this browser must not see the last one's builds.
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'shop' });
-      queryClient.setQueryData(authKeys.me(), null);
-    },
+    onSuccess: () => switchPerson(queryClient, null),
   });
 }

@@ -1,0 +1,79 @@
+import { CssVarsProvider } from '@mui/joy/styles';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { cleanup, fireEvent, render, screen } from '@testing-library/react';
+import { createMemoryRouter, RouterProvider, useLocation } from 'react-router';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { theme } from 'src/theme';
+import { AppLayout } from './AppLayout';
+
+// jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
+window.matchMedia ??= ((query: string) =>
+  ({ matches: false, media: query, onchange: null, addListener() {}, removeListener() {}, addEventListener() {}, removeEventListener() {}, dispatchEvent: () => false }) as MediaQueryList);
+
+const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+
+function SignInStandIn() {
+  const location = useLocation();
+  return <p>sign-in page at {location.pathname + location.search}</p>;
+}
+
+function renderAt(url: string, me: () => Response) {
+  const fetchMock = vi.fn(async (input: string | URL | Request) => {
+    const path = new URL(String(input)).pathname;
+    if (path === '/api/auth/me') return me();
+    if (path === '/api/auth/sign-out') return json(200, { signedOut: true });
+    if (path === '/api/health') return json(200, { status: 'ok', db: 'up' });
+    return json(200, { name: 'Copperline Rig Works', tagline: '', currency: 'USD', countryCode: 'US', timezone: 'UTC', contactEmail: 'bench@shop.example' });
+  });
+  vi.stubGlobal('fetch', fetchMock);
+  const router = createMemoryRouter(
+    [
+      { path: '/sign-in', element: <SignInStandIn /> },
+      { path: '/', element: <AppLayout />, children: [{ path: 'bench', element: <p>bench page</p> }] },
+    ],
+    { initialEntries: [url] },
+  );
+  render(
+    <CssVarsProvider theme={theme}>
+      <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
+        <RouterProvider router={router} />
+      </QueryClientProvider>
+    </CssVarsProvider>,
+  );
+  return fetchMock;
+}
+
+describe('the backoffice layout lets only staff in', () => {
+  afterEach(() => {
+    cleanup();
+    vi.unstubAllGlobals();
+  });
+
+  it('sends a visitor who is not signed in to sign-in, remembering the page', async () => {
+    renderAt('/bench', () => json(401, { message: 'Please sign in to do this.' }));
+    expect(await screen.findByText('sign-in page at /sign-in?next=%2Fbench')).toBeTruthy();
+    expect(screen.queryByText('bench page')).toBeNull();
+  });
+
+  it('shows a player a plain "staff only" page with a working sign-out', async () => {
+    let signedIn = true;
+    const fetchMock = renderAt('/bench', () =>
+      signedIn ? json(200, { user: { id: 'c1', email: 'player@mail.example', name: 'Rowan Achterberg', role: 'customer' } }) : json(401, { message: 'Please sign in to do this.' }),
+    );
+    expect(await screen.findByRole('heading', { name: 'Staff only' })).toBeTruthy();
+    expect(screen.queryByText('bench page')).toBeNull();
+    expect(screen.queryByRole('navigation', { name: 'Backoffice' })).toBeNull();
+    signedIn = false;
+    fireEvent.click(screen.getByRole('button', { name: 'Sign out' }));
+    expect(await screen.findByText(/^sign-in page at \/sign-in/)).toBeTruthy();
+    expect(fetchMock.mock.calls.some(([input]) => String(input).endsWith('/api/auth/sign-out'))).toBe(true);
+  });
+
+  it('shows staff the page, with their name and a sign-out in the navigation', async () => {
+    renderAt('/bench', () => json(200, { user: { id: 'o1', email: 'owner@shop.example', name: 'Odile Varga', role: 'owner' } }));
+    expect(await screen.findByText('bench page')).toBeTruthy();
+    expect(screen.getByRole('navigation', { name: 'Backoffice' })).toBeTruthy();
+    expect(screen.getByText('Odile Varga')).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Sign out' })).toBeTruthy();
+  });
+});
