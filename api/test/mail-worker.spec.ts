@@ -84,4 +84,29 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
     expect(inbox[0].messageId).toBe(row.message_id);
     expect(inbox[0].subject).toBe('Deposit refunded for LW-3003: $150.00');
   });
+
+  it('sweeps up a message queued where no worker ran (another replica), once it is overdue', async () => {
+    const inserted = await t.db
+      .insertInto('mail_outbox')
+      .values({
+        message_id: '<swept-1@shop.example>',
+        template: 'welcome',
+        to_address: 'swept@mail.example',
+        data: JSON.stringify({ name: 'Sam' }),
+        created_at: sql`now() - interval '5 minutes'`,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const fresh = await t.db
+      .insertInto('mail_outbox')
+      .values({ message_id: '<fresh-1@shop.example>', template: 'welcome', to_address: 'fresh@mail.example', data: JSON.stringify({ name: 'Fay' }) })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    await t.app.get(MailWorker).sweep();
+    await until('the swept message to be sent', async () => (await outboxRow(inserted.id)).state === 'sent');
+    // The fresh row has no job and is not overdue yet: the sweep leaves it for later.
+    expect(await jobsFor(fresh.id)).toHaveLength(0);
+    const inbox: CaughtMessage[] = await (await fetch(`http://127.0.0.1:${httpPort}/api/messages?to=swept@mail.example`)).json();
+    expect(inbox.map((m) => m.messageId)).toEqual(['<swept-1@shop.example>']);
+  });
 });

@@ -195,7 +195,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
       const failed = await builder.get('/api/mail?state=failed').expect(200);
       expect(failed.body.total).toBe(1);
       expect(failed.body.items[0]).toMatchObject({ state: 'failed', attempts: 1, template: 'password-reset' });
-      expect(failed.body.items[0].lastError).toBe('The message cannot be written: the data has no "name".');
+      expect(failed.body.items[0].lastError).toBe('The message cannot be written: the data has no "name" (or "customerName").');
       const found = await builder.get('/api/mail?q=person3@mail').expect(200);
       expect(found.body.items.map((e: { to: string }) => e.to)).toEqual(['Person3@Mail.Example']);
       // A search term is matched literally, never as a LIKE pattern.

@@ -26,8 +26,9 @@ export const OUTCOME_UNKNOWN =
  *    crashed after the mail went out) finds nothing to claim and ends.
  * 3. Only a definite "not taken" goes back to 'queued': a refused connection, or an SMTP 4yz reply.
  *    A 5yz reply, or data the template cannot render, ends in 'failed' with the reason.
- * 4. A claim whose outcome is unknown — no reply after the body was sent, or a sender that died
- *    between the claim and marking it sent (found by the sweep after SEND_LEASE_SECONDS) — ends
+ * 4. A claim whose outcome is unknown — the connection dropped or went silent once the SMTP
+ *    session was under way (see classifySmtpError), or a sender that died between the claim and
+ *    marking it sent (found by the sweep after SEND_LEASE_SECONDS) — ends
  *    in 'failed' with OUTCOME_UNKNOWN, never re-sent by itself: the owner decides in the mail log.
  * So no automatic path hands one row to the mail server twice, and no row is dropped silently:
  * each ends 'sent' or 'failed' with its reason in the log. Every send carries the row's stable
@@ -37,6 +38,7 @@ export const OUTCOME_UNKNOWN =
 export class MailDeliveryService {
   private readonly logger = new Logger('Mail');
   private readonly maxAttempts: number;
+  private readonly publicUrl: string;
 
   constructor(
     private readonly outbox: MailOutboxRepository,
@@ -45,6 +47,7 @@ export class MailDeliveryService {
     config: ConfigService<AppConfig, true>,
   ) {
     this.maxAttempts = config.get('mail', { infer: true }).maxAttempts;
+    this.publicUrl = config.get('app', { infer: true }).publicUrl;
   }
 
   async deliverOne(id: string): Promise<DeliveryOutcome> {
@@ -54,7 +57,7 @@ export class MailDeliveryService {
     let rendered: RenderedMail;
     try {
       const shop = await this.shop.profile();
-      rendered = renderMail(row.template, row.data, shop);
+      rendered = renderMail(row.template, row.data, { ...shop, publicUrl: this.publicUrl }, { bookingId: row.booking_id });
     } catch (error) {
       const permanent = error instanceof MailDataError;
       const reason = permanent ? `The message cannot be written: ${(error as Error).message}.` : describeSmtpError(error);

@@ -117,8 +117,11 @@ export class MailOutboxRepository {
       .select('id')
       .where('state', '=', 'queued')
       .where(
+        // Never tried: its job should have run within seconds. Tried n times: pg-boss waits up to
+        // retryDelay × 2^n before the next try.
         sql<boolean>`coalesce(last_attempt_at, created_at)
-          + make_interval(secs => ${retryDelaySeconds}::double precision * power(2, least(attempts, 12)) + ${graceSeconds}::double precision)
+          + make_interval(secs => case when attempts = 0 then 0
+              else ${retryDelaySeconds}::double precision * power(2, least(attempts, 12)) end + ${graceSeconds}::double precision)
           < now()`,
       )
       .orderBy('created_at')

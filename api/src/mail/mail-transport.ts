@@ -37,17 +37,23 @@ export class MailTransport implements OnApplicationShutdown {
 
 export type SmtpVerdict = 'transient' | 'permanent' | 'unknown';
 
+// Failures that happen before anything of the message reaches the server: nothing to repeat.
+const beforeHandover = /ECONNREFUSED|ENOTFOUND|EHOSTUNREACH|ENETUNREACH|EAI_AGAIN|Connection timeout|Greeting never received/;
+
 /**
- * What a failed send tells us about the message (RFC 5321 §4.2.1: 4yz replies are transient,
- * 5yz permanent). A reply code means the server answered and did not take the message. No reply
- * while the message body was being handed over (command DATA) means we cannot know whether the
- * server kept it: that case is never retried automatically, so it cannot arrive twice.
+ * What a failed send tells us about the message. A reply code means the server answered and did
+ * not take it (RFC 5321 §4.2.1: 4yz transient, 5yz permanent). A failure to connect, resolve,
+ * start TLS or log in means nothing was handed over. Any other silence — a dropped connection or
+ * a timeout once the session was under way — may have come after the server took the body
+ * (nodemailer does not say in which phase a socket failed), so it is 'unknown' and never retried
+ * automatically: retrying could deliver it twice.
  */
 export function classifySmtpError(error: unknown): SmtpVerdict {
-  const e = error as { responseCode?: number; command?: string };
+  const e = error as { responseCode?: number; code?: string; message?: string };
   if (typeof e?.responseCode === 'number') return e.responseCode >= 500 ? 'permanent' : 'transient';
-  if (e?.command === 'DATA') return 'unknown';
-  return 'transient';
+  if (e?.code === 'EDNS' || e?.code === 'ETLS' || e?.code === 'EAUTH') return 'transient';
+  if (beforeHandover.test(`${e?.code ?? ''} ${e?.message ?? ''}`)) return 'transient';
+  return 'unknown';
 }
 
 export function describeSmtpError(error: unknown): string {

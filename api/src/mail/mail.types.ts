@@ -29,74 +29,98 @@ export interface OutgoingMail {
 }
 
 /*
- * What each template reads from `data`. Amounts are decimal strings ("1120.00") in `currency`
- * (ISO 4217); calendar days are 'YYYY-MM-DD'; instants are ISO 8601 strings. `name` is the
- * recipient's name. Links are absolute URLs. A message whose data lacks a required key is not
+ * What each template reads from `data` (the keys the calling modules send). Amounts are decimal
+ * strings ("1120.00") in `currency` (ISO 4217); calendar days are 'YYYY-MM-DD'; instants are
+ * ISO 8601 strings; links are absolute URLs. The recipient is `name` or `customerName`. Where a
+ * booking page link is not given (`bookingUrl` or `buildUrl`), the message links to
+ * PUBLIC_URL/builds/<the outbox row's bookingId>. A message whose data lacks a required key is not
  * sent: the mail log shows it as failed, naming the key.
  */
-type Money = { amount: string; currency: string };
+type Recipient = { name: string } | { customerName: string };
+type BookingLink = { bookingUrl?: string; buildUrl?: string };
 
-export interface MailTemplateData {
-  welcome: { name: string; signInUrl?: string };
-  'password-reset': { name: string; resetUrl: string; expiresAt: string };
-  'staff-invite': { name: string; inviteUrl: string; role?: 'builder' | 'owner'; expiresAt?: string };
-  'booking-requested': {
-    name: string;
-    reference: string;
-    /** The estimate range and the deposit that holds the place in the queue. */
-    totalLow: string;
-    totalHigh: string;
-    deposit: string;
-    currency: string;
-    bookingUrl: string;
+export type MailTemplateData = {
+  welcome: Recipient & { configureUrl?: string; signInUrl?: string; accountUrl?: string };
+  'password-reset': Recipient & { resetUrl: string; expiresAt: string };
+  'staff-invite': Recipient & {
+    /** Either name works. */
+    inviteUrl?: string;
+    acceptUrl?: string;
+    invitedBy?: string;
+    level?: 'apprentice' | 'journeyman' | 'master';
+    role?: 'builder' | 'owner';
+    expiresAt?: string;
   };
-  'deposit-received': Money & {
-    name: string;
+  'booking-requested': Recipient &
+    BookingLink & { reference: string; totalLow: string; totalHigh: string; deposit: string; currency: string; quoteExpiresAt?: string };
+  /** "What happens next" is the template's own text. */
+  'deposit-received': Recipient & BookingLink & { reference: string; amount: string; currency: string; expectedBenchDate?: string };
+  'booking-scheduled': Recipient &
+    BookingLink & {
+      reference: string;
+      benchDate: string;
+      /** The day the pedals must arrive at (or be dropped off at) the shop: the calendar file's day. */
+      shipBy: string;
+      builderLevel: 'apprentice' | 'journeyman' | 'master';
+      builderName?: string;
+      expectedCompletion: string;
+      /** 'ship' (default) or 'drop-off'. */
+      handover?: 'ship' | 'drop-off';
+      /** What to send, line by line (pedals by name, supply, switcher); or give `pedals` and the flags. */
+      whatToShip?: string[];
+      pedals?: string[];
+      /** With `pedals`: a power supply is assumed unless false; a switcher only when true. */
+      powerSupply?: boolean;
+      switcher?: boolean;
+      /** Where to ship or drop off; defaults to the shop's name and contact address. */
+      shipTo?: string;
+      /** Shown when `currency` is given. */
+      firmTotal?: string;
+      deposit?: string;
+      balanceDue?: string;
+      currency?: string;
+    };
+  'status-changed': Recipient &
+    BookingLink & {
+      reference: string;
+      /** The new state; pedals_received, on_bench, testing, ready and delivered have their own words. */
+      state: string;
+      fromState?: string;
+      note?: string;
+      /** For pedals_received: items found faulty at intake. */
+      faultyItems?: { item: string; note?: string }[];
+      /** For delivered: the outbound carrier and tracking number. */
+      tracking?: string;
+    };
+  'balance-requested': Recipient &
+    BookingLink & {
+      reference: string;
+      currency: string;
+      /** The amount due: `amount` or `balanceDue`. */
+      amount?: string;
+      balanceDue?: string;
+      firmTotal?: string;
+      extras?: string;
+      depositPaid?: string;
+      payUrl?: string;
+    };
+  'deposit-refunded': Recipient & { reference: string; amount: string; currency: string };
+  'booking-declined': Recipient & {
     reference: string;
-    bookingUrl: string;
-    /** The expected bench date shown before payment, if there was one. */
-    expectedBenchDate?: string;
+    reason: string;
+    depositRefunded?: boolean;
+    refundAmount?: string | null;
+    refundPending?: boolean;
+    currency?: string | null;
   };
-  'booking-scheduled': {
-    name: string;
+  /** To the shop; the player is `name` (or `customerName`). */
+  'shop-new-paid-request': Recipient & {
     reference: string;
-    benchDate: string;
-    /** The day the pedals must arrive at (or be dropped off at) the shop. */
-    shipBy: string;
-    builderLevel: 'apprentice' | 'journeyman' | 'master';
-    builderName?: string;
-    expectedCompletion: string;
-    /** 'ship' (default) or 'drop-off'. */
-    handover?: 'ship' | 'drop-off';
-    /** The pedals by type or model, as the player listed them. */
-    pedals: string[];
-    /** Defaults: a power supply is always brought; a switcher only when the rig uses one. */
-    powerSupply?: boolean;
-    switcher?: boolean;
-    /** Where to ship or drop off; defaults to the shop's contact line. */
-    shipTo?: string;
-    bookingUrl: string;
-  };
-  'status-changed': {
-    name: string;
-    reference: string;
-    /** The new state: pedals_received, on_bench, testing, ready, delivered (others get a plain line). */
-    state: string;
-    note?: string;
-    /** For delivered: the outbound carrier and tracking number, if shipped. */
-    tracking?: string;
-    bookingUrl: string;
-  };
-  'balance-requested': Money & { name: string; reference: string; payUrl: string };
-  'deposit-refunded': Money & { name: string; reference: string };
-  'booking-declined': { name: string; reference: string; reason: string; depositRefunded?: boolean };
-  'shop-new-paid-request': Money & {
-    reference: string;
-    customerName: string;
     customerEmail: string;
-    /** The estimate range, if known. */
+    amount: string;
+    currency: string;
     totalLow?: string;
     totalHigh?: string;
     backofficeUrl: string;
   };
-}
+};

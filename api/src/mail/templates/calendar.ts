@@ -17,10 +17,10 @@ export interface HandoverEvent {
  */
 export function handoverCalendar(event: HandoverEvent): string {
   const [y, m, d] = event.day.split('-').map(Number);
-  // Local-midnight Dates: ical-generator writes an all-day date from the Date's local parts,
-  // so this stays on the same calendar day whatever the server's time zone is.
-  const start = new Date(y, m - 1, d);
-  const end = new Date(y, m - 1, d + 1);
+  // UTC-midnight Dates: with no calendar time zone, ical-generator writes an all-day date from the
+  // Date's UTC parts, so the day is the same whatever the server's time zone is.
+  const start = new Date(Date.UTC(y, m - 1, d));
+  const end = new Date(Date.UTC(y, m - 1, d + 1));
   const calendar = ical({
     name: `${event.shopName}: your build`,
     prodId: { company: 'Loomwright', product: 'bookings', language: 'EN' },

@@ -181,9 +181,113 @@ describe('the booking-scheduled calendar attachment', () => {
   });
 
   it('keeps the day whatever the server time zone (a leap day)', () => {
-    const [file] = renderMail('booking-scheduled', { ...scheduled, shipBy: '2028-02-29' }, shop).attachments;
-    expect(parse(file.content).vevent.startDate.toString()).toBe('2028-02-29');
+    const saved = process.env.TZ;
+    let file = { content: '' };
+    try {
+      // Node re-reads TZ when it changes: UTC+14 and UTC−8 are the two ends that shift a date.
+      for (const zone of ['Pacific/Kiritimati', 'America/Los_Angeles', 'UTC']) {
+        process.env.TZ = zone;
+        [file] = renderMail('booking-scheduled', { ...scheduled, shipBy: '2028-02-29' }, shop).attachments;
+        expect(parse(file.content).vevent.startDate.toString()).toBe('2028-02-29');
+      }
+    } finally {
+      process.env.TZ = saved;
+    }
     // RFC 5545 §3.1: content lines are folded at 75 octets and end in CRLF.
     for (const line of file.content.split('\r\n')) expect(Buffer.byteLength(line)).toBeLessThanOrEqual(75);
+  });
+});
+
+// The exact data shapes the calling modules send (accounts, bookings and payments, the bench).
+describe('the data the calling modules send', () => {
+  const withPublicUrl = { ...shop, publicUrl: 'http://localhost:3000' };
+
+  it('welcome from sign-up links to the configurator and the account', () => {
+    const { text } = renderMail('welcome', { name: 'Rosa', configureUrl: 'http://localhost:3000/configure', accountUrl: 'http://localhost:3000/account' }, shop);
+    expect(text).toContain('Configure a board: http://localhost:3000/configure');
+    expect(text).toContain('Your account: http://localhost:3000/account');
+  });
+
+  it('staff-invite with acceptUrl, level and who invited', () => {
+    const { text } = renderMail(
+      'staff-invite',
+      { name: 'Ivo', invitedBy: 'Marta Okafor', level: 'journeyman', hourlyRate: '90.00', acceptUrl: 'http://localhost:3000/backoffice/accept-invite?token=abc', expiresAt: '2027-01-20T12:00:00Z' },
+      shop,
+    );
+    expect(text).toContain('Marta Okafor has invited you to the shop\'s backoffice as a journeyman builder');
+    expect(text).toContain('http://localhost:3000/backoffice/accept-invite?token=abc');
+    expect(text).toContain('Wed 20 Jan 2027, 06:00 (CST)');
+  });
+
+  it('booking-requested without a link falls back to the booking page of the outbox row', () => {
+    const { text } = renderMail(
+      'booking-requested',
+      { name: 'Rosa', reference: 'LW-1042', totalLow: '980.00', totalHigh: '1210.00', deposit: '250.00', currency: 'USD', quoteExpiresAt: '2027-02-01T18:00:00Z' },
+      withPublicUrl,
+      { bookingId: 'b-1' },
+    );
+    expect(text).toContain('$980.00 to $1,210.00');
+    expect(text).toContain('Pay the deposit: http://localhost:3000/builds/b-1');
+    expect(text).toContain('Estimate holds until:');
+  });
+
+  it('deposit-received and the shop notice from the payment webhook (one data object for both)', () => {
+    const data = {
+      name: 'Rosa Delgado-Finch', customerEmail: 'rosa@mail.example', reference: 'LW-1042', amount: '250.00', currency: 'USD',
+      totalLow: '980.00', totalHigh: '1210.00', summary: '9 pedals, switcher', buildUrl: 'http://localhost:3000/builds/b-1', backofficeUrl: 'http://localhost:3000/backoffice/requests',
+    };
+    expect(renderMail('deposit-received', data, shop).text).toContain('See your booking: http://localhost:3000/builds/b-1');
+    const notice = renderMail('shop-new-paid-request', data, shop);
+    expect(notice.subject).toBe('New paid request LW-1042 from Rosa Delgado-Finch');
+    expect(notice.text).toContain('$980.00 to $1,210.00');
+  });
+
+  it('booking-scheduled from the bench, with its own list of what to ship and the money', () => {
+    const { text, attachments } = renderMail(
+      'booking-scheduled',
+      {
+        customerName: 'Rosa', reference: 'LW-1042', benchDate: '2027-01-12', shipBy: '2027-01-05', expectedCompletion: '2027-01-13',
+        builderLevel: 'master', builderName: 'Ada Brightwater', firmTotal: '1120.00', deposit: '250.00', balanceDue: '870.00', currency: 'USD',
+        whatToShip: ['Octave fuzz', 'Tape-style delay', 'Your power supply with its mains lead, labelled with your name'],
+      },
+      withPublicUrl,
+      { bookingId: 'b-1' },
+    );
+    expect(text).toContain('- Octave fuzz');
+    expect(text).toContain('- Your power supply with its mains lead, labelled with your name');
+    expect(text).toContain('$1,120.00');
+    expect(text).toContain('$870.00');
+    expect(text).toContain('Tue 5 Jan 2027');
+    expect(text).toContain('See your booking: http://localhost:3000/builds/b-1');
+    expect(attachments[0].content).toContain('DTSTART;VALUE=DATE:20270105');
+  });
+
+  it('status-changed from the bench lists pedals found faulty at intake', () => {
+    const { text } = renderMail(
+      'status-changed',
+      { customerName: 'Rosa', reference: 'LW-1042', fromState: 'scheduled', state: 'pedals_received', note: '', faultyItems: [{ item: 'Phaser', note: 'crackles when the rate knob turns' }] },
+      shop,
+    );
+    expect(text).toContain('Phaser: crackles when the rate knob turns');
+  });
+
+  it('balance-requested from the bench shows the breakdown and the amount due', () => {
+    const { subject, text } = renderMail(
+      'balance-requested',
+      { customerName: 'Rosa', reference: 'LW-1042', firmTotal: '1120.00', extras: '45.00', depositPaid: '250.00', balanceDue: '915.00', currency: 'USD' },
+      shop,
+    );
+    expect(subject).toBe('Balance due for LW-1042: $915.00');
+    expect(text).toContain('Approved extras:');
+    expect(text).toContain('$45.00');
+  });
+
+  it('booking-declined from the bench says how much was refunded', () => {
+    const { text } = renderMail(
+      'booking-declined',
+      { customerName: 'Rosa', reference: 'LW-1042', reason: 'We do not wire mains inlets.', depositRefunded: true, refundAmount: '250.00', refundPending: false, currency: 'USD' },
+      shop,
+    );
+    expect(text).toContain('Your deposit of $250.00 is refunded in full');
   });
 });

@@ -8,6 +8,13 @@ export interface ShopContext {
   name: string;
   contactEmail: string;
   timezone: string;
+  /** The storefront's address, for links a caller did not give (a booking's page). */
+  publicUrl?: string;
+}
+
+/** Facts of the outbox row itself that a template may fall back on. */
+export interface MessageContext {
+  bookingId?: string | null;
 }
 
 export interface RenderedMail {
@@ -31,6 +38,26 @@ function money(data: Data, key = 'amount') {
 }
 
 const open = (label: string, url: string): Block => ({ kind: 'link', label, url });
+const openIf = (label: string, url: string | undefined): Block[] => (url ? [open(label, url)] : []);
+
+/** Callers name the recipient `name` or `customerName`. */
+function recipient(data: Data): string {
+  const value = optionalString(data, 'name') ?? optionalString(data, 'customerName');
+  if (!value) throw new MailDataError('the data has no "name" (or "customerName")');
+  return value;
+}
+
+function firstString(data: Data, ...keys: string[]): string | undefined {
+  for (const key of keys) {
+    const value = optionalString(data, key);
+    if (value) return value;
+  }
+  return undefined;
+}
+
+function strings(value: unknown): string[] {
+  return Array.isArray(value) ? value.filter((v): v is string => typeof v === 'string' && v.trim() !== '') : [];
+}
 
 // Packing and safety advice for the pedals, the supply and any switcher (common practice in the
 // trade, no published source): loose batteries leak and short in transit; pedals packed
@@ -48,11 +75,27 @@ function bookingScheduled(data: Data, shop: ShopContext): Draft {
   const shipBy = requireString(data, 'shipBy');
   const level = requireString(data, 'builderLevel');
   if (!levelWords[level]) throw new MailDataError(`the builder level "${level}" is not apprentice, journeyman or master`);
-  const pedals = Array.isArray(data.pedals) ? data.pedals.filter((p): p is string => typeof p === 'string') : [];
-  if (pedals.length === 0) throw new MailDataError('the data has no "pedals" (the list of pedals to bring)');
+  const pedals = strings(data.pedals);
+  const shipList = strings(data.whatToShip);
+  if (pedals.length === 0 && shipList.length === 0) {
+    throw new MailDataError('the data has no "pedals" or "whatToShip" (what the player must send)');
+  }
   const dropOff = data.handover === 'drop-off';
   const shipTo = optionalString(data, 'shipTo') ?? `${shop.name} (ask ${shop.contactEmail} for the address)`;
-  const bring = [
+  const currency = optionalString(data, 'currency');
+  const figures: [string, string][] = currency
+    ? (
+        [
+          ['Firm quote', optionalString(data, 'firmTotal')],
+          ['Deposit paid', optionalString(data, 'deposit')],
+          ['Balance due when the board is ready', optionalString(data, 'balanceDue')],
+        ] as [string, string | undefined][]
+      )
+        .filter((row): row is [string, string] => !!row[1])
+        .map(([label, amount]) => [label, formatMoney(amount, currency)])
+    : [];
+  // A caller's own list (pedals by name, supply, switcher) wins; otherwise build it from the pedals.
+  const bring = shipList.length ? shipList : [
     `Your pedals (${pedals.length}): ${pedals.join(', ')}.`,
     ...(data.powerSupply === false ? [] : ['Your power supply, with all its leads.']),
     ...(data.switcher === true ? ['Your loop switcher, with its power lead and any MIDI or control cables.'] : []),
@@ -72,7 +115,7 @@ function bookingScheduled(data: Data, shop: ShopContext): Draft {
     letter: {
       heading: `Your build has a bench date`,
       blocks: [
-        { kind: 'p', text: `Hello ${requireString(data, 'name')}, your build ${reference} is on our bench schedule.` },
+        { kind: 'p', text: `Hello ${recipient(data)}, your build ${reference} is on our bench schedule.` },
         {
           kind: 'facts',
           rows: [
@@ -81,6 +124,7 @@ function bookingScheduled(data: Data, shop: ShopContext): Draft {
             ['Builder', optionalString(data, 'builderName') ? `${data.builderName as string} (${levelWords[level]})` : levelWords[level]],
             ['Expected completion', formatDay(requireString(data, 'expectedCompletion'))],
             [dropOff ? 'Drop off at' : 'Ship to', shipTo],
+            ...figures,
           ],
         },
         { kind: 'list', title: `What to ${dropOff ? 'bring' : 'send'}`, items: bring },
@@ -90,7 +134,7 @@ function bookingScheduled(data: Data, shop: ShopContext): Draft {
           text: 'A loaded board in a road case is heavy: lift it with two people. Do not open or rewire your power supply; anything on the mains side is work for a qualified person under your local electrical codes.',
         },
         { kind: 'p', text: `The attached calendar file puts the ${dropOff ? 'drop-off' : 'shipping'} day in your calendar.` },
-        open('See your booking', requireString(data, 'bookingUrl')),
+        ...openIf('See your booking', optionalString(data, 'bookingUrl')),
       ],
     },
     attachments: [{ filename: `${reference}-${dropOff ? 'drop-off' : 'ship-by'}.ics`, contentType: 'text/calendar; charset=utf-8; method=PUBLISH', content: calendar }],
@@ -125,19 +169,33 @@ function statusChanged(data: Data): Draft {
   if (!words && !label) throw new MailDataError(`"${state}" is not a build state`);
   const note = optionalString(data, 'note');
   const tracking = optionalString(data, 'tracking');
+  const faulty = Array.isArray(data.faultyItems)
+    ? (data.faultyItems as { item?: unknown; note?: unknown }[])
+        .filter((f) => typeof f?.item === 'string')
+        .map((f) => (typeof f.note === 'string' && f.note.trim() ? `${f.item as string}: ${f.note}` : (f.item as string)))
+    : [];
   return {
     subject: `${words?.subject ?? `Your build is now: ${label}`} (${reference})`,
     letter: {
       heading: words?.heading ?? `Your build is now: ${label}`,
       blocks: [
-        { kind: 'p', text: `Hello ${requireString(data, 'name')}, an update on build ${reference}.` },
+        { kind: 'p', text: `Hello ${recipient(data)}, an update on build ${reference}.` },
         ...(words ? [{ kind: 'p' as const, text: words.text }] : []),
         ...(note ? [{ kind: 'p' as const, text: `From your builder: ${note}` }] : []),
+        ...(faulty.length
+          ? [
+              {
+                kind: 'list' as const,
+                title: 'Already faulty when it arrived (we will talk with you before the build starts)',
+                items: faulty,
+              },
+            ]
+          : []),
         ...(tracking ? [{ kind: 'facts' as const, rows: [['Tracking', tracking]] as [string, string][] }] : []),
         ...(state === 'delivered'
           ? [{ kind: 'caution' as const, text: 'A loaded board in a road case is heavy: lift it with two people. Check each pedal\'s voltage and polarity before you power up anything you add later.' }]
           : []),
-        open('See your booking', requireString(data, 'bookingUrl')),
+        ...openIf('See your booking', optionalString(data, 'bookingUrl')),
       ],
     },
   };
@@ -147,10 +205,12 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
   welcome: (data, shop) => ({
     subject: `Welcome to ${shop.name}`,
     letter: {
-      heading: `Welcome, ${requireString(data, 'name')}`,
+      heading: `Welcome, ${recipient(data)}`,
       blocks: [
         { kind: 'p', text: 'Your account is ready. You can configure a board, see a live estimate and request a build whenever you like.' },
-        ...(optionalString(data, 'signInUrl') ? [open('Sign in', data.signInUrl as string)] : []),
+        ...openIf('Configure a board', optionalString(data, 'configureUrl')),
+        ...openIf('Sign in', optionalString(data, 'signInUrl')),
+        ...openIf('Your account', optionalString(data, 'accountUrl')),
       ],
     },
   }),
@@ -159,7 +219,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
     letter: {
       heading: 'Reset your password',
       blocks: [
-        { kind: 'p', text: `Hello ${requireString(data, 'name')}, someone asked to reset the password of this account. If it was you, choose a new one with the link below.` },
+        { kind: 'p', text: `Hello ${recipient(data)}, someone asked to reset the password of this account. If it was you, choose a new one with the link below.` },
         open('Choose a new password', requireString(data, 'resetUrl')),
         { kind: 'facts', rows: [['Link works until', formatInstant(requireString(data, 'expiresAt'), shop.timezone)]] },
         { kind: 'p', text: 'If you did not ask for this, ignore this message: your password stays as it is.' },
@@ -173,16 +233,18 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       blocks: [
         {
           kind: 'p',
-          text: `Hello ${requireString(data, 'name')}, you have been invited to the shop's backoffice${data.role === 'owner' ? ' as an owner' : data.role === 'builder' ? ' as a builder' : ''}. Set your password with the link below.`,
+          text: `Hello ${recipient(data)}, ${optionalString(data, 'invitedBy') ? `${data.invitedBy as string} has` : 'you have been'} invited you to the shop's backoffice${
+            typeof data.level === 'string' ? ` as a ${data.level} builder` : data.role === 'owner' ? ' as an owner' : data.role === 'builder' ? ' as a builder' : ''
+          }. Set your password with the link below.`,
         },
-        open('Accept the invitation', requireString(data, 'inviteUrl')),
+        open('Accept the invitation', firstString(data, 'inviteUrl', 'acceptUrl') ?? requireString(data, 'inviteUrl')),
         ...(optionalString(data, 'expiresAt')
           ? [{ kind: 'facts' as const, rows: [['Invitation works until', formatInstant(data.expiresAt as string, shop.timezone)]] as [string, string][] }]
           : []),
       ],
     },
   }),
-  'booking-requested': (data) => {
+  'booking-requested': (data, shop) => {
     const reference = requireString(data, 'reference');
     const currency = requireString(data, 'currency');
     return {
@@ -190,16 +252,19 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       letter: {
         heading: 'Your build request is in',
         blocks: [
-          { kind: 'p', text: `Hello ${requireString(data, 'name')}, thank you for your request ${reference}.` },
+          { kind: 'p', text: `Hello ${recipient(data)}, thank you for your request ${reference}.` },
           {
             kind: 'facts',
             rows: [
               ['Estimate', `${formatMoney(requireString(data, 'totalLow'), currency)} to ${formatMoney(requireString(data, 'totalHigh'), currency)}`],
               ['Deposit to hold your place', formatMoney(requireString(data, 'deposit'), currency)],
+              ...(optionalString(data, 'quoteExpiresAt')
+                ? [['Estimate holds until', formatInstant(data.quoteExpiresAt as string, shop.timezone)] as [string, string]]
+                : []),
             ],
           },
           { kind: 'p', text: 'Your place in the queue is held once the deposit is paid. Pedals, power supply and switcher are yours and not part of the price.' },
-          open('Pay the deposit', requireString(data, 'bookingUrl')),
+          ...openIf('Pay the deposit', optionalString(data, 'bookingUrl')),
         ],
       },
     };
@@ -212,7 +277,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       letter: {
         heading: 'Thank you, your deposit is paid',
         blocks: [
-          { kind: 'p', text: `Hello ${requireString(data, 'name')}, we received your deposit for build ${reference}.` },
+          { kind: 'p', text: `Hello ${recipient(data)}, we received your deposit for build ${reference}.` },
           { kind: 'facts', rows: [['Deposit paid', money(data)], ...(expected ? [['Expected bench date', formatDay(expected)] as [string, string]] : [])] },
           {
             kind: 'list',
@@ -223,7 +288,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
               'Do not send anything yet: wait for that message.',
             ],
           },
-          open('See your booking', requireString(data, 'bookingUrl')),
+          ...openIf('See your booking', optionalString(data, 'bookingUrl')),
         ],
       },
     };
@@ -232,15 +297,26 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
   'status-changed': (data) => statusChanged(data),
   'balance-requested': (data) => {
     const reference = requireString(data, 'reference');
+    const currency = requireString(data, 'currency');
+    const due = formatMoney(firstString(data, 'amount', 'balanceDue') ?? requireString(data, 'amount'), currency);
+    const breakdown = (
+      [
+        ['Firm quote', optionalString(data, 'firmTotal')],
+        ['Approved extras', optionalString(data, 'extras')],
+        ['Deposit paid', optionalString(data, 'depositPaid')],
+      ] as [string, string | undefined][]
+    )
+      .filter((row): row is [string, string] => !!row[1])
+      .map(([label, amount]): [string, string] => [label, formatMoney(amount, currency)]);
     return {
-      subject: `Balance due for ${reference}: ${money(data)}`,
+      subject: `Balance due for ${reference}: ${due}`,
       letter: {
         heading: 'Your board is ready: the balance is due',
         blocks: [
-          { kind: 'p', text: `Hello ${requireString(data, 'name')}, build ${reference} is finished and tested.` },
-          { kind: 'facts', rows: [['Balance due', money(data)]] },
+          { kind: 'p', text: `Hello ${recipient(data)}, build ${reference} is finished and tested.` },
+          { kind: 'facts', rows: [...breakdown, ['Balance due', due]] },
           { kind: 'p', text: 'We ship your board, or you can collect it, as soon as the balance is paid.' },
-          open('Pay the balance', requireString(data, 'payUrl')),
+          ...openIf('Pay the balance', firstString(data, 'payUrl', 'bookingUrl')),
         ],
       },
     };
@@ -252,7 +328,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       letter: {
         heading: 'Your deposit has been refunded',
         blocks: [
-          { kind: 'p', text: `Hello ${requireString(data, 'name')}, we refunded the deposit for build ${reference}.` },
+          { kind: 'p', text: `Hello ${recipient(data)}, we refunded the deposit for build ${reference}.` },
           { kind: 'facts', rows: [['Refunded', money(data)]] },
           { kind: 'p', text: 'It goes back to the card you paid with; banks usually take 5 to 10 working days to show it.' },
         ],
@@ -266,9 +342,20 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       letter: {
         heading: 'We are sorry: we cannot take on this build',
         blocks: [
-          { kind: 'p', text: `Hello ${requireString(data, 'name')}, we looked at your request ${reference} and cannot build it.` },
+          { kind: 'p', text: `Hello ${recipient(data)}, we looked at your request ${reference} and cannot build it.` },
           { kind: 'facts', rows: [['Reason', requireString(data, 'reason')]] },
-          ...(data.depositRefunded === true ? [{ kind: 'p' as const, text: 'Your deposit is refunded in full; you will get a separate message when it has gone back.' }] : []),
+          ...(data.depositRefunded === true
+            ? [
+                {
+                  kind: 'p' as const,
+                  text: `Your deposit${
+                    optionalString(data, 'refundAmount') && optionalString(data, 'currency')
+                      ? ` of ${formatMoney(data.refundAmount as string, data.currency as string)}`
+                      : ''
+                  } is refunded in full${data.refundPending === true ? ' (the payment provider is still processing it)' : ''}; you will get a separate message when it has gone back.`,
+                },
+              ]
+            : []),
           { kind: 'p', text: 'Reply to this message if you would like to talk about a different build.' },
         ],
       },
@@ -280,7 +367,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
     const low = optionalString(data, 'totalLow');
     const high = optionalString(data, 'totalHigh');
     return {
-      subject: `New paid request ${reference} from ${requireString(data, 'customerName')}`,
+      subject: `New paid request ${reference} from ${recipient(data)}`,
       letter: {
         heading: 'A new request has paid its deposit',
         blocks: [
@@ -288,7 +375,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
             kind: 'facts',
             rows: [
               ['Booking', reference],
-              ['Player', `${requireString(data, 'customerName')} <${requireString(data, 'customerEmail')}>`],
+              ['Player', `${recipient(data)} <${requireString(data, 'customerEmail')}>`],
               ['Deposit paid', money(data)],
               ...(low && high ? [['Estimate', `${formatMoney(low, currency)} to ${formatMoney(high, currency)}`] as [string, string]] : []),
             ],
@@ -303,10 +390,15 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
 };
 
 /** Renders one outbox message; throws MailDataError (naming the key) when its data is incomplete. */
-export function renderMail(template: string, data: Data, shop: ShopContext): RenderedMail {
+export function renderMail(template: string, data: Data, shop: ShopContext, message: MessageContext = {}): RenderedMail {
   const draft = drafts[template as MailTemplate];
   if (!draft) throw new MailDataError(`there is no template called "${template}"`);
-  const { subject, letter, attachments } = draft(data ?? {}, shop);
+  const given = data ?? {};
+  // The booking's page: the caller's link, else the storefront's page for the outbox row's booking.
+  const bookingUrl =
+    firstString(given, 'bookingUrl', 'buildUrl') ??
+    (message.bookingId && shop.publicUrl ? `${shop.publicUrl}/builds/${message.bookingId}` : undefined);
+  const { subject, letter, attachments } = draft({ ...given, ...(bookingUrl ? { bookingUrl } : {}) }, shop);
   const full: Letter = { shopName: shop.name, ...letter };
   return { subject, html: letterHtml(full), text: letterText(full), attachments: attachments ?? [] };
 }
