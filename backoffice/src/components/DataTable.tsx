@@ -79,8 +79,11 @@ export function DataTable<T>(props: DataTableProps<T>) {
           sx={{
             '--TableCell-paddingX': '10px',
             '--TableCell-height': '36px',
-            '& thead th': { bgcolor: 'background.level1', verticalAlign: 'bottom' },
-            '& tbody tr[data-selected="true"]': { bgcolor: 'primary.50' },
+            '--TableRow-hoverBackground': 'var(--joy-palette-primary-50)',
+            // Columns size to their content (widths are hints), so a long name never crushes its neighbour.
+            tableLayout: 'auto',
+            '& thead th': { bgcolor: 'background.level1', verticalAlign: 'bottom', whiteSpace: 'nowrap' },
+            '& tbody tr[data-selected="true"]': { bgcolor: 'primary.100' },
             '& tbody tr[tabindex]': { cursor: 'pointer' },
             '& tbody tr:focus-visible': { outline: '3px solid', outlineColor: 'primary.500', outlineOffset: '-3px' },
           }}

@@ -58,7 +58,7 @@ export function Component() {
           {b.reference} · {b.customer.name}
         </Typography>
         <StateChip state={b.state} />
-        <Typography level="body-sm">{bookingStateLabels[b.state]}</Typography>
+        {bookingStateLabels[b.state] !== 'Scheduled' && <Typography level="body-sm">{bookingStateLabels[b.state]}</Typography>}
         <Box sx={{ flex: 1 }} />
         <Button component="a" href={`/api/bookings/${b.id}/build-sheet`} target="_blank" rel="noopener" variant="outlined" color="neutral">
           Print the build sheet (PDF)

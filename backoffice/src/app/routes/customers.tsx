@@ -18,7 +18,7 @@ const columns: Column<CustomerSummary>[] = [
   { id: 'phone', header: 'Phone', width: 140, render: (c) => c.phone ?? '—' },
   { id: 'builds', header: 'Builds', sortKey: 'buildCount', firstOrder: 'desc', align: 'right', width: 80, render: (c) => c.buildCount },
   { id: 'active', header: 'In progress', align: 'right', width: 100, render: (c) => c.activeBuildCount },
-  { id: 'last', header: 'Last request', width: 120, render: (c) => formatDay(c.lastBookingAt?.slice(0, 10)) },
+  { id: 'last', header: 'Last request', sortKey: 'lastBookingAt', firstOrder: 'desc', width: 120, render: (c) => formatDay(c.lastBookingAt?.slice(0, 10)) },
   { id: 'since', header: 'Customer since', sortKey: 'createdAt', firstOrder: 'desc', width: 130, render: (c) => formatDay(c.createdAt.slice(0, 10)) },
 ];
 

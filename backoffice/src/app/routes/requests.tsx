@@ -32,7 +32,7 @@ const depositWords: Record<DepositStatus, string> = {
 };
 
 const columns: Column<BookingSummary>[] = [
-  { id: 'reference', header: 'Reference', sortKey: 'reference', width: 100, render: (b) => <strong>{b.reference}</strong> },
+  { id: 'reference', header: 'Reference', sortKey: 'reference', width: 110, render: (b) => <strong>{b.reference}</strong> },
   { id: 'created', header: 'Requested', sortKey: 'created_at', firstOrder: 'desc', width: 150, render: (b) => formatStamp(b.createdAt) },
   {
     id: 'customer',
@@ -40,13 +40,13 @@ const columns: Column<BookingSummary>[] = [
     render: (b) => (
       <>
         {b.customer.name}
-        <Typography level="body-xs" sx={{ display: 'block' }}>
+        <Typography level="body-xs" sx={{ display: 'block', wordBreak: 'break-all' }}>
           {b.customer.email}
         </Typography>
       </>
     ),
   },
-  { id: 'rig', header: 'Rig', width: '28%', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
+  { id: 'rig', header: 'Rig', width: '24%', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
   { id: 'hours', header: 'Labor', align: 'right', width: 70, render: (b) => formatHours(b.laborHours) },
   {
     id: 'estimate',

@@ -14,6 +14,8 @@ export function BuildTag({ build }: { build: BenchBuild }) {
       underline="none"
       sx={{
         display: 'block',
+        minWidth: 0,
+        overflow: 'hidden',
         px: 0.75,
         py: 0.25,
         borderRadius: 'xs',
@@ -24,10 +26,10 @@ export function BuildTag({ build }: { build: BenchBuild }) {
         '&:hover': { bgcolor: 'primary.100' },
       }}
     >
-      <Typography level="body-xs" sx={{ fontWeight: 'lg', color: 'text.primary' }} noWrap>
+      <Typography level="body-xs" sx={{ display: 'block', fontWeight: 'lg', color: 'text.primary' }} noWrap>
         {build.reference} · {build.customerName}
       </Typography>
-      <Typography level="body-xs" noWrap>
+      <Typography level="body-xs" sx={{ display: 'block' }} noWrap>
         {formatHours(build.hours)} · {shortStateLabels[build.state]}
       </Typography>
     </Link>

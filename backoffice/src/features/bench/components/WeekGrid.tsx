@@ -16,8 +16,8 @@ export function WeekGrid({ view, days }: { view: BenchView; days: string[] }) {
         aria-label="Bench time per builder and day"
         sx={{
           display: 'grid',
-          gridTemplateColumns: `180px repeat(${days.length}, minmax(128px, 1fr))`,
-          minWidth: 180 + days.length * 128,
+          gridTemplateColumns: `150px repeat(${days.length}, minmax(112px, 1fr))`,
+          minWidth: 150 + days.length * 112,
           border: '1px solid',
           borderColor: 'divider',
           borderRadius: 'md',

@@ -1,4 +1,5 @@
 import Table from '@mui/joy/Table';
+import Decimal from 'decimal.js';
 import Typography from '@mui/joy/Typography';
 import type { QuoteView } from '@loomwright/shared';
 import { formatDay, formatMoney, formatMoneyRange } from 'src/lib/format';
@@ -23,11 +24,20 @@ export function EstimateLines({ quote }: { quote: QuoteView }) {
           </tr>
         </thead>
         <tbody>
-          {e.lines.map((line) => (
+          {e.lines.map((line) => {
+            // A firm quote prices labor at the assigned builder's own rate, not the level's range.
+            const firm = quote.kind === 'firm' && quote.hourlyRate !== null && line.kind === 'labor';
+            const unitPrice = firm ? quote.hourlyRate! : line.unitPrice;
+            const amount = firm
+              ? formatMoney(new Decimal(line.quantity).times(quote.hourlyRate!).toFixed(2), c)
+              : line.amountHigh
+                ? formatMoneyRange(line.amount, line.amountHigh, c)
+                : formatMoney(line.amount, c);
+            return (
             <tr key={line.code}>
               <td>
                 {line.label}
-                {line.explanation && (
+                {line.explanation && !firm && (
                   <Typography level="body-xs" sx={{ display: 'block' }}>
                     {line.explanation}
                   </Typography>
@@ -36,12 +46,14 @@ export function EstimateLines({ quote }: { quote: QuoteView }) {
               <td style={{ textAlign: 'right' }}>
                 {line.quantity} {line.unit}
               </td>
-              <td style={{ textAlign: 'right' }}>{formatMoney(line.unitPrice, c)}</td>
               <td style={{ textAlign: 'right' }}>
-                {line.amountHigh ? formatMoneyRange(line.amount, line.amountHigh, c) : formatMoney(line.amount, c)}
+                {formatMoney(unitPrice, c)}
+                {line.kind === 'labor' && !firm && line.amountHigh ? '+' : ''}
               </td>
+              <td style={{ textAlign: 'right' }}>{amount}</td>
             </tr>
-          ))}
+            );
+          })}
         </tbody>
         <tfoot>
           <tr>

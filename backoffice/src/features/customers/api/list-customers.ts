@@ -2,7 +2,7 @@ import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
 import type { CustomerPage } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
 
-export type CustomerSort = 'name' | 'email' | 'createdAt' | 'buildCount';
+export type CustomerSort = 'name' | 'email' | 'createdAt' | 'buildCount' | 'lastBookingAt';
 
 export interface CustomerListQuery {
   page: number;

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ShopClosureView } from '@loomwright/shared';
+import type { AddClosureResponse } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
 
 export interface ClosureInput {
@@ -8,7 +8,7 @@ export interface ClosureInput {
   reason: string;
 }
 
-export const addClosure = (body: ClosureInput) => api.post<ShopClosureView>('/settings/closures', body);
+export const addClosure = (body: ClosureInput) => api.post<AddClosureResponse>('/settings/closures', body);
 
 export const useAddClosure = () => {
   const queryClient = useQueryClient();

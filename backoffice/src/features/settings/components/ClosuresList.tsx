@@ -74,9 +74,14 @@ export function ClosuresList({ settings, canEdit, onSaved }: { settings: ShopSet
           noValidate
           onSubmit={form.handleSubmit((values) =>
             add.mutate(values, {
-              onSuccess: () => {
+              onSuccess: (added) => {
                 form.reset();
-                onSaved('Closure added; the bench skips those days.');
+                const clash = added.buildsOnBenchThen;
+                onSaved(
+                  clash.length === 0
+                    ? 'Closure added; the bench skips those days.'
+                    : `Closure added. Already on the bench then: ${clash.map((b) => `${b.reference} (${b.days.map(formatDay).join(', ')})`).join('; ')}. Move those builds.`,
+                );
               },
             }),
           )}

@@ -1,0 +1,131 @@
+import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
+
+/**
+ * The shop's half of the main journey: a paid request reaches the backoffice, a builder accepts it
+ * with the bench date the schedule suggests, and the build shows on the bench calendar that day.
+ * The paid request is made the way a player makes one: sign up, request a build, pay the deposit
+ * on the payment service's hosted page (the local fake, test card 4242 4242 4242 4242).
+ */
+
+const password = 'demo-pass-2026';
+const shots = (name: string) => `screenshots/backoffice-${name}.png`;
+
+async function paidRequest(baseURL: string, page: import('@playwright/test').Page) {
+  const player: APIRequestContext = await playwrightRequest.newContext({ baseURL });
+  const stamp = Date.now();
+  const name = `Marlo Quist ${stamp % 10000}`;
+  const signUp = await player.post('/api/auth/sign-up', {
+    data: { email: `marlo.${stamp}@mail.example`, password: 'a-long-test-pass', name },
+  });
+  expect(signUp.status(), await signUp.text()).toBe(201);
+
+  const catalog = await (await player.get('/api/catalog')).json();
+  const surface = catalog.surfaces[0];
+  const hardCase = catalog.cases.find((c: { notRecommended: boolean }) => !c.notRecommended);
+  const created = await player.post('/api/bookings', {
+    data: {
+      configuration: {
+        surfaceId: surface.id,
+        caseId: hardCase.id,
+        routing: { mode: 'serial' },
+        pedals: [
+          { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
+          { name: 'Green overdrive', kind: 'compact', powered: true, inLoop: false, currentMa: 12, voltage: 9 },
+          { name: 'Analog delay', kind: 'compact', powered: true, inLoop: false, currentMa: 40, voltage: 9 },
+        ],
+        functions: [],
+        level: 'master',
+      },
+      notes: 'Please keep the tuner first in the chain.',
+    },
+  });
+  expect(created.status(), await created.text()).toBe(201);
+  const booking = await created.json();
+
+  const checkout = await player.post(`/api/bookings/${booking.id}/checkout`);
+  expect(checkout.ok(), await checkout.text()).toBeTruthy();
+  const { url } = await checkout.json();
+
+  await page.goto(url);
+  await page.getByLabel('Card number').fill('4242 4242 4242 4242');
+  await page.getByLabel('Expiry (MM/YY)').fill('12/34');
+  await page.getByLabel('Security code').fill('123');
+  await page.getByRole('button', { name: /^Pay / }).click();
+  // A paid checkout sends the player back to the shop's own return page.
+  await page.waitForURL((target) => target.origin === new URL(baseURL).origin);
+
+  // The deposit counts as paid once the provider's signed webhook reaches the API.
+  await expect
+    .poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).depositStatus, { timeout: 20_000 })
+    .toBe('paid');
+  await player.dispose();
+  return { id: booking.id as string, reference: booking.reference as string, customerName: name };
+}
+
+test('a builder accepts a paid request at the suggested bench date and sees it on the bench', async ({ page, baseURL }) => {
+  const paid = await paidRequest(baseURL!, page);
+
+  await page.goto('/backoffice/sign-in');
+  await page.getByLabel('E-mail').fill('builder@shop.example');
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
+
+  // Find it the way the shop does: the requests table, narrowed to paid deposits, searched by customer.
+  await page.getByRole('navigation', { name: 'Backoffice' }).getByRole('link', { name: 'Requests' }).click();
+  await expect(page.getByRole('heading', { name: 'Requests' })).toBeVisible();
+  await page.getByRole('combobox', { name: 'Deposit' }).click();
+  await page.getByRole('option', { name: 'Paid', exact: true }).click();
+  await page.getByLabel('Search').fill(paid.customerName);
+  const row = page.getByRole('row').filter({ hasText: paid.reference });
+  await expect(row).toBeVisible();
+  await expect(row).toContainText('Deposit paid');
+  await page.screenshot({ path: shots('requests'), fullPage: true });
+
+  await row.click();
+  const panel = page.getByRole('dialog');
+  await expect(panel.getByRole('heading', { name: `${paid.reference} · ${paid.customerName}` })).toBeVisible();
+  await expect(panel.getByText('Please keep the tuner first in the chain.')).toBeVisible();
+  await expect(panel.getByRole('table', { name: 'Estimate lines' })).toBeVisible();
+  await page.screenshot({ path: shots('request-panel'), fullPage: true });
+  await panel.getByRole('button', { name: 'Accept…' }).click();
+
+  const accept = page.getByRole('dialog', { name: `Accept ${paid.reference} and set the bench date` });
+  await expect(accept.getByText(/Teodor Lind \(you\) · master/)).toBeVisible();
+  await expect(accept.getByRole('radio', { name: /Teodor Lind \(you\)/ })).toBeChecked();
+  const benchDateInput = accept.getByLabel('Bench date');
+  await expect(benchDateInput).toHaveValue(/^\d{4}-\d{2}-\d{2}$/);
+  const benchDate = await benchDateInput.inputValue();
+  await expect(accept.getByText(/^Suggested: the earliest day/)).toBeVisible();
+  await page.screenshot({ path: shots('accept-dialog'), fullPage: true });
+  await accept.getByRole('button', { name: 'Accept and schedule' }).click();
+  await expect(page.getByText(`${paid.reference} is scheduled with Teodor Lind`)).toBeVisible();
+
+  // The bench calendar for that week shows the build on the builder's own row, on that day.
+  await page.keyboard.press('Escape');
+  await page.goto(`/backoffice/bench?day=${benchDate}`);
+  const benchTable = page.getByRole('table', { name: 'Bench time per builder and day' });
+  await expect(benchTable).toBeVisible();
+  const ownRow = benchTable.getByRole('row').filter({ hasText: 'Teodor Lind (you)' });
+  await expect(ownRow.getByRole('link', { name: new RegExp(`${paid.reference} · ${paid.customerName}`) }).first()).toBeVisible();
+  // The first row under the header is the signed-in builder's own bench.
+  await expect(benchTable.getByRole('row').nth(1)).toContainText('Teodor Lind (you)');
+  await expect(ownRow).toContainText(/\d+(\.\d+)? of \d+(\.\d+)? h/);
+  await page.screenshot({ path: shots('bench-week'), fullPage: true });
+
+  await page.getByRole('button', { name: 'Month' }).click();
+  await expect(page.getByRole('region', { name: "Teodor Lind's bench this month" })).toBeVisible();
+  await page.screenshot({ path: shots('bench-month'), fullPage: true });
+
+  // And the API agrees: scheduled with that builder on that date.
+  const staff = page.request;
+  const detail = await (await staff.get(`/api/bookings/${paid.id}`)).json();
+  expect(detail.state).toBe('scheduled');
+  expect(detail.benchDate).toBe(benchDate);
+  expect(detail.builder.name).toBe('Teodor Lind');
+
+  await page.goto(`/backoffice/builds/${paid.id}`);
+  await expect(page.getByRole('heading', { name: `${paid.reference} · ${paid.customerName}` })).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Mark pedals received' })).toBeDisabled();
+  await page.screenshot({ path: shots('build-page'), fullPage: true });
+});
