@@ -15,7 +15,16 @@ export default defineConfig({
     },
   },
   server: { port: 5173, proxy: { '/api': apiTarget } },
-  build: { outDir: 'dist', sourcemap: false },
+  build: {
+    outDir: 'dist',
+    sourcemap: false,
+    manifest: true,
+    rollupOptions: {
+      // shared/ is pure (no I/O, no globals), so a page that needs one helper from its index
+      // must not carry the whole engine, zod and decimal.js along with it.
+      treeshake: { moduleSideEffects: (id: string) => !id.includes('/shared/src/') },
+    },
+  },
   test: {
     name: 'storefront',
     root: __dirname,

@@ -10,6 +10,7 @@ fi
 bash api/scripts/postgres.sh ensure-installed
 
 if [ ! -f shared/dist/index.js ] || [ ! -f api/dist/src/main.js ] || [ ! -f storefront/dist/index.html ] || [ ! -f backoffice/dist/index.html ]; then
+  export VITE_CONFIG_NATIVE_IGNORE_WARNING=true
   echo "[loomwright] Building the API and both apps…"
   npm run build
 fi

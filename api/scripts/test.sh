@@ -13,6 +13,7 @@ fi
 bash api/scripts/postgres.sh ensure-installed
 bash api/scripts/ensure-chromium.sh
 
+export VITE_CONFIG_NATIVE_IGNORE_WARNING=true
 echo "[loomwright] Building…"
 npm run build
 

@@ -9,6 +9,7 @@ import { CustomersModule } from './customers/customers.module';
 import { SettingsModule } from './settings/settings.module';
 import { TeamModule } from './team/team.module';
 import { BookingsModule } from './bookings/bookings.module';
+import { BuildSheetsModule } from './build-sheets/build-sheets.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
@@ -56,6 +57,7 @@ const servesApps = process.env.SERVE_APPS !== 'false';
     CustomersModule,
     PriceBookModule,
     EstimatesModule,
+    BuildSheetsModule,
   ],
 })
 export class AppModule {}

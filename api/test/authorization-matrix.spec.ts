@@ -2,6 +2,7 @@ import type { Express } from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from './support/test-app';
 import { sessionCookieFor } from './support/sessions';
+import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fake';
 
 /**
  * THE AUTHORIZATION MATRIX: every route the API registers, called as each kind of person, with
@@ -35,8 +36,10 @@ interface Fixtures {
   customerB: string;
   builderUser: string;
   builderId: string;
-  /** A booking (state 'requested') that belongs to customer A. */
+  /** A booking (state 'requested', priced by the API) that belongs to customer A. */
   bookingOfA: string;
+  /** Another of A's requested bookings, for the calls that would end the first one (cancel). */
+  spareBookingOfA: string;
 }
 
 interface Entry {
@@ -50,6 +53,9 @@ const signedIn = (s: Status): Entry => ({ expect: [401, s, s, s, s] });
 const staff = (s: Status): Entry => ({ expect: [401, 403, 403, s, s] });
 const ownerOnly = (s: Status): Entry => ({ expect: [401, 403, 403, 403, s] });
 const ownedByA = (s: Status, other: 403 | 404 = 404): Entry => ({ expect: [401, s, other, s, s] });
+
+/** A well-formed id that names nothing. */
+const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
 
 const matrix: Record<string, Entry> = {
   // API documentation (served by @nestjs/swagger outside the guards: open by design).
@@ -73,19 +79,80 @@ const matrix: Record<string, Entry> = {
   'POST /api/auth/password-reset/confirm': open(400),
   'POST /api/invitations': ownerOnly(400),
   'POST /api/invitations/accept': open(400),
+  // price book and estimates
+  'GET /api/catalog': open(200),
+  'POST /api/estimates': open(400),
+  'GET /api/price-book': staff(200),
+  'POST /api/price-book': ownerOnly(400),
+  // bookings (players own theirs; staff see all)
+  'GET /api/bookings': signedIn(200),
+  'POST /api/bookings': { expect: [401, 400, 400, 403, 403] },
+  'GET /api/bookings/:id': { ...ownedByA(200), path: (fx) => `/api/bookings/${fx.bookingOfA}` },
+  // Cancelling is the player's own act; staff decline instead.
+  'POST /api/bookings/:id/cancel': { expect: [401, 200, 404, 403, 403], path: (fx) => `/api/bookings/${fx.spareBookingOfA}/cancel` },
+  'POST /api/bookings/:id/shipment': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/shipment` },
+  'POST /api/bookings/:id/photos': { ...ownedByA(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/photos` },
+  'GET /api/bookings/:id/photos/:photoId': { expect: [401, 404, 404, 404, 404], path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}` },
+  // payments
+  'POST /api/bookings/:id/checkout': { expect: [401, 200, 404, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/checkout` },
+  'POST /api/bookings/:id/refund': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/refund` },
+  'POST /api/payments/webhook': open(400),
+  // the bench and builds
+  'GET /api/bench': staff(200),
+  'GET /api/bench/suggest': staff(400),
+  'POST /api/bookings/:id/accept': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/accept` },
+  'POST /api/bookings/:id/decline': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/decline` },
+  'POST /api/bookings/:id/state': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/state` },
+  'POST /api/bookings/:id/waive-balance': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/waive-balance` },
+  'GET /api/bookings/:id/time-entries': { ...staff(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/time-entries` },
+  'POST /api/bookings/:id/time-entries': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/time-entries` },
+  'GET /api/bookings/:id/intake': { ...staff(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/intake` },
+  'POST /api/bookings/:id/intake': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/intake` },
+  'GET /api/bookings/:id/extras': { ...ownedByA(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/extras` },
+  'POST /api/bookings/:id/extras': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/extras` },
+  'POST /api/bookings/:id/extras/:extraId/decision': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/extras/${UNKNOWN_ID}/decision` },
+  'POST /api/bookings/:id/layout/request': { ...staff(409), path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/request` },
+  'POST /api/bookings/:id/layout/approve': { expect: [401, 409, 403, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/approve` },
+  'GET /api/bookings/:id/build-sheet': { ...staff(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/build-sheet` },
+  // team, settings, customers, mail log
+  'GET /api/team': staff(200),
+  'PATCH /api/team/:builderId': { ...ownerOnly(400), path: (fx) => `/api/team/${fx.builderId}` },
+  'GET /api/settings': staff(200),
+  'PATCH /api/settings': ownerOnly(400),
+  'GET /api/settings/closures': ownerOnly(200),
+  'POST /api/settings/closures': ownerOnly(400),
+  'DELETE /api/settings/closures/:id': { ...ownerOnly(404), path: () => `/api/settings/closures/${UNKNOWN_ID}` },
+  'GET /api/customers': staff(200),
+  'GET /api/customers/:id': { ...staff(200), path: (fx) => `/api/customers/${fx.customerA}` },
+  'GET /api/mail': staff(200),
+  'POST /api/mail/:id/resend': { ...ownerOnly(404), path: () => `/api/mail/${UNKNOWN_ID}/resend` },
 };
 
-async function makeFixtures(t: TestApp): Promise<Fixtures> {
+async function makeFixtures(t: TestApp, cookieOfA: string): Promise<Fixtures> {
   const idOf = async (email: string) => (await t.db.selectFrom('users').select('id').where('email', '=', email).executeTakeFirstOrThrow()).id;
   const customerA = await idOf('player@mail.example');
   const builderUser = await idOf('builder@shop.example');
   const builder = await t.db.selectFrom('builders').select('id').where('user_id', '=', builderUser).executeTakeFirstOrThrow();
-  const booking = await t.db
-    .insertInto('bookings')
-    .values({ reference: 'LW-MATRIX-A', customer_id: customerA, state: 'requested', configuration: JSON.stringify({}) })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return { customerA, customerB: await idOf('cass@mail.example'), builderUser, builderId: builder.id, bookingOfA: booking.id };
+  // Real bookings, requested through the API, so every route sees the rows it would in use.
+  const catalog = (await t.http().get('/api/catalog').expect(200)).body;
+  const configuration = {
+    surfaceId: catalog.surfaces[0].id,
+    caseId: catalog.cases[0].id,
+    routing: { mode: 'serial' },
+    pedalCount: 6,
+    functions: [],
+    level: 'journeyman',
+  };
+  const request = async () =>
+    (await t.http().post('/api/bookings').set('Cookie', cookieOfA).send({ configuration }).expect(201)).body.id as string;
+  return {
+    customerA,
+    customerB: await idOf('cass@mail.example'),
+    builderUser,
+    builderId: builder.id,
+    bookingOfA: await request(),
+    spareBookingOfA: await request(),
+  };
 }
 
 /** "METHOD /path" for every route on the Express router (Express 5 keeps them in app.router.stack). */
@@ -104,10 +171,21 @@ describe('authorization matrix: every route, every kind of caller', () => {
   let fx: Fixtures;
   let cookies: Record<Who, string | undefined>;
 
+  let fake: PaymentFake;
+
   beforeAll(async () => {
+    // The payment fake runs in-process so checkout and refund reach a provider, as in use.
+    fake = await startPaymentFake({ port: 0, webhookSecret: 'whsec_matrix_0123456789' });
     // The matrix calls each throttled route five times; keep the limit out of its way.
-    t = await createTestApp({ env: { AUTH_THROTTLE_LIMIT: '1000' } });
-    fx = await makeFixtures(t);
+    t = await createTestApp({
+      env: {
+        AUTH_THROTTLE_LIMIT: '1000',
+        STRIPE_API_HOST: '127.0.0.1',
+        STRIPE_API_PORT: String(fake.port),
+        STRIPE_API_PROTOCOL: 'http',
+        STRIPE_WEBHOOK_SECRET: 'whsec_matrix_0123456789',
+      },
+    });
     cookies = {
       anonymous: undefined,
       customerA: await sessionCookieFor(t, 'customerA'),
@@ -115,8 +193,12 @@ describe('authorization matrix: every route, every kind of caller', () => {
       builder: await sessionCookieFor(t, 'builder'),
       owner: await sessionCookieFor(t, 'owner'),
     };
+    fx = await makeFixtures(t, cookies.customerA!);
   });
-  afterAll(async () => t.close());
+  afterAll(async () => {
+    await t.close();
+    await fake.close();
+  });
 
   it('has exactly one line for every registered route', () => {
     const routes = registeredRoutes(t);

@@ -10,3 +10,4 @@ export * from './bench-types';
 export * from './estimate/estimate-engine';
 export * from './auth-schemas';
 export * from './booking-schemas';
+export * from './mail-types';

@@ -29,6 +29,8 @@ const environmentSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().default('Copperline Rig Works <bench@shop.example>'),
+  MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(8),
   UPLOADS_DIR: z.string().default('.data/uploads'),
   SERVE_APPS: z.enum(['true', 'false']).default('true'),
   SEED_DEMO: z.enum(['true', 'false']).default('true'),
@@ -81,6 +83,8 @@ export function configuration() {
       user: env.SMTP_USER,
       password: env.SMTP_PASSWORD,
       from: env.MAIL_FROM,
+      retryDelaySeconds: env.MAIL_RETRY_DELAY_SECONDS,
+      maxAttempts: env.MAIL_MAX_ATTEMPTS,
     },
   };
 }

@@ -234,6 +234,9 @@ export interface MailOutboxTable {
   dedupe_key: string | null;
   created_at: Generated<Timestamp>;
   sent_at: NullableTimestamp;
+  claimed_at: NullableTimestamp;
+  last_attempt_at: NullableTimestamp;
+  resent_from_id: string | null;
 }
 
 export interface DB {

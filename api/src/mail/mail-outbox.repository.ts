@@ -1,7 +1,16 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
+import { sql } from 'kysely';
+import type { MailState } from '@loomwright/shared';
 import { Database, Executor } from '../database/database';
 import type { OutgoingMail } from './mail.types';
+
+export interface MailListFilter {
+  page: number;
+  pageSize: number;
+  state?: MailState;
+  q?: string;
+}
 
 @Injectable()
 export class MailOutboxRepository {
@@ -23,5 +32,126 @@ export class MailOutboxRepository {
       .onConflict((oc) => oc.column('dedupe_key').doNothing())
       .returning(['id', 'message_id'])
       .executeTakeFirst();
+  }
+
+  /** A copy of a message under a new Message-ID, linked to the one it repeats. */
+  insertResend(originalId: string, domain: string, trx: Executor = this.db) {
+    return trx
+      .insertInto('mail_outbox')
+      .columns(['message_id', 'template', 'to_address', 'data', 'booking_id', 'user_id', 'resent_from_id'])
+      .expression(
+        trx
+          .selectFrom('mail_outbox')
+          .select([
+            sql<string>`${`<${randomUUID()}@${domain}>`}`.as('message_id'),
+            'template',
+            'to_address',
+            'data',
+            'booking_id',
+            'user_id',
+            'id',
+          ])
+          .where('id', '=', originalId),
+      )
+      .returning(['id', 'message_id'])
+      .executeTakeFirst();
+  }
+
+  findById(id: string, trx: Executor = this.db) {
+    return trx.selectFrom('mail_outbox').selectAll().where('id', '=', id).executeTakeFirst();
+  }
+
+  /**
+   * The claim: queued → sending in one statement under a row lock. `for update skip locked`
+   * means two senders that race for the same row never both get it: the loser sees no row.
+   */
+  claim(id: string, trx: Executor = this.db) {
+    return trx
+      .updateTable('mail_outbox')
+      .set({ state: 'sending', attempts: sql`attempts + 1`, claimed_at: sql`now()`, last_attempt_at: sql`now()` })
+      .where('id', '=', (eb) =>
+        eb.selectFrom('mail_outbox').select('id').where('id', '=', id).where('state', '=', 'queued').forUpdate().skipLocked(),
+      )
+      .returningAll()
+      .executeTakeFirst();
+  }
+
+  markSent(id: string, subject: string, trx: Executor = this.db) {
+    return trx
+      .updateTable('mail_outbox')
+      .set({ state: 'sent', sent_at: sql`now()`, subject, last_error: null, claimed_at: null })
+      .where('id', '=', id)
+      .where('state', '=', 'sending')
+      .executeTakeFirst();
+  }
+
+  /** After a definite refusal: back in the queue for the next attempt, or failed for good. */
+  release(id: string, state: 'queued' | 'failed', error: string, subject: string | null, trx: Executor = this.db) {
+    return trx
+      .updateTable('mail_outbox')
+      .set({ state, last_error: error.slice(0, 2000), claimed_at: null, subject: sql`coalesce(${subject}, subject)` })
+      .where('id', '=', id)
+      .where('state', '=', 'sending')
+      .executeTakeFirst();
+  }
+
+  /** Queued rows, oldest first (for "deliver everything now"). */
+  queuedIds(limit: number, trx: Executor = this.db) {
+    return trx
+      .selectFrom('mail_outbox')
+      .select('id')
+      .where('state', '=', 'queued')
+      .orderBy('created_at')
+      .limit(limit)
+      .execute()
+      .then((rows) => rows.map((r) => r.id));
+  }
+
+  /**
+   * Queued rows whose delivery job has evidently gone missing: still waiting well past the time
+   * their next try was due (the retry delay doubled per attempt, plus a grace period).
+   */
+  overdueIds(retryDelaySeconds: number, graceSeconds: number, limit: number, trx: Executor = this.db) {
+    return trx
+      .selectFrom('mail_outbox')
+      .select('id')
+      .where('state', '=', 'queued')
+      .where(
+        sql<boolean>`coalesce(last_attempt_at, created_at)
+          + make_interval(secs => ${retryDelaySeconds}::double precision * power(2, least(attempts, 12)) + ${graceSeconds}::double precision)
+          < now()`,
+      )
+      .orderBy('created_at')
+      .limit(limit)
+      .execute()
+      .then((rows) => rows.map((r) => r.id));
+  }
+
+  /** Claims older than the lease whose sender stopped mid-send: their outcome is unknown. */
+  failStaleClaims(leaseSeconds: number, error: string, trx: Executor = this.db) {
+    return trx
+      .updateTable('mail_outbox')
+      .set({ state: 'failed', last_error: error, claimed_at: null })
+      .where('state', '=', 'sending')
+      .where(sql<boolean>`claimed_at < now() - make_interval(secs => ${leaseSeconds}::double precision)`)
+      .returning('id')
+      .execute();
+  }
+
+  async list(filter: MailListFilter, trx: Executor = this.db) {
+    let query = trx.selectFrom('mail_outbox');
+    if (filter.state) query = query.where('state', '=', filter.state);
+    if (filter.q) query = query.where(sql<boolean>`lower(to_address) like ${`%${filter.q.toLowerCase().replace(/[\\%_]/g, '\\$&')}%`}`);
+    const [rows, count] = await Promise.all([
+      query
+        .selectAll()
+        .orderBy('created_at', 'desc')
+        .orderBy('id', 'desc')
+        .limit(filter.pageSize)
+        .offset((filter.page - 1) * filter.pageSize)
+        .execute(),
+      query.select((eb) => eb.fn.countAll<string>().as('total')).executeTakeFirstOrThrow(),
+    ]);
+    return { rows, total: Number(count.total) };
   }
 }

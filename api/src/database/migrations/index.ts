@@ -1,6 +1,7 @@
 import type { Migration } from 'kysely';
 import * as foundation from './20261201_0001_foundation';
 import * as domain from './20261201_0002_domain';
+import * as mailDelivery from './20261201_0400_mail_delivery';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -9,4 +10,5 @@ import * as domain from './20261201_0002_domain';
 export const migrations: Record<string, Migration> = {
   '20261201_0001_foundation': foundation,
   '20261201_0002_domain': domain,
+  '20261201_0400_mail_delivery': mailDelivery,
 };

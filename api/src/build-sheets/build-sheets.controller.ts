@@ -1,0 +1,20 @@
+import { Controller, Get, Param, ParseUUIDPipe, StreamableFile } from '@nestjs/common';
+import { ApiNotFoundResponse, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import { Roles } from '../auth/roles.decorator';
+import { BuildSheetsService } from './build-sheets.service';
+
+@ApiTags('build sheets')
+@Controller('bookings')
+export class BuildSheetsController {
+  constructor(private readonly buildSheets: BuildSheetsService) {}
+
+  @Roles('builder', 'owner')
+  @Get(':id/build-sheet')
+  @ApiProduces('application/pdf')
+  @ApiOkResponse({ description: 'A printable PDF: signal chain, loops, power, cable schedule, functions, notes and bench cautions.' })
+  @ApiNotFoundResponse({ description: 'No such booking, or it has no quote yet.' })
+  async buildSheet(@Param('id', new ParseUUIDPipe({ errorHttpStatusCode: 400 })) id: string) {
+    const { reference, pdf } = await this.buildSheets.render(id);
+    return new StreamableFile(pdf, { type: 'application/pdf', disposition: `inline; filename="build-sheet-${reference}.pdf"`, length: pdf.length });
+  }
+}

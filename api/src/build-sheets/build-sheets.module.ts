@@ -1,0 +1,8 @@
+import { Module } from '@nestjs/common';
+import { PriceBookModule } from '../price-book/price-book.module';
+import { BuildSheetsController } from './build-sheets.controller';
+import { BuildSheetsRepository } from './build-sheets.repository';
+import { BuildSheetsService } from './build-sheets.service';
+
+@Module({ imports: [PriceBookModule], controllers: [BuildSheetsController], providers: [BuildSheetsService, BuildSheetsRepository], exports: [BuildSheetsService] })
+export class BuildSheetsModule {}

@@ -1,0 +1,51 @@
+import { Injectable, NotFoundException } from '@nestjs/common';
+import { bookingStateLabels, estimateRig, type EstimateResult, type RigChecks } from '@loomwright/shared';
+import { PriceBookService } from '../price-book/price-book.service';
+import { renderBuildSheet } from './build-sheet-document';
+import { BuildSheetsRepository } from './build-sheets.repository';
+
+@Injectable()
+export class BuildSheetsService {
+  constructor(
+    private readonly sheets: BuildSheetsRepository,
+    private readonly priceBook: PriceBookService,
+  ) {}
+
+  /**
+   * The sheet is printed from the quote as priced: its configuration and its price book version,
+   * so a later price change never alters what the bench builds from.
+   */
+  async render(bookingId: string): Promise<{ reference: string; pdf: Buffer }> {
+    const booking = await this.sheets.findBooking(bookingId);
+    if (!booking) throw new NotFoundException(`No booking ${bookingId}`);
+    const quote = await this.sheets.findLatestQuote(bookingId);
+    if (!quote) throw new NotFoundException(`Booking ${booking.reference} has no quote yet`);
+    const published = await this.priceBook.version(quote.price_book_version);
+    // The foreign key keeps the version; its absence means the database was edited by hand.
+    if (!published) throw new NotFoundException(`Price book version ${quote.price_book_version} of this quote is missing`);
+    const book = published.book;
+    const configuration = quote.configuration;
+    // Quotes written before the checks existed are re-derived from their own version.
+    let estimate: EstimateResult = quote.estimate;
+    if (!estimate.checks) estimate = estimateRig(configuration, book, { version: quote.price_book_version });
+    const checks = estimate.checks as RigChecks;
+    const pdf = await renderBuildSheet({
+      shopName: (await this.sheets.findShopName())?.name ?? 'Loomwright',
+      reference: booking.reference,
+      stateLabel: bookingStateLabels[booking.state],
+      customer: `${booking.customer_name} <${booking.customer_email}>`,
+      builder: booking.builder_name ? `${booking.builder_name} (${booking.builder_level})` : null,
+      benchDate: booking.bench_date,
+      expectedCompletion: booking.expected_completion,
+      configuration,
+      customerNotes: booking.customer_notes,
+      estimate,
+      checks,
+      functions: configuration.functions.map((code) => book.functions.find((f) => f.code === code)).filter((f) => f !== undefined),
+      surfaceName: book.surfaces.find((s) => s.id === configuration.surfaceId)?.name ?? configuration.surfaceId,
+      caseName: book.cases.find((c) => c.id === configuration.caseId)?.name ?? configuration.caseId,
+      printedAt: new Date(),
+    });
+    return { reference: booking.reference, pdf };
+  }
+}

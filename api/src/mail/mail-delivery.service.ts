@@ -1,0 +1,111 @@
+import { Injectable, Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import type { AppConfig } from '../config/configuration';
+import { ShopService } from '../shop/shop.service';
+import { MailOutboxRepository } from './mail-outbox.repository';
+import { classifySmtpError, describeSmtpError, MailTransport } from './mail-transport';
+import { MailDataError, renderMail, type RenderedMail } from './templates/render';
+
+export type DeliveryOutcome = 'sent' | 'retry' | 'failed' | 'skipped';
+
+/** How long a claim may stay in 'sending' before we conclude its sender died mid-send. */
+export const SEND_LEASE_SECONDS = 15 * 60;
+
+export const OUTCOME_UNKNOWN =
+  'Delivery outcome unknown: the sender stopped while handing the message to the mail server. ' +
+  'It was not retried, so the recipient cannot get it twice; resend it if it never arrived.';
+
+/**
+ * Delivers outbox rows, one at a time.
+ *
+ * The guarantee, precisely:
+ * 1. A row is handed to SMTP only by the sender that moved it queued → sending (one UPDATE under a
+ *    `for update skip locked` row lock, committed before the send). Concurrent senders — the
+ *    worker's retries, a second replica, deliverPending() — cannot both win that claim.
+ * 2. A row in 'sent' is never claimed again; a retried job (pg-boss retries a job whose handler
+ *    crashed after the mail went out) finds nothing to claim and ends.
+ * 3. Only a definite "not taken" goes back to 'queued': a refused connection, or an SMTP 4yz reply.
+ *    A 5yz reply, or data the template cannot render, ends in 'failed' with the reason.
+ * 4. A claim whose outcome is unknown — no reply after the body was sent, or a sender that died
+ *    between the claim and marking it sent (found by the sweep after SEND_LEASE_SECONDS) — ends
+ *    in 'failed' with OUTCOME_UNKNOWN, never re-sent by itself: the owner decides in the mail log.
+ * So no automatic path hands one row to the mail server twice, and no row is dropped silently:
+ * each ends 'sent' or 'failed' with its reason in the log. Every send carries the row's stable
+ * Message-ID (RFC 5322 §3.6.4), so even a copy the owner resends by hand is recognisable.
+ */
+@Injectable()
+export class MailDeliveryService {
+  private readonly logger = new Logger('Mail');
+  private readonly maxAttempts: number;
+
+  constructor(
+    private readonly outbox: MailOutboxRepository,
+    private readonly transport: MailTransport,
+    private readonly shop: ShopService,
+    config: ConfigService<AppConfig, true>,
+  ) {
+    this.maxAttempts = config.get('mail', { infer: true }).maxAttempts;
+  }
+
+  async deliverOne(id: string): Promise<DeliveryOutcome> {
+    const row = await this.outbox.claim(id);
+    if (!row) return 'skipped';
+
+    let rendered: RenderedMail;
+    try {
+      const shop = await this.shop.profile();
+      rendered = renderMail(row.template, row.data, shop);
+    } catch (error) {
+      const permanent = error instanceof MailDataError;
+      const reason = permanent ? `The message cannot be written: ${(error as Error).message}.` : describeSmtpError(error);
+      const final = permanent || row.attempts >= this.maxAttempts;
+      await this.outbox.release(id, final ? 'failed' : 'queued', reason, null);
+      return final ? 'failed' : 'retry';
+    }
+
+    try {
+      await this.transport.send({
+        to: row.to_address,
+        subject: rendered.subject,
+        text: rendered.text,
+        html: rendered.html,
+        messageId: row.message_id,
+        headers: { 'X-Loomwright-Template': row.template },
+        attachments: rendered.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: a.content })),
+      });
+    } catch (error) {
+      const verdict = classifySmtpError(error);
+      const reason = describeSmtpError(error);
+      if (verdict === 'unknown') {
+        await this.outbox.release(id, 'failed', `${OUTCOME_UNKNOWN} (${reason})`, rendered.subject);
+        return 'failed';
+      }
+      const final = verdict === 'permanent' || row.attempts >= this.maxAttempts;
+      await this.outbox.release(id, final ? 'failed' : 'queued', reason, rendered.subject);
+      if (final) this.logger.warn(`Mail ${row.message_id} to ${row.to_address} failed for good: ${reason}`);
+      return final ? 'failed' : 'retry';
+    }
+
+    // If this update is lost (the database went away), the row stays 'sending' and the sweep marks
+    // it OUTCOME_UNKNOWN later: it is never sent again automatically.
+    await this.outbox.markSent(id, rendered.subject);
+    return 'sent';
+  }
+
+  /**
+   * Tries every queued message now, ignoring backoff: for tests, and for anyone who must flush
+   * the outbox by hand. Safe beside a running worker (the claim decides who sends).
+   */
+  async deliverPending(limit = 500): Promise<Record<DeliveryOutcome, number>> {
+    const counts: Record<DeliveryOutcome, number> = { sent: 0, retry: 0, failed: 0, skipped: 0 };
+    for (const id of await this.outbox.queuedIds(limit)) counts[await this.deliverOne(id)] += 1;
+    return counts;
+  }
+
+  /** Marks claims left by a dead sender as failed with an unknown outcome (see the guarantee). */
+  async failStaleClaims(leaseSeconds = SEND_LEASE_SECONDS) {
+    const rows = await this.outbox.failStaleClaims(leaseSeconds, OUTCOME_UNKNOWN);
+    if (rows.length) this.logger.warn(`${rows.length} message(s) had an unknown outcome after a sender stopped`);
+    return rows.length;
+  }
+}

@@ -1,0 +1,103 @@
+import { Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { CompiledQuery } from 'kysely';
+import PgBoss from 'pg-boss';
+import type { AppConfig } from '../config/configuration';
+import type { Executor } from '../database/database';
+import { MailDeliveryService } from './mail-delivery.service';
+import { MailOutboxRepository } from './mail-outbox.repository';
+
+export const DELIVER_QUEUE = 'mail-deliver';
+export const SWEEP_QUEUE = 'mail-sweep';
+
+interface DeliverJob {
+  outboxId: string;
+}
+
+/**
+ * Runs mail delivery from pg-boss (its own `pgboss` schema in the same database).
+ *
+ * How a message gets from the outbox to a job, and why: the outbox row is the record; a pg-boss job
+ * is only the wake-up call. When the worker runs, enqueue() inserts the job with pg-boss's `db`
+ * option on the caller's own transaction, so row and job commit or vanish together and delivery
+ * starts within a poll (about a second) of the commit. A minutely pg-boss schedule sweeps up
+ * whatever has no job: rows queued while no worker ran (tests, a replica with RUN_WORKERS=false),
+ * rows whose retries outlived their job, and claims left by a dead sender. A sweep alone would
+ * also be correct, but would make every message wait up to a minute.
+ *
+ * Retries and backoff are pg-boss's: a job whose delivery was refused throws, and pg-boss runs it
+ * again after retryDelay × 2^n seconds (with jitter). The `stately` policy with the outbox id as
+ * singletonKey keeps at most one waiting job per message.
+ */
+@Injectable()
+export class MailWorker implements OnApplicationBootstrap, OnApplicationShutdown {
+  private readonly logger = new Logger('MailWorker');
+  private boss: PgBoss | null = null;
+
+  constructor(
+    private readonly config: ConfigService<AppConfig, true>,
+    private readonly delivery: MailDeliveryService,
+    private readonly outbox: MailOutboxRepository,
+  ) {}
+
+  get running() {
+    return this.boss !== null;
+  }
+
+  async onApplicationBootstrap() {
+    if (this.config.get('app', { infer: true }).runWorkers) await this.start();
+  }
+
+  async start() {
+    if (this.boss) return;
+    const { retryDelaySeconds, maxAttempts } = this.config.get('mail', { infer: true });
+    const boss = new PgBoss({ connectionString: this.config.get('database', { infer: true }).url, schema: 'pgboss', max: 3 });
+    boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
+    await boss.start();
+    await boss.createQueue(DELIVER_QUEUE, {
+      name: DELIVER_QUEUE,
+      policy: 'stately',
+      // Headroom over our own attempt count: a job can also run without claiming anything.
+      retryLimit: maxAttempts + 2,
+      retryDelay: retryDelaySeconds,
+      retryBackoff: true,
+      expireInSeconds: 5 * 60,
+    });
+    await boss.createQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, policy: 'singleton', retryLimit: 0 });
+    await boss.work<DeliverJob>(DELIVER_QUEUE, { pollingIntervalSeconds: 1, batchSize: 1 }, async ([job]) => {
+      const outcome = await this.delivery.deliverOne(job.data.outboxId);
+      // Throwing hands the job back to pg-boss for a later retry with backoff.
+      if (outcome === 'retry') throw new Error(`Delivery of ${job.data.outboxId} was refused; retrying later`);
+    });
+    await boss.work(SWEEP_QUEUE, { pollingIntervalSeconds: 5 }, () => this.sweep());
+    await boss.schedule(SWEEP_QUEUE, '* * * * *');
+    this.boss = boss;
+    // Whatever was queued while no worker ran.
+    await this.sweep(true);
+    this.logger.log('Mail worker started');
+  }
+
+  /** Sends a delivery job on the given executor (the caller's transaction, when there is one). */
+  async scheduleDelivery(outboxId: string, trx?: Executor) {
+    if (!this.boss) return null;
+    const db = trx ? { executeSql: (text: string, values: unknown[]) => trx.executeQuery(CompiledQuery.raw(text, values)) } : undefined;
+    return this.boss.send(DELIVER_QUEUE, { outboxId } satisfies DeliverJob, { singletonKey: outboxId, ...(db ? { db } : {}) });
+  }
+
+  async sweep(everything = false) {
+    await this.delivery.failStaleClaims();
+    const { retryDelaySeconds } = this.config.get('mail', { infer: true });
+    const ids = everything ? await this.outbox.queuedIds(1000) : await this.outbox.overdueIds(retryDelaySeconds, 120, 1000);
+    for (const id of ids) await this.scheduleDelivery(id);
+  }
+
+  async stop() {
+    const boss = this.boss;
+    this.boss = null;
+    if (boss) await boss.stop({ graceful: true, timeout: 10_000, wait: true });
+  }
+
+  async onApplicationShutdown() {
+    await this.stop();
+  }
+}

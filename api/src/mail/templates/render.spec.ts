@@ -1,0 +1,189 @@
+import ICAL from 'ical.js';
+import { describe, expect, it } from 'vitest';
+import { mailTemplates } from '../mail.types';
+import { formatDay, formatMoney } from './format';
+import { MailDataError, renderMail, type ShopContext } from './render';
+
+const shop: ShopContext = { name: 'Copperline Rig Works', contactEmail: 'bench@shop.example', timezone: 'America/Chicago' };
+
+const scheduled = {
+  name: 'Rosa Delgado-Finch',
+  reference: 'LW-1042',
+  benchDate: '2027-01-12',
+  shipBy: '2027-01-08',
+  builderLevel: 'journeyman',
+  builderName: 'Wren Calloway',
+  expectedCompletion: '2027-01-15',
+  pedals: ['tuner', 'fuzz', 'analog delay', 'plate reverb'],
+  switcher: true,
+  bookingUrl: 'http://localhost:3000/builds/abc',
+};
+
+const samples: Record<(typeof mailTemplates)[number], Record<string, unknown>> = {
+  welcome: { name: 'Rosa', signInUrl: 'http://localhost:3000/sign-in' },
+  'password-reset': { name: 'Rosa', resetUrl: 'http://localhost:3000/reset?token=t0k3n', expiresAt: '2027-01-12T20:30:00Z' },
+  'staff-invite': { name: 'Ivo', inviteUrl: 'http://localhost:3000/backoffice/invite?token=inv1', role: 'builder' },
+  'booking-requested': { name: 'Rosa', reference: 'LW-1042', totalLow: '1120.00', totalHigh: '1400.5', deposit: '280.00', currency: 'USD', bookingUrl: 'http://x/b' },
+  'deposit-received': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD', bookingUrl: 'http://x/b', expectedBenchDate: '2027-01-12' },
+  'booking-scheduled': scheduled,
+  'status-changed': { name: 'Rosa', reference: 'LW-1042', state: 'pedals_received', bookingUrl: 'http://x/b' },
+  'balance-requested': { name: 'Rosa', reference: 'LW-1042', amount: '1234567.8', currency: 'USD', payUrl: 'http://x/pay' },
+  'deposit-refunded': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD' },
+  'booking-declined': { name: 'Rosa', reference: 'LW-1042', reason: 'The rig needs a 14-loop switcher we cannot mount on that surface.' },
+  'shop-new-paid-request': { reference: 'LW-1042', customerName: 'Rosa', customerEmail: 'rosa@mail.example', amount: '280.00', currency: 'USD', backofficeUrl: 'http://x/backoffice/requests/1' },
+};
+
+describe('formatting', () => {
+  it('shows money with the currency symbol, thousands separators and the minor unit', () => {
+    // ISO 4217: USD has 2 minor-unit digits, JPY 0 (the Intl tables follow it).
+    expect(formatMoney('1120', 'USD')).toBe('$1,120.00');
+    expect(formatMoney('1234567.8', 'USD')).toBe('$1,234,567.80');
+    expect(formatMoney('3500', 'JPY')).toBe('¥3,500');
+    // A decimal string is formatted exactly: no binary float would print this 0.1 + 0.2 as .30.
+    expect(formatMoney('0.30', 'USD')).toBe('$0.30');
+    expect(() => formatMoney('12,50', 'USD')).toThrow(MailDataError);
+  });
+
+  it('shows a calendar day with its weekday', () => {
+    // 12 Jan 2027 is a Tuesday and 29 Feb 2028 a Tuesday (checked against a printed calendar, from memory).
+    expect(formatDay('2027-01-12')).toBe('Tue 12 Jan 2027');
+    expect(formatDay('2028-02-29')).toBe('Tue 29 Feb 2028');
+    expect(() => formatDay('12/01/2027')).toThrow(MailDataError);
+  });
+});
+
+describe('every template', () => {
+  it.each(mailTemplates)('%s renders HTML and plain text with the shop name', (template) => {
+    const mail = renderMail(template, samples[template], shop);
+    expect(mail.subject.length).toBeGreaterThan(5);
+    expect(mail.html).toContain('Copperline Rig Works');
+    expect(mail.text).toContain('Copperline Rig Works');
+    expect(mail.html).toMatch(/^<!doctype html>/);
+    expect(mail.text).not.toMatch(/<\/?(p|table|a|div|h1|ul|li)\b/i);
+  });
+
+  it.each(mailTemplates.filter((t) => t !== 'welcome'))('%s refuses data without its required keys, naming one', (template) => {
+    expect(() => renderMail(template, {}, shop)).toThrow(/the data has no "\w+"/);
+  });
+
+  it('rejects an unknown template by name', () => {
+    expect(() => renderMail('newsletter', {}, shop)).toThrow('there is no template called "newsletter"');
+  });
+
+  it('escapes what a player typed into the HTML', () => {
+    const mail = renderMail('booking-declined', { ...samples['booking-declined'], reason: '<script>alert(1)</script> & more' }, shop);
+    expect(mail.html).toContain('&lt;script&gt;alert(1)&lt;/script&gt; &amp; more');
+    expect(mail.html).not.toContain('<script>');
+    expect(mail.text).toContain('<script>alert(1)</script> & more');
+  });
+});
+
+describe('the values each message must carry', () => {
+  it('password-reset carries the link and when it stops working, in the shop time zone', () => {
+    const mail = renderMail('password-reset', samples['password-reset'], shop);
+    expect(mail.html).toContain('http://localhost:3000/reset?token=t0k3n');
+    expect(mail.text).toContain('http://localhost:3000/reset?token=t0k3n');
+    // 20:30 UTC is 14:30 in Chicago in January (CST = UTC−6, IANA tz database).
+    expect(mail.text).toContain('Tue 12 Jan 2027, 14:30 (CST)');
+  });
+
+  it('staff-invite carries the invitation link', () => {
+    expect(renderMail('staff-invite', samples['staff-invite'], shop).text).toContain('http://localhost:3000/backoffice/invite?token=inv1');
+  });
+
+  it('booking-requested shows the estimate range and the deposit', () => {
+    const { text, html } = renderMail('booking-requested', samples['booking-requested'], shop);
+    expect(text).toContain('$1,120.00 to $1,400.50');
+    expect(text).toContain('$280.00');
+    expect(html).toContain('$1,120.00 to $1,400.50');
+  });
+
+  it('deposit-received shows the amount and what happens next', () => {
+    const { subject, text } = renderMail('deposit-received', samples['deposit-received'], shop);
+    expect(subject).toBe('Deposit received for LW-1042: $280.00');
+    expect(text).toContain('What happens next');
+    expect(text).toContain('Tue 12 Jan 2027');
+  });
+
+  it('booking-scheduled shows the dates, level, what to send and how to pack, and the cautions', () => {
+    const { subject, text, html, attachments } = renderMail('booking-scheduled', scheduled, shop);
+    expect(subject).toBe('Booked: bench date Tue 12 Jan 2027 for LW-1042');
+    expect(text).toContain('Bench date:');
+    expect(text).toContain('Tue 12 Jan 2027');
+    expect(text).toContain('Fri 8 Jan 2027');
+    expect(text).toContain('Fri 15 Jan 2027');
+    expect(text).toContain('Wren Calloway (Journeyman builder)');
+    expect(text).toContain('Your pedals (4): tuner, fuzz, analog delay, plate reverb.');
+    expect(text).toContain('Your power supply');
+    expect(text).toContain('Your loop switcher');
+    // Packing advice, common practice in the trade (no published source).
+    expect(text).toContain('Take the batteries out of every pedal.');
+    expect(text).toContain('Wrap each pedal on its own');
+    expect(text).toContain('label');
+    expect(text).toContain('two people');
+    expect(html).toContain('Take the batteries out of every pedal.');
+    expect(attachments).toHaveLength(1);
+  });
+
+  it('booking-scheduled leaves the switcher out when the rig has none, and says drop off for a drop-off', () => {
+    const { text, attachments } = renderMail('booking-scheduled', { ...scheduled, switcher: false, handover: 'drop-off' }, shop);
+    expect(text).not.toContain('loop switcher');
+    expect(text).toContain('Drop off by:');
+    expect(attachments[0].filename).toBe('LW-1042-drop-off.ics');
+  });
+
+  it('status-changed has its own words for pedals received, ready and delivered', () => {
+    const received = renderMail('status-changed', samples['status-changed'], shop);
+    expect(received.subject).toBe('Your pedals have arrived (LW-1042)');
+    const ready = renderMail('status-changed', { ...samples['status-changed'], state: 'ready' }, shop);
+    expect(ready.subject).toBe('Your board is ready (LW-1042)');
+    const delivered = renderMail('status-changed', { ...samples['status-changed'], state: 'delivered', tracking: 'Parcel 1Z-TEST-9' }, shop);
+    expect(delivered.text).toContain('Parcel 1Z-TEST-9');
+    expect(() => renderMail('status-changed', { ...samples['status-changed'], state: 'teleported' }, shop)).toThrow('"teleported" is not a build state');
+  });
+
+  it('balance-requested, deposit-refunded, booking-declined and the shop notice carry their amounts and reason', () => {
+    expect(renderMail('balance-requested', samples['balance-requested'], shop).text).toContain('$1,234,567.80');
+    expect(renderMail('deposit-refunded', samples['deposit-refunded'], shop).subject).toBe('Deposit refunded for LW-1042: $280.00');
+    expect(renderMail('booking-declined', samples['booking-declined'], shop).text).toContain('14-loop switcher');
+    const notice = renderMail('shop-new-paid-request', samples['shop-new-paid-request'], shop);
+    expect(notice.text).toContain('Rosa <rosa@mail.example>');
+    expect(notice.text).toContain('$280.00');
+    expect(notice.text).toContain('http://x/backoffice/requests/1');
+  });
+});
+
+describe('the booking-scheduled calendar attachment', () => {
+  // RFC 5545 (iCalendar), parsed by ical.js, a general-purpose iCalendar library.
+  function parse(content: string) {
+    const component = new ICAL.Component(ICAL.parse(content));
+    const event = component.getFirstSubcomponent('vevent')!;
+    return { component, event, vevent: new ICAL.Event(event) };
+  }
+
+  it('is a VCALENDAR 2.0 with one all-day VEVENT on the ship-by day', () => {
+    const [file] = renderMail('booking-scheduled', scheduled, shop).attachments;
+    expect(file.contentType).toContain('text/calendar');
+    const { component, event, vevent } = parse(file.content);
+    // RFC 5545 §3.7.4: VERSION:2.0 is required; §3.7.3 PRODID is required; §3.7.2 METHOD.
+    expect(component.getFirstPropertyValue('version')).toBe('2.0');
+    expect(component.getFirstPropertyValue('prodid')).toBeTruthy();
+    expect(component.getFirstPropertyValue('method')).toBe('PUBLISH');
+    // §3.6.1: a VALUE=DATE DTSTART is an all-day event; DTEND is exclusive, so one day is start+1.
+    expect(vevent.startDate.isDate).toBe(true);
+    expect(vevent.startDate.toString()).toBe('2027-01-08');
+    expect(vevent.endDate.toString()).toBe('2027-01-09');
+    // §3.8.4.7 UID and §3.8.7.2 DTSTAMP are required in a VEVENT.
+    expect(vevent.uid).toBe('handover-LW-1042@loomwright.app');
+    expect(event.getFirstPropertyValue('dtstamp')).toBeTruthy();
+    expect(vevent.summary).toBe('Ship your pedals to Copperline Rig Works (booking LW-1042)');
+    expect(vevent.description).toContain('Take the batteries out of every pedal.');
+  });
+
+  it('keeps the day whatever the server time zone (a leap day)', () => {
+    const [file] = renderMail('booking-scheduled', { ...scheduled, shipBy: '2028-02-29' }, shop).attachments;
+    expect(parse(file.content).vevent.startDate.toString()).toBe('2028-02-29');
+    // RFC 5545 §3.1: content lines are folded at 75 octets and end in CRLF.
+    for (const line of file.content.split('\r\n')) expect(Buffer.byteLength(line)).toBeLessThanOrEqual(75);
+  });
+});

@@ -1,0 +1,314 @@
+import { bookingStateLabels, type BookingState } from '@loomwright/shared';
+import type { MailTemplate } from '../mail.types';
+import { handoverCalendar } from './calendar';
+import { formatDay, formatInstant, formatMoney, MailDataError, optionalString, requireString } from './format';
+import { letterHtml, letterText, type Block, type Letter } from './layout';
+
+export interface ShopContext {
+  name: string;
+  contactEmail: string;
+  timezone: string;
+}
+
+export interface RenderedMail {
+  subject: string;
+  html: string;
+  text: string;
+  attachments: { filename: string; contentType: string; content: string }[];
+}
+
+type Data = Record<string, unknown>;
+type Draft = { subject: string; letter: Omit<Letter, 'shopName'>; attachments?: RenderedMail['attachments'] };
+
+const levelWords: Record<string, string> = {
+  apprentice: 'Apprentice builder',
+  journeyman: 'Journeyman builder',
+  master: 'Master builder',
+};
+
+function money(data: Data, key = 'amount') {
+  return formatMoney(requireString(data, key), requireString(data, 'currency'));
+}
+
+const open = (label: string, url: string): Block => ({ kind: 'link', label, url });
+
+// Packing and safety advice for the pedals, the supply and any switcher (common practice in the
+// trade, no published source): loose batteries leak and short in transit; pedals packed
+// together scratch and bend jacks; an unlabelled supply gets mixed up with the shop's own.
+const packing: string[] = [
+  'Take the batteries out of every pedal.',
+  'Wrap each pedal on its own (bubble wrap or a soft cloth) so knobs and jacks cannot knock together.',
+  'Put a label with your name and booking reference on the power supply, its leads and any switcher.',
+  'Leave out patch cables, hook-and-loop and the old board unless we asked for them: we make new ones to length.',
+  'Fill the box so nothing moves, and keep the tracking number; add it to your booking when you have it.',
+];
+
+function bookingScheduled(data: Data, shop: ShopContext): Draft {
+  const reference = requireString(data, 'reference');
+  const shipBy = requireString(data, 'shipBy');
+  const level = requireString(data, 'builderLevel');
+  if (!levelWords[level]) throw new MailDataError(`the builder level "${level}" is not apprentice, journeyman or master`);
+  const pedals = Array.isArray(data.pedals) ? data.pedals.filter((p): p is string => typeof p === 'string') : [];
+  if (pedals.length === 0) throw new MailDataError('the data has no "pedals" (the list of pedals to bring)');
+  const dropOff = data.handover === 'drop-off';
+  const shipTo = optionalString(data, 'shipTo') ?? `${shop.name} (ask ${shop.contactEmail} for the address)`;
+  const bring = [
+    `Your pedals (${pedals.length}): ${pedals.join(', ')}.`,
+    ...(data.powerSupply === false ? [] : ['Your power supply, with all its leads.']),
+    ...(data.switcher === true ? ['Your loop switcher, with its power lead and any MIDI or control cables.'] : []),
+  ];
+  const verb = dropOff ? 'Drop off' : 'Ship';
+  const shipByWords = formatDay(shipBy);
+  const calendar = handoverCalendar({
+    uid: `handover-${reference}@loomwright.app`,
+    day: shipBy,
+    summary: `${verb} your pedals to ${shop.name} (booking ${reference})`,
+    description: [`${dropOff ? 'Bring' : 'Send'} by ${shipByWords}:`, ...bring.map((b) => `- ${b}`), '', 'Packing:', ...packing.map((p) => `- ${p}`)].join('\n'),
+    location: shipTo,
+    shopName: shop.name,
+  });
+  return {
+    subject: `Booked: bench date ${formatDay(requireString(data, 'benchDate'))} for ${reference}`,
+    letter: {
+      heading: `Your build has a bench date`,
+      blocks: [
+        { kind: 'p', text: `Hello ${requireString(data, 'name')}, your build ${reference} is on our bench schedule.` },
+        {
+          kind: 'facts',
+          rows: [
+            ['Bench date', formatDay(requireString(data, 'benchDate'))],
+            [dropOff ? 'Drop off by' : 'Ship to arrive by', shipByWords],
+            ['Builder', optionalString(data, 'builderName') ? `${data.builderName as string} (${levelWords[level]})` : levelWords[level]],
+            ['Expected completion', formatDay(requireString(data, 'expectedCompletion'))],
+            [dropOff ? 'Drop off at' : 'Ship to', shipTo],
+          ],
+        },
+        { kind: 'list', title: `What to ${dropOff ? 'bring' : 'send'}`, items: bring },
+        { kind: 'list', title: 'How to pack', items: packing },
+        {
+          kind: 'caution',
+          text: 'A loaded board in a road case is heavy: lift it with two people. Do not open or rewire your power supply; anything on the mains side is work for a qualified person under your local electrical codes.',
+        },
+        { kind: 'p', text: `The attached calendar file puts the ${dropOff ? 'drop-off' : 'shipping'} day in your calendar.` },
+        open('See your booking', requireString(data, 'bookingUrl')),
+      ],
+    },
+    attachments: [{ filename: `${reference}-${dropOff ? 'drop-off' : 'ship-by'}.ics`, contentType: 'text/calendar; charset=utf-8; method=PUBLISH', content: calendar }],
+  };
+}
+
+const statusWords: Partial<Record<BookingState, { subject: string; heading: string; text: string }>> = {
+  pedals_received: {
+    subject: 'Your pedals have arrived',
+    heading: 'Your pedals are here and checked in',
+    text: 'We unpacked your parcel and tested every pedal and the power supply. If anything was already faulty we will tell you before the build starts, since it may change the plan.',
+  },
+  on_bench: { subject: 'Your build is on the bench', heading: 'Your build is on the bench', text: 'Your builder has started mounting and wiring your board.' },
+  testing: { subject: 'Your board is being tested', heading: 'Your board is being tested', text: 'We are testing every path of the signal chain and every switcher preset.' },
+  ready: {
+    subject: 'Your board is ready',
+    heading: 'Your board is finished and tested',
+    text: 'Your board is built and has passed its tests. Once the balance is paid we ship it or you can collect it.',
+  },
+  delivered: {
+    subject: 'Your board is on its way to you',
+    heading: 'Your board has been handed over',
+    text: 'Your board has left the shop. Thank you for building with us.',
+  },
+};
+
+function statusChanged(data: Data): Draft {
+  const reference = requireString(data, 'reference');
+  const state = requireString(data, 'state');
+  const words = statusWords[state as BookingState];
+  const label = bookingStateLabels[state as BookingState];
+  if (!words && !label) throw new MailDataError(`"${state}" is not a build state`);
+  const note = optionalString(data, 'note');
+  const tracking = optionalString(data, 'tracking');
+  return {
+    subject: `${words?.subject ?? `Your build is now: ${label}`} (${reference})`,
+    letter: {
+      heading: words?.heading ?? `Your build is now: ${label}`,
+      blocks: [
+        { kind: 'p', text: `Hello ${requireString(data, 'name')}, an update on build ${reference}.` },
+        ...(words ? [{ kind: 'p' as const, text: words.text }] : []),
+        ...(note ? [{ kind: 'p' as const, text: `From your builder: ${note}` }] : []),
+        ...(tracking ? [{ kind: 'facts' as const, rows: [['Tracking', tracking]] as [string, string][] }] : []),
+        ...(state === 'delivered'
+          ? [{ kind: 'caution' as const, text: 'A loaded board in a road case is heavy: lift it with two people. Check each pedal\'s voltage and polarity before you power up anything you add later.' }]
+          : []),
+        open('See your booking', requireString(data, 'bookingUrl')),
+      ],
+    },
+  };
+}
+
+const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
+  welcome: (data, shop) => ({
+    subject: `Welcome to ${shop.name}`,
+    letter: {
+      heading: `Welcome, ${requireString(data, 'name')}`,
+      blocks: [
+        { kind: 'p', text: 'Your account is ready. You can configure a board, see a live estimate and request a build whenever you like.' },
+        ...(optionalString(data, 'signInUrl') ? [open('Sign in', data.signInUrl as string)] : []),
+      ],
+    },
+  }),
+  'password-reset': (data, shop) => ({
+    subject: `Reset your ${shop.name} password`,
+    letter: {
+      heading: 'Reset your password',
+      blocks: [
+        { kind: 'p', text: `Hello ${requireString(data, 'name')}, someone asked to reset the password of this account. If it was you, choose a new one with the link below.` },
+        open('Choose a new password', requireString(data, 'resetUrl')),
+        { kind: 'facts', rows: [['Link works until', formatInstant(requireString(data, 'expiresAt'), shop.timezone)]] },
+        { kind: 'p', text: 'If you did not ask for this, ignore this message: your password stays as it is.' },
+      ],
+    },
+  }),
+  'staff-invite': (data, shop) => ({
+    subject: `You are invited to the ${shop.name} backoffice`,
+    letter: {
+      heading: `Join the ${shop.name} team`,
+      blocks: [
+        {
+          kind: 'p',
+          text: `Hello ${requireString(data, 'name')}, you have been invited to the shop's backoffice${data.role === 'owner' ? ' as an owner' : data.role === 'builder' ? ' as a builder' : ''}. Set your password with the link below.`,
+        },
+        open('Accept the invitation', requireString(data, 'inviteUrl')),
+        ...(optionalString(data, 'expiresAt')
+          ? [{ kind: 'facts' as const, rows: [['Invitation works until', formatInstant(data.expiresAt as string, shop.timezone)]] as [string, string][] }]
+          : []),
+      ],
+    },
+  }),
+  'booking-requested': (data) => {
+    const reference = requireString(data, 'reference');
+    const currency = requireString(data, 'currency');
+    return {
+      subject: `We have your build request ${reference}`,
+      letter: {
+        heading: 'Your build request is in',
+        blocks: [
+          { kind: 'p', text: `Hello ${requireString(data, 'name')}, thank you for your request ${reference}.` },
+          {
+            kind: 'facts',
+            rows: [
+              ['Estimate', `${formatMoney(requireString(data, 'totalLow'), currency)} to ${formatMoney(requireString(data, 'totalHigh'), currency)}`],
+              ['Deposit to hold your place', formatMoney(requireString(data, 'deposit'), currency)],
+            ],
+          },
+          { kind: 'p', text: 'Your place in the queue is held once the deposit is paid. Pedals, power supply and switcher are yours and not part of the price.' },
+          open('Pay the deposit', requireString(data, 'bookingUrl')),
+        ],
+      },
+    };
+  },
+  'deposit-received': (data) => {
+    const reference = requireString(data, 'reference');
+    const expected = optionalString(data, 'expectedBenchDate');
+    return {
+      subject: `Deposit received for ${reference}: ${money(data)}`,
+      letter: {
+        heading: 'Thank you, your deposit is paid',
+        blocks: [
+          { kind: 'p', text: `Hello ${requireString(data, 'name')}, we received your deposit for build ${reference}.` },
+          { kind: 'facts', rows: [['Deposit paid', money(data)], ...(expected ? [['Expected bench date', formatDay(expected)] as [string, string]] : [])] },
+          {
+            kind: 'list',
+            title: 'What happens next',
+            items: [
+              'A builder reviews your rig and sets a bench date the schedule can hold.',
+              'You get an e-mail with the bench date, the day to ship or drop off your pedals, and how to pack them.',
+              'Do not send anything yet: wait for that message.',
+            ],
+          },
+          open('See your booking', requireString(data, 'bookingUrl')),
+        ],
+      },
+    };
+  },
+  'booking-scheduled': bookingScheduled,
+  'status-changed': (data) => statusChanged(data),
+  'balance-requested': (data) => {
+    const reference = requireString(data, 'reference');
+    return {
+      subject: `Balance due for ${reference}: ${money(data)}`,
+      letter: {
+        heading: 'Your board is ready: the balance is due',
+        blocks: [
+          { kind: 'p', text: `Hello ${requireString(data, 'name')}, build ${reference} is finished and tested.` },
+          { kind: 'facts', rows: [['Balance due', money(data)]] },
+          { kind: 'p', text: 'We ship your board, or you can collect it, as soon as the balance is paid.' },
+          open('Pay the balance', requireString(data, 'payUrl')),
+        ],
+      },
+    };
+  },
+  'deposit-refunded': (data) => {
+    const reference = requireString(data, 'reference');
+    return {
+      subject: `Deposit refunded for ${reference}: ${money(data)}`,
+      letter: {
+        heading: 'Your deposit has been refunded',
+        blocks: [
+          { kind: 'p', text: `Hello ${requireString(data, 'name')}, we refunded the deposit for build ${reference}.` },
+          { kind: 'facts', rows: [['Refunded', money(data)]] },
+          { kind: 'p', text: 'It goes back to the card you paid with; banks usually take 5 to 10 working days to show it.' },
+        ],
+      },
+    };
+  },
+  'booking-declined': (data) => {
+    const reference = requireString(data, 'reference');
+    return {
+      subject: `We cannot take on build ${reference}`,
+      letter: {
+        heading: 'We are sorry: we cannot take on this build',
+        blocks: [
+          { kind: 'p', text: `Hello ${requireString(data, 'name')}, we looked at your request ${reference} and cannot build it.` },
+          { kind: 'facts', rows: [['Reason', requireString(data, 'reason')]] },
+          ...(data.depositRefunded === true ? [{ kind: 'p' as const, text: 'Your deposit is refunded in full; you will get a separate message when it has gone back.' }] : []),
+          { kind: 'p', text: 'Reply to this message if you would like to talk about a different build.' },
+        ],
+      },
+    };
+  },
+  'shop-new-paid-request': (data) => {
+    const reference = requireString(data, 'reference');
+    const currency = requireString(data, 'currency');
+    const low = optionalString(data, 'totalLow');
+    const high = optionalString(data, 'totalHigh');
+    return {
+      subject: `New paid request ${reference} from ${requireString(data, 'customerName')}`,
+      letter: {
+        heading: 'A new request has paid its deposit',
+        blocks: [
+          {
+            kind: 'facts',
+            rows: [
+              ['Booking', reference],
+              ['Player', `${requireString(data, 'customerName')} <${requireString(data, 'customerEmail')}>`],
+              ['Deposit paid', money(data)],
+              ...(low && high ? [['Estimate', `${formatMoney(low, currency)} to ${formatMoney(high, currency)}`] as [string, string]] : []),
+            ],
+          },
+          { kind: 'p', text: 'Accept it and set a bench date, or decline it with a reason.' },
+          open('Open the request', requireString(data, 'backofficeUrl')),
+        ],
+        footer: 'A notice for the shop from Loomwright.',
+      },
+    };
+  },
+};
+
+/** Renders one outbox message; throws MailDataError (naming the key) when its data is incomplete. */
+export function renderMail(template: string, data: Data, shop: ShopContext): RenderedMail {
+  const draft = drafts[template as MailTemplate];
+  if (!draft) throw new MailDataError(`there is no template called "${template}"`);
+  const { subject, letter, attachments } = draft(data ?? {}, shop);
+  const full: Letter = { shopName: shop.name, ...letter };
+  return { subject, html: letterHtml(full), text: letterText(full), attachments: attachments ?? [] };
+}
+
+export { MailDataError };

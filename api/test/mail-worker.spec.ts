@@ -1,0 +1,87 @@
+import { sql } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startMailFake, type CaughtMessage, type MailFake } from '../fakes/mail/mail-fake';
+import { MailService } from '../src/mail/mail.service';
+import { MailWorker } from '../src/mail/mail-worker.service';
+import { createTestApp, type TestApp } from './support/test-app';
+
+async function until<T>(what: string, probe: () => Promise<T | undefined | false>, timeoutMs = 25_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await probe();
+    if (value) return value;
+    if (Date.now() > deadline) throw new Error(`Timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
+  let t: TestApp;
+  let fake: MailFake;
+  let smtpPort: number;
+  let httpPort: number;
+  let box: CaughtMessage[];
+  let mail: MailService;
+
+  const jobsFor = (outboxId: string) =>
+    sql<{ state: string; retry_count: number }>`select state, retry_count from pgboss.job where name = 'mail-deliver' and singleton_key = ${outboxId}`
+      .execute(t.db)
+      .then((r) => r.rows);
+  const outboxRow = (id: string) => t.db.selectFrom('mail_outbox').selectAll().where('id', '=', id).executeTakeFirstOrThrow();
+
+  beforeAll(async () => {
+    fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
+    ({ smtpPort, httpPort, messages: box } = fake);
+    t = await createTestApp({ env: { SMTP_PORT: String(smtpPort), RUN_WORKERS: 'true', MAIL_RETRY_DELAY_SECONDS: '1' } });
+    mail = t.app.get(MailService);
+    expect(t.app.get(MailWorker).running).toBe(true);
+  });
+  afterAll(async () => {
+    await fake.stop();
+    await t.close();
+  });
+
+  it('inserts the delivery job in the caller transaction: a rollback leaves neither row nor job', async () => {
+    let id = '';
+    await expect(
+      t.db.transaction().execute(async (trx) => {
+        id = (await mail.enqueue(trx, { template: 'welcome', to: 'ghost@mail.example', data: { name: 'Ghost' } }))!.id;
+        const inside = await sql<{ n: string }>`select count(*) as n from pgboss.job where singleton_key = ${id}`.execute(trx);
+        expect(inside.rows[0].n).toBe('1');
+        // Not visible outside the transaction before it commits.
+        expect(await jobsFor(id)).toHaveLength(0);
+        throw new Error('the change failed');
+      }),
+    ).rejects.toThrow('the change failed');
+    expect(await jobsFor(id)).toHaveLength(0);
+    expect(await t.db.selectFrom('mail_outbox').select('id').where('id', '=', id).execute()).toHaveLength(0);
+  });
+
+  it('retries with backoff while the mail server is down and delivers exactly once when it is back', async () => {
+    await fake.stop();
+    const row = (await t.db.transaction().execute((trx) =>
+      mail.enqueue(trx, { template: 'deposit-refunded', to: 'patient@mail.example', data: { name: 'Pat', reference: 'LW-3003', amount: '150.00', currency: 'USD' } }),
+    ))!;
+    const refused = await until('a refused attempt', async () => {
+      const r = await outboxRow(row.id);
+      return r.attempts >= 1 && r.state === 'queued' && r.last_error ? r : undefined;
+    });
+    expect(refused.last_error).toMatch(/ECONNREFUSED|ECONNECTION/);
+    // pg-boss holds the job for a later retry rather than dropping it.
+    await until('the job to wait for its retry', async () => (await jobsFor(row.id)).some((j) => j.state === 'retry' || j.state === 'active' || j.state === 'created'));
+
+    fake = await startMailFake({ smtpPort, httpPort, messages: box });
+    const sent = await until('delivery after the server came back', async () => {
+      const r = await outboxRow(row.id);
+      return r.state === 'sent' ? r : undefined;
+    });
+    expect(sent.attempts).toBeGreaterThanOrEqual(2);
+    await until('the job to complete', async () => (await jobsFor(row.id)).every((j) => j.state === 'completed'));
+    // A short wait for any stray retry; the message must still be there once.
+    await new Promise((r) => setTimeout(r, 2_500));
+    const inbox: CaughtMessage[] = await (await fetch(`http://127.0.0.1:${httpPort}/api/messages?to=patient@mail.example`)).json();
+    expect(inbox).toHaveLength(1);
+    expect(inbox[0].messageId).toBe(row.message_id);
+    expect(inbox[0].subject).toBe('Deposit refunded for LW-3003: $150.00');
+  });
+});

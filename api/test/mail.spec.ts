@@ -1,0 +1,241 @@
+import ICAL from 'ical.js';
+import request from 'supertest';
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { startMailFake, type CaughtMessage, type MailFake } from '../fakes/mail/mail-fake';
+import { MailDeliveryService, OUTCOME_UNKNOWN } from '../src/mail/mail-delivery.service';
+import { MailService } from '../src/mail/mail.service';
+import { clearTables, createTestApp, type TestApp } from './support/test-app';
+
+const scheduledData = {
+  name: 'Rosa Delgado-Finch',
+  reference: 'LW-2001',
+  benchDate: '2027-01-12',
+  shipBy: '2027-01-08',
+  builderLevel: 'master',
+  expectedCompletion: '2027-01-14',
+  pedals: ['tuner', 'overdrive', 'analog delay'],
+  bookingUrl: 'http://localhost:3000/builds/LW-2001',
+};
+
+describe('mail delivery through the outbox into the mail fake', () => {
+  let t: TestApp;
+  let fake: MailFake;
+  let smtpPort: number;
+  let httpPort: number;
+  let box: CaughtMessage[];
+  let mail: MailService;
+  let delivery: MailDeliveryService;
+
+  const inbox = async (): Promise<CaughtMessage[]> => (await fetch(`http://127.0.0.1:${httpPort}/api/messages`)).json();
+
+  beforeAll(async () => {
+    fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
+    ({ smtpPort, httpPort, messages: box } = fake);
+    t = await createTestApp({ env: { SMTP_PORT: String(smtpPort), MAIL_MAX_ATTEMPTS: '4' } });
+    mail = t.app.get(MailService);
+    delivery = t.app.get(MailDeliveryService);
+  });
+  afterAll(async () => {
+    await fake.stop();
+    await t.close();
+  });
+  beforeEach(async () => {
+    await clearTables(t.db, ['mail_outbox']);
+    await fetch(`http://127.0.0.1:${httpPort}/api/messages`, { method: 'DELETE' });
+  });
+
+  const enqueueScheduled = (to = 'player@mail.example', extra: Record<string, unknown> = {}) =>
+    t.db.transaction().execute((trx) => mail.enqueue(trx, { template: 'booking-scheduled', to, data: { ...scheduledData, ...extra } }));
+
+  it('delivers over SMTP with the outbox Message-ID and the calendar file, readable over the fake HTTP JSON', async () => {
+    const row = await enqueueScheduled();
+    expect(row?.message_id).toMatch(/^<[0-9a-f-]{36}@shop\.example>$/);
+    expect(await delivery.deliverPending()).toMatchObject({ sent: 1, retry: 0, failed: 0 });
+
+    const messages = await inbox();
+    expect(messages).toHaveLength(1);
+    const [m] = messages;
+    expect(m.to).toEqual(['player@mail.example']);
+    expect(m.from).toBe('bench@shop.example');
+    // RFC 5322 §3.6.4: the Message-ID travels as sent, angle brackets included.
+    expect(m.messageId).toBe(row!.message_id);
+    expect(m.subject).toBe('Booked: bench date Tue 12 Jan 2027 for LW-2001');
+    expect(m.text).toContain('Fri 8 Jan 2027');
+    expect(m.html).toContain('Master builder');
+    expect(m.attachments).toHaveLength(1);
+    expect(m.attachments[0]).toMatchObject({ filename: 'LW-2001-ship-by.ics' });
+    expect(m.attachments[0].contentType).toBe('text/calendar');
+    // RFC 5545, parsed by ical.js after the round trip through SMTP and mailparser.
+    const ics = Buffer.from(m.attachments[0].content, 'base64').toString('utf8');
+    const event = new ICAL.Event(new ICAL.Component(ICAL.parse(ics)).getFirstSubcomponent('vevent')!);
+    expect(event.startDate.toString()).toBe('2027-01-08');
+    expect(event.startDate.isDate).toBe(true);
+
+    const one = await (await fetch(`http://127.0.0.1:${httpPort}/api/messages/${m.id}`)).json();
+    expect(one.messageId).toBe(row!.message_id);
+    const page = await (await fetch(`http://127.0.0.1:${httpPort}/`)).text();
+    expect(page).toContain('Booked: bench date Tue 12 Jan 2027 for LW-2001');
+    expect((await fetch(`http://127.0.0.1:${httpPort}/api/messages/nope`)).status).toBe(404);
+
+    const stored = await t.db.selectFrom('mail_outbox').selectAll().executeTakeFirstOrThrow();
+    expect(stored).toMatchObject({ state: 'sent', attempts: 1, last_error: null, subject: m.subject });
+    expect(stored.sent_at).not.toBeNull();
+  });
+
+  it('writes nothing when the transaction that caused the message rolls back', async () => {
+    await expect(
+      t.db.transaction().execute(async (trx) => {
+        await mail.enqueue(trx, { template: 'welcome', to: 'ghost@mail.example', data: { name: 'Ghost' } });
+        throw new Error('the booking change failed');
+      }),
+    ).rejects.toThrow('the booking change failed');
+    expect(await t.db.selectFrom('mail_outbox').select('id').execute()).toHaveLength(0);
+  });
+
+  it('queues a message once per dedupe key', async () => {
+    const first = await mail.enqueue(t.db, { template: 'welcome', to: 'a@mail.example', data: { name: 'A' }, dedupeKey: 'welcome:a' });
+    const second = await mail.enqueue(t.db, { template: 'welcome', to: 'a@mail.example', data: { name: 'A' }, dedupeKey: 'welcome:a' });
+    expect(first).toBeDefined();
+    expect(second).toBeUndefined();
+    await delivery.deliverPending();
+    expect(await inbox()).toHaveLength(1);
+  });
+
+  it('keeps messages while the mail server is down and delivers each exactly once when it is back', async () => {
+    await fake.stop();
+    const rows = await Promise.all(['p1@mail.example', 'p2@mail.example', 'p3@mail.example'].map((to) => enqueueScheduled(to)));
+    // Two rounds with the server down: every attempt is refused, nothing is lost.
+    expect(await delivery.deliverPending()).toMatchObject({ sent: 0, retry: 3 });
+    expect(await delivery.deliverPending()).toMatchObject({ sent: 0, retry: 3 });
+    const waiting = await t.db.selectFrom('mail_outbox').selectAll().execute();
+    expect(waiting.map((r) => r.state)).toEqual(['queued', 'queued', 'queued']);
+    expect(waiting.every((r) => r.attempts === 2 && /ECONNREFUSED|ECONNECTION/.test(r.last_error ?? ''))).toBe(true);
+
+    fake = await startMailFake({ smtpPort, httpPort, messages: box });
+    expect(await delivery.deliverPending()).toMatchObject({ sent: 3, retry: 0, failed: 0 });
+    // A further round finds nothing to send: no duplicates.
+    expect(await delivery.deliverPending()).toMatchObject({ sent: 0, retry: 0, failed: 0, skipped: 0 });
+    const messages = await inbox();
+    expect(messages.map((m) => m.messageId).sort()).toEqual(rows.map((r) => r!.message_id).sort());
+    expect(new Set(messages.map((m) => m.to[0]))).toEqual(new Set(['p1@mail.example', 'p2@mail.example', 'p3@mail.example']));
+  });
+
+  it('gives up after the last attempt and says why', async () => {
+    await fake.stop();
+    const row = await mail.enqueue(t.db, { template: 'welcome', to: 'late@mail.example', data: { name: 'Late' } });
+    for (let i = 0; i < 3; i += 1) await delivery.deliverPending();
+    expect(await delivery.deliverPending()).toMatchObject({ failed: 1 });
+    const stored = await t.db.selectFrom('mail_outbox').selectAll().where('id', '=', row!.id).executeTakeFirstOrThrow();
+    expect(stored).toMatchObject({ state: 'failed', attempts: 4 });
+    expect(stored.last_error).toMatch(/ECONNREFUSED|ECONNECTION/);
+    fake = await startMailFake({ smtpPort, httpPort, messages: box });
+    expect(await delivery.deliverPending()).toMatchObject({ sent: 0 });
+    expect(await inbox()).toHaveLength(0);
+  });
+
+  it('lets only one of several racing senders deliver a message', async () => {
+    const rows = await Promise.all(Array.from({ length: 5 }, (_, i) => enqueueScheduled(`race${i}@mail.example`)));
+    const outcomes = await Promise.all(rows.flatMap((r) => [delivery.deliverOne(r!.id), delivery.deliverOne(r!.id), delivery.deliverOne(r!.id)]));
+    expect(outcomes.filter((o) => o === 'sent')).toHaveLength(5);
+    expect(outcomes.filter((o) => o === 'skipped')).toHaveLength(10);
+    const messages = await inbox();
+    expect(messages).toHaveLength(5);
+    expect(new Set(messages.map((m) => m.messageId)).size).toBe(5);
+  });
+
+  it('never re-sends after a crash: a retried job for a sent row and a stale claim both send nothing', async () => {
+    const sent = await enqueueScheduled('sent@mail.example');
+    expect(await delivery.deliverOne(sent!.id)).toBe('sent');
+    // pg-boss retrying the job of a handler that died after the mail went out:
+    expect(await delivery.deliverOne(sent!.id)).toBe('skipped');
+
+    // A sender that claimed a row and died before marking it: the row sits in 'sending'.
+    const claimed = await enqueueScheduled('crashed@mail.example');
+    await t.db.updateTable('mail_outbox').set({ state: 'sending', attempts: 1, claimed_at: new Date() }).where('id', '=', claimed!.id).execute();
+    expect(await delivery.deliverPending()).toMatchObject({ sent: 0 });
+    expect(await delivery.deliverOne(claimed!.id)).toBe('skipped');
+    expect(await delivery.failStaleClaims()).toBe(0); // still inside its lease
+    await t.db.updateTable('mail_outbox').set({ claimed_at: new Date(Date.now() - 16 * 60_000) }).where('id', '=', claimed!.id).execute();
+    expect(await delivery.failStaleClaims()).toBe(1);
+    const stale = await t.db.selectFrom('mail_outbox').selectAll().where('id', '=', claimed!.id).executeTakeFirstOrThrow();
+    expect(stale).toMatchObject({ state: 'failed', last_error: OUTCOME_UNKNOWN });
+    expect(await delivery.deliverPending()).toMatchObject({ sent: 0 });
+    expect((await inbox()).map((m) => m.to[0])).toEqual(['sent@mail.example']);
+  });
+
+  it('fails a message whose data the template cannot use, naming the missing key, without sending', async () => {
+    await mail.enqueue(t.db, { template: 'password-reset', to: 'p@mail.example', data: { name: 'P' } });
+    expect(await delivery.deliverPending()).toMatchObject({ failed: 1 });
+    const row = await t.db.selectFrom('mail_outbox').selectAll().executeTakeFirstOrThrow();
+    expect(row.state).toBe('failed');
+    expect(row.last_error).toBe('The message cannot be written: the data has no "resetUrl".');
+    expect(await inbox()).toHaveLength(0);
+  });
+
+  describe('the mail log API', () => {
+    const signIn = async (email: string) => {
+      const agent = request.agent(t.app.getHttpServer());
+      await agent.post('/api/auth/sign-in').send({ email, password: 'demo-pass-2026' }).expect(200);
+      return agent;
+    };
+
+    it('pages newest first, filters by state and searches by recipient, for staff only', async () => {
+      for (let i = 0; i < 7; i += 1) {
+        await mail.enqueue(t.db, { template: 'welcome', to: `Person${i}@Mail.Example`, data: { name: `P${i}` } });
+      }
+      await mail.enqueue(t.db, { template: 'password-reset', to: 'broken@mail.example', data: {} });
+      await delivery.deliverPending();
+      const builder = await signIn('builder@shop.example');
+      const first = await builder.get('/api/mail?page=1&pageSize=3').expect(200);
+      expect(first.body).toMatchObject({ total: 8, page: 1, pageSize: 3, canResend: false });
+      expect(first.body.items).toHaveLength(3);
+      expect(first.body.items[0].to).toBe('broken@mail.example');
+      const third = await builder.get('/api/mail?page=3&pageSize=3').expect(200);
+      expect(third.body.items).toHaveLength(2);
+      const failed = await builder.get('/api/mail?state=failed').expect(200);
+      expect(failed.body.total).toBe(1);
+      expect(failed.body.items[0]).toMatchObject({ state: 'failed', attempts: 1, template: 'password-reset' });
+      expect(failed.body.items[0].lastError).toBe('The message cannot be written: the data has no "name".');
+      const found = await builder.get('/api/mail?q=person3@mail').expect(200);
+      expect(found.body.items.map((e: { to: string }) => e.to)).toEqual(['Person3@Mail.Example']);
+      // A search term is matched literally, never as a LIKE pattern.
+      expect((await builder.get('/api/mail?q=%25').expect(200)).body.total).toBe(0);
+
+      const player = await signIn('player@mail.example');
+      await player.get('/api/mail').expect(403);
+      await request(t.app.getHttpServer()).get('/api/mail').expect(401);
+    });
+
+    it('answers bad filters with 400 in words', async () => {
+      const owner = await signIn('owner@shop.example');
+      const bad = await owner.get('/api/mail?state=lost&pageSize=500&page=0').expect(400);
+      const text = JSON.stringify(bad.body.message);
+      expect(text).toContain('state must be one of queued, sending, sent, failed');
+      expect(text).toContain('pageSize must be between 1 and 100');
+      expect(text).toContain('page must be 1 or more');
+    });
+
+    it('lets the owner resend: a new message with a new Message-ID, linked to the original', async () => {
+      const original = await enqueueScheduled('again@mail.example');
+      await delivery.deliverPending();
+      const builder = await signIn('builder@shop.example');
+      await builder.post(`/api/mail/${original!.id}/resend`).expect(403);
+      const owner = await signIn('owner@shop.example');
+      const res = await owner.post(`/api/mail/${original!.id}/resend`).expect(201);
+      expect(res.body).toMatchObject({ state: 'queued', to: 'again@mail.example', resentFromId: original!.id, template: 'booking-scheduled' });
+      expect(res.body.messageId).not.toBe(original!.message_id);
+      // While the copy waits, resending it again is refused.
+      const busy = await owner.post(`/api/mail/${res.body.id}/resend`).expect(409);
+      expect(busy.body.message).toContain('still waiting to go out');
+      await delivery.deliverPending();
+      const messages = await inbox();
+      expect(messages.map((m) => m.messageId)).toEqual([res.body.messageId, original!.message_id]);
+      expect(messages[0].subject).toBe(messages[1].subject);
+
+      const missing = await owner.post('/api/mail/00000000-0000-4000-8000-000000000000/resend').expect(404);
+      expect(missing.body.message).toContain('no message with the id');
+      const bad = await owner.post('/api/mail/not-a-uuid/resend').expect(400);
+      expect(bad.body.message).toBe('The message id must be a UUID, as listed in the mail log.');
+    });
+  });
+});

@@ -1,0 +1,131 @@
+import Box from '@mui/joy/Box';
+import Breadcrumbs from '@mui/joy/Breadcrumbs';
+import Button from '@mui/joy/Button';
+import Card from '@mui/joy/Card';
+import Link from '@mui/joy/Link';
+import Stack from '@mui/joy/Stack';
+import Typography from '@mui/joy/Typography';
+import { bookingStateLabels } from '@loomwright/shared';
+import { useState } from 'react';
+import { Link as RouterLink, useParams } from 'react-router';
+import { ErrorNote } from 'src/components/ErrorNote';
+import { Notice } from 'src/components/Notice';
+import { PageLoading } from 'src/components/PageLoading';
+import { StateChip } from 'src/components/StateChip';
+import { useBooking } from 'src/features/bookings/api/get-booking';
+import { BookingFacts } from 'src/features/bookings/components/BookingFacts';
+import { ConfigurationSummary } from 'src/features/bookings/components/ConfigurationSummary';
+import { EstimateLines } from 'src/features/bookings/components/EstimateLines';
+import { EventTimeline } from 'src/features/bookings/components/EventTimeline';
+import { PaymentsList } from 'src/features/bookings/components/PaymentsList';
+import { PhotoGrid } from 'src/features/bookings/components/PhotoGrid';
+import { Section } from 'src/features/bookings/components/Section';
+import { useExtras } from 'src/features/builds/api/get-extras';
+import { useIntake } from 'src/features/builds/api/get-intake';
+import { useTimeEntries } from 'src/features/builds/api/get-time-entries';
+import { ExtrasPanel } from 'src/features/builds/components/ExtrasPanel';
+import { HoursPanel } from 'src/features/builds/components/HoursPanel';
+import { IntakePanel } from 'src/features/builds/components/IntakePanel';
+import { SafetyNote } from 'src/features/builds/components/SafetyNote';
+import { StateActions } from 'src/features/builds/components/StateActions';
+import { useMe } from 'src/features/auth/api/get-me';
+
+export function Component() {
+  const { bookingId = '' } = useParams();
+  const booking = useBooking(bookingId);
+  const intake = useIntake(bookingId);
+  const entries = useTimeEntries(bookingId);
+  const extras = useExtras(bookingId);
+  const me = useMe();
+  const isOwner = me.data?.role === 'owner';
+  const [notice, setNotice] = useState<string | null>(null);
+
+  if (booking.isPending) return <PageLoading />;
+  if (booking.error || !booking.data)
+    return <ErrorNote error={booking.error ?? new Error('This build was not found.')} action="Go back to the list of builds." />;
+  const b = booking.data;
+
+  return (
+    <Stack gap={2}>
+      <Breadcrumbs sx={{ p: 0 }}>
+        <Link component={RouterLink} to="/builds">
+          Builds
+        </Link>
+        <Typography>{b.reference}</Typography>
+      </Breadcrumbs>
+      <Stack direction="row" gap={2} alignItems="center" flexWrap="wrap">
+        <Typography level="h3" component="h1">
+          {b.reference} · {b.customer.name}
+        </Typography>
+        <StateChip state={b.state} />
+        <Typography level="body-sm">{bookingStateLabels[b.state]}</Typography>
+        <Box sx={{ flex: 1 }} />
+        <Button component="a" href={`/api/bookings/${b.id}/build-sheet`} target="_blank" rel="noopener" variant="outlined" color="neutral">
+          Print the build sheet (PDF)
+        </Button>
+      </Stack>
+      <Card variant="outlined">
+        <Typography level="title-md" component="h2">
+          Next step
+        </Typography>
+        <StateActions booking={b} intake={intake.data} isOwner={isOwner} onDone={setNotice} />
+      </Card>
+      <Box sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr', lg: 'minmax(0, 3fr) minmax(320px, 2fr)' }, gap: 2, alignItems: 'start' }}>
+        <Stack gap={2}>
+          <Card variant="outlined">
+            <Section title="Intake">
+              <IntakePanel booking={b} intake={intake.data} />
+              <ErrorNote error={intake.error} />
+            </Section>
+          </Card>
+          <Card variant="outlined">
+            <Section title="Hours">
+              <HoursPanel booking={b} entries={entries.data} />
+              <ErrorNote error={entries.error} />
+            </Section>
+          </Card>
+          <Card variant="outlined">
+            <Section title="Extras">
+              <ExtrasPanel booking={b} extras={extras.data} isOwner={isOwner} />
+              <ErrorNote error={extras.error} />
+            </Section>
+          </Card>
+          <Card variant="outlined">
+            <Section title="The rig">
+              <ConfigurationSummary booking={b} />
+            </Section>
+          </Card>
+          <Card variant="outlined">
+            <Section title={b.firmQuote ? 'Firm quote' : 'Estimate'}>
+              <EstimateLines quote={b.firmQuote ?? b.quote} />
+            </Section>
+          </Card>
+          <Card variant="outlined">
+            <Section title="Photos">
+              <PhotoGrid photos={b.photos} />
+            </Section>
+          </Card>
+        </Stack>
+        <Stack gap={2}>
+          <Card variant="outlined">
+            <Section title="Booking">
+              <BookingFacts booking={b} />
+            </Section>
+          </Card>
+          <Card variant="outlined">
+            <Section title="Payments">
+              <PaymentsList payments={b.payments} />
+            </Section>
+          </Card>
+          <Card variant="outlined">
+            <Section title="History: who did what when">
+              <EventTimeline events={b.events} />
+            </Section>
+          </Card>
+          <SafetyNote />
+        </Stack>
+      </Box>
+      <Notice message={notice} onClose={() => setNotice(null)} />
+    </Stack>
+  );
+}

@@ -1,0 +1,96 @@
+import Chip from '@mui/joy/Chip';
+import Tab from '@mui/joy/Tab';
+import TabList from '@mui/joy/TabList';
+import Tabs from '@mui/joy/Tabs';
+import Typography from '@mui/joy/Typography';
+import { benchStates, type BenchState, type BookingSummary } from '@loomwright/shared';
+import { useQueries } from '@tanstack/react-query';
+import { useNavigate } from 'react-router';
+import { DataTable, type Column } from 'src/components/DataTable';
+import { FilterBar } from 'src/components/FilterBar';
+import { PageHeader } from 'src/components/PageHeader';
+import { SearchField } from 'src/components/SearchField';
+import { shortStateLabels, StateChip } from 'src/components/StateChip';
+import { bookingsQueryOptions, useBookings, type BookingSort } from 'src/features/bookings/api/list-bookings';
+import { formatDay, formatHours, formatMoney, formatMoneyRange } from 'src/lib/format';
+import { useListParams } from 'src/lib/use-list-params';
+
+const columns: Column<BookingSummary>[] = [
+  { id: 'reference', header: 'Reference', sortKey: 'reference', width: 100, render: (b) => <strong>{b.reference}</strong> },
+  { id: 'customer', header: 'Customer', render: (b) => b.customer.name },
+  { id: 'builder', header: 'Builder', render: (b) => (b.builder ? `${b.builder.name} (${b.builder.level})` : '—') },
+  { id: 'rig', header: 'Rig', width: '26%', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
+  { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 110, render: (b) => formatDay(b.benchDate) },
+  { id: 'done', header: 'Expected done', width: 120, render: (b) => formatDay(b.expectedCompletion) },
+  { id: 'hours', header: 'Labor', align: 'right', width: 70, render: (b) => formatHours(b.laborHours) },
+  {
+    id: 'total',
+    header: 'Total',
+    align: 'right',
+    width: 110,
+    render: (b) => (b.firmTotal ? formatMoney(b.firmTotal, b.currency) : formatMoneyRange(b.totalLow, b.totalHigh, b.currency)),
+  },
+  { id: 'state', header: 'State', sortKey: 'state', width: 120, render: (b) => <StateChip state={b.state} /> },
+  { id: 'updated', header: 'Last change', sortKey: 'updated_at', firstOrder: 'desc', width: 110, render: (b) => formatDay(b.updatedAt.slice(0, 10)) },
+];
+
+export function Component() {
+  const navigate = useNavigate();
+  const { params, update, toggleSort } = useListParams({
+    sort: 'bench_date',
+    order: 'asc',
+    filters: { state: 'scheduled', q: '' },
+  });
+  const state = (benchStates as readonly string[]).includes(params.filters.state) ? (params.filters.state as BenchState) : 'scheduled';
+  const list = useBookings({
+    page: params.page,
+    pageSize: params.pageSize,
+    sort: params.sort as BookingSort,
+    order: params.order,
+    state,
+    q: params.filters.q || undefined,
+  });
+  // One count per state for the tabs: a one-row page of each answers "how many" from the server.
+  const counts = useQueries({
+    queries: benchStates.map((s) => bookingsQueryOptions({ page: 1, pageSize: 1, sort: 'created_at', order: 'desc', state: s })),
+  });
+
+  return (
+    <>
+      <PageHeader title="Builds" hint="Every accepted build by where it stands. Open one to move it on, record intake and hours, and read its history." />
+      <Tabs value={state} onChange={(_, value) => value && update({ filters: { state: String(value) } })} sx={{ bgcolor: 'transparent', mb: 1.5 }}>
+        <TabList>
+          {benchStates.map((s, index) => (
+            <Tab key={s} value={s} indicatorInset>
+              {shortStateLabels[s]}
+              <Chip size="sm" variant="soft" sx={{ ml: 1 }}>
+                {counts[index].data?.total ?? '…'}
+              </Chip>
+            </Tab>
+          ))}
+        </TabList>
+      </Tabs>
+      <FilterBar label="Filter builds">
+        <SearchField label="Search" placeholder="Customer name, e-mail or reference" value={params.filters.q} onChange={(q) => update({ filters: { q } })} />
+      </FilterBar>
+      <DataTable
+        label={`Builds: ${shortStateLabels[state]}`}
+        columns={columns}
+        rows={list.data?.items}
+        total={list.data?.total}
+        page={params.page}
+        pageSize={params.pageSize}
+        sort={params.sort}
+        order={params.order}
+        onSort={toggleSort}
+        onPage={(page) => update({ page })}
+        onPageSize={(pageSize) => update({ pageSize })}
+        getRowId={(b) => b.id}
+        onOpen={(b) => navigate(`/builds/${b.id}`)}
+        isFetching={list.isFetching}
+        error={list.error}
+        emptyText={`No builds are ${shortStateLabels[state].toLowerCase()} right now.`}
+      />
+    </>
+  );
+}

@@ -1,0 +1,68 @@
+import type { CustomerSummary } from '@loomwright/shared';
+import { DataTable, type Column } from 'src/components/DataTable';
+import { ErrorNote } from 'src/components/ErrorNote';
+import { FilterBar } from 'src/components/FilterBar';
+import { PageHeader } from 'src/components/PageHeader';
+import { PageLoading } from 'src/components/PageLoading';
+import { SearchField } from 'src/components/SearchField';
+import { SidePanel } from 'src/components/SidePanel';
+import { useCustomer } from 'src/features/customers/api/get-customer';
+import { useCustomers, type CustomerSort } from 'src/features/customers/api/list-customers';
+import { CustomerDetails } from 'src/features/customers/components/CustomerDetails';
+import { formatDay } from 'src/lib/format';
+import { useListParams } from 'src/lib/use-list-params';
+
+const columns: Column<CustomerSummary>[] = [
+  { id: 'name', header: 'Name', sortKey: 'name', render: (c) => <strong>{c.name}</strong> },
+  { id: 'email', header: 'E-mail', sortKey: 'email', render: (c) => c.email },
+  { id: 'phone', header: 'Phone', width: 140, render: (c) => c.phone ?? '—' },
+  { id: 'builds', header: 'Builds', sortKey: 'buildCount', firstOrder: 'desc', align: 'right', width: 80, render: (c) => c.buildCount },
+  { id: 'active', header: 'In progress', align: 'right', width: 100, render: (c) => c.activeBuildCount },
+  { id: 'last', header: 'Last request', width: 120, render: (c) => formatDay(c.lastBookingAt?.slice(0, 10)) },
+  { id: 'since', header: 'Customer since', sortKey: 'createdAt', firstOrder: 'desc', width: 130, render: (c) => formatDay(c.createdAt.slice(0, 10)) },
+];
+
+export function Component() {
+  const { params, update, toggleSort } = useListParams({ sort: 'name', order: 'asc', filters: { q: '', open: '' } });
+  const list = useCustomers({
+    page: params.page,
+    pageSize: params.pageSize,
+    sort: params.sort as CustomerSort,
+    order: params.order,
+    search: params.filters.q || undefined,
+  });
+  const openId = params.filters.open || null;
+  const detail = useCustomer(openId);
+  return (
+    <>
+      <PageHeader title="Customers" hint="Every player with an account, with their builds, payments and the messages the shop sent them." />
+      <FilterBar label="Filter customers">
+        <SearchField label="Search" placeholder="Name or e-mail" value={params.filters.q} onChange={(q) => update({ filters: { q } })} />
+      </FilterBar>
+      <DataTable
+        label="Customers"
+        columns={columns}
+        rows={list.data?.items}
+        total={list.data?.total}
+        page={params.page}
+        pageSize={params.pageSize}
+        sort={params.sort}
+        order={params.order}
+        onSort={toggleSort}
+        onPage={(page) => update({ page })}
+        onPageSize={(pageSize) => update({ pageSize })}
+        getRowId={(c) => c.id}
+        onOpen={(c) => update({ filters: { open: c.id }, page: params.page })}
+        selectedId={openId}
+        isFetching={list.isFetching}
+        error={list.error}
+        emptyText="No customers match this search."
+      />
+      <SidePanel open={Boolean(openId)} onClose={() => update({ filters: { open: '' }, page: params.page })} title={detail.data?.name ?? 'Customer'}>
+        {detail.isPending && <PageLoading />}
+        <ErrorNote error={detail.error} />
+        {detail.data && <CustomerDetails customer={detail.data} />}
+      </SidePanel>
+    </>
+  );
+}

@@ -1,0 +1,192 @@
+import Button from '@mui/joy/Button';
+import Link from '@mui/joy/Link';
+import Stack from '@mui/joy/Stack';
+import Typography from '@mui/joy/Typography';
+import { bookingStates, type BookingState, type BookingSummary, type DepositStatus } from '@loomwright/shared';
+import { useState } from 'react';
+import { Link as RouterLink } from 'react-router';
+import { DataTable, type Column } from 'src/components/DataTable';
+import { ErrorNote } from 'src/components/ErrorNote';
+import { FilterBar } from 'src/components/FilterBar';
+import { Notice } from 'src/components/Notice';
+import { PageHeader } from 'src/components/PageHeader';
+import { PageLoading } from 'src/components/PageLoading';
+import { SearchField } from 'src/components/SearchField';
+import { SelectFilter } from 'src/components/SelectFilter';
+import { SidePanel } from 'src/components/SidePanel';
+import { shortStateLabels, StateChip } from 'src/components/StateChip';
+import { useBooking } from 'src/features/bookings/api/get-booking';
+import { useBookings, type BookingSort } from 'src/features/bookings/api/list-bookings';
+import { BookingDetails } from 'src/features/bookings/components/BookingDetails';
+import { AcceptDialog } from 'src/features/requests/components/AcceptDialog';
+import { DeclineDialog } from 'src/features/requests/components/DeclineDialog';
+import { useMe } from 'src/features/auth/api/get-me';
+import { formatDay, formatHours, formatMoney, formatMoneyRange, formatStamp } from 'src/lib/format';
+import { useListParams } from 'src/lib/use-list-params';
+
+const depositWords: Record<DepositStatus, string> = {
+  unpaid: 'Not paid',
+  pending: 'Checkout open',
+  paid: 'Paid',
+  refunded: 'Refunded',
+};
+
+const columns: Column<BookingSummary>[] = [
+  { id: 'reference', header: 'Reference', sortKey: 'reference', width: 100, render: (b) => <strong>{b.reference}</strong> },
+  { id: 'created', header: 'Requested', sortKey: 'created_at', firstOrder: 'desc', width: 150, render: (b) => formatStamp(b.createdAt) },
+  {
+    id: 'customer',
+    header: 'Customer',
+    render: (b) => (
+      <>
+        {b.customer.name}
+        <Typography level="body-xs" sx={{ display: 'block' }}>
+          {b.customer.email}
+        </Typography>
+      </>
+    ),
+  },
+  { id: 'rig', header: 'Rig', width: '28%', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
+  { id: 'hours', header: 'Labor', align: 'right', width: 70, render: (b) => formatHours(b.laborHours) },
+  {
+    id: 'estimate',
+    header: 'Estimate',
+    align: 'right',
+    width: 160,
+    render: (b) => (b.firmTotal ? formatMoney(b.firmTotal, b.currency) : formatMoneyRange(b.totalLow, b.totalHigh, b.currency)),
+  },
+  {
+    id: 'deposit',
+    header: 'Deposit',
+    width: 130,
+    render: (b) => (
+      <>
+        {depositWords[b.depositStatus]}
+        <Typography level="body-xs" sx={{ display: 'block' }}>
+          {formatMoney(b.deposit, b.currency)}
+        </Typography>
+      </>
+    ),
+  },
+  { id: 'state', header: 'State', sortKey: 'state', width: 120, render: (b) => <StateChip state={b.state} /> },
+  { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 110, render: (b) => formatDay(b.benchDate) },
+];
+
+const stateOptions = [
+  { value: '', label: 'Every state' },
+  ...bookingStates.filter((s) => s !== 'draft').map((s) => ({ value: s, label: shortStateLabels[s as BookingState] })),
+];
+const depositOptions = [
+  { value: '', label: 'Any deposit' },
+  ...(['paid', 'pending', 'unpaid', 'refunded'] as const).map((d) => ({ value: d, label: depositWords[d] })),
+];
+
+export function Component() {
+  const me = useMe();
+  const isOwner = me.data?.role === 'owner';
+  const { params, update, toggleSort } = useListParams({
+    sort: 'created_at',
+    order: 'desc',
+    filters: { state: '', deposit: '', q: '', open: '' },
+  });
+  const list = useBookings({
+    page: params.page,
+    pageSize: params.pageSize,
+    sort: params.sort as BookingSort,
+    order: params.order,
+    state: params.filters.state || undefined,
+    deposit: (params.filters.deposit || undefined) as DepositStatus | undefined,
+    q: params.filters.q || undefined,
+  });
+  const openId = params.filters.open || null;
+  const detail = useBooking(openId);
+  const [accepting, setAccepting] = useState<BookingSummary | null>(null);
+  const [declining, setDeclining] = useState<BookingSummary | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
+
+  const setOpen = (id: string) =>
+    // Opening a row must not reset the page, so it goes around the filter patch.
+    update({ filters: { open: id }, page: params.page });
+
+  const booking = detail.data;
+  return (
+    <>
+      <PageHeader
+        title="Requests"
+        hint="Every booking request, newest first. A paid request waits here until a builder accepts it and sets a bench date, or the shop declines it."
+      />
+      <FilterBar label="Filter requests">
+        <SearchField
+          label="Search"
+          placeholder="Customer name, e-mail or reference"
+          value={params.filters.q}
+          onChange={(q) => update({ filters: { q } })}
+        />
+        <SelectFilter label="State" value={params.filters.state} options={stateOptions} onChange={(state) => update({ filters: { state } })} />
+        <SelectFilter label="Deposit" value={params.filters.deposit} options={depositOptions} onChange={(deposit) => update({ filters: { deposit } })} minWidth={150} />
+        {(params.filters.q || params.filters.state || params.filters.deposit) && (
+          <Button size="sm" variant="plain" color="neutral" onClick={() => update({ filters: { q: '', state: '', deposit: '' } })}>
+            Clear filters
+          </Button>
+        )}
+      </FilterBar>
+      <DataTable
+        label="Booking requests"
+        columns={columns}
+        rows={list.data?.items}
+        total={list.data?.total}
+        page={params.page}
+        pageSize={params.pageSize}
+        sort={params.sort}
+        order={params.order}
+        onSort={toggleSort}
+        onPage={(page) => update({ page })}
+        onPageSize={(pageSize) => update({ pageSize })}
+        getRowId={(b) => b.id}
+        onOpen={(b) => setOpen(b.id)}
+        selectedId={openId}
+        isFetching={list.isFetching}
+        error={list.error}
+        emptyText="No requests match these filters."
+      />
+      <SidePanel
+        open={Boolean(openId)}
+        onClose={() => update({ filters: { open: '' }, page: params.page })}
+        title={booking ? `${booking.reference} · ${booking.customer.name}` : 'Request'}
+      >
+        {detail.isPending && <PageLoading />}
+        <ErrorNote error={detail.error} action="Close the panel and pick the request again." />
+        {booking && (
+          <>
+            <Stack direction="row" gap={1} flexWrap="wrap" alignItems="center">
+              <StateChip state={booking.state} />
+              <Stack sx={{ flex: 1 }} />
+              {booking.state === 'deposit_paid' && (
+                <Button color="accent" onClick={() => setAccepting(booking)}>
+                  Accept…
+                </Button>
+              )}
+              {(booking.state === 'requested' || booking.state === 'deposit_paid') && (
+                <Button color="danger" variant="outlined" onClick={() => setDeclining(booking)}>
+                  Decline…
+                </Button>
+              )}
+              {booking.builder && (
+                <Link component={RouterLink} to={`/builds/${booking.id}`}>
+                  Open the build page
+                </Link>
+              )}
+            </Stack>
+            {booking.state === 'requested' && (
+              <Typography level="body-sm">The deposit is not paid yet; the request can be accepted once it is.</Typography>
+            )}
+            <BookingDetails booking={booking} show="all" />
+          </>
+        )}
+      </SidePanel>
+      <AcceptDialog booking={accepting} isOwner={isOwner} onClose={() => setAccepting(null)} onAccepted={setNotice} />
+      <DeclineDialog booking={declining} isOwner={isOwner} onClose={() => setDeclining(null)} onDeclined={setNotice} />
+      <Notice message={notice} onClose={() => setNotice(null)} />
+    </>
+  );
+}

@@ -1,0 +1,87 @@
+import Button from '@mui/joy/Button';
+import Sheet from '@mui/joy/Sheet';
+import Table from '@mui/joy/Table';
+import Typography from '@mui/joy/Typography';
+import type { TeamMember } from '@loomwright/shared';
+import { useState } from 'react';
+import { ErrorNote } from 'src/components/ErrorNote';
+import { Notice } from 'src/components/Notice';
+import { PageHeader } from 'src/components/PageHeader';
+import { PageLoading } from 'src/components/PageLoading';
+import { useMe } from 'src/features/auth/api/get-me';
+import { useTeam } from 'src/features/team/api/get-team';
+import { TeamMemberDialog, weekdays } from 'src/features/team/components/TeamMemberDialog';
+import { formatHours, formatMoney } from 'src/lib/format';
+
+export function Component() {
+  const team = useTeam();
+  const me = useMe();
+  const isOwner = me.data?.role === 'owner';
+  const [editing, setEditing] = useState<TeamMember | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
+  return (
+    <>
+      <PageHeader
+        title="Team"
+        hint={
+          isOwner
+            ? 'Builders with their level, hourly rate and bench hours. The bench schedule and every new firm quote follow these.'
+            : 'Builders with their level, hourly rate and bench hours. Only the owner changes them.'
+        }
+      />
+      <ErrorNote error={team.error} />
+      {team.isPending && <PageLoading />}
+      {team.data && (
+        <Sheet variant="outlined" sx={{ borderRadius: 'md', overflow: 'auto', bgcolor: 'background.surface' }}>
+          <Table aria-label="Builders" size="sm" sx={{ '--TableCell-height': '40px', '& thead th': { bgcolor: 'background.level1' } }}>
+            <thead>
+              <tr>
+                <th>Builder</th>
+                <th>Level</th>
+                <th style={{ textAlign: 'right' }}>Hourly rate</th>
+                {weekdays.map(([d, name]) => (
+                  <th key={d} style={{ textAlign: 'right', width: 52 }}>
+                    {name}
+                  </th>
+                ))}
+                <th style={{ textAlign: 'right' }}>Per week</th>
+                <th>Status</th>
+                {isOwner && <th style={{ width: 90 }} />}
+              </tr>
+            </thead>
+            <tbody>
+              {team.data.map((m) => (
+                <tr key={m.id}>
+                  <td>
+                    <strong>{m.name}</strong>
+                    <Typography level="body-xs" sx={{ display: 'block' }}>
+                      {m.email}
+                    </Typography>
+                  </td>
+                  <td>{m.level}</td>
+                  <td style={{ textAlign: 'right' }}>{formatMoney(m.hourlyRate)}/h</td>
+                  {weekdays.map(([d]) => (
+                    <td key={d} style={{ textAlign: 'right' }}>
+                      {m.weeklyHours[d] ? m.weeklyHours[d] : <Typography level="body-xs">off</Typography>}
+                    </td>
+                  ))}
+                  <td style={{ textAlign: 'right' }}>{formatHours(m.weeklyCapacityHours)}</td>
+                  <td>{m.active ? 'Takes builds' : 'Not taking builds'}</td>
+                  {isOwner && (
+                    <td>
+                      <Button size="sm" variant="outlined" onClick={() => setEditing(m)} aria-label={`Edit ${m.name}`}>
+                        Edit
+                      </Button>
+                    </td>
+                  )}
+                </tr>
+              ))}
+            </tbody>
+          </Table>
+        </Sheet>
+      )}
+      <TeamMemberDialog member={editing} onClose={() => setEditing(null)} onSaved={setNotice} />
+      <Notice message={notice} onClose={() => setNotice(null)} />
+    </>
+  );
+}

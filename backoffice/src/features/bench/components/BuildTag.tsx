@@ -1,0 +1,35 @@
+import Link from '@mui/joy/Link';
+import Typography from '@mui/joy/Typography';
+import type { BenchBuild } from '@loomwright/shared';
+import { Link as RouterLink } from 'react-router';
+import { shortStateLabels } from 'src/components/StateChip';
+import { formatHours } from 'src/lib/format';
+
+/** A build on a day: reference, customer, its hours that day and its state, all in words. */
+export function BuildTag({ build }: { build: BenchBuild }) {
+  return (
+    <Link
+      component={RouterLink}
+      to={`/builds/${build.bookingId}`}
+      underline="none"
+      sx={{
+        display: 'block',
+        px: 0.75,
+        py: 0.25,
+        borderRadius: 'xs',
+        borderLeft: '3px solid',
+        borderColor: 'primary.400',
+        bgcolor: 'primary.50',
+        color: 'text.primary',
+        '&:hover': { bgcolor: 'primary.100' },
+      }}
+    >
+      <Typography level="body-xs" sx={{ fontWeight: 'lg', color: 'text.primary' }} noWrap>
+        {build.reference} · {build.customerName}
+      </Typography>
+      <Typography level="body-xs" noWrap>
+        {formatHours(build.hours)} · {shortStateLabels[build.state]}
+      </Typography>
+    </Link>
+  );
+}

@@ -1,0 +1,43 @@
+import Typography from '@mui/joy/Typography';
+import { bookingStateLabels, type BookingDetail } from '@loomwright/shared';
+import { formatDay, formatHours, formatMoney, formatMoneyRange, formatStamp } from 'src/lib/format';
+import { Facts } from './Section';
+
+const depositWords = {
+  unpaid: 'Not paid',
+  pending: 'Checkout open, not paid yet',
+  paid: 'Paid',
+  refunded: 'Refunded',
+} as const;
+
+export function BookingFacts({ booking }: { booking: BookingDetail }) {
+  const c = booking.currency;
+  const depositPayment = booking.payments.find((p) => p.kind === 'deposit' && (p.status === 'paid' || p.status === 'refunded'));
+  return (
+    <Facts
+      items={[
+        ['State', bookingStateLabels[booking.state]],
+        ['Customer', (
+          <>
+            {booking.customer.name}{' '}
+            <Typography component="span" level="body-xs">{booking.customer.email}</Typography>
+          </>
+        )],
+        ['Requested', formatStamp(booking.createdAt)],
+        ['Builder', booking.builder ? `${booking.builder.name} (${booking.builder.level})` : 'Not assigned yet'],
+        ['Bench date', formatDay(booking.benchDate)],
+        ['Expected completion', formatDay(booking.expectedCompletion)],
+        ['Labor', formatHours(booking.laborHours)],
+        ['Estimate', formatMoneyRange(booking.totalLow, booking.totalHigh, c)],
+        ['Firm quote', booking.firmTotal ? formatMoney(booking.firmTotal, c) : 'Set when a builder accepts'],
+        ['Deposit', `${formatMoney(booking.deposit, c)} · ${depositWords[booking.depositStatus]}${depositPayment?.paidAt ? ` ${formatStamp(depositPayment.paidAt)}` : ''}`],
+        ['Balance due', booking.balanceDue ? formatMoney(booking.balanceDue, c) : '—'],
+        ...(booking.inbound
+          ? ([['Parcel in', `${booking.inbound.carrier} · ${booking.inbound.tracking}`]] as Array<[string, string]>)
+          : []),
+        ...(booking.declineReason ? ([['Declined because', booking.declineReason]] as Array<[string, string]>) : []),
+        ...(booking.cancelReason ? ([['Cancelled because', booking.cancelReason]] as Array<[string, string]>) : []),
+      ]}
+    />
+  );
+}

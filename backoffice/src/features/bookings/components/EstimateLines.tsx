@@ -1,0 +1,71 @@
+import Table from '@mui/joy/Table';
+import Typography from '@mui/joy/Typography';
+import type { QuoteView } from '@loomwright/shared';
+import { formatDay, formatMoney, formatMoneyRange } from 'src/lib/format';
+
+/** A quote exactly as it was priced: its lines, totals and the price-book version it came from. */
+export function EstimateLines({ quote }: { quote: QuoteView }) {
+  const e = quote.estimate;
+  const c = quote.currency;
+  return (
+    <>
+      <Typography level="body-xs">
+        {quote.kind === 'firm' ? 'Firm quote' : 'Estimate'} priced from price book version {quote.priceBookVersion}
+        {quote.kind === 'estimate' ? `; valid until ${formatDay(quote.expiresAt.slice(0, 10))}` : ''}.
+      </Typography>
+      <Table size="sm" aria-label="Estimate lines" sx={{ '--TableCell-height': '28px', fontVariantNumeric: 'tabular-nums' }}>
+        <thead>
+          <tr>
+            <th style={{ width: '46%' }}>Line</th>
+            <th style={{ textAlign: 'right' }}>Qty</th>
+            <th style={{ textAlign: 'right' }}>Unit price</th>
+            <th style={{ textAlign: 'right' }}>Amount</th>
+          </tr>
+        </thead>
+        <tbody>
+          {e.lines.map((line) => (
+            <tr key={line.code}>
+              <td>
+                {line.label}
+                {line.explanation && (
+                  <Typography level="body-xs" sx={{ display: 'block' }}>
+                    {line.explanation}
+                  </Typography>
+                )}
+              </td>
+              <td style={{ textAlign: 'right' }}>
+                {line.quantity} {line.unit}
+              </td>
+              <td style={{ textAlign: 'right' }}>{formatMoney(line.unitPrice, c)}</td>
+              <td style={{ textAlign: 'right' }}>
+                {line.amountHigh ? formatMoneyRange(line.amount, line.amountHigh, c) : formatMoney(line.amount, c)}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+        <tfoot>
+          <tr>
+            <th colSpan={3}>Materials</th>
+            <td style={{ textAlign: 'right' }}>{formatMoney(e.materialsTotal, c)}</td>
+          </tr>
+          <tr>
+            <th colSpan={3}>Labor ({e.laborHours} h)</th>
+            <td style={{ textAlign: 'right' }}>
+              {quote.laborTotal ? formatMoney(quote.laborTotal, c) : formatMoneyRange(e.laborLow, e.laborHigh, c)}
+            </td>
+          </tr>
+          <tr>
+            <th colSpan={3}>Total</th>
+            <td style={{ textAlign: 'right', fontWeight: 700 }}>
+              {quote.total ? formatMoney(quote.total, c) : formatMoneyRange(quote.totalLow, quote.totalHigh, c)}
+            </td>
+          </tr>
+          <tr>
+            <th colSpan={3}>Deposit</th>
+            <td style={{ textAlign: 'right' }}>{formatMoney(quote.deposit, c)}</td>
+          </tr>
+        </tfoot>
+      </Table>
+    </>
+  );
+}

@@ -1,0 +1,25 @@
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { CustomerPage } from '@loomwright/shared';
+import { api } from 'src/lib/api-client';
+
+export type CustomerSort = 'name' | 'email' | 'createdAt' | 'buildCount';
+
+export interface CustomerListQuery {
+  page: number;
+  pageSize: number;
+  sort: CustomerSort;
+  order: 'asc' | 'desc';
+  search?: string;
+}
+
+export const listCustomers = (query: CustomerListQuery, signal?: AbortSignal) =>
+  api.get<CustomerPage>('/customers', { query: { ...query }, signal });
+
+export const customersQueryOptions = (query: CustomerListQuery) =>
+  queryOptions({
+    queryKey: ['customers', 'list', query],
+    queryFn: ({ signal }) => listCustomers(query, signal),
+    placeholderData: keepPreviousData,
+  });
+
+export const useCustomers = (query: CustomerListQuery) => useQuery(customersQueryOptions(query));

@@ -1,0 +1,239 @@
+import Alert from '@mui/joy/Alert';
+import Button from '@mui/joy/Button';
+import DialogActions from '@mui/joy/DialogActions';
+import DialogContent from '@mui/joy/DialogContent';
+import DialogTitle from '@mui/joy/DialogTitle';
+import FormControl from '@mui/joy/FormControl';
+import FormHelperText from '@mui/joy/FormHelperText';
+import FormLabel from '@mui/joy/FormLabel';
+import Input from '@mui/joy/Input';
+import Modal from '@mui/joy/Modal';
+import ModalDialog from '@mui/joy/ModalDialog';
+import Radio from '@mui/joy/Radio';
+import RadioGroup from '@mui/joy/RadioGroup';
+import Sheet from '@mui/joy/Sheet';
+import Stack from '@mui/joy/Stack';
+import Textarea from '@mui/joy/Textarea';
+import Typography from '@mui/joy/Typography';
+import { type BenchSuggestion, type BookingSummary } from '@loomwright/shared';
+import { useEffect, useMemo, useState } from 'react';
+import { ErrorNote } from 'src/components/ErrorNote';
+import { PageLoading } from 'src/components/PageLoading';
+import { formatDay, formatHours, formatMoney } from 'src/lib/format';
+import { useAcceptBooking } from '../api/accept-booking';
+import { useBenchSuggestion } from '../api/get-bench-suggestion';
+
+/**
+ * Accepting a paid request: who builds it and from which day. Each builder's earliest bench date
+ * comes from the server's schedule (capacity, closures, holidays); the server checks the chosen
+ * date again when the build is accepted, so two people accepting at once can never overbook.
+ */
+export function AcceptDialog({
+  booking,
+  isOwner,
+  onClose,
+  onAccepted,
+}: {
+  booking: BookingSummary | null;
+  isOwner: boolean;
+  onClose: () => void;
+  onAccepted?: (message: string) => void;
+}) {
+  const suggestion = useBenchSuggestion(booking?.id ?? null);
+  const accept = useAcceptBooking();
+  const [builderId, setBuilderId] = useState<string | null>(null);
+  const [benchDate, setBenchDate] = useState('');
+  const [overrideReason, setOverrideReason] = useState('');
+  const [formError, setFormError] = useState<string | null>(null);
+
+  const options = suggestion.data?.suggestions ?? [];
+  const chosen: BenchSuggestion | undefined = useMemo(
+    () => options.find((s) => s.builder.id === builderId),
+    [options, builderId],
+  );
+
+  // Prefill: the first suggestion is the earliest start that meets the rig's level.
+  useEffect(() => {
+    if (!suggestion.data || builderId) return;
+    const first = suggestion.data.suggestions.find((s) => s.meetsMinimumLevel) ?? suggestion.data.suggestions[0];
+    if (first) {
+      setBuilderId(first.builder.id);
+      setBenchDate(first.benchDate);
+    }
+  }, [suggestion.data, builderId]);
+
+  useEffect(() => {
+    if (!booking) {
+      setBuilderId(null);
+      setBenchDate('');
+      setOverrideReason('');
+      setFormError(null);
+      accept.reset();
+    }
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [booking]);
+
+  const pick = (id: string) => {
+    setBuilderId(id);
+    const s = options.find((o) => o.builder.id === id);
+    if (s) setBenchDate(s.benchDate);
+    setFormError(null);
+  };
+
+  const needsOverride = chosen ? !chosen.meetsMinimumLevel : false;
+
+  const submit = () => {
+    if (!booking || !chosen) return setFormError('Choose who builds it.');
+    if (!benchDate) return setFormError('Choose a bench date.');
+    if (benchDate < chosen.benchDate)
+      return setFormError(`${chosen.builder.name}'s bench is full before ${formatDay(chosen.benchDate)}; pick that day or later.`);
+    if (needsOverride && overrideReason.trim().length < 5)
+      return setFormError('Say why this builder may take a rig above their level (at least a few words).');
+    setFormError(null);
+    accept.mutate(
+      {
+        id: booking.id,
+        body: {
+          builderId: chosen.builder.id,
+          benchDate,
+          ...(needsOverride ? { levelOverrideReason: overrideReason.trim() } : {}),
+        },
+      },
+      {
+        onSuccess: (result) => {
+          onAccepted?.(
+            `${booking.reference} is scheduled with ${chosen.builder.name} from ${formatDay(result.benchDate)}, expected done ${formatDay(result.expectedCompletion)}.`,
+          );
+          onClose();
+        },
+      },
+    );
+  };
+
+  const data = suggestion.data;
+  return (
+    <Modal open={Boolean(booking)} onClose={onClose}>
+      <ModalDialog sx={{ width: 'min(640px, 96vw)', overflow: 'auto' }} aria-labelledby="accept-title">
+        <DialogTitle id="accept-title" component="h2">
+          Accept {booking?.reference} and set the bench date
+        </DialogTitle>
+        <DialogContent sx={{ gap: 2 }}>
+          {suggestion.isPending && <PageLoading label="Reading the bench schedule…" />}
+          <ErrorNote error={suggestion.error} action="Close this and try again in a moment." />
+          {data && (
+            <>
+              <Typography level="body-sm">
+                {booking?.customer.name} · {formatHours(data.laborHours)} of labor · this rig needs at least a{' '}
+                <strong>{data.minimumLevel}</strong> builder.
+              </Typography>
+              <FormControl>
+                <FormLabel id="accept-builder-label">Who builds it</FormLabel>
+                <RadioGroup
+                  aria-labelledby="accept-builder-label"
+                  value={builderId ?? ''}
+                  onChange={(event) => pick(event.target.value)}
+                  sx={{ gap: 1 }}
+                >
+                  {options.map((s) => {
+                    const blocked = !s.meetsMinimumLevel && !isOwner;
+                    return (
+                      <Sheet
+                        key={s.builder.id}
+                        variant="outlined"
+                        sx={{
+                          p: 1.25,
+                          borderRadius: 'sm',
+                          ...(builderId === s.builder.id ? { borderColor: 'primary.500', bgcolor: 'primary.50' } : {}),
+                        }}
+                      >
+                        <Radio
+                          value={s.builder.id}
+                          disabled={blocked}
+                          overlay
+                          label={
+                            <Stack>
+                              <Typography level="title-sm">
+                                {s.builder.name}
+                                {s.builder.isMe ? ' (you)' : ''} · {s.builder.level}
+                              </Typography>
+                              <Typography level="body-xs">
+                                {s.meetsMinimumLevel
+                                  ? `Meets the ${data.minimumLevel} minimum.`
+                                  : `Below the ${data.minimumLevel} minimum${isOwner ? '; you may assign with a reason.' : '; only the owner can assign this, with a reason.'}`}{' '}
+                                Earliest start {formatDay(s.benchDate)}, done {formatDay(s.expectedCompletion)} ·{' '}
+                                {formatMoney(s.builder.hourlyRate, data.currency)}/h → firm total{' '}
+                                {formatMoney(s.firmTotal, data.currency)}
+                              </Typography>
+                            </Stack>
+                          }
+                        />
+                      </Sheet>
+                    );
+                  })}
+                </RadioGroup>
+                {data.ineligible.length > 0 && (
+                  <FormHelperText sx={{ flexDirection: 'column', alignItems: 'flex-start' }}>
+                    {data.ineligible.map((i) => (
+                      <span key={i.builder.id}>
+                        {i.builder.name} ({i.builder.level}): {i.reason}
+                      </span>
+                    ))}
+                  </FormHelperText>
+                )}
+              </FormControl>
+              {chosen && (
+                <>
+                  <FormControl>
+                    <FormLabel>Bench date</FormLabel>
+                    <Input
+                      type="date"
+                      value={benchDate}
+                      slotProps={{ input: { min: chosen.benchDate } }}
+                      onChange={(event) => setBenchDate(event.target.value)}
+                    />
+                    <FormHelperText>
+                      {benchDate === chosen.benchDate
+                        ? `Suggested: the earliest day ${chosen.builder.name}'s bench holds ${formatHours(data.laborHours)}. Expected completion ${formatDay(chosen.expectedCompletion)}; the player ships by ${formatDay(chosen.shipBy)}.`
+                        : 'A later start than suggested; the bench checks this date when you accept and works out the completion date from it.'}
+                    </FormHelperText>
+                  </FormControl>
+                  {benchDate === chosen.benchDate && chosen.plan.length > 0 && (
+                    <Typography level="body-xs">
+                      Plan: {chosen.plan.map((p) => `${formatDay(p.date)} ${formatHours(p.hours)}`).join(' · ')}
+                    </Typography>
+                  )}
+                  {needsOverride && (
+                    <FormControl required>
+                      <FormLabel>Why this builder may take it (owner only)</FormLabel>
+                      <Textarea minRows={2} value={overrideReason} onChange={(event) => setOverrideReason(event.target.value)} />
+                    </FormControl>
+                  )}
+                </>
+              )}
+              {options.length === 0 && (
+                <Alert color="warning" variant="soft">
+                  No builder can take this rig right now. Check the team's levels and working hours.
+                </Alert>
+              )}
+            </>
+          )}
+          {formError && (
+            <Alert color="danger" variant="soft" role="alert">
+              {formError}
+            </Alert>
+          )}
+          <ErrorNote error={accept.error} action="Pick another date or builder and try again." />
+        </DialogContent>
+        <DialogActions>
+          <Button color="accent" onClick={submit} loading={accept.isPending} disabled={!chosen}>
+            Accept and schedule
+          </Button>
+          <Button variant="plain" color="neutral" onClick={onClose}>
+            Cancel
+          </Button>
+        </DialogActions>
+      </ModalDialog>
+    </Modal>
+  );
+}
+

@@ -1,0 +1,100 @@
+import Alert from '@mui/joy/Alert';
+import Button from '@mui/joy/Button';
+import DialogActions from '@mui/joy/DialogActions';
+import DialogContent from '@mui/joy/DialogContent';
+import DialogTitle from '@mui/joy/DialogTitle';
+import FormControl from '@mui/joy/FormControl';
+import FormHelperText from '@mui/joy/FormHelperText';
+import FormLabel from '@mui/joy/FormLabel';
+import Modal from '@mui/joy/Modal';
+import ModalDialog from '@mui/joy/ModalDialog';
+import Textarea from '@mui/joy/Textarea';
+import type { BookingSummary } from '@loomwright/shared';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { ErrorNote } from 'src/components/ErrorNote';
+import { formatMoney } from 'src/lib/format';
+import { useDeclineBooking } from '../api/decline-booking';
+
+const declineSchema = z.object({
+  reason: z.string().trim().min(5, 'Give the player a reason in a few words (at least 5 characters).').max(1000),
+});
+
+export function DeclineDialog({
+  booking,
+  isOwner,
+  onClose,
+  onDeclined,
+}: {
+  booking: BookingSummary | null;
+  isOwner: boolean;
+  onClose: () => void;
+  onDeclined?: (message: string) => void;
+}) {
+  const decline = useDeclineBooking();
+  const form = useForm<z.infer<typeof declineSchema>>({ resolver: zodResolver(declineSchema), defaultValues: { reason: '' } });
+  useEffect(() => {
+    if (!booking) {
+      form.reset({ reason: '' });
+      decline.reset();
+    }
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [booking]);
+
+  const paid = booking?.depositStatus === 'paid';
+  const submit = form.handleSubmit(({ reason }) => {
+    if (!booking) return;
+    decline.mutate(
+      { id: booking.id, reason },
+      {
+        onSuccess: () => {
+          onDeclined?.(
+            `${booking.reference} is declined${paid ? `; the deposit of ${formatMoney(booking.deposit, booking.currency)} is being refunded` : ''}.`,
+          );
+          onClose();
+        },
+      },
+    );
+  });
+
+  return (
+    <Modal open={Boolean(booking)} onClose={onClose}>
+      <ModalDialog sx={{ width: 'min(520px, 96vw)' }} aria-labelledby="decline-title">
+        <form onSubmit={submit} noValidate>
+          <DialogTitle id="decline-title" component="h2" sx={{ mb: 1.5 }}>
+            Decline {booking?.reference}
+          </DialogTitle>
+          <DialogContent sx={{ gap: 1.5 }}>
+            {paid && isOwner && (
+              <Alert color="warning" variant="soft">
+                This request is paid. Declining it refunds the deposit of{' '}
+                {booking && formatMoney(booking.deposit, booking.currency)} to the player through the payment provider.
+              </Alert>
+            )}
+            {paid && !isOwner && (
+              <Alert color="warning" variant="soft">
+                This request is paid; declining it refunds the deposit, which only the owner can do. Ask the owner to decline it.
+              </Alert>
+            )}
+            <FormControl error={Boolean(form.formState.errors.reason)} required>
+              <FormLabel>Reason (the player reads it)</FormLabel>
+              <Textarea minRows={3} {...form.register('reason')} />
+              <FormHelperText>{form.formState.errors.reason?.message ?? 'For example: the queue is full until spring.'}</FormHelperText>
+            </FormControl>
+            <ErrorNote error={decline.error} />
+          </DialogContent>
+          <DialogActions sx={{ mt: 1.5 }}>
+            <Button type="submit" color="danger" loading={decline.isPending} disabled={paid && !isOwner}>
+              Decline{paid && isOwner ? ' and refund' : ''}
+            </Button>
+            <Button variant="plain" color="neutral" onClick={onClose}>
+              Cancel
+            </Button>
+          </DialogActions>
+        </form>
+      </ModalDialog>
+    </Modal>
+  );
+}

@@ -1,0 +1,109 @@
+import Button from '@mui/joy/Button';
+import FormControl from '@mui/joy/FormControl';
+import FormLabel from '@mui/joy/FormLabel';
+import Input from '@mui/joy/Input';
+import Stack from '@mui/joy/Stack';
+import Table from '@mui/joy/Table';
+import Typography from '@mui/joy/Typography';
+import type { ShopSettingsView } from '@loomwright/shared';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { ErrorNote } from 'src/components/ErrorNote';
+import { formatDay } from 'src/lib/format';
+import { useAddClosure } from '../api/add-closure';
+import { useRemoveClosure } from '../api/remove-closure';
+
+const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick both days.');
+const closureSchema = z
+  .object({ startsOn: day, endsOn: day, reason: z.string().trim().min(2, 'Say why the shop is closed.').max(200) })
+  .refine((c) => c.endsOn >= c.startsOn, { path: ['endsOn'], message: 'The last day cannot be before the first.' });
+
+/** Shop-wide closed days: no builder has bench time on them. */
+export function ClosuresList({ settings, canEdit, onSaved }: { settings: ShopSettingsView; canEdit: boolean; onSaved: (m: string) => void }) {
+  const add = useAddClosure();
+  const remove = useRemoveClosure();
+  const form = useForm<z.infer<typeof closureSchema>>({ resolver: zodResolver(closureSchema), defaultValues: { startsOn: '', endsOn: '', reason: '' } });
+  const e = form.formState.errors;
+  const firstError = e.startsOn?.message ?? e.endsOn?.message ?? e.reason?.message;
+  return (
+    <Stack gap={1}>
+      {settings.closures.length === 0 ? (
+        <Typography level="body-sm">No closures planned.</Typography>
+      ) : (
+        <Table size="sm" aria-label="Shop closures" sx={{ '--TableCell-height': '32px' }}>
+          <thead>
+            <tr>
+              <th>From</th>
+              <th>To</th>
+              <th>Reason</th>
+              {canEdit && <th style={{ width: 90 }} />}
+            </tr>
+          </thead>
+          <tbody>
+            {settings.closures.map((c) => (
+              <tr key={c.id}>
+                <td>{formatDay(c.startsOn)}</td>
+                <td>{formatDay(c.endsOn)}</td>
+                <td>{c.reason}</td>
+                {canEdit && (
+                  <td>
+                    <Button
+                      size="sm"
+                      variant="plain"
+                      color="danger"
+                      loading={remove.isPending && remove.variables === c.id}
+                      onClick={() => remove.mutate(c.id, { onSuccess: () => onSaved(`Closure “${c.reason}” removed.`) })}
+                    >
+                      Remove
+                    </Button>
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </Table>
+      )}
+      {canEdit && (
+        <Stack
+          component="form"
+          direction="row"
+          gap={1}
+          alignItems="flex-end"
+          flexWrap="wrap"
+          noValidate
+          onSubmit={form.handleSubmit((values) =>
+            add.mutate(values, {
+              onSuccess: () => {
+                form.reset();
+                onSaved('Closure added; the bench skips those days.');
+              },
+            }),
+          )}
+        >
+          <FormControl size="sm" error={Boolean(e.startsOn)}>
+            <FormLabel>First day</FormLabel>
+            <Input type="date" {...form.register('startsOn')} />
+          </FormControl>
+          <FormControl size="sm" error={Boolean(e.endsOn)}>
+            <FormLabel>Last day</FormLabel>
+            <Input type="date" {...form.register('endsOn')} />
+          </FormControl>
+          <FormControl size="sm" error={Boolean(e.reason)} sx={{ flex: 1, minWidth: 200 }}>
+            <FormLabel>Reason</FormLabel>
+            <Input {...form.register('reason')} placeholder="Stocktake" />
+          </FormControl>
+          <Button size="sm" type="submit" loading={add.isPending}>
+            Add closure
+          </Button>
+        </Stack>
+      )}
+      {firstError && (
+        <Typography level="body-sm" color="danger" role="alert">
+          {firstError}
+        </Typography>
+      )}
+      <ErrorNote error={add.error ?? remove.error} />
+    </Stack>
+  );
+}

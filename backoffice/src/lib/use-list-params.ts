@@ -1,0 +1,84 @@
+import { useCallback, useMemo } from 'react';
+import { useSearchParams } from 'react-router';
+
+export type SortOrder = 'asc' | 'desc';
+
+export interface ListParams<F extends string> {
+  page: number;
+  pageSize: number;
+  sort: string;
+  order: SortOrder;
+  filters: Record<F, string>;
+}
+
+export interface ListParamsDefaults<F extends string> {
+  sort: string;
+  order: SortOrder;
+  pageSize?: number;
+  filters: Record<F, string>;
+}
+
+export const pageSizes = [25, 50, 100] as const;
+
+/**
+ * A server-side list's page, sort and filters, kept in the address bar so a filtered view can be
+ * bookmarked, shared, and survives a reload. Changing a filter or the sort goes back to page 1,
+ * because the old page number means nothing in a different list.
+ */
+export function useListParams<F extends string>(defaults: ListParamsDefaults<F>) {
+  const [search, setSearch] = useSearchParams();
+
+  const params = useMemo<ListParams<F>>(() => {
+    const pageSize = Number(search.get('pageSize'));
+    const filters = { ...defaults.filters };
+    for (const key of Object.keys(defaults.filters) as F[]) {
+      const value = search.get(key);
+      if (value !== null) filters[key] = value;
+    }
+    const order = search.get('order');
+    return {
+      page: Math.max(1, Number(search.get('page')) || 1),
+      pageSize: (pageSizes as readonly number[]).includes(pageSize) ? pageSize : (defaults.pageSize ?? 25),
+      sort: search.get('sort') ?? defaults.sort,
+      order: order === 'asc' || order === 'desc' ? order : defaults.order,
+      filters,
+    };
+    // defaults are a literal at the call site; the address bar is the source of truth.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [search]);
+
+  const update = useCallback(
+    (patch: Partial<Omit<ListParams<F>, 'filters'>> & { filters?: Partial<Record<F, string>> }) => {
+      setSearch(
+        (current) => {
+          const next = new URLSearchParams(current);
+          const resetsPage = patch.filters !== undefined || patch.sort !== undefined || patch.pageSize !== undefined;
+          for (const [key, value] of Object.entries(patch.filters ?? {}) as [string, string | undefined][]) {
+            if (value === undefined || value === '' || value === (defaults.filters as Record<string, string>)[key]) next.delete(key);
+            else next.set(key, value);
+          }
+          if (patch.sort !== undefined) next.set('sort', patch.sort);
+          if (patch.order !== undefined) next.set('order', patch.order);
+          if (patch.pageSize !== undefined) next.set('pageSize', String(patch.pageSize));
+          if (patch.page !== undefined) next.set('page', String(patch.page));
+          else if (resetsPage) next.delete('page');
+          return next;
+        },
+        { replace: true },
+      );
+    },
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [setSearch],
+  );
+
+  /** Click on a column header: a new column sorts its natural way, the same column flips. */
+  const toggleSort = useCallback(
+    (sortKey: string, firstOrder: SortOrder = 'asc') => {
+      if (params.sort === sortKey) update({ sort: sortKey, order: params.order === 'asc' ? 'desc' : 'asc' });
+      else update({ sort: sortKey, order: firstOrder });
+    },
+    [params.sort, params.order, update],
+  );
+
+  return { params, update, toggleSort };
+}

@@ -1,0 +1,58 @@
+#!/usr/bin/env node
+// How much gzipped JavaScript the configurator's first load ships: the entry chunk, the /configure
+// route chunk and the first step's chunk, with every chunk they import statically. Reads Vite's
+// build manifest (storefront/dist/.vite/manifest.json), so run `npm run build -w storefront` first.
+// Prints figures; it judges nothing (the budget is printed beside them for the reader).
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { gzipSync } from 'node:zlib';
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+const dist = path.resolve(here, '../../storefront/dist');
+const manifest = JSON.parse(readFileSync(path.join(dist, '.vite/manifest.json'), 'utf8'));
+
+const entryKey = Object.keys(manifest).find((k) => manifest[k].isEntry);
+const routeKey = Object.keys(manifest).find((k) => k.endsWith('app/routes/configure.tsx'));
+const firstStepKey = Object.keys(manifest).find((k) => k.endsWith('steps/SurfaceStep.tsx'));
+if (!entryKey || !routeKey || !firstStepKey) throw new Error('manifest lacks the entry, the /configure route or the Surface step');
+
+/** A chunk with everything it imports statically (what the browser must fetch before it runs). */
+function closure(key, seen = new Set()) {
+  if (seen.has(key)) return seen;
+  seen.add(key);
+  for (const dep of manifest[key].imports ?? []) closure(dep, seen);
+  return seen;
+}
+
+const gz = (file) => gzipSync(readFileSync(path.join(dist, file)), { level: 9 }).length;
+const kB = (bytes) => (bytes / 1000).toFixed(1);
+
+const groups = [
+  ['entry (every page)', closure(entryKey)],
+  ['/configure route', closure(routeKey)],
+  ['Surface step (first step)', closure(firstStepKey)],
+];
+const counted = new Set();
+let total = 0;
+console.log('Storefront first load of /configure, gzipped JavaScript (gzip level 9):');
+for (const [label, keys] of groups) {
+  let sum = 0;
+  for (const key of keys) {
+    if (counted.has(key)) continue;
+    counted.add(key);
+    const size = gz(manifest[key].file);
+    sum += size;
+    console.log(`    ${kB(size).padStart(7)} kB  ${manifest[key].file}`);
+  }
+  total += sum;
+  console.log(`  ${kB(sum).padStart(7)} kB  ${label}`);
+}
+console.log(`  ${kB(total).padStart(7)} kB  total first load (budget 170 kB, aim 150 kB)`);
+
+const later = Object.keys(manifest).filter((k) => k.includes('/steps/') && k.endsWith('Step.tsx') && k !== firstStepKey);
+for (const key of later) {
+  const extra = [...closure(key)].filter((k) => !counted.has(k));
+  const size = extra.reduce((s, k) => s + gz(manifest[k].file), 0);
+  console.log(`  later: ${path.basename(key, '.tsx').padEnd(12)} +${kB(size)} kB on first visit to that step`);
+}

@@ -1,0 +1,129 @@
+import Alert from '@mui/joy/Alert';
+import Box from '@mui/joy/Box';
+import Button from '@mui/joy/Button';
+import Typography from '@mui/joy/Typography';
+import { lazy, Suspense, useCallback, useEffect, useRef, type ComponentType } from 'react';
+import type { Catalog } from '@loomwright/shared';
+import { PageLoading } from 'src/components/PageLoading';
+import { useConfiguration } from '../hooks/use-configuration';
+import { useLiveEstimate } from '../hooks/use-live-estimate';
+import { higherLevel } from '../lib/configuration';
+import { configuratorSteps, type StepId } from '../lib/steps';
+import { EstimatePanel } from './EstimatePanel';
+import { StepProgress } from './StepProgress';
+import type { StepProps } from './steps/step-props';
+
+// Each step is its own chunk: the first screen ships only the Surface step, and the form
+// library arrives with the Pedals step.
+const stepComponents: Record<StepId, ComponentType<StepProps>> = {
+  surface: lazy(() => import('./steps/SurfaceStep')),
+  case: lazy(() => import('./steps/CaseStep')),
+  pedals: lazy(() => import('./steps/PedalsStep')),
+  routing: lazy(() => import('./steps/RoutingStep')),
+  extras: lazy(() => import('./steps/ExtrasStep')),
+  builder: lazy(() => import('./steps/BuilderStep')),
+  review: lazy(() => import('./steps/ReviewStep')),
+};
+
+export function Configurator({ catalog }: { catalog: Catalog }) {
+  const { configuration, encoded, update, step, goToStep, restoredFrom, startOver, dismissRestored } = useConfiguration(catalog);
+  const live = useLiveEstimate(encoded);
+  const guard = useRef<(() => Promise<boolean>) | null>(null);
+  const setLeaveGuard = useCallback((g: (() => Promise<boolean>) | null) => {
+    guard.current = g;
+  }, []);
+
+  // A rig that calls for more experience than the chosen level is priced at the level it needs;
+  // the Builder step says why.
+  const minimum = live.isCurrent ? live.estimate?.minimumLevel : undefined;
+  useEffect(() => {
+    if (minimum && higherLevel(minimum, configuration.level) !== configuration.level) {
+      update((c) => ({ ...c, level: higherLevel(minimum, c.level) }));
+    }
+  }, [minimum, configuration.level, update]);
+
+  // Moving to a step puts the keyboard and screen reader at its heading.
+  const headingRef = useRef<HTMLDivElement>(null);
+  const firstRender = useRef(true);
+  useEffect(() => {
+    if (firstRender.current) {
+      firstRender.current = false;
+      return;
+    }
+    const timer = window.setTimeout(() => headingRef.current?.querySelector<HTMLElement>('[data-step-heading]')?.focus(), 50);
+    return () => window.clearTimeout(timer);
+  }, [step]);
+
+  const index = configuratorSteps.findIndex((s) => s.id === step);
+  const previous = configuratorSteps[index - 1];
+  const next = configuratorSteps[index + 1];
+  const leaveTo = async (target: StepId) => {
+    if (guard.current && configuratorSteps.findIndex((s) => s.id === target) > index && !(await guard.current())) return;
+    goToStep(target);
+  };
+  const Step = stepComponents[step];
+
+  return (
+    <Box
+      sx={{
+        maxWidth: 1280,
+        mx: 'auto',
+        display: 'grid',
+        gap: { xs: 3, md: 4 },
+        gridTemplateColumns: { xs: 'minmax(0, 1fr)', md: 'minmax(0, 1fr) 320px', lg: 'minmax(0, 1fr) 360px' },
+        alignItems: 'start',
+        pb: { xs: 16, md: 0 },
+      }}
+    >
+      <Box sx={{ minWidth: 0 }}>
+        <Typography level="h1" sx={{ fontSize: { xs: 'xl2', md: 'xl3' }, mb: 2 }}>Configure your board</Typography>
+        <StepProgress current={step} onSelect={(s) => void leaveTo(s)} />
+        {restoredFrom ? (
+          <Alert
+            variant="soft"
+            color="neutral"
+            sx={{ mb: 3, flexWrap: 'wrap' }}
+            endDecorator={
+              <Box sx={{ display: 'flex', gap: 1 }}>
+                <Button size="sm" variant="plain" onClick={dismissRestored}>Keep it</Button>
+                <Button size="sm" variant="outlined" onClick={startOver}>Start over</Button>
+              </Box>
+            }
+          >
+            We restored the board you were configuring on{' '}
+            {new Date(restoredFrom).toLocaleString('en-US', { weekday: 'short', day: 'numeric', month: 'short', hour: 'numeric', minute: '2-digit' })}.
+          </Alert>
+        ) : null}
+        <Box component="section" aria-label={`Step ${index + 1}: ${configuratorSteps[index]?.title}`} ref={headingRef}>
+          <Suspense fallback={<PageLoading label="Loading this step…" />}>
+            <Step
+              catalog={catalog}
+              configuration={configuration}
+              update={update}
+              live={live}
+              goToStep={goToStep}
+              setLeaveGuard={setLeaveGuard}
+            />
+          </Suspense>
+        </Box>
+        <Box
+          component="nav"
+          aria-label="Step navigation"
+          sx={{ display: 'flex', justifyContent: 'space-between', gap: 2, mt: 5, pt: 3, borderTop: '1px solid', borderColor: 'divider' }}
+        >
+          {previous ? (
+            <Button variant="outlined" color="neutral" onClick={() => void leaveTo(previous.id)}>
+              Back: {previous.title}
+            </Button>
+          ) : (
+            <span />
+          )}
+          {next ? (
+            <Button onClick={() => void leaveTo(next.id)}>Next: {next.title}</Button>
+          ) : null}
+        </Box>
+      </Box>
+      <EstimatePanel live={live} catalog={catalog} />
+    </Box>
+  );
+}

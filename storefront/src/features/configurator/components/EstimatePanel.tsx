@@ -1,0 +1,119 @@
+import Alert from '@mui/joy/Alert';
+import Box from '@mui/joy/Box';
+import Button from '@mui/joy/Button';
+import LinearProgress from '@mui/joy/LinearProgress';
+import Sheet from '@mui/joy/Sheet';
+import Typography from '@mui/joy/Typography';
+import { useEffect, useState } from 'react';
+import type { Catalog } from '@loomwright/shared';
+import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/money';
+import { markEstimateShown, type LiveEstimate } from '../hooks/use-live-estimate';
+
+/**
+ * The live estimate: beside the steps on wide screens, a bottom sheet on phones (one element,
+ * laid out by breakpoint, so both show the same figures).
+ */
+export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: Catalog }) {
+  const [open, setOpen] = useState(false);
+  const e = live.estimate;
+  const currency = e?.currency ?? catalog.currency;
+
+  useEffect(() => {
+    if (e) markEstimateShown();
+  }, [e]);
+
+  const levelName = e ? (catalog.levels.find((l) => l.code === e.level)?.name ?? e.level) : '';
+  const problems = e
+    ? [e.checks?.powerBudget, e.checks?.boardFit].filter((c) => c && c.status === 'problem').length
+    : 0;
+
+  return (
+    <Sheet
+      component="aside"
+      aria-labelledby="estimate-heading"
+      variant="outlined"
+      sx={{
+        borderRadius: { xs: 0, md: 'lg' },
+        p: { xs: 1.5, md: 2.5 },
+        position: { xs: 'fixed', md: 'sticky' },
+        bottom: { xs: 0, md: 'auto' },
+        left: { xs: 0, md: 'auto' },
+        right: { xs: 0, md: 'auto' },
+        top: { md: 24 },
+        zIndex: 5,
+        boxShadow: { xs: 'lg', md: 'sm' },
+        borderWidth: { xs: '1px 0 0 0', md: 1 },
+        maxHeight: { xs: open ? '70dvh' : 'none', md: 'calc(100dvh - 48px)' },
+        overflowY: 'auto',
+        fontVariantNumeric: 'tabular-nums',
+      }}
+    >
+      <Box sx={{ display: 'flex', alignItems: 'center', gap: 1 }}>
+        <Box sx={{ flex: 1, minWidth: 0 }}>
+          <Typography level="title-sm" component="h2" id="estimate-heading" sx={{ color: 'text.secondary' }}>
+            Estimate
+          </Typography>
+          <Typography level="h3" component="p" data-testid="estimate-total" sx={{ fontSize: { xs: 'lg', md: 'xl2' } }}>
+            {e ? formatMoneyRange(e.totalLow, e.totalHigh, currency) : '—'}
+          </Typography>
+        </Box>
+        <Button
+          size="sm"
+          variant="outlined"
+          aria-expanded={open}
+          aria-controls="estimate-details"
+          onClick={() => setOpen((o) => !o)}
+          sx={{ display: { md: 'none' } }}
+        >
+          {open ? 'Hide details' : 'Details'}
+        </Button>
+      </Box>
+      <Box role="status" aria-live="polite" sx={{ minHeight: 20 }}>
+        {live.isUpdating ? (
+          <Box sx={{ display: 'flex', alignItems: 'center', gap: 1 }}>
+            <LinearProgress size="sm" sx={{ flex: 1, maxWidth: 120 }} aria-hidden />
+            <Typography level="body-xs">Updating…</Typography>
+          </Box>
+        ) : live.error ? null : e ? (
+          <Typography level="body-xs">Up to date{problems ? ` · ${problems} check${problems > 1 ? 's' : ''} need${problems > 1 ? '' : 's'} a look` : ''}</Typography>
+        ) : null}
+      </Box>
+      {live.error ? (
+        <Alert color="danger" variant="soft" size="sm" sx={{ mt: 1 }} role="alert">
+          {`The estimate could not be updated: ${live.error.message}`}
+          {e ? ' The figures shown are for your previous choices.' : ''}
+        </Alert>
+      ) : null}
+      <Box id="estimate-details" sx={{ display: { xs: open ? 'block' : 'none', md: 'block' }, mt: 1.5 }}>
+        {e ? (
+          <Box component="dl" sx={{ m: 0, display: 'grid', gridTemplateColumns: 'auto 1fr', columnGap: 2, rowGap: 0.75, '& dd': { m: 0, textAlign: 'right', fontWeight: 'md' } }}>
+            <Typography component="dt" level="body-sm">Labor</Typography>
+            <Typography component="dd" level="body-sm" data-testid="estimate-labor">
+              {formatMoneyRange(e.laborLow, e.laborHigh, currency)} labor ({formatHours(e.laborHours)})
+            </Typography>
+            <Typography component="dt" level="body-sm">Materials</Typography>
+            <Typography component="dd" level="body-sm" data-testid="estimate-materials">{formatMoney(e.materialsTotal, currency)}</Typography>
+            <Typography component="dt" level="body-sm">Rate</Typography>
+            <Typography component="dd" level="body-sm" data-testid="estimate-rate">
+              {levelName}, {formatMoneyRange(e.rate.low, e.rate.high, currency)}/h
+            </Typography>
+            <Typography component="dt" level="body-sm">Deposit</Typography>
+            <Typography component="dd" level="body-sm" data-testid="estimate-deposit">{formatMoney(e.deposit, currency)}</Typography>
+          </Box>
+        ) : !live.error ? (
+          <Typography level="body-sm">Working out the first figures…</Typography>
+        ) : null}
+        {e && e.notes.length ? (
+          <Box component="ul" sx={{ m: 0, mt: 1.5, pl: 2.5, display: 'grid', gap: 0.5 }} aria-label="Notes">
+            {e.notes.slice(0, 4).map((n) => (
+              <Typography component="li" level="body-xs" key={n}>{n}</Typography>
+            ))}
+          </Box>
+        ) : null}
+        <Typography level="body-xs" sx={{ mt: 1.5 }}>
+          Pedals, power supply and switcher are yours and not in the price.
+        </Typography>
+      </Box>
+    </Sheet>
+  );
+}

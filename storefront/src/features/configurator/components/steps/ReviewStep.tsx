@@ -1,0 +1,129 @@
+import Alert from '@mui/joy/Alert';
+import Box from '@mui/joy/Box';
+import Button from '@mui/joy/Button';
+import List from '@mui/joy/List';
+import ListItem from '@mui/joy/ListItem';
+import Table from '@mui/joy/Table';
+import Typography from '@mui/joy/Typography';
+import { useNavigate } from 'react-router';
+import { encodeConfiguration } from '@loomwright/shared';
+import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/money';
+import { PowerCautions } from '../PowerCautions';
+import { StepHeading } from '../StepHeading';
+import type { StepProps } from './step-props';
+
+export default function ReviewStep({ catalog, configuration, live }: StepProps) {
+  const navigate = useNavigate();
+  const e = live.estimate;
+  const currency = e?.currency ?? catalog.currency;
+  const materials = e?.lines.filter((l) => l.kind === 'materials') ?? [];
+  const labor = e?.lines.filter((l) => l.kind === 'labor') ?? [];
+  const switcher = configuration.routing.mode === 'switcher';
+  const levelName = catalog.levels.find((l) => l.code === e?.level)?.name ?? e?.level;
+  return (
+    <>
+      <StepHeading title="Review your build">
+        Everything the estimate is made of, line by line. It is a range because the rate depends on the builder who
+        takes it; the shop confirms a firm price when it accepts.
+      </StepHeading>
+      {!e ? (
+        <Typography>{live.error ? `The estimate could not be made: ${live.error.message}` : 'Working out the estimate…'}</Typography>
+      ) : (
+        <Box sx={{ display: 'grid', gap: 4 }} aria-busy={live.isUpdating}>
+          <Box component="section" aria-labelledby="materials-heading">
+            <Typography level="title-lg" component="h3" id="materials-heading" sx={{ mb: 1 }}>Materials</Typography>
+            <Box sx={{ overflowX: 'auto' }}>
+              <Table size="sm" aria-labelledby="materials-heading" sx={{ minWidth: 480, '& td:nth-of-type(n+2), & th:nth-of-type(n+2)': { textAlign: 'right' } }}>
+                <thead>
+                  <tr><th scope="col" style={{ width: '46%' }}>Item</th><th scope="col">Quantity</th><th scope="col">Each</th><th scope="col">Amount</th></tr>
+                </thead>
+                <tbody>
+                  {materials.map((l) => (
+                    <tr key={l.code}>
+                      <td>{l.label}{l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}</td>
+                      <td>{l.quantity} {l.unit}</td>
+                      <td>{formatMoney(l.unitPrice, currency)}</td>
+                      <td>{formatMoney(l.amount, currency)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+                <tfoot>
+                  <tr><th scope="row" colSpan={3}>Materials total</th><td data-testid="review-materials">{formatMoney(e.materialsTotal, currency)}</td></tr>
+                </tfoot>
+              </Table>
+            </Box>
+          </Box>
+          <Box component="section" aria-labelledby="labor-heading">
+            <Typography level="title-lg" component="h3" id="labor-heading" sx={{ mb: 1 }}>Labor</Typography>
+            <Box sx={{ overflowX: 'auto' }}>
+              <Table size="sm" aria-labelledby="labor-heading" sx={{ minWidth: 480, '& td:nth-of-type(n+2), & th:nth-of-type(n+2)': { textAlign: 'right' } }}>
+                <thead>
+                  <tr><th scope="col" style={{ width: '46%' }}>Work</th><th scope="col">Hours</th><th scope="col">Amount</th></tr>
+                </thead>
+                <tbody>
+                  {labor.map((l) => (
+                    <tr key={l.code}>
+                      <td>{l.label}{l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}</td>
+                      <td>{formatHours(l.quantity)}</td>
+                      <td>{formatMoneyRange(l.amount, l.amountHigh ?? l.amount, currency)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+                <tfoot>
+                  <tr>
+                    <th scope="row">Labor at {levelName} rates ({formatMoneyRange(e.rate.low, e.rate.high, currency)} an hour)</th>
+                    <td data-testid="review-hours">{formatHours(e.laborHours)}</td>
+                    <td data-testid="review-labor">{formatMoneyRange(e.laborLow, e.laborHigh, currency)}</td>
+                  </tr>
+                </tfoot>
+              </Table>
+            </Box>
+          </Box>
+          <Box component="section" aria-labelledby="total-heading" sx={{ p: 2, borderRadius: 'md', bgcolor: 'primary.50', border: '1px solid', borderColor: 'primary.200' }}>
+            <Typography level="title-lg" component="h3" id="total-heading">Estimated total</Typography>
+            <Typography level="h3" component="p" sx={{ fontVariantNumeric: 'tabular-nums' }} data-testid="review-total">
+              {formatMoneyRange(e.totalLow, e.totalHigh, currency)}
+            </Typography>
+            <Typography sx={{ mt: 1, fontVariantNumeric: 'tabular-nums' }}>
+              Deposit to book bench time: <b data-testid="review-deposit">{formatMoney(e.deposit, currency)}</b>
+            </Typography>
+            <Typography level="body-sm" sx={{ mt: 0.5 }}>{catalog.depositPolicy.description}</Typography>
+          </Box>
+          {e.notes.length ? (
+            <Box component="section" aria-labelledby="notes-heading">
+              <Typography level="title-lg" component="h3" id="notes-heading">Notes from the checks</Typography>
+              <List marker="disc" size="sm" sx={{ pl: 2 }}>
+                {e.notes.map((n) => <ListItem key={n}>{n}</ListItem>)}
+              </List>
+            </Box>
+          ) : null}
+          <Box component="section" aria-labelledby="supply-you-heading">
+            <Typography level="title-lg" component="h3" id="supply-you-heading">What you still supply</Typography>
+            <List marker="disc" size="sm" sx={{ pl: 2 }}>
+              <ListItem>Your pedals: the estimate covers mounting and wiring them, not the pedals.</ListItem>
+              <ListItem>Your power supply: we cut its leads to length and fit new plugs.</ListItem>
+              {switcher ? <ListItem>Your loop switcher, with its own power lead.</ListItem> : null}
+            </List>
+          </Box>
+          <PowerCautions />
+          <Alert variant="soft" color="neutral">
+            A loaded board in a road case is heavy: lift it with two people.
+          </Alert>
+          <Box>
+            <Button
+              onClick={() => navigate(`/request?c=${encodeConfiguration(configuration)}`)}
+              color="accent"
+              size="lg"
+              disabled={!live.isCurrent}
+            >
+              Request this build
+            </Button>
+            <Typography level="body-sm" sx={{ mt: 1 }}>
+              Next you sign in (or create an account), see the bench dates on offer and pay the deposit.
+            </Typography>
+          </Box>
+        </Box>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,46 @@
+import { useMemo, useRef } from 'react';
+import { decodeConfiguration, type RigConfiguration } from '@loomwright/shared';
+import { useEstimate } from '../api/create-estimate';
+import { useDebouncedValue } from './use-debounced-value';
+
+/** Marks for the latency benchmark: debounce fired → figures on screen. */
+export const ESTIMATE_REQUESTED_MARK = 'lw:estimate-requested';
+export const ESTIMATE_SHOWN_MARK = 'lw:estimate-shown';
+export const ESTIMATE_LATENCY_MEASURE = 'lw:estimate-latency';
+
+const DEBOUNCE_MS = 250;
+
+/**
+ * Asks POST /api/estimates for the configuration once it has been still for a moment, so typing a
+ * pedal name sends one request, not twenty. The previous figures stay until the next arrive.
+ */
+export function useLiveEstimate(encoded: string) {
+  const settled = useDebouncedValue(encoded, DEBOUNCE_MS, () => {
+    performance.clearMarks(ESTIMATE_REQUESTED_MARK);
+    performance.mark(ESTIMATE_REQUESTED_MARK);
+  });
+  const configuration = useMemo(() => decodeConfiguration(settled) as RigConfiguration | undefined, [settled]);
+  const query = useEstimate(settled, configuration);
+  // A refused or failed request must not blank the figures the player was reading.
+  const lastGood = useRef(query.data);
+  if (query.data) lastGood.current = query.data;
+  return {
+    estimate: query.data ?? lastGood.current,
+    /** The figures shown answer the configuration as it is now. */
+    isCurrent: query.data !== undefined && !query.isPlaceholderData && settled === encoded,
+    /** The figures on screen belong to an earlier configuration than the one being edited. */
+    isUpdating: settled !== encoded || query.isFetching,
+    error: query.error,
+    settled,
+  };
+}
+
+export type LiveEstimate = ReturnType<typeof useLiveEstimate>;
+
+/** Called once new figures are committed to the screen. */
+export function markEstimateShown(): void {
+  if (performance.getEntriesByName(ESTIMATE_REQUESTED_MARK, 'mark').length === 0) return;
+  performance.mark(ESTIMATE_SHOWN_MARK);
+  performance.measure(ESTIMATE_LATENCY_MEASURE, ESTIMATE_REQUESTED_MARK, ESTIMATE_SHOWN_MARK);
+  performance.clearMarks(ESTIMATE_REQUESTED_MARK);
+}

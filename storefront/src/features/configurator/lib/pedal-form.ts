@@ -1,0 +1,66 @@
+import { z } from 'zod';
+import { MAX_PEDALS, MAX_SUPPLY_OUTPUTS, pedalInputSchema, powerOutputSchema } from '@loomwright/shared';
+import type { PedalInput, PowerOutputInput, RigConfiguration } from '@loomwright/shared';
+
+/**
+ * The Pedals step's form, built from the same zod pieces the API validates with, so the player
+ * sees the API's own words next to the field.
+ */
+export const pedalFormSchema = z
+  .object({
+    mode: z.enum(['count', 'list']),
+    pedalCount: z.number({ error: `Pedal count must be a whole number from 1 to ${MAX_PEDALS}` })
+      .int({ error: `Pedal count must be a whole number from 1 to ${MAX_PEDALS}` })
+      .min(1, { error: `Pedal count must be a whole number from 1 to ${MAX_PEDALS}` })
+      .max(MAX_PEDALS, { error: `Pedal count must be a whole number from 1 to ${MAX_PEDALS}` }),
+    pedals: z.array(pedalInputSchema).max(MAX_PEDALS, { error: `A board takes at most ${MAX_PEDALS} pedals here; ask the shop about anything larger` }),
+    outputs: z.array(powerOutputSchema).max(MAX_SUPPLY_OUTPUTS, { error: `A supply lists at most ${MAX_SUPPLY_OUTPUTS} outputs` }),
+  })
+  .superRefine((form, ctx) => {
+    if (form.mode === 'list' && form.pedals.length === 0) {
+      ctx.addIssue({ code: 'custom', path: ['pedals'], message: 'List at least one pedal, or switch to a quick count' });
+    }
+    form.pedals.forEach((pedal, i) => {
+      if ((pedal.widthMm === undefined) !== (pedal.depthMm === undefined)) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['pedals', i, pedal.widthMm === undefined ? 'widthMm' : 'depthMm'],
+          message: 'Give both width and depth, or neither',
+        });
+      }
+    });
+  });
+
+export type PedalForm = z.infer<typeof pedalFormSchema>;
+
+export function formFromConfiguration(c: RigConfiguration): PedalForm {
+  return {
+    mode: c.pedals ? 'list' : 'count',
+    pedalCount: c.pedalCount ?? c.pedals?.length ?? 6,
+    pedals: c.pedals ?? [],
+    outputs: c.powerSupply?.outputs ?? [],
+  };
+}
+
+/** Writes a valid form back into the configuration (dropping empty optional figures). */
+export function applyForm(c: RigConfiguration, form: PedalForm): RigConfiguration {
+  const next: RigConfiguration = { ...c };
+  if (form.mode === 'list') {
+    next.pedals = form.pedals.map(cleanPedal);
+    delete next.pedalCount;
+  } else {
+    next.pedalCount = form.pedalCount;
+    delete next.pedals;
+  }
+  if (form.outputs.length) next.powerSupply = { outputs: form.outputs.map((o) => clean(o) as PowerOutputInput) };
+  else delete next.powerSupply;
+  return next;
+}
+
+const clean = <T extends object>(value: T): T =>
+  Object.fromEntries(Object.entries(value).filter(([, v]) => v !== undefined && v !== '' && !Number.isNaN(v))) as T;
+
+const cleanPedal = (p: PedalInput): PedalInput => clean(p);
+
+/** Empty text in a number field means "I don't know", not zero. */
+export const optionalNumber = (value: unknown) => (value === '' || value === null || value === undefined ? undefined : Number(value));
