@@ -11,3 +11,4 @@ export * from './estimate/estimate-engine';
 export * from './auth-schemas';
 export * from './mail-types';
 export * from './booking-schemas';
+export * from './mail-types';
