@@ -1,10 +1,15 @@
 import { INestApplication, ValidationPipe } from '@nestjs/common';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
+import { applyBodyParsing } from './common/body-parsing';
 
-/** Everything main.ts and the API tests both need, so tests exercise the app as it runs. */
+/**
+ * Everything main.ts and the API tests both need, so tests exercise the app as it runs.
+ * The app must be created with `bodyParser: false` (see common/body-parsing.ts).
+ */
 export function configureApp(app: INestApplication): INestApplication {
   app.setGlobalPrefix('api');
+  applyBodyParsing(app);
   app.use(cookieParser());
   app.useGlobalPipes(
     new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),

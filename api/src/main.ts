@@ -8,8 +8,8 @@ import { configureApp } from './app.setup';
 import type { AppConfig } from './config/configuration';
 
 async function bootstrap() {
-  // rawBody keeps the exact bytes of webhook calls, which their signatures are computed over.
-  const app = await NestFactory.create<NestExpressApplication>(AppModule, { rawBody: true });
+  // Bodies are parsed by configureApp (raw bytes kept for webhook signatures).
+  const app = await NestFactory.create<NestExpressApplication>(AppModule, { bodyParser: false });
   configureApp(app);
   const { port } = app.get(ConfigService<AppConfig, true>).get('app', { infer: true });
   await app.listen(port, '0.0.0.0');

@@ -75,7 +75,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   const { configureApp } = await import('../../src/app.setup');
   const { Database } = await import('../../src/database/database');
   const moduleRef = await Test.createTestingModule({ imports: [AppModule] }).compile();
-  const app = moduleRef.createNestApplication<NestExpressApplication>({ rawBody: true, logger: ['error', 'warn'] });
+  const app = moduleRef.createNestApplication<NestExpressApplication>({ bodyParser: false, logger: ['error', 'warn'] });
   configureApp(app);
   await app.init();
   const db = app.get(Database);

@@ -1,0 +1,38 @@
+import type { INestApplication } from '@nestjs/common';
+import { json, urlencoded, type NextFunction, type Request, type Response } from 'express';
+
+type WithRawBody = Request & { rawBody?: Buffer };
+const keepRawBody = (req: Request, _res: Response, buf: Buffer) => {
+  // Webhook signatures are computed over the exact bytes, so keep them beside the parsed body.
+  (req as WithRawBody).rawBody = buf;
+};
+
+/**
+ * JSON and form bodies, parsed by Express's own parsers with the raw bytes kept (as Nest's
+ * `rawBody: true` would), and a body that cannot be parsed answered with a 400 in words.
+ * Nest's built-in parser is switched off (`bodyParser: false`) because its parse errors left the
+ * router and came back as "404 Cannot POST", which tells the caller nothing.
+ */
+export function applyBodyParsing(app: INestApplication): void {
+  app.use(json({ limit: '1mb', verify: keepRawBody }));
+  app.use(urlencoded({ extended: false, limit: '1mb', verify: keepRawBody }));
+  app.use((error: { type?: string; status?: number } | undefined, _req: Request, res: Response, next: NextFunction) => {
+    if (error?.type === 'entity.parse.failed') {
+      res.status(400).json({
+        statusCode: 400,
+        error: 'Bad Request',
+        message: 'The request body is not valid JSON; check its quotes, commas and brackets, and send it again.',
+      });
+      return;
+    }
+    if (error?.type === 'entity.too.large') {
+      res.status(413).json({ statusCode: 413, error: 'Payload Too Large', message: 'The request body is larger than 1 MB; send less.' });
+      return;
+    }
+    if (error && typeof error.status === 'number' && error.status >= 400 && error.status < 500) {
+      res.status(error.status).json({ statusCode: error.status, error: 'Bad Request', message: 'The request body could not be read; check its format and send it again.' });
+      return;
+    }
+    next(error);
+  });
+}
