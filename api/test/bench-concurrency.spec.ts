@@ -1,4 +1,5 @@
 import { sql } from 'kysely';
+import type { AddressInfo } from 'node:net';
 import { Client } from 'pg';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { addDays } from '../src/bench/calendar-days';
@@ -13,9 +14,44 @@ describe('concurrent acceptances for one builder', () => {
   let t: TestApp;
   let master: string;
   let monday: string;
+  let baseUrl: string;
+
+  /** Fires every acceptance at once over its own fetch, with the signed-in person's cookie. */
+  async function acceptAllAtOnce(email: string, items: Array<{ bookingId: string; benchDate: string }>) {
+    const signIn = await fetch(`${baseUrl}/api/auth/sign-in`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email, password: 'demo-pass-2026' }),
+    });
+    const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    // A barrier: while this transaction holds shop_closures, every acceptance stops at its first
+    // read of the shop calendar, so all of them are in flight together when it lets go. Without
+    // it one Node process tends to run them one after another and the race never happens.
+    const barrier = new Client({ connectionString: process.env.DATABASE_URL });
+    await barrier.connect();
+    await barrier.query('begin');
+    await barrier.query('lock table shop_closures in access exclusive mode');
+    const inFlight = Promise.all(
+      items.map(async ({ bookingId, benchDate }) => {
+        const res = await fetch(`${baseUrl}/api/bookings/${bookingId}/accept`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json', cookie },
+          body: JSON.stringify({ builderId: master, benchDate }),
+        });
+        return { status: res.status, body: (await res.json()) as { message?: string } };
+      }),
+    );
+    await new Promise((resolve) => setTimeout(resolve, 1500));
+    await barrier.query('commit');
+    await barrier.end();
+    return inFlight;
+  }
 
   beforeAll(async () => {
     t = await createTestApp({ env: { DATABASE_POOL_MAX: '30' } });
+    // A real port, so the acceptances below arrive on separate connections at the same moment.
+    await t.app.listen(0, '127.0.0.1');
+    baseUrl = `http://127.0.0.1:${(t.app.getHttpServer().address() as AddressInfo).port}`;
     master = await builderId(t.db, 'builder@shop.example');
     monday = quietMondayWeeksAhead(3);
   });
@@ -35,10 +71,7 @@ describe('concurrent acceptances for one builder', () => {
 
   it('20 acceptances of 2.5 h builds on one Monday: exactly the three that can start that day succeed', async () => {
     const bookings = await Promise.all(Array.from({ length: 20 }, () => createBooking(t.db, { laborHours: '2.50' })));
-    const agent = await signIn(t.app, 'builder@shop.example');
-    const results = await Promise.all(
-      bookings.map((b) => agent.post(`/api/bookings/${b.id}/accept`).send({ builderId: master, benchDate: monday })),
-    );
+    const results = await acceptAllAtOnce('builder@shop.example', bookings.map((b) => ({ bookingId: b.id, benchDate: monday })));
     const ok = results.filter((r) => r.status === 200);
     const refused = results.filter((r) => r.status === 409);
     // The master works 7 h on a Monday: 2.5 + 2.5 + 2 h fit (the third spills 0.5 h into Tuesday); the rest find Monday full.
@@ -61,10 +94,7 @@ describe('concurrent acceptances for one builder', () => {
 
   it('24 acceptances of full-day builds spread over four days: one per day, never more than capacity', async () => {
     const bookings = await Promise.all(Array.from({ length: 24 }, () => createBooking(t.db, { laborHours: '7.00' })));
-    const agent = await signIn(t.app, 'owner@shop.example');
-    const results = await Promise.all(
-      bookings.map((b, i) => agent.post(`/api/bookings/${b.id}/accept`).send({ builderId: master, benchDate: addDays(monday, i % 4) })),
-    );
+    const results = await acceptAllAtOnce('owner@shop.example', bookings.map((b, i) => ({ bookingId: b.id, benchDate: addDays(monday, i % 4) })));
     expect(results.filter((r) => r.status === 200)).toHaveLength(4);
     expect(results.filter((r) => r.status === 409)).toHaveLength(20);
     expect(results.every((r) => r.status === 200 || r.status === 409)).toBe(true);
@@ -76,12 +106,9 @@ describe('concurrent acceptances for one builder', () => {
 
   it('the same booking accepted twice at once is scheduled once', async () => {
     const booking = await createBooking(t.db, { laborHours: '3.00' });
-    const agent = await signIn(t.app, 'builder@shop.example');
-    const results = await Promise.all(
-      Array.from({ length: 20 }, (_, i) => agent.post(`/api/bookings/${booking.id}/accept`).send({ builderId: master, benchDate: addDays(monday, i % 3) })),
-    );
+    const results = await acceptAllAtOnce('builder@shop.example', Array.from({ length: 20 }, (_, i) => ({ bookingId: booking.id, benchDate: addDays(monday, i % 3) })));
     expect(results.filter((r) => r.status === 200)).toHaveLength(1);
-    expect(results.filter((r) => r.status === 409).every((r) => /deposit is paid and before it is scheduled/.test(r.body.message))).toBe(true);
+    expect(results.filter((r) => r.status === 409).every((r) => /deposit is paid and before it is scheduled/.test(r.body.message ?? ''))).toBe(true);
     const slices = await t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute();
     expect(slices).toHaveLength(1);
   });
