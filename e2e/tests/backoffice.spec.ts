@@ -92,6 +92,8 @@ test('a builder accepts a paid request at the suggested bench date and sees it o
 
   const accept = page.getByRole('dialog', { name: `Accept ${paid.reference} and set the bench date` });
   await expect(accept.getByText(/Teodor Lind \(you\) · master/)).toBeVisible();
+  // The builder takes it on their own bench; the date field then holds that bench's suggestion.
+  await accept.getByRole('radio', { name: /Teodor Lind \(you\)/ }).check();
   await expect(accept.getByRole('radio', { name: /Teodor Lind \(you\)/ })).toBeChecked();
   const benchDateInput = accept.getByLabel('Bench date');
   await expect(benchDateInput).toHaveValue(/^\d{4}-\d{2}-\d{2}$/);
