@@ -164,6 +164,10 @@ test("the owner's pages read the shop's real data: team, price book, settings wi
   await expect(row).toBeVisible();
   await row.click();
   await expect(page.getByRole('dialog').getByRole('heading', { name: 'Messages sent' })).toBeVisible();
+  // The search typed just before lands after its pause; it must narrow the list, not close the panel.
+  await page.waitForTimeout(800);
+  await expect(page.getByRole('dialog').getByRole('heading', { name: 'Messages sent' })).toBeVisible();
+  await expect(page).toHaveURL(/q=player%40mail\.example/);
   await page.screenshot({ path: shots('customer-panel'), fullPage: true });
 
   await page.keyboard.press('Escape');
