@@ -37,6 +37,8 @@ interface Fixtures {
   builderId: string;
   /** A booking (state 'requested') that belongs to customer A. */
   bookingOfA: string;
+  /** A cancelled booking of customer A: checkout and cancel refuse it without calling the provider. */
+  cancelledBookingOfA: string;
 }
 
 interface Entry {
@@ -73,6 +75,25 @@ const matrix: Record<string, Entry> = {
   'POST /api/auth/password-reset/confirm': open(400),
   'POST /api/invitations': ownerOnly(400),
   'POST /api/invitations/accept': open(400),
+  // estimates and the price book
+  'GET /api/catalog': open(200),
+  'POST /api/estimates': open(400),
+  'GET /api/price-book': staff(200),
+  'POST /api/price-book': ownerOnly(400),
+  // bookings and payments
+  'POST /api/bookings': { expect: [401, 400, 400, 403, 403] },
+  'GET /api/bookings': signedIn(200),
+  'GET /api/bookings/:id': { ...ownedByA(200), path: (fx) => `/api/bookings/${fx.bookingOfA}` },
+  'POST /api/bookings/:id/shipment': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/shipment` },
+  'POST /api/bookings/:id/photos': { ...ownedByA(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/photos` },
+  'GET /api/bookings/:id/photos/:photoId': {
+    expect: [401, 404, 404, 404, 404],
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/00000000-0000-4000-8000-000000000000`,
+  },
+  'POST /api/bookings/:id/checkout': { expect: [401, 409, 404, 403, 403], path: (fx) => `/api/bookings/${fx.cancelledBookingOfA}/checkout` },
+  'POST /api/bookings/:id/cancel': { expect: [401, 409, 404, 403, 403], path: (fx) => `/api/bookings/${fx.cancelledBookingOfA}/cancel` },
+  'POST /api/bookings/:id/refund': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/refund` },
+  'POST /api/payments/webhook': open(400),
 };
 
 async function makeFixtures(t: TestApp): Promise<Fixtures> {
@@ -80,12 +101,25 @@ async function makeFixtures(t: TestApp): Promise<Fixtures> {
   const customerA = await idOf('player@mail.example');
   const builderUser = await idOf('builder@shop.example');
   const builder = await t.db.selectFrom('builders').select('id').where('user_id', '=', builderUser).executeTakeFirstOrThrow();
-  const booking = await t.db
-    .insertInto('bookings')
-    .values({ reference: 'LW-MATRIX-A', customer_id: customerA, state: 'requested', configuration: JSON.stringify({}) })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return { customerA, customerB: await idOf('cass@mail.example'), builderUser, builderId: builder.id, bookingOfA: booking.id };
+  const { version } = await t.db.selectFrom('price_book_versions').select('version').orderBy('version', 'desc').executeTakeFirstOrThrow();
+  const bookingOf = async (reference: string, state: 'requested' | 'cancelled') => {
+    const configuration = JSON.stringify({ surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'apprentice' });
+    const row = await t.db.insertInto('bookings').values({ reference, customer_id: customerA, state, configuration }).returning('id').executeTakeFirstOrThrow();
+    const estimate = { priceBookVersion: version, currency: 'USD', level: 'apprentice', lines: [], laborHours: '4.00', materialsTotal: '0.00', laborLow: '160.00', laborHigh: '200.00', totalLow: '160.00', totalHigh: '200.00', deposit: '100.00', rate: { low: '40.00', high: '50.00' }, minimumLevel: 'apprentice', minimumLevelReasons: [], notes: [] };
+    await t.db
+      .insertInto('quotes')
+      .values({ booking_id: row.id, kind: 'estimate', price_book_version: version, currency: 'USD', configuration, estimate: JSON.stringify(estimate), labor_hours: '4.00', total_low: '160.00', total_high: '200.00', deposit: '100.00', expires_at: new Date(Date.now() + 86_400_000) })
+      .execute();
+    return row.id;
+  };
+  return {
+    customerA,
+    customerB: await idOf('cass@mail.example'),
+    builderUser,
+    builderId: builder.id,
+    bookingOfA: await bookingOf('LW-MATRIX-A', 'requested'),
+    cancelledBookingOfA: await bookingOf('LW-MATRIX-C', 'cancelled'),
+  };
 }
 
 /** "METHOD /path" for every route on the Express router (Express 5 keeps them in app.router.stack). */

@@ -1,4 +1,4 @@
-import { mkdtemp } from 'node:fs/promises';
+import { mkdtemp, rm } from 'node:fs/promises';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -51,6 +51,7 @@ export async function startPaymentHarness(): Promise<PaymentHarness> {
     close: async () => {
       await fake.close();
       await t.close();
+      await rm(uploadsDir, { recursive: true, force: true });
     },
   };
 }
