@@ -218,7 +218,7 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   sheet.table(
     ['#', 'From', 'To', 'Length', 'Spare', 'Plugs'],
     cables.patches.map((c) => [String(c.number), c.from, c.to, `${c.lengthFeet} ft`, `${c.spareFeet} ft`, String(c.plugs)]),
-    [0.06, 0.34, 0.34, 0.1, 0.1, 0.06],
+    [0.05, 0.33, 0.33, 0.1, 0.1, 0.09],
   );
   sheet.paragraph(`${cables.patchCount} patch cables, ${cables.plugCount} plugs, ${cables.cableFeet} ft of cable including ${cables.spareFeet} ft spare.`, { bold: true });
   sheet.paragraph(`Power leads: ${cables.barrelPlugCount} DC barrel plugs.`);

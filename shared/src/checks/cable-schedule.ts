@@ -2,7 +2,6 @@ import Decimal from 'decimal.js';
 import type { FunctionItem, MaterialsRates } from '../price-book/types';
 import type { CableSchedule, PatchCable, SignalChain } from './types';
 import { BARREL_CONNECTOR } from './typical-hardware';
-import { deviceById } from './signal-chain';
 
 /**
  * Every audio patch the routing needs, computed once: the estimate prices these counts and the
@@ -13,6 +12,9 @@ import { deviceById } from './signal-chain';
 export function cableScheduleOf(chain: SignalChain, functions: FunctionItem[], rates: MaterialsRates): CableSchedule {
   const lengthFeet = new Decimal(rates.patchLengthFeet);
   const spareFeet = new Decimal(rates.spareFeetPerPatch);
+  const lengthText = lengthFeet.toFixed(2);
+  const spareText = spareFeet.toFixed(2);
+  const names = new Map(chain.devices.map((d) => [d.id, d.name]));
   const patches: PatchCable[] = [];
   const add = (from: string, to: string, purpose: PatchCable['purpose']) =>
     patches.push({
@@ -20,11 +22,11 @@ export function cableScheduleOf(chain: SignalChain, functions: FunctionItem[], r
       from,
       to,
       purpose,
-      lengthFeet: lengthFeet.toFixed(2),
-      spareFeet: spareFeet.toFixed(2),
+      lengthFeet: lengthText,
+      spareFeet: spareText,
       plugs: 2,
     });
-  const nameOf = (id: string) => deviceById(chain, id).name;
+  const nameOf = (id: string) => names.get(id) ?? id;
 
   for (let i = 0; i + 1 < chain.main.length; i++) {
     add(`${nameOf(chain.main[i])} output`, `${nameOf(chain.main[i + 1])} input`, 'chain');
@@ -38,7 +40,7 @@ export function cableScheduleOf(chain: SignalChain, functions: FunctionItem[], r
   }
   for (const fn of functions) {
     for (let j = 1; j <= fn.extraPatchCables; j++) {
-      add(fn.name, `patch ${j} of ${fn.extraPatchCables}`, 'function');
+      add(`${fn.name}: extra patch ${j} of ${fn.extraPatchCables}`, 'routed to suit the function at the bench', 'function');
     }
   }
 
