@@ -92,6 +92,8 @@ test('a builder accepts a paid request at the suggested bench date and sees it o
 
   const accept = page.getByRole('dialog', { name: `Accept ${paid.reference} and set the bench date` });
   await expect(accept.getByText(/Teodor Lind \(you\) · master/)).toBeVisible();
+  // The builder takes it on their own bench; the date field then holds that bench's suggestion.
+  await accept.getByRole('radio', { name: /Teodor Lind \(you\)/ }).check();
   await expect(accept.getByRole('radio', { name: /Teodor Lind \(you\)/ })).toBeChecked();
   const benchDateInput = accept.getByLabel('Bench date');
   await expect(benchDateInput).toHaveValue(/^\d{4}-\d{2}-\d{2}$/);
@@ -128,4 +130,48 @@ test('a builder accepts a paid request at the suggested bench date and sees it o
   await expect(page.getByRole('heading', { name: `${paid.reference} · ${paid.customerName}` })).toBeVisible();
   await expect(page.getByRole('button', { name: 'Mark pedals received' })).toBeDisabled();
   await page.screenshot({ path: shots('build-page'), fullPage: true });
+});
+
+test("the owner's pages read the shop's real data: team, price book, settings with holidays, customers, builds", async ({ page }) => {
+  await page.goto('/backoffice/sign-in');
+  await page.getByLabel('E-mail').fill('owner@shop.example');
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
+
+  await page.goto('/backoffice/team');
+  const team = page.getByRole('table', { name: 'Builders' });
+  await expect(team.getByRole('row').filter({ hasText: 'Teodor Lind' })).toContainText('$125.00/h');
+  await expect(team.getByRole('button', { name: 'Edit Teodor Lind' })).toBeVisible();
+  await page.screenshot({ path: shots('team'), fullPage: true });
+
+  await page.goto('/backoffice/price-book');
+  // The whole book renders as one form; on a busy test machine that can take longer than a plain page.
+  await expect(page.getByRole('button', { name: /^Publish as version \d+$/ })).toBeVisible({ timeout: 30_000 });
+  await expect(page.getByRole('table', { name: 'Price book versions' })).toContainText('current');
+  await page.screenshot({ path: shots('price-book'), fullPage: false });
+
+  await page.goto('/backoffice/settings');
+  await expect(page.getByRole('heading', { name: /Public holidays \(US\)/ })).toBeVisible();
+  // 25 December is a US federal public holiday (5 U.S.C. 6103(a)); in 2026 it falls on a Friday.
+  // The list covers the coming twelve months, so the test only runs this check while 25 Dec 2026 is ahead.
+  if (new Date() < new Date('2026-12-25T00:00:00Z')) await expect(page.getByText('Fri 25 Dec · Christmas Day')).toBeVisible();
+  await page.screenshot({ path: shots('settings'), fullPage: true });
+
+  await page.goto('/backoffice/customers');
+  await page.getByLabel('Search').fill('player@mail.example');
+  const row = page.getByRole('table', { name: 'Customers' }).getByRole('row').filter({ hasText: 'player@mail.example' });
+  await expect(row).toBeVisible();
+  await row.click();
+  await expect(page.getByRole('dialog').getByRole('heading', { name: 'Messages sent' })).toBeVisible();
+  // The search typed just before lands after its pause; it must narrow the list, not close the panel.
+  await page.waitForTimeout(800);
+  await expect(page.getByRole('dialog').getByRole('heading', { name: 'Messages sent' })).toBeVisible();
+  await expect(page).toHaveURL(/q=player%40mail\.example/);
+  await page.screenshot({ path: shots('customer-panel'), fullPage: true });
+
+  await page.keyboard.press('Escape');
+  await page.goto('/backoffice/builds');
+  await expect(page.getByRole('tab', { name: /Scheduled/ })).toBeVisible();
+  await page.screenshot({ path: shots('builds'), fullPage: true });
 });

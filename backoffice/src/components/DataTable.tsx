@@ -82,7 +82,7 @@ export function DataTable<T>(props: DataTableProps<T>) {
             '--TableRow-hoverBackground': 'var(--joy-palette-primary-50)',
             // Columns size to their content (widths are hints), so a long name never crushes its neighbour.
             tableLayout: 'auto',
-            '& thead th': { bgcolor: 'background.level1', verticalAlign: 'bottom', whiteSpace: 'nowrap' },
+            '& thead th': { bgcolor: 'background.level1', verticalAlign: 'bottom', whiteSpace: 'nowrap', fontSize: 'sm' },
             '& tbody tr[data-selected="true"]': { bgcolor: 'primary.100' },
             '& tbody tr[tabindex]': { cursor: 'pointer' },
             '& tbody tr:focus-visible': { outline: '3px solid', outlineColor: 'primary.500', outlineOffset: '-3px' },
@@ -104,7 +104,7 @@ export function DataTable<T>(props: DataTableProps<T>) {
                         color="neutral"
                         size="sm"
                         onClick={() => props.onSort(column.sortKey!, column.firstOrder)}
-                        sx={{ px: 0.5, minHeight: 0, fontWeight: active ? 'lg' : 'md', ml: -0.5 }}
+                        sx={{ px: 0.5, minHeight: 0, fontSize: 'sm', fontWeight: active ? 'lg' : 'md', ml: -0.5 }}
                         title={`Sort by ${column.header.toLowerCase()}`}
                       >
                         {column.header}

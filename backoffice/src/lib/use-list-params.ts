@@ -1,4 +1,4 @@
-import { useCallback, useMemo } from 'react';
+import { useCallback, useMemo, useRef } from 'react';
 import { useSearchParams } from 'react-router';
 
 export type SortOrder = 'asc' | 'desc';
@@ -27,6 +27,10 @@ export const pageSizes = [25, 50, 100] as const;
  */
 export function useListParams<F extends string>(defaults: ListParamsDefaults<F>) {
   const [search, setSearch] = useSearchParams();
+  // The router's functional update hands over the params of the render that made the setter; a
+  // debounced search firing later would undo a row opened since. The ref always holds the latest.
+  const latest = useRef(search);
+  latest.current = search;
 
   const params = useMemo<ListParams<F>>(() => {
     const pageSize = Number(search.get('pageSize'));
@@ -50,8 +54,8 @@ export function useListParams<F extends string>(defaults: ListParamsDefaults<F>)
   const update = useCallback(
     (patch: Partial<Omit<ListParams<F>, 'filters'>> & { filters?: Partial<Record<F, string>> }) => {
       setSearch(
-        (current) => {
-          const next = new URLSearchParams(current);
+        () => {
+          const next = new URLSearchParams(latest.current);
           const resetsPage = patch.filters !== undefined || patch.sort !== undefined || patch.pageSize !== undefined;
           for (const [key, value] of Object.entries(patch.filters ?? {}) as [string, string | undefined][]) {
             if (value === undefined || value === '' || value === (defaults.filters as Record<string, string>)[key]) next.delete(key);

@@ -33,7 +33,7 @@ export function Component() {
       {team.isPending && <PageLoading />}
       {team.data && (
         <Sheet variant="outlined" sx={{ borderRadius: 'md', overflow: 'auto', bgcolor: 'background.surface' }}>
-          <Table aria-label="Builders" size="sm" sx={{ '--TableCell-height': '40px', '& thead th': { bgcolor: 'background.level1' } }}>
+          <Table aria-label="Builders" size="sm" sx={{ '--TableCell-height': '40px', tableLayout: 'auto', '& thead th': { bgcolor: 'background.level1' } }}>
             <thead>
               <tr>
                 <th>Builder</th>

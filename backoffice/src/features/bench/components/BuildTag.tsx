@@ -12,6 +12,7 @@ export function BuildTag({ build }: { build: BenchBuild }) {
       component={RouterLink}
       to={`/builds/${build.bookingId}`}
       underline="none"
+      aria-label={`${build.reference} · ${build.customerName}, ${formatHours(build.hours)} that day, ${shortStateLabels[build.state]}`}
       sx={{
         display: 'block',
         minWidth: 0,
@@ -27,7 +28,10 @@ export function BuildTag({ build }: { build: BenchBuild }) {
       }}
     >
       <Typography level="body-xs" sx={{ display: 'block', fontWeight: 'lg', color: 'text.primary' }} noWrap>
-        {build.reference} · {build.customerName}
+        {build.reference}
+      </Typography>
+      <Typography level="body-xs" sx={{ display: 'block', color: 'text.primary' }} noWrap>
+        {build.customerName}
       </Typography>
       <Typography level="body-xs" sx={{ display: 'block' }} noWrap>
         {formatHours(build.hours)} · {shortStateLabels[build.state]}

@@ -54,7 +54,8 @@ export function PriceBookForm({ book, version, canEdit, onPublished }: { book: P
   const publish = usePublishPriceBook();
   const form = useForm<PriceBook>({ resolver: zodResolver(priceBookSchema) as unknown as Resolver<PriceBook>, defaultValues: book });
   const [notes, setNotes] = useState('');
-  useEffect(() => form.reset(book), [book, form]);
+  // Reset only when a different book arrives (a publish); the form object itself is not a dependency.
+  useEffect(() => form.reset(book), [book]); // eslint-disable-line react-hooks/exhaustive-deps
   const disabled = !canEdit;
   const { register, control } = form;
   const problems = messagesOf(form.formState.errors);
