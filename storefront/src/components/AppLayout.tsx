@@ -54,14 +54,14 @@ export function AppLayout() {
   );
 }
 
-/** Our mark: a board seen from above with three pedals on it. */
+/** Our mark: a board seen from above with three pedals on it (colours from the theme). */
 function BoardMark() {
   return (
-    <Box component="svg" viewBox="0 0 40 28" width={40} height={28} aria-hidden sx={{ flex: 'none' }}>
-      <Box component="rect" x="1" y="4" width="38" height="20" rx="4" sx={{ fill: 'var(--joy-palette-primary-600)' }} />
-      <Box component="rect" x="5" y="9" width="8" height="10" rx="1.5" sx={{ fill: 'var(--joy-palette-neutral-50)' }} />
-      <Box component="rect" x="16" y="9" width="8" height="10" rx="1.5" sx={{ fill: 'var(--joy-palette-accent-400)' }} />
-      <Box component="rect" x="27" y="9" width="8" height="10" rx="1.5" sx={{ fill: 'var(--joy-palette-neutral-50)' }} />
-    </Box>
+    <svg viewBox="0 0 40 28" width={40} height={28} aria-hidden="true" style={{ flex: 'none' }}>
+      <rect x="1" y="4" width="38" height="20" rx="4" style={{ fill: 'var(--joy-palette-primary-600)' }} />
+      <rect x="5" y="9" width="8" height="10" rx="1.5" style={{ fill: 'var(--joy-palette-neutral-50)' }} />
+      <rect x="16" y="9" width="8" height="10" rx="1.5" style={{ fill: 'var(--joy-palette-accent-400)' }} />
+      <rect x="27" y="9" width="8" height="10" rx="1.5" style={{ fill: 'var(--joy-palette-neutral-50)' }} />
+    </svg>
   );
 }

@@ -16,9 +16,12 @@ export const formatRange = (low: string, high: string, currency: string) =>
 export function formatDay(day: string | null | undefined): string {
   if (!day) return '—';
   const [y, m, d] = day.split('-').map(Number);
-  return new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(
-    new Date(Date.UTC(y, m - 1, d)),
-  );
+  // Parts joined by spaces: engines differ on the comma after the weekday, e-mail has none.
+  return new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' })
+    .formatToParts(new Date(Date.UTC(y, m - 1, d)))
+    .filter((part) => part.type !== 'literal')
+    .map((part) => part.value)
+    .join(' ');
 }
 
 /** "Tue 12 Jan 2027, 14:05" in the player's own time zone. */

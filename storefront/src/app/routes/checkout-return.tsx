@@ -41,7 +41,7 @@ export function Component() {
     body = 'The payment provider is telling the shop about your payment; this usually takes a few seconds. You can leave this page: the e-mail confirmation follows.';
   } else if (last?.status === 'failed') {
     title = 'Payment failed';
-    body = `The card was refused: ${last.failureMessage ?? 'no reason given'}. Nothing was charged; try again with another card.`;
+    body = `The card was refused: ${(last.failureMessage ?? 'no reason given').replace(/\.$/, '')}. Nothing was charged; try again with another card.`;
   } else {
     title = 'Payment cancelled';
     body = `You left the payment page before paying, so nothing was charged. Build ${b.reference} is saved; pay the deposit whenever you are ready.`;

@@ -19,7 +19,35 @@ export type ConfigurationUpdate = (current: RigConfiguration) => RigConfiguratio
  * history entry (the browser's Back walks the steps); edits replace the current entry.
  */
 export function useConfiguration(catalog: Catalog) {
-  const [searchParams, setSearchParams] = useSearchParams();
+  const [searchParams, setRouterSearchParams] = useSearchParams();
+  // React Router hands every functional update the params of the last render, so two changes in
+  // quick succession (a loop ticked, then Next) would each start from the same old URL and the
+  // later one would undo the earlier. Each change here starts from the one before it instead.
+  const latest = useRef(searchParams);
+  const lastRendered = useRef(searchParams.toString());
+  const sent = useRef<string[]>([]);
+  const rendered = searchParams.toString();
+  if (rendered !== lastRendered.current) {
+    lastRendered.current = rendered;
+    const at = sent.current.indexOf(rendered);
+    if (at >= 0) {
+      // One of ours catching up; anything sent after it is still on its way.
+      sent.current = sent.current.slice(at + 1);
+    } else {
+      // Not one of ours: the player moved through history or followed a link.
+      latest.current = searchParams;
+      sent.current = [];
+    }
+  }
+  const setSearchParams = useCallback(
+    (change: (prev: URLSearchParams) => URLSearchParams, options?: { replace?: boolean }) => {
+      const next = change(new URLSearchParams(latest.current));
+      latest.current = next;
+      sent.current.push(next.toString());
+      setRouterSearchParams(next, options);
+    },
+    [setRouterSearchParams],
+  );
   const encodedInUrl = searchParams.get(CONFIGURATION_PARAM);
   const [restoredFrom, setRestoredFrom] = useState<string | null>(null);
 
