@@ -19,7 +19,7 @@ const tone: Record<BookingState, 'neutral' | 'primary' | 'success' | 'warning' |
 
 export function BookingStateChip({ state }: { state: BookingState }) {
   return (
-    <Chip variant="soft" color={tone[state]} size="sm">
+    <Chip variant="soft" color={tone[state]} size="sm" sx={{ whiteSpace: 'normal', textAlign: 'left', height: 'auto', py: 0.25 }}>
       {bookingStateLabels[state]}
     </Chip>
   );
