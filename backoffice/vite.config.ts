@@ -10,6 +10,7 @@ export default defineConfig({
   resolve: {
     alias: {
       src: path.resolve(__dirname, 'src'),
+      '@loomwright/shared/ui': path.resolve(__dirname, '../shared/src/ui/index.ts'),
       '@loomwright/shared/joy-theme': path.resolve(__dirname, '../shared/src/joy-theme.ts'),
       '@loomwright/shared': path.resolve(__dirname, '../shared/src/index.ts'),
     },

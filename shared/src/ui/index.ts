@@ -1,0 +1,7 @@
+/**
+ * Front-end pieces both apps share (React, Joy UI, TanStack Query). Imported as
+ * '@loomwright/shared/ui' through each app's Vite alias; never by the API, which has no UI.
+ */
+export { createQueryClient } from './query-client';
+export { PageLoading } from './PageLoading';
+export { RouteError } from './RouteError';

@@ -1,0 +1,23 @@
+import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
+import { ApiError } from '../api-client';
+
+/** The one QueryClient setup both apps use. */
+export function createQueryClient() {
+  // A 401 from any call means the session ran out: ask "who is signed in?" again, so the screens
+  // that depend on it (the header, the staff guard) catch up at once.
+  const onError = (error: unknown) => {
+    if (error instanceof ApiError && error.status === 401) void client.invalidateQueries({ queryKey: ['auth', 'me'] });
+  };
+  const client: QueryClient = new QueryClient({
+    queryCache: new QueryCache({ onError }),
+    mutationCache: new MutationCache({ onError }),
+    defaultOptions: {
+      queries: {
+        staleTime: 30_000,
+        // A 4xx will not change on retry; only network trouble and 5xx are worth another try.
+        retry: (count, error) => count < 2 && !(error instanceof ApiError && error.status >= 400 && error.status < 500),
+      },
+    },
+  });
+  return client;
+}
