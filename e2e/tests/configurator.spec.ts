@@ -172,8 +172,12 @@ test.describe('configurator', () => {
 
     await page.getByRole('navigation', { name: 'Configurator steps' }).getByRole('button', { name: /^Review/ }).click();
     await page.getByRole('button', { name: 'Request this build' }).click();
-    await expect(page).toHaveURL(/\/request\?c=/);
-    expect(decode(new URL(page.url()).searchParams.get('c')!)).toEqual(review.configuration);
+    // The request page sends a visitor who is not signed in on to sign in, carrying the same link.
+    await expect(page).toHaveURL(/\/request\?c=|\/sign-in\?next=%2Frequest%3Fc%3D/);
+    const landed = new URL(page.url());
+    const requestUrl = landed.pathname === '/sign-in' ? new URL(landed.searchParams.get('next')!, landed.origin) : landed;
+    expect(requestUrl.pathname).toBe('/request');
+    expect(decode(requestUrl.searchParams.get('c')!)).toEqual(review.configuration);
   });
 
   test('the itemized pedal list: add, edit, reorder with buttons and remove', async ({ page, request }) => {
