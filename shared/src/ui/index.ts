@@ -5,3 +5,5 @@
 export { createQueryClient } from './query-client';
 export { PageLoading } from './PageLoading';
 export { RouteError } from './RouteError';
+export { FormTextField } from './FormTextField';
+export { authKeys, getMe, meQueryOptions, switchPerson, useMe } from './get-me';

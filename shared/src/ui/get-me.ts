@@ -1,0 +1,34 @@
+import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
+import { ApiError } from '../api-client';
+import type { AuthSessionResponse } from '../auth-schemas';
+import type { AuthUser } from '../domain';
+import { createApiClient } from '../api-client';
+
+const api = createApiClient('/api');
+
+/** Every query about the signed-in person lives under this key; sign-in and sign-out reset it. */
+export const authKeys = { all: ['auth'] as const, me: () => ['auth', 'me'] as const };
+
+/** The signed-in person (player or staff), or null when nobody is signed in (a 401 is an answer here, not an error). */
+export async function getMe(signal?: AbortSignal): Promise<AuthUser | null> {
+  try {
+    return (await api.get<AuthSessionResponse>('/auth/me', { signal })).user;
+  } catch (error) {
+    if (error instanceof ApiError && error.status === 401) return null;
+    throw error;
+  }
+}
+
+export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 60_000 });
+
+export const useMe = () => useQuery(meQueryOptions());
+
+/**
+ * After a sign-in, sign-up or sign-out: drop everything cached for the previous person (the shop
+ * profile stays), then record who is here now. The "me" query is updated in place rather than
+ * removed, so every screen watching it re-renders at once.
+ */
+export function switchPerson(queryClient: QueryClient, user: AuthUser | null): void {
+  queryClient.removeQueries({ predicate: (q) => !['shop', 'auth'].includes(String(q.queryKey[0])) });
+  queryClient.setQueryData(authKeys.me(), user);
+}
