@@ -77,6 +77,8 @@ test('a builder accepts a paid request at the suggested bench date and sees it o
   await page.getByRole('combobox', { name: 'Deposit' }).click();
   await page.getByRole('option', { name: 'Paid', exact: true }).click();
   await page.getByLabel('Search').fill(paid.customerName);
+  // The search goes out once typing pauses; the table then holds this customer's requests only.
+  await expect(page).toHaveURL(/[?&]q=Marlo/);
   const row = page.getByRole('row').filter({ hasText: paid.reference });
   await expect(row).toBeVisible();
   await expect(row).toContainText('Deposit paid');

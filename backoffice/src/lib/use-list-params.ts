@@ -27,10 +27,24 @@ export const pageSizes = [25, 50, 100] as const;
  */
 export function useListParams<F extends string>(defaults: ListParamsDefaults<F>) {
   const [search, setSearch] = useSearchParams();
-  // The router's functional update hands over the params of the render that made the setter; a
-  // debounced search firing later would undo a row opened since. The ref always holds the latest.
+  // The router's functional update hands over the params of the render that made the setter, and
+  // the navigation lands a moment later. Two changes in that moment (a row opened just as the
+  // debounced search fires) would each start from the same old params and the later would undo
+  // the earlier. So each change starts from the one before it; a render from somewhere else (the
+  // browser's Back, a link) becomes the new starting point.
   const latest = useRef(search);
-  latest.current = search;
+  const lastRendered = useRef(search.toString());
+  const sent = useRef<string[]>([]);
+  const rendered = search.toString();
+  if (rendered !== lastRendered.current) {
+    lastRendered.current = rendered;
+    const at = sent.current.indexOf(rendered);
+    if (at >= 0) sent.current = sent.current.slice(at + 1); // one of ours; later ones still on their way
+    else {
+      latest.current = search;
+      sent.current = [];
+    }
+  }
 
   const params = useMemo<ListParams<F>>(() => {
     const pageSize = Number(search.get('pageSize'));
@@ -66,6 +80,8 @@ export function useListParams<F extends string>(defaults: ListParamsDefaults<F>)
           if (patch.pageSize !== undefined) next.set('pageSize', String(patch.pageSize));
           if (patch.page !== undefined) next.set('page', String(patch.page));
           else if (resetsPage) next.delete('page');
+          latest.current = next;
+          sent.current.push(next.toString());
           return next;
         },
         { replace: true },
