@@ -69,14 +69,10 @@ async function expectStep(page: Page, title: string) {
   await expect(page.getByRole('heading', { level: 2 }).first()).toBeVisible();
 }
 
-/** The configuration lives in the URL, so a choice shows as checked once the router has moved on. */
+/** One click, and the choice holds: the configuration is React state, mirrored to the URL. */
 async function choose(control: Locator) {
-  // A tick that lands while the previous change is still on its way to the URL can be dropped
-  // (known, see DEVELOPERS.md); tick again until the configuration holds it, for at most 10 s.
-  await expect(async () => {
-    if (!(await control.isChecked())) await control.click();
-    await expect(control).toBeChecked({ timeout: 1_500 });
-  }).toPass({ timeout: 10_000 });
+  await control.click();
+  await expect(control).toBeChecked();
 }
 
 const next = (page: Page) => page.getByRole('navigation', { name: 'Step navigation' }).getByRole('button', { name: /^Next:/ });

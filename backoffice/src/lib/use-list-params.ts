@@ -1,5 +1,5 @@
-import { useCallback, useMemo, useRef } from 'react';
-import { useSearchParams } from 'react-router';
+import { useSearchParamsInOrder } from '@loomwright/shared/ui';
+import { useCallback, useMemo } from 'react';
 
 export type SortOrder = 'asc' | 'desc';
 
@@ -26,25 +26,7 @@ export const pageSizes = [25, 50, 100] as const;
  * because the old page number means nothing in a different list.
  */
 export function useListParams<F extends string>(defaults: ListParamsDefaults<F>) {
-  const [search, setSearch] = useSearchParams();
-  // The router's functional update hands over the params of the render that made the setter, and
-  // the navigation lands a moment later. Two changes in that moment (a row opened just as the
-  // debounced search fires) would each start from the same old params and the later would undo
-  // the earlier. So each change starts from the one before it; a render from somewhere else (the
-  // browser's Back, a link) becomes the new starting point.
-  const latest = useRef(search);
-  const lastRendered = useRef(search.toString());
-  const sent = useRef<string[]>([]);
-  const rendered = search.toString();
-  if (rendered !== lastRendered.current) {
-    lastRendered.current = rendered;
-    const at = sent.current.indexOf(rendered);
-    if (at >= 0) sent.current = sent.current.slice(at + 1); // one of ours; later ones still on their way
-    else {
-      latest.current = search;
-      sent.current = [];
-    }
-  }
+  const [search, setSearch] = useSearchParamsInOrder();
 
   const params = useMemo<ListParams<F>>(() => {
     const pageSize = Number(search.get('pageSize'));
@@ -68,8 +50,8 @@ export function useListParams<F extends string>(defaults: ListParamsDefaults<F>)
   const update = useCallback(
     (patch: Partial<Omit<ListParams<F>, 'filters'>> & { filters?: Partial<Record<F, string>> }) => {
       setSearch(
-        () => {
-          const next = new URLSearchParams(latest.current);
+        (latest) => {
+          const next = new URLSearchParams(latest);
           const resetsPage = patch.filters !== undefined || patch.sort !== undefined || patch.pageSize !== undefined;
           for (const [key, value] of Object.entries(patch.filters ?? {}) as [string, string | undefined][]) {
             if (value === undefined || value === '' || value === (defaults.filters as Record<string, string>)[key]) next.delete(key);
@@ -80,8 +62,6 @@ export function useListParams<F extends string>(defaults: ListParamsDefaults<F>)
           if (patch.pageSize !== undefined) next.set('pageSize', String(patch.pageSize));
           if (patch.page !== undefined) next.set('page', String(patch.page));
           else if (resetsPage) next.delete('page');
-          latest.current = next;
-          sent.current.push(next.toString());
           return next;
         },
         { replace: true },

@@ -7,3 +7,4 @@ export { PageLoading } from './PageLoading';
 export { RouteError } from './RouteError';
 export { FormTextField } from './FormTextField';
 export { authKeys, getMe, meQueryOptions, switchPerson, useMe } from './get-me';
+export { useSearchParamsInOrder } from './use-search-params-in-order';

@@ -1,5 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import { useSearchParams } from 'react-router';
+import { useLocation, useNavigationType } from 'react-router';
+import { useSearchParamsInOrder } from '@loomwright/shared/ui';
 import {
   CONFIGURATION_PARAM,
   decodeConfiguration,
@@ -7,116 +8,95 @@ import {
   type Catalog,
   type RigConfiguration,
 } from '@loomwright/shared';
-import { readConfigurationDraft, writeConfigurationDraft } from 'src/lib/configuration-draft';
+import { clearConfigurationDraft, readConfigurationDraft, writeConfigurationDraft } from 'src/lib/configuration-draft';
 import { completeConfiguration } from '../lib/configuration';
 import { isStepId, type StepId } from '../lib/steps';
 
 export type ConfigurationUpdate = (current: RigConfiguration) => RigConfiguration;
 
+/** Marks the address changes the configurator makes itself, so they are never read back as a new link. */
+const OWN_CHANGE = { configurator: true } as const;
+const isOwnChange = (state: unknown) => typeof state === 'object' && state !== null && 'configurator' in state;
+
 /**
- * The configuration lives in the URL (`?c=`, the shared codec), so a reload or a shared link
- * restores it; every change is also kept as a local draft for a closed tab. Step changes push a
- * history entry (the browser's Back walks the steps); edits replace the current entry.
+ * The configuration is held in React state, so every change lands at once and builds on the one
+ * before it; the URL (`?c=`, the shared codec) mirrors it, so a reload or a shared link restores
+ * it, and a local draft keeps it for a closed tab. The step lives in the URL: step changes push a
+ * history entry, so the browser's Back walks the steps and keeps what was entered.
  */
 export function useConfiguration(catalog: Catalog) {
-  const [searchParams, setRouterSearchParams] = useSearchParams();
-  // React Router hands every functional update the params of the last render, so two changes in
-  // quick succession (a loop ticked, then Next) would each start from the same old URL and the
-  // later one would undo the earlier. Each change here starts from the one before it instead.
-  const latest = useRef(searchParams);
-  const lastRendered = useRef(searchParams.toString());
-  const sent = useRef<string[]>([]);
-  const rendered = searchParams.toString();
-  if (rendered !== lastRendered.current) {
-    lastRendered.current = rendered;
-    const at = sent.current.indexOf(rendered);
-    if (at >= 0) {
-      // One of ours catching up; anything sent after it is still on its way.
-      sent.current = sent.current.slice(at + 1);
-    } else {
-      // Not one of ours: the player moved through history or followed a link.
-      latest.current = searchParams;
-      sent.current = [];
-    }
-  }
-  const setSearchParams = useCallback(
-    (change: (prev: URLSearchParams) => URLSearchParams, options?: { replace?: boolean }) => {
-      const next = change(new URLSearchParams(latest.current));
-      latest.current = next;
-      sent.current.push(next.toString());
-      setRouterSearchParams(next, options);
-    },
-    [setRouterSearchParams],
-  );
+  const [searchParams, setSearchParams] = useSearchParamsInOrder();
+  const location = useLocation();
+  const navigationType = useNavigationType();
   const encodedInUrl = searchParams.get(CONFIGURATION_PARAM);
-  const [restoredFrom, setRestoredFrom] = useState<string | null>(null);
 
-  // A visit without `c` picks up the draft this browser kept, once.
-  const restoredOnce = useRef(false);
-  useEffect(() => {
-    if (restoredOnce.current || encodedInUrl) return;
-    restoredOnce.current = true;
+  // First visit: the link's configuration, else the draft this browser kept, else the defaults.
+  const [start] = useState(() => {
+    if (encodedInUrl) return { configuration: completeConfiguration(decodeConfiguration(encodedInUrl), catalog), savedAt: null };
     const draft = readConfigurationDraft();
-    if (!draft) return;
-    setRestoredFrom(draft.savedAt);
+    return { configuration: completeConfiguration(draft?.configuration, catalog), savedAt: draft?.savedAt ?? null };
+  });
+  const [configuration, setConfiguration] = useState(start.configuration);
+  const [restoredFrom, setRestoredFrom] = useState<string | null>(start.savedAt);
+  const latest = useRef(configuration);
+  const encoded = useMemo(() => encodeConfiguration(configuration), [configuration]);
+  const untouched = useMemo(() => encodeConfiguration(completeConfiguration(undefined, catalog)), [catalog]);
+
+  const update = useCallback((change: ConfigurationUpdate) => {
+    latest.current = change(latest.current);
+    setConfiguration(latest.current);
+  }, []);
+
+  // Keep the URL in step with the state. A configuration arriving by a link followed on this page
+  // replaces the one on screen; our own changes and the browser's Back and Forward do not.
+  const seenEntry = useRef(location.key);
+  useEffect(() => {
+    const newEntry = seenEntry.current !== location.key;
+    seenEntry.current = location.key;
+    if (encodedInUrl === encoded) return;
+    if (newEntry && encodedInUrl && navigationType !== 'POP' && !isOwnChange(location.state)) {
+      update(() => completeConfiguration(decodeConfiguration(encodedInUrl), catalog));
+      setRestoredFrom(null);
+      return;
+    }
     setSearchParams(
       (prev) => {
         const next = new URLSearchParams(prev);
-        next.set(CONFIGURATION_PARAM, encodeConfiguration(completeConfiguration(draft.configuration, catalog)));
+        next.set(CONFIGURATION_PARAM, encodeConfiguration(latest.current));
         return next;
       },
-      { replace: true },
+      { replace: true, state: OWN_CHANGE },
     );
-  }, [encodedInUrl, catalog, setSearchParams]);
+  }, [encoded, encodedInUrl, location.key, location.state, navigationType, catalog, update, setSearchParams]);
 
-  const configuration = useMemo(
-    () => completeConfiguration(decodeConfiguration(encodedInUrl), catalog),
-    [encodedInUrl, catalog],
-  );
-  const encoded = useMemo(() => encodeConfiguration(configuration), [configuration]);
-
+  // An untouched default (a fresh visit, or Start over) is not worth restoring later; anything
+  // the player changed is.
   useEffect(() => {
-    if (encodedInUrl) writeConfigurationDraft(configuration);
-  }, [encodedInUrl, configuration]);
-
-  const update = useCallback(
-    (change: ConfigurationUpdate) =>
-      setSearchParams(
-        (prev) => {
-          const next = new URLSearchParams(prev);
-          const current = completeConfiguration(decodeConfiguration(prev.get(CONFIGURATION_PARAM)), catalog);
-          next.set(CONFIGURATION_PARAM, encodeConfiguration(change(current)));
-          return next;
-        },
-        { replace: true },
-      ),
-    [setSearchParams, catalog],
-  );
+    if (encoded === untouched) clearConfigurationDraft();
+    else writeConfigurationDraft(configuration);
+  }, [encoded, untouched, configuration]);
 
   const stepParam = searchParams.get('step');
   const step: StepId = isStepId(stepParam) ? stepParam : 'surface';
   const goToStep = useCallback(
     (target: StepId) =>
-      setSearchParams((prev) => {
-        const next = new URLSearchParams(prev);
-        next.set('step', target);
-        if (!next.get(CONFIGURATION_PARAM)) next.set(CONFIGURATION_PARAM, encoded);
-        return next;
-      }),
-    [setSearchParams, encoded],
+      setSearchParams(
+        (prev) => {
+          const next = new URLSearchParams(prev);
+          next.set('step', target);
+          next.set(CONFIGURATION_PARAM, encodeConfiguration(latest.current));
+          return next;
+        },
+        { state: OWN_CHANGE },
+      ),
+    [setSearchParams],
   );
 
   const startOver = useCallback(() => {
     setRestoredFrom(null);
-    setSearchParams(
-      (prev) => {
-        const next = new URLSearchParams(prev);
-        next.set(CONFIGURATION_PARAM, encodeConfiguration(completeConfiguration(undefined, catalog)));
-        next.set('step', 'surface');
-        return next;
-      },
-    );
-  }, [setSearchParams, catalog]);
+    update(() => completeConfiguration(undefined, catalog));
+    goToStep('surface');
+  }, [update, goToStep, catalog]);
 
   return { configuration, encoded, update, step, goToStep, restoredFrom, startOver, dismissRestored: () => setRestoredFrom(null) };
 }
