@@ -8,6 +8,7 @@ export * from './booking-types';
 export * from './estimate/url-codec';
 export * from './bench-types';
 export * from './estimate/estimate-engine';
+export * from './estimate/quantity';
 export * from './auth-schemas';
 export * from './mail-types';
 export * from './booking-schemas';

@@ -63,25 +63,39 @@ export function rowLayout(devices: RigDevice[], widthMm: number, depthMm: number
   return { fits: unplaced.length === 0, placements, unplaced };
 }
 
+/**
+ * The skyline after a device of `width` at `x` fills it up to `filled`. Segments stay in order
+ * from left to right and neighbours of equal height merge, so the list stays short.
+ */
 function raise(skyline: Segment[], x: number, width: number, filled: number): Segment[] {
+  const end = x + width;
   const out: Segment[] = [];
-  for (const s of skyline) {
-    if (s.x + s.width <= x || s.x >= x + width) {
-      out.push(s);
-      continue;
-    }
-    if (s.x < x) out.push({ x: s.x, width: x - s.x, filled: s.filled });
-    if (s.x + s.width > x + width) out.push({ x: x + width, width: s.x + s.width - x - width, filled: s.filled });
-  }
-  out.push({ x, width, filled });
-  out.sort((a, b) => a.x - b.x);
-  const merged: Segment[] = [];
-  for (const s of out) {
-    const last = merged[merged.length - 1];
+  const push = (s: Segment) => {
+    const last = out[out.length - 1];
     if (last && last.filled === s.filled && last.x + last.width === s.x) last.width += s.width;
-    else merged.push({ ...s });
+    else out.push({ x: s.x, width: s.width, filled: s.filled });
+  };
+  let placed = false;
+  const place = () => {
+    if (!placed) push({ x, width, filled });
+    placed = true;
+  };
+  for (const s of skyline) {
+    const sEnd = s.x + s.width;
+    if (sEnd <= x) push(s);
+    else if (s.x >= end) {
+      place();
+      push(s);
+    } else {
+      if (s.x < x) push({ x: s.x, width: x - s.x, filled: s.filled });
+      if (sEnd > end) {
+        place();
+        push({ x: end, width: sEnd - end, filled: s.filled });
+      }
+    }
   }
-  return merged;
+  place();
+  return out;
 }
 
 const areaWithSpacing = (devices: RigDevice[], spacingMm: number) =>
@@ -97,9 +111,14 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
   const layout = rowLayout(devices, surface.widthMm, surface.depthMm, spacingMm);
   const layoutFits = areaFits && layout.fits;
 
+  // Smallest by area first; the chosen surface's own layout is already known.
   const smallest = [...surfaces]
     .sort((a, b) => a.widthMm * a.depthMm - b.widthMm * b.depthMm || Number(a.price) - Number(b.price))
-    .find((s) => areaWithSpacing(devices, spacingMm) <= s.widthMm * s.depthMm && rowLayout(devices, s.widthMm, s.depthMm, spacingMm).fits);
+    .find((s) =>
+      s.id === surface.id
+        ? layoutFits
+        : requiredAreaMm2 <= s.widthMm * s.depthMm && rowLayout(devices, s.widthMm, s.depthMm, spacingMm).fits,
+    );
 
   const warnings: string[] = [];
   if (!areaFits) {

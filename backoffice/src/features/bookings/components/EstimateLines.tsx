@@ -1,7 +1,7 @@
 import Table from '@mui/joy/Table';
 import Decimal from 'decimal.js';
 import Typography from '@mui/joy/Typography';
-import type { QuoteView } from '@loomwright/shared';
+import { quantityWithUnit, type QuoteView } from '@loomwright/shared';
 import { formatDay, formatMoney, formatMoneyRange } from 'src/lib/format';
 
 /** A quote exactly as it was priced: its lines, totals and the price-book version it came from. */
@@ -44,7 +44,7 @@ export function EstimateLines({ quote }: { quote: QuoteView }) {
                 )}
               </td>
               <td style={{ textAlign: 'right' }}>
-                {line.quantity} {line.unit}
+                {quantityWithUnit(line.quantity, line.unit)}
               </td>
               <td style={{ textAlign: 'right' }}>
                 {formatMoney(unitPrice, c)}

@@ -1,6 +1,6 @@
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import type { QuoteView } from '@loomwright/shared';
+import { quantityWithUnit, type QuoteView } from '@loomwright/shared';
 import { formatAmount, formatDay, formatRange } from 'src/lib/booking-format';
 
 /** The quote as it was priced (its own price-book version), line by line. */
@@ -21,7 +21,7 @@ export function QuoteLines({ quote }: { quote: QuoteView }) {
             <tr key={line.code}>
               <td>{line.label}</td>
               <td>
-                {line.quantity} {line.unit}
+                {quantityWithUnit(line.quantity, line.unit)}
               </td>
               <td>{line.amountHigh && quote.kind === 'estimate' ? formatRange(line.amount, line.amountHigh, c) : formatAmount(line.amount, c)}</td>
             </tr>

@@ -6,7 +6,7 @@ import ListItem from '@mui/joy/ListItem';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import { useNavigate } from 'react-router';
-import { encodeConfiguration } from '@loomwright/shared';
+import { encodeConfiguration, quantityWithUnit } from '@loomwright/shared';
 import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/money';
 import { PowerCautions } from '../PowerCautions';
 import { StepHeading } from '../StepHeading';
@@ -41,7 +41,7 @@ export default function ReviewStep({ catalog, configuration, live }: StepProps) 
                   {materials.map((l) => (
                     <tr key={l.code}>
                       <td>{l.label}{l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}</td>
-                      <td>{l.quantity} {l.unit}</td>
+                      <td>{quantityWithUnit(l.quantity, l.unit)}</td>
                       <td>{formatMoney(l.unitPrice, currency)}</td>
                       <td>{formatMoney(l.amount, currency)}</td>
                     </tr>
