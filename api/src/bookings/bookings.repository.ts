@@ -107,12 +107,9 @@ export class BookingsRepository {
     return qb;
   }
 
-  async list(query: BookingListQuery, trx: Executor = this.db): Promise<{ rows: BookingListRow[]; total: number }> {
-    const base = this.listBase(trx, query);
-    const { total } = await base
-      .select((eb) => eb.fn.countAll<string>().as('total'))
-      .executeTakeFirstOrThrow();
-    const rows = await base
+  /** A list row: the booking with its customer, builder and deposit status. */
+  private listRows(trx: Executor, query: Omit<BookingListQuery, 'sort' | 'order' | 'limit' | 'offset'>) {
+    return this.listBase(trx, query)
       .selectAll('bookings')
       .select([
         'customer.name as customer_name',
@@ -121,7 +118,15 @@ export class BookingsRepository {
         'builder_user.name as builder_name',
         'builders.level as builder_level',
         depositStatusSql.as('deposit_status'),
-      ])
+      ]);
+  }
+
+  async list(query: BookingListQuery, trx: Executor = this.db): Promise<{ rows: BookingListRow[]; total: number }> {
+    const base = this.listBase(trx, query);
+    const { total } = await base
+      .select((eb) => eb.fn.countAll<string>().as('total'))
+      .executeTakeFirstOrThrow();
+    const rows = await this.listRows(trx, query)
       .orderBy(`bookings.${query.sort}`, query.order)
       .orderBy('bookings.id')
       .limit(query.limit)
@@ -131,16 +136,7 @@ export class BookingsRepository {
   }
 
   async findListRow(id: string, trx: Executor = this.db): Promise<BookingListRow | undefined> {
-    const row = await this.listBase(trx, {})
-      .selectAll('bookings')
-      .select([
-        'customer.name as customer_name',
-        'customer.email as customer_email',
-        'builder_user.id as builder_user_id',
-        'builder_user.name as builder_name',
-        'builders.level as builder_level',
-        depositStatusSql.as('deposit_status'),
-      ])
+    const row = await this.listRows(trx, {})
       .where('bookings.id', '=', id)
       .executeTakeFirst();
     return row as BookingListRow | undefined;

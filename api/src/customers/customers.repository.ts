@@ -32,19 +32,23 @@ export class CustomersRepository {
     return q;
   }
 
+  /** Each customer with their build counts and latest booking. */
+  private summaries(trx: Executor, search?: string) {
+    return this.base(trx, search).select([
+      'u.id',
+      'u.name',
+      sql<string>`u.email::text`.as('email'),
+      'u.phone',
+      'u.created_at',
+      sql<string>`count(b.id)::text`.as('build_count'),
+      sql<string>`count(b.id) filter (where b.state in (${sql.join(ACTIVE)}))::text`.as('active_build_count'),
+      sql<Date | null>`max(b.created_at)`.as('last_booking_at'),
+    ]);
+  }
+
   async page(trx: Executor, opts: { page: number; pageSize: number; sort: CustomerSort; order: 'asc' | 'desc'; search?: string }) {
-    const rows = await this.base(trx, opts.search)
-      .select([
-        'u.id',
-        'u.name',
-        sql<string>`u.email::text`.as('email'),
-        'u.phone',
-        'u.created_at',
-        sql<string>`count(b.id)::text`.as('build_count'),
-        sql<string>`count(b.id) filter (where b.state in (${sql.join(ACTIVE)}))::text`.as('active_build_count'),
-        sql<Date | null>`max(b.created_at)`.as('last_booking_at'),
-        sql<string>`count(*) over ()::text`.as('total'),
-      ])
+    const rows = await this.summaries(trx, opts.search)
+      .select(sql<string>`count(*) over ()::text`.as('total'))
       .orderBy(sql.ref(sortColumn[opts.sort]), (ob) => (opts.order === 'desc' ? ob.desc() : ob.asc()).nullsLast())
       .orderBy('u.id')
       .limit(opts.pageSize)
@@ -59,17 +63,7 @@ export class CustomersRepository {
   }
 
   summary(trx: Executor, id: string) {
-    return this.base(trx)
-      .select([
-        'u.id',
-        'u.name',
-        sql<string>`u.email::text`.as('email'),
-        'u.phone',
-        'u.created_at',
-        sql<string>`count(b.id)::text`.as('build_count'),
-        sql<string>`count(b.id) filter (where b.state in (${sql.join(ACTIVE)}))::text`.as('active_build_count'),
-        sql<Date | null>`max(b.created_at)`.as('last_booking_at'),
-      ])
+    return this.summaries(trx)
       .where('u.id', '=', id)
       .executeTakeFirst();
   }

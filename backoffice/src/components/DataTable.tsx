@@ -49,6 +49,11 @@ export interface DataTableProps<T> {
  * at once); this draws a page of them, the sort headers and the pager. A row opens with a click,
  * Enter or Space, so every row is reachable from the keyboard.
  */
+/** A server-side list query's page of rows, as the table takes them. */
+export function queryRows<T>(list: { data?: { items: T[]; total: number }; isFetching: boolean; error: Error | null }) {
+  return { rows: list.data?.items, total: list.data?.total, isFetching: list.isFetching, error: list.error };
+}
+
 export function DataTable<T>(props: DataTableProps<T>) {
   const { columns, rows, total, page, pageSize, sort, order } = props;
   const pages = total === undefined ? 1 : Math.max(1, Math.ceil(total / pageSize));

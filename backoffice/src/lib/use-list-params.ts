@@ -80,5 +80,19 @@ export function useListParams<F extends string>(defaults: ListParamsDefaults<F>)
     [params.sort, params.order, update],
   );
 
-  return { params, update, toggleSort };
+  /** What a DataTable needs to page and sort through these params. */
+  const paging = useMemo(
+    () => ({
+      page: params.page,
+      pageSize: params.pageSize,
+      sort: params.sort,
+      order: params.order,
+      onSort: toggleSort,
+      onPage: (page: number) => update({ page }),
+      onPageSize: (pageSize: number) => update({ pageSize }),
+    }),
+    [params.page, params.pageSize, params.sort, params.order, toggleSort, update],
+  );
+
+  return { params, update, toggleSort, paging };
 }

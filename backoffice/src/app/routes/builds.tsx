@@ -6,7 +6,7 @@ import Typography from '@mui/joy/Typography';
 import { benchStates, type BenchState, type BookingSummary } from '@loomwright/shared';
 import { useQueries } from '@tanstack/react-query';
 import { useNavigate } from 'react-router';
-import { DataTable, type Column } from 'src/components/DataTable';
+import { DataTable, queryRows, type Column } from 'src/components/DataTable';
 import { FilterBar } from 'src/components/FilterBar';
 import { PageHeader } from 'src/components/PageHeader';
 import { SearchField } from 'src/components/SearchField';
@@ -17,9 +17,24 @@ import { useListParams } from 'src/lib/use-list-params';
 
 const columns: Column<BookingSummary>[] = [
   { id: 'reference', header: 'Reference', sortKey: 'reference', width: 100, render: (b) => <strong>{b.reference}</strong> },
-  { id: 'customer', header: 'Customer', render: (b) => b.customer.name },
-  { id: 'builder', header: 'Builder', render: (b) => (b.builder ? `${b.builder.name} (${b.builder.level})` : '—') },
-  { id: 'rig', header: 'Rig', width: '26%', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
+  { id: 'customer', header: 'Customer', width: 160, render: (b) => b.customer.name },
+  {
+    id: 'builder',
+    header: 'Builder',
+    width: 160,
+    render: (b) =>
+      b.builder ? (
+        <>
+          {b.builder.name}
+          <Typography level="body-xs" sx={{ display: 'block' }}>
+            {b.builder.level}
+          </Typography>
+        </>
+      ) : (
+        '—'
+      ),
+  },
+  { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
   { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 110, render: (b) => formatDay(b.benchDate) },
   { id: 'done', header: 'Expected done', width: 120, render: (b) => formatDay(b.expectedCompletion) },
   { id: 'hours', header: 'Labor', align: 'right', width: 70, render: (b) => formatHours(b.laborHours) },
@@ -36,7 +51,7 @@ const columns: Column<BookingSummary>[] = [
 
 export function Component() {
   const navigate = useNavigate();
-  const { params, update, toggleSort } = useListParams({
+  const { params, update, paging } = useListParams({
     sort: 'bench_date',
     order: 'asc',
     filters: { state: 'scheduled', q: '' },
@@ -76,19 +91,10 @@ export function Component() {
       <DataTable
         label={`Builds: ${shortStateLabels[state]}`}
         columns={columns}
-        rows={list.data?.items}
-        total={list.data?.total}
-        page={params.page}
-        pageSize={params.pageSize}
-        sort={params.sort}
-        order={params.order}
-        onSort={toggleSort}
-        onPage={(page) => update({ page })}
-        onPageSize={(pageSize) => update({ pageSize })}
+        {...queryRows(list)}
+        {...paging}
         getRowId={(b) => b.id}
         onOpen={(b) => navigate(`/builds/${b.id}`)}
-        isFetching={list.isFetching}
-        error={list.error}
         emptyText={`No builds are ${shortStateLabels[state].toLowerCase()} right now.`}
       />
     </>

@@ -1,5 +1,5 @@
 import type { CustomerSummary } from '@loomwright/shared';
-import { DataTable, type Column } from 'src/components/DataTable';
+import { DataTable, queryRows, type Column } from 'src/components/DataTable';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { FilterBar } from 'src/components/FilterBar';
 import { PageHeader } from 'src/components/PageHeader';
@@ -23,7 +23,7 @@ const columns: Column<CustomerSummary>[] = [
 ];
 
 export function Component() {
-  const { params, update, toggleSort } = useListParams({ sort: 'name', order: 'asc', filters: { q: '', open: '' } });
+  const { params, update, paging } = useListParams({ sort: 'name', order: 'asc', filters: { q: '', open: '' } });
   const list = useCustomers({
     page: params.page,
     pageSize: params.pageSize,
@@ -42,20 +42,11 @@ export function Component() {
       <DataTable
         label="Customers"
         columns={columns}
-        rows={list.data?.items}
-        total={list.data?.total}
-        page={params.page}
-        pageSize={params.pageSize}
-        sort={params.sort}
-        order={params.order}
-        onSort={toggleSort}
-        onPage={(page) => update({ page })}
-        onPageSize={(pageSize) => update({ pageSize })}
+        {...queryRows(list)}
+        {...paging}
         getRowId={(c) => c.id}
         onOpen={(c) => update({ filters: { open: c.id }, page: params.page })}
         selectedId={openId}
-        isFetching={list.isFetching}
-        error={list.error}
         emptyText="No customers match this search."
       />
       <SidePanel open={Boolean(openId)} onClose={() => update({ filters: { open: '' }, page: params.page })} title={detail.data?.name ?? 'Customer'}>

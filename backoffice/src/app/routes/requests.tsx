@@ -5,7 +5,7 @@ import Typography from '@mui/joy/Typography';
 import { bookingStates, type BookingState, type BookingSummary, type DepositStatus } from '@loomwright/shared';
 import { useState } from 'react';
 import { Link as RouterLink } from 'react-router';
-import { DataTable, type Column } from 'src/components/DataTable';
+import { DataTable, queryRows, type Column } from 'src/components/DataTable';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { FilterBar } from 'src/components/FilterBar';
 import { Notice } from 'src/components/Notice';
@@ -32,33 +32,34 @@ const depositWords: Record<DepositStatus, string> = {
 };
 
 const columns: Column<BookingSummary>[] = [
-  { id: 'reference', header: 'Reference', sortKey: 'reference', width: 110, render: (b) => <strong>{b.reference}</strong> },
-  { id: 'created', header: 'Requested', sortKey: 'created_at', firstOrder: 'desc', width: 150, render: (b) => formatStamp(b.createdAt) },
+  { id: 'reference', header: 'Reference', sortKey: 'reference', width: 96, render: (b) => <strong>{b.reference}</strong> },
+  { id: 'created', header: 'Requested', sortKey: 'created_at', firstOrder: 'desc', width: 128, render: (b) => formatStamp(b.createdAt) },
   {
     id: 'customer',
     header: 'Customer',
+    width: 200,
     render: (b) => (
       <>
         {b.customer.name}
-        <Typography level="body-xs" sx={{ display: 'block', wordBreak: 'break-all' }}>
+        <Typography level="body-xs" sx={{ display: 'block', overflowWrap: 'anywhere' }}>
           {b.customer.email}
         </Typography>
       </>
     ),
   },
-  { id: 'rig', header: 'Rig', width: '24%', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
-  { id: 'hours', header: 'Labor', align: 'right', width: 70, render: (b) => formatHours(b.laborHours) },
+  { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
+  { id: 'hours', header: 'Labor', align: 'right', width: 64, render: (b) => formatHours(b.laborHours) },
   {
     id: 'estimate',
     header: 'Estimate',
     align: 'right',
-    width: 160,
+    width: 140,
     render: (b) => (b.firmTotal ? formatMoney(b.firmTotal, b.currency) : formatMoneyRange(b.totalLow, b.totalHigh, b.currency)),
   },
   {
     id: 'deposit',
     header: 'Deposit',
-    width: 130,
+    width: 110,
     render: (b) => (
       <>
         {depositWords[b.depositStatus]}
@@ -69,7 +70,7 @@ const columns: Column<BookingSummary>[] = [
     ),
   },
   { id: 'state', header: 'State', sortKey: 'state', width: 120, render: (b) => <StateChip state={b.state} /> },
-  { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 110, render: (b) => formatDay(b.benchDate) },
+  { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 104, render: (b) => formatDay(b.benchDate) },
 ];
 
 const stateOptions = [
@@ -84,7 +85,7 @@ const depositOptions = [
 export function Component() {
   const me = useMe();
   const isOwner = me.data?.role === 'owner';
-  const { params, update, toggleSort } = useListParams({
+  const { params, update, paging } = useListParams({
     sort: 'created_at',
     order: 'desc',
     filters: { state: '', deposit: '', q: '', open: '' },
@@ -133,20 +134,11 @@ export function Component() {
       <DataTable
         label="Booking requests"
         columns={columns}
-        rows={list.data?.items}
-        total={list.data?.total}
-        page={params.page}
-        pageSize={params.pageSize}
-        sort={params.sort}
-        order={params.order}
-        onSort={toggleSort}
-        onPage={(page) => update({ page })}
-        onPageSize={(pageSize) => update({ pageSize })}
+        {...queryRows(list)}
+        {...paging}
         getRowId={(b) => b.id}
         onOpen={(b) => setOpen(b.id)}
         selectedId={openId}
-        isFetching={list.isFetching}
-        error={list.error}
         emptyText="No requests match these filters."
       />
       <SidePanel
