@@ -12,6 +12,21 @@ import { minorUnitDigits, roundToMinorUnit } from './money';
 import type { EstimateLine, EstimateResult, RigConfiguration } from './types';
 
 const hours = (d: Decimal) => d.toFixed(2);
+
+/**
+ * The price book's figures are decimal strings; each is parsed once and the (immutable) Decimal
+ * reused, since every estimate reads the same few dozen of them.
+ */
+const parsedValues = new Map<string, Decimal>();
+function parsed(value: string): Decimal {
+  let d = parsedValues.get(value);
+  if (!d) {
+    if (parsedValues.size > 4096) parsedValues.clear();
+    d = new Decimal(value);
+    parsedValues.set(value, d);
+  }
+  return d;
+}
 const count = (n: number) => String(n);
 
 /** Looks every id of the configuration up in the book; a miss is the player's to fix, by field. */
@@ -49,8 +64,8 @@ interface LaborItem {
  * since both of its ends are cabled; each function its own hours (wet/dry/wet counting as two).
  */
 function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBook): LaborItem[] {
-  const serialHours = new Decimal(book.labor.hoursPerDeviceSerial);
-  const loopHours = new Decimal(book.labor.hoursPerDeviceSwitcher);
+  const serialHours = parsed(book.labor.hoursPerDeviceSerial);
+  const loopHours = parsed(book.labor.hoursPerDeviceSwitcher);
   const mainDevices = chain.main.length;
   const loopDevices = chain.loops.length;
   const items: LaborItem[] = [
@@ -84,7 +99,7 @@ function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBo
     });
   }
   for (const fn of functions) {
-    const h = new Decimal(fn.laborHours);
+    const h = parsed(fn.laborHours);
     items.push({
       code: `function_${fn.code}`,
       label: fn.name,
@@ -119,61 +134,68 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
   const m = book.materials;
   const mounted = chain.devices.length;
   const fastenerRate = chain.routing === 'switcher' ? m.fastenersPerPedalSwitcher : m.fastenersPerPedalSerial;
-  const hookFeet = new Decimal(m.hookAndLoopFeetPerPedal).times(mounted);
-  const materialLine = (code: string, label: string, quantity: Decimal.Value, unit: string, unitPrice: string, explanation?: string): EstimateLine => ({
-    code,
-    label,
-    kind: 'materials',
-    quantity: typeof quantity === 'number' ? count(quantity) : new Decimal(quantity).toFixed(2),
-    unit,
-    unitPrice,
-    amount: fmt(new Decimal(unitPrice).times(quantity)),
-    ...(explanation ? { explanation } : {}),
-  });
+  const hookFeet = parsed(m.hookAndLoopFeetPerPedal).times(mounted);
+  // Each line's amount is rounded to the minor unit once, and every total is the sum of those
+  // rounded amounts, so the lines always add up to the totals exactly.
+  const round = (v: Decimal) => v.toDecimalPlaces(digits, Decimal.ROUND_HALF_UP);
+  const lines: EstimateLine[] = [];
+  let materialsTotal = new Decimal(0);
+  const materialLine = (code: string, label: string, quantity: number | Decimal, unit: string, unitPrice: string, explanation?: string) => {
+    const amount = round(parsed(unitPrice).times(quantity));
+    materialsTotal = materialsTotal.plus(amount);
+    lines.push({
+      code,
+      label,
+      kind: 'materials',
+      quantity: typeof quantity === 'number' ? count(quantity) : quantity.toFixed(2),
+      unit,
+      unitPrice,
+      amount: amount.toFixed(digits),
+      ...(explanation ? { explanation } : {}),
+    });
+  };
 
-  const lines: EstimateLine[] = [
-    materialLine('surface', surface.name, 1, 'each', surface.price),
-    materialLine('case', rigCase.name, 1, 'each', rigCase.price),
-    materialLine('fasteners', 'Fasteners, tie-down mounts and zip ties', mounted, 'device', fastenerRate,
-      `${chain.routing === 'switcher' ? 'switcher' : 'serial'} board rate per mounted device`),
-    materialLine('hook_and_loop', 'Hook-and-loop', hookFeet, 'ft', m.hookAndLoopPricePerFoot, `${m.hookAndLoopFeetPerPedal} ft per device`),
-  ];
+  materialLine('surface', surface.name, 1, 'each', surface.price);
+  materialLine('case', rigCase.name, 1, 'each', rigCase.price);
+  materialLine('fasteners', 'Fasteners, tie-down mounts and zip ties', mounted, 'device', fastenerRate,
+    `${chain.routing === 'switcher' ? 'switcher' : 'serial'} board rate per mounted device`);
+  materialLine('hook_and_loop', 'Hook-and-loop', hookFeet, 'ft', m.hookAndLoopPricePerFoot, `${m.hookAndLoopFeetPerPedal} ft per device`);
   if (schedule.patchCount > 0) {
-    lines.push(
-      materialLine('patch_cable', 'Audio patch cable', schedule.cableFeet, 'ft', m.cablePricePerFoot,
-        `${schedule.patchCount} patches × (${m.patchLengthFeet} ft + ${m.spareFeetPerPatch} ft spare)`),
-      materialLine('patch_plugs', 'Patch cable plugs', schedule.plugCount, 'plug', m.plugPrice, `2 per patch × ${schedule.patchCount}`),
-    );
+    materialLine('patch_cable', 'Audio patch cable', new Decimal(schedule.cableFeet), 'ft', m.cablePricePerFoot,
+      `${schedule.patchCount} patches × (${m.patchLengthFeet} ft + ${m.spareFeetPerPatch} ft spare)`);
+    materialLine('patch_plugs', 'Patch cable plugs', schedule.plugCount, 'plug', m.plugPrice, `2 per patch × ${schedule.patchCount}`);
   }
   if (schedule.barrelPlugCount > 0) {
-    lines.push(materialLine('dc_barrel_plugs', 'DC barrel plugs for your supply leads', schedule.barrelPlugCount, 'plug', m.barrelPlugPrice,
-      'one per powered device, the switcher too'));
+    materialLine('dc_barrel_plugs', 'DC barrel plugs for your supply leads', schedule.barrelPlugCount, 'plug', m.barrelPlugPrice,
+      'one per powered device, the switcher too');
   }
 
-  const rateLow = new Decimal(level.rateLow);
-  const rateHigh = new Decimal(level.rateHigh);
+  const rateLow = parsed(level.rateLow);
+  const rateHigh = parsed(level.rateHigh);
+  const rateLowText = fmt(rateLow);
+  const rateHighText = fmt(rateHigh);
   let laborHours = new Decimal(0);
+  let laborLow = new Decimal(0);
+  let laborHigh = new Decimal(0);
   for (const item of laborItems(chain, functions, book)) {
+    const low = round(item.hours.times(rateLow));
+    const high = round(item.hours.times(rateHigh));
     laborHours = laborHours.plus(item.hours);
+    laborLow = laborLow.plus(low);
+    laborHigh = laborHigh.plus(high);
     lines.push({
       code: item.code,
       label: item.label,
       kind: 'labor',
       quantity: hours(item.hours),
       unit: 'h',
-      unitPrice: fmt(rateLow),
-      amount: fmt(item.hours.times(rateLow)),
-      amountHigh: fmt(item.hours.times(rateHigh)),
-      explanation: `${item.quantity} ${item.unit}${item.quantity === '1' ? '' : 's'}: ${item.explanation}, at ${fmt(rateLow)}–${fmt(rateHigh)} per hour`,
+      unitPrice: rateLowText,
+      amount: low.toFixed(digits),
+      amountHigh: high.toFixed(digits),
+      explanation: `${item.quantity} ${item.unit}${item.quantity === '1' ? '' : 's'}: ${item.explanation}, at ${rateLowText}–${rateHighText} per hour`,
     });
   }
 
-  // Totals are sums of the rounded lines, so the lines always add up to them exactly.
-  const sum = (pick: (l: EstimateLine) => string | undefined, kind: EstimateLine['kind']) =>
-    lines.filter((l) => l.kind === kind).reduce((s, l) => s.plus(pick(l) ?? l.amount), new Decimal(0));
-  const materialsTotal = sum((l) => l.amount, 'materials');
-  const laborLow = sum((l) => l.amount, 'labor');
-  const laborHigh = sum((l) => l.amountHigh, 'labor');
   const totalLow = materialsTotal.plus(laborLow);
   const totalHigh = materialsTotal.plus(laborHigh);
   const deposit = depositFor(totalHigh, totalLow, book, currency);
@@ -190,7 +212,7 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
     totalLow: fmt(totalLow),
     totalHigh: fmt(totalHigh),
     deposit: fmt(deposit),
-    rate: { low: fmt(rateLow), high: fmt(rateHigh) },
+    rate: { low: rateLowText, high: rateHighText },
     minimumLevel: complexity.minimumLevel,
     minimumLevelReasons: complexity.reasons,
     notes: notesFor(config, checks, rigCase, book),
