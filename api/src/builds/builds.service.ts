@@ -16,6 +16,7 @@ import { shipByDate, toHours } from '../bench/scheduling';
 import { Database, type Executor } from '../database/database';
 import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { MailService } from '../mail/mail.service';
+import { formatDay } from '../mail/templates/format';
 import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
@@ -127,7 +128,7 @@ export class BuildsService {
       ['deposit_paid'],
       'scheduled',
       user,
-      `Accepted for ${builder.name} (${builder.level}); bench date ${plan.benchDate}, expected completion ${plan.expectedCompletion}.${levelNote}`,
+      `Accepted for ${builder.name} (${builder.level}); bench date ${formatDay(plan.benchDate)}, expected completion ${formatDay(plan.expectedCompletion)}.${levelNote}`,
       {
         builder_id: builder.id,
         bench_date: plan.benchDate,

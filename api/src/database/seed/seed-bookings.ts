@@ -5,6 +5,7 @@ import { addDays, todayIn } from '../../bench/calendar-days';
 import { publicHolidaysBetween } from '../../bench/public-holidays';
 import { earliestBenchDateFor, earliestStart, dayCapacity, toCentihours, type BenchCalendar, type HourSlice } from '../../bench/scheduling';
 import { firmQuoteFigures } from '../../builds/firm-quote';
+import { formatDay } from '../../mail/templates/format';
 import type { DB } from '../database';
 
 /**
@@ -271,7 +272,11 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
             to_state: to,
             actor_id: i < 2 ? customer.id : (builder?.user_id ?? null),
             actor_label: i < 2 ? 'Demo data (player)' : `Demo data (${builder?.name ?? 'shop'})`,
-            note: labels[to] ?? (to === 'scheduled' ? `Bench date ${benchDate}, expected completion ${completion}.` : ''),
+            note:
+              labels[to] ??
+              (to === 'scheduled' && benchDate && completion
+                ? `Bench date ${formatDay(benchDate)}, expected completion ${formatDay(completion)}.`
+                : ''),
           })),
         )
         .execute();

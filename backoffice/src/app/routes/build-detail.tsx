@@ -11,7 +11,7 @@ import { Link as RouterLink, useParams } from 'react-router';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { Notice } from 'src/components/Notice';
 import { PageLoading } from 'src/components/PageLoading';
-import { StateChip } from 'src/components/StateChip';
+import { shortStateLabels, StateChip } from 'src/components/StateChip';
 import { useBooking } from 'src/features/bookings/api/get-booking';
 import { BookingFacts } from 'src/features/bookings/components/BookingFacts';
 import { ConfigurationSummary } from 'src/features/bookings/components/ConfigurationSummary';
@@ -58,7 +58,7 @@ export function Component() {
           {b.reference} · {b.customer.name}
         </Typography>
         <StateChip state={b.state} />
-        {bookingStateLabels[b.state] !== 'Scheduled' && <Typography level="body-sm">{bookingStateLabels[b.state]}</Typography>}
+        {bookingStateLabels[b.state] !== shortStateLabels[b.state] && <Typography level="body-sm">{bookingStateLabels[b.state]}</Typography>}
         <Box sx={{ flex: 1 }} />
         <Button component="a" href={`/api/bookings/${b.id}/build-sheet`} target="_blank" rel="noopener" variant="outlined" color="neutral">
           Print the build sheet (PDF)

@@ -64,7 +64,14 @@ export function Component() {
             </Section>
             {isPlayer && shippable.includes(b.state) && (
               <Section title="Shipping your pedals in">
-                <ShipmentForm bookingId={b.id} current={b.inbound} />
+                {b.state === 'scheduled' || b.inbound ? (
+                  <ShipmentForm bookingId={b.id} current={b.inbound} />
+                ) : (
+                  <Typography level="body-sm">
+                    Keep your pedals until the shop sets a bench date. The e-mail with that date says which day to ship by;
+                    you can then record the carrier and tracking number here.
+                  </Typography>
+                )}
               </Section>
             )}
           </Stack>
