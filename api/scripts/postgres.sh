@@ -43,8 +43,15 @@ start() {
     as_owner "$bin/initdb" -D "$data" -U postgres --auth=trust --encoding=UTF8 --locale=C.UTF-8 >/dev/null
   fi
   if as_owner "$bin/pg_ctl" -D "$data" status >/dev/null 2>&1; then
-    echo "PostgreSQL already running from $data"
-    return 0
+    # The fourth line of postmaster.pid is the port the running server listens on.
+    local running_port
+    running_port=$(sed -n 4p "$data/postmaster.pid" 2>/dev/null || true)
+    if [ "$running_port" = "$port" ]; then
+      echo "PostgreSQL already running from $data on 127.0.0.1:$port"
+      return 0
+    fi
+    echo "PostgreSQL in $data is running on port ${running_port:-unknown}; restarting it on $port"
+    as_owner "$bin/pg_ctl" -D "$data" -m fast -w stop >/dev/null
   fi
   rm -f "$data/postmaster.pid"
   as_owner "$bin/pg_ctl" -D "$data" -l "$data/server.log" -w -t 60 start \

@@ -133,6 +133,9 @@ async function main() {
     ...shared,
     PAYMENT_FAKE_PORT: String(settings.paymentPort),
     PAYMENT_FAKE_WEBHOOK_URL: `http://127.0.0.1:${settings.port}/api/payments/webhook`,
+    // Kept beside the database it belongs to, so a restart forgets no checkout; a fresh database
+    // (the browser tests) starts a fresh fake too.
+    PAYMENT_FAKE_STATE_FILE: settings.freshDatabase ? '' : path.join(settings.pgData, '..', `payment-fake-${settings.dbName}.json`),
   });
   run('mail fake', 'api/dist/fakes/mail/main.js', {
     MAIL_FAKE_SMTP_PORT: String(settings.smtpPort),

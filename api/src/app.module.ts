@@ -23,6 +23,15 @@ import { ShopModule } from './shop/shop.module';
 const repoRoot = path.resolve(__dirname, '..', '..', '..');
 const servesApps = process.env.SERVE_APPS !== 'false';
 
+/**
+ * Vite names every built script and style by its content hash, so a browser may keep them for a
+ * year; index.html, which names the current ones, is asked for again each time.
+ */
+function cacheHashedAssets(res: { setHeader(name: string, value: string): void }, filePath: string) {
+  if (filePath.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+  else res.setHeader('Cache-Control', 'no-cache');
+}
+
 @Module({
   imports: [
     ConfigModule.forRoot({ isGlobal: true, load: [configuration], ignoreEnvFile: true }),
@@ -35,10 +44,12 @@ const servesApps = process.env.SERVE_APPS !== 'false';
               rootPath: path.join(repoRoot, 'backoffice', 'dist'),
               serveRoot: '/backoffice',
               exclude: ['/api/{*path}'],
+              serveStaticOptions: { setHeaders: cacheHashedAssets },
             },
             {
               rootPath: path.join(repoRoot, 'storefront', 'dist'),
               exclude: ['/api/{*path}', '/backoffice/{*path}'],
+              serveStaticOptions: { setHeaders: cacheHashedAssets },
             },
           ),
         ]

@@ -1,5 +1,6 @@
 import { INestApplication, ValidationPipe } from '@nestjs/common';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import { applyBodyParsing } from './common/body-parsing';
 
@@ -9,6 +10,9 @@ import { applyBodyParsing } from './common/body-parsing';
  */
 export function configureApp(app: INestApplication): INestApplication {
   app.setGlobalPrefix('api');
+  // Gzip for JSON and the apps' scripts (Nest's own "Compression" technique); a proxy in front
+  // may do it instead.
+  app.use(compression());
   applyBodyParsing(app);
   app.use(cookieParser());
   app.useGlobalPipes(

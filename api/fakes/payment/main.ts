@@ -9,6 +9,7 @@ if (require.main === module) {
     port,
     webhookUrl: process.env.PAYMENT_FAKE_WEBHOOK_URL,
     webhookSecret: process.env.STRIPE_WEBHOOK_SECRET ?? 'whsec_loomwright_local',
+    stateFile: process.env.PAYMENT_FAKE_STATE_FILE || undefined,
   })
     .then((fake) => console.log(`Payment fake on ${fake.url} (webhooks to ${process.env.PAYMENT_FAKE_WEBHOOK_URL ?? 'nowhere'})`))
     .catch((error: unknown) => {

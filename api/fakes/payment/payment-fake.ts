@@ -12,6 +12,8 @@ export interface PaymentFakeOptions {
   /** Where signed events are posted (the API's /api/payments/webhook); none: events are only kept. */
   webhookUrl?: string;
   webhookSecret: string;
+  /** A file to keep the fake's state in across restarts (npm start); none: memory only. */
+  stateFile?: string;
   /** Waits between delivery attempts of one event; the provider retries for days, we for a minute. */
   retryDelaysMs?: number[];
 }
@@ -75,7 +77,7 @@ function positiveInt(v: unknown, param: string): number {
 }
 
 export async function startPaymentFake(options: PaymentFakeOptions): Promise<PaymentFake> {
-  const store = new FakeStore();
+  const store = new FakeStore(options.stateFile);
   const events: FakeEvent[] = [];
   const webhooks = new WebhookSender(
     options.webhookUrl,
@@ -310,13 +312,18 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
       if (path === '/health') return sendJson(res, 200, { status: 'ok' });
       sendJson(res, 404, { error: { type: 'invalid_request_error', message: `Nothing at ${path}.` } });
     };
-    handle().catch((error: unknown) => {
-      if (res.headersSent) return res.end();
-      if (error instanceof RequestError) {
-        return sendJson(res, error.status, { error: { type: error.type, message: error.message, ...(error.param ? { param: error.param } : {}) } });
-      }
-      sendJson(res, 500, { error: { type: 'api_error', message: error instanceof Error ? error.message : String(error) } });
-    });
+    handle()
+      .catch((error: unknown) => {
+        if (res.headersSent) return res.end();
+        if (error instanceof RequestError) {
+          return sendJson(res, error.status, { error: { type: error.type, message: error.message, ...(error.param ? { param: error.param } : {}) } });
+        }
+        sendJson(res, 500, { error: { type: 'api_error', message: error instanceof Error ? error.message : String(error) } });
+      })
+      // Only a POST changes anything; keep the state file in step with it.
+      .finally(() => {
+        if (req.method === 'POST') store.save();
+      });
   });
 
   await new Promise<void>((resolve) => server.listen(options.port, options.host ?? '127.0.0.1', resolve));

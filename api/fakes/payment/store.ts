@@ -1,4 +1,6 @@
 import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { dirname } from 'node:path';
 
 export const fakeId = (prefix: string) => `${prefix}_test_${randomBytes(12).toString('hex')}`;
 export const nowSeconds = () => Math.floor(Date.now() / 1000);
@@ -72,7 +74,14 @@ export interface FakeRefund {
   created: number;
 }
 
-/** The fake's memory. It lives as long as the process, like a provider's test-mode account would. */
+const storedMaps = ['sessions', 'intents', 'charges', 'refunds', 'idempotent'] as const;
+type StoredMap = (typeof storedMaps)[number];
+
+/**
+ * The fake's memory, like a provider's test-mode account. Given a file, it is kept there after
+ * every change and read back at start, so restarting `npm start` forgets no open checkout, paid
+ * deposit or refund; without one (the tests) it lives as long as the process.
+ */
 export class FakeStore {
   readonly sessions = new Map<string, FakeSession>();
   readonly intents = new Map<string, FakeIntent>();
@@ -80,6 +89,21 @@ export class FakeStore {
   readonly refunds = new Map<string, FakeRefund>();
   /** Idempotency-Key → the first request's fingerprint and answer, replayed on a repeat. */
   readonly idempotent = new Map<string, { fingerprint: string; status: number; body: unknown }>();
+
+  constructor(private readonly file?: string) {
+    if (!file || !existsSync(file)) return;
+    const saved = JSON.parse(readFileSync(file, 'utf8')) as Partial<Record<StoredMap, [string, never][]>>;
+    for (const name of storedMaps) for (const [id, value] of saved[name] ?? []) this[name].set(id, value);
+  }
+
+  /** Writes the whole store to its file (a temporary file renamed over it, so a crash leaves the old copy). */
+  save(): void {
+    if (!this.file) return;
+    const state = Object.fromEntries(storedMaps.map((name) => [name, [...this[name].entries()]]));
+    mkdirSync(dirname(this.file), { recursive: true });
+    writeFileSync(`${this.file}.tmp`, JSON.stringify(state));
+    renameSync(`${this.file}.tmp`, this.file);
+  }
 
   /** The wire form of a session: what GET /v1/checkout/sessions/:id answers. */
   sessionView(s: FakeSession) {
