@@ -100,6 +100,8 @@ const matrix: Record<string, Entry> = {
   // the bench and builds
   'GET /api/bench': staff(200),
   'GET /api/bench/suggest': staff(400),
+  // the queue's next free date, for players before they pay: public, no query is a 400
+  'GET /api/bench/lead-time': open(400),
   'POST /api/bookings/:id/accept': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/accept` },
   'POST /api/bookings/:id/decline': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/decline` },
   'POST /api/bookings/:id/state': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/state` },

@@ -133,6 +133,10 @@ test('a player configures, signs up, pays the deposit; a builder schedules it; t
   await player.getByRole('button', { name: 'Request this build' }).click();
   await signUpFromSignIn(player, playerName, playerEmail);
   await expect(player).toHaveURL(/\/request\?c=/);
+  // Before paying, the player sees the bench date a master builder could start on today.
+  const lead = await (await request.get('/api/bench/lead-time', { params: { hours: estimate.laborHours, level: 'master' } })).json();
+  expect(lead.earliestBenchDate).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+  await expect(player.getByTestId('lead-time')).toContainText(`Earliest bench date ${writtenDay(lead.earliestBenchDate)}`);
   await player.getByLabel('Notes for the shop (optional)').fill('The fuzz must stay before the wah.');
   await shoot(player, testInfo, 'storefront-request');
   await player.getByRole('button', { name: 'Request build and pay deposit' }).click();
@@ -168,6 +172,8 @@ test('a player configures, signs up, pays the deposit; a builder schedules it; t
   await expect(accept.getByLabel('Bench date')).toHaveValue(own.benchDate);
   const benchDate = await accept.getByLabel('Bench date').inputValue();
   expect(JSON.stringify(suggested)).toContain(benchDate);
+  // The only master's bench: the date the player was shown before paying holds, or comes sooner.
+  expect(benchDate <= lead.earliestBenchDate).toBe(true);
   await shoot(shop, testInfo, 'backoffice-accept');
   await accept.getByRole('button', { name: 'Accept and schedule' }).click();
   await expect(shop.getByText(`${paid.reference} is scheduled with Teodor Lind`)).toBeVisible();

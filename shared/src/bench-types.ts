@@ -255,3 +255,17 @@ export interface CustomerDetail extends CustomerSummary {
     sentAt: string | null;
   }>;
 }
+
+/**
+ * What a player sees before paying: the earliest day a builder of the level the rig is priced at
+ * could start it, when it would be done, and by when the pedals should arrive. No builder is named.
+ */
+export interface BenchLeadTime {
+  laborHours: string;
+  level: BuilderLevel;
+  earliestBenchDate: string | null;
+  expectedCompletion: string | null;
+  shipBy: string | null;
+  /** Why there is no date, in words, when there is none. */
+  message?: string;
+}

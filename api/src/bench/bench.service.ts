@@ -5,6 +5,7 @@ import {
   type AuthUser,
   type BenchBuilder,
   type BenchDay,
+  type BenchLeadTime,
   type BenchSuggestResponse,
   type BenchSuggestion,
   type BenchView,
@@ -31,6 +32,12 @@ import {
 } from './scheduling';
 
 export const MAX_BENCH_VIEW_DAYS = 93;
+
+/**
+ * Days a player's request usually waits between paying and a builder accepting it, before the
+ * shipping lead starts to count (common practice, no published source).
+ */
+export const ACCEPTANCE_ALLOWANCE_DAYS = 2;
 
 type BuilderRow = Awaited<ReturnType<BenchRepository['listBuilders']>>[number];
 
@@ -181,6 +188,38 @@ export class BenchService {
       suggestions,
       ineligible,
     };
+  }
+
+  /**
+   * The earliest start any active builder of at least `level` could give a build of `laborHours`,
+   * by the same search a builder's acceptance makes, so the date a player sees is one the shop can
+   * hold (it is not reserved until a builder accepts the paid request, which is then offered this
+   * date or an earlier one).
+   */
+  async leadTime(laborHours: string, level: BuilderLevel): Promise<BenchLeadTime> {
+    const shop = await this.shopCalendar();
+    // The player has yet to pay and a builder to accept, so the ship-by day is counted from a
+    // couple of days ahead, never from today.
+    const from = earliestBenchDateFor(addDays(shop.today, ACCEPTANCE_ALLOWANCE_DAYS), shop);
+    const builders = (await this.bench.listBuilders(this.db, { activeOnly: true })).filter((b) => levelRank(b.level) >= levelRank(level));
+    let best: { benchDate: string; expectedCompletion: string } | null = null;
+    for (const b of builders) {
+      const plan = await this.planFor(this.db, b.weekly_hours, b.id, laborHours, shop, { from });
+      if (!plan.ok) continue;
+      const earlier = !best || plan.benchDate < best.benchDate || (plan.benchDate === best.benchDate && plan.expectedCompletion < best.expectedCompletion);
+      if (earlier) best = { benchDate: plan.benchDate, expectedCompletion: plan.expectedCompletion };
+    }
+    if (!best) {
+      return {
+        laborHours,
+        level,
+        earliestBenchDate: null,
+        expectedCompletion: null,
+        shipBy: null,
+        message: `No ${level} builder has bench time free for this build right now; the shop will write to you with a date after you request it.`,
+      };
+    }
+    return { laborHours, level, earliestBenchDate: best.benchDate, expectedCompletion: best.expectedCompletion, shipBy: shipByDate(best.benchDate, shop) };
   }
 
   /**

@@ -12,9 +12,10 @@ import Typography from '@mui/joy/Typography';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link as RouterLink, Navigate, useLocation, useNavigate, useSearchParams } from 'react-router';
-import { CONFIGURATION_PARAM, decodeConfiguration, requestNotesSchema, type RequestNotesInput } from '@loomwright/shared';
+import { CONFIGURATION_PARAM, decodeConfiguration, levelRank, requestNotesSchema, type RequestNotesInput } from '@loomwright/shared';
 import { PageLoading } from 'src/components/PageLoading';
 import { useMe } from 'src/features/auth/api/get-me';
+import { LeadTime } from 'src/features/bench/components/LeadTime';
 import { useCreateBooking } from 'src/features/bookings/api/create-booking';
 import { useEstimatePreview } from 'src/features/bookings/api/preview-estimate';
 import { startCheckout } from 'src/features/payments/api/start-checkout';
@@ -95,6 +96,13 @@ export function Component() {
           The shop prices your request again when it arrives, from the same price book; the firm total follows the builder who takes it on.
         </Typography>
       </Card>
+
+      {e && (
+        <Card variant="outlined">
+          <Typography level="title-md" component="h2">Bench time</Typography>
+          <LeadTime hours={e.laborHours} level={levelRank(e.minimumLevel) > levelRank(e.level) ? e.minimumLevel : e.level} />
+        </Card>
+      )}
 
       <Card variant="outlined">
         <Typography level="title-md" component="h2">Deposit</Typography>
