@@ -37,6 +37,29 @@ describe('demo bookings seed step', () => {
       group by b.reference, q.labor_hours order by b.reference`.execute(t.db);
     expect(check.rows).toHaveLength(3);
     for (const r of check.rows) expect(r.booked).toBe(r.planned);
+
+    // The history reads like a real queue: every step in the past, in order, the request first;
+    // a build on the bench was requested before its bench date and reached the bench on or after it.
+    const events = await t.db
+      .selectFrom('booking_events')
+      .innerJoin('bookings', 'bookings.id', 'booking_events.booking_id')
+      .select(['bookings.reference', 'bookings.created_at as requested_at', 'bookings.bench_date', 'booking_events.to_state', 'booking_events.created_at'])
+      .orderBy('booking_events.id')
+      .execute();
+    const now = Date.now();
+    for (const reference of rows.map((r) => r.reference)) {
+      const mine = events.filter((e) => e.reference === reference);
+      const times = mine.map((e) => e.created_at.getTime());
+      expect(times, reference).toEqual([...times].sort((a, b) => a - b));
+      expect(Math.max(...times), reference).toBeLessThan(now);
+      expect(mine[0]!.created_at.getTime(), reference).toBe(mine[0]!.requested_at.getTime());
+      const benchDate = mine[0]!.bench_date;
+      if (benchDate) {
+        expect(mine[0]!.created_at.toISOString().slice(0, 10) < benchDate, reference).toBe(true);
+        const onBench = mine.find((e) => e.to_state === 'on_bench');
+        if (onBench) expect(onBench.created_at.toISOString().slice(0, 10) >= benchDate, reference).toBe(true);
+      }
+    }
   });
 
   it('leaves a paid request that a builder can accept at the suggested date', async () => {

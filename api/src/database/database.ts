@@ -14,6 +14,8 @@ import type {
  * The typed shape of every table (see migrations/ for the constraints behind them).
  * numeric and bigint columns arrive from pg as strings, date columns as 'YYYY-MM-DD' strings:
  * money stays a decimal string until decimal.js takes it; a bench day is a calendar day.
+ * A Timestamp's insert type allows undefined, so a column with a default (now()) may be left out
+ * or set (the demo seed sets its history times).
  */
 export type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 export type NullableTimestamp = ColumnType<Date | null, Date | string | null | undefined, Date | string | null>;
@@ -32,7 +34,7 @@ export interface ShopSettingsTable {
   country_code: string;
   timezone: string;
   contact_email: string;
-  updated_at: Generated<Timestamp>;
+  updated_at: Timestamp;
 }
 
 export interface UsersTable {
@@ -42,7 +44,7 @@ export interface UsersTable {
   role: UserRole;
   password_hash: string | null;
   phone: string | null;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
   last_sign_in_at: NullableTimestamp;
   password_changed_at: NullableTimestamp;
 }
@@ -54,7 +56,7 @@ export interface AuthTokensTable {
   token_hash: string;
   expires_at: Timestamp;
   used_at: NullableTimestamp;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export interface BuildersTable {
@@ -64,7 +66,7 @@ export interface BuildersTable {
   hourly_rate: Numeric;
   weekly_hours: JSONColumnType<WeeklyHours>;
   active: Generated<boolean>;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export interface ShopClosuresTable {
@@ -80,7 +82,7 @@ export interface PriceBookVersionsTable {
   book: JSONColumnType<PriceBook>;
   notes: Generated<string>;
   published_by: string | null;
-  published_at: Generated<Timestamp>;
+  published_at: Timestamp;
 }
 
 export interface BookingsTable {
@@ -100,8 +102,8 @@ export interface BookingsTable {
   cancel_reason: string | null;
   balance_waived_reason: string | null;
   level_override_reason: string | null;
-  created_at: Generated<Timestamp>;
-  updated_at: Generated<Timestamp>;
+  created_at: Timestamp;
+  updated_at: Timestamp;
 }
 
 export interface QuotesTable {
@@ -121,7 +123,7 @@ export interface QuotesTable {
   total: NullableNumeric;
   builder_id: string | null;
   expires_at: Timestamp;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export interface BookingEventsTable {
@@ -132,7 +134,7 @@ export interface BookingEventsTable {
   actor_id: string | null;
   actor_label: string;
   note: Generated<string>;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export type PaymentStatus = 'pending' | 'paid' | 'failed' | 'expired' | 'refunded';
@@ -152,15 +154,15 @@ export interface PaymentsTable {
   failure_message: string | null;
   paid_at: NullableTimestamp;
   refunded_at: NullableTimestamp;
-  created_at: Generated<Timestamp>;
-  updated_at: Generated<Timestamp>;
+  created_at: Timestamp;
+  updated_at: Timestamp;
 }
 
 export interface PaymentEventsTable {
   event_id: string;
   type: string;
   payload: JSONColumnType<Record<string, unknown>>;
-  received_at: Generated<Timestamp>;
+  received_at: Timestamp;
 }
 
 export interface BookingExtrasTable {
@@ -172,7 +174,7 @@ export interface BookingExtrasTable {
   status: 'proposed' | 'approved' | 'declined';
   proposed_by: string | null;
   decided_at: NullableTimestamp;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export interface PhotosTable {
@@ -184,7 +186,7 @@ export interface PhotosTable {
   content_type: string;
   size_bytes: number;
   caption: Generated<string>;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export interface IntakeItemsTable {
@@ -195,7 +197,7 @@ export interface IntakeItemsTable {
   note: Generated<string>;
   photo_id: string | null;
   recorded_by: string;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export interface TimeEntriesTable {
@@ -205,7 +207,7 @@ export interface TimeEntriesTable {
   worked_on: CalendarDay;
   hours: Numeric;
   note: Generated<string>;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
 }
 
 export interface BenchAllocationsTable {
@@ -233,7 +235,7 @@ export interface MailOutboxTable {
   attempts: Generated<number>;
   last_error: string | null;
   dedupe_key: string | null;
-  created_at: Generated<Timestamp>;
+  created_at: Timestamp;
   sent_at: NullableTimestamp;
   claimed_at: NullableTimestamp;
   last_attempt_at: NullableTimestamp;

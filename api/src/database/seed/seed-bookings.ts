@@ -29,11 +29,14 @@ const demoBookings: Array<{
   builder?: string;
   /** Days from today the bench search starts (negative: a build already under way). */
   startOffset?: number;
+  /** For a request with no bench date yet: how many days ago it was sent. */
+  ageDays?: number;
   notes: string;
   configuration: RigConfiguration;
 }> = [
   {
     reference: 'LW-0901',
+    ageDays: 3,
     customer: 'player@mail.example',
     state: 'requested',
     notes: 'Small fly rig for club gigs.',
@@ -41,6 +44,7 @@ const demoBookings: Array<{
   },
   {
     reference: 'LW-0902',
+    ageDays: 2,
     customer: 'cass@mail.example',
     state: 'deposit_paid',
     notes: 'Touring rig; the reverb must stay on its own isolated output.',
@@ -63,6 +67,7 @@ const demoBookings: Array<{
   },
   {
     reference: 'LW-0903',
+    ageDays: 1,
     customer: 'player@mail.example',
     state: 'deposit_paid',
     notes: '',
@@ -124,6 +129,32 @@ const demoBookings: Array<{
     },
   },
 ];
+
+const HOUR = 3_600_000;
+
+/**
+ * When each state of a demo booking was reached, so the timelines read like a real queue: a
+ * request about two weeks before its bench date, paid the same day, accepted the next, pedals in
+ * two days before the bench, and so on. Every time is in the past and in order.
+ */
+function demoTimeline(reached: BookingState[], benchDate: string | null, completion: string | null, ageDays: number): Date[] {
+  const now = Date.now();
+  const at = (day: string, hour: number) => Date.parse(`${day}T${String(hour).padStart(2, '0')}:00:00Z`);
+  const requested = benchDate ? at(addDays(benchDate, -12), 10) : now - ageDays * 24 * HOUR;
+  const planned: Partial<Record<BookingState, number>> = {
+    requested,
+    deposit_paid: requested + 2 * HOUR,
+    scheduled: requested + 26 * HOUR,
+    ...(benchDate ? { pedals_received: at(addDays(benchDate, -2), 11), on_bench: at(benchDate, 9) } : {}),
+    ...(completion ? { testing: at(completion, 13), ready: at(completion, 16), delivered: at(addDays(completion, 2), 12) } : {}),
+  };
+  const times: number[] = [];
+  reached.forEach((state, i) => {
+    const latest = now - (reached.length - i) * 60_000;
+    times.push(Math.min(Math.max(planned[state] ?? requested, times[i - 1] ?? 0), latest));
+  });
+  return times.map((t) => new Date(t));
+}
 
 const path: BookingState[] = ['requested', 'deposit_paid', 'scheduled', 'pedals_received', 'on_bench', 'testing', 'ready', 'delivered'];
 
@@ -243,6 +274,11 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
           }
         }
       }
+      const times = demoTimeline(reached, benchDate, completion, demo.ageDays ?? 1);
+      const timeOf = (state: BookingState) => times[reached.indexOf(state)] ?? new Date();
+      if (demo.state === 'delivered') {
+        await trx.updateTable('payments').set({ paid_at: timeOf('ready'), created_at: timeOf('ready') }).where('booking_id', '=', booking.id).where('kind', '=', 'balance').execute();
+      }
       if (reached.includes('deposit_paid')) {
         await trx
           .insertInto('payments')
@@ -253,13 +289,21 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
             amount_minor: new Decimal(estimate.deposit).times(100).toFixed(0),
             currency: estimate.currency,
             status: 'paid',
-            paid_at: new Date(),
+            paid_at: timeOf('deposit_paid'),
+            created_at: timeOf('requested'),
           })
           .execute();
       }
       await trx
         .updateTable('bookings')
-        .set({ state: demo.state, builder_id: builder?.id ?? null, bench_date: benchDate, expected_completion: completion })
+        .set({
+          state: demo.state,
+          builder_id: builder?.id ?? null,
+          bench_date: benchDate,
+          expected_completion: completion,
+          created_at: timeOf('requested'),
+          updated_at: timeOf(demo.state),
+        })
         .where('id', '=', booking.id)
         .execute();
       const labels: Record<string, string> = { requested: 'Request sent', deposit_paid: 'Deposit paid' };
@@ -272,6 +316,7 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
             to_state: to,
             actor_id: i < 2 ? customer.id : (builder?.user_id ?? null),
             actor_label: i < 2 ? 'Demo data (player)' : `Demo data (${builder?.name ?? 'shop'})`,
+            created_at: times[i] ?? new Date(),
             note:
               labels[to] ??
               (to === 'scheduled' && benchDate && completion
