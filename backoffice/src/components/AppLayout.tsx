@@ -49,17 +49,34 @@ function StaffLayout({ user }: { user: AuthUser }) {
   const health = useHealth();
   return (
     <Box sx={{ minHeight: '100dvh', display: 'grid', gridTemplateColumns: { xs: '1fr', md: '232px 1fr' } }}>
+      {/* A column on the left from md up; on a tablet or phone a compact bar over the page. */}
       <Sheet
         component="aside"
         variant="soft"
         color="primary"
-        sx={{ p: 2, display: 'flex', flexDirection: 'column', gap: 2, borderRight: '1px solid', borderColor: 'divider' }}
+        sx={{
+          p: { xs: 1.5, md: 2 },
+          display: 'flex',
+          flexDirection: { xs: 'row', md: 'column' },
+          flexWrap: { xs: 'wrap', md: 'nowrap' },
+          alignItems: { xs: 'center', md: 'stretch' },
+          columnGap: 2,
+          rowGap: { xs: 1, md: 2 },
+          borderRight: { md: '1px solid' },
+          borderBottom: { xs: '1px solid', md: 'none' },
+          borderColor: 'divider',
+        }}
       >
         <Box>
           <Typography level="title-lg">{shop.data?.name ?? 'Loomwright'}</Typography>
           <Typography level="body-xs">Backoffice</Typography>
         </Box>
-        <List component="nav" aria-label="Backoffice" size="sm" sx={{ '--ListItem-radius': '6px', flex: 'none' }}>
+        <List
+          component="nav"
+          aria-label="Backoffice"
+          size="sm"
+          sx={{ '--ListItem-radius': '6px', flex: 'none', order: { xs: 3, md: 0 }, width: { xs: '100%', md: 'auto' }, flexDirection: { xs: 'row', md: 'column' }, flexWrap: 'wrap', gap: { xs: 0.5, md: 0 } }}
+        >
           {navigation.map((item) => (
             <ListItem key={item.to}>
               <ListItemButton
@@ -73,10 +90,10 @@ function StaffLayout({ user }: { user: AuthUser }) {
             </ListItem>
           ))}
         </List>
-        <Box sx={{ mt: 'auto' }}>
+        <Box sx={{ mt: { md: 'auto' }, ml: { xs: 'auto', md: 0 } }}>
           <SignedInStaff user={user} />
         </Box>
-        <Typography level="body-xs" role="status">
+        <Typography level="body-xs" role="status" sx={{ display: { xs: 'none', md: 'block' } }}>
           {health.isError || health.data?.db === 'down'
             ? 'Database not answering'
             : health.data

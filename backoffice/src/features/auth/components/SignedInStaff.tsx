@@ -5,12 +5,12 @@ import type { AuthUser } from '@loomwright/shared';
 import { useNavigate } from 'react-router';
 import { useSignOut } from 'src/features/auth/api/sign-out';
 
-/** The signed-in staff member at the foot of the left navigation. */
+/** The signed-in staff member: at the foot of the left navigation, or at the end of the bar on a tablet. */
 export function SignedInStaff({ user }: { user: AuthUser }) {
   const signOut = useSignOut();
   const navigate = useNavigate();
   return (
-    <Stack gap={0.5} aria-label="Signed in">
+    <Stack direction={{ xs: 'row', md: 'column' }} alignItems={{ xs: 'center', md: 'stretch' }} gap={{ xs: 1, md: 0.5 }} aria-label="Signed in">
       <Typography level="title-sm">{user.name}</Typography>
       <Typography level="body-xs">{user.role === 'owner' ? 'Owner' : 'Builder'}</Typography>
       <Button
@@ -19,7 +19,7 @@ export function SignedInStaff({ user }: { user: AuthUser }) {
         color="neutral"
         loading={signOut.isPending}
         onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}
-        sx={{ alignSelf: 'flex-start', mt: 0.5 }}
+        sx={{ alignSelf: { md: 'flex-start' }, mt: { md: 0.5 } }}
       >
         Sign out
       </Button>
