@@ -110,9 +110,11 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
             ))}
           </Box>
         ) : null}
-        <Typography level="body-xs" sx={{ mt: 1.5 }}>
-          Pedals, power supply and switcher are yours and not in the price.
-        </Typography>
+        {e && e.notes.length > 4 ? (
+          <Typography level="body-xs" sx={{ mt: 1 }}>
+            {e.notes.length - 4} more {e.notes.length - 4 === 1 ? 'note' : 'notes'} on the Review step.
+          </Typography>
+        ) : null}
       </Box>
     </Sheet>
   );
