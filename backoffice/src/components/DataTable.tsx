@@ -20,6 +20,8 @@ export interface Column<T> {
   firstOrder?: SortOrder;
   align?: 'left' | 'right';
   width?: number | string;
+  /** Left out below the lg breakpoint (a tablet at the bench), where the table has no room for it. */
+  wideOnly?: boolean;
   render: (row: T) => ReactNode;
 }
 
@@ -44,15 +46,16 @@ export interface DataTableProps<T> {
   emptyText: string;
 }
 
+/** A server-side list query's page of rows, as the table takes them. */
+export function queryRows<T>(list: { data?: { items: T[]; total: number }; isFetching: boolean; error: Error | null }) {
+  return { rows: list.data?.items, total: list.data?.total, isFetching: list.isFetching, error: list.error };
+}
+
 /**
  * The backoffice's one table: the server pages, sorts and filters (hundreds of rows never travel
  * at once); this draws a page of them, the sort headers and the pager. A row opens with a click,
  * Enter or Space, so every row is reachable from the keyboard.
  */
-/** A server-side list query's page of rows, as the table takes them. */
-export function queryRows<T>(list: { data?: { items: T[]; total: number }; isFetching: boolean; error: Error | null }) {
-  return { rows: list.data?.items, total: list.data?.total, isFetching: list.isFetching, error: list.error };
-}
 
 export function DataTable<T>(props: DataTableProps<T>) {
   const { columns, rows, total, page, pageSize, sort, order } = props;
@@ -91,6 +94,7 @@ export function DataTable<T>(props: DataTableProps<T>) {
             '& tbody tr[data-selected="true"]': { bgcolor: 'primary.100' },
             '& tbody tr[tabindex]': { cursor: 'pointer' },
             '& tbody tr:focus-visible': { outline: '3px solid', outlineColor: 'primary.500', outlineOffset: '-3px' },
+            '& .lw-wide-only': { display: { xs: 'none', lg: 'table-cell' } },
           }}
         >
           <thead>
@@ -100,6 +104,7 @@ export function DataTable<T>(props: DataTableProps<T>) {
                 return (
                   <th
                     key={column.id}
+                    className={column.wideOnly ? 'lw-wide-only' : undefined}
                     style={{ width: column.width, textAlign: column.align ?? 'left' }}
                     aria-sort={active ? (order === 'asc' ? 'ascending' : 'descending') : undefined}
                   >
@@ -138,7 +143,7 @@ export function DataTable<T>(props: DataTableProps<T>) {
                   aria-selected={props.onOpen ? props.selectedId === id : undefined}
                 >
                   {columns.map((column) => (
-                    <td key={column.id} style={{ textAlign: column.align ?? 'left' }}>
+                    <td key={column.id} className={column.wideOnly ? 'lw-wide-only' : undefined} style={{ textAlign: column.align ?? 'left' }}>
                       {column.render(row)}
                     </td>
                   ))}

@@ -37,7 +37,7 @@ const columns: Column<BookingSummary>[] = [
   { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
   { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 110, render: (b) => formatDay(b.benchDate) },
   { id: 'done', header: 'Expected done', width: 120, render: (b) => formatDay(b.expectedCompletion) },
-  { id: 'hours', header: 'Labor', align: 'right', width: 70, render: (b) => formatHours(b.laborHours) },
+  { id: 'hours', header: 'Labor', align: 'right', width: 70, wideOnly: true, render: (b) => formatHours(b.laborHours) },
   {
     id: 'total',
     header: 'Total',
@@ -46,7 +46,7 @@ const columns: Column<BookingSummary>[] = [
     render: (b) => (b.firmTotal ? formatMoney(b.firmTotal, b.currency) : formatMoneyRange(b.totalLow, b.totalHigh, b.currency)),
   },
   { id: 'state', header: 'State', sortKey: 'state', width: 120, render: (b) => <StateChip state={b.state} /> },
-  { id: 'updated', header: 'Last change', sortKey: 'updated_at', firstOrder: 'desc', width: 110, render: (b) => formatDay(b.updatedAt.slice(0, 10)) },
+  { id: 'updated', header: 'Last change', sortKey: 'updated_at', firstOrder: 'desc', width: 110, wideOnly: true, render: (b) => formatDay(b.updatedAt.slice(0, 10)) },
 ];
 
 export function Component() {

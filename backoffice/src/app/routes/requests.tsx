@@ -33,7 +33,7 @@ const depositWords: Record<DepositStatus, string> = {
 
 const columns: Column<BookingSummary>[] = [
   { id: 'reference', header: 'Reference', sortKey: 'reference', width: 96, render: (b) => <strong>{b.reference}</strong> },
-  { id: 'created', header: 'Requested', sortKey: 'created_at', firstOrder: 'desc', width: 128, render: (b) => formatStamp(b.createdAt) },
+  { id: 'created', header: 'Requested', sortKey: 'created_at', firstOrder: 'desc', width: 128, wideOnly: true, render: (b) => formatStamp(b.createdAt) },
   {
     id: 'customer',
     header: 'Customer',
@@ -48,7 +48,7 @@ const columns: Column<BookingSummary>[] = [
     ),
   },
   { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
-  { id: 'hours', header: 'Labor', align: 'right', width: 64, render: (b) => formatHours(b.laborHours) },
+  { id: 'hours', header: 'Labor', align: 'right', width: 64, wideOnly: true, render: (b) => formatHours(b.laborHours) },
   {
     id: 'estimate',
     header: 'Estimate',
