@@ -1,8 +1,10 @@
 import { INestApplication, ValidationPipe } from '@nestjs/common';
+import { HttpAdapterHost } from '@nestjs/core';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import { applyBodyParsing } from './common/body-parsing';
+import { DatabaseInputFilter } from './common/database-input.filter';
 
 /**
  * Everything main.ts and the API tests both need, so tests exercise the app as it runs.
@@ -18,6 +20,8 @@ export function configureApp(app: INestApplication): INestApplication {
   app.useGlobalPipes(
     new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),
   );
+  // A value PostgreSQL refuses as data (a NUL byte, an out-of-range number) is the caller's to fix: 400.
+  app.useGlobalFilters(new DatabaseInputFilter(app.get(HttpAdapterHost).httpAdapter));
   app.enableShutdownHooks();
   const document = SwaggerModule.createDocument(
     app,
