@@ -14,6 +14,14 @@ describe('request bodies that cannot be read', () => {
     expect(res.body.message).toMatch(/not valid JSON/);
   });
 
+  // RFC 8259 §2: a JSON text may be any value, so `null` and `"text"` are valid JSON; the API
+  // takes objects only and must say that, not call them malformed.
+  it.each(['null', '"text"', '42'])('answers the bare JSON value %s with a 400 asking for an object', async (body) => {
+    const res = await t.http().post('/api/estimates').set('Content-Type', 'application/json').send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.message).toMatch(/must be a JSON object/);
+  });
+
   it('answers a body over the size limit with a 413 in words', async () => {
     const res = await t.http().post('/api/estimates').set('Content-Type', 'application/json').send(JSON.stringify({ pad: 'x'.repeat(1_100_000) }));
     expect(res.status).toBe(413);

@@ -7,6 +7,16 @@ const keepRawBody = (req: Request, _res: Response, buf: Buffer) => {
   (req as WithRawBody).rawBody = buf;
 };
 
+function isBareJsonValue(body: string | undefined): boolean {
+  if (body === undefined) return false;
+  try {
+    const value: unknown = JSON.parse(body);
+    return value === null || typeof value !== 'object';
+  } catch {
+    return false;
+  }
+}
+
 /**
  * JSON and form bodies, parsed by Express's own parsers with the raw bytes kept (as Nest's
  * `rawBody: true` would), and a body that cannot be parsed answered with a 400 in words.
@@ -16,12 +26,15 @@ const keepRawBody = (req: Request, _res: Response, buf: Buffer) => {
 export function applyBodyParsing(app: INestApplication): void {
   app.use(json({ limit: '1mb', verify: keepRawBody }));
   app.use(urlencoded({ extended: false, limit: '1mb', verify: keepRawBody }));
-  app.use((error: { type?: string; status?: number } | undefined, _req: Request, res: Response, next: NextFunction) => {
+  app.use((error: { type?: string; status?: number; body?: string } | undefined, _req: Request, res: Response, next: NextFunction) => {
     if (error?.type === 'entity.parse.failed') {
+      // The parser is strict: valid JSON that is a bare string, number or null is refused too.
       res.status(400).json({
         statusCode: 400,
         error: 'Bad Request',
-        message: 'The request body is not valid JSON; check its quotes, commas and brackets, and send it again.',
+        message: isBareJsonValue(error.body)
+          ? 'The request body must be a JSON object, like {"name": "value"}, not a bare string, number or null.'
+          : 'The request body is not valid JSON; check its quotes, commas and brackets, and send it again.',
       });
       return;
     }
