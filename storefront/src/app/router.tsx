@@ -20,7 +20,6 @@ const router = createBrowserRouter([
       { path: 'checkout/return', lazy: () => import('src/app/routes/checkout-return') },
       { path: 'builds', lazy: () => import('src/app/routes/builds') },
       { path: 'builds/:id', lazy: () => import('src/app/routes/build-detail') },
-      { path: 'configure', lazy: () => import('src/app/routes/configure') },
       { path: '*', lazy: () => import('src/app/routes/not-found') },
     ],
   },
