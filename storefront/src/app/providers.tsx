@@ -1,12 +1,11 @@
 import CssBaseline from '@mui/joy/CssBaseline';
 import { CssVarsProvider } from '@mui/joy/styles';
 import { QueryClientProvider } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
-import { createQueryClient } from 'src/lib/query-client';
+import type { ReactNode } from 'react';
+import { queryClient } from 'src/app/query-client';
 import { theme } from 'src/theme';
 
 export function AppProviders({ children }: { children: ReactNode }) {
-  const [queryClient] = useState(createQueryClient);
   return (
     <CssVarsProvider theme={theme} defaultMode="light" modeStorageKey="lw-storefront-mode">
       <CssBaseline />

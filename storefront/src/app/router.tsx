@@ -1,6 +1,8 @@
 import { createBrowserRouter, RouterProvider } from 'react-router';
+import { queryClient } from 'src/app/query-client';
 import { AppLayout } from 'src/components/AppLayout';
 import { RouteError } from 'src/components/RouteError';
+import { catalogQueryOptions } from 'src/features/configurator/api/get-catalog';
 
 // Each screen is its own chunk, so the first load ships only what the first screen needs.
 const router = createBrowserRouter([
@@ -15,7 +17,15 @@ const router = createBrowserRouter([
       { path: 'forgot-password', lazy: () => import('src/app/routes/forgot-password') },
       { path: 'reset-password', lazy: () => import('src/app/routes/reset-password') },
       { path: 'account', lazy: () => import('src/app/routes/account') },
-      { path: 'configure', lazy: () => import('src/app/routes/configure') },
+      {
+        path: 'configure',
+        // A static loader runs beside lazy(): the price book is on its way while the screen's code loads.
+        loader: () => {
+          void queryClient.prefetchQuery(catalogQueryOptions());
+          return null;
+        },
+        lazy: () => import('src/app/routes/configure'),
+      },
       { path: 'request', lazy: () => import('src/app/routes/request') },
       { path: 'checkout/return', lazy: () => import('src/app/routes/checkout-return') },
       { path: 'builds', lazy: () => import('src/app/routes/builds') },
