@@ -1,4 +1,4 @@
-import type { BuilderRef, PersonRef, Page } from './booking-types';
+import type { BuilderRef, PaymentView, PersonRef, Page } from './booking-types';
 import type { BookingState, BuilderLevel, WeeklyHours } from './domain';
 
 /**
@@ -240,7 +240,7 @@ export interface CustomerDetail extends CustomerSummary {
     kind: 'deposit' | 'balance';
     amount: string;
     currency: string;
-    status: string;
+    status: PaymentView['status'];
     paidAt: string | null;
     createdAt: string;
   }>;

@@ -206,6 +206,7 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
         : undefined;
       let benchDate: string | null = null;
       let completion: string | null = null;
+      let balancePaid: Decimal | null = null;
       if (builder && reached.includes('scheduled')) {
         const calendar: BenchCalendar = { weeklyHours: builder.weekly_hours, closures, holidayOn };
         const from = demo.startOffset ? addDays(today, demo.startOffset) : earliestBenchDateFor(today, calendar);
@@ -264,20 +265,24 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
               .execute();
           }
         }
-        if (demo.state === 'delivered') {
-          const balance = new Decimal(firm.balanceDue);
-          if (balance.gt(0)) {
-            await trx
-              .insertInto('payments')
-              .values({ booking_id: booking.id, kind: 'balance', amount: balance.toFixed(2), amount_minor: balance.times(100).toFixed(0), currency: estimate.currency, status: 'paid', paid_at: new Date() })
-              .execute();
-          }
-        }
+        if (demo.state === 'delivered' && new Decimal(firm.balanceDue).gt(0)) balancePaid = new Decimal(firm.balanceDue);
       }
       const times = demoTimeline(reached, benchDate, completion, demo.ageDays ?? 1);
       const timeOf = (state: BookingState) => times[reached.indexOf(state)] ?? new Date();
-      if (demo.state === 'delivered') {
-        await trx.updateTable('payments').set({ paid_at: timeOf('ready'), created_at: timeOf('ready') }).where('booking_id', '=', booking.id).where('kind', '=', 'balance').execute();
+      if (balancePaid) {
+        await trx
+          .insertInto('payments')
+          .values({
+            booking_id: booking.id,
+            kind: 'balance',
+            amount: balancePaid.toFixed(2),
+            amount_minor: balancePaid.times(100).toFixed(0),
+            currency: estimate.currency,
+            status: 'paid',
+            paid_at: timeOf('ready'),
+            created_at: timeOf('ready'),
+          })
+          .execute();
       }
       if (reached.includes('deposit_paid')) {
         await trx

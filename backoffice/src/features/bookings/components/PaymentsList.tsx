@@ -11,12 +11,17 @@ const statusWords: Record<PaymentView['status'], string> = {
   refunded: 'Refunded',
 };
 
-export function PaymentsList({ payments }: { payments: PaymentView[] }) {
+/** A payment as a booking or a customer lists it; the customer's list also names the booking. */
+export type PaymentRow = Pick<PaymentView, 'id' | 'kind' | 'status' | 'amount' | 'currency' | 'paidAt' | 'createdAt'> &
+  Partial<Pick<PaymentView, 'failureMessage' | 'refundedAt'>> & { reference?: string };
+
+export function PaymentsList({ payments, showBooking = false }: { payments: PaymentRow[]; showBooking?: boolean }) {
   if (payments.length === 0) return <Typography level="body-sm">No payments yet.</Typography>;
   return (
     <Table size="sm" aria-label="Payments" sx={{ '--TableCell-height': '28px', fontVariantNumeric: 'tabular-nums' }}>
       <thead>
         <tr>
+          {showBooking && <th>Booking</th>}
           <th>Kind</th>
           <th>Status</th>
           <th style={{ textAlign: 'right' }}>Amount</th>
@@ -26,6 +31,7 @@ export function PaymentsList({ payments }: { payments: PaymentView[] }) {
       <tbody>
         {payments.map((p) => (
           <tr key={p.id}>
+            {showBooking && <td>{p.reference}</td>}
             <td>{p.kind === 'deposit' ? 'Deposit' : 'Balance'}</td>
             <td>
               {statusWords[p.status]}

@@ -7,15 +7,9 @@ import type { CustomerDetail } from '@loomwright/shared';
 import type { ReactNode } from 'react';
 import { Link as RouterLink } from 'react-router';
 import { StateChip } from 'src/components/StateChip';
+import { PaymentsList } from 'src/features/bookings/components/PaymentsList';
 import { formatDay, formatMoney, formatStamp } from 'src/lib/format';
 
-const paymentWords: Record<string, string> = {
-  pending: 'Checkout open',
-  paid: 'Paid',
-  failed: 'Failed',
-  expired: 'Checkout expired',
-  refunded: 'Refunded',
-};
 const mailWords: Record<string, string> = { queued: 'Queued', sending: 'Sending', sent: 'Sent', failed: 'Not delivered' };
 
 function Block({ title, children }: { title: string; children: ReactNode }) {
@@ -70,32 +64,7 @@ export function CustomerDetails({ customer }: { customer: CustomerDetail }) {
         )}
       </Block>
       <Block title="Payments">
-        {customer.payments.length === 0 ? (
-          <Typography level="body-sm">No payments yet.</Typography>
-        ) : (
-          <Table size="sm" aria-label="Payments" sx={small}>
-            <thead>
-              <tr>
-                <th>Booking</th>
-                <th>Kind</th>
-                <th>Status</th>
-                <th style={{ textAlign: 'right' }}>Amount</th>
-                <th>When</th>
-              </tr>
-            </thead>
-            <tbody>
-              {customer.payments.map((p) => (
-                <tr key={p.id}>
-                  <td>{p.reference}</td>
-                  <td>{p.kind === 'deposit' ? 'Deposit' : 'Balance'}</td>
-                  <td>{paymentWords[p.status] ?? p.status}</td>
-                  <td style={{ textAlign: 'right' }}>{formatMoney(p.amount, p.currency)}</td>
-                  <td>{formatStamp(p.paidAt ?? p.createdAt)}</td>
-                </tr>
-              ))}
-            </tbody>
-          </Table>
-        )}
+        <PaymentsList payments={customer.payments} showBooking />
       </Block>
       <Block title="Messages sent">
         {customer.messages.length === 0 ? (
