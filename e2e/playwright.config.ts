@@ -60,6 +60,8 @@ export default defineConfig({
       MAIL_FAKE_SMTP_PORT: String(smtpPort),
       MAIL_FAKE_HTTP_PORT: String(mailHttpPort),
       NODE_ENV: 'test',
+      // The journeys sign in as the demo shop's people.
+      SEED_DEMO: 'true',
     },
   },
 });

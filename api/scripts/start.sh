@@ -15,4 +15,6 @@ if [ ! -f shared/dist/index.js ] || [ ! -f api/dist/src/main.js ] || [ ! -f stor
   npm run build
 fi
 
+# The invented demo shop (with the sign-ins the README lists) is off unless asked for; npm start asks.
+export SEED_DEMO="${SEED_DEMO:-true}"
 exec node api/scripts/stack.mjs

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DEVELOPMENT_DEFAULTS, productionProblems } from './production-safety';
 
 /**
  * Environment, validated once at boot. Each concern reads its own group through
@@ -12,17 +13,18 @@ const environmentSchema = z.object({
   PUBLIC_URL: z.string().url().default('http://localhost:3000'),
   DATABASE_URL: z.string().default('postgres://postgres@127.0.0.1:54329/loomwright'),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
-  JWT_SECRET: z.string().min(16).default('loomwright-development-secret-change-me'),
+  JWT_SECRET: z.string().min(16).default(DEVELOPMENT_DEFAULTS.JWT_SECRET),
   SESSION_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
   AUTH_THROTTLE_LIMIT: z.coerce.number().int().min(1).max(10_000).default(10),
   AUTH_THROTTLE_SECONDS: z.coerce.number().int().min(1).max(24 * 3600).default(60),
   PASSWORD_RESET_MINUTES: z.coerce.number().int().min(5).max(24 * 60).default(60),
   STAFF_INVITE_DAYS: z.coerce.number().int().min(1).max(30).default(7),
-  STRIPE_SECRET_KEY: z.string().default('sk_test_loomwright_local'),
-  STRIPE_WEBHOOK_SECRET: z.string().default('whsec_loomwright_local'),
-  STRIPE_API_HOST: z.string().default('127.0.0.1'),
-  STRIPE_API_PORT: port(4242),
-  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).default('http'),
+  STRIPE_SECRET_KEY: z.string().default(DEVELOPMENT_DEFAULTS.STRIPE_SECRET_KEY),
+  STRIPE_WEBHOOK_SECRET: z.string().default(DEVELOPMENT_DEFAULTS.STRIPE_WEBHOOK_SECRET),
+  // Unset in production: the SDK then reaches the provider itself. Elsewhere: the local fake.
+  STRIPE_API_HOST: z.string().optional(),
+  STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: port(2525),
   SMTP_SECURE: z.enum(['true', 'false']).default('false'),
@@ -33,7 +35,22 @@ const environmentSchema = z.object({
   MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(8),
   UPLOADS_DIR: z.string().default('.data/uploads'),
   SERVE_APPS: z.enum(['true', 'false']).default('true'),
-  SEED_DEMO: z.enum(['true', 'false']).default('true'),
+  // The demo shop publishes its owner's password: off unless asked for (`npm start` asks).
+  SEED_DEMO: z.enum(['true', 'false']).default('false'),
+  // Origins besides PUBLIC_URL's own that may send state-changing requests (comma-separated).
+  ALLOWED_ORIGINS: z
+    .string()
+    .default('')
+    .transform((list, ctx) => {
+      const origins: string[] = [];
+      for (const item of list.split(',').map((s) => s.trim()).filter(Boolean)) {
+        const origin = URL.canParse(item) ? new URL(item).origin : 'null';
+        if (origin === 'null' || origin !== item.replace(/\/$/, '')) {
+          ctx.addIssue({ code: 'custom', message: `"${item}" is not an origin; write each as scheme://host[:port], e.g. https://shop.example` });
+        } else origins.push(origin);
+      }
+      return origins;
+    }),
   RUN_WORKERS: z.enum(['true', 'false']).default('true'),
 });
 
@@ -45,7 +62,23 @@ export function validateEnvironment(raw: Record<string, unknown>): Environment {
     const problems = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
     throw new Error(`Loomwright cannot start: the environment has bad settings:\n${problems}`);
   }
+  if (parsed.data.NODE_ENV === 'production') {
+    const unsafe = productionProblems(raw);
+    if (unsafe.length > 0) {
+      throw new Error(`Loomwright refuses to start in production with unsafe settings:\n${unsafe.map((p) => `  - ${p}`).join('\n')}`);
+    }
+  }
   return parsed.data;
+}
+
+/** Where the payment SDK connects: as set; else the provider in production and the local fake elsewhere. */
+function stripeEndpoint(env: Environment): { host?: string; port?: number; protocol?: 'http' | 'https' } {
+  const local = env.NODE_ENV !== 'production';
+  return {
+    host: env.STRIPE_API_HOST ?? (local ? '127.0.0.1' : undefined),
+    port: env.STRIPE_API_PORT ?? (local ? 4242 : undefined),
+    protocol: env.STRIPE_API_PROTOCOL ?? (local ? 'http' : undefined),
+  };
 }
 
 export function configuration() {
@@ -59,6 +92,7 @@ export function configuration() {
       seedDemo: env.SEED_DEMO === 'true',
       runWorkers: env.RUN_WORKERS === 'true',
       uploadsDir: env.UPLOADS_DIR,
+      allowedOrigins: [new URL(env.PUBLIC_URL).origin, ...env.ALLOWED_ORIGINS],
     },
     database: { url: env.DATABASE_URL, poolMax: env.DATABASE_POOL_MAX },
     auth: {
@@ -72,9 +106,7 @@ export function configuration() {
     payments: {
       secretKey: env.STRIPE_SECRET_KEY,
       webhookSecret: env.STRIPE_WEBHOOK_SECRET,
-      host: env.STRIPE_API_HOST,
-      port: env.STRIPE_API_PORT,
-      protocol: env.STRIPE_API_PROTOCOL,
+      ...stripeEndpoint(env),
     },
     mail: {
       host: env.SMTP_HOST,

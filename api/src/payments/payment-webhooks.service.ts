@@ -12,6 +12,28 @@ import { PaymentsService } from './payments.service';
 const provider: BookingActor = { id: null, label: 'Payment provider' };
 
 /**
+ * How far a webhook's signed timestamp may be from our clock, either side: the payment SDK's own
+ * default for old events (`Stripe.webhooks.DEFAULT_TOLERANCE`, 300 s), applied to future ones too.
+ */
+export const WEBHOOK_TOLERANCE_SECONDS = 300;
+
+/** The signed `t=` of a Stripe-Signature header, in Unix seconds (the SDK's header format). */
+function signedTimestamp(header: string): number | undefined {
+  const field = header.split(',').find((part) => part.trim().startsWith('t='));
+  const seconds = field ? Number(field.trim().slice(2)) : Number.NaN;
+  return Number.isSafeInteger(seconds) ? seconds : undefined;
+}
+
+function clockProblem(header: string, now: number): string | undefined {
+  const timestamp = signedTimestamp(header);
+  if (timestamp === undefined) return 'The Stripe-Signature header has no timestamp (t=…).';
+  const skew = timestamp - Math.floor(now / 1000);
+  if (Math.abs(skew) <= WEBHOOK_TOLERANCE_SECONDS) return undefined;
+  const side = skew > 0 ? `${skew} seconds ahead of` : `${-skew} seconds behind`;
+  return `The webhook was signed ${side} this server's clock; events more than ${WEBHOOK_TOLERANCE_SECONDS} seconds either side are refused as possible replays.`;
+}
+
+/**
  * Signed events from the payment provider: the only way a payment becomes paid (the browser's
  * return to the storefront proves nothing). Each event id is handled once, in one transaction
  * with the changes it causes, so a replay or a concurrent duplicate changes nothing.
@@ -31,14 +53,23 @@ export class PaymentWebhooksService {
     private readonly shop: ShopService,
   ) {}
 
-  verify(rawBody: Buffer | undefined, signature: string | string[] | undefined): Stripe.Event {
+  verify(rawBody: Buffer | undefined, signature: string | string[] | undefined, now = Date.now()): Stripe.Event {
     if (!rawBody || rawBody.length === 0) throw new BadRequestException('The webhook body is empty.');
     if (typeof signature !== 'string' || !signature) throw new BadRequestException('The Stripe-Signature header is missing.');
+    const { webhookSecret } = this.config.get('payments', { infer: true });
+    let event: Stripe.Event;
     try {
-      return this.stripe.webhooks.constructEvent(rawBody, signature, this.config.get('payments', { infer: true }).webhookSecret);
+      // The SDK refuses events older than the tolerance; one from the future it lets through.
+      event = this.stripe.webhooks.constructEvent(rawBody, signature, webhookSecret, WEBHOOK_TOLERANCE_SECONDS, undefined, now);
     } catch (error) {
-      throw new BadRequestException(`The webhook signature does not verify: ${error instanceof Error ? error.message : 'unknown reason'}`);
+      throw new BadRequestException(
+        clockProblem(signature, now) ?? `The webhook signature does not verify: ${error instanceof Error ? error.message : 'unknown reason'}`,
+      );
     }
+    // A signature made for a time ahead of ours would otherwise stay replayable until then.
+    const problem = clockProblem(signature, now);
+    if (problem) throw new BadRequestException(problem);
+    return event;
   }
 
   async handle(event: Stripe.Event): Promise<{ received: true; duplicate: boolean }> {

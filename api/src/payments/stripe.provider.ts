@@ -11,11 +11,12 @@ export const stripeProvider: Provider = {
   provide: Stripe,
   inject: [ConfigService],
   useFactory: (config: ConfigService<AppConfig, true>) => {
-    const payments = config.get('payments', { infer: true });
-    return new Stripe(payments.secretKey, {
-      host: payments.host,
-      port: payments.port,
-      protocol: payments.protocol,
+    const { secretKey, host, port, protocol } = config.get('payments', { infer: true });
+    return new Stripe(secretKey, {
+      // Unset (production): the SDK's own address of the provider.
+      ...(host === undefined ? {} : { host }),
+      ...(port === undefined ? {} : { port }),
+      ...(protocol === undefined ? {} : { protocol }),
       maxNetworkRetries: 2,
       timeout: 15_000,
       appInfo: { name: 'Loomwright' },
