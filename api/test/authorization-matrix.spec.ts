@@ -93,6 +93,7 @@ const matrix: Record<string, Entry> = {
   'POST /api/bookings/:id/shipment': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/shipment` },
   'POST /api/bookings/:id/photos': { ...ownedByA(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/photos` },
   'GET /api/bookings/:id/photos/:photoId': { expect: [401, 404, 404, 404, 404], path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}` },
+  'GET /api/bookings/:id/photos/:photoId/thumbnail': { expect: [401, 404, 404, 404, 404], path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}/thumbnail` },
   // payments
   'POST /api/bookings/:id/checkout': { expect: [401, 200, 404, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/checkout` },
   'POST /api/bookings/:id/refund': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/refund` },

@@ -92,8 +92,13 @@ export interface PhotoView {
   kind: 'customer' | 'intake' | 'build';
   caption: string;
   contentType: string;
-  /** GET this (with the session cookie) to see the image. */
+  /** GET this (with the session cookie) to see the image: re-encoded on upload, no camera metadata. */
   url: string;
+  /** A copy at most 480 px on its long edge (WebP), for photo lists. */
+  thumbnailUrl: string;
+  /** Pixel size of `url`; null until a photo stored before re-encoding is first viewed. */
+  width: number | null;
+  height: number | null;
   createdAt: string;
 }
 

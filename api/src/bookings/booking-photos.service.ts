@@ -5,13 +5,14 @@ import { staffRoles } from '@loomwright/shared';
 import { fileTypeFromBuffer } from 'file-type';
 import { Database } from '../database/database';
 import { photoView } from './booking-view';
-import { BookingsRepository } from './bookings.repository';
+import { BookingsRepository, type PhotoRow } from './bookings.repository';
 import { BookingsService } from './bookings.service';
+import { type PhotoFormat, type ProcessedPhoto, reencodePhoto, UnreadablePhotoError } from './photo-processing';
 import { PhotoStorage } from './photo-storage';
 
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 export const MAX_PHOTOS_PER_BOOKING = 8;
-/** Formats every browser shows; judged by the file's first bytes, never by its name or header. */
+/** Formats every browser shows; judged by the file's first bytes, never by its name or header, then re-encoded. */
 const allowedImages: Record<string, string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' };
 
 export interface UploadedPhoto {
@@ -44,9 +45,9 @@ export class BookingPhotosService {
         `file: this is ${type ? `a ${type.mime} file` : 'not a recognisable image'}; upload a JPEG, PNG or WebP photo.`,
       );
     }
+    const processed = await this.reencode(file.buffer, type.mime as PhotoFormat);
     const staff = staffRoles.includes(user.role);
-    const key = `${booking.id}/${randomUUID()}.${ext}`;
-    await this.storage.put(key, file.buffer);
+    const keys = await this.store(booking.id, processed);
     try {
       const row = await this.db.transaction().execute(async (trx) => {
         // The lock makes the per-booking limit hold under concurrent uploads.
@@ -59,24 +60,90 @@ export class BookingPhotosService {
           booking_id: booking.id,
           uploaded_by: user.id,
           kind: staff ? (options.kind ?? 'build') : 'customer',
-          storage_key: key,
-          content_type: type.mime,
-          size_bytes: file.size,
+          ...keys,
+          content_type: processed.full.contentType,
+          size_bytes: processed.full.bytes.length,
+          width: processed.width,
+          height: processed.height,
           caption: options.caption?.trim() ?? '',
         });
       });
       return photoView(row);
     } catch (error) {
-      await this.storage.remove(key);
+      await this.removeAll(keys);
       throw error;
     }
   }
 
-  async read(user: AuthUser, bookingId: string, photoId: string): Promise<{ bytes: Buffer; contentType: string }> {
+  /**
+   * The photo or its list-sized copy. Only re-encoded bytes go out: a photo stored before uploads
+   * were re-encoded is re-encoded here the first time anyone asks for it, and its original removed.
+   */
+  async read(
+    user: AuthUser,
+    bookingId: string,
+    photoId: string,
+    variant: 'full' | 'thumbnail' = 'full',
+  ): Promise<{ bytes: Buffer; contentType: string }> {
     await this.bookings.findVisible(user, bookingId);
-    const row = await this.repository.findPhoto(bookingId, photoId);
+    let row = await this.repository.findPhoto(bookingId, photoId);
     if (!row) throw new NotFoundException(`There is no photo ${photoId} on this booking.`);
-    return { bytes: await this.storage.get(row.storage_key), contentType: row.content_type };
+    if (!row.thumbnail_key) row = await this.reencodeLegacy(row);
+    return variant === 'thumbnail'
+      ? { bytes: await this.storage.get(row.thumbnail_key!), contentType: 'image/webp' }
+      : { bytes: await this.storage.get(row.storage_key), contentType: row.content_type };
+  }
+
+  private async reencodeLegacy(row: PhotoRow): Promise<PhotoRow> {
+    let processed: ProcessedPhoto;
+    try {
+      processed = await reencodePhoto(await this.storage.get(row.storage_key), row.content_type as PhotoFormat);
+    } catch (error) {
+      if (!(error instanceof UnreadablePhotoError)) throw error;
+      throw new NotFoundException('This photo could not be read back from storage; please upload it again.');
+    }
+    const keys = await this.store(row.booking_id, processed);
+    const updated = await this.repository.replaceLegacyPhoto(row.id, {
+      ...keys,
+      content_type: processed.full.contentType,
+      size_bytes: processed.full.bytes.length,
+      width: processed.width,
+      height: processed.height,
+    });
+    if (!updated) {
+      // Someone else re-encoded it at the same moment: theirs stands, ours goes.
+      await this.removeAll(keys);
+      return (await this.repository.findPhoto(row.booking_id, row.id))!;
+    }
+    await this.storage.remove(row.storage_key);
+    return updated;
+  }
+
+  private async reencode(bytes: Buffer, format: PhotoFormat): Promise<ProcessedPhoto> {
+    try {
+      return await reencodePhoto(bytes, format);
+    } catch (error) {
+      if (error instanceof UnreadablePhotoError) throw new BadRequestException(error.message);
+      throw error;
+    }
+  }
+
+  /** Writes both copies under fresh server-chosen keys; nothing stays behind if either write fails. */
+  private async store(bookingId: string, processed: ProcessedPhoto): Promise<{ storage_key: string; thumbnail_key: string }> {
+    const name = `${bookingId}/${randomUUID()}`;
+    const keys = { storage_key: `${name}.${processed.full.ext}`, thumbnail_key: `${name}.thumb.${processed.thumbnail.ext}` };
+    try {
+      await this.storage.put(keys.storage_key, processed.full.bytes);
+      await this.storage.put(keys.thumbnail_key, processed.thumbnail.bytes);
+    } catch (error) {
+      await this.removeAll(keys);
+      throw error;
+    }
+    return keys;
+  }
+
+  private async removeAll(keys: { storage_key: string; thumbnail_key: string }) {
+    await Promise.all([this.storage.remove(keys.storage_key), this.storage.remove(keys.thumbnail_key)]);
   }
 }
 

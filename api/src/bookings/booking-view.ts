@@ -83,6 +83,9 @@ export function photoView(row: PhotoRow): PhotoView {
     caption: row.caption,
     contentType: row.content_type,
     url: `/api/bookings/${row.booking_id}/photos/${row.id}`,
+    thumbnailUrl: `/api/bookings/${row.booking_id}/photos/${row.id}/thumbnail`,
+    width: row.width,
+    height: row.height,
     createdAt: iso(row.created_at),
   };
 }

@@ -80,17 +80,31 @@ export class BookingsController {
   }
 
   @Get(':id/photos/:photoId')
-  @ApiOkResponse({ description: "The photo's bytes (the booking's player and staff only)." })
+  @ApiOkResponse({ description: "The photo, re-encoded on upload without its camera metadata (the booking's player and staff only)." })
   async photo(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingIdPipe) id: string,
     @Param('photoId', photoIdPipe) photoId: string,
     @Res() res: Response,
   ) {
-    const { bytes, contentType } = await this.photos.read(user, id, photoId);
-    res.setHeader('Content-Type', contentType);
-    res.setHeader('Cache-Control', 'private, max-age=3600');
-    res.setHeader('X-Content-Type-Options', 'nosniff');
-    res.send(bytes);
+    sendImage(res, await this.photos.read(user, id, photoId, 'full'));
   }
+
+  @Get(':id/photos/:photoId/thumbnail')
+  @ApiOkResponse({ description: 'A copy of the photo at most 480 px on its long edge, as WebP, for photo lists.' })
+  async photoThumbnail(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingIdPipe) id: string,
+    @Param('photoId', photoIdPipe) photoId: string,
+    @Res() res: Response,
+  ) {
+    sendImage(res, await this.photos.read(user, id, photoId, 'thumbnail'));
+  }
+}
+
+function sendImage(res: Response, image: { bytes: Buffer; contentType: string }) {
+  res.setHeader('Content-Type', image.contentType);
+  res.setHeader('Cache-Control', 'private, max-age=3600');
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.send(image.bytes);
 }

@@ -182,6 +182,21 @@ export class BookingsRepository {
     return trx.insertInto('photos').values(values).returningAll().executeTakeFirstOrThrow();
   }
 
+  /** Points a photo stored before re-encoding at its re-encoded copies; only the first caller wins. */
+  replaceLegacyPhoto(
+    photoId: string,
+    values: { storage_key: string; thumbnail_key: string; content_type: string; size_bytes: number; width: number; height: number },
+    trx: Executor = this.db,
+  ) {
+    return trx
+      .updateTable('photos')
+      .set(values)
+      .where('id', '=', photoId)
+      .where('thumbnail_key', 'is', null)
+      .returningAll()
+      .executeTakeFirst();
+  }
+
   findPhoto(bookingId: string, photoId: string, trx: Executor = this.db) {
     return trx.selectFrom('photos').selectAll().where('booking_id', '=', bookingId).where('id', '=', photoId).executeTakeFirst();
   }

@@ -11,7 +11,7 @@ export abstract class PhotoStorage {
   abstract remove(key: string): Promise<void>;
 }
 
-const safeKey = /^[0-9a-f-]{36}\/[0-9a-f-]{36}\.[a-z0-9]{2,5}$/;
+const safeKey = /^[0-9a-f-]{36}\/[0-9a-f-]{36}(\.thumb)?\.[a-z0-9]{2,5}$/;
 
 export class LocalDiskPhotoStorage extends PhotoStorage {
   constructor(private readonly root: string) {

@@ -187,6 +187,10 @@ export interface PhotosTable {
   size_bytes: number;
   caption: Generated<string>;
   created_at: Timestamp;
+  /** The list-sized copy; null for a photo stored before uploads were re-encoded. */
+  thumbnail_key: string | null;
+  width: number | null;
+  height: number | null;
 }
 
 export interface IntakeItemsTable {

@@ -3,6 +3,7 @@ import * as foundation from './20261201_0001_foundation';
 import * as domain from './20261201_0002_domain';
 import * as mailDelivery from './20261201_0400_mail_delivery';
 import * as passwordChangedAt from './20261201_0200_password_changed_at';
+import * as photoVariants from './20261202_0217_photo_variants';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -13,4 +14,5 @@ export const migrations: Record<string, Migration> = {
   '20261201_0002_domain': domain,
   '20261201_0200_password_changed_at': passwordChangedAt,
   '20261201_0400_mail_delivery': mailDelivery,
+  '20261202_0217_photo_variants': photoVariants,
 };

@@ -18,7 +18,7 @@ export function PhotoGrid({ photos }: { photos: PhotoView[] }) {
         <Box component="figure" key={photo.id} sx={{ m: 0 }}>
           <Link href={photo.url} target="_blank" rel="noopener" aria-label={`Open photo: ${photo.caption || kindWords[photo.kind]}`}>
             <AspectRatio ratio="4/3" sx={{ width: '100%', borderRadius: 'sm' }}>
-              <img src={photo.url} alt={photo.caption || `${kindWords[photo.kind]} photo`} loading="lazy" />
+              <img src={photo.thumbnailUrl} alt={photo.caption || `${kindWords[photo.kind]} photo`} loading="lazy" />
             </AspectRatio>
           </Link>
           <Typography component="figcaption" level="body-xs" sx={{ mt: 0.5 }}>

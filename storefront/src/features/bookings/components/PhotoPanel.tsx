@@ -3,6 +3,7 @@ import Alert from '@mui/joy/Alert';
 import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
 import Input from '@mui/joy/Input';
+import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
 import { PHOTO_MAX_BYTES, PHOTO_MAX_PER_BOOKING, PHOTO_TYPES, type PhotoView } from '@loomwright/shared';
@@ -42,7 +43,9 @@ export function PhotoPanel({ bookingId, photos }: { bookingId: string; photos: P
         <Box sx={{ display: 'grid', gridTemplateColumns: 'repeat(auto-fill, minmax(140px, 1fr))', gap: 1.5 }}>
           {photos.map((photo) => (
             <Box component="figure" key={photo.id} sx={{ m: 0 }}>
-              <Box component="img" src={photo.url} alt={photo.caption || kindWords[photo.kind]} loading="lazy" sx={{ width: '100%', aspectRatio: '4 / 3', objectFit: 'cover', borderRadius: 'sm', border: '1px solid', borderColor: 'neutral.outlinedBorder' }} />
+              <Link href={photo.url} target="_blank" rel="noopener" aria-label={`Open photo: ${photo.caption || kindWords[photo.kind]}`} sx={{ display: 'block' }}>
+                <Box component="img" src={photo.thumbnailUrl} alt={photo.caption || kindWords[photo.kind]} loading="lazy" sx={{ width: '100%', aspectRatio: '4 / 3', objectFit: 'cover', borderRadius: 'sm', border: '1px solid', borderColor: 'neutral.outlinedBorder' }} />
+              </Link>
               <Typography component="figcaption" level="body-xs">
                 {photo.caption || kindWords[photo.kind]}
               </Typography>
@@ -61,7 +64,7 @@ export function PhotoPanel({ bookingId, photos }: { bookingId: string; photos: P
           </Button>
         </Stack>
       )}
-      <Typography level="body-xs">JPEG, PNG or WebP, up to 8 MB each, {PHOTO_MAX_PER_BOOKING} per build. Only you and the shop can see them.</Typography>
+      <Typography level="body-xs">JPEG, PNG or WebP, up to 8 MB each, {PHOTO_MAX_PER_BOOKING} per build. Only you and the shop can see them; the camera's location and settings are removed from every copy.</Typography>
       {(problem || upload.error) && (
         <Alert color="danger" role="alert">
           {problem ?? upload.error?.message}
