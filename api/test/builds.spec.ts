@@ -279,8 +279,8 @@ describe('who may use the bench, team, settings and customers routes', () => {
   it('lets the owner edit the team, the shop and its closures, naming a bad field', async () => {
     const res = await agents.owner.patch(`/api/team/${someBuilder}`).send({ hourlyRate: '95.50', weeklyHours: { '1': 8, '3': 4.5 } }).expect(200);
     expect(res.body).toMatchObject({ hourlyRate: '95.50', weeklyHours: { '1': 8, '3': 4.5 }, weeklyCapacityHours: 12.5 });
-    expect((await agents.owner.patch(`/api/team/${someBuilder}`).send({ weeklyHours: { '8': 3 } })).body.message).toMatch(/ISO weekdays 1 \(Monday\) to 7/);
-    expect((await agents.owner.patch(`/api/team/${someBuilder}`).send({ weeklyHours: { '2': 30 } })).body.message).toMatch(/weeklyHours.2 must be a number of hours from 0 to 24/);
+    expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ weeklyHours: { '8': 3 } })).body.message)).toMatch(/ISO weekdays 1 \(Monday\) to 7/);
+    expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ weeklyHours: { '2': 30 } })).body.message)).toMatch(/weeklyHours.2 must be a number of hours from 0 to 24/);
     expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ level: 'wizard' })).body.message)).toContain('level must be one of');
 
     expect((await agents.owner.patch('/api/settings').send({ countryCode: 'QQ' })).body.message).toMatch(/countryCode QQ has no public-holiday data/);

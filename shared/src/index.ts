@@ -13,3 +13,6 @@ export * from './auth-schemas';
 export * from './mail-types';
 export * from './booking-schemas';
 export * from './mail-types';
+export * from './request-fields';
+export * from './team-schemas';
+export * from './build-schemas';

@@ -1,13 +1,10 @@
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
-import type { AuthUser, BookingState, ExtraView, IntakeItemView, TimeEntriesResponse } from '@loomwright/shared';
+import type { AuthUser, BookingState, ExtraView, IntakeItemView, ProposeExtraInput, RecordIntakeInput, TimeEntriesResponse, TimeEntryInput } from '@loomwright/shared';
 import { BenchService } from '../bench/bench.service';
 import { Database, type Executor } from '../database/database';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
-import type { CreateTimeEntryDto } from './dto/create-time-entry.dto';
-import type { ProposeExtraDto } from './dto/propose-extra.dto';
-import type { RecordIntakeDto } from './dto/record-intake.dto';
 
 // Generated<Timestamp> columns come back typed as the column type; at runtime pg gives a Date.
 const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
@@ -37,7 +34,7 @@ export class BuildRecordsService {
     return booking;
   }
 
-  async addTimeEntry(user: AuthUser, bookingId: string, dto: CreateTimeEntryDto): Promise<TimeEntriesResponse> {
+  async addTimeEntry(user: AuthUser, bookingId: string, dto: TimeEntryInput): Promise<TimeEntriesResponse> {
     await this.db.transaction().execute(async (trx) => {
       const booking = await this.lockIn(trx, bookingId, ['pedals_received', 'on_bench', 'testing', 'ready'], 'hours can be recorded');
       const own = await this.builds.builderByUser(trx, user.id);
@@ -77,7 +74,7 @@ export class BuildRecordsService {
     };
   }
 
-  async recordIntake(user: AuthUser, bookingId: string, dto: RecordIntakeDto): Promise<IntakeItemView[]> {
+  async recordIntake(user: AuthUser, bookingId: string, dto: RecordIntakeInput): Promise<IntakeItemView[]> {
     await this.db.transaction().execute(async (trx) => {
       const booking = await this.lockIn(trx, bookingId, ['scheduled', 'pedals_received'], 'intake can be recorded');
       const items = dto.items.map((i) => ({ item: i.item.trim(), condition: i.condition, note: i.note?.trim() ?? '' }));
@@ -99,7 +96,7 @@ export class BuildRecordsService {
     return rows.map((r) => ({ id: r.id, item: r.item, condition: r.condition, note: r.note, recordedBy: r.recorded_by, createdAt: iso(r.created_at) }));
   }
 
-  async proposeExtra(user: AuthUser, bookingId: string, dto: ProposeExtraDto): Promise<ExtraView> {
+  async proposeExtra(user: AuthUser, bookingId: string, dto: ProposeExtraInput): Promise<ExtraView> {
     return this.db.transaction().execute(async (trx) => {
       const booking = await this.lockIn(trx, bookingId, ['scheduled', 'pedals_received', 'on_bench', 'testing'], 'extras can be proposed');
       const row = await this.builds.insertExtra(trx, {

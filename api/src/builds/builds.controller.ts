@@ -1,20 +1,38 @@
 import { BadRequestException, Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { AcceptBookingResponse, AuthUser, BookingDetail, BookingStateResponse, ExtraView, IntakeItemView, TimeEntriesResponse } from '@loomwright/shared';
+import {
+  acceptBookingSchema,
+  changeStateSchema,
+  declineBookingSchema,
+  decideExtraSchema,
+  layoutNoteSchema,
+  proposeExtraSchema,
+  recordIntakeSchema,
+  timeEntrySchema,
+  waiveBalanceSchema,
+  type AcceptBookingInput,
+  type AcceptBookingResponse,
+  type AuthUser,
+  type BookingDetail,
+  type BookingStateResponse,
+  type ChangeStateInput,
+  type DecideExtraInput,
+  type DeclineBookingInput,
+  type ExtraView,
+  type IntakeItemView,
+  type LayoutNoteInput,
+  type ProposeExtraInput,
+  type RecordIntakeInput,
+  type TimeEntriesResponse,
+  type TimeEntryInput,
+  type WaiveBalanceInput,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
+import { ApiZodBody } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { BuildRecordsService } from './build-records.service';
 import { BuildsService } from './builds.service';
-import { AcceptBookingDto } from './dto/accept-booking.dto';
-import { ChangeStateDto } from './dto/change-state.dto';
-import { CreateTimeEntryDto } from './dto/create-time-entry.dto';
-import { DecideExtraDto } from './dto/decide-extra.dto';
-import { DeclineBookingDto } from './dto/decline-booking.dto';
-import { ProposeExtraDto } from './dto/propose-extra.dto';
-import { RecordIntakeDto } from './dto/record-intake.dto';
-import { LayoutNoteDto } from './dto/request-layout.dto';
-import { WaiveBalanceDto } from './dto/waive-balance.dto';
-
 const bookingId = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The booking id in the address must be a UUID.') });
 
 /** A build's life on the bench, from acceptance to delivery. */
@@ -31,34 +49,39 @@ export class BuildsController {
   @HttpCode(200)
   @Roles('builder', 'owner')
   @ApiOkResponse({ description: 'Scheduled: bench time taken, firm quote written, the player e-mailed.' })
-  accept(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: AcceptBookingDto): Promise<AcceptBookingResponse> {
+  @ApiZodBody(acceptBookingSchema)
+  accept(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(acceptBookingSchema)) dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
     return this.builds.accept(user, id, dto);
   }
 
   @Post('decline')
   @HttpCode(200)
   @Roles('builder', 'owner')
-  decline(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: DeclineBookingDto): Promise<BookingDetail> {
+  @ApiZodBody(declineBookingSchema)
+  decline(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(declineBookingSchema)) dto: DeclineBookingInput): Promise<BookingDetail> {
     return this.builds.decline(user, id, dto.reason);
   }
 
   @Post('state')
   @HttpCode(200)
   @Roles('builder', 'owner')
-  changeState(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: ChangeStateDto): Promise<BookingStateResponse> {
+  @ApiZodBody(changeStateSchema)
+  changeState(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(changeStateSchema)) dto: ChangeStateInput): Promise<BookingStateResponse> {
     return this.builds.changeState(user, id, dto.to, dto.note);
   }
 
   @Post('waive-balance')
   @HttpCode(200)
   @Roles('owner')
-  waiveBalance(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: WaiveBalanceDto): Promise<BookingStateResponse> {
+  @ApiZodBody(waiveBalanceSchema)
+  waiveBalance(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(waiveBalanceSchema)) dto: WaiveBalanceInput): Promise<BookingStateResponse> {
     return this.builds.waiveBalance(user, id, dto.reason);
   }
 
   @Post('time-entries')
   @Roles('builder', 'owner')
-  addTimeEntry(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: CreateTimeEntryDto): Promise<TimeEntriesResponse> {
+  @ApiZodBody(timeEntrySchema)
+  addTimeEntry(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(timeEntrySchema)) dto: TimeEntryInput): Promise<TimeEntriesResponse> {
     return this.records.addTimeEntry(user, id, dto);
   }
 
@@ -70,7 +93,8 @@ export class BuildsController {
 
   @Post('intake')
   @Roles('builder', 'owner')
-  recordIntake(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: RecordIntakeDto): Promise<IntakeItemView[]> {
+  @ApiZodBody(recordIntakeSchema)
+  recordIntake(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(recordIntakeSchema)) dto: RecordIntakeInput): Promise<IntakeItemView[]> {
     return this.records.recordIntake(user, id, dto);
   }
 
@@ -82,7 +106,8 @@ export class BuildsController {
 
   @Post('extras')
   @Roles('owner')
-  proposeExtra(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: ProposeExtraDto): Promise<ExtraView> {
+  @ApiZodBody(proposeExtraSchema)
+  proposeExtra(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(proposeExtraSchema)) dto: ProposeExtraInput): Promise<ExtraView> {
     return this.records.proposeExtra(user, id, dto);
   }
 
@@ -95,12 +120,13 @@ export class BuildsController {
   @Post('extras/:extraId/decision')
   @HttpCode(200)
   @Roles('customer')
+  @ApiZodBody(decideExtraSchema)
   decideExtra(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingId) id: string,
     @Param('extraId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The extra id in the address must be a UUID.') }))
     extraId: string,
-    @Body() dto: DecideExtraDto,
+    @Body(new ZodValidationPipe(decideExtraSchema)) dto: DecideExtraInput,
   ): Promise<ExtraView> {
     return this.records.decideExtra(user, id, extraId, dto.approve);
   }
@@ -108,14 +134,15 @@ export class BuildsController {
   @Post('layout/request')
   @HttpCode(200)
   @Roles('builder', 'owner')
-  requestLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: LayoutNoteDto): Promise<BookingStateResponse> {
+  @ApiZodBody(layoutNoteSchema)
+  requestLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(layoutNoteSchema)) dto: LayoutNoteInput): Promise<BookingStateResponse> {
     return this.records.requestLayoutApproval(user, id, dto.note);
   }
 
   @Post('layout/approve')
   @HttpCode(200)
   @Roles('customer')
-  approveLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body() dto: LayoutNoteDto): Promise<BookingStateResponse> {
+  approveLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(layoutNoteSchema)) dto: LayoutNoteInput): Promise<BookingStateResponse> {
     return this.records.approveLayout(user, id, dto.note);
   }
 }

@@ -3,6 +3,7 @@ import Decimal from 'decimal.js';
 import {
   benchTransitions,
   levelRank,
+  type AcceptBookingInput,
   type AcceptBookingResponse,
   type AuthUser,
   type BenchState,
@@ -20,7 +21,6 @@ import { formatDay } from '../mail/templates/format';
 import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
-import type { AcceptBookingDto } from './dto/accept-booking.dto';
 import { firmQuoteFigures } from './firm-quote';
 import { whatToShip } from './what-to-ship';
 
@@ -43,7 +43,7 @@ export class BuildsService {
     private readonly bookings: BookingsService,
   ) {}
 
-  async accept(user: AuthUser, bookingId: string, dto: AcceptBookingDto): Promise<AcceptBookingResponse> {
+  async accept(user: AuthUser, bookingId: string, dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
     try {
       return await this.db.transaction().execute((trx) => this.acceptIn(trx, user, bookingId, dto));
     } catch (error) {
@@ -56,7 +56,7 @@ export class BuildsService {
     }
   }
 
-  private async acceptIn(trx: Executor, user: AuthUser, bookingId: string, dto: AcceptBookingDto): Promise<AcceptBookingResponse> {
+  private async acceptIn(trx: Executor, user: AuthUser, bookingId: string, dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
     // Lock order is always booking, then builder, so concurrent acceptances cannot deadlock.
     const booking = await this.builds.lockBooking(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');

@@ -1,5 +1,6 @@
 import type { INestApplication } from '@nestjs/common';
 import { json, urlencoded, type NextFunction, type Request, type Response } from 'express';
+import { refuseHostileInput } from './json-limits';
 
 type WithRawBody = Request & { rawBody?: Buffer };
 const keepRawBody = (req: Request, _res: Response, buf: Buffer) => {
@@ -48,4 +49,5 @@ export function applyBodyParsing(app: INestApplication): void {
     }
     next(error);
   });
+  app.use(refuseHostileInput);
 }

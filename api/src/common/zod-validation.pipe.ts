@@ -1,18 +1,22 @@
-import { BadRequestException, Injectable, PipeTransform } from '@nestjs/common';
+import { ArgumentMetadata, BadRequestException, Injectable, PipeTransform } from '@nestjs/common';
 import { describeIssues } from '@loomwright/shared';
 import type { ZodType } from 'zod';
 
 /**
- * Validates a body with one of the shared zod schemas, so the API and the storefront's forms
- * reject the same input in the same words. Answers 400 with one message per field, each naming
- * its path (Nest's own error shape: `message` is a list of strings).
+ * The one way a request body or query is checked: by its zod schema from `@loomwright/shared`,
+ * the same schema the apps' forms use, so both refuse the same input in the same words. Answers
+ * 400 with one message per field, each naming its path (Nest's own error shape: `message` is a
+ * list of strings). The parsed value (trimmed, defaults filled in, unknown fields refused) is what
+ * the controller receives.
  */
 @Injectable()
 export class ZodValidationPipe<T> implements PipeTransform<unknown, T> {
   constructor(private readonly schema: ZodType<T>) {}
 
-  transform(value: unknown): T {
-    const result = this.schema.safeParse(value);
+  transform(value: unknown, metadata?: ArgumentMetadata): T {
+    // No body at all reads as an empty one, so a missing field is named rather than the body.
+    const input = value === undefined && metadata?.type !== 'param' ? {} : value;
+    const result = this.schema.safeParse(input);
     if (result.success) return result.data;
     throw new BadRequestException(describeIssues(result.error));
   }

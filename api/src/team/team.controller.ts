@@ -1,8 +1,9 @@
 import { BadRequestException, Body, Controller, Get, Param, ParseUUIDPipe, Patch } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { TeamMember } from '@loomwright/shared';
+import { updateTeamMemberSchema, type TeamMember, type UpdateTeamMemberInput } from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
-import { UpdateTeamMemberDto } from './dto/update-team-member.dto';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
+import { ApiZodBody } from '../common/zod-openapi';
 import { TeamService } from './team.service';
 
 @ApiTags('team')
@@ -20,11 +21,12 @@ export class TeamController {
 
   @Patch(':builderId')
   @Roles('owner')
+  @ApiZodBody(updateTeamMemberSchema)
   update(
     @Param('builderId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The builder id in the address must be a UUID.') }))
     builderId: string,
-    @Body() dto: UpdateTeamMemberDto,
+    @Body(new ZodValidationPipe(updateTeamMemberSchema)) body: UpdateTeamMemberInput,
   ): Promise<TeamMember> {
-    return this.team.update(builderId, dto);
+    return this.team.update(builderId, body);
   }
 }

@@ -18,7 +18,7 @@ const line = (r: EstimateResult, code: string) => {
   return found;
 };
 
-describe('the reference board against the practitioner’s labor ranges', () => {
+describe('the reference board against labor ranges (common practice, no published source)', () => {
   // Stated ranges: common practice, no published source. Each computed range must lie inside the
   // stated one widened by 5% at each end, with its midpoint within 10% of the stated midpoint.
   it.each(statedLaborRanges)('$mode board at $level rates: $low–$high', ({ mode, level, low, high }) => {

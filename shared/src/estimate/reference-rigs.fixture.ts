@@ -18,7 +18,7 @@ export function referenceBoard(mode: 'serial' | 'switcher', level: BuilderLevel)
   return { surfaceId: 'ridge-100', caseId: 'shell-hard', routing: { mode }, pedals, functions: [], level };
 }
 
-/** The practitioner's stated labor ranges in dollars for the reference board (common practice, no published source). */
+/** Labor ranges in dollars for the reference board (common practice, no published source). */
 export const statedLaborRanges: Array<{ mode: 'serial' | 'switcher'; level: BuilderLevel; low: number; high: number }> = [
   { mode: 'serial', level: 'master', low: 1400, high: 2100 },
   { mode: 'serial', level: 'journeyman', low: 1100, high: 1400 },

@@ -143,7 +143,8 @@ export function issuePath(path: ReadonlyArray<PropertyKey>): string {
 export function describeIssues(error: z.ZodError): string[] {
   return error.issues.map((issue) => {
     const path = issuePath(issue.path);
-    return path ? `${path}: ${issue.message}` : issue.message;
+    // A message that already opens with its field ("hours must be more than 0") is not prefixed again.
+    return path && !issue.message.startsWith(path) ? `${path}: ${issue.message}` : issue.message;
   });
 }
 

@@ -7,7 +7,7 @@ import type { PriceBook } from './types';
 const decimalText = (label: string, max: number, places = 4) =>
   z
     .string({ error: `${label} must be a decimal string such as "12.50"` })
-    .regex(new RegExp(`^\\d{1,9}(\\.\\d{1,${places}})?$`), { error: `${label} must be a decimal string such as "12.50" (not negative)` })
+    .regex(new RegExp(`^\\d{1,9}(\\.\\d{1,${places}})?$`), { error: `${label} must be a decimal string such as "12.50" (not negative)`, abort: true })
     .refine((v) => new Decimal(v).lte(max), { error: `${label} must be at most ${max}` });
 
 const words = (label: string, max: number, min = 1) =>

@@ -5,19 +5,12 @@ import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import type { BookingDetail, ExtraView } from '@loomwright/shared';
+import { proposeExtraSchema, type BookingDetail, type ExtraView, type ProposeExtraInput } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatMoney, formatStamp } from 'src/lib/format';
 import { useProposeExtra } from '../api/propose-extra';
-
-const extraSchema = z.object({
-  description: z.string().trim().min(2, 'Say what the extra is.').max(300),
-  amount: z.string().trim().regex(/^(?!0+(\.0+)?$)\d{1,8}(\.\d{1,2})?$/, 'Amount must be a positive amount like 45.00.'),
-  reason: z.string().trim().min(3, 'Say why the extra is needed.').max(1000),
-});
 
 const statusWords: Record<ExtraView['status'], string> = {
   proposed: 'Waiting for the player',
@@ -36,8 +29,8 @@ export function ExtrasPanel({
   isOwner: boolean;
 }) {
   const propose = useProposeExtra(booking.id);
-  const form = useForm<z.infer<typeof extraSchema>>({
-    resolver: zodResolver(extraSchema),
+  const form = useForm<ProposeExtraInput>({
+    resolver: zodResolver(proposeExtraSchema),
     defaultValues: { description: '', amount: '', reason: '' },
   });
   const canPropose = isOwner && ['scheduled', 'pedals_received', 'on_bench', 'testing'].includes(booking.state);

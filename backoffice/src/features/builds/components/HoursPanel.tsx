@@ -5,26 +5,18 @@ import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import type { BookingDetail, TimeEntriesResponse } from '@loomwright/shared';
+import { timeEntryFormSchema, type BookingDetail, type TimeEntriesResponse, type TimeEntryFormInput, type TimeEntryFormOutput } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay, formatHours, today } from 'src/lib/format';
 import { useAddTimeEntry } from '../api/add-time-entry';
 
-const entrySchema = z.object({
-  workedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick the day the hours were worked.'),
-  hours: z.coerce.number<string>().gt(0, 'Hours must be more than 0.').max(24, 'At most 24 hours for one day.')
-    .refine((h) => Math.round(h * 100) === h * 100, 'Hours take at most two decimals, e.g. 1.25.'),
-  note: z.string().max(1000).optional(),
-});
-
 /** Hours as they are spent, against the hours the firm quote planned. */
 export function HoursPanel({ booking, entries }: { booking: BookingDetail; entries: TimeEntriesResponse | undefined }) {
   const add = useAddTimeEntry(booking.id);
-  const form = useForm<z.input<typeof entrySchema>, unknown, z.output<typeof entrySchema>>({
-    resolver: zodResolver(entrySchema),
+  const form = useForm<TimeEntryFormInput, unknown, TimeEntryFormOutput>({
+    resolver: zodResolver(timeEntryFormSchema),
     defaultValues: { workedOn: today(), hours: '', note: '' },
   });
   const canRecord = ['pedals_received', 'on_bench', 'testing', 'ready'].includes(booking.state);

@@ -9,18 +9,13 @@ import FormLabel from '@mui/joy/FormLabel';
 import Modal from '@mui/joy/Modal';
 import ModalDialog from '@mui/joy/ModalDialog';
 import Textarea from '@mui/joy/Textarea';
-import type { BookingSummary } from '@loomwright/shared';
+import { declineBookingSchema, type BookingSummary, type DeclineBookingInput } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatMoney } from 'src/lib/format';
 import { useDeclineBooking } from '../api/decline-booking';
-
-const declineSchema = z.object({
-  reason: z.string().trim().min(5, 'Give the player a reason in a few words (at least 5 characters).').max(1000),
-});
 
 export function DeclineDialog({
   booking,
@@ -34,7 +29,7 @@ export function DeclineDialog({
   onDeclined?: (message: string) => void;
 }) {
   const decline = useDeclineBooking();
-  const form = useForm<z.infer<typeof declineSchema>>({ resolver: zodResolver(declineSchema), defaultValues: { reason: '' } });
+  const form = useForm<DeclineBookingInput>({ resolver: zodResolver(declineBookingSchema), defaultValues: { reason: '' } });
   useEffect(() => {
     if (!booking) {
       form.reset({ reason: '' });

@@ -13,11 +13,10 @@ import Select from '@mui/joy/Select';
 import Stack from '@mui/joy/Stack';
 import Switch from '@mui/joy/Switch';
 import Typography from '@mui/joy/Typography';
-import { builderLevels, type BuilderLevel, type TeamMember, type WeeklyHours } from '@loomwright/shared';
+import { builderLevels, teamMemberFormSchema, type TeamMember, type TeamMemberFormInput, type TeamMemberFormOutput, type WeeklyHours } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { z } from 'zod';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { useUpdateTeamMember } from '../api/update-team-member';
 
@@ -25,31 +24,17 @@ export const weekdays = [
   ['1', 'Mon'], ['2', 'Tue'], ['3', 'Wed'], ['4', 'Thu'], ['5', 'Fri'], ['6', 'Sat'], ['7', 'Sun'],
 ] as const;
 
-const hoursOfDay = z
-  .string()
-  .trim()
-  .regex(/^(\d{1,2})(\.\d{1,2})?$|^$/, 'Hours are a number such as 7 or 6.5.')
-  .refine((v) => v === '' || Number(v) <= 24, 'A day has at most 24 hours.');
-
-const memberSchema = z.object({
-  level: z.enum(builderLevels),
-  hourlyRate: z.string().trim().regex(/^\d{1,6}(\.\d{1,2})?$/, 'The hourly rate is an amount such as 95.00.').refine((v) => Number(v) > 0, 'The hourly rate must be more than 0.'),
-  active: z.boolean(),
-  hours: z.object(Object.fromEntries(weekdays.map(([d]) => [d, hoursOfDay])) as Record<(typeof weekdays)[number][0], typeof hoursOfDay>),
-});
-type MemberForm = z.infer<typeof memberSchema>;
-
-const toForm = (m: TeamMember): MemberForm => ({
+const toForm = (m: TeamMember): TeamMemberFormInput => ({
   level: m.level,
   hourlyRate: m.hourlyRate,
   active: m.active,
-  hours: Object.fromEntries(weekdays.map(([d]) => [d, m.weeklyHours[d] ? String(m.weeklyHours[d]) : ''])) as MemberForm['hours'],
+  hours: Object.fromEntries(weekdays.map(([d]) => [d, m.weeklyHours[d] ? String(m.weeklyHours[d]) : ''])) as TeamMemberFormInput['hours'],
 });
 
 /** The owner sets a builder's level, rate and bench hours; the bench and suggestions follow. */
 export function TeamMemberDialog({ member, onClose, onSaved }: { member: TeamMember | null; onClose: () => void; onSaved: (m: string) => void }) {
   const update = useUpdateTeamMember();
-  const form = useForm<MemberForm>({ resolver: zodResolver(memberSchema) });
+  const form = useForm<TeamMemberFormInput, unknown, TeamMemberFormOutput>({ resolver: zodResolver(teamMemberFormSchema) });
   useEffect(() => {
     if (member) form.reset(toForm(member));
     update.reset();
@@ -58,9 +43,9 @@ export function TeamMemberDialog({ member, onClose, onSaved }: { member: TeamMem
   const submit = form.handleSubmit((values) => {
     if (!member) return;
     const weeklyHours: WeeklyHours = {};
-    for (const [d] of weekdays) if (values.hours[d] && Number(values.hours[d]) > 0) weeklyHours[d] = Number(values.hours[d]);
+    for (const [d] of weekdays) if (values.hours[d] > 0) weeklyHours[d] = values.hours[d];
     update.mutate(
-      { id: member.id, body: { level: values.level as BuilderLevel, hourlyRate: values.hourlyRate, active: values.active, weeklyHours } },
+      { id: member.id, body: { level: values.level, hourlyRate: values.hourlyRate, active: values.active, weeklyHours } },
       {
         onSuccess: () => {
           onSaved(`${member.name}'s details are saved.`);

@@ -1,0 +1,53 @@
+import { z } from 'zod';
+import { authMessages } from './auth-schemas';
+import { builderLevels } from './domain';
+import { flag, hours, numberText, oneOf, positiveAmount, requestObject } from './request-fields';
+
+/** A builder's hourly labor rate: a decimal string above 0, at most 999999.99. */
+export const hourlyRateField = positiveAmount('hourlyRate', 6, '85.00', authMessages.hourlyRate);
+
+export const WEEKDAY_KEYS = ['1', '2', '3', '4', '5', '6', '7'] as const;
+type WeekdayKey = (typeof WEEKDAY_KEYS)[number];
+
+/** Bench hours of one ISO weekday: 0 (a day off) to 24, in quarter hours or finer. */
+const dayHours = (day: WeekdayKey) => {
+  const words = `weeklyHours.${day} must be a number of hours from 0 to 24`;
+  return hours(`weeklyHours.${day}`, { min: 0, max: 24, minWords: words });
+};
+
+/** A week of bench hours keyed by ISO 8601 weekday number, "1" = Monday … "7" = Sunday. */
+export const weeklyHoursField = z.strictObject(
+  Object.fromEntries(WEEKDAY_KEYS.map((day) => [day, dayHours(day).optional()])) as Record<WeekdayKey, z.ZodOptional<ReturnType<typeof dayHours>>>,
+  {
+    error: (issue) =>
+      issue.code === 'unrecognized_keys'
+        ? `weeklyHours has ${issue.keys.map((k) => `"${k}"`).join(', ')}; days are ISO weekdays 1 (Monday) to 7 (Sunday)`
+        : 'weeklyHours must be an object of ISO weekday → hours, like {"1": 7, "2": 7}',
+  },
+);
+
+/** PATCH /api/team/:builderId: any of level, rate, week and availability. */
+export const updateTeamMemberSchema = requestObject({
+  level: oneOf('level', builderLevels).optional(),
+  hourlyRate: hourlyRateField.optional(),
+  weeklyHours: weeklyHoursField.optional(),
+  active: flag('active').optional(),
+}).refine((body) => Object.values(body).some((value) => value !== undefined), {
+  error: 'Send at least one of level, hourlyRate, weeklyHours, active.',
+});
+export type UpdateTeamMemberInput = z.infer<typeof updateTeamMemberSchema>;
+
+/** The backoffice's form for a builder: the same rules, each day's hours typed as text (blank = a day off). */
+export const teamMemberFormSchema = z.object({
+  level: oneOf('level', builderLevels),
+  hourlyRate: hourlyRateField,
+  active: flag('active'),
+  hours: z.object(
+    Object.fromEntries(WEEKDAY_KEYS.map((day) => [day, numberText(`weeklyHours.${day}`, dayHours(day), { blankAs: 0 })])) as Record<
+      WeekdayKey,
+      ReturnType<typeof numberText<ReturnType<typeof dayHours>>>
+    >,
+  ),
+});
+export type TeamMemberFormInput = z.input<typeof teamMemberFormSchema>;
+export type TeamMemberFormOutput = z.output<typeof teamMemberFormSchema>;
