@@ -40,12 +40,16 @@ interface Fixtures {
   bookingOfA: string;
   /** Another of A's requested bookings, for the calls that would end the first one (cancel). */
   spareBookingOfA: string;
+  /** A person none of the callers is (the apprentice builder), for calls that end someone's sessions. */
+  bystander: string;
 }
 
 interface Entry {
   expect: [Status, Status, Status, Status, Status];
   path?: (fx: Fixtures) => string;
   body?: unknown;
+  /** Call with a new session of the caller's, for a route that ends the session it is called with (sign-out). */
+  freshSession?: boolean;
 }
 
 const open = (s: Status): Entry => ({ expect: [s, s, s, s, s] });
@@ -73,10 +77,12 @@ const matrix: Record<string, Entry> = {
   // accounts
   'POST /api/auth/sign-up': open(400),
   'POST /api/auth/sign-in': open(400),
-  'POST /api/auth/sign-out': open(200),
+  'POST /api/auth/sign-out': { ...open(200), freshSession: true },
   'GET /api/auth/me': signedIn(200),
   'POST /api/auth/password-reset': open(400),
   'POST /api/auth/password-reset/confirm': open(400),
+  'GET /api/users/:userId/sessions': { ...ownerOnly(200), path: (fx) => `/api/users/${fx.bystander}/sessions` },
+  'DELETE /api/users/:userId/sessions': { ...ownerOnly(200), path: (fx) => `/api/users/${fx.bystander}/sessions` },
   'POST /api/invitations': ownerOnly(400),
   'POST /api/invitations/accept': open(400),
   // price book and estimates
@@ -155,6 +161,7 @@ async function makeFixtures(t: TestApp, cookieOfA: string): Promise<Fixtures> {
     builderId: builder.id,
     bookingOfA: await request(),
     spareBookingOfA: await request(),
+    bystander: await idOf('junior@shop.example'),
   };
 }
 
@@ -225,7 +232,8 @@ describe('authorization matrix: every route, every kind of caller', () => {
       }
       for (const [index, who] of callers.entries()) {
         let req = t.http()[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](url);
-        if (cookies[who]) req = req.set('Cookie', cookies[who]!);
+        const cookie = entry.freshSession && who !== 'anonymous' ? await sessionCookieFor(t, who) : cookies[who];
+        if (cookie) req = req.set('Cookie', cookie);
         const sendsBody = ['POST', 'PUT', 'PATCH'].includes(method);
         const res = await (sendsBody ? req.send((entry.body ?? {}) as object) : req);
         const expected = entry.expect[index]!;

@@ -1,9 +1,8 @@
 import { createHash } from 'node:crypto';
-import { JwtService } from '@nestjs/jwt';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { clearTables, createTestApp, type TestApp } from './support/test-app';
-import { asRequestCookie, sessionCookieOf } from './support/sessions';
+import { asRequestCookie, sessionCookieFor, sessionCookieOf } from './support/sessions';
 
 const resetMails = (t: TestApp, to: string) =>
   t.db.selectFrom('mail_outbox').select(['template', 'to_address', 'data', 'user_id']).where('template', '=', 'password-reset').where('to_address', '=', to).orderBy('created_at', 'desc').execute();
@@ -66,16 +65,15 @@ describe('password reset by e-mail', () => {
   });
 
   it('ends sessions that were signed in before the reset', async () => {
-    const row = await t.db.selectFrom('users').selectAll().where('email', '=', 'player@mail.example').executeTakeFirstOrThrow();
-    const iat = Math.floor(Date.now() / 1000) - 60; // signed in a minute ago, e.g. on a lost phone
-    const old = t.app.get(JwtService).sign({ sub: row.id, email: row.email, name: row.name, role: row.role, iat }, { expiresIn: 1800 });
-    await t.http().get('/api/auth/me').set('Cookie', `lw_session=${old}`).expect(200);
+    // Signed in earlier, e.g. on a lost phone.
+    const old = await sessionCookieFor(t, 'customerA');
+    await t.http().get('/api/auth/me').set('Cookie', old).expect(200);
 
     await t.http().post('/api/auth/password-reset').send({ email: 'player@mail.example' }).expect(202);
     const token = tokenFrom((await resetMails(t, 'player@mail.example'))[0]!.data.resetUrl);
     const done = await t.http().post('/api/auth/password-reset/confirm').send({ token, password: 'locked-out-the-thief' }).expect(200);
 
-    const refused = await t.http().get('/api/auth/me').set('Cookie', `lw_session=${old}`);
+    const refused = await t.http().get('/api/auth/me').set('Cookie', old);
     expect(refused.status).toBe(401);
     expect(refused.body.message).toMatch(/password was changed/);
     await t.http().get('/api/auth/me').set('Cookie', asRequestCookie(sessionCookieOf(done)!)).expect(200);

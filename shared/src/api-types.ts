@@ -20,3 +20,27 @@ export interface ApiErrorBody {
   message: string | string[];
   error?: string;
 }
+
+/** One device a person is signed in on (the owner's view of their sessions). */
+export interface SessionView {
+  id: string;
+  startedAt: string;
+  lastRenewedAt: string;
+  expiresAt: string;
+  device: string | null;
+}
+
+export interface PersonSessions {
+  userId: string;
+  sessions: SessionView[];
+}
+
+/** The answer to signing a person out of every device. */
+export interface SessionsEnded {
+  userId: string;
+  ended: number;
+}
+
+/** The words every app shows while the API answers 503: the shop's database is not answering. */
+export const shopUnavailableMessage =
+  'The shop is briefly unavailable: its database is not answering. Nothing is lost and you are still signed in; please try again in a minute.';

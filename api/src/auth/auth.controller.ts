@@ -1,8 +1,8 @@
-import { Body, Controller, Get, HttpCode, Post, Res, UseGuards } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiAcceptedResponse, ApiOkResponse, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
 import { authMessages, type AuthUser } from '@loomwright/shared';
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 import { AuthService } from './auth.service';
 import { CurrentUser } from './current-user.decorator';
 import { ConfirmPasswordResetDto } from './dto/confirm-password-reset.dto';
@@ -11,6 +11,7 @@ import { SignInDto } from './dto/sign-in.dto';
 import { SignUpDto } from './dto/sign-up.dto';
 import { Public } from './public.decorator';
 import { SkipSessionRenewal } from './session-renewal.interceptor';
+import type { SessionUser } from './sessions.service';
 
 @ApiTags('auth')
 @ApiTooManyRequestsResponse({ description: authMessages.throttled })
@@ -23,9 +24,9 @@ export class AuthController {
   @SkipSessionRenewal()
   @Post('sign-up')
   @ApiOkResponse({ description: 'The new player account; the session cookie is set.' })
-  async signUp(@Body() body: SignUpDto, @Res({ passthrough: true }) res: Response) {
+  async signUp(@Body() body: SignUpDto, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
     const user = await this.auth.signUp(body);
-    this.auth.startSession(res, user);
+    await this.auth.startSession(res, user, req);
     return { user };
   }
 
@@ -34,9 +35,9 @@ export class AuthController {
   @SkipSessionRenewal()
   @Post('sign-in')
   @HttpCode(200)
-  async signIn(@Body() body: SignInDto, @Res({ passthrough: true }) res: Response) {
+  async signIn(@Body() body: SignInDto, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
     const user = await this.auth.signIn(body.email, body.password);
-    this.auth.startSession(res, user);
+    await this.auth.startSession(res, user, req);
     return { user };
   }
 
@@ -44,8 +45,9 @@ export class AuthController {
   @SkipSessionRenewal()
   @Post('sign-out')
   @HttpCode(200)
-  signOut(@Res({ passthrough: true }) res: Response) {
-    this.auth.endSession(res);
+  @ApiOkResponse({ description: 'The cookie is cleared and the session ended on the server: a copy of its token no longer works.' })
+  async signOut(@CurrentUser() user: SessionUser | undefined, @Res({ passthrough: true }) res: Response) {
+    await this.auth.endSession(res, user);
     return { signedOut: true };
   }
 
@@ -70,9 +72,9 @@ export class AuthController {
   @Post('password-reset/confirm')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is changed and the session cookie is set.' })
-  async confirmPasswordReset(@Body() body: ConfirmPasswordResetDto, @Res({ passthrough: true }) res: Response) {
+  async confirmPasswordReset(@Body() body: ConfirmPasswordResetDto, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
     const user = await this.auth.confirmPasswordReset(body.token, body.password);
-    this.auth.startSession(res, user);
+    await this.auth.startSession(res, user, req);
     return { user };
   }
 }

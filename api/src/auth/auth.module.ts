@@ -16,6 +16,9 @@ import { JwtAuthGuard } from './jwt-auth.guard';
 import { JwtStrategy } from './jwt.strategy';
 import { RolesGuard } from './roles.guard';
 import { SessionRenewalInterceptor } from './session-renewal.interceptor';
+import { SessionsController } from './sessions.controller';
+import { SessionsRepository } from './sessions.repository';
+import { SessionsService } from './sessions.service';
 
 @Module({
   imports: [
@@ -29,17 +32,19 @@ import { SessionRenewalInterceptor } from './session-renewal.interceptor';
       useFactory: (config: ConfigService<AppConfig, true>) => ({ secret: config.get('auth', { infer: true }).jwtSecret }),
     }),
   ],
-  controllers: [AuthController],
+  controllers: [AuthController, SessionsController],
   providers: [
     AuthService,
     AuthTokensService,
     AuthTokensRepository,
+    SessionsService,
+    SessionsRepository,
     JwtStrategy,
     // Order matters: first who you are, then what your role may do.
     { provide: APP_GUARD, useClass: JwtAuthGuard },
     { provide: APP_GUARD, useClass: RolesGuard },
     { provide: APP_INTERCEPTOR, useClass: SessionRenewalInterceptor },
   ],
-  exports: [AuthService, AuthTokensService],
+  exports: [AuthService, AuthTokensService, SessionsService],
 })
 export class AuthModule {}

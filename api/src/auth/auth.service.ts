@@ -1,16 +1,15 @@
 import { BadRequestException, ConflictException, Injectable, UnauthorizedException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { JwtService } from '@nestjs/jwt';
 import { authMessages, type AuthUser } from '@loomwright/shared';
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 import type { AppConfig } from '../config/configuration';
 import { Database } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { toAuthUser, UsersService } from '../users/users.service';
 import { AuthTokensService } from './auth-tokens.service';
-import type { SessionPayload } from './jwt.strategy';
 import { decoyPasswordHash, hashPassword, verifyPassword } from './password';
 import { SESSION_COOKIE, sessionCookieOptions } from './session-cookie';
+import { SessionsService, type SessionUser } from './sessions.service';
 
 const UNIQUE_VIOLATION = '23505';
 
@@ -21,12 +20,12 @@ export class AuthService {
     private readonly users: UsersService,
     private readonly tokens: AuthTokensService,
     private readonly mail: MailService,
-    private readonly jwt: JwtService,
+    private readonly sessions: SessionsService,
     private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
   get sessionMs(): number {
-    return this.config.get('auth', { infer: true }).sessionMinutes * 60_000;
+    return this.sessions.sessionMs;
   }
 
   private get publicUrl(): string {
@@ -100,6 +99,8 @@ export class AuthService {
       const userId = await this.tokens.consume(trx, token, 'password_reset');
       if (!userId) throw new BadRequestException(authMessages.resetTokenInvalid);
       await this.tokens.retireUnused(trx, userId, 'password_reset');
+      // Whoever held a session (the usual reason to reset) is signed out everywhere.
+      await this.sessions.endAllFor(userId, 'password_changed', null, trx);
       const row = await this.users.setPassword(userId, passwordHash, trx);
       if (!row) throw new BadRequestException(authMessages.resetTokenInvalid);
       await this.users.recordSignIn(userId, trx);
@@ -107,21 +108,32 @@ export class AuthService {
     });
   }
 
-  issueToken(user: AuthUser): string {
-    const payload: SessionPayload = { sub: user.id, email: user.email, name: user.name, role: user.role };
-    return this.jwt.sign(payload, { expiresIn: Math.floor(this.sessionMs / 1000) });
-  }
-
-  /** Sets (or replaces) the session cookie for this user. */
-  startSession(res: Response, user: AuthUser): void {
+  private setCookie(res: Response, token: string): void {
     const nodeEnv = this.config.get('app', { infer: true }).nodeEnv;
-    res.cookie(SESSION_COOKIE, this.issueToken(user), sessionCookieOptions(nodeEnv, this.sessionMs));
+    res.cookie(SESSION_COOKIE, token, sessionCookieOptions(nodeEnv, this.sessionMs));
   }
 
-  endSession(res: Response): void {
+  /** Opens a new server-side session for this person and sets (or replaces) the session cookie. */
+  async startSession(res: Response, user: AuthUser, req?: Request): Promise<void> {
+    this.setCookie(res, await this.sessions.open(user, req?.get('user-agent') ?? null));
+  }
+
+  /** A fresh token for the same session (sliding renewal); nothing when the session was ended meanwhile. */
+  async renewSession(res: Response, user: SessionUser): Promise<void> {
+    const token = await this.sessions.renew(user);
+    if (token) this.setCookie(res, token);
+  }
+
+  /**
+   * Clears the cookie, then ends the session on the server, so the token stops working even where
+   * a copy of it survives. The cookie goes first: should the database be unreachable, this device
+   * is still signed out and the answer (503) says the rest did not happen.
+   */
+  async endSession(res: Response, user: SessionUser | undefined): Promise<void> {
     const nodeEnv = this.config.get('app', { infer: true }).nodeEnv;
     const { maxAge: _maxAge, ...options } = sessionCookieOptions(nodeEnv, 0);
     res.clearCookie(SESSION_COOKIE, options);
+    if (user?.sessionId) await this.sessions.end(user.sessionId, user.id);
   }
 
   async findUser(id: string): Promise<AuthUser | undefined> {

@@ -1,11 +1,14 @@
-import { ExecutionContext, Injectable, UnauthorizedException } from '@nestjs/common';
+import { ExecutionContext, HttpException, Injectable, UnauthorizedException } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
+import { databaseUnavailable, isDatabaseUnavailable } from '../common/database-unavailable';
 import { IS_PUBLIC_KEY } from './public.decorator';
 
 /**
  * Global: every route needs a valid session unless marked @Public(). On a public route a valid
  * session is still read (so "who is asking" is known), but its absence is not an error.
+ * A database that cannot be reached while the session is checked is the shop's trouble, not the
+ * caller's: 503, never "please sign in" (which would make the apps sign the person out).
  */
 @Injectable()
 export class JwtAuthGuard extends AuthGuard('jwt') {
@@ -21,8 +24,9 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
     if (this.isPublic(context)) {
       try {
         await super.canActivate(context);
-      } catch {
-        // an anonymous visitor on an open route
+      } catch (error) {
+        // An anonymous visitor (or a stale cookie) on an open route is fine; an outage is not.
+        if (error instanceof HttpException && error.getStatus() >= 500) throw error;
       }
       return true;
     }
@@ -30,7 +34,8 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
   }
 
   override handleRequest<TUser>(error: unknown, user: TUser | false): TUser {
-    if (error instanceof UnauthorizedException) throw error; // a reason worth telling (password changed)
+    if (isDatabaseUnavailable(error)) throw databaseUnavailable();
+    if (error instanceof HttpException) throw error; // a reason worth telling (signed out, password changed)
     if (error || !user) throw new UnauthorizedException('Please sign in to do this.');
     return user;
   }

@@ -1,9 +1,9 @@
 import { CallHandler, ExecutionContext, Injectable, NestInterceptor, SetMetadata } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
-import type { AuthUser } from '@loomwright/shared';
 import type { Response } from 'express';
 import { from, Observable, switchMap } from 'rxjs';
 import { AuthService } from './auth.service';
+import type { SessionUser } from './sessions.service';
 
 export const SKIP_SESSION_RENEWAL = 'skipSessionRenewal';
 /** For routes that end or replace the session themselves (sign-out, sign-in). */
@@ -28,12 +28,13 @@ export class SessionRenewalInterceptor implements NestInterceptor {
   private async renewIfDue(context: ExecutionContext): Promise<void> {
     if (context.getType() !== 'http') return;
     if (this.reflector.getAllAndOverride<boolean>(SKIP_SESSION_RENEWAL, [context.getHandler(), context.getClass()])) return;
-    const req = context.switchToHttp().getRequest<{ user?: AuthUser & { issuedAt?: number } }>();
+    const req = context.switchToHttp().getRequest<{ user?: SessionUser }>();
     const issuedAt = req.user?.issuedAt;
     if (!req.user || issuedAt === undefined) return;
     const ageMs = Date.now() - issuedAt * 1000;
     if (ageMs <= this.auth.sessionMs / 2) return;
-    // req.user was read from the database by the JWT strategy, so the new token carries today's name and role.
-    this.auth.startSession(context.switchToHttp().getResponse<Response>(), req.user);
+    // req.user was read from the database by the JWT strategy, so the new token carries today's name
+    // and role; it keeps the session's id, so signing out later still ends it.
+    await this.auth.renewSession(context.switchToHttp().getResponse<Response>(), req.user);
   }
 }

@@ -59,6 +59,28 @@ export interface AuthTokensTable {
   created_at: Timestamp;
 }
 
+export type SessionEndReason = 'signed_out' | 'signed_out_everywhere' | 'password_changed';
+
+/** One signed-in device; its id travels in the session token as `sid`. */
+export interface SessionsTable {
+  id: Generated<string>;
+  user_id: string;
+  created_at: Timestamp;
+  renewed_at: Timestamp;
+  expires_at: Timestamp;
+  ended_at: NullableTimestamp;
+  ended_reason: SessionEndReason | null;
+  ended_by: string | null;
+  user_agent: string | null;
+}
+
+/** rate-limiter-flexible's PostgreSQL store (expire: epoch milliseconds, as a bigint string). */
+export interface RateLimitsTable {
+  key: string;
+  points: number;
+  expire: string | null;
+}
+
 export interface BuildersTable {
   id: Generated<string>;
   user_id: string;
@@ -250,6 +272,8 @@ export interface DB {
   shop_settings: ShopSettingsTable;
   users: UsersTable;
   auth_tokens: AuthTokensTable;
+  sessions: SessionsTable;
+  rate_limits: RateLimitsTable;
   builders: BuildersTable;
   shop_closures: ShopClosuresTable;
   price_book_versions: PriceBookVersionsTable;

@@ -1,8 +1,8 @@
-import { Body, Controller, HttpCode, Post, Res, UseGuards } from '@nestjs/common';
+import { Body, Controller, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
 import type { AuthUser } from '@loomwright/shared';
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 import { AuthService } from '../auth/auth.service';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
@@ -33,9 +33,9 @@ export class InvitationsController {
   @Post('accept')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is set and the session cookie is set.' })
-  async accept(@Body() body: AcceptInvitationDto, @Res({ passthrough: true }) res: Response) {
+  async accept(@Body() body: AcceptInvitationDto, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
     const user = await this.invitations.accept(body.token, body.password);
-    this.auth.startSession(res, user);
+    await this.auth.startSession(res, user, req);
     return { user };
   }
 }

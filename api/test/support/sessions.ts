@@ -11,14 +11,15 @@ export const demoEmails = {
 export type DemoPerson = keyof typeof demoEmails;
 
 /**
- * A session cookie for a seeded person, minted by the app's own AuthService (the same signer
- * sign-in uses), so tests that act as many people do not spend the sign-in throttle.
+ * A session cookie for a seeded person, opened by the app's own SessionsService (the same code
+ * sign-in uses: a row in `sessions` and its signed token), so tests that act as many people do
+ * not spend the sign-in throttle.
  */
 export async function sessionCookieFor(t: TestApp, person: DemoPerson): Promise<string> {
-  const { AuthService } = await import('../../src/auth/auth.service');
+  const { SessionsService } = await import('../../src/auth/sessions.service');
   const row = await t.db.selectFrom('users').select(['id', 'email', 'name', 'role']).where('email', '=', demoEmails[person]).executeTakeFirstOrThrow();
   const user: AuthUser = { id: row.id, email: row.email, name: row.name, role: row.role };
-  return `lw_session=${t.app.get(AuthService).issueToken(user)}`;
+  return `lw_session=${await t.app.get(SessionsService).open(user)}`;
 }
 
 export const setCookies = (res: { headers: Record<string, unknown> }): string[] =>

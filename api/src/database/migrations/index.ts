@@ -4,6 +4,7 @@ import * as domain from './20261201_0002_domain';
 import * as mailDelivery from './20261201_0400_mail_delivery';
 import * as passwordChangedAt from './20261201_0200_password_changed_at';
 import * as photoVariants from './20261202_0217_photo_variants';
+import * as sessionsAndRateLimits from './20261202_0236_sessions_and_rate_limits';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -15,4 +16,5 @@ export const migrations: Record<string, Migration> = {
   '20261201_0200_password_changed_at': passwordChangedAt,
   '20261201_0400_mail_delivery': mailDelivery,
   '20261202_0217_photo_variants': photoVariants,
+  '20261202_0236_sessions_and_rate_limits': sessionsAndRateLimits,
 };

@@ -1,14 +1,19 @@
+import Box from '@mui/joy/Box';
 import type { CustomerSummary } from '@loomwright/shared';
+import { useState } from 'react';
 import { DataTable, queryRows, type Column } from 'src/components/DataTable';
 import { ErrorNote } from 'src/components/ErrorNote';
+import { Notice } from 'src/components/Notice';
 import { FilterBar } from 'src/components/FilterBar';
 import { PageHeader } from 'src/components/PageHeader';
 import { PageLoading } from 'src/components/PageLoading';
 import { SearchField } from 'src/components/SearchField';
 import { SidePanel } from 'src/components/SidePanel';
+import { useMe } from 'src/features/auth/api/get-me';
 import { useCustomer } from 'src/features/customers/api/get-customer';
 import { useCustomers, type CustomerSort } from 'src/features/customers/api/list-customers';
 import { CustomerDetails } from 'src/features/customers/components/CustomerDetails';
+import { SignOutEverywhere } from 'src/features/sessions/components/SignOutEverywhere';
 import { formatDay } from 'src/lib/format';
 import { useListParams } from 'src/lib/use-list-params';
 
@@ -33,6 +38,8 @@ export function Component() {
   });
   const openId = params.filters.open || null;
   const detail = useCustomer(openId);
+  const isOwner = useMe().data?.role === 'owner';
+  const [notice, setNotice] = useState<string | null>(null);
   return (
     <>
       <PageHeader title="Customers" hint="Every player with an account, with their builds, payments and the messages the shop sent them." />
@@ -53,7 +60,13 @@ export function Component() {
         {detail.isPending && <PageLoading />}
         <ErrorNote error={detail.error} />
         {detail.data && <CustomerDetails customer={detail.data} />}
+        {detail.data && isOwner && (
+          <Box sx={{ mt: 2 }}>
+            <SignOutEverywhere userId={detail.data.id} name={detail.data.name} onDone={setNotice} />
+          </Box>
+        )}
       </SidePanel>
+      <Notice message={notice} onClose={() => setNotice(null)} />
     </>
   );
 }

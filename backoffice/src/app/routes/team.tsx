@@ -1,5 +1,6 @@
 import Button from '@mui/joy/Button';
 import Sheet from '@mui/joy/Sheet';
+import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import type { TeamMember } from '@loomwright/shared';
@@ -9,6 +10,7 @@ import { Notice } from 'src/components/Notice';
 import { PageHeader } from 'src/components/PageHeader';
 import { PageLoading } from 'src/components/PageLoading';
 import { useMe } from 'src/features/auth/api/get-me';
+import { SignOutEverywhere } from 'src/features/sessions/components/SignOutEverywhere';
 import { useTeam } from 'src/features/team/api/get-team';
 import { TeamMemberDialog, weekdays } from 'src/features/team/components/TeamMemberDialog';
 import { formatHours, formatMoney } from 'src/lib/format';
@@ -46,7 +48,7 @@ export function Component() {
                 ))}
                 <th style={{ textAlign: 'right' }}>Per week</th>
                 <th>Status</th>
-                {isOwner && <th style={{ width: 90 }} />}
+                {isOwner && <th style={{ width: 250 }} />}
               </tr>
             </thead>
             <tbody>
@@ -69,9 +71,12 @@ export function Component() {
                   <td>{m.active ? 'Takes builds' : 'Not taking builds'}</td>
                   {isOwner && (
                     <td>
-                      <Button size="sm" variant="outlined" onClick={() => setEditing(m)} aria-label={`Edit ${m.name}`}>
-                        Edit
-                      </Button>
+                      <Stack direction="row" gap={1}>
+                        <Button size="sm" variant="outlined" onClick={() => setEditing(m)} aria-label={`Edit ${m.name}`}>
+                          Edit
+                        </Button>
+                        <SignOutEverywhere userId={m.userId} name={m.name} onDone={setNotice} />
+                      </Stack>
                     </td>
                   )}
                 </tr>

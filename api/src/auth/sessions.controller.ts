@@ -1,0 +1,29 @@
+import { BadRequestException, Controller, Delete, Get, Param, ParseUUIDPipe } from '@nestjs/common';
+import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { AuthUser, PersonSessions, SessionsEnded } from '@loomwright/shared';
+import { CurrentUser } from './current-user.decorator';
+import { Roles } from './roles.decorator';
+import { SessionsService } from './sessions.service';
+
+const userIdPipe = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The account id in the address must be a UUID.') });
+
+/** The owner's view of where a person is signed in, and the way to sign them out of every device. */
+@ApiTags('auth')
+@ApiCookieAuth('lw_session')
+@Roles('owner')
+@Controller('users/:userId/sessions')
+export class SessionsController {
+  constructor(private readonly sessions: SessionsService) {}
+
+  @Get()
+  @ApiOkResponse({ description: 'The devices the person is signed in on now (sessions not ended and not expired).' })
+  list(@Param('userId', userIdPipe) userId: string): Promise<PersonSessions> {
+    return this.sessions.listFor(userId);
+  }
+
+  @Delete()
+  @ApiOkResponse({ description: 'Every session of the person is ended: each of their devices must sign in again.' })
+  signOutEverywhere(@Param('userId', userIdPipe) userId: string, @CurrentUser() owner: AuthUser): Promise<SessionsEnded> {
+    return this.sessions.signOutEverywhere(userId, owner);
+  }
+}
