@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { builderLevels } from './domain';
+import { positiveAmount, requestObject } from './request-fields';
 
 /**
  * Account forms, shared by the API's DTOs and both apps' forms, so a bad value is refused with the
@@ -48,33 +49,35 @@ const name = z
 // Reset and invitation tokens are 32 random bytes, base64url: 43 characters.
 const token = z.string({ message: authMessages.token }).regex(/^[A-Za-z0-9_-]{43}$/, { message: authMessages.token });
 
-export const signInSchema = z.object({
+export const signInSchema = requestObject({
   email,
-  password: z.string({ message: authMessages.passwordEmpty }).min(1, { message: authMessages.passwordEmpty }).max(PASSWORD_MAX_LENGTH),
+  password: z
+    .string({ message: authMessages.passwordEmpty })
+    .min(1, { message: authMessages.passwordEmpty })
+    .max(PASSWORD_MAX_LENGTH, { message: authMessages.passwordLong }),
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 
-export const signUpSchema = z.object({ name, email, password: newPassword });
+export const signUpSchema = requestObject({ name, email, password: newPassword });
 export type SignUpInput = z.infer<typeof signUpSchema>;
 
-export const passwordResetRequestSchema = z.object({ email });
+export const passwordResetRequestSchema = requestObject({ email });
 export type PasswordResetRequestInput = z.infer<typeof passwordResetRequestSchema>;
 
-export const passwordResetConfirmSchema = z.object({ token, password: newPassword });
+export const passwordResetConfirmSchema = requestObject({ token, password: newPassword });
 export type PasswordResetConfirmInput = z.infer<typeof passwordResetConfirmSchema>;
 
-export const acceptInvitationSchema = z.object({ token, password: newPassword });
+export const acceptInvitationSchema = requestObject({ token, password: newPassword });
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
 
-export const inviteStaffSchema = z.object({
+/** A builder's hourly labor rate: a decimal string above 0 with at most two decimals (the invitation and the team page). */
+export const hourlyRateField = positiveAmount('hourlyRate', 6, '85.00', authMessages.hourlyRate);
+
+export const inviteStaffSchema = requestObject({
   email,
   name,
   level: z.enum(builderLevels, { message: authMessages.level }),
-  hourlyRate: z
-    .string({ message: authMessages.hourlyRate })
-    .trim()
-    .regex(/^\d{1,6}(\.\d{1,2})?$/, { message: authMessages.hourlyRate })
-    .refine((value) => Number(value) > 0, { message: authMessages.hourlyRate }),
+  hourlyRate: hourlyRateField,
 });
 export type InviteStaffInput = z.infer<typeof inviteStaffSchema>;
 

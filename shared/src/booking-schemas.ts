@@ -1,15 +1,18 @@
 import { z } from 'zod';
+import { bookingStates } from './domain';
+import { rigConfigurationSchema } from './estimate/schema';
+import { oneOf, pagingQuery, requestObject, sortOrder, text } from './request-fields';
 
 /** POST /api/bookings/:id/shipment: the parcel carrying the player's pedals to the shop. */
-export const shipmentSchema = z.object({
-  carrier: z.string().trim().min(1, { error: 'Say who carries the parcel (carrier)' }).max(100, { error: 'Carrier: at most 100 characters' }),
-  tracking: z.string().trim().min(1, { error: 'Give the tracking number (tracking)' }).max(100, { error: 'Tracking: at most 100 characters' }),
+export const shipmentSchema = requestObject({
+  carrier: text('carrier', { max: 100, min: 1, tooShort: 'Say who carries the parcel (carrier)' }),
+  tracking: text('tracking', { max: 100, min: 1, tooShort: 'Give the tracking number (tracking)' }),
 });
 export type ShipmentInput = z.infer<typeof shipmentSchema>;
 
 /** The notes a player adds to a build request. */
 export const requestNotesSchema = z.object({
-  notes: z.string().max(4000, { error: 'Notes: at most 4000 characters' }),
+  notes: text('notes', { max: 4000 }),
 });
 export type RequestNotesInput = z.infer<typeof requestNotesSchema>;
 
@@ -17,3 +20,45 @@ export type RequestNotesInput = z.infer<typeof requestNotesSchema>;
 export const PHOTO_MAX_BYTES = 8 * 1024 * 1024;
 export const PHOTO_MAX_PER_BOOKING = 8;
 export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;
+
+/** POST /api/bookings: the configuration as POST /api/estimates takes it (re-priced on the server) and the player's notes. */
+export const createBookingSchema = requestObject({
+  configuration: rigConfigurationSchema,
+  notes: requestNotesSchema.shape.notes.optional(),
+});
+export type CreateBookingInput = z.infer<typeof createBookingSchema>;
+
+export const bookingSortColumns = ['created_at', 'updated_at', 'reference', 'state', 'bench_date'] as const;
+export const depositStatuses = ['unpaid', 'pending', 'paid', 'refunded'] as const;
+
+/** GET /api/bookings: a page of bookings, filtered and sorted. */
+export const listBookingsQuerySchema = requestObject({
+  ...pagingQuery,
+  sort: oneOf('sort', bookingSortColumns).default('created_at'),
+  order: sortOrder('desc'),
+  state: oneOf('state', bookingStates).optional(),
+  deposit: oneOf('deposit', depositStatuses).optional(),
+  /** Part of the reference, the customer's name or e-mail. */
+  q: text('q', { max: 200 }).optional(),
+});
+export type ListBookingsQuery = z.infer<typeof listBookingsQuerySchema>;
+
+/** POST /api/bookings/:id/cancel: the player's reason, shown to the shop. */
+export const cancelBookingSchema = requestObject({ reason: text('reason', { max: 1000 }).optional() });
+export type CancelBookingInput = z.infer<typeof cancelBookingSchema>;
+
+/** POST /api/bookings/:id/refund: why the deposit goes back (on the timeline and in the e-mail). */
+export const refundDepositSchema = requestObject({
+  reason: text('reason', { max: 1000, min: 1, tooShort: 'reason must say why the deposit is refunded' }),
+});
+export type RefundDepositInput = z.infer<typeof refundDepositSchema>;
+
+export const photoKinds = ['intake', 'build'] as const;
+
+/** The text fields that may travel beside the multipart `file` of POST /api/bookings/:id/photos. */
+export const photoFieldsSchema = requestObject({
+  caption: text('caption', { max: 200 }).optional(),
+  /** Staff only: an intake or a build photo. */
+  kind: oneOf('kind', photoKinds).optional(),
+});
+export type PhotoFieldsInput = z.infer<typeof photoFieldsSchema>;

@@ -1,10 +1,8 @@
 import { z } from 'zod';
-import { authMessages } from './auth-schemas';
+import { hourlyRateField } from './auth-schemas';
 import { builderLevels } from './domain';
-import { flag, hours, numberText, oneOf, positiveAmount, requestObject } from './request-fields';
+import { flag, hours, numberText, oneOf, requestObject } from './request-fields';
 
-/** A builder's hourly labor rate: a decimal string above 0, at most 999999.99. */
-export const hourlyRateField = positiveAmount('hourlyRate', 6, '85.00', authMessages.hourlyRate);
 
 export const WEEKDAY_KEYS = ['1', '2', '3', '4', '5', '6', '7'] as const;
 type WeekdayKey = (typeof WEEKDAY_KEYS)[number];

@@ -1,14 +1,23 @@
 import { Body, Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiAcceptedResponse, ApiOkResponse, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
-import { authMessages, type AuthUser } from '@loomwright/shared';
+import {
+  authMessages,
+  passwordResetConfirmSchema,
+  passwordResetRequestSchema,
+  signInSchema,
+  signUpSchema,
+  type AuthUser,
+  type PasswordResetConfirmInput,
+  type PasswordResetRequestInput,
+  type SignInInput,
+  type SignUpInput,
+} from '@loomwright/shared';
 import type { Request, Response } from 'express';
+import { ApiZodBody } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { AuthService } from './auth.service';
 import { CurrentUser } from './current-user.decorator';
-import { ConfirmPasswordResetDto } from './dto/confirm-password-reset.dto';
-import { RequestPasswordResetDto } from './dto/request-password-reset.dto';
-import { SignInDto } from './dto/sign-in.dto';
-import { SignUpDto } from './dto/sign-up.dto';
 import { Public } from './public.decorator';
 import { SkipSessionRenewal } from './session-renewal.interceptor';
 import type { SessionUser } from './sessions.service';
@@ -24,7 +33,8 @@ export class AuthController {
   @SkipSessionRenewal()
   @Post('sign-up')
   @ApiOkResponse({ description: 'The new player account; the session cookie is set.' })
-  async signUp(@Body() body: SignUpDto, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
+  @ApiZodBody(signUpSchema)
+  async signUp(@Body(new ZodValidationPipe(signUpSchema)) body: SignUpInput, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
     const user = await this.auth.signUp(body);
     await this.auth.startSession(res, user, req);
     return { user };
@@ -35,7 +45,8 @@ export class AuthController {
   @SkipSessionRenewal()
   @Post('sign-in')
   @HttpCode(200)
-  async signIn(@Body() body: SignInDto, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
+  @ApiZodBody(signInSchema)
+  async signIn(@Body(new ZodValidationPipe(signInSchema)) body: SignInInput, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
     const user = await this.auth.signIn(body.email, body.password);
     await this.auth.startSession(res, user, req);
     return { user };
@@ -61,7 +72,8 @@ export class AuthController {
   @Post('password-reset')
   @HttpCode(202)
   @ApiAcceptedResponse({ description: 'The same answer whether or not the e-mail has an account.' })
-  async requestPasswordReset(@Body() body: RequestPasswordResetDto) {
+  @ApiZodBody(passwordResetRequestSchema)
+  async requestPasswordReset(@Body(new ZodValidationPipe(passwordResetRequestSchema)) body: PasswordResetRequestInput) {
     await this.auth.requestPasswordReset(body.email);
     return { message: authMessages.resetRequested };
   }
@@ -72,7 +84,8 @@ export class AuthController {
   @Post('password-reset/confirm')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is changed and the session cookie is set.' })
-  async confirmPasswordReset(@Body() body: ConfirmPasswordResetDto, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
+  @ApiZodBody(passwordResetConfirmSchema)
+  async confirmPasswordReset(@Body(new ZodValidationPipe(passwordResetConfirmSchema)) body: PasswordResetConfirmInput, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
     const user = await this.auth.confirmPasswordReset(body.token, body.password);
     await this.auth.startSession(res, user, req);
     return { user };

@@ -12,17 +12,25 @@ import {
 } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { AuthUser } from '@loomwright/shared';
+import {
+  createBookingSchema,
+  listBookingsQuerySchema,
+  photoFieldsSchema,
+  shipmentSchema,
+  type AuthUser,
+  type CreateBookingInput,
+  type ListBookingsQuery,
+  type PhotoFieldsInput,
+  type ShipmentInput,
+} from '@loomwright/shared';
 import type { Response } from 'express';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
+import { ApiZodBody, ApiZodQuery, openApiSchema } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { bookingIdPipe, photoIdPipe } from './booking-id.pipe';
 import { BookingPhotosService, MAX_PHOTO_BYTES, type UploadedPhoto } from './booking-photos.service';
 import { BookingsService } from './bookings.service';
-import { CreateBookingDto } from './dto/create-booking.dto';
-import { ListBookingsDto } from './dto/list-bookings.dto';
-import { RecordShipmentDto } from './dto/record-shipment.dto';
-import { UploadPhotoDto } from './dto/upload-photo.dto';
 import { PhotoTooLargeFilter } from './photo-too-large.filter';
 
 @ApiTags('bookings')
@@ -36,13 +44,15 @@ export class BookingsController {
   @Post()
   @Roles('customer')
   @ApiCreatedResponse({ description: 'The booking in state requested, with its quote snapshot.' })
-  create(@CurrentUser() user: AuthUser, @Body() dto: CreateBookingDto) {
+  @ApiZodBody(createBookingSchema)
+  create(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(createBookingSchema)) dto: CreateBookingInput) {
     return this.bookings.create(user, dto);
   }
 
   @Get()
   @ApiOkResponse({ description: 'A page of bookings: a player sees their own, staff see all.' })
-  list(@CurrentUser() user: AuthUser, @Query() query: ListBookingsDto) {
+  @ApiZodQuery(listBookingsQuerySchema)
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(listBookingsQuerySchema)) query: ListBookingsQuery) {
     return this.bookings.list(user, query);
   }
 
@@ -55,7 +65,8 @@ export class BookingsController {
   @Post(':id/shipment')
   @Roles('customer')
   @ApiOkResponse({ description: 'Records the carrier and tracking of the parcel carrying the pedals in.' })
-  shipment(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body() dto: RecordShipmentDto) {
+  @ApiZodBody(shipmentSchema)
+  shipment(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(shipmentSchema)) dto: ShipmentInput) {
     return this.bookings.recordShipment(user, id, dto);
   }
 
@@ -66,7 +77,8 @@ export class BookingsController {
   @ApiBody({
     schema: {
       type: 'object',
-      properties: { file: { type: 'string', format: 'binary' }, caption: { type: 'string' }, kind: { type: 'string' } },
+      required: ['file'],
+      properties: { file: { type: 'string', format: 'binary' }, ...openApiSchema(photoFieldsSchema).properties },
     },
   })
   @ApiCreatedResponse({ description: 'The stored photo (JPEG, PNG or WebP, up to 8 MB, 8 per booking).' })
@@ -74,7 +86,7 @@ export class BookingsController {
     @CurrentUser() user: AuthUser,
     @Param('id', bookingIdPipe) id: string,
     @UploadedFile() file: UploadedPhoto | undefined,
-    @Body() dto: UploadPhotoDto,
+    @Body(new ZodValidationPipe(photoFieldsSchema)) dto: PhotoFieldsInput,
   ) {
     return this.photos.upload(user, id, file, dto);
   }

@@ -1,14 +1,11 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
-import type { AuthUser, BookingDetail, BookingState, BookingSummary, Page, RigConfiguration } from '@loomwright/shared';
-import { bookingStateLabels, describeIssues, rigConfigurationSchema, staffRoles } from '@loomwright/shared';
+import type { AuthUser, BookingDetail, BookingState, BookingSummary, CreateBookingInput, ListBookingsQuery, Page, RigConfiguration, ShipmentInput } from '@loomwright/shared';
+import { bookingStateLabels, staffRoles } from '@loomwright/shared';
 import Decimal from 'decimal.js';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { detailView, summaryView } from './booking-view';
 import { BookingsRepository, type BookingRow } from './bookings.repository';
-import type { CreateBookingDto } from './dto/create-booking.dto';
-import type { ListBookingsDto } from './dto/list-bookings.dto';
-import type { RecordShipmentDto } from './dto/record-shipment.dto';
 import { QuotePricer } from './quote-pricer';
 
 /** Who made a change, as the timeline shows it. `id` is null for the system (e.g. a webhook). */
@@ -33,11 +30,8 @@ export class BookingsService {
   ) {}
 
   /** A player's request: re-priced here (the client's figures are never trusted) and snapshotted. */
-  async create(user: AuthUser, dto: CreateBookingDto): Promise<BookingDetail> {
-    const parsed = rigConfigurationSchema.safeParse(dto.configuration);
-    // The same schema and words as POST /api/estimates and the configurator's forms.
-    if (!parsed.success) throw new BadRequestException(describeIssues(parsed.error).map((m) => `configuration.${m}`));
-    const configuration: RigConfiguration = parsed.data;
+  async create(user: AuthUser, dto: CreateBookingInput): Promise<BookingDetail> {
+    const configuration = dto.configuration as RigConfiguration;
     const id = await this.db.transaction().execute(async (trx) => {
       const estimate = await this.pricer.price(configuration, trx);
       const reference = await this.bookings.nextReference(trx);
@@ -91,16 +85,15 @@ export class BookingsService {
     return this.getDetail(id);
   }
 
-  async list(user: AuthUser, query: ListBookingsDto): Promise<Page<BookingSummary>> {
-    const page = query.page ?? 1;
-    const pageSize = query.pageSize ?? 25;
+  async list(user: AuthUser, query: ListBookingsQuery): Promise<Page<BookingSummary>> {
+    const { page, pageSize } = query;
     const { rows, total } = await this.bookings.list({
       customerId: isStaff(user) ? undefined : user.id,
       state: query.state,
       depositStatus: query.deposit,
       q: query.q?.trim() || undefined,
-      sort: query.sort ?? 'created_at',
-      order: query.order ?? 'desc',
+      sort: query.sort,
+      order: query.order,
       limit: pageSize,
       offset: (page - 1) * pageSize,
     });
@@ -198,7 +191,7 @@ export class BookingsService {
   }
 
   /** The player records the parcel carrying their pedals to the shop. */
-  async recordShipment(user: AuthUser, id: string, dto: RecordShipmentDto): Promise<BookingDetail> {
+  async recordShipment(user: AuthUser, id: string, dto: ShipmentInput): Promise<BookingDetail> {
     await this.db.transaction().execute(async (trx) => {
       const row = await this.findVisible(user, id, trx);
       const locked = await this.bookings.lockById(trx, row.id);

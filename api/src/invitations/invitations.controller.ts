@@ -1,15 +1,15 @@
 import { Body, Controller, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
-import type { AuthUser } from '@loomwright/shared';
+import { acceptInvitationSchema, inviteStaffSchema, type AcceptInvitationInput, type AuthUser, type InviteStaffInput } from '@loomwright/shared';
 import type { Request, Response } from 'express';
 import { AuthService } from '../auth/auth.service';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { SkipSessionRenewal } from '../auth/session-renewal.interceptor';
-import { AcceptInvitationDto } from './dto/accept-invitation.dto';
-import { CreateInvitationDto } from './dto/create-invitation.dto';
+import { ApiZodBody } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { InvitationsService } from './invitations.service';
 
 @ApiTags('team')
@@ -23,7 +23,8 @@ export class InvitationsController {
   @Roles('owner')
   @Post()
   @ApiCreatedResponse({ description: 'The invited builder, their bench profile id and when the link expires.' })
-  invite(@Body() body: CreateInvitationDto, @CurrentUser() owner: AuthUser) {
+  @ApiZodBody(inviteStaffSchema)
+  invite(@Body(new ZodValidationPipe(inviteStaffSchema)) body: InviteStaffInput, @CurrentUser() owner: AuthUser) {
     return this.invitations.invite(body, owner);
   }
 
@@ -33,7 +34,8 @@ export class InvitationsController {
   @Post('accept')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is set and the session cookie is set.' })
-  async accept(@Body() body: AcceptInvitationDto, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
+  @ApiZodBody(acceptInvitationSchema)
+  async accept(@Body(new ZodValidationPipe(acceptInvitationSchema)) body: AcceptInvitationInput, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
     const user = await this.invitations.accept(body.token, body.password);
     await this.auth.startSession(res, user, req);
     return { user };

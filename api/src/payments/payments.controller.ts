@@ -1,13 +1,13 @@
 import { Body, Controller, Headers, HttpCode, Param, Post, Req, type RawBodyRequest } from '@nestjs/common';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { AuthUser } from '@loomwright/shared';
+import { cancelBookingSchema, refundDepositSchema, type AuthUser, type CancelBookingInput, type RefundDepositInput } from '@loomwright/shared';
 import type { Request } from 'express';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { bookingIdPipe } from '../bookings/booking-id.pipe';
-import { CancelBookingDto } from '../bookings/dto/cancel-booking.dto';
-import { RefundDepositDto } from './dto/refund-deposit.dto';
+import { ApiZodBody } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { PaymentWebhooksService } from './payment-webhooks.service';
 import { PaymentsService } from './payments.service';
 
@@ -32,7 +32,8 @@ export class PaymentsController {
   @Roles('customer')
   @HttpCode(200)
   @ApiOkResponse({ description: 'Cancels a request before it is scheduled; a paid deposit is refunded.' })
-  cancel(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body() dto: CancelBookingDto) {
+  @ApiZodBody(cancelBookingSchema)
+  cancel(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(cancelBookingSchema)) dto: CancelBookingInput) {
     return this.payments.cancel(user, id, dto.reason);
   }
 
@@ -40,8 +41,9 @@ export class PaymentsController {
   @Roles('owner')
   @HttpCode(200)
   @ApiOkResponse({ description: "Refunds the booking's paid deposit through the payment provider." })
-  refund(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body() dto: RefundDepositDto) {
-    return this.payments.refundByOwner(user, id, dto.reason.trim());
+  @ApiZodBody(refundDepositSchema)
+  refund(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(refundDepositSchema)) dto: RefundDepositInput) {
+    return this.payments.refundByOwner(user, id, dto.reason);
   }
 
   @Public()
