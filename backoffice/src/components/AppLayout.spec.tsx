@@ -2,6 +2,7 @@ import { CssVarsProvider } from '@mui/joy/styles';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, fireEvent, render, screen } from '@testing-library/react';
 import { createMemoryRouter, RouterProvider, useLocation } from 'react-router';
+import { shopUnavailableMessage } from '@loomwright/shared';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { AppLayout } from './AppLayout';
@@ -47,6 +48,21 @@ describe('the backoffice layout lets only staff in', () => {
   afterEach(() => {
     cleanup();
     vi.unstubAllGlobals();
+  });
+
+  it('keeps a builder on the page with "briefly unavailable" while the API answers 503, and lets them in once it is back', async () => {
+    let down = true;
+    renderAt('/bench', () =>
+      down
+        ? json(503, { statusCode: 503, error: 'Service Unavailable', message: shopUnavailableMessage })
+        : json(200, { user: { id: 'b1', email: 'builder@shop.example', name: 'Tamsin Reyes', role: 'builder' } }),
+    );
+    expect(await screen.findByText('The shop is briefly unavailable')).toBeTruthy();
+    expect(screen.getByText(new RegExp('you are still signed in'))).toBeTruthy();
+    expect(screen.queryByText(/sign-in page at/)).toBeNull();
+    down = false;
+    fireEvent.click(screen.getByRole('button', { name: 'Try again now' }));
+    expect(await screen.findByText('bench page')).toBeTruthy();
   });
 
   it('sends a visitor who is not signed in to sign-in, remembering the page', async () => {

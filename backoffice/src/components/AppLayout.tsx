@@ -8,6 +8,7 @@ import { Suspense } from 'react';
 import { staffRoles, type AuthUser } from '@loomwright/shared';
 import { Navigate, NavLink, Outlet, useLocation } from 'react-router';
 import { PageLoading } from 'src/components/PageLoading';
+import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
 import { SignedInStaff } from 'src/features/auth/components/SignedInStaff';
 import { StaffOnly } from 'src/features/auth/components/StaffOnly';
@@ -35,7 +36,8 @@ export function AppLayout() {
   const me = useMe();
   const location = useLocation();
   if (me.isPending) return <PageLoading label="Checking who is signed in…" />;
-  if (me.isError) return <PageLoading label={me.error.message} />;
+  // Not knowing who is here (the shop is down) is not the same as nobody signed in.
+  if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) {
     const next = `${location.pathname}${location.search}`;
     return <Navigate to={next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`} replace />;

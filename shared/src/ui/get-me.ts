@@ -9,7 +9,12 @@ const api = createApiClient('/api');
 /** Every query about the signed-in person lives under this key; sign-in and sign-out reset it. */
 export const authKeys = { all: ['auth'] as const, me: () => ['auth', 'me'] as const };
 
-/** The signed-in person (player or staff), or null when nobody is signed in (a 401 is an answer here, not an error). */
+/**
+ * The signed-in person (player or staff), or null when nobody is signed in (a 401 is an answer
+ * here, not an error). Any other failure (a 503 while the shop's database is down, no connection)
+ * stays an error: it says nothing about who is signed in, so screens show ShopUnavailable rather
+ * than sending the person to sign in.
+ */
 export async function getMe(signal?: AbortSignal): Promise<AuthUser | null> {
   try {
     return (await api.get<AuthSessionResponse>('/auth/me', { signal })).user;
@@ -19,7 +24,16 @@ export async function getMe(signal?: AbortSignal): Promise<AuthUser | null> {
   }
 }
 
-export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => getMe(signal), staleTime: 60_000 });
+/** While the shop is not answering, ask again every 10 s, so every screen recovers by itself when it returns. */
+export const ME_RETRY_MS = 10_000;
+
+export const meQueryOptions = () =>
+  queryOptions({
+    queryKey: authKeys.me(),
+    queryFn: ({ signal }) => getMe(signal),
+    staleTime: 60_000,
+    refetchInterval: (query) => (query.state.status === 'error' ? ME_RETRY_MS : false),
+  });
 
 export const useMe = () => useQuery(meQueryOptions());
 

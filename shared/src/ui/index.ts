@@ -5,6 +5,7 @@
 export { createQueryClient } from './query-client';
 export { PageLoading } from './PageLoading';
 export { RouteError } from './RouteError';
+export { ShopUnavailable } from './ShopUnavailable';
 export { FormTextField } from './FormTextField';
-export { authKeys, getMe, meQueryOptions, switchPerson, useMe } from './get-me';
+export { authKeys, getMe, ME_RETRY_MS, meQueryOptions, switchPerson, useMe } from './get-me';
 export { useSearchParamsInOrder } from './use-search-params-in-order';

@@ -1,5 +1,8 @@
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
 import { ApiError } from '../api-client';
+import { ME_RETRY_MS } from './get-me';
+
+const isShopAway = (error: unknown) => error instanceof ApiError && (error.status === 503 || error.status === 0);
 
 /** The one QueryClient setup both apps use. */
 export function createQueryClient() {
@@ -16,6 +19,9 @@ export function createQueryClient() {
         staleTime: 30_000,
         // A 4xx will not change on retry; only network trouble and 5xx are worth another try.
         retry: (count, error) => count < 2 && !(error instanceof ApiError && error.status >= 400 && error.status < 500),
+        // While the shop is not answering (503, or no connection), failed screens ask again on their
+        // own, so they come back when the shop does, with nobody signed out meanwhile.
+        refetchInterval: (query) => (isShopAway(query.state.error) ? ME_RETRY_MS : false),
       },
     },
   });

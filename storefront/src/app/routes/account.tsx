@@ -2,6 +2,7 @@ import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import { Link as RouterLink, Navigate, useNavigate } from 'react-router';
 import { PageLoading } from 'src/components/PageLoading';
+import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
 import { AccountSummary } from 'src/features/auth/components/AccountSummary';
 import { AuthCard } from 'src/features/auth/components/AuthCard';
@@ -10,6 +11,8 @@ export function Component() {
   const me = useMe();
   const navigate = useNavigate();
   if (me.isPending) return <PageLoading />;
+  // Not knowing who is here (the shop is down) is not the same as nobody signed in.
+  if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) return <Navigate to="/sign-in?next=%2Faccount" replace />;
   return (
     <AuthCard title="My account">

@@ -6,6 +6,7 @@ import Typography from '@mui/joy/Typography';
 import { Navigate, useLocation, useParams } from 'react-router';
 import type { BookingState } from '@loomwright/shared';
 import { PageLoading } from 'src/components/PageLoading';
+import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
 import { useBooking } from 'src/features/bookings/api/get-booking';
 import { BookingStateChip } from 'src/features/bookings/components/BookingStateChip';
@@ -36,6 +37,8 @@ export function Component() {
   const location = useLocation();
   const booking = useBooking(id);
   if (me.isPending) return <PageLoading />;
+  // Not knowing who is here (the shop is down) is not the same as nobody signed in.
+  if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname)}`} replace />;
   if (booking.isPending) return <PageLoading label="Loading the build…" />;
   if (booking.error) return <Alert color="danger" role="alert">{booking.error.message}</Alert>;

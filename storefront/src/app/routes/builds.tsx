@@ -7,6 +7,7 @@ import Typography from '@mui/joy/Typography';
 import { useState } from 'react';
 import { Link as RouterLink, Navigate, useLocation } from 'react-router';
 import { PageLoading } from 'src/components/PageLoading';
+import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
 import { useBookings } from 'src/features/bookings/api/get-bookings';
 import { BookingStateChip } from 'src/features/bookings/components/BookingStateChip';
@@ -21,6 +22,8 @@ export function Component() {
   const [page, setPage] = useState(1);
   const list = useBookings({ page, pageSize: PAGE_SIZE });
   if (me.isPending) return <PageLoading />;
+  // Not knowing who is here (the shop is down) is not the same as nobody signed in.
+  if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname)}`} replace />;
   if (list.isPending) return <PageLoading label="Loading your builds…" />;
   if (list.error) return <Alert color="danger" role="alert">{list.error.message}</Alert>;

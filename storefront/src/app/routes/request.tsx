@@ -14,6 +14,7 @@ import { useForm } from 'react-hook-form';
 import { Link as RouterLink, Navigate, useLocation, useNavigate, useSearchParams } from 'react-router';
 import { CONFIGURATION_PARAM, decodeConfiguration, levelRank, requestNotesSchema, type RequestNotesInput } from '@loomwright/shared';
 import { PageLoading } from 'src/components/PageLoading';
+import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
 import { LeadTime } from 'src/features/bench/components/LeadTime';
 import { useCreateBooking } from 'src/features/bookings/api/create-booking';
@@ -36,6 +37,8 @@ export function Component() {
   const form = useForm<RequestNotesInput>({ resolver: zodResolver(requestNotesSchema), defaultValues: { notes: '' } });
 
   if (me.isPending) return <PageLoading />;
+  // Not knowing who is here (the shop is down) is not the same as nobody signed in.
+  if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname + location.search)}`} replace />;
   if (!configuration) {
     return (

@@ -1,1 +1,1 @@
-export { authKeys, getMe, meQueryOptions, switchPerson, useMe } from '@loomwright/shared/ui';
+export { authKeys, getMe, ME_RETRY_MS, meQueryOptions, switchPerson, useMe } from '@loomwright/shared/ui';

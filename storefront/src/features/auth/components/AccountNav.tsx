@@ -10,6 +10,8 @@ export function AccountNav() {
   const me = useMe();
   const location = useLocation();
   if (me.isPending) return null;
+  // The shop is not answering: say so rather than offer "Sign in" to someone who may be signed in.
+  if (me.isError && !me.data) return <Typography component="span" level="body-sm" role="status">Shop briefly unavailable</Typography>;
   if (!me.data) {
     const here = `${location.pathname}${location.search}`;
     const next = accountPages.includes(location.pathname) || here === '/' ? '' : `?next=${encodeURIComponent(here)}`;

@@ -1,0 +1,1 @@
+export { ShopUnavailable } from '@loomwright/shared/ui';
