@@ -53,8 +53,35 @@ describe('POST /api/estimates', () => {
     expect(powerBudget).toMatchObject({ status: 'problem', totalDrawMa: 1170, totalRatingMa: 1000, totalHeadroomMa: -170, totalHeadroomW: -1.53 });
     expect(boardFit).toMatchObject({ status: 'problem', areaFits: false, smallestFittingSurfaceId: 'ridge-81' });
     expect(cableSchedule).toMatchObject({ patchCount: 12, plugCount: 24 });
-    expect(res.body.notes.some((n: string) => n.includes('Overloaded'))).toBe(true);
+    // The digital delay takes an output of its own and three analog 90 mA pedals share the other
+    // (the demo book's daisy-chain limit): 4 of the 13 are powered, the other 9 need 3 more outputs.
+    expect(powerBudget.unassigned).toHaveLength(9);
+    expect(powerBudget.outputs.every((o: { loadMa: number; ratingMa: number }) => o.loadMa <= o.ratingMa)).toBe(true);
+    expect(res.body.notes.some((n: string) => n.startsWith('To power every pedal: a supply with 3 more outputs'))).toBe(true);
     expect(res.body.notes.some((n: string) => n.includes('Slate 46'))).toBe(true);
+  });
+
+  it("plans the switcher's own draw on an output of its own, and keeps a pedal the player pinned", async () => {
+    const config = {
+      ...referenceBoard('switcher', 'master'),
+      routing: { mode: 'switcher', switcher: { currentMa: 350 } },
+      pedals: referenceBoard('switcher', 'master').pedals!.map((p, i) => ({ ...p, currentMa: 20, ...(i === 0 ? { powerOutput: 1 } : {}) })),
+      powerSupply: {
+        outputs: [
+          { voltage: 9, currentMa: 500, isolated: true },
+          { voltage: 9, currentMa: 100, isolated: true },
+          ...Array.from({ length: 6 }, () => ({ voltage: 9, currentMa: 250, isolated: true })),
+        ],
+      },
+    };
+    const res = await t.http().post('/api/estimates').send(config).expect(200);
+    const plan = res.body.checks.powerBudget;
+    const switcher = plan.assignments.find((a: { deviceId: string }) => a.deviceId === 'switcher');
+    // 350 mA only fits the 500 mA output; a switcher is digital, so it is alone there.
+    expect(switcher).toMatchObject({ output: 0, currentMa: 350, drawFromMemory: false });
+    expect(plan.outputs[0].devices).toEqual(['Loop switcher']);
+    expect(plan.assignments[0]).toMatchObject({ device: 'Input/output buffer', output: 1, pinned: true });
+    expect(plan.status).toBe('ok');
   });
 
   const base = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' };
@@ -62,6 +89,9 @@ describe('POST /api/estimates', () => {
     ['an unknown surface', { ...base, surfaceId: 'plank-9000' }, 'surfaceId'],
     ['an unknown case', { ...base, caseId: 'shoebox' }, 'caseId'],
     ['an unknown function', { ...base, functions: ['laser_show'] }, 'functions[0]'],
+    ['a switcher on a serial board', { ...base, routing: { mode: 'serial', switcher: { currentMa: 300 } } }, 'routing.switcher'],
+    ['a negative switcher draw', { ...base, pedalCount: undefined, pedals: [{ name: 'fuzz', powered: true, inLoop: true }], routing: { mode: 'switcher', switcher: { currentMa: -5 } } }, 'routing.switcher.currentMa'],
+    ['a pedal pinned to an output the supply lacks', { ...base, pedalCount: undefined, pedals: [{ name: 'fuzz', powered: true, inLoop: false, powerOutput: 2 }], powerSupply: { outputs: [{ voltage: 9, currentMa: 100, isolated: true }] } }, 'pedals[0].powerOutput'],
     ['a negative pedal count', { ...base, pedalCount: -3 }, 'pedalCount'],
     ['an absurd pedal count', { ...base, pedalCount: 100000 }, 'pedalCount'],
     ['a fractional pedal count', { ...base, pedalCount: 2.5 }, 'pedalCount'],

@@ -111,7 +111,7 @@ test.describe('configurator', () => {
     const after = await expectPanelMatchesApi(page, request);
     // Two more plain serial pedals: two more bench hours (1 h per device, common practice, no published source).
     expect(Number(after.estimate.laborHours) - Number(before.estimate.laborHours)).toBe(2);
-    await expect(page.getByRole('heading', { name: 'Power budget' })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Power plan' })).toBeVisible();
     await expect(page.getByRole('note', { name: 'Power safety' })).toContainText('local electrical codes');
     await expect(page.getByRole('img', { name: /Top view of the/ })).toBeVisible();
     await expectNoSeriousAxeViolations(page, 'Pedals (desktop)');

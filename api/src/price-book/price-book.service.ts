@@ -48,6 +48,7 @@ export class PriceBookService {
       depositPolicy: book.depositPolicy,
       materials: book.materials,
       labor: book.labor,
+      ...(book.power ? { power: book.power } : {}),
     };
   }
 

@@ -56,8 +56,8 @@ describe('power budget', () => {
     expect(budget).toMatchObject({ totalRatingMa: 700, totalDrawMa: 320, totalHeadroomMa: 380, totalRatingW: 6.3, totalDrawW: 2.88, totalHeadroomW: 3.42 });
   });
 
-  it('flags an overloaded output: 9 V at 100 mA cannot feed 150 mA (its load would be 60 Ω, below the 90 Ω it is rated for)', () => {
-    const config = rig([p('chorus', 80), p('phaser', 70)], { outputs: [{ voltage: 9, currentMa: 100, isolated: false }] });
+  it('flags an overloaded output the player chose: 9 V at 100 mA cannot feed 150 mA (its load would be 60 Ω, below the 90 Ω it is rated for)', () => {
+    const config = rig([p('chorus', 80, { powerOutput: 0 }), p('phaser', 70, { powerOutput: 0 })], { outputs: [{ voltage: 9, currentMa: 100, isolated: false }] });
     const budget = powerBudgetOf(signalChainOf(config), config.powerSupply!.outputs);
     expect(budget.status).toBe('problem');
     expect(budget.outputs[0]).toMatchObject({ loadMa: 150, headroomMa: -50, headroomW: -0.45, minimumLoadOhms: 90, loadOhms: 60 });
@@ -72,7 +72,8 @@ describe('power budget', () => {
     const budget = powerBudgetOf(signalChainOf(config), config.powerSupply!.outputs);
     expect(budget.status).toBe('problem');
     expect(budget.outputs[0].flags.some((f) => f.startsWith('Voltage mismatch'))).toBe(true);
-    expect(budget.unassigned).toEqual([{ device: '12 V preamp', reason: 'no 12 V DC output on the supply' }]);
+    expect(budget.unassigned).toEqual([{ device: '12 V preamp', deviceId: 'p2', reason: 'no 12 V DC output on the supply' }]);
+    expect(budget.fixes[0]).toBe('One more output of at least 100 mA at 12 V DC, for 12 V preamp.');
   });
 
   it('does not put an AC pedal on a DC output, and warns about centre-positive polarity', () => {

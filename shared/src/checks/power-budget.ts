@@ -1,5 +1,6 @@
 import type { PowerOutputInput } from '../estimate/types';
-import type { PowerAssignment, PowerBudget, PowerOutputLoad, RigDevice, SignalChain } from './types';
+import { DEFAULT_POWER_RULES, describeMissingOutput, outputPolarity, ownOutputReason, planPower } from './power-plan';
+import type { PowerAssignment, PowerBudget, PowerOutputLoad, PowerRules, RigDevice, SignalChain } from './types';
 
 /** P = V × I, with I in mA; rounded to the milliwatt for display. */
 export const wattsOf = (volts: number, milliamps: number): number => Math.round(volts * milliamps) / 1000;
@@ -11,34 +12,49 @@ export const ohmsOf = (volts: number, milliamps: number): number | null =>
 const describe = (d: RigDevice) => `${d.name} (${d.voltage} V${d.supply === 'ac' ? ' AC' : ''}, ${d.budgetMa} mA${d.drawFromMemory ? ' assumed' : ''})`;
 
 /**
- * Assigns every powered device to an output of the player's supply and checks each output's load
- * against its rating. Pedals the player already placed keep their output (and a mismatch is
- * flagged); the rest go, largest draw first, to a free output of the same voltage and kind
- * (smallest rating that holds the draw), and only then share an output (a daisy chain).
+ * The power plan: every powered device on an output of the player's supply by the trade's rules
+ * (see planPower), pinned choices kept and checked, each output's load against its rating in mA
+ * and W, and, when no plan exists, what would fix it.
  */
-export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | undefined): PowerBudget {
+export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | undefined, rules: PowerRules = DEFAULT_POWER_RULES): PowerBudget {
   const powered = chain.devices.filter((d) => d.powered);
   const warnings: string[] = [];
   const unknown = powered.filter((d) => d.drawFromMemory);
   if (unknown.length > 0) {
     warnings.push(
-      `Current draw unknown for ${unknown.map((d) => d.name).join(', ')}: budgeted at a typical figure (from memory); check the label or manual.`,
+      `Current draw unknown for ${unknown.map((d) => d.name).join(', ')}: planned at a typical figure (from memory); enter the figure from the label or manual on the Pedals step${chain.switcherId && unknown.some((d) => d.id === chain.switcherId) ? ' (the switcher on the Routing step)' : ''}.`,
     );
-  }
-  for (const d of powered.filter((p) => p.polarity === 'center_positive')) {
-    warnings.push(`${d.name} is centre-positive: it needs a polarity-reversing lead; the wrong polarity can damage it.`);
   }
   const totalDrawMa = powered.reduce((s, d) => s + d.budgetMa, 0);
   const totalDrawW = Math.round(powered.reduce((s, d) => s + d.voltage * d.budgetMa, 0)) / 1000;
+  const reasonOf = (d: RigDevice) => ownOutputReason(d, rules);
 
   if (!outputs || outputs.length === 0) {
-    if (powered.length > 0) warnings.push("No power supply listed: add its outputs to check the budget before you ship it.");
+    for (const d of powered.filter((p) => p.polarity === 'center_positive')) {
+      warnings.push(`${d.name} is centre-positive: it needs a polarity-reversing lead on an isolated output of its own; the wrong polarity can damage it.`);
+    }
+    if (powered.length > 0) warnings.push("No power supply listed: add its outputs to plan the power before you ship it.");
     return {
       status: powered.length === 0 ? 'ok' : 'unknown',
       supplyListed: false,
       outputs: [],
-      assignments: powered.map((d) => ({ device: d.name, output: null, voltage: d.voltage, currentMa: d.budgetMa, drawFromMemory: d.drawFromMemory })),
+      assignments: powered.map((d) => ({
+        device: d.name,
+        deviceId: d.id,
+        output: null,
+        voltage: d.voltage,
+        currentMa: d.budgetMa,
+        drawFromMemory: d.drawFromMemory,
+        pinned: false,
+        ownOutputReason: reasonOf(d),
+        reversingLead: false,
+      })),
       unassigned: [],
+      fixes: [],
+      optimal: true,
+      outputsUsed: 0,
+      spareOutputs: 0,
+      rules,
       totalDrawMa,
       totalDrawW,
       totalRatingMa: null,
@@ -49,118 +65,119 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
     };
   }
 
-  const loads: Array<{ output: PowerOutputInput; devices: RigDevice[]; flags: string[]; loadMa: number }> = outputs.map((output) => ({
-    output,
-    devices: [],
-    flags: [],
-    loadMa: 0,
-  }));
-  const assignedTo = new Map<RigDevice, number | null>();
-  const unassigned: PowerBudget['unassigned'] = [];
-  const supplyOf = (o: PowerOutputInput) => o.supply ?? 'dc';
-  const place = (d: RigDevice, i: number) => {
-    loads[i].devices.push(d);
-    loads[i].loadMa += d.budgetMa;
-    assignedTo.set(d, i);
-  };
-
+  const plan = planPower(powered, outputs, rules);
+  const onOutput = outputs.map(() => [] as RigDevice[]);
   for (const d of powered) {
-    if (d.powerOutput === null) continue;
-    const slot = loads[d.powerOutput];
-    if (!slot) {
-      unassigned.push({ device: d.name, reason: `output ${d.powerOutput + 1} is not on the supply` });
-      assignedTo.set(d, null);
-      continue;
-    }
-    place(d, d.powerOutput);
-    if (slot.output.voltage !== d.voltage) {
-      slot.flags.push(`Voltage mismatch: ${d.name} needs ${d.voltage} V, this output gives ${slot.output.voltage} V.`);
-    }
-    if (supplyOf(slot.output) !== d.supply) {
-      slot.flags.push(`Supply mismatch: ${d.name} needs ${d.supply.toUpperCase()}, this output gives ${supplyOf(slot.output).toUpperCase()}.`);
-    }
+    const o = plan.outputOf.get(d);
+    if (o !== null && o !== undefined) onOutput[o].push(d);
   }
 
-  const rest = powered.filter((d) => !assignedTo.has(d)).sort((a, b) => b.budgetMa - a.budgetMa);
-  for (const d of rest) {
-    // Free output holding the draw with the least to spare; else the largest free one; else the
-    // matching output with the most headroom left (a daisy chain).
-    let holding = -1;
-    let largestFree = -1;
-    let mostHeadroom = -1;
-    loads.forEach((slot, i) => {
-      if (slot.output.voltage !== d.voltage || supplyOf(slot.output) !== d.supply) return;
-      const rating = slot.output.currentMa;
-      if (slot.devices.length === 0) {
-        if (rating >= d.budgetMa && (holding < 0 || rating < loads[holding].output.currentMa)) holding = i;
-        if (largestFree < 0 || rating > loads[largestFree].output.currentMa) largestFree = i;
+  const outputLoads: PowerOutputLoad[] = outputs.map((output, i) => {
+    const devices = onOutput[i];
+    const loadMa = devices.reduce((s, d) => s + d.budgetMa, 0);
+    const voltage = output.voltage;
+    const supply = output.supply ?? 'dc';
+    const polarity = outputPolarity(output);
+    const flags: string[] = [];
+    // Only pinned devices can break a rule: the planner never does.
+    for (const d of devices) {
+      if (d.voltage !== voltage) flags.push(`Voltage mismatch: ${d.name} needs ${d.voltage} V, this output gives ${voltage} V.`);
+      if (d.supply !== supply) flags.push(`Supply mismatch: ${d.name} needs ${d.supply.toUpperCase()}, this output gives ${supply.toUpperCase()}.`);
+      if (d.supply === 'dc' && supply === 'dc' && d.polarity !== polarity && (!output.isolated || devices.length > 1)) {
+        flags.push(`Polarity: ${d.name} is ${d.polarity === 'center_positive' ? 'centre-positive' : 'centre-negative'}; reversing it is only safe on an isolated output of its own.`);
       }
-      if (mostHeadroom < 0 || rating - slot.loadMa > loads[mostHeadroom].output.currentMa - loads[mostHeadroom].loadMa) mostHeadroom = i;
-    });
-    const pick = holding >= 0 ? holding : largestFree >= 0 ? largestFree : mostHeadroom;
-    if (pick < 0) {
-      unassigned.push({ device: d.name, reason: `no ${d.voltage} V ${d.supply.toUpperCase()} output on the supply` });
-      assignedTo.set(d, null);
-      continue;
     }
-    place(d, pick);
-  }
-
-  const outputLoads: PowerOutputLoad[] = loads.map(({ output, devices, flags, loadMa }, i) => {
-    if (loadMa > output.currentMa) {
-      flags.push(`Overloaded: ${loadMa} mA drawn from a ${output.currentMa} mA output.`);
-    }
+    if (loadMa > output.currentMa) flags.push(`Overloaded: ${loadMa} mA drawn from a ${output.currentMa} mA output.`);
     if (devices.length > 1) {
-      flags.push(
-        output.isolated
-          ? `Shared by ${devices.length} pedals (a daisy chain): keep digital pedals on outputs of their own to avoid noise.`
-          : `Shared by ${devices.length} pedals on a non-isolated output: fine for analog pedals, a noise risk for digital ones.`,
-      );
+      for (const d of devices.filter((x) => reasonOf(x) !== null)) {
+        flags.push(`Shared: ${d.name} (${reasonOf(d)}) needs an output of its own.`);
+      }
+      if (devices.length > rules.maxDaisyChain) flags.push(`Daisy chain of ${devices.length}: the shop allows at most ${rules.maxDaisyChain} pedals on one output.`);
     }
     return {
       output: i,
       label: output.label ?? `Output ${i + 1}`,
-      voltage: output.voltage,
-      supply: supplyOf(output),
+      voltage,
+      supply,
+      polarity,
       isolated: output.isolated,
       ratingMa: output.currentMa,
       loadMa,
       headroomMa: output.currentMa - loadMa,
-      ratingW: wattsOf(output.voltage, output.currentMa),
-      loadW: wattsOf(output.voltage, loadMa),
-      headroomW: wattsOf(output.voltage, output.currentMa - loadMa),
-      minimumLoadOhms: ohmsOf(output.voltage, output.currentMa)!,
-      loadOhms: ohmsOf(output.voltage, loadMa),
+      ratingW: wattsOf(voltage, output.currentMa),
+      loadW: wattsOf(voltage, loadMa),
+      headroomW: wattsOf(voltage, output.currentMa - loadMa),
+      minimumLoadOhms: ohmsOf(voltage, output.currentMa)!,
+      loadOhms: ohmsOf(voltage, loadMa),
       devices: devices.map((d) => d.name),
       flags,
     };
   });
 
+  const unassigned: PowerBudget['unassigned'] = [];
+  for (const d of powered) {
+    if (plan.outputOf.get(d) !== null) continue;
+    const pinnedAway = d.powerOutput !== null && d.powerOutput >= outputs.length;
+    unassigned.push({
+      device: d.name,
+      deviceId: d.id,
+      reason: pinnedAway ? `output ${d.powerOutput! + 1} is not on the supply` : noOutputReason(d, outputs, rules),
+    });
+  }
+  const fixes = plan.virtualGroups.length === 0
+    ? []
+    : plan.virtualGroups.length === 1
+      ? [`One more ${describeMissingOutput(plan.virtualGroups[0], rules)}.`]
+      : [`A supply with ${plan.virtualGroups.length} more outputs: ${plan.virtualGroups.map((g) => describeMissingOutput(g, rules)).join('; ')}.`];
+  for (const o of outputLoads) {
+    if (o.flags.length === 0) continue;
+    const pinned = onOutput[o.output].filter((d) => d.powerOutput === o.output).map((d) => d.name);
+    fixes.push(`${o.label}: move ${pinned.length ? pinned.join(' or ') : 'a pedal'} to another output, or let the plan choose.`);
+  }
+
   for (const u of unassigned) warnings.push(`${u.device} has no output: ${u.reason}.`);
   for (const o of outputLoads) {
     for (const f of o.flags) {
-      if (f.startsWith('Overloaded')) warnings.push(`${o.label}: ${f.replace(/\.$/, '')} (${loads[o.output].devices.map(describe).join('; ')}).`);
-      else if (!f.startsWith('Shared')) warnings.push(`${o.label}: ${f}`);
+      warnings.push(f.startsWith('Overloaded') ? `${o.label}: ${f.replace(/\.$/, '')} (${onOutput[o.output].map(describe).join('; ')}).` : `${o.label}: ${f}`);
     }
+  }
+  const assignments: PowerAssignment[] = powered.map((d) => {
+    const o = plan.outputOf.get(d) ?? null;
+    return {
+      device: d.name,
+      deviceId: d.id,
+      output: o,
+      voltage: d.voltage,
+      currentMa: d.budgetMa,
+      drawFromMemory: d.drawFromMemory,
+      pinned: d.powerOutput !== null,
+      ownOutputReason: reasonOf(d),
+      reversingLead: o !== null && d.supply === 'dc' && d.polarity !== outputLoads[o].polarity,
+    };
+  });
+  for (const a of assignments.filter((x) => x.reversingLead)) {
+    warnings.push(`${a.device} is ${powered.find((d) => d.id === a.deviceId)!.polarity === 'center_positive' ? 'centre-positive' : 'centre-negative'}: its lead from ${outputLoads[a.output!].label} is a polarity-reversing one; the wrong polarity can damage it.`);
+  }
+  if (!outputs.some((o) => o.isolated) && powered.some((d) => reasonOf(d) === 'digital' || d.kind === 'switcher')) {
+    warnings.push('None of the outputs is isolated: digital pedals and the switcher share one ground with the rest, a common source of hum.');
   }
 
   const totalRatingMa = outputs.reduce((s, o) => s + o.currentMa, 0);
   const totalRatingW = Math.round(outputs.reduce((s, o) => s + o.voltage * o.currentMa, 0)) / 1000;
-  const assignments: PowerAssignment[] = powered.map((d) => ({
-    device: d.name,
-    output: assignedTo.get(d) ?? null,
-    voltage: d.voltage,
-    currentMa: d.budgetMa,
-    drawFromMemory: d.drawFromMemory,
-  }));
-  const problem = unassigned.length > 0 || outputLoads.some((o) => o.flags.some((f) => !f.startsWith('Shared')));
-  const warning = unknown.length > 0 || powered.some((d) => d.polarity === 'center_positive') || outputLoads.some((o) => o.flags.length > 0);
+  const outputsUsed = onOutput.filter((d) => d.length > 0).length;
+  const problem = unassigned.length > 0 || outputLoads.some((o) => o.flags.length > 0);
+  const warning = unknown.length > 0 || assignments.some((a) => a.reversingLead);
   return {
     status: problem ? 'problem' : warning ? 'warning' : 'ok',
     supplyListed: true,
     outputs: outputLoads,
     assignments,
     unassigned,
+    fixes,
+    optimal: plan.optimal,
+    outputsUsed,
+    spareOutputs: outputs.length - outputsUsed,
+    rules,
     totalDrawMa,
     totalDrawW,
     totalRatingMa,
@@ -169,4 +186,18 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
     totalHeadroomW: Math.round((totalRatingW - totalDrawW) * 1000) / 1000,
     warnings,
   };
+}
+
+/** Why no output of the supply can take a device, in words. */
+function noOutputReason(d: RigDevice, outputs: PowerOutputInput[], rules: PowerRules): string {
+  const kind = `${d.voltage} V ${d.supply.toUpperCase()}`;
+  const matching = outputs.filter((o) => o.voltage === d.voltage && (o.supply ?? 'dc') === d.supply);
+  if (matching.length === 0) return `no ${kind} output on the supply`;
+  if (!matching.some((o) => o.currentMa >= d.budgetMa)) return `no ${kind} output is rated for its ${d.budgetMa} mA`;
+  if (d.supply === 'dc' && !matching.some((o) => outputPolarity(o) === d.polarity || o.isolated)) {
+    return `it is ${d.polarity === 'center_positive' ? 'centre-positive' : 'centre-negative'} and no ${kind} output is isolated for a reversing lead`;
+  }
+  return ownOutputReason(d, rules) !== null
+    ? `every ${kind} output that could hold it alone is taken`
+    : `every ${kind} output that could hold it is full or at the daisy-chain limit of ${rules.maxDaisyChain}`;
 }

@@ -34,6 +34,7 @@ function deviceFrom(pedal: PedalInput, listIndex: number | null, loop: number | 
     depthMm: hasFootprint ? pedal.depthMm! : typical.depthMm,
     footprintFromMemory: !hasFootprint,
     powerOutput: pedal.powerOutput ?? null,
+    digital: pedal.digital ?? (kind === 'large_digital' || kind === 'switcher' || /\bdigital\b/i.test(pedal.name)),
   };
 }
 
@@ -72,7 +73,9 @@ export function signalChainOf(config: RigConfiguration): SignalChain {
   if (listedSwitcher >= 0) {
     switcher = deviceFrom(pedals[listedSwitcher], listedSwitcher, null);
   } else {
-    switcher = deviceFrom({ name: 'Loop switcher', kind: 'switcher', powered: true, inLoop: false }, null, null);
+    // The player's own figures for a switcher they did not list as a pedal (Routing step).
+    const own = config.routing.switcher ?? {};
+    switcher = deviceFrom({ ...own, name: own.name ?? 'Loop switcher', kind: 'switcher', powered: true, inLoop: false }, null, null);
   }
   let switcherPlaced = false;
   const placeSwitcher = () => {

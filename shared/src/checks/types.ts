@@ -26,6 +26,8 @@ export interface RigDevice {
   depthMm: number;
   footprintFromMemory: boolean;
   powerOutput: number | null;
+  /** Digital (or told so by the player): wants an output of its own. */
+  digital: boolean;
 }
 
 export interface SignalChain {
@@ -72,6 +74,7 @@ export interface PowerOutputLoad {
   label: string;
   voltage: number;
   supply: 'dc' | 'ac';
+  polarity: 'center_negative' | 'center_positive';
   isolated: boolean;
   ratingMa: number;
   loadMa: number;
@@ -88,10 +91,25 @@ export interface PowerOutputLoad {
 
 export interface PowerAssignment {
   device: string;
+  deviceId: string;
   output: number | null;
   voltage: number;
   currentMa: number;
   drawFromMemory: boolean;
+  /** The player chose this output; the plan keeps it and checks it. */
+  pinned: boolean;
+  /** Why this device must not share its output (digital, high draw, reversed polarity); null when it may. */
+  ownOutputReason: string | null;
+  /** A centre-positive pedal on a centre-negative output (or the other way): needs a polarity-reversing lead. */
+  reversingLead: boolean;
+}
+
+/** The trade's limits a shop sets in its price book. */
+export interface PowerRules {
+  /** The most pedals one output may feed as a daisy chain. */
+  maxDaisyChain: number;
+  /** Above this draw a pedal gets an output of its own, analog or not. */
+  highDrawMa: number;
 }
 
 export interface PowerBudget {
@@ -99,7 +117,14 @@ export interface PowerBudget {
   supplyListed: boolean;
   outputs: PowerOutputLoad[];
   assignments: PowerAssignment[];
-  unassigned: Array<{ device: string; reason: string }>;
+  unassigned: Array<{ device: string; deviceId: string; reason: string }>;
+  /** What would make a plan possible, in words ("one more isolated output of at least 300 mA at 9 V DC, for …"). */
+  fixes: string[];
+  /** Fewest outputs proven (false only when the search gave up on a very large rig and kept its best plan). */
+  optimal: boolean;
+  outputsUsed: number;
+  spareOutputs: number;
+  rules: PowerRules;
   totalDrawMa: number;
   totalDrawW: number;
   totalRatingMa: number | null;

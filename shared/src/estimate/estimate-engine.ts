@@ -12,3 +12,4 @@ export { cableScheduleOf } from '../checks/cable-schedule';
 export { powerBudgetOf, wattsOf, ohmsOf } from '../checks/power-budget';
 export { boardFitOf, rowLayout, SPACING_MM } from '../checks/board-fit';
 export { complexityOf } from '../checks/complexity';
+export { DEFAULT_POWER_RULES, planPower, ownOutputReason } from '../checks/power-plan';

@@ -3,6 +3,7 @@ import { boardFitOf } from '../checks/board-fit';
 import { cableScheduleOf } from '../checks/cable-schedule';
 import { complexityOf } from '../checks/complexity';
 import { powerBudgetOf } from '../checks/power-budget';
+import { DEFAULT_POWER_RULES } from '../checks/power-plan';
 import { signalChainOf } from '../checks/signal-chain';
 import type { RigChecks, SignalChain } from '../checks/types';
 import { levelRank } from '../domain';
@@ -126,7 +127,7 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
 
   const chain = signalChainOf(config);
   const schedule = cableScheduleOf(chain, functions, book.materials);
-  const powerBudget = powerBudgetOf(chain, config.powerSupply?.outputs);
+  const powerBudget = powerBudgetOf(chain, config.powerSupply?.outputs, book.power ?? DEFAULT_POWER_RULES);
   const boardFit = boardFitOf(chain, surface, book.surfaces);
   const complexity = complexityOf(chain, functions);
   const checks: RigChecks = { signalChain: chain, cableSchedule: schedule, powerBudget, boardFit, complexity };
@@ -243,6 +244,7 @@ function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBoo
     );
   }
   notes.push(...powerBudget.warnings);
+  notes.push(...powerBudget.fixes.map((f) => `To power every pedal: ${f.charAt(0).toLowerCase()}${f.slice(1)}`));
   if (boardFit.status !== 'ok') notes.push(...boardFit.warnings.filter((w) => !w.includes('from memory')));
   if (checks.signalChain.loops.length > 12) {
     notes.push(`${checks.signalChain.loops.length} loops is more than most switchers have (8 to 12); check yours.`);

@@ -38,9 +38,27 @@ export const pedalInputSchema = z.object(
     supply: z.enum(['dc', 'ac'], { error: 'Supply must be dc or ac' }).optional(),
     widthMm: numberIn('Width', 10, 1500, 'mm').optional(),
     depthMm: numberIn('Depth', 10, 1500, 'mm').optional(),
+    digital: flag('Digital').optional(),
     powerOutput: numberIn('Power output', 0, MAX_SUPPLY_OUTPUTS - 1, '', true).optional(),
   },
   { error: 'Each pedal must be an object with a name' },
+);
+
+const polaritySchema = z.enum(['center_negative', 'center_positive'], { error: 'Polarity must be center_negative or center_positive' });
+
+/** The player's own loop switcher, when it is not listed among the pedals (Routing step). */
+export const switcherInputSchema = z.object(
+  {
+    name: text('Switcher name', 80).optional(),
+    currentMa: numberIn('Switcher current draw', 0, 5000, 'mA').optional(),
+    voltage: numberIn('Switcher voltage', 1, 48, 'V').optional(),
+    polarity: polaritySchema.optional(),
+    supply: z.enum(['dc', 'ac'], { error: 'Switcher supply must be dc or ac' }).optional(),
+    widthMm: numberIn('Switcher width', 10, 1500, 'mm').optional(),
+    depthMm: numberIn('Switcher depth', 10, 1500, 'mm').optional(),
+    powerOutput: numberIn('Switcher power output', 0, MAX_SUPPLY_OUTPUTS - 1, '', true).optional(),
+  },
+  { error: 'The switcher must be an object such as { "currentMa": 300 }' },
 );
 
 export const powerOutputSchema = z.object(
@@ -50,6 +68,7 @@ export const powerOutputSchema = z.object(
     currentMa: numberIn('Output current rating', 1, 10000, 'mA'),
     isolated: flag('Isolated'),
     supply: z.enum(['dc', 'ac'], { error: 'Output supply must be dc or ac' }).optional(),
+    polarity: z.enum(['center_negative', 'center_positive'], { error: 'Output polarity must be center_negative or center_positive' }).optional(),
   },
   { error: 'Each supply output must be an object with voltage, currentMa and isolated' },
 );
@@ -65,7 +84,10 @@ export const rigConfigurationSchema = z
       surfaceId: text('Surface (surfaceId)', 80),
       caseId: text('Case (caseId)', 80),
       routing: z.object(
-        { mode: z.enum(['serial', 'switcher'], { error: 'Routing mode must be serial or switcher' }) },
+        {
+          mode: z.enum(['serial', 'switcher'], { error: 'Routing mode must be serial or switcher' }),
+          switcher: switcherInputSchema.optional(),
+        },
         { error: 'Routing must be an object such as { "mode": "serial" }' },
       ),
       pedals: z
@@ -108,6 +130,16 @@ export const rigConfigurationSchema = z
       seen.add(code);
     });
     const outputs = config.powerSupply?.outputs.length ?? 0;
+    const ownSwitcher = config.routing.switcher;
+    if (ownSwitcher && config.routing.mode === 'serial') {
+      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher'], message: 'A serial board has no switcher; choose switcher routing or leave the switcher out' });
+    }
+    if (ownSwitcher?.powerOutput !== undefined && ownSwitcher.powerOutput >= outputs) {
+      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher', 'powerOutput'], message: `Power output ${ownSwitcher.powerOutput} is not one of the supply's ${outputs} outputs (numbered from 0)` });
+    }
+    if (ownSwitcher && (ownSwitcher.widthMm === undefined) !== (ownSwitcher.depthMm === undefined)) {
+      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher', ownSwitcher.widthMm === undefined ? 'widthMm' : 'depthMm'], message: 'Give both width and depth, or neither' });
+    }
     let switchers = 0;
     config.pedals?.forEach((pedal, i) => {
       if (pedal.inLoop && config.routing.mode === 'serial') {

@@ -5,7 +5,7 @@ import type { RigChecks } from '../checks/types';
 export interface RigConfiguration {
   surfaceId: string;
   caseId: string;
-  routing: { mode: RoutingMode };
+  routing: { mode: RoutingMode; switcher?: SwitcherInput };
   /** An itemized list, or … */
   pedals?: PedalInput[];
   /** … a quick count of plain powered pedals, all in series (only with serial routing). */
@@ -17,6 +17,19 @@ export interface RigConfiguration {
 }
 
 export type RoutingMode = 'serial' | 'switcher';
+
+/** The player's own loop switcher, when they did not list it among the pedals: its figures win over typical ones. */
+export interface SwitcherInput {
+  name?: string;
+  currentMa?: number;
+  voltage?: number;
+  polarity?: 'center_negative' | 'center_positive';
+  supply?: 'dc' | 'ac';
+  widthMm?: number;
+  depthMm?: number;
+  /** Index into `powerSupply.outputs` when the player pins the switcher to an output. */
+  powerOutput?: number;
+}
 
 export type PedalKind =
   | 'mini'
@@ -43,7 +56,9 @@ export interface PedalInput {
   supply?: 'dc' | 'ac';
   widthMm?: number;
   depthMm?: number;
-  /** Index into `powerSupply.outputs` when the player already knows which output feeds it. */
+  /** A digital pedal (or any with a microprocessor) wants an output of its own; large digital kinds are digital unless told otherwise. */
+  digital?: boolean;
+  /** Index into `powerSupply.outputs` when the player pins it to an output: kept by the plan and checked. */
   powerOutput?: number;
 }
 
@@ -53,6 +68,8 @@ export interface PowerOutputInput {
   currentMa: number;
   isolated: boolean;
   supply?: 'dc' | 'ac';
+  /** Barrel polarity the output delivers; supplies are centre-negative unless they say otherwise. */
+  polarity?: 'center_negative' | 'center_positive';
 }
 
 export interface EstimateLine {

@@ -7,11 +7,11 @@ import type { PriceBook } from './types';
 export const demoPriceBook: PriceBook = {
   currency: 'USD',
   surfaces: [
-    { id: 'slate-46', name: 'Slate 46 rail board', description: 'Prefab aluminium rails, room for 6 to 8 compact pedals.', widthMm: 460, depthMm: 310, price: '185.00', custom: false },
-    { id: 'slate-61', name: 'Slate 61 rail board', description: 'Prefab aluminium rails, the usual size for 9 to 12 pedals.', widthMm: 610, depthMm: 320, price: '205.00', custom: false },
-    { id: 'ridge-81', name: 'Ridge 81 tiered board', description: 'Prefab two-tier board, a switcher at the front and pedals behind.', widthMm: 810, depthMm: 410, price: '235.00', custom: false },
-    { id: 'ridge-100', name: 'Ridge 100 tiered board', description: 'Prefab two-tier board for a full touring rig.', widthMm: 1000, depthMm: 460, price: '265.00', custom: false },
-    { id: 'custom-ash', name: 'Made-to-measure ash surface', description: 'Hand-made hardwood surface cut to your layout, sealed and finished.', widthMm: 810, depthMm: 410, price: '520.00', custom: true },
+    { id: 'slate-46', name: 'Slate 46 rail board', description: 'Prefab aluminium rails, room for 6 to 8 compact pedals.', widthMm: 460, depthMm: 310, price: '185.00', custom: false, layout: { rows: 2, tiered: false, switcherRow: 'front' } },
+    { id: 'slate-61', name: 'Slate 61 rail board', description: 'Prefab aluminium rails, the usual size for 9 to 12 pedals.', widthMm: 610, depthMm: 320, price: '205.00', custom: false, layout: { rows: 2, tiered: false, switcherRow: 'front' } },
+    { id: 'ridge-81', name: 'Ridge 81 tiered board', description: 'Prefab two-tier board, a switcher at the front and pedals behind.', widthMm: 810, depthMm: 410, price: '235.00', custom: false, layout: { rows: 2, tiered: true, switcherRow: 'front' } },
+    { id: 'ridge-100', name: 'Ridge 100 tiered board', description: 'Prefab two-tier board for a full touring rig.', widthMm: 1000, depthMm: 460, price: '265.00', custom: false, layout: { rows: 3, tiered: true, switcherRow: 'front' } },
+    { id: 'custom-ash', name: 'Made-to-measure ash surface', description: 'Hand-made hardwood surface cut to your layout, sealed and finished.', widthMm: 810, depthMm: 410, price: '520.00', custom: true, layout: { rows: 3, tiered: false, switcherRow: 'front' } },
   ],
   cases: [
     { id: 'shell-hard', name: 'Shell hard case', kind: 'hard_case', description: 'Moulded shell with foam lining and latches.', price: '255.00', notRecommended: false, caution: null, fitsSurfaceIds: [] },
@@ -55,6 +55,7 @@ export const demoPriceBook: PriceBook = {
     { id: 'lvl-journeyman', code: 'journeyman', name: 'Journeyman', description: 'Serial and switcher boards, most functions.', rateLow: '80.00', rateHigh: '100.00' },
     { id: 'lvl-master', code: 'master', name: 'Master', description: 'Full switcher rigs, wet/dry/wet and anything unusual.', rateLow: '100.00', rateHigh: '150.00' },
   ],
+  power: { maxDaisyChain: 3, highDrawMa: 100 },
   depositPolicy: {
     percent: '25',
     minimum: '100.00',

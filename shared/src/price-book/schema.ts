@@ -48,6 +48,16 @@ export const priceBookSchema = z
             depthMm: wholeIn('Surface usable depth (mm)', 100, 2000),
             price: decimalText('Surface price', 100000),
             custom: z.boolean({ error: 'Surface custom must be true or false' }),
+            layout: z
+              .object(
+                {
+                  rows: wholeIn('Surface rows (tiers)', 1, 6),
+                  tiered: z.boolean({ error: 'Surface tiered must be true or false' }),
+                  switcherRow: z.enum(['front', 'back'], { error: 'Surface switcher row must be front or back' }),
+                },
+                { error: 'Surface layout must be an object { rows, tiered, switcherRow }' },
+              )
+              .optional(),
           }),
           { error: 'Surfaces must be a list' },
         )
@@ -131,6 +141,15 @@ export const priceBookSchema = z
         },
         { error: 'Deposit policy must be an object' },
       ),
+      power: z
+        .object(
+          {
+            maxDaisyChain: wholeIn('Most pedals on one output (daisy chain)', 1, 10),
+            highDrawMa: wholeIn('High-draw mark (mA)', 10, 2000),
+          },
+          { error: 'Power rules must be an object { maxDaisyChain, highDrawMa }' },
+        )
+        .optional(),
     },
     { error: 'The price book must be a JSON object' },
   )

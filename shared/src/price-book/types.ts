@@ -1,4 +1,5 @@
 import type { BuilderLevel } from '../domain';
+import type { PowerRules } from '../checks/types';
 
 /**
  * A shop's price book as published. Every amount is a decimal string (never a float); every item
@@ -13,6 +14,17 @@ export interface PriceBook {
   functions: FunctionItem[];
   levels: LevelItem[];
   depositPolicy: DepositPolicy;
+  /** Daisy-chain limit and high-draw mark for the power plan; absent means the defaults (DEFAULT_POWER_RULES). */
+  power?: PowerRules;
+}
+
+/** How a surface is laid out: its rows (tiers on a tiered board) and where its description puts the switcher. */
+export interface SurfaceLayout {
+  /** Rows of pedals, front to back; on a tiered board, its tiers. */
+  rows: number;
+  tiered: boolean;
+  /** Where the loop switcher and treadles sit: the front row (the player's side) or the back. */
+  switcherRow: 'front' | 'back';
 }
 
 export interface SurfaceItem {
@@ -24,6 +36,8 @@ export interface SurfaceItem {
   depthMm: number;
   price: string;
   custom: boolean;
+  /** Absent: rows are worked out from the depth, switcher at the front. */
+  layout?: SurfaceLayout;
 }
 
 export type CaseKind = 'hard_case' | 'road_case' | 'soft_bag';
@@ -107,6 +121,7 @@ export interface Catalog {
   depositPolicy: DepositPolicy;
   materials: MaterialsRates;
   labor: LaborRates;
+  power?: PowerRules;
 }
 
 /** One published version, as listed in the backoffice. */

@@ -13,7 +13,7 @@ import Typography from '@mui/joy/Typography';
 import { useId, useState } from 'react';
 import { Controller, type FieldError, type UseFormReturn } from 'react-hook-form';
 import { typicalHardware, type PedalKind } from '@loomwright/shared';
-import { optionalNumber, type PedalForm } from '../lib/pedal-form';
+import { optionalNumber, outputName, type PedalForm } from '../lib/pedal-form';
 import { ArrowDownIcon, ArrowUpIcon, RemoveIcon } from './icons';
 
 /** The switcher is chosen on the Routing step, so it is not offered as a pedal kind here. */
@@ -39,6 +39,7 @@ export function PedalRow({
   const id = useId();
   const { register, control, watch, formState } = form;
   const pedal = watch(`pedals.${index}`);
+  const outputs = watch('outputs') ?? [];
   const errors = formState.errors.pedals?.[index];
   const hasErrors = !!errors && Object.keys(errors).length > 0;
   const typical = typicalHardware[pedal?.kind ?? 'other'];
@@ -49,6 +50,7 @@ export function PedalRow({
     pedal?.powered ? `${pedal.voltage ?? 9} V ${pedal.supply === 'ac' ? 'AC' : 'DC'}` : 'no power',
     pedal?.powered ? (pedal.currentMa !== undefined ? `${pedal.currentMa} mA` : 'draw not given') : null,
     pedal?.widthMm && pedal?.depthMm ? `${pedal.widthMm} × ${pedal.depthMm} mm` : null,
+    pedal?.powered && pedal.powerOutput !== undefined && outputs[pedal.powerOutput] ? `pinned to ${outputs[pedal.powerOutput].label || `output ${pedal.powerOutput + 1}`}` : null,
   ]
     .filter(Boolean)
     .join(' · ');
@@ -187,6 +189,42 @@ export function PedalRow({
               </Select>
             )}
           />
+        </FormControl>
+        <Controller
+          control={control}
+          name={`pedals.${index}.digital`}
+          render={({ field }) => (
+            <Checkbox
+              label="Digital (wants an output of its own)"
+              checked={field.value ?? pedal?.kind === 'large_digital'}
+              onChange={(e) => field.onChange(e.target.checked)}
+              onBlur={field.onBlur}
+              sx={{ alignSelf: 'end', pb: 1 }}
+            />
+          )}
+        />
+        <FormControl sx={{ gridColumn: { sm: 'span 2' } }}>
+          <FormLabel>Supply output</FormLabel>
+          <Controller
+            control={control}
+            name={`pedals.${index}.powerOutput`}
+            render={({ field }) => (
+              <Select
+                value={field.value ?? -1}
+                onChange={(_, v) => field.onChange(v === null || v === -1 ? undefined : v)}
+                disabled={!pedal?.powered || outputs.length === 0}
+                slotProps={{ button: { 'aria-label': `Supply output for ${name}` } }}
+              >
+                <Option value={-1}>{outputs.length ? 'Let the plan choose' : 'List your supply below first'}</Option>
+                {outputs.map((o, i) => (
+                  <Option key={i} value={i}>
+                    {outputName(o, i)}
+                  </Option>
+                ))}
+              </Select>
+            )}
+          />
+          <FormHelperText>Pin it to an output you already use for it; the plan keeps your choice and checks it.</FormHelperText>
         </FormControl>
         {numberField('widthMm', 'Width (mm)', String(typical.widthMm), errors?.widthMm)}
         {numberField('depthMm', 'Depth (mm)', String(typical.depthMm), errors?.depthMm)}

@@ -42,11 +42,28 @@ export function formFromConfiguration(c: RigConfiguration): PedalForm {
   };
 }
 
+/** "Output 2 · 9 V DC, 500 mA, isolated": how an output is named in pickers. */
+export function outputName(o: Partial<PowerOutputInput>, index: number): string {
+  const figures = [o.voltage !== undefined ? `${o.voltage} V ${(o.supply ?? 'dc').toUpperCase()}` : null, o.currentMa !== undefined ? `${o.currentMa} mA` : null, o.isolated ? 'isolated' : null]
+    .filter(Boolean)
+    .join(', ');
+  return `${o.label || `Output ${index + 1}`}${figures ? ` · ${figures}` : ''}`;
+}
+
+/** A pin to an output the supply no longer has is dropped: the plan chooses again. */
+const keepPin = <T extends { powerOutput?: number }>(item: T, outputs: number): T => {
+  if (item.powerOutput === undefined || item.powerOutput < outputs) return item;
+  const { powerOutput: _dropped, ...rest } = item;
+  return rest as T;
+};
+
 /** Writes a valid form back into the configuration (dropping empty optional figures). */
 export function applyForm(c: RigConfiguration, form: PedalForm): RigConfiguration {
   const next: RigConfiguration = { ...c };
+  const outputs = form.outputs.length;
+  if (c.routing.switcher) next.routing = { ...c.routing, switcher: keepPin(c.routing.switcher, outputs) };
   if (form.mode === 'list') {
-    next.pedals = form.pedals.map(cleanPedal);
+    next.pedals = form.pedals.map((p) => keepPin(cleanPedal(p), outputs));
     delete next.pedalCount;
   } else {
     next.pedalCount = form.pedalCount;

@@ -7,6 +7,7 @@ import { ChoiceCards } from '../ChoiceCards';
 import { InfoIcon } from '../icons';
 import { StepHeading } from '../StepHeading';
 import { pedalsFromCount } from '../../lib/configuration';
+import { SwitcherPowerFields } from '../SwitcherPowerFields';
 import type { StepProps } from './step-props';
 
 export default function RoutingStep({ configuration, update, goToStep, live }: StepProps) {
@@ -18,11 +19,11 @@ export default function RoutingStep({ configuration, update, goToStep, live }: S
     update((c) => {
       if (mode === 'switcher') {
         const list = c.pedals ?? pedalsFromCount(c.pedalCount ?? 0);
-        const next = { ...c, routing: { mode: 'switcher' as const }, pedals: list };
+        const next = { ...c, routing: { ...c.routing, mode: 'switcher' as const }, pedals: list };
         delete next.pedalCount;
         return next;
       }
-      // A serial board has no loops, so nobody stays "in a loop".
+      // A serial board has no loops, so nobody stays "in a loop", and no switcher.
       return { ...c, routing: { mode: 'serial' as const }, pedals: c.pedals?.map((p) => ({ ...p, inLoop: false })) };
     });
 
@@ -89,6 +90,7 @@ export default function RoutingStep({ configuration, update, goToStep, live }: S
           ) : null}
         </Box>
       ) : null}
+      {switcher && !pedals.some((p) => p.kind === 'switcher') ? <SwitcherPowerFields configuration={configuration} update={update} /> : null}
       {live.estimate?.checks?.cableSchedule ? (
         <Typography level="body-sm" sx={{ mt: 3, fontVariantNumeric: 'tabular-nums' }}>
           This routing takes {live.estimate.checks.cableSchedule.patchCount} patch cables ({live.estimate.checks.cableSchedule.plugCount} plugs,
