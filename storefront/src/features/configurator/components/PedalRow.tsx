@@ -116,7 +116,7 @@ export function PedalRow({
       <Box
         id={`${id}-fields`}
         hidden={!open}
-        sx={{ display: open ? 'grid' : 'none', gap: 1.5, gridTemplateColumns: { xs: '1fr', sm: 'repeat(2, minmax(0, 1fr))', lg: 'repeat(4, minmax(0, 1fr))' } }}
+        sx={{ display: open ? 'grid' : 'none', gap: 1.5, gridTemplateColumns: { xs: 'minmax(0, 1fr)', sm: 'repeat(2, minmax(0, 1fr))', lg: 'repeat(4, minmax(0, 1fr))' }, '& .MuiSelect-root, & .MuiInput-root': { minWidth: 0 } }}
       >
         <FormControl error={!!errors?.name} sx={{ gridColumn: { sm: 'span 2' } }}>
           <FormLabel>Name or type</FormLabel>

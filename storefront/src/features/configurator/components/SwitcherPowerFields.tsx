@@ -57,7 +57,7 @@ export function SwitcherPowerFields({
         A switcher is digital, so it gets a supply output of its own. Its label or manual gives its draw; without it we plan
         {` ${typicalHardware.switcher.currentMa} mA`} (a typical figure, from memory).
       </Typography>
-      <Box sx={{ display: 'grid', gap: 1.5, gridTemplateColumns: { xs: '1fr 1fr', md: 'repeat(3, minmax(0, 1fr))' }, maxWidth: 720 }}>
+      <Box sx={{ display: 'grid', gap: 1.5, gridTemplateColumns: { xs: 'minmax(0, 1fr)', sm: 'repeat(2, minmax(0, 1fr))', md: 'repeat(3, minmax(0, 1fr))' }, maxWidth: 720, '& .MuiSelect-root, & .MuiInput-root': { minWidth: 0 } }}>
         <FormControl error={!!errors.currentMa}>
           <FormLabel>Switcher draw (mA)</FormLabel>
           <Input
@@ -74,7 +74,7 @@ export function SwitcherPowerFields({
           <Input type="number" value={text.voltage} placeholder="9" onChange={(e) => change('voltage', e.target.value)} slotProps={{ input: { inputMode: 'decimal' } }} />
           {errors.voltage ? <FormHelperText>{errors.voltage}</FormHelperText> : null}
         </FormControl>
-        <FormControl sx={{ gridColumn: { xs: '1 / -1', md: 'auto' } }}>
+        <FormControl sx={{ gridColumn: { sm: '1 / -1', md: 'auto' }, minWidth: 0 }}>
           <FormLabel>Supply output</FormLabel>
           <Select
             value={own.powerOutput ?? -1}
