@@ -145,7 +145,8 @@ describe('accepting a build, its firm quote and its way through the bench', () =
 
     await master.post(`/api/bookings/${b.id}/layout/request`).send({ note: 'Delay moved next to the tuner.' }).expect(200);
     expect((await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' })).body.message).toMatch(/waiting for the player's layout approval/);
-    expect((await cass.post(`/api/bookings/${b.id}/layout/approve`).send({})).status).toBe(403);
+    // Another player's booking is simply not there for them.
+    expect((await cass.post(`/api/bookings/${b.id}/layout/approve`).send({})).status).toBe(404);
     await player.post(`/api/bookings/${b.id}/layout/approve`).send({}).expect(200);
 
     const extra = await owner.post(`/api/bookings/${b.id}/extras`).send({ description: 'Extra buffer', amount: '35.00', reason: 'Long cable run to the amp' }).expect(201);
@@ -164,11 +165,11 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'ready', note: 'Every path and preset tested.' }).expect(200);
     const balanceMail = await t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', b.id).where('template', '=', 'balance-requested').executeTakeFirstOrThrow();
     // Hand-worked: $125.00 × 2 h + $100.00 materials = $350.00; + $35.00 approved extra − $50.00 deposit = $335.00.
-    expect(balanceMail.data).toMatchObject({ firmTotal: '350.00', extras: '35.00', depositPaid: '50.00', balanceDue: '335.00' });
+    expect(balanceMail.data).toMatchObject({ firmTotal: '350.00', extras: '35.00', paidSoFar: '50.00', balanceDue: '335.00' });
 
     const early = await master.post(`/api/bookings/${b.id}/state`).send({ to: 'delivered' });
     expect(early.status).toBe(409);
-    expect(early.body.message).toMatch(/balance of 335.00 USD is not paid yet/);
+    expect(early.body.message).toMatch(/still has a balance of \$335\.00 to pay/);
     expect((await master.post(`/api/bookings/${b.id}/waive-balance`).send({ reason: 'Paid cash' })).status).toBe(403);
     await owner.post(`/api/bookings/${b.id}/waive-balance`).send({ reason: 'Paid in cash at collection.' }).expect(200);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'delivered' }).expect(200);

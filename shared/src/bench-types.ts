@@ -123,6 +123,8 @@ export const benchTransitions: Record<BenchState, BenchState[]> = {
 export interface ChangeStateRequest {
   to: BenchState;
   note?: string;
+  /** Tell the player the note (by e-mail and on their page); otherwise it stays internal. */
+  tellPlayer?: boolean;
 }
 
 export interface BookingStateResponse {
@@ -138,6 +140,9 @@ export interface TimeEntryView {
   hours: number;
   note: string;
   createdAt: string;
+  updatedAt: string | null;
+  /** Who wrote the entry (null for entries older than authorship); they and the owner may correct it. */
+  recordedBy: { id: string; name: string } | null;
 }
 
 export interface TimeEntriesResponse {
@@ -149,11 +154,29 @@ export interface TimeEntriesResponse {
 
 export interface IntakeItemView {
   id: string;
+  /** The item's place in the rig: 'chain:<n>', 'switcher', 'supply' or 'other:<name>'. */
+  key: string;
   item: string;
   condition: 'working' | 'faulty';
   note: string;
   recordedBy: string;
   createdAt: string;
+  updatedAt: string | null;
+}
+
+/** How a decision reached the shop: the player in the app, or staff recording it. */
+export type DecidedVia = 'app' | 'phone' | 'in_person' | 'email';
+
+/** Who decided, and how: shown in the history and beside the extra or layout. */
+export interface DecisionView {
+  approved: boolean;
+  via: DecidedVia;
+  /** The person who gave the answer (the player, or whom staff spoke to). */
+  givenBy: string;
+  /** The staff member who recorded it, when it was not the player in the app. */
+  recordedBy: string | null;
+  comment: string;
+  at: string;
 }
 
 export interface ExtraView {
@@ -163,6 +186,17 @@ export interface ExtraView {
   reason: string;
   status: 'proposed' | 'approved' | 'declined';
   decidedAt: string | null;
+  decision: DecisionView | null;
+  createdAt: string;
+}
+
+export interface LayoutApprovalView {
+  id: string;
+  status: 'waiting' | 'approved' | 'declined';
+  /** The builder's words to the player with the top view. */
+  message: string;
+  requestedBy: string | null;
+  decision: DecisionView | null;
   createdAt: string;
 }
 

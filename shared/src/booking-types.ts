@@ -1,5 +1,7 @@
 import type { BookingState, BuilderLevel } from './domain';
-import type { EstimateResult, RigConfiguration } from './estimate/types';
+import type { ExtraView, LayoutApprovalView } from './bench-types';
+import type { EstimateLine, EstimateResult, RigConfiguration } from './estimate/types';
+import type { MoneyFacts } from './money/money-facts';
 
 /** A page of a server-side paginated list: ?page=1&pageSize=25&sort=created_at&order=desc. */
 export interface Page<T> {
@@ -55,6 +57,11 @@ export interface QuoteView {
   priceBookVersion: number;
   currency: string;
   estimate: EstimateResult;
+  /**
+   * The lines to show: an estimate's as priced (labor as a range); a firm quote's with labor at
+   * the builder's one rate, so they add up to `total` to the cent.
+   */
+  lines: EstimateLine[];
   laborHours: string;
   totalLow: string;
   totalHigh: string;
@@ -80,6 +87,8 @@ export interface PaymentView {
 
 export interface BookingEventView {
   id: string;
+  /** 'player': the player reads it; 'internal': staff only (never sent to the player's view). */
+  visibility: 'player' | 'internal';
   fromState: BookingState | null;
   toState: BookingState;
   actor: string;
@@ -114,6 +123,12 @@ export interface BookingDetail extends BookingSummary {
   awaitingLayoutApproval: boolean;
   declineReason: string | null;
   cancelReason: string | null;
-  /** Firm total + approved extras − deposit paid, once a firm quote exists. */
+  /** Firm total + approved extras − net payments (never below zero), once a firm quote exists; `money.balanceDue`. */
   balanceDue: string | null;
+  /** Extras the shop proposed, with the player's decision. */
+  extras: ExtraView[];
+  /** Layouts sent for the player's approval, newest last. */
+  layoutApprovals: LayoutApprovalView[];
+  /** Every money figure of the booking, from the one function both apps, the mails and the build sheet read. */
+  money: MoneyFacts;
 }

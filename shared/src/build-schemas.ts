@@ -17,11 +17,15 @@ export const declineBookingSchema = requestObject({
 });
 export type DeclineBookingInput = z.infer<typeof declineBookingSchema>;
 
-/** POST /api/bookings/:id/state: move a build on; the note goes on its history. */
+/**
+ * POST /api/bookings/:id/state: move a build on. The note stays internal unless `tellPlayer`:
+ * then the player reads it on their page and in the status e-mail, word for word.
+ */
 export const changeStateSchema = requestObject({
   to: oneOf('to', benchStates),
   note: text('note', { max: 1000 }).optional(),
-});
+  tellPlayer: flag('tellPlayer').optional(),
+}).refine((v) => !v.tellPlayer || !!v.note, { error: 'note must hold the words the player should read, or leave "tell the player" off', path: ['note'] });
 export type ChangeStateInput = z.infer<typeof changeStateSchema>;
 
 /** POST /api/bookings/:id/waive-balance. */
@@ -43,6 +47,14 @@ export const timeEntrySchema = requestObject({
 });
 export type TimeEntryInput = z.infer<typeof timeEntrySchema>;
 
+/** PATCH /api/bookings/:id/time-entries/:entryId: what changes, at least one field. */
+export const editTimeEntrySchema = requestObject({
+  workedOn: calendarDay('workedOn').optional(),
+  hours: workedHoursField.optional(),
+  note: text('note', { max: 1000 }).optional(),
+}).refine((v) => v.workedOn !== undefined || v.hours !== undefined || v.note !== undefined, { error: 'Say what to change: workedOn, hours or note' });
+export type EditTimeEntryInput = z.infer<typeof editTimeEntrySchema>;
+
 /** The backoffice's hours form: the hours typed as text, then the same rule as the API. */
 export const timeEntryFormSchema = z.object({
   workedOn: calendarDay('workedOn'),
@@ -54,17 +66,17 @@ export type TimeEntryFormOutput = z.output<typeof timeEntryFormSchema>;
 
 export const intakeConditions = ['working', 'faulty'] as const;
 
-/** POST /api/bookings/:id/intake: each pedal or part as it arrived. */
+/** One pedal or part as it arrived: a faulty one says what is wrong. */
+export const intakeItemSchema = requestObject({
+  item: text('item', { max: 200, min: 1, tooShort: 'item must name the pedal or part' }),
+  condition: oneOf('condition', intakeConditions),
+  note: text('note', { max: 1000 }).optional(),
+}).refine((i) => i.condition !== 'faulty' || !!i.note, { error: 'note must say what is wrong with a faulty item', path: ['note'] });
+
+/** POST /api/bookings/:id/intake: each item once; recording the same item again corrects it. */
 export const recordIntakeSchema = requestObject({
   items: z
-    .array(
-      requestObject({
-        item: text('item', { max: 200, min: 1, tooShort: 'item must name the pedal or part' }),
-        condition: oneOf('condition', intakeConditions),
-        note: text('note', { max: 1000 }).optional(),
-      }),
-      { error: 'items must be a list' },
-    )
+    .array(intakeItemSchema, { error: 'items must be a list' })
     .min(1, { error: 'items must list at least one pedal or part' })
     .max(200, { error: 'items must list at most 200 pedals or parts' }),
 });
@@ -78,10 +90,69 @@ export const proposeExtraSchema = requestObject({
 });
 export type ProposeExtraInput = z.infer<typeof proposeExtraSchema>;
 
-/** POST /api/bookings/:id/extras/:extraId/decision. */
-export const decideExtraSchema = requestObject({ approve: flag('approve') });
-export type DecideExtraInput = z.infer<typeof decideExtraSchema>;
+/** PATCH /api/bookings/:id/intake/:itemId: corrects one recorded item. */
+export const editIntakeItemSchema = intakeItemSchema;
+export type EditIntakeItemInput = z.infer<typeof editIntakeItemSchema>;
 
-/** POST /api/bookings/:id/layout/request and /layout/approve: an optional word about the layout. */
+/** The player's answer (an extra or a layout), in the app: yes or no, with an optional comment. */
+export const decideExtraSchema = requestObject({
+  approve: flag('approve'),
+  comment: text('comment', { max: 1000 }).optional(),
+});
+export type DecideExtraInput = z.infer<typeof decideExtraSchema>;
+export const playerDecisionSchema = decideExtraSchema;
+export type PlayerDecisionInput = DecideExtraInput;
+
+/** How the shop heard an answer it records for the player. */
+export const recordedViaValues = ['phone', 'in_person', 'email'] as const;
+export type RecordedVia = (typeof recordedViaValues)[number];
+export const decidedViaWords: Record<RecordedVia | 'app', string> = {
+  app: 'in the app',
+  phone: 'by phone',
+  in_person: 'in person',
+  email: 'by e-mail',
+};
+
+/** Staff record the player's answer given by phone, in person or by e-mail: who gave it and how. */
+export const recordedDecisionSchema = requestObject({
+  approve: flag('approve'),
+  via: oneOf('via', recordedViaValues),
+  givenBy: text('givenBy', { max: 200, min: 2, tooShort: 'givenBy must name who gave the answer' }),
+  comment: text('comment', { max: 1000 }).optional(),
+});
+export type RecordedDecisionInput = z.infer<typeof recordedDecisionSchema>;
+
+/** POST /api/bookings/:id/layout/approve: an optional word about the layout. */
 export const layoutNoteSchema = requestObject({ note: text('note', { max: 1000 }).optional() });
 export type LayoutNoteInput = z.infer<typeof layoutNoteSchema>;
+
+/** POST /api/bookings/:id/layout/request: the builder's words to the player with the top view (`note` is the older name). */
+export const layoutRequestSchema = requestObject({
+  message: text('message', { max: 1000 }).optional(),
+  note: text('note', { max: 1000 }).optional(),
+});
+export type LayoutRequestInput = z.infer<typeof layoutRequestSchema>;
+
+/** POST /api/bookings/:id/notes: a staff note, internal unless the writer tells the player. */
+export const staffNoteSchema = requestObject({
+  note: text('note', { max: 2000, min: 1, tooShort: 'note must hold the words to keep' }),
+  tellPlayer: flag('tellPlayer').optional(),
+});
+export type StaffNoteInput = z.infer<typeof staffNoteSchema>;
+
+/** How the shop took a payment itself. */
+export const counterPaymentMethods = ['cash', 'card_terminal', 'bank_transfer'] as const;
+export const paymentMethodWords: Record<(typeof counterPaymentMethods)[number] | 'checkout', string> = {
+  checkout: 'online checkout',
+  cash: 'cash',
+  card_terminal: 'card at the counter',
+  bank_transfer: 'bank transfer',
+};
+
+/** POST /api/bookings/:id/balance/record: the whole balance, taken in person. */
+export const recordBalanceSchema = requestObject({
+  amount: positiveAmount('amount', 10, '345.00'),
+  method: oneOf('method', counterPaymentMethods),
+  note: text('note', { max: 1000 }).optional(),
+});
+export type RecordBalanceInput = z.infer<typeof recordBalanceSchema>;

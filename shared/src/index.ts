@@ -16,3 +16,5 @@ export * from './mail-types';
 export * from './request-fields';
 export * from './team-schemas';
 export * from './build-schemas';
+export * from './money';
+export * from './intake-checklist';

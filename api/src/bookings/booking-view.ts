@@ -4,12 +4,17 @@ import type {
   BookingState,
   BookingSummary,
   BuilderLevel,
+  DecisionView,
+  ExtraView,
+  LayoutApprovalView,
+  MoneyFacts,
   PaymentView,
   PhotoView,
   QuoteView,
   RigConfiguration,
 } from '@loomwright/shared';
-import type { BookingEventRow, BookingListRow, PaymentRow, PhotoRow, QuoteRow } from './bookings.repository';
+import { firmQuoteLines } from '@loomwright/shared';
+import type { BookingEventRow, BookingListRow, ExtraRow, LayoutApprovalRow, PaymentRow, PhotoRow, QuoteRow } from './bookings.repository';
 
 // Timestamps arrive as Date from pg; the Generated<ColumnType> wrapper hides that from the type.
 const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
@@ -33,12 +38,15 @@ export function summaryLine(config: RigConfiguration): string {
 }
 
 export function quoteView(row: QuoteRow): QuoteView {
+  const currency = row.currency.trim();
+  const firm = row.kind === 'firm' && row.hourly_rate !== null && row.labor_total !== null;
   return {
     id: row.id,
     kind: row.kind,
     priceBookVersion: row.price_book_version,
-    currency: row.currency.trim(),
+    currency,
     estimate: row.estimate,
+    lines: firm ? firmQuoteLines(row.estimate.lines, row.hourly_rate!, row.labor_total!, currency) : row.estimate.lines,
     laborHours: row.labor_hours,
     totalLow: row.total_low,
     totalHigh: row.total_high,
@@ -70,9 +78,49 @@ export function eventView(row: BookingEventRow): BookingEventView {
     id: String(row.id),
     fromState: row.from_state as BookingState | null,
     toState: row.to_state as BookingState,
+    visibility: row.visibility,
     actor: row.actor_label,
     note: row.note,
     at: iso(row.created_at),
+  };
+}
+
+function decisionView(
+  row: { decided_at: unknown; decided_via: DecisionView['via'] | null; decided_by_name: string | null; decision_comment: string; recorded_by_name: string | null },
+  approved: boolean,
+): DecisionView | null {
+  if (!row.decided_at || !row.decided_via) return null;
+  return {
+    approved,
+    via: row.decided_via,
+    givenBy: row.decided_by_name ?? '',
+    recordedBy: row.recorded_by_name,
+    comment: row.decision_comment,
+    at: iso(row.decided_at),
+  };
+}
+
+export function extraView(row: ExtraRow): ExtraView {
+  return {
+    id: row.id,
+    description: row.description,
+    amount: row.amount,
+    reason: row.reason,
+    status: row.status,
+    decidedAt: row.decided_at ? iso(row.decided_at) : null,
+    decision: decisionView(row, row.status === 'approved'),
+    createdAt: iso(row.created_at),
+  };
+}
+
+export function layoutApprovalView(row: LayoutApprovalRow): LayoutApprovalView {
+  return {
+    id: row.id,
+    status: row.status,
+    message: row.message,
+    requestedBy: row.requested_by_name,
+    decision: decisionView(row, row.status === 'approved'),
+    createdAt: iso(row.created_at),
   };
 }
 
@@ -129,7 +177,7 @@ export function summaryView(row: BookingListRow, quotes: QuoteRow[]): BookingSum
 
 export function detailView(
   row: BookingListRow,
-  parts: { quotes: QuoteRow[]; payments: PaymentRow[]; events: BookingEventRow[]; photos: PhotoRow[]; balanceDue: string | null },
+  parts: { quotes: QuoteRow[]; payments: PaymentRow[]; events: BookingEventRow[]; photos: PhotoRow[]; extras: ExtraRow[]; layoutApprovals: LayoutApprovalRow[]; money: MoneyFacts },
 ): BookingDetail {
   const { estimate, firm } = pickQuotes(parts.quotes);
   if (!estimate) throw new Error(`booking ${row.id} has no estimate quote`);
@@ -146,6 +194,14 @@ export function detailView(
     awaitingLayoutApproval: row.awaiting_layout_approval,
     declineReason: row.decline_reason,
     cancelReason: row.cancel_reason,
-    balanceDue: parts.balanceDue,
+    balanceDue: parts.money.balanceDue,
+    extras: parts.extras.map(extraView),
+    layoutApprovals: parts.layoutApprovals.map(layoutApprovalView),
+    money: parts.money,
   };
+}
+
+/** What the player's own answer holds: the same booking without the shop's internal history lines. */
+export function playerView(detail: BookingDetail): BookingDetail {
+  return { ...detail, events: detail.events.filter((e) => e.visibility === 'player') };
 }

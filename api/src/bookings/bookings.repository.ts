@@ -2,8 +2,10 @@ import { Injectable } from '@nestjs/common';
 import { sql, type Insertable, type Selectable, type Updateable } from 'kysely';
 import type {
   BookingEventsTable,
+  BookingExtrasTable,
   BookingsTable,
   Executor,
+  LayoutApprovalsTable,
   PaymentsTable,
   PhotosTable,
   QuotesTable,
@@ -15,6 +17,8 @@ export type QuoteRow = Selectable<QuotesTable>;
 export type PaymentRow = Selectable<PaymentsTable>;
 export type BookingEventRow = Selectable<BookingEventsTable>;
 export type PhotoRow = Selectable<PhotosTable>;
+export type ExtraRow = Selectable<BookingExtrasTable> & { recorded_by_name: string | null };
+export type LayoutApprovalRow = Selectable<LayoutApprovalsTable> & { recorded_by_name: string | null; requested_by_name: string | null };
 
 export interface BookingListRow extends BookingRow {
   customer_name: string;
@@ -159,14 +163,29 @@ export class BookingsRepository {
     return trx.selectFrom('photos').selectAll().where('booking_id', '=', bookingId).orderBy('created_at').execute();
   }
 
-  async approvedExtrasTotal(bookingId: string, trx: Executor = this.db): Promise<string> {
-    const row = await trx
-      .selectFrom('booking_extras')
-      .select(sql<string>`coalesce(sum(amount), 0)::text`.as('total'))
-      .where('booking_id', '=', bookingId)
-      .where('status', '=', 'approved')
-      .executeTakeFirstOrThrow();
-    return row.total;
+  extrasFor(bookingId: string, trx: Executor = this.db): Promise<ExtraRow[]> {
+    return trx
+      .selectFrom('booking_extras as x')
+      .leftJoin('users as r', 'r.id', 'x.recorded_by')
+      .selectAll('x')
+      .select('r.name as recorded_by_name')
+      .where('x.booking_id', '=', bookingId)
+      .orderBy('x.created_at')
+      .orderBy('x.id')
+      .execute();
+  }
+
+  layoutApprovalsFor(bookingId: string, trx: Executor = this.db): Promise<LayoutApprovalRow[]> {
+    return trx
+      .selectFrom('layout_approvals as l')
+      .leftJoin('users as r', 'r.id', 'l.recorded_by')
+      .leftJoin('users as q', 'q.id', 'l.requested_by')
+      .selectAll('l')
+      .select(['r.name as recorded_by_name', 'q.name as requested_by_name'])
+      .where('l.booking_id', '=', bookingId)
+      .orderBy('l.created_at')
+      .orderBy('l.id')
+      .execute();
   }
 
   countPhotos(trx: Executor, bookingId: string) {

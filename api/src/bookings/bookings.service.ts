@@ -1,11 +1,10 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import type { AuthUser, BookingDetail, BookingState, BookingSummary, CreateBookingInput, ListBookingsQuery, Page, RigConfiguration, ShipmentInput } from '@loomwright/shared';
-import { bookingStateLabels, staffRoles } from '@loomwright/shared';
-import Decimal from 'decimal.js';
+import { bookingStateLabels, moneyFacts, staffRoles, type MoneyFacts } from '@loomwright/shared';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
-import { detailView, summaryView } from './booking-view';
-import { BookingsRepository, type BookingRow } from './bookings.repository';
+import { detailView, pickQuotes, playerView, summaryView } from './booking-view';
+import { BookingsRepository, type BookingRow, type ExtraRow, type PaymentRow, type QuoteRow } from './bookings.repository';
 import { QuotePricer } from './quote-pricer';
 
 /** Who made a change, as the timeline shows it. `id` is null for the system (e.g. a webhook). */
@@ -110,20 +109,26 @@ export class BookingsService {
   async getDetail(id: string, trx: Executor = this.db): Promise<BookingDetail> {
     const row = await this.bookings.findListRow(id, trx);
     if (!row) throw new NotFoundException(`There is no booking ${id}.`);
-    const [quotes, payments, events, photos] = await Promise.all([
+    const [quotes, payments, events, photos, extras, layoutApprovals] = await Promise.all([
       this.bookings.quotesFor([id], trx),
       this.bookings.paymentsFor(id, trx),
       this.bookings.eventsFor(id, trx),
       this.bookings.photosFor(id, trx),
+      this.bookings.extrasFor(id, trx),
+      this.bookings.layoutApprovalsFor(id, trx),
     ]);
-    const balanceDue = await this.balanceDue(id, trx);
-    return detailView(row, { quotes, payments, events, photos, balanceDue });
+    const money = this.factsOf(row, quotes, extras, payments);
+    return detailView(row, { quotes, payments, events, photos, extras, layoutApprovals, money });
   }
 
-  /** As getDetail, but a player only ever sees their own: another's booking is simply not there. */
+  /**
+   * As getDetail, but a player only ever sees their own (another's booking is simply not there),
+   * and only the history lines meant for them: staff notes, hours and intake remarks stay internal.
+   */
   async getDetailFor(user: AuthUser, id: string): Promise<BookingDetail> {
     await this.findVisible(user, id);
-    return this.getDetail(id);
+    const detail = await this.getDetail(id);
+    return isStaff(user) ? detail : playerView(detail);
   }
 
   async findVisible(user: AuthUser, id: string, trx: Executor = this.db): Promise<BookingRow> {
@@ -134,18 +139,31 @@ export class BookingsService {
     return row;
   }
 
-  /** Firm total + approved extras − deposit paid; null until a firm quote exists. */
-  async balanceDue(id: string, trx: Executor = this.db): Promise<string | null> {
-    const quotes = await this.bookings.quotesFor([id], trx);
-    const firm = [...quotes].reverse().find((q) => q.kind === 'firm');
-    if (!firm?.total) return null;
-    const extras = await this.bookings.approvedExtrasTotal(id, trx);
-    const payments = await this.bookings.paymentsFor(id, trx);
-    const depositPaid = payments
-      .filter((p) => p.kind === 'deposit' && p.status === 'paid')
-      .reduce((sum, p) => sum.plus(p.amount), new Decimal(0));
-    const due = new Decimal(firm.total).plus(extras).minus(depositPaid);
-    return Decimal.max(due, 0).toFixed(2);
+  /**
+   * The booking's money facts (firm total, approved extras, payments, refunds, balance due), read
+   * in the caller's transaction. Every figure anyone sees about a booking's money comes from here.
+   */
+  async moneyFacts(id: string, trx: Executor = this.db): Promise<MoneyFacts> {
+    const row = await this.bookings.findById(id, trx);
+    if (!row) throw new NotFoundException(`There is no booking ${id}.`);
+    const [quotes, extras, payments] = await Promise.all([
+      this.bookings.quotesFor([id], trx),
+      this.bookings.extrasFor(id, trx),
+      this.bookings.paymentsFor(id, trx),
+    ]);
+    return this.factsOf(row, quotes, extras, payments);
+  }
+
+  private factsOf(row: BookingRow, quotes: QuoteRow[], extras: ExtraRow[], payments: PaymentRow[]): MoneyFacts {
+    const { estimate, firm } = pickQuotes(quotes);
+    const iso = (d: Date | string | null) => (d === null ? null : new Date(d).toISOString());
+    return moneyFacts({
+      currency: (firm ?? estimate)?.currency.trim() ?? payments[0]?.currency.trim() ?? 'USD',
+      firmTotal: firm?.total ?? null,
+      extras: extras.map((e) => ({ description: e.description, amount: e.amount, status: e.status })),
+      payments: payments.map((p) => ({ kind: p.kind, amount: p.amount, status: p.status, paidAt: iso(p.paid_at), refundedAt: iso(p.refunded_at) })),
+      balanceWaived: row.balance_waived_reason !== null,
+    });
   }
 
   /**
@@ -160,6 +178,7 @@ export class BookingsService {
     to: BookingState,
     actor: BookingActor,
     note = '',
+    visibility: 'player' | 'internal' = 'player',
   ): Promise<BookingRow> {
     const row = await this.bookings.lockById(trx, bookingId);
     if (!row) throw new NotFoundException(`There is no booking ${bookingId}.`);
@@ -177,8 +196,22 @@ export class BookingsService {
       actor_id: actor.id,
       actor_label: actor.label,
       note,
+      visibility,
     });
     return updated;
+  }
+
+  /** A history line that keeps the state (a payment taken, a reminder sent); the player reads it unless 'internal'. */
+  insertNote(trx: Executor, booking: { id: string; state: BookingState }, actor: BookingActor, note: string, visibility: 'player' | 'internal' = 'player') {
+    return this.bookings.insertEvent(trx, {
+      booking_id: booking.id,
+      from_state: booking.state,
+      to_state: booking.state,
+      actor_id: actor.id,
+      actor_label: actor.label,
+      note,
+      visibility,
+    });
   }
 
   /** Locks the row and returns it, for callers that change a booking without changing its state. */

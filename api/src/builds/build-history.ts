@@ -32,9 +32,13 @@ export class BuildHistory {
     return Object.keys(values).length ? this.bookings.update(trx, booking.id, values) : moved;
   }
 
-  /** A change that keeps the state (hours, intake, extras, layout): still one line of history. */
-  note(trx: Executor, booking: { id: string; state: BookingState }, actor: AuthUser, note: string) {
+  /**
+   * A change that keeps the state (hours, intake, extras, layout, a staff note): still one line
+   * of history. Internal unless the caller says the player should read it: a staff member's words
+   * reach the player only when they chose so.
+   */
+  note(trx: Executor, booking: { id: string; state: BookingState }, actor: AuthUser, note: string, visibility: 'player' | 'internal' = 'internal') {
     const who = actorOf(actor);
-    return this.builds.insertEvent(trx, { bookingId: booking.id, from: booking.state, to: booking.state, actorId: who.id, actorLabel: who.label, note });
+    return this.builds.insertEvent(trx, { bookingId: booking.id, from: booking.state, to: booking.state, actorId: who.id, actorLabel: who.label, note, visibility });
   }
 }

@@ -1,15 +1,32 @@
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
-import type { AuthUser, BookingState, ExtraView, IntakeItemView, ProposeExtraInput, RecordIntakeInput, TimeEntriesResponse, TimeEntryInput } from '@loomwright/shared';
+import {
+  intakeChecklist,
+  placeIntakeItems,
+  type AuthUser,
+  type BookingState,
+  type EditIntakeItemInput,
+  type EditTimeEntryInput,
+  type IntakeItemView,
+  type RecordIntakeInput,
+  type StaffNoteInput,
+  type TimeEntriesResponse,
+  type TimeEntryInput,
+} from '@loomwright/shared';
 import { BenchService } from '../bench/bench.service';
 import { Database, type Executor } from '../database/database';
+import { MailService } from '../mail/mail.service';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
 
 // Generated<Timestamp> columns come back typed as the column type; at runtime pg gives a Date.
 const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
 
-/** What the bench records around a build: hours, intake, extras and the layout approval. */
+const hoursStates: BookingState[] = ['pedals_received', 'on_bench', 'testing', 'ready'];
+const intakeStates: BookingState[] = ['scheduled', 'pedals_received', 'on_bench'];
+const conditionWords = { working: 'working', faulty: 'faulty' } as const;
+
+/** What the bench records around a build: hours, intake and staff notes, each correctable with history. */
 @Injectable()
 export class BuildRecordsService {
   constructor(
@@ -17,9 +34,10 @@ export class BuildRecordsService {
     private readonly builds: BuildsRepository,
     private readonly bench: BenchService,
     private readonly history: BuildHistory,
+    private readonly mail: MailService,
   ) {}
 
-  private async lockIn(trx: Executor, bookingId: string, states: BookingState[], what: string) {
+  async lockIn(trx: Executor, bookingId: string, states: BookingState[], what: string) {
     const booking = await this.builds.lockBooking(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     if (!states.includes(booking.state)) {
@@ -34,9 +52,33 @@ export class BuildRecordsService {
     return booking;
   }
 
+  // ---- staff notes ----
+
+  /** A staff note: internal, unless the writer tells the player (then it is e-mailed word for word). */
+  async addNote(user: AuthUser, bookingId: string, input: StaffNoteInput) {
+    await this.db.transaction().execute(async (trx) => {
+      const booking = await this.builds.lockBooking(trx, bookingId);
+      if (!booking) throw new NotFoundException('There is no booking with that id.');
+      const note = input.note.trim();
+      await this.history.note(trx, booking, user, note, input.tellPlayer ? 'player' : 'internal');
+      if (input.tellPlayer) {
+        await this.mail.enqueue(trx, {
+          template: 'shop-note',
+          to: booking.customer_email,
+          bookingId,
+          userId: booking.customer_id,
+          data: { customerName: booking.customer_name, reference: booking.reference, note },
+        });
+      }
+    });
+    return { bookingId, told: !!input.tellPlayer };
+  }
+
+  // ---- hours ----
+
   async addTimeEntry(user: AuthUser, bookingId: string, dto: TimeEntryInput): Promise<TimeEntriesResponse> {
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.lockIn(trx, bookingId, ['pedals_received', 'on_bench', 'testing', 'ready'], 'hours can be recorded');
+      const booking = await this.lockIn(trx, bookingId, hoursStates, 'hours can be recorded');
       const own = await this.builds.builderByUser(trx, user.id);
       let builderId: string | null | undefined;
       if (user.role === 'owner') builderId = dto.builderId ?? booking.builder_id ?? own?.id;
@@ -47,13 +89,57 @@ export class BuildRecordsService {
       }
       if (!builderId) throw new BadRequestException('builderId is required: say whose hours these are.');
       if (!(await this.builds.builderRef(trx, builderId))) throw new NotFoundException('There is no builder with that builderId.');
-      const { today } = await this.bench.shopCalendar(trx);
-      if (dto.workedOn > today) throw new BadRequestException(`workedOn ${dto.workedOn} is in the future; record hours once they are spent.`);
+      await this.notInFuture(trx, dto.workedOn);
       const hours = new Decimal(dto.hours).toFixed(2);
-      await this.builds.insertTimeEntry(trx, { bookingId, builderId, workedOn: dto.workedOn, hours, note: dto.note?.trim() ?? '' });
-      await this.history.note(trx, booking, user, `Recorded ${hours} h on ${dto.workedOn}${dto.note?.trim() ? `: ${dto.note.trim()}` : ''}.`);
+      const note = dto.note?.trim() ?? '';
+      await this.builds.insertTimeEntry(trx, { bookingId, builderId, workedOn: dto.workedOn, hours, note, createdBy: user.id });
+      await this.history.note(trx, booking, user, `Recorded ${hours} h on ${dto.workedOn}${note ? `: ${note}` : ''}.`);
     });
     return this.timeEntries(bookingId);
+  }
+
+  /** Corrects an hour entry: its author or the owner, while the build is on the bench; the change goes in the history. */
+  async editTimeEntry(user: AuthUser, bookingId: string, entryId: string, dto: EditTimeEntryInput): Promise<TimeEntriesResponse> {
+    await this.db.transaction().execute(async (trx) => {
+      const booking = await this.lockIn(trx, bookingId, hoursStates, 'hours can be corrected');
+      const entry = await this.ownEntry(trx, user, bookingId, entryId);
+      if (dto.workedOn !== undefined) await this.notInFuture(trx, dto.workedOn);
+      const next = {
+        worked_on: dto.workedOn ?? entry.worked_on,
+        hours: dto.hours !== undefined ? new Decimal(dto.hours).toFixed(2) : new Decimal(entry.hours).toFixed(2),
+        note: dto.note !== undefined ? dto.note.trim() : entry.note,
+      };
+      const before = `${new Decimal(entry.hours).toFixed(2)} h on ${entry.worked_on}`;
+      const after = `${next.hours} h on ${next.worked_on}`;
+      if (next.worked_on === entry.worked_on && next.hours === new Decimal(entry.hours).toFixed(2) && next.note === entry.note) return;
+      await this.builds.updateTimeEntry(trx, entryId, next);
+      await this.history.note(trx, booking, user, `Hours corrected: ${before} → ${after}${next.note !== entry.note ? ` (note: ${next.note || 'removed'})` : ''}.`);
+    });
+    return this.timeEntries(bookingId);
+  }
+
+  async deleteTimeEntry(user: AuthUser, bookingId: string, entryId: string): Promise<TimeEntriesResponse> {
+    await this.db.transaction().execute(async (trx) => {
+      const booking = await this.lockIn(trx, bookingId, hoursStates, 'hours can be deleted');
+      const entry = await this.ownEntry(trx, user, bookingId, entryId);
+      await this.builds.deleteTimeEntry(trx, entryId);
+      await this.history.note(trx, booking, user, `Hours deleted: ${new Decimal(entry.hours).toFixed(2)} h on ${entry.worked_on}${entry.note ? ` (${entry.note})` : ''}.`);
+    });
+    return this.timeEntries(bookingId);
+  }
+
+  private async ownEntry(trx: Executor, user: AuthUser, bookingId: string, entryId: string) {
+    const entry = await this.builds.lockTimeEntry(trx, bookingId, entryId);
+    if (!entry) throw new NotFoundException('There is no such hour entry on this booking.');
+    if (user.role !== 'owner' && entry.created_by !== user.id) {
+      throw new ForbiddenException('Only the person who recorded these hours, or the owner, can change them.');
+    }
+    return entry;
+  }
+
+  private async notInFuture(trx: Executor, day: string) {
+    const { today } = await this.bench.shopCalendar(trx);
+    if (day > today) throw new BadRequestException(`workedOn ${day} is in the future; record hours once they are spent.`);
   }
 
   async timeEntries(bookingId: string): Promise<TimeEntriesResponse> {
@@ -68,24 +154,60 @@ export class BuildRecordsService {
         hours: Number(r.hours),
         note: r.note,
         createdAt: iso(r.created_at),
+        updatedAt: r.updated_at ? iso(r.updated_at) : null,
+        recordedBy: r.created_by ? { id: r.created_by, name: r.created_by_name ?? '' } : null,
       })),
       totalHours: total.toNumber(),
       plannedHours: firm ? Number(firm.labor_hours) : null,
     };
   }
 
+  // ---- intake ----
+
+  /**
+   * Records each item once, at its place in the signal chain. Recording an item again with the
+   * same words changes nothing; with other words it corrects the item and says so in the history.
+   */
   async recordIntake(user: AuthUser, bookingId: string, dto: RecordIntakeInput): Promise<IntakeItemView[]> {
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.lockIn(trx, bookingId, ['scheduled', 'pedals_received'], 'intake can be recorded');
-      const items = dto.items.map((i) => ({ item: i.item.trim(), condition: i.condition, note: i.note?.trim() ?? '' }));
-      await this.builds.insertIntakeItems(trx, bookingId, user.id, items);
-      const faulty = items.filter((i) => i.condition === 'faulty');
-      await this.history.note(
-        trx,
-        booking,
-        user,
-        `Intake: ${items.length} item(s) checked` + (faulty.length ? `, faulty: ${faulty.map((f) => f.item).join(', ')}` : ', all working') + '.',
-      );
+      const booking = await this.lockIn(trx, bookingId, intakeStates, 'intake can be recorded');
+      const existing = new Map((await this.builds.lockIntakeItems(trx, bookingId)).map((row) => [row.item_key, row]));
+      const placed = placeIntakeItems(intakeChecklist(booking.configuration), dto.items.map((i) => i.item));
+      const seen = new Set<string>();
+      const added: string[] = [];
+      const corrected: string[] = [];
+      for (const [index, input] of dto.items.entries()) {
+        const place = placed[index];
+        if (seen.has(place.key)) throw new BadRequestException(`items.${index}.item: "${input.item.trim()}" is listed twice; record each item once.`);
+        seen.add(place.key);
+        const note = input.note?.trim() ?? '';
+        const row = existing.get(place.key);
+        if (!row) {
+          await this.builds.insertIntakeItem(trx, { bookingId, key: place.key, position: place.position, item: place.item, condition: input.condition, note, recordedBy: user.id });
+          added.push(`${place.item} (${conditionWords[input.condition]}${note ? `: ${note}` : ''})`);
+        } else if (row.condition !== input.condition || row.note !== note || row.item !== place.item) {
+          await this.builds.updateIntakeItem(trx, row.id, { item: place.item, condition: input.condition, note, updatedBy: user.id });
+          corrected.push(`${place.item}: ${row.condition} → ${input.condition}${note !== row.note ? ` (note: ${note || 'removed'})` : ''}`);
+        }
+      }
+      if (added.length) await this.history.note(trx, booking, user, `Intake: ${added.join('; ')}.`);
+      if (corrected.length) await this.history.note(trx, booking, user, `Intake corrected: ${corrected.join('; ')}.`);
+    });
+    return this.intake(bookingId);
+  }
+
+  /** Corrects one recorded item (a typo, a fault found later): the change goes in the history. */
+  async editIntakeItem(user: AuthUser, bookingId: string, itemId: string, dto: EditIntakeItemInput): Promise<IntakeItemView[]> {
+    await this.db.transaction().execute(async (trx) => {
+      const booking = await this.lockIn(trx, bookingId, intakeStates, 'intake can be corrected');
+      const row = (await this.builds.lockIntakeItems(trx, bookingId)).find((r) => r.id === itemId);
+      if (!row) throw new NotFoundException('There is no such intake item on this booking.');
+      const note = dto.note?.trim() ?? '';
+      const item = dto.item.trim();
+      if (row.item === item && row.condition === dto.condition && row.note === note) return;
+      await this.builds.updateIntakeItem(trx, row.id, { item, condition: dto.condition, note, updatedBy: user.id });
+      const renamed = row.item !== item ? ` renamed to ${item},` : '';
+      await this.history.note(trx, booking, user, `Intake corrected: ${row.item}${renamed} ${row.condition} → ${dto.condition}${note !== row.note ? ` (note: ${note || 'removed'})` : ''}.`);
     });
     return this.intake(bookingId);
   }
@@ -93,78 +215,15 @@ export class BuildRecordsService {
   async intake(bookingId: string): Promise<IntakeItemView[]> {
     await this.mustExist(bookingId);
     const rows = await this.builds.intakeItems(this.db, bookingId);
-    return rows.map((r) => ({ id: r.id, item: r.item, condition: r.condition, note: r.note, recordedBy: r.recorded_by, createdAt: iso(r.created_at) }));
-  }
-
-  async proposeExtra(user: AuthUser, bookingId: string, dto: ProposeExtraInput): Promise<ExtraView> {
-    return this.db.transaction().execute(async (trx) => {
-      const booking = await this.lockIn(trx, bookingId, ['scheduled', 'pedals_received', 'on_bench', 'testing'], 'extras can be proposed');
-      const row = await this.builds.insertExtra(trx, {
-        bookingId,
-        description: dto.description.trim(),
-        amount: new Decimal(dto.amount).toFixed(2),
-        reason: dto.reason.trim(),
-        proposedBy: user.id,
-      });
-      await this.history.note(trx, booking, user, `Extra proposed for the player's approval: ${row.description}, ${row.amount} (${row.reason}).`);
-      return this.toExtra(row);
-    });
-  }
-
-  async decideExtra(user: AuthUser, bookingId: string, extraId: string, approve: boolean): Promise<ExtraView> {
-    return this.db.transaction().execute(async (trx) => {
-      const booking = await this.builds.lockBooking(trx, bookingId);
-      if (!booking) throw new NotFoundException('There is no booking with that id.');
-      if (booking.customer_id !== user.id) throw new ForbiddenException('Only the player who booked this build can decide on its extras.');
-      const extra = await this.builds.lockExtra(trx, bookingId, extraId);
-      if (!extra) throw new NotFoundException('There is no such extra on this booking.');
-      if (extra.status !== 'proposed') throw new ConflictException(`This extra is already ${extra.status}.`);
-      if (['ready', 'delivered', 'declined', 'cancelled', 'refunded'].includes(booking.state)) {
-        throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; its extras can no longer change.`);
-      }
-      const row = await this.builds.decideExtra(trx, extraId, approve ? 'approved' : 'declined');
-      await this.history.note(trx, booking, user, `Extra ${approve ? 'approved' : 'declined'} by the player: ${extra.description}, ${extra.amount}.`);
-      return this.toExtra(row!);
-    });
-  }
-
-  async extras(user: AuthUser, bookingId: string): Promise<ExtraView[]> {
-    const booking = await this.mustExist(bookingId);
-    if (user.role === 'customer' && booking.customer_id !== user.id) throw new NotFoundException('There is no booking with that id.');
-    return (await this.builds.extras(this.db, bookingId)).map((r) => this.toExtra(r));
-  }
-
-  async requestLayoutApproval(user: AuthUser, bookingId: string, note = '') {
-    return this.db.transaction().execute(async (trx) => {
-      const booking = await this.lockIn(trx, bookingId, ['on_bench'], 'a layout can be sent for approval');
-      if (booking.awaiting_layout_approval) throw new ConflictException('The layout is already waiting for the player’s approval.');
-      const updated = await this.builds.updateBooking(trx, bookingId, ['on_bench'], { awaiting_layout_approval: true });
-      await this.history.note(trx, booking, user, `Layout sent to the player for approval${note.trim() ? `: ${note.trim()}` : '.'}`);
-      return { bookingId, state: updated!.state, awaitingLayoutApproval: true };
-    });
-  }
-
-  async approveLayout(user: AuthUser, bookingId: string, note = '') {
-    return this.db.transaction().execute(async (trx) => {
-      const booking = await this.builds.lockBooking(trx, bookingId);
-      if (!booking) throw new NotFoundException('There is no booking with that id.');
-      if (booking.customer_id !== user.id) throw new ForbiddenException('Only the player who booked this build can approve its layout.');
-      if (!booking.awaiting_layout_approval) throw new ConflictException('There is no layout waiting for your approval.');
-      const updated = await this.builds.updateBooking(trx, bookingId, [booking.state], { awaiting_layout_approval: false });
-      await this.history.note(trx, booking, user, `Layout approved by the player${note.trim() ? `: ${note.trim()}` : '.'}`);
-      return { bookingId, state: updated!.state, awaitingLayoutApproval: false };
-    });
-  }
-
-  private toExtra(r: Awaited<ReturnType<BuildsRepository['extras']>>[number]): ExtraView {
-    return {
+    return rows.map((r) => ({
       id: r.id,
-      description: r.description,
-      amount: r.amount,
-      reason: r.reason,
-      status: r.status,
-      decidedAt: r.decided_at ? iso(r.decided_at) : null,
+      key: r.item_key,
+      item: r.item,
+      condition: r.condition,
+      note: r.note,
+      recordedBy: r.recorded_by,
       createdAt: iso(r.created_at),
-    };
+      updatedAt: r.updated_at ? iso(r.updated_at) : null,
+    }));
   }
 }

@@ -1,13 +1,18 @@
-import { BadRequestException, Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post } from '@nestjs/common';
+import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   acceptBookingSchema,
   changeStateSchema,
   declineBookingSchema,
   decideExtraSchema,
+  editIntakeItemSchema,
+  editTimeEntrySchema,
   layoutNoteSchema,
+  layoutRequestSchema,
   proposeExtraSchema,
+  recordedDecisionSchema,
   recordIntakeSchema,
+  staffNoteSchema,
   timeEntrySchema,
   waiveBalanceSchema,
   type AcceptBookingInput,
@@ -18,11 +23,16 @@ import {
   type ChangeStateInput,
   type DecideExtraInput,
   type DeclineBookingInput,
+  type EditIntakeItemInput,
+  type EditTimeEntryInput,
   type ExtraView,
   type IntakeItemView,
   type LayoutNoteInput,
+  type LayoutRequestInput,
   type ProposeExtraInput,
+  type RecordedDecisionInput,
   type RecordIntakeInput,
+  type StaffNoteInput,
   type TimeEntriesResponse,
   type TimeEntryInput,
   type WaiveBalanceInput,
@@ -31,9 +41,13 @@ import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
+import { ApprovalsService } from './approvals.service';
 import { BuildRecordsService } from './build-records.service';
 import { BuildsService } from './builds.service';
+
 const bookingId = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The booking id in the address must be a UUID.') });
+const uuid = (name: string, what: string) =>
+  new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException(`The ${name} in the address must be ${what} (a UUID).`) });
 
 /** A build's life on the bench, from acceptance to delivery. */
 @ApiTags('builds')
@@ -43,6 +57,7 @@ export class BuildsController {
   constructor(
     private readonly builds: BuildsService,
     private readonly records: BuildRecordsService,
+    private readonly approvals: ApprovalsService,
   ) {}
 
   @Post('accept')
@@ -67,7 +82,7 @@ export class BuildsController {
   @Roles('builder', 'owner')
   @ApiZodBody(changeStateSchema)
   changeState(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(changeStateSchema)) dto: ChangeStateInput): Promise<BookingStateResponse> {
-    return this.builds.changeState(user, id, dto.to, dto.note);
+    return this.builds.changeState(user, id, dto.to, dto.note ?? '', !!dto.tellPlayer);
   }
 
   @Post('waive-balance')
@@ -78,11 +93,19 @@ export class BuildsController {
     return this.builds.waiveBalance(user, id, dto.reason);
   }
 
+  @Post('notes')
+  @Roles('builder', 'owner')
+  @ApiZodBody(staffNoteSchema)
+  @ApiOkResponse({ description: 'A staff note in the history: internal, unless tellPlayer (then e-mailed to the player word for word).' })
+  addNote(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(staffNoteSchema)) body: StaffNoteInput) {
+    return this.records.addNote(user, id, body);
+  }
+
   @Post('time-entries')
   @Roles('builder', 'owner')
   @ApiZodBody(timeEntrySchema)
-  addTimeEntry(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(timeEntrySchema)) dto: TimeEntryInput): Promise<TimeEntriesResponse> {
-    return this.records.addTimeEntry(user, id, dto);
+  addTimeEntry(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(timeEntrySchema)) body: TimeEntryInput): Promise<TimeEntriesResponse> {
+    return this.records.addTimeEntry(user, id, body);
   }
 
   @Get('time-entries')
@@ -91,11 +114,31 @@ export class BuildsController {
     return this.records.timeEntries(id);
   }
 
+  @Patch('time-entries/:entryId')
+  @Roles('builder', 'owner')
+  @ApiZodBody(editTimeEntrySchema)
+  @ApiOkResponse({ description: 'Corrects an hour entry: its author or the owner; the change is kept in the history.' })
+  editTimeEntry(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Param('entryId', uuid('entryId', 'an hour entry id')) entryId: string,
+    @Body(new ZodValidationPipe(editTimeEntrySchema)) body: EditTimeEntryInput,
+  ): Promise<TimeEntriesResponse> {
+    return this.records.editTimeEntry(user, id, entryId, body);
+  }
+
+  @Delete('time-entries/:entryId')
+  @Roles('builder', 'owner')
+  deleteTimeEntry(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Param('entryId', uuid('entryId', 'an hour entry id')) entryId: string): Promise<TimeEntriesResponse> {
+    return this.records.deleteTimeEntry(user, id, entryId);
+  }
+
   @Post('intake')
   @Roles('builder', 'owner')
   @ApiZodBody(recordIntakeSchema)
-  recordIntake(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(recordIntakeSchema)) dto: RecordIntakeInput): Promise<IntakeItemView[]> {
-    return this.records.recordIntake(user, id, dto);
+  @ApiOkResponse({ description: 'Each item once, in signal-chain order; recording an item again corrects it, never duplicates it.' })
+  recordIntake(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(recordIntakeSchema)) body: RecordIntakeInput): Promise<IntakeItemView[]> {
+    return this.records.recordIntake(user, id, body);
   }
 
   @Get('intake')
@@ -104,45 +147,95 @@ export class BuildsController {
     return this.records.intake(id);
   }
 
+  @Patch('intake/:itemId')
+  @Roles('builder', 'owner')
+  @ApiZodBody(editIntakeItemSchema)
+  editIntakeItem(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Param('itemId', uuid('itemId', 'an intake item id')) itemId: string,
+    @Body(new ZodValidationPipe(editIntakeItemSchema)) body: EditIntakeItemInput,
+  ): Promise<IntakeItemView[]> {
+    return this.records.editIntakeItem(user, id, itemId, body);
+  }
+
   @Post('extras')
   @Roles('owner')
   @ApiZodBody(proposeExtraSchema)
-  proposeExtra(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(proposeExtraSchema)) dto: ProposeExtraInput): Promise<ExtraView> {
-    return this.records.proposeExtra(user, id, dto);
+  @ApiOkResponse({ description: 'Proposes an extra with its price; the player is e-mailed to approve or decline it.' })
+  proposeExtra(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(proposeExtraSchema)) body: ProposeExtraInput): Promise<ExtraView> {
+    return this.approvals.proposeExtra(user, id, body);
   }
 
   @Get('extras')
   @Roles('customer', 'builder', 'owner')
   extras(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string): Promise<ExtraView[]> {
-    return this.records.extras(user, id);
+    return this.approvals.extras(user, id);
   }
 
   @Post('extras/:extraId/decision')
   @HttpCode(200)
   @Roles('customer')
   @ApiZodBody(decideExtraSchema)
+  @ApiOkResponse({ description: "The booking's player approves or declines an extra, with an optional comment." })
   decideExtra(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingId) id: string,
-    @Param('extraId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The extra id in the address must be a UUID.') }))
-    extraId: string,
-    @Body(new ZodValidationPipe(decideExtraSchema)) dto: DecideExtraInput,
+    @Param('extraId', uuid('extraId', 'an extra id')) extraId: string,
+    @Body(new ZodValidationPipe(decideExtraSchema)) body: DecideExtraInput,
   ): Promise<ExtraView> {
-    return this.records.decideExtra(user, id, extraId, dto.approve);
+    return this.approvals.decideExtra(user, id, extraId, body);
+  }
+
+  @Post('extras/:extraId/recorded-decision')
+  @HttpCode(200)
+  @Roles('builder', 'owner')
+  @ApiZodBody(recordedDecisionSchema)
+  @ApiOkResponse({ description: "Staff record the player's answer given by phone, in person or by e-mail: who gave it and how." })
+  recordExtraDecision(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Param('extraId', uuid('extraId', 'an extra id')) extraId: string,
+    @Body(new ZodValidationPipe(recordedDecisionSchema)) body: RecordedDecisionInput,
+  ): Promise<ExtraView> {
+    return this.approvals.recordExtraDecision(user, id, extraId, body);
   }
 
   @Post('layout/request')
   @HttpCode(200)
   @Roles('builder', 'owner')
-  @ApiZodBody(layoutNoteSchema)
-  requestLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(layoutNoteSchema)) dto: LayoutNoteInput): Promise<BookingStateResponse> {
-    return this.records.requestLayoutApproval(user, id, dto.note);
+  @ApiZodBody(layoutRequestSchema)
+  @ApiOkResponse({ description: 'Sends the top-view layout to the player (by e-mail and on their page); testing waits for the answer.' })
+  requestLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(layoutRequestSchema)) body: LayoutRequestInput): Promise<BookingStateResponse> {
+    return this.approvals.requestLayoutApproval(user, id, body);
   }
 
   @Post('layout/approve')
   @HttpCode(200)
   @Roles('customer')
-  approveLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(layoutNoteSchema)) dto: LayoutNoteInput): Promise<BookingStateResponse> {
-    return this.records.approveLayout(user, id, dto.note);
+  @ApiZodBody(layoutNoteSchema)
+  @ApiOkResponse({ description: 'The player approves the waiting layout (same as layout/decision with approve: true).' })
+  approveLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(layoutNoteSchema)) body: LayoutNoteInput): Promise<BookingStateResponse> {
+    return this.approvals.decideLayout(user, id, { approve: true, comment: body.note });
+  }
+
+  @Post('layout/decision')
+  @HttpCode(200)
+  @Roles('customer')
+  @ApiZodBody(decideExtraSchema)
+  decideLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(decideExtraSchema)) body: DecideExtraInput): Promise<BookingStateResponse> {
+    return this.approvals.decideLayout(user, id, body);
+  }
+
+  @Post('layout/recorded-decision')
+  @HttpCode(200)
+  @Roles('builder', 'owner')
+  @ApiZodBody(recordedDecisionSchema)
+  recordLayoutDecision(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(recordedDecisionSchema)) body: RecordedDecisionInput,
+  ): Promise<BookingStateResponse> {
+    return this.approvals.recordLayoutDecision(user, id, body);
   }
 }

@@ -3,6 +3,7 @@ import { BenchModule } from '../bench/bench.module';
 import { BookingsModule } from '../bookings/bookings.module';
 import { MailModule } from '../mail/mail.module';
 import { PaymentsModule } from '../payments/payments.module';
+import { ApprovalsService } from './approvals.service';
 import { BuildHistory } from './build-history';
 import { BuildRecordsService } from './build-records.service';
 import { BuildsController } from './builds.controller';
@@ -12,7 +13,7 @@ import { BuildsService } from './builds.service';
 @Module({
   imports: [BenchModule, BookingsModule, MailModule, PaymentsModule],
   controllers: [BuildsController],
-  providers: [BuildsService, BuildRecordsService, BuildsRepository, BuildHistory],
+  providers: [BuildsService, BuildRecordsService, ApprovalsService, BuildsRepository, BuildHistory],
   exports: [BuildsService],
 })
 export class BuildsModule {}

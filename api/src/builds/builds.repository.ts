@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { sql, type Insertable, type Updateable } from 'kysely';
 import type { BookingState } from '@loomwright/shared';
-import { Database, Executor, type BookingsTable, type QuotesTable } from '../database/database';
+import { Database, Executor, type BookingsTable, type DecidedVia, type QuotesTable } from '../database/database';
 
 @Injectable()
 export class BuildsRepository {
@@ -36,7 +36,15 @@ export class BuildsRepository {
 
   insertEvent(
     trx: Executor,
-    event: { bookingId: string; from: BookingState | null; to: BookingState; actorId: string | null; actorLabel: string; note: string },
+    event: {
+      bookingId: string;
+      from: BookingState | null;
+      to: BookingState;
+      actorId: string | null;
+      actorLabel: string;
+      note: string;
+      visibility: 'player' | 'internal';
+    },
   ) {
     return trx
       .insertInto('booking_events')
@@ -47,6 +55,7 @@ export class BuildsRepository {
         actor_id: event.actorId,
         actor_label: event.actorLabel,
         note: event.note,
+        visibility: event.visibility,
       })
       .returning(['id', 'created_at'])
       .executeTakeFirstOrThrow();
@@ -71,15 +80,6 @@ export class BuildsRepository {
     return trx.selectFrom('payments').selectAll().where('booking_id', '=', bookingId).orderBy('created_at').execute();
   }
 
-  approvedExtrasTotal(trx: Executor, bookingId: string) {
-    return trx
-      .selectFrom('booking_extras')
-      .select(sql<string>`coalesce(sum(amount), 0)::text`.as('total'))
-      .where('booking_id', '=', bookingId)
-      .where('status', '=', 'approved')
-      .executeTakeFirstOrThrow();
-  }
-
   builderByUser(trx: Executor, userId: string) {
     return trx.selectFrom('builders').select(['id', 'level']).where('user_id', '=', userId).executeTakeFirst();
   }
@@ -93,10 +93,17 @@ export class BuildsRepository {
       .executeTakeFirst();
   }
 
-  insertTimeEntry(trx: Executor, values: { bookingId: string; builderId: string; workedOn: string; hours: string; note: string }) {
+  insertTimeEntry(trx: Executor, values: { bookingId: string; builderId: string; workedOn: string; hours: string; note: string; createdBy: string }) {
     return trx
       .insertInto('time_entries')
-      .values({ booking_id: values.bookingId, builder_id: values.builderId, worked_on: values.workedOn, hours: values.hours, note: values.note })
+      .values({
+        booking_id: values.bookingId,
+        builder_id: values.builderId,
+        worked_on: values.workedOn,
+        hours: values.hours,
+        note: values.note,
+        created_by: values.createdBy,
+      })
       .returning('id')
       .executeTakeFirstOrThrow();
   }
@@ -106,27 +113,78 @@ export class BuildsRepository {
       .selectFrom('time_entries as t')
       .innerJoin('builders as b', 'b.id', 't.builder_id')
       .innerJoin('users as u', 'u.id', 'b.user_id')
-      .select(['t.id', 't.worked_on', 't.hours', 't.note', 't.created_at', 'b.id as builder_id', 'b.user_id', 'b.level', 'u.name'])
+      .leftJoin('users as w', 'w.id', 't.created_by')
+      .select([
+        't.id',
+        't.worked_on',
+        't.hours',
+        't.note',
+        't.created_at',
+        't.updated_at',
+        't.created_by',
+        'w.name as created_by_name',
+        'b.id as builder_id',
+        'b.user_id',
+        'b.level',
+        'u.name',
+      ])
       .where('t.booking_id', '=', bookingId)
       .orderBy('t.worked_on')
       .orderBy('t.created_at')
       .execute();
   }
 
-  insertIntakeItems(trx: Executor, bookingId: string, recordedBy: string, items: Array<{ item: string; condition: 'working' | 'faulty'; note: string }>) {
+  lockTimeEntry(trx: Executor, bookingId: string, entryId: string) {
+    return trx.selectFrom('time_entries').selectAll().where('id', '=', entryId).where('booking_id', '=', bookingId).forUpdate().executeTakeFirst();
+  }
+
+  updateTimeEntry(trx: Executor, entryId: string, values: { worked_on: string; hours: string; note: string }) {
+    return trx.updateTable('time_entries').set({ ...values, updated_at: sql`now()` }).where('id', '=', entryId).executeTakeFirstOrThrow();
+  }
+
+  deleteTimeEntry(trx: Executor, entryId: string) {
+    return trx.deleteFrom('time_entries').where('id', '=', entryId).executeTakeFirstOrThrow();
+  }
+
+  /** Intake rows of a booking by their place in the rig, locked: a second recording waits for the first. */
+  lockIntakeItems(trx: Executor, bookingId: string) {
+    return trx.selectFrom('intake_items').selectAll().where('booking_id', '=', bookingId).forUpdate().execute();
+  }
+
+  insertIntakeItem(
+    trx: Executor,
+    values: { bookingId: string; key: string; position: number; item: string; condition: 'working' | 'faulty'; note: string; recordedBy: string },
+  ) {
     return trx
       .insertInto('intake_items')
-      .values(items.map((i) => ({ booking_id: bookingId, recorded_by: recordedBy, item: i.item, condition: i.condition, note: i.note })))
+      .values({
+        booking_id: values.bookingId,
+        item_key: values.key,
+        position: values.position,
+        item: values.item,
+        condition: values.condition,
+        note: values.note,
+        recorded_by: values.recordedBy,
+      })
       .returning('id')
-      .execute();
+      .executeTakeFirstOrThrow();
+  }
+
+  updateIntakeItem(trx: Executor, id: string, values: { item: string; condition: 'working' | 'faulty'; note: string; updatedBy: string }) {
+    return trx
+      .updateTable('intake_items')
+      .set({ item: values.item, condition: values.condition, note: values.note, updated_by: values.updatedBy, updated_at: sql`now()` })
+      .where('id', '=', id)
+      .executeTakeFirstOrThrow();
   }
 
   intakeItems(trx: Executor, bookingId: string) {
     return trx
       .selectFrom('intake_items as i')
       .innerJoin('users as u', 'u.id', 'i.recorded_by')
-      .select(['i.id', 'i.item', 'i.condition', 'i.note', 'i.created_at', 'u.name as recorded_by'])
+      .select(['i.id', 'i.item_key', 'i.item', 'i.condition', 'i.note', 'i.created_at', 'i.updated_at', 'u.name as recorded_by'])
       .where('i.booking_id', '=', bookingId)
+      .orderBy('i.position')
       .orderBy('i.created_at')
       .orderBy('i.item')
       .execute();
@@ -143,7 +201,7 @@ export class BuildsRepository {
         status: 'proposed',
         proposed_by: values.proposedBy,
       })
-      .returningAll()
+      .returning('id')
       .executeTakeFirstOrThrow();
   }
 
@@ -151,17 +209,56 @@ export class BuildsRepository {
     return trx.selectFrom('booking_extras').selectAll().where('id', '=', extraId).where('booking_id', '=', bookingId).forUpdate().executeTakeFirst();
   }
 
-  decideExtra(trx: Executor, extraId: string, status: 'approved' | 'declined') {
+  decideExtra(trx: Executor, extraId: string, decision: Decision) {
     return trx
       .updateTable('booking_extras')
-      .set({ status, decided_at: sql`now()` })
+      .set({
+        status: decision.approve ? 'approved' : 'declined',
+        decided_at: sql`now()`,
+        decided_via: decision.via,
+        decided_by_name: decision.givenBy,
+        decision_comment: decision.comment,
+        recorded_by: decision.recordedBy,
+      })
       .where('id', '=', extraId)
       .where('status', '=', 'proposed')
-      .returningAll()
       .executeTakeFirst();
   }
 
-  extras(trx: Executor, bookingId: string) {
-    return trx.selectFrom('booking_extras').selectAll().where('booking_id', '=', bookingId).orderBy('created_at').execute();
+  insertLayoutApproval(trx: Executor, values: { bookingId: string; requestedBy: string; message: string }) {
+    return trx
+      .insertInto('layout_approvals')
+      .values({ booking_id: values.bookingId, requested_by: values.requestedBy, message: values.message })
+      .returning('id')
+      .executeTakeFirstOrThrow();
   }
+
+  lockWaitingLayout(trx: Executor, bookingId: string) {
+    return trx.selectFrom('layout_approvals').selectAll().where('booking_id', '=', bookingId).where('status', '=', 'waiting').forUpdate().executeTakeFirst();
+  }
+
+  decideLayout(trx: Executor, id: string, decision: Decision) {
+    return trx
+      .updateTable('layout_approvals')
+      .set({
+        status: decision.approve ? 'approved' : 'declined',
+        decided_at: sql`now()`,
+        decided_via: decision.via,
+        decided_by_name: decision.givenBy,
+        decision_comment: decision.comment,
+        recorded_by: decision.recordedBy,
+      })
+      .where('id', '=', id)
+      .where('status', '=', 'waiting')
+      .executeTakeFirst();
+  }
+}
+
+/** A yes or no, by the player in the app or recorded by staff with who said it and how. */
+export interface Decision {
+  approve: boolean;
+  via: DecidedVia;
+  givenBy: string;
+  comment: string;
+  recordedBy: string | null;
 }

@@ -17,7 +17,7 @@ import { shipByDate, toHours } from '../bench/scheduling';
 import { Database, type Executor } from '../database/database';
 import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { MailService } from '../mail/mail.service';
-import { formatDay } from '../mail/templates/format';
+import { formatDay, formatMoney as formatMoneyWords } from '../mail/templates/format';
 import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
@@ -221,7 +221,11 @@ export class BuildsService {
     return this.bookings.getDetail(bookingId);
   }
 
-  async changeState(user: AuthUser, bookingId: string, to: BenchState, note = ''): Promise<BookingStateResponse> {
+  /**
+   * Moves a build on. A note stays internal unless `tellPlayer`: the player's timeline then shows
+   * it and the status e-mail carries it word for word; otherwise they see only the move itself.
+   */
+  async changeState(user: AuthUser, bookingId: string, to: BenchState, note = '', tellPlayer = false): Promise<BookingStateResponse> {
     return this.db.transaction().execute(async (trx) => {
       const booking = await this.builds.lockBooking(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');
@@ -237,13 +241,26 @@ export class BuildsService {
       if (to === 'testing' && booking.awaiting_layout_approval) {
         throw new ConflictException(`Booking ${booking.reference} is waiting for the player's layout approval; testing starts after it.`);
       }
-      const balance = await this.balance(trx, bookingId);
-      if (to === 'delivered' && !booking.balance_waived_reason && balance.outstanding.gt(0)) {
+      const money = await this.bookings.moneyFacts(bookingId, trx);
+      if (to === 'delivered' && !money.settled) {
         throw new ConflictException(
-          `The balance of ${balance.outstanding.toFixed(2)} ${balance.currency} is not paid yet; deliver once it is paid or the owner waives it with a reason.`,
+          `${booking.reference} still has a balance of ${formatMoneyWords(money.balanceDue ?? '0', money.currency)} to pay; ` +
+            'request or record the balance first, or the owner can waive it with a reason. Then mark it delivered.',
         );
       }
-      const updated = await this.history.move(trx, booking, [from], to, user, note.trim() || `Moved to ${stateWords(to)}.`);
+      if (to === 'ready') {
+        const waiting = (await this.bookings.getDetail(bookingId, trx)).extras.filter((x) => x.status === 'proposed');
+        if (waiting.length) {
+          throw new ConflictException(
+            `${waiting.map((x) => x.description).join(', ')} still ${waiting.length === 1 ? 'waits' : 'wait'} for the player's answer; ` +
+              'record their answer (given by phone or in person) before asking for the balance.',
+          );
+        }
+      }
+      const words = note.trim();
+      const told = tellPlayer && words !== '';
+      const updated = await this.history.move(trx, booking, [from], to, user, told ? words : `Moved to ${stateWords(to)}.`);
+      if (words && !told) await this.history.note(trx, { id: bookingId, state: to }, user, words);
       if (to === 'ready') {
         await this.mail.enqueue(trx, {
           template: 'balance-requested',
@@ -254,11 +271,11 @@ export class BuildsService {
           data: {
             customerName: booking.customer_name,
             reference: booking.reference,
-            firmTotal: balance.firmTotal.toFixed(2),
-            extras: balance.extras.toFixed(2),
-            depositPaid: balance.depositPaid.toFixed(2),
-            balanceDue: balance.outstanding.toFixed(2),
-            currency: balance.currency,
+            firmTotal: money.firmTotal,
+            extras: money.approvedExtras,
+            paidSoFar: money.netPaid,
+            balanceDue: money.balanceDue,
+            currency: money.currency,
           },
         });
       }
@@ -275,7 +292,7 @@ export class BuildsService {
             reference: booking.reference,
             fromState: from,
             state: to,
-            note: note.trim(),
+            note: told ? words : '',
             faultyItems: faulty.map((i) => ({ item: i.item, note: i.note })),
           },
         });
@@ -296,27 +313,6 @@ export class BuildsService {
       await this.history.note(trx, booking, user, `Balance waived: ${reason.trim()}`);
       return { bookingId, state: booking.state, awaitingLayoutApproval: booking.awaiting_layout_approval };
     });
-  }
-
-  /** Firm total + approved extras − deposit paid, less any balance already paid. */
-  async balance(trx: Executor, bookingId: string) {
-    const [firm, extras, payments] = await Promise.all([
-      this.builds.latestFirmQuote(trx, bookingId),
-      this.builds.approvedExtrasTotal(trx, bookingId),
-      this.builds.payments(trx, bookingId),
-    ]);
-    const firmTotal = new Decimal(firm?.total ?? 0);
-    const depositPaid = payments.filter((p) => p.kind === 'deposit' && p.status === 'paid').reduce((s, p) => s.plus(p.amount), new Decimal(0));
-    const balancePaid = payments.filter((p) => p.kind === 'balance' && p.status === 'paid').reduce((s, p) => s.plus(p.amount), new Decimal(0));
-    const due = Decimal.max(0, firmTotal.plus(extras.total).minus(depositPaid));
-    return {
-      firmTotal,
-      extras: new Decimal(extras.total),
-      depositPaid,
-      balanceDue: due,
-      outstanding: Decimal.max(0, due.minus(balancePaid)),
-      currency: (firm?.currency ?? payments[0]?.currency ?? 'USD').trim(),
-    };
   }
 
   /** Bench states in which the shop is working on a build (for records that only make sense then). */

@@ -156,6 +156,8 @@ export interface BookingEventsTable {
   actor_id: string | null;
   actor_label: string;
   note: Generated<string>;
+  /** 'player': the player reads this line; 'internal': only staff do (staff notes, hours, intake remarks). */
+  visibility: Generated<'player' | 'internal'>;
   created_at: Timestamp;
 }
 
@@ -176,6 +178,10 @@ export interface PaymentsTable {
   failure_message: string | null;
   paid_at: NullableTimestamp;
   refunded_at: NullableTimestamp;
+  /** 'checkout', or how the shop took it in person. */
+  method: Generated<'checkout' | 'cash' | 'card_terminal' | 'bank_transfer'>;
+  recorded_by: string | null;
+  note: Generated<string>;
   created_at: Timestamp;
   updated_at: Timestamp;
 }
@@ -195,6 +201,28 @@ export interface BookingExtrasTable {
   reason: string;
   status: 'proposed' | 'approved' | 'declined';
   proposed_by: string | null;
+  decided_at: NullableTimestamp;
+  decided_via: DecidedVia | null;
+  decision_comment: Generated<string>;
+  /** Who gave the answer, as the shop recorded it ("Rowan, by phone"); the player's own name when they decided in the app. */
+  decided_by_name: string | null;
+  /** The staff member who recorded a decision given by phone or in person; null when the player decided in the app. */
+  recorded_by: string | null;
+  created_at: Timestamp;
+}
+
+export type DecidedVia = 'app' | 'phone' | 'in_person' | 'email';
+
+export interface LayoutApprovalsTable {
+  id: Generated<string>;
+  booking_id: string;
+  requested_by: string | null;
+  message: Generated<string>;
+  status: Generated<'waiting' | 'approved' | 'declined'>;
+  decided_via: DecidedVia | null;
+  decision_comment: Generated<string>;
+  decided_by_name: string | null;
+  recorded_by: string | null;
   decided_at: NullableTimestamp;
   created_at: Timestamp;
 }
@@ -223,6 +251,12 @@ export interface IntakeItemsTable {
   note: Generated<string>;
   photo_id: string | null;
   recorded_by: string;
+  /** The item's place in the rig ('chain:3', 'supply', 'switcher', or 'other:<name>'): one row per item. */
+  item_key: string;
+  /** Signal-chain order. */
+  position: Generated<number>;
+  updated_at: NullableTimestamp;
+  updated_by: string | null;
   created_at: Timestamp;
 }
 
@@ -233,6 +267,9 @@ export interface TimeEntriesTable {
   worked_on: CalendarDay;
   hours: Numeric;
   note: Generated<string>;
+  /** Who wrote the entry: they and the owner may correct it. */
+  created_by: string | null;
+  updated_at: NullableTimestamp;
   created_at: Timestamp;
 }
 
@@ -283,6 +320,7 @@ export interface DB {
   payments: PaymentsTable;
   payment_events: PaymentEventsTable;
   booking_extras: BookingExtrasTable;
+  layout_approvals: LayoutApprovalsTable;
   photos: PhotosTable;
   intake_items: IntakeItemsTable;
   time_entries: TimeEntriesTable;

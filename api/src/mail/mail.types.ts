@@ -14,6 +14,8 @@ export const mailTemplates = [
   'deposit-refunded',
   'booking-declined',
   'shop-new-paid-request',
+  'approval-requested',
+  'shop-note',
 ] as const;
 export type MailTemplate = (typeof mailTemplates)[number];
 
@@ -101,6 +103,8 @@ export type MailTemplateData = {
       balanceDue?: string;
       firmTotal?: string;
       extras?: string;
+      /** Net of refunds: `paidSoFar` (or the older `depositPaid`). */
+      paidSoFar?: string;
       depositPaid?: string;
       payUrl?: string;
     };
@@ -113,6 +117,20 @@ export type MailTemplateData = {
     refundPending?: boolean;
     currency?: string | null;
   };
+  /** An extra (kind 'extra': description, amount, currency, reason) or a layout (kind 'layout': message) for the player to answer. */
+  'approval-requested': Recipient &
+    BookingLink & {
+      reference: string;
+      kind: 'extra' | 'layout';
+      description?: string;
+      amount?: string;
+      currency?: string;
+      reason?: string;
+      message?: string;
+      approveUrl?: string;
+    };
+  /** A staff note the writer chose to tell the player, word for word. */
+  'shop-note': Recipient & BookingLink & { reference: string; note: string };
   /** To the shop; the player is `name` (or `customerName`). */
   'shop-new-paid-request': Recipient & {
     reference: string;

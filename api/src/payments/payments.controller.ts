@@ -1,6 +1,6 @@
 import { Body, Controller, Headers, HttpCode, Param, Post, Req, type RawBodyRequest } from '@nestjs/common';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { cancelBookingSchema, refundDepositSchema, type AuthUser, type CancelBookingInput, type RefundDepositInput } from '@loomwright/shared';
+import { cancelBookingSchema, recordBalanceSchema, refundDepositSchema, type AuthUser, type CancelBookingInput, type RecordBalanceInput, type RefundDepositInput } from '@loomwright/shared';
 import type { Request } from 'express';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
@@ -44,6 +44,23 @@ export class PaymentsController {
   @ApiZodBody(refundDepositSchema)
   refund(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(refundDepositSchema)) dto: RefundDepositInput) {
     return this.payments.refundByOwner(user, id, dto.reason);
+  }
+
+  @Post('bookings/:id/balance/record')
+  @Roles('owner')
+  @HttpCode(200)
+  @ApiZodBody(recordBalanceSchema)
+  @ApiOkResponse({ description: 'Records the whole balance taken in person (cash, card terminal, bank transfer); closes any open balance checkout.' })
+  recordBalance(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(recordBalanceSchema)) body: RecordBalanceInput) {
+    return this.payments.recordBalance(user, id, body);
+  }
+
+  @Post('bookings/:id/balance/request')
+  @Roles('builder', 'owner')
+  @HttpCode(200)
+  @ApiOkResponse({ description: 'E-mails the player the balance due again (at most once a minute).' })
+  requestBalance(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
+    return this.payments.requestBalance(user, id);
   }
 
   @Public()

@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
-import { BadGatewayException, ConflictException, Injectable, Logger } from '@nestjs/common';
+import { BadGatewayException, BadRequestException, ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import type { AuthUser, BookingDetail, BookingState } from '@loomwright/shared';
-import { bookingStateLabels } from '@loomwright/shared';
+import { bookingStateLabels, formatMoney, paymentMethodWords, type RecordBalanceInput } from '@loomwright/shared';
 import Stripe from 'stripe';
 import { actorOf, BookingsService, type BookingActor } from '../bookings/bookings.service';
 import type { AppConfig } from '../config/configuration';
@@ -204,6 +204,88 @@ export class PaymentsService {
       await this.bookings.transition(trx, bookingId, refundableStates, 'refunded', actorOf(user), `Deposit refunded: ${reason}`);
       const refunded = await this.refundDeposit(trx, bookingId, actorOf(user), reason);
       if (!refunded) throw new ConflictException(`Booking ${booking.reference} has no paid deposit to refund.`);
+    });
+    return this.bookings.getDetail(bookingId);
+  }
+
+  /**
+   * The shop records the balance it took itself (cash, a card terminal, a bank transfer): the
+   * whole amount due, once. An open balance checkout is closed first, so the player cannot also
+   * pay online; if they just did, nothing is recorded and the shop is told.
+   */
+  async recordBalance(user: AuthUser, bookingId: string, input: RecordBalanceInput): Promise<BookingDetail> {
+    await this.db.transaction().execute(async (trx) => {
+      const booking = await this.bookings.lock(trx, bookingId);
+      if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
+      if (booking.state !== 'ready') {
+        throw new ConflictException(
+          `Booking ${booking.reference} is "${bookingStateLabels[booking.state]}"; a balance is recorded once the build is ready.`,
+        );
+      }
+      const money = await this.bookings.moneyFacts(bookingId, trx);
+      if (money.settled) throw new ConflictException(`Nothing is due on ${booking.reference}; the balance is already paid or waived.`);
+      if (money.balanceDue !== formatMoney(input.amount, money.currency)) {
+        throw new BadRequestException(
+          `amount: the balance due on ${booking.reference} is ${money.balanceDue} ${money.currency}; record the whole amount, or the owner waives what is left.`,
+        );
+      }
+      for (const p of await this.payments.listForBooking(trx, bookingId, 'balance')) {
+        if ((p.status === 'pending' || p.status === 'failed') && p.checkout_session_id) {
+          const session = await this.retrieveSession(p.checkout_session_id);
+          if (session.status === 'complete') {
+            throw new ConflictException(`The player has just paid the balance of ${booking.reference} online; reload the booking to see it.`);
+          }
+          if (session.status === 'open') await this.call(() => this.stripe.checkout.sessions.expire(p.checkout_session_id!));
+          await this.payments.update(trx, p.id, { status: 'expired' });
+        }
+      }
+      await this.payments.insert(trx, {
+        booking_id: bookingId,
+        kind: 'balance',
+        amount: money.balanceDue,
+        amount_minor: toMinorUnits(money.balanceDue, money.currency),
+        currency: money.currency,
+        status: 'paid',
+        paid_at: new Date(),
+        method: input.method,
+        recorded_by: user.id,
+        note: input.note?.trim() ?? '',
+      });
+      await this.bookings.insertNote(trx, booking, actorOf(user), `Balance of ${money.balanceDue} ${money.currency} received by ${paymentMethodWords[input.method]}, recorded by ${user.name}.`);
+    });
+    return this.bookings.getDetail(bookingId);
+  }
+
+  /** Asks the player again for the balance, by e-mail with the same figures as their page. */
+  async requestBalance(user: AuthUser, bookingId: string): Promise<BookingDetail> {
+    await this.db.transaction().execute(async (trx) => {
+      const booking = await this.bookings.lock(trx, bookingId);
+      if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
+      if (booking.state !== 'ready') {
+        throw new ConflictException(`Booking ${booking.reference} is "${bookingStateLabels[booking.state]}"; the balance is requested once the build is ready.`);
+      }
+      const money = await this.bookings.moneyFacts(bookingId, trx);
+      if (money.settled) throw new ConflictException(`Nothing is due on ${booking.reference}; the balance is already paid or waived.`);
+      const customer = await this.payments.findCustomer(trx, booking.customer_id);
+      // One reminder a minute at most: a double click sends one e-mail.
+      const minute = new Date().toISOString().slice(0, 16);
+      await this.mail.enqueue(trx, {
+        template: 'balance-requested',
+        to: customer.email,
+        bookingId,
+        userId: customer.id,
+        dedupeKey: `balance-again:${bookingId}:${minute}`,
+        data: {
+          customerName: customer.name,
+          reference: booking.reference,
+          firmTotal: money.firmTotal,
+          extras: money.approvedExtras,
+          paidSoFar: money.netPaid,
+          balanceDue: money.balanceDue,
+          currency: money.currency,
+        },
+      });
+      await this.bookings.insertNote(trx, booking, actorOf(user), `Balance of ${money.balanceDue} ${money.currency} requested again by e-mail.`);
     });
     return this.bookings.getDetail(bookingId);
   }

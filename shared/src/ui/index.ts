@@ -9,3 +9,4 @@ export { ShopUnavailable } from './ShopUnavailable';
 export { FormTextField } from './FormTextField';
 export { authKeys, getMe, ME_RETRY_MS, meQueryOptions, switchPerson, useMe } from './get-me';
 export { useSearchParamsInOrder } from './use-search-params-in-order';
+export { MoneyFactsTable } from './MoneyFactsTable';

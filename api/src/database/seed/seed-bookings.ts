@@ -1,4 +1,4 @@
-import { estimateRig, type BookingState, type PriceBook, type RigConfiguration } from '@loomwright/shared';
+import { estimateRig, intakeChecklist, type BookingState, type PriceBook, type RigConfiguration } from '@loomwright/shared';
 import Decimal from 'decimal.js';
 import type { Kysely } from 'kysely';
 import { addDays, todayIn } from '../../bench/calendar-days';
@@ -252,16 +252,26 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
           })
           .execute();
         if (reached.includes('pedals_received')) {
-          const items = (demo.configuration.pedals?.map((p) => p.name) ?? Array.from({ length: demo.configuration.pedalCount ?? 0 }, (_, i) => `Pedal ${i + 1}`)).concat('Power supply');
+          const items = intakeChecklist(demo.configuration);
           await trx
             .insertInto('intake_items')
-            .values(items.map((item, i) => ({ booking_id: booking.id, item, condition: i === 1 && demo.state === 'on_bench' ? ('faulty' as const) : ('working' as const), note: i === 1 && demo.state === 'on_bench' ? 'Footswitch intermittent; the player was told before the build.' : '', recorded_by: builder.user_id })))
+            .values(
+              items.map(({ key, item, position }, i) => ({
+                booking_id: booking.id,
+                item_key: key,
+                position,
+                item,
+                condition: i === 1 && demo.state === 'on_bench' ? ('faulty' as const) : ('working' as const),
+                note: i === 1 && demo.state === 'on_bench' ? 'Footswitch intermittent; the player was told before the build.' : '',
+                recorded_by: builder.user_id,
+              })),
+            )
             .execute();
           const worked = plan.days.filter((d) => d.day < today).slice(0, 3);
           if (worked.length) {
             await trx
               .insertInto('time_entries')
-              .values(worked.map((d) => ({ booking_id: booking.id, builder_id: builder.id, worked_on: d.day, hours: new Decimal(d.hours).div(100).toFixed(2), note: 'Mounting and cabling' })))
+              .values(worked.map((d) => ({ booking_id: booking.id, builder_id: builder.id, worked_on: d.day, hours: new Decimal(d.hours).div(100).toFixed(2), note: 'Mounting and cabling', created_by: builder.user_id })))
               .execute();
           }
         }

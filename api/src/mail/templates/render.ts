@@ -201,7 +201,59 @@ function statusChanged(data: Data): Draft {
   };
 }
 
+/** An extra (with its price) or a top-view layout waiting for the player's yes or no. */
+function approvalRequested(data: Data): Draft {
+  const reference = requireString(data, 'reference');
+  const kind = requireString(data, 'kind');
+  if (kind !== 'extra' && kind !== 'layout') throw new MailDataError(`the approval kind "${kind}" is not extra or layout`);
+  const message = optionalString(data, 'message');
+  const answer = firstString(data, 'approveUrl', 'bookingUrl');
+  if (kind === 'extra') {
+    const description = requireString(data, 'description');
+    const price = money(data);
+    return {
+      subject: `Your approval, please: ${description} for ${price} (${reference})`,
+      letter: {
+        heading: 'An extra for your board needs your yes',
+        blocks: [
+          { kind: 'p', text: `Hello ${recipient(data)}, while working on build ${reference} your builder found something it needs.` },
+          { kind: 'facts', rows: [['Extra', description], ['Price', price], ['Why', requireString(data, 'reason')]] },
+          { kind: 'p', text: 'Nothing is added to your bill unless you approve it. Approve or decline on your build page; you can add a comment for the builder.' },
+          ...openIf('Approve or decline', answer),
+        ],
+      },
+    };
+  }
+  return {
+    subject: `Your approval, please: the layout of build ${reference}`,
+    letter: {
+      heading: 'Please look over your board layout',
+      blocks: [
+        { kind: 'p', text: `Hello ${recipient(data)}, before cutting cables your builder would like you to check the top view of your board for build ${reference}.` },
+        ...(message ? [{ kind: 'p' as const, text: `From your builder: ${message}` }] : []),
+        { kind: 'p', text: 'The build waits for your answer. Approve it, or decline with a comment saying what you would like moved.' },
+        ...openIf('See the layout and answer', answer),
+      ],
+    },
+  };
+}
+
 const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
+  'approval-requested': (data) => approvalRequested(data),
+  'shop-note': (data) => {
+    const reference = requireString(data, 'reference');
+    return {
+      subject: `A note about build ${reference}`,
+      letter: {
+        heading: 'A note from your builder',
+        blocks: [
+          { kind: 'p', text: `Hello ${recipient(data)}, a word about build ${reference}:` },
+          { kind: 'p', text: requireString(data, 'note') },
+          ...openIf('See your booking', optionalString(data, 'bookingUrl')),
+        ],
+      },
+    };
+  },
   welcome: (data, shop) => ({
     subject: `Welcome to ${shop.name}`,
     letter: {
@@ -303,7 +355,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       [
         ['Firm quote', optionalString(data, 'firmTotal')],
         ['Approved extras', optionalString(data, 'extras')],
-        ['Deposit paid', optionalString(data, 'depositPaid')],
+        ['Paid so far', firstString(data, 'paidSoFar', 'depositPaid')],
       ] as [string, string | undefined][]
     )
       .filter((row): row is [string, string] => !!row[1])

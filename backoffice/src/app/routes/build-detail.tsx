@@ -29,6 +29,8 @@ import { IntakePanel } from 'src/features/builds/components/IntakePanel';
 import { SafetyNote } from 'src/features/builds/components/SafetyNote';
 import { StateActions } from 'src/features/builds/components/StateActions';
 import { useMe } from 'src/features/auth/api/get-me';
+import { MoneyFactsTable } from '@loomwright/shared/ui';
+import { formatMoney, formatStamp } from 'src/lib/format';
 
 export function Component() {
   const { bookingId = '' } = useParams();
@@ -113,7 +115,9 @@ export function Component() {
             </Section>
           </Card>
           <Card variant="outlined">
-            <Section title="Payments">
+            <Section title="Money">
+              <MoneyFactsTable money={b.money} formatMoney={formatMoney} formatMoment={formatStamp} />
+              <Typography level="title-sm" component="h3">Checkout attempts</Typography>
               <PaymentsList payments={b.payments} />
             </Section>
           </Card>

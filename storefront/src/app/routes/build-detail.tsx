@@ -17,7 +17,8 @@ import { QuoteLines } from 'src/features/bookings/components/QuoteLines';
 import { ShipmentForm } from 'src/features/bookings/components/ShipmentForm';
 import { StatusTimeline } from 'src/features/bookings/components/StatusTimeline';
 import { PayButton } from 'src/features/payments/components/PayButton';
-import { formatAmount, formatDay } from 'src/lib/booking-format';
+import { MoneyFactsTable } from '@loomwright/shared/ui';
+import { formatAmount, formatDay, formatMoment } from 'src/lib/booking-format';
 
 const shippable: BookingState[] = ['requested', 'deposit_paid', 'scheduled'];
 const cancellable: BookingState[] = ['requested', 'deposit_paid'];
@@ -89,7 +90,8 @@ export function Component() {
             </Section>
             <Section title="Payments">
               <Typography sx={{ fontVariantNumeric: 'tabular-nums' }}>Deposit: {formatAmount(b.deposit, b.currency)}</Typography>
-              {b.balanceDue && <Typography sx={{ fontVariantNumeric: 'tabular-nums' }}>Balance due: {formatAmount(b.balanceDue, b.currency)}</Typography>}
+              <MoneyFactsTable money={b.money} formatMoney={formatAmount} formatMoment={formatMoment} />
+              <Typography level="title-sm" component="h3">Checkout attempts</Typography>
               <PaymentsList payments={b.payments} />
               {isPlayer && b.state === 'requested' && b.depositStatus !== 'paid' && <PayButton bookingId={b.id} label="Pay the deposit" />}
               {isPlayer && b.state === 'ready' && b.balanceDue && Number(b.balanceDue) > 0 && <PayButton bookingId={b.id} label="Pay the balance" />}

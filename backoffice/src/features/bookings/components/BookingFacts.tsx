@@ -31,7 +31,8 @@ export function BookingFacts({ booking }: { booking: BookingDetail }) {
         ['Estimate', formatMoneyRange(booking.totalLow, booking.totalHigh, c)],
         ['Firm quote', booking.firmTotal ? formatMoney(booking.firmTotal, c) : 'Set when a builder accepts'],
         ['Deposit', `${formatMoney(booking.deposit, c)} · ${depositWords[booking.depositStatus]}${depositPayment?.paidAt ? ` ${formatStamp(depositPayment.paidAt)}` : ''}`],
-        ['Balance due', booking.balanceDue ? formatMoney(booking.balanceDue, c) : '—'],
+        ['Approved extras', formatMoney(booking.money.approvedExtras, c)],
+        ['Balance due', booking.money.balanceDue === null ? 'Set when a builder accepts' : `${formatMoney(booking.money.balanceDue, c)}${booking.money.balanceWaived ? ' (waived)' : ''}`],
         ...(booking.inbound
           ? ([['Parcel in', `${booking.inbound.carrier} · ${booking.inbound.tracking}`]] as Array<[string, string]>)
           : []),

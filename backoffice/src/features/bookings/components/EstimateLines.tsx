@@ -1,5 +1,4 @@
 import Table from '@mui/joy/Table';
-import Decimal from 'decimal.js';
 import Typography from '@mui/joy/Typography';
 import { quantityWithUnit, type QuoteView } from '@loomwright/shared';
 import { formatDay, formatMoney, formatMoneyRange } from 'src/lib/format';
@@ -24,12 +23,12 @@ export function EstimateLines({ quote }: { quote: QuoteView }) {
           </tr>
         </thead>
         <tbody>
-          {e.lines.map((line) => {
-            // A firm quote prices labor at the assigned builder's own rate, not the level's range.
-            const firm = quote.kind === 'firm' && quote.hourlyRate !== null && line.kind === 'labor';
-            const unitPrice = firm ? quote.hourlyRate! : line.unitPrice;
+          {quote.lines.map((line) => {
+            // A firm quote's labor lines come at the assigned builder's own rate and add up to its labor total.
+            const firm = quote.kind === 'firm' && line.kind === 'labor';
+            const unitPrice = line.unitPrice;
             const amount = firm
-              ? formatMoney(new Decimal(line.quantity).times(quote.hourlyRate!).toFixed(2), c)
+              ? formatMoney(line.amount, c)
               : line.amountHigh
                 ? formatMoneyRange(line.amount, line.amountHigh, c)
                 : formatMoney(line.amount, c);

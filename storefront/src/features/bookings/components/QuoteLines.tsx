@@ -17,7 +17,7 @@ export function QuoteLines({ quote }: { quote: QuoteView }) {
           </tr>
         </thead>
         <tbody>
-          {quote.estimate.lines.map((line) => (
+          {quote.lines.map((line) => (
             <tr key={line.code}>
               <td>{line.label}</td>
               <td>

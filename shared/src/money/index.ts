@@ -1,0 +1,2 @@
+export * from './firm-quote';
+export * from './money-facts';
