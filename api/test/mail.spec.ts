@@ -211,7 +211,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
       const bad = await owner.get('/api/mail?state=lost&pageSize=500&page=0').expect(400);
       const text = JSON.stringify(bad.body.message);
       expect(text).toContain('state must be one of queued, sending, sent, failed');
-      expect(text).toContain('pageSize must be between 1 and 100');
+      expect(text).toContain('pageSize must be at most 100');
       expect(text).toContain('page must be 1 or more');
     });
 

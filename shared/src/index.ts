@@ -18,3 +18,4 @@ export * from './team-schemas';
 export * from './build-schemas';
 export * from './money';
 export * from './intake-checklist';
+export * from './shop-schemas';

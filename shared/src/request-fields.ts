@@ -70,7 +70,7 @@ export const flag = (field: string) => z.boolean({ error: `${field} must be true
 
 /** A value from a fixed list; the words list every choice. */
 export const oneOf = <const Values extends readonly [string, ...string[]]>(field: string, values: Values) =>
-  z.enum(values, { error: `${field} must be one of: ${values.join(', ')}` });
+  z.enum(values, { error: `${field} must be one of ${values.join(', ')}` });
 
 /**
  * A finite number of hours from `min` to `max` with at most two decimals (a quarter hour is

@@ -1,11 +1,11 @@
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { AuthUser, BenchSuggestResponse, BenchView } from '@loomwright/shared';
+import { benchQuerySchema, benchSuggestQuerySchema, type AuthUser, type BenchQuery, type BenchSuggestQuery, type BenchSuggestResponse, type BenchView } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { BenchService } from './bench.service';
-import { GetBenchDto } from './dto/get-bench.dto';
-import { SuggestBenchDto } from './dto/suggest-bench.dto';
+import { ApiZodQuery } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 
 @ApiTags('bench')
 @ApiCookieAuth('lw_session')
@@ -16,13 +16,15 @@ export class BenchController {
 
   @Get()
   @ApiOkResponse({ description: 'Per builder per day: capacity, booked hours and the builds on that day (the signed-in builder first).' })
-  view(@CurrentUser() user: AuthUser, @Query() query: GetBenchDto): Promise<BenchView> {
+  @ApiZodQuery(benchQuerySchema)
+  view(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(benchQuerySchema)) query: BenchQuery): Promise<BenchView> {
     return this.bench.view(user, query);
   }
 
   @Get('suggest')
   @ApiOkResponse({ description: 'The earliest bench date per eligible builder that holds the build, with the expected completion.' })
-  suggest(@CurrentUser() user: AuthUser, @Query() query: SuggestBenchDto): Promise<BenchSuggestResponse> {
+  @ApiZodQuery(benchSuggestQuerySchema)
+  suggest(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(benchSuggestQuerySchema)) query: BenchSuggestQuery): Promise<BenchSuggestResponse> {
     return this.bench.suggest(user, query.bookingId, query.builderId);
   }
 }

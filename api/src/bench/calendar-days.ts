@@ -3,13 +3,7 @@
  * calendar, not an instant, so everything here runs on UTC midnights and never sees a time zone.
  */
 const DAY_MS = 86_400_000;
-const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
-
-export function isCalendarDay(value: unknown): value is string {
-  if (typeof value !== 'string' || !ISO_DAY.test(value)) return false;
-  const d = new Date(`${value}T00:00:00Z`);
-  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === value;
-}
+export { isCalendarDay } from '@loomwright/shared';
 
 export function addDays(day: string, days: number): string {
   return new Date(Date.parse(`${day}T00:00:00Z`) + days * DAY_MS).toISOString().slice(0, 10);

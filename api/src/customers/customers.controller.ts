@@ -1,9 +1,10 @@
 import { BadRequestException, Controller, Get, Param, ParseUUIDPipe, Query } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { CustomerDetail, CustomerPage } from '@loomwright/shared';
+import { listCustomersQuerySchema, type CustomerDetail, type CustomerPage, type ListCustomersQuery } from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
 import { CustomersService } from './customers.service';
-import { ListCustomersDto } from './dto/list-customers.dto';
+import { ApiZodQuery } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 
 @ApiTags('customers')
 @ApiCookieAuth('lw_session')
@@ -14,7 +15,8 @@ export class CustomersController {
 
   @Get()
   @ApiOkResponse({ description: 'A page of customers with their build counts (server-side sort and search).' })
-  list(@Query() query: ListCustomersDto): Promise<CustomerPage> {
+  @ApiZodQuery(listCustomersQuerySchema)
+  list(@Query(new ZodValidationPipe(listCustomersQuerySchema)) query: ListCustomersQuery): Promise<CustomerPage> {
     return this.customers.list(query);
   }
 

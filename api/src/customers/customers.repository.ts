@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { sql } from 'kysely';
 import { Database, Executor } from '../database/database';
-import type { CustomerSort } from './dto/list-customers.dto';
+import type { CustomerSort } from '@loomwright/shared';
 
 /** States in which a build is still with the shop or on its way there. */
 const ACTIVE = ['requested', 'deposit_paid', 'scheduled', 'pedals_received', 'on_bench', 'testing', 'ready'];

@@ -2,7 +2,7 @@ import { Injectable, NotFoundException } from '@nestjs/common';
 import type { CustomerDetail, CustomerPage, CustomerSummary } from '@loomwright/shared';
 import { Database } from '../database/database';
 import { CustomersRepository } from './customers.repository';
-import type { ListCustomersDto } from './dto/list-customers.dto';
+import type { ListCustomersQuery } from '@loomwright/shared';
 
 // Generated<Timestamp> columns come back typed as the column type; at runtime pg gives a Date.
 const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
@@ -17,7 +17,7 @@ export class CustomersService {
     private readonly customers: CustomersRepository,
   ) {}
 
-  async list(query: ListCustomersDto): Promise<CustomerPage> {
+  async list(query: ListCustomersQuery): Promise<CustomerPage> {
     const { rows, total } = await this.customers.page(this.db, query);
     return { items: rows.map((r) => this.toSummary(r)), total, page: query.page, pageSize: query.pageSize };
   }

@@ -1,9 +1,10 @@
 import { BadRequestException, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
-import type { AuthUser, MailLogEntry, MailLogPage } from '@loomwright/shared';
+import { listMailQuerySchema, type AuthUser, type ListMailQuery, type MailLogEntry, type MailLogPage } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { ListMailDto } from './dto/list-mail.dto';
+import { ApiZodQuery } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { MailService } from './mail.service';
 
 @ApiTags('mail')
@@ -14,7 +15,8 @@ export class MailController {
   /** The mail log, newest first. */
   @Get()
   @Roles('builder', 'owner')
-  list(@Query() query: ListMailDto, @CurrentUser() user: AuthUser): Promise<MailLogPage> {
+  @ApiZodQuery(listMailQuerySchema)
+  list(@Query(new ZodValidationPipe(listMailQuerySchema)) query: ListMailQuery, @CurrentUser() user: AuthUser): Promise<MailLogPage> {
     return this.mail.list({ ...query, q: query.q?.trim() || undefined }, user.role === 'owner');
   }
 

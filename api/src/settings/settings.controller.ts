@@ -1,9 +1,17 @@
 import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { AddClosureResponse, ShopClosureView, ShopSettingsView } from '@loomwright/shared';
+import {
+  createClosureSchema,
+  updateSettingsSchema,
+  type AddClosureResponse,
+  type CreateClosureInput,
+  type ShopClosureView,
+  type ShopSettingsView,
+  type UpdateSettingsInput,
+} from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
-import { CreateClosureDto } from './dto/create-closure.dto';
-import { UpdateSettingsDto } from './dto/update-settings.dto';
+import { ApiZodBody } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { SettingsService } from './settings.service';
 
 @ApiTags('settings')
@@ -21,7 +29,8 @@ export class SettingsController {
 
   @Patch()
   @Roles('owner')
-  update(@Body() dto: UpdateSettingsDto): Promise<ShopSettingsView> {
+  @ApiZodBody(updateSettingsSchema)
+  update(@Body(new ZodValidationPipe(updateSettingsSchema)) dto: UpdateSettingsInput): Promise<ShopSettingsView> {
     return this.settings.update(dto);
   }
 
@@ -33,7 +42,8 @@ export class SettingsController {
 
   @Post('closures')
   @Roles('owner')
-  addClosure(@Body() dto: CreateClosureDto): Promise<AddClosureResponse> {
+  @ApiZodBody(createClosureSchema)
+  addClosure(@Body(new ZodValidationPipe(createClosureSchema)) dto: CreateClosureInput): Promise<AddClosureResponse> {
     return this.settings.addClosure(dto);
   }
 

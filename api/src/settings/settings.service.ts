@@ -1,22 +1,10 @@
 import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
-import type { AddClosureResponse, ShopClosureView, ShopSettingsView } from '@loomwright/shared';
+import type { AddClosureResponse, CreateClosureInput, ShopClosureView, ShopSettingsView, UpdateSettingsInput } from '@loomwright/shared';
 import { addDays, daysBetween, todayIn } from '../bench/calendar-days';
 import { isKnownCountry, publicHolidaysBetween } from '../bench/public-holidays';
 import { Database } from '../database/database';
-import type { CreateClosureDto } from './dto/create-closure.dto';
-import type { UpdateSettingsDto } from './dto/update-settings.dto';
 import { SettingsRepository } from './settings.repository';
 
-const MAX_CLOSURE_DAYS = 366;
-
-export function isTimeZone(name: string): boolean {
-  try {
-    new Intl.DateTimeFormat('en-US', { timeZone: name });
-    return true;
-  } catch {
-    return false;
-  }
-}
 
 @Injectable()
 export class SettingsService {
@@ -43,21 +31,17 @@ export class SettingsService {
     };
   }
 
-  async update(dto: UpdateSettingsDto): Promise<ShopSettingsView> {
+  async update(dto: UpdateSettingsInput): Promise<ShopSettingsView> {
     if (dto.countryCode && !isKnownCountry(dto.countryCode)) {
       throw new BadRequestException(`countryCode ${dto.countryCode.toUpperCase()} has no public-holiday data; use a two-letter ISO 3166-1 code like US or GB.`);
     }
-    if (dto.timezone !== undefined && !isTimeZone(dto.timezone)) {
-      throw new BadRequestException(`timezone ${dto.timezone} is not an IANA time zone name like America/Chicago.`);
-    }
     const values = {
-      ...(dto.name !== undefined && { name: dto.name.trim() }),
-      ...(dto.tagline !== undefined && { tagline: dto.tagline.trim() }),
-      ...(dto.contactEmail !== undefined && { contact_email: dto.contactEmail.trim().toLowerCase() }),
-      ...(dto.countryCode !== undefined && { country_code: dto.countryCode.toUpperCase() }),
+      ...(dto.name !== undefined && { name: dto.name }),
+      ...(dto.tagline !== undefined && { tagline: dto.tagline }),
+      ...(dto.contactEmail !== undefined && { contact_email: dto.contactEmail }),
+      ...(dto.countryCode !== undefined && { country_code: dto.countryCode }),
       ...(dto.timezone !== undefined && { timezone: dto.timezone }),
     };
-    if (Object.keys(values).length === 0) throw new BadRequestException('Send at least one of name, tagline, contactEmail, countryCode, timezone.');
     const updated = await this.settings.update(this.db, values);
     if (!updated) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
     return this.get();
@@ -68,12 +52,9 @@ export class SettingsService {
   }
 
   /** Adds a closure; builds already on the bench in those days are listed so the shop can move them. */
-  async addClosure(dto: CreateClosureDto): Promise<AddClosureResponse> {
-    const span = daysBetween(dto.startsOn, dto.endsOn);
-    if (span < 0) throw new BadRequestException('endsOn must be on or after startsOn.');
-    if (span >= MAX_CLOSURE_DAYS) throw new BadRequestException(`A closure can last at most ${MAX_CLOSURE_DAYS} days; add another for longer.`);
+  async addClosure(dto: CreateClosureInput): Promise<AddClosureResponse> {
     return this.db.transaction().execute(async (trx) => {
-      const row = await this.settings.insertClosure(trx, { startsOn: dto.startsOn, endsOn: dto.endsOn, reason: dto.reason.trim() });
+      const row = await this.settings.insertClosure(trx, { startsOn: dto.startsOn, endsOn: dto.endsOn, reason: dto.reason });
       const affected = await this.settings.buildsWithBenchTimeBetween(trx, dto.startsOn, dto.endsOn);
       return {
         id: row.id,

@@ -5,25 +5,19 @@ import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import type { ShopSettingsView } from '@loomwright/shared';
+import { createClosureSchema, type CreateClosureInput, type ShopSettingsView } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay } from 'src/lib/format';
 import { useAddClosure } from '../api/add-closure';
 import { useRemoveClosure } from '../api/remove-closure';
 
-const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick both days.');
-const closureSchema = z
-  .object({ startsOn: day, endsOn: day, reason: z.string().trim().min(2, 'Say why the shop is closed.').max(200) })
-  .refine((c) => c.endsOn >= c.startsOn, { path: ['endsOn'], message: 'The last day cannot be before the first.' });
-
 /** Shop-wide closed days: no builder has bench time on them. */
 export function ClosuresList({ settings, canEdit, onSaved }: { settings: ShopSettingsView; canEdit: boolean; onSaved: (m: string) => void }) {
   const add = useAddClosure();
   const remove = useRemoveClosure();
-  const form = useForm<z.infer<typeof closureSchema>>({ resolver: zodResolver(closureSchema), defaultValues: { startsOn: '', endsOn: '', reason: '' } });
+  const form = useForm<CreateClosureInput>({ resolver: zodResolver(createClosureSchema), defaultValues: { startsOn: '', endsOn: '', reason: '' } });
   const e = form.formState.errors;
   const firstError = e.startsOn?.message ?? e.endsOn?.message ?? e.reason?.message;
   return (

@@ -5,26 +5,18 @@ import FormLabel from '@mui/joy/FormLabel';
 import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
-import type { ShopSettingsView } from '@loomwright/shared';
+import { shopDetailsSchema, type ShopDetailsInput, type ShopSettingsView } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { useUpdateSettings } from '../api/update-settings';
 
-const detailsSchema = z.object({
-  name: z.string().trim().min(2, 'The shop name needs at least 2 characters.').max(120),
-  tagline: z.string().trim().max(200),
-  contactEmail: z.email('The contact e-mail must be an e-mail address.'),
-  countryCode: z.string().trim().toUpperCase().regex(/^[A-Z]{2}$/, 'The country is a two-letter ISO 3166 code, such as US or DE.'),
-  timezone: z.string().trim().min(3, 'The time zone is an IANA name such as America/Chicago.'),
-});
-type Details = z.infer<typeof detailsSchema>;
+type Details = ShopDetailsInput;
 
 export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: ShopSettingsView; canEdit: boolean; onSaved: (m: string) => void }) {
   const update = useUpdateSettings();
-  const form = useForm<Details>({ resolver: zodResolver(detailsSchema) });
+  const form = useForm<Details>({ resolver: zodResolver(shopDetailsSchema) });
   useEffect(() => {
     form.reset({
       name: settings.name,

@@ -1,0 +1,107 @@
+import { z } from 'zod';
+import { builderLevels } from './domain';
+import { mailStates } from './mail-types';
+import { calendarDay, oneOf, pagingQuery, requestObject, sortOrder, text, uuid } from './request-fields';
+
+/** An IANA time zone name the runtime knows (ECMA-402 `timeZone`), e.g. America/Chicago. */
+export function isTimeZone(name: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone: name });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+const timeZoneWords = 'timezone must be an IANA time zone name like America/Chicago';
+const emailWords = 'contactEmail must be an e-mail address, like shop@example.com';
+
+/** The shop's details as the owner edits them on the settings page (every field required there). */
+export const shopDetailsSchema = requestObject({
+  name: text('name', { max: 120, min: 2, tooShort: 'name must be at least 2 characters' }),
+  tagline: text('tagline', { max: 200 }),
+  contactEmail: z
+    .string({ error: emailWords })
+    .trim()
+    .toLowerCase()
+    .max(254, { error: emailWords })
+    .pipe(z.email({ error: emailWords })),
+  // ISO 3166-1 alpha-2; whether holiday data exists for it is checked by the API, which holds that data.
+  countryCode: z
+    .string({ error: 'countryCode must be a two-letter ISO 3166-1 country code like US' })
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{2}$/, { error: 'countryCode must be a two-letter ISO 3166-1 country code like US' }),
+  timezone: z.string({ error: timeZoneWords }).trim().max(64, { error: timeZoneWords, abort: true }).refine(isTimeZone, { error: timeZoneWords }),
+});
+export type ShopDetailsInput = z.infer<typeof shopDetailsSchema>;
+
+/** PATCH /api/settings: any of the shop's details. */
+export const updateSettingsSchema = shopDetailsSchema.partial().refine((body) => Object.values(body).some((value) => value !== undefined), {
+  error: 'Send at least one of name, tagline, contactEmail, countryCode, timezone.',
+});
+export type UpdateSettingsInput = z.infer<typeof updateSettingsSchema>;
+
+/** A closure may span at most a year; a longer one is two closures. */
+export const MAX_CLOSURE_DAYS = 366;
+const DAY_MS = 86_400_000;
+
+/** POST /api/settings/closures: days the whole shop is closed, first and last inclusive. */
+export const createClosureSchema = requestObject({
+  startsOn: calendarDay('startsOn'),
+  endsOn: calendarDay('endsOn'),
+  reason: text('reason', { max: 200, min: 2, tooShort: 'reason must say why the shop is closed' }),
+})
+  .refine((c) => c.endsOn >= c.startsOn, { path: ['endsOn'], error: 'endsOn must be on or after startsOn.' })
+  .refine((c) => (Date.parse(c.endsOn) - Date.parse(c.startsOn)) / DAY_MS < MAX_CLOSURE_DAYS, {
+    path: ['endsOn'],
+    error: `A closure can last at most ${MAX_CLOSURE_DAYS} days; add another for longer.`,
+  });
+export type CreateClosureInput = z.infer<typeof createClosureSchema>;
+
+export const customerSorts = ['name', 'email', 'createdAt', 'buildCount', 'lastBookingAt'] as const;
+export type CustomerSort = (typeof customerSorts)[number];
+
+/** GET /api/customers. */
+export const listCustomersQuerySchema = requestObject({
+  ...pagingQuery,
+  sort: oneOf('sort', customerSorts).default('name'),
+  order: sortOrder('asc'),
+  /** Part of a name or e-mail address. */
+  search: text('search', { max: 100 }).optional(),
+});
+export type ListCustomersQuery = z.infer<typeof listCustomersQuerySchema>;
+
+/** GET /api/mail: the mail log. */
+export const listMailQuerySchema = requestObject({
+  ...pagingQuery,
+  state: oneOf('state', mailStates).optional(),
+  /** Part of the recipient address. */
+  q: text('q', { max: 200 }).optional(),
+});
+export type ListMailQuery = z.infer<typeof listMailQuerySchema>;
+
+/** GET /api/bench: the days shown (default today and 13 more) and optionally one builder. */
+export const benchQuerySchema = requestObject({
+  from: calendarDay('from').optional(),
+  to: calendarDay('to').optional(),
+  builderId: uuid('builderId', 'a builder').optional(),
+});
+export type BenchQuery = z.infer<typeof benchQuerySchema>;
+
+/** GET /api/bench/suggest. */
+export const benchSuggestQuerySchema = requestObject({
+  bookingId: uuid('bookingId', 'a booking'),
+  /** Only this builder (the owner may pick one below the rig's level). */
+  builderId: uuid('builderId', 'a builder').optional(),
+});
+export type BenchSuggestQuery = z.infer<typeof benchSuggestQuerySchema>;
+
+/** GET /api/bench/lead-time: the estimate's labor hours and the level it is priced at. */
+export const leadTimeQuerySchema = requestObject({
+  hours: z
+    .string({ error: 'hours must be the estimate’s labor hours, a decimal above 0 and below 1000, e.g. 13.00' })
+    .regex(/^(?!0+(\.0+)?$)\d{1,3}(\.\d{1,2})?$/, { error: 'hours must be the estimate’s labor hours, a decimal above 0 and below 1000, e.g. 13.00' }),
+  level: z.enum(builderLevels, { error: `level must be one of ${builderLevels.join(', ')}` }),
+});
+export type LeadTimeQuery = z.infer<typeof leadTimeQuerySchema>;
