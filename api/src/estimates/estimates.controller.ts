@@ -1,8 +1,8 @@
 import { Body, Controller, HttpCode, Post } from '@nestjs/common';
-import { ApiBadRequestResponse, ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBadRequestResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { rigConfigurationSchema, type RigConfiguration } from '@loomwright/shared';
-import { z } from 'zod';
 import { Public } from '../auth/public.decorator';
+import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { EstimatesService } from './estimates.service';
 
@@ -14,7 +14,7 @@ export class EstimatesController {
   @Public()
   @Post()
   @HttpCode(200)
-  @ApiBody({ schema: z.toJSONSchema(rigConfigurationSchema, { io: 'input', unrepresentable: 'any' }) as object })
+  @ApiZodBody(rigConfigurationSchema)
   @ApiOkResponse({ description: 'An itemized estimate with the rig checks; every amount a decimal string.' })
   @ApiBadRequestResponse({ description: 'One message per field that needs fixing.' })
   estimate(@Body(new ZodValidationPipe(rigConfigurationSchema)) config: RigConfiguration) {

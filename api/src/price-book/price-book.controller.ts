@@ -1,10 +1,10 @@
 import { Body, Controller, Get, Post } from '@nestjs/common';
-import { ApiBody, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { publishPriceBookSchema, type AuthUser, type PriceBook } from '@loomwright/shared';
-import { z } from 'zod';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
+import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { PriceBookService } from './price-book.service';
 
@@ -29,7 +29,7 @@ export class PriceBookController {
 
   @Roles('owner')
   @Post('price-book')
-  @ApiBody({ schema: z.toJSONSchema(publishPriceBookSchema, { io: 'input', unrepresentable: 'any' }) as object })
+  @ApiZodBody(publishPriceBookSchema)
   @ApiCreatedResponse({ description: 'The new version; quotes priced earlier keep theirs.' })
   publish(
     @Body(new ZodValidationPipe(publishPriceBookSchema)) body: { book: PriceBook; notes: string },
