@@ -105,6 +105,7 @@ const matrix: Record<string, Entry> = {
   'POST /api/bookings/:id/refund': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/refund` },
   'POST /api/bookings/:id/balance/record': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/balance/record` },
   'POST /api/bookings/:id/balance/request': { ...staff(409), path: (fx) => `/api/bookings/${fx.bookingOfA}/balance/request` },
+  'POST /api/bookings/:id/dispute/release': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/dispute/release` },
   'POST /api/payments/webhook': open(400),
   // the bench and builds
   'GET /api/bench': staff(200),

@@ -98,7 +98,7 @@ describe('booking requests, deposit checkout and webhooks against the local paym
     const booking = await requestBuild();
     const url = await checkoutUrl(booking.id);
     expect(url.startsWith(h.fake.url)).toBe(true);
-    const session = [...h.fake.store.sessions.values()].find((s) => s.metadata.bookingId === booking.id)!;
+    const session = [...h.fake.store.sessions.values()].find((s) => s.metadata?.bookingId === booking.id)!;
     // ISO 4217: USD has a minor unit of 2 decimal places, so $X.YZ is XYZ cents.
     expect(session.amount_total).toBe(new Decimal(booking.deposit).times(100).toNumber());
     expect(session.success_url).toBe(`http://storefront.test/checkout/return?booking=${booking.id}&result=paid`);
@@ -170,7 +170,7 @@ describe('booking requests, deposit checkout and webhooks against the local paym
     const answers = await Promise.all(Array.from({ length: 20 }, () => player.post(`/api/bookings/${booking.id}/checkout`).send({})));
     expect(answers.map((a) => a.status)).toEqual(Array(20).fill(200));
     expect(new Set(answers.map((a) => a.body.url)).size).toBe(1);
-    expect([...h.fake.store.sessions.values()].filter((s) => s.metadata.bookingId === booking.id)).toHaveLength(1);
+    expect([...h.fake.store.sessions.values()].filter((s) => s.metadata?.bookingId === booking.id)).toHaveLength(1);
     expect(await paymentsOf(booking.id)).toHaveLength(1);
   });
 

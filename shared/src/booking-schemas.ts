@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { depositStatuses } from './booking-types';
 import { bookingStates } from './domain';
 import { rigConfigurationSchema } from './estimate/schema';
 import { oneOf, pagingQuery, requestObject, sortOrder, text } from './request-fields';
@@ -9,6 +10,12 @@ export const shipmentSchema = requestObject({
   tracking: text('tracking', { max: 100, min: 1, tooShort: 'Give the tracking number (tracking)' }),
 });
 export type ShipmentInput = z.infer<typeof shipmentSchema>;
+
+/** POST /api/bookings/:id/dispute/release: the owner lets a disputed build be delivered, saying why. */
+export const releaseDisputeSchema = requestObject({
+  note: text('note', { max: 1000, min: 1, tooShort: 'note must say why the build may be delivered despite the dispute' }),
+});
+export type ReleaseDisputeInput = z.infer<typeof releaseDisputeSchema>;
 
 /** The notes a player adds to a build request. */
 export const requestNotesSchema = z.object({
@@ -29,7 +36,6 @@ export const createBookingSchema = requestObject({
 export type CreateBookingInput = z.infer<typeof createBookingSchema>;
 
 export const bookingSortColumns = ['created_at', 'updated_at', 'reference', 'state', 'bench_date'] as const;
-export const depositStatuses = ['unpaid', 'pending', 'paid', 'refunded'] as const;
 
 /** GET /api/bookings: a page of bookings, filtered and sorted. */
 export const listBookingsQuerySchema = requestObject({

@@ -11,7 +11,12 @@ export interface Page<T> {
   pageSize: number;
 }
 
-export type DepositStatus = 'unpaid' | 'pending' | 'paid' | 'refunded';
+/**
+ * A booking's deposit in one word: `processing` is a bank debit still settling; `disputed` is a
+ * paid deposit the player's bank has disputed (a chargeback), until the bank decides for the shop.
+ */
+export const depositStatuses = ['unpaid', 'pending', 'processing', 'paid', 'disputed', 'refunded'] as const;
+export type DepositStatus = (typeof depositStatuses)[number];
 
 export interface PersonRef {
   id: string;
@@ -78,11 +83,28 @@ export interface PaymentView {
   kind: 'deposit' | 'balance';
   amount: string;
   currency: string;
-  status: 'pending' | 'paid' | 'failed' | 'expired' | 'refunded';
+  /** `processing`: a bank debit that settles (or fails) in a few working days. */
+  status: 'pending' | 'processing' | 'paid' | 'failed' | 'expired' | 'refunded';
   failureMessage: string | null;
   paidAt: string | null;
   refundedAt: string | null;
   createdAt: string;
+  /** The provider's status of the latest refund, if one was asked for. */
+  refundStatus: 'pending' | 'requires_action' | 'succeeded' | 'failed' | 'canceled' | null;
+  refundFailure: string | null;
+  dispute: PaymentDisputeView | null;
+}
+
+/** A chargeback the player's bank opened on a payment. */
+export interface PaymentDisputeView {
+  /** The provider's words: needs_response, under_review, won, lost, … */
+  status: string;
+  reason: string;
+  amount: string;
+  openedAt: string;
+  /** When the owner decided the build may be delivered anyway (null: delivery waits). */
+  releasedAt: string | null;
+  releasedBy: string | null;
 }
 
 export interface BookingEventView {
@@ -131,4 +153,6 @@ export interface BookingDetail extends BookingSummary {
   layoutApprovals: LayoutApprovalView[];
   /** Every money figure of the booking, from the one function both apps, the mails and the build sheet read. */
   money: MoneyFacts;
+  /** Why delivery waits on the owner (a disputed payment), in words; null when nothing holds it. */
+  deliveryHold: string | null;
 }

@@ -1,92 +1,60 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { dirname } from 'node:path';
+import type Stripe from 'stripe';
 
 export const fakeId = (prefix: string) => `${prefix}_test_${randomBytes(12).toString('hex')}`;
-export const nowSeconds = () => Math.floor(Date.now() / 1000);
 
-export type Metadata = Record<string, string>;
+/**
+ * The fake's sense of time. Tests move it forward (`advance`) to reach a session's `expires_at`
+ * without waiting a day; everything the fake stamps or compares reads `now()`.
+ */
+export class FakeClock {
+  offsetSeconds = 0;
+  now(): number {
+    return Math.floor(Date.now() / 1000) + this.offsetSeconds;
+  }
+  advance(seconds: number): void {
+    this.offsetSeconds += seconds;
+  }
+}
 
-export interface FakeSession {
-  id: string;
-  object: 'checkout.session';
-  mode: string;
-  status: 'open' | 'complete' | 'expired';
-  payment_status: 'unpaid' | 'paid';
-  amount_total: number;
-  amount_subtotal: number;
-  currency: string;
-  metadata: Metadata;
-  client_reference_id: string | null;
-  customer_email: string | null;
-  success_url: string;
-  cancel_url: string | null;
-  url: string | null;
-  payment_intent: string | null;
-  created: number;
-  expires_at: number;
-  livemode: false;
-  /** Not part of the wire object: what the page shows and what the intent is given. */
+/** What happens after the money is asked for: the provider's own behaviours, chosen by test number or per call. */
+export type SettleOutcome = 'succeed' | 'fail';
+export type RefundBehaviour = 'succeed' | 'pending' | 'fail' | 'fail_later';
+
+/** What the fake keeps beside a session that is not part of the wire object. */
+export interface SessionExtra {
   lineItems: Array<{ name: string; description: string | null; unitAmount: number; quantity: number }>;
-  intentMetadata: Metadata;
+  intentMetadata: Stripe.Metadata;
   lastError: string | null;
 }
 
-export interface FakeIntent {
-  id: string;
-  object: 'payment_intent';
-  amount: number;
-  amount_received: number;
-  currency: string;
-  status: 'requires_payment_method' | 'succeeded';
-  metadata: Metadata;
-  latest_charge: string | null;
-  last_payment_error: { code: string; decline_code?: string; message: string; type: 'card_error' } | null;
-  created: number;
-  livemode: false;
+/** What the fake keeps beside an intent: how a processing payment ends, and what its refunds and dispute do. */
+export interface IntentPlan {
+  settle?: { outcome: SettleOutcome; code?: string; message?: string };
+  refund?: RefundBehaviour;
+  dispute?: { reason: string };
 }
 
-export interface FakeCharge {
-  id: string;
-  object: 'charge';
-  amount: number;
-  amount_refunded: number;
-  currency: string;
-  payment_intent: string;
-  paid: boolean;
-  refunded: boolean;
-  status: 'succeeded';
-  metadata: Metadata;
-  created: number;
-  livemode: false;
-}
-
-export interface FakeRefund {
-  id: string;
-  object: 'refund';
-  amount: number;
-  currency: string;
-  charge: string;
-  payment_intent: string;
-  reason: string | null;
-  status: 'succeeded';
-  metadata: Metadata;
-  created: number;
-}
-
-const storedMaps = ['sessions', 'intents', 'charges', 'refunds', 'idempotent'] as const;
+const storedMaps = ['sessions', 'sessionExtras', 'intents', 'intentPlans', 'charges', 'refunds', 'disputes', 'idempotent'] as const;
 type StoredMap = (typeof storedMaps)[number];
 
 /**
- * The fake's memory, like a provider's test-mode account. Given a file, it is kept there after
- * every change and read back at start, so restarting `npm start` forgets no open checkout, paid
- * deposit or refund; without one (the tests) it lives as long as the process.
+ * The fake's memory, like a provider's test-mode account. Every wire object is typed with the
+ * SDK's own generated types, so a field the provider always sends cannot be forgotten. Given a
+ * file, the store is kept there after every change and read back at start, so restarting
+ * `npm start` forgets no open checkout, paid deposit or refund; without one (the tests) it lives
+ * as long as the process.
  */
 export class FakeStore {
-  readonly sessions = new Map<string, FakeSession>();
-  readonly intents = new Map<string, FakeIntent>();
-  readonly charges = new Map<string, FakeCharge>();
-  readonly refunds = new Map<string, FakeRefund>();
+  readonly sessions = new Map<string, Stripe.Checkout.Session>();
+  readonly sessionExtras = new Map<string, SessionExtra>();
+  readonly intents = new Map<string, Stripe.PaymentIntent>();
+  readonly intentPlans = new Map<string, IntentPlan>();
+  readonly charges = new Map<string, Stripe.Charge>();
+  readonly refunds = new Map<string, Stripe.Refund>();
+  readonly disputes = new Map<string, Stripe.Dispute>();
   /** Idempotency-Key → the first request's fingerprint and answer, replayed on a repeat. */
   readonly idempotent = new Map<string, { fingerprint: string; status: number; body: unknown }>();
 
@@ -105,9 +73,11 @@ export class FakeStore {
     renameSync(`${this.file}.tmp`, this.file);
   }
 
-  /** The wire form of a session: what GET /v1/checkout/sessions/:id answers. */
-  sessionView(s: FakeSession) {
-    const { lineItems: _l, intentMetadata: _m, lastError: _e, ...wire } = s;
-    return wire;
+  extra(sessionId: string): SessionExtra {
+    return this.sessionExtras.get(sessionId) ?? { lineItems: [], intentMetadata: {}, lastError: null };
+  }
+
+  chargeOf(intent: Stripe.PaymentIntent): Stripe.Charge | undefined {
+    return typeof intent.latest_charge === 'string' ? this.charges.get(intent.latest_charge) : undefined;
   }
 }

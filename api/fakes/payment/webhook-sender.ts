@@ -1,16 +1,7 @@
 import Stripe from 'stripe';
 
-export interface FakeEvent {
-  id: string;
-  object: 'event';
-  api_version: string;
-  created: number;
-  type: string;
-  livemode: false;
-  pending_webhooks: number;
-  request: { id: null; idempotency_key: null };
-  data: { object: Record<string, unknown> };
-}
+/** An event as the fake sends it: the SDK's own `Stripe.Event`. */
+export type FakeEvent = Stripe.Event;
 
 export interface DeliveryAttempt {
   eventId: string;

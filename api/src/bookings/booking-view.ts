@@ -15,6 +15,7 @@ import type {
 } from '@loomwright/shared';
 import { firmQuoteLines } from '@loomwright/shared';
 import type { BookingEventRow, BookingListRow, ExtraRow, LayoutApprovalRow, PaymentRow, PhotoRow, QuoteRow } from './bookings.repository';
+import { fromMinorUnits } from '../payments/minor-units';
 
 // Timestamps arrive as Date from pg; the Generated<ColumnType> wrapper hides that from the type.
 const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
@@ -70,7 +71,34 @@ export function paymentView(row: PaymentRow): PaymentView {
     paidAt: row.paid_at ? iso(row.paid_at) : null,
     refundedAt: row.refunded_at ? iso(row.refunded_at) : null,
     createdAt: iso(row.created_at),
+    refundStatus: row.refund_status,
+    refundFailure: row.refund_failure,
+    dispute: row.dispute_id
+      ? {
+          status: row.dispute_status ?? 'needs_response',
+          reason: row.dispute_reason ?? '',
+          amount: row.dispute_amount_minor ? fromMinorUnits(row.dispute_amount_minor, row.currency.trim()) : row.amount,
+          openedAt: iso(row.dispute_opened_at ?? row.created_at),
+          releasedAt: row.dispute_released_at ? iso(row.dispute_released_at) : null,
+          releasedBy: row.dispute_released_by,
+        }
+      : null,
   };
+}
+
+/** Delivery waits while a payment of the booking is disputed and the owner has not decided; the words say why. */
+export function deliveryHold(payments: PaymentRow[]): string | null {
+  const held = payments.find((p) => p.dispute_id && !p.dispute_released_at);
+  if (!held) return null;
+  const what = held.kind === 'deposit' ? 'deposit' : 'balance';
+  const state = held.dispute_status ?? 'needs_response';
+  const outcome =
+    state === 'won'
+      ? 'the bank decided for the shop'
+      : state === 'lost'
+        ? 'the bank decided for the player and the money was taken back'
+        : 'the bank has not decided yet';
+  return `The player's bank disputed the ${what} (${(held.dispute_reason ?? 'no reason given').replace(/_/g, ' ')}); ${outcome}. Delivery waits until the owner decides.`;
 }
 
 export function eventView(row: BookingEventRow): BookingEventView {
@@ -198,6 +226,7 @@ export function detailView(
     extras: parts.extras.map(extraView),
     layoutApprovals: parts.layoutApprovals.map(layoutApprovalView),
     money: parts.money,
+    deliveryHold: deliveryHold(parts.payments),
   };
 }
 

@@ -11,6 +11,7 @@ import type {
   QuotesTable,
 } from '../database/database';
 import { Database } from '../database/database';
+import type { DepositStatus } from '@loomwright/shared';
 
 export type BookingRow = Selectable<BookingsTable>;
 export type QuoteRow = Selectable<QuotesTable>;
@@ -26,7 +27,7 @@ export interface BookingListRow extends BookingRow {
   builder_user_id: string | null;
   builder_name: string | null;
   builder_level: string | null;
-  deposit_status: 'unpaid' | 'pending' | 'paid' | 'refunded';
+  deposit_status: DepositStatus;
 }
 
 export interface BookingListQuery {
@@ -41,10 +42,14 @@ export interface BookingListQuery {
 }
 
 // A booking's deposit in one word, from its payment rows: paid wins over an open checkout.
-const depositStatusSql = sql<'unpaid' | 'pending' | 'paid' | 'refunded'>`(
+// A dispute the bank has not decided for the shop shows first: the money may not stay.
+const depositStatusSql = sql<DepositStatus>`(
   case
+    when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.dispute_id is not null
+                 and p.dispute_status not in ('won', 'warning_closed')) then 'disputed'
     when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'paid') then 'paid'
     when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'refunded') then 'refunded'
+    when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'processing') then 'processing'
     when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'pending') then 'pending'
     else 'unpaid'
   end)`;

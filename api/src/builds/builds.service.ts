@@ -19,6 +19,7 @@ import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { MailService } from '../mail/mail.service';
 import { formatDay, formatMoney as formatMoneyWords } from '../mail/templates/format';
 import { PaymentsService } from '../payments/payments.service';
+import { deliveryHold } from '../bookings/booking-view';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
 import { firmQuoteFigures } from './firm-quote';
@@ -256,6 +257,11 @@ export class BuildsService {
               'record their answer (given by phone or in person) before asking for the balance.',
           );
         }
+      }
+      if (to === 'delivered') {
+        // A disputed payment holds delivery until the owner decides (POST /api/bookings/:id/dispute/release).
+        const hold = deliveryHold(await this.builds.payments(trx, bookingId));
+        if (hold) throw new ConflictException(`Booking ${booking.reference} cannot be delivered yet. ${hold}`);
       }
       const words = note.trim();
       const told = tellPlayer && words !== '';

@@ -25,6 +25,12 @@ const environmentSchema = z.object({
   STRIPE_API_HOST: z.string().optional(),
   STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
   STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
+  /** Ways of paying offered at checkout (the provider's payment_method_types); each must be enabled in its dashboard. */
+  PAYMENT_METHOD_TYPES: z
+    .string()
+    .default('card,us_bank_account')
+    .transform((v) => v.split(',').map((t) => t.trim()).filter(Boolean))
+    .pipe(z.array(z.string().regex(/^[a-z_]+$/, 'each payment method type is a lower-case name such as card')).min(1)),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: port(2525),
   SMTP_SECURE: z.enum(['true', 'false']).default('false'),
@@ -107,6 +113,7 @@ export function configuration() {
       secretKey: env.STRIPE_SECRET_KEY,
       webhookSecret: env.STRIPE_WEBHOOK_SECRET,
       ...stripeEndpoint(env),
+      methodTypes: env.PAYMENT_METHOD_TYPES,
     },
     mail: {
       host: env.SMTP_HOST,

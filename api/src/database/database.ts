@@ -161,7 +161,8 @@ export interface BookingEventsTable {
   created_at: Timestamp;
 }
 
-export type PaymentStatus = 'pending' | 'paid' | 'failed' | 'expired' | 'refunded';
+export type PaymentStatus = 'pending' | 'processing' | 'paid' | 'failed' | 'expired' | 'refunded';
+export type RefundStatus = 'pending' | 'requires_action' | 'succeeded' | 'failed' | 'canceled';
 
 export interface PaymentsTable {
   id: Generated<string>;
@@ -184,6 +185,19 @@ export interface PaymentsTable {
   note: Generated<string>;
   created_at: Timestamp;
   updated_at: Timestamp;
+  /** The provider's status of the latest refund of this payment. */
+  refund_status: RefundStatus | null;
+  refund_failure: string | null;
+  refund_attempts: Generated<number>;
+  dispute_id: string | null;
+  /** The provider's dispute status (needs_response, under_review, won, lost, …). */
+  dispute_status: string | null;
+  dispute_reason: string | null;
+  dispute_amount_minor: ColumnType<string | null, string | number | null | undefined, string | number | null>;
+  dispute_opened_at: NullableTimestamp;
+  /** The owner's decision that the build may be delivered despite the dispute. */
+  dispute_released_at: NullableTimestamp;
+  dispute_released_by: string | null;
 }
 
 export interface PaymentEventsTable {

@@ -16,6 +16,8 @@ export const mailTemplates = [
   'shop-new-paid-request',
   'approval-requested',
   'shop-note',
+  'payment-failed',
+  'shop-payment-alert',
 ] as const;
 export type MailTemplate = (typeof mailTemplates)[number];
 
@@ -131,6 +133,20 @@ export type MailTemplateData = {
     };
   /** A staff note the writer chose to tell the player, word for word. */
   'shop-note': Recipient & BookingLink & { reference: string; note: string };
+  /** A bank debit that failed after the checkout: the player is asked to pay again. */
+  'payment-failed': Recipient & BookingLink & { reference: string; amount: string; currency: string; reason: string; kind?: 'deposit' | 'balance' };
+  /**
+   * To the shop's owner at once: something about money needs a decision. `alert` is
+   * refund-failed, dispute-opened, dispute-won, dispute-lost or outside-refund.
+   */
+  'shop-payment-alert': Recipient & {
+    alert: 'refund-failed' | 'dispute-opened' | 'dispute-won' | 'dispute-lost' | 'outside-refund';
+    reference: string;
+    amount: string;
+    currency: string;
+    detail: string;
+    backofficeUrl: string;
+  };
   /** To the shop; the player is `name` (or `customerName`). */
   'shop-new-paid-request': Recipient & {
     reference: string;

@@ -1,15 +1,37 @@
 import { BadRequestException, Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import Stripe from 'stripe';
-import { BookingsService, type BookingActor } from '../bookings/bookings.service';
+import { BookingsService } from '../bookings/bookings.service';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { ShopService } from '../shop/shop.service';
+import { fromMinorUnits } from './minor-units';
 import { PaymentsRepository, type PaymentRow } from './payments.repository';
-import { PaymentsService } from './payments.service';
+import { money, PaymentsService, providerActor as provider } from './payments.service';
 
-const provider: BookingActor = { id: null, label: 'Payment provider' };
+/**
+ * The events Loomwright acts on. The README's "Running on real keys" lists the same names: the
+ * provider's webhook endpoint must send each of them. Anything else is recorded and left alone.
+ */
+export const handledEvents = [
+  'checkout.session.completed',
+  'checkout.session.async_payment_succeeded',
+  'checkout.session.async_payment_failed',
+  'checkout.session.expired',
+  'payment_intent.payment_failed',
+  'refund.created',
+  'refund.updated',
+  'refund.failed',
+  'charge.refund.updated',
+  'charge.dispute.created',
+  'charge.dispute.updated',
+  'charge.dispute.closed',
+] as const satisfies readonly Stripe.Event['type'][];
+
+const intentIdOf = (v: string | { id: string } | null | undefined) => (typeof v === 'string' ? v : (v?.id ?? null));
+
+const disputeWords = (reason: string | null | undefined) => (reason ?? 'general').replace(/_/g, ' ');
 
 /**
  * How far a webhook's signed timestamp may be from our clock, either side: the payment SDK's own
@@ -36,7 +58,9 @@ function clockProblem(header: string, now: number): string | undefined {
 /**
  * Signed events from the payment provider: the only way a payment becomes paid (the browser's
  * return to the storefront proves nothing). Each event id is handled once, in one transaction
- * with the changes it causes, so a replay or a concurrent duplicate changes nothing.
+ * with the changes it causes and their history lines, so a replay or a concurrent duplicate
+ * changes nothing; each handler also checks the payment's own state, so two events that report
+ * the same change (a refund's refund.updated and refund.failed) change it once.
  */
 @Injectable()
 export class PaymentWebhooksService {
@@ -73,14 +97,23 @@ export class PaymentWebhooksService {
   }
 
   async handle(event: Stripe.Event): Promise<{ received: true; duplicate: boolean }> {
+    if (event.api_version && event.api_version !== Stripe.API_VERSION) {
+      // Object shapes follow the endpoint's API version: a mismatch is a setup mistake (README, "Running on real keys").
+      this.logger.warn(`event ${event.id} uses API version ${event.api_version}; this build of the SDK pins ${Stripe.API_VERSION}`);
+    }
     // Read before the transaction: inside it, every query must use that transaction's connection,
     // or concurrent deliveries could each hold one and wait for a second from an empty pool.
-    const shopEmail = event.type === 'checkout.session.completed' ? (await this.shop.profile()).contactEmail : '';
+    const shopEmail = event.type === 'checkout.session.completed' || event.type === 'checkout.session.async_payment_succeeded' ? (await this.shop.profile()).contactEmail : '';
+    const failure = event.type === 'checkout.session.async_payment_failed' ? await this.intentFailure(event.data.object) : '';
     const fresh = await this.db.transaction().execute(async (trx) => {
       if (!(await this.payments.recordEvent(trx, { id: event.id, type: event.type, payload: event }))) return false;
       switch (event.type) {
         case 'checkout.session.completed':
-          await this.sessionCompleted(trx, event.data.object, shopEmail);
+        case 'checkout.session.async_payment_succeeded':
+          await this.sessionSettled(trx, event.data.object, shopEmail);
+          break;
+        case 'checkout.session.async_payment_failed':
+          await this.sessionFailed(trx, event.data.object, failure);
           break;
         case 'checkout.session.expired':
           await this.sessionExpired(trx, event.data.object);
@@ -88,11 +121,20 @@ export class PaymentWebhooksService {
         case 'payment_intent.payment_failed':
           await this.paymentFailed(trx, event.data.object);
           break;
-        case 'charge.refunded':
-          await this.chargeRefunded(trx, event.data.object);
+        case 'refund.created':
+        case 'refund.updated':
+        case 'refund.failed':
+        case 'charge.refund.updated':
+          await this.refundChanged(trx, event.data.object);
+          break;
+        case 'charge.dispute.created':
+        case 'charge.dispute.updated':
+        case 'charge.dispute.closed':
+          await this.disputeChanged(trx, event.data.object);
           break;
         default:
-          // Recorded, nothing to do (payment_intent.succeeded, refund.created, …).
+          // Recorded, nothing to do (payment_intent.succeeded, charge.refunded, …): the events
+          // above carry every change Loomwright keeps.
           break;
       }
       return true;
@@ -100,21 +142,48 @@ export class PaymentWebhooksService {
     return { received: true, duplicate: !fresh };
   }
 
-  private async sessionCompleted(trx: Executor, session: Stripe.Checkout.Session, shopEmail: string) {
-    const payment = await this.payments.lockBySession(trx, session.id);
-    if (!payment) {
-      this.logger.warn(`checkout ${session.id} completed but no payment row knows it (booking ${session.metadata?.bookingId ?? '?'})`);
-      return;
+  /** The bank's reason for a failed debit, from the intent (read before the transaction). */
+  private async intentFailure(session: Stripe.Checkout.Session): Promise<string> {
+    const id = intentIdOf(session.payment_intent);
+    if (!id) return '';
+    try {
+      const intent = await this.stripe.paymentIntents.retrieve(id);
+      return intent.last_payment_error?.message ?? '';
+    } catch (error) {
+      this.logger.warn(`could not read payment intent ${id}: ${error instanceof Error ? error.message : String(error)}`);
+      return '';
     }
-    if (payment.status === 'paid' || payment.status === 'refunded') return;
-    if (session.payment_status !== 'paid') return;
+  }
+
+  private async payment(trx: Executor, session: Stripe.Checkout.Session) {
+    const payment = await this.payments.lockBySession(trx, session.id);
+    if (!payment) this.logger.warn(`checkout ${session.id} reported but no payment row knows it (booking ${session.metadata?.bookingId ?? '?'})`);
+    return payment;
+  }
+
+  /** checkout.session.completed (paid, or a bank debit still settling) and async_payment_succeeded. */
+  private async sessionSettled(trx: Executor, session: Stripe.Checkout.Session, shopEmail: string) {
+    const payment = await this.payment(trx, session);
+    if (!payment || payment.status === 'paid' || payment.status === 'refunded') return;
     if (session.amount_total !== Number(payment.amount_minor) || session.currency?.toLowerCase() !== payment.currency.trim().toLowerCase()) {
       await this.payments.update(trx, payment.id, {
         failure_message: `The provider reported ${session.amount_total} ${session.currency} for a checkout of ${payment.amount_minor} ${payment.currency}; the shop will check it.`,
       });
       return;
     }
-    const intentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+    const intentId = intentIdOf(session.payment_intent);
+    if (session.payment_status !== 'paid') {
+      // A bank debit: the checkout is done, the money is not here yet.
+      if (payment.status === 'processing' || payment.status === 'failed') return;
+      await this.payments.update(trx, payment.id, { status: 'processing', payment_intent_id: intentId, failure_message: null });
+      await this.paymentsService.historyNote(
+        trx,
+        payment.booking_id,
+        provider,
+        `${payment.kind === 'deposit' ? 'Deposit' : 'Balance'} of ${money(payment)} paid by bank debit; it settles in a few working days, and the booking moves on once it has.`,
+      );
+      return;
+    }
     const paid = await this.payments.update(trx, payment.id, {
       status: 'paid',
       paid_at: new Date(),
@@ -133,7 +202,7 @@ export class PaymentWebhooksService {
       await this.paymentsService.refundDeposit(trx, booking.id, provider, `Deposit arrived after the booking was ${booking.state}.`);
       return;
     }
-    await this.bookings.transition(trx, booking.id, ['requested'], 'deposit_paid', provider, `Deposit of ${payment.amount} ${payment.currency.trim()} received.`);
+    await this.bookings.transition(trx, booking.id, ['requested'], 'deposit_paid', provider, `Deposit of ${money(payment)} received.`);
     const detail = await this.bookings.getDetail(booking.id, trx);
     const publicUrl = this.config.get('app', { infer: true }).publicUrl;
     const data = {
@@ -166,37 +235,119 @@ export class PaymentWebhooksService {
   }
 
   private async balancePaid(trx: Executor, payment: PaymentRow) {
-    const booking = await this.bookings.lock(trx, payment.booking_id);
-    if (!booking) return;
     // The state stays "ready": the shop ships or hands over, then marks it delivered.
-    await this.bookings.transition(trx, booking.id, [booking.state], booking.state, provider, `Balance of ${payment.amount} ${payment.currency.trim()} received.`);
+    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `Balance of ${money(payment)} received.`);
+  }
+
+  /** checkout.session.async_payment_failed: the debit did not go through; the player is told and can pay again. */
+  private async sessionFailed(trx: Executor, session: Stripe.Checkout.Session, reason: string) {
+    const payment = await this.payment(trx, session);
+    if (payment) await this.delayedFailure(trx, payment, reason || 'The bank did not complete the debit.');
+  }
+
+  private async delayedFailure(trx: Executor, payment: PaymentRow, reason: string) {
+    if (payment.status !== 'processing') return;
+    const failed = await this.payments.update(trx, payment.id, { status: 'failed', failure_message: reason });
+    const what = payment.kind === 'deposit' ? 'Deposit' : 'Balance';
+    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `${what} bank debit of ${money(payment)} failed: ${reason} Nothing was taken; the player has been asked to pay again.`);
+    const detail = await this.bookings.getDetail(payment.booking_id, trx);
+    const publicUrl = this.config.get('app', { infer: true }).publicUrl;
+    await this.mail.enqueue(trx, {
+      template: 'payment-failed',
+      to: detail.customer.email,
+      bookingId: detail.id,
+      userId: detail.customer.id,
+      data: {
+        name: detail.customer.name,
+        reference: detail.reference,
+        amount: failed.amount,
+        currency: failed.currency.trim(),
+        reason,
+        kind: failed.kind,
+        buildUrl: `${publicUrl}/builds/${detail.id}`,
+      },
+      dedupeKey: `payment-failed:${payment.id}`,
+    });
   }
 
   private async sessionExpired(trx: Executor, session: Stripe.Checkout.Session) {
     const payment = await this.payments.lockBySession(trx, session.id);
-    if (payment && (payment.status === 'pending' || payment.status === 'failed')) {
-      await this.payments.update(trx, payment.id, { status: 'expired' });
-    }
+    if (!payment || (payment.status !== 'pending' && payment.status !== 'failed')) return;
+    await this.payments.update(trx, payment.id, { status: 'expired' });
+    const booking = await this.bookings.lock(trx, payment.booking_id);
+    // A withdrawn request's checkout closing needs no line of its own.
+    if (!booking || !['requested', 'ready'].includes(booking.state)) return;
+    await this.paymentsService.historyNote(
+      trx,
+      payment.booking_id,
+      provider,
+      `The ${payment.kind} checkout of ${money(payment)} closed unpaid when its time ran out; nothing was taken, and the player can pay again from the build page.`,
+    );
   }
 
+  /** A card declined on an open checkout (the player can retry on the same page), or a bank debit that failed later. */
   private async paymentFailed(trx: Executor, intent: Stripe.PaymentIntent) {
     const paymentId = intent.metadata?.paymentId;
     const payment = paymentId ? await this.payments.lockById(trx, paymentId) : await this.payments.lockByIntent(trx, intent.id);
-    if (!payment || payment.status === 'paid' || payment.status === 'refunded' || payment.status === 'expired') return;
+    if (!payment) return;
     const reason = intent.last_payment_error?.message ?? 'The card was declined.';
+    if (payment.status === 'processing') return this.delayedFailure(trx, payment, reason);
+    if (payment.status !== 'pending' && payment.status !== 'failed') return;
     await this.payments.update(trx, payment.id, { status: 'failed', failure_message: reason, payment_intent_id: intent.id });
+    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `Card declined at checkout: ${reason} The checkout stays open for another try.`);
   }
 
-  private async chargeRefunded(trx: Executor, charge: Stripe.Charge) {
-    const intentId = typeof charge.payment_intent === 'string' ? charge.payment_intent : charge.payment_intent?.id;
-    if (!intentId) return;
-    const payment = await this.payments.lockByIntent(trx, intentId);
-    if (!payment || payment.status !== 'paid' || !charge.refunded) return;
-    const refunded = await this.payments.update(trx, payment.id, {
-      status: 'refunded',
-      refunded_at: new Date(),
-      refund_id: charge.refunds?.data?.[0]?.id ?? payment.refund_id,
+  /** Any refund's news (ours, or one made in the provider's dashboard): recorded against its payment. */
+  private async refundChanged(trx: Executor, refund: Stripe.Refund) {
+    const intentId = intentIdOf(refund.payment_intent);
+    const byMetadata = refund.metadata?.paymentId;
+    const payment = byMetadata ? await this.payments.lockById(trx, byMetadata) : intentId ? await this.payments.lockByIntent(trx, intentId) : undefined;
+    if (!payment) {
+      this.logger.warn(`refund ${refund.id} of ${intentId ?? 'an unknown payment'} matches no payment`);
+      return;
+    }
+    await this.paymentsService.recordRefund(trx, payment.id, refund);
+  }
+
+  /** A chargeback: opened, updated, won or lost. The owner is told at once; delivery waits on their decision. */
+  private async disputeChanged(trx: Executor, dispute: Stripe.Dispute) {
+    const intentId = intentIdOf(dispute.payment_intent);
+    const payment = intentId ? await this.payments.lockByIntent(trx, intentId) : undefined;
+    if (!payment) {
+      this.logger.warn(`dispute ${dispute.id} of ${intentId ?? 'an unknown payment'} matches no payment`);
+      return;
+    }
+    if (payment.dispute_id === dispute.id && payment.dispute_status === dispute.status) return;
+    const isNew = payment.dispute_id !== dispute.id;
+    const amount = `${fromMinorUnits(dispute.amount, payment.currency.trim())} ${payment.currency.trim()}`;
+    const updated = await this.payments.update(trx, payment.id, {
+      dispute_id: dispute.id,
+      dispute_status: dispute.status,
+      dispute_reason: dispute.reason,
+      dispute_amount_minor: dispute.amount,
+      ...(isNew ? { dispute_opened_at: new Date(dispute.created * 1000), dispute_released_at: null, dispute_released_by: null } : {}),
     });
-    if (refunded.kind === 'deposit') await this.paymentsService.mailRefund(trx, refunded);
+    const what = payment.kind === 'deposit' ? 'deposit' : 'balance';
+    if (dispute.status === 'won' || dispute.status === 'warning_closed') {
+      await this.paymentsService.historyNote(trx, payment.booking_id, provider, `The bank decided the dispute over the ${what} for the shop; the ${amount} stays. Delivery waits until the owner releases it.`);
+      await this.paymentsService.alertOwner(trx, updated, 'dispute-won', `The dispute (${disputeWords(dispute.reason)}) over ${amount} was decided for the shop.`, dispute.status);
+      return;
+    }
+    if (dispute.status === 'lost') {
+      await this.paymentsService.historyNote(trx, payment.booking_id, provider, `The bank decided the dispute over the ${what} for the player; ${amount} was taken back. Delivery waits on the owner's decision.`);
+      await this.paymentsService.alertOwner(trx, updated, 'dispute-lost', `The dispute (${disputeWords(dispute.reason)}) over ${amount} was decided for the player; the money was taken back.`, 'lost');
+      return;
+    }
+    if (isNew) {
+      await this.paymentsService.historyNote(
+        trx,
+        payment.booking_id,
+        provider,
+        `The player's bank disputed the ${what} of ${amount} (${disputeWords(dispute.reason)}). The owner has been told; delivery waits on the owner's decision.`,
+      );
+      await this.paymentsService.alertOwner(trx, updated, 'dispute-opened', `The player's bank disputed ${amount} (${disputeWords(dispute.reason)}); the answer is due by ${dispute.evidence_details?.due_by ? new Date(dispute.evidence_details.due_by * 1000).toISOString().slice(0, 10) : 'the date in the provider dashboard'}.`, 'opened');
+      return;
+    }
+    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `The dispute over the ${what} is now "${dispute.status.replace(/_/g, ' ')}".`);
   }
 }

@@ -1,6 +1,16 @@
 import { Body, Controller, Headers, HttpCode, Param, Post, Req, type RawBodyRequest } from '@nestjs/common';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { cancelBookingSchema, recordBalanceSchema, refundDepositSchema, type AuthUser, type CancelBookingInput, type RecordBalanceInput, type RefundDepositInput } from '@loomwright/shared';
+import {
+  cancelBookingSchema,
+  recordBalanceSchema,
+  refundDepositSchema,
+  releaseDisputeSchema,
+  type AuthUser,
+  type CancelBookingInput,
+  type RecordBalanceInput,
+  type RefundDepositInput,
+  type ReleaseDisputeInput,
+} from '@loomwright/shared';
 import type { Request } from 'express';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
@@ -61,6 +71,19 @@ export class PaymentsController {
   @ApiOkResponse({ description: 'E-mails the player the balance due again (at most once a minute).' })
   requestBalance(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
     return this.payments.requestBalance(user, id);
+  }
+
+  @Post('bookings/:id/dispute/release')
+  @Roles('owner')
+  @HttpCode(200)
+  @ApiOkResponse({ description: 'The owner lets a build whose payment was disputed be delivered; the note goes on the timeline.' })
+  @ApiZodBody(releaseDisputeSchema)
+  releaseDispute(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingIdPipe) id: string,
+    @Body(new ZodValidationPipe(releaseDisputeSchema)) body: ReleaseDisputeInput,
+  ) {
+    return this.payments.releaseDispute(user, id, body.note);
   }
 
   @Public()

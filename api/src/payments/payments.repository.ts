@@ -65,6 +65,14 @@ export class PaymentsRepository {
       .executeTakeFirst();
   }
 
+  /** Who hears of money trouble at once: every owner account, else the shop's contact address. */
+  async ownerAddresses(trx: Executor): Promise<string[]> {
+    const owners = await trx.selectFrom('users').select('email').where('role', '=', 'owner').orderBy('email').execute();
+    if (owners.length > 0) return owners.map((o) => o.email);
+    const shop = await trx.selectFrom('shop_settings').select('contact_email').executeTakeFirst();
+    return shop ? [shop.contact_email] : [];
+  }
+
   findCustomer(trx: Executor, userId: string) {
     return trx.selectFrom('users').select(['id', 'name', 'email']).where('id', '=', userId).executeTakeFirstOrThrow();
   }

@@ -8,14 +8,42 @@ import { actorOf, BookingsService, type BookingActor } from '../bookings/booking
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
-import { toMinorUnits } from './minor-units';
+import { fromMinorUnits, toMinorUnits } from './minor-units';
 import { PaymentsRepository, type PaymentRow } from './payments.repository';
 
 export type PaymentKind = PaymentRow['kind'];
 
+/** The timeline's name for what the provider reports. */
+export const providerActor: BookingActor = { id: null, label: 'Payment provider' };
+
 /** A player may cancel until the shop sets a bench date (the demo shop's deposit policy). */
 const cancellableStates: BookingState[] = ['requested', 'deposit_paid'];
 const refundableStates: BookingState[] = ['deposit_paid', 'scheduled', 'declined', 'cancelled'];
+
+/**
+ * Currencies of the payment method types that take only some (the provider's payment method
+ * documentation: US bank account debits settle in usd, SEPA Direct Debit in eur); any type not
+ * listed here (card, …) is offered whatever the currency, and the provider judges it.
+ */
+const methodCurrencies: Record<string, string[]> = { us_bank_account: ['usd'], sepa_debit: ['eur'] };
+
+/** Words for a provider refund status, for history lines and the owner's alert. */
+const refundFailureWords: Record<string, string> = {
+  lost_or_stolen_card: 'the card was reported lost or stolen',
+  expired_or_canceled_card: 'the card has expired or was cancelled',
+  charge_for_pending_refund_disputed: 'the charge was disputed while the refund was pending',
+  insufficient_funds: 'the shop account had too little balance',
+  declined: 'the bank declined it',
+  merchant_request: 'the shop cancelled it',
+  unknown: 'no reason given',
+};
+export const refundFailureText = (reason: string | null | undefined) =>
+  reason ? (refundFailureWords[reason] ?? reason.replace(/_/g, ' ')) : 'no reason given';
+
+/** A dispute that the bank has not decided for the shop: the money may not stay, so it is not refunded. */
+export const disputeOpen = (p: PaymentRow) => !!p.dispute_id && !['won', 'warning_closed'].includes(p.dispute_status ?? '');
+
+export const money = (p: Pick<PaymentRow, 'amount' | 'currency'>) => `${p.amount} ${p.currency.trim()}`;
 
 @Injectable()
 export class PaymentsService {
@@ -55,11 +83,23 @@ export class PaymentsService {
       }
       const previous = await this.payments.listForBooking(trx, bookingId, kind);
       if (previous.some((p) => p.status === 'paid')) throw new ConflictException(`The ${kind} for ${booking.reference} is already paid.`);
+      const settling = () =>
+        new ConflictException(
+          `Your bank payment for ${booking.reference} is still settling (bank debits take a few working days); we will e-mail you as soon as it has. Nothing more is due until then.`,
+        );
+      if (previous.some((p) => p.status === 'processing')) throw settling();
       for (const p of previous.filter((row) => row.status === 'pending' || row.status === 'failed')) {
         const session = await this.retrieveSession(p.checkout_session_id!);
         // An open session (even after a declined card) is the one to finish; a second would risk two charges.
-        if (session.status !== 'expired' && session.url) return { url: session.url, paymentId: p.id };
-        if (session.status === 'complete' && p.checkout_url) return { url: p.checkout_url, paymentId: p.id };
+        if (session.status === 'open' && session.url) return { url: session.url, paymentId: p.id };
+        if (session.status === 'complete') {
+          // Paid, the webhook on its way: the same page says so.
+          if (session.payment_status === 'paid' && p.checkout_url) return { url: p.checkout_url, paymentId: p.id };
+          // A bank debit started here and has not reported back yet.
+          if (p.status === 'pending') throw settling();
+          // A debit that failed after its checkout: that session is spent; a new one follows.
+          continue;
+        }
         await this.payments.update(trx, p.id, { status: 'expired' });
       }
 
@@ -84,6 +124,7 @@ export class PaymentsService {
               },
             ],
             metadata,
+            payment_method_types: this.methodTypes(currency),
             payment_intent_data: { metadata },
             client_reference_id: bookingId,
             customer_email: customer.email,
@@ -107,6 +148,13 @@ export class PaymentsService {
       });
       return { url: session.url, paymentId };
     });
+  }
+
+  /** The configured ways of paying that take this currency (a bank debit takes only its own). */
+  private methodTypes(currency: string): string[] {
+    const code = currency.trim().toLowerCase();
+    const types = this.config.get('payments', { infer: true }).methodTypes.filter((t) => !methodCurrencies[t] || methodCurrencies[t].includes(code));
+    return types.length > 0 ? types : ['card'];
   }
 
   private amountDue(kind: PaymentKind, detail: BookingDetail) {
@@ -135,9 +183,12 @@ export class PaymentsService {
   }
 
   /**
-   * Refunds the booking's paid deposit through the provider (one refund per payment, whatever
-   * the retries) and marks it refunded from the provider's answer; the charge.refunded webhook
-   * confirms it later. Returns null when there is no paid deposit to refund.
+   * Refunds the booking's paid deposit through the provider and records the provider's answer.
+   * One refund is under way at a time: while one is pending this returns the row unchanged; after
+   * one failed, the next attempt gets its own idempotency key. Only a refund the provider reports
+   * `succeeded` marks the payment refunded and mails the player (the money is on its way); a
+   * pending one waits for its refund.updated event, a failed one tells the owner. Returns null
+   * when there is no paid deposit to refund.
    */
   async refundDeposit(trx: Executor | undefined, bookingId: string, actor: BookingActor, reason: string): Promise<PaymentRow | null> {
     if (!trx) return this.db.transaction().execute((t) => this.refundDeposit(t, bookingId, actor, reason));
@@ -145,22 +196,79 @@ export class PaymentsService {
     if (!paid) return null;
     const locked = await this.payments.lockById(trx, paid.id);
     if (!locked || locked.status !== 'paid' || !locked.payment_intent_id) return null;
+    if (locked.refund_status === 'pending' || locked.refund_status === 'requires_action') return locked;
+    if (disputeOpen(locked)) {
+      throw new ConflictException(
+        `The deposit of ${money(locked)} is disputed by the player's bank, which is deciding where the money goes; it cannot be refunded until the dispute closes.`,
+      );
+    }
+    const attempt = locked.refund_attempts + 1;
     const refund = await this.call(() =>
       this.stripe.refunds.create(
         {
           payment_intent: locked.payment_intent_id!,
           reason: 'requested_by_customer',
-          metadata: { bookingId, paymentId: locked.id, by: actor.label, note: reason.slice(0, 400) },
+          metadata: { bookingId, paymentId: locked.id, by: actor.label.slice(0, 200), note: reason.slice(0, 400) },
         },
-        { idempotencyKey: `refund:${locked.id}` },
+        { idempotencyKey: attempt === 1 ? `refund:${locked.id}` : `refund:${locked.id}:${attempt}` },
       ),
     );
-    const refunded = await this.payments.update(trx, locked.id, {
-      refund_id: refund.id,
-      ...(refund.status === 'succeeded' ? { status: 'refunded' as const, refunded_at: new Date() } : {}),
-    });
-    if (refunded.status === 'refunded') await this.mailRefund(trx, refunded);
-    return refunded;
+    await this.payments.update(trx, locked.id, { refund_attempts: attempt });
+    return this.recordRefund(trx, locked.id, refund, actor);
+  }
+
+  /**
+   * Applies what the provider says of a refund (its create answer or a refund event) to the
+   * payment, once per change of status, with its history line: succeeded → refunded and the
+   * player mailed; pending → waiting; failed or canceled → still paid, the owner told at once.
+   */
+  async recordRefund(trx: Executor, paymentId: string, refund: Stripe.Refund, actor: BookingActor = providerActor): Promise<PaymentRow> {
+    const payment = (await this.payments.lockById(trx, paymentId))!;
+    const status = (refund.status ?? 'pending') as NonNullable<PaymentRow['refund_status']>;
+    const sameRefund = payment.refund_id === refund.id;
+    if (sameRefund && payment.refund_status === status) return payment;
+    // An older refund's late news must not undo a newer one's.
+    if (!sameRefund && payment.refund_id && payment.refund_status !== 'failed' && payment.refund_status !== 'canceled' && status !== 'succeeded') {
+      return payment;
+    }
+    const ours = refund.metadata?.paymentId === payment.id;
+    const amount = fromMinorUnits(refund.amount, payment.currency.trim());
+    const whole = refund.amount >= Number(payment.amount_minor);
+    const where = ours ? '' : " in the payment provider's dashboard";
+    const kindWord = payment.kind === 'deposit' ? 'deposit' : 'balance';
+    if (status === 'succeeded') {
+      const updated = await this.payments.update(trx, payment.id, {
+        refund_id: refund.id,
+        refund_status: 'succeeded',
+        refund_failure: null,
+        ...(whole && payment.status === 'paid' ? { status: 'refunded' as const, refunded_at: new Date() } : {}),
+      });
+      await this.historyNote(trx, payment.booking_id, actor, `${whole ? 'Refund' : 'Part refund'} of ${amount} ${payment.currency.trim()} of the ${kindWord} made${where}; the money is on its way to the player.`);
+      if (whole && updated.kind === 'deposit') await this.mailRefund(trx, updated);
+      if (!ours) await this.alertOwner(trx, updated, 'outside-refund', `${whole ? 'A refund' : 'A part refund'} of ${amount} ${payment.currency.trim()} was made in the provider's dashboard (refund ${refund.id}).`);
+      return updated;
+    }
+    if (status === 'failed' || status === 'canceled') {
+      const failure = refundFailureText(refund.failure_reason);
+      const updated = await this.payments.update(trx, payment.id, {
+        refund_id: refund.id,
+        refund_status: status,
+        refund_failure: failure,
+        // Marked refunded on an earlier "succeeded"? The money came back to the shop.
+        ...(payment.status === 'refunded' ? { status: 'paid' as const, refunded_at: null } : {}),
+      });
+      await this.historyNote(trx, payment.booking_id, actor, `Refund of ${amount} ${payment.currency.trim()} of the ${kindWord} ${status === 'failed' ? 'failed' : 'was cancelled'}: ${failure}. The money is still with the shop; the owner has been told.`);
+      await this.alertOwner(trx, updated, 'refund-failed', `The refund of ${amount} ${payment.currency.trim()} ${status === 'failed' ? 'failed' : 'was cancelled'}: ${failure}.`);
+      return updated;
+    }
+    const updated = await this.payments.update(trx, payment.id, { refund_id: refund.id, refund_status: status, refund_failure: null });
+    await this.historyNote(
+      trx,
+      payment.booking_id,
+      actor,
+      `Refund of ${amount} ${payment.currency.trim()} of the ${kindWord} asked of the payment provider${where}; it is ${status === 'requires_action' ? 'waiting for details from the player' : 'pending'}, and the player is mailed once the money is on its way.`,
+    );
+    return updated;
   }
 
   async mailRefund(trx: Executor, payment: PaymentRow) {
@@ -171,8 +279,51 @@ export class PaymentsService {
       bookingId: booking.id,
       userId: booking.customer.id,
       data: { name: booking.customer.name, reference: booking.reference, amount: payment.amount, currency: payment.currency.trim() },
-      dedupeKey: `deposit-refunded:${payment.id}`,
+      dedupeKey: `deposit-refunded:${payment.id}:${payment.refund_id ?? ''}`,
     });
+  }
+
+  /** A line on the booking's timeline without a change of state. */
+  async historyNote(trx: Executor, bookingId: string, actor: BookingActor, note: string) {
+    const booking = await this.bookings.lock(trx, bookingId);
+    if (!booking) return;
+    await this.bookings.transition(trx, bookingId, [booking.state], booking.state, actor, note);
+  }
+
+  /** Tells the owner at once (every owner account) that money needs a decision. */
+  async alertOwner(trx: Executor, payment: PaymentRow, alert: 'refund-failed' | 'dispute-opened' | 'dispute-won' | 'dispute-lost' | 'outside-refund', detail: string, dedupe = '') {
+    const booking = await this.bookings.getDetail(payment.booking_id, trx);
+    const publicUrl = this.config.get('app', { infer: true }).publicUrl;
+    for (const to of await this.payments.ownerAddresses(trx)) {
+      await this.mail.enqueue(trx, {
+        template: 'shop-payment-alert',
+        to,
+        bookingId: booking.id,
+        data: {
+          customerName: booking.customer.name,
+          alert,
+          reference: booking.reference,
+          amount: payment.amount,
+          currency: payment.currency.trim(),
+          detail,
+          backofficeUrl: `${publicUrl}/backoffice/requests/${booking.id}`,
+        },
+        dedupeKey: `shop-payment-alert:${alert}:${payment.id}:${dedupe || (payment.refund_id ?? payment.dispute_id ?? '')}:${to}`,
+      });
+    }
+  }
+
+  /** The owner decides that a disputed build may be delivered anyway; the timeline says why. */
+  async releaseDispute(user: AuthUser, bookingId: string, note: string) {
+    await this.db.transaction().execute(async (trx) => {
+      const booking = await this.bookings.lock(trx, bookingId);
+      if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
+      const held = (await this.payments.listForBooking(trx, bookingId)).filter((p) => p.dispute_id && !p.dispute_released_at);
+      if (held.length === 0) throw new ConflictException(`Booking ${booking.reference} has no disputed payment holding its delivery.`);
+      for (const p of held) await this.payments.update(trx, p.id, { dispute_released_at: new Date(), dispute_released_by: user.name });
+      await this.historyNote(trx, bookingId, actorOf(user), `Delivery released despite the dispute: ${note}`);
+    });
+    return this.bookings.getDetail(bookingId);
   }
 
   /** The player withdraws a request before it is scheduled; a paid deposit goes back to them. */
@@ -200,8 +351,11 @@ export class PaymentsService {
     await this.db.transaction().execute(async (trx) => {
       const booking = await this.bookings.lock(trx, bookingId);
       if (!booking) throw new ConflictException(`There is no booking ${bookingId}.`);
+      // Already "refunded" but the provider failed the refund: this is the owner's retry.
+      const retry = booking.state === 'refunded';
       // State first: a refused state change must never leave money refunded behind it.
-      await this.bookings.transition(trx, bookingId, refundableStates, 'refunded', actorOf(user), `Deposit refunded: ${reason}`);
+      if (retry) await this.historyNote(trx, bookingId, actorOf(user), `Refund tried again: ${reason}`);
+      else await this.bookings.transition(trx, bookingId, refundableStates, 'refunded', actorOf(user), `Deposit refunded: ${reason}`);
       const refunded = await this.refundDeposit(trx, bookingId, actorOf(user), reason);
       if (!refunded) throw new ConflictException(`Booking ${booking.reference} has no paid deposit to refund.`);
     });

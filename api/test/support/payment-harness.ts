@@ -22,7 +22,8 @@ export interface PaymentHarness {
  * answers the SDK and posts signed webhooks back to the API over HTTP, as it does under npm start.
  */
 export async function startPaymentHarness(): Promise<PaymentHarness> {
-  const fake = await startPaymentFake({ port: 0, webhookSecret: WEBHOOK_SECRET, retryDelaysMs: [50, 100, 200, 400] });
+  // Bank debits settle only when a test says so (control.settle), so the "processing" state can be looked at first.
+  const fake = await startPaymentFake({ port: 0, webhookSecret: WEBHOOK_SECRET, retryDelaysMs: [50, 100, 200, 400], settleDelayMs: null, laterDelayMs: 100 });
   const uploadsDir = await mkdtemp(path.join(tmpdir(), 'lw-uploads-'));
   const t = await createTestApp({
     env: {
@@ -73,6 +74,16 @@ export function payOnHostedPage(checkoutUrl: string, card: string) {
     method: 'POST',
     headers: { 'content-type': 'application/x-www-form-urlencoded' },
     body: new URLSearchParams({ card, expiry: '12/34', cvc: '123' }),
+    redirect: 'manual',
+  });
+}
+
+/** Pays from a bank account on the hosted page (ACH test routing number 110000000, from the provider's testing guide, from memory). */
+export function payByBankOnHostedPage(checkoutUrl: string, account: string, routing = '110000000') {
+  return fetch(checkoutUrl, {
+    method: 'POST',
+    headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ method: 'us_bank_account', routing, account }),
     redirect: 'manual',
   });
 }

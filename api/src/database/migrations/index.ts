@@ -6,6 +6,7 @@ import * as passwordChangedAt from './20261201_0200_password_changed_at';
 import * as photoVariants from './20261202_0217_photo_variants';
 import * as sessionsAndRateLimits from './20261202_0236_sessions_and_rate_limits';
 import * as approvalsAndRecords from './20261202_0301_approvals_and_records';
+import * as paymentOutcomes from './20261202_0303_payment_outcomes';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -19,4 +20,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0217_photo_variants': photoVariants,
   '20261202_0236_sessions_and_rate_limits': sessionsAndRateLimits,
   '20261202_0301_approvals_and_records': approvalsAndRecords,
+  '20261202_0303_payment_outcomes': paymentOutcomes,
 };

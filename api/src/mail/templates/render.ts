@@ -413,6 +413,67 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       },
     };
   },
+  'payment-failed': (data) => {
+    const reference = requireString(data, 'reference');
+    const what = optionalString(data, 'kind') === 'balance' ? 'balance' : 'deposit';
+    return {
+      subject: `Your ${what} payment for ${reference} did not go through`,
+      letter: {
+        heading: 'Your bank did not complete the payment',
+        blocks: [
+          { kind: 'p', text: `Hello ${recipient(data)}, the bank payment of ${money(data)} for build ${reference} did not go through, so nothing was taken.` },
+          { kind: 'facts', rows: [['Reason', requireString(data, 'reason')]] },
+          { kind: 'p', text: `Your booking is kept as it was. Pay the ${what} again from your build page, by card or from another account.` },
+          ...openIf('Open your build', firstString(data, 'buildUrl', 'bookingUrl')),
+        ],
+      },
+    };
+  },
+  'shop-payment-alert': (data) => {
+    const reference = requireString(data, 'reference');
+    const alert = requireString(data, 'alert');
+    const words: Record<string, { subject: string; heading: string; next: string }> = {
+      'refund-failed': {
+        subject: `Refund failed for ${reference}`,
+        heading: 'A refund did not reach the player',
+        next: 'The money is still with the shop. Refund it again from the booking, or another way, and tell the player.',
+      },
+      'dispute-opened': {
+        subject: `Payment disputed for ${reference}`,
+        heading: "The player's bank opened a dispute",
+        next: "Answer it with your evidence in the payment provider's dashboard before its deadline. Delivery of this build waits until you decide.",
+      },
+      'dispute-won': {
+        subject: `Dispute decided for the shop: ${reference}`,
+        heading: 'The bank decided the dispute for the shop',
+        next: 'The money stays with the shop. Release the delivery hold on the booking when you are ready to deliver.',
+      },
+      'dispute-lost': {
+        subject: `Dispute lost: ${reference}`,
+        heading: 'The bank decided the dispute for the player',
+        next: 'The money was taken back. Decide with the player how the build is paid before you release the delivery hold.',
+      },
+      'outside-refund': {
+        subject: `Refund made outside Loomwright for ${reference}`,
+        heading: "A refund was made in the payment provider's dashboard",
+        next: 'Loomwright recorded it on the booking. Check that the booking is where it should be.',
+      },
+    };
+    const w = words[alert];
+    if (!w) throw new MailDataError(`the alert "${alert}" is not one Loomwright sends`);
+    return {
+      subject: w.subject,
+      letter: {
+        heading: w.heading,
+        blocks: [
+          { kind: 'facts', rows: [['Booking', reference], ['Player', recipient(data)], ['Amount', money(data)], ['What happened', requireString(data, 'detail')]] },
+          { kind: 'p', text: w.next },
+          open('Open the booking', requireString(data, 'backofficeUrl')),
+        ],
+        footer: 'A notice for the shop from Loomwright.',
+      },
+    };
+  },
   'shop-new-paid-request': (data) => {
     const reference = requireString(data, 'reference');
     const currency = requireString(data, 'currency');

@@ -23,6 +23,7 @@ import { Section } from 'src/features/bookings/components/Section';
 import { useExtras } from 'src/features/builds/api/get-extras';
 import { useIntake } from 'src/features/builds/api/get-intake';
 import { useTimeEntries } from 'src/features/builds/api/get-time-entries';
+import { DeliveryHold } from 'src/features/builds/components/DeliveryHold';
 import { ExtrasPanel } from 'src/features/builds/components/ExtrasPanel';
 import { HoursPanel } from 'src/features/builds/components/HoursPanel';
 import { IntakePanel } from 'src/features/builds/components/IntakePanel';
@@ -66,6 +67,7 @@ export function Component() {
           Print the build sheet (PDF)
         </Button>
       </Stack>
+      <DeliveryHold booking={b} isOwner={isOwner} onDone={setNotice} />
       <Card variant="outlined">
         <Typography level="title-md" component="h2">
           Next step

@@ -27,7 +27,9 @@ import { useListParams } from 'src/lib/use-list-params';
 const depositWords: Record<DepositStatus, string> = {
   unpaid: 'Not paid',
   pending: 'Checkout open',
+  processing: 'Bank debit settling',
   paid: 'Paid',
+  disputed: 'Disputed',
   refunded: 'Refunded',
 };
 
@@ -79,7 +81,7 @@ const stateOptions = [
 ];
 const depositOptions = [
   { value: '', label: 'Any deposit' },
-  ...(['paid', 'pending', 'unpaid', 'refunded'] as const).map((d) => ({ value: d, label: depositWords[d] })),
+  ...(['paid', 'processing', 'pending', 'unpaid', 'disputed', 'refunded'] as const).map((d) => ({ value: d, label: depositWords[d] })),
 ];
 
 export function Component() {

@@ -93,7 +93,14 @@ export function Component() {
               <MoneyFactsTable money={b.money} formatMoney={formatAmount} formatMoment={formatMoment} />
               <Typography level="title-sm" component="h3">Checkout attempts</Typography>
               <PaymentsList payments={b.payments} />
-              {isPlayer && b.state === 'requested' && b.depositStatus !== 'paid' && <PayButton bookingId={b.id} label="Pay the deposit" />}
+              {b.depositStatus === 'processing' && (
+                <Typography level="body-sm">
+                  Your bank payment is settling; that takes a few working days. We e-mail you when it has, and the shop can then set a bench date.
+                </Typography>
+              )}
+              {isPlayer && b.state === 'requested' && b.depositStatus !== 'paid' && b.depositStatus !== 'processing' && (
+                <PayButton bookingId={b.id} label="Pay the deposit" />
+              )}
               {isPlayer && b.state === 'ready' && b.balanceDue && Number(b.balanceDue) > 0 && <PayButton bookingId={b.id} label="Pay the balance" />}
             </Section>
             <Section title="Status history">

@@ -4,6 +4,7 @@ import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
+import type { DepositStatus } from '@loomwright/shared';
 import { useState } from 'react';
 import { Link as RouterLink, Navigate, useLocation } from 'react-router';
 import { PageLoading } from 'src/components/PageLoading';
@@ -14,7 +15,14 @@ import { BookingStateChip } from 'src/features/bookings/components/BookingStateC
 import { formatDay, formatRange } from 'src/lib/booking-format';
 
 const PAGE_SIZE = 20;
-const depositWords = { unpaid: 'Not paid', pending: 'Checkout open', paid: 'Paid', refunded: 'Refunded' } as const;
+const depositWords: Record<DepositStatus, string> = {
+  unpaid: 'Not paid',
+  pending: 'Checkout open',
+  processing: 'Bank payment settling',
+  paid: 'Paid',
+  disputed: 'Disputed with your bank',
+  refunded: 'Refunded',
+};
 
 export function Component() {
   const me = useMe();

@@ -11,7 +11,7 @@ import { PayButton } from 'src/features/payments/components/PayButton';
 import { formatAmount } from 'src/lib/booking-format';
 
 const isUuid = (v: string) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(v);
-const depositSettled = (b: BookingDetail) => b.depositStatus === 'paid' || b.depositStatus === 'refunded';
+const depositSettled = (b: BookingDetail) => b.depositStatus === 'paid' || b.depositStatus === 'refunded' || b.depositStatus === 'processing';
 const latestDeposit = (b: BookingDetail) => [...b.payments].reverse().find((p) => p.kind === 'deposit');
 
 /**
@@ -36,12 +36,15 @@ export function Component() {
   if (b.depositStatus === 'paid') {
     title = 'Deposit paid';
     body = `Thank you. ${formatAmount(last?.amount ?? b.deposit, b.currency)} is paid and build ${b.reference} holds its place in the queue. The shop will set a bench date and e-mail you what to ship and when.`;
+  } else if (b.depositStatus === 'processing') {
+    title = 'Bank payment started';
+    body = `Thank you. Your bank payment of ${formatAmount(last?.amount ?? b.deposit, b.currency)} for build ${b.reference} is on its way; bank debits take a few working days to settle. We e-mail you as soon as it has, and the shop then sets a bench date. If your bank does not complete it, we tell you and you can pay again.`;
   } else if (result === 'paid') {
     title = 'Confirming your payment…';
     body = 'The payment provider is telling the shop about your payment; this usually takes a few seconds. You can leave this page: the e-mail confirmation follows.';
   } else if (last?.status === 'failed') {
     title = 'Payment failed';
-    body = `The card was refused: ${(last.failureMessage ?? 'no reason given').replace(/\.$/, '')}. Nothing was charged; try again with another card.`;
+    body = `The payment did not go through: ${(last.failureMessage ?? 'no reason given').replace(/\.$/, '')}. Nothing was charged; try again with another card or account.`;
   } else {
     title = 'Payment cancelled';
     body = `You left the payment page before paying, so nothing was charged. Build ${b.reference} is saved; pay the deposit whenever you are ready.`;
@@ -50,7 +53,7 @@ export function Component() {
   return (
     <Card variant="outlined" sx={{ maxWidth: 640, mx: 'auto' }} role="status" aria-live="polite">
       <Typography level="h1" sx={{ fontSize: 'xl2' }}>{title}</Typography>
-      {result === 'paid' && b.depositStatus !== 'paid' && <CircularProgress size="sm" />}
+      {result === 'paid' && !depositSettled(b) && <CircularProgress size="sm" />}
       <Typography>{body}</Typography>
       <Stack direction="row" gap={1} flexWrap="wrap">
         {b.state === 'requested' && b.depositStatus !== 'paid' && result !== 'paid' && <PayButton bookingId={b.id} label="Pay the deposit" />}

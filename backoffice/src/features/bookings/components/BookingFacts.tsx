@@ -1,14 +1,16 @@
 import Typography from '@mui/joy/Typography';
-import { bookingStateLabels, type BookingDetail } from '@loomwright/shared';
+import { bookingStateLabels, type BookingDetail, type DepositStatus } from '@loomwright/shared';
 import { formatDay, formatHours, formatMoney, formatMoneyRange, formatStamp } from 'src/lib/format';
 import { Facts } from './Section';
 
-const depositWords = {
+const depositWords: Record<DepositStatus, string> = {
   unpaid: 'Not paid',
   pending: 'Checkout open, not paid yet',
+  processing: 'Bank debit settling, not here yet',
   paid: 'Paid',
+  disputed: "Disputed by the player's bank",
   refunded: 'Refunded',
-} as const;
+};
 
 export function BookingFacts({ booking }: { booking: BookingDetail }) {
   const c = booking.currency;
@@ -33,6 +35,7 @@ export function BookingFacts({ booking }: { booking: BookingDetail }) {
         ['Deposit', `${formatMoney(booking.deposit, c)} · ${depositWords[booking.depositStatus]}${depositPayment?.paidAt ? ` ${formatStamp(depositPayment.paidAt)}` : ''}`],
         ['Approved extras', formatMoney(booking.money.approvedExtras, c)],
         ['Balance due', booking.money.balanceDue === null ? 'Set when a builder accepts' : `${formatMoney(booking.money.balanceDue, c)}${booking.money.balanceWaived ? ' (waived)' : ''}`],
+        ...(booking.deliveryHold ? ([['Delivery on hold', booking.deliveryHold]] as Array<[string, string]>) : []),
         ...(booking.inbound
           ? ([['Parcel in', `${booking.inbound.carrier} · ${booking.inbound.tracking}`]] as Array<[string, string]>)
           : []),

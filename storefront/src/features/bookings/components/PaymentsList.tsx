@@ -5,8 +5,9 @@ import { formatAmount, formatMoment } from 'src/lib/booking-format';
 
 const statusWords: Record<PaymentView['status'], string> = {
   pending: 'Waiting for payment',
+  processing: 'Bank payment settling (a few working days)',
   paid: 'Paid',
-  failed: 'Not paid: the card was refused',
+  failed: 'Not paid',
   expired: 'Checkout closed without payment',
   refunded: 'Refunded',
 };
@@ -31,6 +32,15 @@ export function PaymentsList({ payments }: { payments: PaymentView[] }) {
               {statusWords[p.status]}
               {p.status === 'paid' && p.paidAt ? `, ${formatMoment(p.paidAt)}` : ''}
               {p.status === 'refunded' && p.refundedAt ? `, ${formatMoment(p.refundedAt)}` : ''}
+              {p.status === 'paid' && (p.refundStatus === 'pending' || p.refundStatus === 'requires_action') && (
+                <Typography level="body-xs">Refund asked for; we e-mail you once the money is on its way.</Typography>
+              )}
+              {p.status === 'paid' && (p.refundStatus === 'failed' || p.refundStatus === 'canceled') && (
+                <Typography level="body-xs" color="warning">The refund did not go through; the shop has been told and will be in touch.</Typography>
+              )}
+              {p.dispute && !['won', 'warning_closed'].includes(p.dispute.status) && (
+                <Typography level="body-xs" color="warning">Disputed with your bank; the shop will be in touch about this build.</Typography>
+              )}
               {p.failureMessage && p.status !== 'paid' && (
                 <Typography level="body-xs" color="danger">
                   {p.failureMessage}
