@@ -240,6 +240,40 @@ describe('payment outcomes the provider reports after checkout', () => {
     expect((await notes(booking.id)).at(-1)).toMatch(/for the player; .* was taken back/);
   });
 
+  it('a dispute whose event overtakes the checkout\'s own is still put on the right payment', async () => {
+    const booking = await request();
+    const url = await checkout(booking.id);
+    const sentBefore = h.fake.events.length;
+    h.fake.webhooks.url = undefined; // hold deliveries: this test sends them in its own order
+    try {
+      expect((await payOnHostedPage(url, CARD)).status).toBe(303);
+      const intentId = [...h.fake.store.sessions.values()].find((s) => s.metadata?.bookingId === booking.id)!.payment_intent as string;
+      h.fake.control.openDispute(intentId, 'duplicate');
+    } finally {
+      h.fake.webhooks.url = `${h.apiUrl}/api/payments/webhook`;
+    }
+    const held = h.fake.events.slice(sentBefore);
+    expect(held.map((e) => e.type)).toEqual(['payment_intent.succeeded', 'checkout.session.completed', 'charge.dispute.created']);
+    // The dispute first, answered before the checkout's events are even sent.
+    const dispute = held[2];
+    const payload = JSON.stringify(dispute);
+    const first = await fetch(`${h.apiUrl}/api/payments/webhook`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', 'stripe-signature': new Stripe('sk_test_order').webhooks.generateTestHeaderString({ payload, secret: 'whsec_loomwright_test_0123456789' }) },
+      body: payload,
+    });
+    expect(first.status).toBe(200);
+    expect((await payments(booking.id))[0]).toMatchObject({ status: 'pending', dispute_status: 'needs_response' });
+    h.fake.resend(held[0].id);
+    h.fake.resend(held[1].id);
+    h.fake.resend(dispute.id); // the provider would retry it too: a duplicate now
+    await eventually(async () => (await detail(booking.id)).state === 'deposit_paid', 'the deposit');
+    await eventually(async () => (await payments(booking.id))[0]?.dispute_status === 'needs_response', 'the early dispute');
+    const b = await detail(booking.id);
+    expect(b.depositStatus).toBe('disputed');
+    expect(b.deliveryHold).toMatch(/duplicate/);
+  });
+
   it("a refund made in the provider's dashboard is recorded from its event, with its id, and the player mailed", async () => {
     const booking = await paidByCard();
     const refund = h.fake.control.dashboardRefund(await intentOf(booking.id));

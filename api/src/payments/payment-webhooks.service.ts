@@ -105,6 +105,7 @@ export class PaymentWebhooksService {
     // or concurrent deliveries could each hold one and wait for a second from an empty pool.
     const shopEmail = event.type === 'checkout.session.completed' || event.type === 'checkout.session.async_payment_succeeded' ? (await this.shop.profile()).contactEmail : '';
     const failure = event.type === 'checkout.session.async_payment_failed' ? await this.intentFailure(event.data.object) : '';
+    const known = await this.paymentOfIntent(event);
     const fresh = await this.db.transaction().execute(async (trx) => {
       if (!(await this.payments.recordEvent(trx, { id: event.id, type: event.type, payload: event }))) return false;
       switch (event.type) {
@@ -125,12 +126,12 @@ export class PaymentWebhooksService {
         case 'refund.updated':
         case 'refund.failed':
         case 'charge.refund.updated':
-          await this.refundChanged(trx, event.data.object);
+          await this.refundChanged(trx, event.data.object, known);
           break;
         case 'charge.dispute.created':
         case 'charge.dispute.updated':
         case 'charge.dispute.closed':
-          await this.disputeChanged(trx, event.data.object);
+          await this.disputeChanged(trx, event.data.object, known);
           break;
         default:
           // Recorded, nothing to do (payment_intent.succeeded, charge.refunded, …): the events
@@ -140,6 +141,32 @@ export class PaymentWebhooksService {
       return true;
     });
     return { received: true, duplicate: !fresh };
+  }
+
+  /**
+   * Which payment a refund or dispute event is about. Usually its intent id is on the payment row;
+   * when the event overtakes the checkout's own (the row has no intent id yet), the intent's
+   * metadata names the payment. Read before the transaction, like every provider call.
+   */
+  private async paymentOfIntent(event: Stripe.Event): Promise<string | undefined> {
+    const object = event.type.startsWith('refund.') || event.type.startsWith('charge.dispute.') || event.type === 'charge.refund.updated' ? (event.data.object as Stripe.Refund | Stripe.Dispute) : undefined;
+    const intentId = object ? intentIdOf(object.payment_intent) : null;
+    if (!intentId) return undefined;
+    const row = await this.db.selectFrom('payments').select('id').where('payment_intent_id', '=', intentId).executeTakeFirst();
+    if (row) return row.id;
+    try {
+      return (await this.stripe.paymentIntents.retrieve(intentId)).metadata?.paymentId || undefined;
+    } catch (error) {
+      this.logger.warn(`could not read payment intent ${intentId}: ${error instanceof Error ? error.message : String(error)}`);
+      return undefined;
+    }
+  }
+
+  /** Locks the payment an event names, and notes its intent id if the checkout's own event has not yet. */
+  private async lockForIntent(trx: Executor, intentId: string | null, paymentId: string | undefined) {
+    const payment = paymentId ? await this.payments.lockById(trx, paymentId) : intentId ? await this.payments.lockByIntent(trx, intentId) : undefined;
+    if (payment && !payment.payment_intent_id && intentId) return this.payments.update(trx, payment.id, { payment_intent_id: intentId });
+    return payment;
   }
 
   /** The bank's reason for a failed debit, from the intent (read before the transaction). */
@@ -298,10 +325,9 @@ export class PaymentWebhooksService {
   }
 
   /** Any refund's news (ours, or one made in the provider's dashboard): recorded against its payment. */
-  private async refundChanged(trx: Executor, refund: Stripe.Refund) {
+  private async refundChanged(trx: Executor, refund: Stripe.Refund, known: string | undefined) {
     const intentId = intentIdOf(refund.payment_intent);
-    const byMetadata = refund.metadata?.paymentId;
-    const payment = byMetadata ? await this.payments.lockById(trx, byMetadata) : intentId ? await this.payments.lockByIntent(trx, intentId) : undefined;
+    const payment = await this.lockForIntent(trx, intentId, refund.metadata?.paymentId || known);
     if (!payment) {
       this.logger.warn(`refund ${refund.id} of ${intentId ?? 'an unknown payment'} matches no payment`);
       return;
@@ -310,9 +336,9 @@ export class PaymentWebhooksService {
   }
 
   /** A chargeback: opened, updated, won or lost. The owner is told at once; delivery waits on their decision. */
-  private async disputeChanged(trx: Executor, dispute: Stripe.Dispute) {
+  private async disputeChanged(trx: Executor, dispute: Stripe.Dispute, known: string | undefined) {
     const intentId = intentIdOf(dispute.payment_intent);
-    const payment = intentId ? await this.payments.lockByIntent(trx, intentId) : undefined;
+    const payment = await this.lockForIntent(trx, intentId, known);
     if (!payment) {
       this.logger.warn(`dispute ${dispute.id} of ${intentId ?? 'an unknown payment'} matches no payment`);
       return;
