@@ -199,7 +199,13 @@ describe('payment outcomes the provider reports after checkout', () => {
     const refused = await owner.post(`/api/bookings/${booking.id}/refund`).send({ reason: 'Settle it.' }).expect(409);
     expect(refused.body.message).toMatch(/disputed by the player's bank/);
 
-    // Pretend the build is finished (no firm quote, so nothing is owed) and try to deliver.
+    // Pretend the build is finished with a firm total equal to the deposit (nothing more owed) and try to deliver.
+    const estimate = await h.t.db.selectFrom('quotes').selectAll().where('booking_id', '=', booking.id).executeTakeFirstOrThrow();
+    const { id: _id, created_at: _c, ...copy } = estimate;
+    await h.t.db
+      .insertInto('quotes')
+      .values({ ...copy, kind: 'firm', configuration: JSON.stringify(copy.configuration), estimate: JSON.stringify(copy.estimate), total: booking.deposit, total_low: booking.deposit, total_high: booking.deposit })
+      .execute();
     await h.t.db.updateTable('bookings').set({ state: 'ready' }).where('id', '=', booking.id).execute();
     const blocked = await owner.post(`/api/bookings/${booking.id}/state`).send({ to: 'delivered' }).expect(409);
     expect(blocked.body.message).toMatch(/cannot be delivered yet/);
