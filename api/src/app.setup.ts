@@ -1,10 +1,12 @@
 import { INestApplication, ValidationPipe } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { HttpAdapterHost } from '@nestjs/core';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import { applyBodyParsing } from './common/body-parsing';
 import { DatabaseInputFilter } from './common/database-input.filter';
+import type { AppConfig } from './config/configuration';
 
 /**
  * Everything main.ts and the API tests both need, so tests exercise the app as it runs.
@@ -12,6 +14,9 @@ import { DatabaseInputFilter } from './common/database-input.filter';
  */
 export function configureApp(app: INestApplication): INestApplication {
   app.setGlobalPrefix('api');
+  // Behind a load balancer, req.ip must be the client (throttling counts per address): TRUST_PROXY.
+  const { trustProxy } = app.get(ConfigService<AppConfig, true>).get('app', { infer: true });
+  app.getHttpAdapter().getInstance().set('trust proxy', trustProxy);
   // Gzip for JSON and the apps' scripts (Nest's own "Compression" technique); a proxy in front
   // may do it instead.
   app.use(compression());

@@ -1,7 +1,9 @@
 import { authMessages } from '@loomwright/shared';
 import { ConfigService } from '@nestjs/config';
 import type { ThrottlerAsyncOptions } from '@nestjs/throttler';
+import { Pool } from 'pg';
 import type { AppConfig } from '../config/configuration';
+import { PostgresThrottlerStorage } from './postgres-throttler-storage';
 
 const emailOf = (req: Record<string, any>): string =>
   typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
@@ -11,14 +13,16 @@ const emailOf = (req: Record<string, any>): string =>
  * an invitation). Two buckets: one per client address and e-mail, so guessing one account's
  * password stalls quickly; and a looser one per client address, so trying many accounts from one
  * place stalls too. The guard is applied per route with @UseGuards(ThrottlerGuard), not globally.
- * Behind a load balancer, set Express's "trust proxy" so req.ip is the client's address.
+ * The counts live in PostgreSQL (PostgresThrottlerStorage), shared by every API process. Behind a
+ * load balancer, set TRUST_PROXY so req.ip is the client's address, not the balancer's.
  */
 export const authThrottlerOptions: ThrottlerAsyncOptions = {
-  inject: [ConfigService],
-  useFactory: (config: ConfigService<AppConfig, true>) => {
+  inject: [ConfigService, Pool],
+  useFactory: (config: ConfigService<AppConfig, true>, pool: Pool) => {
     const { throttleLimit, throttleSeconds } = config.get('auth', { infer: true });
     return {
       errorMessage: authMessages.throttled,
+      storage: new PostgresThrottlerStorage(pool),
       throttlers: [
         {
           name: 'address-and-email',

@@ -1,3 +1,4 @@
+import { isIP } from 'node:net';
 import { z } from 'zod';
 import { DEVELOPMENT_DEFAULTS, productionProblems } from './production-safety';
 
@@ -58,6 +59,30 @@ const environmentSchema = z.object({
       return origins;
     }),
   RUN_WORKERS: z.enum(['true', 'false']).default('true'),
+  // Express's "trust proxy": which proxies in front may name the client in X-Forwarded-For, so
+  // req.ip (and every per-address limit) is the client, not the load balancer. `false` (the
+  // default: nothing in front), a hop count such as 1, or a comma-separated list of addresses,
+  // CIDR ranges or Express's names loopback, linklocal, uniquelocal. `true` trusts any sender.
+  TRUST_PROXY: z
+    .string()
+    .default('false')
+    .transform((value, ctx): boolean | number | string => {
+      const v = value.trim();
+      if (v === 'true' || v === 'false') return v === 'true';
+      if (/^\d+$/.test(v)) return Number(v);
+      const names = ['loopback', 'linklocal', 'uniquelocal'];
+      const bad = v.split(',').map((s) => s.trim()).filter((item) => {
+        if (names.includes(item)) return false;
+        const [address = '', bits, ...rest] = item.split('/');
+        const family = isIP(address);
+        if (!family || rest.length) return true;
+        return bits !== undefined && !(/^\d+$/.test(bits) && Number(bits) <= (family === 4 ? 32 : 128));
+      });
+      if (bad.length) {
+        ctx.addIssue({ code: 'custom', message: `"${bad.join('", "')}" is not a proxy address; use false, a hop count (e.g. 1), or addresses/CIDR ranges such as 10.0.0.0/8 or loopback` });
+      }
+      return v;
+    }),
 });
 
 export type Environment = z.infer<typeof environmentSchema>;
@@ -97,6 +122,7 @@ export function configuration() {
       serveApps: env.SERVE_APPS === 'true',
       seedDemo: env.SEED_DEMO === 'true',
       runWorkers: env.RUN_WORKERS === 'true',
+      trustProxy: env.TRUST_PROXY,
       uploadsDir: env.UPLOADS_DIR,
       allowedOrigins: [new URL(env.PUBLIC_URL).origin, ...env.ALLOWED_ORIGINS],
     },

@@ -8,7 +8,8 @@ types.setTypeParser(20, (v) => v);
 // date columns (1082) stay 'YYYY-MM-DD': a bench date is a calendar day, not an instant.
 types.setTypeParser(1082, (v) => v);
 
-export function createDatabase(url: string, poolMax = 10): Database {
+/** The one pg pool of a process: Kysely runs on it, and so does the throttling store. */
+export function createPool(url: string, poolMax = 10): Pool {
   const pool = new Pool({
     connectionString: url,
     max: poolMax,
@@ -17,5 +18,11 @@ export function createDatabase(url: string, poolMax = 10): Database {
   });
   // A dropped connection (database restarted) must not crash the process; the pool reconnects.
   pool.on('error', () => undefined);
-  return new Kysely<DB>({ dialect: new PostgresDialect({ pool }) }) as Database;
+  return pool;
+}
+
+export const databaseOnPool = (pool: Pool): Database => new Kysely<DB>({ dialect: new PostgresDialect({ pool }) }) as Database;
+
+export function createDatabase(url: string, poolMax = 10): Database {
+  return databaseOnPool(createPool(url, poolMax));
 }

@@ -1,7 +1,8 @@
 import { Global, Inject, Module, OnApplicationShutdown, OnModuleInit, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import type { AppConfig } from '../config/configuration';
-import { createDatabase } from './create-database';
+import { Pool } from 'pg';
+import { createPool, databaseOnPool } from './create-database';
 import { Database } from './database';
 import { migrateToLatest } from './migrate';
 import { SeedService } from './seed.service';
@@ -10,16 +11,18 @@ import { SeedService } from './seed.service';
 @Module({
   providers: [
     {
-      provide: Database,
+      // pg's own Pool class is the token: code that speaks to pg directly (the throttling store) shares it.
+      provide: Pool,
       inject: [ConfigService],
       useFactory: (config: ConfigService<AppConfig, true>) => {
         const { url, poolMax } = config.get('database', { infer: true });
-        return createDatabase(url, poolMax);
+        return createPool(url, poolMax);
       },
     },
+    { provide: Database, inject: [Pool], useFactory: (pool: Pool) => databaseOnPool(pool) },
     SeedService,
   ],
-  exports: [Database],
+  exports: [Database, Pool],
 })
 export class DatabaseModule implements OnModuleInit, OnApplicationShutdown {
   private readonly logger = new Logger('Database');
