@@ -43,4 +43,4 @@ export interface SessionsEnded {
 
 /** The words every app shows while the API answers 503: the shop's database is not answering. */
 export const shopUnavailableMessage =
-  'The shop is briefly unavailable: its database is not answering. Nothing is lost and you are still signed in; please try again in a minute.';
+  'The shop is briefly unavailable: its database is not answering. Nothing is lost and nobody is signed out; please try again in a minute.';

@@ -58,7 +58,7 @@ describe('the backoffice layout lets only staff in', () => {
         : json(200, { user: { id: 'b1', email: 'builder@shop.example', name: 'Tamsin Reyes', role: 'builder' } }),
     );
     expect(await screen.findByText('The shop is briefly unavailable')).toBeTruthy();
-    expect(screen.getByText(new RegExp('you are still signed in'))).toBeTruthy();
+    expect(screen.getByText(new RegExp('nobody is signed out'))).toBeTruthy();
     expect(screen.queryByText(/sign-in page at/)).toBeNull();
     down = false;
     fireEvent.click(screen.getByRole('button', { name: 'Try again now' }));

@@ -54,7 +54,7 @@ describe('My builds while the shop is down', () => {
       return json(404, { message: 'not scripted' });
     });
     expect(await screen.findByText('The shop is briefly unavailable')).toBeTruthy();
-    expect(screen.getByText(new RegExp('you are still signed in'))).toBeTruthy();
+    expect(screen.getByText(new RegExp('nobody is signed out'))).toBeTruthy();
     expect(screen.queryByText(/^at \/sign-in/)).toBeNull();
 
     down = false;
