@@ -57,6 +57,8 @@ export default defineConfig({
       DB_NAME: 'loomwright_e2e',
       FRESH_DATABASE: 'true',
       PAYMENT_FAKE_PORT: String(paymentPort),
+      // Bank debits settle only when a test tells the fake (POST /_control/payment_intents/settle_processing).
+      PAYMENT_FAKE_SETTLE_SECONDS: '0',
       MAIL_FAKE_SMTP_PORT: String(smtpPort),
       MAIL_FAKE_HTTP_PORT: String(mailHttpPort),
       NODE_ENV: 'test',

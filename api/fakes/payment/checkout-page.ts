@@ -50,7 +50,7 @@ export function checkoutPage(
       <input id="routing" name="routing" inputmode="numeric" placeholder="${TEST_ROUTING_NUMBER}" required>
       <label for="account">Account number</label>
       <input id="account" name="account" inputmode="numeric" placeholder="000123456789" required>
-      <button type="submit">Pay ${amount} from the bank account</button>
+      <button type="submit">Debit ${amount} from the bank account</button>
     </form>`
     : '';
   const body =

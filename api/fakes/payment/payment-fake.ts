@@ -481,6 +481,12 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
       control.advance(seconds);
       return sendJson(res, 200, { now: clock.now() });
     }
+    if (path === '/_control/payment_intents/settle_processing') {
+      // Every bank debit still settling ends now, as its test account planned (browser tests use this).
+      const processing = [...store.intents.values()].filter((i) => i.status === 'processing');
+      for (const intent of processing) control.settle(intent.id);
+      return sendJson(res, 200, { settled: processing.map((i) => i.id) });
+    }
     if ((m = path.match(/^\/_control\/payment_intents\/([\w-]+)\/settle$/))) {
       const outcome = body.get('outcome');
       if (outcome !== null && outcome !== 'succeed' && outcome !== 'fail') throw new RequestError(400, 'outcome must be succeed or fail.', 'outcome');
