@@ -287,7 +287,7 @@ export class PaymentsService {
   async historyNote(trx: Executor, bookingId: string, actor: BookingActor, note: string) {
     const booking = await this.bookings.lock(trx, bookingId);
     if (!booking) return;
-    await this.bookings.transition(trx, bookingId, [booking.state], booking.state, actor, note);
+    await this.bookings.insertNote(trx, booking, actor, note);
   }
 
   /** Tells the owner at once (every owner account) that money needs a decision. */
