@@ -1,41 +1,6 @@
-import net from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createRelay } from './support/tcp-relay';
 import { createTestApp, type TestApp } from './support/test-app';
-
-/**
- * A TCP relay between the API and PostgreSQL that the test can cut and restore, so "the database
- * went away" is real network failure, not a mock.
- */
-function createRelay(targetPort: number) {
-  const sockets = new Set<net.Socket>();
-  let server: net.Server | undefined;
-  let port = 0;
-  const listen = () =>
-    new Promise<number>((resolve) => {
-      server = net.createServer((client) => {
-        const upstream = net.connect(targetPort, '127.0.0.1');
-        sockets.add(client).add(upstream);
-        client.pipe(upstream).pipe(client);
-        const drop = () => {
-          client.destroy();
-          upstream.destroy();
-        };
-        client.on('error', drop).on('close', drop);
-        upstream.on('error', drop).on('close', drop);
-      });
-      server.listen(port, '127.0.0.1', () => {
-        port = (server!.address() as net.AddressInfo).port;
-        resolve(port);
-      });
-    });
-  const cut = () =>
-    new Promise<void>((resolve) => {
-      for (const s of sockets) s.destroy();
-      sockets.clear();
-      server?.close(() => resolve());
-    });
-  return { listen, cut };
-}
 
 describe('GET /api/health', () => {
   let t: TestApp;

@@ -154,11 +154,11 @@ describe('mail delivery through the outbox into the mail fake', () => {
     await t.db.updateTable('mail_outbox').set({ state: 'sending', attempts: 1, claimed_at: new Date() }).where('id', '=', claimed!.id).execute();
     expect(await delivery.deliverPending()).toMatchObject({ sent: 0 });
     expect(await delivery.deliverOne(claimed!.id)).toBe('skipped');
-    expect(await delivery.failStaleClaims()).toBe(0); // still inside its lease
+    expect(await delivery.markStaleClaimsUnknown()).toBe(0); // still inside its lease
     await t.db.updateTable('mail_outbox').set({ claimed_at: new Date(Date.now() - 16 * 60_000) }).where('id', '=', claimed!.id).execute();
-    expect(await delivery.failStaleClaims()).toBe(1);
+    expect(await delivery.markStaleClaimsUnknown()).toBe(1);
     const stale = await t.db.selectFrom('mail_outbox').selectAll().where('id', '=', claimed!.id).executeTakeFirstOrThrow();
-    expect(stale).toMatchObject({ state: 'failed', last_error: OUTCOME_UNKNOWN });
+    expect(stale).toMatchObject({ state: 'unknown', last_error: OUTCOME_UNKNOWN });
     expect(await delivery.deliverPending()).toMatchObject({ sent: 0 });
     expect((await inbox()).map((m) => m.to[0])).toEqual(['sent@mail.example']);
   });

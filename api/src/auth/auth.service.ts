@@ -1,10 +1,10 @@
-import { BadRequestException, ConflictException, Injectable, UnauthorizedException } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, OnModuleInit, UnauthorizedException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { authMessages, type AuthUser } from '@loomwright/shared';
 import type { Request, Response } from 'express';
 import type { AppConfig } from '../config/configuration';
-import { Database } from '../database/database';
-import { MailService } from '../mail/mail.service';
+import { Database, type Executor } from '../database/database';
+import { MailService, type MessageToRenew } from '../mail/mail.service';
 import { toAuthUser, UsersService } from '../users/users.service';
 import { AuthTokensService } from './auth-tokens.service';
 import { decoyPasswordHash, hashPassword, verifyPassword } from './password';
@@ -14,7 +14,7 @@ import { SessionsService, type SessionUser } from './sessions.service';
 const UNIQUE_VIOLATION = '23505';
 
 @Injectable()
-export class AuthService {
+export class AuthService implements OnModuleInit {
   constructor(
     private readonly db: Database,
     private readonly users: UsersService,
@@ -23,6 +23,10 @@ export class AuthService {
     private readonly sessions: SessionsService,
     private readonly config: ConfigService<AppConfig, true>,
   ) {}
+
+  onModuleInit() {
+    this.mail.renewLinksWith('password-reset', (trx, message) => this.renewResetLink(trx, message));
+  }
 
   get sessionMs(): number {
     return this.sessions.sessionMs;
@@ -74,22 +78,35 @@ export class AuthService {
    * address a single-use link is e-mailed; the e-mail is queued in the token's transaction.
    */
   async requestPasswordReset(email: string): Promise<void> {
-    const lifetimeMs = this.config.get('auth', { infer: true }).passwordResetMinutes * 60_000;
     await this.db.transaction().execute(async (trx) => {
       const row = await this.users.findByEmail(email, trx);
       if (!row) return;
-      const { token, expiresAt } = await this.tokens.issue(trx, row.id, 'password_reset', lifetimeMs);
       await this.mail.enqueue(trx, {
         template: 'password-reset',
         to: row.email,
         userId: row.id,
-        data: {
-          name: row.name,
-          resetUrl: `${this.publicUrl}/reset-password?token=${encodeURIComponent(token)}`,
-          expiresAt: expiresAt.toISOString(),
-        },
+        data: { name: row.name, ...(await this.resetLink(trx, row.id)) },
       });
     });
+  }
+
+  /** A new single-use reset link (older unused ones stop working). */
+  private async resetLink(trx: Executor, userId: string) {
+    const lifetimeMs = this.config.get('auth', { infer: true }).passwordResetMinutes * 60_000;
+    const { token, expiresAt } = await this.tokens.issue(trx, userId, 'password_reset', lifetimeMs);
+    return { resetUrl: `${this.publicUrl}/reset-password?token=${encodeURIComponent(token)}`, expiresAt: expiresAt.toISOString() };
+  }
+
+  /** The owner resends a reset message: a fresh link, and only to the address the account has now. */
+  private async renewResetLink(trx: Executor, message: MessageToRenew) {
+    const row = message.userId ? await this.users.findById(message.userId, trx) : undefined;
+    if (!row) throw new ConflictException('The account this reset link was for no longer exists, so there is nothing to resend.');
+    if (row.email.toLowerCase() !== message.to.toLowerCase()) {
+      throw new ConflictException(
+        'This account now uses a different e-mail address, and a reset link goes only to the current one. Ask them to request a new link from the sign-in page.',
+      );
+    }
+    return { ...message.data, ...(await this.resetLink(trx, row.id)) };
   }
 
   /** Spends the token, sets the password and retires any other reset links of the account. */

@@ -18,6 +18,9 @@ export function createPool(url: string, poolMax = 10): Pool {
   });
   // A dropped connection (database restarted) must not crash the process; the pool reconnects.
   pool.on('error', () => undefined);
+  // The same for a client that is checked out when its connection drops: pg emits 'error' on it, and
+  // with no listener that would end the process. The query it was running fails on its own.
+  pool.on('connect', (client) => client.on('error', () => undefined));
   return pool;
 }
 

@@ -297,7 +297,7 @@ export interface BenchAllocationsTable {
   day_capacity: Numeric;
 }
 
-export type MailState = 'queued' | 'sending' | 'sent' | 'failed';
+export type MailState = 'queued' | 'sending' | 'sent' | 'failed' | 'unknown';
 
 export interface MailOutboxTable {
   id: Generated<string>;

@@ -1,11 +1,11 @@
-import { BadRequestException, ConflictException, Injectable } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { authMessages, type AuthUser, type InvitationCreated, type InviteStaffInput, type WeeklyHours } from '@loomwright/shared';
 import { AuthTokensService } from '../auth/auth-tokens.service';
 import { hashPassword } from '../auth/password';
 import type { AppConfig } from '../config/configuration';
-import { Database } from '../database/database';
-import { MailService } from '../mail/mail.service';
+import { Database, type Executor } from '../database/database';
+import { MailService, type MessageToRenew } from '../mail/mail.service';
 import { toAuthUser, UsersService } from '../users/users.service';
 import { InvitationsRepository } from './invitations.repository';
 
@@ -13,7 +13,7 @@ import { InvitationsRepository } from './invitations.repository';
 export const DEFAULT_WEEKLY_HOURS: WeeklyHours = { '1': 7, '2': 7, '3': 7, '4': 7, '5': 7 };
 
 @Injectable()
-export class InvitationsService {
+export class InvitationsService implements OnModuleInit {
   constructor(
     private readonly db: Database,
     private readonly users: UsersService,
@@ -23,14 +23,16 @@ export class InvitationsService {
     private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
+  onModuleInit() {
+    this.mail.renewLinksWith('staff-invite', (trx, message) => this.renewInviteLink(trx, message));
+  }
+
   /**
    * Creates the builder's account (no password yet) and bench profile, and e-mails a single-use
    * link to choose a password. Inviting someone who was invited but never accepted sends a fresh
    * link (the old one stops working) and updates their level and rate.
    */
   async invite(input: InviteStaffInput, invitedBy: AuthUser): Promise<InvitationCreated> {
-    const lifetimeMs = this.config.get('auth', { infer: true }).staffInviteDays * 24 * 3600_000;
-    const publicUrl = this.config.get('app', { infer: true }).publicUrl;
     return this.db.transaction().execute(async (trx) => {
       const existing = await this.users.findByEmail(input.email, trx);
       let user: AuthUser;
@@ -48,22 +50,38 @@ export class InvitationsService {
         builderId = (await this.invitations.insertBuilder({ userId: row.id, ...input, weeklyHours: DEFAULT_WEEKLY_HOURS }, trx)).id;
         user = toAuthUser(row);
       }
-      const { token, expiresAt } = await this.tokens.issue(trx, user.id, 'staff_invite', lifetimeMs);
+      const link = await this.inviteLink(trx, user.id);
       await this.mail.enqueue(trx, {
         template: 'staff-invite',
         to: user.email,
         userId: user.id,
-        data: {
-          name: user.name,
-          invitedBy: invitedBy.name,
-          level: input.level,
-          hourlyRate: input.hourlyRate,
-          acceptUrl: `${publicUrl}/backoffice/accept-invite?token=${encodeURIComponent(token)}`,
-          expiresAt: expiresAt.toISOString(),
-        },
+        data: { name: user.name, invitedBy: invitedBy.name, level: input.level, hourlyRate: input.hourlyRate, ...link },
       });
-      return { user, builderId, expiresAt: expiresAt.toISOString(), resent };
+      return { user, builderId, expiresAt: link.expiresAt, resent };
     });
+  }
+
+  /** A new single-use invitation link (older unused ones stop working). */
+  private async inviteLink(trx: Executor, userId: string) {
+    const lifetimeMs = this.config.get('auth', { infer: true }).staffInviteDays * 24 * 3600_000;
+    const publicUrl = this.config.get('app', { infer: true }).publicUrl;
+    const { token, expiresAt } = await this.tokens.issue(trx, userId, 'staff_invite', lifetimeMs);
+    return { acceptUrl: `${publicUrl}/backoffice/accept-invite?token=${encodeURIComponent(token)}`, expiresAt: expiresAt.toISOString() };
+  }
+
+  /** The owner resends an invitation: a fresh link while it is still pending, and only to the same address. */
+  private async renewInviteLink(trx: Executor, message: MessageToRenew) {
+    const row = message.userId ? await this.users.findById(message.userId, trx) : undefined;
+    if (!row || row.role === 'customer') {
+      throw new ConflictException('The account this invitation was for no longer exists; invite the person again from the team page.');
+    }
+    if (row.password_hash) {
+      throw new ConflictException(`${row.name} has already accepted this invitation and chosen a password, so there is nothing to resend.`);
+    }
+    if (row.email.toLowerCase() !== message.to.toLowerCase()) {
+      throw new ConflictException('This invitation was for an address the account no longer uses; invite the person again from the team page.');
+    }
+    return { ...message.data, ...(await this.inviteLink(trx, row.id)) };
   }
 
   /** Spends the invitation token and sets the builder's first password. */

@@ -6,14 +6,18 @@ import { MailOutboxRepository } from './mail-outbox.repository';
 import { classifySmtpError, describeSmtpError, MailTransport } from './mail-transport';
 import { MailDataError, renderMail, type RenderedMail } from './templates/render';
 
-export type DeliveryOutcome = 'sent' | 'retry' | 'failed' | 'skipped';
+export type DeliveryOutcome = 'sent' | 'retry' | 'failed' | 'unknown' | 'skipped';
 
 /** How long a claim may stay in 'sending' before we conclude its sender died mid-send. */
 export const SEND_LEASE_SECONDS = 15 * 60;
 
+/** Tries at writing down 'sent' once the mail server has taken a message (a database blip is not a failure). */
+const RECORD_SENT_ATTEMPTS = 4;
+
 export const OUTCOME_UNKNOWN =
-  'Delivery outcome unknown: the sender stopped while handing the message to the mail server. ' +
-  'It was not retried, so the recipient cannot get it twice; resend it if it never arrived.';
+  'Outcome unknown: the mail server may have received this message. The sender stopped while handing it over, ' +
+  'before the answer was recorded. It was not sent again, so the recipient cannot get it twice by itself; ' +
+  'ask them whether it arrived before resending it.';
 
 /**
  * Delivers outbox rows, one at a time.
@@ -26,13 +30,18 @@ export const OUTCOME_UNKNOWN =
  *    crashed after the mail went out) finds nothing to claim and ends.
  * 3. Only a definite "not taken" goes back to 'queued': a refused connection, or an SMTP 4yz reply.
  *    A 5yz reply, or data the template cannot render, ends in 'failed' with the reason.
- * 4. A claim whose outcome is unknown — the connection dropped or went silent once the SMTP
- *    session was under way (see classifySmtpError), or a sender that died between the claim and
- *    marking it sent (found by the sweep after SEND_LEASE_SECONDS) — ends
- *    in 'failed' with OUTCOME_UNKNOWN, never re-sent by itself: the owner decides in the mail log.
+ * 4. A message the server accepted is never 'failed': once the send resolves, only 'sent' is
+ *    written (retried through a database blip). A claim whose outcome is unknown — the connection
+ *    dropped or went silent once the SMTP session was under way (see classifySmtpError), or a
+ *    sender that died or lost the database between the claim and marking it sent (found by the
+ *    sweep after SEND_LEASE_SECONDS) — ends in 'unknown' with OUTCOME_UNKNOWN, never re-sent by
+ *    itself: the owner decides in the mail log, where a resend asks for confirmation first.
  * So no automatic path hands one row to the mail server twice, and no row is dropped silently:
- * each ends 'sent' or 'failed' with its reason in the log. Every send carries the row's stable
- * Message-ID (RFC 5322 §3.6.4), so even a copy the owner resends by hand is recognisable.
+ * each ends 'sent', 'failed' or 'unknown' with its reason in the log. Every send carries the row's
+ * stable Message-ID (RFC 5322 §3.6.4), so even a copy the owner resends by hand is recognisable.
+ *
+ * Single-use links (singleUseLinkKeys) leave the row's data in the same UPDATE that writes 'sent',
+ * 'failed' or 'unknown', so no usable link token stays readable in the database after its message.
  */
 @Injectable()
 export class MailDeliveryService {
@@ -80,8 +89,8 @@ export class MailDeliveryService {
       const verdict = classifySmtpError(error);
       const reason = describeSmtpError(error);
       if (verdict === 'unknown') {
-        await this.outbox.release(id, 'failed', `${OUTCOME_UNKNOWN} (${reason})`, rendered.subject);
-        return 'failed';
+        await this.outbox.release(id, 'unknown', `${OUTCOME_UNKNOWN} (${reason})`, rendered.subject);
+        return 'unknown';
       }
       const final = verdict === 'permanent' || row.attempts >= this.maxAttempts;
       await this.outbox.release(id, final ? 'failed' : 'queued', reason, rendered.subject);
@@ -89,10 +98,30 @@ export class MailDeliveryService {
       return final ? 'failed' : 'retry';
     }
 
-    // If this update is lost (the database went away), the row stays 'sending' and the sweep marks
-    // it OUTCOME_UNKNOWN later: it is never sent again automatically.
-    await this.outbox.markSent(id, rendered.subject);
-    return 'sent';
+    return (await this.recordSent(id, rendered.subject, row.message_id)) ? 'sent' : 'unknown';
+  }
+
+  /**
+   * The server has taken the message, so the only true record is 'sent'. A database error here is
+   * retried a few times; if it persists the row stays 'sending' and the sweep later marks it
+   * 'unknown' (never 'failed', never sent again automatically).
+   */
+  private async recordSent(id: string, subject: string, messageId: string): Promise<boolean> {
+    for (let attempt = 1; ; attempt += 1) {
+      try {
+        await this.outbox.markSent(id, subject);
+        return true;
+      } catch (error) {
+        if (attempt >= RECORD_SENT_ATTEMPTS) {
+          this.logger.error(
+            `Mail ${messageId} was accepted by the mail server but could not be recorded as sent (${(error as Error).message}); ` +
+              'the sweep will mark its outcome unknown',
+          );
+          return false;
+        }
+        await new Promise((resolve) => setTimeout(resolve, 200 * 2 ** attempt));
+      }
+    }
   }
 
   /**
@@ -100,14 +129,14 @@ export class MailDeliveryService {
    * the outbox by hand. Safe beside a running worker (the claim decides who sends).
    */
   async deliverPending(limit = 500): Promise<Record<DeliveryOutcome, number>> {
-    const counts: Record<DeliveryOutcome, number> = { sent: 0, retry: 0, failed: 0, skipped: 0 };
+    const counts: Record<DeliveryOutcome, number> = { sent: 0, retry: 0, failed: 0, unknown: 0, skipped: 0 };
     for (const id of await this.outbox.queuedIds(limit)) counts[await this.deliverOne(id)] += 1;
     return counts;
   }
 
-  /** Marks claims left by a dead sender as failed with an unknown outcome (see the guarantee). */
-  async failStaleClaims(leaseSeconds = SEND_LEASE_SECONDS) {
-    const rows = await this.outbox.failStaleClaims(leaseSeconds, OUTCOME_UNKNOWN);
+  /** Marks claims left by a dead sender as of unknown outcome (see the guarantee). */
+  async markStaleClaimsUnknown(leaseSeconds = SEND_LEASE_SECONDS) {
+    const rows = await this.outbox.markStaleClaimsUnknown(leaseSeconds, OUTCOME_UNKNOWN);
     if (rows.length) this.logger.warn(`${rows.length} message(s) had an unknown outcome after a sender stopped`);
     return rows.length;
   }

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { sql } from 'kysely';
-import type { MailState } from '@loomwright/shared';
+import { singleUseLinkKeys, type MailState } from '@loomwright/shared';
 import { Database, Executor } from '../database/database';
 import type { OutgoingMail } from './mail.types';
 
@@ -11,6 +11,15 @@ export interface MailListFilter {
   state?: MailState;
   q?: string;
 }
+
+/**
+ * The row's data without its single-use links: set in the same UPDATE that records a final state,
+ * so there is no moment after sending when the state is final and the token still readable.
+ */
+const dataWithoutLinks = sql<string>`case template ${sql.join(
+  Object.entries(singleUseLinkKeys).map(([template, keys]) => sql`when ${template} then data - ${[...keys]}::text[]`),
+  sql` `,
+)} else data end`;
 
 @Injectable()
 export class MailOutboxRepository {
@@ -34,8 +43,11 @@ export class MailOutboxRepository {
       .executeTakeFirst();
   }
 
-  /** A copy of a message under a new Message-ID, linked to the one it repeats. */
-  insertResend(originalId: string, domain: string, trx: Executor = this.db) {
+  /**
+   * A copy of a message under a new Message-ID, linked to the one it repeats. `data` replaces the
+   * original's (a message with a single-use link gets a fresh link, never the spent one).
+   */
+  insertResend(originalId: string, domain: string, data: Record<string, unknown> | null, trx: Executor = this.db) {
     return trx
       .insertInto('mail_outbox')
       .columns(['message_id', 'template', 'to_address', 'data', 'booking_id', 'user_id', 'resent_from_id'])
@@ -46,7 +58,7 @@ export class MailOutboxRepository {
             sql<string>`${`<${randomUUID()}@${domain}>`}`.as('message_id'),
             'template',
             'to_address',
-            'data',
+            data ? sql<string>`${JSON.stringify(data)}::jsonb`.as('data') : 'data',
             'booking_id',
             'user_id',
             'id',
@@ -79,17 +91,26 @@ export class MailOutboxRepository {
   markSent(id: string, subject: string, trx: Executor = this.db) {
     return trx
       .updateTable('mail_outbox')
-      .set({ state: 'sent', sent_at: sql`now()`, subject, last_error: null, claimed_at: null })
+      .set({ state: 'sent', sent_at: sql`now()`, subject, last_error: null, claimed_at: null, data: dataWithoutLinks })
       .where('id', '=', id)
       .where('state', '=', 'sending')
       .executeTakeFirst();
   }
 
-  /** After a definite refusal: back in the queue for the next attempt, or failed for good. */
-  release(id: string, state: 'queued' | 'failed', error: string, subject: string | null, trx: Executor = this.db) {
+  /**
+   * Ends a claim that did not end in 'sent': back in the queue for the next attempt, failed for
+   * good, or of unknown outcome. Only 'queued' keeps the single-use links (the next try needs them).
+   */
+  release(id: string, state: 'queued' | 'failed' | 'unknown', error: string, subject: string | null, trx: Executor = this.db) {
     return trx
       .updateTable('mail_outbox')
-      .set({ state, last_error: error.slice(0, 2000), claimed_at: null, subject: sql`coalesce(${subject}, subject)` })
+      .set({
+        state,
+        last_error: error.slice(0, 2000),
+        claimed_at: null,
+        subject: sql`coalesce(${subject}, subject)`,
+        ...(state === 'queued' ? {} : { data: dataWithoutLinks }),
+      })
       .where('id', '=', id)
       .where('state', '=', 'sending')
       .executeTakeFirst();
@@ -131,10 +152,10 @@ export class MailOutboxRepository {
   }
 
   /** Claims older than the lease whose sender stopped mid-send: their outcome is unknown. */
-  failStaleClaims(leaseSeconds: number, error: string, trx: Executor = this.db) {
+  markStaleClaimsUnknown(leaseSeconds: number, error: string, trx: Executor = this.db) {
     return trx
       .updateTable('mail_outbox')
-      .set({ state: 'failed', last_error: error, claimed_at: null })
+      .set({ state: 'unknown', last_error: error, claimed_at: null, data: dataWithoutLinks })
       .where('state', '=', 'sending')
       .where(sql<boolean>`claimed_at < now() - make_interval(secs => ${leaseSeconds}::double precision)`)
       .returning('id')

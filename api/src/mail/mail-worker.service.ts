@@ -85,7 +85,7 @@ export class MailWorker implements OnApplicationBootstrap, OnApplicationShutdown
   }
 
   async sweep(everything = false) {
-    await this.delivery.failStaleClaims();
+    await this.delivery.markStaleClaimsUnknown();
     const { retryDelaySeconds } = this.config.get('mail', { infer: true });
     const ids = everything ? await this.outbox.queuedIds(1000) : await this.outbox.overdueIds(retryDelaySeconds, 60, 1000);
     for (const id of ids) await this.scheduleDelivery(id);

@@ -1,9 +1,17 @@
-import { BadRequestException, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query } from '@nestjs/common';
-import { ApiTags } from '@nestjs/swagger';
-import { listMailQuerySchema, type AuthUser, type ListMailQuery, type MailLogEntry, type MailLogPage } from '@loomwright/shared';
+import { BadRequestException, Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query } from '@nestjs/common';
+import { ApiCreatedResponse, ApiTags } from '@nestjs/swagger';
+import {
+  listMailQuerySchema,
+  resendMailSchema,
+  type AuthUser,
+  type ListMailQuery,
+  type MailLogEntry,
+  type MailLogPage,
+  type ResendMailInput,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { ApiZodQuery } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodQuery } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { MailService } from './mail.service';
 
@@ -23,10 +31,13 @@ export class MailController {
   @Post(':id/resend')
   @Roles('owner')
   @HttpCode(201)
+  @ApiZodBody(resendMailSchema.unwrap(), 'Optional; confirmPossibleDuplicate: true is required to resend a message whose outcome is unknown.')
+  @ApiCreatedResponse({ description: 'The new message; a single-use link in it is a fresh one. 409 in words when the outcome of the original is unknown and not confirmed.' })
   resend(
     @Param('id', new ParseUUIDPipe({ exceptionFactory: () => new BadIdException() })) id: string,
+    @Body(new ZodValidationPipe(resendMailSchema)) body: ResendMailInput,
   ): Promise<MailLogEntry> {
-    return this.mail.resend(id);
+    return this.mail.resend(id, body ?? {});
   }
 }
 

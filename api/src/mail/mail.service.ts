@@ -1,18 +1,32 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import type { MailLogEntry, MailLogPage, MailState } from '@loomwright/shared';
+import { mailMessages, singleUseLinkKeys, type MailLogEntry, type MailLogPage, type MailState } from '@loomwright/shared';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailOutboxRepository } from './mail-outbox.repository';
 import { MailWorker } from './mail-worker.service';
-import type { OutgoingMail } from './mail.types';
+import type { MailTemplate, OutgoingMail } from './mail.types';
 
 type OutboxRow = NonNullable<Awaited<ReturnType<MailOutboxRepository['findById']>>>;
+
+/** What a resend knows of the message it repeats; the data has no single-use links left in it. */
+export interface MessageToRenew {
+  userId: string | null;
+  to: string;
+  data: Record<string, unknown>;
+}
+
+/**
+ * Makes fresh single-use links for a resend, in the resend's transaction: returns the message's
+ * data with new links, or throws an HTTP exception saying in words why there is nothing to resend.
+ */
+export type LinkRenewer = (trx: Executor, message: MessageToRenew) => Promise<Record<string, unknown>>;
 
 @Injectable()
 export class MailService {
   /** The right-hand side of every Message-ID (RFC 5322 §3.6.4): the sending domain. */
   private readonly domain: string;
+  private readonly linkRenewers = new Map<string, LinkRenewer>();
 
   constructor(
     private readonly db: Database,
@@ -39,24 +53,48 @@ export class MailService {
     return { items: rows.map(toEntry), total, page: query.page, pageSize: query.pageSize, canResend };
   }
 
+  /** Called by the module that issues a template's single-use links (accounts, invitations). */
+  renewLinksWith(template: MailTemplate, renew: LinkRenewer) {
+    this.linkRenewers.set(template, renew);
+  }
+
   /**
    * A resend is intentional (the player lost the message, or it failed), so it is a new outbox row
    * with a NEW Message-ID, linked to the original by resentFromId: a mail store that already holds
    * the original's Message-ID may drop a same-ID copy as a duplicate, which would defeat the point.
    * The original row stays as it was, so the log keeps the true history.
+   *
+   * A message whose outcome is unknown may already be in the recipient's mailbox, so it is resent
+   * only when the caller confirms a second copy is acceptable. A message with a single-use link
+   * never repeats its link (spent, retired or removed from the outbox): it gets a fresh one, or the
+   * resend is refused in words when no fresh link can rightly be made.
    */
-  async resend(id: string): Promise<MailLogEntry> {
+  async resend(id: string, options: { confirmPossibleDuplicate?: boolean } = {}): Promise<MailLogEntry> {
     return this.db.transaction().execute(async (trx) => {
       const original = await this.outbox.findById(id, trx);
       if (!original) throw new NotFoundException(`There is no message with the id ${id}.`);
       if (original.state === 'queued' || original.state === 'sending') {
         throw new ConflictException('This message is still waiting to go out; resend it once it has been sent or has failed.');
       }
-      const copy = await this.outbox.insertResend(id, this.domain, trx);
+      if (original.state === 'unknown' && options.confirmPossibleDuplicate !== true) {
+        throw new ConflictException(mailMessages.unknownNeedsConfirmation);
+      }
+      const copy = await this.outbox.insertResend(id, this.domain, await this.renewedData(trx, original), trx);
       if (!copy) throw new NotFoundException(`There is no message with the id ${id}.`);
       await this.worker.scheduleDelivery(copy.id, trx);
       return toEntry((await this.outbox.findById(copy.id, trx))!);
     });
+  }
+
+  /** Null keeps the original's data; a message with single-use links gets fresh ones. */
+  private async renewedData(trx: Executor, original: OutboxRow): Promise<Record<string, unknown> | null> {
+    const linkKeys = singleUseLinkKeys[original.template];
+    if (!linkKeys) return null;
+    const renew = this.linkRenewers.get(original.template);
+    if (!renew) throw new ConflictException('This message carried a single-use link that cannot be renewed; ask the recipient to request a new one.');
+    const data = { ...(original.data as Record<string, unknown>) };
+    for (const key of linkKeys) delete data[key];
+    return renew(trx, { userId: original.user_id, to: original.to_address, data });
   }
 }
 

@@ -7,6 +7,7 @@ import * as photoVariants from './20261202_0217_photo_variants';
 import * as sessionsAndRateLimits from './20261202_0236_sessions_and_rate_limits';
 import * as approvalsAndRecords from './20261202_0301_approvals_and_records';
 import * as paymentOutcomes from './20261202_0303_payment_outcomes';
+import * as mailUnknownOutcome from './20261202_0333_mail_unknown_outcome';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -21,4 +22,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0236_sessions_and_rate_limits': sessionsAndRateLimits,
   '20261202_0301_approvals_and_records': approvalsAndRecords,
   '20261202_0303_payment_outcomes': paymentOutcomes,
+  '20261202_0333_mail_unknown_outcome': mailUnknownOutcome,
 };

@@ -1,9 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { MailLogEntry } from '@loomwright/shared';
+import type { MailLogEntry, ResendMailInput } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
 import { mailLogKeys } from 'src/features/mail-log/api/get-mail-log';
 
-export const resendMail = (id: string) => api.post<MailLogEntry>(`/mail/${encodeURIComponent(id)}/resend`);
+export type ResendMailVariables = { id: string } & NonNullable<ResendMailInput>;
+
+export const resendMail = ({ id, ...body }: ResendMailVariables) =>
+  api.post<MailLogEntry>(`/mail/${encodeURIComponent(id)}/resend`, body);
 
 export function useResendMail() {
   const queryClient = useQueryClient();

@@ -23,11 +23,11 @@ const entry = (over: Partial<MailLogEntry>): MailLogEntry => ({
 });
 
 function stubApi(page: MailLogPage) {
-  const calls: { url: string; method: string }[] = [];
+  const calls: { url: string; method: string; body?: string }[] = [];
   vi.stubGlobal(
     'fetch',
     vi.fn(async (url: string, init?: RequestInit) => {
-      calls.push({ url, method: init?.method ?? 'GET' });
+      calls.push({ url, method: init?.method ?? 'GET', body: typeof init?.body === 'string' ? init.body : undefined });
       const body = init?.method === 'POST' ? { ...page.items[0], id: 'new', state: 'queued' } : page;
       return new Response(JSON.stringify(body), { status: init?.method === 'POST' ? 201 : 200 });
     }),
@@ -90,6 +90,28 @@ describe('MailLogTable', () => {
     expect((screen.getByRole('button', { name: /to wait@mail.example/ }) as HTMLButtonElement).disabled).toBe(true);
     fireEvent.click(button);
     await waitFor(() => expect(calls.some((c) => c.method === 'POST' && c.url.endsWith('/api/mail/22222222-2222-4222-8222-222222222222/resend'))).toBe(true));
+    expect(await screen.findByText('Queued again with a fresh link; the earlier link no longer works.')).toBeTruthy();
+  });
+
+  it('warns before resending a message whose outcome is unknown, and sends only on confirmation', async () => {
+    const unknown = entry({ id: '44444444-4444-4444-8444-444444444444', state: 'unknown', to: 'maybe@mail.example', lastError: 'Outcome unknown: the mail server may have received this message.' });
+    const calls = stubApi({ items: [unknown], total: 1, page: 1, pageSize: 25, canResend: true });
+    renderTable();
+    const resendButton = await screen.findByRole('button', { name: /Resend .* to maybe@mail.example/ });
+    expect(within(screen.getByRole('table')).getByText('May have arrived (outcome unknown)')).toBeTruthy();
+    fireEvent.click(resendButton);
+    const dialog = await screen.findByRole('alertdialog');
+    expect(within(dialog).getByText(/may be in\s+their mailbox already/)).toBeTruthy();
+    fireEvent.click(within(dialog).getByRole('button', { name: 'Don’t send' }));
+    await waitFor(() => expect(screen.queryByRole('alertdialog')).toBeNull());
+    expect(calls.filter((c) => c.method === 'POST')).toHaveLength(0);
+
+    fireEvent.click(await screen.findByRole('button', { name: /Resend .* to maybe@mail.example/ }));
+    fireEvent.click(within(await screen.findByRole('alertdialog')).getByRole('button', { name: 'Send a second copy' }));
+    await waitFor(() => expect(calls.filter((c) => c.method === 'POST')).toHaveLength(1));
+    const post = calls.find((c) => c.method === 'POST')!;
+    expect(post.url).toMatch(/\/api\/mail\/44444444-4444-4444-8444-444444444444\/resend$/);
+    expect(JSON.parse(post.body!)).toEqual({ confirmPossibleDuplicate: true });
     expect(await screen.findByText('Queued again as a new message.')).toBeTruthy();
   });
 });

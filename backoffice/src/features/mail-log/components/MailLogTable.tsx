@@ -1,9 +1,14 @@
 import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Chip from '@mui/joy/Chip';
+import DialogActions from '@mui/joy/DialogActions';
+import DialogContent from '@mui/joy/DialogContent';
+import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
 import FormLabel from '@mui/joy/FormLabel';
 import Input from '@mui/joy/Input';
+import Modal from '@mui/joy/Modal';
+import ModalDialog from '@mui/joy/ModalDialog';
 import Option from '@mui/joy/Option';
 import Select from '@mui/joy/Select';
 import Sheet from '@mui/joy/Sheet';
@@ -11,17 +16,18 @@ import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import { useState } from 'react';
-import { mailStateLabels, mailStates, type MailLogEntry, type MailState } from '@loomwright/shared';
+import { mailStateLabels, mailStates, singleUseLinkKeys, type MailLogEntry, type MailState } from '@loomwright/shared';
 import { useMailLog } from 'src/features/mail-log/api/get-mail-log';
 import { useResendMail } from 'src/features/mail-log/api/resend-mail';
 
 const pageSize = 25;
 
-const stateColor: Record<MailState, 'neutral' | 'primary' | 'success' | 'danger'> = {
+const stateColor: Record<MailState, 'neutral' | 'primary' | 'success' | 'warning' | 'danger'> = {
   queued: 'neutral',
   sending: 'primary',
   sent: 'success',
   failed: 'danger',
+  unknown: 'warning',
 };
 
 const when = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
@@ -43,7 +49,12 @@ const templateWords: Record<string, string> = {
 
 function ResendButton({ entry }: { entry: MailLogEntry }) {
   const resend = useResendMail();
+  const [confirming, setConfirming] = useState(false);
   const waiting = entry.state === 'queued' || entry.state === 'sending';
+  const freshLink = entry.template in singleUseLinkKeys;
+  const name = entry.subject ?? templateWords[entry.template] ?? entry.template;
+  const send = (confirmPossibleDuplicate?: true) =>
+    resend.mutate({ id: entry.id, confirmPossibleDuplicate }, { onSuccess: () => setConfirming(false) });
   return (
     <Stack gap={0.5} alignItems="flex-start">
       <Button
@@ -51,18 +62,46 @@ function ResendButton({ entry }: { entry: MailLogEntry }) {
         variant="outlined"
         color="accent"
         disabled={waiting || resend.isPending}
-        loading={resend.isPending}
-        onClick={() => resend.mutate(entry.id)}
-        aria-label={`Resend “${entry.subject ?? templateWords[entry.template] ?? entry.template}” to ${entry.to}`}
+        loading={resend.isPending && !confirming}
+        // A message of unknown outcome may already be in the mailbox: ask before a second copy.
+        onClick={() => (entry.state === 'unknown' ? setConfirming(true) : send())}
+        aria-label={`Resend “${name}” to ${entry.to}`}
       >
         Resend
       </Button>
-      {resend.isSuccess && <Typography level="body-xs">Queued again as a new message.</Typography>}
-      {resend.isError && (
+      {resend.isSuccess && (
+        <Typography level="body-xs">{freshLink ? 'Queued again with a fresh link; the earlier link no longer works.' : 'Queued again as a new message.'}</Typography>
+      )}
+      {resend.isError && !confirming && (
         <Typography level="body-xs" color="danger" role="alert">
           {resend.error.message}
         </Typography>
       )}
+      <Modal open={confirming} onClose={() => setConfirming(false)}>
+        <ModalDialog role="alertdialog" sx={{ width: 'min(520px, 96vw)' }}>
+          <DialogTitle component="h2">This message may already have arrived</DialogTitle>
+          <DialogContent sx={{ gap: 1 }}>
+            <Typography level="body-sm">
+              “{name}” to {entry.to} was with the mail server when our sender stopped, and its answer was never recorded. It may be in
+              their mailbox already. Ask them first if you can: sending it again gives them a second copy.
+            </Typography>
+            {freshLink && <Typography level="body-sm">The copy carries a fresh link; the link in the first one stops working.</Typography>}
+            {resend.isError && (
+              <Typography level="body-sm" color="danger" role="alert">
+                {resend.error.message}
+              </Typography>
+            )}
+          </DialogContent>
+          <DialogActions>
+            <Button color="accent" loading={resend.isPending} onClick={() => send(true)}>
+              Send a second copy
+            </Button>
+            <Button variant="plain" color="neutral" onClick={() => setConfirming(false)}>
+              Don’t send
+            </Button>
+          </DialogActions>
+        </ModalDialog>
+      </Modal>
     </Stack>
   );
 }
