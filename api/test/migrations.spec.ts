@@ -32,7 +32,7 @@ describe('migrations and seed', () => {
       const migrator = new Migrator({ db, provider: { getMigrations: async () => migrations } });
       expect((await migrator.migrateTo('20261202_0217_photo_variants')).error).toBeUndefined();
       const link = 'http://shop.test/reset-password?token=' + 'A'.repeat(43);
-      const row = (template: string, state: string, data: object, lastError: string | null = null) => ({
+      const row = (template: string, state: 'queued' | 'sent' | 'failed', data: object, lastError: string | null = null) => ({
         message_id: `<${template}-${state}-${Math.random()}@shop.test>`,
         template,
         to_address: 'p@mail.example',
