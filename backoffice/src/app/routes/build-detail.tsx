@@ -29,6 +29,8 @@ import { HoursPanel } from 'src/features/builds/components/HoursPanel';
 import { IntakePanel } from 'src/features/builds/components/IntakePanel';
 import { SafetyNote } from 'src/features/builds/components/SafetyNote';
 import { StateActions } from 'src/features/builds/components/StateActions';
+import { NoteDialog } from 'src/features/builds/components/NoteDialog';
+import { useAddNote } from 'src/features/builds/api/add-note';
 import { useMe } from 'src/features/auth/api/get-me';
 import { MoneyFactsTable } from '@loomwright/shared/ui';
 import { formatMoney, formatStamp } from 'src/lib/format';
@@ -42,6 +44,8 @@ export function Component() {
   const me = useMe();
   const isOwner = me.data?.role === 'owner';
   const [notice, setNotice] = useState<string | null>(null);
+  const [noting, setNoting] = useState(false);
+  const addNote = useAddNote(bookingId);
 
   if (booking.isPending) return <PageLoading />;
   if (booking.error || !booking.data)
@@ -84,7 +88,7 @@ export function Component() {
           </Card>
           <Card variant="outlined">
             <Section title="Hours">
-              <HoursPanel booking={b} entries={entries.data} />
+              <HoursPanel booking={b} entries={entries.data} meId={me.data?.id} isOwner={isOwner} />
               <ErrorNote error={entries.error} />
             </Section>
           </Card>
@@ -125,12 +129,37 @@ export function Component() {
           </Card>
           <Card variant="outlined">
             <Section title="History: who did what when">
+              <Button size="sm" variant="outlined" color="neutral" onClick={() => setNoting(true)} sx={{ alignSelf: 'flex-start' }}>
+                Add a note…
+              </Button>
               <EventTimeline events={b.events} />
             </Section>
           </Card>
           <SafetyNote />
         </Stack>
       </Box>
+      <NoteDialog
+        open={noting}
+        title={`A note on ${b.reference}`}
+        label="Note"
+        canTellPlayer
+        confirm="Keep the note"
+        pending={addNote.isPending}
+        error={addNote.error}
+        onClose={() => setNoting(false)}
+        onConfirm={(note, tellPlayer) =>
+          note &&
+          addNote.mutate(
+            { note, ...(tellPlayer ? { tellPlayer } : {}) },
+            {
+              onSuccess: () => {
+                setNotice(tellPlayer ? `${b.reference}: note sent to the player.` : `${b.reference}: internal note kept.`);
+                setNoting(false);
+              },
+            },
+          )
+        }
+      />
       <Notice message={notice} onClose={() => setNotice(null)} />
     </Stack>
   );

@@ -9,6 +9,7 @@ import { PageLoading } from 'src/components/PageLoading';
 import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
 import { useBooking } from 'src/features/bookings/api/get-booking';
+import { ApprovalsPanel } from 'src/features/bookings/components/ApprovalsPanel';
 import { BookingStateChip } from 'src/features/bookings/components/BookingStateChip';
 import { CancelBooking } from 'src/features/bookings/components/CancelBooking';
 import { PaymentsList } from 'src/features/bookings/components/PaymentsList';
@@ -16,6 +17,7 @@ import { PhotoPanel } from 'src/features/bookings/components/PhotoPanel';
 import { QuoteLines } from 'src/features/bookings/components/QuoteLines';
 import { ShipmentForm } from 'src/features/bookings/components/ShipmentForm';
 import { StatusTimeline } from 'src/features/bookings/components/StatusTimeline';
+import { BoardSketch } from 'src/features/configurator/components/BoardSketch';
 import { PayButton } from 'src/features/payments/components/PayButton';
 import { MoneyFactsTable } from '@loomwright/shared/ui';
 import { formatAmount, formatDay, formatMoment } from 'src/lib/booking-format';
@@ -45,6 +47,8 @@ export function Component() {
   if (booking.error) return <Alert color="danger" role="alert">{booking.error.message}</Alert>;
   const b = booking.data;
   const isPlayer = me.data.id === b.customer.id;
+  // The proposed top view: the board-fit layout the firm quote (or the estimate) was priced with.
+  const fit = (b.firmQuote ?? b.quote).estimate.checks?.boardFit;
 
   return (
     <Stack gap={2} sx={{ maxWidth: 1080, mx: 'auto' }}>
@@ -55,7 +59,15 @@ export function Component() {
       <Typography>{b.summary}</Typography>
       {b.declineReason && <Alert color="warning">The shop declined this build: {b.declineReason}</Alert>}
       {b.cancelReason && b.state === 'cancelled' && <Alert color="neutral">Cancelled: {b.cancelReason}</Alert>}
-      {b.awaitingLayoutApproval && <Alert color="warning">The builder is waiting for you to approve the layout before cutting cables.</Alert>}
+      {(b.extras.length > 0 || b.layoutApprovals.length > 0) && (
+        <Section title="Your approval">
+          <ApprovalsPanel
+            booking={b}
+            isPlayer={isPlayer}
+            topView={fit ? <BoardSketch fit={fit} surfaceName={b.configuration.surfaceId} /> : <Typography level="body-sm">The builder sends the top view with their message.</Typography>}
+          />
+        </Section>
+      )}
 
       <Grid container spacing={2}>
         <Grid xs={12} md={7}>
@@ -101,7 +113,7 @@ export function Component() {
               {isPlayer && b.state === 'requested' && b.depositStatus !== 'paid' && b.depositStatus !== 'processing' && (
                 <PayButton bookingId={b.id} label="Pay the deposit" />
               )}
-              {isPlayer && b.state === 'ready' && b.balanceDue && Number(b.balanceDue) > 0 && <PayButton bookingId={b.id} label="Pay the balance" />}
+              {isPlayer && b.state === 'ready' && !b.money.settled && <PayButton bookingId={b.id} label="Pay the balance" />}
             </Section>
             <Section title="Status history">
               <StatusTimeline events={b.events} />

@@ -3,7 +3,7 @@ import Typography from '@mui/joy/Typography';
 import { bookingStateLabels, type BookingEventView } from '@loomwright/shared';
 import { formatStamp } from 'src/lib/format';
 
-/** Who did what when, oldest first: the same story the player reads on their build page. */
+/** Who did what when, oldest first; lines marked "internal" never reach the player's page or mail. */
 export function EventTimeline({ events }: { events: BookingEventView[] }) {
   if (events.length === 0) return <Typography level="body-sm">Nothing recorded yet.</Typography>;
   return (
@@ -21,6 +21,7 @@ export function EventTimeline({ events }: { events: BookingEventView[] }) {
           </Typography>
           <Typography level="body-xs">
             {formatStamp(event.at)} · {event.actor}
+            {event.visibility === 'internal' ? ' · internal (the player does not see this)' : ''}
           </Typography>
           {event.note && <Typography level="body-sm">{event.note}</Typography>}
         </Box>

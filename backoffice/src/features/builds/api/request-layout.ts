@@ -4,7 +4,7 @@ import { api } from 'src/lib/api-client';
 import { invalidateBuild } from './invalidate';
 
 export const requestLayoutApproval = (id: string, note: string) =>
-  api.post<BookingStateResponse>(`/bookings/${encodeURIComponent(id)}/layout/request`, { note });
+  api.post<BookingStateResponse>(`/bookings/${encodeURIComponent(id)}/layout/request`, note ? { message: note } : {});
 
 export const useRequestLayoutApproval = (id: string) => {
   const queryClient = useQueryClient();

@@ -5,17 +5,19 @@ import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import { proposeExtraSchema, type BookingDetail, type ExtraView, type ProposeExtraInput } from '@loomwright/shared';
+import { decidedViaWords, proposeExtraSchema, type BookingDetail, type ExtraView, type ProposeExtraInput } from '@loomwright/shared';
+import { useState } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatMoney, formatStamp } from 'src/lib/format';
 import { useProposeExtra } from '../api/propose-extra';
+import { RecordDecisionDialog } from './RecordDecisionDialog';
 
 const statusWords: Record<ExtraView['status'], string> = {
-  proposed: 'Waiting for the player',
-  approved: 'Approved by the player',
-  declined: 'Declined by the player',
+  proposed: 'Waiting for the player (e-mailed)',
+  approved: 'Approved',
+  declined: 'Declined',
 };
 
 /** Extra materials need the player's yes, with a price, before they go on the board. */
@@ -34,6 +36,9 @@ export function ExtrasPanel({
     defaultValues: { description: '', amount: '', reason: '' },
   });
   const canPropose = isOwner && ['scheduled', 'pedals_received', 'on_bench', 'testing'].includes(booking.state);
+  // Any staff member may record an answer the player gave by phone or in person.
+  const canRecord = ['scheduled', 'pedals_received', 'on_bench', 'testing'].includes(booking.state);
+  const [recording, setRecording] = useState<ExtraView | null>(null);
   const errors = form.formState.errors;
   const firstError = errors.description?.message ?? errors.amount?.message ?? errors.reason?.message;
   return (
@@ -59,7 +64,21 @@ export function ExtrasPanel({
                   </Typography>
                 </td>
                 <td style={{ textAlign: 'right' }}>{formatMoney(x.amount, booking.currency)}</td>
-                <td>{statusWords[x.status]}</td>
+                <td>
+                  {statusWords[x.status]}
+                  {x.decision && (
+                    <Typography level="body-xs" sx={{ display: 'block' }}>
+                      {x.decision.givenBy} {decidedViaWords[x.decision.via]}
+                      {x.decision.recordedBy ? `, recorded by ${x.decision.recordedBy}` : ''}
+                      {x.decision.comment ? `: “${x.decision.comment}”` : ''}
+                    </Typography>
+                  )}
+                  {x.status === 'proposed' && canRecord && (
+                    <Button size="sm" variant="plain" onClick={() => setRecording(x)}>
+                      Record an answer…
+                    </Button>
+                  )}
+                </td>
                 <td>{formatStamp(x.createdAt)}</td>
               </tr>
             ))}
@@ -100,6 +119,14 @@ export function ExtrasPanel({
         </Typography>
       )}
       <ErrorNote error={propose.error} />
+      <RecordDecisionDialog
+        bookingId={booking.id}
+        target={recording ? { extraId: recording.id } : null}
+        what={recording?.description ?? ''}
+        playerName={booking.customer.name}
+        onClose={() => setRecording(null)}
+        onDone={() => setRecording(null)}
+      />
     </Stack>
   );
 }

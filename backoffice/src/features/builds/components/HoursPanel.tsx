@@ -7,14 +7,37 @@ import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import { timeEntryFormSchema, type BookingDetail, type TimeEntriesResponse, type TimeEntryFormInput, type TimeEntryFormOutput } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay, formatHours, today } from 'src/lib/format';
 import { useAddTimeEntry } from '../api/add-time-entry';
+import { useDeleteTimeEntry, useEditTimeEntry } from '../api/correct-time-entry';
 
 /** Hours as they are spent, against the hours the firm quote planned. */
-export function HoursPanel({ booking, entries }: { booking: BookingDetail; entries: TimeEntriesResponse | undefined }) {
+export function HoursPanel({
+  booking,
+  entries,
+  meId,
+  isOwner,
+}: {
+  booking: BookingDetail;
+  entries: TimeEntriesResponse | undefined;
+  meId: string | undefined;
+  isOwner: boolean;
+}) {
   const add = useAddTimeEntry(booking.id);
+  const edit = useEditTimeEntry(booking.id);
+  const remove = useDeleteTimeEntry(booking.id);
+  const [editing, setEditing] = useState<{ id: string; hours: string; note: string; problem?: string } | null>(null);
+  // Only the person who recorded an entry, or the owner, may correct it (the API says the same).
+  const mayCorrect = (e: TimeEntriesResponse['entries'][number]) => isOwner || (!!meId && e.recordedBy?.id === meId);
+  const saveEdit = (workedOn: string) => {
+    if (!editing) return;
+    const parsed = timeEntryFormSchema.safeParse({ workedOn, hours: editing.hours, note: editing.note });
+    if (!parsed.success) return setEditing({ ...editing, problem: parsed.error.issues[0]?.message });
+    edit.mutate({ entryId: editing.id, body: { hours: parsed.data.hours, note: parsed.data.note } }, { onSuccess: () => setEditing(null) });
+  };
   const form = useForm<TimeEntryFormInput, unknown, TimeEntryFormOutput>({
     resolver: zodResolver(timeEntryFormSchema),
     defaultValues: { workedOn: today(), hours: '', note: '' },
@@ -43,6 +66,7 @@ export function HoursPanel({ booking, entries }: { booking: BookingDetail; entri
               <th>Builder</th>
               <th style={{ textAlign: 'right' }}>Hours</th>
               <th>Note</th>
+              {canRecord && <th aria-label="Corrections" />}
             </tr>
           </thead>
           <tbody>
@@ -50,8 +74,51 @@ export function HoursPanel({ booking, entries }: { booking: BookingDetail; entri
               <tr key={e.id}>
                 <td>{formatDay(e.workedOn)}</td>
                 <td>{e.builder.name}</td>
-                <td style={{ textAlign: 'right' }}>{formatHours(e.hours)}</td>
-                <td>{e.note || '—'}</td>
+                {editing?.id === e.id ? (
+                  <>
+                    <td style={{ textAlign: 'right' }}>
+                      <Input size="sm" value={editing.hours} onChange={(ev) => setEditing({ ...editing, hours: ev.target.value })} slotProps={{ input: { 'aria-label': 'Corrected hours', inputMode: 'decimal' } }} />
+                    </td>
+                    <td>
+                      <Input size="sm" value={editing.note} onChange={(ev) => setEditing({ ...editing, note: ev.target.value })} slotProps={{ input: { 'aria-label': 'Corrected note' } }} />
+                      {editing.problem && (
+                        <Typography level="body-xs" color="danger" role="alert">
+                          {editing.problem}
+                        </Typography>
+                      )}
+                    </td>
+                    <td>
+                      <Button size="sm" loading={edit.isPending} onClick={() => saveEdit(e.workedOn)}>
+                        Save
+                      </Button>
+                      <Button size="sm" variant="plain" color="neutral" onClick={() => setEditing(null)}>
+                        Cancel
+                      </Button>
+                    </td>
+                  </>
+                ) : (
+                  <>
+                    <td style={{ textAlign: 'right' }}>{formatHours(e.hours)}</td>
+                    <td>
+                      {e.note || '—'}
+                      {e.updatedAt && <Typography level="body-xs"> (corrected)</Typography>}
+                    </td>
+                    {canRecord && (
+                      <td>
+                        {mayCorrect(e) && (
+                          <>
+                            <Button size="sm" variant="plain" onClick={() => setEditing({ id: e.id, hours: String(e.hours), note: e.note })}>
+                              Correct
+                            </Button>
+                            <Button size="sm" variant="plain" color="danger" loading={remove.isPending && remove.variables === e.id} onClick={() => remove.mutate(e.id)}>
+                              Delete
+                            </Button>
+                          </>
+                        )}
+                      </td>
+                    )}
+                  </>
+                )}
               </tr>
             ))}
           </tbody>
@@ -83,7 +150,7 @@ export function HoursPanel({ booking, entries }: { booking: BookingDetail; entri
           {errors.workedOn?.message ?? errors.hours?.message}
         </Typography>
       )}
-      <ErrorNote error={add.error} />
+      <ErrorNote error={add.error ?? edit.error ?? remove.error} />
     </Stack>
   );
 }

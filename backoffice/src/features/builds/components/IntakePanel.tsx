@@ -5,17 +5,23 @@ import Select from '@mui/joy/Select';
 import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import type { BookingDetail, IntakeItemView } from '@loomwright/shared';
+import { intakeChecklist, recordIntakeSchema, type BookingDetail, type IntakeItemView } from '@loomwright/shared';
 import { useEffect, useState } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatStamp } from 'src/lib/format';
 import { useRecordIntake, type IntakeItemInput } from '../api/record-intake';
 
-/** Every pedal of the rig plus the supply (and the switcher, when there is one) to check in. */
-function itemsToCheck(booking: BookingDetail): IntakeItemInput[] {
-  const pedals = booking.configuration.pedals?.map((p) => p.name) ?? [];
-  const fallback = Array.from({ length: booking.configuration.pedalCount ?? booking.pedalCount }, (_, i) => `Pedal ${i + 1}`);
-  return [...(pedals.length ? pedals : fallback), 'Power supply'].map((item) => ({ item, condition: 'working', note: '' }));
+/**
+ * What to check, in signal-chain order: what was already recorded (so recording again corrects
+ * it, never duplicates it), then the rig's items not yet recorded.
+ */
+function itemsToCheck(booking: BookingDetail, recorded: IntakeItemView[] | undefined): IntakeItemInput[] {
+  const done = (recorded ?? []).map((i) => ({ item: i.item, condition: i.condition, note: i.note }));
+  const keys = new Set((recorded ?? []).map((i) => i.key));
+  const rest = intakeChecklist(booking.configuration)
+    .filter((c) => !keys.has(c.key))
+    .map((c) => ({ item: c.item, condition: 'working' as const, note: '' }));
+  return [...done, ...rest];
 }
 
 /**
@@ -24,9 +30,22 @@ function itemsToCheck(booking: BookingDetail): IntakeItemInput[] {
  */
 export function IntakePanel({ booking, intake }: { booking: BookingDetail; intake: IntakeItemView[] | undefined }) {
   const record = useRecordIntake(booking.id);
-  const [rows, setRows] = useState<IntakeItemInput[]>(() => itemsToCheck(booking));
-  useEffect(() => setRows(itemsToCheck(booking)), [booking.id]); // eslint-disable-line react-hooks/exhaustive-deps
-  const canRecord = booking.state === 'scheduled' || booking.state === 'pedals_received';
+  const [rows, setRows] = useState<IntakeItemInput[]>(() => itemsToCheck(booking, intake));
+  useEffect(() => setRows(itemsToCheck(booking, intake)), [booking.id, intake]); // eslint-disable-line react-hooks/exhaustive-deps
+  const canRecord = ['scheduled', 'pedals_received', 'on_bench'].includes(booking.state);
+  const [problem, setProblem] = useState<string | null>(null);
+  const submit = () => {
+    const items = rows.filter((r) => r.item.trim()).map((r) => ({ ...r, item: r.item.trim(), note: r.note?.trim() || undefined }));
+    // The API's own rule: a faulty item says what is wrong.
+    const parsed = recordIntakeSchema.safeParse({ items });
+    if (!parsed.success) {
+      const issue = parsed.error.issues[0];
+      const row = typeof issue?.path[1] === 'number' ? items[issue.path[1]]?.item : undefined;
+      return setProblem(`${row ? `${row}: ` : ''}${issue?.message ?? 'Check the items.'}`);
+    }
+    setProblem(null);
+    record.mutate(items);
+  };
   const setRow = (index: number, patch: Partial<IntakeItemInput>) =>
     setRows((current) => current.map((row, i) => (i === index ? { ...row, ...patch } : row)));
 
@@ -62,10 +81,12 @@ export function IntakePanel({ booking, intake }: { booking: BookingDetail; intak
       )}
       {intake && intake.length === 0 && !canRecord && <Typography level="body-sm">No intake recorded.</Typography>}
       {canRecord && (
-        <Stack gap={1} component="form" onSubmit={(event) => { event.preventDefault(); record.mutate(rows.filter((r) => r.item.trim()).map((r) => ({ ...r, item: r.item.trim(), note: r.note?.trim() || undefined }))); }}>
+        <Stack gap={1} component="form" onSubmit={(event) => { event.preventDefault(); submit(); }}>
           <Typography level="body-sm">
-            {intake?.length ? 'Add more items if something else arrived.' : 'Test each item as it comes out of the parcel and record it.'} A faulty item
-            is reported to the player before the build starts.
+            {intake?.length
+              ? 'Correct an item by changing it here and recording again; each item is kept once, in chain order, with the change in the history.'
+              : 'Test each item as it comes out of the parcel and record it.'}{' '}
+            A faulty item needs a note saying what is wrong; it is reported to the player before the build starts.
           </Typography>
           <Table size="sm" aria-label="Intake to record" sx={{ '--TableCell-height': '36px' }}>
             <thead>
@@ -108,6 +129,11 @@ export function IntakePanel({ booking, intake }: { booking: BookingDetail; intak
               Record intake
             </Button>
           </Stack>
+          {problem && (
+            <Typography level="body-sm" color="danger" role="alert">
+              {problem}
+            </Typography>
+          )}
           <ErrorNote error={record.error} />
           {record.isSuccess && <Typography level="body-sm" role="status">Intake recorded.</Typography>}
         </Stack>

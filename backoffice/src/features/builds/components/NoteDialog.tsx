@@ -1,4 +1,5 @@
 import Button from '@mui/joy/Button';
+import Checkbox from '@mui/joy/Checkbox';
 import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
@@ -7,11 +8,17 @@ import FormHelperText from '@mui/joy/FormHelperText';
 import FormLabel from '@mui/joy/FormLabel';
 import Modal from '@mui/joy/Modal';
 import ModalDialog from '@mui/joy/ModalDialog';
+import Sheet from '@mui/joy/Sheet';
 import Textarea from '@mui/joy/Textarea';
+import Typography from '@mui/joy/Typography';
 import { useEffect, useState, type ReactNode } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 
-/** Confirm one move of a build, with a note (optional) or a reason (required). */
+/**
+ * Confirm one move of a build, with a note (optional) or a reason (required). With
+ * `canTellPlayer`, the note stays internal unless "Tell the player" is ticked, and then the
+ * dialog shows the exact words the player will read.
+ */
 export function NoteDialog({
   open,
   title,
@@ -23,6 +30,7 @@ export function NoteDialog({
   error,
   onConfirm,
   onClose,
+  canTellPlayer = false,
 }: {
   open: boolean;
   title: string;
@@ -32,20 +40,24 @@ export function NoteDialog({
   confirm: string;
   pending: boolean;
   error: Error | null;
-  onConfirm: (note: string) => void;
+  onConfirm: (note: string, tellPlayer: boolean) => void;
   onClose: () => void;
+  canTellPlayer?: boolean;
 }) {
   const [note, setNote] = useState('');
+  const [tell, setTell] = useState(false);
   const [missing, setMissing] = useState(false);
   useEffect(() => {
     if (open) {
       setNote('');
+      setTell(false);
       setMissing(false);
     }
   }, [open]);
   const submit = () => {
     if (required && note.trim().length < 3) return setMissing(true);
-    onConfirm(note.trim());
+    if (tell && !note.trim()) return setMissing(true);
+    onConfirm(note.trim(), canTellPlayer && tell);
   };
   return (
     <Modal open={open} onClose={onClose}>
@@ -56,8 +68,18 @@ export function NoteDialog({
           <FormControl error={missing} required={required}>
             <FormLabel>{label}</FormLabel>
             <Textarea minRows={2} value={note} onChange={(event) => setNote(event.target.value)} />
-            {missing && <FormHelperText>Write a reason of at least a few words.</FormHelperText>}
+            {missing && <FormHelperText>{tell ? 'Write the words the player should read.' : 'Write a reason of at least a few words.'}</FormHelperText>}
+            {canTellPlayer && !tell && <FormHelperText>Internal: only the shop sees this note.</FormHelperText>}
           </FormControl>
+          {canTellPlayer && (
+            <Checkbox label="Tell the player (by e-mail and on their build page)" checked={tell} onChange={(event) => setTell(event.target.checked)} />
+          )}
+          {canTellPlayer && tell && (
+            <Sheet variant="soft" sx={{ p: 1.5, borderRadius: 'sm' }} aria-label="Words the player will read">
+              <Typography level="body-xs">The player will read exactly:</Typography>
+              <Typography sx={{ whiteSpace: 'pre-wrap' }}>{note.trim() ? `From your builder: ${note.trim()}` : '(write the note above)'}</Typography>
+            </Sheet>
+          )}
           <ErrorNote error={error} />
         </DialogContent>
         <DialogActions>

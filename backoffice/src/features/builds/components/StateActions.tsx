@@ -14,7 +14,9 @@ import { formatMoney } from 'src/lib/format';
 import { useChangeState } from '../api/change-state';
 import { useRequestLayoutApproval } from '../api/request-layout';
 import { useWaiveBalance } from '../api/waive-balance';
+import { BalanceDialog } from './BalanceDialog';
 import { NoteDialog } from './NoteDialog';
+import { RecordDecisionDialog } from './RecordDecisionDialog';
 
 const moveWords: Record<BenchState, string> = {
   scheduled: 'Back to scheduled',
@@ -45,23 +47,32 @@ export function StateActions({
   const [moving, setMoving] = useState<BenchState | null>(null);
   const [askingLayout, setAskingLayout] = useState(false);
   const [waiving, setWaiving] = useState(false);
+  const [balanceOpen, setBalanceOpen] = useState(false);
+  const [recordingLayout, setRecordingLayout] = useState(false);
 
   if (!isBenchState(booking.state)) {
     return <Typography level="body-sm">{bookingStateLabels[booking.state]}: no bench moves from here.</Typography>;
   }
-  const moves = benchTransitions[booking.state];
-  const balancePaid = booking.payments.some((p) => p.kind === 'balance' && p.status === 'paid');
-  const balanceOpen = booking.balanceDue !== null && !balancePaid && Number(booking.balanceDue) > 0;
+  // Delivery is offered only once nothing is due or the owner waived it; until then the balance is the next step.
+  const balanceDue = booking.state === 'ready' && !booking.money.settled;
+  const moves = benchTransitions[booking.state].filter((to) => !(to === 'delivered' && balanceDue));
+  const waitingExtras = booking.extras.filter((x) => x.status === 'proposed');
 
   const blockedBecause = (to: BenchState): string | null => {
     if (to === 'pedals_received' && (intake?.length ?? 0) === 0) return 'Record the intake below first.';
     if (to === 'testing' && booking.awaitingLayoutApproval) return "Waiting for the player's layout approval.";
+    if (to === 'ready' && waitingExtras.length) return `Waiting for the player's answer on ${waitingExtras.map((x) => x.description).join(', ')}.`;
     return null;
   };
 
   return (
     <Stack gap={1}>
       <Stack direction="row" gap={1} flexWrap="wrap" alignItems="center">
+        {balanceDue && (
+          <Button color="accent" onClick={() => setBalanceOpen(true)}>
+            {isOwner ? 'Request / record balance' : 'Request the balance'}
+          </Button>
+        )}
         {moves.map((to) => {
           const blocked = blockedBecause(to);
           return (
@@ -83,28 +94,60 @@ export function StateActions({
             Ask the player to approve the layout
           </Button>
         )}
-        {booking.state === 'ready' && isOwner && balanceOpen && (
+        {booking.state === 'ready' && isOwner && balanceDue && (
           <Button variant="outlined" color="neutral" onClick={() => setWaiving(true)}>
             Waive the balance…
           </Button>
         )}
       </Stack>
       {booking.awaitingLayoutApproval && (
-        <Alert variant="soft" color="warning">Waiting for the player to approve the top-view layout; testing starts after it.</Alert>
+        <Alert
+          variant="soft"
+          color="warning"
+          endDecorator={
+            <Button size="sm" variant="outlined" color="warning" onClick={() => setRecordingLayout(true)}>
+              Record an answer given by phone or in person
+            </Button>
+          }
+        >
+          The player has been e-mailed the top-view layout to approve; testing starts after their answer.
+        </Alert>
       )}
       {booking.state === 'ready' && (
         <Typography level="body-sm">
-          {balancePaid
-            ? 'The balance is paid; the board can go back to the player.'
-            : balanceOpen
-              ? `Balance due: ${formatMoney(booking.balanceDue, booking.currency)}. It is marked delivered once the player pays it${isOwner ? ' or you waive it with a reason' : ' or the owner waives it'}.`
-              : 'No balance is due.'}
+          {!balanceDue
+            ? booking.money.balanceWaived && booking.money.balanceDue !== '0.00'
+              ? 'The owner waived the balance; the board can go back to the player.'
+              : 'Nothing is due; the board can go back to the player.'
+            : `Balance due: ${formatMoney(booking.money.balanceDue, booking.money.currency)}. Delivery is offered once the player pays it${isOwner ? ', you record it, or you waive it with a reason' : ' or the owner records or waives it'}.`}
         </Typography>
       )}
+      <BalanceDialog
+        booking={booking}
+        open={balanceOpen}
+        isOwner={isOwner}
+        onClose={() => setBalanceOpen(false)}
+        onDone={(message) => {
+          onDone(message);
+          setBalanceOpen(false);
+        }}
+      />
+      <RecordDecisionDialog
+        bookingId={booking.id}
+        target={recordingLayout ? { layout: true } : null}
+        what="the layout"
+        playerName={booking.customer.name}
+        onClose={() => setRecordingLayout(false)}
+        onDone={(message) => {
+          onDone(`${booking.reference}: ${message}`);
+          setRecordingLayout(false);
+        }}
+      />
       <NoteDialog
         open={moving !== null}
         title={moving ? `${moveWords[moving]} — ${booking.reference}` : ''}
-        label="Note for the history (optional)"
+        label="Note (optional)"
+        canTellPlayer
         confirm="Confirm"
         pending={change.isPending}
         error={change.error}
@@ -112,10 +155,10 @@ export function StateActions({
           setMoving(null);
           change.reset();
         }}
-        onConfirm={(note) =>
+        onConfirm={(note, tellPlayer) =>
           moving &&
           change.mutate(
-            { to: moving, ...(note ? { note } : {}) },
+            { to: moving, ...(note ? { note } : {}), ...(tellPlayer ? { tellPlayer } : {}) },
             {
               onSuccess: () => {
                 onDone(`${booking.reference}: ${bookingStateLabels[moving]}.`);
@@ -134,7 +177,7 @@ export function StateActions({
       <NoteDialog
         open={askingLayout}
         title={`Ask for layout approval — ${booking.reference}`}
-        label="Note to the player (optional)"
+        label="Message to the player with the top view (optional; sent word for word)"
         confirm="Send the request"
         pending={layout.isPending}
         error={layout.error}
@@ -167,7 +210,7 @@ export function StateActions({
         }
       >
         <Typography level="body-sm">
-          The player will not be asked for {formatMoney(booking.balanceDue, booking.currency)}; the build can then be marked delivered.
+          The player will not be asked for {formatMoney(booking.money.balanceDue, booking.money.currency)}; the build can then be marked delivered.
         </Typography>
       </NoteDialog>
     </Stack>
