@@ -1,4 +1,4 @@
-import { INestApplication, ValidationPipe } from '@nestjs/common';
+import { INestApplication } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { HttpAdapterHost } from '@nestjs/core';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
@@ -22,9 +22,8 @@ export function configureApp(app: INestApplication): INestApplication {
   app.use(compression());
   applyBodyParsing(app);
   app.use(cookieParser());
-  app.useGlobalPipes(
-    new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),
-  );
+  // No global ValidationPipe: every body and query names its shared zod schema through
+  // ZodValidationPipe (common/zod-validation.pipe.ts), and unknown fields are refused there.
   // A value PostgreSQL refuses as data (a NUL byte, an out-of-range number) is the caller's to fix: 400.
   app.useGlobalFilters(new DatabaseInputFilter(app.get(HttpAdapterHost).httpAdapter));
   app.enableShutdownHooks();
