@@ -18,9 +18,11 @@ import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { PaymentsModule } from './payments/payments.module';
 import { PriceBookModule } from './price-book/price-book.module';
+import { SecurityModule } from './security/security.module';
 import { ShopModule } from './shop/shop.module';
 
-const repoRoot = path.resolve(__dirname, '..', '..', '..');
+// api/dist/src once built, api/src under the tests: the repository is above api/ either way.
+const repoRoot = path.resolve(__dirname, path.basename(path.dirname(__dirname)) === 'dist' ? '../../..' : '../..');
 const servesApps = process.env.SERVE_APPS !== 'false';
 
 /**
@@ -36,6 +38,8 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
   imports: [
     ConfigModule.forRoot({ isGlobal: true, load: [configuration], ignoreEnvFile: true }),
     DatabaseModule,
+    // Before AuthModule: its CSRF guard must run ahead of the sign-in and role guards.
+    SecurityModule,
     ...(servesApps
       ? [
           // The backoffice first, so its client-side routes fall back to its own index.html.

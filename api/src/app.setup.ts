@@ -7,6 +7,7 @@ import cookieParser from 'cookie-parser';
 import { applyBodyParsing } from './common/body-parsing';
 import { DatabaseInputFilter } from './common/database-input.filter';
 import type { AppConfig } from './config/configuration';
+import { securityHeaders } from './security/security-headers';
 
 /**
  * Everything main.ts and the API tests both need, so tests exercise the app as it runs.
@@ -14,8 +15,10 @@ import type { AppConfig } from './config/configuration';
  */
 export function configureApp(app: INestApplication): INestApplication {
   app.setGlobalPrefix('api');
+  const { trustProxy, nodeEnv } = app.get(ConfigService<AppConfig, true>).get('app', { infer: true });
+  // First, so every answer carries the headers: the apps, the API, its errors and the Swagger page.
+  app.use(securityHeaders(nodeEnv === 'production'));
   // Behind a load balancer, req.ip must be the client (throttling counts per address): TRUST_PROXY.
-  const { trustProxy } = app.get(ConfigService<AppConfig, true>).get('app', { infer: true });
   app.getHttpAdapter().getInstance().set('trust proxy', trustProxy);
   // Gzip for JSON and the apps' scripts (Nest's own "Compression" technique); a proxy in front
   // may do it instead.

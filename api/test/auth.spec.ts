@@ -49,7 +49,7 @@ describe('sign-up, sign-in, me and sign-out', () => {
     await agent.post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'demo-pass-2026' }).expect(200);
     const me = await agent.get('/api/auth/me').expect(200);
     expect(me.body.user).toMatchObject({ email: 'player@mail.example', role: 'customer' });
-    await agent.post('/api/auth/sign-out').expect(200);
+    await agent.post('/api/auth/sign-out').send({}).expect(200);
     await agent.get('/api/auth/me').expect(401);
   });
 

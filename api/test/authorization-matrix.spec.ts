@@ -1,5 +1,5 @@
-import type { Express } from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { registeredRoutes } from './support/routes';
 import { createTestApp, type TestApp } from './support/test-app';
 import { sessionCookieFor } from './support/sessions';
 import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fake';
@@ -25,6 +25,7 @@ import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fak
  * if you need another row; create it in `makeFixtures`). POST/PUT/PATCH send `{}` unless you set
  * `body`: an empty body is the cheap way to reach the validation pipe, so "allowed" shows as 400
  * without changing data, and "not allowed" still shows as 401/403 because guards run before pipes.
+ * (Every call is same-origin with the content type its route documents; csrf.spec.ts covers the rest.)
  * Anything that answers 500 for any caller fails, whatever the line says.
  */
 type Status = number;
@@ -50,6 +51,8 @@ interface Entry {
   body?: unknown;
   /** Call with a new session of the caller's, for a route that ends the session it is called with (sign-out). */
   freshSession?: boolean;
+  /** Send a multipart form (no file) instead of JSON: for the routes that document multipart. */
+  multipart?: boolean;
 }
 
 const open = (s: Status): Entry => ({ expect: [s, s, s, s, s] });
@@ -97,7 +100,7 @@ const matrix: Record<string, Entry> = {
   // Cancelling is the player's own act; staff decline instead.
   'POST /api/bookings/:id/cancel': { expect: [401, 200, 404, 403, 403], path: (fx) => `/api/bookings/${fx.spareBookingOfA}/cancel` },
   'POST /api/bookings/:id/shipment': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/shipment` },
-  'POST /api/bookings/:id/photos': { ...ownedByA(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/photos` },
+  'POST /api/bookings/:id/photos': { ...ownedByA(400), multipart: true, path: (fx) => `/api/bookings/${fx.bookingOfA}/photos` },
   'GET /api/bookings/:id/photos/:photoId': { expect: [401, 404, 404, 404, 404], path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}` },
   'GET /api/bookings/:id/photos/:photoId/thumbnail': { expect: [401, 404, 404, 404, 404], path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}/thumbnail` },
   // payments
@@ -175,17 +178,6 @@ async function makeFixtures(t: TestApp, cookieOfA: string): Promise<Fixtures> {
   };
 }
 
-/** "METHOD /path" for every route on the Express router (Express 5 keeps them in app.router.stack). */
-function registeredRoutes(t: TestApp): string[] {
-  const express = t.app.getHttpAdapter().getInstance() as Express & { router: { stack: Array<{ route?: { path: string; methods: Record<string, boolean> } }> } };
-  const keys = new Set<string>();
-  for (const layer of express.router.stack) {
-    if (!layer.route) continue;
-    for (const [method, on] of Object.entries(layer.route.methods)) if (on && method !== '_all') keys.add(`${method.toUpperCase()} ${layer.route.path}`);
-  }
-  return [...keys].sort();
-}
-
 describe('authorization matrix: every route, every kind of caller', () => {
   let t: TestApp;
   let fx: Fixtures;
@@ -245,7 +237,9 @@ describe('authorization matrix: every route, every kind of caller', () => {
         const cookie = entry.freshSession && who !== 'anonymous' ? await sessionCookieFor(t, who) : cookies[who];
         if (cookie) req = req.set('Cookie', cookie);
         const sendsBody = ['POST', 'PUT', 'PATCH'].includes(method);
-        const res = await (sendsBody ? req.send((entry.body ?? {}) as object) : req);
+        // A DELETE has no body but, like every state-changing call, says it speaks JSON.
+        if (method === 'DELETE') req = req.set('Content-Type', 'application/json');
+        const res = await (!sendsBody ? req : entry.multipart ? req.field('caption', '') : req.send((entry.body ?? {}) as object));
         const expected = entry.expect[index]!;
         if (res.status !== expected || res.status >= 500) {
           problems.push(`${route} as ${who}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body?.message ?? '')}`);

@@ -78,6 +78,10 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     const builder = await signedIn('builder@shop.example');
     const res = await builder.get(`/api/bookings/${bookingId}/build-sheet`).buffer(true).parse(binary).expect(200);
     expect(res.headers['content-type']).toBe('application/pdf');
+    // Chromium's PDF viewer embeds the document and styles its page inline, so the sheet's own
+    // CSP allows exactly that and still forbids framing (see security/security-headers.ts).
+    expect(res.headers['content-security-policy']).toMatch(/object-src 'self'.*frame-ancestors 'none'/);
+    expect(res.headers['content-security-policy']).not.toMatch(/script-src/);
     const body = res.body as Buffer;
     expect(body.subarray(0, 5).toString()).toBe('%PDF-');
     const { text, numpages } = await pdfParse(body);

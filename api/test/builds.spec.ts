@@ -298,8 +298,8 @@ describe('who may use the bench, team, settings and customers routes', () => {
     );
     const bench = await agents.owner.get(`/api/bench?from=2030-01-02&to=2030-01-02&builderId=${someBuilder}`).expect(200);
     expect(bench.body.builders[0].days[0]).toMatchObject({ capacityHours: 0, off: { kind: 'closure', label: 'Shop closed: Stocktake' } });
-    await agents.owner.delete(`/api/settings/closures/${closure.body.id}`).expect(204);
-    expect((await agents.owner.delete(`/api/settings/closures/${closure.body.id}`)).status).toBe(404);
+    await agents.owner.delete(`/api/settings/closures/${closure.body.id}`).set('Content-Type', 'application/json').expect(204);
+    expect((await agents.owner.delete(`/api/settings/closures/${closure.body.id}`).set('Content-Type', 'application/json')).status).toBe(404);
   });
 
   it('pages, sorts and searches customers on the server, with their builds, payments and messages', async () => {

@@ -130,11 +130,12 @@ describe('POST /api/estimates', () => {
     expect(JSON.stringify(res.body.message)).toBeTruthy();
   });
 
-  it('answers 400 to a form-encoded or text body', async () => {
+  it('answers 415 in words to a form-encoded or text body (see csrf.spec.ts)', async () => {
     const text = await t.http().post('/api/estimates').set('content-type', 'text/plain').send('pedals=12');
-    expect(text.status).toBe(400);
+    expect(text.status).toBe(415);
+    expect(text.body.message).toMatch(/must be sent as application\/json/);
     const form = await t.http().post('/api/estimates').type('form').send({ surfaceId: 'slate-61' });
-    expect(form.status).toBe(400);
+    expect(form.status).toBe(415);
   });
 });
 

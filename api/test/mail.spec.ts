@@ -219,22 +219,22 @@ describe('mail delivery through the outbox into the mail fake', () => {
       const original = await enqueueScheduled('again@mail.example');
       await delivery.deliverPending();
       const builder = await signIn('builder@shop.example');
-      await builder.post(`/api/mail/${original!.id}/resend`).expect(403);
+      await builder.post(`/api/mail/${original!.id}/resend`).send({}).expect(403);
       const owner = await signIn('owner@shop.example');
-      const res = await owner.post(`/api/mail/${original!.id}/resend`).expect(201);
+      const res = await owner.post(`/api/mail/${original!.id}/resend`).send({}).expect(201);
       expect(res.body).toMatchObject({ state: 'queued', to: 'again@mail.example', resentFromId: original!.id, template: 'booking-scheduled' });
       expect(res.body.messageId).not.toBe(original!.message_id);
       // While the copy waits, resending it again is refused.
-      const busy = await owner.post(`/api/mail/${res.body.id}/resend`).expect(409);
+      const busy = await owner.post(`/api/mail/${res.body.id}/resend`).send({}).expect(409);
       expect(busy.body.message).toContain('still waiting to go out');
       await delivery.deliverPending();
       const messages = await inbox();
       expect(messages.map((m) => m.messageId)).toEqual([res.body.messageId, original!.message_id]);
       expect(messages[0].subject).toBe(messages[1].subject);
 
-      const missing = await owner.post('/api/mail/00000000-0000-4000-8000-000000000000/resend').expect(404);
+      const missing = await owner.post('/api/mail/00000000-0000-4000-8000-000000000000/resend').send({}).expect(404);
       expect(missing.body.message).toContain('no message with the id');
-      const bad = await owner.post('/api/mail/not-a-uuid/resend').expect(400);
+      const bad = await owner.post('/api/mail/not-a-uuid/resend').send({}).expect(400);
       expect(bad.body.message).toBe('The message id must be a UUID, as listed in the mail log.');
     });
   });

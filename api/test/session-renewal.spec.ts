@@ -59,7 +59,7 @@ describe('short-lived sessions with renewal', () => {
   });
 
   it('does not undo a sign-out by renewing on the way out', async () => {
-    const res = await t.http().post('/api/auth/sign-out').set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(20)}`).expect(200);
+    const res = await t.http().post('/api/auth/sign-out').set('Content-Type', 'application/json').set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(20)}`).expect(200);
     const cookies = (res.headers['set-cookie'] as unknown as string[]).filter((c) => c.startsWith('lw_session='));
     expect(cookies).toHaveLength(1);
     expect(cookies[0]).toMatch(/^lw_session=;/);

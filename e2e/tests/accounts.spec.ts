@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './csp';
 
 const password = 'a-new-player-password';
 

@@ -1,4 +1,5 @@
-import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
+import { request as playwrightRequest, type APIRequestContext } from '@playwright/test';
+import { expect, test } from './csp';
 
 /**
  * The shop's half of the main journey: a paid request reaches the backoffice, a builder accepts it
@@ -42,7 +43,7 @@ async function paidRequest(baseURL: string, page: import('@playwright/test').Pag
   expect(created.status(), await created.text()).toBe(201);
   const booking = await created.json();
 
-  const checkout = await player.post(`/api/bookings/${booking.id}/checkout`);
+  const checkout = await player.post(`/api/bookings/${booking.id}/checkout`, { data: {} });
   expect(checkout.ok(), await checkout.text()).toBeTruthy();
   const { url } = await checkout.json();
 

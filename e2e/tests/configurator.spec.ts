@@ -1,5 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type APIRequestContext, type Locator, type Page, type TestInfo } from '@playwright/test';
+import type { APIRequestContext, Locator, Page, TestInfo } from '@playwright/test';
+import { expect, test } from './csp';
 
 // The configurator, walked the way a player walks it. Figures on screen are compared with what
 // POST /api/estimates answers for the configuration the page holds in its URL, so a panel that

@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { expect, test, type APIRequestContext, type Page, type TestInfo } from '@playwright/test';
+import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
+import { expect, test } from './csp';
 
 /**
  * The main journey, end to end, as a player and the shop live it: configure a board, sign up,

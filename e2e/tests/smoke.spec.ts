@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './csp';
 
 test('the storefront and the backoffice load, name the shop and report the database up', async ({ page, request }) => {
   const health = await request.get('/api/health');

@@ -48,7 +48,10 @@ export function createApiClient(baseUrl = '/api', fetchImpl: typeof fetch = (...
       response = await fetchImpl(url.toString(), {
         method: options.method ?? 'GET',
         credentials: 'same-origin',
-        headers: options.body !== undefined && !isForm ? { 'Content-Type': 'application/json' } : undefined,
+        // Every state-changing call says it speaks JSON, even with no body: the API refuses other
+        // types (and none) with 415, because a page on another site can send those without a preflight.
+        // A FormData upload sets its own multipart type and boundary.
+        headers: (options.method ?? 'GET') !== 'GET' && !isForm ? { 'Content-Type': 'application/json' } : undefined,
         body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
         signal: options.signal,
       });

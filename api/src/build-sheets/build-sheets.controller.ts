@@ -1,6 +1,7 @@
-import { Controller, Get, Param, ParseUUIDPipe, StreamableFile } from '@nestjs/common';
+import { Controller, Get, Header, Param, ParseUUIDPipe, StreamableFile } from '@nestjs/common';
 import { ApiNotFoundResponse, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import { Roles } from '../auth/roles.decorator';
+import { PDF_CONTENT_SECURITY_POLICY } from '../security/security-headers';
 import { BuildSheetsService } from './build-sheets.service';
 
 @ApiTags('build sheets')
@@ -11,6 +12,7 @@ export class BuildSheetsController {
   @Roles('builder', 'owner')
   @Get(':id/build-sheet')
   @ApiProduces('application/pdf')
+  @Header('Content-Security-Policy', PDF_CONTENT_SECURITY_POLICY)
   @ApiOkResponse({ description: 'A printable PDF: signal chain, loops, power, cable schedule, functions, notes and bench cautions.' })
   @ApiNotFoundResponse({ description: 'No such booking, or it has no quote yet.' })
   async buildSheet(@Param('id', new ParseUUIDPipe({ errorHttpStatusCode: 400 })) id: string) {

@@ -1,5 +1,5 @@
 import type { INestApplication } from '@nestjs/common';
-import { json, urlencoded, type NextFunction, type Request, type Response } from 'express';
+import { json, type NextFunction, type Request, type Response } from 'express';
 import { refuseHostileInput } from './json-limits';
 
 type WithRawBody = Request & { rawBody?: Buffer };
@@ -19,14 +19,15 @@ function isBareJsonValue(body: string | undefined): boolean {
 }
 
 /**
- * JSON and form bodies, parsed by Express's own parsers with the raw bytes kept (as Nest's
- * `rawBody: true` would), and a body that cannot be parsed answered with a 400 in words.
+ * JSON bodies, parsed by Express's own parser with the raw bytes kept (as Nest's `rawBody: true`
+ * would), and a body that cannot be parsed answered with a 400 in words. Form-encoded and text
+ * bodies are not parsed at all: no route takes them, and CsrfGuard answers them 415
+ * (multipart uploads are read by multer on the route that documents them).
  * Nest's built-in parser is switched off (`bodyParser: false`) because its parse errors left the
  * router and came back as "404 Cannot POST", which tells the caller nothing.
  */
 export function applyBodyParsing(app: INestApplication): void {
   app.use(json({ limit: '1mb', verify: keepRawBody }));
-  app.use(urlencoded({ extended: false, limit: '1mb', verify: keepRawBody }));
   app.use((error: { type?: string; status?: number; body?: string } | undefined, _req: Request, res: Response, next: NextFunction) => {
     if (error?.type === 'entity.parse.failed') {
       // The parser is strict: valid JSON that is a bare string, number or null is refused too.

@@ -1,5 +1,5 @@
 import { Body, Controller, Headers, HttpCode, Param, Post, Req, type RawBodyRequest } from '@nestjs/common';
-import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   cancelBookingSchema,
   recordBalanceSchema,
@@ -15,6 +15,7 @@ import type { Request } from 'express';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
+import { AllowCrossSite } from '../security/allow-cross-site.decorator';
 import { bookingIdPipe } from '../bookings/booking-id.pipe';
 import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
@@ -87,6 +88,8 @@ export class PaymentsController {
   }
 
   @Public()
+  @AllowCrossSite() // signed by the provider; its servers send no Origin of ours
+  @ApiConsumes('application/json')
   @Post('payments/webhook')
   @HttpCode(200)
   @ApiCreatedResponse({ description: 'Signed events from the payment provider; a bad signature gets 400.' })
