@@ -36,7 +36,7 @@ describe('sessions end when asked', () => {
     const otherDevice = await signInAs('player@mail.example', 'second-device');
     await me(cookie).expect(200);
 
-    const out = await t.http().post('/api/auth/sign-out').set('Cookie', cookie).expect(200);
+    const out = await t.http().post('/api/auth/sign-out').set('Content-Type', 'application/json').set('Cookie', cookie).expect(200);
     expect(sessionCookieOf(out)).toMatch(/^lw_session=;/);
 
     // A copy of the token (kept by an attacker, or a second tab that missed the cleared cookie).
@@ -61,7 +61,7 @@ describe('sessions end when asked', () => {
     const renewed = asRequestCookie(sessionCookieOf(await me(`lw_session=${aged}`).expect(200))!);
     expect(jwt.decode<{ sid: string }>(renewed.slice('lw_session='.length)).sid).toBe(sid);
 
-    await t.http().post('/api/auth/sign-out').set('Cookie', renewed).expect(200);
+    await t.http().post('/api/auth/sign-out').set('Content-Type', 'application/json').set('Cookie', renewed).expect(200);
     await me(renewed).expect(401);
     await me(`lw_session=${aged}`).expect(401);
   });
@@ -84,7 +84,7 @@ describe('sessions end when asked', () => {
     expect(listed.body.userId).toBe(cass);
     expect(listed.body.sessions.map((s: { device: string }) => s.device).sort()).toEqual(['laptop browser', 'phone browser']);
 
-    const ended = await t.http().delete(`/api/users/${cass}/sessions`).set('Cookie', ownerCookie).expect(200);
+    const ended = await t.http().delete(`/api/users/${cass}/sessions`).set('Content-Type', 'application/json').set('Cookie', ownerCookie).expect(200);
     expect(ended.body).toEqual({ userId: cass, ended: 2 });
     for (const cookie of [phone, laptop]) {
       const res = await me(cookie);
@@ -108,13 +108,13 @@ describe('sessions end when asked', () => {
 
   it('only the owner may do it, for an account that exists', async () => {
     const builder = await sessionCookieFor(t, 'builder');
-    const refused = await t.http().delete(`/api/users/${playerId}/sessions`).set('Cookie', builder);
+    const refused = await t.http().delete(`/api/users/${playerId}/sessions`).set('Content-Type', 'application/json').set('Cookie', builder);
     expect(refused.status).toBe(403);
     expect(refused.body.message).toBe('Only the shop owner can do this.');
-    const unknown = await t.http().delete('/api/users/00000000-0000-4000-8000-000000000000/sessions').set('Cookie', ownerCookie);
+    const unknown = await t.http().delete('/api/users/00000000-0000-4000-8000-000000000000/sessions').set('Content-Type', 'application/json').set('Cookie', ownerCookie);
     expect(unknown.status).toBe(404);
     expect(unknown.body.message).toBe('There is no account with that id.');
-    const malformed = await t.http().delete('/api/users/not-an-id/sessions').set('Cookie', ownerCookie);
+    const malformed = await t.http().delete('/api/users/not-an-id/sessions').set('Content-Type', 'application/json').set('Cookie', ownerCookie);
     expect(malformed.status).toBe(400);
     expect(malformed.body.message).toBe('The account id in the address must be a UUID.');
   });
