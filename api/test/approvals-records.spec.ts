@@ -235,10 +235,10 @@ describe('approvals, notes, money facts and corrections', () => {
     expect(corrected.entries[0].updatedAt).not.toBeNull();
     expect((await master.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({})).body.message).toEqual(['Say what to change: workedOn, hours or note']);
     await owner.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({ note: 'Cables cut and labelled' }).expect(200);
-    expect((await junior.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`)).status).toBe(403);
-    const gone = (await owner.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).expect(200)).body as TimeEntriesResponse;
+    expect((await junior.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json')).status).toBe(403);
+    const gone = (await owner.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json').expect(200)).body as TimeEntriesResponse;
     expect(gone.entries).toEqual([]);
-    expect((await owner.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`)).status).toBe(404);
+    expect((await owner.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json')).status).toBe(404);
 
     const history = (await t.db.selectFrom('booking_events').select('note').where('booking_id', '=', b.id).orderBy('id').execute()).map((e) => e.note);
     expect(history).toEqual(
@@ -267,8 +267,8 @@ describe('approvals, notes, money facts and corrections', () => {
     expect(deliver.status).toBe(409);
     expect(deliver.body.message).toMatch(/still has a balance of \$345\.00 to pay; request or record the balance first/);
 
-    await master.post(`/api/bookings/${b.id}/balance/request`).expect(200);
-    await master.post(`/api/bookings/${b.id}/balance/request`).expect(200);
+    await master.post(`/api/bookings/${b.id}/balance/request`).send({}).expect(200);
+    await master.post(`/api/bookings/${b.id}/balance/request`).send({}).expect(200);
     // Two clicks in one minute: one reminder.
     expect(await mails(b.id, 'balance-requested')).toHaveLength(2);
 
