@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './csp';
 import { encodeConfiguration } from '@loomwright/shared';
 
 // A plain serial board from the demo price book.
