@@ -17,7 +17,12 @@ describe('concurrent acceptances for one builder', () => {
   let baseUrl: string;
 
   /** Fires every acceptance at once over its own fetch, with the signed-in person's cookie. */
-  async function acceptAllAtOnce(email: string, items: Array<{ bookingId: string; benchDate: string }>) {
+  function acceptAllAtOnce(email: string, items: Array<{ bookingId: string; benchDate: string }>) {
+    return postAllAtOnce(email, items.map(({ bookingId, benchDate }) => ({ path: `/api/bookings/${bookingId}/accept`, body: { builderId: master, benchDate } })));
+  }
+
+  /** Fires every POST at once over its own fetch, with the signed-in person's cookie. */
+  async function postAllAtOnce(email: string, items: Array<{ path: string; body: object }>) {
     const signIn = await fetch(`${baseUrl}/api/auth/sign-in`, {
       method: 'POST',
       headers: { 'content-type': 'application/json' },
@@ -32,11 +37,11 @@ describe('concurrent acceptances for one builder', () => {
     await barrier.query('begin');
     await barrier.query('lock table shop_closures in access exclusive mode');
     const inFlight = Promise.all(
-      items.map(async ({ bookingId, benchDate }) => {
-        const res = await fetch(`${baseUrl}/api/bookings/${bookingId}/accept`, {
+      items.map(async ({ path, body }) => {
+        const res = await fetch(`${baseUrl}${path}`, {
           method: 'POST',
           headers: { 'content-type': 'application/json', cookie },
-          body: JSON.stringify({ builderId: master, benchDate }),
+          body: JSON.stringify(body),
         });
         return { status: res.status, body: (await res.json()) as { message?: string } };
       }),
@@ -111,6 +116,45 @@ describe('concurrent acceptances for one builder', () => {
     expect(results.filter((r) => r.status === 409).every((r) => /deposit is paid and before it is scheduled/.test(r.body.message ?? ''))).toBe(true);
     const slices = await t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute();
     expect(slices).toHaveLength(1);
+  });
+
+  it('moves and acceptances racing for the same Monday never overbook it, and a refused move keeps its old time', async () => {
+    // Six 2.5 h builds already scheduled later in the week (two a day, Wednesday to Friday) …
+    const agent = await signIn(t.app, 'owner@shop.example');
+    const scheduled = await Promise.all(Array.from({ length: 6 }, () => createBooking(t.db, { laborHours: '2.50' })));
+    for (const [i, b] of scheduled.entries()) {
+      await agent.post(`/api/bookings/${b.id}/accept`).send({ builderId: master, benchDate: addDays(monday, 2 + Math.floor(i / 2)) }).expect(200);
+    }
+    const before = new Map(
+      (await t.db.selectFrom('bookings').select(['id', 'bench_date']).where('id', 'in', scheduled.map((b) => b.id)).execute()).map((r) => [r.id, r.bench_date]),
+    );
+    // … race ten new acceptances and the six moves for Monday, all at once.
+    const fresh = await Promise.all(Array.from({ length: 10 }, () => createBooking(t.db, { laborHours: '2.50' })));
+    const results = await postAllAtOnce('owner@shop.example', [
+      ...fresh.map((b) => ({ path: `/api/bookings/${b.id}/accept`, body: { builderId: master, benchDate: monday } })),
+      ...scheduled.map((b) => ({ path: `/api/bookings/${b.id}/reschedule`, body: { builderId: master, benchDate: monday, reason: 'Earlier slot freed up.' } })),
+    ]);
+    expect(results.every((r) => r.status === 200 || r.status === 409)).toBe(true);
+    // Monday holds 7 h: 2.5 + 2.5 + 2 can start there (the third spills 0.5 h into Tuesday), whatever the mix.
+    expect(results.filter((r) => r.status === 200)).toHaveLength(3);
+    for (const r of results.filter((x) => x.status === 409)) expect(r.body.message).toMatch(/bench time/i);
+
+    const bench = await benchThroughSql();
+    expect(bench.overlaps).toBe(0);
+    for (const d of bench.days) expect(Number(d.booked)).toBeLessThanOrEqual(Number(d.capacity));
+    expect(bench.days.find((d) => d.day === monday)).toEqual({ day: monday, booked: '7.00', capacity: '7.00' });
+    // No hours lost or doubled: every scheduled build holds exactly its 2.5 h, and a refused move is where it was.
+    const held = await sql<{ booking_id: string; hours: string }>`
+      select booking_id, sum(upper(hours) - lower(hours))::text as hours from bench_allocations group by booking_id`.execute(t.db);
+    const scheduledNow = await t.db.selectFrom('bookings').select(['id', 'bench_date']).where('state', '=', 'scheduled').execute();
+    expect(scheduledNow).toHaveLength(6 + results.slice(0, 10).filter((r) => r.status === 200).length);
+    expect(held.rows).toHaveLength(scheduledNow.length);
+    for (const row of held.rows) expect(row.hours).toBe('2.50');
+    for (const [i, b] of scheduled.entries()) {
+      const now = scheduledNow.find((r) => r.id === b.id)!.bench_date;
+      expect(now === monday || now === before.get(b.id)).toBe(true);
+      if (results[10 + i].status === 409) expect(now).toBe(before.get(b.id));
+    }
   });
 
   it('the exclusion constraint is the last guard: time taken behind the planner’s back gives 409 in words', async () => {

@@ -49,4 +49,42 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
     expect(mail.data).toMatchObject({ depositRefunded: true, refundAmount: booking.deposit });
     expect((await owner.post(`/api/bookings/${booking.id}/decline`).send({ reason: 'twice over' })).status).toBe(409);
   });
+
+  it('the owner cancels a scheduled build the shop cannot do: bench time released and the deposit refunded through the provider, once', async () => {
+    const { player, booking } = await paidRequest();
+    const builder = await h.signIn('builder@shop.example');
+    const mine = ((await builder.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse).suggestions.find((s) => s.builder.isMe)!;
+    await builder.post(`/api/bookings/${booking.id}/accept`).send({ builderId: mine.builder.id, benchDate: mine.benchDate }).expect(200);
+    const owner = await h.signIn('owner@shop.example');
+    const preview = (await owner.get(`/api/bookings/${booking.id}/cancellation`).expect(200)).body;
+    // The master's rate puts the firm total above the apprentice range the player was quoted and they
+    // have not agreed to it yet, so even a cancellation they ask for refunds the whole deposit.
+    expect(preview).toMatchObject({ depositPaid: booking.deposit, refundIfShopCancels: booking.deposit, refundIfPlayerAsked: booking.deposit });
+    const res = await owner.post(`/api/bookings/${booking.id}/cancel-scheduled`).send({ reason: 'Our only master builder is away for a month.', cause: 'shop' }).expect(200);
+    expect(res.body.state).toBe('cancelled');
+    expect(await h.t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute()).toHaveLength(0);
+    const deposit = await h.t.db.selectFrom('payments').selectAll().where('booking_id', '=', booking.id).where('kind', '=', 'deposit').executeTakeFirstOrThrow();
+    expect(deposit.refund_id).toMatch(/^re_/);
+    expect((await owner.post(`/api/bookings/${booking.id}/cancel-scheduled`).send({ reason: 'twice over', cause: 'shop' })).status).toBe(409);
+    expect([...h.fake.store.refunds.values()].filter((r) => r.payment_intent === deposit.payment_intent_id)).toHaveLength(1);
+    const mail = await h.t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', booking.id).where('template', '=', 'booking-cancelled').executeTakeFirstOrThrow();
+    expect(mail.data).toMatchObject({ refundAmount: booking.deposit, keptAmount: null, calendarSequence: 1 });
+    expect((await player.get(`/api/bookings/${booking.id}`).expect(200)).body.state).toBe('cancelled');
+  });
+
+  it('a player who does not agree to a firm total above their estimate gets the whole deposit back', async () => {
+    const { player, booking } = await paidRequest();
+    const owner = await h.signIn('owner@shop.example');
+    // Hand the apprentice-level request to the master ($125/h, above the apprentice range the player was quoted).
+    const suggest = (await owner.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse;
+    const master = suggest.suggestions.find((s) => s.builder.level === 'master')!;
+    expect(master.aboveQuotedRange).toBe(true);
+    await owner.post(`/api/bookings/${booking.id}/accept`).send({ builderId: master.builder.id, benchDate: master.benchDate }).expect(200);
+    expect((await player.get(`/api/bookings/${booking.id}`).expect(200)).body.priceConsent).toBe('pending');
+    const res = await player.post(`/api/bookings/${booking.id}/price-consent`).send({ accept: false }).expect(200);
+    expect(res.body.state).toBe('cancelled');
+    const deposit = await h.t.db.selectFrom('payments').selectAll().where('booking_id', '=', booking.id).where('kind', '=', 'deposit').executeTakeFirstOrThrow();
+    expect(deposit.refund_id).toMatch(/^re_/);
+    expect(await h.t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute()).toHaveLength(0);
+  });
 });

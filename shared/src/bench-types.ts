@@ -16,13 +16,15 @@ export interface BenchBuild {
 }
 
 /** Why a day holds no bench time, in words ("Thanksgiving Day", "Shop closed: stocktake", "Day off"). */
-export type BenchDayOff = { kind: 'holiday' | 'closure' | 'day_off'; label: string } | null;
+export type BenchDayOff = { kind: 'holiday' | 'closure' | 'day_off' | 'absence'; label: string } | null;
 
 export interface BenchDay {
   date: string;
   capacityHours: number;
   bookedHours: number;
   freeHours: number;
+  /** Hours builders recorded against builds on this day (time entries), beside the hours planned. */
+  recordedHours: number;
   off: BenchDayOff;
   builds: BenchBuild[];
 }
@@ -56,6 +58,10 @@ export interface BenchSuggestion {
   firmTotal: string;
   /** False when the builder is below the rig's minimum level (only the owner may assign, with a reason). */
   meetsMinimumLevel: boolean;
+  /** False when the builder is below the level the player chose (or the rig's minimum): owner only, with a reason. */
+  meetsChosenLevel: boolean;
+  /** True when this builder's firm total is above the high end the player was quoted: the player must consent. */
+  aboveQuotedRange: boolean;
 }
 
 export interface BenchSuggestResponse {
@@ -63,10 +69,14 @@ export interface BenchSuggestResponse {
   reference: string;
   laborHours: number;
   minimumLevel: BuilderLevel;
+  /** The level the player chose in the configurator (never below the rig's minimum). */
+  chosenLevel: BuilderLevel;
+  /** The high end of the estimate the player was quoted. */
+  quotedHigh: string;
   currency: string;
   materialsTotal: string;
   deposit: string;
-  /** Eligible builders, earliest start first (the signed-in builder first on a tie). */
+  /** Eligible builders, those of the chosen level or above first, then earliest start (the signed-in builder first on a tie). */
   suggestions: BenchSuggestion[];
   /** Builders left out, and why in words. */
   ineligible: Array<{ builder: BuilderRef; reason: string }>;
@@ -99,6 +109,94 @@ export interface AcceptBookingResponse {
     balanceDue: string;
     currency: string;
   };
+}
+
+/** Why a bench date cannot be chosen, in a word a dialog can explain. */
+export type BenchDateRefusal = 'full' | 'closed' | 'holiday' | 'day_off' | 'away' | 'too_soon_to_ship' | 'past' | 'no_capacity';
+
+/**
+ * GET /api/bench/preview?bookingId=&benchDate=&builderId= : what choosing this day would mean for
+ * each builder, before anything is submitted.
+ */
+export interface BenchPreview {
+  bookingId: string;
+  reference: string;
+  benchDate: string;
+  /** The shop's today, and the earliest bench date the player could still ship in time for. */
+  today: string;
+  earliestShippableDate: string;
+  /** The build's current bench date (when it already has one). */
+  currentBenchDate: string | null;
+  options: BenchPreviewOption[];
+}
+
+export interface BenchPreviewOption {
+  builder: BenchBuilder;
+  ok: boolean;
+  refusal: BenchDateRefusal | null;
+  /** Why not, in words ("Shop closed: stocktake", "The pedals could not arrive in time: …"). */
+  message: string | null;
+  /** This builder's load on the days the build would take (or on the chosen day when it cannot start). */
+  load: Array<{ date: string; capacityHours: number; bookedHours: number; thisBuildHours: number; off: BenchDayOff }>;
+  expectedCompletion: string | null;
+  shipBy: string;
+  firmTotal: string;
+  meetsChosenLevel: boolean;
+  aboveQuotedRange: boolean;
+  /** The first day on or after the chosen one that holds the build for this builder. */
+  nextPossibleDate: string | null;
+}
+
+/** POST /api/bookings/:id/reschedule */
+export interface RescheduleRequest {
+  builderId: string;
+  benchDate: string;
+  reason: string;
+  reprice?: boolean;
+  levelOverrideReason?: string;
+}
+
+export interface RescheduleResponse {
+  bookingId: string;
+  builderId: string;
+  benchDate: string;
+  previousBenchDate: string | null;
+  expectedCompletion: string;
+  shipBy: string | null;
+  plan: Array<{ date: string; hours: number }>;
+  /** "3 days later", "2 days earlier" or "same day". */
+  shift: string;
+  firmTotal: string;
+  repriced: boolean;
+  priceConsent: 'pending' | 'given' | null;
+  calendarSequence: number;
+}
+
+/** GET /api/bookings/:id/cancellation: what cancelling a scheduled build would refund, per the policy. */
+export interface CancellationPreview {
+  bookingId: string;
+  reference: string;
+  state: BookingState;
+  currency: string;
+  depositPaid: string;
+  /** Refund for each cause, and the policy words behind it. */
+  refundIfPlayerAsked: string;
+  refundIfShopCancels: string;
+  policy: string;
+  benchHours: number;
+}
+
+export interface BuilderAbsenceView {
+  id: string;
+  builderId: string;
+  startsOn: string;
+  endsOn: string;
+  reason: string;
+}
+
+/** POST /api/team/:builderId/absences: the absence, and the builds it hits (they move through the reschedule route). */
+export interface AddAbsenceResponse extends BuilderAbsenceView {
+  buildsOnBenchThen: Array<{ bookingId: string; reference: string; days: string[] }>;
 }
 
 /** POST /api/bookings/:id/decline answers with the booking's BookingDetail. */

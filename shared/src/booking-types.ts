@@ -145,6 +145,10 @@ export interface BookingDetail extends BookingSummary {
   awaitingLayoutApproval: boolean;
   declineReason: string | null;
   cancelReason: string | null;
+  /** Why a builder below the chosen level took the build (the player sees it beside the price). */
+  levelOverrideReason: string | null;
+  /** 'pending' while the player has not agreed to a firm total above the range they were quoted. */
+  priceConsent: 'pending' | 'given' | null;
   /** Firm total + approved extras − net payments (never below zero), once a firm quote exists; `money.balanceDue`. */
   balanceDue: string | null;
   /** Extras the shop proposed, with the player's decision. */

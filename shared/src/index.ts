@@ -12,6 +12,8 @@ export * from './estimate/quantity';
 export * from './auth-schemas';
 export * from './mail-types';
 export * from './booking-schemas';
+export * from './bench-schemas';
+export * from './bench-dates';
 export * from './mail-types';
 export * from './request-fields';
 export * from './team-schemas';

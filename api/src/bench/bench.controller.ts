@@ -1,6 +1,17 @@
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { benchQuerySchema, benchSuggestQuerySchema, type AuthUser, type BenchQuery, type BenchSuggestQuery, type BenchSuggestResponse, type BenchView } from '@loomwright/shared';
+import {
+  benchPreviewQuerySchema,
+  benchQuerySchema,
+  benchSuggestQuerySchema,
+  type AuthUser,
+  type BenchPreview,
+  type BenchPreviewQuery,
+  type BenchQuery,
+  type BenchSuggestQuery,
+  type BenchSuggestResponse,
+  type BenchView,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { BenchService } from './bench.service';
@@ -26,5 +37,12 @@ export class BenchController {
   @ApiZodQuery(benchSuggestQuerySchema)
   suggest(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(benchSuggestQuerySchema)) query: BenchSuggestQuery): Promise<BenchSuggestResponse> {
     return this.bench.suggest(user, query.bookingId, query.builderId);
+  }
+
+  @Get('preview')
+  @ApiZodQuery(benchPreviewQuerySchema)
+  @ApiOkResponse({ description: 'Before choosing a bench date: per builder the load on the days it would take, the ship-by day, the price and why a date is refused.' })
+  preview(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(benchPreviewQuerySchema)) query: BenchPreviewQuery): Promise<BenchPreview> {
+    return this.bench.preview(user, query);
   }
 }

@@ -7,6 +7,7 @@ export class BenchRepository {
   constructor(private readonly db: Database) {}
 
   listBuilders(trx: Executor = this.db, filter: { builderId?: string; activeOnly?: boolean } = {}) {
+    // "Joined": the invitation was accepted and a password set; a pending invitation takes no builds.
     let q = trx
       .selectFrom('builders')
       .innerJoin('users', 'users.id', 'builders.user_id')
@@ -19,10 +20,11 @@ export class BenchRepository {
         'builders.hourly_rate',
         'builders.weekly_hours',
         'builders.active',
+        sql<boolean>`users.password_hash is not null`.as('joined'),
       ])
       .orderBy('users.name');
     if (filter.builderId) q = q.where('builders.id', '=', filter.builderId);
-    if (filter.activeOnly) q = q.where('builders.active', '=', true);
+    if (filter.activeOnly) q = q.where('builders.active', '=', true).where('users.password_hash', 'is not', null);
     return q.execute();
   }
 
@@ -34,7 +36,16 @@ export class BenchRepository {
     return trx
       .selectFrom('builders')
       .innerJoin('users', 'users.id', 'builders.user_id')
-      .select(['builders.id', 'builders.user_id', 'users.name', 'builders.level', 'builders.hourly_rate', 'builders.weekly_hours', 'builders.active'])
+      .select([
+        'builders.id',
+        'builders.user_id',
+        'users.name',
+        'builders.level',
+        'builders.hourly_rate',
+        'builders.weekly_hours',
+        'builders.active',
+        sql<boolean>`users.password_hash is not null`.as('joined'),
+      ])
       .where('builders.id', '=', builderId)
       .forNoKeyUpdate('builders')
       .executeTakeFirst();
@@ -42,6 +53,23 @@ export class BenchRepository {
 
   closures(trx: Executor = this.db) {
     return trx.selectFrom('shop_closures').select(['starts_on', 'ends_on', 'reason']).orderBy('starts_on').execute();
+  }
+
+  absences(trx: Executor = this.db) {
+    return trx.selectFrom('builder_absences').select(['id', 'builder_id', 'starts_on', 'ends_on', 'reason']).orderBy('starts_on').execute();
+  }
+
+  /** Hours recorded against builds per builder and day (time entries), for "recorded against planned". */
+  recordedHoursBetween(trx: Executor, builderIds: string[], from: string, to: string) {
+    if (builderIds.length === 0) return Promise.resolve([]);
+    return trx
+      .selectFrom('time_entries')
+      .select(['builder_id', 'worked_on', sql<string>`sum(hours)::text`.as('hours')])
+      .where('builder_id', 'in', builderIds)
+      .where('worked_on', '>=', from)
+      .where('worked_on', '<=', to)
+      .groupBy(['builder_id', 'worked_on'])
+      .execute();
   }
 
   shopSettings(trx: Executor = this.db) {
@@ -73,13 +101,34 @@ export class BenchRepository {
       .execute();
   }
 
-  /** Every slice a builder holds from `from` on, for planning a new build. */
-  allocationsFrom(trx: Executor, builderId: string, from: string) {
+  /** Every slice a builder holds from `from` on, for planning a build (leaving out the build being moved). */
+  allocationsFrom(trx: Executor, builderId: string, from: string, exceptBookingId?: string) {
+    let q = trx
+      .selectFrom('bench_allocations')
+      .select(['day', 'booking_id', sql<string>`lower(hours)`.as('lower'), sql<string>`upper(hours)`.as('upper')])
+      .where('builder_id', '=', builderId)
+      .where('day', '>=', from);
+    if (exceptBookingId) q = q.where('booking_id', '!=', exceptBookingId);
+    return q.execute();
+  }
+
+  /** A build's own slices, day by day. */
+  allocationsOf(trx: Executor, bookingId: string) {
     return trx
       .selectFrom('bench_allocations')
-      .select(['day', sql<string>`lower(hours)`.as('lower'), sql<string>`upper(hours)`.as('upper')])
-      .where('builder_id', '=', builderId)
-      .where('day', '>=', from)
+      .select(['builder_id', 'day', sql<string>`upper(hours) - lower(hours)`.as('length')])
+      .where('booking_id', '=', bookingId)
+      .orderBy('day')
+      .execute();
+  }
+
+  /** Frees a build's bench time after `day` (it finished early); returns the slices freed. */
+  deleteAllocationsAfter(trx: Executor, bookingId: string, day: string) {
+    return trx
+      .deleteFrom('bench_allocations')
+      .where('booking_id', '=', bookingId)
+      .where('day', '>', day)
+      .returning(['day', sql<string>`upper(hours) - lower(hours)`.as('length')])
       .execute();
   }
 
@@ -112,7 +161,17 @@ export class BenchRepository {
     return trx
       .selectFrom('bookings as b')
       .innerJoin('users as c', 'c.id', 'b.customer_id')
-      .select(['b.id', 'b.reference', 'b.state', 'b.customer_id', 'b.configuration', 'c.name as customer_name', 'c.email as customer_email'])
+      .select([
+        'b.id',
+        'b.reference',
+        'b.state',
+        'b.customer_id',
+        'b.configuration',
+        'b.bench_date',
+        'b.builder_id',
+        'c.name as customer_name',
+        'c.email as customer_email',
+      ])
       .where('b.id', '=', bookingId)
       .executeTakeFirst();
   }

@@ -5,7 +5,10 @@ import {
   type AuthUser,
   type BenchBuilder,
   type BenchDay,
+  type BenchDateRefusal,
   type BenchLeadTime,
+  type BenchPreview,
+  type BenchPreviewOption,
   type BenchSuggestResponse,
   type BenchSuggestion,
   type BenchView,
@@ -14,6 +17,7 @@ import {
 } from '@loomwright/shared';
 import { Database, type Executor } from '../database/database';
 import { firmQuoteFigures } from '../builds/firm-quote';
+import { formatDay as formatDayWords } from '../mail/templates/format';
 import { BenchRepository } from './bench.repository';
 import { addDays, daysBetween, eachDay, todayIn } from './calendar-days';
 import { publicHolidaysBetween } from './public-holidays';
@@ -42,6 +46,18 @@ export const ACCEPTANCE_ALLOWANCE_DAYS = 2;
 type BuilderRow = Awaited<ReturnType<BenchRepository['listBuilders']>>[number];
 
 /** What the firm quote and the planner need to know about a booking's estimate. */
+/** The shop's calendar as every plan sees it: closures, holidays, each builder's days away. */
+export interface ShopCalendar {
+  closures: Closure[];
+  holidayOn: (d: string) => string | null;
+  absences: Map<string, Closure[]>;
+  today: string;
+  currency: string;
+}
+
+/** States in which a build still waits for its pedals: its ship-by day must not be in the past. */
+export const AWAITING_PEDALS = ['requested', 'deposit_paid', 'scheduled'];
+
 export interface PlanningFacts {
   bookingId: string;
   reference: string;
@@ -51,6 +67,12 @@ export interface PlanningFacts {
   customerEmail: string;
   laborHours: string;
   minimumLevel: BuilderLevel;
+  /** The level the player chose, raised to the rig's minimum: builders below it need the owner and a reason. */
+  chosenLevel: BuilderLevel;
+  /** The high end of the estimate the player was quoted; a firm total above it needs their consent. */
+  quotedHigh: string;
+  benchDate: string | null;
+  builderId: string | null;
   materialsTotal: string;
   deposit: string;
   currency: string;
@@ -80,15 +102,27 @@ export class BenchService {
     };
   }
 
-  async shopCalendar(trx: Executor = this.db): Promise<{ closures: Closure[]; holidayOn: (d: string) => string | null; today: string; currency: string }> {
-    const [settings, closures] = await Promise.all([this.bench.shopSettings(trx), this.bench.closures(trx)]);
+  async shopCalendar(trx: Executor = this.db): Promise<ShopCalendar> {
+    const [settings, closures, absenceRows] = await Promise.all([this.bench.shopSettings(trx), this.bench.closures(trx), this.bench.absences(trx)]);
     const country = settings?.country_code.trim() ?? 'US';
+    const absences = new Map<string, Closure[]>();
+    for (const a of absenceRows) {
+      const list = absences.get(a.builder_id) ?? [];
+      list.push({ startsOn: a.starts_on, endsOn: a.ends_on, reason: a.reason });
+      absences.set(a.builder_id, list);
+    }
     return {
+      absences,
       closures: closures.map((c) => ({ startsOn: c.starts_on, endsOn: c.ends_on, reason: c.reason })),
       holidayOn: this.holidayOn(country),
       today: todayIn(settings?.timezone ?? 'UTC'),
       currency: settings?.currency.trim() ?? 'USD',
     };
+  }
+
+  /** One builder's calendar: their week, the shop's closures and holidays, their own days away. */
+  calendarOf(builder: { id: string; weekly_hours: WeeklyHours }, shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>): BenchCalendar {
+    return { weeklyHours: builder.weekly_hours, closures: shop.closures, holidayOn: shop.holidayOn, absences: shop.absences.get(builder.id) ?? [] };
   }
 
   async view(user: AuthUser, query: { from?: string; to?: string; builderId?: string }): Promise<BenchView> {
@@ -100,13 +134,17 @@ export class BenchService {
     if (span >= MAX_BENCH_VIEW_DAYS) throw new BadRequestException(`Ask for at most ${MAX_BENCH_VIEW_DAYS} days of bench at a time (from and to).`);
     const builders = this.orderMeFirst(await this.bench.listBuilders(this.db, { builderId: query.builderId }), user);
     if (query.builderId && builders.length === 0) throw new NotFoundException('There is no builder with that builderId.');
-    const slices = await this.bench.allocationsBetween(this.db, builders.map((b) => b.id), from, to);
+    const ids = builders.map((b) => b.id);
+    const [slices, recorded] = await Promise.all([
+      this.bench.allocationsBetween(this.db, ids, from, to),
+      this.bench.recordedHoursBetween(this.db, ids, from, to),
+    ]);
     const days = eachDay(from, to);
     return {
       from,
       to,
       builders: builders.map((b) => {
-        const calendar: BenchCalendar = { weeklyHours: b.weekly_hours, closures: shop.closures, holidayOn: shop.holidayOn };
+        const calendar = this.calendarOf(b, shop);
         return {
           builder: this.toBenchBuilder(b, user),
           days: days.map((day): BenchDay => {
@@ -132,6 +170,7 @@ export class BenchService {
               capacityHours: toHours(capacity),
               bookedHours: toHours(booked),
               freeHours: toHours(Math.max(0, capacity - booked)),
+              recordedHours: Number(recorded.find((r) => r.builder_id === b.id && r.worked_on === day)?.hours ?? 0),
               off,
               builds: [...byBooking.values()],
             };
@@ -141,24 +180,40 @@ export class BenchService {
     };
   }
 
+  /**
+   * The earliest start per builder for a request (or for a scheduled build being moved, planned as
+   * if its own hours were free). Builders of the level the player chose come first; below the
+   * rig's minimum they are left out, and below the chosen level only the owner sees them.
+   */
   async suggest(user: AuthUser, bookingId: string, builderId?: string): Promise<BenchSuggestResponse> {
     const facts = await this.planningFacts(this.db, bookingId);
-    if (!['requested', 'deposit_paid'].includes(facts.state)) {
-      throw new ConflictException(`Booking ${facts.reference} is ${facts.state.replace('_', ' ')}; only a request waiting for a bench date gets a suggestion.`);
+    const moving = ['scheduled', 'pedals_received'].includes(facts.state);
+    if (!['requested', 'deposit_paid'].includes(facts.state) && !moving) {
+      throw new ConflictException(
+        `Booking ${facts.reference} is ${facts.state.replace(/_/g, ' ')}; only a request waiting for a bench date, or a build not yet on the bench, gets a suggestion.`,
+      );
     }
     const shop = await this.shopCalendar();
     const builders = this.orderMeFirst(await this.bench.listBuilders(this.db, { builderId, activeOnly: !builderId }), user);
     if (builderId && builders.length === 0) throw new NotFoundException('There is no builder with that builderId.');
-    const from = earliestBenchDateFor(shop.today, shop);
+    const from = this.earliestAllowedDate(facts.state, shop);
     const suggestions: BenchSuggestion[] = [];
     const ineligible: BenchSuggestResponse['ineligible'] = [];
     for (const b of builders) {
       const meets = levelRank(b.level) >= levelRank(facts.minimumLevel);
+      const meetsChosen = levelRank(b.level) >= levelRank(facts.chosenLevel);
       if (!builderId && !meets) {
         ineligible.push({ builder: this.toRef(b), reason: `This rig needs at least a ${facts.minimumLevel} builder; ${b.name} is ${b.level}.` });
         continue;
       }
-      const plan = await this.planFor(this.db, b.weekly_hours, b.id, facts.laborHours, shop, { from });
+      if (!builderId && !meetsChosen && user.role !== 'owner') {
+        ineligible.push({
+          builder: this.toRef(b),
+          reason: `The player chose a ${facts.chosenLevel} builder; only the owner can give it to ${b.name} (${b.level}), with a reason the player reads.`,
+        });
+        continue;
+      }
+      const plan = await this.planFor(this.db, b, facts.laborHours, shop, { from }, moving ? bookingId : undefined);
       if (!plan.ok) {
         ineligible.push({ builder: this.toRef(b), reason: plan.message });
         continue;
@@ -173,20 +228,135 @@ export class BenchService {
         laborTotal: figures.laborTotal,
         firmTotal: figures.total,
         meetsMinimumLevel: meets,
+        meetsChosenLevel: meetsChosen,
+        aboveQuotedRange: new Decimal(figures.total).gt(facts.quotedHigh),
       });
     }
-    // Earliest start first; the signed-in builder wins a tie (the list is already "me first").
-    suggestions.sort((a, b) => a.benchDate.localeCompare(b.benchDate));
+    // The chosen level first, then the earliest start; the signed-in builder wins a tie (the list is already "me first").
+    suggestions.sort((a, b) => Number(b.meetsChosenLevel) - Number(a.meetsChosenLevel) || a.benchDate.localeCompare(b.benchDate));
     return {
       bookingId: facts.bookingId,
       reference: facts.reference,
       laborHours: Number(facts.laborHours),
       minimumLevel: facts.minimumLevel,
+      chosenLevel: facts.chosenLevel,
+      quotedHigh: facts.quotedHigh,
       currency: facts.currency,
       materialsTotal: facts.materialsTotal,
       deposit: facts.deposit,
       suggestions,
       ineligible,
+    };
+  }
+
+  /**
+   * The first bench date a build in `state` may take: while the pedals are still to come, the
+   * first day whose ship-by day is not in the past; once they are in, today.
+   */
+  earliestAllowedDate(state: string, shop: Pick<ShopCalendar, 'today' | 'closures' | 'holidayOn'>): string {
+    return AWAITING_PEDALS.includes(state) ? earliestBenchDateFor(shop.today, shop) : shop.today;
+  }
+
+  /**
+   * Why `benchDate` cannot hold the build for this builder, or null when it can. Checked in the
+   * order a person would explain it: the past, the shipping lead, the day itself, then its load.
+   */
+  refusalFor(
+    state: string,
+    benchDate: string,
+    calendar: BenchCalendar,
+    shop: Pick<ShopCalendar, 'today' | 'closures' | 'holidayOn'>,
+    plan: BuildPlan,
+  ): { refusal: BenchDateRefusal; message: string } | null {
+    if (benchDate < shop.today) return { refusal: 'past', message: `benchDate ${benchDate} is in the past; the shop's today is ${shop.today}.` };
+    if (AWAITING_PEDALS.includes(state)) {
+      const shipBy = shipByDate(benchDate, shop);
+      if (shipBy < shop.today) {
+        return {
+          refusal: 'too_soon_to_ship',
+          message: `Too soon to ship: the pedals would have to arrive by ${formatDayWords(shipBy)}, which has passed. The earliest bench date the player can ship for is ${formatDayWords(earliestBenchDateFor(shop.today, shop))}.`,
+        };
+      }
+    }
+    const { off } = dayCapacity(benchDate, calendar);
+    if (off) {
+      const kind: Record<NonNullable<typeof off>['kind'], BenchDateRefusal> = { holiday: 'holiday', closure: 'closed', day_off: 'day_off', absence: 'away' };
+      const why = off.kind === 'holiday' ? `public holiday (${off.label})` : off.label;
+      return { refusal: kind[off.kind], message: `There is no free bench time on ${formatDayWords(benchDate)}: ${why}.` };
+    }
+    if (!plan.ok) {
+      const full = plan.reason === 'bench_date_full';
+      return { refusal: full ? 'full' : 'no_capacity', message: full ? `There is no free bench time on ${formatDayWords(benchDate)}: the day is full; pick another date.` : plan.message };
+    }
+    return null;
+  }
+
+  /** As refusalFor, thrown: a date in the past or too soon to ship is a bad request, a full or closed day a conflict. */
+  assertBenchDate(
+    state: string,
+    benchDate: string,
+    calendar: BenchCalendar,
+    shop: Pick<ShopCalendar, 'today' | 'closures' | 'holidayOn'>,
+    plan: BuildPlan,
+  ): asserts plan is Extract<BuildPlan, { ok: true }> {
+    const refused = this.refusalFor(state, benchDate, calendar, shop, plan);
+    if (!refused) return;
+    if (refused.refusal === 'past' || refused.refusal === 'too_soon_to_ship') throw new BadRequestException(refused.message);
+    throw new ConflictException(refused.message);
+  }
+
+  /**
+   * What choosing `benchDate` would mean for each builder (or one), before anything is submitted:
+   * their load on the days the build would take, the ship-by day, the price, and why not.
+   */
+  async preview(user: AuthUser, query: { bookingId: string; benchDate: string; builderId?: string }): Promise<BenchPreview> {
+    const facts = await this.planningFacts(this.db, query.bookingId);
+    if (!['requested', 'deposit_paid', 'scheduled', 'pedals_received'].includes(facts.state)) {
+      throw new ConflictException(`Booking ${facts.reference} is ${facts.state.replace(/_/g, ' ')}; its bench date can no longer change.`);
+    }
+    const moving = ['scheduled', 'pedals_received'].includes(facts.state);
+    const shop = await this.shopCalendar();
+    const builders = this.orderMeFirst(await this.bench.listBuilders(this.db, { builderId: query.builderId, activeOnly: !query.builderId }), user);
+    if (query.builderId && builders.length === 0) throw new NotFoundException('There is no builder with that builderId.');
+    const minDate = this.earliestAllowedDate(facts.state, shop);
+    const options: BenchPreviewOption[] = [];
+    for (const b of builders) {
+      const calendar = this.calendarOf(b, shop);
+      const except = moving ? query.bookingId : undefined;
+      const plan = await this.planFor(this.db, b, facts.laborHours, shop, { benchDate: query.benchDate }, except);
+      const refused = this.refusalFor(facts.state, query.benchDate, calendar, shop, plan);
+      const next = await this.planFor(this.db, b, facts.laborHours, shop, { from: query.benchDate < minDate ? minDate : query.benchDate }, except);
+      const days = plan.ok && !refused ? plan.days.map((d) => d.day) : [query.benchDate];
+      const slices = await this.bench.allocationsBetween(this.db, [b.id], days[0], days[days.length - 1]);
+      const figures = firmQuoteFigures({ hourlyRate: b.hourly_rate, laborHours: facts.laborHours, materialsTotal: facts.materialsTotal, deposit: facts.deposit });
+      options.push({
+        builder: this.toBenchBuilder(b, user),
+        ok: !refused,
+        refusal: refused?.refusal ?? null,
+        message: refused?.message ?? null,
+        load: days.map((day) => {
+          const { capacity, off } = dayCapacity(day, calendar);
+          const others = slices.filter((sl) => sl.day === day && sl.booking_id !== except);
+          const booked = others.reduce((sum, sl) => sum + toCentihours(sl.upper) - toCentihours(sl.lower), 0);
+          const mine = plan.ok && !refused ? (plan.days.find((d) => d.day === day)?.hours ?? 0) : 0;
+          return { date: day, capacityHours: toHours(capacity), bookedHours: toHours(booked), thisBuildHours: toHours(mine), off };
+        }),
+        expectedCompletion: plan.ok && !refused ? plan.expectedCompletion : null,
+        shipBy: shipByDate(query.benchDate, shop),
+        firmTotal: figures.total,
+        meetsChosenLevel: levelRank(b.level) >= levelRank(facts.chosenLevel),
+        aboveQuotedRange: new Decimal(figures.total).gt(facts.quotedHigh),
+        nextPossibleDate: next.ok ? next.benchDate : null,
+      });
+    }
+    return {
+      bookingId: facts.bookingId,
+      reference: facts.reference,
+      benchDate: query.benchDate,
+      today: shop.today,
+      earliestShippableDate: earliestBenchDateFor(shop.today, shop),
+      currentBenchDate: facts.benchDate,
+      options,
     };
   }
 
@@ -204,7 +374,7 @@ export class BenchService {
     const builders = (await this.bench.listBuilders(this.db, { activeOnly: true })).filter((b) => levelRank(b.level) >= levelRank(level));
     let best: { benchDate: string; expectedCompletion: string } | null = null;
     for (const b of builders) {
-      const plan = await this.planFor(this.db, b.weekly_hours, b.id, laborHours, shop, { from });
+      const plan = await this.planFor(this.db, b, laborHours, shop, { from });
       if (!plan.ok) continue;
       const earlier = !best || plan.benchDate < best.benchDate || (plan.benchDate === best.benchDate && plan.expectedCompletion < best.expectedCompletion);
       if (earlier) best = { benchDate: plan.benchDate, expectedCompletion: plan.expectedCompletion };
@@ -223,38 +393,45 @@ export class BenchService {
   }
 
   /**
-   * Plans a build for one builder against the bench as this executor sees it. Inside an accept
-   * transaction that holds the builder's lock, that view is current.
+   * Plans a build for one builder against the bench as this executor sees it. Inside a transaction
+   * that holds the builder's lock, that view is current. A build being moved leaves its own slices
+   * out (`exceptBookingId`), since they are released in the same transaction.
    */
   async planFor(
     trx: Executor,
-    weeklyHours: WeeklyHours,
-    builderId: string,
+    builder: { id: string; weekly_hours: WeeklyHours },
     laborHours: string,
-    shop: { closures: Closure[]; holidayOn: (d: string) => string | null },
+    shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>,
     at: { from: string } | { benchDate: string },
-  ): Promise<BuildPlan & { capacities?: Map<string, number> }> {
+    exceptBookingId?: string,
+  ): Promise<BuildPlan> {
     const start = 'from' in at ? at.from : at.benchDate;
-    const rows = await this.bench.allocationsFrom(trx, builderId, start);
+    const rows = await this.bench.allocationsFrom(trx, builder.id, start, exceptBookingId);
     const byDay = new Map<string, HourSlice[]>();
     for (const r of rows) {
       const list = byDay.get(r.day) ?? [];
       list.push({ from: toCentihours(r.lower), to: toCentihours(r.upper) });
       byDay.set(r.day, list);
     }
-    const calendar: BenchCalendar = { weeklyHours, closures: shop.closures, holidayOn: shop.holidayOn };
+    const calendar = this.calendarOf(builder, shop);
     const input = { laborHours: toCentihours(laborHours), calendar, taken: (d: string) => byDay.get(d) ?? [] };
     return 'from' in at ? earliestStart({ ...input, from: at.from }) : planBuild({ ...input, benchDate: at.benchDate });
   }
 
   /** Writes a plan as bench slices; overlapping or over-capacity slices are refused by the database. */
-  async allocate(trx: Executor, bookingId: string, builderId: string, weeklyHours: WeeklyHours, shop: { closures: Closure[]; holidayOn: (d: string) => string | null }, plan: Extract<BuildPlan, { ok: true }>) {
-    const calendar: BenchCalendar = { weeklyHours, closures: shop.closures, holidayOn: shop.holidayOn };
+  async allocate(
+    trx: Executor,
+    bookingId: string,
+    builder: { id: string; weekly_hours: WeeklyHours },
+    shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>,
+    plan: Extract<BuildPlan, { ok: true }>,
+  ) {
+    const calendar = this.calendarOf(builder, shop);
     const rows = plan.days.flatMap((d) => {
       const capacity = dayCapacity(d.day, calendar).capacity;
       return d.slices.map((s) => ({
         bookingId,
-        builderId,
+        builderId: builder.id,
         day: d.day,
         from: new Decimal(s.from).div(100).toFixed(2),
         to: new Decimal(s.to).div(100).toFixed(2),
@@ -262,6 +439,18 @@ export class BenchService {
       }));
     });
     await this.bench.insertAllocations(trx, rows);
+  }
+
+  /** Frees a build's bench time after `day`; returns the hours freed. */
+  async releaseAfter(trx: Executor, bookingId: string, day: string): Promise<number> {
+    const freed = await this.bench.deleteAllocationsAfter(trx, bookingId, day);
+    return toHours(freed.reduce((sum, f) => sum + toCentihours(f.length), 0));
+  }
+
+  /** The hours a build holds on the bench now. */
+  async hoursHeld(trx: Executor, bookingId: string): Promise<number> {
+    const rows = await this.bench.allocationsOf(trx, bookingId);
+    return toHours(rows.reduce((sum, r) => sum + toCentihours(r.length), 0));
   }
 
   releaseAllocations(trx: Executor, bookingId: string) {
@@ -281,6 +470,8 @@ export class BenchService {
     const materialsTotal =
       estimate?.materialsTotal ??
       (estimate?.lines ?? []).filter((l) => l.kind === 'materials').reduce((sum, l) => sum.plus(l.amount), new Decimal(0)).toFixed(2);
+    const minimumLevel: BuilderLevel = estimate?.minimumLevel ?? 'apprentice';
+    const picked: BuilderLevel = estimate?.level ?? booking.configuration?.level ?? minimumLevel;
     return {
       bookingId: booking.id,
       reference: booking.reference,
@@ -289,7 +480,11 @@ export class BenchService {
       customerName: booking.customer_name,
       customerEmail: booking.customer_email,
       laborHours: quote.labor_hours,
-      minimumLevel: estimate?.minimumLevel ?? 'apprentice',
+      minimumLevel,
+      chosenLevel: levelRank(picked) >= levelRank(minimumLevel) ? picked : minimumLevel,
+      quotedHigh: quote.total_high,
+      benchDate: booking.bench_date,
+      builderId: booking.builder_id,
       materialsTotal,
       deposit: quote.deposit,
       currency: quote.currency.trim(),
@@ -302,11 +497,11 @@ export class BenchService {
     return [...rows].sort((a, b) => Number(b.user_id === user.id) - Number(a.user_id === user.id));
   }
 
-  private toRef(b: BuilderRow) {
+  private toRef(b: Pick<BuilderRow, 'id' | 'user_id' | 'name' | 'level'>) {
     return { id: b.id, userId: b.user_id, name: b.name, level: b.level };
   }
 
-  private toBenchBuilder(b: BuilderRow, user: AuthUser): BenchBuilder {
+  private toBenchBuilder(b: Pick<BuilderRow, 'id' | 'user_id' | 'name' | 'level' | 'hourly_rate' | 'weekly_hours' | 'active'>, user: AuthUser): BenchBuilder {
     return {
       ...this.toRef(b),
       hourlyRate: b.hourly_rate,

@@ -28,6 +28,8 @@ export interface BenchCalendar {
   closures: Closure[];
   /** The public holiday's name on that day, or null. */
   holidayOn: (day: string) => string | null;
+  /** The builder's own days away (ill, holiday, a course); the shop stays open. */
+  absences?: Closure[];
 }
 
 export interface DayCapacity {
@@ -44,6 +46,8 @@ export function dayCapacity(day: string, calendar: BenchCalendar): DayCapacity {
   if (holiday) return { capacity: 0, off: { kind: 'holiday', label: holiday } };
   const closure = calendar.closures.find((c) => c.startsOn <= day && day <= c.endsOn);
   if (closure) return { capacity: 0, off: { kind: 'closure', label: `Shop closed: ${closure.reason}` } };
+  const absence = calendar.absences?.find((a) => a.startsOn <= day && day <= a.endsOn);
+  if (absence) return { capacity: 0, off: { kind: 'absence', label: `Away: ${absence.reason}` } };
   const hours = calendar.weeklyHours[String(isoWeekday(day)) as keyof WeeklyHours] ?? 0;
   const capacity = Math.max(0, Math.min(2400, toCentihours(hours)));
   return capacity === 0 ? { capacity: 0, off: { kind: 'day_off', label: 'Day off' } } : { capacity, off: null };

@@ -222,6 +222,8 @@ export function detailView(
     awaitingLayoutApproval: row.awaiting_layout_approval,
     declineReason: row.decline_reason,
     cancelReason: row.cancel_reason,
+    levelOverrideReason: row.level_override_reason,
+    priceConsent: row.price_consent,
     balanceDue: parts.money.balanceDue,
     extras: parts.extras.map(extraView),
     layoutApprovals: parts.layoutApprovals.map(layoutApprovalView),

@@ -4,6 +4,8 @@ import { BookingsModule } from '../bookings/bookings.module';
 import { MailModule } from '../mail/mail.module';
 import { PaymentsModule } from '../payments/payments.module';
 import { ApprovalsService } from './approvals.service';
+import { BenchChangesController } from './bench-changes.controller';
+import { BenchChangesService } from './bench-changes.service';
 import { BuildHistory } from './build-history';
 import { BuildRecordsService } from './build-records.service';
 import { BuildsController } from './builds.controller';
@@ -12,8 +14,8 @@ import { BuildsService } from './builds.service';
 
 @Module({
   imports: [BenchModule, BookingsModule, MailModule, PaymentsModule],
-  controllers: [BuildsController],
-  providers: [BuildsService, BuildRecordsService, ApprovalsService, BuildsRepository, BuildHistory],
+  controllers: [BuildsController, BenchChangesController],
+  providers: [BuildsService, BuildRecordsService, ApprovalsService, BenchChangesService, BuildsRepository, BuildHistory],
   exports: [BuildsService],
 })
 export class BuildsModule {}

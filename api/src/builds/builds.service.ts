@@ -10,6 +10,7 @@ import {
   type BookingDetail,
   type BookingState,
   type BookingStateResponse,
+  type BuilderLevel,
 } from '@loomwright/shared';
 import { BenchService } from '../bench/bench.service';
 import { addDays } from '../bench/calendar-days';
@@ -28,6 +29,41 @@ import { whatToShip } from './what-to-ship';
 /** PostgreSQL SQLSTATEs the bench constraints raise (PostgreSQL docs, Appendix A "Error Codes"). */
 const EXCLUSION_VIOLATION = '23P01';
 const CHECK_VIOLATION = '23514';
+
+/** Only a builder who is on the team and has joined (not a pending invitation) takes builds. */
+export function assertTakesBuilds(builder: { name: string; active: boolean; joined: boolean }) {
+  if (!builder.active) throw new ConflictException(`${builder.name} is not taking builds (inactive on the team).`);
+  if (!builder.joined) throw new ConflictException(`${builder.name} has not accepted their invitation yet, so they cannot take builds.`);
+}
+
+/**
+ * Builders below the level the player chose (raised to the rig's minimum) take a build only from
+ * the owner, with a reason the player reads beside the price. Returns whether this is such a case.
+ */
+export function assertLevelRule(
+  user: AuthUser,
+  builder: { name: string; level: BuilderLevel },
+  facts: { minimumLevel: BuilderLevel; chosenLevel: BuilderLevel },
+  reason: string | undefined,
+): boolean {
+  const below = levelRank(builder.level) < levelRank(facts.chosenLevel);
+  const why =
+    levelRank(builder.level) < levelRank(facts.minimumLevel)
+      ? `this rig needs at least a ${facts.minimumLevel} builder and ${builder.name} is ${builder.level}`
+      : `the player chose a ${facts.chosenLevel} builder and ${builder.name} is ${builder.level}`;
+  if (below) {
+    if (user.role !== 'owner') {
+      throw new ForbiddenException(`${why[0].toUpperCase()}${why.slice(1)}; only the owner can assign them, with a reason.`);
+    }
+    if (!reason?.trim()) throw new BadRequestException(`levelOverrideReason is required: ${why}.`);
+  } else if (reason) {
+    throw new BadRequestException(`levelOverrideReason is only for a builder below the level the player chose; ${builder.name} meets it.`);
+  }
+  return below;
+}
+
+/** Once a build reaches these, its bench time after today is released (it finished early, or on time). */
+const RELEASING_STATES: BenchState[] = ['testing', 'ready', 'delivered'];
 
 /** The state moves that tell the player something by e-mail. */
 const MAILED_STATES: BenchState[] = ['pedals_received', 'ready', 'delivered'];
@@ -69,29 +105,13 @@ export class BuildsService {
     const facts = await this.bench.planningFacts(trx, bookingId);
     const builder = await this.bench.lockBuilder(trx, dto.builderId);
     if (!builder) throw new NotFoundException('There is no builder with that builderId.');
-    if (!builder.active) throw new ConflictException(`${builder.name} is not taking builds (inactive on the team).`);
-
-    const belowLevel = levelRank(builder.level) < levelRank(facts.minimumLevel);
-    if (belowLevel) {
-      if (user.role !== 'owner') {
-        throw new ForbiddenException(
-          `This rig needs at least a ${facts.minimumLevel} builder and ${builder.name} is ${builder.level}; only the owner can assign them, with a reason.`,
-        );
-      }
-      if (!dto.levelOverrideReason?.trim()) {
-        throw new BadRequestException(
-          `levelOverrideReason is required: this rig needs at least a ${facts.minimumLevel} builder and ${builder.name} is ${builder.level}.`,
-        );
-      }
-    } else if (dto.levelOverrideReason) {
-      throw new BadRequestException(`levelOverrideReason is only for a builder below the rig's minimum level; ${builder.name} meets it.`);
-    }
+    assertTakesBuilds(builder);
+    const belowLevel = assertLevelRule(user, builder, facts, dto.levelOverrideReason);
 
     const shop = await this.bench.shopCalendar(trx);
-    if (dto.benchDate < shop.today) throw new BadRequestException(`benchDate ${dto.benchDate} is in the past; the shop's today is ${shop.today}.`);
-    const plan = await this.bench.planFor(trx, builder.weekly_hours, builder.id, facts.laborHours, shop, { benchDate: dto.benchDate });
-    if (!plan.ok) throw new ConflictException(plan.message);
-    await this.bench.allocate(trx, bookingId, builder.id, builder.weekly_hours, shop, plan);
+    const plan = await this.bench.planFor(trx, builder, facts.laborHours, shop, { benchDate: dto.benchDate });
+    this.bench.assertBenchDate(booking.state, dto.benchDate, this.bench.calendarOf(builder, shop), shop, plan);
+    await this.bench.allocate(trx, bookingId, builder, shop, plan);
 
     const payments = await this.builds.payments(trx, bookingId);
     const depositPaid = payments.find((p) => p.kind === 'deposit' && p.status === 'paid')?.amount ?? facts.deposit;
@@ -102,6 +122,7 @@ export class BuildsService {
       deposit: depositPaid,
     });
     const est = facts.estimateQuote;
+    const aboveQuoted = new Decimal(figures.total).gt(facts.quotedHigh);
     const firm = await this.builds.insertQuote(trx, {
       booking_id: bookingId,
       kind: 'firm',
@@ -135,6 +156,7 @@ export class BuildsService {
         bench_date: plan.benchDate,
         expected_completion: plan.expectedCompletion,
         level_override_reason: belowLevel ? dto.levelOverrideReason!.trim() : null,
+        price_consent: aboveQuoted ? 'pending' : null,
       },
     );
     await this.mail.enqueue(trx, {
@@ -156,6 +178,10 @@ export class BuildsService {
         balanceDue: figures.balanceDue,
         currency: facts.currency,
         whatToShip: whatToShip(booking.configuration),
+        quotedHigh: facts.quotedHigh,
+        priceConsentNeeded: aboveQuoted,
+        levelOverrideReason: belowLevel ? dto.levelOverrideReason!.trim() : undefined,
+        calendarSequence: 0,
       },
     });
     return {
@@ -267,6 +293,14 @@ export class BuildsService {
       const told = tellPlayer && words !== '';
       const updated = await this.history.move(trx, booking, [from], to, user, told ? words : `Moved to ${stateWords(to)}.`);
       if (words && !told) await this.history.note(trx, { id: bookingId, state: to }, user, words);
+      if (RELEASING_STATES.includes(to)) {
+        // The bench work is done: hours booked after today go back to the builder's free time.
+        const { today } = await this.bench.shopCalendar(trx);
+        const freed = await this.bench.releaseAfter(trx, bookingId, today);
+        if (freed > 0) {
+          await this.history.note(trx, updated, user, `Released ${freed} h of bench time booked after ${formatDay(today)}: the build reached ${stateWords(to)}.`);
+        }
+      }
       if (to === 'ready') {
         await this.mail.enqueue(trx, {
           template: 'balance-requested',

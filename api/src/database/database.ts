@@ -124,6 +124,8 @@ export interface BookingsTable {
   cancel_reason: string | null;
   balance_waived_reason: string | null;
   level_override_reason: string | null;
+  calendar_sequence: Generated<number>;
+  price_consent: 'pending' | 'given' | null;
   created_at: Timestamp;
   updated_at: Timestamp;
 }
@@ -319,7 +321,17 @@ export interface MailOutboxTable {
   resent_from_id: string | null;
 }
 
+export interface BuilderAbsencesTable {
+  id: Generated<string>;
+  builder_id: string;
+  starts_on: CalendarDay;
+  ends_on: CalendarDay;
+  reason: string;
+  created_at: Generated<Date>;
+}
+
 export interface DB {
+  builder_absences: BuilderAbsencesTable;
   shop_settings: ShopSettingsTable;
   users: UsersTable;
   auth_tokens: AuthTokensTable;

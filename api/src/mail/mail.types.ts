@@ -9,6 +9,8 @@ export const mailTemplates = [
   'booking-requested',
   'deposit-received',
   'booking-scheduled',
+  'booking-rescheduled',
+  'booking-cancelled',
   'status-changed',
   'balance-requested',
   'deposit-refunded',
@@ -83,6 +85,29 @@ export type MailTemplateData = {
       deposit?: string;
       balanceDue?: string;
       currency?: string;
+      /** The estimate's high end; with `priceConsentNeeded` the letter asks the player to agree to the firm total. */
+      quotedHigh?: string;
+      priceConsentNeeded?: boolean;
+      /** Why a builder below the chosen level builds it (the owner's words). */
+      levelOverrideReason?: string;
+      /** RFC 5545 SEQUENCE of the calendar file (0 first, then one more per revision). */
+      calendarSequence?: number;
+      /** True once the pedals are at the shop: no shipping day, no calendar file. */
+      pedalsReceived?: boolean;
+    };
+  /** As booking-scheduled, plus where the build moved from and why; the calendar file keeps its UID with a higher SEQUENCE. */
+  'booking-rescheduled': MailTemplateData['booking-scheduled'] & { previousBenchDate: string; shift: string; reason: string };
+  'booking-cancelled': Recipient &
+    BookingLink & {
+      reference: string;
+      reason: string;
+      currency: string;
+      refundAmount?: string | null;
+      keptAmount?: string | null;
+      /** The ship-by day of the calendar event to withdraw (omit when the pedals are already in). */
+      shipBy?: string | null;
+      calendarSequence?: number;
+      pedalsAtShop?: boolean;
     };
   'status-changed': Recipient &
     BookingLink & {

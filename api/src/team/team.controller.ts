@@ -1,10 +1,20 @@
-import { BadRequestException, Body, Controller, Get, Param, ParseUUIDPipe, Patch } from '@nestjs/common';
+import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { updateTeamMemberSchema, type TeamMember, type UpdateTeamMemberInput } from '@loomwright/shared';
+import {
+  absenceSchema,
+  updateTeamMemberSchema,
+  type AbsenceInput,
+  type AddAbsenceResponse,
+  type BuilderAbsenceView,
+  type TeamMember,
+  type UpdateTeamMemberInput,
+} from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ApiZodBody } from '../common/zod-openapi';
 import { TeamService } from './team.service';
+
+const builderIdPipe = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The builder id in the address must be a UUID.') });
 
 @ApiTags('team')
 @ApiCookieAuth('lw_session')
@@ -17,6 +27,32 @@ export class TeamController {
   @ApiOkResponse({ description: 'The builders: level, hourly rate, bench hours per weekday, active.' })
   list(): Promise<TeamMember[]> {
     return this.team.list();
+  }
+
+  @Get('absences')
+  @Roles('builder', 'owner')
+  @ApiOkResponse({ description: 'Days builders are away (ill, holiday, a course).' })
+  absences(): Promise<BuilderAbsenceView[]> {
+    return this.team.absences();
+  }
+
+  @Post(':builderId/absences')
+  @Roles('owner')
+  @ApiOkResponse({ description: 'The absence, and the builds on that builder’s bench then (move them through POST /api/bookings/:id/reschedule).' })
+  addAbsence(
+    @Param('builderId', builderIdPipe) builderId: string,
+    @Body(new ZodValidationPipe(absenceSchema)) body: AbsenceInput,
+  ): Promise<AddAbsenceResponse> {
+    return this.team.addAbsence(builderId, body);
+  }
+
+  @Delete('absences/:absenceId')
+  @HttpCode(204)
+  @Roles('owner')
+  deleteAbsence(
+    @Param('absenceId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The absence id in the address must be a UUID.') })) id: string,
+  ): Promise<void> {
+    return this.team.deleteAbsence(id);
   }
 
   @Patch(':builderId')

@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import type { Updateable } from 'kysely';
+import { sql, type Updateable } from 'kysely';
 import { Database, Executor, type BuildersTable } from '../database/database';
 
 @Injectable()
@@ -18,5 +18,35 @@ export class TeamRepository {
 
   update(trx: Executor, builderId: string, values: Updateable<BuildersTable>) {
     return trx.updateTable('builders').set(values).where('id', '=', builderId).returning('id').executeTakeFirst();
+  }
+
+  absences(trx: Executor = this.db) {
+    return trx.selectFrom('builder_absences').select(['id', 'builder_id', 'starts_on', 'ends_on', 'reason']).orderBy('starts_on').execute();
+  }
+
+  insertAbsence(trx: Executor, values: { builderId: string; startsOn: string; endsOn: string; reason: string }) {
+    return trx
+      .insertInto('builder_absences')
+      .values({ builder_id: values.builderId, starts_on: values.startsOn, ends_on: values.endsOn, reason: values.reason })
+      .returning(['id', 'builder_id', 'starts_on', 'ends_on', 'reason'])
+      .executeTakeFirstOrThrow();
+  }
+
+  deleteAbsence(trx: Executor, id: string) {
+    return trx.deleteFrom('builder_absences').where('id', '=', id).returning('id').executeTakeFirst();
+  }
+
+  /** Builds holding this builder's bench time between two days: the ones an absence hits. */
+  buildsOfBuilderBetween(trx: Executor, builderId: string, from: string, to: string) {
+    return trx
+      .selectFrom('bench_allocations as a')
+      .innerJoin('bookings as b', 'b.id', 'a.booking_id')
+      .select(['b.id', 'b.reference', sql<string[]>`array_agg(distinct a.day::text order by a.day::text)`.as('days')])
+      .where('a.builder_id', '=', builderId)
+      .where('a.day', '>=', from)
+      .where('a.day', '<=', to)
+      .groupBy(['b.id', 'b.reference'])
+      .orderBy('b.reference')
+      .execute();
   }
 }

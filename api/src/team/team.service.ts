@@ -1,6 +1,7 @@
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
-import type { TeamMember, UpdateTeamMemberInput, WeeklyHours } from '@loomwright/shared';
+import type { AbsenceInput, AddAbsenceResponse, BuilderAbsenceView, TeamMember, UpdateTeamMemberInput, WeeklyHours } from '@loomwright/shared';
+import { daysBetween } from '../bench/calendar-days';
 import { Database } from '../database/database';
 import { TeamRepository } from './team.repository';
 
@@ -46,4 +47,28 @@ export class TeamService {
     if (!updated) throw new NotFoundException('There is no builder with that id on the team.');
     return (await this.list()).find((m) => m.id === builderId)!;
   }
+
+  async absences(): Promise<BuilderAbsenceView[]> {
+    return (await this.team.absences()).map(absenceView);
+  }
+
+  /** A builder's days away; builds already on their bench then are listed so the shop can move them. */
+  async addAbsence(builderId: string, input: AbsenceInput): Promise<AddAbsenceResponse> {
+    if (daysBetween(input.startsOn, input.endsOn) >= 366) throw new BadRequestException('An absence can last at most 366 days; add another for longer.');
+    return this.db.transaction().execute(async (trx) => {
+      const builder = (await this.team.list(trx)).find((b) => b.id === builderId);
+      if (!builder) throw new NotFoundException('There is no builder with that id.');
+      const row = await this.team.insertAbsence(trx, { builderId, ...input });
+      const hit = await this.team.buildsOfBuilderBetween(trx, builderId, input.startsOn, input.endsOn);
+      return { ...absenceView(row), buildsOnBenchThen: hit.map((h) => ({ bookingId: h.id, reference: h.reference, days: h.days })) };
+    });
+  }
+
+  async deleteAbsence(id: string): Promise<void> {
+    if (!(await this.team.deleteAbsence(this.db, id))) throw new NotFoundException('There is no absence with that id.');
+  }
+}
+
+function absenceView(row: { id: string; builder_id: string; starts_on: string; ends_on: string; reason: string }): BuilderAbsenceView {
+  return { id: row.id, builderId: row.builder_id, startsOn: row.starts_on, endsOn: row.ends_on, reason: row.reason };
 }

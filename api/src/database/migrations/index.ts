@@ -8,6 +8,7 @@ import * as sessionsAndRateLimits from './20261202_0236_sessions_and_rate_limits
 import * as approvalsAndRecords from './20261202_0301_approvals_and_records';
 import * as paymentOutcomes from './20261202_0303_payment_outcomes';
 import * as mailUnknownOutcome from './20261202_0333_mail_unknown_outcome';
+import * as benchChanges from './20261202_0413_bench_changes';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -23,4 +24,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0301_approvals_and_records': approvalsAndRecords,
   '20261202_0303_payment_outcomes': paymentOutcomes,
   '20261202_0333_mail_unknown_outcome': mailUnknownOutcome,
+  '20261202_0413_bench_changes': benchChanges,
 };

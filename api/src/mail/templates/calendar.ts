@@ -1,4 +1,4 @@
-import ical, { ICalCalendarMethod } from 'ical-generator';
+import ical, { ICalCalendarMethod, ICalEventStatus } from 'ical-generator';
 
 export interface HandoverEvent {
   /** Stable per booking, so a re-sent invitation updates the same calendar entry (RFC 5545 §3.8.4.7 UID). */
@@ -8,12 +8,19 @@ export interface HandoverEvent {
   description: string;
   location?: string;
   shopName: string;
+  /**
+   * RFC 5545 §3.8.7.4 SEQUENCE: 0 on the first file, one more on every revision, so a calendar
+   * program replaces the event it holds under the same UID instead of adding a second one.
+   */
+  sequence?: number;
+  /** Withdraws the event: METHOD:CANCEL with STATUS:CANCELLED (RFC 5546 §3.2.5, RFC 5545 §3.8.1.11). */
+  cancelled?: boolean;
 }
 
 /**
  * The ship-by or drop-off day as an RFC 5545 all-day event: DTSTART;VALUE=DATE on the day and
  * DTEND on the next (RFC 5545 §3.6.1: an all-day event's DTEND is exclusive), METHOD:PUBLISH
- * since nobody is asked to reply.
+ * since nobody is asked to reply (METHOD:CANCEL when the booking is cancelled).
  */
 export function handoverCalendar(event: HandoverEvent): string {
   const [y, m, d] = event.day.split('-').map(Number);
@@ -24,7 +31,7 @@ export function handoverCalendar(event: HandoverEvent): string {
   const calendar = ical({
     name: `${event.shopName}: your build`,
     prodId: { company: 'Loomwright', product: 'bookings', language: 'EN' },
-    method: ICalCalendarMethod.PUBLISH,
+    method: event.cancelled ? ICalCalendarMethod.CANCEL : ICalCalendarMethod.PUBLISH,
   });
   calendar.createEvent({
     id: event.uid,
@@ -35,6 +42,8 @@ export function handoverCalendar(event: HandoverEvent): string {
     description: event.description,
     location: event.location ?? null,
     stamp: new Date(),
+    sequence: event.sequence ?? 0,
+    ...(event.cancelled ? { status: ICalEventStatus.CANCELLED } : {}),
   });
   return calendar.toString();
 }

@@ -26,6 +26,8 @@ const samples: Record<(typeof mailTemplates)[number], Record<string, unknown>> =
   'booking-requested': { name: 'Rosa', reference: 'LW-1042', totalLow: '1120.00', totalHigh: '1400.5', deposit: '280.00', currency: 'USD', bookingUrl: 'http://x/b' },
   'deposit-received': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD', bookingUrl: 'http://x/b', expectedBenchDate: '2027-01-12' },
   'booking-scheduled': scheduled,
+  'booking-rescheduled': { ...scheduled, benchDate: '2027-01-19', shipBy: '2027-01-14', previousBenchDate: '2027-01-12', shift: '7 days later', reason: 'Your builder is ill this week.', calendarSequence: 1 },
+  'booking-cancelled': { name: 'Rosa', reference: 'LW-1042', reason: 'The shop cannot source the case in time.', currency: 'USD', refundAmount: '280.00', shipBy: '2027-01-08', calendarSequence: 2 },
   'status-changed': { name: 'Rosa', reference: 'LW-1042', state: 'pedals_received', bookingUrl: 'http://x/b' },
   'balance-requested': { name: 'Rosa', reference: 'LW-1042', amount: '1234567.8', currency: 'USD', payUrl: 'http://x/pay' },
   'deposit-refunded': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD' },
@@ -293,5 +295,66 @@ describe('the data the calling modules send', () => {
       shop,
     );
     expect(text).toContain('Your deposit of $250.00 is refunded in full');
+  });
+});
+
+describe('the calendar file when a booking moves or is cancelled', () => {
+  // RFC 5545 (iCalendar) and RFC 5546 (iTIP), parsed by ical.js, an independent iCalendar library
+  // from the npm registry. §3.8.7.4 SEQUENCE: a revision keeps the UID and carries a higher
+  // sequence number, so a calendar program updates the event instead of adding a second one.
+  function parse(content: string) {
+    const component = new ICAL.Component(ICAL.parse(content));
+    const event = component.getFirstSubcomponent('vevent')!;
+    return { component, event, vevent: new ICAL.Event(event) };
+  }
+
+  const first = renderMail('booking-scheduled', scheduled, shop).attachments[0];
+  const moved = {
+    ...scheduled,
+    benchDate: '2027-01-19',
+    shipBy: '2027-01-14',
+    previousBenchDate: '2027-01-12',
+    shift: '7 days later',
+    reason: 'Your builder is ill this week.',
+    calendarSequence: 1,
+  };
+
+  it('an update keeps the UID, moves the day and raises SEQUENCE (RFC 5545 §3.8.7.4)', () => {
+    const original = parse(first.content);
+    const { subject, text, attachments } = renderMail('booking-rescheduled', moved, shop);
+    const update = parse(attachments[0].content);
+    expect(update.component.getFirstPropertyValue('method')).toBe('PUBLISH');
+    expect(update.vevent.uid).toBe(original.vevent.uid);
+    expect(original.vevent.sequence).toBe(0);
+    expect(update.vevent.sequence).toBe(1);
+    expect(update.vevent.sequence).toBeGreaterThan(original.vevent.sequence);
+    expect(update.vevent.startDate.toString()).toBe('2027-01-14');
+    // 19 Jan 2027 is a Tuesday, 12 Jan 2027 a Tuesday (from memory, checked against a printed calendar).
+    expect(subject).toBe('Moved: bench date Tue 19 Jan 2027 for LW-1042 (was Tue 12 Jan 2027)');
+    expect(text).toContain('7 days later than before');
+    expect(text).toContain('Your builder is ill this week.');
+  });
+
+  it('a cancellation is METHOD:CANCEL with STATUS:CANCELLED under the same UID and a higher SEQUENCE (RFC 5546 §3.2.5)', () => {
+    const { attachments, text } = renderMail('booking-cancelled', { name: 'Rosa', reference: 'LW-1042', reason: 'The shop cannot source the case.', currency: 'USD', refundAmount: '280.00', shipBy: '2027-01-14', calendarSequence: 2 }, shop);
+    expect(attachments[0].contentType).toContain('method=CANCEL');
+    const cancel = parse(attachments[0].content);
+    expect(cancel.component.getFirstPropertyValue('method')).toBe('CANCEL');
+    expect(cancel.event.getFirstPropertyValue('status')).toBe('CANCELLED');
+    expect(cancel.vevent.uid).toBe(parse(first.content).vevent.uid);
+    expect(cancel.vevent.sequence).toBe(2);
+    expect(text).toContain('Refunded to you');
+    expect(text).toContain('$280.00');
+  });
+
+  it('a move after the pedals are in sends no calendar file and no packing list', () => {
+    const { attachments, text } = renderMail('booking-rescheduled', { ...moved, pedalsReceived: true }, shop);
+    expect(attachments).toEqual([]);
+    expect(text).not.toContain('How to pack');
+    expect(text).toContain('already with us');
+  });
+
+  it('refuses a calendar sequence that is not a whole number from 0', () => {
+    expect(() => renderMail('booking-rescheduled', { ...moved, calendarSequence: -1 }, shop)).toThrow(MailDataError);
   });
 });

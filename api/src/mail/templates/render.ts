@@ -70,7 +70,23 @@ const packing: string[] = [
   'Fill the box so nothing moves, and keep the tracking number; add it to your booking when you have it.',
 ];
 
-function bookingScheduled(data: Data, shop: ShopContext): Draft {
+/** The booking's calendar event is the ship-by (or drop-off) day, one UID per booking for its whole life. */
+const handoverUid = (reference: string) => `handover-${reference}@loomwright.app`;
+
+function calendarSequence(data: Data): number {
+  const value = data.calendarSequence ?? 0;
+  if (typeof value !== 'number' || !Number.isInteger(value) || value < 0) throw new MailDataError('"calendarSequence" must be a whole number from 0');
+  return value;
+}
+
+/** What a new bench date means for the player: the old date, how far it moved, and why. */
+interface Move {
+  previousBenchDate: string;
+  shift: string;
+  reason: string;
+}
+
+function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
   const reference = requireString(data, 'reference');
   const shipBy = requireString(data, 'shipBy');
   const level = requireString(data, 'builderLevel');
@@ -102,44 +118,133 @@ function bookingScheduled(data: Data, shop: ShopContext): Draft {
   ];
   const verb = dropOff ? 'Drop off' : 'Ship';
   const shipByWords = formatDay(shipBy);
+  // Once the pedals are in, there is nothing left to ship: no calendar file to update.
+  const pedalsIn = data.pedalsReceived === true;
   const calendar = handoverCalendar({
-    uid: `handover-${reference}@loomwright.app`,
+    uid: handoverUid(reference),
+    sequence: calendarSequence(data),
     day: shipBy,
     summary: `${verb} your pedals to ${shop.name} (booking ${reference})`,
     description: [`${dropOff ? 'Bring' : 'Send'} by ${shipByWords}:`, ...bring.map((b) => `- ${b}`), '', 'Packing:', ...packing.map((p) => `- ${p}`)].join('\n'),
     location: shipTo,
     shopName: shop.name,
   });
+  const benchDate = formatDay(requireString(data, 'benchDate'));
+  const quotedHigh = optionalString(data, 'quotedHigh');
+  const overrideReason = optionalString(data, 'levelOverrideReason');
+  const priceBlocks: Block[] = [
+    ...(overrideReason ? [{ kind: 'p' as const, text: `Why this builder: ${overrideReason}` }] : []),
+    ...(data.priceConsentNeeded === true && currency && quotedHigh
+      ? [
+          {
+            kind: 'p' as const,
+            text: `The firm quote is above the estimate we gave you (up to ${formatMoney(quotedHigh, currency)}). We keep your deposit only once you agree to the new price on your booking page; if you would rather not, cancel there and the whole deposit comes back to you.`,
+          },
+        ]
+      : []),
+  ];
   return {
-    subject: `Booked: bench date ${formatDay(requireString(data, 'benchDate'))} for ${reference}`,
+    subject: move
+      ? `Moved: bench date ${benchDate} for ${reference} (was ${formatDay(move.previousBenchDate)})`
+      : `Booked: bench date ${benchDate} for ${reference}`,
     letter: {
-      heading: `Your build has a bench date`,
+      heading: move ? 'Your build has a new bench date' : `Your build has a bench date`,
       blocks: [
-        { kind: 'p', text: `Hello ${recipient(data)}, your build ${reference} is on our bench schedule.` },
+        move
+          ? { kind: 'p', text: `Hello ${recipient(data)}, we moved your build ${reference} to ${benchDate}, ${move.shift} than before. Why: ${move.reason}` }
+          : { kind: 'p', text: `Hello ${recipient(data)}, your build ${reference} is on our bench schedule.` },
         {
           kind: 'facts',
           rows: [
-            ['Bench date', formatDay(requireString(data, 'benchDate'))],
-            [dropOff ? 'Drop off by' : 'Ship to arrive by', shipByWords],
+            ['Bench date', benchDate],
+            ...(move ? [['Was', formatDay(move.previousBenchDate)] as [string, string]] : []),
+            ...(pedalsIn ? [] : [[dropOff ? 'Drop off by' : 'Ship to arrive by', shipByWords] as [string, string]]),
             ['Builder', optionalString(data, 'builderName') ? `${data.builderName as string} (${levelWords[level]})` : levelWords[level]],
             ['Expected completion', formatDay(requireString(data, 'expectedCompletion'))],
             [dropOff ? 'Drop off at' : 'Ship to', shipTo],
             ...figures,
           ],
         },
-        { kind: 'list', title: `What to ${dropOff ? 'bring' : 'send'}`, items: bring },
-        { kind: 'list', title: 'How to pack', items: packing },
+        ...priceBlocks,
+        ...(pedalsIn
+          ? [{ kind: 'p' as const, text: 'Your pedals are already with us; there is nothing to send.' }]
+          : [
+              { kind: 'list' as const, title: `What to ${dropOff ? 'bring' : 'send'}`, items: bring },
+              { kind: 'list' as const, title: 'How to pack', items: packing },
+            ]),
         {
           kind: 'caution',
           text: 'A loaded board in a road case is heavy: lift it with two people. Do not open or rewire your power supply; anything on the mains side is work for a qualified person under your local electrical codes.',
         },
-        { kind: 'p', text: `The attached calendar file puts the ${dropOff ? 'drop-off' : 'shipping'} day in your calendar.` },
+        ...(pedalsIn
+          ? []
+          : [
+              {
+                kind: 'p' as const,
+                text: move
+                  ? `The attached calendar file updates the ${dropOff ? 'drop-off' : 'shipping'} day already in your calendar.`
+                  : `The attached calendar file puts the ${dropOff ? 'drop-off' : 'shipping'} day in your calendar.`,
+              },
+            ]),
         ...openIf('See your booking', optionalString(data, 'bookingUrl')),
       ],
     },
-    attachments: [{ filename: `${reference}-${dropOff ? 'drop-off' : 'ship-by'}.ics`, contentType: 'text/calendar; charset=utf-8; method=PUBLISH', content: calendar }],
+    attachments: pedalsIn
+      ? []
+      : [{ filename: `${reference}-${dropOff ? 'drop-off' : 'ship-by'}.ics`, contentType: 'text/calendar; charset=utf-8; method=PUBLISH', content: calendar }],
   };
 }
+
+function bookingRescheduled(data: Data, shop: ShopContext): Draft {
+  return bookingScheduled(data, shop, {
+    previousBenchDate: requireString(data, 'previousBenchDate'),
+    shift: requireString(data, 'shift'),
+    reason: requireString(data, 'reason'),
+  });
+}
+
+function bookingCancelled(data: Data, shop: ShopContext): Draft {
+  const reference = requireString(data, 'reference');
+  const currency = requireString(data, 'currency');
+  const refund = optionalString(data, 'refundAmount');
+  const kept = optionalString(data, 'keptAmount');
+  const shipBy = optionalString(data, 'shipBy');
+  const calendar = shipBy
+    ? handoverCalendar({
+        uid: handoverUid(reference),
+        sequence: calendarSequence(data),
+        cancelled: true,
+        day: shipBy,
+        summary: `Cancelled: ship your pedals to ${shop.name} (booking ${reference})`,
+        description: `Booking ${reference} is cancelled; there is nothing to send.`,
+        shopName: shop.name,
+      })
+    : null;
+  return {
+    subject: `Cancelled: build ${reference}`,
+    letter: {
+      heading: 'Your build is cancelled',
+      blocks: [
+        { kind: 'p', text: `Hello ${recipient(data)}, your build ${reference} is cancelled and its bench time released. Why: ${requireString(data, 'reason')}` },
+        {
+          kind: 'facts',
+          rows: [
+            ...(refund ? [['Refunded to you', formatMoney(refund, currency)] as [string, string]] : []),
+            ...(kept ? [['Deposit kept, per the deposit policy', formatMoney(kept, currency)] as [string, string]] : []),
+          ],
+        },
+        ...(data.pedalsAtShop === true ? [{ kind: 'p' as const, text: 'Your pedals are with us: we will write to arrange their return.' }] : []),
+        ...(calendar ? [{ kind: 'p' as const, text: 'The attached calendar file removes the shipping day from your calendar.' }] : []),
+        ...openIf('See your booking', optionalString(data, 'bookingUrl')),
+      ],
+    },
+    attachments: calendar
+      ? [{ filename: `${reference}-cancelled.ics`, contentType: 'text/calendar; charset=utf-8; method=CANCEL', content: calendar }]
+      : [],
+  };
+}
+
+
 
 const statusWords: Partial<Record<BookingState, { subject: string; heading: string; text: string }>> = {
   pedals_received: {
@@ -345,7 +450,9 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       },
     };
   },
-  'booking-scheduled': bookingScheduled,
+  'booking-scheduled': (data, shop) => bookingScheduled(data, shop),
+  'booking-rescheduled': bookingRescheduled,
+  'booking-cancelled': bookingCancelled,
   'status-changed': (data) => statusChanged(data),
   'balance-requested': (data) => {
     const reference = requireString(data, 'reference');

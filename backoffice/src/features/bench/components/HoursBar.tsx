@@ -3,11 +3,15 @@ import Typography from '@mui/joy/Typography';
 import type { BenchDay } from '@loomwright/shared';
 import { formatHours } from 'src/lib/format';
 
-const offWords = { holiday: 'Holiday', closure: 'Shop closed', day_off: 'Day off' } as const;
+const offWords = { holiday: 'Holiday', closure: 'Shop closed', day_off: 'Day off', absence: 'Away' } as const;
 
 /** One builder's day in words, then as a bar: "5 of 7 h", "Full, 7 of 7 h", "Holiday: …". */
 export function dayInWords(day: BenchDay): string {
-  if (day.off) return day.off.kind === 'day_off' ? offWords.day_off : `${offWords[day.off.kind]}: ${day.off.label}`;
+  if (day.off) {
+    if (day.off.kind === 'day_off') return offWords.day_off;
+    // A builder's absence already reads "Away: ill".
+    return day.off.kind === 'absence' ? day.off.label : `${offWords[day.off.kind]}: ${day.off.label}`;
+  }
   if (day.capacityHours <= 0) return offWords.day_off;
   const numbers = `${trim(day.bookedHours)} of ${formatHours(day.capacityHours)}`;
   if (day.freeHours <= 0) return `Full, ${numbers}`;
