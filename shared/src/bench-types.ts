@@ -13,6 +13,8 @@ export interface BenchBuild {
   customerName: string;
   state: BookingState;
   hours: number;
+  /** The build's own bench date (its first day), for moving it. */
+  benchDate: string | null;
 }
 
 /** Why a day holds no bench time, in words ("Thanksgiving Day", "Shop closed: stocktake", "Day off"). */

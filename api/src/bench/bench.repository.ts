@@ -89,6 +89,7 @@ export class BenchRepository {
         'a.booking_id',
         'b.reference',
         'b.state',
+        'b.bench_date',
         'c.name as customer_name',
         sql<string>`lower(a.hours)`.as('lower'),
         sql<string>`upper(a.hours)`.as('upper'),

@@ -161,6 +161,7 @@ export class BenchService {
                 customerName: s.customer_name,
                 state: s.state,
                 hours: 0,
+                benchDate: s.bench_date,
               };
               entry.hours = toHours(toCentihours(entry.hours) + length);
               byBooking.set(s.booking_id, entry);

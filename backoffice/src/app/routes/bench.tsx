@@ -2,7 +2,7 @@ import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import ToggleButtonGroup from '@mui/joy/ToggleButtonGroup';
 import Typography from '@mui/joy/Typography';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { FilterBar } from 'src/components/FilterBar';
@@ -13,6 +13,9 @@ import { useBench } from 'src/features/bench/api/get-bench';
 import { MonthCalendar } from 'src/features/bench/components/MonthCalendar';
 import { WeekGrid } from 'src/features/bench/components/WeekGrid';
 import { useTeam } from 'src/features/team/api/get-team';
+import { useMe } from 'src/features/auth/api/get-me';
+import { RescheduleDialog, type MovableBuild } from 'src/features/builds/components/RescheduleDialog';
+import { Notice } from 'src/components/Notice';
 import {
   addDays,
   endOfMonth,
@@ -60,6 +63,9 @@ export function Component() {
 
   const bench = useBench({ from, to, builderId: builderId || undefined });
   const team = useTeam();
+  const me = useMe();
+  const [moving, setMoving] = useState<MovableBuild | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
 
   const view = useMemo(() => {
     if (!bench.data) return undefined;
@@ -120,7 +126,18 @@ export function Component() {
       <ErrorNote error={bench.error} action="Reload the page to try again." />
       {!view && bench.isPending && <PageLoading label="Reading the bench…" />}
       {view && view.builders.length === 0 && <Typography>No active builders. Add one on the Team page.</Typography>}
-      {view && (mode === 'week' ? <WeekGrid view={view} days={days} /> : <MonthCalendar view={view} weeks={weeks} month={month} />)}
+      {view &&
+        (mode === 'week' ? (
+          <WeekGrid
+            view={view}
+            days={days}
+            onMove={(build, builder) => setMoving({ bookingId: build.bookingId, reference: build.reference, builderId: builder, benchDate: build.benchDate })}
+          />
+        ) : (
+          <MonthCalendar view={view} weeks={weeks} month={month} />
+        ))}
+      <RescheduleDialog build={moving} isOwner={me.data?.role === 'owner'} onClose={() => setMoving(null)} onMoved={setNotice} />
+      <Notice message={notice} onClose={() => setNotice(null)} />
     </>
   );
 }

@@ -31,6 +31,8 @@ import { SafetyNote } from 'src/features/builds/components/SafetyNote';
 import { StateActions } from 'src/features/builds/components/StateActions';
 import { NoteDialog } from 'src/features/builds/components/NoteDialog';
 import { useAddNote } from 'src/features/builds/api/add-note';
+import { CancelBuildDialog } from 'src/features/builds/components/CancelBuildDialog';
+import { RescheduleDialog, type MovableBuild } from 'src/features/builds/components/RescheduleDialog';
 import { useMe } from 'src/features/auth/api/get-me';
 import { MoneyFactsTable } from '@loomwright/shared/ui';
 import { formatMoney, formatStamp } from 'src/lib/format';
@@ -46,6 +48,8 @@ export function Component() {
   const [notice, setNotice] = useState<string | null>(null);
   const [noting, setNoting] = useState(false);
   const addNote = useAddNote(bookingId);
+  const [moving, setMoving] = useState<MovableBuild | null>(null);
+  const [cancelling, setCancelling] = useState<{ id: string; reference: string } | null>(null);
 
   if (booking.isPending) return <PageLoading />;
   if (booking.error || !booking.data)
@@ -77,6 +81,29 @@ export function Component() {
           Next step
         </Typography>
         <StateActions booking={b} intake={intake.data} isOwner={isOwner} onDone={setNotice} />
+        {(['scheduled', 'pedals_received', 'on_bench'] as const).some((s) => s === b.state) && (
+          <Stack direction="row" gap={1} flexWrap="wrap" sx={{ mt: 1 }}>
+            {b.state !== 'on_bench' && (
+              <Button
+                variant="outlined"
+                color="neutral"
+                onClick={() => setMoving({ bookingId: b.id, reference: b.reference, builderId: b.builder?.id ?? null, benchDate: b.benchDate })}
+              >
+                Move or reassign
+              </Button>
+            )}
+            {isOwner && (
+              <Button variant="outlined" color="danger" onClick={() => setCancelling({ id: b.id, reference: b.reference })}>
+                Cancel the build
+              </Button>
+            )}
+          </Stack>
+        )}
+        {b.priceConsent === 'pending' && (
+          <Typography level="body-sm" sx={{ mt: 1 }}>
+            Waiting for the player to agree to the firm total, which is above the estimate they were quoted.
+          </Typography>
+        )}
       </Card>
       <Box sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr', lg: 'minmax(0, 3fr) minmax(320px, 2fr)' }, gap: 2, alignItems: 'start' }}>
         <Stack gap={2}>
@@ -160,6 +187,8 @@ export function Component() {
           )
         }
       />
+      <RescheduleDialog build={moving} isOwner={isOwner} onClose={() => setMoving(null)} onMoved={setNotice} />
+      <CancelBuildDialog booking={cancelling} onClose={() => setCancelling(null)} onCancelled={setNotice} />
       <Notice message={notice} onClose={() => setNotice(null)} />
     </Stack>
   );

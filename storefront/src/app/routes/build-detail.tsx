@@ -14,6 +14,7 @@ import { BookingStateChip } from 'src/features/bookings/components/BookingStateC
 import { CancelBooking } from 'src/features/bookings/components/CancelBooking';
 import { PaymentsList } from 'src/features/bookings/components/PaymentsList';
 import { PhotoPanel } from 'src/features/bookings/components/PhotoPanel';
+import { PriceConsent } from 'src/features/bookings/components/PriceConsent';
 import { QuoteLines } from 'src/features/bookings/components/QuoteLines';
 import { ShipmentForm } from 'src/features/bookings/components/ShipmentForm';
 import { StatusTimeline } from 'src/features/bookings/components/StatusTimeline';
@@ -59,6 +60,7 @@ export function Component() {
       <Typography>{b.summary}</Typography>
       {b.declineReason && <Alert color="warning">The shop declined this build: {b.declineReason}</Alert>}
       {b.cancelReason && b.state === 'cancelled' && <Alert color="neutral">Cancelled: {b.cancelReason}</Alert>}
+      {isPlayer && b.priceConsent === 'pending' && <PriceConsent booking={b} />}
       {(b.extras.length > 0 || b.layoutApprovals.length > 0) && (
         <Section title="Your approval">
           <ApprovalsPanel
@@ -98,6 +100,7 @@ export function Component() {
               <Typography>Bench date: <b>{formatDay(b.benchDate)}</b></Typography>
               <Typography>Expected completion: {formatDay(b.expectedCompletion)}</Typography>
               {b.builder && <Typography>Builder: {b.builder.name} ({b.builder.level})</Typography>}
+              {b.levelOverrideReason && <Typography level="body-sm">Why this builder: {b.levelOverrideReason}</Typography>}
               {!b.benchDate && <Typography level="body-sm">The shop sets a bench date once the deposit is paid.</Typography>}
             </Section>
             <Section title="Payments">

@@ -1,13 +1,13 @@
 import Box from '@mui/joy/Box';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
-import type { BenchView } from '@loomwright/shared';
+import type { BenchBuild, BenchView } from '@loomwright/shared';
 import { formatDay, formatHours, today } from 'src/lib/format';
 import { BuildTag } from './BuildTag';
 import { HoursBar } from './HoursBar';
 
 /** Builders down, days across: each cell is one builder's day (bar, words, builds). */
-export function WeekGrid({ view, days }: { view: BenchView; days: string[] }) {
+export function WeekGrid({ view, days, onMove }: { view: BenchView; days: string[]; onMove?: (build: BenchBuild, builderId: string) => void }) {
   const now = today();
   return (
     <Box sx={{ overflowX: 'auto' }}>
@@ -67,7 +67,7 @@ export function WeekGrid({ view, days }: { view: BenchView; days: string[] }) {
                       <Stack gap={0.75}>
                         <HoursBar day={day} />
                         {day.builds.map((build) => (
-                          <BuildTag key={build.bookingId} build={build} />
+                          <BuildTag key={build.bookingId} build={build} onMove={onMove && ((b) => onMove(b, builder.id))} />
                         ))}
                       </Stack>
                     ) : (

@@ -15,7 +15,8 @@ import Sheet from '@mui/joy/Sheet';
 import Stack from '@mui/joy/Stack';
 import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
-import { type BenchSuggestion, type BookingSummary } from '@loomwright/shared';
+import { dateShiftWords, isCalendarDay, type BenchSuggestion, type BookingSummary } from '@loomwright/shared';
+import { BenchDatePreview, useBenchPreview } from 'src/components/BenchDatePreview';
 import { useEffect, useMemo, useState } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { PageLoading } from 'src/components/PageLoading';
@@ -52,10 +53,10 @@ export function AcceptDialog({
     [options, builderId],
   );
 
-  // Prefill: the first suggestion is the earliest start that meets the rig's level.
+  // Prefill: the earliest start among builders of the level the player chose; never one below it.
   useEffect(() => {
     if (!suggestion.data || builderId) return;
-    const first = suggestion.data.suggestions.find((s) => s.meetsMinimumLevel) ?? suggestion.data.suggestions[0];
+    const first = suggestion.data.suggestions.find((s) => s.meetsChosenLevel);
     if (first) {
       setBuilderId(first.builder.id);
       setBenchDate(first.benchDate);
@@ -80,15 +81,16 @@ export function AcceptDialog({
     setFormError(null);
   };
 
-  const needsOverride = chosen ? !chosen.meetsMinimumLevel : false;
+  const needsOverride = chosen ? !chosen.meetsChosenLevel : false;
+  const preview = useBenchPreview(booking?.id ?? null, chosen?.builder.id ?? null, benchDate);
+  const previewed = preview.data?.options.find((o) => o.builder.id === chosen?.builder.id);
 
   const submit = () => {
     if (!booking || !chosen) return setFormError('Choose who builds it.');
     if (!benchDate) return setFormError('Choose a bench date.');
-    if (benchDate < chosen.benchDate)
-      return setFormError(`${chosen.builder.name}'s bench is full before ${formatDay(chosen.benchDate)}; pick that day or later.`);
+    if (previewed && !previewed.ok) return setFormError(previewed.message ?? 'That day cannot hold the build; pick another.');
     if (needsOverride && overrideReason.trim().length < 5)
-      return setFormError('Say why this builder may take a rig above their level (at least a few words).');
+      return setFormError('Say why this builder may take it below the level the player chose (at least a few words); the player reads it.');
     setFormError(null);
     accept.mutate(
       {
@@ -135,7 +137,7 @@ export function AcceptDialog({
                   sx={{ gap: 1 }}
                 >
                   {options.map((s) => {
-                    const blocked = !s.meetsMinimumLevel && !isOwner;
+                    const blocked = !s.meetsChosenLevel && !isOwner;
                     return (
                       <Sheet
                         key={s.builder.id}
@@ -157,12 +159,13 @@ export function AcceptDialog({
                                 {s.builder.isMe ? ' (you)' : ''} · {s.builder.level}
                               </Typography>
                               <Typography level="body-xs">
-                                {s.meetsMinimumLevel
-                                  ? `Meets the ${data.minimumLevel} minimum.`
-                                  : `Below the ${data.minimumLevel} minimum${isOwner ? '; you may assign with a reason.' : '; only the owner can assign this, with a reason.'}`}{' '}
+                                {s.meetsChosenLevel
+                                  ? `Meets the ${data.chosenLevel} level the player chose.`
+                                  : `Below the ${data.chosenLevel} level the player chose${isOwner ? '; you may assign with a reason the player reads.' : '; only the owner can assign this, with a reason.'}`}{' '}
                                 Earliest start {formatDay(s.benchDate)}, done {formatDay(s.expectedCompletion)} ·{' '}
                                 {formatMoney(s.builder.hourlyRate, data.currency)}/h → firm total{' '}
                                 {formatMoney(s.firmTotal, data.currency)}
+                                {s.aboveQuotedRange ? ' · above the quoted range: the player must agree to it' : ''}
                               </Typography>
                             </Stack>
                           }
@@ -185,16 +188,13 @@ export function AcceptDialog({
                 <>
                   <FormControl>
                     <FormLabel>Bench date</FormLabel>
-                    <Input
-                      type="date"
-                      value={benchDate}
-                      slotProps={{ input: { min: chosen.benchDate } }}
-                      onChange={(event) => setBenchDate(event.target.value)}
-                    />
+                    <Input type="date" value={benchDate} onChange={(event) => setBenchDate(event.target.value)} />
                     <FormHelperText>
                       {benchDate === chosen.benchDate
                         ? `Suggested: the earliest day ${chosen.builder.name}'s bench holds ${formatHours(data.laborHours)}. Expected completion ${formatDay(chosen.expectedCompletion)}; the player ships by ${formatDay(chosen.shipBy)}.`
-                        : 'A later start than suggested; the bench checks this date when you accept and works out the completion date from it.'}
+                        : isCalendarDay(benchDate)
+                          ? `${dateShiftWords(chosen.benchDate, benchDate)} than suggested (${formatDay(chosen.benchDate)}); see below what that day means.`
+                          : 'Choose a day.'}
                     </FormHelperText>
                   </FormControl>
                   {benchDate === chosen.benchDate && chosen.plan.length > 0 && (
@@ -202,9 +202,11 @@ export function AcceptDialog({
                       Plan: {chosen.plan.map((p) => `${formatDay(p.date)} ${formatHours(p.hours)}`).join(' · ')}
                     </Typography>
                   )}
+                  <ErrorNote error={preview.error} />
+                  <BenchDatePreview option={previewed} currency={data.currency} onPickNext={setBenchDate} />
                   {needsOverride && (
                     <FormControl required>
-                      <FormLabel>Why this builder may take it (owner only)</FormLabel>
+                      <FormLabel>Why this builder may take it (owner only; the player reads it beside the price)</FormLabel>
                       <Textarea minRows={2} value={overrideReason} onChange={(event) => setOverrideReason(event.target.value)} />
                     </FormControl>
                   )}

@@ -8,6 +8,8 @@ import Typography from '@mui/joy/Typography';
 import { createClosureSchema, type CreateClosureInput, type ShopSettingsView } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
+import { useState } from 'react';
+import { BuildsToMove, type HitBuild } from 'src/components/BuildsToMove';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay } from 'src/lib/format';
 import { useAddClosure } from '../api/add-closure';
@@ -20,6 +22,7 @@ export function ClosuresList({ settings, canEdit, onSaved }: { settings: ShopSet
   const form = useForm<CreateClosureInput>({ resolver: zodResolver(createClosureSchema), defaultValues: { startsOn: '', endsOn: '', reason: '' } });
   const e = form.formState.errors;
   const firstError = e.startsOn?.message ?? e.endsOn?.message ?? e.reason?.message;
+  const [hit, setHit] = useState<{ builds: HitBuild[]; reason: string } | null>(null);
   return (
     <Stack gap={1}>
       {settings.closures.length === 0 ? (
@@ -58,6 +61,7 @@ export function ClosuresList({ settings, canEdit, onSaved }: { settings: ShopSet
           </tbody>
         </Table>
       )}
+      {hit && <BuildsToMove builds={hit.builds} reason={hit.reason} onDone={onSaved} />}
       {canEdit && (
         <Stack
           component="form"
@@ -71,10 +75,11 @@ export function ClosuresList({ settings, canEdit, onSaved }: { settings: ShopSet
               onSuccess: (added) => {
                 form.reset();
                 const clash = added.buildsOnBenchThen;
+                setHit({ builds: clash, reason: `The shop is closed on ${formatDay(added.startsOn)}${added.endsOn !== added.startsOn ? ` to ${formatDay(added.endsOn)}` : ''} (${added.reason}).` });
                 onSaved(
                   clash.length === 0
                     ? 'Closure added; the bench skips those days.'
-                    : `Closure added. Already on the bench then: ${clash.map((b) => `${b.reference} (${b.days.map(formatDay).join(', ')})`).join('; ')}. Move those builds.`,
+                    : `Closure added. ${clash.length === 1 ? 'One build is' : `${clash.length} builds are`} already on the bench then: move ${clash.length === 1 ? 'it' : 'them'} below.`,
                 );
               },
             }),
