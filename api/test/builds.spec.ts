@@ -62,7 +62,7 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     const view = bench.body as BenchView;
     expect(view.builders[0].builder).toMatchObject({ id: masterId, isMe: true });
     expect(view.builders[0].days[0]).toMatchObject({ date: monday, capacityHours: 7, bookedHours: 7, freeHours: 0 });
-    expect(view.builders[0].days[0].builds).toEqual([{ bookingId: b.id, reference: b.reference, customerName: 'Rowan Achterberg', state: 'scheduled', hours: 7 }]);
+    expect(view.builders[0].days[0].builds).toEqual([{ bookingId: b.id, reference: b.reference, customerName: 'Rowan Achterberg', state: 'scheduled', hours: 7, benchDate: monday }]);
     expect(view.builders[0].days[5].off).toEqual({ kind: 'day_off', label: 'Day off' });
     const juniorView = (await junior.get(`/api/bench?from=${monday}&to=${monday}`).expect(200)).body as BenchView;
     expect(juniorView.builders[0].builder).toMatchObject({ id: juniorId, isMe: true });

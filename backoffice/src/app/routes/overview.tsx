@@ -4,6 +4,8 @@ import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
 import { Link as RouterLink } from 'react-router';
+import { useMe } from 'src/features/auth/api/get-me';
+import { MyWeek } from 'src/features/bench/components/MyWeek';
 import { useBookings, type BookingListQuery } from 'src/features/bookings/api/list-bookings';
 import { useHealth } from 'src/features/shop/api/get-health';
 import { useShop } from 'src/features/shop/api/get-shop';
@@ -63,9 +65,12 @@ function QueueCard({ title, hint, query, to }: (typeof queues)[number]) {
 export function Component() {
   const shop = useShop();
   const health = useHealth();
+  const me = useMe();
   return (
     <Stack gap={2} sx={{ maxWidth: 1080 }}>
       <Typography level="h2" component="h1">{shop.data?.name ?? 'The shop'}</Typography>
+      {/* A builder lands on their own week first; the owner on the shop's queues. */}
+      {me.data?.role === 'builder' && <MyWeek />}
       <Grid container spacing={2}>
         {queues.map((queue) => (
           <Grid key={queue.title} xs={12} sm={6} md={4}>

@@ -13,6 +13,7 @@ import { useMe } from 'src/features/auth/api/get-me';
 import { SignOutEverywhere } from 'src/features/sessions/components/SignOutEverywhere';
 import { useTeam } from 'src/features/team/api/get-team';
 import { TeamMemberDialog, weekdays } from 'src/features/team/components/TeamMemberDialog';
+import { AbsencesPanel } from 'src/features/team/components/AbsencesPanel';
 import { formatHours, formatMoney } from 'src/lib/format';
 
 export function Component() {
@@ -85,6 +86,7 @@ export function Component() {
           </Table>
         </Sheet>
       )}
+      {team.data && <AbsencesPanel team={team.data} canEdit={isOwner} onSaved={setNotice} />}
       <TeamMemberDialog member={editing} onClose={() => setEditing(null)} onSaved={setNotice} />
       <Notice message={notice} onClose={() => setNotice(null)} />
     </>

@@ -1,0 +1,126 @@
+import Alert from '@mui/joy/Alert';
+import Button from '@mui/joy/Button';
+import FormControl from '@mui/joy/FormControl';
+import FormLabel from '@mui/joy/FormLabel';
+import Input from '@mui/joy/Input';
+import Option from '@mui/joy/Option';
+import Select from '@mui/joy/Select';
+import Stack from '@mui/joy/Stack';
+import Table from '@mui/joy/Table';
+import Typography from '@mui/joy/Typography';
+import { absenceSchema, type TeamMember } from '@loomwright/shared';
+import { useState } from 'react';
+import { BuildsToMove, type HitBuild } from 'src/components/BuildsToMove';
+import { ErrorNote } from 'src/components/ErrorNote';
+import { formatDay } from 'src/lib/format';
+import { useAbsences, useAddAbsence, useRemoveAbsence } from '../api/absences';
+
+/** Days a builder is away (ill, holiday, a course): their bench holds nothing then. */
+export function AbsencesPanel({ team, canEdit, onSaved }: { team: TeamMember[]; canEdit: boolean; onSaved: (m: string) => void }) {
+  const absences = useAbsences();
+  const add = useAddAbsence();
+  const remove = useRemoveAbsence();
+  const [builderId, setBuilderId] = useState<string | null>(null);
+  const [startsOn, setStartsOn] = useState('');
+  const [endsOn, setEndsOn] = useState('');
+  const [reason, setReason] = useState('');
+  const [errors, setErrors] = useState<string[]>([]);
+  const [hit, setHit] = useState<{ builds: HitBuild[]; reason: string } | null>(null);
+  const nameOf = (id: string) => team.find((m) => m.id === id)?.name ?? 'A builder';
+
+  const submit = () => {
+    if (!builderId) return setErrors(['Choose the builder who is away.']);
+    const parsed = absenceSchema.safeParse({ startsOn, endsOn, reason });
+    if (!parsed.success) return setErrors(parsed.error.issues.map((i) => i.message));
+    setErrors([]);
+    add.mutate(
+      { builderId, ...parsed.data },
+      {
+        onSuccess: (added) => {
+          setHit({ builds: added.buildsOnBenchThen, reason: 'Your builder is away on those days.' });
+          onSaved(
+            added.buildsOnBenchThen.length === 0
+              ? `${nameOf(builderId)} is away ${formatDay(added.startsOn)} to ${formatDay(added.endsOn)}; nothing on their bench then.`
+              : `${nameOf(builderId)} is away then, and ${added.buildsOnBenchThen.length} build(s) are on their bench: move them below.`,
+          );
+        },
+      },
+    );
+  };
+
+  return (
+    <Stack gap={1} component="section" aria-label="Builders away">
+      <Typography level="title-md" component="h2">
+        Builders away
+      </Typography>
+      {absences.data && absences.data.length === 0 && <Typography level="body-sm">Nobody is away.</Typography>}
+      {absences.data && absences.data.length > 0 && (
+        <Table size="sm" aria-label="Builders away">
+          <thead>
+            <tr>
+              <th>Builder</th>
+              <th>From</th>
+              <th>To</th>
+              <th>Why</th>
+              {canEdit && <th style={{ width: 90 }} />}
+            </tr>
+          </thead>
+          <tbody>
+            {absences.data.map((a) => (
+              <tr key={a.id}>
+                <td>{nameOf(a.builderId)}</td>
+                <td>{formatDay(a.startsOn)}</td>
+                <td>{formatDay(a.endsOn)}</td>
+                <td>{a.reason}</td>
+                {canEdit && (
+                  <td>
+                    <Button size="sm" variant="plain" color="danger" onClick={() => remove.mutate(a.id, { onSuccess: () => onSaved('Absence removed.') })}>
+                      Remove
+                    </Button>
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </Table>
+      )}
+      <ErrorNote error={absences.error ?? remove.error} />
+      {hit && <BuildsToMove builds={hit.builds} reason={hit.reason} onDone={onSaved} />}
+      {canEdit && (
+        <Stack direction="row" gap={1} alignItems="flex-end" flexWrap="wrap">
+          <FormControl size="sm">
+            <FormLabel id="absence-builder">Builder</FormLabel>
+            <Select size="sm" aria-labelledby="absence-builder" value={builderId} onChange={(_, v) => setBuilderId(v)} sx={{ minWidth: 180 }}>
+              {team.map((m) => (
+                <Option key={m.id} value={m.id}>
+                  {m.name}
+                </Option>
+              ))}
+            </Select>
+          </FormControl>
+          <FormControl size="sm">
+            <FormLabel>First day away</FormLabel>
+            <Input type="date" value={startsOn} onChange={(e) => setStartsOn(e.target.value)} />
+          </FormControl>
+          <FormControl size="sm">
+            <FormLabel>Last day away</FormLabel>
+            <Input type="date" value={endsOn} onChange={(e) => setEndsOn(e.target.value)} />
+          </FormControl>
+          <FormControl size="sm" sx={{ flex: 1, minWidth: 160 }}>
+            <FormLabel>Why (only the shop sees it)</FormLabel>
+            <Input value={reason} onChange={(e) => setReason(e.target.value)} />
+          </FormControl>
+          <Button size="sm" onClick={submit} loading={add.isPending}>
+            Add absence
+          </Button>
+        </Stack>
+      )}
+      {errors.length > 0 && (
+        <Alert color="danger" variant="soft" role="alert">
+          {errors.join(' ')}
+        </Alert>
+      )}
+      <ErrorNote error={add.error} />
+    </Stack>
+  );
+}
