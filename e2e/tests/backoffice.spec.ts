@@ -119,7 +119,9 @@ test('a builder accepts a paid request at the suggested bench date and sees it o
   await page.screenshot({ path: shots('bench-week'), fullPage: true });
 
   await page.getByRole('button', { name: 'Month' }).click();
-  await expect(page.getByRole('region', { name: "Teodor Lind's bench this month" })).toBeVisible();
+  // One grid for every builder; the signed-in builder's month total is named above it.
+  await expect(page.getByRole('grid', { name: 'Bench this month, every builder' })).toBeVisible();
+  await expect(page.getByRole('list', { name: 'Booked this month' })).toContainText('Teodor Lind');
   await page.screenshot({ path: shots('bench-month'), fullPage: true });
 
   // And the API agrees: scheduled with that builder on that date.

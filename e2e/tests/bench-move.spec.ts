@@ -44,7 +44,7 @@ async function paidRequest(baseURL: string, page: Page, email: string, password:
   });
   expect(created.status(), await created.text()).toBe(201);
   const booking = await created.json();
-  const { url } = await (await player.post(`/api/bookings/${booking.id}/checkout`)).json();
+  const { url } = await (await player.post(`/api/bookings/${booking.id}/checkout`, { data: {} })).json();
   await page.goto(url);
   await page.getByLabel('Card number').fill('4242 4242 4242 4242');
   await page.getByLabel('Expiry (MM/YY)').fill('12/34');

@@ -140,6 +140,8 @@ export class BenchChangesService {
       booking,
       user,
       `Moved to ${formatDay(plan.benchDate)}${previousDate ? ` from ${formatDay(previousDate)} (${shift})` : ''} with ${who}; expected completion ${formatDay(plan.expectedCompletion)}. Why: ${input.reason}${priceNote}${levelNote}`,
+      // The player is mailed the same reason, price and level words, so the timeline shows them too.
+      'player',
     );
     await this.builds.updateBooking(trx, bookingId, MOVABLE, {
       builder_id: builder.id,
@@ -307,7 +309,7 @@ export class BenchChangesService {
       if (accept) {
         await this.builds.updateBooking(trx, booking.id, [booking.state], { price_consent: 'given' });
         const firm = await this.builds.latestFirmQuote(trx, booking.id);
-        await this.history.note(trx, booking, user, `The player agreed to the firm total of ${firm?.total ?? '?'} ${firm?.currency.trim() ?? ''}.`.replace(/ \.$/, '.'));
+        await this.history.note(trx, booking, user, `The player agreed to the firm total of ${firm?.total ?? '?'} ${firm?.currency.trim() ?? ''}.`.replace(/ \.$/, '.'), 'player');
         return;
       }
       await this.cancelIn(trx, user, booking.id, 'the firm price above the estimate was not agreed, so the whole deposit is refunded', 'player', CANCELLABLE);
