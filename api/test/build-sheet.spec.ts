@@ -95,6 +95,12 @@ describe('GET /api/bookings/:id/build-sheet', () => {
       expect(flat).toContain(patch);
     }
     expect(flat).toContain('Loop assignments');
+    // One numbering for the chain, the loops, the cables and the drawing's key: buffer 1, tuner 2,
+    // wah 3, switcher 4, then its loops from 5 (fuzz first).
+    expect(flat).toContain('4. Loop switcher (loops 1–10: 5, 6, 7, 8, 9, 10, 11, 12, 13, 14)');
+    expect(flat).toContain('4 Loop switcher loop 1 send');
+    expect(flat).toContain('5 fuzz input');
+    expect(flat).toMatch(/1 Input\/output buffer · 2 Tuner · 3 Wah · 4 Loop switcher · 5 fuzz/);
     expect(flat).toContain('Power assignment');
     expect(flat).toContain('14 DC barrel plugs');
     expect(flat).toContain('Stereo output');

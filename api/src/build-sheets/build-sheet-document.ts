@@ -113,13 +113,19 @@ class Sheet {
     const top = this.doc.y + 4;
     this.doc.lineWidth(1).rect(MARGIN, top, fit.usableWidthMm * scale, h).stroke();
     this.doc.fontSize(6.5);
-    fit.layout.forEach((p, i) => {
-      this.doc.lineWidth(0.5).rect(MARGIN + p.x * scale, top + p.y * scale, p.widthMm * scale, p.depthMm * scale).stroke();
-      this.doc.text(`${i + 1}`, MARGIN + p.x * scale + 2, top + p.y * scale + 2, { width: p.widthMm * scale - 4, lineBreak: false });
-    });
+    this.doc.fontSize(8);
+    for (const p of fit.layout) {
+      const rect = this.doc.lineWidth(0.5).rect(MARGIN + p.x * scale, top + p.y * scale, p.widthMm * scale, p.depthMm * scale);
+      if (p.group === 'loop') rect.dash(3, { space: 2 }).stroke().undash();
+      else rect.stroke();
+      this.doc.text(`${p.number}`, MARGIN + p.x * scale + 2, top + p.y * scale + 2, { width: p.widthMm * scale - 4, lineBreak: false });
+    }
     this.doc.fontSize(9.5);
     this.doc.y = top + h + 6;
-    this.paragraph(`Top view, the player's side at the bottom. ${fit.layout.map((p, i) => `${i + 1} ${p.device}`).join(' · ')}`);
+    const key = [...fit.layout].sort((a, b) => a.number - b.number);
+    this.paragraph(
+      `Top view, the player's side at the bottom; signal in at the right, out at the left; dashed outlines are switcher loops. ${key.map((p) => `${p.number} ${p.device}`).join(' · ')}`,
+    );
   }
 
   footer(text: string) {
@@ -169,9 +175,10 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   sheet.bullets(benchCautions);
 
   sheet.heading('Signal chain');
-  const chainLines = chain.main.map((id, i) => {
+  // The same numbers as the layout drawing and the cable schedule: the loops follow the switcher.
+  const chainLines = chain.main.map((id) => {
     const d = byId.get(id)!;
-    return `${i + 1}. ${d.name}${id === chain.switcherId ? ` (loops ${chain.loops.length ? `1–${chain.loops.length}` : 'none'})` : ''}`;
+    return `${d.number}. ${d.name}${id === chain.switcherId ? ` (loops ${chain.loops.length ? `1–${chain.loops.length}: ${chain.loops.map((l) => byId.get(l.deviceId)!.number).join(', ')}` : 'none'})` : ''}`;
   });
   sheet.paragraph(`Guitar in, then ${chainLines.join(', then ')}, then out to the amp.`);
 
@@ -181,7 +188,7 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
       ['Loop', 'Pedal', 'Supply'],
       chain.loops.map(({ loop, deviceId }) => {
         const d = byId.get(deviceId)!;
-        return [String(loop), d.name, d.powered ? `${d.voltage} V, ${ma(d.budgetMa)}${d.drawFromMemory ? ' (assumed)' : ''}` : 'passive'];
+        return [String(loop), `${d.number} ${d.name}`, d.powered ? `${d.voltage} V, ${ma(d.budgetMa)}${d.drawFromMemory ? ' (assumed)' : ''}` : 'passive'];
       }),
       [0.1, 0.55, 0.35],
     );
@@ -211,13 +218,21 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
     );
     sheet.paragraph(`No supply listed: ${ma(power.totalDrawMa)} (${watts(power.totalDrawW)}) in all. Check the customer's supply at intake.`);
   }
+  if (power.fixes.length) sheet.bullets(power.fixes.map((f) => `To fix: ${f}`));
   if (power.warnings.length) sheet.bullets(power.warnings);
 
   sheet.heading('Cable schedule');
   const cables = checks.cableSchedule;
   sheet.table(
     ['#', 'From', 'To', 'Length', 'Spare', 'Plugs'],
-    cables.patches.map((c) => [String(c.number), c.from, c.to, `${c.lengthFeet} ft`, `${c.spareFeet} ft`, String(c.plugs)]),
+    cables.patches.map((c) => [
+      String(c.number),
+      c.fromDevice === null ? c.from : `${c.fromDevice} ${c.from}`,
+      c.toDevice === null ? c.to : `${c.toDevice} ${c.to}`,
+      `${c.lengthFeet} ft`,
+      `${c.spareFeet} ft`,
+      String(c.plugs),
+    ]),
     [0.05, 0.33, 0.33, 0.1, 0.1, 0.09],
   );
   sheet.paragraph(`${cables.patchCount} patch cables, ${cables.plugCount} plugs, ${cables.cableFeet} ft of cable including ${cables.spareFeet} ft spare.`, { bold: true });

@@ -25,9 +25,12 @@ export class BuildSheetsService {
     if (!published) throw new NotFoundException(`Price book version ${quote.price_book_version} of this quote is missing`);
     const book = published.book;
     const configuration = quote.configuration;
-    // Quotes written before the checks existed are re-derived from their own version.
+    // Quotes written before the checks existed, or before they numbered the signal chain, get
+    // their checks re-derived from their own version; the prices stay as quoted.
     let estimate: EstimateResult = quote.estimate;
-    if (!estimate.checks) estimate = estimateRig(configuration, book, { version: quote.price_book_version });
+    if (!estimate.checks || estimate.checks.signalChain.devices.some((d) => !d.number)) {
+      estimate = { ...estimate, checks: estimateRig(configuration, book, { version: quote.price_book_version }).checks };
+    }
     const checks = estimate.checks as RigChecks;
     const pdf = await renderBuildSheet({
       shopName: (await this.sheets.findShopName())?.name ?? 'Loomwright',

@@ -20,12 +20,16 @@ describe('board fit', () => {
     const chain = signalChainOf(fourSquares);
     const exact = boardFitOf(chain, surface('exact', 230, 230), []);
     expect(exact).toMatchObject({ requiredAreaMm2: 52900, usableAreaMm2: 52900, fillRatio: 1, areaFits: true, layoutFits: true, status: 'ok' });
-    expect(exact.layout.map((l) => [l.row, l.x, l.y])).toEqual([
-      [0, 7.5, 122.5],
-      [0, 122.5, 122.5],
-      [1, 7.5, 7.5],
-      [1, 122.5, 7.5],
+    // In signal order, right to left along the back row, then the next row forward (rows counted
+    // from the front): a at the back right, b back left, c front right, d front left; 15 mm
+    // between neighbours and none at the rim, so the right-hand pedals sit flush with it.
+    expect(exact.layout.map((l) => [l.device, l.number, l.row, l.x, l.y])).toEqual([
+      ['a', 1, 1, 130, 0],
+      ['b', 2, 1, 15, 0],
+      ['c', 3, 0, 130, 115],
+      ['d', 4, 0, 15, 115],
     ]);
+    expect(exact.layoutKind).toBe('signal');
     const short = boardFitOf(chain, surface('short', 229, 230), [surface('short', 229, 230), surface('exact', 230, 230), surface('big', 500, 500)]);
     expect(short).toMatchObject({ requiredAreaMm2: 52900, usableAreaMm2: 52670, areaFits: false, layoutFits: false, status: 'problem', smallestFittingSurfaceId: 'exact' });
   });
@@ -54,5 +58,62 @@ describe('board fit', () => {
         expect(apart).toBe(true);
       }
     }
+  });
+});
+
+// The layout rules below are common practice in the trade, no published source: the signal runs
+// from the input at the right to the output at the left as the player stands at the board; the
+// switcher and treadles sit in the front row on a tiered board whose description says so.
+describe('layout in signal order', () => {
+  const tiered = demoPriceBook.surfaces.find((s) => s.id === 'ridge-81')!;
+  const switcherRig: RigConfiguration = {
+    ...referenceBoard('switcher', 'master'),
+    surfaceId: 'ridge-81',
+    pedals: [
+      { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false },
+      { name: 'Wah', kind: 'treadle', powered: true, inLoop: false },
+      ...['Fuzz', 'Drive', 'Chorus', 'Delay'].map((name) => ({ name, kind: 'compact' as const, powered: true, inLoop: true })),
+    ],
+  };
+
+  it('puts the switcher and the wah in the front row of a tiered board that says so, the rest behind in signal order, input at the right', () => {
+    expect(tiered.layout).toMatchObject({ tiered: true, switcherRow: 'front' });
+    const chain = signalChainOf(switcherRig);
+    const fit = boardFitOf(chain, tiered, demoPriceBook.surfaces);
+    expect(fit.layoutKind).toBe('signal');
+    const at = (name: string) => fit.layout.find((p) => p.device === name)!;
+    expect(at('Loop switcher').row).toBe(0);
+    expect(at('Wah').row).toBe(0);
+    expect(at('Loop switcher').group).toBe('front');
+    for (const name of ['Tuner', 'Fuzz', 'Drive', 'Chorus', 'Delay']) expect(at(name).row).toBeGreaterThan(0);
+    // Signal order right to left: each later pedal in the back row sits further left.
+    const back = fit.layout.filter((p) => p.row > 0).sort((a, b) => a.number - b.number);
+    for (let i = 1; i < back.length; i++) expect(back[i].x).toBeLessThan(back[i - 1].x);
+  });
+
+  it('numbers the drawing as the signal meets the pedals, the loops right after the switcher, and the cable list uses the same numbers', () => {
+    const r = estimateRig(switcherRig, demoPriceBook, { version: 1 });
+    const { boardFit, signalChain, cableSchedule } = r.checks!;
+    const numberOf = Object.fromEntries(signalChain.devices.map((d) => [d.name, d.number]));
+    // Guitar → tuner → wah → switcher → loops 1–4 (fuzz, drive, chorus, delay).
+    expect(numberOf).toEqual({ Tuner: 1, Wah: 2, 'Loop switcher': 3, Fuzz: 4, Drive: 5, Chorus: 6, Delay: 7 });
+    for (const p of boardFit.layout) expect(p.number).toBe(numberOf[p.device]);
+    const send = cableSchedule.patches.find((c) => c.purpose === 'loop_send' && c.to.startsWith('Chorus'))!;
+    expect([send.fromDevice, send.toDevice]).toEqual([3, 6]);
+  });
+
+  it('puts the switcher at the back where the surface says so', () => {
+    const backSwitcher: SurfaceItem = { ...tiered, layout: { rows: 2, tiered: true, switcherRow: 'back' } };
+    const fit = boardFitOf(signalChainOf(switcherRig), backSwitcher, []);
+    const rows = Math.max(...fit.layout.map((p) => p.row));
+    expect(fit.layout.find((p) => p.device === 'Loop switcher')!.row).toBe(rows);
+    expect(fit.layout.find((p) => p.device === 'Wah')!.row).toBe(0);
+  });
+
+  it('never uses more tiers than a tiered board has: too many pedals for its tiers are packed instead, and said so', () => {
+    const many: RigConfiguration = { ...switcherRig, pedals: [...switcherRig.pedals!, ...Array.from({ length: 8 }, (_, i) => ({ name: `Extra ${i + 1}`, kind: 'compact' as const, powered: true, inLoop: true }))] };
+    const fit = boardFitOf(signalChainOf(many), tiered, []);
+    expect(fit.layoutKind).toBe('packed');
+    expect(fit.warnings.some((w) => w.includes('signal order'))).toBe(true);
   });
 });

@@ -1,4 +1,5 @@
-import type { SurfaceItem } from '../price-book/types';
+import type { SurfaceItem, SurfaceLayout } from '../price-book/types';
+import { signalOrder } from './signal-chain';
 import type { BoardFit, LayoutPlacement, RigDevice, SignalChain } from './types';
 
 /**
@@ -28,11 +29,11 @@ interface Segment {
  * builder may still find a tighter layout.
  */
 export function rowLayout(devices: RigDevice[], widthMm: number, depthMm: number, spacingMm = SPACING_MM): RowLayout {
+  const placed: Array<{ d: RigDevice; x: number; offset: number; h: number }> = [];
   const items = devices
     .map((d) => ({ d, w: d.widthMm + spacingMm, h: d.depthMm + spacingMm }))
     .sort((a, b) => b.h - a.h || b.w - a.w);
   let skyline: Segment[] = [{ x: 0, width: widthMm, filled: 0 }];
-  const placed: Array<{ d: RigDevice; x: number; offset: number; h: number }> = [];
   const unplaced: string[] = [];
   for (const item of items) {
     let best: { x: number; offset: number } | null = null;
@@ -53,6 +54,9 @@ export function rowLayout(devices: RigDevice[], widthMm: number, depthMm: number
   const bands = [...new Set(placed.map((p) => p.offset))].sort((a, b) => a - b);
   const placements = placed.map(({ d, x, offset, h }) => ({
     device: d.name,
+    deviceId: d.id,
+    number: d.number,
+    group: groupOf(d, 'front'),
     row: bands.indexOf(offset),
     x: x + spacingMm / 2,
     // The front edge is y = depthMm in the top view; the first row sits against it.
@@ -60,6 +64,82 @@ export function rowLayout(devices: RigDevice[], widthMm: number, depthMm: number
     widthMm: d.widthMm,
     depthMm: d.depthMm,
   }));
+  return { fits: unplaced.length === 0, placements, unplaced };
+}
+
+const groupOf = (d: RigDevice, switcherRow: SurfaceLayout['switcherRow']): LayoutPlacement['group'] =>
+  d.kind === 'treadle' || (d.kind === 'switcher' && switcherRow === 'front') ? 'front' : d.loop !== null ? 'loop' : 'chain';
+
+/** A surface the price book gives no layout for: rows of about 150 mm from its depth, switcher at the front. */
+export const defaultSurfaceLayout = (depthMm: number): SurfaceLayout => ({ rows: Math.max(1, Math.floor(depthMm / 150)), tiered: false, switcherRow: 'front' });
+
+/**
+ * The layout a builder starts from (common practice, no published source): the signal enters at
+ * the right and leaves at the left as seen by the player standing at the board, pedals run in
+ * signal order right to left along the back row, then the next row forward; treadles and (where
+ * the surface says so) the switcher take the front row, under the player's feet. A tiered
+ * board's tiers are its rows and are never exceeded; a flat board takes another row if its depth
+ * allows.
+ */
+export function signalFlowLayout(chain: SignalChain, widthMm: number, depthMm: number, surfaceLayout: SurfaceLayout, spacingMm = SPACING_MM): RowLayout {
+  // Each footprint is grown by the spacing, half on each side; at the board's edges that half
+  // may reach the rim, so the grown boxes fill an area one spacing wider and deeper.
+  const W = widthMm + spacingMm;
+  const D = depthMm + spacingMm;
+  const byId = new Map(chain.devices.map((d) => [d.id, d]));
+  const ordered = signalOrder(chain).map((id) => byId.get(id)!).filter(Boolean);
+  const front = ordered.filter((d) => groupOf(d, surfaceLayout.switcherRow) === 'front');
+  const backSwitcher = surfaceLayout.switcherRow === 'back' ? ordered.filter((d) => d.kind === 'switcher') : [];
+  const rest = [...backSwitcher, ...ordered.filter((d) => !front.includes(d) && !backSwitcher.includes(d))];
+  const restRows = Math.max(1, surfaceLayout.rows - (front.length ? 1 : 0));
+
+  // Rows from the back; each filled from the right.
+  const rows: RigDevice[][] = [];
+  let used = Infinity;
+  for (const d of rest) {
+    const w = d.widthMm + spacingMm;
+    if (used + w > W) {
+      rows.push([]);
+      used = 0;
+    }
+    rows[rows.length - 1].push(d);
+    used += w;
+  }
+  if (front.length) rows.push(front);
+  const unplaced: string[] = [];
+  const height = (row: RigDevice[]) => Math.max(0, ...row.map((d) => d.depthMm + spacingMm));
+  const frontHeight = front.length ? height(front) : 0;
+  const placements: LayoutPlacement[] = [];
+  let top = 0;
+  rows.forEach((row, r) => {
+    const isFront = front.length > 0 && r === rows.length - 1;
+    const h = height(row);
+    const tooMany = !isFront && surfaceLayout.tiered && r >= restRows;
+    const tooDeep = isFront ? top + h > D : top + h + frontHeight > D;
+    let x = W;
+    for (const d of row) {
+      const w = d.widthMm + spacingMm;
+      if (tooMany || tooDeep || x - w < -0.001) {
+        unplaced.push(d.name);
+        continue;
+      }
+      x -= w;
+      placements.push({
+        device: d.name,
+        deviceId: d.id,
+        number: d.number,
+        group: groupOf(d, surfaceLayout.switcherRow),
+        // Rows numbered from the front (0) to the back, as the packed layout numbers them.
+        row: rows.length - 1 - r,
+        x,
+        // The front row sits against the front edge (y = depthMm); the others stack from the back.
+        y: isFront ? depthMm - d.depthMm : top,
+        widthMm: d.widthMm,
+        depthMm: d.depthMm,
+      });
+    }
+    if (!isFront && !tooMany && !tooDeep) top += h;
+  });
   return { fits: unplaced.length === 0, placements, unplaced };
 }
 
@@ -108,8 +188,11 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
   const requiredAreaMm2 = areaWithSpacing(devices, spacingMm);
   const usableAreaMm2 = surface.widthMm * surface.depthMm;
   const areaFits = requiredAreaMm2 <= usableAreaMm2;
-  const layout = rowLayout(devices, surface.widthMm, surface.depthMm, spacingMm);
-  const layoutFits = areaFits && layout.fits;
+  const surfaceLayout = surface.layout ?? defaultSurfaceLayout(surface.depthMm);
+  const flow = signalFlowLayout(chain, surface.widthMm, surface.depthMm, surfaceLayout, spacingMm);
+  const packed = flow.fits ? flow : rowLayout(devices, surface.widthMm, surface.depthMm, spacingMm);
+  const layout = flow.fits || !packed.fits ? flow : packed;
+  const layoutFits = areaFits && (flow.fits || packed.fits);
 
   // Smallest by area first; the chosen surface's own layout is already known.
   const smallest = [...surfaces]
@@ -117,7 +200,9 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
     .find((s) =>
       s.id === surface.id
         ? layoutFits
-        : requiredAreaMm2 <= s.widthMm * s.depthMm && rowLayout(devices, s.widthMm, s.depthMm, spacingMm).fits,
+        : requiredAreaMm2 <= s.widthMm * s.depthMm &&
+          (signalFlowLayout(chain, s.widthMm, s.depthMm, s.layout ?? defaultSurfaceLayout(s.depthMm), spacingMm).fits ||
+            rowLayout(devices, s.widthMm, s.depthMm, spacingMm).fits),
     );
 
   const warnings: string[] = [];
@@ -125,8 +210,10 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
     warnings.push(
       `The pedals need about ${Math.round(requiredAreaMm2 / 100) / 100} dm² with room for plugs, more than the ${surface.name}'s ${Math.round(usableAreaMm2 / 100) / 100} dm².`,
     );
-  } else if (!layout.fits) {
-    warnings.push(`A plain row layout does not fit on the ${surface.name} (${layout.unplaced.join(', ')} left over); a builder may still find a tighter layout.`);
+  } else if (!flow.fits && packed.fits) {
+    warnings.push(`In signal order the pedals do not fit the ${surface.name}'s ${surfaceLayout.rows} ${surfaceLayout.tiered ? 'tiers' : 'rows'}; the drawing packs them tighter, out of signal order, and the builder settles the layout with you.`);
+  } else if (!layoutFits) {
+    warnings.push(`A layout in rows does not fit on the ${surface.name} (${layout.unplaced.join(', ')} left over); a builder may still find a tighter layout.`);
   }
   if (!layoutFits) {
     warnings.push(smallest ? `The smallest surface that holds them in rows is the ${smallest.name}.` : 'No surface in the price book holds them in rows; ask about a custom surface.');
@@ -136,7 +223,7 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
   }
   const fillRatio = Math.round((requiredAreaMm2 / usableAreaMm2) * 1000) / 1000;
   return {
-    status: !areaFits ? 'problem' : !layout.fits ? 'warning' : 'ok',
+    status: !areaFits ? 'problem' : !layoutFits ? 'warning' : 'ok',
     surfaceId: surface.id,
     usableWidthMm: surface.widthMm,
     usableDepthMm: surface.depthMm,
@@ -148,6 +235,9 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
     areaFits,
     layoutFits,
     layout: layout.placements,
+    layoutKind: layout === flow ? 'signal' : 'packed',
+    rows: surfaceLayout.rows,
+    tiered: surfaceLayout.tiered,
     unplaced: layout.unplaced,
     smallestFittingSurfaceId: smallest?.id ?? null,
     warnings,

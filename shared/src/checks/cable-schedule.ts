@@ -15,12 +15,15 @@ export function cableScheduleOf(chain: SignalChain, functions: FunctionItem[], r
   const lengthText = lengthFeet.toFixed(2);
   const spareText = spareFeet.toFixed(2);
   const names = new Map(chain.devices.map((d) => [d.id, d.name]));
+  const numbers = new Map(chain.devices.map((d) => [d.id, d.number]));
   const patches: PatchCable[] = [];
-  const add = (from: string, to: string, purpose: PatchCable['purpose']) =>
+  const add = (from: string, to: string, purpose: PatchCable['purpose'], fromId?: string, toId?: string) =>
     patches.push({
       number: patches.length + 1,
       from,
       to,
+      fromDevice: fromId ? (numbers.get(fromId) ?? null) : null,
+      toDevice: toId ? (numbers.get(toId) ?? null) : null,
       purpose,
       lengthFeet: lengthText,
       spareFeet: spareText,
@@ -29,13 +32,13 @@ export function cableScheduleOf(chain: SignalChain, functions: FunctionItem[], r
   const nameOf = (id: string) => names.get(id) ?? id;
 
   for (let i = 0; i + 1 < chain.main.length; i++) {
-    add(`${nameOf(chain.main[i])} output`, `${nameOf(chain.main[i + 1])} input`, 'chain');
+    add(`${nameOf(chain.main[i])} output`, `${nameOf(chain.main[i + 1])} input`, 'chain', chain.main[i], chain.main[i + 1]);
   }
   if (chain.switcherId) {
     const switcher = nameOf(chain.switcherId);
     for (const { loop, deviceId } of chain.loops) {
-      add(`${switcher} loop ${loop} send`, `${nameOf(deviceId)} input`, 'loop_send');
-      add(`${nameOf(deviceId)} output`, `${switcher} loop ${loop} return`, 'loop_return');
+      add(`${switcher} loop ${loop} send`, `${nameOf(deviceId)} input`, 'loop_send', chain.switcherId, deviceId);
+      add(`${nameOf(deviceId)} output`, `${switcher} loop ${loop} return`, 'loop_return', deviceId, chain.switcherId);
     }
   }
   for (const fn of functions) {

@@ -19,6 +19,7 @@ function deviceFrom(pedal: PedalInput, listIndex: number | null, loop: number | 
   const hasFootprint = pedal.widthMm !== undefined && pedal.depthMm !== undefined;
   return {
     id: listIndex === null ? 'switcher' : `p${listIndex + 1}`,
+    number: 0,
     listIndex,
     name: pedal.name,
     kind,
@@ -65,7 +66,7 @@ export function signalChainOf(config: RigConfiguration): SignalChain {
       devices.push(device);
       main.push(device.id);
     });
-    return { routing: 'serial', devices, main, loops, switcherId: null };
+    return numbered({ routing: 'serial', devices, main, loops, switcherId: null });
   }
 
   const listedSwitcher = pedals.findIndex((p) => kindOf(p) === 'switcher');
@@ -98,7 +99,23 @@ export function signalChainOf(config: RigConfiguration): SignalChain {
     main.push(device.id);
   });
   placeSwitcher();
-  return { routing: 'switcher', devices, main, loops, switcherId: switcher.id };
+  return numbered({ routing: 'switcher', devices, main, loops, switcherId: switcher.id });
+}
+
+/** Device ids in the order the signal meets them: the main chain, each loop right after the switcher. */
+export function signalOrder(chain: Pick<SignalChain, 'main' | 'loops' | 'switcherId'>): string[] {
+  const order: string[] = [];
+  for (const id of chain.main) {
+    order.push(id);
+    if (id === chain.switcherId) for (const { deviceId } of chain.loops) order.push(deviceId);
+  }
+  return order;
+}
+
+function numbered(chain: SignalChain): SignalChain {
+  const numbers = new Map(signalOrder(chain).map((id, i) => [id, i + 1]));
+  for (const d of chain.devices) d.number = numbers.get(d.id) ?? 0;
+  return chain;
 }
 
 export function deviceById(chain: SignalChain, id: string): RigDevice {

@@ -7,6 +7,11 @@ export type CheckStatus = 'ok' | 'warning' | 'problem' | 'unknown';
 /** One device on the board, with the figures the checks use (the player's own, or typical ones). */
 export interface RigDevice {
   id: string;
+  /**
+   * Position in the signal's path, from 1 at the guitar: the main chain in order, each switcher
+   * loop right after the switcher. The drawing, the cable list and the build sheet all use it.
+   */
+  number: number;
   /** Position in the player's pedal list; null for the switcher the routing implies. */
   listIndex: number | null;
   name: string;
@@ -44,6 +49,9 @@ export interface PatchCable {
   number: number;
   from: string;
   to: string;
+  /** Signal numbers of the two ends' devices (null for a function's patch routed at the bench). */
+  fromDevice: number | null;
+  toDevice: number | null;
   purpose: 'chain' | 'loop_send' | 'loop_return' | 'function';
   lengthFeet: string;
   spareFeet: string;
@@ -136,6 +144,11 @@ export interface PowerBudget {
 
 export interface LayoutPlacement {
   device: string;
+  deviceId: string;
+  /** The device's signal number, printed on the drawing and listed in its key. */
+  number: number;
+  /** Where the drawing puts it: the main chain, a switcher loop, or the front row's switcher and treadles. */
+  group: 'chain' | 'loop' | 'front';
   row: number;
   /** Millimetres from the surface's back-left corner (a top view: x to the right, y towards the player). */
   x: number;
@@ -159,6 +172,10 @@ export interface BoardFit {
   areaFits: boolean;
   layoutFits: boolean;
   layout: LayoutPlacement[];
+  /** 'signal': in signal order, input on the right, front row for the switcher and treadles; 'packed': a tighter packing that gives up the order. */
+  layoutKind: 'signal' | 'packed';
+  rows: number;
+  tiered: boolean;
   unplaced: string[];
   smallestFittingSurfaceId: string | null;
   warnings: string[];

@@ -8,6 +8,9 @@ import Typography from '@mui/joy/Typography';
 import { useNavigate } from 'react-router';
 import { encodeConfiguration, quantityWithUnit } from '@loomwright/shared';
 import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/money';
+import { BoardFitView } from '../BoardFitView';
+import { CableList } from '../CableList';
+import { PowerBudgetView } from '../PowerBudgetView';
 import { PowerCautions } from '../PowerCautions';
 import { StepHeading } from '../StepHeading';
 import type { StepProps } from './step-props';
@@ -89,6 +92,13 @@ export default function ReviewStep({ catalog, configuration, live }: StepProps) 
             </Typography>
             <Typography level="body-sm" sx={{ mt: 0.5 }}>{catalog.depositPolicy.description}</Typography>
           </Box>
+          {e.checks ? (
+            <>
+              <BoardFitView fit={e.checks.boardFit} catalog={catalog} />
+              <CableList schedule={e.checks.cableSchedule} />
+              <PowerBudgetView budget={e.checks.powerBudget} />
+            </>
+          ) : null}
           {e.notes.length ? (
             <Box component="section" aria-labelledby="notes-heading">
               <Typography level="title-lg" component="h3" id="notes-heading">Notes from the checks</Typography>
