@@ -13,6 +13,7 @@ import { BuildSheetsModule } from './build-sheets/build-sheets.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
+import { QuotesModule } from './quotes/quotes.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
@@ -72,6 +73,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     CustomersModule,
     PriceBookModule,
     EstimatesModule,
+    QuotesModule,
     BuildSheetsModule,
   ],
 })

@@ -91,6 +91,7 @@ const matrix: Record<string, Entry> = {
   // price book and estimates
   'GET /api/catalog': open(200),
   'POST /api/estimates': open(400),
+  'POST /api/quotes/pdf': open(400),
   'GET /api/price-book': staff(200),
   'POST /api/price-book': ownerOnly(400),
   // bookings (players own theirs; staff see all)

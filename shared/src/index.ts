@@ -21,3 +21,4 @@ export * from './build-schemas';
 export * from './money';
 export * from './intake-checklist';
 export * from './shop-schemas';
+export * from './quote-schemas';

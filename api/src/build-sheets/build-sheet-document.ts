@@ -41,10 +41,10 @@ function fontsDir(): string {
   return dir;
 }
 
-const MARGIN = 48;
+export const MARGIN = 48;
 
 /** A small table writer over pdfkit: rows wrap within their columns and break pages cleanly. */
-class Sheet {
+export class Sheet {
   readonly doc: PDFKit.PDFDocument;
 
   constructor(title: string) {

@@ -8,6 +8,7 @@ import Typography from '@mui/joy/Typography';
 import { useNavigate } from 'react-router';
 import { encodeConfiguration, quantityWithUnit } from '@loomwright/shared';
 import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/money';
+import { useDownloadQuote } from '../../api/download-quote';
 import { BoardFitView } from '../BoardFitView';
 import { CableList } from '../CableList';
 import { PowerBudgetView } from '../PowerBudgetView';
@@ -17,6 +18,7 @@ import type { StepProps } from './step-props';
 
 export default function ReviewStep({ catalog, configuration, live }: StepProps) {
   const navigate = useNavigate();
+  const quote = useDownloadQuote();
   const e = live.estimate;
   const currency = e?.currency ?? catalog.currency;
   const materials = e?.lines.filter((l) => l.kind === 'materials') ?? [];
@@ -119,6 +121,18 @@ export default function ReviewStep({ catalog, configuration, live }: StepProps) 
           <Alert variant="soft" color="neutral">
             A loaded board in a road case is heavy: lift it with two people.
           </Alert>
+          <Box component="section" aria-labelledby="keep-heading">
+            <Typography level="title-lg" component="h3" id="keep-heading">Keep this quote</Typography>
+            <Typography level="body-sm" sx={{ mb: 1 }}>
+              A PDF with every line, the layout, the power plan, the patch cables and the cautions, priced from today’s price book.
+            </Typography>
+            <Button variant="outlined" loading={quote.isPending} onClick={() => quote.mutate(configuration)} disabled={!live.isCurrent}>
+              Download the quote (PDF)
+            </Button>
+            {quote.isError ? (
+              <Typography role="alert" level="body-sm" sx={{ color: 'danger.700', mt: 1 }}>{quote.error.message}</Typography>
+            ) : null}
+          </Box>
           <Box>
             <Button
               onClick={() => navigate(`/request?c=${encodeConfiguration(configuration)}`)}

@@ -1,0 +1,42 @@
+import { useMutation } from '@tanstack/react-query';
+import { ApiError, type RigConfiguration } from '@loomwright/shared';
+
+/**
+ * POST /api/quotes/pdf answers a PDF, not JSON, so it is fetched as a blob here; a refusal still
+ * arrives as JSON words and becomes an ApiError like any other.
+ */
+export async function downloadQuote(configuration: RigConfiguration): Promise<Blob> {
+  let response: Response;
+  try {
+    response = await fetch('/api/quotes/pdf', {
+      method: 'POST',
+      credentials: 'same-origin',
+      headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify({ configuration }),
+    });
+  } catch {
+    throw new ApiError(0, 'The shop could not be reached; check your connection and try again.');
+  }
+  if (!response.ok) {
+    const body = (await response.json().catch(() => ({}))) as { message?: string | string[] };
+    const words = Array.isArray(body.message) ? body.message.join('; ') : (body.message ?? `The quote could not be made (HTTP ${response.status}).`);
+    throw new ApiError(response.status, words);
+  }
+  return response.blob();
+}
+
+/** Saves the quote as a file the player keeps (and can print). */
+export const useDownloadQuote = () =>
+  useMutation({
+    mutationFn: downloadQuote,
+    onSuccess: (blob) => {
+      const url = URL.createObjectURL(blob);
+      const a = document.createElement('a');
+      a.href = url;
+      a.download = `loomwright-quote-${new Date().toISOString().slice(0, 10)}.pdf`;
+      document.body.append(a);
+      a.click();
+      a.remove();
+      window.setTimeout(() => URL.revokeObjectURL(url), 10_000);
+    },
+  });
