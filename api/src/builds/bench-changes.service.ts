@@ -20,13 +20,12 @@ import { formatDay } from '../mail/templates/format';
 import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
 import { assertLevelRule, assertTakesBuilds } from './builds.service';
+import { inBenchTransaction } from './bench-transaction';
 import { BuildsRepository } from './builds.repository';
 import { firmQuoteFigures } from './firm-quote';
 import { whatToShip } from './what-to-ship';
 
 /** PostgreSQL SQLSTATEs the bench constraints raise (PostgreSQL docs, Appendix A "Error Codes"). */
-const EXCLUSION_VIOLATION = '23P01';
-const CHECK_VIOLATION = '23514';
 
 /** A build can change its bench date or builder until work starts on it. */
 const MOVABLE: BookingState[] = ['scheduled', 'pedals_received'];
@@ -55,15 +54,7 @@ export class BenchChangesService {
   ) {}
 
   async reschedule(user: AuthUser, bookingId: string, input: RescheduleInput): Promise<RescheduleResponse> {
-    try {
-      return await this.db.transaction().execute((trx) => this.rescheduleIn(trx, user, bookingId, input));
-    } catch (error) {
-      const code = (error as { code?: string }).code;
-      if (code === EXCLUSION_VIOLATION || code === CHECK_VIOLATION) {
-        throw new ConflictException('That bench time was just taken; pick another date.');
-      }
-      throw error;
-    }
+    return inBenchTransaction(this.db, (trx) => this.rescheduleIn(trx, user, bookingId, input));
   }
 
   /**

@@ -3,6 +3,18 @@ import { sql, type Insertable, type Updateable } from 'kysely';
 import type { BookingState } from '@loomwright/shared';
 import { Database, Executor, type BookingsTable, type DecidedVia, type QuotesTable } from '../database/database';
 
+/** The columns an answer to an extra or a layout writes: the same for both kinds of approval. */
+function decisionColumns(decision: Decision) {
+  return {
+    status: decision.approve ? ('approved' as const) : ('declined' as const),
+    decided_at: sql<Date>`now()`,
+    decided_via: decision.via,
+    decided_by_name: decision.givenBy,
+    decision_comment: decision.comment,
+    recorded_by: decision.recordedBy,
+  };
+}
+
 @Injectable()
 export class BuildsRepository {
   constructor(private readonly db: Database) {}
@@ -212,14 +224,7 @@ export class BuildsRepository {
   decideExtra(trx: Executor, extraId: string, decision: Decision) {
     return trx
       .updateTable('booking_extras')
-      .set({
-        status: decision.approve ? 'approved' : 'declined',
-        decided_at: sql`now()`,
-        decided_via: decision.via,
-        decided_by_name: decision.givenBy,
-        decision_comment: decision.comment,
-        recorded_by: decision.recordedBy,
-      })
+      .set(decisionColumns(decision))
       .where('id', '=', extraId)
       .where('status', '=', 'proposed')
       .executeTakeFirst();
@@ -240,14 +245,7 @@ export class BuildsRepository {
   decideLayout(trx: Executor, id: string, decision: Decision) {
     return trx
       .updateTable('layout_approvals')
-      .set({
-        status: decision.approve ? 'approved' : 'declined',
-        decided_at: sql`now()`,
-        decided_via: decision.via,
-        decided_by_name: decision.givenBy,
-        decision_comment: decision.comment,
-        recorded_by: decision.recordedBy,
-      })
+      .set(decisionColumns(decision))
       .where('id', '=', id)
       .where('status', '=', 'waiting')
       .executeTakeFirst();

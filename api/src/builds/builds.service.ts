@@ -22,13 +22,12 @@ import { formatDay, formatMoney as formatMoneyWords } from '../mail/templates/fo
 import { PaymentsService } from '../payments/payments.service';
 import { deliveryHold } from '../bookings/booking-view';
 import { BuildHistory, stateWords } from './build-history';
+import { inBenchTransaction } from './bench-transaction';
 import { BuildsRepository } from './builds.repository';
 import { firmQuoteFigures } from './firm-quote';
 import { whatToShip } from './what-to-ship';
 
 /** PostgreSQL SQLSTATEs the bench constraints raise (PostgreSQL docs, Appendix A "Error Codes"). */
-const EXCLUSION_VIOLATION = '23P01';
-const CHECK_VIOLATION = '23514';
 
 /** Only a builder who is on the team and has joined (not a pending invitation) takes builds. */
 export function assertTakesBuilds(builder: { name: string; active: boolean; joined: boolean }) {
@@ -81,16 +80,7 @@ export class BuildsService {
   ) {}
 
   async accept(user: AuthUser, bookingId: string, dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
-    try {
-      return await this.db.transaction().execute((trx) => this.acceptIn(trx, user, bookingId, dto));
-    } catch (error) {
-      const code = (error as { code?: string }).code;
-      if (code === EXCLUSION_VIOLATION || code === CHECK_VIOLATION) {
-        // The database refused overlapping or over-capacity bench time: someone else got there first.
-        throw new ConflictException('That bench time was just taken; pick another date.');
-      }
-      throw error;
-    }
+    return inBenchTransaction(this.db, (trx) => this.acceptIn(trx, user, bookingId, dto));
   }
 
   private async acceptIn(trx: Executor, user: AuthUser, bookingId: string, dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
