@@ -290,6 +290,11 @@ describe('who may use the bench, team, settings and customers routes', () => {
     expect(gb.body).toMatchObject({ countryCode: 'GB', timezone: 'Europe/London' });
     // date-holidays (code ISC, data CC-BY-3.0): Christmas Day is a public holiday in Great Britain.
     expect(gb.body.upcomingHolidays.map((h: { name: string }) => h.name)).toContain('Christmas Day');
+    // The locale is a BCP 47 tag (canonical case per BCP 47 §2.1.1: language lower, region upper).
+    expect((await agents.owner.patch('/api/settings').send({ locale: 'de-de' }).expect(200)).body.locale).toBe('de-DE');
+    expect((await t.http().get('/api/shop').expect(200)).body).toMatchObject({ locale: 'de-DE', timezone: 'Europe/London' });
+    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ locale: 'not a locale' }).expect(400)).body.message)).toMatch(/language and region such as en-US/);
+    await agents.owner.patch('/api/settings').send({ locale: 'en-US' }).expect(200);
 
     const closure = await agents.owner.post('/api/settings/closures').send({ startsOn: '2030-01-02', endsOn: '2030-01-03', reason: 'Stocktake' }).expect(201);
     expect(closure.body).toMatchObject({ startsOn: '2030-01-02', endsOn: '2030-01-03', buildsOnBenchThen: [] });

@@ -11,6 +11,8 @@ export interface ShopProfile {
   currency: string;
   countryCode: string;
   timezone: string;
+  /** BCP 47 tag (en-US, de-DE): with currency and timezone, how every amount, date and time is written (`shopFormat`). */
+  locale: string;
   contactEmail: string;
 }
 

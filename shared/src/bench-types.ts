@@ -335,6 +335,7 @@ export interface ShopSettingsView {
   currency: string;
   countryCode: string;
   timezone: string;
+  locale: string;
   contactEmail: string;
   closures: ShopClosureView[];
   /** The public holidays of the shop's country in the coming twelve months (date-holidays). */

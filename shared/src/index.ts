@@ -22,3 +22,4 @@ export * from './money';
 export * from './intake-checklist';
 export * from './shop-schemas';
 export * from './quote-schemas';
+export * from './format/shop-format';

@@ -13,6 +13,32 @@ export function isTimeZone(name: string): boolean {
   }
 }
 
+/**
+ * A BCP 47 language tag the runtime can format with (ECMA-402 `Intl.getCanonicalLocales` and
+ * `supportedLocalesOf`), canonicalised: "de-de" → "de-DE".
+ */
+export function canonicalLocale(tag: string): string | undefined {
+  try {
+    const [canonical] = Intl.getCanonicalLocales(tag);
+    if (!canonical || !/^[a-z]{2,3}-[A-Z]{2}$/.test(canonical)) return undefined;
+    return Intl.NumberFormat.supportedLocalesOf([canonical]).length > 0 ? canonical : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * Locales the settings page offers (language and region, so dates and money read as the shop's
+ * customers expect); the API takes any tag `canonicalLocale` accepts.
+ */
+export const commonShopLocales = [
+  'en-US', 'en-CA', 'en-GB', 'en-IE', 'en-AU', 'en-NZ', 'de-DE', 'de-AT', 'de-CH', 'fr-FR', 'fr-CA', 'fr-BE', 'nl-NL',
+  'it-IT', 'es-ES', 'es-MX', 'pt-PT', 'pt-BR', 'sv-SE', 'nb-NO', 'da-DK', 'fi-FI', 'pl-PL', 'cs-CZ', 'hu-HU', 'ja-JP',
+  'ko-KR', 'zh-TW', 'id-ID', 'ar-KW',
+] as const;
+
+const localeWords = 'locale must be a language and region such as en-US or de-DE';
+
 const timeZoneWords = 'timezone must be an IANA time zone name like America/Chicago';
 const emailWords = 'contactEmail must be an e-mail address, like shop@example.com';
 
@@ -33,12 +59,18 @@ export const shopDetailsSchema = requestObject({
     .toUpperCase()
     .regex(/^[A-Z]{2}$/, { error: 'countryCode must be a two-letter ISO 3166-1 country code like US' }),
   timezone: z.string({ error: timeZoneWords }).trim().max(64, { error: timeZoneWords, abort: true }).refine(isTimeZone, { error: timeZoneWords }),
+  locale: z
+    .string({ error: localeWords })
+    .trim()
+    .max(35, { error: localeWords, abort: true })
+    .refine((tag) => canonicalLocale(tag) !== undefined, { error: localeWords, abort: true })
+    .transform((tag) => canonicalLocale(tag)!),
 });
 export type ShopDetailsInput = z.infer<typeof shopDetailsSchema>;
 
 /** PATCH /api/settings: any of the shop's details. */
 export const updateSettingsSchema = shopDetailsSchema.partial().refine((body) => Object.values(body).some((value) => value !== undefined), {
-  error: 'Send at least one of name, tagline, contactEmail, countryCode, timezone.',
+  error: 'Send at least one of name, tagline, contactEmail, countryCode, timezone, locale.',
 });
 export type UpdateSettingsInput = z.infer<typeof updateSettingsSchema>;
 

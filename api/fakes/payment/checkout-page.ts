@@ -1,14 +1,22 @@
 import type Stripe from 'stripe';
+import { amountExponent, majorUnits } from './currency-rules';
 import type { SessionExtra } from './store';
 import { TEST_ROUTING_NUMBER } from './test-cards';
 
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
+/** The amount as the fake reads the provider's tables (currency-rules.ts), never as the product does. */
 function money(minor: number, currency: string): string {
-  const code = currency.toUpperCase();
-  const digits = new Intl.NumberFormat('en', { style: 'currency', currency: code }).resolvedOptions().maximumFractionDigits ?? 2;
-  return new Intl.NumberFormat('en', { style: 'currency', currency: code }).format(minor / 10 ** digits);
+  const exp = amountExponent(currency);
+  // An ISK, HUF or TWD amount is whole units written in hundredths: show the whole units.
+  const shown = ['isk', 'huf', 'twd'].includes(currency.toLowerCase()) ? 0 : exp;
+  return new Intl.NumberFormat('en', {
+    style: 'currency',
+    currency: currency.toUpperCase(),
+    minimumFractionDigits: shown,
+    maximumFractionDigits: shown,
+  }).format(majorUnits(minor, currency) as unknown as number);
 }
 
 /**

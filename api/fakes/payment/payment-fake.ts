@@ -1,3 +1,4 @@
+import { checkAmountForCurrency } from './currency-rules';
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import qs from 'qs';
@@ -160,7 +161,7 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
       return {
         name: product.name,
         description: typeof product.description === 'string' ? product.description : null,
-        unitAmount: positiveInt(price.unit_amount, `line_items[${i}][price_data][unit_amount]`),
+        unitAmount: checkAmountForCurrency(positiveInt(price.unit_amount, `line_items[${i}][price_data][unit_amount]`), c, `line_items[${i}][price_data][unit_amount]`),
         quantity: positiveInt(item.quantity ?? 1, `line_items[${i}][quantity]`),
       };
     });
@@ -355,7 +356,7 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
       }
       reason = params.reason as Stripe.Refund.Reason;
     }
-    const amount = params.amount === undefined ? undefined : positiveInt(params.amount, 'amount');
+    const amount = params.amount === undefined ? undefined : checkAmountForCurrency(positiveInt(params.amount, 'amount'), intent.currency, 'amount');
     return makeRefund(intent, amount, reason, checkMetadata(params.metadata, 'metadata'));
   }
 

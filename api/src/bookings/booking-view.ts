@@ -13,9 +13,15 @@ import type {
   QuoteView,
   RigConfiguration,
 } from '@loomwright/shared';
-import { firmQuoteLines } from '@loomwright/shared';
+import { firmQuoteLines, formatMoney, fromProviderAmount } from '@loomwright/shared';
 import type { BookingEventRow, BookingListRow, ExtraRow, LayoutApprovalRow, PaymentRow, PhotoRow, QuoteRow } from './bookings.repository';
-import { fromMinorUnits } from '../payments/minor-units';
+
+/** A numeric column (always two decimals in the database) in the currency's own digits: "181.00" JPY → "181". */
+function amountIn(value: string, currency: string): string;
+function amountIn(value: string | null, currency: string): string | null;
+function amountIn(value: string | null, currency: string): string | null {
+  return value === null || !currency ? value : formatMoney(value, currency);
+}
 
 // Timestamps arrive as Date from pg; the Generated<ColumnType> wrapper hides that from the type.
 const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
@@ -49,12 +55,12 @@ export function quoteView(row: QuoteRow): QuoteView {
     estimate: row.estimate,
     lines: firm ? firmQuoteLines(row.estimate.lines, row.hourly_rate!, row.labor_total!, currency) : row.estimate.lines,
     laborHours: row.labor_hours,
-    totalLow: row.total_low,
-    totalHigh: row.total_high,
-    deposit: row.deposit,
-    hourlyRate: row.hourly_rate,
-    laborTotal: row.labor_total,
-    total: row.total,
+    totalLow: amountIn(row.total_low, currency),
+    totalHigh: amountIn(row.total_high, currency),
+    deposit: amountIn(row.deposit, currency),
+    hourlyRate: amountIn(row.hourly_rate, currency),
+    laborTotal: amountIn(row.labor_total, currency),
+    total: amountIn(row.total, currency),
     expiresAt: iso(row.expires_at),
     createdAt: iso(row.created_at),
   };
@@ -64,7 +70,7 @@ export function paymentView(row: PaymentRow): PaymentView {
   return {
     id: row.id,
     kind: row.kind,
-    amount: row.amount,
+    amount: amountIn(row.amount, row.currency.trim()),
     currency: row.currency.trim(),
     status: row.status,
     failureMessage: row.failure_message,
@@ -77,7 +83,7 @@ export function paymentView(row: PaymentRow): PaymentView {
       ? {
           status: row.dispute_status ?? 'needs_response',
           reason: row.dispute_reason ?? '',
-          amount: row.dispute_amount_minor ? fromMinorUnits(row.dispute_amount_minor, row.currency.trim()) : row.amount,
+          amount: row.dispute_amount_minor ? fromProviderAmount(row.dispute_amount_minor, row.currency.trim()) : row.amount,
           openedAt: iso(row.dispute_opened_at ?? row.created_at),
           releasedAt: row.dispute_released_at ? iso(row.dispute_released_at) : null,
           releasedBy: row.dispute_released_by,
@@ -177,6 +183,7 @@ export function pickQuotes(quotes: QuoteRow[]): { estimate: QuoteRow | undefined
 export function summaryView(row: BookingListRow, quotes: QuoteRow[]): BookingSummary {
   const { estimate, firm } = pickQuotes(quotes);
   const config = row.configuration;
+  const currency = (firm ?? estimate)?.currency.trim() ?? '';
   return {
     id: row.id,
     reference: row.reference,
@@ -188,12 +195,12 @@ export function summaryView(row: BookingListRow, quotes: QuoteRow[]): BookingSum
         : null,
     benchDate: row.bench_date,
     expectedCompletion: row.expected_completion,
-    currency: (firm ?? estimate)?.currency.trim() ?? '',
+    currency,
     laborHours: (firm ?? estimate)?.labor_hours ?? '0',
-    totalLow: estimate?.total_low ?? '0',
-    totalHigh: estimate?.total_high ?? '0',
-    firmTotal: firm?.total ?? null,
-    deposit: estimate?.deposit ?? '0',
+    totalLow: amountIn(estimate?.total_low ?? '0', currency),
+    totalHigh: amountIn(estimate?.total_high ?? '0', currency),
+    firmTotal: amountIn(firm?.total ?? null, currency),
+    deposit: amountIn(estimate?.deposit ?? '0', currency),
     depositStatus: row.deposit_status,
     pedalCount: pedalCountOf(config),
     routingMode: config.routing?.mode === 'switcher' ? 'switcher' : 'serial',

@@ -33,6 +33,7 @@ export interface ShopSettingsTable {
   currency: string;
   country_code: string;
   timezone: string;
+  locale: Generated<string>;
   contact_email: string;
   updated_at: Timestamp;
 }

@@ -1,3 +1,4 @@
+import { fromProviderAmount } from '@loomwright/shared';
 import { BadRequestException, Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import Stripe from 'stripe';
@@ -6,7 +7,6 @@ import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { ShopService } from '../shop/shop.service';
-import { fromMinorUnits } from './minor-units';
 import { PaymentsRepository, type PaymentRow } from './payments.repository';
 import { money, PaymentsService, providerActor as provider } from './payments.service';
 
@@ -345,7 +345,7 @@ export class PaymentWebhooksService {
     }
     if (payment.dispute_id === dispute.id && payment.dispute_status === dispute.status) return;
     const isNew = payment.dispute_id !== dispute.id;
-    const amount = `${fromMinorUnits(dispute.amount, payment.currency.trim())} ${payment.currency.trim()}`;
+    const amount = `${fromProviderAmount(dispute.amount, payment.currency.trim())} ${payment.currency.trim()}`;
     const updated = await this.payments.update(trx, payment.id, {
       dispute_id: dispute.id,
       dispute_status: dispute.status,

@@ -2,13 +2,12 @@ import { randomUUID } from 'node:crypto';
 import { BadGatewayException, BadRequestException, ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import type { AuthUser, BookingDetail, BookingState } from '@loomwright/shared';
-import { bookingStateLabels, formatMoney, paymentMethodWords, type RecordBalanceInput } from '@loomwright/shared';
+import { bookingStateLabels, formatMoney, paymentMethodWords, type RecordBalanceInput, toProviderAmount, fromProviderAmount } from '@loomwright/shared';
 import Stripe from 'stripe';
 import { actorOf, BookingsService, type BookingActor } from '../bookings/bookings.service';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
-import { fromMinorUnits, toMinorUnits } from './minor-units';
 import { PaymentsRepository, type PaymentRow } from './payments.repository';
 
 export type PaymentKind = PaymentRow['kind'];
@@ -118,7 +117,7 @@ export class PaymentsService {
                 quantity: 1,
                 price_data: {
                   currency: currency.toLowerCase(),
-                  unit_amount: toMinorUnits(amount, currency),
+                  unit_amount: toProviderAmount(amount, currency),
                   product_data: { name: `${label}, build ${booking.reference}`, description: detail.summary },
                 },
               },
@@ -140,7 +139,7 @@ export class PaymentsService {
         booking_id: bookingId,
         kind,
         amount,
-        amount_minor: toMinorUnits(amount, currency),
+        amount_minor: toProviderAmount(amount, currency),
         currency,
         status: 'pending',
         checkout_session_id: session.id,
@@ -232,7 +231,7 @@ export class PaymentsService {
       return payment;
     }
     const ours = refund.metadata?.paymentId === payment.id;
-    const amount = fromMinorUnits(refund.amount, payment.currency.trim());
+    const amount = fromProviderAmount(refund.amount, payment.currency.trim());
     const whole = refund.amount >= Number(payment.amount_minor);
     const where = ours ? '' : " in the payment provider's dashboard";
     const kindWord = payment.kind === 'deposit' ? 'deposit' : 'balance';
@@ -397,7 +396,7 @@ export class PaymentsService {
         booking_id: bookingId,
         kind: 'balance',
         amount: money.balanceDue,
-        amount_minor: toMinorUnits(money.balanceDue, money.currency),
+        amount_minor: toProviderAmount(money.balanceDue, money.currency),
         currency: money.currency,
         status: 'paid',
         paid_at: new Date(),

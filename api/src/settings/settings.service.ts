@@ -25,6 +25,7 @@ export class SettingsService {
       currency: row.currency.trim(),
       countryCode: row.country_code.trim(),
       timezone: row.timezone,
+      locale: row.locale,
       contactEmail: row.contact_email,
       closures,
       upcomingHolidays: [...holidays.entries()].map(([date, name]) => ({ date, name })),
@@ -41,6 +42,7 @@ export class SettingsService {
       ...(dto.contactEmail !== undefined && { contact_email: dto.contactEmail }),
       ...(dto.countryCode !== undefined && { country_code: dto.countryCode }),
       ...(dto.timezone !== undefined && { timezone: dto.timezone }),
+      ...(dto.locale !== undefined && { locale: dto.locale }),
     };
     const updated = await this.settings.update(this.db, values);
     if (!updated) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');

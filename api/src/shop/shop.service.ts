@@ -15,6 +15,7 @@ export class ShopService {
       currency: row.currency.trim(),
       countryCode: row.country_code.trim(),
       timezone: row.timezone,
+      locale: row.locale,
       contactEmail: row.contact_email,
     };
   }

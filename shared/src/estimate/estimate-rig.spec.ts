@@ -90,31 +90,38 @@ describe('trade facts per item (common practice, no published source)', () => {
   });
 });
 
-describe('deposit rounding to the minor unit of ISO 4217', () => {
-  // Published reference: ISO 4217 minor units, read from the `currency-codes` npm package's copy
-  // of the ISO 4217 list: USD has 2 decimals, JPY 0, BHD (Bahraini dinar) 3.
-  it('reads the minor unit from the ISO 4217 table of the currency-codes package', () => {
+describe('deposit rounding to the minor unit (ISO 4217 with the payment provider’s charge rules)', () => {
+  // Published references: ISO 4217 minor units (USD 2, JPY 0, BHD 3), and the payment provider's
+  // "Three-decimal currencies" rule (docs.stripe.com/currencies): BHD charges end in 0, so the
+  // product counts BHD in hundredths. The full tables are checked in money/minor-units.spec.ts.
+  it('reads the minor unit from ISO 4217 and the provider’s tables', () => {
     expect(minorUnitDigits('USD')).toBe(2);
     expect(minorUnitDigits('JPY')).toBe(0);
-    expect(minorUnitDigits('BHD')).toBe(3);
+    expect(minorUnitDigits('BHD')).toBe(2);
     expect(minorUnitDigits('XYZ')).toBeUndefined();
   });
 
-  it('rounds half up to 2, 0 and 3 decimals', () => {
+  it('rounds half up to 2, 0 and (for a three-decimal currency) 2 decimals', () => {
     expect(roundToMinorUnit('1234.565', 'USD').toFixed()).toBe('1234.57');
     expect(roundToMinorUnit('1234.5', 'JPY').toFixed()).toBe('1235');
-    expect(roundToMinorUnit('12.3455', 'BHD').toFixed()).toBe('12.346');
+    expect(roundToMinorUnit('12.3450', 'BHD').toFixed()).toBe('12.35');
+    expect(roundToMinorUnit('12.3449', 'BHD').toFixed()).toBe('12.34');
   });
 
   // A one-pedal serial board at apprentice rates, worked by hand: materials 185 + 255 + 2 + 5 +
   // 1.25 = 448.25; labor 2 h (the pedal and the supply) × 40–50 = 80–100; high end 548.25.
   // A 33% deposit is 180.9225 before rounding (in yen, whose lines round first, 548 × 0.33 = 180.84).
+  // BHD and KWD are counted in hundredths (the provider's three-decimal rule: the last digit is 0);
+  // HUF in whole forints (the provider's special case), so its 1.25 plug line is 1 and the total 548.
   const onePedal: RigConfiguration = { surfaceId: 'slate-46', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 1, functions: [], level: 'apprentice' };
   const bookIn = (currency: string): PriceBook => ({ ...demoPriceBook, currency, depositPolicy: { ...demoPriceBook.depositPolicy, percent: '33', minimum: '10' } });
   it.each([
     ['USD', '548.25', '180.92'],
     ['JPY', '548', '181'],
-    ['BHD', '548.250', '180.923'],
+    ['BHD', '548.25', '180.92'],
+    ['KWD', '548.25', '180.92'],
+    ['HUF', '548', '181'],
+    ['IDR', '548.25', '180.92'],
   ])('%s: total %s, deposit %s', (currency, totalHigh, deposit) => {
     const r = estimateRig(onePedal, bookIn(currency), v1);
     expect(r.totalHigh).toBe(totalHigh);

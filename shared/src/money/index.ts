@@ -1,2 +1,3 @@
 export * from './firm-quote';
 export * from './money-facts';
+export { currencyUnit, toProviderAmount, fromProviderAmount, PROVIDER_ZERO_DECIMAL, PROVIDER_THREE_DECIMAL, PROVIDER_WHOLE_UNITS_IN_HUNDREDTHS, type CurrencyUnit } from './minor-units';

@@ -12,6 +12,7 @@ export async function seedShop(db: Kysely<DB>): Promise<void> {
       currency: 'USD',
       country_code: 'US',
       timezone: 'America/Chicago',
+      locale: 'en-US',
       contact_email: 'bench@shop.example',
     } as never)
     .onConflict((oc) => oc.column('id').doNothing())
