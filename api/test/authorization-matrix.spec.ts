@@ -3,6 +3,7 @@ import { registeredRoutes } from './support/routes';
 import { createTestApp, type TestApp } from './support/test-app';
 import { sessionCookieFor } from './support/sessions';
 import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fake';
+import { createBooking } from './support/bench-fixtures';
 
 /**
  * THE AUTHORIZATION MATRIX: every route the API registers, called as each kind of person, with
@@ -88,6 +89,8 @@ const matrix: Record<string, Entry> = {
   'DELETE /api/users/:userId/sessions': { ...ownerOnly(200), path: (fx) => `/api/users/${fx.bystander}/sessions` },
   'POST /api/invitations': ownerOnly(400),
   'POST /api/invitations/accept': open(400),
+  // the fixture builder has joined, so there is nothing to resend: 409 in words for the owner
+  'POST /api/invitations/:builderId/resend': { ...ownerOnly(409), path: (fx) => `/api/invitations/${fx.builderId}/resend` },
   // price book and estimates
   'GET /api/catalog': open(200),
   'POST /api/estimates': open(400),
@@ -263,4 +266,108 @@ describe('authorization matrix: every route, every kind of caller', () => {
     expect(problems).toEqual([]);
     // Every route times five callers, one after another: on a loaded machine this passes 30 s.
   }, 120_000);
+
+  /**
+   * WHO MAY SEE WHAT: the lines of the permissions table in DEVELOPERS.md ("Who may see and do
+   * what"), each with the check that proves it. The statuses above say who may call a route; these
+   * say what the answer holds for each role, where a builder may call a route but not see all of it.
+   * (The product brief's "Who may see and do what" table is the outside source of the rules.)
+   */
+  describe('permissions table (DEVELOPERS.md "Who may see and do what")', () => {
+    let apprentice: string;
+    let mine: { id: string; reference: string };
+    let notMine: { id: string; reference: string };
+    const as = (cookie: string | undefined) => ({
+      get: (url: string) => t.http().get(url).set('Cookie', cookie!),
+    });
+
+    beforeAll(async () => {
+      apprentice = await sessionCookieFor(t, 'apprentice');
+      // customer B's build is the master builder's; customer A's request is nobody's yet.
+      mine = await createBooking(t.db, { customerEmail: 'cass@mail.example', laborHours: '6.00' });
+      await t.db.updateTable('bookings').set({ builder_id: fx.builderId, state: 'scheduled', bench_date: '2031-03-03' }).where('id', '=', mine.id).execute();
+      notMine = await createBooking(t.db, { customerEmail: 'player@mail.example', laborHours: '4.00' });
+      await t.db
+        .insertInto('mail_outbox')
+        .values([
+          { message_id: '<perm-mine@test>', template: 'shop-note', to_address: 'cass@mail.example', data: JSON.stringify({}) as never, booking_id: mine.id, user_id: fx.customerB },
+          { message_id: '<perm-other@test>', template: 'shop-note', to_address: 'player@mail.example', data: JSON.stringify({}) as never, booking_id: notMine.id, user_id: fx.customerA },
+        ])
+        .execute();
+    });
+
+    it('hourly rates: a builder sees their own only, the owner every one (team and bench)', async () => {
+      const rates = (members: Array<{ name: string; hourlyRate: string | null; isMe?: boolean; status?: string }>) =>
+        Object.fromEntries(members.map((m) => [m.name, m.hourlyRate]));
+      // Seeded rates (seed-people.ts): Teodor Lind (master) 125.00, Pip Okonkwo-Hale (apprentice) 45.00.
+      const asMaster = rates((await as(cookies.builder).get('/api/team').expect(200)).body);
+      expect(asMaster['Teodor Lind']).toBe('125.00');
+      expect(asMaster['Pip Okonkwo-Hale']).toBeNull();
+      expect(Object.values(asMaster).filter((r) => r !== null)).toEqual(['125.00']);
+      const asApprentice = rates((await as(apprentice).get('/api/team').expect(200)).body);
+      expect(asApprentice['Pip Okonkwo-Hale']).toBe('45.00');
+      expect(Object.values(asApprentice).filter((r) => r !== null)).toEqual(['45.00']);
+      const asOwner = rates((await as(cookies.owner).get('/api/team').expect(200)).body);
+      expect(asOwner['Teodor Lind']).toBe('125.00');
+      expect(asOwner['Pip Okonkwo-Hale']).toBe('45.00');
+
+      const bench = (await as(apprentice).get('/api/bench?from=2031-03-03&to=2031-03-04').expect(200)).body.builders as Array<{ builder: { name: string; hourlyRate: string | null } }>;
+      expect(bench.filter((b) => b.builder.hourlyRate !== null).map((b) => b.builder.name)).toEqual(['Pip Okonkwo-Hale']);
+      const ownerBench = (await as(cookies.owner).get('/api/bench?from=2031-03-03&to=2031-03-04').expect(200)).body.builders as Array<{ builder: { hourlyRate: string | null } }>;
+      expect(ownerBench.every((b) => b.builder.hourlyRate !== null)).toBe(true);
+    });
+
+    it("customer e-mail: a builder sees it on builds assigned to them, not on others' or on unassigned requests; the owner always", async () => {
+      const emailIn = async (cookie: string | undefined, id: string) => (await as(cookie).get(`/api/bookings/${id}`).expect(200)).body.customer.email;
+      expect(await emailIn(cookies.builder, mine.id)).toBe('cass@mail.example');
+      expect(await emailIn(cookies.builder, notMine.id)).toBeNull();
+      expect(await emailIn(apprentice, mine.id)).toBeNull();
+      expect(await emailIn(cookies.owner, notMine.id)).toBe('player@mail.example');
+      expect(await emailIn(cookies.customerA, notMine.id)).toBe('player@mail.example');
+
+      const listed = (await as(apprentice).get('/api/bookings?pageSize=100').expect(200)).body.items as Array<{ customer: { email: string | null } }>;
+      expect(listed.length).toBeGreaterThan(1);
+      expect(listed.every((b) => b.customer.email === null)).toBe(true);
+      // Nor can a builder find a request by an address they may not see; the owner can.
+      expect((await as(apprentice).get('/api/bookings?q=player%40mail.example').expect(200)).body.total).toBe(0);
+      expect((await as(cookies.owner).get('/api/bookings?q=player%40mail.example').expect(200)).body.total).toBeGreaterThan(0);
+      expect((await as(cookies.builder).get('/api/bookings?q=cass%40mail.example').expect(200)).body.items.map((b: { id: string }) => b.id)).toContain(mine.id);
+      // A change answered with the booking (a state move here, refused) cannot hand the address back either.
+      const moved = await t.http().post(`/api/bookings/${notMine.id}/notes`).set('Cookie', apprentice).send({ note: 'Checked the queue for this one.' });
+      expect(moved.status).toBeLessThan(300);
+      expect(JSON.stringify(moved.body)).not.toContain('player@mail.example');
+
+      const customers = (await as(cookies.builder).get('/api/customers?pageSize=100').expect(200)).body.items as Array<{ name: string; email: string | null }>;
+      const byEmail = customers.map((c) => c.email).filter(Boolean);
+      expect(byEmail).toEqual(['cass@mail.example']);
+      const detailA = (await as(cookies.builder).get(`/api/customers/${fx.customerA}`).expect(200)).body;
+      expect(detailA.email).toBeNull();
+      expect(detailA.phone).toBeNull();
+      expect(JSON.stringify(detailA)).not.toContain('player@mail.example');
+      // Searching by address finds nobody for a builder (it would tell them who has an account).
+      expect((await as(apprentice).get('/api/customers?search=player%40mail').expect(200)).body.total).toBe(0);
+      expect((await as(cookies.owner).get('/api/customers?search=player%40mail').expect(200)).body.total).toBe(1);
+    });
+
+    it('mail log: a builder sees mail to them and about their builds, never resend; the owner every message', async () => {
+      const log = async (cookie: string | undefined) => (await as(cookie).get('/api/mail?pageSize=100').expect(200)).body;
+      const master = await log(cookies.builder);
+      expect(master.canResend).toBe(false);
+      expect(master.items.map((m: { to: string }) => m.to)).toContain('cass@mail.example');
+      expect(master.items.some((m: { bookingId: string | null }) => m.bookingId === notMine.id)).toBe(false);
+      expect(master.items.some((m: { to: string }) => m.to === 'player@mail.example')).toBe(false);
+      const junior = await log(apprentice);
+      expect(junior.items.some((m: { to: string }) => m.to !== 'junior@shop.example')).toBe(false);
+      const owner = await log(cookies.owner);
+      expect(owner.canResend).toBe(true);
+      expect(owner.items.some((m: { bookingId: string | null }) => m.bookingId === notMine.id)).toBe(true);
+    });
+
+    it('a paid request is declined (and its deposit refunded) by the owner only: refused to a builder in words', async () => {
+      const paid = await createBooking(t.db, { customerEmail: 'player@mail.example', laborHours: '3.00', state: 'deposit_paid' });
+      const res = await t.http().post(`/api/bookings/${paid.id}/decline`).set('Cookie', apprentice).send({ reason: 'Queue is full.' });
+      expect(res.status).toBe(403);
+      expect(res.body.message).toBe('Only the owner can decline a paid request, because it refunds the deposit.');
+    });
+  });
 });

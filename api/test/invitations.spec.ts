@@ -85,6 +85,53 @@ describe('staff invitations', () => {
     await t.http().post('/api/invitations/accept').send({ token: second, password: 'new-link-password' }).expect(200);
   });
 
+  it('Resend invitation (Team page) mails a fresh link and retires the old one; the person shows as invited and takes no builds until they join', async () => {
+    const created = await t.http().post('/api/invitations').set('Cookie', owner).send(invite).expect(201);
+    const builderId = created.body.builderId as string;
+    const first = tokenOf((await inviteMails())[0]!.data);
+
+    const member = async () => ((await t.http().get('/api/team').set('Cookie', owner).expect(200)).body as Array<Record<string, unknown>>).find((m) => m.id === builderId)!;
+    const invited = await member();
+    expect(invited).toMatchObject({ status: 'invited', level: 'journeyman', hourlyRate: '85.00' });
+    expect(Date.parse(String(invited.invitationExpiresAt))).toBeGreaterThan(Date.now());
+    // Not offered as taking builds: absent from the bench and from a request's suggestions.
+    const bench = await t.http().get('/api/bench').set('Cookie', owner).expect(200);
+    expect(bench.body.builders.map((b: { builder: { id: string } }) => b.builder.id)).not.toContain(builderId);
+
+    // Only the owner resends; a builder gets 403 in words and no mail goes out.
+    const refused = await t.http().post(`/api/invitations/${builderId}/resend`).set('Cookie', await sessionCookieFor(t, 'builder')).send({});
+    expect(refused.status).toBe(403);
+    expect(await inviteMails()).toHaveLength(1);
+
+    const resent = await t.http().post(`/api/invitations/${builderId}/resend`).set('Cookie', owner).send({}).expect(201);
+    expect(resent.body).toMatchObject({ builderId, email: 'marit.solberg@shop.example' });
+    const mails = await inviteMails();
+    expect(mails).toHaveLength(2);
+    expect(mails[0]!.data).toMatchObject({ level: 'journeyman', hourlyRate: '85.00', invitedBy: 'Odile Varga' });
+    const second = tokenOf(mails[0]!.data);
+    expect(second).not.toBe(first);
+
+    // The old link is refused in words; the new one sets the password and signs in.
+    const old = await t.http().post('/api/invitations/accept').send({ token: first, password: 'old-link-password' }).expect(400);
+    expect(old.body.message).toMatch(/invitation link has expired or was already used/);
+    await t.http().post('/api/invitations/accept').send({ token: second, password: 'new-link-password' }).expect(200);
+
+    const joined = await member();
+    expect(joined).toMatchObject({ status: 'active', invitationExpiresAt: null });
+    const benchAfter = await t.http().get('/api/bench').set('Cookie', owner).expect(200);
+    expect(benchAfter.body.builders.map((b: { builder: { id: string } }) => b.builder.id)).toContain(builderId);
+
+    // Once joined there is nothing to resend: 409 in words, no mail.
+    const done = await t.http().post(`/api/invitations/${builderId}/resend`).set('Cookie', owner).send({}).expect(409);
+    expect(done.body.message).toBe('Marit Solberg-Ames has already accepted the invitation and chosen a password, so there is nothing to resend.');
+    expect(await inviteMails()).toHaveLength(2);
+    const unknown = await t.http().post('/api/invitations/00000000-0000-4000-8000-000000000000/resend').set('Cookie', owner).send({});
+    expect(unknown.status).toBe(404);
+    const bad = await t.http().post('/api/invitations/not-an-id/resend').set('Cookie', owner).send({});
+    expect(bad.status).toBe(400);
+    expect(bad.body.message).toBe('The builder id in the address must be a UUID.');
+  });
+
   it('refuses to turn a player into staff', async () => {
     const res = await t.http().post('/api/invitations').set('Cookie', owner).send({ ...invite, email: 'player@mail.example' });
     expect(res.status).toBe(409);

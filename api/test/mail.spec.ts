@@ -179,15 +179,16 @@ describe('mail delivery through the outbox into the mail fake', () => {
       return agent;
     };
 
-    it('pages newest first, filters by state and searches by recipient, for staff only', async () => {
+    it('pages newest first, filters by state and searches by recipient: every message for the owner, only theirs for a builder', async () => {
       for (let i = 0; i < 7; i += 1) {
         await mail.enqueue(t.db, { template: 'welcome', to: `Person${i}@Mail.Example`, data: { name: `P${i}` } });
       }
       await mail.enqueue(t.db, { template: 'password-reset', to: 'broken@mail.example', data: {} });
       await delivery.deliverPending();
-      const builder = await signIn('builder@shop.example');
+      // The owner's log holds every message; a builder's only theirs (none of these).
+      const builder = await signIn('owner@shop.example');
       const first = await builder.get('/api/mail?page=1&pageSize=3').expect(200);
-      expect(first.body).toMatchObject({ total: 8, page: 1, pageSize: 3, canResend: false });
+      expect(first.body).toMatchObject({ total: 8, page: 1, pageSize: 3, canResend: true });
       expect(first.body.items).toHaveLength(3);
       expect(first.body.items[0].to).toBe('broken@mail.example');
       const third = await builder.get('/api/mail?page=3&pageSize=3').expect(200);
@@ -200,6 +201,9 @@ describe('mail delivery through the outbox into the mail fake', () => {
       expect(found.body.items.map((e: { to: string }) => e.to)).toEqual(['Person3@Mail.Example']);
       // A search term is matched literally, never as a LIKE pattern.
       expect((await builder.get('/api/mail?q=%25').expect(200)).body.total).toBe(0);
+
+      const aBuilder = await signIn('builder@shop.example');
+      expect((await aBuilder.get('/api/mail').expect(200)).body).toMatchObject({ total: 0, canResend: false });
 
       const player = await signIn('player@mail.example');
       await player.get('/api/mail').expect(403);

@@ -32,7 +32,8 @@ export interface BenchDay {
 }
 
 export interface BenchBuilder extends BuilderRef {
-  hourlyRate: string;
+  /** The builder's hourly rate; null for a builder looking at a colleague (only the owner sees every rate). */
+  hourlyRate: string | null;
   weeklyHours: WeeklyHours;
   active: boolean;
   /** The signed-in builder's own row (listed first). */
@@ -300,13 +301,33 @@ export interface LayoutApprovalView {
   createdAt: string;
 }
 
+/**
+ * Where a team member stands: `invited` until they accept the invitation and choose a password
+ * (they take no builds until then), `active` taking builds, `inactive` switched off by the owner.
+ */
+export const teamMemberStatuses = ['invited', 'active', 'inactive'] as const;
+export type TeamMemberStatus = (typeof teamMemberStatuses)[number];
+
 /** GET /api/team */
 export interface TeamMember extends BuilderRef {
   email: string;
-  hourlyRate: string;
+  /** Null for a builder looking at a colleague: only the owner sees every rate, a builder their own. */
+  hourlyRate: string | null;
   weeklyHours: WeeklyHours;
   weeklyCapacityHours: number;
   active: boolean;
+  status: TeamMemberStatus;
+  /** The signed-in person's own row. */
+  isMe: boolean;
+  /** While invited: when the latest invitation link stops working (ISO time), else null. */
+  invitationExpiresAt: string | null;
+}
+
+/** POST /api/invitations/:builderId/resend: a fresh link went out and the older one stopped working. */
+export interface InvitationResent {
+  builderId: string;
+  email: string;
+  expiresAt: string;
 }
 
 export interface UpdateTeamMemberRequest {
@@ -383,7 +404,8 @@ export interface CustomerDetail extends CustomerSummary {
     id: string;
     template: string;
     subject: string | null;
-    toAddress: string;
+    /** Null for a builder looking at a customer none of whose builds is theirs. */
+    toAddress: string | null;
     state: string;
     bookingId: string | null;
     createdAt: string;

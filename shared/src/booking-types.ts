@@ -21,7 +21,11 @@ export type DepositStatus = (typeof depositStatuses)[number];
 export interface PersonRef {
   id: string;
   name: string;
-  email: string;
+  /**
+   * Null when the viewer may not see it: a builder looking at a customer none of whose builds is
+   * theirs (see "Who may see and do what" in DEVELOPERS.md). The owner and the player always see it.
+   */
+  email: string | null;
 }
 
 export interface BuilderRef {

@@ -132,8 +132,9 @@ export class BenchService {
     const span = daysBetween(from, to);
     if (span < 0) throw new BadRequestException('to must be on or after from.');
     if (span >= MAX_BENCH_VIEW_DAYS) throw new BadRequestException(`Ask for at most ${MAX_BENCH_VIEW_DAYS} days of bench at a time (from and to).`);
-    const builders = this.orderMeFirst(await this.bench.listBuilders(this.db, { builderId: query.builderId }), user);
-    if (query.builderId && builders.length === 0) throw new NotFoundException('There is no builder with that builderId.');
+    // Someone still invited (no password yet) takes no builds, so has no row on the bench.
+    const builders = this.orderMeFirst((await this.bench.listBuilders(this.db, { builderId: query.builderId })).filter((b) => b.joined), user);
+    if (query.builderId && builders.length === 0) throw new NotFoundException('There is no builder with that builderId who has joined the team.');
     const ids = builders.map((b) => b.id);
     const [slices, recorded] = await Promise.all([
       this.bench.allocationsBetween(this.db, ids, from, to),
@@ -505,7 +506,8 @@ export class BenchService {
   private toBenchBuilder(b: Pick<BuilderRow, 'id' | 'user_id' | 'name' | 'level' | 'hourly_rate' | 'weekly_hours' | 'active'>, user: AuthUser): BenchBuilder {
     return {
       ...this.toRef(b),
-      hourlyRate: b.hourly_rate,
+      // Only the owner sees every rate; a builder sees their own (see DEVELOPERS.md, who may see what).
+      hourlyRate: user.role === 'owner' || b.user_id === user.id ? b.hourly_rate : null,
       weeklyHours: b.weekly_hours,
       active: b.active,
       isMe: b.user_id === user.id,

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
+import { APP_INTERCEPTOR } from '@nestjs/core';
 import type { AppConfig } from '../config/configuration';
 import { EstimatesModule } from '../estimates/estimates.module';
 import { EstimatesService } from '../estimates/estimates.service';
@@ -8,6 +9,7 @@ import { BookingPhotosService } from './booking-photos.service';
 import { BookingsController } from './bookings.controller';
 import { BookingsRepository } from './bookings.repository';
 import { BookingsService } from './bookings.service';
+import { CustomerContactInterceptor } from './customer-contact.interceptor';
 import { LocalDiskPhotoStorage, PhotoStorage } from './photo-storage';
 import { QuotePricer } from './quote-pricer';
 
@@ -24,6 +26,7 @@ import { QuotePricer } from './quote-pricer';
       useFactory: (config: ConfigService<AppConfig, true>) => new LocalDiskPhotoStorage(config.get('app', { infer: true }).uploadsDir),
     },
     { provide: QuotePricer, useExisting: EstimatesService },
+    { provide: APP_INTERCEPTOR, useClass: CustomerContactInterceptor },
   ],
   exports: [BookingsService],
 })

@@ -35,6 +35,11 @@ export interface BookingListQuery {
   state?: string;
   depositStatus?: string;
   q?: string;
+  /**
+   * A builder's search matches references and names, never addresses: an address they may not see
+   * (see CustomerContactInterceptor) must not be findable either, unless the build is theirs.
+   */
+  emailSearchForBuilderUserId?: string;
   sort: 'created_at' | 'updated_at' | 'reference' | 'state' | 'bench_date';
   order: 'asc' | 'desc';
   limit: number;
@@ -109,7 +114,9 @@ export class BookingsRepository {
         eb.or([
           eb('bookings.reference', 'ilike', pattern),
           eb('customer.name', 'ilike', pattern),
-          eb(sql`customer.email::text`, 'ilike', pattern),
+          query.emailSearchForBuilderUserId
+            ? eb.and([eb(sql`customer.email::text`, 'ilike', pattern), eb('builders.user_id', '=', query.emailSearchForBuilderUserId)])
+            : eb(sql`customer.email::text`, 'ilike', pattern),
         ]),
       );
     }

@@ -13,6 +13,9 @@ export interface BookingActor {
   label: string;
 }
 
+/** The staff's full view inside the API: the customer's address is always there (mails go to it). */
+export type FullBookingDetail = BookingDetail & { customer: { email: string } };
+
 /** An estimate holds its price this long; after that the shop re-prices before accepting. */
 export const QUOTE_VALID_DAYS = 30;
 
@@ -91,6 +94,7 @@ export class BookingsService {
       state: query.state,
       depositStatus: query.deposit,
       q: query.q?.trim() || undefined,
+      emailSearchForBuilderUserId: user.role === 'builder' ? user.id : undefined,
       sort: query.sort,
       order: query.order,
       limit: pageSize,
@@ -106,7 +110,7 @@ export class BookingsService {
   }
 
   /** The full booking (staff view); throws 404 when it does not exist. */
-  async getDetail(id: string, trx: Executor = this.db): Promise<BookingDetail> {
+  async getDetail(id: string, trx: Executor = this.db): Promise<FullBookingDetail> {
     const row = await this.bookings.findListRow(id, trx);
     if (!row) throw new NotFoundException(`There is no booking ${id}.`);
     const [quotes, payments, events, photos, extras, layoutApprovals] = await Promise.all([
@@ -118,7 +122,7 @@ export class BookingsService {
       this.bookings.layoutApprovalsFor(id, trx),
     ]);
     const money = this.factsOf(row, quotes, extras, payments);
-    return detailView(row, { quotes, payments, events, photos, extras, layoutApprovals, money });
+    return detailView(row, { quotes, payments, events, photos, extras, layoutApprovals, money }) as FullBookingDetail;
   }
 
   /**

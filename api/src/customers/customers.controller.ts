@@ -1,6 +1,7 @@
 import { BadRequestException, Controller, Get, Param, ParseUUIDPipe, Query } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { listCustomersQuerySchema, type CustomerDetail, type CustomerPage, type ListCustomersQuery } from '@loomwright/shared';
+import { listCustomersQuerySchema, type AuthUser, type CustomerDetail, type CustomerPage, type ListCustomersQuery } from '@loomwright/shared';
+import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { CustomersService } from './customers.service';
 import { ApiZodQuery } from '../common/zod-openapi';
@@ -16,13 +17,15 @@ export class CustomersController {
   @Get()
   @ApiOkResponse({ description: 'A page of customers with their build counts (server-side sort and search).' })
   @ApiZodQuery(listCustomersQuerySchema)
-  list(@Query(new ZodValidationPipe(listCustomersQuerySchema)) query: ListCustomersQuery): Promise<CustomerPage> {
-    return this.customers.list(query);
+  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(listCustomersQuerySchema)) query: ListCustomersQuery): Promise<CustomerPage> {
+    return this.customers.list(user, query);
   }
 
   @Get(':id')
-  @ApiOkResponse({ description: 'One customer with their builds, payments and the messages sent to them.' })
-  detail(@Param('id', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The customer id in the address must be a UUID.') })) id: string): Promise<CustomerDetail> {
-    return this.customers.detail(id);
+  @ApiOkResponse({
+    description: 'One customer with their builds, payments and the messages sent to them. A builder sees the e-mail, phone and addresses only of customers with a build assigned to them.',
+  })
+  detail(@CurrentUser() user: AuthUser, @Param('id', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The customer id in the address must be a UUID.') })) id: string): Promise<CustomerDetail> {
+    return this.customers.detail(user, id);
   }
 }

@@ -18,7 +18,8 @@ const sortColumn: Record<CustomerSort, string> = {
 export class CustomersRepository {
   constructor(private readonly db: Database) {}
 
-  private base(trx: Executor, search?: string) {
+  /** `searchEmail` false: a builder's search matches names only, as they do not see every address. */
+  private base(trx: Executor, search?: string, searchEmail = true) {
     let q = trx
       .selectFrom('users as u')
       .leftJoin('bookings as b', 'b.customer_id', 'u.id')
@@ -27,14 +28,17 @@ export class CustomersRepository {
     if (search?.trim()) {
       // Escape LIKE wildcards so a search for "50%" means the text, not a pattern.
       const pattern = `%${search.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      q = q.where((eb) => eb.or([eb('u.name', 'ilike', pattern), eb(sql`u.email::text`, 'ilike', pattern)]));
+      q = q.where((eb) => (searchEmail ? eb.or([eb('u.name', 'ilike', pattern), eb(sql`u.email::text`, 'ilike', pattern)]) : eb('u.name', 'ilike', pattern)));
     }
     return q;
   }
 
-  /** Each customer with their build counts and latest booking. */
-  private summaries(trx: Executor, search?: string) {
-    return this.base(trx, search).select([
+  /**
+   * Each customer with their build counts and latest booking; `builds_of_viewer` says whether any
+   * of their builds is assigned to the person asking (a builder sees those customers' addresses).
+   */
+  private summaries(trx: Executor, viewerUserId: string, search?: string, searchEmail = true) {
+    return this.base(trx, search, searchEmail).select([
       'u.id',
       'u.name',
       sql<string>`u.email::text`.as('email'),
@@ -43,11 +47,16 @@ export class CustomersRepository {
       sql<string>`count(b.id)::text`.as('build_count'),
       sql<string>`count(b.id) filter (where b.state in (${sql.join(ACTIVE)}))::text`.as('active_build_count'),
       sql<Date | null>`max(b.created_at)`.as('last_booking_at'),
+      sql<boolean>`coalesce(bool_or(b.builder_id in (select id from builders where user_id = ${viewerUserId})), false)`.as('builds_of_viewer'),
     ]);
   }
 
-  async page(trx: Executor, opts: { page: number; pageSize: number; sort: CustomerSort; order: 'asc' | 'desc'; search?: string }) {
-    const rows = await this.summaries(trx, opts.search)
+  async page(
+    trx: Executor,
+    viewerUserId: string,
+    opts: { page: number; pageSize: number; sort: CustomerSort; order: 'asc' | 'desc'; search?: string; searchEmail?: boolean },
+  ) {
+    const rows = await this.summaries(trx, viewerUserId, opts.search, opts.searchEmail)
       .select(sql<string>`count(*) over ()::text`.as('total'))
       .orderBy(sql.ref(sortColumn[opts.sort]), (ob) => (opts.order === 'desc' ? ob.desc() : ob.asc()).nullsLast())
       .orderBy('u.id')
@@ -56,14 +65,14 @@ export class CustomersRepository {
       .execute();
     let total = rows[0] ? Number(rows[0].total) : 0;
     if (!rows[0] && opts.page > 1) {
-      const count = await this.base(trx, opts.search).select('u.id').execute();
+      const count = await this.base(trx, opts.search, opts.searchEmail).select('u.id').execute();
       total = count.length;
     }
     return { rows, total };
   }
 
-  summary(trx: Executor, id: string) {
-    return this.summaries(trx)
+  summary(trx: Executor, viewerUserId: string, id: string) {
+    return this.summaries(trx, viewerUserId)
       .where('u.id', '=', id)
       .executeTakeFirst();
   }

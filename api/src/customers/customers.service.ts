@@ -1,5 +1,5 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
-import type { CustomerDetail, CustomerPage, CustomerSummary } from '@loomwright/shared';
+import type { AuthUser, CustomerDetail, CustomerPage, CustomerSummary } from '@loomwright/shared';
 import { Database } from '../database/database';
 import { CustomersRepository } from './customers.repository';
 import type { ListCustomersQuery } from '@loomwright/shared';
@@ -17,21 +17,32 @@ export class CustomersService {
     private readonly customers: CustomersRepository,
   ) {}
 
-  async list(query: ListCustomersQuery): Promise<CustomerPage> {
-    const { rows, total } = await this.customers.page(this.db, query);
-    return { items: rows.map((r) => this.toSummary(r)), total, page: query.page, pageSize: query.pageSize };
+  /**
+   * Customers as `viewer` may see them: the owner sees every address; a builder sees the e-mail
+   * and phone of customers with a build assigned to them, and only the name of everyone else (and
+   * so searches and sorts by name, not by an address they cannot see).
+   */
+  async list(viewer: AuthUser, query: ListCustomersQuery): Promise<CustomerPage> {
+    const owner = viewer.role === 'owner';
+    const { rows, total } = await this.customers.page(this.db, viewer.id, {
+      ...query,
+      sort: !owner && query.sort === 'email' ? 'name' : query.sort,
+      searchEmail: owner,
+    });
+    return { items: rows.map((r) => this.toSummary(r, viewer)), total, page: query.page, pageSize: query.pageSize };
   }
 
-  async detail(id: string): Promise<CustomerDetail> {
-    const row = await this.customers.summary(this.db, id);
+  async detail(viewer: AuthUser, id: string): Promise<CustomerDetail> {
+    const row = await this.customers.summary(this.db, viewer.id, id);
     if (!row) throw new NotFoundException('There is no customer with that id.');
+    const seesContact = this.seesContact(row, viewer);
     const [builds, payments, messages] = await Promise.all([
       this.customers.builds(this.db, id),
       this.customers.payments(this.db, id),
       this.customers.messages(this.db, id, row.email),
     ]);
     return {
-      ...this.toSummary(row),
+      ...this.toSummary(row, viewer),
       builds: builds.map((b) => ({ id: b.id, reference: b.reference, state: b.state, benchDate: b.bench_date, createdAt: iso(b.created_at) })),
       payments: payments.map((p) => ({
         id: p.id,
@@ -48,7 +59,7 @@ export class CustomersService {
         id: m.id,
         template: m.template,
         subject: m.subject,
-        toAddress: m.to_address,
+        toAddress: seesContact ? m.to_address : null,
         state: m.state,
         bookingId: m.booking_id,
         createdAt: iso(m.created_at),
@@ -57,12 +68,17 @@ export class CustomersService {
     };
   }
 
-  private toSummary(r: SummaryRow): CustomerSummary {
+  private seesContact(r: SummaryRow, viewer: AuthUser): boolean {
+    return viewer.role === 'owner' || r.builds_of_viewer;
+  }
+
+  private toSummary(r: SummaryRow, viewer: AuthUser): CustomerSummary {
+    const seesContact = this.seesContact(r, viewer);
     return {
       id: r.id,
       name: r.name,
-      email: r.email,
-      phone: r.phone,
+      email: seesContact ? r.email : null,
+      phone: seesContact ? r.phone : null,
       createdAt: iso(r.created_at),
       buildCount: Number(r.build_count),
       activeBuildCount: Number(r.active_build_count),

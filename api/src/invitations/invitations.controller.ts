@@ -1,7 +1,7 @@
-import { Body, Controller, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
+import { BadRequestException, Body, Controller, HttpCode, Param, ParseUUIDPipe, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
-import { acceptInvitationSchema, inviteStaffSchema, type AcceptInvitationInput, type AuthUser, type InviteStaffInput } from '@loomwright/shared';
+import { acceptInvitationSchema, inviteStaffSchema, type AcceptInvitationInput, type AuthUser, type InvitationResent, type InviteStaffInput } from '@loomwright/shared';
 import type { Request, Response } from 'express';
 import { AuthService } from '../auth/auth.service';
 import { CurrentUser } from '../auth/current-user.decorator';
@@ -26,6 +26,19 @@ export class InvitationsController {
   @ApiZodBody(inviteStaffSchema)
   invite(@Body(new ZodValidationPipe(inviteStaffSchema)) body: InviteStaffInput, @CurrentUser() owner: AuthUser) {
     return this.invitations.invite(body, owner);
+  }
+
+  @Roles('owner')
+  @Post(':builderId/resend')
+  @HttpCode(201)
+  @ApiCreatedResponse({
+    description: 'A fresh invitation link is mailed to a builder who has not joined yet; the link sent before stops working. 409 in words once they have joined.',
+  })
+  resend(
+    @Param('builderId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The builder id in the address must be a UUID.') })) builderId: string,
+    @CurrentUser() owner: AuthUser,
+  ): Promise<InvitationResent> {
+    return this.invitations.resend(builderId, owner);
   }
 
   @Public()

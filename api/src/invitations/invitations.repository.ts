@@ -19,6 +19,17 @@ export class InvitationsRepository {
       .executeTakeFirstOrThrow();
   }
 
+  /** The builder's row and account, locked so two resends of one invitation go one after the other. */
+  lockInvitedBuilder(builderId: string, trx: Executor) {
+    return trx
+      .selectFrom('builders')
+      .innerJoin('users', 'users.id', 'builders.user_id')
+      .select(['builders.id', 'builders.level', 'builders.hourly_rate', 'users.id as user_id', 'users.email', 'users.name', 'users.password_hash'])
+      .where('builders.id', '=', builderId)
+      .forUpdate('builders')
+      .executeTakeFirst();
+  }
+
   updateBuilder(userId: string, values: { level: BuilderLevel; hourlyRate: string }, trx: Executor = this.db) {
     return trx
       .updateTable('builders')

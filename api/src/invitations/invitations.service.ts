@@ -1,6 +1,6 @@
-import { BadRequestException, ConflictException, Injectable, OnModuleInit } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, NotFoundException, OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { authMessages, type AuthUser, type InvitationCreated, type InviteStaffInput, type WeeklyHours } from '@loomwright/shared';
+import { authMessages, type AuthUser, type InvitationCreated, type InvitationResent, type InviteStaffInput, type WeeklyHours } from '@loomwright/shared';
 import { AuthTokensService } from '../auth/auth-tokens.service';
 import { hashPassword } from '../auth/password';
 import type { AppConfig } from '../config/configuration';
@@ -58,6 +58,28 @@ export class InvitationsService implements OnModuleInit {
         data: { name: user.name, invitedBy: invitedBy.name, level: input.level, hourlyRate: input.hourlyRate, ...link },
       });
       return { user, builderId, expiresAt: link.expiresAt, resent };
+    });
+  }
+
+  /**
+   * The Team page's "Resend invitation": a fresh single-use link to the same person at the level
+   * and rate they are on now; the link mailed before stops working in the same transaction.
+   */
+  async resend(builderId: string, invitedBy: AuthUser): Promise<InvitationResent> {
+    return this.db.transaction().execute(async (trx) => {
+      const row = await this.invitations.lockInvitedBuilder(builderId, trx);
+      if (!row) throw new NotFoundException('There is no builder with that id on the team.');
+      if (row.password_hash) {
+        throw new ConflictException(`${row.name} has already accepted the invitation and chosen a password, so there is nothing to resend.`);
+      }
+      const link = await this.inviteLink(trx, row.user_id);
+      await this.mail.enqueue(trx, {
+        template: 'staff-invite',
+        to: row.email,
+        userId: row.user_id,
+        data: { name: row.name, invitedBy: invitedBy.name, level: row.level, hourlyRate: row.hourly_rate, ...link },
+      });
+      return { builderId: row.id, email: row.email, expiresAt: link.expiresAt };
     });
   }
 

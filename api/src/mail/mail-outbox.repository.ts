@@ -10,6 +10,8 @@ export interface MailListFilter {
   pageSize: number;
   state?: MailState;
   q?: string;
+  /** A builder's log: only messages to them, and messages about builds assigned to them. */
+  onlyForBuilderUserId?: string;
 }
 
 /**
@@ -166,6 +168,19 @@ export class MailOutboxRepository {
     let query = trx.selectFrom('mail_outbox');
     if (filter.state) query = query.where('state', '=', filter.state);
     if (filter.q) query = query.where(sql<boolean>`lower(to_address) like ${`%${filter.q.toLowerCase().replace(/[\\%_]/g, '\\$&')}%`}`);
+    const builderUserId = filter.onlyForBuilderUserId;
+    if (builderUserId) {
+      query = query.where((eb) =>
+        eb.or([
+          eb('user_id', '=', builderUserId),
+          eb(
+            'booking_id',
+            'in',
+            eb.selectFrom('bookings').innerJoin('builders', 'builders.id', 'bookings.builder_id').select('bookings.id').where('builders.user_id', '=', builderUserId),
+          ),
+        ]),
+      );
+    }
     const [rows, count] = await Promise.all([
       query
         .selectAll()

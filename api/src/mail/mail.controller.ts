@@ -25,7 +25,7 @@ export class MailController {
   @Roles('builder', 'owner')
   @ApiZodQuery(listMailQuerySchema)
   list(@Query(new ZodValidationPipe(listMailQuerySchema)) query: ListMailQuery, @CurrentUser() user: AuthUser): Promise<MailLogPage> {
-    return this.mail.list({ ...query, q: query.q?.trim() || undefined }, user.role === 'owner');
+    return this.mail.list({ ...query, q: query.q?.trim() || undefined }, user);
   }
 
   @Post(':id/resend')

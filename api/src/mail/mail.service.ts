@@ -1,6 +1,6 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { mailMessages, singleUseLinkKeys, type MailLogEntry, type MailLogPage, type MailState } from '@loomwright/shared';
+import { mailMessages, singleUseLinkKeys, type AuthUser, type MailLogEntry, type MailLogPage, type MailState } from '@loomwright/shared';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailOutboxRepository } from './mail-outbox.repository';
@@ -48,9 +48,14 @@ export class MailService {
     return row;
   }
 
-  async list(query: { page: number; pageSize: number; state?: MailState; q?: string }, canResend: boolean): Promise<MailLogPage> {
-    const { rows, total } = await this.outbox.list(query);
-    return { items: rows.map(toEntry), total, page: query.page, pageSize: query.pageSize, canResend };
+  /**
+   * The mail log. The owner sees every message and may resend; a builder sees the messages sent to
+   * them and those about builds assigned to them, not every customer's mail.
+   */
+  async list(query: { page: number; pageSize: number; state?: MailState; q?: string }, viewer: AuthUser): Promise<MailLogPage> {
+    const owner = viewer.role === 'owner';
+    const { rows, total } = await this.outbox.list({ ...query, ...(!owner && { onlyForBuilderUserId: viewer.id }) });
+    return { items: rows.map(toEntry), total, page: query.page, pageSize: query.pageSize, canResend: owner };
   }
 
   /** Called by the module that issues a template's single-use links (accounts, invitations). */

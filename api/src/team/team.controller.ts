@@ -5,10 +5,12 @@ import {
   updateTeamMemberSchema,
   type AbsenceInput,
   type AddAbsenceResponse,
+  type AuthUser,
   type BuilderAbsenceView,
   type TeamMember,
   type UpdateTeamMemberInput,
 } from '@loomwright/shared';
+import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ApiZodBody } from '../common/zod-openapi';
@@ -24,9 +26,12 @@ export class TeamController {
 
   @Get()
   @Roles('builder', 'owner')
-  @ApiOkResponse({ description: 'The builders: level, hourly rate, bench hours per weekday, active.' })
-  list(): Promise<TeamMember[]> {
-    return this.team.list();
+  @ApiOkResponse({
+    description:
+      'The builders: level, bench hours per weekday, status (invited until they join, active, inactive). Hourly rates: every one for the owner, only their own for a builder (null for colleagues).',
+  })
+  list(@CurrentUser() user: AuthUser): Promise<TeamMember[]> {
+    return this.team.list(user);
   }
 
   @Get('absences')
@@ -59,10 +64,11 @@ export class TeamController {
   @Roles('owner')
   @ApiZodBody(updateTeamMemberSchema)
   update(
+    @CurrentUser() user: AuthUser,
     @Param('builderId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The builder id in the address must be a UUID.') }))
     builderId: string,
     @Body(new ZodValidationPipe(updateTeamMemberSchema)) body: UpdateTeamMemberInput,
   ): Promise<TeamMember> {
-    return this.team.update(builderId, body);
+    return this.team.update(user, builderId, body);
   }
 }

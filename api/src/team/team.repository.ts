@@ -10,7 +10,26 @@ export class TeamRepository {
     return trx
       .selectFrom('builders')
       .innerJoin('users', 'users.id', 'builders.user_id')
-      .select(['builders.id', 'builders.user_id', 'users.name', 'users.email', 'builders.level', 'builders.hourly_rate', 'builders.weekly_hours', 'builders.active'])
+      .select([
+        'builders.id',
+        'builders.user_id',
+        'users.name',
+        'users.email',
+        'builders.level',
+        'builders.hourly_rate',
+        'builders.weekly_hours',
+        'builders.active',
+        // Joined: the invitation was accepted and a password chosen. Until then the person is "invited".
+        sql<boolean>`users.password_hash is not null`.as('joined'),
+        (eb) =>
+          eb
+            .selectFrom('auth_tokens')
+            .select((t) => t.fn.max('auth_tokens.expires_at').as('expires_at'))
+            .whereRef('auth_tokens.user_id', '=', 'users.id')
+            .where('auth_tokens.purpose', '=', 'staff_invite')
+            .where('auth_tokens.used_at', 'is', null)
+            .as('invitation_expires_at'),
+      ])
       .orderBy('builders.active', 'desc')
       .orderBy('users.name')
       .execute();

@@ -1,6 +1,6 @@
 import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
-import type { AbsenceInput, AddAbsenceResponse, BuilderAbsenceView, TeamMember, UpdateTeamMemberInput, WeeklyHours } from '@loomwright/shared';
+import type { AbsenceInput, AddAbsenceResponse, AuthUser, BuilderAbsenceView, TeamMember, UpdateTeamMemberInput, WeeklyHours } from '@loomwright/shared';
 import { daysBetween } from '../bench/calendar-days';
 import { Database } from '../database/database';
 import { TeamRepository } from './team.repository';
@@ -17,18 +17,26 @@ export class TeamService {
     private readonly team: TeamRepository,
   ) {}
 
-  async list(): Promise<TeamMember[]> {
+  /**
+   * The team as `viewer` may see it: the owner sees every rate; a builder sees their own rate and
+   * their colleagues' names, levels and weeks (what planning the bench needs), not their rates.
+   */
+  async list(viewer: AuthUser): Promise<TeamMember[]> {
     const rows = await this.team.list();
+    const seesRates = viewer.role === 'owner';
     return rows.map((r) => ({
       id: r.id,
       userId: r.user_id,
       name: r.name,
       email: r.email,
       level: r.level,
-      hourlyRate: r.hourly_rate,
+      hourlyRate: seesRates || r.user_id === viewer.id ? r.hourly_rate : null,
       weeklyHours: r.weekly_hours,
       weeklyCapacityHours: Object.values(r.weekly_hours).reduce<number>((s, h) => s + (h ?? 0), 0),
       active: r.active,
+      status: !r.joined ? 'invited' : r.active ? 'active' : 'inactive',
+      isMe: r.user_id === viewer.id,
+      invitationExpiresAt: !r.joined && r.invitation_expires_at ? new Date(r.invitation_expires_at).toISOString() : null,
     }));
   }
 
@@ -36,7 +44,7 @@ export class TeamService {
    * Changes a builder's level, rate, week or availability. Bench time already allocated keeps the
    * capacity it was booked against; new acceptances plan on the new week.
    */
-  async update(builderId: string, body: UpdateTeamMemberInput): Promise<TeamMember> {
+  async update(viewer: AuthUser, builderId: string, body: UpdateTeamMemberInput): Promise<TeamMember> {
     const values = {
       ...(body.level !== undefined && { level: body.level }),
       ...(body.hourlyRate !== undefined && { hourly_rate: new Decimal(body.hourlyRate).toFixed(2) }),
@@ -45,7 +53,7 @@ export class TeamService {
     };
     const updated = await this.team.update(this.db, builderId, values);
     if (!updated) throw new NotFoundException('There is no builder with that id on the team.');
-    return (await this.list()).find((m) => m.id === builderId)!;
+    return (await this.list(viewer)).find((m) => m.id === builderId)!;
   }
 
   async absences(): Promise<BuilderAbsenceView[]> {

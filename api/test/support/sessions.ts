@@ -6,6 +6,7 @@ export const demoEmails = {
   customerA: 'player@mail.example',
   customerB: 'cass@mail.example',
   builder: 'builder@shop.example',
+  apprentice: 'junior@shop.example',
   owner: 'owner@shop.example',
 } as const;
 export type DemoPerson = keyof typeof demoEmails;

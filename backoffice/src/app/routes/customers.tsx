@@ -1,4 +1,5 @@
 import Box from '@mui/joy/Box';
+import Typography from '@mui/joy/Typography';
 import type { CustomerSummary } from '@loomwright/shared';
 import { useState } from 'react';
 import { DataTable, queryRows, type Column } from 'src/components/DataTable';
@@ -19,7 +20,12 @@ import { useListParams } from 'src/lib/use-list-params';
 
 const columns: Column<CustomerSummary>[] = [
   { id: 'name', header: 'Name', sortKey: 'name', render: (c) => <strong>{c.name}</strong> },
-  { id: 'email', header: 'E-mail', sortKey: 'email', render: (c) => c.email },
+  {
+    id: 'email',
+    header: 'E-mail',
+    sortKey: 'email',
+    render: (c) => c.email ?? <Typography level="body-xs">Not one of your builds</Typography>,
+  },
   { id: 'phone', header: 'Phone', width: 140, render: (c) => c.phone ?? '—' },
   { id: 'builds', header: 'Builds', sortKey: 'buildCount', firstOrder: 'desc', align: 'right', width: 80, render: (c) => c.buildCount },
   { id: 'active', header: 'In progress', align: 'right', width: 100, render: (c) => c.activeBuildCount },
@@ -42,13 +48,20 @@ export function Component() {
   const [notice, setNotice] = useState<string | null>(null);
   return (
     <>
-      <PageHeader title="Customers" hint="Every player with an account, with their builds, payments and the messages the shop sent them." />
+      <PageHeader
+        title="Customers"
+        hint={
+          isOwner
+            ? 'Every player with an account, with their builds, payments and the messages the shop sent them.'
+            : 'Every player with an account. You see the e-mail and phone of the players whose builds are yours; the owner sees all.'
+        }
+      />
       <FilterBar label="Filter customers">
-        <SearchField label="Search" placeholder="Name or e-mail" value={params.filters.q} onChange={(q) => update({ filters: { q } })} />
+        <SearchField label="Search" placeholder={isOwner ? 'Name or e-mail' : 'Name'} value={params.filters.q} onChange={(q) => update({ filters: { q } })} />
       </FilterBar>
       <DataTable
         label="Customers"
-        columns={columns}
+        columns={isOwner ? columns : columns.map((c) => (c.id === 'email' ? { ...c, sortKey: undefined } : c))}
         {...queryRows(list)}
         {...paging}
         getRowId={(c) => c.id}

@@ -43,9 +43,11 @@ const columns: Column<BookingSummary>[] = [
     render: (b) => (
       <>
         {b.customer.name}
-        <Typography level="body-xs" sx={{ display: 'block', overflowWrap: 'anywhere' }}>
-          {b.customer.email}
-        </Typography>
+        {b.customer.email && (
+          <Typography level="body-xs" sx={{ display: 'block', overflowWrap: 'anywhere' }}>
+            {b.customer.email}
+          </Typography>
+        )}
       </>
     ),
   },
@@ -121,7 +123,7 @@ export function Component() {
       <FilterBar label="Filter requests">
         <SearchField
           label="Search"
-          placeholder="Customer name, e-mail or reference"
+          placeholder={isOwner ? 'Customer name, e-mail or reference' : 'Customer name or reference'}
           value={params.filters.q}
           onChange={(q) => update({ filters: { q } })}
         />
@@ -160,7 +162,8 @@ export function Component() {
                   Accept…
                 </Button>
               )}
-              {(booking.state === 'requested' || booking.state === 'deposit_paid') && (
+              {/* A paid request is declined by the owner alone (it refunds the deposit): a builder is not offered it. */}
+              {(booking.state === 'requested' || (booking.state === 'deposit_paid' && isOwner)) && (
                 <Button color="danger" variant="outlined" onClick={() => setDeclining(booking)}>
                   Decline…
                 </Button>
@@ -173,6 +176,11 @@ export function Component() {
             </Stack>
             {booking.state === 'requested' && (
               <Typography level="body-sm">The deposit is not paid yet; the request can be accepted once it is.</Typography>
+            )}
+            {booking.state === 'deposit_paid' && !isOwner && (
+              <Typography level="body-sm">
+                If this build cannot be taken on, tell the owner: declining a paid request refunds the deposit, which the owner does.
+              </Typography>
             )}
             <BookingDetails booking={booking} show="all" />
           </>

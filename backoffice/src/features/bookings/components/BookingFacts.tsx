@@ -22,7 +22,7 @@ export function BookingFacts({ booking }: { booking: BookingDetail }) {
         ['Customer', (
           <>
             {booking.customer.name}{' '}
-            <Typography component="span" level="body-xs">{booking.customer.email}</Typography>
+            {booking.customer.email && <Typography component="span" level="body-xs">{booking.customer.email}</Typography>}
           </>
         )],
         ['Requested', formatStamp(booking.createdAt)],

@@ -28,7 +28,7 @@ export function CustomerDetails({ customer }: { customer: CustomerDetail }) {
   return (
     <Stack gap={2} divider={<Divider />}>
       <Typography level="body-sm">
-        {customer.email}
+        {customer.email ?? 'E-mail and phone are shown to the builder of their build and the owner'}
         {customer.phone ? ` · ${customer.phone}` : ''} · customer since {formatDay(customer.createdAt.slice(0, 10))}
       </Typography>
       <Block title={`Builds (${customer.builds.length})`}>
@@ -84,7 +84,7 @@ export function CustomerDetails({ customer }: { customer: CustomerDetail }) {
                   <td>
                     {m.subject ?? m.template}
                     <Typography level="body-xs" sx={{ display: 'block' }}>
-                      to {m.toAddress}
+                      {m.toAddress ? `to ${m.toAddress}` : ''}
                     </Typography>
                   </td>
                   <td>{mailWords[m.state] ?? m.state}</td>

@@ -163,7 +163,7 @@ export function AcceptDialog({
                                   ? `Meets the ${data.chosenLevel} level the player chose.`
                                   : `Below the ${data.chosenLevel} level the player chose${isOwner ? '; you may assign with a reason the player reads.' : '; only the owner can assign this, with a reason.'}`}{' '}
                                 Earliest start {formatDay(s.benchDate)}, done {formatDay(s.expectedCompletion)} ·{' '}
-                                {formatMoney(s.builder.hourlyRate, data.currency)}/h → firm total{' '}
+                                {s.builder.hourlyRate ? `${formatMoney(s.builder.hourlyRate, data.currency)}/h → ` : ''}firm total{' '}
                                 {formatMoney(s.firmTotal, data.currency)}
                                 {s.aboveQuotedRange ? ' · above the quoted range: the player must agree to it' : ''}
                               </Typography>

@@ -26,7 +26,7 @@ export const weekdays = [
 
 const toForm = (m: TeamMember): TeamMemberFormInput => ({
   level: m.level,
-  hourlyRate: m.hourlyRate,
+  hourlyRate: m.hourlyRate ?? '',
   active: m.active,
   hours: Object.fromEntries(weekdays.map(([d]) => [d, m.weeklyHours[d] ? String(m.weeklyHours[d]) : ''])) as TeamMemberFormInput['hours'],
 });
