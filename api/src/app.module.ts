@@ -13,6 +13,7 @@ import { BuildSheetsModule } from './build-sheets/build-sheets.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
+import { ExportsModule } from './exports/exports.module';
 import { QuotesModule } from './quotes/quotes.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -75,6 +76,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     EstimatesModule,
     QuotesModule,
     BuildSheetsModule,
+    ExportsModule,
   ],
 })
 export class AppModule {}

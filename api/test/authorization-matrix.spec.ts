@@ -160,6 +160,10 @@ const matrix: Record<string, Entry> = {
   'GET /api/customers/:id': { ...staff(200), path: (fx) => `/api/customers/${fx.customerA}` },
   'GET /api/mail': staff(200),
   'POST /api/mail/:id/resend': { ...ownerOnly(404), path: () => `/api/mail/${UNKNOWN_ID}/resend` },
+  // the shop's office: CSV exports (owner; without ?from=&to= the owner gets the 400)
+  'GET /api/exports/bookings.csv': ownerOnly(400),
+  'GET /api/exports/payments.csv': ownerOnly(400),
+  'GET /api/exports/hours.csv': ownerOnly(400),
 };
 
 async function makeFixtures(t: TestApp, cookieOfA: string): Promise<Fixtures> {

@@ -23,3 +23,4 @@ export * from './intake-checklist';
 export * from './shop-schemas';
 export * from './quote-schemas';
 export * from './format/shop-format';
+export * from './office-schemas';

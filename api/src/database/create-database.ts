@@ -1,5 +1,6 @@
 import { Kysely, PostgresDialect } from 'kysely';
 import { Pool, types } from 'pg';
+import Cursor from 'pg-cursor';
 import { Database, DB } from './database';
 
 // numeric (1700) and int8 (20) stay strings so money never passes through a float.
@@ -24,7 +25,11 @@ export function createPool(url: string, poolMax = 10): Pool {
   return pool;
 }
 
-export const databaseOnPool = (pool: Pool): Database => new Kysely<DB>({ dialect: new PostgresDialect({ pool }) }) as Database;
+/**
+ * pg-cursor lets Kysely's `.stream()` read a large result in chunks (the CSV exports), so 100,000
+ * rows never sit in memory at once.
+ */
+export const databaseOnPool = (pool: Pool): Database => new Kysely<DB>({ dialect: new PostgresDialect({ pool, cursor: Cursor }) }) as Database;
 
 export function createDatabase(url: string, poolMax = 10): Database {
   return databaseOnPool(createPool(url, poolMax));

@@ -17,6 +17,7 @@ const router = createBrowserRouter(
         { path: 'builds', lazy: () => import('src/app/routes/builds') },
         { path: 'builds/:bookingId', lazy: () => import('src/app/routes/build-detail') },
         { path: 'customers', lazy: () => import('src/app/routes/customers') },
+        { path: 'reports', lazy: () => import('src/app/routes/reports') },
         { path: 'price-book', lazy: () => import('src/app/routes/price-book') },
         { path: 'team', lazy: () => import('src/app/routes/team') },
         { path: 'settings', lazy: () => import('src/app/routes/settings') },

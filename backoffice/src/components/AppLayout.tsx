@@ -21,6 +21,7 @@ export const navigation = [
   { to: '/bench', label: 'Bench' },
   { to: '/builds', label: 'Builds' },
   { to: '/customers', label: 'Customers' },
+  { to: '/reports', label: 'Reports' },
   { to: '/price-book', label: 'Price book' },
   { to: '/team', label: 'Team' },
   { to: '/settings', label: 'Settings' },

@@ -10,6 +10,7 @@ import * as paymentOutcomes from './20261202_0303_payment_outcomes';
 import * as mailUnknownOutcome from './20261202_0333_mail_unknown_outcome';
 import * as benchChanges from './20261202_0413_bench_changes';
 import * as shopLocale from './20261202_0530_shop_locale';
+import * as officeIndexes from './20261202_0546_office_indexes';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -27,4 +28,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0333_mail_unknown_outcome': mailUnknownOutcome,
   '20261202_0413_bench_changes': benchChanges,
   '20261202_0530_shop_locale': shopLocale,
+  '20261202_0546_office_indexes': officeIndexes,
 };

@@ -9,6 +9,7 @@ import { useNavigate } from 'react-router';
 import { DataTable, queryRows, type Column } from 'src/components/DataTable';
 import { FilterBar } from 'src/components/FilterBar';
 import { PageHeader } from 'src/components/PageHeader';
+import { ExportCsvButton } from 'src/features/exports/components/ExportCsvButton';
 import { SearchField } from 'src/components/SearchField';
 import { shortStateLabels, StateChip } from 'src/components/StateChip';
 import { bookingsQueryOptions, useBookings, type BookingSort } from 'src/features/bookings/api/list-bookings';
@@ -72,7 +73,9 @@ export function Component() {
 
   return (
     <>
-      <PageHeader title="Builds" hint="Every accepted build by where it stands. Open one to move it on, record intake and hours, and read its history." />
+      <PageHeader title="Builds" hint="Every accepted build by where it stands. Open one to move it on, record intake and hours, and read its history."
+        actions={<ExportCsvButton kinds={['bookings', 'hours']} />}
+      />
       <Tabs value={state} onChange={(_, value) => value && update({ filters: { state: String(value) } })} sx={{ bgcolor: 'transparent', mb: 1.5 }}>
         <TabList>
           {benchStates.map((s, index) => (

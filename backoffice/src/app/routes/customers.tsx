@@ -7,6 +7,7 @@ import { ErrorNote } from 'src/components/ErrorNote';
 import { Notice } from 'src/components/Notice';
 import { FilterBar } from 'src/components/FilterBar';
 import { PageHeader } from 'src/components/PageHeader';
+import { ExportCsvButton } from 'src/features/exports/components/ExportCsvButton';
 import { PageLoading } from 'src/components/PageLoading';
 import { SearchField } from 'src/components/SearchField';
 import { SidePanel } from 'src/components/SidePanel';
@@ -55,6 +56,7 @@ export function Component() {
             ? 'Every player with an account, with their builds, payments and the messages the shop sent them.'
             : 'Every player with an account. You see the e-mail and phone of the players whose builds are yours; the owner sees all.'
         }
+        actions={<ExportCsvButton kinds={['bookings', 'payments']} />}
       />
       <FilterBar label="Filter customers">
         <SearchField label="Search" placeholder={isOwner ? 'Name or e-mail' : 'Name'} value={params.filters.q} onChange={(q) => update({ filters: { q } })} />

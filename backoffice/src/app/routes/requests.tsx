@@ -10,6 +10,7 @@ import { ErrorNote } from 'src/components/ErrorNote';
 import { FilterBar } from 'src/components/FilterBar';
 import { Notice } from 'src/components/Notice';
 import { PageHeader } from 'src/components/PageHeader';
+import { ExportCsvButton } from 'src/features/exports/components/ExportCsvButton';
 import { PageLoading } from 'src/components/PageLoading';
 import { SearchField } from 'src/components/SearchField';
 import { SelectFilter } from 'src/components/SelectFilter';
@@ -119,6 +120,7 @@ export function Component() {
       <PageHeader
         title="Requests"
         hint="Every booking request, newest first. A paid request waits here until a builder accepts it and sets a bench date, or the shop declines it."
+        actions={<ExportCsvButton kinds={['bookings', 'payments']} />}
       />
       <FilterBar label="Filter requests">
         <SearchField

@@ -1,0 +1,8 @@
+import { Module } from '@nestjs/common';
+import { ExportsController } from './exports.controller';
+import { ExportsService } from './exports.service';
+import { OfficeRepository } from './office.repository';
+
+/** The bookkeeper's CSV exports (owner only). */
+@Module({ controllers: [ExportsController], providers: [ExportsService, OfficeRepository], exports: [ExportsService] })
+export class ExportsModule {}
