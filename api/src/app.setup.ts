@@ -1,11 +1,10 @@
 import { INestApplication } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { HttpAdapterHost } from '@nestjs/core';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import { applyBodyParsing } from './common/body-parsing';
-import { DatabaseInputFilter } from './common/database-input.filter';
+import { ApiExceptionFilter } from './common/api-exception.filter';
 import type { AppConfig } from './config/configuration';
 import { securityHeaders } from './security/security-headers';
 
@@ -27,8 +26,8 @@ export function configureApp(app: INestApplication): INestApplication {
   app.use(cookieParser());
   // No global ValidationPipe: every body and query names its shared zod schema through
   // ZodValidationPipe (common/zod-validation.pipe.ts), and unknown fields are refused there.
-  // A value PostgreSQL refuses as data (a NUL byte, an out-of-range number) is the caller's to fix: 400.
-  app.useGlobalFilters(new DatabaseInputFilter(app.get(HttpAdapterHost).httpAdapter));
+  // Every error answer, in one shape with a listed code (common/api-exception.filter.ts).
+  app.useGlobalFilters(new ApiExceptionFilter());
   app.enableShutdownHooks();
   const document = SwaggerModule.createDocument(
     app,

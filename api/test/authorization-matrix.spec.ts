@@ -1,3 +1,4 @@
+import { apiErrorBodySchema } from '@loomwright/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { registeredRoutes } from './support/routes';
 import { createTestApp, type TestApp } from './support/test-app';
@@ -264,6 +265,9 @@ describe('authorization matrix: every route, every kind of caller', () => {
         if (res.status >= 400 && res.status < 500 && !pattern.startsWith('/api/docs')) {
           const message = res.body?.message;
           if (!message || (typeof message === 'string' && message.length < 8)) problems.push(`${route} as ${who}: ${res.status} without a message in words`);
+        }
+        if (res.status >= 400 && !pattern.startsWith('/api/docs') && !apiErrorBodySchema.safeParse(res.body).success) {
+          problems.push(`${route} as ${who}: ${res.status} without the error body { statusCode, code, message }: ${JSON.stringify(res.body)}`);
         }
       }
     }

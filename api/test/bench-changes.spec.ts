@@ -148,7 +148,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     // Bad input is a 400 naming the field, from the shared schema.
     const bad = await master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: 'nobody', benchDate: '2026-02-30', reason: ' ', extra: 1 });
     expect(bad.status).toBe(400);
-    expect(bad.body.message).toEqual(
+    expect(bad.body.details).toEqual(
       expect.arrayContaining([
         'builderId must be a builder id (a UUID)',
         'benchDate must be a calendar day written YYYY-MM-DD',
@@ -175,7 +175,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect(saturday.options[0]).toMatchObject({ ok: false, refusal: 'day_off', nextPossibleDate: firstWorkdayFrom(addDays(monday, 7)) });
     const bad = await owner.get(`/api/bench/preview?bookingId=${b.id}&benchDate=someday`);
     expect(bad.status).toBe(400);
-    expect(bad.body.message).toEqual(['benchDate must be a calendar day written YYYY-MM-DD']);
+    expect(bad.body.details).toEqual(['benchDate must be a calendar day written YYYY-MM-DD']);
   });
 
   it('reassigns to another builder: only the owner re-prices (shown to the player) or goes below the chosen level, with a reason', async () => {
@@ -226,7 +226,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect((await player.post(`/api/bookings/${b.id}/price-consent`).send({ accept: true })).status).toBe(409);
     const other = await signIn(t.app, 'cass@mail.example');
     expect((await other.post(`/api/bookings/${b.id}/price-consent`).send({ accept: false })).status).toBe(404);
-    expect((await player.post(`/api/bookings/${b.id}/price-consent`).send({ accept: 'yes' })).body.message).toEqual([
+    expect((await player.post(`/api/bookings/${b.id}/price-consent`).send({ accept: 'yes' })).body.details).toEqual([
       'accept must be true (keep the build at the new price) or false (cancel with a full refund)',
     ]);
   });
@@ -294,7 +294,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     // The master is away all week: the first date that holds the build for him is the Monday after.
     const preview = (await owner.get(`/api/bench/preview?bookingId=${mine.id}&benchDate=${monday}&builderId=${masterId}`).expect(200)).body as BenchPreview;
     expect(preview.options[0]).toMatchObject({ ok: false, refusal: 'away', nextPossibleDate: firstWorkdayFrom(addDays(monday, 7)) });
-    expect((await owner.post(`/api/team/${masterId}/absences`).send({ startsOn: monday, endsOn: addDays(monday, -1), reason: 'x' })).body.message).toEqual(['endsOn must be on or after startsOn']);
+    expect((await owner.post(`/api/team/${masterId}/absences`).send({ startsOn: monday, endsOn: addDays(monday, -1), reason: 'x' })).body.details).toEqual(['endsOn must be on or after startsOn']);
     await owner.delete(`/api/team/absences/${absence.body.id}`).send({}).expect(204);
     expect((await owner.delete(`/api/team/absences/${absence.body.id}`).send({})).status).toBe(404);
   });
@@ -327,7 +327,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect(preview).toMatchObject({ depositPaid: '150.00', refundIfPlayerAsked: '0.00', refundIfShopCancels: '150.00', benchHours: 10 });
     expect(preview.policy).toMatch(/if the player cancels, the shop keeps the deposit/);
     expect((await master.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'x', cause: 'player' })).status).toBe(403);
-    expect((await owner.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'x', cause: 'nobody' })).body.message).toEqual([
+    expect((await owner.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'x', cause: 'nobody' })).body.details).toEqual([
       'cause must be player (the player asked) or shop (the shop cannot build it)',
     ]);
     const res = await owner.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'The player is moving abroad.', cause: 'player' }).expect(200);

@@ -157,7 +157,7 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours: 1.75, note: 'Cables cut' }).expect(201);
     const hours = await master.get(`/api/bookings/${b.id}/time-entries`).expect(200);
     expect(hours.body).toMatchObject({ totalHours: 1.75, plannedHours: 2 });
-    expect((await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours: 25 })).body.message).toEqual(
+    expect((await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours: 25 })).body.details).toEqual(
       expect.arrayContaining(['hours must be at most 24 for one day']),
     );
 
@@ -210,7 +210,7 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     expect(noProvider.body.message).toMatch(/no provider payment to refund/);
     expect((await t.db.selectFrom('bookings').select('state').where('id', '=', paid.id).executeTakeFirstOrThrow()).state).toBe('deposit_paid');
     expect((await t.db.selectFrom('booking_events').select('id').where('booking_id', '=', paid.id).execute()).length).toBe(0);
-    expect((await owner.post(`/api/bookings/${paid.id}/decline`).send({})).body.message).toEqual(expect.arrayContaining(['reason must say why, in at least a few words']));
+    expect((await owner.post(`/api/bookings/${paid.id}/decline`).send({})).body.details).toEqual(expect.arrayContaining(['reason must say why, in at least a few words']));
   });
 });
 

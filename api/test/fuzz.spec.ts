@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { apiErrorBodySchema } from '@loomwright/shared';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { builderId, DEMO_PASSWORD } from './support/bench-fixtures';
@@ -240,6 +241,10 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
         const res = await call;
         if (res.status >= 500) {
           throw new Error(`${op.method.toUpperCase()} ${url} as ${name} answered ${res.status} ${JSON.stringify(res.body)}\n  body sent: ${JSON.stringify(sample.body)?.slice(0, 500)}`);
+        }
+        // Every refusal is the one error body, with a code from the shared list.
+        if (res.status >= 400 && !apiErrorBodySchema.safeParse(res.body).success) {
+          throw new Error(`${op.method.toUpperCase()} ${url} as ${name} answered ${res.status} without the error body: ${JSON.stringify(res.body)}`);
         }
       });
       try {

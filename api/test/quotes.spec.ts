@@ -68,6 +68,6 @@ describe('POST /api/quotes/pdf', () => {
 
   it('answers 400 naming the field for a surface the price book does not hold', async () => {
     const res = await t.http().post('/api/quotes/pdf').send({ configuration: { ...configuration, surfaceId: 'plank-9000' } }).expect(400);
-    expect(res.body.message.join(' ')).toContain('plank-9000');
+    expect(res.body.details.join(' ')).toContain('plank-9000');
   });
 });

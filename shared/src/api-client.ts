@@ -1,17 +1,37 @@
+import { defaultErrorCode, ERROR_CODES, type ErrorCode } from './error-codes';
+
+/** A code from the API's list, or `unreachable`: the apps' own, when no answer arrived at all. */
+export type ClientErrorCode = ErrorCode | 'unreachable';
+
 /**
  * The one HTTP client both apps use to reach /api. It sends the session cookie, speaks JSON, and
- * turns every non-2xx answer into an ApiError whose message is written for people.
+ * turns every non-2xx answer into an ApiError: a stable `code` to branch on (ERROR_CODES) and a
+ * message written for people.
  */
 export class ApiError extends Error {
+  readonly code: ClientErrorCode;
+
   constructor(
     readonly status: number,
     message: string,
     readonly details: string[] = [],
+    code?: ClientErrorCode,
   ) {
     super(message);
     this.name = 'ApiError';
+    this.code = code ?? (status === 0 ? 'unreachable' : defaultErrorCode(status));
   }
 }
+
+/** True when an error is an ApiError carrying one of the given codes. */
+export const hasErrorCode = (error: unknown, ...codes: ClientErrorCode[]): error is ApiError =>
+  error instanceof ApiError && codes.includes(error.code);
+
+/** Nobody is signed in, or the session was ended: a 401 of any kind. */
+export const isSignedOutError = (error: unknown) => hasErrorCode(error, 'not_signed_in', 'session_ended');
+
+/** The shop is not answering (its database is down) or could not be reached at all. */
+export const isShopAwayError = (error: unknown) => hasErrorCode(error, 'shop_unavailable', 'unreachable');
 
 export interface RequestOptions {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -26,14 +46,20 @@ export interface ApiClient {
   post<T>(path: string, body?: unknown, options?: Omit<RequestOptions, 'method' | 'body'>): Promise<T>;
 }
 
-function messageOf(status: number, body: unknown): { message: string; details: string[] } {
-  if (body && typeof body === 'object' && 'message' in body) {
-    const raw = (body as { message: unknown }).message;
-    if (Array.isArray(raw)) return { message: raw.map(String).join('; '), details: raw.map(String) };
-    if (typeof raw === 'string') return { message: raw, details: [] };
-  }
-  if (status >= 500) return { message: 'The shop’s server had a problem; please try again in a moment.', details: [] };
-  return { message: `The request was refused (HTTP ${status}).`, details: [] };
+/** An ApiError from an error answer's status and body (`{ statusCode, code, message, details? }`). */
+export function apiErrorFrom(status: number, body: unknown): ApiError {
+  const given = body && typeof body === 'object' ? (body as { code?: unknown; message?: unknown; details?: unknown }) : {};
+  const code = typeof given.code === 'string' && Object.hasOwn(ERROR_CODES, given.code) ? (given.code as ErrorCode) : undefined;
+  const details = Array.isArray(given.details) ? given.details.map(String) : Array.isArray(given.message) ? given.message.map(String) : [];
+  const message =
+    typeof given.message === 'string' && given.message
+      ? given.message
+      : details.length > 0
+        ? details.join('; ')
+        : status >= 500
+          ? 'The shop’s server had a problem; please try again in a moment.'
+          : `The request was refused (HTTP ${status}).`;
+  return new ApiError(status, message, details, code);
 }
 
 export function createApiClient(baseUrl = '/api', fetchImpl: typeof fetch = (...a) => fetch(...a)): ApiClient {
@@ -62,8 +88,7 @@ export function createApiClient(baseUrl = '/api', fetchImpl: typeof fetch = (...
     const text = await response.text();
     const body = text ? safeJson(text) : undefined;
     if (!response.ok) {
-      const { message, details } = messageOf(response.status, body);
-      throw new ApiError(response.status, message, details);
+      throw apiErrorFrom(response.status, body);
     }
     return body as T;
   }

@@ -16,13 +16,6 @@ export interface ShopProfile {
   contactEmail: string;
 }
 
-/** Every 4xx/5xx body the API sends: Nest's own error shape. `message` is meant for people. */
-export interface ApiErrorBody {
-  statusCode: number;
-  message: string | string[];
-  error?: string;
-}
-
 /** One device a person is signed in on (the owner's view of their sessions). */
 export interface SessionView {
   id: string;

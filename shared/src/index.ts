@@ -1,5 +1,6 @@
 export * from './api-types';
 export * from './api-client';
+export * from './error-codes';
 export * from './design-tokens';
 export * from './domain';
 export * from './price-book/types';

@@ -1,6 +1,6 @@
 import { BadRequestException, ConflictException, Injectable, OnModuleInit, UnauthorizedException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { authMessages, type AuthUser } from '@loomwright/shared';
+import { authMessages, errorResponse, type AuthUser } from '@loomwright/shared';
 import type { Request, Response } from 'express';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
@@ -55,7 +55,7 @@ export class AuthService implements OnModuleInit {
       // Sign-up is the one place an address's use shows: a second account cannot share it. The
       // answer points to the reset, and the route is throttled like sign-in.
       if ((error as { code?: string }).code === UNIQUE_VIOLATION) {
-        throw new ConflictException('An account with this e-mail already exists. Sign in, or reset your password.');
+        throw new ConflictException(errorResponse('email_taken', 'An account with this e-mail already exists. Sign in, or reset your password.'));
       }
       throw error;
     }
@@ -66,7 +66,7 @@ export class AuthService implements OnModuleInit {
     const row = await this.users.findByEmail(email);
     const ok = await verifyPassword(password, row?.password_hash ?? (await decoyPasswordHash()));
     if (!row || !row.password_hash || !ok) {
-      throw new UnauthorizedException('That e-mail and password do not match an account. Check them, or reset your password.');
+      throw new UnauthorizedException(errorResponse('invalid_credentials', 'That e-mail and password do not match an account. Check them, or reset your password.'));
     }
     await this.users.recordSignIn(row.id);
     return toAuthUser(row);
@@ -114,12 +114,12 @@ export class AuthService implements OnModuleInit {
     const passwordHash = await hashPassword(password);
     return this.db.transaction().execute(async (trx) => {
       const userId = await this.tokens.consume(trx, token, 'password_reset');
-      if (!userId) throw new BadRequestException(authMessages.resetTokenInvalid);
+      if (!userId) throw new BadRequestException(errorResponse('link_invalid', authMessages.resetTokenInvalid));
       await this.tokens.retireUnused(trx, userId, 'password_reset');
       // Whoever held a session (the usual reason to reset) is signed out everywhere.
       await this.sessions.endAllFor(userId, 'password_changed', null, trx);
       const row = await this.users.setPassword(userId, passwordHash, trx);
-      if (!row) throw new BadRequestException(authMessages.resetTokenInvalid);
+      if (!row) throw new BadRequestException(errorResponse('link_invalid', authMessages.resetTokenInvalid));
       await this.users.recordSignIn(userId, trx);
       return toAuthUser(row);
     });
@@ -160,7 +160,7 @@ export class AuthService implements OnModuleInit {
 
   async currentUser(id: string): Promise<AuthUser> {
     const user = await this.findUser(id);
-    if (!user) throw new UnauthorizedException('Your session has ended; please sign in again.');
+    if (!user) throw new UnauthorizedException(errorResponse('session_ended', 'Your session has ended; please sign in again.'));
     return user;
   }
 }

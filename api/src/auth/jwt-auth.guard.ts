@@ -1,4 +1,5 @@
 import { ExecutionContext, HttpException, Injectable, UnauthorizedException } from '@nestjs/common';
+import { errorResponse } from '@loomwright/shared';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import { databaseUnavailable, isDatabaseUnavailable } from '../common/database-unavailable';
@@ -36,7 +37,7 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
   override handleRequest<TUser>(error: unknown, user: TUser | false): TUser {
     if (isDatabaseUnavailable(error)) throw databaseUnavailable();
     if (error instanceof HttpException) throw error; // a reason worth telling (signed out, password changed)
-    if (error || !user) throw new UnauthorizedException('Please sign in to do this.');
+    if (error || !user) throw new UnauthorizedException(errorResponse('not_signed_in', 'Please sign in to do this.'));
     return user;
   }
 }

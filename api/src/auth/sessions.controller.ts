@@ -1,11 +1,12 @@
-import { BadRequestException, Controller, Delete, Get, Param, ParseUUIDPipe } from '@nestjs/common';
+import { Controller, Delete, Get, Param } from '@nestjs/common';
+import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { AuthUser, PersonSessions, SessionsEnded } from '@loomwright/shared';
 import { CurrentUser } from './current-user.decorator';
 import { Roles } from './roles.decorator';
 import { SessionsService } from './sessions.service';
 
-const userIdPipe = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The account id in the address must be a UUID.') });
+const userIdPipe = uuidParam('The account id in the address must be a UUID.');
 
 /** The owner's view of where a person is signed in, and the way to sign them out of every device. */
 @ApiTags('auth')

@@ -1,4 +1,5 @@
 import { Injectable, NotFoundException, UnauthorizedException } from '@nestjs/common';
+import { errorResponse } from '@loomwright/shared';
 import { ConfigService } from '@nestjs/config';
 import { JwtService } from '@nestjs/jwt';
 import type { AuthUser, PersonSessions, SessionsEnded } from '@loomwright/shared';
@@ -75,12 +76,12 @@ export class SessionsService {
    * an ended session, a removed account, a changed role or a changed password applies at once.
    */
   async personFor(payload: SessionPayload): Promise<SessionUser> {
-    if (typeof payload.sid !== 'string') throw new UnauthorizedException(SESSION_ENDED);
+    if (typeof payload.sid !== 'string') throw new UnauthorizedException(errorResponse('session_ended', SESSION_ENDED));
     const row = await this.sessions.findWithUser(payload.sid);
-    if (!row || row.id !== payload.sub) throw new UnauthorizedException(SESSION_ENDED);
-    if (row.session_ended_at) throw new UnauthorizedException(endedWords[row.session_ended_reason ?? 'signed_out']);
+    if (!row || row.id !== payload.sub) throw new UnauthorizedException(errorResponse('session_ended', SESSION_ENDED));
+    if (row.session_ended_at) throw new UnauthorizedException(errorResponse('session_ended', endedWords[row.session_ended_reason ?? 'signed_out']));
     const changedAt = row.password_changed_at ? Math.floor(new Date(row.password_changed_at).getTime() / 1000) : undefined;
-    if (changedAt !== undefined && (payload.iat ?? 0) < changedAt) throw new UnauthorizedException(endedWords.password_changed);
+    if (changedAt !== undefined && (payload.iat ?? 0) < changedAt) throw new UnauthorizedException(errorResponse('session_ended', endedWords.password_changed));
     return { ...toAuthUser(row), sessionId: row.session_id, issuedAt: payload.iat };
   }
 

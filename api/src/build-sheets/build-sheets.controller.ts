@@ -1,4 +1,5 @@
-import { Controller, Get, Header, Param, ParseUUIDPipe, StreamableFile } from '@nestjs/common';
+import { Controller, Get, Header, Param, StreamableFile } from '@nestjs/common';
+import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiNotFoundResponse, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import { Roles } from '../auth/roles.decorator';
 import { PDF_CONTENT_SECURITY_POLICY } from '../security/security-headers';
@@ -15,7 +16,7 @@ export class BuildSheetsController {
   @Header('Content-Security-Policy', PDF_CONTENT_SECURITY_POLICY)
   @ApiOkResponse({ description: 'A printable PDF: signal chain, loops, power, cable schedule, functions, notes and bench cautions.' })
   @ApiNotFoundResponse({ description: 'No such booking, or it has no quote yet.' })
-  async buildSheet(@Param('id', new ParseUUIDPipe({ errorHttpStatusCode: 400 })) id: string) {
+  async buildSheet(@Param('id', uuidParam('The booking id in the address must be a UUID.')) id: string) {
     const { reference, pdf } = await this.buildSheets.render(id);
     return new StreamableFile(pdf, { type: 'application/pdf', disposition: `inline; filename="build-sheet-${reference}.pdf"`, length: pdf.length });
   }

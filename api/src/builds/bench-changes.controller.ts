@@ -1,4 +1,5 @@
-import { BadRequestException, Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post } from '@nestjs/common';
+import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   cancelScheduledSchema,
@@ -18,7 +19,7 @@ import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { BenchChangesService } from './bench-changes.service';
 
-const bookingId = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The booking id in the address must be a UUID.') });
+const bookingId = uuidParam('The booking id in the address must be a UUID.');
 
 /** When plans change after acceptance: move, reassign, cancel, and the player's answer to a new price. */
 @ApiTags('builds')

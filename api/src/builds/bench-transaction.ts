@@ -1,4 +1,5 @@
 import { ConflictException } from '@nestjs/common';
+import { errorResponse } from '@loomwright/shared';
 import type { Database, Executor } from '../database/database';
 
 const EXCLUSION_VIOLATION = '23P01';
@@ -15,7 +16,7 @@ export async function inBenchTransaction<T>(db: Database, work: (trx: Executor) 
   } catch (error) {
     const code = (error as { code?: string }).code;
     if (code === EXCLUSION_VIOLATION || code === CHECK_VIOLATION) {
-      throw new ConflictException('That bench time was just taken; pick another date.');
+      throw new ConflictException(errorResponse('bench_time_taken', 'That bench time was just taken; pick another date.'));
     }
     throw error;
   }

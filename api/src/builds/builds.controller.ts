@@ -1,4 +1,5 @@
-import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
+import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   acceptBookingSchema,
@@ -45,9 +46,9 @@ import { ApprovalsService } from './approvals.service';
 import { BuildRecordsService } from './build-records.service';
 import { BuildsService } from './builds.service';
 
-const bookingId = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The booking id in the address must be a UUID.') });
+const bookingId = uuidParam('The booking id in the address must be a UUID.');
 const uuid = (name: string, what: string) =>
-  new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException(`The ${name} in the address must be ${what} (a UUID).`) });
+  uuidParam(`The ${name} in the address must be ${what} (a UUID).`);
 
 /** A build's life on the bench, from acceptance to delivery. */
 @ApiTags('builds')

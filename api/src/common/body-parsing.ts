@@ -1,5 +1,6 @@
 import type { INestApplication } from '@nestjs/common';
 import { json, type NextFunction, type Request, type Response } from 'express';
+import { sendError } from './error-body';
 import { refuseHostileInput } from './json-limits';
 
 type WithRawBody = Request & { rawBody?: Buffer };
@@ -28,24 +29,23 @@ function isBareJsonValue(body: string | undefined): boolean {
  */
 export function applyBodyParsing(app: INestApplication): void {
   app.use(json({ limit: '1mb', verify: keepRawBody }));
-  app.use((error: { type?: string; status?: number; body?: string } | undefined, _req: Request, res: Response, next: NextFunction) => {
+  app.use((error: { type?: string; status?: number; body?: string } | undefined, req: Request, res: Response, next: NextFunction) => {
     if (error?.type === 'entity.parse.failed') {
       // The parser is strict: valid JSON that is a bare string, number or null is refused too.
-      res.status(400).json({
-        statusCode: 400,
-        error: 'Bad Request',
-        message: isBareJsonValue(error.body)
-          ? 'The request body must be a JSON object, like {"name": "value"}, not a bare string, number or null.'
-          : 'The request body is not valid JSON; check its quotes, commas and brackets, and send it again.',
-      });
+      if (isBareJsonValue(error.body)) {
+        sendError(req, res, 400, 'body_not_object', 'The request body must be a JSON object, like {"name": "value"}, not a bare string, number or null.');
+      } else {
+        sendError(req, res, 400, 'invalid_json', 'The request body is not valid JSON; check its quotes, commas and brackets, and send it again.');
+      }
       return;
     }
     if (error?.type === 'entity.too.large') {
-      res.status(413).json({ statusCode: 413, error: 'Payload Too Large', message: 'The request body is larger than 1 MB; send less.' });
+      sendError(req, res, 413, 'payload_too_large', 'The request body is larger than 1 MB; send less.');
       return;
     }
     if (error && typeof error.status === 'number' && error.status >= 400 && error.status < 500) {
-      res.status(error.status).json({ statusCode: error.status, error: 'Bad Request', message: 'The request body could not be read; check its format and send it again.' });
+      // Express's parser says 415 for an unknown charset, 400 for a body it cannot decode.
+      sendError(req, res, error.status, error.status === 415 ? 'unsupported_media_type' : 'body_unreadable', 'The request body could not be read; check its format and send it again.');
       return;
     }
     next(error);

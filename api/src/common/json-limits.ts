@@ -1,4 +1,5 @@
 import type { NextFunction, Request, Response } from 'express';
+import { sendError } from './error-body';
 
 /** No Loomwright body nests deeper than about five levels (a price book's lists of items). */
 export const MAX_BODY_DEPTH = 20;
@@ -41,7 +42,7 @@ const words: Record<Exclude<BodyProblem, null>, string> = {
 export function refuseHostileInput(req: Request, res: Response, next: NextFunction): void {
   const problem = findBodyProblem(req.body) ?? findBodyProblem(req.query);
   if (problem) {
-    res.status(400).json({ statusCode: 400, error: 'Bad Request', message: words[problem] });
+    sendError(req, res, 400, problem === 'too-deep' ? 'body_too_deep' : 'invalid_unicode', words[problem]);
     return;
   }
   next();

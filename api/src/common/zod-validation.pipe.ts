@@ -1,12 +1,12 @@
 import { ArgumentMetadata, BadRequestException, Injectable, PipeTransform } from '@nestjs/common';
-import { describeIssues } from '@loomwright/shared';
+import { describeIssues, errorResponse } from '@loomwright/shared';
 import type { ZodType } from 'zod';
 
 /**
  * The one way a request body or query is checked: by its zod schema from `@loomwright/shared`,
  * the same schema the apps' forms use, so both refuse the same input in the same words. Answers
- * 400 with one message per field, each naming its path (Nest's own error shape: `message` is a
- * list of strings). The parsed value (trimmed, defaults filled in, unknown fields refused) is what
+ * 400 `validation_failed` with one line per field in `details`, each naming its path (`message`
+ * joins them). The parsed value (trimmed, defaults filled in, unknown fields refused) is what
  * the controller receives.
  */
 @Injectable()
@@ -18,6 +18,6 @@ export class ZodValidationPipe<T> implements PipeTransform<unknown, T> {
     const input = value === undefined && metadata?.type !== 'param' ? {} : value;
     const result = this.schema.safeParse(input);
     if (result.success) return result.data;
-    throw new BadRequestException(describeIssues(result.error));
+    throw new BadRequestException({ ...errorResponse('validation_failed', ''), message: describeIssues(result.error) });
   }
 }

@@ -1,4 +1,5 @@
-import { BadRequestException, Body, Controller, HttpCode, Param, ParseUUIDPipe, Post, Req, Res, UseGuards } from '@nestjs/common';
+import { Body, Controller, HttpCode, Param, Post, Req, Res, UseGuards } from '@nestjs/common';
+import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
 import { acceptInvitationSchema, inviteStaffSchema, type AcceptInvitationInput, type AuthUser, type InvitationResent, type InviteStaffInput } from '@loomwright/shared';
@@ -35,7 +36,7 @@ export class InvitationsController {
     description: 'A fresh invitation link is mailed to a builder who has not joined yet; the link sent before stops working. 409 in words once they have joined.',
   })
   resend(
-    @Param('builderId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The builder id in the address must be a UUID.') })) builderId: string,
+    @Param('builderId', uuidParam('The builder id in the address must be a UUID.')) builderId: string,
     @CurrentUser() owner: AuthUser,
   ): Promise<InvitationResent> {
     return this.invitations.resend(builderId, owner);

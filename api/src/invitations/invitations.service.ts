@@ -1,6 +1,6 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException, OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { authMessages, type AuthUser, type InvitationCreated, type InvitationResent, type InviteStaffInput, type WeeklyHours } from '@loomwright/shared';
+import { authMessages, errorResponse, type AuthUser, type InvitationCreated, type InvitationResent, type InviteStaffInput, type WeeklyHours } from '@loomwright/shared';
 import { AuthTokensService } from '../auth/auth-tokens.service';
 import { hashPassword } from '../auth/password';
 import type { AppConfig } from '../config/configuration';
@@ -40,7 +40,7 @@ export class InvitationsService implements OnModuleInit {
       const resent = !!existing;
       if (existing) {
         if (existing.role !== 'builder' || existing.password_hash) {
-          throw new ConflictException('Someone already has an account with this e-mail; invite a different address.');
+          throw new ConflictException(errorResponse('email_taken', 'Someone already has an account with this e-mail; invite a different address.'));
         }
         const builder = await this.invitations.updateBuilder(existing.id, input, trx);
         builderId = builder?.id ?? (await this.invitations.insertBuilder({ userId: existing.id, ...input, weeklyHours: DEFAULT_WEEKLY_HOURS }, trx)).id;
@@ -111,9 +111,9 @@ export class InvitationsService implements OnModuleInit {
     const passwordHash = await hashPassword(password);
     return this.db.transaction().execute(async (trx) => {
       const userId = await this.tokens.consume(trx, token, 'staff_invite');
-      if (!userId) throw new BadRequestException(authMessages.inviteTokenInvalid);
+      if (!userId) throw new BadRequestException(errorResponse('link_invalid', authMessages.inviteTokenInvalid));
       const row = await this.users.setPassword(userId, passwordHash, trx);
-      if (!row) throw new BadRequestException(authMessages.inviteTokenInvalid);
+      if (!row) throw new BadRequestException(errorResponse('link_invalid', authMessages.inviteTokenInvalid));
       await this.users.recordSignIn(userId, trx);
       return toAuthUser(row);
     });

@@ -1,4 +1,5 @@
-import { BadRequestException, Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
+import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCreatedResponse, ApiTags } from '@nestjs/swagger';
 import {
   listMailQuerySchema,
@@ -34,15 +35,9 @@ export class MailController {
   @ApiZodBody(resendMailSchema.unwrap(), 'Optional; confirmPossibleDuplicate: true is required to resend a message whose outcome is unknown.')
   @ApiCreatedResponse({ description: 'The new message; a single-use link in it is a fresh one. 409 in words when the outcome of the original is unknown and not confirmed.' })
   resend(
-    @Param('id', new ParseUUIDPipe({ exceptionFactory: () => new BadIdException() })) id: string,
+    @Param('id', uuidParam('The message id must be a UUID, as listed in the mail log.')) id: string,
     @Body(new ZodValidationPipe(resendMailSchema)) body: ResendMailInput,
   ): Promise<MailLogEntry> {
     return this.mail.resend(id, body ?? {});
-  }
-}
-
-class BadIdException extends BadRequestException {
-  constructor() {
-    super('The message id must be a UUID, as listed in the mail log.');
   }
 }

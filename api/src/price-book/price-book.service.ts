@@ -1,4 +1,5 @@
 import { ConflictException, Injectable, ServiceUnavailableException } from '@nestjs/common';
+import { errorResponse } from '@loomwright/shared';
 import { sql } from 'kysely';
 import type { Catalog, PriceBook, PriceBookOverview, PriceBookVersionSummary } from '@loomwright/shared';
 import { Database, Executor } from '../database/database';
@@ -25,7 +26,7 @@ export class PriceBookService {
   /** The version every new estimate is priced from. */
   async current(trx: Executor = this.db): Promise<PublishedPriceBook> {
     const row = await this.books.findCurrent(trx);
-    if (!row) throw new ServiceUnavailableException('No price book has been published yet; the owner publishes one in the backoffice.');
+    if (!row) throw new ServiceUnavailableException(errorResponse('price_book_missing', 'No price book has been published yet; the owner publishes one in the backoffice.'));
     return { version: row.version, publishedAt: asDate(row.published_at), book: row.book };
   }
 
@@ -54,7 +55,7 @@ export class PriceBookService {
 
   async overview(): Promise<PriceBookOverview> {
     const [row, versions] = await Promise.all([this.books.findCurrent(), this.books.listVersions()]);
-    if (!row) throw new ServiceUnavailableException('No price book has been published yet.');
+    if (!row) throw new ServiceUnavailableException(errorResponse('price_book_missing', 'No price book has been published yet.'));
     const summaries: PriceBookVersionSummary[] = versions.map((v) => ({
       version: v.version,
       currency: v.currency.trim(),

@@ -1,4 +1,5 @@
 import { CanActivate, ExecutionContext, ForbiddenException, Injectable, UnsupportedMediaTypeException } from '@nestjs/common';
+import { errorResponse } from '@loomwright/shared';
 import { ConfigService } from '@nestjs/config';
 import { Reflector } from '@nestjs/core';
 import { DECORATORS } from '@nestjs/swagger';
@@ -48,10 +49,10 @@ export class CsrfGuard implements CanActivate {
     const documented = this.reflector.getAllAndOverride<string[] | undefined>(DECORATORS.API_CONSUMES, targets) ?? DEFAULT_BODY_TYPES;
     const sent = req.headers['content-type'];
     if (!sent || !mediaTypeIs(sent, documented)) {
-      throw new UnsupportedMediaTypeException(
+      throw new UnsupportedMediaTypeException(errorResponse('unsupported_media_type',
         `This request must be sent as ${documented.join(' or ')} (the Content-Type header), even when it has no body; ` +
           (sent ? `it was sent as ${sent.split(';')[0]}.` : 'it had no Content-Type.'),
-      );
+      ));
     }
     return true;
   }
@@ -60,15 +61,15 @@ export class CsrfGuard implements CanActivate {
     const origin = req.headers.origin;
     if (origin !== undefined) {
       if (!this.isOwnOrigin(origin, req)) {
-        throw new ForbiddenException(
+        throw new ForbiddenException(errorResponse('cross_site_request',
           `This request came from another site (${origin}) and was refused: changes are accepted only from the shop's own pages. ` +
             'If that address is yours, add it to ALLOWED_ORIGINS.',
-        );
+        ));
       }
       return;
     }
     if (req.headers['sec-fetch-site'] === 'cross-site') {
-      throw new ForbiddenException("This request came from another site (Sec-Fetch-Site: cross-site) and was refused: changes are accepted only from the shop's own pages.");
+      throw new ForbiddenException(errorResponse('cross_site_request', "This request came from another site (Sec-Fetch-Site: cross-site) and was refused: changes are accepted only from the shop's own pages."));
     }
   }
 

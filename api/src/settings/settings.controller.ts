@@ -1,4 +1,5 @@
-import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
+import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   createClosureSchema,
@@ -50,7 +51,7 @@ export class SettingsController {
   @Delete('closures/:id')
   @HttpCode(204)
   @Roles('owner')
-  deleteClosure(@Param('id', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The closure id in the address must be a UUID.') })) id: string) {
+  deleteClosure(@Param('id', uuidParam('The closure id in the address must be a UUID.')) id: string) {
     return this.settings.deleteClosure(id);
   }
 }

@@ -1,4 +1,5 @@
-import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
+import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   absenceSchema,
@@ -16,7 +17,7 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ApiZodBody } from '../common/zod-openapi';
 import { TeamService } from './team.service';
 
-const builderIdPipe = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The builder id in the address must be a UUID.') });
+const builderIdPipe = uuidParam('The builder id in the address must be a UUID.');
 
 @ApiTags('team')
 @ApiCookieAuth('lw_session')
@@ -55,7 +56,7 @@ export class TeamController {
   @HttpCode(204)
   @Roles('owner')
   deleteAbsence(
-    @Param('absenceId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The absence id in the address must be a UUID.') })) id: string,
+    @Param('absenceId', uuidParam('The absence id in the address must be a UUID.')) id: string,
   ): Promise<void> {
     return this.team.deleteAbsence(id);
   }
@@ -65,7 +66,7 @@ export class TeamController {
   @ApiZodBody(updateTeamMemberSchema)
   update(
     @CurrentUser() user: AuthUser,
-    @Param('builderId', new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The builder id in the address must be a UUID.') }))
+    @Param('builderId', uuidParam('The builder id in the address must be a UUID.'))
     builderId: string,
     @Body(new ZodValidationPipe(updateTeamMemberSchema)) body: UpdateTeamMemberInput,
   ): Promise<TeamMember> {

@@ -3,7 +3,7 @@ import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import { useQueryClient } from '@tanstack/react-query';
 import { shopUnavailableMessage } from '../api-types';
-import { ApiError } from '../api-client';
+import { hasErrorCode } from '../api-client';
 
 /**
  * Shown where the app cannot tell who is signed in because the shop is not answering (a 503 while
@@ -12,7 +12,7 @@ import { ApiError } from '../api-client';
  */
 export function ShopUnavailable({ error }: { error: Error }) {
   const queryClient = useQueryClient();
-  const words = error instanceof ApiError && error.status === 503 ? shopUnavailableMessage : error.message;
+  const words = hasErrorCode(error, 'shop_unavailable') ? shopUnavailableMessage : error.message;
   // Everything that failed while the shop was away, not only "who is signed in".
   const retry = () => void queryClient.refetchQueries({ predicate: (query) => query.state.status === 'error' });
   return (

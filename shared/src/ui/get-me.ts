@@ -1,8 +1,7 @@
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
-import { ApiError } from '../api-client';
 import type { AuthSessionResponse } from '../auth-schemas';
 import type { AuthUser } from '../domain';
-import { createApiClient } from '../api-client';
+import { createApiClient, isSignedOutError } from '../api-client';
 
 const api = createApiClient('/api');
 
@@ -19,7 +18,7 @@ export async function getMe(signal?: AbortSignal): Promise<AuthUser | null> {
   try {
     return (await api.get<AuthSessionResponse>('/auth/me', { signal })).user;
   } catch (error) {
-    if (error instanceof ApiError && error.status === 401) return null;
+    if (isSignedOutError(error)) return null;
     throw error;
   }
 }

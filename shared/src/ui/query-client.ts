@@ -1,15 +1,13 @@
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
-import { ApiError } from '../api-client';
+import { ApiError, isShopAwayError, isSignedOutError } from '../api-client';
 import { ME_RETRY_MS } from './get-me';
-
-const isShopAway = (error: unknown) => error instanceof ApiError && (error.status === 503 || error.status === 0);
 
 /** The one QueryClient setup both apps use. */
 export function createQueryClient() {
   // A 401 from any call means the session ran out: ask "who is signed in?" again, so the screens
   // that depend on it (the header, the staff guard) catch up at once.
   const onError = (error: unknown) => {
-    if (error instanceof ApiError && error.status === 401) void client.invalidateQueries({ queryKey: ['auth', 'me'] });
+    if (isSignedOutError(error)) void client.invalidateQueries({ queryKey: ['auth', 'me'] });
   };
   const client: QueryClient = new QueryClient({
     queryCache: new QueryCache({ onError }),
@@ -21,7 +19,7 @@ export function createQueryClient() {
         retry: (count, error) => count < 2 && !(error instanceof ApiError && error.status >= 400 && error.status < 500),
         // While the shop is not answering (503, or no connection), failed screens ask again on their
         // own, so they come back when the shop does, with nobody signed out meanwhile.
-        refetchInterval: (query) => (isShopAway(query.state.error) ? ME_RETRY_MS : false),
+        refetchInterval: (query) => (isShopAwayError(query.state.error) ? ME_RETRY_MS : false),
       },
     },
   });

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { RescheduleRequest, RescheduleResponse } from '@loomwright/shared';
+import { hasErrorCode, type RescheduleRequest, type RescheduleResponse } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
 import { invalidateBuild } from './invalidate';
 
@@ -11,5 +11,9 @@ export const useRescheduleBooking = () => {
   return useMutation({
     mutationFn: ({ id, body }: { id: string; body: RescheduleRequest }) => rescheduleBooking(id, body),
     onSuccess: (_, { id }) => invalidateBuild(queryClient, id),
+    // Someone else took those hours meanwhile: read the bench again so the dialog offers what is free now.
+    onError: (error) => {
+      if (hasErrorCode(error, 'bench_time_taken')) void queryClient.invalidateQueries({ queryKey: ['bench'] });
+    },
   });
 };

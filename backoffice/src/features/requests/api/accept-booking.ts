@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { AcceptBookingRequest, AcceptBookingResponse } from '@loomwright/shared';
+import { hasErrorCode, type AcceptBookingRequest, type AcceptBookingResponse } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
 
 export const acceptBooking = (id: string, body: AcceptBookingRequest) =>
@@ -14,5 +14,9 @@ export const useAcceptBooking = () => {
         queryClient.invalidateQueries({ queryKey: ['bookings'] }),
         queryClient.invalidateQueries({ queryKey: ['bench'] }),
       ]),
+    // Someone else took those hours meanwhile: read the bench again so the dialog offers what is free now.
+    onError: (error) => {
+      if (hasErrorCode(error, 'bench_time_taken')) void queryClient.invalidateQueries({ queryKey: ['bench'] });
+    },
   });
 };

@@ -4,7 +4,7 @@ import Button from '@mui/joy/Button';
 import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
-import { PASSWORD_MIN_LENGTH, signUpSchema } from '@loomwright/shared';
+import { hasErrorCode, PASSWORD_MIN_LENGTH, signUpSchema } from '@loomwright/shared';
 import { useForm } from 'react-hook-form';
 import { Link as RouterLink } from 'react-router';
 import { useSignUp } from 'src/features/auth/api/sign-up';
@@ -20,7 +20,19 @@ export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void;
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Create an account">
       <Stack gap={2}>
-        {signUp.error && <Alert color="danger" role="alert">{signUp.error.message}</Alert>}
+        {signUp.error && (
+          <Alert color="danger" role="alert">
+            <span>
+              {signUp.error.message}
+              {hasErrorCode(signUp.error, 'email_taken') && (
+                <>
+                  {' '}
+                  <Link component={RouterLink} to={signInHref}>Sign in instead</Link>
+                </>
+              )}
+            </span>
+          </Alert>
+        )}
         <FormTextField label="Your name" autoComplete="name" autoFocus registration={register('name')} error={formState.errors.name} />
         <FormTextField label="E-mail" type="email" autoComplete="email" registration={register('email')} error={formState.errors.email} hint="We send your quote, bench date and build updates here." />
         <FormTextField

@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import { ApiError, type RigConfiguration } from '@loomwright/shared';
+import { ApiError, apiErrorFrom, type RigConfiguration } from '@loomwright/shared';
 
 /**
  * POST /api/quotes/pdf answers a PDF, not JSON, so it is fetched as a blob here; a refusal still
@@ -18,9 +18,7 @@ export async function downloadQuote(configuration: RigConfiguration): Promise<Bl
     throw new ApiError(0, 'The shop could not be reached; check your connection and try again.');
   }
   if (!response.ok) {
-    const body = (await response.json().catch(() => ({}))) as { message?: string | string[] };
-    const words = Array.isArray(body.message) ? body.message.join('; ') : (body.message ?? `The quote could not be made (HTTP ${response.status}).`);
-    throw new ApiError(response.status, words);
+    throw apiErrorFrom(response.status, await response.json().catch(() => ({ message: `The quote could not be made (HTTP ${response.status}).` })));
   }
   return response.blob();
 }

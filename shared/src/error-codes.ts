@@ -1,0 +1,91 @@
+import { z } from 'zod';
+
+/**
+ * Every `code` an error answer of the API can carry, each with what it means. The code is stable
+ * (apps and scripts branch on it); the `message` beside it is written for people and may be reworded.
+ * One list, so the same mistake has the same code on every route.
+ */
+export const ERROR_CODES = {
+  // 400: the request itself is wrong
+  validation_failed: 'A field of the body or query is missing or not written as the route expects; `details` names each.',
+  invalid_id: 'An id in the address is not a UUID.',
+  invalid_json: 'The body is not valid JSON.',
+  body_not_object: 'The body is valid JSON but a bare string, number or null instead of an object.',
+  body_unreadable: 'The body could not be read (for example a wrong character encoding).',
+  body_too_deep: 'The body is nested deeper than any request here needs.',
+  invalid_unicode: 'A text holds half of a surrogate pair, which is not valid Unicode.',
+  value_not_storable: 'A value cannot be stored as given (a NUL byte, a number out of range, a malformed date).',
+  link_invalid: 'A single-use link (password reset, invitation) is unknown, used or expired.',
+  bad_request: 'The request cannot be carried out as sent; the message says why.',
+  // 401, 403
+  not_signed_in: 'The route needs a signed-in person and the request carries no valid session.',
+  session_ended: 'The session was ended (signed out, signed out everywhere, or the password changed).',
+  invalid_credentials: 'The e-mail and password do not match an account.',
+  cross_site_request: 'A state-changing request came from another site and was refused.',
+  role_not_allowed: 'The signed-in person’s role may not use this route.',
+  forbidden: 'The signed-in person may not do this to this record; the message says why.',
+  // 404
+  not_found: 'The record named in the address does not exist, or is not the caller’s.',
+  route_not_found: 'No route of the API answers this method and path.',
+  // 409: the request is well formed, but the records are not in a state that allows it
+  email_taken: 'An account with this e-mail address already exists.',
+  bench_time_taken: 'The bench time was just taken by another build; pick another date.',
+  conflict: 'The record is not in a state that allows this now; the message says what would.',
+  // 413, 415, 429
+  payload_too_large: 'The body is larger than the route accepts.',
+  photo_too_large: 'The uploaded photo is larger than a booking photo may be.',
+  unsupported_media_type: 'The body’s Content-Type is not one the route documents.',
+  too_many_attempts: 'Too many attempts from this address or for this account; wait, then try again.',
+  // 5xx: the shop's trouble, not the caller's
+  internal_error: 'The server failed; nothing the caller sent is to blame.',
+  payment_provider_error: 'The payment provider refused or did not answer.',
+  shop_unavailable: 'The shop’s database is not answering; try again after Retry-After seconds.',
+  price_book_missing: 'No price book has been published yet.',
+} as const;
+
+export type ErrorCode = keyof typeof ERROR_CODES;
+export const errorCodes = Object.keys(ERROR_CODES) as [ErrorCode, ...ErrorCode[]];
+
+/** The code an error answer carries when the code that raised it named none: one per status. */
+export function defaultErrorCode(status: number): ErrorCode {
+  switch (status) {
+    case 400:
+      return 'bad_request';
+    case 401:
+      return 'not_signed_in';
+    case 403:
+      return 'forbidden';
+    case 404:
+      return 'not_found';
+    case 409:
+      return 'conflict';
+    case 413:
+      return 'payload_too_large';
+    case 415:
+      return 'unsupported_media_type';
+    case 429:
+      return 'too_many_attempts';
+    case 502:
+      return 'payment_provider_error';
+    case 503:
+      return 'shop_unavailable';
+    default:
+      return status >= 500 ? 'internal_error' : 'bad_request';
+  }
+}
+
+/** Every 4xx/5xx body the API sends. */
+export const apiErrorBodySchema = z
+  .object({
+    statusCode: z.number().int().min(400).max(599).describe('The HTTP status, repeated.'),
+    code: z.enum(errorCodes).describe('Stable: branch on this, never on the message.'),
+    message: z.string().describe('What went wrong and what to do, written for people.'),
+    details: z.array(z.string()).optional().describe('One line per field for validation_failed.'),
+    requestId: z.string().optional().describe('The id of this request in the server’s logs.'),
+  })
+  .describe('An error answer');
+
+export type ApiErrorBody = z.infer<typeof apiErrorBodySchema>;
+
+/** `{ code, message }` for an HTTP exception's response, so a thrown error names its code. */
+export const errorResponse = (code: ErrorCode, message: string) => ({ code, message });
