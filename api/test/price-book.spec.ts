@@ -66,7 +66,7 @@ describe('price book versions', () => {
     const owner = await signedIn('owner@shop.example');
     const res = await owner.post('/api/price-book').send({ book });
     expect(res.status).toBe(400);
-    expect(res.body.message.some((m: string) => m.startsWith(`${field}:`))).toBe(true);
+    expect(res.body.details.some((m: string) => m.startsWith(`${field}:`))).toBe(true);
   });
 
   it('answers 400 to garbage, never 500', async () => {

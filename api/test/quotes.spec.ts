@@ -61,7 +61,7 @@ describe('POST /api/quotes/pdf', () => {
     ['an unknown field', { configuration, extra: 1 }, ''],
   ])('answers 400 in words, never 500, to %s', async (_what, body, field) => {
     const res = await t.http().post('/api/quotes/pdf').send(body).expect(400);
-    const messages: string[] = res.body.message;
+    const messages: string[] = res.body.details;
     expect(messages.length).toBeGreaterThan(0);
     if (field) expect(messages.some((m) => m.startsWith(`${field}:`))).toBe(true);
   });
