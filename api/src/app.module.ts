@@ -17,6 +17,7 @@ import { ExportsModule } from './exports/exports.module';
 import { QuotesModule } from './quotes/quotes.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
+import { LoggingModule } from './logging/logging.module';
 import { MailModule } from './mail/mail.module';
 import { PaymentsModule } from './payments/payments.module';
 import { PriceBookModule } from './price-book/price-book.module';
@@ -39,6 +40,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
 @Module({
   imports: [
     ConfigModule.forRoot({ isGlobal: true, load: [configuration], ignoreEnvFile: true }),
+    LoggingModule,
     DatabaseModule,
     // Before AuthModule: its CSRF guard must run ahead of the sign-in and role guards.
     SecurityModule,

@@ -6,6 +6,7 @@ import cookieParser from 'cookie-parser';
 import { applyBodyParsing } from './common/body-parsing';
 import { ApiExceptionFilter } from './common/api-exception.filter';
 import type { AppConfig } from './config/configuration';
+import { HTTP_LOGGER, httpLogging } from './logging/logging.module';
 import { securityHeaders } from './security/security-headers';
 
 /**
@@ -15,7 +16,9 @@ import { securityHeaders } from './security/security-headers';
 export function configureApp(app: INestApplication): INestApplication {
   app.setGlobalPrefix('api');
   const { trustProxy, nodeEnv } = app.get(ConfigService<AppConfig, true>).get('app', { infer: true });
-  // First, so every answer carries the headers: the apps, the API, its errors and the Swagger page.
+  // Before anything else, so every answer has its X-Request-Id and its one JSON log line.
+  app.use(...httpLogging(app.get(HTTP_LOGGER)));
+  // Next, so every answer carries the headers: the apps, the API, its errors and the Swagger page.
   app.use(securityHeaders(nodeEnv === 'production'));
   // Behind a load balancer, req.ip must be the client (throttling counts per address): TRUST_PROXY.
   app.getHttpAdapter().getInstance().set('trust proxy', trustProxy);

@@ -59,6 +59,8 @@ const environmentSchema = z.object({
       return origins;
     }),
   RUN_WORKERS: z.enum(['true', 'false']).default('true'),
+  // JSON log lines on stdout at this level and above (pino's levels).
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   // Express's "trust proxy": which proxies in front may name the client in X-Forwarded-For, so
   // req.ip (and every per-address limit) is the client, not the load balancer. `false` (the
   // default: nothing in front), a hop count such as 1, or a comma-separated list of addresses,
@@ -127,6 +129,7 @@ export function configuration() {
       allowedOrigins: [new URL(env.PUBLIC_URL).origin, ...env.ALLOWED_ORIGINS],
     },
     database: { url: env.DATABASE_URL, poolMax: env.DATABASE_POOL_MAX },
+    logging: { level: env.LOG_LEVEL },
     auth: {
       jwtSecret: env.JWT_SECRET,
       sessionMinutes: env.SESSION_MINUTES,

@@ -68,6 +68,8 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     JWT_SECRET: 'loomwright-test-secret-0123456789',
     // Tests sign in often from one address; throttling.spec.ts sets its own small limit.
     AUTH_THROTTLE_LIMIT: '1000',
+    // Request lines would drown the test output; warnings and errors still show.
+    LOG_LEVEL: 'warn',
     ...options.env,
   });
   // Imported after the environment is set: the module reads it while it is being declared.

@@ -1,0 +1,151 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startMailFake, type MailFake } from '../fakes/mail/mail-fake';
+import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fake';
+import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
+import { eventually, payOnHostedPage } from './support/payment-harness';
+import { createEmptyDatabase } from './support/test-app';
+
+const JWT_SECRET = 'log-hygiene-jwt-secret-7f3a9c21d4';
+const STRIPE_SECRET_KEY = 'sk_test_log_hygiene_5e8b1d0c9a';
+const WEBHOOK_SECRET = 'whsec_log_hygiene_44c0a7e2b9';
+const SIGN_UP_PASSWORD = 'marigold-Cable-73-snake';
+const NEW_PASSWORD = 'quiet-Treadle-19-lantern';
+// Stripe testing documentation, "Test card numbers": 4242 4242 4242 4242 succeeds.
+const CARD = '4242424242424242';
+const board = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'journeyman' };
+
+/**
+ * A whole journey through a real API process (the built one, as `npm start` runs it) with its
+ * stdout and stderr captured at the most talkative level: sign-up, sign-in, an estimate, a
+ * booking, checkout on the payment fake, the signed webhook, a password reset from the e-mailed
+ * link. No secret may appear in any line: passwords, session cookies (the JWTs), the reset token,
+ * the payment secret key, the webhook secret or any webhook signature, the JWT secret, the card.
+ * (OWASP Logging Cheat Sheet, "Data to exclude": session ids, access tokens, passwords,
+ * payment card data, encryption keys.)
+ */
+describe('log hygiene over a whole journey', () => {
+  let api: ApiProcess;
+  let payments: PaymentFake;
+  let mail: MailFake;
+  let drop: () => Promise<void>;
+  const signatures: string[] = [];
+  const realFetch = globalThis.fetch;
+
+  beforeAll(async () => {
+    const database = await createEmptyDatabase('lw_logs');
+    drop = database.drop;
+    // The fake signs each webhook as the provider does; every signature it sends is kept to grep for.
+    globalThis.fetch = (async (input: Parameters<typeof fetch>[0], init?: RequestInit) => {
+      const headers = new Headers(init?.headers);
+      const signature = headers.get('stripe-signature');
+      if (signature) signatures.push(signature);
+      return realFetch(input, init);
+    }) as typeof fetch;
+    payments = await startPaymentFake({ port: 0, webhookSecret: WEBHOOK_SECRET, retryDelaysMs: [100, 200, 400] });
+    mail = await startMailFake({ smtpPort: 0, httpPort: 0 });
+    api = await startApiProcess({
+      DATABASE_URL: database.url,
+      SEED_DEMO: 'true',
+      RUN_WORKERS: 'true',
+      LOG_LEVEL: 'trace',
+      JWT_SECRET,
+      STRIPE_SECRET_KEY,
+      STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
+      STRIPE_API_HOST: '127.0.0.1',
+      STRIPE_API_PORT: String(payments.port),
+      STRIPE_API_PROTOCOL: 'http',
+      SMTP_HOST: '127.0.0.1',
+      SMTP_PORT: String(mail.smtpPort),
+      MAIL_RETRY_DELAY_SECONDS: '1',
+    });
+    payments.webhooks.url = `${api.url}/api/payments/webhook`;
+  }, 90_000);
+
+  afterAll(async () => {
+    globalThis.fetch = realFetch;
+    await api?.stop();
+    await payments?.close();
+    await mail?.stop();
+    await drop?.();
+  });
+
+  it('logs one JSON line per request with its id, and no secret anywhere', async () => {
+    const player = new Visitor(api.url);
+    const email = 'lena.hygiene@mail.example';
+    const signUp = await player.call('POST', '/api/auth/sign-up', { name: 'Lena Hygiene', email, password: SIGN_UP_PASSWORD });
+    expect(signUp.status, signUp.text).toBe(201);
+    const cookies = [player.cookies.get('lw_session')!];
+    await player.call('POST', '/api/auth/sign-out', {});
+    const signIn = await player.call('POST', '/api/auth/sign-in', { email, password: SIGN_UP_PASSWORD });
+    expect(signIn.status, signIn.text).toBe(200);
+    cookies.push(player.cookies.get('lw_session')!);
+    // A wrong password is logged as a 401 line, without the password tried.
+    expect((await new Visitor(api.url).call('POST', '/api/auth/sign-in', { email, password: `${SIGN_UP_PASSWORD}x` })).status).toBe(401);
+
+    const estimate = await player.call('POST', '/api/estimates', board);
+    expect(estimate.status, estimate.text).toBe(200);
+    // An id from a load balancer is kept and echoed; a malformed one is replaced.
+    const booking = await player.call('POST', '/api/bookings', { configuration: board, notes: 'Tuner first.' }, { 'x-request-id': 'lb-7d1e.42:booking' });
+    expect(booking.status, booking.text).toBe(201);
+    expect(booking.headers.get('x-request-id')).toBe('lb-7d1e.42:booking');
+    const forged = await player.call('GET', '/api/auth/me', undefined, { 'x-request-id': 'a b {"level":60} '.repeat(12) });
+    expect(forged.headers.get('x-request-id')).toMatch(/^[0-9a-f-]{36}$/);
+
+    const checkout = await player.call('POST', `/api/bookings/${booking.body.id}/checkout`, {});
+    expect(checkout.status, checkout.text).toBe(200);
+    expect((await payOnHostedPage(checkout.body.url, CARD)).status).toBe(303);
+    await eventually(async () => (await player.call('GET', `/api/bookings/${booking.body.id}`)).body?.state === 'deposit_paid', 'the deposit webhook', 15_000);
+    expect(signatures.length).toBeGreaterThan(0);
+
+    const reset = await new Visitor(api.url).call('POST', '/api/auth/password-reset', { email });
+    expect(reset.status).toBe(202);
+    const resetMail = await eventually(async () => mail.messages.find((m) => m.to.includes(email) && /token=/.test(m.text)), 'the reset e-mail', 15_000);
+    const link = resetMail.text.match(/https?:\/\/\S*token=[^\s)>\]]+/)![0];
+    const token = new URL(link).searchParams.get('token')!;
+    // The player opens the link: the storefront's page is asked for with the token in its query.
+    await new Visitor(api.url).call('GET', `/reset-password?token=${encodeURIComponent(token)}`);
+    const confirm = await new Visitor(api.url).call('POST', '/api/auth/password-reset/confirm', { token, password: NEW_PASSWORD });
+    expect(confirm.status, confirm.text).toBe(200);
+    const resetCookie = confirm.headers.getSetCookie().find((c) => c.startsWith('lw_session='))!.split(';')[0]!.slice('lw_session='.length);
+    cookies.push(resetCookie);
+
+    // Let the last lines (mail worker, webhook) be written.
+    await new Promise((r) => setTimeout(r, 1_500));
+    const output = api.output();
+    const secrets: Record<string, string> = {
+      'sign-up password': SIGN_UP_PASSWORD,
+      'new password': NEW_PASSWORD,
+      'reset token': token,
+      'payment secret key': STRIPE_SECRET_KEY,
+      'webhook secret': WEBHOOK_SECRET,
+      'JWT secret': JWT_SECRET,
+      'card number': CARD,
+      'card number, spaced': '4242 4242 4242 4242',
+    };
+    cookies.forEach((c, i) => {
+      secrets[`session cookie ${i + 1}`] = c;
+      // A JWT's signature part alone would still let no one in, but its payload+signature would.
+      secrets[`session JWT signature ${i + 1}`] = c.split('.').pop()!;
+    });
+    signatures.forEach((s, i) => {
+      secrets[`webhook signature ${i + 1}`] = s;
+      for (const part of s.split(',')) if (part.startsWith('v1=')) secrets[`webhook HMAC ${i + 1}`] = part.slice(3);
+    });
+    const leaks = Object.entries(secrets).filter(([, value]) => value && output.includes(value)).map(([name]) => name);
+    expect(leaks, `secrets found in the API's logs`).toEqual([]);
+
+    // Every stdout line is one JSON object; every request line names its request id.
+    const records = api.lines.filter((l) => l.trim()).map((l) => JSON.parse(l) as Record<string, any>);
+    const requestLines = records.filter((r) => r.req && r.res);
+    expect(requestLines.length).toBeGreaterThan(10);
+    for (const r of requestLines) expect(r.requestId, JSON.stringify(r)).toBe(r.req.id);
+    const bookingLines = records.filter((r) => r.requestId === 'lb-7d1e.42:booking');
+    expect(bookingLines.some((r) => r.req?.url === '/api/bookings' && r.res?.statusCode === 201)).toBe(true);
+    // Headers are logged with their secrets blanked, not left out silently.
+    const withCookie = requestLines.find((r) => r.req.headers?.cookie);
+    expect(withCookie?.req.headers.cookie).toBe('[redacted]');
+    const webhookLine = requestLines.find((r) => r.req.url === '/api/payments/webhook');
+    expect(webhookLine?.req.headers['stripe-signature']).toBe('[redacted]');
+    expect(requestLines.find((r) => String(r.req.url).startsWith('/reset-password'))?.req.url).toBe('/reset-password?token=%5Bredacted%5D');
+  });
+});
