@@ -79,8 +79,11 @@ describe('log hygiene over a whole journey', () => {
     const signIn = await player.call('POST', '/api/auth/sign-in', { email, password: SIGN_UP_PASSWORD });
     expect(signIn.status, signIn.text).toBe(200);
     cookies.push(player.cookies.get('lw_session')!);
-    // A wrong password is logged as a 401 line, without the password tried.
-    expect((await new Visitor(api.url).call('POST', '/api/auth/sign-in', { email, password: `${SIGN_UP_PASSWORD}x` })).status).toBe(401);
+    // A wrong password is logged as a 401 line, without the password tried; the error body names
+    // the request id the answer header carries, so a player's report finds its line.
+    const refused = await new Visitor(api.url).call('POST', '/api/auth/sign-in', { email, password: `${SIGN_UP_PASSWORD}x` });
+    expect(refused.status).toBe(401);
+    expect(refused.body.requestId).toBe(refused.headers.get('x-request-id'));
 
     const estimate = await player.call('POST', '/api/estimates', board);
     expect(estimate.status, estimate.text).toBe(200);
@@ -139,6 +142,7 @@ describe('log hygiene over a whole journey', () => {
     const requestLines = records.filter((r) => r.req && r.res);
     expect(requestLines.length).toBeGreaterThan(10);
     for (const r of requestLines) expect(r.requestId, JSON.stringify(r)).toBe(r.req.id);
+    expect(requestLines.some((r) => r.requestId === refused.body.requestId && r.res.statusCode === 401)).toBe(true);
     const bookingLines = records.filter((r) => r.requestId === 'lb-7d1e.42:booking');
     expect(bookingLines.some((r) => r.req?.url === '/api/bookings' && r.res?.statusCode === 201)).toBe(true);
     // Headers are logged with their secrets blanked, not left out silently.
