@@ -110,6 +110,78 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     expect(flat).toContain('lead');
   });
 
+  it("prints the booking's money from its money facts: firm quote lines that add up, extras, each payment and refund at its own time in the shop's zone, and the balance", async () => {
+    // A worked example checked in whole cents (BigInt), not with the code under test: the rule the
+    // shop states is balance = firm total + approved extras − (paid − refunded) (common practice,
+    // no published source). Rate 125.00/h is the seeded master builder's.
+    const estimate = (await t.db.selectFrom('quotes').select('estimate').where('booking_id', '=', bookingId).executeTakeFirstOrThrow()).estimate;
+    const cents = (v: string) => BigInt(Math.round(Number(v) * 100));
+    const hoursCentis = cents(estimate.laborHours); // hours × 100
+    const laborCents = (12500n * hoursCentis) / 100n; // 125.00 × hours, exact for quarter hours
+    const totalCents = laborCents + cents(estimate.materialsTotal);
+    const dollars = (c: bigint) => `$${(c / 100n).toLocaleString('en-US')}.${String(c % 100n).padStart(2, '0')}`;
+    await t.db
+      .insertInto('quotes')
+      .values({
+        booking_id: bookingId,
+        kind: 'firm',
+        price_book_version: 1,
+        currency: 'USD',
+        configuration: JSON.stringify(config),
+        estimate: JSON.stringify(estimate),
+        labor_hours: estimate.laborHours,
+        total_low: estimate.totalLow,
+        total_high: estimate.totalHigh,
+        deposit: estimate.deposit,
+        hourly_rate: '125.00',
+        labor_total: (Number(laborCents) / 100).toFixed(2),
+        total: (Number(totalCents) / 100).toFixed(2),
+        expires_at: new Date(Date.now() + 30 * 86_400_000),
+      })
+      .execute();
+    await t.db
+      .insertInto('booking_extras')
+      .values([
+        { booking_id: bookingId, description: 'Longer road case', amount: '45.50', reason: 'The board grew', status: 'approved' },
+        { booking_id: bookingId, description: 'Second buffer', amount: '60.00', reason: 'Long cable run', status: 'proposed' },
+        { booking_id: bookingId, description: 'Engraved plate', amount: '25.00', reason: 'Asked at intake', status: 'declined' },
+      ])
+      .execute();
+    await t.db
+      .insertInto('payments')
+      .values([
+        { booking_id: bookingId, kind: 'deposit', amount: estimate.deposit, amount_minor: Number(cents(estimate.deposit)), currency: 'USD', status: 'paid', paid_at: new Date('2026-11-30T15:00:00Z') },
+        // A balance payment taken twice by mistake and refunded a day later.
+        { booking_id: bookingId, kind: 'balance', amount: '100.00', amount_minor: 10000, currency: 'USD', status: 'refunded', paid_at: new Date('2026-12-01T16:30:00Z'), refunded_at: new Date('2026-12-02T17:45:00Z') },
+      ])
+      .execute();
+    await t.db.updateTable('shop_settings').set({ timezone: 'America/Denver', locale: 'en-US' }).execute();
+
+    const owner = await signedIn('owner@shop.example');
+    const res = await owner.get(`/api/bookings/${bookingId}/build-sheet`).buffer(true).parse(binary).expect(200);
+    const flat = (await pdfParse(res.body as Buffer)).text.replace(/[\s\u202f]+/g, ' ');
+    const balanceCents = totalCents + 4550n - cents(estimate.deposit);
+    expect(flat).toContain('Money');
+    expect(flat).toContain(`Firm total ${dollars(totalCents)}`);
+    expect(flat).toContain(`Approved extras${dollars(4550n)}`);
+    expect(flat).toContain(`Balance due${dollars(balanceCents)}`);
+    // The API's own figure agrees with the paper.
+    const detail = (await owner.get(`/api/bookings/${bookingId}`).expect(200)).body;
+    expect(cents(detail.money.balanceDue)).toBe(balanceCents);
+    // Each movement at its own time, in the shop's zone (America/Denver is UTC−7 in winter: IANA tz database).
+    expect(flat).toContain('Deposit paidMon, Nov 30, 2026, 8:00 AM MST');
+    expect(flat).toContain('Balance paidTue, Dec 1, 2026, 9:30 AM MST');
+    expect(flat).toContain('Balance refundedWed, Dec 2, 2026, 10:45 AM MST');
+    expect(flat).toContain("Extras waiting for the player's answer ($60.00) are not counted until approved.");
+    expect(flat).toMatch(/Engraved plate ?declined ?\$25\.00/);
+    // The firm quote's lines (labor at the one rate) add up to its total, to the cent.
+    const amounts = [...flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total')).matchAll(/\$([\d,]+\.\d{2})/g)].map((m) => cents(m[1]!.replace(/,/g, '')));
+    expect(amounts.length).toBeGreaterThan(3);
+    expect(flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total'))).toContain('at 125.00 per hour');
+    expect(flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total'))).not.toMatch(/per hour.*–|–.*per hour/);
+    expect(amounts.reduce((a, b) => a + b, 0n)).toBe(totalCents);
+  });
+
   it('is for staff only, and answers 404 for an unknown booking and 400 for a malformed id', async () => {
     await t.http().get(`/api/bookings/${bookingId}/build-sheet`).expect(401);
     const player = await signedIn('player@mail.example');

@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import type { EstimateResult, FunctionItem, RigChecks, RigConfiguration } from '@loomwright/shared';
+import { moneyAccount, type EstimateResult, type FunctionItem, type MoneyFacts, type QuoteView, type RigChecks, type RigConfiguration, type ShopFormat } from '@loomwright/shared';
 import PDFDocument from 'pdfkit';
 
 /** Everything one sheet prints, gathered by the service. */
@@ -9,6 +9,13 @@ export interface BuildSheetData {
   reference: string;
   stateLabel: string;
   customer: string;
+  /** The booking's money: its facts from moneyFacts(), the quote it is priced on, its extras, and the shop's formats. */
+  money: {
+    facts: MoneyFacts;
+    quote: QuoteView;
+    extras: Array<{ description: string; amount: string; status: 'proposed' | 'approved' | 'declined' }>;
+    format: ShopFormat;
+  };
   builder: string | null;
   benchDate: string | null;
   expectedCompletion: string | null;
@@ -144,6 +151,48 @@ const ma = (n: number) => `${n} mA`;
 const watts = (n: number | null) => (n === null ? '—' : `${n.toFixed(2)} W`);
 const polarity = (p: string) => (p === 'center_positive' ? 'centre +' : 'centre −');
 
+const extraWords = { proposed: 'waiting for the player', approved: 'approved', declined: 'declined' } as const;
+
+/**
+ * The money section: the quote's lines (a firm quote's labor at the builder's one rate, so the
+ * lines add up to its total), the extras with their answers, and the account from moneyAccount()
+ * over the booking's moneyFacts(): the same lines, in the same words, as both apps show.
+ */
+function writeMoney(sheet: Sheet, money: BuildSheetData['money']) {
+  const { facts, quote, extras, format } = money;
+  const cur = facts.currency;
+  sheet.heading('Money');
+  sheet.table(
+    [quote.kind === 'firm' ? 'Firm quote' : 'Estimate (no firm quote yet)', 'Quantity', 'Amount'],
+    quote.lines.map((l) => [
+      `${l.label}${l.explanation ? ` (${l.explanation})` : ''}`,
+      `${l.quantity} ${l.unit}`,
+      l.amountHigh && l.amountHigh !== l.amount ? format.moneyRange(l.amount, l.amountHigh, cur) : format.money(l.amount, cur),
+    ]),
+    [0.6, 0.15, 0.25],
+  );
+  sheet.paragraph(
+    quote.kind === 'firm' && quote.total !== null
+      ? `Firm total ${format.money(quote.total, cur)} (${quote.laborHours} h at ${format.perHour(quote.hourlyRate, cur)}).`
+      : `Estimated total ${format.moneyRange(quote.totalLow, quote.totalHigh, cur)}.`,
+    { bold: true },
+  );
+  if (extras.length) {
+    sheet.table(
+      ['Extra', 'Answer', 'Amount'],
+      extras.map((e) => [e.description, extraWords[e.status], format.money(e.amount, cur)]),
+      [0.6, 0.2, 0.2],
+    );
+  }
+  const account = moneyAccount(facts, (amount, currency) => format.money(amount, currency));
+  sheet.table(
+    ['Account', 'When', 'Amount'],
+    account.rows.map((r) => [r.label, r.at ? format.dateTime(r.at) : '', format.money(r.amount, cur)]),
+    [0.45, 0.35, 0.2],
+  );
+  if (account.notes.length) sheet.bullets(account.notes);
+}
+
 /** Renders the sheet to a PDF buffer. */
 export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   const sheet = new Sheet(`Build sheet ${data.reference}`);
@@ -253,6 +302,8 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   );
   if (checks.boardFit.warnings.length) sheet.bullets(checks.boardFit.warnings);
   if (checks.boardFit.layout.length) sheet.layout(checks);
+
+  writeMoney(sheet, data.money);
 
   sheet.heading("Customer's notes");
   sheet.paragraph(data.customerNotes.trim() || 'No notes.');

@@ -1,8 +1,9 @@
 import { Module } from '@nestjs/common';
+import { BookingsModule } from '../bookings/bookings.module';
 import { PriceBookModule } from '../price-book/price-book.module';
 import { BuildSheetsController } from './build-sheets.controller';
 import { BuildSheetsRepository } from './build-sheets.repository';
 import { BuildSheetsService } from './build-sheets.service';
 
-@Module({ imports: [PriceBookModule], controllers: [BuildSheetsController], providers: [BuildSheetsService, BuildSheetsRepository], exports: [BuildSheetsService] })
+@Module({ imports: [PriceBookModule, BookingsModule], controllers: [BuildSheetsController], providers: [BuildSheetsService, BuildSheetsRepository], exports: [BuildSheetsService] })
 export class BuildSheetsModule {}

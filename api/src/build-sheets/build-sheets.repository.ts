@@ -41,7 +41,8 @@ export class BuildSheetsRepository {
       .executeTakeFirst();
   }
 
-  findShopName(trx: Executor = this.db) {
-    return trx.selectFrom('shop_settings').select('name').where('id', '=', 1).executeTakeFirst();
+  /** The shop's name and voice (locale, currency, time zone): the sheet writes money and moments as the shop does. */
+  findShop(trx: Executor = this.db) {
+    return trx.selectFrom('shop_settings').select(['name', 'locale', 'currency', 'timezone']).where('id', '=', 1).executeTakeFirst();
   }
 }

@@ -1,5 +1,7 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
-import { bookingStateLabels, estimateRig, type EstimateResult, type RigChecks } from '@loomwright/shared';
+import { bookingStateLabels, estimateRig, shopFormat, type AuthUser, type EstimateResult, type RigChecks } from '@loomwright/shared';
+import { BookingsService } from '../bookings/bookings.service';
+import { bookingAsSeenBy } from '../bookings/customer-contact.interceptor';
 import { PriceBookService } from '../price-book/price-book.service';
 import { renderBuildSheet } from './build-sheet-document';
 import { BuildSheetsRepository } from './build-sheets.repository';
@@ -9,13 +11,14 @@ export class BuildSheetsService {
   constructor(
     private readonly sheets: BuildSheetsRepository,
     private readonly priceBook: PriceBookService,
+    private readonly bookings: BookingsService,
   ) {}
 
   /**
    * The sheet is printed from the quote as priced: its configuration and its price book version,
    * so a later price change never alters what the bench builds from.
    */
-  async render(bookingId: string): Promise<{ reference: string; pdf: Buffer }> {
+  async render(bookingId: string, viewer: AuthUser): Promise<{ reference: string; pdf: Buffer }> {
     const booking = await this.sheets.findBooking(bookingId);
     if (!booking) throw new NotFoundException(`No booking ${bookingId}`);
     const quote = await this.sheets.findLatestQuote(bookingId);
@@ -32,11 +35,22 @@ export class BuildSheetsService {
       estimate = { ...estimate, checks: estimateRig(configuration, book, { version: quote.price_book_version }).checks };
     }
     const checks = estimate.checks as RigChecks;
+    // The money on paper is the booking's own money facts (one function for the apps, mails and
+    // this sheet), and the customer's address follows the same rule as on screen.
+    const detail = bookingAsSeenBy(viewer, await this.bookings.getDetail(bookingId));
+    const shop = await this.sheets.findShop();
+    const format = shopFormat({ locale: shop?.locale, currency: detail.money.currency, timeZone: shop?.timezone });
     const pdf = await renderBuildSheet({
-      shopName: (await this.sheets.findShopName())?.name ?? 'Loomwright',
+      shopName: shop?.name ?? 'Loomwright',
       reference: booking.reference,
       stateLabel: bookingStateLabels[booking.state],
-      customer: `${booking.customer_name} <${booking.customer_email}>`,
+      customer: detail.customer.email ? `${booking.customer_name} <${detail.customer.email}>` : booking.customer_name,
+      money: {
+        facts: detail.money,
+        quote: detail.firmQuote ?? detail.quote,
+        extras: detail.extras.map((e) => ({ description: e.description, amount: e.amount, status: e.status })),
+        format,
+      },
       builder: booking.builder_name ? `${booking.builder_name} (${booking.builder_level})` : null,
       benchDate: booking.bench_date,
       expectedCompletion: booking.expected_completion,

@@ -134,6 +134,8 @@ export function firmQuoteLines(lines: EstimateLine[], hourlyRate: string, laborT
     if (line.kind !== 'labor') return line;
     const amount = amounts[j++];
     const { amountHigh: _high, ...rest } = line;
-    return { ...rest, unitPrice: formatMoney(hourlyRate, currency), amount: amount.toFixed(digits) };
+    // The estimate explains a labor line at the level's range of rates; a firm line is at one rate.
+    const explanation = rest.explanation?.replace(/, at [^,]+–[^,]+ per hour$/, `, at ${formatMoney(hourlyRate, currency)} per hour`);
+    return { ...rest, ...(explanation !== undefined && { explanation }), unitPrice: formatMoney(hourlyRate, currency), amount: amount.toFixed(digits) };
   });
 }

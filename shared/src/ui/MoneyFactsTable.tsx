@@ -1,5 +1,6 @@
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
+import { moneyAccount } from '../money/money-account';
 import type { MoneyFacts } from '../money/money-facts';
 
 interface Props {
@@ -9,37 +10,14 @@ interface Props {
   formatMoment: (iso: string) => string;
 }
 
-const paymentWords = { deposit: 'Deposit', balance: 'Balance' } as const;
-
 /**
- * The booking's money as one short account, the same words in the storefront and the backoffice:
- * firm quote, approved extras, each payment and each refund at its own time, and what is due.
+ * The booking's money as one short account, the same words in the storefront, the backoffice and
+ * the build sheet (`moneyAccount()`): firm quote, approved extras, each payment and each refund at
+ * its own time, and what is due.
  */
 export function MoneyFactsTable({ money, formatMoney, formatMoment }: Props) {
   const c = money.currency;
-  const when = (at: string | null) => (at ? formatMoment(at) : '');
-  const rows: Array<{ key: string; label: string; detail?: string; amount: string; strong?: boolean }> = [];
-  if (money.firmTotal !== null) rows.push({ key: 'firm', label: 'Firm quote', amount: money.firmTotal });
-  if (money.firmTotal !== null || money.approvedExtras !== formatZero(money.approvedExtras)) {
-    rows.push({ key: 'extras', label: 'Approved extras', amount: money.approvedExtras });
-  }
-  money.ledger.forEach((entry, i) =>
-    rows.push({
-      key: `ledger-${i}`,
-      label: entry.kind === 'refund' ? `${paymentWords[entry.paymentKind]} refunded` : `${paymentWords[entry.paymentKind]} paid`,
-      detail: when(entry.at),
-      amount: entry.amount,
-    }),
-  );
-  if (money.balanceDue !== null) {
-    rows.push({
-      key: 'due',
-      label: money.balanceWaived && money.balanceDue !== formatZero(money.balanceDue) ? 'Balance due (waived by the shop)' : 'Balance due',
-      amount: money.balanceDue,
-      strong: true,
-    });
-  }
-  if (money.credit !== formatZero(money.credit)) rows.push({ key: 'credit', label: 'Paid beyond the total (the shop refunds it)', amount: money.credit });
+  const { rows, notes } = moneyAccount(money, formatMoney);
   return (
     <>
       <Table size="sm" aria-label="Money" sx={{ fontVariantNumeric: 'tabular-nums', '& td:last-child': { textAlign: 'right' } }}>
@@ -48,10 +26,10 @@ export function MoneyFactsTable({ money, formatMoney, formatMoment }: Props) {
             <tr key={row.key}>
               <td>
                 {row.strong ? <b>{row.label}</b> : row.label}
-                {row.detail && (
+                {row.at && (
                   <Typography component="span" level="body-xs">
                     {' '}
-                    · {row.detail}
+                    · {formatMoment(row.at)}
                   </Typography>
                 )}
               </td>
@@ -60,18 +38,11 @@ export function MoneyFactsTable({ money, formatMoney, formatMoment }: Props) {
           ))}
         </tbody>
       </Table>
-      {money.proposedExtras !== formatZero(money.proposedExtras) && (
-        <Typography level="body-xs">
-          Extras waiting for the player&apos;s answer ({formatMoney(money.proposedExtras, c)}) are not counted until approved.
+      {notes.map((note) => (
+        <Typography key={note} level="body-xs">
+          {note}
         </Typography>
-      )}
-      {money.firmTotal === null && <Typography level="body-xs">The balance is worked out once a builder accepts and the quote is firm.</Typography>}
+      ))}
     </>
   );
-}
-
-/** "0.00" in the same digits as `amount`, so a zero is recognised without a float. */
-function formatZero(amount: string) {
-  const digits = amount.split('.')[1]?.length ?? 0;
-  return digits ? `0.${'0'.repeat(digits)}` : '0';
 }
