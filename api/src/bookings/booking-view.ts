@@ -14,7 +14,7 @@ import type {
   RigConfiguration,
 } from '@loomwright/shared';
 import { firmQuoteLines, formatMoney, fromProviderAmount } from '@loomwright/shared';
-import type { BookingEventRow, BookingListRow, ExtraRow, LayoutApprovalRow, PaymentRow, PhotoRow, QuoteRow } from './bookings.repository';
+import type { BookingEventRow, BookingListRow, ExtraRow, LayoutApprovalRow, PaymentRow, PhotoRow, QuoteRow, QuoteSummaryRow } from './bookings.repository';
 
 /** A numeric column (always two decimals in the database) in the currency's own digits: "181.00" JPY → "181". */
 function amountIn(value: string, currency: string): string;
@@ -173,14 +173,14 @@ export function photoView(row: PhotoRow): PhotoView {
 }
 
 /** The first estimate is the booking's quote; the newest firm quote (if any) is the firm one. */
-export function pickQuotes(quotes: QuoteRow[]): { estimate: QuoteRow | undefined; firm: QuoteRow | undefined } {
+export function pickQuotes<Q extends Pick<QuoteRow, 'kind'>>(quotes: Q[]): { estimate: Q | undefined; firm: Q | undefined } {
   return {
     estimate: quotes.find((q) => q.kind === 'estimate'),
     firm: [...quotes].reverse().find((q) => q.kind === 'firm'),
   };
 }
 
-export function summaryView(row: BookingListRow, quotes: QuoteRow[]): BookingSummary {
+export function summaryView(row: BookingListRow, quotes: QuoteSummaryRow[]): BookingSummary {
   const { estimate, firm } = pickQuotes(quotes);
   const config = row.configuration;
   const currency = (firm ?? estimate)?.currency.trim() ?? '';

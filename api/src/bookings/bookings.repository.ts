@@ -1,9 +1,10 @@
 import { Injectable } from '@nestjs/common';
-import { sql, type Insertable, type Selectable, type Updateable } from 'kysely';
+import { sql, type Insertable, type Selectable, type SelectQueryBuilder, type Updateable } from 'kysely';
 import type {
   BookingEventsTable,
   BookingExtrasTable,
   BookingsTable,
+  DB,
   Executor,
   LayoutApprovalsTable,
   PaymentsTable,
@@ -20,6 +21,8 @@ export type BookingEventRow = Selectable<BookingEventsTable>;
 export type PhotoRow = Selectable<PhotosTable>;
 export type ExtraRow = Selectable<BookingExtrasTable> & { recorded_by_name: string | null };
 export type LayoutApprovalRow = Selectable<LayoutApprovalsTable> & { recorded_by_name: string | null; requested_by_name: string | null };
+
+export type QuoteSummaryRow = Pick<QuoteRow, 'id' | 'booking_id' | 'kind' | 'currency' | 'labor_hours' | 'total_low' | 'total_high' | 'deposit' | 'total' | 'created_at'>;
 
 export interface BookingListRow extends BookingRow {
   customer_name: string;
@@ -58,6 +61,23 @@ const depositStatusSql = sql<DepositStatus>`(
     when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'pending') then 'pending'
     else 'unpaid'
   end)`;
+
+const depositExists = (status: string) =>
+  sql<boolean>`exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = ${status})`;
+const disputeOpen = sql<boolean>`exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit'
+  and p.dispute_id is not null and p.dispute_status not in ('won', 'warning_closed'))`;
+
+/** The same decision as depositStatusSql, as a condition the planner can run as joins. */
+function depositStatusIs(status: DepositStatus) {
+  const order = ['paid', 'refunded', 'processing', 'pending'] as const;
+  if (status === 'disputed') return disputeOpen;
+  const earlier = [sql<boolean>`not ${disputeOpen}`];
+  for (const s of order) {
+    if (s === status) return sql<boolean>`(${sql.join([...earlier, depositExists(s)], sql` and `)})`;
+    earlier.push(sql<boolean>`not ${depositExists(s)}`);
+  }
+  return sql<boolean>`(${sql.join(earlier, sql` and `)})`;
+}
 
 @Injectable()
 export class BookingsRepository {
@@ -100,27 +120,58 @@ export class BookingsRepository {
   }
 
   private listBase(trx: Executor, query: Omit<BookingListQuery, 'sort' | 'order' | 'limit' | 'offset'>) {
-    let qb = trx
-      .selectFrom('bookings')
-      .innerJoin('users as customer', 'customer.id', 'bookings.customer_id')
-      .leftJoin('builders', 'builders.id', 'bookings.builder_id')
-      .leftJoin('users as builder_user', 'builder_user.id', 'builders.user_id');
-    if (query.customerId) qb = qb.where('bookings.customer_id', '=', query.customerId);
-    if (query.state) qb = qb.where('bookings.state', '=', query.state as BookingRow['state']);
-    if (query.depositStatus) qb = qb.where(depositStatusSql, '=', query.depositStatus as 'paid');
+    return this.filtered(
+      trx
+        .selectFrom('bookings')
+        .innerJoin('users as customer', 'customer.id', 'bookings.customer_id')
+        .leftJoin('builders', 'builders.id', 'bookings.builder_id')
+        .leftJoin('users as builder_user', 'builder_user.id', 'builders.user_id'),
+      trx,
+      query,
+    );
+  }
+
+  /**
+   * The list's filters, written on `bookings` alone so the count needs no join and each can use an
+   * index: the search is a union of the reference's and the customers' trigram matches (an OR across
+   * two joined tables could only be a full scan), the deposit filter a set of EXISTS / NOT EXISTS
+   * that the planner turns into semi- and anti-joins on payments (the CASE that names the status
+   * is kept for display only).
+   */
+  private filtered<QB extends SelectQueryBuilder<DB, 'bookings', object>>(
+    qb: QB,
+    trx: Executor,
+    query: Omit<BookingListQuery, 'sort' | 'order' | 'limit' | 'offset'>,
+  ): QB {
+    let out = qb;
+    if (query.customerId) out = out.where('bookings.customer_id', '=', query.customerId) as QB;
+    if (query.state) out = out.where('bookings.state', '=', query.state as BookingRow['state']) as QB;
+    if (query.depositStatus) out = out.where(depositStatusIs(query.depositStatus as DepositStatus)) as QB;
     if (query.q) {
       const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      qb = qb.where((eb) =>
-        eb.or([
-          eb('bookings.reference', 'ilike', pattern),
-          eb('customer.name', 'ilike', pattern),
-          query.emailSearchForBuilderUserId
-            ? eb.and([eb(sql`customer.email::text`, 'ilike', pattern), eb('builders.user_id', '=', query.emailSearchForBuilderUserId)])
-            : eb(sql`customer.email::text`, 'ilike', pattern),
-        ]),
-      );
+      const customers = (column: 'name' | 'email') =>
+        trx
+          .selectFrom('users as u')
+          .select('u.id')
+          .where(column === 'name' ? sql.ref('u.name') : sql`u.email::text`, 'ilike', pattern);
+      const builderOnly = query.emailSearchForBuilderUserId;
+      // A builder finds a customer by e-mail only on their own builds (the address is hidden on the others).
+      const byEmail = trx
+        .selectFrom('bookings as e')
+        .select('e.id')
+        .where('e.customer_id', 'in', customers('email'))
+        .$if(!!builderOnly, (qb) =>
+          qb.where('e.builder_id', 'in', trx.selectFrom('builders as w').select('w.id').where('w.user_id', '=', builderOnly!)),
+        );
+      const matches = trx
+        .selectFrom('bookings as r')
+        .select('r.id')
+        .where('r.reference', 'ilike', pattern)
+        .unionAll(trx.selectFrom('bookings as n').select('n.id').where('n.customer_id', 'in', customers('name')))
+        .unionAll(byEmail);
+      out = out.where('bookings.id', 'in', matches) as QB;
     }
-    return qb;
+    return out;
   }
 
   /** A list row: the booking with its customer, builder and deposit status. */
@@ -138,13 +189,13 @@ export class BookingsRepository {
   }
 
   async list(query: BookingListQuery, trx: Executor = this.db): Promise<{ rows: BookingListRow[]; total: number }> {
-    const base = this.listBase(trx, query);
-    const { total } = await base
+    const { total } = await this.filtered(trx.selectFrom('bookings'), trx, query)
       .select((eb) => eb.fn.countAll<string>().as('total'))
       .executeTakeFirstOrThrow();
+    // The id breaks ties in the same direction as the sort, so one index (sort column, id) serves both orders.
     const rows = await this.listRows(trx, query)
       .orderBy(`bookings.${query.sort}`, query.order)
-      .orderBy('bookings.id')
+      .orderBy('bookings.id', query.order)
       .limit(query.limit)
       .offset(query.offset)
       .execute();
@@ -156,6 +207,18 @@ export class BookingsRepository {
       .where('bookings.id', '=', id)
       .executeTakeFirst();
     return row as BookingListRow | undefined;
+  }
+
+  /** What a list row shows of its quotes: the figures, never the engine's whole answer or the configuration. */
+  quoteSummariesFor(bookingIds: string[], trx: Executor = this.db): Promise<QuoteSummaryRow[]> {
+    if (bookingIds.length === 0) return Promise.resolve([]);
+    return trx
+      .selectFrom('quotes')
+      .select(['id', 'booking_id', 'kind', 'currency', 'labor_hours', 'total_low', 'total_high', 'deposit', 'total', 'created_at'])
+      .where('booking_id', 'in', bookingIds)
+      .orderBy('created_at')
+      .orderBy('id')
+      .execute();
   }
 
   quotesFor(bookingIds: string[], trx: Executor = this.db): Promise<QuoteRow[]> {

@@ -100,7 +100,7 @@ export class BookingsService {
       limit: pageSize,
       offset: (page - 1) * pageSize,
     });
-    const quotes = await this.bookings.quotesFor(rows.map((r) => r.id));
+    const quotes = await this.bookings.quoteSummariesFor(rows.map((r) => r.id));
     return {
       items: rows.map((row) => summaryView(row, quotes.filter((q) => q.booking_id === row.id))),
       total,

@@ -3,6 +3,7 @@ import { errorResponse } from '@loomwright/shared';
 import { sql } from 'kysely';
 import type { Catalog, PriceBook, PriceBookOverview, PriceBookVersionSummary } from '@loomwright/shared';
 import { Database, Executor } from '../database/database';
+import { PriceBookCache } from './price-book-cache';
 import { PriceBookRepository } from './price-book.repository';
 
 export interface PublishedPriceBook {
@@ -21,10 +22,20 @@ export class PriceBookService {
   constructor(
     private readonly db: Database,
     private readonly books: PriceBookRepository,
+    private readonly cache: PriceBookCache,
   ) {}
 
-  /** The version every new estimate is priced from. */
-  async current(trx: Executor = this.db): Promise<PublishedPriceBook> {
+  /**
+   * The version every new estimate is priced from. Without a transaction it comes from memory
+   * (PriceBookCache: every replica drops it when any version is published); inside one it is read
+   * there, so a booking and its quote see the same version as the rest of that transaction.
+   */
+  current(trx: Executor = this.db): Promise<PublishedPriceBook> {
+    if (trx === this.db) return this.cache.get(() => this.readCurrent(this.db));
+    return this.readCurrent(trx);
+  }
+
+  private async readCurrent(trx: Executor): Promise<PublishedPriceBook> {
     const row = await this.books.findCurrent(trx);
     if (!row) throw new ServiceUnavailableException(errorResponse('price_book_missing', 'No price book has been published yet; the owner publishes one in the backoffice.'));
     return { version: row.version, publishedAt: asDate(row.published_at), book: row.book };
@@ -78,6 +89,8 @@ export class PriceBookService {
         const next = (await this.books.latestVersionNumber(trx)) + 1;
         return this.books.insert({ version: next, book, notes, publishedBy }, trx);
       });
+      // This replica forgets the old book now; the others as their notification arrives.
+      this.cache.invalidate();
       return {
         version: row.version,
         currency: row.currency.trim(),

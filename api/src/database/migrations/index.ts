@@ -11,6 +11,7 @@ import * as mailUnknownOutcome from './20261202_0333_mail_unknown_outcome';
 import * as benchChanges from './20261202_0413_bench_changes';
 import * as shopLocale from './20261202_0530_shop_locale';
 import * as officeIndexes from './20261202_0546_office_indexes';
+import * as listsAtScale from './20261202_0614_lists_at_scale';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -29,4 +30,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0413_bench_changes': benchChanges,
   '20261202_0530_shop_locale': shopLocale,
   '20261202_0546_office_indexes': officeIndexes,
+  '20261202_0614_lists_at_scale': listsAtScale,
 };

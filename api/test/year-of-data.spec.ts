@@ -1,0 +1,99 @@
+import { sql } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BookingSummary, DepositStatus, Page } from '@loomwright/shared';
+import { depositStatuses } from '@loomwright/shared';
+import { seedYearOfData } from '../src/database/seed/year-of-data';
+import { sessionCookieFor } from './support/sessions';
+import { createTestApp, type TestApp } from './support/test-app';
+
+// The benchmark's data generator at a small scale, and the bookings list's rewritten filters checked
+// against the plain definitions they replace (the deposit CASE shown on each row, ILIKE over the joins).
+describe('a year of data (benchmark seed, small scale) and the lists over it', () => {
+  let t: TestApp;
+  let owner: string;
+  let counts: Record<string, number>;
+  const scale = { bookings: 2_000, customers: 120, builders: 4, mails: 3_000, fullEstimates: 50 };
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    owner = await sessionCookieFor(t, 'owner');
+    counts = await seedYearOfData(t.db, scale);
+  });
+  afterAll(async () => t.close());
+
+  it('makes the rows it promises, bench slices inside each day and matching the firm hours', async () => {
+    expect(counts.bookings).toBe(scale.bookings);
+    expect(counts.mail_outbox).toBe(scale.mails);
+    // One estimate each, and a firm quote for every accepted build.
+    const firm = await t.db.selectFrom('quotes').select(sql<string>`count(*)`.as('n')).where('kind', '=', 'firm').executeTakeFirstOrThrow();
+    const accepted = await t.db
+      .selectFrom('bookings')
+      .select(sql<string>`count(*)`.as('n'))
+      .where('state', 'in', ['scheduled', 'pedals_received', 'on_bench', 'delivered'])
+      .executeTakeFirstOrThrow();
+    expect(counts.quotes).toBe(scale.bookings + Number(firm.n));
+    expect(firm.n).toBe(accepted.n);
+    const slices = await sql<{ reference: string; booked: string; planned: string }>`
+      select b.reference, sum(upper(a.hours) - lower(a.hours))::numeric(8,2)::text as booked, q.labor_hours::text as planned
+      from bookings b join bench_allocations a on a.booking_id = b.id join quotes q on q.booking_id = b.id and q.kind = 'firm'
+      group by b.reference, q.labor_hours`.execute(t.db);
+    expect(slices.rows.length).toBeGreaterThan(100);
+    for (const r of slices.rows) expect(r.booked).toBe(r.planned);
+  });
+
+  const list = async (query: string) => {
+    const res = await t.http().get(`/api/bookings?${query}`).set("Cookie", owner).expect(200);
+    if (process.env.DEBUG_LIST) console.log(query, JSON.stringify(res.body).slice(0, 300));
+    return res.body as Page<BookingSummary>;
+  };
+
+  it('filters by deposit exactly as each row names its deposit', async () => {
+    // One open dispute, so every status the CASE knows is present.
+    await sql`update payments set dispute_id = 'dp_bench', dispute_status = 'needs_response'
+      where id = (select id from payments where kind = 'deposit' and status = 'paid' limit 1)`.execute(t.db);
+    const everything = [];
+    for (let page = 1; ; page++) {
+      const res = await list(`pageSize=100&page=${page}`);
+      everything.push(...res.items);
+      if (everything.length >= res.total) break;
+    }
+    expect(everything).toHaveLength(scale.bookings);
+    const byStatus = new Map<DepositStatus, number>();
+    for (const item of everything) byStatus.set(item.depositStatus, (byStatus.get(item.depositStatus) ?? 0) + 1);
+    expect([...byStatus.keys()].sort()).toEqual(['disputed', 'paid', 'pending', 'refunded', 'unpaid']);
+    for (const status of depositStatuses) {
+      const res = await list(`deposit=${status}&pageSize=5`);
+      expect(res.total, status).toBe(byStatus.get(status) ?? 0);
+      for (const item of res.items) expect(item.depositStatus).toBe(status);
+    }
+  });
+
+  it('searches references, names and e-mails as ILIKE over the joined rows would', async () => {
+    for (const q of ['LW-Y00012', 'ashgrove', 'PLAYER1', 'Nell Brack', '%', 'nobody-at-all']) {
+      const expected = await sql<{ n: string }>`
+        select count(*) as n from bookings b join users u on u.id = b.customer_id
+        where b.reference ilike ${`%${q.replace(/[\\%_]/g, '\\$&')}%`} or u.name ilike ${`%${q.replace(/[\\%_]/g, '\\$&')}%`}
+           or u.email::text ilike ${`%${q.replace(/[\\%_]/g, '\\$&')}%`}`.execute(t.db);
+      const res = await list(`q=${encodeURIComponent(q)}&pageSize=10`);
+      expect(res.total, q).toBe(Number(expected.rows[0]!.n));
+    }
+  });
+
+  it('pages through a sort without a gap or a repeat, both ways, and shows figures without the quote JSON', async () => {
+    for (const order of ['desc', 'asc']) {
+      for (const sort of ['created_at', 'bench_date', 'state']) {
+        const first = await list(`sort=${sort}&order=${order}&pageSize=50&page=1`);
+        const second = await list(`sort=${sort}&order=${order}&pageSize=50&page=2`);
+        const both = await list(`sort=${sort}&order=${order}&pageSize=100&page=1`);
+        expect([...first.items, ...second.items].map((i) => i.id)).toEqual(both.items.map((i) => i.id));
+      }
+    }
+    const last = await list(`pageSize=25&page=${scale.bookings / 25}`);
+    expect(last.items).toHaveLength(25);
+    expect(last.items.at(-1)!.reference).toBe('LW-Y000001');
+    const newest = (await list('pageSize=1')).items[0]!;
+    expect(newest.reference).toBe(`LW-Y00${scale.bookings}`);
+    expect(Number(newest.totalHigh)).toBeGreaterThan(Number(newest.totalLow));
+    expect(newest.pedalCount).toBe(13);
+  });
+});
