@@ -1,8 +1,8 @@
-import { Body, Controller, HttpCode, Post } from '@nestjs/common';
+import { Body, Controller, HttpCode, Post, Query } from '@nestjs/common';
 import { ApiBadRequestResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { rigConfigurationSchema, type RigConfiguration } from '@loomwright/shared';
+import { estimateQuerySchema, estimateView, rigConfigurationSchema, type EstimateQuery, type RigConfiguration } from '@loomwright/shared';
 import { Public } from '../auth/public.decorator';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodQuery } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { EstimatesService } from './estimates.service';
 
@@ -15,9 +15,17 @@ export class EstimatesController {
   @Post()
   @HttpCode(200)
   @ApiZodBody(rigConfigurationSchema)
-  @ApiOkResponse({ description: 'An itemized estimate with the rig checks; every amount a decimal string.' })
+  @ApiZodQuery(estimateQuerySchema)
+  @ApiOkResponse({
+    description:
+      'An itemized estimate with the rig checks; every amount a decimal string. With ?view=panel, the same without the ' +
+      "signal chain's device list and the cable schedule's per-cable and per-lead lists.",
+  })
   @ApiBadRequestResponse({ description: 'One message per field that needs fixing.' })
-  estimate(@Body(new ZodValidationPipe(rigConfigurationSchema)) config: RigConfiguration) {
-    return this.estimates.price(config);
+  async estimate(
+    @Body(new ZodValidationPipe(rigConfigurationSchema)) config: RigConfiguration,
+    @Query(new ZodValidationPipe(estimateQuerySchema)) query: EstimateQuery,
+  ) {
+    return estimateView(await this.estimates.price(config), query.view);
   }
 }

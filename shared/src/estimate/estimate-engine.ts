@@ -1,5 +1,6 @@
 /** The estimate engine and rig checks, in one import for the API and both apps. */
 export { estimateRig, depositFor } from './estimate-rig';
+export { estimateView, hasCableLists, type EstimatePanel, type PanelChecks } from './estimate-view';
 export { EstimateInputError } from './errors';
 export { minorUnitDigits, isKnownCurrency, roundToMinorUnit, formatMoney } from './money';
 export * from './schema';

@@ -27,7 +27,7 @@ const stepComponents: Record<StepId, ComponentType<StepProps>> = {
 
 export function Configurator({ catalog }: { catalog: Catalog }) {
   const { configuration, encoded, update, step, goToStep, restoredFrom, startOver, dismissRestored } = useConfiguration(catalog);
-  const live = useLiveEstimate(encoded);
+  const live = useLiveEstimate(encoded, step === 'review' ? 'full' : 'panel');
   const guard = useRef<(() => Promise<boolean>) | null>(null);
   const setLeaveGuard = useCallback((g: (() => Promise<boolean>) | null) => {
     guard.current = g;

@@ -1,5 +1,5 @@
 import { useMemo, useRef } from 'react';
-import { decodeConfiguration, type RigConfiguration } from '@loomwright/shared';
+import { decodeConfiguration, type EstimateView, type RigConfiguration } from '@loomwright/shared';
 import { useEstimate } from '../api/create-estimate';
 import { useDebouncedValue } from './use-debounced-value';
 
@@ -14,13 +14,13 @@ const DEBOUNCE_MS = 250;
  * Asks POST /api/estimates for the configuration once it has been still for a moment, so typing a
  * pedal name sends one request, not twenty. The previous figures stay until the next arrive.
  */
-export function useLiveEstimate(encoded: string) {
+export function useLiveEstimate(encoded: string, view: EstimateView = 'panel') {
   const settled = useDebouncedValue(encoded, DEBOUNCE_MS, () => {
     performance.clearMarks(ESTIMATE_REQUESTED_MARK);
     performance.mark(ESTIMATE_REQUESTED_MARK);
   });
   const configuration = useMemo(() => decodeConfiguration(settled) as RigConfiguration | undefined, [settled]);
-  const query = useEstimate(settled, configuration);
+  const query = useEstimate(settled, configuration, view);
   // A refused or failed request must not blank the figures the player was reading.
   const lastGood = useRef(query.data);
   if (query.data) lastGood.current = query.data;

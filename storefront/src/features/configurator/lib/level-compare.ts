@@ -38,7 +38,12 @@ export interface ExtraEffect {
 const difference = (a: string, b: string) => new Decimal(a).minus(b).toFixed();
 
 /** What toggling one extra does to the rig's minimum level and its price. */
-export function extraEffect(configuration: RigConfiguration, code: string, catalog: Catalog, now: EstimateResult): ExtraEffect | null {
+export function extraEffect(
+  configuration: RigConfiguration,
+  code: string,
+  catalog: Catalog,
+  now: Pick<EstimateResult, 'minimumLevel' | 'totalLow' | 'totalHigh'>,
+): ExtraEffect | null {
   const on = configuration.functions.includes(code);
   const functions = on ? configuration.functions.filter((f) => f !== code) : [...configuration.functions, code];
   const probe = localEstimate({ ...configuration, functions }, catalog);

@@ -1,0 +1,483 @@
+#!/usr/bin/env node
+// `npm run bench`: brings the product up on its own ports, measures it, and prints one table in
+// which each figure stands beside its ceiling from the same run where one exists (an unknown /api
+// path, answered 404 through every middleware, is the ceiling of any route). It judges nothing:
+// targets are printed for the reader, never asserted. Figures are as good as the machine is quiet.
+//
+// Sections (BENCH_ONLY=http,engine,bundle,lighthouse,latency,data,mail picks some; default all).
+// Ports (defaults in the 3370-3379 block): BENCH_PORT 3370, BENCH_PG_PORT 3371, BENCH_PAYMENT_PORT 3372,
+// BENCH_SMTP_PORT 3373, BENCH_MAIL_HTTP_PORT 3374. BENCH_SECONDS (8) per load run, BENCH_REPEAT (30)
+// calls per data figure, BENCH_SKIP_BUILD=true to reuse the last build, BENCH_SCALE=small for a quick try.
+import { spawn, spawnSync } from 'node:child_process';
+import { appendFileSync, existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { gzipSync } from 'node:zlib';
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+const root = path.resolve(here, '../..');
+const require = createRequire(import.meta.url);
+const env = process.env;
+const ports = {
+  api: Number(env.BENCH_PORT ?? 3370),
+  pg: Number(env.BENCH_PG_PORT ?? 3371),
+  payment: Number(env.BENCH_PAYMENT_PORT ?? 3372),
+  smtp: Number(env.BENCH_SMTP_PORT ?? 3373),
+  mailHttp: Number(env.BENCH_MAIL_HTTP_PORT ?? 3374),
+};
+const base = `http://127.0.0.1:${ports.api}`;
+const pgData = path.join(root, '.data/postgres-bench');
+const dbName = 'loomwright_bench';
+const seconds = Number(env.BENCH_SECONDS ?? 8);
+const repeat = Number(env.BENCH_REPEAT ?? 30);
+const only = new Set((env.BENCH_ONLY ?? 'http,engine,bundle,lighthouse,latency,data,mail').split(','));
+const chromiumPath = env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium';
+// ARCHITECTURE.md's flags for Debian's Chromium.
+const chromiumFlags = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+
+const rows = [];
+const notes = [];
+const say = (line) => process.stderr.write(`[bench] ${line}\n`);
+const row = (section, what, figure, ceiling = '', ratio = '', target = '') => rows.push({ section, what, figure, ceiling, ratio, target });
+const ms = (v) => (v === undefined || Number.isNaN(v) ? '–' : `${v < 10 ? v.toFixed(1) : Math.round(v)} ms`);
+const pct = (a, b) => (b ? `${Math.round((a / b) * 100)} %` : '');
+const quantile = (values, q) => {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1))];
+};
+
+/** The 13-pedal board: buffer, tuner, wah and ten compact pedals in series (the trade's reference board). */
+function benchBoard() {
+  const names = ['fuzz', 'overdrive', 'distortion', 'compressor', 'chorus', 'phaser', 'tremolo', 'analog delay', 'digital delay', 'reverb'];
+  return {
+    surfaceId: 'ridge-100',
+    caseId: 'shell-hard',
+    routing: { mode: 'serial' },
+    pedals: [
+      { name: 'Input/output buffer', kind: 'buffer', powered: true, inLoop: false },
+      { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false },
+      { name: 'Wah', kind: 'treadle', powered: true, inLoop: false },
+      ...names.map((name) => ({ name, kind: 'compact', powered: true, inLoop: false })),
+    ],
+    functions: [],
+    level: 'journeyman',
+  };
+}
+
+// ---------------------------------------------------------------- the stack
+function postgres(...args) {
+  const r = spawnSync('bash', [path.join(root, 'api/scripts/postgres.sh'), ...args], { stdio: ['ignore', 'ignore', 'inherit'] });
+  if (r.status !== 0) throw new Error(`postgres.sh ${args[0]} failed`);
+}
+
+let stack;
+async function startStack() {
+  if (env.BENCH_SKIP_BUILD !== 'true') {
+    say('building (npm run build)…');
+    const r = spawnSync('npm', ['run', 'build'], { cwd: root, stdio: ['ignore', 'ignore', 'inherit'] });
+    if (r.status !== 0) throw new Error('npm run build failed');
+  }
+  mkdirSync(pgData, { recursive: true });
+  postgres('ensure-installed');
+  postgres('start', pgData, String(ports.pg));
+  // auto_explain is loaded (switched off) so the data section can show the plan each call ran.
+  const pg = require('pg');
+  const admin = new pg.Client({ host: '127.0.0.1', port: ports.pg, user: 'postgres', database: 'postgres' });
+  await admin.connect();
+  const loaded = (await admin.query(`select setting from pg_settings where name = 'shared_preload_libraries'`)).rows[0].setting;
+  await admin.query(`alter system set shared_preload_libraries = 'auto_explain'`);
+  await admin.query(`alter system set auto_explain.log_min_duration = -1`);
+  await admin.query(`alter system set auto_explain.log_nested_statements = on`);
+  await admin.end();
+  if (!loaded.includes('auto_explain')) {
+    postgres('stop', pgData);
+    postgres('start', pgData, String(ports.pg));
+  }
+  say(`starting the product on ${base} (PostgreSQL 127.0.0.1:${ports.pg}, database ${dbName})…`);
+  stack = spawn(process.execPath, [path.join(root, 'api/scripts/stack.mjs')], {
+    cwd: root,
+    detached: true,
+    stdio: ['ignore', 'ignore', 'inherit'],
+    env: {
+      ...env,
+      PORT: String(ports.api),
+      PG_PORT: String(ports.pg),
+      PG_DATA: pgData,
+      DB_NAME: dbName,
+      PAYMENT_FAKE_PORT: String(ports.payment),
+      MAIL_FAKE_SMTP_PORT: String(ports.smtp),
+      MAIL_FAKE_HTTP_PORT: String(ports.mailHttp),
+      FRESH_DATABASE: 'true',
+      SEED_DEMO: 'true',
+      STACK_QUIET: 'true',
+      PUBLIC_URL: `http://localhost:${ports.api}`,
+      // Sign-in is throttled per address; the benchmark signs in a few times from one.
+      AUTH_THROTTLE_LIMIT: '1000',
+    },
+  });
+  const deadline = Date.now() + 120_000;
+  while (Date.now() < deadline) {
+    try {
+      if ((await fetch(`${base}/api/health`)).ok) return;
+    } catch {
+      // not yet
+    }
+    await new Promise((r) => setTimeout(r, 500));
+  }
+  throw new Error('the product did not come up within two minutes');
+}
+
+async function stopStack() {
+  if (!stack || stack.exitCode !== null) return;
+  await new Promise((resolve) => {
+    stack.once('exit', resolve);
+    process.kill(-stack.pid, 'SIGTERM');
+    setTimeout(() => {
+      try {
+        process.kill(-stack.pid, 'SIGKILL');
+      } catch {
+        // gone
+      }
+      resolve();
+    }, 15_000).unref();
+  });
+}
+
+// ---------------------------------------------------------------- HTTP under load
+async function load(opts) {
+  const autocannon = require('autocannon');
+  const result = await autocannon({ duration: seconds, ...opts });
+  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors + result.non2xx, bytes: result.throughput.average / Math.max(1, result.requests.average) };
+}
+
+async function httpSection() {
+  const estimateBody = JSON.stringify(benchBoard());
+  const json = { 'content-type': 'application/json' };
+  const sizeFull = (await (await fetch(`${base}/api/estimates`, { method: 'POST', headers: json, body: estimateBody })).text()).length;
+  const sizePanel = (await (await fetch(`${base}/api/estimates?view=panel`, { method: 'POST', headers: json, body: estimateBody })).text()).length;
+  notes.push(`estimate answer for the 13-pedal board: ${(sizeFull / 1000).toFixed(1)} kB whole, ${(sizePanel / 1000).toFixed(1)} kB with ?view=panel (what the configurator's panel shows)`);
+  for (const connections of [10, 50]) {
+    say(`load: ${connections} connections, ${seconds} s each…`);
+    const ceiling = await load({ url: `${base}/api/no-such-route`, connections });
+    const estimate = await load({ url: `${base}/api/estimates`, method: 'POST', headers: json, body: estimateBody, connections });
+    const panel = await load({ url: `${base}/api/estimates?view=panel`, method: 'POST', headers: json, body: estimateBody, connections });
+    const catalog = await load({ url: `${base}/api/catalog`, connections });
+    const lead = await load({ url: `${base}/api/bench/lead-time?hours=14.00&level=journeyman`, connections });
+    const label = `${connections} conn`;
+    row('HTTP', `404 ceiling (${label}) req/s · p50 · p99`, `${Math.round(ceiling.rps)} · ${ms(ceiling.p50)} · ${ms(ceiling.p99)}`, '', '100 %');
+    for (const [name, r, target] of [
+      ['POST /api/estimates 13 pedals', estimate, connections === 10 ? '≥ 70 %, p99 ≤ 15 ms' : ''],
+      ['POST /api/estimates?view=panel', panel, connections === 10 ? '≥ 70 %, p99 ≤ 15 ms' : ''],
+      ['GET /api/catalog', catalog, ''],
+      ['GET /api/bench/lead-time', lead, ''],
+    ]) {
+      row('HTTP', `${name} (${label}) req/s · p50 · p99`, `${Math.round(r.rps)} · ${ms(r.p50)} · ${ms(r.p99)}${r.errors ? ` · ${r.errors} errors` : ''}`, `${Math.round(ceiling.rps)}`, pct(r.rps, ceiling.rps), target);
+    }
+  }
+}
+
+// ---------------------------------------------------------------- the engine alone
+function engineSection() {
+  const { estimateRig, demoPriceBook } = require(path.join(root, 'shared/dist/index.js'));
+  const config = benchBoard();
+  for (let i = 0; i < 3_000; i++) estimateRig(config, demoPriceBook, { version: 1 });
+  const count = Number(env.BENCH_ENGINE_COUNT ?? 30_000);
+  const cpu0 = process.cpuUsage();
+  const t0 = process.hrtime.bigint();
+  for (let i = 0; i < count; i++) estimateRig(config, demoPriceBook, { version: 1 });
+  const wallMs = Number(process.hrtime.bigint() - t0) / 1e6;
+  const cpu = process.cpuUsage(cpu0);
+  const cpuUs = (cpu.user + cpu.system) / count;
+  row('engine', 'estimates/s, 13-pedal board, one core', `${Math.round(count / (wallMs / 1000)).toLocaleString('en-US')}`, '', '', '≥ 50,000');
+  row('engine', 'CPU per estimate', `${cpuUs.toFixed(1)} µs`, '', '', '≤ 20 µs');
+}
+
+// ---------------------------------------------------------------- first load
+function bundleSection() {
+  const dist = path.join(root, 'storefront/dist');
+  const manifest = JSON.parse(readFileSync(path.join(dist, '.vite/manifest.json'), 'utf8'));
+  const gz = (file) => gzipSync(readFileSync(path.join(dist, file)), { level: 9 }).length;
+  const closure = (key, seen = new Set()) => {
+    if (!manifest[key] || seen.has(key)) return seen;
+    seen.add(key);
+    for (const dep of manifest[key].imports ?? []) closure(dep, seen);
+    return seen;
+  };
+  const entryKey = Object.keys(manifest).find((k) => manifest[k].isEntry);
+  const find = (suffix) => Object.keys(manifest).find((k) => k.endsWith(suffix));
+  const routes = {
+    '/': [entryKey, find('app/routes/home.tsx')],
+    '/configure': [entryKey, find('app/routes/configure.tsx'), find('steps/SurfaceStep.tsx')],
+  };
+  for (const [route, keys] of Object.entries(routes)) {
+    const all = new Set();
+    for (const k of keys.filter(Boolean)) closure(k, all);
+    let js = 0;
+    const css = new Set();
+    for (const k of all) {
+      js += gz(manifest[k].file);
+      for (const c of manifest[k].css ?? []) css.add(c);
+    }
+    const cssBytes = [...css].reduce((s, f) => s + gz(f), 0);
+    row('first load', `${route} gzipped JS · CSS`, `${(js / 1000).toFixed(1)} kB · ${(cssBytes / 1000).toFixed(1)} kB`, '150 kB', pct(js, 150_000), '≤ 150 kB JS');
+  }
+}
+
+// ---------------------------------------------------------------- Lighthouse
+async function lighthouseSection() {
+  const { default: lighthouse } = await import('lighthouse');
+  const { default: desktopConfig } = await import('lighthouse/core/config/desktop-config.js');
+  const chromeLauncher = await import('chrome-launcher');
+  for (const route of ['/', '/configure']) {
+    for (const preset of ['mobile', 'desktop']) {
+      say(`Lighthouse ${preset} ${route}…`);
+      const chrome = await chromeLauncher.launch({ chromePath: chromiumPath, chromeFlags: ['--headless=new', ...chromiumFlags] });
+      try {
+        const result = await lighthouse(
+          `${base}${route}`,
+          { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'] },
+          preset === 'desktop' ? desktopConfig : undefined,
+        );
+        const { categories, audits } = result.lhr;
+        const score = (c) => Math.round((categories[c]?.score ?? 0) * 100);
+        row(
+          'Lighthouse',
+          `${route} ${preset}: perf · LCP · TBT · CLS · a11y · best pr. · SEO`,
+          `${score('performance')} · ${ms(audits['largest-contentful-paint'].numericValue)} · ${ms(audits['total-blocking-time'].numericValue)} · ${audits['cumulative-layout-shift'].numericValue.toFixed(3)} · ${score('accessibility')} · ${score('best-practices')} · ${score('seo')}`,
+          '',
+          '',
+          'perf ≥ 95, CLS ≤ 0.02, BP/SEO 100',
+        );
+        const failing = Object.values(audits).filter((a) => a.score !== null && a.score < 1 && ['binary', 'numeric'].includes(a.scoreDisplayMode) && !a.id.includes('metric'));
+        const named = failing.filter((a) => ['errors-in-console', 'http-status-code', 'robots-txt', 'is-crawlable', 'label-content-name-mismatch', 'layout-shifts', 'unused-javascript', 'render-blocking-resources'].includes(a.id));
+        if (named.length) notes.push(`Lighthouse ${preset} ${route}: ${named.map((a) => `${a.id}${a.displayValue ? ` (${a.displayValue})` : ''}`).join(', ')}`);
+      } finally {
+        await chrome.kill();
+      }
+    }
+  }
+}
+
+// ---------------------------------------------------------------- estimate on screen
+async function latencySection() {
+  const { chromium } = require('@playwright/test');
+  const browser = await chromium.launch({ executablePath: chromiumPath, args: chromiumFlags });
+  try {
+    const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
+    await page.goto(`${base}/configure?step=pedals`);
+    await page.getByTestId('estimate-total').filter({ hasText: '$' }).waitFor();
+    const more = page.getByRole('button', { name: 'One pedal more' });
+    const durations = [];
+    for (let i = 0; i < repeat; i++) {
+      const seen = await page.evaluate(() => performance.getEntriesByName('lw:estimate-latency').length);
+      await more.click();
+      await page.waitForFunction((n) => performance.getEntriesByName('lw:estimate-latency').length > n, seen, { timeout: 10_000 });
+      durations.push(await page.evaluate(() => performance.getEntriesByName('lw:estimate-latency').at(-1).duration));
+    }
+    row('browser', `estimate on screen after the debounce (${repeat} changes) median · p95`, `${ms(quantile(durations, 0.5))} · ${ms(quantile(durations, 0.95))}`, '', '', 'median ≤ 100 ms');
+  } finally {
+    await browser.close();
+  }
+}
+
+// ---------------------------------------------------------------- a year of data
+async function signIn(email) {
+  const res = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: 'demo-pass-2026' }) });
+  if (!res.ok) throw new Error(`sign-in as ${email}: ${res.status}`);
+  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+}
+
+const bigTables = ['bookings', 'users', 'quotes', 'payments', 'mail_outbox', 'booking_events', 'bench_allocations'];
+
+/** The plans PostgreSQL logged (auto_explain) for one call: indexes used, and any full scan of a big table. */
+async function explainCall(admin, call, cookie) {
+  const log = path.join(pgData, 'server.log');
+  await admin.query(`alter system set auto_explain.log_min_duration = 0`);
+  await admin.query(`select pg_reload_conf()`);
+  await new Promise((r) => setTimeout(r, 300));
+  const from = statSync(log).size;
+  await fetch(`${base}${call}`, { headers: { cookie } });
+  await new Promise((r) => setTimeout(r, 300));
+  await admin.query(`alter system set auto_explain.log_min_duration = -1`);
+  await admin.query(`select pg_reload_conf()`);
+  const text = readFileSync(log).subarray(from).toString('utf8');
+  const indexes = new Set();
+  const scans = new Set();
+  for (const m of text.matchAll(/(?:Index Scan|Index Only Scan)(?: Backward)? using (\w+)|Bitmap Index Scan on (\w+)/g)) indexes.add(m[1] ?? m[2]);
+  for (const m of text.matchAll(/Seq Scan on (\w+)/g)) if (bigTables.includes(m[1])) scans.add(m[1]);
+  const ignore = /^(sessions_pkey|users_pkey|users_email_key|builders_pkey|builders_user_id_key)$/;
+  const shown = [...indexes].filter((i) => !ignore.test(i));
+  return `${shown.join(', ') || 'no index'}${scans.size ? `; full scan of ${[...scans].join(', ')}` : ''}`;
+}
+
+async function timeCall(call, cookie) {
+  const times = [];
+  for (let i = 0; i < 3 + repeat; i++) {
+    const t0 = performance.now();
+    const res = await fetch(`${base}${call}`, { headers: { cookie } });
+    await res.arrayBuffer();
+    if (!res.ok) throw new Error(`${call}: ${res.status}`);
+    if (i >= 3) times.push(performance.now() - t0);
+  }
+  return times;
+}
+
+async function dataSection() {
+  const pg = require('pg');
+  const { seedYearOfData, fullYearScale } = require(path.join(root, 'api/dist/src/database/seed/year-of-data.js'));
+  const { Kysely, PostgresDialect } = require('kysely');
+  const scale = env.BENCH_SCALE === 'small' ? { bookings: 5_000, customers: 500, builders: 20, mails: 10_000, fullEstimates: 1_000 } : fullYearScale;
+  const db = new Kysely({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: `postgres://postgres@127.0.0.1:${ports.pg}/${dbName}`, max: 2 }) }) });
+  say(`seeding a year of data (${scale.bookings.toLocaleString('en-US')} bookings)…`);
+  const t0 = performance.now();
+  const counts = await seedYearOfData(db, scale);
+  const seedSeconds = (performance.now() - t0) / 1000;
+  await db.destroy();
+  row('data', 'seed: a year of data', `${seedSeconds.toFixed(1)} s`, '', '', '< 120 s');
+  notes.push(`seeded rows: ${Object.entries(counts).map(([k, v]) => `${k} ${v.toLocaleString('en-US')}`).join(', ')}`);
+
+  const cookie = await signIn('owner@shop.example');
+  const pick = async (q) => (await (await fetch(`${base}/api/bookings?${q}`, { headers: { cookie } })).json()).items[0];
+  const waiting = await pick('state=deposit_paid&pageSize=1');
+  const someBooking = await pick('state=scheduled&pageSize=1');
+  const lastBookings = Math.ceil(scale.bookings / 25);
+  const monday = new Date();
+  monday.setUTCDate(monday.getUTCDate() + ((8 - monday.getUTCDay()) % 7 || 7));
+  const day = (d, plus) => new Date(d.getTime() + plus * 86_400_000).toISOString().slice(0, 10);
+  const calls = [
+    ['Requests: first page', '/api/bookings?page=1&pageSize=25', 50],
+    ['Requests: search a name', '/api/bookings?q=Nell%20Brack&pageSize=25', 50],
+    ['Requests: search a reference', '/api/bookings?q=LW-Y04321&pageSize=25', 50],
+    ['Requests: deposit paid', '/api/bookings?deposit=paid&pageSize=25', 50],
+    ['Requests: sort by bench date', '/api/bookings?sort=bench_date&order=asc&pageSize=25', 50],
+    ['Requests: last page', `/api/bookings?page=${lastBookings}&pageSize=25`, ''],
+    ['Builds: scheduled', '/api/bookings?state=scheduled&pageSize=25', 50],
+    ['Builds: delivered, by last change', '/api/bookings?state=delivered&sort=updated_at&order=desc&pageSize=25', 50],
+    ['Customers: first page', '/api/customers', 50],
+    ['Customers: search', '/api/customers?search=ashgrove', 50],
+    ['Customers: sort by builds', '/api/customers?sort=buildCount&order=desc', 50],
+    ['Customers: last page', `/api/customers?page=${Math.ceil(scale.customers / 25)}`, ''],
+    ['Mail log: first page', '/api/mail', 50],
+    ['Mail log: search', '/api/mail?q=player42', 50],
+    ['Mail log: last page', `/api/mail?page=${Math.ceil(scale.mails / 25)}`, ''],
+    ['Bench: week', `/api/bench?from=${day(monday, 0)}&to=${day(monday, 6)}`, ''],
+    ['Bench: month', `/api/bench?from=${day(monday, 0)}&to=${day(monday, 34)}`, 100],
+    ['Accept suggestion', `/api/bench/suggest?bookingId=${waiting?.id}`, 20],
+    ['Public lead time', '/api/bench/lead-time?hours=14.00&level=journeyman', 20],
+    ['Booking detail', `/api/bookings/${someBooking?.id}`, ''],
+  ];
+  const admin = new pg.Client({ host: '127.0.0.1', port: ports.pg, user: 'postgres', database: dbName });
+  await admin.connect();
+  try {
+    for (const [label, call, target] of calls) {
+      say(`data: ${label}…`);
+      const times = await timeCall(call, cookie);
+      const plan = await explainCall(admin, call, cookie);
+      row('data', `${label} p50 · p95`, `${ms(quantile(times, 0.5))} · ${ms(quantile(times, 0.95))}`, '', '', target ? `p95 ≤ ${target} ms` : '');
+      notes.push(`plan, ${label}: ${plan}`);
+    }
+  } finally {
+    await admin.end();
+  }
+}
+
+// ---------------------------------------------------------------- mail drain
+async function mailSection() {
+  const count = Number(env.BENCH_MAILS ?? 300);
+  Object.assign(process.env, {
+    NODE_ENV: 'development',
+    DATABASE_URL: `postgres://postgres@127.0.0.1:${ports.pg}/${dbName}`,
+    SERVE_APPS: 'false',
+    SEED_DEMO: 'false',
+    RUN_WORKERS: 'false',
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(ports.smtp),
+    PUBLIC_URL: `http://localhost:${ports.api}`,
+  });
+  const { NestFactory } = require(require.resolve('@nestjs/core', { paths: [path.join(root, 'api')] }));
+  const { AppModule } = require(path.join(root, 'api/dist/src/app.module.js'));
+  const { MailService } = require(path.join(root, 'api/dist/src/mail/mail.service.js'));
+  const { MailDeliveryService } = require(path.join(root, 'api/dist/src/mail/mail-delivery.service.js'));
+  const { Database } = require(path.join(root, 'api/dist/src/database/database.js'));
+  const app = await NestFactory.createApplicationContext(AppModule, { logger: ['error'] });
+  try {
+    const db = app.get(Database);
+    const mail = app.get(MailService);
+    await db.transaction().execute(async (trx) => {
+      for (let i = 0; i < count; i++) {
+        await mail.enqueue(trx, { template: 'welcome', to: `drain${i}@bench.example`, data: { name: `Drain ${i}`, configureUrl: `${base}/configure`, accountUrl: `${base}/account` } });
+      }
+    });
+    say(`mail: draining ${count} messages…`);
+    const t0 = performance.now();
+    let sent = 0;
+    for (;;) {
+      const outcome = await app.get(MailDeliveryService).deliverPending();
+      const done = Object.values(outcome).reduce((a, b) => a + b, 0);
+      sent += outcome.sent;
+      if (done === 0) break;
+    }
+    const secondsTaken = (performance.now() - t0) / 1000;
+    row('mail', `outbox drain, ${count} welcome messages to the mail fake, one process`, `${Math.round(sent / secondsTaken)} messages/s (${sent} sent in ${secondsTaken.toFixed(1)} s)`);
+  } finally {
+    await app.close();
+  }
+}
+
+// ---------------------------------------------------------------- the table
+function print() {
+  const header = ['section', 'what', 'figure', 'ceiling', 'ratio', 'target'];
+  const table = [header, ...rows.map((r) => header.map((h) => String(r[h] ?? '')))];
+  const widths = header.map((_, i) => Math.max(...table.map((r) => r[i].length)));
+  const line = (r) => `| ${r.map((c, i) => c.padEnd(widths[i])).join(' | ')} |`;
+  const load = (() => {
+    try {
+      return readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ');
+    } catch {
+      return 'unknown';
+    }
+  })();
+  const out = [
+    `Loomwright benchmark, ${new Date().toISOString()} (load average ${load}; figures on a shared machine are noisy)`,
+    line(table[0]),
+    `|${widths.map((w) => '-'.repeat(w + 2)).join('|')}|`,
+    ...table.slice(1).map(line),
+    '',
+    ...notes.map((n) => `- ${n}`),
+  ].join('\n');
+  console.log(out);
+  mkdirSync(path.join(root, '.data'), { recursive: true });
+  writeFileSync(path.join(root, '.data/bench-last.txt'), `${out}\n`);
+  appendFileSync(path.join(root, '.data/bench-history.txt'), `${out}\n\n`);
+}
+
+const sections = [
+  ['engine', engineSection],
+  ['bundle', bundleSection],
+  ['http', httpSection],
+  ['lighthouse', lighthouseSection],
+  ['latency', latencySection],
+  ['data', dataSection],
+  ['mail', mailSection],
+];
+let failed = false;
+try {
+  const needsStack = sections.some(([name]) => only.has(name) && !['engine', 'bundle'].includes(name));
+  if (needsStack) await startStack();
+  else if (env.BENCH_SKIP_BUILD !== 'true' && !existsSync(path.join(root, 'shared/dist/index.js'))) spawnSync('npm', ['run', 'build'], { cwd: root, stdio: 'inherit' });
+  for (const [name, fn] of sections) {
+    if (!only.has(name)) continue;
+    try {
+      await fn();
+    } catch (error) {
+      failed = true;
+      notes.push(`${name} section failed: ${error.message}`);
+      say(`${name} failed: ${error.stack}`);
+    }
+  }
+} finally {
+  await stopStack();
+  print();
+}
+process.exit(failed ? 1 : 0);
