@@ -27,6 +27,8 @@ import { ShopModule } from './shop/shop.module';
 // api/dist/src once built, api/src under the tests: the repository is above api/ either way.
 const repoRoot = path.resolve(__dirname, path.basename(path.dirname(__dirname)) === 'dist' ? '../../..' : '../..');
 const servesApps = process.env.SERVE_APPS !== 'false';
+/** The storefront's build, served at `/` (app.setup.ts puts its real-404 guard in front). */
+export const storefrontDist = path.join(repoRoot, 'storefront', 'dist');
 
 /**
  * Vite names every built script and style by its content hash, so a browser may keep them for a
@@ -55,7 +57,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
               serveStaticOptions: { setHeaders: cacheHashedAssets },
             },
             {
-              rootPath: path.join(repoRoot, 'storefront', 'dist'),
+              rootPath: storefrontDist,
               exclude: ['/api/{*path}', '/backoffice/{*path}'],
               serveStaticOptions: { setHeaders: cacheHashedAssets },
             },

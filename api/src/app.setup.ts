@@ -3,11 +3,13 @@ import { ConfigService } from '@nestjs/config';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
 import cookieParser from 'cookie-parser';
+import { storefrontDist } from './app.module';
 import { applyBodyParsing } from './common/body-parsing';
 import { ApiExceptionFilter } from './common/api-exception.filter';
 import type { AppConfig } from './config/configuration';
 import { HTTP_LOGGER, httpLogging } from './logging/logging.module';
 import { securityHeaders } from './security/security-headers';
+import { storefrontNotFound } from './storefront/storefront-not-found';
 
 /**
  * Everything main.ts and the API tests both need, so tests exercise the app as it runs.
@@ -25,6 +27,8 @@ export function configureApp(app: INestApplication): INestApplication {
   // Gzip for JSON and the apps' scripts (Nest's own "Compression" technique); a proxy in front
   // may do it instead.
   app.use(compression());
+  // Unknown storefront addresses answer 404 (with the app's own "not found" page), not the SPA's 200.
+  if (process.env.SERVE_APPS !== 'false') app.use(storefrontNotFound(storefrontDist));
   applyBodyParsing(app);
   app.use(cookieParser());
   // No global ValidationPipe: every body and query names its shared zod schema through

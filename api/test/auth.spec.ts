@@ -53,6 +53,17 @@ describe('sign-up, sign-in, me and sign-out', () => {
     await agent.get('/api/auth/me').expect(401);
   });
 
+  it('GET /api/auth/session: the person while signed in, 200 { user: null } before and after (no 401 in a browser console)', async () => {
+    const agent = (await import('supertest')).default.agent(t.app.getHttpServer());
+    expect((await agent.get('/api/auth/session').expect(200)).body).toEqual({ user: null });
+    await agent.post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'demo-pass-2026' }).expect(200);
+    expect((await agent.get('/api/auth/session').expect(200)).body.user).toMatchObject({ email: 'player@mail.example', role: 'customer' });
+    await agent.post('/api/auth/sign-out').send({}).expect(200);
+    expect((await agent.get('/api/auth/session').expect(200)).body).toEqual({ user: null });
+    // An ended session's cookie, sent again by hand, reads as nobody too.
+    expect((await t.http().get('/api/auth/session').set('Cookie', 'lw_session=not-a-token').expect(200)).body).toEqual({ user: null });
+  });
+
   it('gives one answer for an unknown e-mail and a wrong password', async () => {
     const unknown = await t.http().post('/api/auth/sign-in').send({ email: 'nobody@mail.example', password: 'whatever-123' });
     const wrong = await t.http().post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'whatever-123' });

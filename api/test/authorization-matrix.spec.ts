@@ -84,6 +84,7 @@ const matrix: Record<string, Entry> = {
   'POST /api/auth/sign-in': open(400),
   'POST /api/auth/sign-out': { ...open(200), freshSession: true },
   'GET /api/auth/me': signedIn(200),
+  'GET /api/auth/session': open(200),
   'POST /api/auth/password-reset': open(400),
   'POST /api/auth/password-reset/confirm': open(400),
   'GET /api/users/:userId/sessions': { ...ownerOnly(200), path: (fx) => `/api/users/${fx.bystander}/sessions` },

@@ -25,3 +25,4 @@ export * from './shop-schemas';
 export * from './quote-schemas';
 export * from './format/shop-format';
 export * from './office-schemas';
+export * from './storefront-paths';

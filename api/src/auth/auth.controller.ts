@@ -67,6 +67,17 @@ export class AuthController {
     return { user: await this.auth.currentUser(user.id) };
   }
 
+  /**
+   * As `me`, but open: a visitor gets 200 `{ user: null }` instead of a 401, so the apps can ask on
+   * every page without a failed request in the browser's console. A database outage is still 503.
+   */
+  @Public()
+  @Get('session')
+  @ApiOkResponse({ description: 'The signed-in person, or `{ "user": null }` when nobody is signed in.' })
+  async session(@CurrentUser() user: AuthUser | undefined) {
+    return { user: user ? ((await this.auth.findUser(user.id)) ?? null) : null };
+  }
+
   @Public()
   @UseGuards(ThrottlerGuard)
   @Post('password-reset')

@@ -9,14 +9,15 @@ const api = createApiClient('/api');
 export const authKeys = { all: ['auth'] as const, me: () => ['auth', 'me'] as const };
 
 /**
- * The signed-in person (player or staff), or null when nobody is signed in (a 401 is an answer
- * here, not an error). Any other failure (a 503 while the shop's database is down, no connection)
+ * The signed-in person (player or staff), or null when nobody is signed in. Asked of
+ * `GET /api/auth/session`, which answers 200 `{ user: null }` to a visitor, so a signed-out page
+ * logs no failed request; a 401 (an older API) still reads as nobody. Any other failure (a 503 while the shop's database is down, no connection)
  * stays an error: it says nothing about who is signed in, so screens show ShopUnavailable rather
  * than sending the person to sign in.
  */
 export async function getMe(signal?: AbortSignal): Promise<AuthUser | null> {
   try {
-    return (await api.get<AuthSessionResponse>('/auth/me', { signal })).user;
+    return (await api.get<AuthSessionResponse>('/auth/session', { signal })).user;
   } catch (error) {
     if (isSignedOutError(error)) return null;
     throw error;

@@ -1,11 +1,12 @@
-import { createBrowserRouter, RouterProvider } from 'react-router';
+import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router';
 import { queryClient } from 'src/app/query-client';
 import { AppLayout } from 'src/components/AppLayout';
 import { RouteError } from 'src/components/RouteError';
 import { catalogQueryOptions } from 'src/features/configurator/api/get-catalog';
 
 // Each screen is its own chunk, so the first load ships only what the first screen needs.
-const router = createBrowserRouter([
+// A new page also goes into `storefrontPaths` (@loomwright/shared), or the API answers it with 404.
+export const routes: RouteObject[] = [
   {
     path: '/',
     element: <AppLayout />,
@@ -33,7 +34,9 @@ const router = createBrowserRouter([
       { path: '*', lazy: () => import('src/app/routes/not-found') },
     ],
   },
-]);
+];
+
+const router = createBrowserRouter(routes);
 
 export function AppRouter() {
   return <RouterProvider router={router} />;

@@ -19,23 +19,27 @@ export function AppLayout() {
       </Box>
       <Sheet
         component="header"
-        sx={{ px: { xs: 2, md: 4 }, py: 2, display: 'flex', alignItems: 'center', gap: 3, borderBottom: '1px solid', borderColor: 'divider' }}
+        // One line at every width, so the header keeps its height when the shop's name and the session check answer.
+        sx={{ px: { xs: 2, md: 4 }, py: 2, display: 'flex', alignItems: 'center', gap: { xs: 2, sm: 3 }, borderBottom: '1px solid', borderColor: 'divider' }}
       >
-        <Link component={RouterLink} to="/" underline="none" color="neutral" sx={{ gap: 1.5 }}>
+        <Link component={RouterLink} to="/" underline="none" color="neutral" sx={{ gap: 1.5, minWidth: 0 }}>
           <BoardMark />
-          <Box>
-            <Typography level="title-lg" component="span" sx={{ display: 'block' }}>
+          <Box sx={{ minWidth: 0 }}>
+            <Typography level="title-lg" component="span" noWrap sx={{ display: 'block' }}>
               {shop.data?.name ?? 'Loomwright'}
             </Typography>
-            <Typography level="body-xs" component="span">pedalboards wired by hand</Typography>
+            <Typography level="body-xs" component="span" noWrap sx={{ display: 'block' }}>pedalboards wired by hand</Typography>
           </Box>
         </Link>
-        <Box component="nav" aria-label="Main" sx={{ ml: 'auto', display: 'flex', alignItems: 'center', gap: 2, flexWrap: 'wrap' }}>
-          <Link component={RouterLink} to="/configure">Configure a board</Link>
+        <Box component="nav" aria-label="Main" sx={{ ml: 'auto', display: 'flex', alignItems: 'center', gap: 2, flexWrap: 'nowrap', whiteSpace: 'nowrap' }}>
+          <Link component={RouterLink} to="/configure">
+            Configure<Box component="span" sx={{ display: { xs: 'none', sm: 'inline' } }}>&nbsp;a board</Box>
+          </Link>
           <AccountNav />
         </Box>
       </Sheet>
-      <Box component="main" id="main" sx={{ flex: 1, px: { xs: 2, md: 4 }, py: { xs: 3, md: 5 } }}>
+      {/* At least a screen tall, so the footer starts below the fold and is not pushed down as the page fills in. */}
+      <Box component="main" id="main" sx={{ flex: 1, minHeight: '100dvh', px: { xs: 2, md: 4 }, py: { xs: 3, md: 5 } }}>
         <Suspense fallback={<PageLoading />}>
           <Outlet />
         </Suspense>

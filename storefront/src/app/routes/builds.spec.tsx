@@ -49,7 +49,7 @@ describe('My builds while the shop is down', () => {
     let down = true;
     renderAt('/builds', (path) => {
       if (down) return unavailable();
-      if (path === '/api/auth/me') return json(200, { user: player });
+      if (path === '/api/auth/session') return json(200, { user: player });
       if (path === '/api/bookings') return json(200, { items: [], total: 0, page: 1, pageSize: 20 });
       return json(404, { message: 'not scripted' });
     });
@@ -63,8 +63,8 @@ describe('My builds while the shop is down', () => {
     expect(screen.queryByText('The shop is briefly unavailable')).toBeNull();
   });
 
-  it('still sends a visitor who is really signed out (401) to sign in', async () => {
-    renderAt('/builds', () => json(401, { message: 'Please sign in to do this.' }));
+  it('still sends a visitor who is really signed out ({ user: null }) to sign in', async () => {
+    renderAt('/builds', () => json(200, { user: null }));
     expect(await screen.findByText('at /sign-in?next=%2Fbuilds')).toBeTruthy();
   });
 });

@@ -49,7 +49,7 @@ describe('sign-in page', () => {
   });
 
   it('refuses empty fields in the shared words and sends nothing', async () => {
-    const fetchMock = renderAt('/sign-in', () => json(401, { message: 'Please sign in to do this.' }));
+    const fetchMock = renderAt('/sign-in', () => json(200, { user: null }));
     fireEvent.click(await screen.findByRole('button', { name: 'Sign in' }));
     expect(await screen.findByText('email must be an e-mail address, like name@example.com')).toBeTruthy();
     expect(screen.getByText('password must not be empty')).toBeTruthy();
@@ -58,8 +58,8 @@ describe('sign-in page', () => {
 
   it('shows the API’s own words when the password is wrong', async () => {
     renderAt('/sign-in', (path) =>
-      path === '/api/auth/me'
-        ? json(401, { message: 'Please sign in to do this.' })
+      path === '/api/auth/session'
+        ? json(200, { user: null })
         : json(401, { message: 'That e-mail and password do not match an account. Check them, or reset your password.' }),
     );
     fireEvent.change(await screen.findByLabelText('E-mail'), { target: { value: 'player@mail.example' } });
@@ -70,7 +70,7 @@ describe('sign-in page', () => {
 
   it('returns the player to the configurator page that sent them, draft and all', async () => {
     const fetchMock = renderAt('/sign-in?next=%2Fconfigure%2Frequest%3Fc%3Dv1.abc', (path) =>
-      path === '/api/auth/me' ? json(401, { message: 'Please sign in to do this.' }) : json(200, { user: player }),
+      path === '/api/auth/session' ? json(200, { user: null }) : json(200, { user: player }),
     );
     fireEvent.change(await screen.findByLabelText('E-mail'), { target: { value: ' Player@Mail.Example ' } });
     fireEvent.change(screen.getByLabelText('Password'), { target: { value: 'demo-pass-2026' } });
@@ -82,7 +82,7 @@ describe('sign-in page', () => {
 
   it('never follows a next that leads off the site', async () => {
     renderAt('/sign-in?next=%2F%2Felsewhere.example%2F', (path) =>
-      path === '/api/auth/me' ? json(401, { message: 'Please sign in to do this.' }) : json(200, { user: player }),
+      path === '/api/auth/session' ? json(200, { user: null }) : json(200, { user: player }),
     );
     fireEvent.change(await screen.findByLabelText('E-mail'), { target: { value: 'player@mail.example' } });
     fireEvent.change(screen.getByLabelText('Password'), { target: { value: 'demo-pass-2026' } });

@@ -9,7 +9,13 @@ const accountPages = ['/sign-in', '/sign-up', '/forgot-password', '/reset-passwo
 export function AccountNav() {
   const me = useMe();
   const location = useLocation();
-  if (me.isPending) return null;
+  // Holds the place of "Sign in" while the session check is on its way, so nothing moves when it answers.
+  if (me.isPending)
+    return (
+      <Typography component="span" level="body-md" aria-hidden sx={{ visibility: 'hidden' }}>
+        Sign in
+      </Typography>
+    );
   // The shop is not answering: say so rather than offer "Sign in" to someone who may be signed in.
   if (me.isError && !me.data) return <Typography component="span" level="body-sm" role="status">Shop briefly unavailable</Typography>;
   if (!me.data) {
@@ -19,7 +25,7 @@ export function AccountNav() {
   }
   return (
     <>
-      <Typography component="span" level="body-md" sx={{ color: 'text.secondary' }} aria-label="Signed in as">
+      <Typography component="span" level="body-md" sx={{ color: 'text.secondary', display: { xs: 'none', md: 'inline' } }} aria-label="Signed in as">
         {me.data.name}
       </Typography>
       <Link component={RouterLink} to="/builds">My builds</Link>

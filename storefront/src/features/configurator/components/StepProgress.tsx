@@ -6,8 +6,12 @@ import { CheckIcon } from './icons';
 /**
  * Where the player is: the seven steps as a cable run with a jack for each step. Every step is a
  * link-like button, so any step can be revisited; the current one is marked in words for screen
- * readers (aria-current) and by shape and weight on screen.
+ * readers (aria-current) and by shape and weight on screen. A button's name is its visible text
+ * (the step's name, plus "visited" for screen readers), never a separate aria-label (WCAG 2.2 SC 2.5.3).
  */
+/** Read by screen readers, not shown (the usual clip pattern). */
+const visuallyHidden = { position: 'absolute', width: '1px', height: '1px', m: '-1px', p: 0, overflow: 'hidden', clip: 'rect(0 0 0 0)', whiteSpace: 'nowrap', border: 0 } as const;
+
 export function StepProgress({ current, onSelect }: { current: StepId; onSelect: (step: StepId) => void }) {
   const index = configuratorSteps.findIndex((s) => s.id === current);
   return (
@@ -46,7 +50,6 @@ export function StepProgress({ current, onSelect }: { current: StepId; onSelect:
                 type="button"
                 onClick={() => onSelect(step.id)}
                 aria-current={isCurrent ? 'step' : undefined}
-                aria-label={`${step.title}${done ? ', visited' : ''}`}
                 sx={{
                   all: 'unset',
                   cursor: 'pointer',
@@ -88,11 +91,14 @@ export function StepProgress({ current, onSelect }: { current: StepId; onSelect:
                     textDecoration: isCurrent ? 'underline' : 'none',
                     textUnderlineOffset: '4px',
                     textDecorationThickness: '2px',
-                    display: { xs: isCurrent ? 'block' : 'none', sm: 'block' },
+                    display: 'block',
                     textAlign: 'center',
+                    // On a phone only the current step's name shows; the others stay in the button's name.
+                    ...(isCurrent ? {} : { '@media (max-width: 599.95px)': visuallyHidden }),
                   }}
                 >
                   {step.title}
+                  {done ? <Box component="span" sx={visuallyHidden}>, visited</Box> : null}
                 </Typography>
               </Box>
             </Box>

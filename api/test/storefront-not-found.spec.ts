@@ -1,0 +1,46 @@
+import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import express from 'express';
+import request from 'supertest';
+import { afterAll, describe, expect, it } from 'vitest';
+import { storefrontPaths } from '@loomwright/shared';
+import { storefrontNotFound } from '../src/storefront/storefront-not-found';
+
+// RFC 9110 §15.5.5: 404 says the server has no current representation for the target. A single-page
+// app that answers 200 to every address makes each typo a "soft 404" to browsers and crawlers.
+describe('real 404s in front of the storefront build', () => {
+  const dist = mkdtempSync(path.join(tmpdir(), 'lw-dist-'));
+  mkdirSync(path.join(dist, 'assets'));
+  writeFileSync(path.join(dist, 'index.html'), '<!doctype html><div id="root"></div>');
+  writeFileSync(path.join(dist, 'robots.txt'), 'User-agent: *\nAllow: /\n');
+  writeFileSync(path.join(dist, 'assets', 'index-abc.js'), 'console.log(1)');
+  const app = express();
+  app.use(storefrontNotFound(dist));
+  // Stands in for the static server and its index.html fallback.
+  app.use(express.static(dist));
+  app.get('/{*path}', (_req, res) => res.status(200).type('html').send('fallback'));
+  afterAll(() => rmSync(dist, { recursive: true, force: true }));
+
+  it('lets every page of the router, every built file, the API and the backoffice through', async () => {
+    for (const p of storefrontPaths) await request(app).get(p.replace(':id', '4f1c2d7e-0000-4000-8000-000000000000')).expect(200);
+    await request(app).get('/configure?step=pedals').expect(200);
+    await request(app).get('/robots.txt').expect(200);
+    await request(app).get('/assets/index-abc.js').expect(200);
+    await request(app).get('/api/anything').expect(200);
+    await request(app).get('/backoffice/bench').expect(200);
+  });
+
+  it('answers an unknown page with 404 and the app (which shows its own not-found page)', async () => {
+    const res = await request(app).get('/configurator').set('Accept', 'text/html').expect(404);
+    expect(res.text).toContain('<div id="root">');
+    await request(app).get('/builds/1/2').set('Accept', 'text/html').expect(404);
+  });
+
+  it('answers a missing file with 404 in words, never the app', async () => {
+    const res = await request(app).get('/assets/index-gone.js').expect(404);
+    expect(res.text).toBe('There is nothing at /assets/index-gone.js.');
+    await request(app).get('/wp-login.php').expect(404);
+    await request(app).get('/..%2f..%2fetc%2fpasswd').expect(404);
+  });
+});
