@@ -87,6 +87,8 @@ async function startStack() {
   await admin.connect();
   const loaded = (await admin.query(`select setting from pg_settings where name = 'shared_preload_libraries'`)).rows[0].setting;
   await admin.query(`alter system set shared_preload_libraries = 'auto_explain'`);
+  // Loaded into this session too, so ALTER SYSTEM knows its settings before the restart.
+  await admin.query(`load 'auto_explain'`);
   await admin.query(`alter system set auto_explain.log_min_duration = -1`);
   await admin.query(`alter system set auto_explain.log_nested_statements = on`);
   await admin.end();
@@ -239,19 +241,23 @@ async function lighthouseSection() {
           { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'] },
           preset === 'desktop' ? desktopConfig : undefined,
         );
-        const { categories, audits } = result.lhr;
-        const score = (c) => Math.round((categories[c]?.score ?? 0) * 100);
+        const { categories, audits, runtimeError } = result.lhr;
+        if (runtimeError) notes.push(`Lighthouse ${preset} ${route}: ${runtimeError.code} ${runtimeError.message}`);
+        const score = (c) => (categories[c]?.score == null ? '–' : Math.round(categories[c].score * 100));
+        const value = (id) => audits[id]?.numericValue;
+        const cls = value('cumulative-layout-shift');
         row(
           'Lighthouse',
           `${route} ${preset}: perf · LCP · TBT · CLS · a11y · best pr. · SEO`,
-          `${score('performance')} · ${ms(audits['largest-contentful-paint'].numericValue)} · ${ms(audits['total-blocking-time'].numericValue)} · ${audits['cumulative-layout-shift'].numericValue.toFixed(3)} · ${score('accessibility')} · ${score('best-practices')} · ${score('seo')}`,
+          `${score('performance')} · ${ms(value('largest-contentful-paint'))} · ${ms(value('total-blocking-time'))} · ${cls === undefined ? '–' : cls.toFixed(3)} · ${score('accessibility')} · ${score('best-practices')} · ${score('seo')}`,
           '',
           '',
           'perf ≥ 95, CLS ≤ 0.02, BP/SEO 100',
         );
         const failing = Object.values(audits).filter((a) => a.score !== null && a.score < 1 && ['binary', 'numeric'].includes(a.scoreDisplayMode) && !a.id.includes('metric'));
-        const named = failing.filter((a) => ['errors-in-console', 'http-status-code', 'robots-txt', 'is-crawlable', 'label-content-name-mismatch', 'layout-shifts', 'unused-javascript', 'render-blocking-resources'].includes(a.id));
-        if (named.length) notes.push(`Lighthouse ${preset} ${route}: ${named.map((a) => `${a.id}${a.displayValue ? ` (${a.displayValue})` : ''}`).join(', ')}`);
+        if (failing.length) notes.push(`Lighthouse ${preset} ${route}, audits below 1: ${failing.map((a) => `${a.id}${a.displayValue ? ` (${a.displayValue})` : ''}`).join(', ')}`);
+        const shifts = audits['layout-shifts']?.details?.items ?? [];
+        if (shifts.length) notes.push(`Lighthouse ${preset} ${route}, layout shifts: ${shifts.map((i) => `${i.node?.selector ?? i.node?.snippet ?? '?'} ${Number(i.score).toFixed(3)}`).join('; ')}`);
       } finally {
         await chrome.kill();
       }
