@@ -7,6 +7,7 @@ const paymentPort = Number(process.env.E2E_PAYMENT_PORT ?? 4342);
 const smtpPort = Number(process.env.E2E_SMTP_PORT ?? 2625);
 const mailHttpPort = Number(process.env.E2E_MAIL_HTTP_PORT ?? 8125);
 const pgPort = Number(process.env.TEST_PG_PORT ?? 54339);
+const objectStorePort = Number(process.env.E2E_OBJECT_STORE_PORT ?? 4669);
 export const baseURL = `http://localhost:${port}`;
 
 process.env.E2E_BASE_URL = baseURL;
@@ -61,6 +62,7 @@ export default defineConfig({
       PAYMENT_FAKE_SETTLE_SECONDS: '0',
       MAIL_FAKE_SMTP_PORT: String(smtpPort),
       MAIL_FAKE_HTTP_PORT: String(mailHttpPort),
+      OBJECT_STORE_PORT: String(objectStorePort),
       NODE_ENV: 'test',
       // The journeys sign in as the demo shop's people.
       SEED_DEMO: 'true',

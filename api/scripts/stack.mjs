@@ -1,9 +1,11 @@
 #!/usr/bin/env node
 // Brings up everything the product needs on one machine: PostgreSQL, the payment and mail fakes,
-// and the API (which serves both built apps). Ctrl-C (or SIGTERM) stops all of it, database included.
+// the local S3-compatible object store for photos, and the API (which serves both built apps).
+// The API's settings are written to .data/stack-<port>.env and .data/stack.env, so `npm run replica`
+// can start more API processes against the same database, bucket and fakes. Ctrl-C (or SIGTERM) stops all of it, database included.
 // Every port and name can be moved by environment variables (see README.md).
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync } from 'node:fs';
+import { existsSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
@@ -19,6 +21,9 @@ const settings = {
   paymentPort: Number(env.PAYMENT_FAKE_PORT ?? 4242),
   smtpPort: Number(env.MAIL_FAKE_SMTP_PORT ?? 2525),
   mailHttpPort: Number(env.MAIL_FAKE_HTTP_PORT ?? 8025),
+  objectStorePort: Number(env.OBJECT_STORE_PORT ?? 4569),
+  objectStoreDir: path.resolve(root, env.OBJECT_STORE_DIR ?? '.data/object-store'),
+  bucket: env.S3_BUCKET ?? 'loomwright-photos',
   freshDatabase: env.FRESH_DATABASE === 'true',
   quiet: env.STACK_QUIET === 'true',
 };
@@ -128,7 +133,23 @@ async function main() {
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(settings.smtpPort),
     PUBLIC_URL: publicUrl,
+    // Photos in the local S3-compatible store (s3rver's own fixed keys), as in a deployment.
+    PHOTO_STORAGE: 's3',
+    S3_BUCKET: settings.bucket,
+    S3_ENDPOINT: `http://127.0.0.1:${settings.objectStorePort}`,
+    S3_REGION: 'us-east-1',
+    S3_ACCESS_KEY_ID: 'S3RVER',
+    S3_SECRET_ACCESS_KEY: 'S3RVER',
+    S3_FORCE_PATH_STYLE: 'true',
   };
+  // A browser-test run (fresh database) starts with an empty bucket too.
+  const objectStoreDir = settings.freshDatabase ? `${settings.objectStoreDir}-${settings.dbName}` : settings.objectStoreDir;
+  if (settings.freshDatabase) rmSync(objectStoreDir, { recursive: true, force: true });
+  run('object store', 'api/dist/fakes/object-store/main.js', {
+    OBJECT_STORE_PORT: String(settings.objectStorePort),
+    OBJECT_STORE_DIR: objectStoreDir,
+    S3_BUCKET: settings.bucket,
+  });
   run('payment fake', 'api/dist/fakes/payment/main.js', {
     ...shared,
     PAYMENT_FAKE_PORT: String(settings.paymentPort),
@@ -141,6 +162,16 @@ async function main() {
     MAIL_FAKE_SMTP_PORT: String(settings.smtpPort),
     MAIL_FAKE_HTTP_PORT: String(settings.mailHttpPort),
   });
+  // What a replica needs to join: every setting this API gets from the stack, plus the
+  // environment's own secrets and options (JWT_SECRET, NODE_ENV, …) as they are now.
+  const passOn = Object.fromEntries(
+    Object.entries(env).filter(([k]) => /^(NODE_ENV|JWT_SECRET|SESSION_MINUTES|STRIPE_|SMTP_|MAIL_|AUTH_|PAYMENT_METHOD_TYPES|ALLOWED_ORIGINS|TRUST_PROXY|LOG_LEVEL|SEED_DEMO|DATABASE_POOL_MAX|METRICS_TOKEN)/.test(k)),
+  );
+  const stackEnv = { ...passOn, ...shared, SERVE_APPS: env.SERVE_APPS ?? 'true' };
+  const envFile = Object.entries(stackEnv).map(([k, v]) => `${k}=${JSON.stringify(String(v))}`).join('\n') + '\n';
+  mkdirSync(path.join(root, '.data'), { recursive: true });
+  writeFileSync(path.join(root, '.data', `stack-${settings.port}.env`), envFile, { mode: 0o600 });
+  writeFileSync(path.join(root, '.data', 'stack.env'), envFile, { mode: 0o600 });
   run('API', 'api/dist/src/main.js', { ...shared, PORT: String(settings.port) });
   await waitForHealth(`http://127.0.0.1:${settings.port}/api/health`);
 
@@ -151,6 +182,8 @@ async function main() {
   log(`Payment fake http://127.0.0.1:${settings.paymentPort}`);
   log(`Mail fake    http://127.0.0.1:${settings.mailHttpPort}  (SMTP 127.0.0.1:${settings.smtpPort})`);
   log(`PostgreSQL   127.0.0.1:${settings.pgPort}  database ${settings.dbName}`);
+  log(`Object store http://127.0.0.1:${settings.objectStorePort}  bucket ${settings.bucket} (data in ${path.relative(root, objectStoreDir)})`);
+  log(`More API processes on this stack: PORT=<port> npm run replica`);
   log('');
   log('Demo sign-ins (password demo-pass-2026 for all):');
   log('  owner@shop.example    the owner (backoffice, everything)');

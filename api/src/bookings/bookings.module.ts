@@ -1,7 +1,5 @@
 import { Module } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
 import { APP_INTERCEPTOR } from '@nestjs/core';
-import type { AppConfig } from '../config/configuration';
 import { EstimatesModule } from '../estimates/estimates.module';
 import { EstimatesService } from '../estimates/estimates.service';
 import { MailModule } from '../mail/mail.module';
@@ -10,21 +8,16 @@ import { BookingsController } from './bookings.controller';
 import { BookingsRepository } from './bookings.repository';
 import { BookingsService } from './bookings.service';
 import { CustomerContactInterceptor } from './customer-contact.interceptor';
-import { LocalDiskPhotoStorage, PhotoStorage } from './photo-storage';
+import { PhotoStorageModule } from './photo-storage.module';
 import { QuotePricer } from './quote-pricer';
 
 @Module({
-  imports: [MailModule, EstimatesModule],
+  imports: [MailModule, EstimatesModule, PhotoStorageModule],
   controllers: [BookingsController],
   providers: [
     BookingsService,
     BookingsRepository,
     BookingPhotosService,
-    {
-      provide: PhotoStorage,
-      inject: [ConfigService],
-      useFactory: (config: ConfigService<AppConfig, true>) => new LocalDiskPhotoStorage(config.get('app', { infer: true }).uploadsDir),
-    },
     { provide: QuotePricer, useExisting: EstimatesService },
     { provide: APP_INTERCEPTOR, useClass: CustomerContactInterceptor },
   ],

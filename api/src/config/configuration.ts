@@ -41,6 +41,15 @@ const environmentSchema = z.object({
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
   MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(8),
   UPLOADS_DIR: z.string().default('.data/uploads'),
+  // Where photos live: 's3' (any S3-compatible bucket; several API replicas share it) or 'disk'
+  // (UPLOADS_DIR, one machine only).
+  PHOTO_STORAGE: z.enum(['disk', 's3']).default('disk'),
+  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'an S3 bucket name: 3-63 lower-case letters, digits, dots and hyphens').default('loomwright-photos'),
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true'),
   SERVE_APPS: z.enum(['true', 'false']).default('true'),
   // The demo shop publishes its owner's password: off unless asked for (`npm start` asks).
   SEED_DEMO: z.enum(['true', 'false']).default('false'),
@@ -130,6 +139,18 @@ export function configuration() {
     },
     database: { url: env.DATABASE_URL, poolMax: env.DATABASE_POOL_MAX },
     logging: { level: env.LOG_LEVEL },
+    storage: {
+      driver: env.PHOTO_STORAGE,
+      uploadsDir: env.UPLOADS_DIR,
+      s3: {
+        bucket: env.S3_BUCKET,
+        endpoint: env.S3_ENDPOINT,
+        region: env.S3_REGION,
+        accessKeyId: env.S3_ACCESS_KEY_ID,
+        secretAccessKey: env.S3_SECRET_ACCESS_KEY,
+        forcePathStyle: env.S3_FORCE_PATH_STYLE === 'true',
+      },
+    },
     auth: {
       jwtSecret: env.JWT_SECRET,
       sessionMinutes: env.SESSION_MINUTES,
