@@ -14,6 +14,7 @@ import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
 import { ExportsModule } from './exports/exports.module';
+import { ReportsModule } from './reports/reports.module';
 import { QuotesModule } from './quotes/quotes.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -81,6 +82,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     QuotesModule,
     BuildSheetsModule,
     ExportsModule,
+    ReportsModule,
   ],
 })
 export class AppModule {}

@@ -166,6 +166,10 @@ const matrix: Record<string, Entry> = {
   'GET /api/exports/bookings.csv': ownerOnly(400),
   'GET /api/exports/payments.csv': ownerOnly(400),
   'GET /api/exports/hours.csv': ownerOnly(400),
+  'GET /api/reports/revenue': ownerOnly(400),
+  'GET /api/reports/outstanding': ownerOnly(200),
+  'GET /api/reports/hours': ownerOnly(400),
+  'GET /api/reports/utilisation': ownerOnly(400),
 };
 
 async function makeFixtures(t: TestApp, cookieOfA: string): Promise<Fixtures> {

@@ -41,6 +41,7 @@ export const exportColumns = {
     'currency',
     'estimate_low',
     'estimate_high',
+    'deposit',
     'firm_total',
     'approved_extras',
     'total_owed',
@@ -67,3 +68,103 @@ export const exportColumns = {
   ],
   hours: ['worked_on', 'reference', 'builder_name', 'builder_level', 'hours', 'note', 'recorded_by', 'recorded_at'],
 } as const satisfies Record<ExportKind, readonly string[]>;
+
+/** Bench utilisation is drawn per ISO week, at most this many days at a time (a year and a bit). */
+export const MAX_UTILISATION_DAYS = 400;
+
+// ---- Report answers (GET /api/reports/*) ----
+
+/** Money that arrived and went back in one calendar month of the shop (YYYY-MM), in one currency. */
+export interface RevenueMonth {
+  month: string;
+  currency: string;
+  deposits: string;
+  balances: string;
+  /** Money given back, as a positive amount. */
+  refunds: string;
+  /** deposits + balances − refunds. */
+  net: string;
+}
+
+export interface RevenueReport {
+  from: string;
+  to: string;
+  timeZone: string;
+  months: RevenueMonth[];
+  totals: Array<Omit<RevenueMonth, 'month'>>;
+}
+
+export type OutstandingKind = 'deposit' | 'balance' | 'credit';
+
+export interface OutstandingItem {
+  bookingId: string;
+  reference: string;
+  state: string;
+  customerName: string;
+  builderName: string | null;
+  kind: OutstandingKind;
+  amount: string;
+  currency: string;
+  /** Since when the money has been owed: the request for a deposit, the bench date for a balance. */
+  since: string | null;
+}
+
+export interface OutstandingReport {
+  asOf: string;
+  items: OutstandingItem[];
+  totals: Array<{ kind: OutstandingKind; currency: string; amount: string; count: number }>;
+}
+
+export interface HoursBuildRow {
+  bookingId: string;
+  reference: string;
+  state: string;
+  builderId: string | null;
+  builderName: string | null;
+  quotedHours: string;
+  /** Hour entries worked on a day in the range (the hours.csv rows of this build). */
+  hoursInRange: string;
+  /** Every hour entry of the build so far. */
+  hoursToDate: string;
+  /** hoursToDate − quotedHours: positive is over the quote. */
+  overQuote: string;
+}
+
+export interface HoursBuilderRow {
+  builderId: string;
+  builderName: string;
+  level: string;
+  /** Their own hour entries in the range (the hours.csv rows with their name). */
+  hoursInRange: string;
+  /** Builds assigned to them with hours in the range. */
+  builds: number;
+  quotedHours: string;
+  hoursToDate: string;
+  overQuote: string;
+}
+
+export interface HoursReport {
+  from: string;
+  to: string;
+  builds: HoursBuildRow[];
+  builders: HoursBuilderRow[];
+}
+
+export interface UtilisationWeek {
+  /** The Monday of the ISO week (ISO 8601 weeks start on Monday). */
+  weekStart: string;
+  /** ISO 8601 week label, e.g. 2026-W49. */
+  isoWeek: string;
+  capacityHours: string;
+  bookedHours: string;
+  recordedHours: string;
+  /** booked ÷ capacity as a percentage with one decimal; null in a week with no capacity. */
+  bookedPercent: string | null;
+  recordedPercent: string | null;
+}
+
+export interface UtilisationReport {
+  from: string;
+  to: string;
+  builders: Array<{ builderId: string; builderName: string; level: string; weeks: UtilisationWeek[] }>;
+}

@@ -1,10 +1,10 @@
 import { Injectable } from '@nestjs/common';
-import { exportColumns, moneyFacts, type DateRangeQuery, type ExportKind } from '@loomwright/shared';
+import { exportColumns, type DateRangeQuery, type ExportKind } from '@loomwright/shared';
+import { bookingMoney, type OfficeBookingRow } from './booking-money';
 import { isoInTimeZone, textCell } from './csv-cells';
 import { OfficeRepository, STREAM_CHUNK, type ShopRange } from './office.repository';
 
 type Cell = string;
-type BookingExportRow = Awaited<ReturnType<ReturnType<OfficeRepository['bookingsQuery']>['execute']>>[number];
 
 /** One CSV: its file name, its header row and its rows, read from the database as they are written out. */
 export interface CsvExport {
@@ -12,8 +12,6 @@ export interface CsvExport {
   columns: readonly string[];
   rows: AsyncIterable<Cell[]>;
 }
-
-const iso = (d: Date | string | null) => (d === null ? null : new Date(d).toISOString());
 
 /**
  * The bookkeeper's CSV files. Each row is built from one streamed database row, so memory holds a
@@ -38,15 +36,8 @@ export class ExportsService {
   }
 
   /** One booking's row; the money columns come from moneyFacts, the one place the API computes them. */
-  static bookingCells(b: BookingExportRow, timeZone: string, shopCurrency: string): Cell[] {
-    const currency = b.firm?.currency ?? b.estimate?.currency ?? b.payments[0]?.currency ?? shopCurrency;
-    const money = moneyFacts({
-      currency,
-      firmTotal: b.firm?.total ?? null,
-      extras: b.extras.map((e) => ({ description: '', amount: e.amount, status: e.status })),
-      payments: b.payments.map((p) => ({ kind: p.kind, amount: p.amount, status: p.status, paidAt: iso(p.paid_at), refundedAt: iso(p.refunded_at) })),
-      balanceWaived: b.balance_waived_reason !== null,
-    });
+  static bookingCells(b: OfficeBookingRow, timeZone: string, shopCurrency: string): Cell[] {
+    const { currency, money } = bookingMoney(b, shopCurrency);
     return [
       b.reference,
       isoInTimeZone(b.created_at, timeZone),
@@ -60,6 +51,7 @@ export class ExportsService {
       currency,
       b.estimate?.total_low ?? '',
       b.estimate?.total_high ?? '',
+      b.estimate?.deposit ?? '',
       money.firmTotal ?? '',
       money.approvedExtras,
       money.totalOwed ?? '',

@@ -46,6 +46,22 @@ export class OfficeRepository {
 
   /** Bookings requested in the range, with what the money facts and the hours need. */
   bookingsQuery(r: ShopRange, trx: Executor = this.db) {
+    return this.bookingsWithMoney(trx)
+      .where('b.created_at', '>=', rangeStart(r))
+      .where('b.created_at', '<', rangeEnd(r))
+      .orderBy('b.created_at')
+      .orderBy('b.id');
+  }
+
+  /** Bookings in the given states (whenever requested), with the same columns as the export. */
+  bookingsInStates(states: string[], trx: Executor = this.db) {
+    return this.bookingsWithMoney(trx)
+      .where(sql<boolean>`b.state::text in (${sql.join(states)})`)
+      .orderBy('b.created_at')
+      .orderBy('b.id');
+  }
+
+  private bookingsWithMoney(trx: Executor) {
     return trx
       .selectFrom('bookings as b')
       .innerJoin('users as c', 'c.id', 'b.customer_id')
@@ -63,8 +79,9 @@ export class OfficeRepository {
         sql<string>`c.email::text`.as('customer_email'),
         'bu.name as builder_name',
         'bl.level as builder_level',
-        sql<{ kind: string; currency: string; total_low: string; total_high: string; total: string | null; labor_hours: string } | null>`(
-          select json_build_object('currency', trim(q.currency), 'total_low', q.total_low::text, 'total_high', q.total_high::text, 'labor_hours', q.labor_hours::text)
+        sql<{ currency: string; total_low: string; total_high: string; deposit: string; labor_hours: string } | null>`(
+          select json_build_object('currency', trim(q.currency), 'total_low', q.total_low::text, 'total_high', q.total_high::text,
+                                   'deposit', q.deposit::text, 'labor_hours', q.labor_hours::text)
           from quotes q where q.booking_id = b.id and q.kind = 'estimate' order by q.created_at, q.id limit 1)`.as('estimate'),
         sql<{ currency: string; total: string; labor_hours: string } | null>`(
           select json_build_object('currency', trim(q.currency), 'total', q.total::text, 'labor_hours', q.labor_hours::text)
@@ -77,11 +94,7 @@ export class OfficeRepository {
                                             'paid_at', p.paid_at, 'refunded_at', p.refunded_at) order by p.created_at)
           from payments p where p.booking_id = b.id), '[]'::json)`.as('payments'),
         sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id), 0)::text`.as('recorded_hours'),
-      ])
-      .where('b.created_at', '>=', rangeStart(r))
-      .where('b.created_at', '<', rangeEnd(r))
-      .orderBy('b.created_at')
-      .orderBy('b.id');
+      ]);
   }
 
   /**
@@ -90,6 +103,33 @@ export class OfficeRepository {
    * as in the booking's money facts (status paid, or refunded after being paid).
    */
   moneyMovementsQuery(r: ShopRange, trx: Executor = this.db) {
+    return trx
+      .selectFrom(this.moneyMovements(r, trx).as('m'))
+      .selectAll()
+      .orderBy('m.at')
+      .orderBy('m.payment_id')
+      .orderBy('m.entry')
+      // paid_at and refunded_at are nullable columns, but the filters keep only rows that have them.
+      .$castTo<MoneyMovementRow>();
+  }
+
+  /** The movements' money summed per calendar month of the shop, currency, entry and kind: the revenue report. */
+  moneyByMonth(r: ShopRange, trx: Executor = this.db) {
+    return trx
+      .selectFrom(this.moneyMovements(r, trx).as('m'))
+      .select([
+        sql<string>`to_char(m.at at time zone ${r.timeZone}, 'YYYY-MM')`.as('month'),
+        'm.currency',
+        'm.entry',
+        'm.payment_kind',
+        sql<string>`sum(m.amount::numeric)::text`.as('amount'),
+      ])
+      .groupBy([sql`1`, 'm.currency', 'm.entry', 'm.payment_kind'])
+      .orderBy(sql`1`)
+      .execute();
+  }
+
+  private moneyMovements(r: ShopRange, trx: Executor) {
     const common = (entry: 'payment' | 'refund') =>
       trx
         .selectFrom('payments as p')
@@ -116,14 +156,7 @@ export class OfficeRepository {
       .where('p.status', '=', 'refunded')
       .where('p.refunded_at', '>=', rangeStart(r))
       .where('p.refunded_at', '<', rangeEnd(r));
-    return trx
-      .selectFrom(payments.unionAll(refunds).as('m'))
-      .selectAll()
-      .orderBy('m.at')
-      .orderBy('m.payment_id')
-      .orderBy('m.entry')
-      // paid_at and refunded_at are nullable columns, but the filters above keep only rows that have them.
-      .$castTo<MoneyMovementRow>();
+    return payments.unionAll(refunds);
   }
 
   /** Hour entries worked on a day in the range. */
@@ -153,5 +186,75 @@ export class OfficeRepository {
       .orderBy('b.reference')
       .orderBy('t.created_at')
       .orderBy('t.id');
+  }
+
+  /** Builds with hour entries worked in the range: quoted hours against the hours in the range and to date. */
+  hoursPerBuild(r: ShopRange, trx: Executor = this.db) {
+    return trx
+      .selectFrom('bookings as b')
+      .innerJoin('time_entries as t', 't.booking_id', 'b.id')
+      .leftJoin('builders as bl', 'bl.id', 'b.builder_id')
+      .leftJoin('users as bu', 'bu.id', 'bl.user_id')
+      .select([
+        'b.id',
+        'b.reference',
+        'b.state',
+        'bl.id as builder_id',
+        'bu.name as builder_name',
+        sql<string>`coalesce(
+          (select q.labor_hours from quotes q where q.booking_id = b.id and q.kind = 'firm' order by q.created_at desc, q.id desc limit 1),
+          (select q.labor_hours from quotes q where q.booking_id = b.id and q.kind = 'estimate' order by q.created_at, q.id limit 1),
+          0)::text`.as('quoted_hours'),
+        sql<string>`coalesce(sum(t.hours) filter (where t.worked_on between ${r.from} and ${r.to}), 0)::text`.as('hours_in_range'),
+        sql<string>`sum(t.hours)::text`.as('hours_to_date'),
+      ])
+      .groupBy(['b.id', 'bl.id', 'bu.name'])
+      .having(sql<boolean>`bool_or(t.worked_on between ${r.from} and ${r.to})`)
+      .orderBy('b.reference')
+      .execute();
+  }
+
+  /** Each builder's own hour entries in the range. */
+  hoursPerBuilder(r: ShopRange, trx: Executor = this.db) {
+    return trx
+      .selectFrom('time_entries as t')
+      .select(['t.builder_id', sql<string>`sum(t.hours)::text`.as('hours')])
+      .where('t.worked_on', '>=', r.from)
+      .where('t.worked_on', '<=', r.to)
+      .groupBy('t.builder_id')
+      .execute();
+  }
+
+  /** Every builder who has joined (a pending invitation has no bench), with their week. */
+  builders(trx: Executor = this.db) {
+    return trx
+      .selectFrom('builders as bl')
+      .innerJoin('users as u', 'u.id', 'bl.user_id')
+      .select(['bl.id', 'u.name', 'bl.level', 'bl.weekly_hours', 'bl.active'])
+      .where('u.password_hash', 'is not', null)
+      .orderBy('u.name')
+      .execute();
+  }
+
+  /** Booked bench hours per builder and day. */
+  bookedPerDay(from: string, to: string, trx: Executor = this.db) {
+    return trx
+      .selectFrom('bench_allocations as a')
+      .select(['a.builder_id', 'a.day', sql<string>`sum(upper(a.hours) - lower(a.hours))::text`.as('hours')])
+      .where('a.day', '>=', from)
+      .where('a.day', '<=', to)
+      .groupBy(['a.builder_id', 'a.day'])
+      .execute();
+  }
+
+  /** Recorded hours per builder and day. */
+  recordedPerDay(from: string, to: string, trx: Executor = this.db) {
+    return trx
+      .selectFrom('time_entries as t')
+      .select(['t.builder_id', 't.worked_on as day', sql<string>`sum(t.hours)::text`.as('hours')])
+      .where('t.worked_on', '>=', from)
+      .where('t.worked_on', '<=', to)
+      .groupBy(['t.builder_id', 't.worked_on'])
+      .execute();
   }
 }

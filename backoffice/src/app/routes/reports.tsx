@@ -5,6 +5,7 @@ import { PageHeader } from 'src/components/PageHeader';
 import { useMe } from 'src/features/auth/api/get-me';
 import { DateRangeFields, useDateRange } from 'src/features/exports/components/DateRangeFields';
 import { ExportLinks } from 'src/features/exports/components/ExportLinks';
+import { HoursSection, OutstandingSection, RevenueSection, UtilisationSection } from 'src/features/reports/components/ReportSections';
 import { useShop } from 'src/features/shop/api/get-shop';
 
 export function Component() {
@@ -28,6 +29,10 @@ export function Component() {
       <Card variant="outlined">
         <DateRangeFields state={range} />
       </Card>
+      <RevenueSection range={range.valid} />
+      <OutstandingSection />
+      <HoursSection range={range.valid} />
+      <UtilisationSection range={range.valid} />
       <Card variant="outlined" component="section" aria-labelledby="exports-title">
         <Typography id="exports-title" level="title-lg" component="h2">
           Exports for the bookkeeper

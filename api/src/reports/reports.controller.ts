@@ -1,0 +1,44 @@
+import { Controller, Get, Query } from '@nestjs/common';
+import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { dateRangeQuerySchema, type DateRangeQuery, type HoursReport, type OutstandingReport, type RevenueReport, type UtilisationReport } from '@loomwright/shared';
+import { Roles } from '../auth/roles.decorator';
+import { ApiZodQuery } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
+import { ReportsService } from './reports.service';
+
+const range = new ZodValidationPipe(dateRangeQuerySchema);
+
+@ApiTags('reports')
+@ApiCookieAuth('lw_session')
+@Roles('owner')
+@Controller('reports')
+export class ReportsController {
+  constructor(private readonly reports: ReportsService) {}
+
+  @Get('revenue')
+  @ApiZodQuery(dateRangeQuerySchema)
+  @ApiOkResponse({ description: 'Deposits, balances and refunds per calendar month of the shop (payments.csv summed by month).' })
+  revenue(@Query(range) query: DateRangeQuery): Promise<RevenueReport> {
+    return this.reports.revenue(query);
+  }
+
+  @Get('outstanding')
+  @ApiOkResponse({ description: 'Money owed now: deposits of open requests, balances of builds; and money held beyond what is owed.' })
+  outstanding(): Promise<OutstandingReport> {
+    return this.reports.outstanding();
+  }
+
+  @Get('hours')
+  @ApiZodQuery(dateRangeQuerySchema)
+  @ApiOkResponse({ description: 'Quoted against spent hours per build and per builder, for builds with hours worked in the range.' })
+  hours(@Query(range) query: DateRangeQuery): Promise<HoursReport> {
+    return this.reports.hours(query);
+  }
+
+  @Get('utilisation')
+  @ApiZodQuery(dateRangeQuerySchema)
+  @ApiOkResponse({ description: 'Bench capacity, booked and recorded hours per builder per ISO week.' })
+  utilisation(@Query(range) query: DateRangeQuery): Promise<UtilisationReport> {
+    return this.reports.utilisation(query);
+  }
+}
