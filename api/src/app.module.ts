@@ -15,6 +15,7 @@ import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
 import { ExportsModule } from './exports/exports.module';
 import { ReportsModule } from './reports/reports.module';
+import { CalendarFeedsModule } from './calendar-feeds/calendar-feeds.module';
 import { QuotesModule } from './quotes/quotes.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -83,6 +84,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     BuildSheetsModule,
     ExportsModule,
     ReportsModule,
+    CalendarFeedsModule,
   ],
 })
 export class AppModule {}

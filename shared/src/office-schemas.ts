@@ -168,3 +168,16 @@ export interface UtilisationReport {
   to: string;
   builders: Array<{ builderId: string; builderName: string; level: string; weeks: UtilisationWeek[] }>;
 }
+
+/** A private calendar feed's link (GET /api/calendar-feeds): whoever has the link can read the feed. */
+export interface CalendarFeedLink {
+  id: string;
+  scope: 'shop' | 'builder';
+  builderId: string | null;
+  builderName: string | null;
+  /** https link to subscribe to. */
+  url: string;
+  /** The same link as webcal:, which calendar programs open as a subscription. */
+  webcalUrl: string;
+  rotatedAt: string | null;
+}

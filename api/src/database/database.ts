@@ -331,7 +331,18 @@ export interface BuilderAbsencesTable {
   created_at: Generated<Date>;
 }
 
+export interface CalendarFeedsTable {
+  id: Generated<string>;
+  /** null: the whole shop's feed. */
+  builder_id: string | null;
+  generation: Generated<number>;
+  rotated_at: NullableTimestamp;
+  rotated_by: string | null;
+  created_at: Generated<Date>;
+}
+
 export interface DB {
+  calendar_feeds: CalendarFeedsTable;
   builder_absences: BuilderAbsencesTable;
   shop_settings: ShopSettingsTable;
   users: UsersTable;

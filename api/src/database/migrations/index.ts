@@ -12,6 +12,7 @@ import * as benchChanges from './20261202_0413_bench_changes';
 import * as shopLocale from './20261202_0530_shop_locale';
 import * as officeIndexes from './20261202_0546_office_indexes';
 import * as listsAtScale from './20261202_0614_lists_at_scale';
+import * as calendarFeeds from './20261202_0708_calendar_feeds';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -31,4 +32,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0530_shop_locale': shopLocale,
   '20261202_0546_office_indexes': officeIndexes,
   '20261202_0614_lists_at_scale': listsAtScale,
+  '20261202_0708_calendar_feeds': calendarFeeds,
 };
