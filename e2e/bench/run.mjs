@@ -6,7 +6,7 @@
 //
 // Sections (BENCH_ONLY=http,engine,bundle,lighthouse,latency,data,mail picks some; default all).
 // Ports (defaults in the 3370-3379 block): BENCH_PORT 3370, BENCH_PG_PORT 3371, BENCH_PAYMENT_PORT 3372,
-// BENCH_SMTP_PORT 3373, BENCH_MAIL_HTTP_PORT 3374. BENCH_SECONDS (8) per load run, BENCH_REPEAT (30)
+// BENCH_SMTP_PORT 3373, BENCH_MAIL_HTTP_PORT 3374, BENCH_OBJECT_STORE_PORT 3375. BENCH_SECONDS (8) per load run, BENCH_REPEAT (30)
 // calls per data figure, BENCH_SKIP_BUILD=true to reuse the last build, BENCH_SCALE=small for a quick try.
 import { spawn, spawnSync } from 'node:child_process';
 import { appendFileSync, existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
@@ -25,6 +25,7 @@ const ports = {
   payment: Number(env.BENCH_PAYMENT_PORT ?? 3372),
   smtp: Number(env.BENCH_SMTP_PORT ?? 3373),
   mailHttp: Number(env.BENCH_MAIL_HTTP_PORT ?? 3374),
+  objectStore: Number(env.BENCH_OBJECT_STORE_PORT ?? 3375),
 };
 const base = `http://127.0.0.1:${ports.api}`;
 const pgData = path.join(root, '.data/postgres-bench');
@@ -110,6 +111,8 @@ async function startStack() {
       PAYMENT_FAKE_PORT: String(ports.payment),
       MAIL_FAKE_SMTP_PORT: String(ports.smtp),
       MAIL_FAKE_HTTP_PORT: String(ports.mailHttp),
+      OBJECT_STORE_PORT: String(ports.objectStore),
+      OBJECT_STORE_DIR: '.data/object-store-bench',
       FRESH_DATABASE: 'true',
       SEED_DEMO: 'true',
       STACK_QUIET: 'true',
