@@ -20,6 +20,7 @@ import { QuotesModule } from './quotes/quotes.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { LoggingModule } from './logging/logging.module';
+import { MetricsModule } from './metrics/metrics.module';
 import { MailModule } from './mail/mail.module';
 import { PaymentsModule } from './payments/payments.module';
 import { PriceBookModule } from './price-book/price-book.module';
@@ -46,6 +47,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     ConfigModule.forRoot({ isGlobal: true, load: [configuration], ignoreEnvFile: true }),
     LoggingModule,
     DatabaseModule,
+    MetricsModule,
     // Before AuthModule: its CSRF guard must run ahead of the sign-in and role guards.
     SecurityModule,
     ...(servesApps

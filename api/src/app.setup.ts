@@ -8,6 +8,7 @@ import { applyBodyParsing } from './common/body-parsing';
 import { ApiExceptionFilter } from './common/api-exception.filter';
 import type { AppConfig } from './config/configuration';
 import { HTTP_LOGGER, httpLogging } from './logging/logging.module';
+import { MetricsService } from './metrics/metrics.service';
 import { securityHeaders } from './security/security-headers';
 import { storefrontNotFound } from './storefront/storefront-not-found';
 
@@ -20,6 +21,8 @@ export function configureApp(app: INestApplication): INestApplication {
   const { trustProxy, nodeEnv } = app.get(ConfigService<AppConfig, true>).get('app', { infer: true });
   // Before anything else, so every answer has its X-Request-Id and its one JSON log line.
   app.use(...httpLogging(app.get(HTTP_LOGGER)));
+  // Request counts and latency by route pattern and status (GET /api/metrics).
+  app.use(app.get(MetricsService).middleware());
   // Next, so every answer carries the headers: the apps, the API, its errors and the Swagger page.
   app.use(securityHeaders(nodeEnv === 'production'));
   // Behind a load balancer, req.ip must be the client (throttling counts per address): TRUST_PROXY.

@@ -78,6 +78,10 @@ const matrix: Record<string, Entry> = {
   'GET /api/docs-yaml': open(200),
   // health and shop profile
   'GET /api/health': open(200),
+  'GET /api/health/live': open(200),
+  'GET /api/health/ready': open(200),
+  // Guarded by where the caller is (loopback) or METRICS_TOKEN, not by who signed in; the tests call from loopback.
+  'GET /api/metrics': open(200),
   'GET /api/shop': open(200),
   // accounts
   'POST /api/auth/sign-up': open(400),

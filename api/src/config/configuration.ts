@@ -68,6 +68,8 @@ const environmentSchema = z.object({
       return origins;
     }),
   RUN_WORKERS: z.enum(['true', 'false']).default('true'),
+  // With it, GET /api/metrics wants `Authorization: Bearer <METRICS_TOKEN>`; without, only loopback callers.
+  METRICS_TOKEN: z.string().min(16, 'METRICS_TOKEN: at least 16 characters').optional(),
   // JSON log lines on stdout at this level and above (pino's levels).
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   // Express's "trust proxy": which proxies in front may name the client in X-Forwarded-For, so
@@ -139,6 +141,7 @@ export function configuration() {
     },
     database: { url: env.DATABASE_URL, poolMax: env.DATABASE_POOL_MAX },
     logging: { level: env.LOG_LEVEL },
+    metrics: { token: env.METRICS_TOKEN },
     storage: {
       driver: env.PHOTO_STORAGE,
       uploadsDir: env.UPLOADS_DIR,

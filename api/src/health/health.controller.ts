@@ -4,6 +4,12 @@ import type { Response } from 'express';
 import { Public } from '../auth/public.decorator';
 import { HealthService } from './health.service';
 
+/**
+ * Three probes. /api/health (kept as it was: the database answers). /api/health/live: the process
+ * runs and answers; an orchestrator restarts it only when this fails, never because the database
+ * is away. /api/health/ready: send it work; fails while the database or the photo store is
+ * unreachable, or while the process is shutting down, so a load balancer takes it out of rotation.
+ */
 @ApiTags('health')
 @Controller('health')
 export class HealthController {
@@ -17,5 +23,29 @@ export class HealthController {
     const dbUp = await this.health.databaseIsUp();
     if (!dbUp) res.status(HttpStatus.SERVICE_UNAVAILABLE);
     return { status: dbUp ? 'ok' : 'degraded', db: dbUp ? 'up' : 'down' };
+  }
+
+  @Public()
+  @Get('live')
+  @ApiOkResponse({ description: 'Liveness: the process is running and answering. Depends on nothing outside it.' })
+  live() {
+    return { status: 'ok', uptimeSeconds: Math.round(process.uptime()) };
+  }
+
+  @Public()
+  @Get('ready')
+  @ApiOkResponse({ description: 'Readiness: the database and the photo store answer; send this process work.' })
+  @ApiServiceUnavailableResponse({ description: 'The database or the photo store is unreachable, or the process is shutting down.' })
+  async ready(@Res({ passthrough: true }) res: Response) {
+    const [dbUp, storageUp] = await Promise.all([this.health.databaseIsUp(), this.health.storageIsUp()]);
+    const shuttingDown = this.health.shuttingDown;
+    const ready = dbUp && storageUp && !shuttingDown;
+    if (!ready) res.status(HttpStatus.SERVICE_UNAVAILABLE);
+    const reasons = [
+      ...(dbUp ? [] : ['the database does not answer']),
+      ...(storageUp ? [] : ['the photo store does not answer']),
+      ...(shuttingDown ? ['this process is shutting down'] : []),
+    ];
+    return { status: ready ? 'ready' : 'not ready', db: dbUp ? 'up' : 'down', storage: storageUp ? 'up' : 'down', ...(reasons.length && { reasons }) };
   }
 }
