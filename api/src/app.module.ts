@@ -10,6 +10,7 @@ import { SettingsModule } from './settings/settings.module';
 import { TeamModule } from './team/team.module';
 import { BookingsModule } from './bookings/bookings.module';
 import { BuildSheetsModule } from './build-sheets/build-sheets.module';
+import { ConfigurationsModule } from './configurations/configurations.module';
 import { configuration } from './config/configuration';
 import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
@@ -87,6 +88,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     ExportsModule,
     ReportsModule,
     CalendarFeedsModule,
+    ConfigurationsModule,
   ],
 })
 export class AppModule {}

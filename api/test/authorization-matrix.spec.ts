@@ -45,6 +45,9 @@ interface Fixtures {
   spareBookingOfA: string;
   /** A person none of the callers is (the apprentice builder), for calls that end someone's sessions. */
   bystander: string;
+  /** Two of A's saved configurations: one to read and change, one to delete. */
+  configurationOfA: string;
+  spareConfigurationOfA: string;
 }
 
 interface Entry {
@@ -101,6 +104,16 @@ const matrix: Record<string, Entry> = {
   'GET /api/catalog': open(200),
   'POST /api/estimates': open(400),
   'POST /api/quotes/pdf': open(400),
+  'POST /api/quotes/email': signedIn(400),
+  // saved configurations: each person's own; another's id is a 404, staff included
+  'GET /api/configurations': signedIn(200),
+  'POST /api/configurations': signedIn(400),
+  'GET /api/configurations/:id': { expect: [401, 200, 404, 404, 404], path: (fx) => `/api/configurations/${fx.configurationOfA}` },
+  'PATCH /api/configurations/:id': { expect: [401, 200, 404, 404, 404], body: { name: 'Renamed by the matrix' }, path: (fx) => `/api/configurations/${fx.configurationOfA}` },
+  'POST /api/configurations/:id/duplicate': { expect: [401, 201, 404, 404, 404], path: (fx) => `/api/configurations/${fx.configurationOfA}/duplicate` },
+  'DELETE /api/configurations/:id': { expect: [401, 204, 404, 404, 404], path: (fx) => `/api/configurations/${fx.spareConfigurationOfA}` },
+  'POST /api/configuration-links': open(400),
+  'GET /api/configuration-links/:code': { ...open(404), path: () => '/api/configuration-links/Zz9Zz9Zz' },
   'GET /api/price-book': staff(200),
   'POST /api/price-book': ownerOnly(400),
   // bookings (players own theirs; staff see all)
@@ -151,6 +164,7 @@ const matrix: Record<string, Entry> = {
   'POST /api/bookings/:id/layout/decision': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/decision` },
   'POST /api/bookings/:id/layout/recorded-decision': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/recorded-decision` },
   'GET /api/bookings/:id/build-sheet': { ...staff(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/build-sheet` },
+  'GET /api/bookings/:id/quote.pdf': { ...ownedByA(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/quote.pdf` },
   // team, settings, customers, mail log
   'GET /api/team': staff(200),
   'PATCH /api/team/:builderId': { ...ownerOnly(400), path: (fx) => `/api/team/${fx.builderId}` },
@@ -196,7 +210,11 @@ async function makeFixtures(t: TestApp, cookieOfA: string): Promise<Fixtures> {
   };
   const request = async () =>
     (await t.http().post('/api/bookings').set('Cookie', cookieOfA).send({ configuration }).expect(201)).body.id as string;
+  const save = async (name: string) =>
+    (await t.http().post('/api/configurations').set('Cookie', cookieOfA).send({ name, configuration }).expect(201)).body.id as string;
   return {
+    configurationOfA: await save('Matrix board'),
+    spareConfigurationOfA: await save('Matrix spare'),
     customerA,
     customerB: await idOf('cass@mail.example'),
     builderUser,

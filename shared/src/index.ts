@@ -26,3 +26,4 @@ export * from './quote-schemas';
 export * from './format/shop-format';
 export * from './office-schemas';
 export * from './storefront-paths';
+export * from './configuration-schemas';

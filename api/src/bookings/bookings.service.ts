@@ -3,6 +3,7 @@ import type { AuthUser, BookingDetail, BookingState, BookingSummary, CreateBooki
 import { bookingStateLabels, moneyFacts, staffRoles, type MoneyFacts } from '@loomwright/shared';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
+import { quoteMailLines } from '../mail/quote-mail-lines';
 import { detailView, pickQuotes, playerView, summaryView } from './booking-view';
 import { BookingsRepository, type BookingRow, type ExtraRow, type PaymentRow, type QuoteRow } from './bookings.repository';
 import { QuotePricer } from './quote-pricer';
@@ -79,6 +80,7 @@ export class BookingsService {
           deposit: estimate.deposit,
           currency: estimate.currency,
           quoteExpiresAt: expiresAt.toISOString(),
+          lines: quoteMailLines(estimate),
         },
         dedupeKey: `booking-requested:${booking.id}`,
       });

@@ -341,8 +341,27 @@ export interface CalendarFeedsTable {
   created_at: Generated<Date>;
 }
 
+export interface SavedConfigurationsTable {
+  id: Generated<string>;
+  owner_id: string;
+  name: string;
+  configuration: JSONColumnType<RigConfiguration>;
+  created_at: Generated<Date>;
+  updated_at: Generated<Date>;
+}
+
+export interface ConfigurationLinksTable {
+  code: string;
+  digest: string;
+  configuration: JSONColumnType<RigConfiguration>;
+  created_at: Generated<Date>;
+  last_opened_at: Date | null;
+}
+
 export interface DB {
   calendar_feeds: CalendarFeedsTable;
+  saved_configurations: SavedConfigurationsTable;
+  configuration_links: ConfigurationLinksTable;
   builder_absences: BuilderAbsencesTable;
   shop_settings: ShopSettingsTable;
   users: UsersTable;

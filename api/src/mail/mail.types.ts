@@ -20,6 +20,7 @@ export const mailTemplates = [
   'shop-note',
   'payment-failed',
   'shop-payment-alert',
+  'configuration-quote',
 ] as const;
 export type MailTemplate = (typeof mailTemplates)[number];
 
@@ -43,6 +44,8 @@ export interface OutgoingMail {
  * sent: the mail log shows it as failed, naming the key.
  */
 type Recipient = { name: string } | { customerName: string };
+/** One line item as a quote e-mail lists it; amounts are decimal strings, a labor line a range. */
+export type QuoteMailLine = { label: string; quantity?: string; amount: string; amountHigh?: string };
 type BookingLink = { bookingUrl?: string; buildUrl?: string };
 
 export type MailTemplateData = {
@@ -58,7 +61,33 @@ export type MailTemplateData = {
     expiresAt?: string;
   };
   'booking-requested': Recipient &
-    BookingLink & { reference: string; totalLow: string; totalHigh: string; deposit: string; currency: string; quoteExpiresAt?: string };
+    BookingLink & {
+      reference: string;
+      totalLow: string;
+      totalHigh: string;
+      deposit: string;
+      currency: string;
+      quoteExpiresAt?: string;
+      /** The estimate's line items, in the quote's order. */
+      lines?: QuoteMailLine[];
+      /** GET /api/bookings/:id/quote.pdf, opened signed in. */
+      quotePdfUrl?: string;
+    };
+  /** Any configuration's quote, sent on request to the signed-in person, with the PDF attached. */
+  'configuration-quote': Recipient & {
+    title?: string;
+    currency: string;
+    totalLow: string;
+    totalHigh: string;
+    deposit: string;
+    priceBookVersion?: string;
+    lines: QuoteMailLine[];
+    /** The PDF, base64. */
+    pdfBase64: string;
+    pdfFilename?: string;
+    /** The short link that reopens the configuration in the configurator. */
+    openUrl?: string;
+  };
   /** "What happens next" is the template's own text. */
   'deposit-received': Recipient & BookingLink & { reference: string; amount: string; currency: string; expectedBenchDate?: string };
   'booking-scheduled': Recipient &

@@ -9,6 +9,8 @@ export interface QuoteData {
   /** The quote's own title: a saved configuration's name, or "Quote". */
   title: string;
   printedAt: Date;
+  /** A booking's firm price, once a builder with a known rate accepted it. */
+  firm?: { total: string; hourlyRate: string };
 }
 
 const money = (amount: string, currency: string) =>
@@ -54,6 +56,7 @@ export function renderQuote(data: QuoteData): Promise<Buffer> {
   sheet.paragraph(`Materials: ${money(e.materialsTotal, cur)}`);
   sheet.paragraph(`Labor at ${level?.name ?? e.level} rates (${range(e.rate.low, e.rate.high, cur)} an hour): ${range(e.laborLow, e.laborHigh, cur)}`);
   sheet.paragraph(`Estimated total: ${range(e.totalLow, e.totalHigh, cur)}`, { bold: true });
+  if (data.firm) sheet.paragraph(`Firm price set by the shop: ${money(data.firm.total, cur)} (labor at ${money(data.firm.hourlyRate, cur)} an hour)`, { bold: true });
   sheet.paragraph(`Deposit to book bench time: ${money(e.deposit, cur)}. ${book.depositPolicy.description}`);
   sheet.paragraph('A range, because the rate depends on the builder who takes it; the shop confirms a firm price when it accepts. Pedals, power supply and switcher are yours to supply.');
 

@@ -28,6 +28,9 @@ export const routes: RouteObject[] = [
         lazy: () => import('src/app/routes/configure'),
       },
       { path: 'request', lazy: () => import('src/app/routes/request') },
+      { path: 'configurations', lazy: () => import('src/app/routes/configurations') },
+      // A short link to a configuration (POST /api/configuration-links); ?c= links keep working.
+      { path: 'c/:code', lazy: () => import('src/app/routes/short-link') },
       { path: 'checkout/return', lazy: () => import('src/app/routes/checkout-return') },
       { path: 'builds', lazy: () => import('src/app/routes/builds') },
       { path: 'builds/:id', lazy: () => import('src/app/routes/build-detail') },

@@ -13,6 +13,7 @@ import * as shopLocale from './20261202_0530_shop_locale';
 import * as officeIndexes from './20261202_0546_office_indexes';
 import * as listsAtScale from './20261202_0614_lists_at_scale';
 import * as calendarFeeds from './20261202_0708_calendar_feeds';
+import * as savedConfigurations from './20261202_0727_saved_configurations';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -33,4 +34,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0546_office_indexes': officeIndexes,
   '20261202_0614_lists_at_scale': listsAtScale,
   '20261202_0708_calendar_feeds': calendarFeeds,
+  '20261202_0727_saved_configurations': savedConfigurations,
 };

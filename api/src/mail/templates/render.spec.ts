@@ -37,6 +37,22 @@ const samples: Record<(typeof mailTemplates)[number], Record<string, unknown>> =
   'payment-failed': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD', reason: 'The bank account has been closed.' },
   'shop-payment-alert': { customerName: 'Rosa', alert: 'dispute-opened', reference: 'LW-1042', amount: '280.00', currency: 'USD', detail: 'fraudulent', backofficeUrl: 'http://x/backoffice/requests/1' },
   'shop-new-paid-request': { reference: 'LW-1042', customerName: 'Rosa', customerEmail: 'rosa@mail.example', amount: '280.00', currency: 'USD', backofficeUrl: 'http://x/backoffice/requests/1' },
+  'configuration-quote': {
+    name: 'Rosa',
+    title: 'Stage board',
+    currency: 'USD',
+    totalLow: '1120.00',
+    totalHigh: '1400.50',
+    deposit: '280.00',
+    priceBookVersion: '3',
+    lines: [
+      { label: 'Patch cables', quantity: '19 pcs', amount: '96.00' },
+      { label: 'Mounting and wiring', quantity: '12 h', amount: '960.00', amountHigh: '1200.00' },
+    ],
+    pdfBase64: Buffer.from('%PDF-1.3 sample').toString('base64'),
+    pdfFilename: 'loomwright-quote-stage-board-2026-12-02.pdf',
+    openUrl: 'http://x/c/Ab3dE9xQ',
+  },
 };
 
 describe('formatting', () => {
@@ -85,6 +101,35 @@ describe('every template', () => {
 });
 
 describe('the values each message must carry', () => {
+  it('configuration-quote lists every line (labor as its range), the totals and the link, and attaches the PDF as bytes', () => {
+    const mail = renderMail('configuration-quote', samples['configuration-quote'], shop);
+    expect(mail.subject).toBe('Stage board: your quote from Copperline Rig Works');
+    expect(mail.text).toContain('Patch cables (19 pcs)');
+    expect(mail.text).toContain('$96.00');
+    expect(mail.text).toContain('$960.00 to $1,200.00');
+    expect(mail.text).toContain('$1,120.00 to $1,400.50');
+    expect(mail.text).toContain('http://x/c/Ab3dE9xQ');
+    expect(mail.attachments).toEqual([
+      { filename: 'loomwright-quote-stage-board-2026-12-02.pdf', contentType: 'application/pdf', content: samples['configuration-quote'].pdfBase64, encoding: 'base64' },
+    ]);
+  });
+
+  it('configuration-quote refuses a line without an amount, naming it', () => {
+    expect(() => renderMail('configuration-quote', { ...samples['configuration-quote'], lines: [{ label: 'Patch cables' }] }, shop)).toThrow('line 1 of "lines"');
+  });
+
+  it('booking-requested lists the line items and links to the booking quote PDF', () => {
+    const mail = renderMail(
+      'booking-requested',
+      { ...samples['booking-requested'], lines: [{ label: 'Hook-and-loop', quantity: '8 ft', amount: '40.00' }] },
+      { ...shop, publicUrl: 'http://shop.test' },
+      { bookingId: 'b-1' },
+    );
+    expect(mail.text).toContain('Hook-and-loop (8 ft)');
+    expect(mail.text).toContain('$40.00');
+    expect(mail.text).toContain('http://shop.test/api/bookings/b-1/quote.pdf');
+  });
+
   it('password-reset carries the link and when it stops working, in the shop time zone', () => {
     const mail = renderMail('password-reset', samples['password-reset'], shop);
     expect(mail.html).toContain('http://localhost:3000/reset?token=t0k3n');

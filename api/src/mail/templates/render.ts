@@ -21,7 +21,8 @@ export interface RenderedMail {
   subject: string;
   html: string;
   text: string;
-  attachments: { filename: string; contentType: string; content: string }[];
+  /** `content` is text, or base64 when `encoding` says so (a PDF). */
+  attachments: { filename: string; contentType: string; content: string; encoding?: 'base64' }[];
 }
 
 type Data = Record<string, unknown>;
@@ -57,6 +58,24 @@ function firstString(data: Data, ...keys: string[]): string | undefined {
 
 function strings(value: unknown): string[] {
   return Array.isArray(value) ? value.filter((v): v is string => typeof v === 'string' && v.trim() !== '') : [];
+}
+
+/**
+ * A quote's line items as rows of a facts table: "Patch cables (19 pcs)" → "$96.00", a labor line
+ * as its range. `lines` is [{label, quantity?, amount, amountHigh?}] with decimal-string amounts.
+ */
+function quoteLineRows(data: Data, currency: string): [string, string][] {
+  if (!Array.isArray(data.lines)) return [];
+  return data.lines.map((line, i) => {
+    const l = (line ?? {}) as Data;
+    const label = optionalString(l, 'label');
+    const amount = optionalString(l, 'amount');
+    if (!label || !amount) throw new MailDataError(`line ${i + 1} of "lines" has no label or amount`);
+    const quantity = optionalString(l, 'quantity');
+    const high = optionalString(l, 'amountHigh');
+    const value = high && high !== amount ? `${formatMoney(amount, currency)} to ${formatMoney(high, currency)}` : formatMoney(amount, currency);
+    return [quantity ? `${label} (${quantity})` : label, value];
+  });
 }
 
 // Packing and safety advice for the pedals, the supply and any switcher (common practice in the
@@ -420,10 +439,41 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
                 : []),
             ],
           },
+          ...(Array.isArray(data.lines) && data.lines.length
+            ? [{ kind: 'p' as const, text: 'What the estimate is made of:' }, { kind: 'facts' as const, rows: quoteLineRows(data, currency) }]
+            : []),
           { kind: 'p', text: 'Your place in the queue is held once the deposit is paid. Pedals, power supply and switcher are yours and not part of the price.' },
           ...openIf('Pay the deposit', optionalString(data, 'bookingUrl')),
+          ...openIf('Open the quote (PDF, after signing in)', optionalString(data, 'quotePdfUrl')),
         ],
       },
+    };
+  },
+  'configuration-quote': (data, shop) => {
+    const currency = requireString(data, 'currency');
+    const title = optionalString(data, 'title') ?? 'Your quote';
+    const pdf = requireString(data, 'pdfBase64');
+    const filename = (optionalString(data, 'pdfFilename') ?? 'quote.pdf').replace(/[^A-Za-z0-9._-]+/g, '-');
+    return {
+      subject: `${title}: your quote from ${shop.name}`,
+      letter: {
+        heading: title,
+        blocks: [
+          { kind: 'p', text: `Hello ${recipient(data)}, here is the quote you asked for. The PDF attached has every line, the layout, the power plan, the patch cables and the cautions.` },
+          { kind: 'facts', rows: quoteLineRows(data, currency) },
+          {
+            kind: 'facts',
+            rows: [
+              ['Estimated total', `${formatMoney(requireString(data, 'totalLow'), currency)} to ${formatMoney(requireString(data, 'totalHigh'), currency)}`],
+              ['Deposit to book bench time', formatMoney(requireString(data, 'deposit'), currency)],
+              ...(optionalString(data, 'priceBookVersion') ? [['Price book version', data.priceBookVersion as string] as [string, string]] : []),
+            ],
+          },
+          { kind: 'p', text: 'An estimate, priced from today’s price book: the shop confirms a firm price when it accepts a request. Pedals, power supply and switcher are yours and not part of the price.' },
+          ...openIf('Open this configuration', optionalString(data, 'openUrl')),
+        ],
+      },
+      attachments: [{ filename, contentType: 'application/pdf', content: pdf, encoding: 'base64' }],
     };
   },
   'deposit-received': (data) => {
@@ -618,7 +668,11 @@ export function renderMail(template: string, data: Data, shop: ShopContext, mess
   const bookingUrl =
     firstString(given, 'bookingUrl', 'buildUrl') ??
     (message.bookingId && shop.publicUrl ? `${shop.publicUrl}/builds/${message.bookingId}` : undefined);
-  const { subject, letter, attachments } = draft({ ...given, ...(bookingUrl ? { bookingUrl } : {}) }, shop);
+  // The booking's quote as a PDF (GET /api/bookings/:id/quote.pdf, opened signed in).
+  const quotePdfUrl =
+    optionalString(given, 'quotePdfUrl') ??
+    (message.bookingId && shop.publicUrl ? `${shop.publicUrl}/api/bookings/${message.bookingId}/quote.pdf` : undefined);
+  const { subject, letter, attachments } = draft({ ...given, ...(bookingUrl ? { bookingUrl } : {}), ...(quotePdfUrl ? { quotePdfUrl } : {}) }, shop);
   const full: Letter = { shopName: shop.name, ...letter };
   return { subject, html: letterHtml(full), text: letterText(full), attachments: attachments ?? [] };
 }

@@ -1,8 +1,12 @@
 import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
+import { lazy } from 'react';
 import { PageLoading } from 'src/components/PageLoading';
 import { useCatalog } from 'src/features/configurator/api/get-catalog';
 import { Configurator } from 'src/features/configurator/components/Configurator';
+
+// Saving, sharing and e-mailing show on the Review step only, so they load with it, not with the first screen.
+const KeepConfiguration = lazy(() => import('src/features/saved-configurations/components/KeepConfiguration'));
 
 export function Component() {
   const catalog = useCatalog();
@@ -13,5 +17,5 @@ export function Component() {
         The price book could not be loaded: {catalog.error.message}
       </Alert>
     );
-  return <Configurator catalog={catalog.data} />;
+  return <Configurator catalog={catalog.data} keep={(configuration, ready) => <KeepConfiguration configuration={configuration} ready={ready} />} />;
 }

@@ -29,6 +29,7 @@ export function AccountNav() {
         {me.data.name}
       </Typography>
       <Link component={RouterLink} to="/builds">My builds</Link>
+      <Link component={RouterLink} to="/configurations">Saved boards</Link>
       <Link component={RouterLink} to="/account">Account</Link>
     </>
   );

@@ -11,7 +11,7 @@ import { higherLevel } from '../lib/configuration';
 import { configuratorSteps, type StepId } from '../lib/steps';
 import { EstimatePanel } from './EstimatePanel';
 import { StepProgress } from './StepProgress';
-import type { StepProps } from './steps/step-props';
+import type { KeepSlot, StepProps } from './steps/step-props';
 
 // Each step is its own chunk: the first screen ships only the Surface step, and the form
 // library arrives with the Pedals step.
@@ -25,7 +25,7 @@ const stepComponents: Record<StepId, ComponentType<StepProps>> = {
   review: lazy(() => import('./steps/ReviewStep')),
 };
 
-export function Configurator({ catalog }: { catalog: Catalog }) {
+export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepSlot }) {
   const { configuration, encoded, update, step, goToStep, restoredFrom, startOver, dismissRestored } = useConfiguration(catalog);
   const live = useLiveEstimate(encoded, step === 'review' ? 'full' : 'panel');
   const guard = useRef<(() => Promise<boolean>) | null>(null);
@@ -103,6 +103,7 @@ export function Configurator({ catalog }: { catalog: Catalog }) {
               live={live}
               goToStep={goToStep}
               setLeaveGuard={setLeaveGuard}
+              keep={keep}
             />
           </Suspense>
         </Box>

@@ -5,6 +5,7 @@ import List from '@mui/joy/List';
 import ListItem from '@mui/joy/ListItem';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
+import { Suspense } from 'react';
 import { useNavigate } from 'react-router';
 import { encodeConfiguration, quantityWithUnit } from '@loomwright/shared';
 import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/money';
@@ -16,7 +17,7 @@ import { PowerCautions } from '../PowerCautions';
 import { StepHeading } from '../StepHeading';
 import type { StepProps } from './step-props';
 
-export default function ReviewStep({ catalog, configuration, live }: StepProps) {
+export default function ReviewStep({ catalog, configuration, live, keep }: StepProps) {
   const navigate = useNavigate();
   const quote = useDownloadQuote();
   const e = live.estimate;
@@ -131,6 +132,11 @@ export default function ReviewStep({ catalog, configuration, live }: StepProps) 
             </Button>
             {quote.isError ? (
               <Typography role="alert" level="body-sm" sx={{ color: 'danger.700', mt: 1 }}>{quote.error.message}</Typography>
+            ) : null}
+            {keep ? (
+              <Box sx={{ mt: 3 }}>
+                <Suspense fallback={<Typography level="body-sm">Loading…</Typography>}>{keep(configuration, live.isCurrent)}</Suspense>
+              </Box>
             ) : null}
           </Box>
           <Box>

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import type { Catalog, RigConfiguration } from '@loomwright/shared';
 import type { ConfigurationUpdate } from '../../hooks/use-configuration';
 import type { LiveEstimate } from '../../hooks/use-live-estimate';
@@ -11,4 +12,8 @@ export interface StepProps {
   goToStep: (step: StepId) => void;
   /** A step with a form registers a check that runs before Next; false keeps the player on it. */
   setLeaveGuard: (guard: (() => Promise<boolean>) | null) => void;
+  /** What the page around the configurator offers for keeping a configuration (save, share, e-mail), shown on Review. */
+  keep?: KeepSlot;
 }
+
+export type KeepSlot = (configuration: RigConfiguration, ready: boolean) => ReactNode;

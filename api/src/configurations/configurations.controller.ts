@@ -1,0 +1,99 @@
+import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, Patch, Post, UseGuards } from '@nestjs/common';
+import { Throttle, ThrottlerGuard } from '@nestjs/throttler';
+import { ApiCreatedResponse, ApiNoContentResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import {
+  configurationLinkSchema,
+  errorResponse,
+  duplicateConfigurationSchema,
+  saveConfigurationSchema,
+  SHORT_LINK_CODE,
+  updateConfigurationSchema,
+  type AuthUser,
+  type ConfigurationLinkInput,
+  type DuplicateConfigurationInput,
+  type RigConfiguration,
+  type SaveConfigurationInput,
+  type UpdateConfigurationInput,
+} from '@loomwright/shared';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Public } from '../auth/public.decorator';
+import { uuidParam } from '../common/uuid-param.pipe';
+import { ApiZodBody } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
+import { ConfigurationsService } from './configurations.service';
+
+const configurationIdPipe = uuidParam('id: a saved configuration id is a UUID, as GET /api/configurations lists them.');
+
+/** A signed-in person's saved configurations: each sees and changes only their own (another's id is a 404). */
+@ApiTags('saved configurations')
+@Controller('configurations')
+export class ConfigurationsController {
+  constructor(private readonly configurations: ConfigurationsService) {}
+
+  @Get()
+  @ApiOkResponse({ description: 'Your saved configurations, the most recently changed first.' })
+  list(@CurrentUser() user: AuthUser) {
+    return this.configurations.list(user);
+  }
+
+  @Post()
+  @ApiCreatedResponse({ description: 'The configuration, kept under its name.' })
+  @ApiZodBody(saveConfigurationSchema)
+  save(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(saveConfigurationSchema)) body: SaveConfigurationInput) {
+    return this.configurations.save(user, body);
+  }
+
+  @Get(':id')
+  @ApiOkResponse({ description: 'One of your saved configurations, whole.' })
+  get(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string) {
+    return this.configurations.get(user, id);
+  }
+
+  @Patch(':id')
+  @ApiOkResponse({ description: 'Renamed, or saved with changes.' })
+  @ApiZodBody(updateConfigurationSchema)
+  update(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string, @Body(new ZodValidationPipe(updateConfigurationSchema)) body: UpdateConfigurationInput) {
+    return this.configurations.update(user, id, body);
+  }
+
+  @Post(':id/duplicate')
+  @ApiCreatedResponse({ description: 'A copy under the name given, or "<name> (copy)".' })
+  @ApiZodBody(duplicateConfigurationSchema)
+  duplicate(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string, @Body(new ZodValidationPipe(duplicateConfigurationSchema)) body: DuplicateConfigurationInput) {
+    return this.configurations.duplicate(user, id, body.name);
+  }
+
+  @Delete(':id')
+  @HttpCode(204)
+  @ApiNoContentResponse({ description: 'Deleted.' })
+  remove(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string) {
+    return this.configurations.remove(user, id);
+  }
+}
+
+/** Short links: a code stands for a configuration, so the address to share is a few characters long. */
+@ApiTags('saved configurations')
+@Controller('configuration-links')
+export class ConfigurationLinksController {
+  constructor(private readonly configurations: ConfigurationsService) {}
+
+  // Open to anyone, so bounded per client address (the same PostgreSQL-backed counts as sign-in):
+  // far above what a player clicking "Copy link" needs.
+  @Public()
+  @Post()
+  @UseGuards(ThrottlerGuard)
+  @Throttle({ 'address-and-email': { limit: 60, ttl: 60_000 }, address: { limit: 60, ttl: 60_000 } })
+  @ApiCreatedResponse({ description: '{ code, path }: the storefront path /c/<code> opens this configuration.' })
+  @ApiZodBody(configurationLinkSchema)
+  create(@Body(new ZodValidationPipe(configurationLinkSchema)) body: ConfigurationLinkInput) {
+    return this.configurations.link(body.configuration as RigConfiguration);
+  }
+
+  @Public()
+  @Get(':code')
+  @ApiOkResponse({ description: '{ configuration } the code stands for.' })
+  open(@Param('code') code: string) {
+    if (!SHORT_LINK_CODE.test(code)) throw new BadRequestException(errorResponse('invalid_id', 'code: a link code is 6 to 16 letters and digits, as in /c/Ab3dE9xQ.'));
+    return this.configurations.openLink(code);
+  }
+}
