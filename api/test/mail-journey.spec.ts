@@ -38,10 +38,11 @@ describe('the booking-scheduled message after a builder accepts', () => {
     const scheduled = inbox.filter((m) => m.subject.startsWith('Booked: bench date'));
     expect(scheduled).toHaveLength(1);
     const [m] = scheduled;
+    // The demo shop writes en-US (CLDR en yMMMEd "EEE, MMM d, y"), as its pages do.
     const words = (day: string) =>
-      new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' })
-        .format(new Date(`${day}T00:00:00Z`))
-        .replace(',', '');
+      new Intl.DateTimeFormat('en-US', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(
+        new Date(`${day}T12:00:00Z`),
+      );
     expect(m.subject).toBe(`Booked: bench date ${words(monday)} for ${booking.reference}`);
     expect(m.text).toContain(words(shipBy));
     expect(m.text).toContain('- Fuzz');

@@ -59,8 +59,8 @@ describe('mail delivery through the outbox into the mail fake', () => {
     expect(m.from).toBe('bench@shop.example');
     // RFC 5322 §3.6.4: the Message-ID travels as sent, angle brackets included.
     expect(m.messageId).toBe(row!.message_id);
-    expect(m.subject).toBe('Booked: bench date Tue 12 Jan 2027 for LW-2001');
-    expect(m.text).toContain('Fri 8 Jan 2027');
+    expect(m.subject).toBe('Booked: bench date Tue, Jan 12, 2027 for LW-2001');
+    expect(m.text).toContain('Fri, Jan 8, 2027');
     expect(m.html).toContain('Master builder');
     expect(m.attachments).toHaveLength(1);
     expect(m.attachments[0]).toMatchObject({ filename: 'LW-2001-ship-by.ics' });
@@ -74,7 +74,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
     const one = await (await fetch(`http://127.0.0.1:${httpPort}/api/messages/${m.id}`)).json();
     expect(one.messageId).toBe(row!.message_id);
     const page = await (await fetch(`http://127.0.0.1:${httpPort}/`)).text();
-    expect(page).toContain('Booked: bench date Tue 12 Jan 2027 for LW-2001');
+    expect(page).toContain('Booked: bench date Tue, Jan 12, 2027 for LW-2001');
     expect((await fetch(`http://127.0.0.1:${httpPort}/api/messages/nope`)).status).toBe(404);
 
     const stored = await t.db.selectFrom('mail_outbox').selectAll().executeTakeFirstOrThrow();

@@ -38,6 +38,8 @@ describe('POST /api/quotes/pdf', () => {
     expect(res.headers['content-type']).toBe('application/pdf');
     const body = res.body as Buffer;
     expect(body.subarray(0, 5).toString()).toBe('%PDF-');
+    // The demo shop is in the US: US Letter, 8.5 × 11 in = 612 × 792 pt (ANSI/ASME Y14.1; CLDR paperSize US-Letter).
+    expect(body.toString('latin1')).toMatch(/\/MediaBox \[0 0 612 792\]/);
     const { text } = await pdfParse(body);
     const flat = text.replace(/\s+/g, ' ');
     // Totals as the API priced them, formatted the way any en-US reader writes dollars (ECMA-402).
@@ -45,7 +47,10 @@ describe('POST /api/quotes/pdf', () => {
     expect(flat).toContain(`Materials: ${usd(estimate.materialsTotal)}`);
     expect(flat).toContain(`Deposit to book bench time: ${usd(estimate.deposit)}`);
     expect(flat).toContain(`price book version ${estimate.priceBookVersion}`);
-    expect(flat).toContain(new Date().toISOString().slice(0, 10));
+    // The day in the demo shop's calendar (America/Chicago), as CLDR en writes it (yMMMEd).
+    expect(flat).toContain(
+      `quote dated ${new Intl.DateTimeFormat('en-US', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'America/Chicago' }).format(new Date())}`,
+    );
     for (const line of estimate.lines as Array<{ label: string }>) expect(flat).toContain(line.label);
     expect(flat).toContain('Power plan');
     expect(flat).toContain('Patch cables');

@@ -146,7 +146,7 @@ test("the owner's pages read the shop's real data: team, price book, settings wi
 
   await page.goto('/backoffice/team');
   const team = page.getByRole('table', { name: 'Builders' });
-  await expect(team.getByRole('row').filter({ hasText: 'Teodor Lind' })).toContainText('$125.00/h');
+  await expect(team.getByRole('row').filter({ hasText: 'Teodor Lind' })).toContainText('$125.00/hr');
   await expect(team.getByRole('button', { name: 'Edit Teodor Lind' })).toBeVisible();
   await page.screenshot({ path: shots('team'), fullPage: true });
 
@@ -160,7 +160,7 @@ test("the owner's pages read the shop's real data: team, price book, settings wi
   await expect(page.getByRole('heading', { name: /Public holidays \(US\)/ })).toBeVisible();
   // 25 December is a US federal public holiday (5 U.S.C. 6103(a)); in 2026 it falls on a Friday.
   // The list covers the coming twelve months, so the test only runs this check while 25 Dec 2026 is ahead.
-  if (new Date() < new Date('2026-12-25T00:00:00Z')) await expect(page.getByText('Fri 25 Dec · Christmas Day')).toBeVisible();
+  if (new Date() < new Date('2026-12-25T00:00:00Z')) await expect(page.getByText('Fri, Dec 25 · Christmas Day')).toBeVisible();
   await page.screenshot({ path: shots('settings'), fullPage: true });
 
   await page.goto('/backoffice/customers');

@@ -8,14 +8,12 @@ import { expect, request as playwrightRequest, test, type APIRequestContext, typ
 
 const mailUrl = process.env.E2E_MAIL_URL ?? 'http://127.0.0.1:8125';
 
-/** A day as both apps and the e-mail write it: "Tue 12 Jan 2027". */
+/** A day as both apps and the e-mail write it for the demo shop (en-US, CLDR yMMMEd "EEE, MMM d, y"): "Tue, Jan 12, 2027". */
 function writtenDay(day: string): string {
   const [y, m, d] = day.split('-').map(Number);
-  return new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' })
-    .formatToParts(new Date(Date.UTC(y!, m! - 1, d!)))
-    .filter((p) => p.type !== 'literal')
-    .map((p) => p.value)
-    .join(' ');
+  return new Intl.DateTimeFormat('en-US', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(
+    new Date(Date.UTC(y!, m! - 1, d!, 12)),
+  );
 }
 
 const addDays = (day: string, n: number) => new Date(Date.parse(`${day}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);

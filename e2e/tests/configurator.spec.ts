@@ -12,17 +12,19 @@ const steps = ['Surface', 'Case', 'Pedals', 'Routing', 'Extras', 'Builder', 'Rev
 const decode = (c: string) => JSON.parse(Buffer.from(c, 'base64url').toString('utf8'));
 const encode = (config: unknown) => Buffer.from(JSON.stringify(config), 'utf8').toString('base64url');
 
-/** Money as the page prints it, by ECMA-402 Intl.NumberFormat en-US: whole dollars unless there are cents. */
-function money(amount: string, currency: string, cents = /\.\d*[1-9]/.test(amount)) {
-  return new Intl.NumberFormat('en-US', { style: 'currency', currency, minimumFractionDigits: cents ? 2 : 0, maximumFractionDigits: cents ? 2 : 0 }).format(Number(amount));
+/**
+ * Money as the page prints it for the demo shop (en-US, USD), by ECMA-402 Intl.NumberFormat with
+ * CLDR en data: "¤#,##0.00" always with the cents, a range as "{0} – {1}", hours in CLDR's short unit "hr".
+ */
+function money(amount: string, currency: string) {
+  return new Intl.NumberFormat('en-US', { style: 'currency', currency }).format(amount as unknown as number);
 }
 function range(low: string, high: string, currency: string) {
-  const cents = /\.\d*[1-9]/.test(low) || /\.\d*[1-9]/.test(high);
-  const a = money(low, currency, cents);
-  const b = money(high, currency, cents);
-  return a === b ? a : `${a}–${b}`;
+  const a = money(low, currency);
+  const b = money(high, currency);
+  return a === b ? a : `${a} – ${b}`;
 }
-const hours = (h: string) => `${Number(h)} h`;
+const hours = (h: string) => `${Number(h)} hr`;
 
 async function configurationInUrl(page: Page) {
   const c = new URL(page.url()).searchParams.get('c');

@@ -34,13 +34,12 @@ async function nextStep(page: Page, title: string) {
   await expect(page.getByRole('navigation', { name: 'Configurator steps' }).getByText(new RegExp(`^Step \\d of 7: ${title}$`))).toBeVisible();
 }
 
-/** "Tue 12 Jan 2027", the way the shop writes a bench day in pages and e-mail. */
-function writtenDay(day: string) {
+/** A day as both apps and the e-mail write it for the demo shop (en-US, CLDR yMMMEd "EEE, MMM d, y"): "Tue, Jan 12, 2027". */
+function writtenDay(day: string): string {
   const [y, m, d] = day.split('-').map(Number);
-  const parts = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' })
-    .formatToParts(new Date(Date.UTC(y!, m! - 1, d!)))
-    .filter((p) => p.type !== 'literal');
-  return parts.map((p) => p.value).join(' ');
+  return new Intl.DateTimeFormat('en-US', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(
+    new Date(Date.UTC(y!, m! - 1, d!, 12)),
+  );
 }
 
 async function payOnHostedPage(page: Page, card: string) {
@@ -124,7 +123,7 @@ test('a player configures, signs up, pays the deposit; a builder schedules it; t
   expect(configuration.functions).toEqual(['stereo_output']);
   const estimate = await (await request.post('/api/estimates', { data: configuration })).json();
   const panel = player.getByRole('complementary', { name: 'Estimate' });
-  await expect(panel.getByTestId('estimate-labor')).toContainText(`(${Number(estimate.laborHours)} h)`);
+  await expect(panel.getByTestId('estimate-labor')).toContainText(`(${Number(estimate.laborHours)} hr)`);
   await expect(panel.getByTestId('estimate-deposit')).toHaveText(
     new Intl.NumberFormat('en-US', { style: 'currency', currency: estimate.currency, minimumFractionDigits: /\.\d*[1-9]/.test(estimate.deposit) ? 2 : 0 }).format(Number(estimate.deposit)),
   );

@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { moneyAccount, type EstimateResult, type FunctionItem, type MoneyFacts, type QuoteView, type RigChecks, type RigConfiguration, type ShopFormat } from '@loomwright/shared';
+import { moneyAccount, shopFormat, type EstimateResult, type FunctionItem, type MoneyFacts, type QuoteView, type RigChecks, type RigConfiguration, type ShopFormat } from '@loomwright/shared';
+import type { PaperSize } from '../common/paper-size';
 import PDFDocument from 'pdfkit';
 
 /** Everything one sheet prints, gathered by the service. */
@@ -27,6 +28,10 @@ export interface BuildSheetData {
   surfaceName: string;
   caseName: string;
   printedAt: Date;
+  /** The shop's locale, currency and time zone: every figure, day and moment on the sheet. */
+  format?: ShopFormat;
+  /** Letter or A4, from the shop's country (`paperSizeFor`). */
+  paper?: PaperSize;
 }
 
 /** The bench cautions every sheet carries, whatever the rig (defer to local codes and licensed practice). */
@@ -54,9 +59,9 @@ export const MARGIN = 48;
 export class Sheet {
   readonly doc: PDFKit.PDFDocument;
 
-  constructor(title: string) {
+  constructor(title: string, paper: PaperSize = 'A4') {
     const fonts = fontsDir();
-    this.doc = new PDFDocument({ size: 'A4', margin: MARGIN, info: { Title: title, Creator: 'Loomwright' }, bufferPages: true });
+    this.doc = new PDFDocument({ size: paper, margin: MARGIN, info: { Title: title, Creator: 'Loomwright' }, bufferPages: true });
     this.doc.registerFont('body', path.join(fonts, 'manrope-latin-400-normal.woff'));
     this.doc.registerFont('bold', path.join(fonts, 'manrope-latin-700-normal.woff'));
     this.doc.font('body').fontSize(9.5);
@@ -148,7 +153,6 @@ export class Sheet {
 }
 
 const ma = (n: number) => `${n} mA`;
-const watts = (n: number | null) => (n === null ? '—' : `${n.toFixed(2)} W`);
 const polarity = (p: string) => (p === 'center_positive' ? 'centre +' : 'centre −');
 
 const extraWords = { proposed: 'waiting for the player', approved: 'approved', declined: 'declined' } as const;
@@ -173,7 +177,7 @@ function writeMoney(sheet: Sheet, money: BuildSheetData['money']) {
   );
   sheet.paragraph(
     quote.kind === 'firm' && quote.total !== null
-      ? `Firm total ${format.money(quote.total, cur)} (${quote.laborHours} h at ${format.perHour(quote.hourlyRate, cur)}).`
+      ? `Firm total ${format.money(quote.total, cur)} (${format.hours(quote.laborHours)} at ${format.perHour(quote.hourlyRate, cur)}).`
       : `Estimated total ${format.moneyRange(quote.totalLow, quote.totalHigh, cur)}.`,
     { bold: true },
   );
@@ -195,8 +199,12 @@ function writeMoney(sheet: Sheet, money: BuildSheetData['money']) {
 
 /** Renders the sheet to a PDF buffer. */
 export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
-  const sheet = new Sheet(`Build sheet ${data.reference}`);
+  const sheet = new Sheet(`Build sheet ${data.reference}`, data.paper);
   const { doc } = sheet;
+  const f = data.format ?? shopFormat();
+  const watts = (n: number | null) => (n === null ? '—' : `${f.quantity(n)} W`);
+  const day = (d: string) => f.day(d, { year: 'always' });
+  const fmtHours = (h: string | number) => f.hours(h);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {
@@ -213,11 +221,11 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   doc.moveDown(0.4);
   sheet.table(
     ['Customer', 'Builder', 'Bench date', 'Status'],
-    [[data.customer, data.builder ?? 'not assigned yet', data.benchDate ? `${data.benchDate}${data.expectedCompletion ? ` (done by ${data.expectedCompletion})` : ''}` : 'not set', data.stateLabel]],
+    [[data.customer, data.builder ?? 'not assigned yet', data.benchDate ? `${day(data.benchDate)}${data.expectedCompletion ? ` (done by ${day(data.expectedCompletion)})` : ''}` : 'not set', data.stateLabel]],
     [0.3, 0.25, 0.25, 0.2],
   );
   sheet.paragraph(
-    `${data.surfaceName} · ${data.caseName} · ${chain.routing === 'switcher' ? `switcher, ${chain.loops.length} loops` : 'serial'} · ${estimate.laborHours} h estimated · needs at least a ${estimate.minimumLevel} builder · price book version ${estimate.priceBookVersion}`,
+    `${data.surfaceName} · ${data.caseName} · ${chain.routing === 'switcher' ? `switcher, ${chain.loops.length} loops` : 'serial'} · ${f.hours(estimate.laborHours)} estimated · needs at least a ${estimate.minimumLevel} builder · price book version ${estimate.priceBookVersion}`,
   );
 
   sheet.heading('Bench safety');
@@ -294,7 +302,7 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
 
   sheet.heading('Functions');
   if (data.functions.length === 0) sheet.paragraph('None.');
-  else sheet.bullets(data.functions.map((f) => `${f.name}: ${f.laborHours} h${f.functionCount > 1 ? ` (counts as ${f.functionCount})` : ''}. ${f.description}`));
+  else sheet.bullets(data.functions.map((f) => `${f.name}: ${fmtHours(f.laborHours)}${f.functionCount > 1 ? ` (counts as ${f.functionCount})` : ''}. ${f.description}`));
 
   sheet.heading('Layout');
   sheet.paragraph(
@@ -308,7 +316,7 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   sheet.heading("Customer's notes");
   sheet.paragraph(data.customerNotes.trim() || 'No notes.');
 
-  sheet.footer(`${data.shopName} · ${data.reference} · printed ${data.printedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`);
+  sheet.footer(`${data.shopName} · ${data.reference} · printed ${f.dateTime(data.printedAt)}`);
   doc.end();
   return done;
 }

@@ -41,8 +41,8 @@ export class BuildSheetsRepository {
       .executeTakeFirst();
   }
 
-  /** The shop's name and voice (locale, currency, time zone): the sheet writes money and moments as the shop does. */
+  /** The shop's name, voice (locale, currency, time zone) and country (its paper size): the sheet writes money and moments as the shop does. */
   findShop(trx: Executor = this.db) {
-    return trx.selectFrom('shop_settings').select(['name', 'locale', 'currency', 'timezone']).where('id', '=', 1).executeTakeFirst();
+    return trx.selectFrom('shop_settings').select(['name', 'locale', 'currency', 'timezone', 'country_code']).where('id', '=', 1).executeTakeFirst();
   }
 }

@@ -2,6 +2,7 @@ import { Injectable, NotFoundException } from '@nestjs/common';
 import { bookingStateLabels, estimateRig, shopFormat, type AuthUser, type EstimateResult, type RigChecks } from '@loomwright/shared';
 import { BookingsService } from '../bookings/bookings.service';
 import { bookingAsSeenBy } from '../bookings/customer-contact.interceptor';
+import { paperSizeFor } from '../common/paper-size';
 import { PriceBookService } from '../price-book/price-book.service';
 import { renderBuildSheet } from './build-sheet-document';
 import { BuildSheetsRepository } from './build-sheets.repository';
@@ -62,6 +63,8 @@ export class BuildSheetsService {
       surfaceName: book.surfaces.find((s) => s.id === configuration.surfaceId)?.name ?? configuration.surfaceId,
       caseName: book.cases.find((c) => c.id === configuration.caseId)?.name ?? configuration.caseId,
       printedAt: new Date(),
+      format,
+      paper: paperSizeFor(shop?.country_code),
     });
     return { reference: booking.reference, pdf };
   }

@@ -1,5 +1,6 @@
-import type { Catalog, EstimateResult, PriceBook, RigConfiguration } from '@loomwright/shared';
+import { shopFormat, type Catalog, type EstimateResult, type PriceBook, type RigConfiguration, type ShopFormat } from '@loomwright/shared';
 import { benchCautions, MARGIN, Sheet } from '../build-sheets/build-sheet-document';
+import type { PaperSize } from '../common/paper-size';
 
 export interface QuoteData {
   shopName: string;
@@ -11,17 +12,21 @@ export interface QuoteData {
   printedAt: Date;
   /** A booking's firm price, once a builder with a known rate accepted it. */
   firm?: { total: string; hourlyRate: string };
+  /** The shop's locale, currency and time zone. */
+  format?: ShopFormat;
+  /** Letter or A4, from the shop's country. */
+  paper?: PaperSize;
 }
 
-const money = (amount: string, currency: string) =>
-  new Intl.NumberFormat('en-US', { style: 'currency', currency }).format(amount as unknown as number);
-const range = (low: string, high: string, currency: string) => (low === high ? money(low, currency) : `${money(low, currency)} – ${money(high, currency)}`);
-const watts = (n: number | null) => (n === null ? '—' : `${n.toFixed(2)} W`);
 
 /** The quote the player keeps: lines, totals at the chosen level, layout, power plan, cable list and cautions. */
 export function renderQuote(data: QuoteData): Promise<Buffer> {
-  const sheet = new Sheet(`${data.title} — quote`);
+  const sheet = new Sheet(`${data.title} — quote`, data.paper);
   const { doc } = sheet;
+  const f = data.format ?? shopFormat();
+  const money = (amount: string, currency: string) => f.money(amount, currency);
+  const range = (low: string, high: string, currency: string) => f.moneyRange(low, high, currency);
+  const watts = (n: number | null) => (n === null ? '—' : `${f.quantity(n)} W`);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {
@@ -34,13 +39,14 @@ export function renderQuote(data: QuoteData): Promise<Buffer> {
   const surface = book.surfaces.find((s) => s.id === config.surfaceId);
   const rigCase = book.cases.find((c) => c.id === config.caseId);
   const level = book.levels.find((l) => l.code === e.level);
-  const date = data.printedAt.toISOString().slice(0, 10);
+  // The day in the shop's own calendar, not UTC's.
+  const date = f.dayOf(data.printedAt, { year: 'always' });
 
   doc.font('bold').fontSize(17).text(`${data.title}`, MARGIN, MARGIN);
   doc.font('body').fontSize(9.5).text(`${data.shopName} · quote dated ${date} · price book version ${e.priceBookVersion}`);
   doc.moveDown(0.4);
   sheet.paragraph(
-    `${surface?.name ?? config.surfaceId} · ${rigCase?.name ?? config.caseId} · ${config.routing.mode === 'switcher' ? `loop switcher, ${checks.signalChain.loops.length} loops` : 'serial'} · ${e.laborHours} h of bench time · ${level?.name ?? e.level} builder`,
+    `${surface?.name ?? config.surfaceId} · ${rigCase?.name ?? config.caseId} · ${config.routing.mode === 'switcher' ? `loop switcher, ${checks.signalChain.loops.length} loops` : 'serial'} · ${f.hours(e.laborHours)} of bench time · ${level?.name ?? e.level} builder`,
   );
 
   sheet.heading('Estimate');
@@ -48,13 +54,13 @@ export function renderQuote(data: QuoteData): Promise<Buffer> {
     ['Item', 'Quantity', 'Amount'],
     e.lines.map((l) => [
       `${l.label}${l.explanation ? ` (${l.explanation})` : ''}`,
-      `${l.quantity} ${l.unit}`,
+      `${f.quantity(l.quantity)} ${l.unit}`,
       l.kind === 'labor' ? range(l.amount, l.amountHigh ?? l.amount, cur) : money(l.amount, cur),
     ]),
     [0.6, 0.15, 0.25],
   );
   sheet.paragraph(`Materials: ${money(e.materialsTotal, cur)}`);
-  sheet.paragraph(`Labor at ${level?.name ?? e.level} rates (${range(e.rate.low, e.rate.high, cur)} an hour): ${range(e.laborLow, e.laborHigh, cur)}`);
+  sheet.paragraph(`Labor at ${level?.name ?? e.level} rates (${f.perHourRange(e.rate.low, e.rate.high, cur)}): ${range(e.laborLow, e.laborHigh, cur)}`);
   sheet.paragraph(`Estimated total: ${range(e.totalLow, e.totalHigh, cur)}`, { bold: true });
   if (data.firm) sheet.paragraph(`Firm price set by the shop: ${money(data.firm.total, cur)} (labor at ${money(data.firm.hourlyRate, cur)} an hour)`, { bold: true });
   sheet.paragraph(`Deposit to book bench time: ${money(e.deposit, cur)}. ${book.depositPolicy.description}`);

@@ -3,6 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import {
   configurationMessages,
   estimateRig,
+  shopFormat,
   QUOTE_EMAILS_PER_HOUR,
   type AuthUser,
   type EstimateResult,
@@ -18,6 +19,7 @@ import { MailService } from '../mail/mail.service';
 import { PriceBookService } from '../price-book/price-book.service';
 import { ShopService } from '../shop/shop.service';
 import { renderQuote } from './quote-document';
+import { paperSizeFor } from '../common/paper-size';
 import { quoteMailLines } from '../mail/quote-mail-lines';
 import { QuotesRepository } from './quotes.repository';
 
@@ -55,7 +57,7 @@ export class QuotesService {
   async pdf(configuration: RigConfiguration, title = 'Quote'): Promise<{ pdf: Buffer; estimate: EstimateResult }> {
     const { book } = await this.priceBook.current();
     const estimate = await this.estimates.price(configuration);
-    const pdf = await renderQuote({ shopName: await this.shopName(), configuration, estimate, book, title, printedAt: new Date() });
+    const pdf = await renderQuote({ ...(await this.shopPrint()), configuration, estimate, book, title, printedAt: new Date() });
     return { pdf, estimate };
   }
 
@@ -110,7 +112,7 @@ export class QuotesService {
       estimate = { ...estimate, checks: estimateRig(quote.configuration, published.book, { version: quote.price_book_version }).checks };
     }
     const pdf = await renderQuote({
-      shopName: await this.shopName(),
+      ...(await this.shopPrint()),
       configuration: quote.configuration,
       estimate,
       book: published.book,
@@ -121,7 +123,14 @@ export class QuotesService {
     return { reference: quote.reference, pdf };
   }
 
-  private shopName() {
-    return this.shop.profile().then((p) => p.name, () => 'Loomwright');
+  /** The shop's name, its voice (locale, currency, time zone) and its paper (Letter or A4 by country) for the PDF. */
+  private async shopPrint() {
+    const shop = await this.shop.profile().catch(() => undefined);
+    return {
+      shopName: shop?.name ?? 'Loomwright',
+      format: shopFormat({ locale: shop?.locale, currency: shop?.currency, timeZone: shop?.timezone }),
+      paper: paperSizeFor(shop?.countryCode),
+    };
   }
+
 }

@@ -18,8 +18,8 @@ describe('money as the shop reads it', () => {
 
   it('says "—" when there is no amount, and writes hours plainly', () => {
     expect(formatMoney(null)).toBe('—');
-    expect(formatHours('13.50')).toBe('13.5 h');
-    expect(formatHours(7)).toBe('7 h');
+    expect(formatHours('13.50')).toBe('13.5 hr'); // CLDR en short unit for hour
+    expect(formatHours(7)).toBe('7 hr');
   });
 });
 

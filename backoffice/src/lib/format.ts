@@ -1,44 +1,31 @@
-import Decimal from 'decimal.js';
+import { currentShopFormat } from '@loomwright/shared/ui';
 
 /**
- * Money and dates as the shop reads them: "$1,120.00", "Tue 12 Jan". Amounts arrive as decimal
- * strings and stay decimals (decimal.js) until they are text; they never pass through a float.
+ * Money, hours, dates and moments as the shop writes them, in its own locale, currency and time
+ * zone: every helper here is the one shared formatter (`shopFormat` in @loomwright/shared), bound
+ * to the shop's settings by `ShopVoice` (src/app/shop-voice.tsx). Amounts stay decimal strings.
  */
-export function formatMoney(amount: string | null | undefined, currency = 'USD'): string {
-  if (amount === null || amount === undefined || amount === '') return '—';
-  let value: Decimal;
-  try {
-    value = new Decimal(amount);
-  } catch {
-    return amount;
-  }
-  const fixed = value.abs().toFixed(2);
-  const [whole, cents] = fixed.split('.');
-  const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
-  return `${value.isNegative() ? '−' : ''}${currencySymbol(currency)}${grouped}.${cents}`;
+export function formatMoney(amount: string | null | undefined, currency?: string): string {
+  return currentShopFormat().money(amount, currency);
 }
 
-const symbols = new Map<string, string>();
-function currencySymbol(currency: string): string {
-  const known = symbols.get(currency);
-  if (known) return known;
-  const part = new Intl.NumberFormat('en-US', { style: 'currency', currency, currencyDisplay: 'narrowSymbol' })
-    .formatToParts(0)
-    .find((p) => p.type === 'currency');
-  const symbol = part?.value ?? `${currency} `;
-  symbols.set(currency, symbol);
-  return symbol;
+export function formatMoneyRange(low: string, high: string, currency?: string): string {
+  return currentShopFormat().moneyRange(low, high, currency);
 }
 
-export function formatMoneyRange(low: string, high: string, currency = 'USD'): string {
-  if (new Decimal(low).eq(high)) return formatMoney(low, currency);
-  return `${formatMoney(low, currency)}–${formatMoney(high, currency)}`;
+/** A rate: "$125.00/hr". */
+export function formatRate(amount: string | null | undefined, currency?: string): string {
+  return currentShopFormat().perHour(amount, currency);
 }
 
-/** Hours as the bench says them: "7 h", "1.5 h". */
+/** A count in the shop's numbers: "1,234.5". */
+export function formatQuantity(value: string | number): string {
+  return currentShopFormat().quantity(value);
+}
+
+/** Hours of bench work: "7 hr", "1.5 hr". */
 export function formatHours(hours: string | number | null | undefined): string {
-  if (hours === null || hours === undefined || hours === '') return '—';
-  return `${new Decimal(hours).toDecimalPlaces(2).toString()} h`;
+  return currentShopFormat().hours(hours);
 }
 
 /** A calendar date (YYYY-MM-DD, no time zone) to a Date at noon UTC, so no zone can shift its day. */
@@ -77,34 +64,26 @@ export function endOfMonth(day: string): string {
   return toDay(date);
 }
 
-/** Today in the browser's own calendar, as YYYY-MM-DD. */
+/** Today in the shop's own calendar (its time zone), as YYYY-MM-DD. */
 export function today(): string {
-  const now = new Date();
-  return toDay(new Date(Date.UTC(now.getFullYear(), now.getMonth(), now.getDate(), 12)));
+  return currentShopFormat().today();
 }
 
-const dayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
-const dayYearFormat = new Intl.DateTimeFormat('en-GB', {
-  weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC',
-});
-const monthFormat = new Intl.DateTimeFormat('en-GB', { month: 'long', year: 'numeric', timeZone: 'UTC' });
-const stampFormat = new Intl.DateTimeFormat('en-GB', {
-  day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit',
-});
-
-/** "Tue 12 Jan"; with the year when it is not this year. */
+/** "Tue, Jan 12"; with the year when it is not this year. */
 export function formatDay(day: string | null | undefined): string {
-  if (!day) return '—';
-  const sameYear = day.slice(0, 4) === today().slice(0, 4);
-  return (sameYear ? dayFormat : dayYearFormat).format(parseDay(day)).replace(',', '');
+  return currentShopFormat().day(day);
+}
+
+/** "Tue, Jan 12, 2027", always with the year. */
+export function formatDayWithYear(day: string | null | undefined): string {
+  return currentShopFormat().day(day, { year: 'always' });
 }
 
 export function formatMonth(day: string): string {
-  return monthFormat.format(parseDay(day));
+  return currentShopFormat().month(day);
 }
 
-/** A moment (ISO timestamp) in the reader's own time: "3 Dec 2026, 14:05". */
+/** A moment (ISO timestamp) in the shop's time zone, with the zone: "Tue, Dec 8, 2026, 5:45 PM CST". */
 export function formatStamp(iso: string | null | undefined): string {
-  if (!iso) return '—';
-  return stampFormat.format(new Date(iso));
+  return currentShopFormat().dateTime(iso);
 }

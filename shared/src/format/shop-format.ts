@@ -1,4 +1,4 @@
-import { currencyUnit } from '../money/minor-units';
+import { currencyUnit } from '../money/currency-unit';
 
 /**
  * How the shop speaks numbers, money, dates and times: its locale (BCP 47), its currency (ISO 4217)
@@ -135,6 +135,11 @@ export class ShopFormat {
   perHour(amount: Amount | null | undefined, currency = this.voice.currency): string {
     if (amount === null || amount === undefined || amount === '') return '—';
     return `${this.money(amount, currency)}/${this.hourUnit()}`;
+  }
+
+  /** A range of rates: "$100.00 – $150.00/hr". */
+  perHourRange(low: Amount, high: Amount, currency = this.voice.currency): string {
+    return `${this.moneyRange(low, high, currency)}/${this.hourUnit()}`;
   }
 
   /** Hours of bench work: "20.5 hr", "20,5 Std.", "20.5 時間" (at most two decimals, as they are recorded). */

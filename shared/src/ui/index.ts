@@ -10,3 +10,5 @@ export { FormTextField } from './FormTextField';
 export { authKeys, getMe, ME_RETRY_MS, meQueryOptions, switchPerson, useMe } from './get-me';
 export { useSearchParamsInOrder } from './use-search-params-in-order';
 export { MoneyFactsTable } from './MoneyFactsTable';
+export { ShopVoiceProvider, currentShopVoice, useShopVoice } from './shop-voice';
+export { currentShopFormat, useShopFormat } from './current-shop-format';

@@ -1,41 +1,47 @@
-/** Concrete money and dates for e-mail: "$1,120.00", "Tue 12 Jan 2027". */
+import { shopFormat, type ShopFormat } from '@loomwright/shared';
+
+/**
+ * Money, days and moments in e-mail (and the history lines the API writes), through the one shared
+ * formatter (`shopFormat`) in the shop's locale, currency and time zone: the same words the two apps
+ * show. `renderMail` speaks in the shop's voice for the length of one (synchronous) render through
+ * `inShopVoice`; outside a render the default voice (en-US, UTC) is used.
+ */
+let voice: ShopFormat = shopFormat();
+
+export function inShopVoice<T>(shop: { locale?: string; currency?: string; timezone?: string }, render: () => T): T {
+  const previous = voice;
+  voice = shopFormat({ locale: shop.locale, currency: shop.currency, timeZone: shop.timezone });
+  try {
+    return render();
+  } finally {
+    voice = previous;
+  }
+}
 
 const decimal = /^-?\d+(\.\d+)?$/;
 
+/** "$1,120.00" in the shop's locale, with the currency's own minor unit. */
 export function formatMoney(amount: string, currency: string): string {
   if (!decimal.test(amount)) throw new MailDataError(`the amount "${amount}" is not a decimal number`);
-  // Intl formats a decimal string exactly (no float rounding) and knows each currency's minor unit.
-  return new Intl.NumberFormat('en-US', { style: 'currency', currency }).format(amount as unknown as number);
+  return voice.money(amount, currency);
 }
 
 const day = /^\d{4}-\d{2}-\d{2}$/;
 
-/** A calendar day ('YYYY-MM-DD') as "Tue 12 Jan 2027"; no time zone can shift it. */
+/** A calendar day ('YYYY-MM-DD') as "Tue, Jan 12, 2027"; no time zone can shift it. */
 export function formatDay(value: string): string {
   if (!day.test(value) || Number.isNaN(Date.parse(`${value}T00:00:00Z`))) {
     throw new MailDataError(`"${value}" is not a calendar day (YYYY-MM-DD)`);
   }
-  const parts = new Intl.DateTimeFormat('en-GB', {
-    weekday: 'short',
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    timeZone: 'UTC',
-  }).formatToParts(new Date(`${value}T00:00:00Z`));
-  const get = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
-  return `${get('weekday')} ${get('day')} ${get('month')} ${get('year')}`;
+  return voice.day(value, { year: 'always' });
 }
 
-/** An instant as "Tue 12 Jan 2027, 14:30 (UTC)" in the shop's time zone. */
-export function formatInstant(value: string, timeZone: string): string {
+/** An instant in the shop's time zone with the zone's name, as both apps show it: "Tue, Dec 8, 2026, 5:45 PM CST". */
+export function formatInstant(value: string, timeZone?: string): string {
   const date = new Date(value);
   if (Number.isNaN(date.getTime())) throw new MailDataError(`"${value}" is not a date and time`);
-  const local = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(date);
-  const time = new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(date);
-  const zone =
-    new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'short' }).formatToParts(date).find((p) => p.type === 'timeZoneName')
-      ?.value ?? timeZone;
-  return `${formatDay(local)}, ${time} (${zone})`;
+  const f = timeZone && timeZone !== voice.timeZone ? shopFormat({ ...voice.voice, timeZone }) : voice;
+  return f.dateTime(date);
 }
 
 /** Data a template needs is missing or malformed: the message cannot be rendered, so it is not sent. */

@@ -66,10 +66,11 @@ describe('formatting', () => {
     expect(() => formatMoney('12,50', 'USD')).toThrow(MailDataError);
   });
 
+  // The default voice outside a shop (en-US); CLDR en yMMMEd is "EEE, MMM d, y".
   it('shows a calendar day with its weekday', () => {
     // 12 Jan 2027 is a Tuesday and 29 Feb 2028 a Tuesday (checked against a printed calendar, from memory).
-    expect(formatDay('2027-01-12')).toBe('Tue 12 Jan 2027');
-    expect(formatDay('2028-02-29')).toBe('Tue 29 Feb 2028');
+    expect(formatDay('2027-01-12')).toBe('Tue, Jan 12, 2027');
+    expect(formatDay('2028-02-29')).toBe('Tue, Feb 29, 2028');
     expect(() => formatDay('12/01/2027')).toThrow(MailDataError);
   });
 });
@@ -135,7 +136,7 @@ describe('the values each message must carry', () => {
     expect(mail.html).toContain('http://localhost:3000/reset?token=t0k3n');
     expect(mail.text).toContain('http://localhost:3000/reset?token=t0k3n');
     // 20:30 UTC is 14:30 in Chicago in January (CST = UTC−6, IANA tz database).
-    expect(mail.text).toContain('Tue 12 Jan 2027, 14:30 (CST)');
+    expect(mail.text).toContain('Tue, Jan 12, 2027, 2:30 PM CST');
   });
 
   it('staff-invite carries the invitation link', () => {
@@ -153,16 +154,16 @@ describe('the values each message must carry', () => {
     const { subject, text } = renderMail('deposit-received', samples['deposit-received'], shop);
     expect(subject).toBe('Deposit received for LW-1042: $280.00');
     expect(text).toContain('What happens next');
-    expect(text).toContain('Tue 12 Jan 2027');
+    expect(text).toContain('Tue, Jan 12, 2027');
   });
 
   it('booking-scheduled shows the dates, level, what to send and how to pack, and the cautions', () => {
     const { subject, text, html, attachments } = renderMail('booking-scheduled', scheduled, shop);
-    expect(subject).toBe('Booked: bench date Tue 12 Jan 2027 for LW-1042');
+    expect(subject).toBe('Booked: bench date Tue, Jan 12, 2027 for LW-1042');
     expect(text).toContain('Bench date:');
-    expect(text).toContain('Tue 12 Jan 2027');
-    expect(text).toContain('Fri 8 Jan 2027');
-    expect(text).toContain('Fri 15 Jan 2027');
+    expect(text).toContain('Tue, Jan 12, 2027');
+    expect(text).toContain('Fri, Jan 8, 2027');
+    expect(text).toContain('Fri, Jan 15, 2027');
     expect(text).toContain('Wren Calloway (Journeyman builder)');
     expect(text).toContain('Your pedals (4): tuner, fuzz, analog delay, plate reverb.');
     expect(text).toContain('Your power supply');
@@ -267,7 +268,7 @@ describe('the data the calling modules send', () => {
     );
     expect(text).toContain('Marta Okafor has invited you to the shop\'s backoffice as a journeyman builder');
     expect(text).toContain('http://localhost:3000/backoffice/accept-invite?token=abc');
-    expect(text).toContain('Wed 20 Jan 2027, 06:00 (CST)');
+    expect(text).toContain('Wed, Jan 20, 2027, 6:00 AM CST');
   });
 
   it('booking-requested without a link falls back to the booking page of the outbox row', () => {
@@ -308,7 +309,7 @@ describe('the data the calling modules send', () => {
     expect(text).toContain('- Your power supply with its mains lead, labelled with your name');
     expect(text).toContain('$1,120.00');
     expect(text).toContain('$870.00');
-    expect(text).toContain('Tue 5 Jan 2027');
+    expect(text).toContain('Tue, Jan 5, 2027');
     expect(text).toContain('See your booking: http://localhost:3000/builds/b-1');
     expect(attachments[0].content).toContain('DTSTART;VALUE=DATE:20270105');
   });
@@ -375,7 +376,7 @@ describe('the calendar file when a booking moves or is cancelled', () => {
     expect(update.vevent.sequence).toBeGreaterThan(original.vevent.sequence);
     expect(update.vevent.startDate.toString()).toBe('2027-01-14');
     // 19 Jan 2027 is a Tuesday, 12 Jan 2027 a Tuesday (from memory, checked against a printed calendar).
-    expect(subject).toBe('Moved: bench date Tue 19 Jan 2027 for LW-1042 (was Tue 12 Jan 2027)');
+    expect(subject).toBe('Moved: bench date Tue, Jan 19, 2027 for LW-1042 (was Tue, Jan 12, 2027)');
     expect(text).toContain('7 days later than before');
     expect(text).toContain('Your builder is ill this week.');
   });

@@ -1,13 +1,16 @@
 import { bookingStateLabels, type BookingState } from '@loomwright/shared';
 import type { MailTemplate } from '../mail.types';
 import { handoverCalendar } from './calendar';
-import { formatDay, formatInstant, formatMoney, MailDataError, optionalString, requireString } from './format';
+import { formatDay, formatInstant, formatMoney, inShopVoice, MailDataError, optionalString, requireString } from './format';
 import { letterHtml, letterText, type Block, type Letter } from './layout';
 
 export interface ShopContext {
   name: string;
   contactEmail: string;
   timezone: string;
+  /** BCP 47 locale and ISO 4217 currency of the shop: how amounts, days and moments are written. */
+  locale?: string;
+  currency?: string;
   /** The storefront's address, for links a caller did not give (a booking's page). */
   publicUrl?: string;
 }
@@ -672,9 +675,11 @@ export function renderMail(template: string, data: Data, shop: ShopContext, mess
   const quotePdfUrl =
     optionalString(given, 'quotePdfUrl') ??
     (message.bookingId && shop.publicUrl ? `${shop.publicUrl}/api/bookings/${message.bookingId}/quote.pdf` : undefined);
-  const { subject, letter, attachments } = draft({ ...given, ...(bookingUrl ? { bookingUrl } : {}), ...(quotePdfUrl ? { quotePdfUrl } : {}) }, shop);
-  const full: Letter = { shopName: shop.name, ...letter };
-  return { subject, html: letterHtml(full), text: letterText(full), attachments: attachments ?? [] };
+  return inShopVoice(shop, () => {
+    const { subject, letter, attachments } = draft({ ...given, ...(bookingUrl ? { bookingUrl } : {}), ...(quotePdfUrl ? { quotePdfUrl } : {}) }, shop);
+    const full: Letter = { shopName: shop.name, ...letter };
+    return { subject, html: letterHtml(full), text: letterText(full), attachments: attachments ?? [] };
+  });
 }
 
 export { MailDataError };

@@ -17,7 +17,7 @@ import { useResendInvitation } from 'src/features/invitations/api/resend-invitat
 import { useTeam } from 'src/features/team/api/get-team';
 import { TeamMemberDialog, weekdays } from 'src/features/team/components/TeamMemberDialog';
 import { AbsencesPanel } from 'src/features/team/components/AbsencesPanel';
-import { formatHours, formatMoney, formatStamp } from 'src/lib/format';
+import { formatHours, formatMoney, formatRate, formatStamp } from 'src/lib/format';
 
 function StatusCell({ member }: { member: TeamMember }) {
   if (member.status === 'invited') {
@@ -97,7 +97,7 @@ export function Component() {
                   <td>{m.level}</td>
                   <td style={{ textAlign: 'right' }}>
                     {m.hourlyRate ? (
-                      `${formatMoney(m.hourlyRate)}/h`
+                      formatRate(m.hourlyRate)
                     ) : (
                       <Typography level="body-xs" title="Only the owner sees colleagues' rates">
                         owner only

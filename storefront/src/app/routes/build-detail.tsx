@@ -21,7 +21,7 @@ import { StatusTimeline } from 'src/features/bookings/components/StatusTimeline'
 import { BoardSketch } from 'src/features/configurator/components/BoardSketch';
 import { PayButton } from 'src/features/payments/components/PayButton';
 import { MoneyFactsTable } from '@loomwright/shared/ui';
-import { formatAmount, formatDay, formatMoment } from 'src/lib/booking-format';
+import { formatAmount, formatDay, formatMoment } from 'src/lib/format';
 
 const shippable: BookingState[] = ['requested', 'deposit_paid', 'scheduled'];
 const cancellable: BookingState[] = ['requested', 'deposit_paid'];

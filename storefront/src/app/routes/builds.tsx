@@ -12,7 +12,7 @@ import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
 import { useBookings } from 'src/features/bookings/api/get-bookings';
 import { BookingStateChip } from 'src/features/bookings/components/BookingStateChip';
-import { formatDay, formatRange } from 'src/lib/booking-format';
+import { formatDay, formatRange } from 'src/lib/format';
 
 const PAGE_SIZE = 20;
 const depositWords: Record<DepositStatus, string> = {

@@ -8,7 +8,7 @@ import { Link as RouterLink, useSearchParams } from 'react-router';
 import type { BookingDetail } from '@loomwright/shared';
 import { useBooking } from 'src/features/bookings/api/get-booking';
 import { PayButton } from 'src/features/payments/components/PayButton';
-import { formatAmount } from 'src/lib/booking-format';
+import { formatAmount } from 'src/lib/format';
 
 const isUuid = (v: string) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(v);
 const depositSettled = (b: BookingDetail) => b.depositStatus === 'paid' || b.depositStatus === 'refunded' || b.depositStatus === 'processing';

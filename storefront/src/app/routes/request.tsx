@@ -21,7 +21,7 @@ import { useCreateBooking } from 'src/features/bookings/api/create-booking';
 import { useEstimatePreview } from 'src/features/bookings/api/preview-estimate';
 import { startCheckout } from 'src/features/payments/api/start-checkout';
 import { DepositPolicy } from 'src/features/payments/components/DepositPolicy';
-import { formatAmount, formatRange } from 'src/lib/booking-format';
+import { formatAmount, formatHours, formatRange } from 'src/lib/format';
 
 export function Component() {
   const [params] = useSearchParams();
@@ -88,7 +88,7 @@ export function Component() {
             <Typography component="dt">Total</Typography>
             <Typography component="dd" level="title-lg" sx={{ m: 0 }}>{formatRange(e.totalLow, e.totalHigh, e.currency)}</Typography>
             <Typography component="dt">Labor</Typography>
-            <Typography component="dd" sx={{ m: 0 }}>{formatRange(e.laborLow, e.laborHigh, e.currency)} ({e.laborHours} h)</Typography>
+            <Typography component="dd" sx={{ m: 0 }}>{formatRange(e.laborLow, e.laborHigh, e.currency)} ({formatHours(e.laborHours)})</Typography>
             <Typography component="dt">Materials</Typography>
             <Typography component="dd" sx={{ m: 0 }}>{formatAmount(e.materialsTotal, e.currency)}</Typography>
             <Typography component="dt">Deposit now</Typography>

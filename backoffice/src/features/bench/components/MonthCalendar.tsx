@@ -4,7 +4,7 @@ import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
 import type { BenchView } from '@loomwright/shared';
 import { Link as RouterLink } from 'react-router';
-import { formatHours, parseDay, today } from 'src/lib/format';
+import { formatHours, formatQuantity, parseDay, today } from 'src/lib/format';
 import { dayInWords } from './HoursBar';
 
 const weekdayNames = ['Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat', 'Sun'];
@@ -73,7 +73,7 @@ export function MonthCalendar({ view, weeks, month }: { view: BenchView; weeks: 
                   return (
                     <Box key={builder.id} aria-label={`${builder.name}: ${words}`} sx={{ minWidth: 0 }}>
                       <Typography level="body-xs" noWrap sx={{ fontVariantNumeric: 'tabular-nums', color: day.off ? 'text.tertiary' : 'text.secondary' }}>
-                        {firstName(builder.name)}: {day.off ? day.off.label : `${Math.round(day.bookedHours * 100) / 100}/${Math.round(day.capacityHours * 100) / 100} h`}
+                        {firstName(builder.name)}: {day.off ? day.off.label : `${formatQuantity(day.bookedHours)}/${formatHours(day.capacityHours)}`}
                       </Typography>
                       {day.builds.map((build) => (
                         <Link

@@ -1,7 +1,7 @@
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import { quantityWithUnit, type QuoteView } from '@loomwright/shared';
-import { formatDay, formatMoney, formatMoneyRange } from 'src/lib/format';
+import { formatDay, formatHours, formatMoney, formatMoneyRange } from 'src/lib/format';
 
 /** A quote exactly as it was priced: its lines, totals and the price-book version it came from. */
 export function EstimateLines({ quote }: { quote: QuoteView }) {
@@ -60,7 +60,7 @@ export function EstimateLines({ quote }: { quote: QuoteView }) {
             <td style={{ textAlign: 'right' }}>{formatMoney(e.materialsTotal, c)}</td>
           </tr>
           <tr>
-            <th colSpan={3}>Labor ({e.laborHours} h)</th>
+            <th colSpan={3}>Labor ({formatHours(e.laborHours)})</th>
             <td style={{ textAlign: 'right' }}>
               {quote.laborTotal ? formatMoney(quote.laborTotal, c) : formatMoneyRange(e.laborLow, e.laborHigh, c)}
             </td>

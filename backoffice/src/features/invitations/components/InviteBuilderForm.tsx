@@ -12,12 +12,13 @@ import { builderLevels, inviteStaffSchema, type BuilderLevel } from '@loomwright
 import { useQueryClient } from '@tanstack/react-query';
 import { Controller, useForm } from 'react-hook-form';
 import { useCreateInvitation } from 'src/features/invitations/api/create-invitation';
+import { formatStamp } from 'src/lib/format';
 
 const levelNames: Record<BuilderLevel, string> = { apprentice: 'Apprentice', journeyman: 'Journeyman', master: 'Master' };
 // Typical rates by level (common practice in the trade, no published source); the owner sets the real one.
 const typicalRate: Record<BuilderLevel, string> = { apprentice: '$40–$50/h', journeyman: '$80–$100/h', master: '$100–$150/h' };
 
-const dateTime = (iso: string) => new Date(iso).toLocaleString(undefined, { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+const dateTime = (iso: string) => formatStamp(iso);
 
 export function InviteBuilderForm() {
   const invite = useCreateInvitation();

@@ -19,6 +19,7 @@ import { useState } from 'react';
 import { mailStateLabels, mailStates, singleUseLinkKeys, type MailLogEntry, type MailState } from '@loomwright/shared';
 import { useMailLog } from 'src/features/mail-log/api/get-mail-log';
 import { useResendMail } from 'src/features/mail-log/api/resend-mail';
+import { formatStamp } from 'src/lib/format';
 
 const pageSize = 25;
 
@@ -30,7 +31,6 @@ const stateColor: Record<MailState, 'neutral' | 'primary' | 'success' | 'warning
   unknown: 'warning',
 };
 
-const when = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
 
 /** Template names in the words the shop uses. */
 const templateWords: Record<string, string> = {
@@ -171,7 +171,7 @@ export function MailLogTable() {
           <tbody>
             {data?.items.map((entry) => (
               <tr key={entry.id}>
-                <td>{when.format(new Date(entry.createdAt))}</td>
+                <td>{formatStamp(entry.createdAt)}</td>
                 <td style={{ wordBreak: 'break-all' }}>{entry.to}</td>
                 <td>
                   <Typography level="body-sm" fontWeight="md">
@@ -186,7 +186,7 @@ export function MailLogTable() {
                   <Chip size="sm" variant="soft" color={stateColor[entry.state]}>
                     {mailStateLabels[entry.state]}
                   </Chip>
-                  {entry.sentAt && <Typography level="body-xs">{when.format(new Date(entry.sentAt))}</Typography>}
+                  {entry.sentAt && <Typography level="body-xs">{formatStamp(entry.sentAt)}</Typography>}
                 </td>
                 <td>{entry.attempts}</td>
                 <td>

@@ -20,7 +20,7 @@ import { BenchDatePreview, useBenchPreview } from 'src/components/BenchDatePrevi
 import { useEffect, useMemo, useState } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { PageLoading } from 'src/components/PageLoading';
-import { formatDay, formatHours, formatMoney } from 'src/lib/format';
+import { formatDay, formatHours, formatMoney, formatRate } from 'src/lib/format';
 import { useAcceptBooking } from '../api/accept-booking';
 import { useBenchSuggestion } from '../api/get-bench-suggestion';
 
@@ -163,7 +163,7 @@ export function AcceptDialog({
                                   ? `Meets the ${data.chosenLevel} level the player chose.`
                                   : `Below the ${data.chosenLevel} level the player chose${isOwner ? '; you may assign with a reason the player reads.' : '; only the owner can assign this, with a reason.'}`}{' '}
                                 Earliest start {formatDay(s.benchDate)}, done {formatDay(s.expectedCompletion)} ·{' '}
-                                {s.builder.hourlyRate ? `${formatMoney(s.builder.hourlyRate, data.currency)}/h → ` : ''}firm total{' '}
+                                {s.builder.hourlyRate ? `${formatRate(s.builder.hourlyRate, data.currency)} → ` : ''}firm total{' '}
                                 {formatMoney(s.firmTotal, data.currency)}
                                 {s.aboveQuotedRange ? ' · above the quoted range: the player must agree to it' : ''}
                               </Typography>

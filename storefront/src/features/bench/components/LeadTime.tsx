@@ -1,6 +1,6 @@
 import Typography from '@mui/joy/Typography';
 import type { BuilderLevel } from '@loomwright/shared';
-import { formatDay } from 'src/lib/booking-format';
+import { formatDay } from 'src/lib/format';
 import { useLeadTime } from '../api/get-lead-time';
 
 /** When the build could start and be done, from the shop's real bench, before the player pays. */

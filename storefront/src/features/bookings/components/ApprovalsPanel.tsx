@@ -6,7 +6,7 @@ import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
 import { decidedViaWords, type BookingDetail, type DecisionView } from '@loomwright/shared';
 import { useState, type ReactNode } from 'react';
-import { formatAmount, formatMoment } from 'src/lib/booking-format';
+import { formatAmount, formatMoment } from 'src/lib/format';
 import { useAnswerApproval, type ApprovalAnswer } from '../api/answer-approval';
 
 type Question = { kind: 'extra'; extraId: string } | { kind: 'layout' };

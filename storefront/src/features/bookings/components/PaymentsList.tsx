@@ -1,7 +1,7 @@
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import type { PaymentView } from '@loomwright/shared';
-import { formatAmount, formatMoment } from 'src/lib/booking-format';
+import { formatAmount, formatMoment } from 'src/lib/format';
 
 const statusWords: Record<PaymentView['status'], string> = {
   pending: 'Waiting for payment',

@@ -3,7 +3,7 @@ import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
 import type { BookingDetail } from '@loomwright/shared';
-import { formatAmount } from 'src/lib/booking-format';
+import { formatAmount } from 'src/lib/format';
 import { useDecidePrice } from '../api/decide-price';
 
 /**

@@ -1,7 +1,7 @@
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import { quantityWithUnit, type QuoteView } from '@loomwright/shared';
-import { formatAmount, formatDay, formatRange } from 'src/lib/booking-format';
+import { formatAmount, formatDay, formatRange } from 'src/lib/format';
 
 /** The quote as it was priced (its own price-book version), line by line. */
 export function QuoteLines({ quote }: { quote: QuoteView }) {

@@ -2,7 +2,7 @@ import List from '@mui/joy/List';
 import ListItem from '@mui/joy/ListItem';
 import Typography from '@mui/joy/Typography';
 import { bookingStateLabels, type BookingEventView } from '@loomwright/shared';
-import { formatMoment } from 'src/lib/booking-format';
+import { formatMoment } from 'src/lib/format';
 
 export function StatusTimeline({ events }: { events: BookingEventView[] }) {
   return (

@@ -1,5 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
 import { ApiError, apiErrorFrom, type RigConfiguration } from '@loomwright/shared';
+import { shopToday } from 'src/lib/format';
 
 /**
  * POST /api/quotes/pdf answers a PDF, not JSON, so it is fetched as a blob here; a refusal still
@@ -31,7 +32,7 @@ export const useDownloadQuote = () =>
       const url = URL.createObjectURL(blob);
       const a = document.createElement('a');
       a.href = url;
-      a.download = `loomwright-quote-${new Date().toISOString().slice(0, 10)}.pdf`;
+      a.download = `loomwright-quote-${shopToday()}.pdf`;
       document.body.append(a);
       a.click();
       a.remove();

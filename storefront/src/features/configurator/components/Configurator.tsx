@@ -12,6 +12,7 @@ import { configuratorSteps, type StepId } from '../lib/steps';
 import { EstimatePanel } from './EstimatePanel';
 import { StepProgress } from './StepProgress';
 import type { KeepSlot, StepProps } from './steps/step-props';
+import { formatMoment } from 'src/lib/format';
 
 // Each step is its own chunk: the first screen ships only the Surface step, and the form
 // library arrives with the Pedals step.
@@ -91,7 +92,7 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
             }
           >
             We restored the board you were configuring on{' '}
-            {new Date(restoredFrom).toLocaleString('en-US', { weekday: 'short', day: 'numeric', month: 'short', hour: 'numeric', minute: '2-digit' })}.
+            {formatMoment(restoredFrom)}.
           </Alert>
         ) : null}
         <Box component="section" aria-label={`Step ${index + 1}: ${configuratorSteps[index]?.title}`} ref={headingRef}>

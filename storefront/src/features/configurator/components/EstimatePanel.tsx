@@ -6,7 +6,7 @@ import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import { useEffect, useState } from 'react';
 import type { Catalog } from '@loomwright/shared';
-import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/money';
+import { formatHours, formatMoney, formatMoneyRange, formatRateRange } from 'src/lib/format';
 import { markEstimateShown, type LiveEstimate } from '../hooks/use-live-estimate';
 
 /**
@@ -95,7 +95,7 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
             <Typography component="dd" level="body-sm" data-testid="estimate-materials">{formatMoney(e.materialsTotal, currency)}</Typography>
             <Typography component="dt" level="body-sm">Rate</Typography>
             <Typography component="dd" level="body-sm" data-testid="estimate-rate">
-              {levelName}, {formatMoneyRange(e.rate.low, e.rate.high, currency)}/h
+              {levelName}, {formatRateRange(e.rate.low, e.rate.high, currency)}
             </Typography>
             <Typography component="dt" level="body-sm">Deposit</Typography>
             <Typography component="dd" level="body-sm" data-testid="estimate-deposit">{formatMoney(e.deposit, currency)}</Typography>

@@ -5,8 +5,9 @@ import ListItem from '@mui/joy/ListItem';
 import Typography from '@mui/joy/Typography';
 import type { PowerBudget } from '@loomwright/shared';
 import { CheckStatusChip } from './CheckStatus';
+import { formatQuantity } from 'src/lib/format';
 
-const watts = (w: number) => `${Number(w.toFixed(2))} W`;
+const watts = (w: number) => `${formatQuantity(w)} W`;
 
 /**
  * The power plan: which output feeds which pedal, each output's load against its rating as a bar

@@ -4,7 +4,7 @@ import List from '@mui/joy/List';
 import ListItem from '@mui/joy/ListItem';
 import Typography from '@mui/joy/Typography';
 import { levelRank } from '@loomwright/shared';
-import { formatMoneyRange } from 'src/lib/money';
+import { formatMoneyRange } from 'src/lib/format';
 import { levelTotals } from '../../lib/level-compare';
 import { ChoiceCards } from '../ChoiceCards';
 import { InfoIcon } from '../icons';

@@ -1,7 +1,7 @@
 import Alert from '@mui/joy/Alert';
 import Typography from '@mui/joy/Typography';
 import type { CaseKind } from '@loomwright/shared';
-import { formatMoney } from 'src/lib/money';
+import { formatMoney } from 'src/lib/format';
 import { ChoiceCards } from '../ChoiceCards';
 import { CautionIcon } from '../icons';
 import { StepHeading } from '../StepHeading';

@@ -2,7 +2,7 @@ import Box from '@mui/joy/Box';
 import Card from '@mui/joy/Card';
 import Checkbox from '@mui/joy/Checkbox';
 import Typography from '@mui/joy/Typography';
-import { formatHours, formatMoneyRange } from 'src/lib/money';
+import { formatHours, formatMoneyRange } from 'src/lib/format';
 import { extraEffect } from '../../lib/level-compare';
 import { functionHint } from '../../lib/function-hints';
 import { CheckIcon } from '../icons';

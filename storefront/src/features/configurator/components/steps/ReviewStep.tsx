@@ -8,7 +8,7 @@ import Typography from '@mui/joy/Typography';
 import { Suspense } from 'react';
 import { useNavigate } from 'react-router';
 import { encodeConfiguration, quantityWithUnit } from '@loomwright/shared';
-import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/money';
+import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/format';
 import { useDownloadQuote } from '../../api/download-quote';
 import { BoardFitView } from '../BoardFitView';
 import { CableList } from '../CableList';

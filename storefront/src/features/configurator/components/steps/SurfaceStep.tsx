@@ -1,10 +1,10 @@
 import Typography from '@mui/joy/Typography';
-import { formatMoney } from 'src/lib/money';
+import { formatMoney, formatQuantity } from 'src/lib/format';
 import { ChoiceCards } from '../ChoiceCards';
 import { StepHeading } from '../StepHeading';
 import type { StepProps } from './step-props';
 
-const inches = (mm: number) => (mm / 25.4).toFixed(1).replace(/\.0$/, '');
+const inches = (mm: number) => formatQuantity(mm / 25.4, undefined, 1);
 
 export default function SurfaceStep({ catalog, configuration, update }: StepProps) {
   const surfaces = [...catalog.surfaces].sort((a, b) => a.widthMm * a.depthMm - b.widthMm * b.depthMm);
