@@ -14,6 +14,8 @@ export interface ShopProfile {
   /** BCP 47 tag (en-US, de-DE): with currency and timezone, how every amount, date and time is written (`shopFormat`). */
   locale: string;
   contactEmail: string;
+  /** The postal address players ship or bring their pedals to, on one line (`postalAddressLine`); null until the owner sets it. */
+  postalAddress: string | null;
 }
 
 /** One device a person is signed in on (the owner's view of their sessions). */

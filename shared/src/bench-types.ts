@@ -358,6 +358,8 @@ export interface ShopSettingsView {
   timezone: string;
   locale: string;
   contactEmail: string;
+  /** Where players ship or drop off their pedals; null until the owner fills it in. */
+  postalAddress: { line1: string; line2: string; city: string; region: string; postalCode: string } | null;
   closures: ShopClosureView[];
   /** The public holidays of the shop's country in the coming twelve months (date-holidays). */
   upcomingHolidays: Array<{ date: string; name: string }>;

@@ -42,6 +42,26 @@ const localeWords = 'locale must be a language and region such as en-US or de-DE
 const timeZoneWords = 'timezone must be an IANA time zone name like America/Chicago';
 const emailWords = 'contactEmail must be an e-mail address, like shop@example.com';
 
+/**
+ * The shop's postal address, where players ship or drop off their pedals: street lines, city,
+ * region (state, county or province, where the country uses one) and postal code; the country is
+ * the shop's countryCode. A street line, the city and the postal code are needed for a label.
+ */
+export const postalAddressSchema = requestObject({
+  line1: text('postalAddress.line1', { max: 120, min: 2, tooShort: 'postalAddress.line1 must give the street and number' }),
+  line2: text('postalAddress.line2', { max: 120 }).optional(),
+  city: text('postalAddress.city', { max: 80, min: 1, tooShort: 'postalAddress.city is needed' }),
+  region: text('postalAddress.region', { max: 80 }).optional(),
+  postalCode: text('postalAddress.postalCode', { max: 20, min: 2, tooShort: 'postalAddress.postalCode is needed' }),
+});
+export type PostalAddressInput = z.infer<typeof postalAddressSchema>;
+
+/** One line for mails, calendar files and paper: "14 Foundry Lane, Unit 3, Millbrook, OR 97000, US". */
+export function postalAddressLine(address: { line1: string; line2: string; city: string; region: string; postalCode: string }, countryCode: string): string {
+  const cityLine = [address.city, [address.region, address.postalCode].filter(Boolean).join(' ')].filter(Boolean).join(', ');
+  return [address.line1, address.line2, cityLine, countryCode].filter((part) => part.trim() !== '').join(', ');
+}
+
 /** The shop's details as the owner edits them on the settings page (every field required there). */
 export const shopDetailsSchema = requestObject({
   name: text('name', { max: 120, min: 2, tooShort: 'name must be at least 2 characters' }),
@@ -65,12 +85,13 @@ export const shopDetailsSchema = requestObject({
     .max(35, { error: localeWords, abort: true })
     .refine((tag) => canonicalLocale(tag) !== undefined, { error: localeWords, abort: true })
     .transform((tag) => canonicalLocale(tag)!),
+  postalAddress: postalAddressSchema.optional(),
 });
 export type ShopDetailsInput = z.infer<typeof shopDetailsSchema>;
 
 /** PATCH /api/settings: any of the shop's details. */
 export const updateSettingsSchema = shopDetailsSchema.partial().refine((body) => Object.values(body).some((value) => value !== undefined), {
-  error: 'Send at least one of name, tagline, contactEmail, countryCode, timezone, locale.',
+  error: 'Send at least one of name, tagline, contactEmail, countryCode, timezone, locale, postalAddress.',
 });
 export type UpdateSettingsInput = z.infer<typeof updateSettingsSchema>;
 

@@ -7,6 +7,8 @@ import PDFDocument from 'pdfkit';
 /** Everything one sheet prints, gathered by the service. */
 export interface BuildSheetData {
   shopName: string;
+  /** The shop's postal address on one line (Settings), where the board goes back from; null until set. */
+  shopAddress: string | null;
   reference: string;
   stateLabel: string;
   customer: string;
@@ -217,7 +219,7 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   const byId = new Map(chain.devices.map((d) => [d.id, d]));
 
   doc.font('bold').fontSize(17).text(`Build sheet ${data.reference}`, MARGIN, MARGIN);
-  doc.font('body').fontSize(9.5).text(data.shopName);
+  doc.font('body').fontSize(9.5).text(data.shopAddress ? `${data.shopName} · ${data.shopAddress}` : data.shopName);
   doc.moveDown(0.4);
   sheet.table(
     ['Customer', 'Builder', 'Bench date', 'Status'],

@@ -35,6 +35,11 @@ export interface ShopSettingsTable {
   timezone: string;
   locale: Generated<string>;
   contact_email: string;
+  address_line1: Generated<string>;
+  address_line2: Generated<string>;
+  address_city: Generated<string>;
+  address_region: Generated<string>;
+  address_postal_code: Generated<string>;
   updated_at: Timestamp;
 }
 

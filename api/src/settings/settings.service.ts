@@ -27,6 +27,9 @@ export class SettingsService {
       timezone: row.timezone,
       locale: row.locale,
       contactEmail: row.contact_email,
+      postalAddress: row.address_line1
+        ? { line1: row.address_line1, line2: row.address_line2, city: row.address_city, region: row.address_region, postalCode: row.address_postal_code }
+        : null,
       closures,
       upcomingHolidays: [...holidays.entries()].map(([date, name]) => ({ date, name })),
     };
@@ -43,6 +46,13 @@ export class SettingsService {
       ...(dto.countryCode !== undefined && { country_code: dto.countryCode }),
       ...(dto.timezone !== undefined && { timezone: dto.timezone }),
       ...(dto.locale !== undefined && { locale: dto.locale }),
+      ...(dto.postalAddress !== undefined && {
+        address_line1: dto.postalAddress.line1,
+        address_line2: dto.postalAddress.line2 ?? '',
+        address_city: dto.postalAddress.city,
+        address_region: dto.postalAddress.region ?? '',
+        address_postal_code: dto.postalAddress.postalCode,
+      }),
     };
     const updated = await this.settings.update(this.db, values);
     if (!updated) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');

@@ -1,5 +1,5 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
-import type { ShopProfile } from '@loomwright/shared';
+import { postalAddressLine, type ShopProfile } from '@loomwright/shared';
 import { ShopRepository } from './shop.repository';
 
 @Injectable()
@@ -17,6 +17,12 @@ export class ShopService {
       timezone: row.timezone,
       locale: row.locale,
       contactEmail: row.contact_email,
+      postalAddress: row.address_line1
+        ? postalAddressLine(
+            { line1: row.address_line1, line2: row.address_line2, city: row.address_city, region: row.address_region, postalCode: row.address_postal_code },
+            row.country_code.trim(),
+          )
+        : null,
     };
   }
 }

@@ -11,6 +11,8 @@ export interface ShopContext {
   /** BCP 47 locale and ISO 4217 currency of the shop: how amounts, days and moments are written. */
   locale?: string;
   currency?: string;
+  /** The shop's postal address on one line, once the owner has set it (Settings). */
+  postalAddress?: string | null;
   /** The storefront's address, for links a caller did not give (a booking's page). */
   publicUrl?: string;
 }
@@ -119,7 +121,8 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
     throw new MailDataError('the data has no "pedals" or "whatToShip" (what the player must send)');
   }
   const dropOff = data.handover === 'drop-off';
-  const shipTo = optionalString(data, 'shipTo') ?? `${shop.name} (ask ${shop.contactEmail} for the address)`;
+  const shipTo =
+    optionalString(data, 'shipTo') ?? (shop.postalAddress ? `${shop.name}, ${shop.postalAddress}` : `${shop.name} (ask ${shop.contactEmail} for the address)`);
   const currency = optionalString(data, 'currency');
   const figures: [string, string][] = currency
     ? (
