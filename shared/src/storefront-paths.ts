@@ -12,6 +12,8 @@ export const storefrontPaths = [
   '/account',
   '/configure',
   '/request',
+  '/configurations',
+  '/c/:code',
   '/checkout/return',
   '/builds',
   '/builds/:id',
