@@ -88,7 +88,7 @@ describe('approvals, notes, money facts and corrections', () => {
     const extra = (await owner.post(`/api/bookings/${b.id}/extras`).send({ description: 'Deeper road case', amount: '45.00', reason: 'The wah does not fit.' }).expect(201)).body as ExtraView;
     const bad = await master.post(`/api/bookings/${b.id}/extras/${extra.id}/recorded-decision`).send({ approve: true, via: 'pigeon' });
     expect(bad.status).toBe(400);
-    expect(bad.body.details).toEqual(expect.arrayContaining(['via must be one of phone, in_person, email', 'givenBy must name who gave the answer']));
+    expect(bad.body.details).toEqual(expect.arrayContaining(['How the answer came must be one of: "phone", "in_person" or "email"', 'Say who gave the answer']));
     expect((await player.post(`/api/bookings/${b.id}/extras/${extra.id}/recorded-decision`).send({ approve: true, via: 'phone', givenBy: 'Rowan' })).status).toBe(403);
 
     const recorded = await master
@@ -144,7 +144,7 @@ describe('approvals, notes, money facts and corrections', () => {
     await master.post(`/api/bookings/${b.id}/notes`).send({ note: 'Your supply has a spare 18 V output.', tellPlayer: true }).expect(201);
     const missing = await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing', tellPlayer: true });
     expect(missing.status).toBe(400);
-    expect(missing.body.details).toEqual(['note must hold the words the player should read, or leave "tell the player" off']);
+    expect(missing.body.details).toEqual(['Write the words the player should read, or leave “tell the player” off']);
 
     const playerAnswer = JSON.stringify((await player.get(`/api/bookings/${b.id}`).expect(200)).body);
     for (const secret of ['INTAKE-SECRET', 'STATE-SECRET', 'HOURS-SECRET', 'NOTE-SECRET', 'Recorded 1.50 h']) expect(playerAnswer).not.toContain(secret);
@@ -171,7 +171,7 @@ describe('approvals, notes, money facts and corrections', () => {
     await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
     const noNote = await master.post(`/api/bookings/${b.id}/intake`).send({ items: [{ item: 'Fuzz', condition: 'faulty' }] });
     expect(noNote.status).toBe(400);
-    expect(noNote.body.details).toEqual(['items[0].note: note must say what is wrong with a faulty item']);
+    expect(noNote.body.details).toEqual(['Item 1: Note must say what is wrong with a faulty item']);
 
     // Recorded out of order: the rig lists Fuzz, then Analog delay; the supply comes after the chain.
     const items = [
@@ -223,7 +223,7 @@ describe('approvals, notes, money facts and corrections', () => {
     const entry = added.entries[0];
     expect(entry.recordedBy).toMatchObject({ name: 'Teodor Lind' });
     expect((await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours: 2.345 })).body.details).toEqual([
-      'hours takes at most two decimals, like 1.25',
+      'Hours takes at most two decimals, like 1.25',
     ]);
 
     // A colleague may not correct another's hours; the author and the owner may.
@@ -233,7 +233,7 @@ describe('approvals, notes, money facts and corrections', () => {
     const corrected = (await master.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({ hours: 2.25 }).expect(200)).body as TimeEntriesResponse;
     expect(corrected.entries[0]).toMatchObject({ hours: 2.25, workedOn: '2026-11-30' });
     expect(corrected.entries[0].updatedAt).not.toBeNull();
-    expect((await master.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({})).body.details).toEqual(['Say what to change: workedOn, hours or note']);
+    expect((await master.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({})).body.details).toEqual(['Say what to change: the day worked, the hours or the note']);
     await owner.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({ note: 'Cables cut and labelled' }).expect(200);
     expect((await junior.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json')).status).toBe(403);
     const gone = (await owner.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json').expect(200)).body as TimeEntriesResponse;

@@ -37,11 +37,12 @@ describe('sign-up, sign-in, me and sign-out', () => {
     expect(mails).toHaveLength(1);
   });
 
-  it('names the field when sign-up input is bad', async () => {
+  it('says what is wrong with sign-up input in words, each problem with its field', async () => {
     const res = await t.http().post('/api/auth/sign-up').send({ email: 'not-an-email', password: 'short', name: '' }).expect(400);
-    const text = JSON.stringify(res.body.message);
-    expect(text).toContain('email');
-    expect(text).toContain('password');
+    expect(res.body.details).toEqual(
+      expect.arrayContaining(['Enter a name', 'Enter an e-mail address, like name@example.com', 'Choose a password of at least 10 characters']),
+    );
+    expect(res.body.issues.map((i: { path: string }) => i.path)).toEqual(expect.arrayContaining(['name', 'email', 'password']));
   });
 
   it('signs the demo player in, answers me, and forgets the session on sign-out', async () => {

@@ -150,9 +150,9 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect(bad.status).toBe(400);
     expect(bad.body.details).toEqual(
       expect.arrayContaining([
-        'builderId must be a builder id (a UUID)',
-        'benchDate must be a calendar day written YYYY-MM-DD',
-        'reason is required: say why the build moves (the player reads it)',
+        'Choose a builder from the list; this one is not known here',
+        'Bench date must be a real calendar day, like 2026-12-14',
+        'Reason is required: say why the build moves (the player reads it)',
       ]),
     );
     // A request that is not scheduled cannot be moved.
@@ -175,7 +175,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect(saturday.options[0]).toMatchObject({ ok: false, refusal: 'day_off', nextPossibleDate: firstWorkdayFrom(addDays(monday, 7)) });
     const bad = await owner.get(`/api/bench/preview?bookingId=${b.id}&benchDate=someday`);
     expect(bad.status).toBe(400);
-    expect(bad.body.details).toEqual(['benchDate must be a calendar day written YYYY-MM-DD']);
+    expect(bad.body.details).toEqual(['Bench date must be a real calendar day, like 2026-12-14']);
   });
 
   it('reassigns to another builder: only the owner re-prices (shown to the player) or goes below the chosen level, with a reason', async () => {
@@ -187,7 +187,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect(byBuilder.body.message).toMatch(/only the owner can assign them, with a reason/);
     const noReason = await owner.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: juniorId, benchDate: monday, reason: 'Teodor is ill' });
     expect(noReason.status).toBe(400);
-    expect(noReason.body.message).toMatch(/levelOverrideReason is required/);
+    expect(noReason.body.message).toMatch(/A reason for a builder below the level is required/);
     const builderReprices = await master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: masterId, benchDate: addDays(monday, 1), reason: 'x', reprice: true });
     expect(builderReprices.status).toBe(403);
     // Pip does not work Mondays (the demo apprentice's week is Tuesday to Friday, 6 h).
@@ -227,7 +227,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const other = await signIn(t.app, 'cass@mail.example');
     expect((await other.post(`/api/bookings/${b.id}/price-consent`).send({ accept: false })).status).toBe(404);
     expect((await player.post(`/api/bookings/${b.id}/price-consent`).send({ accept: 'yes' })).body.details).toEqual([
-      'accept must be true (keep the build at the new price) or false (cancel with a full refund)',
+      'Answer yes to keep the build at the new price, or no to cancel with a full refund',
     ]);
   });
 
@@ -294,7 +294,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     // The master is away all week: the first date that holds the build for him is the Monday after.
     const preview = (await owner.get(`/api/bench/preview?bookingId=${mine.id}&benchDate=${monday}&builderId=${masterId}`).expect(200)).body as BenchPreview;
     expect(preview.options[0]).toMatchObject({ ok: false, refusal: 'away', nextPossibleDate: firstWorkdayFrom(addDays(monday, 7)) });
-    expect((await owner.post(`/api/team/${masterId}/absences`).send({ startsOn: monday, endsOn: addDays(monday, -1), reason: 'x' })).body.details).toEqual(['endsOn must be on or after startsOn']);
+    expect((await owner.post(`/api/team/${masterId}/absences`).send({ startsOn: monday, endsOn: addDays(monday, -1), reason: 'x' })).body.details).toEqual(['Last day must be on or after the first day']);
     await owner.delete(`/api/team/absences/${absence.body.id}`).send({}).expect(204);
     expect((await owner.delete(`/api/team/absences/${absence.body.id}`).send({})).status).toBe(404);
   });
@@ -328,7 +328,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect(preview.policy).toMatch(/if the player cancels, the shop keeps the deposit/);
     expect((await master.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'x', cause: 'player' })).status).toBe(403);
     expect((await owner.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'x', cause: 'nobody' })).body.details).toEqual([
-      'cause must be player (the player asked) or shop (the shop cannot build it)',
+      'Say who asked to cancel: the player, or the shop (it cannot build it)',
     ]);
     const res = await owner.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'The player is moving abroad.', cause: 'player' }).expect(200);
     expect(res.body.state).toBe('cancelled');

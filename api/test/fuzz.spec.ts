@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { apiErrorBodySchema } from '@loomwright/shared';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { jargonIn } from '@loomwright/shared';
 import { builderId, DEMO_PASSWORD } from './support/bench-fixtures';
 import { createTestApp, type TestApp } from './support/test-app';
 
@@ -10,6 +11,10 @@ import { createTestApp, type TestApp } from './support/test-app';
  * caller, a player and the owner: no answer may be a 5xx. Requests are generated from each
  * operation's own parameters and body schema (the zod schemas, through z.toJSONSchema), mixed
  * with the values that once broke the API: a lone surrogate, 1e-308, null, "NaN", deep nesting.
+ *
+ * Every 4xx answer's words are kept and checked at the end for developer jargon (a camelCase
+ * field name, a path such as "pedals[3]", "must not be empty"): a person reads them (WCAG 2.2
+ * SC 3.3.1 and 3.3.3; the jargon list is common practice, see shared/src/words/jargon.ts).
  *
  * Bounded and deterministic: FUZZ_RUNS requests per operation and caller (default 6), from the
  * seed FUZZ_SEED (default below), printed at the start so a failure can be replayed.
@@ -183,6 +188,13 @@ function urlOf(op: Operation, sample: Sample): string {
   return query ? `${path}?${query}` : path;
 }
 
+/** Each distinct 4xx message and one request that drew it. */
+const refusals = new Map<string, string>();
+function keepRefusal(body: unknown, request: string): void {
+  const raw = body && typeof body === 'object' && 'message' in body ? (body as { message: unknown }).message : undefined;
+  for (const message of ([] as unknown[]).concat(raw ?? [])) if (typeof message === 'string' && !refusals.has(message)) refusals.set(message, request);
+}
+
 const callers = [
   { name: 'anonymous', email: null },
   { name: 'player', email: 'player@mail.example' },
@@ -239,6 +251,7 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
           call = call.set('Content-Type', 'application/json').send(JSON.stringify(sample.body));
         }
         const res = await call;
+        if (res.status >= 400 && res.status < 500) keepRefusal(res.body, `${op.method.toUpperCase()} ${op.path} as ${name}`);
         if (res.status >= 500) {
           throw new Error(`${op.method.toUpperCase()} ${url} as ${name} answered ${res.status} ${JSON.stringify(res.body)}\n  body sent: ${JSON.stringify(sample.body)?.slice(0, 500)}`);
         }
@@ -261,4 +274,11 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
     for (const failure of failures) console.error(failure);
     expect(failures).toEqual([]);
   }, 600_000);
+
+  it('refuses every bad request in plain words, without developer jargon', () => {
+    expect(refusals.size).toBeGreaterThan(50);
+    const jargon = [...refusals].filter(([message]) => jargonIn(message).length > 0).map(([message, where]) => `${where}: ${message}  ← ${jargonIn(message).join(', ')}`);
+    console.log(`fuzz: ${refusals.size} distinct refusals read, ${jargon.length} with jargon`);
+    expect(jargon).toEqual([]);
+  });
 });

@@ -60,7 +60,7 @@ describe('hostile input answers 400 in words, never 500', () => {
     for (const hourlyRate of [null, 'NaN', 'Infinity', '-5', '1e3', 1e-308, '0.00']) {
       const res = await owner.patch(`/api/team/${masterId}`).send({ hourlyRate });
       expect(res.status, JSON.stringify(hourlyRate)).toBe(400);
-      expect(JSON.stringify(res.body.message)).toContain('hourlyRate must be an amount above 0');
+      expect(JSON.stringify(res.body.message)).toContain('Hourly rate must be an amount above 0');
     }
     const after = await t.db.selectFrom('builders').select('hourly_rate').where('id', '=', masterId).executeTakeFirstOrThrow();
     expect(after.hourly_rate).toBe(before.hourly_rate);
@@ -74,12 +74,12 @@ describe('hostile input answers 400 in words, never 500', () => {
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received' }).expect(200);
 
     const cases: Array<[unknown, string]> = [
-      [1e-308, 'hours must be more than 0'],
-      [1e308, 'hours must be at most 24 for one day'],
-      [null, 'hours must be a number of hours'],
-      ['NaN', 'hours must be a number of hours'],
-      ['2.5', 'hours must be a number of hours'],
-      [2.345, 'hours takes at most two decimals'],
+      [1e-308, 'Hours must be more than 0'],
+      [1e308, 'Hours can be at most 24 for one day'],
+      [null, 'Hours must be a number of hours'],
+      ['NaN', 'Hours must be a number of hours'],
+      ['2.5', 'Hours must be a number of hours'],
+      [2.345, 'Hours takes at most two decimals'],
     ];
     for (const [hours, words] of cases) {
       const res = await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours });
@@ -96,6 +96,6 @@ describe('hostile input answers 400 in words, never 500', () => {
   it('names an unknown field instead of dropping it', async () => {
     const res = await owner.patch(`/api/team/${masterId}`).send({ hourlyRat: '90.00' });
     expect(res.status).toBe(400);
-    expect(JSON.stringify(res.body.message)).toContain('hourlyRat is not a field this request takes');
+    expect(JSON.stringify(res.body.message)).toContain('\\"hourlyRat\\" is not a field this request takes');
   });
 });

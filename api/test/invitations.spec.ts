@@ -129,7 +129,7 @@ describe('staff invitations', () => {
     expect(unknown.status).toBe(404);
     const bad = await t.http().post('/api/invitations/not-an-id/resend').set('Cookie', owner).send({});
     expect(bad.status).toBe(400);
-    expect(bad.body.message).toBe('The builder id in the address must be a UUID.');
+    expect(bad.body.message).toBe('This address does not name a builder; open it again from its list');
   });
 
   it('refuses to turn a player into staff', async () => {
@@ -140,12 +140,18 @@ describe('staff invitations', () => {
     expect(player.role).toBe('customer');
   });
 
-  it('names each bad field', async () => {
+  it('names each bad field in words', async () => {
     const res = await t.http().post('/api/invitations').set('Cookie', owner).send({ email: 'x', name: '', level: 'wizard', hourlyRate: '0' }).expect(400);
-    const text = JSON.stringify(res.body.message);
-    for (const field of ['email', 'name', 'level', 'hourlyRate']) expect(text).toContain(field);
+    expect(res.body.details).toEqual(
+      expect.arrayContaining([
+        'Enter an e-mail address, like name@example.com',
+        'Enter a name',
+        'Choose a level: apprentice, journeyman or master',
+        'Hourly rate must be an amount above 0 with at most two decimals, like 85.00',
+      ]),
+    );
     const accept = await t.http().post('/api/invitations/accept').send({ token: 'nope', password: 'x' }).expect(400);
-    expect(JSON.stringify(accept.body.message)).toContain('token');
+    expect(JSON.stringify(accept.body.message)).toContain('This link is incomplete; open the link from the e-mail again');
     await t.http().post('/api/invitations/accept').send({ token: 'B'.repeat(43), password: 'a-long-password' }).expect(400);
   });
 });

@@ -165,7 +165,7 @@ describe('mail whose sender stopped mid-send', () => {
     const unconfirmed = await owner.post(`/api/mail/${row!.id}/resend`).send({}).expect(409);
     expect(unconfirmed.body.message).toMatch(/may already have arrived/);
     const typo = await owner.post(`/api/mail/${row!.id}/resend`).send({ confirmPossibleDuplicate: 'yes' }).expect(400);
-    expect(JSON.stringify(typo.body.message)).toContain('confirmPossibleDuplicate must be true or false');
+    expect(JSON.stringify(typo.body.message)).toContain('Confirm a second copy must be yes or no (true or false)');
     const stray = await owner.post(`/api/mail/${row!.id}/resend`).send({ confirm: true }).expect(400);
     expect(JSON.stringify(stray.body.message)).toMatch(/confirm/);
     expect(await t.db.selectFrom('mail_outbox').select('id').execute()).toHaveLength(1);

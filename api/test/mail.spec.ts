@@ -214,9 +214,9 @@ describe('mail delivery through the outbox into the mail fake', () => {
       const owner = await signIn('owner@shop.example');
       const bad = await owner.get('/api/mail?state=lost&pageSize=500&page=0').expect(400);
       const text = JSON.stringify(bad.body.message);
-      expect(text).toContain('state must be one of queued, sending, sent, failed');
-      expect(text).toContain('pageSize must be at most 100');
-      expect(text).toContain('page must be 1 or more');
+      expect(text).toContain('Status must be one of: \\"queued\\", \\"sending\\", \\"sent\\", \\"failed\\" or \\"unknown\\"');
+      expect(text).toContain('Rows per page can be at most 100');
+      expect(text).toContain('Page must be 1 or more');
     });
 
     it('lets the owner resend: a new message with a new Message-ID, linked to the original', async () => {
@@ -239,7 +239,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
       const missing = await owner.post('/api/mail/00000000-0000-4000-8000-000000000000/resend').send({}).expect(404);
       expect(missing.body.message).toContain('no message with the id');
       const bad = await owner.post('/api/mail/not-a-uuid/resend').send({}).expect(400);
-      expect(bad.body.message).toBe('The message id must be a UUID, as listed in the mail log.');
+      expect(bad.body.message).toBe('This address does not name a message in the mail log; open it again from its list');
     });
   });
 });

@@ -1,4 +1,4 @@
-import { demoPriceBook, type PriceBook } from '@loomwright/shared';
+import { demoPriceBook, jargonIn, type PriceBook } from '@loomwright/shared';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from './support/test-app';
@@ -66,7 +66,9 @@ describe('price book versions', () => {
     const owner = await signedIn('owner@shop.example');
     const res = await owner.post('/api/price-book').send({ book });
     expect(res.status).toBe(400);
-    expect(res.body.details.some((m: string) => m.startsWith(`${field}:`))).toBe(true);
+    // Words for the owner in `message`, the field's path beside them in `issues`.
+    expect(res.body.issues.some((i: { path: string }) => i.path === field)).toBe(true);
+    expect((res.body.details as string[]).flatMap(jargonIn)).toEqual([]);
   });
 
   it('answers 400 to garbage, never 500', async () => {

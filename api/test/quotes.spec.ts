@@ -1,4 +1,4 @@
-import type { RigConfiguration } from '@loomwright/shared';
+import { jargonIn, type RigConfiguration } from '@loomwright/shared';
 // pdf-parse 1.x: a general-purpose PDF text extractor (over Mozilla's pdf.js). The inner module
 // is imported because the package's index runs a self-test when it has no parent module.
 import pdfParse from 'pdf-parse/lib/pdf-parse.js';
@@ -68,7 +68,8 @@ describe('POST /api/quotes/pdf', () => {
     const res = await t.http().post('/api/quotes/pdf').send(body).expect(400);
     const messages: string[] = res.body.details;
     expect(messages.length).toBeGreaterThan(0);
-    if (field) expect(messages.some((m) => m.startsWith(`${field}:`))).toBe(true);
+    if (field) expect(res.body.issues.some((i: { path: string }) => i.path === field)).toBe(true);
+    expect(messages.flatMap(jargonIn)).toEqual([]);
   });
 
   it('answers 400 naming the field for a surface the price book does not hold', async () => {

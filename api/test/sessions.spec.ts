@@ -116,7 +116,7 @@ describe('sessions end when asked', () => {
     expect(unknown.body.message).toBe('There is no account with that id.');
     const malformed = await t.http().delete('/api/users/not-an-id/sessions').set('Content-Type', 'application/json').set('Cookie', ownerCookie);
     expect(malformed.status).toBe(400);
-    expect(malformed.body.message).toBe('The account id in the address must be a UUID.');
+    expect(malformed.body.message).toBe('This address does not name an account; open it again from its list');
   });
 
   it('a password change ends every session of the account, and the new one works', async () => {

@@ -10,8 +10,8 @@ test('a player signs up from a page, comes back to it, signs out and signs in ag
 
   // Bad input is refused in words before anything is sent (shared zod schema).
   await page.getByRole('button', { name: 'Create account' }).click();
-  await expect(page.getByText('name must not be empty')).toBeVisible();
-  await expect(page.getByText('password must be at least 10 characters long')).toBeVisible();
+  await expect(page.getByText('Enter a name')).toBeVisible();
+  await expect(page.getByText('Choose a password of at least 10 characters')).toBeVisible();
 
   await page.getByLabel('Your name').fill('Ilse Brandvold');
   await page.getByLabel('E-mail').fill(email);

@@ -33,10 +33,10 @@ describe('account schemas', () => {
     expect(result.error?.issues[0]?.message).toBe(authMessages.email);
   });
 
-  it('asks for at least 10 characters in a new password, naming the field', () => {
+  it('asks for at least 10 characters in a new password, in words', () => {
     const result = passwordResetConfirmSchema.safeParse({ token: 'A'.repeat(43), password: 'nine-char' });
     expect(result.success).toBe(false);
-    expect(result.error?.issues.map((i) => i.message)).toEqual(['password must be at least 10 characters long']);
+    expect(result.error?.issues.map((i) => i.message)).toEqual(['Choose a password of at least 10 characters']);
   });
 
   it('wants the new password twice, the same both times', () => {

@@ -1,25 +1,26 @@
 import { z } from 'zod';
 import { builderLevels } from './domain';
 import { positiveAmount, requestObject } from './request-fields';
+import { authWords } from './words';
 
 /**
  * Account forms, shared by the API's DTOs and both apps' forms, so a bad value is refused with the
- * same words everywhere. Messages name the field and say what to do.
+ * same words everywhere. The words come from the words file and say what to do.
  */
 export const PASSWORD_MIN_LENGTH = 10;
 export const PASSWORD_MAX_LENGTH = 200;
 
 export const authMessages = {
-  email: 'email must be an e-mail address, like name@example.com',
-  passwordEmpty: 'password must not be empty',
-  passwordShort: `password must be at least ${PASSWORD_MIN_LENGTH} characters long`,
-  passwordLong: `password must be at most ${PASSWORD_MAX_LENGTH} characters long`,
-  passwordsDiffer: 'the two passwords do not match; type the same password twice',
-  nameEmpty: 'name must not be empty',
-  nameLong: 'name must be at most 120 characters long',
-  token: 'token is missing or malformed; open the link from the e-mail again',
-  level: `level must be one of ${builderLevels.join(', ')}`,
-  hourlyRate: 'hourlyRate must be an amount above 0 with at most two decimals, like 85.00',
+  email: authWords.email,
+  passwordEmpty: authWords.passwordEmpty,
+  passwordShort: authWords.passwordShort(PASSWORD_MIN_LENGTH),
+  passwordLong: authWords.passwordLong(PASSWORD_MAX_LENGTH),
+  passwordsDiffer: authWords.passwordsDiffer,
+  nameEmpty: authWords.nameEmpty,
+  nameLong: authWords.nameLong,
+  token: authWords.token,
+  level: authWords.level,
+  hourlyRate: authWords.hourlyRate,
   /** The one answer to a reset request, whether or not the e-mail has an account. */
   resetRequested:
     'If an account uses that e-mail, a link to choose a new password is on its way. It works once and expires within an hour.',

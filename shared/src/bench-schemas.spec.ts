@@ -28,10 +28,10 @@ describe('the reschedule and absence schemas', () => {
     const messages = result.error!.issues.map((i) => i.message);
     expect(messages).toEqual(
       expect.arrayContaining([
-        'builderId must be a builder id (a UUID)',
-        'benchDate must be a calendar day written YYYY-MM-DD',
-        'reason is required: say why the build moves (the player reads it)',
-        'surprise is not a field this request takes; remove it',
+        'Choose a builder from the list; this one is not known here',
+        'Bench date must be a real calendar day, like 2026-12-14',
+        'Reason is required: say why the build moves (the player reads it)',
+        '"surprise" is not a field this request takes; remove it',
       ]),
     );
     expect(rescheduleSchema.parse({ builderId: '3f1c2a4e-8b7d-4c6e-9a5b-1d2e3f4a5b6c', benchDate: '2026-12-07', reason: ' late parcel ' }).reason).toBe('late parcel');
@@ -40,6 +40,6 @@ describe('the reschedule and absence schemas', () => {
   it('refuses an absence that ends before it starts', () => {
     const result = absenceSchema.safeParse({ startsOn: '2026-12-10', endsOn: '2026-12-09', reason: 'ill' });
     expect(result.success).toBe(false);
-    expect(result.error!.issues[0]).toMatchObject({ path: ['endsOn'], message: 'endsOn must be on or after startsOn' });
+    expect(result.error!.issues[0]).toMatchObject({ path: ['endsOn'], message: 'Last day must be on or after the first day' });
   });
 });

@@ -1,22 +1,23 @@
 import { z } from 'zod';
 import { calendarDay, flag, requestObject, text, uuid } from './request-fields';
+import { bookingWords, rules } from './words';
 
 /**
  * Request bodies of the bench's change-of-plan routes, shared by the API (through its
  * ZodValidationPipe) and the backoffice's dialogs, so both refuse bad input in the same words.
  */
 
-const reason = (what: string) => text('reason', { max: 500, min: 1, tooShort: `reason is required: ${what}` });
+const reason = (tooShort: string) => text('reason', { max: 500, min: 1, tooShort });
 
 /** POST /api/bookings/:id/reschedule: move a build to another day, another builder, or both. */
 export const rescheduleSchema = requestObject({
   builderId: uuid('builderId', 'a builder'),
   benchDate: calendarDay('benchDate'),
-  reason: reason('say why the build moves (the player reads it)'),
+  reason: reason(bookingWords.moveReason),
   /** Owner only: re-price the firm quote at the new builder's rate. */
   reprice: flag('reprice').optional(),
   /** Owner only: a builder below the level the player chose, and why (the player reads it). */
-  levelOverrideReason: text('levelOverrideReason', { max: 500, min: 1, tooShort: 'levelOverrideReason must not be empty when given' }).optional(),
+  levelOverrideReason: text('levelOverrideReason', { max: 500, min: 1, tooShort: bookingWords.levelOverrideReason }).optional(),
 });
 export type RescheduleInput = z.infer<typeof rescheduleSchema>;
 
@@ -26,14 +27,14 @@ export type CancellationCause = (typeof cancellationCauses)[number];
 
 /** POST /api/bookings/:id/cancel-scheduled (owner): cancel a build that already has bench time. */
 export const cancelScheduledSchema = requestObject({
-  reason: reason('say why the build is cancelled (the player reads it)'),
-  cause: z.enum(cancellationCauses, { error: 'cause must be player (the player asked) or shop (the shop cannot build it)' }),
+  reason: reason(bookingWords.cancelReason),
+  cause: z.enum(cancellationCauses, { error: bookingWords.cancelCause }),
 });
 export type CancelScheduledInput = z.infer<typeof cancelScheduledSchema>;
 
 /** POST /api/bookings/:id/price-consent (the booking's player). */
 export const priceConsentSchema = requestObject({
-  accept: z.boolean({ error: 'accept must be true (keep the build at the new price) or false (cancel with a full refund)' }),
+  accept: z.boolean({ error: bookingWords.priceConsent }),
 });
 export type PriceConsentInput = z.infer<typeof priceConsentSchema>;
 
@@ -41,8 +42,8 @@ export type PriceConsentInput = z.infer<typeof priceConsentSchema>;
 export const absenceSchema = requestObject({
   startsOn: calendarDay('startsOn'),
   endsOn: calendarDay('endsOn'),
-  reason: reason('say why (only the shop sees it)'),
-}).refine((v) => v.endsOn >= v.startsOn, { error: 'endsOn must be on or after startsOn', path: ['endsOn'] });
+  reason: reason(bookingWords.absenceReason),
+}).refine((v) => v.endsOn >= v.startsOn, { error: rules.dayOrder('Last day', 'First day'), path: ['endsOn'] });
 export type AbsenceInput = z.infer<typeof absenceSchema>;
 
 /** GET /api/bench/preview?bookingId=&benchDate=&builderId= : what a date would mean, before choosing it. */

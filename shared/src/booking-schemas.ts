@@ -3,17 +3,18 @@ import { depositStatuses } from './booking-types';
 import { bookingStates } from './domain';
 import { rigConfigurationSchema } from './estimate/schema';
 import { oneOf, pagingQuery, requestObject, sortOrder, text } from './request-fields';
+import { bookingWords } from './words';
 
 /** POST /api/bookings/:id/shipment: the parcel carrying the player's pedals to the shop. */
 export const shipmentSchema = requestObject({
-  carrier: text('carrier', { max: 100, min: 1, tooShort: 'Say who carries the parcel (carrier)' }),
-  tracking: text('tracking', { max: 100, min: 1, tooShort: 'Give the tracking number (tracking)' }),
+  carrier: text('carrier', { max: 100, min: 1, tooShort: bookingWords.carrier }),
+  tracking: text('tracking', { max: 100, min: 1, tooShort: bookingWords.tracking }),
 });
 export type ShipmentInput = z.infer<typeof shipmentSchema>;
 
 /** POST /api/bookings/:id/dispute/release: the owner lets a disputed build be delivered, saying why. */
 export const releaseDisputeSchema = requestObject({
-  note: text('note', { max: 1000, min: 1, tooShort: 'note must say why the build may be delivered despite the dispute' }),
+  note: text('note', { max: 1000, min: 1, tooShort: bookingWords.releaseNote }),
 });
 export type ReleaseDisputeInput = z.infer<typeof releaseDisputeSchema>;
 
@@ -55,7 +56,7 @@ export type CancelBookingInput = z.infer<typeof cancelBookingSchema>;
 
 /** POST /api/bookings/:id/refund: why the deposit goes back (on the timeline and in the e-mail). */
 export const refundDepositSchema = requestObject({
-  reason: text('reason', { max: 1000, min: 1, tooShort: 'reason must say why the deposit is refunded' }),
+  reason: text('reason', { max: 1000, min: 1, tooShort: bookingWords.refundReason }),
 });
 export type RefundDepositInput = z.infer<typeof refundDepositSchema>;
 

@@ -1,19 +1,20 @@
 import { z } from 'zod';
 import { benchStates } from './bench-types';
 import { calendarDay, flag, hours, numberText, oneOf, positiveAmount, requestObject, text, uuid } from './request-fields';
+import { bookingWords } from './words';
 
 /** POST /api/bookings/:id/accept: who builds it and from which day. */
 export const acceptBookingSchema = requestObject({
   builderId: uuid('builderId', 'a builder'),
   benchDate: calendarDay('benchDate'),
   /** Owner only: why a builder below the rig's minimum level may take it. */
-  levelOverrideReason: text('levelOverrideReason', { max: 500, min: 1, tooShort: 'levelOverrideReason must not be empty when given' }).optional(),
+  levelOverrideReason: text('levelOverrideReason', { max: 500, min: 1, tooShort: bookingWords.levelOverrideReason }).optional(),
 });
 export type AcceptBookingInput = z.infer<typeof acceptBookingSchema>;
 
 /** POST /api/bookings/:id/decline: the reason is told to the player. */
 export const declineBookingSchema = requestObject({
-  reason: text('reason', { max: 1000, min: 3, tooShort: 'reason must say why, in at least a few words' }),
+  reason: text('reason', { max: 1000, min: 3, tooShort: bookingWords.declineReason }),
 });
 export type DeclineBookingInput = z.infer<typeof declineBookingSchema>;
 
@@ -25,17 +26,17 @@ export const changeStateSchema = requestObject({
   to: oneOf('to', benchStates),
   note: text('note', { max: 1000 }).optional(),
   tellPlayer: flag('tellPlayer').optional(),
-}).refine((v) => !v.tellPlayer || !!v.note, { error: 'note must hold the words the player should read, or leave "tell the player" off', path: ['note'] });
+}).refine((v) => !v.tellPlayer || !!v.note, { error: bookingWords.tellPlayerNeedsNote, path: ['note'] });
 export type ChangeStateInput = z.infer<typeof changeStateSchema>;
 
 /** POST /api/bookings/:id/waive-balance. */
 export const waiveBalanceSchema = requestObject({
-  reason: text('reason', { max: 1000, min: 3, tooShort: 'reason must say why the balance is waived' }),
+  reason: text('reason', { max: 1000, min: 3, tooShort: bookingWords.waiveReason }),
 });
 export type WaiveBalanceInput = z.infer<typeof waiveBalanceSchema>;
 
 /** Hours actually spent on one day: above 0, at most 24, at most two decimals (2.3 and 0.25 are fine). */
-export const workedHoursField = hours('hours', { min: 0.01, max: 24, minWords: 'hours must be more than 0', maxWords: 'hours must be at most 24 for one day' });
+export const workedHoursField = hours('hours', { min: 0.01, max: 24, minWords: bookingWords.hoursAboveZero, maxWords: bookingWords.hoursAtMost24 });
 
 /** POST /api/bookings/:id/time-entries. */
 export const timeEntrySchema = requestObject({
@@ -52,7 +53,7 @@ export const editTimeEntrySchema = requestObject({
   workedOn: calendarDay('workedOn').optional(),
   hours: workedHoursField.optional(),
   note: text('note', { max: 1000 }).optional(),
-}).refine((v) => v.workedOn !== undefined || v.hours !== undefined || v.note !== undefined, { error: 'Say what to change: workedOn, hours or note' });
+}).refine((v) => v.workedOn !== undefined || v.hours !== undefined || v.note !== undefined, { error: bookingWords.timeEntryEmpty });
 export type EditTimeEntryInput = z.infer<typeof editTimeEntrySchema>;
 
 /** The backoffice's hours form: the hours typed as text, then the same rule as the API. */
@@ -68,25 +69,25 @@ export const intakeConditions = ['working', 'faulty'] as const;
 
 /** One pedal or part as it arrived: a faulty one says what is wrong. */
 export const intakeItemSchema = requestObject({
-  item: text('item', { max: 200, min: 1, tooShort: 'item must name the pedal or part' }),
+  item: text('item', { max: 200, min: 1, tooShort: bookingWords.intakeItem }),
   condition: oneOf('condition', intakeConditions),
   note: text('note', { max: 1000 }).optional(),
-}).refine((i) => i.condition !== 'faulty' || !!i.note, { error: 'note must say what is wrong with a faulty item', path: ['note'] });
+}).refine((i) => i.condition !== 'faulty' || !!i.note, { error: bookingWords.faultyNeedsNote, path: ['note'] });
 
 /** POST /api/bookings/:id/intake: each item once; recording the same item again corrects it. */
 export const recordIntakeSchema = requestObject({
   items: z
-    .array(intakeItemSchema, { error: 'items must be a list' })
-    .min(1, { error: 'items must list at least one pedal or part' })
-    .max(200, { error: 'items must list at most 200 pedals or parts' }),
+    .array(intakeItemSchema, { error: bookingWords.itemsList })
+    .min(1, { error: bookingWords.itemsAtLeastOne })
+    .max(200, { error: bookingWords.itemsAtMost(200) }),
 });
 export type RecordIntakeInput = z.infer<typeof recordIntakeSchema>;
 
 /** POST /api/bookings/:id/extras: extra material the player is asked to approve, with its price. */
 export const proposeExtraSchema = requestObject({
-  description: text('description', { max: 300, min: 2, tooShort: 'description must say what the extra is' }),
+  description: text('description', { max: 300, min: 2, tooShort: bookingWords.extraDescription }),
   amount: positiveAmount('amount', 8, '45.00'),
-  reason: text('reason', { max: 1000, min: 3, tooShort: 'reason must say why the extra is needed' }),
+  reason: text('reason', { max: 1000, min: 3, tooShort: bookingWords.extraReason }),
 });
 export type ProposeExtraInput = z.infer<typeof proposeExtraSchema>;
 
@@ -117,7 +118,7 @@ export const decidedViaWords: Record<RecordedVia | 'app', string> = {
 export const recordedDecisionSchema = requestObject({
   approve: flag('approve'),
   via: oneOf('via', recordedViaValues),
-  givenBy: text('givenBy', { max: 200, min: 2, tooShort: 'givenBy must name who gave the answer' }),
+  givenBy: text('givenBy', { max: 200, min: 2, tooShort: bookingWords.givenBy }),
   comment: text('comment', { max: 1000 }).optional(),
 });
 export type RecordedDecisionInput = z.infer<typeof recordedDecisionSchema>;
@@ -135,7 +136,7 @@ export type LayoutRequestInput = z.infer<typeof layoutRequestSchema>;
 
 /** POST /api/bookings/:id/notes: a staff note, internal unless the writer tells the player. */
 export const staffNoteSchema = requestObject({
-  note: text('note', { max: 2000, min: 1, tooShort: 'note must hold the words to keep' }),
+  note: text('note', { max: 2000, min: 1, tooShort: bookingWords.staffNote }),
   tellPlayer: flag('tellPlayer').optional(),
 });
 export type StaffNoteInput = z.infer<typeof staffNoteSchema>;

@@ -27,3 +27,4 @@ export * from './format/shop-format';
 export * from './office-schemas';
 export * from './storefront-paths';
 export * from './configuration-schemas';
+export * from './words';

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { rules } from './words';
 import type { Page } from './booking-types';
 
 /**
@@ -35,7 +36,7 @@ export const resendMailSchema = z
      * Required (true) to resend a message whose outcome is unknown: the recipient may already have
      * it, and this sends a second copy.
      */
-    confirmPossibleDuplicate: z.boolean({ message: 'confirmPossibleDuplicate must be true or false' }).optional(),
+    confirmPossibleDuplicate: z.boolean({ message: rules.yesNo('Confirm a second copy') }).optional(),
   })
   .strict()
   // No body at all is the same as {}: an ordinary resend.

@@ -1,9 +1,11 @@
 import Decimal from 'decimal.js';
 import { z } from 'zod';
+import { label, rules } from './words';
 
 /**
- * Building blocks of the request schemas: each field says what is wrong in words that name it,
- * so the API's 400 and the form under the field read the same. Numbers are finite JSON numbers
+ * Building blocks of the request schemas: each field says what is wrong in plain words that name
+ * it by its label (`label(field)` from the words file: "workedOn" reads "Day worked"), so the
+ * API's 400 and the form under the field read the same. Numbers are finite JSON numbers
  * (zod refuses NaN and ±Infinity), ids are UUIDs, days are real calendar days.
  */
 
@@ -22,10 +24,7 @@ export function isCalendarDay(value: unknown): value is string {
  */
 export const requestObject = <Shape extends z.ZodRawShape>(shape: Shape) =>
   z.strictObject(shape, {
-    error: (issue) =>
-      issue.code === 'unrecognized_keys'
-        ? `${issue.keys.join(', ')} ${issue.keys.length === 1 ? 'is not a field' : 'are not fields'} this request takes; remove ${issue.keys.length === 1 ? 'it' : 'them'}`
-        : 'The request must be a JSON object of named fields, like {"name": "value"}',
+    error: (issue) => (issue.code === 'unrecognized_keys' ? rules.unknownFields(issue.keys) : rules.notAnObject),
   });
 
 interface TextRule {
@@ -38,27 +37,26 @@ interface TextRule {
 
 /** Text, trimmed, within a length; the words name the field. */
 export const text = (field: string, { max, min = 0, tooShort }: TextRule) => {
+  const l = label(field);
+  const short = tooShort ?? (min > 1 ? rules.tooShort(l, min) : rules.required(l));
   const base = z
-    .string({ error: (issue) => (issue.input === undefined && min > 0 ? (tooShort ?? `${field} must not be empty`) : `${field} must be text`) })
+    .string({ error: (issue) => (issue.input === undefined && min > 0 ? short : rules.text(l)) })
     .trim()
-    .max(max, { error: `${field} must be at most ${max} characters` });
-  return min > 0 ? base.min(min, { error: tooShort ?? `${field} must not be empty` }) : base;
+    .max(max, { error: rules.tooLong(l, max) });
+  return min > 0 ? base.min(min, { error: short }) : base;
 };
 
 /** An id of a row (a UUID as PostgreSQL writes it), e.g. `uuid('builderId', 'a builder')`. */
-export const uuid = (field: string, what: string) =>
-  z.guid({ error: `${field} must be ${what} id (a UUID)` });
+export const uuid = (_field: string, what: string) => z.guid({ error: rules.id(what) });
 
 export const calendarDay = (field: string) =>
-  z.string({ error: `${field} must be a calendar day written YYYY-MM-DD` }).refine(isCalendarDay, {
-    error: `${field} must be a calendar day written YYYY-MM-DD`,
-  });
+  z.string({ error: rules.day(label(field)) }).refine(isCalendarDay, { error: rules.day(label(field)) });
 
 /**
  * A positive amount of money as a decimal string with at most two decimals and `digits` digits
  * before the point ("45.00", "95"); never a JSON number, so no binary rounding on the way in.
  */
-export const positiveAmount = (field: string, digits: number, example: string, words = `${field} must be a positive amount like ${example}`) => {
+export const positiveAmount = (field: string, digits: number, example: string, words = rules.amount(label(field), example)) => {
   return z
     .string({ error: words })
     .trim()
@@ -66,11 +64,11 @@ export const positiveAmount = (field: string, digits: number, example: string, w
     .refine((value) => new Decimal(value).gt(0), { error: words });
 };
 
-export const flag = (field: string) => z.boolean({ error: `${field} must be true or false` });
+export const flag = (field: string) => z.boolean({ error: rules.yesNo(label(field)) });
 
 /** A value from a fixed list; the words list every choice. */
 export const oneOf = <const Values extends readonly [string, ...string[]]>(field: string, values: Values) =>
-  z.enum(values, { error: `${field} must be one of ${values.join(', ')}` });
+  z.enum(values, { error: rules.oneOf(label(field), values) });
 
 /**
  * A finite number of hours from `min` to `max` with at most two decimals (a quarter hour is
@@ -79,10 +77,10 @@ export const oneOf = <const Values extends readonly [string, ...string[]]>(field
  */
 export const hours = (field: string, { min, max, minWords, maxWords = minWords }: { min: number; max: number; minWords: string; maxWords?: string }) =>
   z
-    .number({ error: `${field} must be a number of hours` })
+    .number({ error: rules.hours(label(field)) })
     .min(min, { error: minWords, abort: true })
     .max(max, { error: maxWords, abort: true })
-    .refine((value) => new Decimal(value).times(100).isInteger(), { error: `${field} takes at most two decimals, like 1.25` });
+    .refine((value) => new Decimal(value).times(100).isInteger(), { error: rules.hoursDecimals(label(field)) });
 
 /**
  * A form field typed as text that holds a number: trimmed, written with digits and an optional
@@ -93,17 +91,17 @@ export const numberText = <Out extends z.ZodType<number, number>>(field: string,
   z
     .string()
     .trim()
-    .regex(blankAs === undefined ? /^\d+(\.\d+)?$/ : /^(\d+(\.\d+)?)?$/, { error: `${field} must be a number, like 1.5` })
+    .regex(blankAs === undefined ? /^\d+(\.\d+)?$/ : /^(\d+(\.\d+)?)?$/, { error: rules.number(label(field)) })
     .transform((value) => (value === '' && blankAs !== undefined ? blankAs : Number(value)))
     .pipe(rule);
 
 /** A whole number in a query string ("?page=2"), read from its text. */
 export const wholeNumberQuery = (field: string, min: number, max: number) =>
   z.coerce
-    .number({ error: `${field} must be a whole number` })
-    .int({ error: `${field} must be a whole number` })
-    .min(min, { error: `${field} must be ${min} or more` })
-    .max(max, { error: `${field} must be at most ${max}` });
+    .number({ error: rules.wholeNumber(label(field)) })
+    .int({ error: rules.wholeNumber(label(field)) })
+    .min(min, { error: rules.atLeast(label(field), min) })
+    .max(max, { error: rules.atMost(label(field), max) });
 
 /** Paging of every list: page from 1, at most 100 rows a page. */
 export const pagingQuery = {

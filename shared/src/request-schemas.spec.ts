@@ -15,16 +15,16 @@ describe('hours: the form takes what the API takes, in the same words', () => {
   });
 
   it.each([
-    ['0', 'hours must be more than 0'],
-    ['24.5', 'hours must be at most 24 for one day'],
-    ['2.345', 'hours takes at most two decimals, like 1.25'],
+    ['0', 'Hours must be more than 0'],
+    ['24.5', 'Hours can be at most 24 for one day'],
+    ['2.345', 'Hours takes at most two decimals, like 1.25'],
   ])('refuses %s h with the same words in the form and the API', (typed, words) => {
     expect(messages(timeEntryFormSchema.safeParse({ workedOn: '2026-11-30', hours: typed, note: '' }))).toEqual([words]);
     expect(messages(timeEntrySchema.safeParse({ workedOn: '2026-11-30', hours: Number(typed) }))).toEqual([words]);
   });
 
   it.each([1e-308, Number.MIN_VALUE, -0.5])('refuses the tiny or negative number %s', (hours) => {
-    expect(messages(timeEntrySchema.safeParse({ workedOn: '2026-11-30', hours }))).toEqual(['hours must be more than 0']);
+    expect(messages(timeEntrySchema.safeParse({ workedOn: '2026-11-30', hours }))).toEqual(['Hours must be more than 0']);
   });
 
   it('refuses text in the form that is not a plain decimal number', () => {
@@ -46,7 +46,7 @@ describe('a builder: rate and week', () => {
   it('refuses a null, empty or zero hourly rate in the words the invitation form uses', () => {
     for (const hourlyRate of [null, '', '0', '0.00', '12.345', 'NaN', 85]) {
       expect(messages(updateTeamMemberSchema.safeParse({ hourlyRate })), String(hourlyRate)).toEqual([
-        'hourlyRate must be an amount above 0 with at most two decimals, like 85.00',
+        'Hourly rate must be an amount above 0 with at most two decimals, like 85.00',
       ]);
     }
   });
@@ -55,20 +55,20 @@ describe('a builder: rate and week', () => {
     const form = teamMemberFormSchema.safeParse({ level: 'master', hourlyRate: '95.00', active: true, hours: { '1': '7', '2': '6.5', '3': '', '4': '', '5': '', '6': '', '7': '' } });
     expect(form.success && form.data.hours).toEqual({ '1': 7, '2': 6.5, '3': 0, '4': 0, '5': 0, '6': 0, '7': 0 });
     const tooLong = teamMemberFormSchema.safeParse({ level: 'master', hourlyRate: '95.00', active: true, hours: { '1': '25', '2': '', '3': '', '4': '', '5': '', '6': '', '7': '' } });
-    expect(tooLong.error?.issues.map((i) => i.message)).toEqual(['weeklyHours.1 must be a number of hours from 0 to 24']);
-    expect(messages(updateTeamMemberSchema.safeParse({ weeklyHours: { '1': 25 } }))).toEqual(['weeklyHours.1 must be a number of hours from 0 to 24']);
+    expect(tooLong.error?.issues.map((i) => i.message)).toEqual(['Monday must be a number of hours from 0 to 24']);
+    expect(messages(updateTeamMemberSchema.safeParse({ weeklyHours: { '1': 25 } }))).toEqual(['Monday must be a number of hours from 0 to 24']);
   });
 
   it('asks for at least one change', () => {
-    expect(messages(updateTeamMemberSchema.safeParse({}))).toEqual(['Send at least one of level, hourlyRate, weeklyHours, active.']);
+    expect(messages(updateTeamMemberSchema.safeParse({}))).toEqual(['Say what to change: the level, hourly rate, weekly hours or whether the builder is active']);
   });
 });
 
 describe('extras', () => {
   it('takes a positive amount with two decimals and refuses the rest in words', () => {
     expect(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: '45.00', reason: 'Taller pedals' }).success).toBe(true);
-    expect(messages(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: '0.00', reason: 'Taller pedals' }))).toEqual(['amount must be a positive amount like 45.00']);
-    expect(messages(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: 45, reason: 'Taller pedals' }))).toEqual(['amount must be a positive amount like 45.00']);
+    expect(messages(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: '0.00', reason: 'Taller pedals' }))).toEqual(['Amount must be an amount above 0, like 45.00']);
+    expect(messages(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: 45, reason: 'Taller pedals' }))).toEqual(['Amount must be an amount above 0, like 45.00']);
   });
 });
 

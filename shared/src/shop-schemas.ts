@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { builderLevels } from './domain';
 import { mailStates } from './mail-types';
 import { calendarDay, oneOf, pagingQuery, requestObject, sortOrder, text, uuid } from './request-fields';
+import { authWords, rules, shopWords } from './words';
 
 /** An IANA time zone name the runtime knows (ECMA-402 `timeZone`), e.g. America/Chicago. */
 export function isTimeZone(name: string): boolean {
@@ -37,10 +38,10 @@ export const commonShopLocales = [
   'ko-KR', 'zh-TW', 'id-ID', 'ar-KW',
 ] as const;
 
-const localeWords = 'locale must be a language and region such as en-US or de-DE';
+const localeWords = shopWords.locale;
 
-const timeZoneWords = 'timezone must be an IANA time zone name like America/Chicago';
-const emailWords = 'contactEmail must be an e-mail address, like shop@example.com';
+const timeZoneWords = shopWords.timezone;
+const emailWords = shopWords.contactEmail;
 
 /**
  * The shop's postal address, where players ship or drop off their pedals: street lines, city,
@@ -48,11 +49,11 @@ const emailWords = 'contactEmail must be an e-mail address, like shop@example.co
  * the shop's countryCode. A street line, the city and the postal code are needed for a label.
  */
 export const postalAddressSchema = requestObject({
-  line1: text('postalAddress.line1', { max: 120, min: 2, tooShort: 'postalAddress.line1 must give the street and number' }),
-  line2: text('postalAddress.line2', { max: 120 }).optional(),
-  city: text('postalAddress.city', { max: 80, min: 1, tooShort: 'postalAddress.city is needed' }),
-  region: text('postalAddress.region', { max: 80 }).optional(),
-  postalCode: text('postalAddress.postalCode', { max: 20, min: 2, tooShort: 'postalAddress.postalCode is needed' }),
+  line1: text('Street and number', { max: 120, min: 2, tooShort: 'Give the street and number of the shop’s address' }),
+  line2: text('Second address line', { max: 120 }).optional(),
+  city: text('Town or city', { max: 80, min: 1, tooShort: 'Give the town or city of the shop’s address' }),
+  region: text('State or region', { max: 80 }).optional(),
+  postalCode: text('Postal code', { max: 20, min: 2, tooShort: 'Give the postal code of the shop’s address' }),
 });
 export type PostalAddressInput = z.infer<typeof postalAddressSchema>;
 
@@ -64,7 +65,7 @@ export function postalAddressLine(address: { line1: string; line2: string; city:
 
 /** The shop's details as the owner edits them on the settings page (every field required there). */
 export const shopDetailsSchema = requestObject({
-  name: text('name', { max: 120, min: 2, tooShort: 'name must be at least 2 characters' }),
+  name: text('name', { max: 120, min: 2, tooShort: shopWords.shopNameShort }),
   tagline: text('tagline', { max: 200 }),
   contactEmail: z
     .string({ error: emailWords })
@@ -74,10 +75,10 @@ export const shopDetailsSchema = requestObject({
     .pipe(z.email({ error: emailWords })),
   // ISO 3166-1 alpha-2; whether holiday data exists for it is checked by the API, which holds that data.
   countryCode: z
-    .string({ error: 'countryCode must be a two-letter ISO 3166-1 country code like US' })
+    .string({ error: shopWords.countryCode })
     .trim()
     .toUpperCase()
-    .regex(/^[A-Z]{2}$/, { error: 'countryCode must be a two-letter ISO 3166-1 country code like US' }),
+    .regex(/^[A-Z]{2}$/, { error: shopWords.countryCode }),
   timezone: z.string({ error: timeZoneWords }).trim().max(64, { error: timeZoneWords, abort: true }).refine(isTimeZone, { error: timeZoneWords }),
   locale: z
     .string({ error: localeWords })
@@ -91,7 +92,7 @@ export type ShopDetailsInput = z.infer<typeof shopDetailsSchema>;
 
 /** PATCH /api/settings: any of the shop's details. */
 export const updateSettingsSchema = shopDetailsSchema.partial().refine((body) => Object.values(body).some((value) => value !== undefined), {
-  error: 'Send at least one of name, tagline, contactEmail, countryCode, timezone, locale, postalAddress.',
+  error: shopWords.settingsEmpty,
 });
 export type UpdateSettingsInput = z.infer<typeof updateSettingsSchema>;
 
@@ -103,12 +104,12 @@ const DAY_MS = 86_400_000;
 export const createClosureSchema = requestObject({
   startsOn: calendarDay('startsOn'),
   endsOn: calendarDay('endsOn'),
-  reason: text('reason', { max: 200, min: 2, tooShort: 'reason must say why the shop is closed' }),
+  reason: text('reason', { max: 200, min: 2, tooShort: shopWords.closureReason }),
 })
-  .refine((c) => c.endsOn >= c.startsOn, { path: ['endsOn'], error: 'endsOn must be on or after startsOn.' })
+  .refine((c) => c.endsOn >= c.startsOn, { path: ['endsOn'], error: rules.dayOrder('Last day', 'First day') })
   .refine((c) => (Date.parse(c.endsOn) - Date.parse(c.startsOn)) / DAY_MS < MAX_CLOSURE_DAYS, {
     path: ['endsOn'],
-    error: `A closure can last at most ${MAX_CLOSURE_DAYS} days; add another for longer.`,
+    error: shopWords.closureTooLong(MAX_CLOSURE_DAYS),
   });
 export type CreateClosureInput = z.infer<typeof createClosureSchema>;
 
@@ -137,7 +138,7 @@ export type ListMailQuery = z.infer<typeof listMailQuerySchema>;
 /** GET /api/bench: the days shown (default today and 13 more) and optionally one builder. */
 export const benchQuerySchema = requestObject({
   from: calendarDay('from').optional(),
-  to: calendarDay('to').optional(),
+  to: calendarDay('Last day shown').optional(),
   builderId: uuid('builderId', 'a builder').optional(),
 });
 export type BenchQuery = z.infer<typeof benchQuerySchema>;
@@ -153,8 +154,8 @@ export type BenchSuggestQuery = z.infer<typeof benchSuggestQuerySchema>;
 /** GET /api/bench/lead-time: the estimate's labor hours and the level it is priced at. */
 export const leadTimeQuerySchema = requestObject({
   hours: z
-    .string({ error: 'hours must be the estimate’s labor hours, a decimal above 0 and below 1000, e.g. 13.00' })
-    .regex(/^(?!0+(\.0+)?$)\d{1,3}(\.\d{1,2})?$/, { error: 'hours must be the estimate’s labor hours, a decimal above 0 and below 1000, e.g. 13.00' }),
-  level: z.enum(builderLevels, { error: `level must be one of ${builderLevels.join(', ')}` }),
+    .string({ error: shopWords.leadTimeHours })
+    .regex(/^(?!0+(\.0+)?$)\d{1,3}(\.\d{1,2})?$/, { error: shopWords.leadTimeHours }),
+  level: z.enum(builderLevels, { error: authWords.level }),
 });
 export type LeadTimeQuery = z.infer<typeof leadTimeQuerySchema>;

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { hourlyRateField } from './auth-schemas';
 import { builderLevels } from './domain';
 import { flag, hours, numberText, oneOf, requestObject } from './request-fields';
+import { shopWords, weekdayNames } from './words';
 
 
 export const WEEKDAY_KEYS = ['1', '2', '3', '4', '5', '6', '7'] as const;
@@ -9,8 +10,8 @@ type WeekdayKey = (typeof WEEKDAY_KEYS)[number];
 
 /** Bench hours of one ISO weekday: 0 (a day off) to 24, in quarter hours or finer. */
 const dayHours = (day: WeekdayKey) => {
-  const words = `weeklyHours.${day} must be a number of hours from 0 to 24`;
-  return hours(`weeklyHours.${day}`, { min: 0, max: 24, minWords: words });
+  const words = shopWords.dayHours(weekdayNames[day]);
+  return hours(`${weekdayNames[day]} hours`, { min: 0, max: 24, minWords: words });
 };
 
 /** A week of bench hours keyed by ISO 8601 weekday number, "1" = Monday … "7" = Sunday. */
@@ -18,9 +19,7 @@ export const weeklyHoursField = z.strictObject(
   Object.fromEntries(WEEKDAY_KEYS.map((day) => [day, dayHours(day).optional()])) as Record<WeekdayKey, z.ZodOptional<ReturnType<typeof dayHours>>>,
   {
     error: (issue) =>
-      issue.code === 'unrecognized_keys'
-        ? `weeklyHours has ${issue.keys.map((k) => `"${k}"`).join(', ')}; days are ISO weekdays 1 (Monday) to 7 (Sunday)`
-        : 'weeklyHours must be an object of ISO weekday → hours, like {"1": 7, "2": 7}',
+      issue.code === 'unrecognized_keys' ? shopWords.unknownWeekdays(issue.keys) : shopWords.weeklyHoursNotAnObject,
   },
 );
 
@@ -31,7 +30,7 @@ export const updateTeamMemberSchema = requestObject({
   weeklyHours: weeklyHoursField.optional(),
   active: flag('active').optional(),
 }).refine((body) => Object.values(body).some((value) => value !== undefined), {
-  error: 'Send at least one of level, hourlyRate, weeklyHours, active.',
+  error: shopWords.teamEmpty,
 });
 export type UpdateTeamMemberInput = z.infer<typeof updateTeamMemberSchema>;
 
@@ -41,7 +40,7 @@ export const teamMemberFormSchema = z.object({
   hourlyRate: hourlyRateField,
   active: flag('active'),
   hours: z.object(
-    Object.fromEntries(WEEKDAY_KEYS.map((day) => [day, numberText(`weeklyHours.${day}`, dayHours(day), { blankAs: 0 })])) as Record<
+    Object.fromEntries(WEEKDAY_KEYS.map((day) => [day, numberText(`${weekdayNames[day]} hours`, dayHours(day), { blankAs: 0 })])) as Record<
       WeekdayKey,
       ReturnType<typeof numberText<ReturnType<typeof dayHours>>>
     >,

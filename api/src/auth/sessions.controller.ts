@@ -1,3 +1,4 @@
+import { requestWords } from '@loomwright/shared';
 import { Controller, Delete, Get, Param } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
@@ -6,7 +7,7 @@ import { CurrentUser } from './current-user.decorator';
 import { Roles } from './roles.decorator';
 import { SessionsService } from './sessions.service';
 
-const userIdPipe = uuidParam('The account id in the address must be a UUID.');
+const userIdPipe = uuidParam(requestWords.notAnId('an account'));
 
 /** The owner's view of where a person is signed in, and the way to sign them out of every device. */
 @ApiTags('auth')

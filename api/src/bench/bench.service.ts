@@ -130,11 +130,11 @@ export class BenchService {
     const from = query.from ?? shop.today;
     const to = query.to ?? addDays(from, 13);
     const span = daysBetween(from, to);
-    if (span < 0) throw new BadRequestException('to must be on or after from.');
+    if (span < 0) throw new BadRequestException('The last day shown must be on or after the first day shown.');
     if (span >= MAX_BENCH_VIEW_DAYS) throw new BadRequestException(`Ask for at most ${MAX_BENCH_VIEW_DAYS} days of bench at a time (from and to).`);
     // Someone still invited (no password yet) takes no builds, so has no row on the bench.
     const builders = this.orderMeFirst((await this.bench.listBuilders(this.db, { builderId: query.builderId })).filter((b) => b.joined), user);
-    if (query.builderId && builders.length === 0) throw new NotFoundException('There is no builder with that builderId who has joined the team.');
+    if (query.builderId && builders.length === 0) throw new NotFoundException('That builder has not joined the team; choose one from the list.');
     const ids = builders.map((b) => b.id);
     const [slices, recorded] = await Promise.all([
       this.bench.allocationsBetween(this.db, ids, from, to),
@@ -197,7 +197,7 @@ export class BenchService {
     }
     const shop = await this.shopCalendar();
     const builders = this.orderMeFirst(await this.bench.listBuilders(this.db, { builderId, activeOnly: !builderId }), user);
-    if (builderId && builders.length === 0) throw new NotFoundException('There is no builder with that builderId.');
+    if (builderId && builders.length === 0) throw new NotFoundException('That builder is not on the team; choose one from the list.');
     const from = this.earliestAllowedDate(facts.state, shop);
     const suggestions: BenchSuggestion[] = [];
     const ineligible: BenchSuggestResponse['ineligible'] = [];
@@ -319,7 +319,7 @@ export class BenchService {
     const moving = ['scheduled', 'pedals_received'].includes(facts.state);
     const shop = await this.shopCalendar();
     const builders = this.orderMeFirst(await this.bench.listBuilders(this.db, { builderId: query.builderId, activeOnly: !query.builderId }), user);
-    if (query.builderId && builders.length === 0) throw new NotFoundException('There is no builder with that builderId.');
+    if (query.builderId && builders.length === 0) throw new NotFoundException('That builder is not on the team; choose one from the list.');
     const minDate = this.earliestAllowedDate(facts.state, shop);
     const options: BenchPreviewOption[] = [];
     for (const b of builders) {

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { BadRequestException, ConflictException, Injectable, NotFoundException, PayloadTooLargeException } from '@nestjs/common';
 import type { AuthUser, PhotoView } from '@loomwright/shared';
-import { errorResponse, staffRoles } from '@loomwright/shared';
+import { errorResponse, staffRoles, requestWords } from '@loomwright/shared';
 import { fileTypeFromBuffer } from 'file-type';
 import { Database } from '../database/database';
 import { photoView } from './booking-view';
@@ -36,13 +36,13 @@ export class BookingPhotosService {
     options: { caption?: string; kind?: 'intake' | 'build' },
   ): Promise<PhotoView> {
     const booking = await this.bookings.findVisible(user, bookingId);
-    if (!file || file.size === 0) throw new BadRequestException('file: attach an image in the multipart field "file".');
+    if (!file || file.size === 0) throw new BadRequestException('Attach a photo: the upload holds no file (send it in the multipart field "file").');
     if (file.size > MAX_PHOTO_BYTES) throw new PayloadTooLargeException(errorResponse('photo_too_large', photoTooLargeMessage));
     const type = await fileTypeFromBuffer(file.buffer);
     const ext = type && allowedImages[type.mime];
     if (!type || !ext) {
       throw new BadRequestException(
-        `file: this is ${type ? `a ${type.mime} file` : 'not a recognisable image'}; upload a JPEG, PNG or WebP photo.`,
+        requestWords.notAPhoto(type?.mime),
       );
     }
     const processed = await this.reencode(file.buffer, type.mime as PhotoFormat);

@@ -11,15 +11,14 @@ import {
   type CancellationPreview,
   type PriceConsentInput,
   type RescheduleInput,
-  type RescheduleResponse,
-} from '@loomwright/shared';
+  type RescheduleResponse, requestWords } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { BenchChangesService } from './bench-changes.service';
 
-const bookingId = uuidParam('The booking id in the address must be a UUID.');
+const bookingId = uuidParam(requestWords.notAnId('a booking'));
 
 /** When plans change after acceptance: move, reassign, cancel, and the player's answer to a new price. */
 @ApiTags('builds')

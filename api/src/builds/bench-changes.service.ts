@@ -73,14 +73,14 @@ export class BenchChangesService {
     if (input.reprice && user.role !== 'owner') throw new ForbiddenException('Only the owner can re-price a firm quote at another builder’s rate.');
     const facts = await this.bench.planningFacts(trx, bookingId);
     const builder = await this.bench.lockBuilder(trx, input.builderId);
-    if (!builder) throw new NotFoundException('There is no builder with that builderId.');
+    if (!builder) throw new NotFoundException('That builder is not on the team; choose one from the list.');
     assertTakesBuilds(builder);
     const reassigned = builder.id !== booking.builder_id;
     const belowLevel = reassigned ? assertLevelRule(user, builder, facts, input.levelOverrideReason) : false;
     if (!reassigned && input.levelOverrideReason) {
-      throw new BadRequestException('levelOverrideReason is only for handing the build to a builder below the level the player chose.');
+      throw new BadRequestException('A reason for a builder below the level is only for handing the build to a builder below the level the player chose.');
     }
-    if (input.reprice && !reassigned) throw new BadRequestException('reprice is only for a move to another builder; the firm quote already uses this builder’s rate.');
+    if (input.reprice && !reassigned) throw new BadRequestException('Re-pricing is only for a move to another builder; the firm quote already uses this builder’s rate.');
 
     const shop = await this.bench.shopCalendar(trx);
     const plan = await this.bench.planFor(trx, builder, facts.laborHours, shop, { benchDate: input.benchDate }, bookingId);

@@ -87,8 +87,8 @@ export class BuildRecordsService {
         if (dto.builderId && dto.builderId !== own.id) throw new ForbiddenException('A builder records their own hours; the owner may record anyone’s.');
         builderId = own.id;
       }
-      if (!builderId) throw new BadRequestException('builderId is required: say whose hours these are.');
-      if (!(await this.builds.builderRef(trx, builderId))) throw new NotFoundException('There is no builder with that builderId.');
+      if (!builderId) throw new BadRequestException('Builder is required: say whose hours these are.');
+      if (!(await this.builds.builderRef(trx, builderId))) throw new NotFoundException('That builder is not on the team; choose one from the list.');
       await this.notInFuture(trx, dto.workedOn);
       const hours = new Decimal(dto.hours).toFixed(2);
       const note = dto.note?.trim() ?? '';
@@ -139,7 +139,7 @@ export class BuildRecordsService {
 
   private async notInFuture(trx: Executor, day: string) {
     const { today } = await this.bench.shopCalendar(trx);
-    if (day > today) throw new BadRequestException(`workedOn ${day} is in the future; record hours once they are spent.`);
+    if (day > today) throw new BadRequestException(`The day worked, ${day}, is in the future; record hours once they are spent.`);
   }
 
   async timeEntries(bookingId: string): Promise<TimeEntriesResponse> {
@@ -178,7 +178,7 @@ export class BuildRecordsService {
       const corrected: string[] = [];
       for (const [index, input] of dto.items.entries()) {
         const place = placed[index];
-        if (seen.has(place.key)) throw new BadRequestException(`items.${index}.item: "${input.item.trim()}" is listed twice; record each item once.`);
+        if (seen.has(place.key)) throw new BadRequestException(`Item ${index + 1}: "${input.item.trim()}" is listed twice; record each item once.`);
         seen.add(place.key);
         const note = input.note?.trim() ?? '';
         const row = existing.get(place.key);

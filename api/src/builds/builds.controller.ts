@@ -36,8 +36,7 @@ import {
   type StaffNoteInput,
   type TimeEntriesResponse,
   type TimeEntryInput,
-  type WaiveBalanceInput,
-} from '@loomwright/shared';
+  type WaiveBalanceInput, requestWords } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody } from '../common/zod-openapi';
@@ -46,9 +45,9 @@ import { ApprovalsService } from './approvals.service';
 import { BuildRecordsService } from './build-records.service';
 import { BuildsService } from './builds.service';
 
-const bookingId = uuidParam('The booking id in the address must be a UUID.');
-const uuid = (name: string, what: string) =>
-  uuidParam(`The ${name} in the address must be ${what} (a UUID).`);
+const bookingId = uuidParam(requestWords.notAnId('a booking'));
+const uuid = (_name: string, what: string) =>
+  uuidParam(requestWords.notAnId(what));
 
 /** A build's life on the bench, from acceptance to delivery. */
 @ApiTags('builds')

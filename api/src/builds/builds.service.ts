@@ -54,9 +54,9 @@ export function assertLevelRule(
     if (user.role !== 'owner') {
       throw new ForbiddenException(`${why[0].toUpperCase()}${why.slice(1)}; only the owner can assign them, with a reason.`);
     }
-    if (!reason?.trim()) throw new BadRequestException(`levelOverrideReason is required: ${why}.`);
+    if (!reason?.trim()) throw new BadRequestException(`A reason for a builder below the level is required: ${why}.`);
   } else if (reason) {
-    throw new BadRequestException(`levelOverrideReason is only for a builder below the level the player chose; ${builder.name} meets it.`);
+    throw new BadRequestException(`A reason for a builder below the level is only for a builder below the level the player chose; ${builder.name} meets it.`);
   }
   return below;
 }
@@ -94,7 +94,7 @@ export class BuildsService {
     }
     const facts = await this.bench.planningFacts(trx, bookingId);
     const builder = await this.bench.lockBuilder(trx, dto.builderId);
-    if (!builder) throw new NotFoundException('There is no builder with that builderId.');
+    if (!builder) throw new NotFoundException('That builder is not on the team; choose one from the list.');
     assertTakesBuilds(builder);
     const belowLevel = assertLevelRule(user, builder, facts, dto.levelOverrideReason);
 

@@ -13,7 +13,7 @@ import { errorBody } from './error-body';
 const databaseInputWords: Record<string, string> = {
   '22021': 'The text contains a character that cannot be stored (a NUL byte); remove it and send again.',
   '22P05': 'The text contains a character that cannot be stored; remove it and send again.',
-  '22P02': 'A value is not written the way it should be (for example an id that is not a UUID).',
+  '22P02': 'A value is not written the way it should be (for example an id that does not name a record).',
   '22003': 'A number in the request is too large.',
   '22007': 'A date or time in the request is not valid.',
   '22008': 'A date or time in the request is out of range.',

@@ -1,3 +1,4 @@
+import { requestWords } from '@loomwright/shared';
 import type { INestApplication } from '@nestjs/common';
 import { json, type NextFunction, type Request, type Response } from 'express';
 import { sendError } from './error-body';
@@ -33,7 +34,7 @@ export function applyBodyParsing(app: INestApplication): void {
     if (error?.type === 'entity.parse.failed') {
       // The parser is strict: valid JSON that is a bare string, number or null is refused too.
       if (isBareJsonValue(error.body)) {
-        sendError(req, res, 400, 'body_not_object', 'The request body must be a JSON object, like {"name": "value"}, not a bare string, number or null.');
+        sendError(req, res, 400, 'body_not_object', requestWords.bodyNotAnObject);
       } else {
         sendError(req, res, 400, 'invalid_json', 'The request body is not valid JSON; check its quotes, commas and brackets, and send it again.');
       }

@@ -9,8 +9,12 @@ export function requestIdOf(req: Request | undefined): string | undefined {
 
 const isErrorCode = (value: unknown): value is ErrorCode => typeof value === 'string' && Object.hasOwn(ERROR_CODES, value);
 
+type FieldIssue = { path: string; message: string };
+const isIssue = (value: unknown): value is FieldIssue =>
+  !!value && typeof value === 'object' && typeof (value as FieldIssue).path === 'string' && typeof (value as FieldIssue).message === 'string';
+
 /**
- * The one error body of the API, `{ statusCode, code, message, details?, requestId? }`, from what
+ * The one error body of the API, `{ statusCode, code, message, details?, issues?, requestId? }`, from what
  * an HTTP exception carries: a string, a list of field messages (validation), or `{ code, message }`
  * (see `errorResponse` in `@loomwright/shared`). A code that is not in ERROR_CODES is replaced by
  * the status's own, so nothing unlisted ever leaves the server.
@@ -18,15 +22,17 @@ const isErrorCode = (value: unknown): value is ErrorCode => typeof value === 'st
 export function errorBody(status: number, response: unknown, req?: Request): ApiErrorBody {
   let code: ErrorCode = defaultErrorCode(status);
   let raw: unknown = response;
+  let issues: FieldIssue[] | undefined;
   if (response && typeof response === 'object' && !Array.isArray(response)) {
-    const given = response as { code?: unknown; message?: unknown };
+    const given = response as { code?: unknown; message?: unknown; issues?: unknown };
     if (isErrorCode(given.code)) code = given.code;
     raw = given.message;
+    if (Array.isArray(given.issues)) issues = given.issues.filter(isIssue);
   }
   const lines = Array.isArray(raw) ? raw.map(String) : [];
   const message = typeof raw === 'string' && raw ? raw : lines.length > 0 ? lines.join('; ') : fallbackWords(status);
   const requestId = requestIdOf(req);
-  return { statusCode: status, code, message, ...(lines.length > 0 && { details: lines }), ...(requestId && { requestId }) };
+  return { statusCode: status, code, message, ...(lines.length > 0 && { details: lines }), ...(issues?.length && { issues }), ...(requestId && { requestId }) };
 }
 
 function fallbackWords(status: number): string {

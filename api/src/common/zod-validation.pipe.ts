@@ -1,12 +1,13 @@
 import { ArgumentMetadata, BadRequestException, Injectable, PipeTransform } from '@nestjs/common';
-import { describeIssues, errorResponse } from '@loomwright/shared';
+import { describeIssues, errorResponse, issuePath } from '@loomwright/shared';
 import type { ZodType } from 'zod';
 
 /**
  * The one way a request body or query is checked: by its zod schema from `@loomwright/shared`,
  * the same schema the apps' forms use, so both refuse the same input in the same words. Answers
- * 400 `validation_failed` with one line per field in `details`, each naming its path (`message`
- * joins them). The parsed value (trimmed, defaults filled in, unknown fields refused) is what
+ * 400 `validation_failed` with one line per problem in `details`, in plain words a person reads
+ * (`message` joins them), and beside them `issues`: each problem with its field's path
+ * ("pedals[3].currentMa") for a program that places a message under its field. The parsed value (trimmed, defaults filled in, unknown fields refused) is what
  * the controller receives.
  */
 @Injectable()
@@ -18,6 +19,8 @@ export class ZodValidationPipe<T> implements PipeTransform<unknown, T> {
     const input = value === undefined && metadata?.type !== 'param' ? {} : value;
     const result = this.schema.safeParse(input);
     if (result.success) return result.data;
-    throw new BadRequestException({ ...errorResponse('validation_failed', ''), message: describeIssues(result.error) });
+    const lines = describeIssues(result.error);
+    const issues = result.error.issues.map((issue, i) => ({ path: issuePath(issue.path), message: lines[i] }));
+    throw new BadRequestException({ ...errorResponse('validation_failed', ''), message: lines, issues });
   }
 }

@@ -1,7 +1,7 @@
 import { Controller, Get, Param, Query } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import { listCustomersQuerySchema, type AuthUser, type CustomerDetail, type CustomerPage, type ListCustomersQuery } from '@loomwright/shared';
+import { listCustomersQuerySchema, type AuthUser, type CustomerDetail, type CustomerPage, type ListCustomersQuery, requestWords } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { CustomersService } from './customers.service';
@@ -26,7 +26,7 @@ export class CustomersController {
   @ApiOkResponse({
     description: 'One customer with their builds, payments and the messages sent to them. A builder sees the e-mail, phone and addresses only of customers with a build assigned to them.',
   })
-  detail(@CurrentUser() user: AuthUser, @Param('id', uuidParam('The customer id in the address must be a UUID.')) id: string): Promise<CustomerDetail> {
+  detail(@CurrentUser() user: AuthUser, @Param('id', uuidParam(requestWords.notAnId('a customer'))) id: string): Promise<CustomerDetail> {
     return this.customers.detail(user, id);
   }
 }

@@ -2,7 +2,7 @@ import { Body, Controller, HttpCode, Param, Post, Req, Res, UseGuards } from '@n
 import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
-import { acceptInvitationSchema, inviteStaffSchema, type AcceptInvitationInput, type AuthUser, type InvitationResent, type InviteStaffInput } from '@loomwright/shared';
+import { acceptInvitationSchema, inviteStaffSchema, type AcceptInvitationInput, type AuthUser, type InvitationResent, type InviteStaffInput, requestWords } from '@loomwright/shared';
 import type { Request, Response } from 'express';
 import { AuthService } from '../auth/auth.service';
 import { CurrentUser } from '../auth/current-user.decorator';
@@ -36,7 +36,7 @@ export class InvitationsController {
     description: 'A fresh invitation link is mailed to a builder who has not joined yet; the link sent before stops working. 409 in words once they have joined.',
   })
   resend(
-    @Param('builderId', uuidParam('The builder id in the address must be a UUID.')) builderId: string,
+    @Param('builderId', uuidParam(requestWords.notAnId('a builder'))) builderId: string,
     @CurrentUser() owner: AuthUser,
   ): Promise<InvitationResent> {
     return this.invitations.resend(builderId, owner);

@@ -8,8 +8,7 @@ import {
   type ListMailQuery,
   type MailLogEntry,
   type MailLogPage,
-  type ResendMailInput,
-} from '@loomwright/shared';
+  type ResendMailInput, requestWords } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodQuery } from '../common/zod-openapi';
@@ -35,7 +34,7 @@ export class MailController {
   @ApiZodBody(resendMailSchema.unwrap(), 'Optional; confirmPossibleDuplicate: true is required to resend a message whose outcome is unknown.')
   @ApiCreatedResponse({ description: 'The new message; a single-use link in it is a fresh one. 409 in words when the outcome of the original is unknown and not confirmed.' })
   resend(
-    @Param('id', uuidParam('The message id must be a UUID, as listed in the mail log.')) id: string,
+    @Param('id', uuidParam(requestWords.notAnId('a message in the mail log'))) id: string,
     @Body(new ZodValidationPipe(resendMailSchema)) body: ResendMailInput,
   ): Promise<MailLogEntry> {
     return this.mail.resend(id, body ?? {});

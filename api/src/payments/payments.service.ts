@@ -379,7 +379,7 @@ export class PaymentsService {
       if (money.settled) throw new ConflictException(`Nothing is due on ${booking.reference}; the balance is already paid or waived.`);
       if (money.balanceDue !== formatMoney(input.amount, money.currency)) {
         throw new BadRequestException(
-          `amount: the balance due on ${booking.reference} is ${money.balanceDue} ${money.currency}; record the whole amount, or the owner waives what is left.`,
+          `The amount must be the whole balance: the balance due on ${booking.reference} is ${money.balanceDue} ${money.currency}; record the whole amount, or the owner waives what is left.`,
         );
       }
       for (const p of await this.payments.listForBooking(trx, bookingId, 'balance')) {

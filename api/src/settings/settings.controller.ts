@@ -8,8 +8,7 @@ import {
   type CreateClosureInput,
   type ShopClosureView,
   type ShopSettingsView,
-  type UpdateSettingsInput,
-} from '@loomwright/shared';
+  type UpdateSettingsInput, requestWords } from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
@@ -51,7 +50,7 @@ export class SettingsController {
   @Delete('closures/:id')
   @HttpCode(204)
   @Roles('owner')
-  deleteClosure(@Param('id', uuidParam('The closure id in the address must be a UUID.')) id: string) {
+  deleteClosure(@Param('id', uuidParam(requestWords.notAnId('a closure'))) id: string) {
     return this.settings.deleteClosure(id);
   }
 }

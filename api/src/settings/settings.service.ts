@@ -37,7 +37,7 @@ export class SettingsService {
 
   async update(dto: UpdateSettingsInput): Promise<ShopSettingsView> {
     if (dto.countryCode && !isKnownCountry(dto.countryCode)) {
-      throw new BadRequestException(`countryCode ${dto.countryCode.toUpperCase()} has no public-holiday data; use a two-letter ISO 3166-1 code like US or GB.`);
+      throw new BadRequestException(`The country ${dto.countryCode.toUpperCase()} has no public-holiday data here; use a two-letter country code like US or GB.`);
     }
     const values = {
       ...(dto.name !== undefined && { name: dto.name }),

@@ -9,15 +9,14 @@ import {
   type AuthUser,
   type BuilderAbsenceView,
   type TeamMember,
-  type UpdateTeamMemberInput,
-} from '@loomwright/shared';
+  type UpdateTeamMemberInput, requestWords } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ApiZodBody } from '../common/zod-openapi';
 import { TeamService } from './team.service';
 
-const builderIdPipe = uuidParam('The builder id in the address must be a UUID.');
+const builderIdPipe = uuidParam(requestWords.notAnId('a builder'));
 
 @ApiTags('team')
 @ApiCookieAuth('lw_session')
@@ -56,7 +55,7 @@ export class TeamController {
   @HttpCode(204)
   @Roles('owner')
   deleteAbsence(
-    @Param('absenceId', uuidParam('The absence id in the address must be a UUID.')) id: string,
+    @Param('absenceId', uuidParam(requestWords.notAnId('an absence'))) id: string,
   ): Promise<void> {
     return this.team.deleteAbsence(id);
   }
@@ -66,7 +65,7 @@ export class TeamController {
   @ApiZodBody(updateTeamMemberSchema)
   update(
     @CurrentUser() user: AuthUser,
-    @Param('builderId', uuidParam('The builder id in the address must be a UUID.'))
+    @Param('builderId', uuidParam(requestWords.notAnId('a builder')))
     builderId: string,
     @Body(new ZodValidationPipe(updateTeamMemberSchema)) body: UpdateTeamMemberInput,
   ): Promise<TeamMember> {

@@ -219,7 +219,7 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
     warnings.push(smallest ? `The smallest surface that holds them in rows is the ${smallest.name}.` : 'No surface in the price book holds them in rows; ask about a custom surface.');
   }
   if (devices.some((d) => d.footprintFromMemory)) {
-    warnings.push('Some footprints are typical sizes (from memory); give each pedal its own size for a firm fit check.');
+    warnings.push(TYPICAL_FOOTPRINTS_WARNING);
   }
   const fillRatio = Math.round((requiredAreaMm2 / usableAreaMm2) * 1000) / 1000;
   return {
@@ -243,3 +243,6 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
     warnings,
   };
 }
+
+/** Said when some pedals have no size of their own (the typical sizes are from memory, see typical-hardware.ts). */
+export const TYPICAL_FOOTPRINTS_WARNING = 'Some footprints are typical sizes; give each pedal its own size for a firm fit check.';

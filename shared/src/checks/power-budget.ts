@@ -20,9 +20,14 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
   const powered = chain.devices.filter((d) => d.powered);
   const warnings: string[] = [];
   const unknown = powered.filter((d) => d.drawFromMemory);
-  if (unknown.length > 0) {
+  // The typical figures are from memory (see typical-hardware.ts); the words say "typical" only.
+  if (unknown.length > 0 && chain.fromCount) {
     warnings.push(
-      `Current draw unknown for ${unknown.map((d) => d.name).join(', ')}: planned at a typical figure (from memory); enter the figure from the label or manual on the Pedals step${chain.switcherId && unknown.some((d) => d.id === chain.switcherId) ? ' (the switcher on the Routing step)' : ''}.`,
+      `Power is planned at a typical draw for each of the ${unknown.length} pedals counted; list your pedals on the Pedals step with the figures from their labels or manuals for a firm plan.`,
+    );
+  } else if (unknown.length > 0) {
+    warnings.push(
+      `Current draw unknown for ${unknown.map((d) => d.name).join(', ')}: planned at a typical figure; enter the figure from the label or manual on the Pedals step${chain.switcherId && unknown.some((d) => d.id === chain.switcherId) ? ' (the switcher on the Routing step)' : ''}.`,
     );
   }
   const totalDrawMa = powered.reduce((s, d) => s + d.budgetMa, 0);

@@ -66,7 +66,7 @@ export function signalChainOf(config: RigConfiguration): SignalChain {
       devices.push(device);
       main.push(device.id);
     });
-    return numbered({ routing: 'serial', devices, main, loops, switcherId: null });
+    return numbered({ routing: 'serial', devices, main, loops, switcherId: null, fromCount: !config.pedals?.length });
   }
 
   const listedSwitcher = pedals.findIndex((p) => kindOf(p) === 'switcher');
@@ -99,7 +99,7 @@ export function signalChainOf(config: RigConfiguration): SignalChain {
     main.push(device.id);
   });
   placeSwitcher();
-  return numbered({ routing: 'switcher', devices, main, loops, switcherId: switcher.id });
+  return numbered({ routing: 'switcher', devices, main, loops, switcherId: switcher.id, fromCount: !config.pedals?.length });
 }
 
 /** Device ids in the order the signal meets them: the main chain, each loop right after the switcher. */

@@ -43,6 +43,8 @@ export interface SignalChain {
   loops: Array<{ loop: number; deviceId: string }>;
   /** The switcher's id on a switcher board. */
   switcherId: string | null;
+  /** The player gave a quick count, not a list: the pedals have no names or figures of their own. */
+  fromCount?: boolean;
 }
 
 export interface PatchCable {

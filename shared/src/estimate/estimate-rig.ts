@@ -1,5 +1,5 @@
 import Decimal from 'decimal.js';
-import { boardFitOf } from '../checks/board-fit';
+import { boardFitOf, TYPICAL_FOOTPRINTS_WARNING } from '../checks/board-fit';
 import { cableScheduleOf } from '../checks/cable-schedule';
 import { complexityOf } from '../checks/complexity';
 import { powerBudgetOf } from '../checks/power-budget';
@@ -8,6 +8,7 @@ import { signalChainOf } from '../checks/signal-chain';
 import type { RigChecks, SignalChain } from '../checks/types';
 import { levelRank } from '../domain';
 import type { FunctionItem, PriceBook } from '../price-book/types';
+import { rigWords as w } from '../words';
 import { EstimateInputError } from './errors';
 import { minorUnitDigits, roundToMinorUnit } from './money';
 import type { EstimateLine, EstimateResult, RigConfiguration } from './types';
@@ -32,21 +33,21 @@ const count = (n: number) => String(n);
 
 /** Looks every id of the configuration up in the book; a miss is the player's to fix, by field. */
 function resolve(config: RigConfiguration, book: PriceBook) {
-  if (minorUnitDigits(book.currency) === undefined) throw new EstimateInputError('currency', `${book.currency} is not an ISO 4217 currency`);
+  if (minorUnitDigits(book.currency) === undefined) throw new EstimateInputError('currency', w.unknownCurrency(book.currency));
   const surface = book.surfaces.find((s) => s.id === config.surfaceId);
-  if (!surface) throw new EstimateInputError('surfaceId', `no surface ${config.surfaceId} in the price book; choose one of ${book.surfaces.map((s) => s.id).join(', ')}`);
+  if (!surface) throw new EstimateInputError('surfaceId', w.unknownSurface(config.surfaceId));
   const rigCase = book.cases.find((c) => c.id === config.caseId);
-  if (!rigCase) throw new EstimateInputError('caseId', `no case ${config.caseId} in the price book; choose one of ${book.cases.map((c) => c.id).join(', ')}`);
+  if (!rigCase) throw new EstimateInputError('caseId', w.unknownCase(config.caseId));
   if (rigCase.fitsSurfaceIds.length > 0 && !rigCase.fitsSurfaceIds.includes(surface.id)) {
-    throw new EstimateInputError('caseId', `the ${rigCase.name} does not fit the ${surface.name}`);
+    throw new EstimateInputError('caseId', w.caseDoesNotFit(rigCase.name, surface.name));
   }
   const functions: FunctionItem[] = config.functions.map((code, i) => {
     const fn = book.functions.find((f) => f.code === code);
-    if (!fn) throw new EstimateInputError(`functions[${i}]`, `no function ${code} in the price book; choose from ${book.functions.map((f) => f.code).join(', ')}`);
+    if (!fn) throw new EstimateInputError(`functions[${i}]`, w.unknownExtra(code));
     return fn;
   });
   const level = book.levels.find((l) => l.code === config.level);
-  if (!level) throw new EstimateInputError('level', `no ${config.level} rates in the price book`);
+  if (!level) throw new EstimateInputError('level', w.noRates(config.level));
   return { surface, rigCase, functions, level };
 }
 
@@ -216,7 +217,8 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
     rate: { low: rateLowText, high: rateHighText },
     minimumLevel: complexity.minimumLevel,
     minimumLevelReasons: complexity.reasons,
-    notes: notesFor(config, checks, rigCase, book),
+    notes: notesFor(config, checks, rigCase, book, 'player'),
+    staffNotes: notesFor(config, checks, rigCase, book, 'staff'),
     checks,
   };
 }
@@ -231,7 +233,16 @@ export function depositFor(totalHigh: Decimal.Value, totalLow: Decimal.Value, bo
   return roundToMinorUnit(Decimal.min(floor, totalLow), currency);
 }
 
-function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBook['cases'][number], book: PriceBook): string[] {
+/** Who reads a note: the player (configurator, quote, build page) or the shop (backoffice, build sheet). */
+export type NoteReader = 'player' | 'staff';
+
+/**
+ * The notes under an estimate, written for their reader: the player reads "your supply" and what
+ * to do on which step; the shop reads the same facts as the bench would say them. Both carry the
+ * usual safety cautions, deferring to local codes and licensed practice.
+ */
+function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBook['cases'][number], book: PriceBook, reader: NoteReader): string[] {
+  const forPlayer = reader === 'player';
   const notes: string[] = [];
   if (rigCase.notRecommended) {
     notes.push(rigCase.caution ?? `A ${rigCase.name} is not recommended for a loaded board: it does not protect the pedals and jacks in transit.`);
@@ -239,20 +250,41 @@ function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBoo
   const { complexity, powerBudget, boardFit } = checks;
   if (levelRank(config.level) < levelRank(complexity.minimumLevel)) {
     const level = book.levels.find((l) => l.code === complexity.minimumLevel);
+    const name = level?.name ?? complexity.minimumLevel;
     notes.push(
-      `This rig calls for at least a ${level?.name ?? complexity.minimumLevel} builder (${complexity.reasons.join('; ')}); the shop will assign one, at that level's rate.`,
+      forPlayer
+        ? `This rig calls for at least a ${name} builder (${complexity.reasons.join('; ')}); the shop will assign one, at that level's rate.`
+        : `This rig calls for at least a ${name} builder (${complexity.reasons.join('; ')}); it is priced at that level's rate.`,
     );
   }
-  notes.push(...powerBudget.warnings);
+  const unknownDraw = checks.signalChain.devices.filter((d) => d.powered && d.drawFromMemory);
+  for (const warning of powerBudget.warnings) {
+    const aboutUnknownDraw = unknownDraw.length > 0 && (warning.startsWith('Current draw unknown') || warning.startsWith('Power is planned at a typical draw'));
+    if (aboutUnknownDraw && !forPlayer) {
+      notes.push(
+        checks.signalChain.fromCount
+          ? `The player gave a count of ${unknownDraw.length} pedals, no list: power is planned at typical draws; check each pedal's label at intake.`
+          : `No current draw given for ${unknownDraw.map((d) => d.name).join(', ')}: planned at a typical figure; check the label at intake.`,
+      );
+    } else notes.push(warning);
+  }
   notes.push(...powerBudget.fixes.map((f) => `To power every pedal: ${f.charAt(0).toLowerCase()}${f.slice(1)}`));
-  if (boardFit.status !== 'ok') notes.push(...boardFit.warnings.filter((w) => !w.includes('from memory')));
+  if (boardFit.status !== 'ok') notes.push(...boardFit.warnings.filter((w) => w !== TYPICAL_FOOTPRINTS_WARNING));
   if (checks.signalChain.loops.length > 12) {
-    notes.push(`${checks.signalChain.loops.length} loops is more than most switchers have (8 to 12); check yours.`);
+    notes.push(`${checks.signalChain.loops.length} loops is more than most switchers have (8 to 12); ${forPlayer ? 'check yours' : 'check the player’s switcher'}.`);
   }
   if (checks.signalChain.devices.some((d) => d.powered)) {
-    notes.push('Your supply plugs into the mains: any mains wiring or power inlet is work for a qualified person under local electrical codes.');
+    notes.push(
+      forPlayer
+        ? 'Your supply plugs into the mains: any mains wiring or power inlet is work for a qualified person under local electrical codes.'
+        : 'Mains: the supply plugs into the mains. Any mains wiring, power inlet or mains lead is work only for a qualified person under local electrical codes; never open a mains-powered supply.',
+    );
   }
-  if (rigCase.kind === 'road_case') notes.push('A loaded road case is heavy: lift it with two people.');
-  notes.push('Pedals, power supply and switcher are yours to supply; they are not in this estimate.');
+  if (rigCase.kind === 'road_case') notes.push(forPlayer ? 'A loaded road case is heavy: lift it with two people.' : 'A loaded road case is heavy: lift it with two people, and give the carrier its weight.');
+  notes.push(
+    forPlayer
+      ? 'Pedals, power supply and switcher are yours to supply; they are not in this estimate.'
+      : 'Pedals, power supply and switcher come from the player; they are not in this estimate.',
+  );
   return notes;
 }

@@ -9,7 +9,7 @@ import { parseRigConfiguration, pedalKinds } from './schema';
 const base = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'switcher' }, functions: [], level: 'journeyman' };
 
 describe('rigConfigurationSchema', () => {
-  it('names the field of every problem', () => {
+  it('names the field of every problem in words, and the pedal by its place in the list', () => {
     const result = parseRigConfiguration({
       ...base,
       pedals: [
@@ -22,19 +22,19 @@ describe('rigConfigurationSchema', () => {
     if (result.success) return;
     expect(result.messages).toEqual(
       expect.arrayContaining([
-        'pedals[0].currentMa: Current draw must be a number from 0 to 5000 mA',
-        'pedals[1].name: Pedal name is required',
-        'pedals[1].powered: Powered must be true or false',
-        'level: Builder level must be one of apprentice, journeyman, master',
+        'Pedal 1: Current draw must be a number from 0 to 5000 mA',
+        'Pedal 2: Pedal name is required',
+        'Pedal 2: Powered must be yes or no (true or false)',
+        'Choose a builder level: apprentice, journeyman or master',
       ]),
     );
   });
 
   it('refuses a loop pedal on a serial board and a quick count on a switcher board', () => {
     const serial = parseRigConfiguration({ ...base, routing: { mode: 'serial' }, pedals: [{ name: 'chorus', powered: true, inLoop: true }] });
-    expect(serial.success === false && serial.messages).toEqual(['pedals[0].inLoop: chorus is in a loop, but a serial board has no switcher loops']);
+    expect(serial.success === false && serial.messages).toEqual(['Pedal 1: chorus is in a loop, but a board in series has no switcher loops']);
     const counted = parseRigConfiguration({ ...base, pedalCount: 8 });
-    expect(counted.success === false && counted.messages[0]).toMatch(/^pedalCount: /);
+    expect(counted.success === false && counted.messages[0]).toBe('A switcher board needs the pedal list, to know which pedals go in loops');
   });
 
   it('accepts the demo book as a whole price book', () => {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { builderLevels } from '../domain';
+import { label, rigWords as w, rules } from '../words';
 import type { PedalKind, RigConfiguration } from './types';
 
 /** A board past this many pedals is not a pedalboard any shop quotes blind (common practice). */
@@ -13,64 +14,70 @@ export const pedalKinds = [
 
 const text = (label: string, max: number) =>
   z
-    .string({ error: `${label} must be text` })
+    .string({ error: rules.text(label) })
     .trim()
-    .min(1, { error: `${label} is required` })
-    .max(max, { error: `${label} must be at most ${max} characters` });
+    .min(1, { error: rules.required(label) })
+    .max(max, { error: rules.tooLong(label, max) });
 
 const numberIn = (label: string, min: number, max: number, unit = '', whole = false) => {
-  const words = `${label} must be ${whole ? 'a whole number' : 'a number'} from ${min} to ${max}${unit ? ` ${unit}` : ''}`;
+  const words = rules.numberFromTo(label, min, max, unit, whole);
   const base = z.number({ error: words });
   return (whole ? base.int({ error: words }) : base).min(min, { error: words }).max(max, { error: words });
 };
 
-const flag = (label: string) => z.boolean({ error: `${label} must be true or false` });
+/** Outputs are numbered from 1 for people (the API counts from 0). */
+const outputNumber = (label: string) => {
+  const words = `${label} must be one of the supply’s outputs, numbered 1 to ${MAX_SUPPLY_OUTPUTS}`;
+  return z.number({ error: words }).int({ error: words }).min(0, { error: words }).max(MAX_SUPPLY_OUTPUTS - 1, { error: words });
+};
+
+const flag = (label: string) => z.boolean({ error: rules.yesNo(label) });
 
 export const pedalInputSchema = z.object(
   {
-    name: text('Pedal name', 80),
-    kind: z.enum(pedalKinds, { error: `Pedal kind must be one of ${pedalKinds.join(', ')}` }).optional(),
-    powered: flag('Powered'),
-    inLoop: flag('In a switcher loop'),
-    currentMa: numberIn('Current draw', 0, 5000, 'mA').optional(),
-    voltage: numberIn('Voltage', 1, 48, 'V').optional(),
-    polarity: z.enum(['center_negative', 'center_positive'], { error: 'Polarity must be center_negative or center_positive' }).optional(),
-    supply: z.enum(['dc', 'ac'], { error: 'Supply must be dc or ac' }).optional(),
-    widthMm: numberIn('Width', 10, 1500, 'mm').optional(),
-    depthMm: numberIn('Depth', 10, 1500, 'mm').optional(),
-    digital: flag('Digital').optional(),
-    powerOutput: numberIn('Power output', 0, MAX_SUPPLY_OUTPUTS - 1, '', true).optional(),
+    name: text(w.pedalName, 80),
+    kind: z.enum(pedalKinds, { error: w.pedalKind(pedalKinds) }).optional(),
+    powered: flag(w.powered),
+    inLoop: flag(w.inLoop),
+    currentMa: numberIn(w.currentDraw, 0, 5000, 'mA').optional(),
+    voltage: numberIn(w.voltage, 1, 48, 'V').optional(),
+    polarity: z.enum(['center_negative', 'center_positive'], { error: w.polarity }).optional(),
+    supply: z.enum(['dc', 'ac'], { error: w.supply }).optional(),
+    widthMm: numberIn(w.width, 10, 1500, 'mm').optional(),
+    depthMm: numberIn(w.depth, 10, 1500, 'mm').optional(),
+    digital: flag(w.digital).optional(),
+    powerOutput: outputNumber(w.powerOutput).optional(),
   },
-  { error: 'Each pedal must be an object with a name' },
+  { error: w.pedalNotAnObject },
 );
 
-const polaritySchema = z.enum(['center_negative', 'center_positive'], { error: 'Polarity must be center_negative or center_positive' });
+const polaritySchema = z.enum(['center_negative', 'center_positive'], { error: w.polarity });
 
 /** The player's own loop switcher, when it is not listed among the pedals (Routing step). */
 export const switcherInputSchema = z.object(
   {
-    name: text('Switcher name', 80).optional(),
-    currentMa: numberIn('Switcher current draw', 0, 5000, 'mA').optional(),
-    voltage: numberIn('Switcher voltage', 1, 48, 'V').optional(),
+    name: text(w.switcherName, 80).optional(),
+    currentMa: numberIn(w.switcherCurrentDraw, 0, 5000, 'mA').optional(),
+    voltage: numberIn(w.switcherVoltage, 1, 48, 'V').optional(),
     polarity: polaritySchema.optional(),
-    supply: z.enum(['dc', 'ac'], { error: 'Switcher supply must be dc or ac' }).optional(),
-    widthMm: numberIn('Switcher width', 10, 1500, 'mm').optional(),
-    depthMm: numberIn('Switcher depth', 10, 1500, 'mm').optional(),
-    powerOutput: numberIn('Switcher power output', 0, MAX_SUPPLY_OUTPUTS - 1, '', true).optional(),
+    supply: z.enum(['dc', 'ac'], { error: w.switcherSupply }).optional(),
+    widthMm: numberIn(w.switcherWidth, 10, 1500, 'mm').optional(),
+    depthMm: numberIn(w.switcherDepth, 10, 1500, 'mm').optional(),
+    powerOutput: outputNumber(w.switcherPowerOutput).optional(),
   },
-  { error: 'The switcher must be an object such as { "currentMa": 300 }' },
+  { error: w.switcherNotAnObject },
 );
 
 export const powerOutputSchema = z.object(
   {
-    label: text('Output label', 40).optional(),
-    voltage: numberIn('Output voltage', 1, 48, 'V'),
-    currentMa: numberIn('Output current rating', 1, 10000, 'mA'),
-    isolated: flag('Isolated'),
-    supply: z.enum(['dc', 'ac'], { error: 'Output supply must be dc or ac' }).optional(),
-    polarity: z.enum(['center_negative', 'center_positive'], { error: 'Output polarity must be center_negative or center_positive' }).optional(),
+    label: text(w.outputLabel, 40).optional(),
+    voltage: numberIn(w.outputVoltage, 1, 48, 'V'),
+    currentMa: numberIn(w.outputCurrent, 1, 10000, 'mA'),
+    isolated: flag(w.isolated),
+    supply: z.enum(['dc', 'ac'], { error: w.outputSupply }).optional(),
+    polarity: z.enum(['center_negative', 'center_positive'], { error: w.outputPolarity }).optional(),
   },
-  { error: 'Each supply output must be an object with voltage, currentMa and isolated' },
+  { error: w.outputNotAnObject },
 );
 
 /**
@@ -81,85 +88,85 @@ export const powerOutputSchema = z.object(
 export const rigConfigurationSchema = z
   .object(
     {
-      surfaceId: text('Surface (surfaceId)', 80),
-      caseId: text('Case (caseId)', 80),
+      surfaceId: text(w.surface, 80),
+      caseId: text(w.case, 80),
       routing: z.object(
         {
-          mode: z.enum(['serial', 'switcher'], { error: 'Routing mode must be serial or switcher' }),
+          mode: z.enum(['serial', 'switcher'], { error: w.routingMode }),
           switcher: switcherInputSchema.optional(),
         },
-        { error: 'Routing must be an object such as { "mode": "serial" }' },
+        { error: w.routingNotAnObject },
       ),
       pedals: z
-        .array(pedalInputSchema, { error: 'Pedals must be a list' })
-        .min(1, { error: 'List at least one pedal' })
-        .max(MAX_PEDALS, { error: `A board takes at most ${MAX_PEDALS} pedals here; ask the shop about anything larger` })
+        .array(pedalInputSchema, { error: w.pedalsList })
+        .min(1, { error: w.atLeastOnePedal })
+        .max(MAX_PEDALS, { error: w.tooManyPedals(MAX_PEDALS) })
         .optional(),
-      pedalCount: numberIn('Pedal count', 1, MAX_PEDALS, '', true).optional(),
+      pedalCount: numberIn(w.pedalCount, 1, MAX_PEDALS, '', true).optional(),
       functions: z
-        .array(text('Function code', 40), { error: 'Functions must be a list of function codes' })
-        .max(MAX_FUNCTIONS, { error: `At most ${MAX_FUNCTIONS} functions` })
+        .array(text(w.extra, 40), { error: w.extrasList })
+        .max(MAX_FUNCTIONS, { error: w.tooManyExtras(MAX_FUNCTIONS) })
         .default([]),
-      level: z.enum(builderLevels, { error: `Builder level must be one of ${builderLevels.join(', ')}` }),
+      level: z.enum(builderLevels, { error: w.builderLevel }),
       powerSupply: z
         .object(
           {
             outputs: z
-              .array(powerOutputSchema, { error: 'Supply outputs must be a list' })
-              .max(MAX_SUPPLY_OUTPUTS, { error: `A supply lists at most ${MAX_SUPPLY_OUTPUTS} outputs` }),
+              .array(powerOutputSchema, { error: w.outputsList })
+              .max(MAX_SUPPLY_OUTPUTS, { error: w.tooManyOutputs(MAX_SUPPLY_OUTPUTS) }),
           },
-          { error: 'Power supply must be an object such as { "outputs": [...] }' },
+          { error: w.powerSupplyNotAnObject },
         )
         .optional(),
     },
-    { error: 'The configuration must be a JSON object' },
+    { error: w.configurationNotAnObject },
   )
   .superRefine((config, ctx) => {
     if (config.pedals === undefined && config.pedalCount === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['pedals'], message: 'List the pedals, or give a pedal count' });
+      ctx.addIssue({ code: 'custom', path: ['pedals'], message: w.pedalsOrCount });
     }
     if (config.pedals !== undefined && config.pedalCount !== undefined) {
-      ctx.addIssue({ code: 'custom', path: ['pedalCount'], message: 'Give either the pedal list or a pedal count, not both' });
+      ctx.addIssue({ code: 'custom', path: ['pedalCount'], message: w.notBoth });
     }
     if (config.pedalCount !== undefined && config.routing.mode === 'switcher') {
-      ctx.addIssue({ code: 'custom', path: ['pedalCount'], message: 'A switcher board needs the pedal list, to know which pedals go in loops' });
+      ctx.addIssue({ code: 'custom', path: ['pedalCount'], message: w.switcherNeedsList });
     }
     const seen = new Set<string>();
     config.functions.forEach((code, i) => {
-      if (seen.has(code)) ctx.addIssue({ code: 'custom', path: ['functions', i], message: `Function ${code} is listed twice` });
+      if (seen.has(code)) ctx.addIssue({ code: 'custom', path: ['functions', i], message: w.extraTwice(code) });
       seen.add(code);
     });
     const outputs = config.powerSupply?.outputs.length ?? 0;
     const ownSwitcher = config.routing.switcher;
     if (ownSwitcher && config.routing.mode === 'serial') {
-      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher'], message: 'A serial board has no switcher; choose switcher routing or leave the switcher out' });
+      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher'], message: w.serialHasNoSwitcher });
     }
     if (ownSwitcher?.powerOutput !== undefined && ownSwitcher.powerOutput >= outputs) {
-      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher', 'powerOutput'], message: `Power output ${ownSwitcher.powerOutput} is not one of the supply's ${outputs} outputs (numbered from 0)` });
+      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher', 'powerOutput'], message: w.noSuchOutput(ownSwitcher.powerOutput, outputs) });
     }
     if (ownSwitcher && (ownSwitcher.widthMm === undefined) !== (ownSwitcher.depthMm === undefined)) {
-      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher', ownSwitcher.widthMm === undefined ? 'widthMm' : 'depthMm'], message: 'Give both width and depth, or neither' });
+      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher', ownSwitcher.widthMm === undefined ? 'widthMm' : 'depthMm'], message: w.bothOrNeither });
     }
     let switchers = 0;
     config.pedals?.forEach((pedal, i) => {
       if (pedal.inLoop && config.routing.mode === 'serial') {
-        ctx.addIssue({ code: 'custom', path: ['pedals', i, 'inLoop'], message: `${pedal.name} is in a loop, but a serial board has no switcher loops` });
+        ctx.addIssue({ code: 'custom', path: ['pedals', i, 'inLoop'], message: w.loopOnSerial(pedal.name) });
       }
       if (pedal.kind === 'switcher') {
         switchers += 1;
         if (config.routing.mode === 'serial') {
-          ctx.addIssue({ code: 'custom', path: ['pedals', i, 'kind'], message: 'A loop switcher needs switcher routing' });
+          ctx.addIssue({ code: 'custom', path: ['pedals', i, 'kind'], message: w.switcherNeedsRouting });
         } else if (pedal.inLoop) {
-          ctx.addIssue({ code: 'custom', path: ['pedals', i, 'inLoop'], message: 'The switcher cannot sit in its own loop' });
+          ctx.addIssue({ code: 'custom', path: ['pedals', i, 'inLoop'], message: w.switcherInOwnLoop });
         } else if (switchers > 1) {
-          ctx.addIssue({ code: 'custom', path: ['pedals', i, 'kind'], message: 'One loop switcher per board' });
+          ctx.addIssue({ code: 'custom', path: ['pedals', i, 'kind'], message: w.oneSwitcher });
         }
       }
       if ((pedal.widthMm === undefined) !== (pedal.depthMm === undefined)) {
-        ctx.addIssue({ code: 'custom', path: ['pedals', i, pedal.widthMm === undefined ? 'widthMm' : 'depthMm'], message: 'Give both width and depth, or neither' });
+        ctx.addIssue({ code: 'custom', path: ['pedals', i, pedal.widthMm === undefined ? 'widthMm' : 'depthMm'], message: w.bothOrNeither });
       }
       if (pedal.powerOutput !== undefined && pedal.powerOutput >= outputs) {
-        ctx.addIssue({ code: 'custom', path: ['pedals', i, 'powerOutput'], message: `Power output ${pedal.powerOutput} is not one of the supply's ${outputs} outputs (numbered from 0)` });
+        ctx.addIssue({ code: 'custom', path: ['pedals', i, 'powerOutput'], message: w.noSuchOutput(pedal.powerOutput, outputs) });
       }
     });
   });
@@ -171,12 +178,34 @@ export function issuePath(path: ReadonlyArray<PropertyKey>): string {
   return path.reduce<string>((out, key) => (typeof key === 'number' ? `${out}[${key}]` : out ? `${out}.${String(key)}` : String(key)), '');
 }
 
-/** One line per problem, each naming its field: what the API answers with a 400. */
+/** Where in a list a problem sits, in words: "Pedal 4", "Supply output 2", "Item 1". */
+export function issuePlace(path: ReadonlyArray<PropertyKey>): string {
+  const places: string[] = [];
+  path.forEach((key, i) => {
+    if (typeof key !== 'number') return;
+    const list = path[i - 1];
+    places.push(
+      list === 'pedals'
+        ? w.wherePedal(key)
+        : list === 'outputs'
+          ? w.whereOutput(key)
+          : list === 'functions'
+            ? w.whereExtra(key)
+            : `${typeof list === 'string' ? label(list).replace(/s$/, '') : 'Entry'} ${key + 1}`,
+    );
+  });
+  return places.join(', ');
+}
+
+/**
+ * One line per problem, in words a person reads: each message already names its field by its
+ * label; a problem inside a list says where ("Pedal 4: Current draw must be …"). The field's
+ * path for programs stays on the issue (`issuePath`), never in the words.
+ */
 export function describeIssues(error: z.ZodError): string[] {
   return error.issues.map((issue) => {
-    const path = issuePath(issue.path);
-    // A message that already opens with its field ("hours must be more than 0") is not prefixed again.
-    return path && !issue.message.startsWith(path) ? `${path}: ${issue.message}` : issue.message;
+    const place = issuePlace(issue.path);
+    return place && !issue.message.startsWith(place) ? `${place}: ${issue.message}` : issue.message;
   });
 }
 

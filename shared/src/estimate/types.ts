@@ -101,7 +101,10 @@ export interface EstimateResult {
   rate: { low: string; high: string };
   minimumLevel: BuilderLevel;
   minimumLevelReasons: string[];
+  /** Written for the player ("your supply…"): the configurator, the quote and the build page. */
   notes: string[];
+  /** The same facts written for the shop (backoffice, build sheet); absent on estimates saved before it existed. */
+  staffNotes?: string[];
   /** Engineering checks (power budget, board fit, cable schedule, complexity); shapes in ../checks/types. */
   checks?: RigChecks;
 }

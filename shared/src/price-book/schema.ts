@@ -36,8 +36,8 @@ export const priceBookSchema = z
   .object(
     {
       currency: z
-        .string({ error: 'Currency must be an ISO 4217 code such as USD' })
-        .refine(isKnownCurrency, { error: 'Currency must be an ISO 4217 code such as USD' }),
+        .string({ error: 'Currency must be a three-letter currency code, like USD' })
+        .refine(isKnownCurrency, { error: 'Currency must be a three-letter currency code, like USD' }),
       surfaces: z
         .array(
           z.object({
@@ -47,15 +47,15 @@ export const priceBookSchema = z
             widthMm: wholeIn('Surface usable width (mm)', 100, 3000),
             depthMm: wholeIn('Surface usable depth (mm)', 100, 2000),
             price: decimalText('Surface price', 100000),
-            custom: z.boolean({ error: 'Surface custom must be true or false' }),
+            custom: z.boolean({ error: 'Surface “made to order” must be yes or no (true or false)' }),
             layout: z
               .object(
                 {
                   rows: wholeIn('Surface rows (tiers)', 1, 6),
-                  tiered: z.boolean({ error: 'Surface tiered must be true or false' }),
+                  tiered: z.boolean({ error: 'Surface “tiered” must be yes or no (true or false)' }),
                   switcherRow: z.enum(['front', 'back'], { error: 'Surface switcher row must be front or back' }),
                 },
-                { error: 'Surface layout must be an object { rows, tiered, switcherRow }' },
+                { error: 'Surface layout must give its rows, whether it is tiered and the switcher’s row' },
               )
               .optional(),
           }),
@@ -69,12 +69,12 @@ export const priceBookSchema = z
           z.object({
             id: id('Case id'),
             name: words('Case name', 80),
-            kind: z.enum(['hard_case', 'road_case', 'soft_bag'], { error: 'Case kind must be hard_case, road_case or soft_bag' }),
+            kind: z.enum(['hard_case', 'road_case', 'soft_bag'], { error: 'Case kind must be a hard case, a road case or a soft bag' }),
             description: words('Case description', 400, 0),
             price: decimalText('Case price', 100000),
-            notRecommended: z.boolean({ error: 'Case notRecommended must be true or false' }),
+            notRecommended: z.boolean({ error: 'Case “not recommended” must be yes or no (true or false)' }),
             caution: words('Case caution', 400).nullable(),
-            fitsSurfaceIds: z.array(id('Fitting surface id'), { error: 'Case fitsSurfaceIds must be a list' }),
+            fitsSurfaceIds: z.array(id('Fitting surface id'), { error: 'The surfaces a case fits must be a list' }),
           }),
           { error: 'Cases must be a list' },
         )
@@ -147,7 +147,7 @@ export const priceBookSchema = z
             maxDaisyChain: wholeIn('Most pedals on one output (daisy chain)', 1, 10),
             highDrawMa: wholeIn('High-draw mark (mA)', 10, 2000),
           },
-          { error: 'Power rules must be an object { maxDaisyChain, highDrawMa }' },
+          { error: 'Power rules must give the most pedals on one output and the high-draw mark' },
         )
         .optional(),
     },
@@ -157,7 +157,7 @@ export const priceBookSchema = z
     const surfaceIds = new Set(book.surfaces.map((s) => s.id));
     book.cases.forEach((c, i) =>
       c.fitsSurfaceIds.forEach((sid, j) => {
-        if (!surfaceIds.has(sid)) ctx.addIssue({ code: 'custom', path: ['cases', i, 'fitsSurfaceIds', j], message: `Case ${c.name} lists an unknown surface ${sid}` });
+        if (!surfaceIds.has(sid)) ctx.addIssue({ code: 'custom', path: ['cases', i, 'fitsSurfaceIds', j], message: `Case ${c.name} lists a surface the book does not have: "${sid}"` });
       }),
     );
     book.levels.forEach((l, i) => {
@@ -182,5 +182,5 @@ export const publishPriceBookSchema = z.object(
     book: priceBookSchema,
     notes: z.string({ error: 'Notes must be text' }).trim().max(500, { error: 'Notes must be at most 500 characters' }).default(''),
   },
-  { error: 'The body must be a JSON object { "book": …, "notes": … }' },
+  { error: 'The request must be a JSON object holding the price book and a note, like {"book": …, "notes": "…"}' },
 );

@@ -12,3 +12,4 @@ export { useSearchParamsInOrder } from './use-search-params-in-order';
 export { MoneyFactsTable } from './MoneyFactsTable';
 export { ShopVoiceProvider, currentShopVoice, useShopVoice } from './shop-voice';
 export { currentShopFormat, useShopFormat } from './current-shop-format';
+export { documentTitle, useRouteTitle, type RouteTitleHandle } from './use-route-title';

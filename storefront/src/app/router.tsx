@@ -3,6 +3,10 @@ import { queryClient } from 'src/app/query-client';
 import { AppLayout } from 'src/components/AppLayout';
 import { RouteError } from 'src/components/RouteError';
 import { catalogQueryOptions } from 'src/features/configurator/api/get-catalog';
+import type { RouteTitleHandle } from '@loomwright/shared/ui';
+
+/** Each route's `handle.title` names its browser tab: "My builds · <shop name>". */
+const titled = (title: string): RouteTitleHandle => ({ title });
 
 // Each screen is its own chunk, so the first load ships only what the first screen needs.
 // A new page also goes into `storefrontPaths` (@loomwright/shared), or the API answers it with 404.
@@ -12,14 +16,15 @@ export const routes: RouteObject[] = [
     element: <AppLayout />,
     errorElement: <RouteError />,
     children: [
-      { index: true, lazy: () => import('src/app/routes/home') },
-      { path: 'sign-in', lazy: () => import('src/app/routes/sign-in') },
-      { path: 'sign-up', lazy: () => import('src/app/routes/sign-up') },
-      { path: 'forgot-password', lazy: () => import('src/app/routes/forgot-password') },
-      { path: 'reset-password', lazy: () => import('src/app/routes/reset-password') },
-      { path: 'account', lazy: () => import('src/app/routes/account') },
+      { index: true, handle: titled('Pedalboards wired by hand'), lazy: () => import('src/app/routes/home') },
+      { path: 'sign-in', handle: titled('Sign in'), lazy: () => import('src/app/routes/sign-in') },
+      { path: 'sign-up', handle: titled('Create your account'), lazy: () => import('src/app/routes/sign-up') },
+      { path: 'forgot-password', handle: titled('Forgot your password?'), lazy: () => import('src/app/routes/forgot-password') },
+      { path: 'reset-password', handle: titled('Choose a new password'), lazy: () => import('src/app/routes/reset-password') },
+      { path: 'account', handle: titled('My account'), lazy: () => import('src/app/routes/account') },
       {
         path: 'configure',
+        handle: titled('Configure your board'),
         // A static loader runs beside lazy(): the price book is on its way while the screen's code loads.
         loader: () => {
           void queryClient.prefetchQuery(catalogQueryOptions());
@@ -27,14 +32,14 @@ export const routes: RouteObject[] = [
         },
         lazy: () => import('src/app/routes/configure'),
       },
-      { path: 'request', lazy: () => import('src/app/routes/request') },
-      { path: 'configurations', lazy: () => import('src/app/routes/configurations') },
+      { path: 'request', handle: titled('Request this build'), lazy: () => import('src/app/routes/request') },
+      { path: 'configurations', handle: titled('Saved boards'), lazy: () => import('src/app/routes/configurations') },
       // A short link to a configuration (POST /api/configuration-links); ?c= links keep working.
-      { path: 'c/:code', lazy: () => import('src/app/routes/short-link') },
-      { path: 'checkout/return', lazy: () => import('src/app/routes/checkout-return') },
-      { path: 'builds', lazy: () => import('src/app/routes/builds') },
-      { path: 'builds/:id', lazy: () => import('src/app/routes/build-detail') },
-      { path: '*', lazy: () => import('src/app/routes/not-found') },
+      { path: 'c/:code', handle: titled('Configure your board'), lazy: () => import('src/app/routes/short-link') },
+      { path: 'checkout/return', handle: titled('Your payment'), lazy: () => import('src/app/routes/checkout-return') },
+      { path: 'builds', handle: titled('My builds'), lazy: () => import('src/app/routes/builds') },
+      { path: 'builds/:id', handle: titled('Your build'), lazy: () => import('src/app/routes/build-detail') },
+      { path: '*', handle: titled('Page not found'), lazy: () => import('src/app/routes/not-found') },
     ],
   },
 ];

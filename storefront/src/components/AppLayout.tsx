@@ -3,6 +3,7 @@ import Link from '@mui/joy/Link';
 import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import { Suspense } from 'react';
+import { useRouteTitle } from '@loomwright/shared/ui';
 import { Link as RouterLink, Outlet } from 'react-router';
 import { AccountNav } from 'src/features/auth/components/AccountNav';
 import { useHealth } from 'src/features/shop/api/get-health';
@@ -12,6 +13,7 @@ import { PageLoading } from 'src/components/PageLoading';
 export function AppLayout() {
   const shop = useShop();
   const health = useHealth();
+  useRouteTitle(shop.data?.name);
   return (
     <Box sx={{ minHeight: '100dvh', display: 'flex', flexDirection: 'column' }}>
       <Box component="a" href="#main" sx={{ position: 'absolute', left: -9999, '&:focus': { left: 16, top: 16, zIndex: 10 } }}>

@@ -51,8 +51,8 @@ describe('sign-in page', () => {
   it('refuses empty fields in the shared words and sends nothing', async () => {
     const fetchMock = renderAt('/sign-in', () => json(200, { user: null }));
     fireEvent.click(await screen.findByRole('button', { name: 'Sign in' }));
-    expect(await screen.findByText('email must be an e-mail address, like name@example.com')).toBeTruthy();
-    expect(screen.getByText('password must not be empty')).toBeTruthy();
+    expect(await screen.findByText('Enter an e-mail address, like name@example.com')).toBeTruthy();
+    expect(screen.getByText('Enter your password')).toBeTruthy();
     expect(signInCalls(fetchMock)).toHaveLength(0);
   });
 

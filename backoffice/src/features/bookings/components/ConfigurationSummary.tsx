@@ -21,6 +21,8 @@ export function ConfigurationSummary({ booking }: { booking: BookingDetail }) {
   const config = booking.configuration;
   const estimate = booking.quote.estimate;
   const pedals = config.pedals ?? [];
+  // The notes written for the shop; an estimate saved before they existed has only the player's.
+  const shopNotes = estimate.staffNotes ?? estimate.notes;
   return (
     <Stack gap={1}>
       <Typography level="body-sm">{booking.summary}</Typography>
@@ -69,9 +71,9 @@ export function ConfigurationSummary({ booking }: { booking: BookingDetail }) {
       ) : (
         <Typography level="body-sm">{config.pedalCount ?? 0} plain powered pedals in series (no pedal list given).</Typography>
       )}
-      {estimate.notes.length > 0 && (
+      {shopNotes.length > 0 && (
         <Stack component="ul" sx={{ m: 0, pl: 2.5 }}>
-          {estimate.notes.map((note) => (
+          {shopNotes.map((note) => (
             <Typography key={note} component="li" level="body-xs">
               {note}
             </Typography>

@@ -34,8 +34,8 @@ describe('Invite a builder', () => {
     const fetchMock = renderForm(() => json(500, {}));
     fireEvent.change(screen.getByLabelText('Hourly rate'), { target: { value: '0' } });
     fireEvent.click(screen.getByRole('button', { name: 'Send invitation' }));
-    expect(await screen.findByText('name must not be empty')).toBeTruthy();
-    expect(screen.getByText('hourlyRate must be an amount above 0 with at most two decimals, like 85.00')).toBeTruthy();
+    expect(await screen.findByText('Enter a name')).toBeTruthy();
+    expect(screen.getByText('Hourly rate must be an amount above 0 with at most two decimals, like 85.00')).toBeTruthy();
     expect(fetchMock).not.toHaveBeenCalled();
   });
 

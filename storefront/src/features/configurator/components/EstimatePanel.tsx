@@ -8,6 +8,7 @@ import { useEffect, useState } from 'react';
 import type { Catalog } from '@loomwright/shared';
 import { formatHours, formatMoney, formatMoneyRange, formatRateRange } from 'src/lib/format';
 import { markEstimateShown, type LiveEstimate } from '../hooks/use-live-estimate';
+import { MissingChoices } from './MissingChoices';
 
 /**
  * The live estimate: beside the steps on wide screens, a bottom sheet on phones (one element,
@@ -54,7 +55,7 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
             Estimate
           </Typography>
           <Typography level="h3" component="p" data-testid="estimate-total" sx={{ fontSize: { xs: 'lg', md: 'xl2' } }}>
-            {e ? formatMoneyRange(e.totalLow, e.totalHigh, currency) : '—'}
+            {e ? formatMoneyRange(e.totalLow, e.totalHigh, currency) : live.missing.length ? 'Not priced yet' : '—'}
           </Typography>
         </Box>
         <Button
@@ -100,6 +101,8 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
             <Typography component="dt" level="body-sm">Deposit</Typography>
             <Typography component="dd" level="body-sm" data-testid="estimate-deposit">{formatMoney(e.deposit, currency)}</Typography>
           </Box>
+        ) : live.missing.length ? (
+          <MissingChoices missing={live.missing} size="sm" />
         ) : !live.error ? (
           <Typography level="body-sm">Working out the first figures…</Typography>
         ) : null}

@@ -55,7 +55,7 @@ export function SwitcherPowerFields({
       <Typography component="legend" level="title-lg">Your switcher’s power</Typography>
       <Typography level="body-sm" sx={{ mb: 2, maxWidth: 640 }}>
         A switcher is digital, so it gets a supply output of its own. Its label or manual gives its draw; without it we plan
-        {` ${typicalHardware.switcher.currentMa} mA`} (a typical figure, from memory).
+        {` ${typicalHardware.switcher.currentMa} mA`} (a typical figure).
       </Typography>
       <Box sx={{ display: 'grid', gap: 1.5, gridTemplateColumns: { xs: 'minmax(0, 1fr)', sm: 'repeat(2, minmax(0, 1fr))', md: 'repeat(3, minmax(0, 1fr))' }, maxWidth: 720, '& .MuiSelect-root, & .MuiInput-root': { minWidth: 0 } }}>
         <FormControl error={!!errors.currentMa}>

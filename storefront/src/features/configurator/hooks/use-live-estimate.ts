@@ -1,6 +1,7 @@
 import { useMemo, useRef } from 'react';
 import { decodeConfiguration, type EstimateView, type RigConfiguration } from '@loomwright/shared';
 import { useEstimate } from '../api/create-estimate';
+import { missingChoices } from '../lib/configuration';
 import { useDebouncedValue } from './use-debounced-value';
 
 /** Marks for the latency benchmark: debounce fired → figures on screen. */
@@ -13,6 +14,8 @@ const DEBOUNCE_MS = 250;
 /**
  * Asks POST /api/estimates for the configuration once it has been still for a moment, so typing a
  * pedal name sends one request, not twenty. The previous figures stay until the next arrive.
+ * Nothing is asked until the player has chosen a surface, a case and their pedals: `missing`
+ * says what is still to choose, and no figures are shown for choices they did not make.
  */
 export function useLiveEstimate(encoded: string, view: EstimateView = 'panel') {
   const settled = useDebouncedValue(encoded, DEBOUNCE_MS, () => {
@@ -20,17 +23,23 @@ export function useLiveEstimate(encoded: string, view: EstimateView = 'panel') {
     performance.mark(ESTIMATE_REQUESTED_MARK);
   });
   const configuration = useMemo(() => decodeConfiguration(settled) as RigConfiguration | undefined, [settled]);
-  const query = useEstimate(settled, configuration, view);
-  // A refused or failed request must not blank the figures the player was reading.
+  const ready = configuration !== undefined && missingChoices(configuration).length === 0;
+  const query = useEstimate(settled, ready ? configuration : undefined, view);
+  const missing = useMemo(() => missingChoices(decodeConfiguration(encoded) as RigConfiguration | undefined), [encoded]);
+  // A refused or failed request must not blank the figures the player was reading; a choice
+  // taken back (Start over) does.
   const lastGood = useRef(query.data);
-  if (query.data) lastGood.current = query.data;
+  if (!ready) lastGood.current = undefined;
+  else if (query.data) lastGood.current = query.data;
   return {
-    estimate: query.data ?? lastGood.current,
+    /** What the player has still to choose before there is anything to price. */
+    missing,
+    estimate: ready ? (query.data ?? lastGood.current) : undefined,
     /** The figures shown answer the configuration as it is now. */
-    isCurrent: query.data !== undefined && !query.isPlaceholderData && settled === encoded,
+    isCurrent: ready && query.data !== undefined && !query.isPlaceholderData && settled === encoded,
     /** The figures on screen belong to an earlier configuration than the one being edited. */
-    isUpdating: settled !== encoded || query.isFetching,
-    error: query.error,
+    isUpdating: missing.length === 0 && (settled !== encoded || query.isFetching),
+    error: ready ? query.error : null,
     settled,
   };
 }

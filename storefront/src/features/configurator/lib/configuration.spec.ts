@@ -1,28 +1,25 @@
 import { describe, expect, it } from 'vitest';
 import { decodeConfiguration, demoPriceBook, encodeConfiguration, type Catalog } from '@loomwright/shared';
-import { completeConfiguration, startingConfiguration } from './configuration';
+import { completeConfiguration, missingChoices, startingConfiguration } from './configuration';
 
 const catalog: Catalog = { ...demoPriceBook, priceBookVersion: 1, publishedAt: '2026-12-01T00:00:00Z' };
 
 describe('the configuration a URL or a stored draft holds', () => {
-  it('starts from a common rig: a 610 mm prefab board, a hard case, six serial pedals', () => {
-    expect(startingConfiguration(catalog)).toEqual({
-      surfaceId: 'slate-61',
-      caseId: 'shell-hard',
-      routing: { mode: 'serial' },
-      pedalCount: 6,
-      functions: [],
-      level: 'apprentice',
-    });
+  it('starts with nothing chosen: no surface, case or pedals the player did not pick', () => {
+    const start = startingConfiguration(catalog);
+    expect(start).toEqual({ surfaceId: '', caseId: '', routing: { mode: 'serial' }, functions: [], level: 'apprentice' });
+    expect(missingChoices(start)).toEqual(['surface', 'case', 'pedals']);
+    expect(missingChoices({ ...start, surfaceId: 'slate-61', caseId: 'shell-hard', pedalCount: 4 })).toEqual([]);
+    expect(missingChoices({ ...start, surfaceId: 'slate-61', routing: { mode: 'switcher' }, pedals: [] })).toEqual(['case', 'pedals']);
   });
 
-  it('keeps what still exists in the price book and replaces what does not', () => {
+  it('keeps what still exists in the price book and leaves the rest to choose again', () => {
     const restored = completeConfiguration(
       { surfaceId: 'gone-board', caseId: 'tour-road', routing: { mode: 'serial' }, pedalCount: 9, functions: ['four_cable', 'retired'], level: 'master' },
       catalog,
     );
     expect(restored).toEqual({
-      surfaceId: 'slate-61',
+      surfaceId: '',
       caseId: 'tour-road',
       routing: { mode: 'serial' },
       pedalCount: 9,

@@ -1,25 +1,29 @@
 import { builderLevels, levelRank, type BuilderLevel, type Catalog, type RigConfiguration } from '@loomwright/shared';
 
-/** A common starting rig, so the estimate has figures from the first screen on. */
-export function startingConfiguration(catalog: Catalog): RigConfiguration {
-  const surfaces = [...catalog.surfaces].sort((a, b) => a.widthMm * a.depthMm - b.widthMm * b.depthMm);
-  const surface = surfaces.find((s) => !s.custom && s.widthMm >= 600) ?? surfaces[0];
-  const kase =
-    catalog.cases.find((c) => !c.notRecommended && (c.fitsSurfaceIds.length === 0 || c.fitsSurfaceIds.includes(surface?.id ?? ''))) ??
-    catalog.cases[0];
-  return {
-    surfaceId: surface?.id ?? '',
-    caseId: kase?.id ?? '',
-    routing: { mode: 'serial' },
-    pedalCount: 6,
-    functions: [],
-    level: 'apprentice',
-  };
+/**
+ * Where every configuration starts: nothing chosen yet. The player's own first choice (a surface)
+ * starts the estimate; no surface, case or pedals are chosen for them, so nothing is priced that
+ * they did not pick. The level starts at the first rung; the rig may raise it.
+ */
+export function startingConfiguration(_catalog?: Catalog): RigConfiguration {
+  return { surfaceId: '', caseId: '', routing: { mode: 'serial' }, functions: [], level: 'apprentice' };
+}
+
+/** What the estimate still needs from the player, in step order. */
+export type MissingChoice = 'surface' | 'case' | 'pedals';
+
+export function missingChoices(c: Partial<RigConfiguration> | undefined): MissingChoice[] {
+  const missing: MissingChoice[] = [];
+  if (!c?.surfaceId) missing.push('surface');
+  if (!c?.caseId) missing.push('case');
+  if (!(c?.pedals?.length || c?.pedalCount)) missing.push('pedals');
+  return missing;
 }
 
 /**
  * Reads whatever a URL or a stored draft held and keeps only what still makes sense against
- * today's catalog; the rest falls back to the starting rig. The API validates in full.
+ * today's catalog; a surface or case the shop no longer offers is left to choose again. The API
+ * validates in full.
  */
 export function completeConfiguration(partial: Partial<RigConfiguration> | undefined, catalog: Catalog): RigConfiguration {
   const start = startingConfiguration(catalog);
@@ -33,7 +37,7 @@ export function completeConfiguration(partial: Partial<RigConfiguration> | undef
   const switcher = mode === 'switcher' && partial.routing?.switcher && typeof partial.routing.switcher === 'object' ? partial.routing.switcher : undefined;
   const configuration: RigConfiguration = { surfaceId, caseId, routing: switcher ? { mode, switcher } : { mode }, functions, level };
   if (Array.isArray(partial.pedals)) configuration.pedals = partial.pedals;
-  else configuration.pedalCount = typeof partial.pedalCount === 'number' ? partial.pedalCount : start.pedalCount;
+  else if (typeof partial.pedalCount === 'number') configuration.pedalCount = partial.pedalCount;
   if (mode === 'switcher' && !configuration.pedals) {
     configuration.pedals = pedalsFromCount(configuration.pedalCount ?? 0);
     delete configuration.pedalCount;

@@ -1,31 +1,39 @@
 import { z } from 'zod';
-import { MAX_PEDALS, MAX_SUPPLY_OUTPUTS, pedalInputSchema, powerOutputSchema } from '@loomwright/shared';
+import { MAX_PEDALS, MAX_SUPPLY_OUTPUTS, pedalInputSchema, powerOutputSchema, rigWords } from '@loomwright/shared';
 import type { PedalInput, PowerOutputInput, RigConfiguration } from '@loomwright/shared';
 
 /**
  * The Pedals step's form, built from the same zod pieces the API validates with, so the player
  * sees the API's own words next to the field.
  */
+const countWords = rigWords.pedalCountRange(MAX_PEDALS);
+
 export const pedalFormSchema = z
   .object({
     mode: z.enum(['count', 'list']),
-    pedalCount: z.number({ error: `Pedal count must be a whole number from 1 to ${MAX_PEDALS}` })
-      .int({ error: `Pedal count must be a whole number from 1 to ${MAX_PEDALS}` })
-      .min(1, { error: `Pedal count must be a whole number from 1 to ${MAX_PEDALS}` })
-      .max(MAX_PEDALS, { error: `Pedal count must be a whole number from 1 to ${MAX_PEDALS}` }),
-    pedals: z.array(pedalInputSchema).max(MAX_PEDALS, { error: `A board takes at most ${MAX_PEDALS} pedals here; ask the shop about anything larger` }),
-    outputs: z.array(powerOutputSchema).max(MAX_SUPPLY_OUTPUTS, { error: `A supply lists at most ${MAX_SUPPLY_OUTPUTS} outputs` }),
+    // Blank until the player says how many: nothing is priced that they did not enter.
+    pedalCount: z
+      .number({ error: countWords })
+      .int({ error: countWords })
+      .min(1, { error: countWords })
+      .max(MAX_PEDALS, { error: countWords })
+      .optional(),
+    pedals: z.array(pedalInputSchema).max(MAX_PEDALS, { error: rigWords.tooManyPedals(MAX_PEDALS) }),
+    outputs: z.array(powerOutputSchema).max(MAX_SUPPLY_OUTPUTS, { error: rigWords.tooManyOutputs(MAX_SUPPLY_OUTPUTS) }),
   })
   .superRefine((form, ctx) => {
+    if (form.mode === 'count' && form.pedalCount === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['pedalCount'], message: 'Say how many pedals go on the board, or list them one by one' });
+    }
     if (form.mode === 'list' && form.pedals.length === 0) {
-      ctx.addIssue({ code: 'custom', path: ['pedals'], message: 'List at least one pedal, or switch to a quick count' });
+      ctx.addIssue({ code: 'custom', path: ['pedals'], message: rigWords.listOrCount });
     }
     form.pedals.forEach((pedal, i) => {
       if ((pedal.widthMm === undefined) !== (pedal.depthMm === undefined)) {
         ctx.addIssue({
           code: 'custom',
           path: ['pedals', i, pedal.widthMm === undefined ? 'widthMm' : 'depthMm'],
-          message: 'Give both width and depth, or neither',
+          message: rigWords.bothOrNeither,
         });
       }
     });
@@ -36,7 +44,7 @@ export type PedalForm = z.infer<typeof pedalFormSchema>;
 export function formFromConfiguration(c: RigConfiguration): PedalForm {
   return {
     mode: c.pedals ? 'list' : 'count',
-    pedalCount: c.pedalCount ?? c.pedals?.length ?? 6,
+    pedalCount: c.pedalCount ?? (c.pedals?.length || undefined),
     pedals: c.pedals ?? [],
     outputs: c.powerSupply?.outputs ?? [],
   };

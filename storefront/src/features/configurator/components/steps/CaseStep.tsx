@@ -16,7 +16,8 @@ const kindWords: Record<CaseKind, string> = {
 export default function CaseStep({ catalog, configuration, update }: StepProps) {
   const surface = catalog.surfaces.find((s) => s.id === configuration.surfaceId);
   const chosen = catalog.cases.find((c) => c.id === configuration.caseId);
-  const fits = (fitsSurfaceIds: string[]) => fitsSurfaceIds.length === 0 || fitsSurfaceIds.includes(configuration.surfaceId);
+  // Before a surface is chosen every case is open; the fit is checked once there is a surface.
+  const fits = (fitsSurfaceIds: string[]) => !configuration.surfaceId || fitsSurfaceIds.length === 0 || fitsSurfaceIds.includes(configuration.surfaceId);
   return (
     <>
       <StepHeading title="Choose how it travels">

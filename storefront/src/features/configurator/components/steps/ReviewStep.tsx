@@ -12,12 +12,13 @@ import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/format';
 import { useDownloadQuote } from '../../api/download-quote';
 import { BoardFitView } from '../BoardFitView';
 import { CableList } from '../CableList';
+import { MissingChoices } from '../MissingChoices';
 import { PowerBudgetView } from '../PowerBudgetView';
 import { PowerCautions } from '../PowerCautions';
 import { StepHeading } from '../StepHeading';
 import type { StepProps } from './step-props';
 
-export default function ReviewStep({ catalog, configuration, live, keep }: StepProps) {
+export default function ReviewStep({ catalog, configuration, live, keep, goToStep }: StepProps) {
   const navigate = useNavigate();
   const quote = useDownloadQuote();
   const e = live.estimate;
@@ -32,7 +33,9 @@ export default function ReviewStep({ catalog, configuration, live, keep }: StepP
         Everything the estimate is made of, line by line. It is a range because the rate depends on the builder who
         takes it; the shop confirms a firm price when it accepts.
       </StepHeading>
-      {!e ? (
+      {live.missing.length ? (
+        <MissingChoices missing={live.missing} goToStep={goToStep} />
+      ) : !e ? (
         <Typography>{live.error ? `The estimate could not be made: ${live.error.message}` : 'Working out the estimate…'}</Typography>
       ) : (
         <Box sx={{ display: 'grid', gap: 4, gridTemplateColumns: 'minmax(0, 1fr)' }} aria-busy={live.isUpdating}>

@@ -78,7 +78,16 @@ export default function RoutingStep({ configuration, update, goToStep, live }: S
               />
             ))}
           </Box>
-          {pedals.every((p) => p.name.startsWith('Pedal ')) ? (
+          {pedals.length === 0 ? (
+            <Alert variant="soft" color="neutral" startDecorator={<InfoIcon />} sx={{ mt: 2, alignItems: 'flex-start' }}>
+              <div>
+                No pedals yet: list them first, then choose which sit in loops.{' '}
+                <Button size="sm" variant="plain" onClick={() => goToStep('pedals')} sx={{ p: 0, minHeight: 0, verticalAlign: 'baseline' }}>
+                  Add your pedals on the Pedals step
+                </Button>
+              </div>
+            </Alert>
+          ) : pedals.every((p) => p.name.startsWith('Pedal ')) ? (
             <Alert variant="soft" color="neutral" startDecorator={<InfoIcon />} sx={{ mt: 2, alignItems: 'flex-start' }}>
               <div>
                 We turned your pedal count into a list so you can choose loops.{' '}

@@ -1,0 +1,106 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
+import { expect, test } from './csp';
+
+/**
+ * Pages as a player and the shop meet them: every browser tab names its page and the shop (the
+ * shop's name from its own settings, GET /api/shop), and My builds on a phone 390 px wide shows
+ * each build as a card with nothing past the edge. 390 CSS px is the viewport width of a common
+ * current phone (common practice, no published source).
+ */
+
+const docsDir = path.resolve(__dirname, '../../docs/screenshots');
+const PHONE = { width: 390, height: 844 };
+
+async function shopName(request: APIRequestContext): Promise<string> {
+  const shop = await (await request.get('/api/shop')).json();
+  expect(shop.name).toBeTruthy();
+  return shop.name as string;
+}
+
+async function playerSignIn(page: Page, next: string) {
+  await page.goto(`/sign-in?next=${encodeURIComponent(next)}`);
+  await page.getByLabel('E-mail').fill('player@mail.example');
+  await page.getByLabel('Password').fill('demo-pass-2026');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(new RegExp(`${next.replace(/\//g, '\\/')}$`), { timeout: 30_000 });
+}
+
+/** Saved as a test artifact; with UPDATE_DOCS_SCREENSHOTS=1 also for the README. */
+async function shoot(page: Page, testInfo: TestInfo, name: string) {
+  await page.waitForTimeout(200);
+  await page.screenshot({ path: testInfo.outputPath(`${name}.png`), fullPage: true });
+  if (process.env.UPDATE_DOCS_SCREENSHOTS === '1') {
+    mkdirSync(docsDir, { recursive: true });
+    await page.screenshot({ path: path.join(docsDir, `${name}.png`) });
+  }
+}
+
+const overflow = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+
+test('every page names itself and the shop in the browser tab', async ({ page, request }) => {
+  test.setTimeout(120_000);
+  const shop = await shopName(request);
+  const storefront: Array<[string, string]> = [
+    ['/', `Pedalboards wired by hand · ${shop}`],
+    ['/configure', `Configure your board · ${shop}`],
+    ['/sign-in', `Sign in · ${shop}`],
+    ['/sign-up', `Create your account · ${shop}`],
+    ['/no-such-page', `Page not found · ${shop}`],
+  ];
+  for (const [url, title] of storefront) {
+    await page.goto(url);
+    await expect(page, url).toHaveTitle(title);
+  }
+  await playerSignIn(page, '/builds');
+  await expect(page).toHaveTitle(`My builds · ${shop}`);
+  await page.getByRole('link', { name: /^LW-/ }).first().click();
+  await expect(page.getByRole('heading', { level: 1, name: /^Build LW-/ })).toBeVisible();
+  await expect(page).toHaveTitle(`Your build · ${shop}`);
+
+  await page.goto('/backoffice/sign-in');
+  await expect(page).toHaveTitle(`Staff sign in · ${shop} · Backoffice`);
+  await page.getByLabel('E-mail').fill('owner@shop.example');
+  await page.getByLabel('Password').fill('demo-pass-2026');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible({ timeout: 30_000 });
+  for (const [url, title] of [
+    ['/backoffice/requests', 'Requests'],
+    ['/backoffice/bench', 'Bench'],
+    ['/backoffice/builds', 'Builds'],
+    ['/backoffice/settings', 'Settings'],
+  ] as const) {
+    await page.goto(url);
+    await expect(page, url).toHaveTitle(`${title} · ${shop} · Backoffice`);
+  }
+});
+
+test('My builds at 390 px: a card per build, every fact labelled, nothing past the edge', async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  await page.setViewportSize(PHONE);
+  await playerSignIn(page, '/builds');
+  const list = page.getByRole('list', { name: 'My builds' });
+  await expect(list).toBeVisible();
+  await expect(page.getByRole('table')).toHaveCount(0);
+  const cards = list.getByRole('listitem');
+  expect(await cards.count()).toBeGreaterThan(0);
+  for (const card of await cards.all()) {
+    await expect(card.getByRole('link', { name: /^LW-/ })).toBeVisible();
+    for (const label of ['Deposit', 'Bench date', 'Total']) await expect(card.getByText(label, { exact: true })).toBeVisible();
+    const box = await card.boundingBox();
+    expect(box!.x + box!.width, 'the card ends inside the screen').toBeLessThanOrEqual(PHONE.width);
+  }
+  expect(await overflow(page), 'My builds scrolls only up and down').toBeLessThanOrEqual(0);
+  await shoot(page, testInfo, 'storefront-my-builds-phone');
+
+  // The build's own page fits the same phone.
+  await cards.first().getByRole('link', { name: /^LW-/ }).click();
+  await expect(page.getByRole('heading', { level: 1, name: /^Build LW-/ })).toBeVisible();
+  expect(await overflow(page), 'the build page scrolls only up and down').toBeLessThanOrEqual(0);
+
+  // From 600 px up, the same builds are a table with its column headers.
+  await page.setViewportSize({ width: 1024, height: 800 });
+  await page.goto('/builds');
+  await expect(page.getByRole('table', { name: 'My builds' }).getByRole('columnheader')).toHaveText(['Build', 'Board', 'Status', 'Deposit', 'Bench date', 'Total']);
+});
