@@ -293,7 +293,7 @@ describe('who may use the bench, team, settings and customers routes', () => {
     // The locale is a BCP 47 tag (canonical case per BCP 47 §2.1.1: language lower, region upper).
     expect((await agents.owner.patch('/api/settings').send({ locale: 'de-de' }).expect(200)).body.locale).toBe('de-DE');
     expect((await t.http().get('/api/shop').expect(200)).body).toMatchObject({ locale: 'de-DE', timezone: 'Europe/London' });
-    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ locale: 'not a locale' }).expect(400)).body.message)).toMatch(/language and region such as en-US/);
+    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ locale: 'not a locale' }).expect(400)).body.message)).toMatch(/Locale must be a language and region, like en-US/);
     await agents.owner.patch('/api/settings').send({ locale: 'en-US' }).expect(200);
 
     const closure = await agents.owner.post('/api/settings/closures').send({ startsOn: '2030-01-02', endsOn: '2030-01-03', reason: 'Stocktake' }).expect(201);

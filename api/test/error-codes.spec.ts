@@ -45,7 +45,9 @@ describe('error codes', () => {
       expect(body.details?.length).toBeGreaterThan(0);
       expect(body.message).toBe(body.details!.join('; '));
     }
-    expect(signUp.details).toEqual(expect.arrayContaining([expect.stringMatching(/^email/), expect.stringMatching(/^password/)]));
+    expect(signUp.details).toEqual(expect.arrayContaining(['Enter an e-mail address, like name@example.com', 'Choose a password of at least 10 characters']));
+    // Beside the words, each problem's field for programs.
+    expect(signUp.issues?.map((i) => i.path)).toEqual(expect.arrayContaining(['email', 'password']));
   });
 
   it('names who may not do what', async () => {

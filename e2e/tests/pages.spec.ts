@@ -27,6 +27,13 @@ async function playerSignIn(page: Page, next: string) {
   await expect(page).toHaveURL(new RegExp(`${next.replace(/\//g, '\\/')}$`), { timeout: 30_000 });
 }
 
+/** A request of the player's own, made through the API as the Request page makes it, so My builds has a row. */
+async function requestABuild(page: Page) {
+  const configuration = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 7, functions: [], level: 'journeyman' };
+  const res = await page.request.post('/api/bookings', { data: { configuration, notes: 'Phone check' } });
+  expect(res.status()).toBe(201);
+}
+
 /** Saved as a test artifact; with UPDATE_DOCS_SCREENSHOTS=1 also for the README. */
 async function shoot(page: Page, testInfo: TestInfo, name: string) {
   await page.waitForTimeout(200);
@@ -55,10 +62,14 @@ test('every page names itself and the shop in the browser tab', async ({ page, r
   }
   await playerSignIn(page, '/builds');
   await expect(page).toHaveTitle(`My builds · ${shop}`);
+  await requestABuild(page);
+  await page.reload();
   await page.getByRole('link', { name: /^LW-/ }).first().click();
   await expect(page.getByRole('heading', { level: 1, name: /^Build LW-/ })).toBeVisible();
   await expect(page).toHaveTitle(`Your build · ${shop}`);
 
+  // The shop's side, signed in as the owner instead of the player.
+  await page.context().clearCookies();
   await page.goto('/backoffice/sign-in');
   await expect(page).toHaveTitle(`Staff sign in · ${shop} · Backoffice`);
   await page.getByLabel('E-mail').fill('owner@shop.example');
@@ -80,6 +91,8 @@ test('My builds at 390 px: a card per build, every fact labelled, nothing past t
   test.setTimeout(120_000);
   await page.setViewportSize(PHONE);
   await playerSignIn(page, '/builds');
+  await requestABuild(page);
+  await page.reload();
   const list = page.getByRole('list', { name: 'My builds' });
   await expect(list).toBeVisible();
   await expect(page.getByRole('table')).toHaveCount(0);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { calendarDay, requestObject } from './request-fields';
+import { rules } from './words';
 
 /**
  * The shop office's queries: exports and reports take a range of the shop's calendar days,
@@ -12,12 +13,12 @@ export const MAX_RANGE_DAYS = 3660;
 const dayNumber = (day: string) => Date.parse(`${day}T00:00:00Z`) / 86_400_000;
 
 export const dateRangeQuerySchema = requestObject({
-  from: calendarDay('from'),
-  to: calendarDay('to'),
+  from: calendarDay('First day'),
+  to: calendarDay('Last day'),
 })
-  .refine((q) => q.from <= q.to, { error: 'from must be on or before to', path: ['to'] })
+  .refine((q) => q.from <= q.to, { error: rules.dayOrder('Last day', 'First day'), path: ['to'] })
   .refine((q) => dayNumber(q.to) - dayNumber(q.from) < MAX_RANGE_DAYS, {
-    error: `The range from … to may span at most ${MAX_RANGE_DAYS} days; export it in parts`,
+    error: `The range from the first to the last day may span at most ${MAX_RANGE_DAYS} days; export it in parts`,
     path: ['to'],
   });
 export type DateRangeQuery = z.infer<typeof dateRangeQuerySchema>;
