@@ -101,7 +101,7 @@ describe('My builds on a phone', () => {
     screenWidth = 1280;
   });
   const api = (path: string) =>
-    path === '/api/auth/me' ? json(200, { user: player }) : path === '/api/bookings' ? json(200, { items: [booking], total: 1, page: 1, pageSize: 20 }) : json(404, { message: 'not scripted' });
+    path === '/api/auth/session' || path === '/api/auth/me' ? json(200, { user: player }) : path === '/api/bookings' ? json(200, { items: [booking], total: 1, page: 1, pageSize: 20 }) : json(404, { message: 'not scripted' });
 
   it('shows each build as a card with every fact labelled below 600 px, and no table', async () => {
     screenWidth = 390;
