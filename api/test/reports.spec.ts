@@ -211,7 +211,7 @@ describe('refusals and roles', () => {
   it('answers 400 in words for a bad range and 403 to a builder', async () => {
     const bad = await owner.get('/api/reports/revenue?from=2026-12-01&to=2026-11-01');
     expect(bad.status).toBe(400);
-    expect(JSON.stringify(bad.body.message)).toMatch(/from must be on or before to/);
+    expect(JSON.stringify(bad.body.message)).toMatch(/Last day must be on or after the first day/);
     const builder = await signIn(t.app, 'builder@shop.example');
     for (const path of ['/api/reports/revenue?from=2026-01-01&to=2026-01-31', '/api/reports/outstanding', '/api/reports/hours?from=2026-01-01&to=2026-01-31', '/api/reports/utilisation?from=2026-01-01&to=2026-01-31']) {
       expect((await builder.get(path)).status, path).toBe(403);

@@ -106,7 +106,7 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     const surface = await asA().post('/api/configurations', { name: 'Plank', configuration: { ...small, surfaceId: 'plank-9000' } }).expect(400);
     expect(surface.body.message).toContain('plank-9000');
     const badId = await asA().get('/api/configurations/not-an-id').expect(400);
-    expect(badId.body.message).toContain('UUID');
+    expect(badId.body.message).toContain('saved board could not be found');
   });
 
   it(`keeps at most ${MAX_SAVED_CONFIGURATIONS} per player and says so`, async () => {
@@ -173,7 +173,7 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     await t.http().post('/api/quotes/email').send({ configuration: small }).expect(401);
     // There is no field for another address: the quote goes only to the account's own.
     const elsewhere = await t.http().post('/api/quotes/email').set('Cookie', b).send({ configuration: small, to: 'someone@else.example' }).expect(400);
-    expect(elsewhere.body.message).toContain('to is not a field');
+    expect(elsewhere.body.message).toContain('"to" is not a field');
   });
 
   it('lists the line items in the request-received mail, whose link opens the booking’s quote PDF for its player only', async () => {

@@ -7,7 +7,7 @@ import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { CalendarFeedsService } from './calendar-feeds.service';
 
-const feedId = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('The calendar feed id in the address must be a UUID.') });
+const feedId = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('This calendar link is not one the shop gave out; ask the shop for the current link.') });
 
 @ApiTags('calendar feeds')
 @Controller('calendar-feeds')

@@ -22,7 +22,7 @@ import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ConfigurationsService } from './configurations.service';
 
-const configurationIdPipe = uuidParam('id: a saved configuration id is a UUID, as GET /api/configurations lists them.');
+const configurationIdPipe = uuidParam('This saved board could not be found; open it from your saved boards.');
 
 /** A signed-in person's saved configurations: each sees and changes only their own (another's id is a 404). */
 @ApiTags('saved configurations')
@@ -93,7 +93,7 @@ export class ConfigurationLinksController {
   @Get(':code')
   @ApiOkResponse({ description: '{ configuration } the code stands for.' })
   open(@Param('code') code: string) {
-    if (!SHORT_LINK_CODE.test(code)) throw new BadRequestException(errorResponse('invalid_id', 'code: a link code is 6 to 16 letters and digits, as in /c/Ab3dE9xQ.'));
+    if (!SHORT_LINK_CODE.test(code)) throw new BadRequestException(errorResponse('invalid_id', 'This link is not complete: a shared board link ends in 6 to 16 letters and digits, as in /c/Ab3dE9xQ.'));
     return this.configurations.openLink(code);
   }
 }
