@@ -319,6 +319,9 @@ export class PaymentWebhooksService {
     if (!payment) return;
     const reason = intent.last_payment_error?.message ?? 'The card was declined.';
     if (payment.status === 'processing') return this.delayedFailure(trx, payment, reason);
+    // A bank debit's later failure is reported twice (this event and checkout.session.async_payment_failed), in
+    // either order: when the other one has already recorded this very failure, there is nothing new to say.
+    if (payment.status === 'failed' && payment.failure_message === reason) return;
     if (payment.status !== 'pending' && payment.status !== 'failed') return;
     await this.payments.update(trx, payment.id, { status: 'failed', failure_message: reason, payment_intent_id: intent.id });
     await this.paymentsService.historyNote(trx, payment.booking_id, provider, `Card declined at checkout: ${reason} The checkout stays open for another try.`);
