@@ -1,6 +1,6 @@
 import { demoPriceBook, estimateRig, jargonIn } from '@loomwright/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { referenceBoard, statedLaborRanges } from '../../shared/src/estimate/reference-rigs.fixture';
+import { referenceBoard, expectedLaborRanges } from '../../shared/src/estimate/reference-rigs.fixture';
 import { createTestApp, type TestApp } from './support/test-app';
 
 describe('POST /api/estimates', () => {
@@ -12,7 +12,7 @@ describe('POST /api/estimates', () => {
     await t?.close();
   });
 
-  it.each(statedLaborRanges)('prices the $mode reference board at $level rates with the engine’s numbers, inside the stated range', async ({ mode, level, low, high }) => {
+  it.each(expectedLaborRanges)('prices the $mode reference board at $level rates with the engine’s numbers, inside the expected range (common practice, no published source)', async ({ mode, level, low, high }) => {
     const config = referenceBoard(mode, level);
     const res = await t.http().post('/api/estimates').send(config).expect(200);
     // The seeded book is the demo book, version 1: the HTTP answer is the engine's answer.

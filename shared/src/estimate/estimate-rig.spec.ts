@@ -7,7 +7,7 @@ import type { PriceBook } from '../price-book/types';
 import { EstimateInputError } from './errors';
 import { estimateRig } from './estimate-rig';
 import { minorUnitDigits, roundToMinorUnit } from './money';
-import { referenceBoard, statedLaborRanges } from './reference-rigs.fixture';
+import { referenceBoard, expectedLaborRanges } from './reference-rigs.fixture';
 import { pedalKinds } from './schema';
 import type { EstimateResult, PedalInput, RigConfiguration } from './types';
 
@@ -19,17 +19,17 @@ const line = (r: EstimateResult, code: string) => {
 };
 
 describe('the reference board against labor ranges (common practice, no published source)', () => {
-  // Stated ranges: common practice, no published source. Each computed range must lie inside the
-  // stated one widened by 5% at each end, with its midpoint within 10% of the stated midpoint.
-  it.each(statedLaborRanges)('$mode board at $level rates: $low–$high', ({ mode, level, low, high }) => {
+  // Expected ranges: common practice, no published source. Each computed range must lie inside the
+  // expected one widened by 5% at each end, with its midpoint within 10% of the expected midpoint.
+  it.each(expectedLaborRanges)('$mode board at $level rates: $low–$high', ({ mode, level, low, high }) => {
     const r = estimateRig(referenceBoard(mode, level), demoPriceBook, v1);
     const laborLow = Number(r.laborLow);
     const laborHigh = Number(r.laborHigh);
     expect(laborLow).toBeGreaterThanOrEqual(low * 0.95);
     expect(laborHigh).toBeLessThanOrEqual(high * 1.05);
     expect(laborLow).toBeLessThanOrEqual(laborHigh);
-    const statedMid = (low + high) / 2;
-    expect(Math.abs((laborLow + laborHigh) / 2 - statedMid)).toBeLessThanOrEqual(statedMid * 0.1);
+    const expectedMid = (low + high) / 2;
+    expect(Math.abs((laborLow + laborHigh) / 2 - expectedMid)).toBeLessThanOrEqual(expectedMid * 0.1);
   });
 
   it('takes 14 h in series (13 devices and the supply) and 20 h with ten loops', () => {

@@ -2,8 +2,8 @@ import type { BuilderLevel } from '../domain';
 import type { PedalInput, RigConfiguration } from './types';
 
 /**
- * The reference board of the trade's labor figures: an input/output buffer box, a tuner, a wah and
- * ten more pedals, the customer supplying the power supply (common practice, no published source).
+ * A full board for checking labor figures: an input/output buffer box, a tuner, a wah and ten
+ * more pedals, the customer supplying the power supply (common practice, no published source).
  * On the switcher version the ten pedals after the wah sit in ten loops.
  */
 export function referenceBoard(mode: 'serial' | 'switcher', level: BuilderLevel): RigConfiguration {
@@ -19,7 +19,7 @@ export function referenceBoard(mode: 'serial' | 'switcher', level: BuilderLevel)
 }
 
 /** Labor ranges in dollars for the reference board (common practice, no published source). */
-export const statedLaborRanges: Array<{ mode: 'serial' | 'switcher'; level: BuilderLevel; low: number; high: number }> = [
+export const expectedLaborRanges: Array<{ mode: 'serial' | 'switcher'; level: BuilderLevel; low: number; high: number }> = [
   { mode: 'serial', level: 'master', low: 1400, high: 2100 },
   { mode: 'serial', level: 'journeyman', low: 1100, high: 1400 },
   { mode: 'serial', level: 'apprentice', low: 500, high: 700 },
