@@ -1,5 +1,3 @@
-import { z } from 'zod';
-
 /**
  * Every `code` an error answer of the API can carry, each with what it means. The code is stable
  * (apps and scripts branch on it); the `message` beside it is written for people and may be reworded.
@@ -73,23 +71,6 @@ export function defaultErrorCode(status: number): ErrorCode {
       return status >= 500 ? 'internal_error' : 'bad_request';
   }
 }
-
-/** Every 4xx/5xx body the API sends. */
-export const apiErrorBodySchema = z
-  .object({
-    statusCode: z.number().int().min(400).max(599).describe('The HTTP status, repeated.'),
-    code: z.enum(errorCodes).describe('Stable: branch on this, never on the message.'),
-    message: z.string().describe('What went wrong and what to do, written for people.'),
-    details: z.array(z.string()).optional().describe('One line per field for validation_failed, in words a person reads.'),
-    issues: z
-      .array(z.object({ path: z.string().describe('The field, e.g. pedals[3].currentMa ("" for the whole body).'), message: z.string() }))
-      .optional()
-      .describe('validation_failed: each problem with its field, for a program that shows a message under its field.'),
-    requestId: z.string().optional().describe('The id of this request in the server’s logs.'),
-  })
-  .describe('An error answer');
-
-export type ApiErrorBody = z.infer<typeof apiErrorBodySchema>;
 
 /** `{ code, message }` for an HTTP exception's response, so a thrown error names its code. */
 export const errorResponse = (code: ErrorCode, message: string) => ({ code, message });

@@ -1,6 +1,7 @@
 export * from './api-types';
 export * from './api-client';
 export * from './error-codes';
+export * from './error-body-schema';
 export * from './design-tokens';
 export * from './domain';
 export * from './price-book/types';
