@@ -29,28 +29,50 @@ interface Segment {
  * builder may still find a tighter layout.
  */
 export function rowLayout(devices: RigDevice[], widthMm: number, depthMm: number, spacingMm = SPACING_MM): RowLayout {
+  return packRows(packingItems(devices, spacingMm), widthMm, depthMm, spacingMm, true);
+}
+
+interface PackingItem {
+  d: RigDevice;
+  w: number;
+  h: number;
+}
+
+/** Devices grown by the spacing, deepest first (widest on a tie): the order the packing places them in. */
+const packingItems = (devices: RigDevice[], spacingMm: number): PackingItem[] =>
+  devices.map((d) => ({ d, w: d.widthMm + spacingMm, h: d.depthMm + spacingMm })).sort((a, b) => b.h - a.h || b.w - a.w);
+
+/**
+ * The skyline packing over items already in order. With `withPlacements` false it only answers
+ * whether everything fits (and stops at the first device left over): the smallest-surface search
+ * asks that of every smaller surface, and needs no drawing.
+ */
+function packRows(items: PackingItem[], widthMm: number, depthMm: number, spacingMm: number, withPlacements: boolean): RowLayout {
   const placed: Array<{ d: RigDevice; x: number; offset: number; h: number }> = [];
-  const items = devices
-    .map((d) => ({ d, w: d.widthMm + spacingMm, h: d.depthMm + spacingMm }))
-    .sort((a, b) => b.h - a.h || b.w - a.w);
   let skyline: Segment[] = [{ x: 0, width: widthMm, filled: 0 }];
   const unplaced: string[] = [];
   for (const item of items) {
-    let best: { x: number; offset: number } | null = null;
+    let bestX = -1;
+    let bestOffset = Infinity;
     for (let i = 0; i < skyline.length; i++) {
       const x = skyline[i].x;
       if (x + item.w > widthMm) break;
       let offset = 0;
-      for (let j = i; j < skyline.length && skyline[j].x < x + item.w; j++) offset = Math.max(offset, skyline[j].filled);
-      if (offset + item.h <= depthMm && (!best || offset < best.offset)) best = { x, offset };
+      for (let j = i; j < skyline.length && skyline[j].x < x + item.w; j++) if (skyline[j].filled > offset) offset = skyline[j].filled;
+      if (offset + item.h <= depthMm && offset < bestOffset) {
+        bestX = x;
+        bestOffset = offset;
+      }
     }
-    if (!best) {
+    if (bestX < 0) {
       unplaced.push(item.d.name);
+      if (!withPlacements) return { fits: false, placements: [], unplaced };
       continue;
     }
-    placed.push({ d: item.d, x: best.x, offset: best.offset, h: item.h });
-    skyline = raise(skyline, best.x, item.w, best.offset + item.h);
+    if (withPlacements) placed.push({ d: item.d, x: bestX, offset: bestOffset, h: item.h });
+    skyline = raise(skyline, bestX, item.w, bestOffset + item.h);
   }
+  if (!withPlacements) return { fits: unplaced.length === 0, placements: [], unplaced };
   const bands = [...new Set(placed.map((p) => p.offset))].sort((a, b) => a - b);
   const placements = placed.map(({ d, x, offset, h }) => ({
     device: d.name,
@@ -82,12 +104,21 @@ export const defaultSurfaceLayout = (depthMm: number): SurfaceLayout => ({ rows:
  * allows.
  */
 export function signalFlowLayout(chain: SignalChain, widthMm: number, depthMm: number, surfaceLayout: SurfaceLayout, spacingMm = SPACING_MM): RowLayout {
+  return flowRows(inSignalOrder(chain), widthMm, depthMm, surfaceLayout, spacingMm, true);
+}
+
+/** The chain's devices in signal order (switcher loops after the switcher). */
+function inSignalOrder(chain: SignalChain): RigDevice[] {
+  const byId = new Map(chain.devices.map((d) => [d.id, d]));
+  return signalOrder(chain).map((id) => byId.get(id)!).filter(Boolean);
+}
+
+/** The signal-order layout over devices already in signal order; `withPlacements` false answers only whether it fits. */
+function flowRows(ordered: RigDevice[], widthMm: number, depthMm: number, surfaceLayout: SurfaceLayout, spacingMm: number, withPlacements: boolean): RowLayout {
   // Each footprint is grown by the spacing, half on each side; at the board's edges that half
   // may reach the rim, so the grown boxes fill an area one spacing wider and deeper.
   const W = widthMm + spacingMm;
   const D = depthMm + spacingMm;
-  const byId = new Map(chain.devices.map((d) => [d.id, d]));
-  const ordered = signalOrder(chain).map((id) => byId.get(id)!).filter(Boolean);
   const front = ordered.filter((d) => groupOf(d, surfaceLayout.switcherRow) === 'front');
   const backSwitcher = surfaceLayout.switcherRow === 'back' ? ordered.filter((d) => d.kind === 'switcher') : [];
   const rest = [...backSwitcher, ...ordered.filter((d) => !front.includes(d) && !backSwitcher.includes(d))];
@@ -124,6 +155,7 @@ export function signalFlowLayout(chain: SignalChain, widthMm: number, depthMm: n
         continue;
       }
       x -= w;
+      if (!withPlacements) continue;
       placements.push({
         device: d.name,
         deviceId: d.id,
@@ -150,31 +182,30 @@ export function signalFlowLayout(chain: SignalChain, widthMm: number, depthMm: n
 function raise(skyline: Segment[], x: number, width: number, filled: number): Segment[] {
   const end = x + width;
   const out: Segment[] = [];
-  const push = (s: Segment) => {
-    const last = out[out.length - 1];
-    if (last && last.filled === s.filled && last.x + last.width === s.x) last.width += s.width;
-    else out.push({ x: s.x, width: s.width, filled: s.filled });
+  // Appends a stretch, merging it into the last one when they touch at the same height.
+  const put = (sx: number, sw: number, sf: number) => {
+    const last = out.length > 0 ? out[out.length - 1] : undefined;
+    if (last !== undefined && last.filled === sf && last.x + last.width === sx) last.width += sw;
+    else out.push({ x: sx, width: sw, filled: sf });
   };
   let placed = false;
-  const place = () => {
-    if (!placed) push({ x, width, filled });
-    placed = true;
-  };
   for (const s of skyline) {
     const sEnd = s.x + s.width;
-    if (sEnd <= x) push(s);
+    if (sEnd <= x) put(s.x, s.width, s.filled);
     else if (s.x >= end) {
-      place();
-      push(s);
+      if (!placed) put(x, width, filled);
+      placed = true;
+      put(s.x, s.width, s.filled);
     } else {
-      if (s.x < x) push({ x: s.x, width: x - s.x, filled: s.filled });
+      if (s.x < x) put(s.x, x - s.x, s.filled);
       if (sEnd > end) {
-        place();
-        push({ x: end, width: sEnd - end, filled: s.filled });
+        if (!placed) put(x, width, filled);
+        placed = true;
+        put(end, sEnd - end, s.filled);
       }
     }
   }
-  place();
+  if (!placed) put(x, width, filled);
   return out;
 }
 
@@ -189,8 +220,12 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
   const usableAreaMm2 = surface.widthMm * surface.depthMm;
   const areaFits = requiredAreaMm2 <= usableAreaMm2;
   const surfaceLayout = surface.layout ?? defaultSurfaceLayout(surface.depthMm);
-  const flow = signalFlowLayout(chain, surface.widthMm, surface.depthMm, surfaceLayout, spacingMm);
-  const packed = flow.fits ? flow : rowLayout(devices, surface.widthMm, surface.depthMm, spacingMm);
+  // The signal order and the packing order do not depend on the surface: worked out once.
+  const ordered = inSignalOrder(chain);
+  let items: PackingItem[] | undefined;
+  const packingOrder = () => (items ??= packingItems(devices, spacingMm));
+  const flow = flowRows(ordered, surface.widthMm, surface.depthMm, surfaceLayout, spacingMm, true);
+  const packed = flow.fits ? flow : packRows(packingOrder(), surface.widthMm, surface.depthMm, spacingMm, true);
   const layout = flow.fits || !packed.fits ? flow : packed;
   const layoutFits = areaFits && (flow.fits || packed.fits);
 
@@ -201,8 +236,8 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
       s.id === surface.id
         ? layoutFits
         : requiredAreaMm2 <= s.widthMm * s.depthMm &&
-          (signalFlowLayout(chain, s.widthMm, s.depthMm, s.layout ?? defaultSurfaceLayout(s.depthMm), spacingMm).fits ||
-            rowLayout(devices, s.widthMm, s.depthMm, spacingMm).fits),
+          (flowRows(ordered, s.widthMm, s.depthMm, s.layout ?? defaultSurfaceLayout(s.depthMm), spacingMm, false).fits ||
+            packRows(packingOrder(), s.widthMm, s.depthMm, spacingMm, false).fits),
     );
 
   const warnings: string[] = [];
