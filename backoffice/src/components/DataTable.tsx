@@ -143,7 +143,12 @@ export function DataTable<T>(props: DataTableProps<T>) {
                   aria-selected={props.onOpen ? props.selectedId === id : undefined}
                 >
                   {columns.map((column) => (
-                    <td key={column.id} className={column.wideOnly ? 'lw-wide-only' : undefined} style={{ textAlign: column.align ?? 'left' }}>
+                    <td
+                      key={column.id}
+                      className={column.wideOnly ? 'lw-wide-only' : undefined}
+                      // Right-aligned cells hold figures (hours, money): a figure never breaks across lines.
+                      style={{ textAlign: column.align ?? 'left', whiteSpace: column.align === 'right' ? 'nowrap' : undefined }}
+                    >
                       {column.render(row)}
                     </td>
                   ))}

@@ -35,7 +35,7 @@ const columns: Column<BookingSummary>[] = [
         '—'
       ),
   },
-  { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
+  { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm" sx={{ minWidth: 140 }}>{b.summary}</Typography> },
   { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 110, render: (b) => formatDay(b.benchDate) },
   { id: 'done', header: 'Expected done', width: 120, render: (b) => formatDay(b.expectedCompletion) },
   { id: 'hours', header: 'Labor', align: 'right', width: 70, wideOnly: true, render: (b) => formatHours(b.laborHours) },

@@ -45,14 +45,14 @@ const columns: Column<BookingSummary>[] = [
       <>
         {b.customer.name}
         {b.customer.email && (
-          <Typography level="body-xs" sx={{ display: 'block', overflowWrap: 'anywhere' }}>
+          <Typography level="body-xs" sx={{ display: 'block', minWidth: 150, overflowWrap: 'anywhere' }}>
             {b.customer.email}
           </Typography>
         )}
       </>
     ),
   },
-  { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm">{b.summary}</Typography> },
+  { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm" sx={{ minWidth: 140 }}>{b.summary}</Typography> },
   { id: 'hours', header: 'Labor', align: 'right', width: 64, wideOnly: true, render: (b) => formatHours(b.laborHours) },
   {
     id: 'estimate',

@@ -30,9 +30,9 @@ export default function RevenueChart({ months, currency }: { months: RevenueMont
           <Tooltip formatter={(v) => money(Number(v))} />
           <Legend />
           <ReferenceLine y={0} stroke={theme.palette.neutral[500]} />
-          <Bar dataKey="Deposits" stackId="money" fill={theme.palette.primary[600]} />
-          <Bar dataKey="Balances" stackId="money" fill={theme.palette.primary[300]} />
-          <Bar dataKey="Refunds" stackId="money" fill={theme.palette.danger[400]} />
+          <Bar dataKey="Deposits" stackId="money" maxBarSize={72} fill={theme.palette.primary[600]} />
+          <Bar dataKey="Balances" stackId="money" maxBarSize={72} fill={theme.palette.primary[300]} />
+          <Bar dataKey="Refunds" stackId="money" maxBarSize={72} fill={theme.palette.danger[400]} />
           <Line dataKey="Net" stroke={theme.palette.accent[600]} strokeWidth={2} dot={{ r: 3 }} />
         </ComposedChart>
       </ResponsiveContainer>

@@ -49,7 +49,7 @@ export function AbsencesPanel({ team, canEdit, onSaved }: { team: TeamMember[]; 
   };
 
   return (
-    <Stack gap={1} component="section" aria-label="Builders away">
+    <Stack gap={1} component="section" aria-label="Builders away" sx={{ mt: 3 }}>
       <Typography level="title-md" component="h2">
         Builders away
       </Typography>

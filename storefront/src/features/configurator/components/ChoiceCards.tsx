@@ -63,38 +63,39 @@ export function ChoiceCards({
               '&:has(input:focus-visible)': { outline: '3px solid', outlineColor: 'primary.500', outlineOffset: '2px' },
             }}
           >
-            <Box sx={{ display: 'flex', alignItems: 'flex-start', gap: 1 }}>
-              <Radio
-                value={choice.value}
-                overlay
-                disabled={choice.disabled}
-                label={<Typography level="title-md" component="span">{choice.title}</Typography>}
-                slotProps={{ input: { 'aria-describedby': detailsId }, action: { sx: { borderRadius: 'md' } } }}
-                sx={{ flex: 1, alignItems: 'flex-start' }}
-              />
-              <Box
-                aria-hidden={!selected}
-                sx={{
-                  display: 'inline-flex',
-                  alignItems: 'center',
-                  gap: 0.5,
-                  px: 1,
-                  py: 0.25,
-                  borderRadius: 'sm',
-                  fontSize: 'sm',
-                  fontWeight: 'lg',
-                  color: 'primary.700',
-                  bgcolor: 'primary.100',
-                  visibility: selected ? 'visible' : 'hidden',
-                }}
-              >
-                <CheckIcon sx={{ fontSize: 'md' }} /> Selected
-              </Box>
-            </Box>
+            <Radio
+              value={choice.value}
+              overlay
+              disabled={choice.disabled}
+              label={<Typography level="title-md" component="span">{choice.title}</Typography>}
+              slotProps={{ input: { 'aria-describedby': detailsId }, action: { sx: { borderRadius: 'md' } } }}
+              sx={{ alignItems: 'flex-start' }}
+            />
             <Box id={detailsId}>
-              {choice.figure ? (
-                <Typography level="title-lg" sx={{ fontVariantNumeric: 'tabular-nums' }}>{choice.figure}</Typography>
-              ) : null}
+              {/* The badge sits on the figure's line, so it never narrows the title (long names stay on one line). */}
+              <Box sx={{ display: 'flex', alignItems: 'center', justifyContent: 'space-between', gap: 1, flexWrap: 'wrap' }}>
+                {choice.figure ? (
+                  <Typography level="title-lg" sx={{ fontVariantNumeric: 'tabular-nums' }}>{choice.figure}</Typography>
+                ) : <span />}
+                <Box
+                  aria-hidden={!selected}
+                  sx={{
+                    display: 'inline-flex',
+                    alignItems: 'center',
+                    gap: 0.5,
+                    px: 1,
+                    py: 0.25,
+                    borderRadius: 'sm',
+                    fontSize: 'sm',
+                    fontWeight: 'lg',
+                    color: 'primary.700',
+                    bgcolor: 'primary.100',
+                    visibility: selected ? 'visible' : 'hidden',
+                  }}
+                >
+                  <CheckIcon sx={{ fontSize: 'md' }} /> Selected
+                </Box>
+              </Box>
               {choice.details}
             </Box>
           </Card>
