@@ -1,3 +1,4 @@
+import { sql } from 'kysely';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import type { BenchSuggestResponse, BenchView } from '@loomwright/shared';
 import { addDays } from '../src/bench/calendar-days';
@@ -322,5 +323,26 @@ describe('who may use the bench, team, settings and customers routes', () => {
     // A builder lists the same customers but sees no address on a customer none of whose builds is theirs.
     const asBuilder = await agents.builder.get('/api/customers?sort=buildCount&order=desc&pageSize=1').expect(200);
     expect(asBuilder.body.items[0]).toMatchObject({ id: list.body.items[0].id, email: null, phone: null, buildCount: 1 });
+  });
+
+  it('pages customers in the order one grouped SQL query gives, for every sort and direction', async () => {
+    // Reference: PostgreSQL's own ORDER BY … NULLS LAST over every customer grouped with all their
+    // bookings (the list's earlier one-query form); the list now finds a page's ids first.
+    await createBooking(t.db, { laborHours: '10.00', materialsTotal: '300.00', deposit: '150.00' });
+    const keys = { name: 'u.name', email: 'u.email::text', createdAt: 'u.created_at', buildCount: 'count(b.id)', lastBookingAt: 'max(b.created_at)' } as const;
+    for (const [sort, key] of Object.entries(keys)) {
+      for (const order of ['asc', 'desc'] as const) {
+        const expected = await sql<{ id: string }>`
+          select u.id from users u left join bookings b on b.customer_id = u.id where u.role = 'customer'
+          group by u.id order by ${sql.raw(key)} ${sql.raw(order)} nulls last, u.id`.execute(t.db);
+        const seen: string[] = [];
+        for (let page = 1; page <= expected.rows.length + 1; page++) {
+          const res = await agents.owner.get(`/api/customers?sort=${sort}&order=${order}&pageSize=1&page=${page}`).expect(200);
+          expect(res.body.total).toBe(expected.rows.length);
+          seen.push(...res.body.items.map((c: { id: string }) => c.id));
+        }
+        expect({ sort, order, seen }).toEqual({ sort, order, seen: expected.rows.map((r) => r.id) });
+      }
+    }
   });
 });

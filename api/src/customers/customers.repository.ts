@@ -6,31 +6,13 @@ import type { CustomerSort } from '@loomwright/shared';
 /** States in which a build is still with the shop or on its way there. */
 const ACTIVE = ['requested', 'deposit_paid', 'scheduled', 'pedals_received', 'on_bench', 'testing', 'ready'];
 
-const sortColumn: Record<CustomerSort, string> = {
-  name: 'name',
-  email: 'email',
-  createdAt: 'created_at',
-  buildCount: 'build_count',
-  lastBookingAt: 'last_booking_at',
-};
-
 @Injectable()
 export class CustomersRepository {
   constructor(private readonly db: Database) {}
 
-  /** `searchEmail` false: a builder's search matches names only, as they do not see every address. */
+  /** Customers who match the search, each joined with their bookings and grouped (for the summaries). */
   private base(trx: Executor, search?: string, searchEmail = true) {
-    let q = trx
-      .selectFrom('users as u')
-      .leftJoin('bookings as b', 'b.customer_id', 'u.id')
-      .where('u.role', '=', 'customer')
-      .groupBy('u.id');
-    if (search?.trim()) {
-      // Escape LIKE wildcards so a search for "50%" means the text, not a pattern.
-      const pattern = `%${search.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      q = q.where((eb) => (searchEmail ? eb.or([eb('u.name', 'ilike', pattern), eb(sql`u.email::text`, 'ilike', pattern)]) : eb('u.name', 'ilike', pattern)));
-    }
-    return q;
+    return this.matching(trx, search, searchEmail).leftJoin('bookings as b', 'b.customer_id', 'u.id').groupBy('u.id');
   }
 
   /**
@@ -51,24 +33,67 @@ export class CustomersRepository {
     ]);
   }
 
+  /**
+   * The customers who match the search, on `users` alone (no bookings joined). `searchEmail` false:
+   * a builder's search matches names only, as they do not see every address. LIKE wildcards are
+   * escaped, so a search for "50%" means the text, not a pattern.
+   */
+  private matching(trx: Executor, search?: string, searchEmail = true) {
+    let q = trx.selectFrom('users as u').where('u.role', '=', 'customer');
+    if (search?.trim()) {
+      const pattern = `%${search.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      q = q.where((eb) => (searchEmail ? eb.or([eb('u.name', 'ilike', pattern), eb(sql`u.email::text`, 'ilike', pattern)]) : eb('u.name', 'ilike', pattern)));
+    }
+    return q;
+  }
+
+  /**
+   * One page in two steps: the page's customer ids first (on `users` alone for name, e-mail and
+   * join-date sorts; for build count and latest booking against one count per customer read from
+   * `bookings_customer_created_idx`), then the summaries of just those customers. Grouping every
+   * customer with every booking before the limit made the first page read all bookings.
+   */
   async page(
     trx: Executor,
     viewerUserId: string,
     opts: { page: number; pageSize: number; sort: CustomerSort; order: 'asc' | 'desc'; search?: string; searchEmail?: boolean },
   ) {
-    const rows = await this.summaries(trx, viewerUserId, opts.search, opts.searchEmail)
-      .select(sql<string>`count(*) over ()::text`.as('total'))
-      .orderBy(sql.ref(sortColumn[opts.sort]), (ob) => (opts.order === 'desc' ? ob.desc() : ob.asc()).nullsLast())
-      .orderBy('u.id')
-      .limit(opts.pageSize)
-      .offset((opts.page - 1) * opts.pageSize)
-      .execute();
-    let total = rows[0] ? Number(rows[0].total) : 0;
-    if (!rows[0] && opts.page > 1) {
-      const count = await this.base(trx, opts.search, opts.searchEmail).select('u.id').execute();
-      total = count.length;
+    const offset = (opts.page - 1) * opts.pageSize;
+    let ids: string[];
+    if (opts.sort === 'buildCount' || opts.sort === 'lastBookingAt') {
+      const perCustomer = trx
+        .selectFrom('bookings')
+        .select(['customer_id', sql<number>`count(*)`.as('build_count'), sql<Date>`max(created_at)`.as('last_booking_at')])
+        .groupBy('customer_id')
+        .as('agg');
+      const key = opts.sort === 'buildCount' ? sql`coalesce(agg.build_count, 0)` : sql`agg.last_booking_at`;
+      const found = await this.matching(trx, opts.search, opts.searchEmail)
+        .leftJoin(perCustomer, 'agg.customer_id', 'u.id')
+        .select('u.id')
+        .orderBy(key, (ob) => (opts.order === 'desc' ? ob.desc() : ob.asc()).nullsLast())
+        .orderBy('u.id')
+        .limit(opts.pageSize)
+        .offset(offset)
+        .execute();
+      ids = found.map((r) => r.id);
+    } else {
+      const key = opts.sort === 'name' ? sql`u.name` : opts.sort === 'email' ? sql`u.email::text` : sql`u.created_at`;
+      const found = await this.matching(trx, opts.search, opts.searchEmail)
+        .select('u.id')
+        .orderBy(key, (ob) => (opts.order === 'desc' ? ob.desc() : ob.asc()).nullsLast())
+        .orderBy('u.id')
+        .limit(opts.pageSize)
+        .offset(offset)
+        .execute();
+      ids = found.map((r) => r.id);
     }
-    return { rows, total };
+    const counted = await this.matching(trx, opts.search, opts.searchEmail).select(sql<string>`count(*)::text`.as('total')).executeTakeFirstOrThrow();
+    const total = Number(counted.total);
+    if (ids.length === 0) return { rows: [], total };
+    const found = await this.summaries(trx, viewerUserId).where('u.id', 'in', ids).execute();
+    const byId = new Map(found.map((r) => [r.id, r]));
+    const rows = ids.map((id) => byId.get(id)).filter((r): r is (typeof found)[number] => r !== undefined);
+    return { rows: rows.map((r) => ({ ...r, total: String(total) })), total };
   }
 
   summary(trx: Executor, viewerUserId: string, id: string) {
