@@ -40,6 +40,9 @@ const environmentSchema = z.object({
   MAIL_FROM: z.string().default('Copperline Rig Works <bench@shop.example>'),
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
   MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(8),
+  // Delivery jobs one worker takes per fetch, and messages it hands to the mail server at once.
+  MAIL_BATCH_SIZE: z.coerce.number().int().min(1).max(200).default(25),
+  MAIL_CONCURRENCY: z.coerce.number().int().min(1).max(50).default(8),
   UPLOADS_DIR: z.string().default('.data/uploads'),
   // Where photos live: 's3' (any S3-compatible bucket; several API replicas share it) or 'disk'
   // (UPLOADS_DIR, one machine only).
@@ -177,6 +180,8 @@ export function configuration() {
       from: env.MAIL_FROM,
       retryDelaySeconds: env.MAIL_RETRY_DELAY_SECONDS,
       maxAttempts: env.MAIL_MAX_ATTEMPTS,
+      batchSize: env.MAIL_BATCH_SIZE,
+      concurrency: env.MAIL_CONCURRENCY,
     },
   };
 }

@@ -1,5 +1,7 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
+import pLimit from 'p-limit';
+import type { ShopProfile } from '@loomwright/shared';
 import type { AppConfig } from '../config/configuration';
 import { ShopService } from '../shop/shop.service';
 import { MailOutboxRepository } from './mail-outbox.repository';
@@ -19,8 +21,13 @@ export const OUTCOME_UNKNOWN =
   'before the answer was recorded. It was not sent again, so the recipient cannot get it twice by itself; ' +
   'ask them whether it arrived before resending it.';
 
+type ClaimedRow = NonNullable<Awaited<ReturnType<MailOutboxRepository['claim']>>>;
+
 /**
- * Delivers outbox rows, one at a time.
+ * Delivers outbox rows: one (`deliverOne`, a pg-boss job's work) or a batch claimed in one
+ * statement and handed to the mail server `MAIL_CONCURRENCY` at a time (`deliverBatch`,
+ * `deliverPending`). Each row still has its own claim, send and record, so a batch changes speed
+ * only, never the guarantee below.
  *
  * The guarantee, precisely:
  * 1. A row is handed to SMTP only by the sender that moved it queued → sending (one UPDATE under a
@@ -48,24 +55,50 @@ export class MailDeliveryService {
   private readonly logger = new Logger('Mail');
   private readonly maxAttempts: number;
   private readonly publicUrl: string;
+  private readonly concurrency: number;
 
   constructor(
     private readonly outbox: MailOutboxRepository,
     private readonly transport: MailTransport,
     private readonly shop: ShopService,
-    config: ConfigService<AppConfig, true>,
+    private readonly config: ConfigService<AppConfig, true>,
   ) {
     this.maxAttempts = config.get('mail', { infer: true }).maxAttempts;
+    this.concurrency = config.get('mail', { infer: true }).concurrency;
     this.publicUrl = config.get('app', { infer: true }).publicUrl;
   }
 
   async deliverOne(id: string): Promise<DeliveryOutcome> {
     const row = await this.outbox.claim(id);
     if (!row) return 'skipped';
+    return this.deliverClaimed(row);
+  }
 
+  /**
+   * Claims the listed rows in one statement and delivers the ones this sender won, up to
+   * MAIL_CONCURRENCY at once. Answers each listed id's outcome ('skipped' when another sender had it).
+   */
+  async deliverBatch(ids: string[]): Promise<Map<string, DeliveryOutcome>> {
+    const outcomes = new Map<string, DeliveryOutcome>(ids.map((id) => [id, 'skipped']));
+    const rows = await this.outbox.claimMany(ids);
+    if (rows.length === 0) return outcomes;
+    // One read of the shop's name and voice for the whole batch.
+    let shop: ShopProfile | undefined;
+    try {
+      shop = await this.shop.profile();
+    } catch {
+      // Each row's own render tries again and records its reason.
+    }
+    const limit = pLimit(this.concurrency);
+    await Promise.all(rows.map((row) => limit(async () => outcomes.set(row.id, await this.deliverClaimed(row, shop)))));
+    return outcomes;
+  }
+
+  private async deliverClaimed(row: ClaimedRow, knownShop?: ShopProfile): Promise<DeliveryOutcome> {
+    const id = row.id;
     let rendered: RenderedMail;
     try {
-      const shop = await this.shop.profile();
+      const shop = knownShop ?? (await this.shop.profile());
       rendered = renderMail(row.template, row.data, { ...shop, publicUrl: this.publicUrl }, { bookingId: row.booking_id });
     } catch (error) {
       const permanent = error instanceof MailDataError;
@@ -130,7 +163,12 @@ export class MailDeliveryService {
    */
   async deliverPending(limit = 500): Promise<Record<DeliveryOutcome, number>> {
     const counts: Record<DeliveryOutcome, number> = { sent: 0, retry: 0, failed: 0, unknown: 0, skipped: 0 };
-    for (const id of await this.outbox.queuedIds(limit)) counts[await this.deliverOne(id)] += 1;
+    // The rows queued now, each tried once in this call (one sent back to the queue waits for the next).
+    const ids = await this.outbox.queuedIds(limit);
+    const chunk = this.config.get('mail', { infer: true }).batchSize;
+    for (let start = 0; start < ids.length; start += chunk) {
+      for (const outcome of (await this.deliverBatch(ids.slice(start, start + chunk))).values()) counts[outcome] += 1;
+    }
     return counts;
   }
 

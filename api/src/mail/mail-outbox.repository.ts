@@ -90,6 +90,23 @@ export class MailOutboxRepository {
       .executeTakeFirst();
   }
 
+  /**
+   * The same claim for many rows in one statement (a batch of the outbox): each row listed that is
+   * still queued and not locked by another sender moves to 'sending' and comes back; a row another
+   * sender holds or has already taken is skipped, exactly as `claim` skips it.
+   */
+  claimMany(ids: string[], trx: Executor = this.db) {
+    if (ids.length === 0) return Promise.resolve([]);
+    return trx
+      .updateTable('mail_outbox')
+      .set({ state: 'sending', attempts: sql`attempts + 1`, claimed_at: sql`now()`, last_attempt_at: sql`now()` })
+      .where('id', 'in', (eb) =>
+        eb.selectFrom('mail_outbox').select('id').where('id', 'in', ids).where('state', '=', 'queued').forUpdate().skipLocked(),
+      )
+      .returningAll()
+      .execute();
+  }
+
   markSent(id: string, subject: string, trx: Executor = this.db) {
     return trx
       .updateTable('mail_outbox')

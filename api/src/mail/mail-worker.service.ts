@@ -50,7 +50,7 @@ export class MailWorker implements OnApplicationBootstrap, OnApplicationShutdown
 
   async start() {
     if (this.boss) return;
-    const { retryDelaySeconds, maxAttempts } = this.config.get('mail', { infer: true });
+    const { retryDelaySeconds, maxAttempts, batchSize } = this.config.get('mail', { infer: true });
     const boss = new PgBoss({ connectionString: this.config.get('database', { infer: true }).url, schema: 'pgboss', max: 3 });
     boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
     await boss.start();
@@ -64,10 +64,16 @@ export class MailWorker implements OnApplicationBootstrap, OnApplicationShutdown
       expireInSeconds: 5 * 60,
     });
     await boss.createQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, policy: 'singleton', retryLimit: 0 });
-    await boss.work<DeliverJob>(DELIVER_QUEUE, { pollingIntervalSeconds: 1, batchSize: 1 }, async ([job]) => {
-      const outcome = await this.delivery.deliverOne(job.data.outboxId);
-      // Throwing hands the job back to pg-boss for a later retry with backoff.
-      if (outcome === 'retry') throw new Error(`Delivery of ${job.data.outboxId} was refused; retrying later`);
+    // Batch work: one fetch takes up to MAIL_BATCH_SIZE due jobs (pg-boss's own `for update skip
+    // locked limit n`, so two replicas never fetch the same job), their rows are claimed in one
+    // statement and sent MAIL_CONCURRENCY at a time. A job whose delivery was refused is failed
+    // alone, so pg-boss runs it again after its backoff; the rest complete with the batch.
+    await boss.work<DeliverJob>(DELIVER_QUEUE, { pollingIntervalSeconds: 0.5, batchSize }, async (jobs) => {
+      const outcomes = await this.delivery.deliverBatch(jobs.map((job) => job.data.outboxId));
+      const refused = jobs.filter((job) => outcomes.get(job.data.outboxId) === 'retry');
+      for (const job of refused) {
+        await boss.fail(DELIVER_QUEUE, job.id, { message: `Delivery of ${job.data.outboxId} was refused; retrying later` });
+      }
     });
     await boss.work(SWEEP_QUEUE, { pollingIntervalSeconds: 5 }, () => this.sweep());
     await boss.schedule(SWEEP_QUEUE, '* * * * *');
