@@ -361,8 +361,33 @@ export interface ShopSettingsView {
   /** Where players ship or drop off their pedals; null until the owner fills it in. */
   postalAddress: { line1: string; line2: string; city: string; region: string; postalCode: string } | null;
   closures: ShopClosureView[];
-  /** The public holidays of the shop's country in the coming twelve months (date-holidays). */
-  upcomingHolidays: Array<{ date: string; name: string }>;
+  /**
+   * The public holidays of the shop's country in the coming twelve months (date-holidays); the
+   * bench is closed on each unless the owner switched that one off (`shopWorks`).
+   */
+  upcomingHolidays: UpcomingHoliday[];
+  /** The owner's latest choices about single holidays, newest first (who, when, which way). */
+  holidayHistory: HolidayChoiceView[];
+}
+
+export interface UpcomingHoliday {
+  date: string;
+  name: string;
+  /** True when the owner switched this holiday off: the shop works and the bench is open that day. */
+  shopWorks: boolean;
+}
+
+export interface HolidayChoiceView {
+  day: string;
+  name: string;
+  shopWorks: boolean;
+  decidedBy: string | null;
+  decidedAt: string;
+}
+
+/** PUT /api/settings/holidays/:day answer; closing a day again lists builds already on the bench then. */
+export interface HolidayChoiceResponse extends HolidayChoiceView {
+  buildsOnBenchThen: Array<{ bookingId: string; reference: string; days: string[] }>;
 }
 
 export interface UpdateShopSettingsRequest {
@@ -371,6 +396,8 @@ export interface UpdateShopSettingsRequest {
   contactEmail?: string;
   countryCode?: string;
   timezone?: string;
+  locale?: string;
+  postalAddress?: { line1: string; line2?: string; city: string; region?: string; postalCode: string };
 }
 
 /** GET /api/customers?page=&pageSize=&sort=name|email|createdAt|buildCount&order=asc|desc&search= */

@@ -1,18 +1,51 @@
+import countries from 'i18n-iso-countries';
 import { z } from 'zod';
 import { builderLevels } from './domain';
 import { mailStates } from './mail-types';
 import { calendarDay, oneOf, pagingQuery, requestObject, sortOrder, text, uuid } from './request-fields';
 import { authWords, rules, shopWords } from './words';
 
-/** An IANA time zone name the runtime knows (ECMA-402 `timeZone`), e.g. America/Chicago. */
-export function isTimeZone(name: string): boolean {
+/**
+ * The IANA time zones a shop can choose: the runtime's list (ECMA-402
+ * `Intl.supportedValuesOf('timeZone')`, the IANA tz database names its CLDR data treats as canonical)
+ * plus UTC, which that list leaves out.
+ */
+export function shopTimeZones(): string[] {
+  const zones = Intl.supportedValuesOf('timeZone');
+  return zones.includes('UTC') ? zones : [...zones, 'UTC'].sort();
+}
+
+let zoneSet: Set<string> | undefined;
+
+/**
+ * The shop's time zone as stored: a name from `shopTimeZones()`, or an IANA alias of one that the
+ * runtime resolves to it (Asia/Kolkata → the runtime's own name). Anything else ("EST", "Mars/Olympus",
+ * "Etc/GMT+5") is refused.
+ */
+export function canonicalTimeZone(name: string): string | undefined {
+  zoneSet ??= new Set(shopTimeZones());
+  if (zoneSet.has(name)) return name;
   try {
-    new Intl.DateTimeFormat('en-US', { timeZone: name });
-    return true;
+    const resolved = new Intl.DateTimeFormat('en-US', { timeZone: name }).resolvedOptions().timeZone;
+    return zoneSet.has(resolved) ? resolved : undefined;
   } catch {
-    return false;
+    return undefined;
   }
 }
+
+/** A time zone name from the shop's list (see `canonicalTimeZone`). */
+export const isTimeZone = (name: string): boolean => canonicalTimeZone(name) !== undefined;
+
+/**
+ * ISO 3166-1 alpha-2 country codes, from the registry's i18n-iso-countries dataset (countries and
+ * territories). Names for people come from `Intl.DisplayNames` in the reader's language.
+ */
+export function countryCodes(): string[] {
+  return Object.keys(countries.getAlpha2Codes()).sort();
+}
+
+/** An ISO 3166-1 alpha-2 code of a country or territory, upper case ("US", "GB"). */
+export const isCountryCode = (code: string): boolean => /^[A-Z]{2}$/.test(code) && countries.isValid(code);
 
 /**
  * A BCP 47 language tag the runtime can format with (ECMA-402 `Intl.getCanonicalLocales` and
@@ -73,13 +106,19 @@ export const shopDetailsSchema = requestObject({
     .toLowerCase()
     .max(254, { error: emailWords })
     .pipe(z.email({ error: emailWords })),
-  // ISO 3166-1 alpha-2; whether holiday data exists for it is checked by the API, which holds that data.
+  // ISO 3166-1 alpha-2 from the registry's list; a country without public-holiday data is allowed
+  // (the settings page then says so and the shop adds its closed days as closures).
   countryCode: z
     .string({ error: shopWords.countryCode })
     .trim()
     .toUpperCase()
-    .regex(/^[A-Z]{2}$/, { error: shopWords.countryCode }),
-  timezone: z.string({ error: timeZoneWords }).trim().max(64, { error: timeZoneWords, abort: true }).refine(isTimeZone, { error: timeZoneWords }),
+    .refine(isCountryCode, { error: shopWords.countryCode }),
+  timezone: z
+    .string({ error: timeZoneWords })
+    .trim()
+    .max(64, { error: timeZoneWords, abort: true })
+    .refine(isTimeZone, { error: timeZoneWords, abort: true })
+    .transform((name) => canonicalTimeZone(name)!),
   locale: z
     .string({ error: localeWords })
     .trim()
@@ -112,6 +151,15 @@ export const createClosureSchema = requestObject({
     error: shopWords.closureTooLong(MAX_CLOSURE_DAYS),
   });
 export type CreateClosureInput = z.infer<typeof createClosureSchema>;
+
+/**
+ * PUT /api/settings/holidays/:day: whether the shop works on one public holiday of its country
+ * (true opens the bench that day; false closes it again, the default).
+ */
+export const holidayChoiceSchema = requestObject({
+  shopWorks: z.boolean({ error: shopWords.holidayChoice }),
+});
+export type HolidayChoiceInput = z.infer<typeof holidayChoiceSchema>;
 
 export const customerSorts = ['name', 'email', 'createdAt', 'buildCount', 'lastBookingAt'] as const;
 export type CustomerSort = (typeof customerSorts)[number];

@@ -72,6 +72,20 @@ export class BenchRepository {
       .execute();
   }
 
+  /** Public holidays of a country the owner switched off (latest choice per day says the shop works). */
+  async workedHolidays(trx: Executor, countryCode: string): Promise<string[]> {
+    const rows = await trx
+      .selectFrom('shop_holiday_choices')
+      .distinctOn('day')
+      .select(['day', 'shop_works'])
+      .where('country_code', '=', countryCode)
+      .orderBy('day')
+      .orderBy('decided_at', 'desc')
+      .orderBy('id', 'desc')
+      .execute();
+    return rows.filter((r) => r.shop_works).map((r) => r.day);
+  }
+
   shopSettings(trx: Executor = this.db) {
     return trx.selectFrom('shop_settings').select(['country_code', 'timezone', 'currency']).where('id', '=', 1).executeTakeFirst();
   }

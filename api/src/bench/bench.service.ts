@@ -105,6 +105,9 @@ export class BenchService {
   async shopCalendar(trx: Executor = this.db): Promise<ShopCalendar> {
     const [settings, closures, absenceRows] = await Promise.all([this.bench.shopSettings(trx), this.bench.closures(trx), this.bench.absences(trx)]);
     const country = settings?.country_code.trim() ?? 'US';
+    // Public holidays the owner switched off one by one are ordinary working days.
+    const worked = new Set(await this.bench.workedHolidays(trx, country));
+    const holidayOn = this.holidayOn(country);
     const absences = new Map<string, Closure[]>();
     for (const a of absenceRows) {
       const list = absences.get(a.builder_id) ?? [];
@@ -114,7 +117,7 @@ export class BenchService {
     return {
       absences,
       closures: closures.map((c) => ({ startsOn: c.starts_on, endsOn: c.ends_on, reason: c.reason })),
-      holidayOn: this.holidayOn(country),
+      holidayOn: (day: string) => (worked.has(day) ? null : holidayOn(day)),
       today: todayIn(settings?.timezone ?? 'UTC'),
       currency: settings?.currency.trim() ?? 'USD',
     };

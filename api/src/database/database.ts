@@ -104,6 +104,17 @@ export interface ShopClosuresTable {
   reason: string;
 }
 
+/** Append-only: the latest row per country and day says whether the shop works that public holiday. */
+export interface ShopHolidayChoicesTable {
+  id: Generated<string>;
+  country_code: string;
+  day: CalendarDay;
+  holiday_name: string;
+  shop_works: boolean;
+  decided_by: string | null;
+  decided_at: Generated<Date>;
+}
+
 export interface PriceBookVersionsTable {
   version: number;
   currency: string;
@@ -375,6 +386,7 @@ export interface DB {
   rate_limits: RateLimitsTable;
   builders: BuildersTable;
   shop_closures: ShopClosuresTable;
+  shop_holiday_choices: ShopHolidayChoicesTable;
   price_book_versions: PriceBookVersionsTable;
   bookings: BookingsTable;
   quotes: QuotesTable;

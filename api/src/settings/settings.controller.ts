@@ -1,14 +1,20 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post, Put } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
+  calendarDay,
   createClosureSchema,
+  holidayChoiceSchema,
+  type AuthUser,
+  type HolidayChoiceInput,
+  type HolidayChoiceResponse,
   updateSettingsSchema,
   type AddClosureResponse,
   type CreateClosureInput,
   type ShopClosureView,
   type ShopSettingsView,
   type UpdateSettingsInput, requestWords } from '@loomwright/shared';
+import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
@@ -32,6 +38,18 @@ export class SettingsController {
   @ApiZodBody(updateSettingsSchema)
   update(@Body(new ZodValidationPipe(updateSettingsSchema)) dto: UpdateSettingsInput): Promise<ShopSettingsView> {
     return this.settings.update(dto);
+  }
+
+  /** Whether the shop works on one public holiday of its country (the per-holiday opt-out). */
+  @Put('holidays/:day')
+  @Roles('owner')
+  @ApiZodBody(holidayChoiceSchema)
+  chooseHoliday(
+    @CurrentUser() user: AuthUser,
+    @Param('day', new ZodValidationPipe(calendarDay('day'))) day: string,
+    @Body(new ZodValidationPipe(holidayChoiceSchema)) dto: HolidayChoiceInput,
+  ): Promise<HolidayChoiceResponse> {
+    return this.settings.chooseHoliday(user, day, dto);
   }
 
   @Get('closures')

@@ -1,10 +1,27 @@
 import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
-import type { AddClosureResponse, CreateClosureInput, ShopClosureView, ShopSettingsView, UpdateSettingsInput } from '@loomwright/shared';
+import {
+  shopWords,
+  type AddClosureResponse,
+  type AuthUser,
+  type CreateClosureInput,
+  type HolidayChoiceInput,
+  type HolidayChoiceResponse,
+  type HolidayChoiceView,
+  type ShopClosureView,
+  type ShopSettingsView,
+  type UpdateSettingsInput,
+} from '@loomwright/shared';
 import { addDays, daysBetween, todayIn } from '../bench/calendar-days';
-import { isKnownCountry, publicHolidaysBetween } from '../bench/public-holidays';
+import { publicHolidaysBetween } from '../bench/public-holidays';
 import { Database } from '../database/database';
 import { SettingsRepository } from './settings.repository';
 
+/** How many of the owner's holiday choices the settings page shows. */
+const HOLIDAY_HISTORY_LINES = 20;
+
+function choiceView(c: { day: string; holiday_name: string; shop_works: boolean; decided_at: Date; decided_by_name: string | null }): HolidayChoiceView {
+  return { day: c.day, name: c.holiday_name, shopWorks: c.shop_works, decidedBy: c.decided_by_name, decidedAt: c.decided_at.toISOString() };
+}
 
 @Injectable()
 export class SettingsService {
@@ -16,9 +33,15 @@ export class SettingsService {
   async get(): Promise<ShopSettingsView> {
     const row = await this.settings.find();
     if (!row) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
-    const closures = await this.closures();
+    const country = row.country_code.trim();
+    const [closures, choices, history] = await Promise.all([
+      this.closures(),
+      this.settings.latestHolidayChoices(this.db, country),
+      this.settings.holidayHistory(this.db, country, HOLIDAY_HISTORY_LINES),
+    ]);
+    const worked = new Set(choices.filter((c) => c.shop_works).map((c) => c.day));
     const today = todayIn(row.timezone);
-    const holidays = publicHolidaysBetween(row.country_code.trim(), today, addDays(today, 365));
+    const holidays = publicHolidaysBetween(country, today, addDays(today, 365));
     return {
       name: row.name,
       tagline: row.tagline,
@@ -31,14 +54,12 @@ export class SettingsService {
         ? { line1: row.address_line1, line2: row.address_line2, city: row.address_city, region: row.address_region, postalCode: row.address_postal_code }
         : null,
       closures,
-      upcomingHolidays: [...holidays.entries()].map(([date, name]) => ({ date, name })),
+      upcomingHolidays: [...holidays.entries()].map(([date, name]) => ({ date, name, shopWorks: worked.has(date) })),
+      holidayHistory: history.map(choiceView),
     };
   }
 
   async update(dto: UpdateSettingsInput): Promise<ShopSettingsView> {
-    if (dto.countryCode && !isKnownCountry(dto.countryCode)) {
-      throw new BadRequestException(`The country ${dto.countryCode.toUpperCase()} has no public-holiday data here; use a two-letter country code like US or GB.`);
-    }
     const values = {
       ...(dto.name !== undefined && { name: dto.name }),
       ...(dto.tagline !== undefined && { tagline: dto.tagline }),
@@ -57,6 +78,33 @@ export class SettingsService {
     const updated = await this.settings.update(this.db, values);
     if (!updated) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
     return this.get();
+  }
+
+  /**
+   * Switches one public holiday of the shop's country off (the shop works, the bench is open) or back
+   * on. Each change adds a history row with who and when; asking for the state a day is already in
+   * changes nothing. Closing a day again lists the builds that already hold bench time on it.
+   */
+  async chooseHoliday(user: AuthUser, day: string, dto: HolidayChoiceInput): Promise<HolidayChoiceResponse> {
+    return this.db.transaction().execute(async (trx) => {
+      const row = await this.settings.find(trx);
+      if (!row) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
+      const country = row.country_code.trim();
+      const name = publicHolidaysBetween(country, day, day).get(day);
+      if (!name) throw new BadRequestException(shopWords.notAHoliday(day, country));
+      await this.settings.lockHolidayDay(trx, country, day);
+      const latest = (await this.settings.latestHolidayChoices(trx, country)).find((c) => c.day === day);
+      const current: HolidayChoiceView = latest
+        ? choiceView(latest)
+        : { day, name, shopWorks: false, decidedBy: null, decidedAt: '' };
+      let view = current;
+      if (current.shopWorks !== dto.shopWorks) {
+        const inserted = await this.settings.insertHolidayChoice(trx, { countryCode: country, day, name, shopWorks: dto.shopWorks, decidedBy: user.id });
+        view = choiceView({ ...inserted, decided_by_name: user.name });
+      }
+      const affected = dto.shopWorks ? [] : await this.settings.buildsWithBenchTimeBetween(trx, day, day);
+      return { ...view, buildsOnBenchThen: affected.map((a) => ({ bookingId: a.id, reference: a.reference, days: a.days })) };
+    });
   }
 
   async closures(): Promise<ShopClosureView[]> {

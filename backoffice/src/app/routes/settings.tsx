@@ -11,8 +11,8 @@ import { PageLoading } from 'src/components/PageLoading';
 import { useMe } from 'src/features/auth/api/get-me';
 import { useSettings } from 'src/features/settings/api/get-settings';
 import { ClosuresList } from 'src/features/settings/components/ClosuresList';
+import { HolidaysList } from 'src/features/settings/components/HolidaysList';
 import { ShopDetailsForm } from 'src/features/settings/components/ShopDetailsForm';
-import { formatDay } from 'src/lib/format';
 
 export function Component() {
   const settings = useSettings();
@@ -49,20 +49,9 @@ export function Component() {
           </Card>
           <Card variant="outlined">
             <Typography level="title-md" component="h2">
-              Public holidays ({settings.data.countryCode}), next twelve months
+              Public holidays, next twelve months
             </Typography>
-            <Typography level="body-xs">The bench is closed on these; they come from the date-holidays dataset for the shop's country.</Typography>
-            {settings.data.upcomingHolidays.length === 0 ? (
-              <Typography level="body-sm">None found for this country.</Typography>
-            ) : (
-              <Stack component="ul" sx={{ m: 0, pl: 2.5, columns: { sm: 2 } }}>
-                {settings.data.upcomingHolidays.map((h) => (
-                  <Typography component="li" level="body-sm" key={`${h.date}-${h.name}`}>
-                    {formatDay(h.date)} · {h.name}
-                  </Typography>
-                ))}
-              </Stack>
-            )}
+            <HolidaysList settings={settings.data} canEdit={canEdit} onSaved={setNotice} />
           </Card>
         </Stack>
       )}
