@@ -38,7 +38,9 @@ export function configureApp(app: INestApplication): INestApplication {
   // ZodValidationPipe (common/zod-validation.pipe.ts), and unknown fields are refused there.
   // Every error answer, in one shape with a listed code (common/api-exception.filter.ts).
   app.useGlobalFilters(new ApiExceptionFilter());
-  app.enableShutdownHooks();
+  // SIGTERM and SIGINT drain and exit 0 (see HealthService for the order); process.exit also lets
+  // pino flush its last lines.
+  app.enableShutdownHooks(['SIGTERM', 'SIGINT'], { useProcessExit: true });
   const document = SwaggerModule.createDocument(
     app,
     new DocumentBuilder()

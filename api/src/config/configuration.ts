@@ -71,6 +71,12 @@ const environmentSchema = z.object({
       return origins;
     }),
   RUN_WORKERS: z.enum(['true', 'false']).default('true'),
+  // On SIGTERM: seconds to keep serving while /api/health/ready already answers 503, so a load
+  // balancer polling readiness stops sending work before the listener closes (0: close at once).
+  SHUTDOWN_DELAY_SECONDS: z.coerce.number().int().min(0).max(300).default(0),
+  // On SIGTERM: the most the whole drain (delay, jobs in flight, requests in flight) may take
+  // before the process gives up and exits 1.
+  SHUTDOWN_TIMEOUT_SECONDS: z.coerce.number().int().min(1).max(600).default(30),
   // With it, GET /api/metrics wants `Authorization: Bearer <METRICS_TOKEN>`; without, only loopback callers.
   METRICS_TOKEN: z.string().min(16, 'METRICS_TOKEN: at least 16 characters').optional(),
   // JSON log lines on stdout at this level and above (pino's levels).
@@ -138,6 +144,8 @@ export function configuration() {
       serveApps: env.SERVE_APPS === 'true',
       seedDemo: env.SEED_DEMO === 'true',
       runWorkers: env.RUN_WORKERS === 'true',
+      shutdownDelaySeconds: env.SHUTDOWN_DELAY_SECONDS,
+      shutdownTimeoutSeconds: env.SHUTDOWN_TIMEOUT_SECONDS,
       trustProxy: env.TRUST_PROXY,
       uploadsDir: env.UPLOADS_DIR,
       allowedOrigins: [new URL(env.PUBLIC_URL).origin, ...env.ALLOWED_ORIGINS],

@@ -1,4 +1,4 @@
-import { Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
+import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { CompiledQuery } from 'kysely';
 import PgBoss from 'pg-boss';
@@ -30,7 +30,7 @@ interface DeliverJob {
  * singletonKey keeps at most one waiting job per message.
  */
 @Injectable()
-export class MailWorker implements OnApplicationBootstrap, OnApplicationShutdown {
+export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShutdown, OnApplicationShutdown {
   private readonly logger = new Logger('MailWorker');
   private boss: PgBoss | null = null;
 
@@ -101,6 +101,16 @@ export class MailWorker implements OnApplicationBootstrap, OnApplicationShutdown
     const boss = this.boss;
     this.boss = null;
     if (boss) await boss.stop({ graceful: true, timeout: 10_000, wait: true });
+  }
+
+  /**
+   * Before Nest closes the listener and the database pool: pg-boss stops fetching and waits for
+   * the batch in flight, which still needs the pool to record what it sent. A row enqueued by a
+   * request still draining after this has no job; another replica's sweep (or this one's next
+   * start) sends it.
+   */
+  async beforeApplicationShutdown() {
+    await this.stop();
   }
 
   async onApplicationShutdown() {
