@@ -17,6 +17,7 @@ import { EstimatesModule } from './estimates/estimates.module';
 import { ExportsModule } from './exports/exports.module';
 import { ReportsModule } from './reports/reports.module';
 import { CalendarFeedsModule } from './calendar-feeds/calendar-feeds.module';
+import { TodayModule } from './today/today.module';
 import { QuotesModule } from './quotes/quotes.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -88,6 +89,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     ExportsModule,
     ReportsModule,
     CalendarFeedsModule,
+    TodayModule,
     ConfigurationsModule,
   ],
 })

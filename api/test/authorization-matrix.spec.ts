@@ -190,6 +190,8 @@ const matrix: Record<string, Entry> = {
   'GET /api/reports/hours': ownerOnly(400),
   'GET /api/reports/utilisation': ownerOnly(400),
   'GET /api/calendar-feeds': ownerOnly(200),
+  'GET /api/calendar-feeds/mine': staff(200),
+  'GET /api/today': staff(200),
   'POST /api/calendar-feeds/:id/rotate': { ...ownerOnly(404), path: () => `/api/calendar-feeds/${UNKNOWN_ID}/rotate` },
   'GET /api/calendar-feeds/:id/:token/bench.ics': { ...open(404), path: () => `/api/calendar-feeds/${UNKNOWN_ID}/not-the-secret/bench.ics` },
 };

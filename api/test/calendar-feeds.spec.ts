@@ -133,4 +133,21 @@ describe('calendar feeds', () => {
     expect((await builder.get('/api/calendar-feeds')).status).toBe(403);
     expect((await t.http().get('/api/calendar-feeds')).status).toBe(401);
   });
+
+  it('gives each builder their own link (GET /api/calendar-feeds/mine), the same one the owner lists, and follows a rotation', async () => {
+    const builder = await signIn(t.app, 'builder@shop.example');
+    const mine = (await builder.get('/api/calendar-feeds/mine').expect(200)).body as CalendarFeedLink[];
+    expect(mine).toHaveLength(1);
+    expect(mine[0]).toMatchObject({ scope: 'builder', builderId: await builderId(t.db, 'builder@shop.example') });
+    const listed = ((await owner.get('/api/calendar-feeds').expect(200)).body as CalendarFeedLink[]).find((l) => l.id === mine[0]!.id);
+    expect(listed).toEqual(mine[0]);
+    // The link opens the builder's feed as iCalendar text (RFC 5545 starts it with BEGIN:VCALENDAR).
+    const text = (await t.http().get(new URL(mine[0]!.url).pathname).expect(200)).text;
+    expect(text.startsWith('BEGIN:VCALENDAR')).toBe(true);
+    const rotated = (await owner.post(`/api/calendar-feeds/${mine[0]!.id}/rotate`).send({}).expect(200)).body as CalendarFeedLink;
+    const after = (await builder.get('/api/calendar-feeds/mine').expect(200)).body as CalendarFeedLink[];
+    expect(after[0]!.url).toBe(rotated.url);
+    expect(after[0]!.url).not.toBe(mine[0]!.url);
+    expect((await t.http().get('/api/calendar-feeds/mine')).status).toBe(401);
+  });
 });

@@ -26,6 +26,7 @@ export * from './shop-schemas';
 export * from './quote-schemas';
 export * from './format/shop-format';
 export * from './office-schemas';
+export * from './today-schemas';
 export * from './storefront-paths';
 export * from './configuration-schemas';
 export * from './words';

@@ -22,6 +22,14 @@ export class CalendarFeedsController {
     return this.feeds.list();
   }
 
+  @Get('mine')
+  @Roles('builder', 'owner')
+  @ApiCookieAuth('lw_session')
+  @ApiOkResponse({ description: 'The secret link of the signed-in builder’s own bench feed (an empty list for an account without a bench).' })
+  mine(@CurrentUser() user: AuthUser): Promise<CalendarFeedLink[]> {
+    return this.feeds.mine(user);
+  }
+
   @Post(':id/rotate')
   @HttpCode(200)
   @Roles('owner')

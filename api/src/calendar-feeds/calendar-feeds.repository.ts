@@ -22,7 +22,7 @@ export class CalendarFeedsRepository {
       .selectFrom('calendar_feeds as f')
       .leftJoin('builders as b', 'b.id', 'f.builder_id')
       .leftJoin('users as u', 'u.id', 'b.user_id')
-      .select(['f.id', 'f.builder_id', 'f.generation', 'f.rotated_at', 'u.name as builder_name', 'b.level as builder_level'])
+      .select(['f.id', 'f.builder_id', 'f.generation', 'f.rotated_at', 'u.name as builder_name', 'b.level as builder_level', 'b.user_id'])
       .orderBy(sql`f.builder_id is not null`)
       .orderBy('u.name')
       .execute();

@@ -63,6 +63,12 @@ export class CalendarFeedsService {
     return (await this.feeds.list()).map((f) => this.link(f));
   }
 
+  /** The feed of the signed-in builder's own bench (none for an account without a bench). */
+  async mine(user: AuthUser): Promise<CalendarFeedLink[]> {
+    await this.feeds.ensureFeeds();
+    return (await this.feeds.list()).filter((f) => f.user_id === user.id).map((f) => this.link(f));
+  }
+
   async rotate(id: string, user: AuthUser): Promise<CalendarFeedLink> {
     const done = await this.feeds.rotate(id, user.id);
     if (!done) throw new NotFoundException('There is no calendar feed with that id.');

@@ -20,6 +20,8 @@ const router = createBrowserRouter(
           errorElement: <RouteError />,
           children: [
             { index: true, handle: titled('Overview'), lazy: () => import('src/app/routes/overview') },
+            { path: 'today', handle: titled('Today'), lazy: () => import('src/app/routes/today') },
+            { path: 'calendars', handle: titled('Calendar links'), lazy: () => import('src/app/routes/calendars') },
             { path: 'requests', handle: titled('Requests'), lazy: () => import('src/app/routes/requests') },
             { path: 'bench', handle: titled('Bench'), lazy: () => import('src/app/routes/bench') },
             { path: 'builds', handle: titled('Builds'), lazy: () => import('src/app/routes/builds') },

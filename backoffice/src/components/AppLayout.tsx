@@ -16,6 +16,7 @@ import { useHealth } from 'src/features/shop/api/get-health';
 import { useShop } from 'src/features/shop/api/get-shop';
 
 export const navigation = [
+  { to: '/today', label: 'Today' },
   { to: '/', label: 'Overview', end: true },
   { to: '/requests', label: 'Requests' },
   { to: '/bench', label: 'Bench' },
@@ -26,6 +27,7 @@ export const navigation = [
   { to: '/team', label: 'Team' },
   { to: '/settings', label: 'Settings' },
   { to: '/mail', label: 'Mail log' },
+  { to: '/calendars', label: 'Calendar links' },
 ];
 
 /**

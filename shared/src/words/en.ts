@@ -283,5 +283,25 @@ export const checkWords = {
   typicalFigure: 'a typical figure',
 } as const;
 
-export const en = { fieldLabels, weekdayNames, rules, authWords, rigWords, shopWords, bookingWords, requestWords, checkWords, label, humanizeField, orList, valueWords };
+/** A builder's today (staff): what each build waits for and what to do next; hours and days come formatted. */
+export const todayWords = {
+  noTracking: 'Parcel: the player has not given a tracking number yet',
+  parcelOnItsWay: (carrier: string | null, tracking: string) => `Parcel on its way${carrier ? ` with ${carrier}` : ''} (tracking ${tracking}); check the pedals in when it arrives`,
+  layoutApproval: 'The player’s approval of the layout',
+  extraApproval: (count: number) => `The player’s answer on ${count === 1 ? 'an extra' : `${count} extras`}`,
+  balance: (amount: string) => `The balance of ${amount}`,
+  hoursToRecord: (planned: string, recorded: string) => `Hours for today: ${planned} planned, ${recorded} recorded`,
+  askForTracking: 'Ask the player for the parcel’s tracking number',
+  checkIn: 'Check the parcel in: record every pedal as working or faulty',
+  waitForApproval: 'Wait for the player’s answer; work on what it does not touch',
+  startBuild: 'Start the build: mount, wire and label',
+  keepBuilding: 'Keep building; record the hours you spend',
+  test: 'Test every path, preset and the power, then mark it ready',
+  waitForBalance: 'Wait for the balance, or record it taken in person',
+  handOver: 'Ship it or hand it over, then mark it delivered',
+  ownerOnlyAll: 'Only the owner sees every builder’s builds; your today shows your own',
+  noBench: 'Your account has no bench of its own on the team, so it has no builds to list',
+} as const;
+
+export const en = { fieldLabels, weekdayNames, rules, authWords, rigWords, shopWords, bookingWords, requestWords, checkWords, todayWords, label, humanizeField, orList, valueWords };
 export type Words = typeof en;

@@ -11,13 +11,14 @@ export function Component() {
   const me = useMe();
   const navigate = useNavigate();
   const [params] = useSearchParams();
-  const next = safeNextPath(params.get('next'), '/');
+  // With no page asked for, a builder lands on their today; the owner on the overview.
+  const landing = (role: string) => safeNextPath(params.get('next'), role === 'builder' ? '/today' : '/');
   if (me.isPending) return <PageLoading />;
-  if (me.data && staffRoles.includes(me.data.role)) return <Navigate to={next} replace />;
+  if (me.data && staffRoles.includes(me.data.role)) return <Navigate to={landing(me.data.role)} replace />;
   if (me.data) return <StaffOnly user={me.data} />;
   return (
     <AuthCard title="Staff sign in" intro="For the shop’s builders and owner. Players sign in on the shop’s own pages.">
-      <StaffSignInForm onSignedIn={(user) => staffRoles.includes(user.role) && navigate(next, { replace: true })} />
+      <StaffSignInForm onSignedIn={(user) => staffRoles.includes(user.role) && navigate(landing(user.role), { replace: true })} />
       {/* Password resets go through the storefront's page; the e-mailed link works for staff too. */}
       <Link href="/forgot-password" level="body-sm">Forgot your password?</Link>
     </AuthCard>
