@@ -340,7 +340,7 @@ async function dataSection() {
   const db = new Kysely({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: `postgres://postgres@127.0.0.1:${ports.pg}/${dbName}`, max: 2 }) }) });
   say(`seeding a year of data (${scale.bookings.toLocaleString('en-US')} bookings)…`);
   const t0 = performance.now();
-  const counts = await seedYearOfData(db, scale);
+  const counts = await seedYearOfData(db, scale, (step, s) => say(`  seed ${step}: ${s.toFixed(1)} s`));
   const seedSeconds = (performance.now() - t0) / 1000;
   await db.destroy();
   row('data', 'seed: a year of data', `${seedSeconds.toFixed(1)} s`, '', '', '< 120 s');

@@ -38,6 +38,48 @@ export type CreateBookingInput = z.infer<typeof createBookingSchema>;
 
 export const bookingSortColumns = ['created_at', 'updated_at', 'reference', 'state', 'bench_date'] as const;
 
+/**
+ * Where the next page of GET /api/bookings starts (keyset paging): the list's sort and order, and
+ * the last row's sort value as PostgreSQL writes it (null for a build with no bench date) and id.
+ * Travels as `cursor`, base64url of a small JSON array, so a link or a script can carry it as is.
+ */
+export interface BookingListCursor {
+  sort: (typeof bookingSortColumns)[number];
+  order: 'asc' | 'desc';
+  key: string | null;
+  id: string;
+}
+
+const cursorKeyShapes: Record<BookingListCursor['sort'], RegExp> = {
+  created_at: /^\d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2}(\.\d{1,6})?[+-]\d{2}(:\d{2})?$/,
+  updated_at: /^\d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2}(\.\d{1,6})?[+-]\d{2}(:\d{2})?$/,
+  bench_date: /^\d{4}-\d{2}-\d{2}$/,
+  reference: /^.{1,40}$/,
+  state: new RegExp(`^(${bookingStates.join('|')})$`),
+};
+const uuidShape = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export const encodeBookingListCursor = (c: BookingListCursor): string =>
+  btoa(JSON.stringify([c.sort, c.order, c.key, c.id])).replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '');
+
+/** The cursor, or null when it is not one this list wrote (damaged, or from another version). */
+export function decodeBookingListCursor(value: string): BookingListCursor | null {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(atob(value.replace(/-/g, '+').replace(/_/g, '/')));
+  } catch {
+    return null;
+  }
+  if (!Array.isArray(parsed) || parsed.length !== 4) return null;
+  const [sort, order, key, id] = parsed as unknown[];
+  if (typeof sort !== 'string' || !Object.hasOwn(cursorKeyShapes, sort)) return null;
+  if (order !== 'asc' && order !== 'desc') return null;
+  if (typeof id !== 'string' || !uuidShape.test(id)) return null;
+  const column = sort as BookingListCursor['sort'];
+  if (key === null ? column !== 'bench_date' : typeof key !== 'string' || !cursorKeyShapes[column].test(key)) return null;
+  return { sort: column, order, key: key as string | null, id };
+}
+
 /** GET /api/bookings: a page of bookings, filtered and sorted. */
 export const listBookingsQuerySchema = requestObject({
   ...pagingQuery,
@@ -47,7 +89,20 @@ export const listBookingsQuerySchema = requestObject({
   deposit: oneOf('deposit', depositStatuses).optional(),
   /** Part of the reference, the customer's name or e-mail. */
   q: text('q', { max: 200 }).optional(),
-});
+  /** The previous page's `nextCursor`: the page after it, found through the sort's index (`page` is then not used). */
+  cursor: z
+    .string({ error: bookingWords.listCursor })
+    .max(400, { error: bookingWords.listCursor })
+    .transform((value, ctx) => {
+      const cursor = decodeBookingListCursor(value);
+      if (!cursor) {
+        ctx.addIssue({ code: 'custom', message: bookingWords.listCursor });
+        return z.NEVER;
+      }
+      return cursor;
+    })
+    .optional(),
+}).refine((q) => !q.cursor || (q.cursor.sort === q.sort && q.cursor.order === q.order), { error: bookingWords.listCursorOtherOrder, path: ['cursor'] });
 export type ListBookingsQuery = z.infer<typeof listBookingsQuerySchema>;
 
 /** POST /api/bookings/:id/cancel: the player's reason, shown to the shop. */

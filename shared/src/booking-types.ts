@@ -9,6 +9,8 @@ export interface Page<T> {
   total: number;
   page: number;
   pageSize: number;
+  /** Where a list with keyset paging (GET /api/bookings) goes on: pass it as `cursor`; null on the last page. */
+  nextCursor?: string | null;
 }
 
 /**

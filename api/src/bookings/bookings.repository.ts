@@ -47,6 +47,25 @@ export interface BookingListQuery {
   order: 'asc' | 'desc';
   limit: number;
   offset: number;
+  /** Keyset paging: the rows after this one in the list's order (then `offset` is not used). */
+  after?: { key: string | null; id: string };
+}
+
+/**
+ * The rows after `after` in the list's order (sort column, then id, both one way). On a column that
+ * is never null a row comparison, which the (column, id) index answers directly; `bench_date` may be
+ * null, and PostgreSQL puts nulls last going up and first going down.
+ */
+function afterRow(sort: BookingListQuery['sort'], order: 'asc' | 'desc', after: { key: string | null; id: string }) {
+  const col = sql.ref(`bookings.${sort}`);
+  const id = sql.ref('bookings.id');
+  const cmp = sql.raw(order === 'asc' ? '>' : '<');
+  if (sort !== 'bench_date') return sql<boolean>`(${col}, ${id}) ${cmp} (${after.key}, ${after.id}::uuid)`;
+  if (after.key === null) {
+    return order === 'asc' ? sql<boolean>`(${col} is null and ${id} > ${after.id}::uuid)` : sql<boolean>`(${col} is not null or ${id} < ${after.id}::uuid)`;
+  }
+  const tail = order === 'asc' ? sql` or ${col} is null` : sql``;
+  return sql<boolean>`((${col}, ${id}) ${cmp} (${after.key}::date, ${after.id}::uuid)${tail})`;
 }
 
 // A booking's deposit in one word, from its payment rows: paid wins over an open checkout.
@@ -188,25 +207,27 @@ export class BookingsRepository {
       ]);
   }
 
-  async list(query: BookingListQuery, trx: Executor = this.db): Promise<{ rows: BookingListRow[]; total: number }> {
+  async list(query: BookingListQuery, trx: Executor = this.db): Promise<{ rows: Array<BookingListRow & { sort_key: string | null }>; total: number }> {
     const { total } = await this.filtered(trx.selectFrom('bookings'), trx, query)
       .select((eb) => eb.fn.countAll<string>().as('total'))
       .executeTakeFirstOrThrow();
     // The id breaks ties in the same direction as the sort, so one index (sort column, id) serves both orders.
     // The page's ids are found first on bookings alone: rows skipped by OFFSET are then only index
     // entries, never joined rows with their deposit status worked out (which made a late page cost seconds).
-    const pageIds = this.filtered(trx.selectFrom('bookings'), trx, query)
+    let pageIds = this.filtered(trx.selectFrom('bookings'), trx, query)
       .select('bookings.id')
       .orderBy(`bookings.${query.sort}`, query.order)
       .orderBy('bookings.id', query.order)
-      .limit(query.limit)
-      .offset(query.offset);
+      .limit(query.limit);
+    pageIds = query.after ? pageIds.where(afterRow(query.sort, query.order, query.after)) : pageIds.offset(query.offset);
     const rows = await this.listRows(trx, {})
+      // The sort value as PostgreSQL writes it (microseconds kept), for the next page's cursor.
+      .select(sql<string | null>`${sql.ref(`bookings.${query.sort}`)}::text`.as('sort_key'))
       .where('bookings.id', 'in', pageIds)
       .orderBy(`bookings.${query.sort}`, query.order)
       .orderBy('bookings.id', query.order)
       .execute();
-    return { rows: rows as BookingListRow[], total: Number(total) };
+    return { rows: rows as Array<BookingListRow & { sort_key: string | null }>, total: Number(total) };
   }
 
   async findListRow(id: string, trx: Executor = this.db): Promise<BookingListRow | undefined> {

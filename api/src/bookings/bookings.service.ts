@@ -1,6 +1,6 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import type { AuthUser, BookingDetail, BookingState, BookingSummary, CreateBookingInput, ListBookingsQuery, Page, RigConfiguration, ShipmentInput } from '@loomwright/shared';
-import { bookingStateLabels, moneyFacts, staffRoles, type MoneyFacts } from '@loomwright/shared';
+import { bookingStateLabels, encodeBookingListCursor, moneyFacts, staffRoles, type MoneyFacts } from '@loomwright/shared';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { quoteMailLines } from '../mail/quote-mail-lines';
@@ -101,13 +101,16 @@ export class BookingsService {
       order: query.order,
       limit: pageSize,
       offset: (page - 1) * pageSize,
+      after: query.cursor ? { key: query.cursor.key, id: query.cursor.id } : undefined,
     });
     const quotes = await this.bookings.quoteSummariesFor(rows.map((r) => r.id));
+    const last = rows.length === pageSize ? rows[rows.length - 1] : undefined;
     return {
       items: rows.map((row) => summaryView(row, quotes.filter((q) => q.booking_id === row.id))),
       total,
       page,
       pageSize,
+      nextCursor: last ? encodeBookingListCursor({ sort: query.sort, order: query.order, key: last.sort_key, id: last.id }) : null,
     };
   }
 

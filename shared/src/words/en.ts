@@ -242,6 +242,8 @@ export const shopWords = {
 
 /** A booking's change of plan, intake, hours, extras, notes, payments (mostly staff; some players). */
 export const bookingWords = {
+  listCursor: 'That page link is damaged or out of date; start again from the first page',
+  listCursorOtherOrder: 'That page link belongs to another order of the list; start again from the first page',
   moveReason: 'Reason is required: say why the build moves (the player reads it)',
   cancelReason: 'Reason is required: say why the build is cancelled (the player reads it)',
   absenceReason: 'Reason is required: say why (only the shop sees it)',
