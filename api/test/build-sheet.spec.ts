@@ -175,9 +175,10 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     expect(flat).toContain("Extras waiting for the player's answer ($60.00) are not counted until approved.");
     expect(flat).toMatch(/Engraved plate ?declined ?\$25\.00/);
     // The firm quote's lines (labor at the one rate) add up to its total, to the cent.
-    const amounts = [...flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total')).matchAll(/\$([\d,]+\.\d{2})/g)].map((m) => cents(m[1]!.replace(/,/g, '')));
+    // (The rate inside each line's explanation, "at $125.00 per hour", is words, not an amount.)
+    const amounts = [...flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total')).matchAll(/(?<!at )\$([\d,]+\.\d{2})/g)].map((m) => cents(m[1]!.replace(/,/g, '')));
     expect(amounts.length).toBeGreaterThan(3);
-    expect(flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total'))).toContain('at 125.00 per hour');
+    expect(flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total'))).toContain('at $125.00 per hour'); // en-US dollars as ECMA-402 Intl.NumberFormat writes them (CLDR ¤#,##0.00)
     expect(flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total'))).not.toMatch(/per hour.*–|–.*per hour/);
     expect(amounts.reduce((a, b) => a + b, 0n)).toBe(totalCents);
   });

@@ -74,6 +74,20 @@ describe('trade facts per item (common practice, no published source)', () => {
     expect(r.checks!.complexity.functionCount).toBe(3);
   });
 
+  it('explains each labor line at the level’s rates with the currency, in the shop’s locale', () => {
+    const r = estimateRig(referenceBoard('switcher', 'master'), demoPriceBook, v1);
+    // Master rates 100.00–150.00 an hour in the demo book. Expected words from ECMA-402
+    // Intl.NumberFormat#formatRange as the runtime's CLDR data writes US dollars (en-US) and euros (de-DE).
+    const usd = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+    const range = (usd as unknown as { formatRange(a: number, b: number): string }).formatRange(100, 150);
+    expect(range).toContain('$100.00');
+    for (const l of r.lines.filter((x) => x.kind === 'labor')) expect(l.explanation).toBe(`${l.basis}, at ${range} per hour`);
+    const de = estimateRig(referenceBoard('switcher', 'master'), { ...demoPriceBook, currency: 'EUR' }, { ...v1, locale: 'de-DE' });
+    const eur = (new Intl.NumberFormat('de-DE', { style: 'currency', currency: 'EUR' }) as unknown as { formatRange(a: number, b: number): string }).formatRange(100, 150);
+    expect(eur).toContain('€');
+    expect(de.lines.find((x) => x.kind === 'labor')!.explanation).toMatch(new RegExp(`, at ${eur.replace(/[.$]/g, '\\$&')} per hour$`));
+  });
+
   it('a soft bag is allowed but flagged as not recommended for a loaded board', () => {
     const r = estimateRig({ ...referenceBoard('serial', 'master'), caseId: 'gig-bag' }, demoPriceBook, v1);
     expect(r.notes.some((n) => n.includes('not recommended'))).toBe(true);

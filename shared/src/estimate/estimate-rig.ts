@@ -8,6 +8,7 @@ import { signalChainOf } from '../checks/signal-chain';
 import type { RigChecks, SignalChain } from '../checks/types';
 import { levelRank } from '../domain';
 import type { FunctionItem, PriceBook } from '../price-book/types';
+import { shopFormat } from '../format/shop-format';
 import { rigWords as w } from '../words';
 import { EstimateInputError } from './errors';
 import { minorUnitDigits, roundToMinorUnit } from './money';
@@ -119,7 +120,7 @@ function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBo
  * totals, the deposit by the shop's policy, and the engineering checks. Pure: the same inputs
  * always give the same answer, so an old quote can be re-derived from its stored version.
  */
-export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { version: number }): EstimateResult {
+export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { version: number; locale?: string }): EstimateResult {
   const { surface, rigCase, functions, level } = resolve(config, book);
   const currency = book.currency;
   const digits = minorUnitDigits(currency)!;
@@ -176,6 +177,8 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
   const rateHigh = parsed(level.rateHigh);
   const rateLowText = fmt(rateLow);
   const rateHighText = fmt(rateHigh);
+  // The rate in words comes from the one formatter, with the currency ("$100.00–$150.00").
+  const rateWords = shopFormat({ currency, ...(meta.locale && { locale: meta.locale }) }).moneyRange(rateLow.toFixed(), rateHigh.toFixed());
   let laborHours = new Decimal(0);
   let laborLow = new Decimal(0);
   let laborHigh = new Decimal(0);
@@ -185,6 +188,7 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
     laborHours = laborHours.plus(item.hours);
     laborLow = laborLow.plus(low);
     laborHigh = laborHigh.plus(high);
+    const basis = `${item.quantity} ${item.unit}${item.quantity === '1' ? '' : 's'}: ${item.explanation}`;
     lines.push({
       code: item.code,
       label: item.label,
@@ -194,7 +198,8 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
       unitPrice: rateLowText,
       amount: low.toFixed(digits),
       amountHigh: high.toFixed(digits),
-      explanation: `${item.quantity} ${item.unit}${item.quantity === '1' ? '' : 's'}: ${item.explanation}, at ${rateLowText}–${rateHighText} per hour`,
+      explanation: w.laborAt(basis, rateWords),
+      basis,
     });
   }
 

@@ -83,6 +83,11 @@ export interface EstimateLine {
   /** Labor lines are priced at the level's range: amount is the low end, amountHigh the high end. */
   amountHigh?: string;
   explanation?: string;
+  /**
+   * Labor lines: what the hours count, without the rate ("2 pedals: about an hour each"). The
+   * explanation adds the rate in the shop's money; a firm quote words it again at one rate.
+   */
+  basis?: string;
 }
 
 /** POST /api/estimates answers with this. Every amount is a decimal string. */

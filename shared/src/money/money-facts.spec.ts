@@ -98,8 +98,10 @@ describe('money facts of any booking history (fast-check)', () => {
         const lines = firmQuoteLines(estimate.lines, hourlyRate, figures.laborTotal, 'USD');
         const labor = lines.filter((l) => l.kind === 'labor');
         expect(labor.every((l) => l.unitPrice === hourlyRate && l.amountHigh === undefined)).toBe(true);
-        // Each labor line explains itself at the one firm rate, never the level's range.
-        expect(labor.every((l) => l.explanation === undefined || (l.explanation.endsWith(`, at ${hourlyRate} per hour`) && !l.explanation.includes('–')))).toBe(true);
+        // Each labor line explains itself at the one firm rate, never the level's range, with the
+        // currency as ECMA-402 Intl.NumberFormat writes US dollars in en-US (CLDR pattern ¤#,##0.00).
+        const rateWords = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(Number(hourlyRate));
+        expect(labor.every((l) => l.explanation === undefined || (l.explanation.endsWith(`, at ${rateWords} per hour`) && !l.explanation.includes('–')))).toBe(true);
         expect(labor.reduce((s, l) => s + cents(l.amount), 0n)).toBe(cents(figures.laborTotal));
         expect(lines.reduce((s, l) => s + cents(l.amount), 0n)).toBe(cents(figures.total));
         // Each labor line stays within a cent per line of its exact hours × rate.

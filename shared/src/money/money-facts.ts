@@ -1,6 +1,8 @@
 import Decimal from 'decimal.js';
 import type { EstimateLine } from '../estimate/types';
 import { formatMoney, minorUnitDigits } from '../estimate/money';
+import { shopFormat } from '../format/shop-format';
+import { rigWords } from '../words';
 
 /**
  * The money facts of one booking, computed in one place for the API, both apps, the e-mails and
@@ -112,7 +114,8 @@ export function moneyFacts(input: MoneyFactsInput): MoneyFacts {
  * round down, then the cents left over go to the lines that lost most in rounding. So the lines
  * a player reads always add up to the total beneath them.
  */
-export function firmQuoteLines(lines: EstimateLine[], hourlyRate: string, laborTotal: string, currency: string): EstimateLine[] {
+export function firmQuoteLines(lines: EstimateLine[], hourlyRate: string, laborTotal: string, currency: string, locale?: string): EstimateLine[] {
+  const rateWords = shopFormat({ currency, ...(locale && { locale }) }).money(hourlyRate);
   const digits = minorUnitDigits(currency);
   if (digits === undefined) throw new Error(`Unknown ISO 4217 currency ${currency}`);
   const unit = new Decimal(10).pow(-digits);
@@ -135,7 +138,7 @@ export function firmQuoteLines(lines: EstimateLine[], hourlyRate: string, laborT
     const amount = amounts[j++];
     const { amountHigh: _high, ...rest } = line;
     // The estimate explains a labor line at the level's range of rates; a firm line is at one rate.
-    const explanation = rest.explanation?.replace(/, at [^,]+–[^,]+ per hour$/, `, at ${formatMoney(hourlyRate, currency)} per hour`);
+    const explanation = rest.basis !== undefined ? rigWords.laborAt(rest.basis, rateWords) : rest.explanation;
     return { ...rest, ...(explanation !== undefined && { explanation }), unitPrice: formatMoney(hourlyRate, currency), amount: amount.toFixed(digits) };
   });
 }

@@ -148,6 +148,8 @@ export const authWords = {
 
 /** The rig configuration: what the configurator and POST /api/estimates say (players read these). */
 export const rigWords = {
+  /** A labor line's explanation: what the hours count, then the rate ("… , at $100.00–$150.00 per hour"). */
+  laborAt: (basis: string, rate: string) => `${basis}, at ${rate} per hour`,
   pedalName: 'Pedal name',
   pedalKind: (kinds: readonly string[]) => `Pedal type must be one of: ${orList(kinds.map(valueWords))}`,
   powered: 'Powered',
