@@ -16,6 +16,7 @@ import { DatabaseModule } from './database/database.module';
 import { EstimatesModule } from './estimates/estimates.module';
 import { ExportsModule } from './exports/exports.module';
 import { ReportsModule } from './reports/reports.module';
+import { MessagesModule } from './messages/messages.module';
 import { CalendarFeedsModule } from './calendar-feeds/calendar-feeds.module';
 import { TodayModule } from './today/today.module';
 import { QuotesModule } from './quotes/quotes.module';
@@ -88,6 +89,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     BuildSheetsModule,
     ExportsModule,
     ReportsModule,
+    MessagesModule,
     CalendarFeedsModule,
     TodayModule,
     ConfigurationsModule,

@@ -30,3 +30,4 @@ export * from './today-schemas';
 export * from './storefront-paths';
 export * from './configuration-schemas';
 export * from './words';
+export * from './message-schemas';

@@ -15,6 +15,16 @@ export const MAX_PHOTOS_PER_BOOKING = 8;
 /** Formats every browser shows; judged by the file's first bytes, never by its name or header, then re-encoded. */
 const allowedImages: Record<string, string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' };
 
+/** A checked, re-encoded and stored photo, ready to be recorded in a `photos` row. */
+export interface PreparedPhoto {
+  storage_key: string;
+  thumbnail_key: string;
+  content_type: string;
+  size_bytes: number;
+  width: number;
+  height: number;
+}
+
 export interface UploadedPhoto {
   buffer: Buffer;
   size: number;
@@ -36,18 +46,8 @@ export class BookingPhotosService {
     options: { caption?: string; kind?: 'intake' | 'build' },
   ): Promise<PhotoView> {
     const booking = await this.bookings.findVisible(user, bookingId);
-    if (!file || file.size === 0) throw new BadRequestException('Attach a photo: the upload holds no file (send it in the multipart field "file").');
-    if (file.size > MAX_PHOTO_BYTES) throw new PayloadTooLargeException(errorResponse('photo_too_large', photoTooLargeMessage));
-    const type = await fileTypeFromBuffer(file.buffer);
-    const ext = type && allowedImages[type.mime];
-    if (!type || !ext) {
-      throw new BadRequestException(
-        requestWords.notAPhoto(type?.mime),
-      );
-    }
-    const processed = await this.reencode(file.buffer, type.mime as PhotoFormat);
+    const photo = await this.prepare(booking.id, file);
     const staff = staffRoles.includes(user.role);
-    const keys = await this.store(booking.id, processed);
     try {
       const row = await this.db.transaction().execute(async (trx) => {
         // The lock makes the per-booking limit hold under concurrent uploads.
@@ -60,19 +60,42 @@ export class BookingPhotosService {
           booking_id: booking.id,
           uploaded_by: user.id,
           kind: staff ? (options.kind ?? 'build') : 'customer',
-          ...keys,
-          content_type: processed.full.contentType,
-          size_bytes: processed.full.bytes.length,
-          width: processed.width,
-          height: processed.height,
+          ...photo,
           caption: options.caption?.trim() ?? '',
         });
       });
       return photoView(row);
     } catch (error) {
-      await this.removeAll(keys);
+      await this.discard(photo);
       throw error;
     }
+  }
+
+  /**
+   * Checks an upload (present, within the size, a JPEG, PNG or WebP by its bytes), re-encodes it
+   * without camera metadata and writes both copies to the photo store. The caller inserts the
+   * photo row in its own transaction, or calls discard() when that fails.
+   */
+  async prepare(bookingId: string, file: UploadedPhoto | undefined): Promise<PreparedPhoto> {
+    if (!file || file.size === 0) throw new BadRequestException('Attach a photo: the upload holds no file (send it in the multipart field "file").');
+    if (file.size > MAX_PHOTO_BYTES) throw new PayloadTooLargeException(errorResponse('photo_too_large', photoTooLargeMessage));
+    const type = await fileTypeFromBuffer(file.buffer);
+    const ext = type && allowedImages[type.mime];
+    if (!type || !ext) throw new BadRequestException(requestWords.notAPhoto(type?.mime));
+    const processed = await this.reencode(file.buffer, type.mime as PhotoFormat);
+    const keys = await this.store(bookingId, processed);
+    return {
+      ...keys,
+      content_type: processed.full.contentType,
+      size_bytes: processed.full.bytes.length,
+      width: processed.width,
+      height: processed.height,
+    };
+  }
+
+  /** Removes the stored copies of a prepared photo whose row was never written. */
+  discard(photo: Pick<PreparedPhoto, 'storage_key' | 'thumbnail_key'>) {
+    return this.removeAll(photo);
   }
 
   /**

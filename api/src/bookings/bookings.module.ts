@@ -21,6 +21,6 @@ import { QuotePricer } from './quote-pricer';
     { provide: QuotePricer, useExisting: EstimatesService },
     { provide: APP_INTERCEPTOR, useClass: CustomerContactInterceptor },
   ],
-  exports: [BookingsService],
+  exports: [BookingsService, BookingPhotosService],
 })
 export class BookingsModule {}

@@ -263,7 +263,8 @@ export class BookingsRepository {
   }
 
   photosFor(bookingId: string, trx: Executor = this.db): Promise<PhotoRow[]> {
-    return trx.selectFrom('photos').selectAll().where('booking_id', '=', bookingId).orderBy('created_at').execute();
+    // A message's photos belong to its thread, not to the booking's photo list.
+    return trx.selectFrom('photos').selectAll().where('booking_id', '=', bookingId).where('message_id', 'is', null).orderBy('created_at').execute();
   }
 
   extrasFor(bookingId: string, trx: Executor = this.db): Promise<ExtraRow[]> {
@@ -296,6 +297,7 @@ export class BookingsRepository {
       .selectFrom('photos')
       .select((eb) => eb.fn.countAll<string>().as('n'))
       .where('booking_id', '=', bookingId)
+      .where('message_id', 'is', null)
       .executeTakeFirstOrThrow()
       .then((r) => Number(r.n));
   }

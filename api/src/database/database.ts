@@ -274,6 +274,41 @@ export interface PhotosTable {
   thumbnail_key: string | null;
   width: number | null;
   height: number | null;
+  /** Set when the photo travels with a message on the build's conversation. */
+  message_id: string | null;
+}
+
+export type MessageSideColumn = 'player' | 'shop';
+
+export interface BuildMessagesTable {
+  id: Generated<string>;
+  /** bigserial: a decimal string. */
+  seq: ColumnType<string, never, never>;
+  booking_id: string;
+  author_id: string;
+  side: MessageSideColumn;
+  body: string;
+  created_at: Timestamp;
+}
+
+export interface MessageReadMarkersTable {
+  booking_id: string;
+  side: MessageSideColumn;
+  read_seq: ColumnType<string, string | number, string | number>;
+  read_at: Timestamp;
+}
+
+export interface MessageNoticesTable {
+  id: Generated<string>;
+  booking_id: string;
+  side: MessageSideColumn;
+  from_seq: ColumnType<string, string | number, string | number>;
+  due_at: ColumnType<Date, Date | string, Date | string>;
+  state: ColumnType<'waiting' | 'sent' | 'skipped', 'waiting' | undefined, 'waiting' | 'sent' | 'skipped'>;
+  message_count: number | null;
+  outbox_id: string | null;
+  settled_at: NullableTimestamp;
+  created_at: Timestamp;
 }
 
 export interface IntakeItemsTable {
@@ -400,6 +435,9 @@ export interface DB {
   time_entries: TimeEntriesTable;
   bench_allocations: BenchAllocationsTable;
   mail_outbox: MailOutboxTable;
+  build_messages: BuildMessagesTable;
+  message_read_markers: MessageReadMarkersTable;
+  message_notices: MessageNoticesTable;
 }
 
 /** The database as its own DI token: inject `Database` anywhere a Kysely instance is needed. */

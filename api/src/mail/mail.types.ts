@@ -21,6 +21,7 @@ export const mailTemplates = [
   'payment-failed',
   'shop-payment-alert',
   'configuration-quote',
+  'build-messages',
 ] as const;
 export type MailTemplate = (typeof mailTemplates)[number];
 
@@ -184,6 +185,19 @@ export type MailTemplateData = {
       reason?: string;
       message?: string;
       approveUrl?: string;
+    };
+  /**
+   * New messages on a build's conversation, gathered over the mail window: to the player
+   * (`audience` 'player', link to the storefront's build page) or to the shop (`audience` 'shop',
+   * the assigned builder or the shop's address, with `playerName` and a link to the backoffice).
+   * `at` is an instant; `photos` how many photos the message carries.
+   */
+  'build-messages': Recipient &
+    BookingLink & {
+      audience: 'player' | 'shop';
+      reference: string;
+      playerName?: string;
+      messages: { author: string; body: string; at: string; photos?: number }[];
     };
   /** A staff note the writer chose to tell the player, word for word. */
   'shop-note': Recipient & BookingLink & { reference: string; note: string };

@@ -15,6 +15,7 @@ export const fieldLabels: Readonly<Record<string, string>> = {
   amount: 'Amount',
   approve: 'The answer',
   benchDate: 'Bench date',
+  body: 'Message',
   bookingId: 'Booking',
   builderId: 'Builder',
   caption: 'Caption',
@@ -273,6 +274,22 @@ export const bookingWords = {
   staffNote: 'Note is required: write the words to keep',
 } as const;
 
+/** The conversation on a build: what the player and the shop read beside the thread and in its mail. */
+export const messageWords = {
+  emptyMessage: 'Write a message or attach a photo before sending',
+  tooManyPhotos: (max: number) => `Attach at most ${max} photos to one message`,
+  notYours: (id: string) => `There is no build ${id} whose messages you can read`,
+  /** Subject of the mail that tells one side of new messages from the other. */
+  toPlayerSubject: (reference: string, count: number) => `${count === 1 ? 'A new message' : `${count} new messages`} about build ${reference}`,
+  toShopSubject: (reference: string, player: string, count: number) =>
+    `${player} wrote ${count === 1 ? 'a message' : `${count} messages`} about build ${reference}`,
+  toPlayerHeading: 'Your builder wrote to you',
+  toShopHeading: 'The player wrote to the shop',
+  photoCount: (n: number) => (n === 1 ? '1 photo attached' : `${n} photos attached`),
+  answerInApp: 'Answer on the build page; replies by e-mail do not reach the thread.',
+  openThread: 'Open the conversation',
+} as const;
+
 /** Answers about the request itself: an address or a body the API cannot read. */
 export const requestWords = {
   /** An id in the address that cannot be one (only a hand-edited link gets here). */
@@ -307,5 +324,5 @@ export const todayWords = {
   noBench: 'Your account has no bench of its own on the team, so it has no builds to list',
 } as const;
 
-export const en = { fieldLabels, weekdayNames, rules, authWords, rigWords, shopWords, bookingWords, requestWords, checkWords, todayWords, label, humanizeField, orList, valueWords };
+export const en = { fieldLabels, weekdayNames, rules, authWords, rigWords, shopWords, bookingWords, messageWords, requestWords, checkWords, todayWords, label, humanizeField, orList, valueWords };
 export type Words = typeof en;

@@ -17,6 +17,7 @@ import * as savedConfigurations from './20261202_0727_saved_configurations';
 import * as shopPostalAddress from './20261202_0745_shop_postal_address';
 import * as holidayChoices from './20261202_0957_holiday_choices';
 import * as laborLineBasis from './20261202_1041_labor_line_basis';
+import * as buildMessages from './20261202_1101_build_messages';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -41,4 +42,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0745_shop_postal_address': shopPostalAddress,
   '20261202_0957_holiday_choices': holidayChoices,
   '20261202_1041_labor_line_basis': laborLineBasis,
+  '20261202_1101_build_messages': buildMessages,
 };

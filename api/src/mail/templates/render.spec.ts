@@ -33,6 +33,7 @@ const samples: Record<(typeof mailTemplates)[number], Record<string, unknown>> =
   'deposit-refunded': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD' },
   'booking-declined': { name: 'Rosa', reference: 'LW-1042', reason: 'The rig needs a 14-loop switcher we cannot mount on that surface.' },
   'approval-requested': { name: 'Rosa', reference: 'LW-1042', kind: 'extra', description: 'Deeper road case', amount: '45.00', currency: 'USD', reason: 'The wah needs more depth.', bookingUrl: 'http://x/b' },
+  'build-messages': { audience: 'player', name: 'Rosa', reference: 'LW-1042', messages: [{ author: 'Ivo', body: 'The case arrived; see the photo.', at: '2027-01-12T15:04:00Z', photos: 1 }], bookingUrl: 'http://x/b' },
   'shop-note': { name: 'Rosa', reference: 'LW-1042', note: 'Your supply has a spare 18 V output; we left it free.', bookingUrl: 'http://x/b' },
   'payment-failed': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD', reason: 'The bank account has been closed.' },
   'shop-payment-alert': { customerName: 'Rosa', alert: 'dispute-opened', reference: 'LW-1042', amount: '280.00', currency: 'USD', detail: 'fraudulent', backofficeUrl: 'http://x/backoffice/requests/1' },

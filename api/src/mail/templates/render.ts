@@ -1,4 +1,4 @@
-import { bookingStateLabels, type BookingState } from '@loomwright/shared';
+import { bookingStateLabels, messageWords, type BookingState } from '@loomwright/shared';
 import type { MailTemplate } from '../mail.types';
 import { handoverCalendar } from './calendar';
 import { formatDay, formatInstant, formatMoney, inShopVoice, MailDataError, optionalString, requireString } from './format';
@@ -370,6 +370,7 @@ function approvalRequested(data: Data): Draft {
 
 const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
   'approval-requested': (data) => approvalRequested(data),
+  'build-messages': (data) => buildMessages(data),
   'shop-note': (data) => {
     const reference = requireString(data, 'reference');
     return {
@@ -664,6 +665,37 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
     };
   },
 };
+
+function buildMessages(data: Data): Draft {
+  const reference = requireString(data, 'reference');
+  const audience = requireString(data, 'audience');
+  if (audience !== 'player' && audience !== 'shop') throw new MailDataError(`the audience "${audience}" is neither "player" nor "shop"`);
+  const list = data.messages;
+  if (!Array.isArray(list) || list.length === 0) throw new MailDataError('the data has no "messages"');
+  const blocks: Block[] = [];
+  for (const item of list as Data[]) {
+    const photos = typeof item.photos === 'number' && item.photos > 0 ? ` (${messageWords.photoCount(item.photos)})` : '';
+    blocks.push({ kind: 'p', text: `${requireString(item, 'author')}, ${formatInstant(requireString(item, 'at'))}${photos}:` });
+    const body = optionalString(item, 'body');
+    if (body) blocks.push({ kind: 'p', text: body });
+  }
+  const toPlayer = audience === 'player';
+  return {
+    subject: toPlayer
+      ? messageWords.toPlayerSubject(reference, list.length)
+      : messageWords.toShopSubject(reference, requireString(data, 'playerName'), list.length),
+    letter: {
+      heading: toPlayer ? messageWords.toPlayerHeading : messageWords.toShopHeading,
+      blocks: [
+        { kind: 'p', text: `Hello ${recipient(data)}, ${toPlayer ? `news on build ${reference}` : `build ${reference} has a new word from ${requireString(data, 'playerName')}`}:` },
+        ...blocks,
+        { kind: 'p', text: messageWords.answerInApp },
+        open(messageWords.openThread, requireString(data, 'bookingUrl')),
+      ],
+      ...(toPlayer ? {} : { footer: 'A notice for the shop from Loomwright.' }),
+    },
+  };
+}
 
 /** Renders one outbox message; throws MailDataError (naming the key) when its data is incomplete. */
 export function renderMail(template: string, data: Data, shop: ShopContext, message: MessageContext = {}): RenderedMail {

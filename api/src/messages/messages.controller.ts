@@ -1,0 +1,52 @@
+import { Body, Controller, Get, Param, Post, UploadedFiles, UseFilters, UseInterceptors } from '@nestjs/common';
+import { FilesInterceptor } from '@nestjs/platform-express';
+import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { MESSAGE_MAX_PHOTOS, postMessageSchema, type AuthUser, type PostMessageInput } from '@loomwright/shared';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { bookingIdPipe } from '../bookings/booking-id.pipe';
+import { MAX_PHOTO_BYTES, type UploadedPhoto } from '../bookings/booking-photos.service';
+import { openApiSchema } from '../common/zod-openapi';
+import { ZodValidationPipe } from '../common/zod-validation.pipe';
+import { MessagePhotosFilter } from './message-photos.filter';
+import { MessagesService } from './messages.service';
+
+@ApiTags('messages')
+@Controller()
+export class MessagesController {
+  constructor(private readonly messages: MessagesService) {}
+
+  @Get('bookings/:id/messages')
+  @ApiOkResponse({ description: "The build's conversation, oldest first; reading it marks it read for the reader's side (the player, or the shop)." })
+  thread(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
+    return this.messages.thread(user, id);
+  }
+
+  @Post('bookings/:id/messages')
+  @UseFilters(MessagePhotosFilter)
+  @UseInterceptors(FilesInterceptor('photos', MESSAGE_MAX_PHOTOS, { limits: { fileSize: MAX_PHOTO_BYTES, files: MESSAGE_MAX_PHOTOS } }))
+  @ApiConsumes('multipart/form-data')
+  @ApiBody({
+    schema: {
+      type: 'object',
+      properties: {
+        ...openApiSchema(postMessageSchema).properties,
+        photos: { type: 'array', items: { type: 'string', format: 'binary' }, maxItems: MESSAGE_MAX_PHOTOS },
+      },
+    },
+  })
+  @ApiCreatedResponse({ description: 'The message as written, with its photos (JPEG, PNG or WebP, up to 8 MB each, 4 per message). The other side hears of it by e-mail within five minutes.' })
+  post(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingIdPipe) id: string,
+    @UploadedFiles() files: UploadedPhoto[] | undefined,
+    @Body(new ZodValidationPipe(postMessageSchema)) dto: PostMessageInput,
+  ) {
+    return this.messages.post(user, id, dto, files ?? []);
+  }
+
+  @Get('messages/unread')
+  @ApiOkResponse({ description: "Unread messages from the other side, per build: a player's own builds, a builder's assigned builds, the owner's whole shop." })
+  unread(@CurrentUser() user: AuthUser) {
+    return this.messages.unread(user);
+  }
+}
