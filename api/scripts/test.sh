@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
-# npm test: the whole suite. Unit and API tests (vitest) against a PostgreSQL test cluster this
-# script brings up itself, then the Playwright journeys on Debian's Chromium against the product
+# npm test: the whole suite. ESLint first (zero errors), then unit and API tests (vitest) against
+# a PostgreSQL test cluster this script brings up itself, then the Playwright journeys on Debian's Chromium against the product
 # started on free ports. Exits non-zero on any failure.
 set -euo pipefail
 cd "$(dirname "$0")/../.."
@@ -14,6 +14,9 @@ bash api/scripts/postgres.sh ensure-installed
 bash api/scripts/ensure-chromium.sh
 
 export VITE_CONFIG_NATIVE_IGNORE_WARNING=true
+echo "[loomwright] Lint (ESLint, zero errors)…"
+npm run lint
+
 echo "[loomwright] Building…"
 npm run build
 

@@ -230,7 +230,7 @@ describe('who may use the bench, team, settings and customers routes', () => {
   });
   afterAll(async () => t.close());
 
-  const staffRoutes = (): Array<[string, string, object?]> => [
+  const staffRoutes = (): Array<['get' | 'post' | 'patch' | 'delete', string, object?]> => [
     ['get', '/api/bench'],
     ['get', `/api/bench/suggest?bookingId=${bookingId}`],
     ['post', `/api/bookings/${bookingId}/accept`, { builderId: someBuilder, benchDate: '2030-01-07' }],
@@ -256,9 +256,9 @@ describe('who may use the bench, team, settings and customers routes', () => {
 
   it('answers a customer 403 on every staff route, and 401 without a session', async () => {
     for (const [method, url, body] of staffRoutes()) {
-      const res = await (agents.player as any)[method](url).send(body ?? {});
+      const res = await agents.player[method](url).send(body ?? {});
       expect(res.status, `${method} ${url}`).toBe(403);
-      const anon = await (t.http() as any)[method](url).send(body ?? {});
+      const anon = await t.http()[method](url).send(body ?? {});
       expect(anon.status, `anonymous ${method} ${url}`).toBe(401);
     }
   });
@@ -269,7 +269,7 @@ describe('who may use the bench, team, settings and customers routes', () => {
     );
     expect(ownerOnly).toHaveLength(7);
     for (const [method, url, body] of ownerOnly) {
-      const res = await (agents.builder as any)[method](url).send(body ?? {});
+      const res = await agents.builder[method](url).send(body ?? {});
       expect(res.status, `builder ${method} ${url}`).toBe(403);
     }
     await agents.builder.get('/api/team').expect(200);

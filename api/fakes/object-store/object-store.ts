@@ -1,11 +1,6 @@
 import { mkdir } from 'node:fs/promises';
-import type { AddressInfo } from 'node:net';
-// s3rver: a local S3-compatible server from the npm registry (no types of its own).
-// eslint-disable-next-line @typescript-eslint/no-require-imports
-const S3rver = require('s3rver') as new (options: Record<string, unknown>) => {
-  run(): Promise<AddressInfo>;
-  close(): Promise<void>;
-};
+// s3rver: a local S3-compatible server from the npm registry (its types are in ./s3rver.d.ts).
+import S3rver from 's3rver';
 
 export interface ObjectStore {
   url: string;

@@ -5,7 +5,7 @@ import { Pool } from 'pg';
 import type { AppConfig } from '../config/configuration';
 import { PostgresThrottlerStorage } from './postgres-throttler-storage';
 
-const emailOf = (req: Record<string, any>): string =>
+const emailOf = (req: { body?: { email?: unknown } }): string =>
   typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
 
 /**

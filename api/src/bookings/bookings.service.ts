@@ -1,4 +1,4 @@
-import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import type { AuthUser, BookingDetail, BookingState, BookingSummary, CreateBookingInput, ListBookingsQuery, Page, RigConfiguration, ShipmentInput } from '@loomwright/shared';
 import { bookingStateLabels, encodeBookingListCursor, moneyFacts, staffRoles, type MoneyFacts } from '@loomwright/shared';
 import { Database, type Executor } from '../database/database';

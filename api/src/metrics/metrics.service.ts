@@ -43,7 +43,6 @@ export class MetricsService {
     });
     new Gauge({ name: 'loomwright_db_pool_max', help: 'The most connections this process\'s pool opens.', registers }).set(pool.options.max ?? 10);
     const read = (query: () => Promise<void>) => query().catch(() => undefined);
-    const self = this;
     new Gauge({
       name: 'loomwright_jobs',
       help: 'Background jobs (pg-boss) by queue and state: created and retry are waiting (the queue depth), failed gave up.',
@@ -51,9 +50,9 @@ export class MetricsService {
       registers,
       async collect() {
         await read(async () => {
-          const exists = await sql<{ t: string | null }>`select to_regclass('pgboss.job')::text as t`.execute(self.db);
+          const exists = await sql<{ t: string | null }>`select to_regclass('pgboss.job')::text as t`.execute(db);
           if (!exists.rows[0]?.t) return;
-          const rows = await sql<{ name: string; state: string; n: string }>`select name, state::text as state, count(*)::text as n from pgboss.job group by name, state`.execute(self.db);
+          const rows = await sql<{ name: string; state: string; n: string }>`select name, state::text as state, count(*)::text as n from pgboss.job group by name, state`.execute(db);
           this.reset();
           for (const r of rows.rows) this.set({ queue: r.name, state: r.state }, Number(r.n));
         });
@@ -66,7 +65,7 @@ export class MetricsService {
       registers,
       async collect() {
         await read(async () => {
-          const rows = await self.db.selectFrom('mail_outbox').select(['state', (eb) => eb.fn.countAll<string>().as('n')]).groupBy('state').execute();
+          const rows = await db.selectFrom('mail_outbox').select(['state', (eb) => eb.fn.countAll<string>().as('n')]).groupBy('state').execute();
           this.reset();
           for (const state of ['queued', 'sending', 'sent', 'failed', 'unknown']) this.set({ state }, 0);
           for (const r of rows) this.set({ state: r.state }, Number(r.n));
@@ -80,7 +79,7 @@ export class MetricsService {
       registers,
       async collect() {
         await read(async () => {
-          const rows = await self.db.selectFrom('payments').select(['kind', 'status', (eb) => eb.fn.countAll<string>().as('n')]).groupBy(['kind', 'status']).execute();
+          const rows = await db.selectFrom('payments').select(['kind', 'status', (eb) => eb.fn.countAll<string>().as('n')]).groupBy(['kind', 'status']).execute();
           this.reset();
           for (const r of rows) this.set({ kind: r.kind, outcome: r.status }, Number(r.n));
         });

@@ -11,7 +11,7 @@ import {
   type ShopSettingsView,
   type UpdateSettingsInput,
 } from '@loomwright/shared';
-import { addDays, daysBetween, todayIn } from '../bench/calendar-days';
+import { addDays, todayIn } from '../bench/calendar-days';
 import { publicHolidaysBetween } from '../bench/public-holidays';
 import { Database } from '../database/database';
 import { SettingsRepository } from './settings.repository';

@@ -111,6 +111,7 @@ export class Visitor {
       else this.cookies.delete(name);
     }
     const text = await response.text();
+    // eslint-disable-next-line @typescript-eslint/no-explicit-any -- tests read JSON answers loosely, as supertest's Response.body (typed any) does
     let json: any;
     try {
       json = text ? JSON.parse(text) : undefined;

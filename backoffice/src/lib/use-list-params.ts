@@ -1,5 +1,5 @@
 import { useSearchParamsInOrder } from '@loomwright/shared/ui';
-import { useCallback, useMemo } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 
 export type SortOrder = 'asc' | 'desc';
 
@@ -25,7 +25,10 @@ export const pageSizes = [25, 50, 100] as const;
  * bookmarked, shared, and survives a reload. Changing a filter or the sort goes back to page 1,
  * because the old page number means nothing in a different list.
  */
-export function useListParams<F extends string>(defaults: ListParamsDefaults<F>) {
+export function useListParams<F extends string>(defaultsAtMount: ListParamsDefaults<F>) {
+  // The defaults are a literal at the call site (a new object each render): the first one is kept,
+  // and the address bar is the source of truth from then on.
+  const [defaults] = useState(defaultsAtMount);
   const [search, setSearch] = useSearchParamsInOrder();
 
   const params = useMemo<ListParams<F>>(() => {
@@ -43,9 +46,7 @@ export function useListParams<F extends string>(defaults: ListParamsDefaults<F>)
       order: order === 'asc' || order === 'desc' ? order : defaults.order,
       filters,
     };
-    // defaults are a literal at the call site; the address bar is the source of truth.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [search]);
+  }, [search, defaults]);
 
   const update = useCallback(
     (patch: Partial<Omit<ListParams<F>, 'filters'>> & { filters?: Partial<Record<F, string>> }) => {
@@ -67,8 +68,7 @@ export function useListParams<F extends string>(defaults: ListParamsDefaults<F>)
         { replace: true },
       );
     },
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [setSearch],
+    [setSearch, defaults],
   );
 
   /** Click on a column header: a new column sorts its natural way, the same column flips. */

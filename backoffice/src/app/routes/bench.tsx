@@ -42,7 +42,10 @@ export function Component() {
   const set = (patch: Record<string, string>) =>
     setSearch((current) => {
       const next = new URLSearchParams(current);
-      for (const [key, value] of Object.entries(patch)) value ? next.set(key, value) : next.delete(key);
+      for (const [key, value] of Object.entries(patch)) {
+        if (value) next.set(key, value);
+        else next.delete(key);
+      }
       return next;
     }, { replace: true });
 

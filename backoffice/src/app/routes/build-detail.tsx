@@ -17,7 +17,7 @@ import { BookingFacts } from 'src/features/bookings/components/BookingFacts';
 import { ConfigurationSummary } from 'src/features/bookings/components/ConfigurationSummary';
 import { EstimateLines } from 'src/features/bookings/components/EstimateLines';
 import { EventTimeline } from 'src/features/bookings/components/EventTimeline';
-import { PaymentsList } from 'src/features/bookings/components/PaymentsList';
+import { PaymentsList } from 'src/components/PaymentsList';
 import { PhotoGrid } from 'src/features/bookings/components/PhotoGrid';
 import { Section } from 'src/features/bookings/components/Section';
 import { useExtras } from 'src/features/builds/api/get-extras';

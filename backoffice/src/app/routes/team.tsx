@@ -17,7 +17,7 @@ import { useResendInvitation } from 'src/features/invitations/api/resend-invitat
 import { useTeam } from 'src/features/team/api/get-team';
 import { TeamMemberDialog, weekdays } from 'src/features/team/components/TeamMemberDialog';
 import { AbsencesPanel } from 'src/features/team/components/AbsencesPanel';
-import { formatHours, formatMoney, formatRate, formatStamp } from 'src/lib/format';
+import { formatHours, formatRate, formatStamp } from 'src/lib/format';
 
 function StatusCell({ member }: { member: TeamMember }) {
   if (member.status === 'invited') {

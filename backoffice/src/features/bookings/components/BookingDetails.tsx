@@ -6,7 +6,7 @@ import { BookingFacts } from './BookingFacts';
 import { ConfigurationSummary } from './ConfigurationSummary';
 import { EstimateLines } from './EstimateLines';
 import { EventTimeline } from './EventTimeline';
-import { PaymentsList } from './PaymentsList';
+import { PaymentsList } from 'src/components/PaymentsList';
 import { PhotoGrid } from './PhotoGrid';
 import { Section } from './Section';
 

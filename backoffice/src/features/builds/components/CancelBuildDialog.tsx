@@ -37,13 +37,13 @@ export function CancelBuildDialog({
   const [reason, setReason] = useState('');
   const [formErrors, setFormErrors] = useState<string[]>([]);
 
+  const resetCancel = cancel.reset;
   useEffect(() => {
     setCause('player');
     setReason('');
     setFormErrors([]);
-    cancel.reset();
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [booking]);
+    resetCancel();
+  }, [booking, resetCancel]);
 
   const p = preview.data;
   const refund = p ? (cause === 'shop' ? p.refundIfShopCancels : p.refundIfPlayerAsked) : null;

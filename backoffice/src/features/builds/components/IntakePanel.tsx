@@ -15,10 +15,10 @@ import { useRecordIntake, type IntakeItemInput } from '../api/record-intake';
  * What to check, in signal-chain order: what was already recorded (so recording again corrects
  * it, never duplicates it), then the rig's items not yet recorded.
  */
-function itemsToCheck(booking: BookingDetail, recorded: IntakeItemView[] | undefined): IntakeItemInput[] {
+function itemsToCheck(configuration: BookingDetail['configuration'], recorded: IntakeItemView[] | undefined): IntakeItemInput[] {
   const done = (recorded ?? []).map((i) => ({ item: i.item, condition: i.condition, note: i.note }));
   const keys = new Set((recorded ?? []).map((i) => i.key));
-  const rest = intakeChecklist(booking.configuration)
+  const rest = intakeChecklist(configuration)
     .filter((c) => !keys.has(c.key))
     .map((c) => ({ item: c.item, condition: 'working' as const, note: '' }));
   return [...done, ...rest];
@@ -30,8 +30,11 @@ function itemsToCheck(booking: BookingDetail, recorded: IntakeItemView[] | undef
  */
 export function IntakePanel({ booking, intake }: { booking: BookingDetail; intake: IntakeItemView[] | undefined }) {
   const record = useRecordIntake(booking.id);
-  const [rows, setRows] = useState<IntakeItemInput[]>(() => itemsToCheck(booking, intake));
-  useEffect(() => setRows(itemsToCheck(booking, intake)), [booking.id, intake]); // eslint-disable-line react-hooks/exhaustive-deps
+  const configuration = booking.configuration;
+  const [rows, setRows] = useState<IntakeItemInput[]>(() => itemsToCheck(configuration, intake));
+  // The rows follow the booking's pedals and what was recorded (query data keeps its identity
+  // until it really changes, so a refetch of the same answer does not reset what is being typed).
+  useEffect(() => setRows(itemsToCheck(configuration, intake)), [configuration, intake]);
   const canRecord = ['scheduled', 'pedals_received', 'on_bench'].includes(booking.state);
   const [problem, setProblem] = useState<string | null>(null);
   const submit = () => {

@@ -36,15 +36,16 @@ export function RecordDecisionDialog({
   const [via, setVia] = useState<RecordedVia>('phone');
   const [givenBy, setGivenBy] = useState(playerName);
   const [comment, setComment] = useState('');
+  const resetRecord = record.reset;
   useEffect(() => {
     if (target) {
       setApprove('yes');
       setVia('phone');
       setGivenBy(playerName);
       setComment('');
-      record.reset();
+      resetRecord();
     }
-  }, [target, playerName]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [target, playerName, resetRecord]);
   return (
     <Modal open={target !== null} onClose={onClose}>
       <ModalDialog sx={{ width: 'min(520px, 96vw)' }}>

@@ -54,6 +54,8 @@ export function RescheduleDialog({
   const [overrideReason, setOverrideReason] = useState('');
   const [formErrors, setFormErrors] = useState<string[]>([]);
 
+  // A mutation's reset is stable across renders (TanStack Query keeps one observer per hook).
+  const resetMove = move.reset;
   useEffect(() => {
     setBuilderId(build?.builderId ?? null);
     setBenchDate(build?.benchDate ?? '');
@@ -61,9 +63,8 @@ export function RescheduleDialog({
     setReprice(false);
     setOverrideReason('');
     setFormErrors([]);
-    move.reset();
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [build]);
+    resetMove();
+  }, [build, resetMove]);
 
   const preview = useBenchPreview(build?.bookingId ?? null, builderId, benchDate);
   const option = preview.data?.options.find((o) => o.builder.id === builderId);

@@ -7,8 +7,8 @@ import type { CustomerDetail } from '@loomwright/shared';
 import type { ReactNode } from 'react';
 import { Link as RouterLink } from 'react-router';
 import { StateChip } from 'src/components/StateChip';
-import { PaymentsList } from 'src/features/bookings/components/PaymentsList';
-import { formatDay, formatMoney, formatStamp } from 'src/lib/format';
+import { PaymentsList } from 'src/components/PaymentsList';
+import { formatDay, formatStamp } from 'src/lib/format';
 
 const mailWords: Record<string, string> = { queued: 'Queued', sending: 'Sending', sent: 'Sent', failed: 'Not delivered' };
 

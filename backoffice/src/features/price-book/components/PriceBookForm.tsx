@@ -54,8 +54,9 @@ export function PriceBookForm({ book, version, canEdit, onPublished }: { book: P
   const publish = usePublishPriceBook();
   const form = useForm<PriceBook>({ resolver: zodResolver(priceBookSchema) as unknown as Resolver<PriceBook>, defaultValues: book });
   const [notes, setNotes] = useState('');
-  // Reset only when a different book arrives (a publish); the form object itself is not a dependency.
-  useEffect(() => form.reset(book), [book]); // eslint-disable-line react-hooks/exhaustive-deps
+  // Reset when a different book arrives (a publish); useForm's reset keeps one identity.
+  const { reset: resetForm } = form;
+  useEffect(() => resetForm(book), [book, resetForm]);
   const disabled = !canEdit;
   const { register, control } = form;
   const problems = messagesOf(form.formState.errors);

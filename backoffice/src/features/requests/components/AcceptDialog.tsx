@@ -47,11 +47,9 @@ export function AcceptDialog({
   const [overrideReason, setOverrideReason] = useState('');
   const [formError, setFormError] = useState<string | null>(null);
 
-  const options = suggestion.data?.suggestions ?? [];
-  const chosen: BenchSuggestion | undefined = useMemo(
-    () => options.find((s) => s.builder.id === builderId),
-    [options, builderId],
-  );
+  const options = useMemo(() => suggestion.data?.suggestions ?? [], [suggestion.data]);
+  const chosen: BenchSuggestion | undefined = useMemo(() => options.find((s) => s.builder.id === builderId), [options, builderId]);
+  const resetAccept = accept.reset;
 
   // Prefill: the earliest start among builders of the level the player chose; never one below it.
   useEffect(() => {
@@ -69,10 +67,9 @@ export function AcceptDialog({
       setBenchDate('');
       setOverrideReason('');
       setFormError(null);
-      accept.reset();
+      resetAccept();
     }
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [booking]);
+  }, [booking, resetAccept]);
 
   const pick = (id: string) => {
     setBuilderId(id);

@@ -30,13 +30,14 @@ export function DeclineDialog({
 }) {
   const decline = useDeclineBooking();
   const form = useForm<DeclineBookingInput>({ resolver: zodResolver(declineBookingSchema), defaultValues: { reason: '' } });
+  const { reset: resetForm } = form;
+  const resetDecline = decline.reset;
   useEffect(() => {
     if (!booking) {
-      form.reset({ reason: '' });
-      decline.reset();
+      resetForm({ reason: '' });
+      resetDecline();
     }
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [booking]);
+  }, [booking, resetForm, resetDecline]);
 
   const paid = booking?.depositStatus === 'paid';
   const submit = form.handleSubmit(({ reason }) => {

@@ -57,8 +57,9 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: Shop
     const list = shopTimeZones();
     return list.includes(settings.timezone) ? list : [...list, settings.timezone].sort();
   }, [settings.timezone]);
+  const { reset: resetForm } = form;
   useEffect(() => {
-    form.reset({
+    resetForm({
       name: settings.name,
       tagline: settings.tagline,
       contactEmail: settings.contactEmail,
@@ -67,8 +68,7 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: Shop
       locale: settings.locale,
       postalAddress: settings.postalAddress ?? blankAddress,
     });
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [settings]);
+  }, [settings, resetForm]);
   const e = form.formState.errors;
   const errorOf = (name: FieldPath<FormValues>) => name.split('.').reduce<unknown>((node, key) => (node as Record<string, unknown> | undefined)?.[key], e) as { message?: string } | undefined;
   const field = (name: FieldPath<FormValues>, label: string, options: { hint?: string; list?: string; autoComplete?: string; minWidth?: number } = {}) => (

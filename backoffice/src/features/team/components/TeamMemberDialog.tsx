@@ -35,11 +35,13 @@ const toForm = (m: TeamMember): TeamMemberFormInput => ({
 export function TeamMemberDialog({ member, onClose, onSaved }: { member: TeamMember | null; onClose: () => void; onSaved: (m: string) => void }) {
   const update = useUpdateTeamMember();
   const form = useForm<TeamMemberFormInput, unknown, TeamMemberFormOutput>({ resolver: zodResolver(teamMemberFormSchema) });
+  // useForm returns the same form object on every render, and a mutation's reset is stable.
+  const { reset: resetForm } = form;
+  const resetUpdate = update.reset;
   useEffect(() => {
-    if (member) form.reset(toForm(member));
-    update.reset();
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [member]);
+    if (member) resetForm(toForm(member));
+    resetUpdate();
+  }, [member, resetForm, resetUpdate]);
   const submit = form.handleSubmit((values) => {
     if (!member) return;
     const weeklyHours: WeeklyHours = {};
