@@ -306,7 +306,7 @@ export const checkWords = {
 
 /** A builder's today (staff): what each build waits for and what to do next; hours and days come formatted. */
 export const todayWords = {
-  noTracking: 'Parcel: the player has not given a tracking number yet',
+  noTracking: 'The player has not given the parcel’s tracking number yet',
   parcelOnItsWay: (carrier: string | null, tracking: string) => `Parcel on its way${carrier ? ` with ${carrier}` : ''} (tracking ${tracking}); check the pedals in when it arrives`,
   layoutApproval: 'The player’s approval of the layout',
   extraApproval: (count: number) => `The player’s answer on ${count === 1 ? 'an extra' : `${count} extras`}`,
