@@ -1,10 +1,5 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Catalog } from '@loomwright/shared';
-import { api } from 'src/lib/api-client';
+import { useQuery } from '@tanstack/react-query';
+import { catalogQueryOptions } from 'src/features/configurator/api/get-catalog';
 
-export const getCatalog = (signal?: AbortSignal) => api.get<Catalog>('/catalog', { signal });
-
-/** Same key as the catalog everywhere, so the configurator's copy is reused. */
-export const catalogQueryOptions = () => queryOptions({ queryKey: ['catalog'], queryFn: ({ signal }) => getCatalog(signal), staleTime: 5 * 60_000 });
-
+/** The deposit policy is part of the catalog: the one catalog query, with a select, so the configurator's copy is reused. */
 export const useDepositPolicy = () => useQuery({ ...catalogQueryOptions(), select: (catalog) => catalog.depositPolicy });
