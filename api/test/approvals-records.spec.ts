@@ -147,7 +147,7 @@ describe('approvals, notes, money facts and corrections', () => {
     expect(missing.body.details).toEqual(['Write the words the player should read, or leave “tell the player” off']);
 
     const playerAnswer = JSON.stringify((await player.get(`/api/bookings/${b.id}`).expect(200)).body);
-    for (const secret of ['INTAKE-SECRET', 'STATE-SECRET', 'HOURS-SECRET', 'NOTE-SECRET', 'Recorded 1.50 h']) expect(playerAnswer).not.toContain(secret);
+    for (const secret of ['INTAKE-SECRET', 'STATE-SECRET', 'HOURS-SECRET', 'NOTE-SECRET', 'Recorded 1.5 hr']) expect(playerAnswer).not.toContain(secret);
     expect(playerAnswer).toContain('Starting today.');
     expect(playerAnswer).toContain('Your supply has a spare 18 V output.');
     const playerEvents = ((await player.get(`/api/bookings/${b.id}`)).body as BookingDetail).events;
@@ -243,9 +243,11 @@ describe('approvals, notes, money facts and corrections', () => {
     const history = (await t.db.selectFrom('booking_events').select('note').where('booking_id', '=', b.id).orderBy('id').execute()).map((e) => e.note);
     expect(history).toEqual(
       expect.arrayContaining([
-        'Hours corrected: 2.30 h on 2026-11-30 → 2.25 h on 2026-11-30.',
-        'Hours corrected: 2.25 h on 2026-11-30 → 2.25 h on 2026-11-30 (note: Cables cut and labelled).',
-        'Hours deleted: 2.25 h on 2026-11-30 (Cables cut and labelled).',
+        // In the shop's voice (en-US): days and hours as ECMA-402 Intl writes them with CLDR en data
+        // (weekday, month abbreviation, "hr" as the short unit of hour), never ISO dates.
+        'Hours corrected: 2.3 hr on Mon, Nov 30, 2026 → 2.25 hr on Mon, Nov 30, 2026.',
+        'Hours corrected: 2.25 hr on Mon, Nov 30, 2026 → 2.25 hr on Mon, Nov 30, 2026 (note: Cables cut and labelled).',
+        'Hours deleted: 2.25 hr on Mon, Nov 30, 2026 (Cables cut and labelled).',
       ]),
     );
   });

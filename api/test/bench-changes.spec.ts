@@ -312,7 +312,7 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' }).expect(200);
     expect(await slicesOf(b.id)).toEqual([{ builder_id: masterId, day: today, hours: '1.00' }]);
     const notes = (await t.db.selectFrom('booking_events').select('note').where('booking_id', '=', b.id).orderBy('id').execute()).map((e) => e.note);
-    expect(notes.at(-1)).toMatch(/^Released 10 h of bench time booked after .*: the build reached testing\.$/);
+    expect(notes.at(-1)).toMatch(/^Released 10 hr of bench time booked after \w{3}, \w{3} \d{1,2}, \d{4}: the build reached testing\.$/);
     const bench = (await master.get(`/api/bench?from=${today}&to=${today}&builderId=${masterId}`).expect(200)).body as BenchView;
     expect(bench.builders[0].days[0]).toMatchObject({ bookedHours: 1, recordedHours: 6.5 });
     // Monday's hours are free again for another build.

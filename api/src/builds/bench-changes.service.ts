@@ -16,7 +16,7 @@ import { shipByDate, toHours } from '../bench/scheduling';
 import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
-import { formatDay } from '../mail/templates/format';
+import { dayWords, shopFormatOf } from '../common/shop-voice';
 import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
 import { assertLevelRule, assertTakesBuilds } from './builds.service';
@@ -86,6 +86,8 @@ export class BenchChangesService {
     const plan = await this.bench.planFor(trx, builder, facts.laborHours, shop, { benchDate: input.benchDate }, bookingId);
     this.bench.assertBenchDate(booking.state, input.benchDate, this.bench.calendarOf(builder, shop), shop, plan);
     const previousDate = booking.bench_date;
+    const voice = await shopFormatOf(trx);
+    const formatDay = (day: string) => dayWords(voice, day);
     if (!reassigned && previousDate === input.benchDate) {
       throw new BadRequestException(`The build already starts on ${formatDay(input.benchDate)} with this builder; pick another day or builder.`);
     }
@@ -124,7 +126,7 @@ export class BenchChangesService {
     const sequence = booking.calendar_sequence + 1;
     const shift = previousDate ? dateShiftWords(previousDate, plan.benchDate) : 'a new date';
     const who = reassigned ? `${builder.name} (${builder.level}) instead of the previous builder` : builder.name;
-    const priceNote = input.reprice ? ` Re-priced at ${builder.name}'s rate: firm total ${firmTotal} ${facts.currency} (was ${current.total}).` : '';
+    const priceNote = input.reprice ? ` Re-priced at ${builder.name}'s rate: firm total ${voice.money(firmTotal, facts.currency)} (was ${voice.money(current.total, facts.currency)}).` : '';
     const levelNote = belowLevel ? ` Level override: ${input.levelOverrideReason!.trim()}` : '';
     await this.history.note(
       trx,

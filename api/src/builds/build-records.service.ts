@@ -1,3 +1,4 @@
+import { dayWords, shopFormatOf } from '../common/shop-voice';
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
 import {
@@ -93,7 +94,8 @@ export class BuildRecordsService {
       const hours = new Decimal(dto.hours).toFixed(2);
       const note = dto.note?.trim() ?? '';
       await this.builds.insertTimeEntry(trx, { bookingId, builderId, workedOn: dto.workedOn, hours, note, createdBy: user.id });
-      await this.history.note(trx, booking, user, `Recorded ${hours} h on ${dto.workedOn}${note ? `: ${note}` : ''}.`);
+      const f = await shopFormatOf(trx);
+      await this.history.note(trx, booking, user, `Recorded ${f.hours(hours)} on ${dayWords(f, dto.workedOn)}${note ? `: ${note}` : ''}.`);
     });
     return this.timeEntries(bookingId);
   }
@@ -109,8 +111,9 @@ export class BuildRecordsService {
         hours: dto.hours !== undefined ? new Decimal(dto.hours).toFixed(2) : new Decimal(entry.hours).toFixed(2),
         note: dto.note !== undefined ? dto.note.trim() : entry.note,
       };
-      const before = `${new Decimal(entry.hours).toFixed(2)} h on ${entry.worked_on}`;
-      const after = `${next.hours} h on ${next.worked_on}`;
+      const f = await shopFormatOf(trx);
+      const before = `${f.hours(entry.hours)} on ${dayWords(f, entry.worked_on)}`;
+      const after = `${f.hours(next.hours)} on ${dayWords(f, next.worked_on)}`;
       if (next.worked_on === entry.worked_on && next.hours === new Decimal(entry.hours).toFixed(2) && next.note === entry.note) return;
       await this.builds.updateTimeEntry(trx, entryId, next);
       await this.history.note(trx, booking, user, `Hours corrected: ${before} → ${after}${next.note !== entry.note ? ` (note: ${next.note || 'removed'})` : ''}.`);
@@ -123,7 +126,8 @@ export class BuildRecordsService {
       const booking = await this.lockIn(trx, bookingId, hoursStates, 'hours can be deleted');
       const entry = await this.ownEntry(trx, user, bookingId, entryId);
       await this.builds.deleteTimeEntry(trx, entryId);
-      await this.history.note(trx, booking, user, `Hours deleted: ${new Decimal(entry.hours).toFixed(2)} h on ${entry.worked_on}${entry.note ? ` (${entry.note})` : ''}.`);
+      const f = await shopFormatOf(trx);
+      await this.history.note(trx, booking, user, `Hours deleted: ${f.hours(entry.hours)} on ${dayWords(f, entry.worked_on)}${entry.note ? ` (${entry.note})` : ''}.`);
     });
     return this.timeEntries(bookingId);
   }

@@ -18,7 +18,8 @@ import { shipByDate, toHours } from '../bench/scheduling';
 import { Database, type Executor } from '../database/database';
 import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { MailService } from '../mail/mail.service';
-import { formatDay, formatMoney as formatMoneyWords } from '../mail/templates/format';
+import { formatMoney as formatMoneyWords } from '../mail/templates/format';
+import { dayWords, shopFormatOf } from '../common/shop-voice';
 import { PaymentsService } from '../payments/payments.service';
 import { deliveryHold } from '../bookings/booking-view';
 import { BuildHistory, stateWords } from './build-history';
@@ -133,6 +134,8 @@ export class BuildsService {
     });
 
     const shipBy = shipByDate(plan.benchDate, shop);
+    const voice = await shopFormatOf(trx);
+    const formatDay = (day: string) => dayWords(voice, day);
     const levelNote = belowLevel ? ` Level override: ${dto.levelOverrideReason!.trim()}` : '';
     await this.history.move(
       trx,
@@ -288,7 +291,8 @@ export class BuildsService {
         const { today } = await this.bench.shopCalendar(trx);
         const freed = await this.bench.releaseAfter(trx, bookingId, today);
         if (freed > 0) {
-          await this.history.note(trx, updated, user, `Released ${freed} h of bench time booked after ${formatDay(today)}: the build reached ${stateWords(to)}.`);
+          const voice = await shopFormatOf(trx);
+          await this.history.note(trx, updated, user, `Released ${voice.hours(freed)} of bench time booked after ${dayWords(voice, today)}: the build reached ${stateWords(to)}.`);
         }
       }
       if (to === 'ready') {
