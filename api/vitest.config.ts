@@ -7,7 +7,11 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   plugins: [swc.vite({ module: { type: 'es6' } })],
   resolve: {
-    alias: { '@loomwright/shared': path.resolve(__dirname, '../shared/src/index.ts') },
+    alias: [
+      // The answer schemas are a subpath of their own (kept out of the apps' bundles): see shared/src/response-schemas.ts.
+      { find: '@loomwright/shared/dist/response-schemas', replacement: path.resolve(__dirname, '../shared/src/response-schemas.ts') },
+      { find: '@loomwright/shared', replacement: path.resolve(__dirname, '../shared/src/index.ts') },
+    ],
   },
   test: {
     name: 'api',

@@ -1,11 +1,12 @@
 import { INestApplication } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import { SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import { storefrontDist } from './app.module';
 import { applyBodyParsing } from './common/body-parsing';
 import { ApiExceptionFilter } from './common/api-exception.filter';
+import { buildApiDocument } from './common/api-document';
 import type { AppConfig } from './config/configuration';
 import { HTTP_LOGGER, httpLogging } from './logging/logging.module';
 import { MetricsService } from './metrics/metrics.service';
@@ -41,15 +42,7 @@ export function configureApp(app: INestApplication): INestApplication {
   // SIGTERM and SIGINT drain and exit 0 (see HealthService for the order); process.exit also lets
   // pino flush its last lines.
   app.enableShutdownHooks(['SIGTERM', 'SIGINT'], { useProcessExit: true });
-  const document = SwaggerModule.createDocument(
-    app,
-    new DocumentBuilder()
-      .setTitle('Loomwright API')
-      .setDescription('Quotes, bookings, deposits and bench planning for a pedalboard shop.')
-      .setVersion('0.1.0')
-      .addCookieAuth('lw_session')
-      .build(),
-  );
+  const document = buildApiDocument(app);
   SwaggerModule.setup('api/docs', app, document);
   return app;
 }

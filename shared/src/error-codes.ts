@@ -44,6 +44,39 @@ export const ERROR_CODES = {
 export type ErrorCode = keyof typeof ERROR_CODES;
 export const errorCodes = Object.keys(ERROR_CODES) as [ErrorCode, ...ErrorCode[]];
 
+/** The HTTP status each code is sent with (the grouping of ERROR_CODES above): what the API's OpenAPI document lists per route. */
+export const ERROR_CODE_STATUS: Record<ErrorCode, number> = {
+  validation_failed: 400,
+  invalid_id: 400,
+  invalid_json: 400,
+  body_not_object: 400,
+  body_unreadable: 400,
+  body_too_deep: 400,
+  invalid_unicode: 400,
+  value_not_storable: 400,
+  link_invalid: 400,
+  bad_request: 400,
+  not_signed_in: 401,
+  session_ended: 401,
+  invalid_credentials: 401,
+  cross_site_request: 403,
+  role_not_allowed: 403,
+  forbidden: 403,
+  not_found: 404,
+  route_not_found: 404,
+  email_taken: 409,
+  bench_time_taken: 409,
+  conflict: 409,
+  payload_too_large: 413,
+  photo_too_large: 413,
+  unsupported_media_type: 415,
+  too_many_attempts: 429,
+  internal_error: 500,
+  payment_provider_error: 502,
+  shop_unavailable: 503,
+  price_book_missing: 503,
+};
+
 /** The code an error answer carries when the code that raised it named none: one per status. */
 export function defaultErrorCode(status: number): ErrorCode {
   switch (status) {

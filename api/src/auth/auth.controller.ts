@@ -1,5 +1,7 @@
+import { z } from 'zod';
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
-import { ApiAcceptedResponse, ApiOkResponse, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
+import { ApiAcceptedResponse, ApiOkResponse, ApiOperation, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
 import {
   authMessages,
@@ -14,7 +16,7 @@ import {
   type SignUpInput,
 } from '@loomwright/shared';
 import type { Request, Response } from 'express';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { AuthService } from './auth.service';
 import { CurrentUser } from './current-user.decorator';
@@ -31,6 +33,8 @@ export class AuthController {
   @Public()
   @UseGuards(ThrottlerGuard)
   @SkipSessionRenewal()
+  @ApiOperation({ summary: 'Create a player account and sign in' })
+  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema }))
   @Post('sign-up')
   @ApiOkResponse({ description: 'The new player account; the session cookie is set.' })
   @ApiZodBody(signUpSchema)
@@ -43,6 +47,8 @@ export class AuthController {
   @Public()
   @UseGuards(ThrottlerGuard)
   @SkipSessionRenewal()
+  @ApiOperation({ summary: 'Sign in with e-mail and password' })
+  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema }))
   @Post('sign-in')
   @HttpCode(200)
   @ApiZodBody(signInSchema)
@@ -54,6 +60,8 @@ export class AuthController {
 
   @Public()
   @SkipSessionRenewal()
+  @ApiOperation({ summary: 'Sign out of this device' })
+  @ApiZodResponse(z.object({ signedOut: z.literal(true) }))
   @Post('sign-out')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The cookie is cleared and the session ended on the server: a copy of its token no longer works.' })
@@ -62,6 +70,8 @@ export class AuthController {
     return { signedOut: true };
   }
 
+  @ApiOperation({ summary: 'The signed-in person' })
+  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema }))
   @Get('me')
   async me(@CurrentUser() user: AuthUser) {
     return { user: await this.auth.currentUser(user.id) };
@@ -72,6 +82,8 @@ export class AuthController {
    * every page without a failed request in the browser's console. A database outage is still 503.
    */
   @Public()
+  @ApiOperation({ summary: 'The signed-in person, or nobody' })
+  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema.nullable() }))
   @Get('session')
   @ApiOkResponse({ description: 'The signed-in person, or `{ "user": null }` when nobody is signed in.' })
   async session(@CurrentUser() user: AuthUser | undefined) {
@@ -80,6 +92,8 @@ export class AuthController {
 
   @Public()
   @UseGuards(ThrottlerGuard)
+  @ApiOperation({ summary: 'E-mail a password reset link' })
+  @ApiZodResponse(z.object({ message: z.string() }))
   @Post('password-reset')
   @HttpCode(202)
   @ApiAcceptedResponse({ description: 'The same answer whether or not the e-mail has an account.' })
@@ -92,6 +106,8 @@ export class AuthController {
   @Public()
   @UseGuards(ThrottlerGuard)
   @SkipSessionRenewal()
+  @ApiOperation({ summary: 'Set a new password with a reset link' })
+  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema }))
   @Post('password-reset/confirm')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is changed and the session cookie is set.' })

@@ -1,5 +1,6 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Controller, Get, Query } from '@nestjs/common';
-import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   benchPreviewQuerySchema,
   benchQuerySchema,
@@ -15,7 +16,7 @@ import {
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { BenchService } from './bench.service';
-import { ApiZodQuery } from '../common/zod-openapi';
+import { ApiZodQuery, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 
 @ApiTags('bench')
@@ -25,6 +26,8 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe';
 export class BenchController {
   constructor(private readonly bench: BenchService) {}
 
+  @ApiOperation({ summary: 'Booked hours against capacity per builder and day' })
+  @ApiZodResponse(responseSchemas.benchViewSchema)
   @Get()
   @ApiOkResponse({ description: 'Per builder per day: capacity, booked hours and the builds on that day (the signed-in builder first).' })
   @ApiZodQuery(benchQuerySchema)
@@ -32,6 +35,8 @@ export class BenchController {
     return this.bench.view(user, query);
   }
 
+  @ApiOperation({ summary: 'The earliest bench date that holds a build' })
+  @ApiZodResponse(responseSchemas.benchSuggestResponseSchema)
   @Get('suggest')
   @ApiOkResponse({ description: 'The earliest bench date per eligible builder that holds the build, with the expected completion.' })
   @ApiZodQuery(benchSuggestQuerySchema)
@@ -39,6 +44,8 @@ export class BenchController {
     return this.bench.suggest(user, query.bookingId, query.builderId);
   }
 
+  @ApiOperation({ summary: 'Preview a bench date for a build' })
+  @ApiZodResponse(responseSchemas.benchPreviewSchema)
   @Get('preview')
   @ApiZodQuery(benchPreviewQuerySchema)
   @ApiOkResponse({ description: 'Before choosing a bench date: per builder the load on the days it would take, the ship-by day, the price and why a date is refused.' })

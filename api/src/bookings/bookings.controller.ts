@@ -1,3 +1,4 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import {
   Body,
   Controller,
@@ -11,7 +12,7 @@ import {
   UseInterceptors,
 } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
-import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagger';
 import {
   createBookingSchema,
   listBookingsQuerySchema,
@@ -26,7 +27,7 @@ import {
 import type { Response } from 'express';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { ApiZodBody, ApiZodQuery, openApiSchema } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodQuery, ApiZodResponse, openApiSchema } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { bookingIdPipe, photoIdPipe } from './booking-id.pipe';
 import { BookingPhotosService, MAX_PHOTO_BYTES, type UploadedPhoto } from './booking-photos.service';
@@ -41,6 +42,8 @@ export class BookingsController {
     private readonly photos: BookingPhotosService,
   ) {}
 
+  @ApiOperation({ summary: 'Request a build from a configuration' })
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   @Post()
   @Roles('customer')
   @ApiCreatedResponse({ description: 'The booking in state requested, with its quote snapshot.' })
@@ -49,6 +52,8 @@ export class BookingsController {
     return this.bookings.create(user, dto);
   }
 
+  @ApiOperation({ summary: 'List bookings, a page at a time' })
+  @ApiZodResponse(responseSchemas.bookingPageSchema)
   @Get()
   @ApiOkResponse({ description: 'A page of bookings: a player sees their own, staff see all.' })
   @ApiZodQuery(listBookingsQuerySchema)
@@ -56,12 +61,16 @@ export class BookingsController {
     return this.bookings.list(user, query);
   }
 
+  @ApiOperation({ summary: 'One booking with quote, payments, photos and history' })
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   @Get(':id')
   @ApiOkResponse({ description: 'One booking with its quote, payments, photos and timeline.' })
   detail(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
     return this.bookings.getDetailFor(user, id);
   }
 
+  @ApiOperation({ summary: 'Record the parcel carrying the pedals' })
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   @Post(':id/shipment')
   @Roles('customer')
   @ApiOkResponse({ description: 'Records the carrier and tracking of the parcel carrying the pedals in.' })
@@ -70,6 +79,8 @@ export class BookingsController {
     return this.bookings.recordShipment(user, id, dto);
   }
 
+  @ApiOperation({ summary: 'Upload a photo to a booking' })
+  @ApiZodResponse(responseSchemas.photoViewSchema)
   @Post(':id/photos')
   @UseFilters(PhotoTooLargeFilter)
   @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_PHOTO_BYTES, files: 1 } }))
@@ -91,7 +102,9 @@ export class BookingsController {
     return this.photos.upload(user, id, file, dto);
   }
 
+  @ApiOperation({ summary: 'A booking photo' })
   @Get(':id/photos/:photoId')
+  @ApiProduces('image/jpeg', 'image/png', 'image/webp')
   @ApiOkResponse({ description: "The photo, re-encoded on upload without its camera metadata (the booking's player and staff only)." })
   async photo(
     @CurrentUser() user: AuthUser,
@@ -102,7 +115,9 @@ export class BookingsController {
     sendImage(res, await this.photos.read(user, id, photoId, 'full'));
   }
 
+  @ApiOperation({ summary: 'A booking photo’s thumbnail' })
   @Get(':id/photos/:photoId/thumbnail')
+  @ApiProduces('image/webp')
   @ApiOkResponse({ description: 'A copy of the photo at most 480 px on its long edge, as WebP, for photo lists.' })
   async photoThumbnail(
     @CurrentUser() user: AuthUser,

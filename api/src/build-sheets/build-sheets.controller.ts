@@ -1,7 +1,7 @@
 import { requestWords } from '@loomwright/shared';
 import { Controller, Get, Header, Param, StreamableFile } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiNotFoundResponse, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import { ApiNotFoundResponse, ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { AuthUser } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
@@ -14,6 +14,7 @@ export class BuildSheetsController {
   constructor(private readonly buildSheets: BuildSheetsService) {}
 
   @Roles('builder', 'owner')
+  @ApiOperation({ summary: 'A build’s printable build sheet' })
   @Get(':id/build-sheet')
   @ApiProduces('application/pdf')
   @Header('Content-Security-Policy', PDF_CONTENT_SECURITY_POLICY)

@@ -1,6 +1,7 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Get, HttpCode, Param, Post } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   cancelScheduledSchema,
   priceConsentSchema,
@@ -14,7 +15,7 @@ import {
   type RescheduleResponse, requestWords } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { BenchChangesService } from './bench-changes.service';
 
@@ -27,6 +28,8 @@ const bookingId = uuidParam(requestWords.notAnId('a booking'));
 export class BenchChangesController {
   constructor(private readonly changes: BenchChangesService) {}
 
+  @ApiOperation({ summary: 'Move a build to another day or builder' })
+  @ApiZodResponse(responseSchemas.rescheduleResponseSchema)
   @Post('reschedule')
   @HttpCode(200)
   @ApiZodBody(rescheduleSchema)
@@ -40,6 +43,8 @@ export class BenchChangesController {
     return this.changes.reschedule(user, id, body);
   }
 
+  @ApiOperation({ summary: 'What cancelling a build would refund' })
+  @ApiZodResponse(responseSchemas.cancellationPreviewSchema)
   @Get('cancellation')
   @Roles('owner')
   @ApiOkResponse({ description: 'What cancelling this build would refund, per cause, and the deposit policy behind it.' })
@@ -47,6 +52,8 @@ export class BenchChangesController {
     return this.changes.cancellationPreview(id);
   }
 
+  @ApiOperation({ summary: 'Cancel a scheduled build' })
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   @Post('cancel-scheduled')
   @HttpCode(200)
   @ApiZodBody(cancelScheduledSchema)
@@ -60,6 +67,8 @@ export class BenchChangesController {
     return this.changes.cancelScheduled(user, id, body);
   }
 
+  @ApiOperation({ summary: 'Answer a firm price above the estimate' })
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   @Post('price-consent')
   @HttpCode(200)
   @ApiZodBody(priceConsentSchema)

@@ -1,6 +1,8 @@
+import { z } from 'zod';
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   acceptBookingSchema,
   changeStateSchema,
@@ -39,7 +41,7 @@ import {
   type WaiveBalanceInput, requestWords } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ApprovalsService } from './approvals.service';
 import { BuildRecordsService } from './build-records.service';
@@ -60,6 +62,8 @@ export class BuildsController {
     private readonly approvals: ApprovalsService,
   ) {}
 
+  @ApiOperation({ summary: 'Accept a request at a bench date' })
+  @ApiZodResponse(responseSchemas.acceptBookingResponseSchema)
   @Post('accept')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -69,6 +73,8 @@ export class BuildsController {
     return this.builds.accept(user, id, dto);
   }
 
+  @ApiOperation({ summary: 'Decline a request' })
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   @Post('decline')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -77,6 +83,8 @@ export class BuildsController {
     return this.builds.decline(user, id, dto.reason);
   }
 
+  @ApiOperation({ summary: 'Move a build on' })
+  @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
   @Post('state')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -85,6 +93,8 @@ export class BuildsController {
     return this.builds.changeState(user, id, dto.to, dto.note ?? '', !!dto.tellPlayer);
   }
 
+  @ApiOperation({ summary: 'Waive the balance of a build' })
+  @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
   @Post('waive-balance')
   @HttpCode(200)
   @Roles('owner')
@@ -93,6 +103,7 @@ export class BuildsController {
     return this.builds.waiveBalance(user, id, dto.reason);
   }
 
+  @ApiOperation({ summary: 'Add a staff note to the history' })
   @Post('notes')
   @Roles('builder', 'owner')
   @ApiZodBody(staffNoteSchema)
@@ -101,6 +112,8 @@ export class BuildsController {
     return this.records.addNote(user, id, body);
   }
 
+  @ApiOperation({ summary: 'Record bench hours' })
+  @ApiZodResponse(responseSchemas.timeEntriesResponseSchema)
   @Post('time-entries')
   @Roles('builder', 'owner')
   @ApiZodBody(timeEntrySchema)
@@ -108,12 +121,16 @@ export class BuildsController {
     return this.records.addTimeEntry(user, id, body);
   }
 
+  @ApiOperation({ summary: 'List a build’s hour entries' })
+  @ApiZodResponse(responseSchemas.timeEntriesResponseSchema)
   @Get('time-entries')
   @Roles('builder', 'owner')
   timeEntries(@Param('id', bookingId) id: string): Promise<TimeEntriesResponse> {
     return this.records.timeEntries(id);
   }
 
+  @ApiOperation({ summary: 'Correct an hour entry' })
+  @ApiZodResponse(responseSchemas.timeEntriesResponseSchema)
   @Patch('time-entries/:entryId')
   @Roles('builder', 'owner')
   @ApiZodBody(editTimeEntrySchema)
@@ -127,12 +144,16 @@ export class BuildsController {
     return this.records.editTimeEntry(user, id, entryId, body);
   }
 
+  @ApiOperation({ summary: 'Delete an hour entry' })
+  @ApiZodResponse(responseSchemas.timeEntriesResponseSchema)
   @Delete('time-entries/:entryId')
   @Roles('builder', 'owner')
   deleteTimeEntry(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Param('entryId', uuid('entryId', 'an hour entry id')) entryId: string): Promise<TimeEntriesResponse> {
     return this.records.deleteTimeEntry(user, id, entryId);
   }
 
+  @ApiOperation({ summary: 'Record the pedals received' })
+  @ApiZodResponse(z.array(responseSchemas.intakeItemViewSchema))
   @Post('intake')
   @Roles('builder', 'owner')
   @ApiZodBody(recordIntakeSchema)
@@ -141,12 +162,16 @@ export class BuildsController {
     return this.records.recordIntake(user, id, body);
   }
 
+  @ApiOperation({ summary: 'The intake checklist of a build' })
+  @ApiZodResponse(z.array(responseSchemas.intakeItemViewSchema))
   @Get('intake')
   @Roles('builder', 'owner')
   intake(@Param('id', bookingId) id: string): Promise<IntakeItemView[]> {
     return this.records.intake(id);
   }
 
+  @ApiOperation({ summary: 'Correct an intake item' })
+  @ApiZodResponse(z.array(responseSchemas.intakeItemViewSchema))
   @Patch('intake/:itemId')
   @Roles('builder', 'owner')
   @ApiZodBody(editIntakeItemSchema)
@@ -159,6 +184,8 @@ export class BuildsController {
     return this.records.editIntakeItem(user, id, itemId, body);
   }
 
+  @ApiOperation({ summary: 'Propose an extra with its price' })
+  @ApiZodResponse(responseSchemas.extraViewSchema)
   @Post('extras')
   @Roles('owner')
   @ApiZodBody(proposeExtraSchema)
@@ -167,12 +194,16 @@ export class BuildsController {
     return this.approvals.proposeExtra(user, id, body);
   }
 
+  @ApiOperation({ summary: 'List a build’s extras' })
+  @ApiZodResponse(z.array(responseSchemas.extraViewSchema))
   @Get('extras')
   @Roles('customer', 'builder', 'owner')
   extras(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string): Promise<ExtraView[]> {
     return this.approvals.extras(user, id);
   }
 
+  @ApiOperation({ summary: 'The player approves or declines an extra' })
+  @ApiZodResponse(responseSchemas.extraViewSchema)
   @Post('extras/:extraId/decision')
   @HttpCode(200)
   @Roles('customer')
@@ -187,6 +218,8 @@ export class BuildsController {
     return this.approvals.decideExtra(user, id, extraId, body);
   }
 
+  @ApiOperation({ summary: 'Record the player’s answer on an extra' })
+  @ApiZodResponse(responseSchemas.extraViewSchema)
   @Post('extras/:extraId/recorded-decision')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -201,6 +234,8 @@ export class BuildsController {
     return this.approvals.recordExtraDecision(user, id, extraId, body);
   }
 
+  @ApiOperation({ summary: 'Send the layout to the player for approval' })
+  @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
   @Post('layout/request')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -210,6 +245,8 @@ export class BuildsController {
     return this.approvals.requestLayoutApproval(user, id, body);
   }
 
+  @ApiOperation({ summary: 'The player approves the layout' })
+  @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
   @Post('layout/approve')
   @HttpCode(200)
   @Roles('customer')
@@ -219,6 +256,8 @@ export class BuildsController {
     return this.approvals.decideLayout(user, id, { approve: true, comment: body.note });
   }
 
+  @ApiOperation({ summary: 'The player answers the layout' })
+  @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
   @Post('layout/decision')
   @HttpCode(200)
   @Roles('customer')
@@ -227,6 +266,8 @@ export class BuildsController {
     return this.approvals.decideLayout(user, id, body);
   }
 
+  @ApiOperation({ summary: 'Record the player’s answer on the layout' })
+  @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
   @Post('layout/recorded-decision')
   @HttpCode(200)
   @Roles('builder', 'owner')

@@ -1,6 +1,6 @@
 import { BadRequestException, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Res } from '@nestjs/common';
 import type { Response } from 'express';
-import { ApiCookieAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { AuthUser, CalendarFeedLink } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
@@ -14,6 +14,7 @@ const feedId = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestExcepti
 export class CalendarFeedsController {
   constructor(private readonly feeds: CalendarFeedsService) {}
 
+  @ApiOperation({ summary: 'List the bench calendar feeds' })
   @Get()
   @Roles('owner')
   @ApiCookieAuth('lw_session')
@@ -22,6 +23,7 @@ export class CalendarFeedsController {
     return this.feeds.list();
   }
 
+  @ApiOperation({ summary: 'Your own bench calendar feed' })
   @Get('mine')
   @Roles('builder', 'owner')
   @ApiCookieAuth('lw_session')
@@ -30,6 +32,7 @@ export class CalendarFeedsController {
     return this.feeds.mine(user);
   }
 
+  @ApiOperation({ summary: 'Give a calendar feed a new secret link' })
   @Post(':id/rotate')
   @HttpCode(200)
   @Roles('owner')
@@ -39,6 +42,7 @@ export class CalendarFeedsController {
     return this.feeds.rotate(id, user);
   }
 
+  @ApiOperation({ summary: 'A bench calendar feed (iCalendar)' })
   @Get(':id/:token/bench.ics')
   @Public()
   @ApiProduces('text/calendar')

@@ -1,4 +1,4 @@
-import { applyDecorators } from '@nestjs/common';
+import { applyDecorators, SetMetadata } from '@nestjs/common';
 import { ApiBody, ApiQuery } from '@nestjs/swagger';
 import { z, type ZodType } from 'zod';
 
@@ -32,3 +32,41 @@ export function ApiZodQuery(schema: ZodType) {
     ),
   );
 }
+
+export const RESPONSE_SCHEMA_KEY = 'loomwright:responseSchema';
+
+/** The OpenAPI 3.0 description of an answer, from its shared zod schema (the output side). */
+export function openApiResponseSchema(schema: ZodType): SchemaObject {
+  return withEnumTypes(z.toJSONSchema(schema, { target: 'openapi-3.0', io: 'output', unrepresentable: 'any' })) as SchemaObject;
+}
+
+/**
+ * OpenAPI 3.0 wants a `type` beside `nullable`; zod writes a nullable union of string literals as
+ * `{ nullable, anyOf: [{ type, enum: [one] }, …] }` (ts-to-zod's unions of literals): that becomes
+ * one `{ type, enum, nullable }`, and a bare `{ enum, nullable }` takes its type from its values.
+ */
+function withEnumTypes(node: unknown): unknown {
+  if (Array.isArray(node)) return node.map(withEnumTypes);
+  if (!node || typeof node !== 'object') return node;
+  const out = Object.fromEntries(Object.entries(node).map(([k, v]) => [k, withEnumTypes(v)])) as Record<string, unknown>;
+  const branches = out.anyOf as Array<Record<string, unknown>> | undefined;
+  if (out.nullable === true && Array.isArray(branches) && branches.length > 0) {
+    const type = branches[0].type;
+    if (branches.every((b) => Array.isArray(b.enum) && b.type === type && Object.keys(b).every((k) => k === 'type' || k === 'enum'))) {
+      delete out.anyOf;
+      out.type = type;
+      out.enum = [...branches.flatMap((b) => b.enum as unknown[]), null];
+    }
+  }
+  if (Array.isArray(out.enum) && out.type === undefined) {
+    const kinds = new Set(out.enum.filter((v) => v !== null).map((v) => typeof v));
+    if (kinds.size === 1) out.type = [...kinds][0];
+  }
+  return out;
+}
+
+/**
+ * Documents a route's JSON success answer by its shared zod schema (`responseSchemas` in
+ * @loomwright/shared); the description stays on the route's own `@ApiOkResponse`/`@ApiCreatedResponse`.
+ */
+export const ApiZodResponse = (schema: ZodType) => SetMetadata(RESPONSE_SCHEMA_KEY, schema);

@@ -1,6 +1,6 @@
 import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, Patch, Post, UseGuards } from '@nestjs/common';
 import { Throttle, ThrottlerGuard } from '@nestjs/throttler';
-import { ApiCreatedResponse, ApiNoContentResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCreatedResponse, ApiNoContentResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   configurationLinkSchema,
   errorResponse,
@@ -30,12 +30,14 @@ const configurationIdPipe = uuidParam('This saved board could not be found; open
 export class ConfigurationsController {
   constructor(private readonly configurations: ConfigurationsService) {}
 
+  @ApiOperation({ summary: 'List your saved configurations' })
   @Get()
   @ApiOkResponse({ description: 'Your saved configurations, the most recently changed first.' })
   list(@CurrentUser() user: AuthUser) {
     return this.configurations.list(user);
   }
 
+  @ApiOperation({ summary: 'Save a configuration' })
   @Post()
   @ApiCreatedResponse({ description: 'The configuration, kept under its name.' })
   @ApiZodBody(saveConfigurationSchema)
@@ -43,12 +45,14 @@ export class ConfigurationsController {
     return this.configurations.save(user, body);
   }
 
+  @ApiOperation({ summary: 'One saved configuration' })
   @Get(':id')
   @ApiOkResponse({ description: 'One of your saved configurations, whole.' })
   get(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string) {
     return this.configurations.get(user, id);
   }
 
+  @ApiOperation({ summary: 'Rename or change a saved configuration' })
   @Patch(':id')
   @ApiOkResponse({ description: 'Renamed, or saved with changes.' })
   @ApiZodBody(updateConfigurationSchema)
@@ -56,6 +60,7 @@ export class ConfigurationsController {
     return this.configurations.update(user, id, body);
   }
 
+  @ApiOperation({ summary: 'Copy a saved configuration' })
   @Post(':id/duplicate')
   @ApiCreatedResponse({ description: 'A copy under the name given, or "<name> (copy)".' })
   @ApiZodBody(duplicateConfigurationSchema)
@@ -63,6 +68,7 @@ export class ConfigurationsController {
     return this.configurations.duplicate(user, id, body.name);
   }
 
+  @ApiOperation({ summary: 'Delete a saved configuration' })
   @Delete(':id')
   @HttpCode(204)
   @ApiNoContentResponse({ description: 'Deleted.' })
@@ -80,6 +86,7 @@ export class ConfigurationLinksController {
   // Open to anyone, so bounded per client address (the same PostgreSQL-backed counts as sign-in):
   // far above what a player clicking "Copy link" needs.
   @Public()
+  @ApiOperation({ summary: 'Make a short link to a configuration' })
   @Post()
   @UseGuards(ThrottlerGuard)
   @Throttle({ 'address-and-email': { limit: 60, ttl: 60_000 }, address: { limit: 60, ttl: 60_000 } })
@@ -90,6 +97,7 @@ export class ConfigurationLinksController {
   }
 
   @Public()
+  @ApiOperation({ summary: 'Open a short link' })
   @Get(':code')
   @ApiOkResponse({ description: '{ configuration } the code stands for.' })
   open(@Param('code') code: string) {

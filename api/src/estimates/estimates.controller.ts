@@ -1,8 +1,9 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, HttpCode, Post, Query } from '@nestjs/common';
-import { ApiBadRequestResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBadRequestResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import { estimateQuerySchema, estimateView, rigConfigurationSchema, type EstimateQuery, type RigConfiguration } from '@loomwright/shared';
 import { Public } from '../auth/public.decorator';
-import { ApiZodBody, ApiZodQuery } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodQuery, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { EstimatesService } from './estimates.service';
 
@@ -12,6 +13,8 @@ export class EstimatesController {
   constructor(private readonly estimates: EstimatesService) {}
 
   @Public()
+  @ApiOperation({ summary: 'Estimate a configuration' })
+  @ApiZodResponse(responseSchemas.estimateResultSchema)
   @Post()
   @HttpCode(200)
   @ApiZodBody(rigConfigurationSchema)

@@ -1,5 +1,5 @@
 import { Controller, Get, Query, Res } from '@nestjs/common';
-import { ApiCookieAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagger';
 import { dateRangeQuerySchema, type DateRangeQuery } from '@loomwright/shared';
 import type { Response } from 'express';
 import { Roles } from '../auth/roles.decorator';
@@ -17,6 +17,7 @@ const range = new ZodValidationPipe(dateRangeQuerySchema);
 export class ExportsController {
   constructor(private readonly exports: ExportsService) {}
 
+  @ApiOperation({ summary: 'Export bookings as CSV' })
   @Get('bookings.csv')
   @ApiProduces('text/csv')
   @ApiZodQuery(dateRangeQuerySchema)
@@ -25,6 +26,7 @@ export class ExportsController {
     await sendCsv(res, await this.exports.open('bookings', query));
   }
 
+  @ApiOperation({ summary: 'Export payments and refunds as CSV' })
   @Get('payments.csv')
   @ApiProduces('text/csv')
   @ApiZodQuery(dateRangeQuerySchema)
@@ -33,6 +35,7 @@ export class ExportsController {
     await sendCsv(res, await this.exports.open('payments', query));
   }
 
+  @ApiOperation({ summary: 'Export hour entries as CSV' })
   @Get('hours.csv')
   @ApiProduces('text/csv')
   @ApiZodQuery(dateRangeQuerySchema)

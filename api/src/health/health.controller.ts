@@ -1,5 +1,7 @@
+import { ApiZodResponse } from '../common/zod-openapi';
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Controller, Get, HttpStatus, Res } from '@nestjs/common';
-import { ApiOkResponse, ApiServiceUnavailableResponse, ApiTags } from '@nestjs/swagger';
+import { ApiOkResponse, ApiOperation, ApiServiceUnavailableResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { Public } from '../auth/public.decorator';
 import { HealthService } from './health.service';
@@ -16,6 +18,8 @@ export class HealthController {
   constructor(private readonly health: HealthService) {}
 
   @Public()
+  @ApiOperation({ summary: 'Is the API up with its database' })
+  @ApiZodResponse(responseSchemas.healthStatusSchema)
   @Get()
   @ApiOkResponse({ description: 'The API is up and a real database query succeeded.' })
   @ApiServiceUnavailableResponse({ description: 'The database did not answer.' })
@@ -26,6 +30,7 @@ export class HealthController {
   }
 
   @Public()
+  @ApiOperation({ summary: 'Liveness of this process' })
   @Get('live')
   @ApiOkResponse({ description: 'Liveness: the process is running and answering. Depends on nothing outside it.' })
   live() {
@@ -33,6 +38,7 @@ export class HealthController {
   }
 
   @Public()
+  @ApiOperation({ summary: 'Readiness for traffic' })
   @Get('ready')
   @ApiOkResponse({ description: 'Readiness: the database and the photo store answer; send this process work.' })
   @ApiServiceUnavailableResponse({ description: 'The database or the photo store is unreachable, or the process is shutting down.' })

@@ -1,6 +1,7 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, HttpCode, Param, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
 import { acceptInvitationSchema, inviteStaffSchema, type AcceptInvitationInput, type AuthUser, type InvitationResent, type InviteStaffInput, requestWords } from '@loomwright/shared';
 import type { Request, Response } from 'express';
@@ -9,7 +10,7 @@ import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { SkipSessionRenewal } from '../auth/session-renewal.interceptor';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { InvitationsService } from './invitations.service';
 
@@ -22,6 +23,7 @@ export class InvitationsController {
   ) {}
 
   @Roles('owner')
+  @ApiOperation({ summary: 'Invite a builder' })
   @Post()
   @ApiCreatedResponse({ description: 'The invited builder, their bench profile id and when the link expires.' })
   @ApiZodBody(inviteStaffSchema)
@@ -30,6 +32,8 @@ export class InvitationsController {
   }
 
   @Roles('owner')
+  @ApiOperation({ summary: 'Send a builder’s invitation again' })
+  @ApiZodResponse(responseSchemas.invitationResentSchema)
   @Post(':builderId/resend')
   @HttpCode(201)
   @ApiCreatedResponse({
@@ -45,6 +49,7 @@ export class InvitationsController {
   @Public()
   @UseGuards(ThrottlerGuard)
   @SkipSessionRenewal()
+  @ApiOperation({ summary: 'Accept an invitation and set a password' })
   @Post('accept')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is set and the session cookie is set.' })

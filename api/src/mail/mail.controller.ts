@@ -1,6 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiCreatedResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCreatedResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   listMailQuerySchema,
   resendMailSchema,
@@ -21,6 +21,7 @@ export class MailController {
   constructor(private readonly mail: MailService) {}
 
   /** The mail log, newest first. */
+  @ApiOperation({ summary: 'List the mail log' })
   @Get()
   @Roles('builder', 'owner')
   @ApiZodQuery(listMailQuerySchema)
@@ -28,6 +29,7 @@ export class MailController {
     return this.mail.list({ ...query, q: query.q?.trim() || undefined }, user);
   }
 
+  @ApiOperation({ summary: 'Send a message again' })
   @Post(':id/resend')
   @Roles('owner')
   @HttpCode(201)

@@ -1,5 +1,7 @@
+import { z } from 'zod';
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Headers, HttpCode, Param, Post, Req, type RawBodyRequest } from '@nestjs/common';
-import { ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   cancelBookingSchema,
   recordBalanceSchema,
@@ -17,7 +19,7 @@ import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { AllowCrossSite } from '../security/allow-cross-site.decorator';
 import { bookingIdPipe } from '../bookings/booking-id.pipe';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { PaymentWebhooksService } from './payment-webhooks.service';
 import { PaymentsService } from './payments.service';
@@ -30,6 +32,8 @@ export class PaymentsController {
     private readonly webhooks: PaymentWebhooksService,
   ) {}
 
+  @ApiOperation({ summary: 'Open the hosted checkout for what is due' })
+  @ApiZodResponse(z.object({ url: z.string() }))
   @Post('bookings/:id/checkout')
   @Roles('customer')
   @HttpCode(200)
@@ -39,6 +43,7 @@ export class PaymentsController {
     return { url };
   }
 
+  @ApiOperation({ summary: 'Cancel a request before it is scheduled' })
   @Post('bookings/:id/cancel')
   @Roles('customer')
   @HttpCode(200)
@@ -48,6 +53,7 @@ export class PaymentsController {
     return this.payments.cancel(user, id, dto.reason);
   }
 
+  @ApiOperation({ summary: 'Refund a paid deposit' })
   @Post('bookings/:id/refund')
   @Roles('owner')
   @HttpCode(200)
@@ -57,6 +63,8 @@ export class PaymentsController {
     return this.payments.refundByOwner(user, id, dto.reason);
   }
 
+  @ApiOperation({ summary: 'Record the balance taken in person' })
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   @Post('bookings/:id/balance/record')
   @Roles('owner')
   @HttpCode(200)
@@ -66,6 +74,8 @@ export class PaymentsController {
     return this.payments.recordBalance(user, id, body);
   }
 
+  @ApiOperation({ summary: 'E-mail the player the balance due' })
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   @Post('bookings/:id/balance/request')
   @Roles('builder', 'owner')
   @HttpCode(200)
@@ -74,6 +84,7 @@ export class PaymentsController {
     return this.payments.requestBalance(user, id);
   }
 
+  @ApiOperation({ summary: 'Release a disputed build for delivery' })
   @Post('bookings/:id/dispute/release')
   @Roles('owner')
   @HttpCode(200)
@@ -90,6 +101,7 @@ export class PaymentsController {
   @Public()
   @AllowCrossSite() // signed by the provider; its servers send no Origin of ours
   @ApiConsumes('application/json')
+  @ApiOperation({ summary: 'Receive a signed payment provider event' })
   @Post('payments/webhook')
   @HttpCode(200)
   @ApiCreatedResponse({ description: 'Signed events from the payment provider; a bad signature gets 400.' })

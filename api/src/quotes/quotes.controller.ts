@@ -1,5 +1,5 @@
 import { Body, Controller, Get, Header, HttpCode, Param, Post, Req, Res, StreamableFile, UnauthorizedException } from '@nestjs/common';
-import { ApiAcceptedResponse, ApiBody, ApiOkResponse, ApiProduces, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
+import { ApiAcceptedResponse, ApiOkResponse, ApiOperation, ApiProduces, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
 import {
   emailQuoteSchema,
   quotePdfRequestSchema,
@@ -9,7 +9,6 @@ import {
   type RigConfiguration,
 } from '@loomwright/shared';
 import type { Request, Response } from 'express';
-import { z } from 'zod';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { bookingIdPipe } from '../bookings/booking-id.pipe';
@@ -25,9 +24,11 @@ export class QuotesController {
 
   /** Any configuration, saved or not, as a printable quote; open to anyone, like the estimate. */
   @Public()
+  @ApiOperation({ summary: 'A quote for a configuration as PDF' })
   @Post('pdf')
   @HttpCode(200)
-  @ApiBody({ schema: z.toJSONSchema(quotePdfRequestSchema, { io: 'input', unrepresentable: 'any' }) as object })
+  @ApiZodBody(quotePdfRequestSchema)
+  @ApiProduces('application/pdf')
   @ApiOkResponse({ description: 'application/pdf: line items, totals, layout, power plan, cable list and cautions.' })
   async pdf(@Body(new ZodValidationPipe(quotePdfRequestSchema)) body: QuotePdfRequest, @Res() res: Response) {
     const { pdf } = await this.quotes.pdf(body.configuration as RigConfiguration);
@@ -38,6 +39,7 @@ export class QuotesController {
   }
 
   /** The quote of any configuration, e-mailed to the signed-in person's own address with the PDF attached. */
+  @ApiOperation({ summary: 'E-mail a quote for a configuration to yourself' })
   @Post('email')
   @HttpCode(202)
   @ApiZodBody(emailQuoteSchema)
@@ -59,6 +61,7 @@ export class BookingQuoteController {
    * build's page, where the same PDF is one click away.
    */
   @Public()
+  @ApiOperation({ summary: 'A booking’s quote as PDF' })
   @Get(':id/quote.pdf')
   @ApiProduces('application/pdf')
   @Header('Content-Security-Policy', PDF_CONTENT_SECURITY_POLICY)

@@ -1,5 +1,5 @@
 import { Controller, Get, Query } from '@nestjs/common';
-import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import { dateRangeQuerySchema, type DateRangeQuery, type HoursReport, type OutstandingReport, type RevenueReport, type UtilisationReport } from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodQuery } from '../common/zod-openapi';
@@ -15,6 +15,7 @@ const range = new ZodValidationPipe(dateRangeQuerySchema);
 export class ReportsController {
   constructor(private readonly reports: ReportsService) {}
 
+  @ApiOperation({ summary: 'Revenue per month' })
   @Get('revenue')
   @ApiZodQuery(dateRangeQuerySchema)
   @ApiOkResponse({ description: 'Deposits, balances and refunds per calendar month of the shop (payments.csv summed by month).' })
@@ -22,12 +23,14 @@ export class ReportsController {
     return this.reports.revenue(query);
   }
 
+  @ApiOperation({ summary: 'Money owed now' })
   @Get('outstanding')
   @ApiOkResponse({ description: 'Money owed now: deposits of open requests, balances of builds; and money held beyond what is owed.' })
   outstanding(): Promise<OutstandingReport> {
     return this.reports.outstanding();
   }
 
+  @ApiOperation({ summary: 'Quoted against spent hours' })
   @Get('hours')
   @ApiZodQuery(dateRangeQuerySchema)
   @ApiOkResponse({ description: 'Quoted against spent hours per build and per builder, for builds with hours worked in the range.' })
@@ -35,6 +38,7 @@ export class ReportsController {
     return this.reports.hours(query);
   }
 
+  @ApiOperation({ summary: 'Bench utilisation per builder and week' })
   @Get('utilisation')
   @ApiZodQuery(dateRangeQuerySchema)
   @ApiOkResponse({ description: 'Bench capacity, booked and recorded hours per builder per ISO week.' })

@@ -1,6 +1,8 @@
+import { z } from 'zod';
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post, Put } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   calendarDay,
   createClosureSchema,
@@ -16,7 +18,7 @@ import {
   type UpdateSettingsInput, requestWords } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { SettingsService } from './settings.service';
 
@@ -26,6 +28,8 @@ import { SettingsService } from './settings.service';
 export class SettingsController {
   constructor(private readonly settings: SettingsService) {}
 
+  @ApiOperation({ summary: 'The shop’s settings' })
+  @ApiZodResponse(responseSchemas.shopSettingsViewSchema)
   @Get()
   @Roles('builder', 'owner')
   @ApiOkResponse({ description: 'Shop details, closures and the coming public holidays of its country.' })
@@ -33,6 +37,8 @@ export class SettingsController {
     return this.settings.get();
   }
 
+  @ApiOperation({ summary: 'Change the shop’s settings' })
+  @ApiZodResponse(responseSchemas.shopSettingsViewSchema)
   @Patch()
   @Roles('owner')
   @ApiZodBody(updateSettingsSchema)
@@ -41,6 +47,8 @@ export class SettingsController {
   }
 
   /** Whether the shop works on one public holiday of its country (the per-holiday opt-out). */
+  @ApiOperation({ summary: 'Choose whether the shop works on a public holiday' })
+  @ApiZodResponse(responseSchemas.holidayChoiceResponseSchema)
   @Put('holidays/:day')
   @Roles('owner')
   @ApiZodBody(holidayChoiceSchema)
@@ -52,12 +60,16 @@ export class SettingsController {
     return this.settings.chooseHoliday(user, day, dto);
   }
 
+  @ApiOperation({ summary: 'List shop closures' })
+  @ApiZodResponse(z.array(responseSchemas.shopClosureViewSchema))
   @Get('closures')
   @Roles('owner')
   closures(): Promise<ShopClosureView[]> {
     return this.settings.closures();
   }
 
+  @ApiOperation({ summary: 'Add a shop closure' })
+  @ApiZodResponse(responseSchemas.addClosureResponseSchema)
   @Post('closures')
   @Roles('owner')
   @ApiZodBody(createClosureSchema)
@@ -65,6 +77,7 @@ export class SettingsController {
     return this.settings.addClosure(dto);
   }
 
+  @ApiOperation({ summary: 'Remove a shop closure' })
   @Delete('closures/:id')
   @HttpCode(204)
   @Roles('owner')

@@ -1,5 +1,7 @@
+import { ApiZodResponse } from '../common/zod-openapi';
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Controller, Get } from '@nestjs/common';
-import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import { Public } from '../auth/public.decorator';
 import { ShopService } from './shop.service';
 
@@ -9,6 +11,8 @@ export class ShopController {
   constructor(private readonly shop: ShopService) {}
 
   @Public()
+  @ApiOperation({ summary: 'The shop’s public profile' })
+  @ApiZodResponse(responseSchemas.shopProfileSchema)
   @Get()
   @ApiOkResponse({ description: "The shop's public profile: name, currency, country, contact." })
   profile() {

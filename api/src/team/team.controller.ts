@@ -1,6 +1,8 @@
+import { z } from 'zod';
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   absenceSchema,
   updateTeamMemberSchema,
@@ -13,7 +15,7 @@ import {
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { TeamService } from './team.service';
 
 const builderIdPipe = uuidParam(requestWords.notAnId('a builder'));
@@ -24,6 +26,8 @@ const builderIdPipe = uuidParam(requestWords.notAnId('a builder'));
 export class TeamController {
   constructor(private readonly team: TeamService) {}
 
+  @ApiOperation({ summary: 'List the builders' })
+  @ApiZodResponse(z.array(responseSchemas.teamMemberSchema))
   @Get()
   @Roles('builder', 'owner')
   @ApiOkResponse({
@@ -34,6 +38,8 @@ export class TeamController {
     return this.team.list(user);
   }
 
+  @ApiOperation({ summary: 'List builders’ absences' })
+  @ApiZodResponse(z.array(responseSchemas.builderAbsenceViewSchema))
   @Get('absences')
   @Roles('builder', 'owner')
   @ApiOkResponse({ description: 'Days builders are away (ill, holiday, a course).' })
@@ -41,6 +47,8 @@ export class TeamController {
     return this.team.absences();
   }
 
+  @ApiOperation({ summary: 'Record a builder’s absence' })
+  @ApiZodResponse(responseSchemas.addAbsenceResponseSchema)
   @Post(':builderId/absences')
   @Roles('owner')
   @ApiOkResponse({ description: 'The absence, and the builds on that builder’s bench then (move them through POST /api/bookings/:id/reschedule).' })
@@ -51,6 +59,7 @@ export class TeamController {
     return this.team.addAbsence(builderId, body);
   }
 
+  @ApiOperation({ summary: 'Remove an absence' })
   @Delete('absences/:absenceId')
   @HttpCode(204)
   @Roles('owner')
@@ -60,6 +69,8 @@ export class TeamController {
     return this.team.deleteAbsence(id);
   }
 
+  @ApiOperation({ summary: 'Change a builder’s level, rate, hours or status' })
+  @ApiZodResponse(responseSchemas.teamMemberSchema)
   @Patch(':builderId')
   @Roles('owner')
   @ApiZodBody(updateTeamMemberSchema)
