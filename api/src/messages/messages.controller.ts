@@ -1,6 +1,6 @@
 import { Body, Controller, Get, Param, Post, UploadedFiles, UseFilters, UseInterceptors } from '@nestjs/common';
 import { FilesInterceptor } from '@nestjs/platform-express';
-import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import { MESSAGE_MAX_PHOTOS, postMessageSchema, type AuthUser, type PostMessageInput } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { bookingIdPipe } from '../bookings/booking-id.pipe';
@@ -15,12 +15,14 @@ import { MessagesService } from './messages.service';
 export class MessagesController {
   constructor(private readonly messages: MessagesService) {}
 
+  @ApiOperation({ summary: 'A build’s messages between player and shop' })
   @Get('bookings/:id/messages')
   @ApiOkResponse({ description: "The build's conversation, oldest first; reading it marks it read for the reader's side (the player, or the shop)." })
   thread(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
     return this.messages.thread(user, id);
   }
 
+  @ApiOperation({ summary: 'Send a message on a build' })
   @Post('bookings/:id/messages')
   @UseFilters(MessagePhotosFilter)
   @UseInterceptors(FilesInterceptor('photos', MESSAGE_MAX_PHOTOS, { limits: { fileSize: MAX_PHOTO_BYTES, files: MESSAGE_MAX_PHOTOS } }))
@@ -44,6 +46,7 @@ export class MessagesController {
     return this.messages.post(user, id, dto, files ?? []);
   }
 
+  @ApiOperation({ summary: 'Unread messages per build' })
   @Get('messages/unread')
   @ApiOkResponse({ description: "Unread messages from the other side, per build: a player's own builds, a builder's assigned builds, the owner's whole shop." })
   unread(@CurrentUser() user: AuthUser) {

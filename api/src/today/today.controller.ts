@@ -1,5 +1,5 @@
 import { Controller, Get, Query } from '@nestjs/common';
-import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import { todayQuerySchema, type AuthUser, type TodayQuery, type TodayResponse } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
@@ -13,6 +13,7 @@ import { TodayService } from './today.service';
 export class TodayController {
   constructor(private readonly todayService: TodayService) {}
 
+  @ApiOperation({ summary: 'The staff’s page for today' })
   @Get()
   @Roles('builder', 'owner')
   @ApiZodQuery(todayQuerySchema)
