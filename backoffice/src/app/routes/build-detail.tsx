@@ -34,7 +34,7 @@ import { useAddNote } from 'src/features/builds/api/add-note';
 import { CancelBuildDialog } from 'src/features/builds/components/CancelBuildDialog';
 import { RescheduleDialog, type MovableBuild } from 'src/features/builds/components/RescheduleDialog';
 import { useMe } from 'src/features/auth/api/get-me';
-import { MoneyFactsTable } from '@loomwright/shared/ui';
+import { ConversationPanel, MoneyFactsTable } from '@loomwright/shared/ui';
 import { formatMoney, formatStamp } from 'src/lib/format';
 
 export function Component() {
@@ -138,6 +138,11 @@ export function Component() {
           <Card variant="outlined">
             <Section title="Photos">
               <PhotoGrid photos={b.photos} />
+            </Section>
+          </Card>
+          <Card variant="outlined">
+            <Section title="Messages with the player">
+              <ConversationPanel bookingId={b.id} otherSide="the player" />
             </Section>
           </Card>
         </Stack>

@@ -20,7 +20,7 @@ import { ShipmentForm } from 'src/features/bookings/components/ShipmentForm';
 import { StatusTimeline } from 'src/features/bookings/components/StatusTimeline';
 import { BoardSketch } from 'src/features/configurator/components/BoardSketch';
 import { PayButton } from 'src/features/payments/components/PayButton';
-import { MoneyFactsTable } from '@loomwright/shared/ui';
+import { ConversationPanel, MoneyFactsTable } from '@loomwright/shared/ui';
 import { formatAmount, formatDay, formatMoment } from 'src/lib/format';
 
 const shippable: BookingState[] = ['requested', 'deposit_paid', 'scheduled'];
@@ -76,6 +76,9 @@ export function Component() {
           <Stack gap={2}>
             <Section title={b.firmQuote ? 'Firm quote' : 'Estimate'}>
               <QuoteLines quote={b.firmQuote ?? b.quote} />
+            </Section>
+            <Section title="Messages with the shop">
+              <ConversationPanel bookingId={b.id} otherSide="the shop" />
             </Section>
             <Section title="Photos">
               <PhotoPanel bookingId={b.id} photos={b.photos} />
