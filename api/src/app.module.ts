@@ -20,6 +20,7 @@ import { MessagesModule } from './messages/messages.module';
 import { CalendarFeedsModule } from './calendar-feeds/calendar-feeds.module';
 import { TodayModule } from './today/today.module';
 import { QuotesModule } from './quotes/quotes.module';
+import { RemindersModule } from './reminders/reminders.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { LoggingModule } from './logging/logging.module';
@@ -93,6 +94,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
     CalendarFeedsModule,
     TodayModule,
     ConfigurationsModule,
+    RemindersModule,
   ],
 })
 export class AppModule {}

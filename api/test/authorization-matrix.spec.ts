@@ -185,6 +185,8 @@ const matrix: Record<string, Entry> = {
   'POST /api/settings/closures': ownerOnly(400),
   'DELETE /api/settings/closures/:id': { ...ownerOnly(404), path: () => `/api/settings/closures/${UNKNOWN_ID}` },
   'PUT /api/settings/holidays/:day': { ...ownerOnly(400), path: () => '/api/settings/holidays/2030-01-08' },
+  'GET /api/settings/reminders': staff(200),
+  'PATCH /api/settings/reminders': ownerOnly(400),
   'GET /api/customers': staff(200),
   'GET /api/customers/:id': { ...staff(200), path: (fx) => `/api/customers/${fx.customerA}` },
   'GET /api/mail': staff(200),

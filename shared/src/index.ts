@@ -27,6 +27,7 @@ export * from './quote-schemas';
 export * from './format/shop-format';
 export * from './office-schemas';
 export * from './today-schemas';
+export * from './reminder-schemas';
 export * from './storefront-paths';
 export * from './configuration-schemas';
 export * from './words';

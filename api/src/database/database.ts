@@ -409,7 +409,30 @@ export interface ConfigurationLinksTable {
   last_opened_at: Date | null;
 }
 
+export type ReminderKindColumn = 'shipBy' | 'balanceUnpaid' | 'checkoutAbandoned' | 'requestExpiry';
+
+export interface ReminderSettingsTable {
+  kind: ReminderKindColumn;
+  enabled: boolean;
+  /** Days, or hours for an unfinished checkout. */
+  amount: number;
+  updated_at: Timestamp;
+  updated_by: string | null;
+}
+
+/** One reminder sent (or one request expired); unique per kind, booking and event. */
+export interface RemindersTable {
+  id: Generated<string>;
+  kind: ReminderKindColumn;
+  booking_id: string;
+  event_key: string;
+  due_at: Timestamp;
+  sent_at: Timestamp;
+}
+
 export interface DB {
+  reminder_settings: ReminderSettingsTable;
+  reminders: RemindersTable;
   calendar_feeds: CalendarFeedsTable;
   saved_configurations: SavedConfigurationsTable;
   configuration_links: ConfigurationLinksTable;

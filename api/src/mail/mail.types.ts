@@ -22,6 +22,11 @@ export const mailTemplates = [
   'shop-payment-alert',
   'configuration-quote',
   'build-messages',
+  'ship-by-reminder',
+  'shop-ship-by-reminder',
+  'balance-reminder',
+  'checkout-reminder',
+  'request-expired',
 ] as const;
 export type MailTemplate = (typeof mailTemplates)[number];
 
@@ -215,6 +220,16 @@ export type MailTemplateData = {
     detail: string;
     backofficeUrl: string;
   };
+  /** Reminders (api/src/reminders/): the ship-by day is `daysLeft` away and no tracking number is recorded. */
+  'ship-by-reminder': Recipient & BookingLink & { reference: string; shipBy: string; benchDate: string; daysLeft: number };
+  /** The same, to the build's builder (or the shop's address when nobody is assigned). */
+  'shop-ship-by-reminder': Recipient & { reference: string; playerName: string; shipBy: string; benchDate: string; backofficeUrl: string };
+  /** A balance still unpaid some days after the board became ready (`readySince`, a calendar day). */
+  'balance-reminder': Recipient & BookingLink & { reference: string; balanceDue: string; currency: string; readySince: string; payUrl?: string };
+  /** A checkout opened and not finished. */
+  'checkout-reminder': Recipient & BookingLink & { reference: string; kind: 'deposit' | 'balance'; amount: string; currency: string; payUrl?: string };
+  /** An unpaid request closed after the shop's set number of days. */
+  'request-expired': Recipient & { reference: string; days: number; configureUrl?: string };
   /** To the shop; the player is `name` (or `customerName`). */
   'shop-new-paid-request': Recipient & {
     reference: string;

@@ -345,6 +345,26 @@ export class PaymentsService {
     return this.bookings.getDetail(booking.id);
   }
 
+  /**
+   * Closes a request's unfinished checkouts before it expires, so nothing can be paid on it
+   * afterwards: an open session is expired at the provider and its row marked expired. Answers
+   * false, and closes nothing more, when money is on its way (a deposit paid or a bank debit
+   * settling, or a session the player has just completed whose webhook has not arrived): such a
+   * request must not expire. A deposit that still arrives after expiry is refunded by the webhook.
+   */
+  async closeUnfinishedCheckouts(trx: Executor, bookingId: string): Promise<boolean> {
+    const rows = await this.payments.listForBooking(trx, bookingId);
+    if (rows.some((p) => p.status === 'paid' || p.status === 'processing')) return false;
+    for (const p of rows) {
+      if ((p.status !== 'pending' && p.status !== 'failed') || !p.checkout_session_id) continue;
+      const session = await this.retrieveSession(p.checkout_session_id);
+      if (session.status === 'complete') return false;
+      if (session.status === 'open') await this.call(() => this.stripe.checkout.sessions.expire(p.checkout_session_id!));
+      await this.payments.update(trx, p.id, { status: 'expired' });
+    }
+    return true;
+  }
+
   /** The owner refunds a deposit from the backoffice. */
   async refundByOwner(user: AuthUser, bookingId: string, reason: string) {
     await this.db.transaction().execute(async (trx) => {

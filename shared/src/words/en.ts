@@ -26,6 +26,11 @@ export const fieldLabels: Readonly<Record<string, string>> = {
   confirmPossibleDuplicate: 'Confirm a second copy',
   contactEmail: 'The shop’s e-mail',
   countryCode: 'Country',
+  daysBefore: 'Days before the ship-by day',
+  daysAfterReady: 'Days after the board is ready',
+  daysUnpaid: 'Days a request waits for its deposit',
+  enabled: 'Reminder on',
+  hoursAfter: 'Hours after the checkout was opened',
   deposit: 'Deposit status',
   description: 'Description',
   email: 'E-mail',
@@ -290,6 +295,27 @@ export const messageWords = {
   openThread: 'Open the conversation',
 } as const;
 
+/**
+ * Reminders and request expiry (settings: staff read these; mail subjects and history lines:
+ * players and staff). Days are written by the caller through the shop's formatter.
+ */
+export const reminderWords = {
+  settingsEmpty: 'Say what to change: the ship-by, balance, checkout or request-expiry reminder',
+  groupEmpty: (what: string) => `Say what to change for the ${what}: whether it is on, or when it goes out`,
+  actor: 'Loomwright reminders',
+  kinds: {
+    shipBy: 'ship-by reminder',
+    balanceUnpaid: 'balance reminder',
+    checkoutAbandoned: 'unfinished-checkout reminder',
+    requestExpiry: 'request expiry',
+  },
+  shipByPlayerNote: (shipBy: string, to: string) => `Reminder sent to ${to}: the pedals are due by ${shipBy} and no tracking number is recorded yet.`,
+  shipByShopNote: (shipBy: string, to: string) => `Reminder sent to ${to} (shop): ship-by day ${shipBy} is near and the parcel has no tracking number.`,
+  balanceNote: (amount: string, days: number) => `Reminder sent to the player: a balance of ${amount} is still unpaid ${days} ${days === 1 ? 'day' : 'days'} after the board was ready.`,
+  checkoutNote: (what: string, hours: number) => `Reminder sent to the player: the ${what} checkout opened more than ${hours} hours ago was not finished.`,
+  expiredNote: (days: number) => `Request expired: the deposit was not paid within ${days} ${days === 1 ? 'day' : 'days'} of the request. Nothing was held on the bench.`,
+} as const;
+
 /** Answers about the request itself: an address or a body the API cannot read. */
 export const requestWords = {
   /** An id in the address that cannot be one (only a hand-edited link gets here). */
@@ -324,5 +350,5 @@ export const todayWords = {
   noBench: 'Your account has no bench of its own on the team, so it has no builds to list',
 } as const;
 
-export const en = { fieldLabels, weekdayNames, rules, authWords, rigWords, shopWords, bookingWords, messageWords, requestWords, checkWords, todayWords, label, humanizeField, orList, valueWords };
+export const en = { fieldLabels, weekdayNames, rules, authWords, rigWords, shopWords, bookingWords, messageWords, requestWords, checkWords, todayWords, reminderWords, label, humanizeField, orList, valueWords };
 export type Words = typeof en;

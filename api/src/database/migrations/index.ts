@@ -18,6 +18,7 @@ import * as shopPostalAddress from './20261202_0745_shop_postal_address';
 import * as holidayChoices from './20261202_0957_holiday_choices';
 import * as laborLineBasis from './20261202_1041_labor_line_basis';
 import * as buildMessages from './20261202_1101_build_messages';
+import * as reminders from './20261202_1105_reminders';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -43,4 +44,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_0957_holiday_choices': holidayChoices,
   '20261202_1041_labor_line_basis': laborLineBasis,
   '20261202_1101_build_messages': buildMessages,
+  '20261202_1105_reminders': reminders,
 };

@@ -38,6 +38,11 @@ const samples: Record<(typeof mailTemplates)[number], Record<string, unknown>> =
   'payment-failed': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD', reason: 'The bank account has been closed.' },
   'shop-payment-alert': { customerName: 'Rosa', alert: 'dispute-opened', reference: 'LW-1042', amount: '280.00', currency: 'USD', detail: 'fraudulent', backofficeUrl: 'http://x/backoffice/requests/1' },
   'shop-new-paid-request': { reference: 'LW-1042', customerName: 'Rosa', customerEmail: 'rosa@mail.example', amount: '280.00', currency: 'USD', backofficeUrl: 'http://x/backoffice/requests/1' },
+  'ship-by-reminder': { name: 'Rosa', reference: 'LW-1042', shipBy: '2027-01-08', benchDate: '2027-01-13', daysLeft: 3, bookingUrl: 'http://x/b' },
+  'shop-ship-by-reminder': { name: 'Wren', reference: 'LW-1042', playerName: 'Rosa', shipBy: '2027-01-08', benchDate: '2027-01-13', backofficeUrl: 'http://x/backoffice/requests/1' },
+  'balance-reminder': { name: 'Rosa', reference: 'LW-1042', balanceDue: '840.00', currency: 'USD', readySince: '2027-01-15', payUrl: 'http://x/b' },
+  'checkout-reminder': { name: 'Rosa', reference: 'LW-1042', kind: 'deposit', amount: '280.00', currency: 'USD', payUrl: 'http://x/b' },
+  'request-expired': { name: 'Rosa', reference: 'LW-1042', days: 30, configureUrl: 'http://x/configure' },
   'configuration-quote': {
     name: 'Rosa',
     title: 'Stage board',

@@ -3,6 +3,7 @@ import type { MailTemplate } from '../mail.types';
 import { handoverCalendar } from './calendar';
 import { formatDay, formatInstant, formatMoney, inShopVoice, MailDataError, optionalString, requireString } from './format';
 import { letterHtml, letterText, type Block, type Letter } from './layout';
+import { reminderDrafts } from './reminder-letters';
 
 export interface ShopContext {
   name: string;
@@ -369,6 +370,7 @@ function approvalRequested(data: Data): Draft {
 }
 
 const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
+  ...reminderDrafts,
   'approval-requested': (data) => approvalRequested(data),
   'build-messages': (data) => buildMessages(data),
   'shop-note': (data) => {

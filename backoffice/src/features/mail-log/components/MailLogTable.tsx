@@ -45,6 +45,11 @@ const templateWords: Record<string, string> = {
   'deposit-refunded': 'Deposit refunded',
   'booking-declined': 'Request declined',
   'shop-new-paid-request': 'New paid request (to the shop)',
+  'ship-by-reminder': 'Reminder: pedals due soon',
+  'shop-ship-by-reminder': 'Reminder: no tracking yet (to the shop)',
+  'balance-reminder': 'Reminder: balance still due',
+  'checkout-reminder': 'Reminder: checkout not finished',
+  'request-expired': 'Request expired',
 };
 
 function ResendButton({ entry }: { entry: MailLogEntry }) {

@@ -1,0 +1,14 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { ReminderSettingsView, UpdateReminderSettingsInput } from '@loomwright/shared';
+import { api } from 'src/lib/api-client';
+
+export const updateReminderSettings = (body: UpdateReminderSettingsInput) =>
+  api.request<ReminderSettingsView>('/settings/reminders', { method: 'PATCH', body });
+
+export const useUpdateReminderSettings = () => {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: updateReminderSettings,
+    onSuccess: (saved) => queryClient.setQueryData(['settings', 'reminders'], saved),
+  });
+};
