@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { flag, requestObject } from './request-fields';
+import { flag, numberText, requestObject } from './request-fields';
 import { label, reminderWords, rules } from './words';
 
 /**
@@ -68,3 +68,19 @@ export interface ReminderSettingsView {
   /** Expire a request whose deposit is still unpaid this many days after it was made; the player is told. */
   requestExpiry: { enabled: boolean; daysUnpaid: number };
 }
+
+/**
+ * The backoffice form: every reminder with its switch and its figure typed as text, checked by the
+ * same whole-number rule as the API (so the form and a 400 say the same words).
+ */
+const typed = (kind: ReminderKind) => {
+  const { field, min, max, unit } = reminderLimits[kind];
+  return numberText(field, whole(field, min, max, unit));
+};
+export const reminderSettingsFormSchema = z.object({
+  shipBy: z.object({ enabled: z.boolean(), daysBefore: typed('shipBy') }),
+  balanceUnpaid: z.object({ enabled: z.boolean(), daysAfterReady: typed('balanceUnpaid') }),
+  checkoutAbandoned: z.object({ enabled: z.boolean(), hoursAfter: typed('checkoutAbandoned') }),
+  requestExpiry: z.object({ enabled: z.boolean(), daysUnpaid: typed('requestExpiry') }),
+});
+export type ReminderSettingsFormInput = z.input<typeof reminderSettingsFormSchema>;

@@ -12,6 +12,7 @@ import { useMe } from 'src/features/auth/api/get-me';
 import { useSettings } from 'src/features/settings/api/get-settings';
 import { ClosuresList } from 'src/features/settings/components/ClosuresList';
 import { HolidaysList } from 'src/features/settings/components/HolidaysList';
+import { ReminderSettingsForm } from 'src/features/settings/components/ReminderSettingsForm';
 import { ShopDetailsForm } from 'src/features/settings/components/ShopDetailsForm';
 
 export function Component() {
@@ -52,6 +53,12 @@ export function Component() {
               Public holidays, next twelve months
             </Typography>
             <HolidaysList settings={settings.data} canEdit={canEdit} onSaved={setNotice} />
+          </Card>
+          <Card variant="outlined">
+            <Typography level="title-md" component="h2">
+              Reminders
+            </Typography>
+            <ReminderSettingsForm canEdit={canEdit} onSaved={setNotice} />
           </Card>
         </Stack>
       )}
