@@ -1,11 +1,20 @@
 import { Body, Controller, Get, Patch } from '@nestjs/common';
-import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { z } from 'zod';
+import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import { updateReminderSettingsSchema, type AuthUser, type ReminderSettingsView, type UpdateReminderSettingsInput } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { RemindersService } from './reminders.service';
+
+/** The answer's shape for the API document (the interface ReminderSettingsView in shared/ is the type). */
+const reminderSettingsViewSchema = z.object({
+  shipBy: z.object({ enabled: z.boolean(), daysBefore: z.number().int() }),
+  balanceUnpaid: z.object({ enabled: z.boolean(), daysAfterReady: z.number().int() }),
+  checkoutAbandoned: z.object({ enabled: z.boolean(), hoursAfter: z.number().int() }),
+  requestExpiry: z.object({ enabled: z.boolean(), daysUnpaid: z.number().int() }),
+}) satisfies z.ZodType<ReminderSettingsView>;
 
 /** The reminders' part of the shop settings: each on or off, and when it goes out. */
 @ApiTags('settings')
@@ -14,6 +23,8 @@ import { RemindersService } from './reminders.service';
 export class RemindersController {
   constructor(private readonly reminders: RemindersService) {}
 
+  @ApiOperation({ summary: 'The reminders the shop sends, and when' })
+  @ApiZodResponse(reminderSettingsViewSchema)
   @Get()
   @Roles('builder', 'owner')
   @ApiOkResponse({ description: 'Each reminder on or off, and its days (hours for an unfinished checkout).' })
@@ -21,6 +32,9 @@ export class RemindersController {
     return this.reminders.settings();
   }
 
+  @ApiOperation({ summary: 'Switch a reminder on or off, or change when it goes out' })
+  @ApiZodResponse(reminderSettingsViewSchema)
+  @ApiOkResponse({ description: 'The reminder settings as they now stand.' })
   @Patch()
   @Roles('owner')
   @ApiZodBody(updateReminderSettingsSchema)
