@@ -1,3 +1,4 @@
+import Box from '@mui/joy/Box';
 import Link from '@mui/joy/Link';
 import Typography from '@mui/joy/Typography';
 import { Link as RouterLink, useLocation } from 'react-router';
@@ -29,7 +30,10 @@ export function AccountNav() {
         {me.data.name}
       </Typography>
       <Link component={RouterLink} to="/builds">My builds</Link>
-      <Link component={RouterLink} to="/configurations">Saved boards</Link>
+      {/* On a phone the header has room for "Saved" only; the link keeps its full name for screen readers. */}
+      <Link component={RouterLink} to="/configurations" aria-label="Saved boards">
+        Saved<Box component="span" sx={{ display: { xs: 'none', sm: 'inline' } }}>&nbsp;boards</Box>
+      </Link>
       <Link component={RouterLink} to="/account">Account</Link>
     </>
   );
