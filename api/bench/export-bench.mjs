@@ -52,12 +52,15 @@ async function fill() {
   const c = new pg.Client({ connectionString: dbUrl });
   await c.connect();
   const t0 = performance.now();
-  await c.query(`
+  await c.query(
+    `
     insert into bookings (reference, customer_id, state, configuration, created_at)
     select 'LW-B' || n, (select id from users where email = 'player@mail.example'), 'deposit_paid',
            '{"surfaceId":"surface-610","caseId":"case-hard","routing":{"mode":"serial"},"pedals":[],"functions":[],"level":"apprentice"}'::jsonb,
            timestamptz '2026-01-01 12:00Z' + (n % 330) * interval '1 day'
-    from generate_series(1, $1::int) as n`, [rows]);
+    from generate_series(1, $1::int) as n`,
+    [rows],
+  );
   await c.query(`
     insert into quotes (booking_id, kind, price_book_version, currency, configuration, estimate, labor_hours, total_low, total_high, deposit, expires_at)
     select b.id, 'estimate', (select max(version) from price_book_versions), 'USD', b.configuration,
@@ -105,7 +108,15 @@ async function main() {
   await admin(`create database "${dbName}"`);
   const api = spawn(process.execPath, [path.join(root, 'api/dist/src/main.js')], {
     cwd: root,
-    env: { ...process.env, DATABASE_URL: dbUrl, PORT: String(apiPort), SEED_DEMO: 'true', SERVE_APPS: 'false', RUN_WORKERS: 'false', NODE_ENV: 'development' },
+    env: {
+      ...process.env,
+      DATABASE_URL: dbUrl,
+      PORT: String(apiPort),
+      SEED_DEMO: 'true',
+      SERVE_APPS: 'false',
+      RUN_WORKERS: 'false',
+      NODE_ENV: 'development',
+    },
     stdio: ['ignore', 'ignore', 'inherit'],
   });
   try {
@@ -118,7 +129,10 @@ async function main() {
       body: JSON.stringify({ email: 'owner@shop.example', password: 'demo-pass-2026' }),
     });
     if (!signIn.ok) throw new Error(`sign-in: ${signIn.status}`);
-    const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const cookie = signIn.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
     for (const file of (process.env.FILES ?? 'hours.csv,payments.csv,bookings.csv').split(',')) await download(api.pid, cookie, file);
   } finally {
     api.kill('SIGTERM');

@@ -8,7 +8,14 @@ import { createReadStream, existsSync, readdirSync, readFileSync } from 'node:fs
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import {
+  CreateBucketCommand,
+  GetObjectCommand,
+  HeadBucketCommand,
+  ListObjectsV2Command,
+  PutObjectCommand,
+  S3Client,
+} from '@aws-sdk/client-s3';
 
 export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 
@@ -84,7 +91,9 @@ export function describeDatabase(url) {
 }
 
 export function describePhotos(photos) {
-  return photos.driver === 's3' ? `bucket ${photos.bucket}${photos.endpoint ? ` at ${photos.endpoint}` : ''}` : `folder ${path.relative(root, photos.uploadsDir) || '.'}`;
+  return photos.driver === 's3'
+    ? `bucket ${photos.bucket}${photos.endpoint ? ` at ${photos.endpoint}` : ''}`
+    : `folder ${path.relative(root, photos.uploadsDir) || '.'}`;
 }
 
 /** Debian's PostgreSQL client programs (pg_dump, pg_restore), the newest installed. */
@@ -143,7 +152,10 @@ export function photoStore(photos) {
     region: photos.region,
     endpoint: photos.endpoint,
     forcePathStyle: photos.forcePathStyle,
-    credentials: photos.accessKeyId && photos.secretAccessKey ? { accessKeyId: photos.accessKeyId, secretAccessKey: photos.secretAccessKey } : undefined,
+    credentials:
+      photos.accessKeyId && photos.secretAccessKey
+        ? { accessKeyId: photos.accessKeyId, secretAccessKey: photos.secretAccessKey }
+        : undefined,
     requestChecksumCalculation: 'WHEN_REQUIRED',
     responseChecksumValidation: 'WHEN_REQUIRED',
     maxAttempts: 3,
@@ -159,7 +171,9 @@ export function photoStore(photos) {
       }
     },
     async put(key, bytes, contentType) {
-      await client.send(new PutObjectCommand({ Bucket: photos.bucket, Key: key, Body: bytes, ContentType: contentType, ContentLength: bytes.length }));
+      await client.send(
+        new PutObjectCommand({ Bucket: photos.bucket, Key: key, Body: bytes, ContentType: contentType, ContentLength: bytes.length }),
+      );
     },
     async isEmpty() {
       try {
@@ -175,7 +189,8 @@ export function photoStore(photos) {
       try {
         await client.send(new HeadBucketCommand({ Bucket: photos.bucket }));
       } catch (error) {
-        if (error.name === 'NotFound' || error.$metadata?.httpStatusCode === 404) await client.send(new CreateBucketCommand({ Bucket: photos.bucket }));
+        if (error.name === 'NotFound' || error.$metadata?.httpStatusCode === 404)
+          await client.send(new CreateBucketCommand({ Bucket: photos.bucket }));
         else throw error;
       }
     },

@@ -43,16 +43,23 @@ function pgDump(databaseUrl, snapshot, file) {
   });
 }
 
-const stamp = (date) => date.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z');
+const stamp = (date) =>
+  date
+    .toISOString()
+    .replace(/[-:]/g, '')
+    .replace(/\.\d+Z$/, 'Z');
 
 async function main() {
   const settings = readSettings();
   const createdAt = new Date();
   const target = path.resolve(process.argv[2] ?? path.join(root, '.data', 'backups', `loomwright-${stamp(createdAt)}.tar`));
-  if (!target.endsWith('.tar')) throw new Refusal(`The archive is a tar file: give it a name ending in .tar (not ${path.basename(target)}).`);
+  if (!target.endsWith('.tar'))
+    throw new Refusal(`The archive is a tar file: give it a name ending in .tar (not ${path.basename(target)}).`);
   if (await stat(target).catch(() => null)) throw new Refusal(`${target} already exists: give another name, or move it away first.`);
   await mkdir(path.dirname(target), { recursive: true });
-  log(`Backing up database ${describeDatabase(settings.databaseUrl)} and photos in ${describePhotos(settings.photos)} (settings from ${settings.source})`);
+  log(
+    `Backing up database ${describeDatabase(settings.databaseUrl)} and photos in ${describePhotos(settings.photos)} (settings from ${settings.source})`,
+  );
 
   const work = await mkdtemp(path.join(path.dirname(target), '.backup-'));
   const client = new pg.Client({ connectionString: settings.databaseUrl });
@@ -60,7 +67,9 @@ async function main() {
     try {
       await client.connect();
     } catch (error) {
-      throw new Refusal(`Cannot reach the database at ${describeDatabase(settings.databaseUrl)}: ${error.message}. Is the stack running (npm start)?`);
+      throw new Refusal(
+        `Cannot reach the database at ${describeDatabase(settings.databaseUrl)}: ${error.message}. Is the stack running (npm start)?`,
+      );
     }
     await client.query('begin isolation level repeatable read read only');
     const snapshot = (await client.query('select pg_export_snapshot() as id')).rows[0].id;
@@ -68,7 +77,8 @@ async function main() {
     // pg_dump joins the exported snapshot while this transaction stays open.
     const dumped = pgDump(settings.databaseUrl, snapshot, dumpFile);
     const level = await migrationLevel(client);
-    if (level === null) throw new Refusal(`The database at ${describeDatabase(settings.databaseUrl)} has no Loomwright tables yet: nothing to back up.`);
+    if (level === null)
+      throw new Refusal(`The database at ${describeDatabase(settings.databaseUrl)} has no Loomwright tables yet: nothing to back up.`);
     const counts = await tableCounts(client);
     const photoRows = (await client.query('select storage_key, thumbnail_key, content_type from photos order by storage_key')).rows;
     await dumped;
@@ -107,12 +117,21 @@ async function main() {
     await writeFile(path.join(work, 'manifest.json'), JSON.stringify(manifest, null, 2) + '\n');
     // Written beside the target and renamed at the end: a half-written archive never has its name.
     const partial = `${target}.partial`;
-    await tar.create({ file: partial, cwd: work, portable: true }, ['manifest.json', 'database.dump', ...(photos.length ? ['photos'] : [])]);
+    await tar.create({ file: partial, cwd: work, portable: true }, [
+      'manifest.json',
+      'database.dump',
+      ...(photos.length ? ['photos'] : []),
+    ]);
     await rename(partial, target);
 
     log(`Wrote ${target} (${(await stat(target)).size} bytes)`);
-    log(`  migration level ${level}; ${counts.bookings ?? 0} bookings, ${counts.payments ?? 0} payments, ${counts.users ?? 0} people, ${photoRows.length} photos (${photos.length} files, ${bytes} bytes)`);
-    if (missing.length) log(`  Warning: ${missing.length} photo file(s) the database lists were not in the store (deleted while the backup ran, or lost before): ${missing.join(', ')}`);
+    log(
+      `  migration level ${level}; ${counts.bookings ?? 0} bookings, ${counts.payments ?? 0} payments, ${counts.users ?? 0} people, ${photoRows.length} photos (${photos.length} files, ${bytes} bytes)`,
+    );
+    if (missing.length)
+      log(
+        `  Warning: ${missing.length} photo file(s) the database lists were not in the store (deleted while the backup ran, or lost before): ${missing.join(', ')}`,
+      );
   } finally {
     await client.end().catch(() => {});
     await rm(work, { recursive: true, force: true });

@@ -40,7 +40,9 @@ function pgRestore(databaseUrl, file) {
     let errors = '';
     child.stderr.setEncoding('utf8').on('data', (chunk) => (errors += chunk));
     child.on('error', reject);
-    child.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`pg_restore ended with code ${code} and restored nothing: ${errors.trim()}`))));
+    child.on('exit', (code) =>
+      code === 0 ? resolve() : reject(new Error(`pg_restore ended with code ${code} and restored nothing: ${errors.trim()}`)),
+    );
   });
 }
 
@@ -99,15 +101,20 @@ async function main() {
       throw new Refusal(`${path.basename(archive)} is not a readable tar archive (${error.message}).`);
     }
     const manifestFile = path.join(work, 'manifest.json');
-    if (!existsSync(manifestFile)) throw new Refusal(`${path.basename(archive)} has no manifest.json: it was not written by npm run backup.`);
+    if (!existsSync(manifestFile))
+      throw new Refusal(`${path.basename(archive)} has no manifest.json: it was not written by npm run backup.`);
     const manifest = JSON.parse(await readFile(manifestFile, 'utf8'));
     if (manifest.format !== ARCHIVE_FORMAT) throw new Refusal(`${path.basename(archive)} is not a Loomwright backup.`);
     if (manifest.formatVersion > ARCHIVE_VERSION) {
-      throw new Refusal(`${path.basename(archive)} was written by a newer Loomwright (archive format ${manifest.formatVersion}); update this copy first.`);
+      throw new Refusal(
+        `${path.basename(archive)} was written by a newer Loomwright (archive format ${manifest.formatVersion}); update this copy first.`,
+      );
     }
     const dumpFile = path.join(work, manifest.database.file);
     if (!existsSync(dumpFile) || (await sha256File(dumpFile)) !== manifest.database.sha256) {
-      throw new Refusal(`The database dump in ${path.basename(archive)} is missing or damaged (its checksum does not match the manifest); nothing was restored.`);
+      throw new Refusal(
+        `The database dump in ${path.basename(archive)} is missing or damaged (its checksum does not match the manifest); nothing was restored.`,
+      );
     }
     for (const photo of manifest.photos.files) {
       const file = path.join(work, 'photos', photo.key);
@@ -116,7 +123,9 @@ async function main() {
       }
     }
     log(`Archive from ${manifest.createdAt} (app ${manifest.appVersion}, migration level ${manifest.migrationLevel}) checks out.`);
-    log(`Restoring into database ${describeDatabase(settings.databaseUrl)} and photos in ${describePhotos(settings.photos)} (settings from ${settings.source})`);
+    log(
+      `Restoring into database ${describeDatabase(settings.databaseUrl)} and photos in ${describePhotos(settings.photos)} (settings from ${settings.source})`,
+    );
 
     const connected = await connectOrCreate(settings.databaseUrl);
     client = connected.client;
@@ -127,7 +136,11 @@ async function main() {
     const photosThere = !(await store.isEmpty());
     if (!force && (filled.length > 0 || photosThere)) {
       const what = [
-        ...(filled.length ? [`the database ${describeDatabase(settings.databaseUrl)} already has tables (in ${filled.map((s) => s.name).join(', ')}; migration level ${(await migrationLevel(client)) ?? 'none'})`] : []),
+        ...(filled.length
+          ? [
+              `the database ${describeDatabase(settings.databaseUrl)} already has tables (in ${filled.map((s) => s.name).join(', ')}; migration level ${(await migrationLevel(client)) ?? 'none'})`,
+            ]
+          : []),
         ...(photosThere ? [`the photo store (${describePhotos(settings.photos)}) already holds files`] : []),
       ];
       throw new Refusal(
@@ -150,10 +163,15 @@ async function main() {
     const counts = await tableCounts(client);
     const differ = Object.keys({ ...manifest.counts, ...counts }).filter((t) => manifest.counts[t] !== counts[t]);
     if (differ.length) {
-      throw new Error(`The restored row counts differ from the backup's in ${differ.map((t) => `${t} (${counts[t] ?? 'none'} here, ${manifest.counts[t] ?? 'none'} in the backup)`).join(', ')}.`);
+      throw new Error(
+        `The restored row counts differ from the backup's in ${differ.map((t) => `${t} (${counts[t] ?? 'none'} here, ${manifest.counts[t] ?? 'none'} in the backup)`).join(', ')}.`,
+      );
     }
-    log(`Database: restored at migration level ${await migrationLevel(client)}; every table's row count equals the backup's (${counts.bookings ?? 0} bookings, ${counts.payments ?? 0} payments, ${counts.photos ?? 0} photos).`);
-    if (manifest.photos.missing?.length) log(`Note: the backup recorded ${manifest.photos.missing.length} photo file(s) already missing when it was taken.`);
+    log(
+      `Database: restored at migration level ${await migrationLevel(client)}; every table's row count equals the backup's (${counts.bookings ?? 0} bookings, ${counts.payments ?? 0} payments, ${counts.photos ?? 0} photos).`,
+    );
+    if (manifest.photos.missing?.length)
+      log(`Note: the backup recorded ${manifest.photos.missing.length} photo file(s) already missing when it was taken.`);
     log('Done. Start the API on this database and store (npm start, or the API with these settings); it runs any newer migrations itself.');
   } finally {
     await client?.end().catch(() => {});

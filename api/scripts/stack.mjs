@@ -165,10 +165,17 @@ async function main() {
   // What a replica needs to join: every setting this API gets from the stack, plus the
   // environment's own secrets and options (JWT_SECRET, NODE_ENV, …) as they are now.
   const passOn = Object.fromEntries(
-    Object.entries(env).filter(([k]) => /^(NODE_ENV|JWT_SECRET|SESSION_MINUTES|STRIPE_|SMTP_|MAIL_|AUTH_|PAYMENT_METHOD_TYPES|ALLOWED_ORIGINS|TRUST_PROXY|LOG_LEVEL|SEED_DEMO|DATABASE_POOL_MAX|METRICS_TOKEN)/.test(k)),
+    Object.entries(env).filter(([k]) =>
+      /^(NODE_ENV|JWT_SECRET|SESSION_MINUTES|STRIPE_|SMTP_|MAIL_|AUTH_|PAYMENT_METHOD_TYPES|ALLOWED_ORIGINS|TRUST_PROXY|LOG_LEVEL|SEED_DEMO|DATABASE_POOL_MAX|METRICS_TOKEN)/.test(
+        k,
+      ),
+    ),
   );
   const stackEnv = { ...passOn, ...shared, SERVE_APPS: env.SERVE_APPS ?? 'true' };
-  const envFile = Object.entries(stackEnv).map(([k, v]) => `${k}=${JSON.stringify(String(v))}`).join('\n') + '\n';
+  const envFile =
+    Object.entries(stackEnv)
+      .map(([k, v]) => `${k}=${JSON.stringify(String(v))}`)
+      .join('\n') + '\n';
   mkdirSync(path.join(root, '.data'), { recursive: true });
   writeFileSync(path.join(root, '.data', `stack-${settings.port}.env`), envFile, { mode: 0o600 });
   writeFileSync(path.join(root, '.data', 'stack.env'), envFile, { mode: 0o600 });
@@ -182,7 +189,9 @@ async function main() {
   log(`Payment fake http://127.0.0.1:${settings.paymentPort}`);
   log(`Mail fake    http://127.0.0.1:${settings.mailHttpPort}  (SMTP 127.0.0.1:${settings.smtpPort})`);
   log(`PostgreSQL   127.0.0.1:${settings.pgPort}  database ${settings.dbName}`);
-  log(`Object store http://127.0.0.1:${settings.objectStorePort}  bucket ${settings.bucket} (data in ${path.relative(root, objectStoreDir)})`);
+  log(
+    `Object store http://127.0.0.1:${settings.objectStorePort}  bucket ${settings.bucket} (data in ${path.relative(root, objectStoreDir)})`,
+  );
   log(`More API processes on this stack: PORT=<port> npm run replica`);
   log('');
   log('Demo sign-ins (password demo-pass-2026 for all):');

@@ -14,7 +14,8 @@ bash api/scripts/postgres.sh ensure-installed
 bash api/scripts/ensure-chromium.sh
 
 export VITE_CONFIG_NATIVE_IGNORE_WARNING=true
-echo "[loomwright] Lint (ESLint, zero errors)…"
+echo "[loomwright] Format (Prettier) and lint (ESLint), zero errors…"
+npm run format:check
 npm run lint
 
 echo "[loomwright] Building…"

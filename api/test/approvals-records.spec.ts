@@ -22,14 +22,28 @@ describe('approvals, notes, money facts and corrections', () => {
   beforeAll(async () => {
     t = await createTestApp();
     [owner, master, junior, player, cass] = await Promise.all(
-      ['owner@shop.example', 'builder@shop.example', 'junior@shop.example', 'player@mail.example', 'cass@mail.example'].map((e) => signIn(t.app, e)),
+      ['owner@shop.example', 'builder@shop.example', 'junior@shop.example', 'player@mail.example', 'cass@mail.example'].map((e) =>
+        signIn(t.app, e),
+      ),
     );
     masterId = await builderId(t.db, 'builder@shop.example');
     monday = quietMondayWeeksAhead(3);
   });
   afterAll(async () => t.close());
   beforeEach(async () =>
-    clearTables(t.db, ['bench_allocations', 'layout_approvals', 'booking_events', 'mail_outbox', 'payments', 'time_entries', 'intake_items', 'booking_extras', 'quotes', 'bookings', 'shop_closures']),
+    clearTables(t.db, [
+      'bench_allocations',
+      'layout_approvals',
+      'booking_events',
+      'mail_outbox',
+      'payments',
+      'time_entries',
+      'intake_items',
+      'booking_extras',
+      'quotes',
+      'bookings',
+      'shop_closures',
+    ]),
   );
 
   /** A build on the bench: $125.00/h × 2 h + $100.00 materials = $350.00 firm; $50.00 deposit paid. */
@@ -38,7 +52,13 @@ describe('approvals, notes, money facts and corrections', () => {
     await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
     await master
       .post(`/api/bookings/${b.id}/intake`)
-      .send({ items: [{ item: 'Fuzz', condition: 'working' }, { item: 'Analog delay', condition: 'working' }, { item: 'Power supply', condition: 'working' }] })
+      .send({
+        items: [
+          { item: 'Fuzz', condition: 'working' },
+          { item: 'Analog delay', condition: 'working' },
+          { item: 'Power supply', condition: 'working' },
+        ],
+      })
       .expect(201);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received' }).expect(200);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'on_bench' }).expect(200);
@@ -47,16 +67,38 @@ describe('approvals, notes, money facts and corrections', () => {
 
   const detailOf = async (agent: Agent, id: string) => (await agent.get(`/api/bookings/${id}`).expect(200)).body as BookingDetail;
   const mails = (bookingId: string, template: string) =>
-    t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', bookingId).where('template', '=', template).orderBy('created_at').execute();
+    t.db
+      .selectFrom('mail_outbox')
+      .selectAll()
+      .where('booking_id', '=', bookingId)
+      .where('template', '=', template)
+      .orderBy('created_at')
+      .execute();
 
   it('an extra reaches the player by e-mail with its price; the player approves it in the app; only approved extras are owed', async () => {
     const b = await onBench();
-    const cable = (await owner.post(`/api/bookings/${b.id}/extras`).send({ description: 'Deeper road case', amount: '45.00', reason: 'The wah does not fit the quoted case.' }).expect(201)).body as ExtraView;
-    const buffer = (await owner.post(`/api/bookings/${b.id}/extras`).send({ description: 'Input buffer', amount: '60.00', reason: 'Long cable run.' }).expect(201)).body as ExtraView;
+    const cable = (
+      await owner
+        .post(`/api/bookings/${b.id}/extras`)
+        .send({ description: 'Deeper road case', amount: '45.00', reason: 'The wah does not fit the quoted case.' })
+        .expect(201)
+    ).body as ExtraView;
+    const buffer = (
+      await owner
+        .post(`/api/bookings/${b.id}/extras`)
+        .send({ description: 'Input buffer', amount: '60.00', reason: 'Long cable run.' })
+        .expect(201)
+    ).body as ExtraView;
 
     const asked = await mails(b.id, 'approval-requested');
     expect(asked.map((m) => m.data)).toEqual([
-      expect.objectContaining({ kind: 'extra', description: 'Deeper road case', amount: '45.00', currency: 'USD', reason: 'The wah does not fit the quoted case.' }),
+      expect.objectContaining({
+        kind: 'extra',
+        description: 'Deeper road case',
+        amount: '45.00',
+        currency: 'USD',
+        reason: 'The wah does not fit the quoted case.',
+      }),
       expect.objectContaining({ kind: 'extra', description: 'Input buffer', amount: '60.00' }),
     ]);
     expect(asked[0].to_address).toBe('player@mail.example');
@@ -67,8 +109,14 @@ describe('approvals, notes, money facts and corrections', () => {
 
     // Another player cannot answer; the player approves one with a comment and declines the other.
     expect((await cass.post(`/api/bookings/${b.id}/extras/${cable.id}/decision`).send({ approve: true })).status).toBe(404);
-    const approved = await player.post(`/api/bookings/${b.id}/extras/${cable.id}/decision`).send({ approve: true, comment: 'Yes, go ahead.' }).expect(200);
-    expect(approved.body).toMatchObject({ status: 'approved', decision: { approved: true, via: 'app', givenBy: 'Rowan Achterberg', recordedBy: null, comment: 'Yes, go ahead.' } });
+    const approved = await player
+      .post(`/api/bookings/${b.id}/extras/${cable.id}/decision`)
+      .send({ approve: true, comment: 'Yes, go ahead.' })
+      .expect(200);
+    expect(approved.body).toMatchObject({
+      status: 'approved',
+      decision: { approved: true, via: 'app', givenBy: 'Rowan Achterberg', recordedBy: null, comment: 'Yes, go ahead.' },
+    });
     await player.post(`/api/bookings/${b.id}/extras/${buffer.id}/decision`).send({ approve: false }).expect(200);
     const again = await player.post(`/api/bookings/${b.id}/extras/${cable.id}/decision`).send({ approve: false });
     expect(again.status).toBe(409);
@@ -80,26 +128,51 @@ describe('approvals, notes, money facts and corrections', () => {
     expect(seen.balanceDue).toBe('345.00');
     expect((await detailOf(owner, b.id)).money.balanceDue).toBe('345.00');
     const lines = seen.events.map((e) => e.note);
-    expect(lines).toEqual(expect.arrayContaining([expect.stringMatching(/^Extra approved by Rowan Achterberg \(in the app\): Deeper road case, 45.00\. Comment: Yes, go ahead\.$/)]));
+    expect(lines).toEqual(
+      expect.arrayContaining([
+        expect.stringMatching(/^Extra approved by Rowan Achterberg \(in the app\): Deeper road case, 45.00\. Comment: Yes, go ahead\.$/),
+      ]),
+    );
   });
 
   it('staff record an approval given by phone, with who gave it and how; bad input gets 400 in words', async () => {
     const b = await onBench();
-    const extra = (await owner.post(`/api/bookings/${b.id}/extras`).send({ description: 'Deeper road case', amount: '45.00', reason: 'The wah does not fit.' }).expect(201)).body as ExtraView;
+    const extra = (
+      await owner
+        .post(`/api/bookings/${b.id}/extras`)
+        .send({ description: 'Deeper road case', amount: '45.00', reason: 'The wah does not fit.' })
+        .expect(201)
+    ).body as ExtraView;
     const bad = await master.post(`/api/bookings/${b.id}/extras/${extra.id}/recorded-decision`).send({ approve: true, via: 'pigeon' });
     expect(bad.status).toBe(400);
-    expect(bad.body.details).toEqual(expect.arrayContaining(['How the answer came must be one of: "phone", "in_person" or "email"', 'Say who gave the answer']));
-    expect((await player.post(`/api/bookings/${b.id}/extras/${extra.id}/recorded-decision`).send({ approve: true, via: 'phone', givenBy: 'Rowan' })).status).toBe(403);
+    expect(bad.body.details).toEqual(
+      expect.arrayContaining(['How the answer came must be one of: "phone", "in_person" or "email"', 'Say who gave the answer']),
+    );
+    expect(
+      (
+        await player
+          .post(`/api/bookings/${b.id}/extras/${extra.id}/recorded-decision`)
+          .send({ approve: true, via: 'phone', givenBy: 'Rowan' })
+      ).status,
+    ).toBe(403);
 
     const recorded = await master
       .post(`/api/bookings/${b.id}/extras/${extra.id}/recorded-decision`)
       .send({ approve: true, via: 'phone', givenBy: 'Rowan Achterberg', comment: 'Called at 10:15, happy with the price.' })
       .expect(200);
-    expect(recorded.body.decision).toMatchObject({ approved: true, via: 'phone', givenBy: 'Rowan Achterberg', recordedBy: 'Teodor Lind', comment: 'Called at 10:15, happy with the price.' });
+    expect(recorded.body.decision).toMatchObject({
+      approved: true,
+      via: 'phone',
+      givenBy: 'Rowan Achterberg',
+      recordedBy: 'Teodor Lind',
+      comment: 'Called at 10:15, happy with the price.',
+    });
     const row = await t.db.selectFrom('booking_extras').selectAll().where('id', '=', extra.id).executeTakeFirstOrThrow();
     expect(row).toMatchObject({ status: 'approved', decided_via: 'phone', decided_by_name: 'Rowan Achterberg' });
     const history = (await detailOf(player, b.id)).events.map((e) => e.note);
-    expect(history).toContain('Extra approved by Rowan Achterberg (by phone, recorded by Teodor Lind): Deeper road case, 45.00. Comment: Called at 10:15, happy with the price.');
+    expect(history).toContain(
+      'Extra approved by Rowan Achterberg (by phone, recorded by Teodor Lind): Deeper road case, 45.00. Comment: Called at 10:15, happy with the price.',
+    );
     expect((await detailOf(player, b.id)).money.balanceDue).toBe('345.00');
   });
 
@@ -111,17 +184,28 @@ describe('approvals, notes, money facts and corrections', () => {
     expect(asked.data).toMatchObject({ kind: 'layout', message: 'Delay moved next to the tuner.' });
     let seen = await detailOf(player, b.id);
     expect(seen.awaitingLayoutApproval).toBe(true);
-    expect(seen.layoutApprovals).toEqual([expect.objectContaining({ status: 'waiting', message: 'Delay moved next to the tuner.', requestedBy: 'Teodor Lind', decision: null })]);
+    expect(seen.layoutApprovals).toEqual([
+      expect.objectContaining({ status: 'waiting', message: 'Delay moved next to the tuner.', requestedBy: 'Teodor Lind', decision: null }),
+    ]);
     expect((await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' })).status).toBe(409);
 
-    await player.post(`/api/bookings/${b.id}/layout/decision`).send({ approve: false, comment: 'Tuner first in the chain, please.' }).expect(200);
+    await player
+      .post(`/api/bookings/${b.id}/layout/decision`)
+      .send({ approve: false, comment: 'Tuner first in the chain, please.' })
+      .expect(200);
     seen = await detailOf(player, b.id);
     expect(seen.awaitingLayoutApproval).toBe(false);
-    expect(seen.layoutApprovals[0]).toMatchObject({ status: 'declined', decision: { approved: false, via: 'app', comment: 'Tuner first in the chain, please.' } });
+    expect(seen.layoutApprovals[0]).toMatchObject({
+      status: 'declined',
+      decision: { approved: false, via: 'app', comment: 'Tuner first in the chain, please.' },
+    });
     expect((await player.post(`/api/bookings/${b.id}/layout/decision`).send({ approve: true })).status).toBe(409);
 
     await master.post(`/api/bookings/${b.id}/layout/request`).send({ message: 'Tuner first now.' }).expect(200);
-    await owner.post(`/api/bookings/${b.id}/layout/recorded-decision`).send({ approve: true, via: 'in_person', givenBy: 'Rowan Achterberg' }).expect(200);
+    await owner
+      .post(`/api/bookings/${b.id}/layout/recorded-decision`)
+      .send({ approve: true, via: 'in_person', givenBy: 'Rowan Achterberg' })
+      .expect(200);
     seen = await detailOf(player, b.id);
     expect(seen.layoutApprovals.map((l) => [l.status, l.decision?.via, l.decision?.recordedBy])).toEqual([
       ['declined', 'app', null],
@@ -135,11 +219,19 @@ describe('approvals, notes, money facts and corrections', () => {
     await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
     await master
       .post(`/api/bookings/${b.id}/intake`)
-      .send({ items: [{ item: 'Fuzz', condition: 'working', note: 'INTAKE-SECRET scuffed corner' }, { item: 'Analog delay', condition: 'faulty', note: 'Crackles on the time knob' }] })
+      .send({
+        items: [
+          { item: 'Fuzz', condition: 'working', note: 'INTAKE-SECRET scuffed corner' },
+          { item: 'Analog delay', condition: 'faulty', note: 'Crackles on the time knob' },
+        ],
+      })
       .expect(201);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received', note: 'STATE-SECRET parcel was damp' }).expect(200);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'on_bench', note: 'Starting today.', tellPlayer: true }).expect(200);
-    await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours: 1.5, note: 'HOURS-SECRET slow going' }).expect(201);
+    await master
+      .post(`/api/bookings/${b.id}/time-entries`)
+      .send({ workedOn: '2026-11-30', hours: 1.5, note: 'HOURS-SECRET slow going' })
+      .expect(201);
     await master.post(`/api/bookings/${b.id}/notes`).send({ note: 'NOTE-SECRET player sounded unsure' }).expect(201);
     await master.post(`/api/bookings/${b.id}/notes`).send({ note: 'Your supply has a spare 18 V output.', tellPlayer: true }).expect(201);
     const missing = await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing', tellPlayer: true });
@@ -147,7 +239,8 @@ describe('approvals, notes, money facts and corrections', () => {
     expect(missing.body.details).toEqual(['Write the words the player should read, or leave “tell the player” off']);
 
     const playerAnswer = JSON.stringify((await player.get(`/api/bookings/${b.id}`).expect(200)).body);
-    for (const secret of ['INTAKE-SECRET', 'STATE-SECRET', 'HOURS-SECRET', 'NOTE-SECRET', 'Recorded 1.5 hr']) expect(playerAnswer).not.toContain(secret);
+    for (const secret of ['INTAKE-SECRET', 'STATE-SECRET', 'HOURS-SECRET', 'NOTE-SECRET', 'Recorded 1.5 hr'])
+      expect(playerAnswer).not.toContain(secret);
     expect(playerAnswer).toContain('Starting today.');
     expect(playerAnswer).toContain('Your supply has a spare 18 V output.');
     const playerEvents = ((await player.get(`/api/bookings/${b.id}`)).body as BookingDetail).events;
@@ -158,7 +251,11 @@ describe('approvals, notes, money facts and corrections', () => {
     const staffAnswer = JSON.stringify((await owner.get(`/api/bookings/${b.id}`).expect(200)).body);
     for (const secret of ['INTAKE-SECRET', 'STATE-SECRET', 'HOURS-SECRET', 'NOTE-SECRET']) expect(staffAnswer).toContain(secret);
 
-    const outbox = await t.db.selectFrom('mail_outbox').select(['template', 'data']).where('to_address', '=', 'player@mail.example').execute();
+    const outbox = await t.db
+      .selectFrom('mail_outbox')
+      .select(['template', 'data'])
+      .where('to_address', '=', 'player@mail.example')
+      .execute();
     const mailed = JSON.stringify(outbox);
     for (const secret of ['INTAKE-SECRET', 'STATE-SECRET', 'HOURS-SECRET', 'NOTE-SECRET']) expect(mailed).not.toContain(secret);
     expect(outbox.find((m) => m.template === 'shop-note')?.data).toMatchObject({ note: 'Your supply has a spare 18 V output.' });
@@ -191,7 +288,12 @@ describe('approvals, notes, money facts and corrections', () => {
     const fixed = (
       await master
         .post(`/api/bookings/${b.id}/intake`)
-        .send({ items: [{ item: 'analog delay', condition: 'faulty', note: 'Crackles on the time knob' }, { item: 'Spare patch cable', condition: 'working' }] })
+        .send({
+          items: [
+            { item: 'analog delay', condition: 'faulty', note: 'Crackles on the time knob' },
+            { item: 'Spare patch cable', condition: 'working' },
+          ],
+        })
         .expect(201)
     ).body as IntakeItemView[];
     expect(fixed.map((i) => [i.item, i.condition])).toEqual([
@@ -201,12 +303,19 @@ describe('approvals, notes, money facts and corrections', () => {
       ['Spare patch cable', 'working'],
     ]);
     const fuzz = fixed[0];
-    const edited = (await master.patch(`/api/bookings/${b.id}/intake/${fuzz.id}`).send({ item: 'Fuzz', condition: 'faulty', note: 'Input jack loose' }).expect(200)).body as IntakeItemView[];
+    const edited = (
+      await master
+        .patch(`/api/bookings/${b.id}/intake/${fuzz.id}`)
+        .send({ item: 'Fuzz', condition: 'faulty', note: 'Input jack loose' })
+        .expect(200)
+    ).body as IntakeItemView[];
     expect(edited[0]).toMatchObject({ item: 'Fuzz', condition: 'faulty', note: 'Input jack loose' });
     expect(edited[0].updatedAt).not.toBeNull();
     expect((await master.patch(`/api/bookings/${b.id}/intake/${fuzz.id}`).send({ item: 'Fuzz', condition: 'faulty' })).status).toBe(400);
 
-    const notes = (await t.db.selectFrom('booking_events').select(['note', 'visibility']).where('booking_id', '=', b.id).orderBy('id').execute()).filter((e) => e.note.startsWith('Intake'));
+    const notes = (
+      await t.db.selectFrom('booking_events').select(['note', 'visibility']).where('booking_id', '=', b.id).orderBy('id').execute()
+    ).filter((e) => e.note.startsWith('Intake'));
     expect(notes.map((n) => n.note)).toEqual([
       'Intake: Power supply (working); Analog delay (working); Fuzz (working).',
       'Intake: Spare patch cable (working).',
@@ -218,7 +327,9 @@ describe('approvals, notes, money facts and corrections', () => {
 
   it('hour entries take 2.3 h, and can be corrected or deleted by their author or the owner, with history', async () => {
     const b = await onBench();
-    const added = (await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours: 2.3, note: 'Cables cut' }).expect(201)).body as TimeEntriesResponse;
+    const added = (
+      await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours: 2.3, note: 'Cables cut' }).expect(201)
+    ).body as TimeEntriesResponse;
     expect(added.totalHours).toBe(2.3);
     const entry = added.entries[0];
     expect(entry.recordedBy).toMatchObject({ name: 'Teodor Lind' });
@@ -230,17 +341,25 @@ describe('approvals, notes, money facts and corrections', () => {
     const byOther = await junior.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({ hours: 1 });
     expect(byOther.status).toBe(403);
     expect(byOther.body.message).toMatch(/Only the person who recorded these hours, or the owner/);
-    const corrected = (await master.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({ hours: 2.25 }).expect(200)).body as TimeEntriesResponse;
+    const corrected = (await master.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({ hours: 2.25 }).expect(200))
+      .body as TimeEntriesResponse;
     expect(corrected.entries[0]).toMatchObject({ hours: 2.25, workedOn: '2026-11-30' });
     expect(corrected.entries[0].updatedAt).not.toBeNull();
-    expect((await master.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({})).body.details).toEqual(['Say what to change: the day worked, the hours or the note']);
+    expect((await master.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({})).body.details).toEqual([
+      'Say what to change: the day worked, the hours or the note',
+    ]);
     await owner.patch(`/api/bookings/${b.id}/time-entries/${entry.id}`).send({ note: 'Cables cut and labelled' }).expect(200);
-    expect((await junior.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json')).status).toBe(403);
-    const gone = (await owner.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json').expect(200)).body as TimeEntriesResponse;
+    expect((await junior.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json')).status).toBe(
+      403,
+    );
+    const gone = (await owner.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json').expect(200))
+      .body as TimeEntriesResponse;
     expect(gone.entries).toEqual([]);
     expect((await owner.delete(`/api/bookings/${b.id}/time-entries/${entry.id}`).set('Content-Type', 'application/json')).status).toBe(404);
 
-    const history = (await t.db.selectFrom('booking_events').select('note').where('booking_id', '=', b.id).orderBy('id').execute()).map((e) => e.note);
+    const history = (await t.db.selectFrom('booking_events').select('note').where('booking_id', '=', b.id).orderBy('id').execute()).map(
+      (e) => e.note,
+    );
     expect(history).toEqual(
       expect.arrayContaining([
         // In the shop's voice (en-US): days and hours as ECMA-402 Intl writes them with CLDR en data
@@ -254,7 +373,12 @@ describe('approvals, notes, money facts and corrections', () => {
 
   it('while a balance is due: ready waits for open extras, delivery waits for the money; a balance taken at the counter settles it once', async () => {
     const b = await onBench();
-    const extra = (await owner.post(`/api/bookings/${b.id}/extras`).send({ description: 'Deeper road case', amount: '45.00', reason: 'Fit.' }).expect(201)).body as ExtraView;
+    const extra = (
+      await owner
+        .post(`/api/bookings/${b.id}/extras`)
+        .send({ description: 'Deeper road case', amount: '45.00', reason: 'Fit.' })
+        .expect(201)
+    ).body as ExtraView;
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' }).expect(200);
     const early = await master.post(`/api/bookings/${b.id}/state`).send({ to: 'ready' });
     expect(early.status).toBe(409);
@@ -278,7 +402,12 @@ describe('approvals, notes, money facts and corrections', () => {
     const wrong = await owner.post(`/api/bookings/${b.id}/balance/record`).send({ amount: '300.00', method: 'cash' });
     expect(wrong.status).toBe(400);
     expect(wrong.body.message).toMatch(/the balance due on .* is 345.00 USD; record the whole amount/);
-    const recorded = (await owner.post(`/api/bookings/${b.id}/balance/record`).send({ amount: '345.00', method: 'card_terminal', note: 'At collection' }).expect(200)).body as BookingDetail;
+    const recorded = (
+      await owner
+        .post(`/api/bookings/${b.id}/balance/record`)
+        .send({ amount: '345.00', method: 'card_terminal', note: 'At collection' })
+        .expect(200)
+    ).body as BookingDetail;
     expect(recorded.money).toMatchObject({ netPaid: '395.00', balanceDue: '0.00', settled: true });
     const twice = await owner.post(`/api/bookings/${b.id}/balance/record`).send({ amount: '345.00', method: 'card_terminal' });
     expect(twice.status).toBe(409);
@@ -308,7 +437,15 @@ describe('approvals, notes, money facts and corrections', () => {
     const created = (await player.post('/api/bookings').send({ configuration: config }).expect(201)).body as BookingDetail;
     await t.db
       .insertInto('payments')
-      .values({ booking_id: created.id, kind: 'deposit', amount: created.deposit, amount_minor: 1, currency: 'USD', status: 'paid', paid_at: new Date() })
+      .values({
+        booking_id: created.id,
+        kind: 'deposit',
+        amount: created.deposit,
+        amount_minor: 1,
+        currency: 'USD',
+        status: 'paid',
+        paid_at: new Date(),
+      })
       .execute();
     await t.db.updateTable('bookings').set({ state: 'deposit_paid' }).where('id', '=', created.id).execute();
     await master.post(`/api/bookings/${created.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);

@@ -21,17 +21,28 @@ describe('sign-up, sign-in, me and sign-out', () => {
     const cookie = sessionCookie(res)!;
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);
-    const row = await t.db.selectFrom('users').select(['password_hash']).where('email', '=', 'juniper.marsh@mail.example').executeTakeFirstOrThrow();
+    const row = await t.db
+      .selectFrom('users')
+      .select(['password_hash'])
+      .where('email', '=', 'juniper.marsh@mail.example')
+      .executeTakeFirstOrThrow();
     // OWASP Password Storage Cheat Sheet, scrypt: N=2^17, r=8, p=1.
     expect(row.password_hash).toMatch(/^scrypt\$131072\$8\$1\$/);
     // The welcome e-mail is queued with the account, once.
-    const mails = await t.db.selectFrom('mail_outbox').select(['template', 'to_address', 'data']).where('to_address', '=', 'juniper.marsh@mail.example').execute();
+    const mails = await t.db
+      .selectFrom('mail_outbox')
+      .select(['template', 'to_address', 'data'])
+      .where('to_address', '=', 'juniper.marsh@mail.example')
+      .execute();
     expect(mails).toHaveLength(1);
     expect(mails[0]).toMatchObject({ template: 'welcome', data: { name: 'Juniper Marsh' } });
   });
 
   it('treats e-mail case-insensitively: the same address in capitals is refused with 409', async () => {
-    const res = await t.http().post('/api/auth/sign-up').send({ email: 'JUNIPER.MARSH@mail.example', password: 'another-password', name: 'J' });
+    const res = await t
+      .http()
+      .post('/api/auth/sign-up')
+      .send({ email: 'JUNIPER.MARSH@mail.example', password: 'another-password', name: 'J' });
     expect(res.status).toBe(409);
     const mails = await t.db.selectFrom('mail_outbox').select('id').where('template', '=', 'welcome').execute();
     expect(mails).toHaveLength(1);
@@ -40,7 +51,11 @@ describe('sign-up, sign-in, me and sign-out', () => {
   it('says what is wrong with sign-up input in words, each problem with its field', async () => {
     const res = await t.http().post('/api/auth/sign-up').send({ email: 'not-an-email', password: 'short', name: '' }).expect(400);
     expect(res.body.details).toEqual(
-      expect.arrayContaining(['Enter a name', 'Enter an e-mail address, like name@example.com', 'Choose a password of at least 10 characters']),
+      expect.arrayContaining([
+        'Enter a name',
+        'Enter an e-mail address, like name@example.com',
+        'Choose a password of at least 10 characters',
+      ]),
     );
     expect(res.body.issues.map((i: { path: string }) => i.path)).toEqual(expect.arrayContaining(['name', 'email', 'password']));
   });

@@ -111,8 +111,15 @@ const matrix: Record<string, Entry> = {
   'GET /api/configurations': signedIn(200),
   'POST /api/configurations': signedIn(400),
   'GET /api/configurations/:id': { expect: [401, 200, 404, 404, 404], path: (fx) => `/api/configurations/${fx.configurationOfA}` },
-  'PATCH /api/configurations/:id': { expect: [401, 200, 404, 404, 404], body: { name: 'Renamed by the matrix' }, path: (fx) => `/api/configurations/${fx.configurationOfA}` },
-  'POST /api/configurations/:id/duplicate': { expect: [401, 201, 404, 404, 404], path: (fx) => `/api/configurations/${fx.configurationOfA}/duplicate` },
+  'PATCH /api/configurations/:id': {
+    expect: [401, 200, 404, 404, 404],
+    body: { name: 'Renamed by the matrix' },
+    path: (fx) => `/api/configurations/${fx.configurationOfA}`,
+  },
+  'POST /api/configurations/:id/duplicate': {
+    expect: [401, 201, 404, 404, 404],
+    path: (fx) => `/api/configurations/${fx.configurationOfA}/duplicate`,
+  },
   'DELETE /api/configurations/:id': { expect: [401, 204, 404, 404, 404], path: (fx) => `/api/configurations/${fx.spareConfigurationOfA}` },
   'POST /api/configuration-links': open(400),
   'GET /api/configuration-links/:code': { ...open(404), path: () => '/api/configuration-links/Zz9Zz9Zz' },
@@ -126,8 +133,14 @@ const matrix: Record<string, Entry> = {
   'POST /api/bookings/:id/cancel': { expect: [401, 200, 404, 403, 403], path: (fx) => `/api/bookings/${fx.spareBookingOfA}/cancel` },
   'POST /api/bookings/:id/shipment': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/shipment` },
   'POST /api/bookings/:id/photos': { ...ownedByA(400), multipart: true, path: (fx) => `/api/bookings/${fx.bookingOfA}/photos` },
-  'GET /api/bookings/:id/photos/:photoId': { expect: [401, 404, 404, 404, 404], path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}` },
-  'GET /api/bookings/:id/photos/:photoId/thumbnail': { expect: [401, 404, 404, 404, 404], path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}/thumbnail` },
+  'GET /api/bookings/:id/photos/:photoId': {
+    expect: [401, 404, 404, 404, 404],
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}`,
+  },
+  'GET /api/bookings/:id/photos/:photoId/thumbnail': {
+    expect: [401, 404, 404, 404, 404],
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/photos/${UNKNOWN_ID}/thumbnail`,
+  },
   // payments
   'POST /api/bookings/:id/checkout': { expect: [401, 200, 404, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/checkout` },
   'POST /api/bookings/:id/refund': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/refund` },
@@ -146,31 +159,60 @@ const matrix: Record<string, Entry> = {
   'POST /api/bookings/:id/reschedule': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/reschedule` },
   'GET /api/bookings/:id/cancellation': { ...ownerOnly(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/cancellation` },
   'POST /api/bookings/:id/cancel-scheduled': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/cancel-scheduled` },
-  'POST /api/bookings/:id/price-consent': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/price-consent` },
+  'POST /api/bookings/:id/price-consent': {
+    expect: [401, 400, 400, 403, 403],
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/price-consent`,
+  },
   'POST /api/bookings/:id/state': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/state` },
   'POST /api/bookings/:id/waive-balance': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/waive-balance` },
   'GET /api/bookings/:id/time-entries': { ...staff(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/time-entries` },
   'POST /api/bookings/:id/time-entries': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/time-entries` },
-  'PATCH /api/bookings/:id/time-entries/:entryId': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/time-entries/${UNKNOWN_ID}` },
-  'DELETE /api/bookings/:id/time-entries/:entryId': { ...staff(409), path: (fx) => `/api/bookings/${fx.bookingOfA}/time-entries/${UNKNOWN_ID}` },
+  'PATCH /api/bookings/:id/time-entries/:entryId': {
+    ...staff(400),
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/time-entries/${UNKNOWN_ID}`,
+  },
+  'DELETE /api/bookings/:id/time-entries/:entryId': {
+    ...staff(409),
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/time-entries/${UNKNOWN_ID}`,
+  },
   'POST /api/bookings/:id/notes': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/notes` },
   // Messages on a build: its player, the owner, and the builder it is assigned to. The fixture
   // booking is assigned to nobody, so the builder gets the same 404 as another player
   // (messages.spec.ts covers the assigned builder). An empty message is a 400 in words.
   'GET /api/bookings/:id/messages': { expect: [401, 200, 404, 404, 200], path: (fx) => `/api/bookings/${fx.bookingOfA}/messages` },
-  'POST /api/bookings/:id/messages': { expect: [401, 400, 404, 404, 400], multipart: true, fields: { body: '' }, path: (fx) => `/api/bookings/${fx.bookingOfA}/messages` },
+  'POST /api/bookings/:id/messages': {
+    expect: [401, 400, 404, 404, 400],
+    multipart: true,
+    fields: { body: '' },
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/messages`,
+  },
   'GET /api/messages/unread': signedIn(200),
   'GET /api/bookings/:id/intake': { ...staff(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/intake` },
   'POST /api/bookings/:id/intake': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/intake` },
   'PATCH /api/bookings/:id/intake/:itemId': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/intake/${UNKNOWN_ID}` },
   'GET /api/bookings/:id/extras': { ...ownedByA(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/extras` },
   'POST /api/bookings/:id/extras': { ...ownerOnly(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/extras` },
-  'POST /api/bookings/:id/extras/:extraId/decision': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/extras/${UNKNOWN_ID}/decision` },
+  'POST /api/bookings/:id/extras/:extraId/decision': {
+    expect: [401, 400, 400, 403, 403],
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/extras/${UNKNOWN_ID}/decision`,
+  },
   'POST /api/bookings/:id/layout/request': { ...staff(409), path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/request` },
-  'POST /api/bookings/:id/extras/:extraId/recorded-decision': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/extras/${UNKNOWN_ID}/recorded-decision` },
-  'POST /api/bookings/:id/layout/approve': { expect: [401, 409, 404, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/approve` },
-  'POST /api/bookings/:id/layout/decision': { expect: [401, 400, 400, 403, 403], path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/decision` },
-  'POST /api/bookings/:id/layout/recorded-decision': { ...staff(400), path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/recorded-decision` },
+  'POST /api/bookings/:id/extras/:extraId/recorded-decision': {
+    ...staff(400),
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/extras/${UNKNOWN_ID}/recorded-decision`,
+  },
+  'POST /api/bookings/:id/layout/approve': {
+    expect: [401, 409, 404, 403, 403],
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/approve`,
+  },
+  'POST /api/bookings/:id/layout/decision': {
+    expect: [401, 400, 400, 403, 403],
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/decision`,
+  },
+  'POST /api/bookings/:id/layout/recorded-decision': {
+    ...staff(400),
+    path: (fx) => `/api/bookings/${fx.bookingOfA}/layout/recorded-decision`,
+  },
   'GET /api/bookings/:id/build-sheet': { ...staff(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/build-sheet` },
   'GET /api/bookings/:id/quote.pdf': { ...ownedByA(200), path: (fx) => `/api/bookings/${fx.bookingOfA}/quote.pdf` },
   // team, settings, customers, mail log
@@ -203,11 +245,15 @@ const matrix: Record<string, Entry> = {
   'GET /api/calendar-feeds/mine': staff(200),
   'GET /api/today': staff(200),
   'POST /api/calendar-feeds/:id/rotate': { ...ownerOnly(404), path: () => `/api/calendar-feeds/${UNKNOWN_ID}/rotate` },
-  'GET /api/calendar-feeds/:id/:token/bench.ics': { ...open(404), path: () => `/api/calendar-feeds/${UNKNOWN_ID}/not-the-secret/bench.ics` },
+  'GET /api/calendar-feeds/:id/:token/bench.ics': {
+    ...open(404),
+    path: () => `/api/calendar-feeds/${UNKNOWN_ID}/not-the-secret/bench.ics`,
+  },
 };
 
 async function makeFixtures(t: TestApp, cookieOfA: string): Promise<Fixtures> {
-  const idOf = async (email: string) => (await t.db.selectFrom('users').select('id').where('email', '=', email).executeTakeFirstOrThrow()).id;
+  const idOf = async (email: string) =>
+    (await t.db.selectFrom('users').select('id').where('email', '=', email).executeTakeFirstOrThrow()).id;
   const customerA = await idOf('player@mail.example');
   const builderUser = await idOf('builder@shop.example');
   const builder = await t.db.selectFrom('builders').select('id').where('user_id', '=', builderUser).executeTakeFirstOrThrow();
@@ -299,7 +345,11 @@ describe('authorization matrix: every route, every kind of caller', () => {
         const sendsBody = ['POST', 'PUT', 'PATCH'].includes(method);
         // A DELETE has no body but, like every state-changing call, says it speaks JSON.
         if (method === 'DELETE') req = req.set('Content-Type', 'application/json');
-        const res = await (!sendsBody ? req : entry.multipart ? Object.entries(entry.fields ?? { caption: '' }).reduce((r, [name, value]) => r.field(name, value), req) : req.send((entry.body ?? {}) as object));
+        const res = await (!sendsBody
+          ? req
+          : entry.multipart
+            ? Object.entries(entry.fields ?? { caption: '' }).reduce((r, [name, value]) => r.field(name, value), req)
+            : req.send((entry.body ?? {}) as object));
         const expected = entry.expect[index]!;
         if (res.status !== expected || res.status >= 500) {
           problems.push(`${route} as ${who}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body?.message ?? '')}`);
@@ -307,10 +357,13 @@ describe('authorization matrix: every route, every kind of caller', () => {
         // A refusal always says why in words.
         if (res.status >= 400 && res.status < 500 && !pattern.startsWith('/api/docs')) {
           const message = res.body?.message;
-          if (!message || (typeof message === 'string' && message.length < 8)) problems.push(`${route} as ${who}: ${res.status} without a message in words`);
+          if (!message || (typeof message === 'string' && message.length < 8))
+            problems.push(`${route} as ${who}: ${res.status} without a message in words`);
         }
         if (res.status >= 400 && !pattern.startsWith('/api/docs') && !apiErrorBodySchema.safeParse(res.body).success) {
-          problems.push(`${route} as ${who}: ${res.status} without the error body { statusCode, code, message }: ${JSON.stringify(res.body)}`);
+          problems.push(
+            `${route} as ${who}: ${res.status} without the error body { statusCode, code, message }: ${JSON.stringify(res.body)}`,
+          );
         }
       }
     }
@@ -336,13 +389,31 @@ describe('authorization matrix: every route, every kind of caller', () => {
       apprentice = await sessionCookieFor(t, 'apprentice');
       // customer B's build is the master builder's; customer A's request is nobody's yet.
       mine = await createBooking(t.db, { customerEmail: 'cass@mail.example', laborHours: '6.00' });
-      await t.db.updateTable('bookings').set({ builder_id: fx.builderId, state: 'scheduled', bench_date: '2031-03-03' }).where('id', '=', mine.id).execute();
+      await t.db
+        .updateTable('bookings')
+        .set({ builder_id: fx.builderId, state: 'scheduled', bench_date: '2031-03-03' })
+        .where('id', '=', mine.id)
+        .execute();
       notMine = await createBooking(t.db, { customerEmail: 'player@mail.example', laborHours: '4.00' });
       await t.db
         .insertInto('mail_outbox')
         .values([
-          { message_id: '<perm-mine@test>', template: 'shop-note', to_address: 'cass@mail.example', data: JSON.stringify({}) as never, booking_id: mine.id, user_id: fx.customerB },
-          { message_id: '<perm-other@test>', template: 'shop-note', to_address: 'player@mail.example', data: JSON.stringify({}) as never, booking_id: notMine.id, user_id: fx.customerA },
+          {
+            message_id: '<perm-mine@test>',
+            template: 'shop-note',
+            to_address: 'cass@mail.example',
+            data: JSON.stringify({}) as never,
+            booking_id: mine.id,
+            user_id: fx.customerB,
+          },
+          {
+            message_id: '<perm-other@test>',
+            template: 'shop-note',
+            to_address: 'player@mail.example',
+            data: JSON.stringify({}) as never,
+            booking_id: notMine.id,
+            user_id: fx.customerA,
+          },
         ])
         .execute();
     });
@@ -362,33 +433,49 @@ describe('authorization matrix: every route, every kind of caller', () => {
       expect(asOwner['Teodor Lind']).toBe('125.00');
       expect(asOwner['Pip Okonkwo-Hale']).toBe('45.00');
 
-      const bench = (await as(apprentice).get('/api/bench?from=2031-03-03&to=2031-03-04').expect(200)).body.builders as Array<{ builder: { name: string; hourlyRate: string | null } }>;
+      const bench = (await as(apprentice).get('/api/bench?from=2031-03-03&to=2031-03-04').expect(200)).body.builders as Array<{
+        builder: { name: string; hourlyRate: string | null };
+      }>;
       expect(bench.filter((b) => b.builder.hourlyRate !== null).map((b) => b.builder.name)).toEqual(['Pip Okonkwo-Hale']);
-      const ownerBench = (await as(cookies.owner).get('/api/bench?from=2031-03-03&to=2031-03-04').expect(200)).body.builders as Array<{ builder: { hourlyRate: string | null } }>;
+      const ownerBench = (await as(cookies.owner).get('/api/bench?from=2031-03-03&to=2031-03-04').expect(200)).body.builders as Array<{
+        builder: { hourlyRate: string | null };
+      }>;
       expect(ownerBench.every((b) => b.builder.hourlyRate !== null)).toBe(true);
     });
 
     it("customer e-mail: a builder sees it on builds assigned to them, not on others' or on unassigned requests; the owner always", async () => {
-      const emailIn = async (cookie: string | undefined, id: string) => (await as(cookie).get(`/api/bookings/${id}`).expect(200)).body.customer.email;
+      const emailIn = async (cookie: string | undefined, id: string) =>
+        (await as(cookie).get(`/api/bookings/${id}`).expect(200)).body.customer.email;
       expect(await emailIn(cookies.builder, mine.id)).toBe('cass@mail.example');
       expect(await emailIn(cookies.builder, notMine.id)).toBeNull();
       expect(await emailIn(apprentice, mine.id)).toBeNull();
       expect(await emailIn(cookies.owner, notMine.id)).toBe('player@mail.example');
       expect(await emailIn(cookies.customerA, notMine.id)).toBe('player@mail.example');
 
-      const listed = (await as(apprentice).get('/api/bookings?pageSize=100').expect(200)).body.items as Array<{ customer: { email: string | null } }>;
+      const listed = (await as(apprentice).get('/api/bookings?pageSize=100').expect(200)).body.items as Array<{
+        customer: { email: string | null };
+      }>;
       expect(listed.length).toBeGreaterThan(1);
       expect(listed.every((b) => b.customer.email === null)).toBe(true);
       // Nor can a builder find a request by an address they may not see; the owner can.
       expect((await as(apprentice).get('/api/bookings?q=player%40mail.example').expect(200)).body.total).toBe(0);
       expect((await as(cookies.owner).get('/api/bookings?q=player%40mail.example').expect(200)).body.total).toBeGreaterThan(0);
-      expect((await as(cookies.builder).get('/api/bookings?q=cass%40mail.example').expect(200)).body.items.map((b: { id: string }) => b.id)).toContain(mine.id);
+      expect(
+        (await as(cookies.builder).get('/api/bookings?q=cass%40mail.example').expect(200)).body.items.map((b: { id: string }) => b.id),
+      ).toContain(mine.id);
       // A change answered with the booking (a state move here, refused) cannot hand the address back either.
-      const moved = await t.http().post(`/api/bookings/${notMine.id}/notes`).set('Cookie', apprentice).send({ note: 'Checked the queue for this one.' });
+      const moved = await t
+        .http()
+        .post(`/api/bookings/${notMine.id}/notes`)
+        .set('Cookie', apprentice)
+        .send({ note: 'Checked the queue for this one.' });
       expect(moved.status).toBeLessThan(300);
       expect(JSON.stringify(moved.body)).not.toContain('player@mail.example');
 
-      const customers = (await as(cookies.builder).get('/api/customers?pageSize=100').expect(200)).body.items as Array<{ name: string; email: string | null }>;
+      const customers = (await as(cookies.builder).get('/api/customers?pageSize=100').expect(200)).body.items as Array<{
+        name: string;
+        email: string | null;
+      }>;
       const byEmail = customers.map((c) => c.email).filter(Boolean);
       expect(byEmail).toEqual(['cass@mail.example']);
       const detailA = (await as(cookies.builder).get(`/api/customers/${fx.customerA}`).expect(200)).body;

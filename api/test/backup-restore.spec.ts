@@ -13,7 +13,14 @@ import { startApiProcess, Visitor, type ApiProcess } from './support/api-process
 import { createEmptyDatabase } from './support/test-app';
 
 const repoRoot = path.resolve(__dirname, '../..');
-const board = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' };
+const board = {
+  surfaceId: 'slate-61',
+  caseId: 'shell-hard',
+  routing: { mode: 'serial' },
+  pedalCount: 4,
+  functions: [],
+  level: 'journeyman',
+};
 
 /** Runs `npm run backup` / `npm run restore` the way a person does (node on the script, no npm wrapper). */
 function runScript(script: string, args: string[], env: Record<string, string>): Promise<{ code: number | null; out: string }> {
@@ -48,9 +55,12 @@ async function tableCounts(url: string): Promise<Record<string, number>> {
   const client = new Client({ connectionString: url });
   await client.connect();
   try {
-    const tables = await client.query<{ name: string }>(`select tablename as name from pg_tables where schemaname = 'public' order by tablename`);
+    const tables = await client.query<{ name: string }>(
+      `select tablename as name from pg_tables where schemaname = 'public' order by tablename`,
+    );
     const counts: Record<string, number> = {};
-    for (const { name } of tables.rows) counts[name] = (await client.query<{ n: number }>(`select count(*)::int as n from public."${name}"`)).rows[0]!.n;
+    for (const { name } of tables.rows)
+      counts[name] = (await client.query<{ n: number }>(`select count(*)::int as n from public."${name}"`)).rows[0]!.n;
     return counts;
   } finally {
     await client.end();
@@ -65,7 +75,9 @@ async function signIn(api: ApiProcess, email: string): Promise<Visitor> {
 }
 
 async function getBytes(visitor: Visitor, route: string): Promise<{ status: number; type: string | null; bytes: Buffer }> {
-  const response = await fetch(`${visitor.base}${route}`, { headers: { cookie: [...visitor.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } });
+  const response = await fetch(`${visitor.base}${route}`, {
+    headers: { cookie: [...visitor.cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
+  });
   return { status: response.status, type: response.headers.get('content-type'), bytes: Buffer.from(await response.arrayBuffer()) };
 }
 
@@ -97,14 +109,27 @@ describe('npm run backup / npm run restore', () => {
     source = await createEmptyDatabase('lw_backup_src');
     target = await createEmptyDatabase('lw_backup_dst');
     // NODE_ENV=development: the demo seed leaves its bookings and payments out under NODE_ENV=test.
-    sourceApi = await startApiProcess({ ...storeEnv(source.url, sourceStore), NODE_ENV: 'development', SEED_DEMO: 'true', RUN_WORKERS: 'false', JWT_SECRET: 'backup-test-secret-0123456789abcdef', LOG_LEVEL: 'warn', AUTH_THROTTLE_LIMIT: '1000' });
+    sourceApi = await startApiProcess({
+      ...storeEnv(source.url, sourceStore),
+      NODE_ENV: 'development',
+      SEED_DEMO: 'true',
+      RUN_WORKERS: 'false',
+      JWT_SECRET: 'backup-test-secret-0123456789abcdef',
+      LOG_LEVEL: 'warn',
+      AUTH_THROTTLE_LIMIT: '1000',
+    });
 
     // Two photos on a new booking by the demo player: the demo seed has bookings and payments, no photos.
     const player = await signIn(sourceApi, 'player@mail.example');
     const booking = await player.call('POST', '/api/bookings', { configuration: board });
     expect(booking.status, booking.text).toBe(201);
-    for (const [i, colour] of [{ r: 200, g: 40, b: 10 }, { r: 10, g: 90, b: 200 }].entries()) {
-      const png = await sharp({ create: { width: 40 + i, height: 30, channels: 3, background: colour } }).png().toBuffer();
+    for (const [i, colour] of [
+      { r: 200, g: 40, b: 10 },
+      { r: 10, g: 90, b: 200 },
+    ].entries()) {
+      const png = await sharp({ create: { width: 40 + i, height: 30, channels: 3, background: colour } })
+        .png()
+        .toBuffer();
       const form = new FormData();
       form.append('file', new Blob([png], { type: 'image/png' }), `board-${i}.png`);
       const response = await fetch(`${sourceApi.url}/api/bookings/${booking.body.id}/photos`, {
@@ -156,7 +181,7 @@ describe('npm run backup / npm run restore', () => {
     expect(manifest.migrationLevel).toBe(level);
     // PostgreSQL's own pg_restore reads the dump's table of contents (custom format).
     const pgRestoreList = await new Promise<string>((resolve, reject) => {
- const bin = readdirSync('/usr/lib/postgresql')
+      const bin = readdirSync('/usr/lib/postgresql')
         .map((v) => `/usr/lib/postgresql/${v}/bin/pg_restore`)
         .find((p) => existsSync(p))!;
       const child = spawn(bin, ['--list', path.join(unpacked, 'database.dump')]);
@@ -184,7 +209,14 @@ describe('npm run backup / npm run restore', () => {
     expect(await tableCounts(target.url)).toEqual(counts);
 
     // The product on the restored database and bucket (no seeding): same answers, same bytes.
-    targetApi = await startApiProcess({ ...storeEnv(target.url, targetStore), SEED_DEMO: 'false', RUN_WORKERS: 'false', JWT_SECRET: 'another-secret-for-the-restored-api-42', LOG_LEVEL: 'warn', AUTH_THROTTLE_LIMIT: '1000' });
+    targetApi = await startApiProcess({
+      ...storeEnv(target.url, targetStore),
+      SEED_DEMO: 'false',
+      RUN_WORKERS: 'false',
+      JWT_SECRET: 'another-secret-for-the-restored-api-42',
+      LOG_LEVEL: 'warn',
+      AUTH_THROTTLE_LIMIT: '1000',
+    });
     const ownerBefore = await signIn(sourceApi, 'owner@shop.example');
     const ownerAfter = await signIn(targetApi, 'owner@shop.example');
     const sourceIds = new Client({ connectionString: source.url });
@@ -193,7 +225,10 @@ describe('npm run backup / npm run restore', () => {
     await sourceIds.end();
     // Every booking's detail answer (quote, payments, photos, timeline) is the same on both.
     for (const id of bookingIds) {
-      const [before, after] = await Promise.all([ownerBefore.call('GET', `/api/bookings/${id}`), ownerAfter.call('GET', `/api/bookings/${id}`)]);
+      const [before, after] = await Promise.all([
+        ownerBefore.call('GET', `/api/bookings/${id}`),
+        ownerAfter.call('GET', `/api/bookings/${id}`),
+      ]);
       expect(before.status, before.text).toBe(200);
       expect(after.status, after.text).toBe(200);
       expect(after.body).toEqual(before.body);

@@ -44,7 +44,19 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     await t.close();
   });
   beforeEach(async () => {
-    await clearTables(t.db, ['bench_allocations', 'booking_events', 'mail_outbox', 'payments', 'time_entries', 'intake_items', 'booking_extras', 'quotes', 'bookings', 'shop_closures', 'builder_absences']);
+    await clearTables(t.db, [
+      'bench_allocations',
+      'booking_events',
+      'mail_outbox',
+      'payments',
+      'time_entries',
+      'intake_items',
+      'booking_extras',
+      'quotes',
+      'bookings',
+      'shop_closures',
+      'builder_absences',
+    ]);
     await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages`, { method: 'DELETE' });
   });
 
@@ -72,16 +84,30 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     // The mail fake hands attachments over base64-encoded.
     const component = new ICAL.Component(ICAL.parse(Buffer.from(file.content, 'base64').toString('utf8')));
     const event = component.getFirstSubcomponent('vevent')!;
-    return { method: component.getFirstPropertyValue('method'), status: event.getFirstPropertyValue('status'), vevent: new ICAL.Event(event) };
+    return {
+      method: component.getFirstPropertyValue('method'),
+      status: event.getFirstPropertyValue('status'),
+      vevent: new ICAL.Event(event),
+    };
   }
 
   it('moves a scheduled build to another day in one step: bench time, history, and an updated calendar file with the same UID', async () => {
     const b = await scheduled('10.00');
     const wednesday = addDays(monday, 2);
-    const res = await master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: masterId, benchDate: wednesday, reason: 'The parcel is running late.' }).expect(200);
+    const res = await master
+      .post(`/api/bookings/${b.id}/reschedule`)
+      .send({ builderId: masterId, benchDate: wednesday, reason: 'The parcel is running late.' })
+      .expect(200);
     const body = res.body as RescheduleResponse;
     // The master's week is 7/7/7/7/6 h: 10 h from Wednesday is 7 h Wednesday and 3 h Thursday.
-    expect(body).toMatchObject({ benchDate: wednesday, previousBenchDate: monday, expectedCompletion: addDays(monday, 3), shift: '2 days later', calendarSequence: 1, repriced: false });
+    expect(body).toMatchObject({
+      benchDate: wednesday,
+      previousBenchDate: monday,
+      expectedCompletion: addDays(monday, 3),
+      shift: '2 days later',
+      calendarSequence: 1,
+      repriced: false,
+    });
     expect(body.plan).toEqual([
       { date: wednesday, hours: 7 },
       { date: addDays(monday, 3), hours: 3 },
@@ -119,18 +145,23 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
   it('answers 409 in words when the new slot cannot hold the build, and leaves it where it was', async () => {
     await scheduled('7.00', addDays(monday, 1));
     const b = await scheduled('3.00');
-    const res = await master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: masterId, benchDate: addDays(monday, 1), reason: 'Player asked' });
+    const res = await master
+      .post(`/api/bookings/${b.id}/reschedule`)
+      .send({ builderId: masterId, benchDate: addDays(monday, 1), reason: 'Player asked' });
     expect(res.status).toBe(409);
     expect(res.body.message).toMatch(/no free bench time on .*the day is full/);
     expect(await slicesOf(b.id)).toEqual([{ builder_id: masterId, day: monday, hours: '3.00' }]);
-    expect((await t.db.selectFrom('bookings').select('bench_date').where('id', '=', b.id).executeTakeFirstOrThrow()).bench_date).toBe(monday);
+    expect((await t.db.selectFrom('bookings').select('bench_date').where('id', '=', b.id).executeTakeFirstOrThrow()).bench_date).toBe(
+      monday,
+    );
     expect(await t.db.selectFrom('mail_outbox').select('id').where('template', '=', 'booking-rescheduled').execute()).toHaveLength(0);
   });
 
   it('refuses dates that make no sense, in words: the past, too soon to ship, a holiday or closure, a day off', async () => {
     const b = await scheduled('3.00');
     const today = todayIn('America/Chicago');
-    const move = (benchDate: string, extra: object = {}) => master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: masterId, benchDate, reason: 'Testing the rules', ...extra });
+    const move = (benchDate: string, extra: object = {}) =>
+      master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: masterId, benchDate, reason: 'Testing the rules', ...extra });
     const past = await move('2020-01-06');
     expect(past.status).toBe(400);
     expect(past.body.message).toMatch(/in the past/);
@@ -138,7 +169,10 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const tooSoon = await move(addDays(today, 1));
     expect(tooSoon.status).toBe(400);
     expect(tooSoon.body.message).toMatch(/^Too soon to ship: the pedals would have to arrive by .*, which has passed/);
-    await owner.post('/api/settings/closures').send({ startsOn: addDays(monday, 3), endsOn: addDays(monday, 3), reason: 'stocktake' }).expect(201);
+    await owner
+      .post('/api/settings/closures')
+      .send({ startsOn: addDays(monday, 3), endsOn: addDays(monday, 3), reason: 'stocktake' })
+      .expect(201);
     const closed = await move(addDays(monday, 3));
     expect(closed.status).toBe(409);
     expect(closed.body.message).toMatch(/no free bench time on .*: Shop closed: stocktake/);
@@ -146,7 +180,9 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect(saturday.status).toBe(409);
     expect(saturday.body.message).toMatch(/Day off/);
     // Bad input is a 400 naming the field, from the shared schema.
-    const bad = await master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: 'nobody', benchDate: '2026-02-30', reason: ' ', extra: 1 });
+    const bad = await master
+      .post(`/api/bookings/${b.id}/reschedule`)
+      .send({ builderId: 'nobody', benchDate: '2026-02-30', reason: ' ', extra: 1 });
     expect(bad.status).toBe(400);
     expect(bad.body.details).toEqual(
       expect.arrayContaining([
@@ -157,7 +193,9 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     );
     // A request that is not scheduled cannot be moved.
     const request = await createBooking(t.db, { laborHours: '2.00' });
-    expect((await master.post(`/api/bookings/${request.id}/reschedule`).send({ builderId: masterId, benchDate: monday, reason: 'x' })).status).toBe(409);
+    expect(
+      (await master.post(`/api/bookings/${request.id}/reschedule`).send({ builderId: masterId, benchDate: monday, reason: 'x' })).status,
+    ).toBe(409);
   });
 
   it('previews a date before choosing it: per builder the load, ship-by day and why a date is refused', async () => {
@@ -166,12 +204,20 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const preview = (await owner.get(`/api/bench/preview?bookingId=${b.id}&benchDate=${monday}`).expect(200)).body as BenchPreview;
     const forMaster = preview.options.find((o) => o.builder.id === masterId)!;
     // Monday has 7 h, 4 taken: 3 h Monday and 2 h Tuesday.
-    expect(forMaster).toMatchObject({ ok: true, refusal: null, expectedCompletion: addDays(monday, 1), shipBy: addDays(monday, -5), nextPossibleDate: monday });
+    expect(forMaster).toMatchObject({
+      ok: true,
+      refusal: null,
+      expectedCompletion: addDays(monday, 1),
+      shipBy: addDays(monday, -5),
+      nextPossibleDate: monday,
+    });
     expect(forMaster.load).toEqual([
       { date: monday, capacityHours: 7, bookedHours: 4, thisBuildHours: 3, off: null },
       { date: addDays(monday, 1), capacityHours: 7, bookedHours: 0, thisBuildHours: 2, off: null },
     ]);
-    const saturday = (await owner.get(`/api/bench/preview?bookingId=${b.id}&benchDate=${addDays(monday, 5)}&builderId=${masterId}`).expect(200)).body as BenchPreview;
+    const saturday = (
+      await owner.get(`/api/bench/preview?bookingId=${b.id}&benchDate=${addDays(monday, 5)}&builderId=${masterId}`).expect(200)
+    ).body as BenchPreview;
     expect(saturday.options[0]).toMatchObject({ ok: false, refusal: 'day_off', nextPossibleDate: firstWorkdayFrom(addDays(monday, 7)) });
     const bad = await owner.get(`/api/bench/preview?bookingId=${b.id}&benchDate=someday`);
     expect(bad.status).toBe(400);
@@ -182,34 +228,60 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const b = await createBooking(t.db, { laborHours: '4.00', minimumLevel: 'journeyman' });
     await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
     // Pip is an apprentice, below the journeyman the rig needs.
-    const byBuilder = await master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: juniorId, benchDate: monday, reason: 'Teodor is ill' });
+    const byBuilder = await master
+      .post(`/api/bookings/${b.id}/reschedule`)
+      .send({ builderId: juniorId, benchDate: monday, reason: 'Teodor is ill' });
     expect(byBuilder.status).toBe(403);
     expect(byBuilder.body.message).toMatch(/only the owner can assign them, with a reason/);
-    const noReason = await owner.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: juniorId, benchDate: monday, reason: 'Teodor is ill' });
+    const noReason = await owner
+      .post(`/api/bookings/${b.id}/reschedule`)
+      .send({ builderId: juniorId, benchDate: monday, reason: 'Teodor is ill' });
     expect(noReason.status).toBe(400);
     expect(noReason.body.message).toMatch(/A reason for a builder below the level is required/);
-    const builderReprices = await master.post(`/api/bookings/${b.id}/reschedule`).send({ builderId: masterId, benchDate: addDays(monday, 1), reason: 'x', reprice: true });
+    const builderReprices = await master
+      .post(`/api/bookings/${b.id}/reschedule`)
+      .send({ builderId: masterId, benchDate: addDays(monday, 1), reason: 'x', reprice: true });
     expect(builderReprices.status).toBe(403);
     // Pip does not work Mondays (the demo apprentice's week is Tuesday to Friday, 6 h).
-    const monday409 = await owner
-      .post(`/api/bookings/${b.id}/reschedule`)
-      .send({ builderId: juniorId, benchDate: monday, reason: 'Teodor is ill this week.', reprice: true, levelOverrideReason: 'Pip builds it with Teodor checking the loops by phone.' });
+    const monday409 = await owner.post(`/api/bookings/${b.id}/reschedule`).send({
+      builderId: juniorId,
+      benchDate: monday,
+      reason: 'Teodor is ill this week.',
+      reprice: true,
+      levelOverrideReason: 'Pip builds it with Teodor checking the loops by phone.',
+    });
     expect(monday409.status).toBe(409);
     expect(monday409.body.message).toMatch(/Day off/);
     const res = await owner
       .post(`/api/bookings/${b.id}/reschedule`)
-      .send({ builderId: juniorId, benchDate: addDays(monday, 1), reason: 'Teodor is ill this week.', reprice: true, levelOverrideReason: 'Pip builds it with Teodor checking the loops by phone.' })
+      .send({
+        builderId: juniorId,
+        benchDate: addDays(monday, 1),
+        reason: 'Teodor is ill this week.',
+        reprice: true,
+        levelOverrideReason: 'Pip builds it with Teodor checking the loops by phone.',
+      })
       .expect(200);
     // Hand-worked: Pip's $45.00/h × 4 h = $180.00 labor + $300.00 materials = $480.00 (was $125.00 × 4 + $300.00 = $800.00).
     expect(res.body).toMatchObject({ builderId: juniorId, repriced: true, firmTotal: '480.00', shift: '1 day later' });
-    const firms = await t.db.selectFrom('quotes').select(['total', 'hourly_rate', 'builder_id']).where('booking_id', '=', b.id).where('kind', '=', 'firm').orderBy('created_at').execute();
+    const firms = await t.db
+      .selectFrom('quotes')
+      .select(['total', 'hourly_rate', 'builder_id'])
+      .where('booking_id', '=', b.id)
+      .where('kind', '=', 'firm')
+      .orderBy('created_at')
+      .execute();
     expect(firms).toEqual([
       { total: '800.00', hourly_rate: '125.00', builder_id: masterId },
       { total: '480.00', hourly_rate: '45.00', builder_id: juniorId },
     ]);
     expect(await slicesOf(b.id)).toEqual([{ builder_id: juniorId, day: addDays(monday, 1), hours: '4.00' }]);
     const detail = (await player.get(`/api/bookings/${b.id}`).expect(200)).body;
-    expect(detail).toMatchObject({ firmTotal: '480.00', levelOverrideReason: 'Pip builds it with Teodor checking the loops by phone.', builder: { id: juniorId } });
+    expect(detail).toMatchObject({
+      firmTotal: '480.00',
+      levelOverrideReason: 'Pip builds it with Teodor checking the loops by phone.',
+      builder: { id: juniorId },
+    });
     const moved = (await inbox()).find((m) => m.subject.startsWith('Moved:'))!;
     expect(moved.text).toContain('Why this builder: Pip builds it with Teodor checking the loops by phone.');
     expect(moved.text).toContain('$480.00');
@@ -220,7 +292,9 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const b = await scheduled('2.00');
     const detail = (await player.get(`/api/bookings/${b.id}`).expect(200)).body;
     expect(detail.priceConsent).toBe('pending');
-    expect((await t.db.selectFrom('mail_outbox').select('data').where('booking_id', '=', b.id).executeTakeFirstOrThrow()).data).toMatchObject({ priceConsentNeeded: true, quotedHigh: '300.00' });
+    expect(
+      (await t.db.selectFrom('mail_outbox').select('data').where('booking_id', '=', b.id).executeTakeFirstOrThrow()).data,
+    ).toMatchObject({ priceConsentNeeded: true, quotedHigh: '300.00' });
     const yes = await player.post(`/api/bookings/${b.id}/price-consent`).send({ accept: true }).expect(200);
     expect(yes.body.priceConsent).toBe('given');
     expect((await player.post(`/api/bookings/${b.id}/price-consent`).send({ accept: true })).status).toBe(409);
@@ -236,7 +310,14 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
       .post('/api/invitations')
       .send({ email: 'newhand@shop.example', name: 'Noor Vasquez-Lund', level: 'master', hourlyRate: '110.00' });
     expect(invited.status).toBe(201);
-    const newId = (await t.db.selectFrom('builders').innerJoin('users', 'users.id', 'builders.user_id').select('builders.id').where('users.email', '=', 'newhand@shop.example').executeTakeFirstOrThrow()).id;
+    const newId = (
+      await t.db
+        .selectFrom('builders')
+        .innerJoin('users', 'users.id', 'builders.user_id')
+        .select('builders.id')
+        .where('users.email', '=', 'newhand@shop.example')
+        .executeTakeFirstOrThrow()
+    ).id;
     const b = await createBooking(t.db, { laborHours: '2.00' });
     const suggest = (await owner.get(`/api/bench/suggest?bookingId=${b.id}`).expect(200)).body;
     expect(suggest.suggestions.map((s: { builder: { id: string } }) => s.builder.id)).not.toContain(newId);
@@ -256,10 +337,14 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const asOwner = (await owner.get(`/api/bench/suggest?bookingId=${b.id}`).expect(200)).body;
     expect(asOwner.chosenLevel).toBe('master');
     expect(asOwner.suggestions[0]).toMatchObject({ builder: { id: masterId }, meetsChosenLevel: true });
-    expect(asOwner.suggestions.find((s: { builder: { id: string } }) => s.builder.id === juniorId)).toMatchObject({ meetsChosenLevel: false });
+    expect(asOwner.suggestions.find((s: { builder: { id: string } }) => s.builder.id === juniorId)).toMatchObject({
+      meetsChosenLevel: false,
+    });
     const asJunior = (await junior.get(`/api/bench/suggest?bookingId=${b.id}`).expect(200)).body;
     expect(asJunior.suggestions.map((s: { builder: { id: string } }) => s.builder.id)).not.toContain(juniorId);
-    expect(asJunior.ineligible.find((i: { builder: { id: string } }) => i.builder.id === juniorId).reason).toMatch(/The player chose a master builder; only the owner/);
+    expect(asJunior.ineligible.find((i: { builder: { id: string } }) => i.builder.id === juniorId).reason).toMatch(
+      /The player chose a master builder; only the owner/,
+    );
     const byJunior = await junior.post(`/api/bookings/${b.id}/accept`).send({ builderId: juniorId, benchDate: monday });
     expect(byJunior.status).toBe(403);
   });
@@ -267,11 +352,24 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
   it('a closure over booked days lists the builds it hits; each moves to the next date that holds it through the reschedule path', async () => {
     const first = await scheduled('7.00');
     const second = await scheduled('3.00', addDays(monday, 1));
-    const closure = await owner.post('/api/settings/closures').send({ startsOn: monday, endsOn: addDays(monday, 1), reason: 'flooded workshop' }).expect(201);
-    expect(closure.body.buildsOnBenchThen.map((x: { reference: string }) => x.reference).sort()).toEqual([first.reference, second.reference].sort());
+    const closure = await owner
+      .post('/api/settings/closures')
+      .send({ startsOn: monday, endsOn: addDays(monday, 1), reason: 'flooded workshop' })
+      .expect(201);
+    expect(closure.body.buildsOnBenchThen.map((x: { reference: string }) => x.reference).sort()).toEqual(
+      [first.reference, second.reference].sort(),
+    );
     for (const hit of closure.body.buildsOnBenchThen as Array<{ bookingId: string }>) {
-      const booking = await t.db.selectFrom('bookings').select(['bench_date', 'builder_id']).where('id', '=', hit.bookingId).executeTakeFirstOrThrow();
-      const preview = (await owner.get(`/api/bench/preview?bookingId=${hit.bookingId}&benchDate=${booking.bench_date}&builderId=${booking.builder_id}`).expect(200)).body as BenchPreview;
+      const booking = await t.db
+        .selectFrom('bookings')
+        .select(['bench_date', 'builder_id'])
+        .where('id', '=', hit.bookingId)
+        .executeTakeFirstOrThrow();
+      const preview = (
+        await owner
+          .get(`/api/bench/preview?bookingId=${hit.bookingId}&benchDate=${booking.bench_date}&builderId=${booking.builder_id}`)
+          .expect(200)
+      ).body as BenchPreview;
       expect(preview.options[0].refusal).toBe('closed');
       await owner
         .post(`/api/bookings/${hit.bookingId}/reschedule`)
@@ -281,20 +379,31 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     // Wednesday holds the 7 h build; the 3 h one moves in order to Thursday (Wednesday is full by then).
     expect(await slicesOf(first.id)).toEqual([{ builder_id: masterId, day: addDays(monday, 2), hours: '7.00' }]);
     expect(await slicesOf(second.id)).toEqual([{ builder_id: masterId, day: addDays(monday, 3), hours: '3.00' }]);
-    const onClosedDays = await t.db.selectFrom('bench_allocations').select('id').where('day', 'in', [monday, addDays(monday, 1)]).execute();
+    const onClosedDays = await t.db
+      .selectFrom('bench_allocations')
+      .select('id')
+      .where('day', 'in', [monday, addDays(monday, 1)])
+      .execute();
     expect(onClosedDays).toHaveLength(0);
   });
 
   it('a builder’s absence hits their builds only, shows on the bench, and the next date that holds the build is after it', async () => {
     const mine = await scheduled('3.00');
-    const absence = await owner.post(`/api/team/${masterId}/absences`).send({ startsOn: monday, endsOn: addDays(monday, 4), reason: 'ill' }).expect(201);
+    const absence = await owner
+      .post(`/api/team/${masterId}/absences`)
+      .send({ startsOn: monday, endsOn: addDays(monday, 4), reason: 'ill' })
+      .expect(201);
     expect(absence.body.buildsOnBenchThen).toEqual([{ bookingId: mine.id, reference: mine.reference, days: [monday] }]);
     const bench = (await owner.get(`/api/bench?from=${monday}&to=${monday}&builderId=${masterId}`).expect(200)).body as BenchView;
     expect(bench.builders[0].days[0].off).toEqual({ kind: 'absence', label: 'Away: ill' });
     // The master is away all week: the first date that holds the build for him is the Monday after.
-    const preview = (await owner.get(`/api/bench/preview?bookingId=${mine.id}&benchDate=${monday}&builderId=${masterId}`).expect(200)).body as BenchPreview;
+    const preview = (await owner.get(`/api/bench/preview?bookingId=${mine.id}&benchDate=${monday}&builderId=${masterId}`).expect(200))
+      .body as BenchPreview;
     expect(preview.options[0]).toMatchObject({ ok: false, refusal: 'away', nextPossibleDate: firstWorkdayFrom(addDays(monday, 7)) });
-    expect((await owner.post(`/api/team/${masterId}/absences`).send({ startsOn: monday, endsOn: addDays(monday, -1), reason: 'x' })).body.details).toEqual(['Last day must be on or after the first day']);
+    expect(
+      (await owner.post(`/api/team/${masterId}/absences`).send({ startsOn: monday, endsOn: addDays(monday, -1), reason: 'x' })).body
+        .details,
+    ).toEqual(['Last day must be on or after the first day']);
     await owner.delete(`/api/team/absences/${absence.body.id}`).send({}).expect(204);
     expect((await owner.delete(`/api/team/absences/${absence.body.id}`).send({})).status).toBe(404);
   });
@@ -303,15 +412,22 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const b = await scheduled('10.00');
     const today = todayIn('America/Chicago');
     // A slice on today stands for work already under way; it must stay (only later days are released).
-    await sql`insert into bench_allocations (booking_id, builder_id, day, hours, day_capacity) values (${b.id}, ${masterId}, ${today}, numrange(20.00, 21.00), 24)`.execute(t.db);
-    await master.post(`/api/bookings/${b.id}/intake`).send({ items: [{ item: 'Fuzz', condition: 'working' }] }).expect(201);
+    await sql`insert into bench_allocations (booking_id, builder_id, day, hours, day_capacity) values (${b.id}, ${masterId}, ${today}, numrange(20.00, 21.00), 24)`.execute(
+      t.db,
+    );
+    await master
+      .post(`/api/bookings/${b.id}/intake`)
+      .send({ items: [{ item: 'Fuzz', condition: 'working' }] })
+      .expect(201);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received' }).expect(200);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'on_bench' }).expect(200);
     await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: today, hours: 6.5, note: 'mounted and wired' }).expect(201);
     expect((await slicesOf(b.id)).length).toBe(3);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' }).expect(200);
     expect(await slicesOf(b.id)).toEqual([{ builder_id: masterId, day: today, hours: '1.00' }]);
-    const notes = (await t.db.selectFrom('booking_events').select('note').where('booking_id', '=', b.id).orderBy('id').execute()).map((e) => e.note);
+    const notes = (await t.db.selectFrom('booking_events').select('note').where('booking_id', '=', b.id).orderBy('id').execute()).map(
+      (e) => e.note,
+    );
     expect(notes.at(-1)).toMatch(/^Released 10 hr of bench time booked after \w{3}, \w{3} \d{1,2}, \d{4}: the build reached testing\.$/);
     const bench = (await master.get(`/api/bench?from=${today}&to=${today}&builderId=${masterId}`).expect(200)).body as BenchView;
     expect(bench.builders[0].days[0]).toMatchObject({ bookedHours: 1, recordedHours: 6.5 });
@@ -330,7 +446,10 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     expect((await owner.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'x', cause: 'nobody' })).body.details).toEqual([
       'Say who asked to cancel: the player, or the shop (it cannot build it)',
     ]);
-    const res = await owner.post(`/api/bookings/${b.id}/cancel-scheduled`).send({ reason: 'The player is moving abroad.', cause: 'player' }).expect(200);
+    const res = await owner
+      .post(`/api/bookings/${b.id}/cancel-scheduled`)
+      .send({ reason: 'The player is moving abroad.', cause: 'player' })
+      .expect(200);
     expect(res.body.state).toBe('cancelled');
     expect(await slicesOf(b.id)).toEqual([]);
     const deposit = await t.db.selectFrom('payments').select('status').where('booking_id', '=', b.id).executeTakeFirstOrThrow();

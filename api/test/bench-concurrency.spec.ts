@@ -18,7 +18,10 @@ describe('concurrent acceptances for one builder', () => {
 
   /** Fires every acceptance at once over its own fetch, with the signed-in person's cookie. */
   function acceptAllAtOnce(email: string, items: Array<{ bookingId: string; benchDate: string }>) {
-    return postAllAtOnce(email, items.map(({ bookingId, benchDate }) => ({ path: `/api/bookings/${bookingId}/accept`, body: { builderId: master, benchDate } })));
+    return postAllAtOnce(
+      email,
+      items.map(({ bookingId, benchDate }) => ({ path: `/api/bookings/${bookingId}/accept`, body: { builderId: master, benchDate } })),
+    );
   }
 
   /** Fires every POST at once over its own fetch, with the signed-in person's cookie. */
@@ -28,7 +31,10 @@ describe('concurrent acceptances for one builder', () => {
       headers: { 'content-type': 'application/json' },
       body: JSON.stringify({ email, password: 'demo-pass-2026' }),
     });
-    const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const cookie = signIn.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
     // A barrier: while this transaction holds shop_closures, every acceptance stops at its first
     // read of the shop calendar, so all of them are in flight together when it lets go. Without
     // it one Node process tends to run them one after another and the race never happens.
@@ -76,7 +82,10 @@ describe('concurrent acceptances for one builder', () => {
 
   it('20 acceptances of 2.5 h builds on one Monday: exactly the three that can start that day succeed', async () => {
     const bookings = await Promise.all(Array.from({ length: 20 }, () => createBooking(t.db, { laborHours: '2.50' })));
-    const results = await acceptAllAtOnce('builder@shop.example', bookings.map((b) => ({ bookingId: b.id, benchDate: monday })));
+    const results = await acceptAllAtOnce(
+      'builder@shop.example',
+      bookings.map((b) => ({ bookingId: b.id, benchDate: monday })),
+    );
     const ok = results.filter((r) => r.status === 200);
     const refused = results.filter((r) => r.status === 409);
     // The master works 7 h on a Monday: 2.5 + 2.5 + 2 h fit (the third spills 0.5 h into Tuesday); the rest find Monday full.
@@ -99,7 +108,10 @@ describe('concurrent acceptances for one builder', () => {
 
   it('24 acceptances of full-day builds spread over four days: one per day, never more than capacity', async () => {
     const bookings = await Promise.all(Array.from({ length: 24 }, () => createBooking(t.db, { laborHours: '7.00' })));
-    const results = await acceptAllAtOnce('owner@shop.example', bookings.map((b, i) => ({ bookingId: b.id, benchDate: addDays(monday, i % 4) })));
+    const results = await acceptAllAtOnce(
+      'owner@shop.example',
+      bookings.map((b, i) => ({ bookingId: b.id, benchDate: addDays(monday, i % 4) })),
+    );
     expect(results.filter((r) => r.status === 200)).toHaveLength(4);
     expect(results.filter((r) => r.status === 409)).toHaveLength(20);
     expect(results.every((r) => r.status === 200 || r.status === 409)).toBe(true);
@@ -111,9 +123,14 @@ describe('concurrent acceptances for one builder', () => {
 
   it('the same booking accepted twice at once is scheduled once', async () => {
     const booking = await createBooking(t.db, { laborHours: '3.00' });
-    const results = await acceptAllAtOnce('builder@shop.example', Array.from({ length: 20 }, (_, i) => ({ bookingId: booking.id, benchDate: addDays(monday, i % 3) })));
+    const results = await acceptAllAtOnce(
+      'builder@shop.example',
+      Array.from({ length: 20 }, (_, i) => ({ bookingId: booking.id, benchDate: addDays(monday, i % 3) })),
+    );
     expect(results.filter((r) => r.status === 200)).toHaveLength(1);
-    expect(results.filter((r) => r.status === 409).every((r) => /deposit is paid and before it is scheduled/.test(r.body.message ?? ''))).toBe(true);
+    expect(
+      results.filter((r) => r.status === 409).every((r) => /deposit is paid and before it is scheduled/.test(r.body.message ?? '')),
+    ).toBe(true);
     const slices = await t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute();
     expect(slices).toHaveLength(1);
   });
@@ -123,16 +140,32 @@ describe('concurrent acceptances for one builder', () => {
     const agent = await signIn(t.app, 'owner@shop.example');
     const scheduled = await Promise.all(Array.from({ length: 6 }, () => createBooking(t.db, { laborHours: '2.50' })));
     for (const [i, b] of scheduled.entries()) {
-      await agent.post(`/api/bookings/${b.id}/accept`).send({ builderId: master, benchDate: addDays(monday, 2 + Math.floor(i / 2)) }).expect(200);
+      await agent
+        .post(`/api/bookings/${b.id}/accept`)
+        .send({ builderId: master, benchDate: addDays(monday, 2 + Math.floor(i / 2)) })
+        .expect(200);
     }
     const before = new Map(
-      (await t.db.selectFrom('bookings').select(['id', 'bench_date']).where('id', 'in', scheduled.map((b) => b.id)).execute()).map((r) => [r.id, r.bench_date]),
+      (
+        await t.db
+          .selectFrom('bookings')
+          .select(['id', 'bench_date'])
+          .where(
+            'id',
+            'in',
+            scheduled.map((b) => b.id),
+          )
+          .execute()
+      ).map((r) => [r.id, r.bench_date]),
     );
     // … race ten new acceptances and the six moves for Monday, all at once.
     const fresh = await Promise.all(Array.from({ length: 10 }, () => createBooking(t.db, { laborHours: '2.50' })));
     const results = await postAllAtOnce('owner@shop.example', [
       ...fresh.map((b) => ({ path: `/api/bookings/${b.id}/accept`, body: { builderId: master, benchDate: monday } })),
-      ...scheduled.map((b) => ({ path: `/api/bookings/${b.id}/reschedule`, body: { builderId: master, benchDate: monday, reason: 'Earlier slot freed up.' } })),
+      ...scheduled.map((b) => ({
+        path: `/api/bookings/${b.id}/reschedule`,
+        body: { builderId: master, benchDate: monday, reason: 'Earlier slot freed up.' },
+      })),
     ]);
     expect(results.every((r) => r.status === 200 || r.status === 409)).toBe(true);
     // Monday holds 7 h: 2.5 + 2.5 + 2 can start there (the third spills 0.5 h into Tuesday), whatever the mix.
@@ -165,13 +198,15 @@ describe('concurrent acceptances for one builder', () => {
     const raw = new Client({ connectionString: process.env.DATABASE_URL });
     await raw.connect();
     await raw.query('begin');
-    await raw.query(`insert into bench_allocations (booking_id, builder_id, day, hours, day_capacity) values ($1, $2, $3, numrange(0, 7), 7)`, [
-      other.id,
-      master,
-      monday,
-    ]);
+    await raw.query(
+      `insert into bench_allocations (booking_id, builder_id, day, hours, day_capacity) values ($1, $2, $3, numrange(0, 7), 7)`,
+      [other.id, master, monday],
+    );
     // … the acceptance plans on the committed bench, [0, 2) looks free, and its insert waits on the constraint.
-    const pending = agent.post(`/api/bookings/${mine.id}/accept`).send({ builderId: master, benchDate: monday }).then((r) => r);
+    const pending = agent
+      .post(`/api/bookings/${mine.id}/accept`)
+      .send({ builderId: master, benchDate: monday })
+      .then((r) => r);
     await new Promise((resolve) => setTimeout(resolve, 500));
     await raw.query('commit');
     await raw.end();

@@ -3,7 +3,14 @@ import type { BenchSuggestResponse } from '@loomwright/shared';
 import { eventually, payOnHostedPage, startPaymentHarness, type PaymentHarness } from './support/payment-harness';
 
 // A plain serial board from the demo price book.
-const serialBoard = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'apprentice' };
+const serialBoard = {
+  surfaceId: 'slate-61',
+  caseId: 'shell-hard',
+  routing: { mode: 'serial' },
+  pedalCount: 6,
+  functions: [],
+  level: 'apprentice',
+};
 // Stripe testing documentation, "Test card numbers": 4242 4242 4242 4242 succeeds.
 const SUCCESS_CARD = '4242 4242 4242 4242';
 
@@ -16,7 +23,11 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
 
   async function paidRequest() {
     const player = await h.signIn('player@mail.example');
-    const booking = (await player.post('/api/bookings').send({ configuration: serialBoard }).expect(201)).body as { id: string; reference: string; deposit: string };
+    const booking = (await player.post('/api/bookings').send({ configuration: serialBoard }).expect(201)).body as {
+      id: string;
+      reference: string;
+      deposit: string;
+    };
     const url = (await player.post(`/api/bookings/${booking.id}/checkout`).send({}).expect(200)).body.url as string;
     expect((await payOnHostedPage(url, SUCCESS_CARD)).status).toBe(303);
     await eventually(async () => (await player.get(`/api/bookings/${booking.id}`)).body.state === 'deposit_paid', 'the deposit webhook');
@@ -31,7 +42,12 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
     expect(mine).toBeDefined();
     await builder.post(`/api/bookings/${booking.id}/accept`).send({ builderId: mine.builder.id, benchDate: mine.benchDate }).expect(200);
     const detail = (await player.get(`/api/bookings/${booking.id}`).expect(200)).body;
-    expect(detail).toMatchObject({ state: 'scheduled', benchDate: mine.benchDate, expectedCompletion: mine.expectedCompletion, firmTotal: mine.firmTotal });
+    expect(detail).toMatchObject({
+      state: 'scheduled',
+      benchDate: mine.benchDate,
+      expectedCompletion: mine.expectedCompletion,
+      firmTotal: mine.firmTotal,
+    });
     expect(detail.firmQuote).toMatchObject({ kind: 'firm', hourlyRate: '125.00', total: mine.firmTotal });
     const bench = (await builder.get(`/api/bench?from=${mine.benchDate}&to=${mine.benchDate}`).expect(200)).body;
     expect(bench.builders[0].days[0].builds.map((b: { reference: string }) => b.reference)).toContain(booking.reference);
@@ -40,12 +56,25 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
   it('the owner declines a paid request and the deposit goes back through the provider, once', async () => {
     const { booking } = await paidRequest();
     const owner = await h.signIn('owner@shop.example');
-    const res = await owner.post(`/api/bookings/${booking.id}/decline`).send({ reason: 'We cannot source a case for this surface.' }).expect(200);
+    const res = await owner
+      .post(`/api/bookings/${booking.id}/decline`)
+      .send({ reason: 'We cannot source a case for this surface.' })
+      .expect(200);
     expect(res.body.state).toBe('declined');
-    const deposit = await h.t.db.selectFrom('payments').selectAll().where('booking_id', '=', booking.id).where('kind', '=', 'deposit').executeTakeFirstOrThrow();
+    const deposit = await h.t.db
+      .selectFrom('payments')
+      .selectAll()
+      .where('booking_id', '=', booking.id)
+      .where('kind', '=', 'deposit')
+      .executeTakeFirstOrThrow();
     expect(deposit.refund_id).toMatch(/^re_/);
     expect([...h.fake.store.refunds.values()].filter((r) => r.payment_intent === deposit.payment_intent_id)).toHaveLength(1);
-    const mail = await h.t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', booking.id).where('template', '=', 'booking-declined').executeTakeFirstOrThrow();
+    const mail = await h.t.db
+      .selectFrom('mail_outbox')
+      .selectAll()
+      .where('booking_id', '=', booking.id)
+      .where('template', '=', 'booking-declined')
+      .executeTakeFirstOrThrow();
     expect(mail.data).toMatchObject({ depositRefunded: true, refundAmount: booking.deposit });
     expect((await owner.post(`/api/bookings/${booking.id}/decline`).send({ reason: 'twice over' })).status).toBe(409);
   });
@@ -53,21 +82,42 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
   it('the owner cancels a scheduled build the shop cannot do: bench time released and the deposit refunded through the provider, once', async () => {
     const { player, booking } = await paidRequest();
     const builder = await h.signIn('builder@shop.example');
-    const mine = ((await builder.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse).suggestions.find((s) => s.builder.isMe)!;
+    const mine = (
+      (await builder.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse
+    ).suggestions.find((s) => s.builder.isMe)!;
     await builder.post(`/api/bookings/${booking.id}/accept`).send({ builderId: mine.builder.id, benchDate: mine.benchDate }).expect(200);
     const owner = await h.signIn('owner@shop.example');
     const preview = (await owner.get(`/api/bookings/${booking.id}/cancellation`).expect(200)).body;
     // The master's rate puts the firm total above the apprentice range the player was quoted and they
     // have not agreed to it yet, so even a cancellation they ask for refunds the whole deposit.
-    expect(preview).toMatchObject({ depositPaid: booking.deposit, refundIfShopCancels: booking.deposit, refundIfPlayerAsked: booking.deposit });
-    const res = await owner.post(`/api/bookings/${booking.id}/cancel-scheduled`).send({ reason: 'Our only master builder is away for a month.', cause: 'shop' }).expect(200);
+    expect(preview).toMatchObject({
+      depositPaid: booking.deposit,
+      refundIfShopCancels: booking.deposit,
+      refundIfPlayerAsked: booking.deposit,
+    });
+    const res = await owner
+      .post(`/api/bookings/${booking.id}/cancel-scheduled`)
+      .send({ reason: 'Our only master builder is away for a month.', cause: 'shop' })
+      .expect(200);
     expect(res.body.state).toBe('cancelled');
     expect(await h.t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute()).toHaveLength(0);
-    const deposit = await h.t.db.selectFrom('payments').selectAll().where('booking_id', '=', booking.id).where('kind', '=', 'deposit').executeTakeFirstOrThrow();
+    const deposit = await h.t.db
+      .selectFrom('payments')
+      .selectAll()
+      .where('booking_id', '=', booking.id)
+      .where('kind', '=', 'deposit')
+      .executeTakeFirstOrThrow();
     expect(deposit.refund_id).toMatch(/^re_/);
-    expect((await owner.post(`/api/bookings/${booking.id}/cancel-scheduled`).send({ reason: 'twice over', cause: 'shop' })).status).toBe(409);
+    expect((await owner.post(`/api/bookings/${booking.id}/cancel-scheduled`).send({ reason: 'twice over', cause: 'shop' })).status).toBe(
+      409,
+    );
     expect([...h.fake.store.refunds.values()].filter((r) => r.payment_intent === deposit.payment_intent_id)).toHaveLength(1);
-    const mail = await h.t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', booking.id).where('template', '=', 'booking-cancelled').executeTakeFirstOrThrow();
+    const mail = await h.t.db
+      .selectFrom('mail_outbox')
+      .selectAll()
+      .where('booking_id', '=', booking.id)
+      .where('template', '=', 'booking-cancelled')
+      .executeTakeFirstOrThrow();
     expect(mail.data).toMatchObject({ refundAmount: booking.deposit, keptAmount: null, calendarSequence: 1 });
     expect((await player.get(`/api/bookings/${booking.id}`).expect(200)).body.state).toBe('cancelled');
   });
@@ -83,7 +133,12 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
     expect((await player.get(`/api/bookings/${booking.id}`).expect(200)).body.priceConsent).toBe('pending');
     const res = await player.post(`/api/bookings/${booking.id}/price-consent`).send({ accept: false }).expect(200);
     expect(res.body.state).toBe('cancelled');
-    const deposit = await h.t.db.selectFrom('payments').selectAll().where('booking_id', '=', booking.id).where('kind', '=', 'deposit').executeTakeFirstOrThrow();
+    const deposit = await h.t.db
+      .selectFrom('payments')
+      .selectAll()
+      .where('booking_id', '=', booking.id)
+      .where('kind', '=', 'deposit')
+      .executeTakeFirstOrThrow();
     expect(deposit.refund_id).toMatch(/^re_/);
     expect(await h.t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute()).toHaveLength(0);
   });

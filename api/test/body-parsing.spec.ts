@@ -8,11 +8,14 @@ describe('request bodies that cannot be read', () => {
   });
   afterAll(async () => t.close());
 
-  it.each(['/api/estimates', '/api/auth/sign-in', '/api/payments/webhook'])('answers malformed JSON sent to %s with a 400 in words', async (path) => {
-    const res = await t.http().post(path).set('Content-Type', 'application/json').send('{"surfaceId": "slate-61",');
-    expect(res.status).toBe(400);
-    expect(res.body.message).toMatch(/not valid JSON/);
-  });
+  it.each(['/api/estimates', '/api/auth/sign-in', '/api/payments/webhook'])(
+    'answers malformed JSON sent to %s with a 400 in words',
+    async (path) => {
+      const res = await t.http().post(path).set('Content-Type', 'application/json').send('{"surfaceId": "slate-61",');
+      expect(res.status).toBe(400);
+      expect(res.body.message).toMatch(/not valid JSON/);
+    },
+  );
 
   // RFC 8259 §2: a JSON text may be any value, so `null` and `"text"` are valid JSON; the API
   // takes objects only and must say that, not call them malformed.
@@ -23,7 +26,11 @@ describe('request bodies that cannot be read', () => {
   });
 
   it('answers a body over the size limit with a 413 in words', async () => {
-    const res = await t.http().post('/api/estimates').set('Content-Type', 'application/json').send(JSON.stringify({ pad: 'x'.repeat(1_100_000) }));
+    const res = await t
+      .http()
+      .post('/api/estimates')
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify({ pad: 'x'.repeat(1_100_000) }));
     expect(res.status).toBe(413);
     expect(res.body.message).toMatch(/larger than 1 MB/);
   });

@@ -88,7 +88,10 @@ describe('booking requests, deposit checkout and webhooks against the local paym
   });
 
   it('refuses a bad configuration with a 400 naming the field, and staff cannot request builds', async () => {
-    const bad = await player.post('/api/bookings').send({ configuration: { ...serialBoard, level: 'wizard' } }).expect(400);
+    const bad = await player
+      .post('/api/bookings')
+      .send({ configuration: { ...serialBoard, level: 'wizard' } })
+      .expect(400);
     expect(JSON.stringify(bad.body.message)).toContain('level');
     const builder = await h.signIn('builder@shop.example');
     await builder.post('/api/bookings').send({ configuration: serialBoard }).expect(403);
@@ -124,7 +127,12 @@ describe('booking requests, deposit checkout and webhooks against the local paym
     expect(rows).toHaveLength(1);
     expect(rows[0]).toMatchObject({ status: 'paid', kind: 'deposit', amount: booking.deposit, amount_minor: String(session.amount_total) });
     expect(rows[0].payment_intent_id).toBe(h.fake.store.sessions.get(session.id)!.payment_intent);
-    const mail = await h.t.db.selectFrom('mail_outbox').select(['template', 'to_address']).where('booking_id', '=', booking.id).orderBy('created_at').execute();
+    const mail = await h.t.db
+      .selectFrom('mail_outbox')
+      .select(['template', 'to_address'])
+      .where('booking_id', '=', booking.id)
+      .orderBy('created_at')
+      .execute();
     expect(mail).toEqual(
       expect.arrayContaining([
         { template: 'deposit-received', to_address: 'player@mail.example' },
@@ -190,7 +198,10 @@ describe('booking requests, deposit checkout and webhooks against the local paym
       Array.from({ length: 20 }, () =>
         fetch(`${h.apiUrl}/api/payments/webhook`, {
           method: 'POST',
-          headers: { 'content-type': 'application/json', 'stripe-signature': stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }) },
+          headers: {
+            'content-type': 'application/json',
+            'stripe-signature': stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }),
+          },
           body: payload,
         }).then(async (r) => ({ status: r.status, body: (await r.json()) as { duplicate: boolean } })),
       ),
@@ -199,9 +210,19 @@ describe('booking requests, deposit checkout and webhooks against the local paym
     expect(deliveries.filter((d) => !d.body.duplicate)).toHaveLength(1);
     const rows = await paymentsOf(booking.id);
     expect(rows.filter((r) => r.status === 'paid')).toHaveLength(1);
-    const events = await h.t.db.selectFrom('booking_events').selectAll().where('booking_id', '=', booking.id).where('to_state', '=', 'deposit_paid').execute();
+    const events = await h.t.db
+      .selectFrom('booking_events')
+      .selectAll()
+      .where('booking_id', '=', booking.id)
+      .where('to_state', '=', 'deposit_paid')
+      .execute();
     expect(events).toHaveLength(1);
-    const mails = await h.t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', booking.id).where('template', '=', 'deposit-received').execute();
+    const mails = await h.t.db
+      .selectFrom('mail_outbox')
+      .selectAll()
+      .where('booking_id', '=', booking.id)
+      .where('template', '=', 'deposit-received')
+      .execute();
     expect(mails).toHaveLength(1);
     const recorded = await h.t.db.selectFrom('payment_events').selectAll().where('event_id', '=', event.id).execute();
     expect(recorded).toHaveLength(1);
@@ -220,7 +241,12 @@ describe('booking requests, deposit checkout and webhooks against the local paym
     const event = h.fake.events.slice(sentBefore).find((e) => e.type === 'checkout.session.completed')!;
     const payload = JSON.stringify(event);
     const post = (body: string, signature?: string) =>
-      h.t.http().post('/api/payments/webhook').set('content-type', 'application/json').set(signature ? { 'stripe-signature': signature } : {}).send(body);
+      h.t
+        .http()
+        .post('/api/payments/webhook')
+        .set('content-type', 'application/json')
+        .set(signature ? { 'stripe-signature': signature } : {})
+        .send(body);
 
     const signed = stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET });
     const tampered = payload.replace(`"amount_total":${event.data.object.amount_total}`, '"amount_total":1');
@@ -229,7 +255,10 @@ describe('booking requests, deposit checkout and webhooks against the local paym
       await post(tampered, signed),
       await post(payload, stripe.webhooks.generateTestHeaderString({ payload, secret: 'whsec_someone_else' })),
       // The SDK's default tolerance is 300 s (Stripe webhooks documentation, "replay attacks").
-      await post(payload, stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET, timestamp: Math.floor(Date.now() / 1000) - 3600 })),
+      await post(
+        payload,
+        stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET, timestamp: Math.floor(Date.now() / 1000) - 3600 }),
+      ),
       await post(payload),
     ];
     expect(answers.map((a) => a.status)).toEqual([400, 400, 400, 400]);
@@ -242,7 +271,9 @@ describe('booking requests, deposit checkout and webhooks against the local paym
 
   it("keeps one player's bookings, photos and payments from another", async () => {
     const booking = await requestBuild();
-    const photo = await player.post(`/api/bookings/${booking.id}/photos`).attach('file', tinyPng(), { filename: 'board.png', contentType: 'image/png' });
+    const photo = await player
+      .post(`/api/bookings/${booking.id}/photos`)
+      .attach('file', tinyPng(), { filename: 'board.png', contentType: 'image/png' });
     expect(photo.status, JSON.stringify(photo.body)).toBe(201);
     await checkoutUrl(booking.id);
 
@@ -259,7 +290,9 @@ describe('booking requests, deposit checkout and webhooks against the local paym
     const own = await player.get(`/api/bookings/${booking.id}/photos/${photo.body.id}`).expect(200);
     expect(own.headers['content-type']).toBe('image/png');
     // Re-encoded on upload (photo-privacy.spec.ts), so the same pixel rather than the same bytes.
-    const { data, info } = await sharp(own.body as Buffer).raw().toBuffer({ resolveWithObject: true });
+    const { data, info } = await sharp(own.body as Buffer)
+      .raw()
+      .toBuffer({ resolveWithObject: true });
     expect([info.width, info.height, ...data.subarray(0, 3)]).toEqual([1, 1, 200, 120, 60]);
     const owner = await h.signIn('owner@shop.example');
     await owner.get(`/api/bookings/${booking.id}/photos/${photo.body.id}`).expect(200);
@@ -277,7 +310,9 @@ describe('booking requests, deposit checkout and webhooks against the local paym
     expect(fake.status).toBe(400);
     expect(fake.body.message).toMatch(/JPEG, PNG or WebP/);
     // A PDF is a known type, but not an image.
-    const pdf = await player.post(`/api/bookings/${booking.id}/photos`).attach('file', Buffer.from('%PDF-1.7\n%\xe2\xe3\xcf\xd3\n1 0 obj\n<<>>\nendobj\n', 'latin1'), 'scan.jpg');
+    const pdf = await player
+      .post(`/api/bookings/${booking.id}/photos`)
+      .attach('file', Buffer.from('%PDF-1.7\n%\xe2\xe3\xcf\xd3\n1 0 obj\n<<>>\nendobj\n', 'latin1'), 'scan.jpg');
     expect(pdf.status).toBe(400);
     expect(pdf.body.message).toMatch(/application\/pdf/);
     const big = Buffer.concat([tinyPng(), Buffer.alloc(8 * 1024 * 1024)]);
@@ -316,7 +351,12 @@ describe('booking requests, deposit checkout and webhooks against the local paym
       async () => (await h.t.db.selectFrom('payment_events').select('event_id').where('type', '=', 'charge.refunded').execute()).length > 0,
       'the refund webhook',
     );
-    const mails = await h.t.db.selectFrom('mail_outbox').select('template').where('booking_id', '=', booking.id).where('template', '=', 'deposit-refunded').execute();
+    const mails = await h.t.db
+      .selectFrom('mail_outbox')
+      .select('template')
+      .where('booking_id', '=', booking.id)
+      .where('template', '=', 'deposit-refunded')
+      .execute();
     expect(mails).toHaveLength(1);
     // Cancelling twice is a conflict in words, and nothing is refunded again.
     const again = await player.post(`/api/bookings/${booking.id}/cancel`).send({}).expect(409);
@@ -329,7 +369,10 @@ describe('booking requests, deposit checkout and webhooks against the local paym
     const booking = await requestBuild();
     await payOnHostedPage(await checkoutUrl(booking.id), SUCCESS_CARD);
     await eventually(async () => (await paymentsOf(booking.id))[0]?.status === 'paid', 'the deposit');
-    const shipped = await player.post(`/api/bookings/${booking.id}/shipment`).send({ carrier: 'Parcel post', tracking: 'PX-4417-0093' }).expect(201);
+    const shipped = await player
+      .post(`/api/bookings/${booking.id}/shipment`)
+      .send({ carrier: 'Parcel post', tracking: 'PX-4417-0093' })
+      .expect(201);
     expect(shipped.body.inbound).toEqual({ carrier: 'Parcel post', tracking: 'PX-4417-0093' });
     const blank = await player.post(`/api/bookings/${booking.id}/shipment`).send({ carrier: '', tracking: 'x' }).expect(400);
     expect(blank.body.details).toEqual(['Say who carries the parcel']);

@@ -20,7 +20,12 @@ describe('GET /api/bookings/:id/build-sheet', () => {
   const config: RigConfiguration = {
     ...referenceBoard('switcher', 'master'),
     functions: ['stereo_output'],
-    powerSupply: { outputs: [{ voltage: 9, currentMa: 500, isolated: true }, ...Array.from({ length: 7 }, () => ({ voltage: 9, currentMa: 100, isolated: true }))] },
+    powerSupply: {
+      outputs: [
+        { voltage: 9, currentMa: 500, isolated: true },
+        ...Array.from({ length: 7 }, () => ({ voltage: 9, currentMa: 100, isolated: true })),
+      ],
+    },
   };
 
   const signedIn = async (email: string) => {
@@ -91,7 +96,15 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     expect(flat).toContain('Cable schedule');
     // 23 audio patches for this board plus 1 for the stereo output, worked by hand in the engine tests.
     expect(flat).toContain('24 patch cables, 48 plugs, 48.00 ft of cable including 12.00 ft spare.');
-    for (const patch of ['Input/output buffer output', 'Tuner input', 'Wah output', 'Loop switcher input', 'Loop switcher loop 1 send', 'fuzz input', 'Loop switcher loop 10 return']) {
+    for (const patch of [
+      'Input/output buffer output',
+      'Tuner input',
+      'Wah output',
+      'Loop switcher input',
+      'Loop switcher loop 1 send',
+      'fuzz input',
+      'Loop switcher loop 10 return',
+    ]) {
       expect(flat).toContain(patch);
     }
     expect(flat).toContain('Loop assignments');
@@ -114,7 +127,8 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     // A worked example checked in whole cents (BigInt), not with the code under test: the rule the
     // shop states is balance = firm total + approved extras − (paid − refunded) (common practice,
     // no published source). Rate 125.00/h is the seeded master builder's.
-    const estimate = (await t.db.selectFrom('quotes').select('estimate').where('booking_id', '=', bookingId).executeTakeFirstOrThrow()).estimate;
+    const estimate = (await t.db.selectFrom('quotes').select('estimate').where('booking_id', '=', bookingId).executeTakeFirstOrThrow())
+      .estimate;
     const cents = (v: string) => BigInt(Math.round(Number(v) * 100));
     const hoursCentis = cents(estimate.laborHours); // hours × 100
     const laborCents = (12500n * hoursCentis) / 100n; // 125.00 × hours, exact for quarter hours
@@ -150,9 +164,26 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     await t.db
       .insertInto('payments')
       .values([
-        { booking_id: bookingId, kind: 'deposit', amount: estimate.deposit, amount_minor: Number(cents(estimate.deposit)), currency: 'USD', status: 'paid', paid_at: new Date('2026-11-30T15:00:00Z') },
+        {
+          booking_id: bookingId,
+          kind: 'deposit',
+          amount: estimate.deposit,
+          amount_minor: Number(cents(estimate.deposit)),
+          currency: 'USD',
+          status: 'paid',
+          paid_at: new Date('2026-11-30T15:00:00Z'),
+        },
         // A balance payment taken twice by mistake and refunded a day later.
-        { booking_id: bookingId, kind: 'balance', amount: '100.00', amount_minor: 10000, currency: 'USD', status: 'refunded', paid_at: new Date('2026-12-01T16:30:00Z'), refunded_at: new Date('2026-12-02T17:45:00Z') },
+        {
+          booking_id: bookingId,
+          kind: 'balance',
+          amount: '100.00',
+          amount_minor: 10000,
+          currency: 'USD',
+          status: 'refunded',
+          paid_at: new Date('2026-12-01T16:30:00Z'),
+          refunded_at: new Date('2026-12-02T17:45:00Z'),
+        },
       ])
       .execute();
     await t.db.updateTable('shop_settings').set({ timezone: 'America/Denver', locale: 'en-US' }).execute();
@@ -176,7 +207,9 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     expect(flat).toMatch(/Engraved plate ?declined ?\$25\.00/);
     // The firm quote's lines (labor at the one rate) add up to its total, to the cent.
     // (The rate inside each line's explanation, "at $125.00 per hour", is words, not an amount.)
-    const amounts = [...flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total')).matchAll(/(?<!at )\$([\d,]+\.\d{2})/g)].map((m) => cents(m[1]!.replace(/,/g, '')));
+    const amounts = [
+      ...flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total')).matchAll(/(?<!at )\$([\d,]+\.\d{2})/g),
+    ].map((m) => cents(m[1]!.replace(/,/g, '')));
     expect(amounts.length).toBeGreaterThan(3);
     expect(flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total'))).toContain('at $125.00 per hour'); // en-US dollars as ECMA-402 Intl.NumberFormat writes them (CLDR ¤#,##0.00)
     expect(flat.slice(flat.indexOf('Firm quoteQuantityAmount'), flat.indexOf('Firm total'))).not.toMatch(/per hour.*–|–.*per hour/);

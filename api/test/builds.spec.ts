@@ -21,7 +21,9 @@ describe('accepting a build, its firm quote and its way through the bench', () =
   beforeAll(async () => {
     t = await createTestApp();
     [owner, master, junior, player, cass] = await Promise.all(
-      ['owner@shop.example', 'builder@shop.example', 'junior@shop.example', 'player@mail.example', 'cass@mail.example'].map((e) => signIn(t.app, e)),
+      ['owner@shop.example', 'builder@shop.example', 'junior@shop.example', 'player@mail.example', 'cass@mail.example'].map((e) =>
+        signIn(t.app, e),
+      ),
     );
     masterId = await builderId(t.db, 'builder@shop.example');
     juniorId = await builderId(t.db, 'junior@shop.example');
@@ -29,14 +31,31 @@ describe('accepting a build, its firm quote and its way through the bench', () =
   });
   afterAll(async () => t.close());
   beforeEach(async () =>
-    clearTables(t.db, ['bench_allocations', 'booking_events', 'mail_outbox', 'payments', 'time_entries', 'intake_items', 'booking_extras', 'quotes', 'bookings', 'shop_closures']),
+    clearTables(t.db, [
+      'bench_allocations',
+      'booking_events',
+      'mail_outbox',
+      'payments',
+      'time_entries',
+      'intake_items',
+      'booking_extras',
+      'quotes',
+      'bookings',
+      'shop_closures',
+    ]),
   );
 
   it('writes the firm quote at the builder’s own rate, schedules, and queues the e-mail with what to ship', async () => {
     const b = await createBooking(t.db, { laborHours: '10.00', materialsTotal: '300.00', deposit: '150.00' });
     const res = await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
     // Hand-worked: the master's $125.00/h × 10 h = $1,250.00; + $300.00 materials = $1,550.00; − $150.00 deposit = $1,400.00.
-    expect(res.body.firmQuote).toMatchObject({ hourlyRate: '125.00', laborTotal: '1250.00', total: '1550.00', balanceDue: '1400.00', deposit: '150.00' });
+    expect(res.body.firmQuote).toMatchObject({
+      hourlyRate: '125.00',
+      laborTotal: '1250.00',
+      total: '1550.00',
+      balanceDue: '1400.00',
+      deposit: '150.00',
+    });
     // 7 h Monday + 3 h Tuesday (the master's week is 7/7/7/7/6).
     expect(res.body.plan).toEqual([
       { date: monday, hours: 7 },
@@ -48,12 +67,31 @@ describe('accepting a build, its firm quote and its way through the bench', () =
 
     const row = await t.db.selectFrom('bookings').selectAll().where('id', '=', b.id).executeTakeFirstOrThrow();
     expect(row).toMatchObject({ state: 'scheduled', builder_id: masterId, bench_date: monday, expected_completion: addDays(monday, 1) });
-    const firm = await t.db.selectFrom('quotes').selectAll().where('booking_id', '=', b.id).where('kind', '=', 'firm').executeTakeFirstOrThrow();
-    expect(firm).toMatchObject({ hourly_rate: '125.00', labor_total: '1250.00', total: '1550.00', builder_id: masterId, price_book_version: 1 });
+    const firm = await t.db
+      .selectFrom('quotes')
+      .selectAll()
+      .where('booking_id', '=', b.id)
+      .where('kind', '=', 'firm')
+      .executeTakeFirstOrThrow();
+    expect(firm).toMatchObject({
+      hourly_rate: '125.00',
+      labor_total: '1250.00',
+      total: '1550.00',
+      builder_id: masterId,
+      price_book_version: 1,
+    });
     const mail = await t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', b.id).executeTakeFirstOrThrow();
     expect(mail.template).toBe('booking-scheduled');
     expect(mail.to_address).toBe('player@mail.example');
-    expect(mail.data).toMatchObject({ reference: b.reference, benchDate: monday, builderName: 'Teodor Lind', builderLevel: 'master', firmTotal: '1550.00', balanceDue: '1400.00', currency: 'USD' });
+    expect(mail.data).toMatchObject({
+      reference: b.reference,
+      benchDate: monday,
+      builderName: 'Teodor Lind',
+      builderLevel: 'master',
+      firmTotal: '1550.00',
+      balanceDue: '1400.00',
+      currency: 'USD',
+    });
     expect(mail.data.whatToShip).toEqual(expect.arrayContaining(['Fuzz', 'Analog delay']));
     const events = await t.db.selectFrom('booking_events').selectAll().where('booking_id', '=', b.id).execute();
     expect(events.map((e) => [e.from_state, e.to_state, e.actor_label])).toEqual([['deposit_paid', 'scheduled', 'Teodor Lind']]);
@@ -63,7 +101,9 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     const view = bench.body as BenchView;
     expect(view.builders[0].builder).toMatchObject({ id: masterId, isMe: true });
     expect(view.builders[0].days[0]).toMatchObject({ date: monday, capacityHours: 7, bookedHours: 7, freeHours: 0 });
-    expect(view.builders[0].days[0].builds).toEqual([{ bookingId: b.id, reference: b.reference, customerName: 'Rowan Achterberg', state: 'scheduled', hours: 7, benchDate: monday }]);
+    expect(view.builders[0].days[0].builds).toEqual([
+      { bookingId: b.id, reference: b.reference, customerName: 'Rowan Achterberg', state: 'scheduled', hours: 7, benchDate: monday },
+    ]);
     expect(view.builders[0].days[5].off).toEqual({ kind: 'day_off', label: 'Day off' });
     const juniorView = (await junior.get(`/api/bench?from=${monday}&to=${monday}`).expect(200)).body as BenchView;
     expect(juniorView.builders[0].builder).toMatchObject({ id: juniorId, isMe: true });
@@ -72,15 +112,18 @@ describe('accepting a build, its firm quote and its way through the bench', () =
   it('suggests per eligible builder the earliest start after time already booked, and leaves out builders below the rig’s level', async () => {
     const first = await createBooking(t.db, { laborHours: '5.00' });
     const next = await createBooking(t.db, { laborHours: '4.00', minimumLevel: 'journeyman' });
-    const before = ((await owner.get(`/api/bench/suggest?bookingId=${next.id}`).expect(200)).body as BenchSuggestResponse);
+    const before = (await owner.get(`/api/bench/suggest?bookingId=${next.id}`).expect(200)).body as BenchSuggestResponse;
     expect(before.minimumLevel).toBe('journeyman');
     expect(before.ineligible.map((i) => i.builder.name)).toEqual(['Pip Okonkwo-Hale']);
     expect(before.ineligible[0].reason).toMatch(/at least a journeyman/);
     const masterFirst = before.suggestions.find((s) => s.builder.id === masterId)!;
     await master.post(`/api/bookings/${first.id}/accept`).send({ builderId: masterId, benchDate: masterFirst.benchDate }).expect(200);
-    const after = ((await master.get(`/api/bench/suggest?bookingId=${next.id}&builderId=${masterId}`).expect(200)).body as BenchSuggestResponse);
-    const day = ((await master.get(`/api/bench?from=${masterFirst.benchDate}&to=${masterFirst.benchDate}&builderId=${masterId}`).expect(200)).body as BenchView)
-      .builders[0].days[0];
+    const after = (await master.get(`/api/bench/suggest?bookingId=${next.id}&builderId=${masterId}`).expect(200))
+      .body as BenchSuggestResponse;
+    const day = (
+      (await master.get(`/api/bench?from=${masterFirst.benchDate}&to=${masterFirst.benchDate}&builderId=${masterId}`).expect(200))
+        .body as BenchView
+    ).builders[0].days[0];
     // The master works 6 or 7 h a day; 5 are now taken, so the 4 h build still starts that day with what is left.
     expect(day.bookedHours).toBe(5);
     expect(after.suggestions[0].benchDate).toBe(masterFirst.benchDate);
@@ -102,7 +145,11 @@ describe('accepting a build, its firm quote and its way through the bench', () =
       .post(`/api/bookings/${b.id}/accept`)
       .send({ builderId: juniorId, benchDate: addDays(monday, 1), levelOverrideReason: 'Pip builds it with Teodor checking the loops.' })
       .expect(200);
-    const row = await t.db.selectFrom('bookings').select(['level_override_reason', 'builder_id']).where('id', '=', b.id).executeTakeFirstOrThrow();
+    const row = await t.db
+      .selectFrom('bookings')
+      .select(['level_override_reason', 'builder_id'])
+      .where('id', '=', b.id)
+      .executeTakeFirstOrThrow();
     expect(row).toEqual({ level_override_reason: 'Pip builds it with Teodor checking the loops.', builder_id: juniorId });
   });
 
@@ -117,7 +164,9 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     const saturday = await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: addDays(monday, 5) });
     expect(saturday.status).toBe(409);
     expect(saturday.body.message).toMatch(/no free bench time/);
-    const unknown = await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: '00000000-0000-4000-8000-000000000000', benchDate: monday });
+    const unknown = await master
+      .post(`/api/bookings/${b.id}/accept`)
+      .send({ builderId: '00000000-0000-4000-8000-000000000000', benchDate: monday });
     expect(unknown.status).toBe(404);
     expect((await master.post('/api/bookings/not-a-uuid/accept').send({ builderId: masterId, benchDate: monday })).status).toBe(400);
     const unpaid = await createBooking(t.db, { laborHours: '3.00', state: 'requested' });
@@ -125,7 +174,9 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     expect(early.status).toBe(409);
     expect(early.body.message).toMatch(/only once its deposit is paid/);
     expect((await master.get(`/api/bench?from=${monday}&to=${addDays(monday, 200)}`)).status).toBe(400);
-    expect((await master.get(`/api/bench?from=${addDays(monday, 2)}&to=${monday}`)).body.message).toMatch(/The last day shown must be on or after the first day shown/);
+    expect((await master.get(`/api/bench?from=${addDays(monday, 2)}&to=${monday}`)).body.message).toMatch(
+      /The last day shown must be on or after the first day shown/,
+    );
   });
 
   it('moves a build along the allowed edges only, and delivers once the balance is settled', async () => {
@@ -133,25 +184,41 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
     const skip = await master.post(`/api/bookings/${b.id}/state`).send({ to: 'on_bench' });
     expect(skip.status).toBe(409);
-    expect(skip.body.message).toBe(`Booking ${b.reference} is scheduled and cannot move to on bench; from there it can move to pedals received.`);
-    expect((await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received' })).body.message).toMatch(/Record the intake first/);
+    expect(skip.body.message).toBe(
+      `Booking ${b.reference} is scheduled and cannot move to on bench; from there it can move to pedals received.`,
+    );
+    expect((await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received' })).body.message).toMatch(
+      /Record the intake first/,
+    );
     expect((await master.post(`/api/bookings/${b.id}/state`).send({ to: 'shipped' })).status).toBe(400);
 
     await master
       .post(`/api/bookings/${b.id}/intake`)
-      .send({ items: [{ item: 'Fuzz', condition: 'working' }, { item: 'Analog delay', condition: 'faulty', note: 'Crackles when the time knob turns' }] })
+      .send({
+        items: [
+          { item: 'Fuzz', condition: 'working' },
+          { item: 'Analog delay', condition: 'faulty', note: 'Crackles when the time knob turns' },
+        ],
+      })
       .expect(201);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received' }).expect(200);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'on_bench' }).expect(200);
 
     await master.post(`/api/bookings/${b.id}/layout/request`).send({ note: 'Delay moved next to the tuner.' }).expect(200);
-    expect((await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' })).body.message).toMatch(/waiting for the player's layout approval/);
+    expect((await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' })).body.message).toMatch(
+      /waiting for the player's layout approval/,
+    );
     // Another player's booking is simply not there for them.
     expect((await cass.post(`/api/bookings/${b.id}/layout/approve`).send({})).status).toBe(404);
     await player.post(`/api/bookings/${b.id}/layout/approve`).send({}).expect(200);
 
-    const extra = await owner.post(`/api/bookings/${b.id}/extras`).send({ description: 'Extra buffer', amount: '35.00', reason: 'Long cable run to the amp' }).expect(201);
-    expect((await master.post(`/api/bookings/${b.id}/extras`).send({ description: 'x', amount: '1.00', reason: 'because' })).status).toBe(403);
+    const extra = await owner
+      .post(`/api/bookings/${b.id}/extras`)
+      .send({ description: 'Extra buffer', amount: '35.00', reason: 'Long cable run to the amp' })
+      .expect(201);
+    expect((await master.post(`/api/bookings/${b.id}/extras`).send({ description: 'x', amount: '1.00', reason: 'because' })).status).toBe(
+      403,
+    );
     await player.post(`/api/bookings/${b.id}/extras/${extra.body.id}/decision`).send({ approve: true }).expect(200);
     expect((await player.post(`/api/bookings/${b.id}/extras/${extra.body.id}/decision`).send({ approve: false })).status).toBe(409);
 
@@ -164,7 +231,12 @@ describe('accepting a build, its firm quote and its way through the bench', () =
 
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' }).expect(200);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'ready', note: 'Every path and preset tested.' }).expect(200);
-    const balanceMail = await t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', b.id).where('template', '=', 'balance-requested').executeTakeFirstOrThrow();
+    const balanceMail = await t.db
+      .selectFrom('mail_outbox')
+      .selectAll()
+      .where('booking_id', '=', b.id)
+      .where('template', '=', 'balance-requested')
+      .executeTakeFirstOrThrow();
     // Hand-worked: $125.00 × 2 h + $100.00 materials = $350.00; + $35.00 approved extra − $50.00 deposit = $335.00.
     expect(balanceMail.data).toMatchObject({ firmTotal: '350.00', extras: '35.00', paidSoFar: '50.00', balanceDue: '335.00' });
 
@@ -176,10 +248,20 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'delivered' }).expect(200);
     expect((await master.post(`/api/bookings/${b.id}/state`).send({ to: 'ready' })).status).toBe(409);
 
-    const statusMails = await t.db.selectFrom('mail_outbox').select(['data']).where('booking_id', '=', b.id).where('template', '=', 'status-changed').execute();
+    const statusMails = await t.db
+      .selectFrom('mail_outbox')
+      .select(['data'])
+      .where('booking_id', '=', b.id)
+      .where('template', '=', 'status-changed')
+      .execute();
     expect(statusMails.map((m) => m.data.state)).toEqual(['pedals_received', 'ready', 'delivered']);
     expect(statusMails[0].data.faultyItems).toEqual([{ item: 'Analog delay', note: 'Crackles when the time knob turns' }]);
-    const events = await t.db.selectFrom('booking_events').select(['from_state', 'to_state', 'actor_label']).where('booking_id', '=', b.id).orderBy('id').execute();
+    const events = await t.db
+      .selectFrom('booking_events')
+      .select(['from_state', 'to_state', 'actor_label'])
+      .where('booking_id', '=', b.id)
+      .orderBy('id')
+      .execute();
     expect(events.filter((e) => e.from_state !== e.to_state).map((e) => e.to_state)).toEqual([
       'scheduled',
       'pedals_received',
@@ -194,7 +276,10 @@ describe('accepting a build, its firm quote and its way through the bench', () =
 
   it('declines a request; only the owner may decline a paid one', async () => {
     const unpaid = await createBooking(t.db, { laborHours: '2.00', state: 'requested' });
-    const declined = await master.post(`/api/bookings/${unpaid.id}/decline`).send({ reason: 'We do not wire this kind of rig.' }).expect(200);
+    const declined = await master
+      .post(`/api/bookings/${unpaid.id}/decline`)
+      .send({ reason: 'We do not wire this kind of rig.' })
+      .expect(200);
     expect(declined.body).toMatchObject({ id: unpaid.id, state: 'declined', declineReason: 'We do not wire this kind of rig.' });
     const declineMail = await t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', unpaid.id).executeTakeFirstOrThrow();
     expect(declineMail).toMatchObject({ template: 'booking-declined', to_address: 'player@mail.example' });
@@ -209,9 +294,13 @@ describe('accepting a build, its firm quote and its way through the bench', () =
     const noProvider = await owner.post(`/api/bookings/${paid.id}/decline`).send({ reason: 'No room this season.' });
     expect(noProvider.status).toBe(409);
     expect(noProvider.body.message).toMatch(/no provider payment to refund/);
-    expect((await t.db.selectFrom('bookings').select('state').where('id', '=', paid.id).executeTakeFirstOrThrow()).state).toBe('deposit_paid');
+    expect((await t.db.selectFrom('bookings').select('state').where('id', '=', paid.id).executeTakeFirstOrThrow()).state).toBe(
+      'deposit_paid',
+    );
     expect((await t.db.selectFrom('booking_events').select('id').where('booking_id', '=', paid.id).execute()).length).toBe(0);
-    expect((await owner.post(`/api/bookings/${paid.id}/decline`).send({})).body.details).toEqual(expect.arrayContaining(['Reason must say why, in at least a few words']));
+    expect((await owner.post(`/api/bookings/${paid.id}/decline`).send({})).body.details).toEqual(
+      expect.arrayContaining(['Reason must say why, in at least a few words']),
+    );
   });
 });
 
@@ -258,7 +347,8 @@ describe('who may use the bench, team, settings and customers routes', () => {
     for (const [method, url, body] of staffRoutes()) {
       const res = await agents.player[method](url).send(body ?? {});
       expect(res.status, `${method} ${url}`).toBe(403);
-      const anon = await t.http()[method](url).send(body ?? {});
+      const anonymous = t.http();
+      const anon = await anonymous[method](url).send(body ?? {});
       expect(anon.status, `anonymous ${method} ${url}`).toBe(401);
     }
   });
@@ -279,14 +369,27 @@ describe('who may use the bench, team, settings and customers routes', () => {
   });
 
   it('lets the owner edit the team, the shop and its closures, naming a bad field', async () => {
-    const res = await agents.owner.patch(`/api/team/${someBuilder}`).send({ hourlyRate: '95.50', weeklyHours: { '1': 8, '3': 4.5 } }).expect(200);
+    const res = await agents.owner
+      .patch(`/api/team/${someBuilder}`)
+      .send({ hourlyRate: '95.50', weeklyHours: { '1': 8, '3': 4.5 } })
+      .expect(200);
     expect(res.body).toMatchObject({ hourlyRate: '95.50', weeklyHours: { '1': 8, '3': 4.5 }, weeklyCapacityHours: 12.5 });
-    expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ weeklyHours: { '8': 3 } })).body.message)).toMatch(/days are numbered 1 \(Monday\) to 7 \(Sunday\)/);
-    expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ weeklyHours: { '2': 30 } })).body.message)).toMatch(/Tuesday must be a number of hours from 0 to 24/);
-    expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ level: 'wizard' })).body.message)).toContain('Level must be one of');
+    expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ weeklyHours: { '8': 3 } })).body.message)).toMatch(
+      /days are numbered 1 \(Monday\) to 7 \(Sunday\)/,
+    );
+    expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ weeklyHours: { '2': 30 } })).body.message)).toMatch(
+      /Tuesday must be a number of hours from 0 to 24/,
+    );
+    expect(JSON.stringify((await agents.owner.patch(`/api/team/${someBuilder}`).send({ level: 'wizard' })).body.message)).toContain(
+      'Level must be one of',
+    );
 
-    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ countryCode: 'QQ' }).expect(400)).body.message)).toMatch(/Country must be a country from the list/);
-    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ timezone: 'Mars/Olympus' })).body.message)).toMatch(/Time zone must be a place name from the time zone list, like America\/Chicago/);
+    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ countryCode: 'QQ' }).expect(400)).body.message)).toMatch(
+      /Country must be a country from the list/,
+    );
+    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ timezone: 'Mars/Olympus' })).body.message)).toMatch(
+      /Time zone must be a place name from the time zone list, like America\/Chicago/,
+    );
     const gb = await agents.owner.patch('/api/settings').send({ countryCode: 'gb', timezone: 'Europe/London' }).expect(200);
     expect(gb.body).toMatchObject({ countryCode: 'GB', timezone: 'Europe/London' });
     // date-holidays (code ISC, data CC-BY-3.0): Christmas Day is a public holiday in Great Britain.
@@ -294,18 +397,28 @@ describe('who may use the bench, team, settings and customers routes', () => {
     // The locale is a BCP 47 tag (canonical case per BCP 47 §2.1.1: language lower, region upper).
     expect((await agents.owner.patch('/api/settings').send({ locale: 'de-de' }).expect(200)).body.locale).toBe('de-DE');
     expect((await t.http().get('/api/shop').expect(200)).body).toMatchObject({ locale: 'de-DE', timezone: 'Europe/London' });
-    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ locale: 'not a locale' }).expect(400)).body.message)).toMatch(/Locale must be a language and region, like en-US/);
+    expect(JSON.stringify((await agents.owner.patch('/api/settings').send({ locale: 'not a locale' }).expect(400)).body.message)).toMatch(
+      /Locale must be a language and region, like en-US/,
+    );
     await agents.owner.patch('/api/settings').send({ locale: 'en-US' }).expect(200);
 
-    const closure = await agents.owner.post('/api/settings/closures').send({ startsOn: '2030-01-02', endsOn: '2030-01-03', reason: 'Stocktake' }).expect(201);
+    const closure = await agents.owner
+      .post('/api/settings/closures')
+      .send({ startsOn: '2030-01-02', endsOn: '2030-01-03', reason: 'Stocktake' })
+      .expect(201);
     expect(closure.body).toMatchObject({ startsOn: '2030-01-02', endsOn: '2030-01-03', buildsOnBenchThen: [] });
-    expect(JSON.stringify((await agents.owner.post('/api/settings/closures').send({ startsOn: '2030-01-05', endsOn: '2030-01-04', reason: 'Backwards' })).body.message)).toMatch(
-      /Last day must be on or after the first day/,
-    );
+    expect(
+      JSON.stringify(
+        (await agents.owner.post('/api/settings/closures').send({ startsOn: '2030-01-05', endsOn: '2030-01-04', reason: 'Backwards' })).body
+          .message,
+      ),
+    ).toMatch(/Last day must be on or after the first day/);
     const bench = await agents.owner.get(`/api/bench?from=2030-01-02&to=2030-01-02&builderId=${someBuilder}`).expect(200);
     expect(bench.body.builders[0].days[0]).toMatchObject({ capacityHours: 0, off: { kind: 'closure', label: 'Shop closed: Stocktake' } });
     await agents.owner.delete(`/api/settings/closures/${closure.body.id}`).set('Content-Type', 'application/json').expect(204);
-    expect((await agents.owner.delete(`/api/settings/closures/${closure.body.id}`).set('Content-Type', 'application/json')).status).toBe(404);
+    expect((await agents.owner.delete(`/api/settings/closures/${closure.body.id}`).set('Content-Type', 'application/json')).status).toBe(
+      404,
+    );
   });
 
   it('pages, sorts and searches customers on the server, with their builds, payments and messages', async () => {
@@ -315,7 +428,9 @@ describe('who may use the bench, team, settings and customers routes', () => {
     const search = await agents.owner.get('/api/customers?search=imbert').expect(200);
     expect(search.body.items.map((c: { name: string }) => c.name)).toEqual(['Cass Imbert']);
     expect((await agents.owner.get('/api/customers?search=%25')).body.total).toBe(0);
-    expect(JSON.stringify((await agents.owner.get('/api/customers?pageSize=1000')).body.message)).toContain('Rows per page can be at most 100');
+    expect(JSON.stringify((await agents.owner.get('/api/customers?pageSize=1000')).body.message)).toContain(
+      'Rows per page can be at most 100',
+    );
     const detail = await agents.owner.get(`/api/customers/${list.body.items[0].id}`).expect(200);
     expect(detail.body.builds).toHaveLength(1);
     expect(detail.body.payments[0]).toMatchObject({ kind: 'deposit', amount: '150.00', status: 'paid' });
@@ -329,7 +444,13 @@ describe('who may use the bench, team, settings and customers routes', () => {
     // Reference: PostgreSQL's own ORDER BY … NULLS LAST over every customer grouped with all their
     // bookings (the list's earlier one-query form); the list now finds a page's ids first.
     await createBooking(t.db, { laborHours: '10.00', materialsTotal: '300.00', deposit: '150.00' });
-    const keys = { name: 'u.name', email: 'u.email::text', createdAt: 'u.created_at', buildCount: 'count(b.id)', lastBookingAt: 'max(b.created_at)' } as const;
+    const keys = {
+      name: 'u.name',
+      email: 'u.email::text',
+      createdAt: 'u.created_at',
+      buildCount: 'count(b.id)',
+      lastBookingAt: 'max(b.created_at)',
+    } as const;
     for (const [sort, key] of Object.entries(keys)) {
       for (const order of ['asc', 'desc'] as const) {
         const expected = await sql<{ id: string }>`

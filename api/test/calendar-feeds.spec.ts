@@ -28,7 +28,13 @@ async function place(bookingId: string, builder: string, days: Array<[string, nu
   for (const [day, hours] of days) {
     await t.db
       .insertInto('bench_allocations')
-      .values({ booking_id: bookingId, builder_id: builder, day, hours: sql<string>`numrange(0, ${hours}::numeric, '[)')`, day_capacity: '8.00' })
+      .values({
+        booking_id: bookingId,
+        builder_id: builder,
+        day,
+        hours: sql<string>`numrange(0, ${hours}::numeric, '[)')`,
+        day_capacity: '8.00',
+      })
       .execute();
   }
   await t.db
@@ -68,7 +74,9 @@ describe('calendar feeds', () => {
       expect(l.webcalUrl).toBe(l.url.replace('https:', 'webcal:'));
     }
     // Listing again makes no second feed.
-    expect(((await owner.get('/api/calendar-feeds').expect(200)).body as CalendarFeedLink[]).map((l) => l.id)).toEqual(links.map((l) => l.id));
+    expect(((await owner.get('/api/calendar-feeds').expect(200)).body as CalendarFeedLink[]).map((l) => l.id)).toEqual(
+      links.map((l) => l.id),
+    );
   });
 
   it('has each scheduled build as an all-day event with reference, player, hours and a link to the build', async () => {
@@ -98,7 +106,11 @@ describe('calendar feeds', () => {
       [future(30), 2],
       [future(31), 1],
     ]);
-    await t.db.updateTable('bookings').set({ calendar_sequence: sql`calendar_sequence + 1` }).where('id', '=', b.id).execute();
+    await t.db
+      .updateTable('bookings')
+      .set({ calendar_sequence: sql`calendar_sequence + 1` })
+      .where('id', '=', b.id)
+      .execute();
     const after = (await feed(url)).find((e) => e.uid === `bench-${b.reference}@loomwright.app`)!;
     expect(after.startDate.toString()).toBe(future(30));
     expect(after.endDate.toString()).toBe(future(32));

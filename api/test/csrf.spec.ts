@@ -45,7 +45,12 @@ describe('CSRF: every state-changing route refuses forms, text and other sites',
         const [method, pattern] = key.split(' ') as [string, string];
         const operation = openApi.paths[pattern.replace(/:(\w+)/g, '{$1}')]?.[method.toLowerCase()];
         const multipart = Object.keys(operation?.requestBody?.content ?? {}).includes('multipart/form-data');
-        return { key, verb: method.toLowerCase() as Verb, url: pattern.replace(/:\w+/g, UNKNOWN_ID), documented: multipart ? 'multipart/form-data' : 'application/json' };
+        return {
+          key,
+          verb: method.toLowerCase() as Verb,
+          url: pattern.replace(/:\w+/g, UNKNOWN_ID),
+          documented: multipart ? 'multipart/form-data' : 'application/json',
+        };
       });
   });
   afterAll(async () => t?.close());
@@ -57,7 +62,9 @@ describe('CSRF: every state-changing route refuses forms, text and other sites',
   /** The request as the shop's own page sends it, with extra headers. */
   const documentedCall = (route: Route, headers: Record<string, string>, cookie?: string) => {
     const req = call(route, cookie).set(headers);
-    return route.documented === 'multipart/form-data' ? req.field('caption', 'from the shop') : req.set('Content-Type', 'application/json').send({});
+    return route.documented === 'multipart/form-data'
+      ? req.field('caption', 'from the shop')
+      : req.set('Content-Type', 'application/json').send({});
   };
 
   it('finds the state-changing routes, uploads among them', () => {
@@ -72,10 +79,15 @@ describe('CSRF: every state-changing route refuses forms, text and other sites',
       for (const cookie of [undefined, ownerCookie]) {
         const who = cookie ? 'owner' : 'anonymous';
         const attempts = {
-          'form-encoded': call(route, cookie).set('Origin', SHOP).type('form').send('email=outsider%40attacker.example&name=Outsider&level=master&hourlyRate=1'),
+          'form-encoded': call(route, cookie)
+            .set('Origin', SHOP)
+            .type('form')
+            .send('email=outsider%40attacker.example&name=Outsider&level=master&hourlyRate=1'),
           'text/plain': call(route, cookie).set('Origin', SHOP).set('Content-Type', 'text/plain').send('{"reason":"forged"}'),
           'no content type': call(route, cookie).set('Origin', SHOP),
-          ...(route.documented === 'multipart/form-data' ? { 'JSON to an upload': call(route, cookie).set('Origin', SHOP).send({ file: 'x' }) } : {}),
+          ...(route.documented === 'multipart/form-data'
+            ? { 'JSON to an upload': call(route, cookie).set('Origin', SHOP).send({ file: 'x' }) }
+            : {}),
         };
         for (const [what, pending] of Object.entries(attempts)) {
           const res = await pending;
@@ -97,7 +109,8 @@ describe('CSRF: every state-changing route refuses forms, text and other sites',
           const label = `${route.key} as ${cookie ? 'owner' : 'anonymous'} with ${JSON.stringify(headers)}`;
           if (route.key === WEBHOOK) {
             // Exempt from the origin rule; still refused, by its missing signature.
-            if (res.status !== 400 || !/Stripe-Signature/.test(res.body.message)) problems.push(`${label}: ${res.status} ${JSON.stringify(res.body.message)}`);
+            if (res.status !== 400 || !/Stripe-Signature/.test(res.body.message))
+              problems.push(`${label}: ${res.status} ${JSON.stringify(res.body.message)}`);
           } else if (res.status !== 403 || !/came from another site .* and was refused/.test(res.body.message)) {
             problems.push(`${label}: ${res.status} ${JSON.stringify(res.body.message)}`);
           }
@@ -111,7 +124,11 @@ describe('CSRF: every state-changing route refuses forms, text and other sites',
     const problems: string[] = [];
     for (const route of routes) {
       // Anonymous, so nothing changes: each answer comes from the route's own guards, pipes or handler.
-      for (const headers of [{ Origin: SHOP, 'Sec-Fetch-Site': 'same-origin' }, { Origin: ALSO_ALLOWED, 'Sec-Fetch-Site': 'same-site' }, {}] as Record<string, string>[]) {
+      for (const headers of [
+        { Origin: SHOP, 'Sec-Fetch-Site': 'same-origin' },
+        { Origin: ALSO_ALLOWED, 'Sec-Fetch-Site': 'same-site' },
+        {},
+      ] as Record<string, string>[]) {
         const res = await documentedCall(route, headers);
         if (res.status === 415 || res.status >= 500 || /came from another site/.test(String(res.body.message))) {
           problems.push(`${route.key} with ${JSON.stringify(headers)}: ${res.status} ${JSON.stringify(res.body.message)}`);
@@ -122,31 +139,68 @@ describe('CSRF: every state-changing route refuses forms, text and other sites',
   });
 
   it('accepts the origin a request was addressed to, e.g. the shop opened at 127.0.0.1 instead of PUBLIC_URL', async () => {
-    const res = await t.http().post('/api/auth/sign-in').set('Host', '127.0.0.1:3000').set('Origin', 'http://127.0.0.1:3000').send({ email: 'player@mail.example', password: 'demo-pass-2026' });
+    const res = await t
+      .http()
+      .post('/api/auth/sign-in')
+      .set('Host', '127.0.0.1:3000')
+      .set('Origin', 'http://127.0.0.1:3000')
+      .send({ email: 'player@mail.example', password: 'demo-pass-2026' });
     expect(res.status).toBe(200);
-    const other = await t.http().post('/api/auth/sign-in').set('Host', '127.0.0.1:3000').set('Origin', 'http://127.0.0.1:3001').send({ email: 'player@mail.example', password: 'demo-pass-2026' });
+    const other = await t
+      .http()
+      .post('/api/auth/sign-in')
+      .set('Host', '127.0.0.1:3000')
+      .set('Origin', 'http://127.0.0.1:3001')
+      .send({ email: 'player@mail.example', password: 'demo-pass-2026' });
     expect(other.status).toBe(403);
   });
 
   it('stops the attacks as reported: a forged staff invitation and a text/plain cancel change nothing', async () => {
     const player = await sessionCookieFor(t, 'customerA');
     const catalog = (await t.http().get('/api/catalog').expect(200)).body;
-    const configuration = { surfaceId: catalog.surfaces[0].id, caseId: catalog.cases[0].id, routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' };
+    const configuration = {
+      surfaceId: catalog.surfaces[0].id,
+      caseId: catalog.cases[0].id,
+      routing: { mode: 'serial' },
+      pedalCount: 4,
+      functions: [],
+      level: 'journeyman',
+    };
     const booking = (await t.http().post('/api/bookings').set('Cookie', player).send({ configuration }).expect(201)).body as { id: string };
 
-    const invite = await t.http().post('/api/invitations').set('Cookie', ownerCookie).set('Origin', ATTACKER).type('form').send({ email: 'outsider@attacker.example', name: 'Outsider', level: 'master', hourlyRate: '1' });
+    const invite = await t
+      .http()
+      .post('/api/invitations')
+      .set('Cookie', ownerCookie)
+      .set('Origin', ATTACKER)
+      .type('form')
+      .send({ email: 'outsider@attacker.example', name: 'Outsider', level: 'master', hourlyRate: '1' });
     expect(invite.status).toBe(403);
-    const sameSiteForm = await t.http().post('/api/invitations').set('Cookie', ownerCookie).type('form').send({ email: 'outsider@attacker.example', name: 'Outsider', level: 'master', hourlyRate: '1' });
+    const sameSiteForm = await t
+      .http()
+      .post('/api/invitations')
+      .set('Cookie', ownerCookie)
+      .type('form')
+      .send({ email: 'outsider@attacker.example', name: 'Outsider', level: 'master', hourlyRate: '1' });
     expect(sameSiteForm.status).toBe(415);
     expect(await t.db.selectFrom('users').select('id').where('email', '=', 'outsider@attacker.example').execute()).toEqual([]);
 
-    const cancel = await t.http().post(`/api/bookings/${booking.id}/cancel`).set('Cookie', player).set('Content-Type', 'text/plain').send('{}');
+    const cancel = await t
+      .http()
+      .post(`/api/bookings/${booking.id}/cancel`)
+      .set('Cookie', player)
+      .set('Content-Type', 'text/plain')
+      .send('{}');
     expect(cancel.status).toBe(415);
-    expect((await t.db.selectFrom('bookings').select('state').where('id', '=', booking.id).executeTakeFirstOrThrow()).state).toBe('requested');
+    expect((await t.db.selectFrom('bookings').select('state').where('id', '=', booking.id).executeTakeFirstOrThrow()).state).toBe(
+      'requested',
+    );
 
     // The same cancel, as the storefront sends it, works: the refusals above were the defence, not a broken route.
     const real = await t.http().post(`/api/bookings/${booking.id}/cancel`).set('Cookie', player).set('Origin', SHOP).send({});
     expect(real.status).toBe(200);
-    expect((await t.db.selectFrom('bookings').select('state').where('id', '=', booking.id).executeTakeFirstOrThrow()).state).toBe('cancelled');
+    expect((await t.db.selectFrom('bookings').select('state').where('id', '=', booking.id).executeTakeFirstOrThrow()).state).toBe(
+      'cancelled',
+    );
   });
 });

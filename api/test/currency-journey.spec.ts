@@ -18,7 +18,14 @@ import { eventually, payOnHostedPage, startPaymentHarness, type PaymentHarness }
  * high end 548.25 (548 in whole-unit currencies, whose 1.25 plug line rounds to 1), a 33 % deposit of
  * 180.9225 before rounding.
  */
-const onePedal = { surfaceId: 'slate-46', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 1, functions: [], level: 'apprentice' };
+const onePedal = {
+  surfaceId: 'slate-46',
+  caseId: 'shell-hard',
+  routing: { mode: 'serial' },
+  pedalCount: 1,
+  functions: [],
+  level: 'apprentice',
+};
 
 const cases: Array<{ currency: string; deposit: string; charged: number; hostedPage: string }> = [
   // 180.9225 → 180.92; × 10^2.
@@ -48,7 +55,10 @@ describe('a quote priced and paid in six currencies, checked against ISO 4217 an
 
   it.each(cases)('$currency: deposit $deposit is charged as $charged', async ({ currency, deposit, charged, hostedPage }) => {
     const book = { ...demoPriceBook, currency, depositPolicy: { ...demoPriceBook.depositPolicy, percent: '33', minimum: '10' } };
-    await owner.post('/api/price-book').send({ book, notes: `Prices in ${currency}` }).expect(201);
+    await owner
+      .post('/api/price-book')
+      .send({ book, notes: `Prices in ${currency}` })
+      .expect(201);
 
     const estimate = (await player.post('/api/estimates').send(onePedal).expect(200)).body;
     expect(estimate).toMatchObject({ currency, deposit });

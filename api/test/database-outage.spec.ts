@@ -19,11 +19,14 @@ const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
 
 /** Every "METHOD /path" Express has, as the authorization matrix reads them. */
 function registeredRoutes(t: TestApp): Array<[string, string]> {
-  const express = t.app.getHttpAdapter().getInstance() as Express & { router: { stack: Array<{ route?: { path: string; methods: Record<string, boolean> } }> } };
+  const express = t.app.getHttpAdapter().getInstance() as Express & {
+    router: { stack: Array<{ route?: { path: string; methods: Record<string, boolean> } }> };
+  };
   const routes: Array<[string, string]> = [];
   for (const layer of express.router.stack) {
     if (!layer.route) continue;
-    for (const [method, on] of Object.entries(layer.route.methods)) if (on && method !== '_all') routes.push([method.toUpperCase(), layer.route.path]);
+    for (const [method, on] of Object.entries(layer.route.methods))
+      if (on && method !== '_all') routes.push([method.toUpperCase(), layer.route.path]);
   }
   return routes;
 }
@@ -84,10 +87,15 @@ describe('while the database is down', () => {
     expect(routes.length).toBeGreaterThan(40);
     for (const [method, pattern] of routes) {
       const url = pattern.replace(/:[A-Za-z]+/g, UNKNOWN_ID);
-      for (const [who, cookie] of [['owner', ownerCookie], ['player', playerCookie]] as const) {
+      for (const [who, cookie] of [
+        ['owner', ownerCookie],
+        ['player', playerCookie],
+      ] as const) {
         const res = await request(method, url, cookie);
         if (res.status !== 503 || res.body?.message !== shopUnavailableMessage || res.headers['retry-after'] !== '30') {
-          problems.push(`${method} ${pattern} as ${who}: ${res.status} ${JSON.stringify(res.body?.message)} retry-after=${res.headers['retry-after']}`);
+          problems.push(
+            `${method} ${pattern} as ${who}: ${res.status} ${JSON.stringify(res.body?.message)} retry-after=${res.headers['retry-after']}`,
+          );
         }
       }
     }
@@ -96,7 +104,10 @@ describe('while the database is down', () => {
     // Not signed in: the open routes that read the shop's data, sign-in and sign-up included.
     const anonymous = {
       'sign-in': t.http().post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'demo-pass-2026' }),
-      'sign-up': t.http().post('/api/auth/sign-up').send({ email: 'new.player@mail.example', password: 'a-long-password', name: 'New Player' }),
+      'sign-up': t
+        .http()
+        .post('/api/auth/sign-up')
+        .send({ email: 'new.player@mail.example', password: 'a-long-password', name: 'New Player' }),
       'password reset': t.http().post('/api/auth/password-reset').send({ email: 'player@mail.example' }),
       catalog: t.http().get('/api/catalog'),
       shop: t.http().get('/api/shop'),

@@ -45,20 +45,29 @@ describe('error codes', () => {
       expect(body.details?.length).toBeGreaterThan(0);
       expect(body.message).toBe(body.details!.join('; '));
     }
-    expect(signUp.details).toEqual(expect.arrayContaining(['Enter an e-mail address, like name@example.com', 'Choose a password of at least 10 characters']));
+    expect(signUp.details).toEqual(
+      expect.arrayContaining(['Enter an e-mail address, like name@example.com', 'Choose a password of at least 10 characters']),
+    );
     // Beside the words, each problem's field for programs.
     expect(signUp.issues?.map((i) => i.path)).toEqual(expect.arrayContaining(['email', 'password']));
   });
 
   it('names who may not do what', async () => {
     expectCode(await t.http().get('/api/bookings'), 401, 'not_signed_in');
-    expectCode(await t.http().post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'wrong-pass-2026' }), 401, 'invalid_credentials');
+    expectCode(
+      await t.http().post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'wrong-pass-2026' }),
+      401,
+      'invalid_credentials',
+    );
     const player = await signIn(t.app, 'player@mail.example');
     expectCode(await player.get('/api/bench'), 403, 'role_not_allowed');
     expectCode(await t.http().post('/api/estimates').set('Origin', 'https://elsewhere.example').send({}), 403, 'cross_site_request');
     // The cookie of a session that was signed out (the agent's jar would drop it; a copy keeps it).
     const signedIn = await t.http().post('/api/auth/sign-in').send({ email: 'player@mail.example', password: DEMO_PASSWORD });
-    const cookie = ([] as string[]).concat(signedIn.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
+    const cookie = ([] as string[])
+      .concat(signedIn.headers['set-cookie'] ?? [])
+      .map((c) => c.split(';')[0])
+      .join('; ');
     expect((await t.http().post('/api/auth/sign-out').set('Cookie', cookie).send({})).status).toBeLessThan(300);
     expectCode(await t.http().get('/api/bookings').set('Cookie', cookie), 401, 'session_ended');
   });
@@ -74,15 +83,36 @@ describe('error codes', () => {
   });
 
   it('names a taken address and a spent link', async () => {
-    expectCode(await t.http().post('/api/auth/sign-up').send({ email: 'player@mail.example', password: 'a-long-test-pass', name: 'Second Player' }), 409, 'email_taken');
-    expectCode(await t.http().post('/api/auth/password-reset/confirm').send({ token: 'x'.repeat(43), password: 'a-long-test-pass' }), 400, 'link_invalid');
+    expectCode(
+      await t.http().post('/api/auth/sign-up').send({ email: 'player@mail.example', password: 'a-long-test-pass', name: 'Second Player' }),
+      409,
+      'email_taken',
+    );
+    expectCode(
+      await t
+        .http()
+        .post('/api/auth/password-reset/confirm')
+        .send({ token: 'x'.repeat(43), password: 'a-long-test-pass' }),
+      400,
+      'link_invalid',
+    );
   });
 
   it('builds the body from any exception response, and never lets an unlisted code out', () => {
     const req = { id: 17 } as unknown as Request;
-    expect(errorBody(409, { code: 'bench_time_taken', message: 'Taken.' }, req)).toEqual({ statusCode: 409, code: 'bench_time_taken', message: 'Taken.', requestId: '17' });
+    expect(errorBody(409, { code: 'bench_time_taken', message: 'Taken.' }, req)).toEqual({
+      statusCode: 409,
+      code: 'bench_time_taken',
+      message: 'Taken.',
+      requestId: '17',
+    });
     expect(errorBody(409, { code: 'made_up', message: 'Taken.' })).toEqual({ statusCode: 409, code: 'conflict', message: 'Taken.' });
-    expect(errorBody(400, ['a: one', 'b: two'])).toEqual({ statusCode: 400, code: 'bad_request', message: 'a: one; b: two', details: ['a: one', 'b: two'] });
+    expect(errorBody(400, ['a: one', 'b: two'])).toEqual({
+      statusCode: 400,
+      code: 'bad_request',
+      message: 'a: one; b: two',
+      details: ['a: one', 'b: two'],
+    });
     expect(errorBody(500, undefined).code).toBe('internal_error');
     // Every listed code says what it means.
     for (const code of errorCodes) expect(ERROR_CODES[code].length).toBeGreaterThan(20);

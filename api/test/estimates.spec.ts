@@ -12,18 +12,21 @@ describe('POST /api/estimates', () => {
     await t?.close();
   });
 
-  it.each(expectedLaborRanges)('prices the $mode reference board at $level rates with the engine’s numbers, inside the expected range (common practice, no published source)', async ({ mode, level, low, high }) => {
-    const config = referenceBoard(mode, level);
-    const res = await t.http().post('/api/estimates').send(config).expect(200);
-    // The seeded book is the demo book, version 1: the HTTP answer is the engine's answer.
-    const expected = estimateRig(config, demoPriceBook, { version: 1 });
-    expect(res.body).toEqual(JSON.parse(JSON.stringify(expected)));
-    // Stated figures (common practice, no published source) widened by 5% at each end.
-    expect(Number(res.body.laborLow)).toBeGreaterThanOrEqual(low * 0.95);
-    expect(Number(res.body.laborHigh)).toBeLessThanOrEqual(high * 1.05);
-    const mid = (Number(res.body.laborLow) + Number(res.body.laborHigh)) / 2;
-    expect(Math.abs(mid - (low + high) / 2)).toBeLessThanOrEqual(((low + high) / 2) * 0.1);
-  });
+  it.each(expectedLaborRanges)(
+    'prices the $mode reference board at $level rates with the engine’s numbers, inside the expected range (common practice, no published source)',
+    async ({ mode, level, low, high }) => {
+      const config = referenceBoard(mode, level);
+      const res = await t.http().post('/api/estimates').send(config).expect(200);
+      // The seeded book is the demo book, version 1: the HTTP answer is the engine's answer.
+      const expected = estimateRig(config, demoPriceBook, { version: 1 });
+      expect(res.body).toEqual(JSON.parse(JSON.stringify(expected)));
+      // Stated figures (common practice, no published source) widened by 5% at each end.
+      expect(Number(res.body.laborLow)).toBeGreaterThanOrEqual(low * 0.95);
+      expect(Number(res.body.laborHigh)).toBeLessThanOrEqual(high * 1.05);
+      const mid = (Number(res.body.laborLow) + Number(res.body.laborHigh)) / 2;
+      expect(Math.abs(mid - (low + high) / 2)).toBeLessThanOrEqual(((low + high) / 2) * 0.1);
+    },
+  );
 
   it('answers a quick pedal count on a serial board', async () => {
     const res = await t
@@ -45,12 +48,23 @@ describe('POST /api/estimates', () => {
       ...referenceBoard('serial', 'journeyman'),
       surfaceId: 'slate-46',
       pedals: referenceBoard('serial', 'journeyman').pedals!.map((p) => ({ ...p, currentMa: 90 })),
-      powerSupply: { outputs: [{ voltage: 9, currentMa: 500, isolated: false }, { voltage: 9, currentMa: 500, isolated: false }] },
+      powerSupply: {
+        outputs: [
+          { voltage: 9, currentMa: 500, isolated: false },
+          { voltage: 9, currentMa: 500, isolated: false },
+        ],
+      },
     };
     const res = await t.http().post('/api/estimates').send(config).expect(200);
     const { powerBudget, boardFit, cableSchedule } = res.body.checks;
     // 13 pedals × 90 mA = 1170 mA against 2 × 500 mA: 170 mA short, 1.53 W at 9 V (P = V × I).
-    expect(powerBudget).toMatchObject({ status: 'problem', totalDrawMa: 1170, totalRatingMa: 1000, totalHeadroomMa: -170, totalHeadroomW: -1.53 });
+    expect(powerBudget).toMatchObject({
+      status: 'problem',
+      totalDrawMa: 1170,
+      totalRatingMa: 1000,
+      totalHeadroomMa: -170,
+      totalHeadroomW: -1.53,
+    });
     expect(boardFit).toMatchObject({ status: 'problem', areaFits: false, smallestFittingSurfaceId: 'ridge-81' });
     expect(cableSchedule).toMatchObject({ patchCount: 12, plugCount: 24 });
     // The digital delay takes an output of its own and three analog 90 mA pedals share the other
@@ -84,14 +98,39 @@ describe('POST /api/estimates', () => {
     expect(plan.status).toBe('ok');
   });
 
-  const base = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' };
+  const base = {
+    surfaceId: 'slate-61',
+    caseId: 'shell-hard',
+    routing: { mode: 'serial' },
+    pedalCount: 4,
+    functions: [],
+    level: 'journeyman',
+  };
   const bad: Array<[string, unknown, string]> = [
     ['an unknown surface', { ...base, surfaceId: 'plank-9000' }, 'surfaceId'],
     ['an unknown case', { ...base, caseId: 'shoebox' }, 'caseId'],
     ['an unknown function', { ...base, functions: ['laser_show'] }, 'functions[0]'],
     ['a switcher on a serial board', { ...base, routing: { mode: 'serial', switcher: { currentMa: 300 } } }, 'routing.switcher'],
-    ['a negative switcher draw', { ...base, pedalCount: undefined, pedals: [{ name: 'fuzz', powered: true, inLoop: true }], routing: { mode: 'switcher', switcher: { currentMa: -5 } } }, 'routing.switcher.currentMa'],
-    ['a pedal pinned to an output the supply lacks', { ...base, pedalCount: undefined, pedals: [{ name: 'fuzz', powered: true, inLoop: false, powerOutput: 2 }], powerSupply: { outputs: [{ voltage: 9, currentMa: 100, isolated: true }] } }, 'pedals[0].powerOutput'],
+    [
+      'a negative switcher draw',
+      {
+        ...base,
+        pedalCount: undefined,
+        pedals: [{ name: 'fuzz', powered: true, inLoop: true }],
+        routing: { mode: 'switcher', switcher: { currentMa: -5 } },
+      },
+      'routing.switcher.currentMa',
+    ],
+    [
+      'a pedal pinned to an output the supply lacks',
+      {
+        ...base,
+        pedalCount: undefined,
+        pedals: [{ name: 'fuzz', powered: true, inLoop: false, powerOutput: 2 }],
+        powerSupply: { outputs: [{ voltage: 9, currentMa: 100, isolated: true }] },
+      },
+      'pedals[0].powerOutput',
+    ],
     ['a negative pedal count', { ...base, pedalCount: -3 }, 'pedalCount'],
     ['an absurd pedal count', { ...base, pedalCount: 100000 }, 'pedalCount'],
     ['a fractional pedal count', { ...base, pedalCount: 2.5 }, 'pedalCount'],
@@ -104,10 +143,17 @@ describe('POST /api/estimates', () => {
     ['an unknown level', { ...base, level: 'wizard' }, 'level'],
     ['an unknown routing', { ...base, routing: { mode: 'wireless' } }, 'routing.mode'],
     ['no pedals at all', { ...base, pedalCount: undefined }, 'pedals'],
-    ['a negative current draw', { ...base, pedalCount: undefined, pedals: [{ name: 'fuzz', powered: true, inLoop: false, currentMa: -5 }] }, 'pedals[0].currentMa'],
+    [
+      'a negative current draw',
+      { ...base, pedalCount: undefined, pedals: [{ name: 'fuzz', powered: true, inLoop: false, currentMa: -5 }] },
+      'pedals[0].currentMa',
+    ],
   ];
   it.each(bad)('answers 400 naming the field for %s', async (_what, body, field) => {
-    const res = await t.http().post('/api/estimates').send(body as object);
+    const res = await t
+      .http()
+      .post('/api/estimates')
+      .send(body as object);
     expect(res.status).toBe(400);
     // The words are for a person; the field's path travels beside them for programs.
     const issues: Array<{ path: string; message: string }> = res.body.issues;
@@ -125,7 +171,10 @@ describe('POST /api/estimates', () => {
     ['an empty object', '{}'],
     ['deeply wrong types', '{"surfaceId":{"$gt":""},"caseId":[],"routing":"serial","pedals":"many","functions":{},"level":7}'],
     ['a prototype key', '{"__proto__":{"polluted":true},"surfaceId":"slate-61"}'],
-    ['huge numbers', '{"surfaceId":"slate-61","caseId":"shell-hard","routing":{"mode":"serial"},"pedals":[{"name":"x","powered":true,"inLoop":false,"currentMa":1e308,"widthMm":1e400}],"functions":[],"level":"master"}'],
+    [
+      'huge numbers',
+      '{"surfaceId":"slate-61","caseId":"shell-hard","routing":{"mode":"serial"},"pedals":[{"name":"x","powered":true,"inLoop":false,"currentMa":1e308,"widthMm":1e400}],"functions":[],"level":"master"}',
+    ],
   ];
   it.each(garbage)('answers 400, never 500, to %s', async (_what, raw) => {
     const res = await t.http().post('/api/estimates').set('content-type', 'application/json').send(raw);

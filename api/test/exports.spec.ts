@@ -20,11 +20,14 @@ let owner: Awaited<ReturnType<typeof signIn>>;
 type Row = Record<string, string>;
 
 async function csv(path: string): Promise<{ rows: Row[]; raw: Buffer; headers: Record<string, string> }> {
-  const res = await owner.get(path).buffer(true).parse((r, done) => {
-    const chunks: Buffer[] = [];
-    r.on('data', (c: Buffer) => chunks.push(c));
-    r.on('end', () => done(null, Buffer.concat(chunks)));
-  });
+  const res = await owner
+    .get(path)
+    .buffer(true)
+    .parse((r, done) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => done(null, Buffer.concat(chunks)));
+    });
   expect(res.status, String(res.body)).toBe(200);
   const raw = res.body as Buffer;
   const rows = parse(raw, { bom: true, columns: true, skip_empty_lines: true }) as Row[];
@@ -43,12 +46,28 @@ beforeAll(async () => {
   await t.db.updateTable('users').set({ name: 'Zoë Ñandú-Łukasz' }).where('email', '=', 'player@mail.example').execute();
   playerBooking = await createBooking(t.db, { laborHours: '6.50', deposit: '150.00' });
   secondBooking = await createBooking(t.db, { laborHours: '3.00', deposit: '80.00' });
-  await t.db.updateTable('bookings').set({ created_at: new Date('2026-11-10T15:00:00Z') }).where('id', '=', playerBooking.id).execute();
-  await t.db.updateTable('bookings').set({ created_at: new Date('2026-12-01T03:00:00Z') }).where('id', '=', secondBooking.id).execute();
+  await t.db
+    .updateTable('bookings')
+    .set({ created_at: new Date('2026-11-10T15:00:00Z') })
+    .where('id', '=', playerBooking.id)
+    .execute();
+  await t.db
+    .updateTable('bookings')
+    .set({ created_at: new Date('2026-12-01T03:00:00Z') })
+    .where('id', '=', secondBooking.id)
+    .execute();
   // Deposits: the first paid 2026-11-10 10:00 in Chicago; the second at 05:30 UTC on 15 Nov, which is
   // still 14 Nov (23:30) on the shop's clock.
-  await t.db.updateTable('payments').set({ paid_at: new Date('2026-11-10T16:00:00Z') }).where('booking_id', '=', playerBooking.id).execute();
-  await t.db.updateTable('payments').set({ paid_at: new Date('2026-11-15T05:30:00Z') }).where('booking_id', '=', secondBooking.id).execute();
+  await t.db
+    .updateTable('payments')
+    .set({ paid_at: new Date('2026-11-10T16:00:00Z') })
+    .where('booking_id', '=', playerBooking.id)
+    .execute();
+  await t.db
+    .updateTable('payments')
+    .set({ paid_at: new Date('2026-11-15T05:30:00Z') })
+    .where('booking_id', '=', secondBooking.id)
+    .execute();
   // A firm quote and a balance for the first, and the second's deposit refunded on 2 Dec.
   await t.db
     .insertInto('quotes')
@@ -71,7 +90,16 @@ beforeAll(async () => {
     .execute();
   await t.db
     .insertInto('payments')
-    .values({ booking_id: playerBooking.id, kind: 'balance', amount: '600.00', amount_minor: 60000, currency: 'USD', status: 'paid', paid_at: new Date('2026-12-03T18:45:10Z'), method: 'cash' })
+    .values({
+      booking_id: playerBooking.id,
+      kind: 'balance',
+      amount: '600.00',
+      amount_minor: 60000,
+      currency: 'USD',
+      status: 'paid',
+      paid_at: new Date('2026-12-03T18:45:10Z'),
+      method: 'cash',
+    })
     .execute();
   await t.db
     .updateTable('payments')
@@ -83,9 +111,30 @@ beforeAll(async () => {
   await t.db
     .insertInto('time_entries')
     .values([
-      { booking_id: playerBooking.id, builder_id: master, worked_on: '2026-12-01', hours: '2.50', note: 'Loom and patch cables', created_by: ownerUser.id },
-      { booking_id: playerBooking.id, builder_id: master, worked_on: '2026-12-02', hours: '3.25', note: '=SUM(A1:A9) checked twice', created_by: ownerUser.id },
-      { booking_id: secondBooking.id, builder_id: master, worked_on: '2026-12-05', hours: '1.00', note: 'Power leads', created_by: ownerUser.id },
+      {
+        booking_id: playerBooking.id,
+        builder_id: master,
+        worked_on: '2026-12-01',
+        hours: '2.50',
+        note: 'Loom and patch cables',
+        created_by: ownerUser.id,
+      },
+      {
+        booking_id: playerBooking.id,
+        builder_id: master,
+        worked_on: '2026-12-02',
+        hours: '3.25',
+        note: '=SUM(A1:A9) checked twice',
+        created_by: ownerUser.id,
+      },
+      {
+        booking_id: secondBooking.id,
+        builder_id: master,
+        worked_on: '2026-12-05',
+        hours: '1.00',
+        note: 'Power leads',
+        created_by: ownerUser.id,
+      },
     ])
     .execute();
 }, 120_000);
@@ -112,14 +161,25 @@ describe('GET /api/exports/payments.csv', () => {
     const byKind = Object.fromEntries(sums.map((s) => [s.kind, s]));
     expect(total(rows.filter((r) => r.entry === 'payment' && r.payment_kind === 'deposit').map((r) => r.amount))).toBe(byKind.deposit.paid);
     expect(total(rows.filter((r) => r.entry === 'payment' && r.payment_kind === 'balance').map((r) => r.amount))).toBe(byKind.balance.paid);
-    expect(total(rows.filter((r) => r.entry === 'refund').map((r) => r.amount))).toBe(new Decimal(byKind.deposit.refunded).neg().toFixed(2));
+    expect(total(rows.filter((r) => r.entry === 'refund').map((r) => r.amount))).toBe(
+      new Decimal(byKind.deposit.refunded).neg().toFixed(2),
+    );
     expect(total(rows.map((r) => r.amount))).toBe('750.00'); // 150 + 80 + 600 − 80
 
     // 05:30 UTC on 15 Nov is 23:30 on 14 Nov in Chicago (CST, UTC−6).
     const late = rows.find((r) => r.reference === secondBooking.reference && r.entry === 'payment')!;
     expect(late.at).toBe('2026-11-14T23:30:00-06:00');
-    expect(rows.find((r) => r.entry === 'refund')).toMatchObject({ at: '2026-12-02T14:00:00-06:00', amount: '-80.00', provider_refund: 're_test_1' });
-    expect(rows.find((r) => r.payment_kind === 'balance')).toMatchObject({ method: 'cash', amount: '600.00', currency: 'USD', customer_name: 'Zoë Ñandú-Łukasz' });
+    expect(rows.find((r) => r.entry === 'refund')).toMatchObject({
+      at: '2026-12-02T14:00:00-06:00',
+      amount: '-80.00',
+      provider_refund: 're_test_1',
+    });
+    expect(rows.find((r) => r.payment_kind === 'balance')).toMatchObject({
+      method: 'cash',
+      amount: '600.00',
+      currency: 'USD',
+      customer_name: 'Zoë Ñandú-Łukasz',
+    });
   });
 
   it('draws the range on the shop’s calendar days, both ends included', async () => {
@@ -153,7 +213,14 @@ describe('GET /api/exports/bookings.csv', () => {
       quoted_hours: '6.50',
       recorded_hours: '5.75',
     });
-    expect(rows[1]).toMatchObject({ requested_at: '2026-11-30T21:00:00-06:00', firm_total: '', paid: '80.00', refunded: '80.00', net_paid: '0.00', balance_due: '' });
+    expect(rows[1]).toMatchObject({
+      requested_at: '2026-11-30T21:00:00-06:00',
+      firm_total: '',
+      paid: '80.00',
+      refunded: '80.00',
+      net_paid: '0.00',
+      balance_due: '',
+    });
     const { rows: db } = await sql<{ paid: string; refunded: string }>`
       select sum(amount)::text as paid, coalesce(sum(amount) filter (where status = 'refunded'), 0)::text as refunded
       from payments where status in ('paid', 'refunded')`.execute(t.db);
@@ -165,10 +232,17 @@ describe('GET /api/exports/bookings.csv', () => {
 describe('GET /api/exports/hours.csv', () => {
   it('sums to the hour entries of the range, and writes a typed formula as text', async () => {
     const { rows } = await csv('/api/exports/hours.csv?from=2026-12-01&to=2026-12-02');
-    const { rows: db } = await sql<{ hours: string }>`select sum(hours)::text as hours from time_entries where worked_on between '2026-12-01' and '2026-12-02'`.execute(t.db);
+    const { rows: db } = await sql<{
+      hours: string;
+    }>`select sum(hours)::text as hours from time_entries where worked_on between '2026-12-01' and '2026-12-02'`.execute(t.db);
     expect(total(rows.map((r) => r.hours))).toBe(new Decimal(db[0].hours).toFixed(2));
     expect(rows.map((r) => r.worked_on)).toEqual(['2026-12-01', '2026-12-02']);
-    expect(rows[0]).toMatchObject({ reference: playerBooking.reference, builder_level: 'master', hours: '2.50', recorded_by: expect.any(String) });
+    expect(rows[0]).toMatchObject({
+      reference: playerBooking.reference,
+      builder_level: 'master',
+      hours: '2.50',
+      recorded_by: expect.any(String),
+    });
     // OWASP "CSV Injection": a cell opening with = is written with a leading apostrophe.
     expect(rows[1].note).toBe("'=SUM(A1:A9) checked twice");
   });

@@ -85,7 +85,21 @@ const hostileValues: unknown[] = [
   '00000000-0000-0000-0000-000000000000',
   JSON.parse('['.repeat(40) + ']'.repeat(40)),
 ];
-const hostileText = ['', 'NaN', '1e-308', '-1', '0', '99999999999999999999', 'x'.repeat(3000), '\u0000', '%', 'true', '2026-02-30', "'", 'null'];
+const hostileText = [
+  '',
+  'NaN',
+  '1e-308',
+  '-1',
+  '0',
+  '99999999999999999999',
+  'x'.repeat(3000),
+  '\u0000',
+  '%',
+  'true',
+  '2026-02-30',
+  "'",
+  'null',
+];
 
 function valueFor(schema: Schema | undefined, depth = 0): fc.Arbitrary<unknown> {
   const hostile = fc.constantFrom(...hostileValues);
@@ -122,7 +136,9 @@ function valueFor(schema: Schema | undefined, depth = 0): fc.Arbitrary<unknown> 
       default:
         typed = fc.anything({ maxDepth: 2 });
     }
-  return schema.nullable ? fc.oneof({ arbitrary: typed, weight: 4 }, fc.constant(null), { arbitrary: hostile, weight: 1 }) : fc.oneof({ arbitrary: typed, weight: 4 }, { arbitrary: hostile, weight: 1 });
+  return schema.nullable
+    ? fc.oneof({ arbitrary: typed, weight: 4 }, fc.constant(null), { arbitrary: hostile, weight: 1 })
+    : fc.oneof({ arbitrary: typed, weight: 4 }, { arbitrary: hostile, weight: 1 });
 }
 
 function safeStringMatching(pattern: string): fc.Arbitrary<string> {
@@ -158,24 +174,41 @@ function sampleFor(op: Operation, ids: string[]): fc.Arbitrary<Sample> {
   const pathParams = op.parameters.filter((p) => p.in === 'path');
   const queryParams = op.parameters.filter((p) => p.in === 'query');
   const path = fc.record(
-    Object.fromEntries(pathParams.map((p) => [p.name, fc.oneof({ arbitrary: fc.constantFrom(...ids), weight: 4 }, fc.uuid(), fc.constantFrom(...hostileText.filter(Boolean)))])),
+    Object.fromEntries(
+      pathParams.map((p) => [
+        p.name,
+        fc.oneof({ arbitrary: fc.constantFrom(...ids), weight: 4 }, fc.uuid(), fc.constantFrom(...hostileText.filter(Boolean))),
+      ]),
+    ),
   ) as fc.Arbitrary<Record<string, string>>;
   const query = fc.record(Object.fromEntries(queryParams.map((p) => [p.name, textFor(p.schema, ids)])), {
     requiredKeys: queryParams.filter((p) => p.required).map((p) => p.name),
   }) as fc.Arbitrary<Record<string, string>>;
-  const body = op.body ? fc.oneof({ arbitrary: valueFor(op.body.schema), weight: 6 }, fc.constantFrom<unknown>(null, 'text', 7, [], JSON.parse('['.repeat(3000) + ']'.repeat(3000)))) : fc.constant(undefined);
+  const body = op.body
+    ? fc.oneof(
+        { arbitrary: valueFor(op.body.schema), weight: 6 },
+        fc.constantFrom<unknown>(null, 'text', 7, [], JSON.parse('['.repeat(3000) + ']'.repeat(3000))),
+      )
+    : fc.constant(undefined);
   return fc.record({ path, query, body });
 }
 
 /** Reads the operations of the served OpenAPI 3.0 document. */
-function operationsOf(document: { paths: Record<string, Record<string, { parameters?: Parameter[]; requestBody?: { content: Record<string, { schema: Schema }> } }>> }): Operation[] {
+function operationsOf(document: {
+  paths: Record<string, Record<string, { parameters?: Parameter[]; requestBody?: { content: Record<string, { schema: Schema }> } }>>;
+}): Operation[] {
   const out: Operation[] = [];
   for (const [path, item] of Object.entries(document.paths)) {
     for (const [method, op] of Object.entries(item)) {
       if (!['get', 'post', 'put', 'patch', 'delete'].includes(method)) continue;
       const content = op.requestBody?.content ?? {};
       const contentType = Object.keys(content)[0];
-      out.push({ method, path, parameters: op.parameters ?? [], body: contentType ? { contentType, schema: content[contentType].schema } : undefined });
+      out.push({
+        method,
+        path,
+        parameters: op.parameters ?? [],
+        body: contentType ? { contentType, schema: content[contentType].schema } : undefined,
+      });
     }
   }
   return out;
@@ -192,7 +225,8 @@ function urlOf(op: Operation, sample: Sample): string {
 const refusals = new Map<string, string>();
 function keepRefusal(body: unknown, request: string): void {
   const raw = body && typeof body === 'object' && 'message' in body ? (body as { message: unknown }).message : undefined;
-  for (const message of ([] as unknown[]).concat(raw ?? [])) if (typeof message === 'string' && !refusals.has(message)) refusals.set(message, request);
+  for (const message of ([] as unknown[]).concat(raw ?? []))
+    if (typeof message === 'string' && !refusals.has(message)) refusals.set(message, request);
 }
 
 const callers = [
@@ -217,7 +251,16 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
     const booking = (
       await playerAgent
         .post('/api/bookings')
-        .send({ configuration: { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 8, functions: [], level: 'journeyman' } })
+        .send({
+          configuration: {
+            surfaceId: 'slate-61',
+            caseId: 'shell-hard',
+            routing: { mode: 'serial' },
+            pedalCount: 8,
+            functions: [],
+            level: 'journeyman',
+          },
+        })
         .expect(201)
     ).body as { id: string };
     const player = await t.db.selectFrom('users').select('id').where('email', '=', 'player@mail.example').executeTakeFirstOrThrow();
@@ -228,56 +271,77 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
 
   const signedInCookie = async (email: string) => {
     const res = await request(t.app.getHttpServer()).post('/api/auth/sign-in').send({ email, password: DEMO_PASSWORD }).expect(200);
-    return ([] as string[]).concat(res.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
+    return ([] as string[])
+      .concat(res.headers['set-cookie'] ?? [])
+      .map((c) => c.split(';')[0])
+      .join('; ');
   };
 
-  it.each(callers)('answers no request from $name with a 5xx', async ({ name, email }) => {
-    expect(operations.length).toBeGreaterThan(40);
-    const failures: string[] = [];
-    let requests = 0;
-    const started = Date.now();
-    let cookie = email ? await signedInCookie(email) : undefined;
-    for (const [index, op] of operations.entries()) {
-      const property = fc.asyncProperty(sampleFor(op, ids), async (sample) => {
-        requests += 1;
-        const url = urlOf(op, sample);
-        let call = (request(t.app.getHttpServer()) as unknown as Record<string, (u: string) => request.Test>)[op.method](url);
-        if (cookie) call = call.set('Cookie', cookie);
-        if (op.body?.contentType === 'multipart/form-data') {
-          const fields = (sample.body && typeof sample.body === 'object' ? sample.body : {}) as Record<string, unknown>;
-          for (const [key, value] of Object.entries(fields)) if (key !== 'file' && typeof value === 'string') call = call.field(key, value);
-          call = call.attach('file', Buffer.from('not really an image'), 'photo.jpg');
-        } else if (sample.body !== undefined) {
-          call = call.set('Content-Type', 'application/json').send(JSON.stringify(sample.body));
+  it.each(callers)(
+    'answers no request from $name with a 5xx',
+    async ({ name, email }) => {
+      expect(operations.length).toBeGreaterThan(40);
+      const failures: string[] = [];
+      let requests = 0;
+      const started = Date.now();
+      let cookie = email ? await signedInCookie(email) : undefined;
+      for (const [index, op] of operations.entries()) {
+        const property = fc.asyncProperty(sampleFor(op, ids), async (sample) => {
+          requests += 1;
+          const url = urlOf(op, sample);
+          let call = (request(t.app.getHttpServer()) as unknown as Record<string, (u: string) => request.Test>)[op.method](url);
+          if (cookie) call = call.set('Cookie', cookie);
+          if (op.body?.contentType === 'multipart/form-data') {
+            const fields = (sample.body && typeof sample.body === 'object' ? sample.body : {}) as Record<string, unknown>;
+            for (const [key, value] of Object.entries(fields))
+              if (key !== 'file' && typeof value === 'string') call = call.field(key, value);
+            call = call.attach('file', Buffer.from('not really an image'), 'photo.jpg');
+          } else if (sample.body !== undefined) {
+            call = call.set('Content-Type', 'application/json').send(JSON.stringify(sample.body));
+          }
+          const res = await call;
+          if (res.status >= 400 && res.status < 500) keepRefusal(res.body, `${op.method.toUpperCase()} ${op.path} as ${name}`);
+          if (res.status >= 500) {
+            throw new Error(
+              `${op.method.toUpperCase()} ${url} as ${name} answered ${res.status} ${JSON.stringify(res.body)}\n  body sent: ${JSON.stringify(sample.body)?.slice(0, 500)}`,
+            );
+          }
+          // Every refusal is the one error body, with a code from the shared list.
+          if (res.status >= 400 && !apiErrorBodySchema.safeParse(res.body).success) {
+            throw new Error(
+              `${op.method.toUpperCase()} ${url} as ${name} answered ${res.status} without the error body: ${JSON.stringify(res.body)}`,
+            );
+          }
+        });
+        try {
+          // Seeds differ per operation (and caller) but are fixed, so a run repeats exactly.
+          await fc.assert(property, {
+            seed: SEED + index * 7919 + name.length,
+            numRuns: RUNS,
+            endOnFailure: true,
+            includeErrorInReport: true,
+          });
+        } catch (error) {
+          failures.push(`${op.method.toUpperCase()} ${op.path}: ${error instanceof Error ? error.message : String(error)}`);
         }
-        const res = await call;
-        if (res.status >= 400 && res.status < 500) keepRefusal(res.body, `${op.method.toUpperCase()} ${op.path} as ${name}`);
-        if (res.status >= 500) {
-          throw new Error(`${op.method.toUpperCase()} ${url} as ${name} answered ${res.status} ${JSON.stringify(res.body)}\n  body sent: ${JSON.stringify(sample.body)?.slice(0, 500)}`);
-        }
-        // Every refusal is the one error body, with a code from the shared list.
-        if (res.status >= 400 && !apiErrorBodySchema.safeParse(res.body).success) {
-          throw new Error(`${op.method.toUpperCase()} ${url} as ${name} answered ${res.status} without the error body: ${JSON.stringify(res.body)}`);
-        }
-      });
-      try {
-        // Seeds differ per operation (and caller) but are fixed, so a run repeats exactly.
-        await fc.assert(property, { seed: SEED + index * 7919 + name.length, numRuns: RUNS, endOnFailure: true, includeErrorInReport: true });
-      } catch (error) {
-        failures.push(`${op.method.toUpperCase()} ${op.path}: ${error instanceof Error ? error.message : String(error)}`);
+        // Signing in is slow on purpose (scrypt), so sign in again only after a route that may have
+        // ended or replaced the session: sign-out, sign-out-everywhere, password and invitation links.
+        if (email && /auth|sessions|invitations/.test(op.path)) cookie = await signedInCookie(email);
       }
-      // Signing in is slow on purpose (scrypt), so sign in again only after a route that may have
-      // ended or replaced the session: sign-out, sign-out-everywhere, password and invitation links.
-      if (email && /auth|sessions|invitations/.test(op.path)) cookie = await signedInCookie(email);
-    }
-    console.log(`fuzz as ${name}: ${operations.length} operations, ${requests} requests, ${failures.length} with a 5xx, ${((Date.now() - started) / 1000).toFixed(1)} s`);
-    for (const failure of failures) console.error(failure);
-    expect(failures).toEqual([]);
-  }, 600_000);
+      console.log(
+        `fuzz as ${name}: ${operations.length} operations, ${requests} requests, ${failures.length} with a 5xx, ${((Date.now() - started) / 1000).toFixed(1)} s`,
+      );
+      for (const failure of failures) console.error(failure);
+      expect(failures).toEqual([]);
+    },
+    600_000,
+  );
 
   it('refuses every bad request in plain words, without developer jargon', () => {
     expect(refusals.size).toBeGreaterThan(50);
-    const jargon = [...refusals].filter(([message]) => jargonIn(message).length > 0).map(([message, where]) => `${where}: ${message}  ← ${jargonIn(message).join(', ')}`);
+    const jargon = [...refusals]
+      .filter(([message]) => jargonIn(message).length > 0)
+      .map(([message, where]) => `${where}: ${message}  ← ${jargonIn(message).join(', ')}`);
     console.log(`fuzz: ${refusals.size} distinct refusals read, ${jargon.length} with jargon`);
     expect(jargon).toEqual([]);
   });

@@ -85,7 +85,8 @@ describe('graceful shutdown of an API process', () => {
       await db.query('select 1 from shop_settings for update');
       const slow = owner.call('PATCH', '/api/settings', { tagline: 'Boards wired while you play.' });
       await eventually(
-        async () => (await db.query(`select 1 from pg_stat_activity where wait_event_type = 'Lock' and datname = current_database()`)).rowCount,
+        async () =>
+          (await db.query(`select 1 from pg_stat_activity where wait_event_type = 'Lock' and datname = current_database()`)).rowCount,
         'the settings request to wait on the lock',
         15_000,
       );

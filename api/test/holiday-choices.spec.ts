@@ -44,7 +44,8 @@ describe('per-holiday opt-out (PUT /api/settings/holidays/:day)', () => {
     for (const d of await benchDay(day)) expect(d.capacityHours).toBe(0);
     expect(isShopWorkingDay(day, await t.app.get(BenchService).shopCalendar())).toBe(false);
 
-    const opened = (await t.http().put(`/api/settings/holidays/${day}`).set('Cookie', owner).send({ shopWorks: true }).expect(200)).body as HolidayChoiceResponse;
+    const opened = (await t.http().put(`/api/settings/holidays/${day}`).set('Cookie', owner).send({ shopWorks: true }).expect(200))
+      .body as HolidayChoiceResponse;
     expect(opened).toMatchObject({ day, shopWorks: true, decidedBy: expect.any(String), buildsOnBenchThen: [] });
     // Every demo builder works Thursdays (seed-people.ts), so each now has bench hours that day.
     const days = await benchDay(day);
@@ -57,9 +58,12 @@ describe('per-holiday opt-out (PUT /api/settings/holidays/:day)', () => {
 
     // Asking again for the state it is in adds no second history line.
     await t.http().put(`/api/settings/holidays/${day}`).set('Cookie', owner).send({ shopWorks: true }).expect(200);
-    expect(((await t.http().get('/api/settings').set('Cookie', owner).expect(200)).body as ShopSettingsView).holidayHistory).toHaveLength(1);
+    expect(((await t.http().get('/api/settings').set('Cookie', owner).expect(200)).body as ShopSettingsView).holidayHistory).toHaveLength(
+      1,
+    );
 
-    const closed = (await t.http().put(`/api/settings/holidays/${day}`).set('Cookie', owner).send({ shopWorks: false }).expect(200)).body as HolidayChoiceResponse;
+    const closed = (await t.http().put(`/api/settings/holidays/${day}`).set('Cookie', owner).send({ shopWorks: false }).expect(200))
+      .body as HolidayChoiceResponse;
     expect(closed).toMatchObject({ day, shopWorks: false });
     for (const d of await benchDay(day)) expect(d.capacityHours).toBe(0);
     const history = ((await t.http().get('/api/settings').set('Cookie', owner).expect(200)).body as ShopSettingsView).holidayHistory;
@@ -70,12 +74,19 @@ describe('per-holiday opt-out (PUT /api/settings/holidays/:day)', () => {
     const dayBefore = `${day.slice(0, 8)}${String(Number(day.slice(8)) - 1).padStart(2, '0')}`;
     const notHoliday = await t.http().put(`/api/settings/holidays/${dayBefore}`).set('Cookie', owner).send({ shopWorks: true }).expect(400);
     expect(notHoliday.body).toMatchObject({ statusCode: 400, code: 'bad_request' });
-    expect(notHoliday.body.message).toBe(`${dayBefore} is not a public holiday in US; only the country’s public holidays can be switched off or on`);
+    expect(notHoliday.body.message).toBe(
+      `${dayBefore} is not a public holiday in US; only the country’s public holidays can be switched off or on`,
+    );
     const badDay = await t.http().put('/api/settings/holidays/next-thursday').set('Cookie', owner).send({ shopWorks: true }).expect(400);
     expect(badDay.body.code).toBe('validation_failed');
     const badAnswer = await t.http().put(`/api/settings/holidays/${day}`).set('Cookie', owner).send({ shopWorks: 'yes' }).expect(400);
     expect(JSON.stringify(badAnswer.body.message)).toContain('Say whether the shop works that day');
-    await t.http().put(`/api/settings/holidays/${day}`).set('Cookie', await sessionCookieFor(t, 'builder')).send({ shopWorks: true }).expect(403);
+    await t
+      .http()
+      .put(`/api/settings/holidays/${day}`)
+      .set('Cookie', await sessionCookieFor(t, 'builder'))
+      .send({ shopWorks: true })
+      .expect(403);
   });
 
   it('takes a country from the ISO 3166 list and a time zone from the IANA list, refusing others in words', async () => {

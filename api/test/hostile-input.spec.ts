@@ -25,14 +25,26 @@ describe('hostile input answers 400 in words, never 500', () => {
   afterAll(async () => t.close());
 
   it.each(['/api/auth/sign-in', '/api/estimates', '/api/bookings'])('refuses a JSON array nested 3,000 deep sent to %s', async (path) => {
-    const res = await owner.post(path).set('Content-Type', 'application/json').send(`{"configuration": ${nestedArray(3000)}, "email": ${nestedArray(3000)}}`);
+    const res = await owner
+      .post(path)
+      .set('Content-Type', 'application/json')
+      .send(`{"configuration": ${nestedArray(3000)}, "email": ${nestedArray(3000)}}`);
     expect(res.status).toBe(400);
     expect(res.body.message).toMatch(/nested more than 20 levels deep/);
   });
 
   it('still takes a body nested as deep as a real price book', async () => {
     // surfaceId … pedals[0].name is three levels; the limit leaves room for every real body.
-    const res = await t.http().post('/api/estimates').send({ surfaceId: 'x', caseId: 'y', routing: { mode: 'serial' }, pedals: [{ name: 'Fuzz', powered: true, inLoop: false }], level: 'master' });
+    const res = await t
+      .http()
+      .post('/api/estimates')
+      .send({
+        surfaceId: 'x',
+        caseId: 'y',
+        routing: { mode: 'serial' },
+        pedals: [{ name: 'Fuzz', powered: true, inLoop: false }],
+        level: 'master',
+      });
     expect(res.status).not.toBe(500);
     expect(JSON.stringify(res.body)).not.toMatch(/nested more than/);
   });
@@ -49,7 +61,10 @@ describe('hostile input answers 400 in words, never 500', () => {
   });
 
   it('takes a well-formed astral character (a surrogate pair) in a name', async () => {
-    const res = await t.http().post('/api/auth/sign-up').send({ email: 'astral@mail.example', password: 'long-enough-pass', name: 'Rook 🎸 Vale' });
+    const res = await t
+      .http()
+      .post('/api/auth/sign-up')
+      .send({ email: 'astral@mail.example', password: 'long-enough-pass', name: 'Rook 🎸 Vale' });
     expect(res.status).toBe(201);
     const row = await t.db.selectFrom('users').select('name').where('email', '=', 'astral@mail.example').executeTakeFirstOrThrow();
     expect(row.name).toBe('Rook 🎸 Vale');
@@ -70,7 +85,10 @@ describe('hostile input answers 400 in words, never 500', () => {
     const monday = quietMondayWeeksAhead(3);
     const b = await createBooking(t.db, { laborHours: '4.00' });
     await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
-    await master.post(`/api/bookings/${b.id}/intake`).send({ items: [{ item: 'Fuzz', condition: 'working' }] }).expect(201);
+    await master
+      .post(`/api/bookings/${b.id}/intake`)
+      .send({ items: [{ item: 'Fuzz', condition: 'working' }] })
+      .expect(201);
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received' }).expect(200);
 
     const cases: Array<[unknown, string]> = [

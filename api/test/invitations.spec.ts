@@ -8,7 +8,12 @@ describe('staff invitations', () => {
   let t: TestApp;
   let owner: string;
   const inviteMails = () =>
-    t.db.selectFrom('mail_outbox').select(['to_address', 'data']).where('template', '=', 'staff-invite').orderBy('created_at', 'desc').execute();
+    t.db
+      .selectFrom('mail_outbox')
+      .select(['to_address', 'data'])
+      .where('template', '=', 'staff-invite')
+      .orderBy('created_at', 'desc')
+      .execute();
   const tokenOf = (data: unknown) => new URL(String((data as { acceptUrl: string }).acceptUrl)).searchParams.get('token')!;
 
   beforeAll(async () => {
@@ -23,8 +28,17 @@ describe('staff invitations', () => {
 
   it('lets only the owner invite', async () => {
     await t.http().post('/api/invitations').send(invite).expect(401);
-    await t.http().post('/api/invitations').set('Cookie', await sessionCookieFor(t, 'customerA')).send(invite).expect(403);
-    const asBuilder = await t.http().post('/api/invitations').set('Cookie', await sessionCookieFor(t, 'builder')).send(invite);
+    await t
+      .http()
+      .post('/api/invitations')
+      .set('Cookie', await sessionCookieFor(t, 'customerA'))
+      .send(invite)
+      .expect(403);
+    const asBuilder = await t
+      .http()
+      .post('/api/invitations')
+      .set('Cookie', await sessionCookieFor(t, 'builder'))
+      .send(invite);
     expect(asBuilder.status).toBe(403);
     expect(asBuilder.body.message).toBe('Only the shop owner can do this.');
     expect(await inviteMails()).toHaveLength(0);
@@ -43,7 +57,9 @@ describe('staff invitations', () => {
 
     const [mail] = await inviteMails();
     expect(mail!.to_address).toBe('marit.solberg@shop.example');
-    expect(String((mail!.data as { acceptUrl: string }).acceptUrl)).toMatch(/^https?:\/\/[^/]+\/backoffice\/accept-invite\?token=[A-Za-z0-9_-]{43}$/);
+    expect(String((mail!.data as { acceptUrl: string }).acceptUrl)).toMatch(
+      /^https?:\/\/[^/]+\/backoffice\/accept-invite\?token=[A-Za-z0-9_-]{43}$/,
+    );
     expect(mail!.data).toMatchObject({ name: invite.name, invitedBy: 'Odile Varga' });
 
     // Not yet accepted: no password works, and the answer is the usual one.
@@ -57,7 +73,11 @@ describe('staff invitations', () => {
 
     const accepted = await t.http().post('/api/invitations/accept').send({ token, password: 'bench-password-01' }).expect(200);
     expect(accepted.body.user).toMatchObject({ email: 'marit.solberg@shop.example', role: 'builder' });
-    const me = await t.http().get('/api/auth/me').set('Cookie', asRequestCookie(sessionCookieOf(accepted)!)).expect(200);
+    const me = await t
+      .http()
+      .get('/api/auth/me')
+      .set('Cookie', asRequestCookie(sessionCookieOf(accepted)!))
+      .expect(200);
     expect(me.body.user.role).toBe('builder');
 
     await t.http().post('/api/auth/sign-in').send({ email: invite.email, password: 'bench-password-01' }).expect(200);
@@ -73,11 +93,18 @@ describe('staff invitations', () => {
   it('inviting a pending address again sends a fresh link, retires the old one, and updates level and rate', async () => {
     await t.http().post('/api/invitations').set('Cookie', owner).send(invite).expect(201);
     const first = tokenOf((await inviteMails())[0]!.data);
-    const res = await t.http().post('/api/invitations').set('Cookie', owner).send({ ...invite, level: 'master', hourlyRate: '120' }).expect(201);
+    const res = await t
+      .http()
+      .post('/api/invitations')
+      .set('Cookie', owner)
+      .send({ ...invite, level: 'master', hourlyRate: '120' })
+      .expect(201);
     expect(res.body.resent).toBe(true);
     const second = tokenOf((await inviteMails())[0]!.data);
     expect(second).not.toBe(first);
-    expect(await t.db.selectFrom('builders').select(['level', 'hourly_rate']).where('id', '=', res.body.builderId).executeTakeFirst()).toEqual({
+    expect(
+      await t.db.selectFrom('builders').select(['level', 'hourly_rate']).where('id', '=', res.body.builderId).executeTakeFirst(),
+    ).toEqual({
       level: 'master',
       hourly_rate: '120.00',
     });
@@ -90,7 +117,10 @@ describe('staff invitations', () => {
     const builderId = created.body.builderId as string;
     const first = tokenOf((await inviteMails())[0]!.data);
 
-    const member = async () => ((await t.http().get('/api/team').set('Cookie', owner).expect(200)).body as Array<Record<string, unknown>>).find((m) => m.id === builderId)!;
+    const member = async () =>
+      ((await t.http().get('/api/team').set('Cookie', owner).expect(200)).body as Array<Record<string, unknown>>).find(
+        (m) => m.id === builderId,
+      )!;
     const invited = await member();
     expect(invited).toMatchObject({ status: 'invited', level: 'journeyman', hourlyRate: '85.00' });
     expect(Date.parse(String(invited.invitationExpiresAt))).toBeGreaterThan(Date.now());
@@ -99,7 +129,11 @@ describe('staff invitations', () => {
     expect(bench.body.builders.map((b: { builder: { id: string } }) => b.builder.id)).not.toContain(builderId);
 
     // Only the owner resends; a builder gets 403 in words and no mail goes out.
-    const refused = await t.http().post(`/api/invitations/${builderId}/resend`).set('Cookie', await sessionCookieFor(t, 'builder')).send({});
+    const refused = await t
+      .http()
+      .post(`/api/invitations/${builderId}/resend`)
+      .set('Cookie', await sessionCookieFor(t, 'builder'))
+      .send({});
     expect(refused.status).toBe(403);
     expect(await inviteMails()).toHaveLength(1);
 
@@ -123,7 +157,9 @@ describe('staff invitations', () => {
 
     // Once joined there is nothing to resend: 409 in words, no mail.
     const done = await t.http().post(`/api/invitations/${builderId}/resend`).set('Cookie', owner).send({}).expect(409);
-    expect(done.body.message).toBe('Marit Solberg-Ames has already accepted the invitation and chosen a password, so there is nothing to resend.');
+    expect(done.body.message).toBe(
+      'Marit Solberg-Ames has already accepted the invitation and chosen a password, so there is nothing to resend.',
+    );
     expect(await inviteMails()).toHaveLength(2);
     const unknown = await t.http().post('/api/invitations/00000000-0000-4000-8000-000000000000/resend').set('Cookie', owner).send({});
     expect(unknown.status).toBe(404);
@@ -133,7 +169,11 @@ describe('staff invitations', () => {
   });
 
   it('refuses to turn a player into staff', async () => {
-    const res = await t.http().post('/api/invitations').set('Cookie', owner).send({ ...invite, email: 'player@mail.example' });
+    const res = await t
+      .http()
+      .post('/api/invitations')
+      .set('Cookie', owner)
+      .send({ ...invite, email: 'player@mail.example' });
     expect(res.status).toBe(409);
     expect(res.body.message).toMatch(/already has an account/);
     const player = await t.db.selectFrom('users').select('role').where('email', '=', 'player@mail.example').executeTakeFirstOrThrow();
@@ -141,7 +181,12 @@ describe('staff invitations', () => {
   });
 
   it('names each bad field in words', async () => {
-    const res = await t.http().post('/api/invitations').set('Cookie', owner).send({ email: 'x', name: '', level: 'wizard', hourlyRate: '0' }).expect(400);
+    const res = await t
+      .http()
+      .post('/api/invitations')
+      .set('Cookie', owner)
+      .send({ email: 'x', name: '', level: 'wizard', hourlyRate: '0' })
+      .expect(400);
     expect(res.body.details).toEqual(
       expect.arrayContaining([
         'Enter an e-mail address, like name@example.com',
@@ -152,6 +197,10 @@ describe('staff invitations', () => {
     );
     const accept = await t.http().post('/api/invitations/accept').send({ token: 'nope', password: 'x' }).expect(400);
     expect(JSON.stringify(accept.body.message)).toContain('This link is incomplete; open the link from the e-mail again');
-    await t.http().post('/api/invitations/accept').send({ token: 'B'.repeat(43), password: 'a-long-password' }).expect(400);
+    await t
+      .http()
+      .post('/api/invitations/accept')
+      .send({ token: 'B'.repeat(43), password: 'a-long-password' })
+      .expect(400);
   });
 });

@@ -19,7 +19,8 @@ describe('GET /api/bench/lead-time', () => {
   afterAll(async () => t.close());
 
   it('gives a stranger a date the shop can keep: the accept dialog offers it or an earlier one, and shipping starts two days out', async () => {
-    const answer = (await request(t.app.getHttpServer()).get('/api/bench/lead-time?hours=7.00&level=journeyman').expect(200)).body as BenchLeadTime;
+    const answer = (await request(t.app.getHttpServer()).get('/api/bench/lead-time?hours=7.00&level=journeyman').expect(200))
+      .body as BenchLeadTime;
     expect(answer.earliestBenchDate).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(answer.expectedCompletion! >= answer.earliestBenchDate!).toBe(true);
     expect(answer.shipBy! < answer.earliestBenchDate!).toBe(true);
@@ -32,7 +33,10 @@ describe('GET /api/bench/lead-time', () => {
     const booking = await createBooking(t.db, { laborHours: '7.00', minimumLevel: 'journeyman', state: 'deposit_paid' });
     const builder = await signIn(t.app, 'builder@shop.example');
     const suggest = (await builder.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse;
-    const offered = suggest.suggestions.filter((s) => s.meetsMinimumLevel).map((s) => s.benchDate).sort();
+    const offered = suggest.suggestions
+      .filter((s) => s.meetsMinimumLevel)
+      .map((s) => s.benchDate)
+      .sort();
     expect(offered[0]! <= answer.earliestBenchDate!).toBe(true);
   });
 
@@ -46,7 +50,17 @@ describe('GET /api/bench/lead-time', () => {
 
   it('answers bad input with a 400 in words, never 500', async () => {
     const server = t.app.getHttpServer();
-    for (const query of ['', 'hours=abc&level=master', 'hours=0&level=master', 'hours=-3&level=master', 'hours=1e3&level=master', 'hours=7&level=wizard', 'hours=7', 'level=master', 'hours=7&hours=8&level=master']) {
+    for (const query of [
+      '',
+      'hours=abc&level=master',
+      'hours=0&level=master',
+      'hours=-3&level=master',
+      'hours=1e3&level=master',
+      'hours=7&level=wizard',
+      'hours=7',
+      'level=master',
+      'hours=7&hours=8&level=master',
+    ]) {
       const res = await request(server).get(`/api/bench/lead-time?${query}`);
       expect(res.status, query).toBe(400);
       expect(JSON.stringify(res.body.message), query).toMatch(/Hours must|Choose a level/);

@@ -48,7 +48,9 @@ describe('single-use links at rest', () => {
       where table_type = 'BASE TABLE' and table_schema in ('public', 'pgboss')`.execute(t.db);
     let found = 0;
     for (const { schema, name } of tables.rows) {
-      const hit = await sql<{ n: string }>`select count(*) as n from ${sql.table(`${schema}.${name}`)} as r where strpos(r::text, ${text}) > 0`.execute(t.db);
+      const hit = await sql<{
+        n: string;
+      }>`select count(*) as n from ${sql.table(`${schema}.${name}`)} as r where strpos(r::text, ${text}) > 0`.execute(t.db);
       found += Number(hit.rows[0]!.n);
     }
     return found;
@@ -81,7 +83,12 @@ describe('single-use links at rest', () => {
 
   it('removes an invitation link when its message fails for good; a resend mails a fresh link and the old one is dead', async () => {
     await fake.stop();
-    await t.http().post('/api/invitations').set('Cookie', owner).send({ email: 'ines.okafor@shop.example', name: 'Ines Okafor', level: 'apprentice', hourlyRate: '45.00' }).expect(201);
+    await t
+      .http()
+      .post('/api/invitations')
+      .set('Cookie', owner)
+      .send({ email: 'ines.okafor@shop.example', name: 'Ines Okafor', level: 'apprentice', hourlyRate: '45.00' })
+      .expect(201);
     const first = tokenIn(JSON.stringify((await outboxRow('staff-invite')).data))!;
     await delivery.deliverPending();
     expect(await delivery.deliverPending()).toMatchObject({ failed: 1 });
@@ -105,7 +112,9 @@ describe('single-use links at rest', () => {
 
     // Once accepted, there is nothing to resend: refused in words, and nothing queued.
     const done = await resend(again.body.id).expect(409);
-    expect(done.body.message).toBe('Ines Okafor has already accepted this invitation and chosen a password, so there is nothing to resend.');
+    expect(done.body.message).toBe(
+      'Ines Okafor has already accepted this invitation and chosen a password, so there is nothing to resend.',
+    );
     expect(await t.db.selectFrom('mail_outbox').select('id').where('state', '=', 'queued').execute()).toHaveLength(0);
   });
 

@@ -12,7 +12,14 @@ const SIGN_UP_PASSWORD = 'marigold-Cable-73-snake';
 const NEW_PASSWORD = 'quiet-Treadle-19-lantern';
 // Stripe testing documentation, "Test card numbers": 4242 4242 4242 4242 succeeds.
 const CARD = '4242424242424242';
-const board = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'journeyman' };
+const board = {
+  surfaceId: 'slate-61',
+  caseId: 'shell-hard',
+  routing: { mode: 'serial' },
+  pedalCount: 6,
+  functions: [],
+  level: 'journeyman',
+};
 
 /**
  * A whole journey through a real API process (the built one, as `npm start` runs it) with its
@@ -88,7 +95,12 @@ describe('log hygiene over a whole journey', () => {
     const estimate = await player.call('POST', '/api/estimates', board);
     expect(estimate.status, estimate.text).toBe(200);
     // An id from a load balancer is kept and echoed; a malformed one is replaced.
-    const booking = await player.call('POST', '/api/bookings', { configuration: board, notes: 'Tuner first.' }, { 'x-request-id': 'lb-7d1e.42:booking' });
+    const booking = await player.call(
+      'POST',
+      '/api/bookings',
+      { configuration: board, notes: 'Tuner first.' },
+      { 'x-request-id': 'lb-7d1e.42:booking' },
+    );
     expect(booking.status, booking.text).toBe(201);
     expect(booking.headers.get('x-request-id')).toBe('lb-7d1e.42:booking');
     const forged = await player.call('GET', '/api/auth/me', undefined, { 'x-request-id': 'a b {"level":60} '.repeat(12) });
@@ -97,19 +109,31 @@ describe('log hygiene over a whole journey', () => {
     const checkout = await player.call('POST', `/api/bookings/${booking.body.id}/checkout`, {});
     expect(checkout.status, checkout.text).toBe(200);
     expect((await payOnHostedPage(checkout.body.url, CARD)).status).toBe(303);
-    await eventually(async () => (await player.call('GET', `/api/bookings/${booking.body.id}`)).body?.state === 'deposit_paid', 'the deposit webhook', 15_000);
+    await eventually(
+      async () => (await player.call('GET', `/api/bookings/${booking.body.id}`)).body?.state === 'deposit_paid',
+      'the deposit webhook',
+      15_000,
+    );
     expect(signatures.length).toBeGreaterThan(0);
 
     const reset = await new Visitor(api.url).call('POST', '/api/auth/password-reset', { email });
     expect(reset.status).toBe(202);
-    const resetMail = await eventually(async () => mail.messages.find((m) => m.to.includes(email) && /token=/.test(m.text)), 'the reset e-mail', 15_000);
+    const resetMail = await eventually(
+      async () => mail.messages.find((m) => m.to.includes(email) && /token=/.test(m.text)),
+      'the reset e-mail',
+      15_000,
+    );
     const link = resetMail.text.match(/https?:\/\/\S*token=[^\s)>\]]+/)![0];
     const token = new URL(link).searchParams.get('token')!;
     // The player opens the link: the storefront's page is asked for with the token in its query.
     await new Visitor(api.url).call('GET', `/reset-password?token=${encodeURIComponent(token)}`);
     const confirm = await new Visitor(api.url).call('POST', '/api/auth/password-reset/confirm', { token, password: NEW_PASSWORD });
     expect(confirm.status, confirm.text).toBe(200);
-    const resetCookie = confirm.headers.getSetCookie().find((c) => c.startsWith('lw_session='))!.split(';')[0]!.slice('lw_session='.length);
+    const resetCookie = confirm.headers
+      .getSetCookie()
+      .find((c) => c.startsWith('lw_session='))!
+      .split(';')[0]!
+      .slice('lw_session='.length);
     cookies.push(resetCookie);
 
     // Let the last lines (mail worker, webhook) be written.
@@ -134,7 +158,9 @@ describe('log hygiene over a whole journey', () => {
       secrets[`webhook signature ${i + 1}`] = s;
       for (const part of s.split(',')) if (part.startsWith('v1=')) secrets[`webhook HMAC ${i + 1}`] = part.slice(3);
     });
-    const leaks = Object.entries(secrets).filter(([, value]) => value && output.includes(value)).map(([name]) => name);
+    const leaks = Object.entries(secrets)
+      .filter(([, value]) => value && output.includes(value))
+      .map(([name]) => name);
     expect(leaks, `secrets found in the API's logs`).toEqual([]);
 
     // Every stdout line is one JSON object; every request line names its request id.

@@ -73,7 +73,10 @@ describe('mail whose sender stopped mid-send', () => {
   it('logs a message the server took as unknown, never failed, when the database went away before it was recorded', async () => {
     const row = await welcome('juniper.marsh@mail.example');
     // The database goes down just as the mail server has the whole message, before its 250.
-    const outcome = await withAcceptingServer(() => relay.cut(), () => delivery.deliverOne(row!.id));
+    const outcome = await withAcceptingServer(
+      () => relay.cut(),
+      () => delivery.deliverOne(row!.id),
+    );
     expect(outcome).toBe('unknown');
     expect(box).toHaveLength(1);
 
@@ -153,7 +156,11 @@ describe('mail whose sender stopped mid-send', () => {
 
   it('shows unknown in the mail log, and resends it only when the owner confirms a second copy', async () => {
     const row = await welcome('held@mail.example');
-    await t.db.updateTable('mail_outbox').set({ state: 'sending', attempts: 1, claimed_at: new Date(Date.now() - 20 * 60_000) }).where('id', '=', row!.id).execute();
+    await t.db
+      .updateTable('mail_outbox')
+      .set({ state: 'sending', attempts: 1, claimed_at: new Date(Date.now() - 20 * 60_000) })
+      .where('id', '=', row!.id)
+      .execute();
     await delivery.markStaleClaimsUnknown();
     const owner = request.agent(t.app.getHttpServer());
     await owner.post('/api/auth/sign-in').send({ email: 'owner@shop.example', password: 'demo-pass-2026' }).expect(200);

@@ -57,7 +57,12 @@ describe('the booking-scheduled message after a builder accepts', () => {
     expect(event.startDate.isDate).toBe(true);
     expect(event.startDate.toString()).toBe(shipBy);
 
-    const row = await t.db.selectFrom('mail_outbox').selectAll().where('booking_id', '=', booking.id).where('template', '=', 'booking-scheduled').executeTakeFirstOrThrow();
+    const row = await t.db
+      .selectFrom('mail_outbox')
+      .selectAll()
+      .where('booking_id', '=', booking.id)
+      .where('template', '=', 'booking-scheduled')
+      .executeTakeFirstOrThrow();
     expect(m.messageId).toBe(row.message_id);
     expect(row.state).toBe('sent');
   });

@@ -24,7 +24,10 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
   let mail: MailService;
 
   const jobsFor = (outboxId: string) =>
-    sql<{ state: string; retry_count: number }>`select state, retry_count from pgboss.job where name = 'mail-deliver' and singleton_key = ${outboxId}`
+    sql<{
+      state: string;
+      retry_count: number;
+    }>`select state, retry_count from pgboss.job where name = 'mail-deliver' and singleton_key = ${outboxId}`
       .execute(t.db)
       .then((r) => r.rows);
   const outboxRow = (id: string) => t.db.selectFrom('mail_outbox').selectAll().where('id', '=', id).executeTakeFirstOrThrow();
@@ -60,7 +63,11 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
   it('retries with backoff while the mail server is down and delivers exactly once when it is back', async () => {
     await fake.stop();
     const row = (await t.db.transaction().execute((trx) =>
-      mail.enqueue(trx, { template: 'deposit-refunded', to: 'patient@mail.example', data: { name: 'Pat', reference: 'LW-3003', amount: '150.00', currency: 'USD' } }),
+      mail.enqueue(trx, {
+        template: 'deposit-refunded',
+        to: 'patient@mail.example',
+        data: { name: 'Pat', reference: 'LW-3003', amount: '150.00', currency: 'USD' },
+      }),
     ))!;
     const refused = await until('a refused attempt', async () => {
       const r = await outboxRow(row.id);
@@ -68,7 +75,9 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
     });
     expect(refused.last_error).toMatch(/ECONNREFUSED|ECONNECTION/);
     // pg-boss holds the job for a later retry rather than dropping it.
-    await until('the job to wait for its retry', async () => (await jobsFor(row.id)).some((j) => j.state === 'retry' || j.state === 'active' || j.state === 'created'));
+    await until('the job to wait for its retry', async () =>
+      (await jobsFor(row.id)).some((j) => j.state === 'retry' || j.state === 'active' || j.state === 'created'),
+    );
 
     fake = await startMailFake({ smtpPort, httpPort, messages: box });
     const sent = await until('delivery after the server came back', async () => {
@@ -99,7 +108,12 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
       .executeTakeFirstOrThrow();
     const fresh = await t.db
       .insertInto('mail_outbox')
-      .values({ message_id: '<fresh-1@shop.example>', template: 'welcome', to_address: 'fresh@mail.example', data: JSON.stringify({ name: 'Fay' }) })
+      .values({
+        message_id: '<fresh-1@shop.example>',
+        template: 'welcome',
+        to_address: 'fresh@mail.example',
+        data: JSON.stringify({ name: 'Fay' }),
+      })
       .returning('id')
       .executeTakeFirstOrThrow();
     await t.app.get(MailWorker).sweep();

@@ -135,7 +135,9 @@ describe('mail delivery through the outbox into the mail fake', () => {
 
   it('lets only one of several racing senders deliver a message', async () => {
     const rows = await Promise.all(Array.from({ length: 5 }, (_, i) => enqueueScheduled(`race${i}@mail.example`)));
-    const outcomes = await Promise.all(rows.flatMap((r) => [delivery.deliverOne(r!.id), delivery.deliverOne(r!.id), delivery.deliverOne(r!.id)]));
+    const outcomes = await Promise.all(
+      rows.flatMap((r) => [delivery.deliverOne(r!.id), delivery.deliverOne(r!.id), delivery.deliverOne(r!.id)]),
+    );
     expect(outcomes.filter((o) => o === 'sent')).toHaveLength(5);
     expect(outcomes.filter((o) => o === 'skipped')).toHaveLength(10);
     const messages = await inbox();
@@ -151,11 +153,19 @@ describe('mail delivery through the outbox into the mail fake', () => {
 
     // A sender that claimed a row and died before marking it: the row sits in 'sending'.
     const claimed = await enqueueScheduled('crashed@mail.example');
-    await t.db.updateTable('mail_outbox').set({ state: 'sending', attempts: 1, claimed_at: new Date() }).where('id', '=', claimed!.id).execute();
+    await t.db
+      .updateTable('mail_outbox')
+      .set({ state: 'sending', attempts: 1, claimed_at: new Date() })
+      .where('id', '=', claimed!.id)
+      .execute();
     expect(await delivery.deliverPending()).toMatchObject({ sent: 0 });
     expect(await delivery.deliverOne(claimed!.id)).toBe('skipped');
     expect(await delivery.markStaleClaimsUnknown()).toBe(0); // still inside its lease
-    await t.db.updateTable('mail_outbox').set({ claimed_at: new Date(Date.now() - 16 * 60_000) }).where('id', '=', claimed!.id).execute();
+    await t.db
+      .updateTable('mail_outbox')
+      .set({ claimed_at: new Date(Date.now() - 16 * 60_000) })
+      .where('id', '=', claimed!.id)
+      .execute();
     expect(await delivery.markStaleClaimsUnknown()).toBe(1);
     const stale = await t.db.selectFrom('mail_outbox').selectAll().where('id', '=', claimed!.id).executeTakeFirstOrThrow();
     expect(stale).toMatchObject({ state: 'unknown', last_error: OUTCOME_UNKNOWN });
@@ -226,7 +236,12 @@ describe('mail delivery through the outbox into the mail fake', () => {
       await builder.post(`/api/mail/${original!.id}/resend`).send({}).expect(403);
       const owner = await signIn('owner@shop.example');
       const res = await owner.post(`/api/mail/${original!.id}/resend`).send({}).expect(201);
-      expect(res.body).toMatchObject({ state: 'queued', to: 'again@mail.example', resentFromId: original!.id, template: 'booking-scheduled' });
+      expect(res.body).toMatchObject({
+        state: 'queued',
+        to: 'again@mail.example',
+        resentFromId: original!.id,
+        template: 'booking-scheduled',
+      });
       expect(res.body.messageId).not.toBe(original!.message_id);
       // While the copy waits, resending it again is refused.
       const busy = await owner.post(`/api/mail/${res.body.id}/resend`).send({}).expect(409);

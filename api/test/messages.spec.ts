@@ -24,7 +24,10 @@ describe('messages on a build', () => {
   const at = (minutes: number) => new Date(start.getTime() + minutes * 60_000);
 
   /** A small PNG made by an image library, as a phone upload would be (re-encoded on the way in). */
-  const png = () => sharp({ create: { width: 40, height: 30, channels: 3, background: { r: 20, g: 90, b: 80 } } }).png().toBuffer();
+  const png = () =>
+    sharp({ create: { width: 40, height: 30, channels: 3, background: { r: 20, g: 90, b: 80 } } })
+      .png()
+      .toBuffer();
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -47,12 +50,19 @@ describe('messages on a build', () => {
     bookingId = booking.id;
     reference = booking.reference;
     // Assigned to the master-level demo builder; the apprentice is a builder of the shop without it.
-    await t.db.updateTable('bookings').set({ builder_id: await builderId(t.db, 'builder@shop.example'), state: 'scheduled' }).where('id', '=', bookingId).execute();
+    await t.db
+      .updateTable('bookings')
+      .set({ builder_id: await builderId(t.db, 'builder@shop.example'), state: 'scheduled' })
+      .where('id', '=', bookingId)
+      .execute();
   });
 
   /** The route takes a multipart form (its photos travel beside the text), as the build pages send it. */
   const post = (who: DemoPerson, fields: Record<string, string>, id = bookingId) =>
-    Object.entries(fields).reduce((req, [name, value]) => req.field(name, value), t.http().post(`/api/bookings/${id}/messages`).set('Cookie', cookies[who]));
+    Object.entries(fields).reduce(
+      (req, [name, value]) => req.field(name, value),
+      t.http().post(`/api/bookings/${id}/messages`).set('Cookie', cookies[who]),
+    );
   const thread = (who: DemoPerson, id = bookingId) => t.http().get(`/api/bookings/${id}/messages`).set('Cookie', cookies[who]);
   const unread = async (who: DemoPerson) => (await t.http().get('/api/messages/unread').set('Cookie', cookies[who]).expect(200)).body;
   const outbox = () => t.db.selectFrom('mail_outbox').selectAll().where('template', '=', 'build-messages').orderBy('created_at').execute();
@@ -115,7 +125,8 @@ describe('messages on a build', () => {
       expect(text.body.message).toMatch(/upload a JPEG, PNG or WebP photo/);
       const image = await png();
       let many = t.http().post(`/api/bookings/${bookingId}/messages`).set('Cookie', cookies.customerA).field('body', 'lots');
-      for (let i = 0; i <= MESSAGE_MAX_PHOTOS; i += 1) many = many.attach('photos', image, { filename: `p${i}.png`, contentType: 'image/png' });
+      for (let i = 0; i <= MESSAGE_MAX_PHOTOS; i += 1)
+        many = many.attach('photos', image, { filename: `p${i}.png`, contentType: 'image/png' });
       const tooMany = await many.expect(400);
       expect(tooMany.body.message).toContain(`Attach at most ${MESSAGE_MAX_PHOTOS} photos to one message`);
       expect(await t.db.selectFrom('build_messages').selectAll().execute()).toHaveLength(0);
@@ -243,9 +254,14 @@ describe('messages on a build', () => {
   describe('internal notes', () => {
     it('keeps a staff note out of the thread, its counts and its mail', async () => {
       await post('customerA', { body: 'Hello shop' }).expect(201);
-      await t.http().post(`/api/bookings/${bookingId}/notes`).set('Cookie', cookies.builder).send({ note: 'Player seems unsure; quote the spare loop.' }).expect((res) => {
-        expect(res.status).toBeLessThan(300);
-      });
+      await t
+        .http()
+        .post(`/api/bookings/${bookingId}/notes`)
+        .set('Cookie', cookies.builder)
+        .send({ note: 'Player seems unsure; quote the spare loop.' })
+        .expect((res) => {
+          expect(res.status).toBeLessThan(300);
+        });
       for (const who of ['customerA', 'builder', 'owner'] as const) {
         const res = await thread(who).expect(200);
         expect(JSON.stringify(res.body)).not.toContain('quote the spare loop');

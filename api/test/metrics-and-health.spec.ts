@@ -71,7 +71,9 @@ describe('metrics and health probes', () => {
     const families = await scrape();
     const requests = family(families, 'loomwright_http_requests_total');
     expect(requests?.type).toBe('COUNTER');
-    const health = requests!.metrics.find((m) => m.labels?.route === '/api/health' && m.labels.method === 'GET' && m.labels.status === '200');
+    const health = requests!.metrics.find(
+      (m) => m.labels?.route === '/api/health' && m.labels.method === 'GET' && m.labels.status === '200',
+    );
     expect(Number(health?.value)).toBeGreaterThanOrEqual(2);
     expect(requests!.metrics.some((m) => m.labels?.route === '/api/auth/sign-in' && m.labels.status === '401')).toBe(true);
     // No raw URLs (ids) as labels: every route label is a pattern.
@@ -90,10 +92,18 @@ describe('metrics and health probes', () => {
 
     // Mail and payments agree with the database they are read from.
     const mail = family(families, 'loomwright_mail_messages')!;
-    const queued = await t.db.selectFrom('mail_outbox').select((eb) => eb.fn.countAll<string>().as('n')).where('state', '=', 'queued').executeTakeFirstOrThrow();
+    const queued = await t.db
+      .selectFrom('mail_outbox')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('state', '=', 'queued')
+      .executeTakeFirstOrThrow();
     expect(Number(mail.metrics.find((m) => m.labels?.state === 'queued')?.value)).toBe(Number(queued.n));
     const payments = family(families, 'loomwright_payments')!;
-    const paid = await t.db.selectFrom('payments').select((eb) => eb.fn.countAll<string>().as('n')).where('status', '=', 'paid').executeTakeFirstOrThrow();
+    const paid = await t.db
+      .selectFrom('payments')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('status', '=', 'paid')
+      .executeTakeFirstOrThrow();
     const paidInMetrics = payments.metrics.filter((m) => m.labels?.outcome === 'paid').reduce((sum, m) => sum + Number(m.value), 0);
     expect(paidInMetrics).toBe(Number(paid.n));
     expect(family(families, 'loomwright_process_resident_memory_bytes')).toBeDefined();

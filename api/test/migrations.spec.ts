@@ -46,7 +46,12 @@ describe('migrations and seed', () => {
           row('password-reset', 'sent', { name: 'P', resetUrl: link, expiresAt: 'x' }),
           row('password-reset', 'queued', { name: 'Q', resetUrl: link, expiresAt: 'x' }),
           row('staff-invite', 'failed', { name: 'S', acceptUrl: link }),
-          row('welcome', 'failed', { name: 'W' }, 'Delivery outcome unknown: the sender stopped while handing the message to the mail server.'),
+          row(
+            'welcome',
+            'failed',
+            { name: 'W' },
+            'Delivery outcome unknown: the sender stopped while handing the message to the mail server.',
+          ),
         ])
         .execute();
       await migrateToLatest(db);

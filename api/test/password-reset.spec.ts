@@ -5,7 +5,13 @@ import { clearTables, createTestApp, type TestApp } from './support/test-app';
 import { asRequestCookie, sessionCookieFor, sessionCookieOf } from './support/sessions';
 
 const resetMails = (t: TestApp, to: string) =>
-  t.db.selectFrom('mail_outbox').select(['template', 'to_address', 'data', 'user_id']).where('template', '=', 'password-reset').where('to_address', '=', to).orderBy('created_at', 'desc').execute();
+  t.db
+    .selectFrom('mail_outbox')
+    .select(['template', 'to_address', 'data', 'user_id'])
+    .where('template', '=', 'password-reset')
+    .where('to_address', '=', to)
+    .orderBy('created_at', 'desc')
+    .execute();
 
 const tokenFrom = (resetUrl: unknown) => new URL(String(resetUrl)).searchParams.get('token')!;
 
@@ -76,13 +82,20 @@ describe('password reset by e-mail', () => {
     const refused = await t.http().get('/api/auth/me').set('Cookie', old);
     expect(refused.status).toBe(401);
     expect(refused.body.message).toMatch(/password was changed/);
-    await t.http().get('/api/auth/me').set('Cookie', asRequestCookie(sessionCookieOf(done)!)).expect(200);
+    await t
+      .http()
+      .get('/api/auth/me')
+      .set('Cookie', asRequestCookie(sessionCookieOf(done)!))
+      .expect(200);
   });
 
   it('refuses an expired link', async () => {
     await t.http().post('/api/auth/password-reset').send({ email: 'player@mail.example' }).expect(202);
     const token = tokenFrom((await resetMails(t, 'player@mail.example'))[0]!.data.resetUrl);
-    await t.db.updateTable('auth_tokens').set({ expires_at: sql`now() - interval '1 second'` }).execute();
+    await t.db
+      .updateTable('auth_tokens')
+      .set({ expires_at: sql`now() - interval '1 second'` })
+      .execute();
     const res = await t.http().post('/api/auth/password-reset/confirm').send({ token, password: 'too-late-password' });
     expect(res.status).toBe(400);
     expect(res.body.message).toMatch(/expired/);
@@ -107,7 +120,10 @@ describe('password reset by e-mail', () => {
     expect(text).toContain('This link is incomplete; open the link from the e-mail again');
     expect(text).toContain('Choose a password of at least 10 characters');
     // A well-formed token that was never issued.
-    const unknown = await t.http().post('/api/auth/password-reset/confirm').send({ token: 'A'.repeat(43), password: 'a-long-password' });
+    const unknown = await t
+      .http()
+      .post('/api/auth/password-reset/confirm')
+      .send({ token: 'A'.repeat(43), password: 'a-long-password' });
     expect(unknown.status).toBe(400);
   });
 

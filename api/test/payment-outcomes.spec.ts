@@ -17,7 +17,14 @@ import { eventually, payByBankOnHostedPage, payOnHostedPage, startPaymentHarness
  * 000111111113 fails later (account closed). The dispute, refund-failure and bank numbers are
  * written from memory.
  */
-const board = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 5, functions: [], level: 'journeyman' };
+const board = {
+  surfaceId: 'slate-61',
+  caseId: 'shell-hard',
+  routing: { mode: 'serial' },
+  pedalCount: 5,
+  functions: [],
+  level: 'journeyman',
+};
 const CARD = '4242 4242 4242 4242';
 const DISPUTED_CARD = '4000 0000 0000 0259';
 const REFUND_FAILS_CARD = '4000 0000 0000 5126';
@@ -105,7 +112,10 @@ describe('payment outcomes the provider reports after checkout', () => {
     expect(b.payments[0].failureMessage).toBe('The bank account has been closed.');
     const failed = await mails(booking.id, 'payment-failed');
     expect(failed).toHaveLength(1);
-    expect(failed[0]).toMatchObject({ to_address: 'player@mail.example', data: expect.objectContaining({ reason: 'The bank account has been closed.' }) });
+    expect(failed[0]).toMatchObject({
+      to_address: 'player@mail.example',
+      data: expect.objectContaining({ reason: 'The bank account has been closed.' }),
+    });
     expect((await notes(booking.id)).at(-1)).toMatch(/bank debit of .* failed: The bank account has been closed\. Nothing was taken/);
     await delivered();
     // payment_intent.payment_failed and checkout.session.async_payment_failed both report it: one line, one mail.
@@ -164,7 +174,9 @@ describe('payment outcomes the provider reports after checkout', () => {
     expect(b.payments[0]).toMatchObject({ status: 'paid', refundStatus: 'failed', refundFailure: 'the card was reported lost or stolen' });
     expect(await mails(booking.id, 'deposit-refunded')).toHaveLength(0);
     const alerts = await mails(booking.id, 'shop-payment-alert');
-    expect(alerts).toEqual([expect.objectContaining({ to_address: 'owner@shop.example', data: expect.objectContaining({ alert: 'refund-failed' }) })]);
+    expect(alerts).toEqual([
+      expect.objectContaining({ to_address: 'owner@shop.example', data: expect.objectContaining({ alert: 'refund-failed' }) }),
+    ]);
     // refund.updated and refund.failed both carry the failure: it is recorded once.
     expect((await notes(booking.id)).filter((n) => n.includes('failed: the card was reported lost or stolen'))).toHaveLength(1);
 
@@ -192,7 +204,12 @@ describe('payment outcomes the provider reports after checkout', () => {
     await eventually(async () => (await payments(booking.id))[0]?.dispute_id === dispute.id, 'the dispute webhook');
     let b = await detail(booking.id);
     expect(b.depositStatus).toBe('disputed');
-    expect(b.payments[0].dispute).toMatchObject({ status: 'needs_response', reason: 'product_not_received', amount: booking.deposit, releasedAt: null });
+    expect(b.payments[0].dispute).toMatchObject({
+      status: 'needs_response',
+      reason: 'product_not_received',
+      amount: booking.deposit,
+      releasedAt: null,
+    });
     expect(b.deliveryHold).toMatch(/disputed the deposit \(product not received\).*Delivery waits until the owner decides/);
     expect((await mails(booking.id, 'shop-payment-alert')).map((m) => (m.data as { alert: string }).alert)).toEqual(['dispute-opened']);
     // A disputed deposit is not refunded on top of the chargeback.
@@ -204,7 +221,15 @@ describe('payment outcomes the provider reports after checkout', () => {
     const { id: _id, created_at: _c, ...copy } = estimate;
     await h.t.db
       .insertInto('quotes')
-      .values({ ...copy, kind: 'firm', configuration: JSON.stringify(copy.configuration), estimate: JSON.stringify(copy.estimate), total: booking.deposit, total_low: booking.deposit, total_high: booking.deposit })
+      .values({
+        ...copy,
+        kind: 'firm',
+        configuration: JSON.stringify(copy.configuration),
+        estimate: JSON.stringify(copy.estimate),
+        total: booking.deposit,
+        total_low: booking.deposit,
+        total_high: booking.deposit,
+      })
       .execute();
     await h.t.db.updateTable('bookings').set({ state: 'ready' }).where('id', '=', booking.id).execute();
     const blocked = await owner.post(`/api/bookings/${booking.id}/state`).send({ to: 'delivered' }).expect(409);
@@ -215,11 +240,17 @@ describe('payment outcomes the provider reports after checkout', () => {
     b = await detail(booking.id);
     expect(b.depositStatus).toBe('paid');
     expect(b.deliveryHold).toMatch(/decided for the shop/);
-    expect((await mails(booking.id, 'shop-payment-alert')).map((m) => (m.data as { alert: string }).alert).sort()).toEqual(['dispute-opened', 'dispute-won']);
+    expect((await mails(booking.id, 'shop-payment-alert')).map((m) => (m.data as { alert: string }).alert).sort()).toEqual([
+      'dispute-opened',
+      'dispute-won',
+    ]);
 
     await owner.post(`/api/bookings/${booking.id}/dispute/release`).send({ note: '' }).expect(400);
     await player.post(`/api/bookings/${booking.id}/dispute/release`).send({ note: 'mine' }).expect(403);
-    const released = await owner.post(`/api/bookings/${booking.id}/dispute/release`).send({ note: 'Won; the player confirmed the order.' }).expect(200);
+    const released = await owner
+      .post(`/api/bookings/${booking.id}/dispute/release`)
+      .send({ note: 'Won; the player confirmed the order.' })
+      .expect(200);
     expect(released.body.deliveryHold).toBeNull();
     expect(released.body.payments[0].dispute.releasedBy).toBeTruthy();
     await owner.post(`/api/bookings/${booking.id}/state`).send({ to: 'delivered' }).expect(200);
@@ -242,11 +273,14 @@ describe('payment outcomes the provider reports after checkout', () => {
     const b = await detail(booking.id);
     expect(b.depositStatus).toBe('disputed');
     expect(b.deliveryHold).toMatch(/decided for the player and the money was taken back/);
-    expect((await mails(booking.id, 'shop-payment-alert')).map((m) => (m.data as { alert: string }).alert).sort()).toEqual(['dispute-lost', 'dispute-opened']);
+    expect((await mails(booking.id, 'shop-payment-alert')).map((m) => (m.data as { alert: string }).alert).sort()).toEqual([
+      'dispute-lost',
+      'dispute-opened',
+    ]);
     expect((await notes(booking.id)).at(-1)).toMatch(/for the player; .* was taken back/);
   });
 
-  it('a dispute whose event overtakes the checkout\'s own is still put on the right payment', async () => {
+  it("a dispute whose event overtakes the checkout's own is still put on the right payment", async () => {
     const booking = await request();
     const url = await checkout(booking.id);
     const sentBefore = h.fake.events.length;
@@ -265,7 +299,13 @@ describe('payment outcomes the provider reports after checkout', () => {
     const payload = JSON.stringify(dispute);
     const first = await fetch(`${h.apiUrl}/api/payments/webhook`, {
       method: 'POST',
-      headers: { 'content-type': 'application/json', 'stripe-signature': new Stripe('sk_test_order').webhooks.generateTestHeaderString({ payload, secret: 'whsec_loomwright_test_0123456789' }) },
+      headers: {
+        'content-type': 'application/json',
+        'stripe-signature': new Stripe('sk_test_order').webhooks.generateTestHeaderString({
+          payload,
+          secret: 'whsec_loomwright_test_0123456789',
+        }),
+      },
       body: payload,
     });
     expect(first.status).toBe(200);
@@ -297,9 +337,25 @@ describe('payment outcomes the provider reports after checkout', () => {
   it('handles each event once: every event sent again changes nothing and adds no line or mail', async () => {
     await delivered();
     const count = async () => ({
-      events: Number((await h.t.db.selectFrom('booking_events').select((eb) => eb.fn.countAll().as('n')).executeTakeFirstOrThrow()).n),
-      mail: Number((await h.t.db.selectFrom('mail_outbox').select((eb) => eb.fn.countAll().as('n')).executeTakeFirstOrThrow()).n),
-      payments: JSON.stringify(await h.t.db.selectFrom('payments').select(['id', 'status', 'refund_status', 'dispute_status']).orderBy('id').execute()),
+      events: Number(
+        (
+          await h.t.db
+            .selectFrom('booking_events')
+            .select((eb) => eb.fn.countAll().as('n'))
+            .executeTakeFirstOrThrow()
+        ).n,
+      ),
+      mail: Number(
+        (
+          await h.t.db
+            .selectFrom('mail_outbox')
+            .select((eb) => eb.fn.countAll().as('n'))
+            .executeTakeFirstOrThrow()
+        ).n,
+      ),
+      payments: JSON.stringify(
+        await h.t.db.selectFrom('payments').select(['id', 'status', 'refund_status', 'dispute_status']).orderBy('id').execute(),
+      ),
     });
     const before = await count();
     const sent = h.fake.events.map((e) => e.id);
@@ -309,7 +365,10 @@ describe('payment outcomes the provider reports after checkout', () => {
         const signer = new Stripe('sk_test_replay');
         const res = await fetch(`${h.apiUrl}/api/payments/webhook`, {
           method: 'POST',
-          headers: { 'content-type': 'application/json', 'stripe-signature': signer.webhooks.generateTestHeaderString({ payload, secret: 'whsec_loomwright_test_0123456789' }) },
+          headers: {
+            'content-type': 'application/json',
+            'stripe-signature': signer.webhooks.generateTestHeaderString({ payload, secret: 'whsec_loomwright_test_0123456789' }),
+          },
           body: payload,
         });
         return { status: res.status, body: (await res.json()) as { duplicate: boolean } };

@@ -8,7 +8,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startObjectStore, type ObjectStore } from '../fakes/object-store/object-store';
 import { createTestApp, type TestApp } from './support/test-app';
 
-const board = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' };
+const board = {
+  surfaceId: 'slate-61',
+  caseId: 'shell-hard',
+  routing: { mode: 'serial' },
+  pedalCount: 4,
+  functions: [],
+  level: 'journeyman',
+};
 
 /**
  * PHOTO_STORAGE=s3: photos go to an S3-compatible bucket through @aws-sdk/client-s3 (here the
@@ -33,7 +40,12 @@ describe('photos in S3-compatible object storage', () => {
         S3_FORCE_PATH_STYLE: 'true',
       },
     });
-    s3 = new S3Client({ region: 'us-east-1', endpoint: store.url, forcePathStyle: true, credentials: { accessKeyId: store.accessKeyId, secretAccessKey: store.secretAccessKey } });
+    s3 = new S3Client({
+      region: 'us-east-1',
+      endpoint: store.url,
+      forcePathStyle: true,
+      credentials: { accessKeyId: store.accessKeyId, secretAccessKey: store.secretAccessKey },
+    });
   }, 60_000);
   afterAll(async () => {
     await t?.close();
@@ -47,11 +59,15 @@ describe('photos in S3-compatible object storage', () => {
     return agent;
   };
 
-  it('stores the photo and its thumbnail in the bucket and serves them to the booking\'s people only', async () => {
+  it("stores the photo and its thumbnail in the bucket and serves them to the booking's people only", async () => {
     const player = await signIn('player@mail.example');
     const booking = await player.post('/api/bookings').send({ configuration: board }).expect(201);
-    const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 180, g: 90, b: 30 } } }).png().toBuffer();
-    const uploaded = await player.post(`/api/bookings/${booking.body.id}/photos`).attach('file', png, { filename: 'board.png', contentType: 'image/png' });
+    const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 180, g: 90, b: 30 } } })
+      .png()
+      .toBuffer();
+    const uploaded = await player
+      .post(`/api/bookings/${booking.body.id}/photos`)
+      .attach('file', png, { filename: 'board.png', contentType: 'image/png' });
     expect(uploaded.status, JSON.stringify(uploaded.body)).toBe(201);
 
     const row = await t.db.selectFrom('photos').selectAll().where('id', '=', uploaded.body.id).executeTakeFirstOrThrow();
@@ -62,7 +78,9 @@ describe('photos in S3-compatible object storage', () => {
 
     const served = await player.get(uploaded.body.url).buffer(true).expect(200);
     expect(served.headers['content-type']).toBe('image/png');
-    const inBucket = Buffer.from(await (await s3.send(new GetObjectCommand({ Bucket: store.bucket, Key: row.storage_key }))).Body!.transformToByteArray());
+    const inBucket = Buffer.from(
+      await (await s3.send(new GetObjectCommand({ Bucket: store.bucket, Key: row.storage_key }))).Body!.transformToByteArray(),
+    );
     expect(Buffer.compare(served.body as Buffer, inBucket)).toBe(0);
     expect((await sharp(served.body as Buffer).metadata()).width).toBe(64);
     const thumb = await player.get(uploaded.body.thumbnailUrl).buffer(true).expect(200);

@@ -56,7 +56,7 @@ function webpChunks(file: Buffer): string[] {
   expect(file.toString('ascii', 0, 4)).toBe('RIFF');
   expect(file.toString('ascii', 8, 12)).toBe('WEBP');
   const names: string[] = [];
-  for (let at = 12; at + 8 <= file.length; ) {
+  for (let at = 12; at + 8 <= file.length;) {
     const size = file.readUInt32LE(at + 4);
     names.push(file.toString('ascii', at, at + 4));
     at += 8 + size + (size % 2);
@@ -79,7 +79,14 @@ describe('uploaded photos are re-encoded without their metadata', () => {
     h = await startPaymentHarness();
     player = await h.signIn('player@mail.example');
     const res = await player.post('/api/bookings').send({
-      configuration: { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' },
+      configuration: {
+        surfaceId: 'slate-61',
+        caseId: 'shell-hard',
+        routing: { mode: 'serial' },
+        pedalCount: 4,
+        functions: [],
+        level: 'journeyman',
+      },
     });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     bookingId = res.body.id;
@@ -149,7 +156,9 @@ describe('uploaded photos are re-encoded without their metadata', () => {
   });
 
   it('drops whatever rides behind the image: bytes appended after the PNG end chunk are not served', async () => {
-    const png = await sharp(gradientPixels(), { raw: { width: WIDTH, height: HEIGHT, channels: 3 } }).png().toBuffer();
+    const png = await sharp(gradientPixels(), { raw: { width: WIDTH, height: HEIGHT, channels: 3 } })
+      .png()
+      .toBuffer();
     const payload = Buffer.from('PK\u0003\u0004 a second file hidden behind the picture');
     const res = await upload(Buffer.concat([png, payload]), 'plain.png', 'image/png');
     expect(res.status, JSON.stringify(res.body)).toBe(201);
@@ -168,7 +177,11 @@ describe('uploaded photos are re-encoded without their metadata', () => {
 
     // A valid PNG header announcing 20,000 × 20,000 pixels (400 megapixels) around a few bytes:
     // PNG spec (W3C PNG 2nd ed. §11.2.2 IHDR). Decoding it would need gigabytes of memory.
-    const bomb = Buffer.from(await sharp(gradientPixels(), { raw: { width: WIDTH, height: HEIGHT, channels: 3 } }).png().toBuffer());
+    const bomb = Buffer.from(
+      await sharp(gradientPixels(), { raw: { width: WIDTH, height: HEIGHT, channels: 3 } })
+        .png()
+        .toBuffer(),
+    );
     bomb.writeUInt32BE(20_000, 16);
     bomb.writeUInt32BE(20_000, 20);
     const big = await upload(bomb, 'huge.png', 'image/png');
@@ -187,12 +200,25 @@ describe('uploaded photos are re-encoded without their metadata', () => {
     const uploader = await h.t.db.selectFrom('users').select('id').where('email', '=', 'player@mail.example').executeTakeFirstOrThrow();
     const legacy = await h.t.db
       .insertInto('photos')
-      .values({ booking_id: bookingId, uploaded_by: uploader.id, kind: 'customer', storage_key: key, content_type: 'image/jpeg', size_bytes: original.length, thumbnail_key: null, width: null, height: null })
+      .values({
+        booking_id: bookingId,
+        uploaded_by: uploader.id,
+        kind: 'customer',
+        storage_key: key,
+        content_type: 'image/jpeg',
+        size_bytes: original.length,
+        thumbnail_key: null,
+        width: null,
+        height: null,
+      })
       .returning('id')
       .executeTakeFirstOrThrow();
 
     const url = `/api/bookings/${bookingId}/photos/${legacy.id}`;
-    const [full, thumb] = await Promise.all([player.get(url).buffer(true).expect(200), player.get(`${url}/thumbnail`).buffer(true).expect(200)]);
+    const [full, thumb] = await Promise.all([
+      player.get(url).buffer(true).expect(200),
+      player.get(`${url}/thumbnail`).buffer(true).expect(200),
+    ]);
     expect(Buffer.compare(full.body as Buffer, original)).not.toBe(0);
     expect(await exifr.gps(full.body as Buffer)).toBeUndefined();
     expect(webpChunks(thumb.body as Buffer)).not.toContain('EXIF');

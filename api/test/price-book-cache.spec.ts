@@ -56,7 +56,12 @@ describe('the price book held in memory by every replica', () => {
   it('a version published through one replica is what both price from next', async () => {
     expect(await journeymanLow(first)).toBe(await journeymanLow(second));
     const owner = await sessionCookieFor(first, 'owner');
-    await first.http().post('/api/price-book').set('Cookie', owner).send({ book: dearer('85.00'), notes: 'Journeyman up' }).expect(201);
+    await first
+      .http()
+      .post('/api/price-book')
+      .set('Cookie', owner)
+      .send({ book: dearer('85.00'), notes: 'Journeyman up' })
+      .expect(201);
     // The publishing replica forgets its copy before it answers.
     expect(await journeymanLow(first)).toBe('85.00');
     // The other hears PostgreSQL's notification when the publishing transaction commits.

@@ -21,7 +21,14 @@ describe('price book versions', () => {
     ...demoPriceBook,
     levels: demoPriceBook.levels.map((l) => (l.code === 'master' ? { ...l, rateLow: '110.00', rateHigh: '160.00' } : l)),
   };
-  const config = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 9, functions: [], level: 'master' };
+  const config = {
+    surfaceId: 'slate-61',
+    caseId: 'shell-hard',
+    routing: { mode: 'serial' },
+    pedalCount: 9,
+    functions: [],
+    level: 'master',
+  };
 
   it('lets only the owner publish; builders read; players and strangers do not', async () => {
     await t.http().get('/api/price-book').expect(401);
@@ -57,11 +64,19 @@ describe('price book versions', () => {
   });
 
   it.each([
-    ['a negative plug price', { ...demoPriceBook, materials: { ...demoPriceBook.materials, plugPrice: '-4.00' } }, 'book.materials.plugPrice'],
+    [
+      'a negative plug price',
+      { ...demoPriceBook, materials: { ...demoPriceBook.materials, plugPrice: '-4.00' } },
+      'book.materials.plugPrice',
+    ],
     ['an unknown currency', { ...demoPriceBook, currency: 'XXY' }, 'book.currency'],
     ['a missing level', { ...demoPriceBook, levels: demoPriceBook.levels.slice(1) }, 'book.levels'],
     ['a price as a number', { ...demoPriceBook, surfaces: [{ ...demoPriceBook.surfaces[0], price: 185 }] }, 'book.surfaces[0].price'],
-    ['a low rate above the high rate', { ...demoPriceBook, levels: demoPriceBook.levels.map((l) => ({ ...l, rateLow: '500.00' })) }, 'book.levels[0].rateLow'],
+    [
+      'a low rate above the high rate',
+      { ...demoPriceBook, levels: demoPriceBook.levels.map((l) => ({ ...l, rateLow: '500.00' })) },
+      'book.levels[0].rateLow',
+    ],
   ])('refuses %s with a 400 naming the field', async (_what, book, field) => {
     const owner = await signedIn('owner@shop.example');
     const res = await owner.post('/api/price-book').send({ book });

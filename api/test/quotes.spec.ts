@@ -22,7 +22,12 @@ describe('POST /api/quotes/pdf', () => {
     ...referenceBoard('switcher', 'journeyman'),
     functions: ['stereo_output'],
     routing: { mode: 'switcher', switcher: { currentMa: 300 } },
-    powerSupply: { outputs: [{ voltage: 9, currentMa: 500, isolated: true }, ...Array.from({ length: 7 }, () => ({ voltage: 9, currentMa: 250, isolated: true }))] },
+    powerSupply: {
+      outputs: [
+        { voltage: 9, currentMa: 500, isolated: true },
+        ...Array.from({ length: 7 }, () => ({ voltage: 9, currentMa: 250, isolated: true })),
+      ],
+    },
   };
 
   beforeAll(async () => {
@@ -62,7 +67,11 @@ describe('POST /api/quotes/pdf', () => {
 
   it.each([
     ['no configuration', {}, 'configuration'],
-    ['a configuration with an unknown routing', { configuration: { ...configuration, routing: { mode: 'daisy' } } }, 'configuration.routing.mode'],
+    [
+      'a configuration with an unknown routing',
+      { configuration: { ...configuration, routing: { mode: 'daisy' } } },
+      'configuration.routing.mode',
+    ],
     ['an unknown field', { configuration, extra: 1 }, ''],
   ])('answers 400 in words, never 500, to %s', async (_what, body, field) => {
     const res = await t.http().post('/api/quotes/pdf').send(body).expect(400);
@@ -73,7 +82,11 @@ describe('POST /api/quotes/pdf', () => {
   });
 
   it('answers 400 naming the field for a surface the price book does not hold', async () => {
-    const res = await t.http().post('/api/quotes/pdf').send({ configuration: { ...configuration, surfaceId: 'plank-9000' } }).expect(400);
+    const res = await t
+      .http()
+      .post('/api/quotes/pdf')
+      .send({ configuration: { ...configuration, surfaceId: 'plank-9000' } })
+      .expect(400);
     expect(res.body.details.join(' ')).toContain('plank-9000');
   });
 });

@@ -53,9 +53,15 @@ describe('reminders and request expiry, with a controlled clock and two workers'
   }
 
   const mails = (bookingId: string, template: string) =>
-    first.db.selectFrom('mail_outbox').select(['to_address', 'data', 'template']).where('booking_id', '=', bookingId).where('template', '=', template).execute();
+    first.db
+      .selectFrom('mail_outbox')
+      .select(['to_address', 'data', 'template'])
+      .where('booking_id', '=', bookingId)
+      .where('template', '=', template)
+      .execute();
 
-  const reminderRows = (bookingId: string) => first.db.selectFrom('reminders').select(['kind', 'event_key']).where('booking_id', '=', bookingId).execute();
+  const reminderRows = (bookingId: string) =>
+    first.db.selectFrom('reminders').select(['kind', 'event_key']).where('booking_id', '=', bookingId).execute();
 
   /** A paid request accepted by the demo master builder through the API, so its bench time is real. */
   async function scheduled(benchDate: string) {
@@ -81,7 +87,12 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     expect(await mails(untracked.id, 'ship-by-reminder')).toHaveLength(0);
 
     // The player records tracking for one of them before it falls due.
-    await first.http().post(`/api/bookings/${tracked.id}/shipment`).set('Cookie', player).send({ carrier: 'Parcel Post', tracking: 'PP-0042-77' }).expect(201);
+    await first
+      .http()
+      .post(`/api/bookings/${tracked.id}/shipment`)
+      .set('Cookie', player)
+      .send({ carrier: 'Parcel Post', tracking: 'PP-0042-77' })
+      .expect(201);
 
     const [a, b] = await sweepBoth(noonInShop(addDays(shipBy, -3)));
     expect(a.shipBy + b.shipBy).toBe(1);
@@ -102,13 +113,30 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     expect(await reminderRows(untracked.id)).toEqual([{ kind: 'shipBy', event_key: `ship-by:${shipBy}` }]);
 
     // The letter names the day as the shop writes it (en-US, CLDR through Intl: "Wed, Jan 13, 2027").
-    const dayWords = new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${shipBy}T12:00:00Z`));
-    const letter = renderMail('ship-by-reminder', toPlayer[0]!.data as Record<string, unknown>, { name: 'Shop', contactEmail: 'bench@shop.example', timezone: 'America/Chicago', locale: 'en-US', currency: 'USD' });
+    const dayWords = new Intl.DateTimeFormat('en-US', {
+      weekday: 'short',
+      month: 'short',
+      day: 'numeric',
+      year: 'numeric',
+      timeZone: 'UTC',
+    }).format(new Date(`${shipBy}T12:00:00Z`));
+    const letter = renderMail('ship-by-reminder', toPlayer[0]!.data as Record<string, unknown>, {
+      name: 'Shop',
+      contactEmail: 'bench@shop.example',
+      timezone: 'America/Chicago',
+      locale: 'en-US',
+      currency: 'USD',
+    });
     expect(letter.subject).toContain(dayWords);
     expect(letter.subject).toContain('in 3 days');
 
     // Staff read one history line per recipient; the player's timeline does not carry them.
-    const lines = await first.db.selectFrom('booking_events').select(['note', 'visibility']).where('booking_id', '=', untracked.id).where('actor_label', '=', 'Loomwright reminders').execute();
+    const lines = await first.db
+      .selectFrom('booking_events')
+      .select(['note', 'visibility'])
+      .where('booking_id', '=', untracked.id)
+      .where('actor_label', '=', 'Loomwright reminders')
+      .execute();
     expect(lines).toHaveLength(2);
     expect(lines.every((l) => l.visibility === 'internal')).toBe(true);
   });
@@ -139,7 +167,14 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     await first.db.updateTable('bookings').set({ state: 'ready' }).where('id', '=', booking.id).execute();
     await first.db
       .insertInto('booking_events')
-      .values({ booking_id: booking.id, from_state: 'testing', to_state: 'ready', actor_id: null, actor_label: 'Test bench', created_at: readyAt })
+      .values({
+        booking_id: booking.id,
+        from_state: 'testing',
+        to_state: 'ready',
+        actor_id: null,
+        actor_label: 'Test bench',
+        created_at: readyAt,
+      })
       .execute();
     return booking;
   }
@@ -153,14 +188,24 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     expect(await mails(unpaid.id, 'balance-reminder')).toHaveLength(0);
 
     // The shop takes the whole balance at the counter for one of them before day 7.
-    await first.http().post(`/api/bookings/${paidInTime.id}/balance/record`).set('Cookie', owner).send({ amount: '750.00', method: 'cash' }).expect(200);
+    await first
+      .http()
+      .post(`/api/bookings/${paidInTime.id}/balance/record`)
+      .set('Cookie', owner)
+      .send({ amount: '750.00', method: 'cash' })
+      .expect(200);
 
     const [a, b] = await sweepBoth(new Date(readyAt.getTime() + 7 * DAY + HOUR));
     expect(a.balanceUnpaid + b.balanceUnpaid).toBe(1);
     const sent = await mails(unpaid.id, 'balance-reminder');
     expect(sent).toHaveLength(1);
     // 900.00 firm − 150.00 deposit = 750.00, worked by hand in whole cents.
-    expect(sent[0]!.data).toMatchObject({ balanceDue: '750.00', currency: 'USD', readySince: '2026-11-02', payUrl: `http://storefront.test/builds/${unpaid.id}` });
+    expect(sent[0]!.data).toMatchObject({
+      balanceDue: '750.00',
+      currency: 'USD',
+      readySince: '2026-11-02',
+      payUrl: `http://storefront.test/builds/${unpaid.id}`,
+    });
     expect(await mails(paidInTime.id, 'balance-reminder')).toHaveLength(0);
 
     await sweepBoth(new Date(readyAt.getTime() + 9 * DAY));
@@ -174,14 +219,27 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     for (const booking of [left, paid]) {
       await first.db
         .insertInto('payments')
-        .values({ booking_id: booking.id, kind: 'deposit', amount: '150.00', amount_minor: 15000, currency: 'USD', status: 'pending', checkout_session_id: `cs_test_left_${booking.reference}`, created_at: openedAt })
+        .values({
+          booking_id: booking.id,
+          kind: 'deposit',
+          amount: '150.00',
+          amount_minor: 15000,
+          currency: 'USD',
+          status: 'pending',
+          checkout_session_id: `cs_test_left_${booking.reference}`,
+          created_at: openedAt,
+        })
         .execute();
     }
     await sweepBoth(new Date(openedAt.getTime() + 23 * HOUR));
     expect(await mails(left.id, 'checkout-reminder')).toHaveLength(0);
 
     // The other player finishes paying within the day (the webhook's own moves, written directly).
-    await first.db.updateTable('payments').set({ status: 'paid', paid_at: new Date(openedAt.getTime() + 2 * HOUR) }).where('booking_id', '=', paid.id).execute();
+    await first.db
+      .updateTable('payments')
+      .set({ status: 'paid', paid_at: new Date(openedAt.getTime() + 2 * HOUR) })
+      .where('booking_id', '=', paid.id)
+      .execute();
     await first.db.updateTable('bookings').set({ state: 'deposit_paid' }).where('id', '=', paid.id).execute();
 
     const [a, b] = await sweepBoth(new Date(openedAt.getTime() + 25 * HOUR));
@@ -202,12 +260,23 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     await first.db.updateTable('bookings').set({ created_at: requestedAt }).where('id', 'in', [stale.id, settling.id]).execute();
     // The player opened the deposit checkout (the payment fake holds the session) and left it open.
     const checkout = await first.http().post(`/api/bookings/${stale.id}/checkout`).set('Cookie', player).send({}).expect(200);
-    const sessionId = (await first.db.selectFrom('payments').select('checkout_session_id').where('booking_id', '=', stale.id).executeTakeFirstOrThrow()).checkout_session_id!;
+    const sessionId = (
+      await first.db.selectFrom('payments').select('checkout_session_id').where('booking_id', '=', stale.id).executeTakeFirstOrThrow()
+    ).checkout_session_id!;
     expect(checkout.body.url).toBeTruthy();
     // A bank debit for the other one is still settling: money on its way keeps it open.
     await first.db
       .insertInto('payments')
-      .values({ booking_id: settling.id, kind: 'deposit', amount: '150.00', amount_minor: 15000, currency: 'USD', status: 'processing', checkout_session_id: 'cs_test_settling', created_at: requestedAt })
+      .values({
+        booking_id: settling.id,
+        kind: 'deposit',
+        amount: '150.00',
+        amount_minor: 15000,
+        currency: 'USD',
+        status: 'processing',
+        checkout_session_id: 'cs_test_settling',
+        created_at: requestedAt,
+      })
       .execute();
     // Another build holds bench time; expiry must neither take nor give any.
     const holding = await scheduled(quietMondayWeeksAhead(4));
@@ -215,30 +284,56 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     expect(benchBefore.length).toBeGreaterThan(0);
 
     await sweepBoth(new Date(requestedAt.getTime() + 29 * DAY));
-    expect((await first.db.selectFrom('bookings').select('state').where('id', '=', stale.id).executeTakeFirstOrThrow()).state).toBe('requested');
+    expect((await first.db.selectFrom('bookings').select('state').where('id', '=', stale.id).executeTakeFirstOrThrow()).state).toBe(
+      'requested',
+    );
 
     const [a, b] = await sweepBoth(new Date(requestedAt.getTime() + 30 * DAY + HOUR));
     expect(a.requestExpiry + b.requestExpiry).toBe(1);
-    const row = await first.db.selectFrom('bookings').select(['state', 'cancel_reason']).where('id', '=', stale.id).executeTakeFirstOrThrow();
+    const row = await first.db
+      .selectFrom('bookings')
+      .select(['state', 'cancel_reason'])
+      .where('id', '=', stale.id)
+      .executeTakeFirstOrThrow();
     expect(row.state).toBe('cancelled');
     expect(row.cancel_reason).toMatch(/not paid within 30 days/);
-    const moves = await first.db.selectFrom('booking_events').select(['from_state', 'to_state', 'visibility', 'actor_label']).where('booking_id', '=', stale.id).where('to_state', '=', 'cancelled').execute();
+    const moves = await first.db
+      .selectFrom('booking_events')
+      .select(['from_state', 'to_state', 'visibility', 'actor_label'])
+      .where('booking_id', '=', stale.id)
+      .where('to_state', '=', 'cancelled')
+      .execute();
     expect(moves).toEqual([{ from_state: 'requested', to_state: 'cancelled', visibility: 'player', actor_label: 'Loomwright reminders' }]);
     expect(await mails(stale.id, 'request-expired')).toHaveLength(1);
     // Expired before its unfinished-checkout reminder: the player gets one letter, not two.
     expect(await mails(stale.id, 'checkout-reminder')).toHaveLength(0);
     // The provider's session is closed, so nothing can be paid on the expired request.
     expect((await stripe.checkout.sessions.retrieve(sessionId)).status).toBe('expired');
-    expect((await first.db.selectFrom('payments').select('status').where('booking_id', '=', stale.id).executeTakeFirstOrThrow()).status).toBe('expired');
+    expect(
+      (await first.db.selectFrom('payments').select('status').where('booking_id', '=', stale.id).executeTakeFirstOrThrow()).status,
+    ).toBe('expired');
 
-    expect((await first.db.selectFrom('bookings').select('state').where('id', '=', settling.id).executeTakeFirstOrThrow()).state).toBe('requested');
+    expect((await first.db.selectFrom('bookings').select('state').where('id', '=', settling.id).executeTakeFirstOrThrow()).state).toBe(
+      'requested',
+    );
     expect(await mails(settling.id, 'request-expired')).toHaveLength(0);
-    expect(await first.db.selectFrom('bench_allocations').select(['booking_id', 'day', 'hours']).orderBy('day').execute()).toEqual(benchBefore);
-    expect((await first.db.selectFrom('bookings').select('state').where('id', '=', holding.id).executeTakeFirstOrThrow()).state).toBe('scheduled');
+    expect(await first.db.selectFrom('bench_allocations').select(['booking_id', 'day', 'hours']).orderBy('day').execute()).toEqual(
+      benchBefore,
+    );
+    expect((await first.db.selectFrom('bookings').select('state').where('id', '=', holding.id).executeTakeFirstOrThrow()).state).toBe(
+      'scheduled',
+    );
 
     await sweepBoth(new Date(requestedAt.getTime() + 40 * DAY));
     expect(await mails(stale.id, 'request-expired')).toHaveLength(1);
-    expect(await first.db.selectFrom('booking_events').select('id').where('booking_id', '=', stale.id).where('to_state', '=', 'cancelled').execute()).toHaveLength(1);
+    expect(
+      await first.db
+        .selectFrom('booking_events')
+        .select('id')
+        .where('booking_id', '=', stale.id)
+        .where('to_state', '=', 'cancelled')
+        .execute(),
+    ).toHaveLength(1);
 
     // Every reminder mail is in the Mail log the owner reads.
     const log = await first.http().get('/api/mail').query({ q: 'player@mail.example', pageSize: 100 }).set('Cookie', owner).expect(200);
@@ -253,13 +348,23 @@ describe('reminders and request expiry, with a controlled clock and two workers'
       checkoutAbandoned: { enabled: true, hoursAfter: 24 },
       requestExpiry: { enabled: true, daysUnpaid: 30 },
     });
-    const bad = await first.http().patch('/api/settings/reminders').set('Cookie', owner).send({ shipBy: { daysBefore: 0 } }).expect(400);
+    const bad = await first
+      .http()
+      .patch('/api/settings/reminders')
+      .set('Cookie', owner)
+      .send({ shipBy: { daysBefore: 0 } })
+      .expect(400);
     expect(bad.body.code).toBe('validation_failed');
     expect(bad.body.message).toBe('Days before the ship-by day must be a whole number from 1 to 30 days');
     const empty = await first.http().patch('/api/settings/reminders').set('Cookie', owner).send({ balanceUnpaid: {} }).expect(400);
     expect(empty.body.message).toMatch(/Say what to change for the balance reminder/);
     const builder = await sessionCookieFor(first, 'builder');
-    await first.http().patch('/api/settings/reminders').set('Cookie', builder).send({ requestExpiry: { enabled: false } }).expect(403);
+    await first
+      .http()
+      .patch('/api/settings/reminders')
+      .set('Cookie', builder)
+      .send({ requestExpiry: { enabled: false } })
+      .expect(403);
 
     const changed = await first
       .http()
@@ -277,10 +382,17 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     const readyAt = new Date('2026-11-02T18:00:00Z');
     const ready = await readyBuild(readyAt);
     await sweepBoth(new Date(readyAt.getTime() + 2 * DAY + HOUR));
-    expect((await first.db.selectFrom('bookings').select('state').where('id', '=', old.id).executeTakeFirstOrThrow()).state).toBe('requested');
+    expect((await first.db.selectFrom('bookings').select('state').where('id', '=', old.id).executeTakeFirstOrThrow()).state).toBe(
+      'requested',
+    );
     expect(await mails(ready.id, 'balance-reminder')).toHaveLength(1);
 
-    await first.http().patch('/api/settings/reminders').set('Cookie', owner).send({ requestExpiry: { enabled: true }, balanceUnpaid: { daysAfterReady: 7 } }).expect(200);
+    await first
+      .http()
+      .patch('/api/settings/reminders')
+      .set('Cookie', owner)
+      .send({ requestExpiry: { enabled: true }, balanceUnpaid: { daysAfterReady: 7 } })
+      .expect(200);
   });
 
   it('runs from the pg-boss queue: a sweep job sent through the queue is worked by a worker and sends once', async () => {
@@ -289,7 +401,16 @@ describe('reminders and request expiry, with a controlled clock and two workers'
     const left = await createBooking(first.db, { state: 'requested', laborHours: '3.00' });
     await first.db
       .insertInto('payments')
-      .values({ booking_id: left.id, kind: 'deposit', amount: '150.00', amount_minor: 15000, currency: 'USD', status: 'pending', checkout_session_id: 'cs_test_queue', created_at: openedAt })
+      .values({
+        booking_id: left.id,
+        kind: 'deposit',
+        amount: '150.00',
+        amount_minor: 15000,
+        currency: 'USD',
+        status: 'pending',
+        checkout_session_id: 'cs_test_queue',
+        created_at: openedAt,
+      })
       .execute();
     const workers = [first.app.get(RemindersWorker), second.app.get(RemindersWorker)];
     try {
@@ -301,7 +422,9 @@ describe('reminders and request expiry, with a controlled clock and two workers'
       // Give any second job time to run as well, then count.
       await new Promise((r) => setTimeout(r, 1500));
       expect(await mails(left.id, 'checkout-reminder')).toHaveLength(1);
-      const jobs = await sql<{ n: string }>`select count(*)::text as n from pgboss.job where name = ${REMINDERS_QUEUE} and state = 'completed'`.execute(first.db);
+      const jobs = await sql<{
+        n: string;
+      }>`select count(*)::text as n from pgboss.job where name = ${REMINDERS_QUEUE} and state = 'completed'`.execute(first.db);
       expect(Number(jobs.rows[0]!.n)).toBeGreaterThanOrEqual(1);
     } finally {
       await Promise.all(workers.map((w) => w.stop()));

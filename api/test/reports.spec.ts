@@ -17,11 +17,14 @@ let owner: Awaited<ReturnType<typeof signIn>>;
 type Row = Record<string, string>;
 
 async function csv(path: string): Promise<Row[]> {
-  const res = await owner.get(path).buffer(true).parse((r, done) => {
-    const chunks: Buffer[] = [];
-    r.on('data', (c: Buffer) => chunks.push(c));
-    r.on('end', () => done(null, Buffer.concat(chunks)));
-  });
+  const res = await owner
+    .get(path)
+    .buffer(true)
+    .parse((r, done) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => done(null, Buffer.concat(chunks)));
+    });
   expect(res.status).toBe(200);
   return parse(res.body as Buffer, { bom: true, columns: true }) as Row[];
 }
@@ -63,22 +66,53 @@ beforeAll(async () => {
   a = await createBooking(t.db, { laborHours: '8.00', deposit: '150.00' });
   b = await createBooking(t.db, { laborHours: '4.00', deposit: '90.00' });
   c = await createBooking(t.db, { laborHours: '5.00', deposit: '120.00', state: 'requested' });
-  await t.db.updateTable('bookings').set({ created_at: new Date('2026-11-02T15:00:00Z') }).execute();
+  await t.db
+    .updateTable('bookings')
+    .set({ created_at: new Date('2026-11-02T15:00:00Z') })
+    .execute();
   // a: scheduled with the master at a firm 1,000.00, deposit paid in November, balance 300 paid in December.
-  await t.db.updateTable('bookings').set({ state: 'on_bench', builder_id: master, bench_date: '2026-11-23' }).where('id', '=', a.id).execute();
+  await t.db
+    .updateTable('bookings')
+    .set({ state: 'on_bench', builder_id: master, bench_date: '2026-11-23' })
+    .where('id', '=', a.id)
+    .execute();
   await firmQuote(a.id, '1000.00', '8.00');
-  await t.db.updateTable('payments').set({ paid_at: new Date('2026-11-03T17:00:00Z') }).where('booking_id', '=', a.id).execute();
+  await t.db
+    .updateTable('payments')
+    .set({ paid_at: new Date('2026-11-03T17:00:00Z') })
+    .where('booking_id', '=', a.id)
+    .execute();
   await t.db
     .insertInto('payments')
-    .values({ booking_id: a.id, kind: 'balance', amount: '300.00', amount_minor: 30000, currency: 'USD', status: 'paid', paid_at: new Date('2026-12-01T18:00:00Z') })
+    .values({
+      booking_id: a.id,
+      kind: 'balance',
+      amount: '300.00',
+      amount_minor: 30000,
+      currency: 'USD',
+      status: 'paid',
+      paid_at: new Date('2026-12-01T18:00:00Z'),
+    })
     .execute();
   // b: with the junior at a firm 500.00; deposit paid 30 Nov 23:30 Chicago (1 Dec 05:30 UTC): November on the shop's books.
-  await t.db.updateTable('bookings').set({ state: 'scheduled', builder_id: junior, bench_date: '2026-11-30' }).where('id', '=', b.id).execute();
+  await t.db
+    .updateTable('bookings')
+    .set({ state: 'scheduled', builder_id: junior, bench_date: '2026-11-30' })
+    .where('id', '=', b.id)
+    .execute();
   await firmQuote(b.id, '500.00', '4.00');
-  await t.db.updateTable('payments').set({ paid_at: new Date('2026-12-01T05:30:00Z') }).where('booking_id', '=', b.id).execute();
+  await t.db
+    .updateTable('payments')
+    .set({ paid_at: new Date('2026-12-01T05:30:00Z') })
+    .where('booking_id', '=', b.id)
+    .execute();
   // A refund in December of an earlier, cancelled booking's deposit.
   const gone = await createBooking(t.db, { laborHours: '2.00', deposit: '60.00' });
-  await t.db.updateTable('bookings').set({ state: 'cancelled', created_at: new Date('2026-10-20T15:00:00Z') }).where('id', '=', gone.id).execute();
+  await t.db
+    .updateTable('bookings')
+    .set({ state: 'cancelled', created_at: new Date('2026-10-20T15:00:00Z') })
+    .where('id', '=', gone.id)
+    .execute();
   await t.db
     .updateTable('payments')
     .set({ status: 'refunded', paid_at: new Date('2026-10-20T16:00:00Z'), refunded_at: new Date('2026-12-04T16:00:00Z') })
@@ -118,8 +152,12 @@ describe('GET /api/reports/revenue', () => {
     expect(report.months.map((m) => m.month)).toEqual(['2026-09', '2026-10', '2026-11', '2026-12']);
     for (const m of report.months) {
       const mine = rows.filter((r) => r.at.startsWith(m.month));
-      expect(m.deposits, m.month).toBe(total(mine.filter((r) => r.entry === 'payment' && r.payment_kind === 'deposit').map((r) => r.amount)));
-      expect(m.balances, m.month).toBe(total(mine.filter((r) => r.entry === 'payment' && r.payment_kind === 'balance').map((r) => r.amount)));
+      expect(m.deposits, m.month).toBe(
+        total(mine.filter((r) => r.entry === 'payment' && r.payment_kind === 'deposit').map((r) => r.amount)),
+      );
+      expect(m.balances, m.month).toBe(
+        total(mine.filter((r) => r.entry === 'payment' && r.payment_kind === 'balance').map((r) => r.amount)),
+      );
       expect(m.refunds, m.month).toBe(new Decimal(total(mine.filter((r) => r.entry === 'refund').map((r) => r.amount))).neg().toFixed(2));
       expect(m.net, m.month).toBe(total(mine.map((r) => r.amount)));
     }
@@ -138,8 +176,12 @@ describe('GET /api/reports/outstanding', () => {
     const open = ['scheduled', 'pedals_received', 'on_bench', 'testing', 'ready', 'delivered'];
     const balances = rows.filter((r) => open.includes(r.state) && new Decimal(r.balance_due || 0).gt(0));
     const deposits = rows.filter((r) => r.state === 'requested' && new Decimal(r.paid).isZero());
-    expect(report.items.filter((i) => i.kind === 'balance').map((i) => [i.reference, i.amount])).toEqual(balances.map((r) => [r.reference, r.balance_due]));
-    expect(report.items.filter((i) => i.kind === 'deposit').map((i) => [i.reference, i.amount])).toEqual(deposits.map((r) => [r.reference, r.deposit]));
+    expect(report.items.filter((i) => i.kind === 'balance').map((i) => [i.reference, i.amount])).toEqual(
+      balances.map((r) => [r.reference, r.balance_due]),
+    );
+    expect(report.items.filter((i) => i.kind === 'deposit').map((i) => [i.reference, i.amount])).toEqual(
+      deposits.map((r) => [r.reference, r.deposit]),
+    );
     // a owes 1,000 − 150 − 300 = 550; b owes 500 − 90 = 410; c's deposit of 120 is unpaid; the cancelled one owes nothing.
     expect(report.totals).toEqual(
       expect.arrayContaining([
@@ -165,8 +207,17 @@ describe('GET /api/reports/hours', () => {
       expect(r.hoursInRange, r.builderName).toBe(total(hours.filter((h) => h.builder_name === r.builderName).map((h) => h.hours)));
     }
     // a: quoted 8; 3.5 + 4.25 + 0.75 in the range; 10.5 to date (2 more on 1 Dec): 2.5 h over.
-    expect(report.builds.find((r) => r.reference === a.reference)).toMatchObject({ quotedHours: '8.00', hoursInRange: '8.50', hoursToDate: '10.50', overQuote: '2.50' });
-    expect(report.builds.find((r) => r.reference === b.reference)).toMatchObject({ quotedHours: '4.00', hoursInRange: '1.50', overQuote: '-2.50' });
+    expect(report.builds.find((r) => r.reference === a.reference)).toMatchObject({
+      quotedHours: '8.00',
+      hoursInRange: '8.50',
+      hoursToDate: '10.50',
+      overQuote: '2.50',
+    });
+    expect(report.builds.find((r) => r.reference === b.reference)).toMatchObject({
+      quotedHours: '4.00',
+      hoursInRange: '1.50',
+      overQuote: '-2.50',
+    });
   });
 });
 
@@ -187,7 +238,9 @@ describe('GET /api/reports/utilisation', () => {
     const hours = await csv('/api/exports/hours.csv?from=2026-11-23&to=2026-12-06');
     for (const builder of report.builders) {
       for (const w of builder.weeks) {
-        const mine = hours.filter((h) => h.builder_name === builder.builderName && h.worked_on >= w.weekStart && h.worked_on <= addDays(w.weekStart, 6));
+        const mine = hours.filter(
+          (h) => h.builder_name === builder.builderName && h.worked_on >= w.weekStart && h.worked_on <= addDays(w.weekStart, 6),
+        );
         expect(w.recordedHours, `${builder.builderName} ${w.isoWeek}`).toBe(total(mine.map((h) => h.hours)));
       }
     }
@@ -213,7 +266,12 @@ describe('refusals and roles', () => {
     expect(bad.status).toBe(400);
     expect(JSON.stringify(bad.body.message)).toMatch(/Last day must be on or after the first day/);
     const builder = await signIn(t.app, 'builder@shop.example');
-    for (const path of ['/api/reports/revenue?from=2026-01-01&to=2026-01-31', '/api/reports/outstanding', '/api/reports/hours?from=2026-01-01&to=2026-01-31', '/api/reports/utilisation?from=2026-01-01&to=2026-01-31']) {
+    for (const path of [
+      '/api/reports/revenue?from=2026-01-01&to=2026-01-31',
+      '/api/reports/outstanding',
+      '/api/reports/hours?from=2026-01-01&to=2026-01-31',
+      '/api/reports/utilisation?from=2026-01-01&to=2026-01-31',
+    ]) {
       expect((await builder.get(path)).status, path).toBe(403);
     }
   });

@@ -29,7 +29,12 @@ describe('saved configurations, short links and quotes the player keeps', () => 
   const stage: RigConfiguration = {
     ...referenceBoard('switcher', 'journeyman'),
     routing: { mode: 'switcher', switcher: { currentMa: 300 } },
-    powerSupply: { outputs: [{ voltage: 9, currentMa: 500, isolated: true }, ...Array.from({ length: 5 }, () => ({ voltage: 9, currentMa: 250, isolated: true }))] },
+    powerSupply: {
+      outputs: [
+        { voltage: 9, currentMa: 500, isolated: true },
+        ...Array.from({ length: 5 }, () => ({ voltage: 9, currentMa: 250, isolated: true })),
+      ],
+    },
   };
   const small: RigConfiguration = { ...referenceBoard('serial', 'apprentice') };
   const asA = () => ({
@@ -38,7 +43,8 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     patch: (url: string, body: object) => t.http().patch(url).set('Cookie', a).send(body),
     delete: (url: string) => t.http().delete(url).set('Cookie', a).set('Content-Type', 'application/json'),
   });
-  const inbox = async (to: string): Promise<CaughtMessage[]> => (await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages?to=${to}`)).json();
+  const inbox = async (to: string): Promise<CaughtMessage[]> =>
+    (await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages?to=${to}`)).json();
 
   beforeAll(async () => {
     fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
@@ -73,7 +79,11 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     const renamed = (await asA().patch(`/api/configurations/${saved.id}`, { name: 'Stage board 2027' }).expect(200)).body;
     expect(renamed.name).toBe('Stage board 2027');
     expect(renamed.configuration).toEqual(stage);
-    const changed = (await asA().patch(`/api/configurations/${saved.id}`, { configuration: { ...stage, level: 'master' } }).expect(200)).body;
+    const changed = (
+      await asA()
+        .patch(`/api/configurations/${saved.id}`, { configuration: { ...stage, level: 'master' } })
+        .expect(200)
+    ).body;
     expect(changed.configuration.level).toBe('master');
     expect(changed.name).toBe('Stage board 2027');
 
@@ -103,7 +113,9 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     expect(noName.body.message).toContain('Give the configuration a name');
     const nothing = await asA().patch('/api/configurations/00000000-0000-4000-8000-000000000000', {}).expect(400);
     expect(nothing.body.message).toContain('Send a new name, a changed configuration, or both');
-    const surface = await asA().post('/api/configurations', { name: 'Plank', configuration: { ...small, surfaceId: 'plank-9000' } }).expect(400);
+    const surface = await asA()
+      .post('/api/configurations', { name: 'Plank', configuration: { ...small, surfaceId: 'plank-9000' } })
+      .expect(400);
     expect(surface.body.message).toContain('plank-9000');
     const badId = await asA().get('/api/configurations/not-an-id').expect(400);
     expect(badId.body.message).toContain('saved board could not be found');
@@ -114,10 +126,19 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     for (let i = 0; i < MAX_SAVED_CONFIGURATIONS; i += 1) {
       await t.db
         .insertInto('saved_configurations')
-        .values({ owner_id: (await t.db.selectFrom('users').select('id').where('email', '=', 'owner@shop.example').executeTakeFirstOrThrow()).id, name: `Rig ${i}`, configuration: JSON.stringify(small) })
+        .values({
+          owner_id: (await t.db.selectFrom('users').select('id').where('email', '=', 'owner@shop.example').executeTakeFirstOrThrow()).id,
+          name: `Rig ${i}`,
+          configuration: JSON.stringify(small),
+        })
         .execute();
     }
-    const res = await t.http().post('/api/configurations').set('Cookie', cookie).send({ name: 'One more', configuration: small }).expect(409);
+    const res = await t
+      .http()
+      .post('/api/configurations')
+      .set('Cookie', cookie)
+      .send({ name: 'One more', configuration: small })
+      .expect(409);
     expect(res.body.message).toBe(configurationMessages.tooMany);
   });
 
@@ -127,7 +148,9 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     expect(first.path).toBe(`/c/${first.code}`);
     // Key order is not part of a configuration: the same rig written differently gets the same code.
     const reordered = Object.fromEntries(Object.entries(stage).reverse());
-    expect((await t.http().post('/api/configuration-links').set('Cookie', a).send({ configuration: reordered }).expect(201)).body.code).toBe(first.code);
+    expect(
+      (await t.http().post('/api/configuration-links').set('Cookie', a).send({ configuration: reordered }).expect(201)).body.code,
+    ).toBe(first.code);
     expect((await t.http().post('/api/configuration-links').send({ configuration: small }).expect(201)).body.code).not.toBe(first.code);
 
     const opened = (await t.http().get(`/api/configuration-links/${first.code}`).expect(200)).body;
@@ -140,7 +163,11 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     expect(missing.body.message).toBe(configurationMessages.linkNotFound);
     const bad = await t.http().get('/api/configuration-links/no-such!').expect(400);
     expect(bad.body.message).toContain('letters and digits');
-    await t.http().post('/api/configuration-links').send({ configuration: { ...stage, routing: { mode: 'daisy' } } }).expect(400);
+    await t
+      .http()
+      .post('/api/configuration-links')
+      .send({ configuration: { ...stage, routing: { mode: 'daisy' } } })
+      .expect(400);
   });
 
   it('e-mails any configuration’s quote to the signed-in player with its lines, the PDF attached (its totals the API’s) and a short link, at most five an hour', async () => {
@@ -167,12 +194,19 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     for (let i = 1; i < QUOTE_EMAILS_PER_HOUR; i += 1) await asA().post('/api/quotes/email', { configuration: small }).expect(202);
     const limited = await asA().post('/api/quotes/email', { configuration: small }).expect(429);
     expect(limited.body.message).toBe(configurationMessages.quoteEmailLimit);
-    expect(await t.db.selectFrom('mail_outbox').select('id').where('template', '=', 'configuration-quote').execute()).toHaveLength(QUOTE_EMAILS_PER_HOUR);
+    expect(await t.db.selectFrom('mail_outbox').select('id').where('template', '=', 'configuration-quote').execute()).toHaveLength(
+      QUOTE_EMAILS_PER_HOUR,
+    );
     // Another player has their own allowance; nobody signed in has none.
     await t.http().post('/api/quotes/email').set('Cookie', b).send({ configuration: small }).expect(202);
     await t.http().post('/api/quotes/email').send({ configuration: small }).expect(401);
     // There is no field for another address: the quote goes only to the account's own.
-    const elsewhere = await t.http().post('/api/quotes/email').set('Cookie', b).send({ configuration: small, to: 'someone@else.example' }).expect(400);
+    const elsewhere = await t
+      .http()
+      .post('/api/quotes/email')
+      .set('Cookie', b)
+      .send({ configuration: small, to: 'someone@else.example' })
+      .expect(400);
     expect(elsewhere.body.message).toContain('"to" is not a field');
   });
 
@@ -194,10 +228,18 @@ describe('saved configurations, short links and quotes the player keeps', () => 
     expect(text).toContain('Patch cables');
 
     // Staff may open it; another player gets 404; nobody signed in gets 401 in words, or a browser is sent to sign in.
-    await t.http().get(`/api/bookings/${booking.id}/quote.pdf`).set('Cookie', await sessionCookieFor(t, 'builder')).expect(200);
+    await t
+      .http()
+      .get(`/api/bookings/${booking.id}/quote.pdf`)
+      .set('Cookie', await sessionCookieFor(t, 'builder'))
+      .expect(200);
     await t.http().get(`/api/bookings/${booking.id}/quote.pdf`).set('Cookie', b).expect(404);
     expect((await t.http().get(`/api/bookings/${booking.id}/quote.pdf`).expect(401)).body.message).toContain('sign in');
-    const browser = await t.http().get(`/api/bookings/${booking.id}/quote.pdf`).set('Accept', 'text/html,application/xhtml+xml,*/*;q=0.8').expect(302);
+    const browser = await t
+      .http()
+      .get(`/api/bookings/${booking.id}/quote.pdf`)
+      .set('Accept', 'text/html,application/xhtml+xml,*/*;q=0.8')
+      .expect(302);
     expect(browser.headers.location).toBe(`/sign-in?next=${encodeURIComponent(`/builds/${booking.id}`)}`);
   });
 });

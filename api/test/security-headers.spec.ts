@@ -27,7 +27,10 @@ function directives(csp: string | undefined): Map<string, string[]> {
 }
 
 /** `<script>` elements with a body: the inline code a CSP without 'unsafe-inline' would block. */
-const inlineScripts = (html: string) => [...html.matchAll(/<script\b[^>]*>([\s\S]*?)<\/script>/gi)].filter(([tag, body]) => !/\bsrc=/.test(tag.split('>')[0]!) || body!.trim() !== '');
+const inlineScripts = (html: string) =>
+  [...html.matchAll(/<script\b[^>]*>([\s\S]*?)<\/script>/gi)].filter(
+    ([tag, body]) => !/\bsrc=/.test(tag.split('>')[0]!) || body!.trim() !== '',
+  );
 
 describe('security headers on every answer', () => {
   let app: INestApplication;
@@ -66,7 +69,9 @@ describe('security headers on every answer', () => {
 
   it.each(pages)('%s (%s) carries the CSP, nosniff, Referrer-Policy, frame refusal and no X-Powered-By', async (_what, url, type) => {
     const res = await t.http().get(url);
-    expect(res.status, `${url} answered ${res.status}; run npm run build first if an app is missing`).toBe(url === '/api/auth/me' ? 401 : 200);
+    expect(res.status, `${url} answered ${res.status}; run npm run build first if an app is missing`).toBe(
+      url === '/api/auth/me' ? 401 : 200,
+    );
     expect(res.headers['content-type']).toContain(type);
     const csp = directives(res.headers['content-security-policy']);
     expect(csp.get('script-src')).toEqual(["'self'"]);

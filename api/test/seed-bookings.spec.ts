@@ -15,12 +15,35 @@ describe('demo bookings seed step', () => {
   it('seeds a consistent queue once, and a second run changes nothing', async () => {
     await seedBookings(t.db, { evenInTests: true });
     const count = async (table: 'bookings' | 'quotes' | 'bench_allocations' | 'booking_events' | 'payments') =>
-      Number((await t.db.selectFrom(table).select(sql<string>`count(*)`.as('n')).executeTakeFirstOrThrow()).n);
-    const before = { bookings: await count('bookings'), quotes: await count('quotes'), slices: await count('bench_allocations'), events: await count('booking_events'), payments: await count('payments') };
+      Number(
+        (
+          await t.db
+            .selectFrom(table)
+            .select(sql<string>`count(*)`.as('n'))
+            .executeTakeFirstOrThrow()
+        ).n,
+      );
+    const before = {
+      bookings: await count('bookings'),
+      quotes: await count('quotes'),
+      slices: await count('bench_allocations'),
+      events: await count('booking_events'),
+      payments: await count('payments'),
+    };
     await seedBookings(t.db, { evenInTests: true });
-    expect({ bookings: await count('bookings'), quotes: await count('quotes'), slices: await count('bench_allocations'), events: await count('booking_events'), payments: await count('payments') }).toEqual(before);
+    expect({
+      bookings: await count('bookings'),
+      quotes: await count('quotes'),
+      slices: await count('bench_allocations'),
+      events: await count('booking_events'),
+      payments: await count('payments'),
+    }).toEqual(before);
 
-    const rows = await t.db.selectFrom('bookings').select(['reference', 'state', 'bench_date', 'builder_id']).orderBy('reference').execute();
+    const rows = await t.db
+      .selectFrom('bookings')
+      .select(['reference', 'state', 'bench_date', 'builder_id'])
+      .orderBy('reference')
+      .execute();
     expect(rows.map((r) => [r.reference, r.state])).toEqual([
       ['LW-0901', 'requested'],
       ['LW-0902', 'deposit_paid'],
@@ -43,7 +66,13 @@ describe('demo bookings seed step', () => {
     const events = await t.db
       .selectFrom('booking_events')
       .innerJoin('bookings', 'bookings.id', 'booking_events.booking_id')
-      .select(['bookings.reference', 'bookings.created_at as requested_at', 'bookings.bench_date', 'booking_events.to_state', 'booking_events.created_at'])
+      .select([
+        'bookings.reference',
+        'bookings.created_at as requested_at',
+        'bookings.bench_date',
+        'booking_events.to_state',
+        'booking_events.created_at',
+      ])
       .orderBy('booking_events.id')
       .execute();
     const now = Date.now();
@@ -67,7 +96,10 @@ describe('demo bookings seed step', () => {
     const b = await t.db.selectFrom('bookings').select('id').where('reference', '=', 'LW-0903').executeTakeFirstOrThrow();
     const suggest = (await builder.get(`/api/bench/suggest?bookingId=${b.id}`).expect(200)).body as BenchSuggestResponse;
     const mine = suggest.suggestions.find((s) => s.builder.isMe)!;
-    const res = await builder.post(`/api/bookings/${b.id}/accept`).send({ builderId: mine.builder.id, benchDate: mine.benchDate }).expect(200);
+    const res = await builder
+      .post(`/api/bookings/${b.id}/accept`)
+      .send({ builderId: mine.builder.id, benchDate: mine.benchDate })
+      .expect(200);
     expect(res.body.expectedCompletion).toBe(mine.expectedCompletion);
     expect(res.body.firmQuote.total).toBe(mine.firmTotal);
   });

@@ -14,10 +14,9 @@ describe('short-lived sessions with renewal', () => {
     const { sid } = t.app.get(JwtService).decode<{ sid: string }>(await t.app.get(SessionsService).open(player));
     const iat = Math.floor(Date.now() / 1000) - minutes * 60;
     // jsonwebtoken honours an explicit iat and counts expiresIn from it.
-    return t.app.get(JwtService).sign(
-      { sub: player.id, sid, email: player.email, name: player.name, role: player.role, iat },
-      { expiresIn: SESSION_MINUTES * 60 },
-    );
+    return t.app
+      .get(JwtService)
+      .sign({ sub: player.id, sid, email: player.email, name: player.name, role: player.role, iat }, { expiresIn: SESSION_MINUTES * 60 });
   };
 
   beforeAll(async () => {
@@ -28,12 +27,20 @@ describe('short-lived sessions with renewal', () => {
   afterAll(async () => t.close());
 
   it('leaves a fresh session alone', async () => {
-    const res = await t.http().get('/api/auth/me').set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(2)}`).expect(200);
+    const res = await t
+      .http()
+      .get('/api/auth/me')
+      .set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(2)}`)
+      .expect(200);
     expect(sessionCookieOf(res)).toBeUndefined();
   });
 
   it('re-issues the cookie once more than half the lifetime has passed, with a full new lifetime', async () => {
-    const res = await t.http().get('/api/auth/me').set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(20)}`).expect(200);
+    const res = await t
+      .http()
+      .get('/api/auth/me')
+      .set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(20)}`)
+      .expect(200);
     const cookie = sessionCookieOf(res)!;
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(new RegExp(`Max-Age=${SESSION_MINUTES * 60}`));
@@ -46,20 +53,32 @@ describe('short-lived sessions with renewal', () => {
 
   it('renews from the stored account, so a changed name reaches the new token', async () => {
     await t.db.updateTable('users').set({ name: 'Rowan A. Achterberg' }).where('id', '=', player.id).execute();
-    const res = await t.http().get('/api/auth/me').set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(25)}`).expect(200);
+    const res = await t
+      .http()
+      .get('/api/auth/me')
+      .set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(25)}`)
+      .expect(200);
     const token = sessionCookieOf(res)!.split(';')[0]!.slice('lw_session='.length);
     expect(t.app.get(JwtService).decode<{ name: string }>(token).name).toBe('Rowan A. Achterberg');
   });
 
   it('refuses an expired session with 401 and words, and does not renew it', async () => {
-    const res = await t.http().get('/api/auth/me').set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(31)}`);
+    const res = await t
+      .http()
+      .get('/api/auth/me')
+      .set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(31)}`);
     expect(res.status).toBe(401);
     expect(res.body.message).toBe('Please sign in to do this.');
     expect(sessionCookieOf(res)).toBeUndefined();
   });
 
   it('does not undo a sign-out by renewing on the way out', async () => {
-    const res = await t.http().post('/api/auth/sign-out').set('Content-Type', 'application/json').set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(20)}`).expect(200);
+    const res = await t
+      .http()
+      .post('/api/auth/sign-out')
+      .set('Content-Type', 'application/json')
+      .set('Cookie', `lw_session=${await tokenIssuedMinutesAgo(20)}`)
+      .expect(200);
     const cookies = (res.headers['set-cookie'] as unknown as string[]).filter((c) => c.startsWith('lw_session='));
     expect(cookies).toHaveLength(1);
     expect(cookies[0]).toMatch(/^lw_session=;/);

@@ -53,11 +53,18 @@ describe('sessions end when asked', () => {
   });
 
   it('a renewed cookie keeps its session, so signing out ends the old and the new token together', async () => {
-    const player = await t.db.selectFrom('users').select(['id', 'email', 'name', 'role']).where('id', '=', playerId).executeTakeFirstOrThrow();
+    const player = await t.db
+      .selectFrom('users')
+      .select(['id', 'email', 'name', 'role'])
+      .where('id', '=', playerId)
+      .executeTakeFirstOrThrow();
     const jwt = t.app.get(JwtService);
     const { sid } = jwt.decode<{ sid: string }>(await t.app.get(SessionsService).open(player));
     // Issued 20 of 30 minutes ago: past half its life, so the next request renews it.
-    const aged = jwt.sign({ sub: player.id, sid, email: player.email, name: player.name, role: player.role, iat: Math.floor(Date.now() / 1000) - 20 * 60 }, { expiresIn: 30 * 60 });
+    const aged = jwt.sign(
+      { sub: player.id, sid, email: player.email, name: player.name, role: player.role, iat: Math.floor(Date.now() / 1000) - 20 * 60 },
+      { expiresIn: 30 * 60 },
+    );
     const renewed = asRequestCookie(sessionCookieOf(await me(`lw_session=${aged}`).expect(200))!);
     expect(jwt.decode<{ sid: string }>(renewed.slice('lw_session='.length)).sid).toBe(sid);
 
@@ -67,8 +74,14 @@ describe('sessions end when asked', () => {
   });
 
   it('refuses a token that names no session, even with a valid signature', async () => {
-    const player = await t.db.selectFrom('users').select(['id', 'email', 'name', 'role']).where('id', '=', playerId).executeTakeFirstOrThrow();
-    const withoutSession = t.app.get(JwtService).sign({ sub: player.id, email: player.email, name: player.name, role: player.role }, { expiresIn: 1800 });
+    const player = await t.db
+      .selectFrom('users')
+      .select(['id', 'email', 'name', 'role'])
+      .where('id', '=', playerId)
+      .executeTakeFirstOrThrow();
+    const withoutSession = t.app
+      .get(JwtService)
+      .sign({ sub: player.id, email: player.email, name: player.name, role: player.role }, { expiresIn: 1800 });
     const res = await me(`lw_session=${withoutSession}`);
     expect(res.status).toBe(401);
     expect(res.body.message).toBe('Your session has ended; please sign in again.');
@@ -84,7 +97,12 @@ describe('sessions end when asked', () => {
     expect(listed.body.userId).toBe(cass);
     expect(listed.body.sessions.map((s: { device: string }) => s.device).sort()).toEqual(['laptop browser', 'phone browser']);
 
-    const ended = await t.http().delete(`/api/users/${cass}/sessions`).set('Content-Type', 'application/json').set('Cookie', ownerCookie).expect(200);
+    const ended = await t
+      .http()
+      .delete(`/api/users/${cass}/sessions`)
+      .set('Content-Type', 'application/json')
+      .set('Cookie', ownerCookie)
+      .expect(200);
     expect(ended.body).toEqual({ userId: cass, ended: 2 });
     for (const cookie of [phone, laptop]) {
       const res = await me(cookie);
@@ -97,7 +115,12 @@ describe('sessions end when asked', () => {
 
     // History: who ended them and why.
     const ownerId = (await t.db.selectFrom('users').select('id').where('email', '=', 'owner@shop.example').executeTakeFirstOrThrow()).id;
-    const rows = await t.db.selectFrom('sessions').select(['ended_reason', 'ended_by']).where('user_id', '=', cass).where('ended_at', 'is not', null).execute();
+    const rows = await t.db
+      .selectFrom('sessions')
+      .select(['ended_reason', 'ended_by'])
+      .where('user_id', '=', cass)
+      .where('ended_at', 'is not', null)
+      .execute();
     expect(rows).toEqual([
       { ended_reason: 'signed_out_everywhere', ended_by: ownerId },
       { ended_reason: 'signed_out_everywhere', ended_by: ownerId },
@@ -111,10 +134,18 @@ describe('sessions end when asked', () => {
     const refused = await t.http().delete(`/api/users/${playerId}/sessions`).set('Content-Type', 'application/json').set('Cookie', builder);
     expect(refused.status).toBe(403);
     expect(refused.body.message).toBe('Only the shop owner can do this.');
-    const unknown = await t.http().delete('/api/users/00000000-0000-4000-8000-000000000000/sessions').set('Content-Type', 'application/json').set('Cookie', ownerCookie);
+    const unknown = await t
+      .http()
+      .delete('/api/users/00000000-0000-4000-8000-000000000000/sessions')
+      .set('Content-Type', 'application/json')
+      .set('Cookie', ownerCookie);
     expect(unknown.status).toBe(404);
     expect(unknown.body.message).toBe('There is no account with that id.');
-    const malformed = await t.http().delete('/api/users/not-an-id/sessions').set('Content-Type', 'application/json').set('Cookie', ownerCookie);
+    const malformed = await t
+      .http()
+      .delete('/api/users/not-an-id/sessions')
+      .set('Content-Type', 'application/json')
+      .set('Cookie', ownerCookie);
     expect(malformed.status).toBe(400);
     expect(malformed.body.message).toBe('This address does not name an account; open it again from its list');
   });
@@ -123,7 +154,12 @@ describe('sessions end when asked', () => {
     const first = await signInAs('player@mail.example', 'old phone');
     const second = await signInAs('player@mail.example', 'old laptop');
     await t.http().post('/api/auth/password-reset').send({ email: 'player@mail.example' }).expect(202);
-    const mail = await t.db.selectFrom('mail_outbox').select('data').where('template', '=', 'password-reset').orderBy('created_at', 'desc').executeTakeFirstOrThrow();
+    const mail = await t.db
+      .selectFrom('mail_outbox')
+      .select('data')
+      .where('template', '=', 'password-reset')
+      .orderBy('created_at', 'desc')
+      .executeTakeFirstOrThrow();
     const token = new URL(String((mail.data as { resetUrl: string }).resetUrl)).searchParams.get('token')!;
     const done = await t.http().post('/api/auth/password-reset/confirm').send({ token, password: 'a-fresh-password-2026' }).expect(200);
 

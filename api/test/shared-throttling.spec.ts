@@ -23,7 +23,11 @@ describe('throttling shared by two API instances on one database', () => {
     first = await createTestApp({ env: { AUTH_THROTTLE_LIMIT: String(LIMIT), AUTH_THROTTLE_SECONDS: '60' } });
     const sharedUrl = process.env.DATABASE_URL!;
     // A second Nest application (its own pool, its own throttler), on the first one's database.
-    second = await createTestApp({ seed: false, databaseUrlOverride: () => sharedUrl, env: { AUTH_THROTTLE_LIMIT: String(LIMIT), AUTH_THROTTLE_SECONDS: '60' } });
+    second = await createTestApp({
+      seed: false,
+      databaseUrlOverride: () => sharedUrl,
+      env: { AUTH_THROTTLE_LIMIT: String(LIMIT), AUTH_THROTTLE_SECONDS: '60' },
+    });
   }, 60_000);
   afterAll(async () => {
     await second?.close();
@@ -73,7 +77,7 @@ describe('TRUST_PROXY: the client address behind a load balancer', () => {
 });
 
 describe('TRUST_PROXY values', () => {
-  it('takes Express\'s forms and refuses anything else in words', async () => {
+  it("takes Express's forms and refuses anything else in words", async () => {
     const { validateEnvironment } = await import('../src/config/configuration');
     expect(validateEnvironment({}).TRUST_PROXY).toBe(false);
     expect(validateEnvironment({ TRUST_PROXY: '2' }).TRUST_PROXY).toBe(2);

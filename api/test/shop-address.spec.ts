@@ -20,7 +20,19 @@ describe('shop postal address (PATCH /api/settings postalAddress)', () => {
     expect((await t.http().get('/api/settings').set('Cookie', owner).expect(200)).body.postalAddress).toBeNull();
     const shop = await t.app.get(ShopService).profile();
     expect(shop.postalAddress).toBeNull();
-    const mail = renderMail('booking-scheduled', { name: 'Rosa', reference: 'LW-1042', benchDate: '2027-01-12', shipBy: '2027-01-08', builderLevel: 'journeyman', expectedCompletion: '2027-01-15', pedals: ['tuner', 'fuzz'] }, shop);
+    const mail = renderMail(
+      'booking-scheduled',
+      {
+        name: 'Rosa',
+        reference: 'LW-1042',
+        benchDate: '2027-01-12',
+        shipBy: '2027-01-08',
+        builderLevel: 'journeyman',
+        expectedCompletion: '2027-01-15',
+        pedals: ['tuner', 'fuzz'],
+      },
+      shop,
+    );
     expect(mail.text).toContain('for the address');
   });
 
@@ -32,20 +44,43 @@ describe('shop postal address (PATCH /api/settings postalAddress)', () => {
     expect(profile.postalAddress).toBe(`14 Foundry Lane, Unit 3, Millbrook, OR 97000, ${profile.countryCode}`);
     const mail = renderMail(
       'booking-scheduled',
-      { name: 'Rosa', reference: 'LW-1042', benchDate: '2027-01-12', shipBy: '2027-01-08', builderLevel: 'journeyman', expectedCompletion: '2027-01-15', pedals: ['tuner', 'fuzz'] },
+      {
+        name: 'Rosa',
+        reference: 'LW-1042',
+        benchDate: '2027-01-12',
+        shipBy: '2027-01-08',
+        builderLevel: 'journeyman',
+        expectedCompletion: '2027-01-15',
+        pedals: ['tuner', 'fuzz'],
+      },
       await t.app.get(ShopService).profile(),
     );
     expect(mail.text).toContain('14 Foundry Lane, Unit 3, Millbrook, OR 97000');
     expect(mail.text).not.toContain('for the address');
     // A region and a second line are optional.
-    const short = await t.http().patch('/api/settings').set('Cookie', owner).send({ postalAddress: { line1: '2 Mill Row', city: 'Harrow Vale', postalCode: 'HV1 2AB' } }).expect(200);
+    const short = await t
+      .http()
+      .patch('/api/settings')
+      .set('Cookie', owner)
+      .send({ postalAddress: { line1: '2 Mill Row', city: 'Harrow Vale', postalCode: 'HV1 2AB' } })
+      .expect(200);
     expect(short.body.postalAddress).toEqual({ line1: '2 Mill Row', line2: '', city: 'Harrow Vale', region: '', postalCode: 'HV1 2AB' });
   });
 
   it('answers a missing street, city or postal code with 400 naming each field, and lets only the owner change it', async () => {
-    const bad = await t.http().patch('/api/settings').set('Cookie', owner).send({ postalAddress: { line1: '', city: '', postalCode: 7 } }).expect(400);
+    const bad = await t
+      .http()
+      .patch('/api/settings')
+      .set('Cookie', owner)
+      .send({ postalAddress: { line1: '', city: '', postalCode: 7 } })
+      .expect(400);
     const words = JSON.stringify(bad.body);
     for (const field of ['postalAddress.line1', 'postalAddress.city', 'postalAddress.postalCode']) expect(words).toContain(field);
-    await t.http().patch('/api/settings').set('Cookie', await sessionCookieFor(t, 'builder')).send({ postalAddress: address }).expect(403);
+    await t
+      .http()
+      .patch('/api/settings')
+      .set('Cookie', await sessionCookieFor(t, 'builder'))
+      .send({ postalAddress: address })
+      .expect(403);
   });
 });

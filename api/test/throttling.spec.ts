@@ -14,7 +14,11 @@ describe('throttling of sign-in, sign-up and reset', () => {
 
   it('answers 429 in words once one account has had too many wrong passwords', async () => {
     for (let i = 0; i < LIMIT; i++) {
-      await t.http().post('/api/auth/sign-in').send({ email: 'player@mail.example', password: `guess-${i}` }).expect(401);
+      await t
+        .http()
+        .post('/api/auth/sign-in')
+        .send({ email: 'player@mail.example', password: `guess-${i}` })
+        .expect(401);
     }
     const blocked = await t.http().post('/api/auth/sign-in').send({ email: 'player@mail.example', password: 'demo-pass-2026' });
     expect(blocked.status).toBe(429);
@@ -28,7 +32,10 @@ describe('throttling of sign-in, sign-up and reset', () => {
     // The per-address bucket allows three times the per-account limit on this route.
     const statuses: number[] = [];
     for (let i = 0; i < LIMIT * 3; i++) {
-      const res = await t.http().post('/api/auth/sign-in').send({ email: `sprayed-${i}@mail.example`, password: 'guess' });
+      const res = await t
+        .http()
+        .post('/api/auth/sign-in')
+        .send({ email: `sprayed-${i}@mail.example`, password: 'guess' });
       statuses.push(res.status);
     }
     // LIMIT requests were already spent on this route by the test above.

@@ -19,7 +19,15 @@ describe('GET /api/today', () => {
 
   async function place(
     name: string,
-    opts: { builder: string; state: 'scheduled' | 'on_bench' | 'ready'; day: string; hours: string; tracking?: string; recorded?: string; firmTotal?: string },
+    opts: {
+      builder: string;
+      state: 'scheduled' | 'on_bench' | 'ready';
+      day: string;
+      hours: string;
+      tracking?: string;
+      recorded?: string;
+      firmTotal?: string;
+    },
   ) {
     const booking = await createBooking(t.db, { laborHours: '6.00', deposit: '150.00' });
     const builder = await builderId(t.db, opts.builder);
@@ -28,15 +36,30 @@ describe('GET /api/today', () => {
     used.set(`${builder}:${opts.day}`, from + Number(opts.hours));
     await t.db
       .updateTable('bookings')
-      .set({ state: opts.state, builder_id: builder, bench_date: opts.day, inbound_tracking: opts.tracking ?? null, inbound_carrier: opts.tracking ? 'Parcel Co-op' : null })
+      .set({
+        state: opts.state,
+        builder_id: builder,
+        bench_date: opts.day,
+        inbound_tracking: opts.tracking ?? null,
+        inbound_carrier: opts.tracking ? 'Parcel Co-op' : null,
+      })
       .where('id', '=', booking.id)
       .execute();
     await t.db
       .insertInto('bench_allocations')
-      .values({ booking_id: booking.id, builder_id: builder, day: opts.day, hours: sql<string>`numrange(${from}::numeric, ${from + Number(opts.hours)}::numeric)` as never, day_capacity: '10' })
+      .values({
+        booking_id: booking.id,
+        builder_id: builder,
+        day: opts.day,
+        hours: sql<string>`numrange(${from}::numeric, ${from + Number(opts.hours)}::numeric)` as never,
+        day_capacity: '10',
+      })
       .execute();
     if (opts.recorded) {
-      await t.db.insertInto('time_entries').values({ booking_id: booking.id, builder_id: builder, worked_on: today, hours: opts.recorded }).execute();
+      await t.db
+        .insertInto('time_entries')
+        .values({ booking_id: booking.id, builder_id: builder, worked_on: today, hours: opts.recorded })
+        .execute();
     }
     if (opts.firmTotal) {
       const estimate = await t.db.selectFrom('quotes').selectAll().where('booking_id', '=', booking.id).executeTakeFirstOrThrow();
@@ -128,7 +151,10 @@ describe('GET /api/today', () => {
 
   it('recording the day’s hours clears the hours it waited for', async () => {
     const builder = await signIn(t.app, 'builder@shop.example');
-    await t.db.insertInto('time_entries').values({ booking_id: ids.building!, builder_id: await builderId(t.db, 'builder@shop.example'), worked_on: today, hours: '2.5' }).execute();
+    await t.db
+      .insertInto('time_entries')
+      .values({ booking_id: ids.building!, builder_id: await builderId(t.db, 'builder@shop.example'), worked_on: today, hours: '2.5' })
+      .execute();
     const body = todayResponseSchema.parse((await builder.get('/api/today').expect(200)).body);
     expect(byId(body).get(ids.building)!.waitingFor).toEqual([]);
     expect(byId(body).get(ids.building)!.nextAction.words).toMatch(/Keep building/);
@@ -137,7 +163,11 @@ describe('GET /api/today', () => {
   it('refuses in words: a builder asking for everyone’s, and a scope it does not know', async () => {
     const builder = await signIn(t.app, 'builder@shop.example');
     const refused = await builder.get('/api/today?scope=all').expect(403);
-    expect(refused.body).toMatchObject({ statusCode: 403, code: 'forbidden', message: 'Only the owner sees every builder’s builds; your today shows your own' });
+    expect(refused.body).toMatchObject({
+      statusCode: 403,
+      code: 'forbidden',
+      message: 'Only the owner sees every builder’s builds; your today shows your own',
+    });
     const bad = await builder.get('/api/today?scope=everyone').expect(400);
     expect(bad.body.code).toBeDefined();
     expect(bad.body.message).toMatch(/"mine" or "all"/);

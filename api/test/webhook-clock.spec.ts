@@ -24,7 +24,12 @@ describe('POST /api/payments/webhook: the signed timestamp must be within 300 s 
   /** An event with nothing to do (it is only recorded), signed `offsetSeconds` from now. */
   async function deliver(offsetSeconds: number) {
     const id = `evt_clock_${++sequence}_${offsetSeconds}`;
-    const payload = JSON.stringify({ id, object: 'event', type: 'payment_intent.succeeded', data: { object: { id: 'pi_clock', object: 'payment_intent' } } });
+    const payload = JSON.stringify({
+      id,
+      object: 'event',
+      type: 'payment_intent.succeeded',
+      data: { object: { id: 'pi_clock', object: 'payment_intent' } },
+    });
     const timestamp = Math.floor(Date.now() / 1000) + offsetSeconds;
     const res = await t
       .http()
@@ -54,7 +59,9 @@ describe('POST /api/payments/webhook: the signed timestamp must be within 300 s 
     for (const offset of [310, 3600]) {
       const answer = await deliver(offset);
       expect(answer, `offset ${offset}`).toMatchObject({ status: 400, recorded: 0 });
-      expect(answer.message).toMatch(/signed \d+ seconds ahead of this server's clock; events more than 300 seconds either side are refused/);
+      expect(answer.message).toMatch(
+        /signed \d+ seconds ahead of this server's clock; events more than 300 seconds either side are refused/,
+      );
     }
   });
 

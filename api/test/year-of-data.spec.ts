@@ -25,7 +25,11 @@ describe('a year of data (benchmark seed, small scale) and the lists over it', (
     expect(counts.bookings).toBe(scale.bookings);
     expect(counts.mail_outbox).toBe(scale.mails);
     // One estimate each, and a firm quote for every accepted build.
-    const firm = await t.db.selectFrom('quotes').select(sql<string>`count(*)`.as('n')).where('kind', '=', 'firm').executeTakeFirstOrThrow();
+    const firm = await t.db
+      .selectFrom('quotes')
+      .select(sql<string>`count(*)`.as('n'))
+      .where('kind', '=', 'firm')
+      .executeTakeFirstOrThrow();
     const accepted = await t.db
       .selectFrom('bookings')
       .select(sql<string>`count(*)`.as('n'))
@@ -42,7 +46,7 @@ describe('a year of data (benchmark seed, small scale) and the lists over it', (
   });
 
   const list = async (query: string) => {
-    const res = await t.http().get(`/api/bookings?${query}`).set("Cookie", owner).expect(200);
+    const res = await t.http().get(`/api/bookings?${query}`).set('Cookie', owner).expect(200);
     if (process.env.DEBUG_LIST) console.log(query, JSON.stringify(res.body).slice(0, 300));
     return res.body as Page<BookingSummary>;
   };
@@ -70,9 +74,16 @@ describe('a year of data (benchmark seed, small scale) and the lists over it', (
 
   it('walks the list by cursor in the order PostgreSQL sorts it, nulls included, and refuses a damaged cursor in words', async () => {
     // Reference: PostgreSQL's own ORDER BY (nulls last going up, first going down), id breaking ties the same way.
-    const walks = [['bench_date', 'asc'], ['bench_date', 'desc'], ['created_at', 'desc'], ['state', 'asc']] as const;
+    const walks = [
+      ['bench_date', 'asc'],
+      ['bench_date', 'desc'],
+      ['created_at', 'desc'],
+      ['state', 'asc'],
+    ] as const;
     for (const [sort, order] of walks) {
-      const expected = await sql<{ id: string }>`select id from bookings order by ${sql.ref(sort)} ${sql.raw(order)}, id ${sql.raw(order)}`.execute(t.db);
+      const expected = await sql<{
+        id: string;
+      }>`select id from bookings order by ${sql.ref(sort)} ${sql.raw(order)}, id ${sql.raw(order)}`.execute(t.db);
       const seen: string[] = [];
       let cursor: string | null | undefined;
       for (let guard = 0; guard < 100; guard++) {

@@ -78,7 +78,9 @@ async function enqueue(tag) {
   });
 }
 const sentFor = async (tag) =>
-  Number((await sql`select count(*)::int as n from mail_outbox where state = 'sent' and to_address like ${`${tag}%`}`.execute(db)).rows[0].n);
+  Number(
+    (await sql`select count(*)::int as n from mail_outbox where state = 'sent' and to_address like ${`${tag}%`}`.execute(db)).rows[0].n,
+  );
 const receivedFor = (tag) => fake.messages.filter((m) => m.to.some((to) => to.startsWith(tag))).length;
 
 try {
@@ -109,7 +111,9 @@ try {
 }
 
 const load = readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ');
-console.log(`Mail drain, ${new Date().toISOString()} (load average ${load}; MAIL_BATCH_SIZE ${config.batchSize}, MAIL_CONCURRENCY ${config.concurrency})`);
+console.log(
+  `Mail drain, ${new Date().toISOString()} (load average ${load}; MAIL_BATCH_SIZE ${config.batchSize}, MAIL_CONCURRENCY ${config.concurrency})`,
+);
 for (const [what, sent, received, secs] of results) {
   console.log(
     `| ${what} | ${count} welcome messages | ${(sent / secs).toFixed(1)} messages/s | ${sent} sent in ${secs.toFixed(1)} s | mail fake received ${received}${received === sent ? '' : ' (NOT equal to sent)'} |`,

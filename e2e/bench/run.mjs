@@ -35,7 +35,14 @@ const repeat = Number(env.BENCH_REPEAT ?? 30);
 const only = new Set((env.BENCH_ONLY ?? 'http,engine,bundle,lighthouse,latency,data,mail').split(','));
 const chromiumPath = env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium';
 // ARCHITECTURE.md's flags for Debian's Chromium.
-const chromiumFlags = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+const chromiumFlags = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+];
 
 const rows = [];
 const notes = [];
@@ -153,15 +160,24 @@ async function stopStack() {
 async function load(opts) {
   const autocannon = require('autocannon');
   const result = await autocannon({ duration: seconds, ...opts });
-  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors + result.non2xx, bytes: result.throughput.average / Math.max(1, result.requests.average) };
+  return {
+    rps: result.requests.average,
+    p50: result.latency.p50,
+    p99: result.latency.p99,
+    errors: result.errors + result.non2xx,
+    bytes: result.throughput.average / Math.max(1, result.requests.average),
+  };
 }
 
 async function httpSection() {
   const estimateBody = JSON.stringify(benchBoard());
   const json = { 'content-type': 'application/json' };
   const sizeFull = (await (await fetch(`${base}/api/estimates`, { method: 'POST', headers: json, body: estimateBody })).text()).length;
-  const sizePanel = (await (await fetch(`${base}/api/estimates?view=panel`, { method: 'POST', headers: json, body: estimateBody })).text()).length;
-  notes.push(`estimate answer for the 13-pedal board: ${(sizeFull / 1000).toFixed(1)} kB whole, ${(sizePanel / 1000).toFixed(1)} kB with ?view=panel (what the configurator's panel shows)`);
+  const sizePanel = (await (await fetch(`${base}/api/estimates?view=panel`, { method: 'POST', headers: json, body: estimateBody })).text())
+    .length;
+  notes.push(
+    `estimate answer for the 13-pedal board: ${(sizeFull / 1000).toFixed(1)} kB whole, ${(sizePanel / 1000).toFixed(1)} kB with ?view=panel (what the configurator's panel shows)`,
+  );
   for (const connections of [10, 50]) {
     say(`load: ${connections} connections, ${seconds} s each…`);
     const ceiling = await load({ url: `${base}/api/no-such-route`, connections });
@@ -170,14 +186,27 @@ async function httpSection() {
     const catalog = await load({ url: `${base}/api/catalog`, connections });
     const lead = await load({ url: `${base}/api/bench/lead-time?hours=14.00&level=journeyman`, connections });
     const label = `${connections} conn`;
-    row('HTTP', `404 ceiling (${label}) req/s · p50 · p99`, `${Math.round(ceiling.rps)} · ${ms(ceiling.p50)} · ${ms(ceiling.p99)}`, '', '100 %');
+    row(
+      'HTTP',
+      `404 ceiling (${label}) req/s · p50 · p99`,
+      `${Math.round(ceiling.rps)} · ${ms(ceiling.p50)} · ${ms(ceiling.p99)}`,
+      '',
+      '100 %',
+    );
     for (const [name, r, target] of [
       ['POST /api/estimates 13 pedals', estimate, connections === 10 ? '≥ 70 %, p99 ≤ 15 ms' : ''],
       ['POST /api/estimates?view=panel', panel, connections === 10 ? '≥ 70 %, p99 ≤ 15 ms' : ''],
       ['GET /api/catalog', catalog, ''],
       ['GET /api/bench/lead-time', lead, ''],
     ]) {
-      row('HTTP', `${name} (${label}) req/s · p50 · p99`, `${Math.round(r.rps)} · ${ms(r.p50)} · ${ms(r.p99)}${r.errors ? ` · ${r.errors} errors` : ''}`, `${Math.round(ceiling.rps)}`, pct(r.rps, ceiling.rps), target);
+      row(
+        'HTTP',
+        `${name} (${label}) req/s · p50 · p99`,
+        `${Math.round(r.rps)} · ${ms(r.p50)} · ${ms(r.p99)}${r.errors ? ` · ${r.errors} errors` : ''}`,
+        `${Math.round(ceiling.rps)}`,
+        pct(r.rps, ceiling.rps),
+        target,
+      );
     }
   }
 }
@@ -194,7 +223,14 @@ function engineSection() {
   const wallMs = Number(process.hrtime.bigint() - t0) / 1e6;
   const cpu = process.cpuUsage(cpu0);
   const cpuUs = (cpu.user + cpu.system) / count;
-  row('engine', 'estimates/s, 13-pedal board, one core', `${Math.round(count / (wallMs / 1000)).toLocaleString('en-US')}`, '', '', '≥ 50,000');
+  row(
+    'engine',
+    'estimates/s, 13-pedal board, one core',
+    `${Math.round(count / (wallMs / 1000)).toLocaleString('en-US')}`,
+    '',
+    '',
+    '≥ 50,000',
+  );
   row('engine', 'CPU per estimate', `${cpuUs.toFixed(1)} µs`, '', '', '≤ 20 µs');
 }
 
@@ -225,7 +261,14 @@ function bundleSection() {
       for (const c of manifest[k].css ?? []) css.add(c);
     }
     const cssBytes = [...css].reduce((s, f) => s + gz(f), 0);
-    row('first load', `${route} gzipped JS · CSS`, `${(js / 1000).toFixed(1)} kB · ${(cssBytes / 1000).toFixed(1)} kB`, '150 kB', pct(js, 150_000), '≤ 150 kB JS');
+    row(
+      'first load',
+      `${route} gzipped JS · CSS`,
+      `${(js / 1000).toFixed(1)} kB · ${(cssBytes / 1000).toFixed(1)} kB`,
+      '150 kB',
+      pct(js, 150_000),
+      '≤ 150 kB JS',
+    );
   }
 }
 
@@ -241,7 +284,12 @@ async function lighthouseSection() {
       try {
         const result = await lighthouse(
           `${base}${route}`,
-          { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'] },
+          {
+            port: chrome.port,
+            output: 'json',
+            logLevel: 'error',
+            onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'],
+          },
           preset === 'desktop' ? desktopConfig : undefined,
         );
         const { categories, audits, runtimeError } = result.lhr;
@@ -257,10 +305,18 @@ async function lighthouseSection() {
           '',
           'perf ≥ 95, CLS ≤ 0.02, BP/SEO 100',
         );
-        const failing = Object.values(audits).filter((a) => a.score !== null && a.score < 1 && ['binary', 'numeric'].includes(a.scoreDisplayMode) && !a.id.includes('metric'));
-        if (failing.length) notes.push(`Lighthouse ${preset} ${route}, audits below 1: ${failing.map((a) => `${a.id}${a.displayValue ? ` (${a.displayValue})` : ''}`).join(', ')}`);
+        const failing = Object.values(audits).filter(
+          (a) => a.score !== null && a.score < 1 && ['binary', 'numeric'].includes(a.scoreDisplayMode) && !a.id.includes('metric'),
+        );
+        if (failing.length)
+          notes.push(
+            `Lighthouse ${preset} ${route}, audits below 1: ${failing.map((a) => `${a.id}${a.displayValue ? ` (${a.displayValue})` : ''}`).join(', ')}`,
+          );
         const shifts = audits['layout-shifts']?.details?.items ?? [];
-        if (shifts.length) notes.push(`Lighthouse ${preset} ${route}, layout shifts: ${shifts.map((i) => `${i.node?.selector ?? i.node?.snippet ?? '?'} ${Number(i.score).toFixed(3)}`).join('; ')}`);
+        if (shifts.length)
+          notes.push(
+            `Lighthouse ${preset} ${route}, layout shifts: ${shifts.map((i) => `${i.node?.selector ?? i.node?.snippet ?? '?'} ${Number(i.score).toFixed(3)}`).join('; ')}`,
+          );
       } finally {
         await chrome.kill();
       }
@@ -284,7 +340,14 @@ async function latencySection() {
       await page.waitForFunction((n) => performance.getEntriesByName('lw:estimate-latency').length > n, seen, { timeout: 10_000 });
       durations.push(await page.evaluate(() => performance.getEntriesByName('lw:estimate-latency').at(-1).duration));
     }
-    row('browser', `estimate on screen after the debounce (${repeat} changes) median · p95`, `${ms(quantile(durations, 0.5))} · ${ms(quantile(durations, 0.95))}`, '', '', 'median ≤ 100 ms');
+    row(
+      'browser',
+      `estimate on screen after the debounce (${repeat} changes) median · p95`,
+      `${ms(quantile(durations, 0.5))} · ${ms(quantile(durations, 0.95))}`,
+      '',
+      '',
+      'median ≤ 100 ms',
+    );
   } finally {
     await browser.close();
   }
@@ -292,9 +355,16 @@ async function latencySection() {
 
 // ---------------------------------------------------------------- a year of data
 async function signIn(email) {
-  const res = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: 'demo-pass-2026' }) });
+  const res = await fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password: 'demo-pass-2026' }),
+  });
   if (!res.ok) throw new Error(`sign-in as ${email}: ${res.status}`);
-  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  return res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
 }
 
 const bigTables = ['bookings', 'users', 'quotes', 'payments', 'mail_outbox', 'booking_events', 'bench_allocations'];
@@ -313,7 +383,8 @@ async function explainCall(admin, call, cookie) {
   const text = readFileSync(log).subarray(from).toString('utf8');
   const indexes = new Set();
   const scans = new Set();
-  for (const m of text.matchAll(/(?:Index Scan|Index Only Scan)(?: Backward)? using (\w+)|Bitmap Index Scan on (\w+)/g)) indexes.add(m[1] ?? m[2]);
+  for (const m of text.matchAll(/(?:Index Scan|Index Only Scan)(?: Backward)? using (\w+)|Bitmap Index Scan on (\w+)/g))
+    indexes.add(m[1] ?? m[2]);
   for (const m of text.matchAll(/Seq Scan on (\w+)/g)) if (bigTables.includes(m[1])) scans.add(m[1]);
   const ignore = /^(sessions_pkey|users_pkey|users_email_key|builders_pkey|builders_user_id_key)$/;
   const shown = [...indexes].filter((i) => !ignore.test(i));
@@ -336,15 +407,24 @@ async function dataSection() {
   const pg = require('pg');
   const { seedYearOfData, fullYearScale } = require(path.join(root, 'api/dist/src/database/seed/year-of-data.js'));
   const { Kysely, PostgresDialect } = require('kysely');
-  const scale = env.BENCH_SCALE === 'small' ? { bookings: 5_000, customers: 500, builders: 20, mails: 10_000, fullEstimates: 1_000 } : fullYearScale;
-  const db = new Kysely({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: `postgres://postgres@127.0.0.1:${ports.pg}/${dbName}`, max: 2 }) }) });
+  const scale =
+    env.BENCH_SCALE === 'small' ? { bookings: 5_000, customers: 500, builders: 20, mails: 10_000, fullEstimates: 1_000 } : fullYearScale;
+  const db = new Kysely({
+    dialect: new PostgresDialect({
+      pool: new pg.Pool({ connectionString: `postgres://postgres@127.0.0.1:${ports.pg}/${dbName}`, max: 2 }),
+    }),
+  });
   say(`seeding a year of data (${scale.bookings.toLocaleString('en-US')} bookings)…`);
   const t0 = performance.now();
   const counts = await seedYearOfData(db, scale, (step, s) => say(`  seed ${step}: ${s.toFixed(1)} s`));
   const seedSeconds = (performance.now() - t0) / 1000;
   await db.destroy();
   row('data', 'seed: a year of data', `${seedSeconds.toFixed(1)} s`, '', '', '< 120 s');
-  notes.push(`seeded rows: ${Object.entries(counts).map(([k, v]) => `${k} ${v.toLocaleString('en-US')}`).join(', ')}`);
+  notes.push(
+    `seeded rows: ${Object.entries(counts)
+      .map(([k, v]) => `${k} ${v.toLocaleString('en-US')}`)
+      .join(', ')}`,
+  );
 
   const cookie = await signIn('owner@shop.example');
   const pick = async (q) => (await (await fetch(`${base}/api/bookings?${q}`, { headers: { cookie } })).json()).items[0];
@@ -383,7 +463,14 @@ async function dataSection() {
       say(`data: ${label}…`);
       const times = await timeCall(call, cookie);
       const plan = await explainCall(admin, call, cookie);
-      row('data', `${label} p50 · p95`, `${ms(quantile(times, 0.5))} · ${ms(quantile(times, 0.95))}`, '', '', target ? `p95 ≤ ${target} ms` : '');
+      row(
+        'data',
+        `${label} p50 · p95`,
+        `${ms(quantile(times, 0.5))} · ${ms(quantile(times, 0.95))}`,
+        '',
+        '',
+        target ? `p95 ≤ ${target} ms` : '',
+      );
       notes.push(`plan, ${label}: ${plan}`);
     }
   } finally {
@@ -415,7 +502,11 @@ async function mailSection() {
     const mail = app.get(MailService);
     await db.transaction().execute(async (trx) => {
       for (let i = 0; i < count; i++) {
-        await mail.enqueue(trx, { template: 'welcome', to: `drain${i}@bench.example`, data: { name: `Drain ${i}`, configureUrl: `${base}/configure`, accountUrl: `${base}/account` } });
+        await mail.enqueue(trx, {
+          template: 'welcome',
+          to: `drain${i}@bench.example`,
+          data: { name: `Drain ${i}`, configureUrl: `${base}/configure`, accountUrl: `${base}/account` },
+        });
       }
     });
     say(`mail: draining ${count} messages…`);
@@ -428,7 +519,11 @@ async function mailSection() {
       if (done === 0) break;
     }
     const secondsTaken = (performance.now() - t0) / 1000;
-    row('mail', `outbox drain, ${count} welcome messages to the mail fake, one process`, `${Math.round(sent / secondsTaken)} messages/s (${sent} sent in ${secondsTaken.toFixed(1)} s)`);
+    row(
+      'mail',
+      `outbox drain, ${count} welcome messages to the mail fake, one process`,
+      `${Math.round(sent / secondsTaken)} messages/s (${sent} sent in ${secondsTaken.toFixed(1)} s)`,
+    );
   } finally {
     await app.close();
   }
@@ -474,7 +569,8 @@ let failed = false;
 try {
   const needsStack = sections.some(([name]) => only.has(name) && !['engine', 'bundle'].includes(name));
   if (needsStack) await startStack();
-  else if (env.BENCH_SKIP_BUILD !== 'true' && !existsSync(path.join(root, 'shared/dist/index.js'))) spawnSync('npm', ['run', 'build'], { cwd: root, stdio: 'inherit' });
+  else if (env.BENCH_SKIP_BUILD !== 'true' && !existsSync(path.join(root, 'shared/dist/index.js')))
+    spawnSync('npm', ['run', 'build'], { cwd: root, stdio: 'inherit' });
   for (const [name, fn] of sections) {
     if (!only.has(name)) continue;
     try {

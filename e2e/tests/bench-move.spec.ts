@@ -56,7 +56,11 @@ async function paidRequest(baseURL: string, page: Page, email: string, password:
   return { id: booking.id as string, reference: booking.reference as string };
 }
 
-test('a builder moves a scheduled build to another day from the Bench; the player’s page and mailbox show the new date', async ({ browser, baseURL, request }) => {
+test('a builder moves a scheduled build to another day from the Bench; the player’s page and mailbox show the new date', async ({
+  browser,
+  baseURL,
+  request,
+}) => {
   test.setTimeout(240_000);
   const stamp = Date.now();
   const email = `ines.${stamp}@mail.example`;
@@ -66,14 +70,22 @@ test('a builder moves a scheduled build to another day from the Bench; the playe
 
   // The builder accepts it at their earliest date (the accept dialog's own path is the main journey's).
   const builder = await playwrightRequest.newContext({ baseURL });
-  expect((await builder.post('/api/auth/sign-in', { data: { email: 'builder@shop.example', password: 'demo-pass-2026' } })).ok()).toBeTruthy();
+  expect(
+    (await builder.post('/api/auth/sign-in', { data: { email: 'builder@shop.example', password: 'demo-pass-2026' } })).ok(),
+  ).toBeTruthy();
   const suggest = await (await builder.get('/api/bench/suggest', { params: { bookingId: paid.id } })).json();
   const mine = suggest.suggestions.find((s: { builder: { isMe: boolean } }) => s.builder.isMe);
-  const accepted = await builder.post(`/api/bookings/${paid.id}/accept`, { data: { builderId: mine.builder.id, benchDate: mine.benchDate } });
+  const accepted = await builder.post(`/api/bookings/${paid.id}/accept`, {
+    data: { builderId: mine.builder.id, benchDate: mine.benchDate },
+  });
   expect(accepted.ok(), await accepted.text()).toBeTruthy();
   const firstDate: string = mine.benchDate;
   // A week later, or the first day after that which holds it (the bench's own preview says which).
-  const preview = await (await builder.get('/api/bench/preview', { params: { bookingId: paid.id, benchDate: addDays(firstDate, 7), builderId: mine.builder.id } })).json();
+  const preview = await (
+    await builder.get('/api/bench/preview', {
+      params: { bookingId: paid.id, benchDate: addDays(firstDate, 7), builderId: mine.builder.id },
+    })
+  ).json();
   const newDate: string = preview.options[0].ok ? addDays(firstDate, 7) : preview.options[0].nextPossibleDate;
   expect(newDate > firstDate).toBe(true);
   await builder.dispose();
@@ -86,7 +98,10 @@ test('a builder moves a scheduled build to another day from the Bench; the playe
   await expect(shop.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
   await shop.goto(`/backoffice/bench?day=${firstDate}`);
   const bench = shop.getByRole('table', { name: 'Bench time per builder and day' });
-  await bench.getByRole('button', { name: `Move ${paid.reference}` }).first().click();
+  await bench
+    .getByRole('button', { name: `Move ${paid.reference}` })
+    .first()
+    .click();
   const dialog = shop.getByRole('dialog', { name: `Move ${paid.reference}` });
   await expect(dialog.getByLabel('New bench date')).toHaveValue(firstDate);
   await dialog.getByLabel('New bench date').fill(newDate);
@@ -96,7 +111,13 @@ test('a builder moves a scheduled build to another day from the Bench; the playe
   await dialog.getByRole('button', { name: 'Move the build' }).click();
   await expect(shop.getByText(new RegExp(`^${paid.reference} moved to .*later\\); the player has been e-mailed`))).toBeVisible();
   await shop.goto(`/backoffice/bench?day=${newDate}`);
-  await expect(bench.getByRole('row').filter({ hasText: 'Teodor Lind (you)' }).getByRole('link', { name: new RegExp(paid.reference) }).first()).toBeVisible();
+  await expect(
+    bench
+      .getByRole('row')
+      .filter({ hasText: 'Teodor Lind (you)' })
+      .getByRole('link', { name: new RegExp(paid.reference) })
+      .first(),
+  ).toBeVisible();
 
   // The player's build page shows the new date …
   const player = await browser.newPage();

@@ -40,7 +40,10 @@ async function expectPanelMatchesApi(page: Page, request: APIRequestContext) {
   const e = await response.json();
   const panel = page.getByRole('complementary', { name: 'Estimate' });
   await expect(panel.getByTestId('estimate-total')).toHaveText(range(e.totalLow, e.totalHigh, e.currency));
-  await expect(panel.getByTestId('estimate-labor')).toHaveText(`${range(e.laborLow, e.laborHigh, e.currency)} labor (${hours(e.laborHours)})`, { useInnerText: false });
+  await expect(panel.getByTestId('estimate-labor')).toHaveText(
+    `${range(e.laborLow, e.laborHigh, e.currency)} labor (${hours(e.laborHours)})`,
+    { useInnerText: false },
+  );
   await expect(panel.getByTestId('estimate-materials')).toHaveText(money(e.materialsTotal, e.currency));
   await expect(panel.getByTestId('estimate-deposit')).toHaveText(money(e.deposit, e.currency));
   return { configuration, estimate: e };
@@ -57,7 +60,13 @@ async function expectNoSeriousAxeViolations(page: Page, where: string) {
     .analyze();
   const serious = results.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${v.id} (${v.impact}): ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(' | ')}`);
+    .map(
+      (v) =>
+        `${v.id} (${v.impact}): ${v.nodes
+          .map((n) => n.target.join(' '))
+          .slice(0, 3)
+          .join(' | ')}`,
+    );
   expect(serious, `axe-core on ${where}`).toEqual([]);
 }
 
@@ -68,7 +77,9 @@ async function shoot(page: Page, testInfo: TestInfo, name: string) {
 }
 
 async function expectStep(page: Page, title: string) {
-  await expect(page.getByRole('navigation', { name: 'Configurator steps' }).getByText(new RegExp(`^Step \\d of 7: ${title}$`))).toBeVisible();
+  await expect(
+    page.getByRole('navigation', { name: 'Configurator steps' }).getByText(new RegExp(`^Step \\d of 7: ${title}$`)),
+  ).toBeVisible();
   await expect(page.getByRole('heading', { level: 2 }).first()).toBeVisible();
 }
 
@@ -81,14 +92,19 @@ async function choose(control: Locator) {
 const next = (page: Page) => page.getByRole('navigation', { name: 'Step navigation' }).getByRole('button', { name: /^Next:/ });
 
 test.describe('configurator', () => {
-  test('a player walks every step, changes the pedal count and the routing, and the panel shows the API’s figures', async ({ page, request }, testInfo) => {
+  test('a player walks every step, changes the pedal count and the routing, and the panel shows the API’s figures', async ({
+    page,
+    request,
+  }, testInfo) => {
     test.setTimeout(240_000);
     await page.setViewportSize({ width: 1440, height: 1000 });
     await page.goto('/configure');
     await expectStep(page, 'Surface');
     // Nothing is chosen for the player and nothing is priced before their first choice.
     await expect(page.getByTestId('estimate-total')).toHaveText('Not priced yet');
-    await expect(page.getByTestId('estimate-missing')).toContainText('Still to choose: a board surface, a case and your pedals (a count is enough).');
+    await expect(page.getByTestId('estimate-missing')).toContainText(
+      'Still to choose: a board surface, a case and your pedals (a count is enough).',
+    );
     await expect(page.getByRole('radio', { checked: true })).toHaveCount(0);
     await expect(page.getByText(/Pedal \d/)).toHaveCount(0);
 
@@ -164,11 +180,15 @@ test.describe('configurator', () => {
     await next(page).click();
     await expectStep(page, 'Review');
     const review = await expectPanelMatchesApi(page, request);
-    await expect(page.getByTestId('review-total')).toHaveText(range(review.estimate.totalLow, review.estimate.totalHigh, review.estimate.currency));
+    await expect(page.getByTestId('review-total')).toHaveText(
+      range(review.estimate.totalLow, review.estimate.totalHigh, review.estimate.currency),
+    );
     await expect(page.getByTestId('review-hours')).toHaveText(hours(review.estimate.laborHours));
     await expect(page.getByTestId('review-deposit')).toHaveText(money(review.estimate.deposit, review.estimate.currency));
     for (const line of review.estimate.lines.filter((l: { kind: string }) => l.kind === 'materials')) {
-      await expect(page.getByRole('row', { name: new RegExp(`^${line.label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first()).toContainText(money(line.amount, review.estimate.currency));
+      await expect(
+        page.getByRole('row', { name: new RegExp(`^${line.label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first(),
+      ).toContainText(money(line.amount, review.estimate.currency));
     }
     await expect(page.getByText('Your loop switcher, with its own power lead.')).toBeVisible();
     await expect(page.getByText(/25% of the high end of the estimate/)).toBeVisible();
@@ -176,12 +196,18 @@ test.describe('configurator', () => {
     await shoot(page, testInfo, 'desktop-7-review');
 
     // Every step stays reachable, and going back loses nothing.
-    await page.getByRole('navigation', { name: 'Configurator steps' }).getByRole('button', { name: /^Pedals/ }).click();
+    await page
+      .getByRole('navigation', { name: 'Configurator steps' })
+      .getByRole('button', { name: /^Pedals/ })
+      .click();
     await expectStep(page, 'Pedals');
     await expect(page.getByRole('heading', { name: 'Pedal 3', level: 3 })).toBeVisible();
     expect((await configurationInUrl(page)).pedals.filter((p: { inLoop: boolean }) => p.inLoop)).toHaveLength(2);
 
-    await page.getByRole('navigation', { name: 'Configurator steps' }).getByRole('button', { name: /^Review/ }).click();
+    await page
+      .getByRole('navigation', { name: 'Configurator steps' })
+      .getByRole('button', { name: /^Review/ })
+      .click();
     await page.getByRole('button', { name: 'Request this build' }).click();
     // The request page sends a visitor who is not signed in on to sign in, carrying the same link.
     await expect(page).toHaveURL(/\/request\?c=|\/sign-in\?next=%2Frequest%3Fc%3D/);
@@ -192,7 +218,9 @@ test.describe('configurator', () => {
   });
 
   test('the itemized pedal list: add, edit, reorder with buttons and remove', async ({ page, request }) => {
-    await page.goto(`/configure?step=pedals&c=${encode({ surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'apprentice' })}`);
+    await page.goto(
+      `/configure?step=pedals&c=${encode({ surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'apprentice' })}`,
+    );
     await choose(page.getByRole('radio', { name: 'List each pedal' }));
     await expect(page.getByRole('heading', { name: 'Pedal 6', level: 3 })).toBeVisible();
     await page.getByRole('button', { name: 'Add a pedal' }).click();
@@ -202,7 +230,9 @@ test.describe('configurator', () => {
     await expect.poll(async () => (await configurationInUrl(page)).pedals.at(-1)).toMatchObject({ name: 'Analog delay', currentMa: 120 });
     await expectNoSeriousAxeViolations(page, 'Pedals with an open pedal row');
     await page.getByRole('button', { name: 'Move Analog delay up' }).click();
-    await expect.poll(async () => (await configurationInUrl(page)).pedals.map((p: { name: string }) => p.name).slice(-2)).toEqual(['Analog delay', 'Pedal 6']);
+    await expect
+      .poll(async () => (await configurationInUrl(page)).pedals.map((p: { name: string }) => p.name).slice(-2))
+      .toEqual(['Analog delay', 'Pedal 6']);
     await page.getByRole('button', { name: 'Remove Pedal 1' }).click();
     await expect.poll(async () => (await configurationInUrl(page)).pedals).toHaveLength(6);
     // A bad figure is refused in the API's own words, and never reaches the configuration.
@@ -216,14 +246,20 @@ test.describe('configurator', () => {
 
   test('keyboard alone walks the stepper and changes a choice', async ({ page }) => {
     await page.setViewportSize({ width: 1440, height: 1000 });
-    await page.goto(`/configure?c=${encode({ surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'apprentice' })}`);
+    await page.goto(
+      `/configure?c=${encode({ surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'apprentice' })}`,
+    );
     await expect(page.getByTestId('estimate-total')).toHaveText(/^\$/);
     const tabTo = async (matches: (el: { text: string; role: string | null; checked: boolean }) => boolean, limit = 80) => {
       for (let i = 0; i < limit; i++) {
         await page.keyboard.press('Tab');
         const el = await page.evaluate(() => {
           const a = document.activeElement as HTMLInputElement | null;
-          return { text: (a?.getAttribute('aria-label') ?? a?.textContent ?? '').trim(), role: a?.getAttribute('type') ?? a?.tagName ?? null, checked: !!a?.checked };
+          return {
+            text: (a?.getAttribute('aria-label') ?? a?.textContent ?? '').trim(),
+            role: a?.getAttribute('type') ?? a?.tagName ?? null,
+            checked: !!a?.checked,
+          };
         });
         if (matches(el)) return;
       }
@@ -253,7 +289,12 @@ test.describe('configurator', () => {
       ],
       functions: ['four_cable'],
       level: 'journeyman',
-      powerSupply: { outputs: [{ voltage: 9, currentMa: 500, isolated: true }, { voltage: 9, currentMa: 100, isolated: true }] },
+      powerSupply: {
+        outputs: [
+          { voltage: 9, currentMa: 500, isolated: true },
+          { voltage: 9, currentMa: 100, isolated: true },
+        ],
+      },
     };
     const context = await browser.newContext();
     const page = await context.newPage();
@@ -261,7 +302,10 @@ test.describe('configurator', () => {
     await expectStep(page, 'Review');
     expect(await configurationInUrl(page)).toEqual(shared);
     await expectPanelMatchesApi(page, request);
-    await page.getByRole('navigation', { name: 'Configurator steps' }).getByRole('button', { name: /^Pedals/ }).click();
+    await page
+      .getByRole('navigation', { name: 'Configurator steps' })
+      .getByRole('button', { name: /^Pedals/ })
+      .click();
     await expect(page.getByRole('heading', { name: 'Plate reverb', level: 3 })).toBeVisible();
     await expect(page.getByText(/Output 1: 9 V DC, isolated/)).toBeVisible();
     await context.close();
@@ -281,11 +325,18 @@ test.describe('configurator', () => {
     await context.close();
   });
 
-  test('at phone width every step holds 375 px, passes axe and shows the estimate as a bottom sheet', async ({ page, request }, testInfo) => {
+  test('at phone width every step holds 375 px, passes axe and shows the estimate as a bottom sheet', async ({
+    page,
+    request,
+  }, testInfo) => {
     test.setTimeout(240_000);
     await page.setViewportSize({ width: 375, height: 812 });
     const config = {
-      surfaceId: 'slate-61', caseId: 'gig-bag', routing: { mode: 'switcher' }, functions: ['wet_dry_wet'], level: 'master',
+      surfaceId: 'slate-61',
+      caseId: 'gig-bag',
+      routing: { mode: 'switcher' },
+      functions: ['wet_dry_wet'],
+      level: 'master',
       pedals: [
         { name: 'Compressor', kind: 'compact', powered: true, inLoop: false },
         { name: 'Overdrive', kind: 'compact', powered: true, inLoop: true, currentMa: 20 },

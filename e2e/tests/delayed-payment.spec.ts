@@ -2,7 +2,14 @@ import { expect, test } from './csp';
 import { encodeConfiguration } from '@loomwright/shared';
 
 // A plain serial board from the demo price book.
-const configuration = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' as const }, pedalCount: 7, functions: [], level: 'journeyman' as const };
+const configuration = {
+  surfaceId: 'slate-61',
+  caseId: 'shell-hard',
+  routing: { mode: 'serial' as const },
+  pedalCount: 7,
+  functions: [],
+  level: 'journeyman' as const,
+};
 
 /**
  * A deposit paid by bank debit, which settles days later. Test numbers from the provider's ACH

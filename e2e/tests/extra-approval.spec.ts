@@ -23,7 +23,12 @@ async function payOnHostedPage(page: Page, url: string, baseURL: string) {
   await page.waitForURL((target) => target.origin === new URL(baseURL).origin);
 }
 
-test('the owner proposes an extra, the player approves it from the e-mail, pays the balance that includes it, and the board is delivered', async ({ browser, baseURL, request, page: me }) => {
+test('the owner proposes an extra, the player approves it from the e-mail, pays the balance that includes it, and the board is delivered', async ({
+  browser,
+  baseURL,
+  request,
+  page: me,
+}) => {
   test.setTimeout(300_000);
   const stamp = Date.now();
   const email = `noor.${stamp}@mail.example`;
@@ -54,14 +59,20 @@ test('the owner proposes an extra, the player approves it from the e-mail, pays 
   const payPage = await browser.newPage();
   const deposit = await (await player.post(`/api/bookings/${booking.id}/checkout`, { data: {} })).json();
   await payOnHostedPage(payPage, deposit.url, baseURL!);
-  await expect.poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).depositStatus, { timeout: 20_000 }).toBe('paid');
+  await expect
+    .poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).depositStatus, { timeout: 20_000 })
+    .toBe('paid');
   await payPage.close();
 
   const builder = await playwrightRequest.newContext({ baseURL });
-  expect((await builder.post('/api/auth/sign-in', { data: { email: 'builder@shop.example', password: 'demo-pass-2026' } })).ok()).toBeTruthy();
+  expect(
+    (await builder.post('/api/auth/sign-in', { data: { email: 'builder@shop.example', password: 'demo-pass-2026' } })).ok(),
+  ).toBeTruthy();
   const suggest = await (await builder.get('/api/bench/suggest', { params: { bookingId: booking.id } })).json();
   const mine = suggest.suggestions.find((s: { builder: { isMe: boolean } }) => s.builder.isMe);
-  const accepted = await builder.post(`/api/bookings/${booking.id}/accept`, { data: { builderId: mine.builder.id, benchDate: mine.benchDate } });
+  const accepted = await builder.post(`/api/bookings/${booking.id}/accept`, {
+    data: { builderId: mine.builder.id, benchDate: mine.benchDate },
+  });
   expect(accepted.ok(), await accepted.text()).toBeTruthy();
   const intake = await builder.post(`/api/bookings/${booking.id}/intake`, {
     data: { items: ['Tuner', 'Plate reverb', 'Power supply'].map((item) => ({ item, condition: 'working' })) },
@@ -91,7 +102,10 @@ test('the owner proposes an extra, the player approves it from the e-mail, pays 
   await expect
     .poll(
       async () => {
-        const list = (await (await request.get(`${mailUrl}/api/messages`, { params: { to: email } })).json()) as Array<{ subject: string; text: string }>;
+        const list = (await (await request.get(`${mailUrl}/api/messages`, { params: { to: email } })).json()) as Array<{
+          subject: string;
+          text: string;
+        }>;
         mail = list.find((m) => m.subject.startsWith('Your approval, please'));
         return mail?.subject ?? '';
       },
@@ -141,7 +155,9 @@ test('the owner proposes an extra, the player approves it from the e-mail, pays 
   await me.getByLabel('Security code').fill('123');
   await me.getByRole('button', { name: /^Pay / }).click();
   await me.waitForURL((target) => target.origin === new URL(baseURL!).origin);
-  await expect.poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).money.settled, { timeout: 20_000 }).toBe(true);
+  await expect
+    .poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).money.settled, { timeout: 20_000 })
+    .toBe(true);
 
   // With nothing due, the owner is offered delivery and delivers.
   await shop.reload();

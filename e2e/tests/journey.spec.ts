@@ -33,8 +33,13 @@ async function nextStep(page: Page, title: string) {
   // panel saying what is still to choose.
   const panel = page.getByRole('complementary', { name: 'Estimate' });
   await expect(panel.getByText('Up to date').or(panel.getByTestId('estimate-missing'))).toBeVisible();
-  await page.getByRole('navigation', { name: 'Step navigation' }).getByRole('button', { name: `Next: ${title}` }).click();
-  await expect(page.getByRole('navigation', { name: 'Configurator steps' }).getByText(new RegExp(`^Step \\d of 7: ${title}$`))).toBeVisible();
+  await page
+    .getByRole('navigation', { name: 'Step navigation' })
+    .getByRole('button', { name: `Next: ${title}` })
+    .click();
+  await expect(
+    page.getByRole('navigation', { name: 'Configurator steps' }).getByText(new RegExp(`^Step \\d of 7: ${title}$`)),
+  ).toBeVisible();
 }
 
 /** A day as both apps and the e-mail write it for the demo shop (en-US, CLDR yMMMEd "EEE, MMM d, y"): "Tue, Jan 12, 2027". */
@@ -85,7 +90,10 @@ async function staffSignIn(page: Page, email: string) {
   await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
 }
 
-test('a player configures, signs up, pays the deposit; a builder schedules it; the mail and the quote hold', async ({ browser, request }, testInfo) => {
+test('a player configures, signs up, pays the deposit; a builder schedules it; the mail and the quote hold', async ({
+  browser,
+  request,
+}, testInfo) => {
   test.setTimeout(300_000);
   const stamp = Date.now();
   const playerName = `Noor Vassily ${stamp % 10000}`;
@@ -129,7 +137,11 @@ test('a player configures, signs up, pays the deposit; a builder schedules it; t
   const panel = player.getByRole('complementary', { name: 'Estimate' });
   await expect(panel.getByTestId('estimate-labor')).toContainText(`(${Number(estimate.laborHours)} hr)`);
   await expect(panel.getByTestId('estimate-deposit')).toHaveText(
-    new Intl.NumberFormat('en-US', { style: 'currency', currency: estimate.currency, minimumFractionDigits: /\.\d*[1-9]/.test(estimate.deposit) ? 2 : 0 }).format(Number(estimate.deposit)),
+    new Intl.NumberFormat('en-US', {
+      style: 'currency',
+      currency: estimate.currency,
+      minimumFractionDigits: /\.\d*[1-9]/.test(estimate.deposit) ? 2 : 0,
+    }).format(Number(estimate.deposit)),
   );
   await shoot(player, testInfo, 'storefront-review');
 
@@ -184,13 +196,21 @@ test('a player configures, signs up, pays the deposit; a builder schedules it; t
   await shop.keyboard.press('Escape');
   await shop.goto(`/backoffice/bench?day=${benchDate}`);
   const bench = shop.getByRole('table', { name: 'Bench time per builder and day' });
-  await expect(bench.getByRole('row').filter({ hasText: 'Teodor Lind (you)' }).getByRole('link', { name: new RegExp(paid.reference) }).first()).toBeVisible();
+  await expect(
+    bench
+      .getByRole('row')
+      .filter({ hasText: 'Teodor Lind (you)' })
+      .getByRole('link', { name: new RegExp(paid.reference) })
+      .first(),
+  ).toBeVisible();
   await shoot(shop, testInfo, 'backoffice-bench');
 
   // 4. The player's mailbox: the scheduled message with that date and a calendar attachment.
   let scheduled: MailMessage | undefined;
   await expect
-    .poll(async () => (scheduled = (await mailboxOf(request, playerEmail)).find((m) => m.subject.includes('bench date'))), { timeout: 30_000 })
+    .poll(async () => (scheduled = (await mailboxOf(request, playerEmail)).find((m) => m.subject.includes('bench date'))), {
+      timeout: 30_000,
+    })
     .toBeTruthy();
   if (!scheduled) throw new Error('no scheduled message');
   expect(scheduled.subject).toContain(writtenDay(benchDate));
@@ -238,7 +258,14 @@ test('a declined card and an abandoned checkout leave the booking unpaid, said i
   test.setTimeout(180_000);
   const stamp = Date.now();
   const email = `arvo.${stamp}@mail.example`;
-  const configuration = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 5, functions: [], level: 'journeyman' };
+  const configuration = {
+    surfaceId: 'slate-61',
+    caseId: 'shell-hard',
+    routing: { mode: 'serial' },
+    pedalCount: 5,
+    functions: [],
+    level: 'journeyman',
+  };
   await page.goto(`/request?c=${Buffer.from(JSON.stringify(configuration)).toString('base64url')}`);
   await signUpFromSignIn(page, `Arvo Lindqvist ${stamp % 10000}`, email);
   await page.getByRole('button', { name: 'Request build and pay deposit' }).click();

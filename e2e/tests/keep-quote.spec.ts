@@ -31,7 +31,10 @@ async function startingRig(request: APIRequestContext) {
   const catalog = await (await request.get('/api/catalog')).json();
   const surfaces = [...catalog.surfaces].sort((a, b) => b.widthMm * b.depthMm - a.widthMm * a.depthMm);
   const surface = surfaces.find((s) => !s.custom) ?? surfaces[0];
-  const kase = catalog.cases.find((c: { notRecommended?: boolean; fitsSurfaceIds: string[] }) => !c.notRecommended && (c.fitsSurfaceIds.length === 0 || c.fitsSurfaceIds.includes(surface.id)));
+  const kase = catalog.cases.find(
+    (c: { notRecommended?: boolean; fitsSurfaceIds: string[] }) =>
+      !c.notRecommended && (c.fitsSurfaceIds.length === 0 || c.fitsSurfaceIds.includes(surface.id)),
+  );
   return {
     surfaceId: surface.id,
     caseId: kase.id,
@@ -54,7 +57,10 @@ async function startingRig(request: APIRequestContext) {
   };
 }
 
-test('a player pins a pedal, reads the cable list, saves and reopens the board, and keeps the quote as a PDF, a short link and an e-mail', async ({ page, request }, testInfo) => {
+test('a player pins a pedal, reads the cable list, saves and reopens the board, and keeps the quote as a PDF, a short link and an e-mail', async ({
+  page,
+  request,
+}, testInfo) => {
   test.setTimeout(240_000);
   await page.setViewportSize({ width: 1280, height: 1000 });
   const stamp = Date.now();
@@ -77,7 +83,10 @@ test('a player pins a pedal, reads the cable list, saves and reopens the board, 
   await page.getByRole('button', { name: 'Done editing Fuzz' }).click();
 
   // 2. Review: the power plan keeps the choice; the numbered cable list is the API's.
-  await page.getByRole('navigation', { name: 'Configurator steps' }).getByRole('button', { name: /^Review/ }).click();
+  await page
+    .getByRole('navigation', { name: 'Configurator steps' })
+    .getByRole('button', { name: /^Review/ })
+    .click();
   const configuration = await configurationInUrl(page);
   const estimate = await (await request.post('/api/estimates', { data: configuration })).json();
   await expect(page.getByTestId('review-total')).toBeVisible();
@@ -86,9 +95,24 @@ test('a player pins a pedal, reads the cable list, saves and reopens the board, 
   await expect(page.getByText(/^Fuzz 10 mA · your choice$/)).toBeVisible();
   const rows = page.getByTestId('cable-list').locator('tbody tr');
   await expect(rows).toHaveCount(estimate.checks.cableSchedule.patchCount);
-  for (const [i, c] of (estimate.checks.cableSchedule.patches as Array<{ number: number; from: string; fromDevice: number | null; to: string; toDevice: number | null; lengthFeet: string }>).entries()) {
+  for (const [i, c] of (
+    estimate.checks.cableSchedule.patches as Array<{
+      number: number;
+      from: string;
+      fromDevice: number | null;
+      to: string;
+      toDevice: number | null;
+      lengthFeet: string;
+    }>
+  ).entries()) {
     const end = (text: string, device: number | null) => (device === null ? text : `${device} ${text}`);
-    await expect(rows.nth(i).locator('td')).toHaveText([String(c.number), end(c.from, c.fromDevice), end(c.to, c.toDevice), `${Number(c.lengthFeet)} ft`, /.+/]);
+    await expect(rows.nth(i).locator('td')).toHaveText([
+      String(c.number),
+      end(c.from, c.fromDevice),
+      end(c.to, c.toDevice),
+      `${Number(c.lengthFeet)} ft`,
+      /.+/,
+    ]);
   }
   await shoot(page, testInfo, 'review-keep');
 
@@ -111,7 +135,10 @@ test('a player pins a pedal, reads the cable list, saves and reopens the board, 
   await expect(page.getByText(/^Fuzz 10 mA · your choice$/)).toBeVisible();
 
   // 5. The quote PDF: its totals are the API's (text read by pdf-parse).
-  const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download the quote (PDF)' }).click()]);
+  const [download] = await Promise.all([
+    page.waitForEvent('download'),
+    page.getByRole('button', { name: 'Download the quote (PDF)' }).click(),
+  ]);
   const pdf = await readFile((await download.path())!);
   expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
   const text = (await pdfParse(pdf)).text.replace(/\s+/g, ' ');
@@ -135,10 +162,13 @@ test('a player pins a pedal, reads the cable list, saves and reopens the board, 
   await page.getByRole('button', { name: 'E-mail it to me' }).click();
   await expect(page.getByRole('status').filter({ hasText: `Sent to ${email}` })).toBeVisible();
   await expect
-    .poll(async () => {
-      const res = await request.get(`${mailUrl}/api/messages`, { params: { to: email } });
-      const messages = (await res.json()) as Array<{ subject: string; attachments: Array<{ contentType: string }> }>;
-      return messages.find((m) => m.subject.includes('your quote from'))?.attachments.map((a) => a.contentType);
-    }, { timeout: 60_000 })
+    .poll(
+      async () => {
+        const res = await request.get(`${mailUrl}/api/messages`, { params: { to: email } });
+        const messages = (await res.json()) as Array<{ subject: string; attachments: Array<{ contentType: string }> }>;
+        return messages.find((m) => m.subject.includes('your quote from'))?.attachments.map((a) => a.contentType);
+      },
+      { timeout: 60_000 },
+    )
     .toEqual(['application/pdf']);
 });

@@ -29,7 +29,14 @@ async function playerSignIn(page: Page, next: string) {
 
 /** A request of the player's own, made through the API as the Request page makes it, so My builds has a row. */
 async function requestABuild(page: Page) {
-  const configuration = { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 7, functions: [], level: 'journeyman' };
+  const configuration = {
+    surfaceId: 'slate-61',
+    caseId: 'shell-hard',
+    routing: { mode: 'serial' },
+    pedalCount: 7,
+    functions: [],
+    level: 'journeyman',
+  };
   const res = await page.request.post('/api/bookings', { data: { configuration, notes: 'Phone check' } });
   expect(res.status()).toBe(201);
 }
@@ -115,5 +122,12 @@ test('My builds at 390 px: a card per build, every fact labelled, nothing past t
   // From 600 px up, the same builds are a table with its column headers.
   await page.setViewportSize({ width: 1024, height: 800 });
   await page.goto('/builds');
-  await expect(page.getByRole('table', { name: 'My builds' }).getByRole('columnheader')).toHaveText(['Build', 'Board', 'Status', 'Deposit', 'Bench date', 'Total']);
+  await expect(page.getByRole('table', { name: 'My builds' }).getByRole('columnheader')).toHaveText([
+    'Build',
+    'Board',
+    'Status',
+    'Deposit',
+    'Bench date',
+    'Total',
+  ]);
 });

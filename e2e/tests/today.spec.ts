@@ -10,13 +10,27 @@ import pg from 'pg';
 const docsDir = path.resolve(__dirname, '../../docs/screenshots');
 const databaseUrl = `postgres://postgres@127.0.0.1:${process.env.TEST_PG_PORT ?? 54339}/loomwright_e2e`;
 
-test('a builder lands on their today, sees what a build waits for and opens it; the owner copies and replaces a calendar link', async ({ browser, baseURL }) => {
+test('a builder lands on their today, sees what a build waits for and opens it; the owner copies and replaces a calendar link', async ({
+  browser,
+  baseURL,
+}) => {
   test.setTimeout(180_000);
   const player = await playwrightRequest.newContext({ baseURL });
-  expect((await player.post('/api/auth/sign-in', { data: { email: 'player@mail.example', password: 'demo-pass-2026' } })).ok()).toBeTruthy();
+  expect(
+    (await player.post('/api/auth/sign-in', { data: { email: 'player@mail.example', password: 'demo-pass-2026' } })).ok(),
+  ).toBeTruthy();
   const catalog = await (await player.get('/api/catalog')).json();
   const created = await player.post('/api/bookings', {
-    data: { configuration: { surfaceId: catalog.surfaces[0].id, caseId: catalog.cases[0].id, routing: { mode: 'serial' }, pedalCount: 4, functions: [], level: 'journeyman' } },
+    data: {
+      configuration: {
+        surfaceId: catalog.surfaces[0].id,
+        caseId: catalog.cases[0].id,
+        routing: { mode: 'serial' },
+        pedalCount: 4,
+        functions: [],
+        level: 'journeyman',
+      },
+    },
   });
   expect(created.status(), await created.text()).toBe(201);
   const booking = await created.json();
@@ -28,7 +42,11 @@ test('a builder lands on their today, sees what a build waits for and opens it; 
     `select b.id, (select timezone from shop_settings where id = 1) as tz from builders b join users u on u.id = b.user_id where u.email = 'builder@shop.example'`,
   );
   const today = new Intl.DateTimeFormat('en-CA', { timeZone: rows[0].tz }).format(new Date());
-  await db.query(`update bookings set state = 'scheduled', builder_id = $1, bench_date = $2 where id = $3`, [rows[0].id, today, booking.id]);
+  await db.query(`update bookings set state = 'scheduled', builder_id = $1, bench_date = $2 where id = $3`, [
+    rows[0].id,
+    today,
+    booking.id,
+  ]);
   await db.query(
     `insert into bench_allocations (booking_id, builder_id, day, hours, day_capacity)
      select $1, $2, $3::date, numrange(coalesce(max(upper(a.hours)), 0), coalesce(max(upper(a.hours)), 0) + 2), 24

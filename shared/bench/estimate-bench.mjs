@@ -29,7 +29,14 @@ function randomConfiguration() {
     ...(random() < 0.6 ? { currentMa: Math.floor(random() * 300) } : {}),
     ...(random() < 0.1 ? { voltage: pick([12, 18]) } : {}),
   }));
-  const outputs = random() < 0.5 ? Array.from({ length: 1 + Math.floor(random() * 10) }, () => ({ voltage: pick([9, 9, 9, 12, 18]), currentMa: pick([100, 250, 500]), isolated: random() < 0.8 })) : undefined;
+  const outputs =
+    random() < 0.5
+      ? Array.from({ length: 1 + Math.floor(random() * 10) }, () => ({
+          voltage: pick([9, 9, 9, 12, 18]),
+          currentMa: pick([100, 250, 500]),
+          isolated: random() < 0.8,
+        }))
+      : undefined;
   return {
     surfaceId: pick(demoPriceBook.surfaces).id,
     caseId: pick(demoPriceBook.cases).id,

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { authMessages, inviteStaffSchema, newPasswordFormSchema, passwordResetConfirmSchema, safeNextPath, signUpSchema } from './auth-schemas';
+import {
+  authMessages,
+  inviteStaffSchema,
+  newPasswordFormSchema,
+  passwordResetConfirmSchema,
+  safeNextPath,
+  signUpSchema,
+} from './auth-schemas';
 
 describe('safeNextPath', () => {
   // OWASP Unvalidated Redirects and Forwards Cheat Sheet: only allow local, relative targets.

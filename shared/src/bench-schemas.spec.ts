@@ -34,7 +34,10 @@ describe('the reschedule and absence schemas', () => {
         '"surprise" is not a field this request takes; remove it',
       ]),
     );
-    expect(rescheduleSchema.parse({ builderId: '3f1c2a4e-8b7d-4c6e-9a5b-1d2e3f4a5b6c', benchDate: '2026-12-07', reason: ' late parcel ' }).reason).toBe('late parcel');
+    expect(
+      rescheduleSchema.parse({ builderId: '3f1c2a4e-8b7d-4c6e-9a5b-1d2e3f4a5b6c', benchDate: '2026-12-07', reason: ' late parcel ' })
+        .reason,
+    ).toBe('late parcel');
   });
 
   it('refuses an absence that ends before it starts', () => {

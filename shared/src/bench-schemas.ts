@@ -53,4 +53,3 @@ export const benchPreviewQuerySchema = requestObject({
   builderId: uuid('builderId', 'a builder').optional(),
 });
 export type BenchPreviewQuery = z.infer<typeof benchPreviewQuerySchema>;
-

@@ -60,7 +60,10 @@ const cursorKeyShapes: Record<BookingListCursor['sort'], RegExp> = {
 const uuidShape = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export const encodeBookingListCursor = (c: BookingListCursor): string =>
-  btoa(JSON.stringify([c.sort, c.order, c.key, c.id])).replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '');
+  btoa(JSON.stringify([c.sort, c.order, c.key, c.id]))
+    .replace(/\+/g, '-')
+    .replace(/\//g, '_')
+    .replace(/=+$/, '');
 
 /** The cursor, or null when it is not one this list wrote (damaged, or from another version). */
 export function decodeBookingListCursor(value: string): BookingListCursor | null {
@@ -102,7 +105,10 @@ export const listBookingsQuerySchema = requestObject({
       return cursor;
     })
     .optional(),
-}).refine((q) => !q.cursor || (q.cursor.sort === q.sort && q.cursor.order === q.order), { error: bookingWords.listCursorOtherOrder, path: ['cursor'] });
+}).refine((q) => !q.cursor || (q.cursor.sort === q.sort && q.cursor.order === q.order), {
+  error: bookingWords.listCursorOtherOrder,
+  path: ['cursor'],
+});
 export type ListBookingsQuery = z.infer<typeof listBookingsQuerySchema>;
 
 /** POST /api/bookings/:id/cancel: the player's reason, shown to the shop. */

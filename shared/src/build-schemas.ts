@@ -36,7 +36,12 @@ export const waiveBalanceSchema = requestObject({
 export type WaiveBalanceInput = z.infer<typeof waiveBalanceSchema>;
 
 /** Hours actually spent on one day: above 0, at most 24, at most two decimals (2.3 and 0.25 are fine). */
-export const workedHoursField = hours('hours', { min: 0.01, max: 24, minWords: bookingWords.hoursAboveZero, maxWords: bookingWords.hoursAtMost24 });
+export const workedHoursField = hours('hours', {
+  min: 0.01,
+  max: 24,
+  minWords: bookingWords.hoursAboveZero,
+  maxWords: bookingWords.hoursAtMost24,
+});
 
 /** POST /api/bookings/:id/time-entries. */
 export const timeEntrySchema = requestObject({

@@ -19,7 +19,8 @@ export function intakeChecklist(config: RigConfiguration): IntakeChecklistItem[]
   const names = pedals.length ? pedals.map((p) => p.name) : Array.from({ length: config.pedalCount ?? 0 }, (_, i) => `Pedal ${i + 1}`);
   const items = names.map((item, i) => ({ key: `chain:${i}`, item, position: i }));
   const listsSwitcher = pedals.some((p) => p.kind === 'switcher');
-  if (config.routing?.mode === 'switcher' && !listsSwitcher) items.push({ key: 'switcher', item: 'Loop switcher', position: SWITCHER_POSITION });
+  if (config.routing?.mode === 'switcher' && !listsSwitcher)
+    items.push({ key: 'switcher', item: 'Loop switcher', position: SWITCHER_POSITION });
   items.push({ key: 'supply', item: 'Power supply', position: SUPPLY_POSITION });
   return items;
 }

@@ -4,7 +4,10 @@ import { oneOf, requestObject } from './request-fields';
 
 /** POST /api/quotes/pdf: any configuration, saved or not, priced now into a printable quote. */
 export const quotePdfRequestSchema = z
-  .object({ configuration: rigConfigurationSchema }, { error: 'The request must be a JSON object holding the configuration, like {"configuration": …}' })
+  .object(
+    { configuration: rigConfigurationSchema },
+    { error: 'The request must be a JSON object holding the configuration, like {"configuration": …}' },
+  )
   .strict();
 
 export type QuotePdfRequest = z.infer<typeof quotePdfRequestSchema>;

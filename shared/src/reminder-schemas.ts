@@ -34,7 +34,10 @@ const settingOf = (kind: ReminderKind) => {
 const nonEmpty = (_kind: ReminderKind) => (body: Record<string, unknown>) => Object.values(body).some((value) => value !== undefined);
 const groupEmpty = (kind: ReminderKind) => ({ error: reminderWords.groupEmpty(reminderWords.kinds[kind]) });
 
-const shipBy = requestObject({ enabled: flag('enabled').optional(), daysBefore: settingOf('shipBy') }).refine(nonEmpty('shipBy'), groupEmpty('shipBy'));
+const shipBy = requestObject({ enabled: flag('enabled').optional(), daysBefore: settingOf('shipBy') }).refine(
+  nonEmpty('shipBy'),
+  groupEmpty('shipBy'),
+);
 const balanceUnpaid = requestObject({ enabled: flag('enabled').optional(), daysAfterReady: settingOf('balanceUnpaid') }).refine(
   nonEmpty('balanceUnpaid'),
   groupEmpty('balanceUnpaid'),

@@ -75,7 +75,10 @@ export const oneOf = <const Values extends readonly [string, ...string[]]>(field
  * 0.25; 2.3 is fine). Decimal reads the number by its shortest decimal form, so 2.3 counts as
  * two decimals although 2.3 × 100 is not a whole number in binary floating point.
  */
-export const hours = (field: string, { min, max, minWords, maxWords = minWords }: { min: number; max: number; minWords: string; maxWords?: string }) =>
+export const hours = (
+  field: string,
+  { min, max, minWords, maxWords = minWords }: { min: number; max: number; minWords: string; maxWords?: string },
+) =>
   z
     .number({ error: rules.hours(label(field)) })
     .min(min, { error: minWords, abort: true })

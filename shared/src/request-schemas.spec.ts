@@ -4,7 +4,8 @@ import { describeIssues } from './estimate/schema';
 import { isCalendarDay } from './request-fields';
 import { teamMemberFormSchema, updateTeamMemberSchema } from './team-schemas';
 
-const messages = (result: { success: boolean; error?: Parameters<typeof describeIssues>[0] }) => (result.success ? [] : describeIssues(result.error!));
+const messages = (result: { success: boolean; error?: Parameters<typeof describeIssues>[0] }) =>
+  result.success ? [] : describeIssues(result.error!);
 
 describe('hours: the form takes what the API takes, in the same words', () => {
   // IEEE 754 binary64: 2.3 × 100 = 229.99999999999997, so a check by multiplying refuses 2.3 h (the old form's bug).
@@ -36,10 +37,15 @@ describe('hours: the form takes what the API takes, in the same words', () => {
 
 describe('calendar days', () => {
   // ISO 8601 calendar dates; the Gregorian leap-year rule (divisible by 4, not by 100 unless by 400).
-  it.each([['2028-02-29', true], ['2026-02-29', false], ['2000-02-29', true], ['1900-02-29', false], ['2026-04-31', false], ['2026-12-31', true], ['26-12-31', false]])(
-    '%s is a calendar day: %s',
-    (day, expected) => expect(isCalendarDay(day)).toBe(expected),
-  );
+  it.each([
+    ['2028-02-29', true],
+    ['2026-02-29', false],
+    ['2000-02-29', true],
+    ['1900-02-29', false],
+    ['2026-04-31', false],
+    ['2026-12-31', true],
+    ['26-12-31', false],
+  ])('%s is a calendar day: %s', (day, expected) => expect(isCalendarDay(day)).toBe(expected));
 });
 
 describe('a builder: rate and week', () => {
@@ -52,23 +58,41 @@ describe('a builder: rate and week', () => {
   });
 
   it('reads a blank day in the form as a day off and a typed day by the API rule', () => {
-    const form = teamMemberFormSchema.safeParse({ level: 'master', hourlyRate: '95.00', active: true, hours: { '1': '7', '2': '6.5', '3': '', '4': '', '5': '', '6': '', '7': '' } });
+    const form = teamMemberFormSchema.safeParse({
+      level: 'master',
+      hourlyRate: '95.00',
+      active: true,
+      hours: { '1': '7', '2': '6.5', '3': '', '4': '', '5': '', '6': '', '7': '' },
+    });
     expect(form.success && form.data.hours).toEqual({ '1': 7, '2': 6.5, '3': 0, '4': 0, '5': 0, '6': 0, '7': 0 });
-    const tooLong = teamMemberFormSchema.safeParse({ level: 'master', hourlyRate: '95.00', active: true, hours: { '1': '25', '2': '', '3': '', '4': '', '5': '', '6': '', '7': '' } });
+    const tooLong = teamMemberFormSchema.safeParse({
+      level: 'master',
+      hourlyRate: '95.00',
+      active: true,
+      hours: { '1': '25', '2': '', '3': '', '4': '', '5': '', '6': '', '7': '' },
+    });
     expect(tooLong.error?.issues.map((i) => i.message)).toEqual(['Monday must be a number of hours from 0 to 24']);
-    expect(messages(updateTeamMemberSchema.safeParse({ weeklyHours: { '1': 25 } }))).toEqual(['Monday must be a number of hours from 0 to 24']);
+    expect(messages(updateTeamMemberSchema.safeParse({ weeklyHours: { '1': 25 } }))).toEqual([
+      'Monday must be a number of hours from 0 to 24',
+    ]);
   });
 
   it('asks for at least one change', () => {
-    expect(messages(updateTeamMemberSchema.safeParse({}))).toEqual(['Say what to change: the level, hourly rate, weekly hours or whether the builder is active']);
+    expect(messages(updateTeamMemberSchema.safeParse({}))).toEqual([
+      'Say what to change: the level, hourly rate, weekly hours or whether the builder is active',
+    ]);
   });
 });
 
 describe('extras', () => {
   it('takes a positive amount with two decimals and refuses the rest in words', () => {
     expect(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: '45.00', reason: 'Taller pedals' }).success).toBe(true);
-    expect(messages(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: '0.00', reason: 'Taller pedals' }))).toEqual(['Amount must be an amount above 0, like 45.00']);
-    expect(messages(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: 45, reason: 'Taller pedals' }))).toEqual(['Amount must be an amount above 0, like 45.00']);
+    expect(messages(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: '0.00', reason: 'Taller pedals' }))).toEqual([
+      'Amount must be an amount above 0, like 45.00',
+    ]);
+    expect(messages(proposeExtraSchema.safeParse({ description: 'Deeper case', amount: 45, reason: 'Taller pedals' }))).toEqual([
+      'Amount must be an amount above 0, like 45.00',
+    ]);
   });
 });
 

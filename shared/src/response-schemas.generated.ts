@@ -10,1018 +10,1091 @@ export const builderLevelSchema = z.enum(builderLevels);
 
 export const bookingStateSchema = z.enum(bookingStates);
 
-export const weeklyHoursSchema = z.partialRecord(z.union([z.literal("1"), z.literal("2"), z.literal("3"), z.literal("4"), z.literal("5"), z.literal("6"), z.literal("7")]), z.number());
+export const weeklyHoursSchema = z.partialRecord(
+  z.union([z.literal('1'), z.literal('2'), z.literal('3'), z.literal('4'), z.literal('5'), z.literal('6'), z.literal('7')]),
+  z.number(),
+);
 
 export const authUserSchema = z.object({
-    id: z.string(),
-    email: z.string(),
-    name: z.string(),
-    role: userRoleSchema
+  id: z.string(),
+  email: z.string(),
+  name: z.string(),
+  role: userRoleSchema,
 });
 
-export const checkStatusSchema = z.union([z.literal("ok"), z.literal("warning"), z.literal("problem"), z.literal("unknown")]);
+export const checkStatusSchema = z.union([z.literal('ok'), z.literal('warning'), z.literal('problem'), z.literal('unknown')]);
 
-export const pedalKindSchema = z.union([z.literal("mini"), z.literal("compact"), z.literal("large"), z.literal("large_digital"), z.literal("tuner"), z.literal("treadle"), z.literal("buffer"), z.literal("switcher"), z.literal("other")]);
+export const pedalKindSchema = z.union([
+  z.literal('mini'),
+  z.literal('compact'),
+  z.literal('large'),
+  z.literal('large_digital'),
+  z.literal('tuner'),
+  z.literal('treadle'),
+  z.literal('buffer'),
+  z.literal('switcher'),
+  z.literal('other'),
+]);
 
 export const rigDeviceSchema = z.object({
-    id: z.string(),
-    number: z.number(),
-    listIndex: z.number().nullable(),
-    name: z.string(),
-    kind: pedalKindSchema,
-    powered: z.boolean(),
-    loop: z.number().nullable(),
-    voltage: z.number(),
-    supply: z.union([z.literal("dc"), z.literal("ac")]),
-    polarity: z.union([z.literal("center_negative"), z.literal("center_positive")]),
-    currentMa: z.number().nullable(),
-    budgetMa: z.number(),
-    drawFromMemory: z.boolean(),
-    widthMm: z.number(),
-    depthMm: z.number(),
-    footprintFromMemory: z.boolean(),
-    powerOutput: z.number().nullable(),
-    digital: z.boolean()
+  id: z.string(),
+  number: z.number(),
+  listIndex: z.number().nullable(),
+  name: z.string(),
+  kind: pedalKindSchema,
+  powered: z.boolean(),
+  loop: z.number().nullable(),
+  voltage: z.number(),
+  supply: z.union([z.literal('dc'), z.literal('ac')]),
+  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]),
+  currentMa: z.number().nullable(),
+  budgetMa: z.number(),
+  drawFromMemory: z.boolean(),
+  widthMm: z.number(),
+  depthMm: z.number(),
+  footprintFromMemory: z.boolean(),
+  powerOutput: z.number().nullable(),
+  digital: z.boolean(),
 });
 
 export const patchCableSchema = z.object({
-    number: z.number(),
-    from: z.string(),
-    to: z.string(),
-    fromDevice: z.number().nullable(),
-    toDevice: z.number().nullable(),
-    purpose: z.union([z.literal("chain"), z.literal("loop_send"), z.literal("loop_return"), z.literal("function")]),
-    lengthFeet: z.string(),
-    spareFeet: z.string(),
-    plugs: z.number()
+  number: z.number(),
+  from: z.string(),
+  to: z.string(),
+  fromDevice: z.number().nullable(),
+  toDevice: z.number().nullable(),
+  purpose: z.union([z.literal('chain'), z.literal('loop_send'), z.literal('loop_return'), z.literal('function')]),
+  lengthFeet: z.string(),
+  spareFeet: z.string(),
+  plugs: z.number(),
 });
 
 export const powerLeadSchema = z.object({
-    device: z.string(),
-    voltage: z.number(),
-    supply: z.union([z.literal("dc"), z.literal("ac")]),
-    polarity: z.union([z.literal("center_negative"), z.literal("center_positive")]),
-    connector: z.string()
+  device: z.string(),
+  voltage: z.number(),
+  supply: z.union([z.literal('dc'), z.literal('ac')]),
+  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]),
+  connector: z.string(),
 });
 
 export const cableScheduleSchema = z.object({
-    patches: z.array(patchCableSchema),
-    patchCount: z.number(),
-    plugCount: z.number(),
-    cableFeet: z.string(),
-    spareFeet: z.string(),
-    powerLeads: z.array(powerLeadSchema),
-    barrelPlugCount: z.number()
+  patches: z.array(patchCableSchema),
+  patchCount: z.number(),
+  plugCount: z.number(),
+  cableFeet: z.string(),
+  spareFeet: z.string(),
+  powerLeads: z.array(powerLeadSchema),
+  barrelPlugCount: z.number(),
 });
 
 export const powerOutputLoadSchema = z.object({
-    output: z.number(),
-    label: z.string(),
-    voltage: z.number(),
-    supply: z.union([z.literal("dc"), z.literal("ac")]),
-    polarity: z.union([z.literal("center_negative"), z.literal("center_positive")]),
-    isolated: z.boolean(),
-    ratingMa: z.number(),
-    loadMa: z.number(),
-    headroomMa: z.number(),
-    ratingW: z.number(),
-    loadW: z.number(),
-    headroomW: z.number(),
-    minimumLoadOhms: z.number(),
-    loadOhms: z.number().nullable(),
-    devices: z.array(z.string()),
-    flags: z.array(z.string())
+  output: z.number(),
+  label: z.string(),
+  voltage: z.number(),
+  supply: z.union([z.literal('dc'), z.literal('ac')]),
+  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]),
+  isolated: z.boolean(),
+  ratingMa: z.number(),
+  loadMa: z.number(),
+  headroomMa: z.number(),
+  ratingW: z.number(),
+  loadW: z.number(),
+  headroomW: z.number(),
+  minimumLoadOhms: z.number(),
+  loadOhms: z.number().nullable(),
+  devices: z.array(z.string()),
+  flags: z.array(z.string()),
 });
 
 export const powerAssignmentSchema = z.object({
-    device: z.string(),
-    deviceId: z.string(),
-    output: z.number().nullable(),
-    voltage: z.number(),
-    currentMa: z.number(),
-    drawFromMemory: z.boolean(),
-    pinned: z.boolean(),
-    ownOutputReason: z.string().nullable(),
-    reversingLead: z.boolean()
+  device: z.string(),
+  deviceId: z.string(),
+  output: z.number().nullable(),
+  voltage: z.number(),
+  currentMa: z.number(),
+  drawFromMemory: z.boolean(),
+  pinned: z.boolean(),
+  ownOutputReason: z.string().nullable(),
+  reversingLead: z.boolean(),
 });
 
 export const powerRulesSchema = z.object({
-    maxDaisyChain: z.number(),
-    highDrawMa: z.number()
+  maxDaisyChain: z.number(),
+  highDrawMa: z.number(),
 });
 
 export const powerBudgetSchema = z.object({
-    status: checkStatusSchema,
-    supplyListed: z.boolean(),
-    outputs: z.array(powerOutputLoadSchema),
-    assignments: z.array(powerAssignmentSchema),
-    unassigned: z.array(z.object({
-        device: z.string(),
-        deviceId: z.string(),
-        reason: z.string()
-    })),
-    fixes: z.array(z.string()),
-    optimal: z.boolean(),
-    outputsUsed: z.number(),
-    spareOutputs: z.number(),
-    rules: powerRulesSchema,
-    totalDrawMa: z.number(),
-    totalDrawW: z.number(),
-    totalRatingMa: z.number().nullable(),
-    totalRatingW: z.number().nullable(),
-    totalHeadroomMa: z.number().nullable(),
-    totalHeadroomW: z.number().nullable(),
-    warnings: z.array(z.string())
+  status: checkStatusSchema,
+  supplyListed: z.boolean(),
+  outputs: z.array(powerOutputLoadSchema),
+  assignments: z.array(powerAssignmentSchema),
+  unassigned: z.array(
+    z.object({
+      device: z.string(),
+      deviceId: z.string(),
+      reason: z.string(),
+    }),
+  ),
+  fixes: z.array(z.string()),
+  optimal: z.boolean(),
+  outputsUsed: z.number(),
+  spareOutputs: z.number(),
+  rules: powerRulesSchema,
+  totalDrawMa: z.number(),
+  totalDrawW: z.number(),
+  totalRatingMa: z.number().nullable(),
+  totalRatingW: z.number().nullable(),
+  totalHeadroomMa: z.number().nullable(),
+  totalHeadroomW: z.number().nullable(),
+  warnings: z.array(z.string()),
 });
 
 export const layoutPlacementSchema = z.object({
-    device: z.string(),
-    deviceId: z.string(),
-    number: z.number(),
-    group: z.union([z.literal("chain"), z.literal("loop"), z.literal("front")]),
-    row: z.number(),
-    x: z.number(),
-    y: z.number(),
-    widthMm: z.number(),
-    depthMm: z.number()
+  device: z.string(),
+  deviceId: z.string(),
+  number: z.number(),
+  group: z.union([z.literal('chain'), z.literal('loop'), z.literal('front')]),
+  row: z.number(),
+  x: z.number(),
+  y: z.number(),
+  widthMm: z.number(),
+  depthMm: z.number(),
 });
 
 export const boardFitSchema = z.object({
-    status: checkStatusSchema,
-    surfaceId: z.string(),
-    usableWidthMm: z.number(),
-    usableDepthMm: z.number(),
-    spacingMm: z.number(),
-    footprintAreaMm2: z.number(),
-    requiredAreaMm2: z.number(),
-    usableAreaMm2: z.number(),
-    fillRatio: z.number(),
-    areaFits: z.boolean(),
-    layoutFits: z.boolean(),
-    layout: z.array(layoutPlacementSchema),
-    layoutKind: z.union([z.literal("signal"), z.literal("packed")]),
-    rows: z.number(),
-    tiered: z.boolean(),
-    unplaced: z.array(z.string()),
-    smallestFittingSurfaceId: z.string().nullable(),
-    warnings: z.array(z.string())
+  status: checkStatusSchema,
+  surfaceId: z.string(),
+  usableWidthMm: z.number(),
+  usableDepthMm: z.number(),
+  spacingMm: z.number(),
+  footprintAreaMm2: z.number(),
+  requiredAreaMm2: z.number(),
+  usableAreaMm2: z.number(),
+  fillRatio: z.number(),
+  areaFits: z.boolean(),
+  layoutFits: z.boolean(),
+  layout: z.array(layoutPlacementSchema),
+  layoutKind: z.union([z.literal('signal'), z.literal('packed')]),
+  rows: z.number(),
+  tiered: z.boolean(),
+  unplaced: z.array(z.string()),
+  smallestFittingSurfaceId: z.string().nullable(),
+  warnings: z.array(z.string()),
 });
 
 export const complexitySchema = z.object({
-    minimumLevel: builderLevelSchema,
-    reasons: z.array(z.string()),
-    loops: z.number(),
-    functionCount: z.number(),
-    voltages: z.array(z.number())
+  minimumLevel: builderLevelSchema,
+  reasons: z.array(z.string()),
+  loops: z.number(),
+  functionCount: z.number(),
+  voltages: z.array(z.number()),
 });
 
 export const signalChainSchema = z.object({
-    routing: z.union([z.literal("serial"), z.literal("switcher")]),
-    devices: z.array(rigDeviceSchema),
-    main: z.array(z.string()),
-    loops: z.array(z.object({
-        loop: z.number(),
-        deviceId: z.string()
-    })),
-    switcherId: z.string().nullable(),
-    fromCount: z.boolean().optional()
+  routing: z.union([z.literal('serial'), z.literal('switcher')]),
+  devices: z.array(rigDeviceSchema),
+  main: z.array(z.string()),
+  loops: z.array(
+    z.object({
+      loop: z.number(),
+      deviceId: z.string(),
+    }),
+  ),
+  switcherId: z.string().nullable(),
+  fromCount: z.boolean().optional(),
 });
 
-export const routingModeSchema = z.union([z.literal("serial"), z.literal("switcher")]);
+export const routingModeSchema = z.union([z.literal('serial'), z.literal('switcher')]);
 
 export const switcherInputSchema = z.object({
-    name: z.string().optional(),
-    currentMa: z.number().optional(),
-    voltage: z.number().optional(),
-    polarity: z.union([z.literal("center_negative"), z.literal("center_positive")]).optional(),
-    supply: z.union([z.literal("dc"), z.literal("ac")]).optional(),
-    widthMm: z.number().optional(),
-    depthMm: z.number().optional(),
-    powerOutput: z.number().optional()
+  name: z.string().optional(),
+  currentMa: z.number().optional(),
+  voltage: z.number().optional(),
+  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]).optional(),
+  supply: z.union([z.literal('dc'), z.literal('ac')]).optional(),
+  widthMm: z.number().optional(),
+  depthMm: z.number().optional(),
+  powerOutput: z.number().optional(),
 });
 
 export const pedalInputSchema = z.object({
-    name: z.string(),
-    kind: pedalKindSchema.optional(),
-    powered: z.boolean(),
-    inLoop: z.boolean(),
-    currentMa: z.number().optional(),
-    voltage: z.number().optional(),
-    polarity: z.union([z.literal("center_negative"), z.literal("center_positive")]).optional(),
-    supply: z.union([z.literal("dc"), z.literal("ac")]).optional(),
-    widthMm: z.number().optional(),
-    depthMm: z.number().optional(),
-    digital: z.boolean().optional(),
-    powerOutput: z.number().optional()
+  name: z.string(),
+  kind: pedalKindSchema.optional(),
+  powered: z.boolean(),
+  inLoop: z.boolean(),
+  currentMa: z.number().optional(),
+  voltage: z.number().optional(),
+  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]).optional(),
+  supply: z.union([z.literal('dc'), z.literal('ac')]).optional(),
+  widthMm: z.number().optional(),
+  depthMm: z.number().optional(),
+  digital: z.boolean().optional(),
+  powerOutput: z.number().optional(),
 });
 
 export const powerOutputInputSchema = z.object({
-    label: z.string().optional(),
-    voltage: z.number(),
-    currentMa: z.number(),
-    isolated: z.boolean(),
-    supply: z.union([z.literal("dc"), z.literal("ac")]).optional(),
-    polarity: z.union([z.literal("center_negative"), z.literal("center_positive")]).optional()
+  label: z.string().optional(),
+  voltage: z.number(),
+  currentMa: z.number(),
+  isolated: z.boolean(),
+  supply: z.union([z.literal('dc'), z.literal('ac')]).optional(),
+  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]).optional(),
 });
 
 export const estimateLineSchema = z.object({
-    code: z.string(),
-    label: z.string(),
-    kind: z.union([z.literal("materials"), z.literal("labor")]),
-    quantity: z.string(),
-    unit: z.string(),
-    unitPrice: z.string(),
-    amount: z.string(),
-    amountHigh: z.string().optional(),
-    explanation: z.string().optional()
+  code: z.string(),
+  label: z.string(),
+  kind: z.union([z.literal('materials'), z.literal('labor')]),
+  quantity: z.string(),
+  unit: z.string(),
+  unitPrice: z.string(),
+  amount: z.string(),
+  amountHigh: z.string().optional(),
+  explanation: z.string().optional(),
 });
 
 export const rigChecksSchema = z.object({
-    signalChain: signalChainSchema,
-    cableSchedule: cableScheduleSchema,
-    powerBudget: powerBudgetSchema,
-    boardFit: boardFitSchema,
-    complexity: complexitySchema
+  signalChain: signalChainSchema,
+  cableSchedule: cableScheduleSchema,
+  powerBudget: powerBudgetSchema,
+  boardFit: boardFitSchema,
+  complexity: complexitySchema,
 });
 
-export const extraStatusSchema = z.union([z.literal("proposed"), z.literal("approved"), z.literal("declined")]);
+export const extraStatusSchema = z.union([z.literal('proposed'), z.literal('approved'), z.literal('declined')]);
 
-export const paymentKindWordSchema = z.union([z.literal("deposit"), z.literal("balance")]);
+export const paymentKindWordSchema = z.union([z.literal('deposit'), z.literal('balance')]);
 
 export const moneyExtraInputSchema = z.object({
-    description: z.string(),
-    amount: z.string(),
-    status: extraStatusSchema
+  description: z.string(),
+  amount: z.string(),
+  status: extraStatusSchema,
 });
 
 export const moneyPaymentInputSchema = z.object({
-    kind: paymentKindWordSchema,
-    amount: z.string(),
-    status: z.string(),
-    paidAt: z.string().nullable(),
-    refundedAt: z.string().nullable()
+  kind: paymentKindWordSchema,
+  amount: z.string(),
+  status: z.string(),
+  paidAt: z.string().nullable(),
+  refundedAt: z.string().nullable(),
 });
 
 export const moneyFactsInputSchema = z.object({
-    currency: z.string(),
-    firmTotal: z.string().nullable(),
-    extras: z.array(moneyExtraInputSchema),
-    payments: z.array(moneyPaymentInputSchema),
-    balanceWaived: z.boolean()
+  currency: z.string(),
+  firmTotal: z.string().nullable(),
+  extras: z.array(moneyExtraInputSchema),
+  payments: z.array(moneyPaymentInputSchema),
+  balanceWaived: z.boolean(),
 });
 
 export const moneyLedgerEntrySchema = z.object({
-    kind: z.union([z.literal("payment"), z.literal("refund")]),
-    paymentKind: paymentKindWordSchema,
-    amount: z.string(),
-    at: z.string().nullable()
+  kind: z.union([z.literal('payment'), z.literal('refund')]),
+  paymentKind: paymentKindWordSchema,
+  amount: z.string(),
+  at: z.string().nullable(),
 });
 
 export const moneyFactsSchema = z.object({
-    currency: z.string(),
-    firmTotal: z.string().nullable(),
-    approvedExtras: z.string(),
-    proposedExtras: z.string(),
-    totalOwed: z.string().nullable(),
-    paid: z.string(),
-    refunded: z.string(),
-    netPaid: z.string(),
-    balanceDue: z.string().nullable(),
-    credit: z.string(),
-    balanceWaived: z.boolean(),
-    settled: z.boolean(),
-    ledger: z.array(moneyLedgerEntrySchema)
+  currency: z.string(),
+  firmTotal: z.string().nullable(),
+  approvedExtras: z.string(),
+  proposedExtras: z.string(),
+  totalOwed: z.string().nullable(),
+  paid: z.string(),
+  refunded: z.string(),
+  netPaid: z.string(),
+  balanceDue: z.string().nullable(),
+  credit: z.string(),
+  balanceWaived: z.boolean(),
+  settled: z.boolean(),
+  ledger: z.array(moneyLedgerEntrySchema),
 });
 
 export const materialsRatesSchema = z.object({
-    fastenersPerPedalSerial: z.string(),
-    fastenersPerPedalSwitcher: z.string(),
-    hookAndLoopFeetPerPedal: z.string(),
-    hookAndLoopPricePerFoot: z.string(),
-    cablePricePerFoot: z.string(),
-    plugPrice: z.string(),
-    patchLengthFeet: z.string(),
-    spareFeetPerPatch: z.string(),
-    barrelPlugPrice: z.string()
+  fastenersPerPedalSerial: z.string(),
+  fastenersPerPedalSwitcher: z.string(),
+  hookAndLoopFeetPerPedal: z.string(),
+  hookAndLoopPricePerFoot: z.string(),
+  cablePricePerFoot: z.string(),
+  plugPrice: z.string(),
+  patchLengthFeet: z.string(),
+  spareFeetPerPatch: z.string(),
+  barrelPlugPrice: z.string(),
 });
 
 export const laborRatesSchema = z.object({
-    hoursPerDeviceSerial: z.string(),
-    hoursPerDeviceSwitcher: z.string()
+  hoursPerDeviceSerial: z.string(),
+  hoursPerDeviceSwitcher: z.string(),
 });
 
 export const functionItemSchema = z.object({
-    id: z.string(),
-    code: z.string(),
-    name: z.string(),
-    description: z.string(),
-    laborHours: z.string(),
-    functionCount: z.number(),
-    extraPatchCables: z.number(),
-    minimumLevel: builderLevelSchema.optional()
+  id: z.string(),
+  code: z.string(),
+  name: z.string(),
+  description: z.string(),
+  laborHours: z.string(),
+  functionCount: z.number(),
+  extraPatchCables: z.number(),
+  minimumLevel: builderLevelSchema.optional(),
 });
 
 export const levelItemSchema = z.object({
-    id: z.string(),
-    code: builderLevelSchema,
-    name: z.string(),
-    description: z.string(),
-    rateLow: z.string(),
-    rateHigh: z.string()
+  id: z.string(),
+  code: builderLevelSchema,
+  name: z.string(),
+  description: z.string(),
+  rateLow: z.string(),
+  rateHigh: z.string(),
 });
 
 export const depositPolicySchema = z.object({
-    percent: z.string(),
-    minimum: z.string(),
-    description: z.string()
+  percent: z.string(),
+  minimum: z.string(),
+  description: z.string(),
 });
 
 export const surfaceLayoutSchema = z.object({
-    rows: z.number(),
-    tiered: z.boolean(),
-    switcherRow: z.union([z.literal("front"), z.literal("back")])
+  rows: z.number(),
+  tiered: z.boolean(),
+  switcherRow: z.union([z.literal('front'), z.literal('back')]),
 });
 
 export const surfaceItemSchema = z.object({
-    id: z.string(),
-    name: z.string(),
-    description: z.string(),
-    widthMm: z.number(),
-    depthMm: z.number(),
-    price: z.string(),
-    custom: z.boolean(),
-    layout: surfaceLayoutSchema.optional()
+  id: z.string(),
+  name: z.string(),
+  description: z.string(),
+  widthMm: z.number(),
+  depthMm: z.number(),
+  price: z.string(),
+  custom: z.boolean(),
+  layout: surfaceLayoutSchema.optional(),
 });
 
-export const caseKindSchema = z.union([z.literal("hard_case"), z.literal("road_case"), z.literal("soft_bag")]);
+export const caseKindSchema = z.union([z.literal('hard_case'), z.literal('road_case'), z.literal('soft_bag')]);
 
 export const caseItemSchema = z.object({
-    id: z.string(),
-    name: z.string(),
-    kind: caseKindSchema,
-    description: z.string(),
-    price: z.string(),
-    notRecommended: z.boolean(),
-    caution: z.string().nullable(),
-    fitsSurfaceIds: z.array(z.string())
+  id: z.string(),
+  name: z.string(),
+  kind: caseKindSchema,
+  description: z.string(),
+  price: z.string(),
+  notRecommended: z.boolean(),
+  caution: z.string().nullable(),
+  fitsSurfaceIds: z.array(z.string()),
 });
 
 export const catalogSchema = z.object({
-    priceBookVersion: z.number(),
-    publishedAt: z.string(),
-    currency: z.string(),
-    surfaces: z.array(surfaceItemSchema),
-    cases: z.array(caseItemSchema),
-    functions: z.array(functionItemSchema),
-    levels: z.array(levelItemSchema),
-    depositPolicy: depositPolicySchema,
-    materials: materialsRatesSchema,
-    labor: laborRatesSchema,
-    power: powerRulesSchema.optional()
+  priceBookVersion: z.number(),
+  publishedAt: z.string(),
+  currency: z.string(),
+  surfaces: z.array(surfaceItemSchema),
+  cases: z.array(caseItemSchema),
+  functions: z.array(functionItemSchema),
+  levels: z.array(levelItemSchema),
+  depositPolicy: depositPolicySchema,
+  materials: materialsRatesSchema,
+  labor: laborRatesSchema,
+  power: powerRulesSchema.optional(),
 });
 
 export const priceBookVersionSummarySchema = z.object({
-    version: z.number(),
-    currency: z.string(),
-    notes: z.string(),
-    publishedAt: z.string(),
-    publishedBy: z.string().nullable()
+  version: z.number(),
+  currency: z.string(),
+  notes: z.string(),
+  publishedAt: z.string(),
+  publishedBy: z.string().nullable(),
 });
 
 export const priceBookSchema = z.object({
-    currency: z.string(),
-    surfaces: z.array(surfaceItemSchema),
-    cases: z.array(caseItemSchema),
-    materials: materialsRatesSchema,
-    labor: laborRatesSchema,
-    functions: z.array(functionItemSchema),
-    levels: z.array(levelItemSchema),
-    depositPolicy: depositPolicySchema,
-    power: powerRulesSchema.optional()
+  currency: z.string(),
+  surfaces: z.array(surfaceItemSchema),
+  cases: z.array(caseItemSchema),
+  materials: materialsRatesSchema,
+  labor: laborRatesSchema,
+  functions: z.array(functionItemSchema),
+  levels: z.array(levelItemSchema),
+  depositPolicy: depositPolicySchema,
+  power: powerRulesSchema.optional(),
 });
 
 export const publishPriceBookRequestSchema = z.object({
-    book: priceBookSchema,
-    notes: z.string().optional()
+  book: priceBookSchema,
+  notes: z.string().optional(),
 });
 
 export const healthStatusSchema = z.object({
-    status: z.union([z.literal("ok"), z.literal("degraded")]),
-    db: z.union([z.literal("up"), z.literal("down")])
+  status: z.union([z.literal('ok'), z.literal('degraded')]),
+  db: z.union([z.literal('up'), z.literal('down')]),
 });
 
 export const shopProfileSchema = z.object({
-    name: z.string(),
-    tagline: z.string(),
-    currency: z.string(),
-    countryCode: z.string(),
-    timezone: z.string(),
-    locale: z.string(),
-    contactEmail: z.string(),
-    postalAddress: z.string().nullable()
+  name: z.string(),
+  tagline: z.string(),
+  currency: z.string(),
+  countryCode: z.string(),
+  timezone: z.string(),
+  locale: z.string(),
+  contactEmail: z.string(),
+  postalAddress: z.string().nullable(),
 });
 
 export const sessionViewSchema = z.object({
-    id: z.string(),
-    startedAt: z.string(),
-    lastRenewedAt: z.string(),
-    expiresAt: z.string(),
-    device: z.string().nullable()
+  id: z.string(),
+  startedAt: z.string(),
+  lastRenewedAt: z.string(),
+  expiresAt: z.string(),
+  device: z.string().nullable(),
 });
 
 export const personSessionsSchema = z.object({
-    userId: z.string(),
-    sessions: z.array(sessionViewSchema)
+  userId: z.string(),
+  sessions: z.array(sessionViewSchema),
 });
 
 export const sessionsEndedSchema = z.object({
-    userId: z.string(),
-    ended: z.number()
+  userId: z.string(),
+  ended: z.number(),
 });
 
 export const depositStatusSchema = z.enum(depositStatuses);
 
 export const personRefSchema = z.object({
-    id: z.string(),
-    name: z.string(),
-    email: z.string().nullable()
+  id: z.string(),
+  name: z.string(),
+  email: z.string().nullable(),
 });
 
 export const builderRefSchema = z.object({
-    id: z.string(),
-    userId: z.string(),
-    name: z.string(),
-    level: builderLevelSchema
+  id: z.string(),
+  userId: z.string(),
+  name: z.string(),
+  level: builderLevelSchema,
 });
 
 export const bookingSummarySchema = z.object({
-    id: z.string(),
-    reference: z.string(),
-    state: bookingStateSchema,
-    customer: personRefSchema,
-    builder: builderRefSchema.nullable(),
-    benchDate: z.string().nullable(),
-    expectedCompletion: z.string().nullable(),
-    currency: z.string(),
-    laborHours: z.string(),
-    totalLow: z.string(),
-    totalHigh: z.string(),
-    firmTotal: z.string().nullable(),
-    deposit: z.string(),
-    depositStatus: depositStatusSchema,
-    pedalCount: z.number(),
-    routingMode: z.union([z.literal("serial"), z.literal("switcher")]),
-    summary: z.string(),
-    createdAt: z.string(),
-    updatedAt: z.string()
+  id: z.string(),
+  reference: z.string(),
+  state: bookingStateSchema,
+  customer: personRefSchema,
+  builder: builderRefSchema.nullable(),
+  benchDate: z.string().nullable(),
+  expectedCompletion: z.string().nullable(),
+  currency: z.string(),
+  laborHours: z.string(),
+  totalLow: z.string(),
+  totalHigh: z.string(),
+  firmTotal: z.string().nullable(),
+  deposit: z.string(),
+  depositStatus: depositStatusSchema,
+  pedalCount: z.number(),
+  routingMode: z.union([z.literal('serial'), z.literal('switcher')]),
+  summary: z.string(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
 });
 
 export const estimateResultSchema = z.object({
-    priceBookVersion: z.number(),
-    currency: z.string(),
-    level: builderLevelSchema,
-    lines: z.array(estimateLineSchema),
-    laborHours: z.string(),
-    materialsTotal: z.string(),
-    laborLow: z.string(),
-    laborHigh: z.string(),
-    totalLow: z.string(),
-    totalHigh: z.string(),
-    deposit: z.string(),
-    rate: z.object({
-        low: z.string(),
-        high: z.string()
-    }),
-    minimumLevel: builderLevelSchema,
-    minimumLevelReasons: z.array(z.string()),
-    notes: z.array(z.string()),
-    staffNotes: z.array(z.string()).optional(),
-    checks: rigChecksSchema.optional()
+  priceBookVersion: z.number(),
+  currency: z.string(),
+  level: builderLevelSchema,
+  lines: z.array(estimateLineSchema),
+  laborHours: z.string(),
+  materialsTotal: z.string(),
+  laborLow: z.string(),
+  laborHigh: z.string(),
+  totalLow: z.string(),
+  totalHigh: z.string(),
+  deposit: z.string(),
+  rate: z.object({
+    low: z.string(),
+    high: z.string(),
+  }),
+  minimumLevel: builderLevelSchema,
+  minimumLevelReasons: z.array(z.string()),
+  notes: z.array(z.string()),
+  staffNotes: z.array(z.string()).optional(),
+  checks: rigChecksSchema.optional(),
 });
 
 export const paymentDisputeViewSchema = z.object({
-    status: z.string(),
-    reason: z.string(),
-    amount: z.string(),
-    openedAt: z.string(),
-    releasedAt: z.string().nullable(),
-    releasedBy: z.string().nullable()
+  status: z.string(),
+  reason: z.string(),
+  amount: z.string(),
+  openedAt: z.string(),
+  releasedAt: z.string().nullable(),
+  releasedBy: z.string().nullable(),
 });
 
 export const bookingEventViewSchema = z.object({
-    id: z.string(),
-    visibility: z.union([z.literal("player"), z.literal("internal")]),
-    fromState: bookingStateSchema.nullable(),
-    toState: bookingStateSchema,
-    actor: z.string(),
-    note: z.string(),
-    at: z.string()
+  id: z.string(),
+  visibility: z.union([z.literal('player'), z.literal('internal')]),
+  fromState: bookingStateSchema.nullable(),
+  toState: bookingStateSchema,
+  actor: z.string(),
+  note: z.string(),
+  at: z.string(),
 });
 
 export const photoViewSchema = z.object({
-    id: z.string(),
-    kind: z.union([z.literal("customer"), z.literal("intake"), z.literal("build")]),
-    caption: z.string(),
-    contentType: z.string(),
-    url: z.string(),
-    thumbnailUrl: z.string(),
-    width: z.number().nullable(),
-    height: z.number().nullable(),
-    createdAt: z.string()
+  id: z.string(),
+  kind: z.union([z.literal('customer'), z.literal('intake'), z.literal('build')]),
+  caption: z.string(),
+  contentType: z.string(),
+  url: z.string(),
+  thumbnailUrl: z.string(),
+  width: z.number().nullable(),
+  height: z.number().nullable(),
+  createdAt: z.string(),
 });
 
 export const rigConfigurationSchema = z.object({
-    surfaceId: z.string(),
-    caseId: z.string(),
-    routing: z.object({
-        mode: routingModeSchema,
-        switcher: switcherInputSchema.optional()
-    }),
-    pedals: z.array(pedalInputSchema).optional(),
-    pedalCount: z.number().optional(),
-    functions: z.array(z.string()),
-    level: builderLevelSchema,
-    powerSupply: z.object({
-        outputs: z.array(powerOutputInputSchema)
-    }).optional()
+  surfaceId: z.string(),
+  caseId: z.string(),
+  routing: z.object({
+    mode: routingModeSchema,
+    switcher: switcherInputSchema.optional(),
+  }),
+  pedals: z.array(pedalInputSchema).optional(),
+  pedalCount: z.number().optional(),
+  functions: z.array(z.string()),
+  level: builderLevelSchema,
+  powerSupply: z
+    .object({
+      outputs: z.array(powerOutputInputSchema),
+    })
+    .optional(),
 });
 
 export const quoteViewSchema = z.object({
-    id: z.string(),
-    kind: z.union([z.literal("estimate"), z.literal("firm")]),
-    priceBookVersion: z.number(),
-    currency: z.string(),
-    estimate: estimateResultSchema,
-    lines: z.array(estimateLineSchema),
-    laborHours: z.string(),
-    totalLow: z.string(),
-    totalHigh: z.string(),
-    deposit: z.string(),
-    hourlyRate: z.string().nullable(),
-    laborTotal: z.string().nullable(),
-    total: z.string().nullable(),
-    expiresAt: z.string(),
-    createdAt: z.string()
+  id: z.string(),
+  kind: z.union([z.literal('estimate'), z.literal('firm')]),
+  priceBookVersion: z.number(),
+  currency: z.string(),
+  estimate: estimateResultSchema,
+  lines: z.array(estimateLineSchema),
+  laborHours: z.string(),
+  totalLow: z.string(),
+  totalHigh: z.string(),
+  deposit: z.string(),
+  hourlyRate: z.string().nullable(),
+  laborTotal: z.string().nullable(),
+  total: z.string().nullable(),
+  expiresAt: z.string(),
+  createdAt: z.string(),
 });
 
 export const paymentViewSchema = z.object({
-    id: z.string(),
-    kind: z.union([z.literal("deposit"), z.literal("balance")]),
-    amount: z.string(),
-    currency: z.string(),
-    status: z.union([z.literal("pending"), z.literal("processing"), z.literal("paid"), z.literal("failed"), z.literal("expired"), z.literal("refunded")]),
-    failureMessage: z.string().nullable(),
-    paidAt: z.string().nullable(),
-    refundedAt: z.string().nullable(),
-    createdAt: z.string(),
-    refundStatus: z.union([z.literal("pending"), z.literal("requires_action"), z.literal("succeeded"), z.literal("failed"), z.literal("canceled")]).nullable(),
-    refundFailure: z.string().nullable(),
-    dispute: paymentDisputeViewSchema.nullable()
+  id: z.string(),
+  kind: z.union([z.literal('deposit'), z.literal('balance')]),
+  amount: z.string(),
+  currency: z.string(),
+  status: z.union([
+    z.literal('pending'),
+    z.literal('processing'),
+    z.literal('paid'),
+    z.literal('failed'),
+    z.literal('expired'),
+    z.literal('refunded'),
+  ]),
+  failureMessage: z.string().nullable(),
+  paidAt: z.string().nullable(),
+  refundedAt: z.string().nullable(),
+  createdAt: z.string(),
+  refundStatus: z
+    .union([z.literal('pending'), z.literal('requires_action'), z.literal('succeeded'), z.literal('failed'), z.literal('canceled')])
+    .nullable(),
+  refundFailure: z.string().nullable(),
+  dispute: paymentDisputeViewSchema.nullable(),
 });
 
 export const benchBuildSchema = z.object({
-    bookingId: z.string(),
-    reference: z.string(),
-    customerName: z.string(),
-    state: bookingStateSchema,
-    hours: z.number(),
-    benchDate: z.string().nullable()
+  bookingId: z.string(),
+  reference: z.string(),
+  customerName: z.string(),
+  state: bookingStateSchema,
+  hours: z.number(),
+  benchDate: z.string().nullable(),
 });
 
-export const benchDayOffSchema = z.object({
-    kind: z.union([z.literal("holiday"), z.literal("closure"), z.literal("day_off"), z.literal("absence")]),
-    label: z.string()
-}).nullable();
+export const benchDayOffSchema = z
+  .object({
+    kind: z.union([z.literal('holiday'), z.literal('closure'), z.literal('day_off'), z.literal('absence')]),
+    label: z.string(),
+  })
+  .nullable();
 
 export const benchDaySchema = z.object({
-    date: z.string(),
-    capacityHours: z.number(),
-    bookedHours: z.number(),
-    freeHours: z.number(),
-    recordedHours: z.number(),
-    off: benchDayOffSchema,
-    builds: z.array(benchBuildSchema)
+  date: z.string(),
+  capacityHours: z.number(),
+  bookedHours: z.number(),
+  freeHours: z.number(),
+  recordedHours: z.number(),
+  off: benchDayOffSchema,
+  builds: z.array(benchBuildSchema),
 });
 
 export const benchBuilderSchema = builderRefSchema.extend({
-    hourlyRate: z.string().nullable(),
-    weeklyHours: weeklyHoursSchema,
-    active: z.boolean(),
-    isMe: z.boolean()
+  hourlyRate: z.string().nullable(),
+  weeklyHours: weeklyHoursSchema,
+  active: z.boolean(),
+  isMe: z.boolean(),
 });
 
 export const benchViewSchema = z.object({
-    from: z.string(),
-    to: z.string(),
-    builders: z.array(z.object({
-        builder: benchBuilderSchema,
-        days: z.array(benchDaySchema)
-    }))
+  from: z.string(),
+  to: z.string(),
+  builders: z.array(
+    z.object({
+      builder: benchBuilderSchema,
+      days: z.array(benchDaySchema),
+    }),
+  ),
 });
 
 export const benchSuggestionSchema = z.object({
-    builder: benchBuilderSchema,
-    benchDate: z.string(),
-    expectedCompletion: z.string(),
-    shipBy: z.string(),
-    plan: z.array(z.object({
-        date: z.string(),
-        hours: z.number()
-    })),
-    laborTotal: z.string(),
-    firmTotal: z.string(),
-    meetsMinimumLevel: z.boolean(),
-    meetsChosenLevel: z.boolean(),
-    aboveQuotedRange: z.boolean()
+  builder: benchBuilderSchema,
+  benchDate: z.string(),
+  expectedCompletion: z.string(),
+  shipBy: z.string(),
+  plan: z.array(
+    z.object({
+      date: z.string(),
+      hours: z.number(),
+    }),
+  ),
+  laborTotal: z.string(),
+  firmTotal: z.string(),
+  meetsMinimumLevel: z.boolean(),
+  meetsChosenLevel: z.boolean(),
+  aboveQuotedRange: z.boolean(),
 });
 
 export const benchSuggestResponseSchema = z.object({
-    bookingId: z.string(),
-    reference: z.string(),
-    laborHours: z.number(),
-    minimumLevel: builderLevelSchema,
-    chosenLevel: builderLevelSchema,
-    quotedHigh: z.string(),
-    currency: z.string(),
-    materialsTotal: z.string(),
-    deposit: z.string(),
-    suggestions: z.array(benchSuggestionSchema),
-    ineligible: z.array(z.object({
-        builder: builderRefSchema,
-        reason: z.string()
-    }))
+  bookingId: z.string(),
+  reference: z.string(),
+  laborHours: z.number(),
+  minimumLevel: builderLevelSchema,
+  chosenLevel: builderLevelSchema,
+  quotedHigh: z.string(),
+  currency: z.string(),
+  materialsTotal: z.string(),
+  deposit: z.string(),
+  suggestions: z.array(benchSuggestionSchema),
+  ineligible: z.array(
+    z.object({
+      builder: builderRefSchema,
+      reason: z.string(),
+    }),
+  ),
 });
 
 export const acceptBookingRequestSchema = z.object({
-    builderId: z.string(),
-    benchDate: z.string(),
-    levelOverrideReason: z.string().optional()
+  builderId: z.string(),
+  benchDate: z.string(),
+  levelOverrideReason: z.string().optional(),
 });
 
 export const acceptBookingResponseSchema = z.object({
-    bookingId: z.string(),
-    state: z.literal("scheduled"),
-    builderId: z.string(),
-    benchDate: z.string(),
-    expectedCompletion: z.string(),
-    shipBy: z.string(),
-    plan: z.array(z.object({
-        date: z.string(),
-        hours: z.number()
-    })),
-    firmQuote: z.object({
-        id: z.string(),
-        hourlyRate: z.string(),
-        laborHours: z.string(),
-        laborTotal: z.string(),
-        materialsTotal: z.string(),
-        total: z.string(),
-        deposit: z.string(),
-        balanceDue: z.string(),
-        currency: z.string()
-    })
+  bookingId: z.string(),
+  state: z.literal('scheduled'),
+  builderId: z.string(),
+  benchDate: z.string(),
+  expectedCompletion: z.string(),
+  shipBy: z.string(),
+  plan: z.array(
+    z.object({
+      date: z.string(),
+      hours: z.number(),
+    }),
+  ),
+  firmQuote: z.object({
+    id: z.string(),
+    hourlyRate: z.string(),
+    laborHours: z.string(),
+    laborTotal: z.string(),
+    materialsTotal: z.string(),
+    total: z.string(),
+    deposit: z.string(),
+    balanceDue: z.string(),
+    currency: z.string(),
+  }),
 });
 
-export const benchDateRefusalSchema = z.union([z.literal("full"), z.literal("closed"), z.literal("holiday"), z.literal("day_off"), z.literal("away"), z.literal("too_soon_to_ship"), z.literal("past"), z.literal("no_capacity")]);
+export const benchDateRefusalSchema = z.union([
+  z.literal('full'),
+  z.literal('closed'),
+  z.literal('holiday'),
+  z.literal('day_off'),
+  z.literal('away'),
+  z.literal('too_soon_to_ship'),
+  z.literal('past'),
+  z.literal('no_capacity'),
+]);
 
 export const benchPreviewOptionSchema = z.object({
-    builder: benchBuilderSchema,
-    ok: z.boolean(),
-    refusal: benchDateRefusalSchema.nullable(),
-    message: z.string().nullable(),
-    load: z.array(z.object({
-        date: z.string(),
-        capacityHours: z.number(),
-        bookedHours: z.number(),
-        thisBuildHours: z.number(),
-        off: benchDayOffSchema
-    })),
-    expectedCompletion: z.string().nullable(),
-    shipBy: z.string(),
-    firmTotal: z.string(),
-    meetsChosenLevel: z.boolean(),
-    aboveQuotedRange: z.boolean(),
-    nextPossibleDate: z.string().nullable()
+  builder: benchBuilderSchema,
+  ok: z.boolean(),
+  refusal: benchDateRefusalSchema.nullable(),
+  message: z.string().nullable(),
+  load: z.array(
+    z.object({
+      date: z.string(),
+      capacityHours: z.number(),
+      bookedHours: z.number(),
+      thisBuildHours: z.number(),
+      off: benchDayOffSchema,
+    }),
+  ),
+  expectedCompletion: z.string().nullable(),
+  shipBy: z.string(),
+  firmTotal: z.string(),
+  meetsChosenLevel: z.boolean(),
+  aboveQuotedRange: z.boolean(),
+  nextPossibleDate: z.string().nullable(),
 });
 
 export const rescheduleRequestSchema = z.object({
-    builderId: z.string(),
-    benchDate: z.string(),
-    reason: z.string(),
-    reprice: z.boolean().optional(),
-    levelOverrideReason: z.string().optional()
+  builderId: z.string(),
+  benchDate: z.string(),
+  reason: z.string(),
+  reprice: z.boolean().optional(),
+  levelOverrideReason: z.string().optional(),
 });
 
 export const rescheduleResponseSchema = z.object({
-    bookingId: z.string(),
-    builderId: z.string(),
-    benchDate: z.string(),
-    previousBenchDate: z.string().nullable(),
-    expectedCompletion: z.string(),
-    shipBy: z.string().nullable(),
-    plan: z.array(z.object({
-        date: z.string(),
-        hours: z.number()
-    })),
-    shift: z.string(),
-    firmTotal: z.string(),
-    repriced: z.boolean(),
-    priceConsent: z.union([z.literal("pending"), z.literal("given")]).nullable(),
-    calendarSequence: z.number()
+  bookingId: z.string(),
+  builderId: z.string(),
+  benchDate: z.string(),
+  previousBenchDate: z.string().nullable(),
+  expectedCompletion: z.string(),
+  shipBy: z.string().nullable(),
+  plan: z.array(
+    z.object({
+      date: z.string(),
+      hours: z.number(),
+    }),
+  ),
+  shift: z.string(),
+  firmTotal: z.string(),
+  repriced: z.boolean(),
+  priceConsent: z.union([z.literal('pending'), z.literal('given')]).nullable(),
+  calendarSequence: z.number(),
 });
 
 export const cancellationPreviewSchema = z.object({
-    bookingId: z.string(),
-    reference: z.string(),
-    state: bookingStateSchema,
-    currency: z.string(),
-    depositPaid: z.string(),
-    refundIfPlayerAsked: z.string(),
-    refundIfShopCancels: z.string(),
-    policy: z.string(),
-    benchHours: z.number()
+  bookingId: z.string(),
+  reference: z.string(),
+  state: bookingStateSchema,
+  currency: z.string(),
+  depositPaid: z.string(),
+  refundIfPlayerAsked: z.string(),
+  refundIfShopCancels: z.string(),
+  policy: z.string(),
+  benchHours: z.number(),
 });
 
 export const builderAbsenceViewSchema = z.object({
-    id: z.string(),
-    builderId: z.string(),
-    startsOn: z.string(),
-    endsOn: z.string(),
-    reason: z.string()
+  id: z.string(),
+  builderId: z.string(),
+  startsOn: z.string(),
+  endsOn: z.string(),
+  reason: z.string(),
 });
 
 export const addAbsenceResponseSchema = builderAbsenceViewSchema.extend({
-    buildsOnBenchThen: z.array(z.object({
-        bookingId: z.string(),
-        reference: z.string(),
-        days: z.array(z.string())
-    }))
+  buildsOnBenchThen: z.array(
+    z.object({
+      bookingId: z.string(),
+      reference: z.string(),
+      days: z.array(z.string()),
+    }),
+  ),
 });
 
 export const declineBookingRequestSchema = z.object({
-    reason: z.string()
+  reason: z.string(),
 });
 
 export const benchStateSchema = z.enum(benchStates);
 
 export const changeStateRequestSchema = z.object({
-    to: benchStateSchema,
-    note: z.string().optional(),
-    tellPlayer: z.boolean().optional()
+  to: benchStateSchema,
+  note: z.string().optional(),
+  tellPlayer: z.boolean().optional(),
 });
 
 export const bookingStateResponseSchema = z.object({
-    bookingId: z.string(),
-    state: bookingStateSchema,
-    awaitingLayoutApproval: z.boolean()
+  bookingId: z.string(),
+  state: bookingStateSchema,
+  awaitingLayoutApproval: z.boolean(),
 });
 
 export const timeEntryViewSchema = z.object({
-    id: z.string(),
-    builder: builderRefSchema,
-    workedOn: z.string(),
-    hours: z.number(),
-    note: z.string(),
-    createdAt: z.string(),
-    updatedAt: z.string().nullable(),
-    recordedBy: z.object({
-        id: z.string(),
-        name: z.string()
-    }).nullable()
+  id: z.string(),
+  builder: builderRefSchema,
+  workedOn: z.string(),
+  hours: z.number(),
+  note: z.string(),
+  createdAt: z.string(),
+  updatedAt: z.string().nullable(),
+  recordedBy: z
+    .object({
+      id: z.string(),
+      name: z.string(),
+    })
+    .nullable(),
 });
 
 export const timeEntriesResponseSchema = z.object({
-    entries: z.array(timeEntryViewSchema),
-    totalHours: z.number(),
-    plannedHours: z.number().nullable()
+  entries: z.array(timeEntryViewSchema),
+  totalHours: z.number(),
+  plannedHours: z.number().nullable(),
 });
 
 export const intakeItemViewSchema = z.object({
-    id: z.string(),
-    key: z.string(),
-    item: z.string(),
-    condition: z.union([z.literal("working"), z.literal("faulty")]),
-    note: z.string(),
-    recordedBy: z.string(),
-    createdAt: z.string(),
-    updatedAt: z.string().nullable()
+  id: z.string(),
+  key: z.string(),
+  item: z.string(),
+  condition: z.union([z.literal('working'), z.literal('faulty')]),
+  note: z.string(),
+  recordedBy: z.string(),
+  createdAt: z.string(),
+  updatedAt: z.string().nullable(),
 });
 
-export const decidedViaSchema = z.union([z.literal("app"), z.literal("phone"), z.literal("in_person"), z.literal("email")]);
+export const decidedViaSchema = z.union([z.literal('app'), z.literal('phone'), z.literal('in_person'), z.literal('email')]);
 
 export const decisionViewSchema = z.object({
-    approved: z.boolean(),
-    via: decidedViaSchema,
-    givenBy: z.string(),
-    recordedBy: z.string().nullable(),
-    comment: z.string(),
-    at: z.string()
+  approved: z.boolean(),
+  via: decidedViaSchema,
+  givenBy: z.string(),
+  recordedBy: z.string().nullable(),
+  comment: z.string(),
+  at: z.string(),
 });
 
 export const extraViewSchema = z.object({
-    id: z.string(),
-    description: z.string(),
-    amount: z.string(),
-    reason: z.string(),
-    status: z.union([z.literal("proposed"), z.literal("approved"), z.literal("declined")]),
-    decidedAt: z.string().nullable(),
-    decision: decisionViewSchema.nullable(),
-    createdAt: z.string()
+  id: z.string(),
+  description: z.string(),
+  amount: z.string(),
+  reason: z.string(),
+  status: z.union([z.literal('proposed'), z.literal('approved'), z.literal('declined')]),
+  decidedAt: z.string().nullable(),
+  decision: decisionViewSchema.nullable(),
+  createdAt: z.string(),
 });
 
 export const layoutApprovalViewSchema = z.object({
-    id: z.string(),
-    status: z.union([z.literal("waiting"), z.literal("approved"), z.literal("declined")]),
-    message: z.string(),
-    requestedBy: z.string().nullable(),
-    decision: decisionViewSchema.nullable(),
-    createdAt: z.string()
+  id: z.string(),
+  status: z.union([z.literal('waiting'), z.literal('approved'), z.literal('declined')]),
+  message: z.string(),
+  requestedBy: z.string().nullable(),
+  decision: decisionViewSchema.nullable(),
+  createdAt: z.string(),
 });
 
 export const teamMemberStatusSchema = z.enum(teamMemberStatuses);
 
 export const teamMemberSchema = builderRefSchema.extend({
-    email: z.string(),
-    hourlyRate: z.string().nullable(),
-    weeklyHours: weeklyHoursSchema,
-    weeklyCapacityHours: z.number(),
-    active: z.boolean(),
-    status: teamMemberStatusSchema,
-    isMe: z.boolean(),
-    invitationExpiresAt: z.string().nullable()
+  email: z.string(),
+  hourlyRate: z.string().nullable(),
+  weeklyHours: weeklyHoursSchema,
+  weeklyCapacityHours: z.number(),
+  active: z.boolean(),
+  status: teamMemberStatusSchema,
+  isMe: z.boolean(),
+  invitationExpiresAt: z.string().nullable(),
 });
 
 export const invitationResentSchema = z.object({
-    builderId: z.string(),
-    email: z.string(),
-    expiresAt: z.string()
+  builderId: z.string(),
+  email: z.string(),
+  expiresAt: z.string(),
 });
 
 export const updateTeamMemberRequestSchema = z.object({
-    level: builderLevelSchema.optional(),
-    hourlyRate: z.string().optional(),
-    weeklyHours: weeklyHoursSchema.optional(),
-    active: z.boolean().optional()
+  level: builderLevelSchema.optional(),
+  hourlyRate: z.string().optional(),
+  weeklyHours: weeklyHoursSchema.optional(),
+  active: z.boolean().optional(),
 });
 
 export const shopClosureViewSchema = z.object({
-    id: z.string(),
-    startsOn: z.string(),
-    endsOn: z.string(),
-    reason: z.string()
+  id: z.string(),
+  startsOn: z.string(),
+  endsOn: z.string(),
+  reason: z.string(),
 });
 
 export const addClosureResponseSchema = shopClosureViewSchema.extend({
-    buildsOnBenchThen: z.array(z.object({
-        bookingId: z.string(),
-        reference: z.string(),
-        days: z.array(z.string())
-    }))
+  buildsOnBenchThen: z.array(
+    z.object({
+      bookingId: z.string(),
+      reference: z.string(),
+      days: z.array(z.string()),
+    }),
+  ),
 });
 
 export const upcomingHolidaySchema = z.object({
-    date: z.string(),
-    name: z.string(),
-    shopWorks: z.boolean()
+  date: z.string(),
+  name: z.string(),
+  shopWorks: z.boolean(),
 });
 
 export const holidayChoiceViewSchema = z.object({
-    day: z.string(),
-    name: z.string(),
-    shopWorks: z.boolean(),
-    decidedBy: z.string().nullable(),
-    decidedAt: z.string()
+  day: z.string(),
+  name: z.string(),
+  shopWorks: z.boolean(),
+  decidedBy: z.string().nullable(),
+  decidedAt: z.string(),
 });
 
 export const holidayChoiceResponseSchema = holidayChoiceViewSchema.extend({
-    buildsOnBenchThen: z.array(z.object({
-        bookingId: z.string(),
-        reference: z.string(),
-        days: z.array(z.string())
-    }))
+  buildsOnBenchThen: z.array(
+    z.object({
+      bookingId: z.string(),
+      reference: z.string(),
+      days: z.array(z.string()),
+    }),
+  ),
 });
 
 export const updateShopSettingsRequestSchema = z.object({
-    name: z.string().optional(),
-    tagline: z.string().optional(),
-    contactEmail: z.string().optional(),
-    countryCode: z.string().optional(),
-    timezone: z.string().optional(),
-    locale: z.string().optional(),
-    postalAddress: z.object({
-        line1: z.string(),
-        line2: z.string().optional(),
-        city: z.string(),
-        region: z.string().optional(),
-        postalCode: z.string()
-    }).optional()
+  name: z.string().optional(),
+  tagline: z.string().optional(),
+  contactEmail: z.string().optional(),
+  countryCode: z.string().optional(),
+  timezone: z.string().optional(),
+  locale: z.string().optional(),
+  postalAddress: z
+    .object({
+      line1: z.string(),
+      line2: z.string().optional(),
+      city: z.string(),
+      region: z.string().optional(),
+      postalCode: z.string(),
+    })
+    .optional(),
 });
 
 export const customerSummarySchema = personRefSchema.extend({
-    phone: z.string().nullable(),
-    createdAt: z.string(),
-    buildCount: z.number(),
-    activeBuildCount: z.number(),
-    lastBookingAt: z.string().nullable()
+  phone: z.string().nullable(),
+  createdAt: z.string(),
+  buildCount: z.number(),
+  activeBuildCount: z.number(),
+  lastBookingAt: z.string().nullable(),
 });
 
 export const customerDetailSchema = customerSummarySchema.extend({
-    builds: z.array(z.object({
-        id: z.string(),
-        reference: z.string(),
-        state: bookingStateSchema,
-        benchDate: z.string().nullable(),
-        createdAt: z.string()
-    })),
-    payments: z.array(z.object({
-        id: z.string(),
-        bookingId: z.string(),
-        reference: z.string(),
-        kind: z.union([z.literal("deposit"), z.literal("balance")]),
-        amount: z.string(),
-        currency: z.string(),
-        status: paymentViewSchema.shape.status,
-        paidAt: z.string().nullable(),
-        createdAt: z.string()
-    })),
-    messages: z.array(z.object({
-        id: z.string(),
-        template: z.string(),
-        subject: z.string().nullable(),
-        toAddress: z.string().nullable(),
-        state: z.string(),
-        bookingId: z.string().nullable(),
-        createdAt: z.string(),
-        sentAt: z.string().nullable()
-    }))
+  builds: z.array(
+    z.object({
+      id: z.string(),
+      reference: z.string(),
+      state: bookingStateSchema,
+      benchDate: z.string().nullable(),
+      createdAt: z.string(),
+    }),
+  ),
+  payments: z.array(
+    z.object({
+      id: z.string(),
+      bookingId: z.string(),
+      reference: z.string(),
+      kind: z.union([z.literal('deposit'), z.literal('balance')]),
+      amount: z.string(),
+      currency: z.string(),
+      status: paymentViewSchema.shape.status,
+      paidAt: z.string().nullable(),
+      createdAt: z.string(),
+    }),
+  ),
+  messages: z.array(
+    z.object({
+      id: z.string(),
+      template: z.string(),
+      subject: z.string().nullable(),
+      toAddress: z.string().nullable(),
+      state: z.string(),
+      bookingId: z.string().nullable(),
+      createdAt: z.string(),
+      sentAt: z.string().nullable(),
+    }),
+  ),
 });
 
 export const benchLeadTimeSchema = z.object({
-    laborHours: z.string(),
-    level: builderLevelSchema,
-    earliestBenchDate: z.string().nullable(),
-    expectedCompletion: z.string().nullable(),
-    shipBy: z.string().nullable(),
-    message: z.string().optional()
+  laborHours: z.string(),
+  level: builderLevelSchema,
+  earliestBenchDate: z.string().nullable(),
+  expectedCompletion: z.string().nullable(),
+  shipBy: z.string().nullable(),
+  message: z.string().optional(),
 });
 
 export const priceBookOverviewSchema = z.object({
-    current: priceBookVersionSummarySchema.and(z.object({
-        book: priceBookSchema
-    })),
-    versions: z.array(priceBookVersionSummarySchema)
+  current: priceBookVersionSummarySchema.and(
+    z.object({
+      book: priceBookSchema,
+    }),
+  ),
+  versions: z.array(priceBookVersionSummarySchema),
 });
 
 export const bookingDetailSchema = bookingSummarySchema.extend({
-    configuration: rigConfigurationSchema,
-    customerNotes: z.string(),
-    quote: quoteViewSchema,
-    firmQuote: quoteViewSchema.nullable(),
-    payments: z.array(paymentViewSchema),
-    events: z.array(bookingEventViewSchema),
-    photos: z.array(photoViewSchema),
-    inbound: z.object({
-        carrier: z.string(),
-        tracking: z.string()
-    }).nullable(),
-    awaitingLayoutApproval: z.boolean(),
-    declineReason: z.string().nullable(),
-    cancelReason: z.string().nullable(),
-    levelOverrideReason: z.string().nullable(),
-    priceConsent: z.union([z.literal("pending"), z.literal("given")]).nullable(),
-    balanceDue: z.string().nullable(),
-    extras: z.array(extraViewSchema),
-    layoutApprovals: z.array(layoutApprovalViewSchema),
-    money: moneyFactsSchema,
-    deliveryHold: z.string().nullable()
+  configuration: rigConfigurationSchema,
+  customerNotes: z.string(),
+  quote: quoteViewSchema,
+  firmQuote: quoteViewSchema.nullable(),
+  payments: z.array(paymentViewSchema),
+  events: z.array(bookingEventViewSchema),
+  photos: z.array(photoViewSchema),
+  inbound: z
+    .object({
+      carrier: z.string(),
+      tracking: z.string(),
+    })
+    .nullable(),
+  awaitingLayoutApproval: z.boolean(),
+  declineReason: z.string().nullable(),
+  cancelReason: z.string().nullable(),
+  levelOverrideReason: z.string().nullable(),
+  priceConsent: z.union([z.literal('pending'), z.literal('given')]).nullable(),
+  balanceDue: z.string().nullable(),
+  extras: z.array(extraViewSchema),
+  layoutApprovals: z.array(layoutApprovalViewSchema),
+  money: moneyFactsSchema,
+  deliveryHold: z.string().nullable(),
 });
 
 export const benchPreviewSchema = z.object({
-    bookingId: z.string(),
-    reference: z.string(),
-    benchDate: z.string(),
-    today: z.string(),
-    earliestShippableDate: z.string(),
-    currentBenchDate: z.string().nullable(),
-    options: z.array(benchPreviewOptionSchema)
+  bookingId: z.string(),
+  reference: z.string(),
+  benchDate: z.string(),
+  today: z.string(),
+  earliestShippableDate: z.string(),
+  currentBenchDate: z.string().nullable(),
+  options: z.array(benchPreviewOptionSchema),
 });
 
 export const shopSettingsViewSchema = z.object({
-    name: z.string(),
-    tagline: z.string(),
-    currency: z.string(),
-    countryCode: z.string(),
-    timezone: z.string(),
-    locale: z.string(),
-    contactEmail: z.string(),
-    postalAddress: z.object({
-        line1: z.string(),
-        line2: z.string(),
-        city: z.string(),
-        region: z.string(),
-        postalCode: z.string()
-    }).nullable(),
-    closures: z.array(shopClosureViewSchema),
-    upcomingHolidays: z.array(upcomingHolidaySchema),
-    holidayHistory: z.array(holidayChoiceViewSchema)
+  name: z.string(),
+  tagline: z.string(),
+  currency: z.string(),
+  countryCode: z.string(),
+  timezone: z.string(),
+  locale: z.string(),
+  contactEmail: z.string(),
+  postalAddress: z
+    .object({
+      line1: z.string(),
+      line2: z.string(),
+      city: z.string(),
+      region: z.string(),
+      postalCode: z.string(),
+    })
+    .nullable(),
+  closures: z.array(shopClosureViewSchema),
+  upcomingHolidays: z.array(upcomingHolidaySchema),
+  holidayHistory: z.array(holidayChoiceViewSchema),
 });

@@ -66,9 +66,36 @@ export function canonicalLocale(tag: string): string | undefined {
  * customers expect); the API takes any tag `canonicalLocale` accepts.
  */
 export const commonShopLocales = [
-  'en-US', 'en-CA', 'en-GB', 'en-IE', 'en-AU', 'en-NZ', 'de-DE', 'de-AT', 'de-CH', 'fr-FR', 'fr-CA', 'fr-BE', 'nl-NL',
-  'it-IT', 'es-ES', 'es-MX', 'pt-PT', 'pt-BR', 'sv-SE', 'nb-NO', 'da-DK', 'fi-FI', 'pl-PL', 'cs-CZ', 'hu-HU', 'ja-JP',
-  'ko-KR', 'zh-TW', 'id-ID', 'ar-KW',
+  'en-US',
+  'en-CA',
+  'en-GB',
+  'en-IE',
+  'en-AU',
+  'en-NZ',
+  'de-DE',
+  'de-AT',
+  'de-CH',
+  'fr-FR',
+  'fr-CA',
+  'fr-BE',
+  'nl-NL',
+  'it-IT',
+  'es-ES',
+  'es-MX',
+  'pt-PT',
+  'pt-BR',
+  'sv-SE',
+  'nb-NO',
+  'da-DK',
+  'fi-FI',
+  'pl-PL',
+  'cs-CZ',
+  'hu-HU',
+  'ja-JP',
+  'ko-KR',
+  'zh-TW',
+  'id-ID',
+  'ar-KW',
 ] as const;
 
 const localeWords = shopWords.locale;
@@ -91,7 +118,10 @@ export const postalAddressSchema = requestObject({
 export type PostalAddressInput = z.infer<typeof postalAddressSchema>;
 
 /** One line for mails, calendar files and paper: "14 Foundry Lane, Unit 3, Millbrook, OR 97000, US". */
-export function postalAddressLine(address: { line1: string; line2: string; city: string; region: string; postalCode: string }, countryCode: string): string {
+export function postalAddressLine(
+  address: { line1: string; line2: string; city: string; region: string; postalCode: string },
+  countryCode: string,
+): string {
   const cityLine = [address.city, [address.region, address.postalCode].filter(Boolean).join(' ')].filter(Boolean).join(', ');
   return [address.line1, address.line2, cityLine, countryCode].filter((part) => part.trim() !== '').join(', ');
 }
@@ -108,11 +138,7 @@ export const shopDetailsSchema = requestObject({
     .pipe(z.email({ error: emailWords })),
   // ISO 3166-1 alpha-2 from the registry's list; a country without public-holiday data is allowed
   // (the settings page then says so and the shop adds its closed days as closures).
-  countryCode: z
-    .string({ error: shopWords.countryCode })
-    .trim()
-    .toUpperCase()
-    .refine(isCountryCode, { error: shopWords.countryCode }),
+  countryCode: z.string({ error: shopWords.countryCode }).trim().toUpperCase().refine(isCountryCode, { error: shopWords.countryCode }),
   timezone: z
     .string({ error: timeZoneWords })
     .trim()
@@ -201,9 +227,7 @@ export type BenchSuggestQuery = z.infer<typeof benchSuggestQuerySchema>;
 
 /** GET /api/bench/lead-time: the estimate's labor hours and the level it is priced at. */
 export const leadTimeQuerySchema = requestObject({
-  hours: z
-    .string({ error: shopWords.leadTimeHours })
-    .regex(/^(?!0+(\.0+)?$)\d{1,3}(\.\d{1,2})?$/, { error: shopWords.leadTimeHours }),
+  hours: z.string({ error: shopWords.leadTimeHours }).regex(/^(?!0+(\.0+)?$)\d{1,3}(\.\d{1,2})?$/, { error: shopWords.leadTimeHours }),
   level: z.enum(builderLevels, { error: authWords.level }),
 });
 export type LeadTimeQuery = z.infer<typeof leadTimeQuerySchema>;

@@ -24,5 +24,7 @@ const patterns = storefrontPaths.map((p) => p.split('/').filter(Boolean));
 /** True when the storefront has a page at this path (`:id` stands for any one segment). */
 export function isStorefrontPath(pathname: string): boolean {
   const segments = pathname.split('/').filter(Boolean);
-  return patterns.some((pattern) => pattern.length === segments.length && pattern.every((part, i) => part.startsWith(':') || part === segments[i]));
+  return patterns.some(
+    (pattern) => pattern.length === segments.length && pattern.every((part, i) => part.startsWith(':') || part === segments[i]),
+  );
 }

@@ -4,7 +4,6 @@ import { builderLevels } from './domain';
 import { flag, hours, numberText, oneOf, requestObject } from './request-fields';
 import { shopWords, weekdayNames } from './words';
 
-
 export const WEEKDAY_KEYS = ['1', '2', '3', '4', '5', '6', '7'] as const;
 type WeekdayKey = (typeof WEEKDAY_KEYS)[number];
 
@@ -16,10 +15,12 @@ const dayHours = (day: WeekdayKey) => {
 
 /** A week of bench hours keyed by ISO 8601 weekday number, "1" = Monday … "7" = Sunday. */
 export const weeklyHoursField = z.strictObject(
-  Object.fromEntries(WEEKDAY_KEYS.map((day) => [day, dayHours(day).optional()])) as Record<WeekdayKey, z.ZodOptional<ReturnType<typeof dayHours>>>,
+  Object.fromEntries(WEEKDAY_KEYS.map((day) => [day, dayHours(day).optional()])) as Record<
+    WeekdayKey,
+    z.ZodOptional<ReturnType<typeof dayHours>>
+  >,
   {
-    error: (issue) =>
-      issue.code === 'unrecognized_keys' ? shopWords.unknownWeekdays(issue.keys) : shopWords.weeklyHoursNotAnObject,
+    error: (issue) => (issue.code === 'unrecognized_keys' ? shopWords.unknownWeekdays(issue.keys) : shopWords.weeklyHoursNotAnObject),
   },
 );
 

@@ -8,7 +8,24 @@ import { RequestError } from './params';
  */
 
 /** "Zero-decimal currencies": the amount is whole units (¥500 is 500). */
-const ZERO_DECIMAL = new Set(['bif', 'clp', 'djf', 'gnf', 'jpy', 'kmf', 'krw', 'mga', 'pyg', 'rwf', 'ugx', 'vnd', 'vuv', 'xaf', 'xof', 'xpf']);
+const ZERO_DECIMAL = new Set([
+  'bif',
+  'clp',
+  'djf',
+  'gnf',
+  'jpy',
+  'kmf',
+  'krw',
+  'mga',
+  'pyg',
+  'rwf',
+  'ugx',
+  'vnd',
+  'vuv',
+  'xaf',
+  'xof',
+  'xpf',
+]);
 
 /** "Three-decimal currencies": thousandths, and the least significant digit must be 0. */
 const THREE_DECIMAL = new Set(['bhd', 'jod', 'kwd', 'omr', 'tnd']);
@@ -25,8 +42,32 @@ const WHOLE_UNITS_IN_HUNDREDTHS = new Set(['isk', 'huf', 'twd']);
  * tables above say nothing.
  */
 const ISO_MINOR_UNIT_NOT_TWO: Record<string, number> = {
-  bhd: 3, bif: 0, clf: 4, clp: 0, djf: 0, gnf: 0, iqd: 3, isk: 0, jod: 3, jpy: 0, kmf: 0, krw: 0, kwd: 3, lyd: 3,
-  omr: 3, pyg: 0, rwf: 0, tnd: 3, ugx: 0, uyi: 0, uyw: 4, vnd: 0, vuv: 0, xaf: 0, xof: 0, xpf: 0,
+  bhd: 3,
+  bif: 0,
+  clf: 4,
+  clp: 0,
+  djf: 0,
+  gnf: 0,
+  iqd: 3,
+  isk: 0,
+  jod: 3,
+  jpy: 0,
+  kmf: 0,
+  krw: 0,
+  kwd: 3,
+  lyd: 3,
+  omr: 3,
+  pyg: 0,
+  rwf: 0,
+  tnd: 3,
+  ugx: 0,
+  uyi: 0,
+  uyw: 4,
+  vnd: 0,
+  vuv: 0,
+  xaf: 0,
+  xof: 0,
+  xpf: 0,
 };
 
 /** The power of ten the provider's integer amount is counted in. */
@@ -49,7 +90,11 @@ export function checkAmountForCurrency(amount: number, currency: string, param: 
     );
   }
   if (WHOLE_UNITS_IN_HUNDREDTHS.has(c) && amount % 100 !== 0) {
-    throw new RequestError(400, `Invalid ${param}: amounts in ${c} must be whole units, an integer divisible by 100 (got ${amount}).`, param);
+    throw new RequestError(
+      400,
+      `Invalid ${param}: amounts in ${c} must be whole units, an integer divisible by 100 (got ${amount}).`,
+      param,
+    );
   }
   return amount;
 }

@@ -141,7 +141,10 @@ export function newIntent(fields: {
   };
 }
 
-export function newCharge(intent: Stripe.PaymentIntent, fields: { created: number; method: string; status: Stripe.Charge.Status }): Stripe.Charge {
+export function newCharge(
+  intent: Stripe.PaymentIntent,
+  fields: { created: number; method: string; status: Stripe.Charge.Status },
+): Stripe.Charge {
   const succeeded = fields.status === 'succeeded';
   return {
     id: fakeId('ch'),
@@ -189,13 +192,16 @@ export function newCharge(intent: Stripe.PaymentIntent, fields: { created: numbe
   };
 }
 
-export function newRefund(charge: Stripe.Charge, fields: {
-  created: number;
-  amount: number;
-  reason: Stripe.Refund.Reason | null;
-  metadata: Stripe.Metadata;
-  status: 'pending' | 'succeeded' | 'failed';
-}): Stripe.Refund {
+export function newRefund(
+  charge: Stripe.Charge,
+  fields: {
+    created: number;
+    amount: number;
+    reason: Stripe.Refund.Reason | null;
+    metadata: Stripe.Metadata;
+    status: 'pending' | 'succeeded' | 'failed';
+  },
+): Stripe.Refund {
   return {
     id: fakeId('re'),
     object: 'refund',

@@ -70,7 +70,11 @@ describe('the payment fake is as strict as the provider', () => {
     line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 20491, product_data: { name: 'Deposit' } } }],
     success_url: 'http://shop.test/ok',
   };
-  const refusal = (p: Promise<unknown>) => p.then(() => ({ statusCode: 200, message: 'accepted' }), (e: { statusCode: number; message: string; param?: string }) => e);
+  const refusal = (p: Promise<unknown>) =>
+    p.then(
+      () => ({ statusCode: 200, message: 'accepted' }),
+      (e: { statusCode: number; message: string; param?: string }) => e,
+    );
 
   afterEach(async () => fake?.close());
 
@@ -80,14 +84,44 @@ describe('the payment fake is as strict as the provider', () => {
     const now = Math.floor(Date.now() / 1000);
     const cases: Array<[string, Promise<unknown>, RegExp]> = [
       ['unknown parameter', stripe.checkout.sessions.create({ ...base, colour: 'teal' } as never), /Received unknown parameter: colour/],
-      ['unknown nested parameter', stripe.checkout.sessions.create({ ...base, line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 1, product_data: { name: 'x' }, flavour: 1 } }] } as never), /unknown parameter: line_items\[0\]\[price_data\]\[flavour\]/],
+      [
+        'unknown nested parameter',
+        stripe.checkout.sessions.create({
+          ...base,
+          line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 1, product_data: { name: 'x' }, flavour: 1 } }],
+        } as never),
+        /unknown parameter: line_items\[0\]\[price_data\]\[flavour\]/,
+      ],
       ['metadata key over 40', stripe.checkout.sessions.create({ ...base, metadata: { ['k'.repeat(41)]: 'v' } }), /up to 40 characters/],
-      ['metadata value over 500', stripe.checkout.sessions.create({ ...base, metadata: { note: 'x'.repeat(501) } }), /up to 500 characters/],
-      ['51 metadata keys', stripe.checkout.sessions.create({ ...base, metadata: Object.fromEntries(Array.from({ length: 51 }, (_, i) => [`k${i}`, 'v'])) }), /up to 50 keys/],
+      [
+        'metadata value over 500',
+        stripe.checkout.sessions.create({ ...base, metadata: { note: 'x'.repeat(501) } }),
+        /up to 500 characters/,
+      ],
+      [
+        '51 metadata keys',
+        stripe.checkout.sessions.create({ ...base, metadata: Object.fromEntries(Array.from({ length: 51 }, (_, i) => [`k${i}`, 'v'])) }),
+        /up to 50 keys/,
+      ],
       ['expires_at under 30 min', stripe.checkout.sessions.create({ ...base, expires_at: now + 20 * 60 }), /at least 30 minutes/],
       ['expires_at over 24 h', stripe.checkout.sessions.create({ ...base, expires_at: now + 25 * 3600 }), /less than 24 hours/],
-      ['currency xyz', stripe.checkout.sessions.create({ ...base, line_items: [{ quantity: 1, price_data: { currency: 'xyz', unit_amount: 1, product_data: { name: 'x' } } }] }), /Invalid currency: xyz/],
-      ['ACH in eur', stripe.checkout.sessions.create({ ...base, payment_method_types: ['us_bank_account'], line_items: [{ quantity: 1, price_data: { currency: 'eur', unit_amount: 100, product_data: { name: 'x' } } }] }), /does not support the currency "eur"/],
+      [
+        'currency xyz',
+        stripe.checkout.sessions.create({
+          ...base,
+          line_items: [{ quantity: 1, price_data: { currency: 'xyz', unit_amount: 1, product_data: { name: 'x' } } }],
+        }),
+        /Invalid currency: xyz/,
+      ],
+      [
+        'ACH in eur',
+        stripe.checkout.sessions.create({
+          ...base,
+          payment_method_types: ['us_bank_account'],
+          line_items: [{ quantity: 1, price_data: { currency: 'eur', unit_amount: 100, product_data: { name: 'x' } } }],
+        }),
+        /does not support the currency "eur"/,
+      ],
       ['refund without a target', stripe.refunds.create({ reason: 'requested_by_customer' }), /payment_intent or charge/],
       ['refund of an unknown intent', stripe.refunds.create({ payment_intent: 'pi_test_x' }), /No such payment_intent: 'pi_test_x'/],
     ];
@@ -98,7 +132,11 @@ describe('the payment fake is as strict as the provider', () => {
     }
     expect(fake.store.sessions.size).toBe(0);
     // Within bounds is accepted.
-    const ok = await stripe.checkout.sessions.create({ ...base, expires_at: now + 3600, payment_method_types: ['card', 'us_bank_account'] });
+    const ok = await stripe.checkout.sessions.create({
+      ...base,
+      expires_at: now + 3600,
+      payment_method_types: ['card', 'us_bank_account'],
+    });
     expect(ok.expires_at).toBe(now + 3600);
   });
 
@@ -107,9 +145,20 @@ describe('the payment fake is as strict as the provider', () => {
     stripe = sdkFor(fake);
     const session = await stripe.checkout.sessions.create({ ...base, payment_method_types: ['card'] });
     // Fields the contract marks required (not optional) on a Checkout Session.
-    expect(session).toMatchObject({ payment_method_types: ['card'], payment_status: 'unpaid', status: 'open', livemode: false, custom_fields: [] });
+    expect(session).toMatchObject({
+      payment_method_types: ['card'],
+      payment_status: 'unpaid',
+      status: 'open',
+      livemode: false,
+      custom_fields: [],
+    });
     expect(session).toHaveProperty('total_details');
-    const paid = await fetch(session.url!, { method: 'POST', body: new URLSearchParams({ card: '4242424242424242' }), redirect: 'manual', headers: { 'content-type': 'application/x-www-form-urlencoded' } });
+    const paid = await fetch(session.url!, {
+      method: 'POST',
+      body: new URLSearchParams({ card: '4242424242424242' }),
+      redirect: 'manual',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    });
     expect(paid.status).toBe(303);
     const after = await stripe.checkout.sessions.retrieve(session.id);
     const intent = await stripe.paymentIntents.retrieve(after.payment_intent as string);
@@ -131,7 +180,12 @@ describe('the payment fake is as strict as the provider', () => {
     await expect(stripe.checkout.sessions.expire(session.id)).rejects.toMatchObject({ statusCode: 400 });
 
     const second = await stripe.checkout.sessions.create(base);
-    await fetch(second.url!, { method: 'POST', body: new URLSearchParams({ card: '4242424242424242' }), redirect: 'manual', headers: { 'content-type': 'application/x-www-form-urlencoded' } });
+    await fetch(second.url!, {
+      method: 'POST',
+      body: new URLSearchParams({ card: '4242424242424242' }),
+      redirect: 'manual',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+    });
     const intentId = (await stripe.checkout.sessions.retrieve(second.id)).payment_intent as string;
     fake.control.nextRefund('fail');
     const refund = await stripe.refunds.create({ payment_intent: intentId });

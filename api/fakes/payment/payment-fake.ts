@@ -150,18 +150,27 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
     const lineItems = items.map((rawItem, i) => {
       const item = checkNames(rawItem, lineItemParams, `line_items[${i}]`);
       const price = checkNames(item.price_data, priceDataParams, `line_items[${i}][price_data]`);
-      if (!item.price_data) throw new RequestError(400, `Missing required param: line_items[${i}][price_data].`, `line_items[${i}][price_data]`);
+      if (!item.price_data)
+        throw new RequestError(400, `Missing required param: line_items[${i}][price_data].`, `line_items[${i}][price_data]`);
       const c = checkCurrency(price.currency, `line_items[${i}][price_data][currency]`);
       if (currency && c !== currency) throw new RequestError(400, 'All line items must use the same currency.', 'line_items');
       currency = c;
       const product = checkNames(price.product_data, productDataParams, `line_items[${i}][price_data][product_data]`);
       if (typeof product.name !== 'string' || !product.name.trim()) {
-        throw new RequestError(400, `Missing required param: line_items[${i}][price_data][product_data][name].`, `line_items[${i}][price_data][product_data][name]`);
+        throw new RequestError(
+          400,
+          `Missing required param: line_items[${i}][price_data][product_data][name].`,
+          `line_items[${i}][price_data][product_data][name]`,
+        );
       }
       return {
         name: product.name,
         description: typeof product.description === 'string' ? product.description : null,
-        unitAmount: checkAmountForCurrency(positiveInt(price.unit_amount, `line_items[${i}][price_data][unit_amount]`), c, `line_items[${i}][price_data][unit_amount]`),
+        unitAmount: checkAmountForCurrency(
+          positiveInt(price.unit_amount, `line_items[${i}][price_data][unit_amount]`),
+          c,
+          `line_items[${i}][price_data][unit_amount]`,
+        ),
         quantity: positiveInt(item.quantity ?? 1, `line_items[${i}][quantity]`),
       };
     });
@@ -301,7 +310,13 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
     }
   }
 
-  function makeRefund(intent: Stripe.PaymentIntent, amount: number | undefined, reason: Stripe.Refund.Reason | null, metadata: Stripe.Metadata, behaviour?: RefundBehaviour) {
+  function makeRefund(
+    intent: Stripe.PaymentIntent,
+    amount: number | undefined,
+    reason: Stripe.Refund.Reason | null,
+    metadata: Stripe.Metadata,
+    behaviour?: RefundBehaviour,
+  ) {
     const charge = store.chargeOf(intent);
     if (intent.status !== 'succeeded' || !charge || charge.status !== 'succeeded') {
       throw new RequestError(400, `This PaymentIntent (${intent.id}) does not have a successful charge to refund.`, 'payment_intent');
@@ -309,13 +324,27 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
     if (charge.disputed) {
       const dispute = [...store.disputes.values()].find((d) => d.charge === charge.id);
       if (dispute && !['won', 'warning_closed'].includes(dispute.status)) {
-        throw new RequestError(400, `Charge ${charge.id} has been charged back; it cannot be refunded.`, 'charge', 'invalid_request_error', 'charge_disputed');
+        throw new RequestError(
+          400,
+          `Charge ${charge.id} has been charged back; it cannot be refunded.`,
+          'charge',
+          'invalid_request_error',
+          'charge_disputed',
+        );
       }
     }
     const remaining = charge.amount - charge.amount_refunded;
-    if (remaining <= 0) throw new RequestError(400, `Charge ${charge.id} has already been refunded.`, 'charge', 'invalid_request_error', 'charge_already_refunded');
+    if (remaining <= 0)
+      throw new RequestError(
+        400,
+        `Charge ${charge.id} has already been refunded.`,
+        'charge',
+        'invalid_request_error',
+        'charge_already_refunded',
+      );
     const value = amount ?? remaining;
-    if (value > remaining) throw new RequestError(400, `Refund amount (${value}) is greater than unrefunded amount on charge (${remaining}).`, 'amount');
+    if (value > remaining)
+      throw new RequestError(400, `Refund amount (${value}) is greater than unrefunded amount on charge (${remaining}).`, 'amount');
     const mode = behaviour ?? nextRefundBehaviour ?? store.intentPlans.get(intent.id)?.refund ?? 'succeed';
     nextRefundBehaviour = null;
     const status = mode === 'pending' ? 'pending' : mode === 'fail' ? 'failed' : 'succeeded';
@@ -346,9 +375,17 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
       : params.charge
         ? (store.charges.get(String(params.charge))?.payment_intent as string | undefined)
         : undefined;
-    if (!params.payment_intent && !params.charge) throw new RequestError(400, 'One of the following params should be provided for this request: payment_intent or charge.');
+    if (!params.payment_intent && !params.charge)
+      throw new RequestError(400, 'One of the following params should be provided for this request: payment_intent or charge.');
     const intent = intentId ? store.intents.get(intentId) : undefined;
-    if (!intent) throw new RequestError(404, `No such payment_intent: '${intentId ?? String(params.charge ?? '')}'`, 'payment_intent', 'invalid_request_error', 'resource_missing');
+    if (!intent)
+      throw new RequestError(
+        404,
+        `No such payment_intent: '${intentId ?? String(params.charge ?? '')}'`,
+        'payment_intent',
+        'invalid_request_error',
+        'resource_missing',
+      );
     let reason: Stripe.Refund.Reason | null = null;
     if (params.reason !== undefined) {
       if (!refundReasons.includes(params.reason as (typeof refundReasons)[number])) {
@@ -356,14 +393,16 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
       }
       reason = params.reason as Stripe.Refund.Reason;
     }
-    const amount = params.amount === undefined ? undefined : checkAmountForCurrency(positiveInt(params.amount, 'amount'), intent.currency, 'amount');
+    const amount =
+      params.amount === undefined ? undefined : checkAmountForCurrency(positiveInt(params.amount, 'amount'), intent.currency, 'amount');
     return makeRefund(intent, amount, reason, checkMetadata(params.metadata, 'metadata'));
   }
 
   function openDispute(intentId: string, reason = 'fraudulent'): Stripe.Dispute {
     const intent = store.intents.get(intentId);
     const charge = intent ? store.chargeOf(intent) : undefined;
-    if (!intent || !charge || charge.status !== 'succeeded') throw new RequestError(400, `PaymentIntent ${intentId} has no successful charge to dispute.`);
+    if (!intent || !charge || charge.status !== 'succeeded')
+      throw new RequestError(400, `PaymentIntent ${intentId} has no successful charge to dispute.`);
     if (charge.disputed) throw new RequestError(400, `Charge ${charge.id} is already disputed.`);
     const dispute = newDispute(charge, { created: clock.now(), reason });
     store.disputes.set(dispute.id, dispute);
@@ -384,7 +423,8 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
   function finishRefund(refundId: string, outcome: 'succeeded' | 'failed') {
     const r = store.refunds.get(refundId);
     if (!r) throw new RequestError(404, `No such refund: '${refundId}'`);
-    if (r.status !== 'pending' && r.status !== 'requires_action') throw new RequestError(400, `Refund ${refundId} is ${r.status}, not pending.`);
+    if (r.status !== 'pending' && r.status !== 'requires_action')
+      throw new RequestError(400, `Refund ${refundId} is ${r.status}, not pending.`);
     const charge = store.charges.get(String(r.charge))!;
     r.status = outcome;
     if (outcome === 'failed') r.failure_reason = 'lost_or_stolen_card';
@@ -439,7 +479,12 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
       const seen = store.idempotent.get(idemKey);
       if (seen) {
         if (seen.fingerprint !== `${path}\n${raw}`) {
-          throw new RequestError(400, `Keys for idempotent requests can only be used with the same parameters they were first used with.`, undefined, 'idempotency_error');
+          throw new RequestError(
+            400,
+            `Keys for idempotent requests can only be used with the same parameters they were first used with.`,
+            undefined,
+            'idempotency_error',
+          );
         }
         res.setHeader('idempotent-replayed', 'true');
         return sendJson(res, seen.status, seen.body);
@@ -468,7 +513,10 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
     if (req.method === 'GET' && (m = path.match(/^\/v1\/refunds\/([\w-]+)$/))) {
       return answer(200, found(store.refunds.get(m[1]), 'refund', m[1]));
     }
-    throw new RequestError(404, `Unrecognized request URL (${req.method}: ${path}). This test service answers only the calls Loomwright makes.`);
+    throw new RequestError(
+      404,
+      `Unrecognized request URL (${req.method}: ${path}). This test service answers only the calls Loomwright makes.`,
+    );
   }
 
   /** Test-only routes (no provider has them): what a test or a person trying the product tells the fake to do. */
@@ -490,11 +538,13 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
     }
     if ((m = path.match(/^\/_control\/payment_intents\/([\w-]+)\/settle$/))) {
       const outcome = body.get('outcome');
-      if (outcome !== null && outcome !== 'succeed' && outcome !== 'fail') throw new RequestError(400, 'outcome must be succeed or fail.', 'outcome');
+      if (outcome !== null && outcome !== 'succeed' && outcome !== 'fail')
+        throw new RequestError(400, 'outcome must be succeed or fail.', 'outcome');
       control.settle(m[1], outcome ?? undefined);
       return sendJson(res, 200, found(store.intents.get(m[1]), 'payment_intent', m[1]));
     }
-    if ((m = path.match(/^\/_control\/payment_intents\/([\w-]+)\/dispute$/))) return sendJson(res, 200, control.openDispute(m[1], body.get('reason') ?? undefined));
+    if ((m = path.match(/^\/_control\/payment_intents\/([\w-]+)\/dispute$/)))
+      return sendJson(res, 200, control.openDispute(m[1], body.get('reason') ?? undefined));
     if ((m = path.match(/^\/_control\/payment_intents\/([\w-]+)\/refund$/))) {
       const amount = body.get('amount');
       return sendJson(res, 200, control.dashboardRefund(m[1], amount === null ? undefined : positiveInt(amount, 'amount')));
@@ -520,7 +570,12 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
 
   async function page(req: IncomingMessage, res: ServerResponse, id: string) {
     const session = store.sessions.get(id);
-    if (!session) return sendHtml(res, 404, '<!doctype html><title>Not found</title><p>There is no checkout at this address. Go back to the shop and start the payment again.</p>');
+    if (!session)
+      return sendHtml(
+        res,
+        404,
+        '<!doctype html><title>Not found</title><p>There is no checkout at this address. Go back to the shop and start the payment again.</p>',
+      );
     if (session.status === 'open' && session.expires_at <= clock.now()) expire(session);
     const extra = store.extra(id);
     if (req.method === 'GET') return sendHtml(res, 200, checkoutPage(session, extra));
@@ -531,7 +586,9 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
       return sendHtml(res, 400, checkoutPage(session, extra, { error: 'That way of paying is not offered for this checkout.' }));
     }
     const outcome =
-      method === 'card' ? outcomeForCard(form.get('card') ?? '') : outcomeForBankAccount(form.get('routing') ?? '', form.get('account') ?? '');
+      method === 'card'
+        ? outcomeForCard(form.get('card') ?? '')
+        : outcomeForBankAccount(form.get('routing') ?? '', form.get('account') ?? '');
     if (method !== 'us_bank_account' && outcome.kind === 'delayed') {
       return sendHtml(res, 400, checkoutPage(session, extra, { error: 'That way of paying is not offered for this checkout.' }));
     }
@@ -558,7 +615,12 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
         if (res.headersSent) return res.end();
         if (error instanceof RequestError) {
           return sendJson(res, error.status, {
-            error: { type: error.type, message: error.message, ...(error.param ? { param: error.param } : {}), ...(error.code ? { code: error.code } : {}) },
+            error: {
+              type: error.type,
+              message: error.message,
+              ...(error.param ? { param: error.param } : {}),
+              ...(error.code ? { code: error.code } : {}),
+            },
           });
         }
         sendJson(res, 500, { error: { type: 'api_error', message: error instanceof Error ? error.message : String(error) } });
@@ -573,7 +635,8 @@ export async function startPaymentFake(options: PaymentFakeOptions): Promise<Pay
   const port = (server.address() as AddressInfo).port;
   baseUrl = `http://${options.host ?? '127.0.0.1'}:${port}`;
   // Bank debits still settling when the fake last stopped settle on their time again.
-  if (settleDelayMs !== null) for (const intent of store.intents.values()) if (intent.status === 'processing') later(settleDelayMs, () => settle(intent.id));
+  if (settleDelayMs !== null)
+    for (const intent of store.intents.values()) if (intent.status === 'processing') later(settleDelayMs, () => settle(intent.id));
   const sweep = setInterval(sweepExpired, options.expirySweepMs ?? 1_000);
   sweep.unref();
   return {

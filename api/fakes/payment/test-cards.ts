@@ -16,7 +16,12 @@ export type PayOutcome =
 const testCards: Record<string, PayOutcome> = {
   '4242424242424242': { kind: 'success' },
   '4000000000000002': { kind: 'declined', code: 'card_declined', declineCode: 'generic_decline', message: 'Your card was declined.' },
-  '4000000000009995': { kind: 'declined', code: 'card_declined', declineCode: 'insufficient_funds', message: 'Your card has insufficient funds.' },
+  '4000000000009995': {
+    kind: 'declined',
+    code: 'card_declined',
+    declineCode: 'insufficient_funds',
+    message: 'Your card has insufficient funds.',
+  },
   // Pays, then the cardholder's bank opens a dispute (fraudulent).
   '4000000000000259': { kind: 'success', plan: { dispute: { reason: 'fraudulent' } } },
   // Pays; a refund starts "succeeded" and later turns "failed".
@@ -64,7 +69,11 @@ export function outcomeForBankAccount(routing: string, account: string): PayOutc
   const r = routing.replace(/\s/g, '');
   const a = account.replace(/\s/g, '');
   if (r !== TEST_ROUTING_NUMBER) {
-    return { kind: 'declined', code: 'invalid_routing_number', message: `The routing number is not valid here; in test mode use ${TEST_ROUTING_NUMBER}.` };
+    return {
+      kind: 'declined',
+      code: 'invalid_routing_number',
+      message: `The routing number is not valid here; in test mode use ${TEST_ROUTING_NUMBER}.`,
+    };
   }
   const plan = testAccounts[a];
   if (!plan) return { kind: 'declined', code: 'invalid_account_number', message: 'The account number is not a test account number.' };

@@ -53,10 +53,13 @@ export class WebhookSender {
     this.attempts.push({ eventId: event.id, attempt, status, error, at: new Date().toISOString() });
     const delivered = status !== null && status >= 200 && status < 300;
     if (delivered || attempt > this.retryDelaysMs.length || this.closed) return;
-    const timer = setTimeout(() => {
-      this.timers.delete(timer);
-      void this.deliver(event, attempt + 1);
-    }, this.retryDelaysMs[attempt - 1]);
+    const timer = setTimeout(
+      () => {
+        this.timers.delete(timer);
+        void this.deliver(event, attempt + 1);
+      },
+      this.retryDelaysMs[attempt - 1],
+    );
     this.timers.add(timer);
   }
 

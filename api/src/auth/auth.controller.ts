@@ -38,7 +38,11 @@ export class AuthController {
   @Post('sign-up')
   @ApiOkResponse({ description: 'The new player account; the session cookie is set.' })
   @ApiZodBody(signUpSchema)
-  async signUp(@Body(new ZodValidationPipe(signUpSchema)) body: SignUpInput, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
+  async signUp(
+    @Body(new ZodValidationPipe(signUpSchema)) body: SignUpInput,
+    @Req() req: Request,
+    @Res({ passthrough: true }) res: Response,
+  ) {
     const user = await this.auth.signUp(body);
     await this.auth.startSession(res, user, req);
     return { user };
@@ -52,7 +56,11 @@ export class AuthController {
   @Post('sign-in')
   @HttpCode(200)
   @ApiZodBody(signInSchema)
-  async signIn(@Body(new ZodValidationPipe(signInSchema)) body: SignInInput, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
+  async signIn(
+    @Body(new ZodValidationPipe(signInSchema)) body: SignInInput,
+    @Req() req: Request,
+    @Res({ passthrough: true }) res: Response,
+  ) {
     const user = await this.auth.signIn(body.email, body.password);
     await this.auth.startSession(res, user, req);
     return { user };
@@ -112,7 +120,11 @@ export class AuthController {
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is changed and the session cookie is set.' })
   @ApiZodBody(passwordResetConfirmSchema)
-  async confirmPasswordReset(@Body(new ZodValidationPipe(passwordResetConfirmSchema)) body: PasswordResetConfirmInput, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
+  async confirmPasswordReset(
+    @Body(new ZodValidationPipe(passwordResetConfirmSchema)) body: PasswordResetConfirmInput,
+    @Req() req: Request,
+    @Res({ passthrough: true }) res: Response,
+  ) {
     const user = await this.auth.confirmPasswordReset(body.token, body.password);
     await this.auth.startSession(res, user, req);
     return { user };

@@ -55,7 +55,9 @@ export class AuthService implements OnModuleInit {
       // Sign-up is the one place an address's use shows: a second account cannot share it. The
       // answer points to the reset, and the route is throttled like sign-in.
       if ((error as { code?: string }).code === UNIQUE_VIOLATION) {
-        throw new ConflictException(errorResponse('email_taken', 'An account with this e-mail already exists. Sign in, or reset your password.'));
+        throw new ConflictException(
+          errorResponse('email_taken', 'An account with this e-mail already exists. Sign in, or reset your password.'),
+        );
       }
       throw error;
     }
@@ -66,7 +68,9 @@ export class AuthService implements OnModuleInit {
     const row = await this.users.findByEmail(email);
     const ok = await verifyPassword(password, row?.password_hash ?? (await decoyPasswordHash()));
     if (!row || !row.password_hash || !ok) {
-      throw new UnauthorizedException(errorResponse('invalid_credentials', 'That e-mail and password do not match an account. Check them, or reset your password.'));
+      throw new UnauthorizedException(
+        errorResponse('invalid_credentials', 'That e-mail and password do not match an account. Check them, or reset your password.'),
+      );
     }
     await this.users.recordSignIn(row.id);
     return toAuthUser(row);

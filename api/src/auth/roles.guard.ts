@@ -13,13 +13,16 @@ export class RolesGuard implements CanActivate {
     if (!roles || roles.length === 0) return true;
     const user: AuthUser | undefined = context.switchToHttp().getRequest().user;
     if (!user || !roles.includes(user.role)) {
-      throw new ForbiddenException(errorResponse('role_not_allowed',
-        roles.includes('customer')
-          ? 'Your account cannot do this.'
-          : roles.includes('builder')
-            ? 'This is for the shop’s staff only.'
-            : 'Only the shop owner can do this.',
-      ));
+      throw new ForbiddenException(
+        errorResponse(
+          'role_not_allowed',
+          roles.includes('customer')
+            ? 'Your account cannot do this.'
+            : roles.includes('builder')
+              ? 'This is for the shop’s staff only.'
+              : 'Only the shop owner can do this.',
+        ),
+      );
     }
     return true;
   }

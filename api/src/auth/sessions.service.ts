@@ -79,9 +79,11 @@ export class SessionsService {
     if (typeof payload.sid !== 'string') throw new UnauthorizedException(errorResponse('session_ended', SESSION_ENDED));
     const row = await this.sessions.findWithUser(payload.sid);
     if (!row || row.id !== payload.sub) throw new UnauthorizedException(errorResponse('session_ended', SESSION_ENDED));
-    if (row.session_ended_at) throw new UnauthorizedException(errorResponse('session_ended', endedWords[row.session_ended_reason ?? 'signed_out']));
+    if (row.session_ended_at)
+      throw new UnauthorizedException(errorResponse('session_ended', endedWords[row.session_ended_reason ?? 'signed_out']));
     const changedAt = row.password_changed_at ? Math.floor(new Date(row.password_changed_at).getTime() / 1000) : undefined;
-    if (changedAt !== undefined && (payload.iat ?? 0) < changedAt) throw new UnauthorizedException(errorResponse('session_ended', endedWords.password_changed));
+    if (changedAt !== undefined && (payload.iat ?? 0) < changedAt)
+      throw new UnauthorizedException(errorResponse('session_ended', endedWords.password_changed));
     return { ...toAuthUser(row), sessionId: row.session_id, issuedAt: payload.iat };
   }
 

@@ -40,7 +40,10 @@ export class BenchController {
   @Get('suggest')
   @ApiOkResponse({ description: 'The earliest bench date per eligible builder that holds the build, with the expected completion.' })
   @ApiZodQuery(benchSuggestQuerySchema)
-  suggest(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(benchSuggestQuerySchema)) query: BenchSuggestQuery): Promise<BenchSuggestResponse> {
+  suggest(
+    @CurrentUser() user: AuthUser,
+    @Query(new ZodValidationPipe(benchSuggestQuerySchema)) query: BenchSuggestQuery,
+  ): Promise<BenchSuggestResponse> {
     return this.bench.suggest(user, query.bookingId, query.builderId);
   }
 
@@ -48,8 +51,14 @@ export class BenchController {
   @ApiZodResponse(responseSchemas.benchPreviewSchema)
   @Get('preview')
   @ApiZodQuery(benchPreviewQuerySchema)
-  @ApiOkResponse({ description: 'Before choosing a bench date: per builder the load on the days it would take, the ship-by day, the price and why a date is refused.' })
-  preview(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(benchPreviewQuerySchema)) query: BenchPreviewQuery): Promise<BenchPreview> {
+  @ApiOkResponse({
+    description:
+      'Before choosing a bench date: per builder the load on the days it would take, the ship-by day, the price and why a date is refused.',
+  })
+  preview(
+    @CurrentUser() user: AuthUser,
+    @Query(new ZodValidationPipe(benchPreviewQuerySchema)) query: BenchPreviewQuery,
+  ): Promise<BenchPreview> {
     return this.bench.preview(user, query);
   }
 }

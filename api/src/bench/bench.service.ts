@@ -103,7 +103,11 @@ export class BenchService {
   }
 
   async shopCalendar(trx: Executor = this.db): Promise<ShopCalendar> {
-    const [settings, closures, absenceRows] = await Promise.all([this.bench.shopSettings(trx), this.bench.closures(trx), this.bench.absences(trx)]);
+    const [settings, closures, absenceRows] = await Promise.all([
+      this.bench.shopSettings(trx),
+      this.bench.closures(trx),
+      this.bench.absences(trx),
+    ]);
     const country = settings?.country_code.trim() ?? 'US';
     // Public holidays the owner switched off one by one are ordinary working days.
     const worked = new Set(await this.bench.workedHolidays(trx, country));
@@ -124,8 +128,16 @@ export class BenchService {
   }
 
   /** One builder's calendar: their week, the shop's closures and holidays, their own days away. */
-  calendarOf(builder: { id: string; weekly_hours: WeeklyHours }, shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>): BenchCalendar {
-    return { weeklyHours: builder.weekly_hours, closures: shop.closures, holidayOn: shop.holidayOn, absences: shop.absences.get(builder.id) ?? [] };
+  calendarOf(
+    builder: { id: string; weekly_hours: WeeklyHours },
+    shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>,
+  ): BenchCalendar {
+    return {
+      weeklyHours: builder.weekly_hours,
+      closures: shop.closures,
+      holidayOn: shop.holidayOn,
+      absences: shop.absences.get(builder.id) ?? [],
+    };
   }
 
   async view(user: AuthUser, query: { from?: string; to?: string; builderId?: string }): Promise<BenchView> {
@@ -134,10 +146,15 @@ export class BenchService {
     const to = query.to ?? addDays(from, 13);
     const span = daysBetween(from, to);
     if (span < 0) throw new BadRequestException('The last day shown must be on or after the first day shown.');
-    if (span >= MAX_BENCH_VIEW_DAYS) throw new BadRequestException(`Ask for at most ${MAX_BENCH_VIEW_DAYS} days of bench at a time (from and to).`);
+    if (span >= MAX_BENCH_VIEW_DAYS)
+      throw new BadRequestException(`Ask for at most ${MAX_BENCH_VIEW_DAYS} days of bench at a time (from and to).`);
     // Someone still invited (no password yet) takes no builds, so has no row on the bench.
-    const builders = this.orderMeFirst((await this.bench.listBuilders(this.db, { builderId: query.builderId })).filter((b) => b.joined), user);
-    if (query.builderId && builders.length === 0) throw new NotFoundException('That builder has not joined the team; choose one from the list.');
+    const builders = this.orderMeFirst(
+      (await this.bench.listBuilders(this.db, { builderId: query.builderId })).filter((b) => b.joined),
+      user,
+    );
+    if (query.builderId && builders.length === 0)
+      throw new NotFoundException('That builder has not joined the team; choose one from the list.');
     const ids = builders.map((b) => b.id);
     const [slices, recorded] = await Promise.all([
       this.bench.allocationsBetween(this.db, ids, from, to),
@@ -208,7 +225,10 @@ export class BenchService {
       const meets = levelRank(b.level) >= levelRank(facts.minimumLevel);
       const meetsChosen = levelRank(b.level) >= levelRank(facts.chosenLevel);
       if (!builderId && !meets) {
-        ineligible.push({ builder: this.toRef(b), reason: `This rig needs at least a ${facts.minimumLevel} builder; ${b.name} is ${b.level}.` });
+        ineligible.push({
+          builder: this.toRef(b),
+          reason: `This rig needs at least a ${facts.minimumLevel} builder; ${b.name} is ${b.level}.`,
+        });
         continue;
       }
       if (!builderId && !meetsChosen && user.role !== 'owner') {
@@ -223,7 +243,12 @@ export class BenchService {
         ineligible.push({ builder: this.toRef(b), reason: plan.message });
         continue;
       }
-      const figures = firmQuoteFigures({ hourlyRate: b.hourly_rate, laborHours: facts.laborHours, materialsTotal: facts.materialsTotal, deposit: facts.deposit });
+      const figures = firmQuoteFigures({
+        hourlyRate: b.hourly_rate,
+        laborHours: facts.laborHours,
+        materialsTotal: facts.materialsTotal,
+        deposit: facts.deposit,
+      });
       suggestions.push({
         builder: this.toBenchBuilder(b, user),
         benchDate: plan.benchDate,
@@ -273,7 +298,8 @@ export class BenchService {
     shop: Pick<ShopCalendar, 'today' | 'closures' | 'holidayOn'>,
     plan: BuildPlan,
   ): { refusal: BenchDateRefusal; message: string } | null {
-    if (benchDate < shop.today) return { refusal: 'past', message: `benchDate ${benchDate} is in the past; the shop's today is ${shop.today}.` };
+    if (benchDate < shop.today)
+      return { refusal: 'past', message: `benchDate ${benchDate} is in the past; the shop's today is ${shop.today}.` };
     if (AWAITING_PEDALS.includes(state)) {
       const shipBy = shipByDate(benchDate, shop);
       if (shipBy < shop.today) {
@@ -285,13 +311,21 @@ export class BenchService {
     }
     const { off } = dayCapacity(benchDate, calendar);
     if (off) {
-      const kind: Record<NonNullable<typeof off>['kind'], BenchDateRefusal> = { holiday: 'holiday', closure: 'closed', day_off: 'day_off', absence: 'away' };
+      const kind: Record<NonNullable<typeof off>['kind'], BenchDateRefusal> = {
+        holiday: 'holiday',
+        closure: 'closed',
+        day_off: 'day_off',
+        absence: 'away',
+      };
       const why = off.kind === 'holiday' ? `public holiday (${off.label})` : off.label;
       return { refusal: kind[off.kind], message: `There is no free bench time on ${formatDayWords(benchDate)}: ${why}.` };
     }
     if (!plan.ok) {
       const full = plan.reason === 'bench_date_full';
-      return { refusal: full ? 'full' : 'no_capacity', message: full ? `There is no free bench time on ${formatDayWords(benchDate)}: the day is full; pick another date.` : plan.message };
+      return {
+        refusal: full ? 'full' : 'no_capacity',
+        message: full ? `There is no free bench time on ${formatDayWords(benchDate)}: the day is full; pick another date.` : plan.message,
+      };
     }
     return null;
   }
@@ -321,7 +355,10 @@ export class BenchService {
     }
     const moving = ['scheduled', 'pedals_received'].includes(facts.state);
     const shop = await this.shopCalendar();
-    const builders = this.orderMeFirst(await this.bench.listBuilders(this.db, { builderId: query.builderId, activeOnly: !query.builderId }), user);
+    const builders = this.orderMeFirst(
+      await this.bench.listBuilders(this.db, { builderId: query.builderId, activeOnly: !query.builderId }),
+      user,
+    );
     if (query.builderId && builders.length === 0) throw new NotFoundException('That builder is not on the team; choose one from the list.');
     const minDate = this.earliestAllowedDate(facts.state, shop);
     const options: BenchPreviewOption[] = [];
@@ -330,10 +367,22 @@ export class BenchService {
       const except = moving ? query.bookingId : undefined;
       const plan = await this.planFor(this.db, b, facts.laborHours, shop, { benchDate: query.benchDate }, except);
       const refused = this.refusalFor(facts.state, query.benchDate, calendar, shop, plan);
-      const next = await this.planFor(this.db, b, facts.laborHours, shop, { from: query.benchDate < minDate ? minDate : query.benchDate }, except);
+      const next = await this.planFor(
+        this.db,
+        b,
+        facts.laborHours,
+        shop,
+        { from: query.benchDate < minDate ? minDate : query.benchDate },
+        except,
+      );
       const days = plan.ok && !refused ? plan.days.map((d) => d.day) : [query.benchDate];
       const slices = await this.bench.allocationsBetween(this.db, [b.id], days[0], days[days.length - 1]);
-      const figures = firmQuoteFigures({ hourlyRate: b.hourly_rate, laborHours: facts.laborHours, materialsTotal: facts.materialsTotal, deposit: facts.deposit });
+      const figures = firmQuoteFigures({
+        hourlyRate: b.hourly_rate,
+        laborHours: facts.laborHours,
+        materialsTotal: facts.materialsTotal,
+        deposit: facts.deposit,
+      });
       options.push({
         builder: this.toBenchBuilder(b, user),
         ok: !refused,
@@ -381,7 +430,10 @@ export class BenchService {
     for (const b of builders) {
       const plan = await this.planFor(this.db, b, laborHours, shop, { from });
       if (!plan.ok) continue;
-      const earlier = !best || plan.benchDate < best.benchDate || (plan.benchDate === best.benchDate && plan.expectedCompletion < best.expectedCompletion);
+      const earlier =
+        !best ||
+        plan.benchDate < best.benchDate ||
+        (plan.benchDate === best.benchDate && plan.expectedCompletion < best.expectedCompletion);
       if (earlier) best = { benchDate: plan.benchDate, expectedCompletion: plan.expectedCompletion };
     }
     if (!best) {
@@ -394,7 +446,13 @@ export class BenchService {
         message: `No ${level} builder has bench time free for this build right now; the shop will write to you with a date after you request it.`,
       };
     }
-    return { laborHours, level, earliestBenchDate: best.benchDate, expectedCompletion: best.expectedCompletion, shipBy: shipByDate(best.benchDate, shop) };
+    return {
+      laborHours,
+      level,
+      earliestBenchDate: best.benchDate,
+      expectedCompletion: best.expectedCompletion,
+      shipBy: shipByDate(best.benchDate, shop),
+    };
   }
 
   /**
@@ -474,7 +532,10 @@ export class BenchService {
     const estimate = quote.estimate;
     const materialsTotal =
       estimate?.materialsTotal ??
-      (estimate?.lines ?? []).filter((l) => l.kind === 'materials').reduce((sum, l) => sum.plus(l.amount), new Decimal(0)).toFixed(2);
+      (estimate?.lines ?? [])
+        .filter((l) => l.kind === 'materials')
+        .reduce((sum, l) => sum.plus(l.amount), new Decimal(0))
+        .toFixed(2);
     const minimumLevel: BuilderLevel = estimate?.minimumLevel ?? 'apprentice';
     const picked: BuilderLevel = estimate?.level ?? booking.configuration?.level ?? minimumLevel;
     return {
@@ -506,7 +567,10 @@ export class BenchService {
     return { id: b.id, userId: b.user_id, name: b.name, level: b.level };
   }
 
-  private toBenchBuilder(b: Pick<BuilderRow, 'id' | 'user_id' | 'name' | 'level' | 'hourly_rate' | 'weekly_hours' | 'active'>, user: AuthUser): BenchBuilder {
+  private toBenchBuilder(
+    b: Pick<BuilderRow, 'id' | 'user_id' | 'name' | 'level' | 'hourly_rate' | 'weekly_hours' | 'active'>,
+    user: AuthUser,
+  ): BenchBuilder {
     return {
       ...this.toRef(b),
       // Only the owner sees every rate; a builder sees their own (see DEVELOPERS.md, who may see what).

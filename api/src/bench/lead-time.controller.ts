@@ -17,7 +17,9 @@ export class LeadTimeController {
   @ApiOperation({ summary: 'The earliest start for a builder level' })
   @ApiZodResponse(responseSchemas.benchLeadTimeSchema)
   @Get()
-  @ApiOkResponse({ description: 'The earliest bench date any builder of that level could start the build, its expected completion and the ship-by day.' })
+  @ApiOkResponse({
+    description: 'The earliest bench date any builder of that level could start the build, its expected completion and the ship-by day.',
+  })
   @ApiBadRequestResponse({ description: 'The hours or the level are missing or malformed, said in words.' })
   @ApiZodQuery(leadTimeQuerySchema)
   leadTime(@Query(new ZodValidationPipe(leadTimeQuerySchema)) query: LeadTimeQuery): Promise<BenchLeadTime> {

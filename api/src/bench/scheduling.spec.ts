@@ -70,7 +70,12 @@ describe('day capacity', () => {
 describe('free hours of a day', () => {
   it('leaves the gaps between slices already taken', () => {
     expect(freeSlices(700, [])).toEqual([{ from: 0, to: 700 }]);
-    expect(freeSlices(700, [{ from: 150, to: 300 }, { from: 0, to: 100 }])).toEqual([
+    expect(
+      freeSlices(700, [
+        { from: 150, to: 300 },
+        { from: 0, to: 100 },
+      ]),
+    ).toEqual([
       { from: 100, to: 150 },
       { from: 300, to: 700 },
     ]);

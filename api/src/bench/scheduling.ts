@@ -114,7 +114,11 @@ export function planBuild(input: {
     if (used.length) days.push({ day, slices: used, hours: totalOf(used) });
   }
   if (remaining > 0 || days.length === 0) {
-    return { ok: false, reason: 'no_capacity', message: 'This builder has no bench time in the next two years; check their working hours.' };
+    return {
+      ok: false,
+      reason: 'no_capacity',
+      message: 'This builder has no bench time in the next two years; check their working hours.',
+    };
   }
   return { ok: true, days, benchDate, expectedCompletion: days[days.length - 1].day };
 }

@@ -77,7 +77,8 @@ export class BookingPhotosService {
    * photo row in its own transaction, or calls discard() when that fails.
    */
   async prepare(bookingId: string, file: UploadedPhoto | undefined): Promise<PreparedPhoto> {
-    if (!file || file.size === 0) throw new BadRequestException('Attach a photo: the upload holds no file (send it in the multipart field "file").');
+    if (!file || file.size === 0)
+      throw new BadRequestException('Attach a photo: the upload holds no file (send it in the multipart field "file").');
     if (file.size > MAX_PHOTO_BYTES) throw new PayloadTooLargeException(errorResponse('photo_too_large', photoTooLargeMessage));
     const type = await fileTypeFromBuffer(file.buffer);
     const ext = type && allowedImages[type.mime];

@@ -14,7 +14,16 @@ import type {
   RigConfiguration,
 } from '@loomwright/shared';
 import { firmQuoteLines, formatMoney, fromProviderAmount } from '@loomwright/shared';
-import type { BookingEventRow, BookingListRow, ExtraRow, LayoutApprovalRow, PaymentRow, PhotoRow, QuoteRow, QuoteSummaryRow } from './bookings.repository';
+import type {
+  BookingEventRow,
+  BookingListRow,
+  ExtraRow,
+  LayoutApprovalRow,
+  PaymentRow,
+  PhotoRow,
+  QuoteRow,
+  QuoteSummaryRow,
+} from './bookings.repository';
 
 /** A numeric column (always two decimals in the database) in the currency's own digits: "181.00" JPY → "181". */
 function amountIn(value: string, currency: string): string;
@@ -120,7 +129,13 @@ export function eventView(row: BookingEventRow): BookingEventView {
 }
 
 function decisionView(
-  row: { decided_at: unknown; decided_via: DecisionView['via'] | null; decided_by_name: string | null; decision_comment: string; recorded_by_name: string | null },
+  row: {
+    decided_at: unknown;
+    decided_via: DecisionView['via'] | null;
+    decided_by_name: string | null;
+    decision_comment: string;
+    recorded_by_name: string | null;
+  },
   approved: boolean,
 ): DecisionView | null {
   if (!row.decided_at || !row.decided_via) return null;
@@ -212,7 +227,15 @@ export function summaryView(row: BookingListRow, quotes: QuoteSummaryRow[]): Boo
 
 export function detailView(
   row: BookingListRow,
-  parts: { quotes: QuoteRow[]; payments: PaymentRow[]; events: BookingEventRow[]; photos: PhotoRow[]; extras: ExtraRow[]; layoutApprovals: LayoutApprovalRow[]; money: MoneyFacts },
+  parts: {
+    quotes: QuoteRow[];
+    payments: PaymentRow[];
+    events: BookingEventRow[];
+    photos: PhotoRow[];
+    extras: ExtraRow[];
+    layoutApprovals: LayoutApprovalRow[];
+    money: MoneyFacts;
+  },
 ): BookingDetail {
   const { estimate, firm } = pickQuotes(parts.quotes);
   if (!estimate) throw new Error(`booking ${row.id} has no estimate quote`);
@@ -225,7 +248,8 @@ export function detailView(
     payments: parts.payments.map(paymentView),
     events: parts.events.map(eventView),
     photos: parts.photos.map(photoView),
-    inbound: row.inbound_carrier || row.inbound_tracking ? { carrier: row.inbound_carrier ?? '', tracking: row.inbound_tracking ?? '' } : null,
+    inbound:
+      row.inbound_carrier || row.inbound_tracking ? { carrier: row.inbound_carrier ?? '', tracking: row.inbound_tracking ?? '' } : null,
     awaitingLayoutApproval: row.awaiting_layout_approval,
     declineReason: row.decline_reason,
     cancelReason: row.cancel_reason,

@@ -1,16 +1,5 @@
 import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
-import {
-  Body,
-  Controller,
-  Get,
-  Param,
-  Post,
-  Query,
-  Res,
-  UploadedFile,
-  UseFilters,
-  UseInterceptors,
-} from '@nestjs/common';
+import { Body, Controller, Get, Param, Post, Query, Res, UploadedFile, UseFilters, UseInterceptors } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagger';
 import {
@@ -75,7 +64,11 @@ export class BookingsController {
   @Roles('customer')
   @ApiOkResponse({ description: 'Records the carrier and tracking of the parcel carrying the pedals in.' })
   @ApiZodBody(shipmentSchema)
-  shipment(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(shipmentSchema)) dto: ShipmentInput) {
+  shipment(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingIdPipe) id: string,
+    @Body(new ZodValidationPipe(shipmentSchema)) dto: ShipmentInput,
+  ) {
     return this.bookings.recordShipment(user, id, dto);
   }
 

@@ -22,7 +22,10 @@ export type PhotoRow = Selectable<PhotosTable>;
 export type ExtraRow = Selectable<BookingExtrasTable> & { recorded_by_name: string | null };
 export type LayoutApprovalRow = Selectable<LayoutApprovalsTable> & { recorded_by_name: string | null; requested_by_name: string | null };
 
-export type QuoteSummaryRow = Pick<QuoteRow, 'id' | 'booking_id' | 'kind' | 'currency' | 'labor_hours' | 'total_low' | 'total_high' | 'deposit' | 'total' | 'created_at'>;
+export type QuoteSummaryRow = Pick<
+  QuoteRow,
+  'id' | 'booking_id' | 'kind' | 'currency' | 'labor_hours' | 'total_low' | 'total_high' | 'deposit' | 'total' | 'created_at'
+>;
 
 export interface BookingListRow extends BookingRow {
   customer_name: string;
@@ -62,7 +65,9 @@ function afterRow(sort: BookingListQuery['sort'], order: 'asc' | 'desc', after: 
   const cmp = sql.raw(order === 'asc' ? '>' : '<');
   if (sort !== 'bench_date') return sql<boolean>`(${col}, ${id}) ${cmp} (${after.key}, ${after.id}::uuid)`;
   if (after.key === null) {
-    return order === 'asc' ? sql<boolean>`(${col} is null and ${id} > ${after.id}::uuid)` : sql<boolean>`(${col} is not null or ${id} < ${after.id}::uuid)`;
+    return order === 'asc'
+      ? sql<boolean>`(${col} is null and ${id} > ${after.id}::uuid)`
+      : sql<boolean>`(${col} is not null or ${id} < ${after.id}::uuid)`;
   }
   const tail = order === 'asc' ? sql` or ${col} is null` : sql``;
   return sql<boolean>`((${col}, ${id}) ${cmp} (${after.key}::date, ${after.id}::uuid)${tail})`;
@@ -129,13 +134,15 @@ export class BookingsRepository {
   }
 
   update(trx: Executor, id: string, patch: Updateable<BookingsTable>) {
-    return trx
-      .updateTable('bookings')
-      // Generated<Timestamp> hides the writable type of updated_at, hence the cast.
-      .set({ ...patch, updated_at: sql`now()` } as unknown as Updateable<BookingsTable>)
-      .where('id', '=', id)
-      .returningAll()
-      .executeTakeFirstOrThrow();
+    return (
+      trx
+        .updateTable('bookings')
+        // Generated<Timestamp> hides the writable type of updated_at, hence the cast.
+        .set({ ...patch, updated_at: sql`now()` } as unknown as Updateable<BookingsTable>)
+        .where('id', '=', id)
+        .returningAll()
+        .executeTakeFirstOrThrow()
+    );
   }
 
   private listBase(trx: Executor, query: Omit<BookingListQuery, 'sort' | 'order' | 'limit' | 'offset'>) {
@@ -207,7 +214,10 @@ export class BookingsRepository {
       ]);
   }
 
-  async list(query: BookingListQuery, trx: Executor = this.db): Promise<{ rows: Array<BookingListRow & { sort_key: string | null }>; total: number }> {
+  async list(
+    query: BookingListQuery,
+    trx: Executor = this.db,
+  ): Promise<{ rows: Array<BookingListRow & { sort_key: string | null }>; total: number }> {
     const { total } = await this.filtered(trx.selectFrom('bookings'), trx, query)
       .select((eb) => eb.fn.countAll<string>().as('total'))
       .executeTakeFirstOrThrow();
@@ -231,9 +241,7 @@ export class BookingsRepository {
   }
 
   async findListRow(id: string, trx: Executor = this.db): Promise<BookingListRow | undefined> {
-    const row = await this.listRows(trx, {})
-      .where('bookings.id', '=', id)
-      .executeTakeFirst();
+    const row = await this.listRows(trx, {}).where('bookings.id', '=', id).executeTakeFirst();
     return row as BookingListRow | undefined;
   }
 
@@ -264,7 +272,13 @@ export class BookingsRepository {
 
   photosFor(bookingId: string, trx: Executor = this.db): Promise<PhotoRow[]> {
     // A message's photos belong to its thread, not to the booking's photo list.
-    return trx.selectFrom('photos').selectAll().where('booking_id', '=', bookingId).where('message_id', 'is', null).orderBy('created_at').execute();
+    return trx
+      .selectFrom('photos')
+      .selectAll()
+      .where('booking_id', '=', bookingId)
+      .where('message_id', 'is', null)
+      .orderBy('created_at')
+      .execute();
   }
 
   extrasFor(bookingId: string, trx: Executor = this.db): Promise<ExtraRow[]> {

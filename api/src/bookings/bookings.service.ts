@@ -1,5 +1,15 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
-import type { AuthUser, BookingDetail, BookingState, BookingSummary, CreateBookingInput, ListBookingsQuery, Page, RigConfiguration, ShipmentInput } from '@loomwright/shared';
+import type {
+  AuthUser,
+  BookingDetail,
+  BookingState,
+  BookingSummary,
+  CreateBookingInput,
+  ListBookingsQuery,
+  Page,
+  RigConfiguration,
+  ShipmentInput,
+} from '@loomwright/shared';
 import { bookingStateLabels, encodeBookingListCursor, moneyFacts, staffRoles, type MoneyFacts } from '@loomwright/shared';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
@@ -106,7 +116,12 @@ export class BookingsService {
     const quotes = await this.bookings.quoteSummariesFor(rows.map((r) => r.id));
     const last = rows.length === pageSize ? rows[rows.length - 1] : undefined;
     return {
-      items: rows.map((row) => summaryView(row, quotes.filter((q) => q.booking_id === row.id))),
+      items: rows.map((row) =>
+        summaryView(
+          row,
+          quotes.filter((q) => q.booking_id === row.id),
+        ),
+      ),
       total,
       page,
       pageSize,
@@ -170,7 +185,13 @@ export class BookingsService {
       currency: (firm ?? estimate)?.currency.trim() ?? payments[0]?.currency.trim() ?? 'USD',
       firmTotal: firm?.total ?? null,
       extras: extras.map((e) => ({ description: e.description, amount: e.amount, status: e.status })),
-      payments: payments.map((p) => ({ kind: p.kind, amount: p.amount, status: p.status, paidAt: iso(p.paid_at), refundedAt: iso(p.refunded_at) })),
+      payments: payments.map((p) => ({
+        kind: p.kind,
+        amount: p.amount,
+        status: p.status,
+        paidAt: iso(p.paid_at),
+        refundedAt: iso(p.refunded_at),
+      })),
       balanceWaived: row.balance_waived_reason !== null,
     });
   }
@@ -211,7 +232,13 @@ export class BookingsService {
   }
 
   /** A history line that keeps the state (a payment taken, a reminder sent); the player reads it unless 'internal'. */
-  insertNote(trx: Executor, booking: { id: string; state: BookingState }, actor: BookingActor, note: string, visibility: 'player' | 'internal' = 'player') {
+  insertNote(
+    trx: Executor,
+    booking: { id: string; state: BookingState },
+    actor: BookingActor,
+    note: string,
+    visibility: 'player' | 'internal' = 'player',
+  ) {
     return this.bookings.insertEvent(trx, {
       booking_id: booking.id,
       from_state: booking.state,

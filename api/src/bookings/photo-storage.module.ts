@@ -12,7 +12,9 @@ import { LocalDiskPhotoStorage, PhotoStorage, S3PhotoStorage, s3ClientFor } from
       inject: [ConfigService],
       useFactory: (config: ConfigService<AppConfig, true>) => {
         const storage = config.get('storage', { infer: true });
-        return storage.driver === 's3' ? new S3PhotoStorage(s3ClientFor(storage.s3), storage.s3.bucket) : new LocalDiskPhotoStorage(storage.uploadsDir);
+        return storage.driver === 's3'
+          ? new S3PhotoStorage(s3ClientFor(storage.s3), storage.s3.bucket)
+          : new LocalDiskPhotoStorage(storage.uploadsDir);
       },
     },
   ],

@@ -55,7 +55,10 @@ export class LocalDiskPhotoStorage extends PhotoStorage {
 /** The content type a stored key's extension stands for (keys are server-chosen: jpg, png, webp). */
 export function contentTypeOfKey(key: string): string {
   const ext = key.slice(key.lastIndexOf('.') + 1);
-  return ({ jpg: 'image/jpeg', jpeg: 'image/jpeg', png: 'image/png', webp: 'image/webp' } as Record<string, string>)[ext] ?? 'application/octet-stream';
+  return (
+    ({ jpg: 'image/jpeg', jpeg: 'image/jpeg', png: 'image/png', webp: 'image/webp' } as Record<string, string>)[ext] ??
+    'application/octet-stream'
+  );
 }
 
 export interface S3Settings {
@@ -74,7 +77,10 @@ export function s3ClientFor(settings: S3Settings): S3Client {
     region: settings.region,
     endpoint: settings.endpoint,
     forcePathStyle: settings.forcePathStyle,
-    credentials: settings.accessKeyId && settings.secretAccessKey ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey } : undefined,
+    credentials:
+      settings.accessKeyId && settings.secretAccessKey
+        ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey }
+        : undefined,
     // Checksums only where the S3 API requires them: many S3-compatible stores do not know the
     // newer flexible-checksum headers the SDK would otherwise add to every upload.
     requestChecksumCalculation: 'WHEN_REQUIRED',
@@ -98,7 +104,9 @@ export class S3PhotoStorage extends PhotoStorage {
 
   async put(key: string, bytes: Buffer): Promise<void> {
     if (!safeKey.test(key)) throw new Error(`refusing storage key ${JSON.stringify(key)}`);
-    await this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: bytes, ContentType: contentTypeOfKey(key), ContentLength: bytes.length }));
+    await this.client.send(
+      new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: bytes, ContentType: contentTypeOfKey(key), ContentLength: bytes.length }),
+    );
   }
 
   async get(key: string): Promise<Buffer> {

@@ -9,6 +9,9 @@ import { photoTooLargeMessage } from './booking-photos.service';
 export class PhotoTooLargeFilter implements ExceptionFilter {
   catch(_exception: PayloadTooLargeException, host: ArgumentsHost) {
     const http = host.switchToHttp();
-    http.getResponse<Response>().status(413).json(errorBody(413, errorResponse('photo_too_large', photoTooLargeMessage), http.getRequest<Request>()));
+    http
+      .getResponse<Response>()
+      .status(413)
+      .json(errorBody(413, errorResponse('photo_too_large', photoTooLargeMessage), http.getRequest<Request>()));
   }
 }

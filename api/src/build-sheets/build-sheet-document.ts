@@ -1,6 +1,16 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { moneyAccount, shopFormat, type EstimateResult, type FunctionItem, type MoneyFacts, type QuoteView, type RigChecks, type RigConfiguration, type ShopFormat } from '@loomwright/shared';
+import {
+  moneyAccount,
+  shopFormat,
+  type EstimateResult,
+  type FunctionItem,
+  type MoneyFacts,
+  type QuoteView,
+  type RigChecks,
+  type RigConfiguration,
+  type ShopFormat,
+} from '@loomwright/shared';
 import type { PaperSize } from '../common/paper-size';
 import PDFDocument from 'pdfkit';
 
@@ -85,7 +95,10 @@ export class Sheet {
 
   paragraph(text: string, options: { bold?: boolean } = {}) {
     this.ensureRoom(this.doc.heightOfString(text, { width: this.width }) + 4);
-    this.doc.font(options.bold ? 'bold' : 'body').text(text, MARGIN, this.doc.y, { width: this.width }).font('body');
+    this.doc
+      .font(options.bold ? 'bold' : 'body')
+      .text(text, MARGIN, this.doc.y, { width: this.width })
+      .font('body');
   }
 
   bullets(items: string[]) {
@@ -93,7 +106,10 @@ export class Sheet {
       const h = this.doc.heightOfString(item, { width: this.width - 14 });
       this.ensureRoom(h + 3);
       const y = this.doc.y;
-      this.doc.text('•', MARGIN, y).text(item, MARGIN + 14, y, { width: this.width - 14 }).moveDown(0.2);
+      this.doc
+        .text('•', MARGIN, y)
+        .text(item, MARGIN + 14, y, { width: this.width - 14 })
+        .moveDown(0.2);
     }
   }
 
@@ -114,7 +130,11 @@ export class Sheet {
       this.doc.font('body');
     };
     draw(headers, true);
-    this.doc.moveTo(MARGIN, this.doc.y - 2).lineTo(MARGIN + this.width, this.doc.y - 2).lineWidth(0.5).stroke();
+    this.doc
+      .moveTo(MARGIN, this.doc.y - 2)
+      .lineTo(MARGIN + this.width, this.doc.y - 2)
+      .lineWidth(0.5)
+      .stroke();
     for (const row of rows) draw(row, false);
   }
 
@@ -125,7 +145,10 @@ export class Sheet {
     const h = fit.usableDepthMm * scale;
     this.ensureRoom(h + 24);
     const top = this.doc.y + 4;
-    this.doc.lineWidth(1).rect(MARGIN, top, fit.usableWidthMm * scale, h).stroke();
+    this.doc
+      .lineWidth(1)
+      .rect(MARGIN, top, fit.usableWidthMm * scale, h)
+      .stroke();
     this.doc.fontSize(6.5);
     this.doc.fontSize(8);
     for (const p of fit.layout) {
@@ -148,7 +171,10 @@ export class Sheet {
       this.doc.switchToPage(i);
       const bottom = this.doc.page.margins.bottom;
       this.doc.page.margins.bottom = 0;
-      this.doc.fontSize(7.5).text(`${text} · page ${i + 1} of ${range.count}`, MARGIN, this.doc.page.height - MARGIN / 2 - 6, { width: this.width, lineBreak: false });
+      this.doc.fontSize(7.5).text(`${text} · page ${i + 1} of ${range.count}`, MARGIN, this.doc.page.height - MARGIN / 2 - 6, {
+        width: this.width,
+        lineBreak: false,
+      });
       this.doc.page.margins.bottom = bottom;
     }
   }
@@ -219,11 +245,21 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
   const byId = new Map(chain.devices.map((d) => [d.id, d]));
 
   doc.font('bold').fontSize(17).text(`Build sheet ${data.reference}`, MARGIN, MARGIN);
-  doc.font('body').fontSize(9.5).text(data.shopAddress ? `${data.shopName} · ${data.shopAddress}` : data.shopName);
+  doc
+    .font('body')
+    .fontSize(9.5)
+    .text(data.shopAddress ? `${data.shopName} · ${data.shopAddress}` : data.shopName);
   doc.moveDown(0.4);
   sheet.table(
     ['Customer', 'Builder', 'Bench date', 'Status'],
-    [[data.customer, data.builder ?? 'not assigned yet', data.benchDate ? `${day(data.benchDate)}${data.expectedCompletion ? ` (done by ${day(data.expectedCompletion)})` : ''}` : 'not set', data.stateLabel]],
+    [
+      [
+        data.customer,
+        data.builder ?? 'not assigned yet',
+        data.benchDate ? `${day(data.benchDate)}${data.expectedCompletion ? ` (done by ${day(data.expectedCompletion)})` : ''}` : 'not set',
+        data.stateLabel,
+      ],
+    ],
     [0.3, 0.25, 0.25, 0.2],
   );
   sheet.paragraph(
@@ -247,7 +283,11 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
       ['Loop', 'Pedal', 'Supply'],
       chain.loops.map(({ loop, deviceId }) => {
         const d = byId.get(deviceId)!;
-        return [String(loop), `${d.number} ${d.name}`, d.powered ? `${d.voltage} V, ${ma(d.budgetMa)}${d.drawFromMemory ? ' (assumed)' : ''}` : 'passive'];
+        return [
+          String(loop),
+          `${d.number} ${d.name}`,
+          d.powered ? `${d.voltage} V, ${ma(d.budgetMa)}${d.drawFromMemory ? ' (assumed)' : ''}` : 'passive',
+        ];
       }),
       [0.1, 0.55, 0.35],
     );
@@ -268,14 +308,18 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
       ]),
       [0.18, 0.14, 0.14, 0.14, 0.2, 0.2],
     );
-    sheet.paragraph(`Total: ${ma(power.totalDrawMa)} drawn of ${ma(power.totalRatingMa ?? 0)} rated; headroom ${ma(power.totalHeadroomMa ?? 0)} (${watts(power.totalHeadroomW)}).`);
+    sheet.paragraph(
+      `Total: ${ma(power.totalDrawMa)} drawn of ${ma(power.totalRatingMa ?? 0)} rated; headroom ${ma(power.totalHeadroomMa ?? 0)} (${watts(power.totalHeadroomW)}).`,
+    );
   } else {
     sheet.table(
       ['Pedal', 'Voltage', 'Draw'],
       power.assignments.map((a) => [a.device, `${a.voltage} V`, `${ma(a.currentMa)}${a.drawFromMemory ? ' (assumed, typical)' : ''}`]),
       [0.5, 0.2, 0.3],
     );
-    sheet.paragraph(`No supply listed: ${ma(power.totalDrawMa)} (${watts(power.totalDrawW)}) in all. Check the customer's supply at intake.`);
+    sheet.paragraph(
+      `No supply listed: ${ma(power.totalDrawMa)} (${watts(power.totalDrawW)}) in all. Check the customer's supply at intake.`,
+    );
   }
   if (power.fixes.length) sheet.bullets(power.fixes.map((f) => `To fix: ${f}`));
   if (power.warnings.length) sheet.bullets(power.warnings);
@@ -294,7 +338,10 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
     ]),
     [0.05, 0.33, 0.33, 0.1, 0.1, 0.09],
   );
-  sheet.paragraph(`${cables.patchCount} patch cables, ${cables.plugCount} plugs, ${cables.cableFeet} ft of cable including ${cables.spareFeet} ft spare.`, { bold: true });
+  sheet.paragraph(
+    `${cables.patchCount} patch cables, ${cables.plugCount} plugs, ${cables.cableFeet} ft of cable including ${cables.spareFeet} ft spare.`,
+    { bold: true },
+  );
   sheet.paragraph(`Power leads: ${cables.barrelPlugCount} DC barrel plugs.`);
   sheet.table(
     ['Power lead for', 'Voltage', 'Polarity', 'Connector'],
@@ -304,7 +351,12 @@ export function renderBuildSheet(data: BuildSheetData): Promise<Buffer> {
 
   sheet.heading('Functions');
   if (data.functions.length === 0) sheet.paragraph('None.');
-  else sheet.bullets(data.functions.map((f) => `${f.name}: ${fmtHours(f.laborHours)}${f.functionCount > 1 ? ` (counts as ${f.functionCount})` : ''}. ${f.description}`));
+  else
+    sheet.bullets(
+      data.functions.map(
+        (f) => `${f.name}: ${fmtHours(f.laborHours)}${f.functionCount > 1 ? ` (counts as ${f.functionCount})` : ''}. ${f.description}`,
+      ),
+    );
 
   sheet.heading('Layout');
   sheet.paragraph(

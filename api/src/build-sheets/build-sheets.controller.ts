@@ -18,10 +18,17 @@ export class BuildSheetsController {
   @Get(':id/build-sheet')
   @ApiProduces('application/pdf')
   @Header('Content-Security-Policy', PDF_CONTENT_SECURITY_POLICY)
-  @ApiOkResponse({ description: 'A printable PDF: signal chain, loops, power, cable schedule, functions, notes, bench cautions, and the money (quote lines, extras, payments and refunds, balance due, from the same money facts as the booking).' })
+  @ApiOkResponse({
+    description:
+      'A printable PDF: signal chain, loops, power, cable schedule, functions, notes, bench cautions, and the money (quote lines, extras, payments and refunds, balance due, from the same money facts as the booking).',
+  })
   @ApiNotFoundResponse({ description: 'No such booking, or it has no quote yet.' })
   async buildSheet(@CurrentUser() user: AuthUser, @Param('id', uuidParam(requestWords.notAnId('a booking'))) id: string) {
     const { reference, pdf } = await this.buildSheets.render(id, user);
-    return new StreamableFile(pdf, { type: 'application/pdf', disposition: `inline; filename="build-sheet-${reference}.pdf"`, length: pdf.length });
+    return new StreamableFile(pdf, {
+      type: 'application/pdf',
+      disposition: `inline; filename="build-sheet-${reference}.pdf"`,
+      length: pdf.length,
+    });
   }
 }

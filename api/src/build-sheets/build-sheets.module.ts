@@ -5,5 +5,10 @@ import { BuildSheetsController } from './build-sheets.controller';
 import { BuildSheetsRepository } from './build-sheets.repository';
 import { BuildSheetsService } from './build-sheets.service';
 
-@Module({ imports: [PriceBookModule, BookingsModule], controllers: [BuildSheetsController], providers: [BuildSheetsService, BuildSheetsRepository], exports: [BuildSheetsService] })
+@Module({
+  imports: [PriceBookModule, BookingsModule],
+  controllers: [BuildSheetsController],
+  providers: [BuildSheetsService, BuildSheetsRepository],
+  exports: [BuildSheetsService],
+})
 export class BuildSheetsModule {}

@@ -43,6 +43,21 @@ export class BuildSheetsRepository {
 
   /** The shop's name, voice (locale, currency, time zone) and country (its paper size): the sheet writes money and moments as the shop does. */
   findShop(trx: Executor = this.db) {
-    return trx.selectFrom('shop_settings').select(['name', 'locale', 'currency', 'timezone', 'country_code', 'address_line1', 'address_line2', 'address_city', 'address_region', 'address_postal_code']).where('id', '=', 1).executeTakeFirst();
+    return trx
+      .selectFrom('shop_settings')
+      .select([
+        'name',
+        'locale',
+        'currency',
+        'timezone',
+        'country_code',
+        'address_line1',
+        'address_line2',
+        'address_city',
+        'address_region',
+        'address_postal_code',
+      ])
+      .where('id', '=', 1)
+      .executeTakeFirst();
   }
 }

@@ -1,5 +1,13 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
-import { bookingStateLabels, estimateRig, postalAddressLine, shopFormat, type AuthUser, type EstimateResult, type RigChecks } from '@loomwright/shared';
+import {
+  bookingStateLabels,
+  estimateRig,
+  postalAddressLine,
+  shopFormat,
+  type AuthUser,
+  type EstimateResult,
+  type RigChecks,
+} from '@loomwright/shared';
 import { BookingsService } from '../bookings/bookings.service';
 import { bookingAsSeenBy } from '../bookings/customer-contact.interceptor';
 import { paperSizeFor } from '../common/paper-size';
@@ -45,7 +53,13 @@ export class BuildSheetsService {
       shopName: shop?.name ?? 'Loomwright',
       shopAddress: shop?.address_line1
         ? postalAddressLine(
-            { line1: shop.address_line1, line2: shop.address_line2, city: shop.address_city, region: shop.address_region, postalCode: shop.address_postal_code },
+            {
+              line1: shop.address_line1,
+              line2: shop.address_line2,
+              city: shop.address_city,
+              region: shop.address_region,
+              postalCode: shop.address_postal_code,
+            },
             shop.country_code.trim(),
           )
         : null,

@@ -61,20 +61,42 @@ export class ApprovalsService {
     const id = await this.db.transaction().execute(async (trx) => {
       const booking = await this.lockBooking(trx, bookingId);
       if (!extraStates.includes(booking.state)) {
-        throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; extras can be proposed only while it is ${extraStates.map(stateWords).join(', ')}.`);
+        throw new ConflictException(
+          `Booking ${booking.reference} is ${stateWords(booking.state)}; extras can be proposed only while it is ${extraStates.map(stateWords).join(', ')}.`,
+        );
       }
       const amount = new Decimal(dto.amount).toFixed(2);
-      const row = await this.builds.insertExtra(trx, { bookingId, description: dto.description, amount, reason: dto.reason, proposedBy: user.id });
+      const row = await this.builds.insertExtra(trx, {
+        bookingId,
+        description: dto.description,
+        amount,
+        reason: dto.reason,
+        proposedBy: user.id,
+      });
       const firm = await this.builds.latestFirmQuote(trx, bookingId);
       const currency = firm?.currency.trim() ?? 'USD';
-      await this.history.note(trx, booking, user, `Extra proposed for the player's approval: ${dto.description}, ${amount} ${currency} (${dto.reason}).`, 'player');
+      await this.history.note(
+        trx,
+        booking,
+        user,
+        `Extra proposed for the player's approval: ${dto.description}, ${amount} ${currency} (${dto.reason}).`,
+        'player',
+      );
       await this.mail.enqueue(trx, {
         template: 'approval-requested',
         to: booking.customer_email,
         bookingId,
         userId: booking.customer_id,
         dedupeKey: `approval:extra:${row.id}`,
-        data: { customerName: booking.customer_name, reference: booking.reference, kind: 'extra', description: dto.description, amount, currency, reason: dto.reason },
+        data: {
+          customerName: booking.customer_name,
+          reference: booking.reference,
+          kind: 'extra',
+          description: dto.description,
+          amount,
+          currency,
+          reason: dto.reason,
+        },
       });
       return row.id;
     });
@@ -86,7 +108,13 @@ export class ApprovalsService {
     await this.db.transaction().execute(async (trx) => {
       const booking = await this.lockBooking(trx, bookingId);
       ApprovalsService.playerOnly(user, booking);
-      await this.applyExtraDecision(trx, booking, extraId, user, { approve: input.approve, via: 'app', givenBy: user.name, comment: input.comment ?? '', recordedBy: null });
+      await this.applyExtraDecision(trx, booking, extraId, user, {
+        approve: input.approve,
+        via: 'app',
+        givenBy: user.name,
+        comment: input.comment ?? '',
+        recordedBy: null,
+      });
     });
     return this.extra(bookingId, extraId);
   }
@@ -109,7 +137,8 @@ export class ApprovalsService {
   private async applyExtraDecision(trx: Executor, booking: LockedBooking, extraId: string, by: AuthUser, decision: Decision) {
     const extra = await this.builds.lockExtra(trx, booking.id, extraId);
     if (!extra) throw new NotFoundException('There is no such extra on this booking.');
-    if (extra.status !== 'proposed') throw new ConflictException(`This extra is already ${extra.status}; an answer cannot be changed once given.`);
+    if (extra.status !== 'proposed')
+      throw new ConflictException(`This extra is already ${extra.status}; an answer cannot be changed once given.`);
     if (!extraStates.includes(booking.state)) {
       throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; its extras can no longer change.`);
     }
@@ -141,7 +170,9 @@ export class ApprovalsService {
     return this.db.transaction().execute(async (trx) => {
       const booking = await this.lockBooking(trx, bookingId);
       if (booking.state !== 'on_bench') {
-        throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; a layout can be sent for approval only while it is on bench.`);
+        throw new ConflictException(
+          `Booking ${booking.reference} is ${stateWords(booking.state)}; a layout can be sent for approval only while it is on bench.`,
+        );
       }
       if (booking.awaiting_layout_approval || (await this.builds.lockWaitingLayout(trx, bookingId))) {
         throw new ConflictException('The layout is already waiting for the player’s approval.');
@@ -165,7 +196,13 @@ export class ApprovalsService {
     return this.db.transaction().execute(async (trx) => {
       const booking = await this.lockBooking(trx, bookingId);
       ApprovalsService.playerOnly(user, booking);
-      return this.applyLayoutDecision(trx, booking, user, { approve: input.approve, via: 'app', givenBy: user.name, comment: input.comment ?? '', recordedBy: null });
+      return this.applyLayoutDecision(trx, booking, user, {
+        approve: input.approve,
+        via: 'app',
+        givenBy: user.name,
+        comment: input.comment ?? '',
+        recordedBy: null,
+      });
     });
   }
 
@@ -182,7 +219,12 @@ export class ApprovalsService {
     });
   }
 
-  private async applyLayoutDecision(trx: Executor, booking: LockedBooking, by: AuthUser, decision: Decision): Promise<BookingStateResponse> {
+  private async applyLayoutDecision(
+    trx: Executor,
+    booking: LockedBooking,
+    by: AuthUser,
+    decision: Decision,
+  ): Promise<BookingStateResponse> {
     const waiting = await this.builds.lockWaitingLayout(trx, booking.id);
     if (!waiting || !booking.awaiting_layout_approval) throw new ConflictException('There is no layout waiting for an answer.');
     await this.builds.decideLayout(trx, waiting.id, decision);
@@ -198,4 +240,3 @@ export class ApprovalsService {
     return { bookingId: booking.id, state: updated!.state, awaitingLayoutApproval: false };
   }
 }
-

@@ -12,7 +12,9 @@ import {
   type CancellationPreview,
   type PriceConsentInput,
   type RescheduleInput,
-  type RescheduleResponse, requestWords } from '@loomwright/shared';
+  type RescheduleResponse,
+  requestWords,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
@@ -34,7 +36,9 @@ export class BenchChangesController {
   @HttpCode(200)
   @ApiZodBody(rescheduleSchema)
   @Roles('builder', 'owner')
-  @ApiOkResponse({ description: 'The build moved to another day and/or builder; history written, the player e-mailed an updated calendar file.' })
+  @ApiOkResponse({
+    description: 'The build moved to another day and/or builder; history written, the player e-mailed an updated calendar file.',
+  })
   reschedule(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingId) id: string,
@@ -58,7 +62,9 @@ export class BenchChangesController {
   @HttpCode(200)
   @ApiZodBody(cancelScheduledSchema)
   @Roles('owner')
-  @ApiOkResponse({ description: 'Cancelled: bench time released, deposit refunded per the policy, the player e-mailed a calendar cancellation.' })
+  @ApiOkResponse({
+    description: 'Cancelled: bench time released, deposit refunded per the policy, the player e-mailed a calendar cancellation.',
+  })
   cancelScheduled(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingId) id: string,

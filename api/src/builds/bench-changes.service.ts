@@ -70,7 +70,8 @@ export class BenchChangesService {
         `Booking ${booking.reference} is ${stateWords(booking.state)}; a build can be moved while it is scheduled or its pedals are in, before it goes on the bench.`,
       );
     }
-    if (input.reprice && user.role !== 'owner') throw new ForbiddenException('Only the owner can re-price a firm quote at another builder’s rate.');
+    if (input.reprice && user.role !== 'owner')
+      throw new ForbiddenException('Only the owner can re-price a firm quote at another builder’s rate.');
     const facts = await this.bench.planningFacts(trx, bookingId);
     const builder = await this.bench.lockBuilder(trx, input.builderId);
     if (!builder) throw new NotFoundException('That builder is not on the team; choose one from the list.');
@@ -78,9 +79,12 @@ export class BenchChangesService {
     const reassigned = builder.id !== booking.builder_id;
     const belowLevel = reassigned ? assertLevelRule(user, builder, facts, input.levelOverrideReason) : false;
     if (!reassigned && input.levelOverrideReason) {
-      throw new BadRequestException('A reason for a builder below the level is only for handing the build to a builder below the level the player chose.');
+      throw new BadRequestException(
+        'A reason for a builder below the level is only for handing the build to a builder below the level the player chose.',
+      );
     }
-    if (input.reprice && !reassigned) throw new BadRequestException('Re-pricing is only for a move to another builder; the firm quote already uses this builder’s rate.');
+    if (input.reprice && !reassigned)
+      throw new BadRequestException('Re-pricing is only for a move to another builder; the firm quote already uses this builder’s rate.');
 
     const shop = await this.bench.shopCalendar(trx);
     const plan = await this.bench.planFor(trx, builder, facts.laborHours, shop, { benchDate: input.benchDate }, bookingId);
@@ -89,7 +93,9 @@ export class BenchChangesService {
     const voice = await shopFormatOf(trx);
     const formatDay = (day: string) => dayWords(voice, day);
     if (!reassigned && previousDate === input.benchDate) {
-      throw new BadRequestException(`The build already starts on ${formatDay(input.benchDate)} with this builder; pick another day or builder.`);
+      throw new BadRequestException(
+        `The build already starts on ${formatDay(input.benchDate)} with this builder; pick another day or builder.`,
+      );
     }
     await this.bench.releaseAllocations(trx, bookingId);
     await this.bench.allocate(trx, bookingId, builder, shop, plan);
@@ -100,7 +106,12 @@ export class BenchChangesService {
     let firmTotal = current.total;
     let priceConsent = booking.price_consent;
     if (input.reprice) {
-      const figures = firmQuoteFigures({ hourlyRate: builder.hourly_rate, laborHours: facts.laborHours, materialsTotal: facts.materialsTotal, deposit: current.deposit });
+      const figures = firmQuoteFigures({
+        hourlyRate: builder.hourly_rate,
+        laborHours: facts.laborHours,
+        materialsTotal: facts.materialsTotal,
+        deposit: current.deposit,
+      });
       await this.builds.insertQuote(trx, {
         booking_id: bookingId,
         kind: 'firm',
@@ -126,7 +137,9 @@ export class BenchChangesService {
     const sequence = booking.calendar_sequence + 1;
     const shift = previousDate ? dateShiftWords(previousDate, plan.benchDate) : 'a new date';
     const who = reassigned ? `${builder.name} (${builder.level}) instead of the previous builder` : builder.name;
-    const priceNote = input.reprice ? ` Re-priced at ${builder.name}'s rate: firm total ${voice.money(firmTotal, facts.currency)} (was ${voice.money(current.total, facts.currency)}).` : '';
+    const priceNote = input.reprice
+      ? ` Re-priced at ${builder.name}'s rate: firm total ${voice.money(firmTotal, facts.currency)} (was ${voice.money(current.total, facts.currency)}).`
+      : '';
     const levelNote = belowLevel ? ` Level override: ${input.levelOverrideReason!.trim()}` : '';
     await this.history.note(
       trx,
@@ -195,7 +208,9 @@ export class BenchChangesService {
 
   private async balanceAfterDeposit(trx: Executor, bookingId: string, firmTotal: string) {
     const payments = await this.builds.payments(trx, bookingId);
-    const depositPaid = payments.filter((p) => p.kind === 'deposit' && p.status === 'paid').reduce((s, p) => s.plus(p.amount), new Decimal(0));
+    const depositPaid = payments
+      .filter((p) => p.kind === 'deposit' && p.status === 'paid')
+      .reduce((s, p) => s.plus(p.amount), new Decimal(0));
     return { depositPaid: depositPaid.toFixed(2), balanceDue: Decimal.max(0, new Decimal(firmTotal).minus(depositPaid)).toFixed(2) };
   }
 
@@ -234,7 +249,14 @@ export class BenchChangesService {
    * never leaves money refunded or hours released behind it, and a retried one finds the booking
    * cancelled (409) instead of refunding twice (the provider call also carries an idempotency key).
    */
-  private async cancelIn(trx: Executor, user: AuthUser, bookingId: string, reason: string, cause: CancelScheduledInput['cause'], allowed: BookingState[]) {
+  private async cancelIn(
+    trx: Executor,
+    user: AuthUser,
+    bookingId: string,
+    reason: string,
+    cause: CancelScheduledInput['cause'],
+    allowed: BookingState[],
+  ) {
     const booking = await this.builds.lockBooking(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     if (!allowed.includes(booking.state)) {
@@ -302,10 +324,23 @@ export class BenchChangesService {
       if (accept) {
         await this.builds.updateBooking(trx, booking.id, [booking.state], { price_consent: 'given' });
         const firm = await this.builds.latestFirmQuote(trx, booking.id);
-        await this.history.note(trx, booking, user, `The player agreed to the firm total of ${firm?.total ?? '?'} ${firm?.currency.trim() ?? ''}.`.replace(/ \.$/, '.'), 'player');
+        await this.history.note(
+          trx,
+          booking,
+          user,
+          `The player agreed to the firm total of ${firm?.total ?? '?'} ${firm?.currency.trim() ?? ''}.`.replace(/ \.$/, '.'),
+          'player',
+        );
         return;
       }
-      await this.cancelIn(trx, user, booking.id, 'the firm price above the estimate was not agreed, so the whole deposit is refunded', 'player', CANCELLABLE);
+      await this.cancelIn(
+        trx,
+        user,
+        booking.id,
+        'the firm price above the estimate was not agreed, so the whole deposit is refunded',
+        'player',
+        CANCELLABLE,
+      );
     });
     return this.bookings.getDetail(visible.id);
   }

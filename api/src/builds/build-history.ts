@@ -37,8 +37,22 @@ export class BuildHistory {
    * of history. Internal unless the caller says the player should read it: a staff member's words
    * reach the player only when they chose so.
    */
-  note(trx: Executor, booking: { id: string; state: BookingState }, actor: AuthUser, note: string, visibility: 'player' | 'internal' = 'internal') {
+  note(
+    trx: Executor,
+    booking: { id: string; state: BookingState },
+    actor: AuthUser,
+    note: string,
+    visibility: 'player' | 'internal' = 'internal',
+  ) {
     const who = actorOf(actor);
-    return this.builds.insertEvent(trx, { bookingId: booking.id, from: booking.state, to: booking.state, actorId: who.id, actorLabel: who.label, note, visibility });
+    return this.builds.insertEvent(trx, {
+      bookingId: booking.id,
+      from: booking.state,
+      to: booking.state,
+      actorId: who.id,
+      actorLabel: who.label,
+      note,
+      visibility,
+    });
   }
 }

@@ -42,7 +42,9 @@ export class BuildRecordsService {
     const booking = await this.builds.lockBooking(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     if (!states.includes(booking.state)) {
-      throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; ${what} only while it is ${states.map(stateWords).join(', ')}.`);
+      throw new ConflictException(
+        `Booking ${booking.reference} is ${stateWords(booking.state)}; ${what} only while it is ${states.map(stateWords).join(', ')}.`,
+      );
     }
     return booking;
   }
@@ -85,11 +87,13 @@ export class BuildRecordsService {
       if (user.role === 'owner') builderId = dto.builderId ?? booking.builder_id ?? own?.id;
       else {
         if (!own) throw new ForbiddenException('Your account is not on the bench team, so it has no hours to record.');
-        if (dto.builderId && dto.builderId !== own.id) throw new ForbiddenException('A builder records their own hours; the owner may record anyone’s.');
+        if (dto.builderId && dto.builderId !== own.id)
+          throw new ForbiddenException('A builder records their own hours; the owner may record anyone’s.');
         builderId = own.id;
       }
       if (!builderId) throw new BadRequestException('Builder is required: say whose hours these are.');
-      if (!(await this.builds.builderRef(trx, builderId))) throw new NotFoundException('That builder is not on the team; choose one from the list.');
+      if (!(await this.builds.builderRef(trx, builderId)))
+        throw new NotFoundException('That builder is not on the team; choose one from the list.');
       await this.notInFuture(trx, dto.workedOn);
       const hours = new Decimal(dto.hours).toFixed(2);
       const note = dto.note?.trim() ?? '';
@@ -116,7 +120,12 @@ export class BuildRecordsService {
       const after = `${f.hours(next.hours)} on ${dayWords(f, next.worked_on)}`;
       if (next.worked_on === entry.worked_on && next.hours === new Decimal(entry.hours).toFixed(2) && next.note === entry.note) return;
       await this.builds.updateTimeEntry(trx, entryId, next);
-      await this.history.note(trx, booking, user, `Hours corrected: ${before} → ${after}${next.note !== entry.note ? ` (note: ${next.note || 'removed'})` : ''}.`);
+      await this.history.note(
+        trx,
+        booking,
+        user,
+        `Hours corrected: ${before} → ${after}${next.note !== entry.note ? ` (note: ${next.note || 'removed'})` : ''}.`,
+      );
     });
     return this.timeEntries(bookingId);
   }
@@ -127,7 +136,12 @@ export class BuildRecordsService {
       const entry = await this.ownEntry(trx, user, bookingId, entryId);
       await this.builds.deleteTimeEntry(trx, entryId);
       const f = await shopFormatOf(trx);
-      await this.history.note(trx, booking, user, `Hours deleted: ${f.hours(entry.hours)} on ${dayWords(f, entry.worked_on)}${entry.note ? ` (${entry.note})` : ''}.`);
+      await this.history.note(
+        trx,
+        booking,
+        user,
+        `Hours deleted: ${f.hours(entry.hours)} on ${dayWords(f, entry.worked_on)}${entry.note ? ` (${entry.note})` : ''}.`,
+      );
     });
     return this.timeEntries(bookingId);
   }
@@ -176,18 +190,30 @@ export class BuildRecordsService {
     await this.db.transaction().execute(async (trx) => {
       const booking = await this.lockIn(trx, bookingId, intakeStates, 'intake can be recorded');
       const existing = new Map((await this.builds.lockIntakeItems(trx, bookingId)).map((row) => [row.item_key, row]));
-      const placed = placeIntakeItems(intakeChecklist(booking.configuration), dto.items.map((i) => i.item));
+      const placed = placeIntakeItems(
+        intakeChecklist(booking.configuration),
+        dto.items.map((i) => i.item),
+      );
       const seen = new Set<string>();
       const added: string[] = [];
       const corrected: string[] = [];
       for (const [index, input] of dto.items.entries()) {
         const place = placed[index];
-        if (seen.has(place.key)) throw new BadRequestException(`Item ${index + 1}: "${input.item.trim()}" is listed twice; record each item once.`);
+        if (seen.has(place.key))
+          throw new BadRequestException(`Item ${index + 1}: "${input.item.trim()}" is listed twice; record each item once.`);
         seen.add(place.key);
         const note = input.note?.trim() ?? '';
         const row = existing.get(place.key);
         if (!row) {
-          await this.builds.insertIntakeItem(trx, { bookingId, key: place.key, position: place.position, item: place.item, condition: input.condition, note, recordedBy: user.id });
+          await this.builds.insertIntakeItem(trx, {
+            bookingId,
+            key: place.key,
+            position: place.position,
+            item: place.item,
+            condition: input.condition,
+            note,
+            recordedBy: user.id,
+          });
           added.push(`${place.item} (${conditionWords[input.condition]}${note ? `: ${note}` : ''})`);
         } else if (row.condition !== input.condition || row.note !== note || row.item !== place.item) {
           await this.builds.updateIntakeItem(trx, row.id, { item: place.item, condition: input.condition, note, updatedBy: user.id });
@@ -211,7 +237,12 @@ export class BuildRecordsService {
       if (row.item === item && row.condition === dto.condition && row.note === note) return;
       await this.builds.updateIntakeItem(trx, row.id, { item, condition: dto.condition, note, updatedBy: user.id });
       const renamed = row.item !== item ? ` renamed to ${item},` : '';
-      await this.history.note(trx, booking, user, `Intake corrected: ${row.item}${renamed} ${row.condition} → ${dto.condition}${note !== row.note ? ` (note: ${note || 'removed'})` : ''}.`);
+      await this.history.note(
+        trx,
+        booking,
+        user,
+        `Intake corrected: ${row.item}${renamed} ${row.condition} → ${dto.condition}${note !== row.note ? ` (note: ${note || 'removed'})` : ''}.`,
+      );
     });
     return this.intake(bookingId);
   }

@@ -38,7 +38,9 @@ import {
   type StaffNoteInput,
   type TimeEntriesResponse,
   type TimeEntryInput,
-  type WaiveBalanceInput, requestWords } from '@loomwright/shared';
+  type WaiveBalanceInput,
+  requestWords,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
@@ -48,8 +50,7 @@ import { BuildRecordsService } from './build-records.service';
 import { BuildsService } from './builds.service';
 
 const bookingId = uuidParam(requestWords.notAnId('a booking'));
-const uuid = (_name: string, what: string) =>
-  uuidParam(requestWords.notAnId(what));
+const uuid = (_name: string, what: string) => uuidParam(requestWords.notAnId(what));
 
 /** A build's life on the bench, from acceptance to delivery. */
 @ApiTags('builds')
@@ -69,7 +70,11 @@ export class BuildsController {
   @Roles('builder', 'owner')
   @ApiOkResponse({ description: 'Scheduled: bench time taken, firm quote written, the player e-mailed.' })
   @ApiZodBody(acceptBookingSchema)
-  accept(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(acceptBookingSchema)) dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
+  accept(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(acceptBookingSchema)) dto: AcceptBookingInput,
+  ): Promise<AcceptBookingResponse> {
     return this.builds.accept(user, id, dto);
   }
 
@@ -79,7 +84,11 @@ export class BuildsController {
   @HttpCode(200)
   @Roles('builder', 'owner')
   @ApiZodBody(declineBookingSchema)
-  decline(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(declineBookingSchema)) dto: DeclineBookingInput): Promise<BookingDetail> {
+  decline(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(declineBookingSchema)) dto: DeclineBookingInput,
+  ): Promise<BookingDetail> {
     return this.builds.decline(user, id, dto.reason);
   }
 
@@ -89,7 +98,11 @@ export class BuildsController {
   @HttpCode(200)
   @Roles('builder', 'owner')
   @ApiZodBody(changeStateSchema)
-  changeState(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(changeStateSchema)) dto: ChangeStateInput): Promise<BookingStateResponse> {
+  changeState(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(changeStateSchema)) dto: ChangeStateInput,
+  ): Promise<BookingStateResponse> {
     return this.builds.changeState(user, id, dto.to, dto.note ?? '', !!dto.tellPlayer);
   }
 
@@ -99,7 +112,11 @@ export class BuildsController {
   @HttpCode(200)
   @Roles('owner')
   @ApiZodBody(waiveBalanceSchema)
-  waiveBalance(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(waiveBalanceSchema)) dto: WaiveBalanceInput): Promise<BookingStateResponse> {
+  waiveBalance(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(waiveBalanceSchema)) dto: WaiveBalanceInput,
+  ): Promise<BookingStateResponse> {
     return this.builds.waiveBalance(user, id, dto.reason);
   }
 
@@ -108,7 +125,11 @@ export class BuildsController {
   @Roles('builder', 'owner')
   @ApiZodBody(staffNoteSchema)
   @ApiOkResponse({ description: 'A staff note in the history: internal, unless tellPlayer (then e-mailed to the player word for word).' })
-  addNote(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(staffNoteSchema)) body: StaffNoteInput) {
+  addNote(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(staffNoteSchema)) body: StaffNoteInput,
+  ) {
     return this.records.addNote(user, id, body);
   }
 
@@ -117,7 +138,11 @@ export class BuildsController {
   @Post('time-entries')
   @Roles('builder', 'owner')
   @ApiZodBody(timeEntrySchema)
-  addTimeEntry(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(timeEntrySchema)) body: TimeEntryInput): Promise<TimeEntriesResponse> {
+  addTimeEntry(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(timeEntrySchema)) body: TimeEntryInput,
+  ): Promise<TimeEntriesResponse> {
     return this.records.addTimeEntry(user, id, body);
   }
 
@@ -148,7 +173,11 @@ export class BuildsController {
   @ApiZodResponse(responseSchemas.timeEntriesResponseSchema)
   @Delete('time-entries/:entryId')
   @Roles('builder', 'owner')
-  deleteTimeEntry(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Param('entryId', uuid('entryId', 'an hour entry id')) entryId: string): Promise<TimeEntriesResponse> {
+  deleteTimeEntry(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Param('entryId', uuid('entryId', 'an hour entry id')) entryId: string,
+  ): Promise<TimeEntriesResponse> {
     return this.records.deleteTimeEntry(user, id, entryId);
   }
 
@@ -158,7 +187,11 @@ export class BuildsController {
   @Roles('builder', 'owner')
   @ApiZodBody(recordIntakeSchema)
   @ApiOkResponse({ description: 'Each item once, in signal-chain order; recording an item again corrects it, never duplicates it.' })
-  recordIntake(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(recordIntakeSchema)) body: RecordIntakeInput): Promise<IntakeItemView[]> {
+  recordIntake(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(recordIntakeSchema)) body: RecordIntakeInput,
+  ): Promise<IntakeItemView[]> {
     return this.records.recordIntake(user, id, body);
   }
 
@@ -190,7 +223,11 @@ export class BuildsController {
   @Roles('owner')
   @ApiZodBody(proposeExtraSchema)
   @ApiOkResponse({ description: 'Proposes an extra with its price; the player is e-mailed to approve or decline it.' })
-  proposeExtra(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(proposeExtraSchema)) body: ProposeExtraInput): Promise<ExtraView> {
+  proposeExtra(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(proposeExtraSchema)) body: ProposeExtraInput,
+  ): Promise<ExtraView> {
     return this.approvals.proposeExtra(user, id, body);
   }
 
@@ -241,7 +278,11 @@ export class BuildsController {
   @Roles('builder', 'owner')
   @ApiZodBody(layoutRequestSchema)
   @ApiOkResponse({ description: 'Sends the top-view layout to the player (by e-mail and on their page); testing waits for the answer.' })
-  requestLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(layoutRequestSchema)) body: LayoutRequestInput): Promise<BookingStateResponse> {
+  requestLayout(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(layoutRequestSchema)) body: LayoutRequestInput,
+  ): Promise<BookingStateResponse> {
     return this.approvals.requestLayoutApproval(user, id, body);
   }
 
@@ -252,7 +293,11 @@ export class BuildsController {
   @Roles('customer')
   @ApiZodBody(layoutNoteSchema)
   @ApiOkResponse({ description: 'The player approves the waiting layout (same as layout/decision with approve: true).' })
-  approveLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(layoutNoteSchema)) body: LayoutNoteInput): Promise<BookingStateResponse> {
+  approveLayout(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(layoutNoteSchema)) body: LayoutNoteInput,
+  ): Promise<BookingStateResponse> {
     return this.approvals.decideLayout(user, id, { approve: true, comment: body.note });
   }
 
@@ -262,7 +307,11 @@ export class BuildsController {
   @HttpCode(200)
   @Roles('customer')
   @ApiZodBody(decideExtraSchema)
-  decideLayout(@CurrentUser() user: AuthUser, @Param('id', bookingId) id: string, @Body(new ZodValidationPipe(decideExtraSchema)) body: DecideExtraInput): Promise<BookingStateResponse> {
+  decideLayout(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingId) id: string,
+    @Body(new ZodValidationPipe(decideExtraSchema)) body: DecideExtraInput,
+  ): Promise<BookingStateResponse> {
     return this.approvals.decideLayout(user, id, body);
   }
 

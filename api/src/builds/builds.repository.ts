@@ -105,7 +105,10 @@ export class BuildsRepository {
       .executeTakeFirst();
   }
 
-  insertTimeEntry(trx: Executor, values: { bookingId: string; builderId: string; workedOn: string; hours: string; note: string; createdBy: string }) {
+  insertTimeEntry(
+    trx: Executor,
+    values: { bookingId: string; builderId: string; workedOn: string; hours: string; note: string; createdBy: string },
+  ) {
     return trx
       .insertInto('time_entries')
       .values({
@@ -147,11 +150,21 @@ export class BuildsRepository {
   }
 
   lockTimeEntry(trx: Executor, bookingId: string, entryId: string) {
-    return trx.selectFrom('time_entries').selectAll().where('id', '=', entryId).where('booking_id', '=', bookingId).forUpdate().executeTakeFirst();
+    return trx
+      .selectFrom('time_entries')
+      .selectAll()
+      .where('id', '=', entryId)
+      .where('booking_id', '=', bookingId)
+      .forUpdate()
+      .executeTakeFirst();
   }
 
   updateTimeEntry(trx: Executor, entryId: string, values: { worked_on: string; hours: string; note: string }) {
-    return trx.updateTable('time_entries').set({ ...values, updated_at: sql`now()` }).where('id', '=', entryId).executeTakeFirstOrThrow();
+    return trx
+      .updateTable('time_entries')
+      .set({ ...values, updated_at: sql`now()` })
+      .where('id', '=', entryId)
+      .executeTakeFirstOrThrow();
   }
 
   deleteTimeEntry(trx: Executor, entryId: string) {
@@ -165,7 +178,15 @@ export class BuildsRepository {
 
   insertIntakeItem(
     trx: Executor,
-    values: { bookingId: string; key: string; position: number; item: string; condition: 'working' | 'faulty'; note: string; recordedBy: string },
+    values: {
+      bookingId: string;
+      key: string;
+      position: number;
+      item: string;
+      condition: 'working' | 'faulty';
+      note: string;
+      recordedBy: string;
+    },
   ) {
     return trx
       .insertInto('intake_items')
@@ -218,7 +239,13 @@ export class BuildsRepository {
   }
 
   lockExtra(trx: Executor, bookingId: string, extraId: string) {
-    return trx.selectFrom('booking_extras').selectAll().where('id', '=', extraId).where('booking_id', '=', bookingId).forUpdate().executeTakeFirst();
+    return trx
+      .selectFrom('booking_extras')
+      .selectAll()
+      .where('id', '=', extraId)
+      .where('booking_id', '=', bookingId)
+      .forUpdate()
+      .executeTakeFirst();
   }
 
   decideExtra(trx: Executor, extraId: string, decision: Decision) {
@@ -239,7 +266,13 @@ export class BuildsRepository {
   }
 
   lockWaitingLayout(trx: Executor, bookingId: string) {
-    return trx.selectFrom('layout_approvals').selectAll().where('booking_id', '=', bookingId).where('status', '=', 'waiting').forUpdate().executeTakeFirst();
+    return trx
+      .selectFrom('layout_approvals')
+      .selectAll()
+      .where('booking_id', '=', bookingId)
+      .where('status', '=', 'waiting')
+      .forUpdate()
+      .executeTakeFirst();
   }
 
   decideLayout(trx: Executor, id: string, decision: Decision) {

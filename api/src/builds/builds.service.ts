@@ -57,7 +57,9 @@ export function assertLevelRule(
     }
     if (!reason?.trim()) throw new BadRequestException(`A reason for a builder below the level is required: ${why}.`);
   } else if (reason) {
-    throw new BadRequestException(`A reason for a builder below the level is only for a builder below the level the player chose; ${builder.name} meets it.`);
+    throw new BadRequestException(
+      `A reason for a builder below the level is only for a builder below the level the player chose; ${builder.name} meets it.`,
+    );
   }
   return below;
 }
@@ -215,7 +217,8 @@ export class BuildsService {
       });
       // State first, refund second, one transaction: a refused decline never leaves money refunded behind it.
       const deposit = (await this.builds.payments(trx, bookingId)).find((p) => p.kind === 'deposit' && p.status === 'paid');
-      const refunded = paid && deposit ? await this.payments.refundDeposit(trx, bookingId, actorOf(user), `Declined: ${reason.trim()}`) : null;
+      const refunded =
+        paid && deposit ? await this.payments.refundDeposit(trx, bookingId, actorOf(user), `Declined: ${reason.trim()}`) : null;
       if (deposit && !refunded) {
         throw new ConflictException(
           `The deposit of ${booking.reference} has no provider payment to refund automatically; refund it with the payment provider first, then decline.`,
@@ -256,7 +259,9 @@ export class BuildsService {
         throw new ConflictException(`Booking ${booking.reference} is ${stateWords(from)} and cannot move to ${stateWords(to)}${next}.`);
       }
       if (to === 'pedals_received' && (await this.builds.intakeItems(trx, bookingId)).length === 0) {
-        throw new ConflictException('Record the intake first (each pedal and the supply as working or faulty), then mark the pedals received.');
+        throw new ConflictException(
+          'Record the intake first (each pedal and the supply as working or faulty), then mark the pedals received.',
+        );
       }
       if (to === 'testing' && booking.awaiting_layout_approval) {
         throw new ConflictException(`Booking ${booking.reference} is waiting for the player's layout approval; testing starts after it.`);
@@ -292,7 +297,12 @@ export class BuildsService {
         const freed = await this.bench.releaseAfter(trx, bookingId, today);
         if (freed > 0) {
           const voice = await shopFormatOf(trx);
-          await this.history.note(trx, updated, user, `Released ${voice.hours(freed)} of bench time booked after ${dayWords(voice, today)}: the build reached ${stateWords(to)}.`);
+          await this.history.note(
+            trx,
+            updated,
+            user,
+            `Released ${voice.hours(freed)} of bench time booked after ${dayWords(voice, today)}: the build reached ${stateWords(to)}.`,
+          );
         }
       }
       if (to === 'ready') {
@@ -314,7 +324,8 @@ export class BuildsService {
         });
       }
       if (MAILED_STATES.includes(to)) {
-        const faulty = to === 'pedals_received' ? (await this.builds.intakeItems(trx, bookingId)).filter((i) => i.condition === 'faulty') : [];
+        const faulty =
+          to === 'pedals_received' ? (await this.builds.intakeItems(trx, bookingId)).filter((i) => i.condition === 'faulty') : [];
         await this.mail.enqueue(trx, {
           template: 'status-changed',
           to: booking.customer_email,
@@ -340,7 +351,9 @@ export class BuildsService {
       const booking = await this.builds.lockBooking(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');
       if (booking.state !== 'ready') {
-        throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; a balance can be waived once the build is ready.`);
+        throw new ConflictException(
+          `Booking ${booking.reference} is ${stateWords(booking.state)}; a balance can be waived once the build is ready.`,
+        );
       }
       if (booking.balance_waived_reason) throw new ConflictException(`The balance of ${booking.reference} is already waived.`);
       await this.builds.updateBooking(trx, bookingId, ['ready'], { balance_waived_reason: reason.trim() });

@@ -7,7 +7,9 @@ import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { CalendarFeedsService } from './calendar-feeds.service';
 
-const feedId = new ParseUUIDPipe({ exceptionFactory: () => new BadRequestException('This calendar link is not one the shop gave out; ask the shop for the current link.') });
+const feedId = new ParseUUIDPipe({
+  exceptionFactory: () => new BadRequestException('This calendar link is not one the shop gave out; ask the shop for the current link.'),
+});
 
 @ApiTags('calendar feeds')
 @Controller('calendar-feeds')
@@ -27,7 +29,9 @@ export class CalendarFeedsController {
   @Get('mine')
   @Roles('builder', 'owner')
   @ApiCookieAuth('lw_session')
-  @ApiOkResponse({ description: 'The secret link of the signed-in builder’s own bench feed (an empty list for an account without a bench).' })
+  @ApiOkResponse({
+    description: 'The secret link of the signed-in builder’s own bench feed (an empty list for an account without a bench).',
+  })
   mine(@CurrentUser() user: AuthUser): Promise<CalendarFeedLink[]> {
     return this.feeds.mine(user);
   }
@@ -46,8 +50,15 @@ export class CalendarFeedsController {
   @Get(':id/:token/bench.ics')
   @Public()
   @ApiProduces('text/calendar')
-  @ApiOkResponse({ description: 'The feed as iCalendar (RFC 5545): each scheduled build as an all-day event with reference, player, hours and a link to the build.' })
-  async calendar(@Param('id', feedId) id: string, @Param('token') token: string, @Res({ passthrough: true }) res: Response): Promise<string> {
+  @ApiOkResponse({
+    description:
+      'The feed as iCalendar (RFC 5545): each scheduled build as an all-day event with reference, player, hours and a link to the build.',
+  })
+  async calendar(
+    @Param('id', feedId) id: string,
+    @Param('token') token: string,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<string> {
     const text = await this.feeds.calendar(id, token);
     // Set only on success, so a refused link still answers its 404 as JSON in words.
     res.setHeader('Content-Type', 'text/calendar; charset=utf-8');

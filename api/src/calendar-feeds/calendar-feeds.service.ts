@@ -81,7 +81,9 @@ export class CalendarFeedsService {
     const expected = feed ? Buffer.from(this.tokenFor(feed.id, feed.generation)) : null;
     const given = Buffer.from(token);
     if (!feed || !expected || expected.length !== given.length || !timingSafeEqual(expected, given)) {
-      throw new NotFoundException('There is no calendar at this address: the link may have been replaced. Ask the owner for the current one.');
+      throw new NotFoundException(
+        'There is no calendar at this address: the link may have been replaced. Ask the owner for the current one.',
+      );
     }
     const shop = await this.feeds.shop();
     const builds = await this.feeds.builds(feed.builder_id, addDays(todayIn(shop.timezone), -PAST_DAYS));

@@ -1,3 +1,4 @@
+/* eslint-disable @typescript-eslint/no-explicit-any -- walks the OpenAPI document as JSON; its operation and schema objects are open-ended by the specification */
 import { INestApplication, RequestMethod, SetMetadata } from '@nestjs/common';
 import { GUARDS_METADATA, METHOD_METADATA, PATH_METADATA } from '@nestjs/common/constants';
 import { ModulesContainer } from '@nestjs/core';
@@ -41,7 +42,12 @@ const methodNames: Partial<Record<RequestMethod, string>> = {
 };
 
 const joinPath = (...parts: string[]) =>
-  '/' + parts.map((p) => p.replace(/^\/+|\/+$/g, '')).filter(Boolean).join('/').replace(/:(\w+)/g, '{$1}');
+  '/' +
+  parts
+    .map((p) => p.replace(/^\/+|\/+$/g, ''))
+    .filter(Boolean)
+    .join('/')
+    .replace(/:(\w+)/g, '{$1}');
 
 /** "get /api/bookings/{id}" → facts, for every handler of every controller in the app. */
 function routeFacts(app: INestApplication, prefix: string): Map<string, RouteFacts> {
@@ -60,7 +66,10 @@ function routeFacts(app: INestApplication, prefix: string): Map<string, RouteFac
         const method = methodNames[Reflect.getMetadata(METHOD_METADATA, handler) as RequestMethod];
         const handlerPaths = Reflect.getMetadata(PATH_METADATA, handler) as string | string[] | undefined;
         if (!method || handlerPaths === undefined) continue;
-        const guards = [...(Reflect.getMetadata(GUARDS_METADATA, controller) ?? []), ...(Reflect.getMetadata(GUARDS_METADATA, handler) ?? [])];
+        const guards = [
+          ...(Reflect.getMetadata(GUARDS_METADATA, controller) ?? []),
+          ...(Reflect.getMetadata(GUARDS_METADATA, handler) ?? []),
+        ];
         const route: RouteFacts = {
           isPublic: !!first<boolean>(IS_PUBLIC_KEY, handler, controller),
           roles: !!first<string[]>(ROLES_KEY, handler, controller)?.length,
@@ -70,7 +79,8 @@ function routeFacts(app: INestApplication, prefix: string): Map<string, RouteFac
           answer: Reflect.getMetadata(RESPONSE_SCHEMA_KEY, handler),
           produces: Reflect.getMetadata(DECORATORS.API_PRODUCES, handler),
         };
-        for (const c of controllerPaths) for (const h of ([] as string[]).concat(handlerPaths)) facts.set(`${method} ${joinPath(prefix, c, h)}`, route);
+        for (const c of controllerPaths)
+          for (const h of ([] as string[]).concat(handlerPaths)) facts.set(`${method} ${joinPath(prefix, c, h)}`, route);
       }
     }
   }
@@ -89,17 +99,28 @@ function codesFor(method: string, path: string, operation: Record<string, any>, 
   if (route?.throttled) codes.add('too_many_attempts');
   if (operation.requestBody) {
     const json = 'application/json' in (operation.requestBody.content ?? {});
-    (['validation_failed', 'payload_too_large', ...(json ? ['invalid_json', 'body_not_object', 'body_unreadable', 'body_too_deep', 'invalid_unicode', 'value_not_storable'] : [])] as ErrorCode[]).forEach((c) => codes.add(c));
+    (
+      [
+        'validation_failed',
+        'payload_too_large',
+        ...(json ? ['invalid_json', 'body_not_object', 'body_unreadable', 'body_too_deep', 'invalid_unicode', 'value_not_storable'] : []),
+      ] as ErrorCode[]
+    ).forEach((c) => codes.add(c));
   }
   const parameters: Array<{ in: string }> = operation.parameters ?? [];
   if (parameters.some((p) => p.in === 'query')) codes.add('validation_failed');
-  if (parameters.some((p) => p.in === 'path') || /\{\w+\}/.test(path)) ['invalid_id', 'not_found'].forEach((c) => codes.add(c as ErrorCode));
+  if (parameters.some((p) => p.in === 'path') || /\{\w+\}/.test(path))
+    ['invalid_id', 'not_found'].forEach((c) => codes.add(c as ErrorCode));
   return codes;
 }
 
 const errorAnswer = (codes: ErrorCode[]) => ({
   'application/json': {
-    schema: openApiSchema(apiErrorBodySchema.extend({ code: z.enum(codes as [ErrorCode, ...ErrorCode[]]).describe('Stable: branch on this, never on the message.') })),
+    schema: openApiSchema(
+      apiErrorBodySchema.extend({
+        code: z.enum(codes as [ErrorCode, ...ErrorCode[]]).describe('Stable: branch on this, never on the message.'),
+      }),
+    ),
   },
 });
 
@@ -119,7 +140,9 @@ function documentErrors(document: OpenAPIObject, facts: Map<string, RouteFacts>)
       }
       operation.responses ??= {};
       // A status the route documented itself (`@ApiTooManyRequestsResponse`…) carries its status's code.
-      for (const status of Object.keys(operation.responses).map(Number).filter((s) => s >= 400 && s < 500)) {
+      for (const status of Object.keys(operation.responses)
+        .map(Number)
+        .filter((s) => s >= 400 && s < 500)) {
         if (!byStatus.has(status)) byStatus.set(status, [defaultErrorCode(status)]);
       }
       for (const [status, codes] of [...byStatus].sort(([a], [b]) => a - b)) {
@@ -139,11 +162,14 @@ function documentAnswers(document: OpenAPIObject, facts: Map<string, RouteFacts>
   for (const [path, item] of Object.entries(document.paths)) {
     for (const [method, operation] of Object.entries(item as Record<string, any>)) {
       const route = facts.get(`${method} ${path}`);
-      const success = Object.entries(operation.responses ?? {}).find(([s]) => /^2/.test(s) && s !== '204')?.[1] as { content?: object } | undefined;
+      const success = Object.entries(operation.responses ?? {}).find(([s]) => /^2/.test(s) && s !== '204')?.[1] as
+        { content?: object } | undefined;
       if (!route || !success) continue;
       if (route.answer) success.content = { 'application/json': { schema: openApiResponseSchema(route.answer) } };
       else if (route.produces?.length)
-        success.content = Object.fromEntries(route.produces.map((type) => [type, { schema: { type: 'string', format: type.startsWith('text/') ? undefined : 'binary' } }]));
+        success.content = Object.fromEntries(
+          route.produces.map((type) => [type, { schema: { type: 'string', format: type.startsWith('text/') ? undefined : 'binary' } }]),
+        );
     }
   }
 }
@@ -158,11 +184,22 @@ export function buildApiDocument(app: INestApplication, prefix = 'api'): OpenAPI
     app,
     new DocumentBuilder()
       .setTitle('Loomwright API')
-      .setDescription('Quotes, bookings, deposits and bench planning for a pedalboard shop. Every error answer carries a stable `code` from one list; branch on it, not on the message.')
+      .setDescription(
+        'Quotes, bookings, deposits and bench planning for a pedalboard shop. Every error answer carries a stable `code` from one list; branch on it, not on the message.',
+      )
       .setVersion('0.1.0')
       .setLicense('Proprietary: the shop’s own', 'https://shop.example/terms')
       .addServer('/', 'This server: every path starts with /api')
-      .addCookieAuth(SESSION_COOKIE, { type: 'apiKey', in: 'cookie', name: SESSION_COOKIE, description: 'The httpOnly session cookie set by sign-in, sign-up and the link routes.' }, SESSION_COOKIE)
+      .addCookieAuth(
+        SESSION_COOKIE,
+        {
+          type: 'apiKey',
+          in: 'cookie',
+          name: SESSION_COOKIE,
+          description: 'The httpOnly session cookie set by sign-in, sign-up and the link routes.',
+        },
+        SESSION_COOKIE,
+      )
       .addSecurityRequirements(SESSION_COOKIE)
       .build(),
   );
@@ -178,4 +215,3 @@ export function buildApiDocument(app: INestApplication, prefix = 'api'): OpenAPI
   documentAnswers(document, facts);
   return document;
 }
-

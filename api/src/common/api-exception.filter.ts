@@ -59,6 +59,9 @@ export class ApiExceptionFilter implements ExceptionFilter {
     }
     if (error instanceof HttpException) return { status: error.getStatus(), response: error.getResponse() };
     this.logger.error(error instanceof Error ? error.message : String(error), error instanceof Error ? error.stack : undefined);
-    return { status: HttpStatus.INTERNAL_SERVER_ERROR, response: errorResponse('internal_error' satisfies ErrorCode, 'The shop’s server had a problem; please try again in a moment.') };
+    return {
+      status: HttpStatus.INTERNAL_SERVER_ERROR,
+      response: errorResponse('internal_error' satisfies ErrorCode, 'The shop’s server had a problem; please try again in a moment.'),
+    };
   }
 }

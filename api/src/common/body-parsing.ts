@@ -36,7 +36,13 @@ export function applyBodyParsing(app: INestApplication): void {
       if (isBareJsonValue(error.body)) {
         sendError(req, res, 400, 'body_not_object', requestWords.bodyNotAnObject);
       } else {
-        sendError(req, res, 400, 'invalid_json', 'The request body is not valid JSON; check its quotes, commas and brackets, and send it again.');
+        sendError(
+          req,
+          res,
+          400,
+          'invalid_json',
+          'The request body is not valid JSON; check its quotes, commas and brackets, and send it again.',
+        );
       }
       return;
     }
@@ -46,7 +52,13 @@ export function applyBodyParsing(app: INestApplication): void {
     }
     if (error && typeof error.status === 'number' && error.status >= 400 && error.status < 500) {
       // Express's parser says 415 for an unknown charset, 400 for a body it cannot decode.
-      sendError(req, res, error.status, error.status === 415 ? 'unsupported_media_type' : 'body_unreadable', 'The request body could not be read; check its format and send it again.');
+      sendError(
+        req,
+        res,
+        error.status,
+        error.status === 415 ? 'unsupported_media_type' : 'body_unreadable',
+        'The request body could not be read; check its format and send it again.',
+      );
       return;
     }
     next(error);

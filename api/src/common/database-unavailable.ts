@@ -13,7 +13,8 @@ const networkCodes = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EHOSTU
 const unavailableStates = new Set(['57P01', '57P02', '57P03', '53300']);
 
 /** What node-postgres says when a connection dies or cannot be made in time (not coded). */
-const poolMessages = /Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error|Connection ended unexpectedly|the database system is (starting up|shutting down|in recovery mode)/i;
+const poolMessages =
+  /Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error|Connection ended unexpectedly|the database system is (starting up|shutting down|in recovery mode)/i;
 
 /** True when an error means the database is out of reach, as opposed to a bad query or bad input. */
 export function isDatabaseUnavailable(error: unknown, depth = 0): boolean {

@@ -11,7 +11,10 @@ const isErrorCode = (value: unknown): value is ErrorCode => typeof value === 'st
 
 type FieldIssue = { path: string; message: string };
 const isIssue = (value: unknown): value is FieldIssue =>
-  !!value && typeof value === 'object' && typeof (value as FieldIssue).path === 'string' && typeof (value as FieldIssue).message === 'string';
+  !!value &&
+  typeof value === 'object' &&
+  typeof (value as FieldIssue).path === 'string' &&
+  typeof (value as FieldIssue).message === 'string';
 
 /**
  * The one error body of the API, `{ statusCode, code, message, details?, issues?, requestId? }`, from what
@@ -32,7 +35,14 @@ export function errorBody(status: number, response: unknown, req?: Request): Api
   const lines = Array.isArray(raw) ? raw.map(String) : [];
   const message = typeof raw === 'string' && raw ? raw : lines.length > 0 ? lines.join('; ') : fallbackWords(status);
   const requestId = requestIdOf(req);
-  return { statusCode: status, code, message, ...(lines.length > 0 && { details: lines }), ...(issues?.length && { issues }), ...(requestId && { requestId }) };
+  return {
+    statusCode: status,
+    code,
+    message,
+    ...(lines.length > 0 && { details: lines }),
+    ...(issues?.length && { issues }),
+    ...(requestId && { requestId }),
+  };
 }
 
 function fallbackWords(status: number): string {

@@ -8,8 +8,8 @@ export type PaperSize = 'LETTER' | 'A4';
  * (US, CA, MX, the Philippines, Chile, Colombia, Venezuela and others) and A4 for the rest of the
  * world ("001"). The names are pdfkit's page sizes.
  */
-const paperSizes = (measurementData as { supplemental: { measurementData: { paperSize: Record<string, string> } } }).supplemental.measurementData
-  .paperSize;
+const paperSizes = (measurementData as { supplemental: { measurementData: { paperSize: Record<string, string> } } }).supplemental
+  .measurementData.paperSize;
 
 export function paperSizeFor(countryCode: string | null | undefined): PaperSize {
   const size = paperSizes[(countryCode ?? '').trim().toUpperCase()] ?? paperSizes['001'];

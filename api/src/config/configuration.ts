@@ -15,10 +15,25 @@ const environmentSchema = z.object({
   DATABASE_URL: z.string().default('postgres://postgres@127.0.0.1:54329/loomwright'),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
   JWT_SECRET: z.string().min(16).default(DEVELOPMENT_DEFAULTS.JWT_SECRET),
-  SESSION_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
+  SESSION_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(30),
   AUTH_THROTTLE_LIMIT: z.coerce.number().int().min(1).max(10_000).default(10),
-  AUTH_THROTTLE_SECONDS: z.coerce.number().int().min(1).max(24 * 3600).default(60),
-  PASSWORD_RESET_MINUTES: z.coerce.number().int().min(5).max(24 * 60).default(60),
+  AUTH_THROTTLE_SECONDS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 3600)
+    .default(60),
+  PASSWORD_RESET_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(5)
+    .max(24 * 60)
+    .default(60),
   STAFF_INVITE_DAYS: z.coerce.number().int().min(1).max(30).default(7),
   STRIPE_SECRET_KEY: z.string().default(DEVELOPMENT_DEFAULTS.STRIPE_SECRET_KEY),
   STRIPE_WEBHOOK_SECRET: z.string().default(DEVELOPMENT_DEFAULTS.STRIPE_WEBHOOK_SECRET),
@@ -30,7 +45,12 @@ const environmentSchema = z.object({
   PAYMENT_METHOD_TYPES: z
     .string()
     .default('card,us_bank_account')
-    .transform((v) => v.split(',').map((t) => t.trim()).filter(Boolean))
+    .transform((v) =>
+      v
+        .split(',')
+        .map((t) => t.trim())
+        .filter(Boolean),
+    )
     .pipe(z.array(z.string().regex(/^[a-z_]+$/, 'each payment method type is a lower-case name such as card')).min(1)),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: port(2525),
@@ -47,7 +67,10 @@ const environmentSchema = z.object({
   // Where photos live: 's3' (any S3-compatible bucket; several API replicas share it) or 'disk'
   // (UPLOADS_DIR, one machine only).
   PHOTO_STORAGE: z.enum(['disk', 's3']).default('disk'),
-  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'an S3 bucket name: 3-63 lower-case letters, digits, dots and hyphens').default('loomwright-photos'),
+  S3_BUCKET: z
+    .string()
+    .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'an S3 bucket name: 3-63 lower-case letters, digits, dots and hyphens')
+    .default('loomwright-photos'),
   S3_ENDPOINT: z.string().url().optional(),
   S3_REGION: z.string().min(1).default('us-east-1'),
   S3_ACCESS_KEY_ID: z.string().optional(),
@@ -62,10 +85,16 @@ const environmentSchema = z.object({
     .default('')
     .transform((list, ctx) => {
       const origins: string[] = [];
-      for (const item of list.split(',').map((s) => s.trim()).filter(Boolean)) {
+      for (const item of list
+        .split(',')
+        .map((s) => s.trim())
+        .filter(Boolean)) {
         const origin = URL.canParse(item) ? new URL(item).origin : 'null';
         if (origin === 'null' || origin !== item.replace(/\/$/, '')) {
-          ctx.addIssue({ code: 'custom', message: `"${item}" is not an origin; write each as scheme://host[:port], e.g. https://shop.example` });
+          ctx.addIssue({
+            code: 'custom',
+            message: `"${item}" is not an origin; write each as scheme://host[:port], e.g. https://shop.example`,
+          });
         } else origins.push(origin);
       }
       return origins;
@@ -93,15 +122,21 @@ const environmentSchema = z.object({
       if (v === 'true' || v === 'false') return v === 'true';
       if (/^\d+$/.test(v)) return Number(v);
       const names = ['loopback', 'linklocal', 'uniquelocal'];
-      const bad = v.split(',').map((s) => s.trim()).filter((item) => {
-        if (names.includes(item)) return false;
-        const [address = '', bits, ...rest] = item.split('/');
-        const family = isIP(address);
-        if (!family || rest.length) return true;
-        return bits !== undefined && !(/^\d+$/.test(bits) && Number(bits) <= (family === 4 ? 32 : 128));
-      });
+      const bad = v
+        .split(',')
+        .map((s) => s.trim())
+        .filter((item) => {
+          if (names.includes(item)) return false;
+          const [address = '', bits, ...rest] = item.split('/');
+          const family = isIP(address);
+          if (!family || rest.length) return true;
+          return bits !== undefined && !(/^\d+$/.test(bits) && Number(bits) <= (family === 4 ? 32 : 128));
+        });
       if (bad.length) {
-        ctx.addIssue({ code: 'custom', message: `"${bad.join('", "')}" is not a proxy address; use false, a hop count (e.g. 1), or addresses/CIDR ranges such as 10.0.0.0/8 or loopback` });
+        ctx.addIssue({
+          code: 'custom',
+          message: `"${bad.join('", "')}" is not a proxy address; use false, a hop count (e.g. 1), or addresses/CIDR ranges such as 10.0.0.0/8 or loopback`,
+        });
       }
       return v;
     }),

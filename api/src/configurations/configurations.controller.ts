@@ -56,7 +56,11 @@ export class ConfigurationsController {
   @Patch(':id')
   @ApiOkResponse({ description: 'Renamed, or saved with changes.' })
   @ApiZodBody(updateConfigurationSchema)
-  update(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string, @Body(new ZodValidationPipe(updateConfigurationSchema)) body: UpdateConfigurationInput) {
+  update(
+    @CurrentUser() user: AuthUser,
+    @Param('id', configurationIdPipe) id: string,
+    @Body(new ZodValidationPipe(updateConfigurationSchema)) body: UpdateConfigurationInput,
+  ) {
     return this.configurations.update(user, id, body);
   }
 
@@ -64,7 +68,11 @@ export class ConfigurationsController {
   @Post(':id/duplicate')
   @ApiCreatedResponse({ description: 'A copy under the name given, or "<name> (copy)".' })
   @ApiZodBody(duplicateConfigurationSchema)
-  duplicate(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string, @Body(new ZodValidationPipe(duplicateConfigurationSchema)) body: DuplicateConfigurationInput) {
+  duplicate(
+    @CurrentUser() user: AuthUser,
+    @Param('id', configurationIdPipe) id: string,
+    @Body(new ZodValidationPipe(duplicateConfigurationSchema)) body: DuplicateConfigurationInput,
+  ) {
     return this.configurations.duplicate(user, id, body.name);
   }
 
@@ -101,7 +109,13 @@ export class ConfigurationLinksController {
   @Get(':code')
   @ApiOkResponse({ description: '{ configuration } the code stands for.' })
   open(@Param('code') code: string) {
-    if (!SHORT_LINK_CODE.test(code)) throw new BadRequestException(errorResponse('invalid_id', 'This link is not complete: a shared board link ends in 6 to 16 letters and digits, as in /c/Ab3dE9xQ.'));
+    if (!SHORT_LINK_CODE.test(code))
+      throw new BadRequestException(
+        errorResponse(
+          'invalid_id',
+          'This link is not complete: a shared board link ends in 6 to 16 letters and digits, as in /c/Ab3dE9xQ.',
+        ),
+      );
     return this.configurations.openLink(code);
   }
 }

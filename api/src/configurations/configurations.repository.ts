@@ -11,7 +11,13 @@ export class ConfigurationsRepository {
   constructor(private readonly db: Database) {}
 
   listFor(ownerId: string, trx: Executor = this.db) {
-    return trx.selectFrom('saved_configurations').select(columns).where('owner_id', '=', ownerId).orderBy('updated_at', 'desc').orderBy('name').execute();
+    return trx
+      .selectFrom('saved_configurations')
+      .select(columns)
+      .where('owner_id', '=', ownerId)
+      .orderBy('updated_at', 'desc')
+      .orderBy('name')
+      .execute();
   }
 
   findFor(ownerId: string, id: string, trx: Executor = this.db) {
@@ -28,7 +34,12 @@ export class ConfigurationsRepository {
   }
 
   namesFor(ownerId: string, trx: Executor = this.db) {
-    return trx.selectFrom('saved_configurations').select('name').where('owner_id', '=', ownerId).execute().then((rows) => rows.map((r) => r.name));
+    return trx
+      .selectFrom('saved_configurations')
+      .select('name')
+      .where('owner_id', '=', ownerId)
+      .execute()
+      .then((rows) => rows.map((r) => r.name));
   }
 
   insert(trx: Executor, ownerId: string, name: string, configuration: RigConfiguration) {
@@ -54,7 +65,12 @@ export class ConfigurationsRepository {
   }
 
   delete(trx: Executor, ownerId: string, id: string) {
-    return trx.deleteFrom('saved_configurations').where('owner_id', '=', ownerId).where('id', '=', id).executeTakeFirst().then((r) => Number(r.numDeletedRows));
+    return trx
+      .deleteFrom('saved_configurations')
+      .where('owner_id', '=', ownerId)
+      .where('id', '=', id)
+      .executeTakeFirst()
+      .then((r) => Number(r.numDeletedRows));
   }
 
   /** Serialises one player's writes, so the count limit and the name check see each other. */

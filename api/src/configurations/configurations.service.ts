@@ -71,7 +71,8 @@ export class ConfigurationsService {
     return this.write(input.name, () =>
       this.db.transaction().execute(async (trx) => {
         await this.repo.lockOwner(trx, user.id);
-        if ((await this.repo.countFor(user.id, trx)) >= MAX_SAVED_CONFIGURATIONS) throw new ConflictException(configurationMessages.tooMany);
+        if ((await this.repo.countFor(user.id, trx)) >= MAX_SAVED_CONFIGURATIONS)
+          throw new ConflictException(configurationMessages.tooMany);
         return viewOf(await this.repo.insert(trx, user.id, input.name, configuration));
       }),
     );
@@ -134,7 +135,8 @@ export class ConfigurationsService {
     try {
       return await run();
     } catch (error) {
-      if ((error as { code?: string; constraint?: string }).code === UNIQUE_VIOLATION) throw new ConflictException(configurationMessages.nameTaken(name));
+      if ((error as { code?: string; constraint?: string }).code === UNIQUE_VIOLATION)
+        throw new ConflictException(configurationMessages.nameTaken(name));
       throw error;
     }
   }

@@ -2,7 +2,14 @@ import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Controller, Get, Param, Query } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
-import { listCustomersQuerySchema, type AuthUser, type CustomerDetail, type CustomerPage, type ListCustomersQuery, requestWords } from '@loomwright/shared';
+import {
+  listCustomersQuerySchema,
+  type AuthUser,
+  type CustomerDetail,
+  type CustomerPage,
+  type ListCustomersQuery,
+  requestWords,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { CustomersService } from './customers.service';
@@ -21,7 +28,10 @@ export class CustomersController {
   @Get()
   @ApiOkResponse({ description: 'A page of customers with their build counts (server-side sort and search).' })
   @ApiZodQuery(listCustomersQuerySchema)
-  list(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(listCustomersQuerySchema)) query: ListCustomersQuery): Promise<CustomerPage> {
+  list(
+    @CurrentUser() user: AuthUser,
+    @Query(new ZodValidationPipe(listCustomersQuerySchema)) query: ListCustomersQuery,
+  ): Promise<CustomerPage> {
     return this.customers.list(user, query);
   }
 
@@ -29,7 +39,8 @@ export class CustomersController {
   @ApiZodResponse(responseSchemas.customerDetailSchema)
   @Get(':id')
   @ApiOkResponse({
-    description: 'One customer with their builds, payments and the messages sent to them. A builder sees the e-mail, phone and addresses only of customers with a build assigned to them.',
+    description:
+      'One customer with their builds, payments and the messages sent to them. A builder sees the e-mail, phone and addresses only of customers with a build assigned to them.',
   })
   detail(@CurrentUser() user: AuthUser, @Param('id', uuidParam(requestWords.notAnId('a customer'))) id: string): Promise<CustomerDetail> {
     return this.customers.detail(user, id);

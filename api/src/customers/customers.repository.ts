@@ -29,7 +29,9 @@ export class CustomersRepository {
       sql<string>`count(b.id)::text`.as('build_count'),
       sql<string>`count(b.id) filter (where b.state in (${sql.join(ACTIVE)}))::text`.as('active_build_count'),
       sql<Date | null>`max(b.created_at)`.as('last_booking_at'),
-      sql<boolean>`coalesce(bool_or(b.builder_id in (select id from builders where user_id = ${viewerUserId})), false)`.as('builds_of_viewer'),
+      sql<boolean>`coalesce(bool_or(b.builder_id in (select id from builders where user_id = ${viewerUserId})), false)`.as(
+        'builds_of_viewer',
+      ),
     ]);
   }
 
@@ -42,7 +44,9 @@ export class CustomersRepository {
     let q = trx.selectFrom('users as u').where('u.role', '=', 'customer');
     if (search?.trim()) {
       const pattern = `%${search.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      q = q.where((eb) => (searchEmail ? eb.or([eb('u.name', 'ilike', pattern), eb(sql`u.email::text`, 'ilike', pattern)]) : eb('u.name', 'ilike', pattern)));
+      q = q.where((eb) =>
+        searchEmail ? eb.or([eb('u.name', 'ilike', pattern), eb(sql`u.email::text`, 'ilike', pattern)]) : eb('u.name', 'ilike', pattern),
+      );
     }
     return q;
   }
@@ -87,7 +91,9 @@ export class CustomersRepository {
         .execute();
       ids = found.map((r) => r.id);
     }
-    const counted = await this.matching(trx, opts.search, opts.searchEmail).select(sql<string>`count(*)::text`.as('total')).executeTakeFirstOrThrow();
+    const counted = await this.matching(trx, opts.search, opts.searchEmail)
+      .select(sql<string>`count(*)::text`.as('total'))
+      .executeTakeFirstOrThrow();
     const total = Number(counted.total);
     if (ids.length === 0) return { rows: [], total };
     const found = await this.summaries(trx, viewerUserId).where('u.id', 'in', ids).execute();
@@ -97,9 +103,7 @@ export class CustomersRepository {
   }
 
   summary(trx: Executor, viewerUserId: string, id: string) {
-    return this.summaries(trx, viewerUserId)
-      .where('u.id', '=', id)
-      .executeTakeFirst();
+    return this.summaries(trx, viewerUserId).where('u.id', '=', id).executeTakeFirst();
   }
 
   builds(trx: Executor, customerId: string) {

@@ -43,7 +43,13 @@ export class CustomersService {
     ]);
     return {
       ...this.toSummary(row, viewer),
-      builds: builds.map((b) => ({ id: b.id, reference: b.reference, state: b.state, benchDate: b.bench_date, createdAt: iso(b.created_at) })),
+      builds: builds.map((b) => ({
+        id: b.id,
+        reference: b.reference,
+        state: b.state,
+        benchDate: b.bench_date,
+        createdAt: iso(b.created_at),
+      })),
       payments: payments.map((p) => ({
         id: p.id,
         bookingId: p.booking_id,

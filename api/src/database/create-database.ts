@@ -29,7 +29,8 @@ export function createPool(url: string, poolMax = 10): Pool {
  * pg-cursor lets Kysely's `.stream()` read a large result in chunks (the CSV exports), so 100,000
  * rows never sit in memory at once.
  */
-export const databaseOnPool = (pool: Pool): Database => new Kysely<DB>({ dialect: new PostgresDialect({ pool, cursor: Cursor }) }) as Database;
+export const databaseOnPool = (pool: Pool): Database =>
+  new Kysely<DB>({ dialect: new PostgresDialect({ pool, cursor: Cursor }) }) as Database;
 
 export function createDatabase(url: string, poolMax = 10): Database {
   return databaseOnPool(createPool(url, poolMax));

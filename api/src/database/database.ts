@@ -1,14 +1,6 @@
 import type { ColumnType, Generated, JSONColumnType } from 'kysely';
 import { Kysely } from 'kysely';
-import type {
-  BookingState,
-  BuilderLevel,
-  EstimateResult,
-  PriceBook,
-  RigConfiguration,
-  UserRole,
-  WeeklyHours,
-} from '@loomwright/shared';
+import type { BookingState, BuilderLevel, EstimateResult, PriceBook, RigConfiguration, UserRole, WeeklyHours } from '@loomwright/shared';
 
 /**
  * The typed shape of every table (see migrations/ for the constraints behind them).

@@ -20,7 +20,12 @@ export class EstimatesService {
     try {
       return estimateRig(config, book, { version });
     } catch (error) {
-      if (error instanceof EstimateInputError) throw new BadRequestException({ code: 'validation_failed', message: [error.message], issues: [{ path: error.field, message: error.message }] });
+      if (error instanceof EstimateInputError)
+        throw new BadRequestException({
+          code: 'validation_failed',
+          message: [error.message],
+          issues: [{ path: error.field, message: error.message }],
+        });
       throw error;
     }
   }

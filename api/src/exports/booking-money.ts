@@ -12,7 +12,13 @@ export function bookingMoney(b: OfficeBookingRow, shopCurrency: string): { curre
     currency,
     firmTotal: b.firm?.total ?? null,
     extras: b.extras.map((e) => ({ description: '', amount: e.amount, status: e.status })),
-    payments: b.payments.map((p) => ({ kind: p.kind, amount: p.amount, status: p.status, paidAt: iso(p.paid_at), refundedAt: iso(p.refunded_at) })),
+    payments: b.payments.map((p) => ({
+      kind: p.kind,
+      amount: p.amount,
+      status: p.status,
+      paidAt: iso(p.paid_at),
+      refundedAt: iso(p.refunded_at),
+    })),
     balanceWaived: b.balance_waived_reason !== null,
   });
   return { currency, money };

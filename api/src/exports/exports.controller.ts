@@ -21,7 +21,10 @@ export class ExportsController {
   @Get('bookings.csv')
   @ApiProduces('text/csv')
   @ApiZodQuery(dateRangeQuerySchema)
-  @ApiOkResponse({ description: 'Bookings requested from … to (shop days), one row each: state, customer, builder, bench dates, estimate, firm total and the money facts, quoted and recorded hours.' })
+  @ApiOkResponse({
+    description:
+      'Bookings requested from … to (shop days), one row each: state, customer, builder, bench dates, estimate, firm total and the money facts, quoted and recorded hours.',
+  })
   async bookings(@Query(range) query: DateRangeQuery, @Res() res: Response) {
     await sendCsv(res, await this.exports.open('bookings', query));
   }
@@ -30,7 +33,10 @@ export class ExportsController {
   @Get('payments.csv')
   @ApiProduces('text/csv')
   @ApiZodQuery(dateRangeQuerySchema)
-  @ApiOkResponse({ description: 'Money in and back from … to: each deposit and balance on the day it arrived, each refund (a negative amount) on the day it went back.' })
+  @ApiOkResponse({
+    description:
+      'Money in and back from … to: each deposit and balance on the day it arrived, each refund (a negative amount) on the day it went back.',
+  })
   async payments(@Query(range) query: DateRangeQuery, @Res() res: Response) {
     await sendCsv(res, await this.exports.open('payments', query));
   }

@@ -41,7 +41,11 @@ export class OfficeRepository {
   constructor(private readonly db: Database) {}
 
   shop(trx: Executor = this.db) {
-    return trx.selectFrom('shop_settings').select(['timezone', 'currency', 'country_code', 'name']).where('id', '=', 1).executeTakeFirstOrThrow();
+    return trx
+      .selectFrom('shop_settings')
+      .select(['timezone', 'currency', 'country_code', 'name'])
+      .where('id', '=', 1)
+      .executeTakeFirstOrThrow();
   }
 
   /** Bookings requested in the range, with what the money facts and the hours need. */
@@ -89,7 +93,16 @@ export class OfficeRepository {
         sql<Array<{ amount: string; status: 'proposed' | 'approved' | 'declined' }>>`coalesce((
           select json_agg(json_build_object('amount', e.amount::text, 'status', e.status))
           from booking_extras e where e.booking_id = b.id), '[]'::json)`.as('extras'),
-        sql<Array<{ kind: 'deposit' | 'balance'; amount: string; status: string; currency: string; paid_at: string | null; refunded_at: string | null }>>`coalesce((
+        sql<
+          Array<{
+            kind: 'deposit' | 'balance';
+            amount: string;
+            status: string;
+            currency: string;
+            paid_at: string | null;
+            refunded_at: string | null;
+          }>
+        >`coalesce((
           select json_agg(json_build_object('kind', p.kind, 'amount', p.amount::text, 'status', p.status, 'currency', trim(p.currency),
                                             'paid_at', p.paid_at, 'refunded_at', p.refunded_at) order by p.created_at)
           from payments p where p.booking_id = b.id), '[]'::json)`.as('payments'),
@@ -103,14 +116,16 @@ export class OfficeRepository {
    * as in the booking's money facts (status paid, or refunded after being paid).
    */
   moneyMovementsQuery(r: ShopRange, trx: Executor = this.db) {
-    return trx
-      .selectFrom(this.moneyMovements(r, trx).as('m'))
-      .selectAll()
-      .orderBy('m.at')
-      .orderBy('m.payment_id')
-      .orderBy('m.entry')
-      // paid_at and refunded_at are nullable columns, but the filters keep only rows that have them.
-      .$castTo<MoneyMovementRow>();
+    return (
+      trx
+        .selectFrom(this.moneyMovements(r, trx).as('m'))
+        .selectAll()
+        .orderBy('m.at')
+        .orderBy('m.payment_id')
+        .orderBy('m.entry')
+        // paid_at and refunded_at are nullable columns, but the filters keep only rows that have them.
+        .$castTo<MoneyMovementRow>()
+    );
   }
 
   /** The movements' money summed per calendar month of the shop, currency, entry and kind: the revenue report. */

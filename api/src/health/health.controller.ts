@@ -52,6 +52,11 @@ export class HealthController {
       ...(storageUp ? [] : ['the photo store does not answer']),
       ...(shuttingDown ? ['this process is shutting down'] : []),
     ];
-    return { status: ready ? 'ready' : 'not ready', db: dbUp ? 'up' : 'down', storage: storageUp ? 'up' : 'down', ...(reasons.length && { reasons }) };
+    return {
+      status: ready ? 'ready' : 'not ready',
+      db: dbUp ? 'up' : 'down',
+      storage: storageUp ? 'up' : 'down',
+      ...(reasons.length && { reasons }),
+    };
   }
 }

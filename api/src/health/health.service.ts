@@ -41,7 +41,9 @@ export class HealthService implements OnModuleDestroy, BeforeApplicationShutdown
       process.exit(1);
     }, shutdownTimeoutSeconds * 1000);
     this.watchdog.unref();
-    this.logger.log(`${signal}: readiness now answers 503; serving ${shutdownDelaySeconds} s more, then draining requests and jobs in flight`);
+    this.logger.log(
+      `${signal}: readiness now answers 503; serving ${shutdownDelaySeconds} s more, then draining requests and jobs in flight`,
+    );
     if (shutdownDelaySeconds > 0) await new Promise((resolve) => setTimeout(resolve, shutdownDelaySeconds * 1000));
   }
 

@@ -3,7 +3,15 @@ import { Body, Controller, HttpCode, Param, Post, Req, Res, UseGuards } from '@n
 import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
-import { acceptInvitationSchema, inviteStaffSchema, type AcceptInvitationInput, type AuthUser, type InvitationResent, type InviteStaffInput, requestWords } from '@loomwright/shared';
+import {
+  acceptInvitationSchema,
+  inviteStaffSchema,
+  type AcceptInvitationInput,
+  type AuthUser,
+  type InvitationResent,
+  type InviteStaffInput,
+  requestWords,
+} from '@loomwright/shared';
 import type { Request, Response } from 'express';
 import { AuthService } from '../auth/auth.service';
 import { CurrentUser } from '../auth/current-user.decorator';
@@ -37,7 +45,8 @@ export class InvitationsController {
   @Post(':builderId/resend')
   @HttpCode(201)
   @ApiCreatedResponse({
-    description: 'A fresh invitation link is mailed to a builder who has not joined yet; the link sent before stops working. 409 in words once they have joined.',
+    description:
+      'A fresh invitation link is mailed to a builder who has not joined yet; the link sent before stops working. 409 in words once they have joined.',
   })
   resend(
     @Param('builderId', uuidParam(requestWords.notAnId('a builder'))) builderId: string,
@@ -54,7 +63,11 @@ export class InvitationsController {
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is set and the session cookie is set.' })
   @ApiZodBody(acceptInvitationSchema)
-  async accept(@Body(new ZodValidationPipe(acceptInvitationSchema)) body: AcceptInvitationInput, @Req() req: Request, @Res({ passthrough: true }) res: Response) {
+  async accept(
+    @Body(new ZodValidationPipe(acceptInvitationSchema)) body: AcceptInvitationInput,
+    @Req() req: Request,
+    @Res({ passthrough: true }) res: Response,
+  ) {
     const user = await this.invitations.accept(body.token, body.password);
     await this.auth.startSession(res, user, req);
     return { user };

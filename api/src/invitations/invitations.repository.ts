@@ -24,7 +24,15 @@ export class InvitationsRepository {
     return trx
       .selectFrom('builders')
       .innerJoin('users', 'users.id', 'builders.user_id')
-      .select(['builders.id', 'builders.level', 'builders.hourly_rate', 'users.id as user_id', 'users.email', 'users.name', 'users.password_hash'])
+      .select([
+        'builders.id',
+        'builders.level',
+        'builders.hourly_rate',
+        'users.id as user_id',
+        'users.email',
+        'users.name',
+        'users.password_hash',
+      ])
       .where('builders.id', '=', builderId)
       .forUpdate('builders')
       .executeTakeFirst();

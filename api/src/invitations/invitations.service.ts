@@ -1,6 +1,14 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException, OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { authMessages, errorResponse, type AuthUser, type InvitationCreated, type InvitationResent, type InviteStaffInput, type WeeklyHours } from '@loomwright/shared';
+import {
+  authMessages,
+  errorResponse,
+  type AuthUser,
+  type InvitationCreated,
+  type InvitationResent,
+  type InviteStaffInput,
+  type WeeklyHours,
+} from '@loomwright/shared';
 import { AuthTokensService } from '../auth/auth-tokens.service';
 import { hashPassword } from '../auth/password';
 import type { AppConfig } from '../config/configuration';
@@ -40,10 +48,14 @@ export class InvitationsService implements OnModuleInit {
       const resent = !!existing;
       if (existing) {
         if (existing.role !== 'builder' || existing.password_hash) {
-          throw new ConflictException(errorResponse('email_taken', 'Someone already has an account with this e-mail; invite a different address.'));
+          throw new ConflictException(
+            errorResponse('email_taken', 'Someone already has an account with this e-mail; invite a different address.'),
+          );
         }
         const builder = await this.invitations.updateBuilder(existing.id, input, trx);
-        builderId = builder?.id ?? (await this.invitations.insertBuilder({ userId: existing.id, ...input, weeklyHours: DEFAULT_WEEKLY_HOURS }, trx)).id;
+        builderId =
+          builder?.id ??
+          (await this.invitations.insertBuilder({ userId: existing.id, ...input, weeklyHours: DEFAULT_WEEKLY_HOURS }, trx)).id;
         user = toAuthUser(existing);
       } else {
         const row = await this.users.create({ email: input.email, name: input.name, role: 'builder', passwordHash: null }, trx);
@@ -70,7 +82,9 @@ export class InvitationsService implements OnModuleInit {
       const row = await this.invitations.lockInvitedBuilder(builderId, trx);
       if (!row) throw new NotFoundException('There is no builder with that id on the team.');
       if (row.password_hash) {
-        throw new ConflictException(`${row.name} has already accepted the invitation and chosen a password, so there is nothing to resend.`);
+        throw new ConflictException(
+          `${row.name} has already accepted the invitation and chosen a password, so there is nothing to resend.`,
+        );
       }
       const link = await this.inviteLink(trx, row.user_id);
       await this.mail.enqueue(trx, {
@@ -101,7 +115,9 @@ export class InvitationsService implements OnModuleInit {
       throw new ConflictException(`${row.name} has already accepted this invitation and chosen a password, so there is nothing to resend.`);
     }
     if (row.email.toLowerCase() !== message.to.toLowerCase()) {
-      throw new ConflictException('This invitation was for an address the account no longer uses; invite the person again from the team page.');
+      throw new ConflictException(
+        'This invitation was for an address the account no longer uses; invite the person again from the team page.',
+      );
     }
     return { ...message.data, ...(await this.inviteLink(trx, row.id)) };
   }

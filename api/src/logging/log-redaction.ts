@@ -17,9 +17,26 @@ export const redactPaths = [
   'req.headers["stripe-signature"]',
   'res.headers["set-cookie"]',
   // Any object a service logs: passwords, tokens, secrets and card data, one or two levels down.
-  ...['password', 'newPassword', 'currentPassword', 'token', 'accessToken', 'refreshToken', 'secret', 'apiKey', 'authorization', 'cookie', 'card', 'cardNumber', 'cvc', 'cvv', 'expiry', 'iban', 'account', 'routing'].flatMap(
-    (key) => [key, `*.${key}`, `*.*.${key}`],
-  ),
+  ...[
+    'password',
+    'newPassword',
+    'currentPassword',
+    'token',
+    'accessToken',
+    'refreshToken',
+    'secret',
+    'apiKey',
+    'authorization',
+    'cookie',
+    'card',
+    'cardNumber',
+    'cvc',
+    'cvv',
+    'expiry',
+    'iban',
+    'account',
+    'routing',
+  ].flatMap((key) => [key, `*.${key}`, `*.*.${key}`]),
 ];
 
 /** Query parameters whose values are secrets (names compared without case). */
@@ -54,6 +71,10 @@ export function responseSerializer(res: { statusCode?: number; headers?: Record<
   const headers = res.headers ?? {};
   return {
     statusCode: res.statusCode,
-    headers: { 'content-type': headers['content-type'], 'content-length': headers['content-length'], 'x-request-id': headers['x-request-id'] },
+    headers: {
+      'content-type': headers['content-type'],
+      'content-length': headers['content-length'],
+      'x-request-id': headers['x-request-id'],
+    },
   };
 }

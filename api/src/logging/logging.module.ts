@@ -38,7 +38,8 @@ export function createHttpLogger(level: string): HttpLogger {
 export function httpLogging(httpLogger: HttpLogger) {
   return [
     httpLogger,
-    (req: IncomingMessage & { log?: Logger }, _res: ServerResponse, next: () => void) => storage.run(new Store(req.log ?? httpLogger.logger), next),
+    (req: IncomingMessage & { log?: Logger }, _res: ServerResponse, next: () => void) =>
+      storage.run(new Store(req.log ?? httpLogger.logger), next),
   ];
 }
 

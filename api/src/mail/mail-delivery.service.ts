@@ -116,7 +116,12 @@ export class MailDeliveryService {
         html: rendered.html,
         messageId: row.message_id,
         headers: { 'X-Loomwright-Template': row.template },
-        attachments: rendered.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: a.content, ...(a.encoding && { encoding: a.encoding }) })),
+        attachments: rendered.attachments.map((a) => ({
+          filename: a.filename,
+          contentType: a.contentType,
+          content: a.content,
+          ...(a.encoding && { encoding: a.encoding }),
+        })),
       });
     } catch (error) {
       const verdict = classifySmtpError(error);

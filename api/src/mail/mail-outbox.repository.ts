@@ -193,7 +193,11 @@ export class MailOutboxRepository {
           eb(
             'booking_id',
             'in',
-            eb.selectFrom('bookings').innerJoin('builders', 'builders.id', 'bookings.builder_id').select('bookings.id').where('builders.user_id', '=', builderUserId),
+            eb
+              .selectFrom('bookings')
+              .innerJoin('builders', 'builders.id', 'bookings.builder_id')
+              .select('bookings.id')
+              .where('builders.user_id', '=', builderUserId),
           ),
         ]),
       );

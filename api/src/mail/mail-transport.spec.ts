@@ -35,7 +35,13 @@ describe('classifySmtpError on real SMTP failures', () => {
   });
 
   const send = async (to: string, toPort = port) => {
-    const transport = nodemailer.createTransport({ host: '127.0.0.1', port: toPort, secure: false, socketTimeout: 800, connectionTimeout: 2_000 });
+    const transport = nodemailer.createTransport({
+      host: '127.0.0.1',
+      port: toPort,
+      secure: false,
+      socketTimeout: 800,
+      connectionTimeout: 2_000,
+    });
     try {
       await transport.sendMail({ from: 'bench@shop.example', to, subject: 'x', text: 'x' });
       return 'sent';

@@ -8,7 +8,9 @@ import {
   type ListMailQuery,
   type MailLogEntry,
   type MailLogPage,
-  type ResendMailInput, requestWords } from '@loomwright/shared';
+  type ResendMailInput,
+  requestWords,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodQuery } from '../common/zod-openapi';
@@ -33,8 +35,14 @@ export class MailController {
   @Post(':id/resend')
   @Roles('owner')
   @HttpCode(201)
-  @ApiZodBody(resendMailSchema.unwrap(), 'Optional; confirmPossibleDuplicate: true is required to resend a message whose outcome is unknown.')
-  @ApiCreatedResponse({ description: 'The new message; a single-use link in it is a fresh one. 409 in words when the outcome of the original is unknown and not confirmed.' })
+  @ApiZodBody(
+    resendMailSchema.unwrap(),
+    'Optional; confirmPossibleDuplicate: true is required to resend a message whose outcome is unknown.',
+  )
+  @ApiCreatedResponse({
+    description:
+      'The new message; a single-use link in it is a fresh one. 409 in words when the outcome of the original is unknown and not confirmed.',
+  })
   resend(
     @Param('id', uuidParam(requestWords.notAnId('a message in the mail log'))) id: string,
     @Body(new ZodValidationPipe(resendMailSchema)) body: ResendMailInput,

@@ -96,7 +96,8 @@ export class MailService {
     const linkKeys = singleUseLinkKeys[original.template];
     if (!linkKeys) return null;
     const renew = this.linkRenewers.get(original.template);
-    if (!renew) throw new ConflictException('This message carried a single-use link that cannot be renewed; ask the recipient to request a new one.');
+    if (!renew)
+      throw new ConflictException('This message carried a single-use link that cannot be renewed; ask the recipient to request a new one.');
     const data = { ...(original.data as Record<string, unknown>) };
     for (const key of linkKeys) delete data[key];
     return renew(trx, { userId: original.user_id, to: original.to_address, data });

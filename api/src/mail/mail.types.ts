@@ -207,7 +207,8 @@ export type MailTemplateData = {
   /** A staff note the writer chose to tell the player, word for word. */
   'shop-note': Recipient & BookingLink & { reference: string; note: string };
   /** A bank debit that failed after the checkout: the player is asked to pay again. */
-  'payment-failed': Recipient & BookingLink & { reference: string; amount: string; currency: string; reason: string; kind?: 'deposit' | 'balance' };
+  'payment-failed': Recipient &
+    BookingLink & { reference: string; amount: string; currency: string; reason: string; kind?: 'deposit' | 'balance' };
   /**
    * To the shop's owner at once: something about money needs a decision. `alert` is
    * refund-failed, dispute-opened, dispute-won, dispute-lost or outside-refund.
@@ -225,9 +226,11 @@ export type MailTemplateData = {
   /** The same, to the build's builder (or the shop's address when nobody is assigned). */
   'shop-ship-by-reminder': Recipient & { reference: string; playerName: string; shipBy: string; benchDate: string; backofficeUrl: string };
   /** A balance still unpaid some days after the board became ready (`readySince`, a calendar day). */
-  'balance-reminder': Recipient & BookingLink & { reference: string; balanceDue: string; currency: string; readySince: string; payUrl?: string };
+  'balance-reminder': Recipient &
+    BookingLink & { reference: string; balanceDue: string; currency: string; readySince: string; payUrl?: string };
   /** A checkout opened and not finished. */
-  'checkout-reminder': Recipient & BookingLink & { reference: string; kind: 'deposit' | 'balance'; amount: string; currency: string; payUrl?: string };
+  'checkout-reminder': Recipient &
+    BookingLink & { reference: string; kind: 'deposit' | 'balance'; amount: string; currency: string; payUrl?: string };
   /** An unpaid request closed after the shop's set number of days. */
   'request-expired': Recipient & { reference: string; days: number; configureUrl?: string };
   /** To the shop; the player is `name` (or `customerName`). */

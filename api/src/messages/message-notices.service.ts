@@ -50,13 +50,24 @@ export class MessageNoticesService {
           return 'skipped' as const;
         }
         const publicUrl = this.config.get('app', { infer: true }).publicUrl;
-        const lines = messages.map((m) => ({ author: m.author_name, body: m.body, at: new Date(m.created_at).toISOString(), photos: Number(m.photo_count) }));
+        const lines = messages.map((m) => ({
+          author: m.author_name,
+          body: m.body,
+          at: new Date(m.created_at).toISOString(),
+          photos: Number(m.photo_count),
+        }));
         let mail;
         if (notice.side === 'player') {
           mail = {
             to: people.customer_email,
             userId: people.customer_id,
-            data: { audience: 'player', name: people.customer_name, reference: people.reference, messages: lines, buildUrl: `${publicUrl}/builds/${people.id}` },
+            data: {
+              audience: 'player',
+              name: people.customer_name,
+              reference: people.reference,
+              messages: lines,
+              buildUrl: `${publicUrl}/builds/${people.id}`,
+            },
           };
         } else {
           const shop = await this.shop.profile();
@@ -73,8 +84,18 @@ export class MessageNoticesService {
             },
           };
         }
-        const row = await this.mail.enqueue(trx, { template: 'build-messages', bookingId: people.id, dedupeKey: `message-notice:${notice.id}`, ...mail });
-        await this.repository.settleNotice(trx, notice.id, { state: 'sent', message_count: messages.length, outbox_id: row?.id ?? null, settled_at: now });
+        const row = await this.mail.enqueue(trx, {
+          template: 'build-messages',
+          bookingId: people.id,
+          dedupeKey: `message-notice:${notice.id}`,
+          ...mail,
+        });
+        await this.repository.settleNotice(trx, notice.id, {
+          state: 'sent',
+          message_count: messages.length,
+          outbox_id: row?.id ?? null,
+          settled_at: now,
+        });
         return 'sent' as const;
       });
       if (!outcome) break;

@@ -21,7 +21,11 @@ export class MessagePhotosFilter implements ExceptionFilter {
     const said = exception.getResponse();
     const text = typeof said === 'string' ? said : (said as { message?: unknown }).message;
     if (text === 'Too many files' || text === 'Unexpected field') {
-      res.status(400).json(errorBody(400, errorResponse('bad_request', `${messageWords.tooManyPhotos(MESSAGE_MAX_PHOTOS)}, in the field "photos"`), req));
+      res
+        .status(400)
+        .json(
+          errorBody(400, errorResponse('bad_request', `${messageWords.tooManyPhotos(MESSAGE_MAX_PHOTOS)}, in the field "photos"`), req),
+        );
       return;
     }
     res.status(exception.getStatus()).json(errorBody(exception.getStatus(), said, req));

@@ -17,7 +17,9 @@ export class MessagesController {
 
   @ApiOperation({ summary: 'A build’s messages between player and shop' })
   @Get('bookings/:id/messages')
-  @ApiOkResponse({ description: "The build's conversation, oldest first; reading it marks it read for the reader's side (the player, or the shop)." })
+  @ApiOkResponse({
+    description: "The build's conversation, oldest first; reading it marks it read for the reader's side (the player, or the shop).",
+  })
   thread(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
     return this.messages.thread(user, id);
   }
@@ -36,7 +38,10 @@ export class MessagesController {
       },
     },
   })
-  @ApiCreatedResponse({ description: 'The message as written, with its photos (JPEG, PNG or WebP, up to 8 MB each, 4 per message). The other side hears of it by e-mail within five minutes.' })
+  @ApiCreatedResponse({
+    description:
+      'The message as written, with its photos (JPEG, PNG or WebP, up to 8 MB each, 4 per message). The other side hears of it by e-mail within five minutes.',
+  })
   post(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingIdPipe) id: string,
@@ -48,7 +53,10 @@ export class MessagesController {
 
   @ApiOperation({ summary: 'Unread messages per build' })
   @Get('messages/unread')
-  @ApiOkResponse({ description: "Unread messages from the other side, per build: a player's own builds, a builder's assigned builds, the owner's whole shop." })
+  @ApiOkResponse({
+    description:
+      "Unread messages from the other side, per build: a player's own builds, a builder's assigned builds, the owner's whole shop.",
+  })
   unread(@CurrentUser() user: AuthUser) {
     return this.messages.unread(user);
   }

@@ -32,7 +32,15 @@ export class MessagesRepository {
     return trx
       .selectFrom('build_messages')
       .innerJoin('users', 'users.id', 'build_messages.author_id')
-      .select(['build_messages.id', 'build_messages.seq', 'build_messages.side', 'build_messages.body', 'build_messages.created_at', 'build_messages.author_id', 'users.name as author_name'])
+      .select([
+        'build_messages.id',
+        'build_messages.seq',
+        'build_messages.side',
+        'build_messages.body',
+        'build_messages.created_at',
+        'build_messages.author_id',
+        'users.name as author_name',
+      ])
       .where('build_messages.booking_id', '=', bookingId)
       .orderBy('build_messages.seq')
       .execute();
@@ -64,7 +72,12 @@ export class MessagesRepository {
   }
 
   async readSeq(bookingId: string, side: MessageSide, trx: Executor = this.db): Promise<string> {
-    const row = await trx.selectFrom('message_read_markers').select('read_seq').where('booking_id', '=', bookingId).where('side', '=', side).executeTakeFirst();
+    const row = await trx
+      .selectFrom('message_read_markers')
+      .select('read_seq')
+      .where('booking_id', '=', bookingId)
+      .where('side', '=', side)
+      .executeTakeFirst();
     return row?.read_seq ?? '0';
   }
 
@@ -121,7 +134,11 @@ export class MessagesRepository {
       .execute();
   }
 
-  settleNotice(trx: Executor, id: string, values: { state: 'sent' | 'skipped'; message_count: number; outbox_id: string | null; settled_at: Date }) {
+  settleNotice(
+    trx: Executor,
+    id: string,
+    values: { state: 'sent' | 'skipped'; message_count: number; outbox_id: string | null; settled_at: Date },
+  ) {
     return trx.updateTable('message_notices').set(values).where('id', '=', id).where('state', '=', 'waiting').executeTakeFirst();
   }
 
@@ -131,7 +148,18 @@ export class MessagesRepository {
       .selectFrom('build_messages as m')
       .innerJoin('users as u', 'u.id', 'm.author_id')
       .leftJoin('message_read_markers as r', (join) => join.onRef('r.booking_id', '=', 'm.booking_id').on('r.side', '=', recipientSide))
-      .select(['m.id', 'm.body', 'm.created_at', 'u.name as author_name', (eb) => eb.selectFrom('photos').select((e) => e.fn.countAll<string>().as('n')).whereRef('photos.message_id', '=', 'm.id').as('photo_count')])
+      .select([
+        'm.id',
+        'm.body',
+        'm.created_at',
+        'u.name as author_name',
+        (eb) =>
+          eb
+            .selectFrom('photos')
+            .select((e) => e.fn.countAll<string>().as('n'))
+            .whereRef('photos.message_id', '=', 'm.id')
+            .as('photo_count'),
+      ])
       .where('m.booking_id', '=', bookingId)
       .where('m.side', '=', otherSide(recipientSide))
       .where('m.seq', '>=', fromSeq)
@@ -147,7 +175,16 @@ export class MessagesRepository {
       .innerJoin('users as c', 'c.id', 'b.customer_id')
       .leftJoin('builders as bl', 'bl.id', 'b.builder_id')
       .leftJoin('users as bu', 'bu.id', 'bl.user_id')
-      .select(['b.id', 'b.reference', 'c.id as customer_id', 'c.name as customer_name', 'c.email as customer_email', 'bu.id as builder_user_id', 'bu.name as builder_name', 'bu.email as builder_email'])
+      .select([
+        'b.id',
+        'b.reference',
+        'c.id as customer_id',
+        'c.name as customer_name',
+        'c.email as customer_email',
+        'bu.id as builder_user_id',
+        'bu.name as builder_name',
+        'bu.email as builder_email',
+      ])
       .where('b.id', '=', bookingId)
       .executeTakeFirst();
   }

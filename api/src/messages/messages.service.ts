@@ -98,7 +98,13 @@ export class MessagesService {
       const now = this.clock.now();
       const dueAt = new Date(now.getTime() + MESSAGE_MAIL_WINDOW_MINUTES * 60_000);
       const { message, photoIds, notice } = await this.db.transaction().execute(async (trx) => {
-        const message = await this.repository.insertMessage(trx, { booking_id: booking.id, author_id: user.id, side, body, created_at: now });
+        const message = await this.repository.insertMessage(trx, {
+          booking_id: booking.id,
+          author_id: user.id,
+          side,
+          body,
+          created_at: now,
+        });
         const photoIds: string[] = [];
         for (const photo of prepared) {
           const row = await this.repository.insertPhoto(trx, {

@@ -33,7 +33,7 @@ export class MetricsController {
       const a = Buffer.from(given);
       const b = Buffer.from(token);
       if (a.length !== b.length || !timingSafeEqual(a, b)) {
-        throw new UnauthorizedException('The metrics need the scraper\'s token: send Authorization: Bearer <METRICS_TOKEN>.');
+        throw new UnauthorizedException("The metrics need the scraper's token: send Authorization: Bearer <METRICS_TOKEN>.");
       }
     } else if (!loopback.has(req.socket.remoteAddress ?? '')) {
       throw new ForbiddenException('The metrics answer only callers on this machine unless METRICS_TOKEN is set.');

@@ -22,7 +22,12 @@ export class MetricsService {
   ) {
     const registers = [this.registry];
     collectDefaultMetrics({ register: this.registry, prefix: 'loomwright_' });
-    this.requests = new Counter({ name: 'loomwright_http_requests_total', help: 'HTTP answers given, by route pattern and status.', labelNames: ['method', 'route', 'status'], registers });
+    this.requests = new Counter({
+      name: 'loomwright_http_requests_total',
+      help: 'HTTP answers given, by route pattern and status.',
+      labelNames: ['method', 'route', 'status'],
+      registers,
+    });
     this.latency = new Histogram({
       name: 'loomwright_http_request_duration_seconds',
       help: 'Time from request to the end of the answer, by route pattern and status.',
@@ -32,7 +37,7 @@ export class MetricsService {
     });
     new Gauge({
       name: 'loomwright_db_pool_connections',
-      help: 'This process\'s PostgreSQL pool: connections open (total), idle, and callers waiting for one.',
+      help: "This process's PostgreSQL pool: connections open (total), idle, and callers waiting for one.",
       labelNames: ['state'],
       registers,
       collect() {
@@ -41,7 +46,9 @@ export class MetricsService {
         this.set({ state: 'waiting' }, pool.waitingCount);
       },
     });
-    new Gauge({ name: 'loomwright_db_pool_max', help: 'The most connections this process\'s pool opens.', registers }).set(pool.options.max ?? 10);
+    new Gauge({ name: 'loomwright_db_pool_max', help: "The most connections this process's pool opens.", registers }).set(
+      pool.options.max ?? 10,
+    );
     const read = (query: () => Promise<void>) => query().catch(() => undefined);
     new Gauge({
       name: 'loomwright_jobs',
@@ -52,7 +59,11 @@ export class MetricsService {
         await read(async () => {
           const exists = await sql<{ t: string | null }>`select to_regclass('pgboss.job')::text as t`.execute(db);
           if (!exists.rows[0]?.t) return;
-          const rows = await sql<{ name: string; state: string; n: string }>`select name, state::text as state, count(*)::text as n from pgboss.job group by name, state`.execute(db);
+          const rows = await sql<{
+            name: string;
+            state: string;
+            n: string;
+          }>`select name, state::text as state, count(*)::text as n from pgboss.job group by name, state`.execute(db);
           this.reset();
           for (const r of rows.rows) this.set({ queue: r.name, state: r.state }, Number(r.n));
         });
@@ -65,7 +76,11 @@ export class MetricsService {
       registers,
       async collect() {
         await read(async () => {
-          const rows = await db.selectFrom('mail_outbox').select(['state', (eb) => eb.fn.countAll<string>().as('n')]).groupBy('state').execute();
+          const rows = await db
+            .selectFrom('mail_outbox')
+            .select(['state', (eb) => eb.fn.countAll<string>().as('n')])
+            .groupBy('state')
+            .execute();
           this.reset();
           for (const state of ['queued', 'sending', 'sent', 'failed', 'unknown']) this.set({ state }, 0);
           for (const r of rows) this.set({ state: r.state }, Number(r.n));
@@ -79,7 +94,11 @@ export class MetricsService {
       registers,
       async collect() {
         await read(async () => {
-          const rows = await db.selectFrom('payments').select(['kind', 'status', (eb) => eb.fn.countAll<string>().as('n')]).groupBy(['kind', 'status']).execute();
+          const rows = await db
+            .selectFrom('payments')
+            .select(['kind', 'status', (eb) => eb.fn.countAll<string>().as('n')])
+            .groupBy(['kind', 'status'])
+            .execute();
           this.reset();
           for (const r of rows) this.set({ kind: r.kind, outcome: r.status }, Number(r.n));
         });
@@ -89,7 +108,11 @@ export class MetricsService {
 
   /** Express middleware: counts each answer under its route pattern (never the raw URL, which would explode the labels). */
   middleware() {
-    return (req: { method: string; baseUrl?: string; route?: { path?: string }; originalUrl?: string }, res: { statusCode: number; once(e: 'finish' | 'close', f: () => void): void }, next: () => void) => {
+    return (
+      req: { method: string; baseUrl?: string; route?: { path?: string }; originalUrl?: string },
+      res: { statusCode: number; once(e: 'finish' | 'close', f: () => void): void },
+      next: () => void,
+    ) => {
       const end = this.latency.startTimer();
       let done = false;
       const finish = () => {

@@ -87,7 +87,8 @@ export class PaymentWebhooksService {
       event = this.stripe.webhooks.constructEvent(rawBody, signature, webhookSecret, WEBHOOK_TOLERANCE_SECONDS, undefined, now);
     } catch (error) {
       throw new BadRequestException(
-        clockProblem(signature, now) ?? `The webhook signature does not verify: ${error instanceof Error ? error.message : 'unknown reason'}`,
+        clockProblem(signature, now) ??
+          `The webhook signature does not verify: ${error instanceof Error ? error.message : 'unknown reason'}`,
       );
     }
     // A signature made for a time ahead of ours would otherwise stay replayable until then.
@@ -103,7 +104,10 @@ export class PaymentWebhooksService {
     }
     // Read before the transaction: inside it, every query must use that transaction's connection,
     // or concurrent deliveries could each hold one and wait for a second from an empty pool.
-    const shopEmail = event.type === 'checkout.session.completed' || event.type === 'checkout.session.async_payment_succeeded' ? (await this.shop.profile()).contactEmail : '';
+    const shopEmail =
+      event.type === 'checkout.session.completed' || event.type === 'checkout.session.async_payment_succeeded'
+        ? (await this.shop.profile()).contactEmail
+        : '';
     const failure = event.type === 'checkout.session.async_payment_failed' ? await this.intentFailure(event.data.object) : '';
     const known = await this.paymentOfIntent(event);
     const fresh = await this.db.transaction().execute(async (trx) => {
@@ -149,7 +153,10 @@ export class PaymentWebhooksService {
    * metadata names the payment. Read before the transaction, like every provider call.
    */
   private async paymentOfIntent(event: Stripe.Event): Promise<string | undefined> {
-    const object = event.type.startsWith('refund.') || event.type.startsWith('charge.dispute.') || event.type === 'charge.refund.updated' ? (event.data.object as Stripe.Refund | Stripe.Dispute) : undefined;
+    const object =
+      event.type.startsWith('refund.') || event.type.startsWith('charge.dispute.') || event.type === 'charge.refund.updated'
+        ? (event.data.object as Stripe.Refund | Stripe.Dispute)
+        : undefined;
     const intentId = object ? intentIdOf(object.payment_intent) : null;
     if (!intentId) return undefined;
     const row = await this.db.selectFrom('payments').select('id').where('payment_intent_id', '=', intentId).executeTakeFirst();
@@ -164,7 +171,11 @@ export class PaymentWebhooksService {
 
   /** Locks the payment an event names, and notes its intent id if the checkout's own event has not yet. */
   private async lockForIntent(trx: Executor, intentId: string | null, paymentId: string | undefined) {
-    const payment = paymentId ? await this.payments.lockById(trx, paymentId) : intentId ? await this.payments.lockByIntent(trx, intentId) : undefined;
+    const payment = paymentId
+      ? await this.payments.lockById(trx, paymentId)
+      : intentId
+        ? await this.payments.lockByIntent(trx, intentId)
+        : undefined;
     if (payment && !payment.payment_intent_id && intentId) return this.payments.update(trx, payment.id, { payment_intent_id: intentId });
     return payment;
   }
@@ -184,7 +195,8 @@ export class PaymentWebhooksService {
 
   private async payment(trx: Executor, session: Stripe.Checkout.Session) {
     const payment = await this.payments.lockBySession(trx, session.id);
-    if (!payment) this.logger.warn(`checkout ${session.id} reported but no payment row knows it (booking ${session.metadata?.bookingId ?? '?'})`);
+    if (!payment)
+      this.logger.warn(`checkout ${session.id} reported but no payment row knows it (booking ${session.metadata?.bookingId ?? '?'})`);
     return payment;
   }
 
@@ -192,7 +204,10 @@ export class PaymentWebhooksService {
   private async sessionSettled(trx: Executor, session: Stripe.Checkout.Session, shopEmail: string) {
     const payment = await this.payment(trx, session);
     if (!payment || payment.status === 'paid' || payment.status === 'refunded') return;
-    if (session.amount_total !== Number(payment.amount_minor) || session.currency?.toLowerCase() !== payment.currency.trim().toLowerCase()) {
+    if (
+      session.amount_total !== Number(payment.amount_minor) ||
+      session.currency?.toLowerCase() !== payment.currency.trim().toLowerCase()
+    ) {
       await this.payments.update(trx, payment.id, {
         failure_message: `The provider reported ${session.amount_total} ${session.currency} for a checkout of ${payment.amount_minor} ${payment.currency}; the shop will check it.`,
       });
@@ -276,7 +291,12 @@ export class PaymentWebhooksService {
     if (payment.status !== 'processing') return;
     const failed = await this.payments.update(trx, payment.id, { status: 'failed', failure_message: reason });
     const what = payment.kind === 'deposit' ? 'Deposit' : 'Balance';
-    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `${what} bank debit of ${money(payment)} failed: ${reason} Nothing was taken; the player has been asked to pay again.`);
+    await this.paymentsService.historyNote(
+      trx,
+      payment.booking_id,
+      provider,
+      `${what} bank debit of ${money(payment)} failed: ${reason} Nothing was taken; the player has been asked to pay again.`,
+    );
     const detail = await this.bookings.getDetail(payment.booking_id, trx);
     const publicUrl = this.config.get('app', { infer: true }).publicUrl;
     await this.mail.enqueue(trx, {
@@ -324,7 +344,12 @@ export class PaymentWebhooksService {
     if (payment.status === 'failed' && payment.failure_message === reason) return;
     if (payment.status !== 'pending' && payment.status !== 'failed') return;
     await this.payments.update(trx, payment.id, { status: 'failed', failure_message: reason, payment_intent_id: intent.id });
-    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `Card declined at checkout: ${reason} The checkout stays open for another try.`);
+    await this.paymentsService.historyNote(
+      trx,
+      payment.booking_id,
+      provider,
+      `Card declined at checkout: ${reason} The checkout stays open for another try.`,
+    );
   }
 
   /** Any refund's news (ours, or one made in the provider's dashboard): recorded against its payment. */
@@ -358,13 +383,35 @@ export class PaymentWebhooksService {
     });
     const what = payment.kind === 'deposit' ? 'deposit' : 'balance';
     if (dispute.status === 'won' || dispute.status === 'warning_closed') {
-      await this.paymentsService.historyNote(trx, payment.booking_id, provider, `The bank decided the dispute over the ${what} for the shop; the ${amount} stays. Delivery waits until the owner releases it.`);
-      await this.paymentsService.alertOwner(trx, updated, 'dispute-won', `The dispute (${disputeWords(dispute.reason)}) over ${amount} was decided for the shop.`, dispute.status);
+      await this.paymentsService.historyNote(
+        trx,
+        payment.booking_id,
+        provider,
+        `The bank decided the dispute over the ${what} for the shop; the ${amount} stays. Delivery waits until the owner releases it.`,
+      );
+      await this.paymentsService.alertOwner(
+        trx,
+        updated,
+        'dispute-won',
+        `The dispute (${disputeWords(dispute.reason)}) over ${amount} was decided for the shop.`,
+        dispute.status,
+      );
       return;
     }
     if (dispute.status === 'lost') {
-      await this.paymentsService.historyNote(trx, payment.booking_id, provider, `The bank decided the dispute over the ${what} for the player; ${amount} was taken back. Delivery waits on the owner's decision.`);
-      await this.paymentsService.alertOwner(trx, updated, 'dispute-lost', `The dispute (${disputeWords(dispute.reason)}) over ${amount} was decided for the player; the money was taken back.`, 'lost');
+      await this.paymentsService.historyNote(
+        trx,
+        payment.booking_id,
+        provider,
+        `The bank decided the dispute over the ${what} for the player; ${amount} was taken back. Delivery waits on the owner's decision.`,
+      );
+      await this.paymentsService.alertOwner(
+        trx,
+        updated,
+        'dispute-lost',
+        `The dispute (${disputeWords(dispute.reason)}) over ${amount} was decided for the player; the money was taken back.`,
+        'lost',
+      );
       return;
     }
     if (isNew) {
@@ -374,9 +421,20 @@ export class PaymentWebhooksService {
         provider,
         `The player's bank disputed the ${what} of ${amount} (${disputeWords(dispute.reason)}). The owner has been told; delivery waits on the owner's decision.`,
       );
-      await this.paymentsService.alertOwner(trx, updated, 'dispute-opened', `The player's bank disputed ${amount} (${disputeWords(dispute.reason)}); the answer is due by ${dispute.evidence_details?.due_by ? new Date(dispute.evidence_details.due_by * 1000).toISOString().slice(0, 10) : 'the date in the provider dashboard'}.`, 'opened');
+      await this.paymentsService.alertOwner(
+        trx,
+        updated,
+        'dispute-opened',
+        `The player's bank disputed ${amount} (${disputeWords(dispute.reason)}); the answer is due by ${dispute.evidence_details?.due_by ? new Date(dispute.evidence_details.due_by * 1000).toISOString().slice(0, 10) : 'the date in the provider dashboard'}.`,
+        'opened',
+      );
       return;
     }
-    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `The dispute over the ${what} is now "${dispute.status.replace(/_/g, ' ')}".`);
+    await this.paymentsService.historyNote(
+      trx,
+      payment.booking_id,
+      provider,
+      `The dispute over the ${what} is now "${dispute.status.replace(/_/g, ' ')}".`,
+    );
   }
 }

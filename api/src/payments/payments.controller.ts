@@ -49,7 +49,11 @@ export class PaymentsController {
   @HttpCode(200)
   @ApiOkResponse({ description: 'Cancels a request before it is scheduled; a paid deposit is refunded.' })
   @ApiZodBody(cancelBookingSchema)
-  cancel(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(cancelBookingSchema)) dto: CancelBookingInput) {
+  cancel(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingIdPipe) id: string,
+    @Body(new ZodValidationPipe(cancelBookingSchema)) dto: CancelBookingInput,
+  ) {
     return this.payments.cancel(user, id, dto.reason);
   }
 
@@ -59,7 +63,11 @@ export class PaymentsController {
   @HttpCode(200)
   @ApiOkResponse({ description: "Refunds the booking's paid deposit through the payment provider." })
   @ApiZodBody(refundDepositSchema)
-  refund(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(refundDepositSchema)) dto: RefundDepositInput) {
+  refund(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingIdPipe) id: string,
+    @Body(new ZodValidationPipe(refundDepositSchema)) dto: RefundDepositInput,
+  ) {
     return this.payments.refundByOwner(user, id, dto.reason);
   }
 
@@ -69,8 +77,14 @@ export class PaymentsController {
   @Roles('owner')
   @HttpCode(200)
   @ApiZodBody(recordBalanceSchema)
-  @ApiOkResponse({ description: 'Records the whole balance taken in person (cash, card terminal, bank transfer); closes any open balance checkout.' })
-  recordBalance(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string, @Body(new ZodValidationPipe(recordBalanceSchema)) body: RecordBalanceInput) {
+  @ApiOkResponse({
+    description: 'Records the whole balance taken in person (cash, card terminal, bank transfer); closes any open balance checkout.',
+  })
+  recordBalance(
+    @CurrentUser() user: AuthUser,
+    @Param('id', bookingIdPipe) id: string,
+    @Body(new ZodValidationPipe(recordBalanceSchema)) body: RecordBalanceInput,
+  ) {
     return this.payments.recordBalance(user, id, body);
   }
 

@@ -20,13 +20,15 @@ export class PaymentsRepository {
   }
 
   update(trx: Executor, id: string, patch: Updateable<PaymentsTable>) {
-    return trx
-      .updateTable('payments')
-      // Generated<Timestamp> hides the writable type of updated_at, hence the cast.
-      .set({ ...patch, updated_at: sql`now()` } as unknown as Updateable<PaymentsTable>)
-      .where('id', '=', id)
-      .returningAll()
-      .executeTakeFirstOrThrow();
+    return (
+      trx
+        .updateTable('payments')
+        // Generated<Timestamp> hides the writable type of updated_at, hence the cast.
+        .set({ ...patch, updated_at: sql`now()` } as unknown as Updateable<PaymentsTable>)
+        .where('id', '=', id)
+        .returningAll()
+        .executeTakeFirstOrThrow()
+    );
   }
 
   lockBySession(trx: Executor, sessionId: string) {

@@ -2,7 +2,14 @@ import { randomUUID } from 'node:crypto';
 import { BadGatewayException, BadRequestException, ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import type { AuthUser, BookingDetail, BookingState } from '@loomwright/shared';
-import { bookingStateLabels, formatMoney, paymentMethodWords, type RecordBalanceInput, toProviderAmount, fromProviderAmount } from '@loomwright/shared';
+import {
+  bookingStateLabels,
+  formatMoney,
+  paymentMethodWords,
+  type RecordBalanceInput,
+  toProviderAmount,
+  fromProviderAmount,
+} from '@loomwright/shared';
 import Stripe from 'stripe';
 import { actorOf, BookingsService, type BookingActor } from '../bookings/bookings.service';
 import type { AppConfig } from '../config/configuration';
@@ -152,7 +159,9 @@ export class PaymentsService {
   /** The configured ways of paying that take this currency (a bank debit takes only its own). */
   private methodTypes(currency: string): string[] {
     const code = currency.trim().toLowerCase();
-    const types = this.config.get('payments', { infer: true }).methodTypes.filter((t) => !methodCurrencies[t] || methodCurrencies[t].includes(code));
+    const types = this.config
+      .get('payments', { infer: true })
+      .methodTypes.filter((t) => !methodCurrencies[t] || methodCurrencies[t].includes(code));
     return types.length > 0 ? types : ['card'];
   }
 
@@ -227,7 +236,13 @@ export class PaymentsService {
     const sameRefund = payment.refund_id === refund.id;
     if (sameRefund && payment.refund_status === status) return payment;
     // An older refund's late news must not undo a newer one's.
-    if (!sameRefund && payment.refund_id && payment.refund_status !== 'failed' && payment.refund_status !== 'canceled' && status !== 'succeeded') {
+    if (
+      !sameRefund &&
+      payment.refund_id &&
+      payment.refund_status !== 'failed' &&
+      payment.refund_status !== 'canceled' &&
+      status !== 'succeeded'
+    ) {
       return payment;
     }
     const ours = refund.metadata?.paymentId === payment.id;
@@ -242,9 +257,20 @@ export class PaymentsService {
         refund_failure: null,
         ...(whole && payment.status === 'paid' ? { status: 'refunded' as const, refunded_at: new Date() } : {}),
       });
-      await this.historyNote(trx, payment.booking_id, actor, `${whole ? 'Refund' : 'Part refund'} of ${amount} ${payment.currency.trim()} of the ${kindWord} made${where}; the money is on its way to the player.`);
+      await this.historyNote(
+        trx,
+        payment.booking_id,
+        actor,
+        `${whole ? 'Refund' : 'Part refund'} of ${amount} ${payment.currency.trim()} of the ${kindWord} made${where}; the money is on its way to the player.`,
+      );
       if (whole && updated.kind === 'deposit') await this.mailRefund(trx, updated);
-      if (!ours) await this.alertOwner(trx, updated, 'outside-refund', `${whole ? 'A refund' : 'A part refund'} of ${amount} ${payment.currency.trim()} was made in the provider's dashboard (refund ${refund.id}).`);
+      if (!ours)
+        await this.alertOwner(
+          trx,
+          updated,
+          'outside-refund',
+          `${whole ? 'A refund' : 'A part refund'} of ${amount} ${payment.currency.trim()} was made in the provider's dashboard (refund ${refund.id}).`,
+        );
       return updated;
     }
     if (status === 'failed' || status === 'canceled') {
@@ -256,8 +282,18 @@ export class PaymentsService {
         // Marked refunded on an earlier "succeeded"? The money came back to the shop.
         ...(payment.status === 'refunded' ? { status: 'paid' as const, refunded_at: null } : {}),
       });
-      await this.historyNote(trx, payment.booking_id, actor, `Refund of ${amount} ${payment.currency.trim()} of the ${kindWord} ${status === 'failed' ? 'failed' : 'was cancelled'}: ${failure}. The money is still with the shop; the owner has been told.`);
-      await this.alertOwner(trx, updated, 'refund-failed', `The refund of ${amount} ${payment.currency.trim()} ${status === 'failed' ? 'failed' : 'was cancelled'}: ${failure}.`);
+      await this.historyNote(
+        trx,
+        payment.booking_id,
+        actor,
+        `Refund of ${amount} ${payment.currency.trim()} of the ${kindWord} ${status === 'failed' ? 'failed' : 'was cancelled'}: ${failure}. The money is still with the shop; the owner has been told.`,
+      );
+      await this.alertOwner(
+        trx,
+        updated,
+        'refund-failed',
+        `The refund of ${amount} ${payment.currency.trim()} ${status === 'failed' ? 'failed' : 'was cancelled'}: ${failure}.`,
+      );
       return updated;
     }
     const updated = await this.payments.update(trx, payment.id, { refund_id: refund.id, refund_status: status, refund_failure: null });
@@ -290,7 +326,13 @@ export class PaymentsService {
   }
 
   /** Tells the owner at once (every owner account) that money needs a decision. */
-  async alertOwner(trx: Executor, payment: PaymentRow, alert: 'refund-failed' | 'dispute-opened' | 'dispute-won' | 'dispute-lost' | 'outside-refund', detail: string, dedupe = '') {
+  async alertOwner(
+    trx: Executor,
+    payment: PaymentRow,
+    alert: 'refund-failed' | 'dispute-opened' | 'dispute-won' | 'dispute-lost' | 'outside-refund',
+    detail: string,
+    dedupe = '',
+  ) {
     const booking = await this.bookings.getDetail(payment.booking_id, trx);
     const publicUrl = this.config.get('app', { infer: true }).publicUrl;
     for (const to of await this.payments.ownerAddresses(trx)) {
@@ -406,7 +448,9 @@ export class PaymentsService {
         if ((p.status === 'pending' || p.status === 'failed') && p.checkout_session_id) {
           const session = await this.retrieveSession(p.checkout_session_id);
           if (session.status === 'complete') {
-            throw new ConflictException(`The player has just paid the balance of ${booking.reference} online; reload the booking to see it.`);
+            throw new ConflictException(
+              `The player has just paid the balance of ${booking.reference} online; reload the booking to see it.`,
+            );
           }
           if (session.status === 'open') await this.call(() => this.stripe.checkout.sessions.expire(p.checkout_session_id!));
           await this.payments.update(trx, p.id, { status: 'expired' });
@@ -424,7 +468,12 @@ export class PaymentsService {
         recorded_by: user.id,
         note: input.note?.trim() ?? '',
       });
-      await this.bookings.insertNote(trx, booking, actorOf(user), `Balance of ${money.balanceDue} ${money.currency} received by ${paymentMethodWords[input.method]}, recorded by ${user.name}.`);
+      await this.bookings.insertNote(
+        trx,
+        booking,
+        actorOf(user),
+        `Balance of ${money.balanceDue} ${money.currency} received by ${paymentMethodWords[input.method]}, recorded by ${user.name}.`,
+      );
     });
     return this.bookings.getDetail(bookingId);
   }
@@ -435,7 +484,9 @@ export class PaymentsService {
       const booking = await this.bookings.lock(trx, bookingId);
       if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
       if (booking.state !== 'ready') {
-        throw new ConflictException(`Booking ${booking.reference} is "${bookingStateLabels[booking.state]}"; the balance is requested once the build is ready.`);
+        throw new ConflictException(
+          `Booking ${booking.reference} is "${bookingStateLabels[booking.state]}"; the balance is requested once the build is ready.`,
+        );
       }
       const money = await this.bookings.moneyFacts(bookingId, trx);
       if (money.settled) throw new ConflictException(`Nothing is due on ${booking.reference}; the balance is already paid or waived.`);
@@ -458,7 +509,12 @@ export class PaymentsService {
           currency: money.currency,
         },
       });
-      await this.bookings.insertNote(trx, booking, actorOf(user), `Balance of ${money.balanceDue} ${money.currency} requested again by e-mail.`);
+      await this.bookings.insertNote(
+        trx,
+        booking,
+        actorOf(user),
+        `Balance of ${money.balanceDue} ${money.currency} requested again by e-mail.`,
+      );
     });
     return this.bookings.getDetail(bookingId);
   }

@@ -38,10 +38,7 @@ export class PriceBookController {
   @Post('price-book')
   @ApiZodBody(publishPriceBookSchema)
   @ApiCreatedResponse({ description: 'The new version; quotes priced earlier keep theirs.' })
-  publish(
-    @Body(new ZodValidationPipe(publishPriceBookSchema)) body: { book: PriceBook; notes: string },
-    @CurrentUser() user: AuthUser,
-  ) {
+  publish(@Body(new ZodValidationPipe(publishPriceBookSchema)) body: { book: PriceBook; notes: string }, @CurrentUser() user: AuthUser) {
     return this.priceBook.publish(body.book, body.notes, user.id);
   }
 }

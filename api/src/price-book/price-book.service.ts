@@ -37,7 +37,10 @@ export class PriceBookService {
 
   private async readCurrent(trx: Executor): Promise<PublishedPriceBook> {
     const row = await this.books.findCurrent(trx);
-    if (!row) throw new ServiceUnavailableException(errorResponse('price_book_missing', 'No price book has been published yet; the owner publishes one in the backoffice.'));
+    if (!row)
+      throw new ServiceUnavailableException(
+        errorResponse('price_book_missing', 'No price book has been published yet; the owner publishes one in the backoffice.'),
+      );
     return { version: row.version, publishedAt: asDate(row.published_at), book: row.book };
   }
 

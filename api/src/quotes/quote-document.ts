@@ -18,7 +18,6 @@ export interface QuoteData {
   paper?: PaperSize;
 }
 
-
 /** The quote the player keeps: lines, totals at the chosen level, layout, power plan, cable list and cautions. */
 export function renderQuote(data: QuoteData): Promise<Buffer> {
   const sheet = new Sheet(`${data.title} — quote`, data.paper);
@@ -60,11 +59,18 @@ export function renderQuote(data: QuoteData): Promise<Buffer> {
     [0.6, 0.15, 0.25],
   );
   sheet.paragraph(`Materials: ${money(e.materialsTotal, cur)}`);
-  sheet.paragraph(`Labor at ${level?.name ?? e.level} rates (${f.perHourRange(e.rate.low, e.rate.high, cur)}): ${range(e.laborLow, e.laborHigh, cur)}`);
+  sheet.paragraph(
+    `Labor at ${level?.name ?? e.level} rates (${f.perHourRange(e.rate.low, e.rate.high, cur)}): ${range(e.laborLow, e.laborHigh, cur)}`,
+  );
   sheet.paragraph(`Estimated total: ${range(e.totalLow, e.totalHigh, cur)}`, { bold: true });
-  if (data.firm) sheet.paragraph(`Firm price set by the shop: ${money(data.firm.total, cur)} (labor at ${money(data.firm.hourlyRate, cur)} an hour)`, { bold: true });
+  if (data.firm)
+    sheet.paragraph(`Firm price set by the shop: ${money(data.firm.total, cur)} (labor at ${money(data.firm.hourlyRate, cur)} an hour)`, {
+      bold: true,
+    });
   sheet.paragraph(`Deposit to book bench time: ${money(e.deposit, cur)}. ${book.depositPolicy.description}`);
-  sheet.paragraph('A range, because the rate depends on the builder who takes it; the shop confirms a firm price when it accepts. Pedals, power supply and switcher are yours to supply.');
+  sheet.paragraph(
+    'A range, because the rate depends on the builder who takes it; the shop confirms a firm price when it accepts. Pedals, power supply and switcher are yours to supply.',
+  );
 
   sheet.heading('Layout');
   const fit = checks.boardFit;
@@ -102,7 +108,9 @@ export function renderQuote(data: QuoteData): Promise<Buffer> {
     ]),
     [0.06, 0.34, 0.34, 0.1, 0.16],
   );
-  sheet.paragraph(`${cables.patchCount} patch cables, ${cables.plugCount} plugs, ${cables.cableFeet} ft of cable including ${cables.spareFeet} ft spare; ${cables.barrelPlugCount} power leads.`);
+  sheet.paragraph(
+    `${cables.patchCount} patch cables, ${cables.plugCount} plugs, ${cables.cableFeet} ft of cable including ${cables.spareFeet} ft spare; ${cables.barrelPlugCount} power leads.`,
+  );
 
   sheet.heading('Notes and cautions');
   sheet.bullets([...e.notes, ...benchCautions]);

@@ -81,6 +81,10 @@ export class BookingQuoteController {
     }
     const { reference, pdf } = await this.quotes.bookingPdf(user, id);
     res.setHeader('Cache-Control', 'private, no-store');
-    return new StreamableFile(pdf, { type: 'application/pdf', disposition: `inline; filename="quote-${reference}.pdf"`, length: pdf.length });
+    return new StreamableFile(pdf, {
+      type: 'application/pdf',
+      disposition: `inline; filename="quote-${reference}.pdf"`,
+      length: pdf.length,
+    });
   }
 }

@@ -12,7 +12,16 @@ export class QuotesRepository {
     return trx
       .selectFrom('quotes as q')
       .innerJoin('bookings as b', 'b.id', 'q.booking_id')
-      .select(['b.reference', 'q.kind', 'q.price_book_version', 'q.configuration', 'q.estimate', 'q.hourly_rate', 'q.total', 'q.created_at'])
+      .select([
+        'b.reference',
+        'q.kind',
+        'q.price_book_version',
+        'q.configuration',
+        'q.estimate',
+        'q.hourly_rate',
+        'q.total',
+        'q.created_at',
+      ])
       .where('q.booking_id', '=', bookingId)
       .orderBy('q.created_at', 'desc')
       .orderBy('q.kind', 'desc')

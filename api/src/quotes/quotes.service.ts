@@ -132,5 +132,4 @@ export class QuotesService {
       paper: paperSizeFor(shop?.countryCode),
     };
   }
-
 }

@@ -36,7 +36,12 @@ export class RemindersWorker implements OnApplicationBootstrap, OnApplicationShu
   async start() {
     if (this.boss) return;
     // The mail worker's instance runs pg-boss's maintenance; this one only schedules and works its queue.
-    const boss = new PgBoss({ connectionString: this.config.get('database', { infer: true }).url, schema: 'pgboss', max: 2, supervise: false });
+    const boss = new PgBoss({
+      connectionString: this.config.get('database', { infer: true }).url,
+      schema: 'pgboss',
+      max: 2,
+      supervise: false,
+    });
     boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
     await boss.start();
     await boss.createQueue(REMINDERS_QUEUE, { name: REMINDERS_QUEUE, policy: 'singleton', retryLimit: 0, expireInSeconds: 10 * 60 });

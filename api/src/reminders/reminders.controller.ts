@@ -1,7 +1,12 @@
 import { Body, Controller, Get, Patch } from '@nestjs/common';
 import { z } from 'zod';
 import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
-import { updateReminderSettingsSchema, type AuthUser, type ReminderSettingsView, type UpdateReminderSettingsInput } from '@loomwright/shared';
+import {
+  updateReminderSettingsSchema,
+  type AuthUser,
+  type ReminderSettingsView,
+  type UpdateReminderSettingsInput,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
@@ -38,7 +43,10 @@ export class RemindersController {
   @Patch()
   @Roles('owner')
   @ApiZodBody(updateReminderSettingsSchema)
-  update(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(updateReminderSettingsSchema)) dto: UpdateReminderSettingsInput): Promise<ReminderSettingsView> {
+  update(
+    @CurrentUser() user: AuthUser,
+    @Body(new ZodValidationPipe(updateReminderSettingsSchema)) dto: UpdateReminderSettingsInput,
+  ): Promise<ReminderSettingsView> {
     return this.reminders.updateSettings(dto, user.id);
   }
 }

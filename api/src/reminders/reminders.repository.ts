@@ -25,7 +25,11 @@ export class RemindersRepository {
   }
 
   shop(trx: Executor = this.db) {
-    return trx.selectFrom('shop_settings').select(['name', 'timezone', 'locale', 'currency', 'contact_email']).where('id', '=', 1).executeTakeFirst();
+    return trx
+      .selectFrom('shop_settings')
+      .select(['name', 'timezone', 'locale', 'currency', 'contact_email'])
+      .where('id', '=', 1)
+      .executeTakeFirst();
   }
 
   /**
@@ -47,7 +51,16 @@ export class RemindersRepository {
     return trx
       .selectFrom('bookings as b')
       .innerJoin('users as c', 'c.id', 'b.customer_id')
-      .select(['b.id', 'b.reference', 'b.state', 'b.bench_date', 'b.created_at', 'b.customer_id', 'c.name as customer_name', 'c.email as customer_email']);
+      .select([
+        'b.id',
+        'b.reference',
+        'b.state',
+        'b.bench_date',
+        'b.created_at',
+        'b.customer_id',
+        'c.name as customer_name',
+        'c.email as customer_email',
+      ]);
   }
 
   /** Scheduled builds, pedals still to come, bench date from `from` to `to`, no tracking number. */
@@ -115,7 +128,11 @@ export class RemindersRepository {
 
   /** Bench hours held by a booking (a request never holds any; expiry checks before closing it). */
   async benchHoursHeld(trx: Executor, bookingId: string): Promise<number> {
-    const row = await trx.selectFrom('bench_allocations').select((eb) => eb.fn.countAll<string>().as('n')).where('booking_id', '=', bookingId).executeTakeFirst();
+    const row = await trx
+      .selectFrom('bench_allocations')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('booking_id', '=', bookingId)
+      .executeTakeFirst();
     return Number(row?.n ?? 0);
   }
 

@@ -1,7 +1,16 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import Decimal from 'decimal.js';
-import { reminderKinds, reminderLimits, reminderWords, shopFormat, type ReminderKind, type ReminderSettingsView, type ShopFormat, type UpdateReminderSettingsInput } from '@loomwright/shared';
+import {
+  reminderKinds,
+  reminderLimits,
+  reminderWords,
+  shopFormat,
+  type ReminderKind,
+  type ReminderSettingsView,
+  type ShopFormat,
+  type UpdateReminderSettingsInput,
+} from '@loomwright/shared';
 import { addDays, daysBetween } from '../bench/calendar-days';
 import { shipByDate } from '../bench/scheduling';
 import { BenchService } from '../bench/bench.service';
@@ -67,7 +76,12 @@ export class RemindersService {
         if (!change) continue;
         const amount = change[fieldOf(kind)] as number | undefined;
         const enabled = change.enabled as boolean | undefined;
-        await this.reminders.updateSetting(trx, kind, { ...(enabled !== undefined && { enabled }), ...(amount !== undefined && { amount }) }, by);
+        await this.reminders.updateSetting(
+          trx,
+          kind,
+          { ...(enabled !== undefined && { enabled }), ...(amount !== undefined && { amount }) },
+          by,
+        );
       }
     });
     return this.settings();
@@ -83,12 +97,19 @@ export class RemindersService {
     // Expiry first: a request closed now gets its one letter, not also an unfinished-checkout reminder.
     if (settings.requestExpiry.enabled) {
       const before = new Date(now.getTime() - settings.requestExpiry.daysUnpaid * DAY_MS);
-      result.requestExpiry = await this.each(await this.reminders.requestsUnpaid(before), (c) => this.expireRequest(c.id, before, settings.requestExpiry.daysUnpaid, context));
+      result.requestExpiry = await this.each(await this.reminders.requestsUnpaid(before), (c) =>
+        this.expireRequest(c.id, before, settings.requestExpiry.daysUnpaid, context),
+      );
     }
-    if (settings.shipBy.enabled) result.shipBy = await this.each(await this.shipByCandidates(now, format, settings.shipBy.daysBefore), (c) => this.remindShipBy(c, settings.shipBy.daysBefore, context));
+    if (settings.shipBy.enabled)
+      result.shipBy = await this.each(await this.shipByCandidates(now, format, settings.shipBy.daysBefore), (c) =>
+        this.remindShipBy(c, settings.shipBy.daysBefore, context),
+      );
     if (settings.balanceUnpaid.enabled) {
       const before = new Date(now.getTime() - settings.balanceUnpaid.daysAfterReady * DAY_MS);
-      result.balanceUnpaid = await this.each(await this.reminders.balanceDue(before), (c) => this.remindBalance(c.id, before, settings.balanceUnpaid.daysAfterReady, context));
+      result.balanceUnpaid = await this.each(await this.reminders.balanceDue(before), (c) =>
+        this.remindBalance(c.id, before, settings.balanceUnpaid.daysAfterReady, context),
+      );
     }
     if (settings.checkoutAbandoned.enabled) {
       const before = new Date(now.getTime() - settings.checkoutAbandoned.hoursAfter * HOUR_MS);
@@ -107,7 +128,9 @@ export class RemindersService {
       try {
         if (await handle(candidate)) sent++;
       } catch (error) {
-        this.logger.warn(`Reminder for booking ${candidate.id} not sent this time: ${error instanceof Error ? error.message : String(error)}`);
+        this.logger.warn(
+          `Reminder for booking ${candidate.id} not sent this time: ${error instanceof Error ? error.message : String(error)}`,
+        );
       }
     }
     return sent;
@@ -137,7 +160,12 @@ export class RemindersService {
       const [row] = await this.reminders.shipByDue({ from: candidate.today, to: candidate.bench_date! }, candidate.id, trx);
       if (!booking || !row || row.bench_date !== candidate.bench_date) return false;
       // The event is the ship-by day itself: a build moved to another bench date is reminded again for its new day.
-      const claimed = await this.reminders.claim(trx, { kind: 'shipBy', bookingId: row.id, eventKey: `ship-by:${candidate.shipBy}`, dueAt: dayStart(addDays(candidate.shipBy, -daysBefore)) });
+      const claimed = await this.reminders.claim(trx, {
+        kind: 'shipBy',
+        bookingId: row.id,
+        eventKey: `ship-by:${candidate.shipBy}`,
+        dueAt: dayStart(addDays(candidate.shipBy, -daysBefore)),
+      });
       if (!claimed) return false;
       const daysLeft = daysBetween(candidate.today, candidate.shipBy);
       const shipByWords = format.day(candidate.shipBy, { year: 'always' });
@@ -147,9 +175,22 @@ export class RemindersService {
         bookingId: row.id,
         userId: row.customer_id,
         dedupeKey: `reminder:shipBy:${row.id}:${candidate.shipBy}:player`,
-        data: { name: row.customer_name, reference: row.reference, shipBy: candidate.shipBy, benchDate: row.bench_date, daysLeft, bookingUrl: `${this.publicUrl()}/builds/${row.id}` },
+        data: {
+          name: row.customer_name,
+          reference: row.reference,
+          shipBy: candidate.shipBy,
+          benchDate: row.bench_date,
+          daysLeft,
+          bookingUrl: `${this.publicUrl()}/builds/${row.id}`,
+        },
       });
-      await this.bookings.insertNote(trx, booking, reminderActor, reminderWords.shipByPlayerNote(shipByWords, row.customer_name), 'internal');
+      await this.bookings.insertNote(
+        trx,
+        booking,
+        reminderActor,
+        reminderWords.shipByPlayerNote(shipByWords, row.customer_name),
+        'internal',
+      );
       const shopTo = row.builder_email ?? shopEmail;
       if (shopTo) {
         await this.mail.enqueue(trx, {
@@ -167,7 +208,13 @@ export class RemindersService {
             backofficeUrl: `${this.publicUrl()}/backoffice/requests/${row.id}`,
           },
         });
-        await this.bookings.insertNote(trx, booking, reminderActor, reminderWords.shipByShopNote(shipByWords, row.builder_name ?? shopTo), 'internal');
+        await this.bookings.insertNote(
+          trx,
+          booking,
+          reminderActor,
+          reminderWords.shipByShopNote(shipByWords, row.builder_name ?? shopTo),
+          'internal',
+        );
       }
       return true;
     });
@@ -182,7 +229,15 @@ export class RemindersService {
       // Paid, waived, or a bank debit settling: nothing to remind.
       if (money.settled || !money.balanceDue || !new Decimal(money.balanceDue).gt(0)) return false;
       if (await this.reminders.hasPayment(trx, bookingId, 'balance', ['processing'])) return false;
-      if (!(await this.reminders.claim(trx, { kind: 'balanceUnpaid', bookingId, eventKey: `ready:${row.ready_event_id}`, dueAt: new Date(new Date(row.ready_at).getTime() + days * DAY_MS) }))) return false;
+      if (
+        !(await this.reminders.claim(trx, {
+          kind: 'balanceUnpaid',
+          bookingId,
+          eventKey: `ready:${row.ready_event_id}`,
+          dueAt: new Date(new Date(row.ready_at).getTime() + days * DAY_MS),
+        }))
+      )
+        return false;
       const readySince = format.today(new Date(row.ready_at));
       await this.mail.enqueue(trx, {
         template: 'balance-reminder',
@@ -190,21 +245,48 @@ export class RemindersService {
         bookingId,
         userId: row.customer_id,
         dedupeKey: `reminder:balanceUnpaid:${bookingId}:${row.ready_event_id}`,
-        data: { name: row.customer_name, reference: row.reference, balanceDue: money.balanceDue, currency: money.currency, readySince, payUrl: `${this.publicUrl()}/builds/${bookingId}` },
+        data: {
+          name: row.customer_name,
+          reference: row.reference,
+          balanceDue: money.balanceDue,
+          currency: money.currency,
+          readySince,
+          payUrl: `${this.publicUrl()}/builds/${bookingId}`,
+        },
       });
-      await this.bookings.insertNote(trx, booking, reminderActor, reminderWords.balanceNote(format.money(money.balanceDue, money.currency), days), 'internal');
+      await this.bookings.insertNote(
+        trx,
+        booking,
+        reminderActor,
+        reminderWords.balanceNote(format.money(money.balanceDue, money.currency), days),
+        'internal',
+      );
       return true;
     });
   }
 
-  private remindCheckout(bookingId: string, paymentId: string, openedBefore: Date, hours: number, { format }: { format: ShopFormat }): Promise<boolean> {
+  private remindCheckout(
+    bookingId: string,
+    paymentId: string,
+    openedBefore: Date,
+    hours: number,
+    { format }: { format: ShopFormat },
+  ): Promise<boolean> {
     return this.db.transaction().execute(async (trx) => {
       const booking = await this.bookings.lock(trx, bookingId);
       const row = (await this.reminders.checkoutsUnfinished(openedBefore, bookingId, trx)).find((r) => r.payment_id === paymentId);
       if (!booking || !row) return false;
       if (await this.reminders.hasPayment(trx, bookingId, row.kind, ['processing', 'paid'])) return false;
       // Once per booking and kind of payment: a player who opens a second checkout and leaves it too is not reminded again.
-      if (!(await this.reminders.claim(trx, { kind: 'checkoutAbandoned', bookingId, eventKey: `checkout:${row.kind}`, dueAt: new Date(new Date(row.opened_at).getTime() + hours * HOUR_MS) }))) return false;
+      if (
+        !(await this.reminders.claim(trx, {
+          kind: 'checkoutAbandoned',
+          bookingId,
+          eventKey: `checkout:${row.kind}`,
+          dueAt: new Date(new Date(row.opened_at).getTime() + hours * HOUR_MS),
+        }))
+      )
+        return false;
       const currency = row.currency.trim();
       await this.mail.enqueue(trx, {
         template: 'checkout-reminder',
@@ -212,9 +294,22 @@ export class RemindersService {
         bookingId,
         userId: row.customer_id,
         dedupeKey: `reminder:checkoutAbandoned:${bookingId}:${row.kind}`,
-        data: { name: row.customer_name, reference: row.reference, kind: row.kind, amount: row.amount, currency, payUrl: `${this.publicUrl()}/builds/${bookingId}` },
+        data: {
+          name: row.customer_name,
+          reference: row.reference,
+          kind: row.kind,
+          amount: row.amount,
+          currency,
+          payUrl: `${this.publicUrl()}/builds/${bookingId}`,
+        },
       });
-      await this.bookings.insertNote(trx, booking, reminderActor, reminderWords.checkoutNote(`${row.kind} of ${format.money(row.amount, currency)}`, hours), 'internal');
+      await this.bookings.insertNote(
+        trx,
+        booking,
+        reminderActor,
+        reminderWords.checkoutNote(`${row.kind} of ${format.money(row.amount, currency)}`, hours),
+        'internal',
+      );
       return true;
     });
   }
@@ -235,7 +330,15 @@ export class RemindersService {
         return false;
       }
       if (await this.reminders.hasPayment(trx, bookingId, 'deposit', ['processing', 'paid'])) return false;
-      if (!(await this.reminders.claim(trx, { kind: 'requestExpiry', bookingId, eventKey: 'requested', dueAt: new Date(new Date(row.created_at).getTime() + days * DAY_MS) }))) return false;
+      if (
+        !(await this.reminders.claim(trx, {
+          kind: 'requestExpiry',
+          bookingId,
+          eventKey: 'requested',
+          dueAt: new Date(new Date(row.created_at).getTime() + days * DAY_MS),
+        }))
+      )
+        return false;
       // Money on its way keeps the request open; throwing undoes the claim, so a later sweep looks again.
       if (!(await this.payments.closeUnfinishedCheckouts(trx, bookingId))) throw new RequestStillPaying(row.reference);
       const note = reminderWords.expiredNote(days);

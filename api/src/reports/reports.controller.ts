@@ -1,6 +1,13 @@
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
-import { dateRangeQuerySchema, type DateRangeQuery, type HoursReport, type OutstandingReport, type RevenueReport, type UtilisationReport } from '@loomwright/shared';
+import {
+  dateRangeQuerySchema,
+  type DateRangeQuery,
+  type HoursReport,
+  type OutstandingReport,
+  type RevenueReport,
+  type UtilisationReport,
+} from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodQuery } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';

@@ -21,7 +21,8 @@ import { isoWeekLabel, mondayOf } from './iso-week';
 
 const sum = (values: Decimal.Value[]) => values.reduce<Decimal>((s, v) => s.plus(v), new Decimal(0));
 const hours = (d: Decimal.Value) => new Decimal(d).toFixed(2);
-const percent = (part: Decimal.Value, whole: Decimal.Value) => (new Decimal(whole).isZero() ? null : new Decimal(part).div(whole).times(100).toFixed(1));
+const percent = (part: Decimal.Value, whole: Decimal.Value) =>
+  new Decimal(whole).isZero() ? null : new Decimal(part).div(whole).times(100).toFixed(1);
 
 /** A request waiting for its deposit; a build whose balance is owed (the pedals may still be on their way). */
 const DEPOSIT_STATES = ['requested'];
@@ -45,7 +46,14 @@ export class ReportsService {
     const months = new Map<string, RevenueMonth>();
     for (const r of rows) {
       const key = `${r.month} ${r.currency}`;
-      const m = months.get(key) ?? { month: r.month, currency: r.currency, deposits: '0.00', balances: '0.00', refunds: '0.00', net: '0.00' };
+      const m = months.get(key) ?? {
+        month: r.month,
+        currency: r.currency,
+        deposits: '0.00',
+        balances: '0.00',
+        refunds: '0.00',
+        net: '0.00',
+      };
       if (r.entry === 'refund') m.refunds = new Decimal(m.refunds).minus(r.amount).toFixed(2);
       else if (r.payment_kind === 'deposit') m.deposits = new Decimal(m.deposits).plus(r.amount).toFixed(2);
       else m.balances = new Decimal(m.balances).plus(r.amount).toFixed(2);
@@ -83,7 +91,14 @@ export class ReportsService {
     const items: OutstandingItem[] = [];
     for (const b of rows) {
       const { currency, money } = bookingMoney(b, shop.currency.trim());
-      const base = { bookingId: b.id, reference: b.reference, state: b.state, customerName: b.customer_name, builderName: b.builder_name, currency };
+      const base = {
+        bookingId: b.id,
+        reference: b.reference,
+        state: b.state,
+        customerName: b.customer_name,
+        builderName: b.builder_name,
+        currency,
+      };
       if (DEPOSIT_STATES.includes(b.state) && new Decimal(money.paid).isZero() && b.estimate) {
         items.push({ ...base, kind: 'deposit', amount: b.estimate.deposit, since: dayInTimeZone(b.created_at, shop.timezone) });
       }
@@ -106,7 +121,11 @@ export class ReportsService {
   async hours(query: DateRangeQuery): Promise<HoursReport> {
     const shop = await this.office.shop();
     const range = { ...query, timeZone: shop.timezone };
-    const [builds, own, builders] = await Promise.all([this.office.hoursPerBuild(range), this.office.hoursPerBuilder(range), this.office.builders()]);
+    const [builds, own, builders] = await Promise.all([
+      this.office.hoursPerBuild(range),
+      this.office.hoursPerBuilder(range),
+      this.office.builders(),
+    ]);
     const buildRows = builds.map((b) => ({
       bookingId: b.id,
       reference: b.reference,
@@ -143,7 +162,9 @@ export class ReportsService {
     const from = mondayOf(query.from);
     const to = addDays(mondayOf(query.to), 6);
     if (daysBetween(from, to) >= MAX_UTILISATION_DAYS) {
-      throw new BadRequestException(`Bench utilisation covers at most ${MAX_UTILISATION_DAYS} days at a time; choose a shorter range from … to.`);
+      throw new BadRequestException(
+        `Bench utilisation covers at most ${MAX_UTILISATION_DAYS} days at a time; choose a shorter range from … to.`,
+      );
     }
     const [builders, calendar, booked, recorded] = await Promise.all([
       this.office.builders(),

@@ -49,10 +49,13 @@ export class CsrfGuard implements CanActivate {
     const documented = this.reflector.getAllAndOverride<string[] | undefined>(DECORATORS.API_CONSUMES, targets) ?? DEFAULT_BODY_TYPES;
     const sent = req.headers['content-type'];
     if (!sent || !mediaTypeIs(sent, documented)) {
-      throw new UnsupportedMediaTypeException(errorResponse('unsupported_media_type',
-        `This request must be sent as ${documented.join(' or ')} (the Content-Type header), even when it has no body; ` +
-          (sent ? `it was sent as ${sent.split(';')[0]}.` : 'it had no Content-Type.'),
-      ));
+      throw new UnsupportedMediaTypeException(
+        errorResponse(
+          'unsupported_media_type',
+          `This request must be sent as ${documented.join(' or ')} (the Content-Type header), even when it has no body; ` +
+            (sent ? `it was sent as ${sent.split(';')[0]}.` : 'it had no Content-Type.'),
+        ),
+      );
     }
     return true;
   }
@@ -61,15 +64,23 @@ export class CsrfGuard implements CanActivate {
     const origin = req.headers.origin;
     if (origin !== undefined) {
       if (!this.isOwnOrigin(origin, req)) {
-        throw new ForbiddenException(errorResponse('cross_site_request',
-          `This request came from another site (${origin}) and was refused: changes are accepted only from the shop's own pages. ` +
-            'If that address is yours, add it to ALLOWED_ORIGINS.',
-        ));
+        throw new ForbiddenException(
+          errorResponse(
+            'cross_site_request',
+            `This request came from another site (${origin}) and was refused: changes are accepted only from the shop's own pages. ` +
+              'If that address is yours, add it to ALLOWED_ORIGINS.',
+          ),
+        );
       }
       return;
     }
     if (req.headers['sec-fetch-site'] === 'cross-site') {
-      throw new ForbiddenException(errorResponse('cross_site_request', "This request came from another site (Sec-Fetch-Site: cross-site) and was refused: changes are accepted only from the shop's own pages."));
+      throw new ForbiddenException(
+        errorResponse(
+          'cross_site_request',
+          "This request came from another site (Sec-Fetch-Site: cross-site) and was refused: changes are accepted only from the shop's own pages.",
+        ),
+      );
     }
   }
 

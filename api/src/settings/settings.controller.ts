@@ -15,7 +15,9 @@ import {
   type CreateClosureInput,
   type ShopClosureView,
   type ShopSettingsView,
-  type UpdateSettingsInput, requestWords } from '@loomwright/shared';
+  type UpdateSettingsInput,
+  requestWords,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';

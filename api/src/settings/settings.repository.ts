@@ -65,7 +65,13 @@ export class SettingsRepository {
   insertHolidayChoice(trx: Executor, values: { countryCode: string; day: string; name: string; shopWorks: boolean; decidedBy: string }) {
     return trx
       .insertInto('shop_holiday_choices')
-      .values({ country_code: values.countryCode, day: values.day, holiday_name: values.name, shop_works: values.shopWorks, decided_by: values.decidedBy })
+      .values({
+        country_code: values.countryCode,
+        day: values.day,
+        holiday_name: values.name,
+        shop_works: values.shopWorks,
+        decided_by: values.decidedBy,
+      })
       .returning(['day', 'holiday_name', 'shop_works', 'decided_at'])
       .executeTakeFirstOrThrow();
   }

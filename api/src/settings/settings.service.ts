@@ -19,7 +19,13 @@ import { SettingsRepository } from './settings.repository';
 /** How many of the owner's holiday choices the settings page shows. */
 const HOLIDAY_HISTORY_LINES = 20;
 
-function choiceView(c: { day: string; holiday_name: string; shop_works: boolean; decided_at: Date; decided_by_name: string | null }): HolidayChoiceView {
+function choiceView(c: {
+  day: string;
+  holiday_name: string;
+  shop_works: boolean;
+  decided_at: Date;
+  decided_by_name: string | null;
+}): HolidayChoiceView {
   return { day: c.day, name: c.holiday_name, shopWorks: c.shop_works, decidedBy: c.decided_by_name, decidedAt: c.decided_at.toISOString() };
 }
 
@@ -51,7 +57,13 @@ export class SettingsService {
       locale: row.locale,
       contactEmail: row.contact_email,
       postalAddress: row.address_line1
-        ? { line1: row.address_line1, line2: row.address_line2, city: row.address_city, region: row.address_region, postalCode: row.address_postal_code }
+        ? {
+            line1: row.address_line1,
+            line2: row.address_line2,
+            city: row.address_city,
+            region: row.address_region,
+            postalCode: row.address_postal_code,
+          }
         : null,
       closures,
       upcomingHolidays: [...holidays.entries()].map(([date, name]) => ({ date, name, shopWorks: worked.has(date) })),
@@ -94,12 +106,16 @@ export class SettingsService {
       if (!name) throw new BadRequestException(shopWords.notAHoliday(day, country));
       await this.settings.lockHolidayDay(trx, country, day);
       const latest = (await this.settings.latestHolidayChoices(trx, country)).find((c) => c.day === day);
-      const current: HolidayChoiceView = latest
-        ? choiceView(latest)
-        : { day, name, shopWorks: false, decidedBy: null, decidedAt: '' };
+      const current: HolidayChoiceView = latest ? choiceView(latest) : { day, name, shopWorks: false, decidedBy: null, decidedAt: '' };
       let view = current;
       if (current.shopWorks !== dto.shopWorks) {
-        const inserted = await this.settings.insertHolidayChoice(trx, { countryCode: country, day, name, shopWorks: dto.shopWorks, decidedBy: user.id });
+        const inserted = await this.settings.insertHolidayChoice(trx, {
+          countryCode: country,
+          day,
+          name,
+          shopWorks: dto.shopWorks,
+          decidedBy: user.id,
+        });
         view = choiceView({ ...inserted, decided_by_name: user.name });
       }
       const affected = dto.shopWorks ? [] : await this.settings.buildsWithBenchTimeBetween(trx, day, day);

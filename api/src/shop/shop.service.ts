@@ -19,7 +19,13 @@ export class ShopService {
       contactEmail: row.contact_email,
       postalAddress: row.address_line1
         ? postalAddressLine(
-            { line1: row.address_line1, line2: row.address_line2, city: row.address_city, region: row.address_region, postalCode: row.address_postal_code },
+            {
+              line1: row.address_line1,
+              line2: row.address_line2,
+              city: row.address_city,
+              region: row.address_region,
+              postalCode: row.address_postal_code,
+            },
             row.country_code.trim(),
           )
         : null,

@@ -14,13 +14,14 @@ export function storefrontNotFound(distDir: string) {
   return (req: Request, res: Response, next: NextFunction) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return next();
     const pathname = req.path;
-    if (pathname === '/api' || pathname.startsWith('/api/') || pathname === '/backoffice' || pathname.startsWith('/backoffice/')) return next();
+    if (pathname === '/api' || pathname.startsWith('/api/') || pathname === '/backoffice' || pathname.startsWith('/backoffice/'))
+      return next();
     if (isStorefrontPath(pathname)) return next();
     const file = path.join(distDir, path.normalize(decodeURIComponentSafe(pathname)).replace(/^([/\\])+/, ''));
     if (file.startsWith(distDir + path.sep) && existsSync(file) && statSync(file).isFile()) return next();
     res.status(404);
     res.setHeader('Cache-Control', 'no-cache');
-    const wantsPage = !path.extname(pathname) && (req.accepts(['html', 'json', 'text']) === 'html');
+    const wantsPage = !path.extname(pathname) && req.accepts(['html', 'json', 'text']) === 'html';
     if (wantsPage && existsSync(indexFile)) {
       // Read per request, as the static server does, so a new build is served without a restart.
       res.sendFile(indexFile, { headers: { 'Cache-Control': 'no-cache' } }, (error) => error && next(error));

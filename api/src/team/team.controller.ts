@@ -11,7 +11,9 @@ import {
   type AuthUser,
   type BuilderAbsenceView,
   type TeamMember,
-  type UpdateTeamMemberInput, requestWords } from '@loomwright/shared';
+  type UpdateTeamMemberInput,
+  requestWords,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
@@ -51,7 +53,9 @@ export class TeamController {
   @ApiZodResponse(responseSchemas.addAbsenceResponseSchema)
   @Post(':builderId/absences')
   @Roles('owner')
-  @ApiOkResponse({ description: 'The absence, and the builds on that builder’s bench then (move them through POST /api/bookings/:id/reschedule).' })
+  @ApiOkResponse({
+    description: 'The absence, and the builds on that builder’s bench then (move them through POST /api/bookings/:id/reschedule).',
+  })
   addAbsence(
     @Param('builderId', builderIdPipe) builderId: string,
     @Body(new ZodValidationPipe(absenceSchema)) body: AbsenceInput,
@@ -63,9 +67,7 @@ export class TeamController {
   @Delete('absences/:absenceId')
   @HttpCode(204)
   @Roles('owner')
-  deleteAbsence(
-    @Param('absenceId', uuidParam(requestWords.notAnId('an absence'))) id: string,
-  ): Promise<void> {
+  deleteAbsence(@Param('absenceId', uuidParam(requestWords.notAnId('an absence'))) id: string): Promise<void> {
     return this.team.deleteAbsence(id);
   }
 

@@ -1,6 +1,14 @@
 import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
-import type { AbsenceInput, AddAbsenceResponse, AuthUser, BuilderAbsenceView, TeamMember, UpdateTeamMemberInput, WeeklyHours } from '@loomwright/shared';
+import type {
+  AbsenceInput,
+  AddAbsenceResponse,
+  AuthUser,
+  BuilderAbsenceView,
+  TeamMember,
+  UpdateTeamMemberInput,
+  WeeklyHours,
+} from '@loomwright/shared';
 import { daysBetween } from '../bench/calendar-days';
 import { Database } from '../database/database';
 import { TeamRepository } from './team.repository';
@@ -62,7 +70,8 @@ export class TeamService {
 
   /** A builder's days away; builds already on their bench then are listed so the shop can move them. */
   async addAbsence(builderId: string, input: AbsenceInput): Promise<AddAbsenceResponse> {
-    if (daysBetween(input.startsOn, input.endsOn) >= 366) throw new BadRequestException('An absence can last at most 366 days; add another for longer.');
+    if (daysBetween(input.startsOn, input.endsOn) >= 366)
+      throw new BadRequestException('An absence can last at most 366 days; add another for longer.');
     return this.db.transaction().execute(async (trx) => {
       const builder = (await this.team.list(trx)).find((b) => b.id === builderId);
       if (!builder) throw new NotFoundException('There is no builder with that id.');

@@ -17,7 +17,10 @@ export class TodayController {
   @Get()
   @Roles('builder', 'owner')
   @ApiZodQuery(todayQuerySchema)
-  @ApiOkResponse({ description: 'Builds on the bench today and this week, and built ones not yet gone: what each waits for and the next thing to do (todayResponseSchema).' })
+  @ApiOkResponse({
+    description:
+      'Builds on the bench today and this week, and built ones not yet gone: what each waits for and the next thing to do (todayResponseSchema).',
+  })
   today(@CurrentUser() user: AuthUser, @Query(new ZodValidationPipe(todayQuerySchema)) query: TodayQuery): Promise<TodayResponse> {
     return this.todayService.today(user, query);
   }

@@ -1,7 +1,15 @@
 import { ForbiddenException, Injectable } from '@nestjs/common';
 import Decimal from 'decimal.js';
 import { sql } from 'kysely';
-import { shopFormat, todayWords, type AuthUser, type TodayBuild, type TodayQuery, type TodayResponse, type TodayWaitKind } from '@loomwright/shared';
+import {
+  shopFormat,
+  todayWords,
+  type AuthUser,
+  type TodayBuild,
+  type TodayQuery,
+  type TodayResponse,
+  type TodayWaitKind,
+} from '@loomwright/shared';
 import { addDays, todayIn } from '../bench/calendar-days';
 import { Database } from '../database/database';
 import { bookingMoney } from '../exports/booking-money';
@@ -28,7 +36,11 @@ export class TodayService {
   async today(user: AuthUser, query: TodayQuery, now = new Date()): Promise<TodayResponse> {
     if (user.role !== 'owner' && query.scope === 'all') throw new ForbiddenException(todayWords.ownerOnlyAll);
     const scope = query.scope ?? (user.role === 'owner' ? 'all' : 'mine');
-    const shop = await this.db.selectFrom('shop_settings').select(['timezone', 'locale', 'currency']).where('id', '=', 1).executeTakeFirstOrThrow();
+    const shop = await this.db
+      .selectFrom('shop_settings')
+      .select(['timezone', 'locale', 'currency'])
+      .where('id', '=', 1)
+      .executeTakeFirstOrThrow();
     const format = shopFormat({ locale: shop.locale, currency: shop.currency, timeZone: shop.timezone });
     const today = todayIn(shop.timezone, now);
     const weekStart = mondayOf(today);
@@ -54,13 +66,21 @@ export class TodayService {
         'bu.name as builder_name',
         sql<Array<{ day: string; hours: string }>>`coalesce((
           select json_agg(json_build_object('day', a.day::text, 'hours', (upper(a.hours) - lower(a.hours))::text) order by a.day)
-          from bench_allocations a where a.booking_id = b.id and a.day between ${weekStart}::date and ${weekEnd}::date), '[]'::json)`.as('bench_days'),
-        sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id and t.worked_on = ${today}::date), 0)::text`.as('recorded_today'),
+          from bench_allocations a where a.booking_id = b.id and a.day between ${weekStart}::date and ${weekEnd}::date), '[]'::json)`.as(
+          'bench_days',
+        ),
+        sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id and t.worked_on = ${today}::date), 0)::text`.as(
+          'recorded_today',
+        ),
         sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id), 0)::text`.as('recorded_hours'),
         sql<string | null>`coalesce(
           (select q.labor_hours::text from quotes q where q.booking_id = b.id and q.kind = 'firm' order by q.created_at desc, q.id desc limit 1),
-          (select q.labor_hours::text from quotes q where q.booking_id = b.id and q.kind = 'estimate' order by q.created_at, q.id limit 1))`.as('quoted_hours'),
-        sql<number>`(select count(*)::int from layout_approvals la where la.booking_id = b.id and la.status = 'waiting')`.as('waiting_layouts'),
+          (select q.labor_hours::text from quotes q where q.booking_id = b.id and q.kind = 'estimate' order by q.created_at, q.id limit 1))`.as(
+          'quoted_hours',
+        ),
+        sql<number>`(select count(*)::int from layout_approvals la where la.booking_id = b.id and la.status = 'waiting')`.as(
+          'waiting_layouts',
+        ),
         sql<number>`(select count(*)::int from booking_extras e where e.booking_id = b.id and e.status = 'proposed')`.as('proposed_extras'),
       ])
       .where(sql<boolean>`b.state::text in (${sql.join([...ACTIVE_STATES])})`)
@@ -83,7 +103,10 @@ export class TodayService {
     const readyIds = new Set(rows.filter((r) => r.state === 'ready').map((r) => r.id));
     const balances = new Map<string, { due: string | null; waived: boolean; currency: string }>();
     if (readyIds.size > 0) {
-      for (const row of await this.office.bookingsInStates(['ready']).where('b.id', 'in', [...readyIds]).execute()) {
+      for (const row of await this.office
+        .bookingsInStates(['ready'])
+        .where('b.id', 'in', [...readyIds])
+        .execute()) {
         const { currency, money } = bookingMoney(row, shop.currency);
         balances.set(row.id, { due: money.balanceDue, waived: money.balanceWaived, currency });
       }
@@ -105,7 +128,8 @@ export class TodayService {
       if (r.proposed_extras > 0) waitingFor.push({ kind: 'approval', words: todayWords.extraApproval(r.proposed_extras) });
       const balance = balances.get(r.id);
       const balanceOwed = balance?.due != null && new Decimal(balance.due).gt(0) && !balance.waived;
-      if (r.state === 'ready' && balanceOwed) waitingFor.push({ kind: 'balance', words: todayWords.balance(format.money(balance!.due!, balance!.currency)) });
+      if (r.state === 'ready' && balanceOwed)
+        waitingFor.push({ kind: 'balance', words: todayWords.balance(format.money(balance!.due!, balance!.currency)) });
       if (WORKING_STATES.has(r.state) && new Decimal(hoursToday).gt(0) && new Decimal(r.recorded_today).lt(hoursToday)) {
         waitingFor.push({ kind: 'hours', words: todayWords.hoursToRecord(format.hours(hoursToday), format.hours(r.recorded_today)) });
       }
@@ -143,7 +167,12 @@ export class TodayService {
       };
     });
     const order = { today: 0, week: 1, ready: 2 } as const;
-    builds.sort((a, b) => order[a.when] - order[b.when] || (a.benchDays[0]?.day ?? '').localeCompare(b.benchDays[0]?.day ?? '') || a.reference.localeCompare(b.reference));
+    builds.sort(
+      (a, b) =>
+        order[a.when] - order[b.when] ||
+        (a.benchDays[0]?.day ?? '').localeCompare(b.benchDays[0]?.day ?? '') ||
+        a.reference.localeCompare(b.reference),
+    );
     return { ...base, builds };
   }
 }

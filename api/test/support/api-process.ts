@@ -57,7 +57,8 @@ export async function startApiProcess(env: Record<string, string>, timeoutMs = 6
   const url = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    if (child.exitCode !== null) throw new Error(`The API process exited (${child.exitCode}) before it was healthy:\n${lines.slice(-30).join('\n')}`);
+    if (child.exitCode !== null)
+      throw new Error(`The API process exited (${child.exitCode}) before it was healthy:\n${lines.slice(-30).join('\n')}`);
     try {
       if ((await fetch(`${url}/api/health`)).ok) break;
     } catch {

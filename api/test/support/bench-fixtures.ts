@@ -49,7 +49,11 @@ export async function createBooking(
   },
 ) {
   await ensurePriceBook(db);
-  const customer = await db.selectFrom('users').select('id').where('email', '=', opts.customerEmail ?? 'player@mail.example').executeTakeFirstOrThrow();
+  const customer = await db
+    .selectFrom('users')
+    .select('id')
+    .where('email', '=', opts.customerEmail ?? 'player@mail.example')
+    .executeTakeFirstOrThrow();
   const state = opts.state ?? 'deposit_paid';
   const configuration = {
     surfaceId: 'surface-610',

@@ -23,7 +23,13 @@ export interface PaymentHarness {
  */
 export async function startPaymentHarness(): Promise<PaymentHarness> {
   // Bank debits settle only when a test says so (control.settle), so the "processing" state can be looked at first.
-  const fake = await startPaymentFake({ port: 0, webhookSecret: WEBHOOK_SECRET, retryDelaysMs: [50, 100, 200, 400], settleDelayMs: null, laterDelayMs: 100 });
+  const fake = await startPaymentFake({
+    port: 0,
+    webhookSecret: WEBHOOK_SECRET,
+    retryDelaysMs: [50, 100, 200, 400],
+    settleDelayMs: null,
+    laterDelayMs: 100,
+  });
   const uploadsDir = await mkdtemp(path.join(tmpdir(), 'lw-uploads-'));
   const t = await createTestApp({
     env: {

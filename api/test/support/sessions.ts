@@ -18,7 +18,11 @@ export type DemoPerson = keyof typeof demoEmails;
  */
 export async function sessionCookieFor(t: TestApp, person: DemoPerson): Promise<string> {
   const { SessionsService } = await import('../../src/auth/sessions.service');
-  const row = await t.db.selectFrom('users').select(['id', 'email', 'name', 'role']).where('email', '=', demoEmails[person]).executeTakeFirstOrThrow();
+  const row = await t.db
+    .selectFrom('users')
+    .select(['id', 'email', 'name', 'role'])
+    .where('email', '=', demoEmails[person])
+    .executeTakeFirstOrThrow();
   const user: AuthUser = { id: row.id, email: row.email, name: row.name, role: row.role };
   return `lw_session=${await t.app.get(SessionsService).open(user)}`;
 }
@@ -26,8 +30,7 @@ export async function sessionCookieFor(t: TestApp, person: DemoPerson): Promise<
 export const setCookies = (res: { headers: Record<string, unknown> }): string[] =>
   (res.headers['set-cookie'] as string[] | undefined) ?? [];
 
-export const sessionCookieOf = (res: { headers: Record<string, unknown> }) =>
-  setCookies(res).find((c) => c.startsWith('lw_session='));
+export const sessionCookieOf = (res: { headers: Record<string, unknown> }) => setCookies(res).find((c) => c.startsWith('lw_session='));
 
 /** The cookie as a browser would send it back: name=value only. */
 export const asRequestCookie = (setCookie: string) => setCookie.split(';')[0]!;

@@ -13,7 +13,12 @@ const router = createBrowserRouter(
       element: <DocumentTitle />,
       children: [
         { path: '/sign-in', handle: titled('Staff sign in'), lazy: () => import('src/app/routes/sign-in'), errorElement: <RouteError /> },
-        { path: '/accept-invite', handle: titled('Join the bench'), lazy: () => import('src/app/routes/accept-invite'), errorElement: <RouteError /> },
+        {
+          path: '/accept-invite',
+          handle: titled('Join the bench'),
+          lazy: () => import('src/app/routes/accept-invite'),
+          errorElement: <RouteError />,
+        },
         {
           path: '/',
           element: <AppLayout />,

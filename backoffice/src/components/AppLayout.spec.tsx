@@ -8,10 +8,20 @@ import { theme } from 'src/theme';
 import { AppLayout } from './AppLayout';
 
 // jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= ((query: string) =>
-  ({ matches: false, media: query, onchange: null, addListener() {}, removeListener() {}, addEventListener() {}, removeEventListener() {}, dispatchEvent: () => false }) as MediaQueryList);
+window.matchMedia ??= (query: string) =>
+  ({
+    matches: false,
+    media: query,
+    onchange: null,
+    addListener() {},
+    removeListener() {},
+    addEventListener() {},
+    removeEventListener() {},
+    dispatchEvent: () => false,
+  }) as MediaQueryList;
 
-const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+const json = (status: number, body: unknown) =>
+  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
 function SignInStandIn() {
   const location = useLocation();
@@ -24,7 +34,14 @@ function renderAt(url: string, me: () => Response) {
     if (path === '/api/auth/session') return me();
     if (path === '/api/auth/sign-out') return json(200, { signedOut: true });
     if (path === '/api/health') return json(200, { status: 'ok', db: 'up' });
-    return json(200, { name: 'Copperline Rig Works', tagline: '', currency: 'USD', countryCode: 'US', timezone: 'UTC', contactEmail: 'bench@shop.example' });
+    return json(200, {
+      name: 'Copperline Rig Works',
+      tagline: '',
+      currency: 'USD',
+      countryCode: 'US',
+      timezone: 'UTC',
+      contactEmail: 'bench@shop.example',
+    });
   });
   vi.stubGlobal('fetch', fetchMock);
   const router = createMemoryRouter(
@@ -74,7 +91,9 @@ describe('the backoffice layout lets only staff in', () => {
   it('shows a player a plain "staff only" page with a working sign-out', async () => {
     let signedIn = true;
     const fetchMock = renderAt('/bench', () =>
-      signedIn ? json(200, { user: { id: 'c1', email: 'player@mail.example', name: 'Rowan Achterberg', role: 'customer' } }) : json(200, { user: null }),
+      signedIn
+        ? json(200, { user: { id: 'c1', email: 'player@mail.example', name: 'Rowan Achterberg', role: 'customer' } })
+        : json(200, { user: null }),
     );
     expect(await screen.findByRole('heading', { name: 'Staff only' })).toBeTruthy();
     expect(screen.queryByText('bench page')).toBeNull();

@@ -80,7 +80,15 @@ function StaffLayout({ user }: { user: AuthUser }) {
           component="nav"
           aria-label="Backoffice"
           size="sm"
-          sx={{ '--ListItem-radius': '6px', flex: 'none', order: { xs: 3, md: 0 }, width: { xs: '100%', md: 'auto' }, flexDirection: { xs: 'row', md: 'column' }, flexWrap: 'wrap', gap: { xs: 0.5, md: 0 } }}
+          sx={{
+            '--ListItem-radius': '6px',
+            flex: 'none',
+            order: { xs: 3, md: 0 },
+            width: { xs: '100%', md: 'auto' },
+            flexDirection: { xs: 'row', md: 'column' },
+            flexWrap: 'wrap',
+            gap: { xs: 0.5, md: 0 },
+          }}
         >
           {navigation.map((item) => (
             <ListItem key={item.to}>

@@ -62,7 +62,14 @@ export function BenchDatePreview({
           </Stack>
         </Alert>
       )}
-      <Box component="table" sx={{ borderCollapse: 'collapse', fontVariantNumeric: 'tabular-nums', '& td, & th': { px: 1, py: 0.25, textAlign: 'left', fontSize: 'sm' } }}>
+      <Box
+        component="table"
+        sx={{
+          borderCollapse: 'collapse',
+          fontVariantNumeric: 'tabular-nums',
+          '& td, & th': { px: 1, py: 0.25, textAlign: 'left', fontSize: 'sm' },
+        }}
+      >
         <caption style={{ textAlign: 'left', fontSize: 14 }}>{option.builder.name}'s load on those days</caption>
         <thead>
           <tr>

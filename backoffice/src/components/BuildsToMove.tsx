@@ -50,7 +50,8 @@ export function BuildsToMove({ builds, reason, onDone }: { builds: HitBuild[]; r
       setMoved((m) => ({ ...m, ...Object.fromEntries(results.map((r) => [r.id, r.result.benchDate])) }));
       onDone(`Moved ${results.length === 1 ? 'the build' : `${results.length} builds`}; each player has been e-mailed the new date.`);
     },
-    onSettled: () => Promise.all([queryClient.invalidateQueries({ queryKey: ['bench'] }), queryClient.invalidateQueries({ queryKey: ['bookings'] })]),
+    onSettled: () =>
+      Promise.all([queryClient.invalidateQueries({ queryKey: ['bench'] }), queryClient.invalidateQueries({ queryKey: ['bookings'] })]),
   });
   const waiting = builds.filter((b) => !moved[b.bookingId]);
   if (builds.length === 0) return null;
@@ -59,13 +60,22 @@ export function BuildsToMove({ builds, reason, onDone }: { builds: HitBuild[]; r
       <Typography level="title-sm">Already on the bench those days</Typography>
       <List size="sm">
         {builds.map((b) => (
-          <ListItem key={b.bookingId} endAction={
-            moved[b.bookingId] ? undefined : (
-              <Button size="sm" variant="outlined" color="neutral" loading={move.isPending && move.variables?.includes(b.bookingId)} onClick={() => move.mutate([b.bookingId])}>
-                Move to the next date that holds it
-              </Button>
-            )
-          }>
+          <ListItem
+            key={b.bookingId}
+            endAction={
+              moved[b.bookingId] ? undefined : (
+                <Button
+                  size="sm"
+                  variant="outlined"
+                  color="neutral"
+                  loading={move.isPending && move.variables?.includes(b.bookingId)}
+                  onClick={() => move.mutate([b.bookingId])}
+                >
+                  Move to the next date that holds it
+                </Button>
+              )
+            }
+          >
             <Typography level="body-sm">
               {b.reference}: {b.days.map(formatDay).join(', ')}
               {moved[b.bookingId] ? ` → moved to ${formatDay(moved[b.bookingId])}` : ''}
@@ -74,7 +84,13 @@ export function BuildsToMove({ builds, reason, onDone }: { builds: HitBuild[]; r
         ))}
       </List>
       {waiting.length > 1 && (
-        <Button size="sm" color="accent" sx={{ alignSelf: 'flex-start' }} loading={move.isPending} onClick={() => move.mutate(waiting.map((b) => b.bookingId))}>
+        <Button
+          size="sm"
+          color="accent"
+          sx={{ alignSelf: 'flex-start' }}
+          loading={move.isPending}
+          onClick={() => move.mutate(waiting.map((b) => b.bookingId))}
+        >
           Move all {waiting.length} to the next dates that hold them
         </Button>
       )}

@@ -31,7 +31,9 @@ function afterPayment(p: PaymentRow): string {
     parts.push(`${refundWords[p.refundStatus]}${p.refundFailure ? ` (${p.refundFailure})` : ''}`);
   }
   if (p.dispute) {
-    parts.push(`disputed: ${p.dispute.reason.replace(/_/g, ' ')}, ${p.dispute.status.replace(/_/g, ' ')}${p.dispute.releasedAt ? ', delivery released' : ''}`);
+    parts.push(
+      `disputed: ${p.dispute.reason.replace(/_/g, ' ')}, ${p.dispute.status.replace(/_/g, ' ')}${p.dispute.releasedAt ? ', delivery released' : ''}`,
+    );
   }
   return parts.length ? ` · ${parts.join(' · ')}` : '';
 }

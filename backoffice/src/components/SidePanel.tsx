@@ -28,9 +28,7 @@ export function SidePanel({
         content: { sx: { bgcolor: 'transparent', p: { md: 2, sm: 0 }, boxShadow: 'none', width: { xs: '100%', md: 640 } } },
       }}
     >
-      <Sheet
-        sx={{ borderRadius: 'md', p: 2, display: 'flex', flexDirection: 'column', gap: 2, height: '100%', overflow: 'auto' }}
-      >
+      <Sheet sx={{ borderRadius: 'md', p: 2, display: 'flex', flexDirection: 'column', gap: 2, height: '100%', overflow: 'auto' }}>
         <DialogTitle component="h2" sx={{ pr: 5 }}>
           {title}
         </DialogTitle>

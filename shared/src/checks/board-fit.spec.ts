@@ -7,7 +7,15 @@ import { referenceBoard } from '../estimate/reference-rigs.fixture';
 import { boardFitOf, SPACING_MM } from './board-fit';
 import { signalChainOf } from './signal-chain';
 
-const surface = (id: string, widthMm: number, depthMm: number): SurfaceItem => ({ id, name: id, description: '', widthMm, depthMm, price: '100.00', custom: false });
+const surface = (id: string, widthMm: number, depthMm: number): SurfaceItem => ({
+  id,
+  name: id,
+  description: '',
+  widthMm,
+  depthMm,
+  price: '100.00',
+  custom: false,
+});
 const square = (name: string): PedalInput => ({ name, powered: true, inLoop: false, widthMm: 100, depthMm: 100 });
 const fourSquares: RigConfiguration = { ...referenceBoard('serial', 'master'), pedals: ['a', 'b', 'c', 'd'].map(square) };
 
@@ -19,7 +27,14 @@ describe('board fit', () => {
     expect(SPACING_MM).toBe(15);
     const chain = signalChainOf(fourSquares);
     const exact = boardFitOf(chain, surface('exact', 230, 230), []);
-    expect(exact).toMatchObject({ requiredAreaMm2: 52900, usableAreaMm2: 52900, fillRatio: 1, areaFits: true, layoutFits: true, status: 'ok' });
+    expect(exact).toMatchObject({
+      requiredAreaMm2: 52900,
+      usableAreaMm2: 52900,
+      fillRatio: 1,
+      areaFits: true,
+      layoutFits: true,
+      status: 'ok',
+    });
     // In signal order, right to left along the back row, then the next row forward (rows counted
     // from the front): a at the back right, b back left, c front right, d front left; 15 mm
     // between neighbours and none at the rim, so the right-hand pedals sit flush with it.
@@ -30,8 +45,19 @@ describe('board fit', () => {
       ['d', 4, 0, 15, 115],
     ]);
     expect(exact.layoutKind).toBe('signal');
-    const short = boardFitOf(chain, surface('short', 229, 230), [surface('short', 229, 230), surface('exact', 230, 230), surface('big', 500, 500)]);
-    expect(short).toMatchObject({ requiredAreaMm2: 52900, usableAreaMm2: 52670, areaFits: false, layoutFits: false, status: 'problem', smallestFittingSurfaceId: 'exact' });
+    const short = boardFitOf(chain, surface('short', 229, 230), [
+      surface('short', 229, 230),
+      surface('exact', 230, 230),
+      surface('big', 500, 500),
+    ]);
+    expect(short).toMatchObject({
+      requiredAreaMm2: 52900,
+      usableAreaMm2: 52670,
+      areaFits: false,
+      layoutFits: false,
+      status: 'problem',
+      smallestFittingSurfaceId: 'exact',
+    });
   });
 
   it('tells the player the reference board does not fit the smallest surface, and names one that does', () => {
@@ -39,7 +65,13 @@ describe('board fit', () => {
     const fit = r.checks!.boardFit;
     // Wah 115 × 275, buffer 115 × 75, tuner and ten compacts 11 × 85 × 140 (typical sizes from
     // memory, plus spacing) = 171,150 mm², more than the 460 × 310 = 142,600 mm² surface.
-    expect(fit).toMatchObject({ requiredAreaMm2: 171150, usableAreaMm2: 142600, areaFits: false, status: 'problem', smallestFittingSurfaceId: 'ridge-81' });
+    expect(fit).toMatchObject({
+      requiredAreaMm2: 171150,
+      usableAreaMm2: 142600,
+      areaFits: false,
+      status: 'problem',
+      smallestFittingSurfaceId: 'ridge-81',
+    });
     expect(r.notes.some((n) => n.includes('more than the Slate 46'))).toBe(true);
     expect(r.notes.some((n) => n.includes('Ridge 81'))).toBe(true);
   });
@@ -111,7 +143,13 @@ describe('layout in signal order', () => {
   });
 
   it('never uses more tiers than a tiered board has: too many pedals for its tiers are packed instead, and said so', () => {
-    const many: RigConfiguration = { ...switcherRig, pedals: [...switcherRig.pedals!, ...Array.from({ length: 8 }, (_, i) => ({ name: `Extra ${i + 1}`, kind: 'compact' as const, powered: true, inLoop: true }))] };
+    const many: RigConfiguration = {
+      ...switcherRig,
+      pedals: [
+        ...switcherRig.pedals!,
+        ...Array.from({ length: 8 }, (_, i) => ({ name: `Extra ${i + 1}`, kind: 'compact' as const, powered: true, inLoop: true })),
+      ],
+    };
     const fit = boardFitOf(signalChainOf(many), tiered, []);
     expect(fit.layoutKind).toBe('packed');
     expect(fit.warnings.some((w) => w.includes('signal order'))).toBe(true);

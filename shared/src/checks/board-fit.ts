@@ -93,7 +93,11 @@ const groupOf = (d: RigDevice, switcherRow: SurfaceLayout['switcherRow']): Layou
   d.kind === 'treadle' || (d.kind === 'switcher' && switcherRow === 'front') ? 'front' : d.loop !== null ? 'loop' : 'chain';
 
 /** A surface the price book gives no layout for: rows of about 150 mm from its depth, switcher at the front. */
-export const defaultSurfaceLayout = (depthMm: number): SurfaceLayout => ({ rows: Math.max(1, Math.floor(depthMm / 150)), tiered: false, switcherRow: 'front' });
+export const defaultSurfaceLayout = (depthMm: number): SurfaceLayout => ({
+  rows: Math.max(1, Math.floor(depthMm / 150)),
+  tiered: false,
+  switcherRow: 'front',
+});
 
 /**
  * The layout a builder starts from (common practice, no published source): the signal enters at
@@ -103,18 +107,33 @@ export const defaultSurfaceLayout = (depthMm: number): SurfaceLayout => ({ rows:
  * board's tiers are its rows and are never exceeded; a flat board takes another row if its depth
  * allows.
  */
-export function signalFlowLayout(chain: SignalChain, widthMm: number, depthMm: number, surfaceLayout: SurfaceLayout, spacingMm = SPACING_MM): RowLayout {
+export function signalFlowLayout(
+  chain: SignalChain,
+  widthMm: number,
+  depthMm: number,
+  surfaceLayout: SurfaceLayout,
+  spacingMm = SPACING_MM,
+): RowLayout {
   return flowRows(inSignalOrder(chain), widthMm, depthMm, surfaceLayout, spacingMm, true);
 }
 
 /** The chain's devices in signal order (switcher loops after the switcher). */
 function inSignalOrder(chain: SignalChain): RigDevice[] {
   const byId = new Map(chain.devices.map((d) => [d.id, d]));
-  return signalOrder(chain).map((id) => byId.get(id)!).filter(Boolean);
+  return signalOrder(chain)
+    .map((id) => byId.get(id)!)
+    .filter(Boolean);
 }
 
 /** The signal-order layout over devices already in signal order; `withPlacements` false answers only whether it fits. */
-function flowRows(ordered: RigDevice[], widthMm: number, depthMm: number, surfaceLayout: SurfaceLayout, spacingMm: number, withPlacements: boolean): RowLayout {
+function flowRows(
+  ordered: RigDevice[],
+  widthMm: number,
+  depthMm: number,
+  surfaceLayout: SurfaceLayout,
+  spacingMm: number,
+  withPlacements: boolean,
+): RowLayout {
   // Each footprint is grown by the spacing, half on each side; at the board's edges that half
   // may reach the rim, so the grown boxes fill an area one spacing wider and deeper.
   const W = widthMm + spacingMm;
@@ -246,12 +265,20 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
       `The pedals need about ${Math.round(requiredAreaMm2 / 100) / 100} dm² with room for plugs, more than the ${surface.name}'s ${Math.round(usableAreaMm2 / 100) / 100} dm².`,
     );
   } else if (!flow.fits && packed.fits) {
-    warnings.push(`In signal order the pedals do not fit the ${surface.name}'s ${surfaceLayout.rows} ${surfaceLayout.tiered ? 'tiers' : 'rows'}; the drawing packs them tighter, out of signal order, and the builder settles the layout with you.`);
+    warnings.push(
+      `In signal order the pedals do not fit the ${surface.name}'s ${surfaceLayout.rows} ${surfaceLayout.tiered ? 'tiers' : 'rows'}; the drawing packs them tighter, out of signal order, and the builder settles the layout with you.`,
+    );
   } else if (!layoutFits) {
-    warnings.push(`A layout in rows does not fit on the ${surface.name} (${layout.unplaced.join(', ')} left over); a builder may still find a tighter layout.`);
+    warnings.push(
+      `A layout in rows does not fit on the ${surface.name} (${layout.unplaced.join(', ')} left over); a builder may still find a tighter layout.`,
+    );
   }
   if (!layoutFits) {
-    warnings.push(smallest ? `The smallest surface that holds them in rows is the ${smallest.name}.` : 'No surface in the price book holds them in rows; ask about a custom surface.');
+    warnings.push(
+      smallest
+        ? `The smallest surface that holds them in rows is the ${smallest.name}.`
+        : 'No surface in the price book holds them in rows; ask about a custom surface.',
+    );
   }
   if (devices.some((d) => d.footprintFromMemory)) {
     warnings.push(TYPICAL_FOOTPRINTS_WARNING);

@@ -20,7 +20,8 @@ export function complexityOf(chain: SignalChain, functions: FunctionItem[]): Com
   };
 
   const loops = chain.loops.length;
-  if (loops >= MASTER_LOOPS) raise('master', `${loops} switcher loops: a full switcher rig, every loop cabled at both ends and every preset tested`);
+  if (loops >= MASTER_LOOPS)
+    raise('master', `${loops} switcher loops: a full switcher rig, every loop cabled at both ends and every preset tested`);
   else if (loops > 0) raise('journeyman', `${loops} switcher loop${loops === 1 ? '' : 's'}: both ends of every loop are cabled`);
 
   for (const fn of functions) {
@@ -38,5 +39,4 @@ export function complexityOf(chain: SignalChain, functions: FunctionItem[]): Com
   return { minimumLevel: level, reasons, loops, functionCount, voltages };
 }
 
-export const levelsAtLeast = (level: BuilderLevel): BuilderLevel[] =>
-  builderLevels.filter((l) => levelRank(l) >= levelRank(level));
+export const levelsAtLeast = (level: BuilderLevel): BuilderLevel[] => builderLevels.filter((l) => levelRank(l) >= levelRank(level));

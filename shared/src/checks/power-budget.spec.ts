@@ -36,7 +36,13 @@ const rig = (pedals: PedalInput[], outputs?: RigConfiguration['powerSupply']): R
   level: 'master',
   powerSupply: outputs,
 });
-const p = (name: string, currentMa: number | undefined, extra: Partial<PedalInput> = {}): PedalInput => ({ name, powered: true, inLoop: false, currentMa, ...extra });
+const p = (name: string, currentMa: number | undefined, extra: Partial<PedalInput> = {}): PedalInput => ({
+  name,
+  powered: true,
+  inLoop: false,
+  currentMa,
+  ...extra,
+});
 
 describe('power budget', () => {
   it('gives each pedal an output of its own and reports headroom in mA and W per output and in total', () => {
@@ -51,13 +57,31 @@ describe('power budget', () => {
     expect(budget.status).toBe('ok');
     // Largest draw first, to the smallest output that holds it: the delay takes the 500 mA one.
     const delayOut = budget.outputs.find((o) => o.devices.includes('digital delay'))!;
-    expect(delayOut).toMatchObject({ ratingMa: 500, loadMa: 250, headroomMa: 250, ratingW: 4.5, loadW: 2.25, headroomW: 2.25, minimumLoadOhms: 18, loadOhms: 36 });
+    expect(delayOut).toMatchObject({
+      ratingMa: 500,
+      loadMa: 250,
+      headroomMa: 250,
+      ratingW: 4.5,
+      loadW: 2.25,
+      headroomW: 2.25,
+      minimumLoadOhms: 18,
+      loadOhms: 36,
+    });
     // Totals: 700 mA rated, 320 mA drawn at 9 V: 6.3 W and 2.88 W; headroom 380 mA, 3.42 W.
-    expect(budget).toMatchObject({ totalRatingMa: 700, totalDrawMa: 320, totalHeadroomMa: 380, totalRatingW: 6.3, totalDrawW: 2.88, totalHeadroomW: 3.42 });
+    expect(budget).toMatchObject({
+      totalRatingMa: 700,
+      totalDrawMa: 320,
+      totalHeadroomMa: 380,
+      totalRatingW: 6.3,
+      totalDrawW: 2.88,
+      totalHeadroomW: 3.42,
+    });
   });
 
   it('flags an overloaded output the player chose: 9 V at 100 mA cannot feed 150 mA (its load would be 60 Ω, below the 90 Ω it is rated for)', () => {
-    const config = rig([p('chorus', 80, { powerOutput: 0 }), p('phaser', 70, { powerOutput: 0 })], { outputs: [{ voltage: 9, currentMa: 100, isolated: false }] });
+    const config = rig([p('chorus', 80, { powerOutput: 0 }), p('phaser', 70, { powerOutput: 0 })], {
+      outputs: [{ voltage: 9, currentMa: 100, isolated: false }],
+    });
     const budget = powerBudgetOf(signalChainOf(config), config.powerSupply!.outputs);
     expect(budget.status).toBe('problem');
     expect(budget.outputs[0]).toMatchObject({ loadMa: 150, headroomMa: -50, headroomW: -0.45, minimumLoadOhms: 90, loadOhms: 60 });
@@ -78,7 +102,10 @@ describe('power budget', () => {
 
   it('does not put an AC pedal on a DC output, and warns about centre-positive polarity', () => {
     const config = rig([p('vintage AC phaser', 100, { supply: 'ac' }), p('odd fuzz', 5, { polarity: 'center_positive' })], {
-      outputs: [{ voltage: 9, currentMa: 500, isolated: true }, { voltage: 9, currentMa: 500, isolated: true }],
+      outputs: [
+        { voltage: 9, currentMa: 500, isolated: true },
+        { voltage: 9, currentMa: 500, isolated: true },
+      ],
     });
     const budget = powerBudgetOf(signalChainOf(config), config.powerSupply!.outputs);
     expect(budget.unassigned.map((u) => u.device)).toEqual(['vintage AC phaser']);
@@ -86,7 +113,9 @@ describe('power budget', () => {
   });
 
   it('warns where a draw is unknown and budgets it at the typical figure (from memory)', () => {
-    const config = rig([p('mystery box', undefined, { kind: 'large_digital' })], { outputs: [{ voltage: 9, currentMa: 300, isolated: true }] });
+    const config = rig([p('mystery box', undefined, { kind: 'large_digital' })], {
+      outputs: [{ voltage: 9, currentMa: 300, isolated: true }],
+    });
     const budget = powerBudgetOf(signalChainOf(config), config.powerSupply!.outputs);
     // Typical large digital pedal: up to 500 mA at 9 V (PRODUCT.md's table, from memory).
     expect(budget.assignments[0]).toMatchObject({ currentMa: 500, drawFromMemory: true });

@@ -9,14 +9,19 @@ export const wattsOf = (volts: number, milliamps: number): number => Math.round(
 export const ohmsOf = (volts: number, milliamps: number): number | null =>
   milliamps > 0 ? Math.round((volts * 10000) / milliamps) / 10 : null;
 
-const describe = (d: RigDevice) => `${d.name} (${d.voltage} V${d.supply === 'ac' ? ' AC' : ''}, ${d.budgetMa} mA${d.drawFromMemory ? ' assumed' : ''})`;
+const describe = (d: RigDevice) =>
+  `${d.name} (${d.voltage} V${d.supply === 'ac' ? ' AC' : ''}, ${d.budgetMa} mA${d.drawFromMemory ? ' assumed' : ''})`;
 
 /**
  * The power plan: every powered device on an output of the player's supply by the trade's rules
  * (see planPower), pinned choices kept and checked, each output's load against its rating in mA
  * and W, and, when no plan exists, what would fix it.
  */
-export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | undefined, rules: PowerRules = DEFAULT_POWER_RULES): PowerBudget {
+export function powerBudgetOf(
+  chain: SignalChain,
+  outputs: PowerOutputInput[] | undefined,
+  rules: PowerRules = DEFAULT_POWER_RULES,
+): PowerBudget {
   const powered = chain.devices.filter((d) => d.powered);
   const warnings: string[] = [];
   const unknown = powered.filter((d) => d.drawFromMemory);
@@ -36,9 +41,11 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
 
   if (!outputs || outputs.length === 0) {
     for (const d of powered.filter((p) => p.polarity === 'center_positive')) {
-      warnings.push(`${d.name} is centre-positive: it needs a polarity-reversing lead on an isolated output of its own; the wrong polarity can damage it.`);
+      warnings.push(
+        `${d.name} is centre-positive: it needs a polarity-reversing lead on an isolated output of its own; the wrong polarity can damage it.`,
+      );
     }
-    if (powered.length > 0) warnings.push("No power supply listed: add its outputs to plan the power before you ship it.");
+    if (powered.length > 0) warnings.push('No power supply listed: add its outputs to plan the power before you ship it.');
     return {
       status: powered.length === 0 ? 'ok' : 'unknown',
       supplyListed: false,
@@ -87,9 +94,12 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
     // Only pinned devices can break a rule: the planner never does.
     for (const d of devices) {
       if (d.voltage !== voltage) flags.push(`Voltage mismatch: ${d.name} needs ${d.voltage} V, this output gives ${voltage} V.`);
-      if (d.supply !== supply) flags.push(`Supply mismatch: ${d.name} needs ${d.supply.toUpperCase()}, this output gives ${supply.toUpperCase()}.`);
+      if (d.supply !== supply)
+        flags.push(`Supply mismatch: ${d.name} needs ${d.supply.toUpperCase()}, this output gives ${supply.toUpperCase()}.`);
       if (d.supply === 'dc' && supply === 'dc' && d.polarity !== polarity && (!output.isolated || devices.length > 1)) {
-        flags.push(`Polarity: ${d.name} is ${d.polarity === 'center_positive' ? 'centre-positive' : 'centre-negative'}; reversing it is only safe on an isolated output of its own.`);
+        flags.push(
+          `Polarity: ${d.name} is ${d.polarity === 'center_positive' ? 'centre-positive' : 'centre-negative'}; reversing it is only safe on an isolated output of its own.`,
+        );
       }
     }
     if (loadMa > output.currentMa) flags.push(`Overloaded: ${loadMa} mA drawn from a ${output.currentMa} mA output.`);
@@ -97,7 +107,8 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
       for (const d of devices.filter((x) => reasonOf(x) !== null)) {
         flags.push(`Shared: ${d.name} (${reasonOf(d)}) needs an output of its own.`);
       }
-      if (devices.length > rules.maxDaisyChain) flags.push(`Daisy chain of ${devices.length}: the shop allows at most ${rules.maxDaisyChain} pedals on one output.`);
+      if (devices.length > rules.maxDaisyChain)
+        flags.push(`Daisy chain of ${devices.length}: the shop allows at most ${rules.maxDaisyChain} pedals on one output.`);
     }
     return {
       output: i,
@@ -129,11 +140,14 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
       reason: pinnedAway ? `output ${d.powerOutput! + 1} is not on the supply` : noOutputReason(d, outputs, rules),
     });
   }
-  const fixes = plan.virtualGroups.length === 0
-    ? []
-    : plan.virtualGroups.length === 1
-      ? [`One more ${describeMissingOutput(plan.virtualGroups[0], rules)}.`]
-      : [`A supply with ${plan.virtualGroups.length} more outputs: ${plan.virtualGroups.map((g) => describeMissingOutput(g, rules)).join('; ')}.`];
+  const fixes =
+    plan.virtualGroups.length === 0
+      ? []
+      : plan.virtualGroups.length === 1
+        ? [`One more ${describeMissingOutput(plan.virtualGroups[0], rules)}.`]
+        : [
+            `A supply with ${plan.virtualGroups.length} more outputs: ${plan.virtualGroups.map((g) => describeMissingOutput(g, rules)).join('; ')}.`,
+          ];
   for (const o of outputLoads) {
     if (o.flags.length === 0) continue;
     const pinned = onOutput[o.output].filter((d) => d.powerOutput === o.output).map((d) => d.name);
@@ -143,7 +157,11 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
   for (const u of unassigned) warnings.push(`${u.device} has no output: ${u.reason}.`);
   for (const o of outputLoads) {
     for (const f of o.flags) {
-      warnings.push(f.startsWith('Overloaded') ? `${o.label}: ${f.replace(/\.$/, '')} (${onOutput[o.output].map(describe).join('; ')}).` : `${o.label}: ${f}`);
+      warnings.push(
+        f.startsWith('Overloaded')
+          ? `${o.label}: ${f.replace(/\.$/, '')} (${onOutput[o.output].map(describe).join('; ')}).`
+          : `${o.label}: ${f}`,
+      );
     }
   }
   const assignments: PowerAssignment[] = powered.map((d) => {
@@ -161,10 +179,14 @@ export function powerBudgetOf(chain: SignalChain, outputs: PowerOutputInput[] | 
     };
   });
   for (const a of assignments.filter((x) => x.reversingLead)) {
-    warnings.push(`${a.device} is ${powered.find((d) => d.id === a.deviceId)!.polarity === 'center_positive' ? 'centre-positive' : 'centre-negative'}: its lead from ${outputLoads[a.output!].label} is a polarity-reversing one; the wrong polarity can damage it.`);
+    warnings.push(
+      `${a.device} is ${powered.find((d) => d.id === a.deviceId)!.polarity === 'center_positive' ? 'centre-positive' : 'centre-negative'}: its lead from ${outputLoads[a.output!].label} is a polarity-reversing one; the wrong polarity can damage it.`,
+    );
   }
   if (!outputs.some((o) => o.isolated) && powered.some((d) => reasonOf(d) === 'digital' || d.kind === 'switcher')) {
-    warnings.push('None of the outputs is isolated: digital pedals and the switcher share one ground with the rest, a common source of hum.');
+    warnings.push(
+      'None of the outputs is isolated: digital pedals and the switcher share one ground with the rest, a common source of hum.',
+    );
   }
 
   const totalRatingMa = outputs.reduce((s, o) => s + o.currentMa, 0);

@@ -73,7 +73,12 @@ const pedalArb = fc.record({
   currentMa: fc.constantFrom(5, 10, 30, 60, 100, 150, 300, 500),
   voltage: voltageArb,
   digital: fc.boolean(),
-  polarity: fc.constantFrom<'center_negative' | 'center_positive'>('center_negative', 'center_negative', 'center_negative', 'center_positive'),
+  polarity: fc.constantFrom<'center_negative' | 'center_positive'>(
+    'center_negative',
+    'center_negative',
+    'center_negative',
+    'center_positive',
+  ),
   supply: fc.constantFrom<'dc' | 'ac'>('dc', 'dc', 'dc', 'dc', 'ac'),
 }) satisfies fc.Arbitrary<PedalInput>;
 const outputArb = fc.record({
@@ -251,8 +256,22 @@ describe('power plan on a full rig', () => {
   });
 
   it('names one more isolated output of at least 300 mA when only the delay has nowhere to go', () => {
-    const outputs: PowerOutputInput[] = [{ voltage: 9, currentMa: 250, isolated: true }, { voltage: 9, currentMa: 250, isolated: true }];
-    const budget = powerBudgetOf(signalChainOf(serial([{ name: 'Delay', kind: 'large_digital', powered: true, inLoop: false, currentMa: 300 }, { name: 'Fuzz', powered: true, inLoop: false, currentMa: 5 }], outputs)), outputs);
+    const outputs: PowerOutputInput[] = [
+      { voltage: 9, currentMa: 250, isolated: true },
+      { voltage: 9, currentMa: 250, isolated: true },
+    ];
+    const budget = powerBudgetOf(
+      signalChainOf(
+        serial(
+          [
+            { name: 'Delay', kind: 'large_digital', powered: true, inLoop: false, currentMa: 300 },
+            { name: 'Fuzz', powered: true, inLoop: false, currentMa: 5 },
+          ],
+          outputs,
+        ),
+      ),
+      outputs,
+    );
     expect(budget.fixes).toEqual(['One more isolated output of at least 300 mA at 9 V DC, for Delay.']);
     expect(budget.unassigned[0]).toMatchObject({ device: 'Delay', reason: 'no 9 V DC output is rated for its 300 mA' });
   });
@@ -267,7 +286,10 @@ describe('power plan on a full rig', () => {
   });
 
   it('keeps the daisy chain within the price book limit', () => {
-    const outputs: PowerOutputInput[] = [{ voltage: 9, currentMa: 500, isolated: true }, { voltage: 9, currentMa: 500, isolated: true }];
+    const outputs: PowerOutputInput[] = [
+      { voltage: 9, currentMa: 500, isolated: true },
+      { voltage: 9, currentMa: 500, isolated: true },
+    ];
     const five = ['a', 'b', 'c', 'd', 'e'].map((n) => ({ name: `drive ${n}`, powered: true, inLoop: false, currentMa: 10 }));
     const budget = powerBudgetOf(signalChainOf(serial(five, outputs)), outputs, { ...DEFAULT_POWER_RULES, maxDaisyChain: 3 });
     expect(budget.outputs.map((o) => o.devices.length).sort()).toEqual([2, 3]);

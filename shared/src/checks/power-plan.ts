@@ -116,7 +116,16 @@ export function planPower(powered: RigDevice[], outputs: PowerOutputInput[], rul
 
   const slots: Slot[] = [...real];
   for (let i = 0; i < free.length; i++) {
-    slots.push({ index: real.length + i, voltage: 0, supply: 'dc', polarity: 'center_negative', isolated: true, ratingMa: Infinity, virtual: true, key: 'virtual' });
+    slots.push({
+      index: real.length + i,
+      voltage: 0,
+      supply: 'dc',
+      polarity: 'center_negative',
+      isolated: true,
+      ratingMa: Infinity,
+      virtual: true,
+      key: 'virtual',
+    });
     loads.push({ ma: 0, count: 0, solo: false });
   }
 
@@ -193,7 +202,9 @@ export function planPower(powered: RigDevice[], outputs: PowerOutputInput[], rul
   const sameAsPrevious = free.map(({ d, solo }, i) => {
     if (i === 0) return false;
     const p = free[i - 1];
-    return p.solo === solo && p.d.budgetMa === d.budgetMa && p.d.voltage === d.voltage && p.d.supply === d.supply && p.d.polarity === d.polarity;
+    return (
+      p.solo === solo && p.d.budgetMa === d.budgetMa && p.d.voltage === d.voltage && p.d.supply === d.supply && p.d.polarity === d.polarity
+    );
   });
 
   const search = (i: number, cost: number) => {
@@ -218,7 +229,12 @@ export function planPower(powered: RigDevice[], outputs: PowerOutputInput[], rul
       }
       if (canJoin(d, solo, slots[s], loads[s])) order.push(s);
     }
-    order.sort((a, b) => Number(loads[a].count === 0) - Number(loads[b].count === 0) || Number(slots[a].virtual) - Number(slots[b].virtual) || slots[a].ratingMa - slots[b].ratingMa);
+    order.sort(
+      (a, b) =>
+        Number(loads[a].count === 0) - Number(loads[b].count === 0) ||
+        Number(slots[a].virtual) - Number(slots[b].virtual) ||
+        slots[a].ratingMa - slots[b].ratingMa,
+    );
     for (const s of order) {
       const slot = slots[s];
       const load = loads[s];

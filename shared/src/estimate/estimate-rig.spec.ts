@@ -83,7 +83,9 @@ describe('trade facts per item (common practice, no published source)', () => {
     expect(range).toContain('$100.00');
     for (const l of r.lines.filter((x) => x.kind === 'labor')) expect(l.explanation).toBe(`${l.basis}, at ${range} per hour`);
     const de = estimateRig(referenceBoard('switcher', 'master'), { ...demoPriceBook, currency: 'EUR' }, { ...v1, locale: 'de-DE' });
-    const eur = (new Intl.NumberFormat('de-DE', { style: 'currency', currency: 'EUR' }) as unknown as { formatRange(a: number, b: number): string }).formatRange(100, 150);
+    const eur = (
+      new Intl.NumberFormat('de-DE', { style: 'currency', currency: 'EUR' }) as unknown as { formatRange(a: number, b: number): string }
+    ).formatRange(100, 150);
     expect(eur).toContain('€');
     expect(de.lines.find((x) => x.kind === 'labor')!.explanation).toMatch(new RegExp(`, at ${eur.replace(/[.$]/g, '\\$&')} per hour$`));
   });
@@ -127,8 +129,19 @@ describe('deposit rounding to the minor unit (ISO 4217 with the payment provider
   // A 33% deposit is 180.9225 before rounding (in yen, whose lines round first, 548 × 0.33 = 180.84).
   // BHD and KWD are counted in hundredths (the provider's three-decimal rule: the last digit is 0);
   // HUF in whole forints (the provider's special case), so its 1.25 plug line is 1 and the total 548.
-  const onePedal: RigConfiguration = { surfaceId: 'slate-46', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 1, functions: [], level: 'apprentice' };
-  const bookIn = (currency: string): PriceBook => ({ ...demoPriceBook, currency, depositPolicy: { ...demoPriceBook.depositPolicy, percent: '33', minimum: '10' } });
+  const onePedal: RigConfiguration = {
+    surfaceId: 'slate-46',
+    caseId: 'shell-hard',
+    routing: { mode: 'serial' },
+    pedalCount: 1,
+    functions: [],
+    level: 'apprentice',
+  };
+  const bookIn = (currency: string): PriceBook => ({
+    ...demoPriceBook,
+    currency,
+    depositPolicy: { ...demoPriceBook.depositPolicy, percent: '33', minimum: '10' },
+  });
   it.each([
     ['USD', '548.25', '180.92'],
     ['JPY', '548', '181'],
@@ -213,7 +226,11 @@ describe('properties (fast-check)', () => {
     fc.assert(
       fc.property(config, (c) => {
         const switched = estimateRig({ ...c, routing: { mode: 'switcher' } }, demoPriceBook, v1);
-        const serial = estimateRig({ ...c, routing: { mode: 'serial' }, pedals: c.pedals!.map((p) => ({ ...p, inLoop: false })) }, demoPriceBook, v1);
+        const serial = estimateRig(
+          { ...c, routing: { mode: 'serial' }, pedals: c.pedals!.map((p) => ({ ...p, inLoop: false })) },
+          demoPriceBook,
+          v1,
+        );
         for (const key of ['laborHours', 'laborLow', 'laborHigh'] as const) {
           expect(new Decimal(switched[key]).gte(serial[key])).toBe(true);
         }

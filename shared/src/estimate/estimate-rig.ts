@@ -74,7 +74,10 @@ function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBo
   const items: LaborItem[] = [
     {
       code: 'labor_devices',
-      label: chain.routing === 'serial' ? 'Mount and wire each device in series' : 'Mount and wire each device outside the loops (the switcher too)',
+      label:
+        chain.routing === 'serial'
+          ? 'Mount and wire each device in series'
+          : 'Mount and wire each device outside the loops (the switcher too)',
       hours: serialHours.times(mainDevices),
       quantity: count(mainDevices),
       unit: 'device',
@@ -94,7 +97,7 @@ function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBo
   if (chain.devices.some((d) => d.powered)) {
     items.push({
       code: 'labor_power_supply',
-      label: "Mount your power supply, cut its leads to length and fit new plugs",
+      label: 'Mount your power supply, cut its leads to length and fit new plugs',
       hours: serialHours,
       quantity: '1',
       unit: 'supply',
@@ -160,17 +163,35 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
 
   materialLine('surface', surface.name, 1, 'each', surface.price);
   materialLine('case', rigCase.name, 1, 'each', rigCase.price);
-  materialLine('fasteners', 'Fasteners, tie-down mounts and zip ties', mounted, 'device', fastenerRate,
-    `${chain.routing === 'switcher' ? 'switcher' : 'serial'} board rate per mounted device`);
+  materialLine(
+    'fasteners',
+    'Fasteners, tie-down mounts and zip ties',
+    mounted,
+    'device',
+    fastenerRate,
+    `${chain.routing === 'switcher' ? 'switcher' : 'serial'} board rate per mounted device`,
+  );
   materialLine('hook_and_loop', 'Hook-and-loop', hookFeet, 'ft', m.hookAndLoopPricePerFoot, `${m.hookAndLoopFeetPerPedal} ft per device`);
   if (schedule.patchCount > 0) {
-    materialLine('patch_cable', 'Audio patch cable', new Decimal(schedule.cableFeet), 'ft', m.cablePricePerFoot,
-      `${schedule.patchCount} patches × (${m.patchLengthFeet} ft + ${m.spareFeetPerPatch} ft spare)`);
+    materialLine(
+      'patch_cable',
+      'Audio patch cable',
+      new Decimal(schedule.cableFeet),
+      'ft',
+      m.cablePricePerFoot,
+      `${schedule.patchCount} patches × (${m.patchLengthFeet} ft + ${m.spareFeetPerPatch} ft spare)`,
+    );
     materialLine('patch_plugs', 'Patch cable plugs', schedule.plugCount, 'plug', m.plugPrice, `2 per patch × ${schedule.patchCount}`);
   }
   if (schedule.barrelPlugCount > 0) {
-    materialLine('dc_barrel_plugs', 'DC barrel plugs for your supply leads', schedule.barrelPlugCount, 'plug', m.barrelPlugPrice,
-      'one per powered device, the switcher too');
+    materialLine(
+      'dc_barrel_plugs',
+      'DC barrel plugs for your supply leads',
+      schedule.barrelPlugCount,
+      'plug',
+      m.barrelPlugPrice,
+      'one per powered device, the switcher too',
+    );
   }
 
   const rateLow = parsed(level.rateLow);
@@ -246,11 +267,19 @@ export type NoteReader = 'player' | 'staff';
  * to do on which step; the shop reads the same facts as the bench would say them. Both carry the
  * usual safety cautions, deferring to local codes and licensed practice.
  */
-function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBook['cases'][number], book: PriceBook, reader: NoteReader): string[] {
+function notesFor(
+  config: RigConfiguration,
+  checks: RigChecks,
+  rigCase: PriceBook['cases'][number],
+  book: PriceBook,
+  reader: NoteReader,
+): string[] {
   const forPlayer = reader === 'player';
   const notes: string[] = [];
   if (rigCase.notRecommended) {
-    notes.push(rigCase.caution ?? `A ${rigCase.name} is not recommended for a loaded board: it does not protect the pedals and jacks in transit.`);
+    notes.push(
+      rigCase.caution ?? `A ${rigCase.name} is not recommended for a loaded board: it does not protect the pedals and jacks in transit.`,
+    );
   }
   const { complexity, powerBudget, boardFit } = checks;
   if (levelRank(config.level) < levelRank(complexity.minimumLevel)) {
@@ -264,7 +293,8 @@ function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBoo
   }
   const unknownDraw = checks.signalChain.devices.filter((d) => d.powered && d.drawFromMemory);
   for (const warning of powerBudget.warnings) {
-    const aboutUnknownDraw = unknownDraw.length > 0 && (warning.startsWith('Current draw unknown') || warning.startsWith('Power is planned at a typical draw'));
+    const aboutUnknownDraw =
+      unknownDraw.length > 0 && (warning.startsWith('Current draw unknown') || warning.startsWith('Power is planned at a typical draw'));
     if (aboutUnknownDraw && !forPlayer) {
       notes.push(
         checks.signalChain.fromCount
@@ -276,7 +306,9 @@ function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBoo
   notes.push(...powerBudget.fixes.map((f) => `To power every pedal: ${f.charAt(0).toLowerCase()}${f.slice(1)}`));
   if (boardFit.status !== 'ok') notes.push(...boardFit.warnings.filter((w) => w !== TYPICAL_FOOTPRINTS_WARNING));
   if (checks.signalChain.loops.length > 12) {
-    notes.push(`${checks.signalChain.loops.length} loops is more than most switchers have (8 to 12); ${forPlayer ? 'check yours' : 'check the player’s switcher'}.`);
+    notes.push(
+      `${checks.signalChain.loops.length} loops is more than most switchers have (8 to 12); ${forPlayer ? 'check yours' : 'check the player’s switcher'}.`,
+    );
   }
   if (checks.signalChain.devices.some((d) => d.powered)) {
     notes.push(
@@ -285,7 +317,12 @@ function notesFor(config: RigConfiguration, checks: RigChecks, rigCase: PriceBoo
         : 'Mains: the supply plugs into the mains. Any mains wiring, power inlet or mains lead is work only for a qualified person under local electrical codes; never open a mains-powered supply.',
     );
   }
-  if (rigCase.kind === 'road_case') notes.push(forPlayer ? 'A loaded road case is heavy: lift it with two people.' : 'A loaded road case is heavy: lift it with two people, and give the carrier its weight.');
+  if (rigCase.kind === 'road_case')
+    notes.push(
+      forPlayer
+        ? 'A loaded road case is heavy: lift it with two people.'
+        : 'A loaded road case is heavy: lift it with two people, and give the carrier its weight.',
+    );
   notes.push(
     forPlayer
       ? 'Pedals, power supply and switcher are yours to supply; they are not in this estimate.'

@@ -31,10 +31,18 @@ describe('rigConfigurationSchema', () => {
   });
 
   it('refuses a loop pedal on a serial board and a quick count on a switcher board', () => {
-    const serial = parseRigConfiguration({ ...base, routing: { mode: 'serial' }, pedals: [{ name: 'chorus', powered: true, inLoop: true }] });
-    expect(serial.success === false && serial.messages).toEqual(['Pedal 1: chorus is in a loop, but a board in series has no switcher loops']);
+    const serial = parseRigConfiguration({
+      ...base,
+      routing: { mode: 'serial' },
+      pedals: [{ name: 'chorus', powered: true, inLoop: true }],
+    });
+    expect(serial.success === false && serial.messages).toEqual([
+      'Pedal 1: chorus is in a loop, but a board in series has no switcher loops',
+    ]);
     const counted = parseRigConfiguration({ ...base, pedalCount: 8 });
-    expect(counted.success === false && counted.messages[0]).toBe('A switcher board needs the pedal list, to know which pedals go in loops');
+    expect(counted.success === false && counted.messages[0]).toBe(
+      'A switcher board needs the pedal list, to know which pedals go in loops',
+    );
   });
 
   it('accepts the demo book as a whole price book', () => {
@@ -67,7 +75,12 @@ describe('rigConfigurationSchema', () => {
       functions: fc.array(fc.oneof(fc.constantFrom(...demoPriceBook.functions.map((f) => f.code)), fc.string()), { maxLength: 4 }),
       level: fc.constantFrom('apprentice', 'journeyman', 'master', 'boss'),
       powerSupply: fc.option(
-        fc.record({ outputs: fc.array(fc.record({ voltage: fc.constantFrom(9, 12, 18), currentMa: fc.integer({ min: 0, max: 800 }), isolated: fc.boolean() }), { maxLength: 4 }) }),
+        fc.record({
+          outputs: fc.array(
+            fc.record({ voltage: fc.constantFrom(9, 12, 18), currentMa: fc.integer({ min: 0, max: 800 }), isolated: fc.boolean() }),
+            { maxLength: 4 },
+          ),
+        }),
         { nil: undefined },
       ),
     });

@@ -9,7 +9,15 @@ export const MAX_FUNCTIONS = 20;
 export const MAX_SUPPLY_OUTPUTS = 32;
 
 export const pedalKinds = [
-  'mini', 'compact', 'large', 'large_digital', 'tuner', 'treadle', 'buffer', 'switcher', 'other',
+  'mini',
+  'compact',
+  'large',
+  'large_digital',
+  'tuner',
+  'treadle',
+  'buffer',
+  'switcher',
+  'other',
 ] as const satisfies readonly PedalKind[];
 
 const text = (label: string, max: number) =>
@@ -28,7 +36,11 @@ const numberIn = (label: string, min: number, max: number, unit = '', whole = fa
 /** Outputs are numbered from 1 for people (the API counts from 0). */
 const outputNumber = (label: string) => {
   const words = `${label} must be one of the supply’s outputs, numbered 1 to ${MAX_SUPPLY_OUTPUTS}`;
-  return z.number({ error: words }).int({ error: words }).min(0, { error: words }).max(MAX_SUPPLY_OUTPUTS - 1, { error: words });
+  return z
+    .number({ error: words })
+    .int({ error: words })
+    .min(0, { error: words })
+    .max(MAX_SUPPLY_OUTPUTS - 1, { error: words });
 };
 
 const flag = (label: string) => z.boolean({ error: rules.yesNo(label) });
@@ -142,10 +154,18 @@ export const rigConfigurationSchema = z
       ctx.addIssue({ code: 'custom', path: ['routing', 'switcher'], message: w.serialHasNoSwitcher });
     }
     if (ownSwitcher?.powerOutput !== undefined && ownSwitcher.powerOutput >= outputs) {
-      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher', 'powerOutput'], message: w.noSuchOutput(ownSwitcher.powerOutput, outputs) });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['routing', 'switcher', 'powerOutput'],
+        message: w.noSuchOutput(ownSwitcher.powerOutput, outputs),
+      });
     }
     if (ownSwitcher && (ownSwitcher.widthMm === undefined) !== (ownSwitcher.depthMm === undefined)) {
-      ctx.addIssue({ code: 'custom', path: ['routing', 'switcher', ownSwitcher.widthMm === undefined ? 'widthMm' : 'depthMm'], message: w.bothOrNeither });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['routing', 'switcher', ownSwitcher.widthMm === undefined ? 'widthMm' : 'depthMm'],
+        message: w.bothOrNeither,
+      });
     }
     let switchers = 0;
     config.pedals?.forEach((pedal, i) => {
@@ -163,7 +183,11 @@ export const rigConfigurationSchema = z
         }
       }
       if ((pedal.widthMm === undefined) !== (pedal.depthMm === undefined)) {
-        ctx.addIssue({ code: 'custom', path: ['pedals', i, pedal.widthMm === undefined ? 'widthMm' : 'depthMm'], message: w.bothOrNeither });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['pedals', i, pedal.widthMm === undefined ? 'widthMm' : 'depthMm'],
+          message: w.bothOrNeither,
+        });
       }
       if (pedal.powerOutput !== undefined && pedal.powerOutput >= outputs) {
         ctx.addIssue({ code: 'custom', path: ['pedals', i, 'powerOutput'], message: w.noSuchOutput(pedal.powerOutput, outputs) });

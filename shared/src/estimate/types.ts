@@ -31,16 +31,7 @@ export interface SwitcherInput {
   powerOutput?: number;
 }
 
-export type PedalKind =
-  | 'mini'
-  | 'compact'
-  | 'large'
-  | 'large_digital'
-  | 'tuner'
-  | 'treadle'
-  | 'buffer'
-  | 'switcher'
-  | 'other';
+export type PedalKind = 'mini' | 'compact' | 'large' | 'large_digital' | 'tuner' | 'treadle' | 'buffer' | 'switcher' | 'other';
 
 export interface PedalInput {
   name: string;

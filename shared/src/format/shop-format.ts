@@ -154,7 +154,11 @@ export class ShopFormat {
    * A count or a measure: quantity(6) "6"; quantity(12.5, 'foot') "12.5 ft"; quantity(460, 'millimeter')
    * "460 mm". Units are ECMA-402's sanctioned simple units.
    */
-  quantity(value: Amount, unit?: 'foot' | 'meter' | 'centimeter' | 'millimeter' | 'day' | 'hour' | 'percent', maximumFractionDigits = 2): string {
+  quantity(
+    value: Amount,
+    unit?: 'foot' | 'meter' | 'centimeter' | 'millimeter' | 'day' | 'hour' | 'percent',
+    maximumFractionDigits = 2,
+  ): string {
     const options: Intl.NumberFormatOptions = unit
       ? unit === 'percent'
         ? { style: 'percent', maximumFractionDigits }
@@ -209,14 +213,22 @@ export class ShopFormat {
     const date = new Date(at);
     if (Number.isNaN(date.getTime())) throw new RangeError(`"${String(at)}" is not a date and time`);
     return this.date('date-time', {
-      weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: 'numeric', minute: '2-digit',
-      timeZone: this.voice.timeZone, timeZoneName: 'short',
+      weekday: 'short',
+      day: 'numeric',
+      month: 'short',
+      year: 'numeric',
+      hour: 'numeric',
+      minute: '2-digit',
+      timeZone: this.voice.timeZone,
+      timeZoneName: 'short',
     }).format(date);
   }
 
   /** The time of a moment in the shop's time zone, with the zone: "5:45 PM CST". */
   time(at: string | Date): string {
-    return this.date('time', { hour: 'numeric', minute: '2-digit', timeZone: this.voice.timeZone, timeZoneName: 'short' }).format(new Date(at));
+    return this.date('time', { hour: 'numeric', minute: '2-digit', timeZone: this.voice.timeZone, timeZoneName: 'short' }).format(
+      new Date(at),
+    );
   }
 
   /** The calendar day a moment falls on in the shop's time zone, formatted as `day()`. */

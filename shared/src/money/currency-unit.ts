@@ -23,7 +23,22 @@ import { ISO_4217_MINOR_UNITS } from './iso-4217';
  * 4217 gives it two decimals; its fifths (iraimbilanja) are not decimal anyway.
  */
 export const PROVIDER_ZERO_DECIMAL = [
-  'BIF', 'CLP', 'DJF', 'GNF', 'JPY', 'KMF', 'KRW', 'MGA', 'PYG', 'RWF', 'UGX', 'VND', 'VUV', 'XAF', 'XOF', 'XPF',
+  'BIF',
+  'CLP',
+  'DJF',
+  'GNF',
+  'JPY',
+  'KMF',
+  'KRW',
+  'MGA',
+  'PYG',
+  'RWF',
+  'UGX',
+  'VND',
+  'VUV',
+  'XAF',
+  'XOF',
+  'XPF',
 ] as const;
 
 /**
@@ -64,7 +79,8 @@ function unitFor(code: string): CurrencyUnit | undefined {
   if (iso === undefined) return undefined;
   if ((PROVIDER_ZERO_DECIMAL as readonly string[]).includes(code)) return { code, isoDigits: iso, digits: 0, providerExponent: 0 };
   if ((PROVIDER_THREE_DECIMAL as readonly string[]).includes(code)) return { code, isoDigits: iso, digits: 2, providerExponent: 3 };
-  if ((PROVIDER_WHOLE_UNITS_IN_HUNDREDTHS as readonly string[]).includes(code)) return { code, isoDigits: iso, digits: 0, providerExponent: 2 };
+  if ((PROVIDER_WHOLE_UNITS_IN_HUNDREDTHS as readonly string[]).includes(code))
+    return { code, isoDigits: iso, digits: 0, providerExponent: 2 };
   return { code, isoDigits: iso, digits: iso, providerExponent: iso };
 }
 

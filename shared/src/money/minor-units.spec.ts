@@ -6,7 +6,20 @@ describe('one source of minor units: ISO 4217 with the payment provider’s char
   it('ISO 4217 List One "Minor unit" column, as published (written out here, not read from the dataset)', () => {
     // ISO 4217 List One (SIX, amendment 176 and later): USD 2, EUR 2, JPY 0, KWD 3, BHD 3, HUF 2,
     // IDR 2, COP 2, ISK 0, UGX 0, CLF 4, UYW 4.
-    const published: Record<string, number> = { USD: 2, EUR: 2, JPY: 0, KWD: 3, BHD: 3, HUF: 2, IDR: 2, COP: 2, ISK: 0, UGX: 0, CLF: 4, UYW: 4 };
+    const published: Record<string, number> = {
+      USD: 2,
+      EUR: 2,
+      JPY: 0,
+      KWD: 3,
+      BHD: 3,
+      HUF: 2,
+      IDR: 2,
+      COP: 2,
+      ISK: 0,
+      UGX: 0,
+      CLF: 4,
+      UYW: 4,
+    };
     for (const [code, digits] of Object.entries(published)) expect(currencyUnit(code)?.isoDigits, code).toBe(digits);
   });
 

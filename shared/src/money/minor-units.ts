@@ -3,7 +3,13 @@ import { currencyUnit, type CurrencyUnit } from './currency-unit';
 
 // The tables and their sources are in currency-unit.ts (kept free of decimal.js, so the apps' first
 // page can format money without loading it); the arithmetic on amounts is here.
-export { currencyUnit, PROVIDER_THREE_DECIMAL, PROVIDER_WHOLE_UNITS_IN_HUNDREDTHS, PROVIDER_ZERO_DECIMAL, type CurrencyUnit } from './currency-unit';
+export {
+  currencyUnit,
+  PROVIDER_THREE_DECIMAL,
+  PROVIDER_WHOLE_UNITS_IN_HUNDREDTHS,
+  PROVIDER_ZERO_DECIMAL,
+  type CurrencyUnit,
+} from './currency-unit';
 
 function requireUnit(currency: string): CurrencyUnit {
   const unit = currencyUnit(currency);
@@ -37,7 +43,8 @@ export function formatMoney(amount: Decimal.Value, currency: string): string {
 export function toProviderAmount(amount: Decimal.Value, currency: string): number {
   const unit = requireUnit(currency);
   const minor = new Decimal(amount).toDecimalPlaces(unit.digits, Decimal.ROUND_HALF_UP).times(new Decimal(10).pow(unit.providerExponent));
-  if (!minor.isInteger() || !minor.abs().lte(Number.MAX_SAFE_INTEGER)) throw new Error(`${amount} ${unit.code} cannot be sent as a provider amount`);
+  if (!minor.isInteger() || !minor.abs().lte(Number.MAX_SAFE_INTEGER))
+    throw new Error(`${amount} ${unit.code} cannot be sent as a provider amount`);
   return minor.toNumber();
 }
 

@@ -52,10 +52,13 @@ export function moneyAccount(money: MoneyFacts, formatMoney: (amount: string, cu
       strong: true,
     });
   }
-  if (!isZero(money.credit)) rows.push({ key: 'credit', label: 'Paid beyond the total (the shop refunds it)', at: null, amount: money.credit, strong: false });
+  if (!isZero(money.credit))
+    rows.push({ key: 'credit', label: 'Paid beyond the total (the shop refunds it)', at: null, amount: money.credit, strong: false });
   const notes: string[] = [];
   if (!isZero(money.proposedExtras)) {
-    notes.push(`Extras waiting for the player's answer (${formatMoney(money.proposedExtras, money.currency)}) are not counted until approved.`);
+    notes.push(
+      `Extras waiting for the player's answer (${formatMoney(money.proposedExtras, money.currency)}) are not counted until approved.`,
+    );
   }
   if (money.firmTotal === null) notes.push('The balance is worked out once a builder accepts and the quote is firm.');
   return { rows, notes };

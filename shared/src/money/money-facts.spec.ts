@@ -20,7 +20,9 @@ const cents = (amount: string) => {
 const amountOf = (c: bigint) => `${c / 100n}.${String(c % 100n).padStart(2, '0')}`;
 
 const amount = fc.bigInt({ min: 1n, max: 500_000n }).map(amountOf);
-const stamp = fc.date({ min: new Date('2026-01-01T00:00:00Z'), max: new Date('2027-12-31T00:00:00Z'), noInvalidDate: true }).map((d) => d.toISOString());
+const stamp = fc
+  .date({ min: new Date('2026-01-01T00:00:00Z'), max: new Date('2027-12-31T00:00:00Z'), noInvalidDate: true })
+  .map((d) => d.toISOString());
 const extra: fc.Arbitrary<MoneyExtraInput> = fc.record({
   description: fc.constantFrom('Deeper road case', 'Extra buffer', 'Longer patch cables'),
   amount,
@@ -60,32 +62,43 @@ const rate = fc.bigInt({ min: 100n, max: 30_000n }).map(amountOf);
 describe('money facts of any booking history (fast-check)', () => {
   it('balance due = firm total + approved extras − net payments (never below zero; any surplus is credit)', () => {
     fc.assert(
-      fc.property(fc.option(amount, { nil: null }), fc.array(extra, { maxLength: 6 }), fc.array(payment, { maxLength: 6 }), fc.boolean(), (firm, extras, payments, waived) => {
-        const facts = moneyFacts({ currency: 'USD', firmTotal: firm, extras, payments, balanceWaived: waived });
-        const approved = extras.filter((e) => e.status === 'approved').reduce((s, e) => s + cents(e.amount), 0n);
-        const paidIn = payments.filter((p) => p.status === 'paid' || p.status === 'refunded').reduce((s, p) => s + cents(p.amount), 0n);
-        const back = payments.filter((p) => p.status === 'refunded').reduce((s, p) => s + cents(p.amount), 0n);
-        const net = paidIn - back;
-        expect(cents(facts.approvedExtras)).toBe(approved);
-        expect(cents(facts.netPaid)).toBe(net);
-        expect(cents(facts.paid) - cents(facts.refunded)).toBe(cents(facts.netPaid));
-        if (firm === null) {
-          expect(facts.balanceDue).toBeNull();
-          expect(facts.settled).toBe(false);
-          return;
-        }
-        const owed = cents(firm) + approved;
-        const due = owed - net > 0n ? owed - net : 0n;
-        expect(cents(facts.totalOwed!)).toBe(owed);
-        expect(cents(facts.balanceDue!)).toBe(due);
-        // What was owed is exactly what came in, plus what is still due, less any surplus held.
-        expect(cents(facts.netPaid) + cents(facts.balanceDue!) - cents(facts.credit)).toBe(owed);
-        expect(facts.settled).toBe(due === 0n || waived);
-        // The ledger: every payment and every refund once, refunds negative and at their own time.
-        expect(facts.ledger.reduce((s, e) => s + cents(e.amount), 0n)).toBe(net);
-        const refunds = facts.ledger.filter((e) => e.kind === 'refund');
-        expect(refunds.map((r) => r.at).sort()).toEqual(payments.filter((p) => p.status === 'refunded').map((p) => p.refundedAt).sort());
-      }),
+      fc.property(
+        fc.option(amount, { nil: null }),
+        fc.array(extra, { maxLength: 6 }),
+        fc.array(payment, { maxLength: 6 }),
+        fc.boolean(),
+        (firm, extras, payments, waived) => {
+          const facts = moneyFacts({ currency: 'USD', firmTotal: firm, extras, payments, balanceWaived: waived });
+          const approved = extras.filter((e) => e.status === 'approved').reduce((s, e) => s + cents(e.amount), 0n);
+          const paidIn = payments.filter((p) => p.status === 'paid' || p.status === 'refunded').reduce((s, p) => s + cents(p.amount), 0n);
+          const back = payments.filter((p) => p.status === 'refunded').reduce((s, p) => s + cents(p.amount), 0n);
+          const net = paidIn - back;
+          expect(cents(facts.approvedExtras)).toBe(approved);
+          expect(cents(facts.netPaid)).toBe(net);
+          expect(cents(facts.paid) - cents(facts.refunded)).toBe(cents(facts.netPaid));
+          if (firm === null) {
+            expect(facts.balanceDue).toBeNull();
+            expect(facts.settled).toBe(false);
+            return;
+          }
+          const owed = cents(firm) + approved;
+          const due = owed - net > 0n ? owed - net : 0n;
+          expect(cents(facts.totalOwed!)).toBe(owed);
+          expect(cents(facts.balanceDue!)).toBe(due);
+          // What was owed is exactly what came in, plus what is still due, less any surplus held.
+          expect(cents(facts.netPaid) + cents(facts.balanceDue!) - cents(facts.credit)).toBe(owed);
+          expect(facts.settled).toBe(due === 0n || waived);
+          // The ledger: every payment and every refund once, refunds negative and at their own time.
+          expect(facts.ledger.reduce((s, e) => s + cents(e.amount), 0n)).toBe(net);
+          const refunds = facts.ledger.filter((e) => e.kind === 'refund');
+          expect(refunds.map((r) => r.at).sort()).toEqual(
+            payments
+              .filter((p) => p.status === 'refunded')
+              .map((p) => p.refundedAt)
+              .sort(),
+          );
+        },
+      ),
       { numRuns: 500 },
     );
   });
@@ -94,19 +107,30 @@ describe('money facts of any booking history (fast-check)', () => {
     fc.assert(
       fc.property(rig, rate, (config, hourlyRate) => {
         const estimate = estimateRig(config, demoPriceBook, { version: 1 });
-        const figures = firmQuoteFigures({ hourlyRate, laborHours: estimate.laborHours, materialsTotal: estimate.materialsTotal, deposit: estimate.deposit });
+        const figures = firmQuoteFigures({
+          hourlyRate,
+          laborHours: estimate.laborHours,
+          materialsTotal: estimate.materialsTotal,
+          deposit: estimate.deposit,
+        });
         const lines = firmQuoteLines(estimate.lines, hourlyRate, figures.laborTotal, 'USD');
         const labor = lines.filter((l) => l.kind === 'labor');
         expect(labor.every((l) => l.unitPrice === hourlyRate && l.amountHigh === undefined)).toBe(true);
         // Each labor line explains itself at the one firm rate, never the level's range, with the
         // currency as ECMA-402 Intl.NumberFormat writes US dollars in en-US (CLDR pattern ¤#,##0.00).
         const rateWords = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(Number(hourlyRate));
-        expect(labor.every((l) => l.explanation === undefined || (l.explanation.endsWith(`, at ${rateWords} per hour`) && !l.explanation.includes('–')))).toBe(true);
+        expect(
+          labor.every(
+            (l) => l.explanation === undefined || (l.explanation.endsWith(`, at ${rateWords} per hour`) && !l.explanation.includes('–')),
+          ),
+        ).toBe(true);
         expect(labor.reduce((s, l) => s + cents(l.amount), 0n)).toBe(cents(figures.laborTotal));
         expect(lines.reduce((s, l) => s + cents(l.amount), 0n)).toBe(cents(figures.total));
         // Each labor line stays within a cent per line of its exact hours × rate.
         for (const l of labor) {
-          expect(new Decimal(l.amount).minus(new Decimal(l.quantity).times(hourlyRate)).abs().lte(new Decimal('0.01').times(labor.length))).toBe(true);
+          expect(
+            new Decimal(l.amount).minus(new Decimal(l.quantity).times(hourlyRate)).abs().lte(new Decimal('0.01').times(labor.length)),
+          ).toBe(true);
         }
       }),
       { numRuns: 300 },
@@ -128,7 +152,14 @@ describe('money facts, worked by hand', () => {
       payments: [{ kind: 'deposit', amount: '150.00', status: 'paid', paidAt: '2026-11-02T10:00:00.000Z', refundedAt: null }],
       balanceWaived: false,
     });
-    expect(facts).toMatchObject({ totalOwed: '1595.00', approvedExtras: '45.00', proposedExtras: '60.00', netPaid: '150.00', balanceDue: '1445.00', settled: false });
+    expect(facts).toMatchObject({
+      totalOwed: '1595.00',
+      approvedExtras: '45.00',
+      proposedExtras: '60.00',
+      netPaid: '150.00',
+      balanceDue: '1445.00',
+      settled: false,
+    });
 
     const afterBalance = moneyFacts({
       currency: 'USD',
@@ -146,7 +177,15 @@ describe('money facts, worked by hand', () => {
       currency: 'USD',
       firmTotal: null,
       extras: [],
-      payments: [{ kind: 'deposit', amount: '150.00', status: 'refunded', paidAt: '2026-11-02T10:00:00.000Z', refundedAt: '2026-11-05T09:15:00.000Z' }],
+      payments: [
+        {
+          kind: 'deposit',
+          amount: '150.00',
+          status: 'refunded',
+          paidAt: '2026-11-02T10:00:00.000Z',
+          refundedAt: '2026-11-05T09:15:00.000Z',
+        },
+      ],
       balanceWaived: false,
     });
     expect(refunded.ledger).toEqual([
@@ -159,7 +198,16 @@ describe('money facts, worked by hand', () => {
   it('spreads the labor cents by largest remainder: 3 × 1.5 h at $33.33 = $149.99 (hand-worked)', () => {
     // Hand-worked: 4.5 h × $33.33 = $149.985 → $149.99 (half-up). Each 1.5 h line is exactly $49.995;
     // the floors make 3 × $49.99 = $149.97, so two cents are left and go to the first two lines (equal remainders, in order).
-    const lines = [1, 2, 3].map((n) => ({ code: `labor.${n}`, label: `Loop ${n}`, kind: 'labor' as const, quantity: '1.5', unit: 'h', unitPrice: '40.00', amount: '60.00', amountHigh: '75.00' }));
+    const lines = [1, 2, 3].map((n) => ({
+      code: `labor.${n}`,
+      label: `Loop ${n}`,
+      kind: 'labor' as const,
+      quantity: '1.5',
+      unit: 'h',
+      unitPrice: '40.00',
+      amount: '60.00',
+      amountHigh: '75.00',
+    }));
     const firm = firmQuoteLines(lines, '33.33', '149.99', 'USD');
     expect(firm.map((l) => l.amount)).toEqual(['50.00', '50.00', '49.99']);
   });

@@ -88,7 +88,12 @@ export function moneyFacts(input: MoneyFactsInput): MoneyFacts {
   const credit = owed === null ? new Decimal(0) : Decimal.max(0, netPaid.minus(owed));
   const ledger: MoneyLedgerEntry[] = [
     ...paidRows.map((p) => ({ kind: 'payment' as const, paymentKind: p.kind, amount: money(p.amount), at: p.paidAt })),
-    ...refundedRows.map((p) => ({ kind: 'refund' as const, paymentKind: p.kind, amount: money(new Decimal(p.amount).neg()), at: p.refundedAt })),
+    ...refundedRows.map((p) => ({
+      kind: 'refund' as const,
+      paymentKind: p.kind,
+      amount: money(new Decimal(p.amount).neg()),
+      at: p.refundedAt,
+    })),
   ].sort((a, b) => (a.at ?? '').localeCompare(b.at ?? ''));
   return {
     currency: input.currency,
@@ -114,7 +119,13 @@ export function moneyFacts(input: MoneyFactsInput): MoneyFacts {
  * round down, then the cents left over go to the lines that lost most in rounding. So the lines
  * a player reads always add up to the total beneath them.
  */
-export function firmQuoteLines(lines: EstimateLine[], hourlyRate: string, laborTotal: string, currency: string, locale?: string): EstimateLine[] {
+export function firmQuoteLines(
+  lines: EstimateLine[],
+  hourlyRate: string,
+  laborTotal: string,
+  currency: string,
+  locale?: string,
+): EstimateLine[] {
   const rateWords = shopFormat({ currency, ...(locale && { locale }) }).money(hourlyRate);
   const digits = minorUnitDigits(currency);
   if (digits === undefined) throw new Error(`Unknown ISO 4217 currency ${currency}`);
@@ -139,6 +150,11 @@ export function firmQuoteLines(lines: EstimateLine[], hourlyRate: string, laborT
     const { amountHigh: _high, ...rest } = line;
     // The estimate explains a labor line at the level's range of rates; a firm line is at one rate.
     const explanation = rest.basis !== undefined ? rigWords.laborAt(rest.basis, rateWords) : rest.explanation;
-    return { ...rest, ...(explanation !== undefined && { explanation }), unitPrice: formatMoney(hourlyRate, currency), amount: amount.toFixed(digits) };
+    return {
+      ...rest,
+      ...(explanation !== undefined && { explanation }),
+      unitPrice: formatMoney(hourlyRate, currency),
+      amount: amount.toFixed(digits),
+    };
   });
 }

@@ -7,7 +7,10 @@ import type { PriceBook } from './types';
 const decimalText = (label: string, max: number, places = 4) =>
   z
     .string({ error: `${label} must be a decimal string such as "12.50"` })
-    .regex(new RegExp(`^\\d{1,9}(\\.\\d{1,${places}})?$`), { error: `${label} must be a decimal string such as "12.50" (not negative)`, abort: true })
+    .regex(new RegExp(`^\\d{1,9}(\\.\\d{1,${places}})?$`), {
+      error: `${label} must be a decimal string such as "12.50" (not negative)`,
+      abort: true,
+    })
     .refine((v) => new Decimal(v).lte(max), { error: `${label} must be at most ${max}` });
 
 const words = (label: string, max: number, min = 1) =>
@@ -157,11 +160,17 @@ export const priceBookSchema = z
     const surfaceIds = new Set(book.surfaces.map((s) => s.id));
     book.cases.forEach((c, i) =>
       c.fitsSurfaceIds.forEach((sid, j) => {
-        if (!surfaceIds.has(sid)) ctx.addIssue({ code: 'custom', path: ['cases', i, 'fitsSurfaceIds', j], message: `Case ${c.name} lists a surface the book does not have: "${sid}"` });
+        if (!surfaceIds.has(sid))
+          ctx.addIssue({
+            code: 'custom',
+            path: ['cases', i, 'fitsSurfaceIds', j],
+            message: `Case ${c.name} lists a surface the book does not have: "${sid}"`,
+          });
       }),
     );
     book.levels.forEach((l, i) => {
-      if (new Decimal(l.rateLow).gt(l.rateHigh)) ctx.addIssue({ code: 'custom', path: ['levels', i, 'rateLow'], message: `${l.name}: the low rate is above the high rate` });
+      if (new Decimal(l.rateLow).gt(l.rateHigh))
+        ctx.addIssue({ code: 'custom', path: ['levels', i, 'rateLow'], message: `${l.name}: the low rate is above the high rate` });
     });
     const byRank = [...book.levels].sort((a, b) => levelRank(a.code) - levelRank(b.code));
     for (let i = 1; i < byRank.length; i++) {

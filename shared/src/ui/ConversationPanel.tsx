@@ -8,7 +8,13 @@ import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { createApiClient } from '../api-client';
-import { MESSAGE_MAX_CHARS, MESSAGE_MAX_PHOTOS, type BuildMessageView, type MessageThreadView, type UnreadMessagesView } from '../message-schemas';
+import {
+  MESSAGE_MAX_CHARS,
+  MESSAGE_MAX_PHOTOS,
+  type BuildMessageView,
+  type MessageThreadView,
+  type UnreadMessagesView,
+} from '../message-schemas';
 import { PHOTO_MAX_BYTES, PHOTO_TYPES } from '../booking-schemas';
 import { messageWords } from '../words';
 import { useShopFormat } from './current-shop-format';
@@ -88,7 +94,9 @@ export function ConversationPanel({ bookingId, otherSide }: { bookingId: string;
       {thread.isPending ? (
         <Typography level="body-sm">Loading the conversation…</Typography>
       ) : thread.error ? (
-        <Alert color="danger" role="alert">{thread.error.message}</Alert>
+        <Alert color="danger" role="alert">
+          {thread.error.message}
+        </Alert>
       ) : messages.length === 0 ? (
         <Typography level="body-sm">No messages yet. Write to {otherSide} here; they hear of it by e-mail.</Typography>
       ) : (
@@ -97,17 +105,35 @@ export function ConversationPanel({ bookingId, otherSide }: { bookingId: string;
             <Box
               component="li"
               key={m.id}
-              sx={{ alignSelf: m.mine ? 'flex-end' : 'flex-start', maxWidth: '85%', p: 1.5, borderRadius: 'md', border: '1px solid', borderColor: 'neutral.outlinedBorder', bgcolor: m.mine ? 'primary.softBg' : 'background.surface' }}
+              sx={{
+                alignSelf: m.mine ? 'flex-end' : 'flex-start',
+                maxWidth: '85%',
+                p: 1.5,
+                borderRadius: 'md',
+                border: '1px solid',
+                borderColor: 'neutral.outlinedBorder',
+                bgcolor: m.mine ? 'primary.softBg' : 'background.surface',
+              }}
             >
               <Typography level="body-xs" sx={{ fontWeight: 600 }}>
                 {m.mine ? 'You' : m.authorName} · {format.dateTime(new Date(m.createdAt))}
               </Typography>
-              {m.body && <Typography level="body-md" sx={{ whiteSpace: 'pre-wrap' }}>{m.body}</Typography>}
+              {m.body && (
+                <Typography level="body-md" sx={{ whiteSpace: 'pre-wrap' }}>
+                  {m.body}
+                </Typography>
+              )}
               {m.photos.length > 0 && (
                 <Stack direction="row" gap={1} sx={{ mt: 1, flexWrap: 'wrap' }}>
                   {m.photos.map((p, i) => (
                     <Link key={p.id} href={p.url} target="_blank" rel="noopener" aria-label={`Open photo ${i + 1} of the message`}>
-                      <Box component="img" src={p.thumbnailUrl} alt={`Photo ${i + 1} from ${m.mine ? 'you' : m.authorName}`} loading="lazy" sx={{ width: 120, aspectRatio: '4 / 3', objectFit: 'cover', borderRadius: 'sm' }} />
+                      <Box
+                        component="img"
+                        src={p.thumbnailUrl}
+                        alt={`Photo ${i + 1} from ${m.mine ? 'you' : m.authorName}`}
+                        loading="lazy"
+                        sx={{ width: 120, aspectRatio: '4 / 3', objectFit: 'cover', borderRadius: 'sm' }}
+                      />
                     </Link>
                   ))}
                 </Stack>
@@ -124,7 +150,15 @@ export function ConversationPanel({ bookingId, otherSide }: { bookingId: string;
         slotProps={{ textarea: { 'aria-label': 'Your message', maxLength: MESSAGE_MAX_CHARS } }}
       />
       <Stack direction="row" gap={1} alignItems="center" sx={{ flexWrap: 'wrap' }}>
-        <input ref={fileInput} type="file" multiple accept={PHOTO_TYPES.join(',')} hidden onChange={(e) => choose(e.target.files)} aria-label="Attach photos" />
+        <input
+          ref={fileInput}
+          type="file"
+          multiple
+          accept={PHOTO_TYPES.join(',')}
+          hidden
+          onChange={(e) => choose(e.target.files)}
+          aria-label="Attach photos"
+        />
         <Button variant="outlined" onClick={() => fileInput.current?.click()}>
           Attach photos
         </Button>

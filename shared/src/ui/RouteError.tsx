@@ -8,11 +8,15 @@ export function RouteError({ homeHref }: { homeHref: string }) {
   const error = useRouteError() as Error | undefined;
   return (
     <Sheet sx={{ maxWidth: 560, mx: 'auto', my: 8, p: 4, borderRadius: 'lg' }} variant="outlined">
-      <Typography level="h2" component="h1">This page could not be shown</Typography>
+      <Typography level="h2" component="h1">
+        This page could not be shown
+      </Typography>
       <Typography sx={{ my: 2 }}>
         {error?.message ?? 'Something went wrong while loading it.'} Reload the page, or go back to the start.
       </Typography>
-      <Button component="a" href={homeHref}>Back to the start</Button>
+      <Button component="a" href={homeHref}>
+        Back to the start
+      </Button>
     </Sheet>
   );
 }

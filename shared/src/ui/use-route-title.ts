@@ -18,7 +18,10 @@ export function documentTitle(page: string | undefined, shopName: string | undef
  */
 export function useRouteTitle(shopName: string | undefined, app?: string): void {
   const matches = useMatches();
-  const page = [...matches].reverse().map((m) => (m.handle as RouteTitleHandle | undefined)?.title).find(Boolean);
+  const page = [...matches]
+    .reverse()
+    .map((m) => (m.handle as RouteTitleHandle | undefined)?.title)
+    .find(Boolean);
   const title = documentTitle(page, shopName, app);
   useEffect(() => {
     document.title = title;

@@ -216,7 +216,8 @@ export const rigWords = {
   switcherInOwnLoop: 'The switcher cannot sit in its own loop',
   oneSwitcher: 'One loop switcher per board',
   listOrCount: 'List at least one pedal, or switch to a quick count',
-  unknownCurrency: (code: string) => `The price book's currency "${code}" is not a known currency code; the owner can correct it on the Price book page`,
+  unknownCurrency: (code: string) =>
+    `The price book's currency "${code}" is not a known currency code; the owner can correct it on the Price book page`,
   unknownSurface: (id: string) => `The surface "${id}" is not one the shop offers now; choose a surface on the Surface step`,
   unknownCase: (id: string) => `The case "${id}" is not one the shop offers now; choose a case on the Case step`,
   caseDoesNotFit: (kase: string, surface: string) => `The ${kase} does not fit the ${surface}; choose another case or surface`,
@@ -236,7 +237,8 @@ export const shopWords = {
   countryCode: 'Country must be a country from the list (its two-letter code, like US)',
   timezone: 'Time zone must be a place name from the time zone list, like America/Chicago',
   holidayChoice: 'Say whether the shop works that day: true to open the bench, false to keep it closed',
-  notAHoliday: (day: string, country: string) => `${day} is not a public holiday in ${country}; only the country’s public holidays can be switched off or on`,
+  notAHoliday: (day: string, country: string) =>
+    `${day} is not a public holiday in ${country}; only the country’s public holidays can be switched off or on`,
   settingsEmpty: 'Say what to change: the name, tagline, e-mail, country, time zone, locale or postal address',
   locale: 'Locale must be a language and region, like en-US or de-DE',
   closureReason: 'Reason must say why the shop is closed',
@@ -244,7 +246,8 @@ export const shopWords = {
   leadTimeHours: 'Hours must be the estimate’s labor hours, a number above 0 and below 1000, like 13.00',
   teamEmpty: 'Say what to change: the level, hourly rate, weekly hours or whether the builder is active',
   dayHours: (day: string) => `${day} must be a number of hours from 0 to 24`,
-  unknownWeekdays: (keys: readonly string[]) => `${keys.map((k) => `"${k}"`).join(', ')} ${keys.length === 1 ? 'is not a day' : 'are not days'}; days are numbered 1 (Monday) to 7 (Sunday)`,
+  unknownWeekdays: (keys: readonly string[]) =>
+    `${keys.map((k) => `"${k}"`).join(', ')} ${keys.length === 1 ? 'is not a day' : 'are not days'}; days are numbered 1 (Monday) to 7 (Sunday)`,
   weeklyHoursNotAnObject: 'Weekly hours must give hours per weekday, like {"1": 7, "2": 7}',
 } as const;
 
@@ -285,7 +288,8 @@ export const messageWords = {
   tooManyPhotos: (max: number) => `Attach at most ${max} photos to one message`,
   notYours: (id: string) => `There is no build ${id} whose messages you can read`,
   /** Subject of the mail that tells one side of new messages from the other. */
-  toPlayerSubject: (reference: string, count: number) => `${count === 1 ? 'A new message' : `${count} new messages`} about build ${reference}`,
+  toPlayerSubject: (reference: string, count: number) =>
+    `${count === 1 ? 'A new message' : `${count} new messages`} about build ${reference}`,
   toShopSubject: (reference: string, player: string, count: number) =>
     `${player} wrote ${count === 1 ? 'a message' : `${count} messages`} about build ${reference}`,
   toPlayerHeading: 'Your builder wrote to you',
@@ -309,11 +313,16 @@ export const reminderWords = {
     checkoutAbandoned: 'unfinished-checkout reminder',
     requestExpiry: 'request expiry',
   },
-  shipByPlayerNote: (shipBy: string, to: string) => `Reminder sent to ${to}: the pedals are due by ${shipBy} and no tracking number is recorded yet.`,
-  shipByShopNote: (shipBy: string, to: string) => `Reminder sent to ${to} (shop): ship-by day ${shipBy} is near and the parcel has no tracking number.`,
-  balanceNote: (amount: string, days: number) => `Reminder sent to the player: a balance of ${amount} is still unpaid ${days} ${days === 1 ? 'day' : 'days'} after the board was ready.`,
-  checkoutNote: (what: string, hours: number) => `Reminder sent to the player: the ${what} checkout opened more than ${hours} hours ago was not finished.`,
-  expiredNote: (days: number) => `Request expired: the deposit was not paid within ${days} ${days === 1 ? 'day' : 'days'} of the request. Nothing was held on the bench.`,
+  shipByPlayerNote: (shipBy: string, to: string) =>
+    `Reminder sent to ${to}: the pedals are due by ${shipBy} and no tracking number is recorded yet.`,
+  shipByShopNote: (shipBy: string, to: string) =>
+    `Reminder sent to ${to} (shop): ship-by day ${shipBy} is near and the parcel has no tracking number.`,
+  balanceNote: (amount: string, days: number) =>
+    `Reminder sent to the player: a balance of ${amount} is still unpaid ${days} ${days === 1 ? 'day' : 'days'} after the board was ready.`,
+  checkoutNote: (what: string, hours: number) =>
+    `Reminder sent to the player: the ${what} checkout opened more than ${hours} hours ago was not finished.`,
+  expiredNote: (days: number) =>
+    `Request expired: the deposit was not paid within ${days} ${days === 1 ? 'day' : 'days'} of the request. Nothing was held on the bench.`,
 } as const;
 
 /** Answers about the request itself: an address or a body the API cannot read. */
@@ -321,7 +330,8 @@ export const requestWords = {
   /** An id in the address that cannot be one (only a hand-edited link gets here). */
   notAnId: (what: string) => `This address does not name ${what}; open it again from its list`,
   bodyNotAnObject: 'The request body must be a JSON object of named fields, like {"name": "value"}, not a single value',
-  notAPhoto: (found?: string) => `That file is ${found ? `a ${found} file, not a photo` : 'not a photo this page can read'}; upload a JPEG, PNG or WebP photo`,
+  notAPhoto: (found?: string) =>
+    `That file is ${found ? `a ${found} file, not a photo` : 'not a photo this page can read'}; upload a JPEG, PNG or WebP photo`,
 } as const;
 
 /** Words about checks a player reads on the estimate (as opposed to the build sheet staff read). */
@@ -333,7 +343,8 @@ export const checkWords = {
 /** A builder's today (staff): what each build waits for and what to do next; hours and days come formatted. */
 export const todayWords = {
   noTracking: 'The player has not given the parcel’s tracking number yet',
-  parcelOnItsWay: (carrier: string | null, tracking: string) => `Parcel on its way${carrier ? ` with ${carrier}` : ''} (tracking ${tracking}); check the pedals in when it arrives`,
+  parcelOnItsWay: (carrier: string | null, tracking: string) =>
+    `Parcel on its way${carrier ? ` with ${carrier}` : ''} (tracking ${tracking}); check the pedals in when it arrives`,
   layoutApproval: 'The player’s approval of the layout',
   extraApproval: (count: number) => `The player’s answer on ${count === 1 ? 'an extra' : `${count} extras`}`,
   balance: (amount: string) => `The balance of ${amount}`,
@@ -350,5 +361,22 @@ export const todayWords = {
   noBench: 'Your account has no bench of its own on the team, so it has no builds to list',
 } as const;
 
-export const en = { fieldLabels, weekdayNames, rules, authWords, rigWords, shopWords, bookingWords, messageWords, requestWords, checkWords, todayWords, reminderWords, label, humanizeField, orList, valueWords };
+export const en = {
+  fieldLabels,
+  weekdayNames,
+  rules,
+  authWords,
+  rigWords,
+  shopWords,
+  bookingWords,
+  messageWords,
+  requestWords,
+  checkWords,
+  todayWords,
+  reminderWords,
+  label,
+  humanizeField,
+  orList,
+  valueWords,
+};
 export type Words = typeof en;

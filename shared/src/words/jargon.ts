@@ -14,7 +14,10 @@ export const jargonPatterns: ReadonlyArray<{ name: string; pattern: RegExp }> = 
   { name: '"must be an e-mail address"', pattern: /must be an e-mail address/i },
   { name: '"(from memory)"', pattern: /from memory/i },
   { name: 'a developer term', pattern: /\b(?:UUID|GUID|IANA|ISO \d{4}|YYYY-MM-DD|NaN|undefined|null|boolean|regex|enum)\b/ },
-  { name: 'zod’s own wording', pattern: /Invalid input|expected (?:string|number|object|array|boolean)|received (?:undefined|null|string|number)/i },
+  {
+    name: 'zod’s own wording',
+    pattern: /Invalid input|expected (?:string|number|object|array|boolean)|received (?:undefined|null|string|number)/i,
+  },
 ];
 
 /** Text a person typed or a value echoed back in quotes is theirs, not our jargon. */

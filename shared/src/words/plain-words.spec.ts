@@ -13,9 +13,34 @@ import { jargonIn } from './jargon';
  * published source (see jargon.ts).
  */
 
-type Json = { type?: string | string[]; properties?: Record<string, Json>; items?: Json; anyOf?: Json[]; oneOf?: Json[]; allOf?: Json[]; additionalProperties?: unknown; enum?: unknown[] };
+type Json = {
+  type?: string | string[];
+  properties?: Record<string, Json>;
+  items?: Json;
+  anyOf?: Json[];
+  oneOf?: Json[];
+  allOf?: Json[];
+  additionalProperties?: unknown;
+  enum?: unknown[];
+};
 
-const hostile: unknown[] = [undefined, null, '', '   ', 'x'.repeat(5000), 'NaN', '2026-02-30', -1, 0, 2.345, 1e9, true, [], {}, 'not-an-id'];
+const hostile: unknown[] = [
+  undefined,
+  null,
+  '',
+  '   ',
+  'x'.repeat(5000),
+  'NaN',
+  '2026-02-30',
+  -1,
+  0,
+  2.345,
+  1e9,
+  true,
+  [],
+  {},
+  'not-an-id',
+];
 
 /** Inputs for one JSON-schema node: every hostile value, and for objects and lists, their insides. */
 function variants(node: Json | undefined, depth = 0): unknown[] {
@@ -35,13 +60,20 @@ function variants(node: Json | undefined, depth = 0): unknown[] {
   }
   if (type === 'array') {
     const inner = variants(node.items, depth + 1);
-    return [...hostile, inner.slice(0, 40), Array.from({ length: 300 }, () => inner[inner.length - 1]), ...inner.slice(0, 60).map((v) => [v])];
+    return [
+      ...hostile,
+      inner.slice(0, 40),
+      Array.from({ length: 300 }, () => inner[inner.length - 1]),
+      ...inner.slice(0, 60).map((v) => [v]),
+    ];
   }
   if (node.enum) return [...hostile, 'wizard'];
   return hostile;
 }
 
-const schemas = Object.entries({ ...shared, publishPriceBookSchema }).filter((entry): entry is [string, z.ZodType] => entry[1] instanceof z.ZodType);
+const schemas = Object.entries({ ...shared, publishPriceBookSchema }).filter(
+  (entry): entry is [string, z.ZodType] => entry[1] instanceof z.ZodType,
+);
 
 function messagesOf(schema: z.ZodType): Set<string> {
   const json = z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any' }) as Json;
@@ -86,7 +118,8 @@ describe('every shared schema speaks plain words', () => {
     expect(messages.length).toBeGreaterThan(0);
     // One example per distinct wording ("Pedal 3: …" and "Pedal 4: …" are one).
     const jargon = new Map<string, string>();
-    for (const m of messages) if (jargonIn(m).length) jargon.set(m.replace(/^[A-Z][a-z ]+ \d+(, [A-Z][a-z ]+ \d+)*: /, ''), `${m}  ← ${jargonIn(m).join(', ')}`);
+    for (const m of messages)
+      if (jargonIn(m).length) jargon.set(m.replace(/^[A-Z][a-z ]+ \d+(, [A-Z][a-z ]+ \d+)*: /, ''), `${m}  ← ${jargonIn(m).join(', ')}`);
     expect([...jargon.values()]).toEqual([]);
   });
 });

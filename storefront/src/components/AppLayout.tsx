@@ -22,7 +22,15 @@ export function AppLayout() {
       <Sheet
         component="header"
         // One line at every width, so the header keeps its height when the shop's name and the session check answer.
-        sx={{ px: { xs: 2, md: 4 }, py: 2, display: 'flex', alignItems: 'center', gap: { xs: 2, sm: 3 }, borderBottom: '1px solid', borderColor: 'divider' }}
+        sx={{
+          px: { xs: 2, md: 4 },
+          py: 2,
+          display: 'flex',
+          alignItems: 'center',
+          gap: { xs: 2, sm: 3 },
+          borderBottom: '1px solid',
+          borderColor: 'divider',
+        }}
       >
         <Link component={RouterLink} to="/" underline="none" color="neutral" sx={{ gap: 1.5, minWidth: 40, overflow: 'hidden' }}>
           <BoardMark />
@@ -30,12 +38,21 @@ export function AppLayout() {
             <Typography level="title-lg" component="span" noWrap sx={{ display: 'block' }}>
               {shop.data?.name ?? 'Loomwright'}
             </Typography>
-            <Typography level="body-xs" component="span" noWrap sx={{ display: 'block' }}>pedalboards wired by hand</Typography>
+            <Typography level="body-xs" component="span" noWrap sx={{ display: 'block' }}>
+              pedalboards wired by hand
+            </Typography>
           </Box>
         </Link>
-        <Box component="nav" aria-label="Main" sx={{ ml: 'auto', display: 'flex', alignItems: 'center', gap: { xs: 1.5, sm: 2 }, flexWrap: 'nowrap', whiteSpace: 'nowrap' }}>
+        <Box
+          component="nav"
+          aria-label="Main"
+          sx={{ ml: 'auto', display: 'flex', alignItems: 'center', gap: { xs: 1.5, sm: 2 }, flexWrap: 'nowrap', whiteSpace: 'nowrap' }}
+        >
           <Link component={RouterLink} to="/configure">
-            Configure<Box component="span" sx={{ display: { xs: 'none', sm: 'inline' } }}>&nbsp;a board</Box>
+            Configure
+            <Box component="span" sx={{ display: { xs: 'none', sm: 'inline' } }}>
+              &nbsp;a board
+            </Box>
           </Link>
           <AccountNav />
         </Box>

@@ -8,7 +8,12 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('shop_settings')
-    .addColumn('id', 'integer', (c) => c.primaryKey().defaultTo(1).check(sql`id = 1`))
+    .addColumn('id', 'integer', (c) =>
+      c
+        .primaryKey()
+        .defaultTo(1)
+        .check(sql`id = 1`),
+    )
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('tagline', 'text', (c) => c.notNull().defaultTo(''))
     .addColumn('currency', 'char(3)', (c) => c.notNull().defaultTo('USD'))

@@ -143,9 +143,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('amount', 'numeric(12, 2)', (c) => c.notNull().check(sql`amount > 0`))
     .addColumn('amount_minor', 'bigint', (c) => c.notNull())
     .addColumn('currency', 'char(3)', (c) => c.notNull())
-    .addColumn('status', 'text', (c) =>
-      c.notNull().check(sql`status in ('pending', 'paid', 'failed', 'expired', 'refunded')`),
-    )
+    .addColumn('status', 'text', (c) => c.notNull().check(sql`status in ('pending', 'paid', 'failed', 'expired', 'refunded')`))
     .addColumn('checkout_session_id', 'text', (c) => c.unique())
     .addColumn('checkout_url', 'text')
     .addColumn('payment_intent_id', 'text')
@@ -248,7 +246,12 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('subject', 'text')
     .addColumn('booking_id', 'uuid', (c) => c.references('bookings.id').onDelete('set null'))
     .addColumn('user_id', 'uuid', (c) => c.references('users.id').onDelete('set null'))
-    .addColumn('state', 'text', (c) => c.notNull().defaultTo('queued').check(sql`state in ('queued', 'sending', 'sent', 'failed')`))
+    .addColumn('state', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('queued')
+        .check(sql`state in ('queued', 'sending', 'sent', 'failed')`),
+    )
     .addColumn('attempts', 'integer', (c) => c.notNull().defaultTo(0))
     .addColumn('last_error', 'text')
     // Optional key that makes "send this once" idempotent (e.g. 'scheduled:<booking>:<date>').
@@ -261,9 +264,22 @@ export async function up(db: Kysely<any>): Promise<void> {
 
 export async function down(db: Kysely<any>): Promise<void> {
   for (const table of [
-    'mail_outbox', 'bench_allocations', 'time_entries', 'intake_items', 'photos', 'booking_extras',
-    'payment_events', 'payments', 'booking_events', 'quotes', 'bookings', 'price_book_versions',
-    'shop_closures', 'builders', 'auth_tokens', 'users',
+    'mail_outbox',
+    'bench_allocations',
+    'time_entries',
+    'intake_items',
+    'photos',
+    'booking_extras',
+    'payment_events',
+    'payments',
+    'booking_events',
+    'quotes',
+    'bookings',
+    'price_book_versions',
+    'shop_closures',
+    'builders',
+    'auth_tokens',
+    'users',
   ]) {
     await db.schema.dropTable(table).ifExists().execute();
   }

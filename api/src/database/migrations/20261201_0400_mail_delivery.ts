@@ -11,15 +11,14 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('last_attempt_at', 'timestamptz')
     .addColumn('resent_from_id', 'uuid', (c) => c.references('mail_outbox.id').onDelete('set null'))
     .execute();
-  await db.schema.createIndex('mail_outbox_to_idx').on('mail_outbox').expression(sql`lower(to_address)`).execute();
+  await db.schema
+    .createIndex('mail_outbox_to_idx')
+    .on('mail_outbox')
+    .expression(sql`lower(to_address)`)
+    .execute();
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
   await db.schema.dropIndex('mail_outbox_to_idx').ifExists().execute();
-  await db.schema
-    .alterTable('mail_outbox')
-    .dropColumn('claimed_at')
-    .dropColumn('last_attempt_at')
-    .dropColumn('resent_from_id')
-    .execute();
+  await db.schema.alterTable('mail_outbox').dropColumn('claimed_at').dropColumn('last_attempt_at').dropColumn('resent_from_id').execute();
 }

@@ -13,9 +13,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('renewed_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
     .addColumn('expires_at', 'timestamptz', (c) => c.notNull())
     .addColumn('ended_at', 'timestamptz')
-    .addColumn('ended_reason', 'text', (c) =>
-      c.check(sql`ended_reason in ('signed_out', 'signed_out_everywhere', 'password_changed')`),
-    )
+    .addColumn('ended_reason', 'text', (c) => c.check(sql`ended_reason in ('signed_out', 'signed_out_everywhere', 'password_changed')`))
     .addColumn('ended_by', 'uuid', (c) => c.references('users.id').onDelete('set null'))
     .addColumn('user_agent', 'text')
     .addCheckConstraint('sessions_end_has_reason', sql`(ended_at is null) = (ended_reason is null)`)

@@ -7,7 +7,12 @@ export async function up(db: Kysely<any>): Promise<void> {
   // How a payment came in: through the hosted checkout, or recorded by the shop when taken in person.
   await db.schema
     .alterTable('payments')
-    .addColumn('method', 'text', (c) => c.notNull().defaultTo('checkout').check(sql`method in ('checkout', 'cash', 'card_terminal', 'bank_transfer')`))
+    .addColumn('method', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('checkout')
+        .check(sql`method in ('checkout', 'cash', 'card_terminal', 'bank_transfer')`),
+    )
     .addColumn('recorded_by', 'uuid', (c) => c.references('users.id'))
     .addColumn('note', 'text', (c) => c.notNull().defaultTo(''))
     .execute();
@@ -27,7 +32,12 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('booking_id', 'uuid', (c) => c.notNull().references('bookings.id').onDelete('cascade'))
     .addColumn('requested_by', 'uuid', (c) => c.references('users.id'))
     .addColumn('message', 'text', (c) => c.notNull().defaultTo(''))
-    .addColumn('status', 'text', (c) => c.notNull().defaultTo('waiting').check(sql`status in ('waiting', 'approved', 'declined')`))
+    .addColumn('status', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('waiting')
+        .check(sql`status in ('waiting', 'approved', 'declined')`),
+    )
     .addColumn('decided_via', 'text', (c) => c.check(sql`decided_via in ('app', 'phone', 'in_person', 'email')`))
     .addColumn('decision_comment', 'text', (c) => c.notNull().defaultTo(''))
     .addColumn('decided_by_name', 'text')
@@ -42,7 +52,12 @@ export async function up(db: Kysely<any>): Promise<void> {
   // notes, hours and intake remarks. State changes the player should know of stay 'player'.
   await db.schema
     .alterTable('booking_events')
-    .addColumn('visibility', 'text', (c) => c.notNull().defaultTo('player').check(sql`visibility in ('player', 'internal')`))
+    .addColumn('visibility', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('player')
+        .check(sql`visibility in ('player', 'internal')`),
+    )
     .execute();
   // Hours and intake remarks written before this were shown to the player; they are the shop's own.
   await sql`update booking_events set visibility = 'internal'
@@ -71,9 +86,21 @@ export async function up(db: Kysely<any>): Promise<void> {
 export async function down(db: Kysely<any>): Promise<void> {
   await db.schema.alterTable('time_entries').dropColumn('created_by').dropColumn('updated_at').execute();
   await sql`drop index if exists intake_items_one_per_item`.execute(db);
-  await db.schema.alterTable('intake_items').dropColumn('item_key').dropColumn('position').dropColumn('updated_at').dropColumn('updated_by').execute();
+  await db.schema
+    .alterTable('intake_items')
+    .dropColumn('item_key')
+    .dropColumn('position')
+    .dropColumn('updated_at')
+    .dropColumn('updated_by')
+    .execute();
   await db.schema.alterTable('booking_events').dropColumn('visibility').execute();
   await db.schema.dropTable('layout_approvals').ifExists().execute();
-  await db.schema.alterTable('booking_extras').dropColumn('decided_via').dropColumn('decision_comment').dropColumn('decided_by_name').dropColumn('recorded_by').execute();
+  await db.schema
+    .alterTable('booking_extras')
+    .dropColumn('decided_via')
+    .dropColumn('decision_comment')
+    .dropColumn('decided_by_name')
+    .dropColumn('recorded_by')
+    .execute();
   await db.schema.alterTable('payments').dropColumn('method').dropColumn('recorded_by').dropColumn('note').execute();
 }

@@ -13,7 +13,9 @@ export async function up(db: Kysely<any>): Promise<void> {
   await sql`create unique index payments_one_open on payments (booking_id, kind) where status in ('pending', 'processing')`.execute(db);
   await db.schema
     .alterTable('payments')
-    .addColumn('refund_status', 'text', (c) => c.check(sql`refund_status in ('pending', 'requires_action', 'succeeded', 'failed', 'canceled')`))
+    .addColumn('refund_status', 'text', (c) =>
+      c.check(sql`refund_status in ('pending', 'requires_action', 'succeeded', 'failed', 'canceled')`),
+    )
     .addColumn('refund_failure', 'text')
     .addColumn('refund_attempts', 'integer', (c) => c.notNull().defaultTo(0))
     .addColumn('dispute_id', 'text')
@@ -30,8 +32,16 @@ export async function up(db: Kysely<any>): Promise<void> {
 export async function down(db: Kysely<any>): Promise<void> {
   await sql`drop index if exists payments_intent_idx`.execute(db);
   for (const column of [
-    'refund_status', 'refund_failure', 'refund_attempts', 'dispute_id', 'dispute_status',
-    'dispute_reason', 'dispute_amount_minor', 'dispute_opened_at', 'dispute_released_at', 'dispute_released_by',
+    'refund_status',
+    'refund_failure',
+    'refund_attempts',
+    'dispute_id',
+    'dispute_status',
+    'dispute_reason',
+    'dispute_amount_minor',
+    'dispute_opened_at',
+    'dispute_released_at',
+    'dispute_released_by',
   ]) {
     await db.schema.alterTable('payments').dropColumn(column).execute();
   }

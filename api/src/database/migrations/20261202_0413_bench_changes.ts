@@ -19,7 +19,12 @@ export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .alterTable('bookings')
     // RFC 5545 §3.8.7.4 SEQUENCE of the booking's calendar event: 0 when first sent, one more on every revision.
-    .addColumn('calendar_sequence', 'integer', (c) => c.notNull().defaultTo(0).check(sql`calendar_sequence >= 0`))
+    .addColumn('calendar_sequence', 'integer', (c) =>
+      c
+        .notNull()
+        .defaultTo(0)
+        .check(sql`calendar_sequence >= 0`),
+    )
     // null: no consent needed; 'pending': the firm total is above the quoted range and the player has not answered.
     .addColumn('price_consent', 'text', (c) => c.check(sql`price_consent in ('pending', 'given')`))
     .execute();

@@ -6,7 +6,12 @@ import { Kysely, sql } from 'kysely';
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .alterTable('shop_settings')
-    .addColumn('locale', 'text', (c) => c.notNull().defaultTo('en-US').check(sql`locale ~ '^[A-Za-z]{2,3}(-[A-Za-z0-9]{2,8})*$'`))
+    .addColumn('locale', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('en-US')
+        .check(sql`locale ~ '^[A-Za-z]{2,3}(-[A-Za-z0-9]{2,8})*$'`),
+    )
     .execute();
 }
 

@@ -43,9 +43,17 @@ export async function down(db: Kysely<any>): Promise<void> {
   await sql`drop trigger if exists price_book_versions_changed on price_book_versions`.execute(db);
   await sql`drop function if exists price_book_changed`.execute(db);
   for (const index of [
-    'mail_outbox_to_trgm', 'mail_outbox_created_idx', 'payments_booking_kind_idx', 'users_role_name_idx', 'users_email_trgm',
-    'users_name_trgm', 'bookings_reference_trgm', 'bookings_customer_created_idx', 'bookings_state_order_idx',
-    'bookings_bench_date_idx', 'bookings_updated_idx',
+    'mail_outbox_to_trgm',
+    'mail_outbox_created_idx',
+    'payments_booking_kind_idx',
+    'users_role_name_idx',
+    'users_email_trgm',
+    'users_name_trgm',
+    'bookings_reference_trgm',
+    'bookings_customer_created_idx',
+    'bookings_state_order_idx',
+    'bookings_bench_date_idx',
+    'bookings_updated_idx',
   ]) {
     await sql`drop index if exists ${sql.raw(index)}`.execute(db);
   }

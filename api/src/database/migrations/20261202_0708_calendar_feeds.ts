@@ -10,7 +10,12 @@ export async function up(db: Kysely<any>): Promise<void> {
     .createTable('calendar_feeds')
     .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(sql`gen_random_uuid()`))
     .addColumn('builder_id', 'uuid', (c) => c.references('builders.id').onDelete('cascade').unique())
-    .addColumn('generation', 'integer', (c) => c.notNull().defaultTo(0).check(sql`generation >= 0`))
+    .addColumn('generation', 'integer', (c) =>
+      c
+        .notNull()
+        .defaultTo(0)
+        .check(sql`generation >= 0`),
+    )
     .addColumn('rotated_at', 'timestamptz')
     .addColumn('rotated_by', 'uuid', (c) => c.references('users.id').onDelete('set null'))
     .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))

@@ -15,7 +15,11 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('decided_by', 'uuid', (c) => c.references('users.id').onDelete('set null'))
     .addColumn('decided_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
     .execute();
-  await db.schema.createIndex('shop_holiday_choices_day').on('shop_holiday_choices').columns(['country_code', 'day', 'decided_at']).execute();
+  await db.schema
+    .createIndex('shop_holiday_choices_day')
+    .on('shop_holiday_choices')
+    .columns(['country_code', 'day', 'decided_at'])
+    .execute();
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

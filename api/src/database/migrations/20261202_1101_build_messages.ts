@@ -37,7 +37,12 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('side', 'text', (c) => c.notNull().check(sql`side in ('player', 'shop')`))
     .addColumn('from_seq', 'bigint', (c) => c.notNull())
     .addColumn('due_at', 'timestamptz', (c) => c.notNull())
-    .addColumn('state', 'text', (c) => c.notNull().defaultTo('waiting').check(sql`state in ('waiting', 'sent', 'skipped')`))
+    .addColumn('state', 'text', (c) =>
+      c
+        .notNull()
+        .defaultTo('waiting')
+        .check(sql`state in ('waiting', 'sent', 'skipped')`),
+    )
     .addColumn('message_count', 'integer')
     .addColumn('outbox_id', 'uuid', (c) => c.references('mail_outbox.id').onDelete('set null'))
     .addColumn('settled_at', 'timestamptz')

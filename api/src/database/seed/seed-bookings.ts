@@ -40,7 +40,14 @@ const demoBookings: Array<{
     customer: 'player@mail.example',
     state: 'requested',
     notes: 'Small fly rig for club gigs.',
-    configuration: { surfaceId: 'slate-46', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 5, functions: [], level: 'apprentice' },
+    configuration: {
+      surfaceId: 'slate-46',
+      caseId: 'shell-hard',
+      routing: { mode: 'serial' },
+      pedalCount: 5,
+      functions: [],
+      level: 'apprentice',
+    },
   },
   {
     reference: 'LW-0902',
@@ -75,7 +82,12 @@ const demoBookings: Array<{
       surfaceId: 'slate-61',
       caseId: 'shell-hard',
       routing: { mode: 'serial' },
-      pedals: [pedal('Chromatic tuner', 'tuner', false, 60), pedal('Compressor', 'compact'), pedal('Treble booster', 'mini'), pedal('Analog delay', 'compact', false, 40)],
+      pedals: [
+        pedal('Chromatic tuner', 'tuner', false, 60),
+        pedal('Compressor', 'compact'),
+        pedal('Treble booster', 'mini'),
+        pedal('Analog delay', 'compact', false, 40),
+      ],
       functions: [],
       level: 'apprentice',
     },
@@ -110,7 +122,14 @@ const demoBookings: Array<{
     builder: 'junior@shop.example',
     startOffset: -4,
     notes: '',
-    configuration: { surfaceId: 'slate-61', caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount: 6, functions: [], level: 'apprentice' },
+    configuration: {
+      surfaceId: 'slate-61',
+      caseId: 'shell-hard',
+      routing: { mode: 'serial' },
+      pedalCount: 6,
+      functions: [],
+      level: 'apprentice',
+    },
   },
   {
     reference: 'LW-0906',
@@ -123,7 +142,12 @@ const demoBookings: Array<{
       surfaceId: 'slate-46',
       caseId: 'shell-hard',
       routing: { mode: 'serial' },
-      pedals: [pedal('Bass tuner', 'tuner', false, 60), pedal('Bass compressor', 'compact'), pedal('Envelope filter', 'compact'), pedal('Bass preamp', 'large', false, 80)],
+      pedals: [
+        pedal('Bass tuner', 'tuner', false, 60),
+        pedal('Bass compressor', 'compact'),
+        pedal('Envelope filter', 'compact'),
+        pedal('Bass preamp', 'large', false, 80),
+      ],
       functions: ['tuner_out'],
       level: 'journeyman',
     },
@@ -161,12 +185,21 @@ const path: BookingState[] = ['requested', 'deposit_paid', 'scheduled', 'pedals_
 export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: boolean } = {}): Promise<void> {
   // API tests start from an empty queue so their counts mean something; seed.spec runs this step itself.
   if (process.env.NODE_ENV === 'test' && !options.evenInTests) return;
-  const book = await db.selectFrom('price_book_versions').select(['version', 'book']).orderBy('version', 'desc').limit(1).executeTakeFirst();
+  const book = await db
+    .selectFrom('price_book_versions')
+    .select(['version', 'book'])
+    .orderBy('version', 'desc')
+    .limit(1)
+    .executeTakeFirst();
   const shop = await db.selectFrom('shop_settings').select(['country_code', 'timezone']).where('id', '=', 1).executeTakeFirst();
   if (!book || !shop) return;
   const today = todayIn(shop.timezone);
   const holidays = publicHolidaysBetween(shop.country_code.trim(), addDays(today, -60), addDays(today, 400));
-  const closures = (await db.selectFrom('shop_closures').selectAll().execute()).map((c) => ({ startsOn: c.starts_on, endsOn: c.ends_on, reason: c.reason }));
+  const closures = (await db.selectFrom('shop_closures').selectAll().execute()).map((c) => ({
+    startsOn: c.starts_on,
+    endsOn: c.ends_on,
+    reason: c.reason,
+  }));
   const holidayOn = (d: string) => holidays.get(d) ?? null;
 
   for (const demo of demoBookings) {
@@ -175,7 +208,13 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
     await db.transaction().execute(async (trx) => {
       const booking = await trx
         .insertInto('bookings')
-        .values({ reference: demo.reference, customer_id: customer.id, state: 'requested', configuration: JSON.stringify(demo.configuration), customer_notes: demo.notes })
+        .values({
+          reference: demo.reference,
+          customer_id: customer.id,
+          state: 'requested',
+          configuration: JSON.stringify(demo.configuration),
+          customer_notes: demo.notes,
+        })
         .onConflict((oc) => oc.column('reference').doNothing())
         .returning('id')
         .executeTakeFirst();
@@ -192,7 +231,13 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
       };
       await trx
         .insertInto('quotes')
-        .values({ ...quoteBase, kind: 'estimate', total_low: estimate.totalLow, total_high: estimate.totalHigh, expires_at: new Date(Date.now() + 30 * 86_400_000) })
+        .values({
+          ...quoteBase,
+          kind: 'estimate',
+          total_low: estimate.totalLow,
+          total_high: estimate.totalHigh,
+          expires_at: new Date(Date.now() + 30 * 86_400_000),
+        })
         .execute();
 
       const reached = path.slice(0, path.indexOf(demo.state) + 1);
@@ -236,7 +281,12 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
             ),
           )
           .execute();
-        const firm = firmQuoteFigures({ hourlyRate: builder.hourly_rate, laborHours: estimate.laborHours, materialsTotal: estimate.materialsTotal, deposit: estimate.deposit });
+        const firm = firmQuoteFigures({
+          hourlyRate: builder.hourly_rate,
+          laborHours: estimate.laborHours,
+          materialsTotal: estimate.materialsTotal,
+          deposit: estimate.deposit,
+        });
         await trx
           .insertInto('quotes')
           .values({
@@ -271,7 +321,16 @@ export async function seedBookings(db: Kysely<DB>, options: { evenInTests?: bool
           if (worked.length) {
             await trx
               .insertInto('time_entries')
-              .values(worked.map((d) => ({ booking_id: booking.id, builder_id: builder.id, worked_on: d.day, hours: new Decimal(d.hours).div(100).toFixed(2), note: 'Mounting and cabling', created_by: builder.user_id })))
+              .values(
+                worked.map((d) => ({
+                  booking_id: booking.id,
+                  builder_id: builder.id,
+                  worked_on: d.day,
+                  hours: new Decimal(d.hours).div(100).toFixed(2),
+                  note: 'Mounting and cabling',
+                  created_by: builder.user_id,
+                })),
+              )
               .execute();
           }
         }

@@ -22,8 +22,60 @@ export interface YearOfDataScale {
 
 export const fullYearScale: YearOfDataScale = { bookings: 100_000, customers: 5_000, builders: 20, mails: 200_000, fullEstimates: 10_000 };
 
-const firstNames = ['Ada', 'Bram', 'Cleo', 'Dario', 'Edda', 'Fenn', 'Greer', 'Hollis', 'Ilse', 'Joss', 'Kit', 'Lark', 'Mads', 'Nell', 'Orrin', 'Pia', 'Quill', 'Rhea', 'Sten', 'Tova', 'Ulla', 'Vane', 'Wynn', 'Xeno', 'Yara', 'Zeb'];
-const lastNames = ['Ashgrove', 'Brackwater', 'Coldharbour', 'Dunmere', 'Elderwick', 'Fallowby', 'Glenhart', 'Hazelmoor', 'Ironside', 'Juniperhill', 'Kestrelford', 'Larchmont', 'Marrowby', 'Northcote', 'Oakhollow', 'Pennywhistle', 'Quarrington', 'Rookwood', 'Saltmarsh', 'Thistledown', 'Underhill', 'Vellacott', 'Wexcombe', 'Yarrowby'];
+const firstNames = [
+  'Ada',
+  'Bram',
+  'Cleo',
+  'Dario',
+  'Edda',
+  'Fenn',
+  'Greer',
+  'Hollis',
+  'Ilse',
+  'Joss',
+  'Kit',
+  'Lark',
+  'Mads',
+  'Nell',
+  'Orrin',
+  'Pia',
+  'Quill',
+  'Rhea',
+  'Sten',
+  'Tova',
+  'Ulla',
+  'Vane',
+  'Wynn',
+  'Xeno',
+  'Yara',
+  'Zeb',
+];
+const lastNames = [
+  'Ashgrove',
+  'Brackwater',
+  'Coldharbour',
+  'Dunmere',
+  'Elderwick',
+  'Fallowby',
+  'Glenhart',
+  'Hazelmoor',
+  'Ironside',
+  'Juniperhill',
+  'Kestrelford',
+  'Larchmont',
+  'Marrowby',
+  'Northcote',
+  'Oakhollow',
+  'Pennywhistle',
+  'Quarrington',
+  'Rookwood',
+  'Saltmarsh',
+  'Thistledown',
+  'Underhill',
+  'Vellacott',
+  'Wexcombe',
+  'Yarrowby',
+];
 
 /** The 13-pedal board the benchmark prices: buffer, tuner, wah and ten compact pedals in series. */
 export function benchBoard(): RigConfiguration {
@@ -44,8 +96,15 @@ export function benchBoard(): RigConfiguration {
 }
 
 /** `onStep` hears how long each step took (the benchmark prints it, to show where the seed spends its time). */
-export async function seedYearOfData(db: Kysely<DB>, scale: YearOfDataScale, onStep?: (step: string, seconds: number) => void): Promise<Record<string, number>> {
-  const version = await db.selectFrom('price_book_versions').select((eb) => eb.fn.max('version').as('v')).executeTakeFirst();
+export async function seedYearOfData(
+  db: Kysely<DB>,
+  scale: YearOfDataScale,
+  onStep?: (step: string, seconds: number) => void,
+): Promise<Record<string, number>> {
+  const version = await db
+    .selectFrom('price_book_versions')
+    .select((eb) => eb.fn.max('version').as('v'))
+    .executeTakeFirst();
   if (!version?.v) throw new Error('Publish a price book first (the demo seed does).');
   const owner = await db.selectFrom('users').select('password_hash').where('role', '=', 'owner').executeTakeFirst();
   const configuration = benchBoard();
@@ -66,7 +125,10 @@ export async function seedYearOfData(db: Kysely<DB>, scale: YearOfDataScale, onS
       const t0 = performance.now();
       await q.execute(trx);
       const text = q.compile(trx).sql;
-      onStep?.(`${++step}: ${/(insert into \w+|update \w+|create temporary table \w+|set local \w+|drop index \S+|CREATE INDEX \w+)/.exec(text)?.[1] ?? text.slice(0, 40)}`, (performance.now() - t0) / 1000);
+      onStep?.(
+        `${++step}: ${/(insert into \w+|update \w+|create temporary table \w+|set local \w+|drop index \S+|CREATE INDEX \w+)/.exec(text)?.[1] ?? text.slice(0, 40)}`,
+        (performance.now() - t0) / 1000,
+      );
     };
     await run(sql`set local synchronous_commit = off`);
     // Bulk loading as PostgreSQL's manual advises ("Populating a Database", section 14.4): the
@@ -77,7 +139,9 @@ export async function seedYearOfData(db: Kysely<DB>, scale: YearOfDataScale, onS
     // default pglz for the large JSON of each quote); a seed run as superuser also skips the
     // foreign-key checks of rows that all come from this transaction.
     await run(sql`set local maintenance_work_mem = '256MB'`);
-    const lz4 = await sql<{ ok: boolean }>`select 'lz4' = any(enumvals) as ok from pg_settings where name = 'default_toast_compression'`.execute(trx);
+    const lz4 = await sql<{
+      ok: boolean;
+    }>`select 'lz4' = any(enumvals) as ok from pg_settings where name = 'default_toast_compression'`.execute(trx);
     if (lz4.rows[0]?.ok) await run(sql`set local default_toast_compression = 'lz4'`);
     const superuser = await sql<{ ok: boolean }>`select rolsuper as ok from pg_roles where rolname = current_user`.execute(trx);
     if (superuser.rows[0]?.ok) await run(sql`set local session_replication_role = replica`);
@@ -224,8 +288,17 @@ export async function seedYearOfData(db: Kysely<DB>, scale: YearOfDataScale, onS
   await sql`analyze`.execute(db);
   onStep?.('analyze', (performance.now() - analyzed) / 1000);
 
-  const count = async (table: 'users' | 'bookings' | 'quotes' | 'payments' | 'bench_allocations' | 'mail_outbox' | 'booking_events' | 'builders') =>
-    Number((await db.selectFrom(table).select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow()).n);
+  const count = async (
+    table: 'users' | 'bookings' | 'quotes' | 'payments' | 'bench_allocations' | 'mail_outbox' | 'booking_events' | 'builders',
+  ) =>
+    Number(
+      (
+        await db
+          .selectFrom(table)
+          .select((eb) => eb.fn.countAll<string>().as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
   return {
     users: await count('users'),
     builders: await count('builders'),

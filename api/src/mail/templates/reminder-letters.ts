@@ -45,7 +45,10 @@ export const reminderDrafts = {
               'Add the carrier and tracking number on your build page once the parcel is on its way, so we can watch for it.',
             ],
           },
-          { kind: 'p', text: 'If you are dropping them off instead, or cannot make the day, reply to this e-mail and we will plan around it.' },
+          {
+            kind: 'p',
+            text: 'If you are dropping them off instead, or cannot make the day, reply to this e-mail and we will plan around it.',
+          },
           ...link('Add the tracking number', optionalString(data, 'bookingUrl')),
         ],
       },
@@ -68,7 +71,10 @@ export const reminderDrafts = {
               ['Bench date', formatDay(requireString(data, 'benchDate'))],
             ],
           },
-          { kind: 'p', text: 'The player has been reminded too. If the pedals will be late, move the bench date from the booking before the day comes.' },
+          {
+            kind: 'p',
+            text: 'The player has been reminded too. If the pedals will be late, move the bench date from the booking before the day comes.',
+          },
           ...link('Open the booking', requireString(data, 'backofficeUrl')),
         ],
         footer: 'A notice for the shop from Loomwright.',
@@ -84,9 +90,15 @@ export const reminderDrafts = {
       letter: {
         heading: 'Your board is waiting for its balance',
         blocks: [
-          { kind: 'p', text: `Hello ${recipient(data)}, build ${reference} has been ready since ${formatDay(requireString(data, 'readySince'))}.` },
+          {
+            kind: 'p',
+            text: `Hello ${recipient(data)}, build ${reference} has been ready since ${formatDay(requireString(data, 'readySince'))}.`,
+          },
           { kind: 'facts', rows: [['Balance due', due]] },
-          { kind: 'p', text: 'We ship your board, or you can collect it, as soon as the balance is paid. If you have already paid, thank you: nothing more is needed.' },
+          {
+            kind: 'p',
+            text: 'We ship your board, or you can collect it, as soon as the balance is paid. If you have already paid, thank you: nothing more is needed.',
+          },
           ...link('Pay the balance', optionalString(data, 'payUrl') ?? optionalString(data, 'bookingUrl')),
         ],
       },
@@ -101,7 +113,10 @@ export const reminderDrafts = {
       letter: {
         heading: `Finish paying the ${what}?`,
         blocks: [
-          { kind: 'p', text: `Hello ${recipient(data)}, you started paying the ${what} of ${amount} for build ${reference} but the payment was not finished, so nothing was taken.` },
+          {
+            kind: 'p',
+            text: `Hello ${recipient(data)}, you started paying the ${what} of ${amount} for build ${reference} but the payment was not finished, so nothing was taken.`,
+          },
           {
             kind: 'p',
             text:
@@ -126,7 +141,10 @@ export const reminderDrafts = {
             kind: 'p',
             text: `Hello ${recipient(data)}, the deposit for request ${reference} was not paid within ${days} ${days === 1 ? 'day' : 'days'}, so we have closed the request. Nothing was charged and no bench time was held for it.`,
           },
-          { kind: 'p', text: 'Prices and bench dates may have changed since. To build this board, configure it again and send a new request; we will be glad to hear from you.' },
+          {
+            kind: 'p',
+            text: 'Prices and bench dates may have changed since. To build this board, configure it again and send a new request; we will be glad to hear from you.',
+          },
           ...link('Configure a board', optionalString(data, 'configureUrl')),
         ],
       },

@@ -23,24 +23,111 @@ const samples: Record<(typeof mailTemplates)[number], Record<string, unknown>> =
   welcome: { name: 'Rosa', signInUrl: 'http://localhost:3000/sign-in' },
   'password-reset': { name: 'Rosa', resetUrl: 'http://localhost:3000/reset?token=t0k3n', expiresAt: '2027-01-12T20:30:00Z' },
   'staff-invite': { name: 'Ivo', inviteUrl: 'http://localhost:3000/backoffice/invite?token=inv1', role: 'builder' },
-  'booking-requested': { name: 'Rosa', reference: 'LW-1042', totalLow: '1120.00', totalHigh: '1400.5', deposit: '280.00', currency: 'USD', bookingUrl: 'http://x/b' },
-  'deposit-received': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD', bookingUrl: 'http://x/b', expectedBenchDate: '2027-01-12' },
+  'booking-requested': {
+    name: 'Rosa',
+    reference: 'LW-1042',
+    totalLow: '1120.00',
+    totalHigh: '1400.5',
+    deposit: '280.00',
+    currency: 'USD',
+    bookingUrl: 'http://x/b',
+  },
+  'deposit-received': {
+    name: 'Rosa',
+    reference: 'LW-1042',
+    amount: '280.00',
+    currency: 'USD',
+    bookingUrl: 'http://x/b',
+    expectedBenchDate: '2027-01-12',
+  },
   'booking-scheduled': scheduled,
-  'booking-rescheduled': { ...scheduled, benchDate: '2027-01-19', shipBy: '2027-01-14', previousBenchDate: '2027-01-12', shift: '7 days later', reason: 'Your builder is ill this week.', calendarSequence: 1 },
-  'booking-cancelled': { name: 'Rosa', reference: 'LW-1042', reason: 'The shop cannot source the case in time.', currency: 'USD', refundAmount: '280.00', shipBy: '2027-01-08', calendarSequence: 2 },
+  'booking-rescheduled': {
+    ...scheduled,
+    benchDate: '2027-01-19',
+    shipBy: '2027-01-14',
+    previousBenchDate: '2027-01-12',
+    shift: '7 days later',
+    reason: 'Your builder is ill this week.',
+    calendarSequence: 1,
+  },
+  'booking-cancelled': {
+    name: 'Rosa',
+    reference: 'LW-1042',
+    reason: 'The shop cannot source the case in time.',
+    currency: 'USD',
+    refundAmount: '280.00',
+    shipBy: '2027-01-08',
+    calendarSequence: 2,
+  },
   'status-changed': { name: 'Rosa', reference: 'LW-1042', state: 'pedals_received', bookingUrl: 'http://x/b' },
   'balance-requested': { name: 'Rosa', reference: 'LW-1042', amount: '1234567.8', currency: 'USD', payUrl: 'http://x/pay' },
   'deposit-refunded': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD' },
   'booking-declined': { name: 'Rosa', reference: 'LW-1042', reason: 'The rig needs a 14-loop switcher we cannot mount on that surface.' },
-  'approval-requested': { name: 'Rosa', reference: 'LW-1042', kind: 'extra', description: 'Deeper road case', amount: '45.00', currency: 'USD', reason: 'The wah needs more depth.', bookingUrl: 'http://x/b' },
-  'build-messages': { audience: 'player', name: 'Rosa', reference: 'LW-1042', messages: [{ author: 'Ivo', body: 'The case arrived; see the photo.', at: '2027-01-12T15:04:00Z', photos: 1 }], bookingUrl: 'http://x/b' },
-  'shop-note': { name: 'Rosa', reference: 'LW-1042', note: 'Your supply has a spare 18 V output; we left it free.', bookingUrl: 'http://x/b' },
+  'approval-requested': {
+    name: 'Rosa',
+    reference: 'LW-1042',
+    kind: 'extra',
+    description: 'Deeper road case',
+    amount: '45.00',
+    currency: 'USD',
+    reason: 'The wah needs more depth.',
+    bookingUrl: 'http://x/b',
+  },
+  'build-messages': {
+    audience: 'player',
+    name: 'Rosa',
+    reference: 'LW-1042',
+    messages: [{ author: 'Ivo', body: 'The case arrived; see the photo.', at: '2027-01-12T15:04:00Z', photos: 1 }],
+    bookingUrl: 'http://x/b',
+  },
+  'shop-note': {
+    name: 'Rosa',
+    reference: 'LW-1042',
+    note: 'Your supply has a spare 18 V output; we left it free.',
+    bookingUrl: 'http://x/b',
+  },
   'payment-failed': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD', reason: 'The bank account has been closed.' },
-  'shop-payment-alert': { customerName: 'Rosa', alert: 'dispute-opened', reference: 'LW-1042', amount: '280.00', currency: 'USD', detail: 'fraudulent', backofficeUrl: 'http://x/backoffice/requests/1' },
-  'shop-new-paid-request': { reference: 'LW-1042', customerName: 'Rosa', customerEmail: 'rosa@mail.example', amount: '280.00', currency: 'USD', backofficeUrl: 'http://x/backoffice/requests/1' },
-  'ship-by-reminder': { name: 'Rosa', reference: 'LW-1042', shipBy: '2027-01-08', benchDate: '2027-01-13', daysLeft: 3, bookingUrl: 'http://x/b' },
-  'shop-ship-by-reminder': { name: 'Wren', reference: 'LW-1042', playerName: 'Rosa', shipBy: '2027-01-08', benchDate: '2027-01-13', backofficeUrl: 'http://x/backoffice/requests/1' },
-  'balance-reminder': { name: 'Rosa', reference: 'LW-1042', balanceDue: '840.00', currency: 'USD', readySince: '2027-01-15', payUrl: 'http://x/b' },
+  'shop-payment-alert': {
+    customerName: 'Rosa',
+    alert: 'dispute-opened',
+    reference: 'LW-1042',
+    amount: '280.00',
+    currency: 'USD',
+    detail: 'fraudulent',
+    backofficeUrl: 'http://x/backoffice/requests/1',
+  },
+  'shop-new-paid-request': {
+    reference: 'LW-1042',
+    customerName: 'Rosa',
+    customerEmail: 'rosa@mail.example',
+    amount: '280.00',
+    currency: 'USD',
+    backofficeUrl: 'http://x/backoffice/requests/1',
+  },
+  'ship-by-reminder': {
+    name: 'Rosa',
+    reference: 'LW-1042',
+    shipBy: '2027-01-08',
+    benchDate: '2027-01-13',
+    daysLeft: 3,
+    bookingUrl: 'http://x/b',
+  },
+  'shop-ship-by-reminder': {
+    name: 'Wren',
+    reference: 'LW-1042',
+    playerName: 'Rosa',
+    shipBy: '2027-01-08',
+    benchDate: '2027-01-13',
+    backofficeUrl: 'http://x/backoffice/requests/1',
+  },
+  'balance-reminder': {
+    name: 'Rosa',
+    reference: 'LW-1042',
+    balanceDue: '840.00',
+    currency: 'USD',
+    readySince: '2027-01-15',
+    payUrl: 'http://x/b',
+  },
   'checkout-reminder': { name: 'Rosa', reference: 'LW-1042', kind: 'deposit', amount: '280.00', currency: 'USD', payUrl: 'http://x/b' },
   'request-expired': { name: 'Rosa', reference: 'LW-1042', days: 30, configureUrl: 'http://x/configure' },
   'configuration-quote': {
@@ -117,12 +204,19 @@ describe('the values each message must carry', () => {
     expect(mail.text).toContain('$1,120.00 to $1,400.50');
     expect(mail.text).toContain('http://x/c/Ab3dE9xQ');
     expect(mail.attachments).toEqual([
-      { filename: 'loomwright-quote-stage-board-2026-12-02.pdf', contentType: 'application/pdf', content: samples['configuration-quote'].pdfBase64, encoding: 'base64' },
+      {
+        filename: 'loomwright-quote-stage-board-2026-12-02.pdf',
+        contentType: 'application/pdf',
+        content: samples['configuration-quote'].pdfBase64,
+        encoding: 'base64',
+      },
     ]);
   });
 
   it('configuration-quote refuses a line without an amount, naming it', () => {
-    expect(() => renderMail('configuration-quote', { ...samples['configuration-quote'], lines: [{ label: 'Patch cables' }] }, shop)).toThrow('line 1 of "lines"');
+    expect(() =>
+      renderMail('configuration-quote', { ...samples['configuration-quote'], lines: [{ label: 'Patch cables' }] }, shop),
+    ).toThrow('line 1 of "lines"');
   });
 
   it('booking-requested lists the line items and links to the booking quote PDF', () => {
@@ -195,9 +289,15 @@ describe('the values each message must carry', () => {
     expect(received.subject).toBe('Your pedals have arrived (LW-1042)');
     const ready = renderMail('status-changed', { ...samples['status-changed'], state: 'ready' }, shop);
     expect(ready.subject).toBe('Your board is ready (LW-1042)');
-    const delivered = renderMail('status-changed', { ...samples['status-changed'], state: 'delivered', tracking: 'Parcel 1Z-TEST-9' }, shop);
+    const delivered = renderMail(
+      'status-changed',
+      { ...samples['status-changed'], state: 'delivered', tracking: 'Parcel 1Z-TEST-9' },
+      shop,
+    );
     expect(delivered.text).toContain('Parcel 1Z-TEST-9');
-    expect(() => renderMail('status-changed', { ...samples['status-changed'], state: 'teleported' }, shop)).toThrow('"teleported" is not a build state');
+    expect(() => renderMail('status-changed', { ...samples['status-changed'], state: 'teleported' }, shop)).toThrow(
+      '"teleported" is not a build state',
+    );
   });
 
   it('balance-requested, deposit-refunded, booking-declined and the shop notice carry their amounts and reason', () => {
@@ -261,7 +361,11 @@ describe('the data the calling modules send', () => {
   const withPublicUrl = { ...shop, publicUrl: 'http://localhost:3000' };
 
   it('welcome from sign-up links to the configurator and the account', () => {
-    const { text } = renderMail('welcome', { name: 'Rosa', configureUrl: 'http://localhost:3000/configure', accountUrl: 'http://localhost:3000/account' }, shop);
+    const { text } = renderMail(
+      'welcome',
+      { name: 'Rosa', configureUrl: 'http://localhost:3000/configure', accountUrl: 'http://localhost:3000/account' },
+      shop,
+    );
     expect(text).toContain('Configure a board: http://localhost:3000/configure');
     expect(text).toContain('Your account: http://localhost:3000/account');
   });
@@ -269,10 +373,17 @@ describe('the data the calling modules send', () => {
   it('staff-invite with acceptUrl, level and who invited', () => {
     const { text } = renderMail(
       'staff-invite',
-      { name: 'Ivo', invitedBy: 'Marta Okafor', level: 'journeyman', hourlyRate: '90.00', acceptUrl: 'http://localhost:3000/backoffice/accept-invite?token=abc', expiresAt: '2027-01-20T12:00:00Z' },
+      {
+        name: 'Ivo',
+        invitedBy: 'Marta Okafor',
+        level: 'journeyman',
+        hourlyRate: '90.00',
+        acceptUrl: 'http://localhost:3000/backoffice/accept-invite?token=abc',
+        expiresAt: '2027-01-20T12:00:00Z',
+      },
       shop,
     );
-    expect(text).toContain('Marta Okafor has invited you to the shop\'s backoffice as a journeyman builder');
+    expect(text).toContain("Marta Okafor has invited you to the shop's backoffice as a journeyman builder");
     expect(text).toContain('http://localhost:3000/backoffice/accept-invite?token=abc');
     expect(text).toContain('Wed, Jan 20, 2027, 6:00 AM CST');
   });
@@ -280,7 +391,15 @@ describe('the data the calling modules send', () => {
   it('booking-requested without a link falls back to the booking page of the outbox row', () => {
     const { text } = renderMail(
       'booking-requested',
-      { name: 'Rosa', reference: 'LW-1042', totalLow: '980.00', totalHigh: '1210.00', deposit: '250.00', currency: 'USD', quoteExpiresAt: '2027-02-01T18:00:00Z' },
+      {
+        name: 'Rosa',
+        reference: 'LW-1042',
+        totalLow: '980.00',
+        totalHigh: '1210.00',
+        deposit: '250.00',
+        currency: 'USD',
+        quoteExpiresAt: '2027-02-01T18:00:00Z',
+      },
       withPublicUrl,
       { bookingId: 'b-1' },
     );
@@ -291,8 +410,16 @@ describe('the data the calling modules send', () => {
 
   it('deposit-received and the shop notice from the payment webhook (one data object for both)', () => {
     const data = {
-      name: 'Rosa Delgado-Finch', customerEmail: 'rosa@mail.example', reference: 'LW-1042', amount: '250.00', currency: 'USD',
-      totalLow: '980.00', totalHigh: '1210.00', summary: '9 pedals, switcher', buildUrl: 'http://localhost:3000/builds/b-1', backofficeUrl: 'http://localhost:3000/backoffice/requests',
+      name: 'Rosa Delgado-Finch',
+      customerEmail: 'rosa@mail.example',
+      reference: 'LW-1042',
+      amount: '250.00',
+      currency: 'USD',
+      totalLow: '980.00',
+      totalHigh: '1210.00',
+      summary: '9 pedals, switcher',
+      buildUrl: 'http://localhost:3000/builds/b-1',
+      backofficeUrl: 'http://localhost:3000/backoffice/requests',
     };
     expect(renderMail('deposit-received', data, shop).text).toContain('See your booking: http://localhost:3000/builds/b-1');
     const notice = renderMail('shop-new-paid-request', data, shop);
@@ -304,8 +431,17 @@ describe('the data the calling modules send', () => {
     const { text, attachments } = renderMail(
       'booking-scheduled',
       {
-        customerName: 'Rosa', reference: 'LW-1042', benchDate: '2027-01-12', shipBy: '2027-01-05', expectedCompletion: '2027-01-13',
-        builderLevel: 'master', builderName: 'Ada Brightwater', firmTotal: '1120.00', deposit: '250.00', balanceDue: '870.00', currency: 'USD',
+        customerName: 'Rosa',
+        reference: 'LW-1042',
+        benchDate: '2027-01-12',
+        shipBy: '2027-01-05',
+        expectedCompletion: '2027-01-13',
+        builderLevel: 'master',
+        builderName: 'Ada Brightwater',
+        firmTotal: '1120.00',
+        deposit: '250.00',
+        balanceDue: '870.00',
+        currency: 'USD',
         whatToShip: ['Octave fuzz', 'Tape-style delay', 'Your power supply with its mains lead, labelled with your name'],
       },
       withPublicUrl,
@@ -323,7 +459,14 @@ describe('the data the calling modules send', () => {
   it('status-changed from the bench lists pedals found faulty at intake', () => {
     const { text } = renderMail(
       'status-changed',
-      { customerName: 'Rosa', reference: 'LW-1042', fromState: 'scheduled', state: 'pedals_received', note: '', faultyItems: [{ item: 'Phaser', note: 'crackles when the rate knob turns' }] },
+      {
+        customerName: 'Rosa',
+        reference: 'LW-1042',
+        fromState: 'scheduled',
+        state: 'pedals_received',
+        note: '',
+        faultyItems: [{ item: 'Phaser', note: 'crackles when the rate knob turns' }],
+      },
       shop,
     );
     expect(text).toContain('Phaser: crackles when the rate knob turns');
@@ -332,7 +475,15 @@ describe('the data the calling modules send', () => {
   it('balance-requested from the bench shows the breakdown and the amount due', () => {
     const { subject, text } = renderMail(
       'balance-requested',
-      { customerName: 'Rosa', reference: 'LW-1042', firmTotal: '1120.00', extras: '45.00', depositPaid: '250.00', balanceDue: '915.00', currency: 'USD' },
+      {
+        customerName: 'Rosa',
+        reference: 'LW-1042',
+        firmTotal: '1120.00',
+        extras: '45.00',
+        depositPaid: '250.00',
+        balanceDue: '915.00',
+        currency: 'USD',
+      },
       shop,
     );
     expect(subject).toBe('Balance due for LW-1042: $915.00');
@@ -343,7 +494,15 @@ describe('the data the calling modules send', () => {
   it('booking-declined from the bench says how much was refunded', () => {
     const { text } = renderMail(
       'booking-declined',
-      { customerName: 'Rosa', reference: 'LW-1042', reason: 'We do not wire mains inlets.', depositRefunded: true, refundAmount: '250.00', refundPending: false, currency: 'USD' },
+      {
+        customerName: 'Rosa',
+        reference: 'LW-1042',
+        reason: 'We do not wire mains inlets.',
+        depositRefunded: true,
+        refundAmount: '250.00',
+        refundPending: false,
+        currency: 'USD',
+      },
       shop,
     );
     expect(text).toContain('Your deposit of $250.00 is refunded in full');
@@ -388,7 +547,19 @@ describe('the calendar file when a booking moves or is cancelled', () => {
   });
 
   it('a cancellation is METHOD:CANCEL with STATUS:CANCELLED under the same UID and a higher SEQUENCE (RFC 5546 §3.2.5)', () => {
-    const { attachments, text } = renderMail('booking-cancelled', { name: 'Rosa', reference: 'LW-1042', reason: 'The shop cannot source the case.', currency: 'USD', refundAmount: '280.00', shipBy: '2027-01-14', calendarSequence: 2 }, shop);
+    const { attachments, text } = renderMail(
+      'booking-cancelled',
+      {
+        name: 'Rosa',
+        reference: 'LW-1042',
+        reason: 'The shop cannot source the case.',
+        currency: 'USD',
+        refundAmount: '280.00',
+        shipBy: '2027-01-14',
+        calendarSequence: 2,
+      },
+      shop,
+    );
     expect(attachments[0].contentType).toContain('method=CANCEL');
     const cancel = parse(attachments[0].content);
     expect(cancel.component.getFirstPropertyValue('method')).toBe('CANCEL');

@@ -79,7 +79,8 @@ function quoteLineRows(data: Data, currency: string): [string, string][] {
     if (!label || !amount) throw new MailDataError(`line ${i + 1} of "lines" has no label or amount`);
     const quantity = optionalString(l, 'quantity');
     const high = optionalString(l, 'amountHigh');
-    const value = high && high !== amount ? `${formatMoney(amount, currency)} to ${formatMoney(high, currency)}` : formatMoney(amount, currency);
+    const value =
+      high && high !== amount ? `${formatMoney(amount, currency)} to ${formatMoney(high, currency)}` : formatMoney(amount, currency);
     return [quantity ? `${label} (${quantity})` : label, value];
   });
 }
@@ -100,7 +101,8 @@ const handoverUid = (reference: string) => `handover-${reference}@loomwright.app
 
 function calendarSequence(data: Data): number {
   const value = data.calendarSequence ?? 0;
-  if (typeof value !== 'number' || !Number.isInteger(value) || value < 0) throw new MailDataError('"calendarSequence" must be a whole number from 0');
+  if (typeof value !== 'number' || !Number.isInteger(value) || value < 0)
+    throw new MailDataError('"calendarSequence" must be a whole number from 0');
   return value;
 }
 
@@ -123,7 +125,8 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
   }
   const dropOff = data.handover === 'drop-off';
   const shipTo =
-    optionalString(data, 'shipTo') ?? (shop.postalAddress ? `${shop.name}, ${shop.postalAddress}` : `${shop.name} (ask ${shop.contactEmail} for the address)`);
+    optionalString(data, 'shipTo') ??
+    (shop.postalAddress ? `${shop.name}, ${shop.postalAddress}` : `${shop.name} (ask ${shop.contactEmail} for the address)`);
   const currency = optionalString(data, 'currency');
   const figures: [string, string][] = currency
     ? (
@@ -137,11 +140,13 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
         .map(([label, amount]) => [label, formatMoney(amount, currency)])
     : [];
   // A caller's own list (pedals by name, supply, switcher) wins; otherwise build it from the pedals.
-  const bring = shipList.length ? shipList : [
-    `Your pedals (${pedals.length}): ${pedals.join(', ')}.`,
-    ...(data.powerSupply === false ? [] : ['Your power supply, with all its leads.']),
-    ...(data.switcher === true ? ['Your loop switcher, with its power lead and any MIDI or control cables.'] : []),
-  ];
+  const bring = shipList.length
+    ? shipList
+    : [
+        `Your pedals (${pedals.length}): ${pedals.join(', ')}.`,
+        ...(data.powerSupply === false ? [] : ['Your power supply, with all its leads.']),
+        ...(data.switcher === true ? ['Your loop switcher, with its power lead and any MIDI or control cables.'] : []),
+      ];
   const verb = dropOff ? 'Drop off' : 'Ship';
   const shipByWords = formatDay(shipBy);
   // Once the pedals are in, there is nothing left to ship: no calendar file to update.
@@ -151,7 +156,13 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
     sequence: calendarSequence(data),
     day: shipBy,
     summary: `${verb} your pedals to ${shop.name} (booking ${reference})`,
-    description: [`${dropOff ? 'Bring' : 'Send'} by ${shipByWords}:`, ...bring.map((b) => `- ${b}`), '', 'Packing:', ...packing.map((p) => `- ${p}`)].join('\n'),
+    description: [
+      `${dropOff ? 'Bring' : 'Send'} by ${shipByWords}:`,
+      ...bring.map((b) => `- ${b}`),
+      '',
+      'Packing:',
+      ...packing.map((p) => `- ${p}`),
+    ].join('\n'),
     location: shipTo,
     shopName: shop.name,
   });
@@ -177,7 +188,10 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
       heading: move ? 'Your build has a new bench date' : `Your build has a bench date`,
       blocks: [
         move
-          ? { kind: 'p', text: `Hello ${recipient(data)}, we moved your build ${reference} to ${benchDate}, ${move.shift} than before. Why: ${move.reason}` }
+          ? {
+              kind: 'p',
+              text: `Hello ${recipient(data)}, we moved your build ${reference} to ${benchDate}, ${move.shift} than before. Why: ${move.reason}`,
+            }
           : { kind: 'p', text: `Hello ${recipient(data)}, your build ${reference} is on our bench schedule.` },
         {
           kind: 'facts',
@@ -217,7 +231,13 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
     },
     attachments: pedalsIn
       ? []
-      : [{ filename: `${reference}-${dropOff ? 'drop-off' : 'ship-by'}.ics`, contentType: 'text/calendar; charset=utf-8; method=PUBLISH', content: calendar }],
+      : [
+          {
+            filename: `${reference}-${dropOff ? 'drop-off' : 'ship-by'}.ics`,
+            contentType: 'text/calendar; charset=utf-8; method=PUBLISH',
+            content: calendar,
+          },
+        ],
   };
 }
 
@@ -251,7 +271,10 @@ function bookingCancelled(data: Data, shop: ShopContext): Draft {
     letter: {
       heading: 'Your build is cancelled',
       blocks: [
-        { kind: 'p', text: `Hello ${recipient(data)}, your build ${reference} is cancelled and its bench time released. Why: ${requireString(data, 'reason')}` },
+        {
+          kind: 'p',
+          text: `Hello ${recipient(data)}, your build ${reference} is cancelled and its bench time released. Why: ${requireString(data, 'reason')}`,
+        },
         {
           kind: 'facts',
           rows: [
@@ -259,7 +282,9 @@ function bookingCancelled(data: Data, shop: ShopContext): Draft {
             ...(kept ? [['Deposit kept, per the deposit policy', formatMoney(kept, currency)] as [string, string]] : []),
           ],
         },
-        ...(data.pedalsAtShop === true ? [{ kind: 'p' as const, text: 'Your pedals are with us: we will write to arrange their return.' }] : []),
+        ...(data.pedalsAtShop === true
+          ? [{ kind: 'p' as const, text: 'Your pedals are with us: we will write to arrange their return.' }]
+          : []),
         ...(calendar ? [{ kind: 'p' as const, text: 'The attached calendar file removes the shipping day from your calendar.' }] : []),
         ...openIf('See your booking', optionalString(data, 'bookingUrl')),
       ],
@@ -270,16 +295,22 @@ function bookingCancelled(data: Data, shop: ShopContext): Draft {
   };
 }
 
-
-
 const statusWords: Partial<Record<BookingState, { subject: string; heading: string; text: string }>> = {
   pedals_received: {
     subject: 'Your pedals have arrived',
     heading: 'Your pedals are here and checked in',
     text: 'We unpacked your parcel and tested every pedal and the power supply. If anything was already faulty we will tell you before the build starts, since it may change the plan.',
   },
-  on_bench: { subject: 'Your build is on the bench', heading: 'Your build is on the bench', text: 'Your builder has started mounting and wiring your board.' },
-  testing: { subject: 'Your board is being tested', heading: 'Your board is being tested', text: 'We are testing every path of the signal chain and every switcher preset.' },
+  on_bench: {
+    subject: 'Your build is on the bench',
+    heading: 'Your build is on the bench',
+    text: 'Your builder has started mounting and wiring your board.',
+  },
+  testing: {
+    subject: 'Your board is being tested',
+    heading: 'Your board is being tested',
+    text: 'We are testing every path of the signal chain and every switcher preset.',
+  },
   ready: {
     subject: 'Your board is ready',
     heading: 'Your board is finished and tested',
@@ -324,7 +355,12 @@ function statusChanged(data: Data): Draft {
           : []),
         ...(tracking ? [{ kind: 'facts' as const, rows: [['Tracking', tracking]] as [string, string][] }] : []),
         ...(state === 'delivered'
-          ? [{ kind: 'caution' as const, text: 'A loaded board in a road case is heavy: lift it with two people. Check each pedal\'s voltage and polarity before you power up anything you add later.' }]
+          ? [
+              {
+                kind: 'caution' as const,
+                text: "A loaded board in a road case is heavy: lift it with two people. Check each pedal's voltage and polarity before you power up anything you add later.",
+              },
+            ]
           : []),
         ...openIf('See your booking', optionalString(data, 'bookingUrl')),
       ],
@@ -348,8 +384,18 @@ function approvalRequested(data: Data): Draft {
         heading: 'An extra for your board needs your yes',
         blocks: [
           { kind: 'p', text: `Hello ${recipient(data)}, while working on build ${reference} your builder found something it needs.` },
-          { kind: 'facts', rows: [['Extra', description], ['Price', price], ['Why', requireString(data, 'reason')]] },
-          { kind: 'p', text: 'Nothing is added to your bill unless you approve it. Approve or decline on your build page; you can add a comment for the builder.' },
+          {
+            kind: 'facts',
+            rows: [
+              ['Extra', description],
+              ['Price', price],
+              ['Why', requireString(data, 'reason')],
+            ],
+          },
+          {
+            kind: 'p',
+            text: 'Nothing is added to your bill unless you approve it. Approve or decline on your build page; you can add a comment for the builder.',
+          },
           ...openIf('Approve or decline', answer),
         ],
       },
@@ -360,7 +406,10 @@ function approvalRequested(data: Data): Draft {
     letter: {
       heading: 'Please look over your board layout',
       blocks: [
-        { kind: 'p', text: `Hello ${recipient(data)}, before cutting cables your builder would like you to check the top view of your board for build ${reference}.` },
+        {
+          kind: 'p',
+          text: `Hello ${recipient(data)}, before cutting cables your builder would like you to check the top view of your board for build ${reference}.`,
+        },
         ...(message ? [{ kind: 'p' as const, text: `From your builder: ${message}` }] : []),
         { kind: 'p', text: 'The build waits for your answer. Approve it, or decline with a comment saying what you would like moved.' },
         ...openIf('See the layout and answer', answer),
@@ -404,7 +453,10 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
     letter: {
       heading: 'Reset your password',
       blocks: [
-        { kind: 'p', text: `Hello ${recipient(data)}, someone asked to reset the password of this account. If it was you, choose a new one with the link below.` },
+        {
+          kind: 'p',
+          text: `Hello ${recipient(data)}, someone asked to reset the password of this account. If it was you, choose a new one with the link below.`,
+        },
         open('Choose a new password', requireString(data, 'resetUrl')),
         { kind: 'facts', rows: [['Link works until', formatInstant(requireString(data, 'expiresAt'), shop.timezone)]] },
         { kind: 'p', text: 'If you did not ask for this, ignore this message: your password stays as it is.' },
@@ -419,12 +471,23 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
         {
           kind: 'p',
           text: `Hello ${recipient(data)}, ${optionalString(data, 'invitedBy') ? `${data.invitedBy as string} has` : 'you have been'} invited you to the shop's backoffice${
-            typeof data.level === 'string' ? ` as a ${data.level} builder` : data.role === 'owner' ? ' as an owner' : data.role === 'builder' ? ' as a builder' : ''
+            typeof data.level === 'string'
+              ? ` as a ${data.level} builder`
+              : data.role === 'owner'
+                ? ' as an owner'
+                : data.role === 'builder'
+                  ? ' as a builder'
+                  : ''
           }. Set your password with the link below.`,
         },
         open('Accept the invitation', firstString(data, 'inviteUrl', 'acceptUrl') ?? requireString(data, 'inviteUrl')),
         ...(optionalString(data, 'expiresAt')
-          ? [{ kind: 'facts' as const, rows: [['Invitation works until', formatInstant(data.expiresAt as string, shop.timezone)]] as [string, string][] }]
+          ? [
+              {
+                kind: 'facts' as const,
+                rows: [['Invitation works until', formatInstant(data.expiresAt as string, shop.timezone)]] as [string, string][],
+              },
+            ]
           : []),
       ],
     },
@@ -441,7 +504,10 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
           {
             kind: 'facts',
             rows: [
-              ['Estimate', `${formatMoney(requireString(data, 'totalLow'), currency)} to ${formatMoney(requireString(data, 'totalHigh'), currency)}`],
+              [
+                'Estimate',
+                `${formatMoney(requireString(data, 'totalLow'), currency)} to ${formatMoney(requireString(data, 'totalHigh'), currency)}`,
+              ],
               ['Deposit to hold your place', formatMoney(requireString(data, 'deposit'), currency)],
               ...(optionalString(data, 'quoteExpiresAt')
                 ? [['Estimate holds until', formatInstant(data.quoteExpiresAt as string, shop.timezone)] as [string, string]]
@@ -449,9 +515,15 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
             ],
           },
           ...(Array.isArray(data.lines) && data.lines.length
-            ? [{ kind: 'p' as const, text: 'What the estimate is made of:' }, { kind: 'facts' as const, rows: quoteLineRows(data, currency) }]
+            ? [
+                { kind: 'p' as const, text: 'What the estimate is made of:' },
+                { kind: 'facts' as const, rows: quoteLineRows(data, currency) },
+              ]
             : []),
-          { kind: 'p', text: 'Your place in the queue is held once the deposit is paid. Pedals, power supply and switcher are yours and not part of the price.' },
+          {
+            kind: 'p',
+            text: 'Your place in the queue is held once the deposit is paid. Pedals, power supply and switcher are yours and not part of the price.',
+          },
           ...openIf('Pay the deposit', optionalString(data, 'bookingUrl')),
           ...openIf('Open the quote (PDF, after signing in)', optionalString(data, 'quotePdfUrl')),
         ],
@@ -468,17 +540,28 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       letter: {
         heading: title,
         blocks: [
-          { kind: 'p', text: `Hello ${recipient(data)}, here is the quote you asked for. The PDF attached has every line, the layout, the power plan, the patch cables and the cautions.` },
+          {
+            kind: 'p',
+            text: `Hello ${recipient(data)}, here is the quote you asked for. The PDF attached has every line, the layout, the power plan, the patch cables and the cautions.`,
+          },
           { kind: 'facts', rows: quoteLineRows(data, currency) },
           {
             kind: 'facts',
             rows: [
-              ['Estimated total', `${formatMoney(requireString(data, 'totalLow'), currency)} to ${formatMoney(requireString(data, 'totalHigh'), currency)}`],
+              [
+                'Estimated total',
+                `${formatMoney(requireString(data, 'totalLow'), currency)} to ${formatMoney(requireString(data, 'totalHigh'), currency)}`,
+              ],
               ['Deposit to book bench time', formatMoney(requireString(data, 'deposit'), currency)],
-              ...(optionalString(data, 'priceBookVersion') ? [['Price book version', data.priceBookVersion as string] as [string, string]] : []),
+              ...(optionalString(data, 'priceBookVersion')
+                ? [['Price book version', data.priceBookVersion as string] as [string, string]]
+                : []),
             ],
           },
-          { kind: 'p', text: 'An estimate, priced from today’s price book: the shop confirms a firm price when it accepts a request. Pedals, power supply and switcher are yours and not part of the price.' },
+          {
+            kind: 'p',
+            text: 'An estimate, priced from today’s price book: the shop confirms a firm price when it accepts a request. Pedals, power supply and switcher are yours and not part of the price.',
+          },
           ...openIf('Open this configuration', optionalString(data, 'openUrl')),
         ],
       },
@@ -494,7 +577,10 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
         heading: 'Thank you, your deposit is paid',
         blocks: [
           { kind: 'p', text: `Hello ${recipient(data)}, we received your deposit for build ${reference}.` },
-          { kind: 'facts', rows: [['Deposit paid', money(data)], ...(expected ? [['Expected bench date', formatDay(expected)] as [string, string]] : [])] },
+          {
+            kind: 'facts',
+            rows: [['Deposit paid', money(data)], ...(expected ? [['Expected bench date', formatDay(expected)] as [string, string]] : [])],
+          },
           {
             kind: 'list',
             title: 'What happens next',
@@ -587,9 +673,15 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       letter: {
         heading: 'Your bank did not complete the payment',
         blocks: [
-          { kind: 'p', text: `Hello ${recipient(data)}, the bank payment of ${money(data)} for build ${reference} did not go through, so nothing was taken.` },
+          {
+            kind: 'p',
+            text: `Hello ${recipient(data)}, the bank payment of ${money(data)} for build ${reference} did not go through, so nothing was taken.`,
+          },
           { kind: 'facts', rows: [['Reason', requireString(data, 'reason')]] },
-          { kind: 'p', text: `Your booking is kept as it was. Pay the ${what} again from your build page, by card or from another account.` },
+          {
+            kind: 'p',
+            text: `Your booking is kept as it was. Pay the ${what} again from your build page, by card or from another account.`,
+          },
           ...openIf('Open your build', firstString(data, 'buildUrl', 'bookingUrl')),
         ],
       },
@@ -632,7 +724,15 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       letter: {
         heading: w.heading,
         blocks: [
-          { kind: 'facts', rows: [['Booking', reference], ['Player', recipient(data)], ['Amount', money(data)], ['What happened', requireString(data, 'detail')]] },
+          {
+            kind: 'facts',
+            rows: [
+              ['Booking', reference],
+              ['Player', recipient(data)],
+              ['Amount', money(data)],
+              ['What happened', requireString(data, 'detail')],
+            ],
+          },
           { kind: 'p', text: w.next },
           open('Open the booking', requireString(data, 'backofficeUrl')),
         ],
@@ -689,7 +789,10 @@ function buildMessages(data: Data): Draft {
     letter: {
       heading: toPlayer ? messageWords.toPlayerHeading : messageWords.toShopHeading,
       blocks: [
-        { kind: 'p', text: `Hello ${recipient(data)}, ${toPlayer ? `news on build ${reference}` : `build ${reference} has a new word from ${requireString(data, 'playerName')}`}:` },
+        {
+          kind: 'p',
+          text: `Hello ${recipient(data)}, ${toPlayer ? `news on build ${reference}` : `build ${reference} has a new word from ${requireString(data, 'playerName')}`}:`,
+        },
         ...blocks,
         { kind: 'p', text: messageWords.answerInApp },
         open(messageWords.openThread, requireString(data, 'bookingUrl')),
@@ -713,7 +816,10 @@ export function renderMail(template: string, data: Data, shop: ShopContext, mess
     optionalString(given, 'quotePdfUrl') ??
     (message.bookingId && shop.publicUrl ? `${shop.publicUrl}/api/bookings/${message.bookingId}/quote.pdf` : undefined);
   return inShopVoice(shop, () => {
-    const { subject, letter, attachments } = draft({ ...given, ...(bookingUrl ? { bookingUrl } : {}), ...(quotePdfUrl ? { quotePdfUrl } : {}) }, shop);
+    const { subject, letter, attachments } = draft(
+      { ...given, ...(bookingUrl ? { bookingUrl } : {}), ...(quotePdfUrl ? { quotePdfUrl } : {}) },
+      shop,
+    );
     const full: Letter = { shopName: shop.name, ...letter };
     return { subject, html: letterHtml(full), text: letterText(full), attachments: attachments ?? [] };
   });

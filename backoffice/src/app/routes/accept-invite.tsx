@@ -12,7 +12,9 @@ export function Component() {
       {token ? (
         <AcceptInviteForm token={token} onAccepted={() => navigate('/', { replace: true })} />
       ) : (
-        <Alert color="warning" role="alert">This page needs the link from your invitation e-mail. Ask the shop owner to send it again.</Alert>
+        <Alert color="warning" role="alert">
+          This page needs the link from your invitation e-mail. Ask the shop owner to send it again.
+        </Alert>
       )}
     </AuthCard>
   );

@@ -16,15 +16,7 @@ import { useTeam } from 'src/features/team/api/get-team';
 import { useMe } from 'src/features/auth/api/get-me';
 import { RescheduleDialog, type MovableBuild } from 'src/features/builds/components/RescheduleDialog';
 import { Notice } from 'src/components/Notice';
-import {
-  addDays,
-  endOfMonth,
-  formatDay,
-  formatMonth,
-  startOfMonth,
-  startOfWeek,
-  today,
-} from 'src/lib/format';
+import { addDays, endOfMonth, formatDay, formatMonth, startOfMonth, startOfWeek, today } from 'src/lib/format';
 
 type BenchMode = 'week' | 'month';
 
@@ -40,14 +32,17 @@ export function Component() {
   const anchor = /^\d{4}-\d{2}-\d{2}$/.test(search.get('day') ?? '') ? search.get('day')! : today();
   const builderId = search.get('builder') ?? '';
   const set = (patch: Record<string, string>) =>
-    setSearch((current) => {
-      const next = new URLSearchParams(current);
-      for (const [key, value] of Object.entries(patch)) {
-        if (value) next.set(key, value);
-        else next.delete(key);
-      }
-      return next;
-    }, { replace: true });
+    setSearch(
+      (current) => {
+        const next = new URLSearchParams(current);
+        for (const [key, value] of Object.entries(patch)) {
+          if (value) next.set(key, value);
+          else next.delete(key);
+        }
+        return next;
+      },
+      { replace: true },
+    );
 
   const { from, to, days, weeks, month } = useMemo(() => {
     if (mode === 'week') {
@@ -134,7 +129,9 @@ export function Component() {
           <WeekGrid
             view={view}
             days={days}
-            onMove={(build, builder) => setMoving({ bookingId: build.bookingId, reference: build.reference, builderId: builder, benchDate: build.benchDate })}
+            onMove={(build, builder) =>
+              setMoving({ bookingId: build.bookingId, reference: build.reference, builderId: builder, benchDate: build.benchDate })
+            }
           />
         ) : (
           <MonthCalendar view={view} weeks={weeks} month={month} />

@@ -69,7 +69,9 @@ export function Component() {
           {b.reference} · {b.customer.name}
         </Typography>
         <StateChip state={b.state} />
-        {bookingStateLabels[b.state] !== shortStateLabels[b.state] && <Typography level="body-sm">{bookingStateLabels[b.state]}</Typography>}
+        {bookingStateLabels[b.state] !== shortStateLabels[b.state] && (
+          <Typography level="body-sm">{bookingStateLabels[b.state]}</Typography>
+        )}
         <Box sx={{ flex: 1 }} />
         <Button component="a" href={`/api/bookings/${b.id}/build-sheet`} target="_blank" rel="noopener" variant="outlined" color="neutral">
           Print the build sheet (PDF)
@@ -87,7 +89,9 @@ export function Component() {
               <Button
                 variant="outlined"
                 color="neutral"
-                onClick={() => setMoving({ bookingId: b.id, reference: b.reference, builderId: b.builder?.id ?? null, benchDate: b.benchDate })}
+                onClick={() =>
+                  setMoving({ bookingId: b.id, reference: b.reference, builderId: b.builder?.id ?? null, benchDate: b.benchDate })
+                }
               >
                 Move or reassign
               </Button>
@@ -105,7 +109,9 @@ export function Component() {
           </Typography>
         )}
       </Card>
-      <Box sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr', lg: 'minmax(0, 3fr) minmax(320px, 2fr)' }, gap: 2, alignItems: 'start' }}>
+      <Box
+        sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr', lg: 'minmax(0, 3fr) minmax(320px, 2fr)' }, gap: 2, alignItems: 'start' }}
+      >
         <Stack gap={2}>
           <Card variant="outlined">
             <Section title="Intake">
@@ -155,7 +161,9 @@ export function Component() {
           <Card variant="outlined">
             <Section title="Money">
               <MoneyFactsTable money={b.money} formatMoney={formatMoney} formatMoment={formatStamp} />
-              <Typography level="title-sm" component="h3">Checkout attempts</Typography>
+              <Typography level="title-sm" component="h3">
+                Checkout attempts
+              </Typography>
               <PaymentsList payments={b.payments} />
             </Section>
           </Card>

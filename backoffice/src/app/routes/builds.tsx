@@ -35,7 +35,15 @@ const columns: Column<BookingSummary>[] = [
         '—'
       ),
   },
-  { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm" sx={{ minWidth: 140 }}>{b.summary}</Typography> },
+  {
+    id: 'rig',
+    header: 'Rig',
+    render: (b) => (
+      <Typography level="body-sm" sx={{ minWidth: 140 }}>
+        {b.summary}
+      </Typography>
+    ),
+  },
   { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 110, render: (b) => formatDay(b.benchDate) },
   { id: 'done', header: 'Expected done', width: 120, render: (b) => formatDay(b.expectedCompletion) },
   { id: 'hours', header: 'Labor', align: 'right', width: 70, wideOnly: true, render: (b) => formatHours(b.laborHours) },
@@ -47,7 +55,15 @@ const columns: Column<BookingSummary>[] = [
     render: (b) => (b.firmTotal ? formatMoney(b.firmTotal, b.currency) : formatMoneyRange(b.totalLow, b.totalHigh, b.currency)),
   },
   { id: 'state', header: 'State', sortKey: 'state', width: 120, render: (b) => <StateChip state={b.state} /> },
-  { id: 'updated', header: 'Last change', sortKey: 'updated_at', firstOrder: 'desc', width: 110, wideOnly: true, render: (b) => formatDay(b.updatedAt.slice(0, 10)) },
+  {
+    id: 'updated',
+    header: 'Last change',
+    sortKey: 'updated_at',
+    firstOrder: 'desc',
+    width: 110,
+    wideOnly: true,
+    render: (b) => formatDay(b.updatedAt.slice(0, 10)),
+  },
 ];
 
 export function Component() {
@@ -73,10 +89,16 @@ export function Component() {
 
   return (
     <>
-      <PageHeader title="Builds" hint="Every accepted build by where it stands. Open one to move it on, record intake and hours, and read its history."
+      <PageHeader
+        title="Builds"
+        hint="Every accepted build by where it stands. Open one to move it on, record intake and hours, and read its history."
         actions={<ExportCsvButton kinds={['bookings', 'hours']} />}
       />
-      <Tabs value={state} onChange={(_, value) => value && update({ filters: { state: String(value) } })} sx={{ bgcolor: 'transparent', mb: 1.5 }}>
+      <Tabs
+        value={state}
+        onChange={(_, value) => value && update({ filters: { state: String(value) } })}
+        sx={{ bgcolor: 'transparent', mb: 1.5 }}
+      >
         <TabList>
           {benchStates.map((s, index) => (
             <Tab key={s} value={s} indicatorInset>
@@ -89,7 +111,12 @@ export function Component() {
         </TabList>
       </Tabs>
       <FilterBar label="Filter builds">
-        <SearchField label="Search" placeholder="Customer name, e-mail or reference" value={params.filters.q} onChange={(q) => update({ filters: { q } })} />
+        <SearchField
+          label="Search"
+          placeholder="Customer name, e-mail or reference"
+          value={params.filters.q}
+          onChange={(q) => update({ filters: { q } })}
+        />
       </FilterBar>
       <DataTable
         label={`Builds: ${shortStateLabels[state]}`}

@@ -30,8 +30,22 @@ const columns: Column<CustomerSummary>[] = [
   { id: 'phone', header: 'Phone', width: 140, render: (c) => c.phone ?? '—' },
   { id: 'builds', header: 'Builds', sortKey: 'buildCount', firstOrder: 'desc', align: 'right', width: 80, render: (c) => c.buildCount },
   { id: 'active', header: 'In progress', align: 'right', width: 100, render: (c) => c.activeBuildCount },
-  { id: 'last', header: 'Last request', sortKey: 'lastBookingAt', firstOrder: 'desc', width: 120, render: (c) => formatDay(c.lastBookingAt?.slice(0, 10)) },
-  { id: 'since', header: 'Customer since', sortKey: 'createdAt', firstOrder: 'desc', width: 130, render: (c) => formatDay(c.createdAt.slice(0, 10)) },
+  {
+    id: 'last',
+    header: 'Last request',
+    sortKey: 'lastBookingAt',
+    firstOrder: 'desc',
+    width: 120,
+    render: (c) => formatDay(c.lastBookingAt?.slice(0, 10)),
+  },
+  {
+    id: 'since',
+    header: 'Customer since',
+    sortKey: 'createdAt',
+    firstOrder: 'desc',
+    width: 130,
+    render: (c) => formatDay(c.createdAt.slice(0, 10)),
+  },
 ];
 
 export function Component() {
@@ -59,7 +73,12 @@ export function Component() {
         actions={<ExportCsvButton kinds={['bookings', 'payments']} />}
       />
       <FilterBar label="Filter customers">
-        <SearchField label="Search" placeholder={isOwner ? 'Name or e-mail' : 'Name'} value={params.filters.q} onChange={(q) => update({ filters: { q } })} />
+        <SearchField
+          label="Search"
+          placeholder={isOwner ? 'Name or e-mail' : 'Name'}
+          value={params.filters.q}
+          onChange={(q) => update({ filters: { q } })}
+        />
       </FilterBar>
       <DataTable
         label="Customers"
@@ -71,7 +90,11 @@ export function Component() {
         selectedId={openId}
         emptyText="No customers match this search."
       />
-      <SidePanel open={Boolean(openId)} onClose={() => update({ filters: { open: '' }, page: params.page })} title={detail.data?.name ?? 'Customer'}>
+      <SidePanel
+        open={Boolean(openId)}
+        onClose={() => update({ filters: { open: '' }, page: params.page })}
+        title={detail.data?.name ?? 'Customer'}
+      >
         {detail.isPending && <PageLoading />}
         <ErrorNote error={detail.error} />
         {detail.data && <CustomerDetails customer={detail.data} />}

@@ -15,17 +15,21 @@ export function Component() {
       <Link component={RouterLink} to="/team" level="body-sm">
         ← Team
       </Link>
-      <Typography level="h2" component="h1">Invite a builder</Typography>
+      <Typography level="h2" component="h1">
+        Invite a builder
+      </Typography>
       {me.data?.role === 'owner' ? (
         <>
           <Typography sx={{ maxWidth: 620 }}>
-            The builder gets an e-mail with a link to choose their password and sign in here. Until they do, they
-            appear on the team as invited and take no builds; the Team page can send them a fresh link.
+            The builder gets an e-mail with a link to choose their password and sign in here. Until they do, they appear on the team as
+            invited and take no builds; the Team page can send them a fresh link.
           </Typography>
           <InviteBuilderForm />
         </>
       ) : (
-        <Alert color="warning" role="alert">Only the shop owner can invite builders. Ask the owner to send the invitation.</Alert>
+        <Alert color="warning" role="alert">
+          Only the shop owner can invite builders. Ask the owner to send the invitation.
+        </Alert>
       )}
     </Stack>
   );

@@ -9,8 +9,8 @@ export function Component() {
         Mail log
       </Typography>
       <Typography level="body-sm">
-        Every message the shop sends, newest first. A message that could not be delivered is retried on its own, waiting
-        longer each time; one marked “Not sent” needs a look, and the owner can send any message again.
+        Every message the shop sends, newest first. A message that could not be delivered is retried on its own, waiting longer each time;
+        one marked “Not sent” needs a look, and the owner can send any message again.
       </Typography>
       <MailLogTable />
     </Stack>

@@ -68,7 +68,9 @@ export function Component() {
   const me = useMe();
   return (
     <Stack gap={2} sx={{ maxWidth: 1080 }}>
-      <Typography level="h2" component="h1">{shop.data?.name ?? 'The shop'}</Typography>
+      <Typography level="h2" component="h1">
+        {shop.data?.name ?? 'The shop'}
+      </Typography>
       {/* A builder lands on their own week first; the owner on the shop's queues. */}
       {me.data?.role === 'builder' && <MyWeek />}
       <Grid container spacing={2}>
@@ -81,8 +83,8 @@ export function Component() {
       <Card variant="soft">
         <Typography level="title-md">At the bench</Typography>
         <Typography level="body-sm">
-          Mains wiring and any power inlet only by qualified people under local electrical codes; match every pedal’s
-          voltage and polarity; a loaded road case is a two-person lift; solder in a ventilated place and wash hands after.
+          Mains wiring and any power inlet only by qualified people under local electrical codes; match every pedal’s voltage and polarity;
+          a loaded road case is a two-person lift; solder in a ventilated place and wash hands after.
         </Typography>
         <Typography level="body-sm">
           {health.data?.db === 'up'

@@ -36,7 +36,15 @@ const depositWords: Record<DepositStatus, string> = {
 
 const columns: Column<BookingSummary>[] = [
   { id: 'reference', header: 'Reference', sortKey: 'reference', width: 96, render: (b) => <strong>{b.reference}</strong> },
-  { id: 'created', header: 'Requested', sortKey: 'created_at', firstOrder: 'desc', width: 128, wideOnly: true, render: (b) => formatStamp(b.createdAt) },
+  {
+    id: 'created',
+    header: 'Requested',
+    sortKey: 'created_at',
+    firstOrder: 'desc',
+    width: 128,
+    wideOnly: true,
+    render: (b) => formatStamp(b.createdAt),
+  },
   {
     id: 'customer',
     header: 'Customer',
@@ -52,7 +60,15 @@ const columns: Column<BookingSummary>[] = [
       </>
     ),
   },
-  { id: 'rig', header: 'Rig', render: (b) => <Typography level="body-sm" sx={{ minWidth: 140 }}>{b.summary}</Typography> },
+  {
+    id: 'rig',
+    header: 'Rig',
+    render: (b) => (
+      <Typography level="body-sm" sx={{ minWidth: 140 }}>
+        {b.summary}
+      </Typography>
+    ),
+  },
   { id: 'hours', header: 'Labor', align: 'right', width: 64, wideOnly: true, render: (b) => formatHours(b.laborHours) },
   {
     id: 'estimate',
@@ -129,8 +145,19 @@ export function Component() {
           value={params.filters.q}
           onChange={(q) => update({ filters: { q } })}
         />
-        <SelectFilter label="State" value={params.filters.state} options={stateOptions} onChange={(state) => update({ filters: { state } })} />
-        <SelectFilter label="Deposit" value={params.filters.deposit} options={depositOptions} onChange={(deposit) => update({ filters: { deposit } })} minWidth={150} />
+        <SelectFilter
+          label="State"
+          value={params.filters.state}
+          options={stateOptions}
+          onChange={(state) => update({ filters: { state } })}
+        />
+        <SelectFilter
+          label="Deposit"
+          value={params.filters.deposit}
+          options={depositOptions}
+          onChange={(deposit) => update({ filters: { deposit } })}
+          minWidth={150}
+        />
         {(params.filters.q || params.filters.state || params.filters.deposit) && (
           <Button size="sm" variant="plain" color="neutral" onClick={() => update({ filters: { q: '', state: '', deposit: '' } })}>
             Clear filters

@@ -38,8 +38,12 @@ export function Component() {
               Deposit policy
             </Typography>
             <Typography level="body-sm">
-              The deposit (a share of the estimate with a minimum) lives in the price book, so every quote keeps the policy it was
-              priced with. <Link component={RouterLink} to="/price-book">Open the price book</Link>.
+              The deposit (a share of the estimate with a minimum) lives in the price book, so every quote keeps the policy it was priced
+              with.{' '}
+              <Link component={RouterLink} to="/price-book">
+                Open the price book
+              </Link>
+              .
             </Typography>
           </Card>
           <Card variant="outlined">

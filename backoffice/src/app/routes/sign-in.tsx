@@ -20,7 +20,9 @@ export function Component() {
     <AuthCard title="Staff sign in" intro="For the shop’s builders and owner. Players sign in on the shop’s own pages.">
       <StaffSignInForm onSignedIn={(user) => staffRoles.includes(user.role) && navigate(landing(user.role), { replace: true })} />
       {/* Password resets go through the storefront's page; the e-mailed link works for staff too. */}
-      <Link href="/forgot-password" level="body-sm">Forgot your password?</Link>
+      <Link href="/forgot-password" level="body-sm">
+        Forgot your password?
+      </Link>
     </AuthCard>
   );
 }

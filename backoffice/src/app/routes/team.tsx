@@ -27,8 +27,8 @@ function StatusCell({ member }: { member: TeamMember }) {
           Invited
         </Chip>
         <Typography level="body-xs" sx={{ display: 'block', mt: 0.5 }}>
-          {member.invitationExpiresAt ? `Link valid until ${formatStamp(member.invitationExpiresAt)}` : 'Link expired; send a fresh one'}. Takes no builds until
-          they join.
+          {member.invitationExpiresAt ? `Link valid until ${formatStamp(member.invitationExpiresAt)}` : 'Link expired; send a fresh one'}.
+          Takes no builds until they join.
         </Typography>
       </>
     );
@@ -69,7 +69,11 @@ export function Component() {
       {team.isPending && <PageLoading />}
       {team.data && (
         <Sheet variant="outlined" sx={{ borderRadius: 'md', overflow: 'auto', bgcolor: 'background.surface' }}>
-          <Table aria-label="Builders" size="sm" sx={{ '--TableCell-height': '40px', tableLayout: 'auto', '& thead th': { bgcolor: 'background.level1' } }}>
+          <Table
+            aria-label="Builders"
+            size="sm"
+            sx={{ '--TableCell-height': '40px', tableLayout: 'auto', '& thead th': { bgcolor: 'background.level1' } }}
+          >
             <thead>
               <tr>
                 <th>Builder</th>

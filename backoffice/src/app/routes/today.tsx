@@ -41,7 +41,13 @@ export function Component() {
         }
         actions={
           isOwner ? (
-            <Typography component="label" level="body-sm" startDecorator={<Switch checked={onlyMine} onChange={(e) => setParams(e.target.checked ? { mine: '1' } : {}, { replace: true })} />}>
+            <Typography
+              component="label"
+              level="body-sm"
+              startDecorator={
+                <Switch checked={onlyMine} onChange={(e) => setParams(e.target.checked ? { mine: '1' } : {}, { replace: true })} />
+              }
+            >
               Only my own bench
             </Typography>
           ) : undefined

@@ -18,9 +18,15 @@ export function Component() {
     <AuthCard title="My account">
       <AccountSummary user={me.data} onSignedOut={() => navigate('/', { replace: true })} />
       <Stack direction="row" gap={1} flexWrap="wrap">
-        <Button component={RouterLink} to="/builds" variant="plain">My builds</Button>
-        <Button component={RouterLink} to="/configurations" variant="plain">Saved boards</Button>
-        <Button component={RouterLink} to="/forgot-password" variant="plain">Change my password</Button>
+        <Button component={RouterLink} to="/builds" variant="plain">
+          My builds
+        </Button>
+        <Button component={RouterLink} to="/configurations" variant="plain">
+          Saved boards
+        </Button>
+        <Button component={RouterLink} to="/forgot-password" variant="plain">
+          Change my password
+        </Button>
       </Stack>
     </AuthCard>
   );

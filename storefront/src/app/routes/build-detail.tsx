@@ -29,7 +29,9 @@ const cancellable: BookingState[] = ['requested', 'deposit_paid'];
 function Section({ title, children }: { title: string; children: React.ReactNode }) {
   return (
     <Card variant="outlined" component="section" aria-label={title}>
-      <Typography level="title-md" component="h2">{title}</Typography>
+      <Typography level="title-md" component="h2">
+        {title}
+      </Typography>
       {children}
     </Card>
   );
@@ -45,7 +47,12 @@ export function Component() {
   if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname)}`} replace />;
   if (booking.isPending) return <PageLoading label="Loading the build…" />;
-  if (booking.error) return <Alert color="danger" role="alert">{booking.error.message}</Alert>;
+  if (booking.error)
+    return (
+      <Alert color="danger" role="alert">
+        {booking.error.message}
+      </Alert>
+    );
   const b = booking.data;
   const isPlayer = me.data.id === b.customer.id;
   // The proposed top view: the board-fit layout the firm quote (or the estimate) was priced with.
@@ -54,7 +61,9 @@ export function Component() {
   return (
     <Stack gap={2} sx={{ maxWidth: 1080, mx: 'auto' }}>
       <Stack direction="row" gap={2} alignItems="center" flexWrap="wrap">
-        <Typography level="h1" sx={{ fontSize: 'xl2' }}>Build {b.reference}</Typography>
+        <Typography level="h1" sx={{ fontSize: 'xl2' }}>
+          Build {b.reference}
+        </Typography>
         <BookingStateChip state={b.state} />
       </Stack>
       <Typography>{b.summary}</Typography>
@@ -66,7 +75,13 @@ export function Component() {
           <ApprovalsPanel
             booking={b}
             isPlayer={isPlayer}
-            topView={fit ? <BoardSketch fit={fit} surfaceName={b.configuration.surfaceId} /> : <Typography level="body-sm">The builder sends the top view with their message.</Typography>}
+            topView={
+              fit ? (
+                <BoardSketch fit={fit} surfaceName={b.configuration.surfaceId} />
+              ) : (
+                <Typography level="body-sm">The builder sends the top view with their message.</Typography>
+              )
+            }
           />
         </Section>
       )}
@@ -89,8 +104,8 @@ export function Component() {
                   <ShipmentForm bookingId={b.id} current={b.inbound} />
                 ) : (
                   <Typography level="body-sm">
-                    Keep your pedals until the shop sets a bench date. The e-mail with that date says which day to ship by;
-                    you can then record the carrier and tracking number here.
+                    Keep your pedals until the shop sets a bench date. The e-mail with that date says which day to ship by; you can then
+                    record the carrier and tracking number here.
                   </Typography>
                 )}
               </Section>
@@ -100,20 +115,29 @@ export function Component() {
         <Grid xs={12} md={5}>
           <Stack gap={2}>
             <Section title="Bench">
-              <Typography>Bench date: <b>{formatDay(b.benchDate)}</b></Typography>
+              <Typography>
+                Bench date: <b>{formatDay(b.benchDate)}</b>
+              </Typography>
               <Typography>Expected completion: {formatDay(b.expectedCompletion)}</Typography>
-              {b.builder && <Typography>Builder: {b.builder.name} ({b.builder.level})</Typography>}
+              {b.builder && (
+                <Typography>
+                  Builder: {b.builder.name} ({b.builder.level})
+                </Typography>
+              )}
               {b.levelOverrideReason && <Typography level="body-sm">Why this builder: {b.levelOverrideReason}</Typography>}
               {!b.benchDate && <Typography level="body-sm">The shop sets a bench date once the deposit is paid.</Typography>}
             </Section>
             <Section title="Payments">
               <Typography sx={{ fontVariantNumeric: 'tabular-nums' }}>Deposit: {formatAmount(b.deposit, b.currency)}</Typography>
               <MoneyFactsTable money={b.money} formatMoney={formatAmount} formatMoment={formatMoment} />
-              <Typography level="title-sm" component="h3">Checkout attempts</Typography>
+              <Typography level="title-sm" component="h3">
+                Checkout attempts
+              </Typography>
               <PaymentsList payments={b.payments} />
               {b.depositStatus === 'processing' && (
                 <Typography level="body-sm">
-                  Your bank payment is settling; that takes a few working days. We e-mail you when it has, and the shop can then set a bench date.
+                  Your bank payment is settling; that takes a few working days. We e-mail you when it has, and the shop can then set a bench
+                  date.
                 </Typography>
               )}
               {isPlayer && b.state === 'requested' && b.depositStatus !== 'paid' && b.depositStatus !== 'processing' && (

@@ -11,11 +11,21 @@ import { Component as BuildsPage } from './builds';
 // builds asks whether the screen is at least 600 px wide (`screenWidth` below plays the screen).
 let screenWidth = 1280;
 const minWidth = (query: string) => Number(/min-width:\s*(\d+)/.exec(query)?.[1] ?? Number.NaN);
-window.matchMedia = ((query: string) =>
-  ({ matches: screenWidth >= minWidth(query), media: query, onchange: null, addListener() {}, removeListener() {}, addEventListener() {}, removeEventListener() {}, dispatchEvent: () => false }) as MediaQueryList);
+window.matchMedia = (query: string) =>
+  ({
+    matches: screenWidth >= minWidth(query),
+    media: query,
+    onchange: null,
+    addListener() {},
+    removeListener() {},
+    addEventListener() {},
+    removeEventListener() {},
+    dispatchEvent: () => false,
+  }) as MediaQueryList;
 
 const player = { id: 'u1', email: 'player@mail.example', name: 'Rowan Achterberg', role: 'customer' };
-const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+const json = (status: number, body: unknown) =>
+  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 /** The API's own answer while its database is down (api/src/common/database-unavailable.ts). */
 const unavailable = () => json(503, { statusCode: 503, error: 'Service Unavailable', message: shopUnavailableMessage });
 
@@ -25,7 +35,10 @@ function Where() {
 }
 
 function renderAt(url: string, api: (path: string) => Response) {
-  vi.stubGlobal('fetch', vi.fn(async (input: string | URL | Request) => api(new URL(String(input)).pathname)));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (input: string | URL | Request) => api(new URL(String(input)).pathname)),
+  );
   const router = createMemoryRouter(
     [
       { path: '/builds', element: <BuildsPage /> },
@@ -101,7 +114,11 @@ describe('My builds on a phone', () => {
     screenWidth = 1280;
   });
   const api = (path: string) =>
-    path === '/api/auth/session' || path === '/api/auth/me' ? json(200, { user: player }) : path === '/api/bookings' ? json(200, { items: [booking], total: 1, page: 1, pageSize: 20 }) : json(404, { message: 'not scripted' });
+    path === '/api/auth/session' || path === '/api/auth/me'
+      ? json(200, { user: player })
+      : path === '/api/bookings'
+        ? json(200, { items: [booking], total: 1, page: 1, pageSize: 20 })
+        : json(404, { message: 'not scripted' });
 
   it('shows each build as a card with every fact labelled below 600 px, and no table', async () => {
     screenWidth = 390;
@@ -120,7 +137,14 @@ describe('My builds on a phone', () => {
     screenWidth = 600;
     renderAt('/builds', api);
     const table = await screen.findByRole('table', { name: 'My builds' });
-    expect([...table.querySelectorAll('th')].map((th) => th.textContent)).toEqual(['Build', 'Board', 'Status', 'Deposit', 'Bench date', 'Total']);
+    expect([...table.querySelectorAll('th')].map((th) => th.textContent)).toEqual([
+      'Build',
+      'Board',
+      'Status',
+      'Deposit',
+      'Bench date',
+      'Total',
+    ]);
     expect(screen.queryByRole('list', { name: 'My builds' })).toBeNull();
   });
 });

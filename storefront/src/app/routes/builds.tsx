@@ -38,37 +38,51 @@ export function Component() {
   if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname)}`} replace />;
   if (list.isPending) return <PageLoading label="Loading your builds…" />;
-  if (list.error) return <Alert color="danger" role="alert">{list.error.message}</Alert>;
+  if (list.error)
+    return (
+      <Alert color="danger" role="alert">
+        {list.error.message}
+      </Alert>
+    );
   const { items, total } = list.data;
   const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
 
   return (
     <Stack gap={2} sx={{ maxWidth: 1080, mx: 'auto' }}>
-      <Typography level="h1" sx={{ fontSize: 'xl2' }}>My builds</Typography>
+      <Typography level="h1" sx={{ fontSize: 'xl2' }}>
+        My builds
+      </Typography>
       {items.length === 0 ? (
         <Stack gap={1} alignItems="flex-start">
           <Typography>You have not requested a build yet.</Typography>
-          <Button component={RouterLink} to="/configure" color="accent">Configure a board</Button>
+          <Button component={RouterLink} to="/configure" color="accent">
+            Configure a board
+          </Button>
         </Stack>
+      ) : wide ? (
+        <BuildsTable items={items} />
       ) : (
-        wide ? (
-          <BuildsTable items={items} />
-        ) : (
-          <BuildCards items={items} />
-        )
+        <BuildCards items={items} />
       )}
       {pages > 1 && (
         <Stack direction="row" gap={1} alignItems="center">
-          <Button variant="outlined" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>Previous</Button>
-          <Typography>Page {page} of {pages}</Typography>
-          <Button variant="outlined" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>Next</Button>
+          <Button variant="outlined" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
+            Previous
+          </Button>
+          <Typography>
+            Page {page} of {pages}
+          </Typography>
+          <Button variant="outlined" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
+            Next
+          </Button>
         </Stack>
       )}
     </Stack>
   );
 }
 
-const totalOf = (b: BookingSummary) => (b.firmTotal ? formatRange(b.firmTotal, b.firmTotal, b.currency) : formatRange(b.totalLow, b.totalHigh, b.currency));
+const totalOf = (b: BookingSummary) =>
+  b.firmTotal ? formatRange(b.firmTotal, b.firmTotal, b.currency) : formatRange(b.totalLow, b.totalHigh, b.currency);
 
 function BuildsTable({ items }: { items: BookingSummary[] }) {
   return (
@@ -87,10 +101,14 @@ function BuildsTable({ items }: { items: BookingSummary[] }) {
         {items.map((b) => (
           <tr key={b.id}>
             <td>
-              <Link component={RouterLink} to={`/builds/${b.id}`}>{b.reference}</Link>
+              <Link component={RouterLink} to={`/builds/${b.id}`}>
+                {b.reference}
+              </Link>
             </td>
             <td>{b.summary}</td>
-            <td><BookingStateChip state={b.state} /></td>
+            <td>
+              <BookingStateChip state={b.state} />
+            </td>
             <td>{depositWords[b.depositStatus]}</td>
             <td>{formatDay(b.benchDate)}</td>
             <td>{totalOf(b)}</td>
@@ -116,14 +134,33 @@ function BuildCards({ items }: { items: BookingSummary[] }) {
           <Typography level="body-sm">{b.summary}</Typography>
           <Box
             component="dl"
-            sx={{ m: 0, display: 'grid', gridTemplateColumns: 'auto minmax(0, 1fr)', columnGap: 2, rowGap: 0.5, '& dd': { m: 0, textAlign: 'right', overflowWrap: 'anywhere' } }}
+            sx={{
+              m: 0,
+              display: 'grid',
+              gridTemplateColumns: 'auto minmax(0, 1fr)',
+              columnGap: 2,
+              rowGap: 0.5,
+              '& dd': { m: 0, textAlign: 'right', overflowWrap: 'anywhere' },
+            }}
           >
-            <Typography component="dt" level="body-sm">Deposit</Typography>
-            <Typography component="dd" level="body-sm">{depositWords[b.depositStatus]}</Typography>
-            <Typography component="dt" level="body-sm">Bench date</Typography>
-            <Typography component="dd" level="body-sm">{formatDay(b.benchDate)}</Typography>
-            <Typography component="dt" level="body-sm">Total</Typography>
-            <Typography component="dd" level="body-sm" sx={{ fontWeight: 'lg' }}>{totalOf(b)}</Typography>
+            <Typography component="dt" level="body-sm">
+              Deposit
+            </Typography>
+            <Typography component="dd" level="body-sm">
+              {depositWords[b.depositStatus]}
+            </Typography>
+            <Typography component="dt" level="body-sm">
+              Bench date
+            </Typography>
+            <Typography component="dd" level="body-sm">
+              {formatDay(b.benchDate)}
+            </Typography>
+            <Typography component="dt" level="body-sm">
+              Total
+            </Typography>
+            <Typography component="dd" level="body-sm" sx={{ fontWeight: 'lg' }}>
+              {totalOf(b)}
+            </Typography>
           </Box>
         </Card>
       ))}

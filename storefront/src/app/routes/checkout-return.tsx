@@ -11,7 +11,8 @@ import { PayButton } from 'src/features/payments/components/PayButton';
 import { formatAmount } from 'src/lib/format';
 
 const isUuid = (v: string) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(v);
-const depositSettled = (b: BookingDetail) => b.depositStatus === 'paid' || b.depositStatus === 'refunded' || b.depositStatus === 'processing';
+const depositSettled = (b: BookingDetail) =>
+  b.depositStatus === 'paid' || b.depositStatus === 'refunded' || b.depositStatus === 'processing';
 const latestDeposit = (b: BookingDetail) => [...b.payments].reverse().find((p) => p.kind === 'deposit');
 
 /**
@@ -25,9 +26,24 @@ export function Component() {
   const valid = isUuid(bookingId);
   const booking = useBooking(valid ? bookingId : 'missing', result === 'paid' ? depositSettled : undefined);
 
-  if (!valid) return <Alert color="warning" role="alert">This return link is missing its booking. Open My builds to see where things stand.</Alert>;
-  if (booking.isPending) return <Stack alignItems="center" sx={{ py: 6 }}><CircularProgress /></Stack>;
-  if (booking.error) return <Alert color="danger" role="alert">{booking.error.message}</Alert>;
+  if (!valid)
+    return (
+      <Alert color="warning" role="alert">
+        This return link is missing its booking. Open My builds to see where things stand.
+      </Alert>
+    );
+  if (booking.isPending)
+    return (
+      <Stack alignItems="center" sx={{ py: 6 }}>
+        <CircularProgress />
+      </Stack>
+    );
+  if (booking.error)
+    return (
+      <Alert color="danger" role="alert">
+        {booking.error.message}
+      </Alert>
+    );
   const b = booking.data;
   const last = latestDeposit(b);
 
@@ -41,7 +57,8 @@ export function Component() {
     body = `Thank you. Your bank payment of ${formatAmount(last?.amount ?? b.deposit, b.currency)} for build ${b.reference} is on its way; bank debits take a few working days to settle. We e-mail you as soon as it has, and the shop then sets a bench date. If your bank does not complete it, we tell you and you can pay again.`;
   } else if (result === 'paid') {
     title = 'Confirming your payment…';
-    body = 'The payment provider is telling the shop about your payment; this usually takes a few seconds. You can leave this page: the e-mail confirmation follows.';
+    body =
+      'The payment provider is telling the shop about your payment; this usually takes a few seconds. You can leave this page: the e-mail confirmation follows.';
   } else if (last?.status === 'failed') {
     title = 'Payment failed';
     body = `The payment did not go through: ${(last.failureMessage ?? 'no reason given').replace(/\.$/, '')}. Nothing was charged; try again with another card or account.`;
@@ -52,13 +69,21 @@ export function Component() {
 
   return (
     <Card variant="outlined" sx={{ maxWidth: 640, mx: 'auto' }} role="status" aria-live="polite">
-      <Typography level="h1" sx={{ fontSize: 'xl2' }}>{title}</Typography>
+      <Typography level="h1" sx={{ fontSize: 'xl2' }}>
+        {title}
+      </Typography>
       {result === 'paid' && !depositSettled(b) && <CircularProgress size="sm" />}
       <Typography>{body}</Typography>
       <Stack direction="row" gap={1} flexWrap="wrap">
-        {b.state === 'requested' && b.depositStatus !== 'paid' && result !== 'paid' && <PayButton bookingId={b.id} label="Pay the deposit" />}
-        <Button component={RouterLink} to={`/builds/${b.id}`} variant="outlined">Open build {b.reference}</Button>
-        <Button component={RouterLink} to="/builds" variant="plain">My builds</Button>
+        {b.state === 'requested' && b.depositStatus !== 'paid' && result !== 'paid' && (
+          <PayButton bookingId={b.id} label="Pay the deposit" />
+        )}
+        <Button component={RouterLink} to={`/builds/${b.id}`} variant="outlined">
+          Open build {b.reference}
+        </Button>
+        <Button component={RouterLink} to="/builds" variant="plain">
+          My builds
+        </Button>
       </Stack>
     </Card>
   );

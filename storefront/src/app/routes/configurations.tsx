@@ -17,8 +17,12 @@ export function Component() {
   const surfaceName = (id: string) => catalog.data?.surfaces.find((s) => s.id === id)?.name ?? 'A board no longer in the price book';
   return (
     <Stack gap={2} sx={{ maxWidth: 1080, mx: 'auto' }}>
-      <Typography level="h1" sx={{ fontSize: 'xl2' }}>Saved boards</Typography>
-      <Typography level="body-sm">Boards you saved while configuring. Open one to change it, get its quote or request the build.</Typography>
+      <Typography level="h1" sx={{ fontSize: 'xl2' }}>
+        Saved boards
+      </Typography>
+      <Typography level="body-sm">
+        Boards you saved while configuring. Open one to change it, get its quote or request the build.
+      </Typography>
       <SavedConfigurationsList surfaceName={surfaceName} />
     </Stack>
   );

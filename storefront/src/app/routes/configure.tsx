@@ -13,9 +13,23 @@ export function Component() {
   if (catalog.isPending) return <PageLoading label="Loading the shop’s price book…" />;
   if (catalog.isError)
     return (
-      <Alert color="danger" variant="soft" sx={{ maxWidth: 640, mx: 'auto' }} endDecorator={<Button size="sm" onClick={() => void catalog.refetch()}>Try again</Button>}>
+      <Alert
+        color="danger"
+        variant="soft"
+        sx={{ maxWidth: 640, mx: 'auto' }}
+        endDecorator={
+          <Button size="sm" onClick={() => void catalog.refetch()}>
+            Try again
+          </Button>
+        }
+      >
         The price book could not be loaded: {catalog.error.message}
       </Alert>
     );
-  return <Configurator catalog={catalog.data} keep={(configuration, ready) => <KeepConfiguration configuration={configuration} ready={ready} />} />;
+  return (
+    <Configurator
+      catalog={catalog.data}
+      keep={(configuration, ready) => <KeepConfiguration configuration={configuration} ready={ready} />}
+    />
+  );
 }

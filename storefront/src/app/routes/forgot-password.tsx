@@ -9,7 +9,10 @@ export function Component() {
     <AuthCard title="Forgot your password?" intro="Tell us the e-mail you signed up with and we will send a link to choose a new password.">
       <ForgotPasswordForm />
       <Typography level="body-sm">
-        Remembered it? <Link component={RouterLink} to="/sign-in">Back to sign in</Link>
+        Remembered it?{' '}
+        <Link component={RouterLink} to="/sign-in">
+          Back to sign in
+        </Link>
       </Typography>
     </AuthCard>
   );

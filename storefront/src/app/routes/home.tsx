@@ -30,8 +30,8 @@ export function Component() {
           {shop.data?.tagline ?? 'Hand-wired pedalboards, built to tour.'}
         </Typography>
         <Typography level="body-lg" sx={{ mt: 2, mb: 4 }}>
-          Send us your pedals and power supply; we mount them, make every patch cable to length, tidy the power
-          and return a board that is ready for the road.
+          Send us your pedals and power supply; we mount them, make every patch cable to length, tidy the power and return a board that is
+          ready for the road.
         </Typography>
         <Button component={RouterLink} to="/configure" size="lg" color="accent">
           Start configuring your board
@@ -41,8 +41,12 @@ export function Component() {
         {steps.map((step, index) => (
           <Grid key={step.title} xs={12} md={4}>
             <Card variant="outlined" sx={{ height: '100%' }}>
-              <Typography level="body-sm" sx={{ color: 'primary.700', fontWeight: 'lg' }}>Step {index + 1}</Typography>
-              <Typography level="title-lg" component="h2">{step.title}</Typography>
+              <Typography level="body-sm" sx={{ color: 'primary.700', fontWeight: 'lg' }}>
+                Step {index + 1}
+              </Typography>
+              <Typography level="title-lg" component="h2">
+                {step.title}
+              </Typography>
               <Typography>{step.text}</Typography>
             </Card>
           </Grid>

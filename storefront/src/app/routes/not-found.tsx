@@ -5,9 +5,13 @@ import { Link as RouterLink } from 'react-router';
 export function Component() {
   return (
     <>
-      <Typography level="h2" component="h1">There is no page here</Typography>
+      <Typography level="h2" component="h1">
+        There is no page here
+      </Typography>
       <Typography sx={{ my: 2 }}>The link may be old. Start again from the home page.</Typography>
-      <Button component={RouterLink} to="/">Go to the home page</Button>
+      <Button component={RouterLink} to="/">
+        Go to the home page
+      </Button>
     </>
   );
 }

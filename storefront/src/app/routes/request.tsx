@@ -43,13 +43,20 @@ export function Component() {
   if (!configuration) {
     return (
       <Alert color="warning" role="alert" sx={{ maxWidth: 720, mx: 'auto' }}>
-        This link does not carry a board configuration. Open the configurator, build your rig, then choose “Request this build” on the Review step.
-        <Button component={RouterLink} to="/configure" variant="plain">Go to Configure</Button>
+        This link does not carry a board configuration. Open the configurator, build your rig, then choose “Request this build” on the
+        Review step.
+        <Button component={RouterLink} to="/configure" variant="plain">
+          Go to Configure
+        </Button>
       </Alert>
     );
   }
   if (me.data.role !== 'customer') {
-    return <Alert color="warning" role="alert" sx={{ maxWidth: 720, mx: 'auto' }}>You are signed in as shop staff; builds are requested from a player's account.</Alert>;
+    return (
+      <Alert color="warning" role="alert" sx={{ maxWidth: 720, mx: 'auto' }}>
+        You are signed in as shop staff; builds are requested from a player's account.
+      </Alert>
+    );
   }
 
   const submit = form.handleSubmit(({ notes }) =>
@@ -74,25 +81,43 @@ export function Component() {
 
   return (
     <Stack gap={3} sx={{ maxWidth: 720, mx: 'auto' }}>
-      <Typography level="h1" sx={{ fontSize: 'xl2' }}>Request this build</Typography>
+      <Typography level="h1" sx={{ fontSize: 'xl2' }}>
+        Request this build
+      </Typography>
       <Card variant="outlined">
-        <Typography level="title-md" component="h2">Your estimate</Typography>
+        <Typography level="title-md" component="h2">
+          Your estimate
+        </Typography>
         {estimate.isPending && <Typography>Pricing your board…</Typography>}
         {estimate.error && (
           <Alert color="danger" role="alert">
-            {estimate.error.message} <Button component={RouterLink} to={`/configure?${CONFIGURATION_PARAM}=${encoded}`} variant="plain">Back to Configure</Button>
+            {estimate.error.message}{' '}
+            <Button component={RouterLink} to={`/configure?${CONFIGURATION_PARAM}=${encoded}`} variant="plain">
+              Back to Configure
+            </Button>
           </Alert>
         )}
         {e && (
-          <Box component="dl" sx={{ display: 'grid', gridTemplateColumns: 'auto 1fr', columnGap: 2, rowGap: 0.5, m: 0, fontVariantNumeric: 'tabular-nums' }}>
+          <Box
+            component="dl"
+            sx={{ display: 'grid', gridTemplateColumns: 'auto 1fr', columnGap: 2, rowGap: 0.5, m: 0, fontVariantNumeric: 'tabular-nums' }}
+          >
             <Typography component="dt">Total</Typography>
-            <Typography component="dd" level="title-lg" sx={{ m: 0 }}>{formatRange(e.totalLow, e.totalHigh, e.currency)}</Typography>
+            <Typography component="dd" level="title-lg" sx={{ m: 0 }}>
+              {formatRange(e.totalLow, e.totalHigh, e.currency)}
+            </Typography>
             <Typography component="dt">Labor</Typography>
-            <Typography component="dd" sx={{ m: 0 }}>{formatRange(e.laborLow, e.laborHigh, e.currency)} ({formatHours(e.laborHours)})</Typography>
+            <Typography component="dd" sx={{ m: 0 }}>
+              {formatRange(e.laborLow, e.laborHigh, e.currency)} ({formatHours(e.laborHours)})
+            </Typography>
             <Typography component="dt">Materials</Typography>
-            <Typography component="dd" sx={{ m: 0 }}>{formatAmount(e.materialsTotal, e.currency)}</Typography>
+            <Typography component="dd" sx={{ m: 0 }}>
+              {formatAmount(e.materialsTotal, e.currency)}
+            </Typography>
             <Typography component="dt">Deposit now</Typography>
-            <Typography component="dd" level="title-md" sx={{ m: 0 }}>{formatAmount(e.deposit, e.currency)}</Typography>
+            <Typography component="dd" level="title-md" sx={{ m: 0 }}>
+              {formatAmount(e.deposit, e.currency)}
+            </Typography>
           </Box>
         )}
         <Typography level="body-xs">
@@ -102,36 +127,57 @@ export function Component() {
 
       {e && (
         <Card variant="outlined">
-          <Typography level="title-md" component="h2">Bench time</Typography>
+          <Typography level="title-md" component="h2">
+            Bench time
+          </Typography>
           <LeadTime hours={e.laborHours} level={levelRank(e.minimumLevel) > levelRank(e.level) ? e.minimumLevel : e.level} />
         </Card>
       )}
 
       <Card variant="outlined">
-        <Typography level="title-md" component="h2">Deposit</Typography>
+        <Typography level="title-md" component="h2">
+          Deposit
+        </Typography>
         <DepositPolicy />
         <Typography level="body-xs">
-          We re-terminate the low-voltage DC leads of your supply only. Anything on the mains side (the supply's mains lead, a power
-          inlet on the case) is work for a qualified electrician under your local electrical codes.
+          We re-terminate the low-voltage DC leads of your supply only. Anything on the mains side (the supply's mains lead, a power inlet
+          on the case) is work for a qualified electrician under your local electrical codes.
         </Typography>
       </Card>
 
       <Stack component="form" gap={2} noValidate onSubmit={submit}>
         <FormControl error={!!errors.notes}>
           <FormLabel>Notes for the shop (optional)</FormLabel>
-          <Textarea minRows={3} {...form.register('notes')} placeholder="Pedal order, how you use the board, anything the builder should know." />
+          <Textarea
+            minRows={3}
+            {...form.register('notes')}
+            placeholder="Pedal order, how you use the board, anything the builder should know."
+          />
           {errors.notes && <FormHelperText>{errors.notes.message}</FormHelperText>}
         </FormControl>
-        <Button type="submit" color="accent" size="lg" loading={create.isPending || redirecting} disabled={!e} sx={{ alignSelf: 'flex-start' }}>
+        <Button
+          type="submit"
+          color="accent"
+          size="lg"
+          loading={create.isPending || redirecting}
+          disabled={!e}
+          sx={{ alignSelf: 'flex-start' }}
+        >
           Request build and pay deposit
         </Button>
         <Typography level="body-xs">You pay on the payment provider's secure page and come back here afterwards.</Typography>
       </Stack>
-      {create.error && <Alert color="danger" role="alert">{create.error.message}</Alert>}
+      {create.error && (
+        <Alert color="danger" role="alert">
+          {create.error.message}
+        </Alert>
+      )}
       {checkoutProblem && (
         <Alert color="warning" role="alert">
           Your request is saved, but the payment page could not be opened: {checkoutProblem.message}
-          <Button variant="plain" onClick={() => navigate(`/builds/${checkoutProblem.bookingId}`)}>Open the build to pay</Button>
+          <Button variant="plain" onClick={() => navigate(`/builds/${checkoutProblem.bookingId}`)}>
+            Open the build to pay
+          </Button>
         </Alert>
       )}
     </Stack>

@@ -13,8 +13,12 @@ export function Component() {
   if (!token) {
     return (
       <AuthCard title="Choose a new password">
-        <Alert color="warning" role="alert">This page needs the link from your reset e-mail. Ask for a new link if you no longer have it.</Alert>
-        <Button component={RouterLink} to="/forgot-password">Ask for a new link</Button>
+        <Alert color="warning" role="alert">
+          This page needs the link from your reset e-mail. Ask for a new link if you no longer have it.
+        </Alert>
+        <Button component={RouterLink} to="/forgot-password">
+          Ask for a new link
+        </Button>
       </AuthCard>
     );
   }
@@ -28,7 +32,10 @@ export function Component() {
           confirm.mutate(
             { token, password },
             // Staff reset here too; their work is in the backoffice.
-            { onSuccess: ({ user }) => (user.role === 'customer' ? navigate('/account', { replace: true }) : window.location.assign('/backoffice/')) },
+            {
+              onSuccess: ({ user }) =>
+                user.role === 'customer' ? navigate('/account', { replace: true }) : window.location.assign('/backoffice/'),
+            },
           )
         }
       />

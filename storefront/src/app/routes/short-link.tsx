@@ -14,8 +14,12 @@ export function Component() {
   if (link.isError)
     return (
       <Stack gap={2} sx={{ maxWidth: 640, mx: 'auto' }}>
-        <Alert color="danger" role="alert">{link.error.message}</Alert>
-        <Button component={RouterLink} to="/configure" sx={{ alignSelf: 'flex-start' }}>Configure a board</Button>
+        <Alert color="danger" role="alert">
+          {link.error.message}
+        </Alert>
+        <Button component={RouterLink} to="/configure" sx={{ alignSelf: 'flex-start' }}>
+          Configure a board
+        </Button>
       </Stack>
     );
   const params = new URLSearchParams({ step: 'review', [CONFIGURATION_PARAM]: encodeConfiguration(link.data.configuration) });

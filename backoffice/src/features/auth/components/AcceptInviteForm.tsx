@@ -14,9 +14,17 @@ export function AcceptInviteForm({ token, onAccepted }: { token: string; onAccep
     defaultValues: { password: '', repeatPassword: '' },
   });
   return (
-    <form onSubmit={handleSubmit((v) => accept.mutate({ token, password: v.password }, { onSuccess: onAccepted }))} noValidate aria-label="Accept the invitation">
+    <form
+      onSubmit={handleSubmit((v) => accept.mutate({ token, password: v.password }, { onSuccess: onAccepted }))}
+      noValidate
+      aria-label="Accept the invitation"
+    >
       <Stack gap={2}>
-        {accept.error && <Alert color="danger" role="alert">{accept.error.message}</Alert>}
+        {accept.error && (
+          <Alert color="danger" role="alert">
+            {accept.error.message}
+          </Alert>
+        )}
         <FormTextField
           label="Choose a password"
           type="password"
@@ -26,8 +34,16 @@ export function AcceptInviteForm({ token, onAccepted }: { token: string; onAccep
           error={formState.errors.password}
           hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
         />
-        <FormTextField label="Password again" type="password" autoComplete="new-password" registration={register('repeatPassword')} error={formState.errors.repeatPassword} />
-        <Button type="submit" loading={accept.isPending}>Join the bench</Button>
+        <FormTextField
+          label="Password again"
+          type="password"
+          autoComplete="new-password"
+          registration={register('repeatPassword')}
+          error={formState.errors.repeatPassword}
+        />
+        <Button type="submit" loading={accept.isPending}>
+          Join the bench
+        </Button>
       </Stack>
     </form>
   );

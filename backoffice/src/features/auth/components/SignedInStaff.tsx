@@ -10,7 +10,12 @@ export function SignedInStaff({ user }: { user: AuthUser }) {
   const signOut = useSignOut();
   const navigate = useNavigate();
   return (
-    <Stack direction={{ xs: 'row', md: 'column' }} alignItems={{ xs: 'center', md: 'stretch' }} gap={{ xs: 1, md: 0.5 }} aria-label="Signed in">
+    <Stack
+      direction={{ xs: 'row', md: 'column' }}
+      alignItems={{ xs: 'center', md: 'stretch' }}
+      gap={{ xs: 1, md: 0.5 }}
+      aria-label="Signed in"
+    >
       <Typography level="title-sm">{user.name}</Typography>
       <Typography level="body-xs">{user.role === 'owner' ? 'Owner' : 'Builder'}</Typography>
       <Button

@@ -14,7 +14,9 @@ export function StaffOnly({ user }: { user: AuthUser }) {
         The backoffice is for the shop’s builders and owner. You are signed in as {user.name} ({user.email}), a player account.
       </Alert>
       <Stack gap={1}>
-        <Button component="a" href="/builds">Go to my builds in the shop</Button>
+        <Button component="a" href="/builds">
+          Go to my builds in the shop
+        </Button>
         <Button variant="outlined" color="neutral" loading={signOut.isPending} onClick={() => signOut.mutate()}>
           Sign out
         </Button>

@@ -50,7 +50,14 @@ export function BuildTag({ build, onMove }: { build: BenchBuild; onMove?: (build
   return (
     <Stack gap={0.25}>
       {tag}
-      <Button size="sm" variant="plain" color="neutral" onClick={() => onMove(build)} aria-label={`Move ${build.reference}`} sx={{ minHeight: 0, py: 0.25, alignSelf: 'flex-start' }}>
+      <Button
+        size="sm"
+        variant="plain"
+        color="neutral"
+        onClick={() => onMove(build)}
+        aria-label={`Move ${build.reference}`}
+        sx={{ minHeight: 0, py: 0.25, alignSelf: 'flex-start' }}
+      >
         Move
       </Button>
     </Stack>

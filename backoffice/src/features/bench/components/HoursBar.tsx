@@ -38,19 +38,20 @@ export function HoursBar({ day, compact = false }: { day: BenchDay; compact?: bo
           bgcolor: off ? 'transparent' : 'neutral.100',
           border: '1px solid',
           borderColor: off ? 'neutral.300' : 'neutral.300',
-          backgroundImage: off
-            ? 'repeating-linear-gradient(135deg, var(--joy-palette-neutral-200) 0 4px, transparent 4px 8px)'
-            : undefined,
+          backgroundImage: off ? 'repeating-linear-gradient(135deg, var(--joy-palette-neutral-200) 0 4px, transparent 4px 8px)' : undefined,
           overflow: 'hidden',
         }}
       >
-        {!off && (
-          <Box sx={{ width: `${share * 100}%`, height: '100%', bgcolor: full ? 'accent.500' : 'primary.500' }} />
-        )}
+        {!off && <Box sx={{ width: `${share * 100}%`, height: '100%', bgcolor: full ? 'accent.500' : 'primary.500' }} />}
       </Box>
       <Typography
         level="body-xs"
-        sx={{ mt: 0.25, fontVariantNumeric: 'tabular-nums', color: off ? 'text.tertiary' : 'text.secondary', fontWeight: full ? 'lg' : undefined }}
+        sx={{
+          mt: 0.25,
+          fontVariantNumeric: 'tabular-nums',
+          color: off ? 'text.tertiary' : 'text.secondary',
+          fontWeight: full ? 'lg' : undefined,
+        }}
       >
         {dayInWords(day)}
       </Typography>

@@ -60,7 +60,11 @@ export function MonthCalendar({ view, weeks, month }: { view: BenchView; weeks: 
         {weeks.flat().map((date) => {
           const outside = !date.startsWith(month);
           return (
-            <Box key={date} role="gridcell" sx={{ minHeight: 84, opacity: outside ? 0.55 : 1, bgcolor: date === now ? 'primary.50' : undefined }}>
+            <Box
+              key={date}
+              role="gridcell"
+              sx={{ minHeight: 84, opacity: outside ? 0.55 : 1, bgcolor: date === now ? 'primary.50' : undefined }}
+            >
               <Typography level="body-xs" sx={{ fontWeight: 'lg', color: 'text.primary' }}>
                 {parseDay(date).getUTCDate()}
                 {date === now ? ' · today' : ''}
@@ -72,8 +76,13 @@ export function MonthCalendar({ view, weeks, month }: { view: BenchView; weeks: 
                   const words = dayInWords(day);
                   return (
                     <Box key={builder.id} aria-label={`${builder.name}: ${words}`} sx={{ minWidth: 0 }}>
-                      <Typography level="body-xs" noWrap sx={{ fontVariantNumeric: 'tabular-nums', color: day.off ? 'text.tertiary' : 'text.secondary' }}>
-                        {firstName(builder.name)}: {day.off ? day.off.label : `${formatQuantity(day.bookedHours)}/${formatHours(day.capacityHours)}`}
+                      <Typography
+                        level="body-xs"
+                        noWrap
+                        sx={{ fontVariantNumeric: 'tabular-nums', color: day.off ? 'text.tertiary' : 'text.secondary' }}
+                      >
+                        {firstName(builder.name)}:{' '}
+                        {day.off ? day.off.label : `${formatQuantity(day.bookedHours)}/${formatHours(day.capacityHours)}`}
                       </Typography>
                       {day.builds.map((build) => (
                         <Link

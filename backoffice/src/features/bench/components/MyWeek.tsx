@@ -30,7 +30,10 @@ export function MyWeek() {
       {mine && (
         <List sx={{ '--ListItem-paddingX': 0 }}>
           {mine.days.map((day) => (
-            <ListItem key={day.date} sx={{ alignItems: 'flex-start', flexDirection: 'column', borderBottom: '1px solid', borderColor: 'divider' }}>
+            <ListItem
+              key={day.date}
+              sx={{ alignItems: 'flex-start', flexDirection: 'column', borderBottom: '1px solid', borderColor: 'divider' }}
+            >
               <Stack direction="row" gap={1} flexWrap="wrap" sx={{ width: '100%' }}>
                 <Typography level="title-sm" sx={{ minWidth: 96 }}>
                   {formatDay(day.date)}

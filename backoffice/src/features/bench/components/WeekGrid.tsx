@@ -7,7 +7,15 @@ import { BuildTag } from './BuildTag';
 import { HoursBar } from './HoursBar';
 
 /** Builders down, days across: each cell is one builder's day (bar, words, builds). */
-export function WeekGrid({ view, days, onMove }: { view: BenchView; days: string[]; onMove?: (build: BenchBuild, builderId: string) => void }) {
+export function WeekGrid({
+  view,
+  days,
+  onMove,
+}: {
+  view: BenchView;
+  days: string[];
+  onMove?: (build: BenchBuild, builderId: string) => void;
+}) {
   const now = today();
   return (
     <Box sx={{ overflowX: 'auto' }}>

@@ -19,12 +19,17 @@ export function BookingFacts({ booking }: { booking: BookingDetail }) {
     <Facts
       items={[
         ['State', bookingStateLabels[booking.state]],
-        ['Customer', (
+        [
+          'Customer',
           <>
             {booking.customer.name}{' '}
-            {booking.customer.email && <Typography component="span" level="body-xs">{booking.customer.email}</Typography>}
-          </>
-        )],
+            {booking.customer.email && (
+              <Typography component="span" level="body-xs">
+                {booking.customer.email}
+              </Typography>
+            )}
+          </>,
+        ],
         ['Requested', formatStamp(booking.createdAt)],
         ['Builder', booking.builder ? `${booking.builder.name} (${booking.builder.level})` : 'Not assigned yet'],
         ['Bench date', formatDay(booking.benchDate)],
@@ -32,9 +37,17 @@ export function BookingFacts({ booking }: { booking: BookingDetail }) {
         ['Labor', formatHours(booking.laborHours)],
         ['Estimate', formatMoneyRange(booking.totalLow, booking.totalHigh, c)],
         ['Firm quote', booking.firmTotal ? formatMoney(booking.firmTotal, c) : 'Set when a builder accepts'],
-        ['Deposit', `${formatMoney(booking.deposit, c)} · ${depositWords[booking.depositStatus]}${depositPayment?.paidAt ? ` ${formatStamp(depositPayment.paidAt)}` : ''}`],
+        [
+          'Deposit',
+          `${formatMoney(booking.deposit, c)} · ${depositWords[booking.depositStatus]}${depositPayment?.paidAt ? ` ${formatStamp(depositPayment.paidAt)}` : ''}`,
+        ],
         ['Approved extras', formatMoney(booking.money.approvedExtras, c)],
-        ['Balance due', booking.money.balanceDue === null ? 'Set when a builder accepts' : `${formatMoney(booking.money.balanceDue, c)}${booking.money.balanceWaived ? ' (waived)' : ''}`],
+        [
+          'Balance due',
+          booking.money.balanceDue === null
+            ? 'Set when a builder accepts'
+            : `${formatMoney(booking.money.balanceDue, c)}${booking.money.balanceWaived ? ' (waived)' : ''}`,
+        ],
         ...(booking.deliveryHold ? ([['Delivery on hold', booking.deliveryHold]] as Array<[string, string]>) : []),
         ...(booking.inbound
           ? ([['Parcel in', `${booking.inbound.carrier} · ${booking.inbound.tracking}`]] as Array<[string, string]>)

@@ -30,8 +30,12 @@ export function ConfigurationSummary({ booking }: { booking: BookingDetail }) {
         <Chip size="sm" variant="outlined">
           {config.routing.mode === 'switcher' ? 'Through a loop switcher' : 'Serial chain'}
         </Chip>
-        <Chip size="sm" variant="outlined">Level asked: {config.level}</Chip>
-        <Chip size="sm" variant="outlined">Minimum level: {estimate.minimumLevel}</Chip>
+        <Chip size="sm" variant="outlined">
+          Level asked: {config.level}
+        </Chip>
+        <Chip size="sm" variant="outlined">
+          Minimum level: {estimate.minimumLevel}
+        </Chip>
         {config.functions.map((code) => (
           <Chip key={code} size="sm" variant="soft">
             {code.replace(/[_-]/g, ' ')}
@@ -55,10 +59,14 @@ export function ConfigurationSummary({ booking }: { booking: BookingDetail }) {
             {pedals.map((pedal, index) => (
               <tr key={`${pedal.name}-${index}`}>
                 <td>{pedal.name}</td>
-                <td>{pedal.kind ? kindWords[pedal.kind] ?? pedal.kind : '—'}</td>
+                <td>{pedal.kind ? (kindWords[pedal.kind] ?? pedal.kind) : '—'}</td>
                 <td>
                   {pedal.powered
-                    ? [pedal.voltage ? `${pedal.voltage} V` : null, pedal.currentMa ? `${pedal.currentMa} mA` : null, pedal.supply === 'ac' ? 'AC' : null]
+                    ? [
+                        pedal.voltage ? `${pedal.voltage} V` : null,
+                        pedal.currentMa ? `${pedal.currentMa} mA` : null,
+                        pedal.supply === 'ac' ? 'AC' : null,
+                      ]
                         .filter(Boolean)
                         .join(' · ') || 'powered'
                     : 'not powered'}

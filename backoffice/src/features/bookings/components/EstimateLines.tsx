@@ -33,24 +33,22 @@ export function EstimateLines({ quote }: { quote: QuoteView }) {
                 ? formatMoneyRange(line.amount, line.amountHigh, c)
                 : formatMoney(line.amount, c);
             return (
-            <tr key={line.code}>
-              <td>
-                {line.label}
-                {line.explanation && !firm && (
-                  <Typography level="body-xs" sx={{ display: 'block' }}>
-                    {line.explanation}
-                  </Typography>
-                )}
-              </td>
-              <td style={{ textAlign: 'right' }}>
-                {quantityWithUnit(line.quantity, line.unit)}
-              </td>
-              <td style={{ textAlign: 'right' }}>
-                {formatMoney(unitPrice, c)}
-                {line.kind === 'labor' && !firm && line.amountHigh ? '+' : ''}
-              </td>
-              <td style={{ textAlign: 'right' }}>{amount}</td>
-            </tr>
+              <tr key={line.code}>
+                <td>
+                  {line.label}
+                  {line.explanation && !firm && (
+                    <Typography level="body-xs" sx={{ display: 'block' }}>
+                      {line.explanation}
+                    </Typography>
+                  )}
+                </td>
+                <td style={{ textAlign: 'right' }}>{quantityWithUnit(line.quantity, line.unit)}</td>
+                <td style={{ textAlign: 'right' }}>
+                  {formatMoney(unitPrice, c)}
+                  {line.kind === 'labor' && !firm && line.amountHigh ? '+' : ''}
+                </td>
+                <td style={{ textAlign: 'right' }}>{amount}</td>
+              </tr>
             );
           })}
         </tbody>

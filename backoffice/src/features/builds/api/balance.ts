@@ -17,5 +17,8 @@ export const useRequestBalance = (id: string) => {
 
 export const useRecordBalance = (id: string) => {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: (body: RecordBalanceInput) => recordBalance(id, body), onSuccess: () => invalidateBuild(queryClient, id) });
+  return useMutation({
+    mutationFn: (body: RecordBalanceInput) => recordBalance(id, body),
+    onSuccess: () => invalidateBuild(queryClient, id),
+  });
 };

@@ -16,5 +16,8 @@ export const cancelScheduled = (id: string, body: CancelScheduledInput) =>
 
 export const useCancelScheduled = (id: string) => {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: (body: CancelScheduledInput) => cancelScheduled(id, body), onSuccess: () => invalidateBuild(queryClient, id) });
+  return useMutation({
+    mutationFn: (body: CancelScheduledInput) => cancelScheduled(id, body),
+    onSuccess: () => invalidateBuild(queryClient, id),
+  });
 };

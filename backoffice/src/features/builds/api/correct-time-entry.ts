@@ -8,7 +8,8 @@ const entryPath = (id: string, entryId: string) => `/bookings/${encodeURICompone
 /** Corrects an hour entry (its author or the owner); the change goes in the build's history. */
 export const editTimeEntry = (id: string, entryId: string, body: EditTimeEntryInput) =>
   api.request<TimeEntriesResponse>(entryPath(id, entryId), { method: 'PATCH', body });
-export const deleteTimeEntry = (id: string, entryId: string) => api.request<TimeEntriesResponse>(entryPath(id, entryId), { method: 'DELETE' });
+export const deleteTimeEntry = (id: string, entryId: string) =>
+  api.request<TimeEntriesResponse>(entryPath(id, entryId), { method: 'DELETE' });
 
 export const useEditTimeEntry = (id: string) => {
   const queryClient = useQueryClient();

@@ -13,4 +13,5 @@ export const moveOptionsQueryOptions = (bookingId: string) =>
     staleTime: 0,
   });
 
-export const useMoveOptions = (bookingId: string | null) => useQuery({ ...moveOptionsQueryOptions(bookingId ?? ''), enabled: Boolean(bookingId) });
+export const useMoveOptions = (bookingId: string | null) =>
+  useQuery({ ...moveOptionsQueryOptions(bookingId ?? ''), enabled: Boolean(bookingId) });

@@ -10,8 +10,7 @@ export interface ExtraInput {
   reason: string;
 }
 
-export const proposeExtra = (id: string, body: ExtraInput) =>
-  api.post<ExtraView>(`/bookings/${encodeURIComponent(id)}/extras`, body);
+export const proposeExtra = (id: string, body: ExtraInput) => api.post<ExtraView>(`/bookings/${encodeURIComponent(id)}/extras`, body);
 
 export const useProposeExtra = (id: string) => {
   const queryClient = useQueryClient();

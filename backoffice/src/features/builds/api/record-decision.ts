@@ -15,7 +15,8 @@ export const recordDecision = (id: string, target: { extraId: string } | { layou
 export const useRecordDecision = (id: string) => {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ target, body }: { target: { extraId: string } | { layout: true }; body: RecordedDecisionInput }) => recordDecision(id, target, body),
+    mutationFn: ({ target, body }: { target: { extraId: string } | { layout: true }; body: RecordedDecisionInput }) =>
+      recordDecision(id, target, body),
     onSuccess: () => invalidateBuild(queryClient, id),
   });
 };

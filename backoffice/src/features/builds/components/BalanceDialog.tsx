@@ -20,7 +20,19 @@ import { useRecordBalance, useRequestBalance } from '../api/balance';
 type Method = (typeof counterPaymentMethods)[number];
 
 /** While a balance is due: ask the player again, or (the owner) record the balance taken at the counter. */
-export function BalanceDialog({ booking, open, isOwner, onClose, onDone }: { booking: BookingDetail; open: boolean; isOwner: boolean; onClose: () => void; onDone: (message: string) => void }) {
+export function BalanceDialog({
+  booking,
+  open,
+  isOwner,
+  onClose,
+  onDone,
+}: {
+  booking: BookingDetail;
+  open: boolean;
+  isOwner: boolean;
+  onClose: () => void;
+  onDone: (message: string) => void;
+}) {
   const request = useRequestBalance(booking.id);
   const record = useRecordBalance(booking.id);
   const [method, setMethod] = useState<Method>('card_terminal');
@@ -30,7 +42,9 @@ export function BalanceDialog({ booking, open, isOwner, onClose, onDone }: { boo
   return (
     <Modal open={open} onClose={onClose}>
       <ModalDialog sx={{ width: 'min(520px, 96vw)' }}>
-        <DialogTitle component="h2">Balance of {money} — {booking.reference}</DialogTitle>
+        <DialogTitle component="h2">
+          Balance of {money} — {booking.reference}
+        </DialogTitle>
         <DialogContent sx={{ gap: 1.5 }}>
           <Typography level="body-sm">
             The player pays online from the link in the e-mail or on their build page. Send the request again if they have not seen it.
@@ -39,7 +53,9 @@ export function BalanceDialog({ booking, open, isOwner, onClose, onDone }: { boo
             variant="outlined"
             color="primary"
             loading={request.isPending}
-            onClick={() => request.mutate(undefined, { onSuccess: () => onDone(`${booking.reference}: balance of ${money} requested again by e-mail.`) })}
+            onClick={() =>
+              request.mutate(undefined, { onSuccess: () => onDone(`${booking.reference}: balance of ${money} requested again by e-mail.`) })
+            }
             sx={{ alignSelf: 'flex-start' }}
           >
             E-mail the payment request again

@@ -76,8 +76,15 @@ export function CancelBuildDialog({
               </Typography>
               <FormControl>
                 <FormLabel id="cancel-cause-label">Who asked for it</FormLabel>
-                <RadioGroup aria-labelledby="cancel-cause-label" value={cause} onChange={(event) => setCause(event.target.value as CancellationCause)}>
-                  <Radio value="player" label={`The player asked: refund ${formatMoney(p.refundIfPlayerAsked, p.currency)} of the ${formatMoney(p.depositPaid, p.currency)} deposit`} />
+                <RadioGroup
+                  aria-labelledby="cancel-cause-label"
+                  value={cause}
+                  onChange={(event) => setCause(event.target.value as CancellationCause)}
+                >
+                  <Radio
+                    value="player"
+                    label={`The player asked: refund ${formatMoney(p.refundIfPlayerAsked, p.currency)} of the ${formatMoney(p.depositPaid, p.currency)} deposit`}
+                  />
                   <Radio value="shop" label={`The shop cannot build it: refund ${formatMoney(p.refundIfShopCancels, p.currency)}`} />
                 </RadioGroup>
               </FormControl>

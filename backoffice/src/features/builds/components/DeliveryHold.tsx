@@ -11,7 +11,15 @@ import { NoteDialog } from './NoteDialog';
  * A disputed payment holds delivery until the owner decides. Everyone sees why; the owner can
  * release it with a reason that goes on the timeline.
  */
-export function DeliveryHold({ booking, isOwner, onDone }: { booking: BookingDetail; isOwner: boolean; onDone: (message: string) => void }) {
+export function DeliveryHold({
+  booking,
+  isOwner,
+  onDone,
+}: {
+  booking: BookingDetail;
+  isOwner: boolean;
+  onDone: (message: string) => void;
+}) {
   const [open, setOpen] = useState(false);
   const [invalid, setInvalid] = useState<Error | null>(null);
   const release = useReleaseDispute(booking.id);
@@ -19,7 +27,9 @@ export function DeliveryHold({ booking, isOwner, onDone }: { booking: BookingDet
   return (
     <Alert color="warning" variant="soft" role="alert">
       <Stack gap={1}>
-        <Typography level="title-sm" component="h2">Delivery on hold: payment disputed</Typography>
+        <Typography level="title-sm" component="h2">
+          Delivery on hold: payment disputed
+        </Typography>
         <Typography level="body-sm">{booking.deliveryHold}</Typography>
         {isOwner ? (
           <div>

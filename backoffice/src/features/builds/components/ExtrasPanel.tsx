@@ -21,15 +21,7 @@ const statusWords: Record<ExtraView['status'], string> = {
 };
 
 /** Extra materials need the player's yes, with a price, before they go on the board. */
-export function ExtrasPanel({
-  booking,
-  extras,
-  isOwner,
-}: {
-  booking: BookingDetail;
-  extras: ExtraView[] | undefined;
-  isOwner: boolean;
-}) {
+export function ExtrasPanel({ booking, extras, isOwner }: { booking: BookingDetail; extras: ExtraView[] | undefined; isOwner: boolean }) {
   const propose = useProposeExtra(booking.id);
   const form = useForm<ProposeExtraInput>({
     resolver: zodResolver(proposeExtraSchema),

@@ -5,7 +5,13 @@ import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import { timeEntryFormSchema, type BookingDetail, type TimeEntriesResponse, type TimeEntryFormInput, type TimeEntryFormOutput } from '@loomwright/shared';
+import {
+  timeEntryFormSchema,
+  type BookingDetail,
+  type TimeEntriesResponse,
+  type TimeEntryFormInput,
+  type TimeEntryFormOutput,
+} from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -77,10 +83,20 @@ export function HoursPanel({
                 {editing?.id === e.id ? (
                   <>
                     <td style={{ textAlign: 'right' }}>
-                      <Input size="sm" value={editing.hours} onChange={(ev) => setEditing({ ...editing, hours: ev.target.value })} slotProps={{ input: { 'aria-label': 'Corrected hours', inputMode: 'decimal' } }} />
+                      <Input
+                        size="sm"
+                        value={editing.hours}
+                        onChange={(ev) => setEditing({ ...editing, hours: ev.target.value })}
+                        slotProps={{ input: { 'aria-label': 'Corrected hours', inputMode: 'decimal' } }}
+                      />
                     </td>
                     <td>
-                      <Input size="sm" value={editing.note} onChange={(ev) => setEditing({ ...editing, note: ev.target.value })} slotProps={{ input: { 'aria-label': 'Corrected note' } }} />
+                      <Input
+                        size="sm"
+                        value={editing.note}
+                        onChange={(ev) => setEditing({ ...editing, note: ev.target.value })}
+                        slotProps={{ input: { 'aria-label': 'Corrected note' } }}
+                      />
                       {editing.problem && (
                         <Typography level="body-xs" color="danger" role="alert">
                           {editing.problem}
@@ -107,10 +123,20 @@ export function HoursPanel({
                       <td>
                         {mayCorrect(e) && (
                           <>
-                            <Button size="sm" variant="plain" onClick={() => setEditing({ id: e.id, hours: String(e.hours), note: e.note })}>
+                            <Button
+                              size="sm"
+                              variant="plain"
+                              onClick={() => setEditing({ id: e.id, hours: String(e.hours), note: e.note })}
+                            >
                               Correct
                             </Button>
-                            <Button size="sm" variant="plain" color="danger" loading={remove.isPending && remove.variables === e.id} onClick={() => remove.mutate(e.id)}>
+                            <Button
+                              size="sm"
+                              variant="plain"
+                              color="danger"
+                              loading={remove.isPending && remove.variables === e.id}
+                              onClick={() => remove.mutate(e.id)}
+                            >
                               Delete
                             </Button>
                           </>

@@ -69,7 +69,11 @@ export function IntakePanel({ booking, intake }: { booking: BookingDetail; intak
               <tr key={i.id}>
                 <td>{i.item}</td>
                 <td>
-                  <Typography level="body-sm" color={i.condition === 'faulty' ? 'danger' : undefined} fontWeight={i.condition === 'faulty' ? 'lg' : undefined}>
+                  <Typography
+                    level="body-sm"
+                    color={i.condition === 'faulty' ? 'danger' : undefined}
+                    fontWeight={i.condition === 'faulty' ? 'lg' : undefined}
+                  >
                     {i.condition === 'faulty' ? 'Faulty on arrival' : 'Working'}
                   </Typography>
                 </td>
@@ -84,7 +88,14 @@ export function IntakePanel({ booking, intake }: { booking: BookingDetail; intak
       )}
       {intake && intake.length === 0 && !canRecord && <Typography level="body-sm">No intake recorded.</Typography>}
       {canRecord && (
-        <Stack gap={1} component="form" onSubmit={(event) => { event.preventDefault(); submit(); }}>
+        <Stack
+          gap={1}
+          component="form"
+          onSubmit={(event) => {
+            event.preventDefault();
+            submit();
+          }}
+        >
           <Typography level="body-sm">
             {intake?.length
               ? 'Correct an item by changing it here and recording again; each item is kept once, in chain order, with the change in the history.'
@@ -104,16 +115,32 @@ export function IntakePanel({ booking, intake }: { booking: BookingDetail; intak
               {rows.map((row, index) => (
                 <tr key={index}>
                   <td>
-                    <Input size="sm" value={row.item} onChange={(e) => setRow(index, { item: e.target.value })} slotProps={{ input: { 'aria-label': `Item ${index + 1}` } }} />
+                    <Input
+                      size="sm"
+                      value={row.item}
+                      onChange={(e) => setRow(index, { item: e.target.value })}
+                      slotProps={{ input: { 'aria-label': `Item ${index + 1}` } }}
+                    />
                   </td>
                   <td>
-                    <Select size="sm" value={row.condition} onChange={(_, v) => v && setRow(index, { condition: v })} slotProps={{ button: { 'aria-label': `Condition of ${row.item || `item ${index + 1}`}` } }}>
+                    <Select
+                      size="sm"
+                      value={row.condition}
+                      onChange={(_, v) => v && setRow(index, { condition: v })}
+                      slotProps={{ button: { 'aria-label': `Condition of ${row.item || `item ${index + 1}`}` } }}
+                    >
                       <Option value="working">Working</Option>
                       <Option value="faulty">Faulty</Option>
                     </Select>
                   </td>
                   <td>
-                    <Input size="sm" value={row.note} placeholder={row.condition === 'faulty' ? 'What is wrong' : ''} onChange={(e) => setRow(index, { note: e.target.value })} slotProps={{ input: { 'aria-label': `Note on ${row.item || `item ${index + 1}`}` } }} />
+                    <Input
+                      size="sm"
+                      value={row.note}
+                      placeholder={row.condition === 'faulty' ? 'What is wrong' : ''}
+                      onChange={(e) => setRow(index, { note: e.target.value })}
+                      slotProps={{ input: { 'aria-label': `Note on ${row.item || `item ${index + 1}`}` } }}
+                    />
                   </td>
                   <td>
                     <Button size="sm" variant="plain" color="neutral" onClick={() => setRows((r) => r.filter((_, i) => i !== index))}>
@@ -125,7 +152,12 @@ export function IntakePanel({ booking, intake }: { booking: BookingDetail; intak
             </tbody>
           </Table>
           <Stack direction="row" gap={1}>
-            <Button size="sm" variant="outlined" color="neutral" onClick={() => setRows((r) => [...r, { item: '', condition: 'working', note: '' }])}>
+            <Button
+              size="sm"
+              variant="outlined"
+              color="neutral"
+              onClick={() => setRows((r) => [...r, { item: '', condition: 'working', note: '' }])}
+            >
               Add an item
             </Button>
             <Button size="sm" type="submit" loading={record.isPending} disabled={rows.every((r) => !r.item.trim())}>
@@ -138,7 +170,11 @@ export function IntakePanel({ booking, intake }: { booking: BookingDetail; intak
             </Typography>
           )}
           <ErrorNote error={record.error} />
-          {record.isSuccess && <Typography level="body-sm" role="status">Intake recorded.</Typography>}
+          {record.isSuccess && (
+            <Typography level="body-sm" role="status">
+              Intake recorded.
+            </Typography>
+          )}
         </Stack>
       )}
     </Stack>

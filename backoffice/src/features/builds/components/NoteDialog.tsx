@@ -68,16 +68,26 @@ export function NoteDialog({
           <FormControl error={missing} required={required}>
             <FormLabel>{label}</FormLabel>
             <Textarea minRows={2} value={note} onChange={(event) => setNote(event.target.value)} />
-            {missing && <FormHelperText>{tell ? 'Write the words the player should read.' : 'Write a reason of at least a few words.'}</FormHelperText>}
+            {missing && (
+              <FormHelperText>
+                {tell ? 'Write the words the player should read.' : 'Write a reason of at least a few words.'}
+              </FormHelperText>
+            )}
             {canTellPlayer && !tell && <FormHelperText>Internal: only the shop sees this note.</FormHelperText>}
           </FormControl>
           {canTellPlayer && (
-            <Checkbox label="Tell the player (by e-mail and on their build page)" checked={tell} onChange={(event) => setTell(event.target.checked)} />
+            <Checkbox
+              label="Tell the player (by e-mail and on their build page)"
+              checked={tell}
+              onChange={(event) => setTell(event.target.checked)}
+            />
           )}
           {canTellPlayer && tell && (
             <Sheet variant="soft" sx={{ p: 1.5, borderRadius: 'sm' }} aria-label="Words the player will read">
               <Typography level="body-xs">The player will read exactly:</Typography>
-              <Typography sx={{ whiteSpace: 'pre-wrap' }}>{note.trim() ? `From your builder: ${note.trim()}` : '(write the note above)'}</Typography>
+              <Typography sx={{ whiteSpace: 'pre-wrap' }}>
+                {note.trim() ? `From your builder: ${note.trim()}` : '(write the note above)'}
+              </Typography>
             </Sheet>
           )}
           <ErrorNote error={error} />

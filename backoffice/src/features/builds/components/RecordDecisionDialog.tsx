@@ -83,8 +83,21 @@ export function RecordDecisionDialog({
             onClick={() =>
               target &&
               record.mutate(
-                { target, body: { approve: approve === 'yes', via, givenBy: givenBy.trim(), ...(comment.trim() ? { comment: comment.trim() } : {}) } },
-                { onSuccess: () => onDone(`${what}: ${approve === 'yes' ? 'approved' : 'declined'} by ${givenBy.trim()} ${decidedViaWords[via]}, recorded.`) },
+                {
+                  target,
+                  body: {
+                    approve: approve === 'yes',
+                    via,
+                    givenBy: givenBy.trim(),
+                    ...(comment.trim() ? { comment: comment.trim() } : {}),
+                  },
+                },
+                {
+                  onSuccess: () =>
+                    onDone(
+                      `${what}: ${approve === 'yes' ? 'approved' : 'declined'} by ${givenBy.trim()} ${decidedViaWords[via]}, recorded.`,
+                    ),
+                },
               )
             }
           >

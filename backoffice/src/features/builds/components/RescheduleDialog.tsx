@@ -90,7 +90,9 @@ export function RescheduleDialog({
       { id: build.bookingId, body: parsed.data },
       {
         onSuccess: (result) => {
-          onMoved?.(`${build.reference} moved to ${formatDay(result.benchDate)} (${result.shift}); the player has been e-mailed the new date.`);
+          onMoved?.(
+            `${build.reference} moved to ${formatDay(result.benchDate)} (${result.shift}); the player has been e-mailed the new date.`,
+          );
           onClose();
         },
       },
@@ -114,21 +116,36 @@ export function RescheduleDialog({
             <FormLabel id="move-builder-label">Builder</FormLabel>
             <Select aria-labelledby="move-builder-label" value={builderId} onChange={(_, value) => value && setBuilderId(value)}>
               {builders.map((s) => (
-                <Option key={s.builder.id} value={s.builder.id} disabled={!s.meetsChosenLevel && !isOwner && s.builder.id !== build?.builderId}>
+                <Option
+                  key={s.builder.id}
+                  value={s.builder.id}
+                  disabled={!s.meetsChosenLevel && !isOwner && s.builder.id !== build?.builderId}
+                >
                   {s.builder.name} · {s.builder.level}
                   {s.builder.id === build?.builderId ? ' (now)' : ''}
                   {s.meetsChosenLevel ? '' : ' · below the level the player chose'}
                 </Option>
               ))}
             </Select>
-            {chosen && <FormHelperText>Earliest day {chosen.builder.name} can start it: {formatDay(chosen.benchDate)}.</FormHelperText>}
+            {chosen && (
+              <FormHelperText>
+                Earliest day {chosen.builder.name} can start it: {formatDay(chosen.benchDate)}.
+              </FormHelperText>
+            )}
           </FormControl>
           <FormControl>
             <FormLabel>New bench date</FormLabel>
-            <Input type="date" value={benchDate} onChange={(event) => setBenchDate(event.target.value)} slotProps={{ input: { 'aria-label': 'New bench date' } }} />
+            <Input
+              type="date"
+              value={benchDate}
+              onChange={(event) => setBenchDate(event.target.value)}
+              slotProps={{ input: { 'aria-label': 'New bench date' } }}
+            />
             {build?.benchDate && isCalendarDay(benchDate) && (
               <FormHelperText>
-                {benchDate === build.benchDate ? 'The same day as now.' : `${dateShiftWords(build.benchDate, benchDate)} than now (${formatDay(build.benchDate)}).`}
+                {benchDate === build.benchDate
+                  ? 'The same day as now.'
+                  : `${dateShiftWords(build.benchDate, benchDate)} than now (${formatDay(build.benchDate)}).`}
               </FormHelperText>
             )}
           </FormControl>

@@ -2,13 +2,7 @@ import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
-import {
-  benchTransitions,
-  bookingStateLabels,
-  type BenchState,
-  type BookingDetail,
-  type IntakeItemView,
-} from '@loomwright/shared';
+import { benchTransitions, bookingStateLabels, type BenchState, type BookingDetail, type IntakeItemView } from '@loomwright/shared';
 import { useState } from 'react';
 import { formatMoney } from 'src/lib/format';
 import { useChangeState } from '../api/change-state';
@@ -61,7 +55,8 @@ export function StateActions({
   const blockedBecause = (to: BenchState): string | null => {
     if (to === 'pedals_received' && (intake?.length ?? 0) === 0) return 'Record the intake below first.';
     if (to === 'testing' && booking.awaitingLayoutApproval) return "Waiting for the player's layout approval.";
-    if (to === 'ready' && waitingExtras.length) return `Waiting for the player's answer on ${waitingExtras.map((x) => x.description).join(', ')}.`;
+    if (to === 'ready' && waitingExtras.length)
+      return `Waiting for the player's answer on ${waitingExtras.map((x) => x.description).join(', ')}.`;
     return null;
   };
 
@@ -169,9 +164,7 @@ export function StateActions({
         }
       >
         {moving === 'ready' && (
-          <Typography level="body-sm">
-            The player is asked to pay the balance through the same checkout as the deposit.
-          </Typography>
+          <Typography level="body-sm">The player is asked to pay the balance through the same checkout as the deposit.</Typography>
         )}
       </NoteDialog>
       <NoteDialog
@@ -210,7 +203,8 @@ export function StateActions({
         }
       >
         <Typography level="body-sm">
-          The player will not be asked for {formatMoney(booking.money.balanceDue, booking.money.currency)}; the build can then be marked delivered.
+          The player will not be asked for {formatMoney(booking.money.balanceDue, booking.money.currency)}; the build can then be marked
+          delivered.
         </Typography>
       </NoteDialog>
     </Stack>

@@ -4,11 +4,18 @@ import { api } from 'src/lib/api-client';
 
 /** Every feed link (owner only). */
 export const useCalendarFeeds = (enabled: boolean) =>
-  useQuery({ queryKey: ['calendar-feeds', 'all'], queryFn: ({ signal }) => api.get<CalendarFeedLink[]>('/calendar-feeds', { signal }), enabled });
+  useQuery({
+    queryKey: ['calendar-feeds', 'all'],
+    queryFn: ({ signal }) => api.get<CalendarFeedLink[]>('/calendar-feeds', { signal }),
+    enabled,
+  });
 
 /** The signed-in builder's own feed link. */
 export const useMyCalendarFeed = () =>
-  useQuery({ queryKey: ['calendar-feeds', 'mine'], queryFn: ({ signal }) => api.get<CalendarFeedLink[]>('/calendar-feeds/mine', { signal }) });
+  useQuery({
+    queryKey: ['calendar-feeds', 'mine'],
+    queryFn: ({ signal }) => api.get<CalendarFeedLink[]>('/calendar-feeds/mine', { signal }),
+  });
 
 export function useRotateCalendarFeed() {
   const queryClient = useQueryClient();

@@ -16,7 +16,8 @@ import { Notice } from 'src/components/Notice';
 import { formatStamp } from 'src/lib/format';
 import { useRotateCalendarFeed } from '../api/calendar-feeds';
 
-const feedName = (feed: CalendarFeedLink) => (feed.scope === 'shop' ? 'The whole shop’s bench' : `${feed.builderName ?? 'A builder'}’s bench`);
+const feedName = (feed: CalendarFeedLink) =>
+  feed.scope === 'shop' ? 'The whole shop’s bench' : `${feed.builderName ?? 'A builder'}’s bench`;
 
 /** Copies the link; where the browser gives no clipboard (a page not on https), selects it for Ctrl-C instead. */
 function CopyLink({ url, label }: { url: string; label: string }) {
@@ -65,7 +66,9 @@ export function FeedLinks({ feeds, canRotate }: { feeds: CalendarFeedLink[]; can
             <Typography level="title-md" component="h2" sx={{ flex: 1 }}>
               {feedName(feed)}
             </Typography>
-            <Typography level="body-xs">{feed.rotatedAt ? `Link made new ${formatStamp(feed.rotatedAt)}` : 'First link, never replaced'}</Typography>
+            <Typography level="body-xs">
+              {feed.rotatedAt ? `Link made new ${formatStamp(feed.rotatedAt)}` : 'First link, never replaced'}
+            </Typography>
           </Stack>
           <CopyLink url={feed.url} label={`Calendar link for ${feedName(feed)}`} />
           <Stack direction="row" gap={2} flexWrap="wrap" alignItems="center">

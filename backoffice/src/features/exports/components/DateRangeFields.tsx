@@ -61,11 +61,21 @@ export function DateRangeFields({ state }: { state: DateRangeState }) {
       <Stack direction="row" gap={1.5} flexWrap="wrap" alignItems="flex-start">
         <FormControl error={state.problems.some((m) => m.startsWith('from'))}>
           <FormLabel>From</FormLabel>
-          <Input type="date" value={state.from} onChange={(e) => state.setFrom(e.target.value)} slotProps={{ input: { 'aria-label': 'From (first day)' } }} />
+          <Input
+            type="date"
+            value={state.from}
+            onChange={(e) => state.setFrom(e.target.value)}
+            slotProps={{ input: { 'aria-label': 'From (first day)' } }}
+          />
         </FormControl>
         <FormControl error={state.problems.length > 0}>
           <FormLabel>To</FormLabel>
-          <Input type="date" value={state.to} onChange={(e) => state.setTo(e.target.value)} slotProps={{ input: { 'aria-label': 'To (last day)' } }} />
+          <Input
+            type="date"
+            value={state.to}
+            onChange={(e) => state.setTo(e.target.value)}
+            slotProps={{ input: { 'aria-label': 'To (last day)' } }}
+          />
         </FormControl>
       </Stack>
       {state.problems.map((p) => (

@@ -34,8 +34,8 @@ export function ExportCsvButton({ kinds, label = 'Export CSV…' }: { kinds: Exp
           <DialogTitle component="h2">Export to a spreadsheet</DialogTitle>
           <DialogContent sx={{ gap: 2 }}>
             <Typography level="body-sm">
-              CSV files in UTF-8 with a header row, amounts as plain decimals ({shop.data?.currency ?? 'USD'}), times on the shop’s clock
-              ({shop.data?.timezone ?? 'shop time zone'}) with their UTC offset. Both days are included.
+              CSV files in UTF-8 with a header row, amounts as plain decimals ({shop.data?.currency ?? 'USD'}), times on the shop’s clock (
+              {shop.data?.timezone ?? 'shop time zone'}) with their UTC offset. Both days are included.
             </Typography>
             <DateRangeFields state={range} />
             <Stack gap={1}>

@@ -5,8 +5,14 @@ import type { DateRangeQuery, ExportKind } from '@loomwright/shared';
 import { exportUrl } from '../api/export-url';
 
 const what: Record<ExportKind, { title: string; hint: string }> = {
-  bookings: { title: 'Bookings', hint: 'One row per request made in the range: state, customer, builder, quote, what was paid and what is due, hours.' },
-  payments: { title: 'Payments', hint: 'Every deposit and balance on the day it arrived, every refund (negative) on the day it went back.' },
+  bookings: {
+    title: 'Bookings',
+    hint: 'One row per request made in the range: state, customer, builder, quote, what was paid and what is due, hours.',
+  },
+  payments: {
+    title: 'Payments',
+    hint: 'Every deposit and balance on the day it arrived, every refund (negative) on the day it went back.',
+  },
   hours: { title: 'Hours', hint: 'Every hour entry worked in the range, per build and builder.' },
 };
 

@@ -13,7 +13,10 @@ describe('presetRanges', () => {
   it('steps back over a year end for last month, and the fourth quarter ends on 31 December', () => {
     const byLabel = Object.fromEntries(presetRanges('2027-01-03').map((p) => [p.label, p.range]));
     expect(byLabel['Last month']).toEqual({ from: '2026-12-01', to: '2026-12-31' });
-    expect(Object.fromEntries(presetRanges('2026-11-30').map((p) => [p.label, p.range]))['This quarter']).toEqual({ from: '2026-10-01', to: '2026-12-31' });
+    expect(Object.fromEntries(presetRanges('2026-11-30').map((p) => [p.label, p.range]))['This quarter']).toEqual({
+      from: '2026-10-01',
+      to: '2026-12-31',
+    });
   });
 
   it('reads today on the shop’s clock: 03:00 UTC on 1 Dec is still 30 Nov in Chicago (IANA tz, UTC−6)', () => {

@@ -16,8 +16,14 @@ export function presetRanges(today: string): Array<{ label: string; range: DateR
   const quarterStart = Math.floor((m - 1) / 3) * 3 + 1;
   return [
     { label: 'This month', range: { from: `${y}-${pad(m)}-01`, to: `${y}-${pad(m)}-${pad(lastDayOfMonth(y, m))}` } },
-    { label: 'Last month', range: { from: `${prevY}-${pad(prevM)}-01`, to: `${prevY}-${pad(prevM)}-${pad(lastDayOfMonth(prevY, prevM))}` } },
-    { label: 'This quarter', range: { from: `${y}-${pad(quarterStart)}-01`, to: `${y}-${pad(quarterStart + 2)}-${pad(lastDayOfMonth(y, quarterStart + 2))}` } },
+    {
+      label: 'Last month',
+      range: { from: `${prevY}-${pad(prevM)}-01`, to: `${prevY}-${pad(prevM)}-${pad(lastDayOfMonth(prevY, prevM))}` },
+    },
+    {
+      label: 'This quarter',
+      range: { from: `${y}-${pad(quarterStart)}-01`, to: `${y}-${pad(quarterStart + 2)}-${pad(lastDayOfMonth(y, quarterStart + 2))}` },
+    },
     { label: 'This year', range: { from: `${y}-01-01`, to: `${y}-12-31` } },
   ];
 }

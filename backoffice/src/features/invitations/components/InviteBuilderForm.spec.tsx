@@ -6,10 +6,20 @@ import { theme } from 'src/theme';
 import { InviteBuilderForm } from './InviteBuilderForm';
 
 // jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= ((query: string) =>
-  ({ matches: false, media: query, onchange: null, addListener() {}, removeListener() {}, addEventListener() {}, removeEventListener() {}, dispatchEvent: () => false }) as MediaQueryList);
+window.matchMedia ??= (query: string) =>
+  ({
+    matches: false,
+    media: query,
+    onchange: null,
+    addListener() {},
+    removeListener() {},
+    addEventListener() {},
+    removeEventListener() {},
+    dispatchEvent: () => false,
+  }) as MediaQueryList;
 
-const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+const json = (status: number, body: unknown) =>
+  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
 function renderForm(answer: () => Response) {
   const fetchMock = vi.fn(async () => answer());
@@ -52,14 +62,23 @@ describe('Invite a builder', () => {
     fireEvent.change(screen.getByLabelText('E-mail'), { target: { value: ' Marit.Solberg@Shop.Example ' } });
     fireEvent.change(screen.getByLabelText('Hourly rate'), { target: { value: '48.50' } });
     fireEvent.click(screen.getByRole('button', { name: 'Send invitation' }));
-    expect((await screen.findByRole('status')).textContent).toMatch(/Invitation sent to marit\.solberg@shop\.example\. The link works once, until/);
+    expect((await screen.findByRole('status')).textContent).toMatch(
+      /Invitation sent to marit\.solberg@shop\.example\. The link works once, until/,
+    );
     const [url, init] = fetchMock.mock.calls[0] as unknown as [string, RequestInit];
     expect(new URL(url).pathname).toBe('/api/invitations');
-    expect(JSON.parse(String(init.body))).toEqual({ name: 'Marit Solberg-Ames', email: 'marit.solberg@shop.example', level: 'apprentice', hourlyRate: '48.50' });
+    expect(JSON.parse(String(init.body))).toEqual({
+      name: 'Marit Solberg-Ames',
+      email: 'marit.solberg@shop.example',
+      level: 'apprentice',
+      hourlyRate: '48.50',
+    });
   });
 
   it('shows the API’s refusal in its own words', async () => {
-    renderForm(() => json(409, { statusCode: 409, message: 'Someone already has an account with this e-mail; invite a different address.' }));
+    renderForm(() =>
+      json(409, { statusCode: 409, message: 'Someone already has an account with this e-mail; invite a different address.' }),
+    );
     fireEvent.change(screen.getByLabelText('Name'), { target: { value: 'Rowan' } });
     fireEvent.change(screen.getByLabelText('E-mail'), { target: { value: 'player@mail.example' } });
     fireEvent.click(screen.getByRole('button', { name: 'Send invitation' }));

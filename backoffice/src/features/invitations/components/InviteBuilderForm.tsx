@@ -47,7 +47,11 @@ export function InviteBuilderForm() {
             The link works once, until {dateTime(invite.data.expiresAt)}.
           </Alert>
         )}
-        {invite.error && <Alert color="danger" role="alert">{invite.error.message}</Alert>}
+        {invite.error && (
+          <Alert color="danger" role="alert">
+            {invite.error.message}
+          </Alert>
+        )}
         <FormControl error={!!formState.errors.name}>
           <FormLabel>Name</FormLabel>
           <Input autoComplete="off" {...register('name')} />
@@ -71,12 +75,16 @@ export function InviteBuilderForm() {
                 slotProps={{ button: { 'aria-labelledby': 'invite-level-label' } }}
               >
                 {builderLevels.map((l) => (
-                  <Option key={l} value={l}>{levelNames[l]}</Option>
+                  <Option key={l} value={l}>
+                    {levelNames[l]}
+                  </Option>
                 ))}
               </Select>
             )}
           />
-          <FormHelperText>{formState.errors.level?.message ?? 'Complex rigs (switcher loops, several functions) call for a higher level.'}</FormHelperText>
+          <FormHelperText>
+            {formState.errors.level?.message ?? 'Complex rigs (switcher loops, several functions) call for a higher level.'}
+          </FormHelperText>
         </FormControl>
         <FormControl error={!!formState.errors.hourlyRate}>
           <FormLabel>Hourly rate</FormLabel>

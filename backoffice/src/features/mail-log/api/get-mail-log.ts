@@ -2,8 +2,7 @@ import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
 import type { MailLogPage, MailLogQuery } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
 
-export const getMailLog = (query: MailLogQuery, signal?: AbortSignal) =>
-  api.get<MailLogPage>('/mail', { query: { ...query }, signal });
+export const getMailLog = (query: MailLogQuery, signal?: AbortSignal) => api.get<MailLogPage>('/mail', { query: { ...query }, signal });
 
 export const mailLogKeys = {
   all: ['mail-log'] as const,

@@ -5,8 +5,7 @@ import { mailLogKeys } from 'src/features/mail-log/api/get-mail-log';
 
 export type ResendMailVariables = { id: string } & NonNullable<ResendMailInput>;
 
-export const resendMail = ({ id, ...body }: ResendMailVariables) =>
-  api.post<MailLogEntry>(`/mail/${encodeURIComponent(id)}/resend`, body);
+export const resendMail = ({ id, ...body }: ResendMailVariables) => api.post<MailLogEntry>(`/mail/${encodeURIComponent(id)}/resend`, body);
 
 export function useResendMail() {
   const queryClient = useQueryClient();

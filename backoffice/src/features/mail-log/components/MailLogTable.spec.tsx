@@ -47,8 +47,17 @@ function renderTable() {
 }
 
 // jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= ((query: string) =>
-  ({ matches: false, media: query, onchange: null, addEventListener() {}, removeEventListener() {}, addListener() {}, removeListener() {}, dispatchEvent: () => false }) as unknown as MediaQueryList);
+window.matchMedia ??= (query: string) =>
+  ({
+    matches: false,
+    media: query,
+    onchange: null,
+    addEventListener() {},
+    removeEventListener() {},
+    addListener() {},
+    removeListener() {},
+    dispatchEvent: () => false,
+  }) as unknown as MediaQueryList;
 
 afterEach(() => {
   cleanup();
@@ -58,7 +67,16 @@ afterEach(() => {
 describe('MailLogTable', () => {
   const items = [
     entry({}),
-    entry({ id: '22222222-2222-4222-8222-222222222222', to: 'cass@mail.example', template: 'password-reset', subject: null, state: 'failed', attempts: 8, lastError: 'ECONNREFUSED: connect ECONNREFUSED 127.0.0.1:2525', sentAt: null }),
+    entry({
+      id: '22222222-2222-4222-8222-222222222222',
+      to: 'cass@mail.example',
+      template: 'password-reset',
+      subject: null,
+      state: 'failed',
+      attempts: 8,
+      lastError: 'ECONNREFUSED: connect ECONNREFUSED 127.0.0.1:2525',
+      sentAt: null,
+    }),
   ];
 
   it('shows each message with its state in words, attempts and error, and asks the API for the page', async () => {
@@ -84,17 +102,30 @@ describe('MailLogTable', () => {
   });
 
   it('lets the owner resend a message, and not one still waiting to go out', async () => {
-    const calls = stubApi({ items: [...items, entry({ id: '33333333-3333-4333-8333-333333333333', state: 'queued', to: 'wait@mail.example' })], total: 3, page: 1, pageSize: 25, canResend: true });
+    const calls = stubApi({
+      items: [...items, entry({ id: '33333333-3333-4333-8333-333333333333', state: 'queued', to: 'wait@mail.example' })],
+      total: 3,
+      page: 1,
+      pageSize: 25,
+      canResend: true,
+    });
     renderTable();
     const button = await screen.findByRole('button', { name: /Resend .* to cass@mail.example/ });
     expect((screen.getByRole('button', { name: /to wait@mail.example/ }) as HTMLButtonElement).disabled).toBe(true);
     fireEvent.click(button);
-    await waitFor(() => expect(calls.some((c) => c.method === 'POST' && c.url.endsWith('/api/mail/22222222-2222-4222-8222-222222222222/resend'))).toBe(true));
+    await waitFor(() =>
+      expect(calls.some((c) => c.method === 'POST' && c.url.endsWith('/api/mail/22222222-2222-4222-8222-222222222222/resend'))).toBe(true),
+    );
     expect(await screen.findByText('Queued again with a fresh link; the earlier link no longer works.')).toBeTruthy();
   });
 
   it('warns before resending a message whose outcome is unknown, and sends only on confirmation', async () => {
-    const unknown = entry({ id: '44444444-4444-4444-8444-444444444444', state: 'unknown', to: 'maybe@mail.example', lastError: 'Outcome unknown: the mail server may have received this message.' });
+    const unknown = entry({
+      id: '44444444-4444-4444-8444-444444444444',
+      state: 'unknown',
+      to: 'maybe@mail.example',
+      lastError: 'Outcome unknown: the mail server may have received this message.',
+    });
     const calls = stubApi({ items: [unknown], total: 1, page: 1, pageSize: 25, canResend: true });
     renderTable();
     const resendButton = await screen.findByRole('button', { name: /Resend .* to maybe@mail.example/ });

@@ -31,7 +31,6 @@ const stateColor: Record<MailState, 'neutral' | 'primary' | 'success' | 'warning
   unknown: 'warning',
 };
 
-
 /** Template names in the words the shop uses. */
 const templateWords: Record<string, string> = {
   welcome: 'Welcome',
@@ -75,7 +74,9 @@ function ResendButton({ entry }: { entry: MailLogEntry }) {
         Resend
       </Button>
       {resend.isSuccess && (
-        <Typography level="body-xs">{freshLink ? 'Queued again with a fresh link; the earlier link no longer works.' : 'Queued again as a new message.'}</Typography>
+        <Typography level="body-xs">
+          {freshLink ? 'Queued again with a fresh link; the earlier link no longer works.' : 'Queued again as a new message.'}
+        </Typography>
       )}
       {resend.isError && !confirming && (
         <Typography level="body-xs" color="danger" role="alert">
@@ -87,8 +88,8 @@ function ResendButton({ entry }: { entry: MailLogEntry }) {
           <DialogTitle component="h2">This message may already have arrived</DialogTitle>
           <DialogContent sx={{ gap: 1 }}>
             <Typography level="body-sm">
-              “{name}” to {entry.to} was with the mail server when our sender stopped, and its answer was never recorded. It may be in
-              their mailbox already. Ask them first if you can: sending it again gives them a second copy.
+              “{name}” to {entry.to} was with the mail server when our sender stopped, and its answer was never recorded. It may be in their
+              mailbox already. Ask them first if you can: sending it again gives them a second copy.
             </Typography>
             {freshLink && <Typography level="body-sm">The copy carries a fresh link; the link in the first one stops working.</Typography>}
             {resend.isError && (

@@ -62,7 +62,12 @@ export function ListEditor({
                         control={control}
                         name={path as 'surfaces.0.custom'}
                         render={({ field }) => (
-                          <Checkbox checked={Boolean(field.value)} disabled={disabled} onChange={(e) => field.onChange(e.target.checked)} slotProps={{ input: { 'aria-label': label } }} />
+                          <Checkbox
+                            checked={Boolean(field.value)}
+                            disabled={disabled}
+                            onChange={(e) => field.onChange(e.target.checked)}
+                            slotProps={{ input: { 'aria-label': label } }}
+                          />
                         )}
                       />
                     </td>
@@ -74,7 +79,13 @@ export function ListEditor({
                         control={control}
                         name={path}
                         render={({ field }) => (
-                          <Select size="sm" value={field.value ?? null} disabled={disabled} onChange={(_, v) => v && field.onChange(v)} slotProps={{ button: { 'aria-label': label } }}>
+                          <Select
+                            size="sm"
+                            value={field.value ?? null}
+                            disabled={disabled}
+                            onChange={(_, v) => v && field.onChange(v)}
+                            slotProps={{ button: { 'aria-label': label } }}
+                          >
                             {s.options!.map((o) => (
                               <Option key={o.value} value={o.value}>
                                 {o.label}
@@ -110,7 +121,13 @@ export function ListEditor({
         </tbody>
       </Table>
       {!fixedRows && !disabled && blank && (
-        <Button size="sm" variant="outlined" color="neutral" sx={{ alignSelf: 'flex-start' }} onClick={() => append(blank() as PriceBook['surfaces'][number])}>
+        <Button
+          size="sm"
+          variant="outlined"
+          color="neutral"
+          sx={{ alignSelf: 'flex-start' }}
+          onClick={() => append(blank() as PriceBook['surfaces'][number])}
+        >
           Add a row
         </Button>
       )}

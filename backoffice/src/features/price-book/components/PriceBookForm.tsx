@@ -50,7 +50,17 @@ function Block({ title, hint, children }: { title: string; hint?: string; childr
   );
 }
 
-export function PriceBookForm({ book, version, canEdit, onPublished }: { book: PriceBook; version: number; canEdit: boolean; onPublished: (m: string) => void }) {
+export function PriceBookForm({
+  book,
+  version,
+  canEdit,
+  onPublished,
+}: {
+  book: PriceBook;
+  version: number;
+  canEdit: boolean;
+  onPublished: (m: string) => void;
+}) {
   const publish = usePublishPriceBook();
   const form = useForm<PriceBook>({ resolver: zodResolver(priceBookSchema) as unknown as Resolver<PriceBook>, defaultValues: book });
   const [notes, setNotes] = useState('');
@@ -77,10 +87,13 @@ export function PriceBookForm({ book, version, canEdit, onPublished }: { book: P
   return (
     <Stack component="form" gap={2} noValidate onSubmit={submit}>
       <Alert variant="soft" color="primary">
-        Publishing saves a new version (now version {version}). Quotes already given keep the version they were priced from, so
-        nothing a player has been told changes.
+        Publishing saves a new version (now version {version}). Quotes already given keep the version they were priced from, so nothing a
+        player has been told changes.
       </Alert>
-      <Block title="Deposit policy" hint="A share of the high end of the estimate, never below the minimum; the player reads the description before paying.">
+      <Block
+        title="Deposit policy"
+        hint="A share of the high end of the estimate, never below the minimum; the player reads the description before paying."
+      >
         <Stack direction="row" gap={1.5} flexWrap="wrap">
           <FormControl disabled={disabled} sx={{ width: 140 }}>
             <FormLabel>Share (%)</FormLabel>
@@ -109,7 +122,10 @@ export function PriceBookForm({ book, version, canEdit, onPublished }: { book: P
           </FormControl>
         </Stack>
       </Block>
-      <Block title="Levels and hourly rates" hint="The estimate shows the level's range; a firm quote uses the assigned builder's own rate.">
+      <Block
+        title="Levels and hourly rates"
+        hint="The estimate shows the level's range; a firm quote uses the assigned builder's own rate."
+      >
         <ListEditor
           list="levels"
           control={control}
@@ -158,7 +174,16 @@ export function PriceBookForm({ book, version, canEdit, onPublished }: { book: P
           control={control}
           register={register}
           disabled={disabled}
-          blank={() => ({ id: '', name: '', kind: 'hard_case', description: '', price: '0.00', notRecommended: false, caution: null, fitsSurfaceIds: [] })}
+          blank={() => ({
+            id: '',
+            name: '',
+            kind: 'hard_case',
+            description: '',
+            price: '0.00',
+            notRecommended: false,
+            caution: null,
+            fitsSurfaceIds: [],
+          })}
           fields={[
             { name: 'id', label: 'Id', kind: 'text', width: 130 },
             { name: 'name', label: 'Name', kind: 'text' },

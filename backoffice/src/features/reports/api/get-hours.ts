@@ -6,7 +6,11 @@ export const getHoursReport = (range: DateRangeQuery, signal?: AbortSignal) =>
   api.get<HoursReport>('/reports/hours', { query: { ...range }, signal });
 
 export const hoursQueryOptions = (range: DateRangeQuery) =>
-  queryOptions({ queryKey: ['reports', 'hours', range], queryFn: ({ signal }) => getHoursReport(range, signal), placeholderData: keepPreviousData });
+  queryOptions({
+    queryKey: ['reports', 'hours', range],
+    queryFn: ({ signal }) => getHoursReport(range, signal),
+    placeholderData: keepPreviousData,
+  });
 
 /** Waits while the range is not a valid one (the form says why). */
 export const useHoursReport = (range: DateRangeQuery | null) =>

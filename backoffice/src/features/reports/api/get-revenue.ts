@@ -6,7 +6,11 @@ export const getRevenue = (range: DateRangeQuery, signal?: AbortSignal) =>
   api.get<RevenueReport>('/reports/revenue', { query: { ...range }, signal });
 
 export const revenueQueryOptions = (range: DateRangeQuery) =>
-  queryOptions({ queryKey: ['reports', 'revenue', range], queryFn: ({ signal }) => getRevenue(range, signal), placeholderData: keepPreviousData });
+  queryOptions({
+    queryKey: ['reports', 'revenue', range],
+    queryFn: ({ signal }) => getRevenue(range, signal),
+    placeholderData: keepPreviousData,
+  });
 
 /** Waits while the range is not a valid one (the form says why). */
 export const useRevenue = (range: DateRangeQuery | null) =>

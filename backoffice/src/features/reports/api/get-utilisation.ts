@@ -6,7 +6,11 @@ export const getUtilisation = (range: DateRangeQuery, signal?: AbortSignal) =>
   api.get<UtilisationReport>('/reports/utilisation', { query: { ...range }, signal });
 
 export const utilisationQueryOptions = (range: DateRangeQuery) =>
-  queryOptions({ queryKey: ['reports', 'utilisation', range], queryFn: ({ signal }) => getUtilisation(range, signal), placeholderData: keepPreviousData });
+  queryOptions({
+    queryKey: ['reports', 'utilisation', range],
+    queryFn: ({ signal }) => getUtilisation(range, signal),
+    placeholderData: keepPreviousData,
+  });
 
 /** Waits while the range is not a valid one (the form says why). */
 export const useUtilisation = (range: DateRangeQuery | null) =>

@@ -4,7 +4,16 @@ import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
 import Decimal from 'decimal.js';
-import type { BookingState, DateRangeQuery, UtilisationReport, HoursBuildRow, HoursBuilderRow, OutstandingItem, RevenueMonth, UtilisationWeek } from '@loomwright/shared';
+import type {
+  BookingState,
+  DateRangeQuery,
+  UtilisationReport,
+  HoursBuildRow,
+  HoursBuilderRow,
+  OutstandingItem,
+  RevenueMonth,
+  UtilisationWeek,
+} from '@loomwright/shared';
 import Button from '@mui/joy/Button';
 import { lazy, Suspense, useState, type ReactNode } from 'react';
 import { Link as RouterLink } from 'react-router';
@@ -47,7 +56,11 @@ export function RevenueSection({ range }: { range: DateRangeQuery | null }) {
   const revenue = useRevenue(range);
   const data = revenue.data;
   return (
-    <ReportSection id="revenue" title="Revenue by month" hint="Money that arrived (deposits and balances) and went back (refunds), by the month on the shop’s calendar. Sums of the payments CSV.">
+    <ReportSection
+      id="revenue"
+      title="Revenue by month"
+      hint="Money that arrived (deposits and balances) and went back (refunds), by the month on the shop’s calendar. Sums of the payments CSV."
+    >
       <ErrorNote error={revenue.error} />
       {revenue.isPending && range && <PageLoading label="Adding up the payments…" />}
       {data &&
@@ -65,7 +78,11 @@ export function RevenueSection({ range }: { range: DateRangeQuery | null }) {
                 { header: 'Month', render: (m) => formatMonth(`${m.month}-01`) },
                 { header: 'Deposits', figure: true, render: (m) => signed(m.deposits, m.currency) },
                 { header: 'Balances', figure: true, render: (m) => signed(m.balances, m.currency) },
-                { header: 'Refunds', figure: true, render: (m) => (new Decimal(m.refunds).isZero() ? signed('0', m.currency) : `−${signed(m.refunds, m.currency)}`) },
+                {
+                  header: 'Refunds',
+                  figure: true,
+                  render: (m) => (new Decimal(m.refunds).isZero() ? signed('0', m.currency) : `−${signed(m.refunds, m.currency)}`),
+                },
                 { header: 'Net', figure: true, render: (m) => <strong>{signed(m.net, m.currency)}</strong> },
               ]}
               footer={[
@@ -102,7 +119,9 @@ export function OutstandingSection() {
       {data && (
         <>
           <Stack direction="row" gap={1} flexWrap="wrap" aria-label="Totals">
-            {data.totals.length === 0 && <Typography level="body-sm">Nothing is owed and nothing is held: every booking is square.</Typography>}
+            {data.totals.length === 0 && (
+              <Typography level="body-sm">Nothing is owed and nothing is held: every booking is square.</Typography>
+            )}
             {data.totals.map((t) => (
               <Chip key={`${t.kind}-${t.currency}`} variant="soft" color={t.kind === 'credit' ? 'warning' : 'primary'} size="lg">
                 {kindWords[t.kind]}: {formatMoney(t.amount, t.currency)} ({t.count} {t.count === 1 ? 'booking' : 'bookings'})
@@ -115,7 +134,14 @@ export function OutstandingSection() {
             rowKey={(i) => `${i.bookingId}-${i.kind}`}
             empty="Nothing outstanding."
             columns={[
-              { header: 'Reference', render: (i) => <Link component={RouterLink} to={i.kind === 'deposit' ? `/requests?open=${i.bookingId}` : `/builds/${i.bookingId}`}>{i.reference}</Link> },
+              {
+                header: 'Reference',
+                render: (i) => (
+                  <Link component={RouterLink} to={i.kind === 'deposit' ? `/requests?open=${i.bookingId}` : `/builds/${i.bookingId}`}>
+                    {i.reference}
+                  </Link>
+                ),
+              },
               { header: 'State', render: (i) => <StateChip state={i.state as BookingState} /> },
               { header: 'Customer', render: (i) => i.customerName },
               { header: 'Builder', render: (i) => i.builderName ?? '—' },
@@ -143,7 +169,9 @@ export function HoursSection({ range }: { range: DateRangeQuery | null }) {
       {report.isPending && range && <PageLoading />}
       {data && (
         <>
-          <Typography level="title-md" component="h3">Per builder</Typography>
+          <Typography level="title-md" component="h3">
+            Per builder
+          </Typography>
           <ReportTable<HoursBuilderRow>
             label="Hours per builder"
             rows={data.builders}
@@ -158,14 +186,23 @@ export function HoursSection({ range }: { range: DateRangeQuery | null }) {
               { header: 'Against the quote', figure: true, render: (r) => overWords(r.overQuote) },
             ]}
           />
-          <Typography level="title-md" component="h3">Per build</Typography>
+          <Typography level="title-md" component="h3">
+            Per build
+          </Typography>
           <ReportTable<HoursBuildRow>
             label="Hours per build"
             rows={data.builds}
             rowKey={(r) => r.bookingId}
             empty="No hours recorded in this range."
             columns={[
-              { header: 'Reference', render: (r) => <Link component={RouterLink} to={`/builds/${r.bookingId}`}>{r.reference}</Link> },
+              {
+                header: 'Reference',
+                render: (r) => (
+                  <Link component={RouterLink} to={`/builds/${r.bookingId}`}>
+                    {r.reference}
+                  </Link>
+                ),
+              },
               { header: 'State', render: (r) => <StateChip state={r.state as BookingState} /> },
               { header: 'Builder', render: (r) => r.builderName ?? '—' },
               { header: 'Quoted', figure: true, render: (r) => formatHours(r.quotedHours) },
@@ -204,7 +241,11 @@ export function UtilisationSection({ range }: { range: DateRangeQuery | null }) 
             { header: 'Booked', figure: true, render: (b) => formatHours(totalOf(b.weeks, 'bookedHours')) },
             { header: 'Booked %', figure: true, render: (b) => share(totalOf(b.weeks, 'bookedHours'), totalOf(b.weeks, 'capacityHours')) },
             { header: 'Recorded', figure: true, render: (b) => formatHours(totalOf(b.weeks, 'recordedHours')) },
-            { header: 'Recorded %', figure: true, render: (b) => share(totalOf(b.weeks, 'recordedHours'), totalOf(b.weeks, 'capacityHours')) },
+            {
+              header: 'Recorded %',
+              figure: true,
+              render: (b) => share(totalOf(b.weeks, 'recordedHours'), totalOf(b.weeks, 'capacityHours')),
+            },
           ]}
         />
       )}
@@ -217,20 +258,20 @@ export function UtilisationSection({ range }: { range: DateRangeQuery | null }) 
             <UtilisationChart builder={b} />
           </Suspense>
           <WeeklyFigures count={b.weeks.length}>
-          <ReportTable<UtilisationWeek>
-            label={`Bench utilisation of ${b.builderName}`}
-            rows={b.weeks}
-            rowKey={(w) => w.weekStart}
-            empty="No weeks in this range."
-            columns={[
-              { header: 'Week', render: (w) => `${w.isoWeek} · from ${formatDay(w.weekStart)}` },
-              { header: 'Capacity', figure: true, render: (w) => formatHours(w.capacityHours) },
-              { header: 'Booked', figure: true, render: (w) => formatHours(w.bookedHours) },
-              { header: 'Booked %', figure: true, render: (w) => (w.bookedPercent === null ? 'no bench' : `${w.bookedPercent} %`) },
-              { header: 'Recorded', figure: true, render: (w) => formatHours(w.recordedHours) },
-              { header: 'Recorded %', figure: true, render: (w) => (w.recordedPercent === null ? 'no bench' : `${w.recordedPercent} %`) },
-            ]}
-          />
+            <ReportTable<UtilisationWeek>
+              label={`Bench utilisation of ${b.builderName}`}
+              rows={b.weeks}
+              rowKey={(w) => w.weekStart}
+              empty="No weeks in this range."
+              columns={[
+                { header: 'Week', render: (w) => `${w.isoWeek} · from ${formatDay(w.weekStart)}` },
+                { header: 'Capacity', figure: true, render: (w) => formatHours(w.capacityHours) },
+                { header: 'Booked', figure: true, render: (w) => formatHours(w.bookedHours) },
+                { header: 'Booked %', figure: true, render: (w) => (w.bookedPercent === null ? 'no bench' : `${w.bookedPercent} %`) },
+                { header: 'Recorded', figure: true, render: (w) => formatHours(w.recordedHours) },
+                { header: 'Recorded %', figure: true, render: (w) => (w.recordedPercent === null ? 'no bench' : `${w.recordedPercent} %`) },
+              ]}
+            />
           </WeeklyFigures>
         </Stack>
       ))}
@@ -240,7 +281,8 @@ export function UtilisationSection({ range }: { range: DateRangeQuery | null }) 
 
 const totalOf = (weeks: UtilisationWeek[], key: 'capacityHours' | 'bookedHours' | 'recordedHours') =>
   weeks.reduce((s, w) => s.plus(w[key]), new Decimal(0)).toFixed(2);
-const share = (part: string, whole: string) => (new Decimal(whole).isZero() ? 'no bench' : `${new Decimal(part).div(whole).times(100).toFixed(1)} %`);
+const share = (part: string, whole: string) =>
+  new Decimal(whole).isZero() ? 'no bench' : `${new Decimal(part).div(whole).times(100).toFixed(1)} %`;
 
 /** The week-by-week table behind a button: a year is 53 rows per builder. */
 function WeeklyFigures({ count, children }: { count: number; children: ReactNode }) {

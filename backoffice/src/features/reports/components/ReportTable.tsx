@@ -9,7 +9,14 @@ export interface ReportColumn<Row> {
 }
 
 /** A plain table of report figures with an optional total row. */
-export function ReportTable<Row>({ label, columns, rows, rowKey, footer, empty }: {
+export function ReportTable<Row>({
+  label,
+  columns,
+  rows,
+  rowKey,
+  footer,
+  empty,
+}: {
   label: string;
   columns: ReportColumn<Row>[];
   rows: Row[];

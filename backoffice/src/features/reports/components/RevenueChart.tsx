@@ -13,7 +13,9 @@ export default function RevenueChart({ months, currency }: { months: RevenueMont
   const data = months
     .filter((m) => m.currency === currency)
     .map((m) => ({
-      month: formatMonth(`${m.month}-01`).replace(/ (\d{4})$/, ' ’$1').replace('’20', '’'),
+      month: formatMonth(`${m.month}-01`)
+        .replace(/ (\d{4})$/, ' ’$1')
+        .replace('’20', '’'),
       Deposits: Number(m.deposits),
       Balances: Number(m.balances),
       Refunds: -Number(m.refunds),

@@ -10,10 +10,7 @@ export const useAcceptBooking = () => {
   return useMutation({
     mutationFn: ({ id, body }: { id: string; body: AcceptBookingRequest }) => acceptBooking(id, body),
     onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: ['bookings'] }),
-        queryClient.invalidateQueries({ queryKey: ['bench'] }),
-      ]),
+      Promise.all([queryClient.invalidateQueries({ queryKey: ['bookings'] }), queryClient.invalidateQueries({ queryKey: ['bench'] })]),
     // Someone else took those hours meanwhile: read the bench again so the dialog offers what is free now.
     onError: (error) => {
       if (hasErrorCode(error, 'bench_time_taken')) void queryClient.invalidateQueries({ queryKey: ['bench'] });

@@ -65,8 +65,8 @@ export function DeclineDialog({
           <DialogContent sx={{ gap: 1.5 }}>
             {paid && isOwner && (
               <Alert color="warning" variant="soft">
-                This request is paid. Declining it refunds the deposit of{' '}
-                {booking && formatMoney(booking.deposit, booking.currency)} to the player through the payment provider.
+                This request is paid. Declining it refunds the deposit of {booking && formatMoney(booking.deposit, booking.currency)} to the
+                player through the payment provider.
               </Alert>
             )}
             {paid && !isOwner && (

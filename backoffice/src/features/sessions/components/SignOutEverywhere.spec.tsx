@@ -6,11 +6,27 @@ import { theme } from 'src/theme';
 import { SignOutEverywhere } from './SignOutEverywhere';
 
 // jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= ((query: string) =>
-  ({ matches: false, media: query, onchange: null, addListener() {}, removeListener() {}, addEventListener() {}, removeEventListener() {}, dispatchEvent: () => false }) as MediaQueryList);
+window.matchMedia ??= (query: string) =>
+  ({
+    matches: false,
+    media: query,
+    onchange: null,
+    addListener() {},
+    removeListener() {},
+    addEventListener() {},
+    removeEventListener() {},
+    dispatchEvent: () => false,
+  }) as MediaQueryList;
 
-const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
-const session = (id: string, device: string) => ({ id, startedAt: '2026-12-01T10:00:00Z', lastRenewedAt: '2026-12-01T10:20:00Z', expiresAt: '2026-12-01T10:50:00Z', device });
+const json = (status: number, body: unknown) =>
+  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+const session = (id: string, device: string) => ({
+  id,
+  startedAt: '2026-12-01T10:00:00Z',
+  lastRenewedAt: '2026-12-01T10:20:00Z',
+  expiresAt: '2026-12-01T10:50:00Z',
+  device,
+});
 
 describe('sign a person out of every device', () => {
   afterEach(() => {

@@ -16,10 +16,21 @@ import { useAddClosure } from '../api/add-closure';
 import { useRemoveClosure } from '../api/remove-closure';
 
 /** Shop-wide closed days: no builder has bench time on them. */
-export function ClosuresList({ settings, canEdit, onSaved }: { settings: ShopSettingsView; canEdit: boolean; onSaved: (m: string) => void }) {
+export function ClosuresList({
+  settings,
+  canEdit,
+  onSaved,
+}: {
+  settings: ShopSettingsView;
+  canEdit: boolean;
+  onSaved: (m: string) => void;
+}) {
   const add = useAddClosure();
   const remove = useRemoveClosure();
-  const form = useForm<CreateClosureInput>({ resolver: zodResolver(createClosureSchema), defaultValues: { startsOn: '', endsOn: '', reason: '' } });
+  const form = useForm<CreateClosureInput>({
+    resolver: zodResolver(createClosureSchema),
+    defaultValues: { startsOn: '', endsOn: '', reason: '' },
+  });
   const e = form.formState.errors;
   const firstError = e.startsOn?.message ?? e.endsOn?.message ?? e.reason?.message;
   const [hit, setHit] = useState<{ builds: HitBuild[]; reason: string } | null>(null);
@@ -75,7 +86,10 @@ export function ClosuresList({ settings, canEdit, onSaved }: { settings: ShopSet
               onSuccess: (added) => {
                 form.reset();
                 const clash = added.buildsOnBenchThen;
-                setHit({ builds: clash, reason: `The shop is closed on ${formatDay(added.startsOn)}${added.endsOn !== added.startsOn ? ` to ${formatDay(added.endsOn)}` : ''} (${added.reason}).` });
+                setHit({
+                  builds: clash,
+                  reason: `The shop is closed on ${formatDay(added.startsOn)}${added.endsOn !== added.startsOn ? ` to ${formatDay(added.endsOn)}` : ''} (${added.reason}).`,
+                });
                 onSaved(
                   clash.length === 0
                     ? 'Closure added; the bench skips those days.'

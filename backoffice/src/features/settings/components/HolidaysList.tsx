@@ -14,15 +14,23 @@ import { useChooseHoliday } from '../api/choose-holiday';
  * The coming public holidays of the shop's country, each closed on the bench unless the owner
  * switches it off (the shop works that day), with the latest such choices below.
  */
-export function HolidaysList({ settings, canEdit, onSaved }: { settings: ShopSettingsView; canEdit: boolean; onSaved: (m: string) => void }) {
+export function HolidaysList({
+  settings,
+  canEdit,
+  onSaved,
+}: {
+  settings: ShopSettingsView;
+  canEdit: boolean;
+  onSaved: (m: string) => void;
+}) {
   const choose = useChooseHoliday();
   const [hit, setHit] = useState<{ builds: HitBuild[]; reason: string } | null>(null);
   const country = new Intl.DisplayNames(['en'], { type: 'region' }).of(settings.countryCode) ?? settings.countryCode;
   return (
     <Stack gap={1}>
       <Typography level="body-xs">
-        From the date-holidays dataset for {country}. The bench is closed on each one; switch a holiday to “Open” when the shop
-        works that day, and builders get their usual hours then.
+        From the date-holidays dataset for {country}. The bench is closed on each one; switch a holiday to “Open” when the shop works that
+        day, and builders get their usual hours then.
       </Typography>
       {settings.upcomingHolidays.length === 0 ? (
         <Typography level="body-sm">No public-holiday data for this country: add the days the shop closes under Closures.</Typography>
@@ -50,7 +58,11 @@ export function HolidaysList({ settings, canEdit, onSaved }: { settings: ShopSet
                           {
                             onSuccess: (answer) => {
                               const clash = answer.buildsOnBenchThen;
-                              setHit(answer.shopWorks || clash.length === 0 ? null : { builds: clash, reason: `The shop is closed on ${formatDay(h.date)} (${h.name}).` });
+                              setHit(
+                                answer.shopWorks || clash.length === 0
+                                  ? null
+                                  : { builds: clash, reason: `The shop is closed on ${formatDay(h.date)} (${h.name}).` },
+                              );
                               onSaved(
                                 answer.shopWorks
                                   ? `${h.name} (${formatDay(h.date)}) is a working day: the bench is open.`
@@ -81,7 +93,8 @@ export function HolidaysList({ settings, canEdit, onSaved }: { settings: ShopSet
           </Typography>
           {settings.holidayHistory.map((c) => (
             <Typography level="body-xs" key={`${c.day}-${c.decidedAt}`}>
-              {formatStamp(c.decidedAt)}: {c.decidedBy ?? 'A former team member'} {c.shopWorks ? 'opened the bench on' : 'closed the bench again on'} {c.name}, {formatDay(c.day)}.
+              {formatStamp(c.decidedAt)}: {c.decidedBy ?? 'A former team member'}{' '}
+              {c.shopWorks ? 'opened the bench on' : 'closed the bench again on'} {c.name}, {formatDay(c.day)}.
             </Typography>
           ))}
         </Stack>

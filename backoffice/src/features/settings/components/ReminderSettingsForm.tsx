@@ -6,7 +6,12 @@ import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
 import Switch from '@mui/joy/Switch';
 import Typography from '@mui/joy/Typography';
-import { reminderSettingsFormSchema, type ReminderSettingsFormInput, type ReminderSettingsView, type UpdateReminderSettingsInput } from '@loomwright/shared';
+import {
+  reminderSettingsFormSchema,
+  type ReminderSettingsFormInput,
+  type ReminderSettingsView,
+  type UpdateReminderSettingsInput,
+} from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect } from 'react';
 import { Controller, useForm, type FieldPath } from 'react-hook-form';
@@ -71,7 +76,9 @@ const asForm = (view: ReminderSettingsView): ReminderSettingsFormInput => ({
 export function ReminderSettingsForm({ canEdit, onSaved }: { canEdit: boolean; onSaved: (message: string) => void }) {
   const settings = useReminderSettings();
   const update = useUpdateReminderSettings();
-  const form = useForm<ReminderSettingsFormInput, unknown, UpdateReminderSettingsInput>({ resolver: zodResolver(reminderSettingsFormSchema) as never });
+  const form = useForm<ReminderSettingsFormInput, unknown, UpdateReminderSettingsInput>({
+    resolver: zodResolver(reminderSettingsFormSchema) as never,
+  });
   useEffect(() => {
     if (settings.data) form.reset(asForm(settings.data));
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -104,7 +111,13 @@ export function ReminderSettingsForm({ canEdit, onSaved }: { canEdit: boolean; o
                   <Typography
                     component="label"
                     level="title-sm"
-                    startDecorator={<Switch checked={Boolean(field.value)} disabled={!canEdit} onChange={(event) => field.onChange(event.target.checked)} />}
+                    startDecorator={
+                      <Switch
+                        checked={Boolean(field.value)}
+                        disabled={!canEdit}
+                        onChange={(event) => field.onChange(event.target.checked)}
+                      />
+                    }
                   >
                     {row.title}: {field.value ? 'on' : 'off'}
                   </Typography>

@@ -30,7 +30,8 @@ const blankAddress = { line1: '', line2: '', city: '', region: '', postalCode: '
  */
 const formSchema = shopDetailsSchema.extend({
   postalAddress: z.preprocess(
-    (value) => (value && typeof value === 'object' && Object.values(value).every((v) => typeof v !== 'string' || v.trim() === '') ? undefined : value),
+    (value) =>
+      value && typeof value === 'object' && Object.values(value).every((v) => typeof v !== 'string' || v.trim() === '') ? undefined : value,
     postalAddressSchema.optional(),
   ),
 });
@@ -48,7 +49,15 @@ const countryName = (code: string) => {
   }
 };
 
-export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: ShopSettingsView; canEdit: boolean; onSaved: (m: string) => void }) {
+export function ShopDetailsForm({
+  settings,
+  canEdit,
+  onSaved,
+}: {
+  settings: ShopSettingsView;
+  canEdit: boolean;
+  onSaved: (m: string) => void;
+}) {
   const update = useUpdateSettings();
   const form = useForm<FormValues>({ resolver: zodResolver(formSchema) as never });
   const countries = useMemo(() => countryCodes().sort((a, b) => countryName(a).localeCompare(countryName(b), 'en')), []);
@@ -70,11 +79,20 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: Shop
     });
   }, [settings, resetForm]);
   const e = form.formState.errors;
-  const errorOf = (name: FieldPath<FormValues>) => name.split('.').reduce<unknown>((node, key) => (node as Record<string, unknown> | undefined)?.[key], e) as { message?: string } | undefined;
-  const field = (name: FieldPath<FormValues>, label: string, options: { hint?: string; list?: string; autoComplete?: string; minWidth?: number } = {}) => (
+  const errorOf = (name: FieldPath<FormValues>) =>
+    name.split('.').reduce<unknown>((node, key) => (node as Record<string, unknown> | undefined)?.[key], e) as
+      { message?: string } | undefined;
+  const field = (
+    name: FieldPath<FormValues>,
+    label: string,
+    options: { hint?: string; list?: string; autoComplete?: string; minWidth?: number } = {},
+  ) => (
     <FormControl error={Boolean(errorOf(name))} disabled={!canEdit} sx={{ minWidth: options.minWidth ?? 220, flex: 1 }}>
       <FormLabel>{label}</FormLabel>
-      <Input {...form.register(name)} slotProps={{ input: { ...(options.list ? { list: options.list } : {}), autoComplete: options.autoComplete } }} />
+      <Input
+        {...form.register(name)}
+        slotProps={{ input: { ...(options.list ? { list: options.list } : {}), autoComplete: options.autoComplete } }}
+      />
       <FormHelperText>{errorOf(name)?.message ?? options.hint}</FormHelperText>
     </FormControl>
   );
@@ -83,7 +101,9 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: Shop
       component="form"
       gap={1}
       noValidate
-      onSubmit={form.handleSubmit((values) => update.mutate(values as unknown as ShopDetailsInput, { onSuccess: () => onSaved('Shop details saved.') }))}
+      onSubmit={form.handleSubmit((values) =>
+        update.mutate(values as unknown as ShopDetailsInput, { onSuccess: () => onSaved('Shop details saved.') }),
+      )}
     >
       <Stack direction="row" gap={1.5} flexWrap="wrap">
         {field('name', 'Shop name', { autoComplete: 'organization' })}
@@ -106,7 +126,9 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: Shop
                 disableClearable
                 slotProps={{ input: { 'aria-label': 'Country' } }}
               />
-              <FormHelperText>{fieldState.error?.message ?? 'The bench skips this country’s public holidays; the paper size follows it.'}</FormHelperText>
+              <FormHelperText>
+                {fieldState.error?.message ?? 'The bench skips this country’s public holidays; the paper size follows it.'}
+              </FormHelperText>
             </FormControl>
           )}
         />
@@ -125,11 +147,16 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: Shop
                 disableClearable
                 slotProps={{ input: { 'aria-label': 'Time zone' } }}
               />
-              <FormHelperText>{fieldState.error?.message ?? 'Every date and time in both apps, the mails and the paper is shown in this zone.'}</FormHelperText>
+              <FormHelperText>
+                {fieldState.error?.message ?? 'Every date and time in both apps, the mails and the paper is shown in this zone.'}
+              </FormHelperText>
             </FormControl>
           )}
         />
-        {field('locale', 'Language and region', { hint: 'How money, dates and times are written everywhere, e.g. en-US or de-DE.', list: 'shop-locales' })}
+        {field('locale', 'Language and region', {
+          hint: 'How money, dates and times are written everywhere, e.g. en-US or de-DE.',
+          list: 'shop-locales',
+        })}
       </Stack>
       <datalist id="shop-locales">
         {commonShopLocales.map((tag) => (
@@ -151,7 +178,11 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: { settings: Shop
       </Stack>
       <Stack direction="row" gap={1.5} flexWrap="wrap">
         {field('postalAddress.city', 'Town or city', { autoComplete: 'address-level2', minWidth: 180 })}
-        {field('postalAddress.region', 'State or region', { hint: 'Optional where the country has none.', autoComplete: 'address-level1', minWidth: 160 })}
+        {field('postalAddress.region', 'State or region', {
+          hint: 'Optional where the country has none.',
+          autoComplete: 'address-level1',
+          minWidth: 160,
+        })}
         {field('postalAddress.postalCode', 'Postal code', { autoComplete: 'postal-code', minWidth: 140 })}
       </Stack>
       <Typography level="body-xs">Currency: {settings.currency} (set by the price book).</Typography>

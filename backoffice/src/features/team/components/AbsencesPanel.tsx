@@ -74,7 +74,12 @@ export function AbsencesPanel({ team, canEdit, onSaved }: { team: TeamMember[]; 
                 <td>{a.reason}</td>
                 {canEdit && (
                   <td>
-                    <Button size="sm" variant="plain" color="danger" onClick={() => remove.mutate(a.id, { onSuccess: () => onSaved('Absence removed.') })}>
+                    <Button
+                      size="sm"
+                      variant="plain"
+                      color="danger"
+                      onClick={() => remove.mutate(a.id, { onSuccess: () => onSaved('Absence removed.') })}
+                    >
                       Remove
                     </Button>
                   </td>
@@ -90,7 +95,13 @@ export function AbsencesPanel({ team, canEdit, onSaved }: { team: TeamMember[]; 
         <Stack direction="row" gap={1} alignItems="flex-end" flexWrap="wrap">
           <FormControl size="sm">
             <FormLabel id="absence-builder">Builder</FormLabel>
-            <Select size="sm" aria-labelledby="absence-builder" value={builderId} onChange={(_, v) => setBuilderId(v)} sx={{ minWidth: 180 }}>
+            <Select
+              size="sm"
+              aria-labelledby="absence-builder"
+              value={builderId}
+              onChange={(_, v) => setBuilderId(v)}
+              sx={{ minWidth: 180 }}
+            >
               {team.map((m) => (
                 <Option key={m.id} value={m.id}>
                   {m.name}

@@ -13,7 +13,14 @@ import Select from '@mui/joy/Select';
 import Stack from '@mui/joy/Stack';
 import Switch from '@mui/joy/Switch';
 import Typography from '@mui/joy/Typography';
-import { builderLevels, teamMemberFormSchema, type TeamMember, type TeamMemberFormInput, type TeamMemberFormOutput, type WeeklyHours } from '@loomwright/shared';
+import {
+  builderLevels,
+  teamMemberFormSchema,
+  type TeamMember,
+  type TeamMemberFormInput,
+  type TeamMemberFormOutput,
+  type WeeklyHours,
+} from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect } from 'react';
 import { Controller, useForm } from 'react-hook-form';
@@ -21,7 +28,13 @@ import { ErrorNote } from 'src/components/ErrorNote';
 import { useUpdateTeamMember } from '../api/update-team-member';
 
 export const weekdays = [
-  ['1', 'Mon'], ['2', 'Tue'], ['3', 'Wed'], ['4', 'Thu'], ['5', 'Fri'], ['6', 'Sat'], ['7', 'Sun'],
+  ['1', 'Mon'],
+  ['2', 'Tue'],
+  ['3', 'Wed'],
+  ['4', 'Thu'],
+  ['5', 'Fri'],
+  ['6', 'Sat'],
+  ['7', 'Sun'],
 ] as const;
 
 const toForm = (m: TeamMember): TeamMemberFormInput => ({
@@ -32,7 +45,15 @@ const toForm = (m: TeamMember): TeamMemberFormInput => ({
 });
 
 /** The owner sets a builder's level, rate and bench hours; the bench and suggestions follow. */
-export function TeamMemberDialog({ member, onClose, onSaved }: { member: TeamMember | null; onClose: () => void; onSaved: (m: string) => void }) {
+export function TeamMemberDialog({
+  member,
+  onClose,
+  onSaved,
+}: {
+  member: TeamMember | null;
+  onClose: () => void;
+  onSaved: (m: string) => void;
+}) {
   const update = useUpdateTeamMember();
   const form = useForm<TeamMemberFormInput, unknown, TeamMemberFormOutput>({ resolver: zodResolver(teamMemberFormSchema) });
   // useForm returns the same form object on every render, and a mutation's reset is stable.

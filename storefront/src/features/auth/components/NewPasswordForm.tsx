@@ -22,7 +22,11 @@ export function NewPasswordForm({ submitLabel, pending, error, onSubmit }: Props
   return (
     <form onSubmit={handleSubmit((v) => onSubmit(v.password))} noValidate aria-label="Choose a new password">
       <Stack gap={2}>
-        {error && <Alert color="danger" role="alert">{error.message}</Alert>}
+        {error && (
+          <Alert color="danger" role="alert">
+            {error.message}
+          </Alert>
+        )}
         <FormTextField
           label="New password"
           type="password"
@@ -32,8 +36,16 @@ export function NewPasswordForm({ submitLabel, pending, error, onSubmit }: Props
           error={formState.errors.password}
           hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
         />
-        <FormTextField label="New password again" type="password" autoComplete="new-password" registration={register('repeatPassword')} error={formState.errors.repeatPassword} />
-        <Button type="submit" loading={pending}>{submitLabel}</Button>
+        <FormTextField
+          label="New password again"
+          type="password"
+          autoComplete="new-password"
+          registration={register('repeatPassword')}
+          error={formState.errors.repeatPassword}
+        />
+        <Button type="submit" loading={pending}>
+          {submitLabel}
+        </Button>
       </Stack>
     </form>
   );

@@ -18,20 +18,47 @@ interface Props {
 
 export function SignInForm({ onSignedIn, signUpHref, forgotHref }: Props) {
   const signIn = useSignIn();
-  const { register, handleSubmit, formState } = useForm({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
+  const { register, handleSubmit, formState } = useForm({
+    resolver: zodResolver(signInSchema),
+    defaultValues: { email: '', password: '' },
+  });
   const onSubmit = handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }));
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Sign in">
       <Stack gap={2}>
-        {signIn.error && <Alert color="danger" role="alert">{signIn.error.message}</Alert>}
-        <FormTextField label="E-mail" type="email" autoComplete="email" autoFocus registration={register('email')} error={formState.errors.email} />
-        <FormTextField label="Password" type="password" autoComplete="current-password" registration={register('password')} error={formState.errors.password} />
-        <Button type="submit" loading={signIn.isPending}>Sign in</Button>
+        {signIn.error && (
+          <Alert color="danger" role="alert">
+            {signIn.error.message}
+          </Alert>
+        )}
+        <FormTextField
+          label="E-mail"
+          type="email"
+          autoComplete="email"
+          autoFocus
+          registration={register('email')}
+          error={formState.errors.email}
+        />
+        <FormTextField
+          label="Password"
+          type="password"
+          autoComplete="current-password"
+          registration={register('password')}
+          error={formState.errors.password}
+        />
+        <Button type="submit" loading={signIn.isPending}>
+          Sign in
+        </Button>
         <Typography level="body-sm">
-          <Link component={RouterLink} to={forgotHref}>Forgot your password?</Link>
+          <Link component={RouterLink} to={forgotHref}>
+            Forgot your password?
+          </Link>
         </Typography>
         <Typography level="body-sm">
-          New here? <Link component={RouterLink} to={signUpHref}>Create an account</Link>
+          New here?{' '}
+          <Link component={RouterLink} to={signUpHref}>
+            Create an account
+          </Link>
         </Typography>
       </Stack>
     </form>

@@ -27,14 +27,23 @@ export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void;
               {hasErrorCode(signUp.error, 'email_taken') && (
                 <>
                   {' '}
-                  <Link component={RouterLink} to={signInHref}>Sign in instead</Link>
+                  <Link component={RouterLink} to={signInHref}>
+                    Sign in instead
+                  </Link>
                 </>
               )}
             </span>
           </Alert>
         )}
         <FormTextField label="Your name" autoComplete="name" autoFocus registration={register('name')} error={formState.errors.name} />
-        <FormTextField label="E-mail" type="email" autoComplete="email" registration={register('email')} error={formState.errors.email} hint="We send your quote, bench date and build updates here." />
+        <FormTextField
+          label="E-mail"
+          type="email"
+          autoComplete="email"
+          registration={register('email')}
+          error={formState.errors.email}
+          hint="We send your quote, bench date and build updates here."
+        />
         <FormTextField
           label="Password"
           type="password"
@@ -43,9 +52,14 @@ export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void;
           error={formState.errors.password}
           hint={`At least ${PASSWORD_MIN_LENGTH} characters; a short sentence works well.`}
         />
-        <Button type="submit" loading={signUp.isPending}>Create account</Button>
+        <Button type="submit" loading={signUp.isPending}>
+          Create account
+        </Button>
         <Typography level="body-sm">
-          Already have an account? <Link component={RouterLink} to={signInHref}>Sign in</Link>
+          Already have an account?{' '}
+          <Link component={RouterLink} to={signInHref}>
+            Sign in
+          </Link>
         </Typography>
       </Stack>
     </form>

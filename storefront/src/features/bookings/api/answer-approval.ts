@@ -4,7 +4,9 @@ import { api } from 'src/lib/api-client';
 import { bookingKeys } from './booking-keys';
 
 /** The player's yes or no to an extra (with its price) or to the waiting layout, with an optional comment. */
-export type ApprovalAnswer = { bookingId: string; comment?: string; approve: boolean } & ({ kind: 'extra'; extraId: string } | { kind: 'layout' });
+export type ApprovalAnswer = { bookingId: string; comment?: string; approve: boolean } & (
+  { kind: 'extra'; extraId: string } | { kind: 'layout' }
+);
 
 export const answerApproval = (answer: ApprovalAnswer): Promise<ExtraView | BookingStateResponse> => {
   const body: DecideExtraInput = { approve: answer.approve, ...(answer.comment ? { comment: answer.comment } : {}) };

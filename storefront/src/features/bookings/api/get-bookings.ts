@@ -7,6 +7,10 @@ export const getBookings = (params: { page: number; pageSize: number }, signal?:
   api.get<Page<BookingSummary>>('/bookings', { query: { ...params, sort: 'created_at', order: 'desc' }, signal });
 
 export const bookingsQueryOptions = (params: { page: number; pageSize: number }) =>
-  queryOptions({ queryKey: bookingKeys.list(params), queryFn: ({ signal }) => getBookings(params, signal), placeholderData: keepPreviousData });
+  queryOptions({
+    queryKey: bookingKeys.list(params),
+    queryFn: ({ signal }) => getBookings(params, signal),
+    placeholderData: keepPreviousData,
+  });
 
 export const useBookings = (params: { page: number; pageSize: number }) => useQuery(bookingsQueryOptions(params));

@@ -20,7 +20,8 @@ function decisionWords(d: DecisionView) {
 function AnswerButtons({ bookingId, question, label }: { bookingId: string; question: Question; label: string }) {
   const answer = useAnswerApproval();
   const [comment, setComment] = useState('');
-  const send = (approve: boolean) => answer.mutate({ bookingId, approve, comment: comment.trim() || undefined, ...question } as ApprovalAnswer);
+  const send = (approve: boolean) =>
+    answer.mutate({ bookingId, approve, comment: comment.trim() || undefined, ...question } as ApprovalAnswer);
   return (
     <Stack gap={1}>
       <Textarea
@@ -31,14 +32,29 @@ function AnswerButtons({ bookingId, question, label }: { bookingId: string; ques
         slotProps={{ textarea: { 'aria-label': `Comment on ${label}`, maxLength: 1000 } }}
       />
       <Stack direction="row" gap={1} flexWrap="wrap">
-        <Button color="accent" loading={answer.isPending && answer.variables?.approve === true} disabled={answer.isPending} onClick={() => send(true)}>
+        <Button
+          color="accent"
+          loading={answer.isPending && answer.variables?.approve === true}
+          disabled={answer.isPending}
+          onClick={() => send(true)}
+        >
           Approve
         </Button>
-        <Button variant="outlined" color="neutral" loading={answer.isPending && answer.variables?.approve === false} disabled={answer.isPending} onClick={() => send(false)}>
+        <Button
+          variant="outlined"
+          color="neutral"
+          loading={answer.isPending && answer.variables?.approve === false}
+          disabled={answer.isPending}
+          onClick={() => send(false)}
+        >
           Decline
         </Button>
       </Stack>
-      {answer.error && <Alert color="danger" role="alert">{answer.error.message}</Alert>}
+      {answer.error && (
+        <Alert color="danger" role="alert">
+          {answer.error.message}
+        </Alert>
+      )}
     </Stack>
   );
 }

@@ -23,16 +23,30 @@ export function CancelBooking({ bookingId, depositPaid }: { bookingId: string; d
       <Typography level="body-sm">
         {depositPaid ? 'Your deposit will be refunded to the card you paid with.' : 'No payment has been taken, so nothing is charged.'}
       </Typography>
-      <Textarea minRows={2} placeholder="Why are you cancelling? (optional)" value={reason} onChange={(e) => setReason(e.target.value)} slotProps={{ textarea: { 'aria-label': 'Reason for cancelling', maxLength: 1000 } }} />
+      <Textarea
+        minRows={2}
+        placeholder="Why are you cancelling? (optional)"
+        value={reason}
+        onChange={(e) => setReason(e.target.value)}
+        slotProps={{ textarea: { 'aria-label': 'Reason for cancelling', maxLength: 1000 } }}
+      />
       <Stack direction="row" gap={1}>
-        <Button color="danger" loading={cancel.isPending} onClick={() => cancel.mutate({ id: bookingId, reason: reason.trim() || undefined })}>
+        <Button
+          color="danger"
+          loading={cancel.isPending}
+          onClick={() => cancel.mutate({ id: bookingId, reason: reason.trim() || undefined })}
+        >
           Yes, cancel the request
         </Button>
         <Button variant="plain" onClick={() => setConfirming(false)}>
           Keep it
         </Button>
       </Stack>
-      {cancel.error && <Alert color="danger" role="alert">{cancel.error.message}</Alert>}
+      {cancel.error && (
+        <Alert color="danger" role="alert">
+          {cancel.error.message}
+        </Alert>
+      )}
     </Stack>
   );
 }

@@ -36,10 +36,14 @@ export function PaymentsList({ payments }: { payments: PaymentView[] }) {
                 <Typography level="body-xs">Refund asked for; we e-mail you once the money is on its way.</Typography>
               )}
               {p.status === 'paid' && (p.refundStatus === 'failed' || p.refundStatus === 'canceled') && (
-                <Typography level="body-xs" color="warning">The refund did not go through; the shop has been told and will be in touch.</Typography>
+                <Typography level="body-xs" color="warning">
+                  The refund did not go through; the shop has been told and will be in touch.
+                </Typography>
               )}
               {p.dispute && !['won', 'warning_closed'].includes(p.dispute.status) && (
-                <Typography level="body-xs" color="warning">Disputed with your bank; the shop will be in touch about this build.</Typography>
+                <Typography level="body-xs" color="warning">
+                  Disputed with your bank; the shop will be in touch about this build.
+                </Typography>
               )}
               {p.failureMessage && p.status !== 'paid' && (
                 <Typography level="body-xs" color="danger">

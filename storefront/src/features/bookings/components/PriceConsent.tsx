@@ -20,11 +20,14 @@ export function PriceConsent({ booking }: { booking: BookingDetail }) {
         <Typography level="body-sm">
           Your estimate was up to {formatAmount(booking.totalHigh, booking.currency)}; the firm total is{' '}
           <b>{formatAmount(booking.firmTotal ?? '0', booking.currency)}</b>.
-          {booking.levelOverrideReason ? ` The shop says: ${booking.levelOverrideReason}` : ''} Do you want to keep the build at this price? If
-          not, it is cancelled and your whole deposit is refunded.
+          {booking.levelOverrideReason ? ` The shop says: ${booking.levelOverrideReason}` : ''} Do you want to keep the build at this price?
+          If not, it is cancelled and your whole deposit is refunded.
         </Typography>
         <Stack direction="row" gap={1} flexWrap="wrap">
-          <Button loading={decide.isPending && decide.variables?.accept === true} onClick={() => decide.mutate({ id: booking.id, accept: true })}>
+          <Button
+            loading={decide.isPending && decide.variables?.accept === true}
+            onClick={() => decide.mutate({ id: booking.id, accept: true })}
+          >
             Keep the build at this price
           </Button>
           <Button
@@ -36,7 +39,11 @@ export function PriceConsent({ booking }: { booking: BookingDetail }) {
             Cancel with a full refund
           </Button>
         </Stack>
-        {decide.error && <Typography role="alert" level="body-sm">{decide.error.message}</Typography>}
+        {decide.error && (
+          <Typography role="alert" level="body-sm">
+            {decide.error.message}
+          </Typography>
+        )}
       </Stack>
     </Alert>
   );

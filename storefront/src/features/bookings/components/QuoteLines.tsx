@@ -8,7 +8,11 @@ export function QuoteLines({ quote }: { quote: QuoteView }) {
   const c = quote.currency;
   return (
     <>
-      <Table size="sm" aria-label={quote.kind === 'firm' ? 'Firm quote' : 'Estimate'} sx={{ fontVariantNumeric: 'tabular-nums', '& td:last-child, & th:last-child': { textAlign: 'right' } }}>
+      <Table
+        size="sm"
+        aria-label={quote.kind === 'firm' ? 'Firm quote' : 'Estimate'}
+        sx={{ fontVariantNumeric: 'tabular-nums', '& td:last-child, & th:last-child': { textAlign: 'right' } }}
+      >
         <thead>
           <tr>
             <th>Item</th>
@@ -20,10 +24,10 @@ export function QuoteLines({ quote }: { quote: QuoteView }) {
           {quote.lines.map((line) => (
             <tr key={line.code}>
               <td>{line.label}</td>
+              <td>{quantityWithUnit(line.quantity, line.unit)}</td>
               <td>
-                {quantityWithUnit(line.quantity, line.unit)}
+                {line.amountHigh && quote.kind === 'estimate' ? formatRange(line.amount, line.amountHigh, c) : formatAmount(line.amount, c)}
               </td>
-              <td>{line.amountHigh && quote.kind === 'estimate' ? formatRange(line.amount, line.amountHigh, c) : formatAmount(line.amount, c)}</td>
             </tr>
           ))}
         </tbody>
@@ -39,8 +43,8 @@ export function QuoteLines({ quote }: { quote: QuoteView }) {
         </tfoot>
       </Table>
       <Typography level="body-xs" sx={{ mt: 1 }}>
-        Priced from price book version {quote.priceBookVersion}; this {quote.kind === 'firm' ? 'quote' : 'estimate'} holds until {formatDay(quote.expiresAt.slice(0, 10))}.
-        Pedals, the power supply and any switcher are yours and not included.
+        Priced from price book version {quote.priceBookVersion}; this {quote.kind === 'firm' ? 'quote' : 'estimate'} holds until{' '}
+        {formatDay(quote.expiresAt.slice(0, 10))}. Pedals, the power supply and any switcher are yours and not included.
       </Typography>
     </>
   );

@@ -18,8 +18,8 @@ export function ShipmentForm({ bookingId, current }: { bookingId: string; curren
   return (
     <Stack component="form" gap={1.5} noValidate onSubmit={form.handleSubmit((values) => record.mutate({ id: bookingId, ...values }))}>
       <Typography level="body-sm">
-        Pack each pedal separately, take out any batteries, and label the power supply and any switcher. Unplug the supply
-        from the mains before packing; never ship anything still connected.
+        Pack each pedal separately, take out any batteries, and label the power supply and any switcher. Unplug the supply from the mains
+        before packing; never ship anything still connected.
       </Typography>
       <Stack direction={{ xs: 'column', sm: 'row' }} gap={1.5}>
         <FormControl error={!!errors.carrier} sx={{ flex: 1 }}>
@@ -36,8 +36,16 @@ export function ShipmentForm({ bookingId, current }: { bookingId: string; curren
       <Button type="submit" variant="outlined" loading={record.isPending} sx={{ alignSelf: 'flex-start' }}>
         {current ? 'Update tracking' : 'Save tracking'}
       </Button>
-      {record.isSuccess && <Typography role="status" level="body-sm">Saved. The shop will check the parcel in when it arrives.</Typography>}
-      {record.error && <Alert color="danger" role="alert">{record.error.message}</Alert>}
+      {record.isSuccess && (
+        <Typography role="status" level="body-sm">
+          Saved. The shop will check the parcel in when it arrives.
+        </Typography>
+      )}
+      {record.error && (
+        <Alert color="danger" role="alert">
+          {record.error.message}
+        </Alert>
+      )}
     </Stack>
   );
 }

@@ -9,9 +9,7 @@ export function StatusTimeline({ events }: { events: BookingEventView[] }) {
     <List component="ol" aria-label="Status history" sx={{ '--ListItem-paddingX': 0 }}>
       {events.map((event) => (
         <ListItem key={event.id} sx={{ display: 'block', borderLeft: '3px solid', borderColor: 'primary.300', pl: 2, mb: 1 }}>
-          <Typography level="title-sm">
-            {event.fromState === event.toState ? 'Note' : bookingStateLabels[event.toState]}
-          </Typography>
+          <Typography level="title-sm">{event.fromState === event.toState ? 'Note' : bookingStateLabels[event.toState]}</Typography>
           <Typography level="body-sm">
             {formatMoment(event.at)} · {event.actor}
           </Typography>

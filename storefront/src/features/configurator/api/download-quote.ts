@@ -19,7 +19,10 @@ export async function downloadQuote(configuration: RigConfiguration): Promise<Bl
     throw new ApiError(0, 'The shop could not be reached; check your connection and try again.');
   }
   if (!response.ok) {
-    throw apiErrorFrom(response.status, await response.json().catch(() => ({ message: `The quote could not be made (HTTP ${response.status}).` })));
+    throw apiErrorFrom(
+      response.status,
+      await response.json().catch(() => ({ message: `The quote could not be made (HTTP ${response.status}).` })),
+    );
   }
   return response.blob();
 }

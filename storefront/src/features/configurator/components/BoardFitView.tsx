@@ -8,19 +8,18 @@ import { CheckStatusChip } from './CheckStatus';
 
 export function BoardFitView({ fit, catalog }: { fit: BoardFit; catalog: Catalog }) {
   const surface = catalog.surfaces.find((s) => s.id === fit.surfaceId);
-  const suggestion = fit.smallestFittingSurfaceId
-    ? catalog.surfaces.find((s) => s.id === fit.smallestFittingSurfaceId)
-    : undefined;
+  const suggestion = fit.smallestFittingSurfaceId ? catalog.surfaces.find((s) => s.id === fit.smallestFittingSurfaceId) : undefined;
   return (
     <Box>
       <Box sx={{ display: 'flex', alignItems: 'center', gap: 1, flexWrap: 'wrap' }}>
-        <Typography level="title-md" component="h3">Board fit</Typography>
+        <Typography level="title-md" component="h3">
+          Board fit
+        </Typography>
         <CheckStatusChip status={fit.status} />
       </Box>
       <Typography level="body-sm" sx={{ mt: 0.5, mb: 1.5, fontVariantNumeric: 'tabular-nums' }}>
-        The pedals with room to patch between them take {Math.round(fit.fillRatio * 100)}% of the {surface?.name ?? 'surface'}’s
-        usable area ({fit.usableWidthMm} × {fit.usableDepthMm} mm).{' '}
-        {fit.layoutFits ? 'They fit in simple rows.' : 'They do not fit in simple rows.'}
+        The pedals with room to patch between them take {Math.round(fit.fillRatio * 100)}% of the {surface?.name ?? 'surface'}’s usable area
+        ({fit.usableWidthMm} × {fit.usableDepthMm} mm). {fit.layoutFits ? 'They fit in simple rows.' : 'They do not fit in simple rows.'}
         {!fit.layoutFits && suggestion && suggestion.id !== fit.surfaceId
           ? ` The smallest surface that holds them is the ${suggestion.name} (${suggestion.widthMm} × ${suggestion.depthMm} mm).`
           : ''}

@@ -32,10 +32,26 @@ export function BoardSketch({ fit, surfaceName }: { fit: BoardFit; surfaceName: 
         }`}
         sx={{ width: '100%', maxHeight: 340, display: 'block' }}
       >
-        <Box component="rect" x={-pad / 2} y={-pad / 2} width={w + pad} height={d + pad} rx={14} sx={{ fill: 'var(--joy-palette-neutral-800)' }} />
+        <Box
+          component="rect"
+          x={-pad / 2}
+          y={-pad / 2}
+          width={w + pad}
+          height={d + pad}
+          rx={14}
+          sx={{ fill: 'var(--joy-palette-neutral-800)' }}
+        />
         {fit.tiered
           ? Array.from({ length: Math.max(0, fit.rows - 1) }, (_, i) => (
-              <Box component="line" key={i} x1={0} x2={w} y1={((i + 1) * d) / fit.rows} y2={((i + 1) * d) / fit.rows} sx={{ stroke: 'var(--joy-palette-neutral-500)', strokeWidth: 3 }} />
+              <Box
+                component="line"
+                key={i}
+                x1={0}
+                x2={w}
+                y1={((i + 1) * d) / fit.rows}
+                y2={((i + 1) * d) / fit.rows}
+                sx={{ stroke: 'var(--joy-palette-neutral-500)', strokeWidth: 3 }}
+              />
             ))
           : null}
         {fit.layout.map((p) => {
@@ -66,13 +82,35 @@ export function BoardSketch({ fit, surfaceName }: { fit: BoardFit; surfaceName: 
             </g>
           );
         })}
-        <Box component="text" x={w + pad + 4} y={d / 2} textAnchor="middle" dominantBaseline="central" transform={`rotate(90 ${w + pad + 4} ${d / 2})`} sx={{ fill: 'var(--joy-palette-neutral-800)', fontSize: 20, fontWeight: 700 }}>
+        <Box
+          component="text"
+          x={w + pad + 4}
+          y={d / 2}
+          textAnchor="middle"
+          dominantBaseline="central"
+          transform={`rotate(90 ${w + pad + 4} ${d / 2})`}
+          sx={{ fill: 'var(--joy-palette-neutral-800)', fontSize: 20, fontWeight: 700 }}
+        >
           IN from guitar
         </Box>
-        <Box component="text" x={-pad - 4} y={d / 2} textAnchor="middle" dominantBaseline="central" transform={`rotate(-90 ${-pad - 4} ${d / 2})`} sx={{ fill: 'var(--joy-palette-neutral-800)', fontSize: 20, fontWeight: 700 }}>
+        <Box
+          component="text"
+          x={-pad - 4}
+          y={d / 2}
+          textAnchor="middle"
+          dominantBaseline="central"
+          transform={`rotate(-90 ${-pad - 4} ${d / 2})`}
+          sx={{ fill: 'var(--joy-palette-neutral-800)', fontSize: 20, fontWeight: 700 }}
+        >
           OUT to amp
         </Box>
-        <Box component="text" x={w / 2} y={d + pad + 26} textAnchor="middle" sx={{ fill: 'var(--joy-palette-neutral-800)', fontSize: 20, fontWeight: 600 }}>
+        <Box
+          component="text"
+          x={w / 2}
+          y={d + pad + 26}
+          textAnchor="middle"
+          sx={{ fill: 'var(--joy-palette-neutral-800)', fontSize: 20, fontWeight: 600 }}
+        >
           Your side (where you stand)
         </Box>
       </Box>
@@ -81,14 +119,29 @@ export function BoardSketch({ fit, surfaceName }: { fit: BoardFit; surfaceName: 
           {groups.map((g) => (
             <Box component="li" key={g} sx={{ display: 'flex', alignItems: 'center', gap: 0.75 }}>
               <Box component="svg" width={18} height={14} aria-hidden>
-                <rect x={1} y={1} width={16} height={12} rx={2} fill={groupStyle[g].fill} stroke="var(--joy-palette-neutral-900)" strokeWidth={1.5} strokeDasharray={groupStyle[g].dash ? '3 2' : undefined} />
+                <rect
+                  x={1}
+                  y={1}
+                  width={16}
+                  height={12}
+                  rx={2}
+                  fill={groupStyle[g].fill}
+                  stroke="var(--joy-palette-neutral-900)"
+                  strokeWidth={1.5}
+                  strokeDasharray={groupStyle[g].dash ? '3 2' : undefined}
+                />
               </Box>
               <Typography level="body-xs">{groupStyle[g].label}</Typography>
             </Box>
           ))}
         </Box>
       ) : null}
-      <Box component="ol" aria-label="Key to the drawing" data-testid="layout-key" sx={{ m: 0, mt: 1, pl: 0, listStyle: 'none', columnWidth: '12rem', columnGap: 2 }}>
+      <Box
+        component="ol"
+        aria-label="Key to the drawing"
+        data-testid="layout-key"
+        sx={{ m: 0, mt: 1, pl: 0, listStyle: 'none', columnWidth: '12rem', columnGap: 2 }}
+      >
         {key.map((p) => (
           <Typography component="li" level="body-sm" key={p.deviceId} sx={{ breakInside: 'avoid', fontVariantNumeric: 'tabular-nums' }}>
             <b>{p.number}</b> {p.device}

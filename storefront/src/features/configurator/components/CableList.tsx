@@ -16,7 +16,9 @@ const end = (text: string, device: number | null) => (device === null ? text : `
 export function CableList({ schedule }: { schedule: PanelChecks['cableSchedule'] }) {
   return (
     <Box component="section" aria-labelledby="cable-list-heading" data-testid="cable-list">
-      <Typography level="title-lg" component="h3" id="cable-list-heading">Patch cables</Typography>
+      <Typography level="title-lg" component="h3" id="cable-list-heading">
+        Patch cables
+      </Typography>
       <Typography level="body-sm" sx={{ mb: 1, fontVariantNumeric: 'tabular-nums' }}>
         {schedule.patchCount} patch cables ({schedule.plugCount} plugs), {Number(schedule.cableFeet)} ft of cable with{' '}
         {Number(schedule.spareFeet)} ft spare, and {schedule.barrelPlugCount} power leads. Pedal numbers match the drawing.
@@ -24,14 +26,28 @@ export function CableList({ schedule }: { schedule: PanelChecks['cableSchedule']
       {/* A panel answer (kept on screen while the whole one loads) has the counts but not the list. */}
       {schedule.patches ? (
         <Box sx={{ overflowX: 'auto' }}>
-          <Table size="sm" aria-labelledby="cable-list-heading" sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, fontVariantNumeric: 'tabular-nums', '& td, & th': { verticalAlign: 'top' } }}>
+          <Table
+            size="sm"
+            aria-labelledby="cable-list-heading"
+            sx={{
+              '--TableCell-paddingX': { xs: '4px', sm: '8px' },
+              fontVariantNumeric: 'tabular-nums',
+              '& td, & th': { verticalAlign: 'top' },
+            }}
+          >
             <thead>
               <tr>
-                <th scope="col" style={{ width: '2.5rem' }}>#</th>
+                <th scope="col" style={{ width: '2.5rem' }}>
+                  #
+                </th>
                 <th scope="col">From</th>
                 <th scope="col">To</th>
-                <th scope="col" style={{ width: '4.5rem' }}>Length</th>
-                <th scope="col" style={{ width: '5.5rem' }}>Purpose</th>
+                <th scope="col" style={{ width: '4.5rem' }}>
+                  Length
+                </th>
+                <th scope="col" style={{ width: '5.5rem' }}>
+                  Purpose
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -48,7 +64,9 @@ export function CableList({ schedule }: { schedule: PanelChecks['cableSchedule']
           </Table>
         </Box>
       ) : (
-        <Typography level="body-sm" aria-live="polite">Listing each cable…</Typography>
+        <Typography level="body-sm" aria-live="polite">
+          Listing each cable…
+        </Typography>
       )}
     </Box>
   );

@@ -67,7 +67,11 @@ export function ChoiceCards({
               value={choice.value}
               overlay
               disabled={choice.disabled}
-              label={<Typography level="title-md" component="span">{choice.title}</Typography>}
+              label={
+                <Typography level="title-md" component="span">
+                  {choice.title}
+                </Typography>
+              }
               slotProps={{ input: { 'aria-describedby': detailsId }, action: { sx: { borderRadius: 'md' } } }}
               sx={{ alignItems: 'flex-start' }}
             />
@@ -75,8 +79,12 @@ export function ChoiceCards({
               {/* The badge sits on the figure's line, so it never narrows the title (long names stay on one line). */}
               <Box sx={{ display: 'flex', alignItems: 'center', justifyContent: 'space-between', gap: 1, flexWrap: 'wrap' }}>
                 {choice.figure ? (
-                  <Typography level="title-lg" sx={{ fontVariantNumeric: 'tabular-nums' }}>{choice.figure}</Typography>
-                ) : <span />}
+                  <Typography level="title-lg" sx={{ fontVariantNumeric: 'tabular-nums' }}>
+                    {choice.figure}
+                  </Typography>
+                ) : (
+                  <span />
+                )}
                 <Box
                   aria-hidden={!selected}
                   sx={{

@@ -77,7 +77,9 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
       }}
     >
       <Box sx={{ minWidth: 0 }}>
-        <Typography level="h1" sx={{ fontSize: { xs: 'xl2', md: 'xl3' }, mb: 2 }}>Configure your board</Typography>
+        <Typography level="h1" sx={{ fontSize: { xs: 'xl2', md: 'xl3' }, mb: 2 }}>
+          Configure your board
+        </Typography>
         <StepProgress current={step} onSelect={(s) => void leaveTo(s)} />
         {restoredFrom ? (
           <Alert
@@ -86,13 +88,16 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
             sx={{ mb: 3, flexWrap: 'wrap' }}
             endDecorator={
               <Box sx={{ display: 'flex', gap: 1 }}>
-                <Button size="sm" variant="plain" onClick={dismissRestored}>Keep it</Button>
-                <Button size="sm" variant="outlined" onClick={startOver}>Start over</Button>
+                <Button size="sm" variant="plain" onClick={dismissRestored}>
+                  Keep it
+                </Button>
+                <Button size="sm" variant="outlined" onClick={startOver}>
+                  Start over
+                </Button>
               </Box>
             }
           >
-            We restored the board you were configuring on{' '}
-            {formatMoment(restoredFrom)}.
+            We restored the board you were configuring on {formatMoment(restoredFrom)}.
           </Alert>
         ) : null}
         <Box component="section" aria-label={`Step ${index + 1}: ${configuratorSteps[index]?.title}`} ref={headingRef}>
@@ -120,9 +125,7 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
           ) : (
             <span />
           )}
-          {next ? (
-            <Button onClick={() => void leaveTo(next.id)}>Next: {next.title}</Button>
-          ) : null}
+          {next ? <Button onClick={() => void leaveTo(next.id)}>Next: {next.title}</Button> : null}
         </Box>
       </Box>
       <EstimatePanel live={live} catalog={catalog} />

@@ -24,9 +24,7 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
   }, [e]);
 
   const levelName = e ? (catalog.levels.find((l) => l.code === e.level)?.name ?? e.level) : '';
-  const problems = e
-    ? [e.checks?.powerBudget, e.checks?.boardFit].filter((c) => c && c.status === 'problem').length
-    : 0;
+  const problems = e ? [e.checks?.powerBudget, e.checks?.boardFit].filter((c) => c && c.status === 'problem').length : 0;
 
   return (
     <Sheet
@@ -76,7 +74,9 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
             <Typography level="body-xs">Updating…</Typography>
           </Box>
         ) : live.error ? null : e ? (
-          <Typography level="body-xs">Up to date{problems ? ` · ${problems} check${problems > 1 ? 's' : ''} need${problems > 1 ? '' : 's'} a look` : ''}</Typography>
+          <Typography level="body-xs">
+            Up to date{problems ? ` · ${problems} check${problems > 1 ? 's' : ''} need${problems > 1 ? '' : 's'} a look` : ''}
+          </Typography>
         ) : null}
       </Box>
       {live.error ? (
@@ -87,19 +87,41 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
       ) : null}
       <Box id="estimate-details" sx={{ display: { xs: open ? 'block' : 'none', md: 'block' }, mt: 1.5 }}>
         {e ? (
-          <Box component="dl" sx={{ m: 0, display: 'grid', gridTemplateColumns: 'auto 1fr', columnGap: 2, rowGap: 0.75, '& dd': { m: 0, textAlign: 'right', fontWeight: 'md' } }}>
-            <Typography component="dt" level="body-sm">Labor</Typography>
+          <Box
+            component="dl"
+            sx={{
+              m: 0,
+              display: 'grid',
+              gridTemplateColumns: 'auto 1fr',
+              columnGap: 2,
+              rowGap: 0.75,
+              '& dd': { m: 0, textAlign: 'right', fontWeight: 'md' },
+            }}
+          >
+            <Typography component="dt" level="body-sm">
+              Labor
+            </Typography>
             <Typography component="dd" level="body-sm" data-testid="estimate-labor">
               {formatMoneyRange(e.laborLow, e.laborHigh, currency)} labor ({formatHours(e.laborHours)})
             </Typography>
-            <Typography component="dt" level="body-sm">Materials</Typography>
-            <Typography component="dd" level="body-sm" data-testid="estimate-materials">{formatMoney(e.materialsTotal, currency)}</Typography>
-            <Typography component="dt" level="body-sm">Rate</Typography>
+            <Typography component="dt" level="body-sm">
+              Materials
+            </Typography>
+            <Typography component="dd" level="body-sm" data-testid="estimate-materials">
+              {formatMoney(e.materialsTotal, currency)}
+            </Typography>
+            <Typography component="dt" level="body-sm">
+              Rate
+            </Typography>
             <Typography component="dd" level="body-sm" data-testid="estimate-rate">
               {levelName}, {formatRateRange(e.rate.low, e.rate.high, currency)}
             </Typography>
-            <Typography component="dt" level="body-sm">Deposit</Typography>
-            <Typography component="dd" level="body-sm" data-testid="estimate-deposit">{formatMoney(e.deposit, currency)}</Typography>
+            <Typography component="dt" level="body-sm">
+              Deposit
+            </Typography>
+            <Typography component="dd" level="body-sm" data-testid="estimate-deposit">
+              {formatMoney(e.deposit, currency)}
+            </Typography>
           </Box>
         ) : live.missing.length ? (
           <MissingChoices missing={live.missing} size="sm" />
@@ -109,7 +131,9 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
         {e && e.notes.length ? (
           <Box component="ul" sx={{ m: 0, mt: 1.5, pl: 2, display: 'grid', gap: 0.5 }} aria-label="Notes">
             {e.notes.slice(0, 4).map((n) => (
-              <Typography component="li" level="body-xs" key={n}>{n}</Typography>
+              <Typography component="li" level="body-xs" key={n}>
+                {n}
+              </Typography>
             ))}
           </Box>
         ) : null}

@@ -10,7 +10,8 @@ const choiceWords: Record<MissingChoice, { words: string; step: StepId; action: 
   pedals: { words: 'your pedals (a count is enough)', step: 'pedals', action: 'Add your pedals' },
 };
 
-const listed = (items: string[]) => (items.length <= 1 ? items.join('') : `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`);
+const listed = (items: string[]) =>
+  items.length <= 1 ? items.join('') : `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`;
 
 /** "Still to choose: a case and your pedals." */
 export function missingWords(missing: MissingChoice[]): string {
@@ -21,7 +22,15 @@ export function missingWords(missing: MissingChoice[]): string {
  * The explained empty state of the estimate: nothing is priced until the player has chosen what
  * it is made of, and each missing choice is one click away.
  */
-export function MissingChoices({ missing, goToStep, size = 'md' }: { missing: MissingChoice[]; goToStep?: (step: StepId) => void; size?: 'sm' | 'md' }) {
+export function MissingChoices({
+  missing,
+  goToStep,
+  size = 'md',
+}: {
+  missing: MissingChoice[];
+  goToStep?: (step: StepId) => void;
+  size?: 'sm' | 'md';
+}) {
   return (
     <Stack gap={1} alignItems="flex-start" data-testid="estimate-missing">
       <Typography level={size === 'sm' ? 'body-sm' : 'body-md'}>

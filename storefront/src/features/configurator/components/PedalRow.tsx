@@ -50,17 +50,14 @@ export function PedalRow({
     pedal?.powered ? `${pedal.voltage ?? 9} V ${pedal.supply === 'ac' ? 'AC' : 'DC'}` : 'no power',
     pedal?.powered ? (pedal.currentMa !== undefined ? `${pedal.currentMa} mA` : 'draw not given') : null,
     pedal?.widthMm && pedal?.depthMm ? `${pedal.widthMm} × ${pedal.depthMm} mm` : null,
-    pedal?.powered && pedal.powerOutput !== undefined && outputs[pedal.powerOutput] ? `pinned to ${outputs[pedal.powerOutput].label || `output ${pedal.powerOutput + 1}`}` : null,
+    pedal?.powered && pedal.powerOutput !== undefined && outputs[pedal.powerOutput]
+      ? `pinned to ${outputs[pedal.powerOutput].label || `output ${pedal.powerOutput + 1}`}`
+      : null,
   ]
     .filter(Boolean)
     .join(' · ');
 
-  const numberField = (
-    field: 'currentMa' | 'voltage' | 'widthMm' | 'depthMm',
-    label: string,
-    placeholder: string,
-    error?: FieldError,
-  ) => (
+  const numberField = (field: 'currentMa' | 'voltage' | 'widthMm' | 'depthMm', label: string, placeholder: string, error?: FieldError) => (
     <FormControl error={!!error}>
       <FormLabel>{label}</FormLabel>
       <Input
@@ -85,10 +82,16 @@ export function PedalRow({
           {index + 1}
         </Typography>
         <Box sx={{ flex: '1 1 180px', minWidth: 0 }}>
-          <Typography level="title-sm" component="h3">{name}</Typography>
-          <Typography level="body-xs" sx={{ fontVariantNumeric: 'tabular-nums' }}>{summary}</Typography>
+          <Typography level="title-sm" component="h3">
+            {name}
+          </Typography>
+          <Typography level="body-xs" sx={{ fontVariantNumeric: 'tabular-nums' }}>
+            {summary}
+          </Typography>
           {hasErrors && !open ? (
-            <Typography level="body-xs" sx={{ color: 'danger.700', fontWeight: 'md' }}>Needs a fix: open it to see what.</Typography>
+            <Typography level="body-xs" sx={{ color: 'danger.700', fontWeight: 'md' }}>
+              Needs a fix: open it to see what.
+            </Typography>
           ) : null}
         </Box>
         <Box sx={{ display: 'flex', gap: 0.5 }}>
@@ -105,7 +108,13 @@ export function PedalRow({
           <IconButton size="sm" variant="outlined" aria-label={`Move ${name} up`} disabled={index === 0} onClick={() => onMove(index - 1)}>
             <ArrowUpIcon />
           </IconButton>
-          <IconButton size="sm" variant="outlined" aria-label={`Move ${name} down`} disabled={index === total - 1} onClick={() => onMove(index + 1)}>
+          <IconButton
+            size="sm"
+            variant="outlined"
+            aria-label={`Move ${name} down`}
+            disabled={index === total - 1}
+            onClick={() => onMove(index + 1)}
+          >
             <ArrowDownIcon />
           </IconButton>
           <IconButton size="sm" variant="outlined" color="danger" aria-label={`Remove ${name}`} onClick={onRemove}>
@@ -116,7 +125,12 @@ export function PedalRow({
       <Box
         id={`${id}-fields`}
         hidden={!open}
-        sx={{ display: open ? 'grid' : 'none', gap: 1.5, gridTemplateColumns: { xs: 'minmax(0, 1fr)', sm: 'repeat(2, minmax(0, 1fr))', lg: 'repeat(4, minmax(0, 1fr))' }, '& .MuiSelect-root, & .MuiInput-root': { minWidth: 0 } }}
+        sx={{
+          display: open ? 'grid' : 'none',
+          gap: 1.5,
+          gridTemplateColumns: { xs: 'minmax(0, 1fr)', sm: 'repeat(2, minmax(0, 1fr))', lg: 'repeat(4, minmax(0, 1fr))' },
+          '& .MuiSelect-root, & .MuiInput-root': { minWidth: 0 },
+        }}
       >
         <FormControl error={!!errors?.name} sx={{ gridColumn: { sm: 'span 2' } }}>
           <FormLabel>Name or type</FormLabel>
@@ -129,11 +143,7 @@ export function PedalRow({
             control={control}
             name={`pedals.${index}.kind`}
             render={({ field }) => (
-              <Select
-                value={field.value ?? 'other'}
-                onChange={(_, v) => field.onChange(v ?? undefined)}
-                onBlur={field.onBlur}
-              >
+              <Select value={field.value ?? 'other'} onChange={(_, v) => field.onChange(v ?? undefined)} onBlur={field.onBlur}>
                 {kinds.map((k) => (
                   <Option key={k} value={k}>
                     {typicalHardware[k].label} ({typicalHardware[k].widthMm} × {typicalHardware[k].depthMm} mm)
@@ -164,10 +174,7 @@ export function PedalRow({
             control={control}
             name={`pedals.${index}.polarity`}
             render={({ field }) => (
-              <Select
-                value={field.value ?? 'center_negative'}
-                onChange={(_, v) => field.onChange(v ?? undefined)}
-              >
+              <Select value={field.value ?? 'center_negative'} onChange={(_, v) => field.onChange(v ?? undefined)}>
                 <Option value="center_negative">Centre negative (most pedals)</Option>
                 <Option value="center_positive">Centre positive</Option>
               </Select>
@@ -180,10 +187,7 @@ export function PedalRow({
             control={control}
             name={`pedals.${index}.supply`}
             render={({ field }) => (
-              <Select
-                value={field.value ?? 'dc'}
-                onChange={(_, v) => field.onChange(v ?? undefined)}
-              >
+              <Select value={field.value ?? 'dc'} onChange={(_, v) => field.onChange(v ?? undefined)}>
                 <Option value="dc">DC (most pedals)</Option>
                 <Option value="ac">AC</Option>
               </Select>
@@ -229,8 +233,8 @@ export function PedalRow({
         {numberField('widthMm', 'Width (mm)', String(typical.widthMm), errors?.widthMm)}
         {numberField('depthMm', 'Depth (mm)', String(typical.depthMm), errors?.depthMm)}
         <Typography level="body-xs" sx={{ gridColumn: '1 / -1' }}>
-          Leave a figure empty if you don’t know it: we use a typical one for the size you picked and say so. The pedal’s
-          own label or manual has the real ones.
+          Leave a figure empty if you don’t know it: we use a typical one for the size you picked and say so. The pedal’s own label or
+          manual has the real ones.
         </Typography>
       </Box>
     </Card>

@@ -18,7 +18,9 @@ export function PowerBudgetView({ budget, heading = 'Power plan' }: { budget: Po
   return (
     <Box data-testid="power-plan">
       <Box sx={{ display: 'flex', alignItems: 'center', gap: 1, flexWrap: 'wrap' }}>
-        <Typography level="title-md" component="h3">{heading}</Typography>
+        <Typography level="title-md" component="h3">
+          {heading}
+        </Typography>
         <CheckStatusChip status={budget.status} />
       </Box>
       <Typography level="body-sm" sx={{ mt: 0.5, fontVariantNumeric: 'tabular-nums' }}>
@@ -31,8 +33,13 @@ export function PowerBudgetView({ budget, heading = 'Power plan' }: { budget: Po
           : ''}
       </Typography>
       {budget.fixes.length ? (
-        <Box role="alert" sx={{ mt: 1.5, p: 1.5, borderRadius: 'sm', border: '1px solid', borderColor: 'danger.300', bgcolor: 'danger.50' }}>
-          <Typography level="title-sm" component="p" sx={{ color: 'danger.800' }}>What would fix it</Typography>
+        <Box
+          role="alert"
+          sx={{ mt: 1.5, p: 1.5, borderRadius: 'sm', border: '1px solid', borderColor: 'danger.300', bgcolor: 'danger.50' }}
+        >
+          <Typography level="title-sm" component="p" sx={{ color: 'danger.800' }}>
+            What would fix it
+          </Typography>
           <List size="sm" marker="disc" sx={{ pl: 2, '--List-padding': '0' }}>
             {budget.fixes.map((f) => (
               <ListItem key={f}>{f}</ListItem>
@@ -41,7 +48,11 @@ export function PowerBudgetView({ budget, heading = 'Power plan' }: { budget: Po
         </Box>
       ) : null}
       {budget.outputs.length > 0 ? (
-        <Box component="ul" sx={{ listStyle: 'none', p: 0, m: 0, mt: 1.5, display: 'grid', gap: 1.5 }} aria-label="Supply outputs and what each feeds">
+        <Box
+          component="ul"
+          sx={{ listStyle: 'none', p: 0, m: 0, mt: 1.5, display: 'grid', gap: 1.5 }}
+          aria-label="Supply outputs and what each feeds"
+        >
           {budget.outputs.map((o) => {
             const share = o.ratingMa > 0 ? Math.min(1, o.loadMa / o.ratingMa) : 1;
             const over = o.flags.length > 0;
@@ -55,7 +66,15 @@ export function PowerBudgetView({ budget, heading = 'Power plan' }: { budget: Po
                 </Typography>
                 <Box
                   aria-hidden
-                  sx={{ mt: 0.5, height: 10, borderRadius: 'sm', bgcolor: 'neutral.200', overflow: 'hidden', border: '1px solid', borderColor: 'neutral.400' }}
+                  sx={{
+                    mt: 0.5,
+                    height: 10,
+                    borderRadius: 'sm',
+                    bgcolor: 'neutral.200',
+                    overflow: 'hidden',
+                    border: '1px solid',
+                    borderColor: 'neutral.400',
+                  }}
                 >
                   <Box sx={{ height: '100%', width: `${share * 100}%`, bgcolor: over ? 'danger.500' : 'primary.500' }} />
                 </Box>
@@ -71,10 +90,16 @@ export function PowerBudgetView({ budget, heading = 'Power plan' }: { budget: Po
                         </Chip>
                       );
                     })}
-                    {o.devices.length > 1 ? <Typography level="body-xs" sx={{ alignSelf: 'center' }}>daisy chain</Typography> : null}
+                    {o.devices.length > 1 ? (
+                      <Typography level="body-xs" sx={{ alignSelf: 'center' }}>
+                        daisy chain
+                      </Typography>
+                    ) : null}
                   </Box>
                 ) : (
-                  <Typography level="body-xs" sx={{ mt: 0.25 }}>Free</Typography>
+                  <Typography level="body-xs" sx={{ mt: 0.25 }}>
+                    Free
+                  </Typography>
                 )}
                 {o.flags.map((flag) => (
                   <Typography key={flag} level="body-xs" sx={{ color: 'danger.700', fontWeight: 'md' }}>

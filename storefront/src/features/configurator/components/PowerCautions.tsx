@@ -10,17 +10,26 @@ import { BoltIcon } from './icons';
  */
 export function PowerCautions() {
   return (
-    <Alert color="warning" variant="outlined" startDecorator={<BoltIcon />} sx={{ alignItems: 'flex-start' }} role="note" aria-label="Power safety">
+    <Alert
+      color="warning"
+      variant="outlined"
+      startDecorator={<BoltIcon />}
+      sx={{ alignItems: 'flex-start' }}
+      role="note"
+      aria-label="Power safety"
+    >
       <div>
-        <Typography level="title-sm" component="h3">Power safety</Typography>
+        <Typography level="title-sm" component="h3">
+          Power safety
+        </Typography>
         <List size="sm" marker="disc" sx={{ '--ListItem-minHeight': '1.5rem', '--List-padding': '0', pl: 2 }}>
           <ListItem>
-            Mains wiring, and any power inlet built into the board or case, only by a qualified person under your
-            local electrical codes. We do not open or modify mains-side equipment.
+            Mains wiring, and any power inlet built into the board or case, only by a qualified person under your local electrical codes. We
+            do not open or modify mains-side equipment.
           </ListItem>
           <ListItem>
-            Match each pedal’s voltage and polarity to its output. Most pedals take 9 V DC centre-negative; some need
-            12 V or 18 V, a few run on AC. The wrong supply can destroy a pedal.
+            Match each pedal’s voltage and polarity to its output. Most pedals take 9 V DC centre-negative; some need 12 V or 18 V, a few
+            run on AC. The wrong supply can destroy a pedal.
           </ListItem>
           <ListItem>Keep each output within its current rating, and unplug the supply before moving or re-patching the board.</ListItem>
         </List>

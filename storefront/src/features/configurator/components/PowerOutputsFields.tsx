@@ -18,10 +18,12 @@ export function PowerOutputsFields({ form }: { form: UseFormReturn<PedalForm> })
   const outputs = useFieldArray({ control, name: 'outputs' });
   return (
     <Box component="section" aria-labelledby="supply-heading">
-      <Typography level="title-lg" component="h3" id="supply-heading">Your power supply (optional)</Typography>
+      <Typography level="title-lg" component="h3" id="supply-heading">
+        Your power supply (optional)
+      </Typography>
       <Typography level="body-sm" sx={{ mt: 0.5, mb: 2, maxWidth: 640 }}>
-        List each output as printed on the supply: its voltage and its current rating in mA. An <b>isolated output</b> has
-        its own ground, separate from the other outputs; it keeps digital pedals from adding hum to the rest.
+        List each output as printed on the supply: its voltage and its current rating in mA. An <b>isolated output</b> has its own ground,
+        separate from the other outputs; it keeps digital pedals from adding hum to the rest.
       </Typography>
       <Box component="ol" sx={{ listStyle: 'none', p: 0, m: 0, display: 'grid', gap: 1 }} aria-label="Supply outputs">
         {outputs.fields.map((field, index) => {
@@ -32,11 +34,21 @@ export function PowerOutputsFields({ form }: { form: UseFormReturn<PedalForm> })
               component="li"
               key={field.id}
               variant="outlined"
-              sx={{ p: 1.5, display: 'grid', gap: 1.5, gridTemplateColumns: { xs: 'repeat(2, minmax(0, 1fr))', md: 'minmax(0, 2fr) minmax(0, 1fr) minmax(0, 1fr) auto auto' }, '& .MuiInput-root': { minWidth: 0 }, alignItems: 'end' }}
+              sx={{
+                p: 1.5,
+                display: 'grid',
+                gap: 1.5,
+                gridTemplateColumns: { xs: 'repeat(2, minmax(0, 1fr))', md: 'minmax(0, 2fr) minmax(0, 1fr) minmax(0, 1fr) auto auto' },
+                '& .MuiInput-root': { minWidth: 0 },
+                alignItems: 'end',
+              }}
             >
               <FormControl sx={{ gridColumn: { xs: '1 / -1', md: 'auto' } }}>
                 <FormLabel>Output {n} name</FormLabel>
-                <Input placeholder={`Output ${n}`} {...register(`outputs.${index}.label`, { setValueAs: (v) => (v === '' ? undefined : v) })} />
+                <Input
+                  placeholder={`Output ${n}`}
+                  {...register(`outputs.${index}.label`, { setValueAs: (v) => (v === '' ? undefined : v) })}
+                />
               </FormControl>
               <FormControl error={!!errors?.voltage}>
                 <FormLabel>Voltage (V)</FormLabel>

@@ -10,7 +10,17 @@ import { CheckIcon } from './icons';
  * (the step's name, plus "visited" for screen readers), never a separate aria-label (WCAG 2.2 SC 2.5.3).
  */
 /** Read by screen readers, not shown (the usual clip pattern). */
-const visuallyHidden = { position: 'absolute', width: '1px', height: '1px', m: '-1px', p: 0, overflow: 'hidden', clip: 'rect(0 0 0 0)', whiteSpace: 'nowrap', border: 0 } as const;
+const visuallyHidden = {
+  position: 'absolute',
+  width: '1px',
+  height: '1px',
+  m: '-1px',
+  p: 0,
+  overflow: 'hidden',
+  clip: 'rect(0 0 0 0)',
+  whiteSpace: 'nowrap',
+  border: 0,
+} as const;
 
 export function StepProgress({ current, onSelect }: { current: StepId; onSelect: (step: StepId) => void }) {
   const index = configuratorSteps.findIndex((s) => s.id === current);
@@ -98,7 +108,11 @@ export function StepProgress({ current, onSelect }: { current: StepId; onSelect:
                   }}
                 >
                   {step.title}
-                  {done ? <Box component="span" sx={visuallyHidden}>, visited</Box> : null}
+                  {done ? (
+                    <Box component="span" sx={visuallyHidden}>
+                      , visited
+                    </Box>
+                  ) : null}
                 </Typography>
               </Box>
             </Box>

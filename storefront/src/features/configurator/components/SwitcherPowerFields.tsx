@@ -52,12 +52,22 @@ export function SwitcherPowerFields({
 
   return (
     <Box component="fieldset" sx={{ border: 0, p: 0, m: 0, mt: 4 }}>
-      <Typography component="legend" level="title-lg">Your switcher’s power</Typography>
+      <Typography component="legend" level="title-lg">
+        Your switcher’s power
+      </Typography>
       <Typography level="body-sm" sx={{ mb: 2, maxWidth: 640 }}>
         A switcher is digital, so it gets a supply output of its own. Its label or manual gives its draw; without it we plan
         {` ${typicalHardware.switcher.currentMa} mA`} (a typical figure).
       </Typography>
-      <Box sx={{ display: 'grid', gap: 1.5, gridTemplateColumns: { xs: 'minmax(0, 1fr)', sm: 'repeat(2, minmax(0, 1fr))', md: 'repeat(3, minmax(0, 1fr))' }, maxWidth: 720, '& .MuiSelect-root, & .MuiInput-root': { minWidth: 0 } }}>
+      <Box
+        sx={{
+          display: 'grid',
+          gap: 1.5,
+          gridTemplateColumns: { xs: 'minmax(0, 1fr)', sm: 'repeat(2, minmax(0, 1fr))', md: 'repeat(3, minmax(0, 1fr))' },
+          maxWidth: 720,
+          '& .MuiSelect-root, & .MuiInput-root': { minWidth: 0 },
+        }}
+      >
         <FormControl error={!!errors.currentMa}>
           <FormLabel>Switcher draw (mA)</FormLabel>
           <Input
@@ -71,7 +81,13 @@ export function SwitcherPowerFields({
         </FormControl>
         <FormControl error={!!errors.voltage}>
           <FormLabel>Switcher voltage (V)</FormLabel>
-          <Input type="number" value={text.voltage} placeholder="9" onChange={(e) => change('voltage', e.target.value)} slotProps={{ input: { inputMode: 'decimal' } }} />
+          <Input
+            type="number"
+            value={text.voltage}
+            placeholder="9"
+            onChange={(e) => change('voltage', e.target.value)}
+            slotProps={{ input: { inputMode: 'decimal' } }}
+          />
           {errors.voltage ? <FormHelperText>{errors.voltage}</FormHelperText> : null}
         </FormControl>
         <FormControl sx={{ gridColumn: { sm: '1 / -1', md: 'auto' }, minWidth: 0 }}>
@@ -84,7 +100,9 @@ export function SwitcherPowerFields({
           >
             <Option value={-1}>{outputs.length ? 'Let the plan choose' : 'List your supply on the Pedals step'}</Option>
             {outputs.map((o, i) => (
-              <Option key={i} value={i}>{outputName(o, i)}</Option>
+              <Option key={i} value={i}>
+                {outputName(o, i)}
+              </Option>
             ))}
           </Select>
         </FormControl>

@@ -1,13 +1,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useLocation, useNavigationType } from 'react-router';
 import { useSearchParamsInOrder } from '@loomwright/shared/ui';
-import {
-  CONFIGURATION_PARAM,
-  decodeConfiguration,
-  encodeConfiguration,
-  type Catalog,
-  type RigConfiguration,
-} from '@loomwright/shared';
+import { CONFIGURATION_PARAM, decodeConfiguration, encodeConfiguration, type Catalog, type RigConfiguration } from '@loomwright/shared';
 import { clearConfigurationDraft, readConfigurationDraft, writeConfigurationDraft } from 'src/lib/configuration-draft';
 import { completeConfiguration } from '../lib/configuration';
 import { isStepId, type StepId } from '../lib/steps';

@@ -15,7 +15,14 @@ describe('the configuration a URL or a stored draft holds', () => {
 
   it('keeps what still exists in the price book and leaves the rest to choose again', () => {
     const restored = completeConfiguration(
-      { surfaceId: 'gone-board', caseId: 'tour-road', routing: { mode: 'serial' }, pedalCount: 9, functions: ['four_cable', 'retired'], level: 'master' },
+      {
+        surfaceId: 'gone-board',
+        caseId: 'tour-road',
+        routing: { mode: 'serial' },
+        pedalCount: 9,
+        functions: ['four_cable', 'retired'],
+        level: 'master',
+      },
       catalog,
     );
     expect(restored).toEqual({
@@ -36,7 +43,12 @@ describe('the configuration a URL or a stored draft holds', () => {
 
   it('survives the URL codec unchanged', () => {
     const c = completeConfiguration(
-      { routing: { mode: 'switcher' }, pedals: [{ name: 'Fuzz “Ø”', powered: true, inLoop: true, currentMa: 10 }], functions: [], level: 'journeyman' },
+      {
+        routing: { mode: 'switcher' },
+        pedals: [{ name: 'Fuzz “Ø”', powered: true, inLoop: true, currentMa: 10 }],
+        functions: [],
+        level: 'journeyman',
+      },
       catalog,
     );
     expect(completeConfiguration(decodeConfiguration(encodeConfiguration(c)), catalog)).toEqual(c);

@@ -34,7 +34,8 @@ export function completeConfiguration(partial: Partial<RigConfiguration> | undef
   const level: BuilderLevel = builderLevels.includes(partial.level as BuilderLevel) ? (partial.level as BuilderLevel) : start.level;
   const codes = new Set(catalog.functions.map((f) => f.code));
   const functions = Array.isArray(partial.functions) ? partial.functions.filter((code) => codes.has(code)) : [];
-  const switcher = mode === 'switcher' && partial.routing?.switcher && typeof partial.routing.switcher === 'object' ? partial.routing.switcher : undefined;
+  const switcher =
+    mode === 'switcher' && partial.routing?.switcher && typeof partial.routing.switcher === 'object' ? partial.routing.switcher : undefined;
   const configuration: RigConfiguration = { surfaceId, caseId, routing: switcher ? { mode, switcher } : { mode }, functions, level };
   if (Array.isArray(partial.pedals)) configuration.pedals = partial.pedals;
   else if (typeof partial.pedalCount === 'number') configuration.pedalCount = partial.pedalCount;

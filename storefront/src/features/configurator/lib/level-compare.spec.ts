@@ -44,6 +44,10 @@ describe('level changes from extras', () => {
     const materials = totals.map((t) => t.estimate!.materialsTotal);
     expect(new Set(materials).size).toBe(1);
     // 9 h (8 pedals and the supply, 1 h each): $40–$50, $80–$100, $100–$150 an hour.
-    expect(totals.map((t) => [Number(t.estimate!.laborLow), Number(t.estimate!.laborHigh)])).toEqual([[360, 450], [720, 900], [900, 1350]]);
+    expect(totals.map((t) => [Number(t.estimate!.laborLow), Number(t.estimate!.laborHigh)])).toEqual([
+      [360, 450],
+      [720, 900],
+      [900, 1350],
+    ]);
   });
 });

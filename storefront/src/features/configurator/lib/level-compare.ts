@@ -1,5 +1,14 @@
 import Decimal from 'decimal.js';
-import { builderLevels, estimateRig, levelRank, type BuilderLevel, type Catalog, type EstimateResult, type PriceBook, type RigConfiguration } from '@loomwright/shared';
+import {
+  builderLevels,
+  estimateRig,
+  levelRank,
+  type BuilderLevel,
+  type Catalog,
+  type EstimateResult,
+  type PriceBook,
+  type RigConfiguration,
+} from '@loomwright/shared';
 import { higherLevel } from './configuration';
 
 /** The catalog carries the whole published book, so the storefront can run the same pure engine the API runs. */
@@ -18,7 +27,10 @@ export function localEstimate(configuration: RigConfiguration, catalog: Catalog)
 }
 
 /** The rig priced at each of the three levels, side by side. */
-export function levelTotals(configuration: RigConfiguration, catalog: Catalog): Array<{ level: BuilderLevel; estimate: EstimateResult | null }> {
+export function levelTotals(
+  configuration: RigConfiguration,
+  catalog: Catalog,
+): Array<{ level: BuilderLevel; estimate: EstimateResult | null }> {
   return builderLevels.map((level) => ({ level, estimate: localEstimate({ ...configuration, level }, catalog) }));
 }
 

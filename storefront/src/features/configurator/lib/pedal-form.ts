@@ -52,7 +52,11 @@ export function formFromConfiguration(c: RigConfiguration): PedalForm {
 
 /** "Output 2 · 9 V DC, 500 mA, isolated": how an output is named in pickers. */
 export function outputName(o: Partial<PowerOutputInput>, index: number): string {
-  const figures = [o.voltage !== undefined ? `${o.voltage} V ${(o.supply ?? 'dc').toUpperCase()}` : null, o.currentMa !== undefined ? `${o.currentMa} mA` : null, o.isolated ? 'isolated' : null]
+  const figures = [
+    o.voltage !== undefined ? `${o.voltage} V ${(o.supply ?? 'dc').toUpperCase()}` : null,
+    o.currentMa !== undefined ? `${o.currentMa} mA` : null,
+    o.isolated ? 'isolated' : null,
+  ]
     .filter(Boolean)
     .join(', ');
   return `${o.label || `Output ${index + 1}`}${figures ? ` · ${figures}` : ''}`;

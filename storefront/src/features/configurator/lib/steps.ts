@@ -10,5 +10,4 @@ export const configuratorSteps = [
 
 export type StepId = (typeof configuratorSteps)[number]['id'];
 
-export const isStepId = (value: string | null): value is StepId =>
-  configuratorSteps.some((step) => step.id === value);
+export const isStepId = (value: string | null): value is StepId => configuratorSteps.some((step) => step.id === value);

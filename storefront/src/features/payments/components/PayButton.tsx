@@ -18,7 +18,11 @@ export function PayButton({ bookingId, label }: { bookingId: string; label: stri
       >
         {label}
       </Button>
-      {checkout.error && <Alert color="danger" role="alert">{checkout.error.message}</Alert>}
+      {checkout.error && (
+        <Alert color="danger" role="alert">
+          {checkout.error.message}
+        </Alert>
+      )}
     </Stack>
   );
 }

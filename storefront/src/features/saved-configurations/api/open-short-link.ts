@@ -7,6 +7,11 @@ export const openShortLink = (code: string, signal?: AbortSignal) =>
   api.get<{ configuration: RigConfiguration }>(`/configuration-links/${encodeURIComponent(code)}`, { signal });
 
 export const shortLinkQueryOptions = (code: string) =>
-  queryOptions({ queryKey: configurationKeys.link(code), queryFn: ({ signal }) => openShortLink(code, signal), retry: false, staleTime: Infinity });
+  queryOptions({
+    queryKey: configurationKeys.link(code),
+    queryFn: ({ signal }) => openShortLink(code, signal),
+    retry: false,
+    staleTime: Infinity,
+  });
 
 export const useShortLink = (code: string) => useQuery(shortLinkQueryOptions(code));

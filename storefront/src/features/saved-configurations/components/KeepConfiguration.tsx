@@ -84,11 +84,15 @@ export default function KeepConfiguration({ configuration, ready }: Props) {
   return (
     <Stack gap={2}>
       <Box component="section" aria-labelledby="save-heading">
-        <Typography level="title-md" component="h4" id="save-heading">Save it to your account</Typography>
+        <Typography level="title-md" component="h4" id="save-heading">
+          Save it to your account
+        </Typography>
         {!signedIn ? (
           <Typography level="body-sm">
-            <Link component={RouterLink} to={signInHref}>Sign in</Link> to save configurations under a name, reopen them later
-            and have quotes e-mailed to you. What you configured here stays as it is.
+            <Link component={RouterLink} to={signInHref}>
+              Sign in
+            </Link>{' '}
+            to save configurations under a name, reopen them later and have quotes e-mailed to you. What you configured here stays as it is.
           </Typography>
         ) : (
           <Stack gap={1} sx={{ mt: 0.5 }}>
@@ -97,7 +101,9 @@ export default function KeepConfiguration({ configuration, ready }: Props) {
                 {unchanged ? `Saved as “${current.name}”.` : `You changed “${current.name}” since it was saved.`}
               </Typography>
             ) : saved.isError ? (
-              <Typography level="body-sm">The saved configuration this page came from is no longer in your account; save it again under a name.</Typography>
+              <Typography level="body-sm">
+                The saved configuration this page came from is no longer in your account; save it again under a name.
+              </Typography>
             ) : null}
             <Stack direction="row" gap={1} flexWrap="wrap">
               {current ? (
@@ -112,33 +118,59 @@ export default function KeepConfiguration({ configuration, ready }: Props) {
               <Button variant={current ? 'outlined' : 'solid'} disabled={!ready} onClick={() => setDialog(true)}>
                 {current ? 'Save as a new configuration…' : 'Save under a name…'}
               </Button>
-              <Button component={RouterLink} to="/configurations" variant="plain">Saved boards</Button>
+              <Button component={RouterLink} to="/configurations" variant="plain">
+                Saved boards
+              </Button>
             </Stack>
-            {update.isError ? <Typography role="alert" level="body-sm" sx={{ color: 'danger.700' }}>{update.error.message}</Typography> : null}
+            {update.isError ? (
+              <Typography role="alert" level="body-sm" sx={{ color: 'danger.700' }}>
+                {update.error.message}
+              </Typography>
+            ) : null}
           </Stack>
         )}
       </Box>
 
       <Box component="section" aria-labelledby="share-heading">
-        <Typography level="title-md" component="h4" id="share-heading">Share it</Typography>
-        <Typography level="body-sm" sx={{ mb: 1 }}>A short link that opens this configuration, for you on another device or for a bandmate.</Typography>
-        <Button variant="outlined" disabled={!ready} loading={link.isPending} onClick={copyLink}>Copy link</Button>
+        <Typography level="title-md" component="h4" id="share-heading">
+          Share it
+        </Typography>
+        <Typography level="body-sm" sx={{ mb: 1 }}>
+          A short link that opens this configuration, for you on another device or for a bandmate.
+        </Typography>
+        <Button variant="outlined" disabled={!ready} loading={link.isPending} onClick={copyLink}>
+          Copy link
+        </Button>
         {shortUrl ? (
           <Stack gap={0.5} sx={{ mt: 1, maxWidth: 420 }}>
             <Typography level="body-sm" role="status">
               {copied === 'copied' ? 'Link copied. It opens this configuration:' : 'Copy this link (it opens this configuration):'}
             </Typography>
-            <Input readOnly value={shortUrl} aria-label="Short link to this configuration" onFocus={(e) => e.currentTarget.select()} autoFocus={copied === 'select'} />
+            <Input
+              readOnly
+              value={shortUrl}
+              aria-label="Short link to this configuration"
+              onFocus={(e) => e.currentTarget.select()}
+              autoFocus={copied === 'select'}
+            />
           </Stack>
         ) : null}
-        {link.isError ? <Typography role="alert" level="body-sm" sx={{ color: 'danger.700', mt: 1 }}>{link.error.message}</Typography> : null}
+        {link.isError ? (
+          <Typography role="alert" level="body-sm" sx={{ color: 'danger.700', mt: 1 }}>
+            {link.error.message}
+          </Typography>
+        ) : null}
       </Box>
 
       <Box component="section" aria-labelledby="email-heading">
-        <Typography level="title-md" component="h4" id="email-heading">E-mail the quote</Typography>
+        <Typography level="title-md" component="h4" id="email-heading">
+          E-mail the quote
+        </Typography>
         {signedIn ? (
           <>
-            <Typography level="body-sm" sx={{ mb: 1 }}>To {me.data!.email}, with the PDF attached and a link back to this configuration.</Typography>
+            <Typography level="body-sm" sx={{ mb: 1 }}>
+              To {me.data!.email}, with the PDF attached and a link back to this configuration.
+            </Typography>
             <Button
               variant="outlined"
               disabled={!ready}
@@ -153,11 +185,18 @@ export default function KeepConfiguration({ configuration, ready }: Props) {
                 {email.data.remaining === 0 ? '; that was the last quote e-mail for this hour.' : '.'}
               </Alert>
             ) : null}
-            {email.isError ? <Typography role="alert" level="body-sm" sx={{ color: 'danger.700', mt: 1 }}>{email.error.message}</Typography> : null}
+            {email.isError ? (
+              <Typography role="alert" level="body-sm" sx={{ color: 'danger.700', mt: 1 }}>
+                {email.error.message}
+              </Typography>
+            ) : null}
           </>
         ) : (
           <Typography level="body-sm">
-            <Link component={RouterLink} to={signInHref}>Sign in</Link> to have the quote e-mailed to you, or download the PDF above.
+            <Link component={RouterLink} to={signInHref}>
+              Sign in
+            </Link>{' '}
+            to have the quote e-mailed to you, or download the PDF above.
           </Typography>
         )}
       </Box>

@@ -36,11 +36,19 @@ export function NameDialog({ open, title, hint, submitLabel, initialName = '', p
         <form noValidate onSubmit={handleSubmit((values) => onSubmit(values.name))}>
           <Stack gap={2}>
             {hint ? <Typography level="body-sm">{hint}</Typography> : null}
-            {error ? <Alert color="danger" role="alert">{error}</Alert> : null}
+            {error ? (
+              <Alert color="danger" role="alert">
+                {error}
+              </Alert>
+            ) : null}
             <FormTextField label="Name" autoFocus registration={register('name')} error={formState.errors.name} />
             <Stack direction="row" gap={1} justifyContent="flex-end">
-              <Button variant="plain" color="neutral" onClick={onClose}>Cancel</Button>
-              <Button type="submit" loading={pending}>{submitLabel}</Button>
+              <Button variant="plain" color="neutral" onClick={onClose}>
+                Cancel
+              </Button>
+              <Button type="submit" loading={pending}>
+                {submitLabel}
+              </Button>
             </Stack>
           </Stack>
         </form>

@@ -22,7 +22,14 @@ import { SAVED_PARAM } from './KeepConfiguration';
 import { NameDialog } from './NameDialog';
 
 const when = (iso: string) =>
-  new Date(iso).toLocaleString('en-US', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: 'numeric', minute: '2-digit' });
+  new Date(iso).toLocaleString('en-US', {
+    weekday: 'short',
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    hour: 'numeric',
+    minute: '2-digit',
+  });
 
 /** The player's saved configurations: open one in the configurator, rename, duplicate or delete it. */
 export function SavedConfigurationsList({ surfaceName }: { surfaceName: (id: string) => string }) {
@@ -38,14 +45,23 @@ export function SavedConfigurationsList({ surfaceName }: { surfaceName: (id: str
   const [openError, setOpenError] = useState<string | null>(null);
 
   if (list.isPending) return <PageLoading label="Loading your configurations…" />;
-  if (list.isError) return <Alert color="danger" role="alert">{list.error.message}</Alert>;
+  if (list.isError)
+    return (
+      <Alert color="danger" role="alert">
+        {list.error.message}
+      </Alert>
+    );
 
   const open = async (row: SavedConfigurationSummary) => {
     setOpening(row.id);
     setOpenError(null);
     try {
       const saved = await queryClient.fetchQuery(savedConfigurationQueryOptions(row.id));
-      const params = new URLSearchParams({ step: 'review', [CONFIGURATION_PARAM]: encodeConfiguration(saved.configuration), [SAVED_PARAM]: saved.id });
+      const params = new URLSearchParams({
+        step: 'review',
+        [CONFIGURATION_PARAM]: encodeConfiguration(saved.configuration),
+        [SAVED_PARAM]: saved.id,
+      });
       navigate(`/configure?${params.toString()}`);
     } catch (error) {
       setOpenError((error as Error).message);
@@ -58,39 +74,58 @@ export function SavedConfigurationsList({ surfaceName }: { surfaceName: (id: str
   if (list.data.length === 0) {
     return (
       <Stack gap={1} alignItems="flex-start">
-        <Typography>You have not saved a configuration yet. On the Review step of the configurator, choose “Save under a name…”.</Typography>
-        <Button component={RouterLink} to="/configure" color="accent">Configure a board</Button>
+        <Typography>
+          You have not saved a configuration yet. On the Review step of the configurator, choose “Save under a name…”.
+        </Typography>
+        <Button component={RouterLink} to="/configure" color="accent">
+          Configure a board
+        </Button>
       </Stack>
     );
   }
   return (
     <Stack gap={2}>
-      {problem ? <Alert color="danger" role="alert">{problem}</Alert> : null}
-      {duplicate.isSuccess ? <Alert color="success" variant="soft" role="status">Copied as “{duplicate.data.name}”.</Alert> : null}
+      {problem ? (
+        <Alert color="danger" role="alert">
+          {problem}
+        </Alert>
+      ) : null}
+      {duplicate.isSuccess ? (
+        <Alert color="success" variant="soft" role="status">
+          Copied as “{duplicate.data.name}”.
+        </Alert>
+      ) : null}
       <Table aria-label="Saved boards" sx={{ '& td': { verticalAlign: 'top' } }}>
         <thead>
           <tr>
             <th style={{ width: '34%' }}>Name</th>
             <th>Board</th>
             <th>Last saved</th>
-            <th style={{ width: "32%" }}>Actions</th>
+            <th style={{ width: '32%' }}>Actions</th>
           </tr>
         </thead>
         <tbody>
           {list.data.map((row) => (
             <tr key={row.id}>
-              <td><Typography fontWeight="lg">{row.name}</Typography></td>
+              <td>
+                <Typography fontWeight="lg">{row.name}</Typography>
+              </td>
               <td>
                 {surfaceName(row.surfaceId)}
                 <Typography level="body-xs">
-                  {row.pedalCount} {row.pedalCount === 1 ? 'pedal' : 'pedals'}, {row.routing === 'switcher' ? 'through a loop switcher' : 'in series'}
+                  {row.pedalCount} {row.pedalCount === 1 ? 'pedal' : 'pedals'},{' '}
+                  {row.routing === 'switcher' ? 'through a loop switcher' : 'in series'}
                 </Typography>
               </td>
               <td>{when(row.updatedAt)}</td>
               <td>
                 <Stack direction="row" gap={0.5} flexWrap="wrap">
-                  <Button size="sm" loading={opening === row.id} onClick={() => void open(row)} aria-label={`Open ${row.name}`}>Open</Button>
-                  <Button size="sm" variant="outlined" onClick={() => setRenaming(row)} aria-label={`Rename ${row.name}`}>Rename</Button>
+                  <Button size="sm" loading={opening === row.id} onClick={() => void open(row)} aria-label={`Open ${row.name}`}>
+                    Open
+                  </Button>
+                  <Button size="sm" variant="outlined" onClick={() => setRenaming(row)} aria-label={`Rename ${row.name}`}>
+                    Rename
+                  </Button>
                   <Button
                     size="sm"
                     variant="outlined"
@@ -100,7 +135,9 @@ export function SavedConfigurationsList({ surfaceName }: { surfaceName: (id: str
                   >
                     Duplicate
                   </Button>
-                  <Button size="sm" variant="plain" color="danger" onClick={() => setDeleting(row)} aria-label={`Delete ${row.name}`}>Delete</Button>
+                  <Button size="sm" variant="plain" color="danger" onClick={() => setDeleting(row)} aria-label={`Delete ${row.name}`}>
+                    Delete
+                  </Button>
                 </Stack>
               </td>
             </tr>
@@ -133,7 +170,9 @@ export function SavedConfigurationsList({ surfaceName }: { surfaceName: (id: str
             >
               Delete
             </Button>
-            <Button variant="plain" color="neutral" onClick={() => setDeleting(null)}>Keep it</Button>
+            <Button variant="plain" color="neutral" onClick={() => setDeleting(null)}>
+              Keep it
+            </Button>
           </DialogActions>
         </ModalDialog>
       </Modal>

@@ -4,7 +4,6 @@ import { api } from 'src/lib/api-client';
 
 export const getShop = (signal?: AbortSignal) => api.get<ShopProfile>('/shop', { signal });
 
-export const shopQueryOptions = () =>
-  queryOptions({ queryKey: ['shop'], queryFn: ({ signal }) => getShop(signal), staleTime: 5 * 60_000 });
+export const shopQueryOptions = () => queryOptions({ queryKey: ['shop'], queryFn: ({ signal }) => getShop(signal), staleTime: 5 * 60_000 });
 
 export const useShop = () => useQuery(shopQueryOptions());

@@ -22,13 +22,15 @@ export default function BuilderStep({ catalog, configuration, update, live }: St
   return (
     <>
       <StepHeading title="Who builds it">
-        Builders work at rates that follow their experience. The estimate shows the range of the level you pick; the
-        shop fixes the rate when a builder accepts your request.
+        Builders work at rates that follow their experience. The estimate shows the range of the level you pick; the shop fixes the rate
+        when a builder accepts your request.
       </StepHeading>
       {minimum !== 'apprentice' ? (
         <Alert variant="soft" color="primary" startDecorator={<InfoIcon />} sx={{ mb: 3, alignItems: 'flex-start' }} aria-live="polite">
           <div>
-            <Typography level="title-sm" component="p">This rig needs at least a {minimumName.toLowerCase()} builder</Typography>
+            <Typography level="title-sm" component="p">
+              This rig needs at least a {minimumName.toLowerCase()} builder
+            </Typography>
             {reasons.length ? (
               <List size="sm" marker="disc" sx={{ pl: 2, '--List-padding': '0' }}>
                 {reasons.map((r) => (
@@ -39,7 +41,9 @@ export default function BuilderStep({ catalog, configuration, update, live }: St
           </div>
         </Alert>
       ) : (
-        <Typography level="body-sm" sx={{ mb: 3 }}>A plain serial board like this one suits any level, an apprentice included.</Typography>
+        <Typography level="body-sm" sx={{ mb: 3 }}>
+          A plain serial board like this one suits any level, an apprentice included.
+        </Typography>
       )}
       {lower && chosen ? (
         <Alert
@@ -54,7 +58,8 @@ export default function BuilderStep({ catalog, configuration, update, live }: St
           }
         >
           This rig needs only a {minimumName.toLowerCase()} builder now. Choosing one brings the estimate to{' '}
-          {formatMoneyRange(lower.totalLow, lower.totalHigh, catalog.currency)}, from {formatMoneyRange(chosen.totalLow, chosen.totalHigh, catalog.currency)}.
+          {formatMoneyRange(lower.totalLow, lower.totalHigh, catalog.currency)}, from{' '}
+          {formatMoneyRange(chosen.totalLow, chosen.totalHigh, catalog.currency)}.
         </Alert>
       ) : null}
       <ChoiceCards
@@ -71,8 +76,15 @@ export default function BuilderStep({ catalog, configuration, update, live }: St
             disabled: tooLow,
             details: (
               <>
-                <Typography level="title-sm" component="p" sx={{ fontVariantNumeric: 'tabular-nums', mb: 0.5 }} data-testid={`level-total-${l.code}`}>
-                  {totals.get(l.code) ? `This rig: ${formatMoneyRange(totals.get(l.code)!.totalLow, totals.get(l.code)!.totalHigh, catalog.currency)}` : null}
+                <Typography
+                  level="title-sm"
+                  component="p"
+                  sx={{ fontVariantNumeric: 'tabular-nums', mb: 0.5 }}
+                  data-testid={`level-total-${l.code}`}
+                >
+                  {totals.get(l.code)
+                    ? `This rig: ${formatMoneyRange(totals.get(l.code)!.totalLow, totals.get(l.code)!.totalHigh, catalog.currency)}`
+                    : null}
                 </Typography>
                 <Typography level="body-sm">{l.description}</Typography>
                 {tooLow ? (
@@ -81,7 +93,9 @@ export default function BuilderStep({ catalog, configuration, update, live }: St
                   </Typography>
                 ) : null}
                 {l.code === minimum && minimum !== 'apprentice' ? (
-                  <Typography level="body-sm" sx={{ mt: 1, fontWeight: 'md' }}>The least this rig calls for.</Typography>
+                  <Typography level="body-sm" sx={{ mt: 1, fontWeight: 'md' }}>
+                    The least this rig calls for.
+                  </Typography>
                 ) : null}
               </>
             ),

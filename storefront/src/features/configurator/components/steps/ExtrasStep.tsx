@@ -25,11 +25,23 @@ export default function ExtrasStep({ catalog, configuration, update, live }: Ste
   return (
     <>
       <StepHeading title="Extras">
-        Functions are wiring jobs beyond the plain chain. Each adds bench time, about an hour each; choose none if your
-        board goes straight into one amp.
+        Functions are wiring jobs beyond the plain chain. Each adds bench time, about an hour each; choose none if your board goes straight
+        into one amp.
       </StepHeading>
       <Box component="fieldset" sx={{ border: 0, p: 0, m: 0 }}>
-        <Typography component="legend" sx={{ position: 'absolute', width: '1px', height: '1px', m: '-1px', p: 0, overflow: 'hidden', clip: 'rect(0 0 0 0)', whiteSpace: 'nowrap' }}>
+        <Typography
+          component="legend"
+          sx={{
+            position: 'absolute',
+            width: '1px',
+            height: '1px',
+            m: '-1px',
+            p: 0,
+            overflow: 'hidden',
+            clip: 'rect(0 0 0 0)',
+            whiteSpace: 'nowrap',
+          }}
+        >
           Functions to add
         </Typography>
         <Box sx={{ display: 'grid', gap: 2, gridTemplateColumns: { xs: '1fr', md: '1fr 1fr' } }}>
@@ -52,12 +64,17 @@ export default function ExtrasStep({ catalog, configuration, update, live }: Ste
                   overlay
                   checked={on}
                   onChange={(e) => toggle(f.code, e.target.checked)}
-                  label={<Typography level="title-md" component="span">{f.name}</Typography>}
+                  label={
+                    <Typography level="title-md" component="span">
+                      {f.name}
+                    </Typography>
+                  }
                   slotProps={{ input: { 'aria-describedby': `fn-${f.id}` } }}
                 />
                 <Box id={`fn-${f.id}`}>
                   <Typography level="body-sm" sx={{ fontWeight: 'md', fontVariantNumeric: 'tabular-nums' }}>
-                    +{formatHours(f.laborHours)} bench time{f.extraPatchCables ? ` · ${f.extraPatchCables} more patch cable${f.extraPatchCables > 1 ? 's' : ''}` : ''}
+                    +{formatHours(f.laborHours)} bench time
+                    {f.extraPatchCables ? ` · ${f.extraPatchCables} more patch cable${f.extraPatchCables > 1 ? 's' : ''}` : ''}
                     {on ? (
                       <Typography component="span" startDecorator={<CheckIcon />} sx={{ ml: 1, color: 'primary.700', fontWeight: 'lg' }}>
                         Added
@@ -65,7 +82,16 @@ export default function ExtrasStep({ catalog, configuration, update, live }: Ste
                     ) : null}
                   </Typography>
                   {effect ? (
-                    <Typography level="body-sm" data-testid={`extra-effect-${f.code}`} sx={{ mt: 0.5, fontVariantNumeric: 'tabular-nums', fontWeight: effect.raises || effect.lowers ? 'lg' : 'md', color: effect.raises ? 'warning.800' : 'text.secondary' }}>
+                    <Typography
+                      level="body-sm"
+                      data-testid={`extra-effect-${f.code}`}
+                      sx={{
+                        mt: 0.5,
+                        fontVariantNumeric: 'tabular-nums',
+                        fontWeight: effect.raises || effect.lowers ? 'lg' : 'md',
+                        color: effect.raises ? 'warning.800' : 'text.secondary',
+                      }}
+                    >
                       {effect.raises
                         ? `Adding it raises the minimum builder level to ${levelName(effect.minimumAfter)}: ${change(effect.deltaLow, effect.deltaHigh, catalog.currency)} in all, the higher rate included.`
                         : effect.lowers
@@ -73,8 +99,14 @@ export default function ExtrasStep({ catalog, configuration, update, live }: Ste
                           : `${on ? 'Removing' : 'Adding'} it: ${change(effect.deltaLow, effect.deltaHigh, catalog.currency)} in all.`}
                     </Typography>
                   ) : null}
-                  <Typography level="body-sm" sx={{ mt: 0.5 }}>{f.description}</Typography>
-                  {hint && hint !== f.description ? <Typography level="body-xs" sx={{ mt: 0.5 }}>{hint}</Typography> : null}
+                  <Typography level="body-sm" sx={{ mt: 0.5 }}>
+                    {f.description}
+                  </Typography>
+                  {hint && hint !== f.description ? (
+                    <Typography level="body-xs" sx={{ mt: 0.5 }}>
+                      {hint}
+                    </Typography>
+                  ) : null}
                 </Box>
               </Card>
             );

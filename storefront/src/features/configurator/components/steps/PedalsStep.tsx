@@ -63,12 +63,14 @@ export default function PedalsStep({ catalog, configuration, update, live, setLe
   return (
     <>
       <StepHeading title="Your pedals and their power">
-        Tell us what goes on the board. A quick count is enough for a first price; list each pedal to check its power and
-        fit with your own figures.
+        Tell us what goes on the board. A quick count is enough for a first price; list each pedal to check its power and fit with your own
+        figures.
       </StepHeading>
 
       <Box sx={{ mb: 3 }}>
-        <Typography id="pedal-mode-label" level="title-sm" component="p" sx={{ mb: 1 }}>How do you want to describe them?</Typography>
+        <Typography id="pedal-mode-label" level="title-sm" component="p" sx={{ mb: 1 }}>
+          How do you want to describe them?
+        </Typography>
         <RadioGroup
           aria-labelledby="pedal-mode-label"
           orientation="horizontal"
@@ -80,7 +82,9 @@ export default function PedalsStep({ catalog, configuration, update, live, setLe
           <Radio value="list" label="List each pedal" />
         </RadioGroup>
         {switcher ? (
-          <Typography level="body-sm" sx={{ mt: 0.5 }}>A switcher board needs the list, so we know which pedals sit in loops.</Typography>
+          <Typography level="body-sm" sx={{ mt: 0.5 }}>
+            A switcher board needs the list, so we know which pedals sit in loops.
+          </Typography>
         ) : null}
       </Box>
 
@@ -167,7 +171,9 @@ export default function PedalsStep({ catalog, configuration, update, live, setLe
           </>
         ) : null}
         {live.error && !checks ? (
-          <Alert color="danger" variant="soft">The checks could not be run: {live.error.message}</Alert>
+          <Alert color="danger" variant="soft">
+            The checks could not be run: {live.error.message}
+          </Alert>
         ) : null}
       </Box>
     </>

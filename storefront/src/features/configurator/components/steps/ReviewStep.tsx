@@ -30,8 +30,8 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
   return (
     <>
       <StepHeading title="Review your build">
-        Everything the estimate is made of, line by line. It is a range because the rate depends on the builder who
-        takes it; the shop confirms a firm price when it accepts.
+        Everything the estimate is made of, line by line. It is a range because the rate depends on the builder who takes it; the shop
+        confirms a firm price when it accepts.
       </StepHeading>
       {live.missing.length ? (
         <MissingChoices missing={live.missing} goToStep={goToStep} />
@@ -40,16 +40,32 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
       ) : (
         <Box sx={{ display: 'grid', gap: 4, gridTemplateColumns: 'minmax(0, 1fr)' }} aria-busy={live.isUpdating}>
           <Box component="section" aria-labelledby="materials-heading">
-            <Typography level="title-lg" component="h3" id="materials-heading" sx={{ mb: 1 }}>Materials</Typography>
+            <Typography level="title-lg" component="h3" id="materials-heading" sx={{ mb: 1 }}>
+              Materials
+            </Typography>
             <Box>
-              <Table size="sm" aria-labelledby="materials-heading" sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}>
+              <Table
+                size="sm"
+                aria-labelledby="materials-heading"
+                sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}
+              >
                 <thead>
-                  <tr><th scope="col" style={{ width: '46%' }}>Item</th><th scope="col">Quantity</th><th scope="col">Each</th><th scope="col">Amount</th></tr>
+                  <tr>
+                    <th scope="col" style={{ width: '46%' }}>
+                      Item
+                    </th>
+                    <th scope="col">Quantity</th>
+                    <th scope="col">Each</th>
+                    <th scope="col">Amount</th>
+                  </tr>
                 </thead>
                 <tbody>
                   {materials.map((l) => (
                     <tr key={l.code}>
-                      <td>{l.label}{l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}</td>
+                      <td>
+                        {l.label}
+                        {l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}
+                      </td>
                       <td>{quantityWithUnit(l.quantity, l.unit)}</td>
                       <td>{formatMoney(l.unitPrice, currency)}</td>
                       <td>{formatMoney(l.amount, currency)}</td>
@@ -57,22 +73,42 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
                   ))}
                 </tbody>
                 <tfoot>
-                  <tr><th scope="row" colSpan={3}>Materials total</th><td data-testid="review-materials">{formatMoney(e.materialsTotal, currency)}</td></tr>
+                  <tr>
+                    <th scope="row" colSpan={3}>
+                      Materials total
+                    </th>
+                    <td data-testid="review-materials">{formatMoney(e.materialsTotal, currency)}</td>
+                  </tr>
                 </tfoot>
               </Table>
             </Box>
           </Box>
           <Box component="section" aria-labelledby="labor-heading">
-            <Typography level="title-lg" component="h3" id="labor-heading" sx={{ mb: 1 }}>Labor</Typography>
+            <Typography level="title-lg" component="h3" id="labor-heading" sx={{ mb: 1 }}>
+              Labor
+            </Typography>
             <Box>
-              <Table size="sm" aria-labelledby="labor-heading" sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}>
+              <Table
+                size="sm"
+                aria-labelledby="labor-heading"
+                sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}
+              >
                 <thead>
-                  <tr><th scope="col" style={{ width: '46%' }}>Work</th><th scope="col">Hours</th><th scope="col">Amount</th></tr>
+                  <tr>
+                    <th scope="col" style={{ width: '46%' }}>
+                      Work
+                    </th>
+                    <th scope="col">Hours</th>
+                    <th scope="col">Amount</th>
+                  </tr>
                 </thead>
                 <tbody>
                   {labor.map((l) => (
                     <tr key={l.code}>
-                      <td>{l.label}{l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}</td>
+                      <td>
+                        {l.label}
+                        {l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}
+                      </td>
                       <td>{formatHours(l.quantity)}</td>
                       <td>{formatMoneyRange(l.amount, l.amountHigh ?? l.amount, currency)}</td>
                     </tr>
@@ -80,7 +116,9 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
                 </tbody>
                 <tfoot>
                   <tr>
-                    <th scope="row">Labor at {levelName} rates ({formatMoneyRange(e.rate.low, e.rate.high, currency)} an hour)</th>
+                    <th scope="row">
+                      Labor at {levelName} rates ({formatMoneyRange(e.rate.low, e.rate.high, currency)} an hour)
+                    </th>
                     <td data-testid="review-hours">{formatHours(e.laborHours)}</td>
                     <td data-testid="review-labor">{formatMoneyRange(e.laborLow, e.laborHigh, currency)}</td>
                   </tr>
@@ -88,15 +126,23 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
               </Table>
             </Box>
           </Box>
-          <Box component="section" aria-labelledby="total-heading" sx={{ p: 2, borderRadius: 'md', bgcolor: 'primary.50', border: '1px solid', borderColor: 'primary.200' }}>
-            <Typography level="title-lg" component="h3" id="total-heading">Estimated total</Typography>
+          <Box
+            component="section"
+            aria-labelledby="total-heading"
+            sx={{ p: 2, borderRadius: 'md', bgcolor: 'primary.50', border: '1px solid', borderColor: 'primary.200' }}
+          >
+            <Typography level="title-lg" component="h3" id="total-heading">
+              Estimated total
+            </Typography>
             <Typography level="h3" component="p" sx={{ fontVariantNumeric: 'tabular-nums' }} data-testid="review-total">
               {formatMoneyRange(e.totalLow, e.totalHigh, currency)}
             </Typography>
             <Typography sx={{ mt: 1, fontVariantNumeric: 'tabular-nums' }}>
               Deposit to book bench time: <b data-testid="review-deposit">{formatMoney(e.deposit, currency)}</b>
             </Typography>
-            <Typography level="body-sm" sx={{ mt: 0.5 }}>{catalog.depositPolicy.description}</Typography>
+            <Typography level="body-sm" sx={{ mt: 0.5 }}>
+              {catalog.depositPolicy.description}
+            </Typography>
           </Box>
           {e.checks ? (
             <>
@@ -107,14 +153,20 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
           ) : null}
           {e.notes.length ? (
             <Box component="section" aria-labelledby="notes-heading">
-              <Typography level="title-lg" component="h3" id="notes-heading">Notes from the checks</Typography>
+              <Typography level="title-lg" component="h3" id="notes-heading">
+                Notes from the checks
+              </Typography>
               <List marker="disc" size="sm" sx={{ pl: 2 }}>
-                {e.notes.map((n) => <ListItem key={n}>{n}</ListItem>)}
+                {e.notes.map((n) => (
+                  <ListItem key={n}>{n}</ListItem>
+                ))}
               </List>
             </Box>
           ) : null}
           <Box component="section" aria-labelledby="supply-you-heading">
-            <Typography level="title-lg" component="h3" id="supply-you-heading">What you still supply</Typography>
+            <Typography level="title-lg" component="h3" id="supply-you-heading">
+              What you still supply
+            </Typography>
             <List marker="disc" size="sm" sx={{ pl: 2 }}>
               <ListItem>Your pedals: the estimate covers mounting and wiring them, not the pedals.</ListItem>
               <ListItem>Your power supply: we cut its leads to length and fit new plugs.</ListItem>
@@ -126,7 +178,9 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
             A loaded board in a road case is heavy: lift it with two people.
           </Alert>
           <Box component="section" aria-labelledby="keep-heading">
-            <Typography level="title-lg" component="h3" id="keep-heading">Keep this quote</Typography>
+            <Typography level="title-lg" component="h3" id="keep-heading">
+              Keep this quote
+            </Typography>
             <Typography level="body-sm" sx={{ mb: 1 }}>
               A PDF with every line, the layout, the power plan, the patch cables and the cautions, priced from today’s price book.
             </Typography>
@@ -134,7 +188,9 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
               Download the quote (PDF)
             </Button>
             {quote.isError ? (
-              <Typography role="alert" level="body-sm" sx={{ color: 'danger.700', mt: 1 }}>{quote.error.message}</Typography>
+              <Typography role="alert" level="body-sm" sx={{ color: 'danger.700', mt: 1 }}>
+                {quote.error.message}
+              </Typography>
             ) : null}
             {keep ? (
               <Box sx={{ mt: 3 }}>

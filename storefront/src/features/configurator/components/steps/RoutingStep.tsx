@@ -33,9 +33,9 @@ export default function RoutingStep({ configuration, update, goToStep, live }: S
   return (
     <>
       <StepHeading title="How the signal runs">
-        Serial means one pedal after another, each one always in the chain. A <b>loop switcher</b> is a footswitch unit
-        with numbered loops: each pedal in a loop can be switched in or out, alone or in saved presets. You supply the
-        switcher; we wire both ends of every loop, so each pedal in a loop takes more bench time.
+        Serial means one pedal after another, each one always in the chain. A <b>loop switcher</b> is a footswitch unit with numbered loops:
+        each pedal in a loop can be switched in or out, alone or in saved presets. You supply the switcher; we wire both ends of every loop,
+        so each pedal in a loop takes more bench time.
       </StepHeading>
       <ChoiceCards
         name="routing"
@@ -62,7 +62,9 @@ export default function RoutingStep({ configuration, update, goToStep, live }: S
       />
       {switcher ? (
         <Box component="fieldset" sx={{ border: 0, p: 0, m: 0, mt: 4 }}>
-          <Typography component="legend" level="title-lg">Which pedals sit in loops?</Typography>
+          <Typography component="legend" level="title-lg">
+            Which pedals sit in loops?
+          </Typography>
           <Typography level="body-sm" sx={{ mb: 2 }}>
             {loops} of {pedals.length} in loops. A tuner, a wah or a volume pedal usually stays in the main chain.
           </Typography>
@@ -99,11 +101,14 @@ export default function RoutingStep({ configuration, update, goToStep, live }: S
           ) : null}
         </Box>
       ) : null}
-      {switcher && !pedals.some((p) => p.kind === 'switcher') ? <SwitcherPowerFields configuration={configuration} update={update} /> : null}
+      {switcher && !pedals.some((p) => p.kind === 'switcher') ? (
+        <SwitcherPowerFields configuration={configuration} update={update} />
+      ) : null}
       {live.estimate?.checks?.cableSchedule ? (
         <Typography level="body-sm" sx={{ mt: 3, fontVariantNumeric: 'tabular-nums' }}>
-          This routing takes {live.estimate.checks.cableSchedule.patchCount} patch cables ({live.estimate.checks.cableSchedule.plugCount} plugs,
-          about {Number(live.estimate.checks.cableSchedule.cableFeet)} ft of cable with spare) and {live.estimate.checks.cableSchedule.barrelPlugCount} power leads.
+          This routing takes {live.estimate.checks.cableSchedule.patchCount} patch cables ({live.estimate.checks.cableSchedule.plugCount}{' '}
+          plugs, about {Number(live.estimate.checks.cableSchedule.cableFeet)} ft of cable with spare) and{' '}
+          {live.estimate.checks.cableSchedule.barrelPlugCount} power leads.
         </Typography>
       ) : null}
     </>

@@ -11,8 +11,8 @@ export default function SurfaceStep({ catalog, configuration, update }: StepProp
   return (
     <>
       <StepHeading title="Choose the board surface">
-        The surface is the deck your pedals are fixed to. Sizes are the usable mounting area, width × depth, as you
-        look down at the board from where you stand.
+        The surface is the deck your pedals are fixed to. Sizes are the usable mounting area, width × depth, as you look down at the board
+        from where you stand.
       </StepHeading>
       <ChoiceCards
         name="surface"
@@ -28,7 +28,9 @@ export default function SurfaceStep({ catalog, configuration, update }: StepProp
               <Typography level="body-sm" sx={{ fontVariantNumeric: 'tabular-nums', fontWeight: 'md' }}>
                 {s.widthMm} × {s.depthMm} mm ({inches(s.widthMm)} × {inches(s.depthMm)} in){s.custom ? ' · made to order' : ''}
               </Typography>
-              <Typography level="body-sm" sx={{ mt: 0.5 }}>{s.description}</Typography>
+              <Typography level="body-sm" sx={{ mt: 0.5 }}>
+                {s.description}
+              </Typography>
             </>
           ),
         }))}
