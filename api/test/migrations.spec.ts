@@ -1,9 +1,10 @@
-import { Migrator } from 'kysely';
+import { Migrator, sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDatabase } from '../src/database/create-database';
 import { migrateToLatest } from '../src/database/migrate';
 import { migrations } from '../src/database/migrations';
-import { seedDemoShop } from '../src/database/seed';
+import { seedDemoShop, seedSteps } from '../src/database/seed';
+import { seedBookings } from '../src/database/seed/seed-bookings';
 import { createEmptyDatabase } from './support/test-app';
 
 describe('migrations and seed', () => {
@@ -77,6 +78,40 @@ describe('migrations and seed', () => {
       expect(shops).toHaveLength(1);
     } finally {
       await db.destroy();
+    }
+  });
+
+  it('upgrades a shop database that already holds quotes, and leaves every stored quote as the player saw it', async () => {
+    // A quote is a snapshot (a trigger refuses any UPDATE); a migration that rewrote stored quotes
+    // once stopped the upgrade of every shop that had taken a booking.
+    const other = await createEmptyDatabase('lw_migrate_quotes');
+    const db = createDatabase(other.url);
+    try {
+      const migrator = new Migrator({ db, provider: { getMigrations: async () => migrations } });
+      expect((await migrator.migrateTo('20261202_0957_holiday_choices')).error).toBeUndefined();
+      for (const step of seedSteps) await (step.name === 'bookings' ? seedBookings(db, { evenInTests: true }) : step.run(db));
+      // One more quote in the shape stored before labor lines carried a basis (copied through a
+      // temporary table, since quotes cannot be updated in place).
+      const [first] = await db.selectFrom('quotes').select(['id', 'estimate']).limit(1).execute();
+      const estimate = first.estimate as { lines: { kind: string; explanation?: string; basis?: string }[] };
+      const oldShape = {
+        ...estimate,
+        lines: estimate.lines.map(({ basis: _basis, ...line }) =>
+          line.kind === 'labor' ? { ...line, explanation: '6 pedals at 1 h each, at 80.00–100.00 per hour' } : line,
+        ),
+      };
+      await sql`create temporary table old_quote as select * from quotes where id = ${first.id}`.execute(db);
+      await sql`update old_quote set id = gen_random_uuid(), estimate = ${JSON.stringify(oldShape)}::jsonb`.execute(db);
+      await sql`insert into quotes select * from old_quote`.execute(db);
+      const before = await db.selectFrom('quotes').select(['id', 'estimate']).orderBy('id').execute();
+
+      const { error } = await migrator.migrateToLatest();
+      expect(error).toBeUndefined();
+      const after = await db.selectFrom('quotes').select(['id', 'estimate']).orderBy('id').execute();
+      expect(after).toEqual(before);
+    } finally {
+      await db.destroy();
+      await other.drop();
     }
   });
 });

@@ -6,7 +6,7 @@ import { estimateRig } from '../estimate/estimate-rig';
 import type { RigConfiguration } from '../estimate/types';
 import { demoPriceBook } from '../price-book/demo-price-book';
 import { firmQuoteFigures } from './firm-quote';
-import { firmQuoteLines, moneyFacts, type MoneyExtraInput, type MoneyPaymentInput } from './money-facts';
+import { firmQuoteLines, moneyFacts, storedLaborBasis, type MoneyExtraInput, type MoneyPaymentInput } from './money-facts';
 
 /**
  * The oracle works in whole cents with BigInt, an arithmetic independent of decimal.js: ISO 4217
@@ -210,5 +210,27 @@ describe('money facts, worked by hand', () => {
     }));
     const firm = firmQuoteLines(lines, '33.33', '149.99', 'USD');
     expect(firm.map((l) => l.amount)).toEqual(['50.00', '50.00', '49.99']);
+  });
+
+  it('words a labor line stored before lines carried a basis at the firm rate, without rewriting the stored quote', () => {
+    // A line as quotes stored it before the basis existed (quotes are never updated afterwards).
+    const stored = {
+      code: 'labor.pedals',
+      label: 'Mounting and wiring',
+      kind: 'labor' as const,
+      quantity: '6',
+      unit: 'h',
+      unitPrice: '80.00',
+      amount: '480.00',
+      amountHigh: '600.00',
+      explanation: '6 pedals at 1 h each, at 80.00–100.00 per hour',
+    };
+    expect(storedLaborBasis(stored.explanation)).toBe('6 pedals at 1 h each');
+    expect(storedLaborBasis('Case hardware')).toBeUndefined();
+    // 6 h × $95.00 = $570.00, worked by hand; en-US currency wording as Intl.NumberFormat writes it (ECMA-402).
+    const [firm] = firmQuoteLines([stored], '95.00', '570.00', 'USD');
+    expect(firm.explanation).toBe('6 pedals at 1 h each, at $95.00 per hour');
+    expect(firm.amount).toBe('570.00');
+    expect(stored.explanation).toBe('6 pedals at 1 h each, at 80.00–100.00 per hour');
   });
 });

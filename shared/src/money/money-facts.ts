@@ -149,7 +149,8 @@ export function firmQuoteLines(
     const amount = amounts[j++];
     const { amountHigh: _high, ...rest } = line;
     // The estimate explains a labor line at the level's range of rates; a firm line is at one rate.
-    const explanation = rest.basis !== undefined ? rigWords.laborAt(rest.basis, rateWords) : rest.explanation;
+    const basis = rest.basis ?? storedLaborBasis(rest.explanation);
+    const explanation = basis !== undefined ? rigWords.laborAt(basis, rateWords) : rest.explanation;
     return {
       ...rest,
       ...(explanation !== undefined && { explanation }),
@@ -157,4 +158,14 @@ export function firmQuoteLines(
       amount: amount.toFixed(digits),
     };
   });
+}
+
+/**
+ * Quotes are never rewritten (a database trigger refuses it), so a labor line stored before lines
+ * carried their `basis` still reads "…, at 80.00–100.00 per hour". Its basis is the text before the
+ * rate, so a firm quote can word it at its one rate like any newer line.
+ */
+const STORED_LABOR_LINE = /^(.*), at \d+(?:\.\d+)?–\d+(?:\.\d+)? per hour$/s;
+export function storedLaborBasis(explanation: string | undefined): string | undefined {
+  return explanation === undefined ? undefined : STORED_LABOR_LINE.exec(explanation)?.[1];
 }
