@@ -32,9 +32,17 @@ export function AppLayout() {
           borderColor: 'divider',
         }}
       >
-        <Link component={RouterLink} to="/" underline="none" color="neutral" sx={{ gap: 1.5, minWidth: 40, overflow: 'hidden' }}>
+        <Link
+          component={RouterLink}
+          to="/"
+          underline="none"
+          color="neutral"
+          sx={{ gap: 1.5, minWidth: 40, overflow: 'hidden' }}
+          aria-label={`${shop.data?.name ?? 'Loomwright'}: home`}
+        >
           <BoardMark />
-          <Box sx={{ minWidth: 0 }}>
+          {/* On a phone the mark stands alone: the links need the width, and a clipped name helps nobody. */}
+          <Box sx={{ minWidth: 0, display: { xs: 'none', sm: 'block' } }}>
             <Typography level="title-lg" component="span" noWrap sx={{ display: 'block' }}>
               {shop.data?.name ?? 'Loomwright'}
             </Typography>
