@@ -1,5 +1,6 @@
-import { request as playwrightRequest, type APIRequestContext, type Page } from '@playwright/test';
+import { request as playwrightRequest, type APIRequestContext } from '@playwright/test';
 import { expect, test } from './csp';
+import { payOnHostedPage } from './people';
 
 /**
  * An extra from proposal to delivery: the owner proposes an extra with its price, the player
@@ -13,15 +14,6 @@ import { expect, test } from './csp';
 const mailUrl = process.env.E2E_MAIL_URL ?? 'http://127.0.0.1:8125';
 const cents = (amount: string) => BigInt(Math.round(Number(amount) * 100));
 const dollars = (c: bigint) => `$${(c / 100n).toLocaleString('en-US')}.${String(c % 100n).padStart(2, '0')}`;
-
-async function payOnHostedPage(page: Page, url: string, baseURL: string) {
-  await page.goto(url);
-  await page.getByLabel('Card number').fill('4242 4242 4242 4242');
-  await page.getByLabel('Expiry (MM/YY)').fill('12/34');
-  await page.getByLabel('Security code').fill('123');
-  await page.getByRole('button', { name: /^Pay / }).click();
-  await page.waitForURL((target) => target.origin === new URL(baseURL).origin);
-}
 
 test('the owner proposes an extra, the player approves it from the e-mail, pays the balance that includes it, and the board is delivered', async ({
   browser,

@@ -7,6 +7,7 @@ import Typography from '@mui/joy/Typography';
 import { Suspense } from 'react';
 import { staffRoles, type AuthUser } from '@loomwright/shared';
 import { Navigate, NavLink, Outlet, useLocation } from 'react-router';
+import { UnreadCountChip, useUnreadMessages } from '@loomwright/shared/ui';
 import { PageLoading } from 'src/components/PageLoading';
 import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
@@ -52,6 +53,7 @@ export function AppLayout() {
 function StaffLayout({ user }: { user: AuthUser }) {
   const shop = useShop();
   const health = useHealth();
+  const unread = useUnreadMessages();
   return (
     <Box sx={{ minHeight: '100dvh', display: 'grid', gridTemplateColumns: { xs: '1fr', md: '232px 1fr' } }}>
       {/* A column on the left from md up; on a tablet or phone a compact bar over the page. */}
@@ -99,6 +101,7 @@ function StaffLayout({ user }: { user: AuthUser }) {
                 sx={{ '&.active': { fontWeight: 'lg', bgcolor: 'background.surface', boxShadow: 'sm' } }}
               >
                 {item.label}
+                {item.to === '/builds' && <UnreadCountChip count={unread.data?.total ?? 0} />}
               </ListItemButton>
             </ListItem>
           ))}

@@ -2,6 +2,7 @@ import { useRef, useState } from 'react';
 import Alert from '@mui/joy/Alert';
 import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
+import Chip from '@mui/joy/Chip';
 import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Textarea from '@mui/joy/Textarea';
@@ -36,6 +37,40 @@ export const useUnreadMessages = (enabled = true) =>
     refetchInterval: 60_000,
     enabled,
   });
+
+/**
+ * How many messages from the other side wait unread on one build, as a small chip beside the build
+ * in a list; nothing when none wait (or the count cannot be had: the list still works without it).
+ */
+export function UnreadMessagesBadge({ bookingId }: { bookingId: string }) {
+  const unread = useUnreadMessages();
+  const count = unread.data?.bookings.find((b) => b.bookingId === bookingId)?.unread ?? 0;
+  return <UnreadCountChip count={count} />;
+}
+
+const visuallyHidden = {
+  position: 'absolute',
+  width: '1px',
+  height: '1px',
+  overflow: 'hidden',
+  clip: 'rect(0 0 0 0)',
+  whiteSpace: 'nowrap',
+} as const;
+
+/** The chip itself: the number, read out in words. */
+export function UnreadCountChip({ count }: { count: number }) {
+  if (count <= 0) return null;
+  const words = messageWords.unreadBadge(count);
+  return (
+    <Chip size="sm" variant="solid" color="primary" title={words} sx={{ ml: 1, verticalAlign: 'middle' }}>
+      <span aria-hidden="true">{count}</span>
+      {/* Read out in words instead of a bare number beside the build's name. */}
+      <Box component="span" sx={visuallyHidden}>
+        {` ${words}`}
+      </Box>
+    </Chip>
+  );
+}
 
 /**
  * The conversation on a build, for the player's build page and the shop's. Opening it marks the

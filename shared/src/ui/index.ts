@@ -13,4 +13,4 @@ export { MoneyFactsTable } from './MoneyFactsTable';
 export { ShopVoiceProvider, currentShopVoice, useShopVoice } from './shop-voice';
 export { currentShopFormat, useShopFormat } from './current-shop-format';
 export { documentTitle, useRouteTitle, type RouteTitleHandle } from './use-route-title';
-export { ConversationPanel, messageKeys, useUnreadMessages } from './ConversationPanel';
+export { ConversationPanel, messageKeys, UnreadCountChip, UnreadMessagesBadge, useUnreadMessages } from './ConversationPanel';

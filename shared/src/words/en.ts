@@ -287,6 +287,10 @@ export const messageWords = {
   emptyMessage: 'Write a message or attach a photo before sending',
   tooManyPhotos: (max: number) => `Attach at most ${max} photos to one message`,
   notYours: (id: string) => `There is no build ${id} whose messages you can read`,
+  /** The badge beside a build in a list, and beside Builds in the backoffice's navigation. */
+  unreadBadge: (count: number) => (count === 1 ? '1 unread message' : `${count} unread messages`),
+  /** The shop's build page when the reader is a builder not assigned to the build. */
+  notYourThread: 'Only the owner and the builder assigned to this build talk with the player here.',
   /** Subject of the mail that tells one side of new messages from the other. */
   toPlayerSubject: (reference: string, count: number) =>
     `${count === 1 ? 'A new message' : `${count} new messages`} about build ${reference}`,

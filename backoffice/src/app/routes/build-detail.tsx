@@ -5,7 +5,7 @@ import Card from '@mui/joy/Card';
 import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
-import { bookingStateLabels } from '@loomwright/shared';
+import { bookingStateLabels, messageWords } from '@loomwright/shared';
 import { useState } from 'react';
 import { Link as RouterLink, useParams } from 'react-router';
 import { ErrorNote } from 'src/components/ErrorNote';
@@ -148,7 +148,11 @@ export function Component() {
           </Card>
           <Card variant="outlined">
             <Section title="Messages with the player">
-              <ConversationPanel bookingId={b.id} otherSide="the player" />
+              {isOwner || (me.data && b.builder?.userId === me.data.id) ? (
+                <ConversationPanel bookingId={b.id} otherSide="the player" />
+              ) : (
+                <Typography level="body-sm">{messageWords.notYourThread}</Typography>
+              )}
             </Section>
           </Card>
         </Stack>

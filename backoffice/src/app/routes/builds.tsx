@@ -6,6 +6,7 @@ import Typography from '@mui/joy/Typography';
 import { benchStates, type BenchState, type BookingSummary } from '@loomwright/shared';
 import { useQueries } from '@tanstack/react-query';
 import { useNavigate } from 'react-router';
+import { UnreadMessagesBadge } from '@loomwright/shared/ui';
 import { DataTable, queryRows, type Column } from 'src/components/DataTable';
 import { FilterBar } from 'src/components/FilterBar';
 import { PageHeader } from 'src/components/PageHeader';
@@ -17,7 +18,18 @@ import { formatDay, formatHours, formatMoney, formatMoneyRange } from 'src/lib/f
 import { useListParams } from 'src/lib/use-list-params';
 
 const columns: Column<BookingSummary>[] = [
-  { id: 'reference', header: 'Reference', sortKey: 'reference', width: 100, render: (b) => <strong>{b.reference}</strong> },
+  {
+    id: 'reference',
+    header: 'Reference',
+    sortKey: 'reference',
+    width: 100,
+    render: (b) => (
+      <>
+        <strong>{b.reference}</strong>
+        <UnreadMessagesBadge bookingId={b.id} />
+      </>
+    ),
+  },
   { id: 'customer', header: 'Customer', width: 160, render: (b) => b.customer.name },
   {
     id: 'builder',

@@ -8,6 +8,7 @@ import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import type { BookingSummary, DepositStatus } from '@loomwright/shared';
 import { useState } from 'react';
+import { UnreadMessagesBadge } from '@loomwright/shared/ui';
 import { Link as RouterLink, Navigate, useLocation } from 'react-router';
 import { PageLoading } from 'src/components/PageLoading';
 import { ShopUnavailable } from 'src/components/ShopUnavailable';
@@ -104,6 +105,7 @@ function BuildsTable({ items }: { items: BookingSummary[] }) {
               <Link component={RouterLink} to={`/builds/${b.id}`}>
                 {b.reference}
               </Link>
+              <UnreadMessagesBadge bookingId={b.id} />
             </td>
             <td>{b.summary}</td>
             <td>
@@ -128,6 +130,7 @@ function BuildCards({ items }: { items: BookingSummary[] }) {
           <Stack direction="row" gap={1} alignItems="center" justifyContent="space-between" flexWrap="wrap">
             <Link component={RouterLink} to={`/builds/${b.id}`} level="title-md" overlay>
               {b.reference}
+              <UnreadMessagesBadge bookingId={b.id} />
             </Link>
             <BookingStateChip state={b.state} />
           </Stack>
