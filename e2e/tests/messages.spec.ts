@@ -88,6 +88,8 @@ test('a player and their builder exchange messages with a photo; unread badges a
   const shopPanel = shop.locator('section').filter({ has: shop.getByRole('heading', { name: 'Messages with the player' }) });
   const shopThread = shopPanel.getByRole('list', { name: 'Messages' });
   await expect(shopThread.getByText('can it sit under the board?')).toBeVisible();
+  // The conversation sits low on the long build page; arriving with an unread message brings it into view.
+  await expect(shopThread).toBeInViewport();
   const thumbnail = shopThread.getByRole('img', { name: /^Photo 1 from / });
   await expect(thumbnail).toBeVisible();
   // The thumbnail really loaded (a broken image has no natural width).

@@ -1,4 +1,4 @@
-import { useRef, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import Alert from '@mui/joy/Alert';
 import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
@@ -123,6 +123,16 @@ export function ConversationPanel({ bookingId, otherSide }: { bookingId: string;
     send.mutate();
   };
 
+  // Opening the thread marks it read, so a reader who came for a new message is brought to it once
+  // (the shop's build page is long and the conversation sits low on it); later refreshes never scroll.
+  const threadList = useRef<HTMLOListElement>(null);
+  const broughtIntoView = useRef(false);
+  useEffect(() => {
+    if (broughtIntoView.current || !thread.data) return;
+    broughtIntoView.current = true;
+    if (thread.data.unreadBefore > 0) threadList.current?.scrollIntoView({ block: 'center' });
+  }, [thread.data]);
+
   const messages = thread.data?.messages ?? [];
   return (
     <Stack gap={2}>
@@ -135,7 +145,7 @@ export function ConversationPanel({ bookingId, otherSide }: { bookingId: string;
       ) : messages.length === 0 ? (
         <Typography level="body-sm">No messages yet. Write to {otherSide} here; they hear of it by e-mail.</Typography>
       ) : (
-        <Stack component="ol" aria-label="Messages" gap={1.5} sx={{ listStyle: 'none', p: 0, m: 0 }}>
+        <Stack ref={threadList} component="ol" aria-label="Messages" gap={1.5} sx={{ listStyle: 'none', p: 0, m: 0 }}>
           {messages.map((m) => (
             <Box
               component="li"
