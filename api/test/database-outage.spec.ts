@@ -48,10 +48,11 @@ describe('while the database is down', () => {
   const request = (method: string, url: string, cookie?: string) => {
     let req = t.http()[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](url);
     if (cookie) req = req.set('Cookie', cookie);
-    // Each call in the content type its route documents (csrf.spec.ts): multipart for the photo upload, else JSON.
+    // Each call in the content type its route documents (csrf.spec.ts): multipart for the photo upload and a
+    // message (it may carry photos), else JSON.
     if (method === 'DELETE') return req.set('Content-Type', 'application/json');
     if (!['POST', 'PUT', 'PATCH'].includes(method)) return req;
-    return url.endsWith('/photos') ? req.field('caption', '') : req.send({});
+    return url.endsWith('/photos') || url.endsWith('/messages') ? req.field('caption', '') : req.send({});
   };
 
   beforeAll(async () => {
