@@ -2,6 +2,7 @@ import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap, 
 import { ConfigService } from '@nestjs/config';
 import { CompiledQuery } from 'kysely';
 import PgBoss from 'pg-boss';
+import { createQueue } from '../jobs/create-queue';
 import type { AppConfig } from '../config/configuration';
 import type { Executor } from '../database/database';
 import { MailDeliveryService } from './mail-delivery.service';
@@ -54,8 +55,7 @@ export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShut
     const boss = new PgBoss({ connectionString: this.config.get('database', { infer: true }).url, schema: 'pgboss', max: 3 });
     boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
     await boss.start();
-    await boss.createQueue(DELIVER_QUEUE, {
-      name: DELIVER_QUEUE,
+    await createQueue(boss, DELIVER_QUEUE, {
       policy: 'stately',
       // Headroom over our own attempt count: a job can also run without claiming anything.
       retryLimit: maxAttempts + 2,
@@ -63,7 +63,7 @@ export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShut
       retryBackoff: true,
       expireInSeconds: 5 * 60,
     });
-    await boss.createQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, policy: 'singleton', retryLimit: 0 });
+    await createQueue(boss, SWEEP_QUEUE, { policy: 'singleton', retryLimit: 0 });
     // Batch work: one fetch takes up to MAIL_BATCH_SIZE due jobs (pg-boss's own `for update skip
     // locked limit n`, so two replicas never fetch the same job), their rows are claimed in one
     // statement and sent MAIL_CONCURRENCY at a time. A job whose delivery was refused is failed

@@ -1,6 +1,7 @@
 import { Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import PgBoss from 'pg-boss';
+import { createQueue } from '../jobs/create-queue';
 import type { AppConfig } from '../config/configuration';
 import { MessageNoticesService } from './message-notices.service';
 
@@ -32,8 +33,8 @@ export class MessageNoticesWorker implements OnApplicationBootstrap, OnApplicati
     const boss = new PgBoss({ connectionString: this.config.get('database', { infer: true }).url, schema: 'pgboss', max: 2 });
     boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
     await boss.start();
-    await boss.createQueue(NOTICE_QUEUE, { name: NOTICE_QUEUE, policy: 'standard', retryLimit: 5, retryDelay: 30, retryBackoff: true });
-    await boss.createQueue(NOTICE_SWEEP_QUEUE, { name: NOTICE_SWEEP_QUEUE, policy: 'singleton', retryLimit: 0 });
+    await createQueue(boss, NOTICE_QUEUE, { policy: 'standard', retryLimit: 5, retryDelay: 30, retryBackoff: true });
+    await createQueue(boss, NOTICE_SWEEP_QUEUE, { policy: 'singleton', retryLimit: 0 });
     await boss.work(NOTICE_QUEUE, { pollingIntervalSeconds: 5 }, async () => {
       await this.notices.sendDue();
     });

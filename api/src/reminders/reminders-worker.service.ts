@@ -1,6 +1,7 @@
 import { Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import PgBoss from 'pg-boss';
+import { createQueue } from '../jobs/create-queue';
 import type { AppConfig } from '../config/configuration';
 import { RemindersService } from './reminders.service';
 
@@ -44,7 +45,7 @@ export class RemindersWorker implements OnApplicationBootstrap, OnApplicationShu
     });
     boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
     await boss.start();
-    await boss.createQueue(REMINDERS_QUEUE, { name: REMINDERS_QUEUE, policy: 'singleton', retryLimit: 0, expireInSeconds: 10 * 60 });
+    await createQueue(boss, REMINDERS_QUEUE, { policy: 'singleton', retryLimit: 0, expireInSeconds: 10 * 60 });
     await boss.work(REMINDERS_QUEUE, { pollingIntervalSeconds: 5 }, async () => {
       await this.reminders.runDue();
     });
