@@ -73,6 +73,9 @@ test('a player and their builder exchange messages with a photo; unread badges a
   await expect(playerThread.getByText('can it sit under the board?')).toBeVisible();
   await expect(playerThread.getByRole('img', { name: 'Photo 1 from you' })).toBeVisible();
   await expect.poll(builderUnread).toBe(1);
+  // The player leaves the build page: an open thread refreshes itself and counts as read, which
+  // would clear the answer's badge before My builds is looked at.
+  await page.goto('/account');
 
   // The builder sees a badge in the navigation and on the build's row, opens the build, sees the
   // message and its thumbnail, and the badges clear.
