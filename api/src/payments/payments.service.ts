@@ -6,6 +6,7 @@ import {
   bookingStateLabels,
   formatMoney,
   paymentMethodWords,
+  shopFormat,
   type RecordBalanceInput,
   toProviderAmount,
   fromProviderAmount,
@@ -49,7 +50,8 @@ export const refundFailureText = (reason: string | null | undefined) =>
 /** A dispute that the bank has not decided for the shop: the money may not stay, so it is not refunded. */
 export const disputeOpen = (p: PaymentRow) => !!p.dispute_id && !['won', 'warning_closed'].includes(p.dispute_status ?? '');
 
-export const money = (p: Pick<PaymentRow, 'amount' | 'currency'>) => `${p.amount} ${p.currency.trim()}`;
+/** A payment's amount for history lines and refusals, with its currency sign as the apps write it ("$220.99"). */
+export const money = (p: Pick<PaymentRow, 'amount' | 'currency'>) => shopFormat({ currency: p.currency.trim() }).money(p.amount);
 
 @Injectable()
 export class PaymentsService {
@@ -441,7 +443,7 @@ export class PaymentsService {
       if (money.settled) throw new ConflictException(`Nothing is due on ${booking.reference}; the balance is already paid or waived.`);
       if (money.balanceDue !== formatMoney(input.amount, money.currency)) {
         throw new BadRequestException(
-          `The amount must be the whole balance: the balance due on ${booking.reference} is ${money.balanceDue} ${money.currency}; record the whole amount, or the owner waives what is left.`,
+          `The amount must be the whole balance: the balance due on ${booking.reference} is ${shopFormat({ currency: money.currency }).money(money.balanceDue)}; record the whole amount, or the owner waives what is left.`,
         );
       }
       for (const p of await this.payments.listForBooking(trx, bookingId, 'balance')) {
