@@ -157,7 +157,8 @@ test("the owner's pages read the shop's real data: team, price book, settings wi
   await page.screenshot({ path: shots('price-book'), fullPage: false });
 
   await page.goto('/backoffice/settings');
-  await expect(page.getByRole('heading', { name: /Public holidays \(US\)/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Public holidays, next twelve months' })).toBeVisible();
+  await expect(page.getByText(/From the date-holidays dataset for United States/)).toBeVisible();
   // 25 December is a US federal public holiday (5 U.S.C. 6103(a)); in 2026 it falls on a Friday.
   // The list covers the coming twelve months, so the test only runs this check while 25 Dec 2026 is ahead.
   if (new Date() < new Date('2026-12-25T00:00:00Z')) await expect(page.getByText('Fri, Dec 25 · Christmas Day')).toBeVisible();
