@@ -22,7 +22,16 @@ const browser = await chromium.launch({
 });
 try {
   const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
-  await page.goto(`${baseUrl}/configure?step=pedals`);
+  // Nothing is priced until a surface, a case and pedals are chosen: open a link that has all three.
+  const configuration = {
+    surfaceId: 'ridge-100',
+    caseId: 'shell-hard',
+    routing: { mode: 'serial' },
+    pedalCount: 6,
+    functions: [],
+    level: 'apprentice',
+  };
+  await page.goto(`${baseUrl}/configure?step=pedals&c=${Buffer.from(JSON.stringify(configuration), 'utf8').toString('base64url')}`);
   await page.getByTestId('estimate-total').filter({ hasText: '$' }).waitFor();
   const more = page.getByRole('button', { name: 'One pedal more' });
   const durations = [];
