@@ -1,6 +1,6 @@
-import Decimal from 'decimal.js';
+import { figure, plus, timesInt, toFixedText } from '../estimate/exact';
 import type { FunctionItem, MaterialsRates } from '../price-book/types';
-import type { CableSchedule, PatchCable, SignalChain } from './types';
+import type { CableSchedule, PatchCable, RigDevice, SignalChain } from './types';
 import { BARREL_CONNECTOR } from './typical-hardware';
 
 /**
@@ -10,26 +10,26 @@ import { BARREL_CONNECTOR } from './typical-hardware';
  * each function adds the patches the price book lists for it. Two plugs per patch.
  */
 export function cableScheduleOf(chain: SignalChain, functions: FunctionItem[], rates: MaterialsRates): CableSchedule {
-  const lengthFeet = new Decimal(rates.patchLengthFeet);
-  const spareFeet = new Decimal(rates.spareFeetPerPatch);
-  const lengthText = lengthFeet.toFixed(2);
-  const spareText = spareFeet.toFixed(2);
-  const names = new Map(chain.devices.map((d) => [d.id, d.name]));
-  const numbers = new Map(chain.devices.map((d) => [d.id, d.number]));
+  const lengthFeet = figure(rates.patchLengthFeet);
+  const spareFeet = figure(rates.spareFeetPerPatch);
+  const lengthText = toFixedText(lengthFeet, 2);
+  const spareText = toFixedText(spareFeet, 2);
+  const byId = new Map<string, RigDevice>();
+  for (const d of chain.devices) byId.set(d.id, d);
   const patches: PatchCable[] = [];
   const add = (from: string, to: string, purpose: PatchCable['purpose'], fromId?: string, toId?: string) =>
     patches.push({
       number: patches.length + 1,
       from,
       to,
-      fromDevice: fromId ? (numbers.get(fromId) ?? null) : null,
-      toDevice: toId ? (numbers.get(toId) ?? null) : null,
+      fromDevice: fromId ? (byId.get(fromId)?.number ?? null) : null,
+      toDevice: toId ? (byId.get(toId)?.number ?? null) : null,
       purpose,
       lengthFeet: lengthText,
       spareFeet: spareText,
       plugs: 2,
     });
-  const nameOf = (id: string) => names.get(id) ?? id;
+  const nameOf = (id: string) => byId.get(id)?.name ?? id;
 
   for (let i = 0; i + 1 < chain.main.length; i++) {
     add(`${nameOf(chain.main[i])} output`, `${nameOf(chain.main[i + 1])} input`, 'chain', chain.main[i], chain.main[i + 1]);
@@ -52,8 +52,8 @@ export function cableScheduleOf(chain: SignalChain, functions: FunctionItem[], r
     patches,
     patchCount: patches.length,
     plugCount: patches.length * 2,
-    cableFeet: lengthFeet.plus(spareFeet).times(patches.length).toFixed(2),
-    spareFeet: spareFeet.times(patches.length).toFixed(2),
+    cableFeet: toFixedText(timesInt(plus(lengthFeet, spareFeet), patches.length), 2),
+    spareFeet: toFixedText(timesInt(spareFeet, patches.length), 2),
     powerLeads: powered.map((d) => ({
       device: d.name,
       voltage: d.voltage,

@@ -5,7 +5,7 @@ import { builderLevels } from '../domain';
 import { demoPriceBook } from '../price-book/demo-price-book';
 import type { PriceBook } from '../price-book/types';
 import { EstimateInputError } from './errors';
-import { estimateRig } from './estimate-rig';
+import { depositFor, estimateRig } from './estimate-rig';
 import { minorUnitDigits, roundToMinorUnit } from './money';
 import { referenceBoard, expectedLaborRanges } from './reference-rigs.fixture';
 import { pedalKinds } from './schema';
@@ -163,6 +163,16 @@ describe('deposit rounding to the minor unit (ISO 4217 with the payment provider
     expect(steep.deposit).toBe(steep.totalLow);
     const floor = estimateRig(onePedal, { ...demoPriceBook, depositPolicy: { ...demoPriceBook.depositPolicy, percent: '5' } }, v1);
     expect(floor.deposit).toBe('100.00');
+  });
+
+  it('depositFor gives the same deposit from strings or Decimals, and refuses a currency ISO 4217 does not list', () => {
+    // 25% of 548.25 is 137.0625, rounded half up to the cent; 25% of 300 is 75, so the $100 minimum.
+    expect(depositFor('548.25', '498.25', demoPriceBook).toFixed()).toBe('137.06');
+    expect(depositFor(new Decimal('300'), new Decimal('280'), demoPriceBook).toFixed()).toBe('100');
+    // A minimum above the low end gives the low end.
+    expect(depositFor('90.00', '80.50', demoPriceBook).toFixed()).toBe('80.5');
+    expect(depositFor('548', '498', demoPriceBook, 'JPY').toFixed()).toBe('137');
+    expect(() => depositFor('548.25', '498.25', demoPriceBook, 'ZZZ')).toThrow(/Unknown ISO 4217 currency ZZZ/);
   });
 });
 

@@ -8,46 +8,34 @@ import { signalChainOf } from '../checks/signal-chain';
 import type { RigChecks, SignalChain } from '../checks/types';
 import { levelRank } from '../domain';
 import type { FunctionItem, PriceBook } from '../price-book/types';
-import { shopFormat } from '../format/shop-format';
 import { rigWords as w } from '../words';
+import { bookIndex, rateWordsOf, type BookIndex } from './book-index';
 import { EstimateInputError } from './errors';
+import { compare, exactOf, figure, plus, roundHalfUp, times, timesInt, toFixedText, ZERO, type Exact } from './exact';
 import { minorUnitDigits, roundToMinorUnit } from './money';
 import type { EstimateLine, EstimateResult, RigConfiguration } from './types';
 
-const hours = (d: Decimal) => d.toFixed(2);
+/** Hours are written with two decimals (rounded half up). */
+const hours = (h: Exact) => toFixedText(h, 2);
 
-/**
- * The price book's figures are decimal strings; each is parsed once and the (immutable) Decimal
- * reused, since every estimate reads the same few dozen of them.
- */
-const parsedValues = new Map<string, Decimal>();
-function parsed(value: string): Decimal {
-  let d = parsedValues.get(value);
-  if (!d) {
-    if (parsedValues.size > 4096) parsedValues.clear();
-    d = new Decimal(value);
-    parsedValues.set(value, d);
-  }
-  return d;
-}
 const count = (n: number) => String(n);
 
 /** Looks every id of the configuration up in the book; a miss is the player's to fix, by field. */
-function resolve(config: RigConfiguration, book: PriceBook) {
+function resolve(config: RigConfiguration, book: PriceBook, index: BookIndex) {
   if (minorUnitDigits(book.currency) === undefined) throw new EstimateInputError('currency', w.unknownCurrency(book.currency));
-  const surface = book.surfaces.find((s) => s.id === config.surfaceId);
+  const surface = index.surfaces.get(config.surfaceId);
   if (!surface) throw new EstimateInputError('surfaceId', w.unknownSurface(config.surfaceId));
-  const rigCase = book.cases.find((c) => c.id === config.caseId);
+  const rigCase = index.cases.get(config.caseId);
   if (!rigCase) throw new EstimateInputError('caseId', w.unknownCase(config.caseId));
   if (rigCase.fitsSurfaceIds.length > 0 && !rigCase.fitsSurfaceIds.includes(surface.id)) {
     throw new EstimateInputError('caseId', w.caseDoesNotFit(rigCase.name, surface.name));
   }
   const functions: FunctionItem[] = config.functions.map((code, i) => {
-    const fn = book.functions.find((f) => f.code === code);
+    const fn = index.functions.get(code);
     if (!fn) throw new EstimateInputError(`functions[${i}]`, w.unknownExtra(code));
     return fn;
   });
-  const level = book.levels.find((l) => l.code === config.level);
+  const level = index.levels.get(config.level);
   if (!level) throw new EstimateInputError('level', w.noRates(config.level));
   return { surface, rigCase, functions, level };
 }
@@ -55,7 +43,7 @@ function resolve(config: RigConfiguration, book: PriceBook) {
 interface LaborItem {
   code: string;
   label: string;
-  hours: Decimal;
+  hours: Exact;
   quantity: string;
   unit: string;
   explanation: string;
@@ -67,8 +55,8 @@ interface LaborItem {
  * since both of its ends are cabled; each function its own hours (wet/dry/wet counting as two).
  */
 function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBook): LaborItem[] {
-  const serialHours = parsed(book.labor.hoursPerDeviceSerial);
-  const loopHours = parsed(book.labor.hoursPerDeviceSwitcher);
+  const serialHours = figure(book.labor.hoursPerDeviceSerial);
+  const loopHours = figure(book.labor.hoursPerDeviceSwitcher);
   const mainDevices = chain.main.length;
   const loopDevices = chain.loops.length;
   const items: LaborItem[] = [
@@ -78,20 +66,20 @@ function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBo
         chain.routing === 'serial'
           ? 'Mount and wire each device in series'
           : 'Mount and wire each device outside the loops (the switcher too)',
-      hours: serialHours.times(mainDevices),
+      hours: timesInt(serialHours, mainDevices),
       quantity: count(mainDevices),
       unit: 'device',
-      explanation: `${mainDevices} × ${serialHours.toFixed(2)} h`,
+      explanation: `${mainDevices} × ${hours(serialHours)} h`,
     },
   ];
   if (loopDevices > 0) {
     items.push({
       code: 'labor_loop_devices',
       label: 'Mount and wire each pedal through a switcher loop (send and return)',
-      hours: loopHours.times(loopDevices),
+      hours: timesInt(loopHours, loopDevices),
       quantity: count(loopDevices),
       unit: 'device',
-      explanation: `${loopDevices} × ${loopHours.toFixed(2)} h`,
+      explanation: `${loopDevices} × ${hours(loopHours)} h`,
     });
   }
   if (chain.devices.some((d) => d.powered)) {
@@ -101,18 +89,18 @@ function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBo
       hours: serialHours,
       quantity: '1',
       unit: 'supply',
-      explanation: `1 × ${serialHours.toFixed(2)} h`,
+      explanation: `1 × ${hours(serialHours)} h`,
     });
   }
   for (const fn of functions) {
-    const h = parsed(fn.laborHours);
+    const h = figure(fn.laborHours);
     items.push({
       code: `function_${fn.code}`,
       label: fn.name,
       hours: h,
       quantity: count(1),
       unit: 'function',
-      explanation: fn.functionCount > 1 ? `${h.toFixed(2)} h (counts as ${fn.functionCount} functions)` : `${h.toFixed(2)} h`,
+      explanation: fn.functionCount > 1 ? `${hours(h)} h (counts as ${fn.functionCount} functions)` : `${hours(h)} h`,
     });
   }
   return items;
@@ -124,11 +112,12 @@ function laborItems(chain: SignalChain, functions: FunctionItem[], book: PriceBo
  * always give the same answer, so an old quote can be re-derived from its stored version.
  */
 export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { version: number; locale?: string }): EstimateResult {
-  const { surface, rigCase, functions, level } = resolve(config, book);
+  const index = bookIndex(book);
+  const { surface, rigCase, functions, level } = resolve(config, book, index);
   const currency = book.currency;
   const digits = minorUnitDigits(currency)!;
   // Each line is rounded to the minor unit (ISO 4217) once, here; every total is a sum of these.
-  const fmt = (v: Decimal.Value) => (v instanceof Decimal ? v : new Decimal(v)).toFixed(digits, Decimal.ROUND_HALF_UP);
+  const fmt = (v: Exact) => toFixedText(v, digits);
 
   const chain = signalChainOf(config);
   const schedule = cableScheduleOf(chain, functions, book.materials);
@@ -140,23 +129,23 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
   const m = book.materials;
   const mounted = chain.devices.length;
   const fastenerRate = chain.routing === 'switcher' ? m.fastenersPerPedalSwitcher : m.fastenersPerPedalSerial;
-  const hookFeet = parsed(m.hookAndLoopFeetPerPedal).times(mounted);
+  const hookFeet = timesInt(figure(m.hookAndLoopFeetPerPedal), mounted);
   // Each line's amount is rounded to the minor unit once, and every total is the sum of those
   // rounded amounts, so the lines always add up to the totals exactly.
-  const round = (v: Decimal) => v.toDecimalPlaces(digits, Decimal.ROUND_HALF_UP);
+  const round = (v: Exact) => roundHalfUp(v, digits);
   const lines: EstimateLine[] = [];
-  let materialsTotal = new Decimal(0);
-  const materialLine = (code: string, label: string, quantity: number | Decimal, unit: string, unitPrice: string, explanation?: string) => {
-    const amount = round(parsed(unitPrice).times(quantity));
-    materialsTotal = materialsTotal.plus(amount);
+  let materialsTotal = ZERO;
+  const materialLine = (code: string, label: string, quantity: number | Exact, unit: string, unitPrice: string, explanation?: string) => {
+    const amount = round(typeof quantity === 'number' ? timesInt(figure(unitPrice), quantity) : times(figure(unitPrice), quantity));
+    materialsTotal = plus(materialsTotal, amount);
     lines.push({
       code,
       label,
       kind: 'materials',
-      quantity: typeof quantity === 'number' ? count(quantity) : quantity.toFixed(2),
+      quantity: typeof quantity === 'number' ? count(quantity) : toFixedText(quantity, 2),
       unit,
       unitPrice,
-      amount: amount.toFixed(digits),
+      amount: fmt(amount),
       ...(explanation ? { explanation } : {}),
     });
   };
@@ -176,7 +165,7 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
     materialLine(
       'patch_cable',
       'Audio patch cable',
-      new Decimal(schedule.cableFeet),
+      figure(schedule.cableFeet),
       'ft',
       m.cablePricePerFoot,
       `${schedule.patchCount} patches × (${m.patchLengthFeet} ft + ${m.spareFeetPerPatch} ft spare)`,
@@ -194,21 +183,21 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
     );
   }
 
-  const rateLow = parsed(level.rateLow);
-  const rateHigh = parsed(level.rateHigh);
+  const rateLow = figure(level.rateLow);
+  const rateHigh = figure(level.rateHigh);
   const rateLowText = fmt(rateLow);
   const rateHighText = fmt(rateHigh);
   // The rate in words comes from the one formatter, with the currency ("$100.00–$150.00").
-  const rateWords = shopFormat({ currency, ...(meta.locale && { locale: meta.locale }) }).moneyRange(rateLow.toFixed(), rateHigh.toFixed());
-  let laborHours = new Decimal(0);
-  let laborLow = new Decimal(0);
-  let laborHigh = new Decimal(0);
+  const rateWords = rateWordsOf(index, level, currency, meta.locale);
+  let laborHours = ZERO;
+  let laborLow = ZERO;
+  let laborHigh = ZERO;
   for (const item of laborItems(chain, functions, book)) {
-    const low = round(item.hours.times(rateLow));
-    const high = round(item.hours.times(rateHigh));
-    laborHours = laborHours.plus(item.hours);
-    laborLow = laborLow.plus(low);
-    laborHigh = laborHigh.plus(high);
+    const low = round(times(item.hours, rateLow));
+    const high = round(times(item.hours, rateHigh));
+    laborHours = plus(laborHours, item.hours);
+    laborLow = plus(laborLow, low);
+    laborHigh = plus(laborHigh, high);
     const basis = `${item.quantity} ${item.unit}${item.quantity === '1' ? '' : 's'}: ${item.explanation}`;
     lines.push({
       code: item.code,
@@ -217,16 +206,15 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
       quantity: hours(item.hours),
       unit: 'h',
       unitPrice: rateLowText,
-      amount: low.toFixed(digits),
-      amountHigh: high.toFixed(digits),
+      amount: fmt(low),
+      amountHigh: fmt(high),
       explanation: w.laborAt(basis, rateWords),
       basis,
     });
   }
 
-  const totalLow = materialsTotal.plus(laborLow);
-  const totalHigh = materialsTotal.plus(laborHigh);
-  const deposit = depositFor(totalHigh, totalLow, book, currency);
+  const totalLow = plus(materialsTotal, laborLow);
+  const totalHigh = plus(materialsTotal, laborHigh);
 
   return {
     priceBookVersion: meta.version,
@@ -239,12 +227,12 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
     laborHigh: fmt(laborHigh),
     totalLow: fmt(totalLow),
     totalHigh: fmt(totalHigh),
-    deposit: fmt(deposit),
+    deposit: fmt(depositOf(totalHigh, totalLow, book, digits)),
     rate: { low: rateLowText, high: rateHighText },
     minimumLevel: complexity.minimumLevel,
     minimumLevelReasons: complexity.reasons,
-    notes: notesFor(config, checks, rigCase, book, 'player'),
-    staffNotes: notesFor(config, checks, rigCase, book, 'staff'),
+    notes: notesFor(config, checks, rigCase, index, 'player'),
+    staffNotes: notesFor(config, checks, rigCase, index, 'staff'),
     checks,
   };
 }
@@ -254,9 +242,20 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
  * of the estimate itself; rounded to the currency's minor unit (ISO 4217).
  */
 export function depositFor(totalHigh: Decimal.Value, totalLow: Decimal.Value, book: PriceBook, currency = book.currency): Decimal {
-  const share = new Decimal(totalHigh).times(book.depositPolicy.percent).dividedBy(100);
-  const floor = Decimal.max(share, book.depositPolicy.minimum);
-  return roundToMinorUnit(Decimal.min(floor, totalLow), currency);
+  // The currency's minor unit (roundToMinorUnit refuses a code ISO 4217 does not list, as it always did here).
+  const digits = minorUnitDigits(currency) ?? roundToMinorUnit(0, currency).decimalPlaces();
+  const deposit = depositOf(exactOf(new Decimal(totalHigh)), exactOf(new Decimal(totalLow)), book, digits);
+  return new Decimal(toFixedText(deposit, digits));
+}
+
+/** depositFor on exact amounts, `digits` being the currency's minor unit. */
+function depositOf(totalHigh: Exact, totalLow: Exact, book: PriceBook, digits: number): Exact {
+  // percent / 100 is the same digits two places further right.
+  const percent = figure(book.depositPolicy.percent);
+  const share = times(totalHigh, { n: percent.n, scale: percent.scale + 2 });
+  const minimum = figure(book.depositPolicy.minimum);
+  const floor = compare(share, minimum) >= 0 ? share : minimum;
+  return roundHalfUp(compare(floor, totalLow) <= 0 ? floor : totalLow, digits);
 }
 
 /** Who reads a note: the player (configurator, quote, build page) or the shop (backoffice, build sheet). */
@@ -271,7 +270,7 @@ function notesFor(
   config: RigConfiguration,
   checks: RigChecks,
   rigCase: PriceBook['cases'][number],
-  book: PriceBook,
+  index: BookIndex,
   reader: NoteReader,
 ): string[] {
   const forPlayer = reader === 'player';
@@ -283,7 +282,7 @@ function notesFor(
   }
   const { complexity, powerBudget, boardFit } = checks;
   if (levelRank(config.level) < levelRank(complexity.minimumLevel)) {
-    const level = book.levels.find((l) => l.code === complexity.minimumLevel);
+    const level = index.levels.get(complexity.minimumLevel);
     const name = level?.name ?? complexity.minimumLevel;
     notes.push(
       forPlayer
