@@ -1,5 +1,7 @@
+import { sql } from 'kysely';
 import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { depositStatusFromPaymentsSql } from '../src/bookings/bookings.repository';
 import { eventually, payByBankOnHostedPage, payOnHostedPage, startPaymentHarness, type PaymentHarness } from './support/payment-harness';
 
 /**
@@ -377,5 +379,19 @@ describe('payment outcomes the provider reports after checkout', () => {
     expect(sent.length).toBeGreaterThan(20);
     expect(answers.every((a) => a.status === 200 && a.body.duplicate)).toBe(true);
     expect(await count()).toEqual(before);
+  });
+
+  it('leaves every booking with the deposit word its payment rows give, after all the outcomes above', async () => {
+    // The word is kept on the booking by a trigger on payments; the lists filter on it. This is the
+    // definition it replaced, worked out again from the payment rows of each booking.
+    const drift = await h.t.db
+      .selectFrom('bookings')
+      .select(['reference', 'deposit_status', depositStatusFromPaymentsSql.as('from_payments')])
+      .where(sql<boolean>`bookings.deposit_status is distinct from ${depositStatusFromPaymentsSql}`)
+      .execute();
+    expect(drift).toEqual([]);
+    const words = await h.t.db.selectFrom('bookings').select('deposit_status').distinct().execute();
+    // The outcomes above leave paid, refunded and disputed deposits at least.
+    expect(words.map((w) => w.deposit_status)).toEqual(expect.arrayContaining(['paid', 'refunded', 'disputed']));
   });
 });

@@ -2,12 +2,14 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BookingSummary, DepositStatus, Page } from '@loomwright/shared';
 import { depositStatuses } from '@loomwright/shared';
+import { depositStatusFromPaymentsSql } from '../src/bookings/bookings.repository';
 import { seedYearOfData } from '../src/database/seed/year-of-data';
 import { sessionCookieFor } from './support/sessions';
 import { createTestApp, type TestApp } from './support/test-app';
 
 // The benchmark's data generator at a small scale, and the bookings list's rewritten filters checked
-// against the plain definitions they replace (the deposit CASE shown on each row, ILIKE over the joins).
+// against the plain definitions they replace (the deposit word worked out from the payment rows,
+// ILIKE over the joins, ORDER BY … OFFSET).
 describe('a year of data (benchmark seed, small scale) and the lists over it', () => {
   let t: TestApp;
   let owner: string;
@@ -51,10 +53,50 @@ describe('a year of data (benchmark seed, small scale) and the lists over it', (
     return res.body as Page<BookingSummary>;
   };
 
+  /** Bookings whose kept deposit word differs from the one their payment rows give. */
+  const drift = async () =>
+    (
+      await t.db
+        .selectFrom('bookings')
+        .select(['reference', 'deposit_status', depositStatusFromPaymentsSql.as('from_payments')])
+        .where(sql<boolean>`bookings.deposit_status is distinct from ${depositStatusFromPaymentsSql}`)
+        .execute()
+    ).map((r) => `${r.reference}: kept ${r.deposit_status}, payments say ${r.from_payments}`);
+
+  it("keeps each booking's deposit word equal to what its payment rows say, through inserts, updates and deletes", async () => {
+    expect(await drift()).toEqual([]);
+    const paid = await sql<{ id: string; booking_id: string }>`
+      select id, booking_id from payments where kind = 'deposit' and status = 'paid' order by created_at limit 1`.execute(t.db);
+    const { id, booking_id: bookingId } = paid.rows[0]!;
+    const word = async () =>
+      (await t.db.selectFrom('bookings').select('deposit_status').where('id', '=', bookingId).executeTakeFirstOrThrow()).deposit_status;
+    await sql`update payments set dispute_id = 'dp_drift', dispute_status = 'needs_response' where id = ${id}`.execute(t.db);
+    expect(await word()).toBe('disputed');
+    // A dispute the shop won leaves the money where it was.
+    await sql`update payments set dispute_status = 'won' where id = ${id}`.execute(t.db);
+    expect(await word()).toBe('paid');
+    await sql`update payments set status = 'refunded' where id = ${id}`.execute(t.db);
+    expect(await word()).toBe('refunded');
+    // An open checkout beside a refunded deposit: refunded still names it (the CASE's order).
+    await sql`insert into payments (booking_id, kind, amount, amount_minor, currency, status)
+      values (${bookingId}, 'deposit', 10, 1000, 'USD', 'pending')`.execute(t.db);
+    expect(await word()).toBe('refunded');
+    await sql`delete from payments where booking_id = ${bookingId} and kind = 'deposit' and status = 'refunded'`.execute(t.db);
+    expect(await word()).toBe('pending');
+    await sql`delete from payments where booking_id = ${bookingId} and kind = 'deposit'`.execute(t.db);
+    expect(await word()).toBe('unpaid');
+    // A balance payment says nothing about the deposit.
+    await sql`insert into payments (booking_id, kind, amount, amount_minor, currency, status)
+      values (${bookingId}, 'balance', 10, 1000, 'USD', 'pending')`.execute(t.db);
+    expect(await word()).toBe('unpaid');
+    expect(await drift()).toEqual([]);
+  });
+
   it('filters by deposit exactly as each row names its deposit', async () => {
     // One open dispute, so every status the CASE knows is present.
     await sql`update payments set dispute_id = 'dp_bench', dispute_status = 'needs_response'
       where id = (select id from payments where kind = 'deposit' and status = 'paid' limit 1)`.execute(t.db);
+    expect(await drift()).toEqual([]);
     const everything = [];
     for (let page = 1; ; page++) {
       const res = await list(`pageSize=100&page=${page}`);
@@ -125,6 +167,32 @@ describe('a year of data (benchmark seed, small scale) and the lists over it', (
         expect([...first.items, ...second.items].map((i) => i.id)).toEqual(both.items.map((i) => i.id));
       }
     }
+    // Pages past the middle are read from the far end in the reverse order: the same rows as
+    // PostgreSQL's own ORDER BY … OFFSET (nulls of bench_date included), a short last page too.
+    for (const [sort, order] of [
+      ['bench_date', 'asc'],
+      ['bench_date', 'desc'],
+      ['created_at', 'desc'],
+      ['state', 'asc'],
+    ] as const) {
+      for (const page of [40, 41, 66, 67, 68]) {
+        const expected = await sql<{ id: string }>`select id from bookings
+          order by ${sql.ref(sort)} ${sql.raw(order)}, id ${sql.raw(order)} limit 30 offset ${(page - 1) * 30}`.execute(t.db);
+        const res = await list(`sort=${sort}&order=${order}&pageSize=30&page=${page}`);
+        expect(
+          res.items.map((i) => i.id),
+          `${sort} ${order} page ${page}`,
+        ).toEqual(expected.rows.map((r) => r.id));
+      }
+    }
+    const deliveredTotal = (await list('state=delivered&pageSize=7')).total;
+    const lastDelivered = Math.ceil(deliveredTotal / 7);
+    const expectedLast = await sql<{ id: string }>`select id from bookings where state = 'delivered'
+      order by created_at asc, id asc limit 7 offset ${(lastDelivered - 1) * 7}`.execute(t.db);
+    const gotLast = await list(`state=delivered&sort=created_at&order=asc&pageSize=7&page=${lastDelivered}`);
+    expect(gotLast.items.map((i) => i.id)).toEqual(expectedLast.rows.map((r) => r.id));
+    expect((await list(`state=delivered&pageSize=7&page=${lastDelivered + 1}`)).items).toEqual([]);
+
     const last = await list(`pageSize=25&page=${scale.bookings / 25}`);
     expect(last.items).toHaveLength(25);
     expect(last.items.at(-1)!.reference).toBe('LW-Y000001');

@@ -73,9 +73,13 @@ function afterRow(sort: BookingListQuery['sort'], order: 'asc' | 'desc', after: 
   return sql<boolean>`((${col}, ${id}) ${cmp} (${after.key}::date, ${after.id}::uuid)${tail})`;
 }
 
-// A booking's deposit in one word, from its payment rows: paid wins over an open checkout.
-// A dispute the bank has not decided for the shop shows first: the money may not stay.
-const depositStatusSql = sql<DepositStatus>`(
+/**
+ * A booking's deposit in one word, worked out from its payment rows: paid wins over an open checkout,
+ * and a dispute the bank has not decided for the shop shows first (the money may not stay). Lists
+ * read the word kept on the booking row (`bookings.deposit_status`, written by a trigger on payments,
+ * migration 20261202_1345); this is the definition it must always agree with, for checks.
+ */
+export const depositStatusFromPaymentsSql = sql<DepositStatus>`(
   case
     when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.dispute_id is not null
                  and p.dispute_status not in ('won', 'warning_closed')) then 'disputed'
@@ -86,21 +90,23 @@ const depositStatusSql = sql<DepositStatus>`(
     else 'unpaid'
   end)`;
 
-const depositExists = (status: string) =>
-  sql<boolean>`exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = ${status})`;
-const disputeOpen = sql<boolean>`exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit'
-  and p.dispute_id is not null and p.dispute_status not in ('won', 'warning_closed'))`;
+/** The (sort, id) order of a list page, or its reverse (for a page nearer the end than the start). */
+function flip(order: 'asc' | 'desc', reverse: boolean): 'asc' | 'desc' {
+  if (!reverse) return order;
+  return order === 'asc' ? 'desc' : 'asc';
+}
 
-/** The same decision as depositStatusSql, as a condition the planner can run as joins. */
-function depositStatusIs(status: DepositStatus) {
-  const order = ['paid', 'refunded', 'processing', 'pending'] as const;
-  if (status === 'disputed') return disputeOpen;
-  const earlier = [sql<boolean>`not ${disputeOpen}`];
-  for (const s of order) {
-    if (s === status) return sql<boolean>`(${sql.join([...earlier, depositExists(s)], sql` and `)})`;
-    earlier.push(sql<boolean>`not ${depositExists(s)}`);
-  }
-  return sql<boolean>`(${sql.join(earlier, sql` and `)})`;
+/**
+ * Where a page starts when it is read from the far end of the list: a page past the middle is the
+ * same rows as a short page counted back from the end in the reverse order, so the index skips
+ * `total - offset - limit` entries instead of `offset` (the last page of 100,000 rows skips none).
+ * Null when the page is nearer the start. PostgreSQL's reverse of `asc` (nulls last) is `desc`
+ * (nulls first), so a nullable sort column reverses exactly too.
+ */
+export function fromTheEnd(total: number, offset: number, limit: number): { offset: number; limit: number } | null {
+  if (offset <= total / 2 || offset >= total) return null;
+  const back = total - offset - limit;
+  return back >= 0 ? { offset: back, limit } : { offset: 0, limit: limit + back };
 }
 
 @Injectable()
@@ -145,24 +151,11 @@ export class BookingsRepository {
     );
   }
 
-  private listBase(trx: Executor, query: Omit<BookingListQuery, 'sort' | 'order' | 'limit' | 'offset'>) {
-    return this.filtered(
-      trx
-        .selectFrom('bookings')
-        .innerJoin('users as customer', 'customer.id', 'bookings.customer_id')
-        .leftJoin('builders', 'builders.id', 'bookings.builder_id')
-        .leftJoin('users as builder_user', 'builder_user.id', 'builders.user_id'),
-      trx,
-      query,
-    );
-  }
-
   /**
    * The list's filters, written on `bookings` alone so the count needs no join and each can use an
    * index: the search is a union of the reference's and the customers' trigram matches (an OR across
-   * two joined tables could only be a full scan), the deposit filter a set of EXISTS / NOT EXISTS
-   * that the planner turns into semi- and anti-joins on payments (the CASE that names the status
-   * is kept for display only).
+   * two joined tables could only be a full scan); the deposit filter reads the word kept on the
+   * booking (bookings_deposit_created_idx).
    */
   private filtered<QB extends SelectQueryBuilder<DB, 'bookings', object>>(
     qb: QB,
@@ -172,7 +165,7 @@ export class BookingsRepository {
     let out = qb;
     if (query.customerId) out = out.where('bookings.customer_id', '=', query.customerId) as QB;
     if (query.state) out = out.where('bookings.state', '=', query.state as BookingRow['state']) as QB;
-    if (query.depositStatus) out = out.where(depositStatusIs(query.depositStatus as DepositStatus)) as QB;
+    if (query.depositStatus) out = out.where('bookings.deposit_status', '=', query.depositStatus as DepositStatus) as QB;
     if (query.q) {
       const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
       const customers = (column: 'name' | 'email') =>
@@ -200,17 +193,33 @@ export class BookingsRepository {
     return out;
   }
 
-  /** A list row: the booking with its customer, builder and deposit status. */
-  private listRows(trx: Executor, query: Omit<BookingListQuery, 'sort' | 'order' | 'limit' | 'offset'>) {
-    return this.listBase(trx, query)
+  /**
+   * A list row: the booking (its deposit word included) with its customer and builder. The builder is
+   * found by key for each row (a lateral subquery with a limit, which PostgreSQL keeps as a loop):
+   * a plain join made the planner hash every user in the shop to name some twenty builders.
+   */
+  private listRows(trx: Executor) {
+    return trx
+      .selectFrom('bookings')
+      .innerJoin('users as customer', 'customer.id', 'bookings.customer_id')
+      .leftJoinLateral(
+        (eb) =>
+          eb
+            .selectFrom('builders')
+            .innerJoin('users', 'users.id', 'builders.user_id')
+            .select(['users.id as user_id', 'users.name', 'builders.level'])
+            .whereRef('builders.id', '=', 'bookings.builder_id')
+            .limit(1)
+            .as('builder'),
+        (join) => join.onTrue(),
+      )
       .selectAll('bookings')
       .select([
         'customer.name as customer_name',
         'customer.email as customer_email',
-        'builder_user.id as builder_user_id',
-        'builder_user.name as builder_name',
-        'builders.level as builder_level',
-        depositStatusSql.as('deposit_status'),
+        'builder.user_id as builder_user_id',
+        'builder.name as builder_name',
+        'builder.level as builder_level',
       ]);
   }
 
@@ -218,30 +227,43 @@ export class BookingsRepository {
     query: BookingListQuery,
     trx: Executor = this.db,
   ): Promise<{ rows: Array<BookingListRow & { sort_key: string | null }>; total: number }> {
-    const { total } = await this.filtered(trx.selectFrom('bookings'), trx, query)
-      .select((eb) => eb.fn.countAll<string>().as('total'))
-      .executeTakeFirstOrThrow();
+    const count = () =>
+      this.filtered(trx.selectFrom('bookings'), trx, query)
+        .select((eb) => eb.fn.countAll<string>().as('total'))
+        .executeTakeFirstOrThrow()
+        .then((r) => Number(r.total));
     // The id breaks ties in the same direction as the sort, so one index (sort column, id) serves both orders.
     // The page's ids are found first on bookings alone: rows skipped by OFFSET are then only index
-    // entries, never joined rows with their deposit status worked out (which made a late page cost seconds).
-    let pageIds = this.filtered(trx.selectFrom('bookings'), trx, query)
-      .select('bookings.id')
-      .orderBy(`bookings.${query.sort}`, query.order)
-      .orderBy('bookings.id', query.order)
-      .limit(query.limit);
-    pageIds = query.after ? pageIds.where(afterRow(query.sort, query.order, query.after)) : pageIds.offset(query.offset);
-    const rows = await this.listRows(trx, {})
-      // The sort value as PostgreSQL writes it (microseconds kept), for the next page's cursor.
-      .select(sql<string | null>`${sql.ref(`bookings.${query.sort}`)}::text`.as('sort_key'))
-      .where('bookings.id', 'in', pageIds)
-      .orderBy(`bookings.${query.sort}`, query.order)
-      .orderBy('bookings.id', query.order)
-      .execute();
-    return { rows: rows as Array<BookingListRow & { sort_key: string | null }>, total: Number(total) };
+    // entries, never joined rows.
+    const page = (reverse: boolean, limit: number, offset: number) => {
+      const ids = this.filtered(trx.selectFrom('bookings'), trx, query)
+        .select('bookings.id')
+        .orderBy(`bookings.${query.sort}`, flip(query.order, reverse))
+        .orderBy('bookings.id', flip(query.order, reverse))
+        .limit(limit);
+      return (
+        this.listRows(trx)
+          // The sort value as PostgreSQL writes it (microseconds kept), for the next page's cursor.
+          .select(sql<string | null>`${sql.ref(`bookings.${query.sort}`)}::text`.as('sort_key'))
+          .where('bookings.id', 'in', query.after ? ids.where(afterRow(query.sort, query.order, query.after)) : ids.offset(offset))
+          .orderBy(`bookings.${query.sort}`, query.order)
+          .orderBy('bookings.id', query.order)
+          .execute() as Promise<Array<BookingListRow & { sort_key: string | null }>>
+      );
+    };
+    if (query.after || query.offset === 0) {
+      // Count and page need nothing from each other: on the pool they run side by side.
+      const [total, rows] = await Promise.all([count(), page(false, query.limit, query.offset)]);
+      return { rows, total };
+    }
+    const total = await count();
+    const far = fromTheEnd(total, query.offset, query.limit);
+    const rows = far ? await page(true, far.limit, far.offset) : await page(false, query.limit, query.offset);
+    return { rows, total };
   }
 
   async findListRow(id: string, trx: Executor = this.db): Promise<BookingListRow | undefined> {
-    const row = await this.listRows(trx, {}).where('bookings.id', '=', id).executeTakeFirst();
+    const row = await this.listRows(trx).where('bookings.id', '=', id).executeTakeFirst();
     return row as BookingListRow | undefined;
   }
 

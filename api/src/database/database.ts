@@ -1,6 +1,15 @@
 import type { ColumnType, Generated, JSONColumnType } from 'kysely';
 import { Kysely } from 'kysely';
-import type { BookingState, BuilderLevel, EstimateResult, PriceBook, RigConfiguration, UserRole, WeeklyHours } from '@loomwright/shared';
+import type {
+  BookingState,
+  BuilderLevel,
+  DepositStatus,
+  EstimateResult,
+  PriceBook,
+  RigConfiguration,
+  UserRole,
+  WeeklyHours,
+} from '@loomwright/shared';
 
 /**
  * The typed shape of every table (see migrations/ for the constraints behind them).
@@ -135,6 +144,8 @@ export interface BookingsTable {
   level_override_reason: string | null;
   calendar_sequence: Generated<number>;
   price_consent: 'pending' | 'given' | null;
+  /** Kept by a trigger on payments (migration 20261202_1345); never written by the application. */
+  deposit_status: Generated<DepositStatus>;
   created_at: Timestamp;
   updated_at: Timestamp;
 }
