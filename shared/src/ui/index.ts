@@ -4,7 +4,7 @@
  */
 export { createQueryClient } from './query-client';
 export { PageLoading } from './PageLoading';
-export { RouteError } from './RouteError';
+export { RouteError, RouteErrorScreen } from './RouteError';
 export { ShopUnavailable } from './ShopUnavailable';
 export { FormTextField } from './FormTextField';
 export { authKeys, getMe, ME_RETRY_MS, meQueryOptions, switchPerson, useMe } from './get-me';

@@ -1,10 +1,11 @@
 import { CssVarsProvider } from '@mui/joy/styles';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, render, screen } from '@testing-library/react';
-import { createMemoryRouter, RouterProvider } from 'react-router';
+import { MemoryRouter, Route, Routes } from 'react-router';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { AppLayout } from './AppLayout';
+import { Page } from './Page';
 
 window.matchMedia ??= (query: string) =>
   ({
@@ -32,23 +33,17 @@ function renderAt(url: string) {
       return json(404, { message: 'not scripted' });
     }),
   );
-  const router = createMemoryRouter(
-    [
-      {
-        path: '/',
-        element: <AppLayout />,
-        children: [
-          { path: 'builds', handle: { title: 'My builds' }, element: <p>builds page</p> },
-          { path: 'nameless', element: <p>a page with no title of its own</p> },
-        ],
-      },
-    ],
-    { initialEntries: [url] },
-  );
   render(
     <CssVarsProvider theme={theme}>
       <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
-        <RouterProvider router={router} />
+        <MemoryRouter initialEntries={[url]}>
+          <Routes>
+            <Route path="/" element={<AppLayout />}>
+              <Route path="builds" element={<Page title="My builds" screen={() => <p>builds page</p>} />} />
+              <Route path="nameless" element={<Page screen={() => <p>a page with no title of its own</p>} />} />
+            </Route>
+          </Routes>
+        </MemoryRouter>
       </QueryClientProvider>
     </CssVarsProvider>,
   );

@@ -3,7 +3,6 @@ import Link from '@mui/joy/Link';
 import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import { Suspense } from 'react';
-import { useRouteTitle } from '@loomwright/shared/ui';
 import { Link as RouterLink, Outlet } from 'react-router';
 import { AccountNav } from 'src/features/auth/components/AccountNav';
 import { useHealth } from 'src/features/shop/api/get-health';
@@ -13,7 +12,6 @@ import { PageLoading } from 'src/components/PageLoading';
 export function AppLayout() {
   const shop = useShop();
   const health = useHealth();
-  useRouteTitle(shop.data?.name);
   return (
     <Box sx={{ minHeight: '100dvh', display: 'flex', flexDirection: 'column' }}>
       <Box component="a" href="#main" sx={{ position: 'absolute', left: -9999, '&:focus': { left: 16, top: 16, zIndex: 10 } }}>
@@ -32,17 +30,11 @@ export function AppLayout() {
           borderColor: 'divider',
         }}
       >
-        <Link
-          component={RouterLink}
-          to="/"
-          underline="none"
-          color="neutral"
-          sx={{ gap: 1.5, minWidth: 40, overflow: 'hidden' }}
-          aria-label={`${shop.data?.name ?? 'Loomwright'}: home`}
-        >
+        <Link component={RouterLink} to="/" underline="none" color="neutral" sx={{ gap: 1.5, minWidth: 40, overflow: 'hidden' }}>
           <BoardMark />
-          {/* On a phone the mark stands alone: the links need the width, and a clipped name helps nobody. */}
-          <Box sx={{ minWidth: 0, display: { xs: 'none', sm: 'block' } }}>
+          {/* On a phone the mark stands alone (the links need the width, and a clipped name helps nobody); the
+              name stays for screen readers, so the link is named by the words it shows on a wider screen. */}
+          <Box sx={(theme) => ({ minWidth: 0, [theme.breakpoints.down('sm')]: visuallyHidden })}>
             <Typography level="title-lg" component="span" noWrap sx={{ display: 'block' }}>
               {shop.data?.name ?? 'Loomwright'}
             </Typography>
@@ -84,6 +76,16 @@ export function AppLayout() {
     </Box>
   );
 }
+
+/** Out of sight but read out (the usual clip pattern). */
+const visuallyHidden = {
+  position: 'absolute',
+  width: '1px',
+  height: '1px',
+  overflow: 'hidden',
+  clip: 'rect(0 0 0 0)',
+  whiteSpace: 'nowrap',
+} as const;
 
 /** Our mark: a board seen from above with three pedals on it (colours from the theme). */
 function BoardMark() {
