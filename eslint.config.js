@@ -76,6 +76,22 @@ module.exports = tseslint.config(
       'react-hooks/exhaustive-deps': 'error',
     },
   },
+  // TanStack Query keys come from each feature's key factory (`features/<name>/api/query-keys.ts`),
+  // so a query and every invalidation of it name the same key: a literal array is refused elsewhere.
+  {
+    files: [...apps.map((app) => `${app}/src/**/*.{ts,tsx}`), 'shared/src/ui/**/*.{ts,tsx}'],
+    ignores: ['**/query-keys.ts'],
+    rules: {
+      'no-restricted-syntax': [
+        'error',
+        {
+          selector: 'Property[key.name="queryKey"] > ArrayExpression.value',
+          message:
+            "Build query keys with the feature's key factory in api/query-keys.ts (for example bookingKeys.detail(id)), not a literal array.",
+        },
+      ],
+    },
+  },
   // Import boundaries between the layers and between the features of each app.
   {
     files: ['{shared,api,storefront,backoffice}/**/*.{ts,tsx}'],

@@ -3,27 +3,8 @@ import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { isCalendarDay, type BenchPreview, type BenchPreviewOption } from '@loomwright/shared';
-import { api } from 'src/lib/api-client';
+import type { BenchPreviewOption } from '@loomwright/shared';
 import { formatDay, formatHours, formatMoney } from 'src/lib/format';
-
-export const getBenchPreview = (query: { bookingId: string; benchDate: string; builderId: string }, signal?: AbortSignal) =>
-  api.get<BenchPreview>('/bench/preview', { query, signal });
-
-export const benchPreviewQueryOptions = (query: { bookingId: string; benchDate: string; builderId: string }) =>
-  queryOptions({
-    queryKey: ['bench', 'preview', query],
-    queryFn: ({ signal }) => getBenchPreview(query, signal),
-    placeholderData: keepPreviousData,
-    staleTime: 0,
-  });
-
-/** The preview of one builder and day, for the accept and move dialogs (null until chosen). */
-export function useBenchPreview(bookingId: string | null, builderId: string | null, benchDate: string) {
-  const ready = Boolean(bookingId && builderId && isCalendarDay(benchDate));
-  return useQuery({ ...benchPreviewQueryOptions({ bookingId: bookingId ?? '', builderId: builderId ?? '', benchDate }), enabled: ready });
-}
 
 /**
  * What choosing a day means before submitting: the builder's load on each day the build would

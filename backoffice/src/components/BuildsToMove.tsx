@@ -9,6 +9,8 @@ import { useState } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { api } from 'src/lib/api-client';
 import { formatDay } from 'src/lib/format';
+import { benchKeys } from 'src/features/bench/api/query-keys';
+import { bookingKeys } from 'src/features/bookings/api/query-keys';
 
 export interface HitBuild {
   bookingId: string;
@@ -50,8 +52,7 @@ export function BuildsToMove({ builds, reason, onDone }: { builds: HitBuild[]; r
       setMoved((m) => ({ ...m, ...Object.fromEntries(results.map((r) => [r.id, r.result.benchDate])) }));
       onDone(`Moved ${results.length === 1 ? 'the build' : `${results.length} builds`}; each player has been e-mailed the new date.`);
     },
-    onSettled: () =>
-      Promise.all([queryClient.invalidateQueries({ queryKey: ['bench'] }), queryClient.invalidateQueries({ queryKey: ['bookings'] })]),
+    onSettled: () => Promise.all([benchKeys.all, bookingKeys.all].map((queryKey) => queryClient.invalidateQueries({ queryKey }))),
   });
   const waiting = builds.filter((b) => !moved[b.bookingId]);
   if (builds.length === 0) return null;

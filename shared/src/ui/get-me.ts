@@ -6,7 +6,7 @@ import { createApiClient, isSignedOutError } from '../api-client';
 const api = createApiClient('/api');
 
 /** Every query about the signed-in person lives under this key; sign-in and sign-out reset it. */
-export const authKeys = { all: ['auth'] as const, me: () => ['auth', 'me'] as const };
+export const authKeys = { all: ['auth'] as const, me: () => [...authKeys.all, 'me'] as const };
 
 /**
  * The signed-in person (player or staff), or null when nobody is signed in. Asked of

@@ -1,13 +1,13 @@
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
 import { ApiError, isShopAwayError, isSignedOutError } from '../api-client';
-import { ME_RETRY_MS } from './get-me';
+import { authKeys, ME_RETRY_MS } from './get-me';
 
 /** The one QueryClient setup both apps use. */
 export function createQueryClient() {
   // A 401 from any call means the session ran out: ask "who is signed in?" again, so the screens
   // that depend on it (the header, the staff guard) catch up at once.
   const onError = (error: unknown) => {
-    if (isSignedOutError(error)) void client.invalidateQueries({ queryKey: ['auth', 'me'] });
+    if (isSignedOutError(error)) void client.invalidateQueries({ queryKey: authKeys.me() });
   };
   const client: QueryClient = new QueryClient({
     queryCache: new QueryCache({ onError }),

@@ -18,7 +18,7 @@ import { ShopUnavailable } from 'src/components/ShopUnavailable';
 import { useMe } from 'src/features/auth/api/get-me';
 import { LeadTime } from 'src/features/bench/components/LeadTime';
 import { useCreateBooking } from 'src/features/bookings/api/create-booking';
-import { useEstimatePreview } from 'src/features/bookings/api/preview-estimate';
+import { useEstimate } from 'src/features/configurator/api/create-estimate';
 import { startCheckout } from 'src/features/payments/api/start-checkout';
 import { DepositPolicy } from 'src/features/payments/components/DepositPolicy';
 import { formatAmount, formatHours, formatRange } from 'src/lib/format';
@@ -30,7 +30,8 @@ export function Component() {
   const encoded = params.get(CONFIGURATION_PARAM) ?? '';
   const configuration = decodeConfiguration(encoded);
   const me = useMe();
-  const estimate = useEstimatePreview(encoded, me.data ? configuration : undefined);
+  // The whole answer (view `full`): the same cache entry the configurator's Review step filled.
+  const estimate = useEstimate(encoded, me.data ? configuration : undefined, 'full');
   const create = useCreateBooking();
   const [redirecting, setRedirecting] = useState(false);
   const [checkoutProblem, setCheckoutProblem] = useState<{ bookingId: string; message: string } | null>(null);

@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { BenchView } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { benchKeys } from './query-keys';
 
 export interface BenchQuery {
   from: string;
@@ -12,7 +13,7 @@ export const getBench = (query: BenchQuery, signal?: AbortSignal) => api.get<Ben
 
 export const benchQueryOptions = (query: BenchQuery) =>
   queryOptions({
-    queryKey: ['bench', 'view', query],
+    queryKey: benchKeys.view(query),
     queryFn: ({ signal }) => getBench(query, signal),
     placeholderData: keepPreviousData,
   });

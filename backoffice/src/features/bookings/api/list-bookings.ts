@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { BookingState, BookingSummary, DepositStatus, Page } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { bookingKeys } from './query-keys';
 
 export type BookingSort = 'created_at' | 'updated_at' | 'reference' | 'state' | 'bench_date';
 
@@ -21,7 +22,7 @@ export const listBookings = (query: BookingListQuery, signal?: AbortSignal) =>
 
 export const bookingsQueryOptions = (query: BookingListQuery) =>
   queryOptions({
-    queryKey: ['bookings', 'list', query],
+    queryKey: bookingKeys.list(query),
     queryFn: ({ signal }) => listBookings(query, signal),
     // The old page stays on screen while the next one loads, so the table never jumps to empty.
     placeholderData: keepPreviousData,

@@ -2,12 +2,13 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { BookingDetail, CancellationPreview, CancelScheduledInput } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
 import { invalidateBuild } from './invalidate';
+import { buildKeys } from './query-keys';
 
 export const getCancellation = (id: string, signal?: AbortSignal) =>
   api.get<CancellationPreview>(`/bookings/${encodeURIComponent(id)}/cancellation`, { signal });
 
 export const cancellationQueryOptions = (id: string) =>
-  queryOptions({ queryKey: ['builds', id, 'cancellation'], queryFn: ({ signal }) => getCancellation(id, signal), staleTime: 0 });
+  queryOptions({ queryKey: buildKeys.cancellation(id), queryFn: ({ signal }) => getCancellation(id, signal), staleTime: 0 });
 
 export const useCancellation = (id: string | null) => useQuery({ ...cancellationQueryOptions(id ?? ''), enabled: Boolean(id) });
 

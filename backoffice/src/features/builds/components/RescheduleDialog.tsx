@@ -16,10 +16,11 @@ import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
 import { dateShiftWords, isCalendarDay, rescheduleSchema } from '@loomwright/shared';
 import { useEffect, useState } from 'react';
-import { BenchDatePreview, useBenchPreview } from 'src/components/BenchDatePreview';
+import { BenchDatePreview } from 'src/components/BenchDatePreview';
+import { useBenchPreview } from 'src/features/bench/api/get-bench-preview';
+import { useBenchSuggestion } from 'src/features/bench/api/get-bench-suggestion';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay } from 'src/lib/format';
-import { useMoveOptions } from '../api/get-move-options';
 import { useRescheduleBooking } from '../api/reschedule-booking';
 
 /** The build being moved, as the Bench or the build page knows it. */
@@ -45,7 +46,7 @@ export function RescheduleDialog({
   onClose: () => void;
   onMoved?: (message: string) => void;
 }) {
-  const options = useMoveOptions(build?.bookingId ?? null);
+  const options = useBenchSuggestion(build?.bookingId ?? null);
   const move = useRescheduleBooking();
   const [builderId, setBuilderId] = useState<string | null>(null);
   const [benchDate, setBenchDate] = useState('');

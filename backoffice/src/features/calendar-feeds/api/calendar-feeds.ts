@@ -1,11 +1,12 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { CalendarFeedLink } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { calendarFeedKeys } from './query-keys';
 
 /** Every feed link (owner only). */
 export const useCalendarFeeds = (enabled: boolean) =>
   useQuery({
-    queryKey: ['calendar-feeds', 'all'],
+    queryKey: calendarFeedKeys.everyone(),
     queryFn: ({ signal }) => api.get<CalendarFeedLink[]>('/calendar-feeds', { signal }),
     enabled,
   });
@@ -13,7 +14,7 @@ export const useCalendarFeeds = (enabled: boolean) =>
 /** The signed-in builder's own feed link. */
 export const useMyCalendarFeed = () =>
   useQuery({
-    queryKey: ['calendar-feeds', 'mine'],
+    queryKey: calendarFeedKeys.mine(),
     queryFn: ({ signal }) => api.get<CalendarFeedLink[]>('/calendar-feeds/mine', { signal }),
   });
 
@@ -21,6 +22,6 @@ export function useRotateCalendarFeed() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (id: string) => api.post<CalendarFeedLink>(`/calendar-feeds/${id}/rotate`),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['calendar-feeds'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: calendarFeedKeys.all }),
   });
 }

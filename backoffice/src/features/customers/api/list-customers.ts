@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { CustomerPage } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { customerKeys } from './query-keys';
 
 export type CustomerSort = 'name' | 'email' | 'createdAt' | 'buildCount' | 'lastBookingAt';
 
@@ -17,7 +18,7 @@ export const listCustomers = (query: CustomerListQuery, signal?: AbortSignal) =>
 
 export const customersQueryOptions = (query: CustomerListQuery) =>
   queryOptions({
-    queryKey: ['customers', 'list', query],
+    queryKey: customerKeys.list(query),
     queryFn: ({ signal }) => listCustomers(query, signal),
     placeholderData: keepPreviousData,
   });

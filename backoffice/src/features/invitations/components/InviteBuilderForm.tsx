@@ -13,6 +13,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { Controller, useForm } from 'react-hook-form';
 import { useCreateInvitation } from 'src/features/invitations/api/create-invitation';
 import { formatStamp } from 'src/lib/format';
+import { teamKeys } from 'src/features/team/api/query-keys';
 
 const levelNames: Record<BuilderLevel, string> = { apprentice: 'Apprentice', journeyman: 'Journeyman', master: 'Master' };
 // Typical rates by level (common practice in the trade, no published source); the owner sets the real one.
@@ -31,7 +32,7 @@ export function InviteBuilderForm() {
   const onSubmit = handleSubmit((values) =>
     invite.mutate(values, {
       onSuccess: () => {
-        void queryClient.invalidateQueries({ queryKey: ['team'] });
+        void queryClient.invalidateQueries({ queryKey: teamKeys.all });
         reset();
       },
     }),

@@ -1,13 +1,9 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { MailLogPage, MailLogQuery } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { mailLogKeys } from './query-keys';
 
 export const getMailLog = (query: MailLogQuery, signal?: AbortSignal) => api.get<MailLogPage>('/mail', { query: { ...query }, signal });
-
-export const mailLogKeys = {
-  all: ['mail-log'] as const,
-  list: (query: MailLogQuery) => [...mailLogKeys.all, 'list', query] as const,
-};
 
 export const mailLogQueryOptions = (query: MailLogQuery) =>
   queryOptions({

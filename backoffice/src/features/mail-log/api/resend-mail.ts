@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { MailLogEntry, ResendMailInput } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { mailLogKeys } from 'src/features/mail-log/api/get-mail-log';
+import { mailLogKeys } from './query-keys';
 
 export type ResendMailVariables = { id: string } & NonNullable<ResendMailInput>;
 

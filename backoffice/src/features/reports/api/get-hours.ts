@@ -1,13 +1,14 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { DateRangeQuery, HoursReport } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { reportKeys } from './query-keys';
 
 export const getHoursReport = (range: DateRangeQuery, signal?: AbortSignal) =>
   api.get<HoursReport>('/reports/hours', { query: { ...range }, signal });
 
 export const hoursQueryOptions = (range: DateRangeQuery) =>
   queryOptions({
-    queryKey: ['reports', 'hours', range],
+    queryKey: reportKeys.hours(range),
     queryFn: ({ signal }) => getHoursReport(range, signal),
     placeholderData: keepPreviousData,
   });

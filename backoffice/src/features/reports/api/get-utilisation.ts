@@ -1,13 +1,14 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { DateRangeQuery, UtilisationReport } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { reportKeys } from './query-keys';
 
 export const getUtilisation = (range: DateRangeQuery, signal?: AbortSignal) =>
   api.get<UtilisationReport>('/reports/utilisation', { query: { ...range }, signal });
 
 export const utilisationQueryOptions = (range: DateRangeQuery) =>
   queryOptions({
-    queryKey: ['reports', 'utilisation', range],
+    queryKey: reportKeys.utilisation(range),
     queryFn: ({ signal }) => getUtilisation(range, signal),
     placeholderData: keepPreviousData,
   });

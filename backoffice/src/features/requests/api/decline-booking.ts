@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BookingDetail } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { bookingKeys } from 'src/features/bookings/api/query-keys';
 
 export const declineBooking = (id: string, reason: string) =>
   api.post<BookingDetail>(`/bookings/${encodeURIComponent(id)}/decline`, { reason });
@@ -9,6 +10,6 @@ export const useDeclineBooking = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ id, reason }: { id: string; reason: string }) => declineBooking(id, reason),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['bookings'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: bookingKeys.all }),
   });
 };

@@ -16,13 +16,14 @@ import Stack from '@mui/joy/Stack';
 import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
 import { dateShiftWords, isCalendarDay, type BenchSuggestion, type BookingSummary } from '@loomwright/shared';
-import { BenchDatePreview, useBenchPreview } from 'src/components/BenchDatePreview';
+import { BenchDatePreview } from 'src/components/BenchDatePreview';
+import { useBenchPreview } from 'src/features/bench/api/get-bench-preview';
+import { useBenchSuggestion } from 'src/features/bench/api/get-bench-suggestion';
 import { useEffect, useMemo, useState } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { PageLoading } from 'src/components/PageLoading';
 import { formatDay, formatHours, formatMoney, formatRate } from 'src/lib/format';
 import { useAcceptBooking } from '../api/accept-booking';
-import { useBenchSuggestion } from '../api/get-bench-suggestion';
 
 /**
  * Accepting a paid request: who builds it and from which day. Each builder's earliest bench date

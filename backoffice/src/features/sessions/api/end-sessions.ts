@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SessionsEnded } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { sessionKeys } from 'src/features/sessions/api/get-sessions';
+import { sessionKeys } from './query-keys';
 
 export const endSessions = (userId: string) =>
   api.request<SessionsEnded>(`/users/${encodeURIComponent(userId)}/sessions`, { method: 'DELETE' });

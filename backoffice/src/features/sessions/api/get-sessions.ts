@@ -1,8 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { PersonSessions } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-
-export const sessionKeys = { person: (userId: string) => ['sessions', userId] as const };
+import { sessionKeys } from './query-keys';
 
 export const getSessions = (userId: string, signal?: AbortSignal) =>
   api.get<PersonSessions>(`/users/${encodeURIComponent(userId)}/sessions`, { signal });

@@ -1,6 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AddClosureResponse } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { benchKeys } from 'src/features/bench/api/query-keys';
+import { settingsKeys } from './query-keys';
 
 export interface ClosureInput {
   startsOn: string;
@@ -14,6 +16,6 @@ export const useAddClosure = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: addClosure,
-    onSuccess: () => Promise.all(['settings', 'bench'].map((key) => queryClient.invalidateQueries({ queryKey: [key] }))),
+    onSuccess: () => Promise.all([settingsKeys.all, benchKeys.all].map((queryKey) => queryClient.invalidateQueries({ queryKey }))),
   });
 };

@@ -1,6 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { HolidayChoiceInput, HolidayChoiceResponse } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
+import { benchKeys } from 'src/features/bench/api/query-keys';
+import { settingsKeys } from './query-keys';
 
 export const chooseHoliday = ({ day, ...body }: HolidayChoiceInput & { day: string }) =>
   api.request<HolidayChoiceResponse>(`/settings/holidays/${encodeURIComponent(day)}`, { method: 'PUT', body });
@@ -11,6 +13,6 @@ export const useChooseHoliday = () => {
   return useMutation({
     mutationFn: chooseHoliday,
     // Bench capacity, suggestions and the storefront's lead time all follow the holiday.
-    onSuccess: () => Promise.all(['settings', 'bench'].map((key) => queryClient.invalidateQueries({ queryKey: [key] }))),
+    onSuccess: () => Promise.all([settingsKeys.all, benchKeys.all].map((queryKey) => queryClient.invalidateQueries({ queryKey }))),
   });
 };

@@ -1,5 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from 'src/lib/api-client';
+import { benchKeys } from 'src/features/bench/api/query-keys';
+import { settingsKeys } from './query-keys';
 
 export const removeClosure = (id: string) => api.request<void>(`/settings/closures/${encodeURIComponent(id)}`, { method: 'DELETE' });
 
@@ -7,6 +9,6 @@ export const useRemoveClosure = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: removeClosure,
-    onSuccess: () => Promise.all(['settings', 'bench'].map((key) => queryClient.invalidateQueries({ queryKey: [key] }))),
+    onSuccess: () => Promise.all([settingsKeys.all, benchKeys.all].map((queryKey) => queryClient.invalidateQueries({ queryKey }))),
   });
 };

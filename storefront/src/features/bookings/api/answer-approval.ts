@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BookingStateResponse, DecideExtraInput, ExtraView } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { bookingKeys } from './booking-keys';
+import { bookingKeys } from './query-keys';
 
 /** The player's yes or no to an extra (with its price) or to the waiting layout, with an optional comment. */
 export type ApprovalAnswer = { bookingId: string; comment?: string; approve: boolean } & (

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BookingDetail } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { bookingKeys } from './booking-keys';
+import { bookingKeys } from './query-keys';
 
 export const cancelBooking = ({ id, reason }: { id: string; reason?: string }) =>
   api.post<BookingDetail>(`/bookings/${encodeURIComponent(id)}/cancel`, reason ? { reason } : {});

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BookingDetail, RigConfiguration } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { bookingKeys } from './booking-keys';
+import { bookingKeys } from './query-keys';
 
 export const createBooking = (input: { configuration: Partial<RigConfiguration>; notes?: string }) =>
   api.post<BookingDetail>('/bookings', input);

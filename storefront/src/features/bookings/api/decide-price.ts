@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BookingDetail, PriceConsentInput } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { bookingKeys } from './booking-keys';
+import { bookingKeys } from './query-keys';
 
 export const decidePrice = ({ id, accept }: { id: string } & PriceConsentInput) =>
   api.post<BookingDetail>(`/bookings/${encodeURIComponent(id)}/price-consent`, { accept });

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { BookingDetail } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { bookingKeys } from './booking-keys';
+import { bookingKeys } from './query-keys';
 
 export const getBooking = (id: string, signal?: AbortSignal) => api.get<BookingDetail>(`/bookings/${encodeURIComponent(id)}`, { signal });
 

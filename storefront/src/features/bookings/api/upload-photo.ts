@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PhotoView } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { bookingKeys } from './booking-keys';
+import { bookingKeys } from './query-keys';
 
 export const uploadPhoto = ({ id, file, caption }: { id: string; file: File; caption?: string }) => {
   const form = new FormData();

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from 'src/lib/api-client';
-import { configurationKeys } from './configuration-keys';
+import { configurationKeys } from './query-keys';
 
 export const deleteConfiguration = (id: string) => api.request<void>(`/configurations/${encodeURIComponent(id)}`, { method: 'DELETE' });
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SavedConfiguration } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { configurationKeys } from './configuration-keys';
+import { configurationKeys } from './query-keys';
 
 export const duplicateConfiguration = ({ id, name }: { id: string; name?: string }) =>
   api.post<SavedConfiguration>(`/configurations/${encodeURIComponent(id)}/duplicate`, name ? { name } : {});

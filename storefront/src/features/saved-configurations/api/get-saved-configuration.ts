@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { SavedConfiguration } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { configurationKeys } from './configuration-keys';
+import { configurationKeys } from './query-keys';
 
 export const getSavedConfiguration = (id: string, signal?: AbortSignal) =>
   api.get<SavedConfiguration>(`/configurations/${encodeURIComponent(id)}`, { signal });

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { SavedConfigurationSummary } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { configurationKeys } from './configuration-keys';
+import { configurationKeys } from './query-keys';
 
 export const getSavedConfigurations = (signal?: AbortSignal) => api.get<SavedConfigurationSummary[]>('/configurations', { signal });
 

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { RigConfiguration } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { configurationKeys } from './configuration-keys';
+import { configurationKeys } from './query-keys';
 
 export const openShortLink = (code: string, signal?: AbortSignal) =>
   api.get<{ configuration: RigConfiguration }>(`/configuration-links/${encodeURIComponent(code)}`, { signal });

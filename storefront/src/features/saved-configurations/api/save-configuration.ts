@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SavedConfiguration, SaveConfigurationInput } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { configurationKeys } from './configuration-keys';
+import { configurationKeys } from './query-keys';
 
 export const saveConfiguration = (input: SaveConfigurationInput) => api.post<SavedConfiguration>('/configurations', input);
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SavedConfiguration, UpdateConfigurationInput } from '@loomwright/shared';
 import { api } from 'src/lib/api-client';
-import { configurationKeys } from './configuration-keys';
+import { configurationKeys } from './query-keys';
 
 /** Renames a saved configuration, saves changes to it, or both. */
 export const updateConfiguration = ({ id, ...change }: UpdateConfigurationInput & { id: string }) =>
