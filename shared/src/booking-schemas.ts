@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { depositStatuses } from './booking-types';
 import { bookingStates } from './domain';
 import { rigConfigurationSchema } from './estimate/schema';
+import { decodeCursorParts, encodeCursorParts, timestampKeyShape, uuidShape } from './list-cursor';
 import { oneOf, pagingQuery, requestObject, sortOrder, text } from './request-fields';
 import { bookingWords } from './words';
 
@@ -51,29 +52,19 @@ export interface BookingListCursor {
 }
 
 const cursorKeyShapes: Record<BookingListCursor['sort'], RegExp> = {
-  created_at: /^\d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2}(\.\d{1,6})?[+-]\d{2}(:\d{2})?$/,
-  updated_at: /^\d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2}(\.\d{1,6})?[+-]\d{2}(:\d{2})?$/,
+  created_at: timestampKeyShape,
+  updated_at: timestampKeyShape,
   bench_date: /^\d{4}-\d{2}-\d{2}$/,
   reference: /^.{1,40}$/,
   state: new RegExp(`^(${bookingStates.join('|')})$`),
 };
-const uuidShape = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-export const encodeBookingListCursor = (c: BookingListCursor): string =>
-  btoa(JSON.stringify([c.sort, c.order, c.key, c.id]))
-    .replace(/\+/g, '-')
-    .replace(/\//g, '_')
-    .replace(/=+$/, '');
+export const encodeBookingListCursor = (c: BookingListCursor): string => encodeCursorParts([c.sort, c.order, c.key, c.id]);
 
 /** The cursor, or null when it is not one this list wrote (damaged, or from another version). */
 export function decodeBookingListCursor(value: string): BookingListCursor | null {
-  let parsed: unknown;
-  try {
-    parsed = JSON.parse(atob(value.replace(/-/g, '+').replace(/_/g, '/')));
-  } catch {
-    return null;
-  }
-  if (!Array.isArray(parsed) || parsed.length !== 4) return null;
+  const parsed = decodeCursorParts(value);
+  if (!parsed || parsed.length !== 4) return null;
   const [sort, order, key, id] = parsed as unknown[];
   if (typeof sort !== 'string' || !Object.hasOwn(cursorKeyShapes, sort)) return null;
   if (order !== 'asc' && order !== 'desc') return null;

@@ -9,7 +9,7 @@ export interface Page<T> {
   total: number;
   page: number;
   pageSize: number;
-  /** Where a list with keyset paging (GET /api/bookings) goes on: pass it as `cursor`; null on the last page. */
+  /** Where a list with keyset paging (GET /api/bookings, GET /api/mail) goes on: pass it as `cursor`; null on the last page. */
   nextCursor?: string | null;
 }
 

@@ -14,6 +14,7 @@ export * from './estimate/quantity';
 export * from './auth-schemas';
 export * from './mail-types';
 export * from './booking-schemas';
+export * from './list-cursor';
 export * from './bench-schemas';
 export * from './bench-dates';
 export * from './mail-types';

@@ -78,4 +78,6 @@ export interface MailLogQuery {
   state?: MailState;
   /** Part of the recipient's address. */
   q?: string;
+  /** The previous page's `nextCursor`. */
+  cursor?: string;
 }

@@ -2,8 +2,9 @@ import countries from 'i18n-iso-countries';
 import { z } from 'zod';
 import { builderLevels } from './domain';
 import { mailStates } from './mail-types';
+import { decodeCursorParts, encodeCursorParts, timestampKeyShape, uuidShape } from './list-cursor';
 import { calendarDay, oneOf, pagingQuery, requestObject, sortOrder, text, uuid } from './request-fields';
-import { authWords, rules, shopWords } from './words';
+import { authWords, bookingWords, rules, shopWords } from './words';
 
 /**
  * The IANA time zones a shop can choose: the runtime's list (ECMA-402
@@ -201,11 +202,45 @@ export const listCustomersQuerySchema = requestObject({
 export type ListCustomersQuery = z.infer<typeof listCustomersQuerySchema>;
 
 /** GET /api/mail: the mail log. */
+/**
+ * Where the next page of GET /api/mail starts (keyset paging, newest first): the last row's
+ * `created_at` as PostgreSQL writes it, and its id. Travels as `cursor` (see `list-cursor.ts`).
+ */
+export interface MailLogCursor {
+  key: string;
+  id: string;
+}
+
+export const encodeMailLogCursor = (c: MailLogCursor): string => encodeCursorParts(['mail', c.key, c.id]);
+
+/** The cursor, or null when it is not one the mail log wrote (damaged, from another list, or another version). */
+export function decodeMailLogCursor(value: string): MailLogCursor | null {
+  const parsed = decodeCursorParts(value);
+  if (!parsed || parsed.length !== 3) return null;
+  const [list, key, id] = parsed;
+  if (list !== 'mail' || typeof key !== 'string' || !timestampKeyShape.test(key)) return null;
+  if (typeof id !== 'string' || !uuidShape.test(id)) return null;
+  return { key, id };
+}
+
 export const listMailQuerySchema = requestObject({
   ...pagingQuery,
   state: oneOf('state', mailStates).optional(),
   /** Part of the recipient address. */
   q: text('q', { max: 200 }).optional(),
+  /** The previous page's `nextCursor`: the page after it, through the log's (created_at, id) index (`page` is then not used). */
+  cursor: z
+    .string({ error: bookingWords.listCursor })
+    .max(400, { error: bookingWords.listCursor })
+    .transform((value, ctx) => {
+      const cursor = decodeMailLogCursor(value);
+      if (!cursor) {
+        ctx.addIssue({ code: 'custom', message: bookingWords.listCursor });
+        return z.NEVER;
+      }
+      return cursor;
+    })
+    .optional(),
 });
 export type ListMailQuery = z.infer<typeof listMailQuerySchema>;
 

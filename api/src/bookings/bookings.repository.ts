@@ -12,6 +12,7 @@ import type {
   QuotesTable,
 } from '../database/database';
 import { Database } from '../database/database';
+import { flip, fromTheEnd } from '../database/list-paging';
 import type { DepositStatus } from '@loomwright/shared';
 
 export type BookingRow = Selectable<BookingsTable>;
@@ -89,25 +90,6 @@ export const depositStatusFromPaymentsSql = sql<DepositStatus>`(
     when exists (select 1 from payments p where p.booking_id = bookings.id and p.kind = 'deposit' and p.status = 'pending') then 'pending'
     else 'unpaid'
   end)`;
-
-/** The (sort, id) order of a list page, or its reverse (for a page nearer the end than the start). */
-function flip(order: 'asc' | 'desc', reverse: boolean): 'asc' | 'desc' {
-  if (!reverse) return order;
-  return order === 'asc' ? 'desc' : 'asc';
-}
-
-/**
- * Where a page starts when it is read from the far end of the list: a page past the middle is the
- * same rows as a short page counted back from the end in the reverse order, so the index skips
- * `total - offset - limit` entries instead of `offset` (the last page of 100,000 rows skips none).
- * Null when the page is nearer the start. PostgreSQL's reverse of `asc` (nulls last) is `desc`
- * (nulls first), so a nullable sort column reverses exactly too.
- */
-export function fromTheEnd(total: number, offset: number, limit: number): { offset: number; limit: number } | null {
-  if (offset <= total / 2 || offset >= total) return null;
-  const back = total - offset - limit;
-  return back >= 0 ? { offset: back, limit } : { offset: 0, limit: limit + back };
-}
 
 @Injectable()
 export class BookingsRepository {

@@ -3,6 +3,7 @@ import { Injectable } from '@nestjs/common';
 import { sql } from 'kysely';
 import { singleUseLinkKeys, type MailState } from '@loomwright/shared';
 import { Database, Executor } from '../database/database';
+import { flip, fromTheEnd } from '../database/list-paging';
 import type { OutgoingMail } from './mail.types';
 
 export interface MailListFilter {
@@ -12,6 +13,8 @@ export interface MailListFilter {
   q?: string;
   /** A builder's log: only messages to them, and messages about builds assigned to them. */
   onlyForBuilderUserId?: string;
+  /** Keyset paging: the messages after this one, newest first (then `page` is not used). */
+  after?: { key: string; id: string };
 }
 
 /**
@@ -202,16 +205,35 @@ export class MailOutboxRepository {
         ]),
       );
     }
-    const [rows, count] = await Promise.all([
+    const count = () =>
       query
+        .select((eb) => eb.fn.countAll<string>().as('total'))
+        .executeTakeFirstOrThrow()
+        .then((r) => Number(r.total));
+    // Newest first, the id breaking ties the same way: one index (created_at desc, id desc) read either way.
+    const page = (reverse: boolean, limit: number, offset: number) => {
+      const order = flip('desc', reverse);
+      let rows = query
         .selectAll()
-        .orderBy('created_at', 'desc')
-        .orderBy('id', 'desc')
-        .limit(filter.pageSize)
-        .offset((filter.page - 1) * filter.pageSize)
-        .execute(),
-      query.select((eb) => eb.fn.countAll<string>().as('total')).executeTakeFirstOrThrow(),
-    ]);
-    return { rows, total: Number(count.total) };
+        // The time as PostgreSQL writes it (microseconds kept), for the next page's cursor.
+        .select(sql<string>`created_at::text`.as('sort_key'))
+        .orderBy('created_at', order)
+        .orderBy('id', order)
+        .limit(limit);
+      rows = filter.after
+        ? rows.where(sql<boolean>`(created_at, id) < (${filter.after.key}::timestamptz, ${filter.after.id}::uuid)`)
+        : rows.offset(offset);
+      return rows.execute().then((found) => (reverse ? found.reverse() : found));
+    };
+    const offset = (filter.page - 1) * filter.pageSize;
+    if (filter.after || offset === 0) {
+      const [rows, total] = await Promise.all([page(false, filter.pageSize, offset), count()]);
+      return { rows, total };
+    }
+    // A page past the middle is read from the oldest end (the last page skips nothing).
+    const total = await count();
+    const far = fromTheEnd(total, offset, filter.pageSize);
+    const rows = far ? await page(true, far.limit, far.offset) : await page(false, filter.pageSize, offset);
+    return { rows, total };
   }
 }

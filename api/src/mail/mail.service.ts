@@ -1,6 +1,14 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { mailMessages, singleUseLinkKeys, type AuthUser, type MailLogEntry, type MailLogPage, type MailState } from '@loomwright/shared';
+import {
+  encodeMailLogCursor,
+  mailMessages,
+  singleUseLinkKeys,
+  type AuthUser,
+  type MailLogEntry,
+  type MailLogPage,
+  type MailState,
+} from '@loomwright/shared';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailOutboxRepository } from './mail-outbox.repository';
@@ -52,10 +60,22 @@ export class MailService {
    * The mail log. The owner sees every message and may resend; a builder sees the messages sent to
    * them and those about builds assigned to them, not every customer's mail.
    */
-  async list(query: { page: number; pageSize: number; state?: MailState; q?: string }, viewer: AuthUser): Promise<MailLogPage> {
+  async list(
+    query: { page: number; pageSize: number; state?: MailState; q?: string; cursor?: { key: string; id: string } },
+    viewer: AuthUser,
+  ): Promise<MailLogPage> {
     const owner = viewer.role === 'owner';
-    const { rows, total } = await this.outbox.list({ ...query, ...(!owner && { onlyForBuilderUserId: viewer.id }) });
-    return { items: rows.map(toEntry), total, page: query.page, pageSize: query.pageSize, canResend: owner };
+    const { cursor, ...rest } = query;
+    const { rows, total } = await this.outbox.list({ ...rest, after: cursor, ...(!owner && { onlyForBuilderUserId: viewer.id }) });
+    const last = rows.length === query.pageSize ? rows[rows.length - 1] : undefined;
+    return {
+      items: rows.map(toEntry),
+      total,
+      page: query.page,
+      pageSize: query.pageSize,
+      canResend: owner,
+      nextCursor: last ? encodeMailLogCursor({ key: last.sort_key, id: last.id }) : null,
+    };
   }
 
   /** Called by the module that issues a template's single-use links (accounts, invitations). */
