@@ -7,6 +7,7 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
+import ts from 'typescript';
 
 const root = join(import.meta.dirname, '..');
 const sources = [
@@ -19,6 +20,36 @@ const sources = [
   'booking-types.ts',
   'bench-types.ts',
 ];
+/**
+ * Answer interfaces that live beside request schemas (zod values ts-to-zod cannot read): only the
+ * declarations named here are taken from each file, by the TypeScript parser.
+ */
+const picked = {
+  'auth-schemas.ts': ['AuthSessionResponse', 'CurrentSessionResponse', 'SignOutResponse', 'PasswordResetRequested', 'InvitationCreated'],
+  'configuration-schemas.ts': [
+    'SavedConfigurationSummary',
+    'SavedConfiguration',
+    'ConfigurationLink',
+    'SharedConfiguration',
+    'QuoteEmailSent',
+  ],
+  'mail-types.ts': ['MailState', 'MailLogEntry'],
+  'message-schemas.ts': ['MessageSide', 'MessagePhotoView', 'BuildMessageView', 'MessageThreadView', 'UnreadMessagesView'],
+  'office-schemas.ts': [
+    'RevenueMonth',
+    'RevenueReport',
+    'OutstandingKind',
+    'OutstandingItem',
+    'OutstandingReport',
+    'HoursBuildRow',
+    'HoursBuilderRow',
+    'HoursReport',
+    'UtilisationWeek',
+    'UtilisationReport',
+    'CalendarFeedLink',
+  ],
+  'reminder-schemas.ts': ['ReminderSettingsView'],
+};
 /** `(typeof list)[number]` unions ts-to-zod cannot read: the schema is the enum of the list itself. */
 const enums = {
   userRole: 'userRoles',
@@ -27,7 +58,24 @@ const enums = {
   depositStatus: 'depositStatuses',
   benchState: 'benchStates',
   teamMemberStatus: 'teamMemberStatuses',
+  mailState: 'mailStates',
+  messageSide: 'messageSides',
 };
+
+/** The declarations named in `picked` from one file, with their doc comments, as source text. */
+function pickDeclarations(file, names) {
+  const text = readFileSync(join(root, 'src', file), 'utf8');
+  const source = ts.createSourceFile(file, text, ts.ScriptTarget.Latest, true);
+  const found = new Map();
+  for (const statement of source.statements) {
+    if ((ts.isInterfaceDeclaration(statement) || ts.isTypeAliasDeclaration(statement)) && names.includes(statement.name.text))
+      found.set(statement.name.text, statement.getFullText(source));
+  }
+  const missing = names.filter((n) => !found.has(n));
+  if (missing.length) throw new Error(`${file} no longer declares ${missing.join(', ')}: update \`picked\` in this script`);
+  // `import('./domain').AuthUser` names a type the bundle already holds.
+  return names.map((n) => found.get(n).replace(/import\('[^']+'\)\./g, '')).join('\n');
+}
 
 const work = mkdtempSync(join(tmpdir(), 'lw-ts-to-zod-'));
 try {
@@ -38,6 +86,7 @@ try {
         .filter((l) => !l.startsWith('import '))
         .join('\n'),
     )
+    .concat(Object.entries(picked).map(([file, names]) => pickDeclarations(file, names)))
     .join('\n')
     // Generic interfaces are not supported: pages are built with pageSchema() in response-schemas.ts.
     .replace(/export interface Page<T> \{[\s\S]*?\n\}\n/, '')
@@ -64,6 +113,8 @@ try {
       "import { userRoles, builderLevels, bookingStates } from './domain';",
       "import { depositStatuses } from './booking-types';",
       "import { benchStates, teamMemberStatuses } from './bench-types';",
+      "import { mailStates } from './mail-types';",
+      "import { messageSides } from './message-schemas';",
     ].join('\n'),
   );
   writeFileSync(join(root, 'src', 'response-schemas.generated.ts'), out);
@@ -84,6 +135,12 @@ try {
     '',
   ].join('\n');
   writeFileSync(join(root, 'src', 'response-schemas.check.ts'), check);
+  // Written in the house style, so a regeneration shows only what changed.
+  execFileSync(
+    join(root, '..', 'node_modules', '.bin', 'prettier'),
+    ['--write', join(root, 'src', 'response-schemas.generated.ts'), join(root, 'src', 'response-schemas.check.ts')],
+    { stdio: 'inherit' },
+  );
 } finally {
   rmSync(work, { recursive: true, force: true });
 }

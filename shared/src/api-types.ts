@@ -5,6 +5,27 @@ export interface HealthStatus {
   db: 'up' | 'down';
 }
 
+/** GET /api/health/live: the process runs and answers (depends on nothing outside it). */
+export interface HealthLiveness {
+  status: 'ok';
+  uptimeSeconds: number;
+}
+
+/** GET /api/health/ready: whether to send this process work (503 with the same body when not). */
+export interface HealthReadiness {
+  status: 'ready' | 'not ready';
+  db: 'up' | 'down';
+  storage: 'up' | 'down';
+  /** Present only when not ready: what is missing, in words. */
+  reasons?: string[];
+}
+
+/** POST /api/payments/webhook: the event was taken; `duplicate` when it had been taken before (nothing done twice). */
+export interface PaymentEventReceived {
+  received: true;
+  duplicate: boolean;
+}
+
 export interface ShopProfile {
   name: string;
   tagline: string;

@@ -101,6 +101,21 @@ export interface AuthSessionResponse {
   user: import('./domain').AuthUser;
 }
 
+/** GET /api/auth/session: the signed-in person, or null for a visitor. */
+export interface CurrentSessionResponse {
+  user: import('./domain').AuthUser | null;
+}
+
+/** POST /api/auth/sign-out. */
+export interface SignOutResponse {
+  signedOut: true;
+}
+
+/** POST /api/auth/password-reset: the same words whether or not the address has an account. */
+export interface PasswordResetRequested {
+  message: string;
+}
+
 export interface InvitationCreated {
   user: import('./domain').AuthUser;
   builderId: string;

@@ -246,6 +246,12 @@ export interface TimeEntryView {
   recordedBy: { id: string; name: string } | null;
 }
 
+/** POST /api/bookings/:id/notes: the note is on the build's history; `told` when it was also e-mailed to the player. */
+export interface StaffNoteAdded {
+  bookingId: string;
+  told: boolean;
+}
+
 export interface TimeEntriesResponse {
   entries: TimeEntryView[];
   totalHours: number;

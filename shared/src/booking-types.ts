@@ -20,6 +20,11 @@ export interface Page<T> {
 export const depositStatuses = ['unpaid', 'pending', 'processing', 'paid', 'disputed', 'refunded'] as const;
 export type DepositStatus = (typeof depositStatuses)[number];
 
+/** POST /api/bookings/:id/checkout: the hosted checkout to send the player to. */
+export interface CheckoutOpened {
+  url: string;
+}
+
 export interface PersonRef {
   id: string;
   name: string;

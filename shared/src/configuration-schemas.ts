@@ -76,6 +76,11 @@ export interface ConfigurationLink {
   path: string;
 }
 
+/** GET /api/configuration-links/:code: the configuration a short link stands for. */
+export interface SharedConfiguration {
+  configuration: RigConfiguration;
+}
+
 export interface QuoteEmailSent {
   sentTo: string;
   /** How many more quotes may be e-mailed this hour. */

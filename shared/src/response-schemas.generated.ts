@@ -3,6 +3,8 @@ import { z } from 'zod';
 import { userRoles, builderLevels, bookingStates } from './domain';
 import { depositStatuses } from './booking-types';
 import { benchStates, teamMemberStatuses } from './bench-types';
+import { mailStates } from './mail-types';
+import { messageSides } from './message-schemas';
 
 export const userRoleSchema = z.enum(userRoles);
 
@@ -251,6 +253,7 @@ export const estimateLineSchema = z.object({
   amount: z.string(),
   amountHigh: z.string().optional(),
   explanation: z.string().optional(),
+  basis: z.string().optional(),
 });
 
 export const rigChecksSchema = z.object({
@@ -427,6 +430,23 @@ export const healthStatusSchema = z.object({
   db: z.union([z.literal('up'), z.literal('down')]),
 });
 
+export const healthLivenessSchema = z.object({
+  status: z.literal('ok'),
+  uptimeSeconds: z.number(),
+});
+
+export const healthReadinessSchema = z.object({
+  status: z.union([z.literal('ready'), z.literal('not ready')]),
+  db: z.union([z.literal('up'), z.literal('down')]),
+  storage: z.union([z.literal('up'), z.literal('down')]),
+  reasons: z.array(z.string()).optional(),
+});
+
+export const paymentEventReceivedSchema = z.object({
+  received: z.literal(true),
+  duplicate: z.boolean(),
+});
+
 export const shopProfileSchema = z.object({
   name: z.string(),
   tagline: z.string(),
@@ -457,6 +477,10 @@ export const sessionsEndedSchema = z.object({
 });
 
 export const depositStatusSchema = z.enum(depositStatuses);
+
+export const checkoutOpenedSchema = z.object({
+  url: z.string(),
+});
 
 export const personRefSchema = z.object({
   id: z.string(),
@@ -845,6 +869,11 @@ export const timeEntryViewSchema = z.object({
     .nullable(),
 });
 
+export const staffNoteAddedSchema = z.object({
+  bookingId: z.string(),
+  told: z.boolean(),
+});
+
 export const timeEntriesResponseSchema = z.object({
   entries: z.array(timeEntryViewSchema),
   totalHours: z.number(),
@@ -1030,6 +1059,239 @@ export const benchLeadTimeSchema = z.object({
   expectedCompletion: z.string().nullable(),
   shipBy: z.string().nullable(),
   message: z.string().optional(),
+});
+
+export const authSessionResponseSchema = z.object({
+  user: authUserSchema,
+});
+
+export const currentSessionResponseSchema = z.object({
+  user: authUserSchema.nullable(),
+});
+
+export const signOutResponseSchema = z.object({
+  signedOut: z.literal(true),
+});
+
+export const passwordResetRequestedSchema = z.object({
+  message: z.string(),
+});
+
+export const invitationCreatedSchema = z.object({
+  user: authUserSchema,
+  builderId: z.string(),
+  expiresAt: z.string(),
+  resent: z.boolean(),
+});
+
+export const savedConfigurationSummarySchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  surfaceId: z.string(),
+  routing: rigConfigurationSchema.shape.routing.shape.mode,
+  pedalCount: z.number(),
+});
+
+export const savedConfigurationSchema = savedConfigurationSummarySchema.extend({
+  configuration: rigConfigurationSchema,
+});
+
+export const configurationLinkSchema = z.object({
+  code: z.string(),
+  path: z.string(),
+});
+
+export const sharedConfigurationSchema = z.object({
+  configuration: rigConfigurationSchema,
+});
+
+export const quoteEmailSentSchema = z.object({
+  sentTo: z.string(),
+  remaining: z.number(),
+});
+
+export const mailStateSchema = z.enum(mailStates);
+
+export const mailLogEntrySchema = z.object({
+  id: z.string(),
+  messageId: z.string(),
+  template: z.string(),
+  to: z.string(),
+  subject: z.string().nullable(),
+  state: mailStateSchema,
+  attempts: z.number(),
+  lastError: z.string().nullable(),
+  bookingId: z.string().nullable(),
+  resentFromId: z.string().nullable(),
+  createdAt: z.string(),
+  sentAt: z.string().nullable(),
+});
+
+export const messageSideSchema = z.enum(messageSides);
+
+export const messagePhotoViewSchema = z.object({
+  id: z.string(),
+  url: z.string(),
+  thumbnailUrl: z.string(),
+  width: z.number().nullable(),
+  height: z.number().nullable(),
+});
+
+export const buildMessageViewSchema = z.object({
+  id: z.string(),
+  side: messageSideSchema,
+  authorName: z.string(),
+  body: z.string(),
+  createdAt: z.string(),
+  mine: z.boolean(),
+  photos: z.array(messagePhotoViewSchema),
+});
+
+export const messageThreadViewSchema = z.object({
+  bookingId: z.string(),
+  reference: z.string(),
+  side: messageSideSchema,
+  messages: z.array(buildMessageViewSchema),
+  unreadBefore: z.number(),
+});
+
+export const unreadMessagesViewSchema = z.object({
+  total: z.number(),
+  bookings: z.array(
+    z.object({
+      bookingId: z.string(),
+      reference: z.string(),
+      unread: z.number(),
+    }),
+  ),
+});
+
+export const revenueMonthSchema = z.object({
+  month: z.string(),
+  currency: z.string(),
+  deposits: z.string(),
+  balances: z.string(),
+  refunds: z.string(),
+  net: z.string(),
+});
+
+export const revenueReportSchema = z.object({
+  from: z.string(),
+  to: z.string(),
+  timeZone: z.string(),
+  months: z.array(revenueMonthSchema),
+  totals: z.array(revenueMonthSchema.omit({ month: true })),
+});
+
+export const outstandingKindSchema = z.union([z.literal('deposit'), z.literal('balance'), z.literal('credit')]);
+
+export const outstandingItemSchema = z.object({
+  bookingId: z.string(),
+  reference: z.string(),
+  state: z.string(),
+  customerName: z.string(),
+  builderName: z.string().nullable(),
+  kind: outstandingKindSchema,
+  amount: z.string(),
+  currency: z.string(),
+  since: z.string().nullable(),
+});
+
+export const outstandingReportSchema = z.object({
+  asOf: z.string(),
+  items: z.array(outstandingItemSchema),
+  totals: z.array(
+    z.object({
+      kind: outstandingKindSchema,
+      currency: z.string(),
+      amount: z.string(),
+      count: z.number(),
+    }),
+  ),
+});
+
+export const hoursBuildRowSchema = z.object({
+  bookingId: z.string(),
+  reference: z.string(),
+  state: z.string(),
+  builderId: z.string().nullable(),
+  builderName: z.string().nullable(),
+  quotedHours: z.string(),
+  hoursInRange: z.string(),
+  hoursToDate: z.string(),
+  overQuote: z.string(),
+});
+
+export const hoursBuilderRowSchema = z.object({
+  builderId: z.string(),
+  builderName: z.string(),
+  level: z.string(),
+  hoursInRange: z.string(),
+  builds: z.number(),
+  quotedHours: z.string(),
+  hoursToDate: z.string(),
+  overQuote: z.string(),
+});
+
+export const hoursReportSchema = z.object({
+  from: z.string(),
+  to: z.string(),
+  builds: z.array(hoursBuildRowSchema),
+  builders: z.array(hoursBuilderRowSchema),
+});
+
+export const utilisationWeekSchema = z.object({
+  weekStart: z.string(),
+  isoWeek: z.string(),
+  capacityHours: z.string(),
+  bookedHours: z.string(),
+  recordedHours: z.string(),
+  bookedPercent: z.string().nullable(),
+  recordedPercent: z.string().nullable(),
+});
+
+export const utilisationReportSchema = z.object({
+  from: z.string(),
+  to: z.string(),
+  builders: z.array(
+    z.object({
+      builderId: z.string(),
+      builderName: z.string(),
+      level: z.string(),
+      weeks: z.array(utilisationWeekSchema),
+    }),
+  ),
+});
+
+export const calendarFeedLinkSchema = z.object({
+  id: z.string(),
+  scope: z.union([z.literal('shop'), z.literal('builder')]),
+  builderId: z.string().nullable(),
+  builderName: z.string().nullable(),
+  url: z.string(),
+  webcalUrl: z.string(),
+  rotatedAt: z.string().nullable(),
+});
+
+export const reminderSettingsViewSchema = z.object({
+  shipBy: z.object({
+    enabled: z.boolean(),
+    daysBefore: z.number(),
+  }),
+  balanceUnpaid: z.object({
+    enabled: z.boolean(),
+    daysAfterReady: z.number(),
+  }),
+  checkoutAbandoned: z.object({
+    enabled: z.boolean(),
+    hoursAfter: z.number(),
+  }),
+  requestExpiry: z.object({
+    enabled: z.boolean(),
+    daysUnpaid: z.number(),
+  }),
 });
 
 export const priceBookOverviewSchema = z.object({

@@ -1,7 +1,6 @@
-import { z } from 'zod';
 import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
-import { ApiAcceptedResponse, ApiOkResponse, ApiOperation, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
+import { ApiAcceptedResponse, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
 import { ThrottlerGuard } from '@nestjs/throttler';
 import {
   authMessages,
@@ -13,6 +12,7 @@ import {
   type PasswordResetConfirmInput,
   type PasswordResetRequestInput,
   type SignInInput,
+  type SignOutResponse,
   type SignUpInput,
 } from '@loomwright/shared';
 import type { Request, Response } from 'express';
@@ -34,9 +34,9 @@ export class AuthController {
   @UseGuards(ThrottlerGuard)
   @SkipSessionRenewal()
   @ApiOperation({ summary: 'Create a player account and sign in' })
-  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema }))
+  @ApiZodResponse(responseSchemas.authSessionResponseSchema)
   @Post('sign-up')
-  @ApiOkResponse({ description: 'The new player account; the session cookie is set.' })
+  @ApiCreatedResponse({ description: 'The new player account; the session cookie is set.' })
   @ApiZodBody(signUpSchema)
   async signUp(
     @Body(new ZodValidationPipe(signUpSchema)) body: SignUpInput,
@@ -52,7 +52,7 @@ export class AuthController {
   @UseGuards(ThrottlerGuard)
   @SkipSessionRenewal()
   @ApiOperation({ summary: 'Sign in with e-mail and password' })
-  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema }))
+  @ApiZodResponse(responseSchemas.authSessionResponseSchema)
   @Post('sign-in')
   @HttpCode(200)
   @ApiZodBody(signInSchema)
@@ -69,17 +69,17 @@ export class AuthController {
   @Public()
   @SkipSessionRenewal()
   @ApiOperation({ summary: 'Sign out of this device' })
-  @ApiZodResponse(z.object({ signedOut: z.literal(true) }))
+  @ApiZodResponse(responseSchemas.signOutResponseSchema)
   @Post('sign-out')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The cookie is cleared and the session ended on the server: a copy of its token no longer works.' })
-  async signOut(@CurrentUser() user: SessionUser | undefined, @Res({ passthrough: true }) res: Response) {
+  async signOut(@CurrentUser() user: SessionUser | undefined, @Res({ passthrough: true }) res: Response): Promise<SignOutResponse> {
     await this.auth.endSession(res, user);
     return { signedOut: true };
   }
 
   @ApiOperation({ summary: 'The signed-in person' })
-  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema }))
+  @ApiZodResponse(responseSchemas.authSessionResponseSchema)
   @Get('me')
   async me(@CurrentUser() user: AuthUser) {
     return { user: await this.auth.currentUser(user.id) };
@@ -91,7 +91,7 @@ export class AuthController {
    */
   @Public()
   @ApiOperation({ summary: 'The signed-in person, or nobody' })
-  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema.nullable() }))
+  @ApiZodResponse(responseSchemas.currentSessionResponseSchema)
   @Get('session')
   @ApiOkResponse({ description: 'The signed-in person, or `{ "user": null }` when nobody is signed in.' })
   async session(@CurrentUser() user: AuthUser | undefined) {
@@ -101,7 +101,7 @@ export class AuthController {
   @Public()
   @UseGuards(ThrottlerGuard)
   @ApiOperation({ summary: 'E-mail a password reset link' })
-  @ApiZodResponse(z.object({ message: z.string() }))
+  @ApiZodResponse(responseSchemas.passwordResetRequestedSchema)
   @Post('password-reset')
   @HttpCode(202)
   @ApiAcceptedResponse({ description: 'The same answer whether or not the e-mail has an account.' })
@@ -115,7 +115,7 @@ export class AuthController {
   @UseGuards(ThrottlerGuard)
   @SkipSessionRenewal()
   @ApiOperation({ summary: 'Set a new password with a reset link' })
-  @ApiZodResponse(z.object({ user: responseSchemas.authUserSchema }))
+  @ApiZodResponse(responseSchemas.authSessionResponseSchema)
   @Post('password-reset/confirm')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is changed and the session cookie is set.' })

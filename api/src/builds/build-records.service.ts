@@ -10,6 +10,7 @@ import {
   type EditTimeEntryInput,
   type IntakeItemView,
   type RecordIntakeInput,
+  type StaffNoteAdded,
   type StaffNoteInput,
   type TimeEntriesResponse,
   type TimeEntryInput,
@@ -58,7 +59,7 @@ export class BuildRecordsService {
   // ---- staff notes ----
 
   /** A staff note: internal, unless the writer tells the player (then it is e-mailed word for word). */
-  async addNote(user: AuthUser, bookingId: string, input: StaffNoteInput) {
+  async addNote(user: AuthUser, bookingId: string, input: StaffNoteInput): Promise<StaffNoteAdded> {
     await this.db.transaction().execute(async (trx) => {
       const booking = await this.builds.lockBooking(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');

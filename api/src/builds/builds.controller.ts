@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ApiCookieAuth, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   acceptBookingSchema,
   changeStateSchema,
@@ -35,6 +35,7 @@ import {
   type ProposeExtraInput,
   type RecordedDecisionInput,
   type RecordIntakeInput,
+  type StaffNoteAdded,
   type StaffNoteInput,
   type TimeEntriesResponse,
   type TimeEntryInput,
@@ -124,12 +125,15 @@ export class BuildsController {
   @Post('notes')
   @Roles('builder', 'owner')
   @ApiZodBody(staffNoteSchema)
-  @ApiOkResponse({ description: 'A staff note in the history: internal, unless tellPlayer (then e-mailed to the player word for word).' })
+  @ApiZodResponse(responseSchemas.staffNoteAddedSchema)
+  @ApiCreatedResponse({
+    description: 'A staff note in the history: internal, unless tellPlayer (then e-mailed to the player word for word).',
+  })
   addNote(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingId) id: string,
     @Body(new ZodValidationPipe(staffNoteSchema)) body: StaffNoteInput,
-  ) {
+  ): Promise<StaffNoteAdded> {
     return this.records.addNote(user, id, body);
   }
 

@@ -1,8 +1,11 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { BadRequestException, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Res } from '@nestjs/common';
 import type { Response } from 'express';
 import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { AuthUser, CalendarFeedLink } from '@loomwright/shared';
+import { z } from 'zod';
 import { CurrentUser } from '../auth/current-user.decorator';
+import { ApiZodResponse } from '../common/zod-openapi';
 import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
 import { CalendarFeedsService } from './calendar-feeds.service';
@@ -20,6 +23,7 @@ export class CalendarFeedsController {
   @Get()
   @Roles('owner')
   @ApiCookieAuth('lw_session')
+  @ApiZodResponse(z.array(responseSchemas.calendarFeedLinkSchema))
   @ApiOkResponse({ description: 'The secret link of the shop’s bench feed and of every builder’s, to subscribe to in a calendar program.' })
   list(): Promise<CalendarFeedLink[]> {
     return this.feeds.list();
@@ -29,6 +33,7 @@ export class CalendarFeedsController {
   @Get('mine')
   @Roles('builder', 'owner')
   @ApiCookieAuth('lw_session')
+  @ApiZodResponse(z.array(responseSchemas.calendarFeedLinkSchema))
   @ApiOkResponse({
     description: 'The secret link of the signed-in builder’s own bench feed (an empty list for an account without a bench).',
   })
@@ -41,6 +46,7 @@ export class CalendarFeedsController {
   @HttpCode(200)
   @Roles('owner')
   @ApiCookieAuth('lw_session')
+  @ApiZodResponse(responseSchemas.calendarFeedLinkSchema)
   @ApiOkResponse({ description: 'A new secret link for the feed; the old link answers 404 from now on.' })
   rotate(@Param('id', feedId) id: string, @CurrentUser() user: AuthUser): Promise<CalendarFeedLink> {
     return this.feeds.rotate(id, user);

@@ -65,8 +65,17 @@ function withEnumTypes(node: unknown): unknown {
   return out;
 }
 
+/** A route handler whose answer (or its promise) is what the schema describes. */
+type AnswersWith<S extends ZodType> = (...args: never[]) => z.output<S> | Promise<z.output<S>>;
+
 /**
  * Documents a route's JSON success answer by its shared zod schema (`responseSchemas` in
  * @loomwright/shared); the description stays on the route's own `@ApiOkResponse`/`@ApiCreatedResponse`.
+ * Typed: a handler whose declared answer is not the schema's type does not compile, so the
+ * document cannot promise a shape the route does not give.
  */
-export const ApiZodResponse = (schema: ZodType) => SetMetadata(RESPONSE_SCHEMA_KEY, schema);
+export const ApiZodResponse =
+  <S extends ZodType>(schema: S) =>
+  <H extends AnswersWith<S>>(target: object, key: string | symbol, descriptor: TypedPropertyDescriptor<H>): void => {
+    SetMetadata(RESPONSE_SCHEMA_KEY, schema)(target, key, descriptor);
+  };

@@ -1,3 +1,5 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
+import { z } from 'zod';
 import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, Patch, Post, UseGuards } from '@nestjs/common';
 import { Throttle, ThrottlerGuard } from '@nestjs/throttler';
 import { ApiCreatedResponse, ApiNoContentResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
@@ -9,6 +11,10 @@ import {
   SHORT_LINK_CODE,
   updateConfigurationSchema,
   type AuthUser,
+  type ConfigurationLink,
+  type SavedConfiguration,
+  type SavedConfigurationSummary,
+  type SharedConfiguration,
   type ConfigurationLinkInput,
   type DuplicateConfigurationInput,
   type RigConfiguration,
@@ -18,7 +24,7 @@ import {
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ConfigurationsService } from './configurations.service';
 
@@ -32,8 +38,9 @@ export class ConfigurationsController {
 
   @ApiOperation({ summary: 'List your saved configurations' })
   @Get()
+  @ApiZodResponse(z.array(responseSchemas.savedConfigurationSummarySchema))
   @ApiOkResponse({ description: 'Your saved configurations, the most recently changed first.' })
-  list(@CurrentUser() user: AuthUser) {
+  list(@CurrentUser() user: AuthUser): Promise<SavedConfigurationSummary[]> {
     return this.configurations.list(user);
   }
 
@@ -41,14 +48,19 @@ export class ConfigurationsController {
   @Post()
   @ApiCreatedResponse({ description: 'The configuration, kept under its name.' })
   @ApiZodBody(saveConfigurationSchema)
-  save(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(saveConfigurationSchema)) body: SaveConfigurationInput) {
+  @ApiZodResponse(responseSchemas.savedConfigurationSchema)
+  save(
+    @CurrentUser() user: AuthUser,
+    @Body(new ZodValidationPipe(saveConfigurationSchema)) body: SaveConfigurationInput,
+  ): Promise<SavedConfiguration> {
     return this.configurations.save(user, body);
   }
 
   @ApiOperation({ summary: 'One saved configuration' })
   @Get(':id')
+  @ApiZodResponse(responseSchemas.savedConfigurationSchema)
   @ApiOkResponse({ description: 'One of your saved configurations, whole.' })
-  get(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string) {
+  get(@CurrentUser() user: AuthUser, @Param('id', configurationIdPipe) id: string): Promise<SavedConfiguration> {
     return this.configurations.get(user, id);
   }
 
@@ -56,11 +68,12 @@ export class ConfigurationsController {
   @Patch(':id')
   @ApiOkResponse({ description: 'Renamed, or saved with changes.' })
   @ApiZodBody(updateConfigurationSchema)
+  @ApiZodResponse(responseSchemas.savedConfigurationSchema)
   update(
     @CurrentUser() user: AuthUser,
     @Param('id', configurationIdPipe) id: string,
     @Body(new ZodValidationPipe(updateConfigurationSchema)) body: UpdateConfigurationInput,
-  ) {
+  ): Promise<SavedConfiguration> {
     return this.configurations.update(user, id, body);
   }
 
@@ -68,11 +81,12 @@ export class ConfigurationsController {
   @Post(':id/duplicate')
   @ApiCreatedResponse({ description: 'A copy under the name given, or "<name> (copy)".' })
   @ApiZodBody(duplicateConfigurationSchema)
+  @ApiZodResponse(responseSchemas.savedConfigurationSchema)
   duplicate(
     @CurrentUser() user: AuthUser,
     @Param('id', configurationIdPipe) id: string,
     @Body(new ZodValidationPipe(duplicateConfigurationSchema)) body: DuplicateConfigurationInput,
-  ) {
+  ): Promise<SavedConfiguration> {
     return this.configurations.duplicate(user, id, body.name);
   }
 
@@ -100,15 +114,17 @@ export class ConfigurationLinksController {
   @Throttle({ 'address-and-email': { limit: 60, ttl: 60_000 }, address: { limit: 60, ttl: 60_000 } })
   @ApiCreatedResponse({ description: '{ code, path }: the storefront path /c/<code> opens this configuration.' })
   @ApiZodBody(configurationLinkSchema)
-  create(@Body(new ZodValidationPipe(configurationLinkSchema)) body: ConfigurationLinkInput) {
+  @ApiZodResponse(responseSchemas.configurationLinkSchema)
+  create(@Body(new ZodValidationPipe(configurationLinkSchema)) body: ConfigurationLinkInput): Promise<ConfigurationLink> {
     return this.configurations.link(body.configuration as RigConfiguration);
   }
 
   @Public()
   @ApiOperation({ summary: 'Open a short link' })
   @Get(':code')
+  @ApiZodResponse(responseSchemas.sharedConfigurationSchema)
   @ApiOkResponse({ description: '{ configuration } the code stands for.' })
-  open(@Param('code') code: string) {
+  open(@Param('code') code: string): Promise<SharedConfiguration> {
     if (!SHORT_LINK_CODE.test(code))
       throw new BadRequestException(
         errorResponse(

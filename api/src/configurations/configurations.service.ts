@@ -11,6 +11,7 @@ import {
   type SavedConfiguration,
   type SavedConfigurationSummary,
   type SaveConfigurationInput,
+  type SharedConfiguration,
   type UpdateConfigurationInput,
 } from '@loomwright/shared';
 import { Database } from '../database/database';
@@ -118,7 +119,7 @@ export class ConfigurationsService {
     }
   }
 
-  async openLink(code: string): Promise<{ configuration: RigConfiguration }> {
+  async openLink(code: string): Promise<SharedConfiguration> {
     const configuration = await this.repo.openLink(code);
     if (!configuration) throw new NotFoundException(configurationMessages.linkNotFound);
     return { configuration };

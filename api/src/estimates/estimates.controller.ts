@@ -14,7 +14,7 @@ export class EstimatesController {
 
   @Public()
   @ApiOperation({ summary: 'Estimate a configuration' })
-  @ApiZodResponse(responseSchemas.estimateResultSchema)
+  @ApiZodResponse(responseSchemas.estimatePanelSchema)
   @Post()
   @HttpCode(200)
   @ApiZodBody(rigConfigurationSchema)

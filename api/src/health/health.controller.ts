@@ -3,6 +3,7 @@ import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Controller, Get, HttpStatus, Res } from '@nestjs/common';
 import { ApiOkResponse, ApiOperation, ApiServiceUnavailableResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
+import type { HealthLiveness, HealthReadiness, HealthStatus } from '@loomwright/shared';
 import { Public } from '../auth/public.decorator';
 import { HealthService } from './health.service';
 
@@ -23,7 +24,7 @@ export class HealthController {
   @Get()
   @ApiOkResponse({ description: 'The API is up and a real database query succeeded.' })
   @ApiServiceUnavailableResponse({ description: 'The database did not answer.' })
-  async check(@Res({ passthrough: true }) res: Response) {
+  async check(@Res({ passthrough: true }) res: Response): Promise<HealthStatus> {
     const dbUp = await this.health.databaseIsUp();
     if (!dbUp) res.status(HttpStatus.SERVICE_UNAVAILABLE);
     return { status: dbUp ? 'ok' : 'degraded', db: dbUp ? 'up' : 'down' };
@@ -31,18 +32,20 @@ export class HealthController {
 
   @Public()
   @ApiOperation({ summary: 'Liveness of this process' })
+  @ApiZodResponse(responseSchemas.healthLivenessSchema)
   @Get('live')
   @ApiOkResponse({ description: 'Liveness: the process is running and answering. Depends on nothing outside it.' })
-  live() {
+  live(): HealthLiveness {
     return { status: 'ok', uptimeSeconds: Math.round(process.uptime()) };
   }
 
   @Public()
   @ApiOperation({ summary: 'Readiness for traffic' })
+  @ApiZodResponse(responseSchemas.healthReadinessSchema)
   @Get('ready')
   @ApiOkResponse({ description: 'Readiness: the database and the photo store answer; send this process work.' })
   @ApiServiceUnavailableResponse({ description: 'The database or the photo store is unreachable, or the process is shutting down.' })
-  async ready(@Res({ passthrough: true }) res: Response) {
+  async ready(@Res({ passthrough: true }) res: Response): Promise<HealthReadiness> {
     const [dbUp, storageUp] = await Promise.all([this.health.databaseIsUp(), this.health.storageIsUp()]);
     const shuttingDown = this.health.shuttingDown;
     const ready = dbUp && storageUp && !shuttingDown;

@@ -7,7 +7,9 @@ import {
   acceptInvitationSchema,
   inviteStaffSchema,
   type AcceptInvitationInput,
+  type AuthSessionResponse,
   type AuthUser,
+  type InvitationCreated,
   type InvitationResent,
   type InviteStaffInput,
   requestWords,
@@ -35,7 +37,11 @@ export class InvitationsController {
   @Post()
   @ApiCreatedResponse({ description: 'The invited builder, their bench profile id and when the link expires.' })
   @ApiZodBody(inviteStaffSchema)
-  invite(@Body(new ZodValidationPipe(inviteStaffSchema)) body: InviteStaffInput, @CurrentUser() owner: AuthUser) {
+  @ApiZodResponse(responseSchemas.invitationCreatedSchema)
+  invite(
+    @Body(new ZodValidationPipe(inviteStaffSchema)) body: InviteStaffInput,
+    @CurrentUser() owner: AuthUser,
+  ): Promise<InvitationCreated> {
     return this.invitations.invite(body, owner);
   }
 
@@ -63,11 +69,12 @@ export class InvitationsController {
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is set and the session cookie is set.' })
   @ApiZodBody(acceptInvitationSchema)
+  @ApiZodResponse(responseSchemas.authSessionResponseSchema)
   async accept(
     @Body(new ZodValidationPipe(acceptInvitationSchema)) body: AcceptInvitationInput,
     @Req() req: Request,
     @Res({ passthrough: true }) res: Response,
-  ) {
+  ): Promise<AuthSessionResponse> {
     const user = await this.invitations.accept(body.token, body.password);
     await this.auth.startSession(res, user, req);
     return { user };

@@ -1,6 +1,7 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
-import { ApiCreatedResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   listMailQuerySchema,
   resendMailSchema,
@@ -13,7 +14,7 @@ import {
 } from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { ApiZodBody, ApiZodQuery } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodQuery, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { MailService } from './mail.service';
 
@@ -27,6 +28,8 @@ export class MailController {
   @Get()
   @Roles('builder', 'owner')
   @ApiZodQuery(listMailQuerySchema)
+  @ApiZodResponse(responseSchemas.mailLogPageSchema)
+  @ApiOkResponse({ description: 'The mail log, newest first, a page at a time; canResend says whether the signed-in person may resend.' })
   list(@Query(new ZodValidationPipe(listMailQuerySchema)) query: ListMailQuery, @CurrentUser() user: AuthUser): Promise<MailLogPage> {
     return this.mail.list({ ...query, q: query.q?.trim() || undefined }, user);
   }
@@ -39,6 +42,7 @@ export class MailController {
     resendMailSchema.unwrap(),
     'Optional; confirmPossibleDuplicate: true is required to resend a message whose outcome is unknown.',
   )
+  @ApiZodResponse(responseSchemas.mailLogEntrySchema)
   @ApiCreatedResponse({
     description:
       'The new message; a single-use link in it is a fresh one. 409 in words when the outcome of the original is unknown and not confirmed.',

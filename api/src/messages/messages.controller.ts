@@ -1,11 +1,20 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Get, Param, Post, UploadedFiles, UseFilters, UseInterceptors } from '@nestjs/common';
 import { FilesInterceptor } from '@nestjs/platform-express';
 import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
-import { MESSAGE_MAX_PHOTOS, postMessageSchema, type AuthUser, type PostMessageInput } from '@loomwright/shared';
+import {
+  MESSAGE_MAX_PHOTOS,
+  postMessageSchema,
+  type AuthUser,
+  type BuildMessageView,
+  type MessageThreadView,
+  type PostMessageInput,
+  type UnreadMessagesView,
+} from '@loomwright/shared';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { bookingIdPipe } from '../bookings/booking-id.pipe';
 import { MAX_PHOTO_BYTES, type UploadedPhoto } from '../bookings/booking-photos.service';
-import { openApiSchema } from '../common/zod-openapi';
+import { ApiZodResponse, openApiSchema } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { MessagePhotosFilter } from './message-photos.filter';
 import { MessagesService } from './messages.service';
@@ -20,7 +29,8 @@ export class MessagesController {
   @ApiOkResponse({
     description: "The build's conversation, oldest first; reading it marks it read for the reader's side (the player, or the shop).",
   })
-  thread(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
+  @ApiZodResponse(responseSchemas.messageThreadViewSchema)
+  thread(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string): Promise<MessageThreadView> {
     return this.messages.thread(user, id);
   }
 
@@ -38,6 +48,7 @@ export class MessagesController {
       },
     },
   })
+  @ApiZodResponse(responseSchemas.buildMessageViewSchema)
   @ApiCreatedResponse({
     description:
       'The message as written, with its photos (JPEG, PNG or WebP, up to 8 MB each, 4 per message). The other side hears of it by e-mail within five minutes.',
@@ -47,7 +58,7 @@ export class MessagesController {
     @Param('id', bookingIdPipe) id: string,
     @UploadedFiles() files: UploadedPhoto[] | undefined,
     @Body(new ZodValidationPipe(postMessageSchema)) dto: PostMessageInput,
-  ) {
+  ): Promise<BuildMessageView> {
     return this.messages.post(user, id, dto, files ?? []);
   }
 
@@ -57,7 +68,8 @@ export class MessagesController {
     description:
       "Unread messages from the other side, per build: a player's own builds, a builder's assigned builds, the owner's whole shop.",
   })
-  unread(@CurrentUser() user: AuthUser) {
+  @ApiZodResponse(responseSchemas.unreadMessagesViewSchema)
+  unread(@CurrentUser() user: AuthUser): Promise<UnreadMessagesView> {
     return this.messages.unread(user);
   }
 }

@@ -1,13 +1,15 @@
-import { z } from 'zod';
 import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Headers, HttpCode, Param, Post, Req, type RawBodyRequest } from '@nestjs/common';
-import { ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ApiConsumes, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   cancelBookingSchema,
   recordBalanceSchema,
   refundDepositSchema,
   releaseDisputeSchema,
   type AuthUser,
+  type BookingDetail,
+  type CheckoutOpened,
+  type PaymentEventReceived,
   type CancelBookingInput,
   type RecordBalanceInput,
   type RefundDepositInput,
@@ -33,12 +35,12 @@ export class PaymentsController {
   ) {}
 
   @ApiOperation({ summary: 'Open the hosted checkout for what is due' })
-  @ApiZodResponse(z.object({ url: z.string() }))
+  @ApiZodResponse(responseSchemas.checkoutOpenedSchema)
   @Post('bookings/:id/checkout')
   @Roles('customer')
   @HttpCode(200)
   @ApiOkResponse({ description: '{ url } of the hosted checkout for what is due (deposit, later balance); the same session on repeat.' })
-  async checkout(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string) {
+  async checkout(@CurrentUser() user: AuthUser, @Param('id', bookingIdPipe) id: string): Promise<CheckoutOpened> {
     const { url } = await this.payments.checkout(user, id);
     return { url };
   }
@@ -49,11 +51,12 @@ export class PaymentsController {
   @HttpCode(200)
   @ApiOkResponse({ description: 'Cancels a request before it is scheduled; a paid deposit is refunded.' })
   @ApiZodBody(cancelBookingSchema)
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   cancel(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingIdPipe) id: string,
     @Body(new ZodValidationPipe(cancelBookingSchema)) dto: CancelBookingInput,
-  ) {
+  ): Promise<BookingDetail> {
     return this.payments.cancel(user, id, dto.reason);
   }
 
@@ -63,11 +66,12 @@ export class PaymentsController {
   @HttpCode(200)
   @ApiOkResponse({ description: "Refunds the booking's paid deposit through the payment provider." })
   @ApiZodBody(refundDepositSchema)
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   refund(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingIdPipe) id: string,
     @Body(new ZodValidationPipe(refundDepositSchema)) dto: RefundDepositInput,
-  ) {
+  ): Promise<BookingDetail> {
     return this.payments.refundByOwner(user, id, dto.reason);
   }
 
@@ -104,11 +108,12 @@ export class PaymentsController {
   @HttpCode(200)
   @ApiOkResponse({ description: 'The owner lets a build whose payment was disputed be delivered; the note goes on the timeline.' })
   @ApiZodBody(releaseDisputeSchema)
+  @ApiZodResponse(responseSchemas.bookingDetailSchema)
   releaseDispute(
     @CurrentUser() user: AuthUser,
     @Param('id', bookingIdPipe) id: string,
     @Body(new ZodValidationPipe(releaseDisputeSchema)) body: ReleaseDisputeInput,
-  ) {
+  ): Promise<BookingDetail> {
     return this.payments.releaseDispute(user, id, body.note);
   }
 
@@ -118,8 +123,12 @@ export class PaymentsController {
   @ApiOperation({ summary: 'Receive a signed payment provider event' })
   @Post('payments/webhook')
   @HttpCode(200)
-  @ApiCreatedResponse({ description: 'Signed events from the payment provider; a bad signature gets 400.' })
-  webhook(@Req() req: RawBodyRequest<Request>, @Headers('stripe-signature') signature: string | undefined) {
+  @ApiZodResponse(responseSchemas.paymentEventReceivedSchema)
+  @ApiOkResponse({
+    description:
+      'Signed events from the payment provider; a bad signature gets 400. An event taken before answers duplicate: true and changes nothing.',
+  })
+  webhook(@Req() req: RawBodyRequest<Request>, @Headers('stripe-signature') signature: string | undefined): Promise<PaymentEventReceived> {
     const event = this.webhooks.verify(req.rawBody, signature);
     return this.webhooks.handle(event);
   }

@@ -82,7 +82,7 @@ export class PaymentsService {
     if (user.role !== 'customer') throw new ConflictException("Only the booking's player pays through checkout.");
     return this.db.transaction().execute(async (trx) => {
       const booking = await this.bookings.lock(trx, bookingId);
-      if (!booking) throw new ConflictException(`There is no booking ${bookingId}.`);
+      if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
       const kind: PaymentKind | null = booking.state === 'requested' ? 'deposit' : booking.state === 'ready' ? 'balance' : null;
       if (!kind) {
         throw new ConflictException(
@@ -413,7 +413,7 @@ export class PaymentsService {
   async refundByOwner(user: AuthUser, bookingId: string, reason: string) {
     await this.db.transaction().execute(async (trx) => {
       const booking = await this.bookings.lock(trx, bookingId);
-      if (!booking) throw new ConflictException(`There is no booking ${bookingId}.`);
+      if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
       // Already "refunded" but the provider failed the refund: this is the owner's retry.
       const retry = booking.state === 'refunded';
       // State first: a refused state change must never leave money refunded behind it.

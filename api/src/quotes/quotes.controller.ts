@@ -1,3 +1,4 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Body, Controller, Get, Header, HttpCode, Param, Post, Req, Res, StreamableFile, UnauthorizedException } from '@nestjs/common';
 import { ApiAcceptedResponse, ApiOkResponse, ApiOperation, ApiProduces, ApiTags, ApiTooManyRequestsResponse } from '@nestjs/swagger';
 import {
@@ -6,13 +7,14 @@ import {
   type AuthUser,
   type EmailQuoteInput,
   type QuotePdfRequest,
+  type QuoteEmailSent,
   type RigConfiguration,
 } from '@loomwright/shared';
 import type { Request, Response } from 'express';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { bookingIdPipe } from '../bookings/booking-id.pipe';
-import { ApiZodBody } from '../common/zod-openapi';
+import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { PDF_CONTENT_SECURITY_POLICY } from '../security/security-headers';
 import { QuotesService } from './quotes.service';
@@ -43,9 +45,10 @@ export class QuotesController {
   @Post('email')
   @HttpCode(202)
   @ApiZodBody(emailQuoteSchema)
+  @ApiZodResponse(responseSchemas.quoteEmailSentSchema)
   @ApiAcceptedResponse({ description: '{ sentTo, remaining }: the message is queued for your address.' })
   @ApiTooManyRequestsResponse({ description: 'More quotes than the hourly limit were asked for.' })
-  email(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(emailQuoteSchema)) body: EmailQuoteInput) {
+  email(@CurrentUser() user: AuthUser, @Body(new ZodValidationPipe(emailQuoteSchema)) body: EmailQuoteInput): Promise<QuoteEmailSent> {
     return this.quotes.email(user, body.configuration as RigConfiguration, body.title);
   }
 }

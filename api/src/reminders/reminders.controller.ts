@@ -1,5 +1,5 @@
 import { Body, Controller, Get, Patch } from '@nestjs/common';
-import { z } from 'zod';
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   updateReminderSettingsSchema,
@@ -13,14 +13,6 @@ import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { RemindersService } from './reminders.service';
 
-/** The answer's shape for the API document (the interface ReminderSettingsView in shared/ is the type). */
-const reminderSettingsViewSchema = z.object({
-  shipBy: z.object({ enabled: z.boolean(), daysBefore: z.number().int() }),
-  balanceUnpaid: z.object({ enabled: z.boolean(), daysAfterReady: z.number().int() }),
-  checkoutAbandoned: z.object({ enabled: z.boolean(), hoursAfter: z.number().int() }),
-  requestExpiry: z.object({ enabled: z.boolean(), daysUnpaid: z.number().int() }),
-}) satisfies z.ZodType<ReminderSettingsView>;
-
 /** The reminders' part of the shop settings: each on or off, and when it goes out. */
 @ApiTags('settings')
 @ApiCookieAuth('lw_session')
@@ -29,7 +21,7 @@ export class RemindersController {
   constructor(private readonly reminders: RemindersService) {}
 
   @ApiOperation({ summary: 'The reminders the shop sends, and when' })
-  @ApiZodResponse(reminderSettingsViewSchema)
+  @ApiZodResponse(responseSchemas.reminderSettingsViewSchema)
   @Get()
   @Roles('builder', 'owner')
   @ApiOkResponse({ description: 'Each reminder on or off, and its days (hours for an unfinished checkout).' })
@@ -38,7 +30,7 @@ export class RemindersController {
   }
 
   @ApiOperation({ summary: 'Switch a reminder on or off, or change when it goes out' })
-  @ApiZodResponse(reminderSettingsViewSchema)
+  @ApiZodResponse(responseSchemas.reminderSettingsViewSchema)
   @ApiOkResponse({ description: 'The reminder settings as they now stand.' })
   @Patch()
   @Roles('owner')

@@ -1,3 +1,4 @@
+import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
@@ -9,7 +10,7 @@ import {
   type UtilisationReport,
 } from '@loomwright/shared';
 import { Roles } from '../auth/roles.decorator';
-import { ApiZodQuery } from '../common/zod-openapi';
+import { ApiZodQuery, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ReportsService } from './reports.service';
 
@@ -25,6 +26,7 @@ export class ReportsController {
   @ApiOperation({ summary: 'Revenue per month' })
   @Get('revenue')
   @ApiZodQuery(dateRangeQuerySchema)
+  @ApiZodResponse(responseSchemas.revenueReportSchema)
   @ApiOkResponse({ description: 'Deposits, balances and refunds per calendar month of the shop (payments.csv summed by month).' })
   revenue(@Query(range) query: DateRangeQuery): Promise<RevenueReport> {
     return this.reports.revenue(query);
@@ -32,6 +34,7 @@ export class ReportsController {
 
   @ApiOperation({ summary: 'Money owed now' })
   @Get('outstanding')
+  @ApiZodResponse(responseSchemas.outstandingReportSchema)
   @ApiOkResponse({ description: 'Money owed now: deposits of open requests, balances of builds; and money held beyond what is owed.' })
   outstanding(): Promise<OutstandingReport> {
     return this.reports.outstanding();
@@ -40,6 +43,7 @@ export class ReportsController {
   @ApiOperation({ summary: 'Quoted against spent hours' })
   @Get('hours')
   @ApiZodQuery(dateRangeQuerySchema)
+  @ApiZodResponse(responseSchemas.hoursReportSchema)
   @ApiOkResponse({ description: 'Quoted against spent hours per build and per builder, for builds with hours worked in the range.' })
   hours(@Query(range) query: DateRangeQuery): Promise<HoursReport> {
     return this.reports.hours(query);
@@ -48,6 +52,7 @@ export class ReportsController {
   @ApiOperation({ summary: 'Bench utilisation per builder and week' })
   @Get('utilisation')
   @ApiZodQuery(dateRangeQuerySchema)
+  @ApiZodResponse(responseSchemas.utilisationReportSchema)
   @ApiOkResponse({ description: 'Bench capacity, booked and recorded hours per builder per ISO week.' })
   utilisation(@Query(range) query: DateRangeQuery): Promise<UtilisationReport> {
     return this.reports.utilisation(query);
