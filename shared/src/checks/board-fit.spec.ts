@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { demoPriceBook } from '../price-book/demo-price-book';
 import type { SurfaceItem } from '../price-book/types';
@@ -153,5 +154,57 @@ describe('layout in signal order', () => {
     const fit = boardFitOf(signalChainOf(many), tiered, []);
     expect(fit.layoutKind).toBe('packed');
     expect(fit.warnings.some((w) => w.includes('signal order'))).toBe(true);
+  });
+});
+
+describe('the smallest-surface search (fast-check)', () => {
+  // An internal agreement, not an outside check: the search asks each smaller surface only whether
+  // the pedals fit (no drawing, stopping at the first one left over); that answer must be the one
+  // the full layout gives when the player picks that surface.
+  const layoutArb = fc.option(
+    fc.record({
+      rows: fc.integer({ min: 1, max: 4 }),
+      tiered: fc.boolean(),
+      switcherRow: fc.constantFrom('front' as const, 'back' as const),
+    }),
+    { nil: undefined },
+  );
+  const surfaceArb = fc.record({
+    widthMm: fc.integer({ min: 150, max: 1200 }),
+    depthMm: fc.integer({ min: 100, max: 600 }),
+    price: fc.integer({ min: 50, max: 600 }).map(String),
+    layout: layoutArb,
+  });
+  const pedalArb = fc.record({
+    name: fc.constantFrom('fuzz', 'wah', 'delay', 'tuner', 'looper'),
+    kind: fc.constantFrom('mini', 'compact', 'large', 'large_digital', 'tuner', 'treadle', 'buffer', 'other' as const),
+    powered: fc.constant(true),
+    inLoop: fc.boolean(),
+    size: fc.option(fc.tuple(fc.double({ min: 30, max: 400, noNaN: true }), fc.double({ min: 40, max: 300, noNaN: true })), {
+      nil: undefined,
+    }),
+  });
+
+  it('names the first surface, smallest first, whose own layout holds the pedals', () => {
+    fc.assert(
+      fc.property(
+        fc.array(surfaceArb, { minLength: 1, maxLength: 6 }),
+        fc.array(pedalArb, { minLength: 1, maxLength: 24 }),
+        fc.constantFrom('serial' as const, 'switcher' as const),
+        (drawn, drawnPedals, mode) => {
+          const surfaces: SurfaceItem[] = drawn.map((s, i) => ({ id: `s${i}`, name: `s${i}`, description: '', custom: false, ...s }));
+          const pedals: PedalInput[] = drawnPedals.map(({ size, ...p }) => ({
+            ...p,
+            inLoop: mode === 'switcher' && p.inLoop,
+            ...(size ? { widthMm: size[0], depthMm: size[1] } : {}),
+          }));
+          const chain = signalChainOf({ ...fourSquares, routing: { mode }, pedals });
+          const sized = [...surfaces].sort((a, b) => a.widthMm * a.depthMm - b.widthMm * b.depthMm || Number(a.price) - Number(b.price));
+          const expected = sized.find((s) => boardFitOf(chain, s, [s]).layoutFits)?.id ?? null;
+          for (const chosen of surfaces) expect(boardFitOf(chain, chosen, surfaces).smallestFittingSurfaceId).toBe(expected);
+        },
+      ),
+      { numRuns: 300 },
+    );
   });
 });

@@ -14,13 +14,6 @@ interface RowLayout {
   unplaced: string[];
 }
 
-interface Segment {
-  x: number;
-  width: number;
-  /** How far from the front edge this stretch of the board is already filled. */
-  filled: number;
-}
-
 /**
  * A plain layout in rows from the front edge (the player's side) towards the back: devices,
  * deepest first, each go where they sit closest to the front, leftmost on a tie (a skyline
@@ -43,22 +36,48 @@ const packingItems = (devices: RigDevice[], spacingMm: number): PackingItem[] =>
   devices.map((d) => ({ d, w: d.widthMm + spacingMm, h: d.depthMm + spacingMm })).sort((a, b) => b.h - a.h || b.w - a.w);
 
 /**
+ * The skyline, as three parallel lists (start, width, filled depth) of stretches from left to
+ * right, with a second set the next skyline is written into. Kept between calls and grown when a
+ * rig needs more: the packing runs several times per estimate and a list of objects per placement
+ * was most of its cost. Nothing else runs while a packing does, so one set serves every call.
+ */
+let skyX = new Float64Array(64);
+let skyW = new Float64Array(64);
+let skyF = new Float64Array(64);
+let nextX = new Float64Array(64);
+let nextW = new Float64Array(64);
+let nextF = new Float64Array(64);
+
+/**
  * The skyline packing over items already in order. With `withPlacements` false it only answers
  * whether everything fits (and stops at the first device left over): the smallest-surface search
  * asks that of every smaller surface, and needs no drawing.
  */
 function packRows(items: PackingItem[], widthMm: number, depthMm: number, spacingMm: number, withPlacements: boolean): RowLayout {
+  // Each placement adds at most two stretches.
+  const room = 2 * items.length + 2;
+  if (skyX.length < room) {
+    skyX = new Float64Array(room);
+    skyW = new Float64Array(room);
+    skyF = new Float64Array(room);
+    nextX = new Float64Array(room);
+    nextW = new Float64Array(room);
+    nextF = new Float64Array(room);
+  }
   const placed: Array<{ d: RigDevice; x: number; offset: number; h: number }> = [];
-  let skyline: Segment[] = [{ x: 0, width: widthMm, filled: 0 }];
+  skyX[0] = 0;
+  skyW[0] = widthMm;
+  skyF[0] = 0;
+  let length = 1;
   const unplaced: string[] = [];
   for (const item of items) {
     let bestX = -1;
     let bestOffset = Infinity;
-    for (let i = 0; i < skyline.length; i++) {
-      const x = skyline[i].x;
+    for (let i = 0; i < length; i++) {
+      const x = skyX[i];
       if (x + item.w > widthMm) break;
       let offset = 0;
-      for (let j = i; j < skyline.length && skyline[j].x < x + item.w; j++) if (skyline[j].filled > offset) offset = skyline[j].filled;
+      for (let j = i; j < length && skyX[j] < x + item.w; j++) if (skyF[j] > offset) offset = skyF[j];
       if (offset + item.h <= depthMm && offset < bestOffset) {
         bestX = x;
         bestOffset = offset;
@@ -70,7 +89,7 @@ function packRows(items: PackingItem[], widthMm: number, depthMm: number, spacin
       continue;
     }
     if (withPlacements) placed.push({ d: item.d, x: bestX, offset: bestOffset, h: item.h });
-    skyline = raise(skyline, bestX, item.w, bestOffset + item.h);
+    length = raise(length, bestX, item.w, bestOffset + item.h);
   }
   if (!withPlacements) return { fits: unplaced.length === 0, placements: [], unplaced };
   const bands = [...new Set(placed.map((p) => p.offset))].sort((a, b) => a - b);
@@ -114,7 +133,7 @@ export function signalFlowLayout(
   surfaceLayout: SurfaceLayout,
   spacingMm = SPACING_MM,
 ): RowLayout {
-  return flowRows(inSignalOrder(chain), widthMm, depthMm, surfaceLayout, spacingMm, true);
+  return flowRows(flowOrder(inSignalOrder(chain), surfaceLayout.switcherRow), widthMm, depthMm, surfaceLayout, spacingMm);
 }
 
 /** The chain's devices in signal order (switcher loops after the switcher). */
@@ -125,22 +144,79 @@ function inSignalOrder(chain: SignalChain): RigDevice[] {
     .filter(Boolean);
 }
 
-/** The signal-order layout over devices already in signal order; `withPlacements` false answers only whether it fits. */
+/** The devices of the front row (treadles, and the switcher where the surface puts it there) and the rest, back row first. */
+interface FlowOrder {
+  front: RigDevice[];
+  rest: RigDevice[];
+}
+
+/** The signal order split into the front row and the rest (a back-row switcher first), for one switcher position. */
+function flowOrder(ordered: RigDevice[], switcherRow: SurfaceLayout['switcherRow']): FlowOrder {
+  const front = ordered.filter((d) => groupOf(d, switcherRow) === 'front');
+  const backSwitcher = switcherRow === 'back' ? ordered.filter((d) => d.kind === 'switcher') : [];
+  const rest = [...backSwitcher, ...ordered.filter((d) => !front.includes(d) && !backSwitcher.includes(d))];
+  return { front, rest };
+}
+
+/** flowRows' answer to "does it fit", without drawing anything: the smallest-surface search asks it of each smaller surface. */
+function flowFits({ front, rest }: FlowOrder, widthMm: number, depthMm: number, surfaceLayout: SurfaceLayout, spacingMm: number): boolean {
+  // The same rows, heights and sums as flowRows, in the same order, stopping at the first device left over.
+  const W = widthMm + spacingMm;
+  const D = depthMm + spacingMm;
+  const restRows = Math.max(1, surfaceLayout.rows - (front.length ? 1 : 0));
+  let frontHeight = 0;
+  for (const d of front) frontHeight = Math.max(frontHeight, d.depthMm + spacingMm);
+  let top = 0;
+  let row = -1;
+  let rowHeight = 0;
+  let used = Infinity;
+  let x = W;
+  // A row is judged once its height is known: on a tiered board past its tiers, or too deep with the front row, nothing in it fits.
+  const rowFits = () => !(surfaceLayout.tiered && row >= restRows) && !(top + rowHeight + frontHeight > D);
+  for (const d of rest) {
+    const w = d.widthMm + spacingMm;
+    if (used + w > W) {
+      if (row >= 0) {
+        if (!rowFits()) return false;
+        top += rowHeight;
+      }
+      row += 1;
+      rowHeight = 0;
+      used = 0;
+      x = W;
+    }
+    used += w;
+    rowHeight = Math.max(rowHeight, d.depthMm + spacingMm);
+    if (x - w < -0.001) return false;
+    x -= w;
+  }
+  if (row >= 0) {
+    if (!rowFits()) return false;
+    top += rowHeight;
+  }
+  if (front.length === 0) return true;
+  if (top + frontHeight > D) return false;
+  x = W;
+  for (const d of front) {
+    const w = d.widthMm + spacingMm;
+    if (x - w < -0.001) return false;
+    x -= w;
+  }
+  return true;
+}
+
+/** The signal-order layout over devices already in signal order, with its drawing. */
 function flowRows(
-  ordered: RigDevice[],
+  { front, rest }: FlowOrder,
   widthMm: number,
   depthMm: number,
   surfaceLayout: SurfaceLayout,
   spacingMm: number,
-  withPlacements: boolean,
 ): RowLayout {
   // Each footprint is grown by the spacing, half on each side; at the board's edges that half
   // may reach the rim, so the grown boxes fill an area one spacing wider and deeper.
   const W = widthMm + spacingMm;
   const D = depthMm + spacingMm;
-  const front = ordered.filter((d) => groupOf(d, surfaceLayout.switcherRow) === 'front');
-  const backSwitcher = surfaceLayout.switcherRow === 'back' ? ordered.filter((d) => d.kind === 'switcher') : [];
-  const rest = [...backSwitcher, ...ordered.filter((d) => !front.includes(d) && !backSwitcher.includes(d))];
   const restRows = Math.max(1, surfaceLayout.rows - (front.length ? 1 : 0));
 
   // Rows from the back; each filled from the right.
@@ -174,7 +250,6 @@ function flowRows(
         continue;
       }
       x -= w;
-      if (!withPlacements) continue;
       placements.push({
         device: d.name,
         deviceId: d.id,
@@ -195,37 +270,62 @@ function flowRows(
 }
 
 /**
- * The skyline after a device of `width` at `x` fills it up to `filled`. Segments stay in order
- * from left to right and neighbours of equal height merge, so the list stays short.
+ * The skyline after a device of `width` at `x` fills it up to `filled`, written into the second
+ * set of lists, which then becomes the skyline; answers its length. Stretches stay in order from
+ * left to right and neighbours of equal height merge, so the list stays short.
  */
-function raise(skyline: Segment[], x: number, width: number, filled: number): Segment[] {
+function raise(length: number, x: number, width: number, filled: number): number {
   const end = x + width;
-  const out: Segment[] = [];
+  let out = 0;
   // Appends a stretch, merging it into the last one when they touch at the same height.
   const put = (sx: number, sw: number, sf: number) => {
-    const last = out.length > 0 ? out[out.length - 1] : undefined;
-    if (last !== undefined && last.filled === sf && last.x + last.width === sx) last.width += sw;
-    else out.push({ x: sx, width: sw, filled: sf });
+    if (out > 0 && nextF[out - 1] === sf && nextX[out - 1] + nextW[out - 1] === sx) nextW[out - 1] += sw;
+    else {
+      nextX[out] = sx;
+      nextW[out] = sw;
+      nextF[out] = sf;
+      out += 1;
+    }
   };
   let placed = false;
-  for (const s of skyline) {
-    const sEnd = s.x + s.width;
-    if (sEnd <= x) put(s.x, s.width, s.filled);
-    else if (s.x >= end) {
+  for (let i = 0; i < length; i++) {
+    const sx = skyX[i];
+    const sw = skyW[i];
+    const sf = skyF[i];
+    const sEnd = sx + sw;
+    if (sEnd <= x) put(sx, sw, sf);
+    else if (sx >= end) {
       if (!placed) put(x, width, filled);
       placed = true;
-      put(s.x, s.width, s.filled);
+      put(sx, sw, sf);
     } else {
-      if (s.x < x) put(s.x, x - s.x, s.filled);
+      if (sx < x) put(sx, x - sx, sf);
       if (sEnd > end) {
         if (!placed) put(x, width, filled);
         placed = true;
-        put(end, sEnd - end, s.filled);
+        put(end, sEnd - end, sf);
       }
     }
   }
   if (!placed) put(x, width, filled);
+  [skyX, nextX] = [nextX, skyX];
+  [skyW, nextW] = [nextW, skyW];
+  [skyF, nextF] = [nextF, skyF];
   return out;
+}
+
+/**
+ * A book's surfaces from the smallest area up (the cheaper first on a tie), sorted once per list: a
+ * published book is never changed in place, so its list keeps its order.
+ */
+const sortedSurfaces = new WeakMap<SurfaceItem[], SurfaceItem[]>();
+function bySize(surfaces: SurfaceItem[]): SurfaceItem[] {
+  let sorted = sortedSurfaces.get(surfaces);
+  if (!sorted) {
+    sorted = [...surfaces].sort((a, b) => a.widthMm * a.depthMm - b.widthMm * b.depthMm || Number(a.price) - Number(b.price));
+    sortedSurfaces.set(surfaces, sorted);
+  }
+  return sorted;
 }
 
 const areaWithSpacing = (devices: RigDevice[], spacingMm: number) =>
@@ -239,25 +339,28 @@ export function boardFitOf(chain: SignalChain, surface: SurfaceItem, surfaces: S
   const usableAreaMm2 = surface.widthMm * surface.depthMm;
   const areaFits = requiredAreaMm2 <= usableAreaMm2;
   const surfaceLayout = surface.layout ?? defaultSurfaceLayout(surface.depthMm);
-  // The signal order and the packing order do not depend on the surface: worked out once.
+  // The signal order (split for each place a surface may put the switcher) and the packing order
+  // do not depend on the surface: worked out once, when first asked for.
   const ordered = inSignalOrder(chain);
+  const orders: Partial<Record<SurfaceLayout['switcherRow'], FlowOrder>> = {};
+  const flowOrderFor = (layout: SurfaceLayout) => (orders[layout.switcherRow] ??= flowOrder(ordered, layout.switcherRow));
   let items: PackingItem[] | undefined;
   const packingOrder = () => (items ??= packingItems(devices, spacingMm));
-  const flow = flowRows(ordered, surface.widthMm, surface.depthMm, surfaceLayout, spacingMm, true);
+  const flow = flowRows(flowOrderFor(surfaceLayout), surface.widthMm, surface.depthMm, surfaceLayout, spacingMm);
   const packed = flow.fits ? flow : packRows(packingOrder(), surface.widthMm, surface.depthMm, spacingMm, true);
   const layout = flow.fits || !packed.fits ? flow : packed;
   const layoutFits = areaFits && (flow.fits || packed.fits);
 
   // Smallest by area first; the chosen surface's own layout is already known.
-  const smallest = [...surfaces]
-    .sort((a, b) => a.widthMm * a.depthMm - b.widthMm * b.depthMm || Number(a.price) - Number(b.price))
-    .find((s) =>
-      s.id === surface.id
-        ? layoutFits
-        : requiredAreaMm2 <= s.widthMm * s.depthMm &&
-          (flowRows(ordered, s.widthMm, s.depthMm, s.layout ?? defaultSurfaceLayout(s.depthMm), spacingMm, false).fits ||
-            packRows(packingOrder(), s.widthMm, s.depthMm, spacingMm, false).fits),
+  const smallest = bySize(surfaces).find((s) => {
+    if (s.id === surface.id) return layoutFits;
+    if (requiredAreaMm2 > s.widthMm * s.depthMm) return false;
+    const layout = s.layout ?? defaultSurfaceLayout(s.depthMm);
+    return (
+      flowFits(flowOrderFor(layout), s.widthMm, s.depthMm, layout, spacingMm) ||
+      packRows(packingOrder(), s.widthMm, s.depthMm, spacingMm, false).fits
     );
+  });
 
   const warnings: string[] = [];
   if (!areaFits) {
