@@ -18,6 +18,9 @@ export default defineConfig({
     root: __dirname,
     include: ['src/**/*.spec.ts', 'test/**/*.spec.ts', 'fakes/**/*.spec.ts'],
     environment: 'node',
+    // Compile-time tests (*.test-d.ts): vitest runs tsc over them and their imports, and fails on a
+    // type error or an `@ts-expect-error` that no longer has an error to expect.
+    typecheck: { enabled: true, include: ['src/**/*.test-d.ts'], tsconfig: './tsconfig.json' },
     testTimeout: 30_000,
     hookTimeout: 60_000,
   },

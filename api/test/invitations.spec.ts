@@ -14,7 +14,7 @@ describe('staff invitations', () => {
       .where('template', '=', 'staff-invite')
       .orderBy('created_at', 'desc')
       .execute();
-  const tokenOf = (data: unknown) => new URL(String((data as { acceptUrl: string }).acceptUrl)).searchParams.get('token')!;
+  const tokenOf = (data: unknown) => new URL(String((data as { inviteUrl: string }).inviteUrl)).searchParams.get('token')!;
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -57,7 +57,7 @@ describe('staff invitations', () => {
 
     const [mail] = await inviteMails();
     expect(mail!.to_address).toBe('marit.solberg@shop.example');
-    expect(String((mail!.data as { acceptUrl: string }).acceptUrl)).toMatch(
+    expect(String((mail!.data as { inviteUrl: string }).inviteUrl)).toMatch(
       /^https?:\/\/[^/]+\/backoffice\/accept-invite\?token=[A-Za-z0-9_-]{43}$/,
     );
     expect(mail!.data).toMatchObject({ name: invite.name, invitedBy: 'Odile Varga' });
@@ -141,7 +141,8 @@ describe('staff invitations', () => {
     expect(resent.body).toMatchObject({ builderId, email: 'marit.solberg@shop.example' });
     const mails = await inviteMails();
     expect(mails).toHaveLength(2);
-    expect(mails[0]!.data).toMatchObject({ level: 'journeyman', hourlyRate: '85.00', invitedBy: 'Odile Varga' });
+    // The letter's data: what the invitation says (the level, who invited); the rate is on the Team page, not in the letter.
+    expect(mails[0]!.data).toMatchObject({ level: 'journeyman', invitedBy: 'Odile Varga' });
     const second = tokenOf(mails[0]!.data);
     expect(second).not.toBe(first);
 

@@ -95,7 +95,7 @@ describe('single-use links at rest', () => {
     const failed = await outboxRow('staff-invite');
     expect(failed.state).toBe('failed');
     expect(await rowsContaining(first)).toBe(0);
-    expect(failed.data).not.toHaveProperty('acceptUrl');
+    expect(failed.data).not.toHaveProperty('inviteUrl');
 
     fake = await startMailFake({ smtpPort, httpPort, messages: box });
     const again = await resend(failed.id).expect(201);

@@ -4,16 +4,17 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { startMailFake, type CaughtMessage, type MailFake } from '../fakes/mail/mail-fake';
 import { MailDeliveryService, OUTCOME_UNKNOWN } from '../src/mail/mail-delivery.service';
 import { MailService } from '../src/mail/mail.service';
+import type { MailTemplateData, OutgoingMail } from '../src/mail/mail.types';
 import { clearTables, createTestApp, type TestApp } from './support/test-app';
 
-const scheduledData = {
+const scheduledData: MailTemplateData['booking-scheduled'] = {
   name: 'Rosa Delgado-Finch',
   reference: 'LW-2001',
   benchDate: '2027-01-12',
   shipBy: '2027-01-08',
   builderLevel: 'master',
   expectedCompletion: '2027-01-14',
-  pedals: ['tuner', 'overdrive', 'analog delay'],
+  whatToShip: ['Tuner', 'Overdrive', 'Analog delay', 'Your power supply, with all its leads.'],
   bookingUrl: 'http://localhost:3000/builds/LW-2001',
 };
 
@@ -44,7 +45,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
     await fetch(`http://127.0.0.1:${httpPort}/api/messages`, { method: 'DELETE' });
   });
 
-  const enqueueScheduled = (to = 'player@mail.example', extra: Record<string, unknown> = {}) =>
+  const enqueueScheduled = (to = 'player@mail.example', extra: Partial<MailTemplateData['booking-scheduled']> = {}) =>
     t.db.transaction().execute((trx) => mail.enqueue(trx, { template: 'booking-scheduled', to, data: { ...scheduledData, ...extra } }));
 
   it('delivers over SMTP with the outbox Message-ID and the calendar file, readable over the fake HTTP JSON', async () => {
@@ -174,7 +175,8 @@ describe('mail delivery through the outbox into the mail fake', () => {
   });
 
   it('fails a message whose data the template cannot use, naming the missing key, without sending', async () => {
-    await mail.enqueue(t.db, { template: 'password-reset', to: 'p@mail.example', data: { name: 'P' } });
+    // Data as a stored row may hold it (the types refuse it at compile time): the run-time check is what is tested.
+    await mail.enqueue(t.db, { template: 'password-reset', to: 'p@mail.example', data: { name: 'P' } } as unknown as OutgoingMail);
     expect(await delivery.deliverPending()).toMatchObject({ failed: 1 });
     const row = await t.db.selectFrom('mail_outbox').selectAll().executeTakeFirstOrThrow();
     expect(row.state).toBe('failed');
@@ -193,7 +195,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
       for (let i = 0; i < 7; i += 1) {
         await mail.enqueue(t.db, { template: 'welcome', to: `Person${i}@Mail.Example`, data: { name: `P${i}` } });
       }
-      await mail.enqueue(t.db, { template: 'password-reset', to: 'broken@mail.example', data: {} });
+      await mail.enqueue(t.db, { template: 'password-reset', to: 'broken@mail.example', data: {} } as unknown as OutgoingMail);
       await delivery.deliverPending();
       // The owner's log holds every message; a builder's only theirs (none of these).
       const builder = await signIn('owner@shop.example');
@@ -206,7 +208,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
       const failed = await builder.get('/api/mail?state=failed').expect(200);
       expect(failed.body.total).toBe(1);
       expect(failed.body.items[0]).toMatchObject({ state: 'failed', attempts: 1, template: 'password-reset' });
-      expect(failed.body.items[0].lastError).toBe('The message cannot be written: the data has no "name" (or "customerName").');
+      expect(failed.body.items[0].lastError).toBe('The message cannot be written: the data has no "name".');
       const found = await builder.get('/api/mail?q=person3@mail').expect(200);
       expect(found.body.items.map((e: { to: string }) => e.to)).toEqual(['Person3@Mail.Example']);
       // A search term is matched literally, never as a LIKE pattern.
@@ -255,6 +257,54 @@ describe('mail delivery through the outbox into the mail fake', () => {
       expect(missing.body.message).toContain('no message with the id');
       const bad = await owner.post('/api/mail/not-a-uuid/resend').send({}).expect(400);
       expect(bad.body.message).toBe('This address does not name a message in the mail log; open it again from its list');
+    });
+
+    it('delivers and resends a row written under the older key names as the same message as under today’s keys', async () => {
+      // As an earlier version wrote it: the player as customerName, the page as buildUrl, what to
+      // ship as pedals with the switcher flag (still pending after an upgrade, or resent later).
+      const older = {
+        customerName: 'Rosa Delgado-Finch',
+        reference: 'LW-2001',
+        benchDate: '2027-01-12',
+        shipBy: '2027-01-08',
+        builderLevel: 'master',
+        expectedCompletion: '2027-01-14',
+        pedals: ['Tuner', 'Overdrive', 'Analog delay'],
+        switcher: true,
+        buildUrl: 'http://localhost:3000/builds/LW-2001',
+      };
+      const stored = await t.db
+        .insertInto('mail_outbox')
+        .values({
+          message_id: '<older-keys@shop.example>',
+          template: 'booking-scheduled',
+          to_address: 'older@mail.example',
+          data: JSON.stringify(older),
+        })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      await enqueueScheduled('today@mail.example', {
+        whatToShip: [
+          'Your pedals (3): Tuner, Overdrive, Analog delay.',
+          'Your power supply, with all its leads.',
+          'Your loop switcher, with its power lead and any MIDI or control cables.',
+        ],
+      });
+      expect(await delivery.deliverPending()).toMatchObject({ sent: 2, failed: 0 });
+      const owner = await signIn('owner@shop.example');
+      await owner.post(`/api/mail/${stored.id}/resend`).send({}).expect(201);
+      expect(await delivery.deliverPending()).toMatchObject({ sent: 1, failed: 0 });
+      const byTo = new Map((await inbox()).map((m) => [m.to[0], m]));
+      const today = byTo.get('today@mail.example')!;
+      const copies = (await inbox()).filter((m) => m.to[0] === 'older@mail.example');
+      expect(copies).toHaveLength(2);
+      for (const m of copies) {
+        expect(m.subject).toBe(today.subject);
+        expect(m.text).toBe(today.text);
+        expect(m.html).toBe(today.html);
+      }
+      expect(today.text).toContain('Hello Rosa Delgado-Finch');
+      expect(today.text).toContain('See your booking: http://localhost:3000/builds/LW-2001');
     });
   });
 });

@@ -179,13 +179,13 @@ describe('messages on a build', () => {
       expect(mails).toHaveLength(1);
       // The build is assigned: the shop's side of the conversation is its builder.
       expect(mails[0]).toMatchObject({ to_address: 'builder@shop.example', booking_id: bookingId, state: 'queued' });
-      const data = mails[0].data as { messages: { body: string }[]; buildUrl: string };
+      const data = mails[0].data as { messages: { body: string }[]; bookingUrl: string };
       expect(data.messages.map((m) => m.body)).toEqual([
         'First: the case arrived?',
         'Second: I can drop the pedals off on Friday.',
         'Third: never mind, I will ship them.',
       ]);
-      expect(data.buildUrl).toMatch(new RegExp(`/backoffice/builds/${bookingId}$`));
+      expect(data.bookingUrl).toMatch(new RegExp(`/backoffice/builds/${bookingId}$`));
       const shop = { name: 'Test shop', contactEmail: 'shop@shop.example', timezone: 'America/Chicago', locale: 'en-US', currency: 'USD' };
       const rendered = renderMail('build-messages', data as never, shop, { bookingId });
       expect(rendered.subject).toMatch(new RegExp(`wrote 3 messages about build ${reference}$`));
@@ -207,9 +207,9 @@ describe('messages on a build', () => {
       const mails = await outbox();
       expect(mails.map((m) => m.to_address)).toEqual(['builder@shop.example', 'builder@shop.example', 'player@mail.example']);
       expect((mails[1].data as { messages: { body: string }[] }).messages.map((m) => m.body)).toEqual(['Two, after the first mail']);
-      const data = mails[2].data as { messages: { body: string }[]; buildUrl: string; audience: string };
+      const data = mails[2].data as { messages: { body: string }[]; bookingUrl: string; audience: string };
       expect(data).toMatchObject({ audience: 'player', messages: [{ body: 'Got both.' }] });
-      expect(data.buildUrl).toMatch(new RegExp(`/builds/${bookingId}$`));
+      expect(data.bookingUrl).toMatch(new RegExp(`/builds/${bookingId}$`));
     });
 
     it('tells the shop nothing about a message its builder has already answered (writing marks the thread read)', async () => {

@@ -2,7 +2,7 @@ import { sql } from 'kysely';
 import Stripe from 'stripe';
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import { addDays } from '../src/bench/calendar-days';
-import { renderMail } from '../src/mail/templates/render';
+import { renderStoredMail } from '../src/mail/templates/render';
 import { ReminderClock } from '../src/reminders/reminder-clock';
 import { RemindersService } from '../src/reminders/reminders.service';
 import { builderId, createBooking, quietMondayWeeksAhead } from './support/bench-fixtures';
@@ -120,7 +120,7 @@ describe('reminders and request expiry, with a controlled clock and two workers'
       year: 'numeric',
       timeZone: 'UTC',
     }).format(new Date(`${shipBy}T12:00:00Z`));
-    const letter = renderMail('ship-by-reminder', toPlayer[0]!.data as Record<string, unknown>, {
+    const letter = renderStoredMail('ship-by-reminder', toPlayer[0]!.data, {
       name: 'Shop',
       contactEmail: 'bench@shop.example',
       timezone: 'America/Chicago',

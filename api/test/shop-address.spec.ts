@@ -29,7 +29,7 @@ describe('shop postal address (PATCH /api/settings postalAddress)', () => {
         shipBy: '2027-01-08',
         builderLevel: 'journeyman',
         expectedCompletion: '2027-01-15',
-        pedals: ['tuner', 'fuzz'],
+        whatToShip: ['Tuner', 'Fuzz'],
       },
       shop,
     );
@@ -51,7 +51,7 @@ describe('shop postal address (PATCH /api/settings postalAddress)', () => {
         shipBy: '2027-01-08',
         builderLevel: 'journeyman',
         expectedCompletion: '2027-01-15',
-        pedals: ['tuner', 'fuzz'],
+        whatToShip: ['Tuner', 'Fuzz'],
       },
       await t.app.get(ShopService).profile(),
     );

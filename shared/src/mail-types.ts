@@ -26,7 +26,8 @@ export const mailStateLabels: Record<MailState, string> = {
  */
 export const singleUseLinkKeys: Readonly<Record<string, readonly string[]>> = {
   'password-reset': ['resetUrl'],
-  'staff-invite': ['acceptUrl', 'inviteUrl'],
+  // `acceptUrl` is the name rows written before one key per datum carry.
+  'staff-invite': ['inviteUrl', 'acceptUrl'],
 };
 
 /** POST /api/mail/:id/resend. */

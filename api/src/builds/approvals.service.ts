@@ -89,7 +89,7 @@ export class ApprovalsService {
         userId: booking.customer_id,
         dedupeKey: `approval:extra:${row.id}`,
         data: {
-          customerName: booking.customer_name,
+          name: booking.customer_name,
           reference: booking.reference,
           kind: 'extra',
           description: dto.description,
@@ -186,7 +186,7 @@ export class ApprovalsService {
         to: booking.customer_email,
         bookingId,
         userId: booking.customer_id,
-        data: { customerName: booking.customer_name, reference: booking.reference, kind: 'layout', ...(message ? { message } : {}) },
+        data: { name: booking.customer_name, reference: booking.reference, kind: 'layout', ...(message ? { message } : {}) },
       });
       return { bookingId, state: updated!.state, awaitingLayoutApproval: true };
     });

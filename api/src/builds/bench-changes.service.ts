@@ -168,7 +168,7 @@ export class BenchChangesService {
       userId: booking.customer_id,
       dedupeKey: `rescheduled:${bookingId}:${sequence}`,
       data: {
-        customerName: booking.customer_name,
+        name: booking.customer_name,
         reference: booking.reference,
         benchDate: plan.benchDate,
         previousBenchDate: previousDate ?? plan.benchDate,
@@ -297,7 +297,7 @@ export class BenchChangesService {
       userId: booking.customer_id,
       dedupeKey: `cancelled:${bookingId}`,
       data: {
-        customerName: booking.customer_name,
+        name: booking.customer_name,
         reference: booking.reference,
         reason,
         currency: (deposit?.currency ?? shop.currency).trim(),

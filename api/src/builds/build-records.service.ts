@@ -71,7 +71,7 @@ export class BuildRecordsService {
           to: booking.customer_email,
           bookingId,
           userId: booking.customer_id,
-          data: { customerName: booking.customer_name, reference: booking.reference, note },
+          data: { name: booking.customer_name, reference: booking.reference, note },
         });
       }
     });

@@ -17,6 +17,7 @@ import { addDays } from '../bench/calendar-days';
 import { shipByDate, toHours } from '../bench/scheduling';
 import { Database, type Executor } from '../database/database';
 import { actorOf, BookingsService } from '../bookings/bookings.service';
+import { balanceLetterData } from '../mail/balance-letter';
 import { MailService } from '../mail/mail.service';
 import { formatMoney as formatMoneyWords } from '../mail/templates/format';
 import { dayWords, shopFormatOf } from '../common/shop-voice';
@@ -161,7 +162,7 @@ export class BuildsService {
       userId: booking.customer_id,
       dedupeKey: `scheduled:${bookingId}:${plan.benchDate}`,
       data: {
-        customerName: booking.customer_name,
+        name: booking.customer_name,
         reference: booking.reference,
         benchDate: plan.benchDate,
         shipBy,
@@ -231,7 +232,7 @@ export class BuildsService {
         userId: booking.customer_id,
         dedupeKey: `declined:${bookingId}`,
         data: {
-          customerName: booking.customer_name,
+          name: booking.customer_name,
           reference: booking.reference,
           reason: reason.trim(),
           depositRefunded: !!refunded,
@@ -306,22 +307,17 @@ export class BuildsService {
         }
       }
       if (to === 'ready') {
-        await this.mail.enqueue(trx, {
-          template: 'balance-requested',
-          to: booking.customer_email,
-          bookingId,
-          userId: booking.customer_id,
-          dedupeKey: `balance:${bookingId}`,
-          data: {
-            customerName: booking.customer_name,
-            reference: booking.reference,
-            firmTotal: money.firmTotal,
-            extras: money.approvedExtras,
-            paidSoFar: money.netPaid,
-            balanceDue: money.balanceDue,
-            currency: money.currency,
-          },
-        });
+        const letter = balanceLetterData(booking.customer_name, booking.reference, money);
+        if (letter) {
+          await this.mail.enqueue(trx, {
+            template: 'balance-requested',
+            to: booking.customer_email,
+            bookingId,
+            userId: booking.customer_id,
+            dedupeKey: `balance:${bookingId}`,
+            data: letter,
+          });
+        }
       }
       if (MAILED_STATES.includes(to)) {
         const faulty =
@@ -333,7 +329,7 @@ export class BuildsService {
           userId: booking.customer_id,
           dedupeKey: `status:${bookingId}:${to}`,
           data: {
-            customerName: booking.customer_name,
+            name: booking.customer_name,
             reference: booking.reference,
             fromState: from,
             state: to,

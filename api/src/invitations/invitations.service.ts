@@ -67,7 +67,7 @@ export class InvitationsService implements OnModuleInit {
         template: 'staff-invite',
         to: user.email,
         userId: user.id,
-        data: { name: user.name, invitedBy: invitedBy.name, level: input.level, hourlyRate: input.hourlyRate, ...link },
+        data: { name: user.name, invitedBy: invitedBy.name, level: input.level, ...link },
       });
       return { user, builderId, expiresAt: link.expiresAt, resent };
     });
@@ -91,7 +91,7 @@ export class InvitationsService implements OnModuleInit {
         template: 'staff-invite',
         to: row.email,
         userId: row.user_id,
-        data: { name: row.name, invitedBy: invitedBy.name, level: row.level, hourlyRate: row.hourly_rate, ...link },
+        data: { name: row.name, invitedBy: invitedBy.name, level: row.level, ...link },
       });
       return { builderId: row.id, email: row.email, expiresAt: link.expiresAt };
     });
@@ -102,7 +102,7 @@ export class InvitationsService implements OnModuleInit {
     const lifetimeMs = this.config.get('auth', { infer: true }).staffInviteDays * 24 * 3600_000;
     const publicUrl = this.config.get('app', { infer: true }).publicUrl;
     const { token, expiresAt } = await this.tokens.issue(trx, userId, 'staff_invite', lifetimeMs);
-    return { acceptUrl: `${publicUrl}/backoffice/accept-invite?token=${encodeURIComponent(token)}`, expiresAt: expiresAt.toISOString() };
+    return { inviteUrl: `${publicUrl}/backoffice/accept-invite?token=${encodeURIComponent(token)}`, expiresAt: expiresAt.toISOString() };
   }
 
   /** The owner resends an invitation: a fresh link while it is still pending, and only to the same address. */

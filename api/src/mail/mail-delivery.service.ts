@@ -6,7 +6,7 @@ import type { AppConfig } from '../config/configuration';
 import { ShopService } from '../shop/shop.service';
 import { MailOutboxRepository } from './mail-outbox.repository';
 import { classifySmtpError, describeSmtpError, MailTransport } from './mail-transport';
-import { MailDataError, renderMail, type RenderedMail } from './templates/render';
+import { MailDataError, renderStoredMail, type RenderedMail } from './templates/render';
 
 export type DeliveryOutcome = 'sent' | 'retry' | 'failed' | 'unknown' | 'skipped';
 
@@ -99,7 +99,7 @@ export class MailDeliveryService {
     let rendered: RenderedMail;
     try {
       const shop = knownShop ?? (await this.shop.profile());
-      rendered = renderMail(row.template, row.data, { ...shop, publicUrl: this.publicUrl }, { bookingId: row.booking_id });
+      rendered = renderStoredMail(row.template, row.data, { ...shop, publicUrl: this.publicUrl }, { bookingId: row.booking_id });
     } catch (error) {
       const permanent = error instanceof MailDataError;
       const reason = permanent ? `The message cannot be written: ${(error as Error).message}.` : describeSmtpError(error);

@@ -13,7 +13,8 @@ import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailOutboxRepository } from './mail-outbox.repository';
 import { MailWorker } from './mail-worker.service';
-import type { MailTemplate, OutgoingMail } from './mail.types';
+import { isMailTemplate, type MailTemplate, type OutgoingMail } from './mail.types';
+import { upgradeMailData } from './templates/upgrade-data';
 
 type OutboxRow = NonNullable<Awaited<ReturnType<MailOutboxRepository['findById']>>>;
 
@@ -118,7 +119,10 @@ export class MailService {
     const renew = this.linkRenewers.get(original.template);
     if (!renew)
       throw new ConflictException('This message carried a single-use link that cannot be renewed; ask the recipient to request a new one.');
-    const data = { ...(original.data as Record<string, unknown>) };
+    // Today's key names, so the renewed row is written as a new one would be.
+    const data = isMailTemplate(original.template)
+      ? upgradeMailData(original.template, original.data)
+      : { ...(original.data as Record<string, unknown>) };
     for (const key of linkKeys) delete data[key];
     return renew(trx, { userId: original.user_id, to: original.to_address, data });
   }

@@ -30,37 +30,46 @@ export const mailTemplates = [
 ] as const;
 export type MailTemplate = (typeof mailTemplates)[number];
 
-export interface OutgoingMail {
-  template: MailTemplate;
-  to: string;
-  /** Whatever the template reads (names, dates, amounts as decimal strings, links). */
-  data: Record<string, unknown>;
-  bookingId?: string | null;
-  userId?: string | null;
-  /** Makes "send this once" idempotent: a second enqueue with the same key is ignored. */
-  dedupeKey?: string;
-}
+export const isMailTemplate = (name: string): name is MailTemplate => (mailTemplates as readonly string[]).includes(name);
+
+/**
+ * One message for the outbox, typed by its template: `data` is exactly what that template reads
+ * (MailTemplateData below), so a missing or misspelt key fails to compile at the caller.
+ * `OutgoingMail` alone is the union over every template, discriminated by `template`.
+ */
+export type OutgoingMail<T extends MailTemplate = MailTemplate> = {
+  [K in T]: {
+    template: K;
+    to: string;
+    /** What the template reads: names, dates, amounts as decimal strings, links. */
+    data: MailTemplateData[K];
+    bookingId?: string | null;
+    userId?: string | null;
+    /** Makes "send this once" idempotent: a second enqueue with the same key is ignored. */
+    dedupeKey?: string;
+  };
+}[T];
 
 /*
- * What each template reads from `data` (the keys the calling modules send). Amounts are decimal
- * strings ("1120.00") in `currency` (ISO 4217); calendar days are 'YYYY-MM-DD'; instants are
- * ISO 8601 strings; links are absolute URLs. The recipient is `name` or `customerName`. Where a
- * booking page link is not given (`bookingUrl` or `buildUrl`), the message links to
- * PUBLIC_URL/builds/<the outbox row's bookingId>. A message whose data lacks a required key is not
- * sent: the mail log shows it as failed, naming the key.
+ * What each template reads from `data`, one key name per datum. Amounts are decimal strings
+ * ("1120.00") in `currency` (ISO 4217); calendar days are 'YYYY-MM-DD'; instants are ISO 8601
+ * strings; links are absolute URLs. The recipient is `name`. Where a booking page link
+ * (`bookingUrl`) is not given, the message links to PUBLIC_URL/builds/<the outbox row's bookingId>.
+ * Rows already in the outbox under the older key names are read through `upgradeMailData`
+ * (templates/upgrade-data.ts). A stored row whose data lacks a required key is not sent: the mail
+ * log shows it as failed, naming the key.
  */
-type Recipient = { name: string } | { customerName: string };
+type Recipient = { name: string };
 /** One line item as a quote e-mail lists it; amounts are decimal strings, a labor line a range. */
 export type QuoteMailLine = { label: string; quantity?: string; amount: string; amountHigh?: string };
-type BookingLink = { bookingUrl?: string; buildUrl?: string };
+type BookingLink = { bookingUrl?: string };
 
 export type MailTemplateData = {
   welcome: Recipient & { configureUrl?: string; signInUrl?: string; accountUrl?: string };
   'password-reset': Recipient & { resetUrl: string; expiresAt: string };
   'staff-invite': Recipient & {
-    /** Either name works. */
-    inviteUrl?: string;
-    acceptUrl?: string;
+    /** The single-use link that sets the builder's first password. */
+    inviteUrl: string;
     invitedBy?: string;
     level?: 'apprentice' | 'journeyman' | 'master';
     role?: 'builder' | 'owner';
@@ -107,12 +116,8 @@ export type MailTemplateData = {
       expectedCompletion: string;
       /** 'ship' (default) or 'drop-off'. */
       handover?: 'ship' | 'drop-off';
-      /** What to send, line by line (pedals by name, supply, switcher); or give `pedals` and the flags. */
-      whatToShip?: string[];
-      pedals?: string[];
-      /** With `pedals`: a power supply is assumed unless false; a switcher only when true. */
-      powerSupply?: boolean;
-      switcher?: boolean;
+      /** What to send, line by line (pedals by name, supply, switcher). */
+      whatToShip: string[];
       /** Where to ship or drop off; defaults to the shop's name and contact address. */
       shipTo?: string;
       /** Shown when `currency` is given. */
@@ -160,14 +165,12 @@ export type MailTemplateData = {
     BookingLink & {
       reference: string;
       currency: string;
-      /** The amount due: `amount` or `balanceDue`. */
-      amount?: string;
-      balanceDue?: string;
+      /** The amount due. */
+      balanceDue: string;
       firmTotal?: string;
       extras?: string;
-      /** Net of refunds: `paidSoFar` (or the older `depositPaid`). */
+      /** Net of refunds. */
       paidSoFar?: string;
-      depositPaid?: string;
       payUrl?: string;
     };
   'deposit-refunded': Recipient & { reference: string; amount: string; currency: string };
@@ -233,7 +236,7 @@ export type MailTemplateData = {
     BookingLink & { reference: string; kind: 'deposit' | 'balance'; amount: string; currency: string; payUrl?: string };
   /** An unpaid request closed after the shop's set number of days. */
   'request-expired': Recipient & { reference: string; days: number; configureUrl?: string };
-  /** To the shop; the player is `name` (or `customerName`). */
+  /** To the shop; the player is `name`. */
   'shop-new-paid-request': Recipient & {
     reference: string;
     customerEmail: string;

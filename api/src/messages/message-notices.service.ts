@@ -3,6 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import type { AppConfig } from '../config/configuration';
 import { Database } from '../database/database';
 import { MailService } from '../mail/mail.service';
+import type { OutgoingMail } from '../mail/mail.types';
 import { ShopService } from '../shop/shop.service';
 import { MessageClock } from './message-clock';
 import { MessagesRepository } from './messages.repository';
@@ -56,7 +57,7 @@ export class MessageNoticesService {
           at: new Date(m.created_at).toISOString(),
           photos: Number(m.photo_count),
         }));
-        let mail;
+        let mail: Pick<OutgoingMail<'build-messages'>, 'to' | 'userId' | 'data'>;
         if (notice.side === 'player') {
           mail = {
             to: people.customer_email,
@@ -66,7 +67,7 @@ export class MessageNoticesService {
               name: people.customer_name,
               reference: people.reference,
               messages: lines,
-              buildUrl: `${publicUrl}/builds/${people.id}`,
+              bookingUrl: `${publicUrl}/builds/${people.id}`,
             },
           };
         } else {
@@ -80,7 +81,7 @@ export class MessageNoticesService {
               playerName: people.customer_name,
               reference: people.reference,
               messages: lines,
-              buildUrl: `${publicUrl}/backoffice/builds/${people.id}`,
+              bookingUrl: `${publicUrl}/backoffice/builds/${people.id}`,
             },
           };
         }

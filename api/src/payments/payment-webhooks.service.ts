@@ -3,12 +3,13 @@ import { BadRequestException, Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import Stripe from 'stripe';
 import { BookingsService } from '../bookings/bookings.service';
+import { moneyOf } from '../common/shop-voice';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { ShopService } from '../shop/shop.service';
 import { PaymentsRepository, type PaymentRow } from './payments.repository';
-import { money, PaymentsService, providerActor as provider } from './payments.service';
+import { PaymentsService, providerActor as provider } from './payments.service';
 
 /**
  * The events Loomwright acts on. The README's "Running on real keys" lists the same names: the
@@ -222,7 +223,7 @@ export class PaymentWebhooksService {
         trx,
         payment.booking_id,
         provider,
-        `${payment.kind === 'deposit' ? 'Deposit' : 'Balance'} of ${money(payment)} paid by bank debit; it settles in a few working days, and the booking moves on once it has.`,
+        `${payment.kind === 'deposit' ? 'Deposit' : 'Balance'} of ${moneyOf(payment)} paid by bank debit; it settles in a few working days, and the booking moves on once it has.`,
       );
       return;
     }
@@ -244,41 +245,36 @@ export class PaymentWebhooksService {
       await this.paymentsService.refundDeposit(trx, booking.id, provider, `Deposit arrived after the booking was ${booking.state}.`);
       return;
     }
-    await this.bookings.transition(trx, booking.id, ['requested'], 'deposit_paid', provider, `Deposit of ${money(payment)} received.`);
+    await this.bookings.transition(trx, booking.id, ['requested'], 'deposit_paid', provider, `Deposit of ${moneyOf(payment)} received.`);
     const detail = await this.bookings.getDetail(booking.id, trx);
     const publicUrl = this.config.get('app', { infer: true }).publicUrl;
-    const data = {
-      name: detail.customer.name,
-      customerEmail: detail.customer.email,
-      reference: detail.reference,
-      amount: payment.amount,
-      currency: payment.currency.trim(),
-      totalLow: detail.totalLow,
-      totalHigh: detail.totalHigh,
-      summary: detail.summary,
-      buildUrl: `${publicUrl}/builds/${detail.id}`,
-      backofficeUrl: `${publicUrl}/backoffice/requests`,
-    };
+    const paid = { name: detail.customer.name, reference: detail.reference, amount: payment.amount, currency: payment.currency.trim() };
     await this.mail.enqueue(trx, {
       template: 'deposit-received',
       to: detail.customer.email,
       bookingId: detail.id,
       userId: detail.customer.id,
-      data,
+      data: { ...paid, bookingUrl: `${publicUrl}/builds/${detail.id}` },
       dedupeKey: `deposit-received:${payment.id}`,
     });
     await this.mail.enqueue(trx, {
       template: 'shop-new-paid-request',
       to: shopEmail,
       bookingId: detail.id,
-      data,
+      data: {
+        ...paid,
+        customerEmail: detail.customer.email,
+        totalLow: detail.totalLow,
+        totalHigh: detail.totalHigh,
+        backofficeUrl: `${publicUrl}/backoffice/requests`,
+      },
       dedupeKey: `shop-new-paid-request:${payment.id}`,
     });
   }
 
   private async balancePaid(trx: Executor, payment: PaymentRow) {
     // The state stays "ready": the shop ships or hands over, then marks it delivered.
-    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `Balance of ${money(payment)} received.`);
+    await this.paymentsService.historyNote(trx, payment.booking_id, provider, `Balance of ${moneyOf(payment)} received.`);
   }
 
   /** checkout.session.async_payment_failed: the debit did not go through; the player is told and can pay again. */
@@ -295,7 +291,7 @@ export class PaymentWebhooksService {
       trx,
       payment.booking_id,
       provider,
-      `${what} bank debit of ${money(payment)} failed: ${reason} Nothing was taken; the player has been asked to pay again.`,
+      `${what} bank debit of ${moneyOf(payment)} failed: ${reason} Nothing was taken; the player has been asked to pay again.`,
     );
     const detail = await this.bookings.getDetail(payment.booking_id, trx);
     const publicUrl = this.config.get('app', { infer: true }).publicUrl;
@@ -311,7 +307,7 @@ export class PaymentWebhooksService {
         currency: failed.currency.trim(),
         reason,
         kind: failed.kind,
-        buildUrl: `${publicUrl}/builds/${detail.id}`,
+        bookingUrl: `${publicUrl}/builds/${detail.id}`,
       },
       dedupeKey: `payment-failed:${payment.id}`,
     });
@@ -328,7 +324,7 @@ export class PaymentWebhooksService {
       trx,
       payment.booking_id,
       provider,
-      `The ${payment.kind} checkout of ${money(payment)} closed unpaid when its time ran out; nothing was taken, and the player can pay again from the build page.`,
+      `The ${payment.kind} checkout of ${moneyOf(payment)} closed unpaid when its time ran out; nothing was taken, and the player can pay again from the build page.`,
     );
   }
 

@@ -6,15 +6,16 @@ import {
   bookingStateLabels,
   formatMoney,
   paymentMethodWords,
-  shopFormat,
   type RecordBalanceInput,
   toProviderAmount,
   fromProviderAmount,
 } from '@loomwright/shared';
 import Stripe from 'stripe';
 import { actorOf, BookingsService, type BookingActor } from '../bookings/bookings.service';
+import { moneyOf } from '../common/shop-voice';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
+import { balanceLetterData } from '../mail/balance-letter';
 import { MailService } from '../mail/mail.service';
 import { PaymentsRepository, type PaymentRow } from './payments.repository';
 
@@ -49,9 +50,6 @@ export const refundFailureText = (reason: string | null | undefined) =>
 
 /** A dispute that the bank has not decided for the shop: the money may not stay, so it is not refunded. */
 export const disputeOpen = (p: PaymentRow) => !!p.dispute_id && !['won', 'warning_closed'].includes(p.dispute_status ?? '');
-
-/** A payment's amount for history lines and refusals, with its currency sign as the apps write it ("$220.99"). */
-export const money = (p: Pick<PaymentRow, 'amount' | 'currency'>) => shopFormat({ currency: p.currency.trim() }).money(p.amount);
 
 @Injectable()
 export class PaymentsService {
@@ -209,7 +207,7 @@ export class PaymentsService {
     if (locked.refund_status === 'pending' || locked.refund_status === 'requires_action') return locked;
     if (disputeOpen(locked)) {
       throw new ConflictException(
-        `The deposit of ${money(locked)} is disputed by the player's bank, which is deciding where the money goes; it cannot be refunded until the dispute closes.`,
+        `The deposit of ${moneyOf(locked)} is disputed by the player's bank, which is deciding where the money goes; it cannot be refunded until the dispute closes.`,
       );
     }
     const attempt = locked.refund_attempts + 1;
@@ -343,7 +341,7 @@ export class PaymentsService {
         to,
         bookingId: booking.id,
         data: {
-          customerName: booking.customer.name,
+          name: booking.customer.name,
           alert,
           reference: booking.reference,
           amount: payment.amount,
@@ -443,7 +441,7 @@ export class PaymentsService {
       if (money.settled) throw new ConflictException(`Nothing is due on ${booking.reference}; the balance is already paid or waived.`);
       if (money.balanceDue !== formatMoney(input.amount, money.currency)) {
         throw new BadRequestException(
-          `The amount must be the whole balance: the balance due on ${booking.reference} is ${shopFormat({ currency: money.currency }).money(money.balanceDue)}; record the whole amount, or the owner waives what is left.`,
+          `The amount must be the whole balance: the balance due on ${booking.reference} is ${moneyOf({ amount: money.balanceDue ?? '0', currency: money.currency })}; record the whole amount, or the owner waives what is left.`,
         );
       }
       for (const p of await this.payments.listForBooking(trx, bookingId, 'balance')) {
@@ -495,22 +493,17 @@ export class PaymentsService {
       const customer = await this.payments.findCustomer(trx, booking.customer_id);
       // One reminder a minute at most: a double click sends one e-mail.
       const minute = new Date().toISOString().slice(0, 16);
-      await this.mail.enqueue(trx, {
-        template: 'balance-requested',
-        to: customer.email,
-        bookingId,
-        userId: customer.id,
-        dedupeKey: `balance-again:${bookingId}:${minute}`,
-        data: {
-          customerName: customer.name,
-          reference: booking.reference,
-          firmTotal: money.firmTotal,
-          extras: money.approvedExtras,
-          paidSoFar: money.netPaid,
-          balanceDue: money.balanceDue,
-          currency: money.currency,
-        },
-      });
+      const letter = balanceLetterData(customer.name, booking.reference, money);
+      if (letter) {
+        await this.mail.enqueue(trx, {
+          template: 'balance-requested',
+          to: customer.email,
+          bookingId,
+          userId: customer.id,
+          dedupeKey: `balance-again:${bookingId}:${minute}`,
+          data: letter,
+        });
+      }
       await this.bookings.insertNote(
         trx,
         booking,

@@ -179,7 +179,8 @@ export class RemindersService {
           name: row.customer_name,
           reference: row.reference,
           shipBy: candidate.shipBy,
-          benchDate: row.bench_date,
+          // The due query found this row by its bench date (checked equal to the candidate's above).
+          benchDate: row.bench_date!,
           daysLeft,
           bookingUrl: `${this.publicUrl()}/builds/${row.id}`,
         },
@@ -204,7 +205,7 @@ export class RemindersService {
             reference: row.reference,
             playerName: row.customer_name,
             shipBy: candidate.shipBy,
-            benchDate: row.bench_date,
+            benchDate: row.bench_date!,
             backofficeUrl: `${this.publicUrl()}/backoffice/requests/${row.id}`,
           },
         });

@@ -1,4 +1,5 @@
 import { shopFormat, type ShopFormat } from '@loomwright/shared';
+import { moneyOf } from '../../common/shop-voice';
 
 /**
  * Money, days and moments in e-mail (and the history lines the API writes), through the one shared
@@ -23,7 +24,7 @@ const decimal = /^-?\d+(\.\d+)?$/;
 /** "$1,120.00" in the shop's locale, with the currency's own minor unit. */
 export function formatMoney(amount: string, currency: string): string {
   if (!decimal.test(amount)) throw new MailDataError(`the amount "${amount}" is not a decimal number`);
-  return voice.money(amount, currency);
+  return moneyOf({ amount, currency }, voice);
 }
 
 const day = /^\d{4}-\d{2}-\d{2}$/;
@@ -47,13 +48,31 @@ export function formatInstant(value: string, timeZone?: string): string {
 /** Data a template needs is missing or malformed: the message cannot be rendered, so it is not sent. */
 export class MailDataError extends Error {}
 
-export function requireString(data: Record<string, unknown>, key: string): string {
-  const value = data[key];
+/** A key of a template's data (MailTemplateData): reading a key the type lacks fails to compile. */
+type DataKey<D> = keyof D & string;
+
+/**
+ * A string the template needs. The types say it is there, but the data comes back from the outbox
+ * as stored JSON (possibly from an older version), so it is still checked here.
+ */
+export function requireString<D extends object>(data: D, key: DataKey<D>): string {
+  const value = (data as Record<string, unknown>)[key];
   if (typeof value !== 'string' || value.trim() === '') throw new MailDataError(`the data has no "${key}"`);
   return value;
 }
 
-export function optionalString(data: Record<string, unknown>, key: string): string | undefined {
-  const value = data[key];
+export function optionalString<D extends object>(data: D, key: DataKey<D>): string | undefined {
+  const value = (data as Record<string, unknown>)[key];
   return typeof value === 'string' && value.trim() !== '' ? value : undefined;
 }
+
+/** A whole number the template needs (checked for the same reason as requireString). */
+export function requireWhole<D extends object>(data: D, key: DataKey<D>): number {
+  const value = (data as Record<string, unknown>)[key];
+  if (typeof value !== 'number' || !Number.isInteger(value)) throw new MailDataError(`the data has no whole number "${key}"`);
+  return value;
+}
+
+/** The letter's `amount` in its `currency`: "$280.00". */
+export const amountOf = (data: { amount?: string; currency?: string | null }) =>
+  formatMoney(requireString(data, 'amount'), requireString(data, 'currency'));

@@ -1,4 +1,5 @@
-import { formatDay, formatMoney, MailDataError, optionalString, requireString } from './format';
+import type { MailTemplateData } from '../mail.types';
+import { amountOf, formatDay, formatMoney, optionalString, requireString, requireWhole } from './format';
 import type { Block, Letter } from './layout';
 
 /**
@@ -7,28 +8,19 @@ import type { Block, Letter } from './layout';
  * board is ready, an unfinished checkout, and a request expired without its deposit. Days are the
  * shop's calendar days and money the shop's currency, through the one shared formatter.
  */
-type Data = Record<string, unknown>;
 type Draft = { subject: string; letter: Omit<Letter, 'shopName'> };
+type ReminderTemplate = 'ship-by-reminder' | 'shop-ship-by-reminder' | 'balance-reminder' | 'checkout-reminder' | 'request-expired';
 
-const recipient = (data: Data) => {
-  const value = optionalString(data, 'name') ?? optionalString(data, 'customerName');
-  if (!value) throw new MailDataError('the data has no "name" (or "customerName")');
-  return value;
-};
+const recipient = (data: { name: string }) => requireString(data, 'name');
 const link = (label: string, url: string | undefined): Block[] => (url ? [{ kind: 'link', label, url }] : []);
 const dueIn = (days: number) => (days <= 0 ? 'today' : days === 1 ? 'tomorrow' : `in ${days} days`);
-const whole = (data: Data, key: string) => {
-  const value = data[key];
-  if (typeof value !== 'number' || !Number.isInteger(value)) throw new MailDataError(`the data has no whole number "${key}"`);
-  return value;
-};
 
 export const reminderDrafts = {
-  'ship-by-reminder': (data: Data): Draft => {
+  'ship-by-reminder': (data: MailTemplateData['ship-by-reminder']): Draft => {
     const reference = requireString(data, 'reference');
     const shipBy = formatDay(requireString(data, 'shipBy'));
     return {
-      subject: `Your pedals for ${reference} are due ${dueIn(whole(data, 'daysLeft'))}, by ${shipBy}`,
+      subject: `Your pedals for ${reference} are due ${dueIn(requireWhole(data, 'daysLeft'))}, by ${shipBy}`,
       letter: {
         heading: 'Your pedals are due at the bench soon',
         blocks: [
@@ -54,7 +46,7 @@ export const reminderDrafts = {
       },
     };
   },
-  'shop-ship-by-reminder': (data: Data): Draft => {
+  'shop-ship-by-reminder': (data: MailTemplateData['shop-ship-by-reminder']): Draft => {
     const reference = requireString(data, 'reference');
     const shipBy = formatDay(requireString(data, 'shipBy'));
     return {
@@ -81,7 +73,7 @@ export const reminderDrafts = {
       },
     };
   },
-  'balance-reminder': (data: Data): Draft => {
+  'balance-reminder': (data: MailTemplateData['balance-reminder']): Draft => {
     const reference = requireString(data, 'reference');
     const currency = requireString(data, 'currency');
     const due = formatMoney(requireString(data, 'balanceDue'), currency);
@@ -104,10 +96,10 @@ export const reminderDrafts = {
       },
     };
   },
-  'checkout-reminder': (data: Data): Draft => {
+  'checkout-reminder': (data: MailTemplateData['checkout-reminder']): Draft => {
     const reference = requireString(data, 'reference');
     const what = optionalString(data, 'kind') === 'balance' ? 'balance' : 'deposit';
-    const amount = formatMoney(requireString(data, 'amount'), requireString(data, 'currency'));
+    const amount = amountOf(data);
     return {
       subject: `Your ${what} payment for ${reference} was not finished`,
       letter: {
@@ -129,9 +121,9 @@ export const reminderDrafts = {
       },
     };
   },
-  'request-expired': (data: Data): Draft => {
+  'request-expired': (data: MailTemplateData['request-expired']): Draft => {
     const reference = requireString(data, 'reference');
-    const days = whole(data, 'days');
+    const days = requireWhole(data, 'days');
     return {
       subject: `Your request ${reference} has expired`,
       letter: {
@@ -150,4 +142,4 @@ export const reminderDrafts = {
       },
     };
   },
-} satisfies Record<string, (data: Data) => Draft>;
+} satisfies { [T in ReminderTemplate]: (data: MailTemplateData[T]) => Draft };

@@ -1,9 +1,10 @@
 import { bookingStateLabels, messageWords, type BookingState } from '@loomwright/shared';
-import type { MailTemplate } from '../mail.types';
+import { isMailTemplate, type MailTemplate, type MailTemplateData, type QuoteMailLine } from '../mail.types';
 import { handoverCalendar } from './calendar';
-import { formatDay, formatInstant, formatMoney, inShopVoice, MailDataError, optionalString, requireString } from './format';
+import { amountOf, formatDay, formatInstant, formatMoney, inShopVoice, MailDataError, optionalString, requireString } from './format';
 import { letterHtml, letterText, type Block, type Letter } from './layout';
 import { reminderDrafts } from './reminder-letters';
+import { upgradeMailData } from './upgrade-data';
 
 export interface ShopContext {
   name: string;
@@ -31,8 +32,10 @@ export interface RenderedMail {
   attachments: { filename: string; contentType: string; content: string; encoding?: 'base64' }[];
 }
 
-type Data = Record<string, unknown>;
 type Draft = { subject: string; letter: Omit<Letter, 'shopName'>; attachments?: RenderedMail['attachments'] };
+/** What a template's renderer reads: exactly its MailTemplateData, so a key the type lacks fails to compile. */
+type Drafts = { [T in MailTemplate]: (data: MailTemplateData[T], shop: ShopContext) => Draft };
+type Data<T extends MailTemplate> = MailTemplateData[T];
 
 const levelWords: Record<string, string> = {
   apprentice: 'Apprentice builder',
@@ -40,27 +43,10 @@ const levelWords: Record<string, string> = {
   master: 'Master builder',
 };
 
-function money(data: Data, key = 'amount') {
-  return formatMoney(requireString(data, key), requireString(data, 'currency'));
-}
-
 const open = (label: string, url: string): Block => ({ kind: 'link', label, url });
 const openIf = (label: string, url: string | undefined): Block[] => (url ? [open(label, url)] : []);
 
-/** Callers name the recipient `name` or `customerName`. */
-function recipient(data: Data): string {
-  const value = optionalString(data, 'name') ?? optionalString(data, 'customerName');
-  if (!value) throw new MailDataError('the data has no "name" (or "customerName")');
-  return value;
-}
-
-function firstString(data: Data, ...keys: string[]): string | undefined {
-  for (const key of keys) {
-    const value = optionalString(data, key);
-    if (value) return value;
-  }
-  return undefined;
-}
+const recipient = (data: { name: string }) => requireString(data, 'name');
 
 function strings(value: unknown): string[] {
   return Array.isArray(value) ? value.filter((v): v is string => typeof v === 'string' && v.trim() !== '') : [];
@@ -70,10 +56,10 @@ function strings(value: unknown): string[] {
  * A quote's line items as rows of a facts table: "Patch cables (19 pcs)" → "$96.00", a labor line
  * as its range. `lines` is [{label, quantity?, amount, amountHigh?}] with decimal-string amounts.
  */
-function quoteLineRows(data: Data, currency: string): [string, string][] {
-  if (!Array.isArray(data.lines)) return [];
-  return data.lines.map((line, i) => {
-    const l = (line ?? {}) as Data;
+function quoteLineRows(lines: QuoteMailLine[] | undefined, currency: string): [string, string][] {
+  if (!Array.isArray(lines)) return [];
+  return lines.map((line, i) => {
+    const l: Partial<QuoteMailLine> = line ?? {};
     const label = optionalString(l, 'label');
     const amount = optionalString(l, 'amount');
     if (!label || !amount) throw new MailDataError(`line ${i + 1} of "lines" has no label or amount`);
@@ -99,7 +85,7 @@ const packing: string[] = [
 /** The booking's calendar event is the ship-by (or drop-off) day, one UID per booking for its whole life. */
 const handoverUid = (reference: string) => `handover-${reference}@loomwright.app`;
 
-function calendarSequence(data: Data): number {
+function calendarSequence(data: { calendarSequence?: number }): number {
   const value = data.calendarSequence ?? 0;
   if (typeof value !== 'number' || !Number.isInteger(value) || value < 0)
     throw new MailDataError('"calendarSequence" must be a whole number from 0');
@@ -113,16 +99,13 @@ interface Move {
   reason: string;
 }
 
-function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
+function bookingScheduled(data: Data<'booking-scheduled'>, shop: ShopContext, move?: Move): Draft {
   const reference = requireString(data, 'reference');
   const shipBy = requireString(data, 'shipBy');
   const level = requireString(data, 'builderLevel');
   if (!levelWords[level]) throw new MailDataError(`the builder level "${level}" is not apprentice, journeyman or master`);
-  const pedals = strings(data.pedals);
-  const shipList = strings(data.whatToShip);
-  if (pedals.length === 0 && shipList.length === 0) {
-    throw new MailDataError('the data has no "pedals" or "whatToShip" (what the player must send)');
-  }
+  const bring = strings(data.whatToShip);
+  if (bring.length === 0) throw new MailDataError('the data has no "whatToShip" (what the player must send)');
   const dropOff = data.handover === 'drop-off';
   const shipTo =
     optionalString(data, 'shipTo') ??
@@ -139,14 +122,6 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
         .filter((row): row is [string, string] => !!row[1])
         .map(([label, amount]) => [label, formatMoney(amount, currency)])
     : [];
-  // A caller's own list (pedals by name, supply, switcher) wins; otherwise build it from the pedals.
-  const bring = shipList.length
-    ? shipList
-    : [
-        `Your pedals (${pedals.length}): ${pedals.join(', ')}.`,
-        ...(data.powerSupply === false ? [] : ['Your power supply, with all its leads.']),
-        ...(data.switcher === true ? ['Your loop switcher, with its power lead and any MIDI or control cables.'] : []),
-      ];
   const verb = dropOff ? 'Drop off' : 'Ship';
   const shipByWords = formatDay(shipBy);
   // Once the pedals are in, there is nothing left to ship: no calendar file to update.
@@ -199,7 +174,7 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
             ['Bench date', benchDate],
             ...(move ? [['Was', formatDay(move.previousBenchDate)] as [string, string]] : []),
             ...(pedalsIn ? [] : [[dropOff ? 'Drop off by' : 'Ship to arrive by', shipByWords] as [string, string]]),
-            ['Builder', optionalString(data, 'builderName') ? `${data.builderName as string} (${levelWords[level]})` : levelWords[level]],
+            ['Builder', optionalString(data, 'builderName') ? `${data.builderName} (${levelWords[level]})` : levelWords[level]],
             ['Expected completion', formatDay(requireString(data, 'expectedCompletion'))],
             [dropOff ? 'Drop off at' : 'Ship to', shipTo],
             ...figures,
@@ -241,7 +216,7 @@ function bookingScheduled(data: Data, shop: ShopContext, move?: Move): Draft {
   };
 }
 
-function bookingRescheduled(data: Data, shop: ShopContext): Draft {
+function bookingRescheduled(data: Data<'booking-rescheduled'>, shop: ShopContext): Draft {
   return bookingScheduled(data, shop, {
     previousBenchDate: requireString(data, 'previousBenchDate'),
     shift: requireString(data, 'shift'),
@@ -249,7 +224,7 @@ function bookingRescheduled(data: Data, shop: ShopContext): Draft {
   });
 }
 
-function bookingCancelled(data: Data, shop: ShopContext): Draft {
+function bookingCancelled(data: Data<'booking-cancelled'>, shop: ShopContext): Draft {
   const reference = requireString(data, 'reference');
   const currency = requireString(data, 'currency');
   const refund = optionalString(data, 'refundAmount');
@@ -323,7 +298,7 @@ const statusWords: Partial<Record<BookingState, { subject: string; heading: stri
   },
 };
 
-function statusChanged(data: Data): Draft {
+function statusChanged(data: Data<'status-changed'>): Draft {
   const reference = requireString(data, 'reference');
   const state = requireString(data, 'state');
   const words = statusWords[state as BookingState];
@@ -369,15 +344,15 @@ function statusChanged(data: Data): Draft {
 }
 
 /** An extra (with its price) or a top-view layout waiting for the player's yes or no. */
-function approvalRequested(data: Data): Draft {
+function approvalRequested(data: Data<'approval-requested'>): Draft {
   const reference = requireString(data, 'reference');
   const kind = requireString(data, 'kind');
   if (kind !== 'extra' && kind !== 'layout') throw new MailDataError(`the approval kind "${kind}" is not extra or layout`);
   const message = optionalString(data, 'message');
-  const answer = firstString(data, 'approveUrl', 'bookingUrl');
+  const answer = optionalString(data, 'approveUrl') ?? optionalString(data, 'bookingUrl');
   if (kind === 'extra') {
     const description = requireString(data, 'description');
-    const price = money(data);
+    const price = amountOf(data);
     return {
       subject: `Your approval, please: ${description} for ${price} (${reference})`,
       letter: {
@@ -418,7 +393,7 @@ function approvalRequested(data: Data): Draft {
   };
 }
 
-const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
+const drafts: Drafts = {
   ...reminderDrafts,
   'approval-requested': (data) => approvalRequested(data),
   'build-messages': (data) => buildMessages(data),
@@ -470,7 +445,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
       blocks: [
         {
           kind: 'p',
-          text: `Hello ${recipient(data)}, ${optionalString(data, 'invitedBy') ? `${data.invitedBy as string} has` : 'you have been'} invited you to the shop's backoffice${
+          text: `Hello ${recipient(data)}, ${optionalString(data, 'invitedBy') ? `${data.invitedBy} has` : 'you have been'} invited you to the shop's backoffice${
             typeof data.level === 'string'
               ? ` as a ${data.level} builder`
               : data.role === 'owner'
@@ -480,12 +455,12 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
                   : ''
           }. Set your password with the link below.`,
         },
-        open('Accept the invitation', firstString(data, 'inviteUrl', 'acceptUrl') ?? requireString(data, 'inviteUrl')),
+        open('Accept the invitation', requireString(data, 'inviteUrl')),
         ...(optionalString(data, 'expiresAt')
           ? [
               {
                 kind: 'facts' as const,
-                rows: [['Invitation works until', formatInstant(data.expiresAt as string, shop.timezone)]] as [string, string][],
+                rows: [['Invitation works until', formatInstant(data.expiresAt!, shop.timezone)]] as [string, string][],
               },
             ]
           : []),
@@ -510,14 +485,14 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
               ],
               ['Deposit to hold your place', formatMoney(requireString(data, 'deposit'), currency)],
               ...(optionalString(data, 'quoteExpiresAt')
-                ? [['Estimate holds until', formatInstant(data.quoteExpiresAt as string, shop.timezone)] as [string, string]]
+                ? [['Estimate holds until', formatInstant(data.quoteExpiresAt!, shop.timezone)] as [string, string]]
                 : []),
             ],
           },
           ...(Array.isArray(data.lines) && data.lines.length
             ? [
                 { kind: 'p' as const, text: 'What the estimate is made of:' },
-                { kind: 'facts' as const, rows: quoteLineRows(data, currency) },
+                { kind: 'facts' as const, rows: quoteLineRows(data.lines, currency) },
               ]
             : []),
           {
@@ -544,7 +519,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
             kind: 'p',
             text: `Hello ${recipient(data)}, here is the quote you asked for. The PDF attached has every line, the layout, the power plan, the patch cables and the cautions.`,
           },
-          { kind: 'facts', rows: quoteLineRows(data, currency) },
+          { kind: 'facts', rows: quoteLineRows(data.lines, currency) },
           {
             kind: 'facts',
             rows: [
@@ -553,9 +528,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
                 `${formatMoney(requireString(data, 'totalLow'), currency)} to ${formatMoney(requireString(data, 'totalHigh'), currency)}`,
               ],
               ['Deposit to book bench time', formatMoney(requireString(data, 'deposit'), currency)],
-              ...(optionalString(data, 'priceBookVersion')
-                ? [['Price book version', data.priceBookVersion as string] as [string, string]]
-                : []),
+              ...(optionalString(data, 'priceBookVersion') ? [['Price book version', data.priceBookVersion!] as [string, string]] : []),
             ],
           },
           {
@@ -572,14 +545,17 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
     const reference = requireString(data, 'reference');
     const expected = optionalString(data, 'expectedBenchDate');
     return {
-      subject: `Deposit received for ${reference}: ${money(data)}`,
+      subject: `Deposit received for ${reference}: ${amountOf(data)}`,
       letter: {
         heading: 'Thank you, your deposit is paid',
         blocks: [
           { kind: 'p', text: `Hello ${recipient(data)}, we received your deposit for build ${reference}.` },
           {
             kind: 'facts',
-            rows: [['Deposit paid', money(data)], ...(expected ? [['Expected bench date', formatDay(expected)] as [string, string]] : [])],
+            rows: [
+              ['Deposit paid', amountOf(data)],
+              ...(expected ? [['Expected bench date', formatDay(expected)] as [string, string]] : []),
+            ],
           },
           {
             kind: 'list',
@@ -602,12 +578,12 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
   'balance-requested': (data) => {
     const reference = requireString(data, 'reference');
     const currency = requireString(data, 'currency');
-    const due = formatMoney(firstString(data, 'amount', 'balanceDue') ?? requireString(data, 'amount'), currency);
+    const due = formatMoney(requireString(data, 'balanceDue'), currency);
     const breakdown = (
       [
         ['Firm quote', optionalString(data, 'firmTotal')],
         ['Approved extras', optionalString(data, 'extras')],
-        ['Paid so far', firstString(data, 'paidSoFar', 'depositPaid')],
+        ['Paid so far', optionalString(data, 'paidSoFar')],
       ] as [string, string | undefined][]
     )
       .filter((row): row is [string, string] => !!row[1])
@@ -620,7 +596,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
           { kind: 'p', text: `Hello ${recipient(data)}, build ${reference} is finished and tested.` },
           { kind: 'facts', rows: [...breakdown, ['Balance due', due]] },
           { kind: 'p', text: 'We ship your board, or you can collect it, as soon as the balance is paid.' },
-          ...openIf('Pay the balance', firstString(data, 'payUrl', 'bookingUrl')),
+          ...openIf('Pay the balance', optionalString(data, 'payUrl') ?? optionalString(data, 'bookingUrl')),
         ],
       },
     };
@@ -628,12 +604,12 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
   'deposit-refunded': (data) => {
     const reference = requireString(data, 'reference');
     return {
-      subject: `Deposit refunded for ${reference}: ${money(data)}`,
+      subject: `Deposit refunded for ${reference}: ${amountOf(data)}`,
       letter: {
         heading: 'Your deposit has been refunded',
         blocks: [
           { kind: 'p', text: `Hello ${recipient(data)}, we refunded the deposit for build ${reference}.` },
-          { kind: 'facts', rows: [['Refunded', money(data)]] },
+          { kind: 'facts', rows: [['Refunded', amountOf(data)]] },
           { kind: 'p', text: 'It goes back to the card you paid with; banks usually take 5 to 10 working days to show it.' },
         ],
       },
@@ -654,7 +630,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
                   kind: 'p' as const,
                   text: `Your deposit${
                     optionalString(data, 'refundAmount') && optionalString(data, 'currency')
-                      ? ` of ${formatMoney(data.refundAmount as string, data.currency as string)}`
+                      ? ` of ${formatMoney(data.refundAmount!, data.currency!)}`
                       : ''
                   } is refunded in full${data.refundPending === true ? ' (the payment provider is still processing it)' : ''}; you will get a separate message when it has gone back.`,
                 },
@@ -675,14 +651,14 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
         blocks: [
           {
             kind: 'p',
-            text: `Hello ${recipient(data)}, the bank payment of ${money(data)} for build ${reference} did not go through, so nothing was taken.`,
+            text: `Hello ${recipient(data)}, the bank payment of ${amountOf(data)} for build ${reference} did not go through, so nothing was taken.`,
           },
           { kind: 'facts', rows: [['Reason', requireString(data, 'reason')]] },
           {
             kind: 'p',
             text: `Your booking is kept as it was. Pay the ${what} again from your build page, by card or from another account.`,
           },
-          ...openIf('Open your build', firstString(data, 'buildUrl', 'bookingUrl')),
+          ...openIf('Open your build', optionalString(data, 'bookingUrl')),
         ],
       },
     };
@@ -729,7 +705,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
             rows: [
               ['Booking', reference],
               ['Player', recipient(data)],
-              ['Amount', money(data)],
+              ['Amount', amountOf(data)],
               ['What happened', requireString(data, 'detail')],
             ],
           },
@@ -755,7 +731,7 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
             rows: [
               ['Booking', reference],
               ['Player', `${recipient(data)} <${requireString(data, 'customerEmail')}>`],
-              ['Deposit paid', money(data)],
+              ['Deposit paid', amountOf(data)],
               ...(low && high ? [['Estimate', `${formatMoney(low, currency)} to ${formatMoney(high, currency)}`] as [string, string]] : []),
             ],
           },
@@ -768,14 +744,14 @@ const drafts: Record<MailTemplate, (data: Data, shop: ShopContext) => Draft> = {
   },
 };
 
-function buildMessages(data: Data): Draft {
+function buildMessages(data: Data<'build-messages'>): Draft {
   const reference = requireString(data, 'reference');
   const audience = requireString(data, 'audience');
   if (audience !== 'player' && audience !== 'shop') throw new MailDataError(`the audience "${audience}" is neither "player" nor "shop"`);
   const list = data.messages;
   if (!Array.isArray(list) || list.length === 0) throw new MailDataError('the data has no "messages"');
   const blocks: Block[] = [];
-  for (const item of list as Data[]) {
+  for (const item of list) {
     const photos = typeof item.photos === 'number' && item.photos > 0 ? ` (${messageWords.photoCount(item.photos)})` : '';
     blocks.push({ kind: 'p', text: `${requireString(item, 'author')}, ${formatInstant(requireString(item, 'at'))}${photos}:` });
     const body = optionalString(item, 'body');
@@ -802,27 +778,47 @@ function buildMessages(data: Data): Draft {
   };
 }
 
-/** Renders one outbox message; throws MailDataError (naming the key) when its data is incomplete. */
-export function renderMail(template: string, data: Data, shop: ShopContext, message: MessageContext = {}): RenderedMail {
-  const draft = drafts[template as MailTemplate];
-  if (!draft) throw new MailDataError(`there is no template called "${template}"`);
-  const given = data ?? {};
+/**
+ * Renders one message from data of its template's type. The types say the data is complete, but
+ * data read back from the outbox is checked again at run time: throws MailDataError (naming the
+ * key) when it is not.
+ */
+export function renderMail<T extends MailTemplate>(
+  template: T,
+  data: MailTemplateData[T],
+  shop: ShopContext,
+  message: MessageContext = {},
+): RenderedMail {
+  const draft: Drafts[T] = drafts[template];
+  // Two links every template may carry (bookingUrl is BookingLink's, quotePdfUrl booking-requested's).
+  const links = data as unknown as { bookingUrl?: string; quotePdfUrl?: string };
   // The booking's page: the caller's link, else the storefront's page for the outbox row's booking.
   const bookingUrl =
-    firstString(given, 'bookingUrl', 'buildUrl') ??
+    optionalString(links, 'bookingUrl') ??
     (message.bookingId && shop.publicUrl ? `${shop.publicUrl}/builds/${message.bookingId}` : undefined);
   // The booking's quote as a PDF (GET /api/bookings/:id/quote.pdf, opened signed in).
   const quotePdfUrl =
-    optionalString(given, 'quotePdfUrl') ??
+    optionalString(links, 'quotePdfUrl') ??
     (message.bookingId && shop.publicUrl ? `${shop.publicUrl}/api/bookings/${message.bookingId}/quote.pdf` : undefined);
   return inShopVoice(shop, () => {
     const { subject, letter, attachments } = draft(
-      { ...given, ...(bookingUrl ? { bookingUrl } : {}), ...(quotePdfUrl ? { quotePdfUrl } : {}) },
+      { ...data, ...(bookingUrl ? { bookingUrl } : {}), ...(quotePdfUrl ? { quotePdfUrl } : {}) },
       shop,
     );
     const full: Letter = { shopName: shop.name, ...letter };
     return { subject, html: letterHtml(full), text: letterText(full), attachments: attachments ?? [] };
   });
+}
+
+/**
+ * Renders an outbox row as stored: its template name and JSON data, possibly written by an older
+ * version under older key names (upgraded by upgradeMailData first). Throws MailDataError for a
+ * template that does not exist or data that lacks what the template needs.
+ */
+export function renderStoredMail(template: string, stored: unknown, shop: ShopContext, message: MessageContext = {}): RenderedMail {
+  if (!isMailTemplate(template)) throw new MailDataError(`there is no template called "${template}"`);
+  // Stored JSON, upgraded to today's keys; renderMail checks every key it reads at run time.
+  return renderMail(template, upgradeMailData(template, stored) as MailTemplateData[typeof template], shop, message);
 }
 
 export { MailDataError };
