@@ -386,26 +386,50 @@ async function signIn(email) {
 
 const bigTables = ['bookings', 'users', 'quotes', 'payments', 'mail_outbox', 'booking_events', 'bench_allocations'];
 
-/** The plans PostgreSQL logged (auto_explain) for one call: indexes used, and any full scan of a big table. */
+/**
+ * The plans PostgreSQL logged (auto_explain, with ANALYZE and BUFFERS) for one call: the indexes
+ * used, any full scan of a big table, and the 8 kB pages the call's statements touched (shared
+ * buffers hit or read, each statement's top node). Pages touched do not change with the machine's
+ * load, so they compare runs that wall-clock times cannot. The job queue's own polling is left out.
+ */
 async function explainCall(admin, call, cookie) {
   const log = path.join(pgData, 'server.log');
-  await admin.query(`alter system set auto_explain.log_min_duration = 0`);
-  await admin.query(`select pg_reload_conf()`);
-  await new Promise((r) => setTimeout(r, 300));
+  const set = async (on) => {
+    await admin.query(`alter system set auto_explain.log_min_duration = ${on ? 0 : -1}`);
+    await admin.query(`alter system set auto_explain.log_analyze = ${on ? 'on' : 'off'}`);
+    await admin.query(`alter system set auto_explain.log_buffers = ${on ? 'on' : 'off'}`);
+    await admin.query(`alter system set auto_explain.log_timing = off`);
+    await admin.query(`select pg_reload_conf()`);
+    await new Promise((r) => setTimeout(r, 300));
+  };
+  await set(true);
   const from = statSync(log).size;
   await fetch(`${base}${call}`, { headers: { cookie } });
-  await new Promise((r) => setTimeout(r, 300));
-  await admin.query(`alter system set auto_explain.log_min_duration = -1`);
-  await admin.query(`select pg_reload_conf()`);
-  const text = readFileSync(log).subarray(from).toString('utf8');
+  await set(false);
+  const blocks = readFileSync(log)
+    .subarray(from)
+    .toString('utf8')
+    .split(/LOG: {2}duration: [\d.]+ ms {2}plan:\n/)
+    .slice(1)
+    .filter((b) => !b.includes('pgboss'));
+  const text = blocks.join('\n');
   const indexes = new Set();
   const scans = new Set();
   for (const m of text.matchAll(/(?:Index Scan|Index Only Scan)(?: Backward)? using (\w+)|Bitmap Index Scan on (\w+)/g))
     indexes.add(m[1] ?? m[2]);
   for (const m of text.matchAll(/Seq Scan on (\w+)/g)) if (bigTables.includes(m[1])) scans.add(m[1]);
+  let pages = 0;
+  for (const b of blocks) {
+    const m = /Buffers: shared(?: hit=(\d+))?(?: read=(\d+))?/.exec(b);
+    if (m) pages += Number(m[1] ?? 0) + Number(m[2] ?? 0);
+  }
   const ignore = /^(sessions_pkey|users_pkey|users_email_key|builders_pkey|builders_user_id_key)$/;
   const shown = [...indexes].filter((i) => !ignore.test(i));
-  return `${shown.join(', ') || 'no index'}${scans.size ? `; full scan of ${[...scans].join(', ')}` : ''}`;
+  return {
+    plan: `${shown.join(', ') || 'no index'}${scans.size ? `; full scan of ${[...scans].join(', ')}` : ''}`,
+    pages,
+    statements: blocks.length,
+  };
 }
 
 async function timeCall(call, cookie) {
@@ -448,6 +472,14 @@ async function dataSection() {
   const waiting = await pick('state=deposit_paid&pageSize=1');
   const someBooking = await pick('state=scheduled&pageSize=1');
   const lastBookings = Math.ceil(scale.bookings / 25);
+  // Keyset paging: the cursor after the first page, and after a page in the middle of the list
+  // (where reading by OFFSET costs most, since a page past the middle is read from the other end).
+  const middle = Math.ceil(lastBookings / 2);
+  const cursorAfter = async (list, q) => (await (await fetch(`${base}/api/${list}?${q}`, { headers: { cookie } })).json()).nextCursor;
+  const nextCursor = await cursorAfter('bookings', 'pageSize=25');
+  const middleCursor = await cursorAfter('bookings', `pageSize=25&page=${middle - 1}`);
+  const mailMiddle = Math.ceil(scale.mails / 25 / 2);
+  const mailCursor = await cursorAfter('mail', `pageSize=25&page=${mailMiddle - 1}`);
   const monday = new Date();
   monday.setUTCDate(monday.getUTCDate() + ((8 - monday.getUTCDay()) % 7 || 7));
   const day = (d, plus) => new Date(d.getTime() + plus * 86_400_000).toISOString().slice(0, 10);
@@ -458,6 +490,9 @@ async function dataSection() {
     ['Requests: deposit paid', '/api/bookings?deposit=paid&pageSize=25', 50],
     ['Requests: sort by bench date', '/api/bookings?sort=bench_date&order=asc&pageSize=25', 50],
     ['Requests: last page', `/api/bookings?page=${lastBookings}&pageSize=25`, ''],
+    ['Requests: next page by cursor', `/api/bookings?pageSize=25&cursor=${nextCursor}`, 50],
+    [`Requests: page ${middle.toLocaleString('en-US')} by cursor`, `/api/bookings?pageSize=25&cursor=${middleCursor}`, 50],
+    [`Requests: page ${middle.toLocaleString('en-US')} by OFFSET`, `/api/bookings?pageSize=25&page=${middle}`, ''],
     ['Builds: scheduled', '/api/bookings?state=scheduled&pageSize=25', 50],
     ['Builds: delivered, by last change', '/api/bookings?state=delivered&sort=updated_at&order=desc&pageSize=25', 50],
     ['Customers: first page', '/api/customers', 50],
@@ -467,6 +502,7 @@ async function dataSection() {
     ['Mail log: first page', '/api/mail', 50],
     ['Mail log: search', '/api/mail?q=player42', 50],
     ['Mail log: last page', `/api/mail?page=${Math.ceil(scale.mails / 25)}`, ''],
+    [`Mail log: page ${mailMiddle.toLocaleString('en-US')} by cursor`, `/api/mail?pageSize=25&cursor=${mailCursor}`, 50],
     ['Bench: week', `/api/bench?from=${day(monday, 0)}&to=${day(monday, 6)}`, ''],
     ['Bench: month', `/api/bench?from=${day(monday, 0)}&to=${day(monday, 34)}`, 100],
     ['Accept suggestion', `/api/bench/suggest?bookingId=${waiting?.id}`, 20],
@@ -479,7 +515,7 @@ async function dataSection() {
     for (const [label, call, target] of calls) {
       say(`data: ${label}…`);
       const times = await timeCall(call, cookie);
-      const plan = await explainCall(admin, call, cookie);
+      const { plan, pages, statements } = await explainCall(admin, call, cookie);
       row(
         'data',
         `${label} p50 · p95`,
@@ -488,7 +524,7 @@ async function dataSection() {
         '',
         target ? `p95 ≤ ${target} ms` : '',
       );
-      notes.push(`plan, ${label}: ${plan}`);
+      notes.push(`plan, ${label}: ${plan} (${statements} statements, ${pages.toLocaleString('en-US')} pages of 8 kB touched)`);
     }
   } finally {
     await admin.end();

@@ -20,6 +20,7 @@ import * as laborLineBasis from './20261202_1041_labor_line_basis';
 import * as buildMessages from './20261202_1101_build_messages';
 import * as reminders from './20261202_1105_reminders';
 import * as bookingDepositStatus from './20261202_1345_booking_deposit_status';
+import * as buildsListOrders from './20261202_1405_builds_list_orders';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -47,4 +48,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_1101_build_messages': buildMessages,
   '20261202_1105_reminders': reminders,
   '20261202_1345_booking_deposit_status': bookingDepositStatus,
+  '20261202_1405_builds_list_orders': buildsListOrders,
 };
