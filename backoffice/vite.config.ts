@@ -10,6 +10,7 @@ export default defineConfig({
   resolve: {
     alias: {
       src: path.resolve(__dirname, 'src'),
+      '@loomwright/shared/ui/testing': path.resolve(__dirname, '../shared/src/ui/testing.tsx'),
       '@loomwright/shared/ui': path.resolve(__dirname, '../shared/src/ui/index.ts'),
       '@loomwright/shared/joy-theme': path.resolve(__dirname, '../shared/src/joy-theme.ts'),
       '@loomwright/shared': path.resolve(__dirname, '../shared/src/index.ts'),
@@ -22,6 +23,7 @@ export default defineConfig({
     root: __dirname,
     environment: 'jsdom',
     include: ['src/**/*.spec.{ts,tsx}'],
+    setupFiles: ['../shared/src/ui/test-setup.ts'],
     passWithNoTests: true,
   },
 });

@@ -8,6 +8,12 @@ export type ClientErrorCode = ErrorCode | 'unreachable';
  * turns every non-2xx answer into an ApiError: a stable `code` to branch on (ERROR_CODES) and a
  * message written for people.
  */
+/** One problem of a `validation_failed` answer: the field's path ("pedals[3].currentMa") and its words. */
+export interface ApiFieldIssue {
+  path: string;
+  message: string;
+}
+
 export class ApiError extends Error {
   readonly code: ClientErrorCode;
 
@@ -16,6 +22,8 @@ export class ApiError extends Error {
     message: string,
     readonly details: string[] = [],
     code?: ClientErrorCode,
+    /** Each problem with its field's path, when the answer names them (`validation_failed`). */
+    readonly issues: ApiFieldIssue[] = [],
   ) {
     super(message);
     this.name = 'ApiError';
@@ -46,9 +54,10 @@ export interface ApiClient {
   post<T>(path: string, body?: unknown, options?: Omit<RequestOptions, 'method' | 'body'>): Promise<T>;
 }
 
-/** An ApiError from an error answer's status and body (`{ statusCode, code, message, details? }`). */
+/** An ApiError from an error answer's status and body (`{ statusCode, code, message, details?, issues? }`). */
 export function apiErrorFrom(status: number, body: unknown): ApiError {
-  const given = body && typeof body === 'object' ? (body as { code?: unknown; message?: unknown; details?: unknown }) : {};
+  const given =
+    body && typeof body === 'object' ? (body as { code?: unknown; message?: unknown; details?: unknown; issues?: unknown }) : {};
   const code = typeof given.code === 'string' && Object.hasOwn(ERROR_CODES, given.code) ? (given.code as ErrorCode) : undefined;
   const details = Array.isArray(given.details) ? given.details.map(String) : Array.isArray(given.message) ? given.message.map(String) : [];
   const message =
@@ -59,7 +68,18 @@ export function apiErrorFrom(status: number, body: unknown): ApiError {
         : status >= 500
           ? 'The shop’s server had a problem; please try again in a moment.'
           : `The request was refused (HTTP ${status}).`;
-  return new ApiError(status, message, details, code);
+  const issues = Array.isArray(given.issues)
+    ? given.issues.filter(
+        (issue): issue is ApiFieldIssue => Boolean(issue) && typeof issue.path === 'string' && typeof issue.message === 'string',
+      )
+    : [];
+  return new ApiError(
+    status,
+    message,
+    details,
+    code,
+    issues.map(({ path, message }) => ({ path, message })),
+  );
 }
 
 export function createApiClient(baseUrl = '/api', fetchImpl: typeof fetch = (...a) => fetch(...a)): ApiClient {

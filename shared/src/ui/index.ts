@@ -14,3 +14,5 @@ export { ShopVoiceProvider, currentShopVoice, useShopVoice } from './shop-voice'
 export { currentShopFormat, useShopFormat } from './current-shop-format';
 export { documentTitle, useRouteTitle, type RouteTitleHandle } from './use-route-title';
 export { ConversationPanel, messageKeys, UnreadCountChip, UnreadMessagesBadge, useUnreadMessages } from './ConversationPanel';
+export { ApiErrorAlert } from './ApiErrorAlert';
+export { errorAdvice, fieldsCoverError, formFieldName, setServerFieldErrors, type ErrorAdviceKind } from './error-advice';

@@ -22,6 +22,9 @@ import { useEstimate } from 'src/features/configurator/api/create-estimate';
 import { startCheckout } from 'src/features/payments/api/start-checkout';
 import { DepositPolicy } from 'src/features/payments/components/DepositPolicy';
 import { formatAmount, formatHours, formatRange } from 'src/lib/format';
+import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+
+const NOTES_FIELD = ['notes'] as const;
 
 export function Component() {
   const [params] = useSearchParams();
@@ -74,6 +77,7 @@ export function Component() {
             setCheckoutProblem({ bookingId: booking.id, message: (error as Error).message });
           }
         },
+        onError: (error) => setServerFieldErrors(error, form.setError, NOTES_FIELD),
       },
     ),
   );
@@ -168,11 +172,7 @@ export function Component() {
         </Button>
         <Typography level="body-xs">You pay on the payment provider's secure page and come back here afterwards.</Typography>
       </Stack>
-      {create.error && (
-        <Alert color="danger" role="alert">
-          {create.error.message}
-        </Alert>
-      )}
+      {!fieldsCoverError(create.error, NOTES_FIELD) && <ApiErrorAlert error={create.error} />}
       {checkoutProblem && (
         <Alert color="warning" role="alert">
           Your request is saved, but the payment page could not be opened: {checkoutProblem.message}

@@ -1,27 +1,11 @@
-import { CssVarsProvider } from '@mui/joy/styles';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { createMemoryRouter, RouterProvider, useLocation } from 'react-router';
+import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
+import { useLocation } from 'react-router';
+import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { Component as SignInPage } from './sign-in';
 
-// jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= (query: string) =>
-  ({
-    matches: false,
-    media: query,
-    onchange: null,
-    addListener() {},
-    removeListener() {},
-    addEventListener() {},
-    removeEventListener() {},
-    dispatchEvent: () => false,
-  }) as MediaQueryList;
-
 const player = { id: 'u1', email: 'player@mail.example', name: 'Rowan Achterberg', role: 'customer' };
-const json = (status: number, body: unknown) =>
-  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
 function Where() {
   const location = useLocation();
@@ -32,21 +16,7 @@ function Where() {
 function renderAt(url: string, api: (path: string, init?: RequestInit) => Response) {
   const fetchMock = vi.fn(async (input: string | URL | Request, init?: RequestInit) => api(new URL(String(input)).pathname, init));
   vi.stubGlobal('fetch', fetchMock);
-  const router = createMemoryRouter(
-    [
-      { path: '/sign-in', element: <SignInPage /> },
-      { path: '*', element: <Where /> },
-    ],
-    { initialEntries: [url] },
-  );
-  const queryClient = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  render(
-    <CssVarsProvider theme={theme}>
-      <QueryClientProvider client={queryClient}>
-        <RouterProvider router={router} />
-      </QueryClientProvider>
-    </CssVarsProvider>,
-  );
+  renderWithProviders(<Where />, { theme, url, routes: [{ path: '/sign-in', element: <SignInPage /> }] });
   return fetchMock;
 }
 
@@ -67,16 +37,36 @@ describe('sign-in page', () => {
     expect(signInCalls(fetchMock)).toHaveLength(0);
   });
 
-  it('shows the API’s own words when the password is wrong', async () => {
+  it('shows the API’s own words when the password is wrong, and no "Sign in again" (a 401 invalid_credentials is not an ended session)', async () => {
     renderAt('/sign-in', (path) =>
       path === '/api/auth/session'
         ? json(200, { user: null })
-        : json(401, { message: 'That e-mail and password do not match an account. Check them, or reset your password.' }),
+        : json(401, {
+            statusCode: 401,
+            code: 'invalid_credentials',
+            message: 'That e-mail and password do not match an account. Check them, or reset your password.',
+          }),
     );
     fireEvent.change(await screen.findByLabelText('E-mail'), { target: { value: 'player@mail.example' } });
     fireEvent.change(screen.getByLabelText('Password'), { target: { value: 'wrong-one' } });
     fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
     expect((await screen.findByRole('alert')).textContent).toContain('do not match an account');
+    expect(screen.queryByRole('link', { name: 'Sign in again' })).toBeNull();
+  });
+
+  // RFC 6585 §4: 429 Too Many Requests; the client waits before it tries again.
+  it('after too many attempts (429 too_many_attempts) says to wait before trying again', async () => {
+    renderAt('/sign-in', (path) =>
+      path === '/api/auth/session'
+        ? json(200, { user: null })
+        : json(429, { statusCode: 429, code: 'too_many_attempts', message: 'Too many sign-in attempts for this account.' }),
+    );
+    fireEvent.change(await screen.findByLabelText('E-mail'), { target: { value: 'player@mail.example' } });
+    fireEvent.change(screen.getByLabelText('Password'), { target: { value: 'wrong-one' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
+    const alert = await screen.findByRole('alert');
+    expect(alert.textContent).toContain('Too many sign-in attempts for this account.');
+    expect(alert.textContent).toContain('Wait a moment, then try again.');
   });
 
   it('returns the player to the configurator page that sent them, draft and all', async () => {

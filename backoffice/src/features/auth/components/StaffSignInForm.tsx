@@ -1,30 +1,30 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import { signInSchema, type AuthUser } from '@loomwright/shared';
 import { useForm } from 'react-hook-form';
 import { useSignIn } from 'src/features/auth/api/sign-in';
 import { FormTextField } from './FormTextField';
+import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+
+const FIELDS = ['email', 'password'] as const;
 
 export function StaffSignInForm({ onSignedIn }: { onSignedIn: (user: AuthUser) => void }) {
   const signIn = useSignIn();
-  const { register, handleSubmit, formState } = useForm({
+  const { register, handleSubmit, formState, setError } = useForm({
     resolver: zodResolver(signInSchema),
     defaultValues: { email: '', password: '' },
   });
   return (
     <form
-      onSubmit={handleSubmit((v) => signIn.mutate(v, { onSuccess: ({ user }) => onSignedIn(user) }))}
+      onSubmit={handleSubmit((v) =>
+        signIn.mutate(v, { onSuccess: ({ user }) => onSignedIn(user), onError: (error) => setServerFieldErrors(error, setError, FIELDS) }),
+      )}
       noValidate
       aria-label="Staff sign in"
     >
       <Stack gap={2}>
-        {signIn.error && (
-          <Alert color="danger" role="alert">
-            {signIn.error.message}
-          </Alert>
-        )}
+        {!fieldsCoverError(signIn.error, FIELDS) && <ApiErrorAlert error={signIn.error} />}
         <FormTextField
           label="E-mail"
           type="email"

@@ -174,7 +174,7 @@ export function RescheduleDialog({
               {formErrors.join(' ')}
             </Alert>
           )}
-          <ErrorNote error={move.error} action="Pick another date or builder and try again." />
+          <ErrorNote error={move.error} />
         </DialogContent>
         <DialogActions>
           <Button color="accent" onClick={submit} loading={move.isPending} disabled={!builderId || (option ? !option.ok : false)}>

@@ -1,36 +1,13 @@
-import { CssVarsProvider } from '@mui/joy/styles';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen } from '@testing-library/react';
+import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { InviteBuilderForm } from './InviteBuilderForm';
 
-// jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= (query: string) =>
-  ({
-    matches: false,
-    media: query,
-    onchange: null,
-    addListener() {},
-    removeListener() {},
-    addEventListener() {},
-    removeEventListener() {},
-    dispatchEvent: () => false,
-  }) as MediaQueryList;
-
-const json = (status: number, body: unknown) =>
-  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
-
 function renderForm(answer: () => Response) {
   const fetchMock = vi.fn(async () => answer());
   vi.stubGlobal('fetch', fetchMock);
-  render(
-    <CssVarsProvider theme={theme}>
-      <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
-        <InviteBuilderForm />
-      </QueryClientProvider>
-    </CssVarsProvider>,
-  );
+  renderWithProviders(<InviteBuilderForm />, { theme });
   return fetchMock;
 }
 
@@ -83,5 +60,37 @@ describe('Invite a builder', () => {
     fireEvent.change(screen.getByLabelText('E-mail'), { target: { value: 'player@mail.example' } });
     fireEvent.click(screen.getByRole('button', { name: 'Send invitation' }));
     expect((await screen.findByRole('alert')).textContent).toContain('already has an account');
+  });
+
+  it('puts a validation_failed answer’s words under the field its path names, with no alert above the form', async () => {
+    // The API's pipe answers 400 validation_failed with `issues: [{ path, message }]` (api/src/common/zod-validation.pipe.ts).
+    renderForm(() =>
+      json(400, {
+        statusCode: 400,
+        code: 'validation_failed',
+        message: ['E-mail is already used by a pending invitation'],
+        issues: [{ path: 'email', message: 'E-mail is already used by a pending invitation' }],
+      }),
+    );
+    fireEvent.change(screen.getByLabelText('Name'), { target: { value: 'Rowan' } });
+    fireEvent.change(screen.getByLabelText('E-mail'), { target: { value: 'rowan@shop.example' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Send invitation' }));
+    expect(await screen.findByText('E-mail is already used by a pending invitation')).toBeTruthy();
+    expect(screen.queryByRole('alert')).toBeNull();
+  });
+
+  it('keeps the alert when a problem names no field of this form', async () => {
+    renderForm(() =>
+      json(400, {
+        statusCode: 400,
+        code: 'validation_failed',
+        message: ['Unknown field: team'],
+        issues: [{ path: 'team', message: 'Unknown field: team' }],
+      }),
+    );
+    fireEvent.change(screen.getByLabelText('Name'), { target: { value: 'Rowan' } });
+    fireEvent.change(screen.getByLabelText('E-mail'), { target: { value: 'rowan@shop.example' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Send invitation' }));
+    expect((await screen.findByRole('alert')).textContent).toContain('Unknown field: team');
   });
 });

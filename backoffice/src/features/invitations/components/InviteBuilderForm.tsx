@@ -14,17 +14,20 @@ import { Controller, useForm } from 'react-hook-form';
 import { useCreateInvitation } from 'src/features/invitations/api/create-invitation';
 import { formatStamp } from 'src/lib/format';
 import { teamKeys } from 'src/features/team/api/query-keys';
+import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
 
 const levelNames: Record<BuilderLevel, string> = { apprentice: 'Apprentice', journeyman: 'Journeyman', master: 'Master' };
 // Typical rates by level (common practice in the trade, no published source); the owner sets the real one.
 const typicalRate: Record<BuilderLevel, string> = { apprentice: '$40–$50/h', journeyman: '$80–$100/h', master: '$100–$150/h' };
+
+const FIELDS = ['email', 'name', 'level', 'hourlyRate'] as const;
 
 const dateTime = (iso: string) => formatStamp(iso);
 
 export function InviteBuilderForm() {
   const invite = useCreateInvitation();
   const queryClient = useQueryClient();
-  const { register, handleSubmit, control, formState, watch, reset } = useForm({
+  const { register, handleSubmit, control, formState, watch, reset, setError } = useForm({
     resolver: zodResolver(inviteStaffSchema),
     defaultValues: { email: '', name: '', level: 'apprentice' as BuilderLevel, hourlyRate: '45.00' },
   });
@@ -35,6 +38,7 @@ export function InviteBuilderForm() {
         void queryClient.invalidateQueries({ queryKey: teamKeys.all });
         reset();
       },
+      onError: (error) => setServerFieldErrors(error, setError, FIELDS),
     }),
   );
   return (
@@ -48,11 +52,7 @@ export function InviteBuilderForm() {
             The link works once, until {dateTime(invite.data.expiresAt)}.
           </Alert>
         )}
-        {invite.error && (
-          <Alert color="danger" role="alert">
-            {invite.error.message}
-          </Alert>
-        )}
+        {!fieldsCoverError(invite.error, FIELDS) && <ApiErrorAlert error={invite.error} signInHref="/sign-in" />}
         <FormControl error={!!formState.errors.name}>
           <FormLabel>Name</FormLabel>
           <Input autoComplete="off" {...register('name')} />

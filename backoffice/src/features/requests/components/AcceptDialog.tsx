@@ -222,7 +222,7 @@ export function AcceptDialog({
               {formError}
             </Alert>
           )}
-          <ErrorNote error={accept.error} action="Pick another date or builder and try again." />
+          <ErrorNote error={accept.error} />
         </DialogContent>
         <DialogActions>
           <Button color="accent" onClick={submit} loading={accept.isPending} disabled={!chosen}>

@@ -6,14 +6,17 @@ import { passwordResetRequestSchema } from '@loomwright/shared';
 import { useForm } from 'react-hook-form';
 import { useRequestPasswordReset } from 'src/features/auth/api/request-password-reset';
 import { FormTextField } from './FormTextField';
+import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+
+const FIELDS = ['email'] as const;
 
 export function ForgotPasswordForm() {
   const request = useRequestPasswordReset();
-  const { register, handleSubmit, formState } = useForm({
+  const { register, handleSubmit, formState, setError } = useForm({
     resolver: zodResolver(passwordResetRequestSchema),
     defaultValues: { email: '' },
   });
-  const onSubmit = handleSubmit((values) => request.mutate(values));
+  const onSubmit = handleSubmit((values) => request.mutate(values, { onError: (error) => setServerFieldErrors(error, setError, FIELDS) }));
   if (request.isSuccess) {
     return (
       <Alert color="success" role="status">
@@ -24,11 +27,7 @@ export function ForgotPasswordForm() {
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Ask for a reset link">
       <Stack gap={2}>
-        {request.error && (
-          <Alert color="danger" role="alert">
-            {request.error.message}
-          </Alert>
-        )}
+        {!fieldsCoverError(request.error, FIELDS) && <ApiErrorAlert error={request.error} />}
         <FormTextField
           label="E-mail"
           type="email"

@@ -1,10 +1,10 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import { newPasswordFormSchema, PASSWORD_MIN_LENGTH } from '@loomwright/shared';
 import { useForm } from 'react-hook-form';
 import { FormTextField } from './FormTextField';
+import { ApiErrorAlert } from '@loomwright/shared/ui';
 
 interface Props {
   submitLabel: string;
@@ -22,11 +22,7 @@ export function NewPasswordForm({ submitLabel, pending, error, onSubmit }: Props
   return (
     <form onSubmit={handleSubmit((v) => onSubmit(v.password))} noValidate aria-label="Choose a new password">
       <Stack gap={2}>
-        {error && (
-          <Alert color="danger" role="alert">
-            {error.message}
-          </Alert>
-        )}
+        <ApiErrorAlert error={error} newLink={{ href: '/forgot-password', label: 'Ask for a new reset link' }} />
         <FormTextField
           label="New password"
           type="password"

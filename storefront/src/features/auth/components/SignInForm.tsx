@@ -1,5 +1,4 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
@@ -9,6 +8,7 @@ import { useForm } from 'react-hook-form';
 import { Link as RouterLink } from 'react-router';
 import { useSignIn } from 'src/features/auth/api/sign-in';
 import { FormTextField } from './FormTextField';
+import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
 
 interface Props {
   onSignedIn: () => void;
@@ -16,21 +16,21 @@ interface Props {
   forgotHref: string;
 }
 
+const FIELDS = ['email', 'password'] as const;
+
 export function SignInForm({ onSignedIn, signUpHref, forgotHref }: Props) {
   const signIn = useSignIn();
-  const { register, handleSubmit, formState } = useForm({
+  const { register, handleSubmit, formState, setError } = useForm({
     resolver: zodResolver(signInSchema),
     defaultValues: { email: '', password: '' },
   });
-  const onSubmit = handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }));
+  const onSubmit = handleSubmit((values) =>
+    signIn.mutate(values, { onSuccess: onSignedIn, onError: (error) => setServerFieldErrors(error, setError, FIELDS) }),
+  );
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Sign in">
       <Stack gap={2}>
-        {signIn.error && (
-          <Alert color="danger" role="alert">
-            {signIn.error.message}
-          </Alert>
-        )}
+        {!fieldsCoverError(signIn.error, FIELDS) && <ApiErrorAlert error={signIn.error} />}
         <FormTextField
           label="E-mail"
           type="email"

@@ -9,31 +9,33 @@ import { useForm } from 'react-hook-form';
 import { Link as RouterLink } from 'react-router';
 import { useSignUp } from 'src/features/auth/api/sign-up';
 import { FormTextField } from './FormTextField';
+import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+
+const FIELDS = ['name', 'email', 'password'] as const;
 
 export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void; signInHref: string }) {
   const signUp = useSignUp();
-  const { register, handleSubmit, formState } = useForm({
+  const { register, handleSubmit, formState, setError } = useForm({
     resolver: zodResolver(signUpSchema),
     defaultValues: { name: '', email: '', password: '' },
   });
-  const onSubmit = handleSubmit((values) => signUp.mutate(values, { onSuccess: onSignedUp }));
+  const onSubmit = handleSubmit((values) =>
+    signUp.mutate(values, { onSuccess: onSignedUp, onError: (error) => setServerFieldErrors(error, setError, FIELDS) }),
+  );
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Create an account">
       <Stack gap={2}>
-        {signUp.error && (
+        {signUp.error && hasErrorCode(signUp.error, 'email_taken') ? (
           <Alert color="danger" role="alert">
             <span>
-              {signUp.error.message}
-              {hasErrorCode(signUp.error, 'email_taken') && (
-                <>
-                  {' '}
-                  <Link component={RouterLink} to={signInHref}>
-                    Sign in instead
-                  </Link>
-                </>
-              )}
+              {signUp.error.message}{' '}
+              <Link component={RouterLink} to={signInHref}>
+                Sign in instead
+              </Link>
             </span>
           </Alert>
+        ) : (
+          !fieldsCoverError(signUp.error, FIELDS) && <ApiErrorAlert error={signUp.error} />
         )}
         <FormTextField label="Your name" autoComplete="name" autoFocus registration={register('name')} error={formState.errors.name} />
         <FormTextField

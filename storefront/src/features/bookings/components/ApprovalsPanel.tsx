@@ -1,4 +1,3 @@
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Card from '@mui/joy/Card';
 import Stack from '@mui/joy/Stack';
@@ -8,6 +7,7 @@ import { decidedViaWords, type BookingDetail, type DecisionView } from '@loomwri
 import { useState, type ReactNode } from 'react';
 import { formatAmount, formatMoment } from 'src/lib/format';
 import { useAnswerApproval, type ApprovalAnswer } from '../api/answer-approval';
+import { ApiErrorAlert } from '@loomwright/shared/ui';
 
 type Question = { kind: 'extra'; extraId: string } | { kind: 'layout' };
 
@@ -50,11 +50,7 @@ function AnswerButtons({ bookingId, question, label }: { bookingId: string; ques
           Decline
         </Button>
       </Stack>
-      {answer.error && (
-        <Alert color="danger" role="alert">
-          {answer.error.message}
-        </Alert>
-      )}
+      <ApiErrorAlert error={answer.error} />
     </Stack>
   );
 }

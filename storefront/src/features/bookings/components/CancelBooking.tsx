@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
 import { useCancelBooking } from 'src/features/bookings/api/cancel-booking';
+import { ApiErrorAlert } from '@loomwright/shared/ui';
 
 /** Cancel before a bench date is set; a paid deposit goes back to the card it came from. */
 export function CancelBooking({ bookingId, depositPaid }: { bookingId: string; depositPaid: boolean }) {
@@ -42,11 +42,7 @@ export function CancelBooking({ bookingId, depositPaid }: { bookingId: string; d
           Keep it
         </Button>
       </Stack>
-      {cancel.error && (
-        <Alert color="danger" role="alert">
-          {cancel.error.message}
-        </Alert>
-      )}
+      <ApiErrorAlert error={cancel.error} />
     </Stack>
   );
 }

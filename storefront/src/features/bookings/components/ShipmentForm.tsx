@@ -1,5 +1,4 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import FormControl from '@mui/joy/FormControl';
 import FormHelperText from '@mui/joy/FormHelperText';
@@ -10,13 +9,23 @@ import Typography from '@mui/joy/Typography';
 import { useForm } from 'react-hook-form';
 import { shipmentSchema, type ShipmentInput } from '@loomwright/shared';
 import { useRecordShipment } from 'src/features/bookings/api/record-shipment';
+import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+
+const FIELDS = ['carrier', 'tracking'] as const;
 
 export function ShipmentForm({ bookingId, current }: { bookingId: string; current: { carrier: string; tracking: string } | null }) {
   const record = useRecordShipment();
   const form = useForm<ShipmentInput>({ resolver: zodResolver(shipmentSchema), defaultValues: current ?? { carrier: '', tracking: '' } });
   const { errors } = form.formState;
   return (
-    <Stack component="form" gap={1.5} noValidate onSubmit={form.handleSubmit((values) => record.mutate({ id: bookingId, ...values }))}>
+    <Stack
+      component="form"
+      gap={1.5}
+      noValidate
+      onSubmit={form.handleSubmit((values) =>
+        record.mutate({ id: bookingId, ...values }, { onError: (error) => setServerFieldErrors(error, form.setError, FIELDS) }),
+      )}
+    >
       <Typography level="body-sm">
         Pack each pedal separately, take out any batteries, and label the power supply and any switcher. Unplug the supply from the mains
         before packing; never ship anything still connected.
@@ -41,11 +50,7 @@ export function ShipmentForm({ bookingId, current }: { bookingId: string; curren
           Saved. The shop will check the parcel in when it arrives.
         </Typography>
       )}
-      {record.error && (
-        <Alert color="danger" role="alert">
-          {record.error.message}
-        </Alert>
-      )}
+      {!fieldsCoverError(record.error, FIELDS) && <ApiErrorAlert error={record.error} />}
     </Stack>
   );
 }

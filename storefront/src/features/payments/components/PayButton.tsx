@@ -1,7 +1,7 @@
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import { useStartCheckout } from 'src/features/payments/api/start-checkout';
+import { ApiErrorAlert } from '@loomwright/shared/ui';
 
 /** Sends the player to the payment provider's hosted page; the server makes one session per payment. */
 export function PayButton({ bookingId, label }: { bookingId: string; label: string }) {
@@ -18,11 +18,7 @@ export function PayButton({ bookingId, label }: { bookingId: string; label: stri
       >
         {label}
       </Button>
-      {checkout.error && (
-        <Alert color="danger" role="alert">
-          {checkout.error.message}
-        </Alert>
-      )}
+      <ApiErrorAlert error={checkout.error} />
     </Stack>
   );
 }

@@ -1,0 +1,59 @@
+import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
+import { hasErrorCode, isShopAwayError, isSignedOutError } from '../api-client';
+
+/**
+ * What the apps do about a refused or failed call, chosen by the answer's `code` (never by its
+ * words, which are shown as they are):
+ * - `fields`: the form's own fields are wrong (`validation_failed`); each message goes under its field;
+ * - `pick-another-date`: the bench time went to another build (`bench_time_taken`);
+ * - `sign-in-again`: the session ran out or was ended (`not_signed_in`, `session_ended`);
+ * - `wait-and-retry`: too many attempts, or the shop not answering (`too_many_attempts`, `shop_unavailable`, `unreachable`);
+ * - `link-expired`: a single-use link is unknown, used or expired (`link_invalid`);
+ * - `other`: anything else; the server's sentence says what happened.
+ */
+export type ErrorAdviceKind = 'fields' | 'pick-another-date' | 'sign-in-again' | 'wait-and-retry' | 'link-expired' | 'other';
+
+export function errorAdvice(error: unknown): ErrorAdviceKind {
+  if (hasErrorCode(error, 'validation_failed')) return 'fields';
+  if (hasErrorCode(error, 'bench_time_taken')) return 'pick-another-date';
+  if (isSignedOutError(error)) return 'sign-in-again';
+  if (hasErrorCode(error, 'too_many_attempts') || isShopAwayError(error)) return 'wait-and-retry';
+  if (hasErrorCode(error, 'link_invalid')) return 'link-expired';
+  return 'other';
+}
+
+/** react-hook-form's name for an API path: "outputs[2].volts" → "outputs.2.volts". */
+export const formFieldName = (path: string) => path.replace(/\[(\d+)\]/g, '.$1');
+
+const fieldOf = <T extends FieldValues>(path: string, fields: ReadonlyArray<Path<T>>) => {
+  const name = formFieldName(path);
+  return fields.find((f) => name === f || name.startsWith(`${f}.`));
+};
+
+/** True when the error is a `validation_failed` answer whose every problem names one of these form fields. */
+export function fieldsCoverError<T extends FieldValues>(error: unknown, fields: ReadonlyArray<Path<T>>): boolean {
+  return (
+    hasErrorCode(error, 'validation_failed') && error.issues.length > 0 && error.issues.every((i) => fieldOf(i.path, fields) !== undefined)
+  );
+}
+
+/**
+ * Puts each problem of a `validation_failed` answer under the form field it names (react-hook-form's
+ * `setError`, type `server`), for the fields this form has; the first such field takes the focus.
+ * Other codes set nothing. With `fieldsCoverError` the form leaves out the alert above it when
+ * every problem found its field; otherwise it shows the server's words there too.
+ */
+export function setServerFieldErrors<T extends FieldValues>(
+  error: unknown,
+  setError: UseFormSetError<T>,
+  fields: ReadonlyArray<Path<T>>,
+): void {
+  if (!hasErrorCode(error, 'validation_failed')) return;
+  let first = true;
+  for (const issue of error.issues) {
+    const field = fieldOf(issue.path, fields);
+    if (!field) continue;
+    setError(field, { type: 'server', message: issue.message }, { shouldFocus: first });
+    first = false;
+  }
+}
