@@ -138,10 +138,14 @@ export function signalFlowLayout(
 
 /** The chain's devices in signal order (switcher loops after the switcher). */
 function inSignalOrder(chain: SignalChain): RigDevice[] {
-  const byId = new Map(chain.devices.map((d) => [d.id, d]));
-  return signalOrder(chain)
-    .map((id) => byId.get(id)!)
-    .filter(Boolean);
+  const byId = new Map<string, RigDevice>();
+  for (const d of chain.devices) byId.set(d.id, d);
+  const ordered: RigDevice[] = [];
+  for (const id of signalOrder(chain)) {
+    const d = byId.get(id);
+    if (d) ordered.push(d);
+  }
+  return ordered;
 }
 
 /** The devices of the front row (treadles, and the switcher where the surface puts it there) and the rest, back row first. */
@@ -277,41 +281,47 @@ function flowRows(
 function raise(length: number, x: number, width: number, filled: number): number {
   const end = x + width;
   let out = 0;
-  // Appends a stretch, merging it into the last one when they touch at the same height.
-  const put = (sx: number, sw: number, sf: number) => {
-    if (out > 0 && nextF[out - 1] === sf && nextX[out - 1] + nextW[out - 1] === sx) nextW[out - 1] += sw;
-    else {
-      nextX[out] = sx;
-      nextW[out] = sw;
-      nextF[out] = sf;
-      out += 1;
-    }
-  };
   let placed = false;
   for (let i = 0; i < length; i++) {
     const sx = skyX[i];
     const sw = skyW[i];
     const sf = skyF[i];
     const sEnd = sx + sw;
-    if (sEnd <= x) put(sx, sw, sf);
+    if (sEnd <= x) out = put(out, sx, sw, sf);
     else if (sx >= end) {
-      if (!placed) put(x, width, filled);
+      if (!placed) out = put(out, x, width, filled);
       placed = true;
-      put(sx, sw, sf);
+      out = put(out, sx, sw, sf);
     } else {
-      if (sx < x) put(sx, x - sx, sf);
+      if (sx < x) out = put(out, sx, x - sx, sf);
       if (sEnd > end) {
-        if (!placed) put(x, width, filled);
+        if (!placed) out = put(out, x, width, filled);
         placed = true;
-        put(end, sEnd - end, sf);
+        out = put(out, end, sEnd - end, sf);
       }
     }
   }
-  if (!placed) put(x, width, filled);
-  [skyX, nextX] = [nextX, skyX];
-  [skyW, nextW] = [nextW, skyW];
-  [skyF, nextF] = [nextF, skyF];
+  if (!placed) out = put(out, x, width, filled);
+  const [x0, w0, f0] = [skyX, skyW, skyF];
+  skyX = nextX;
+  skyW = nextW;
+  skyF = nextF;
+  nextX = x0;
+  nextW = w0;
+  nextF = f0;
   return out;
+}
+
+/** Appends a stretch to the next skyline (of `out` stretches so far), merging it into the last one when they touch at the same height. */
+function put(out: number, sx: number, sw: number, sf: number): number {
+  if (out > 0 && nextF[out - 1] === sf && nextX[out - 1] + nextW[out - 1] === sx) {
+    nextW[out - 1] += sw;
+    return out;
+  }
+  nextX[out] = sx;
+  nextW[out] = sw;
+  nextF[out] = sf;
+  return out + 1;
 }
 
 /**

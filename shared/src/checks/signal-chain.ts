@@ -112,9 +112,18 @@ export function signalOrder(chain: Pick<SignalChain, 'main' | 'loops' | 'switche
   return order;
 }
 
+/**
+ * Numbers the devices in signal order (as signalOrder lists them). The chain is the one built
+ * above: its main chain is its devices outside the loops, in their order, and its loops are the
+ * loop devices in theirs, so the order needs no lookup by id.
+ */
 function numbered(chain: SignalChain): SignalChain {
-  const numbers = new Map(signalOrder(chain).map((id, i) => [id, i + 1]));
-  for (const d of chain.devices) d.number = numbers.get(d.id) ?? 0;
+  let n = 0;
+  for (const d of chain.devices) {
+    if (d.loop !== null) continue;
+    d.number = ++n;
+    if (d.id === chain.switcherId) for (const l of chain.devices) if (l.loop !== null) l.number = ++n;
+  }
   return chain;
 }
 

@@ -15,6 +15,7 @@ export interface Exact {
   readonly scale: number;
 }
 
+const SAFE = BigInt(Number.MAX_SAFE_INTEGER);
 const powers: bigint[] = [1n];
 /** 10^k as a BigInt (kept: the same few are asked for all the time). */
 function pow10(k: number): bigint {
@@ -83,7 +84,9 @@ export function toFixedText(a: Exact, digits: number): string {
   const r = roundHalfUp(a, digits);
   const n = r.scale < digits ? r.n * pow10(digits - r.scale) : r.n;
   const negative = n < 0n || (n === 0n && a.n < 0n);
-  const abs = (n < 0n ? -n : n).toString();
+  const magnitude = n < 0n ? -n : n;
+  // A number writes its digits quicker than a BigInt does; below 2^53 it holds them exactly.
+  const abs = magnitude <= SAFE ? String(Number(magnitude)) : magnitude.toString();
   if (digits === 0) return negative ? `-${abs}` : abs;
   const padded = abs.length > digits ? abs : abs.padStart(digits + 1, '0');
   const cut = padded.length - digits;
