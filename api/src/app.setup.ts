@@ -6,6 +6,7 @@ import cookieParser from 'cookie-parser';
 import { storefrontDist } from './app.module';
 import { applyBodyParsing } from './common/body-parsing';
 import { ApiExceptionFilter } from './common/api-exception.filter';
+import { customerContact } from './bookings/customer-contact.interceptor';
 import { buildApiDocument } from './common/api-document';
 import type { AppConfig } from './config/configuration';
 import { HTTP_LOGGER, httpLogging } from './logging/logging.module';
@@ -35,6 +36,8 @@ export function configureApp(app: INestApplication): INestApplication {
   if (process.env.SERVE_APPS !== 'false') app.use(storefrontNotFound(storefrontDist));
   applyBodyParsing(app);
   app.use(cookieParser());
+  // A builder's answers show only their own customers' e-mail addresses, on every route.
+  app.use(customerContact);
   // No global ValidationPipe: every body and query names its shared zod schema through
   // ZodValidationPipe (common/zod-validation.pipe.ts), and unknown fields are refused there.
   // Every error answer, in one shape with a listed code (common/api-exception.filter.ts).

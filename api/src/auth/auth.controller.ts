@@ -21,7 +21,7 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { AuthService } from './auth.service';
 import { CurrentUser } from './current-user.decorator';
 import { Public } from './public.decorator';
-import { SkipSessionRenewal } from './session-renewal.interceptor';
+import { SkipSessionRenewal } from './session-renewal';
 import type { SessionUser } from './sessions.service';
 
 @ApiTags('auth')

@@ -1,6 +1,6 @@
 import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { APP_GUARD, APP_INTERCEPTOR } from '@nestjs/core';
+import { APP_GUARD } from '@nestjs/core';
 import { JwtModule } from '@nestjs/jwt';
 import { PassportModule } from '@nestjs/passport';
 import { ThrottlerModule } from '@nestjs/throttler';
@@ -15,7 +15,7 @@ import { AuthService } from './auth.service';
 import { JwtAuthGuard } from './jwt-auth.guard';
 import { JwtStrategy } from './jwt.strategy';
 import { RolesGuard } from './roles.guard';
-import { SessionRenewalInterceptor } from './session-renewal.interceptor';
+import { SessionRenewal } from './session-renewal';
 import { SessionsController } from './sessions.controller';
 import { SessionsRepository } from './sessions.repository';
 import { SessionsService } from './sessions.service';
@@ -40,10 +40,10 @@ import { SessionsService } from './sessions.service';
     SessionsService,
     SessionsRepository,
     JwtStrategy,
+    SessionRenewal,
     // Order matters: first who you are, then what your role may do.
     { provide: APP_GUARD, useClass: JwtAuthGuard },
     { provide: APP_GUARD, useClass: RolesGuard },
-    { provide: APP_INTERCEPTOR, useClass: SessionRenewalInterceptor },
   ],
   exports: [AuthService, AuthTokensService, SessionsService],
 })

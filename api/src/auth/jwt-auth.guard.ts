@@ -4,6 +4,8 @@ import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import { databaseUnavailable, isDatabaseUnavailable } from '../common/database-unavailable';
 import { IS_PUBLIC_KEY } from './public.decorator';
+import { SESSION_COOKIE } from './session-cookie';
+import { SessionRenewal } from './session-renewal';
 
 /**
  * Global: every route needs a valid session unless marked @Public(). On a public route a valid
@@ -13,7 +15,10 @@ import { IS_PUBLIC_KEY } from './public.decorator';
  */
 @Injectable()
 export class JwtAuthGuard extends AuthGuard('jwt') {
-  constructor(private readonly reflector: Reflector) {
+  constructor(
+    private readonly reflector: Reflector,
+    private readonly renewal: SessionRenewal,
+  ) {
     super();
   }
 
@@ -23,15 +28,23 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
 
   override async canActivate(context: ExecutionContext): Promise<boolean> {
     if (this.isPublic(context)) {
+      // No session cookie at all: an anonymous visitor, nothing to read. Passport would only fail
+      // its way to the same answer, building and throwing away an exception on every call of an
+      // open route such as POST /api/estimates.
+      if (!hasSessionCookie(context)) return true;
+      let signedIn = false;
       try {
-        await super.canActivate(context);
+        signedIn = (await super.canActivate(context)) as boolean;
       } catch (error) {
         // An anonymous visitor (or a stale cookie) on an open route is fine; an outage is not.
         if (error instanceof HttpException && error.getStatus() >= 500) throw error;
       }
+      if (signedIn) await this.renewal.renewIfDue(context);
       return true;
     }
-    return (await super.canActivate(context)) as boolean;
+    const allowed = (await super.canActivate(context)) as boolean;
+    if (allowed) await this.renewal.renewIfDue(context);
+    return allowed;
   }
 
   override handleRequest<TUser>(error: unknown, user: TUser | false): TUser {
@@ -40,4 +53,9 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
     if (error || !user) throw new UnauthorizedException(errorResponse('not_signed_in', 'Please sign in to do this.'));
     return user;
   }
+}
+
+function hasSessionCookie(context: ExecutionContext): boolean {
+  const req = context.switchToHttp().getRequest<{ cookies?: Record<string, unknown> }>();
+  return typeof req.cookies?.[SESSION_COOKIE] === 'string';
 }

@@ -1,7 +1,5 @@
-import { CallHandler, ExecutionContext, Injectable, NestInterceptor } from '@nestjs/common';
 import type { AuthUser, BookingSummary } from '@loomwright/shared';
-import type { Request } from 'express';
-import { map, type Observable } from 'rxjs';
+import type { NextFunction, Request, Response } from 'express';
 
 /** A booking (summary or detail) as every route answers it: a reference, its customer and its builder. */
 function isBooking(value: unknown): value is BookingSummary {
@@ -21,20 +19,28 @@ export function bookingAsSeenBy<T extends BookingSummary>(viewer: Pick<AuthUser,
   return { ...booking, customer: { ...booking.customer, email: null } };
 }
 
-/** Applies `bookingAsSeenBy` to any answer that is a booking, a list of bookings or a page of them. */
-@Injectable()
-export class CustomerContactInterceptor implements NestInterceptor {
-  intercept(context: ExecutionContext, next: CallHandler): Observable<unknown> {
-    const viewer = context.getType() === 'http' ? (context.switchToHttp().getRequest<Request>().user as AuthUser | undefined) : undefined;
-    if (viewer?.role !== 'builder') return next.handle();
-    const redact = (value: unknown): unknown => {
-      if (isBooking(value)) return bookingAsSeenBy(viewer, value);
-      if (Array.isArray(value)) return value.map(redact);
-      if (value && typeof value === 'object' && Array.isArray((value as { items?: unknown }).items)) {
-        return { ...value, items: (value as { items: unknown[] }).items.map(redact) };
-      }
-      return value;
-    };
-    return next.handle().pipe(map(redact));
+function redactFor(viewer: Pick<AuthUser, 'id' | 'role'>, value: unknown): unknown {
+  if (isBooking(value)) return bookingAsSeenBy(viewer, value);
+  if (Array.isArray(value)) return value.map((v) => redactFor(viewer, v));
+  if (value && typeof value === 'object' && Array.isArray((value as { items?: unknown }).items)) {
+    return { ...value, items: (value as { items: unknown[] }).items.map((v) => redactFor(viewer, v)) };
   }
+  return value;
+}
+
+/**
+ * Applies `bookingAsSeenBy` to any JSON answer of any route that is a booking, a list of bookings
+ * or a page of them, when a builder asked (configureApp mounts it for the whole app). It wraps
+ * `res.json`, which Nest's Express adapter calls with a route's answer; by then the sign-in guard
+ * has put the person on `req.user`. It was a global Nest interceptor; any global interceptor puts
+ * every route, the anonymous estimate included, through Nest's RxJS chain, which measured about a
+ * sixth of that route's CPU time (DEVELOPERS.md, "Speed at scale").
+ */
+export function customerContact(req: Request, res: Response, next: NextFunction): void {
+  const json = res.json;
+  res.json = function (this: Response, body?: unknown) {
+    const viewer = req.user as AuthUser | undefined;
+    return json.call(this, viewer?.role === 'builder' ? redactFor(viewer, body) : body);
+  };
+  next();
 }

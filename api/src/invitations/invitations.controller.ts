@@ -19,7 +19,7 @@ import { AuthService } from '../auth/auth.service';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Public } from '../auth/public.decorator';
 import { Roles } from '../auth/roles.decorator';
-import { SkipSessionRenewal } from '../auth/session-renewal.interceptor';
+import { SkipSessionRenewal } from '../auth/session-renewal';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { InvitationsService } from './invitations.service';

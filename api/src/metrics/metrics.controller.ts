@@ -4,7 +4,7 @@ import { ConfigService } from '@nestjs/config';
 import { ApiExcludeController } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 import { Public } from '../auth/public.decorator';
-import { SkipSessionRenewal } from '../auth/session-renewal.interceptor';
+import { SkipSessionRenewal } from '../auth/session-renewal';
 import type { AppConfig } from '../config/configuration';
 import { MetricsService } from './metrics.service';
 
