@@ -30,6 +30,7 @@ import { PaymentsModule } from './payments/payments.module';
 import { PriceBookModule } from './price-book/price-book.module';
 import { SecurityModule } from './security/security.module';
 import { ShopModule } from './shop/shop.module';
+import { storefrontPageFiles } from './storefront/storefront-pages';
 
 // api/dist/src once built, api/src under the tests: the repository is above api/ either way.
 const repoRoot = path.resolve(__dirname, path.basename(path.dirname(__dirname)) === 'dist' ? '../../..' : '../..');
@@ -67,7 +68,7 @@ function cacheHashedAssets(res: { setHeader(name: string, value: string): void }
             {
               rootPath: storefrontDist,
               exclude: ['/api/{*path}', '/backoffice/{*path}'],
-              serveStaticOptions: { setHeaders: cacheHashedAssets },
+              serveStaticOptions: { setHeaders: cacheHashedAssets, ...storefrontPageFiles },
             },
           ),
         ]

@@ -6,6 +6,7 @@ import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { storefrontPaths } from '@loomwright/shared';
 import { storefrontNotFound } from '../src/storefront/storefront-not-found';
+import { storefrontPageFiles } from '../src/storefront/storefront-pages';
 
 // RFC 9110 §15.5.5: 404 says the server has no current representation for the target. A single-page
 // app that answers 200 to every address makes each typo a "soft 404" to browsers and crawlers.
@@ -42,5 +43,33 @@ describe('real 404s in front of the storefront build', () => {
     expect(res.text).toBe('There is nothing at /assets/index-gone.js.');
     await request(app).get('/wp-login.php').expect(404);
     await request(app).get('/..%2f..%2fetc%2fpasswd').expect(404);
+  });
+});
+
+// The storefront's build writes home.html and configure.html beside index.html (the same page,
+// preloading that screen's code and data); the static server must answer `/` and `/configure` with
+// them, and every other page with the index.html fallback.
+describe('pages with their own copy of index.html', () => {
+  const dist = mkdtempSync(path.join(tmpdir(), 'lw-dist-'));
+  writeFileSync(path.join(dist, 'index.html'), 'index');
+  writeFileSync(path.join(dist, 'home.html'), 'home');
+  writeFileSync(path.join(dist, 'configure.html'), 'configure');
+  const app = express();
+  app.use(storefrontNotFound(dist));
+  app.use(express.static(dist, storefrontPageFiles));
+  app.get('/{*path}', (_req, res) => res.status(200).type('html').send('index'));
+  afterAll(() => rmSync(dist, { recursive: true, force: true }));
+
+  it('answers / with home.html and /configure (with or without a query) with configure.html', async () => {
+    expect((await request(app).get('/').expect(200)).text).toBe('home');
+    expect((await request(app).get('/configure').expect(200)).text).toBe('configure');
+    expect((await request(app).get('/configure?step=pedals&c=e30').expect(200)).text).toBe('configure');
+  });
+
+  it('answers the other pages with index.html, and no page is made up from a file name', async () => {
+    expect((await request(app).get('/sign-in').expect(200)).text).toBe('index');
+    expect((await request(app).get('/builds/4f1c2d7e-0000-4000-8000-000000000000').expect(200)).text).toBe('index');
+    await request(app).get('/home').set('Accept', 'text/html').expect(404);
+    await request(app).get('/index').set('Accept', 'text/html').expect(404);
   });
 });

@@ -10,14 +10,16 @@ import { useLiveEstimate } from '../hooks/use-live-estimate';
 import { higherLevel } from '../lib/configuration';
 import { configuratorSteps, type StepId } from '../lib/steps';
 import { EstimatePanel } from './EstimatePanel';
+import SurfaceStep from './steps/SurfaceStep';
 import { StepProgress } from './StepProgress';
 import type { KeepSlot, StepProps } from './steps/step-props';
 import { formatMoment } from 'src/lib/format';
 
-// Each step is its own chunk: the first screen ships only the Surface step, and the form
-// library arrives with the Pedals step.
+// Each later step is its own chunk (the form library arrives with the Pedals step). The Surface
+// step, where every new configuration starts, comes with this screen: waiting for it would show
+// the step's loading line first and then push the step navigation down when the step arrives.
 const stepComponents: Record<StepId, ComponentType<StepProps>> = {
-  surface: lazy(() => import('./steps/SurfaceStep')),
+  surface: SurfaceStep,
   case: lazy(() => import('./steps/CaseStep')),
   pedals: lazy(() => import('./steps/PedalsStep')),
   routing: lazy(() => import('./steps/RoutingStep')),
