@@ -31,9 +31,21 @@ interface PackingItem {
   h: number;
 }
 
-/** Devices grown by the spacing, deepest first (widest on a tie): the order the packing places them in. */
-const packingItems = (devices: RigDevice[], spacingMm: number): PackingItem[] =>
-  devices.map((d) => ({ d, w: d.widthMm + spacingMm, h: d.depthMm + spacingMm })).sort((a, b) => b.h - a.h || b.w - a.w);
+/**
+ * Devices grown by the spacing, deepest first (widest on a tie, else in the chain's order): the
+ * order the packing places them in. An insertion sort, stable as Array#sort is: a rig has a few
+ * dozen devices at most.
+ */
+function packingItems(devices: RigDevice[], spacingMm: number): PackingItem[] {
+  const items: PackingItem[] = [];
+  for (const d of devices) {
+    const item = { d, w: d.widthMm + spacingMm, h: d.depthMm + spacingMm };
+    let i = items.length;
+    while (i > 0 && (items[i - 1].h < item.h || (items[i - 1].h === item.h && items[i - 1].w < item.w))) i--;
+    items.splice(i, 0, item);
+  }
+  return items;
+}
 
 /**
  * The skyline, as three parallel lists (start, width, filled depth) of stretches from left to

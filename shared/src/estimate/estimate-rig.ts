@@ -138,7 +138,7 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
   const materialLine = (code: string, label: string, quantity: number | Exact, unit: string, unitPrice: string, explanation?: string) => {
     const amount = round(typeof quantity === 'number' ? timesInt(figure(unitPrice), quantity) : times(figure(unitPrice), quantity));
     materialsTotal = plus(materialsTotal, amount);
-    lines.push({
+    const line: EstimateLine = {
       code,
       label,
       kind: 'materials',
@@ -146,8 +146,9 @@ export function estimateRig(config: RigConfiguration, book: PriceBook, meta: { v
       unit,
       unitPrice,
       amount: fmt(amount),
-      ...(explanation ? { explanation } : {}),
-    });
+    };
+    if (explanation) line.explanation = explanation;
+    lines.push(line);
   };
 
   materialLine('surface', surface.name, 1, 'each', surface.price);
