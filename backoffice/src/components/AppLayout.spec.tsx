@@ -1,27 +1,10 @@
-import { CssVarsProvider } from '@mui/joy/styles';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen } from '@testing-library/react';
-import { createMemoryRouter, RouterProvider, useLocation } from 'react-router';
+import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { useLocation } from 'react-router';
 import { shopUnavailableMessage } from '@loomwright/shared';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { AppLayout } from './AppLayout';
-
-// jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= (query: string) =>
-  ({
-    matches: false,
-    media: query,
-    onchange: null,
-    addListener() {},
-    removeListener() {},
-    addEventListener() {},
-    removeEventListener() {},
-    dispatchEvent: () => false,
-  }) as MediaQueryList;
-
-const json = (status: number, body: unknown) =>
-  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
 
 function SignInStandIn() {
   const location = useLocation();
@@ -44,20 +27,13 @@ function renderAt(url: string, me: () => Response) {
     });
   });
   vi.stubGlobal('fetch', fetchMock);
-  const router = createMemoryRouter(
-    [
-      { path: '/sign-in', element: <SignInStandIn /> },
-      { path: '/', element: <AppLayout />, children: [{ path: 'bench', element: <p>bench page</p> }] },
-    ],
-    { initialEntries: [url] },
-  );
-  render(
-    <CssVarsProvider theme={theme}>
-      <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
-        <RouterProvider router={router} />
-      </QueryClientProvider>
-    </CssVarsProvider>,
-  );
+  renderWithProviders(<AppLayout />, {
+    theme,
+    url,
+    path: '/',
+    children: [{ path: 'bench', element: <p>bench page</p> }],
+    routes: [{ path: '/sign-in', element: <SignInStandIn /> }],
+  });
   return fetchMock;
 }
 

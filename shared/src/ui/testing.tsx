@@ -12,14 +12,29 @@ import { createMemoryRouter, RouterProvider, type RouteObject } from 'react-rout
 export const json = (status: number, body: unknown) =>
   new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
+/** A stand-in for `window.matchMedia` whose queries match when `matches(query)` says so. */
+export const matchMediaWhere =
+  (matches: (query: string) => boolean): typeof window.matchMedia =>
+  (query: string) =>
+    ({
+      matches: matches(query),
+      media: query,
+      onchange: null,
+      addListener() {},
+      removeListener() {},
+      addEventListener() {},
+      removeEventListener() {},
+      dispatchEvent: () => false,
+    }) as unknown as MediaQueryList;
+
 /** A QueryClient that does not retry, so a refused call shows at once. */
 export const testQueryClient = () => new QueryClient({ defaultOptions: { queries: { retry: false } } });
 
 type Theme = Parameters<typeof CssVarsProvider>[0]['theme'];
 
 /**
- * Renders `ui` inside the app's theme, a fresh QueryClient and a memory router at `url`;
- * `routes` adds pages beside it (a stand-in sign-in page, say).
+ * Renders `ui` inside the app's theme, a fresh QueryClient and a memory router at `url` (at `path`,
+ * with `children` under it as a layout's pages); `routes` adds pages beside it (a stand-in sign-in page, say).
  */
 export function renderWithProviders(
   ui: ReactNode,
@@ -27,11 +42,12 @@ export function renderWithProviders(
     theme,
     url = '/',
     path = '*',
+    children,
     routes = [],
     client = testQueryClient(),
-  }: { theme: Theme; url?: string; path?: string; routes?: RouteObject[]; client?: QueryClient },
+  }: { theme: Theme; url?: string; path?: string; children?: RouteObject[]; routes?: RouteObject[]; client?: QueryClient },
 ) {
-  const router = createMemoryRouter([...routes, { path, element: ui }], { initialEntries: [url] });
+  const router = createMemoryRouter([...routes, { path, element: ui, children }], { initialEntries: [url] });
   render(
     <CssVarsProvider theme={theme}>
       <QueryClientProvider client={client}>

@@ -1,26 +1,9 @@
-import { CssVarsProvider } from '@mui/joy/styles';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, render, screen } from '@testing-library/react';
-import { MemoryRouter, Route, Routes } from 'react-router';
+import { cleanup, screen } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { AppLayout } from './AppLayout';
 import { Page } from './Page';
-
-window.matchMedia ??= (query: string) =>
-  ({
-    matches: false,
-    media: query,
-    onchange: null,
-    addListener() {},
-    removeListener() {},
-    addEventListener() {},
-    removeEventListener() {},
-    dispatchEvent: () => false,
-  }) as MediaQueryList;
-
-const json = (status: number, body: unknown) =>
-  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
 
 function renderAt(url: string) {
   vi.stubGlobal(
@@ -33,20 +16,15 @@ function renderAt(url: string) {
       return json(404, { message: 'not scripted' });
     }),
   );
-  render(
-    <CssVarsProvider theme={theme}>
-      <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
-        <MemoryRouter initialEntries={[url]}>
-          <Routes>
-            <Route path="/" element={<AppLayout />}>
-              <Route path="builds" element={<Page title="My builds" screen={() => <p>builds page</p>} />} />
-              <Route path="nameless" element={<Page screen={() => <p>a page with no title of its own</p>} />} />
-            </Route>
-          </Routes>
-        </MemoryRouter>
-      </QueryClientProvider>
-    </CssVarsProvider>,
-  );
+  renderWithProviders(<AppLayout />, {
+    theme,
+    url,
+    path: '/',
+    children: [
+      { path: 'builds', element: <Page title="My builds" screen={() => <p>builds page</p>} /> },
+      { path: 'nameless', element: <Page screen={() => <p>a page with no title of its own</p>} /> },
+    ],
+  });
 }
 
 describe('the browser tab title', () => {

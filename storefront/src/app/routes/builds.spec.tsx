@@ -1,31 +1,18 @@
-import { CssVarsProvider } from '@mui/joy/styles';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen } from '@testing-library/react';
+import { cleanup, fireEvent, screen } from '@testing-library/react';
 import { shopUnavailableMessage } from '@loomwright/shared';
-import { createMemoryRouter, RouterProvider, useLocation } from 'react-router';
+import { useLocation } from 'react-router';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { Component as BuildsPage } from './builds';
+import { json, matchMediaWhere, renderWithProviders } from '@loomwright/shared/ui/testing';
 
 // jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme, and My
 // builds asks whether the screen is at least 600 px wide (`screenWidth` below plays the screen).
 let screenWidth = 1280;
 const minWidth = (query: string) => Number(/min-width:\s*(\d+)/.exec(query)?.[1] ?? Number.NaN);
-window.matchMedia = (query: string) =>
-  ({
-    matches: screenWidth >= minWidth(query),
-    media: query,
-    onchange: null,
-    addListener() {},
-    removeListener() {},
-    addEventListener() {},
-    removeEventListener() {},
-    dispatchEvent: () => false,
-  }) as MediaQueryList;
+window.matchMedia = matchMediaWhere((query) => screenWidth >= minWidth(query));
 
 const player = { id: 'u1', email: 'player@mail.example', name: 'Rowan Achterberg', role: 'customer' };
-const json = (status: number, body: unknown) =>
-  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 /** The API's own answer while its database is down (api/src/common/database-unavailable.ts). */
 const unavailable = () => json(503, { statusCode: 503, error: 'Service Unavailable', message: shopUnavailableMessage });
 
@@ -39,20 +26,7 @@ function renderAt(url: string, api: (path: string) => Response) {
     'fetch',
     vi.fn(async (input: string | URL | Request) => api(new URL(String(input)).pathname)),
   );
-  const router = createMemoryRouter(
-    [
-      { path: '/builds', element: <BuildsPage /> },
-      { path: '*', element: <Where /> },
-    ],
-    { initialEntries: [url] },
-  );
-  render(
-    <CssVarsProvider theme={theme}>
-      <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
-        <RouterProvider router={router} />
-      </QueryClientProvider>
-    </CssVarsProvider>,
-  );
+  renderWithProviders(<Where />, { theme, url, routes: [{ path: '/builds', element: <BuildsPage /> }] });
 }
 
 describe('My builds while the shop is down', () => {

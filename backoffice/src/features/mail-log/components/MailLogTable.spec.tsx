@@ -1,10 +1,9 @@
-import { CssVarsProvider } from '@mui/joy/styles';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { cleanup, fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { MailLogEntry, MailLogPage } from '@loomwright/shared';
 import { theme } from 'src/theme';
 import { MailLogTable } from './MailLogTable';
+import { renderWithProviders } from '@loomwright/shared/ui/testing';
 
 const entry = (over: Partial<MailLogEntry>): MailLogEntry => ({
   id: '11111111-1111-4111-8111-111111111111',
@@ -35,29 +34,7 @@ function stubApi(page: MailLogPage) {
   return calls;
 }
 
-function renderTable() {
-  const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-  return render(
-    <CssVarsProvider theme={theme}>
-      <QueryClientProvider client={client}>
-        <MailLogTable />
-      </QueryClientProvider>
-    </CssVarsProvider>,
-  );
-}
-
-// jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= (query: string) =>
-  ({
-    matches: false,
-    media: query,
-    onchange: null,
-    addEventListener() {},
-    removeEventListener() {},
-    addListener() {},
-    removeListener() {},
-    dispatchEvent: () => false,
-  }) as unknown as MediaQueryList;
+const renderTable = () => renderWithProviders(<MailLogTable />, { theme });
 
 afterEach(() => {
   cleanup();

@@ -1,25 +1,9 @@
-import { CssVarsProvider } from '@mui/joy/styles';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { SignOutEverywhere } from './SignOutEverywhere';
+import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
 
-// jsdom has no matchMedia; Joy's colour-scheme provider asks it for the preferred scheme.
-window.matchMedia ??= (query: string) =>
-  ({
-    matches: false,
-    media: query,
-    onchange: null,
-    addListener() {},
-    removeListener() {},
-    addEventListener() {},
-    removeEventListener() {},
-    dispatchEvent: () => false,
-  }) as MediaQueryList;
-
-const json = (status: number, body: unknown) =>
-  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 const session = (id: string, device: string) => ({
   id,
   startedAt: '2026-12-01T10:00:00Z',
@@ -47,13 +31,7 @@ describe('sign a person out of every device', () => {
     });
     vi.stubGlobal('fetch', fetchMock);
     const onDone = vi.fn();
-    render(
-      <CssVarsProvider theme={theme}>
-        <QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>
-          <SignOutEverywhere userId="u-cass" name="Cass Lindqvist" onDone={onDone} />
-        </QueryClientProvider>
-      </CssVarsProvider>,
-    );
+    renderWithProviders(<SignOutEverywhere userId="u-cass" name="Cass Lindqvist" onDone={onDone} />, { theme });
     // Nothing is asked or ended before the owner opens the dialog.
     expect(fetchMock).not.toHaveBeenCalled();
     fireEvent.click(screen.getByRole('button', { name: 'Sign Cass Lindqvist out everywhere' }));
