@@ -215,30 +215,33 @@ export class BenchService {
         `Booking ${facts.reference} is ${facts.state.replace(/_/g, ' ')}; only a request waiting for a bench date, or a build not yet on the bench, gets a suggestion.`,
       );
     }
-    const shop = await this.shopCalendar();
-    const builders = this.orderMeFirst(await this.bench.listBuilders(this.db, { builderId, activeOnly: !builderId }), user);
+    const [shop, team] = await Promise.all([this.shopCalendar(), this.bench.listBuilders(this.db, { builderId, activeOnly: !builderId })]);
+    const builders = this.orderMeFirst(team, user);
     if (builderId && builders.length === 0) throw new NotFoundException('That builder is not on the team; choose one from the list.');
     const from = this.earliestAllowedDate(facts.state, shop);
     const suggestions: BenchSuggestion[] = [];
     const ineligible: BenchSuggestResponse['ineligible'] = [];
+    // Who is left out by level first, then every other builder planned from one read of the bench;
+    // the answer keeps the builders' order.
+    const levelReason = (b: (typeof builders)[number]): string | null => {
+      if (builderId) return null;
+      if (levelRank(b.level) < levelRank(facts.minimumLevel))
+        return `This rig needs at least a ${facts.minimumLevel} builder; ${b.name} is ${b.level}.`;
+      if (levelRank(b.level) < levelRank(facts.chosenLevel) && user.role !== 'owner')
+        return `The player chose a ${facts.chosenLevel} builder; only the owner can give it to ${b.name} (${b.level}), with a reason the player reads.`;
+      return null;
+    };
+    const planned = builders.filter((b) => levelReason(b) === null);
+    const plans = await this.earliestStarts(this.db, planned, facts.laborHours, shop, from, moving ? bookingId : undefined);
+    const planOf = new Map(planned.map((b, i) => [b.id, plans[i]!]));
     for (const b of builders) {
       const meets = levelRank(b.level) >= levelRank(facts.minimumLevel);
       const meetsChosen = levelRank(b.level) >= levelRank(facts.chosenLevel);
-      if (!builderId && !meets) {
-        ineligible.push({
-          builder: this.toRef(b),
-          reason: `This rig needs at least a ${facts.minimumLevel} builder; ${b.name} is ${b.level}.`,
-        });
+      const plan = planOf.get(b.id);
+      if (!plan) {
+        ineligible.push({ builder: this.toRef(b), reason: levelReason(b)! });
         continue;
       }
-      if (!builderId && !meetsChosen && user.role !== 'owner') {
-        ineligible.push({
-          builder: this.toRef(b),
-          reason: `The player chose a ${facts.chosenLevel} builder; only the owner can give it to ${b.name} (${b.level}), with a reason the player reads.`,
-        });
-        continue;
-      }
-      const plan = await this.planFor(this.db, b, facts.laborHours, shop, { from }, moving ? bookingId : undefined);
       if (!plan.ok) {
         ineligible.push({ builder: this.toRef(b), reason: plan.message });
         continue;
@@ -421,14 +424,14 @@ export class BenchService {
    * date or an earlier one).
    */
   async leadTime(laborHours: string, level: BuilderLevel): Promise<BenchLeadTime> {
-    const shop = await this.shopCalendar();
+    const [shop, team] = await Promise.all([this.shopCalendar(), this.bench.listBuilders(this.db, { activeOnly: true })]);
     // The player has yet to pay and a builder to accept, so the ship-by day is counted from a
     // couple of days ahead, never from today.
     const from = earliestBenchDateFor(addDays(shop.today, ACCEPTANCE_ALLOWANCE_DAYS), shop);
-    const builders = (await this.bench.listBuilders(this.db, { activeOnly: true })).filter((b) => levelRank(b.level) >= levelRank(level));
+    const builders = team.filter((b) => levelRank(b.level) >= levelRank(level));
+    const plans = await this.earliestStarts(this.db, builders, laborHours, shop, from);
     let best: { benchDate: string; expectedCompletion: string } | null = null;
-    for (const b of builders) {
-      const plan = await this.planFor(this.db, b, laborHours, shop, { from });
+    for (const plan of plans) {
       if (!plan.ok) continue;
       const earlier =
         !best ||
@@ -470,6 +473,43 @@ export class BenchService {
   ): Promise<BuildPlan> {
     const start = 'from' in at ? at.from : at.benchDate;
     const rows = await this.bench.allocationsFrom(trx, builder.id, start, exceptBookingId);
+    return this.planOver(rows, builder, laborHours, shop, at);
+  }
+
+  /**
+   * The earliest start of each builder, from one read of all their slices (planFor asks once per
+   * builder). Answers in the builders' order.
+   */
+  async earliestStarts(
+    trx: Executor,
+    builders: ReadonlyArray<{ id: string; weekly_hours: WeeklyHours }>,
+    laborHours: string,
+    shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>,
+    from: string,
+    exceptBookingId?: string,
+  ): Promise<BuildPlan[]> {
+    const rows = await this.bench.allocationsFromEach(
+      trx,
+      builders.map((b) => b.id),
+      from,
+      exceptBookingId,
+    );
+    const byBuilder = new Map<string, typeof rows>();
+    for (const r of rows) {
+      const list = byBuilder.get(r.builder_id) ?? [];
+      list.push(r);
+      byBuilder.set(r.builder_id, list);
+    }
+    return builders.map((b) => this.planOver(byBuilder.get(b.id) ?? [], b, laborHours, shop, { from }));
+  }
+
+  private planOver(
+    rows: ReadonlyArray<{ day: string; lower: string; upper: string }>,
+    builder: { id: string; weekly_hours: WeeklyHours },
+    laborHours: string,
+    shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>,
+    at: { from: string } | { benchDate: string },
+  ): BuildPlan {
     const byDay = new Map<string, HourSlice[]>();
     for (const r of rows) {
       const list = byDay.get(r.day) ?? [];
