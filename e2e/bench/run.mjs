@@ -9,7 +9,7 @@
 // BENCH_SMTP_PORT 3373, BENCH_MAIL_HTTP_PORT 3374, BENCH_OBJECT_STORE_PORT 3375. BENCH_SECONDS (8) per load run, BENCH_REPEAT (30)
 // calls per data figure, BENCH_SKIP_BUILD=true to reuse the last build, BENCH_SCALE=small for a quick try.
 import { spawn, spawnSync } from 'node:child_process';
-import { appendFileSync, existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { appendFileSync, existsSync, mkdirSync, readdirSync, readFileSync, readlinkSync, statSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -157,17 +157,60 @@ async function stopStack() {
 }
 
 // ---------------------------------------------------------------- HTTP under load
+/** The process listening on a TCP port (Linux /proc: the socket's inode, then whose descriptor holds it), or null. */
+function listenerPid(port) {
+  try {
+    const hex = port.toString(16).toUpperCase().padStart(4, '0');
+    const inodes = new Set();
+    for (const file of ['/proc/net/tcp', '/proc/net/tcp6']) {
+      if (!existsSync(file)) continue;
+      for (const line of readFileSync(file, 'utf8').split('\n').slice(1)) {
+        const f = line.trim().split(/\s+/);
+        // local address ends in :PORT, state 0A is LISTEN, field 9 the inode
+        if (f[1]?.endsWith(`:${hex}`) && f[3] === '0A') inodes.add(`socket:[${f[9]}]`);
+      }
+    }
+    for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
+      try {
+        for (const fd of readdirSync(`/proc/${pid}/fd`)) if (inodes.has(readlinkSync(`/proc/${pid}/fd/${fd}`))) return Number(pid);
+      } catch {
+        // another user's process, or gone
+      }
+    }
+  } catch {
+    // not Linux
+  }
+  return null;
+}
+
+/** User + system CPU time of a process so far, in microseconds (/proc/PID/stat, clock ticks at 100 Hz). */
+function cpuMicros(pid) {
+  if (!pid) return null;
+  try {
+    const f = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return (Number(f[11]) + Number(f[12])) * 10_000;
+  } catch {
+    return null;
+  }
+}
+
+let apiPid = null;
 async function load(opts) {
   const autocannon = require('autocannon');
+  const before = cpuMicros(apiPid);
   const result = await autocannon({ duration: seconds, ...opts });
+  const after = cpuMicros(apiPid);
   return {
     rps: result.requests.average,
     p50: result.latency.p50,
     p99: result.latency.p99,
     errors: result.errors + result.non2xx,
     bytes: result.throughput.average / Math.max(1, result.requests.average),
+    // The API process's CPU per answer: unlike requests/s it hardly moves when other work shares the machine.
+    cpu: before !== null && after !== null && result.requests.total > 0 ? (after - before) / result.requests.total : null,
   };
 }
+const cpuText = (r) => (r.cpu === null ? '' : ` · ${Math.round(r.cpu)} µs CPU`);
 
 async function httpSection() {
   const estimateBody = JSON.stringify(benchBoard());
@@ -178,6 +221,8 @@ async function httpSection() {
   notes.push(
     `estimate answer for the 13-pedal board: ${(sizeFull / 1000).toFixed(1)} kB whole, ${(sizePanel / 1000).toFixed(1)} kB with ?view=panel (what the configurator's panel shows)`,
   );
+  apiPid = listenerPid(ports.api);
+  if (!apiPid) notes.push('CPU per request not measured: the API process could not be found from its port');
   for (const connections of [10, 50]) {
     say(`load: ${connections} connections, ${seconds} s each…`);
     const ceiling = await load({ url: `${base}/api/no-such-route`, connections });
@@ -188,8 +233,8 @@ async function httpSection() {
     const label = `${connections} conn`;
     row(
       'HTTP',
-      `404 ceiling (${label}) req/s · p50 · p99`,
-      `${Math.round(ceiling.rps)} · ${ms(ceiling.p50)} · ${ms(ceiling.p99)}`,
+      `404 ceiling (${label}) req/s · p50 · p99 · API CPU per request`,
+      `${Math.round(ceiling.rps)} · ${ms(ceiling.p50)} · ${ms(ceiling.p99)}${cpuText(ceiling)}`,
       '',
       '100 %',
     );
@@ -201,11 +246,23 @@ async function httpSection() {
     ]) {
       row(
         'HTTP',
-        `${name} (${label}) req/s · p50 · p99`,
-        `${Math.round(r.rps)} · ${ms(r.p50)} · ${ms(r.p99)}${r.errors ? ` · ${r.errors} errors` : ''}`,
+        `${name} (${label}) req/s · p50 · p99 · API CPU per request`,
+        `${Math.round(r.rps)} · ${ms(r.p50)} · ${ms(r.p99)}${cpuText(r)}${r.errors ? ` · ${r.errors} errors` : ''}`,
         `${Math.round(ceiling.rps)}`,
         pct(r.rps, ceiling.rps),
         target,
+      );
+    }
+    if (ceiling.cpu && estimate.cpu && panel.cpu) {
+      // The same ratio from CPU time: the 404's CPU per request over the route's (what requests/s
+      // would give with the API alone on a core).
+      row(
+        'HTTP',
+        `CPU ratio (${label}): 404 over POST /api/estimates · over ?view=panel`,
+        `${Math.round(ceiling.cpu)} / ${Math.round(estimate.cpu)} µs · ${Math.round(ceiling.cpu)} / ${Math.round(panel.cpu)} µs`,
+        '',
+        `${pct(ceiling.cpu, estimate.cpu)} · ${pct(ceiling.cpu, panel.cpu)}`,
+        connections === 10 ? '≥ 70 %' : '',
       );
     }
   }
