@@ -1,8 +1,9 @@
-import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
+import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { CompiledQuery } from 'kysely';
-import PgBoss from 'pg-boss';
+import type PgBoss from 'pg-boss';
 import { createQueue } from '../jobs/create-queue';
+import { JobQueue } from '../jobs/job-queue.service';
 import type { AppConfig } from '../config/configuration';
 import type { Executor } from '../database/database';
 import { MailDeliveryService } from './mail-delivery.service';
@@ -16,7 +17,8 @@ interface DeliverJob {
 }
 
 /**
- * Runs mail delivery from pg-boss (its own `pgboss` schema in the same database).
+ * Runs mail delivery from pg-boss (its own `pgboss` schema in the same database), on the process's
+ * one instance (JobQueue).
  *
  * How a message gets from the outbox to a job, and why: the outbox row is the record; a pg-boss job
  * is only the wake-up call. When the worker runs, enqueue() inserts the job with pg-boss's `db`
@@ -31,7 +33,7 @@ interface DeliverJob {
  * singletonKey keeps at most one waiting job per message.
  */
 @Injectable()
-export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShutdown, OnApplicationShutdown {
+export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShutdown {
   private readonly logger = new Logger('MailWorker');
   private boss: PgBoss | null = null;
 
@@ -39,6 +41,7 @@ export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShut
     private readonly config: ConfigService<AppConfig, true>,
     private readonly delivery: MailDeliveryService,
     private readonly outbox: MailOutboxRepository,
+    private readonly jobs: JobQueue,
   ) {}
 
   get running() {
@@ -52,9 +55,7 @@ export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShut
   async start() {
     if (this.boss) return;
     const { retryDelaySeconds, maxAttempts, batchSize } = this.config.get('mail', { infer: true });
-    const boss = new PgBoss({ connectionString: this.config.get('database', { infer: true }).url, schema: 'pgboss', max: 3 });
-    boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
-    await boss.start();
+    const boss = await this.jobs.start();
     await createQueue(boss, DELIVER_QUEUE, {
       policy: 'stately',
       // Headroom over our own attempt count: a job can also run without claiming anything.
@@ -68,14 +69,14 @@ export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShut
     // locked limit n`, so two replicas never fetch the same job), their rows are claimed in one
     // statement and sent MAIL_CONCURRENCY at a time. A job whose delivery was refused is failed
     // alone, so pg-boss runs it again after its backoff; the rest complete with the batch.
-    await boss.work<DeliverJob>(DELIVER_QUEUE, { pollingIntervalSeconds: 0.5, batchSize }, async (jobs) => {
+    await this.jobs.work<DeliverJob>(DELIVER_QUEUE, { pollingIntervalSeconds: 0.5, batchSize }, async (jobs) => {
       const outcomes = await this.delivery.deliverBatch(jobs.map((job) => job.data.outboxId));
       const refused = jobs.filter((job) => outcomes.get(job.data.outboxId) === 'retry');
       for (const job of refused) {
         await boss.fail(DELIVER_QUEUE, job.id, { message: `Delivery of ${job.data.outboxId} was refused; retrying later` });
       }
     });
-    await boss.work(SWEEP_QUEUE, { pollingIntervalSeconds: 5 }, () => this.sweep());
+    await this.jobs.work(SWEEP_QUEUE, { pollingIntervalSeconds: 5 }, () => this.sweep());
     await boss.schedule(SWEEP_QUEUE, '* * * * *');
     this.boss = boss;
     // Whatever was queued while no worker ran.
@@ -97,23 +98,20 @@ export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShut
     for (const id of ids) await this.scheduleDelivery(id);
   }
 
+  /** Stops fetching delivery and sweep jobs and waits for the batch in flight (the instance stays up for the other workers). */
   async stop() {
-    const boss = this.boss;
+    if (!this.boss) return;
     this.boss = null;
-    if (boss) await boss.stop({ graceful: true, timeout: 10_000, wait: true });
+    await this.jobs.offWork(DELIVER_QUEUE, SWEEP_QUEUE);
   }
 
   /**
-   * Before Nest closes the listener and the database pool: pg-boss stops fetching and waits for
-   * the batch in flight, which still needs the pool to record what it sent. A row enqueued by a
-   * request still draining after this has no job; another replica's sweep (or this one's next
-   * start) sends it.
+   * Before Nest closes the listener and the database pool: stop fetching and wait for the batch in
+   * flight, which still needs the pool to record what it sent (JobQueue then stops the instance).
+   * A row enqueued by a request still draining after this has no job; another replica's sweep (or
+   * this one's next start) sends it.
    */
   async beforeApplicationShutdown() {
-    await this.stop();
-  }
-
-  async onApplicationShutdown() {
     await this.stop();
   }
 }

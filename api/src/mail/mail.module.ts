@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { JobsModule } from '../jobs/jobs.module';
 import { ShopModule } from '../shop/shop.module';
 import { MailController } from './mail.controller';
 import { MailDeliveryService } from './mail-delivery.service';
@@ -8,7 +9,7 @@ import { MailWorker } from './mail-worker.service';
 import { MailService } from './mail.service';
 
 @Module({
-  imports: [ShopModule],
+  imports: [JobsModule, ShopModule],
   controllers: [MailController],
   providers: [MailService, MailOutboxRepository, MailDeliveryService, MailTransport, MailWorker],
   exports: [MailService, MailDeliveryService],

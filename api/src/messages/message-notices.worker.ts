@@ -1,7 +1,8 @@
-import { Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
+import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import PgBoss from 'pg-boss';
+import type PgBoss from 'pg-boss';
 import { createQueue } from '../jobs/create-queue';
+import { JobQueue } from '../jobs/job-queue.service';
 import type { AppConfig } from '../config/configuration';
 import { MessageNoticesService } from './message-notices.service';
 
@@ -15,13 +16,14 @@ export const NOTICE_SWEEP_QUEUE = 'message-notices-sweep';
  * sends, so a job that runs twice or on two replicas queues one mail.
  */
 @Injectable()
-export class MessageNoticesWorker implements OnApplicationBootstrap, OnApplicationShutdown {
+export class MessageNoticesWorker implements OnApplicationBootstrap, BeforeApplicationShutdown {
   private readonly logger = new Logger('MessageNoticesWorker');
   private boss: PgBoss | null = null;
 
   constructor(
     private readonly config: ConfigService<AppConfig, true>,
     private readonly notices: MessageNoticesService,
+    private readonly jobs: JobQueue,
   ) {}
 
   async onApplicationBootstrap() {
@@ -30,15 +32,14 @@ export class MessageNoticesWorker implements OnApplicationBootstrap, OnApplicati
 
   async start() {
     if (this.boss) return;
-    const boss = new PgBoss({ connectionString: this.config.get('database', { infer: true }).url, schema: 'pgboss', max: 2 });
-    boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
-    await boss.start();
+    // The process's one pg-boss instance (JobQueue), shared with the mail and reminder workers.
+    const boss = await this.jobs.start();
     await createQueue(boss, NOTICE_QUEUE, { policy: 'standard', retryLimit: 5, retryDelay: 30, retryBackoff: true });
     await createQueue(boss, NOTICE_SWEEP_QUEUE, { policy: 'singleton', retryLimit: 0 });
-    await boss.work(NOTICE_QUEUE, { pollingIntervalSeconds: 5 }, async () => {
+    await this.jobs.work(NOTICE_QUEUE, { pollingIntervalSeconds: 5 }, async () => {
       await this.notices.sendDue();
     });
-    await boss.work(NOTICE_SWEEP_QUEUE, { pollingIntervalSeconds: 10 }, async () => {
+    await this.jobs.work(NOTICE_SWEEP_QUEUE, { pollingIntervalSeconds: 10 }, async () => {
       await this.notices.sendDue();
     });
     await boss.schedule(NOTICE_SWEEP_QUEUE, '* * * * *');
@@ -55,9 +56,10 @@ export class MessageNoticesWorker implements OnApplicationBootstrap, OnApplicati
     }
   }
 
-  async onApplicationShutdown() {
-    const boss = this.boss;
+  /** Stops fetching notice jobs and waits for the one in flight (JobQueue then stops the instance). */
+  async beforeApplicationShutdown() {
+    if (!this.boss) return;
     this.boss = null;
-    if (boss) await boss.stop({ graceful: true, timeout: 10_000, wait: true });
+    await this.jobs.offWork(NOTICE_QUEUE, NOTICE_SWEEP_QUEUE);
   }
 }

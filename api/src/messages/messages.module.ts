@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { JobsModule } from '../jobs/jobs.module';
 import { BookingsModule } from '../bookings/bookings.module';
 import { MailModule } from '../mail/mail.module';
 import { ShopModule } from '../shop/shop.module';
@@ -10,7 +11,7 @@ import { MessagesRepository } from './messages.repository';
 import { MessagesService } from './messages.service';
 
 @Module({
-  imports: [BookingsModule, MailModule, ShopModule],
+  imports: [JobsModule, BookingsModule, MailModule, ShopModule],
   controllers: [MessagesController],
   providers: [MessagesService, MessagesRepository, MessageNoticesService, MessageNoticesWorker, MessageClock],
   exports: [MessagesService, MessageNoticesService],

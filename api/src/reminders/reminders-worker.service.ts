@@ -1,7 +1,8 @@
-import { Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
+import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import PgBoss from 'pg-boss';
+import type PgBoss from 'pg-boss';
 import { createQueue } from '../jobs/create-queue';
+import { JobQueue } from '../jobs/job-queue.service';
 import type { AppConfig } from '../config/configuration';
 import { RemindersService } from './reminders.service';
 
@@ -17,13 +18,14 @@ export const REMINDERS_CRON = '*/15 * * * *';
  * which holds even if two sweeps do run at once (tested with two apps on one database).
  */
 @Injectable()
-export class RemindersWorker implements OnApplicationBootstrap, OnApplicationShutdown {
+export class RemindersWorker implements OnApplicationBootstrap, BeforeApplicationShutdown {
   private readonly logger = new Logger('RemindersWorker');
   private boss: PgBoss | null = null;
 
   constructor(
     private readonly config: ConfigService<AppConfig, true>,
     private readonly reminders: RemindersService,
+    private readonly jobs: JobQueue,
   ) {}
 
   get running() {
@@ -36,17 +38,10 @@ export class RemindersWorker implements OnApplicationBootstrap, OnApplicationShu
 
   async start() {
     if (this.boss) return;
-    // The mail worker's instance runs pg-boss's maintenance; this one only schedules and works its queue.
-    const boss = new PgBoss({
-      connectionString: this.config.get('database', { infer: true }).url,
-      schema: 'pgboss',
-      max: 2,
-      supervise: false,
-    });
-    boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
-    await boss.start();
+    // The process's one pg-boss instance (JobQueue), which also runs pg-boss's maintenance once.
+    const boss = await this.jobs.start();
     await createQueue(boss, REMINDERS_QUEUE, { policy: 'singleton', retryLimit: 0, expireInSeconds: 10 * 60 });
-    await boss.work(REMINDERS_QUEUE, { pollingIntervalSeconds: 5 }, async () => {
+    await this.jobs.work(REMINDERS_QUEUE, { pollingIntervalSeconds: 5 }, async () => {
       await this.reminders.runDue();
     });
     await boss.schedule(REMINDERS_QUEUE, REMINDERS_CRON);
@@ -60,13 +55,15 @@ export class RemindersWorker implements OnApplicationBootstrap, OnApplicationShu
     return this.boss.send(REMINDERS_QUEUE, {});
   }
 
+  /** Stops fetching sweeps and waits for one in flight; the instance stays up for the other workers. */
   async stop() {
-    const boss = this.boss;
+    if (!this.boss) return;
     this.boss = null;
-    if (boss) await boss.stop({ graceful: true, timeout: 10_000, wait: true });
+    await this.jobs.offWork(REMINDERS_QUEUE);
   }
 
-  async onApplicationShutdown() {
+  /** Before the database pool closes: a sweep in flight still needs it (JobQueue then stops the instance). */
+  async beforeApplicationShutdown() {
     await this.stop();
   }
 }

@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { JobsModule } from '../jobs/jobs.module';
 import { BenchModule } from '../bench/bench.module';
 import { BookingsModule } from '../bookings/bookings.module';
 import { MailModule } from '../mail/mail.module';
@@ -10,7 +11,7 @@ import { RemindersService } from './reminders.service';
 import { RemindersWorker } from './reminders-worker.service';
 
 @Module({
-  imports: [BookingsModule, PaymentsModule, BenchModule, MailModule],
+  imports: [JobsModule, BookingsModule, PaymentsModule, BenchModule, MailModule],
   controllers: [RemindersController],
   providers: [RemindersService, RemindersRepository, RemindersWorker, ReminderClock],
   exports: [RemindersService],
