@@ -83,14 +83,19 @@ function packRows(items: PackingItem[], widthMm: number, depthMm: number, spacin
   let length = 1;
   const unplaced: string[] = [];
   for (const item of items) {
+    const { w, h } = item;
     let bestX = -1;
     let bestOffset = Infinity;
-    for (let i = 0; i < length; i++) {
+    // The leftmost of the lowest places the device fits. A place's height only grows as more of
+    // the skyline under it is read, so reading stops once it is no lower than the best so far,
+    // and the search ends at a place on the front edge itself (nothing is lower).
+    for (let i = 0; i < length && bestOffset > 0; i++) {
       const x = skyX[i];
-      if (x + item.w > widthMm) break;
+      const xEnd = x + w;
+      if (xEnd > widthMm) break;
       let offset = 0;
-      for (let j = i; j < length && skyX[j] < x + item.w; j++) if (skyF[j] > offset) offset = skyF[j];
-      if (offset + item.h <= depthMm && offset < bestOffset) {
+      for (let j = i; j < length && skyX[j] < xEnd && offset < bestOffset; j++) if (skyF[j] > offset) offset = skyF[j];
+      if (offset + h <= depthMm && offset < bestOffset) {
         bestX = x;
         bestOffset = offset;
       }
@@ -100,8 +105,8 @@ function packRows(items: PackingItem[], widthMm: number, depthMm: number, spacin
       if (!withPlacements) return { fits: false, placements: [], unplaced };
       continue;
     }
-    if (withPlacements) placed.push({ d: item.d, x: bestX, offset: bestOffset, h: item.h });
-    length = raise(length, bestX, item.w, bestOffset + item.h);
+    if (withPlacements) placed.push({ d: item.d, x: bestX, offset: bestOffset, h });
+    length = raise(length, bestX, w, bestOffset + h);
   }
   if (!withPlacements) return { fits: unplaced.length === 0, placements: [], unplaced };
   const bands = [...new Set(placed.map((p) => p.offset))].sort((a, b) => a - b);
