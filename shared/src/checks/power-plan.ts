@@ -129,6 +129,17 @@ export function planPower(powered: RigDevice[], outputs: PowerOutputInput[], rul
     loads.push({ ma: 0, count: 0, solo: false });
   }
 
+  // Interchangeable outputs share a key; the search marks the keys it has tried at a node with that
+  // node's stamp instead of building a set of strings per node.
+  const keyIds = new Map<string, number>();
+  const keyOf = slots.map((slot) => {
+    let id = keyIds.get(slot.key);
+    if (id === undefined) keyIds.set(slot.key, (id = keyIds.size));
+    return id;
+  });
+  const seenAt = new Array<number>(keyIds.size).fill(0);
+  let stamp = 0;
+
   const baseUsed = loads.filter((l) => l.count > 0).length;
   const pick: number[] = new Array(free.length).fill(-1);
   let best: { cost: number; pick: number[] } | null = null;
@@ -169,22 +180,28 @@ export function planPower(powered: RigDevice[], outputs: PowerOutputInput[], rul
    * the rest fill the free places of open daisy chains before opening outputs of `chain` places,
    * and devices no real output can take open virtual ones.
    */
-  const lowerBound = (i: number, cost: number) => {
-    let freePlaces = 0;
-    let freeVirtualPlaces = 0;
-    let realPlaces = 0;
-    let realEmpty = 0;
-    for (let s = 0; s < slots.length; s++) {
-      const load = loads[s];
-      if (load.count === 0) {
-        if (!slots[s].virtual) realEmpty += 1;
-        continue;
-      }
-      if (load.solo) continue;
-      freePlaces += chain - load.count;
-      if (slots[s].virtual) freeVirtualPlaces += chain - load.count;
-      else realPlaces += chain - load.count;
+  // The free places of open daisy chains (on real and on virtual outputs) and the empty real
+  // outputs, summed over every output: kept up to date as the search places and lifts devices
+  // (`count` takes an output's share out before its load changes, and puts it back after).
+  let freePlaces = 0;
+  let freeVirtualPlaces = 0;
+  let realPlaces = 0;
+  let realEmpty = 0;
+  const count = (s: number, sign: 1 | -1) => {
+    const load = loads[s];
+    if (load.count === 0) {
+      if (!slots[s].virtual) realEmpty += sign;
+      return;
     }
+    if (load.solo) return;
+    const places = sign * (chain - load.count);
+    freePlaces += places;
+    if (slots[s].virtual) freeVirtualPlaces += places;
+    else realPlaces += places;
+  };
+  for (let s = 0; s < slots.length; s++) count(s, 1);
+
+  const lowerBound = (i: number, cost: number) => {
     // Ignoring voltages and ratings, real outputs hold at most this many more devices; the rest
     // must go to virtual outputs.
     const soloOver = Math.max(0, soloLeft[i] - realEmpty);
@@ -207,6 +224,14 @@ export function planPower(powered: RigDevice[], outputs: PowerOutputInput[], rul
     );
   });
 
+  /** Whether output a is tried before output b: in use before empty, real before virtual, then the smaller rating. */
+  const comesBefore = (a: number, b: number): boolean => {
+    const emptyA = loads[a].count === 0;
+    if (emptyA !== (loads[b].count === 0)) return !emptyA;
+    if (slots[a].virtual !== slots[b].virtual) return !slots[a].virtual;
+    return slots[a].ratingMa < slots[b].ratingMa;
+  };
+
   const search = (i: number, cost: number) => {
     if (++nodes > NODE_BUDGET && best) {
       exhausted = true;
@@ -220,36 +245,38 @@ export function planPower(powered: RigDevice[], outputs: PowerOutputInput[], rul
     const { d, solo } = free[i];
     // Outputs already in use first (costs nothing), then empty ones, smallest rating first; of
     // interchangeable empty outputs only one is tried.
-    const seenEmpty = new Set<string>();
+    stamp += 1;
     const order: number[] = [];
     for (let s = sameAsPrevious[i] ? pick[i - 1] : 0; s < slots.length; s++) {
       if (loads[s].count === 0) {
-        if (seenEmpty.has(slots[s].key)) continue;
-        seenEmpty.add(slots[s].key);
+        if (seenAt[keyOf[s]] === stamp) continue;
+        seenAt[keyOf[s]] = stamp;
       }
-      if (canJoin(d, solo, slots[s], loads[s])) order.push(s);
+      if (!canJoin(d, solo, slots[s], loads[s])) continue;
+      // Inserted in order, after every output it does not come before: a stable sort.
+      let at = order.length;
+      while (at > 0 && comesBefore(s, order[at - 1])) at--;
+      order.splice(at, 0, s);
     }
-    order.sort(
-      (a, b) =>
-        Number(loads[a].count === 0) - Number(loads[b].count === 0) ||
-        Number(slots[a].virtual) - Number(slots[b].virtual) ||
-        slots[a].ratingMa - slots[b].ratingMa,
-    );
     for (const s of order) {
       const slot = slots[s];
       const load = loads[s];
       const opens = load.count === 0;
+      count(s, -1);
       load.ma += d.budgetMa;
       load.count += 1;
       const wasSolo = load.solo;
       if (solo || needsReversal(d, slot)) load.solo = true;
+      count(s, 1);
       if (slot.virtual && opens) virtualNeeds.set(s, d);
       pick[i] = s;
       search(i + 1, cost + (opens ? (slot.virtual ? VIRTUAL + 1 : 1) : 0));
       if (slot.virtual && opens) virtualNeeds.delete(s);
+      count(s, -1);
       load.solo = wasSolo;
       load.count -= 1;
       load.ma -= d.budgetMa;
+      count(s, 1);
       if (exhausted) return;
     }
   };
