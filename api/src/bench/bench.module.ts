@@ -1,8 +1,14 @@
 import { Module } from '@nestjs/common';
+import { BookingsModule } from '../bookings/bookings.module';
 import { BenchController } from './bench.controller';
 import { BenchRepository } from './bench.repository';
 import { BenchService } from './bench.service';
 import { LeadTimeController } from './lead-time.controller';
 
-@Module({ controllers: [BenchController, LeadTimeController], providers: [BenchService, BenchRepository], exports: [BenchService] })
+@Module({
+  imports: [BookingsModule],
+  controllers: [BenchController, LeadTimeController],
+  providers: [BenchService, BenchRepository],
+  exports: [BenchService, BenchRepository],
+})
 export class BenchModule {}

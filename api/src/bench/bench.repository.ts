@@ -1,14 +1,24 @@
 import { Injectable } from '@nestjs/common';
-import { sql } from 'kysely';
-import { Database, Executor } from '../database/database';
+import { sql, type Updateable } from 'kysely';
+import type { BuilderLevel, WeeklyHours } from '@loomwright/shared';
+import { BookingsRepository } from '../bookings/bookings.repository';
+import { Database, Executor, type BuildersTable } from '../database/database';
 
 @Injectable()
 export class BenchRepository {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly bookings: BookingsRepository,
+  ) {}
 
-  listBuilders(trx: Executor = this.db, filter: { builderId?: string; activeOnly?: boolean } = {}) {
-    // "Joined": the invitation was accepted and a password set; a pending invitation takes no builds.
-    let q = trx
+  /** The newest estimate quote of a booking (through its owner, the bookings repository). */
+  latestEstimateQuote(trx: Executor, bookingId: string) {
+    return this.bookings.latestQuote(trx, bookingId, 'estimate');
+  }
+
+  /** Builders with their accounts, as every list of the team shows them; callers add columns, filters and order. */
+  buildersWithAccounts(trx: Executor = this.db) {
+    return trx
       .selectFrom('builders')
       .innerJoin('users', 'users.id', 'builders.user_id')
       .select([
@@ -20,9 +30,13 @@ export class BenchRepository {
         'builders.hourly_rate',
         'builders.weekly_hours',
         'builders.active',
+        // "Joined": the invitation was accepted and a password set; a pending invitation takes no builds.
         sql<boolean>`users.password_hash is not null`.as('joined'),
-      ])
-      .orderBy('users.name');
+      ]);
+  }
+
+  listBuilders(trx: Executor = this.db, filter: { builderId?: string; activeOnly?: boolean } = {}) {
+    let q = this.buildersWithAccounts(trx).orderBy('users.name');
     if (filter.builderId) q = q.where('builders.id', '=', filter.builderId);
     if (filter.activeOnly) q = q.where('builders.active', '=', true).where('users.password_hash', 'is not', null);
     return q.execute();
@@ -33,26 +47,11 @@ export class BenchRepository {
    * bench time one after another; the exclusion constraint stays the final guard.
    */
   lockBuilder(trx: Executor, builderId: string) {
-    return trx
-      .selectFrom('builders')
-      .innerJoin('users', 'users.id', 'builders.user_id')
-      .select([
-        'builders.id',
-        'builders.user_id',
-        'users.name',
-        'builders.level',
-        'builders.hourly_rate',
-        'builders.weekly_hours',
-        'builders.active',
-        sql<boolean>`users.password_hash is not null`.as('joined'),
-      ])
-      .where('builders.id', '=', builderId)
-      .forNoKeyUpdate('builders')
-      .executeTakeFirst();
+    return this.buildersWithAccounts(trx).where('builders.id', '=', builderId).forNoKeyUpdate('builders').executeTakeFirst();
   }
 
   closures(trx: Executor = this.db) {
-    return trx.selectFrom('shop_closures').select(['starts_on', 'ends_on', 'reason']).orderBy('starts_on').execute();
+    return trx.selectFrom('shop_closures').selectAll().orderBy('starts_on').execute();
   }
 
   absences(trx: Executor = this.db) {
@@ -186,11 +185,10 @@ export class BenchRepository {
     return trx.deleteFrom('bench_allocations').where('booking_id', '=', bookingId).execute();
   }
 
-  /** A booking with the estimate it was requested on (the newest estimate quote). */
+  /** A booking with its player, for planning its bench time (its estimate is the bookings repository's `latestQuote`). */
   findBookingForPlanning(trx: Executor, bookingId: string) {
-    return trx
-      .selectFrom('bookings as b')
-      .innerJoin('users as c', 'c.id', 'b.customer_id')
+    return this.bookings
+      .withPeople(trx)
       .select([
         'b.id',
         'b.reference',
@@ -206,14 +204,122 @@ export class BenchRepository {
       .executeTakeFirst();
   }
 
-  latestEstimateQuote(trx: Executor, bookingId: string) {
+  // The team's and the settings' writes: the bench owns who builds, when they are away and when the shop is shut.
+
+  insertBuilder(values: { userId: string; level: BuilderLevel; hourlyRate: string; weeklyHours: WeeklyHours }, trx: Executor = this.db) {
     return trx
-      .selectFrom('quotes')
-      .selectAll()
-      .where('booking_id', '=', bookingId)
-      .where('kind', '=', 'estimate')
-      .orderBy('created_at', 'desc')
-      .limit(1)
+      .insertInto('builders')
+      .values({
+        user_id: values.userId,
+        level: values.level,
+        hourly_rate: values.hourlyRate,
+        weekly_hours: JSON.stringify(values.weeklyHours),
+      })
+      .returning(['id'])
+      .executeTakeFirstOrThrow();
+  }
+
+  /** The builder's row and account, locked so two resends of one invitation go one after the other. */
+  lockInvitedBuilder(builderId: string, trx: Executor) {
+    return trx
+      .selectFrom('builders')
+      .innerJoin('users', 'users.id', 'builders.user_id')
+      .select([
+        'builders.id',
+        'builders.level',
+        'builders.hourly_rate',
+        'users.id as user_id',
+        'users.email',
+        'users.name',
+        'users.password_hash',
+      ])
+      .where('builders.id', '=', builderId)
+      .forUpdate('builders')
       .executeTakeFirst();
+  }
+
+  /** Level and rate of the builder row of an account (a re-sent invitation may change them). */
+  updateBuilderOfUser(userId: string, values: { level: BuilderLevel; hourlyRate: string }, trx: Executor = this.db) {
+    return trx
+      .updateTable('builders')
+      .set({ level: values.level, hourly_rate: values.hourlyRate })
+      .where('user_id', '=', userId)
+      .returning(['id'])
+      .executeTakeFirst();
+  }
+
+  updateBuilder(trx: Executor, builderId: string, values: Updateable<BuildersTable>) {
+    return trx.updateTable('builders').set(values).where('id', '=', builderId).returning('id').executeTakeFirst();
+  }
+
+  insertAbsence(trx: Executor, values: { builderId: string; startsOn: string; endsOn: string; reason: string }) {
+    return trx
+      .insertInto('builder_absences')
+      .values({ builder_id: values.builderId, starts_on: values.startsOn, ends_on: values.endsOn, reason: values.reason })
+      .returning(['id', 'builder_id', 'starts_on', 'ends_on', 'reason'])
+      .executeTakeFirstOrThrow();
+  }
+
+  deleteAbsence(trx: Executor, id: string) {
+    return trx.deleteFrom('builder_absences').where('id', '=', id).returning('id').executeTakeFirst();
+  }
+
+  insertClosure(trx: Executor, values: { startsOn: string; endsOn: string; reason: string }) {
+    return trx
+      .insertInto('shop_closures')
+      .values({ starts_on: values.startsOn, ends_on: values.endsOn, reason: values.reason })
+      .returningAll()
+      .executeTakeFirstOrThrow();
+  }
+
+  deleteClosure(trx: Executor, id: string) {
+    return trx.deleteFrom('shop_closures').where('id', '=', id).returning('id').executeTakeFirst();
+  }
+
+  /** Every choice about holidays of a country with who made it: the latest per day, or the newest `limit` of all. */
+  holidayChoices(trx: Executor, countryCode: string, pick: { latestPerDay: true } | { newest: number }) {
+    const q = trx
+      .selectFrom('shop_holiday_choices as h')
+      .leftJoin('users as u', 'u.id', 'h.decided_by')
+      .select(['h.day', 'h.holiday_name', 'h.shop_works', 'h.decided_at', 'u.name as decided_by_name'])
+      .where('h.country_code', '=', countryCode);
+    if ('latestPerDay' in pick) {
+      // The table keeps every earlier choice; the newest per day is the one in force.
+      return q.distinctOn('h.day').orderBy('h.day').orderBy('h.decided_at', 'desc').orderBy('h.id', 'desc').execute();
+    }
+    return q.orderBy('h.decided_at', 'desc').orderBy('h.id', 'desc').limit(pick.newest).execute();
+  }
+
+  insertHolidayChoice(trx: Executor, values: { countryCode: string; day: string; name: string; shopWorks: boolean; decidedBy: string }) {
+    return trx
+      .insertInto('shop_holiday_choices')
+      .values({
+        country_code: values.countryCode,
+        day: values.day,
+        holiday_name: values.name,
+        shop_works: values.shopWorks,
+        decided_by: values.decidedBy,
+      })
+      .returning(['day', 'holiday_name', 'shop_works', 'decided_at'])
+      .executeTakeFirstOrThrow();
+  }
+
+  /** Serialises choices about one day so two clicks at once leave one row each way, not a race. */
+  lockHolidayDay(trx: Executor, countryCode: string, day: string) {
+    return sql`select pg_advisory_xact_lock(hashtext(${`holiday:${countryCode}:${day}`}))`.execute(trx);
+  }
+
+  /** Builds holding bench time between two days, the whole shop's or one builder's: the ones a closure or an absence hits. */
+  buildsWithBenchTimeBetween(trx: Executor, from: string, to: string, builderId?: string) {
+    return this.bookings
+      .withPeople(trx)
+      .innerJoin('bench_allocations as a', 'a.booking_id', 'b.id')
+      .select(['b.id', 'b.reference', sql<string[]>`array_agg(distinct a.day::text order by a.day::text)`.as('days')])
+      .where('a.day', '>=', from)
+      .where('a.day', '<=', to)
+      .$if(builderId !== undefined, (q) => q.where('a.builder_id', '=', builderId!))
+      .groupBy(['b.id', 'b.reference'])
+      .orderBy('b.reference')
+      .execute();
   }
 }

@@ -13,6 +13,6 @@ import { QuotePricer } from './quote-pricer';
   imports: [MailModule, EstimatesModule, PhotoStorageModule],
   controllers: [BookingsController],
   providers: [BookingsService, BookingsRepository, BookingPhotosService, { provide: QuotePricer, useExisting: EstimatesService }],
-  exports: [BookingsService, BookingPhotosService],
+  exports: [BookingsService, BookingsRepository, BookingPhotosService],
 })
 export class BookingsModule {}

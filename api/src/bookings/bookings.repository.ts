@@ -13,7 +13,7 @@ import type {
 } from '../database/database';
 import { Database } from '../database/database';
 import { flip, fromTheEnd } from '../database/list-paging';
-import type { DepositStatus } from '@loomwright/shared';
+import type { BookingState, DepositStatus } from '@loomwright/shared';
 
 export type BookingRow = Selectable<BookingsTable>;
 export type QuoteRow = Selectable<QuotesTable>;
@@ -91,6 +91,15 @@ export const depositStatusFromPaymentsSql = sql<DepositStatus>`(
     else 'unpaid'
   end)`;
 
+/**
+ * The hours a build is quoted for, as a column of a query over bookings (`booking` names its id column):
+ * the newest firm quote's, else the estimate's. The one form of "latest quote" for lists and reports.
+ */
+export const quotedHoursOf = (booking: string) =>
+  sql<string | null>`coalesce(
+    (select q.labor_hours::text from quotes q where q.booking_id = ${sql.ref(booking)} and q.kind = 'firm' order by q.created_at desc, q.id desc limit 1),
+    (select q.labor_hours::text from quotes q where q.booking_id = ${sql.ref(booking)} and q.kind = 'estimate' order by q.created_at desc, q.id desc limit 1))`;
+
 @Injectable()
 export class BookingsRepository {
   constructor(private readonly db: Database) {}
@@ -110,6 +119,54 @@ export class BookingsRepository {
 
   insertEvent(trx: Executor, values: Insertable<BookingEventsTable>) {
     return trx.insertInto('booking_events').values(values).returningAll().executeTakeFirstOrThrow();
+  }
+
+  /** The newest quote of a booking, of one kind or of either (a firm quote is newer than the estimate it replaced). */
+  latestQuote(trx: Executor, bookingId: string, kind?: QuoteRow['kind']) {
+    return trx
+      .selectFrom('quotes')
+      .selectAll()
+      .where('booking_id', '=', bookingId)
+      .$if(kind !== undefined, (q) => q.where('kind', '=', kind!))
+      .orderBy('created_at', 'desc')
+      .orderBy('kind', 'desc')
+      .limit(1)
+      .executeTakeFirst();
+  }
+
+  /** The booking row with its player's name and address, locked until the transaction ends: one change to a booking at a time. */
+  lockWithCustomer(trx: Executor, id: string) {
+    return trx
+      .selectFrom('bookings as b')
+      .innerJoin('users as c', 'c.id', 'b.customer_id')
+      .selectAll('b')
+      .select(['c.name as customer_name', 'c.email as customer_email'])
+      .where('b.id', '=', id)
+      .forUpdate('b')
+      .executeTakeFirst();
+  }
+
+  /** Changes the row only if its state is still one of `from` (the lock makes this certain; the guard documents it). */
+  updateIfIn(trx: Executor, id: string, from: BookingState[], patch: Updateable<BookingsTable>) {
+    return trx
+      .updateTable('bookings')
+      .set({ ...patch, updated_at: sql`now()` } as unknown as Updateable<BookingsTable>)
+      .where('id', '=', id)
+      .where('state', 'in', from)
+      .returningAll()
+      .executeTakeFirst();
+  }
+
+  /**
+   * Bookings with their people, as every reader names them: `b` the booking, `c` its player, `bl` its
+   * builder's row and `bu` the builder's account (both null before acceptance). Callers add columns and filters.
+   */
+  withPeople(trx: Executor = this.db) {
+    return trx
+      .selectFrom('bookings as b')
+      .innerJoin('users as c', 'c.id', 'b.customer_id')
+      .leftJoin('builders as bl', 'bl.id', 'b.builder_id')
+      .leftJoin('users as bu', 'bu.id', 'bl.user_id');
   }
 
   findById(id: string, trx: Executor = this.db) {

@@ -10,7 +10,8 @@ import type {
   RigConfiguration,
   ShipmentInput,
 } from '@loomwright/shared';
-import { bookingStateLabels, encodeBookingListCursor, moneyFacts, staffRoles, type MoneyFacts } from '@loomwright/shared';
+import { bookingStateLabels, encodeBookingListCursor, staffRoles, type MoneyFacts } from '@loomwright/shared';
+import { bookingMoneyFacts } from './booking-money';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { quoteMailLines } from '../mail/quote-mail-lines';
@@ -180,20 +181,7 @@ export class BookingsService {
 
   private factsOf(row: BookingRow, quotes: QuoteRow[], extras: ExtraRow[], payments: PaymentRow[]): MoneyFacts {
     const { estimate, firm } = pickQuotes(quotes);
-    const iso = (d: Date | string | null) => (d === null ? null : new Date(d).toISOString());
-    return moneyFacts({
-      currency: (firm ?? estimate)?.currency.trim() ?? payments[0]?.currency.trim() ?? 'USD',
-      firmTotal: firm?.total ?? null,
-      extras: extras.map((e) => ({ description: e.description, amount: e.amount, status: e.status })),
-      payments: payments.map((p) => ({
-        kind: p.kind,
-        amount: p.amount,
-        status: p.status,
-        paidAt: iso(p.paid_at),
-        refundedAt: iso(p.refunded_at),
-      })),
-      balanceWaived: row.balance_waived_reason !== null,
-    });
+    return bookingMoneyFacts({ firm, estimate, extras, payments, balanceWaivedReason: row.balance_waived_reason });
   }
 
   /**
@@ -248,6 +236,11 @@ export class BookingsService {
       note,
       visibility,
     });
+  }
+
+  /** The newest quote of a booking, of one kind or either: the one place "latest quote" is decided. */
+  latestQuote(bookingId: string, kind?: QuoteRow['kind'], trx: Executor = this.db) {
+    return this.bookings.latestQuote(trx, bookingId, kind);
   }
 
   /** Locks the row and returns it, for callers that change a booking without changing its state. */

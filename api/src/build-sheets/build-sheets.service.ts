@@ -13,6 +13,7 @@ import { bookingAsSeenBy } from '../bookings/customer-contact.interceptor';
 import { paperSizeFor } from '../common/paper-size';
 import { PriceBookService } from '../price-book/price-book.service';
 import { renderBuildSheet } from './build-sheet-document';
+import { ShopRepository } from '../shop/shop.repository';
 import { BuildSheetsRepository } from './build-sheets.repository';
 
 @Injectable()
@@ -21,6 +22,7 @@ export class BuildSheetsService {
     private readonly sheets: BuildSheetsRepository,
     private readonly priceBook: PriceBookService,
     private readonly bookings: BookingsService,
+    private readonly shop: ShopRepository,
   ) {}
 
   /**
@@ -30,7 +32,7 @@ export class BuildSheetsService {
   async render(bookingId: string, viewer: AuthUser): Promise<{ reference: string; pdf: Buffer }> {
     const booking = await this.sheets.findBooking(bookingId);
     if (!booking) throw new NotFoundException(`No booking ${bookingId}`);
-    const quote = await this.sheets.findLatestQuote(bookingId);
+    const quote = await this.bookings.latestQuote(bookingId);
     if (!quote) throw new NotFoundException(`Booking ${booking.reference} has no quote yet`);
     const published = await this.priceBook.version(quote.price_book_version);
     // The foreign key keeps the version; its absence means the database was edited by hand.
@@ -47,7 +49,7 @@ export class BuildSheetsService {
     // The money on paper is the booking's own money facts (one function for the apps, mails and
     // this sheet), and the customer's address follows the same rule as on screen.
     const detail = bookingAsSeenBy(viewer, await this.bookings.getDetail(bookingId));
-    const shop = await this.sheets.findShop();
+    const shop = await this.shop.findSettings();
     const format = shopFormat({ locale: shop?.locale, currency: detail.money.currency, timeZone: shop?.timezone });
     const pdf = await renderBuildSheet({
       shopName: shop?.name ?? 'Loomwright',

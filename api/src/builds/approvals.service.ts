@@ -16,11 +16,12 @@ import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository, type Decision } from './builds.repository';
+import { BookingsRepository } from '../bookings/bookings.repository';
 
 /** While these last, the shop may propose an extra and the player (or staff for them) may answer. */
 const extraStates: BookingState[] = ['scheduled', 'pedals_received', 'on_bench', 'testing'];
 
-type LockedBooking = NonNullable<Awaited<ReturnType<BuildsRepository['lockBooking']>>>;
+type LockedBooking = NonNullable<Awaited<ReturnType<BookingsRepository['lockWithCustomer']>>>;
 
 /**
  * The player's yes or no to what the shop asks: extras with a price, and the top-view layout
@@ -32,13 +33,14 @@ export class ApprovalsService {
   constructor(
     private readonly db: Database,
     private readonly builds: BuildsRepository,
+    private readonly bookingRows: BookingsRepository,
     private readonly bookings: BookingsService,
     private readonly history: BuildHistory,
     private readonly mail: MailService,
   ) {}
 
   private async lockBooking(trx: Executor, bookingId: string) {
-    const booking = await this.builds.lockBooking(trx, bookingId);
+    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     return booking;
   }
@@ -73,7 +75,7 @@ export class ApprovalsService {
         reason: dto.reason,
         proposedBy: user.id,
       });
-      const firm = await this.builds.latestFirmQuote(trx, bookingId);
+      const firm = await this.bookingRows.latestQuote(trx, bookingId, 'firm');
       const currency = firm?.currency.trim() ?? 'USD';
       await this.history.note(
         trx,
@@ -179,7 +181,7 @@ export class ApprovalsService {
       }
       const message = (input.message ?? input.note ?? '').trim();
       await this.builds.insertLayoutApproval(trx, { bookingId, requestedBy: user.id, message });
-      const updated = await this.builds.updateBooking(trx, bookingId, ['on_bench'], { awaiting_layout_approval: true });
+      const updated = await this.bookingRows.updateIfIn(trx, bookingId, ['on_bench'], { awaiting_layout_approval: true });
       await this.history.note(trx, booking, user, `Layout sent to the player for approval${message ? `: ${message}` : '.'}`, 'player');
       await this.mail.enqueue(trx, {
         template: 'approval-requested',
@@ -228,7 +230,7 @@ export class ApprovalsService {
     const waiting = await this.builds.lockWaitingLayout(trx, booking.id);
     if (!waiting || !booking.awaiting_layout_approval) throw new ConflictException('There is no layout waiting for an answer.');
     await this.builds.decideLayout(trx, waiting.id, decision);
-    const updated = await this.builds.updateBooking(trx, booking.id, [booking.state], { awaiting_layout_approval: false });
+    const updated = await this.bookingRows.updateIfIn(trx, booking.id, [booking.state], { awaiting_layout_approval: false });
     const { how, recorded, comment } = ApprovalsService.decisionWords(decision, by);
     await this.history.note(
       trx,

@@ -16,12 +16,14 @@ import { shipByDate, toHours } from '../bench/scheduling';
 import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
-import { dayWords, shopFormatOf } from '../common/shop-voice';
+import { dayWords } from '../common/shop-voice';
+import { ShopRepository } from '../shop/shop.repository';
 import { PaymentsService } from '../payments/payments.service';
 import { BuildHistory, stateWords } from './build-history';
 import { assertLevelRule, assertTakesBuilds } from './builds.service';
 import { inBenchTransaction } from './bench-transaction';
 import { BuildsRepository } from './builds.repository';
+import { BookingsRepository } from '../bookings/bookings.repository';
 import { firmQuoteFigures } from './firm-quote';
 import { whatToShip } from './what-to-ship';
 
@@ -46,6 +48,8 @@ export class BenchChangesService {
   constructor(
     private readonly db: Database,
     private readonly builds: BuildsRepository,
+    private readonly bookingRows: BookingsRepository,
+    private readonly shopRows: ShopRepository,
     private readonly bench: BenchService,
     private readonly history: BuildHistory,
     private readonly mail: MailService,
@@ -63,7 +67,7 @@ export class BenchChangesService {
    * now and write the new slices under the same exclusion constraint.
    */
   private async rescheduleIn(trx: Executor, user: AuthUser, bookingId: string, input: RescheduleInput): Promise<RescheduleResponse> {
-    const booking = await this.builds.lockBooking(trx, bookingId);
+    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     if (!MOVABLE.includes(booking.state)) {
       throw new ConflictException(
@@ -90,7 +94,7 @@ export class BenchChangesService {
     const plan = await this.bench.planFor(trx, builder, facts.laborHours, shop, { benchDate: input.benchDate }, bookingId);
     this.bench.assertBenchDate(booking.state, input.benchDate, this.bench.calendarOf(builder, shop), shop, plan);
     const previousDate = booking.bench_date;
-    const voice = await shopFormatOf(trx);
+    const voice = await this.shopRows.formatOf(trx);
     const formatDay = (day: string) => dayWords(voice, day);
     if (!reassigned && previousDate === input.benchDate) {
       throw new BadRequestException(
@@ -101,7 +105,7 @@ export class BenchChangesService {
     await this.bench.allocate(trx, bookingId, builder, shop, plan);
 
     // The firm quote: kept as it is unless the owner re-prices at the new builder's rate.
-    const current = await this.builds.latestFirmQuote(trx, bookingId);
+    const current = await this.bookingRows.latestQuote(trx, bookingId, 'firm');
     if (!current?.total) throw new ConflictException(`Booking ${booking.reference} has no firm quote; accept it before moving it.`);
     let firmTotal = current.total;
     let priceConsent = booking.price_consent;
@@ -112,7 +116,7 @@ export class BenchChangesService {
         materialsTotal: facts.materialsTotal,
         deposit: current.deposit,
       });
-      await this.builds.insertQuote(trx, {
+      await this.bookingRows.insertQuote(trx, {
         booking_id: bookingId,
         kind: 'firm',
         price_book_version: current.price_book_version,
@@ -149,7 +153,7 @@ export class BenchChangesService {
       // The player is mailed the same reason, price and level words, so the timeline shows them too.
       'player',
     );
-    await this.builds.updateBooking(trx, bookingId, MOVABLE, {
+    await this.bookingRows.updateIfIn(trx, bookingId, MOVABLE, {
       builder_id: builder.id,
       bench_date: plan.benchDate,
       expected_completion: plan.expectedCompletion,
@@ -160,7 +164,8 @@ export class BenchChangesService {
 
     const awaitingPedals = AWAITING_PEDALS.includes(booking.state);
     const shipBy = awaitingPedals ? shipByDate(plan.benchDate, shop) : null;
-    const balance = await this.balanceAfterDeposit(trx, bookingId, firmTotal);
+    // The money facts after the move (and any new firm quote): the one place a balance is worked out.
+    const money = await this.bookings.moneyFacts(bookingId, trx);
     await this.mail.enqueue(trx, {
       template: 'booking-rescheduled',
       to: booking.customer_email,
@@ -180,8 +185,8 @@ export class BenchChangesService {
         builderLevel: builder.level,
         builderName: builder.name,
         firmTotal,
-        deposit: balance.depositPaid,
-        balanceDue: balance.balanceDue,
+        deposit: money.netPaid,
+        balanceDue: money.balanceDue ?? firmTotal,
         currency: facts.currency,
         quotedHigh: facts.quotedHigh,
         priceConsentNeeded: input.reprice === true && priceConsent === 'pending',
@@ -206,19 +211,11 @@ export class BenchChangesService {
     };
   }
 
-  private async balanceAfterDeposit(trx: Executor, bookingId: string, firmTotal: string) {
-    const payments = await this.builds.payments(trx, bookingId);
-    const depositPaid = payments
-      .filter((p) => p.kind === 'deposit' && p.status === 'paid')
-      .reduce((s, p) => s.plus(p.amount), new Decimal(0));
-    return { depositPaid: depositPaid.toFixed(2), balanceDue: Decimal.max(0, new Decimal(firmTotal).minus(depositPaid)).toFixed(2) };
-  }
-
   /** What cancelling would refund, for each cause, before the owner confirms. */
   async cancellationPreview(bookingId: string): Promise<CancellationPreview> {
-    const booking = await this.builds.findBooking(this.db, bookingId);
+    const booking = await this.bookingRows.findById(bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
-    const deposit = (await this.builds.payments(this.db, bookingId)).find((p) => p.kind === 'deposit' && p.status === 'paid');
+    const deposit = (await this.bookingRows.paymentsFor(bookingId, this.db)).find((p) => p.kind === 'deposit' && p.status === 'paid');
     const paid = new Decimal(deposit?.amount ?? 0);
     return {
       bookingId,
@@ -257,7 +254,7 @@ export class BenchChangesService {
     cause: CancelScheduledInput['cause'],
     allowed: BookingState[],
   ) {
-    const booking = await this.builds.lockBooking(trx, bookingId);
+    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     if (!allowed.includes(booking.state)) {
       throw new ConflictException(
@@ -267,7 +264,7 @@ export class BenchChangesService {
     const hours = await this.bench.hoursHeld(trx, bookingId);
     const shop = await this.bench.shopCalendar(trx);
     const awaitingPedals = AWAITING_PEDALS.includes(booking.state);
-    const deposit = (await this.builds.payments(trx, bookingId)).find((p) => p.kind === 'deposit' && p.status === 'paid');
+    const deposit = (await this.bookingRows.paymentsFor(bookingId, trx)).find((p) => p.kind === 'deposit' && p.status === 'paid');
     const paid = new Decimal(deposit?.amount ?? 0);
     const refundDue = this.refundFor(cause, booking.price_consent, paid);
     const kept = paid.minus(refundDue);
@@ -317,13 +314,13 @@ export class BenchChangesService {
   async decidePrice(user: AuthUser, bookingId: string, accept: boolean): Promise<BookingDetail> {
     const visible = await this.bookings.findVisible(user, bookingId);
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.builds.lockBooking(trx, visible.id);
+      const booking = await this.bookingRows.lockWithCustomer(trx, visible.id);
       if (!booking || booking.price_consent !== 'pending') {
         throw new ConflictException(`Booking ${visible.reference} is not waiting for your answer on its price.`);
       }
       if (accept) {
-        await this.builds.updateBooking(trx, booking.id, [booking.state], { price_consent: 'given' });
-        const firm = await this.builds.latestFirmQuote(trx, booking.id);
+        await this.bookingRows.updateIfIn(trx, booking.id, [booking.state], { price_consent: 'given' });
+        const firm = await this.bookingRows.latestQuote(trx, booking.id, 'firm');
         await this.history.note(
           trx,
           booking,

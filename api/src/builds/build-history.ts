@@ -3,7 +3,6 @@ import type { Updateable } from 'kysely';
 import type { AuthUser, BookingState } from '@loomwright/shared';
 import { actorOf, BookingsService } from '../bookings/bookings.service';
 import type { BookingsTable, Executor } from '../database/database';
-import { BuildsRepository } from './builds.repository';
 
 export const stateWords = (state: string) => state.replace(/_/g, ' ');
 
@@ -14,10 +13,7 @@ export const stateWords = (state: string) => state.replace(/_/g, ' ');
  */
 @Injectable()
 export class BuildHistory {
-  constructor(
-    private readonly builds: BuildsRepository,
-    private readonly bookings: BookingsService,
-  ) {}
+  constructor(private readonly bookings: BookingsService) {}
 
   async move(
     trx: Executor,
@@ -44,15 +40,6 @@ export class BuildHistory {
     note: string,
     visibility: 'player' | 'internal' = 'internal',
   ) {
-    const who = actorOf(actor);
-    return this.builds.insertEvent(trx, {
-      bookingId: booking.id,
-      from: booking.state,
-      to: booking.state,
-      actorId: who.id,
-      actorLabel: who.label,
-      note,
-      visibility,
-    });
+    return this.bookings.insertNote(trx, booking, actorOf(actor), note, visibility);
   }
 }

@@ -1,4 +1,5 @@
-import { dayWords, shopFormatOf } from '../common/shop-voice';
+import { dayWords } from '../common/shop-voice';
+import { ShopRepository } from '../shop/shop.repository';
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
 import {
@@ -20,6 +21,7 @@ import { Database, type Executor } from '../database/database';
 import { MailService } from '../mail/mail.service';
 import { BuildHistory, stateWords } from './build-history';
 import { BuildsRepository } from './builds.repository';
+import { BookingsRepository } from '../bookings/bookings.repository';
 
 // Generated<Timestamp> columns come back typed as the column type; at runtime pg gives a Date.
 const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
@@ -34,13 +36,15 @@ export class BuildRecordsService {
   constructor(
     private readonly db: Database,
     private readonly builds: BuildsRepository,
+    private readonly bookingRows: BookingsRepository,
+    private readonly shopRows: ShopRepository,
     private readonly bench: BenchService,
     private readonly history: BuildHistory,
     private readonly mail: MailService,
   ) {}
 
   async lockIn(trx: Executor, bookingId: string, states: BookingState[], what: string) {
-    const booking = await this.builds.lockBooking(trx, bookingId);
+    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     if (!states.includes(booking.state)) {
       throw new ConflictException(
@@ -51,7 +55,7 @@ export class BuildRecordsService {
   }
 
   private async mustExist(bookingId: string) {
-    const booking = await this.builds.findBooking(this.db, bookingId);
+    const booking = await this.bookingRows.findById(bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     return booking;
   }
@@ -61,7 +65,7 @@ export class BuildRecordsService {
   /** A staff note: internal, unless the writer tells the player (then it is e-mailed word for word). */
   async addNote(user: AuthUser, bookingId: string, input: StaffNoteInput): Promise<StaffNoteAdded> {
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.builds.lockBooking(trx, bookingId);
+      const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');
       const note = input.note.trim();
       await this.history.note(trx, booking, user, note, input.tellPlayer ? 'player' : 'internal');
@@ -99,7 +103,7 @@ export class BuildRecordsService {
       const hours = new Decimal(dto.hours).toFixed(2);
       const note = dto.note?.trim() ?? '';
       await this.builds.insertTimeEntry(trx, { bookingId, builderId, workedOn: dto.workedOn, hours, note, createdBy: user.id });
-      const f = await shopFormatOf(trx);
+      const f = await this.shopRows.formatOf(trx);
       await this.history.note(trx, booking, user, `Recorded ${f.hours(hours)} on ${dayWords(f, dto.workedOn)}${note ? `: ${note}` : ''}.`);
     });
     return this.timeEntries(bookingId);
@@ -116,7 +120,7 @@ export class BuildRecordsService {
         hours: dto.hours !== undefined ? new Decimal(dto.hours).toFixed(2) : new Decimal(entry.hours).toFixed(2),
         note: dto.note !== undefined ? dto.note.trim() : entry.note,
       };
-      const f = await shopFormatOf(trx);
+      const f = await this.shopRows.formatOf(trx);
       const before = `${f.hours(entry.hours)} on ${dayWords(f, entry.worked_on)}`;
       const after = `${f.hours(next.hours)} on ${dayWords(f, next.worked_on)}`;
       if (next.worked_on === entry.worked_on && next.hours === new Decimal(entry.hours).toFixed(2) && next.note === entry.note) return;
@@ -136,7 +140,7 @@ export class BuildRecordsService {
       const booking = await this.lockIn(trx, bookingId, hoursStates, 'hours can be deleted');
       const entry = await this.ownEntry(trx, user, bookingId, entryId);
       await this.builds.deleteTimeEntry(trx, entryId);
-      const f = await shopFormatOf(trx);
+      const f = await this.shopRows.formatOf(trx);
       await this.history.note(
         trx,
         booking,
@@ -163,7 +167,10 @@ export class BuildRecordsService {
 
   async timeEntries(bookingId: string): Promise<TimeEntriesResponse> {
     await this.mustExist(bookingId);
-    const [rows, firm] = await Promise.all([this.builds.timeEntries(this.db, bookingId), this.builds.latestFirmQuote(this.db, bookingId)]);
+    const [rows, firm] = await Promise.all([
+      this.builds.timeEntries(this.db, bookingId),
+      this.bookingRows.latestQuote(this.db, bookingId, 'firm'),
+    ]);
     const total = rows.reduce((s, r) => s.plus(r.hours), new Decimal(0));
     return {
       entries: rows.map((r) => ({

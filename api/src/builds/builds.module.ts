@@ -3,6 +3,7 @@ import { BenchModule } from '../bench/bench.module';
 import { BookingsModule } from '../bookings/bookings.module';
 import { MailModule } from '../mail/mail.module';
 import { PaymentsModule } from '../payments/payments.module';
+import { ShopModule } from '../shop/shop.module';
 import { ApprovalsService } from './approvals.service';
 import { BenchChangesController } from './bench-changes.controller';
 import { BenchChangesService } from './bench-changes.service';
@@ -13,9 +14,9 @@ import { BuildsRepository } from './builds.repository';
 import { BuildsService } from './builds.service';
 
 @Module({
-  imports: [BenchModule, BookingsModule, MailModule, PaymentsModule],
+  imports: [BenchModule, BookingsModule, MailModule, PaymentsModule, ShopModule],
   controllers: [BuildsController, BenchChangesController],
   providers: [BuildsService, BuildRecordsService, ApprovalsService, BenchChangesService, BuildsRepository, BuildHistory],
-  exports: [BuildsService],
+  exports: [BuildsService, BuildsRepository],
 })
 export class BuildsModule {}

@@ -1,7 +1,6 @@
 import { Injectable } from '@nestjs/common';
-import { sql, type Insertable, type Updateable } from 'kysely';
-import type { BookingState } from '@loomwright/shared';
-import { Database, Executor, type BookingsTable, type DecidedVia, type QuotesTable } from '../database/database';
+import { sql } from 'kysely';
+import { Database, Executor, type DecidedVia } from '../database/database';
 
 /** The columns an answer to an extra or a layout writes: the same for both kinds of approval. */
 function decisionColumns(decision: Decision) {
@@ -18,79 +17,6 @@ function decisionColumns(decision: Decision) {
 @Injectable()
 export class BuildsRepository {
   constructor(private readonly db: Database) {}
-
-  /** The booking row, locked until the transaction ends: one change to a booking at a time. */
-  lockBooking(trx: Executor, id: string) {
-    return trx
-      .selectFrom('bookings as b')
-      .innerJoin('users as c', 'c.id', 'b.customer_id')
-      .selectAll('b')
-      .select(['c.name as customer_name', 'c.email as customer_email'])
-      .where('b.id', '=', id)
-      .forUpdate('b')
-      .executeTakeFirst();
-  }
-
-  findBooking(trx: Executor, id: string) {
-    return trx.selectFrom('bookings').selectAll().where('id', '=', id).executeTakeFirst();
-  }
-
-  /** Moves the state only if it is still one of `from` (the lock makes this certain; the guard documents it). */
-  updateBooking(trx: Executor, id: string, from: BookingState[], values: Updateable<BookingsTable>) {
-    return trx
-      .updateTable('bookings')
-      .set({ ...values, updated_at: sql`now()` })
-      .where('id', '=', id)
-      .where('state', 'in', from)
-      .returningAll()
-      .executeTakeFirst();
-  }
-
-  insertEvent(
-    trx: Executor,
-    event: {
-      bookingId: string;
-      from: BookingState | null;
-      to: BookingState;
-      actorId: string | null;
-      actorLabel: string;
-      note: string;
-      visibility: 'player' | 'internal';
-    },
-  ) {
-    return trx
-      .insertInto('booking_events')
-      .values({
-        booking_id: event.bookingId,
-        from_state: event.from,
-        to_state: event.to,
-        actor_id: event.actorId,
-        actor_label: event.actorLabel,
-        note: event.note,
-        visibility: event.visibility,
-      })
-      .returning(['id', 'created_at'])
-      .executeTakeFirstOrThrow();
-  }
-
-  insertQuote(trx: Executor, values: Insertable<QuotesTable>) {
-    return trx.insertInto('quotes').values(values).returningAll().executeTakeFirstOrThrow();
-  }
-
-  latestFirmQuote(trx: Executor, bookingId: string) {
-    return trx
-      .selectFrom('quotes')
-      .selectAll()
-      .where('booking_id', '=', bookingId)
-      .where('kind', '=', 'firm')
-      .orderBy('created_at', 'desc')
-      .limit(1)
-      .executeTakeFirst();
-  }
-
-  payments(trx: Executor, bookingId: string) {
-    return trx.selectFrom('payments').selectAll().where('booking_id', '=', bookingId).orderBy('created_at').execute();
-  }
 
   builderByUser(trx: Executor, userId: string) {
     return trx.selectFrom('builders').select(['id', 'level']).where('user_id', '=', userId).executeTakeFirst();
@@ -123,12 +49,20 @@ export class BuildsRepository {
       .executeTakeFirstOrThrow();
   }
 
-  timeEntries(trx: Executor, bookingId: string) {
+  /**
+   * Hour entries with who worked them and who wrote them down, as every reader names them: `t` the entry,
+   * `tb` the builder's row, `tu` the builder's account, `w` the account that recorded it. Callers add columns.
+   */
+  timeEntriesWithPeople(trx: Executor = this.db) {
     return trx
       .selectFrom('time_entries as t')
-      .innerJoin('builders as b', 'b.id', 't.builder_id')
-      .innerJoin('users as u', 'u.id', 'b.user_id')
-      .leftJoin('users as w', 'w.id', 't.created_by')
+      .innerJoin('builders as tb', 'tb.id', 't.builder_id')
+      .innerJoin('users as tu', 'tu.id', 'tb.user_id')
+      .leftJoin('users as w', 'w.id', 't.created_by');
+  }
+
+  timeEntries(trx: Executor, bookingId: string) {
+    return this.timeEntriesWithPeople(trx)
       .select([
         't.id',
         't.worked_on',
@@ -138,10 +72,10 @@ export class BuildsRepository {
         't.updated_at',
         't.created_by',
         'w.name as created_by_name',
-        'b.id as builder_id',
-        'b.user_id',
-        'b.level',
-        'u.name',
+        'tb.id as builder_id',
+        'tb.user_id',
+        'tb.level',
+        'tu.name',
       ])
       .where('t.booking_id', '=', bookingId)
       .orderBy('t.worked_on')

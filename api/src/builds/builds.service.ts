@@ -20,12 +20,14 @@ import { actorOf, BookingsService } from '../bookings/bookings.service';
 import { balanceLetterData } from '../mail/balance-letter';
 import { MailService } from '../mail/mail.service';
 import { formatMoney as formatMoneyWords } from '../mail/templates/format';
-import { dayWords, shopFormatOf } from '../common/shop-voice';
+import { dayWords } from '../common/shop-voice';
+import { ShopRepository } from '../shop/shop.repository';
 import { PaymentsService } from '../payments/payments.service';
 import { deliveryHold } from '../bookings/booking-view';
 import { BuildHistory, stateWords } from './build-history';
 import { inBenchTransaction } from './bench-transaction';
 import { BuildsRepository } from './builds.repository';
+import { BookingsRepository } from '../bookings/bookings.repository';
 import { firmQuoteFigures } from './firm-quote';
 import { whatToShip } from './what-to-ship';
 
@@ -76,6 +78,8 @@ export class BuildsService {
   constructor(
     private readonly db: Database,
     private readonly builds: BuildsRepository,
+    private readonly bookingRows: BookingsRepository,
+    private readonly shopRows: ShopRepository,
     private readonly bench: BenchService,
     private readonly history: BuildHistory,
     private readonly mail: MailService,
@@ -89,7 +93,7 @@ export class BuildsService {
 
   private async acceptIn(trx: Executor, user: AuthUser, bookingId: string, dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
     // Lock order is always booking, then builder, so concurrent acceptances cannot deadlock.
-    const booking = await this.builds.lockBooking(trx, bookingId);
+    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     if (booking.state !== 'deposit_paid') {
       throw new ConflictException(
@@ -107,7 +111,7 @@ export class BuildsService {
     this.bench.assertBenchDate(booking.state, dto.benchDate, this.bench.calendarOf(builder, shop), shop, plan);
     await this.bench.allocate(trx, bookingId, builder, shop, plan);
 
-    const payments = await this.builds.payments(trx, bookingId);
+    const payments = await this.bookingRows.paymentsFor(bookingId, trx);
     const depositPaid = payments.find((p) => p.kind === 'deposit' && p.status === 'paid')?.amount ?? facts.deposit;
     const figures = firmQuoteFigures({
       hourlyRate: builder.hourly_rate,
@@ -117,7 +121,7 @@ export class BuildsService {
     });
     const est = facts.estimateQuote;
     const aboveQuoted = new Decimal(figures.total).gt(facts.quotedHigh);
-    const firm = await this.builds.insertQuote(trx, {
+    const firm = await this.bookingRows.insertQuote(trx, {
       booking_id: bookingId,
       kind: 'firm',
       price_book_version: est.price_book_version,
@@ -136,8 +140,10 @@ export class BuildsService {
       expires_at: new Date(Date.parse(`${addDays(plan.expectedCompletion, 365)}T00:00:00Z`)),
     });
 
+    // The balance from the money facts with the new firm quote in place: the one place a balance is worked out.
+    const { balanceDue } = await this.bookings.moneyFacts(bookingId, trx);
     const shipBy = shipByDate(plan.benchDate, shop);
-    const voice = await shopFormatOf(trx);
+    const voice = await this.shopRows.formatOf(trx);
     const formatDay = (day: string) => dayWords(voice, day);
     const levelNote = belowLevel ? ` Level override: ${dto.levelOverrideReason!.trim()}` : '';
     await this.history.move(
@@ -171,7 +177,7 @@ export class BuildsService {
         builderName: builder.name,
         firmTotal: figures.total,
         deposit: depositPaid,
-        balanceDue: figures.balanceDue,
+        balanceDue: balanceDue ?? figures.balanceDue,
         currency: facts.currency,
         whatToShip: whatToShip(booking.configuration),
         quotedHigh: facts.quotedHigh,
@@ -196,7 +202,7 @@ export class BuildsService {
         materialsTotal: new Decimal(facts.materialsTotal).toFixed(2),
         total: figures.total,
         deposit: depositPaid,
-        balanceDue: figures.balanceDue,
+        balanceDue: balanceDue ?? figures.balanceDue,
         currency: facts.currency,
       },
     };
@@ -204,7 +210,7 @@ export class BuildsService {
 
   async decline(user: AuthUser, bookingId: string, reason: string): Promise<BookingDetail> {
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.builds.lockBooking(trx, bookingId);
+      const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');
       if (!['requested', 'deposit_paid'].includes(booking.state)) {
         throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; only a request can be declined.`);
@@ -217,7 +223,7 @@ export class BuildsService {
         decline_reason: reason.trim(),
       });
       // State first, refund second, one transaction: a refused decline never leaves money refunded behind it.
-      const deposit = (await this.builds.payments(trx, bookingId)).find((p) => p.kind === 'deposit' && p.status === 'paid');
+      const deposit = (await this.bookingRows.paymentsFor(bookingId, trx)).find((p) => p.kind === 'deposit' && p.status === 'paid');
       const refunded =
         paid && deposit ? await this.payments.refundDeposit(trx, bookingId, actorOf(user), `Declined: ${reason.trim()}`) : null;
       if (deposit && !refunded) {
@@ -251,7 +257,7 @@ export class BuildsService {
    */
   async changeState(user: AuthUser, bookingId: string, to: BenchState, note = '', tellPlayer = false): Promise<BookingStateResponse> {
     return this.db.transaction().execute(async (trx) => {
-      const booking = await this.builds.lockBooking(trx, bookingId);
+      const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');
       const from = booking.state as BenchState;
       const allowed = benchTransitions[from as BenchState];
@@ -285,7 +291,7 @@ export class BuildsService {
       }
       if (to === 'delivered') {
         // A disputed payment holds delivery until the owner decides (POST /api/bookings/:id/dispute/release).
-        const hold = deliveryHold(await this.builds.payments(trx, bookingId));
+        const hold = deliveryHold(await this.bookingRows.paymentsFor(bookingId, trx));
         if (hold) throw new ConflictException(`Booking ${booking.reference} cannot be delivered yet. ${hold}`);
       }
       const words = note.trim();
@@ -297,7 +303,7 @@ export class BuildsService {
         const { today } = await this.bench.shopCalendar(trx);
         const freed = await this.bench.releaseAfter(trx, bookingId, today);
         if (freed > 0) {
-          const voice = await shopFormatOf(trx);
+          const voice = await this.shopRows.formatOf(trx);
           await this.history.note(
             trx,
             updated,
@@ -344,7 +350,7 @@ export class BuildsService {
 
   async waiveBalance(user: AuthUser, bookingId: string, reason: string): Promise<BookingStateResponse> {
     return this.db.transaction().execute(async (trx) => {
-      const booking = await this.builds.lockBooking(trx, bookingId);
+      const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
       if (!booking) throw new NotFoundException('There is no booking with that id.');
       if (booking.state !== 'ready') {
         throw new ConflictException(
@@ -352,7 +358,7 @@ export class BuildsService {
         );
       }
       if (booking.balance_waived_reason) throw new ConflictException(`The balance of ${booking.reference} is already waived.`);
-      await this.builds.updateBooking(trx, bookingId, ['ready'], { balance_waived_reason: reason.trim() });
+      await this.bookingRows.updateIfIn(trx, bookingId, ['ready'], { balance_waived_reason: reason.trim() });
       await this.history.note(trx, booking, user, `Balance waived: ${reason.trim()}`);
       return { bookingId, state: booking.state, awaitingLayoutApproval: booking.awaiting_layout_approval };
     });

@@ -1,5 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { sql } from 'kysely';
+import { BookingsRepository, quotedHoursOf } from '../bookings/bookings.repository';
 import { Database, type Executor } from '../database/database';
 
 /** States in which a build holds (or held) a place on the bench. */
@@ -7,7 +8,10 @@ const ON_THE_CALENDAR = ['scheduled', 'pedals_received', 'on_bench', 'testing', 
 
 @Injectable()
 export class CalendarFeedsRepository {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly bookings: BookingsRepository,
+  ) {}
 
   /** A feed for the shop and for every builder who has joined; missing ones are made (idempotent). */
   async ensureFeeds(trx: Executor = this.db) {
@@ -49,33 +53,29 @@ export class CalendarFeedsRepository {
 
   /** Builds with a bench date from `since` on, for one builder or the whole shop, with their booked days. */
   builds(builderId: string | null, since: string, trx: Executor = this.db) {
-    let q = trx
-      .selectFrom('bookings as bk')
-      .innerJoin('users as c', 'c.id', 'bk.customer_id')
-      .leftJoin('builders as bl', 'bl.id', 'bk.builder_id')
-      .leftJoin('users as bu', 'bu.id', 'bl.user_id')
+    let q = this.bookings
+      .withPeople(trx)
       .select([
-        'bk.id',
-        'bk.reference',
-        'bk.state',
-        'bk.bench_date',
-        'bk.expected_completion',
-        'bk.calendar_sequence',
-        'bk.updated_at',
+        'b.id',
+        'b.reference',
+        'b.state',
+        'b.bench_date',
+        'b.expected_completion',
+        'b.calendar_sequence',
+        'b.updated_at',
         'c.name as customer_name',
         'bu.name as builder_name',
-        sql<string | null>`(select q.labor_hours::text from quotes q where q.booking_id = bk.id
-                            order by (q.kind = 'firm') desc, q.created_at desc limit 1)`.as('quoted_hours'),
+        quotedHoursOf('b.id').as('quoted_hours'),
         sql<Array<{ day: string; hours: string }>>`coalesce((
           select json_agg(json_build_object('day', a.day, 'hours', (upper(a.hours) - lower(a.hours))::text) order by a.day)
-          from bench_allocations a where a.booking_id = bk.id), '[]'::json)`.as('days'),
+          from bench_allocations a where a.booking_id = b.id), '[]'::json)`.as('days'),
       ])
-      .where(sql<boolean>`bk.state::text in (${sql.join(ON_THE_CALENDAR)})`)
-      .where('bk.bench_date', 'is not', null)
-      .where(sql<boolean>`coalesce(bk.expected_completion, bk.bench_date) >= ${since}::date`)
-      .orderBy('bk.bench_date')
-      .orderBy('bk.reference');
-    if (builderId) q = q.where('bk.builder_id', '=', builderId);
+      .where(sql<boolean>`b.state::text in (${sql.join(ON_THE_CALENDAR)})`)
+      .where('b.bench_date', 'is not', null)
+      .where(sql<boolean>`coalesce(b.expected_completion, b.bench_date) >= ${since}::date`)
+      .orderBy('b.bench_date')
+      .orderBy('b.reference');
+    if (builderId) q = q.where('b.builder_id', '=', builderId);
     return q.execute();
   }
 

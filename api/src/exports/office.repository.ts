@@ -1,5 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { sql, type RawBuilder } from 'kysely';
+import { BookingsRepository, quotedHoursOf } from '../bookings/bookings.repository';
+import { BuildsRepository } from '../builds/builds.repository';
 import { Database, type Executor } from '../database/database';
 
 /** A range of the shop's calendar days, both ends included, read on the shop's wall clock. */
@@ -38,7 +40,11 @@ export interface MoneyMovementRow {
  */
 @Injectable()
 export class OfficeRepository {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly bookings: BookingsRepository,
+    private readonly builds: BuildsRepository,
+  ) {}
 
   shop(trx: Executor = this.db) {
     return trx
@@ -66,48 +72,43 @@ export class OfficeRepository {
   }
 
   private bookingsWithMoney(trx: Executor) {
-    return trx
-      .selectFrom('bookings as b')
-      .innerJoin('users as c', 'c.id', 'b.customer_id')
-      .leftJoin('builders as bl', 'bl.id', 'b.builder_id')
-      .leftJoin('users as bu', 'bu.id', 'bl.user_id')
-      .select([
-        'b.id',
-        'b.reference',
-        'b.created_at',
-        'b.state',
-        'b.bench_date',
-        'b.expected_completion',
-        'b.balance_waived_reason',
-        'c.name as customer_name',
-        sql<string>`c.email::text`.as('customer_email'),
-        'bu.name as builder_name',
-        'bl.level as builder_level',
-        sql<{ currency: string; total_low: string; total_high: string; deposit: string; labor_hours: string } | null>`(
+    return this.bookings.withPeople(trx).select([
+      'b.id',
+      'b.reference',
+      'b.created_at',
+      'b.state',
+      'b.bench_date',
+      'b.expected_completion',
+      'b.balance_waived_reason',
+      'c.name as customer_name',
+      sql<string>`c.email::text`.as('customer_email'),
+      'bu.name as builder_name',
+      'bl.level as builder_level',
+      sql<{ currency: string; total_low: string; total_high: string; deposit: string; labor_hours: string } | null>`(
           select json_build_object('currency', trim(q.currency), 'total_low', q.total_low::text, 'total_high', q.total_high::text,
                                    'deposit', q.deposit::text, 'labor_hours', q.labor_hours::text)
           from quotes q where q.booking_id = b.id and q.kind = 'estimate' order by q.created_at, q.id limit 1)`.as('estimate'),
-        sql<{ currency: string; total: string; labor_hours: string } | null>`(
+      sql<{ currency: string; total: string; labor_hours: string } | null>`(
           select json_build_object('currency', trim(q.currency), 'total', q.total::text, 'labor_hours', q.labor_hours::text)
           from quotes q where q.booking_id = b.id and q.kind = 'firm' order by q.created_at desc, q.id desc limit 1)`.as('firm'),
-        sql<Array<{ amount: string; status: 'proposed' | 'approved' | 'declined' }>>`coalesce((
+      sql<Array<{ amount: string; status: 'proposed' | 'approved' | 'declined' }>>`coalesce((
           select json_agg(json_build_object('amount', e.amount::text, 'status', e.status))
           from booking_extras e where e.booking_id = b.id), '[]'::json)`.as('extras'),
-        sql<
-          Array<{
-            kind: 'deposit' | 'balance';
-            amount: string;
-            status: string;
-            currency: string;
-            paid_at: string | null;
-            refunded_at: string | null;
-          }>
-        >`coalesce((
+      sql<
+        Array<{
+          kind: 'deposit' | 'balance';
+          amount: string;
+          status: string;
+          currency: string;
+          paid_at: string | null;
+          refunded_at: string | null;
+        }>
+      >`coalesce((
           select json_agg(json_build_object('kind', p.kind, 'amount', p.amount::text, 'status', p.status, 'currency', trim(p.currency),
                                             'paid_at', p.paid_at, 'refunded_at', p.refunded_at) order by p.created_at)
           from payments p where p.booking_id = b.id), '[]'::json)`.as('payments'),
-        sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id), 0)::text`.as('recorded_hours'),
-      ]);
+      sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id), 0)::text`.as('recorded_hours'),
+    ]);
   }
 
   /**
@@ -176,20 +177,17 @@ export class OfficeRepository {
 
   /** Hour entries worked on a day in the range. */
   hoursQuery(r: ShopRange, trx: Executor = this.db) {
-    return trx
-      .selectFrom('time_entries as t')
+    return this.builds
+      .timeEntriesWithPeople(trx)
       .innerJoin('bookings as b', 'b.id', 't.booking_id')
-      .innerJoin('builders as bl', 'bl.id', 't.builder_id')
-      .innerJoin('users as bu', 'bu.id', 'bl.user_id')
-      .leftJoin('users as w', 'w.id', 't.created_by')
       .select([
         't.id',
         't.worked_on',
         'b.id as booking_id',
         'b.reference',
-        'bl.id as builder_id',
-        'bu.name as builder_name',
-        'bl.level as builder_level',
+        'tb.id as builder_id',
+        'tu.name as builder_name',
+        'tb.level as builder_level',
         sql<string>`t.hours::text`.as('hours'),
         't.note',
         'w.name as recorded_by',
@@ -205,21 +203,16 @@ export class OfficeRepository {
 
   /** Builds with hour entries worked in the range: quoted hours against the hours in the range and to date. */
   hoursPerBuild(r: ShopRange, trx: Executor = this.db) {
-    return trx
-      .selectFrom('bookings as b')
+    return this.bookings
+      .withPeople(trx)
       .innerJoin('time_entries as t', 't.booking_id', 'b.id')
-      .leftJoin('builders as bl', 'bl.id', 'b.builder_id')
-      .leftJoin('users as bu', 'bu.id', 'bl.user_id')
       .select([
         'b.id',
         'b.reference',
         'b.state',
         'bl.id as builder_id',
         'bu.name as builder_name',
-        sql<string>`coalesce(
-          (select q.labor_hours from quotes q where q.booking_id = b.id and q.kind = 'firm' order by q.created_at desc, q.id desc limit 1),
-          (select q.labor_hours from quotes q where q.booking_id = b.id and q.kind = 'estimate' order by q.created_at, q.id limit 1),
-          0)::text`.as('quoted_hours'),
+        sql<string>`coalesce(${quotedHoursOf('b.id')}, '0')`.as('quoted_hours'),
         sql<string>`coalesce(sum(t.hours) filter (where t.worked_on between ${r.from} and ${r.to}), 0)::text`.as('hours_in_range'),
         sql<string>`sum(t.hours)::text`.as('hours_to_date'),
       ])

@@ -1,15 +1,15 @@
+import { BenchModule } from '../bench/bench.module';
 import { Module } from '@nestjs/common';
 import { AuthModule } from '../auth/auth.module';
 import { MailModule } from '../mail/mail.module';
 import { UsersModule } from '../users/users.module';
 import { InvitationsController } from './invitations.controller';
-import { InvitationsRepository } from './invitations.repository';
 import { InvitationsService } from './invitations.service';
 
 @Module({
-  imports: [AuthModule, UsersModule, MailModule],
+  imports: [AuthModule, UsersModule, MailModule, BenchModule],
   controllers: [InvitationsController],
-  providers: [InvitationsService, InvitationsRepository],
+  providers: [InvitationsService],
   exports: [InvitationsService],
 })
 export class InvitationsModule {}

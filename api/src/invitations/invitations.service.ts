@@ -15,7 +15,7 @@ import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
 import { MailService, type MessageToRenew } from '../mail/mail.service';
 import { toAuthUser, UsersService } from '../users/users.service';
-import { InvitationsRepository } from './invitations.repository';
+import { BenchRepository } from '../bench/bench.repository';
 
 /** A new builder's bench week until the owner changes it: Monday to Friday, 7 hours a day. */
 export const DEFAULT_WEEKLY_HOURS: WeeklyHours = { '1': 7, '2': 7, '3': 7, '4': 7, '5': 7 };
@@ -27,7 +27,7 @@ export class InvitationsService implements OnModuleInit {
     private readonly users: UsersService,
     private readonly tokens: AuthTokensService,
     private readonly mail: MailService,
-    private readonly invitations: InvitationsRepository,
+    private readonly bench: BenchRepository,
     private readonly config: ConfigService<AppConfig, true>,
   ) {}
 
@@ -52,14 +52,13 @@ export class InvitationsService implements OnModuleInit {
             errorResponse('email_taken', 'Someone already has an account with this e-mail; invite a different address.'),
           );
         }
-        const builder = await this.invitations.updateBuilder(existing.id, input, trx);
+        const builder = await this.bench.updateBuilderOfUser(existing.id, input, trx);
         builderId =
-          builder?.id ??
-          (await this.invitations.insertBuilder({ userId: existing.id, ...input, weeklyHours: DEFAULT_WEEKLY_HOURS }, trx)).id;
+          builder?.id ?? (await this.bench.insertBuilder({ userId: existing.id, ...input, weeklyHours: DEFAULT_WEEKLY_HOURS }, trx)).id;
         user = toAuthUser(existing);
       } else {
         const row = await this.users.create({ email: input.email, name: input.name, role: 'builder', passwordHash: null }, trx);
-        builderId = (await this.invitations.insertBuilder({ userId: row.id, ...input, weeklyHours: DEFAULT_WEEKLY_HOURS }, trx)).id;
+        builderId = (await this.bench.insertBuilder({ userId: row.id, ...input, weeklyHours: DEFAULT_WEEKLY_HOURS }, trx)).id;
         user = toAuthUser(row);
       }
       const link = await this.inviteLink(trx, user.id);
@@ -79,7 +78,7 @@ export class InvitationsService implements OnModuleInit {
    */
   async resend(builderId: string, invitedBy: AuthUser): Promise<InvitationResent> {
     return this.db.transaction().execute(async (trx) => {
-      const row = await this.invitations.lockInvitedBuilder(builderId, trx);
+      const row = await this.bench.lockInvitedBuilder(builderId, trx);
       if (!row) throw new NotFoundException('There is no builder with that id on the team.');
       if (row.password_hash) {
         throw new ConflictException(

@@ -236,4 +236,13 @@ export class MailOutboxRepository {
     const rows = far ? await page(true, far.limit, far.offset) : await page(false, filter.pageSize, offset);
     return { rows, total };
   }
+
+  /** How many messages the outbox holds in each state (the metrics' gauge). */
+  countsByState(trx: Executor = this.db) {
+    return trx
+      .selectFrom('mail_outbox')
+      .select(['state', (eb) => eb.fn.countAll<string>().as('n')])
+      .groupBy('state')
+      .execute();
+  }
 }

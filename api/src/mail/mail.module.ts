@@ -12,6 +12,6 @@ import { MailService } from './mail.service';
   imports: [JobsModule, ShopModule],
   controllers: [MailController],
   providers: [MailService, MailOutboxRepository, MailDeliveryService, MailTransport, MailWorker],
-  exports: [MailService, MailDeliveryService],
+  exports: [MailService, MailDeliveryService, MailOutboxRepository],
 })
 export class MailModule {}

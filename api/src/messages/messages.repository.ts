@@ -1,22 +1,21 @@
 import { Injectable } from '@nestjs/common';
 import { sql, type Insertable } from 'kysely';
 import type { MessageSide } from '@loomwright/shared';
+import { BookingsRepository } from '../bookings/bookings.repository';
 import { Database, type Executor, type PhotosTable } from '../database/database';
 
 const otherSide = (side: MessageSide): MessageSide => (side === 'player' ? 'shop' : 'player');
 
 @Injectable()
 export class MessagesRepository {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly bookings: BookingsRepository,
+  ) {}
 
   /** The user id of the builder a booking is assigned to, if any. */
   async assignedBuilderUserId(bookingId: string, trx: Executor = this.db): Promise<string | null> {
-    const row = await trx
-      .selectFrom('bookings')
-      .innerJoin('builders', 'builders.id', 'bookings.builder_id')
-      .select('builders.user_id')
-      .where('bookings.id', '=', bookingId)
-      .executeTakeFirst();
+    const row = await this.bookings.withPeople(trx).select('bl.user_id').where('b.id', '=', bookingId).executeTakeFirst();
     return row?.user_id ?? null;
   }
 
@@ -24,8 +23,9 @@ export class MessagesRepository {
     return trx.insertInto('build_messages').values(values).returning(['id', 'seq', 'created_at']).executeTakeFirstOrThrow();
   }
 
+  /** A message's photo is a row of the booking's photos (the bookings repository writes them). */
   insertPhoto(trx: Executor, values: Insertable<PhotosTable>) {
-    return trx.insertInto('photos').values(values).returning('id').executeTakeFirstOrThrow();
+    return this.bookings.insertPhoto(trx, values);
   }
 
   thread(bookingId: string, trx: Executor = this.db) {
@@ -170,11 +170,8 @@ export class MessagesRepository {
 
   /** Who a notice goes to: the player, or the assigned builder (the shop's address while no builder has the build). */
   noticeRecipients(bookingId: string, trx: Executor = this.db) {
-    return trx
-      .selectFrom('bookings as b')
-      .innerJoin('users as c', 'c.id', 'b.customer_id')
-      .leftJoin('builders as bl', 'bl.id', 'b.builder_id')
-      .leftJoin('users as bu', 'bu.id', 'bl.user_id')
+    return this.bookings
+      .withPeople(trx)
       .select([
         'b.id',
         'b.reference',

@@ -1,8 +1,9 @@
 import { Injectable } from '@nestjs/common';
-import { sql } from 'kysely';
 import { Pool } from 'pg';
 import { collectDefaultMetrics, Counter, Gauge, Histogram, Registry } from 'prom-client';
-import { Database } from '../database/database';
+import { MailOutboxRepository } from '../mail/mail-outbox.repository';
+import { PaymentsRepository } from '../payments/payments.repository';
+import { MetricsRepository } from './metrics.repository';
 
 /**
  * The process's Prometheus metrics (prom-client, text exposition format). Request counts and
@@ -16,10 +17,7 @@ export class MetricsService {
   readonly requests: Counter<'method' | 'route' | 'status'>;
   readonly latency: Histogram<'method' | 'route' | 'status'>;
 
-  constructor(
-    private readonly db: Database,
-    pool: Pool,
-  ) {
+  constructor(pool: Pool, queue: MetricsRepository, outbox: MailOutboxRepository, payments: PaymentsRepository) {
     const registers = [this.registry];
     collectDefaultMetrics({ register: this.registry, prefix: 'loomwright_' });
     this.requests = new Counter({
@@ -57,15 +55,9 @@ export class MetricsService {
       registers,
       async collect() {
         await read(async () => {
-          const exists = await sql<{ t: string | null }>`select to_regclass('pgboss.job')::text as t`.execute(db);
-          if (!exists.rows[0]?.t) return;
-          const rows = await sql<{
-            name: string;
-            state: string;
-            n: string;
-          }>`select name, state::text as state, count(*)::text as n from pgboss.job group by name, state`.execute(db);
+          const rows = await queue.jobsByQueueAndState();
           this.reset();
-          for (const r of rows.rows) this.set({ queue: r.name, state: r.state }, Number(r.n));
+          for (const r of rows) this.set({ queue: r.name, state: r.state }, Number(r.n));
         });
       },
     });
@@ -76,11 +68,7 @@ export class MetricsService {
       registers,
       async collect() {
         await read(async () => {
-          const rows = await db
-            .selectFrom('mail_outbox')
-            .select(['state', (eb) => eb.fn.countAll<string>().as('n')])
-            .groupBy('state')
-            .execute();
+          const rows = await outbox.countsByState();
           this.reset();
           for (const state of ['queued', 'sending', 'sent', 'failed', 'unknown']) this.set({ state }, 0);
           for (const r of rows) this.set({ state: r.state }, Number(r.n));
@@ -94,11 +82,7 @@ export class MetricsService {
       registers,
       async collect() {
         await read(async () => {
-          const rows = await db
-            .selectFrom('payments')
-            .select(['kind', 'status', (eb) => eb.fn.countAll<string>().as('n')])
-            .groupBy(['kind', 'status'])
-            .execute();
+          const rows = await payments.countsByKindAndStatus();
           this.reset();
           for (const r of rows) this.set({ kind: r.kind, outcome: r.status }, Number(r.n));
         });

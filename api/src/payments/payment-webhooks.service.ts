@@ -160,8 +160,8 @@ export class PaymentWebhooksService {
         : undefined;
     const intentId = object ? intentIdOf(object.payment_intent) : null;
     if (!intentId) return undefined;
-    const row = await this.db.selectFrom('payments').select('id').where('payment_intent_id', '=', intentId).executeTakeFirst();
-    if (row) return row.id;
+    const known = await this.payments.idOfIntent(intentId);
+    if (known) return known;
     try {
       return (await this.stripe.paymentIntents.retrieve(intentId)).metadata?.paymentId || undefined;
     } catch (error) {

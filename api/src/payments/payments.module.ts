@@ -12,6 +12,6 @@ import { stripeProvider } from './stripe.provider';
   imports: [BookingsModule, MailModule, ShopModule],
   controllers: [PaymentsController],
   providers: [PaymentsService, PaymentWebhooksService, PaymentsRepository, stripeProvider],
-  exports: [PaymentsService],
+  exports: [PaymentsService, PaymentsRepository],
 })
 export class PaymentsModule {}

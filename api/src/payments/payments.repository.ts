@@ -57,16 +57,6 @@ export class PaymentsRepository {
     return row !== undefined;
   }
 
-  findEstimateDeposit(trx: Executor, bookingId: string) {
-    return trx
-      .selectFrom('quotes')
-      .select(['deposit', 'currency'])
-      .where('booking_id', '=', bookingId)
-      .where('kind', '=', 'estimate')
-      .orderBy('created_at')
-      .executeTakeFirst();
-  }
-
   /** Who hears of money trouble at once: every owner account, else the shop's contact address. */
   async ownerAddresses(trx: Executor): Promise<string[]> {
     const owners = await trx.selectFrom('users').select('email').where('role', '=', 'owner').orderBy('email').execute();
@@ -77,5 +67,24 @@ export class PaymentsRepository {
 
   findCustomer(trx: Executor, userId: string) {
     return trx.selectFrom('users').select(['id', 'name', 'email']).where('id', '=', userId).executeTakeFirstOrThrow();
+  }
+
+  /** The payment that carries a provider intent id, if any. */
+  idOfIntent(intentId: string, trx: Executor = this.db) {
+    return trx
+      .selectFrom('payments')
+      .select('id')
+      .where('payment_intent_id', '=', intentId)
+      .executeTakeFirst()
+      .then((r) => r?.id);
+  }
+
+  /** How many payments there are of each kind and status (the metrics' gauge). */
+  countsByKindAndStatus(trx: Executor = this.db) {
+    return trx
+      .selectFrom('payments')
+      .select(['kind', 'status', (eb) => eb.fn.countAll<string>().as('n')])
+      .groupBy(['kind', 'status'])
+      .execute();
   }
 }

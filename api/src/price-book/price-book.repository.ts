@@ -1,3 +1,4 @@
+import { sql } from 'kysely';
 import { Injectable } from '@nestjs/common';
 import type { PriceBook } from '@loomwright/shared';
 import { Database, Executor } from '../database/database';
@@ -43,5 +44,10 @@ export class PriceBookRepository {
       })
       .returningAll()
       .executeTakeFirstOrThrow();
+  }
+
+  /** Serialises publishers until the transaction ends, so the next number is read and written as one step. */
+  lockPublishing(trx: Executor) {
+    return sql`select pg_advisory_xact_lock(hashtext('price_book_versions'))`.execute(trx);
   }
 }

@@ -1,6 +1,5 @@
 import { ConflictException, Injectable, ServiceUnavailableException } from '@nestjs/common';
 import { errorResponse } from '@loomwright/shared';
-import { sql } from 'kysely';
 import type { Catalog, PriceBook, PriceBookOverview, PriceBookVersionSummary } from '@loomwright/shared';
 import { Database, Executor } from '../database/database';
 import { PriceBookCache } from './price-book-cache';
@@ -87,8 +86,7 @@ export class PriceBookService {
   async publish(book: PriceBook, notes: string, publishedBy: string | null): Promise<PriceBookVersionSummary> {
     try {
       const row = await this.db.transaction().execute(async (trx) => {
-        // Serialises publishers so the next number is read and written as one step.
-        await sql`select pg_advisory_xact_lock(hashtext('price_book_versions'))`.execute(trx);
+        await this.books.lockPublishing(trx);
         const next = (await this.books.latestVersionNumber(trx)) + 1;
         return this.books.insert({ version: next, book, notes, publishedBy }, trx);
       });

@@ -2,32 +2,10 @@ import { Injectable } from '@nestjs/common';
 import { sql } from 'kysely';
 import { Database, type Executor } from '../database/database';
 
-/** The queries of quotes the player keeps: a booking's quote, and how many quotes a person had e-mailed. */
+/** How many quotes a person had e-mailed (a booking's own quote is the bookings repository's `latestQuote`). */
 @Injectable()
 export class QuotesRepository {
   constructor(private readonly db: Database) {}
-
-  /** The newest quote of a booking: a firm one once a builder accepted, else the estimate requested on. */
-  latestOf(bookingId: string, trx: Executor = this.db) {
-    return trx
-      .selectFrom('quotes as q')
-      .innerJoin('bookings as b', 'b.id', 'q.booking_id')
-      .select([
-        'b.reference',
-        'q.kind',
-        'q.price_book_version',
-        'q.configuration',
-        'q.estimate',
-        'q.hourly_rate',
-        'q.total',
-        'q.created_at',
-      ])
-      .where('q.booking_id', '=', bookingId)
-      .orderBy('q.created_at', 'desc')
-      .orderBy('q.kind', 'desc')
-      .limit(1)
-      .executeTakeFirst();
-  }
 
   /** One person's quote e-mails are counted one at a time, so two clicks cannot both pass the limit. */
   lockQuoteMail(trx: Executor, userId: string) {

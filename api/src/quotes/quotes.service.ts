@@ -101,8 +101,8 @@ export class QuotesService {
    * for its player and the shop; a firm price once a builder accepted. Another player's booking is a 404.
    */
   async bookingPdf(user: AuthUser, bookingId: string): Promise<{ reference: string; pdf: Buffer }> {
-    await this.bookings.findVisible(user, bookingId);
-    const quote = await this.quotes.latestOf(bookingId);
+    const { reference } = await this.bookings.findVisible(user, bookingId);
+    const quote = await this.bookings.latestQuote(bookingId);
     if (!quote) throw new NotFoundException('This booking has no quote yet.');
     const published = await this.priceBook.version(quote.price_book_version);
     if (!published) throw new NotFoundException(`Price book version ${quote.price_book_version} of this quote is missing.`);
@@ -116,11 +116,11 @@ export class QuotesService {
       configuration: quote.configuration,
       estimate,
       book: published.book,
-      title: `Build ${quote.reference}`,
+      title: `Build ${reference}`,
       printedAt: new Date(quote.created_at),
       firm: quote.kind === 'firm' && quote.total && quote.hourly_rate ? { total: quote.total, hourlyRate: quote.hourly_rate } : undefined,
     });
-    return { reference: quote.reference, pdf };
+    return { reference, pdf };
   }
 
   /** The shop's name, its voice (locale, currency, time zone) and its paper (Letter or A4 by country) for the PDF. */

@@ -14,6 +14,7 @@ import {
 import { addDays, todayIn } from '../bench/calendar-days';
 import { publicHolidaysBetween } from '../bench/public-holidays';
 import { Database } from '../database/database';
+import { BenchRepository } from '../bench/bench.repository';
 import { SettingsRepository } from './settings.repository';
 
 /** How many of the owner's holiday choices the settings page shows. */
@@ -34,6 +35,7 @@ export class SettingsService {
   constructor(
     private readonly db: Database,
     private readonly settings: SettingsRepository,
+    private readonly bench: BenchRepository,
   ) {}
 
   async get(): Promise<ShopSettingsView> {
@@ -42,8 +44,8 @@ export class SettingsService {
     const country = row.country_code.trim();
     const [closures, choices, history] = await Promise.all([
       this.closures(),
-      this.settings.latestHolidayChoices(this.db, country),
-      this.settings.holidayHistory(this.db, country, HOLIDAY_HISTORY_LINES),
+      this.bench.holidayChoices(this.db, country, { latestPerDay: true }),
+      this.bench.holidayChoices(this.db, country, { newest: HOLIDAY_HISTORY_LINES }),
     ]);
     const worked = new Set(choices.filter((c) => c.shop_works).map((c) => c.day));
     const today = todayIn(row.timezone);
@@ -104,12 +106,12 @@ export class SettingsService {
       const country = row.country_code.trim();
       const name = publicHolidaysBetween(country, day, day).get(day);
       if (!name) throw new BadRequestException(shopWords.notAHoliday(day, country));
-      await this.settings.lockHolidayDay(trx, country, day);
-      const latest = (await this.settings.latestHolidayChoices(trx, country)).find((c) => c.day === day);
+      await this.bench.lockHolidayDay(trx, country, day);
+      const latest = (await this.bench.holidayChoices(trx, country, { latestPerDay: true })).find((c) => c.day === day);
       const current: HolidayChoiceView = latest ? choiceView(latest) : { day, name, shopWorks: false, decidedBy: null, decidedAt: '' };
       let view = current;
       if (current.shopWorks !== dto.shopWorks) {
-        const inserted = await this.settings.insertHolidayChoice(trx, {
+        const inserted = await this.bench.insertHolidayChoice(trx, {
           countryCode: country,
           day,
           name,
@@ -118,20 +120,20 @@ export class SettingsService {
         });
         view = choiceView({ ...inserted, decided_by_name: user.name });
       }
-      const affected = dto.shopWorks ? [] : await this.settings.buildsWithBenchTimeBetween(trx, day, day);
+      const affected = dto.shopWorks ? [] : await this.bench.buildsWithBenchTimeBetween(trx, day, day);
       return { ...view, buildsOnBenchThen: affected.map((a) => ({ bookingId: a.id, reference: a.reference, days: a.days })) };
     });
   }
 
   async closures(): Promise<ShopClosureView[]> {
-    return (await this.settings.closures()).map((c) => ({ id: c.id, startsOn: c.starts_on, endsOn: c.ends_on, reason: c.reason }));
+    return (await this.bench.closures()).map((c) => ({ id: c.id, startsOn: c.starts_on, endsOn: c.ends_on, reason: c.reason }));
   }
 
   /** Adds a closure; builds already on the bench in those days are listed so the shop can move them. */
   async addClosure(dto: CreateClosureInput): Promise<AddClosureResponse> {
     return this.db.transaction().execute(async (trx) => {
-      const row = await this.settings.insertClosure(trx, { startsOn: dto.startsOn, endsOn: dto.endsOn, reason: dto.reason });
-      const affected = await this.settings.buildsWithBenchTimeBetween(trx, dto.startsOn, dto.endsOn);
+      const row = await this.bench.insertClosure(trx, { startsOn: dto.startsOn, endsOn: dto.endsOn, reason: dto.reason });
+      const affected = await this.bench.buildsWithBenchTimeBetween(trx, dto.startsOn, dto.endsOn);
       return {
         id: row.id,
         startsOn: row.starts_on,
@@ -143,7 +145,7 @@ export class SettingsService {
   }
 
   async deleteClosure(id: string): Promise<void> {
-    const deleted = await this.settings.deleteClosure(this.db, id);
+    const deleted = await this.bench.deleteClosure(this.db, id);
     if (!deleted) throw new NotFoundException('There is no closure with that id.');
   }
 }

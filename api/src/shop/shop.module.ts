@@ -3,5 +3,5 @@ import { ShopController } from './shop.controller';
 import { ShopRepository } from './shop.repository';
 import { ShopService } from './shop.service';
 
-@Module({ controllers: [ShopController], providers: [ShopService, ShopRepository], exports: [ShopService] })
+@Module({ controllers: [ShopController], providers: [ShopService, ShopRepository], exports: [ShopService, ShopRepository] })
 export class ShopModule {}

@@ -11,6 +11,7 @@ import type {
 } from '@loomwright/shared';
 import { daysBetween } from '../bench/calendar-days';
 import { Database } from '../database/database';
+import { BenchRepository } from '../bench/bench.repository';
 import { TeamRepository } from './team.repository';
 
 /** The days a builder works: a day of 0 hours is left out, as a day off. */
@@ -23,6 +24,7 @@ export class TeamService {
   constructor(
     private readonly db: Database,
     private readonly team: TeamRepository,
+    private readonly bench: BenchRepository,
   ) {}
 
   /**
@@ -59,13 +61,13 @@ export class TeamService {
       ...(body.weeklyHours !== undefined && { weekly_hours: JSON.stringify(workingDays(body.weeklyHours)) }),
       ...(body.active !== undefined && { active: body.active }),
     };
-    const updated = await this.team.update(this.db, builderId, values);
+    const updated = await this.bench.updateBuilder(this.db, builderId, values);
     if (!updated) throw new NotFoundException('There is no builder with that id on the team.');
     return (await this.list(viewer)).find((m) => m.id === builderId)!;
   }
 
   async absences(): Promise<BuilderAbsenceView[]> {
-    return (await this.team.absences()).map(absenceView);
+    return (await this.bench.absences()).map(absenceView);
   }
 
   /** A builder's days away; builds already on their bench then are listed so the shop can move them. */
@@ -75,14 +77,14 @@ export class TeamService {
     return this.db.transaction().execute(async (trx) => {
       const builder = (await this.team.list(trx)).find((b) => b.id === builderId);
       if (!builder) throw new NotFoundException('There is no builder with that id.');
-      const row = await this.team.insertAbsence(trx, { builderId, ...input });
-      const hit = await this.team.buildsOfBuilderBetween(trx, builderId, input.startsOn, input.endsOn);
+      const row = await this.bench.insertAbsence(trx, { builderId, ...input });
+      const hit = await this.bench.buildsWithBenchTimeBetween(trx, input.startsOn, input.endsOn, builderId);
       return { ...absenceView(row), buildsOnBenchThen: hit.map((h) => ({ bookingId: h.id, reference: h.reference, days: h.days })) };
     });
   }
 
   async deleteAbsence(id: string): Promise<void> {
-    if (!(await this.team.deleteAbsence(this.db, id))) throw new NotFoundException('There is no absence with that id.');
+    if (!(await this.bench.deleteAbsence(this.db, id))) throw new NotFoundException('There is no absence with that id.');
   }
 }
 

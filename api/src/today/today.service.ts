@@ -1,6 +1,5 @@
-import { ForbiddenException, Injectable } from '@nestjs/common';
+import { ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
-import { sql } from 'kysely';
 import {
   shopFormat,
   todayWords,
@@ -11,13 +10,12 @@ import {
   type TodayWaitKind,
 } from '@loomwright/shared';
 import { addDays, todayIn } from '../bench/calendar-days';
-import { Database } from '../database/database';
 import { bookingMoney } from '../exports/booking-money';
 import { OfficeRepository } from '../exports/office.repository';
 import { mondayOf } from '../reports/iso-week';
+import { ShopRepository } from '../shop/shop.repository';
+import { TodayRepository } from './today.repository';
 
-/** States in which a build is the bench's business: booked in, being built, or built and not yet gone. */
-const ACTIVE_STATES = ['scheduled', 'pedals_received', 'on_bench', 'testing', 'ready'] as const;
 const WORKING_STATES = new Set(['pedals_received', 'on_bench', 'testing']);
 const h = (value: Decimal.Value) => new Decimal(value).toFixed(2);
 
@@ -29,75 +27,24 @@ const h = (value: Decimal.Value) => new Decimal(value).toFixed(2);
 @Injectable()
 export class TodayService {
   constructor(
-    private readonly db: Database,
+    private readonly rowsOf: TodayRepository,
     private readonly office: OfficeRepository,
+    private readonly shop: ShopRepository,
   ) {}
 
   async today(user: AuthUser, query: TodayQuery, now = new Date()): Promise<TodayResponse> {
     if (user.role !== 'owner' && query.scope === 'all') throw new ForbiddenException(todayWords.ownerOnlyAll);
     const scope = query.scope ?? (user.role === 'owner' ? 'all' : 'mine');
-    const shop = await this.db
-      .selectFrom('shop_settings')
-      .select(['timezone', 'locale', 'currency'])
-      .where('id', '=', 1)
-      .executeTakeFirstOrThrow();
+    const shop = await this.shop.findSettings();
+    if (!shop) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
     const format = shopFormat({ locale: shop.locale, currency: shop.currency, timeZone: shop.timezone });
     const today = todayIn(shop.timezone, now);
     const weekStart = mondayOf(today);
     const weekEnd = addDays(weekStart, 6);
-    const own = await this.db.selectFrom('builders').select('id').where('user_id', '=', user.id).executeTakeFirst();
+    const own = await this.rowsOf.builderIdOf(user.id);
     const base = { today, weekStart, weekEnd, scope, hasOwnBench: own !== undefined } as const;
     if (scope === 'mine' && !own) return { ...base, builds: [] };
-
-    let q = this.db
-      .selectFrom('bookings as b')
-      .innerJoin('users as c', 'c.id', 'b.customer_id')
-      .leftJoin('builders as bl', 'bl.id', 'b.builder_id')
-      .leftJoin('users as bu', 'bu.id', 'bl.user_id')
-      .select([
-        'b.id',
-        'b.reference',
-        'b.state',
-        'b.builder_id',
-        'b.inbound_carrier',
-        'b.inbound_tracking',
-        'b.awaiting_layout_approval',
-        'c.name as customer_name',
-        'bu.name as builder_name',
-        sql<Array<{ day: string; hours: string }>>`coalesce((
-          select json_agg(json_build_object('day', a.day::text, 'hours', (upper(a.hours) - lower(a.hours))::text) order by a.day)
-          from bench_allocations a where a.booking_id = b.id and a.day between ${weekStart}::date and ${weekEnd}::date), '[]'::json)`.as(
-          'bench_days',
-        ),
-        sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id and t.worked_on = ${today}::date), 0)::text`.as(
-          'recorded_today',
-        ),
-        sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id), 0)::text`.as('recorded_hours'),
-        sql<string | null>`coalesce(
-          (select q.labor_hours::text from quotes q where q.booking_id = b.id and q.kind = 'firm' order by q.created_at desc, q.id desc limit 1),
-          (select q.labor_hours::text from quotes q where q.booking_id = b.id and q.kind = 'estimate' order by q.created_at, q.id limit 1))`.as(
-          'quoted_hours',
-        ),
-        sql<number>`(select count(*)::int from layout_approvals la where la.booking_id = b.id and la.status = 'waiting')`.as(
-          'waiting_layouts',
-        ),
-        sql<number>`(select count(*)::int from booking_extras e where e.booking_id = b.id and e.status = 'proposed')`.as('proposed_extras'),
-      ])
-      .where(sql<boolean>`b.state::text in (${sql.join([...ACTIVE_STATES])})`)
-      .where(({ or, eb, exists, selectFrom }) =>
-        or([
-          eb('b.state', '=', 'ready'),
-          exists(
-            selectFrom('bench_allocations as a')
-              .select(sql`1`.as('one'))
-              .whereRef('a.booking_id', '=', 'b.id')
-              .where('a.day', '>=', weekStart)
-              .where('a.day', '<=', weekEnd),
-          ),
-        ]),
-      );
-    if (scope === 'mine') q = q.where('b.builder_id', '=', own!.id);
-    const rows = await q.orderBy('b.reference').execute();
+    const rows = await this.rowsOf.builds({ today, start: weekStart, end: weekEnd }, scope === 'mine' ? own!.id : undefined);
 
     // The balance of each ready build, from the same money facts the build page and the exports use.
     const readyIds = new Set(rows.filter((r) => r.state === 'ready').map((r) => r.id));
