@@ -42,7 +42,7 @@ export const storefrontDist = path.join(repoRoot, 'storefront', 'dist');
  * Vite names every built script and style by its content hash, so a browser may keep them for a
  * year; index.html, which names the current ones, is asked for again each time.
  */
-function cacheHashedAssets(res: { setHeader(name: string, value: string): void }, filePath: string) {
+export function cacheHashedAssets(res: { setHeader(name: string, value: string): void }, filePath: string) {
   if (filePath.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
   else res.setHeader('Cache-Control', 'no-cache');
 }

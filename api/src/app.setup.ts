@@ -3,7 +3,8 @@ import { ConfigService } from '@nestjs/config';
 import { SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
 import cookieParser from 'cookie-parser';
-import { storefrontDist } from './app.module';
+import path from 'node:path';
+import { cacheHashedAssets, storefrontDist } from './app.module';
 import { applyBodyParsing } from './common/body-parsing';
 import { ApiExceptionFilter } from './common/api-exception.filter';
 import { customerContact } from './bookings/customer-contact.interceptor';
@@ -13,6 +14,7 @@ import { HTTP_LOGGER, httpLogging } from './logging/logging.module';
 import { MetricsService } from './metrics/metrics.service';
 import { securityHeaders } from './security/security-headers';
 import { storefrontNotFound } from './storefront/storefront-not-found';
+import { precompressedAssets } from './storefront/storefront-pages';
 
 /**
  * Everything main.ts and the API tests both need, so tests exercise the app as it runs.
@@ -33,7 +35,10 @@ export function configureApp(app: INestApplication): INestApplication {
   // may do it instead.
   app.use(compression());
   // Unknown storefront addresses answer 404 (with the app's own "not found" page), not the SPA's 200.
-  if (process.env.SERVE_APPS !== 'false') app.use(storefrontNotFound(storefrontDist));
+  if (process.env.SERVE_APPS !== 'false') {
+    app.use(storefrontNotFound(storefrontDist));
+    app.use('/assets', precompressedAssets(path.join(storefrontDist, 'assets'), cacheHashedAssets));
+  }
   applyBodyParsing(app);
   app.use(cookieParser());
   // A builder's answers show only their own customers' e-mail addresses, on every route.

@@ -1,12 +1,14 @@
 import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
+import { brotliCompressSync, gzipSync } from 'node:zlib';
 import path from 'node:path';
+import compression from 'compression';
 import express from 'express';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { storefrontPaths } from '@loomwright/shared';
 import { storefrontNotFound } from '../src/storefront/storefront-not-found';
-import { storefrontPageFiles } from '../src/storefront/storefront-pages';
+import { precompressedAssets, storefrontPageFiles } from '../src/storefront/storefront-pages';
 
 // RFC 9110 §15.5.5: 404 says the server has no current representation for the target. A single-page
 // app that answers 200 to every address makes each typo a "soft 404" to browsers and crawlers.
@@ -71,5 +73,62 @@ describe('pages with their own copy of index.html', () => {
     expect((await request(app).get('/builds/4f1c2d7e-0000-4000-8000-000000000000').expect(200)).text).toBe('index');
     await request(app).get('/home').set('Accept', 'text/html').expect(404);
     await request(app).get('/index').set('Accept', 'text/html').expect(404);
+  });
+});
+
+// RFC 9110 §8.4 (Content-Encoding) and §12.5.5 (Vary): a precompressed copy is sent only to a client
+// whose Accept-Encoding names its coding, labelled with it; anyone else gets the plain file.
+describe('precompressed scripts', () => {
+  const assets = mkdtempSync(path.join(tmpdir(), 'lw-assets-'));
+  const plain = 'export const greeting = "hello from the bench";\n'.repeat(40);
+  writeFileSync(path.join(assets, 'index-abc.js'), plain);
+  writeFileSync(path.join(assets, 'index-abc.js.br'), brotliCompressSync(plain));
+  writeFileSync(path.join(assets, 'index-abc.js.gz'), gzipSync(plain, { level: 9 }));
+  writeFileSync(path.join(assets, 'tiny-abc.js'), 'export {};\n');
+  const app = express();
+  app.use(compression());
+  app.use(
+    '/assets',
+    precompressedAssets(assets, (res) => res.setHeader('Cache-Control', 'public, max-age=31536000, immutable')),
+  );
+  afterAll(() => rmSync(assets, { recursive: true, force: true }));
+  // supertest buffers text only; a compressed body is collected as it arrives.
+  const binary: Parameters<request.Test['parse']>[0] = (res, done: (error: Error | null, body: Buffer) => void) => {
+    const stream = res as unknown as NodeJS.ReadableStream;
+    const parts: Buffer[] = [];
+    stream.on('data', (part: Buffer) => parts.push(part));
+    stream.on('end', () => done(null, Buffer.concat(parts)));
+  };
+
+  it('sends the brotli copy to a browser that accepts br, byte for byte, with its type and Vary', async () => {
+    const res = await request(app)
+      .get('/assets/index-abc.js')
+      .set('Accept-Encoding', 'gzip, deflate, br, zstd')
+      .buffer(true)
+      .parse(binary)
+      .expect(200);
+    expect(res.headers['content-encoding']).toBe('br');
+    expect(res.headers['content-type']).toMatch(/javascript/);
+    expect(res.headers.vary).toMatch(/Accept-Encoding/i);
+    expect(res.headers['cache-control']).toContain('immutable');
+    // The bytes on the wire are the build's .br file (supertest decodes the body it hands back).
+    expect(Number(res.headers['content-length'])).toBe(brotliCompressSync(plain).length);
+    expect((res.body as Buffer).toString()).toBe(plain);
+  });
+
+  it('sends the gzip copy when only gzip is accepted, and the plain file when nothing is', async () => {
+    const gz = await request(app).get('/assets/index-abc.js').set('Accept-Encoding', 'gzip').buffer(true).parse(binary).expect(200);
+    expect(gz.headers['content-encoding']).toBe('gzip');
+    expect(Number(gz.headers['content-length'])).toBe(gzipSync(plain, { level: 9 }).length);
+    expect((gz.body as Buffer).toString()).toBe(plain);
+    const none = await request(app).get('/assets/index-abc.js').set('Accept-Encoding', 'identity').buffer(true).parse(binary).expect(200);
+    expect(none.headers['content-encoding']).toBeUndefined();
+    expect((none.body as Buffer).toString()).toBe(plain);
+  });
+
+  it('serves a file without copies as it is, and a missing file falls through', async () => {
+    const res = await request(app).get('/assets/tiny-abc.js').set('Accept-Encoding', 'br').expect(200);
+    expect(res.headers['content-encoding']).toBeUndefined();
+    await request(app).get('/assets/gone-abc.js').set('Accept-Encoding', 'br').expect(404);
   });
 });
