@@ -6,6 +6,7 @@ import { BookingsService } from '../bookings/bookings.service';
 import { moneyOf } from '../common/shop-voice';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
+import { retryOnDeadlock } from '../database/retry-on-deadlock';
 import { MailService } from '../mail/mail.service';
 import { ShopService } from '../shop/shop.service';
 import { PaymentsRepository, type PaymentRow } from './payments.repository';
@@ -111,40 +112,46 @@ export class PaymentWebhooksService {
         : '';
     const failure = event.type === 'checkout.session.async_payment_failed' ? await this.intentFailure(event.data.object) : '';
     const known = await this.paymentOfIntent(event);
-    const fresh = await this.db.transaction().execute(async (trx) => {
-      if (!(await this.payments.recordEvent(trx, { id: event.id, type: event.type, payload: event }))) return false;
-      switch (event.type) {
-        case 'checkout.session.completed':
-        case 'checkout.session.async_payment_succeeded':
-          await this.sessionSettled(trx, event.data.object, shopEmail);
-          break;
-        case 'checkout.session.async_payment_failed':
-          await this.sessionFailed(trx, event.data.object, failure);
-          break;
-        case 'checkout.session.expired':
-          await this.sessionExpired(trx, event.data.object);
-          break;
-        case 'payment_intent.payment_failed':
-          await this.paymentFailed(trx, event.data.object);
-          break;
-        case 'refund.created':
-        case 'refund.updated':
-        case 'refund.failed':
-        case 'charge.refund.updated':
-          await this.refundChanged(trx, event.data.object, known);
-          break;
-        case 'charge.dispute.created':
-        case 'charge.dispute.updated':
-        case 'charge.dispute.closed':
-          await this.disputeChanged(trx, event.data.object, known);
-          break;
-        default:
-          // Recorded, nothing to do (payment_intent.succeeded, charge.refunded, …): the events
-          // above carry every change Loomwright keeps.
-          break;
-      }
-      return true;
-    });
+    // A webhook locks its payment before the booking while the shop's own actions lock the booking
+    // first (and a deposit's change writes the booking's deposit word by trigger), so the two can
+    // deadlock. PostgreSQL then rolls one back whole, the event's record included: trying the event
+    // again is safe (a refund inside is idempotent by its key), and the provider needn't redeliver.
+    const fresh = await retryOnDeadlock(() =>
+      this.db.transaction().execute(async (trx) => {
+        if (!(await this.payments.recordEvent(trx, { id: event.id, type: event.type, payload: event }))) return false;
+        switch (event.type) {
+          case 'checkout.session.completed':
+          case 'checkout.session.async_payment_succeeded':
+            await this.sessionSettled(trx, event.data.object, shopEmail);
+            break;
+          case 'checkout.session.async_payment_failed':
+            await this.sessionFailed(trx, event.data.object, failure);
+            break;
+          case 'checkout.session.expired':
+            await this.sessionExpired(trx, event.data.object);
+            break;
+          case 'payment_intent.payment_failed':
+            await this.paymentFailed(trx, event.data.object);
+            break;
+          case 'refund.created':
+          case 'refund.updated':
+          case 'refund.failed':
+          case 'charge.refund.updated':
+            await this.refundChanged(trx, event.data.object, known);
+            break;
+          case 'charge.dispute.created':
+          case 'charge.dispute.updated':
+          case 'charge.dispute.closed':
+            await this.disputeChanged(trx, event.data.object, known);
+            break;
+          default:
+            // Recorded, nothing to do (payment_intent.succeeded, charge.refunded, …): the events
+            // above carry every change Loomwright keeps.
+            break;
+        }
+        return true;
+      }),
+    );
     return { received: true, duplicate: !fresh };
   }
 
