@@ -165,10 +165,13 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const past = await move('2020-01-06');
     expect(past.status).toBe(400);
     expect(past.body.message).toMatch(/in the past/);
+    // Each refusal carries its own code, so the backoffice can say which date to pick without reading the words.
+    expect(past.body.code).toBe('bench_date_in_past');
     // Tomorrow: the pedals would have to have arrived three shop working days ago (common practice, no published source).
     const tooSoon = await move(addDays(today, 1));
     expect(tooSoon.status).toBe(400);
     expect(tooSoon.body.message).toMatch(/^Too soon to ship: the pedals would have to arrive by .*, which has passed/);
+    expect(tooSoon.body.code).toBe('too_soon_to_ship');
     await owner
       .post('/api/settings/closures')
       .send({ startsOn: addDays(monday, 3), endsOn: addDays(monday, 3), reason: 'stocktake' })
@@ -176,9 +179,11 @@ describe('when plans change on the bench: move, reassign, cancel, closures and r
     const closed = await move(addDays(monday, 3));
     expect(closed.status).toBe(409);
     expect(closed.body.message).toMatch(/no free bench time on .*: Shop closed: stocktake/);
+    expect(closed.body.code).toBe('bench_day_closed');
     const saturday = await move(addDays(monday, 5));
     expect(saturday.status).toBe(409);
     expect(saturday.body.message).toMatch(/Day off/);
+    expect(saturday.body.code).toBe('bench_day_closed');
     // Bad input is a 400 naming the field, from the shared schema.
     const bad = await master
       .post(`/api/bookings/${b.id}/reschedule`)

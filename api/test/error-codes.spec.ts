@@ -2,7 +2,7 @@ import { apiErrorBodySchema, ERROR_CODES, errorCodes, type ErrorCode } from '@lo
 import type { Request } from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorBody } from '../src/common/error-body';
-import { DEMO_PASSWORD, signIn } from './support/bench-fixtures';
+import { builderId, createBooking, DEMO_PASSWORD, quietMondayWeeksAhead, signIn } from './support/bench-fixtures';
 import { createTestApp, type TestApp } from './support/test-app';
 
 /**
@@ -96,6 +96,24 @@ describe('error codes', () => {
       400,
       'link_invalid',
     );
+  });
+
+  it('tells a cancellation that comes too late, and a payment when nothing is due, from other conflicts', async () => {
+    const [player, master] = await Promise.all([signIn(t.app, 'player@mail.example'), signIn(t.app, 'builder@shop.example')]);
+    const b = await createBooking(t.db, { laborHours: '3.00' });
+    await master
+      .post(`/api/bookings/${b.id}/accept`)
+      .send({ builderId: await builderId(t.db, 'builder@shop.example'), benchDate: quietMondayWeeksAhead(4) })
+      .expect(200);
+    // Scheduled: the player's own cancel is over (the shop cancels from here); nothing is due until the build is ready.
+    const late = expectCode(
+      await player.post(`/api/bookings/${b.id}/cancel`).send({ reason: 'Plans changed.' }),
+      409,
+      'too_late_to_cancel',
+    );
+    expect(late.message).toMatch(/until the shop schedules it/);
+    expectCode(await player.post(`/api/bookings/${b.id}/checkout`).set('Content-Type', 'application/json'), 409, 'nothing_due');
+    expect((await t.db.selectFrom('bookings').select('state').where('id', '=', b.id).executeTakeFirstOrThrow()).state).toBe('scheduled');
   });
 
   it('builds the body from any exception response, and never lets an unlisted code out', () => {

@@ -52,6 +52,9 @@ interface Operation {
   parameters: Parameter[];
   body?: { contentType: string; schema: Schema };
 }
+/** The codes the document lists for one operation, per 4xx status. */
+type DocumentedCodes = Map<string, Map<number, Set<string>>>;
+
 interface Sample {
   path: Record<string, string>;
   query: Record<string, string>;
@@ -193,6 +196,23 @@ function sampleFor(op: Operation, ids: string[]): fc.Arbitrary<Sample> {
   return fc.record({ path, query, body });
 }
 
+/** "get /api/bookings/{id}" → status → the codes its error answer's schema names (`code.enum`). */
+function documentedCodesOf(document: {
+  paths: Record<string, Record<string, { responses?: Record<string, { content?: Record<string, { schema?: Schema }> }> }>>;
+}): DocumentedCodes {
+  const out: DocumentedCodes = new Map();
+  for (const [path, item] of Object.entries(document.paths))
+    for (const [method, op] of Object.entries(item)) {
+      const byStatus = new Map<number, Set<string>>();
+      for (const [status, answer] of Object.entries(op.responses ?? {})) {
+        const codes = answer.content?.['application/json']?.schema?.properties?.code?.enum;
+        if (/^4\d\d$/.test(status) && codes) byStatus.set(Number(status), new Set(codes.map(String)));
+      }
+      out.set(`${method} ${path}`, byStatus);
+    }
+  return out;
+}
+
 /** Reads the operations of the served OpenAPI 3.0 document. */
 function operationsOf(document: {
   paths: Record<string, Record<string, { parameters?: Parameter[]; requestBody?: { content: Record<string, { schema: Schema }> } }>>;
@@ -221,6 +241,9 @@ function urlOf(op: Operation, sample: Sample): string {
   return query ? `${path}?${query}` : path;
 }
 
+/** Each 4xx answer whose status or code the operation's documentation does not list, once per kind. */
+const undocumented = new Map<string, string>();
+
 /** Each distinct 4xx message and one request that drew it. */
 const refusals = new Map<string, string>();
 function keepRefusal(body: unknown, request: string): void {
@@ -239,12 +262,14 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
   let t: TestApp;
   let operations: Operation[];
   let ids: string[];
+  let documented: DocumentedCodes;
 
   beforeAll(async () => {
     console.log(`fuzz: seed ${SEED}, ${RUNS} runs per operation and caller (FUZZ_SEED / FUZZ_RUNS to change)`);
     t = await createTestApp();
     const document = (await t.http().get('/api/docs-json').expect(200)).body;
     operations = operationsOf(document);
+    documented = documentedCodesOf(document);
     // A booking made the way a player makes one, so its quote matches its own price-book version.
     const playerAgent = request.agent(t.app.getHttpServer());
     await playerAgent.post('/api/auth/sign-in').send({ email: 'player@mail.example', password: DEMO_PASSWORD }).expect(200);
@@ -300,7 +325,14 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
             call = call.set('Content-Type', 'application/json').send(JSON.stringify(sample.body));
           }
           const res = await call;
-          if (res.status >= 400 && res.status < 500) keepRefusal(res.body, `${op.method.toUpperCase()} ${op.path} as ${name}`);
+          if (res.status >= 400 && res.status < 500) {
+            keepRefusal(res.body, `${op.method.toUpperCase()} ${op.path} as ${name}`);
+            const code = (res.body as { code?: unknown })?.code;
+            if (!documented.get(`${op.method} ${op.path}`)?.get(res.status)?.has(String(code))) {
+              const kind = `${op.method.toUpperCase()} ${op.path}: ${res.status} ${String(code)}`;
+              if (!undocumented.has(kind)) undocumented.set(kind, `as ${name}: ${JSON.stringify(res.body).slice(0, 300)}`);
+            }
+          }
           if (res.status >= 500) {
             throw new Error(
               `${op.method.toUpperCase()} ${url} as ${name} answered ${res.status} ${JSON.stringify(res.body)}\n  body sent: ${JSON.stringify(sample.body)?.slice(0, 500)}`,
@@ -336,6 +368,15 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
     },
     600_000,
   );
+
+  // The OpenAPI document is what the apps branch on: a code the route answers but does not list is
+  // a code no client was told to expect (and a listed status without the code is as bad).
+  it('answers each refusal with a status and code the operation documents', () => {
+    expect(refusals.size).toBeGreaterThan(50);
+    const lines = [...undocumented].map(([kind, example]) => `${kind} (${example})`);
+    console.log(`fuzz: ${undocumented.size} refusals with a status or code the document does not list for the route`);
+    expect(lines).toEqual([]);
+  });
 
   it('refuses every bad request in plain words, without developer jargon', () => {
     expect(refusals.size).toBeGreaterThan(50);

@@ -1,3 +1,4 @@
+import { apiErrorBodySchema, type ErrorCode } from '@loomwright/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { builderId, createBooking, quietMondayWeeksAhead, signIn } from './support/bench-fixtures';
 import { createTestApp, type TestApp } from './support/test-app';
@@ -6,6 +7,12 @@ type Agent = Awaited<ReturnType<typeof signIn>>;
 
 /** `[[[…]]]` nested `depth` levels deep, as text (JSON.stringify itself would recurse). */
 const nestedArray = (depth: number) => '['.repeat(depth) + ']'.repeat(depth);
+
+/** The one error body, with the code a client branches on (shared/src/error-codes.ts). */
+const expectRefusal = (res: { status: number; body: unknown }, code: ErrorCode, what = '') => {
+  expect(res.status, what).toBe(400);
+  expect(apiErrorBodySchema.parse(res.body), what).toMatchObject({ statusCode: 400, code });
+};
 
 /**
  * The inputs a hostile or careless client sends that once answered 500: each must now be a 400
@@ -29,7 +36,7 @@ describe('hostile input answers 400 in words, never 500', () => {
       .post(path)
       .set('Content-Type', 'application/json')
       .send(`{"configuration": ${nestedArray(3000)}, "email": ${nestedArray(3000)}}`);
-    expect(res.status).toBe(400);
+    expectRefusal(res, 'body_too_deep');
     expect(res.body.message).toMatch(/nested more than 20 levels deep/);
   });
 
@@ -56,7 +63,7 @@ describe('hostile input answers 400 in words, never 500', () => {
   ])('refuses a lone surrogate in the text sent to %s', async (path, body) => {
     // JSON.stringify escapes a lone surrogate as \ud800 (ECMA-262 well-formed JSON.stringify), which is how it travels.
     const res = await t.http().post(path).set('Content-Type', 'application/json').send(JSON.stringify(body));
-    expect(res.status).toBe(400);
+    expectRefusal(res, 'invalid_unicode');
     expect(res.body.message).toMatch(/not valid Unicode/);
   });
 
@@ -74,7 +81,7 @@ describe('hostile input answers 400 in words, never 500', () => {
     const before = await t.db.selectFrom('builders').select('hourly_rate').where('id', '=', masterId).executeTakeFirstOrThrow();
     for (const hourlyRate of [null, 'NaN', 'Infinity', '-5', '1e3', 1e-308, '0.00']) {
       const res = await owner.patch(`/api/team/${masterId}`).send({ hourlyRate });
-      expect(res.status, JSON.stringify(hourlyRate)).toBe(400);
+      expectRefusal(res, 'validation_failed', JSON.stringify(hourlyRate));
       expect(JSON.stringify(res.body.message)).toContain('Hourly rate must be an amount above 0');
     }
     const after = await t.db.selectFrom('builders').select('hourly_rate').where('id', '=', masterId).executeTakeFirstOrThrow();
@@ -101,7 +108,7 @@ describe('hostile input answers 400 in words, never 500', () => {
     ];
     for (const [hours, words] of cases) {
       const res = await master.post(`/api/bookings/${b.id}/time-entries`).send({ workedOn: '2026-11-30', hours });
-      expect(res.status, JSON.stringify(hours)).toBe(400);
+      expectRefusal(res, 'validation_failed', JSON.stringify(hours));
       expect(JSON.stringify(res.body.message), JSON.stringify(hours)).toContain(words);
     }
     // 2.3 × 100 is 229.99999999999997 in IEEE 754 binary64, yet 2.3 h has two decimals and is taken.
@@ -113,7 +120,7 @@ describe('hostile input answers 400 in words, never 500', () => {
 
   it('names an unknown field instead of dropping it', async () => {
     const res = await owner.patch(`/api/team/${masterId}`).send({ hourlyRat: '90.00' });
-    expect(res.status).toBe(400);
+    expectRefusal(res, 'validation_failed');
     expect(JSON.stringify(res.body.message)).toContain('\\"hourlyRat\\" is not a field this request takes');
   });
 });

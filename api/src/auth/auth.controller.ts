@@ -23,6 +23,7 @@ import { CurrentUser } from './current-user.decorator';
 import { Public } from './public.decorator';
 import { SkipSessionRenewal } from './session-renewal';
 import type { SessionUser } from './sessions.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('auth')
 @ApiTooManyRequestsResponse({ description: authMessages.throttled })
@@ -35,6 +36,7 @@ export class AuthController {
   @SkipSessionRenewal()
   @ApiOperation({ summary: 'Create a player account and sign in' })
   @ApiZodResponse(responseSchemas.authSessionResponseSchema)
+  @ApiErrorCodes('email_taken')
   @Post('sign-up')
   @ApiCreatedResponse({ description: 'The new player account; the session cookie is set.' })
   @ApiZodBody(signUpSchema)
@@ -53,6 +55,7 @@ export class AuthController {
   @SkipSessionRenewal()
   @ApiOperation({ summary: 'Sign in with e-mail and password' })
   @ApiZodResponse(responseSchemas.authSessionResponseSchema)
+  @ApiErrorCodes('invalid_credentials')
   @Post('sign-in')
   @HttpCode(200)
   @ApiZodBody(signInSchema)
@@ -116,6 +119,7 @@ export class AuthController {
   @SkipSessionRenewal()
   @ApiOperation({ summary: 'Set a new password with a reset link' })
   @ApiZodResponse(responseSchemas.authSessionResponseSchema)
+  @ApiErrorCodes('link_invalid')
   @Post('password-reset/confirm')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is changed and the session cookie is set.' })

@@ -18,6 +18,7 @@ import { Roles } from '../auth/roles.decorator';
 import { BenchService } from './bench.service';
 import { ApiZodQuery, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('bench')
 @ApiCookieAuth('lw_session')
@@ -28,6 +29,7 @@ export class BenchController {
 
   @ApiOperation({ summary: 'Booked hours against capacity per builder and day' })
   @ApiZodResponse(responseSchemas.benchViewSchema)
+  @ApiErrorCodes('bad_request', 'not_found')
   @Get()
   @ApiOkResponse({ description: 'Per builder per day: capacity, booked hours and the builds on that day (the signed-in builder first).' })
   @ApiZodQuery(benchQuerySchema)
@@ -37,6 +39,7 @@ export class BenchController {
 
   @ApiOperation({ summary: 'The earliest bench date that holds a build' })
   @ApiZodResponse(responseSchemas.benchSuggestResponseSchema)
+  @ApiErrorCodes('conflict', 'not_found')
   @Get('suggest')
   @ApiOkResponse({ description: 'The earliest bench date per eligible builder that holds the build, with the expected completion.' })
   @ApiZodQuery(benchSuggestQuerySchema)
@@ -49,6 +52,7 @@ export class BenchController {
 
   @ApiOperation({ summary: 'Preview a bench date for a build' })
   @ApiZodResponse(responseSchemas.benchPreviewSchema)
+  @ApiErrorCodes('conflict', 'not_found')
   @Get('preview')
   @ApiZodQuery(benchPreviewQuerySchema)
   @ApiOkResponse({

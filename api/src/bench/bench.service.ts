@@ -1,6 +1,7 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
 import {
+  errorResponse,
   levelRank,
   type AuthUser,
   type BenchBuilder,
@@ -343,8 +344,10 @@ export class BenchService {
   ): asserts plan is Extract<BuildPlan, { ok: true }> {
     const refused = this.refusalFor(state, benchDate, calendar, shop, plan);
     if (!refused) return;
-    if (refused.refusal === 'past' || refused.refusal === 'too_soon_to_ship') throw new BadRequestException(refused.message);
-    throw new ConflictException(refused.message);
+    if (refused.refusal === 'past') throw new BadRequestException(errorResponse('bench_date_in_past', refused.message));
+    if (refused.refusal === 'too_soon_to_ship') throw new BadRequestException(errorResponse('too_soon_to_ship', refused.message));
+    const full = refused.refusal === 'full' || refused.refusal === 'no_capacity';
+    throw new ConflictException(errorResponse(full ? 'bench_day_full' : 'bench_day_closed', refused.message));
   }
 
   /**

@@ -22,6 +22,7 @@ import { bookingIdPipe, photoIdPipe } from './booking-id.pipe';
 import { BookingPhotosService, MAX_PHOTO_BYTES, type UploadedPhoto } from './booking-photos.service';
 import { BookingsService } from './bookings.service';
 import { PhotoTooLargeFilter } from './photo-too-large.filter';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('bookings')
 @Controller('bookings')
@@ -60,6 +61,7 @@ export class BookingsController {
 
   @ApiOperation({ summary: 'Record the parcel carrying the pedals' })
   @ApiZodResponse(responseSchemas.bookingDetailSchema)
+  @ApiErrorCodes('conflict')
   @Post(':id/shipment')
   @Roles('customer')
   @ApiOkResponse({ description: 'Records the carrier and tracking of the parcel carrying the pedals in.' })
@@ -74,6 +76,7 @@ export class BookingsController {
 
   @ApiOperation({ summary: 'Upload a photo to a booking' })
   @ApiZodResponse(responseSchemas.photoViewSchema)
+  @ApiErrorCodes('bad_request', 'conflict', 'photo_too_large')
   @Post(':id/photos')
   @UseFilters(PhotoTooLargeFilter)
   @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_PHOTO_BYTES, files: 1 } }))

@@ -20,6 +20,7 @@ import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { BenchChangesService } from './bench-changes.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 const bookingId = uuidParam(requestWords.notAnId('a booking'));
 
@@ -32,6 +33,16 @@ export class BenchChangesController {
 
   @ApiOperation({ summary: 'Move a build to another day or builder' })
   @ApiZodResponse(responseSchemas.rescheduleResponseSchema)
+  @ApiErrorCodes(
+    'bad_request',
+    'forbidden',
+    'conflict',
+    'bench_date_in_past',
+    'too_soon_to_ship',
+    'bench_day_full',
+    'bench_day_closed',
+    'bench_time_taken',
+  )
   @Post('reschedule')
   @HttpCode(200)
   @ApiZodBody(rescheduleSchema)
@@ -58,6 +69,7 @@ export class BenchChangesController {
 
   @ApiOperation({ summary: 'Cancel a scheduled build' })
   @ApiZodResponse(responseSchemas.bookingDetailSchema)
+  @ApiErrorCodes('conflict', 'too_late_to_cancel', 'deposit_disputed')
   @Post('cancel-scheduled')
   @HttpCode(200)
   @ApiZodBody(cancelScheduledSchema)
@@ -75,6 +87,7 @@ export class BenchChangesController {
 
   @ApiOperation({ summary: 'Answer a firm price above the estimate' })
   @ApiZodResponse(responseSchemas.bookingDetailSchema)
+  @ApiErrorCodes('conflict', 'too_late_to_cancel', 'deposit_disputed')
   @Post('price-consent')
   @HttpCode(200)
   @ApiZodBody(priceConsentSchema)

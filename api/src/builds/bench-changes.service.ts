@@ -2,6 +2,7 @@ import { BadRequestException, ConflictException, ForbiddenException, Injectable,
 import Decimal from 'decimal.js';
 import {
   dateShiftWords,
+  errorResponse,
   type AuthUser,
   type BookingDetail,
   type BookingState,
@@ -258,7 +259,10 @@ export class BenchChangesService {
     if (!booking) throw new NotFoundException('There is no booking with that id.');
     if (!allowed.includes(booking.state)) {
       throw new ConflictException(
-        `Booking ${booking.reference} is ${stateWords(booking.state)}; this cancels a build that has a bench date, before it reaches testing.`,
+        errorResponse(
+          'too_late_to_cancel',
+          `Booking ${booking.reference} is ${stateWords(booking.state)}; this cancels a build that has a bench date, before it reaches testing.`,
+        ),
       );
     }
     const hours = await this.bench.hoursHeld(trx, bookingId);

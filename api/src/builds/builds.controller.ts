@@ -49,6 +49,7 @@ import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ApprovalsService } from './approvals.service';
 import { BuildRecordsService } from './build-records.service';
 import { BuildsService } from './builds.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 const bookingId = uuidParam(requestWords.notAnId('a booking'));
 const uuid = (_name: string, what: string) => uuidParam(requestWords.notAnId(what));
@@ -66,6 +67,16 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Accept a request at a bench date' })
   @ApiZodResponse(responseSchemas.acceptBookingResponseSchema)
+  @ApiErrorCodes(
+    'bad_request',
+    'forbidden',
+    'conflict',
+    'bench_date_in_past',
+    'too_soon_to_ship',
+    'bench_day_full',
+    'bench_day_closed',
+    'bench_time_taken',
+  )
   @Post('accept')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -81,6 +92,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Decline a request' })
   @ApiZodResponse(responseSchemas.bookingDetailSchema)
+  @ApiErrorCodes('forbidden', 'conflict', 'deposit_disputed')
   @Post('decline')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -95,6 +107,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Move a build on' })
   @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
+  @ApiErrorCodes('conflict')
   @Post('state')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -109,6 +122,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Waive the balance of a build' })
   @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
+  @ApiErrorCodes('conflict')
   @Post('waive-balance')
   @HttpCode(200)
   @Roles('owner')
@@ -139,6 +153,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Record bench hours' })
   @ApiZodResponse(responseSchemas.timeEntriesResponseSchema)
+  @ApiErrorCodes('bad_request', 'forbidden', 'conflict')
   @Post('time-entries')
   @Roles('builder', 'owner')
   @ApiZodBody(timeEntrySchema)
@@ -160,6 +175,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Correct an hour entry' })
   @ApiZodResponse(responseSchemas.timeEntriesResponseSchema)
+  @ApiErrorCodes('bad_request', 'forbidden', 'conflict')
   @Patch('time-entries/:entryId')
   @Roles('builder', 'owner')
   @ApiZodBody(editTimeEntrySchema)
@@ -175,6 +191,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Delete an hour entry' })
   @ApiZodResponse(responseSchemas.timeEntriesResponseSchema)
+  @ApiErrorCodes('forbidden', 'conflict')
   @Delete('time-entries/:entryId')
   @Roles('builder', 'owner')
   deleteTimeEntry(
@@ -187,6 +204,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Record the pedals received' })
   @ApiZodResponse(z.array(responseSchemas.intakeItemViewSchema))
+  @ApiErrorCodes('bad_request', 'conflict')
   @Post('intake')
   @Roles('builder', 'owner')
   @ApiZodBody(recordIntakeSchema)
@@ -209,6 +227,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Correct an intake item' })
   @ApiZodResponse(z.array(responseSchemas.intakeItemViewSchema))
+  @ApiErrorCodes('conflict')
   @Patch('intake/:itemId')
   @Roles('builder', 'owner')
   @ApiZodBody(editIntakeItemSchema)
@@ -223,6 +242,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Propose an extra with its price' })
   @ApiZodResponse(responseSchemas.extraViewSchema)
+  @ApiErrorCodes('conflict')
   @Post('extras')
   @Roles('owner')
   @ApiZodBody(proposeExtraSchema)
@@ -245,6 +265,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'The player approves or declines an extra' })
   @ApiZodResponse(responseSchemas.extraViewSchema)
+  @ApiErrorCodes('conflict')
   @Post('extras/:extraId/decision')
   @HttpCode(200)
   @Roles('customer')
@@ -261,6 +282,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Record the player’s answer on an extra' })
   @ApiZodResponse(responseSchemas.extraViewSchema)
+  @ApiErrorCodes('conflict')
   @Post('extras/:extraId/recorded-decision')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -277,6 +299,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Send the layout to the player for approval' })
   @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
+  @ApiErrorCodes('conflict')
   @Post('layout/request')
   @HttpCode(200)
   @Roles('builder', 'owner')
@@ -292,6 +315,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'The player approves the layout' })
   @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
+  @ApiErrorCodes('conflict')
   @Post('layout/approve')
   @HttpCode(200)
   @Roles('customer')
@@ -307,6 +331,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'The player answers the layout' })
   @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
+  @ApiErrorCodes('conflict')
   @Post('layout/decision')
   @HttpCode(200)
   @Roles('customer')
@@ -321,6 +346,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Record the player’s answer on the layout' })
   @ApiZodResponse(responseSchemas.bookingStateResponseSchema)
+  @ApiErrorCodes('conflict')
   @Post('layout/recorded-decision')
   @HttpCode(200)
   @Roles('builder', 'owner')

@@ -2,7 +2,7 @@ import { responseSchemas } from '@loomwright/shared/dist/response-schemas';
 import { BadRequestException, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Res } from '@nestjs/common';
 import type { Response } from 'express';
 import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagger';
-import type { AuthUser, CalendarFeedLink } from '@loomwright/shared';
+import { errorResponse, type AuthUser, type CalendarFeedLink } from '@loomwright/shared';
 import { z } from 'zod';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { ApiZodResponse } from '../common/zod-openapi';
@@ -11,7 +11,10 @@ import { Roles } from '../auth/roles.decorator';
 import { CalendarFeedsService } from './calendar-feeds.service';
 
 const feedId = new ParseUUIDPipe({
-  exceptionFactory: () => new BadRequestException('This calendar link is not one the shop gave out; ask the shop for the current link.'),
+  exceptionFactory: () =>
+    new BadRequestException(
+      errorResponse('invalid_id', 'This calendar link is not one the shop gave out; ask the shop for the current link.'),
+    ),
 });
 
 @ApiTags('calendar feeds')

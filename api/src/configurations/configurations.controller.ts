@@ -27,6 +27,7 @@ import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ConfigurationsService } from './configurations.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 const configurationIdPipe = uuidParam('This saved board could not be found; open it from your saved boards.');
 
@@ -45,6 +46,7 @@ export class ConfigurationsController {
   }
 
   @ApiOperation({ summary: 'Save a configuration' })
+  @ApiErrorCodes('conflict')
   @Post()
   @ApiCreatedResponse({ description: 'The configuration, kept under its name.' })
   @ApiZodBody(saveConfigurationSchema)
@@ -65,6 +67,7 @@ export class ConfigurationsController {
   }
 
   @ApiOperation({ summary: 'Rename or change a saved configuration' })
+  @ApiErrorCodes('conflict')
   @Patch(':id')
   @ApiOkResponse({ description: 'Renamed, or saved with changes.' })
   @ApiZodBody(updateConfigurationSchema)
@@ -78,6 +81,7 @@ export class ConfigurationsController {
   }
 
   @ApiOperation({ summary: 'Copy a saved configuration' })
+  @ApiErrorCodes('conflict')
   @Post(':id/duplicate')
   @ApiCreatedResponse({ description: 'A copy under the name given, or "<name> (copy)".' })
   @ApiZodBody(duplicateConfigurationSchema)

@@ -23,6 +23,7 @@ import { SkipSessionRenewal } from '../auth/session-renewal';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { InvitationsService } from './invitations.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('team')
 @Controller('invitations')
@@ -34,6 +35,7 @@ export class InvitationsController {
 
   @Roles('owner')
   @ApiOperation({ summary: 'Invite a builder' })
+  @ApiErrorCodes('email_taken')
   @Post()
   @ApiCreatedResponse({ description: 'The invited builder, their bench profile id and when the link expires.' })
   @ApiZodBody(inviteStaffSchema)
@@ -48,6 +50,7 @@ export class InvitationsController {
   @Roles('owner')
   @ApiOperation({ summary: 'Send a builder’s invitation again' })
   @ApiZodResponse(responseSchemas.invitationResentSchema)
+  @ApiErrorCodes('conflict')
   @Post(':builderId/resend')
   @HttpCode(201)
   @ApiCreatedResponse({
@@ -65,6 +68,7 @@ export class InvitationsController {
   @UseGuards(ThrottlerGuard)
   @SkipSessionRenewal()
   @ApiOperation({ summary: 'Accept an invitation and set a password' })
+  @ApiErrorCodes('link_invalid')
   @Post('accept')
   @HttpCode(200)
   @ApiOkResponse({ description: 'The password is set and the session cookie is set.' })

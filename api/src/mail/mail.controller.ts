@@ -17,6 +17,7 @@ import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodQuery, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { MailService } from './mail.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('mail')
 @Controller('mail')
@@ -35,6 +36,7 @@ export class MailController {
   }
 
   @ApiOperation({ summary: 'Send a message again' })
+  @ApiErrorCodes('conflict')
   @Post(':id/resend')
   @Roles('owner')
   @HttpCode(201)

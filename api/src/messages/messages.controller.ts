@@ -18,6 +18,7 @@ import { ApiZodResponse, openApiSchema } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { MessagePhotosFilter } from './message-photos.filter';
 import { MessagesService } from './messages.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('messages')
 @Controller()
@@ -35,6 +36,7 @@ export class MessagesController {
   }
 
   @ApiOperation({ summary: 'Send a message on a build' })
+  @ApiErrorCodes('bad_request', 'photo_too_large')
   @Post('bookings/:id/messages')
   @UseFilters(MessagePhotosFilter)
   @UseInterceptors(FilesInterceptor('photos', MESSAGE_MAX_PHOTOS, { limits: { fileSize: MAX_PHOTO_BYTES, files: MESSAGE_MAX_PHOTOS } }))

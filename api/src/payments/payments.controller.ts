@@ -25,6 +25,7 @@ import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { PaymentWebhooksService } from './payment-webhooks.service';
 import { PaymentsService } from './payments.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('payments')
 @Controller()
@@ -36,6 +37,7 @@ export class PaymentsController {
 
   @ApiOperation({ summary: 'Open the hosted checkout for what is due' })
   @ApiZodResponse(responseSchemas.checkoutOpenedSchema)
+  @ApiErrorCodes('nothing_due', 'payment_settling')
   @Post('bookings/:id/checkout')
   @Roles('customer')
   @HttpCode(200)
@@ -46,6 +48,7 @@ export class PaymentsController {
   }
 
   @ApiOperation({ summary: 'Cancel a request before it is scheduled' })
+  @ApiErrorCodes('too_late_to_cancel', 'deposit_disputed')
   @Post('bookings/:id/cancel')
   @Roles('customer')
   @HttpCode(200)
@@ -61,6 +64,7 @@ export class PaymentsController {
   }
 
   @ApiOperation({ summary: 'Refund a paid deposit' })
+  @ApiErrorCodes('conflict', 'nothing_due', 'deposit_disputed')
   @Post('bookings/:id/refund')
   @Roles('owner')
   @HttpCode(200)
@@ -77,6 +81,7 @@ export class PaymentsController {
 
   @ApiOperation({ summary: 'Record the balance taken in person' })
   @ApiZodResponse(responseSchemas.bookingDetailSchema)
+  @ApiErrorCodes('bad_request', 'conflict', 'nothing_due')
   @Post('bookings/:id/balance/record')
   @Roles('owner')
   @HttpCode(200)
@@ -94,6 +99,7 @@ export class PaymentsController {
 
   @ApiOperation({ summary: 'E-mail the player the balance due' })
   @ApiZodResponse(responseSchemas.bookingDetailSchema)
+  @ApiErrorCodes('conflict', 'nothing_due')
   @Post('bookings/:id/balance/request')
   @Roles('builder', 'owner')
   @HttpCode(200)
@@ -103,6 +109,7 @@ export class PaymentsController {
   }
 
   @ApiOperation({ summary: 'Release a disputed build for delivery' })
+  @ApiErrorCodes('conflict')
   @Post('bookings/:id/dispute/release')
   @Roles('owner')
   @HttpCode(200)
@@ -121,6 +128,7 @@ export class PaymentsController {
   @AllowCrossSite() // signed by the provider; its servers send no Origin of ours
   @ApiConsumes('application/json')
   @ApiOperation({ summary: 'Receive a signed payment provider event' })
+  @ApiErrorCodes('bad_request')
   @Post('payments/webhook')
   @HttpCode(200)
   @ApiZodResponse(responseSchemas.paymentEventReceivedSchema)

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { BadGatewayException, BadRequestException, ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import type { AuthUser, BookingDetail, BookingState } from '@loomwright/shared';
+import { errorResponse, type AuthUser, type BookingDetail, type BookingState } from '@loomwright/shared';
 import {
   bookingStateLabels,
   formatMoney,
@@ -27,6 +27,7 @@ export const providerActor: BookingActor = { id: null, label: 'Payment provider'
 /** A player may cancel until the shop sets a bench date (the demo shop's deposit policy). */
 const cancellableStates: BookingState[] = ['requested', 'deposit_paid'];
 const refundableStates: BookingState[] = ['deposit_paid', 'scheduled', 'declined', 'cancelled'];
+const scheduledOrLater: BookingState[] = ['scheduled', 'pedals_received', 'on_bench', 'testing', 'ready', 'delivered'];
 
 /**
  * Currencies of the payment method types that take only some (the provider's payment method
@@ -84,14 +85,21 @@ export class PaymentsService {
       const kind: PaymentKind | null = booking.state === 'requested' ? 'deposit' : booking.state === 'ready' ? 'balance' : null;
       if (!kind) {
         throw new ConflictException(
-          `Booking ${booking.reference} is "${bookingStateLabels[booking.state]}": nothing is due now. The deposit is paid while a build is requested, the balance once it is ready.`,
+          errorResponse(
+            'nothing_due',
+            `Booking ${booking.reference} is "${bookingStateLabels[booking.state]}": nothing is due now. The deposit is paid while a build is requested, the balance once it is ready.`,
+          ),
         );
       }
       const previous = await this.payments.listForBooking(trx, bookingId, kind);
-      if (previous.some((p) => p.status === 'paid')) throw new ConflictException(`The ${kind} for ${booking.reference} is already paid.`);
+      if (previous.some((p) => p.status === 'paid'))
+        throw new ConflictException(errorResponse('nothing_due', `The ${kind} for ${booking.reference} is already paid.`));
       const settling = () =>
         new ConflictException(
-          `Your bank payment for ${booking.reference} is still settling (bank debits take a few working days); we will e-mail you as soon as it has. Nothing more is due until then.`,
+          errorResponse(
+            'payment_settling',
+            `Your bank payment for ${booking.reference} is still settling (bank debits take a few working days); we will e-mail you as soon as it has. Nothing more is due until then.`,
+          ),
         );
       if (previous.some((p) => p.status === 'processing')) throw settling();
       for (const p of previous.filter((row) => row.status === 'pending' || row.status === 'failed')) {
@@ -168,7 +176,7 @@ export class PaymentsService {
   private amountDue(kind: PaymentKind, detail: BookingDetail) {
     if (kind === 'deposit') return { amount: detail.quote.deposit, currency: detail.quote.currency, label: 'Deposit' };
     if (!detail.balanceDue || Number(detail.balanceDue) <= 0) {
-      throw new ConflictException(`Booking ${detail.reference} has no balance to pay.`);
+      throw new ConflictException(errorResponse('nothing_due', `Booking ${detail.reference} has no balance to pay.`));
     }
     return { amount: detail.balanceDue, currency: detail.firmQuote?.currency ?? detail.currency, label: 'Balance' };
   }
@@ -207,7 +215,10 @@ export class PaymentsService {
     if (locked.refund_status === 'pending' || locked.refund_status === 'requires_action') return locked;
     if (disputeOpen(locked)) {
       throw new ConflictException(
-        `The deposit of ${moneyOf(locked)} is disputed by the player's bank, which is deciding where the money goes; it cannot be refunded until the dispute closes.`,
+        errorResponse(
+          'deposit_disputed',
+          `The deposit of ${moneyOf(locked)} is disputed by the player's bank, which is deciding where the money goes; it cannot be refunded until the dispute closes.`,
+        ),
       );
     }
     const attempt = locked.refund_attempts + 1;
@@ -371,6 +382,16 @@ export class PaymentsService {
   async cancel(user: AuthUser, bookingId: string, reason: string | undefined) {
     const booking = await this.bookings.findVisible(user, bookingId);
     await this.db.transaction().execute(async (trx) => {
+      const locked = await this.bookings.lock(trx, booking.id);
+      // Past the point of a player's own cancel (a cancelled or declined one stays a plain conflict below).
+      if (locked && scheduledOrLater.includes(locked.state)) {
+        throw new ConflictException(
+          errorResponse(
+            'too_late_to_cancel',
+            `Booking ${locked.reference} is "${bookingStateLabels[locked.state]}"; a request can be cancelled here only until the shop schedules it. Write to the shop on the build page to ask for a cancellation.`,
+          ),
+        );
+      }
       const note = reason?.trim() || 'Cancelled by the player.';
       await this.bookings.transition(trx, booking.id, cancellableStates, 'cancelled', actorOf(user), note);
       await this.bookings.update(trx, booking.id, { cancel_reason: note });
@@ -418,7 +439,8 @@ export class PaymentsService {
       if (retry) await this.historyNote(trx, bookingId, actorOf(user), `Refund tried again: ${reason}`);
       else await this.bookings.transition(trx, bookingId, refundableStates, 'refunded', actorOf(user), `Deposit refunded: ${reason}`);
       const refunded = await this.refundDeposit(trx, bookingId, actorOf(user), reason);
-      if (!refunded) throw new ConflictException(`Booking ${booking.reference} has no paid deposit to refund.`);
+      if (!refunded)
+        throw new ConflictException(errorResponse('nothing_due', `Booking ${booking.reference} has no paid deposit to refund.`));
     });
     return this.bookings.getDetail(bookingId);
   }
@@ -438,7 +460,10 @@ export class PaymentsService {
         );
       }
       const money = await this.bookings.moneyFacts(bookingId, trx);
-      if (money.settled) throw new ConflictException(`Nothing is due on ${booking.reference}; the balance is already paid or waived.`);
+      if (money.settled)
+        throw new ConflictException(
+          errorResponse('nothing_due', `Nothing is due on ${booking.reference}; the balance is already paid or waived.`),
+        );
       if (money.balanceDue !== formatMoney(input.amount, money.currency)) {
         throw new BadRequestException(
           `The amount must be the whole balance: the balance due on ${booking.reference} is ${moneyOf({ amount: money.balanceDue ?? '0', currency: money.currency })}; record the whole amount, or the owner waives what is left.`,
@@ -489,7 +514,10 @@ export class PaymentsService {
         );
       }
       const money = await this.bookings.moneyFacts(bookingId, trx);
-      if (money.settled) throw new ConflictException(`Nothing is due on ${booking.reference}; the balance is already paid or waived.`);
+      if (money.settled)
+        throw new ConflictException(
+          errorResponse('nothing_due', `Nothing is due on ${booking.reference}; the balance is already paid or waived.`),
+        );
       const customer = await this.payments.findCustomer(trx, booking.customer_id);
       // One reminder a minute at most: a double click sends one e-mail.
       const minute = new Date().toISOString().slice(0, 16);

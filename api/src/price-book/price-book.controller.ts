@@ -8,6 +8,7 @@ import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { PriceBookService } from './price-book.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('price book')
 @Controller()
@@ -35,6 +36,7 @@ export class PriceBookController {
   @Roles('owner')
   @ApiOperation({ summary: 'Publish a new price book version' })
   @ApiZodResponse(responseSchemas.priceBookVersionSummarySchema)
+  @ApiErrorCodes('conflict')
   @Post('price-book')
   @ApiZodBody(publishPriceBookSchema)
   @ApiCreatedResponse({ description: 'The new version; quotes priced earlier keep theirs.' })

@@ -18,6 +18,7 @@ import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { PDF_CONTENT_SECURITY_POLICY } from '../security/security-headers';
 import { QuotesService } from './quotes.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('quotes')
 @Controller('quotes')
@@ -65,6 +66,7 @@ export class BookingQuoteController {
    */
   @Public()
   @ApiOperation({ summary: 'A booking’s quote as PDF' })
+  @ApiErrorCodes('not_signed_in')
   @Get(':id/quote.pdf')
   @ApiProduces('application/pdf')
   @Header('Content-Security-Policy', PDF_CONTENT_SECURITY_POLICY)

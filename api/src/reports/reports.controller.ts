@@ -13,6 +13,7 @@ import { Roles } from '../auth/roles.decorator';
 import { ApiZodQuery, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ReportsService } from './reports.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 const range = new ZodValidationPipe(dateRangeQuerySchema);
 
@@ -50,6 +51,7 @@ export class ReportsController {
   }
 
   @ApiOperation({ summary: 'Bench utilisation per builder and week' })
+  @ApiErrorCodes('bad_request')
   @Get('utilisation')
   @ApiZodQuery(dateRangeQuerySchema)
   @ApiZodResponse(responseSchemas.utilisationReportSchema)

@@ -23,6 +23,7 @@ import { Roles } from '../auth/roles.decorator';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { SettingsService } from './settings.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('settings')
 @ApiCookieAuth('lw_session')
@@ -51,6 +52,7 @@ export class SettingsController {
   /** Whether the shop works on one public holiday of its country (the per-holiday opt-out). */
   @ApiOperation({ summary: 'Choose whether the shop works on a public holiday' })
   @ApiZodResponse(responseSchemas.holidayChoiceResponseSchema)
+  @ApiErrorCodes('bad_request')
   @Put('holidays/:day')
   @Roles('owner')
   @ApiZodBody(holidayChoiceSchema)

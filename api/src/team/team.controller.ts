@@ -19,6 +19,7 @@ import { Roles } from '../auth/roles.decorator';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { ApiZodBody, ApiZodResponse } from '../common/zod-openapi';
 import { TeamService } from './team.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 const builderIdPipe = uuidParam(requestWords.notAnId('a builder'));
 
@@ -51,6 +52,7 @@ export class TeamController {
 
   @ApiOperation({ summary: 'Record a builder’s absence' })
   @ApiZodResponse(responseSchemas.addAbsenceResponseSchema)
+  @ApiErrorCodes('bad_request')
   @Post(':builderId/absences')
   @Roles('owner')
   @ApiOkResponse({

@@ -7,6 +7,7 @@ import { Roles } from '../auth/roles.decorator';
 import { ApiZodQuery, ApiZodResponse } from '../common/zod-openapi';
 import { ZodValidationPipe } from '../common/zod-validation.pipe';
 import { TodayService } from './today.service';
+import { ApiErrorCodes } from '../common/api-document';
 
 @ApiTags('today')
 @ApiCookieAuth('lw_session')
@@ -15,6 +16,7 @@ export class TodayController {
   constructor(private readonly todayService: TodayService) {}
 
   @ApiOperation({ summary: 'The staff’s page for today' })
+  @ApiErrorCodes('forbidden')
   @Get()
   @Roles('builder', 'owner')
   @ApiZodQuery(todayQuerySchema)

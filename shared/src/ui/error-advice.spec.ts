@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { apiErrorFrom } from '../api-client';
 import { describeIssues, issuePath } from '../estimate/schema';
-import { fieldsCoverError, formFieldName, setServerFieldErrors } from './error-advice';
+import { errorAdvice, fieldsCoverError, formFieldName, setServerFieldErrors } from './error-advice';
 
 // The body the API's ZodValidationPipe writes for a refused body (api/src/common/zod-validation.pipe.ts),
 // built here from a real zod failure so the paths are zod's own.
@@ -58,5 +58,21 @@ describe('validation_failed answers onto react-hook-form fields', () => {
     setServerFieldErrors(error, (...args) => calls.push(args), ['carrier']);
     expect(calls).toEqual([]);
     expect(fieldsCoverError(error, ['carrier'])).toBe(false);
+  });
+});
+
+describe('advice by code', () => {
+  it('offers another date for every refusal of a bench date, and nothing special for a plain conflict', () => {
+    const answer = (status: number, code: string) => apiErrorFrom(status, { statusCode: status, code, message: 'Refused in words.' });
+    for (const [status, code] of [
+      [409, 'bench_time_taken'],
+      [409, 'bench_day_full'],
+      [409, 'bench_day_closed'],
+      [400, 'bench_date_in_past'],
+      [400, 'too_soon_to_ship'],
+    ] as const)
+      expect(errorAdvice(answer(status, code)), code).toBe('pick-another-date');
+    expect(errorAdvice(answer(409, 'conflict'))).toBe('other');
+    expect(errorAdvice(answer(409, 'too_late_to_cancel'))).toBe('other');
   });
 });

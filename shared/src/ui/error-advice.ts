@@ -5,7 +5,8 @@ import { hasErrorCode, isShopAwayError, isSignedOutError } from '../api-client';
  * What the apps do about a refused or failed call, chosen by the answer's `code` (never by its
  * words, which are shown as they are):
  * - `fields`: the form's own fields are wrong (`validation_failed`); each message goes under its field;
- * - `pick-another-date`: the bench time went to another build (`bench_time_taken`);
+ * - `pick-another-date`: the bench time went to another build (`bench_time_taken`), or the date cannot take the build
+ *   (`bench_day_full`, `bench_day_closed`, `bench_date_in_past`, `too_soon_to_ship`);
  * - `sign-in-again`: the session ran out or was ended (`not_signed_in`, `session_ended`);
  * - `wait-and-retry`: too many attempts, or the shop not answering (`too_many_attempts`, `shop_unavailable`, `unreachable`);
  * - `link-expired`: a single-use link is unknown, used or expired (`link_invalid`);
@@ -13,9 +14,11 @@ import { hasErrorCode, isShopAwayError, isSignedOutError } from '../api-client';
  */
 export type ErrorAdviceKind = 'fields' | 'pick-another-date' | 'sign-in-again' | 'wait-and-retry' | 'link-expired' | 'other';
 
+const dateCodes = ['bench_time_taken', 'bench_day_full', 'bench_day_closed', 'bench_date_in_past', 'too_soon_to_ship'] as const;
+
 export function errorAdvice(error: unknown): ErrorAdviceKind {
   if (hasErrorCode(error, 'validation_failed')) return 'fields';
-  if (hasErrorCode(error, 'bench_time_taken')) return 'pick-another-date';
+  if (dateCodes.some((code) => hasErrorCode(error, code))) return 'pick-another-date';
   if (isSignedOutError(error)) return 'sign-in-again';
   if (hasErrorCode(error, 'too_many_attempts') || isShopAwayError(error)) return 'wait-and-retry';
   if (hasErrorCode(error, 'link_invalid')) return 'link-expired';

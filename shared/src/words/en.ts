@@ -267,6 +267,7 @@ export const bookingWords = {
   refundReason: 'Reason must say why the deposit is refunded',
   declineReason: 'Reason must say why, in at least a few words',
   tellPlayerNeedsNote: 'Write the words the player should read, or leave “tell the player” off',
+  reasonRequired: 'Reason is required: say why',
   waiveReason: 'Reason must say why the balance is waived',
   hoursAboveZero: 'Hours must be more than 0',
   hoursAtMost24: 'Hours can be at most 24 for one day',

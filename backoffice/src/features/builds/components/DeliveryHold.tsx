@@ -46,6 +46,7 @@ export function DeliveryHold({
         title={`Release delivery — ${booking.reference}`}
         label="Why the build may be delivered (kept in the history)"
         required
+        rule={releaseDisputeSchema.shape.note}
         confirm="Release delivery"
         pending={release.isPending}
         error={invalid ?? release.error}

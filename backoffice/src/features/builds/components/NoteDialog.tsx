@@ -12,12 +12,15 @@ import Sheet from '@mui/joy/Sheet';
 import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
 import { useEffect, useState, type ReactNode } from 'react';
+import type { ZodType } from 'zod';
+import { bookingWords } from '@loomwright/shared';
 import { ErrorNote } from 'src/components/ErrorNote';
 
 /**
  * Confirm one move of a build, with a note (optional) or a reason (required). With
  * `canTellPlayer`, the note stays internal unless "Tell the player" is ticked, and then the
- * dialog shows the exact words the player will read.
+ * dialog shows the exact words the player will read. `rule` is the API's own rule for the text
+ * (the field of its shared request schema), so the dialog refuses what the API refuses, in its words.
  */
 export function NoteDialog({
   open,
@@ -25,6 +28,7 @@ export function NoteDialog({
   children,
   label,
   required = false,
+  rule,
   confirm,
   pending,
   error,
@@ -37,6 +41,7 @@ export function NoteDialog({
   children?: ReactNode;
   label: string;
   required?: boolean;
+  rule?: ZodType;
   confirm: string;
   pending: boolean;
   error: Error | null;
@@ -46,18 +51,21 @@ export function NoteDialog({
 }) {
   const [note, setNote] = useState('');
   const [tell, setTell] = useState(false);
-  const [missing, setMissing] = useState(false);
+  const [problem, setProblem] = useState<string | null>(null);
   useEffect(() => {
     if (open) {
       setNote('');
       setTell(false);
-      setMissing(false);
+      setProblem(null);
     }
   }, [open]);
   const submit = () => {
-    if (required && note.trim().length < 3) return setMissing(true);
-    if (tell && !note.trim()) return setMissing(true);
-    onConfirm(note.trim(), canTellPlayer && tell);
+    const text = note.trim();
+    const checked = rule?.safeParse(text);
+    if (checked && !checked.success) return setProblem(checked.error.issues[0]?.message ?? bookingWords.reasonRequired);
+    if (required && !text) return setProblem(bookingWords.reasonRequired);
+    if (tell && !text) return setProblem(bookingWords.tellPlayerNeedsNote);
+    onConfirm(text, canTellPlayer && tell);
   };
   return (
     <Modal open={open} onClose={onClose}>
@@ -65,14 +73,10 @@ export function NoteDialog({
         <DialogTitle component="h2">{title}</DialogTitle>
         <DialogContent sx={{ gap: 1.5 }}>
           {children}
-          <FormControl error={missing} required={required}>
+          <FormControl error={problem !== null} required={required}>
             <FormLabel>{label}</FormLabel>
             <Textarea minRows={2} value={note} onChange={(event) => setNote(event.target.value)} />
-            {missing && (
-              <FormHelperText>
-                {tell ? 'Write the words the player should read.' : 'Write a reason of at least a few words.'}
-              </FormHelperText>
-            )}
+            {problem && <FormHelperText>{problem}</FormHelperText>}
             {canTellPlayer && !tell && <FormHelperText>Internal: only the shop sees this note.</FormHelperText>}
           </FormControl>
           {canTellPlayer && (

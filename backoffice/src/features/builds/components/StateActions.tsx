@@ -2,7 +2,14 @@ import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
-import { benchTransitions, bookingStateLabels, type BenchState, type BookingDetail, type IntakeItemView } from '@loomwright/shared';
+import {
+  benchTransitions,
+  bookingStateLabels,
+  waiveBalanceSchema,
+  type BenchState,
+  type BookingDetail,
+  type IntakeItemView,
+} from '@loomwright/shared';
 import { useState } from 'react';
 import { formatMoney } from 'src/lib/format';
 import { useChangeState } from '../api/change-state';
@@ -189,6 +196,7 @@ export function StateActions({
         title={`Waive the balance — ${booking.reference}`}
         label="Reason (kept in the history)"
         required
+        rule={waiveBalanceSchema.shape.reason}
         confirm="Waive the balance"
         pending={waive.isPending}
         error={waive.error}

@@ -15,7 +15,14 @@ import Sheet from '@mui/joy/Sheet';
 import Stack from '@mui/joy/Stack';
 import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
-import { dateShiftWords, isCalendarDay, type BenchSuggestion, type BookingSummary } from '@loomwright/shared';
+import {
+  acceptBookingSchema,
+  bookingWords,
+  dateShiftWords,
+  isCalendarDay,
+  type BenchSuggestion,
+  type BookingSummary,
+} from '@loomwright/shared';
 import { BenchDatePreview } from 'src/components/BenchDatePreview';
 import { useBenchPreview } from 'src/features/bench/api/get-bench-preview';
 import { useBenchSuggestion } from 'src/features/bench/api/get-bench-suggestion';
@@ -87,8 +94,12 @@ export function AcceptDialog({
     if (!booking || !chosen) return setFormError('Choose who builds it.');
     if (!benchDate) return setFormError('Choose a bench date.');
     if (previewed && !previewed.ok) return setFormError(previewed.message ?? 'That day cannot hold the build; pick another.');
-    if (needsOverride && overrideReason.trim().length < 5)
-      return setFormError('Say why this builder may take it below the level the player chose (at least a few words); the player reads it.');
+    // The API's own rule for the reason (shared schema): any words, up to its length.
+    const reason = acceptBookingSchema.shape.levelOverrideReason.safeParse(overrideReason.trim());
+    if (needsOverride && (!overrideReason.trim() || !reason.success))
+      return setFormError(
+        reason.success ? bookingWords.levelOverrideReason : (reason.error.issues[0]?.message ?? bookingWords.levelOverrideReason),
+      );
     setFormError(null);
     accept.mutate(
       {
