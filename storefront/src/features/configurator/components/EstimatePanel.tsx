@@ -1,7 +1,7 @@
 import Alert from '@mui/joy/Alert';
 import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
-import LinearProgress from '@mui/joy/LinearProgress';
+import CircularProgress from '@mui/joy/CircularProgress';
 import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import { useEffect, useState } from 'react';
@@ -70,7 +70,16 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
       <Box role="status" aria-live="polite" sx={{ minHeight: 20 }}>
         {live.isUpdating ? (
           <Box sx={{ display: 'flex', alignItems: 'center', gap: 1 }}>
-            <LinearProgress size="sm" sx={{ flex: 1, maxWidth: 120 }} aria-hidden />
+            {/* Joy's spinner (already in every page's first load, with Button) rather than a bar of its own. */}
+            <CircularProgress
+              size="sm"
+              sx={{
+                '--CircularProgress-size': '16px',
+                '--CircularProgress-trackThickness': '2px',
+                '--CircularProgress-progressThickness': '2px',
+              }}
+              aria-hidden
+            />
             <Typography level="body-xs">Updating…</Typography>
           </Box>
         ) : live.error ? null : e ? (
