@@ -51,6 +51,15 @@ export const ERROR_CODES = {
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_CODES;
+
+/** Every refusal of a bench date (accepting or moving a build): the apps offer another date for each. */
+export const benchDateErrorCodes = [
+  'bench_date_in_past',
+  'too_soon_to_ship',
+  'bench_day_full',
+  'bench_day_closed',
+  'bench_time_taken',
+] as const satisfies readonly ErrorCode[];
 export const errorCodes = Object.keys(ERROR_CODES) as [ErrorCode, ...ErrorCode[]];
 
 /** The HTTP status each code is sent with (the grouping of ERROR_CODES above): what the API's OpenAPI document lists per route. */

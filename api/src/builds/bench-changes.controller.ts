@@ -3,6 +3,7 @@ import { Body, Controller, Get, HttpCode, Param, Post } from '@nestjs/common';
 import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
+  benchDateErrorCodes,
   cancelScheduledSchema,
   priceConsentSchema,
   rescheduleSchema,
@@ -33,16 +34,7 @@ export class BenchChangesController {
 
   @ApiOperation({ summary: 'Move a build to another day or builder' })
   @ApiZodResponse(responseSchemas.rescheduleResponseSchema)
-  @ApiErrorCodes(
-    'bad_request',
-    'forbidden',
-    'conflict',
-    'bench_date_in_past',
-    'too_soon_to_ship',
-    'bench_day_full',
-    'bench_day_closed',
-    'bench_time_taken',
-  )
+  @ApiErrorCodes('bad_request', 'forbidden', 'conflict', ...benchDateErrorCodes)
   @Post('reschedule')
   @HttpCode(200)
   @ApiZodBody(rescheduleSchema)

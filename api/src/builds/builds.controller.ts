@@ -4,6 +4,7 @@ import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@ne
 import { uuidParam } from '../common/uuid-param.pipe';
 import { ApiCookieAuth, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
+  benchDateErrorCodes,
   acceptBookingSchema,
   changeStateSchema,
   declineBookingSchema,
@@ -67,16 +68,7 @@ export class BuildsController {
 
   @ApiOperation({ summary: 'Accept a request at a bench date' })
   @ApiZodResponse(responseSchemas.acceptBookingResponseSchema)
-  @ApiErrorCodes(
-    'bad_request',
-    'forbidden',
-    'conflict',
-    'bench_date_in_past',
-    'too_soon_to_ship',
-    'bench_day_full',
-    'bench_day_closed',
-    'bench_time_taken',
-  )
+  @ApiErrorCodes('bad_request', 'forbidden', 'conflict', ...benchDateErrorCodes)
   @Post('accept')
   @HttpCode(200)
   @Roles('builder', 'owner')

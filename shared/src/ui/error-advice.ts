@@ -1,5 +1,6 @@
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
 import { hasErrorCode, isShopAwayError, isSignedOutError } from '../api-client';
+import { benchDateErrorCodes } from '../error-codes';
 
 /**
  * What the apps do about a refused or failed call, chosen by the answer's `code` (never by its
@@ -14,11 +15,9 @@ import { hasErrorCode, isShopAwayError, isSignedOutError } from '../api-client';
  */
 export type ErrorAdviceKind = 'fields' | 'pick-another-date' | 'sign-in-again' | 'wait-and-retry' | 'link-expired' | 'other';
 
-const dateCodes = ['bench_time_taken', 'bench_day_full', 'bench_day_closed', 'bench_date_in_past', 'too_soon_to_ship'] as const;
-
 export function errorAdvice(error: unknown): ErrorAdviceKind {
   if (hasErrorCode(error, 'validation_failed')) return 'fields';
-  if (dateCodes.some((code) => hasErrorCode(error, code))) return 'pick-another-date';
+  if (benchDateErrorCodes.some((code) => hasErrorCode(error, code))) return 'pick-another-date';
   if (isSignedOutError(error)) return 'sign-in-again';
   if (hasErrorCode(error, 'too_many_attempts') || isShopAwayError(error)) return 'wait-and-retry';
   if (hasErrorCode(error, 'link_invalid')) return 'link-expired';
