@@ -1,4 +1,5 @@
 import { expect, test } from './csp';
+import { signInHere, signUpHere } from './people';
 
 const password = 'a-new-player-password';
 
@@ -13,10 +14,7 @@ test('a player signs up from a page, comes back to it, signs out and signs in ag
   await expect(page.getByText('Enter a name')).toBeVisible();
   await expect(page.getByText('Choose a password of at least 10 characters')).toBeVisible();
 
-  await page.getByLabel('Your name').fill('Ilse Brandvold');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Create account' }).click();
+  await signUpHere(page, 'Ilse Brandvold', email, password);
   await expect(page.getByRole('navigation', { name: 'Main' }).getByText('Ilse Brandvold')).toBeVisible();
 
   await page.getByRole('link', { name: 'Account' }).click();
@@ -27,9 +25,7 @@ test('a player signs up from a page, comes back to it, signs out and signs in ag
 
   // `next` brings the player back to the page that sent them.
   await page.goto('/sign-in?next=%2Faccount');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('not-the-password');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInHere(page, email, 'not-the-password');
   await expect(page.getByRole('alert')).toContainText('do not match an account');
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();

@@ -1,5 +1,6 @@
 import { request as playwrightRequest, type APIRequestContext } from '@playwright/test';
 import { expect, test } from './csp';
+import { payDeposit, requestBuild, signInOnPage } from './people';
 
 /**
  * The shop's half of the main journey: a paid request reaches the backoffice, a builder accepts it
@@ -8,7 +9,6 @@ import { expect, test } from './csp';
  * on the payment service's hosted page (the local fake, test card 4242 4242 4242 4242).
  */
 
-const password = 'demo-pass-2026';
 const shots = (name: string) => `screenshots/backoffice-${name}.png`;
 
 async function paidRequest(baseURL: string, page: import('@playwright/test').Page) {
@@ -19,57 +19,26 @@ async function paidRequest(baseURL: string, page: import('@playwright/test').Pag
     data: { email: `marlo.${stamp}@mail.example`, password: 'a-long-test-pass', name },
   });
   expect(signUp.status(), await signUp.text()).toBe(201);
-
-  const catalog = await (await player.get('/api/catalog')).json();
-  const surface = catalog.surfaces[0];
-  const hardCase = catalog.cases.find((c: { notRecommended: boolean }) => !c.notRecommended);
-  const created = await player.post('/api/bookings', {
-    data: {
-      configuration: {
-        surfaceId: surface.id,
-        caseId: hardCase.id,
-        routing: { mode: 'serial' },
-        pedals: [
-          { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
-          { name: 'Green overdrive', kind: 'compact', powered: true, inLoop: false, currentMa: 12, voltage: 9 },
-          { name: 'Analog delay', kind: 'compact', powered: true, inLoop: false, currentMa: 40, voltage: 9 },
-        ],
-        functions: [],
-        level: 'master',
-      },
-      notes: 'Please keep the tuner first in the chain.',
-    },
+  const booking = await requestBuild(player, {
+    recommendedCase: true,
+    level: 'master',
+    pedals: [
+      { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
+      { name: 'Green overdrive', kind: 'compact', powered: true, inLoop: false, currentMa: 12, voltage: 9 },
+      { name: 'Analog delay', kind: 'compact', powered: true, inLoop: false, currentMa: 40, voltage: 9 },
+    ],
+    notes: 'Please keep the tuner first in the chain.',
   });
-  expect(created.status(), await created.text()).toBe(201);
-  const booking = await created.json();
-
-  const checkout = await player.post(`/api/bookings/${booking.id}/checkout`, { data: {} });
-  expect(checkout.ok(), await checkout.text()).toBeTruthy();
-  const { url } = await checkout.json();
-
-  await page.goto(url);
-  await page.getByLabel('Card number').fill('4242 4242 4242 4242');
-  await page.getByLabel('Expiry (MM/YY)').fill('12/34');
-  await page.getByLabel('Security code').fill('123');
-  await page.getByRole('button', { name: /^Pay / }).click();
-  // A paid checkout sends the player back to the shop's own return page.
-  await page.waitForURL((target) => target.origin === new URL(baseURL).origin);
-
-  // The deposit counts as paid once the provider's signed webhook reaches the API.
-  await expect
-    .poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).depositStatus, { timeout: 20_000 })
-    .toBe('paid');
+  // A paid checkout sends the player back to the shop's own return page; the webhook marks the deposit paid.
+  await payDeposit(page, player, booking.id, baseURL);
   await player.dispose();
-  return { id: booking.id as string, reference: booking.reference as string, customerName: name };
+  return { ...booking, customerName: name };
 }
 
 test('a builder accepts a paid request at the suggested bench date and sees it on the bench', async ({ page, baseURL }) => {
   const paid = await paidRequest(baseURL!, page);
 
-  await page.goto('/backoffice/sign-in');
-  await page.getByLabel('E-mail').fill('builder@shop.example');
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInOnPage(page, 'backoffice', 'builder@shop.example');
   await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
 
   // Find it the way the shop does: the requests table, narrowed to paid deposits, searched by customer.
@@ -138,10 +107,7 @@ test('a builder accepts a paid request at the suggested bench date and sees it o
 });
 
 test("the owner's pages read the shop's real data: team, price book, settings with holidays, customers, builds", async ({ page }) => {
-  await page.goto('/backoffice/sign-in');
-  await page.getByLabel('E-mail').fill('owner@shop.example');
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInOnPage(page, 'backoffice', 'owner@shop.example');
   await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
 
   await page.goto('/backoffice/team');

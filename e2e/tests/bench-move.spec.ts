@@ -1,4 +1,5 @@
 import { expect, request as playwrightRequest, test, type APIRequestContext, type Page } from '@playwright/test';
+import { acceptAtEarliest, apiAs, payDeposit, requestBuild, signInOnPage } from './people';
 
 /**
  * When plans change: a builder moves a scheduled build to another day from the Bench, and the
@@ -23,37 +24,17 @@ async function paidRequest(baseURL: string, page: Page, email: string, password:
   const player: APIRequestContext = await playwrightRequest.newContext({ baseURL });
   const signUp = await player.post('/api/auth/sign-up', { data: { email, password, name: `Ines Marrow ${Date.now() % 10000}` } });
   expect(signUp.status(), await signUp.text()).toBe(201);
-  const catalog = await (await player.get('/api/catalog')).json();
-  const hardCase = catalog.cases.find((c: { notRecommended: boolean }) => !c.notRecommended);
-  const created = await player.post('/api/bookings', {
-    data: {
-      configuration: {
-        surfaceId: catalog.surfaces[0].id,
-        caseId: hardCase.id,
-        routing: { mode: 'serial' },
-        pedals: [
-          { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
-          { name: 'Plate reverb', kind: 'compact', powered: true, inLoop: false, currentMa: 100, voltage: 9 },
-        ],
-        functions: [],
-        level: 'master',
-      },
-    },
+  const booking = await requestBuild(player, {
+    recommendedCase: true,
+    level: 'master',
+    pedals: [
+      { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
+      { name: 'Plate reverb', kind: 'compact', powered: true, inLoop: false, currentMa: 100, voltage: 9 },
+    ],
   });
-  expect(created.status(), await created.text()).toBe(201);
-  const booking = await created.json();
-  const { url } = await (await player.post(`/api/bookings/${booking.id}/checkout`, { data: {} })).json();
-  await page.goto(url);
-  await page.getByLabel('Card number').fill('4242 4242 4242 4242');
-  await page.getByLabel('Expiry (MM/YY)').fill('12/34');
-  await page.getByLabel('Security code').fill('123');
-  await page.getByRole('button', { name: /^Pay / }).click();
-  await page.waitForURL((target) => target.origin === new URL(baseURL).origin);
-  await expect
-    .poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).depositStatus, { timeout: 20_000 })
-    .toBe('paid');
+  await payDeposit(page, player, booking.id, baseURL);
   await player.dispose();
-  return { id: booking.id as string, reference: booking.reference as string };
+  return booking;
 }
 
 test('a builder moves a scheduled build to another day from the Bench; the player’s page and mailbox show the new date', async ({
@@ -69,16 +50,8 @@ test('a builder moves a scheduled build to another day from the Bench; the playe
   const paid = await paidRequest(baseURL!, shop, email, password);
 
   // The builder accepts it at their earliest date (the accept dialog's own path is the main journey's).
-  const builder = await playwrightRequest.newContext({ baseURL });
-  expect(
-    (await builder.post('/api/auth/sign-in', { data: { email: 'builder@shop.example', password: 'demo-pass-2026' } })).ok(),
-  ).toBeTruthy();
-  const suggest = await (await builder.get('/api/bench/suggest', { params: { bookingId: paid.id } })).json();
-  const mine = suggest.suggestions.find((s: { builder: { isMe: boolean } }) => s.builder.isMe);
-  const accepted = await builder.post(`/api/bookings/${paid.id}/accept`, {
-    data: { builderId: mine.builder.id, benchDate: mine.benchDate },
-  });
-  expect(accepted.ok(), await accepted.text()).toBeTruthy();
+  const builder = await apiAs(baseURL!, 'builder@shop.example');
+  const mine = await acceptAtEarliest(builder, paid.id);
   const firstDate: string = mine.benchDate;
   // A week later, or the first day after that which holds it (the bench's own preview says which).
   const preview = await (
@@ -91,10 +64,7 @@ test('a builder moves a scheduled build to another day from the Bench; the playe
   await builder.dispose();
 
   // From the Bench: the build's Move button, a new day, a reason, and the preview before moving.
-  await shop.goto('/backoffice/sign-in');
-  await shop.getByLabel('E-mail').fill('builder@shop.example');
-  await shop.getByLabel('Password').fill('demo-pass-2026');
-  await shop.getByRole('button', { name: 'Sign in' }).click();
+  await signInOnPage(shop, 'backoffice', 'builder@shop.example');
   await expect(shop.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
   await shop.goto(`/backoffice/bench?day=${firstDate}`);
   const bench = shop.getByRole('table', { name: 'Bench time per builder and day' });
@@ -121,10 +91,7 @@ test('a builder moves a scheduled build to another day from the Bench; the playe
 
   // The player's build page shows the new date …
   const player = await browser.newPage();
-  await player.goto(`/sign-in?next=/builds/${paid.id}`);
-  await player.getByLabel('E-mail').fill(email);
-  await player.getByLabel('Password').fill(password);
-  await player.getByRole('button', { name: 'Sign in' }).click();
+  await signInOnPage(player, 'storefront', email, password, `/builds/${paid.id}`);
   // Signed in, the sign-in page sends the player on to the build it was asked for.
   await player.waitForURL((url) => url.pathname === `/builds/${paid.id}`);
   await expect(player.getByText(/^Bench date:/)).toContainText(writtenDay(newDate));

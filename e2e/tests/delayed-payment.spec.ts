@@ -1,5 +1,6 @@
 import { expect, test } from './csp';
 import { encodeConfiguration } from '@loomwright/shared';
+import { signInHere } from './people';
 
 // A plain serial board from the demo price book.
 const configuration = {
@@ -18,9 +19,7 @@ const configuration = {
 test('a player pays the deposit by bank debit, sees it settling, and the booking moves on when it settles', async ({ page, request }) => {
   await page.goto(`/request?c=${encodeConfiguration(configuration)}`);
   await expect(page).toHaveURL(/\/sign-in\?next=/);
-  await page.getByLabel('E-mail').fill('player@mail.example');
-  await page.getByLabel('Password').fill('demo-pass-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInHere(page, 'player@mail.example');
   await expect(page).toHaveURL(/\/request\?c=/);
   await page.getByRole('button', { name: 'Request build and pay deposit' }).click();
 

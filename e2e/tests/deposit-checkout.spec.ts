@@ -1,5 +1,6 @@
 import { expect, test } from './csp';
 import { encodeConfiguration } from '@loomwright/shared';
+import { signInHere } from './people';
 
 // A plain serial board from the demo price book.
 const configuration = {
@@ -15,9 +16,7 @@ test('a player requests a build, pays the deposit on the hosted page and sees it
   await page.goto(`/request?c=${encodeConfiguration(configuration)}`);
   // Not signed in: sent to sign in, then back to the request page with the same configuration.
   await expect(page).toHaveURL(/\/sign-in\?next=/);
-  await page.getByLabel('E-mail').fill('player@mail.example');
-  await page.getByLabel('Password').fill('demo-pass-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInHere(page, 'player@mail.example');
   await expect(page).toHaveURL(/\/request\?c=/);
   await expect(page.getByText(/refundable until a bench date is set/)).toBeVisible();
   await page.getByLabel('Notes for the shop (optional)').fill('Tuner first in the chain, please.');

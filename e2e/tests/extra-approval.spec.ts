@@ -1,6 +1,6 @@
 import { request as playwrightRequest, type APIRequestContext } from '@playwright/test';
 import { expect, test } from './csp';
-import { payOnHostedPage } from './people';
+import { acceptAtEarliest, apiAs, payDeposit, requestBuild, signInHere, signInOnPage } from './people';
 
 /**
  * An extra from proposal to delivery: the owner proposes an extra with its price, the player
@@ -30,42 +30,20 @@ test('the owner proposes an extra, the player approves it from the e-mail, pays 
   // Setup through the API (the deposit on the fake's hosted page): a paid, accepted build on the bench.
   const player: APIRequestContext = await playwrightRequest.newContext({ baseURL });
   expect((await player.post('/api/auth/sign-up', { data: { email, password, name } })).status()).toBe(201);
-  const catalog = await (await player.get('/api/catalog')).json();
-  const created = await player.post('/api/bookings', {
-    data: {
-      configuration: {
-        surfaceId: catalog.surfaces[0].id,
-        caseId: catalog.cases.find((c: { notRecommended: boolean }) => !c.notRecommended).id,
-        routing: { mode: 'serial' },
-        pedals: [
-          { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
-          { name: 'Plate reverb', kind: 'compact', powered: true, inLoop: false, currentMa: 100, voltage: 9 },
-        ],
-        functions: [],
-        level: 'master',
-      },
-    },
+  const booking = await requestBuild(player, {
+    recommendedCase: true,
+    level: 'master',
+    pedals: [
+      { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
+      { name: 'Plate reverb', kind: 'compact', powered: true, inLoop: false, currentMa: 100, voltage: 9 },
+    ],
   });
-  expect(created.status(), await created.text()).toBe(201);
-  const booking = await created.json();
   const payPage = await browser.newPage();
-  const deposit = await (await player.post(`/api/bookings/${booking.id}/checkout`, { data: {} })).json();
-  await payOnHostedPage(payPage, deposit.url, baseURL!);
-  await expect
-    .poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).depositStatus, { timeout: 20_000 })
-    .toBe('paid');
+  await payDeposit(payPage, player, booking.id, baseURL!);
   await payPage.close();
 
-  const builder = await playwrightRequest.newContext({ baseURL });
-  expect(
-    (await builder.post('/api/auth/sign-in', { data: { email: 'builder@shop.example', password: 'demo-pass-2026' } })).ok(),
-  ).toBeTruthy();
-  const suggest = await (await builder.get('/api/bench/suggest', { params: { bookingId: booking.id } })).json();
-  const mine = suggest.suggestions.find((s: { builder: { isMe: boolean } }) => s.builder.isMe);
-  const accepted = await builder.post(`/api/bookings/${booking.id}/accept`, {
-    data: { builderId: mine.builder.id, benchDate: mine.benchDate },
-  });
-  expect(accepted.ok(), await accepted.text()).toBeTruthy();
+  const builder = await apiAs(baseURL!, 'builder@shop.example');
+  await acceptAtEarliest(builder, booking.id);
   const intake = await builder.post(`/api/bookings/${booking.id}/intake`, {
     data: { items: ['Tuner', 'Plate reverb', 'Power supply'].map((item) => ({ item, condition: 'working' })) },
   });
@@ -77,10 +55,7 @@ test('the owner proposes an extra, the player approves it from the e-mail, pays 
 
   // The owner proposes the extra from the build page.
   const shop = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
-  await shop.goto('/backoffice/sign-in');
-  await shop.getByLabel('E-mail').fill('owner@shop.example');
-  await shop.getByLabel('Password').fill('demo-pass-2026');
-  await shop.getByRole('button', { name: 'Sign in' }).click();
+  await signInOnPage(shop, 'backoffice', 'owner@shop.example');
   await expect(shop.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
   await shop.goto(`/backoffice/builds/${booking.id}`);
   await shop.getByLabel('Extra', { exact: true }).fill('Longer road case');
@@ -111,9 +86,7 @@ test('the owner proposes an extra, the player approves it from the e-mail, pays 
   // The player's page is the test's own (its console is watched for CSP violations).
   await me.goto(link!);
   await me.waitForURL(/\/sign-in/);
-  await me.getByLabel('E-mail').fill(email);
-  await me.getByLabel('Password').fill(password);
-  await me.getByRole('button', { name: 'Sign in' }).click();
+  await signInHere(me, email, password);
   await me.waitForURL((url) => url.pathname === `/builds/${booking.id}`);
   const card = me.getByRole('region', { name: 'Extra: Longer road case' }).or(me.getByLabel('Extra: Longer road case'));
   await expect(card).toContainText('$45.50');

@@ -2,6 +2,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
 import { expect, test } from './csp';
+import { signInHere, signUpHere } from './people';
 
 /**
  * The main journey, end to end, as a player and the shop live it: configure a board, sign up,
@@ -76,17 +77,12 @@ async function mailboxOf(request: APIRequestContext, to: string): Promise<MailMe
 async function signUpFromSignIn(page: Page, name: string, email: string) {
   await expect(page).toHaveURL(/\/sign-in\?next=/);
   await page.getByRole('link', { name: 'Create an account' }).click();
-  await page.getByLabel('Your name').fill(name);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('a-long-player-password');
-  await page.getByRole('button', { name: 'Create account' }).click();
+  await signUpHere(page, name, email, 'a-long-player-password');
 }
 
 async function staffSignIn(page: Page, email: string) {
   await page.goto('/backoffice/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('demo-pass-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInHere(page, email);
   await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
 }
 

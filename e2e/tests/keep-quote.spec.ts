@@ -4,6 +4,7 @@ import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
 // tests use; the inner module is imported because the package's index runs a self-test.
 import pdfParse from 'pdf-parse/lib/pdf-parse.js';
 import { expect, test } from './csp';
+import { signUpHere } from './people';
 
 // A player keeps a quote: pins a pedal to a supply output, reads the numbered cable list, saves
 // the configuration under a name, reopens it from their saved boards, downloads the quote PDF and
@@ -68,10 +69,7 @@ test('a player pins a pedal, reads the cable list, saves and reopens the board, 
 
   // An account of their own (saving needs one).
   await page.goto('/sign-up');
-  await page.getByLabel('Your name').fill(`Ines Harrow ${stamp % 10000}`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('a-long-player-password');
-  await page.getByRole('button', { name: 'Create account' }).click();
+  await signUpHere(page, `Ines Harrow ${stamp % 10000}`, email, 'a-long-player-password');
   await expect(page.getByRole('link', { name: 'Saved boards' })).toBeVisible();
 
   // 1. Pin the fuzz to the third output of the supply (only the row being edited shows its fields).

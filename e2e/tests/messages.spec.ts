@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { request as playwrightRequest } from '@playwright/test';
 import { expect, test } from './csp';
-import { apiAs, payOnHostedPage, signInOnPage } from './people';
+import { acceptAtEarliest, apiAs, payDeposit, requestBuild, signInOnPage } from './people';
 
 /**
  * Messages on a build, walked in two browsers: the player writes with a photo on their build page,
@@ -25,35 +25,12 @@ test('a player and their builder exchange messages with a photo; unread badges a
   // A fresh player (so My builds holds just this build) asks for a build and pays the deposit; the demo builder accepts it.
   const player = await playwrightRequest.newContext({ baseURL });
   expect((await player.post('/api/auth/sign-up', { data: { email, password, name: `Ines Marwood ${stamp % 10000}` } })).status()).toBe(201);
-  const catalog = await (await player.get('/api/catalog')).json();
-  const created = await player.post('/api/bookings', {
-    data: {
-      configuration: {
-        surfaceId: catalog.surfaces[0].id,
-        caseId: catalog.cases[0].id,
-        routing: { mode: 'serial' },
-        pedalCount: 3,
-        functions: [],
-        level: 'journeyman',
-      },
-    },
-  });
-  expect(created.status(), await created.text()).toBe(201);
-  const booking = await created.json();
+  const booking = await requestBuild(player, { pedalCount: 3, level: 'journeyman' });
   const payPage = await browser.newPage();
-  const deposit = await (await player.post(`/api/bookings/${booking.id}/checkout`, { data: {} })).json();
-  await payOnHostedPage(payPage, deposit.url, baseURL!);
-  await expect
-    .poll(async () => (await (await player.get(`/api/bookings/${booking.id}`)).json()).depositStatus, { timeout: 20_000 })
-    .toBe('paid');
+  await payDeposit(payPage, player, booking.id, baseURL!);
   await payPage.close();
   const builderApi = await apiAs(baseURL!, 'builder@shop.example');
-  const suggest = await (await builderApi.get('/api/bench/suggest', { params: { bookingId: booking.id } })).json();
-  const mine = suggest.suggestions.find((s: { builder: { isMe: boolean } }) => s.builder.isMe);
-  const accepted = await builderApi.post(`/api/bookings/${booking.id}/accept`, {
-    data: { builderId: mine.builder.id, benchDate: mine.benchDate },
-  });
-  expect(accepted.ok(), await accepted.text()).toBeTruthy();
+  await acceptAtEarliest(builderApi, booking.id);
   const builderUnread = async () =>
     (
       (await (await builderApi.get('/api/messages/unread')).json()) as { total: number; bookings: { bookingId: string; unread: number }[] }

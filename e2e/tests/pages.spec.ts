@@ -2,6 +2,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
 import { expect, test } from './csp';
+import { signInHere } from './people';
 
 /**
  * Pages as a player and the shop meet them: every browser tab names its page and the shop (the
@@ -21,9 +22,7 @@ async function shopName(request: APIRequestContext): Promise<string> {
 
 async function playerSignIn(page: Page, next: string) {
   await page.goto(`/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel('E-mail').fill('player@mail.example');
-  await page.getByLabel('Password').fill('demo-pass-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInHere(page, 'player@mail.example');
   await expect(page).toHaveURL(new RegExp(`${next.replace(/\//g, '\\/')}$`), { timeout: 30_000 });
 }
 
@@ -79,9 +78,7 @@ test('every page names itself and the shop in the browser tab', async ({ page, r
   await page.context().clearCookies();
   await page.goto('/backoffice/sign-in');
   await expect(page).toHaveTitle(`Staff sign in · ${shop} · Backoffice`);
-  await page.getByLabel('E-mail').fill('owner@shop.example');
-  await page.getByLabel('Password').fill('demo-pass-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInHere(page, 'owner@shop.example');
   await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible({ timeout: 30_000 });
   for (const [url, title] of [
     ['/backoffice/requests', 'Requests'],

@@ -1,4 +1,5 @@
 import { expect, test } from './csp';
+import { signInHere } from './people';
 
 test('the storefront and the backoffice load, name the shop and report the database up', async ({ page, request }) => {
   const health = await request.get('/api/health');
@@ -12,9 +13,7 @@ test('the storefront and the backoffice load, name the shop and report the datab
   // The backoffice is staff-only: it asks for a sign-in first.
   await page.goto('/backoffice/');
   await expect(page.getByRole('heading', { name: 'Staff sign in' })).toBeVisible();
-  await page.getByLabel('E-mail').fill('owner@shop.example');
-  await page.getByLabel('Password').fill('demo-pass-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInHere(page, 'owner@shop.example');
   await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible();
   await expect(page.getByText('API and database up')).toBeVisible();
 

@@ -1,6 +1,7 @@
 import path from 'node:path';
-import { expect, request as playwrightRequest, test } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import pg from 'pg';
+import { apiAs, requestBuild, signInOnPage } from './people';
 
 /**
  * A builder's today and the calendar links, walked in the browser. The build is put on today's
@@ -15,25 +16,8 @@ test('a builder lands on their today, sees what a build waits for and opens it; 
   baseURL,
 }) => {
   test.setTimeout(180_000);
-  const player = await playwrightRequest.newContext({ baseURL });
-  expect(
-    (await player.post('/api/auth/sign-in', { data: { email: 'player@mail.example', password: 'demo-pass-2026' } })).ok(),
-  ).toBeTruthy();
-  const catalog = await (await player.get('/api/catalog')).json();
-  const created = await player.post('/api/bookings', {
-    data: {
-      configuration: {
-        surfaceId: catalog.surfaces[0].id,
-        caseId: catalog.cases[0].id,
-        routing: { mode: 'serial' },
-        pedalCount: 4,
-        functions: [],
-        level: 'journeyman',
-      },
-    },
-  });
-  expect(created.status(), await created.text()).toBe(201);
-  const booking = await created.json();
+  const player = await apiAs(baseURL!, 'player@mail.example');
+  const booking = await requestBuild(player, { pedalCount: 4, level: 'journeyman' });
   await player.dispose();
 
   const db = new pg.Client({ connectionString: databaseUrl });
@@ -57,10 +41,7 @@ test('a builder lands on their today, sees what a build waits for and opens it; 
 
   // Signed in with no page asked for, a builder lands on Today.
   const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-  await page.goto('/backoffice/sign-in');
-  await page.getByLabel('E-mail').fill('builder@shop.example');
-  await page.getByLabel('Password').fill('demo-pass-2026');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await signInOnPage(page, 'backoffice', 'builder@shop.example');
   await page.waitForURL('**/backoffice/today');
   const card = page.getByRole('article', { name: new RegExp(booking.reference) });
   await expect(card).toBeVisible();
@@ -80,10 +61,7 @@ test('a builder lands on their today, sees what a build waits for and opens it; 
   const owner = await browser.newContext({ viewport: { width: 1280, height: 900 } });
   await owner.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: baseURL });
   const office = await owner.newPage();
-  await office.goto('/backoffice/sign-in?next=/calendars');
-  await office.getByLabel('E-mail').fill('owner@shop.example');
-  await office.getByLabel('Password').fill('demo-pass-2026');
-  await office.getByRole('button', { name: 'Sign in' }).click();
+  await signInOnPage(office, 'backoffice', 'owner@shop.example', undefined, '/calendars');
   await office.waitForURL('**/backoffice/calendars');
   const shopFeed = office.getByRole('region', { name: 'The whole shop’s bench' });
   const oldLink = await shopFeed.getByRole('textbox').inputValue();
