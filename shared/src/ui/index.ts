@@ -16,3 +16,4 @@ export { documentTitle, useRouteTitle, type RouteTitleHandle } from './use-route
 export { ConversationPanel, messageKeys, UnreadCountChip, UnreadMessagesBadge, useUnreadMessages } from './ConversationPanel';
 export { ApiErrorAlert } from './ApiErrorAlert';
 export { errorAdvice, fieldsCoverError, formFieldName, setServerFieldErrors, type ErrorAdviceKind } from './error-advice';
+export { signIn, signOut, useSignIn, useSignOut } from './sign-in-out';

@@ -1,14 +1,1 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { AuthSessionResponse, SignInInput } from '@loomwright/shared';
-import { api } from 'src/lib/api-client';
-import { switchPerson } from './get-me';
-
-export const signIn = (input: SignInInput) => api.post<AuthSessionResponse>('/auth/sign-in', input);
-
-export function useSignIn() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: signIn,
-    onSuccess: ({ user }) => switchPerson(queryClient, user),
-  });
-}
+export { signIn, useSignIn } from '@loomwright/shared/ui';
