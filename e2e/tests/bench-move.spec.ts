@@ -1,5 +1,5 @@
 import { expect, request as playwrightRequest, test, type APIRequestContext, type Page } from '@playwright/test';
-import { acceptAtEarliest, apiAs, payDeposit, requestBuild, signInOnPage } from './people';
+import { acceptAtEarliest, apiAs, payDeposit, requestBuild, tunerAndReverb, signInOnPage } from './people';
 
 /**
  * When plans change: a builder moves a scheduled build to another day from the Bench, and the
@@ -24,14 +24,7 @@ async function paidRequest(baseURL: string, page: Page, email: string, password:
   const player: APIRequestContext = await playwrightRequest.newContext({ baseURL });
   const signUp = await player.post('/api/auth/sign-up', { data: { email, password, name: `Ines Marrow ${Date.now() % 10000}` } });
   expect(signUp.status(), await signUp.text()).toBe(201);
-  const booking = await requestBuild(player, {
-    recommendedCase: true,
-    level: 'master',
-    pedals: [
-      { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
-      { name: 'Plate reverb', kind: 'compact', powered: true, inLoop: false, currentMa: 100, voltage: 9 },
-    ],
-  });
+  const booking = await requestBuild(player, { recommendedCase: true, level: 'master', pedals: tunerAndReverb });
   await payDeposit(page, player, booking.id, baseURL);
   await player.dispose();
   return booking;

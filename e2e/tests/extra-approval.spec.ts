@@ -1,6 +1,6 @@
 import { request as playwrightRequest, type APIRequestContext } from '@playwright/test';
 import { expect, test } from './csp';
-import { acceptAtEarliest, apiAs, payDeposit, requestBuild, signInHere, signInOnPage } from './people';
+import { acceptAtEarliest, apiAs, payDeposit, requestBuild, tunerAndReverb, signInHere, signInOnPage } from './people';
 
 /**
  * An extra from proposal to delivery: the owner proposes an extra with its price, the player
@@ -30,14 +30,7 @@ test('the owner proposes an extra, the player approves it from the e-mail, pays 
   // Setup through the API (the deposit on the fake's hosted page): a paid, accepted build on the bench.
   const player: APIRequestContext = await playwrightRequest.newContext({ baseURL });
   expect((await player.post('/api/auth/sign-up', { data: { email, password, name } })).status()).toBe(201);
-  const booking = await requestBuild(player, {
-    recommendedCase: true,
-    level: 'master',
-    pedals: [
-      { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
-      { name: 'Plate reverb', kind: 'compact', powered: true, inLoop: false, currentMa: 100, voltage: 9 },
-    ],
-  });
+  const booking = await requestBuild(player, { recommendedCase: true, level: 'master', pedals: tunerAndReverb });
   const payPage = await browser.newPage();
   await payDeposit(payPage, player, booking.id, baseURL!);
   await payPage.close();

@@ -54,6 +54,12 @@ export interface RequestPedal {
   voltage: number;
 }
 
+/** Two pedals for a small master-level board (a tuner first, then a reverb). */
+export const tunerAndReverb: RequestPedal[] = [
+  { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false, currentMa: 80, voltage: 9 },
+  { name: 'Plate reverb', kind: 'compact', powered: true, inLoop: false, currentMa: 100, voltage: 9 },
+];
+
 /**
  * The signed-in player asks for a plain serial build on the catalog's first surface and its first
  * case (or the first recommended one), with these pedals (or a pedal count), and gets the booking back.
