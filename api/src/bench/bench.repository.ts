@@ -221,18 +221,8 @@ export class BenchRepository {
 
   /** The builder's row and account, locked so two resends of one invitation go one after the other. */
   lockInvitedBuilder(builderId: string, trx: Executor) {
-    return trx
-      .selectFrom('builders')
-      .innerJoin('users', 'users.id', 'builders.user_id')
-      .select([
-        'builders.id',
-        'builders.level',
-        'builders.hourly_rate',
-        'users.id as user_id',
-        'users.email',
-        'users.name',
-        'users.password_hash',
-      ])
+    return this.buildersWithAccounts(trx)
+      .select('users.password_hash')
       .where('builders.id', '=', builderId)
       .forUpdate('builders')
       .executeTakeFirst();

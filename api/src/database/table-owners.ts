@@ -26,19 +26,7 @@ export const TABLE_OWNERS: Readonly<Record<TableName, TableOwnership>> = {
   users: {
     owner: 'users',
     holds: 'accounts: players, builders, the owner',
-    readers: [
-      'auth',
-      'bench',
-      'bookings',
-      'builds',
-      'calendar-feeds',
-      'customers',
-      'exports',
-      'messages',
-      'payments',
-      'price-book',
-      'reminders',
-    ],
+    readers: ['auth', 'bench', 'bookings', 'builds', 'calendar-feeds', 'customers', 'exports', 'messages', 'payments', 'price-book'],
   },
   auth_tokens: { owner: 'auth', holds: 'one-use links (reset, invitation)', readers: ['team'] },
   sessions: { owner: 'auth', holds: 'signed-in sessions', readers: [] },
@@ -47,7 +35,7 @@ export const TABLE_OWNERS: Readonly<Record<TableName, TableOwnership>> = {
   builders: {
     owner: 'bench',
     holds: "a builder's level, rate and weekly hours",
-    readers: ['bookings', 'builds', 'calendar-feeds', 'customers', 'exports', 'mail', 'messages', 'reminders', 'today'],
+    readers: ['bookings', 'builds', 'calendar-feeds', 'customers', 'exports', 'mail', 'messages', 'today'],
   },
   builder_absences: { owner: 'bench', holds: 'days a builder is away', readers: [] },
   bench_allocations: {
@@ -70,7 +58,7 @@ export const TABLE_OWNERS: Readonly<Record<TableName, TableOwnership>> = {
   bookings: {
     owner: 'bookings',
     holds: 'a build request and its state',
-    readers: ['bench', 'customers', 'exports', 'mail', 'messages', 'reminders'],
+    readers: ['bench', 'customers', 'exports', 'mail', 'messages'],
   },
   quotes: { owner: 'bookings', holds: 'estimate and firm quotes of a booking', readers: ['exports'] },
   booking_events: { owner: 'bookings', holds: "a booking's history (both timelines)", readers: ['reminders'] },
@@ -88,7 +76,7 @@ export const TABLE_OWNERS: Readonly<Record<TableName, TableOwnership>> = {
   },
   payment_events: { owner: 'payments', holds: 'provider events seen once each', readers: [] },
 
-  mail_outbox: { owner: 'mail', holds: 'every e-mail, queued to sent', readers: ['customers', 'quotes'] },
+  mail_outbox: { owner: 'mail', holds: 'every e-mail, queued to sent', readers: ['customers'] },
   build_messages: { owner: 'messages', holds: 'messages on a build', readers: [] },
   message_read_markers: { owner: 'messages', holds: 'how far each side has read', readers: [] },
   message_notices: { owner: 'messages', holds: 'batched message mails', readers: [] },

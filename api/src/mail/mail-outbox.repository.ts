@@ -245,4 +245,17 @@ export class MailOutboxRepository {
       .groupBy('state')
       .execute();
   }
+
+  /** How many letters of one template a person was sent in the last hour (a resend does not count). */
+  sentInLastHour(trx: Executor, userId: string, template: string) {
+    return trx
+      .selectFrom('mail_outbox')
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .where('user_id', '=', userId)
+      .where('template', '=', template)
+      .where('created_at', '>', sql<Date>`now() - interval '1 hour'`)
+      .where('resent_from_id', 'is', null)
+      .executeTakeFirstOrThrow()
+      .then((r) => Number(r.n));
+  }
 }

@@ -21,6 +21,7 @@ import { ShopService } from '../shop/shop.service';
 import { renderQuote } from './quote-document';
 import { paperSizeFor } from '../common/paper-size';
 import { quoteMailLines } from '../mail/quote-mail-lines';
+import { MailOutboxRepository } from '../mail/mail-outbox.repository';
 import { QuotesRepository } from './quotes.repository';
 
 const QUOTE_MAIL = 'configuration-quote' as const;
@@ -48,6 +49,7 @@ export class QuotesService {
     private readonly bookings: BookingsService,
     private readonly configurations: ConfigurationsService,
     private readonly quotes: QuotesRepository,
+    private readonly outbox: MailOutboxRepository,
     config: ConfigService<AppConfig, true>,
   ) {
     this.publicUrl = config.get('app', { infer: true }).publicUrl;
@@ -72,7 +74,7 @@ export class QuotesService {
     const link = await this.configurations.link(configuration);
     return this.db.transaction().execute(async (trx) => {
       await this.quotes.lockQuoteMail(trx, user.id);
-      const sent = await this.quotes.quoteMailsInLastHour(trx, user.id, QUOTE_MAIL);
+      const sent = await this.outbox.sentInLastHour(trx, user.id, QUOTE_MAIL);
       if (sent >= QUOTE_EMAILS_PER_HOUR) throw new HttpException(configurationMessages.quoteEmailLimit, HttpStatus.TOO_MANY_REQUESTS);
       await this.mail.enqueue(trx, {
         template: QUOTE_MAIL,

@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { sql } from 'kysely';
 import type { ReminderKind } from '@loomwright/shared';
+import { BookingsRepository } from '../bookings/bookings.repository';
 import { Database, type Executor } from '../database/database';
 
 /**
@@ -10,7 +11,10 @@ import { Database, type Executor } from '../database/database';
  */
 @Injectable()
 export class RemindersRepository {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly bookings: BookingsRepository,
+  ) {}
 
   settings(trx: Executor = this.db) {
     return trx.selectFrom('reminder_settings').select(['kind', 'enabled', 'amount']).execute();
@@ -48,9 +52,8 @@ export class RemindersRepository {
   }
 
   private bookingsWithPeople(trx: Executor) {
-    return trx
-      .selectFrom('bookings as b')
-      .innerJoin('users as c', 'c.id', 'b.customer_id')
+    return this.bookings
+      .withPeople(trx)
       .select([
         'b.id',
         'b.reference',
@@ -66,9 +69,7 @@ export class RemindersRepository {
   /** Scheduled builds, pedals still to come, bench date from `from` to `to`, no tracking number. */
   shipByDue(range: { from: string; to: string }, bookingId?: string, trx: Executor = this.db) {
     let query = this.bookingsWithPeople(trx)
-      .leftJoin('builders as bu', 'bu.id', 'b.builder_id')
-      .leftJoin('users as bu_user', 'bu_user.id', 'bu.user_id')
-      .select(['bu_user.id as builder_user_id', 'bu_user.name as builder_name', 'bu_user.email as builder_email'])
+      .select(['bu.id as builder_user_id', 'bu.name as builder_name', 'bu.email as builder_email'])
       .where('b.state', '=', 'scheduled')
       .where('b.bench_date', '>=', range.from)
       .where('b.bench_date', '<=', range.to)
