@@ -88,14 +88,22 @@ describe('security headers on every answer', () => {
   });
 
   it('serves pages whose scripts all come from files, so they run without unsafe-inline scripts', async () => {
-    for (const url of ['/', '/backoffice/', '/api/docs']) {
+    for (const url of ['/', '/configure', '/account', '/backoffice/', '/api/docs']) {
       const html = (await t.http().get(url).expect(200)).text;
       expect(html).toMatch(/<script\b[^>]*\bsrc=/);
       expect(inlineScripts(html), `${url} has an inline script`).toEqual([]);
     }
     // The check itself catches an inline script.
     expect(inlineScripts('<script type="module">import("/x.js")</script>')).toHaveLength(1);
-    // And the files on disk are the ones served.
-    expect(readFileSync(path.join(repoRoot, 'storefront', 'dist', 'index.html'), 'utf8')).toBe((await t.http().get('/').expect(200)).text);
+    // And the files on disk are the ones served: `/` and `/configure` have their own page files (each
+    // preloads its first screen), every other storefront page is the app's index.html.
+    for (const [url, file] of [
+      ['/', 'home.html'],
+      ['/configure', 'configure.html'],
+      ['/account', 'index.html'],
+    ]) {
+      const served = (await t.http().get(url).expect(200)).text;
+      expect(readFileSync(path.join(repoRoot, 'storefront', 'dist', file), 'utf8'), `${url} serves ${file}`).toBe(served);
+    }
   });
 });
