@@ -35,7 +35,7 @@ export function Component() {
   if (booking.isPending)
     return (
       <Stack alignItems="center" sx={{ py: 6 }}>
-        <CircularProgress />
+        <CircularProgress aria-label="Loading your booking" />
       </Stack>
     );
   if (booking.error)
@@ -72,7 +72,7 @@ export function Component() {
       <Typography level="h1" sx={{ fontSize: 'xl2' }}>
         {title}
       </Typography>
-      {result === 'paid' && !depositSettled(b) && <CircularProgress size="sm" />}
+      {result === 'paid' && !depositSettled(b) && <CircularProgress size="sm" aria-label="Waiting for the payment to be confirmed" />}
       <Typography>{body}</Typography>
       <Stack direction="row" gap={1} flexWrap="wrap">
         {b.state === 'requested' && b.depositStatus !== 'paid' && result !== 'paid' && (
