@@ -5,6 +5,7 @@
 // RUNS times, each to a count not asked before (so no cached answer), and prints the spread.
 // Needs the product running: BENCH_URL=http://localhost:3105 node e2e/bench/estimate-latency.mjs
 import { chromium } from '@playwright/test';
+import { latencyBoardLink } from './latency-board.mjs';
 
 const baseUrl = process.env.BENCH_URL ?? 'http://localhost:3000';
 const runs = Number(process.env.RUNS ?? 30);
@@ -22,16 +23,7 @@ const browser = await chromium.launch({
 });
 try {
   const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
-  // Nothing is priced until a surface, a case and pedals are chosen: open a link that has all three.
-  const configuration = {
-    surfaceId: 'ridge-100',
-    caseId: 'shell-hard',
-    routing: { mode: 'serial' },
-    pedalCount: 6,
-    functions: [],
-    level: 'apprentice',
-  };
-  await page.goto(`${baseUrl}/configure?step=pedals&c=${Buffer.from(JSON.stringify(configuration), 'utf8').toString('base64url')}`);
+  await page.goto(`${baseUrl}/configure?step=pedals&c=${latencyBoardLink()}`);
   await page.getByTestId('estimate-total').filter({ hasText: '$' }).waitFor();
   const more = page.getByRole('button', { name: 'One pedal more' });
   const durations = [];

@@ -14,6 +14,7 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { brotliCompressSync, gzipSync } from 'node:zlib';
+import { latencyBoardLink } from './latency-board.mjs';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const root = path.resolve(here, '../..');
@@ -391,18 +392,6 @@ async function lighthouseSection() {
 }
 
 // ---------------------------------------------------------------- estimate on screen
-/** A configuration link (base64url JSON, the storefront's codec) with a surface, a case and six counted pedals. */
-function latencyBoardLink() {
-  const configuration = {
-    surfaceId: 'ridge-100',
-    caseId: 'shell-hard',
-    routing: { mode: 'serial' },
-    pedalCount: 6,
-    functions: [],
-    level: 'apprentice',
-  };
-  return Buffer.from(JSON.stringify(configuration), 'utf8').toString('base64url');
-}
 
 async function latencySection() {
   const { chromium } = require('@playwright/test');
