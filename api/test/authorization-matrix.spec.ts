@@ -96,6 +96,8 @@ const matrix: Record<string, Entry> = {
   'GET /api/auth/session': open(200),
   'POST /api/auth/password-reset': open(400),
   'POST /api/auth/password-reset/confirm': open(400),
+  // Any signed-in person changes their own password (the empty body stops at validation).
+  'POST /api/auth/password': signedIn(400),
   'GET /api/users/:userId/sessions': { ...ownerOnly(200), path: (fx) => `/api/users/${fx.bystander}/sessions` },
   'DELETE /api/users/:userId/sessions': { ...ownerOnly(200), path: (fx) => `/api/users/${fx.bystander}/sessions` },
   'POST /api/invitations': ownerOnly(400),

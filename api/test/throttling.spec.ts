@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sessionCookieFor } from './support/sessions';
 import { createTestApp, type TestApp } from './support/test-app';
 
 // A small limit so the test reaches it quickly; production defaults to 10 tries a minute per
@@ -26,6 +27,27 @@ describe('throttling of sign-in, sign-up and reset', () => {
     // RFC 6585 §4: a 429 may say how long to wait. @nestjs/throttler names the header after the
     // bucket that ran out (Retry-After-<name>), in seconds.
     expect(Number(blocked.headers['retry-after-address-and-email'])).toBeGreaterThan(0);
+  });
+
+  it('stalls guessing the current password when changing it, per signed-in account', async () => {
+    const cookie = await sessionCookieFor(t, 'customerB');
+    const statuses: number[] = [];
+    for (let i = 0; i <= LIMIT; i++) {
+      const res = await t
+        .http()
+        .post('/api/auth/password')
+        .set('Cookie', cookie)
+        .send({ currentPassword: `guess-${i}`, password: 'a-new-password-1' });
+      statuses.push(res.status);
+    }
+    expect(statuses).toEqual([...Array(LIMIT).fill(400), 429]);
+    // The bucket is the account's: another person signed in from the same address is not stalled by it.
+    const other = await t
+      .http()
+      .post('/api/auth/password')
+      .set('Cookie', await sessionCookieFor(t, 'apprentice'))
+      .send({ currentPassword: 'a-wrong-guess', password: 'a-new-password-1' });
+    expect(other.status).toBe(400);
   });
 
   it('keeps counting per address too, so spraying many e-mails from one place also stalls', async () => {

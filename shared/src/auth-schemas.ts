@@ -16,6 +16,9 @@ export const authMessages = {
   passwordShort: authWords.passwordShort(PASSWORD_MIN_LENGTH),
   passwordLong: authWords.passwordLong(PASSWORD_MAX_LENGTH),
   passwordsDiffer: authWords.passwordsDiffer,
+  passwordUnchanged: authWords.passwordUnchanged,
+  currentPasswordWrong: authWords.currentPasswordWrong,
+  passwordChanged: 'Your password is changed. Every other device where you were signed in is now signed out.',
   nameEmpty: authWords.nameEmpty,
   nameLong: authWords.nameLong,
   token: authWords.token,
@@ -50,13 +53,13 @@ const name = z
 // Reset and invitation tokens are 32 random bytes, base64url: 43 characters.
 const token = z.string({ message: authMessages.token }).regex(/^[A-Za-z0-9_-]{43}$/, { message: authMessages.token });
 
-export const signInSchema = requestObject({
-  email,
-  password: z
-    .string({ message: authMessages.passwordEmpty })
-    .min(1, { message: authMessages.passwordEmpty })
-    .max(PASSWORD_MAX_LENGTH, { message: authMessages.passwordLong }),
-});
+/** A password as typed to prove who one is (sign-in, or the current one when changing it): any length up to the maximum. */
+const typedPassword = z
+  .string({ message: authMessages.passwordEmpty })
+  .min(1, { message: authMessages.passwordEmpty })
+  .max(PASSWORD_MAX_LENGTH, { message: authMessages.passwordLong });
+
+export const signInSchema = requestObject({ email, password: typedPassword });
 export type SignInInput = z.infer<typeof signInSchema>;
 
 export const signUpSchema = requestObject({ name, email, password: newPassword });
@@ -67,6 +70,16 @@ export type PasswordResetRequestInput = z.infer<typeof passwordResetRequestSchem
 
 export const passwordResetConfirmSchema = requestObject({ token, password: newPassword });
 export type PasswordResetConfirmInput = z.infer<typeof passwordResetConfirmSchema>;
+
+/**
+ * POST /api/auth/password: a signed-in person changes their password. The current one proves it is
+ * them (a session left open on a shared computer is not enough); the new one follows the sign-up rule.
+ */
+export const passwordChangeSchema = requestObject({ currentPassword: typedPassword, password: newPassword }).refine(
+  (body) => body.password !== body.currentPassword,
+  { path: ['password'], message: authMessages.passwordUnchanged },
+);
+export type PasswordChangeInput = z.infer<typeof passwordChangeSchema>;
 
 export const acceptInvitationSchema = requestObject({ token, password: newPassword });
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
@@ -87,6 +100,13 @@ export const newPasswordFormSchema = z
   .object({ password: newPassword, repeatPassword: z.string() })
   .refine((v) => v.password === v.repeatPassword, { message: authMessages.passwordsDiffer, path: ['repeatPassword'] });
 export type NewPasswordFormInput = z.infer<typeof newPasswordFormSchema>;
+
+/** The account page's form: the current password, then the new one twice (the API takes it once). */
+export const changePasswordFormSchema = z
+  .object({ currentPassword: typedPassword, password: newPassword, repeatPassword: z.string() })
+  .refine((v) => v.password === v.repeatPassword, { message: authMessages.passwordsDiffer, path: ['repeatPassword'] })
+  .refine((v) => v.password !== v.currentPassword, { message: authMessages.passwordUnchanged, path: ['password'] });
+export type ChangePasswordFormInput = z.infer<typeof changePasswordFormSchema>;
 
 /**
  * Where to go after signing in: only a path inside this app (starts with one "/"), never another

@@ -5,12 +5,17 @@ import { Pool } from 'pg';
 import type { AppConfig } from '../config/configuration';
 import { PostgresThrottlerStorage } from './postgres-throttler-storage';
 
-const emailOf = (req: { body?: { email?: unknown } }): string =>
-  typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
+/** The account a password attempt is for: the e-mail typed, or the signed-in person's (changing a password). */
+const emailOf = (req: { body?: { email?: unknown }; user?: { email?: unknown } }): string =>
+  typeof req.body?.email === 'string'
+    ? req.body.email.trim().toLowerCase()
+    : typeof req.user?.email === 'string'
+      ? req.user.email.toLowerCase()
+      : '';
 
 /**
  * Limits for the routes that take a password or send a link (sign-in, sign-up, reset, accepting
- * an invitation). Two buckets: one per client address and e-mail, so guessing one account's
+ * an invitation, changing a password). Two buckets: one per client address and e-mail, so guessing one account's
  * password stalls quickly; and a looser one per client address, so trying many accounts from one
  * place stalls too. The guard is applied per route with @UseGuards(ThrottlerGuard), not globally.
  * The counts live in PostgreSQL (PostgresThrottlerStorage), shared by every API process. Behind a

@@ -4,11 +4,13 @@ import { ApiAcceptedResponse, ApiCreatedResponse, ApiOkResponse, ApiOperation, A
 import { ThrottlerGuard } from '@nestjs/throttler';
 import {
   authMessages,
+  passwordChangeSchema,
   passwordResetConfirmSchema,
   passwordResetRequestSchema,
   signInSchema,
   signUpSchema,
   type AuthUser,
+  type PasswordChangeInput,
   type PasswordResetConfirmInput,
   type PasswordResetRequestInput,
   type SignInInput,
@@ -132,5 +134,28 @@ export class AuthController {
     const user = await this.auth.confirmPasswordReset(body.token, body.password);
     await this.auth.startSession(res, user, req);
     return { user };
+  }
+
+  @UseGuards(ThrottlerGuard)
+  @SkipSessionRenewal()
+  @ApiOperation({ summary: 'Change the signed-in person’s password' })
+  @ApiZodResponse(responseSchemas.authSessionResponseSchema)
+  @ApiErrorCodes('current_password_wrong')
+  @Post('password')
+  @HttpCode(200)
+  @ApiOkResponse({
+    description:
+      'The password is changed; every session of the account is ended, a new session cookie is set for this device, and the account’s e-mail address is told.',
+  })
+  @ApiZodBody(passwordChangeSchema)
+  async changePassword(
+    @CurrentUser() user: SessionUser,
+    @Body(new ZodValidationPipe(passwordChangeSchema)) body: PasswordChangeInput,
+    @Req() req: Request,
+    @Res({ passthrough: true }) res: Response,
+  ) {
+    const changed = await this.auth.changePassword(user.id, body.currentPassword, body.password);
+    await this.auth.startSession(res, changed, req);
+    return { user: changed };
   }
 }

@@ -125,7 +125,42 @@ export class AuthService implements OnModuleInit {
       const row = await this.users.setPassword(userId, passwordHash, trx);
       if (!row) throw new BadRequestException(errorResponse('link_invalid', authMessages.resetTokenInvalid));
       await this.users.recordSignIn(userId, trx);
+      await this.tellPasswordChanged(trx, row, 'reset-link');
       return toAuthUser(row);
+    });
+  }
+
+  /**
+   * A signed-in person changes their password. The current password must be given again (a session
+   * left open on a shared computer is not enough). Every session of the account ends, this one
+   * included (the caller opens a fresh one for this device), any unused reset link stops working,
+   * and the address on the account is told.
+   */
+  async changePassword(userId: string, currentPassword: string, password: string): Promise<AuthUser> {
+    const current = await this.users.findById(userId);
+    const ok = await verifyPassword(currentPassword, current?.password_hash ?? (await decoyPasswordHash()));
+    if (!current) throw new UnauthorizedException(errorResponse('session_ended', 'Your session has ended; please sign in again.'));
+    if (!current.password_hash || !ok) {
+      throw new BadRequestException(errorResponse('current_password_wrong', authMessages.currentPasswordWrong));
+    }
+    const passwordHash = await hashPassword(password);
+    return this.db.transaction().execute(async (trx) => {
+      await this.sessions.endAllFor(userId, 'password_changed', userId, trx);
+      await this.tokens.retireUnused(trx, userId, 'password_reset');
+      const row = await this.users.setPassword(userId, passwordHash, trx);
+      if (!row) throw new UnauthorizedException(errorResponse('session_ended', 'Your session has ended; please sign in again.'));
+      await this.tellPasswordChanged(trx, row, 'signed-in');
+      return toAuthUser(row);
+    });
+  }
+
+  /** The account's address hears of every password change, with a way back in should it not have been its owner. */
+  private tellPasswordChanged(trx: Executor, row: { id: string; email: string; name: string }, how: 'signed-in' | 'reset-link') {
+    return this.mail.enqueue(trx, {
+      template: 'password-changed',
+      to: row.email,
+      userId: row.id,
+      data: { name: row.name, changedAt: new Date().toISOString(), how, forgotPasswordUrl: `${this.publicUrl}/forgot-password` },
     });
   }
 

@@ -5,6 +5,7 @@
 export const mailTemplates = [
   'welcome',
   'password-reset',
+  'password-changed',
   'staff-invite',
   'booking-requested',
   'deposit-received',
@@ -67,6 +68,8 @@ type BookingLink = { bookingUrl?: string };
 export type MailTemplateData = {
   welcome: Recipient & { configureUrl?: string; signInUrl?: string; accountUrl?: string };
   'password-reset': Recipient & { resetUrl: string; expiresAt: string };
+  /** Sent after every password change (signed in, or through a reset link): the owner of the address hears of it. */
+  'password-changed': Recipient & { changedAt: string; how: 'signed-in' | 'reset-link'; forgotPasswordUrl: string };
   'staff-invite': Recipient & {
     /** The single-use link that sets the builder's first password. */
     inviteUrl: string;

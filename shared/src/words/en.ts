@@ -145,6 +145,9 @@ export const authWords = {
   passwordShort: (min: number) => `Choose a password of at least ${min} characters`,
   passwordLong: (max: number) => `A password can be at most ${max} characters long`,
   passwordsDiffer: 'The two passwords do not match; type the same password twice',
+  passwordUnchanged: 'Choose a new password that differs from your current one',
+  currentPasswordWrong:
+    'That is not your current password. Type it again, or sign out and choose a new one with "Forgot your password?" on the sign-in page',
   nameEmpty: 'Enter a name',
   nameLong: 'A name can be at most 120 characters long',
   token: 'This link is incomplete; open the link from the e-mail again',

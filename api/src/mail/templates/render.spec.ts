@@ -145,6 +145,12 @@ const samples: { [T in MailTemplate]: MailTemplateData[T] } = {
   },
   'checkout-reminder': { name: 'Rosa', reference: 'LW-1042', kind: 'deposit', amount: '280.00', currency: 'USD', payUrl: 'http://x/b' },
   'request-expired': { name: 'Rosa', reference: 'LW-1042', days: 30, configureUrl: 'http://x/configure' },
+  'password-changed': {
+    name: 'Rosa',
+    changedAt: '2027-01-10T15:04:00.000Z',
+    how: 'signed-in',
+    forgotPasswordUrl: 'http://x/forgot-password',
+  },
   'configuration-quote': {
     name: 'Rosa',
     title: 'Stage board',

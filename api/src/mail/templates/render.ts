@@ -438,6 +438,26 @@ const drafts: Drafts = {
       ],
     },
   }),
+  'password-changed': (data, shop) => ({
+    subject: `Your ${shop.name} password was changed`,
+    letter: {
+      heading: 'Your password was changed',
+      blocks: [
+        {
+          kind: 'p',
+          text: `Hello ${recipient(data)}, the password of this account was changed ${
+            data.how === 'reset-link' ? 'with a reset link sent to this address' : 'by someone signed in to it'
+          }. Every device that was signed in has been signed out.`,
+        },
+        { kind: 'facts', rows: [['Changed at', formatInstant(requireString(data, 'changedAt'), shop.timezone)]] },
+        {
+          kind: 'p',
+          text: 'If this was you, there is nothing more to do. If it was not, choose a new password now with the link below, and reply to this message so the shop knows.',
+        },
+        open('Choose a new password', requireString(data, 'forgotPasswordUrl')),
+      ],
+    },
+  }),
   'staff-invite': (data, shop) => ({
     subject: `You are invited to the ${shop.name} backoffice`,
     letter: {

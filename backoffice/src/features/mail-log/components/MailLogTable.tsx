@@ -35,6 +35,7 @@ const stateColor: Record<MailState, 'neutral' | 'primary' | 'success' | 'warning
 const templateWords: Record<string, string> = {
   welcome: 'Welcome',
   'password-reset': 'Password reset',
+  'password-changed': 'Password changed',
   'staff-invite': 'Staff invitation',
   'booking-requested': 'Request received',
   'deposit-received': 'Deposit received',
