@@ -1,4 +1,5 @@
 import Button from '@mui/joy/Button';
+import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
 import type { AuthUser } from '@loomwright/shared';
@@ -28,6 +29,10 @@ export function SignedInStaff({ user }: { user: AuthUser }) {
       >
         Sign out
       </Button>
+      {/* The account page is the storefront's, outside the backoffice's base path: one place to change a password for everyone. */}
+      <Link href="/account" level="body-xs">
+        Change password
+      </Link>
     </Stack>
   );
 }
