@@ -24,6 +24,8 @@ export class ApiError extends Error {
     code?: ClientErrorCode,
     /** Each problem with its field's path, when the answer names them (`validation_failed`). */
     readonly issues: ApiFieldIssue[] = [],
+    /** The answer's Retry-After in seconds (a 429 or 503 says how long to wait), when it gave one. */
+    readonly retryAfterSeconds?: number,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -54,8 +56,11 @@ export interface ApiClient {
   post<T>(path: string, body?: unknown, options?: Omit<RequestOptions, 'method' | 'body'>): Promise<T>;
 }
 
-/** An ApiError from an error answer's status and body (`{ statusCode, code, message, details?, issues? }`). */
-export function apiErrorFrom(status: number, body: unknown): ApiError {
+/**
+ * An ApiError from an error answer's status and body (`{ statusCode, code, message, details?, issues? }`),
+ * and its Retry-After header when it has one (whole seconds; the date form is not read).
+ */
+export function apiErrorFrom(status: number, body: unknown, retryAfter?: string | null): ApiError {
   const given =
     body && typeof body === 'object' ? (body as { code?: unknown; message?: unknown; details?: unknown; issues?: unknown }) : {};
   const code = typeof given.code === 'string' && Object.hasOwn(ERROR_CODES, given.code) ? (given.code as ErrorCode) : undefined;
@@ -79,6 +84,7 @@ export function apiErrorFrom(status: number, body: unknown): ApiError {
     details,
     code,
     issues.map(({ path, message }) => ({ path, message })),
+    retryAfter && /^\d+$/.test(retryAfter.trim()) ? Number(retryAfter) : undefined,
   );
 }
 
@@ -108,7 +114,7 @@ export function createApiClient(baseUrl = '/api', fetchImpl: typeof fetch = (...
     const text = await response.text();
     const body = text ? safeJson(text) : undefined;
     if (!response.ok) {
-      throw apiErrorFrom(response.status, body);
+      throw apiErrorFrom(response.status, body, response.headers.get('Retry-After'));
     }
     return body as T;
   }
