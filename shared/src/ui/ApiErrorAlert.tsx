@@ -4,7 +4,7 @@ import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
 import { Link as RouterLink } from 'react-router';
-import { errorAdvice } from './error-advice';
+import { errorAdvice, fieldsCoverError } from './error-advice';
 
 interface Props {
   error: Error | null | undefined;
@@ -16,14 +16,19 @@ interface Props {
   newLink?: { href: string; label: string };
   /** Offered as "Try again" when the shop was busy or away. */
   onRetry?: () => void;
+  /**
+   * The form's own fields: when every problem of a `validation_failed` answer found one of them
+   * (`setServerFieldErrors` put it there), the alert is left out; the words stand under the fields.
+   */
+  fields?: readonly string[];
 }
 
 /**
  * A refused or failed call in words: the server's own sentence, then what to do about it, picked by
  * the answer's code (`errorAdvice`): sign in again, wait and retry, pick another date, ask for a new link.
  */
-export function ApiErrorAlert({ error, action, signInHref = '/sign-in', newLink, onRetry }: Props) {
-  if (!error) return null;
+export function ApiErrorAlert({ error, action, signInHref = '/sign-in', newLink, onRetry, fields }: Props) {
+  if (!error || (fields && fieldsCoverError(error, fields))) return null;
   const advice = errorAdvice(error);
   return (
     <Alert color={advice === 'other' || advice === 'fields' ? 'danger' : 'warning'} variant="soft" role="alert" data-advice={advice}>

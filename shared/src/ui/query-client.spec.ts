@@ -1,6 +1,7 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { ApiError, apiErrorFrom, createApiClient } from '../api-client';
 import { ERROR_CODE_STATUS, errorCodes, type ErrorCode } from '../error-codes';
+import { authKeys } from './get-me';
 import { canSucceedOnRetry, createQueryClient, retryRead, retryReadDelay } from './query-client';
 
 const answer = (code: ErrorCode, retryAfter?: string) =>
@@ -75,7 +76,7 @@ describe('the apps’ QueryClient with these rules, over the real API client', (
     const api = createApiClient('/api', fetchImpl);
     const client = createQueryClient();
     vi.useFakeTimers();
-    const read = client.fetchQuery({ queryKey: ['a-read'], queryFn: () => api.get('/a-read') }).then(
+    const read = client.fetchQuery({ queryKey: authKeys.me(), queryFn: () => api.get('/a-read') }).then(
       (data) => ({ data }),
       (error: unknown) => ({ error }),
     );

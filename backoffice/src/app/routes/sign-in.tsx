@@ -1,11 +1,11 @@
 import Link from '@mui/joy/Link';
 import { safeNextPath, staffRoles } from '@loomwright/shared';
+import { SignInForm } from '@loomwright/shared/ui';
 import { Navigate, useNavigate, useSearchParams } from 'react-router';
 import { PageLoading } from 'src/components/PageLoading';
 import { useMe } from 'src/features/auth/api/get-me';
 import { AuthCard } from 'src/features/auth/components/AuthCard';
 import { StaffOnly } from 'src/features/auth/components/StaffOnly';
-import { StaffSignInForm } from 'src/features/auth/components/StaffSignInForm';
 
 export function Component() {
   const me = useMe();
@@ -18,7 +18,11 @@ export function Component() {
   if (me.data) return <StaffOnly user={me.data} />;
   return (
     <AuthCard title="Staff sign in" intro="For the shop’s builders and owner. Players sign in on the shop’s own pages.">
-      <StaffSignInForm onSignedIn={(user) => staffRoles.includes(user.role) && navigate(landing(user.role), { replace: true })} />
+      <SignInForm
+        label="Staff sign in"
+        emailAutoComplete="username"
+        onSignedIn={(user) => staffRoles.includes(user.role) && navigate(landing(user.role), { replace: true })}
+      />
       {/* Password resets go through the storefront's page; the e-mailed link works for staff too. */}
       <Link href="/forgot-password" level="body-sm">
         Forgot your password?

@@ -22,7 +22,7 @@ import { useEstimate } from 'src/features/configurator/api/create-estimate';
 import { startCheckout } from 'src/features/payments/api/start-checkout';
 import { DepositPolicy } from 'src/features/payments/components/DepositPolicy';
 import { formatAmount, formatHours, formatRange } from 'src/lib/format';
-import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+import { ApiErrorAlert, setServerFieldErrors } from '@loomwright/shared/ui';
 
 const NOTES_FIELD = ['notes'] as const;
 
@@ -172,7 +172,7 @@ export function Component() {
         </Button>
         <Typography level="body-xs">You pay on the payment provider's secure page and come back here afterwards.</Typography>
       </Stack>
-      {!fieldsCoverError(create.error, NOTES_FIELD) && <ApiErrorAlert error={create.error} />}
+      <ApiErrorAlert error={create.error} fields={NOTES_FIELD} />
       {checkoutProblem && (
         <Alert color="warning" role="alert">
           Your request is saved, but the payment page could not be opened: {checkoutProblem.message}

@@ -1,9 +1,9 @@
 import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
+import { NewPasswordForm } from '@loomwright/shared/ui';
 import { useNavigate, useSearchParams, Link as RouterLink } from 'react-router';
 import { useConfirmPasswordReset } from 'src/features/auth/api/confirm-password-reset';
 import { AuthCard } from 'src/features/auth/components/AuthCard';
-import { NewPasswordForm } from 'src/features/auth/components/NewPasswordForm';
 
 export function Component() {
   const [params] = useSearchParams();
@@ -25,14 +25,19 @@ export function Component() {
   return (
     <AuthCard title="Choose a new password" intro="The link works once. After this you are signed in with the new password.">
       <NewPasswordForm
+        label="Choose a new password"
+        passwordLabel="New password"
+        repeatLabel="New password again"
         submitLabel="Save password and sign in"
         pending={confirm.isPending}
         error={confirm.error}
-        onSubmit={(password) =>
+        newLink={{ href: '/forgot-password', label: 'Ask for a new reset link' }}
+        onSubmit={(password, { onError }) =>
           confirm.mutate(
             { token, password },
             // Staff reset here too; their work is in the backoffice.
             {
+              onError,
               onSuccess: ({ user }) =>
                 user.role === 'customer' ? navigate('/account', { replace: true }) : window.location.assign('/backoffice/'),
             },

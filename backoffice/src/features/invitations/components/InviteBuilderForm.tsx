@@ -14,7 +14,7 @@ import { Controller, useForm } from 'react-hook-form';
 import { useCreateInvitation } from 'src/features/invitations/api/create-invitation';
 import { formatStamp } from 'src/lib/format';
 import { teamKeys } from 'src/features/team/api/query-keys';
-import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+import { ApiErrorAlert, setServerFieldErrors } from '@loomwright/shared/ui';
 
 const levelNames: Record<BuilderLevel, string> = { apprentice: 'Apprentice', journeyman: 'Journeyman', master: 'Master' };
 // Typical rates by level (common practice in the trade, no published source); the owner sets the real one.
@@ -52,7 +52,7 @@ export function InviteBuilderForm() {
             The link works once, until {dateTime(invite.data.expiresAt)}.
           </Alert>
         )}
-        {!fieldsCoverError(invite.error, FIELDS) && <ApiErrorAlert error={invite.error} signInHref="/sign-in" />}
+        <ApiErrorAlert error={invite.error} fields={FIELDS} signInHref="/sign-in" />
         <FormControl error={!!formState.errors.name}>
           <FormLabel>Name</FormLabel>
           <Input autoComplete="off" {...register('name')} />

@@ -5,8 +5,7 @@ import Stack from '@mui/joy/Stack';
 import { passwordResetRequestSchema } from '@loomwright/shared';
 import { useForm } from 'react-hook-form';
 import { useRequestPasswordReset } from 'src/features/auth/api/request-password-reset';
-import { FormTextField } from './FormTextField';
-import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+import { ApiErrorAlert, EmailField, setServerFieldErrors } from '@loomwright/shared/ui';
 
 const FIELDS = ['email'] as const;
 
@@ -27,15 +26,8 @@ export function ForgotPasswordForm() {
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Ask for a reset link">
       <Stack gap={2}>
-        {!fieldsCoverError(request.error, FIELDS) && <ApiErrorAlert error={request.error} />}
-        <FormTextField
-          label="E-mail"
-          type="email"
-          autoComplete="email"
-          autoFocus
-          registration={register('email')}
-          error={formState.errors.email}
-        />
+        <ApiErrorAlert error={request.error} fields={FIELDS} />
+        <EmailField autoFocus registration={register('email')} error={formState.errors.email} />
         <Button type="submit" loading={request.isPending}>
           Send me a reset link
         </Button>

@@ -9,7 +9,7 @@ import { useForm } from 'react-hook-form';
 import { Link as RouterLink } from 'react-router';
 import { useSignUp } from 'src/features/auth/api/sign-up';
 import { FormTextField } from './FormTextField';
-import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+import { ApiErrorAlert, EmailField, setServerFieldErrors } from '@loomwright/shared/ui';
 
 const FIELDS = ['name', 'email', 'password'] as const;
 
@@ -35,13 +35,10 @@ export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void;
             </span>
           </Alert>
         ) : (
-          !fieldsCoverError(signUp.error, FIELDS) && <ApiErrorAlert error={signUp.error} />
+          <ApiErrorAlert error={signUp.error} fields={FIELDS} />
         )}
         <FormTextField label="Your name" autoComplete="name" autoFocus registration={register('name')} error={formState.errors.name} />
-        <FormTextField
-          label="E-mail"
-          type="email"
-          autoComplete="email"
+        <EmailField
           registration={register('email')}
           error={formState.errors.email}
           hint="We send your quote, bench date and build updates here."

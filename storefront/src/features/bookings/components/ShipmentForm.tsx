@@ -9,7 +9,7 @@ import Typography from '@mui/joy/Typography';
 import { useForm } from 'react-hook-form';
 import { shipmentSchema, type ShipmentInput } from '@loomwright/shared';
 import { useRecordShipment } from 'src/features/bookings/api/record-shipment';
-import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+import { ApiErrorAlert, setServerFieldErrors } from '@loomwright/shared/ui';
 
 const FIELDS = ['carrier', 'tracking'] as const;
 
@@ -50,7 +50,7 @@ export function ShipmentForm({ bookingId, current }: { bookingId: string; curren
           Saved. The shop will check the parcel in when it arrives.
         </Typography>
       )}
-      {!fieldsCoverError(record.error, FIELDS) && <ApiErrorAlert error={record.error} />}
+      <ApiErrorAlert error={record.error} fields={FIELDS} />
     </Stack>
   );
 }
