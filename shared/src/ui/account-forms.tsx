@@ -24,6 +24,21 @@ export function EmailField({ autoComplete = 'email', ...rest }: EmailFieldProps)
   return <FormTextField label="E-mail" type="email" autoComplete={autoComplete} {...rest} />;
 }
 
+interface PasswordFieldProps {
+  label?: string;
+  registration: UseFormRegisterReturn;
+  error?: FieldError;
+  hint?: string;
+  autoFocus?: boolean;
+  /** `current-password` to sign in; `new-password` where one is chosen (a password manager offers to make one). */
+  autoComplete: 'current-password' | 'new-password';
+}
+
+/** A password field, its characters hidden. */
+export function PasswordField({ label = 'Password', ...rest }: PasswordFieldProps) {
+  return <FormTextField label={label} type="password" {...rest} />;
+}
+
 const SIGN_IN_FIELDS = ['email', 'password'] as const;
 
 interface SignInFormProps {
@@ -53,13 +68,7 @@ export function SignInForm({ label, emailAutoComplete, onSignedIn, children }: S
       <Stack gap={2}>
         <ApiErrorAlert error={signIn.error} fields={SIGN_IN_FIELDS} />
         <EmailField autoComplete={emailAutoComplete} autoFocus registration={register('email')} error={formState.errors.email} />
-        <FormTextField
-          label="Password"
-          type="password"
-          autoComplete="current-password"
-          registration={register('password')}
-          error={formState.errors.password}
-        />
+        <PasswordField autoComplete="current-password" registration={register('password')} error={formState.errors.password} />
         <Button type="submit" loading={signIn.isPending}>
           Sign in
         </Button>
@@ -77,8 +86,8 @@ interface NewPasswordFormProps {
   passwordLabel: string;
   repeatLabel: string;
   submitLabel: string;
-  pending: boolean;
-  error: Error | null;
+  /** The call that sends the password: busy while it runs, and what it answered if it failed. */
+  mutation: { isPending: boolean; error: Error | null };
   /** Sends the password; `onError` puts a `validation_failed` answer's words under the field (pass it on to `mutate`). */
   onSubmit: (password: string, options: { onError: (error: unknown) => void }) => void;
   /** Passed to the alert: this screen's own advice, and where to ask for a new link when this one has expired. */
@@ -92,8 +101,7 @@ export function NewPasswordForm({
   passwordLabel,
   repeatLabel,
   submitLabel,
-  pending,
-  error,
+  mutation,
   onSubmit,
   action,
   newLink,
@@ -108,24 +116,22 @@ export function NewPasswordForm({
   return (
     <form onSubmit={submit} noValidate aria-label={label}>
       <Stack gap={2}>
-        <ApiErrorAlert error={error} fields={NEW_PASSWORD_FIELDS} action={action} newLink={newLink} />
-        <FormTextField
+        <ApiErrorAlert error={mutation.error} fields={NEW_PASSWORD_FIELDS} action={action} newLink={newLink} />
+        <PasswordField
           label={passwordLabel}
-          type="password"
           autoComplete="new-password"
           autoFocus
           registration={register('password')}
           error={formState.errors.password}
           hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
         />
-        <FormTextField
+        <PasswordField
           label={repeatLabel}
-          type="password"
           autoComplete="new-password"
           registration={register('repeatPassword')}
           error={formState.errors.repeatPassword}
         />
-        <Button type="submit" loading={pending}>
+        <Button type="submit" loading={mutation.isPending}>
           {submitLabel}
         </Button>
       </Stack>

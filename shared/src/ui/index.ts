@@ -7,7 +7,7 @@ export { PageLoading } from './PageLoading';
 export { RouteError, RouteErrorScreen } from './RouteError';
 export { ShopUnavailable } from './ShopUnavailable';
 export { FormTextField } from './FormTextField';
-export { EmailField, NewPasswordForm, SignInForm } from './account-forms';
+export { EmailField, NewPasswordForm, PasswordField, SignInForm } from './account-forms';
 export { authKeys, getMe, ME_RETRY_MS, meQueryOptions, switchPerson, useMe } from './get-me';
 export { useSearchParamsInOrder } from './use-search-params-in-order';
 export { MoneyFactsTable } from './MoneyFactsTable';

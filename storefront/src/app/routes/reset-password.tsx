@@ -29,8 +29,7 @@ export function Component() {
         passwordLabel="New password"
         repeatLabel="New password again"
         submitLabel="Save password and sign in"
-        pending={confirm.isPending}
-        error={confirm.error}
+        mutation={confirm}
         newLink={{ href: '/forgot-password', label: 'Ask for a new reset link' }}
         onSubmit={(password, { onError }) =>
           confirm.mutate(

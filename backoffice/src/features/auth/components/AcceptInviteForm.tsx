@@ -10,8 +10,7 @@ export function AcceptInviteForm({ token, onAccepted }: { token: string; onAccep
       passwordLabel="Choose a password"
       repeatLabel="Password again"
       submitLabel="Join the bench"
-      pending={accept.isPending}
-      error={accept.error}
+      mutation={accept}
       action={hasErrorCode(accept.error, 'link_invalid') ? 'Ask the shop’s owner to send a fresh invitation.' : undefined}
       onSubmit={(password, { onError }) => accept.mutate({ token, password }, { onSuccess: onAccepted, onError })}
     />

@@ -1,6 +1,4 @@
 import Alert from '@mui/joy/Alert';
-import Button from '@mui/joy/Button';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
@@ -17,6 +15,8 @@ import { ErrorNote } from 'src/components/ErrorNote';
 import { PageLoading } from 'src/components/PageLoading';
 import { formatHours, formatMoney } from 'src/lib/format';
 import { useCancelScheduled, useCancellation } from '../api/cancel-scheduled';
+import { DialogButtons } from 'src/components/DialogButtons';
+import { FormProblems } from 'src/components/FormProblems';
 
 /**
  * The owner cancels a build that already holds bench time. The refund each cause brings, per the
@@ -97,21 +97,19 @@ export function CancelBuildDialog({
             <FormLabel>Why (the player reads this)</FormLabel>
             <Textarea minRows={2} value={reason} onChange={(event) => setReason(event.target.value)} />
           </FormControl>
-          {formErrors.length > 0 && (
-            <Alert color="danger" variant="soft" role="alert">
-              {formErrors.join(' ')}
-            </Alert>
-          )}
+          <FormProblems problems={formErrors} />
           <ErrorNote error={cancel.error} />
         </DialogContent>
-        <DialogActions>
-          <Button color="danger" onClick={submit} loading={cancel.isPending} disabled={!p}>
-            Cancel the build
-          </Button>
-          <Button variant="plain" color="neutral" onClick={onClose}>
-            Keep the build
-          </Button>
-        </DialogActions>
+        <DialogButtons
+          onConfirm={submit}
+          color="danger"
+          pending={cancel.isPending}
+          disabled={!p}
+          cancelLabel="Keep the build"
+          onCancel={onClose}
+        >
+          Cancel the build
+        </DialogButtons>
       </ModalDialog>
     </Modal>
   );

@@ -10,6 +10,7 @@ import { useEffect, useState } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatStamp } from 'src/lib/format';
 import { useRecordIntake, type IntakeItemInput } from '../api/record-intake';
+import { RemoveButton } from 'src/components/RemoveButton';
 
 /**
  * What to check, in signal-chain order: what was already recorded (so recording again corrects
@@ -143,9 +144,7 @@ export function IntakePanel({ booking, intake }: { booking: BookingDetail; intak
                     />
                   </td>
                   <td>
-                    <Button size="sm" variant="plain" color="neutral" onClick={() => setRows((r) => r.filter((_, i) => i !== index))}>
-                      Remove
-                    </Button>
+                    <RemoveButton color="neutral" onClick={() => setRows((r) => r.filter((_, i) => i !== index))} />
                   </td>
                 </tr>
               ))}

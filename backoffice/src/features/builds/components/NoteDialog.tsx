@@ -1,6 +1,4 @@
-import Button from '@mui/joy/Button';
 import Checkbox from '@mui/joy/Checkbox';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
@@ -15,6 +13,7 @@ import { useEffect, useState, type ReactNode } from 'react';
 import type { ZodType } from 'zod';
 import { bookingWords } from '@loomwright/shared';
 import { ErrorNote } from 'src/components/ErrorNote';
+import { DialogButtons } from 'src/components/DialogButtons';
 
 /**
  * Confirm one move of a build, with a note (optional) or a reason (required). With
@@ -96,14 +95,9 @@ export function NoteDialog({
           )}
           <ErrorNote error={error} />
         </DialogContent>
-        <DialogActions>
-          <Button color="accent" loading={pending} onClick={submit}>
-            {confirm}
-          </Button>
-          <Button variant="plain" color="neutral" onClick={onClose}>
-            Cancel
-          </Button>
-        </DialogActions>
+        <DialogButtons onConfirm={submit} pending={pending} onCancel={onClose}>
+          {confirm}
+        </DialogButtons>
       </ModalDialog>
     </Modal>
   );

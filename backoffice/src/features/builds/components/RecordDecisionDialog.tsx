@@ -1,5 +1,3 @@
-import Button from '@mui/joy/Button';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
@@ -14,6 +12,7 @@ import { decidedViaWords, recordedViaValues, type RecordedVia } from '@loomwrigh
 import { useEffect, useState } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { useRecordDecision } from '../api/record-decision';
+import { DialogButtons } from 'src/components/DialogButtons';
 
 /** The player said yes or no by phone, in person or by e-mail: the shop records who said it, and how. */
 export function RecordDecisionDialog({
@@ -76,37 +75,30 @@ export function RecordDecisionDialog({
           </FormControl>
           <ErrorNote error={record.error} />
         </DialogContent>
-        <DialogActions>
-          <Button
-            color="accent"
-            loading={record.isPending}
-            onClick={() =>
-              target &&
-              record.mutate(
-                {
-                  target,
-                  body: {
-                    approve: approve === 'yes',
-                    via,
-                    givenBy: givenBy.trim(),
-                    ...(comment.trim() ? { comment: comment.trim() } : {}),
-                  },
+        <DialogButtons
+          pending={record.isPending}
+          onCancel={onClose}
+          onConfirm={() =>
+            target &&
+            record.mutate(
+              {
+                target,
+                body: {
+                  approve: approve === 'yes',
+                  via,
+                  givenBy: givenBy.trim(),
+                  ...(comment.trim() ? { comment: comment.trim() } : {}),
                 },
-                {
-                  onSuccess: () =>
-                    onDone(
-                      `${what}: ${approve === 'yes' ? 'approved' : 'declined'} by ${givenBy.trim()} ${decidedViaWords[via]}, recorded.`,
-                    ),
-                },
-              )
-            }
-          >
-            Record the answer
-          </Button>
-          <Button variant="plain" color="neutral" onClick={onClose}>
-            Cancel
-          </Button>
-        </DialogActions>
+              },
+              {
+                onSuccess: () =>
+                  onDone(`${what}: ${approve === 'yes' ? 'approved' : 'declined'} by ${givenBy.trim()} ${decidedViaWords[via]}, recorded.`),
+              },
+            )
+          }
+        >
+          Record the answer
+        </DialogButtons>
       </ModalDialog>
     </Modal>
   );

@@ -1,7 +1,4 @@
-import Alert from '@mui/joy/Alert';
-import Button from '@mui/joy/Button';
 import Checkbox from '@mui/joy/Checkbox';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
@@ -22,6 +19,8 @@ import { useBenchSuggestion } from 'src/features/bench/api/get-bench-suggestion'
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay } from 'src/lib/format';
 import { useRescheduleBooking } from '../api/reschedule-booking';
+import { DialogButtons } from 'src/components/DialogButtons';
+import { FormProblems } from 'src/components/FormProblems';
 
 /** The build being moved, as the Bench or the build page knows it. */
 export interface MovableBuild {
@@ -169,21 +168,18 @@ export function RescheduleDialog({
               <Textarea minRows={2} value={overrideReason} onChange={(event) => setOverrideReason(event.target.value)} />
             </FormControl>
           )}
-          {formErrors.length > 0 && (
-            <Alert color="danger" variant="soft" role="alert">
-              {formErrors.join(' ')}
-            </Alert>
-          )}
+          <FormProblems problems={formErrors} />
           <ErrorNote error={move.error} />
         </DialogContent>
-        <DialogActions>
-          <Button color="accent" onClick={submit} loading={move.isPending} disabled={!builderId || (option ? !option.ok : false)}>
-            Move the build
-          </Button>
-          <Button variant="plain" color="neutral" onClick={onClose}>
-            Keep it where it is
-          </Button>
-        </DialogActions>
+        <DialogButtons
+          onConfirm={submit}
+          pending={move.isPending}
+          disabled={!builderId || (option ? !option.ok : false)}
+          cancelLabel="Keep it where it is"
+          onCancel={onClose}
+        >
+          Move the build
+        </DialogButtons>
       </ModalDialog>
     </Modal>
   );

@@ -1,7 +1,6 @@
 import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Chip from '@mui/joy/Chip';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
@@ -20,6 +19,7 @@ import { mailStateLabels, mailStates, singleUseLinkKeys, type MailLogEntry, type
 import { useMailLog } from 'src/features/mail-log/api/get-mail-log';
 import { useResendMail } from 'src/features/mail-log/api/resend-mail';
 import { formatStamp } from 'src/lib/format';
+import { DialogButtons } from 'src/components/DialogButtons';
 
 const pageSize = 25;
 
@@ -99,14 +99,14 @@ function ResendButton({ entry }: { entry: MailLogEntry }) {
               </Typography>
             )}
           </DialogContent>
-          <DialogActions>
-            <Button color="accent" loading={resend.isPending} onClick={() => send(true)}>
-              Send a second copy
-            </Button>
-            <Button variant="plain" color="neutral" onClick={() => setConfirming(false)}>
-              Don’t send
-            </Button>
-          </DialogActions>
+          <DialogButtons
+            onConfirm={() => send(true)}
+            pending={resend.isPending}
+            cancelLabel="Don’t send"
+            onCancel={() => setConfirming(false)}
+          >
+            Send a second copy
+          </DialogButtons>
         </ModalDialog>
       </Modal>
     </Stack>

@@ -6,6 +6,7 @@ import Select from '@mui/joy/Select';
 import Table from '@mui/joy/Table';
 import type { PriceBook } from '@loomwright/shared';
 import { Controller, useFieldArray, type Control, type UseFormRegister } from 'react-hook-form';
+import { RemoveButton } from 'src/components/RemoveButton';
 
 export type ListName = 'surfaces' | 'cases' | 'functions' | 'levels';
 
@@ -111,9 +112,7 @@ export function ListEditor({
               })}
               {!fixedRows && !disabled && (
                 <td>
-                  <Button size="sm" variant="plain" color="danger" onClick={() => remove(index)}>
-                    Remove
-                  </Button>
+                  <RemoveButton onClick={() => remove(index)} />
                 </td>
               )}
             </tr>

@@ -1,6 +1,4 @@
 import Alert from '@mui/joy/Alert';
-import Button from '@mui/joy/Button';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
@@ -31,6 +29,8 @@ import { ErrorNote } from 'src/components/ErrorNote';
 import { PageLoading } from 'src/components/PageLoading';
 import { formatDay, formatHours, formatMoney, formatRate } from 'src/lib/format';
 import { useAcceptBooking } from '../api/accept-booking';
+import { DialogButtons } from 'src/components/DialogButtons';
+import { FormProblems } from 'src/components/FormProblems';
 
 /**
  * Accepting a paid request: who builds it and from which day. Each builder's earliest bench date
@@ -228,21 +228,12 @@ export function AcceptDialog({
               )}
             </>
           )}
-          {formError && (
-            <Alert color="danger" variant="soft" role="alert">
-              {formError}
-            </Alert>
-          )}
+          <FormProblems problems={formError ? [formError] : []} />
           <ErrorNote error={accept.error} />
         </DialogContent>
-        <DialogActions>
-          <Button color="accent" onClick={submit} loading={accept.isPending} disabled={!chosen}>
-            Accept and schedule
-          </Button>
-          <Button variant="plain" color="neutral" onClick={onClose}>
-            Cancel
-          </Button>
-        </DialogActions>
+        <DialogButtons onConfirm={submit} pending={accept.isPending} disabled={!chosen} onCancel={onClose}>
+          Accept and schedule
+        </DialogButtons>
       </ModalDialog>
     </Modal>
   );

@@ -1,6 +1,4 @@
 import Alert from '@mui/joy/Alert';
-import Button from '@mui/joy/Button';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
@@ -16,6 +14,7 @@ import { useForm } from 'react-hook-form';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatMoney } from 'src/lib/format';
 import { useDeclineBooking } from '../api/decline-booking';
+import { DialogButtons } from 'src/components/DialogButtons';
 
 export function DeclineDialog({
   booking,
@@ -81,14 +80,9 @@ export function DeclineDialog({
             </FormControl>
             <ErrorNote error={decline.error} />
           </DialogContent>
-          <DialogActions sx={{ mt: 1.5 }}>
-            <Button type="submit" color="danger" loading={decline.isPending} disabled={paid && !isOwner}>
-              Decline{paid && isOwner ? ' and refund' : ''}
-            </Button>
-            <Button variant="plain" color="neutral" onClick={onClose}>
-              Cancel
-            </Button>
-          </DialogActions>
+          <DialogButtons color="danger" pending={decline.isPending} disabled={paid && !isOwner} onCancel={onClose} spaced>
+            Decline{paid && isOwner ? ' and refund' : ''}
+          </DialogButtons>
         </form>
       </ModalDialog>
     </Modal>

@@ -1,5 +1,4 @@
 import Button from '@mui/joy/Button';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import Modal from '@mui/joy/Modal';
@@ -9,6 +8,7 @@ import { useState } from 'react';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { useEndSessions } from 'src/features/sessions/api/end-sessions';
 import { useSessions } from 'src/features/sessions/api/get-sessions';
+import { DialogButtons } from 'src/components/DialogButtons';
 
 const devices = (n: number) => (n === 1 ? 'one device' : `${n} devices`);
 
@@ -51,14 +51,9 @@ export function SignOutEverywhere({ userId, name, onDone }: { userId: string; na
             </Typography>
             <ErrorNote error={sessions.error ?? end.error} />
           </DialogContent>
-          <DialogActions>
-            <Button color="accent" loading={end.isPending} onClick={confirm}>
-              Sign out everywhere
-            </Button>
-            <Button variant="plain" color="neutral" onClick={close}>
-              Cancel
-            </Button>
-          </DialogActions>
+          <DialogButtons onConfirm={confirm} pending={end.isPending} onCancel={close}>
+            Sign out everywhere
+          </DialogButtons>
         </ModalDialog>
       </Modal>
     </>

@@ -3,28 +3,21 @@ import FormControl from '@mui/joy/FormControl';
 import FormLabel from '@mui/joy/FormLabel';
 import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
-import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import { createClosureSchema, type CreateClosureInput, type ShopSettingsView } from '@loomwright/shared';
+import { createClosureSchema, type CreateClosureInput } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { useState } from 'react';
 import { BuildsToMove, type HitBuild } from 'src/components/BuildsToMove';
+import { DayRangesTable } from 'src/components/DayRangesTable';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay } from 'src/lib/format';
 import { useAddClosure } from '../api/add-closure';
 import { useRemoveClosure } from '../api/remove-closure';
+import type { SettingsSectionProps } from './settings-section';
 
 /** Shop-wide closed days: no builder has bench time on them. */
-export function ClosuresList({
-  settings,
-  canEdit,
-  onSaved,
-}: {
-  settings: ShopSettingsView;
-  canEdit: boolean;
-  onSaved: (m: string) => void;
-}) {
+export function ClosuresList({ settings, canEdit, onSaved }: SettingsSectionProps) {
   const add = useAddClosure();
   const remove = useRemoveClosure();
   const form = useForm<CreateClosureInput>({
@@ -39,38 +32,14 @@ export function ClosuresList({
       {settings.closures.length === 0 ? (
         <Typography level="body-sm">No closures planned.</Typography>
       ) : (
-        <Table size="sm" aria-label="Shop closures" sx={{ '--TableCell-height': '32px' }}>
-          <thead>
-            <tr>
-              <th>From</th>
-              <th>To</th>
-              <th>Reason</th>
-              {canEdit && <th style={{ width: 90 }} />}
-            </tr>
-          </thead>
-          <tbody>
-            {settings.closures.map((c) => (
-              <tr key={c.id}>
-                <td>{formatDay(c.startsOn)}</td>
-                <td>{formatDay(c.endsOn)}</td>
-                <td>{c.reason}</td>
-                {canEdit && (
-                  <td>
-                    <Button
-                      size="sm"
-                      variant="plain"
-                      color="danger"
-                      loading={remove.isPending && remove.variables === c.id}
-                      onClick={() => remove.mutate(c.id, { onSuccess: () => onSaved(`Closure “${c.reason}” removed.`) })}
-                    >
-                      Remove
-                    </Button>
-                  </td>
-                )}
-              </tr>
-            ))}
-          </tbody>
-        </Table>
+        <DayRangesTable
+          label="Shop closures"
+          rows={settings.closures}
+          reasonHeading="Reason"
+          sx={{ '--TableCell-height': '32px' }}
+          removingId={remove.isPending ? remove.variables : undefined}
+          onRemove={canEdit ? (c) => remove.mutate(c.id, { onSuccess: () => onSaved(`Closure “${c.reason}” removed.`) }) : undefined}
+        />
       )}
       {hit && <BuildsToMove builds={hit.builds} reason={hit.reason} onDone={onSaved} />}
       {canEdit && (

@@ -3,26 +3,18 @@ import ListItem from '@mui/joy/ListItem';
 import Stack from '@mui/joy/Stack';
 import Switch from '@mui/joy/Switch';
 import Typography from '@mui/joy/Typography';
-import type { ShopSettingsView } from '@loomwright/shared';
 import { useState } from 'react';
 import { BuildsToMove, type HitBuild } from 'src/components/BuildsToMove';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay, formatStamp } from 'src/lib/format';
 import { useChooseHoliday } from '../api/choose-holiday';
+import type { SettingsSectionProps } from './settings-section';
 
 /**
  * The coming public holidays of the shop's country, each closed on the bench unless the owner
  * switches it off (the shop works that day), with the latest such choices below.
  */
-export function HolidaysList({
-  settings,
-  canEdit,
-  onSaved,
-}: {
-  settings: ShopSettingsView;
-  canEdit: boolean;
-  onSaved: (m: string) => void;
-}) {
+export function HolidaysList({ settings, canEdit, onSaved }: SettingsSectionProps) {
   const choose = useChooseHoliday();
   const [hit, setHit] = useState<{ builds: HitBuild[]; reason: string } | null>(null);
   const country = new Intl.DisplayNames(['en'], { type: 'region' }).of(settings.countryCode) ?? settings.countryCode;

@@ -13,7 +13,6 @@ import {
   shopDetailsSchema,
   shopTimeZones,
   type ShopDetailsInput,
-  type ShopSettingsView,
 } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useMemo } from 'react';
@@ -21,6 +20,7 @@ import { Controller, useForm, type FieldPath } from 'react-hook-form';
 import { z } from 'zod';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { useUpdateSettings } from '../api/update-settings';
+import type { SettingsSectionProps } from './settings-section';
 
 const blankAddress = { line1: '', line2: '', city: '', region: '', postalCode: '' };
 
@@ -49,15 +49,7 @@ const countryName = (code: string) => {
   }
 };
 
-export function ShopDetailsForm({
-  settings,
-  canEdit,
-  onSaved,
-}: {
-  settings: ShopSettingsView;
-  canEdit: boolean;
-  onSaved: (m: string) => void;
-}) {
+export function ShopDetailsForm({ settings, canEdit, onSaved }: SettingsSectionProps) {
   const update = useUpdateSettings();
   const form = useForm<FormValues>({ resolver: zodResolver(formSchema) as never });
   const countries = useMemo(() => countryCodes().sort((a, b) => countryName(a).localeCompare(countryName(b), 'en')), []);

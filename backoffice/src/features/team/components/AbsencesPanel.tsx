@@ -1,4 +1,3 @@
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import FormControl from '@mui/joy/FormControl';
 import FormLabel from '@mui/joy/FormLabel';
@@ -6,14 +5,15 @@ import Input from '@mui/joy/Input';
 import Option from '@mui/joy/Option';
 import Select from '@mui/joy/Select';
 import Stack from '@mui/joy/Stack';
-import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import { absenceSchema, type TeamMember } from '@loomwright/shared';
 import { useState } from 'react';
 import { BuildsToMove, type HitBuild } from 'src/components/BuildsToMove';
+import { DayRangesTable } from 'src/components/DayRangesTable';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay } from 'src/lib/format';
 import { useAbsences, useAddAbsence, useRemoveAbsence } from '../api/absences';
+import { FormProblems } from 'src/components/FormProblems';
 
 /** Days a builder is away (ill, holiday, a course): their bench holds nothing then. */
 export function AbsencesPanel({ team, canEdit, onSaved }: { team: TeamMember[]; canEdit: boolean; onSaved: (m: string) => void }) {
@@ -55,39 +55,14 @@ export function AbsencesPanel({ team, canEdit, onSaved }: { team: TeamMember[]; 
       </Typography>
       {absences.data && absences.data.length === 0 && <Typography level="body-sm">Nobody is away.</Typography>}
       {absences.data && absences.data.length > 0 && (
-        <Table size="sm" aria-label="Builders away">
-          <thead>
-            <tr>
-              <th>Builder</th>
-              <th>From</th>
-              <th>To</th>
-              <th>Why</th>
-              {canEdit && <th style={{ width: 90 }} />}
-            </tr>
-          </thead>
-          <tbody>
-            {absences.data.map((a) => (
-              <tr key={a.id}>
-                <td>{nameOf(a.builderId)}</td>
-                <td>{formatDay(a.startsOn)}</td>
-                <td>{formatDay(a.endsOn)}</td>
-                <td>{a.reason}</td>
-                {canEdit && (
-                  <td>
-                    <Button
-                      size="sm"
-                      variant="plain"
-                      color="danger"
-                      onClick={() => remove.mutate(a.id, { onSuccess: () => onSaved('Absence removed.') })}
-                    >
-                      Remove
-                    </Button>
-                  </td>
-                )}
-              </tr>
-            ))}
-          </tbody>
-        </Table>
+        <DayRangesTable
+          label="Builders away"
+          rows={absences.data}
+          who={{ heading: 'Builder', of: (a) => nameOf(a.builderId) }}
+          reasonHeading="Why"
+          removingId={remove.isPending ? remove.variables : undefined}
+          onRemove={canEdit ? (a) => remove.mutate(a.id, { onSuccess: () => onSaved('Absence removed.') }) : undefined}
+        />
       )}
       <ErrorNote error={absences.error ?? remove.error} />
       {hit && <BuildsToMove builds={hit.builds} reason={hit.reason} onDone={onSaved} />}
@@ -126,11 +101,7 @@ export function AbsencesPanel({ team, canEdit, onSaved }: { team: TeamMember[]; 
           </Button>
         </Stack>
       )}
-      {errors.length > 0 && (
-        <Alert color="danger" variant="soft" role="alert">
-          {errors.join(' ')}
-        </Alert>
-      )}
+      <FormProblems problems={errors} />
       <ErrorNote error={add.error} />
     </Stack>
   );

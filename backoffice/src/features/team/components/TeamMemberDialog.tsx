@@ -1,5 +1,3 @@
-import Button from '@mui/joy/Button';
-import DialogActions from '@mui/joy/DialogActions';
 import DialogContent from '@mui/joy/DialogContent';
 import DialogTitle from '@mui/joy/DialogTitle';
 import FormControl from '@mui/joy/FormControl';
@@ -26,6 +24,7 @@ import { useEffect } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { useUpdateTeamMember } from '../api/update-team-member';
+import { DialogButtons } from 'src/components/DialogButtons';
 
 export const weekdays = [
   ['1', 'Mon'],
@@ -137,14 +136,9 @@ export function TeamMemberDialog({
             </Typography>
             <ErrorNote error={update.error} />
           </DialogContent>
-          <DialogActions sx={{ mt: 1.5 }}>
-            <Button type="submit" loading={update.isPending}>
-              Save
-            </Button>
-            <Button variant="plain" color="neutral" onClick={onClose}>
-              Cancel
-            </Button>
-          </DialogActions>
+          <DialogButtons color="primary" pending={update.isPending} onCancel={onClose} spaced>
+            Save
+          </DialogButtons>
         </form>
       </ModalDialog>
     </Modal>

@@ -9,7 +9,7 @@ import { useForm } from 'react-hook-form';
 import { Link as RouterLink } from 'react-router';
 import { useSignUp } from 'src/features/auth/api/sign-up';
 import { FormTextField } from './FormTextField';
-import { ApiErrorAlert, EmailField, setServerFieldErrors } from '@loomwright/shared/ui';
+import { ApiErrorAlert, EmailField, PasswordField, setServerFieldErrors } from '@loomwright/shared/ui';
 
 const FIELDS = ['name', 'email', 'password'] as const;
 
@@ -43,9 +43,7 @@ export function SignUpForm({ onSignedUp, signInHref }: { onSignedUp: () => void;
           error={formState.errors.email}
           hint="We send your quote, bench date and build updates here."
         />
-        <FormTextField
-          label="Password"
-          type="password"
+        <PasswordField
           autoComplete="new-password"
           registration={register('password')}
           error={formState.errors.password}
