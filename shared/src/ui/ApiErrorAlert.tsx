@@ -21,14 +21,16 @@ interface Props {
    * (`setServerFieldErrors` put it there), the alert is left out; the words stand under the fields.
    */
   fields?: readonly string[];
+  /** Where those fields sit in the request body (`setServerFieldErrors`' `from`). */
+  fieldsFrom?: string;
 }
 
 /**
  * A refused or failed call in words: the server's own sentence, then what to do about it, picked by
  * the answer's code (`errorAdvice`): sign in again, wait and retry, pick another date, ask for a new link.
  */
-export function ApiErrorAlert({ error, action, signInHref = '/sign-in', newLink, onRetry, fields }: Props) {
-  if (!error || (fields && fieldsCoverError(error, fields))) return null;
+export function ApiErrorAlert({ error, action, signInHref = '/sign-in', newLink, onRetry, fields, fieldsFrom }: Props) {
+  if (!error || (fields && fieldsCoverError(error, fields, { from: fieldsFrom }))) return null;
   const advice = errorAdvice(error);
   return (
     <Alert color={advice === 'other' || advice === 'fields' ? 'danger' : 'warning'} variant="soft" role="alert" data-advice={advice}>

@@ -47,6 +47,25 @@ describe('validation_failed answers onto react-hook-form fields', () => {
     expect(fieldsCoverError(error, ['carrier'])).toBe(false);
   });
 
+  it('a listed list or group takes each problem under it on the problem’s own field', () => {
+    const error = validationAnswer(outputs, { outputs: [{ volts: 9 }, { volts: 24 }] });
+    const calls: string[] = [];
+    setServerFieldErrors(error, (name) => calls.push(name), ['outputs']);
+    expect(calls).toEqual(['outputs.1.volts']);
+    expect(fieldsCoverError(error, ['outputs'])).toBe(true);
+  });
+
+  it('reads the paths of a body that holds the form’s values under a key (`from`), and nothing outside it', () => {
+    const publish = z.object({ book: outputs, notes: z.string().max(3, 'Keep the notes short') });
+    const error = validationAnswer(publish, { book: { outputs: [{ volts: 24 }] }, notes: 'far too long' });
+    expect(error.issues.map((i) => i.path)).toEqual(['book.outputs[0].volts', 'notes']);
+    const calls: Array<[string, string | undefined]> = [];
+    setServerFieldErrors(error, (name, e) => calls.push([name, e.message]), ['outputs'], { from: 'book' });
+    expect(calls).toEqual([['outputs.0.volts', error.issues[0].message]]);
+    expect(error.issues[0].message).toContain('Volts must be at most 18');
+    expect(fieldsCoverError(error, ['outputs'], { from: 'book' })).toBe(false);
+  });
+
   it('sets nothing for another code', () => {
     const error = apiErrorFrom(409, {
       statusCode: 409,

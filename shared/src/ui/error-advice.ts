@@ -27,15 +27,32 @@ export function errorAdvice(error: unknown): ErrorAdviceKind {
 /** react-hook-form's name for an API path: "outputs[2].volts" → "outputs.2.volts". */
 export const formFieldName = (path: string) => path.replace(/\[(\d+)\]/g, '.$1');
 
-const fieldOf = <T extends FieldValues>(path: string, fields: ReadonlyArray<Path<T>>) => {
-  const name = formFieldName(path);
-  return fields.find((f) => name === f || name.startsWith(`${f}.`));
+/** Where the form's values sit in the request body: `from: 'book'` when the body is `{ book, notes }` and the form edits the book. */
+export interface FieldErrorOptions {
+  from?: string;
+}
+
+/**
+ * The form field an issue's path names, among the form's `fields`: the field itself, or a field
+ * under one of them (a listed `surfaces` takes "surfaces[2].price" as `surfaces.2.price`).
+ */
+const fieldOf = <T extends FieldValues>(path: string, fields: ReadonlyArray<Path<T>>, { from }: FieldErrorOptions = {}) => {
+  const full = formFieldName(path);
+  const name = from ? (full.startsWith(`${from}.`) ? full.slice(from.length + 1) : undefined) : full;
+  if (name === undefined) return undefined;
+  return fields.some((f) => name === f || name.startsWith(`${f}.`)) ? (name as Path<T>) : undefined;
 };
 
 /** True when the error is a `validation_failed` answer whose every problem names one of these form fields. */
-export function fieldsCoverError<T extends FieldValues>(error: unknown, fields: ReadonlyArray<Path<T>>): boolean {
+export function fieldsCoverError<T extends FieldValues>(
+  error: unknown,
+  fields: ReadonlyArray<Path<T>>,
+  options?: FieldErrorOptions,
+): boolean {
   return (
-    hasErrorCode(error, 'validation_failed') && error.issues.length > 0 && error.issues.every((i) => fieldOf(i.path, fields) !== undefined)
+    hasErrorCode(error, 'validation_failed') &&
+    error.issues.length > 0 &&
+    error.issues.every((i) => fieldOf(i.path, fields, options) !== undefined)
   );
 }
 
@@ -49,11 +66,12 @@ export function setServerFieldErrors<T extends FieldValues>(
   error: unknown,
   setError: UseFormSetError<T>,
   fields: ReadonlyArray<Path<T>>,
+  options?: FieldErrorOptions,
 ): void {
   if (!hasErrorCode(error, 'validation_failed')) return;
   let first = true;
   for (const issue of error.issues) {
-    const field = fieldOf(issue.path, fields);
+    const field = fieldOf(issue.path, fields, options);
     if (!field) continue;
     setError(field, { type: 'server', message: issue.message }, { shouldFocus: first });
     first = false;

@@ -16,5 +16,12 @@ export { currentShopFormat, useShopFormat } from './current-shop-format';
 export { documentTitle, useRouteTitle, type RouteTitleHandle } from './use-route-title';
 export { ConversationPanel, messageKeys, UnreadCountChip, UnreadMessagesBadge, useUnreadMessages } from './ConversationPanel';
 export { ApiErrorAlert } from './ApiErrorAlert';
-export { errorAdvice, fieldsCoverError, formFieldName, setServerFieldErrors, type ErrorAdviceKind } from './error-advice';
+export {
+  errorAdvice,
+  fieldsCoverError,
+  formFieldName,
+  setServerFieldErrors,
+  type ErrorAdviceKind,
+  type FieldErrorOptions,
+} from './error-advice';
 export { signIn, signOut, useSignIn, useSignOut } from './sign-in-out';

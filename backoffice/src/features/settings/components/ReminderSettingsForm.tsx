@@ -15,6 +15,7 @@ import {
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect } from 'react';
 import { Controller, useForm, type FieldPath } from 'react-hook-form';
+import { setServerFieldErrors } from '@loomwright/shared/ui';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { PageLoading } from 'src/components/PageLoading';
 import { useReminderSettings } from '../api/get-reminder-settings';
@@ -65,6 +66,11 @@ const rows: Row[] = [
   },
 ];
 
+/** Each reminder's group of fields: a server's problem with any of them stands under that field. */
+const REMINDER_FIELDS = ['shipBy', 'balanceUnpaid', 'checkoutAbandoned', 'requestExpiry'] as const satisfies ReadonlyArray<
+  keyof ReminderSettingsView
+>;
+
 const asForm = (view: ReminderSettingsView): ReminderSettingsFormInput => ({
   shipBy: { enabled: view.shipBy.enabled, daysBefore: String(view.shipBy.daysBefore) },
   balanceUnpaid: { enabled: view.balanceUnpaid.enabled, daysAfterReady: String(view.balanceUnpaid.daysAfterReady) },
@@ -92,7 +98,12 @@ export function ReminderSettingsForm({ canEdit, onSaved }: { canEdit: boolean; o
       gap={2}
       noValidate
       aria-label="Reminders"
-      onSubmit={form.handleSubmit((values) => update.mutate(values, { onSuccess: () => onSaved('Reminder settings saved.') }))}
+      onSubmit={form.handleSubmit((values) =>
+        update.mutate(values, {
+          onSuccess: () => onSaved('Reminder settings saved.'),
+          onError: (error) => setServerFieldErrors(error, form.setError, REMINDER_FIELDS),
+        }),
+      )}
     >
       <Typography level="body-sm">
         The job queue checks every 15 minutes and sends each reminder once; every one is listed in the Mail log. Nothing is sent once the
@@ -133,7 +144,7 @@ export function ReminderSettingsForm({ canEdit, onSaved }: { canEdit: boolean; o
           </Stack>
         );
       })}
-      <ErrorNote error={update.error} />
+      <ErrorNote error={update.error} fields={REMINDER_FIELDS} />
       {canEdit && (
         <Stack direction="row">
           <Button type="submit" loading={update.isPending}>
