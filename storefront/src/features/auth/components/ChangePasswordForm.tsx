@@ -3,10 +3,9 @@ import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import { authMessages, changePasswordFormSchema, hasErrorCode, PASSWORD_MIN_LENGTH } from '@loomwright/shared';
-import { ApiErrorAlert, fieldsCoverError, setServerFieldErrors } from '@loomwright/shared/ui';
+import { ApiErrorAlert, fieldsCoverError, PasswordField, setServerFieldErrors } from '@loomwright/shared/ui';
 import { useForm } from 'react-hook-form';
 import { useChangePassword } from 'src/features/auth/api/change-password';
-import { FormTextField } from './FormTextField';
 
 const FIELDS = ['currentPassword', 'password'] as const;
 const empty = { currentPassword: '', password: '', repeatPassword: '' };
@@ -42,25 +41,22 @@ export function ChangePasswordForm({ onCancel }: { onCancel: () => void }) {
           </Alert>
         )}
         {!fieldError && <ApiErrorAlert error={change.error} />}
-        <FormTextField
+        <PasswordField
           label="Current password"
-          type="password"
           autoComplete="current-password"
           autoFocus
           registration={register('currentPassword')}
           error={formState.errors.currentPassword}
         />
-        <FormTextField
+        <PasswordField
           label="New password"
-          type="password"
           autoComplete="new-password"
           registration={register('password')}
           error={formState.errors.password}
           hint={`At least ${PASSWORD_MIN_LENGTH} characters. Every other device where you are signed in will be signed out.`}
         />
-        <FormTextField
+        <PasswordField
           label="New password again"
-          type="password"
           autoComplete="new-password"
           registration={register('repeatPassword')}
           error={formState.errors.repeatPassword}
