@@ -7,7 +7,7 @@ import path from 'node:path';
 import { cacheHashedAssets, storefrontDist } from './app.module';
 import { applyBodyParsing } from './common/body-parsing';
 import { ApiExceptionFilter } from './common/api-exception.filter';
-import { customerContact } from './bookings/customer-contact.interceptor';
+import { customerContactMiddleware } from './bookings/customer-contact.middleware';
 import { buildApiDocument } from './common/api-document';
 import type { AppConfig } from './config/configuration';
 import { HTTP_LOGGER, httpLogging } from './logging/logging.module';
@@ -42,7 +42,7 @@ export function configureApp(app: INestApplication): INestApplication {
   applyBodyParsing(app);
   app.use(cookieParser());
   // A builder's answers show only their own customers' e-mail addresses, on every route.
-  app.use(customerContact);
+  app.use(customerContactMiddleware);
   // No global ValidationPipe: every body and query names its shared zod schema through
   // ZodValidationPipe (common/zod-validation.pipe.ts), and unknown fields are refused there.
   // Every error answer, in one shape with a listed code (common/api-exception.filter.ts).

@@ -44,7 +44,7 @@ export interface BookingListQuery {
   q?: string;
   /**
    * A builder's search matches references and names, never addresses: an address they may not see
-   * (see customerContact in customer-contact.interceptor.ts) must not be findable either, unless the build is theirs.
+   * (see customerContactMiddleware in customer-contact.middleware.ts) must not be findable either, unless the build is theirs.
    */
   emailSearchForBuilderUserId?: string;
   sort: 'created_at' | 'updated_at' | 'reference' | 'state' | 'bench_date';

@@ -9,7 +9,7 @@ import {
   type RigChecks,
 } from '@loomwright/shared';
 import { BookingsService } from '../bookings/bookings.service';
-import { bookingAsSeenBy } from '../bookings/customer-contact.interceptor';
+import { bookingAsSeenBy } from '../bookings/customer-contact.middleware';
 import { paperSizeFor } from '../common/paper-size';
 import { PriceBookService } from '../price-book/price-book.service';
 import { renderBuildSheet } from './build-sheet-document';

@@ -1,9 +1,9 @@
-import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { CompiledQuery } from 'kysely';
 import type PgBoss from 'pg-boss';
-import { createQueue } from '../jobs/create-queue';
 import { JobQueue } from '../jobs/job-queue.service';
+import { QueueWorker, type WorkedQueue } from '../jobs/queue-worker';
 import type { AppConfig } from '../config/configuration';
 import type { Executor } from '../database/database';
 import { MailDeliveryService } from './mail-delivery.service';
@@ -31,57 +31,60 @@ interface DeliverJob {
  * Retries and backoff are pg-boss's: a job whose delivery was refused throws, and pg-boss runs it
  * again after retryDelay × 2^n seconds (with jitter). The `stately` policy with the outbox id as
  * singletonKey keeps at most one waiting job per message.
+ *
+ * On shutdown it stops fetching and waits for the batch in flight (QueueWorker). A row enqueued by a
+ * request still draining after that has no job; another replica's sweep (or this one's next start)
+ * sends it.
  */
 @Injectable()
-export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShutdown {
-  private readonly logger = new Logger('MailWorker');
-  private boss: PgBoss | null = null;
-
+export class MailWorker extends QueueWorker {
   constructor(
-    private readonly config: ConfigService<AppConfig, true>,
+    config: ConfigService<AppConfig, true>,
+    jobs: JobQueue,
     private readonly delivery: MailDeliveryService,
     private readonly outbox: MailOutboxRepository,
-    private readonly jobs: JobQueue,
-  ) {}
-
-  get running() {
-    return this.boss !== null;
+  ) {
+    super(config, jobs);
   }
 
-  async onApplicationBootstrap() {
-    if (this.config.get('app', { infer: true }).runWorkers) await this.start();
-  }
-
-  async start() {
-    if (this.boss) return;
+  protected queuesOf(boss: PgBoss): WorkedQueue[] {
     const { retryDelaySeconds, maxAttempts, batchSize } = this.config.get('mail', { infer: true });
-    const boss = await this.jobs.start();
-    await createQueue(boss, DELIVER_QUEUE, {
-      policy: 'stately',
-      // Headroom over our own attempt count: a job can also run without claiming anything.
-      retryLimit: maxAttempts + 2,
-      retryDelay: retryDelaySeconds,
-      retryBackoff: true,
-      expireInSeconds: 5 * 60,
-    });
-    await createQueue(boss, SWEEP_QUEUE, { policy: 'singleton', retryLimit: 0 });
-    // Batch work: one fetch takes up to MAIL_BATCH_SIZE due jobs (pg-boss's own `for update skip
-    // locked limit n`, so two replicas never fetch the same job), their rows are claimed in one
-    // statement and sent MAIL_CONCURRENCY at a time. A job whose delivery was refused is failed
-    // alone, so pg-boss runs it again after its backoff; the rest complete with the batch.
-    await this.jobs.work<DeliverJob>(DELIVER_QUEUE, { pollingIntervalSeconds: 0.5, batchSize }, async (jobs) => {
-      const outcomes = await this.delivery.deliverBatch(jobs.map((job) => job.data.outboxId));
-      const refused = jobs.filter((job) => outcomes.get(job.data.outboxId) === 'retry');
-      for (const job of refused) {
-        await boss.fail(DELIVER_QUEUE, job.id, { message: `Delivery of ${job.data.outboxId} was refused; retrying later` });
-      }
-    });
-    await this.jobs.work(SWEEP_QUEUE, { pollingIntervalSeconds: 5 }, () => this.sweep());
-    await boss.schedule(SWEEP_QUEUE, '* * * * *');
-    this.boss = boss;
-    // Whatever was queued while no worker ran.
+    const deliver: WorkedQueue<DeliverJob> = {
+      name: DELIVER_QUEUE,
+      options: {
+        policy: 'stately',
+        // Headroom over our own attempt count: a job can also run without claiming anything.
+        retryLimit: maxAttempts + 2,
+        retryDelay: retryDelaySeconds,
+        retryBackoff: true,
+        expireInSeconds: 5 * 60,
+      },
+      // Batch work: one fetch takes up to MAIL_BATCH_SIZE due jobs (pg-boss's own `for update skip
+      // locked limit n`, so two replicas never fetch the same job), their rows are claimed in one
+      // statement and sent MAIL_CONCURRENCY at a time. A job whose delivery was refused is failed
+      // alone, so pg-boss runs it again after its backoff; the rest complete with the batch.
+      work: { pollingIntervalSeconds: 0.5, batchSize },
+      handler: async (jobs) => {
+        const outcomes = await this.delivery.deliverBatch(jobs.map((job) => job.data.outboxId));
+        const refused = jobs.filter((job) => outcomes.get(job.data.outboxId) === 'retry');
+        for (const job of refused) {
+          await boss.fail(DELIVER_QUEUE, job.id, { message: `Delivery of ${job.data.outboxId} was refused; retrying later` });
+        }
+      },
+    };
+    const sweep: WorkedQueue = {
+      name: SWEEP_QUEUE,
+      options: { policy: 'singleton', retryLimit: 0 },
+      work: { pollingIntervalSeconds: 5 },
+      handler: () => this.sweep(),
+      cron: '* * * * *',
+    };
+    return [deliver, sweep];
+  }
+
+  /** Whatever was queued while no worker ran. */
+  protected override async started() {
     await this.sweep(true);
-    this.logger.log('Mail worker started');
   }
 
   /** Sends a delivery job on the given executor (the caller's transaction, when there is one). */
@@ -96,22 +99,5 @@ export class MailWorker implements OnApplicationBootstrap, BeforeApplicationShut
     const { retryDelaySeconds } = this.config.get('mail', { infer: true });
     const ids = everything ? await this.outbox.queuedIds(1000) : await this.outbox.overdueIds(retryDelaySeconds, 60, 1000);
     for (const id of ids) await this.scheduleDelivery(id);
-  }
-
-  /** Stops fetching delivery and sweep jobs and waits for the batch in flight (the instance stays up for the other workers). */
-  async stop() {
-    if (!this.boss) return;
-    this.boss = null;
-    await this.jobs.offWork(DELIVER_QUEUE, SWEEP_QUEUE);
-  }
-
-  /**
-   * Before Nest closes the listener and the database pool: stop fetching and wait for the batch in
-   * flight, which still needs the pool to record what it sent (JobQueue then stops the instance).
-   * A row enqueued by a request still draining after this has no job; another replica's sweep (or
-   * this one's next start) sends it.
-   */
-  async beforeApplicationShutdown() {
-    await this.stop();
   }
 }

@@ -1,8 +1,7 @@
-import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import type PgBoss from 'pg-boss';
-import { createQueue } from '../jobs/create-queue';
 import { JobQueue } from '../jobs/job-queue.service';
+import { QueueWorker, type WorkedQueue } from '../jobs/queue-worker';
 import type { AppConfig } from '../config/configuration';
 import { MessageNoticesService } from './message-notices.service';
 
@@ -16,34 +15,32 @@ export const NOTICE_SWEEP_QUEUE = 'message-notices-sweep';
  * sends, so a job that runs twice or on two replicas queues one mail.
  */
 @Injectable()
-export class MessageNoticesWorker implements OnApplicationBootstrap, BeforeApplicationShutdown {
-  private readonly logger = new Logger('MessageNoticesWorker');
-  private boss: PgBoss | null = null;
-
+export class MessageNoticesWorker extends QueueWorker {
   constructor(
-    private readonly config: ConfigService<AppConfig, true>,
+    config: ConfigService<AppConfig, true>,
+    jobs: JobQueue,
     private readonly notices: MessageNoticesService,
-    private readonly jobs: JobQueue,
-  ) {}
-
-  async onApplicationBootstrap() {
-    if (this.config.get('app', { infer: true }).runWorkers) await this.start();
+  ) {
+    super(config, jobs);
   }
 
-  async start() {
-    if (this.boss) return;
-    // The process's one pg-boss instance (JobQueue), shared with the mail and reminder workers.
-    const boss = await this.jobs.start();
-    await createQueue(boss, NOTICE_QUEUE, { policy: 'standard', retryLimit: 5, retryDelay: 30, retryBackoff: true });
-    await createQueue(boss, NOTICE_SWEEP_QUEUE, { policy: 'singleton', retryLimit: 0 });
-    await this.jobs.work(NOTICE_QUEUE, { pollingIntervalSeconds: 5 }, async () => {
-      await this.notices.sendDue();
-    });
-    await this.jobs.work(NOTICE_SWEEP_QUEUE, { pollingIntervalSeconds: 10 }, async () => {
-      await this.notices.sendDue();
-    });
-    await boss.schedule(NOTICE_SWEEP_QUEUE, '* * * * *');
-    this.boss = boss;
+  protected queuesOf(): WorkedQueue[] {
+    const sendDue = () => this.notices.sendDue();
+    return [
+      {
+        name: NOTICE_QUEUE,
+        options: { policy: 'standard', retryLimit: 5, retryDelay: 30, retryBackoff: true },
+        work: { pollingIntervalSeconds: 5 },
+        handler: sendDue,
+      },
+      {
+        name: NOTICE_SWEEP_QUEUE,
+        options: { policy: 'singleton', retryLimit: 0 },
+        work: { pollingIntervalSeconds: 10 },
+        handler: sendDue,
+        cron: '* * * * *',
+      },
+    ];
   }
 
   /** A wake-up call for when a notice's window closes (the sweep covers it if this is lost). */
@@ -54,12 +51,5 @@ export class MessageNoticesWorker implements OnApplicationBootstrap, BeforeAppli
     } catch (error) {
       this.logger.warn(`Could not schedule notice ${noticeId}; the minutely sweep will send it (${(error as Error).message})`);
     }
-  }
-
-  /** Stops fetching notice jobs and waits for the one in flight (JobQueue then stops the instance). */
-  async beforeApplicationShutdown() {
-    if (!this.boss) return;
-    this.boss = null;
-    await this.jobs.offWork(NOTICE_QUEUE, NOTICE_SWEEP_QUEUE);
   }
 }

@@ -1,8 +1,7 @@
-import { BeforeApplicationShutdown, Injectable, Logger, OnApplicationBootstrap } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import type PgBoss from 'pg-boss';
-import { createQueue } from '../jobs/create-queue';
 import { JobQueue } from '../jobs/job-queue.service';
+import { QueueWorker, type WorkedQueue } from '../jobs/queue-worker';
 import type { AppConfig } from '../config/configuration';
 import { RemindersService } from './reminders.service';
 
@@ -18,52 +17,30 @@ export const REMINDERS_CRON = '*/15 * * * *';
  * which holds even if two sweeps do run at once (tested with two apps on one database).
  */
 @Injectable()
-export class RemindersWorker implements OnApplicationBootstrap, BeforeApplicationShutdown {
-  private readonly logger = new Logger('RemindersWorker');
-  private boss: PgBoss | null = null;
-
+export class RemindersWorker extends QueueWorker {
   constructor(
-    private readonly config: ConfigService<AppConfig, true>,
+    config: ConfigService<AppConfig, true>,
+    jobs: JobQueue,
     private readonly reminders: RemindersService,
-    private readonly jobs: JobQueue,
-  ) {}
-
-  get running() {
-    return this.boss !== null;
+  ) {
+    super(config, jobs);
   }
 
-  async onApplicationBootstrap() {
-    if (this.config.get('app', { infer: true }).runWorkers) await this.start();
-  }
-
-  async start() {
-    if (this.boss) return;
-    // The process's one pg-boss instance (JobQueue), which also runs pg-boss's maintenance once.
-    const boss = await this.jobs.start();
-    await createQueue(boss, REMINDERS_QUEUE, { policy: 'singleton', retryLimit: 0, expireInSeconds: 10 * 60 });
-    await this.jobs.work(REMINDERS_QUEUE, { pollingIntervalSeconds: 5 }, async () => {
-      await this.reminders.runDue();
-    });
-    await boss.schedule(REMINDERS_QUEUE, REMINDERS_CRON);
-    this.boss = boss;
-    this.logger.log('Reminder worker started');
+  protected queuesOf(): WorkedQueue[] {
+    return [
+      {
+        name: REMINDERS_QUEUE,
+        options: { policy: 'singleton', retryLimit: 0, expireInSeconds: 10 * 60 },
+        work: { pollingIntervalSeconds: 5 },
+        handler: () => this.reminders.runDue(),
+        cron: REMINDERS_CRON,
+      },
+    ];
   }
 
   /** Asks for a sweep now (the queue's own job, so a worker in any process may run it). */
   async sweepSoon() {
     if (!this.boss) return null;
     return this.boss.send(REMINDERS_QUEUE, {});
-  }
-
-  /** Stops fetching sweeps and waits for one in flight; the instance stays up for the other workers. */
-  async stop() {
-    if (!this.boss) return;
-    this.boss = null;
-    await this.jobs.offWork(REMINDERS_QUEUE);
-  }
-
-  /** Before the database pool closes: a sweep in flight still needs it (JobQueue then stops the instance). */
-  async beforeApplicationShutdown() {
-    await this.stop();
   }
 }

@@ -32,11 +32,11 @@ function redactFor(viewer: Pick<AuthUser, 'id' | 'role'>, value: unknown): unkno
  * Applies `bookingAsSeenBy` to any JSON answer of any route that is a booking, a list of bookings
  * or a page of them, when a builder asked (configureApp mounts it for the whole app). It wraps
  * `res.json`, which Nest's Express adapter calls with a route's answer; by then the sign-in guard
- * has put the person on `req.user`. It was a global Nest interceptor; any global interceptor puts
+ * has put the person on `req.user`. An Express middleware, not a Nest interceptor: any global interceptor puts
  * every route, the anonymous estimate included, through Nest's RxJS chain, which measured about a
  * sixth of that route's CPU time (DEVELOPERS.md, "Speed at scale").
  */
-export function customerContact(req: Request, res: Response, next: NextFunction): void {
+export function customerContactMiddleware(req: Request, res: Response, next: NextFunction): void {
   const json = res.json;
   res.json = function (this: Response, body?: unknown) {
     const viewer = req.user as AuthUser | undefined;
