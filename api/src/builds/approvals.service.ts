@@ -11,11 +11,10 @@ import {
   type ProposeExtraInput,
   type RecordedDecisionInput,
 } from '@loomwright/shared';
-import { BookingsService } from '../bookings/bookings.service';
-import { Database, type Executor } from '../database/database';
-import { MailService } from '../mail/mail.service';
-import { BuildHistory, stateWords } from './build-history';
-import { BuildsRepository, type Decision } from './builds.repository';
+import { type Executor } from '../database/database';
+import { BuildServiceBase } from './build-service.base';
+import { stateWords } from './build-history';
+import { type Decision } from './builds.repository';
 import { BookingsRepository } from '../bookings/bookings.repository';
 
 /** While these last, the shop may propose an extra and the player (or staff for them) may answer. */
@@ -29,22 +28,7 @@ type LockedBooking = NonNullable<Awaited<ReturnType<BookingsRepository['lockWith
  * answer the player gave by phone, in person or by e-mail, with who gave it and how.
  */
 @Injectable()
-export class ApprovalsService {
-  constructor(
-    private readonly db: Database,
-    private readonly builds: BuildsRepository,
-    private readonly bookingRows: BookingsRepository,
-    private readonly bookings: BookingsService,
-    private readonly history: BuildHistory,
-    private readonly mail: MailService,
-  ) {}
-
-  private async lockBooking(trx: Executor, bookingId: string) {
-    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-    if (!booking) throw new NotFoundException('There is no booking with that id.');
-    return booking;
-  }
-
+export class ApprovalsService extends BuildServiceBase {
   /** Only the booking's own player answers in the app; another player's booking is simply not there for them. */
   private static playerOnly(user: AuthUser, booking: LockedBooking) {
     if (booking.customer_id !== user.id) throw new NotFoundException('There is no booking with that id in your account.');

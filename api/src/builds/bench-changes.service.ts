@@ -2,7 +2,6 @@ import { BadRequestException, ConflictException, ForbiddenException, Injectable,
 import Decimal from 'decimal.js';
 import {
   dateShiftWords,
-  errorResponse,
   type AuthUser,
   type BookingDetail,
   type BookingState,
@@ -11,21 +10,13 @@ import {
   type RescheduleInput,
   type RescheduleResponse,
 } from '@loomwright/shared';
-import { AWAITING_PEDALS, BenchService } from '../bench/bench.service';
-import { addDays } from '../bench/calendar-days';
-import { shipByDate, toHours } from '../bench/scheduling';
-import { actorOf, BookingsService } from '../bookings/bookings.service';
-import { Database, type Executor } from '../database/database';
-import { MailService } from '../mail/mail.service';
-import { dayWords } from '../common/shop-voice';
-import { ShopRepository } from '../shop/shop.repository';
-import { PaymentsService } from '../payments/payments.service';
-import { BuildHistory, stateWords } from './build-history';
-import { assertLevelRule, assertTakesBuilds } from './builds.service';
+import { AWAITING_PEDALS } from '../bench/bench.service';
+import { shipByDate } from '../bench/scheduling';
+import { actorOf } from '../bookings/bookings.service';
+import { type Executor } from '../database/database';
+import { BuildServiceBase, planDays } from './build-service.base';
+import { assertLevelRule } from './builds.service';
 import { inBenchTransaction } from './bench-transaction';
-import { BuildsRepository } from './builds.repository';
-import { BookingsRepository } from '../bookings/bookings.repository';
-import { firmQuoteFigures } from './firm-quote';
 import { whatToShip } from './what-to-ship';
 
 /** PostgreSQL SQLSTATEs the bench constraints raise (PostgreSQL docs, Appendix A "Error Codes"). */
@@ -45,19 +36,7 @@ export const AFTER_ACCEPTANCE_POLICY =
   'Once a bench date is set the deposit holds it: if the player cancels, the shop keeps the deposit, unless the firm price went above the quoted range and the player has not agreed to it; if the shop cancels, the whole deposit is refunded.';
 
 @Injectable()
-export class BenchChangesService {
-  constructor(
-    private readonly db: Database,
-    private readonly builds: BuildsRepository,
-    private readonly bookingRows: BookingsRepository,
-    private readonly shopRows: ShopRepository,
-    private readonly bench: BenchService,
-    private readonly history: BuildHistory,
-    private readonly mail: MailService,
-    private readonly payments: PaymentsService,
-    private readonly bookings: BookingsService,
-  ) {}
-
+export class BenchChangesService extends BuildServiceBase {
   async reschedule(user: AuthUser, bookingId: string, input: RescheduleInput): Promise<RescheduleResponse> {
     return inBenchTransaction(this.db, (trx) => this.rescheduleIn(trx, user, bookingId, input));
   }
@@ -68,19 +47,15 @@ export class BenchChangesService {
    * now and write the new slices under the same exclusion constraint.
    */
   private async rescheduleIn(trx: Executor, user: AuthUser, bookingId: string, input: RescheduleInput): Promise<RescheduleResponse> {
-    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-    if (!booking) throw new NotFoundException('There is no booking with that id.');
-    if (!MOVABLE.includes(booking.state)) {
-      throw new ConflictException(
-        `Booking ${booking.reference} is ${stateWords(booking.state)}; a build can be moved while it is scheduled or its pedals are in, before it goes on the bench.`,
-      );
-    }
+    const booking = await this.lockInState(
+      trx,
+      bookingId,
+      MOVABLE,
+      'a build can be moved while it is scheduled or its pedals are in, before it goes on the bench.',
+    );
     if (input.reprice && user.role !== 'owner')
       throw new ForbiddenException('Only the owner can re-price a firm quote at another builder’s rate.');
-    const facts = await this.bench.planningFacts(trx, bookingId);
-    const builder = await this.bench.lockBuilder(trx, input.builderId);
-    if (!builder) throw new NotFoundException('That builder is not on the team; choose one from the list.');
-    assertTakesBuilds(builder);
+    const { facts, builder } = await this.factsAndBuilder(trx, bookingId, input.builderId);
     const reassigned = builder.id !== booking.builder_id;
     const belowLevel = reassigned ? assertLevelRule(user, builder, facts, input.levelOverrideReason) : false;
     if (!reassigned && input.levelOverrideReason) {
@@ -91,12 +66,9 @@ export class BenchChangesService {
     if (input.reprice && !reassigned)
       throw new BadRequestException('Re-pricing is only for a move to another builder; the firm quote already uses this builder’s rate.');
 
-    const shop = await this.bench.shopCalendar(trx);
-    const plan = await this.bench.planFor(trx, builder, facts.laborHours, shop, { benchDate: input.benchDate }, bookingId);
-    this.bench.assertBenchDate(booking.state, input.benchDate, this.bench.calendarOf(builder, shop), shop, plan);
+    const { shop, plan } = await this.planOnBench(trx, booking, builder, facts.laborHours, input.benchDate, true);
     const previousDate = booking.bench_date;
-    const voice = await this.shopRows.formatOf(trx);
-    const formatDay = (day: string) => dayWords(voice, day);
+    const { voice, formatDay } = await this.shopVoice(trx);
     if (!reassigned && previousDate === input.benchDate) {
       throw new BadRequestException(
         `The build already starts on ${formatDay(input.benchDate)} with this builder; pick another day or builder.`,
@@ -111,29 +83,7 @@ export class BenchChangesService {
     let firmTotal = current.total;
     let priceConsent = booking.price_consent;
     if (input.reprice) {
-      const figures = firmQuoteFigures({
-        hourlyRate: builder.hourly_rate,
-        laborHours: facts.laborHours,
-        materialsTotal: facts.materialsTotal,
-        deposit: current.deposit,
-      });
-      await this.bookingRows.insertQuote(trx, {
-        booking_id: bookingId,
-        kind: 'firm',
-        price_book_version: current.price_book_version,
-        currency: current.currency,
-        configuration: JSON.stringify(current.configuration),
-        estimate: JSON.stringify(current.estimate),
-        labor_hours: facts.laborHours,
-        total_low: figures.total,
-        total_high: figures.total,
-        deposit: current.deposit,
-        hourly_rate: builder.hourly_rate,
-        labor_total: figures.laborTotal,
-        total: figures.total,
-        builder_id: builder.id,
-        expires_at: new Date(Date.parse(`${addDays(plan.expectedCompletion, 365)}T00:00:00Z`)),
-      });
+      const { figures } = await this.insertFirmQuote(trx, bookingId, current, facts, builder, current.deposit, plan);
       firmTotal = figures.total;
       // Above what the player was quoted: their yes is needed again before the deposit is kept.
       priceConsent = new Decimal(figures.total).gt(facts.quotedHigh) ? 'pending' : priceConsent === 'pending' ? null : priceConsent;
@@ -203,7 +153,7 @@ export class BenchChangesService {
       previousBenchDate: previousDate,
       expectedCompletion: plan.expectedCompletion,
       shipBy,
-      plan: plan.days.map((d) => ({ date: d.day, hours: toHours(d.hours) })),
+      plan: planDays(plan),
       shift,
       firmTotal,
       repriced: input.reprice === true,
@@ -255,16 +205,13 @@ export class BenchChangesService {
     cause: CancelScheduledInput['cause'],
     allowed: BookingState[],
   ) {
-    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-    if (!booking) throw new NotFoundException('There is no booking with that id.');
-    if (!allowed.includes(booking.state)) {
-      throw new ConflictException(
-        errorResponse(
-          'too_late_to_cancel',
-          `Booking ${booking.reference} is ${stateWords(booking.state)}; this cancels a build that has a bench date, before it reaches testing.`,
-        ),
-      );
-    }
+    const booking = await this.lockInState(
+      trx,
+      bookingId,
+      allowed,
+      'this cancels a build that has a bench date, before it reaches testing.',
+      'too_late_to_cancel',
+    );
     const hours = await this.bench.hoursHeld(trx, bookingId);
     const shop = await this.bench.shopCalendar(trx);
     const awaitingPedals = AWAITING_PEDALS.includes(booking.state);

@@ -1,6 +1,5 @@
 import { dayWords } from '../common/shop-voice';
-import { ShopRepository } from '../shop/shop.repository';
-import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import Decimal from 'decimal.js';
 import {
   intakeChecklist,
@@ -16,12 +15,9 @@ import {
   type TimeEntriesResponse,
   type TimeEntryInput,
 } from '@loomwright/shared';
-import { BenchService } from '../bench/bench.service';
-import { Database, type Executor } from '../database/database';
-import { MailService } from '../mail/mail.service';
-import { BuildHistory, stateWords } from './build-history';
-import { BuildsRepository } from './builds.repository';
-import { BookingsRepository } from '../bookings/bookings.repository';
+import { type Executor } from '../database/database';
+import { BuildServiceBase } from './build-service.base';
+import { stateWords } from './build-history';
 
 // Generated<Timestamp> columns come back typed as the column type; at runtime pg gives a Date.
 const iso = (d: unknown) => (d instanceof Date ? d : new Date(String(d))).toISOString();
@@ -32,26 +28,9 @@ const conditionWords = { working: 'working', faulty: 'faulty' } as const;
 
 /** What the bench records around a build: hours, intake and staff notes, each correctable with history. */
 @Injectable()
-export class BuildRecordsService {
-  constructor(
-    private readonly db: Database,
-    private readonly builds: BuildsRepository,
-    private readonly bookingRows: BookingsRepository,
-    private readonly shopRows: ShopRepository,
-    private readonly bench: BenchService,
-    private readonly history: BuildHistory,
-    private readonly mail: MailService,
-  ) {}
-
-  async lockIn(trx: Executor, bookingId: string, states: BookingState[], what: string) {
-    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-    if (!booking) throw new NotFoundException('There is no booking with that id.');
-    if (!states.includes(booking.state)) {
-      throw new ConflictException(
-        `Booking ${booking.reference} is ${stateWords(booking.state)}; ${what} only while it is ${states.map(stateWords).join(', ')}.`,
-      );
-    }
-    return booking;
+export class BuildRecordsService extends BuildServiceBase {
+  private lockIn(trx: Executor, bookingId: string, states: BookingState[], what: string) {
+    return this.lockInState(trx, bookingId, states, `${what} only while it is ${states.map(stateWords).join(', ')}.`);
   }
 
   private async mustExist(bookingId: string) {
@@ -65,8 +44,7 @@ export class BuildRecordsService {
   /** A staff note: internal, unless the writer tells the player (then it is e-mailed word for word). */
   async addNote(user: AuthUser, bookingId: string, input: StaffNoteInput): Promise<StaffNoteAdded> {
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-      if (!booking) throw new NotFoundException('There is no booking with that id.');
+      const booking = await this.lockBooking(trx, bookingId);
       const note = input.note.trim();
       await this.history.note(trx, booking, user, note, input.tellPlayer ? 'player' : 'internal');
       if (input.tellPlayer) {

@@ -1,4 +1,4 @@
-import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, ForbiddenException, Injectable } from '@nestjs/common';
 import Decimal from 'decimal.js';
 import {
   benchTransitions,
@@ -12,32 +12,19 @@ import {
   type BookingStateResponse,
   type BuilderLevel,
 } from '@loomwright/shared';
-import { BenchService } from '../bench/bench.service';
-import { addDays } from '../bench/calendar-days';
-import { shipByDate, toHours } from '../bench/scheduling';
-import { Database, type Executor } from '../database/database';
-import { actorOf, BookingsService } from '../bookings/bookings.service';
+import { shipByDate } from '../bench/scheduling';
+import { type Executor } from '../database/database';
+import { actorOf } from '../bookings/bookings.service';
 import { balanceLetterData } from '../mail/balance-letter';
-import { MailService } from '../mail/mail.service';
 import { formatMoney as formatMoneyWords } from '../mail/templates/format';
 import { dayWords } from '../common/shop-voice';
-import { ShopRepository } from '../shop/shop.repository';
-import { PaymentsService } from '../payments/payments.service';
 import { deliveryHold } from '../bookings/booking-view';
-import { BuildHistory, stateWords } from './build-history';
+import { BuildServiceBase, planDays } from './build-service.base';
+import { stateWords } from './build-history';
 import { inBenchTransaction } from './bench-transaction';
-import { BuildsRepository } from './builds.repository';
-import { BookingsRepository } from '../bookings/bookings.repository';
-import { firmQuoteFigures } from './firm-quote';
 import { whatToShip } from './what-to-ship';
 
 /** PostgreSQL SQLSTATEs the bench constraints raise (PostgreSQL docs, Appendix A "Error Codes"). */
-
-/** Only a builder who is on the team and has joined (not a pending invitation) takes builds. */
-export function assertTakesBuilds(builder: { name: string; active: boolean; joined: boolean }) {
-  if (!builder.active) throw new ConflictException(`${builder.name} is not taking builds (inactive on the team).`);
-  if (!builder.joined) throw new ConflictException(`${builder.name} has not accepted their invitation yet, so they cannot take builds.`);
-}
 
 /**
  * Builders below the level the player chose (raised to the rig's minimum) take a build only from
@@ -74,77 +61,34 @@ const RELEASING_STATES: BenchState[] = ['testing', 'ready', 'delivered'];
 const MAILED_STATES: BenchState[] = ['pedals_received', 'ready', 'delivered'];
 
 @Injectable()
-export class BuildsService {
-  constructor(
-    private readonly db: Database,
-    private readonly builds: BuildsRepository,
-    private readonly bookingRows: BookingsRepository,
-    private readonly shopRows: ShopRepository,
-    private readonly bench: BenchService,
-    private readonly history: BuildHistory,
-    private readonly mail: MailService,
-    private readonly payments: PaymentsService,
-    private readonly bookings: BookingsService,
-  ) {}
-
+export class BuildsService extends BuildServiceBase {
   async accept(user: AuthUser, bookingId: string, dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
     return inBenchTransaction(this.db, (trx) => this.acceptIn(trx, user, bookingId, dto));
   }
 
   private async acceptIn(trx: Executor, user: AuthUser, bookingId: string, dto: AcceptBookingInput): Promise<AcceptBookingResponse> {
     // Lock order is always booking, then builder, so concurrent acceptances cannot deadlock.
-    const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-    if (!booking) throw new NotFoundException('There is no booking with that id.');
-    if (booking.state !== 'deposit_paid') {
-      throw new ConflictException(
-        `Booking ${booking.reference} is ${stateWords(booking.state)}; a build can be accepted only once its deposit is paid and before it is scheduled.`,
-      );
-    }
-    const facts = await this.bench.planningFacts(trx, bookingId);
-    const builder = await this.bench.lockBuilder(trx, dto.builderId);
-    if (!builder) throw new NotFoundException('That builder is not on the team; choose one from the list.');
-    assertTakesBuilds(builder);
+    const booking = await this.lockInState(
+      trx,
+      bookingId,
+      ['deposit_paid'],
+      'a build can be accepted only once its deposit is paid and before it is scheduled.',
+    );
+    const { facts, builder } = await this.factsAndBuilder(trx, bookingId, dto.builderId);
     const belowLevel = assertLevelRule(user, builder, facts, dto.levelOverrideReason);
-
-    const shop = await this.bench.shopCalendar(trx);
-    const plan = await this.bench.planFor(trx, builder, facts.laborHours, shop, { benchDate: dto.benchDate });
-    this.bench.assertBenchDate(booking.state, dto.benchDate, this.bench.calendarOf(builder, shop), shop, plan);
+    const { shop, plan } = await this.planOnBench(trx, booking, builder, facts.laborHours, dto.benchDate);
     await this.bench.allocate(trx, bookingId, builder, shop, plan);
 
     const payments = await this.bookingRows.paymentsFor(bookingId, trx);
     const depositPaid = payments.find((p) => p.kind === 'deposit' && p.status === 'paid')?.amount ?? facts.deposit;
-    const figures = firmQuoteFigures({
-      hourlyRate: builder.hourly_rate,
-      laborHours: facts.laborHours,
-      materialsTotal: facts.materialsTotal,
-      deposit: depositPaid,
-    });
-    const est = facts.estimateQuote;
+    const firm = await this.insertFirmQuote(trx, bookingId, facts.estimateQuote, facts, builder, depositPaid, plan);
+    const { figures } = firm;
     const aboveQuoted = new Decimal(figures.total).gt(facts.quotedHigh);
-    const firm = await this.bookingRows.insertQuote(trx, {
-      booking_id: bookingId,
-      kind: 'firm',
-      price_book_version: est.price_book_version,
-      currency: est.currency,
-      configuration: JSON.stringify(est.configuration),
-      estimate: JSON.stringify(est.estimate),
-      labor_hours: facts.laborHours,
-      total_low: figures.total,
-      total_high: figures.total,
-      deposit: depositPaid,
-      hourly_rate: builder.hourly_rate,
-      labor_total: figures.laborTotal,
-      total: figures.total,
-      builder_id: builder.id,
-      // A firm quote holds for the build it was given for; a year covers any queue we plan.
-      expires_at: new Date(Date.parse(`${addDays(plan.expectedCompletion, 365)}T00:00:00Z`)),
-    });
 
     // The balance from the money facts with the new firm quote in place: the one place a balance is worked out.
     const { balanceDue } = await this.bookings.moneyFacts(bookingId, trx);
     const shipBy = shipByDate(plan.benchDate, shop);
-    const voice = await this.shopRows.formatOf(trx);
-    const formatDay = (day: string) => dayWords(voice, day);
+    const { formatDay } = await this.shopVoice(trx);
     const levelNote = belowLevel ? ` Level override: ${dto.levelOverrideReason!.trim()}` : '';
     await this.history.move(
       trx,
@@ -193,7 +137,7 @@ export class BuildsService {
       benchDate: plan.benchDate,
       expectedCompletion: plan.expectedCompletion,
       shipBy,
-      plan: plan.days.map((d) => ({ date: d.day, hours: toHours(d.hours) })),
+      plan: planDays(plan),
       firmQuote: {
         id: firm.id,
         hourlyRate: builder.hourly_rate,
@@ -210,11 +154,7 @@ export class BuildsService {
 
   async decline(user: AuthUser, bookingId: string, reason: string): Promise<BookingDetail> {
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-      if (!booking) throw new NotFoundException('There is no booking with that id.');
-      if (!['requested', 'deposit_paid'].includes(booking.state)) {
-        throw new ConflictException(`Booking ${booking.reference} is ${stateWords(booking.state)}; only a request can be declined.`);
-      }
+      const booking = await this.lockInState(trx, bookingId, ['requested', 'deposit_paid'], 'only a request can be declined.');
       const paid = booking.state === 'deposit_paid';
       if (paid && user.role !== 'owner') {
         throw new ForbiddenException('Only the owner can decline a paid request, because it refunds the deposit.');
@@ -257,8 +197,7 @@ export class BuildsService {
    */
   async changeState(user: AuthUser, bookingId: string, to: BenchState, note = '', tellPlayer = false): Promise<BookingStateResponse> {
     return this.db.transaction().execute(async (trx) => {
-      const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-      if (!booking) throw new NotFoundException('There is no booking with that id.');
+      const booking = await this.lockBooking(trx, bookingId);
       const from = booking.state as BenchState;
       const allowed = benchTransitions[from as BenchState];
       if (!allowed || !allowed.includes(to)) {
@@ -303,7 +242,7 @@ export class BuildsService {
         const { today } = await this.bench.shopCalendar(trx);
         const freed = await this.bench.releaseAfter(trx, bookingId, today);
         if (freed > 0) {
-          const voice = await this.shopRows.formatOf(trx);
+          const { voice } = await this.shopVoice(trx);
           await this.history.note(
             trx,
             updated,
@@ -350,13 +289,7 @@ export class BuildsService {
 
   async waiveBalance(user: AuthUser, bookingId: string, reason: string): Promise<BookingStateResponse> {
     return this.db.transaction().execute(async (trx) => {
-      const booking = await this.bookingRows.lockWithCustomer(trx, bookingId);
-      if (!booking) throw new NotFoundException('There is no booking with that id.');
-      if (booking.state !== 'ready') {
-        throw new ConflictException(
-          `Booking ${booking.reference} is ${stateWords(booking.state)}; a balance can be waived once the build is ready.`,
-        );
-      }
+      const booking = await this.lockInState(trx, bookingId, ['ready'], 'a balance can be waived once the build is ready.');
       if (booking.balance_waived_reason) throw new ConflictException(`The balance of ${booking.reference} is already waived.`);
       await this.bookingRows.updateIfIn(trx, bookingId, ['ready'], { balance_waived_reason: reason.trim() });
       await this.history.note(trx, booking, user, `Balance waived: ${reason.trim()}`);

@@ -1,9 +1,9 @@
-import { BeforeApplicationShutdown, Logger, OnApplicationBootstrap } from '@nestjs/common';
-import type { ConfigService } from '@nestjs/config';
+import { BeforeApplicationShutdown, Inject, Logger, OnApplicationBootstrap } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import type PgBoss from 'pg-boss';
 import type { AppConfig } from '../config/configuration';
 import { createQueue } from './create-queue';
-import type { JobQueue } from './job-queue.service';
+import { JobQueue } from './job-queue.service';
 
 /** A queue a worker creates and works: its pg-boss options, how it polls, what each fetch runs, and its cron schedule if any. */
 export interface WorkedQueue<T = unknown> {
@@ -30,10 +30,8 @@ export abstract class QueueWorker implements OnApplicationBootstrap, BeforeAppli
   protected boss: PgBoss | null = null;
   private queueNames: string[] = [];
 
-  protected constructor(
-    protected readonly config: ConfigService<AppConfig, true>,
-    protected readonly jobs: JobQueue,
-  ) {}
+  @Inject() protected readonly config: ConfigService<AppConfig, true>;
+  @Inject() protected readonly jobs: JobQueue;
 
   /** The queues this worker runs on the given instance. */
   protected abstract queuesOf(boss: PgBoss): WorkedQueue[];

@@ -1,10 +1,7 @@
 import { Injectable } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
 import { CompiledQuery } from 'kysely';
 import type PgBoss from 'pg-boss';
-import { JobQueue } from '../jobs/job-queue.service';
 import { QueueWorker, type WorkedQueue } from '../jobs/queue-worker';
-import type { AppConfig } from '../config/configuration';
 import type { Executor } from '../database/database';
 import { MailDeliveryService } from './mail-delivery.service';
 import { MailOutboxRepository } from './mail-outbox.repository';
@@ -39,12 +36,10 @@ interface DeliverJob {
 @Injectable()
 export class MailWorker extends QueueWorker {
   constructor(
-    config: ConfigService<AppConfig, true>,
-    jobs: JobQueue,
     private readonly delivery: MailDeliveryService,
     private readonly outbox: MailOutboxRepository,
   ) {
-    super(config, jobs);
+    super();
   }
 
   protected queuesOf(boss: PgBoss): WorkedQueue[] {

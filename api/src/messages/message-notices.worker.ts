@@ -1,8 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
-import { JobQueue } from '../jobs/job-queue.service';
 import { QueueWorker, type WorkedQueue } from '../jobs/queue-worker';
-import type { AppConfig } from '../config/configuration';
 import { MessageNoticesService } from './message-notices.service';
 
 export const NOTICE_QUEUE = 'message-notices';
@@ -16,12 +13,8 @@ export const NOTICE_SWEEP_QUEUE = 'message-notices-sweep';
  */
 @Injectable()
 export class MessageNoticesWorker extends QueueWorker {
-  constructor(
-    config: ConfigService<AppConfig, true>,
-    jobs: JobQueue,
-    private readonly notices: MessageNoticesService,
-  ) {
-    super(config, jobs);
+  constructor(private readonly notices: MessageNoticesService) {
+    super();
   }
 
   protected queuesOf(): WorkedQueue[] {

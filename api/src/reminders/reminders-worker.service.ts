@@ -1,8 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
-import { JobQueue } from '../jobs/job-queue.service';
 import { QueueWorker, type WorkedQueue } from '../jobs/queue-worker';
-import type { AppConfig } from '../config/configuration';
 import { RemindersService } from './reminders.service';
 
 export const REMINDERS_QUEUE = 'reminders-sweep';
@@ -18,12 +15,8 @@ export const REMINDERS_CRON = '*/15 * * * *';
  */
 @Injectable()
 export class RemindersWorker extends QueueWorker {
-  constructor(
-    config: ConfigService<AppConfig, true>,
-    jobs: JobQueue,
-    private readonly reminders: RemindersService,
-  ) {
-    super(config, jobs);
+  constructor(private readonly reminders: RemindersService) {
+    super();
   }
 
   protected queuesOf(): WorkedQueue[] {
