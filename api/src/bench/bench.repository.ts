@@ -1,5 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { sql, type Updateable } from 'kysely';
+import { jsonArrayFrom, jsonObjectFrom } from 'kysely/helpers/postgres';
 import type { BuilderLevel, WeeklyHours } from '@loomwright/shared';
 import { BookingsRepository } from '../bookings/bookings.repository';
 import { Database, Executor, type BuildersTable } from '../database/database';
@@ -18,21 +19,36 @@ export class BenchRepository {
 
   /** Builders with their accounts, as every list of the team shows them; callers add columns, filters and order. */
   buildersWithAccounts(trx: Executor = this.db) {
-    return trx
-      .selectFrom('builders')
-      .innerJoin('users', 'users.id', 'builders.user_id')
-      .select([
-        'builders.id',
-        'builders.user_id',
-        'users.name',
-        'users.email',
-        'builders.level',
-        'builders.hourly_rate',
-        'builders.weekly_hours',
-        'builders.active',
-        // "Joined": the invitation was accepted and a password set; a pending invitation takes no builds.
-        sql<boolean>`users.password_hash is not null`.as('joined'),
-      ]);
+    return (
+      trx
+        .selectFrom('builders')
+        // Each builder's account found by its key. A plain join let the planner hash every user (a
+        // shop's thousands of customers) to name twenty builders; a lateral subquery with a limit is
+        // never flattened into a join, so it stays one index lookup per builder. It keeps the name
+        // `users`, so callers filter and order on `users.name` and `users.password_hash` as before.
+        .innerJoinLateral(
+          (eb) =>
+            eb
+              .selectFrom('users')
+              .select(['users.id', 'users.name', 'users.email', 'users.password_hash'])
+              .whereRef('users.id', '=', 'builders.user_id')
+              .limit(1)
+              .as('users'),
+          (join) => join.onTrue(),
+        )
+        .select([
+          'builders.id',
+          'builders.user_id',
+          'users.name',
+          'users.email',
+          'builders.level',
+          'builders.hourly_rate',
+          'builders.weekly_hours',
+          'builders.active',
+          // "Joined": the invitation was accepted and a password set; a pending invitation takes no builds.
+          sql<boolean>`users.password_hash is not null`.as('joined'),
+        ])
+    );
   }
 
   listBuilders(trx: Executor = this.db, filter: { builderId?: string; activeOnly?: boolean } = {}) {
@@ -71,22 +87,46 @@ export class BenchRepository {
       .execute();
   }
 
-  /** Public holidays of a country the owner switched off (latest choice per day says the shop works). */
-  async workedHolidays(trx: Executor, countryCode: string): Promise<string[]> {
-    const rows = await trx
-      .selectFrom('shop_holiday_choices')
-      .distinctOn('day')
-      .select(['day', 'shop_works'])
-      .where('country_code', '=', countryCode)
-      .orderBy('day')
-      .orderBy('decided_at', 'desc')
-      .orderBy('id', 'desc')
-      .execute();
-    return rows.filter((r) => r.shop_works).map((r) => r.day);
-  }
-
-  shopSettings(trx: Executor = this.db) {
-    return trx.selectFrom('shop_settings').select(['country_code', 'timezone', 'currency']).where('id', '=', 1).executeTakeFirst();
+  /**
+   * What every plan reads about the shop's calendar, in one statement: the settings, the closures,
+   * each builder's absences, and the public holidays the owner chose to work (the latest choice per
+   * day, for the settings' country). Dates come as 'YYYY-MM-DD', as the date parser gives them.
+   */
+  calendarFacts(trx: Executor = this.db) {
+    const day = (column: string) => sql<string>`to_char(${sql.ref(column)}, 'YYYY-MM-DD')`;
+    return trx
+      .selectNoFrom((eb) => [
+        jsonObjectFrom(eb.selectFrom('shop_settings').select(['country_code', 'timezone', 'currency']).where('id', '=', 1)).as('settings'),
+        jsonArrayFrom(
+          eb
+            .selectFrom('shop_closures')
+            .select([day('starts_on').as('starts_on'), day('ends_on').as('ends_on'), 'reason'])
+            .orderBy('starts_on'),
+        ).as('closures'),
+        jsonArrayFrom(
+          eb
+            .selectFrom('builder_absences')
+            .select(['builder_id', day('starts_on').as('starts_on'), day('ends_on').as('ends_on'), 'reason'])
+            .orderBy('starts_on'),
+        ).as('absences'),
+        jsonArrayFrom(
+          eb
+            .selectFrom((inner) =>
+              inner
+                .selectFrom('shop_holiday_choices')
+                .distinctOn('day')
+                .select(['day', 'shop_works'])
+                .where('country_code', '=', sql<string>`coalesce((select country_code from shop_settings where id = 1), 'US')`)
+                .orderBy('day')
+                .orderBy('decided_at', 'desc')
+                .orderBy('id', 'desc')
+                .as('latest'),
+            )
+            .select(day('latest.day').as('day'))
+            .where('latest.shop_works', '=', true),
+        ).as('worked_holidays'),
+      ])
+      .executeTakeFirstOrThrow();
   }
 
   /** Slices of bench time with the build each belongs to, for the calendar. */
@@ -115,26 +155,31 @@ export class BenchRepository {
       .execute();
   }
 
-  /** Every slice a builder holds from `from` on, for planning a build (leaving out the build being moved). */
+  /**
+   * Every slice a builder holds from `from` on, for planning a build (leaving out the build being
+   * moved), its ends in centihours (slices hold two decimals, so hundredths are whole numbers).
+   */
   allocationsFrom(trx: Executor, builderId: string, from: string, exceptBookingId?: string) {
-    let q = trx
-      .selectFrom('bench_allocations')
-      .select(['day', 'booking_id', sql<string>`lower(hours)`.as('lower'), sql<string>`upper(hours)`.as('upper')])
-      .where('builder_id', '=', builderId)
-      .where('day', '>=', from);
-    if (exceptBookingId) q = q.where('booking_id', '!=', exceptBookingId);
-    return q.execute();
+    return this.allocationsFromEach(trx, [builderId], from, exceptBookingId);
   }
 
   /**
    * As allocationsFrom, for several builders in one query (the lead time and the suggestions plan
    * every eligible builder at once; one query each was most of their time with a year of data).
+   * `day >= from` is served by the exclusion constraint's GiST index when few slices lie ahead; with
+   * a busy bench nearly every slice does, and PostgreSQL reads the table whole (35 pages for a year).
    */
   allocationsFromEach(trx: Executor, builderIds: readonly string[], from: string, exceptBookingId?: string) {
     if (builderIds.length === 0) return Promise.resolve([]);
     let q = trx
       .selectFrom('bench_allocations')
-      .select(['builder_id', 'day', 'booking_id', sql<string>`lower(hours)`.as('lower'), sql<string>`upper(hours)`.as('upper')])
+      .select([
+        'builder_id',
+        'day',
+        'booking_id',
+        sql<number>`(lower(hours) * 100)::int`.as('from_centihours'),
+        sql<number>`(upper(hours) * 100)::int`.as('to_centihours'),
+      ])
       .where('builder_id', 'in', builderIds)
       .where('day', '>=', from);
     if (exceptBookingId) q = q.where('booking_id', '!=', exceptBookingId);

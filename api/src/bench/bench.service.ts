@@ -104,14 +104,10 @@ export class BenchService {
   }
 
   async shopCalendar(trx: Executor = this.db): Promise<ShopCalendar> {
-    const [settings, closures, absenceRows] = await Promise.all([
-      this.bench.shopSettings(trx),
-      this.bench.closures(trx),
-      this.bench.absences(trx),
-    ]);
+    const { settings, closures, absences: absenceRows, worked_holidays } = await this.bench.calendarFacts(trx);
     const country = settings?.country_code.trim() ?? 'US';
     // Public holidays the owner switched off one by one are ordinary working days.
-    const worked = new Set(await this.bench.workedHolidays(trx, country));
+    const worked = new Set(worked_holidays.map((h) => h.day));
     const holidayOn = this.holidayOn(country);
     const absences = new Map<string, Closure[]>();
     for (const a of absenceRows) {
@@ -507,7 +503,7 @@ export class BenchService {
   }
 
   private planOver(
-    rows: ReadonlyArray<{ day: string; lower: string; upper: string }>,
+    rows: ReadonlyArray<{ day: string; from_centihours: number; to_centihours: number }>,
     builder: { id: string; weekly_hours: WeeklyHours },
     laborHours: string,
     shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>,
@@ -516,7 +512,7 @@ export class BenchService {
     const byDay = new Map<string, HourSlice[]>();
     for (const r of rows) {
       const list = byDay.get(r.day) ?? [];
-      list.push({ from: toCentihours(r.lower), to: toCentihours(r.upper) });
+      list.push({ from: r.from_centihours, to: r.to_centihours });
       byDay.set(r.day, list);
     }
     const calendar = this.calendarOf(builder, shop);

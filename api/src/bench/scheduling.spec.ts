@@ -1,3 +1,4 @@
+import Decimal from 'decimal.js';
 import { describe, expect, it } from 'vitest';
 import { addDays, isoWeekday } from './calendar-days';
 import { publicHolidaysBetween } from './public-holidays';
@@ -163,5 +164,38 @@ describe('ship-by day', () => {
     const first = earliestBenchDateFor(today, calendar());
     expect(shipByDate(first, calendar()) >= today).toBe(true);
     expect(shipByDate(addDays(first, -1), calendar()) < today).toBe(true);
+  });
+});
+
+describe('hours as centihours', () => {
+  // decimal.js (the reference library the whole price book rounds with) is the oracle: hundredths
+  // of an hour, rounded half up, for every form the bench reads (numeric text from PostgreSQL,
+  // numbers from weekly hours) and for text with more decimals than the fast path reads.
+  const byDecimal = (hours: string | number) => new Decimal(hours).times(100).round().toNumber();
+
+  it('gives what decimal.js gives for two-decimal text, numbers, and odd forms', () => {
+    const samples: Array<string | number> = [
+      '0',
+      '0.00',
+      '7',
+      '7.5',
+      '7.50',
+      '0.25',
+      '0.29',
+      '1.05',
+      '23.99',
+      '24.00',
+      '-1.25',
+      '-0.00',
+      '007.10',
+    ];
+    samples.push('1.005', '0.125', '2.675', '1e2', '.5', '3.14159', 0.1 + 0.2, 7.5, 6, 0.29, 1.15, -2.5);
+    for (let centi = 0; centi <= 2_400; centi++) samples.push((centi / 100).toFixed(2), centi / 100, String(centi / 100));
+    for (const hours of samples) expect(toCentihours(hours), String(hours)).toBe(byDecimal(hours));
+  });
+
+  it('refuses what is not a number, as decimal.js does', () => {
+    expect(() => toCentihours('seven')).toThrow();
+    expect(() => toCentihours('')).toThrow();
   });
 });

@@ -37,7 +37,21 @@ export interface DayCapacity {
   off: BenchDayOff;
 }
 
-export const toCentihours = (hours: string | number): Centihours => new Decimal(hours).times(100).round().toNumber();
+// Hours written with at most two decimals ("7", "3.50", 7.5): their hundredths exactly, without a decimal.js object.
+const TWO_DECIMALS = /^(-?)(\d{1,12})(?:\.(\d{1,2}))?$/;
+
+/**
+ * Hours as centihours, rounded half up. Hours with at most two decimals (every bench slice, weekly
+ * hours and labor hours the database or the schemas hold) are read as integers; anything else goes
+ * through decimal.js, which rounds the same way. The planner converts each slice and day it reads,
+ * so this runs thousands of times per lead time.
+ */
+export function toCentihours(hours: string | number): Centihours {
+  const m = TWO_DECIMALS.exec(typeof hours === 'number' ? String(hours) : hours);
+  if (!m) return new Decimal(hours).times(100).round().toNumber();
+  const value = Number(m[2]) * 100 + Number((m[3] ?? '').padEnd(2, '0'));
+  return m[1] ? -value : value;
+}
 export const toHours = (centihours: Centihours): number => centihours / 100;
 
 /** Holidays and closures first (the shop is shut), then the builder's own week. */
