@@ -26,7 +26,8 @@ export interface PaymentEventReceived {
   duplicate: boolean;
 }
 
-export interface ShopProfile {
+/** Who the shop is and how it speaks (its money, country, time zone and locale): the public profile and the owner's settings both begin with it. */
+export interface ShopIdentity {
   name: string;
   tagline: string;
   currency: string;
@@ -35,6 +36,9 @@ export interface ShopProfile {
   /** BCP 47 tag (en-US, de-DE): with currency and timezone, how every amount, date and time is written (`shopFormat`). */
   locale: string;
   contactEmail: string;
+}
+
+export interface ShopProfile extends ShopIdentity {
   /** The postal address players ship or bring their pedals to, on one line (`postalAddressLine`); null until the owner sets it. */
   postalAddress: string | null;
 }

@@ -1,5 +1,6 @@
 import type { BuilderRef, PaymentView, PersonRef, Page } from './booking-types';
 import type { BookingState, BuilderLevel, WeeklyHours } from './domain';
+import type { ShopIdentity } from './api-types';
 
 /**
  * Shapes of the bench, builds, team, settings and customers routes. Hours are plain numbers
@@ -47,6 +48,12 @@ export interface BenchView {
   builders: Array<{ builder: BenchBuilder; days: BenchDay[] }>;
 }
 
+/** One day of a build's bench plan: the day and the hours spent on it then. */
+export interface BenchPlanDay {
+  date: string;
+  hours: number;
+}
+
 /** One builder's earliest start for a build (GET /api/bench/suggest?bookingId=&builderId=). */
 export interface BenchSuggestion {
   builder: BenchBuilder;
@@ -55,7 +62,7 @@ export interface BenchSuggestion {
   /** When the player should ship or drop off their pedals (a few working days before). */
   shipBy: string;
   /** Each day the build would take and how many hours on it. */
-  plan: Array<{ date: string; hours: number }>;
+  plan: BenchPlanDay[];
   /** Builder's rate × labor hours (decimal string), and that plus materials. */
   laborTotal: string;
   firmTotal: string;
@@ -100,7 +107,7 @@ export interface AcceptBookingResponse {
   benchDate: string;
   expectedCompletion: string;
   shipBy: string;
-  plan: Array<{ date: string; hours: number }>;
+  plan: BenchPlanDay[];
   firmQuote: {
     id: string;
     hourlyRate: string;
@@ -166,7 +173,7 @@ export interface RescheduleResponse {
   previousBenchDate: string | null;
   expectedCompletion: string;
   shipBy: string | null;
-  plan: Array<{ date: string; hours: number }>;
+  plan: BenchPlanDay[];
   /** "3 days later", "2 days earlier" or "same day". */
   shift: string;
   firmTotal: string;
@@ -189,6 +196,13 @@ export interface CancellationPreview {
   benchHours: number;
 }
 
+/** A build already on the bench in days that just closed, and which of its days they are (it does not move by itself). */
+export interface BuildOnBenchThen {
+  bookingId: string;
+  reference: string;
+  days: string[];
+}
+
 export interface BuilderAbsenceView {
   id: string;
   builderId: string;
@@ -199,7 +213,7 @@ export interface BuilderAbsenceView {
 
 /** POST /api/team/:builderId/absences: the absence, and the builds it hits (they move through the reschedule route). */
 export interface AddAbsenceResponse extends BuilderAbsenceView {
-  buildsOnBenchThen: Array<{ bookingId: string; reference: string; days: string[] }>;
+  buildsOnBenchThen: BuildOnBenchThen[];
 }
 
 /** POST /api/bookings/:id/decline answers with the booking's BookingDetail. */
@@ -352,20 +366,22 @@ export interface ShopClosureView {
 
 /** POST /api/settings/closures: the closure, and builds already on the bench in those days (they do not move by themselves). */
 export interface AddClosureResponse extends ShopClosureView {
-  buildsOnBenchThen: Array<{ bookingId: string; reference: string; days: string[] }>;
+  buildsOnBenchThen: BuildOnBenchThen[];
+}
+
+/** The shop's postal address as stored: lines the owner left empty are empty strings (the country is the shop's countryCode). */
+export interface PostalAddress {
+  line1: string;
+  line2: string;
+  city: string;
+  region: string;
+  postalCode: string;
 }
 
 /** GET /api/settings */
-export interface ShopSettingsView {
-  name: string;
-  tagline: string;
-  currency: string;
-  countryCode: string;
-  timezone: string;
-  locale: string;
-  contactEmail: string;
+export interface ShopSettingsView extends ShopIdentity {
   /** Where players ship or drop off their pedals; null until the owner fills it in. */
-  postalAddress: { line1: string; line2: string; city: string; region: string; postalCode: string } | null;
+  postalAddress: PostalAddress | null;
   closures: ShopClosureView[];
   /**
    * The public holidays of the shop's country in the coming twelve months (date-holidays); the
@@ -393,7 +409,7 @@ export interface HolidayChoiceView {
 
 /** PUT /api/settings/holidays/:day answer; closing a day again lists builds already on the bench then. */
 export interface HolidayChoiceResponse extends HolidayChoiceView {
-  buildsOnBenchThen: Array<{ bookingId: string; reference: string; days: string[] }>;
+  buildsOnBenchThen: BuildOnBenchThen[];
 }
 
 export interface UpdateShopSettingsRequest {

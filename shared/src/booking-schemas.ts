@@ -3,7 +3,7 @@ import { depositStatuses } from './booking-types';
 import { bookingStates } from './domain';
 import { rigConfigurationSchema } from './estimate/schema';
 import { decodeCursorParts, encodeCursorParts, timestampKeyShape, uuidShape } from './list-cursor';
-import { oneOf, pagingQuery, requestObject, sortOrder, text } from './request-fields';
+import { oneOf, pageCursor, pagingQuery, requestObject, sortOrder, text } from './request-fields';
 import { bookingWords } from './words';
 
 /** POST /api/bookings/:id/shipment: the parcel carrying the player's pedals to the shop. */
@@ -84,18 +84,7 @@ export const listBookingsQuerySchema = requestObject({
   /** Part of the reference, the customer's name or e-mail. */
   q: text('q', { max: 200 }).optional(),
   /** The previous page's `nextCursor`: the page after it, found through the sort's index (`page` is then not used). */
-  cursor: z
-    .string({ error: bookingWords.listCursor })
-    .max(400, { error: bookingWords.listCursor })
-    .transform((value, ctx) => {
-      const cursor = decodeBookingListCursor(value);
-      if (!cursor) {
-        ctx.addIssue({ code: 'custom', message: bookingWords.listCursor });
-        return z.NEVER;
-      }
-      return cursor;
-    })
-    .optional(),
+  cursor: pageCursor(decodeBookingListCursor).optional(),
 }).refine((q) => !q.cursor || (q.cursor.sort === q.sort && q.cursor.order === q.order), {
   error: bookingWords.listCursorOtherOrder,
   path: ['cursor'],

@@ -1,6 +1,6 @@
 import Decimal from 'decimal.js';
 import { z } from 'zod';
-import { label, rules } from './words';
+import { bookingWords, label, rules } from './words';
 
 /**
  * Building blocks of the request schemas: each field says what is wrong in plain words that name
@@ -111,5 +111,22 @@ export const pagingQuery = {
   page: wholeNumberQuery('page', 1, 100_000).default(1),
   pageSize: wholeNumberQuery('pageSize', 1, 100).default(25),
 };
+
+/**
+ * The previous page's `nextCursor` on a list read through its sort's index (`page` is then not
+ * used), read back by the list's own `decode`: a damaged or foreign cursor is a 400 in words.
+ */
+export const pageCursor = <Cursor>(decode: (value: string) => Cursor | null) =>
+  z
+    .string({ error: bookingWords.listCursor })
+    .max(400, { error: bookingWords.listCursor })
+    .transform((value, ctx) => {
+      const cursor = decode(value);
+      if (!cursor) {
+        ctx.addIssue({ code: 'custom', message: bookingWords.listCursor });
+        return z.NEVER;
+      }
+      return cursor;
+    });
 
 export const sortOrder = (fallback: 'asc' | 'desc') => oneOf('order', ['asc', 'desc']).default(fallback);

@@ -24,6 +24,10 @@ export const authUserSchema = z.object({
   role: userRoleSchema,
 });
 
+export const supplyKindSchema = z.union([z.literal('dc'), z.literal('ac')]);
+
+export const barrelPolaritySchema = z.union([z.literal('center_negative'), z.literal('center_positive')]);
+
 export const checkStatusSchema = z.union([z.literal('ok'), z.literal('warning'), z.literal('problem'), z.literal('unknown')]);
 
 export const pedalKindSchema = z.union([
@@ -47,8 +51,8 @@ export const rigDeviceSchema = z.object({
   powered: z.boolean(),
   loop: z.number().nullable(),
   voltage: z.number(),
-  supply: z.union([z.literal('dc'), z.literal('ac')]),
-  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]),
+  supply: supplyKindSchema,
+  polarity: barrelPolaritySchema,
   currentMa: z.number().nullable(),
   budgetMa: z.number(),
   drawFromMemory: z.boolean(),
@@ -74,8 +78,8 @@ export const patchCableSchema = z.object({
 export const powerLeadSchema = z.object({
   device: z.string(),
   voltage: z.number(),
-  supply: z.union([z.literal('dc'), z.literal('ac')]),
-  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]),
+  supply: supplyKindSchema,
+  polarity: barrelPolaritySchema,
   connector: z.string(),
 });
 
@@ -93,8 +97,8 @@ export const powerOutputLoadSchema = z.object({
   output: z.number(),
   label: z.string(),
   voltage: z.number(),
-  supply: z.union([z.literal('dc'), z.literal('ac')]),
-  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]),
+  supply: supplyKindSchema,
+  polarity: barrelPolaritySchema,
   isolated: z.boolean(),
   ratingMa: z.number(),
   loadMa: z.number(),
@@ -208,39 +212,35 @@ export const signalChainSchema = z.object({
 
 export const routingModeSchema = z.union([z.literal('serial'), z.literal('switcher')]);
 
-export const switcherInputSchema = z.object({
-  name: z.string().optional(),
-  currentMa: z.number().optional(),
-  voltage: z.number().optional(),
-  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]).optional(),
-  supply: z.union([z.literal('dc'), z.literal('ac')]).optional(),
-  widthMm: z.number().optional(),
-  depthMm: z.number().optional(),
-  powerOutput: z.number().optional(),
-});
-
-export const pedalInputSchema = z.object({
-  name: z.string(),
-  kind: pedalKindSchema.optional(),
-  powered: z.boolean(),
-  inLoop: z.boolean(),
-  currentMa: z.number().optional(),
-  voltage: z.number().optional(),
-  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]).optional(),
-  supply: z.union([z.literal('dc'), z.literal('ac')]).optional(),
-  widthMm: z.number().optional(),
-  depthMm: z.number().optional(),
-  digital: z.boolean().optional(),
-  powerOutput: z.number().optional(),
-});
-
 export const powerOutputInputSchema = z.object({
   label: z.string().optional(),
   voltage: z.number(),
   currentMa: z.number(),
   isolated: z.boolean(),
-  supply: z.union([z.literal('dc'), z.literal('ac')]).optional(),
-  polarity: z.union([z.literal('center_negative'), z.literal('center_positive')]).optional(),
+  supply: supplyKindSchema.optional(),
+  polarity: barrelPolaritySchema.optional(),
+});
+
+export const deviceFiguresSchema = z.object({
+  currentMa: z.number().optional(),
+  voltage: z.number().optional(),
+  polarity: barrelPolaritySchema.optional(),
+  supply: supplyKindSchema.optional(),
+  widthMm: z.number().optional(),
+  depthMm: z.number().optional(),
+  powerOutput: z.number().optional(),
+});
+
+export const switcherInputSchema = deviceFiguresSchema.extend({
+  name: z.string().optional(),
+});
+
+export const pedalInputSchema = deviceFiguresSchema.extend({
+  name: z.string(),
+  kind: pedalKindSchema.optional(),
+  powered: z.boolean(),
+  inLoop: z.boolean(),
+  digital: z.boolean().optional(),
 });
 
 export const estimateLineSchema = z.object({
@@ -447,7 +447,7 @@ export const paymentEventReceivedSchema = z.object({
   duplicate: z.boolean(),
 });
 
-export const shopProfileSchema = z.object({
+export const shopIdentitySchema = z.object({
   name: z.string(),
   tagline: z.string(),
   currency: z.string(),
@@ -455,6 +455,9 @@ export const shopProfileSchema = z.object({
   timezone: z.string(),
   locale: z.string(),
   contactEmail: z.string(),
+});
+
+export const shopProfileSchema = shopIdentitySchema.extend({
   postalAddress: z.string().nullable(),
 });
 
@@ -675,17 +678,17 @@ export const benchViewSchema = z.object({
   ),
 });
 
+export const benchPlanDaySchema = z.object({
+  date: z.string(),
+  hours: z.number(),
+});
+
 export const benchSuggestionSchema = z.object({
   builder: benchBuilderSchema,
   benchDate: z.string(),
   expectedCompletion: z.string(),
   shipBy: z.string(),
-  plan: z.array(
-    z.object({
-      date: z.string(),
-      hours: z.number(),
-    }),
-  ),
+  plan: z.array(benchPlanDaySchema),
   laborTotal: z.string(),
   firmTotal: z.string(),
   meetsMinimumLevel: z.boolean(),
@@ -725,12 +728,7 @@ export const acceptBookingResponseSchema = z.object({
   benchDate: z.string(),
   expectedCompletion: z.string(),
   shipBy: z.string(),
-  plan: z.array(
-    z.object({
-      date: z.string(),
-      hours: z.number(),
-    }),
-  ),
+  plan: z.array(benchPlanDaySchema),
   firmQuote: z.object({
     id: z.string(),
     hourlyRate: z.string(),
@@ -792,12 +790,7 @@ export const rescheduleResponseSchema = z.object({
   previousBenchDate: z.string().nullable(),
   expectedCompletion: z.string(),
   shipBy: z.string().nullable(),
-  plan: z.array(
-    z.object({
-      date: z.string(),
-      hours: z.number(),
-    }),
-  ),
+  plan: z.array(benchPlanDaySchema),
   shift: z.string(),
   firmTotal: z.string(),
   repriced: z.boolean(),
@@ -817,6 +810,12 @@ export const cancellationPreviewSchema = z.object({
   benchHours: z.number(),
 });
 
+export const buildOnBenchThenSchema = z.object({
+  bookingId: z.string(),
+  reference: z.string(),
+  days: z.array(z.string()),
+});
+
 export const builderAbsenceViewSchema = z.object({
   id: z.string(),
   builderId: z.string(),
@@ -826,13 +825,7 @@ export const builderAbsenceViewSchema = z.object({
 });
 
 export const addAbsenceResponseSchema = builderAbsenceViewSchema.extend({
-  buildsOnBenchThen: z.array(
-    z.object({
-      bookingId: z.string(),
-      reference: z.string(),
-      days: z.array(z.string()),
-    }),
-  ),
+  buildsOnBenchThen: z.array(buildOnBenchThenSchema),
 });
 
 export const declineBookingRequestSchema = z.object({
@@ -956,13 +949,15 @@ export const shopClosureViewSchema = z.object({
 });
 
 export const addClosureResponseSchema = shopClosureViewSchema.extend({
-  buildsOnBenchThen: z.array(
-    z.object({
-      bookingId: z.string(),
-      reference: z.string(),
-      days: z.array(z.string()),
-    }),
-  ),
+  buildsOnBenchThen: z.array(buildOnBenchThenSchema),
+});
+
+export const postalAddressSchema = z.object({
+  line1: z.string(),
+  line2: z.string(),
+  city: z.string(),
+  region: z.string(),
+  postalCode: z.string(),
 });
 
 export const upcomingHolidaySchema = z.object({
@@ -980,13 +975,7 @@ export const holidayChoiceViewSchema = z.object({
 });
 
 export const holidayChoiceResponseSchema = holidayChoiceViewSchema.extend({
-  buildsOnBenchThen: z.array(
-    z.object({
-      bookingId: z.string(),
-      reference: z.string(),
-      days: z.array(z.string()),
-    }),
-  ),
+  buildsOnBenchThen: z.array(buildOnBenchThenSchema),
 });
 
 export const updateShopSettingsRequestSchema = z.object({
@@ -1339,23 +1328,8 @@ export const benchPreviewSchema = z.object({
   options: z.array(benchPreviewOptionSchema),
 });
 
-export const shopSettingsViewSchema = z.object({
-  name: z.string(),
-  tagline: z.string(),
-  currency: z.string(),
-  countryCode: z.string(),
-  timezone: z.string(),
-  locale: z.string(),
-  contactEmail: z.string(),
-  postalAddress: z
-    .object({
-      line1: z.string(),
-      line2: z.string(),
-      city: z.string(),
-      region: z.string(),
-      postalCode: z.string(),
-    })
-    .nullable(),
+export const shopSettingsViewSchema = shopIdentitySchema.extend({
+  postalAddress: postalAddressSchema.nullable(),
   closures: z.array(shopClosureViewSchema),
   upcomingHolidays: z.array(upcomingHolidaySchema),
   holidayHistory: z.array(holidayChoiceViewSchema),

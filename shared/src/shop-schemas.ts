@@ -1,10 +1,11 @@
 import countries from 'i18n-iso-countries';
 import { z } from 'zod';
+import type { PostalAddress } from './bench-types';
 import { builderLevels } from './domain';
 import { mailStates } from './mail-types';
 import { decodeCursorParts, encodeCursorParts, timestampKeyShape, uuidShape } from './list-cursor';
-import { calendarDay, oneOf, pagingQuery, requestObject, sortOrder, text, uuid } from './request-fields';
-import { authWords, bookingWords, rules, shopWords } from './words';
+import { calendarDay, oneOf, pageCursor, pagingQuery, requestObject, sortOrder, text, uuid } from './request-fields';
+import { authWords, rules, shopWords } from './words';
 
 /**
  * The IANA time zones a shop can choose: the runtime's list (ECMA-402
@@ -119,10 +120,7 @@ export const postalAddressSchema = requestObject({
 export type PostalAddressInput = z.infer<typeof postalAddressSchema>;
 
 /** One line for mails, calendar files and paper: "14 Foundry Lane, Unit 3, Millbrook, OR 97000, US". */
-export function postalAddressLine(
-  address: { line1: string; line2: string; city: string; region: string; postalCode: string },
-  countryCode: string,
-): string {
+export function postalAddressLine(address: PostalAddress, countryCode: string): string {
   const cityLine = [address.city, [address.region, address.postalCode].filter(Boolean).join(' ')].filter(Boolean).join(', ');
   return [address.line1, address.line2, cityLine, countryCode].filter((part) => part.trim() !== '').join(', ');
 }
@@ -229,18 +227,7 @@ export const listMailQuerySchema = requestObject({
   /** Part of the recipient address. */
   q: text('q', { max: 200 }).optional(),
   /** The previous page's `nextCursor`: the page after it, through the log's (created_at, id) index (`page` is then not used). */
-  cursor: z
-    .string({ error: bookingWords.listCursor })
-    .max(400, { error: bookingWords.listCursor })
-    .transform((value, ctx) => {
-      const cursor = decodeMailLogCursor(value);
-      if (!cursor) {
-        ctx.addIssue({ code: 'custom', message: bookingWords.listCursor });
-        return z.NEVER;
-      }
-      return cursor;
-    })
-    .optional(),
+  cursor: pageCursor(decodeMailLogCursor).optional(),
 });
 export type ListMailQuery = z.infer<typeof listMailQuerySchema>;
 

@@ -1,5 +1,5 @@
 import type { PowerOutputInput } from '../estimate/types';
-import type { PowerRules, RigDevice } from './types';
+import type { BarrelPolarity, PowerRules, RigDevice, SupplyKind } from './types';
 
 /**
  * Defaults when a price book sets no power rules: at most three analog pedals on one output, and
@@ -7,14 +7,12 @@ import type { PowerRules, RigDevice } from './types';
  */
 export const DEFAULT_POWER_RULES: PowerRules = { maxDaisyChain: 3, highDrawMa: 100 };
 
-type Polarity = 'center_negative' | 'center_positive';
-
 /** A supply output as the plan sees it; a virtual one stands for an output the supply lacks. */
 interface Slot {
   index: number;
   voltage: number;
-  supply: 'dc' | 'ac';
-  polarity: Polarity;
+  supply: SupplyKind;
+  polarity: BarrelPolarity;
   isolated: boolean;
   ratingMa: number;
   virtual: boolean;
@@ -29,7 +27,7 @@ interface Load {
   solo: boolean;
 }
 
-export const outputPolarity = (o: PowerOutputInput): Polarity => o.polarity ?? 'center_negative';
+export const outputPolarity = (o: PowerOutputInput): BarrelPolarity => o.polarity ?? 'center_negative';
 const outputSupply = (o: PowerOutputInput) => o.supply ?? 'dc';
 
 /**
@@ -58,7 +56,7 @@ function fitsAlone(d: RigDevice, slot: Slot): boolean {
   return true;
 }
 
-const needsReversal = (d: RigDevice, slot: { supply: 'dc' | 'ac'; polarity: Polarity; virtual?: boolean }) =>
+const needsReversal = (d: RigDevice, slot: { supply: SupplyKind; polarity: BarrelPolarity; virtual?: boolean }) =>
   !slot.virtual && d.supply === 'dc' && slot.supply === 'dc' && d.polarity !== slot.polarity;
 
 export interface PlanResult {

@@ -1,6 +1,12 @@
 import type { BuilderLevel } from '../domain';
 import type { PedalKind } from '../estimate/types';
 
+/** Whether a device or an output runs on direct or alternating current (a few pedals take AC). */
+export type SupplyKind = 'dc' | 'ac';
+
+/** DC barrel polarity; most pedals and supplies are centre-negative (common practice, no published source). */
+export type BarrelPolarity = 'center_negative' | 'center_positive';
+
 /** ok: nothing to act on · warning: worth a look · problem: the rig will not work as listed · unknown: not enough data. */
 export type CheckStatus = 'ok' | 'warning' | 'problem' | 'unknown';
 
@@ -20,8 +26,8 @@ export interface RigDevice {
   /** Loop number on the switcher (1-based), null when the device sits in the main chain. */
   loop: number | null;
   voltage: number;
-  supply: 'dc' | 'ac';
-  polarity: 'center_negative' | 'center_positive';
+  supply: SupplyKind;
+  polarity: BarrelPolarity;
   /** The player's figure, or null when unknown. */
   currentMa: number | null;
   /** The figure the budget uses: the player's, or the typical one for the kind. */
@@ -63,8 +69,8 @@ export interface PatchCable {
 export interface PowerLead {
   device: string;
   voltage: number;
-  supply: 'dc' | 'ac';
-  polarity: 'center_negative' | 'center_positive';
+  supply: SupplyKind;
+  polarity: BarrelPolarity;
   connector: string;
 }
 
@@ -83,8 +89,8 @@ export interface PowerOutputLoad {
   output: number;
   label: string;
   voltage: number;
-  supply: 'dc' | 'ac';
-  polarity: 'center_negative' | 'center_positive';
+  supply: SupplyKind;
+  polarity: BarrelPolarity;
   isolated: boolean;
   ratingMa: number;
   loadMa: number;

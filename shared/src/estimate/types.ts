@@ -1,5 +1,5 @@
 import type { BuilderLevel } from '../domain';
-import type { RigChecks } from '../checks/types';
+import type { BarrelPolarity, RigChecks, SupplyKind } from '../checks/types';
 
 /** What the player tells us about their rig. POST /api/estimates takes this shape. */
 export interface RigConfiguration {
@@ -18,39 +18,38 @@ export interface RigConfiguration {
 
 export type RoutingMode = 'serial' | 'switcher';
 
-/** The player's own loop switcher, when they did not list it among the pedals: its figures win over typical ones. */
-export interface SwitcherInput {
-  name?: string;
+/**
+ * The figures a player may give for one of their devices (a pedal, or their own loop switcher):
+ * each left out falls back to the typical one for its kind.
+ */
+export interface DeviceFigures {
   currentMa?: number;
   voltage?: number;
-  polarity?: 'center_negative' | 'center_positive';
-  supply?: 'dc' | 'ac';
+  /** DC barrel polarity; most pedals are centre-negative (common practice). */
+  polarity?: BarrelPolarity;
+  /** A few pedals run on AC; the power check must not assume DC. */
+  supply?: SupplyKind;
   widthMm?: number;
   depthMm?: number;
-  /** Index into `powerSupply.outputs` when the player pins the switcher to an output. */
+  /** Index into `powerSupply.outputs` when the player pins the device to an output: kept by the plan and checked. */
   powerOutput?: number;
+}
+
+/** The player's own loop switcher, when they did not list it among the pedals: its figures win over typical ones. */
+export interface SwitcherInput extends DeviceFigures {
+  name?: string;
 }
 
 export type PedalKind = 'mini' | 'compact' | 'large' | 'large_digital' | 'tuner' | 'treadle' | 'buffer' | 'switcher' | 'other';
 
-export interface PedalInput {
+export interface PedalInput extends DeviceFigures {
   name: string;
   kind?: PedalKind;
   powered: boolean;
   /** Wired through a loop of the switcher (switcher routing only). */
   inLoop: boolean;
-  currentMa?: number;
-  voltage?: number;
-  /** DC barrel polarity; most pedals are centre-negative (common practice). */
-  polarity?: 'center_negative' | 'center_positive';
-  /** A few pedals run on AC; the power check must not assume DC. */
-  supply?: 'dc' | 'ac';
-  widthMm?: number;
-  depthMm?: number;
   /** A digital pedal (or any with a microprocessor) wants an output of its own; large digital kinds are digital unless told otherwise. */
   digital?: boolean;
-  /** Index into `powerSupply.outputs` when the player pins it to an output: kept by the plan and checked. */
-  powerOutput?: number;
 }
 
 export interface PowerOutputInput {
@@ -58,9 +57,9 @@ export interface PowerOutputInput {
   voltage: number;
   currentMa: number;
   isolated: boolean;
-  supply?: 'dc' | 'ac';
+  supply?: SupplyKind;
   /** Barrel polarity the output delivers; supplies are centre-negative unless they say otherwise. */
-  polarity?: 'center_negative' | 'center_positive';
+  polarity?: BarrelPolarity;
 }
 
 export interface EstimateLine {

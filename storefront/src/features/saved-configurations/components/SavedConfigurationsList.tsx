@@ -13,6 +13,7 @@ import { useState } from 'react';
 import { Link as RouterLink, useNavigate } from 'react-router';
 import { CONFIGURATION_PARAM, encodeConfiguration, type SavedConfigurationSummary } from '@loomwright/shared';
 import { PageLoading } from '@loomwright/shared/ui';
+import { formatMoment } from 'src/lib/format';
 import { useDeleteConfiguration } from '../api/delete-configuration';
 import { useDuplicateConfiguration } from '../api/duplicate-configuration';
 import { savedConfigurationQueryOptions } from '../api/get-saved-configuration';
@@ -20,16 +21,6 @@ import { useSavedConfigurations } from '../api/get-saved-configurations';
 import { useUpdateConfiguration } from '../api/update-configuration';
 import { SAVED_PARAM } from './KeepConfiguration';
 import { NameDialog } from './NameDialog';
-
-const when = (iso: string) =>
-  new Date(iso).toLocaleString('en-US', {
-    weekday: 'short',
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    hour: 'numeric',
-    minute: '2-digit',
-  });
 
 /** The player's saved configurations: open one in the configurator, rename, duplicate or delete it. */
 export function SavedConfigurationsList({ surfaceName }: { surfaceName: (id: string) => string }) {
@@ -117,7 +108,7 @@ export function SavedConfigurationsList({ surfaceName }: { surfaceName: (id: str
                   {row.routing === 'switcher' ? 'through a loop switcher' : 'in series'}
                 </Typography>
               </td>
-              <td>{when(row.updatedAt)}</td>
+              <td>{formatMoment(row.updatedAt)}</td>
               <td>
                 <Stack direction="row" gap={0.5} flexWrap="wrap">
                   <Button size="sm" loading={opening === row.id} onClick={() => void open(row)} aria-label={`Open ${row.name}`}>
