@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { defineConfig } from '@playwright/test';
+import { chromiumLaunchOptions, stackEnv } from './stack-env.mjs';
 
 // The product as `npm start` runs it, on ports the test command picked (or the usual ones).
 const port = Number(process.env.E2E_PORT ?? 3100);
@@ -29,18 +30,8 @@ export default defineConfig({
     baseURL,
     trace: 'retain-on-failure',
     screenshot: 'only-on-failure',
-    launchOptions: {
-      // Debian's Chromium; Playwright never downloads a browser of its own here.
-      executablePath: process.env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium',
-      args: [
-        '--no-sandbox',
-        '--disable-gpu',
-        '--disable-background-networking',
-        '--disable-component-update',
-        '--disable-sync',
-        '--no-first-run',
-      ],
-    },
+    // Debian's Chromium; Playwright never downloads a browser of its own here.
+    launchOptions: chromiumLaunchOptions,
   },
   webServer: {
     command: `node ${path.resolve(__dirname, '../api/scripts/stack.mjs')}`,
@@ -51,21 +42,19 @@ export default defineConfig({
     stdout: 'ignore',
     stderr: 'pipe',
     env: {
-      PORT: String(port),
-      PUBLIC_URL: baseURL,
-      PG_PORT: String(pgPort),
-      PG_DATA: process.env.E2E_PG_DATA ?? '.data/postgres-test',
-      DB_NAME: 'loomwright_e2e',
-      FRESH_DATABASE: 'true',
-      PAYMENT_FAKE_PORT: String(paymentPort),
+      ...stackEnv({
+        port,
+        pgPort,
+        pgData: process.env.E2E_PG_DATA ?? '.data/postgres-test',
+        dbName: 'loomwright_e2e',
+        paymentPort,
+        smtpPort,
+        mailHttpPort,
+        objectStorePort,
+      }),
       // Bank debits settle only when a test tells the fake (POST /_control/payment_intents/settle_processing).
       PAYMENT_FAKE_SETTLE_SECONDS: '0',
-      MAIL_FAKE_SMTP_PORT: String(smtpPort),
-      MAIL_FAKE_HTTP_PORT: String(mailHttpPort),
-      OBJECT_STORE_PORT: String(objectStorePort),
       NODE_ENV: 'test',
-      // The journeys sign in as the demo shop's people.
-      SEED_DEMO: 'true',
     },
   },
 });

@@ -2,7 +2,7 @@
 // and the photos are, and how to reach them. Settings are the same environment variables the API
 // reads (DATABASE_URL, PHOTO_STORAGE, S3_*, UPLOADS_DIR); when DATABASE_URL is not set they come
 // from .data/stack.env, which `npm start` writes (as `npm run replica` reads it).
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { createReadStream, existsSync, readdirSync, readFileSync } from 'node:fs';
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
@@ -96,8 +96,27 @@ export function describePhotos(photos) {
     : `folder ${path.relative(root, photos.uploadsDir) || '.'}`;
 }
 
+/** Where a backup reads from or a restore writes to, for the line each prints first. */
+export function describeSettings(settings) {
+  return `database ${describeDatabase(settings.databaseUrl)} and photos in ${describePhotos(settings.photos)} (settings from ${settings.source})`;
+}
+
+/**
+ * Runs one of PostgreSQL's client programs to its end; a failure says its exit code, `outcome`
+ * (what that means for the person running the command) and what the program printed.
+ */
+export function runPgProgram(name, args, outcome = '') {
+  return new Promise((resolve, reject) => {
+    const child = spawn(pgProgram(name), args, { stdio: ['ignore', 'ignore', 'pipe'] });
+    let errors = '';
+    child.stderr.setEncoding('utf8').on('data', (chunk) => (errors += chunk));
+    child.on('error', reject);
+    child.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`${name} ended with code ${code}${outcome}: ${errors.trim()}`))));
+  });
+}
+
 /** Debian's PostgreSQL client programs (pg_dump, pg_restore), the newest installed. */
-export function pgProgram(name) {
+function pgProgram(name) {
   const base = '/usr/lib/postgresql';
   const versions = existsSync(base) ? readdirSync(base).filter((v) => existsSync(path.join(base, v, 'bin', name))) : [];
   versions.sort((a, b) => Number(b) - Number(a));

@@ -7,7 +7,6 @@
 // snapshot (--snapshot) and the same transaction lists the photo keys and counts the rows, so the
 // dump, the counts and the photo list describe the same instant while the shop keeps working.
 // Photos are written to the store before their row commits, so every listed key has its bytes.
-import { spawn } from 'node:child_process';
 import { mkdtemp, mkdir, rename, rm, stat, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import pg from 'pg';
@@ -19,29 +18,17 @@ import {
   appVersion,
   contentTypeOfKey,
   describeDatabase,
-  describePhotos,
+  describeSettings,
   log,
   migrationLevel,
-  pgProgram,
   photoStore,
   readSettings,
   root,
   runCommand,
+  runPgProgram,
   sha256File,
   tableCounts,
 } from './backup-common.mjs';
-
-function pgDump(databaseUrl, snapshot, file) {
-  return new Promise((resolve, reject) => {
-    const child = spawn(pgProgram('pg_dump'), ['--format=custom', `--snapshot=${snapshot}`, `--file=${file}`, `--dbname=${databaseUrl}`], {
-      stdio: ['ignore', 'ignore', 'pipe'],
-    });
-    let errors = '';
-    child.stderr.setEncoding('utf8').on('data', (chunk) => (errors += chunk));
-    child.on('error', reject);
-    child.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`pg_dump ended with code ${code}: ${errors.trim()}`))));
-  });
-}
 
 const stamp = (date) =>
   date
@@ -57,9 +44,7 @@ async function main() {
     throw new Refusal(`The archive is a tar file: give it a name ending in .tar (not ${path.basename(target)}).`);
   if (await stat(target).catch(() => null)) throw new Refusal(`${target} already exists: give another name, or move it away first.`);
   await mkdir(path.dirname(target), { recursive: true });
-  log(
-    `Backing up database ${describeDatabase(settings.databaseUrl)} and photos in ${describePhotos(settings.photos)} (settings from ${settings.source})`,
-  );
+  log(`Backing up ${describeSettings(settings)}`);
 
   const work = await mkdtemp(path.join(path.dirname(target), '.backup-'));
   const client = new pg.Client({ connectionString: settings.databaseUrl });
@@ -75,7 +60,12 @@ async function main() {
     const snapshot = (await client.query('select pg_export_snapshot() as id')).rows[0].id;
     const dumpFile = path.join(work, 'database.dump');
     // pg_dump joins the exported snapshot while this transaction stays open.
-    const dumped = pgDump(settings.databaseUrl, snapshot, dumpFile);
+    const dumped = runPgProgram('pg_dump', [
+      '--format=custom',
+      `--snapshot=${snapshot}`,
+      `--file=${dumpFile}`,
+      `--dbname=${settings.databaseUrl}`,
+    ]);
     const level = await migrationLevel(client);
     if (level === null)
       throw new Refusal(`The database at ${describeDatabase(settings.databaseUrl)} has no Loomwright tables yet: nothing to back up.`);

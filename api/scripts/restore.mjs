@@ -10,7 +10,6 @@
 //     the database never lists a photo whose bytes are not there, and a failed restore leaves no
 //     half-filled database behind.
 //   - Afterwards every table's row count is compared with the counts the backup recorded.
-import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { mkdtemp, readFile, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -23,28 +22,16 @@ import {
   Refusal,
   describeDatabase,
   describePhotos,
+  describeSettings,
   log,
   migrationLevel,
-  pgProgram,
   photoStore,
   readSettings,
   runCommand,
+  runPgProgram,
   sha256File,
   tableCounts,
 } from './backup-common.mjs';
-
-function pgRestore(databaseUrl, file) {
-  return new Promise((resolve, reject) => {
-    const args = ['--no-owner', '--no-privileges', '--single-transaction', '--exit-on-error', `--dbname=${databaseUrl}`, file];
-    const child = spawn(pgProgram('pg_restore'), args, { stdio: ['ignore', 'ignore', 'pipe'] });
-    let errors = '';
-    child.stderr.setEncoding('utf8').on('data', (chunk) => (errors += chunk));
-    child.on('error', reject);
-    child.on('exit', (code) =>
-      code === 0 ? resolve() : reject(new Error(`pg_restore ended with code ${code} and restored nothing: ${errors.trim()}`)),
-    );
-  });
-}
 
 /** Connects to the target database, creating it (on the same server) when it does not exist yet. */
 async function connectOrCreate(databaseUrl) {
@@ -123,9 +110,7 @@ async function main() {
       }
     }
     log(`Archive from ${manifest.createdAt} (app ${manifest.appVersion}, migration level ${manifest.migrationLevel}) checks out.`);
-    log(
-      `Restoring into database ${describeDatabase(settings.databaseUrl)} and photos in ${describePhotos(settings.photos)} (settings from ${settings.source})`,
-    );
+    log(`Restoring into ${describeSettings(settings)}`);
 
     const connected = await connectOrCreate(settings.databaseUrl);
     client = connected.client;
@@ -159,7 +144,11 @@ async function main() {
     }
     log(`Photos: ${manifest.photos.files.length} files (${manifest.photos.bytes} bytes) written`);
 
-    await pgRestore(settings.databaseUrl, dumpFile);
+    await runPgProgram(
+      'pg_restore',
+      ['--no-owner', '--no-privileges', '--single-transaction', '--exit-on-error', `--dbname=${settings.databaseUrl}`, dumpFile],
+      ' and restored nothing',
+    );
     const counts = await tableCounts(client);
     const differ = Object.keys({ ...manifest.counts, ...counts }).filter((t) => manifest.counts[t] !== counts[t]);
     if (differ.length) {

@@ -5,22 +5,13 @@
 // RUNS times, each to a count not asked before (so no cached answer), and prints the spread.
 // Needs the product running: BENCH_URL=http://localhost:3105 node e2e/bench/estimate-latency.mjs
 import { chromium } from '@playwright/test';
+import { chromiumLaunchOptions } from '../stack-env.mjs';
 import { latencyBoardLink } from './latency-board.mjs';
 
 const baseUrl = process.env.BENCH_URL ?? 'http://localhost:3000';
 const runs = Number(process.env.RUNS ?? 30);
 
-const browser = await chromium.launch({
-  executablePath: process.env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium',
-  args: [
-    '--no-sandbox',
-    '--disable-gpu',
-    '--disable-background-networking',
-    '--disable-component-update',
-    '--disable-sync',
-    '--no-first-run',
-  ],
-});
+const browser = await chromium.launch(chromiumLaunchOptions);
 try {
   const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
   await page.goto(`${baseUrl}/configure?step=pedals&c=${latencyBoardLink()}`);

@@ -14,6 +14,7 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { brotliCompressSync, gzipSync } from 'node:zlib';
+import { chromiumLaunchOptions, stackEnv } from '../stack-env.mjs';
 import { latencyBoardLink } from './latency-board.mjs';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
@@ -34,16 +35,6 @@ const dbName = 'loomwright_bench';
 const seconds = Number(env.BENCH_SECONDS ?? 8);
 const repeat = Number(env.BENCH_REPEAT ?? 30);
 const only = new Set((env.BENCH_ONLY ?? 'http,engine,bundle,lighthouse,latency,data,mail').split(','));
-const chromiumPath = env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium';
-// ARCHITECTURE.md's flags for Debian's Chromium.
-const chromiumFlags = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-];
 
 const rows = [];
 const notes = [];
@@ -56,23 +47,8 @@ const quantile = (values, q) => {
   return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1))];
 };
 
-/** The 13-pedal board: buffer, tuner, wah and ten compact pedals in series (the trade's reference board). */
-function benchBoard() {
-  const names = ['fuzz', 'overdrive', 'distortion', 'compressor', 'chorus', 'phaser', 'tremolo', 'analog delay', 'digital delay', 'reverb'];
-  return {
-    surfaceId: 'ridge-100',
-    caseId: 'shell-hard',
-    routing: { mode: 'serial' },
-    pedals: [
-      { name: 'Input/output buffer', kind: 'buffer', powered: true, inLoop: false },
-      { name: 'Tuner', kind: 'tuner', powered: true, inLoop: false },
-      { name: 'Wah', kind: 'treadle', powered: true, inLoop: false },
-      ...names.map((name) => ({ name, kind: 'compact', powered: true, inLoop: false })),
-    ],
-    functions: [],
-    level: 'journeyman',
-  };
-}
+/** The 13-pedal board the API and the engine price: the year-of-data seed's (api/dist, built before any section runs). */
+const benchBoard = () => require(path.join(root, 'api/dist/src/database/seed/year-of-data.js')).benchBoard();
 
 // ---------------------------------------------------------------- the stack
 function postgres(...args) {
@@ -112,19 +88,18 @@ async function startStack() {
     stdio: ['ignore', 'ignore', 'inherit'],
     env: {
       ...env,
-      PORT: String(ports.api),
-      PG_PORT: String(ports.pg),
-      PG_DATA: pgData,
-      DB_NAME: dbName,
-      PAYMENT_FAKE_PORT: String(ports.payment),
-      MAIL_FAKE_SMTP_PORT: String(ports.smtp),
-      MAIL_FAKE_HTTP_PORT: String(ports.mailHttp),
-      OBJECT_STORE_PORT: String(ports.objectStore),
+      ...stackEnv({
+        port: ports.api,
+        pgPort: ports.pg,
+        pgData,
+        dbName,
+        paymentPort: ports.payment,
+        smtpPort: ports.smtp,
+        mailHttpPort: ports.mailHttp,
+        objectStorePort: ports.objectStore,
+      }),
       OBJECT_STORE_DIR: '.data/object-store-bench',
-      FRESH_DATABASE: 'true',
-      SEED_DEMO: 'true',
       STACK_QUIET: 'true',
-      PUBLIC_URL: `http://localhost:${ports.api}`,
       // Sign-in is throttled per address; the benchmark signs in a few times from one.
       AUTH_THROTTLE_LIMIT: '1000',
     },
@@ -347,7 +322,10 @@ async function lighthouseSection() {
   for (const route of ['/', '/configure']) {
     for (const preset of ['mobile', 'desktop']) {
       say(`Lighthouse ${preset} ${route}…`);
-      const chrome = await chromeLauncher.launch({ chromePath: chromiumPath, chromeFlags: ['--headless=new', ...chromiumFlags] });
+      const chrome = await chromeLauncher.launch({
+        chromePath: chromiumLaunchOptions.executablePath,
+        chromeFlags: ['--headless=new', ...chromiumLaunchOptions.args],
+      });
       try {
         const result = await lighthouse(
           `${base}${route}`,
@@ -395,7 +373,7 @@ async function lighthouseSection() {
 
 async function latencySection() {
   const { chromium } = require('@playwright/test');
-  const browser = await chromium.launch({ executablePath: chromiumPath, args: chromiumFlags });
+  const browser = await chromium.launch(chromiumLaunchOptions);
   try {
     const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
     // The configurator prices nothing the player has not chosen (surface, case, pedals), so the
@@ -677,7 +655,7 @@ let failed = false;
 try {
   const needsStack = sections.some(([name]) => only.has(name) && !['engine', 'bundle'].includes(name));
   if (needsStack) await startStack();
-  else if (env.BENCH_SKIP_BUILD !== 'true' && !existsSync(path.join(root, 'shared/dist/index.js')))
+  else if (env.BENCH_SKIP_BUILD !== 'true' && !existsSync(path.join(root, 'api/dist/src/database/seed/year-of-data.js')))
     spawnSync('npm', ['run', 'build'], { cwd: root, stdio: 'inherit' });
   for (const [name, fn] of sections) {
     if (!only.has(name)) continue;
