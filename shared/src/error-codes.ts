@@ -61,7 +61,8 @@ export const benchDateErrorCodes = [
   'bench_day_closed',
   'bench_time_taken',
 ] as const satisfies readonly ErrorCode[];
-export const errorCodes = Object.keys(ERROR_CODES) as [ErrorCode, ...ErrorCode[]];
+// Pure, so a bundle that reads only the codes' statuses (the apps' API client) leaves the descriptions out.
+export const errorCodes = /* @__PURE__ */ Object.keys(ERROR_CODES) as [ErrorCode, ...ErrorCode[]];
 
 /** The HTTP status each code is sent with (the grouping of ERROR_CODES above): what the API's OpenAPI document lists per route. */
 export const ERROR_CODE_STATUS: Record<ErrorCode, number> = {

@@ -1,19 +1,23 @@
-import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import { lazy } from 'react';
+import { LateAlert, preloadLateAlert } from 'src/components/LateAlert';
 import { PageLoading } from 'src/components/PageLoading';
 import { useCatalog } from 'src/features/configurator/api/get-catalog';
 import { Configurator } from 'src/features/configurator/components/Configurator';
+import { readConfigurationDraft } from 'src/lib/configuration-draft';
 
 // Saving, sharing and e-mailing show on the Review step only, so they load with it, not with the first screen.
 const KeepConfiguration = lazy(() => import('src/features/saved-configurations/components/KeepConfiguration'));
+
+// A restored draft is announced in an Alert: fetch it while the price book loads.
+if (readConfigurationDraft()) preloadLateAlert();
 
 export function Component() {
   const catalog = useCatalog();
   if (catalog.isPending) return <PageLoading label="Loading the shop’s price book…" />;
   if (catalog.isError)
     return (
-      <Alert
+      <LateAlert
         color="danger"
         variant="soft"
         sx={{ maxWidth: 640, mx: 'auto' }}
@@ -24,7 +28,7 @@ export function Component() {
         }
       >
         The price book could not be loaded: {catalog.error.message}
-      </Alert>
+      </LateAlert>
     );
   return (
     <Configurator

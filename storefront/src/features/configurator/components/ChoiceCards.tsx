@@ -4,7 +4,7 @@ import Radio from '@mui/joy/Radio';
 import RadioGroup from '@mui/joy/RadioGroup';
 import Typography from '@mui/joy/Typography';
 import type { ReactNode } from 'react';
-import { CheckIcon } from './icons';
+import { CheckMark } from './CheckMark';
 
 export interface Choice {
   value: string;
@@ -101,7 +101,7 @@ export function ChoiceCards({
                     visibility: selected ? 'visible' : 'hidden',
                   }}
                 >
-                  <CheckIcon sx={{ fontSize: 'md' }} /> Selected
+                  <CheckMark /> Selected
                 </Box>
               </Box>
               {choice.details}

@@ -1,9 +1,9 @@
-import Alert from '@mui/joy/Alert';
 import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
 import Typography from '@mui/joy/Typography';
 import { lazy, Suspense, useCallback, useEffect, useRef, type ComponentType } from 'react';
 import type { Catalog } from '@loomwright/shared';
+import { LateAlert } from 'src/components/LateAlert';
 import { PageLoading } from 'src/components/PageLoading';
 import { useConfiguration } from '../hooks/use-configuration';
 import { useLiveEstimate } from '../hooks/use-live-estimate';
@@ -84,7 +84,7 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
         </Typography>
         <StepProgress current={step} onSelect={(s) => void leaveTo(s)} />
         {restoredFrom ? (
-          <Alert
+          <LateAlert
             variant="soft"
             color="neutral"
             sx={{ mb: 3, flexWrap: 'wrap' }}
@@ -100,7 +100,7 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
             }
           >
             We restored the board you were configuring on {formatMoment(restoredFrom)}.
-          </Alert>
+          </LateAlert>
         ) : null}
         <Box component="section" aria-label={`Step ${index + 1}: ${configuratorSteps[index]?.title}`} ref={headingRef}>
           <Suspense fallback={<PageLoading label="Loading this step…" />}>

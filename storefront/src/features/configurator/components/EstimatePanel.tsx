@@ -1,4 +1,3 @@
-import Alert from '@mui/joy/Alert';
 import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
 import CircularProgress from '@mui/joy/CircularProgress';
@@ -6,6 +5,7 @@ import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import { useEffect, useState } from 'react';
 import type { Catalog } from '@loomwright/shared';
+import { LateAlert } from 'src/components/LateAlert';
 import { formatHours, formatMoney, formatMoneyRange, formatRateRange } from 'src/lib/format';
 import { markEstimateShown, type LiveEstimate } from '../hooks/use-live-estimate';
 import { MissingChoices } from './MissingChoices';
@@ -89,10 +89,10 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
         ) : null}
       </Box>
       {live.error ? (
-        <Alert color="danger" variant="soft" size="sm" sx={{ mt: 1 }} role="alert">
+        <LateAlert color="danger" variant="soft" size="sm" sx={{ mt: 1 }} role="alert">
           {`The estimate could not be updated: ${live.error.message}`}
           {e ? ' The figures shown are for your previous choices.' : ''}
-        </Alert>
+        </LateAlert>
       ) : null}
       <Box id="estimate-details" sx={{ display: { xs: open ? 'block' : 'none', md: 'block' }, mt: 1.5 }}>
         {e ? (

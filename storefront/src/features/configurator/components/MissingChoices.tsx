@@ -1,5 +1,5 @@
+import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
-import Stack from '@mui/joy/Stack';
 import Typography from '@mui/joy/Typography';
 import type { MissingChoice } from '../lib/configuration';
 import type { StepId } from '../lib/steps';
@@ -32,19 +32,20 @@ export function MissingChoices({
   size?: 'sm' | 'md';
 }) {
   return (
-    <Stack gap={1} alignItems="flex-start" data-testid="estimate-missing">
+    // Boxes, not Stack: the estimate panel shows this on the configurator's first screen, which ships without Stack.
+    <Box sx={{ display: 'flex', flexDirection: 'column', gap: 1, alignItems: 'flex-start' }} data-testid="estimate-missing">
       <Typography level={size === 'sm' ? 'body-sm' : 'body-md'}>
         Your estimate is built from your own choices, so nothing is priced yet. {missingWords(missing)}
       </Typography>
       {goToStep ? (
-        <Stack direction="row" gap={1} flexWrap="wrap">
+        <Box sx={{ display: 'flex', gap: 1, flexWrap: 'wrap' }}>
           {missing.map((m) => (
             <Button key={m} size="sm" variant="outlined" onClick={() => goToStep(choiceWords[m].step)}>
               {choiceWords[m].action}
             </Button>
           ))}
-        </Stack>
+        </Box>
       ) : null}
-    </Stack>
+    </Box>
   );
 }

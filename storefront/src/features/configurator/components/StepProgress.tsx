@@ -1,7 +1,7 @@
 import Box from '@mui/joy/Box';
 import Typography from '@mui/joy/Typography';
 import { configuratorSteps, type StepId } from '../lib/steps';
-import { CheckIcon } from './icons';
+import { CheckMark } from './CheckMark';
 
 /**
  * Where the player is: the seven steps as a cable run with a jack for each step. Every step is a
@@ -90,7 +90,7 @@ export function StepProgress({ current, onSelect }: { current: StepId; onSelect:
                     position: 'relative',
                   }}
                 >
-                  {done ? <CheckIcon sx={{ fontSize: 'md', color: 'inherit' }} /> : i + 1}
+                  {done ? <CheckMark color="inherit" /> : i + 1}
                 </Box>
                 <Typography
                   level="body-xs"
