@@ -1,5 +1,6 @@
 import Button from '@mui/joy/Button';
 import FormControl from '@mui/joy/FormControl';
+import FormHelperText from '@mui/joy/FormHelperText';
 import FormLabel from '@mui/joy/FormLabel';
 import Input from '@mui/joy/Input';
 import Stack from '@mui/joy/Stack';
@@ -13,12 +14,17 @@ import {
   type TimeEntryFormOutput,
 } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { hasErrorCode } from '@loomwright/shared';
+import { setServerFieldErrors } from '@loomwright/shared/ui';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { formatDay, formatHours, today } from 'src/lib/format';
 import { useAddTimeEntry } from '../api/add-time-entry';
 import { useDeleteTimeEntry, useEditTimeEntry } from '../api/correct-time-entry';
+
+/** The fields of a day's hours, as the API names them: a refusal of one stands under it. */
+const HOUR_FIELDS = ['workedOn', 'hours', 'note'] as const;
 
 /** Hours as they are spent, against the hours the firm quote planned. */
 export function HoursPanel({
@@ -42,7 +48,15 @@ export function HoursPanel({
     if (!editing) return;
     const parsed = timeEntryFormSchema.safeParse({ workedOn, hours: editing.hours, note: editing.note });
     if (!parsed.success) return setEditing({ ...editing, problem: parsed.error.issues[0]?.message });
-    edit.mutate({ entryId: editing.id, body: { hours: parsed.data.hours, note: parsed.data.note } }, { onSuccess: () => setEditing(null) });
+    edit.mutate(
+      { entryId: editing.id, body: { hours: parsed.data.hours, note: parsed.data.note } },
+      {
+        onSuccess: () => setEditing(null),
+        // The corrected row's own words, as the form's own check would give them.
+        onError: (error) =>
+          hasErrorCode(error, 'validation_failed') && setEditing({ ...editing, problem: error.issues.map((i) => i.message).join(' ') }),
+      },
+    );
   };
   const form = useForm<TimeEntryFormInput, unknown, TimeEntryFormOutput>({
     resolver: zodResolver(timeEntryFormSchema),
@@ -52,7 +66,10 @@ export function HoursPanel({
   const submit = form.handleSubmit((values) =>
     add.mutate(
       { workedOn: values.workedOn, hours: values.hours, ...(values.note ? { note: values.note } : {}) },
-      { onSuccess: () => form.reset({ workedOn: values.workedOn, hours: '', note: '' }) },
+      {
+        onSuccess: () => form.reset({ workedOn: values.workedOn, hours: '', note: '' }),
+        onError: (error) => setServerFieldErrors(error, form.setError, HOUR_FIELDS),
+      },
     ),
   );
   const errors = form.formState.errors;
@@ -155,14 +172,17 @@ export function HoursPanel({
           <FormControl size="sm" error={Boolean(errors.workedOn)}>
             <FormLabel>Day</FormLabel>
             <Input type="date" {...form.register('workedOn')} slotProps={{ input: { max: today() } }} />
+            {errors.workedOn && <FormHelperText>{errors.workedOn.message}</FormHelperText>}
           </FormControl>
           <FormControl size="sm" error={Boolean(errors.hours)} sx={{ width: 110 }}>
             <FormLabel>Hours</FormLabel>
             <Input inputMode="decimal" {...form.register('hours')} placeholder="1.5" />
+            {errors.hours && <FormHelperText>{errors.hours.message}</FormHelperText>}
           </FormControl>
-          <FormControl size="sm" sx={{ flex: 1, minWidth: 200 }}>
+          <FormControl size="sm" error={Boolean(errors.note)} sx={{ flex: 1, minWidth: 200 }}>
             <FormLabel>Note</FormLabel>
             <Input {...form.register('note')} placeholder="What was done" />
+            {errors.note && <FormHelperText>{errors.note.message}</FormHelperText>}
           </FormControl>
           <Button size="sm" type="submit" loading={add.isPending} sx={{ mt: 2.75 }}>
             Record hours
@@ -171,12 +191,7 @@ export function HoursPanel({
       ) : (
         <Typography level="body-xs">Hours are recorded once the pedals are in.</Typography>
       )}
-      {(errors.workedOn || errors.hours) && (
-        <Typography level="body-sm" color="danger" role="alert">
-          {errors.workedOn?.message ?? errors.hours?.message}
-        </Typography>
-      )}
-      <ErrorNote error={add.error ?? edit.error ?? remove.error} />
+      <ErrorNote error={add.error ?? edit.error ?? remove.error} fields={HOUR_FIELDS} />
     </Stack>
   );
 }

@@ -5,7 +5,7 @@ import Option from '@mui/joy/Option';
 import Select from '@mui/joy/Select';
 import Table from '@mui/joy/Table';
 import type { PriceBook } from '@loomwright/shared';
-import { Controller, useFieldArray, type Control, type UseFormRegister } from 'react-hook-form';
+import { Controller, get, useFieldArray, useFormState, type Control, type UseFormRegister } from 'react-hook-form';
 import { RemoveButton } from 'src/components/RemoveButton';
 
 export type ListName = 'surfaces' | 'cases' | 'functions' | 'levels';
@@ -37,6 +37,8 @@ export function ListEditor({
   fixedRows?: boolean;
 }) {
   const { fields, append, remove } = useFieldArray({ control, name: list as 'surfaces' });
+  // A cell the browser's check or the API refused shows red; its words are in the list above Publish.
+  const { errors } = useFormState({ control, name: list });
   return (
     <>
       <Table size="sm" aria-label={`Price book: ${list}`} sx={{ '--TableCell-height': '36px', '& td': { verticalAlign: 'top' } }}>
@@ -102,6 +104,7 @@ export function ListEditor({
                     <Input
                       size="sm"
                       disabled={disabled}
+                      error={Boolean(get(errors, path))}
                       startDecorator={s.kind === 'money' ? '$' : undefined}
                       inputMode={s.kind === 'text' ? undefined : 'decimal'}
                       {...register(path, s.kind === 'int' ? { valueAsNumber: true } : undefined)}

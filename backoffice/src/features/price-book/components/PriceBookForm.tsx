@@ -11,7 +11,8 @@ import Typography from '@mui/joy/Typography';
 import { builderLevels, priceBookSchema, type PriceBook } from '@loomwright/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useState, type ReactNode } from 'react';
-import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
+import { useForm, type FieldErrors, type FieldPath, type Resolver, type UseFormReturn } from 'react-hook-form';
+import { setServerFieldErrors } from '@loomwright/shared/ui';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { usePublishPriceBook } from '../api/publish-price-book';
 import { ListEditor } from './ListEditor';
@@ -36,6 +37,48 @@ function messagesOf(errors: FieldErrors, into: string[] = []): string[] {
     else if (typeof value === 'object') messagesOf(value as FieldErrors, into);
   }
   return [...new Set(into)];
+}
+
+/** The book's parts, as the publish route names them under `book`: a refusal of one stands under its field. */
+const BOOK_FIELDS = [
+  'currency',
+  'surfaces',
+  'cases',
+  'materials',
+  'labor',
+  'functions',
+  'levels',
+  'depositPolicy',
+  'power',
+] as const satisfies ReadonlyArray<keyof PriceBook>;
+
+/** One figure of the book: its label, its unit beside it, and what is wrong with it (the browser's check or the API's) below. */
+function BookField({
+  form,
+  name,
+  label,
+  unit,
+  hint,
+  disabled,
+  width,
+}: {
+  form: UseFormReturn<PriceBook>;
+  name: FieldPath<PriceBook>;
+  label: string;
+  unit?: string;
+  hint?: string;
+  disabled: boolean;
+  width: number;
+}) {
+  const { error } = form.getFieldState(name, form.formState);
+  const message = error?.message ?? hint;
+  return (
+    <FormControl disabled={disabled} error={Boolean(error)} sx={{ width }}>
+      <FormLabel>{label}</FormLabel>
+      <Input {...(unit === '$' ? { startDecorator: '$' } : unit ? { endDecorator: unit } : {})} {...form.register(name)} />
+      {message && <FormHelperText>{message}</FormHelperText>}
+    </FormControl>
+  );
 }
 
 function Block({ title, hint, children }: { title: string; hint?: string; children: ReactNode }) {
@@ -68,7 +111,8 @@ export function PriceBookForm({
   const { reset: resetForm } = form;
   useEffect(() => resetForm(book), [book, resetForm]);
   const disabled = !canEdit;
-  const { register, control } = form;
+  const editor = { control: form.control, register: form.register, disabled };
+  const descriptionError = form.formState.errors.depositPolicy?.description;
   const problems = messagesOf(form.formState.errors);
   const levelOptions = builderLevels.map((l) => ({ value: l, label: l }));
 
@@ -80,6 +124,7 @@ export function PriceBookForm({
           setNotes('');
           onPublished(`Price book version ${published.version} is published; new estimates use it.`);
         },
+        onError: (error) => setServerFieldErrors(error, form.setError, BOOK_FIELDS, { from: 'book' }),
       },
     ),
   );
@@ -95,31 +140,34 @@ export function PriceBookForm({
         hint="A share of the high end of the estimate, never below the minimum; the player reads the description before paying."
       >
         <Stack direction="row" gap={1.5} flexWrap="wrap">
-          <FormControl disabled={disabled} sx={{ width: 140 }}>
-            <FormLabel>Share (%)</FormLabel>
-            <Input endDecorator="%" {...register('depositPolicy.percent')} />
-          </FormControl>
-          <FormControl disabled={disabled} sx={{ width: 160 }}>
-            <FormLabel>Minimum</FormLabel>
-            <Input startDecorator="$" {...register('depositPolicy.minimum')} />
-          </FormControl>
-          <FormControl disabled={disabled} sx={{ flex: 1, minWidth: 280 }}>
+          <BookField form={form} name="depositPolicy.percent" label="Share (%)" unit="%" disabled={disabled} width={140} />
+          <BookField form={form} name="depositPolicy.minimum" label="Minimum" unit="$" disabled={disabled} width={160} />
+          <FormControl disabled={disabled} error={Boolean(descriptionError)} sx={{ flex: 1, minWidth: 280 }}>
             <FormLabel>What the player reads</FormLabel>
-            <Textarea minRows={2} {...register('depositPolicy.description')} />
+            <Textarea minRows={2} {...form.register('depositPolicy.description')} />
+            {descriptionError && <FormHelperText>{descriptionError.message}</FormHelperText>}
           </FormControl>
         </Stack>
       </Block>
       <Block title="Labor hours" hint="Hours per device; functions carry their own hours below.">
         <Stack direction="row" gap={1.5} flexWrap="wrap">
-          <FormControl disabled={disabled} sx={{ width: 220 }}>
-            <FormLabel>Per device, serial board</FormLabel>
-            <Input endDecorator="h" {...register('labor.hoursPerDeviceSerial')} />
-          </FormControl>
-          <FormControl disabled={disabled} sx={{ width: 260 }}>
-            <FormLabel>Per device through switcher loops</FormLabel>
-            <Input endDecorator="h" {...register('labor.hoursPerDeviceSwitcher')} />
-            <FormHelperText>Both ends of every loop are cabled.</FormHelperText>
-          </FormControl>
+          <BookField
+            form={form}
+            name="labor.hoursPerDeviceSerial"
+            label="Per device, serial board"
+            unit="h"
+            disabled={disabled}
+            width={220}
+          />
+          <BookField
+            form={form}
+            name="labor.hoursPerDeviceSwitcher"
+            label="Per device through switcher loops"
+            unit="h"
+            hint="Both ends of every loop are cabled."
+            disabled={disabled}
+            width={260}
+          />
         </Stack>
       </Block>
       <Block
@@ -128,9 +176,7 @@ export function PriceBookForm({
       >
         <ListEditor
           list="levels"
-          control={control}
-          register={register}
-          disabled={disabled}
+          {...editor}
           fixedRows
           fields={[
             { name: 'code', label: 'Level', kind: 'select', options: levelOptions, width: 150 },
@@ -144,19 +190,14 @@ export function PriceBookForm({
       <Block title="Materials rates">
         <Stack direction="row" gap={1.5} flexWrap="wrap">
           {materialFields.map(([name, label, unit]) => (
-            <FormControl key={name} disabled={disabled} sx={{ width: 220 }}>
-              <FormLabel>{label}</FormLabel>
-              <Input {...(unit === '$' ? { startDecorator: '$' } : { endDecorator: unit })} {...register(`materials.${name}`)} />
-            </FormControl>
+            <BookField key={name} form={form} name={`materials.${name}`} label={label} unit={unit} disabled={disabled} width={220} />
           ))}
         </Stack>
       </Block>
       <Block title="Board surfaces" hint="Usable mounting area in millimetres.">
         <ListEditor
           list="surfaces"
-          control={control}
-          register={register}
-          disabled={disabled}
+          {...editor}
           blank={() => ({ id: '', name: '', description: '', widthMm: 610, depthMm: 320, price: '0.00', custom: false })}
           fields={[
             { name: 'id', label: 'Id', kind: 'text', width: 130 },
@@ -171,9 +212,7 @@ export function PriceBookForm({
       <Block title="Cases" hint="A soft bag is allowed but flagged as not recommended for a loaded board.">
         <ListEditor
           list="cases"
-          control={control}
-          register={register}
-          disabled={disabled}
+          {...editor}
           blank={() => ({
             id: '',
             name: '',
@@ -206,9 +245,7 @@ export function PriceBookForm({
       <Block title="Functions" hint="Added work such as stereo outputs or a four-cable hookup; wet/dry/wet counts as two functions.">
         <ListEditor
           list="functions"
-          control={control}
-          register={register}
-          disabled={disabled}
+          {...editor}
           blank={() => ({ id: '', code: '', name: '', description: '', laborHours: '1', functionCount: 1, extraPatchCables: 0 })}
           fields={[
             { name: 'code', label: 'Code', kind: 'text', width: 130 },
@@ -237,7 +274,7 @@ export function PriceBookForm({
               </Stack>
             </Alert>
           )}
-          <ErrorNote error={publish.error} />
+          <ErrorNote error={publish.error} fields={BOOK_FIELDS} fieldsFrom="book" />
           <Stack direction="row" gap={1}>
             <Button type="submit" color="accent" loading={publish.isPending}>
               Publish as version {version + 1}

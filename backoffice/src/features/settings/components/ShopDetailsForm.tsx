@@ -18,6 +18,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useMemo } from 'react';
 import { Controller, useForm, type FieldPath } from 'react-hook-form';
 import { z } from 'zod';
+import { setServerFieldErrors } from '@loomwright/shared/ui';
 import { ErrorNote } from 'src/components/ErrorNote';
 import { useUpdateSettings } from '../api/update-settings';
 import type { SettingsSectionProps } from './settings-section';
@@ -37,6 +38,17 @@ const formSchema = shopDetailsSchema.extend({
 });
 
 type FormValues = Omit<ShopDetailsInput, 'postalAddress'> & { postalAddress: typeof blankAddress };
+
+/** The form's fields, as the API names them: a refusal of one stands under it. */
+const DETAIL_FIELDS = [
+  'name',
+  'tagline',
+  'contactEmail',
+  'countryCode',
+  'timezone',
+  'locale',
+  'postalAddress',
+] as const satisfies ReadonlyArray<keyof FormValues>;
 
 const localeNames = new Intl.DisplayNames(['en'], { type: 'language' });
 const localeName = (tag: string) => localeNames.of(tag) ?? tag;
@@ -94,7 +106,10 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: SettingsSectionP
       gap={1}
       noValidate
       onSubmit={form.handleSubmit((values) =>
-        update.mutate(values as unknown as ShopDetailsInput, { onSuccess: () => onSaved('Shop details saved.') }),
+        update.mutate(values as unknown as ShopDetailsInput, {
+          onSuccess: () => onSaved('Shop details saved.'),
+          onError: (error) => setServerFieldErrors(error, form.setError, DETAIL_FIELDS),
+        }),
       )}
     >
       <Stack direction="row" gap={1.5} flexWrap="wrap">
@@ -178,7 +193,7 @@ export function ShopDetailsForm({ settings, canEdit, onSaved }: SettingsSectionP
         {field('postalAddress.postalCode', 'Postal code', { autoComplete: 'postal-code', minWidth: 140 })}
       </Stack>
       <Typography level="body-xs">Currency: {settings.currency} (set by the price book).</Typography>
-      <ErrorNote error={update.error} />
+      <ErrorNote error={update.error} fields={DETAIL_FIELDS} />
       {canEdit && (
         <Stack direction="row">
           <Button type="submit" loading={update.isPending}>
