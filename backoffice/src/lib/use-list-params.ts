@@ -94,5 +94,14 @@ export function useListParams<F extends string>(defaultsAtMount: ListParamsDefau
     [params.page, params.pageSize, params.sort, params.order, toggleSort, update],
   );
 
-  return { params, update, toggleSort, paging };
+  /** One filter's value and its setter, to spread on a SearchField or a SelectFilter: `<SearchField {...filter('q')} />`. */
+  const filter = useCallback(
+    (key: F) => ({
+      value: params.filters[key],
+      onChange: (value: string) => update({ filters: { [key]: value } as Partial<Record<F, string>> }),
+    }),
+    [params.filters, update],
+  );
+
+  return { params, update, toggleSort, paging, filter };
 }

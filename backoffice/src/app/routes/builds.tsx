@@ -12,9 +12,10 @@ import { FilterBar } from 'src/components/FilterBar';
 import { PageHeader } from 'src/components/PageHeader';
 import { ExportCsvButton } from 'src/features/exports/components/ExportCsvButton';
 import { SearchField } from 'src/components/SearchField';
-import { shortStateLabels, StateChip } from 'src/components/StateChip';
+import { shortStateLabels } from 'src/components/StateChip';
 import { bookingsQueryOptions, useBookings, type BookingSort } from 'src/features/bookings/api/list-bookings';
-import { formatDay, formatHours, formatMoney, formatMoneyRange } from 'src/lib/format';
+import { bookingColumns } from 'src/features/bookings/components/booking-columns';
+import { formatDay } from 'src/lib/format';
 import { useListParams } from 'src/lib/use-list-params';
 
 const columns: Column<BookingSummary>[] = [
@@ -56,17 +57,11 @@ const columns: Column<BookingSummary>[] = [
       </Typography>
     ),
   },
-  { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 110, render: (b) => formatDay(b.benchDate) },
+  bookingColumns.benchDate(110),
   { id: 'done', header: 'Expected done', width: 120, render: (b) => formatDay(b.expectedCompletion) },
-  { id: 'hours', header: 'Labor', align: 'right', width: 70, wideOnly: true, render: (b) => formatHours(b.laborHours) },
-  {
-    id: 'total',
-    header: 'Total',
-    align: 'right',
-    width: 110,
-    render: (b) => (b.firmTotal ? formatMoney(b.firmTotal, b.currency) : formatMoneyRange(b.totalLow, b.totalHigh, b.currency)),
-  },
-  { id: 'state', header: 'State', sortKey: 'state', width: 120, render: (b) => <StateChip state={b.state} /> },
+  bookingColumns.labor(70),
+  bookingColumns.price('total', 'Total', 110),
+  bookingColumns.state,
   {
     id: 'updated',
     header: 'Last change',
@@ -80,7 +75,7 @@ const columns: Column<BookingSummary>[] = [
 
 export function Component() {
   const navigate = useNavigate();
-  const { params, update, paging } = useListParams({
+  const { params, update, paging, filter } = useListParams({
     sort: 'bench_date',
     order: 'asc',
     filters: { state: 'scheduled', q: '' },
@@ -123,12 +118,7 @@ export function Component() {
         </TabList>
       </Tabs>
       <FilterBar label="Filter builds">
-        <SearchField
-          label="Search"
-          placeholder="Customer name, e-mail or reference"
-          value={params.filters.q}
-          onChange={(q) => update({ filters: { q } })}
-        />
+        <SearchField label="Search" placeholder="Customer name, e-mail or reference" {...filter('q')} />
       </FilterBar>
       <DataTable
         label={`Builds: ${shortStateLabels[state]}`}

@@ -49,7 +49,7 @@ const columns: Column<CustomerSummary>[] = [
 ];
 
 export function Component() {
-  const { params, update, paging } = useListParams({ sort: 'name', order: 'asc', filters: { q: '', open: '' } });
+  const { params, update, paging, filter } = useListParams({ sort: 'name', order: 'asc', filters: { q: '', open: '' } });
   const list = useCustomers({
     page: params.page,
     pageSize: params.pageSize,
@@ -73,12 +73,7 @@ export function Component() {
         actions={<ExportCsvButton kinds={['bookings', 'payments']} />}
       />
       <FilterBar label="Filter customers">
-        <SearchField
-          label="Search"
-          placeholder={isOwner ? 'Name or e-mail' : 'Name'}
-          value={params.filters.q}
-          onChange={(q) => update({ filters: { q } })}
-        />
+        <SearchField label="Search" placeholder={isOwner ? 'Name or e-mail' : 'Name'} {...filter('q')} />
       </FilterBar>
       <DataTable
         label="Customers"

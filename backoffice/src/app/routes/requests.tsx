@@ -19,10 +19,11 @@ import { shortStateLabels, StateChip } from 'src/components/StateChip';
 import { useBooking } from 'src/features/bookings/api/get-booking';
 import { useBookings, type BookingSort } from 'src/features/bookings/api/list-bookings';
 import { BookingDetails } from 'src/features/bookings/components/BookingDetails';
+import { bookingColumns } from 'src/features/bookings/components/booking-columns';
 import { AcceptDialog } from 'src/features/requests/components/AcceptDialog';
 import { DeclineDialog } from 'src/features/requests/components/DeclineDialog';
 import { useMe } from 'src/features/auth/api/get-me';
-import { formatDay, formatHours, formatMoney, formatMoneyRange, formatStamp } from 'src/lib/format';
+import { formatMoney, formatStamp } from 'src/lib/format';
 import { useListParams } from 'src/lib/use-list-params';
 
 const depositWords: Record<DepositStatus, string> = {
@@ -69,14 +70,8 @@ const columns: Column<BookingSummary>[] = [
       </Typography>
     ),
   },
-  { id: 'hours', header: 'Labor', align: 'right', width: 64, wideOnly: true, render: (b) => formatHours(b.laborHours) },
-  {
-    id: 'estimate',
-    header: 'Estimate',
-    align: 'right',
-    width: 140,
-    render: (b) => (b.firmTotal ? formatMoney(b.firmTotal, b.currency) : formatMoneyRange(b.totalLow, b.totalHigh, b.currency)),
-  },
+  bookingColumns.labor(64),
+  bookingColumns.price('estimate', 'Estimate', 140),
   {
     id: 'deposit',
     header: 'Deposit',
@@ -90,8 +85,8 @@ const columns: Column<BookingSummary>[] = [
       </>
     ),
   },
-  { id: 'state', header: 'State', sortKey: 'state', width: 120, render: (b) => <StateChip state={b.state} /> },
-  { id: 'bench', header: 'Bench date', sortKey: 'bench_date', width: 104, render: (b) => formatDay(b.benchDate) },
+  bookingColumns.state,
+  bookingColumns.benchDate(104),
 ];
 
 const stateOptions = [
@@ -106,7 +101,7 @@ const depositOptions = [
 export function Component() {
   const me = useMe();
   const isOwner = me.data?.role === 'owner';
-  const { params, update, paging } = useListParams({
+  const { params, update, paging, filter } = useListParams({
     sort: 'created_at',
     order: 'desc',
     filters: { state: '', deposit: '', q: '', open: '' },
@@ -142,22 +137,10 @@ export function Component() {
         <SearchField
           label="Search"
           placeholder={isOwner ? 'Customer name, e-mail or reference' : 'Customer name or reference'}
-          value={params.filters.q}
-          onChange={(q) => update({ filters: { q } })}
+          {...filter('q')}
         />
-        <SelectFilter
-          label="State"
-          value={params.filters.state}
-          options={stateOptions}
-          onChange={(state) => update({ filters: { state } })}
-        />
-        <SelectFilter
-          label="Deposit"
-          value={params.filters.deposit}
-          options={depositOptions}
-          onChange={(deposit) => update({ filters: { deposit } })}
-          minWidth={150}
-        />
+        <SelectFilter label="State" {...filter('state')} options={stateOptions} />
+        <SelectFilter label="Deposit" {...filter('deposit')} options={depositOptions} minWidth={150} />
         {(params.filters.q || params.filters.state || params.filters.deposit) && (
           <Button size="sm" variant="plain" color="neutral" onClick={() => update({ filters: { q: '', state: '', deposit: '' } })}>
             Clear filters

@@ -5,7 +5,7 @@ import List from '@mui/joy/List';
 import ListItem from '@mui/joy/ListItem';
 import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
-import { Suspense } from 'react';
+import { Suspense, type ReactNode } from 'react';
 import { useNavigate } from 'react-router';
 import { encodeConfiguration, quantityWithUnit } from '@loomwright/shared';
 import { formatHours, formatMoney, formatMoneyRange } from 'src/lib/format';
@@ -17,6 +17,69 @@ import { PowerBudgetView } from '../PowerBudgetView';
 import { PowerCautions } from '../PowerCautions';
 import { StepHeading } from '../StepHeading';
 import type { StepProps } from './step-props';
+
+type EstimateLine = NonNullable<StepProps['live']['estimate']>['lines'][number];
+
+/** One part of the estimate as a table: a row per line (its words, then its figures), and the part's total below. */
+function LinesSection({
+  id,
+  title,
+  firstHeading,
+  headings,
+  lines,
+  cells,
+  total,
+}: {
+  id: string;
+  title: string;
+  firstHeading: string;
+  headings: string[];
+  lines: EstimateLine[];
+  cells: (line: EstimateLine) => ReactNode[];
+  total: ReactNode;
+}) {
+  return (
+    <Box component="section" aria-labelledby={id}>
+      <Typography level="title-lg" component="h3" id={id} sx={{ mb: 1 }}>
+        {title}
+      </Typography>
+      <Box>
+        <Table
+          size="sm"
+          aria-labelledby={id}
+          sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}
+        >
+          <thead>
+            <tr>
+              <th scope="col" style={{ width: '46%' }}>
+                {firstHeading}
+              </th>
+              {headings.map((heading) => (
+                <th scope="col" key={heading}>
+                  {heading}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {lines.map((line) => (
+              <tr key={line.code}>
+                <td>
+                  {line.label}
+                  {line.explanation ? <Typography level="body-xs">{line.explanation}</Typography> : null}
+                </td>
+                {cells(line).map((cell, i) => (
+                  <td key={i}>{cell}</td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+          <tfoot>{total}</tfoot>
+        </Table>
+      </Box>
+    </Box>
+  );
+}
 
 export default function ReviewStep({ catalog, configuration, live, keep, goToStep }: StepProps) {
   const navigate = useNavigate();
@@ -39,93 +102,39 @@ export default function ReviewStep({ catalog, configuration, live, keep, goToSte
         <Typography>{live.error ? `The estimate could not be made: ${live.error.message}` : 'Working out the estimate…'}</Typography>
       ) : (
         <Box sx={{ display: 'grid', gap: 4, gridTemplateColumns: 'minmax(0, 1fr)' }} aria-busy={live.isUpdating}>
-          <Box component="section" aria-labelledby="materials-heading">
-            <Typography level="title-lg" component="h3" id="materials-heading" sx={{ mb: 1 }}>
-              Materials
-            </Typography>
-            <Box>
-              <Table
-                size="sm"
-                aria-labelledby="materials-heading"
-                sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}
-              >
-                <thead>
-                  <tr>
-                    <th scope="col" style={{ width: '46%' }}>
-                      Item
-                    </th>
-                    <th scope="col">Quantity</th>
-                    <th scope="col">Each</th>
-                    <th scope="col">Amount</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {materials.map((l) => (
-                    <tr key={l.code}>
-                      <td>
-                        {l.label}
-                        {l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}
-                      </td>
-                      <td>{quantityWithUnit(l.quantity, l.unit)}</td>
-                      <td>{formatMoney(l.unitPrice, currency)}</td>
-                      <td>{formatMoney(l.amount, currency)}</td>
-                    </tr>
-                  ))}
-                </tbody>
-                <tfoot>
-                  <tr>
-                    <th scope="row" colSpan={3}>
-                      Materials total
-                    </th>
-                    <td data-testid="review-materials">{formatMoney(e.materialsTotal, currency)}</td>
-                  </tr>
-                </tfoot>
-              </Table>
-            </Box>
-          </Box>
-          <Box component="section" aria-labelledby="labor-heading">
-            <Typography level="title-lg" component="h3" id="labor-heading" sx={{ mb: 1 }}>
-              Labor
-            </Typography>
-            <Box>
-              <Table
-                size="sm"
-                aria-labelledby="labor-heading"
-                sx={{ '--TableCell-paddingX': { xs: '4px', sm: '8px' }, '& tr > :nth-child(n+2)': { textAlign: 'right' } }}
-              >
-                <thead>
-                  <tr>
-                    <th scope="col" style={{ width: '46%' }}>
-                      Work
-                    </th>
-                    <th scope="col">Hours</th>
-                    <th scope="col">Amount</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {labor.map((l) => (
-                    <tr key={l.code}>
-                      <td>
-                        {l.label}
-                        {l.explanation ? <Typography level="body-xs">{l.explanation}</Typography> : null}
-                      </td>
-                      <td>{formatHours(l.quantity)}</td>
-                      <td>{formatMoneyRange(l.amount, l.amountHigh ?? l.amount, currency)}</td>
-                    </tr>
-                  ))}
-                </tbody>
-                <tfoot>
-                  <tr>
-                    <th scope="row">
-                      Labor at {levelName} rates ({formatMoneyRange(e.rate.low, e.rate.high, currency)} an hour)
-                    </th>
-                    <td data-testid="review-hours">{formatHours(e.laborHours)}</td>
-                    <td data-testid="review-labor">{formatMoneyRange(e.laborLow, e.laborHigh, currency)}</td>
-                  </tr>
-                </tfoot>
-              </Table>
-            </Box>
-          </Box>
+          <LinesSection
+            id="materials-heading"
+            title="Materials"
+            firstHeading="Item"
+            headings={['Quantity', 'Each', 'Amount']}
+            lines={materials}
+            cells={(l) => [quantityWithUnit(l.quantity, l.unit), formatMoney(l.unitPrice, currency), formatMoney(l.amount, currency)]}
+            total={
+              <tr>
+                <th scope="row" colSpan={3}>
+                  Materials total
+                </th>
+                <td data-testid="review-materials">{formatMoney(e.materialsTotal, currency)}</td>
+              </tr>
+            }
+          />
+          <LinesSection
+            id="labor-heading"
+            title="Labor"
+            firstHeading="Work"
+            headings={['Hours', 'Amount']}
+            lines={labor}
+            cells={(l) => [formatHours(l.quantity), formatMoneyRange(l.amount, l.amountHigh ?? l.amount, currency)]}
+            total={
+              <tr>
+                <th scope="row">
+                  Labor at {levelName} rates ({formatMoneyRange(e.rate.low, e.rate.high, currency)} an hour)
+                </th>
+                <td data-testid="review-hours">{formatHours(e.laborHours)}</td>
+                <td data-testid="review-labor">{formatMoneyRange(e.laborLow, e.laborHigh, currency)}</td>
+              </tr>
+            }
+          />
           <Box
             component="section"
             aria-labelledby="total-heading"
