@@ -15,7 +15,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { brotliCompressSync, gzipSync } from 'node:zlib';
 import { chromiumLaunchOptions, stackEnv } from '../stack-env.mjs';
-import { latencyBoardLink } from './latency-board.mjs';
+import { measureEstimateLatency } from './latency-board.mjs';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const root = path.resolve(here, '../..');
@@ -372,35 +372,15 @@ async function lighthouseSection() {
 // ---------------------------------------------------------------- estimate on screen
 
 async function latencySection() {
-  const { chromium } = require('@playwright/test');
-  const browser = await chromium.launch(chromiumLaunchOptions);
-  try {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
-    // The configurator prices nothing the player has not chosen (surface, case, pedals), so the
-    // page opens on a link that has all three, counted rather than listed, at the Pedals step.
-    await page.goto(`${base}/configure?step=pedals&c=${latencyBoardLink()}`);
-    await page.getByTestId('estimate-total').filter({ hasText: '$' }).waitFor();
-    const more = page.getByRole('button', { name: 'One pedal more' });
-    const durations = [];
-    // Each change asks for a count not priced before (no cached answer); the page stops at 60 pedals.
-    const changes = Math.min(repeat, 54);
-    for (let i = 0; i < changes; i++) {
-      const seen = await page.evaluate(() => performance.getEntriesByName('lw:estimate-latency').length);
-      await more.click();
-      await page.waitForFunction((n) => performance.getEntriesByName('lw:estimate-latency').length > n, seen, { timeout: 10_000 });
-      durations.push(await page.evaluate(() => performance.getEntriesByName('lw:estimate-latency').at(-1).duration));
-    }
-    row(
-      'browser',
-      `estimate on screen after the debounce (${changes} changes) median · p95`,
-      `${ms(quantile(durations, 0.5))} · ${ms(quantile(durations, 0.95))}`,
-      '',
-      '',
-      'median ≤ 100 ms',
-    );
-  } finally {
-    await browser.close();
-  }
+  const durations = await measureEstimateLatency(base, repeat);
+  row(
+    'browser',
+    `estimate on screen after the debounce (${durations.length} changes) median · p95`,
+    `${ms(quantile(durations, 0.5))} · ${ms(quantile(durations, 0.95))}`,
+    '',
+    '',
+    'median ≤ 100 ms',
+  );
 }
 
 // ---------------------------------------------------------------- a year of data
