@@ -1,70 +1,50 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import type { BookingDetail, ExtraView, IntakeItemView, TimeEntriesResponse } from '@loomwright/shared';
-import { builderId, createBooking, quietMondayWeeksAhead, signIn } from './support/bench-fixtures';
-import { clearTables, createTestApp, type TestApp } from './support/test-app';
-
-type Agent = Awaited<ReturnType<typeof signIn>>;
+import { clearBench, createBooking, openBenchShop, type Agent } from './support/bench-fixtures';
+import type { TestApp } from './support/test-app';
 
 /**
  * Approvals (by the player, and recorded by staff), note privacy, money facts, and corrections
  * to intake and hours. Amounts are worked by hand beside each check.
  */
 describe('approvals, notes, money facts and corrections', () => {
-  let t: TestApp;
-  let owner: Agent;
-  let master: Agent;
-  let junior: Agent;
-  let player: Agent;
-  let cass: Agent;
-  let masterId: string;
-  let monday: string;
-
-  beforeAll(async () => {
-    t = await createTestApp();
-    [owner, master, junior, player, cass] = await Promise.all(
-      ['owner@shop.example', 'builder@shop.example', 'junior@shop.example', 'player@mail.example', 'cass@mail.example'].map((e) =>
-        signIn(t.app, e),
-      ),
-    );
-    masterId = await builderId(t.db, 'builder@shop.example');
-    monday = quietMondayWeeksAhead(3);
-  });
+  let t: TestApp, masterId: string, monday: string;
+  let owner: Agent, master: Agent, junior: Agent, player: Agent, cass: Agent;
+  beforeAll(async () => ({ t, owner, master, junior, player, cass, masterId, monday } = await openBenchShop()));
   afterAll(async () => t.close());
-  beforeEach(async () =>
-    clearTables(t.db, [
-      'bench_allocations',
-      'layout_approvals',
-      'booking_events',
-      'mail_outbox',
-      'payments',
-      'time_entries',
-      'intake_items',
-      'booking_extras',
-      'quotes',
-      'bookings',
-      'shop_closures',
-    ]),
-  );
+  beforeEach(async () => clearBench(t.db));
 
-  /** A build on the bench: $125.00/h × 2 h + $100.00 materials = $350.00 firm; $50.00 deposit paid. */
-  async function onBench() {
+  /**
+   * A build on the bench: $125.00/h × 2 h + $100.00 materials = $350.00 firm; $50.00 deposit paid.
+   * Accepted by the master, its intake recorded, then moved to pedals_received and on_bench with
+   * the given extras on each move (a note, tellPlayer).
+   */
+  async function onBench(
+    items: Array<{ item: string; condition: string; note?: string }> = [
+      { item: 'Fuzz', condition: 'working' },
+      { item: 'Analog delay', condition: 'working' },
+      { item: 'Power supply', condition: 'working' },
+    ],
+    received: object = {},
+    bench: object = {},
+  ) {
     const b = await createBooking(t.db, { laborHours: '2.00', materialsTotal: '100.00', deposit: '50.00' });
     await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
+    await master.post(`/api/bookings/${b.id}/intake`).send({ items }).expect(201);
     await master
-      .post(`/api/bookings/${b.id}/intake`)
-      .send({
-        items: [
-          { item: 'Fuzz', condition: 'working' },
-          { item: 'Analog delay', condition: 'working' },
-          { item: 'Power supply', condition: 'working' },
-        ],
-      })
-      .expect(201);
-    await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received' }).expect(200);
-    await master.post(`/api/bookings/${b.id}/state`).send({ to: 'on_bench' }).expect(200);
+      .post(`/api/bookings/${b.id}/state`)
+      .send({ to: 'pedals_received', ...received })
+      .expect(200);
+    await master
+      .post(`/api/bookings/${b.id}/state`)
+      .send({ to: 'on_bench', ...bench })
+      .expect(200);
     return b;
   }
 
+  /** The owner proposes an extra on the build. */
+  const proposeExtra = async (id: string, extra: { description: string; amount: string; reason: string }) =>
+    (await owner.post(`/api/bookings/${id}/extras`).send(extra).expect(201)).body as ExtraView;
   const detailOf = async (agent: Agent, id: string) => (await agent.get(`/api/bookings/${id}`).expect(200)).body as BookingDetail;
   const mails = (bookingId: string, template: string) =>
     t.db
@@ -77,18 +57,12 @@ describe('approvals, notes, money facts and corrections', () => {
 
   it('an extra reaches the player by e-mail with its price; the player approves it in the app; only approved extras are owed', async () => {
     const b = await onBench();
-    const cable = (
-      await owner
-        .post(`/api/bookings/${b.id}/extras`)
-        .send({ description: 'Deeper road case', amount: '45.00', reason: 'The wah does not fit the quoted case.' })
-        .expect(201)
-    ).body as ExtraView;
-    const buffer = (
-      await owner
-        .post(`/api/bookings/${b.id}/extras`)
-        .send({ description: 'Input buffer', amount: '60.00', reason: 'Long cable run.' })
-        .expect(201)
-    ).body as ExtraView;
+    const cable = await proposeExtra(b.id, {
+      description: 'Deeper road case',
+      amount: '45.00',
+      reason: 'The wah does not fit the quoted case.',
+    });
+    const buffer = await proposeExtra(b.id, { description: 'Input buffer', amount: '60.00', reason: 'Long cable run.' });
 
     const asked = await mails(b.id, 'approval-requested');
     expect(asked.map((m) => m.data)).toEqual([
@@ -137,12 +111,7 @@ describe('approvals, notes, money facts and corrections', () => {
 
   it('staff record an approval given by phone, with who gave it and how; bad input gets 400 in words', async () => {
     const b = await onBench();
-    const extra = (
-      await owner
-        .post(`/api/bookings/${b.id}/extras`)
-        .send({ description: 'Deeper road case', amount: '45.00', reason: 'The wah does not fit.' })
-        .expect(201)
-    ).body as ExtraView;
+    const extra = await proposeExtra(b.id, { description: 'Deeper road case', amount: '45.00', reason: 'The wah does not fit.' });
     const bad = await master.post(`/api/bookings/${b.id}/extras/${extra.id}/recorded-decision`).send({ approve: true, via: 'pigeon' });
     expect(bad.status).toBe(400);
     expect(bad.body.details).toEqual(
@@ -215,19 +184,14 @@ describe('approvals, notes, money facts and corrections', () => {
   });
 
   it('keeps staff notes, hours and intake remarks out of the player’s answer and mail, unless the writer tells the player', async () => {
-    const b = await createBooking(t.db, { laborHours: '2.00', materialsTotal: '100.00', deposit: '50.00' });
-    await master.post(`/api/bookings/${b.id}/accept`).send({ builderId: masterId, benchDate: monday }).expect(200);
-    await master
-      .post(`/api/bookings/${b.id}/intake`)
-      .send({
-        items: [
-          { item: 'Fuzz', condition: 'working', note: 'INTAKE-SECRET scuffed corner' },
-          { item: 'Analog delay', condition: 'faulty', note: 'Crackles on the time knob' },
-        ],
-      })
-      .expect(201);
-    await master.post(`/api/bookings/${b.id}/state`).send({ to: 'pedals_received', note: 'STATE-SECRET parcel was damp' }).expect(200);
-    await master.post(`/api/bookings/${b.id}/state`).send({ to: 'on_bench', note: 'Starting today.', tellPlayer: true }).expect(200);
+    const b = await onBench(
+      [
+        { item: 'Fuzz', condition: 'working', note: 'INTAKE-SECRET scuffed corner' },
+        { item: 'Analog delay', condition: 'faulty', note: 'Crackles on the time knob' },
+      ],
+      { note: 'STATE-SECRET parcel was damp' },
+      { note: 'Starting today.', tellPlayer: true },
+    );
     await master
       .post(`/api/bookings/${b.id}/time-entries`)
       .send({ workedOn: '2026-11-30', hours: 1.5, note: 'HOURS-SECRET slow going' })
@@ -373,12 +337,7 @@ describe('approvals, notes, money facts and corrections', () => {
 
   it('while a balance is due: ready waits for open extras, delivery waits for the money; a balance taken at the counter settles it once', async () => {
     const b = await onBench();
-    const extra = (
-      await owner
-        .post(`/api/bookings/${b.id}/extras`)
-        .send({ description: 'Deeper road case', amount: '45.00', reason: 'Fit.' })
-        .expect(201)
-    ).body as ExtraView;
+    const extra = await proposeExtra(b.id, { description: 'Deeper road case', amount: '45.00', reason: 'Fit.' });
     await master.post(`/api/bookings/${b.id}/state`).send({ to: 'testing' }).expect(200);
     const early = await master.post(`/api/bookings/${b.id}/state`).send({ to: 'ready' });
     expect(early.status).toBe(409);

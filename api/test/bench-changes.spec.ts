@@ -6,10 +6,8 @@ import { startMailFake, type CaughtMessage, type MailFake } from '../fakes/mail/
 import { addDays, todayIn } from '../src/bench/calendar-days';
 import { publicHolidaysBetween } from '../src/bench/public-holidays';
 import { MailDeliveryService } from '../src/mail/mail-delivery.service';
-import { builderId, createBooking, quietMondayWeeksAhead, signIn } from './support/bench-fixtures';
-import { clearTables, createTestApp, type TestApp } from './support/test-app';
-
-type Agent = Awaited<ReturnType<typeof signIn>>;
+import { clearBench, createBooking, openBenchShop, signIn, type Agent } from './support/bench-fixtures';
+import type { TestApp } from './support/test-app';
 
 /** The first weekday on or after `day` that is not a US public holiday (date-holidays, the shop's own holiday data). */
 function firstWorkdayFrom(day: string): string {
@@ -19,44 +17,19 @@ function firstWorkdayFrom(day: string): string {
 }
 
 describe('when plans change on the bench: move, reassign, cancel, closures and release', () => {
-  let t: TestApp;
   let fake: MailFake;
-  let owner: Agent;
-  let master: Agent;
-  let junior: Agent;
-  let player: Agent;
-  let masterId: string;
-  let juniorId: string;
-  let monday: string;
-
+  let t: TestApp, masterId: string, juniorId: string, monday: string;
+  let owner: Agent, master: Agent, junior: Agent, player: Agent;
   beforeAll(async () => {
     fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
-    t = await createTestApp({ env: { SMTP_PORT: String(fake.smtpPort) } });
-    [owner, master, junior, player] = await Promise.all(
-      ['owner@shop.example', 'builder@shop.example', 'junior@shop.example', 'player@mail.example'].map((e) => signIn(t.app, e)),
-    );
-    masterId = await builderId(t.db, 'builder@shop.example');
-    juniorId = await builderId(t.db, 'junior@shop.example');
-    monday = quietMondayWeeksAhead(3);
+    ({ t, owner, master, junior, player, masterId, juniorId, monday } = await openBenchShop({ env: { SMTP_PORT: String(fake.smtpPort) } }));
   });
   afterAll(async () => {
     await fake.stop();
     await t.close();
   });
   beforeEach(async () => {
-    await clearTables(t.db, [
-      'bench_allocations',
-      'booking_events',
-      'mail_outbox',
-      'payments',
-      'time_entries',
-      'intake_items',
-      'booking_extras',
-      'quotes',
-      'bookings',
-      'shop_closures',
-      'builder_absences',
-    ]);
+    await clearBench(t.db, ['builder_absences']);
     await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages`, { method: 'DELETE' });
   });
 

@@ -2,48 +2,15 @@ import { sql } from 'kysely';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import type { BenchSuggestResponse, BenchView } from '@loomwright/shared';
 import { addDays } from '../src/bench/calendar-days';
-import { builderId, createBooking, quietMondayWeeksAhead, signIn } from './support/bench-fixtures';
-import { clearTables, createTestApp, type TestApp } from './support/test-app';
-
-type Agent = Awaited<ReturnType<typeof signIn>>;
+import { builderId, clearBench, createBooking, openBenchShop, signIn, type Agent } from './support/bench-fixtures';
+import { createTestApp, type TestApp } from './support/test-app';
 
 describe('accepting a build, its firm quote and its way through the bench', () => {
-  let t: TestApp;
-  let owner: Agent;
-  let master: Agent;
-  let junior: Agent;
-  let player: Agent;
-  let cass: Agent;
-  let masterId: string;
-  let juniorId: string;
-  let monday: string;
-
-  beforeAll(async () => {
-    t = await createTestApp();
-    [owner, master, junior, player, cass] = await Promise.all(
-      ['owner@shop.example', 'builder@shop.example', 'junior@shop.example', 'player@mail.example', 'cass@mail.example'].map((e) =>
-        signIn(t.app, e),
-      ),
-    );
-    masterId = await builderId(t.db, 'builder@shop.example');
-    juniorId = await builderId(t.db, 'junior@shop.example');
-    monday = quietMondayWeeksAhead(3);
-  });
+  let t: TestApp, masterId: string, juniorId: string, monday: string;
+  let owner: Agent, master: Agent, junior: Agent, player: Agent, cass: Agent;
+  beforeAll(async () => ({ t, owner, master, junior, player, cass, masterId, juniorId, monday } = await openBenchShop()));
   afterAll(async () => t.close());
-  beforeEach(async () =>
-    clearTables(t.db, [
-      'bench_allocations',
-      'booking_events',
-      'mail_outbox',
-      'payments',
-      'time_entries',
-      'intake_items',
-      'booking_extras',
-      'quotes',
-      'bookings',
-      'shop_closures',
-    ]),
-  );
+  beforeEach(async () => clearBench(t.db));
 
   it('writes the firm quote at the builder’s own rate, schedules, and queues the e-mail with what to ship', async () => {
     const b = await createBooking(t.db, { laborHours: '10.00', materialsTotal: '300.00', deposit: '150.00' });

@@ -5,6 +5,7 @@ import type { BuilderLevel } from '@loomwright/shared';
 import { addDays } from '../../src/bench/calendar-days';
 import { publicHolidaysBetween } from '../../src/bench/public-holidays';
 import type { Database } from '../../src/database/database';
+import { clearTables, createTestApp, type TestApp, type TestAppOptions } from './test-app';
 
 export const DEMO_PASSWORD = 'demo-pass-2026';
 
@@ -12,6 +13,42 @@ export async function signIn(app: INestApplication, email: string) {
   const agent = request.agent(app.getHttpServer());
   await agent.post('/api/auth/sign-in').send({ email, password: DEMO_PASSWORD }).expect(200);
   return agent;
+}
+
+export type Agent = Awaited<ReturnType<typeof signIn>>;
+
+/** What a bench test writes: a booking and everything hung on it, plus the shop's closures. */
+export const BENCH_TABLES = [
+  'bench_allocations',
+  'layout_approvals',
+  'booking_events',
+  'mail_outbox',
+  'payments',
+  'time_entries',
+  'intake_items',
+  'booking_extras',
+  'quotes',
+  'bookings',
+  'shop_closures',
+];
+
+/** Empties the bench tables (and any `more`) between tests. */
+export const clearBench = (db: Database, more: string[] = []) => clearTables(db, [...BENCH_TABLES, ...more]);
+
+/**
+ * The demo shop with its cast signed in (the owner, the master builder, the apprentice and two
+ * players, each an agent keeping their own cookies), the two builders' ids and a quiet Monday
+ * three weeks ahead to schedule on.
+ */
+export async function openBenchShop(options: TestAppOptions = {}) {
+  const t: TestApp = await createTestApp(options);
+  const [owner, master, junior, player, cass] = await Promise.all(
+    ['owner@shop.example', 'builder@shop.example', 'junior@shop.example', 'player@mail.example', 'cass@mail.example'].map((e) =>
+      signIn(t.app, e),
+    ),
+  );
+  const [masterId, juniorId] = await Promise.all([builderId(t.db, 'builder@shop.example'), builderId(t.db, 'junior@shop.example')]);
+  return { t, owner, master, junior, player, cass, masterId, juniorId, monday: quietMondayWeeksAhead(3) };
 }
 
 /** A price-book version for quotes to point at (the engine's seed owns the real book). */
