@@ -11,16 +11,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startObjectStore, type ObjectStore } from '../fakes/object-store/object-store';
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
 import { createEmptyDatabase } from './support/test-app';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 const repoRoot = path.resolve(__dirname, '../..');
-const board = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' },
-  pedalCount: 4,
-  functions: [],
-  level: 'journeyman',
-};
+const board = countedBoard(4);
 
 /** Runs `npm run backup` / `npm run restore` the way a person does (node on the script, no npm wrapper). */
 function runScript(script: string, args: string[], env: Record<string, string>): Promise<{ code: number | null; out: string }> {

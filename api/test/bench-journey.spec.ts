@@ -1,16 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BenchSuggestResponse } from '@loomwright/shared';
 import { eventually, payOnHostedPage, startPaymentHarness, type PaymentHarness } from './support/payment-harness';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 // A plain serial board from the demo price book.
-const serialBoard = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' },
-  pedalCount: 6,
-  functions: [],
-  level: 'apprentice',
-};
+const serialBoard = countedBoard(6, 'apprentice');
 // Stripe testing documentation, "Test card numbers": 4242 4242 4242 4242 succeeds.
 const SUCCESS_CARD = '4242 4242 4242 4242';
 

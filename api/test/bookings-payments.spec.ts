@@ -5,16 +5,10 @@ import sharp from 'sharp';
 import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eventually, payOnHostedPage, startPaymentHarness, WEBHOOK_SECRET, type PaymentHarness } from './support/payment-harness';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 // A plain serial board from the demo price book: 8 compact pedals, journeyman rate.
-const serialBoard = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' },
-  pedalCount: 8,
-  functions: [],
-  level: 'journeyman',
-};
+const serialBoard = countedBoard(8);
 
 /**
  * Test card numbers and their outcomes: Stripe testing documentation, "Test card numbers"

@@ -2,6 +2,7 @@ import { demoPriceBook } from '@loomwright/shared';
 import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eventually, payOnHostedPage, startPaymentHarness, type PaymentHarness } from './support/payment-harness';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 /**
  * A quote priced and paid end to end in six currencies: estimate → booking → checkout → the card
@@ -18,14 +19,7 @@ import { eventually, payOnHostedPage, startPaymentHarness, type PaymentHarness }
  * high end 548.25 (548 in whole-unit currencies, whose 1.25 plug line rounds to 1), a 33 % deposit of
  * 180.9225 before rounding.
  */
-const onePedal = {
-  surfaceId: 'slate-46',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' },
-  pedalCount: 1,
-  functions: [],
-  level: 'apprentice',
-};
+const onePedal = countedBoard(1, 'apprentice', 'slate-46');
 
 const cases: Array<{ currency: string; deposit: string; charged: number; hostedPage: string }> = [
   // 180.9225 → 180.92; × 10^2.

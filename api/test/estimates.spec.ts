@@ -1,6 +1,6 @@
 import { demoPriceBook, estimateRig, jargonIn } from '@loomwright/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { referenceBoard, expectedLaborRanges } from '../../shared/src/estimate/reference-rigs.fixture';
+import { countedBoard, referenceBoard, expectedLaborRanges } from '../../shared/src/estimate/reference-rigs.fixture';
 import { createTestApp, type TestApp } from './support/test-app';
 
 describe('POST /api/estimates', () => {
@@ -98,14 +98,7 @@ describe('POST /api/estimates', () => {
     expect(plan.status).toBe('ok');
   });
 
-  const base = {
-    surfaceId: 'slate-61',
-    caseId: 'shell-hard',
-    routing: { mode: 'serial' },
-    pedalCount: 4,
-    functions: [],
-    level: 'journeyman',
-  };
+  const base = countedBoard(4);
   const bad: Array<[string, unknown, string]> = [
     ['an unknown surface', { ...base, surfaceId: 'plank-9000' }, 'surfaceId'],
     ['an unknown case', { ...base, caseId: 'shoebox' }, 'caseId'],

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { jargonIn } from '@loomwright/shared';
 import { builderId, DEMO_PASSWORD } from './support/bench-fixtures';
 import { createTestApp, type TestApp } from './support/test-app';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 /**
  * Every operation of the served OpenAPI document, called with generated requests as an anonymous
@@ -276,16 +277,7 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
     const booking = (
       await playerAgent
         .post('/api/bookings')
-        .send({
-          configuration: {
-            surfaceId: 'slate-61',
-            caseId: 'shell-hard',
-            routing: { mode: 'serial' },
-            pedalCount: 8,
-            functions: [],
-            level: 'journeyman',
-          },
-        })
+        .send({ configuration: countedBoard(8) })
         .expect(201)
     ).body as { id: string };
     const player = await t.db.selectFrom('users').select('id').where('email', '=', 'player@mail.example').executeTakeFirstOrThrow();

@@ -4,6 +4,7 @@ import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fak
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
 import { eventually, payOnHostedPage } from './support/payment-harness';
 import { createEmptyDatabase } from './support/test-app';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 const JWT_SECRET = 'log-hygiene-jwt-secret-7f3a9c21d4';
 const STRIPE_SECRET_KEY = 'sk_test_log_hygiene_5e8b1d0c9a';
@@ -12,14 +13,7 @@ const SIGN_UP_PASSWORD = 'marigold-Cable-73-snake';
 const NEW_PASSWORD = 'quiet-Treadle-19-lantern';
 // Stripe testing documentation, "Test card numbers": 4242 4242 4242 4242 succeeds.
 const CARD = '4242424242424242';
-const board = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' },
-  pedalCount: 6,
-  functions: [],
-  level: 'journeyman',
-};
+const board = countedBoard(6);
 
 /**
  * A whole journey through a real API process (the built one, as `npm start` runs it) with its

@@ -3,6 +3,7 @@ import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { depositStatusFromPaymentsSql } from '../src/bookings/bookings.repository';
 import { eventually, payByBankOnHostedPage, payOnHostedPage, startPaymentHarness, type PaymentHarness } from './support/payment-harness';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 /**
  * Every outcome the payment provider can report after a checkout, driven through the local fake
@@ -19,14 +20,7 @@ import { eventually, payByBankOnHostedPage, payOnHostedPage, startPaymentHarness
  * 000111111113 fails later (account closed). The dispute, refund-failure and bank numbers are
  * written from memory.
  */
-const board = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' },
-  pedalCount: 5,
-  functions: [],
-  level: 'journeyman',
-};
+const board = countedBoard(5);
 const CARD = '4242 4242 4242 4242';
 const DISPUTED_CARD = '4000 0000 0000 0259';
 const REFUND_FAILS_CARD = '4000 0000 0000 5126';

@@ -7,15 +7,9 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startObjectStore, type ObjectStore } from '../fakes/object-store/object-store';
 import { createTestApp, type TestApp } from './support/test-app';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
-const board = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' },
-  pedalCount: 4,
-  functions: [],
-  level: 'journeyman',
-};
+const board = countedBoard(4);
 
 /**
  * PHOTO_STORAGE=s3: photos go to an S3-compatible bucket through @aws-sdk/client-s3 (here the

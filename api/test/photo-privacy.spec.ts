@@ -5,6 +5,7 @@ import exifr from 'exifr';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startPaymentHarness, type PaymentHarness } from './support/payment-harness';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 /**
  * Uploaded photos are re-encoded: no EXIF (so no camera position) goes back out, the picture is
@@ -78,16 +79,7 @@ describe('uploaded photos are re-encoded without their metadata', () => {
   beforeAll(async () => {
     h = await startPaymentHarness();
     player = await h.signIn('player@mail.example');
-    const res = await player.post('/api/bookings').send({
-      configuration: {
-        surfaceId: 'slate-61',
-        caseId: 'shell-hard',
-        routing: { mode: 'serial' },
-        pedalCount: 4,
-        functions: [],
-        level: 'journeyman',
-      },
-    });
+    const res = await player.post('/api/bookings').send({ configuration: countedBoard(4) });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     bookingId = res.body.id;
   }, 60_000);

@@ -2,6 +2,7 @@ import { demoPriceBook, jargonIn, type PriceBook } from '@loomwright/shared';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from './support/test-app';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 describe('price book versions', () => {
   let t: TestApp;
@@ -21,14 +22,7 @@ describe('price book versions', () => {
     ...demoPriceBook,
     levels: demoPriceBook.levels.map((l) => (l.code === 'master' ? { ...l, rateLow: '110.00', rateHigh: '160.00' } : l)),
   };
-  const config = {
-    surfaceId: 'slate-61',
-    caseId: 'shell-hard',
-    routing: { mode: 'serial' },
-    pedalCount: 9,
-    functions: [],
-    level: 'master',
-  };
+  const config = countedBoard(9, 'master');
 
   it('lets only the owner publish; builders read; players and strangers do not', async () => {
     await t.http().get('/api/price-book').expect(401);

@@ -10,6 +10,7 @@ import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fak
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
 import { eventually, payOnHostedPage } from './support/payment-harness';
 import { createEmptyDatabase } from './support/test-app';
+import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
 const WEBHOOK_SECRET = 'whsec_two_replicas_0123456789';
 // 10 a minute per address and e-mail is the API's default (common practice, no published source);
@@ -17,14 +18,7 @@ const WEBHOOK_SECRET = 'whsec_two_replicas_0123456789';
 const THROTTLE_LIMIT = 10;
 // Stripe testing documentation, "Test card numbers": 4242 4242 4242 4242 succeeds.
 const CARD = '4242424242424242';
-const board = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' },
-  pedalCount: 5,
-  functions: [],
-  level: 'journeyman',
-};
+const board = countedBoard(5);
 
 /**
  * Two built API processes (as `npm run replica` runs them) on ONE database, one bucket, one payment

@@ -1,16 +1,9 @@
 import { expect, test } from './csp';
 import { encodeConfiguration } from '@loomwright/shared';
-import { signInHere } from './people';
+import { countedBoard, signInHere } from './people';
 
 // A plain serial board from the demo price book.
-const configuration = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' as const },
-  pedalCount: 7,
-  functions: [],
-  level: 'journeyman' as const,
-};
+const configuration = countedBoard(7);
 
 /**
  * A deposit paid by bank debit, which settles days later. Test numbers from the provider's ACH

@@ -1,16 +1,9 @@
 import { expect, test } from './csp';
 import { encodeConfiguration } from '@loomwright/shared';
-import { signInHere } from './people';
+import { countedBoard, signInHere } from './people';
 
 // A plain serial board from the demo price book.
-const configuration = {
-  surfaceId: 'slate-61',
-  caseId: 'shell-hard',
-  routing: { mode: 'serial' as const },
-  pedalCount: 6,
-  functions: [],
-  level: 'journeyman' as const,
-};
+const configuration = countedBoard(6);
 
 test('a player requests a build, pays the deposit on the hosted page and sees it paid in My builds', async ({ page }) => {
   await page.goto(`/request?c=${encodeConfiguration(configuration)}`);

@@ -2,7 +2,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
 import { expect, test } from './csp';
-import { signInHere, signUpHere } from './people';
+import { countedBoard, signInHere, signUpHere } from './people';
 
 /**
  * The main journey, end to end, as a player and the shop live it: configure a board, sign up,
@@ -254,14 +254,7 @@ test('a declined card and an abandoned checkout leave the booking unpaid, said i
   test.setTimeout(180_000);
   const stamp = Date.now();
   const email = `arvo.${stamp}@mail.example`;
-  const configuration = {
-    surfaceId: 'slate-61',
-    caseId: 'shell-hard',
-    routing: { mode: 'serial' },
-    pedalCount: 5,
-    functions: [],
-    level: 'journeyman',
-  };
+  const configuration = countedBoard(5);
   await page.goto(`/request?c=${Buffer.from(JSON.stringify(configuration)).toString('base64url')}`);
   await signUpFromSignIn(page, `Arvo Lindqvist ${stamp % 10000}`, email);
   await page.getByRole('button', { name: 'Request build and pay deposit' }).click();

@@ -2,7 +2,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
 import { expect, test } from './csp';
-import { signInHere } from './people';
+import { countedBoard, signInHere } from './people';
 
 /**
  * Pages as a player and the shop meet them: every browser tab names its page and the shop (the
@@ -28,14 +28,7 @@ async function playerSignIn(page: Page, next: string) {
 
 /** A request of the player's own, made through the API as the Request page makes it, so My builds has a row. */
 async function requestABuild(page: Page) {
-  const configuration = {
-    surfaceId: 'slate-61',
-    caseId: 'shell-hard',
-    routing: { mode: 'serial' },
-    pedalCount: 7,
-    functions: [],
-    level: 'journeyman',
-  };
+  const configuration = countedBoard(7);
   const res = await page.request.post('/api/bookings', { data: { configuration, notes: 'Phone check' } });
   expect(res.status()).toBe(201);
 }

@@ -1,5 +1,8 @@
 import { expect, request as playwrightRequest, type APIRequestContext, type Page } from '@playwright/test';
 
+/** A board priced by its pedal count: the same fixture the API and engine tests use. */
+export { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
+
 /** The demo shop's sign-ins (ARCHITECTURE.md) and small steps several journeys share. */
 export const demoPassword = 'demo-pass-2026';
 

@@ -7,7 +7,7 @@ import type { PriceBook } from '../price-book/types';
 import { EstimateInputError } from './errors';
 import { depositFor, estimateRig } from './estimate-rig';
 import { minorUnitDigits, roundToMinorUnit } from './money';
-import { referenceBoard, expectedLaborRanges } from './reference-rigs.fixture';
+import { countedBoard, referenceBoard, expectedLaborRanges } from './reference-rigs.fixture';
 import { pedalKinds } from './schema';
 import type { EstimateResult, PedalInput, RigConfiguration } from './types';
 
@@ -129,14 +129,7 @@ describe('deposit rounding to the minor unit (ISO 4217 with the payment provider
   // A 33% deposit is 180.9225 before rounding (in yen, whose lines round first, 548 × 0.33 = 180.84).
   // BHD and KWD are counted in hundredths (the provider's three-decimal rule: the last digit is 0);
   // HUF in whole forints (the provider's special case), so its 1.25 plug line is 1 and the total 548.
-  const onePedal: RigConfiguration = {
-    surfaceId: 'slate-46',
-    caseId: 'shell-hard',
-    routing: { mode: 'serial' },
-    pedalCount: 1,
-    functions: [],
-    level: 'apprentice',
-  };
+  const onePedal = countedBoard(1, 'apprentice', 'slate-46');
   const bookIn = (currency: string): PriceBook => ({
     ...demoPriceBook,
     currency,

@@ -27,3 +27,11 @@ export const expectedLaborRanges: Array<{ mode: 'serial' | 'switcher'; level: Bu
   { mode: 'switcher', level: 'journeyman', low: 1600, high: 2100 },
   { mode: 'switcher', level: 'apprentice', low: 800, high: 1000 },
 ];
+
+/**
+ * A board priced by its pedal count alone (plain powered pedals, no list): by default the demo price
+ * book's slate-61 surface and hard case, in series, with no added functions.
+ */
+export function countedBoard(pedalCount: number, level: BuilderLevel = 'journeyman', surfaceId = 'slate-61'): RigConfiguration {
+  return { surfaceId, caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount, functions: [], level };
+}
