@@ -12,6 +12,7 @@ import { startObjectStore, type ObjectStore } from '../fakes/object-store/object
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
 import { createEmptyDatabase } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
+import { objectStoreEnv } from './support/fakes-env';
 
 const repoRoot = path.resolve(__dirname, '../..');
 const board = countedBoard(4);
@@ -33,15 +34,7 @@ function runScript(script: string, args: string[], env: Record<string, string>):
 }
 
 function storeEnv(databaseUrl: string, store: ObjectStore): Record<string, string> {
-  return {
-    DATABASE_URL: databaseUrl,
-    PHOTO_STORAGE: 's3',
-    S3_BUCKET: store.bucket,
-    S3_ENDPOINT: store.url,
-    S3_ACCESS_KEY_ID: store.accessKeyId,
-    S3_SECRET_ACCESS_KEY: store.secretAccessKey,
-    S3_FORCE_PATH_STYLE: 'true',
-  };
+  return { DATABASE_URL: databaseUrl, ...objectStoreEnv(store) };
 }
 
 /** Row counts of every table in the application's schema, read straight from PostgreSQL. */

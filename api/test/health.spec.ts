@@ -1,19 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createRelay } from './support/tcp-relay';
+import { createRelay, testDatabasePort, throughRelay } from './support/tcp-relay';
 import { createTestApp, type TestApp } from './support/test-app';
 
 describe('GET /api/health', () => {
   let t: TestApp;
-  const relay = createRelay(Number(new URL(process.env.TEST_DATABASE_ADMIN_URL!).port));
+  const relay = createRelay(testDatabasePort());
 
   beforeAll(async () => {
     const relayPort = await relay.listen();
     t = await createTestApp({
-      databaseUrlOverride: (url) => {
-        const u = new URL(url);
-        u.port = String(relayPort);
-        return u.toString();
-      },
+      databaseUrlOverride: throughRelay(relayPort),
     });
   });
   afterAll(async () => {

@@ -5,6 +5,7 @@ import { startApiProcess, Visitor, type ApiProcess } from './support/api-process
 import { eventually, payOnHostedPage } from './support/payment-harness';
 import { createEmptyDatabase } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
+import { mailFakeEnv, paymentFakeEnv } from './support/fakes-env';
 
 const JWT_SECRET = 'log-hygiene-jwt-secret-7f3a9c21d4';
 const STRIPE_SECRET_KEY = 'sk_test_log_hygiene_5e8b1d0c9a';
@@ -50,14 +51,8 @@ describe('log hygiene over a whole journey', () => {
       RUN_WORKERS: 'true',
       LOG_LEVEL: 'trace',
       JWT_SECRET,
-      STRIPE_SECRET_KEY,
-      STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
-      STRIPE_API_HOST: '127.0.0.1',
-      STRIPE_API_PORT: String(payments.port),
-      STRIPE_API_PROTOCOL: 'http',
-      SMTP_HOST: '127.0.0.1',
-      SMTP_PORT: String(mail.smtpPort),
-      MAIL_RETRY_DELAY_SECONDS: '1',
+      ...paymentFakeEnv(payments, { secretKey: STRIPE_SECRET_KEY, webhookSecret: WEBHOOK_SECRET }),
+      ...mailFakeEnv(mail),
     });
     payments.webhooks.url = `${api.url}/api/payments/webhook`;
   }, 90_000);

@@ -1,11 +1,8 @@
-import { mkdtemp, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import parsePrometheusTextFormat, { type Family } from 'parse-prometheus-text-format';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startObjectStore, type ObjectStore } from '../fakes/object-store/object-store';
-import { createRelay } from './support/tcp-relay';
+import { createRelay, testDatabasePort, throughRelay } from './support/tcp-relay';
 import { createTestApp, type TestApp } from './support/test-app';
+import { objectStoreEnv, startScratchObjectStore } from './support/fakes-env';
 
 const METRICS_TOKEN = 'scrape-token-0123456789abcdef';
 
@@ -16,35 +13,24 @@ const METRICS_TOKEN = 'scrape-token-0123456789abcdef';
  */
 describe('metrics and health probes', () => {
   let t: TestApp;
-  let store: ObjectStore;
-  let dir: string;
-  const relay = createRelay(Number(new URL(process.env.TEST_DATABASE_ADMIN_URL!).port));
+  let store: Awaited<ReturnType<typeof startScratchObjectStore>>;
+  const relay = createRelay(testDatabasePort());
 
   beforeAll(async () => {
-    dir = await mkdtemp(path.join(tmpdir(), 'lw-s3-'));
-    store = await startObjectStore({ port: 0, directory: dir, bucket: 'lw-health' });
+    store = await startScratchObjectStore('lw-health');
     const relayPort = await relay.listen();
     t = await createTestApp({
-      databaseUrlOverride: (url) => {
-        const u = new URL(url);
-        u.port = String(relayPort);
-        return u.toString();
-      },
+      databaseUrlOverride: throughRelay(relayPort),
       env: {
         METRICS_TOKEN,
-        PHOTO_STORAGE: 's3',
-        S3_BUCKET: store.bucket,
-        S3_ENDPOINT: store.url,
-        S3_ACCESS_KEY_ID: store.accessKeyId,
-        S3_SECRET_ACCESS_KEY: store.secretAccessKey,
+        ...objectStoreEnv(store),
       },
     });
   }, 180_000);
   afterAll(async () => {
     await t?.close();
     await relay.cut();
-    await store?.close().catch(() => undefined);
-    await rm(dir, { recursive: true, force: true });
+    await store?.dispose();
   });
 
   let lastText = '';

@@ -1,13 +1,10 @@
-import { mkdtemp, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import { GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startObjectStore, type ObjectStore } from '../fakes/object-store/object-store';
 import { createTestApp, type TestApp } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
+import { objectStoreEnv, startScratchObjectStore } from './support/fakes-env';
 
 const board = countedBoard(4);
 
@@ -16,24 +13,13 @@ const board = countedBoard(4);
  * local s3rver that `npm start` runs too) and come back only through the API's authorised routes.
  */
 describe('photos in S3-compatible object storage', () => {
-  let store: ObjectStore;
-  let dir: string;
+  let store: Awaited<ReturnType<typeof startScratchObjectStore>>;
   let t: TestApp;
   let s3: S3Client;
 
   beforeAll(async () => {
-    dir = await mkdtemp(path.join(tmpdir(), 'lw-s3-'));
-    store = await startObjectStore({ port: 0, directory: dir, bucket: 'lw-photos-test' });
-    t = await createTestApp({
-      env: {
-        PHOTO_STORAGE: 's3',
-        S3_BUCKET: store.bucket,
-        S3_ENDPOINT: store.url,
-        S3_ACCESS_KEY_ID: store.accessKeyId,
-        S3_SECRET_ACCESS_KEY: store.secretAccessKey,
-        S3_FORCE_PATH_STYLE: 'true',
-      },
-    });
+    store = await startScratchObjectStore('lw-photos-test');
+    t = await createTestApp({ env: objectStoreEnv(store) });
     s3 = new S3Client({
       region: 'us-east-1',
       endpoint: store.url,
@@ -43,8 +29,7 @@ describe('photos in S3-compatible object storage', () => {
   }, 60_000);
   afterAll(async () => {
     await t?.close();
-    await store?.close();
-    await rm(dir, { recursive: true, force: true });
+    await store?.dispose();
   });
 
   const signIn = async (email: string) => {

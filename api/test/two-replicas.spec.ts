@@ -1,16 +1,13 @@
-import { mkdtemp, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import { Client } from 'pg';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startMailFake, type MailFake } from '../fakes/mail/mail-fake';
-import { startObjectStore, type ObjectStore } from '../fakes/object-store/object-store';
 import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fake';
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
 import { eventually, payOnHostedPage } from './support/payment-harness';
 import { createEmptyDatabase } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
+import { mailFakeEnv, objectStoreEnv, paymentFakeEnv, startScratchObjectStore } from './support/fakes-env';
 
 const WEBHOOK_SECRET = 'whsec_two_replicas_0123456789';
 // 10 a minute per address and e-mail is the API's default (common practice, no published source);
@@ -31,36 +28,23 @@ describe('two API replicas on one database', () => {
   let b: ApiProcess;
   let payments: PaymentFake;
   let mail: MailFake;
-  let store: ObjectStore;
-  let storeDir: string;
+  let store: Awaited<ReturnType<typeof startScratchObjectStore>>;
   let db: Client;
   let drop: () => Promise<void>;
 
   beforeAll(async () => {
     const database = await createEmptyDatabase('lw_replicas');
     drop = database.drop;
-    storeDir = await mkdtemp(path.join(tmpdir(), 'lw-replicas-s3-'));
-    store = await startObjectStore({ port: 0, directory: storeDir, bucket: 'lw-replicas' });
+    store = await startScratchObjectStore('lw-replicas');
     payments = await startPaymentFake({ port: 0, webhookSecret: WEBHOOK_SECRET, retryDelaysMs: [100, 200, 400] });
     mail = await startMailFake({ smtpPort: 0, httpPort: 0 });
     const shared = {
       DATABASE_URL: database.url,
       RUN_WORKERS: 'true',
       JWT_SECRET: 'two-replicas-secret-0123456789abcdef',
-      STRIPE_SECRET_KEY: 'sk_test_two_replicas',
-      STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
-      STRIPE_API_HOST: '127.0.0.1',
-      STRIPE_API_PORT: String(payments.port),
-      STRIPE_API_PROTOCOL: 'http',
-      SMTP_HOST: '127.0.0.1',
-      SMTP_PORT: String(mail.smtpPort),
-      MAIL_RETRY_DELAY_SECONDS: '1',
-      PHOTO_STORAGE: 's3',
-      S3_BUCKET: store.bucket,
-      S3_ENDPOINT: store.url,
-      S3_ACCESS_KEY_ID: store.accessKeyId,
-      S3_SECRET_ACCESS_KEY: store.secretAccessKey,
-      S3_FORCE_PATH_STYLE: 'true',
+      ...paymentFakeEnv(payments, { secretKey: 'sk_test_two_replicas', webhookSecret: WEBHOOK_SECRET }),
+      ...mailFakeEnv(mail),
+      ...objectStoreEnv(store),
       AUTH_THROTTLE_LIMIT: String(THROTTLE_LIMIT),
       AUTH_THROTTLE_SECONDS: '120',
       LOG_LEVEL: 'warn',
@@ -77,8 +61,7 @@ describe('two API replicas on one database', () => {
     await Promise.all([a?.stop(), b?.stop()]);
     await payments?.close();
     await mail?.stop();
-    await store?.close();
-    await rm(storeDir, { recursive: true, force: true });
+    await store?.dispose();
     await drop?.();
   });
 

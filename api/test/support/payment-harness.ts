@@ -5,6 +5,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { startPaymentFake, type PaymentFake } from '../../fakes/payment/payment-fake';
 import { createTestApp, type TestApp } from './test-app';
+import { paymentFakeEnv } from './fakes-env';
 
 export const WEBHOOK_SECRET = 'whsec_loomwright_test_0123456789';
 
@@ -33,11 +34,7 @@ export async function startPaymentHarness(): Promise<PaymentHarness> {
   const uploadsDir = await mkdtemp(path.join(tmpdir(), 'lw-uploads-'));
   const t = await createTestApp({
     env: {
-      STRIPE_SECRET_KEY: 'sk_test_loomwright_suite',
-      STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET,
-      STRIPE_API_HOST: '127.0.0.1',
-      STRIPE_API_PORT: String(fake.port),
-      STRIPE_API_PROTOCOL: 'http',
+      ...paymentFakeEnv(fake, { secretKey: 'sk_test_loomwright_suite', webhookSecret: WEBHOOK_SECRET }),
       PUBLIC_URL: 'http://storefront.test',
       UPLOADS_DIR: uploadsDir,
     },
