@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BenchSuggestResponse } from '@loomwright/shared';
+import type { BenchSuggestion, BenchSuggestResponse } from '@loomwright/shared';
+import type { Agent } from './support/bench-fixtures';
 import { eventually, payOnHostedPage, startPaymentHarness, type PaymentHarness } from './support/payment-harness';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
@@ -28,13 +29,38 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
     return { player, booking };
   }
 
+  /** Reads the bench's suggestions for the booking as `agent`, checks the one `pick` chooses, and accepts it. */
+  async function acceptSuggested(
+    agent: Agent,
+    bookingId: string,
+    pick: (s: BenchSuggestion) => boolean,
+    check: (chosen: BenchSuggestion) => void = (chosen) => expect(chosen).toBeDefined(),
+  ) {
+    const suggest = (await agent.get(`/api/bench/suggest?bookingId=${bookingId}`).expect(200)).body as BenchSuggestResponse;
+    const chosen = suggest.suggestions.find(pick)!;
+    check(chosen);
+    await agent.post(`/api/bookings/${bookingId}/accept`).send({ builderId: chosen.builder.id, benchDate: chosen.benchDate }).expect(200);
+    return chosen;
+  }
+  const depositOf = (bookingId: string) =>
+    h.t.db.selectFrom('payments').selectAll().where('booking_id', '=', bookingId).where('kind', '=', 'deposit').executeTakeFirstOrThrow();
+  const mailOf = (bookingId: string, template: string) =>
+    h.t.db
+      .selectFrom('mail_outbox')
+      .selectAll()
+      .where('booking_id', '=', bookingId)
+      .where('template', '=', template)
+      .executeTakeFirstOrThrow();
+  const allocationsOf = (bookingId: string) =>
+    h.t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', bookingId).execute();
+  /** The refunds the payment fake holds against the deposit's payment: one means refunded once. */
+  const refundsAtProvider = (paymentIntent: string | null) =>
+    [...h.fake.store.refunds.values()].filter((r) => r.payment_intent === paymentIntent);
+
   it('a builder accepts at the suggested date; the player sees the firm quote and the bench date', async () => {
     const { player, booking } = await paidRequest();
     const builder = await h.signIn('builder@shop.example');
-    const suggest = (await builder.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse;
-    const mine = suggest.suggestions.find((s) => s.builder.isMe)!;
-    expect(mine).toBeDefined();
-    await builder.post(`/api/bookings/${booking.id}/accept`).send({ builderId: mine.builder.id, benchDate: mine.benchDate }).expect(200);
+    const mine = await acceptSuggested(builder, booking.id, (s) => s.builder.isMe);
     const detail = (await player.get(`/api/bookings/${booking.id}`).expect(200)).body;
     expect(detail).toMatchObject({
       state: 'scheduled',
@@ -55,20 +81,10 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
       .send({ reason: 'We cannot source a case for this surface.' })
       .expect(200);
     expect(res.body.state).toBe('declined');
-    const deposit = await h.t.db
-      .selectFrom('payments')
-      .selectAll()
-      .where('booking_id', '=', booking.id)
-      .where('kind', '=', 'deposit')
-      .executeTakeFirstOrThrow();
+    const deposit = await depositOf(booking.id);
     expect(deposit.refund_id).toMatch(/^re_/);
-    expect([...h.fake.store.refunds.values()].filter((r) => r.payment_intent === deposit.payment_intent_id)).toHaveLength(1);
-    const mail = await h.t.db
-      .selectFrom('mail_outbox')
-      .selectAll()
-      .where('booking_id', '=', booking.id)
-      .where('template', '=', 'booking-declined')
-      .executeTakeFirstOrThrow();
+    expect(refundsAtProvider(deposit.payment_intent_id)).toHaveLength(1);
+    const mail = await mailOf(booking.id, 'booking-declined');
     expect(mail.data).toMatchObject({ depositRefunded: true, refundAmount: booking.deposit });
     expect((await owner.post(`/api/bookings/${booking.id}/decline`).send({ reason: 'twice over' })).status).toBe(409);
   });
@@ -76,10 +92,7 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
   it('the owner cancels a scheduled build the shop cannot do: bench time released and the deposit refunded through the provider, once', async () => {
     const { player, booking } = await paidRequest();
     const builder = await h.signIn('builder@shop.example');
-    const mine = (
-      (await builder.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse
-    ).suggestions.find((s) => s.builder.isMe)!;
-    await builder.post(`/api/bookings/${booking.id}/accept`).send({ builderId: mine.builder.id, benchDate: mine.benchDate }).expect(200);
+    await acceptSuggested(builder, booking.id, (s) => s.builder.isMe);
     const owner = await h.signIn('owner@shop.example');
     const preview = (await owner.get(`/api/bookings/${booking.id}/cancellation`).expect(200)).body;
     // The master's rate puts the firm total above the apprentice range the player was quoted and they
@@ -94,24 +107,14 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
       .send({ reason: 'Our only master builder is away for a month.', cause: 'shop' })
       .expect(200);
     expect(res.body.state).toBe('cancelled');
-    expect(await h.t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute()).toHaveLength(0);
-    const deposit = await h.t.db
-      .selectFrom('payments')
-      .selectAll()
-      .where('booking_id', '=', booking.id)
-      .where('kind', '=', 'deposit')
-      .executeTakeFirstOrThrow();
+    expect(await allocationsOf(booking.id)).toHaveLength(0);
+    const deposit = await depositOf(booking.id);
     expect(deposit.refund_id).toMatch(/^re_/);
     expect((await owner.post(`/api/bookings/${booking.id}/cancel-scheduled`).send({ reason: 'twice over', cause: 'shop' })).status).toBe(
       409,
     );
-    expect([...h.fake.store.refunds.values()].filter((r) => r.payment_intent === deposit.payment_intent_id)).toHaveLength(1);
-    const mail = await h.t.db
-      .selectFrom('mail_outbox')
-      .selectAll()
-      .where('booking_id', '=', booking.id)
-      .where('template', '=', 'booking-cancelled')
-      .executeTakeFirstOrThrow();
+    expect(refundsAtProvider(deposit.payment_intent_id)).toHaveLength(1);
+    const mail = await mailOf(booking.id, 'booking-cancelled');
     expect(mail.data).toMatchObject({ refundAmount: booking.deposit, keptAmount: null, calendarSequence: 1 });
     expect((await player.get(`/api/bookings/${booking.id}`).expect(200)).body.state).toBe('cancelled');
   });
@@ -120,20 +123,17 @@ describe('from a paid request to the bench, and the owner’s refunding decline,
     const { player, booking } = await paidRequest();
     const owner = await h.signIn('owner@shop.example');
     // Hand the apprentice-level request to the master ($125/h, above the apprentice range the player was quoted).
-    const suggest = (await owner.get(`/api/bench/suggest?bookingId=${booking.id}`).expect(200)).body as BenchSuggestResponse;
-    const master = suggest.suggestions.find((s) => s.builder.level === 'master')!;
-    expect(master.aboveQuotedRange).toBe(true);
-    await owner.post(`/api/bookings/${booking.id}/accept`).send({ builderId: master.builder.id, benchDate: master.benchDate }).expect(200);
+    await acceptSuggested(
+      owner,
+      booking.id,
+      (s) => s.builder.level === 'master',
+      (chosen) => expect(chosen.aboveQuotedRange).toBe(true),
+    );
     expect((await player.get(`/api/bookings/${booking.id}`).expect(200)).body.priceConsent).toBe('pending');
     const res = await player.post(`/api/bookings/${booking.id}/price-consent`).send({ accept: false }).expect(200);
     expect(res.body.state).toBe('cancelled');
-    const deposit = await h.t.db
-      .selectFrom('payments')
-      .selectAll()
-      .where('booking_id', '=', booking.id)
-      .where('kind', '=', 'deposit')
-      .executeTakeFirstOrThrow();
+    const deposit = await depositOf(booking.id);
     expect(deposit.refund_id).toMatch(/^re_/);
-    expect(await h.t.db.selectFrom('bench_allocations').select('id').where('booking_id', '=', booking.id).execute()).toHaveLength(0);
+    expect(await allocationsOf(booking.id)).toHaveLength(0);
   });
 });

@@ -1,4 +1,4 @@
-import { demoPriceBook, estimateRig, type RigConfiguration } from '@loomwright/shared';
+import { demoPriceBook, estimateRig, type EstimateResult, type RigConfiguration } from '@loomwright/shared';
 // pdf-parse 1.x: a general-purpose PDF text extractor (over Mozilla's pdf.js). The inner module
 // is imported because the package's index runs a self-test when it has no parent module.
 import pdfParse from 'pdf-parse/lib/pdf-parse.js';
@@ -6,6 +6,7 @@ import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { referenceBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 import { createTestApp, type TestApp } from './support/test-app';
+import { signIn } from './support/bench-fixtures';
 
 const binary = (res: supertest.Response, cb: (err: Error | null, body: Buffer) => void) => {
   const stream = res as unknown as NodeJS.ReadableStream;
@@ -28,11 +29,21 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     },
   };
 
-  const signedIn = async (email: string) => {
-    const agent = supertest.agent(t.app.getHttpServer());
-    await agent.post('/api/auth/sign-in').send({ email, password: 'demo-pass-2026' }).expect(200);
-    return agent;
-  };
+  const signedIn = (email: string) => signIn(t.app, email);
+
+  /** A quote row of the booking for this board and estimate, good for 30 days. */
+  const quoteOn = (estimate: EstimateResult) => ({
+    booking_id: bookingId,
+    price_book_version: 1,
+    currency: 'USD',
+    configuration: JSON.stringify(config),
+    estimate: JSON.stringify(estimate),
+    labor_hours: estimate.laborHours,
+    total_low: estimate.totalLow,
+    total_high: estimate.totalHigh,
+    deposit: estimate.deposit,
+    expires_at: new Date(Date.now() + 30 * 86_400_000),
+  });
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -60,19 +71,7 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     const estimate = estimateRig(config, demoPriceBook, { version: 1 });
     await t.db
       .insertInto('quotes')
-      .values({
-        booking_id: bookingId,
-        kind: 'estimate',
-        price_book_version: 1,
-        currency: 'USD',
-        configuration: JSON.stringify(config),
-        estimate: JSON.stringify(estimate),
-        labor_hours: estimate.laborHours,
-        total_low: estimate.totalLow,
-        total_high: estimate.totalHigh,
-        deposit: estimate.deposit,
-        expires_at: new Date(Date.now() + 30 * 86_400_000),
-      })
+      .values({ ...quoteOn(estimate), kind: 'estimate' })
       .execute();
   });
   afterAll(async () => {
@@ -137,20 +136,11 @@ describe('GET /api/bookings/:id/build-sheet', () => {
     await t.db
       .insertInto('quotes')
       .values({
-        booking_id: bookingId,
+        ...quoteOn(estimate),
         kind: 'firm',
-        price_book_version: 1,
-        currency: 'USD',
-        configuration: JSON.stringify(config),
-        estimate: JSON.stringify(estimate),
-        labor_hours: estimate.laborHours,
-        total_low: estimate.totalLow,
-        total_high: estimate.totalHigh,
-        deposit: estimate.deposit,
         hourly_rate: '125.00',
         labor_total: (Number(laborCents) / 100).toFixed(2),
         total: (Number(totalCents) / 100).toFixed(2),
-        expires_at: new Date(Date.now() + 30 * 86_400_000),
       })
       .execute();
     await t.db

@@ -1,9 +1,9 @@
-import { parse } from 'csv-parse/sync';
 import Decimal from 'decimal.js';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { exportColumns } from '@loomwright/shared';
-import { builderId, createBooking, signIn } from './support/bench-fixtures';
+import { builderId, createBooking, insertFirmQuote, insertPaidBalance, setPaidAt, signIn } from './support/bench-fixtures';
+import { fetchCsv, sumOf as total } from './support/csv';
 import { createTestApp, type TestApp } from './support/test-app';
 import { isoInTimeZone } from '../src/exports/csv-cells';
 
@@ -17,24 +17,7 @@ import { isoInTimeZone } from '../src/exports/csv-cells';
 let t: TestApp;
 let owner: Awaited<ReturnType<typeof signIn>>;
 
-type Row = Record<string, string>;
-
-async function csv(path: string): Promise<{ rows: Row[]; raw: Buffer; headers: Record<string, string> }> {
-  const res = await owner
-    .get(path)
-    .buffer(true)
-    .parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
-  expect(res.status, String(res.body)).toBe(200);
-  const raw = res.body as Buffer;
-  const rows = parse(raw, { bom: true, columns: true, skip_empty_lines: true }) as Row[];
-  return { rows, raw, headers: res.headers as Record<string, string> };
-}
-
-const total = (values: string[]) => values.reduce((s, v) => s.plus(v), new Decimal(0)).toFixed(2);
+const csv = (path: string) => fetchCsv(owner, path);
 
 let playerBooking: { id: string; reference: string };
 let secondBooking: { id: string; reference: string };
@@ -58,49 +41,12 @@ beforeAll(async () => {
     .execute();
   // Deposits: the first paid 2026-11-10 10:00 in Chicago; the second at 05:30 UTC on 15 Nov, which is
   // still 14 Nov (23:30) on the shop's clock.
-  await t.db
-    .updateTable('payments')
-    .set({ paid_at: new Date('2026-11-10T16:00:00Z') })
-    .where('booking_id', '=', playerBooking.id)
-    .execute();
-  await t.db
-    .updateTable('payments')
-    .set({ paid_at: new Date('2026-11-15T05:30:00Z') })
-    .where('booking_id', '=', secondBooking.id)
-    .execute();
+  await setPaidAt(t.db, playerBooking.id, new Date('2026-11-10T16:00:00Z'));
+  await setPaidAt(t.db, secondBooking.id, new Date('2026-11-15T05:30:00Z'));
   // A firm quote and a balance for the first, and the second's deposit refunded on 2 Dec.
-  await t.db
-    .insertInto('quotes')
-    .values({
-      booking_id: playerBooking.id,
-      kind: 'firm',
-      price_book_version: 1,
-      currency: 'USD',
-      configuration: sql`(select configuration from bookings where id = ${playerBooking.id})`,
-      estimate: sql`(select estimate from quotes where booking_id = ${playerBooking.id} limit 1)`,
-      labor_hours: '6.50',
-      total_low: '950.00',
-      total_high: '950.00',
-      deposit: '150.00',
-      hourly_rate: '100.00',
-      labor_total: '650.00',
-      total: '950.00',
-      expires_at: new Date('2027-01-01T00:00:00Z'),
-    })
-    .execute();
-  await t.db
-    .insertInto('payments')
-    .values({
-      booking_id: playerBooking.id,
-      kind: 'balance',
-      amount: '600.00',
-      amount_minor: 60000,
-      currency: 'USD',
-      status: 'paid',
-      paid_at: new Date('2026-12-03T18:45:10Z'),
-      method: 'cash',
-    })
-    .execute();
+  // 6.5 h × $100.00 = $650.00 labor (hand-worked).
+  await insertFirmQuote(t.db, playerBooking.id, { laborHours: '6.50', hourlyRate: '100.00', total: '950.00', deposit: '150.00' });
+  await insertPaidBalance(t.db, playerBooking.id, '600.00', new Date('2026-12-03T18:45:10Z'), 'cash');
   await t.db
     .updateTable('payments')
     .set({ status: 'refunded', refunded_at: new Date('2026-12-02T20:00:00Z'), refund_id: 're_test_1' })

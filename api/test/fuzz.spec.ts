@@ -3,7 +3,7 @@ import { apiErrorBodySchema } from '@loomwright/shared';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { jargonIn } from '@loomwright/shared';
-import { builderId, DEMO_PASSWORD } from './support/bench-fixtures';
+import { builderId, DEMO_PASSWORD, signIn } from './support/bench-fixtures';
 import { createTestApp, type TestApp } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 
@@ -272,8 +272,7 @@ describe(`fuzzing every operation of the OpenAPI document (seed ${SEED}, ${RUNS}
     operations = operationsOf(document);
     documented = documentedCodesOf(document);
     // A booking made the way a player makes one, so its quote matches its own price-book version.
-    const playerAgent = request.agent(t.app.getHttpServer());
-    await playerAgent.post('/api/auth/sign-in').send({ email: 'player@mail.example', password: DEMO_PASSWORD }).expect(200);
+    const playerAgent = await signIn(t.app, 'player@mail.example');
     const booking = (
       await playerAgent
         .post('/api/bookings')

@@ -6,6 +6,7 @@ import { MailDeliveryService, OUTCOME_UNKNOWN } from '../src/mail/mail-delivery.
 import { MailService } from '../src/mail/mail.service';
 import type { MailTemplateData, OutgoingMail } from '../src/mail/mail.types';
 import { clearTables, createTestApp, type TestApp } from './support/test-app';
+import { signIn as signInTo } from './support/bench-fixtures';
 
 const scheduledData: MailTemplateData['booking-scheduled'] = {
   name: 'Rosa Delgado-Finch',
@@ -185,11 +186,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
   });
 
   describe('the mail log API', () => {
-    const signIn = async (email: string) => {
-      const agent = request.agent(t.app.getHttpServer());
-      await agent.post('/api/auth/sign-in').send({ email, password: 'demo-pass-2026' }).expect(200);
-      return agent;
-    };
+    const signIn = (email: string) => signInTo(t.app, email);
 
     it('pages newest first, filters by state and searches by recipient: every message for the owner, only theirs for a builder', async () => {
       for (let i = 0; i < 7; i += 1) {

@@ -1,10 +1,10 @@
 import { GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import sharp from 'sharp';
-import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 import { objectStoreEnv, startScratchObjectStore } from './support/fakes-env';
+import { signIn as signInTo } from './support/bench-fixtures';
 
 const board = countedBoard(4);
 
@@ -32,11 +32,7 @@ describe('photos in S3-compatible object storage', () => {
     await store?.dispose();
   });
 
-  const signIn = async (email: string) => {
-    const agent = request.agent(t.app.getHttpServer());
-    await agent.post('/api/auth/sign-in').send({ email, password: 'demo-pass-2026' }).expect(200);
-    return agent;
-  };
+  const signIn = (email: string) => signInTo(t.app, email);
 
   it("stores the photo and its thumbnail in the bucket and serves them to the booking's people only", async () => {
     const player = await signIn('player@mail.example');

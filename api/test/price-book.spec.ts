@@ -1,16 +1,12 @@
 import { demoPriceBook, jargonIn, type PriceBook } from '@loomwright/shared';
-import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
+import { signIn } from './support/bench-fixtures';
 
 describe('price book versions', () => {
   let t: TestApp;
-  const signedIn = async (email: string) => {
-    const agent = supertest.agent(t.app.getHttpServer());
-    await agent.post('/api/auth/sign-in').send({ email, password: 'demo-pass-2026' }).expect(200);
-    return agent;
-  };
+  const signedIn = (email: string) => signIn(t.app, email);
   beforeAll(async () => {
     t = await createTestApp();
   });

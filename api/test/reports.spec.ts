@@ -1,10 +1,10 @@
-import { parse } from 'csv-parse/sync';
 import { getISOWeek, getISOWeekYear } from 'date-fns';
 import Decimal from 'decimal.js';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { HoursReport, OutstandingReport, RevenueReport, UtilisationReport } from '@loomwright/shared';
-import { builderId, createBooking, signIn } from './support/bench-fixtures';
+import { builderId, createBooking, insertFirmQuote, insertPaidBalance, setPaidAt, signIn } from './support/bench-fixtures';
+import { fetchCsv, sumOf as total } from './support/csv';
 import { createTestApp, type TestApp } from './support/test-app';
 import { isoWeekLabel } from '../src/reports/iso-week';
 
@@ -14,49 +14,16 @@ import { isoWeekLabel } from '../src/reports/iso-week';
  */
 let t: TestApp;
 let owner: Awaited<ReturnType<typeof signIn>>;
-type Row = Record<string, string>;
-
-async function csv(path: string): Promise<Row[]> {
-  const res = await owner
-    .get(path)
-    .buffer(true)
-    .parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
-  expect(res.status).toBe(200);
-  return parse(res.body as Buffer, { bom: true, columns: true }) as Row[];
-}
-
-const total = (values: string[]) => values.reduce((s, v) => s.plus(v), new Decimal(0)).toFixed(2);
+const csv = async (path: string) => (await fetchCsv(owner, path)).rows;
 let a: { id: string; reference: string };
 let b: { id: string; reference: string };
 let c: { id: string; reference: string };
 let master: string;
 let junior: string;
 
-async function firmQuote(bookingId: string, total: string, hours: string) {
-  await t.db
-    .insertInto('quotes')
-    .values({
-      booking_id: bookingId,
-      kind: 'firm',
-      price_book_version: 1,
-      currency: 'USD',
-      configuration: sql`(select configuration from bookings where id = ${bookingId})`,
-      estimate: sql`(select estimate from quotes where booking_id = ${bookingId} limit 1)`,
-      labor_hours: hours,
-      total_low: total,
-      total_high: total,
-      deposit: '150.00',
-      hourly_rate: '100.00',
-      labor_total: new Decimal(hours).times(100).toFixed(2),
-      total,
-      expires_at: new Date('2027-01-01T00:00:00Z'),
-    })
-    .execute();
-}
+/** A firm quote at the $100.00/h the reports' hours are worked at, with a $150.00 deposit. */
+const firmQuote = (bookingId: string, total: string, laborHours: string) =>
+  insertFirmQuote(t.db, bookingId, { laborHours, hourlyRate: '100.00', total, deposit: '150.00' });
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -77,23 +44,8 @@ beforeAll(async () => {
     .where('id', '=', a.id)
     .execute();
   await firmQuote(a.id, '1000.00', '8.00');
-  await t.db
-    .updateTable('payments')
-    .set({ paid_at: new Date('2026-11-03T17:00:00Z') })
-    .where('booking_id', '=', a.id)
-    .execute();
-  await t.db
-    .insertInto('payments')
-    .values({
-      booking_id: a.id,
-      kind: 'balance',
-      amount: '300.00',
-      amount_minor: 30000,
-      currency: 'USD',
-      status: 'paid',
-      paid_at: new Date('2026-12-01T18:00:00Z'),
-    })
-    .execute();
+  await setPaidAt(t.db, a.id, new Date('2026-11-03T17:00:00Z'));
+  await insertPaidBalance(t.db, a.id, '300.00', new Date('2026-12-01T18:00:00Z'));
   // b: with the junior at a firm 500.00; deposit paid 30 Nov 23:30 Chicago (1 Dec 05:30 UTC): November on the shop's books.
   await t.db
     .updateTable('bookings')
@@ -101,11 +53,7 @@ beforeAll(async () => {
     .where('id', '=', b.id)
     .execute();
   await firmQuote(b.id, '500.00', '4.00');
-  await t.db
-    .updateTable('payments')
-    .set({ paid_at: new Date('2026-12-01T05:30:00Z') })
-    .where('booking_id', '=', b.id)
-    .execute();
+  await setPaidAt(t.db, b.id, new Date('2026-12-01T05:30:00Z'));
   // A refund in December of an earlier, cancelled booking's deposit.
   const gone = await createBooking(t.db, { laborHours: '2.00', deposit: '60.00' });
   await t.db

@@ -1,3 +1,4 @@
+import Decimal from 'decimal.js';
 import { sql } from 'kysely';
 import request from 'supertest';
 import type { INestApplication } from '@nestjs/common';
@@ -175,4 +176,62 @@ export function quietMondayWeeksAhead(weeksAhead: number): string {
     if (publicHolidaysBetween('US', addDays(monday, -7), addDays(monday, 6)).size === 0) return monday;
     d.setUTCDate(d.getUTCDate() + 7);
   }
+}
+
+/**
+ * A firm quote beside a booking's estimate quote (its configuration and estimate copied), at a firm
+ * hourly rate; the labor total is hours × rate.
+ */
+export async function insertFirmQuote(
+  db: Database,
+  bookingId: string,
+  firm: { laborHours: string; hourlyRate: string; total: string; deposit: string },
+) {
+  await db
+    .insertInto('quotes')
+    .values({
+      booking_id: bookingId,
+      kind: 'firm',
+      price_book_version: 1,
+      currency: 'USD',
+      configuration: sql`(select configuration from bookings where id = ${bookingId})`,
+      estimate: sql`(select estimate from quotes where booking_id = ${bookingId} limit 1)`,
+      labor_hours: firm.laborHours,
+      total_low: firm.total,
+      total_high: firm.total,
+      deposit: firm.deposit,
+      hourly_rate: firm.hourlyRate,
+      labor_total: new Decimal(firm.laborHours).times(firm.hourlyRate).toFixed(2),
+      total: firm.total,
+      expires_at: new Date('2027-01-01T00:00:00Z'),
+    })
+    .execute();
+}
+
+/** A paid balance in dollars (its minor units in cents), paid at the given moment. */
+export async function insertPaidBalance(
+  db: Database,
+  bookingId: string,
+  amount: string,
+  paidAt: Date,
+  method?: 'cash' | 'card_terminal' | 'bank_transfer',
+) {
+  await db
+    .insertInto('payments')
+    .values({
+      booking_id: bookingId,
+      kind: 'balance',
+      amount,
+      amount_minor: new Decimal(amount).times(100).toNumber(),
+      currency: 'USD',
+      status: 'paid',
+      paid_at: paidAt,
+      ...(method ? { method } : {}),
+    })
+    .execute();
+}
+
+/** Moves the moment every payment of a booking was paid (the deposit createBooking wrote, say). */
+export async function setPaidAt(db: Database, bookingId: string, paidAt: Date) {
+  await db.updateTable('payments').set({ paid_at: paidAt }).where('booking_id', '=', bookingId).execute();
 }

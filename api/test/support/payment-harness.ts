@@ -6,6 +6,7 @@ import request from 'supertest';
 import { startPaymentFake, type PaymentFake } from '../../fakes/payment/payment-fake';
 import { createTestApp, type TestApp } from './test-app';
 import { paymentFakeEnv } from './fakes-env';
+import { signIn } from './bench-fixtures';
 
 export const WEBHOOK_SECRET = 'whsec_loomwright_test_0123456789';
 
@@ -47,11 +48,7 @@ export async function startPaymentHarness(): Promise<PaymentHarness> {
     fake,
     apiUrl,
     uploadsDir,
-    signIn: async (email) => {
-      const agent = request.agent(t.app.getHttpServer());
-      await agent.post('/api/auth/sign-in').send({ email, password: 'demo-pass-2026' }).expect(200);
-      return agent;
-    },
+    signIn: (email) => signIn(t.app, email),
     close: async () => {
       await fake.close();
       await t.close();
