@@ -2,7 +2,7 @@ import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
 import { mailTemplates, type MailTemplate, type MailTemplateData } from '../mail.types';
 import { formatDay, formatMoney } from './format';
-import { MailDataError, renderMail, renderStoredMail, type ShopContext } from './render';
+import { MailDataError, renderMail, renderStoredMail, type MessageContext, type ShopContext } from './render';
 
 const shop: ShopContext = { name: 'Copperline Rig Works', contactEmail: 'bench@shop.example', timezone: 'America/Chicago' };
 
@@ -337,14 +337,14 @@ describe('the values each message must carry', () => {
   });
 });
 
-describe('the booking-scheduled calendar attachment', () => {
-  // RFC 5545 (iCalendar), parsed by ical.js, a general-purpose iCalendar library.
-  function parse(content: string) {
-    const component = new ICAL.Component(ICAL.parse(content));
-    const event = component.getFirstSubcomponent('vevent')!;
-    return { component, event, vevent: new ICAL.Event(event) };
-  }
+// RFC 5545 (iCalendar), parsed by ical.js, a general-purpose iCalendar library from the npm registry.
+function parse(content: string) {
+  const component = new ICAL.Component(ICAL.parse(content));
+  const event = component.getFirstSubcomponent('vevent')!;
+  return { component, event, vevent: new ICAL.Event(event) };
+}
 
+describe('the booking-scheduled calendar attachment', () => {
   it('is a VCALENDAR 2.0 with one all-day VEVENT on the ship-by day', () => {
     const [file] = renderMail('booking-scheduled', scheduled, shop).attachments;
     expect(file.contentType).toContain('text/calendar');
@@ -382,41 +382,59 @@ describe('the booking-scheduled calendar attachment', () => {
   });
 });
 
-// The exact data shapes the calling modules send (accounts, bookings and payments, the bench).
+// The exact data shapes the calling modules send (accounts, bookings and payments, the bench): one
+// row a caller, rendered and read for the words and figures that caller relies on.
+const withPublicUrl = { ...shop, publicUrl: 'http://localhost:3000' };
+interface FromCaller<T extends MailTemplate> {
+  what: string;
+  template: T;
+  data: MailTemplateData[T];
+  shop?: ShopContext;
+  message?: MessageContext;
+  subject?: string;
+  texts: string[];
+  calendar?: string;
+}
+// Typed per row: data a template does not take fails to compile.
+const fromCaller = <T extends MailTemplate>(row: FromCaller<T>) => row as unknown as FromCaller<MailTemplate>;
+const invited: MailTemplateData['staff-invite'] = {
+  name: 'Ivo',
+  invitedBy: 'Marta Okafor',
+  level: 'journeyman',
+  inviteUrl: 'http://localhost:3000/backoffice/accept-invite?token=abc',
+  expiresAt: '2027-01-20T12:00:00Z',
+};
+const paidDeposit = { name: 'Rosa Delgado-Finch', reference: 'LW-1042', amount: '250.00', currency: 'USD' };
+const paidRequestNotice: MailTemplateData['shop-new-paid-request'] = {
+  ...paidDeposit,
+  customerEmail: 'rosa@mail.example',
+  totalLow: '980.00',
+  totalHigh: '1210.00',
+  backofficeUrl: 'http://localhost:3000/backoffice/requests',
+};
+
 describe('the data the calling modules send', () => {
-  const withPublicUrl = { ...shop, publicUrl: 'http://localhost:3000' };
-
-  it('welcome from sign-up links to the configurator and the account', () => {
-    const { text } = renderMail(
-      'welcome',
-      { name: 'Rosa', configureUrl: 'http://localhost:3000/configure', accountUrl: 'http://localhost:3000/account' },
-      shop,
-    );
-    expect(text).toContain('Configure a board: http://localhost:3000/configure');
-    expect(text).toContain('Your account: http://localhost:3000/account');
-  });
-
-  it('staff-invite with its link, level and who invited', () => {
-    const { text } = renderMail(
-      'staff-invite',
-      {
-        name: 'Ivo',
-        invitedBy: 'Marta Okafor',
-        level: 'journeyman',
-        inviteUrl: 'http://localhost:3000/backoffice/accept-invite?token=abc',
-        expiresAt: '2027-01-20T12:00:00Z',
-      },
-      shop,
-    );
-    expect(text).toContain("Marta Okafor has invited you to the shop's backoffice as a journeyman builder");
-    expect(text).toContain('http://localhost:3000/backoffice/accept-invite?token=abc');
-    expect(text).toContain('Wed, Jan 20, 2027, 6:00 AM CST');
-  });
-
-  it('booking-requested without a link falls back to the booking page of the outbox row', () => {
-    const { text } = renderMail(
-      'booking-requested',
-      {
+  it.each([
+    fromCaller({
+      what: 'welcome from sign-up links to the configurator and the account',
+      template: 'welcome',
+      data: { name: 'Rosa', configureUrl: 'http://localhost:3000/configure', accountUrl: 'http://localhost:3000/account' },
+      texts: ['Configure a board: http://localhost:3000/configure', 'Your account: http://localhost:3000/account'],
+    }),
+    fromCaller({
+      what: 'staff-invite with its link, level and who invited',
+      template: 'staff-invite',
+      data: invited,
+      texts: [
+        "Marta Okafor has invited you to the shop's backoffice as a journeyman builder",
+        'http://localhost:3000/backoffice/accept-invite?token=abc',
+        'Wed, Jan 20, 2027, 6:00 AM CST',
+      ],
+    }),
+    fromCaller({
+      what: 'booking-requested without a link falls back to the booking page of the outbox row',
+      template: 'booking-requested',
+      data: {
         name: 'Rosa',
         reference: 'LW-1042',
         totalLow: '980.00',
@@ -425,37 +443,27 @@ describe('the data the calling modules send', () => {
         currency: 'USD',
         quoteExpiresAt: '2027-02-01T18:00:00Z',
       },
-      withPublicUrl,
-      { bookingId: 'b-1' },
-    );
-    expect(text).toContain('$980.00 to $1,210.00');
-    expect(text).toContain('Pay the deposit: http://localhost:3000/builds/b-1');
-    expect(text).toContain('Estimate holds until:');
-  });
-
-  it('deposit-received and the shop notice from the payment webhook', () => {
-    const paid = { name: 'Rosa Delgado-Finch', reference: 'LW-1042', amount: '250.00', currency: 'USD' };
-    const received = renderMail('deposit-received', { ...paid, bookingUrl: 'http://localhost:3000/builds/b-1' }, shop);
-    expect(received.text).toContain('See your booking: http://localhost:3000/builds/b-1');
-    const notice = renderMail(
-      'shop-new-paid-request',
-      {
-        ...paid,
-        customerEmail: 'rosa@mail.example',
-        totalLow: '980.00',
-        totalHigh: '1210.00',
-        backofficeUrl: 'http://localhost:3000/backoffice/requests',
-      },
-      shop,
-    );
-    expect(notice.subject).toBe('New paid request LW-1042 from Rosa Delgado-Finch');
-    expect(notice.text).toContain('$980.00 to $1,210.00');
-  });
-
-  it('booking-scheduled from the bench, with its own list of what to ship and the money', () => {
-    const { text, attachments } = renderMail(
-      'booking-scheduled',
-      {
+      shop: withPublicUrl,
+      message: { bookingId: 'b-1' },
+      texts: ['$980.00 to $1,210.00', 'Pay the deposit: http://localhost:3000/builds/b-1', 'Estimate holds until:'],
+    }),
+    fromCaller({
+      what: 'deposit-received from the payment webhook',
+      template: 'deposit-received',
+      data: { ...paidDeposit, bookingUrl: 'http://localhost:3000/builds/b-1' },
+      texts: ['See your booking: http://localhost:3000/builds/b-1'],
+    }),
+    fromCaller({
+      what: 'the shop notice from the payment webhook',
+      template: 'shop-new-paid-request',
+      data: paidRequestNotice,
+      subject: 'New paid request LW-1042 from Rosa Delgado-Finch',
+      texts: ['$980.00 to $1,210.00'],
+    }),
+    fromCaller({
+      what: 'booking-scheduled from the bench, with its own list of what to ship and the money',
+      template: 'booking-scheduled',
+      data: {
         name: 'Rosa',
         reference: 'LW-1042',
         benchDate: '2027-01-12',
@@ -469,22 +477,22 @@ describe('the data the calling modules send', () => {
         currency: 'USD',
         whatToShip: ['Octave fuzz', 'Tape-style delay', 'Your power supply with its mains lead, labelled with your name'],
       },
-      withPublicUrl,
-      { bookingId: 'b-1' },
-    );
-    expect(text).toContain('- Octave fuzz');
-    expect(text).toContain('- Your power supply with its mains lead, labelled with your name');
-    expect(text).toContain('$1,120.00');
-    expect(text).toContain('$870.00');
-    expect(text).toContain('Tue, Jan 5, 2027');
-    expect(text).toContain('See your booking: http://localhost:3000/builds/b-1');
-    expect(attachments[0].content).toContain('DTSTART;VALUE=DATE:20270105');
-  });
-
-  it('status-changed from the bench lists pedals found faulty at intake', () => {
-    const { text } = renderMail(
-      'status-changed',
-      {
+      shop: withPublicUrl,
+      message: { bookingId: 'b-1' },
+      texts: [
+        '- Octave fuzz',
+        '- Your power supply with its mains lead, labelled with your name',
+        '$1,120.00',
+        '$870.00',
+        'Tue, Jan 5, 2027',
+        'See your booking: http://localhost:3000/builds/b-1',
+      ],
+      calendar: 'DTSTART;VALUE=DATE:20270105',
+    }),
+    fromCaller({
+      what: 'status-changed from the bench lists pedals found faulty at intake',
+      template: 'status-changed',
+      data: {
         name: 'Rosa',
         reference: 'LW-1042',
         fromState: 'scheduled',
@@ -492,22 +500,19 @@ describe('the data the calling modules send', () => {
         note: '',
         faultyItems: [{ item: 'Phaser', note: 'crackles when the rate knob turns' }],
       },
-      shop,
-    );
-    expect(text).toContain('Phaser: crackles when the rate knob turns');
-  });
-
-  it('balance-requested from the bench shows the breakdown and the amount due', () => {
-    const { subject, text } = renderMail('balance-requested', balanceFromBench, shop);
-    expect(subject).toBe('Balance due for LW-1042: $915.00');
-    expect(text).toContain('Approved extras:');
-    expect(text).toContain('$45.00');
-  });
-
-  it('booking-declined from the bench says how much was refunded', () => {
-    const { text } = renderMail(
-      'booking-declined',
-      {
+      texts: ['Phaser: crackles when the rate knob turns'],
+    }),
+    fromCaller({
+      what: 'balance-requested from the bench shows the breakdown and the amount due',
+      template: 'balance-requested',
+      data: balanceFromBench,
+      subject: 'Balance due for LW-1042: $915.00',
+      texts: ['Approved extras:', '$45.00'],
+    }),
+    fromCaller({
+      what: 'booking-declined from the bench says how much was refunded',
+      template: 'booking-declined',
+      data: {
         name: 'Rosa',
         reference: 'LW-1042',
         reason: 'We do not wire mains inlets.',
@@ -516,21 +521,20 @@ describe('the data the calling modules send', () => {
         refundPending: false,
         currency: 'USD',
       },
-      shop,
-    );
-    expect(text).toContain('Your deposit of $250.00 is refunded in full');
+      texts: ['Your deposit of $250.00 is refunded in full'],
+    }),
+  ])('$what', ({ template, data, shop: context, message, subject, texts, calendar }) => {
+    const mail = renderMail(template, data, context ?? shop, message);
+    if (subject !== undefined) expect(mail.subject).toBe(subject);
+    for (const words of texts) expect(mail.text).toContain(words);
+    if (calendar !== undefined) expect(mail.attachments[0].content).toContain(calendar);
   });
 });
 
 describe('the calendar file when a booking moves or is cancelled', () => {
-  // RFC 5545 (iCalendar) and RFC 5546 (iTIP), parsed by ical.js, an independent iCalendar library
-  // from the npm registry. §3.8.7.4 SEQUENCE: a revision keeps the UID and carries a higher
-  // sequence number, so a calendar program updates the event instead of adding a second one.
-  function parse(content: string) {
-    const component = new ICAL.Component(ICAL.parse(content));
-    const event = component.getFirstSubcomponent('vevent')!;
-    return { component, event, vevent: new ICAL.Event(event) };
-  }
+  // RFC 5545 (iCalendar) and RFC 5546 (iTIP), parsed by ical.js (parse, above). §3.8.7.4 SEQUENCE:
+  // a revision keeps the UID and carries a higher sequence number, so a calendar program updates
+  // the event instead of adding a second one.
 
   const first = renderMail('booking-scheduled', scheduled, shop).attachments[0];
   const moved = {
@@ -599,7 +603,6 @@ describe('the calendar file when a booking moves or is cancelled', () => {
 // resent from the mail log): read through upgradeMailData, they render the same message as the same
 // data under today's keys, and the words the older tests of each template expected.
 describe('outbox rows stored under the older key names', () => {
-  const withPublicUrl = { ...shop, publicUrl: 'http://localhost:3000' };
   // A calendar file's DTSTAMP is the moment it was written; everything else must match.
   const same = (mail: ReturnType<typeof renderMail>) => ({
     ...mail,
@@ -637,17 +640,10 @@ describe('outbox rows stored under the older key names', () => {
   });
 
   it('staff-invite: acceptUrl (and an hourly rate the letter never read)', () => {
-    const old = {
-      name: 'Ivo',
-      invitedBy: 'Marta Okafor',
-      level: 'journeyman',
-      hourlyRate: '90.00',
-      acceptUrl: 'http://localhost:3000/backoffice/accept-invite?token=abc',
-      expiresAt: '2027-01-20T12:00:00Z',
-    };
+    const { inviteUrl, ...rest } = invited;
+    const old = { ...rest, hourlyRate: '90.00', acceptUrl: inviteUrl };
     const stored = renderStoredMail('staff-invite', old, shop);
-    const { hourlyRate: _rate, acceptUrl, ...rest } = old;
-    expect(stored).toEqual(renderMail('staff-invite', { ...rest, level: 'journeyman', inviteUrl: acceptUrl }, shop));
+    expect(stored).toEqual(renderMail('staff-invite', invited, shop));
     expect(stored.text).toContain("Marta Okafor has invited you to the shop's backoffice as a journeyman builder");
     expect(stored.text).toContain('http://localhost:3000/backoffice/accept-invite?token=abc');
   });
@@ -670,21 +666,11 @@ describe('outbox rows stored under the older key names', () => {
   });
 
   it('deposit-received, the shop notice and payment-failed: one data object with buildUrl', () => {
-    const old = {
-      name: 'Rosa Delgado-Finch',
-      customerEmail: 'rosa@mail.example',
-      reference: 'LW-1042',
-      amount: '250.00',
-      currency: 'USD',
-      totalLow: '980.00',
-      totalHigh: '1210.00',
-      summary: '9 pedals, switcher',
-      buildUrl: 'http://localhost:3000/builds/b-1',
-      backofficeUrl: 'http://localhost:3000/backoffice/requests',
-    };
-    const paid = { name: 'Rosa Delgado-Finch', reference: 'LW-1042', amount: '250.00', currency: 'USD' };
+    const old = { ...paidRequestNotice, summary: '9 pedals, switcher', buildUrl: 'http://localhost:3000/builds/b-1' };
     const received = renderStoredMail('deposit-received', old, withPublicUrl, { bookingId: 'other' });
-    expect(received).toEqual(renderMail('deposit-received', { ...paid, bookingUrl: 'http://localhost:3000/builds/b-1' }, withPublicUrl));
+    expect(received).toEqual(
+      renderMail('deposit-received', { ...paidDeposit, bookingUrl: 'http://localhost:3000/builds/b-1' }, withPublicUrl),
+    );
     expect(received.text).toContain('See your booking: http://localhost:3000/builds/b-1');
     const notice = renderStoredMail('shop-new-paid-request', old, shop);
     expect(notice.subject).toBe('New paid request LW-1042 from Rosa Delgado-Finch');
