@@ -16,6 +16,12 @@ export const chromiumLaunchOptions = {
   ],
 };
 
+/** chrome-launcher's options (Lighthouse's way of starting a browser) for the same Chromium, headless. */
+export const lighthouseChromeOptions = {
+  chromePath: chromiumLaunchOptions.executablePath,
+  chromeFlags: ['--headless=new', ...chromiumLaunchOptions.args],
+};
+
 /**
  * The environment api/scripts/stack.mjs reads for the whole product on the given ports, on a
  * database made afresh and seeded with the demo shop (both the journeys and the benchmark sign in

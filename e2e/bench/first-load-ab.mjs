@@ -13,6 +13,7 @@ import { createServer, request } from 'node:http';
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
+import { chromiumLaunchOptions, lighthouseChromeOptions } from '../stack-env.mjs';
 
 const require = createRequire(import.meta.url);
 const env = process.env;
@@ -24,15 +25,6 @@ const firstPort = Number(env.AB_PORT ?? 3260);
 const routes = (env.AB_ROUTES ?? '/,/configure').split(',');
 const preset = env.AB_PRESET ?? 'mobile';
 const skip = new Set((env.AB_SKIP ?? '').split(','));
-const chromiumPath = env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium';
-const chromiumFlags = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-];
 const types = {
   '.html': 'text/html; charset=utf-8',
   '.js': 'text/javascript',
@@ -76,7 +68,7 @@ async function lighthouseRun(url) {
   const { default: lighthouse } = await import('lighthouse');
   const { default: desktopConfig } = await import('lighthouse/core/config/desktop-config.js');
   const chromeLauncher = await import('chrome-launcher');
-  const chrome = await chromeLauncher.launch({ chromePath: chromiumPath, chromeFlags: ['--headless=new', ...chromiumFlags] });
+  const chrome = await chromeLauncher.launch(lighthouseChromeOptions);
   try {
     const { lhr } = await lighthouse(
       url,
@@ -102,7 +94,7 @@ async function lighthouseRun(url) {
 let browser;
 async function cdpRun(url) {
   const { chromium } = require('@playwright/test');
-  browser ??= await chromium.launch({ executablePath: chromiumPath, args: chromiumFlags });
+  browser ??= await chromium.launch(chromiumLaunchOptions);
   const context = await browser.newContext({
     viewport: { width: 412, height: 823 },
     deviceScaleFactor: 1.75,

@@ -14,7 +14,7 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { brotliCompressSync, gzipSync } from 'node:zlib';
-import { chromiumLaunchOptions, stackEnv } from '../stack-env.mjs';
+import { lighthouseChromeOptions, stackEnv } from '../stack-env.mjs';
 import { measureEstimateLatency } from './latency-board.mjs';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
@@ -322,10 +322,7 @@ async function lighthouseSection() {
   for (const route of ['/', '/configure']) {
     for (const preset of ['mobile', 'desktop']) {
       say(`Lighthouse ${preset} ${route}…`);
-      const chrome = await chromeLauncher.launch({
-        chromePath: chromiumLaunchOptions.executablePath,
-        chromeFlags: ['--headless=new', ...chromiumLaunchOptions.args],
-      });
+      const chrome = await chromeLauncher.launch(lighthouseChromeOptions);
       try {
         const result = await lighthouse(
           `${base}${route}`,
