@@ -6,6 +6,8 @@ export { createQueryClient } from './query-client';
 export { PageLoading } from './PageLoading';
 export { RouteError, RouteErrorScreen } from './RouteError';
 export { ShopUnavailable } from './ShopUnavailable';
+export { NotFoundPage } from './NotFoundPage';
+export { mountApp } from './mount-app';
 export { FormTextField } from './FormTextField';
 export { EmailField, NewPasswordForm, PasswordField, SignInForm } from './account-forms';
 export { authKeys, getMe, ME_RETRY_MS, meQueryOptions, switchPerson, useMe } from './get-me';
