@@ -5,7 +5,7 @@ import { addDays } from '../src/bench/calendar-days';
 import { renderStoredMail } from '../src/mail/templates/render';
 import { ReminderClock } from '../src/reminders/reminder-clock';
 import { RemindersService } from '../src/reminders/reminders.service';
-import { builderId, createBooking, quietMondayWeeksAhead } from './support/bench-fixtures';
+import { builderId, createBooking, insertFirmQuote, quietMondayWeeksAhead } from './support/bench-fixtures';
 import { startPaymentHarness, type PaymentHarness } from './support/payment-harness';
 import { sessionCookieFor } from './support/sessions';
 import { clearTables, createTestApp, type TestApp } from './support/test-app';
@@ -144,26 +144,13 @@ describe('reminders and request expiry, with a controlled clock and two workers'
   /** A ready build with a firm total of 900.00, its deposit of 150.00 paid, ready since `readyAt`. */
   async function readyBuild(readyAt: Date) {
     const booking = await createBooking(first.db, { state: 'deposit_paid', laborHours: '6.00', deposit: '150.00' });
-    const estimate = await first.db.selectFrom('quotes').selectAll().where('booking_id', '=', booking.id).executeTakeFirstOrThrow();
-    await first.db
-      .insertInto('quotes')
-      .values({
-        booking_id: booking.id,
-        kind: 'firm',
-        price_book_version: 1,
-        currency: 'USD',
-        configuration: JSON.stringify(estimate.configuration) as never,
-        estimate: JSON.stringify(estimate.estimate) as never,
-        labor_hours: '6.00',
-        total_low: '900.00',
-        total_high: '900.00',
-        deposit: '150.00',
-        hourly_rate: '100.00',
-        labor_total: '600.00',
-        total: '900.00',
-        expires_at: new Date(readyAt.getTime() + 30 * DAY),
-      })
-      .execute();
+    await insertFirmQuote(first.db, booking.id, {
+      laborHours: '6.00',
+      hourlyRate: '100.00',
+      total: '900.00',
+      deposit: '150.00',
+      expiresAt: new Date(readyAt.getTime() + 30 * DAY),
+    });
     await first.db.updateTable('bookings').set({ state: 'ready' }).where('id', '=', booking.id).execute();
     await first.db
       .insertInto('booking_events')

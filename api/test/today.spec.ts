@@ -2,7 +2,7 @@ import { sql } from 'kysely';
 import { todayResponseSchema, type TodayResponse } from '@loomwright/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addDays, todayIn } from '../src/bench/calendar-days';
-import { builderId, createBooking, signIn } from './support/bench-fixtures';
+import { builderId, createBooking, insertFirmQuote, signIn } from './support/bench-fixtures';
 import { createTestApp, type TestApp } from './support/test-app';
 
 /**
@@ -62,24 +62,13 @@ describe('GET /api/today', () => {
         .execute();
     }
     if (opts.firmTotal) {
-      const estimate = await t.db.selectFrom('quotes').selectAll().where('booking_id', '=', booking.id).executeTakeFirstOrThrow();
-      await t.db
-        .insertInto('quotes')
-        .values({
-          booking_id: booking.id,
-          kind: 'firm',
-          price_book_version: 1,
-          currency: 'USD',
-          configuration: JSON.stringify(estimate.configuration) as never,
-          estimate: JSON.stringify(estimate.estimate) as never,
-          labor_hours: '6.00',
-          total_low: opts.firmTotal,
-          total_high: opts.firmTotal,
-          deposit: '150.00',
-          total: opts.firmTotal,
-          expires_at: new Date(Date.now() + 86_400_000),
-        })
-        .execute();
+      await insertFirmQuote(t.db, booking.id, {
+        laborHours: '6.00',
+        hourlyRate: '100.00',
+        total: opts.firmTotal,
+        deposit: '150.00',
+        expiresAt: new Date(Date.now() + 86_400_000),
+      });
     }
     ids[name] = booking.id;
   }

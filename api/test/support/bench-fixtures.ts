@@ -185,7 +185,7 @@ export function quietMondayWeeksAhead(weeksAhead: number): string {
 export async function insertFirmQuote(
   db: Database,
   bookingId: string,
-  firm: { laborHours: string; hourlyRate: string; total: string; deposit: string },
+  firm: { laborHours: string; hourlyRate: string; total: string; deposit: string; expiresAt?: Date },
 ) {
   await db
     .insertInto('quotes')
@@ -203,7 +203,7 @@ export async function insertFirmQuote(
       hourly_rate: firm.hourlyRate,
       labor_total: new Decimal(firm.laborHours).times(firm.hourlyRate).toFixed(2),
       total: firm.total,
-      expires_at: new Date('2027-01-01T00:00:00Z'),
+      expires_at: firm.expiresAt ?? new Date('2027-01-01T00:00:00Z'),
     })
     .execute();
 }
