@@ -133,7 +133,8 @@ async function cdpRun(url) {
   const mainPid = events.find((e) => e.name === 'TracingStartedInBrowser')?.args?.data?.frames?.[0]?.processId;
   const mainTid = events.find((e) => e.name === 'thread_name' && e.args?.name === 'CrRendererMain' && (!mainPid || e.pid === mainPid))?.tid;
   for (const e of events)
-    if (e.name === 'RunTask' && e.tid === mainTid && (!mainPid || e.pid === mainPid)) {
+    // Complete events only (a task cut by the end of the trace has no duration).
+    if (e.name === 'RunTask' && e.tid === mainTid && (!mainPid || e.pid === mainPid) && e.dur !== undefined) {
       cpuTasks.push((e.tdur ?? e.dur) / 1000);
       if (env.AB_CPU_TASKS && e.tdur > 12_500) {
         const inside = events.filter(
