@@ -8,6 +8,7 @@ import { spawn } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { apiNodeFlags } from './api-node-flags.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const envFile = path.resolve(root, process.env.STACK_ENV ?? '.data/stack.env');
@@ -33,7 +34,7 @@ for (const line of readFileSync(envFile, 'utf8').split('\n')) {
   if (m) stackEnv[m[1]] = JSON.parse(m[2]);
 }
 
-const child = spawn(process.execPath, [main], {
+const child = spawn(process.execPath, [...apiNodeFlags, main], {
   cwd: root,
   stdio: 'inherit',
   // The first process already migrated and seeded; a replica only joins.

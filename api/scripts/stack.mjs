@@ -9,6 +9,7 @@ import { existsSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
+import { apiNodeFlags } from './api-node-flags.mjs';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const root = path.resolve(here, '..', '..');
@@ -53,13 +54,13 @@ async function ensureDatabase() {
   }
 }
 
-function run(name, script, extraEnv) {
+function run(name, script, extraEnv, nodeFlags = []) {
   const file = path.join(root, script);
   if (!existsSync(file)) {
     log(`${name}: ${script} is not built; skipping`);
     return;
   }
-  const child = spawn(process.execPath, [file], {
+  const child = spawn(process.execPath, [...nodeFlags, file], {
     cwd: root,
     env: { ...env, ...extraEnv },
     stdio: settings.quiet ? ['ignore', 'ignore', 'inherit'] : 'inherit',
@@ -179,7 +180,7 @@ async function main() {
   mkdirSync(path.join(root, '.data'), { recursive: true });
   writeFileSync(path.join(root, '.data', `stack-${settings.port}.env`), envFile, { mode: 0o600 });
   writeFileSync(path.join(root, '.data', 'stack.env'), envFile, { mode: 0o600 });
-  run('API', 'api/dist/src/main.js', { ...shared, PORT: String(settings.port) });
+  run('API', 'api/dist/src/main.js', { ...shared, PORT: String(settings.port) }, apiNodeFlags);
   await waitForHealth(`http://127.0.0.1:${settings.port}/api/health`);
 
   log('');

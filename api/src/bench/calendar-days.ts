@@ -25,8 +25,17 @@ export function eachDay(from: string, to: string): string[] {
   return out;
 }
 
+// One formatter per time zone: building an Intl.DateTimeFormat costs far more than formatting with
+// one, and every bench read asks for today.
+const dayFormats = new Map<string, Intl.DateTimeFormat>();
+
 /** Today's calendar day in the shop's time zone (the shop's wall clock decides what "today" is). */
 export function todayIn(timeZone: string, now: Date = new Date()): string {
-  // en-CA formats as YYYY-MM-DD.
-  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
+  let format = dayFormats.get(timeZone);
+  if (!format) {
+    // en-CA formats as YYYY-MM-DD. An unknown zone throws here, before anything is kept.
+    format = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
+    dayFormats.set(timeZone, format);
+  }
+  return format.format(now);
 }

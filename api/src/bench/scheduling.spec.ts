@@ -1,6 +1,6 @@
 import Decimal from 'decimal.js';
 import { describe, expect, it } from 'vitest';
-import { addDays, isoWeekday } from './calendar-days';
+import { addDays, isoWeekday, todayIn } from './calendar-days';
 import { publicHolidaysBetween } from './public-holidays';
 import {
   dayCapacity,
@@ -31,6 +31,18 @@ describe('calendar days', () => {
     expect(isoWeekday('2026-11-30')).toBe(1);
     expect(isoWeekday('2026-12-06')).toBe(7);
     expect(addDays('2026-12-31', 1)).toBe('2027-01-01');
+  });
+
+  it("gives today on the shop's wall clock, asked again in each zone", () => {
+    // IANA time zone database: New Zealand keeps daylight time (UTC+13) in December, Los Angeles
+    // standard time (UTC−8) (from memory). 23:30 UTC on 2 December is already the 3rd in Auckland.
+    const instant = new Date('2026-12-02T23:30:00Z');
+    for (let i = 0; i < 2; i++) {
+      expect(todayIn('Pacific/Auckland', instant)).toBe('2026-12-03');
+      expect(todayIn('America/Los_Angeles', instant)).toBe('2026-12-02');
+      expect(todayIn('UTC', instant)).toBe('2026-12-02');
+    }
+    expect(() => todayIn('Mars/Olympus_Mons', instant)).toThrow(RangeError);
   });
 });
 
