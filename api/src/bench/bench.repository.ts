@@ -5,6 +5,20 @@ import type { BuilderLevel, WeeklyHours } from '@loomwright/shared';
 import { BookingsRepository } from '../bookings/bookings.repository';
 import { Database, Executor, type BuildersTable } from '../database/database';
 
+/**
+ * A booking's booked bench days as a column of a query over bookings (`booking` names its id column):
+ * each day (YYYY-MM-DD) with its hours, in day order, `[]` when it holds none; only the days of
+ * `range` when one is given.
+ */
+export const benchDaysOf = (booking: string, range?: { from: string; to: string }) =>
+  sql<Array<{ day: string; hours: string }>>`coalesce((
+    select json_agg(json_build_object('day', a.day::text, 'hours', (upper(a.hours) - lower(a.hours))::text) order by a.day)
+    from bench_allocations a where a.booking_id = ${sql.ref(booking)}${range ? sql` and a.day between ${range.from}::date and ${range.to}::date` : sql``}), '[]'::json)`;
+
+/** Whether a booking holds bench time on a day of `range`, as a condition of a query over bookings. */
+export const holdsBenchTimeIn = (booking: string, range: { from: string; to: string }) =>
+  sql<boolean>`exists (select 1 from bench_allocations a where a.booking_id = ${sql.ref(booking)} and a.day between ${range.from}::date and ${range.to}::date)`;
+
 @Injectable()
 export class BenchRepository {
   constructor(
@@ -233,18 +247,8 @@ export class BenchRepository {
   /** A booking with its player, for planning its bench time (its estimate is the bookings repository's `latestQuote`). */
   findBookingForPlanning(trx: Executor, bookingId: string) {
     return this.bookings
-      .withPeople(trx)
-      .select([
-        'b.id',
-        'b.reference',
-        'b.state',
-        'b.customer_id',
-        'b.configuration',
-        'b.bench_date',
-        'b.builder_id',
-        'c.name as customer_name',
-        'c.email as customer_email',
-      ])
+      .withPeopleNamed(trx)
+      .select(['b.customer_id', 'b.configuration', 'b.bench_date', 'b.builder_id', 'c.email as customer_email'])
       .where('b.id', '=', bookingId)
       .executeTakeFirst();
   }

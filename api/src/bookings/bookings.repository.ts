@@ -169,6 +169,11 @@ export class BookingsRepository {
       .leftJoin('users as bu', 'bu.id', 'bl.user_id');
   }
 
+  /** `withPeople` with the columns every list names a booking by: its id, reference and state, and its player's name. */
+  withPeopleNamed(trx: Executor = this.db) {
+    return this.withPeople(trx).select(['b.id', 'b.reference', 'b.state', 'c.name as customer_name']);
+  }
+
   findById(id: string, trx: Executor = this.db) {
     return trx.selectFrom('bookings').selectAll().where('id', '=', id).executeTakeFirst();
   }

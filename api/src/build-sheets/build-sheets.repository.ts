@@ -8,16 +8,12 @@ export class BuildSheetsRepository {
 
   findBooking(id: string) {
     return this.bookings
-      .withPeople()
+      .withPeopleNamed()
       .select([
-        'b.id',
-        'b.reference',
-        'b.state',
         'b.configuration',
         'b.customer_notes',
         'b.bench_date',
         'b.expected_completion',
-        'c.name as customer_name',
         'c.email as customer_email',
         'bu.name as builder_name',
         'bl.level as builder_level',

@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { sql } from 'kysely';
 import { BookingsRepository, quotedHoursOf } from '../bookings/bookings.repository';
+import { benchDaysOf } from '../bench/bench.repository';
 import { Database, type Executor } from '../database/database';
 
 /** States in which a build holds (or held) a place on the bench. */
@@ -54,21 +55,15 @@ export class CalendarFeedsRepository {
   /** Builds with a bench date from `since` on, for one builder or the whole shop, with their booked days. */
   builds(builderId: string | null, since: string, trx: Executor = this.db) {
     let q = this.bookings
-      .withPeople(trx)
+      .withPeopleNamed(trx)
       .select([
-        'b.id',
-        'b.reference',
-        'b.state',
         'b.bench_date',
         'b.expected_completion',
         'b.calendar_sequence',
         'b.updated_at',
-        'c.name as customer_name',
         'bu.name as builder_name',
         quotedHoursOf('b.id').as('quoted_hours'),
-        sql<Array<{ day: string; hours: string }>>`coalesce((
-          select json_agg(json_build_object('day', a.day, 'hours', (upper(a.hours) - lower(a.hours))::text) order by a.day)
-          from bench_allocations a where a.booking_id = b.id), '[]'::json)`.as('days'),
+        benchDaysOf('b.id').as('days'),
       ])
       .where(sql<boolean>`b.state::text in (${sql.join(ON_THE_CALENDAR)})`)
       .where('b.bench_date', 'is not', null)

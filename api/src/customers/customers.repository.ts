@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { sql } from 'kysely';
+import { sql, type OrderByItemBuilder } from 'kysely';
 import { Database, Executor } from '../database/database';
 import type { CustomerSort } from '@loomwright/shared';
 
@@ -63,34 +63,26 @@ export class CustomersRepository {
     opts: { page: number; pageSize: number; sort: CustomerSort; order: 'asc' | 'desc'; search?: string; searchEmail?: boolean },
   ) {
     const offset = (opts.page - 1) * opts.pageSize;
-    let ids: string[];
-    if (opts.sort === 'buildCount' || opts.sort === 'lastBookingAt') {
-      const perCustomer = trx
-        .selectFrom('bookings')
-        .select(['customer_id', sql<number>`count(*)`.as('build_count'), sql<Date>`max(created_at)`.as('last_booking_at')])
-        .groupBy('customer_id')
-        .as('agg');
-      const key = opts.sort === 'buildCount' ? sql`coalesce(agg.build_count, 0)` : sql`agg.last_booking_at`;
-      const found = await this.matching(trx, opts.search, opts.searchEmail)
-        .leftJoin(perCustomer, 'agg.customer_id', 'u.id')
-        .select('u.id')
-        .orderBy(key, (ob) => (opts.order === 'desc' ? ob.desc() : ob.asc()).nullsLast())
-        .orderBy('u.id')
-        .limit(opts.pageSize)
-        .offset(offset)
-        .execute();
-      ids = found.map((r) => r.id);
-    } else {
-      const key = opts.sort === 'name' ? sql`u.name` : opts.sort === 'email' ? sql`u.email::text` : sql`u.created_at`;
-      const found = await this.matching(trx, opts.search, opts.searchEmail)
-        .select('u.id')
-        .orderBy(key, (ob) => (opts.order === 'desc' ? ob.desc() : ob.asc()).nullsLast())
-        .orderBy('u.id')
-        .limit(opts.pageSize)
-        .offset(offset)
-        .execute();
-      ids = found.map((r) => r.id);
-    }
+    const direction = (ob: OrderByItemBuilder) => (opts.order === 'desc' ? ob.desc() : ob.asc()).nullsLast();
+    // Sorting by build count or latest booking joins the bookings counted per customer; the others sort on `users` alone.
+    const perCustomer = trx
+      .selectFrom('bookings')
+      .select(['customer_id', sql<number>`count(*)`.as('build_count'), sql<Date>`max(created_at)`.as('last_booking_at')])
+      .groupBy('customer_id')
+      .as('agg');
+    const matching = this.matching(trx, opts.search, opts.searchEmail).$if(
+      opts.sort === 'buildCount' || opts.sort === 'lastBookingAt',
+      (q) => q.leftJoin(perCustomer, 'agg.customer_id', 'u.id'),
+    );
+    const key = {
+      buildCount: sql`coalesce(agg.build_count, 0)`,
+      lastBookingAt: sql`agg.last_booking_at`,
+      name: sql`u.name`,
+      email: sql`u.email::text`,
+      createdAt: sql`u.created_at`,
+    }[opts.sort];
+    const page = await matching.select('u.id').orderBy(key, direction).orderBy('u.id').limit(opts.pageSize).offset(offset).execute();
+    const ids = page.map((r) => r.id);
     const counted = await this.matching(trx, opts.search, opts.searchEmail)
       .select(sql<string>`count(*)::text`.as('total'))
       .executeTakeFirstOrThrow();

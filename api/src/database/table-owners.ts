@@ -41,7 +41,7 @@ export const TABLE_OWNERS: Readonly<Record<TableName, TableOwnership>> = {
   bench_allocations: {
     owner: 'bench',
     holds: 'booked bench hours per builder and day',
-    readers: ['calendar-feeds', 'exports', 'reminders', 'today'],
+    readers: ['exports', 'reminders'],
   },
   shop_closures: { owner: 'bench', holds: 'days the shop is shut', readers: [] },
   shop_holiday_choices: { owner: 'bench', holds: 'public holidays the shop works or keeps', readers: [] },

@@ -52,18 +52,7 @@ export class RemindersRepository {
   }
 
   private bookingsWithPeople(trx: Executor) {
-    return this.bookings
-      .withPeople(trx)
-      .select([
-        'b.id',
-        'b.reference',
-        'b.state',
-        'b.bench_date',
-        'b.created_at',
-        'b.customer_id',
-        'c.name as customer_name',
-        'c.email as customer_email',
-      ]);
+    return this.bookings.withPeopleNamed(trx).select(['b.bench_date', 'b.created_at', 'b.customer_id', 'c.email as customer_email']);
   }
 
   /** Scheduled builds, pedals still to come, bench date from `from` to `to`, no tracking number. */

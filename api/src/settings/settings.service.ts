@@ -15,6 +15,7 @@ import { addDays, todayIn } from '../bench/calendar-days';
 import { publicHolidaysBetween } from '../bench/public-holidays';
 import { Database } from '../database/database';
 import { BenchRepository } from '../bench/bench.repository';
+import { shopProfileFields, shopSetUp } from '../shop/shop-profile';
 import { SettingsRepository } from './settings.repository';
 
 /** How many of the owner's holiday choices the settings page shows. */
@@ -39,8 +40,7 @@ export class SettingsService {
   ) {}
 
   async get(): Promise<ShopSettingsView> {
-    const row = await this.settings.find();
-    if (!row) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
+    const row = shopSetUp(await this.settings.find());
     const country = row.country_code.trim();
     const [closures, choices, history] = await Promise.all([
       this.closures(),
@@ -51,22 +51,7 @@ export class SettingsService {
     const today = todayIn(row.timezone);
     const holidays = publicHolidaysBetween(country, today, addDays(today, 365));
     return {
-      name: row.name,
-      tagline: row.tagline,
-      currency: row.currency.trim(),
-      countryCode: row.country_code.trim(),
-      timezone: row.timezone,
-      locale: row.locale,
-      contactEmail: row.contact_email,
-      postalAddress: row.address_line1
-        ? {
-            line1: row.address_line1,
-            line2: row.address_line2,
-            city: row.address_city,
-            region: row.address_region,
-            postalCode: row.address_postal_code,
-          }
-        : null,
+      ...shopProfileFields(row),
       closures,
       upcomingHolidays: [...holidays.entries()].map(([date, name]) => ({ date, name, shopWorks: worked.has(date) })),
       holidayHistory: history.map(choiceView),
@@ -89,8 +74,7 @@ export class SettingsService {
         address_postal_code: dto.postalAddress.postalCode,
       }),
     };
-    const updated = await this.settings.update(this.db, values);
-    if (!updated) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
+    shopSetUp(await this.settings.update(this.db, values));
     return this.get();
   }
 
@@ -101,8 +85,7 @@ export class SettingsService {
    */
   async chooseHoliday(user: AuthUser, day: string, dto: HolidayChoiceInput): Promise<HolidayChoiceResponse> {
     return this.db.transaction().execute(async (trx) => {
-      const row = await this.settings.find(trx);
-      if (!row) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
+      const row = shopSetUp(await this.settings.find(trx));
       const country = row.country_code.trim();
       const name = publicHolidaysBetween(country, day, day).get(day);
       if (!name) throw new BadRequestException(shopWords.notAHoliday(day, country));

@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { sql } from 'kysely';
 import { BookingsRepository, quotedHoursOf } from '../bookings/bookings.repository';
+import { benchDaysOf, holdsBenchTimeIn } from '../bench/bench.repository';
 import { Database, type Executor } from '../database/database';
 
 /** States in which a build is the bench's business: booked in, being built, or built and not yet gone. */
@@ -21,22 +22,14 @@ export class TodayRepository {
   /** Active builds with bench hours in the week, and the ready ones; one builder's, or every one. */
   builds(week: { today: string; start: string; end: string }, builderId: string | undefined, trx: Executor = this.db) {
     let q = this.bookings
-      .withPeople(trx)
+      .withPeopleNamed(trx)
       .select([
-        'b.id',
-        'b.reference',
-        'b.state',
         'b.builder_id',
         'b.inbound_carrier',
         'b.inbound_tracking',
         'b.awaiting_layout_approval',
-        'c.name as customer_name',
         'bu.name as builder_name',
-        sql<Array<{ day: string; hours: string }>>`coalesce((
-          select json_agg(json_build_object('day', a.day::text, 'hours', (upper(a.hours) - lower(a.hours))::text) order by a.day)
-          from bench_allocations a where a.booking_id = b.id and a.day between ${week.start}::date and ${week.end}::date), '[]'::json)`.as(
-          'bench_days',
-        ),
+        benchDaysOf('b.id', { from: week.start, to: week.end }).as('bench_days'),
         sql<string>`coalesce((select sum(t.hours) from time_entries t where t.booking_id = b.id and t.worked_on = ${week.today}::date), 0)::text`.as(
           'recorded_today',
         ),
@@ -48,18 +41,7 @@ export class TodayRepository {
         sql<number>`(select count(*)::int from booking_extras e where e.booking_id = b.id and e.status = 'proposed')`.as('proposed_extras'),
       ])
       .where(sql<boolean>`b.state::text in (${sql.join([...ACTIVE_STATES])})`)
-      .where(({ or, eb, exists, selectFrom }) =>
-        or([
-          eb('b.state', '=', 'ready'),
-          exists(
-            selectFrom('bench_allocations as a')
-              .select(sql`1`.as('one'))
-              .whereRef('a.booking_id', '=', 'b.id')
-              .where('a.day', '>=', week.start)
-              .where('a.day', '<=', week.end),
-          ),
-        ]),
-      );
+      .where((eb) => eb.or([eb('b.state', '=', 'ready'), holdsBenchTimeIn('b.id', { from: week.start, to: week.end })]));
     if (builderId) q = q.where('b.builder_id', '=', builderId);
     return q.orderBy('b.reference').execute();
   }

@@ -1,4 +1,4 @@
-import { ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import { ForbiddenException, Injectable } from '@nestjs/common';
 import Decimal from 'decimal.js';
 import {
   shopFormat,
@@ -13,6 +13,7 @@ import { addDays, todayIn } from '../bench/calendar-days';
 import { bookingMoney } from '../exports/booking-money';
 import { OfficeRepository } from '../exports/office.repository';
 import { mondayOf } from '../reports/iso-week';
+import { shopSetUp } from '../shop/shop-profile';
 import { ShopRepository } from '../shop/shop.repository';
 import { TodayRepository } from './today.repository';
 
@@ -35,8 +36,7 @@ export class TodayService {
   async today(user: AuthUser, query: TodayQuery, now = new Date()): Promise<TodayResponse> {
     if (user.role !== 'owner' && query.scope === 'all') throw new ForbiddenException(todayWords.ownerOnlyAll);
     const scope = query.scope ?? (user.role === 'owner' ? 'all' : 'mine');
-    const shop = await this.shop.findSettings();
-    if (!shop) throw new NotFoundException('The shop has not been set up yet; run the seed or add its settings.');
+    const shop = shopSetUp(await this.shop.findSettings());
     const format = shopFormat({ locale: shop.locale, currency: shop.currency, timeZone: shop.timezone });
     const today = todayIn(shop.timezone, now);
     const weekStart = mondayOf(today);
