@@ -21,12 +21,8 @@ export class AuthTokensRepository {
    * same token only one gets the row back, so a token can never be spent twice.
    */
   consume(tokenHash: string, purpose: Purpose, trx: Executor = this.db) {
-    return trx
-      .updateTable('auth_tokens')
-      .set({ used_at: sql`now()` })
+    return this.spendUnused(trx, purpose)
       .where('token_hash', '=', tokenHash)
-      .where('purpose', '=', purpose)
-      .where('used_at', 'is', null)
       .where('expires_at', '>', sql<Date>`now()`)
       .returning(['user_id'])
       .executeTakeFirst();
@@ -34,12 +30,15 @@ export class AuthTokensRepository {
 
   /** Retires every unused token of one purpose for a user (a newer link, or the password changed). */
   retireUnused(userId: string, purpose: Purpose, trx: Executor = this.db) {
+    return this.spendUnused(trx, purpose).where('user_id', '=', userId).execute();
+  }
+
+  /** Marks used the unused tokens of one purpose that the caller's filters pick. */
+  private spendUnused(trx: Executor, purpose: Purpose) {
     return trx
       .updateTable('auth_tokens')
       .set({ used_at: sql`now()` })
-      .where('user_id', '=', userId)
       .where('purpose', '=', purpose)
-      .where('used_at', 'is', null)
-      .execute();
+      .where('used_at', 'is', null);
   }
 }

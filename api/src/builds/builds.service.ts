@@ -15,7 +15,6 @@ import {
 import { shipByDate } from '../bench/scheduling';
 import { type Executor } from '../database/database';
 import { actorOf } from '../bookings/bookings.service';
-import { balanceLetterData } from '../mail/balance-letter';
 import { formatMoney as formatMoneyWords } from '../mail/templates/format';
 import { dayWords } from '../common/shop-voice';
 import { deliveryHold } from '../bookings/booking-view';
@@ -252,17 +251,8 @@ export class BuildsService extends BuildServiceBase {
         }
       }
       if (to === 'ready') {
-        const letter = balanceLetterData(booking.customer_name, booking.reference, money);
-        if (letter) {
-          await this.mail.enqueue(trx, {
-            template: 'balance-requested',
-            to: booking.customer_email,
-            bookingId,
-            userId: booking.customer_id,
-            dedupeKey: `balance:${bookingId}`,
-            data: letter,
-          });
-        }
+        const player = { id: booking.customer_id, name: booking.customer_name, email: booking.customer_email };
+        await this.mail.enqueueBalanceLetter(trx, player, booking, money, `balance:${bookingId}`);
       }
       if (MAILED_STATES.includes(to)) {
         const faulty =

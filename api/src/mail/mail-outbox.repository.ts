@@ -82,21 +82,14 @@ export class MailOutboxRepository {
    * The claim: queued → sending in one statement under a row lock. `for update skip locked`
    * means two senders that race for the same row never both get it: the loser sees no row.
    */
-  claim(id: string, trx: Executor = this.db) {
-    return trx
-      .updateTable('mail_outbox')
-      .set({ state: 'sending', attempts: sql`attempts + 1`, claimed_at: sql`now()`, last_attempt_at: sql`now()` })
-      .where('id', '=', (eb) =>
-        eb.selectFrom('mail_outbox').select('id').where('id', '=', id).where('state', '=', 'queued').forUpdate().skipLocked(),
-      )
-      .returningAll()
-      .executeTakeFirst();
+  async claim(id: string, trx: Executor = this.db) {
+    return (await this.claimMany([id], trx)).at(0);
   }
 
   /**
-   * The same claim for many rows in one statement (a batch of the outbox): each row listed that is
-   * still queued and not locked by another sender moves to 'sending' and comes back; a row another
-   * sender holds or has already taken is skipped, exactly as `claim` skips it.
+   * The claim for many rows in one statement (a batch of the outbox; `claim` is a batch of one): each
+   * row listed that is still queued and not locked by another sender moves to 'sending' and comes
+   * back; a row another sender holds or has already taken is skipped.
    */
   claimMany(ids: string[], trx: Executor = this.db) {
     if (ids.length === 0) return Promise.resolve([]);

@@ -8,9 +8,11 @@ import {
   type MailLogEntry,
   type MailLogPage,
   type MailState,
+  type MoneyFacts,
 } from '@loomwright/shared';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
+import { balanceLetterData } from './balance-letter';
 import { MailOutboxRepository } from './mail-outbox.repository';
 import { MailWorker } from './mail-worker.service';
 import { isMailTemplate, type MailTemplate, type OutgoingMail } from './mail.types';
@@ -55,6 +57,29 @@ export class MailService {
     const row = await this.outbox.insert(mail, this.domain, trx);
     if (row) await this.worker.scheduleDelivery(row.id, trx);
     return row;
+  }
+
+  /**
+   * The balance letter to the player, with the same money facts as their build page, when there is
+   * a balance to ask for (none before a firm quote); `dedupeKey` says how often it may go.
+   */
+  async enqueueBalanceLetter(
+    trx: Executor,
+    player: { id: string; name: string; email: string },
+    booking: { id: string; reference: string },
+    money: MoneyFacts,
+    dedupeKey: string,
+  ) {
+    const letter = balanceLetterData(player.name, booking.reference, money);
+    if (!letter) return undefined;
+    return this.enqueue(trx, {
+      template: 'balance-requested',
+      to: player.email,
+      bookingId: booking.id,
+      userId: player.id,
+      dedupeKey,
+      data: letter,
+    });
   }
 
   /**

@@ -15,7 +15,6 @@ import { actorOf, BookingsService, type BookingActor } from '../bookings/booking
 import { moneyOf } from '../common/shop-voice';
 import type { AppConfig } from '../config/configuration';
 import { Database, type Executor } from '../database/database';
-import { balanceLetterData } from '../mail/balance-letter';
 import { MailService } from '../mail/mail.service';
 import { PaymentsRepository, type PaymentRow } from './payments.repository';
 
@@ -452,18 +451,7 @@ export class PaymentsService {
    */
   async recordBalance(user: AuthUser, bookingId: string, input: RecordBalanceInput): Promise<BookingDetail> {
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.bookings.lock(trx, bookingId);
-      if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
-      if (booking.state !== 'ready') {
-        throw new ConflictException(
-          `Booking ${booking.reference} is "${bookingStateLabels[booking.state]}"; a balance is recorded once the build is ready.`,
-        );
-      }
-      const money = await this.bookings.moneyFacts(bookingId, trx);
-      if (money.settled)
-        throw new ConflictException(
-          errorResponse('nothing_due', `Nothing is due on ${booking.reference}; the balance is already paid or waived.`),
-        );
+      const { booking, money } = await this.lockWithBalanceDue(trx, bookingId, 'a balance is recorded');
       if (money.balanceDue !== formatMoney(input.amount, money.currency)) {
         throw new BadRequestException(
           `The amount must be the whole balance: the balance due on ${booking.reference} is ${moneyOf({ amount: money.balanceDue ?? '0', currency: money.currency })}; record the whole amount, or the owner waives what is left.`,
@@ -503,35 +491,32 @@ export class PaymentsService {
     return this.bookings.getDetail(bookingId);
   }
 
+  /** Locks a ready booking that still has a balance to pay; 404, or 409 in words ("… once the build is ready", "Nothing is due"). */
+  private async lockWithBalanceDue(trx: Executor, bookingId: string, what: string) {
+    const booking = await this.bookings.lock(trx, bookingId);
+    if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
+    if (booking.state !== 'ready') {
+      throw new ConflictException(
+        `Booking ${booking.reference} is "${bookingStateLabels[booking.state]}"; ${what} once the build is ready.`,
+      );
+    }
+    const money = await this.bookings.moneyFacts(bookingId, trx);
+    if (money.settled) {
+      throw new ConflictException(
+        errorResponse('nothing_due', `Nothing is due on ${booking.reference}; the balance is already paid or waived.`),
+      );
+    }
+    return { booking, money };
+  }
+
   /** Asks the player again for the balance, by e-mail with the same figures as their page. */
   async requestBalance(user: AuthUser, bookingId: string): Promise<BookingDetail> {
     await this.db.transaction().execute(async (trx) => {
-      const booking = await this.bookings.lock(trx, bookingId);
-      if (!booking) throw new NotFoundException(`There is no booking ${bookingId}.`);
-      if (booking.state !== 'ready') {
-        throw new ConflictException(
-          `Booking ${booking.reference} is "${bookingStateLabels[booking.state]}"; the balance is requested once the build is ready.`,
-        );
-      }
-      const money = await this.bookings.moneyFacts(bookingId, trx);
-      if (money.settled)
-        throw new ConflictException(
-          errorResponse('nothing_due', `Nothing is due on ${booking.reference}; the balance is already paid or waived.`),
-        );
+      const { booking, money } = await this.lockWithBalanceDue(trx, bookingId, 'the balance is requested');
       const customer = await this.payments.findCustomer(trx, booking.customer_id);
       // One reminder a minute at most: a double click sends one e-mail.
       const minute = new Date().toISOString().slice(0, 16);
-      const letter = balanceLetterData(customer.name, booking.reference, money);
-      if (letter) {
-        await this.mail.enqueue(trx, {
-          template: 'balance-requested',
-          to: customer.email,
-          bookingId,
-          userId: customer.id,
-          dedupeKey: `balance-again:${bookingId}:${minute}`,
-          data: letter,
-        });
-      }
+      await this.mail.enqueueBalanceLetter(trx, customer, booking, money, `balance-again:${bookingId}:${minute}`);
       await this.bookings.insertNote(
         trx,
         booking,
