@@ -25,5 +25,8 @@ export default defineConfig({
     include: ['src/**/*.spec.{ts,tsx}'],
     setupFiles: ['../shared/src/ui/test-setup.ts'],
     passWithNoTests: true,
+    // Component tests share two cores with the API tests in one vitest run; Testing Library's
+    // findBy waits and a jsdom render of a whole page can pass vitest's default 5 s there.
+    testTimeout: 20_000,
   },
 });
