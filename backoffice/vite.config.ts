@@ -1,6 +1,7 @@
 import path from 'node:path';
 import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vitest/config';
+import { componentTests } from '../shared/src/ui/component-tests.config';
 
 const apiTarget = process.env.API_URL ?? 'http://localhost:3000';
 
@@ -18,15 +19,5 @@ export default defineConfig({
   },
   server: { port: 5174, proxy: { '/api': apiTarget } },
   build: { outDir: 'dist', sourcemap: false },
-  test: {
-    name: 'backoffice',
-    root: __dirname,
-    environment: 'jsdom',
-    include: ['src/**/*.spec.{ts,tsx}'],
-    setupFiles: ['../shared/src/ui/test-setup.ts'],
-    passWithNoTests: true,
-    // Component tests share two cores with the API tests in one vitest run; Testing Library's
-    // findBy waits and a jsdom render of a whole page can pass vitest's default 5 s there.
-    testTimeout: 20_000,
-  },
+  test: componentTests('backoffice', __dirname),
 });

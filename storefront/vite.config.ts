@@ -3,6 +3,7 @@ import { constants } from 'node:zlib';
 import react from '@vitejs/plugin-react';
 import { compression, defineAlgorithm } from 'vite-plugin-compression2';
 import { defineConfig } from 'vitest/config';
+import { componentTests } from '../shared/src/ui/component-tests.config';
 import { routePages } from './route-pages';
 
 const apiTarget = process.env.API_URL ?? 'http://localhost:3000';
@@ -62,15 +63,5 @@ export default defineConfig({
       output: { codeSplitting: { groups: [{ name: 'storefront', tags: ['$initial'] }] } },
     },
   },
-  test: {
-    name: 'storefront',
-    root: __dirname,
-    environment: 'jsdom',
-    include: ['src/**/*.spec.{ts,tsx}'],
-    setupFiles: ['../shared/src/ui/test-setup.ts'],
-    passWithNoTests: true,
-    // Component tests share two cores with the API tests in one vitest run; Testing Library's
-    // findBy waits and a jsdom render of a whole page can pass vitest's default 5 s there.
-    testTimeout: 20_000,
-  },
+  test: componentTests('storefront', __dirname),
 });
