@@ -9,7 +9,7 @@ import { toAuthUser, UsersService } from '../users/users.service';
 import { AuthTokensService } from './auth-tokens.service';
 import { decoyPasswordHash, hashPassword, verifyPassword } from './password';
 import { SESSION_COOKIE, sessionCookieOptions } from './session-cookie';
-import { SessionsService, type SessionUser } from './sessions.service';
+import { SESSION_ENDED, SessionsService, type SessionUser } from './sessions.service';
 
 const UNIQUE_VIOLATION = '23505';
 
@@ -139,7 +139,7 @@ export class AuthService implements OnModuleInit {
   async changePassword(userId: string, currentPassword: string, password: string): Promise<AuthUser> {
     const current = await this.users.findById(userId);
     const ok = await verifyPassword(currentPassword, current?.password_hash ?? (await decoyPasswordHash()));
-    if (!current) throw new UnauthorizedException(errorResponse('session_ended', 'Your session has ended; please sign in again.'));
+    if (!current) throw new UnauthorizedException(errorResponse('session_ended', SESSION_ENDED));
     if (!current.password_hash || !ok) {
       throw new BadRequestException(errorResponse('current_password_wrong', authMessages.currentPasswordWrong));
     }
@@ -148,7 +148,7 @@ export class AuthService implements OnModuleInit {
       await this.sessions.endAllFor(userId, 'password_changed', userId, trx);
       await this.tokens.retireUnused(trx, userId, 'password_reset');
       const row = await this.users.setPassword(userId, passwordHash, trx);
-      if (!row) throw new UnauthorizedException(errorResponse('session_ended', 'Your session has ended; please sign in again.'));
+      if (!row) throw new UnauthorizedException(errorResponse('session_ended', SESSION_ENDED));
       await this.tellPasswordChanged(trx, row, 'signed-in');
       return toAuthUser(row);
     });
@@ -199,7 +199,7 @@ export class AuthService implements OnModuleInit {
 
   async currentUser(id: string): Promise<AuthUser> {
     const user = await this.findUser(id);
-    if (!user) throw new UnauthorizedException(errorResponse('session_ended', 'Your session has ended; please sign in again.'));
+    if (!user) throw new UnauthorizedException(errorResponse('session_ended', SESSION_ENDED));
     return user;
   }
 }

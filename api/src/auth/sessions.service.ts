@@ -30,7 +30,7 @@ const endedWords: Record<SessionEndReason, string> = {
   signed_out_everywhere: 'The shop signed this account out of every device; please sign in again.',
   password_changed: 'Your password was changed since you signed in; please sign in again.',
 };
-const SESSION_ENDED = 'Your session has ended; please sign in again.';
+export const SESSION_ENDED = 'Your session has ended; please sign in again.';
 
 /**
  * Server-side sessions behind the JWT cookie. The token stays short-lived and signed, but it also
