@@ -57,8 +57,11 @@ export async function startPaymentHarness(): Promise<PaymentHarness> {
   };
 }
 
-/** Polls until `check` returns a value (the webhook travels asynchronously), or fails after a while. */
-export async function eventually<T>(check: () => Promise<T | undefined | null | false>, what: string, timeoutMs = 8000): Promise<T> {
+/**
+ * Polls until `check` answers. The wait is long enough for the fake's webhook retries (0.5, 1, 2 and 4 s after a
+ * delivery the API answered slowly or not at all) on a machine busy with other suites; a passing check returns at once.
+ */
+export async function eventually<T>(check: () => Promise<T | undefined | null | false>, what: string, timeoutMs = 20_000): Promise<T> {
   const end = Date.now() + timeoutMs;
   for (;;) {
     const value = await check();
