@@ -106,9 +106,10 @@ export function Component() {
         onChange={(_, value) => value && update({ filters: { state: String(value) } })}
         sx={{ bgcolor: 'transparent', mb: 1.5 }}
       >
-        <TabList>
+        {/* On a phone the six states do not fit across: the list scrolls sideways instead of squeezing the labels. */}
+        <TabList sx={{ overflowX: 'auto', scrollSnapType: 'x mandatory' }}>
           {benchStates.map((s, index) => (
-            <Tab key={s} value={s} indicatorInset>
+            <Tab key={s} value={s} indicatorInset sx={{ flex: 'none', whiteSpace: 'nowrap', scrollSnapAlign: 'start' }}>
               {shortStateLabels[s]}
               <Chip size="sm" variant="soft" sx={{ ml: 1 }}>
                 {counts[index].data?.total ?? '…'}
