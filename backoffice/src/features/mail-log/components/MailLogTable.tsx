@@ -163,7 +163,13 @@ export function MailLogTable() {
       {log.isError && <Alert color="danger">{log.error.message}</Alert>}
 
       <Sheet variant="outlined" sx={{ borderRadius: 'sm', overflow: 'auto' }}>
-        <Table size="sm" stickyHeader hoverRow sx={{ '& td, & th': { verticalAlign: 'top' }, fontVariantNumeric: 'tabular-nums' }}>
+        {/* Seven columns need about 56 rem; on a phone the table scrolls sideways inside the sheet. */}
+        <Table
+          size="sm"
+          stickyHeader
+          hoverRow
+          sx={{ minWidth: '56rem', '& td, & th': { verticalAlign: 'top' }, fontVariantNumeric: 'tabular-nums' }}
+        >
           <thead>
             <tr>
               <th style={{ width: 130 }}>Queued</th>
