@@ -125,7 +125,15 @@ export function Component() {
                 </Typography>
               )}
               {b.levelOverrideReason && <Typography level="body-sm">Why this builder: {b.levelOverrideReason}</Typography>}
-              {!b.benchDate && <Typography level="body-sm">The shop sets a bench date once the deposit is paid.</Typography>}
+              {!b.benchDate && b.state === 'requested' && (
+                <Typography level="body-sm">
+                  {b.depositStatus === 'paid'
+                    ? 'Your deposit is in. A builder accepts the build and sets a bench date next; we e-mail you when it is set.'
+                    : b.depositStatus === 'processing'
+                      ? 'The shop sets a bench date once your bank payment has settled.'
+                      : 'The shop sets a bench date once the deposit is paid.'}
+                </Typography>
+              )}
             </Section>
             <Section title="Payments">
               <Typography sx={{ fontVariantNumeric: 'tabular-nums' }}>Deposit: {formatAmount(b.deposit, b.currency)}</Typography>
