@@ -7,6 +7,7 @@ import Link from '@mui/joy/Link';
 import Stack from '@mui/joy/Stack';
 import Textarea from '@mui/joy/Textarea';
 import Typography from '@mui/joy/Typography';
+import visuallyHidden from '@mui/utils/visuallyHidden';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { createApiClient } from '../api-client';
 import {
@@ -47,15 +48,6 @@ export function UnreadMessagesBadge({ bookingId }: { bookingId: string }) {
   const count = unread.data?.bookings.find((b) => b.bookingId === bookingId)?.unread ?? 0;
   return <UnreadCountChip count={count} />;
 }
-
-const visuallyHidden = {
-  position: 'absolute',
-  width: '1px',
-  height: '1px',
-  overflow: 'hidden',
-  clip: 'rect(0 0 0 0)',
-  whiteSpace: 'nowrap',
-} as const;
 
 /** The chip itself: the number, read out in words. */
 export function UnreadCountChip({ count }: { count: number }) {

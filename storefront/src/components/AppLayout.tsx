@@ -2,6 +2,7 @@ import Box from '@mui/joy/Box';
 import Link from '@mui/joy/Link';
 import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
+import visuallyHidden from '@mui/utils/visuallyHidden';
 import { Suspense } from 'react';
 import { Link as RouterLink, Outlet } from 'react-router';
 import { AccountNav } from 'src/features/auth/components/AccountNav';
@@ -76,16 +77,6 @@ export function AppLayout() {
     </Box>
   );
 }
-
-/** Out of sight but read out (the usual clip pattern). */
-const visuallyHidden = {
-  position: 'absolute',
-  width: '1px',
-  height: '1px',
-  overflow: 'hidden',
-  clip: 'rect(0 0 0 0)',
-  whiteSpace: 'nowrap',
-} as const;
 
 /** Our mark: a board seen from above with three pedals on it (colours from the theme). */
 function BoardMark() {

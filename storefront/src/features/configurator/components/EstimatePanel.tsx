@@ -3,7 +3,7 @@ import Button from '@mui/joy/Button';
 import CircularProgress from '@mui/joy/CircularProgress';
 import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
-import { useEffect, useState } from 'react';
+import { Fragment, useEffect, useState } from 'react';
 import type { Catalog } from '@loomwright/shared';
 import { LateAlert } from 'src/components/LateAlert';
 import { formatHours, formatMoney, formatMoneyRange, formatRateRange } from 'src/lib/format';
@@ -107,30 +107,23 @@ export function EstimatePanel({ live, catalog }: { live: LiveEstimate; catalog: 
               '& dd': { m: 0, textAlign: 'right', fontWeight: 'md' },
             }}
           >
-            <Typography component="dt" level="body-sm">
-              Labor
-            </Typography>
-            <Typography component="dd" level="body-sm" data-testid="estimate-labor">
-              {formatMoneyRange(e.laborLow, e.laborHigh, currency)} labor ({formatHours(e.laborHours)})
-            </Typography>
-            <Typography component="dt" level="body-sm">
-              Materials
-            </Typography>
-            <Typography component="dd" level="body-sm" data-testid="estimate-materials">
-              {formatMoney(e.materialsTotal, currency)}
-            </Typography>
-            <Typography component="dt" level="body-sm">
-              Rate
-            </Typography>
-            <Typography component="dd" level="body-sm" data-testid="estimate-rate">
-              {levelName}, {formatRateRange(e.rate.low, e.rate.high, currency)}
-            </Typography>
-            <Typography component="dt" level="body-sm">
-              Deposit
-            </Typography>
-            <Typography component="dd" level="body-sm" data-testid="estimate-deposit">
-              {formatMoney(e.deposit, currency)}
-            </Typography>
+            {(
+              [
+                ['Labor', 'labor', `${formatMoneyRange(e.laborLow, e.laborHigh, currency)} labor (${formatHours(e.laborHours)})`],
+                ['Materials', 'materials', formatMoney(e.materialsTotal, currency)],
+                ['Rate', 'rate', `${levelName}, ${formatRateRange(e.rate.low, e.rate.high, currency)}`],
+                ['Deposit', 'deposit', formatMoney(e.deposit, currency)],
+              ] as const
+            ).map(([label, id, value]) => (
+              <Fragment key={id}>
+                <Typography component="dt" level="body-sm">
+                  {label}
+                </Typography>
+                <Typography component="dd" level="body-sm" data-testid={`estimate-${id}`}>
+                  {value}
+                </Typography>
+              </Fragment>
+            ))}
           </Box>
         ) : live.missing.length ? (
           <MissingChoices missing={live.missing} size="sm" />

@@ -1,5 +1,6 @@
 import Box from '@mui/joy/Box';
 import Typography from '@mui/joy/Typography';
+import visuallyHidden from '@mui/utils/visuallyHidden';
 import { configuratorSteps, type StepId } from '../lib/steps';
 import { CheckMark } from './CheckMark';
 
@@ -9,19 +10,6 @@ import { CheckMark } from './CheckMark';
  * readers (aria-current) and by shape and weight on screen. A button's name is its visible text
  * (the step's name, plus "visited" for screen readers), never a separate aria-label (WCAG 2.2 SC 2.5.3).
  */
-/** Read by screen readers, not shown (the usual clip pattern). */
-const visuallyHidden = {
-  position: 'absolute',
-  width: '1px',
-  height: '1px',
-  m: '-1px',
-  p: 0,
-  overflow: 'hidden',
-  clip: 'rect(0 0 0 0)',
-  whiteSpace: 'nowrap',
-  border: 0,
-} as const;
-
 export function StepProgress({ current, onSelect }: { current: StepId; onSelect: (step: StepId) => void }) {
   const index = configuratorSteps.findIndex((s) => s.id === current);
   return (

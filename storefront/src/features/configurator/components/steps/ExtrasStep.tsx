@@ -2,6 +2,7 @@ import Box from '@mui/joy/Box';
 import Card from '@mui/joy/Card';
 import Checkbox from '@mui/joy/Checkbox';
 import Typography from '@mui/joy/Typography';
+import visuallyHidden from '@mui/utils/visuallyHidden';
 import { formatHours, formatMoneyRange } from 'src/lib/format';
 import { extraEffect } from '../../lib/level-compare';
 import { functionHint } from '../../lib/function-hints';
@@ -29,19 +30,7 @@ export default function ExtrasStep({ catalog, configuration, update, live }: Ste
         into one amp.
       </StepHeading>
       <Box component="fieldset" sx={{ border: 0, p: 0, m: 0 }}>
-        <Typography
-          component="legend"
-          sx={{
-            position: 'absolute',
-            width: '1px',
-            height: '1px',
-            m: '-1px',
-            p: 0,
-            overflow: 'hidden',
-            clip: 'rect(0 0 0 0)',
-            whiteSpace: 'nowrap',
-          }}
-        >
+        <Typography component="legend" sx={visuallyHidden}>
           Functions to add
         </Typography>
         <Box sx={{ display: 'grid', gap: 2, gridTemplateColumns: { xs: '1fr', md: '1fr 1fr' } }}>
