@@ -22,6 +22,28 @@ const scheduled: MailTemplateData['booking-scheduled'] = {
   bookingUrl: 'http://localhost:3000/builds/abc',
 };
 
+/** The same booking moved a week later: the calendar file's first revision. */
+const rescheduled: MailTemplateData['booking-rescheduled'] = {
+  ...scheduled,
+  benchDate: '2027-01-19',
+  shipBy: '2027-01-14',
+  previousBenchDate: '2027-01-12',
+  shift: '7 days later',
+  reason: 'Your builder is ill this week.',
+  calendarSequence: 1,
+};
+
+/** The same booking cancelled with its deposit refunded: the calendar file's second revision. */
+const cancelled: MailTemplateData['booking-cancelled'] = {
+  name: 'Rosa',
+  reference: 'LW-1042',
+  reason: 'The shop cannot source the case in time.',
+  currency: 'USD',
+  refundAmount: '280.00',
+  shipBy: '2027-01-08',
+  calendarSequence: 2,
+};
+
 /** The balance letter as the bench sends it when a build is ready. */
 const balanceFromBench: MailTemplateData['balance-requested'] = {
   name: 'Rosa',
@@ -56,24 +78,8 @@ const samples: { [T in MailTemplate]: MailTemplateData[T] } = {
     expectedBenchDate: '2027-01-12',
   },
   'booking-scheduled': scheduled,
-  'booking-rescheduled': {
-    ...scheduled,
-    benchDate: '2027-01-19',
-    shipBy: '2027-01-14',
-    previousBenchDate: '2027-01-12',
-    shift: '7 days later',
-    reason: 'Your builder is ill this week.',
-    calendarSequence: 1,
-  },
-  'booking-cancelled': {
-    name: 'Rosa',
-    reference: 'LW-1042',
-    reason: 'The shop cannot source the case in time.',
-    currency: 'USD',
-    refundAmount: '280.00',
-    shipBy: '2027-01-08',
-    calendarSequence: 2,
-  },
+  'booking-rescheduled': rescheduled,
+  'booking-cancelled': cancelled,
   'status-changed': { name: 'Rosa', reference: 'LW-1042', state: 'pedals_received', bookingUrl: 'http://x/b' },
   'balance-requested': { name: 'Rosa', reference: 'LW-1042', balanceDue: '1234567.8', currency: 'USD', payUrl: 'http://x/pay' },
   'deposit-refunded': { name: 'Rosa', reference: 'LW-1042', amount: '280.00', currency: 'USD' },
@@ -537,19 +543,10 @@ describe('the calendar file when a booking moves or is cancelled', () => {
   // the event instead of adding a second one.
 
   const first = renderMail('booking-scheduled', scheduled, shop).attachments[0];
-  const moved = {
-    ...scheduled,
-    benchDate: '2027-01-19',
-    shipBy: '2027-01-14',
-    previousBenchDate: '2027-01-12',
-    shift: '7 days later',
-    reason: 'Your builder is ill this week.',
-    calendarSequence: 1,
-  };
 
   it('an update keeps the UID, moves the day and raises SEQUENCE (RFC 5545 §3.8.7.4)', () => {
     const original = parse(first.content);
-    const { subject, text, attachments } = renderMail('booking-rescheduled', moved, shop);
+    const { subject, text, attachments } = renderMail('booking-rescheduled', rescheduled, shop);
     const update = parse(attachments[0].content);
     expect(update.component.getFirstPropertyValue('method')).toBe('PUBLISH');
     expect(update.vevent.uid).toBe(original.vevent.uid);
@@ -564,19 +561,7 @@ describe('the calendar file when a booking moves or is cancelled', () => {
   });
 
   it('a cancellation is METHOD:CANCEL with STATUS:CANCELLED under the same UID and a higher SEQUENCE (RFC 5546 §3.2.5)', () => {
-    const { attachments, text } = renderMail(
-      'booking-cancelled',
-      {
-        name: 'Rosa',
-        reference: 'LW-1042',
-        reason: 'The shop cannot source the case.',
-        currency: 'USD',
-        refundAmount: '280.00',
-        shipBy: '2027-01-14',
-        calendarSequence: 2,
-      },
-      shop,
-    );
+    const { attachments, text } = renderMail('booking-cancelled', cancelled, shop);
     expect(attachments[0].contentType).toContain('method=CANCEL');
     const cancel = parse(attachments[0].content);
     expect(cancel.component.getFirstPropertyValue('method')).toBe('CANCEL');
@@ -588,14 +573,14 @@ describe('the calendar file when a booking moves or is cancelled', () => {
   });
 
   it('a move after the pedals are in sends no calendar file and no packing list', () => {
-    const { attachments, text } = renderMail('booking-rescheduled', { ...moved, pedalsReceived: true }, shop);
+    const { attachments, text } = renderMail('booking-rescheduled', { ...rescheduled, pedalsReceived: true }, shop);
     expect(attachments).toEqual([]);
     expect(text).not.toContain('How to pack');
     expect(text).toContain('already with us');
   });
 
   it('refuses a calendar sequence that is not a whole number from 0', () => {
-    expect(() => renderMail('booking-rescheduled', { ...moved, calendarSequence: -1 }, shop)).toThrow(MailDataError);
+    expect(() => renderMail('booking-rescheduled', { ...rescheduled, calendarSequence: -1 }, shop)).toThrow(MailDataError);
   });
 });
 
@@ -610,18 +595,9 @@ describe('outbox rows stored under the older key names', () => {
   });
 
   it('booking-scheduled: customerName, buildUrl and pedals with the flags', () => {
-    const old = {
-      customerName: 'Rosa Delgado-Finch',
-      reference: 'LW-1042',
-      benchDate: '2027-01-12',
-      shipBy: '2027-01-08',
-      builderLevel: 'journeyman',
-      builderName: 'Wren Calloway',
-      expectedCompletion: '2027-01-15',
-      pedals: ['tuner', 'fuzz', 'analog delay', 'plate reverb'],
-      switcher: true,
-      buildUrl: 'http://localhost:3000/builds/abc',
-    };
+    // Today's data under the older keys: the list of what to ship was a list of pedals and flags.
+    const { name, whatToShip: _list, bookingUrl, ...rest } = scheduled;
+    const old = { ...rest, customerName: name, pedals: ['tuner', 'fuzz', 'analog delay', 'plate reverb'], switcher: true, buildUrl: bookingUrl };
     const stored = renderStoredMail('booking-scheduled', old, shop);
     expect(same(stored)).toEqual(same(renderMail('booking-scheduled', scheduled, shop)));
     expect(stored.text).toContain('Hello Rosa Delgado-Finch');
