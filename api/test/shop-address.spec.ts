@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { MailTemplateData } from '../src/mail/mail.types';
 import { renderMail } from '../src/mail/templates/render';
 import { ShopService } from '../src/shop/shop.service';
 import { createTestApp, type TestApp } from './support/test-app';
@@ -9,6 +10,16 @@ describe('shop postal address (PATCH /api/settings postalAddress)', () => {
   let t: TestApp;
   let owner: string;
   const address = { line1: '14 Foundry Lane', line2: 'Unit 3', city: 'Millbrook', region: 'OR', postalCode: '97000' };
+  /** The letter that tells a player where to ship their pedals. */
+  const scheduled: MailTemplateData['booking-scheduled'] = {
+    name: 'Rosa',
+    reference: 'LW-1042',
+    benchDate: '2027-01-12',
+    shipBy: '2027-01-08',
+    builderLevel: 'journeyman',
+    expectedCompletion: '2027-01-15',
+    whatToShip: ['Tuner', 'Fuzz'],
+  };
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -20,19 +31,7 @@ describe('shop postal address (PATCH /api/settings postalAddress)', () => {
     expect((await t.http().get('/api/settings').set('Cookie', owner).expect(200)).body.postalAddress).toBeNull();
     const shop = await t.app.get(ShopService).profile();
     expect(shop.postalAddress).toBeNull();
-    const mail = renderMail(
-      'booking-scheduled',
-      {
-        name: 'Rosa',
-        reference: 'LW-1042',
-        benchDate: '2027-01-12',
-        shipBy: '2027-01-08',
-        builderLevel: 'journeyman',
-        expectedCompletion: '2027-01-15',
-        whatToShip: ['Tuner', 'Fuzz'],
-      },
-      shop,
-    );
+    const mail = renderMail('booking-scheduled', scheduled, shop);
     expect(mail.text).toContain('for the address');
   });
 
@@ -42,19 +41,7 @@ describe('shop postal address (PATCH /api/settings postalAddress)', () => {
     // One line in the order a postal label reads in the US: street, unit, city, state and ZIP (common practice, no published source).
     const profile = (await t.http().get('/api/shop').expect(200)).body;
     expect(profile.postalAddress).toBe(`14 Foundry Lane, Unit 3, Millbrook, OR 97000, ${profile.countryCode}`);
-    const mail = renderMail(
-      'booking-scheduled',
-      {
-        name: 'Rosa',
-        reference: 'LW-1042',
-        benchDate: '2027-01-12',
-        shipBy: '2027-01-08',
-        builderLevel: 'journeyman',
-        expectedCompletion: '2027-01-15',
-        whatToShip: ['Tuner', 'Fuzz'],
-      },
-      await t.app.get(ShopService).profile(),
-    );
+    const mail = renderMail('booking-scheduled', scheduled, await t.app.get(ShopService).profile());
     expect(mail.text).toContain('14 Foundry Lane, Unit 3, Millbrook, OR 97000');
     expect(mail.text).not.toContain('for the address');
     // A region and a second line are optional.
