@@ -21,9 +21,22 @@ let c: { id: string; reference: string };
 let master: string;
 let junior: string;
 
-/** A firm quote at the $100.00/h the reports' hours are worked at, with a $150.00 deposit. */
-const firmQuote = (bookingId: string, total: string, laborHours: string) =>
-  insertFirmQuote(t.db, bookingId, { laborHours, hourlyRate: '100.00', total, deposit: '150.00' });
+/**
+ * A booking with its builder and bench date, at a firm price (at the $100.00/h the reports' hours
+ * are worked at, with a $150.00 deposit) whose deposit was paid at `depositPaidAt`.
+ */
+async function benchAtFirmPrice(
+  bookingId: string,
+  booked: { state: 'scheduled' | 'on_bench'; builderId: string; benchDate: string; total: string; laborHours: string; depositPaidAt: Date },
+) {
+  await t.db
+    .updateTable('bookings')
+    .set({ state: booked.state, builder_id: booked.builderId, bench_date: booked.benchDate })
+    .where('id', '=', bookingId)
+    .execute();
+  await insertFirmQuote(t.db, bookingId, { laborHours: booked.laborHours, hourlyRate: '100.00', total: booked.total, deposit: '150.00' });
+  await setPaidAt(t.db, bookingId, booked.depositPaidAt);
+}
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -38,22 +51,24 @@ beforeAll(async () => {
     .set({ created_at: new Date('2026-11-02T15:00:00Z') })
     .execute();
   // a: scheduled with the master at a firm 1,000.00, deposit paid in November, balance 300 paid in December.
-  await t.db
-    .updateTable('bookings')
-    .set({ state: 'on_bench', builder_id: master, bench_date: '2026-11-23' })
-    .where('id', '=', a.id)
-    .execute();
-  await firmQuote(a.id, '1000.00', '8.00');
-  await setPaidAt(t.db, a.id, new Date('2026-11-03T17:00:00Z'));
+  await benchAtFirmPrice(a.id, {
+    state: 'on_bench',
+    builderId: master,
+    benchDate: '2026-11-23',
+    total: '1000.00',
+    laborHours: '8.00',
+    depositPaidAt: new Date('2026-11-03T17:00:00Z'),
+  });
   await insertPaidBalance(t.db, a.id, '300.00', new Date('2026-12-01T18:00:00Z'));
   // b: with the junior at a firm 500.00; deposit paid 30 Nov 23:30 Chicago (1 Dec 05:30 UTC): November on the shop's books.
-  await t.db
-    .updateTable('bookings')
-    .set({ state: 'scheduled', builder_id: junior, bench_date: '2026-11-30' })
-    .where('id', '=', b.id)
-    .execute();
-  await firmQuote(b.id, '500.00', '4.00');
-  await setPaidAt(t.db, b.id, new Date('2026-12-01T05:30:00Z'));
+  await benchAtFirmPrice(b.id, {
+    state: 'scheduled',
+    builderId: junior,
+    benchDate: '2026-11-30',
+    total: '500.00',
+    laborHours: '4.00',
+    depositPaidAt: new Date('2026-12-01T05:30:00Z'),
+  });
   // A refund in December of an earlier, cancelled booking's deposit.
   const gone = await createBooking(t.db, { laborHours: '2.00', deposit: '60.00' });
   await t.db
