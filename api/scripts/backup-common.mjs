@@ -6,18 +6,13 @@ import { spawn, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { createReadStream, existsSync, readdirSync, readFileSync } from 'node:fs';
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
+import { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import {
-  CreateBucketCommand,
-  GetObjectCommand,
-  HeadBucketCommand,
-  ListObjectsV2Command,
-  PutObjectCommand,
-  S3Client,
-} from '@aws-sdk/client-s3';
+import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, ListObjectsV2Command, PutObjectCommand } from '@aws-sdk/client-s3';
 
 export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
+const requireFromHere = createRequire(import.meta.url);
 
 /** The archive's own name and version, written into its manifest and checked on restore. */
 export const ARCHIVE_FORMAT = 'loomwright-backup';
@@ -66,6 +61,7 @@ export function readSettings(env = process.env) {
   }
   const driver = values.PHOTO_STORAGE ?? 'disk';
   if (driver !== 's3' && driver !== 'disk') throw new Refusal(`PHOTO_STORAGE must be s3 or disk, not ${JSON.stringify(driver)}.`);
+  apiPhotoStorage(); // the photo store (below) works through the API's build: refused now, before any work, if it is missing
   return {
     source,
     databaseUrl: values.DATABASE_URL,
@@ -136,6 +132,18 @@ export function sha256File(file) {
   });
 }
 
+/**
+ * The API's own photo-storage module (api/src/bookings/photo-storage.ts) from its build, so the S3
+ * client settings and the content types of stored keys are the API's, written once. `npm start`
+ * builds it, as does `npm run build`.
+ */
+function apiPhotoStorage() {
+  const built = path.join(root, 'api/dist/src/bookings/photo-storage.js');
+  if (!existsSync(built))
+    throw new Refusal(`The API is not built (${path.relative(root, built)} is missing): run npm run build first (npm start does it too).`);
+  return requireFromHere(built);
+}
+
 /** Where photo bytes are read from and written to: the bucket through the S3 SDK, or a folder. */
 export function photoStore(photos) {
   if (photos.driver === 'disk') {
@@ -167,18 +175,7 @@ export function photoStore(photos) {
       },
     };
   }
-  const client = new S3Client({
-    region: photos.region,
-    endpoint: photos.endpoint,
-    forcePathStyle: photos.forcePathStyle,
-    credentials:
-      photos.accessKeyId && photos.secretAccessKey
-        ? { accessKeyId: photos.accessKeyId, secretAccessKey: photos.secretAccessKey }
-        : undefined,
-    requestChecksumCalculation: 'WHEN_REQUIRED',
-    responseChecksumValidation: 'WHEN_REQUIRED',
-    maxAttempts: 3,
-  });
+  const client = apiPhotoStorage().s3ClientFor(photos);
   return {
     async get(key) {
       try {
@@ -240,8 +237,5 @@ export async function migrationLevel(client) {
 
 export const appVersion = () => JSON.parse(readFileSync(path.join(root, 'package.json'), 'utf8')).version;
 
-/** The content type a stored key's extension stands for (as the API's photo storage names them). */
-export function contentTypeOfKey(key) {
-  const ext = key.slice(key.lastIndexOf('.') + 1);
-  return { jpg: 'image/jpeg', jpeg: 'image/jpeg', png: 'image/png', webp: 'image/webp' }[ext] ?? 'application/octet-stream';
-}
+/** The content type a stored key's extension stands for, as the API's photo storage names them. */
+export const contentTypeOfKey = (key) => apiPhotoStorage().contentTypeOfKey(key);

@@ -37,6 +37,17 @@ function storeEnv(databaseUrl: string, store: ObjectStore): Record<string, strin
   return { DATABASE_URL: databaseUrl, ...objectStoreEnv(store) };
 }
 
+/** The built API on one database and bucket: no workers, warnings only, no sign-in limit in the checks' way. */
+function startApiOn(databaseUrl: string, store: ObjectStore, settings: Record<string, string>): Promise<ApiProcess> {
+  return startApiProcess({
+    ...storeEnv(databaseUrl, store),
+    RUN_WORKERS: 'false',
+    LOG_LEVEL: 'warn',
+    AUTH_THROTTLE_LIMIT: '1000',
+    ...settings,
+  });
+}
+
 /** Row counts of every table in the application's schema, read straight from PostgreSQL. */
 async function tableCounts(url: string): Promise<Record<string, number>> {
   const client = new Client({ connectionString: url });
@@ -63,7 +74,7 @@ async function signIn(api: ApiProcess, email: string): Promise<Visitor> {
 
 async function getBytes(visitor: Visitor, route: string): Promise<{ status: number; type: string | null; bytes: Buffer }> {
   const response = await fetch(`${visitor.base}${route}`, {
-    headers: { cookie: [...visitor.cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
+    headers: { cookie: visitor.cookieHeader() },
   });
   return { status: response.status, type: response.headers.get('content-type'), bytes: Buffer.from(await response.arrayBuffer()) };
 }
@@ -96,14 +107,10 @@ describe('npm run backup / npm run restore', () => {
     source = await createEmptyDatabase('lw_backup_src');
     target = await createEmptyDatabase('lw_backup_dst');
     // NODE_ENV=development: the demo seed leaves its bookings and payments out under NODE_ENV=test.
-    sourceApi = await startApiProcess({
-      ...storeEnv(source.url, sourceStore),
+    sourceApi = await startApiOn(source.url, sourceStore, {
       NODE_ENV: 'development',
       SEED_DEMO: 'true',
-      RUN_WORKERS: 'false',
       JWT_SECRET: 'backup-test-secret-0123456789abcdef',
-      LOG_LEVEL: 'warn',
-      AUTH_THROTTLE_LIMIT: '1000',
     });
 
     // Two photos on a new booking by the demo player: the demo seed has bookings and payments, no photos.
@@ -122,7 +129,7 @@ describe('npm run backup / npm run restore', () => {
       const response = await fetch(`${sourceApi.url}/api/bookings/${booking.body.id}/photos`, {
         method: 'POST',
         body: form,
-        headers: { cookie: [...player.cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
+        headers: { cookie: player.cookieHeader() },
       });
       const body = (await response.json()) as { url: string; thumbnailUrl: string };
       expect(response.status, JSON.stringify(body)).toBe(201);
@@ -196,14 +203,7 @@ describe('npm run backup / npm run restore', () => {
     expect(await tableCounts(target.url)).toEqual(counts);
 
     // The product on the restored database and bucket (no seeding): same answers, same bytes.
-    targetApi = await startApiProcess({
-      ...storeEnv(target.url, targetStore),
-      SEED_DEMO: 'false',
-      RUN_WORKERS: 'false',
-      JWT_SECRET: 'another-secret-for-the-restored-api-42',
-      LOG_LEVEL: 'warn',
-      AUTH_THROTTLE_LIMIT: '1000',
-    });
+    targetApi = await startApiOn(target.url, targetStore, { SEED_DEMO: 'false', JWT_SECRET: 'another-secret-for-the-restored-api-42' });
     const ownerBefore = await signIn(sourceApi, 'owner@shop.example');
     const ownerAfter = await signIn(targetApi, 'owner@shop.example');
     const sourceIds = new Client({ connectionString: source.url });

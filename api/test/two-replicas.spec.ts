@@ -204,7 +204,7 @@ describe('two API replicas on one database', () => {
           .toBuffer();
         const form = new FormData();
         form.append('file', new Blob([png], { type: 'image/png' }), 'board.png');
-        const cookie = [...player.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+        const cookie = player.cookieHeader();
         const uploaded = await fetch(`${a.url}/api/bookings/${booking.body.id}/photos`, {
           method: 'POST',
           headers: { cookie },

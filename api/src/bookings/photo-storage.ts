@@ -52,7 +52,7 @@ export class LocalDiskPhotoStorage extends PhotoStorage {
   }
 }
 
-/** The content type a stored key's extension stands for (keys are server-chosen: jpg, png, webp). */
+/** The content type a stored key's extension stands for (keys are server-chosen: jpg, png, webp); the backup reads it too. */
 export function contentTypeOfKey(key: string): string {
   const ext = key.slice(key.lastIndexOf('.') + 1);
   return (
@@ -72,6 +72,7 @@ export interface S3Settings {
   forcePathStyle: boolean;
 }
 
+/** The S3 client for the API and for `npm run backup` / `npm run restore` (backup-common.mjs loads it from the build). */
 export function s3ClientFor(settings: S3Settings): S3Client {
   return new S3Client({
     region: settings.region,

@@ -92,12 +92,17 @@ export class Visitor {
   cookies = new Map<string, string>();
   constructor(readonly base: string) {}
 
+  /** The Cookie header this visitor's browser would send now. */
+  cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+  }
+
   async call(method: string, route: string, body?: unknown, headers: Record<string, string> = {}) {
     const response = await fetch(`${this.base}${route}`, {
       method,
       headers: {
         ...(body !== undefined ? { 'content-type': 'application/json' } : {}),
-        ...(this.cookies.size ? { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } : {}),
+        ...(this.cookies.size ? { cookie: this.cookieHeader() } : {}),
         ...headers,
       },
       body: body !== undefined ? JSON.stringify(body) : undefined,
