@@ -1,7 +1,7 @@
 import { sql } from 'kysely';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { authMessages } from '@loomwright/shared';
-import { startMailFake, type CaughtMessage, type MailFake } from '../fakes/mail/mail-fake';
+import { startMailFake, type MailFake } from '../fakes/mail/mail-fake';
 import { MailDeliveryService } from '../src/mail/mail-delivery.service';
 import { sessionCookieFor } from './support/sessions';
 import { clearTables, createTestApp, type TestApp } from './support/test-app';
@@ -18,16 +18,12 @@ const tokenIn = (text: string) => /token=([A-Za-z0-9_-]{43})/.exec(text)?.[1];
 describe('single-use links at rest', () => {
   let t: TestApp;
   let fake: MailFake;
-  let box: CaughtMessage[];
-  let smtpPort: number;
-  let httpPort: number;
   let delivery: MailDeliveryService;
   let owner: string;
 
   beforeAll(async () => {
     fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
-    ({ smtpPort, httpPort, messages: box } = fake);
-    t = await createTestApp({ env: { SMTP_PORT: String(smtpPort), MAIL_MAX_ATTEMPTS: '2' } });
+    t = await createTestApp({ env: { SMTP_PORT: String(fake.smtpPort), MAIL_MAX_ATTEMPTS: '2' } });
     delivery = t.app.get(MailDeliveryService);
     owner = await sessionCookieFor(t, 'owner');
   }, 60_000);
@@ -38,7 +34,7 @@ describe('single-use links at rest', () => {
   beforeEach(async () => {
     await clearTables(t.db, ['auth_tokens', 'mail_outbox']);
     await t.db.deleteFrom('users').where('email', '=', 'ines.okafor@shop.example').execute();
-    box.length = 0;
+    fake.messages.length = 0;
   });
 
   /** How many rows, across every table of the application and the job queue, contain `text`. */
@@ -58,7 +54,7 @@ describe('single-use links at rest', () => {
 
   const outboxRow = (template: string) =>
     t.db.selectFrom('mail_outbox').selectAll().where('template', '=', template).orderBy('created_at', 'desc').executeTakeFirstOrThrow();
-  const mailedToken = (to: string) => tokenIn(box.find((m) => m.to.includes(to))?.text ?? '');
+  const mailedToken = (to: string) => tokenIn(fake.messages.find((m) => m.to.includes(to))?.text ?? '');
   const resend = (id: string) => t.http().post(`/api/mail/${id}/resend`).set('Cookie', owner).send({});
 
   it('removes a reset link from the outbox as its message is sent; the mailed link still works', async () => {
@@ -97,7 +93,7 @@ describe('single-use links at rest', () => {
     expect(await rowsContaining(first)).toBe(0);
     expect(failed.data).not.toHaveProperty('inviteUrl');
 
-    fake = await startMailFake({ smtpPort, httpPort, messages: box });
+    fake = await fake.restart();
     const again = await resend(failed.id).expect(201);
     expect(again.body).toMatchObject({ template: 'staff-invite', resentFromId: failed.id, state: 'queued' });
     expect(await delivery.deliverPending()).toMatchObject({ sent: 1 });
@@ -126,8 +122,8 @@ describe('single-use links at rest', () => {
 
     const copy = await resend(original.id).expect(201);
     expect(await delivery.deliverPending()).toMatchObject({ sent: 1 });
-    const after = tokenIn(box[0]!.text)!;
-    expect(box[0]!.messageId).toBe(copy.body.messageId);
+    const after = tokenIn(fake.messages[0]!.text)!;
+    expect(fake.messages[0]!.messageId).toBe(copy.body.messageId);
     expect(after).not.toBe(before);
     for (const token of [before, after]) expect(await rowsContaining(token)).toBe(0);
     const old = await t.http().post('/api/auth/password-reset/confirm').send({ token: before, password: 'another-pass-22' }).expect(400);

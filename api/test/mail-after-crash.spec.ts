@@ -19,17 +19,13 @@ import { clearTables, createTestApp, type TestApp } from './support/test-app';
 describe('mail whose sender stopped mid-send', () => {
   let t: TestApp;
   let fake: MailFake;
-  let box: CaughtMessage[];
-  let smtpPort: number;
-  let httpPort: number;
   let mail: MailService;
   let delivery: MailDeliveryService;
   const relay = createRelay(testDatabasePort());
 
   beforeAll(async () => {
     fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
-    ({ smtpPort, httpPort, messages: box } = fake);
-    t = await createTestApp({ env: { SMTP_PORT: String(smtpPort) }, databaseUrlOverride: throughRelay(await relay.listen()) });
+    t = await createTestApp({ env: { SMTP_PORT: String(fake.smtpPort) }, databaseUrlOverride: throughRelay(await relay.listen()) });
     mail = t.app.get(MailService);
     delivery = t.app.get(MailDeliveryService);
   }, 60_000);
@@ -41,7 +37,7 @@ describe('mail whose sender stopped mid-send', () => {
   beforeEach(async () => {
     vi.restoreAllMocks();
     await clearTables(t.db, ['mail_outbox']);
-    box.length = 0;
+    fake.messages.length = 0;
   });
 
   const welcome = (to: string) => mail.enqueue(t.db, { template: 'welcome', to, data: { name: 'Juniper Marsh' } });
@@ -56,17 +52,17 @@ describe('mail whose sender stopped mid-send', () => {
       onData(stream, _session, callback) {
         stream.resume();
         stream.on('end', () => {
-          box.unshift({ to: ['held'] } as unknown as CaughtMessage);
+          fake.messages.unshift({ to: ['held'] } as unknown as CaughtMessage);
           whileHolding().then(() => callback(), callback);
         });
       },
     });
-    await new Promise<void>((resolve) => server.listen(smtpPort, '127.0.0.1', resolve));
+    await new Promise<void>((resolve) => server.listen(fake.smtpPort, '127.0.0.1', resolve));
     try {
       return await run();
     } finally {
       await new Promise<void>((resolve) => server.close(() => resolve()));
-      fake = await startMailFake({ smtpPort, httpPort, messages: box });
+      fake = await fake.restart();
     }
   }
 
@@ -78,7 +74,7 @@ describe('mail whose sender stopped mid-send', () => {
       () => delivery.deliverOne(row!.id),
     );
     expect(outcome).toBe('unknown');
-    expect(box).toHaveLength(1);
+    expect(fake.messages).toHaveLength(1);
 
     await relay.listen();
     // The row still says 'sending' (nothing could be written). The sweep finds the stale claim.
@@ -90,7 +86,7 @@ describe('mail whose sender stopped mid-send', () => {
     expect(logged.last_error).toMatch(/may have received this message/);
     // Never sent again by itself.
     expect(await delivery.deliverPending()).toMatchObject({ sent: 0, skipped: 0 });
-    expect(box).toHaveLength(1);
+    expect(fake.messages).toHaveLength(1);
   });
 
   it('records sent through a short database blip after the server took the message', async () => {
@@ -106,7 +102,7 @@ describe('mail whose sender stopped mid-send', () => {
     expect(await delivery.deliverOne(row!.id)).toBe('sent');
     expect((await rowOf(row!.id)).state).toBe('sent');
     expect(refusals).toBe(2);
-    expect(box.map((m) => m.to[0])).toEqual(['cass@mail.example']);
+    expect(fake.messages.map((m) => m.to[0])).toEqual(['cass@mail.example']);
   });
 
   it('logs unknown, not failed, when the connection drops after the message body was sent', async () => {
@@ -139,19 +135,19 @@ describe('mail whose sender stopped mid-send', () => {
       });
       socket.on('error', () => undefined);
     });
-    await new Promise<void>((resolve) => server.listen(smtpPort, '127.0.0.1', resolve));
+    await new Promise<void>((resolve) => server.listen(fake.smtpPort, '127.0.0.1', resolve));
     try {
       expect(await delivery.deliverOne(row!.id)).toBe('unknown');
     } finally {
       for (const s of sockets) s.destroy();
       await new Promise<void>((resolve) => server.close(() => resolve()));
-      fake = await startMailFake({ smtpPort, httpPort, messages: box });
+      fake = await fake.restart();
     }
     const logged = await rowOf(row!.id);
     expect(logged.state).toBe('unknown');
     expect(logged.last_error).toContain(OUTCOME_UNKNOWN);
     expect(await delivery.deliverPending()).toMatchObject({ sent: 0 });
-    expect(box).toHaveLength(0);
+    expect(fake.messages).toHaveLength(0);
   });
 
   it('shows unknown in the mail log, and resends it only when the owner confirms a second copy', async () => {

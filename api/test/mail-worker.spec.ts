@@ -18,9 +18,6 @@ async function until<T>(what: string, probe: () => Promise<T | undefined | false
 describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
   let t: TestApp;
   let fake: MailFake;
-  let smtpPort: number;
-  let httpPort: number;
-  let box: CaughtMessage[];
   let mail: MailService;
 
   const jobsFor = (outboxId: string) =>
@@ -34,8 +31,7 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
 
   beforeAll(async () => {
     fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
-    ({ smtpPort, httpPort, messages: box } = fake);
-    t = await createTestApp({ env: { SMTP_PORT: String(smtpPort), RUN_WORKERS: 'true', MAIL_RETRY_DELAY_SECONDS: '1' } });
+    t = await createTestApp({ env: { SMTP_PORT: String(fake.smtpPort), RUN_WORKERS: 'true', MAIL_RETRY_DELAY_SECONDS: '1' } });
     mail = t.app.get(MailService);
     expect(t.app.get(MailWorker).running).toBe(true);
   });
@@ -79,7 +75,7 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
       (await jobsFor(row.id)).some((j) => j.state === 'retry' || j.state === 'active' || j.state === 'created'),
     );
 
-    fake = await startMailFake({ smtpPort, httpPort, messages: box });
+    fake = await fake.restart();
     const sent = await until('delivery after the server came back', async () => {
       const r = await outboxRow(row.id);
       return r.state === 'sent' ? r : undefined;
@@ -88,7 +84,7 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
     await until('the job to complete', async () => (await jobsFor(row.id)).every((j) => j.state === 'completed'));
     // A short wait for any stray retry; the message must still be there once.
     await new Promise((r) => setTimeout(r, 2_500));
-    const inbox: CaughtMessage[] = await (await fetch(`http://127.0.0.1:${httpPort}/api/messages?to=patient@mail.example`)).json();
+    const inbox: CaughtMessage[] = await (await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages?to=patient@mail.example`)).json();
     expect(inbox).toHaveLength(1);
     expect(inbox[0].messageId).toBe(row.message_id);
     expect(inbox[0].subject).toBe('Deposit refunded for LW-3003: $150.00');
@@ -120,7 +116,7 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
     await until('the swept message to be sent', async () => (await outboxRow(inserted.id)).state === 'sent');
     // The fresh row has no job and is not overdue yet: the sweep leaves it for later.
     expect(await jobsFor(fresh.id)).toHaveLength(0);
-    const inbox: CaughtMessage[] = await (await fetch(`http://127.0.0.1:${httpPort}/api/messages?to=swept@mail.example`)).json();
+    const inbox: CaughtMessage[] = await (await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages?to=swept@mail.example`)).json();
     expect(inbox.map((m) => m.messageId)).toEqual(['<swept-1@shop.example>']);
   });
 });

@@ -22,18 +22,14 @@ const scheduledData: MailTemplateData['booking-scheduled'] = {
 describe('mail delivery through the outbox into the mail fake', () => {
   let t: TestApp;
   let fake: MailFake;
-  let smtpPort: number;
-  let httpPort: number;
-  let box: CaughtMessage[];
   let mail: MailService;
   let delivery: MailDeliveryService;
 
-  const inbox = async (): Promise<CaughtMessage[]> => (await fetch(`http://127.0.0.1:${httpPort}/api/messages`)).json();
+  const inbox = async (): Promise<CaughtMessage[]> => (await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages`)).json();
 
   beforeAll(async () => {
     fake = await startMailFake({ smtpPort: 0, httpPort: 0 });
-    ({ smtpPort, httpPort, messages: box } = fake);
-    t = await createTestApp({ env: { SMTP_PORT: String(smtpPort), MAIL_MAX_ATTEMPTS: '4' } });
+    t = await createTestApp({ env: { SMTP_PORT: String(fake.smtpPort), MAIL_MAX_ATTEMPTS: '4' } });
     mail = t.app.get(MailService);
     delivery = t.app.get(MailDeliveryService);
   });
@@ -43,7 +39,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
   });
   beforeEach(async () => {
     await clearTables(t.db, ['mail_outbox']);
-    await fetch(`http://127.0.0.1:${httpPort}/api/messages`, { method: 'DELETE' });
+    await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages`, { method: 'DELETE' });
   });
 
   const enqueueScheduled = (to = 'player@mail.example', extra: Partial<MailTemplateData['booking-scheduled']> = {}) =>
@@ -73,11 +69,11 @@ describe('mail delivery through the outbox into the mail fake', () => {
     expect(event.startDate.toString()).toBe('2027-01-08');
     expect(event.startDate.isDate).toBe(true);
 
-    const one = await (await fetch(`http://127.0.0.1:${httpPort}/api/messages/${m.id}`)).json();
+    const one = await (await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages/${m.id}`)).json();
     expect(one.messageId).toBe(row!.message_id);
-    const page = await (await fetch(`http://127.0.0.1:${httpPort}/`)).text();
+    const page = await (await fetch(`http://127.0.0.1:${fake.httpPort}/`)).text();
     expect(page).toContain('Booked: bench date Tue, Jan 12, 2027 for LW-2001');
-    expect((await fetch(`http://127.0.0.1:${httpPort}/api/messages/nope`)).status).toBe(404);
+    expect((await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages/nope`)).status).toBe(404);
 
     const stored = await t.db.selectFrom('mail_outbox').selectAll().executeTakeFirstOrThrow();
     expect(stored).toMatchObject({ state: 'sent', attempts: 1, last_error: null, subject: m.subject });
@@ -113,7 +109,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
     expect(waiting.map((r) => r.state)).toEqual(['queued', 'queued', 'queued']);
     expect(waiting.every((r) => r.attempts === 2 && /ECONNREFUSED|ECONNECTION/.test(r.last_error ?? ''))).toBe(true);
 
-    fake = await startMailFake({ smtpPort, httpPort, messages: box });
+    fake = await fake.restart();
     expect(await delivery.deliverPending()).toMatchObject({ sent: 3, retry: 0, failed: 0 });
     // A further round finds nothing to send: no duplicates.
     expect(await delivery.deliverPending()).toMatchObject({ sent: 0, retry: 0, failed: 0, skipped: 0 });
@@ -130,7 +126,7 @@ describe('mail delivery through the outbox into the mail fake', () => {
     const stored = await t.db.selectFrom('mail_outbox').selectAll().where('id', '=', row!.id).executeTakeFirstOrThrow();
     expect(stored).toMatchObject({ state: 'failed', attempts: 4 });
     expect(stored.last_error).toMatch(/ECONNREFUSED|ECONNECTION/);
-    fake = await startMailFake({ smtpPort, httpPort, messages: box });
+    fake = await fake.restart();
     expect(await delivery.deliverPending()).toMatchObject({ sent: 0 });
     expect(await inbox()).toHaveLength(0);
   });

@@ -25,6 +25,8 @@ export interface MailFake {
   httpPort: number;
   messages: CaughtMessage[];
   stop: () => Promise<void>;
+  /** After stop(): the fake again on the same ports, with the same box (a mail server back from an outage). */
+  restart: () => Promise<MailFake>;
 }
 
 function addresses(value: AddressObject | AddressObject[] | undefined): string[] {
@@ -35,7 +37,7 @@ function addresses(value: AddressObject | AddressObject[] | undefined): string[]
 /**
  * A local stand-in for a mail server: accepts every message over SMTP (no TLS, any or no login)
  * and keeps it in memory for the mailbox page and the JSON API. Nothing leaves the machine.
- * `messages` survives stop() so a test can take the fake down and bring it back with the same box.
+ * `messages` survives stop() so a test can take the fake down and bring it back with the same box (restart()).
  */
 export async function startMailFake(options: {
   smtpPort: number;
@@ -93,15 +95,18 @@ export async function startMailFake(options: {
     web.listen(options.httpPort, host, () => resolve());
   });
 
+  const smtpPort = (smtp.server.address() as AddressInfo).port;
+  const httpPort = (web.address() as AddressInfo).port;
   return {
-    smtpPort: (smtp.server.address() as AddressInfo).port,
-    httpPort: (web.address() as AddressInfo).port,
+    smtpPort,
+    httpPort,
     messages,
     stop: async () => {
       web.closeAllConnections();
       await new Promise<void>((resolve) => web.close(() => resolve()));
       await new Promise<void>((resolve) => smtp.close(() => resolve()));
     },
+    restart: () => startMailFake({ ...options, smtpPort, httpPort, messages }),
   };
 }
 
