@@ -1,11 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startMailFake, type MailFake } from '../fakes/mail/mail-fake';
-import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fake';
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
 import { eventually, payOnHostedPage } from './support/payment-harness';
-import { createEmptyDatabase } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
-import { mailFakeEnv, paymentFakeEnv } from './support/fakes-env';
+import { startProcessFakes } from './support/fakes-env';
 
 const JWT_SECRET = 'log-hygiene-jwt-secret-7f3a9c21d4';
 const STRIPE_SECRET_KEY = 'sk_test_log_hygiene_5e8b1d0c9a';
@@ -27,15 +24,11 @@ const board = countedBoard(6);
  */
 describe('log hygiene over a whole journey', () => {
   let api: ApiProcess;
-  let payments: PaymentFake;
-  let mail: MailFake;
-  let drop: () => Promise<void>;
+  let fakes: Awaited<ReturnType<typeof startProcessFakes>>;
   const signatures: string[] = [];
   const realFetch = globalThis.fetch;
 
   beforeAll(async () => {
-    const database = await createEmptyDatabase('lw_logs');
-    drop = database.drop;
     // The fake signs each webhook as the provider does; every signature it sends is kept to grep for.
     globalThis.fetch = (async (input: Parameters<typeof fetch>[0], init?: RequestInit) => {
       const headers = new Headers(init?.headers);
@@ -43,26 +36,15 @@ describe('log hygiene over a whole journey', () => {
       if (signature) signatures.push(signature);
       return realFetch(input, init);
     }) as typeof fetch;
-    payments = await startPaymentFake({ port: 0, webhookSecret: WEBHOOK_SECRET, retryDelaysMs: [100, 200, 400] });
-    mail = await startMailFake({ smtpPort: 0, httpPort: 0 });
-    api = await startApiProcess({
-      DATABASE_URL: database.url,
-      SEED_DEMO: 'true',
-      RUN_WORKERS: 'true',
-      LOG_LEVEL: 'trace',
-      JWT_SECRET,
-      ...paymentFakeEnv(payments, { secretKey: STRIPE_SECRET_KEY, webhookSecret: WEBHOOK_SECRET }),
-      ...mailFakeEnv(mail),
-    });
-    payments.webhooks.url = `${api.url}/api/payments/webhook`;
+    fakes = await startProcessFakes('lw_logs', { secretKey: STRIPE_SECRET_KEY, webhookSecret: WEBHOOK_SECRET });
+    api = await startApiProcess({ ...fakes.env, SEED_DEMO: 'true', RUN_WORKERS: 'true', LOG_LEVEL: 'trace', JWT_SECRET });
+    fakes.payments.webhooks.url = `${api.url}/api/payments/webhook`;
   }, 90_000);
 
   afterAll(async () => {
     globalThis.fetch = realFetch;
     await api?.stop();
-    await payments?.close();
-    await mail?.stop();
-    await drop?.();
+    await fakes?.close();
   });
 
   it('logs one JSON line per request with its id, and no secret anywhere', async () => {
@@ -108,7 +90,7 @@ describe('log hygiene over a whole journey', () => {
     const reset = await new Visitor(api.url).call('POST', '/api/auth/password-reset', { email });
     expect(reset.status).toBe(202);
     const resetMail = await eventually(
-      async () => mail.messages.find((m) => m.to.includes(email) && /token=/.test(m.text)),
+      async () => fakes.mail.messages.find((m) => m.to.includes(email) && /token=/.test(m.text)),
       'the reset e-mail',
       15_000,
     );

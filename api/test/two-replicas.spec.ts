@@ -1,13 +1,10 @@
 import { Client } from 'pg';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startMailFake, type MailFake } from '../fakes/mail/mail-fake';
-import { startPaymentFake, type PaymentFake } from '../fakes/payment/payment-fake';
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
 import { eventually, payOnHostedPage } from './support/payment-harness';
-import { createEmptyDatabase } from './support/test-app';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
-import { mailFakeEnv, objectStoreEnv, paymentFakeEnv, startScratchObjectStore } from './support/fakes-env';
+import { objectStoreEnv, startProcessFakes, startScratchObjectStore } from './support/fakes-env';
 
 const WEBHOOK_SECRET = 'whsec_two_replicas_0123456789';
 // 10 a minute per address and e-mail is the API's default (common practice, no published source);
@@ -26,24 +23,17 @@ const board = countedBoard(5);
 describe('two API replicas on one database', () => {
   let a: ApiProcess;
   let b: ApiProcess;
-  let payments: PaymentFake;
-  let mail: MailFake;
+  let fakes: Awaited<ReturnType<typeof startProcessFakes>>;
   let store: Awaited<ReturnType<typeof startScratchObjectStore>>;
   let db: Client;
-  let drop: () => Promise<void>;
 
   beforeAll(async () => {
-    const database = await createEmptyDatabase('lw_replicas');
-    drop = database.drop;
+    fakes = await startProcessFakes('lw_replicas', { secretKey: 'sk_test_two_replicas', webhookSecret: WEBHOOK_SECRET });
     store = await startScratchObjectStore('lw-replicas');
-    payments = await startPaymentFake({ port: 0, webhookSecret: WEBHOOK_SECRET, retryDelaysMs: [100, 200, 400] });
-    mail = await startMailFake({ smtpPort: 0, httpPort: 0 });
     const shared = {
-      DATABASE_URL: database.url,
+      ...fakes.env,
       RUN_WORKERS: 'true',
       JWT_SECRET: 'two-replicas-secret-0123456789abcdef',
-      ...paymentFakeEnv(payments, { secretKey: 'sk_test_two_replicas', webhookSecret: WEBHOOK_SECRET }),
-      ...mailFakeEnv(mail),
       ...objectStoreEnv(store),
       AUTH_THROTTLE_LIMIT: String(THROTTLE_LIMIT),
       AUTH_THROTTLE_SECONDS: '120',
@@ -52,17 +42,15 @@ describe('two API replicas on one database', () => {
     // The first migrates and seeds; the second only joins, as `npm run replica` does.
     a = await startApiProcess({ ...shared, SEED_DEMO: 'true' }, 120_000);
     b = await startApiProcess({ ...shared, SEED_DEMO: 'false' }, 120_000);
-    db = new Client({ connectionString: database.url });
+    db = new Client({ connectionString: fakes.databaseUrl });
     await db.connect();
   }, 240_000);
 
   afterAll(async () => {
     await db?.end();
     await Promise.all([a?.stop(), b?.stop()]);
-    await payments?.close();
-    await mail?.stop();
     await store?.dispose();
-    await drop?.();
+    await fakes?.close();
   });
 
   /** Runs a check; on failure prints the last lines of both processes' logs. */
@@ -119,7 +107,7 @@ describe('two API replicas on one database', () => {
         await new Promise((r) => setTimeout(r, 1_500));
         for (const email of emails)
           expect(
-            mail.messages.filter((m) => m.to.includes(email)),
+            fakes.mail.messages.filter((m) => m.to.includes(email)),
             email,
           ).toHaveLength(1);
         const states = await db.query(`select state, count(*)::int as n from mail_outbox where to_address = any($1) group by state`, [
@@ -145,7 +133,7 @@ describe('two API replicas on one database', () => {
         ] as const) {
           const booking = await player.call('POST', '/api/bookings', { configuration: board });
           expect(booking.status, booking.text).toBe(201);
-          payments.webhooks.url = `${target.url}/api/payments/webhook`;
+          fakes.payments.webhooks.url = `${target.url}/api/payments/webhook`;
           const checkout = await player.call('POST', `/api/bookings/${booking.body.id}/checkout`, {});
           expect(checkout.status, checkout.text).toBe(200);
           expect((await payOnHostedPage(checkout.body.url, CARD)).status).toBe(303);
@@ -156,12 +144,12 @@ describe('two API replicas on one database', () => {
           );
           bookings.push(booking.body.id);
         }
-        const sentIds = payments.events.map((e) => e.id);
-        payments.webhooks.url = `${b.url}/api/payments/webhook`;
-        for (const id of sentIds) payments.resend(id);
-        expect(await payments.webhooks.settled(sentIds, 20_000)).toBe(true);
+        const sentIds = fakes.payments.events.map((e) => e.id);
+        fakes.payments.webhooks.url = `${b.url}/api/payments/webhook`;
+        for (const id of sentIds) fakes.payments.resend(id);
+        expect(await fakes.payments.webhooks.settled(sentIds, 20_000)).toBe(true);
         await eventually(
-          async () => payments.webhooks.attempts.filter((x) => x.status !== null && x.status < 300).length >= sentIds.length * 2,
+          async () => fakes.payments.webhooks.attempts.filter((x) => x.status !== null && x.status < 300).length >= sentIds.length * 2,
           'every event delivered twice',
           20_000,
         );

@@ -1,9 +1,10 @@
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import type { MailFake } from '../../fakes/mail/mail-fake';
+import { startMailFake, type MailFake } from '../../fakes/mail/mail-fake';
 import { startObjectStore, type ObjectStore } from '../../fakes/object-store/object-store';
-import type { PaymentFake } from '../../fakes/payment/payment-fake';
+import { startPaymentFake, type PaymentFake } from '../../fakes/payment/payment-fake';
+import { createEmptyDatabase } from './test-app';
 
 /**
  * The environment that points an API (in-process or its own process) at each local fake, written
@@ -50,4 +51,28 @@ export async function startScratchObjectStore(bucket: string): Promise<ObjectSto
       await rm(directory, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * What built API processes (startApiProcess) run against: a new empty database, the payment fake
+ * (webhooks retried after 0.1, 0.2 and 0.4 s) and the mail fake. `env` points an API at all three;
+ * `close` stops the fakes and drops the database. The webhook target is set once an API listens.
+ */
+export async function startProcessFakes(databasePrefix: string, keys: { secretKey: string; webhookSecret: string }) {
+  const database = await createEmptyDatabase(databasePrefix);
+  const started: { close: () => Promise<void> }[] = [{ close: database.drop }];
+  const close = async () => {
+    for (const part of started.reverse()) await part.close();
+  };
+  try {
+    const payments = await startPaymentFake({ port: 0, webhookSecret: keys.webhookSecret, retryDelaysMs: [100, 200, 400] });
+    started.push(payments);
+    const mail = await startMailFake({ smtpPort: 0, httpPort: 0 });
+    started.push({ close: mail.stop });
+    const env = { DATABASE_URL: database.url, ...paymentFakeEnv(payments, keys), ...mailFakeEnv(mail) };
+    return { databaseUrl: database.url, payments, mail, env, close };
+  } catch (error) {
+    await close();
+    throw error;
+  }
 }
