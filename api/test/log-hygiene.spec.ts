@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
-import { eventually, payOnHostedPage } from './support/payment-harness';
+import { eventually, payDepositAs } from './support/payment-harness';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 import { startProcessFakes } from './support/fakes-env';
 
@@ -77,14 +77,7 @@ describe('log hygiene over a whole journey', () => {
     const forged = await player.call('GET', '/api/auth/me', undefined, { 'x-request-id': 'a b {"level":60} '.repeat(12) });
     expect(forged.headers.get('x-request-id')).toMatch(/^[0-9a-f-]{36}$/);
 
-    const checkout = await player.call('POST', `/api/bookings/${booking.body.id}/checkout`, {});
-    expect(checkout.status, checkout.text).toBe(200);
-    expect((await payOnHostedPage(checkout.body.url, CARD)).status).toBe(303);
-    await eventually(
-      async () => (await player.call('GET', `/api/bookings/${booking.body.id}`)).body?.state === 'deposit_paid',
-      'the deposit webhook',
-      15_000,
-    );
+    await payDepositAs(player, booking.body.id, CARD);
     expect(signatures.length).toBeGreaterThan(0);
 
     const reset = await new Visitor(api.url).call('POST', '/api/auth/password-reset', { email });

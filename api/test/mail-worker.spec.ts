@@ -3,17 +3,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startMailFake, type CaughtMessage, type MailFake } from '../fakes/mail/mail-fake';
 import { MailService } from '../src/mail/mail.service';
 import { MailWorker } from '../src/mail/mail-worker.service';
+import { eventually } from './support/payment-harness';
 import { createTestApp, type TestApp } from './support/test-app';
 
-async function until<T>(what: string, probe: () => Promise<T | undefined | false>, timeoutMs = 25_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await probe();
-    if (value) return value;
-    if (Date.now() > deadline) throw new Error(`Timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
+/** pg-boss retries after a second here (MAIL_RETRY_DELAY_SECONDS=1); on a busy machine its polling takes longer. */
+const WORKER_WAIT_MS = 25_000;
 
 describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
   let t: TestApp;
@@ -65,23 +59,33 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
         data: { name: 'Pat', reference: 'LW-3003', amount: '150.00', currency: 'USD' },
       }),
     ))!;
-    const refused = await until('a refused attempt', async () => {
-      const r = await outboxRow(row.id);
-      return r.attempts >= 1 && r.state === 'queued' && r.last_error ? r : undefined;
-    });
+    const refused = await eventually(
+      async () => {
+        const r = await outboxRow(row.id);
+        return r.attempts >= 1 && r.state === 'queued' && r.last_error ? r : undefined;
+      },
+      'a refused attempt',
+      WORKER_WAIT_MS,
+    );
     expect(refused.last_error).toMatch(/ECONNREFUSED|ECONNECTION/);
     // pg-boss holds the job for a later retry rather than dropping it.
-    await until('the job to wait for its retry', async () =>
-      (await jobsFor(row.id)).some((j) => j.state === 'retry' || j.state === 'active' || j.state === 'created'),
+    await eventually(
+      async () => (await jobsFor(row.id)).some((j) => j.state === 'retry' || j.state === 'active' || j.state === 'created'),
+      'the job to wait for its retry',
+      WORKER_WAIT_MS,
     );
 
     fake = await fake.restart();
-    const sent = await until('delivery after the server came back', async () => {
-      const r = await outboxRow(row.id);
-      return r.state === 'sent' ? r : undefined;
-    });
+    const sent = await eventually(
+      async () => {
+        const r = await outboxRow(row.id);
+        return r.state === 'sent' ? r : undefined;
+      },
+      'delivery after the server came back',
+      WORKER_WAIT_MS,
+    );
     expect(sent.attempts).toBeGreaterThanOrEqual(2);
-    await until('the job to complete', async () => (await jobsFor(row.id)).every((j) => j.state === 'completed'));
+    await eventually(async () => (await jobsFor(row.id)).every((j) => j.state === 'completed'), 'the job to complete', WORKER_WAIT_MS);
     // A short wait for any stray retry; the message must still be there once.
     await new Promise((r) => setTimeout(r, 2_500));
     const inbox: CaughtMessage[] = await (await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages?to=patient@mail.example`)).json();
@@ -113,7 +117,7 @@ describe('the pg-boss mail worker (RUN_WORKERS=true)', () => {
       .returning('id')
       .executeTakeFirstOrThrow();
     await t.app.get(MailWorker).sweep();
-    await until('the swept message to be sent', async () => (await outboxRow(inserted.id)).state === 'sent');
+    await eventually(async () => (await outboxRow(inserted.id)).state === 'sent', 'the swept message to be sent', WORKER_WAIT_MS);
     // The fresh row has no job and is not overdue yet: the sweep leaves it for later.
     expect(await jobsFor(fresh.id)).toHaveLength(0);
     const inbox: CaughtMessage[] = await (await fetch(`http://127.0.0.1:${fake.httpPort}/api/messages?to=swept@mail.example`)).json();

@@ -2,7 +2,7 @@ import { Client } from 'pg';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startApiProcess, Visitor, type ApiProcess } from './support/api-process';
-import { eventually, payOnHostedPage } from './support/payment-harness';
+import { eventually, payDepositAs } from './support/payment-harness';
 import { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
 import { objectStoreEnv, startProcessFakes, startScratchObjectStore } from './support/fakes-env';
 
@@ -134,14 +134,7 @@ describe('two API replicas on one database', () => {
           const booking = await player.call('POST', '/api/bookings', { configuration: board });
           expect(booking.status, booking.text).toBe(201);
           fakes.payments.webhooks.url = `${target.url}/api/payments/webhook`;
-          const checkout = await player.call('POST', `/api/bookings/${booking.body.id}/checkout`, {});
-          expect(checkout.status, checkout.text).toBe(200);
-          expect((await payOnHostedPage(checkout.body.url, CARD)).status).toBe(303);
-          await eventually(
-            async () => (await player.call('GET', `/api/bookings/${booking.body.id}`)).body?.state === 'deposit_paid',
-            'the deposit webhook',
-            20_000,
-          );
+          await payDepositAs(player, booking.body.id, CARD);
           bookings.push(booking.body.id);
         }
         const sentIds = fakes.payments.events.map((e) => e.id);

@@ -3,7 +3,9 @@ import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
+import { expect } from 'vitest';
 import { startPaymentFake, type PaymentFake } from '../../fakes/payment/payment-fake';
+import type { Visitor } from './api-process';
 import { createTestApp, type TestApp } from './test-app';
 import { paymentFakeEnv } from './fakes-env';
 import { signIn } from './bench-fixtures';
@@ -79,6 +81,20 @@ export function payOnHostedPage(checkoutUrl: string, card: string) {
     body: new URLSearchParams({ card, expiry: '12/34', cvc: '123' }),
     redirect: 'manual',
   });
+}
+
+/**
+ * A player of a built API process pays a booking's deposit by card on the hosted page; resolves once the
+ * deposit webhook has reached the API and the booking reads `deposit_paid`.
+ */
+export async function payDepositAs(player: Visitor, bookingId: string, card: string): Promise<void> {
+  const checkout = await player.call('POST', `/api/bookings/${bookingId}/checkout`, {});
+  expect(checkout.status, checkout.text).toBe(200);
+  expect((await payOnHostedPage(checkout.body.url, card)).status).toBe(303);
+  await eventually(
+    async () => (await player.call('GET', `/api/bookings/${bookingId}`)).body?.state === 'deposit_paid',
+    'the deposit webhook',
+  );
 }
 
 /** Pays from a bank account on the hosted page (ACH test routing number 110000000, from the provider's testing guide, from memory). */
