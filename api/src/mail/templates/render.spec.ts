@@ -597,7 +597,13 @@ describe('outbox rows stored under the older key names', () => {
   it('booking-scheduled: customerName, buildUrl and pedals with the flags', () => {
     // Today's data under the older keys: the list of what to ship was a list of pedals and flags.
     const { name, whatToShip: _list, bookingUrl, ...rest } = scheduled;
-    const old = { ...rest, customerName: name, pedals: ['tuner', 'fuzz', 'analog delay', 'plate reverb'], switcher: true, buildUrl: bookingUrl };
+    const old = {
+      ...rest,
+      customerName: name,
+      pedals: ['tuner', 'fuzz', 'analog delay', 'plate reverb'],
+      switcher: true,
+      buildUrl: bookingUrl,
+    };
     const stored = renderStoredMail('booking-scheduled', old, shop);
     expect(same(stored)).toEqual(same(renderMail('booking-scheduled', scheduled, shop)));
     expect(stored.text).toContain('Hello Rosa Delgado-Finch');
