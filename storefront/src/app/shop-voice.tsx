@@ -1,5 +1,5 @@
 import { PageLoading, ShopVoiceProvider } from '@loomwright/shared/ui';
-import type { ReactNode } from 'react';
+import { useDeferredValue, type ReactNode } from 'react';
 import { useShop } from 'src/features/shop/api/get-shop';
 
 /**
@@ -10,6 +10,9 @@ import { useShop } from 'src/features/shop/api/get-shop';
 export function ShopVoice({ children }: { children: ReactNode }) {
   const shop = useShop();
   // Only the first answer is awaited: while the API is failing, pages render (and say so) in the default voice.
-  if (shop.isPending && shop.failureCount === 0) return <PageLoading />;
+  // The answer's own render (a query update, which React draws in one blocking task) keeps the loading
+  // screen; the whole page is then drawn in a deferred render that yields to the browser every few ms.
+  const waiting = useDeferredValue(shop.isPending && shop.failureCount === 0);
+  if (waiting) return <PageLoading />;
   return <ShopVoiceProvider profile={shop.data}>{children}</ShopVoiceProvider>;
 }

@@ -1,5 +1,5 @@
 import Button from '@mui/joy/Button';
-import { lazy } from 'react';
+import { lazy, useDeferredValue } from 'react';
 import { LateAlert, preloadLateAlert } from 'src/components/LateAlert';
 import { PageLoading } from 'src/components/PageLoading';
 import { useCatalog } from 'src/features/configurator/api/get-catalog';
@@ -14,7 +14,10 @@ if (readConfigurationDraft()) preloadLateAlert();
 
 export function Component() {
   const catalog = useCatalog();
-  if (catalog.isPending) return <PageLoading label="Loading the shop’s price book…" />;
+  // The price book's arrival is drawn in a deferred render (yielding every few ms) instead of in the
+  // query update's one blocking task: the configurator's first step is the heaviest render of the page.
+  const priceBook = useDeferredValue(catalog.data);
+  if (catalog.isPending || (catalog.isSuccess && !priceBook)) return <PageLoading label="Loading the shop’s price book…" />;
   if (catalog.isError)
     return (
       <LateAlert
@@ -32,7 +35,7 @@ export function Component() {
     );
   return (
     <Configurator
-      catalog={catalog.data}
+      catalog={priceBook ?? catalog.data}
       keep={(configuration, ready) => <KeepConfiguration configuration={configuration} ready={ready} />}
     />
   );
