@@ -70,6 +70,23 @@ describe('who owns each table (api/src/database/table-owners.ts)', () => {
       expect.stringMatching(/^payments\/payments\.repository\.ts:5 writes quotes \(sql\)/),
     ]);
 
+    // A subquery inside a Kysely expression is a read of its own, whichever way the expression
+    // builder is reached (its parameter, destructured, nested in exists or a JSON helper), and so is
+    // each table of a raw SQL from-list joined by commas.
+    const subqueries = `
+      export class PaymentsRepository {
+        a(trx) { return trx.selectFrom('payments').where('booking_id', 'in', (eb) => eb.selectFrom('booking_events').select('booking_id')).execute(); }
+        b(trx) { return trx.selectFrom('payments').where(({ exists, selectFrom }) => exists(selectFrom('quotes').select('id'))).execute(); }
+        c(trx) { return trx.selectFrom('payments').select((eb) => jsonArrayFrom(eb.selectFrom('reminders').select('id')).as('r')).execute(); }
+        d(trx) { return sql\`select 1 from payments p, sessions s where s.id = p.id\`.execute(trx); }
+      }`;
+    expect(violations(scanSource('payments/payments.repository.ts', subqueries))).toEqual([
+      expect.stringMatching(/^payments\/payments\.repository\.ts:3 reads booking_events \(selectFrom\); payments may not/),
+      expect.stringMatching(/^payments\/payments\.repository\.ts:4 reads quotes \(selectFrom\); payments may not/),
+      expect.stringMatching(/^payments\/payments\.repository\.ts:5 reads reminders \(selectFrom\); payments may not/),
+      expect.stringMatching(/^payments\/payments\.repository\.ts:6 reads sessions \(sql\); payments may not/),
+    ]);
+
     const service = `
       export class TodayService {
         rows() { return this.db.selectFrom('bookings').selectAll().execute(); }

@@ -17,9 +17,26 @@ const READ_METHODS = new Set([
 const WRITE_METHODS = new Set(['insertInto', 'updateTable', 'deleteFrom', 'replaceInto', 'mergeInto']);
 const QUERY_METHODS = new Set([...READ_METHODS, ...WRITE_METHODS, 'selectNoFrom']);
 
-/** In raw SQL: `insert into t`, `update t`, `delete from t` write; `from t`, `join t` read. */
+/**
+ * In raw SQL: `insert into t`, `update t`, `delete from t` write; `join t`, `using t` and every table
+ * of a `from` list read, comma joins too (`from bookings b, payments p`). A `from` list runs to the
+ * next clause word or bracket.
+ */
 const SQL_WRITE = /\b(?:insert\s+into|update|delete\s+from)\s+"?([a-z_][a-z0-9_]*)"?/gi;
-const SQL_READ = /\b(?:from|join)\s+"?([a-z_][a-z0-9_]*)"?/gi;
+const SQL_READ = /\b(?:join|using)\s+"?([a-z_][a-z0-9_]*)"?/gi;
+const SQL_FROM_LIST =
+  /\bfrom\s+((?:"?[a-z_][a-z0-9_]*"?(?:\s+(?:as\s+)?(?!(?:where|join|inner|left|right|full|cross|natural|on|using|group|order|limit|offset|having|union|for|returning|set|window)\b)[a-z_][a-z0-9_]*)?\s*,\s*)*"?[a-z_][a-z0-9_]*"?)/gi;
+
+/** The tables a raw SQL text reads and writes, in the order they stand. */
+function sqlTables(text: string): Array<{ name: string; kind: 'read' | 'write' }> {
+  const found: Array<{ at: number; name: string; kind: 'read' | 'write' }> = [];
+  for (const m of text.matchAll(SQL_WRITE)) found.push({ at: m.index, name: m[1], kind: 'write' });
+  for (const m of text.matchAll(SQL_READ)) found.push({ at: m.index, name: m[1], kind: 'read' });
+  for (const m of text.matchAll(SQL_FROM_LIST)) {
+    for (const item of m[1].split(',')) found.push({ at: m.index, name: item.trim().split(/\s+/)[0].replace(/"/g, ''), kind: 'read' });
+  }
+  return found.sort((a, b) => a.at - b.at).map(({ name, kind }) => ({ name: name.toLowerCase(), kind }));
+}
 
 export interface TableAccess {
   /** Path below api/src, with forward slashes. */
@@ -62,8 +79,11 @@ export function scanSource(file: string, text: string): ScanResult {
   const lineOf = (n: ts.Node) => source.getLineAndCharacterOfPosition(n.getStart(source)).line + 1;
 
   const visit = (node: ts.Node) => {
-    if (ts.isCallExpression(node) && ts.isPropertyAccessExpression(node.expression)) {
-      const method = node.expression.name.text;
+    // `trx.selectFrom(…)`, `eb.selectFrom(…)` in a subquery, and a destructured expression builder's
+    // `({ selectFrom }) => selectFrom(…)`: all name the table in their first argument.
+    const callee = ts.isCallExpression(node) ? node.expression : undefined;
+    const method = callee && (ts.isPropertyAccessExpression(callee) ? callee.name.text : ts.isIdentifier(callee) ? callee.text : undefined);
+    if (ts.isCallExpression(node) && method) {
       if (QUERY_METHODS.has(method)) {
         if (!queryFile) outside.push({ file, line: lineOf(node), how: method });
         const kind = WRITE_METHODS.has(method) ? 'write' : 'read';
@@ -75,16 +95,10 @@ export function scanSource(file: string, text: string): ScanResult {
     if (ts.isTaggedTemplateExpression(node) && node.tag.getText(source) === 'sql') {
       const text = templateText(node.template);
       const named = new Set<string>();
-      for (const [re, kind] of [
-        [SQL_WRITE, 'write'],
-        [SQL_READ, 'read'],
-      ] as const) {
-        for (const m of text.matchAll(re)) {
-          const name = m[1].toLowerCase();
-          if (!isTable(name)) continue;
-          named.add(name);
-          accesses.push({ file, line: lineOf(node), module, table: name, kind, how: 'sql' });
-        }
+      for (const { name, kind } of sqlTables(text)) {
+        if (!isTable(name)) continue;
+        named.add(name);
+        accesses.push({ file, line: lineOf(node), module, table: name, kind, how: 'sql' });
       }
       const executed = ts.isPropertyAccessExpression(node.parent) && node.parent.name.text === 'execute';
       if (!queryFile && (named.size > 0 || executed)) outside.push({ file, line: lineOf(node), how: 'sql' });
