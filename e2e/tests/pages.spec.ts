@@ -121,3 +121,35 @@ test('My builds at 390 px: a card per build, every fact labelled, nothing past t
     'Total',
   ]);
 });
+
+test('every backoffice page at 390 px scrolls only up and down; wide tables scroll inside their card', async ({ page }) => {
+  test.setTimeout(120_000);
+  await page.setViewportSize(PHONE);
+  await page.goto('/backoffice/sign-in');
+  await signInHere(page, 'owner@shop.example');
+  await expect(page.getByRole('navigation', { name: 'Backoffice' })).toBeVisible({ timeout: 30_000 });
+  for (const [url, heading] of [
+    ['/backoffice/today', 'Today'],
+    ['/backoffice/requests', 'Requests'],
+    ['/backoffice/bench', 'Bench'],
+    ['/backoffice/builds', 'Builds'],
+    ['/backoffice/customers', 'Customers'],
+    ['/backoffice/reports', 'Reports'],
+    ['/backoffice/price-book', 'Price book'],
+    ['/backoffice/team', 'Team'],
+    ['/backoffice/settings', 'Settings'],
+    ['/backoffice/mail', 'Mail log'],
+    ['/backoffice/calendars', 'Calendar links'],
+  ] as const) {
+    await page.goto(url);
+    await expect(page.getByRole('heading', { level: 1, name: heading }), url).toBeVisible();
+    await page.waitForLoadState('networkidle');
+    expect(await overflow(page), `${url} scrolls only up and down`).toBeLessThanOrEqual(0);
+  }
+  // The price book's lists stay whole: the table is wider than the phone and scrolls sideways in its card.
+  await page.goto('/backoffice/price-book');
+  const functions = page.getByRole('table', { name: 'Price book: functions' });
+  await expect(functions).toBeVisible();
+  const box = await functions.boundingBox();
+  expect(box!.width, 'the functions table keeps its columns').toBeGreaterThan(PHONE.width);
+});

@@ -55,7 +55,7 @@ function StaffLayout({ user }: { user: AuthUser }) {
   const health = useHealth();
   const unread = useUnreadMessages();
   return (
-    <Box sx={{ minHeight: '100dvh', display: 'grid', gridTemplateColumns: { xs: '1fr', md: '232px 1fr' } }}>
+    <Box sx={{ minHeight: '100dvh', display: 'grid', gridTemplateColumns: { xs: 'minmax(0, 1fr)', md: '232px minmax(0, 1fr)' } }}>
       {/* A column on the left from md up; on a tablet or phone a compact bar over the page. */}
       <Sheet
         component="aside"

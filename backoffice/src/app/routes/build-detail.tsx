@@ -110,7 +110,12 @@ export function Component() {
         )}
       </Card>
       <Box
-        sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr', lg: 'minmax(0, 3fr) minmax(320px, 2fr)' }, gap: 2, alignItems: 'start' }}
+        sx={{
+          display: 'grid',
+          gridTemplateColumns: { xs: 'minmax(0, 1fr)', lg: 'minmax(0, 3fr) minmax(320px, 2fr)' },
+          gap: 2,
+          alignItems: 'start',
+        }}
       >
         <Stack gap={2}>
           <Card variant="outlined">

@@ -27,7 +27,9 @@ export function Component() {
       <ErrorNote error={overview.error} />
       {overview.isPending && <PageLoading />}
       {data && (
-        <Box sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr', xl: 'minmax(0, 1fr) 300px' }, gap: 2, alignItems: 'start' }}>
+        <Box
+          sx={{ display: 'grid', gridTemplateColumns: { xs: 'minmax(0, 1fr)', xl: 'minmax(0, 1fr) 300px' }, gap: 2, alignItems: 'start' }}
+        >
           <PriceBookForm book={data.current.book} version={data.current.version} canEdit={canEdit} onPublished={setNotice} />
           <Card variant="outlined" sx={{ gap: 1 }}>
             <Typography level="title-md" component="h2">

@@ -1,3 +1,4 @@
+import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
 import Checkbox from '@mui/joy/Checkbox';
 import Input from '@mui/joy/Input';
@@ -41,87 +42,94 @@ export function ListEditor({
   const { errors } = useFormState({ control, name: list });
   return (
     <>
-      <Table size="sm" aria-label={`Price book: ${list}`} sx={{ '--TableCell-height': '36px', '& td': { verticalAlign: 'top' } }}>
-        <thead>
-          <tr>
-            {specs.map((s) => (
-              <th key={s.name} style={{ width: s.width }}>
-                {s.label}
-              </th>
-            ))}
-            {!fixedRows && !disabled && <th style={{ width: 80 }} />}
-          </tr>
-        </thead>
-        <tbody>
-          {fields.map((row, index) => (
-            <tr key={row.id}>
-              {specs.map((s) => {
-                const path = `${list}.${index}.${s.name}` as 'surfaces.0.name';
-                const label = `${s.label}, row ${index + 1}`;
-                if (s.kind === 'bool')
-                  return (
-                    <td key={s.name}>
-                      <Controller
-                        control={control}
-                        name={path as 'surfaces.0.custom'}
-                        render={({ field }) => (
-                          <Checkbox
-                            checked={Boolean(field.value)}
-                            disabled={disabled}
-                            onChange={(e) => field.onChange(e.target.checked)}
-                            slotProps={{ input: { 'aria-label': label } }}
-                          />
-                        )}
-                      />
-                    </td>
-                  );
-                if (s.kind === 'select')
-                  return (
-                    <td key={s.name}>
-                      <Controller
-                        control={control}
-                        name={path}
-                        render={({ field }) => (
-                          <Select
-                            size="sm"
-                            value={field.value ?? null}
-                            disabled={disabled}
-                            onChange={(_, v) => v && field.onChange(v)}
-                            slotProps={{ button: { 'aria-label': label } }}
-                          >
-                            {s.options!.map((o) => (
-                              <Option key={o.value} value={o.value}>
-                                {o.label}
-                              </Option>
-                            ))}
-                          </Select>
-                        )}
-                      />
-                    </td>
-                  );
-                return (
-                  <td key={s.name}>
-                    <Input
-                      size="sm"
-                      disabled={disabled}
-                      error={Boolean(get(errors, path))}
-                      startDecorator={s.kind === 'money' ? '$' : undefined}
-                      inputMode={s.kind === 'text' ? undefined : 'decimal'}
-                      {...register(path, s.kind === 'int' ? { valueAsNumber: true } : undefined)}
-                      slotProps={{ input: { 'aria-label': label } }}
-                    />
-                  </td>
-                );
-              })}
-              {!fixedRows && !disabled && (
-                <td>
-                  <RemoveButton onClick={() => remove(index)} />
-                </td>
-              )}
+      {/* On a phone the table scrolls sideways inside its card; the page itself never grows wider than the screen. */}
+      <Box sx={{ overflowX: 'auto', maxWidth: '100%' }}>
+        <Table
+          size="sm"
+          aria-label={`Price book: ${list}`}
+          sx={{ minWidth: 600, '--TableCell-height': '36px', '& td': { verticalAlign: 'top' } }}
+        >
+          <thead>
+            <tr>
+              {specs.map((s) => (
+                <th key={s.name} style={{ width: s.width }}>
+                  {s.label}
+                </th>
+              ))}
+              {!fixedRows && !disabled && <th style={{ width: 80 }} />}
             </tr>
-          ))}
-        </tbody>
-      </Table>
+          </thead>
+          <tbody>
+            {fields.map((row, index) => (
+              <tr key={row.id}>
+                {specs.map((s) => {
+                  const path = `${list}.${index}.${s.name}` as 'surfaces.0.name';
+                  const label = `${s.label}, row ${index + 1}`;
+                  if (s.kind === 'bool')
+                    return (
+                      <td key={s.name}>
+                        <Controller
+                          control={control}
+                          name={path as 'surfaces.0.custom'}
+                          render={({ field }) => (
+                            <Checkbox
+                              checked={Boolean(field.value)}
+                              disabled={disabled}
+                              onChange={(e) => field.onChange(e.target.checked)}
+                              slotProps={{ input: { 'aria-label': label } }}
+                            />
+                          )}
+                        />
+                      </td>
+                    );
+                  if (s.kind === 'select')
+                    return (
+                      <td key={s.name}>
+                        <Controller
+                          control={control}
+                          name={path}
+                          render={({ field }) => (
+                            <Select
+                              size="sm"
+                              value={field.value ?? null}
+                              disabled={disabled}
+                              onChange={(_, v) => v && field.onChange(v)}
+                              slotProps={{ button: { 'aria-label': label } }}
+                            >
+                              {s.options!.map((o) => (
+                                <Option key={o.value} value={o.value}>
+                                  {o.label}
+                                </Option>
+                              ))}
+                            </Select>
+                          )}
+                        />
+                      </td>
+                    );
+                  return (
+                    <td key={s.name}>
+                      <Input
+                        size="sm"
+                        disabled={disabled}
+                        error={Boolean(get(errors, path))}
+                        startDecorator={s.kind === 'money' ? '$' : undefined}
+                        inputMode={s.kind === 'text' ? undefined : 'decimal'}
+                        {...register(path, s.kind === 'int' ? { valueAsNumber: true } : undefined)}
+                        slotProps={{ input: { 'aria-label': label } }}
+                      />
+                    </td>
+                  );
+                })}
+                {!fixedRows && !disabled && (
+                  <td>
+                    <RemoveButton onClick={() => remove(index)} />
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </Table>
+      </Box>
       {!fixedRows && !disabled && blank && (
         <Button
           size="sm"
