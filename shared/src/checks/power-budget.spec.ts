@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import type { PedalInput, RigConfiguration } from '../estimate/types';
+import type { PedalInput } from '../estimate/types';
 import { ohmsOf, powerBudgetOf, wattsOf } from './power-budget';
 import { signalChainOf } from './signal-chain';
+import { seriesOfPedals } from '../estimate/reference-rigs.fixture';
 
 // Electric power P = V × I and Ohm's law R = V / I, as any physics handbook states them (e.g.
 // Halliday, Resnick & Walker, "Fundamentals of Physics", the chapter on current and resistance;
@@ -27,15 +28,7 @@ describe('P = V × I and R = V / I', () => {
   });
 });
 
-const rig = (pedals: PedalInput[], outputs?: RigConfiguration['powerSupply']): RigConfiguration => ({
-  surfaceId: 's',
-  caseId: 'c',
-  routing: { mode: 'serial' },
-  pedals,
-  functions: [],
-  level: 'master',
-  powerSupply: outputs,
-});
+const rig = seriesOfPedals;
 const p = (name: string, currentMa: number | undefined, extra: Partial<PedalInput> = {}): PedalInput => ({
   name,
   powered: true,

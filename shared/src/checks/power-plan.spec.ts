@@ -4,6 +4,7 @@ import type { PedalInput, PowerOutputInput, RigConfiguration } from '../estimate
 import { powerBudgetOf } from './power-budget';
 import { DEFAULT_POWER_RULES, planPower } from './power-plan';
 import { signalChainOf } from './signal-chain';
+import { seriesOfPedals } from '../estimate/reference-rigs.fixture';
 import type { PowerRules, RigDevice } from './types';
 
 /*
@@ -55,15 +56,7 @@ function bruteForceFewestOutputs(devices: RigDevice[], outputs: PowerOutputInput
   return best;
 }
 
-const serial = (pedals: PedalInput[], outputs: PowerOutputInput[]): RigConfiguration => ({
-  surfaceId: 's',
-  caseId: 'c',
-  routing: { mode: 'serial' },
-  pedals,
-  functions: [],
-  level: 'master',
-  powerSupply: { outputs },
-});
+const serial = (pedals: PedalInput[], outputs: PowerOutputInput[]) => seriesOfPedals(pedals, { outputs });
 
 const voltageArb = fc.constantFrom(9, 9, 9, 12, 18);
 const pedalArb = fc.record({

@@ -35,3 +35,11 @@ export const expectedLaborRanges: Array<{ mode: 'serial' | 'switcher'; level: Bu
 export function countedBoard(pedalCount: number, level: BuilderLevel = 'journeyman', surfaceId = 'slate-61'): RigConfiguration {
   return { surfaceId, caseId: 'shell-hard', routing: { mode: 'serial' }, pedalCount, functions: [], level };
 }
+
+/**
+ * Pedals in series for the power checks, with the outputs the player brings (or none): the rig
+ * around them is a placeholder, since the power checks read only the pedals and the supply.
+ */
+export function seriesOfPedals(pedals: PedalInput[], powerSupply?: RigConfiguration['powerSupply']): RigConfiguration {
+  return { surfaceId: 's', caseId: 'c', routing: { mode: 'serial' }, pedals, functions: [], level: 'master', powerSupply };
+}
