@@ -20,6 +20,11 @@ export interface ListParamsDefaults<F extends string> {
 
 export const pageSizes = [25, 50, 100] as const;
 
+/** The page and sort of a list query, read from the address bar's params (`S`: the list's sort keys). */
+export function pageQuery<S extends string>(params: ListParams<string>) {
+  return { page: params.page, pageSize: params.pageSize, sort: params.sort as S, order: params.order };
+}
+
 /**
  * A server-side list's page, sort and filters, kept in the address bar so a filtered view can be
  * bookmarked, shared, and survives a reload. Changing a filter or the sort goes back to page 1,

@@ -19,7 +19,7 @@ import { EstimateLines } from 'src/features/bookings/components/EstimateLines';
 import { EventTimeline } from 'src/features/bookings/components/EventTimeline';
 import { PaymentsList } from 'src/components/PaymentsList';
 import { PhotoGrid } from 'src/features/bookings/components/PhotoGrid';
-import { Section } from 'src/features/bookings/components/Section';
+import { SectionCard } from 'src/features/bookings/components/Section';
 import { useExtras } from 'src/features/builds/api/get-extras';
 import { useIntake } from 'src/features/builds/api/get-intake';
 import { useTimeEntries } from 'src/features/builds/api/get-time-entries';
@@ -118,72 +118,52 @@ export function Component() {
         }}
       >
         <Stack gap={2}>
-          <Card variant="outlined">
-            <Section title="Intake">
-              <IntakePanel booking={b} intake={intake.data} />
-              <ErrorNote error={intake.error} />
-            </Section>
-          </Card>
-          <Card variant="outlined">
-            <Section title="Hours">
-              <HoursPanel booking={b} entries={entries.data} meId={me.data?.id} isOwner={isOwner} />
-              <ErrorNote error={entries.error} />
-            </Section>
-          </Card>
-          <Card variant="outlined">
-            <Section title="Extras">
-              <ExtrasPanel booking={b} extras={extras.data} isOwner={isOwner} />
-              <ErrorNote error={extras.error} />
-            </Section>
-          </Card>
-          <Card variant="outlined">
-            <Section title="The rig">
-              <ConfigurationSummary booking={b} />
-            </Section>
-          </Card>
-          <Card variant="outlined">
-            <Section title={b.firmQuote ? 'Firm quote' : 'Estimate'}>
-              <EstimateLines quote={b.firmQuote ?? b.quote} />
-            </Section>
-          </Card>
-          <Card variant="outlined">
-            <Section title="Photos">
-              <PhotoGrid photos={b.photos} />
-            </Section>
-          </Card>
-          <Card variant="outlined">
-            <Section title="Messages with the player">
-              {isOwner || (me.data && b.builder?.userId === me.data.id) ? (
-                <ConversationPanel bookingId={b.id} otherSide="the player" />
-              ) : (
-                <Typography level="body-sm">{messageWords.notYourThread}</Typography>
-              )}
-            </Section>
-          </Card>
+          <SectionCard title="Intake">
+            <IntakePanel booking={b} intake={intake.data} />
+            <ErrorNote error={intake.error} />
+          </SectionCard>
+          <SectionCard title="Hours">
+            <HoursPanel booking={b} entries={entries.data} meId={me.data?.id} isOwner={isOwner} />
+            <ErrorNote error={entries.error} />
+          </SectionCard>
+          <SectionCard title="Extras">
+            <ExtrasPanel booking={b} extras={extras.data} isOwner={isOwner} />
+            <ErrorNote error={extras.error} />
+          </SectionCard>
+          <SectionCard title="The rig">
+            <ConfigurationSummary booking={b} />
+          </SectionCard>
+          <SectionCard title={b.firmQuote ? 'Firm quote' : 'Estimate'}>
+            <EstimateLines quote={b.firmQuote ?? b.quote} />
+          </SectionCard>
+          <SectionCard title="Photos">
+            <PhotoGrid photos={b.photos} />
+          </SectionCard>
+          <SectionCard title="Messages with the player">
+            {isOwner || (me.data && b.builder?.userId === me.data.id) ? (
+              <ConversationPanel bookingId={b.id} otherSide="the player" />
+            ) : (
+              <Typography level="body-sm">{messageWords.notYourThread}</Typography>
+            )}
+          </SectionCard>
         </Stack>
         <Stack gap={2}>
-          <Card variant="outlined">
-            <Section title="Booking">
-              <BookingFacts booking={b} />
-            </Section>
-          </Card>
-          <Card variant="outlined">
-            <Section title="Money">
-              <MoneyFactsTable money={b.money} formatMoney={formatMoney} formatMoment={formatStamp} />
-              <Typography level="title-sm" component="h3">
-                Checkout attempts
-              </Typography>
-              <PaymentsList payments={b.payments} />
-            </Section>
-          </Card>
-          <Card variant="outlined">
-            <Section title="History: who did what when">
-              <Button size="sm" variant="outlined" color="neutral" onClick={() => setNoting(true)} sx={{ alignSelf: 'flex-start' }}>
-                Add a note…
-              </Button>
-              <EventTimeline events={b.events} />
-            </Section>
-          </Card>
+          <SectionCard title="Booking">
+            <BookingFacts booking={b} />
+          </SectionCard>
+          <SectionCard title="Money">
+            <MoneyFactsTable money={b.money} formatMoney={formatMoney} formatMoment={formatStamp} />
+            <Typography level="title-sm" component="h3">
+              Checkout attempts
+            </Typography>
+            <PaymentsList payments={b.payments} />
+          </SectionCard>
+          <SectionCard title="History: who did what when">
+            <Button size="sm" variant="outlined" color="neutral" onClick={() => setNoting(true)} sx={{ alignSelf: 'flex-start' }}>
+              Add a note…
+            </Button>
+            <EventTimeline events={b.events} />
+          </SectionCard>
           <SafetyNote />
         </Stack>
       </Box>

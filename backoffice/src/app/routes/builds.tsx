@@ -16,7 +16,7 @@ import { shortStateLabels } from 'src/components/StateChip';
 import { bookingsQueryOptions, useBookings, type BookingSort } from 'src/features/bookings/api/list-bookings';
 import { bookingColumns } from 'src/features/bookings/components/booking-columns';
 import { formatDay } from 'src/lib/format';
-import { useListParams } from 'src/lib/use-list-params';
+import { pageQuery, useListParams } from 'src/lib/use-list-params';
 
 const columns: Column<BookingSummary>[] = [
   {
@@ -48,15 +48,7 @@ const columns: Column<BookingSummary>[] = [
         '—'
       ),
   },
-  {
-    id: 'rig',
-    header: 'Rig',
-    render: (b) => (
-      <Typography level="body-sm" sx={{ minWidth: 140 }}>
-        {b.summary}
-      </Typography>
-    ),
-  },
+  bookingColumns.rig,
   bookingColumns.benchDate(110),
   { id: 'done', header: 'Expected done', width: 120, render: (b) => formatDay(b.expectedCompletion) },
   bookingColumns.labor(70),
@@ -82,10 +74,7 @@ export function Component() {
   });
   const state = (benchStates as readonly string[]).includes(params.filters.state) ? (params.filters.state as BenchState) : 'scheduled';
   const list = useBookings({
-    page: params.page,
-    pageSize: params.pageSize,
-    sort: params.sort as BookingSort,
-    order: params.order,
+    ...pageQuery<BookingSort>(params),
     state,
     q: params.filters.q || undefined,
   });

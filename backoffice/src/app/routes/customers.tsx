@@ -17,7 +17,7 @@ import { useCustomers, type CustomerSort } from 'src/features/customers/api/list
 import { CustomerDetails } from 'src/features/customers/components/CustomerDetails';
 import { SignOutEverywhere } from 'src/features/sessions/components/SignOutEverywhere';
 import { formatDay } from 'src/lib/format';
-import { useListParams } from 'src/lib/use-list-params';
+import { pageQuery, useListParams } from 'src/lib/use-list-params';
 
 const columns: Column<CustomerSummary>[] = [
   { id: 'name', header: 'Name', sortKey: 'name', render: (c) => <strong>{c.name}</strong> },
@@ -51,10 +51,7 @@ const columns: Column<CustomerSummary>[] = [
 export function Component() {
   const { params, update, paging, filter } = useListParams({ sort: 'name', order: 'asc', filters: { q: '', open: '' } });
   const list = useCustomers({
-    page: params.page,
-    pageSize: params.pageSize,
-    sort: params.sort as CustomerSort,
-    order: params.order,
+    ...pageQuery<CustomerSort>(params),
     search: params.filters.q || undefined,
   });
   const openId = params.filters.open || null;

@@ -24,7 +24,7 @@ import { AcceptDialog } from 'src/features/requests/components/AcceptDialog';
 import { DeclineDialog } from 'src/features/requests/components/DeclineDialog';
 import { useMe } from 'src/features/auth/api/get-me';
 import { formatMoney, formatStamp } from 'src/lib/format';
-import { useListParams } from 'src/lib/use-list-params';
+import { pageQuery, useListParams } from 'src/lib/use-list-params';
 
 const depositWords: Record<DepositStatus, string> = {
   unpaid: 'Not paid',
@@ -61,15 +61,7 @@ const columns: Column<BookingSummary>[] = [
       </>
     ),
   },
-  {
-    id: 'rig',
-    header: 'Rig',
-    render: (b) => (
-      <Typography level="body-sm" sx={{ minWidth: 140 }}>
-        {b.summary}
-      </Typography>
-    ),
-  },
+  bookingColumns.rig,
   bookingColumns.labor(64),
   bookingColumns.price('estimate', 'Estimate', 140),
   {
@@ -107,10 +99,7 @@ export function Component() {
     filters: { state: '', deposit: '', q: '', open: '' },
   });
   const list = useBookings({
-    page: params.page,
-    pageSize: params.pageSize,
-    sort: params.sort as BookingSort,
-    order: params.order,
+    ...pageQuery<BookingSort>(params),
     state: params.filters.state || undefined,
     deposit: (params.filters.deposit || undefined) as DepositStatus | undefined,
     q: params.filters.q || undefined,

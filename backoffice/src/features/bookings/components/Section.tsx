@@ -1,4 +1,5 @@
 import Box from '@mui/joy/Box';
+import Card from '@mui/joy/Card';
 import Typography from '@mui/joy/Typography';
 import type { ReactNode } from 'react';
 
@@ -13,6 +14,15 @@ export function Section({ title, children, actions }: { title: string; children:
       </Box>
       {children}
     </Box>
+  );
+}
+
+/** A section on a card of its own, as the build page lays out its parts. */
+export function SectionCard(props: { title: string; children: ReactNode; actions?: ReactNode }) {
+  return (
+    <Card variant="outlined">
+      <Section {...props} />
+    </Card>
   );
 }
 

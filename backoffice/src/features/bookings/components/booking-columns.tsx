@@ -1,3 +1,4 @@
+import Typography from '@mui/joy/Typography';
 import type { BookingSummary } from '@loomwright/shared';
 import type { Column } from 'src/components/DataTable';
 import { StateChip } from 'src/components/StateChip';
@@ -21,6 +22,16 @@ export const bookingColumns = {
     width,
     render: (b) => (b.firmTotal ? formatMoney(b.firmTotal, b.currency) : formatMoneyRange(b.totalLow, b.totalHigh, b.currency)),
   }),
+  /** The rig in a line (its pedal count, surface and routing). */
+  rig: {
+    id: 'rig',
+    header: 'Rig',
+    render: (b) => (
+      <Typography level="body-sm" sx={{ minWidth: 140 }}>
+        {b.summary}
+      </Typography>
+    ),
+  } as Column<BookingSummary>,
   state: {
     id: 'state',
     header: 'State',
