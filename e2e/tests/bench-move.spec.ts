@@ -1,5 +1,5 @@
 import { expect, request as playwrightRequest, test, type APIRequestContext, type Page } from '@playwright/test';
-import { acceptAtEarliest, apiAs, payDeposit, requestBuild, tunerAndReverb, signInOnPage } from './people';
+import { acceptAtEarliest, apiAs, ownBenchBooking, payDeposit, requestBuild, signInOnPage, tunerAndReverb } from './people';
 
 /**
  * When plans change: a builder moves a scheduled build to another day from the Bench, and the
@@ -74,13 +74,7 @@ test('a builder moves a scheduled build to another day from the Bench; the playe
   await dialog.getByRole('button', { name: 'Move the build' }).click();
   await expect(shop.getByText(new RegExp(`^${paid.reference} moved to .*later\\); the player has been e-mailed`))).toBeVisible();
   await shop.goto(`/backoffice/bench?day=${newDate}`);
-  await expect(
-    bench
-      .getByRole('row')
-      .filter({ hasText: 'Teodor Lind (you)' })
-      .getByRole('link', { name: new RegExp(paid.reference) })
-      .first(),
-  ).toBeVisible();
+  await expect(ownBenchBooking(shop, 'Teodor Lind', paid.reference)).toBeVisible();
 
   // The player's build page shows the new date …
   const player = await browser.newPage();

@@ -1,8 +1,6 @@
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
-import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
+import type { APIRequestContext, Page } from '@playwright/test';
 import { expect, test } from './csp';
-import { countedBoard, signInHere, signUpHere } from './people';
+import { countedBoard, ownBenchBooking, shoot, signInHere, signUpHere } from './people';
 
 /**
  * The main journey, end to end, as a player and the shop live it: configure a board, sign up,
@@ -15,17 +13,6 @@ import { countedBoard, signInHere, signUpHere } from './people';
  */
 
 const mailUrl = process.env.E2E_MAIL_URL ?? 'http://127.0.0.1:8125';
-const docsDir = path.resolve(__dirname, '../../docs/screenshots');
-
-/** Every step is saved as a test artifact; with UPDATE_DOCS_SCREENSHOTS=1 also for the README. */
-async function shoot(page: Page, testInfo: TestInfo, name: string) {
-  await page.waitForTimeout(200);
-  await page.screenshot({ path: testInfo.outputPath(`${name}.png`), fullPage: true });
-  if (process.env.UPDATE_DOCS_SCREENSHOTS === '1') {
-    mkdirSync(docsDir, { recursive: true });
-    await page.screenshot({ path: path.join(docsDir, `${name}.png`) });
-  }
-}
 
 const decode = (c: string) => JSON.parse(Buffer.from(c, 'base64url').toString('utf8'));
 /** Next, at a person's pace: once the estimate for the last change is on screen, and on to the named step. */
@@ -191,14 +178,7 @@ test('a player configures, signs up, pays the deposit; a builder schedules it; t
   await expect(shop.getByText(`${paid.reference} is scheduled with Teodor Lind`)).toBeVisible();
   await shop.keyboard.press('Escape');
   await shop.goto(`/backoffice/bench?day=${benchDate}`);
-  const bench = shop.getByRole('table', { name: 'Bench time per builder and day' });
-  await expect(
-    bench
-      .getByRole('row')
-      .filter({ hasText: 'Teodor Lind (you)' })
-      .getByRole('link', { name: new RegExp(paid.reference) })
-      .first(),
-  ).toBeVisible();
+  await expect(ownBenchBooking(shop, 'Teodor Lind', paid.reference)).toBeVisible();
   await shoot(shop, testInfo, 'backoffice-bench');
 
   // 4. The player's mailbox: the scheduled message with that date and a calendar attachment.

@@ -1,8 +1,6 @@
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
-import type { APIRequestContext, Page, TestInfo } from '@playwright/test';
+import type { APIRequestContext, Page } from '@playwright/test';
 import { expect, test } from './csp';
-import { countedBoard, signInHere } from './people';
+import { countedBoard, shoot, signInHere } from './people';
 
 /**
  * Pages as a player and the shop meet them: every browser tab names its page and the shop (the
@@ -11,7 +9,6 @@ import { countedBoard, signInHere } from './people';
  * current phone (common practice, no published source).
  */
 
-const docsDir = path.resolve(__dirname, '../../docs/screenshots');
 const PHONE = { width: 390, height: 844 };
 
 async function shopName(request: APIRequestContext): Promise<string> {
@@ -31,16 +28,6 @@ async function requestABuild(page: Page) {
   const configuration = countedBoard(7);
   const res = await page.request.post('/api/bookings', { data: { configuration, notes: 'Phone check' } });
   expect(res.status()).toBe(201);
-}
-
-/** Saved as a test artifact; with UPDATE_DOCS_SCREENSHOTS=1 also for the README. */
-async function shoot(page: Page, testInfo: TestInfo, name: string) {
-  await page.waitForTimeout(200);
-  await page.screenshot({ path: testInfo.outputPath(`${name}.png`), fullPage: true });
-  if (process.env.UPDATE_DOCS_SCREENSHOTS === '1') {
-    mkdirSync(docsDir, { recursive: true });
-    await page.screenshot({ path: path.join(docsDir, `${name}.png`) });
-  }
 }
 
 const overflow = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);

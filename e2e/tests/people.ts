@@ -1,4 +1,6 @@
-import { expect, request as playwrightRequest, type APIRequestContext, type Page } from '@playwright/test';
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { expect, request as playwrightRequest, type APIRequestContext, type Locator, type Page, type TestInfo } from '@playwright/test';
 
 /** A board priced by its pedal count: the same fixture the API and engine tests use. */
 export { countedBoard } from '../../shared/src/estimate/reference-rigs.fixture';
@@ -113,4 +115,26 @@ export async function acceptAtEarliest(builder: APIRequestContext, bookingId: st
   });
   expect(accepted.ok(), await accepted.text()).toBeTruthy();
   return mine;
+}
+
+const docsDir = path.resolve(__dirname, '../../docs/screenshots');
+
+/** Saves the whole page as a test artifact; with UPDATE_DOCS_SCREENSHOTS=1 also for the README (docs/screenshots). */
+export async function shoot(page: Page, testInfo: TestInfo, name: string) {
+  await page.waitForTimeout(200);
+  await page.screenshot({ path: testInfo.outputPath(`${name}.png`), fullPage: true });
+  if (process.env.UPDATE_DOCS_SCREENSHOTS === '1') {
+    mkdirSync(docsDir, { recursive: true });
+    await page.screenshot({ path: path.join(docsDir, `${name}.png`) });
+  }
+}
+
+/** The signed-in builder's row of the bench table ("… (you)") and, on it, the link to one booking by its reference. */
+export function ownBenchBooking(page: Page, builderName: string, reference: string): Locator {
+  return page
+    .getByRole('table', { name: 'Bench time per builder and day' })
+    .getByRole('row')
+    .filter({ hasText: `${builderName} (you)` })
+    .getByRole('link', { name: new RegExp(reference) })
+    .first();
 }
