@@ -20,7 +20,7 @@ import { ShipmentForm } from 'src/features/bookings/components/ShipmentForm';
 import { StatusTimeline } from 'src/features/bookings/components/StatusTimeline';
 import { BoardSketch } from 'src/features/configurator/components/BoardSketch';
 import { PayButton } from 'src/features/payments/components/PayButton';
-import { ConversationPanel, MoneyFactsTable } from '@loomwright/shared/ui';
+import { ApiErrorAlert, ConversationPanel, MoneyFactsTable } from '@loomwright/shared/ui';
 import { formatAmount, formatDay, formatMoment } from 'src/lib/format';
 
 const shippable: BookingState[] = ['requested', 'deposit_paid', 'scheduled'];
@@ -47,12 +47,7 @@ export function Component() {
   if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname)}`} replace />;
   if (booking.isPending) return <PageLoading label="Loading the build…" />;
-  if (booking.error)
-    return (
-      <Alert color="danger" role="alert">
-        {booking.error.message}
-      </Alert>
-    );
+  if (booking.error) return <ApiErrorAlert error={booking.error} />;
   const b = booking.data;
   const isPlayer = me.data.id === b.customer.id;
   // The proposed top view: the board-fit layout the firm quote (or the estimate) was priced with.

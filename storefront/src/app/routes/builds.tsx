@@ -1,4 +1,3 @@
-import Alert from '@mui/joy/Alert';
 import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
 import Card from '@mui/joy/Card';
@@ -8,7 +7,7 @@ import Table from '@mui/joy/Table';
 import Typography from '@mui/joy/Typography';
 import type { BookingSummary, DepositStatus } from '@loomwright/shared';
 import { useState } from 'react';
-import { UnreadMessagesBadge } from '@loomwright/shared/ui';
+import { ApiErrorAlert, UnreadMessagesBadge } from '@loomwright/shared/ui';
 import { Link as RouterLink, Navigate, useLocation } from 'react-router';
 import { PageLoading } from 'src/components/PageLoading';
 import { ShopUnavailable } from 'src/components/ShopUnavailable';
@@ -39,12 +38,7 @@ export function Component() {
   if (me.isError && !me.data) return <ShopUnavailable error={me.error} />;
   if (!me.data) return <Navigate to={`/sign-in?next=${encodeURIComponent(location.pathname)}`} replace />;
   if (list.isPending) return <PageLoading label="Loading your builds…" />;
-  if (list.error)
-    return (
-      <Alert color="danger" role="alert">
-        {list.error.message}
-      </Alert>
-    );
+  if (list.error) return <ApiErrorAlert error={list.error} />;
   const { items, total } = list.data;
   const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
 

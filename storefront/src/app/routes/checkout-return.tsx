@@ -1,3 +1,4 @@
+import { ApiErrorAlert } from '@loomwright/shared/ui';
 import Alert from '@mui/joy/Alert';
 import Button from '@mui/joy/Button';
 import Card from '@mui/joy/Card';
@@ -38,12 +39,7 @@ export function Component() {
         <CircularProgress aria-label="Loading your booking" />
       </Stack>
     );
-  if (booking.error)
-    return (
-      <Alert color="danger" role="alert">
-        {booking.error.message}
-      </Alert>
-    );
+  if (booking.error) return <ApiErrorAlert error={booking.error} />;
   const b = booking.data;
   const last = latestDeposit(b);
 

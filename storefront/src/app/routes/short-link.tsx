@@ -1,4 +1,4 @@
-import Alert from '@mui/joy/Alert';
+import { ApiErrorAlert } from '@loomwright/shared/ui';
 import Button from '@mui/joy/Button';
 import Stack from '@mui/joy/Stack';
 import { Link as RouterLink, Navigate, useParams } from 'react-router';
@@ -14,9 +14,7 @@ export function Component() {
   if (link.isError)
     return (
       <Stack gap={2} sx={{ maxWidth: 640, mx: 'auto' }}>
-        <Alert color="danger" role="alert">
-          {link.error.message}
-        </Alert>
+        <ApiErrorAlert error={link.error} />
         <Button component={RouterLink} to="/configure" sx={{ alignSelf: 'flex-start' }}>
           Configure a board
         </Button>

@@ -12,7 +12,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link as RouterLink, useNavigate } from 'react-router';
 import { CONFIGURATION_PARAM, encodeConfiguration, type SavedConfigurationSummary } from '@loomwright/shared';
-import { PageLoading } from '@loomwright/shared/ui';
+import { ApiErrorAlert, PageLoading } from '@loomwright/shared/ui';
 import { formatMoment } from 'src/lib/format';
 import { useDeleteConfiguration } from '../api/delete-configuration';
 import { useDuplicateConfiguration } from '../api/duplicate-configuration';
@@ -36,12 +36,7 @@ export function SavedConfigurationsList({ surfaceName }: { surfaceName: (id: str
   const [openError, setOpenError] = useState<string | null>(null);
 
   if (list.isPending) return <PageLoading label="Loading your configurations…" />;
-  if (list.isError)
-    return (
-      <Alert color="danger" role="alert">
-        {list.error.message}
-      </Alert>
-    );
+  if (list.isError) return <ApiErrorAlert error={list.error} />;
 
   const open = async (row: SavedConfigurationSummary) => {
     setOpening(row.id);
