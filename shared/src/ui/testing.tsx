@@ -4,13 +4,24 @@
  */
 import { CssVarsProvider } from '@mui/joy/styles';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { render } from '@testing-library/react';
+import { render, screen } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { createMemoryRouter, RouterProvider, type RouteObject } from 'react-router';
 
 /** An answer of the API as `fetch` would give it. */
 export const json = (status: number, body: unknown) =>
   new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+
+/**
+ * The API's 400 `validation_failed` answer as its ZodValidationPipe writes it (DEVELOPERS.md, "Error
+ * answers and their codes"): one problem, its words under `message` and with its field's path under `issues`.
+ */
+export const validationFailed = (path: string, words: string) =>
+  json(400, { statusCode: 400, code: 'validation_failed', message: [words], issues: [{ path, message: words }] });
+
+/** Joy's FormControl ties its helper text to the input: what is read out with the field labelled `label`. */
+export const wordsUnder = (label: string) =>
+  document.getElementById(screen.getByLabelText(label).getAttribute('aria-describedby') ?? '')?.textContent;
 
 /** A stand-in for `window.matchMedia` whose queries match when `matches(query)` says so. */
 export const matchMediaWhere =

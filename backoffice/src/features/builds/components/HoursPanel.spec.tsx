@@ -1,6 +1,6 @@
 import { cleanup, fireEvent, screen } from '@testing-library/react';
 import type { BookingDetail, TimeEntriesResponse } from '@loomwright/shared';
-import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { HoursPanel } from './HoursPanel';
@@ -16,10 +16,6 @@ function renderPanel(answer: () => Response) {
   return fetchMock;
 }
 
-/** Joy's FormControl ties its helper text to the input: what is read out with the field. */
-const wordsUnder = (label: string) =>
-  document.getElementById(screen.getByLabelText(label).getAttribute('aria-describedby') ?? '')?.textContent;
-
 describe('A build’s hours: the server’s refusal', () => {
   afterEach(() => {
     cleanup();
@@ -29,9 +25,7 @@ describe('A build’s hours: the server’s refusal', () => {
   // The body the API's ZodValidationPipe writes (DEVELOPERS.md, "Error answers and their codes").
   it('a validation_failed answer about the hours stands under the Hours field, and no alert repeats it', async () => {
     const words = 'Hours can be at most 24 in one day';
-    const fetchMock = renderPanel(() =>
-      json(400, { statusCode: 400, code: 'validation_failed', message: [words], issues: [{ path: 'hours', message: words }] }),
-    );
+    const fetchMock = renderPanel(() => validationFailed('hours', words));
     fireEvent.change(screen.getByLabelText('Hours'), { target: { value: '2.5' } });
     fireEvent.click(screen.getByRole('button', { name: 'Record hours' }));
     expect(await screen.findByText(words)).toBeTruthy();

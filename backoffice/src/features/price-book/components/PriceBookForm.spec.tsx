@@ -1,5 +1,5 @@
 import { cleanup, fireEvent, screen, within } from '@testing-library/react';
-import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { demoPriceBook } from '../../../../../shared/src/price-book/demo-price-book';
 import { theme } from 'src/theme';
@@ -19,10 +19,6 @@ const findProblemAlert = async () => {
   await screen.findByText((_, element) => element?.getAttribute('role') === 'alert' && problemAlerts().includes(element as HTMLElement));
   return problemAlerts()[0]!;
 };
-
-/** Joy's FormControl ties its helper text to the input: what is read out with the field. */
-const wordsUnder = (label: string) =>
-  document.getElementById(screen.getByLabelText(label).getAttribute('aria-describedby') ?? '')?.textContent;
 
 // The whole book is a long form: jsdom takes seconds to render it on a busy machine.
 describe('Price book: the server’s refusal of a publish', { timeout: 30_000 }, () => {

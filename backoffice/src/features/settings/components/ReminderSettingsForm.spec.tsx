@@ -1,5 +1,5 @@
 import { cleanup, fireEvent, screen } from '@testing-library/react';
-import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { ReminderSettingsForm } from './ReminderSettingsForm';
@@ -21,10 +21,6 @@ function renderForm(saveAnswer: () => Response) {
   return fetchMock;
 }
 
-/** Joy's FormControl ties its helper text to the input: what is read out with the field. */
-const wordsUnder = (label: string) =>
-  document.getElementById(screen.getByLabelText(label).getAttribute('aria-describedby') ?? '')?.textContent;
-
 describe('Settings → Reminders: the server’s refusal', () => {
   afterEach(() => {
     cleanup();
@@ -34,9 +30,7 @@ describe('Settings → Reminders: the server’s refusal', () => {
   // The body the API's ZodValidationPipe writes (DEVELOPERS.md, "Error answers and their codes").
   it('a validation_failed answer stands under the field it names, and no alert repeats it', async () => {
     const words = 'Days before the ship-by day can be at most 30';
-    renderForm(() =>
-      json(400, { statusCode: 400, code: 'validation_failed', message: [words], issues: [{ path: 'shipBy.daysBefore', message: words }] }),
-    );
+    renderForm(() => validationFailed('shipBy.daysBefore', words));
     fireEvent.click(await screen.findByRole('button', { name: 'Save reminders' }));
     expect(await screen.findByText(words)).toBeTruthy();
     expect(wordsUnder('Days before the ship-by day')).toBe(words);

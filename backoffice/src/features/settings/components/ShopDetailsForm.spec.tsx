@@ -1,6 +1,6 @@
 import { cleanup, fireEvent, screen } from '@testing-library/react';
 import type { ShopSettingsView } from '@loomwright/shared';
-import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { ShopDetailsForm } from './ShopDetailsForm';
@@ -24,10 +24,6 @@ function renderForm(answer: () => Response) {
   return fetchMock;
 }
 
-/** Joy's FormControl ties its helper text to the input: what is read out with the field. */
-const wordsUnder = (label: string) =>
-  document.getElementById(screen.getByLabelText(label).getAttribute('aria-describedby') ?? '')?.textContent;
-
 describe('Settings → Shop details: the server’s refusal', { timeout: 30_000 }, () => {
   afterEach(() => {
     cleanup();
@@ -37,9 +33,7 @@ describe('Settings → Shop details: the server’s refusal', { timeout: 30_000 
   // The body the API's ZodValidationPipe writes (DEVELOPERS.md, "Error answers and their codes").
   it('a validation_failed answer about the contact e-mail stands under that field, and no alert repeats it', async () => {
     const words = 'Contact e-mail can be at most 254 characters';
-    renderForm(() =>
-      json(400, { statusCode: 400, code: 'validation_failed', message: [words], issues: [{ path: 'contactEmail', message: words }] }),
-    );
+    renderForm(() => validationFailed('contactEmail', words));
     fireEvent.click(screen.getByRole('button', { name: 'Save shop details' }));
     expect(await screen.findByText(words)).toBeTruthy();
     expect(wordsUnder('Contact e-mail')).toBe(words);
