@@ -6,11 +6,24 @@ import { CssVarsProvider } from '@mui/joy/styles';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { render, screen } from '@testing-library/react';
 import type { ReactNode } from 'react';
+import { vi } from 'vitest';
 import { createMemoryRouter, RouterProvider, type RouteObject } from 'react-router';
 
 /** An answer of the API as `fetch` would give it. */
 export const json = (status: number, body: unknown) =>
   new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+
+/**
+ * Puts `answer` in place of `fetch` for this test (undo with `vi.unstubAllGlobals()`): each call
+ * gets the answer `answer(path, init)` gives; the mock is returned to read the calls made.
+ */
+export function stubFetch(answer: (path: string, init?: RequestInit) => Response) {
+  const fetchMock = vi.fn(async (input: string | URL | Request, init?: RequestInit) =>
+    answer(new URL(input instanceof Request ? input.url : String(input), 'http://localhost').pathname, init),
+  );
+  vi.stubGlobal('fetch', fetchMock);
+  return fetchMock;
+}
 
 /**
  * The API's 400 `validation_failed` answer as its ZodValidationPipe writes it (DEVELOPERS.md, "Error

@@ -1,13 +1,12 @@
 import { cleanup, fireEvent, screen } from '@testing-library/react';
-import { json, renderWithProviders, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { Component as ResetPasswordPage } from './reset-password';
 
 /** The reset page at a link's address, with the API's answer to the reset scripted. */
 function renderWithAnswer(answer: Response) {
-  const fetchMock = vi.fn(async () => answer);
-  vi.stubGlobal('fetch', fetchMock);
+  const fetchMock = stubFetch(() => answer);
   renderWithProviders(<ResetPasswordPage />, { theme, url: '/reset-password?token=a-link-token' });
   return fetchMock;
 }

@@ -1,6 +1,6 @@
 import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
 import { useLocation } from 'react-router';
-import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, stubFetch } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { Component as SignInPage } from './sign-in';
@@ -14,8 +14,7 @@ function Where() {
 
 /** The sign-in page in a memory router, with a fresh query client (no retries) and a scripted API. */
 function renderAt(url: string, api: (path: string, init?: RequestInit) => Response) {
-  const fetchMock = vi.fn(async (input: string | URL | Request, init?: RequestInit) => api(new URL(String(input)).pathname, init));
-  vi.stubGlobal('fetch', fetchMock);
+  const fetchMock = stubFetch(api);
   renderWithProviders(<Where />, { theme, url, routes: [{ path: '/sign-in', element: <SignInPage /> }] });
   return fetchMock;
 }

@@ -1,6 +1,6 @@
 import { cleanup, fireEvent, screen } from '@testing-library/react';
 import type { BookingDetail, TimeEntriesResponse } from '@loomwright/shared';
-import { json, renderWithProviders, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { HoursPanel } from './HoursPanel';
@@ -10,8 +10,7 @@ const booking = { id: 'b1', state: 'on_bench' } as BookingDetail;
 const entries: TimeEntriesResponse = { entries: [], totalHours: '0', plannedHours: '6' } as unknown as TimeEntriesResponse;
 
 function renderPanel(answer: () => Response) {
-  const fetchMock = vi.fn(async () => answer());
-  vi.stubGlobal('fetch', fetchMock);
+  const fetchMock = stubFetch(answer);
   renderWithProviders(<HoursPanel booking={booking} entries={entries} meId="u1" isOwner />, { theme });
   return fetchMock;
 }

@@ -1,12 +1,11 @@
 import { cleanup, fireEvent, screen } from '@testing-library/react';
-import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, stubFetch } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { InviteBuilderForm } from './InviteBuilderForm';
 
 function renderForm(answer: () => Response) {
-  const fetchMock = vi.fn(async () => answer());
-  vi.stubGlobal('fetch', fetchMock);
+  const fetchMock = stubFetch(answer);
   renderWithProviders(<InviteBuilderForm />, { theme });
   return fetchMock;
 }

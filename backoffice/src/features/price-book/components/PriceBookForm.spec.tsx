@@ -1,13 +1,12 @@
 import { cleanup, fireEvent, screen, within } from '@testing-library/react';
-import { json, renderWithProviders, wordsUnder } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, stubFetch, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { demoPriceBook } from '../../../../../shared/src/price-book/demo-price-book';
 import { theme } from 'src/theme';
 import { PriceBookForm } from './PriceBookForm';
 
 function renderForm(answer: () => Response) {
-  const fetchMock = vi.fn(async () => answer());
-  vi.stubGlobal('fetch', fetchMock);
+  const fetchMock = stubFetch(answer);
   renderWithProviders(<PriceBookForm book={demoPriceBook} version={3} canEdit onPublished={() => {}} />, { theme });
   return fetchMock;
 }

@@ -1,5 +1,5 @@
 import { cleanup, fireEvent, screen } from '@testing-library/react';
-import { json, renderWithProviders, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { ReminderSettingsForm } from './ReminderSettingsForm';
@@ -13,10 +13,7 @@ const view = {
 
 /** The Reminders form over a scripted API: its settings on GET, `saveAnswer` on PATCH. */
 function renderForm(saveAnswer: () => Response) {
-  const fetchMock = vi.fn(async (_input: string | URL | Request, init?: RequestInit) =>
-    init?.method === 'PATCH' ? saveAnswer() : json(200, view),
-  );
-  vi.stubGlobal('fetch', fetchMock);
+  const fetchMock = stubFetch((_path, init) => (init?.method === 'PATCH' ? saveAnswer() : json(200, view)));
   renderWithProviders(<ReminderSettingsForm canEdit onSaved={() => {}} />, { theme });
   return fetchMock;
 }

@@ -1,6 +1,6 @@
 import { cleanup, fireEvent, screen } from '@testing-library/react';
 import type { ShopSettingsView } from '@loomwright/shared';
-import { json, renderWithProviders, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { ShopDetailsForm } from './ShopDetailsForm';
@@ -18,8 +18,7 @@ const settings = {
 } as unknown as ShopSettingsView;
 
 function renderForm(answer: () => Response) {
-  const fetchMock = vi.fn(async () => answer());
-  vi.stubGlobal('fetch', fetchMock);
+  const fetchMock = stubFetch(answer);
   renderWithProviders(<ShopDetailsForm settings={settings} canEdit onSaved={() => {}} />, { theme });
   return fetchMock;
 }

@@ -1,13 +1,12 @@
 import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
-import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
+import { json, renderWithProviders, stubFetch } from '@loomwright/shared/ui/testing';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { ChangePasswordForm } from './ChangePasswordForm';
 
 /** The form with a scripted API: `answer` gives the reply to POST /api/auth/password. */
 function renderWith(answer: () => Response) {
-  const fetchMock = vi.fn(async () => answer());
-  vi.stubGlobal('fetch', fetchMock);
+  const fetchMock = stubFetch(answer);
   renderWithProviders(<ChangePasswordForm onCancel={() => {}} />, { theme });
   return fetchMock;
 }
