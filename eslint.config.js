@@ -32,7 +32,15 @@ function featureZones(app) {
 
 module.exports = tseslint.config(
   {
-    ignores: ['**/dist/**', '**/node_modules/**', '**/.data/**', 'e2e/test-results/**', 'e2e/playwright-report/**', 'docs/**'],
+    ignores: [
+      '**/dist/**',
+      '**/dist-prerender/**',
+      '**/node_modules/**',
+      '**/.data/**',
+      'e2e/test-results/**',
+      'e2e/playwright-report/**',
+      'docs/**',
+    ],
   },
   js.configs.recommended,
   ...tseslint.configs.recommended,

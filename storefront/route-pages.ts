@@ -1,4 +1,4 @@
-import type { Plugin, Rolldown } from 'vite';
+import { minifySync, type Plugin, type Rolldown } from 'vite';
 
 type OutputAsset = Rolldown.OutputAsset;
 type OutputBundle = Rolldown.OutputBundle;
@@ -12,6 +12,47 @@ export interface RoutePage {
   modules: string[];
   /** GET requests of the API the first screen makes (each is preloaded as a fetch). */
   fetches?: string[];
+  /**
+   * The build prerenders the page into its HTML (scripts/prerender.mjs): its modules are then
+   * asked for once that markup has been painted (`loadModulesAfterFirstPaint`), not beside it.
+   */
+  prerendered?: boolean;
+}
+
+/**
+ * Runs in the browser, as the classic script a prerendered page names instead of its module
+ * scripts (`data-modules`: the entry, then the chunks to preload). The page's words are already in
+ * its HTML; its scripts only bring them to life, so they are asked for once the browser has painted
+ * those words, and the style sheet, the fonts and the page itself do not share the line with them.
+ * A hidden tab (which paints nothing) loads them at once, and any page does after 3 s without a
+ * reported paint (a browser without paint timing).
+ */
+function loadModulesAfterFirstPaint() {
+  const [entry, ...chunks] = JSON.parse((document.currentScript as HTMLScriptElement).dataset.modules ?? '[]') as string[];
+  let started = false;
+  const start = () => {
+    if (started) return;
+    started = true;
+    for (const href of chunks) {
+      const link = document.createElement('link');
+      link.rel = 'modulepreload';
+      link.crossOrigin = '';
+      link.href = href;
+      document.head.append(link);
+    }
+    const script = document.createElement('script');
+    script.type = 'module';
+    script.crossOrigin = '';
+    script.src = entry;
+    document.head.append(script);
+  };
+  if (document.visibilityState !== 'visible') start();
+  // `buffered`: a paint that came before this script ran is reported too.
+  new PerformanceObserver((list) => list.getEntriesByName('first-contentful-paint').length && start()).observe({
+    type: 'paint',
+    buffered: true,
+  });
+  setTimeout(start, 3000);
 }
 
 /**
@@ -38,6 +79,23 @@ export function routePages(pages: RoutePage[], fonts: RegExp): Plugin {
         const withHead = (html: string, tags: string[]) => html.replace('</head>', `  ${tags.join('\n    ')}\n  </head>`);
         const html = withHead(String(index.source), fontTags);
         index.source = html;
+        // The loader a prerendered page starts its modules with, as its own small classic script.
+        const loader = minifySync('after-first-paint.js', `(${loadModulesAfterFirstPaint.toString()})();`);
+        if (loader.errors.length) return this.error(`route-pages: ${loader.errors[0].message}`);
+        const loaderFile = this.getFileName(this.emitFile({ type: 'asset', name: 'after-first-paint.js', source: loader.code }));
+        const afterFirstPaint = (page: string) => {
+          const modules = [
+            ...page.matchAll(
+              /<script type="module" crossorigin src="([^"]+)"><\/script>|<link rel="modulepreload" crossorigin href="([^"]+)">/g,
+            ),
+          ];
+          const entry = modules.find((m) => m[1]);
+          if (!entry) return this.error('route-pages: no module script in index.html');
+          let out = page;
+          for (const m of modules) out = out.replace(m[0], '');
+          const list = [entry[1], ...modules.filter((m) => m[2]).map((m) => m[2])];
+          return out.replace('</head>', `  <script defer src="/${loaderFile}" data-modules='${JSON.stringify(list)}'></script>\n  </head>`);
+        };
 
         for (const page of pages) {
           const files = new Set<string>();
@@ -57,7 +115,11 @@ export function routePages(pages: RoutePage[], fonts: RegExp): Plugin {
               .map((file) => `<link rel="modulepreload" crossorigin href="/${file}">`),
             ...(page.fetches ?? []).map((url) => `<link rel="preload" as="fetch" crossorigin="anonymous" href="${url}">`),
           ];
-          this.emitFile({ type: 'asset', fileName: page.file, source: withHead(html, tags) });
+          this.emitFile({
+            type: 'asset',
+            fileName: page.file,
+            source: page.prerendered ? afterFirstPaint(withHead(html, tags)) : withHead(html, tags),
+          });
         }
       },
     },

@@ -8,33 +8,44 @@ import { routePages } from './route-pages';
 
 const apiTarget = process.env.API_URL ?? 'http://localhost:3000';
 
-export default defineConfig({
-  plugins: [
-    react(),
-    // `/` and `/configure` (the two first loads the bench measures) name their lazy chunks and the
-    // price book up front; every page preloads the three Manrope weights the theme uses.
-    routePages(
-      [
-        { file: 'home.html', modules: ['/src/app/routes/home.tsx'] },
-        {
-          file: 'configure.html',
-          modules: ['/src/app/routes/configure.tsx'],
-          fetches: ['/api/catalog'],
-        },
-      ],
-      /manrope-latin-(400|600|700)-normal-[\w-]+\.woff2$/,
-    ),
-    // Each script and style sheet also as .br (brotli 11) and .gz (gzip 9), made once here; the API
-    // sends the copy the browser accepts instead of compressing on every request.
-    compression({
-      include: /\.(js|css)$/,
-      threshold: 0,
-      algorithms: [
-        defineAlgorithm('brotliCompress', { params: { [constants.BROTLI_PARAM_QUALITY]: 11 } }),
-        defineAlgorithm('gzip', { level: 9 }),
-      ],
-    }),
-  ],
+// shared/ is pure (no I/O, no globals), so a page that needs one helper from its index must not
+// carry the whole engine, zod and decimal.js along with it.
+const sharedIsPure = (id: string) => !id.includes('/shared/src/');
+
+const clientPlugins = () => [
+  react(),
+  // `/` and `/configure` (the two first loads the bench measures) name their lazy chunks and the
+  // price book up front; every page preloads the three Manrope weights the theme uses.
+  routePages(
+    [
+      { file: 'home.html', modules: ['/src/app/routes/home.tsx'], prerendered: true },
+      {
+        file: 'configure.html',
+        modules: ['/src/app/routes/configure.tsx'],
+        fetches: ['/api/catalog'],
+        prerendered: true,
+      },
+    ],
+    /manrope-latin-(400|600|700)-normal-[\w-]+\.woff2$/,
+  ),
+  // Each script and style sheet also as .br (brotli 11) and .gz (gzip 9), made once here; the API
+  // sends the copy the browser accepts instead of compressing on every request.
+  compression({
+    include: /\.(js|css)$/,
+    threshold: 0,
+    algorithms: [
+      defineAlgorithm('brotliCompress', { params: { [constants.BROTLI_PARAM_QUALITY]: 11 } }),
+      defineAlgorithm('gzip', { level: 9 }),
+    ],
+  }),
+];
+
+// Two builds: the browser's (dist/), and `vite build --ssr src/prerender.tsx` (dist-prerender/), a
+// Node module scripts/prerender.mjs runs once to write the first pages' markup into dist/'s HTML.
+// The second bundles every package (Node cannot import Joy's component folders as they are) and
+// writes no pages, no manifest and no compressed copies.
+export default defineConfig(({ isSsrBuild }) => ({
+  plugins: isSsrBuild ? [react()] : clientPlugins(),
   base: '/',
   resolve: {
     alias: {
@@ -49,19 +60,21 @@ export default defineConfig({
     },
   },
   server: { port: 5173, proxy: { '/api': apiTarget } },
-  build: {
-    outDir: 'dist',
-    sourcemap: false,
-    manifest: true,
-    rollupOptions: {
-      // shared/ is pure (no I/O, no globals), so a page that needs one helper from its index
-      // must not carry the whole engine, zod and decimal.js along with it.
-      treeshake: { moduleSideEffects: (id: string) => !id.includes('/shared/src/') },
-      // Everything the entry imports statically is needed by every page before it can draw, so it
-      // ships as one chunk (Rolldown's built-in `$initial` tag) instead of the entry plus the small
-      // common chunks automatic splitting cut out of it: one file compresses better than several.
-      output: { codeSplitting: { groups: [{ name: 'storefront', tags: ['$initial'] }] } },
-    },
-  },
+  ssr: { noExternal: isSsrBuild ? true : undefined },
+  build: isSsrBuild
+    ? { outDir: 'dist-prerender', sourcemap: false, minify: false, rollupOptions: { treeshake: { moduleSideEffects: sharedIsPure } } }
+    : {
+        outDir: 'dist',
+        sourcemap: false,
+        manifest: true,
+        modulePreload: { polyfill: false },
+        rollupOptions: {
+          treeshake: { moduleSideEffects: (id: string) => sharedIsPure(id) && !id.includes('/hoist-non-react-statics/') },
+          // Everything the entry imports statically is needed by every page before it can draw, so it
+          // ships as one chunk (Rolldown's built-in `$initial` tag) instead of the entry plus the small
+          // common chunks automatic splitting cut out of it: one file compresses better than several.
+          output: { codeSplitting: { groups: [{ name: 'storefront', tags: ['$initial'] }] } },
+        },
+      },
   test: componentTests('storefront', __dirname),
-});
+}));

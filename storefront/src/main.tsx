@@ -2,14 +2,22 @@ import '@fontsource/manrope/latin-400.css';
 import '@fontsource/manrope/latin-600.css';
 import '@fontsource/manrope/latin-700.css';
 import { StrictMode } from 'react';
-import { createRoot } from 'react-dom/client';
+import { createRoot, hydrateRoot } from 'react-dom/client';
 import { AppProviders } from 'src/app/providers';
 import { AppRouter } from 'src/app/router';
 
-createRoot(document.getElementById('root')!).render(
+const container = document.getElementById('root')!;
+const app = (
   <StrictMode>
     <AppProviders>
       <AppRouter />
     </AppProviders>
-  </StrictMode>,
+  </StrictMode>
 );
+
+// home.html and configure.html hold their page as the build prerendered it (`src/prerender.tsx`),
+// marked with its path: React takes that markup over instead of drawing it again. Any other page
+// (index.html, whose prerendered layout has a loading line where the page goes) is drawn afresh over
+// the same-looking markup.
+if (container.dataset.prerendered === window.location.pathname) hydrateRoot(container, app);
+else createRoot(container).render(app);

@@ -4,15 +4,12 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { queryClient } from 'src/app/query-client';
 import { theme } from 'src/theme';
-import { ShopVoice } from './shop-voice';
 
 export function AppProviders({ children }: { children: ReactNode }) {
   return (
     <CssVarsProvider theme={theme} defaultMode="light" modeStorageKey="lw-storefront-mode">
       <CssBaseline />
-      <QueryClientProvider client={queryClient}>
-        <ShopVoice>{children}</ShopVoice>
-      </QueryClientProvider>
+      <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>
     </CssVarsProvider>
   );
 }

@@ -10,9 +10,9 @@ import { catalogQueryOptions } from 'src/features/configurator/api/get-catalog';
  * A page in its own chunk: the module's `Component`, fetched the first time the page is shown, so
  * the first load ships only what the first screen needs. `title` names the browser tab.
  */
-function page(title: string, load: () => Promise<{ Component: ComponentType }>) {
+function page(title: string, load: () => Promise<{ Component: ComponentType }>, options: { voice?: boolean } = {}) {
   const Screen = lazy(() => load().then((module) => ({ default: module.Component })));
-  return <Page title={title} screen={Screen} />;
+  return <Page title={title} screen={Screen} voice={options.voice} />;
 }
 
 // React Router's declarative mode (BrowserRouter + useRoutes): the storefront uses no loaders,
@@ -23,7 +23,9 @@ export const routes: RouteObject[] = [
     path: '/',
     element: <AppLayout />,
     children: [
-      { index: true, element: page('Pedalboards wired by hand', () => import('src/app/routes/home')) },
+      // The home page writes no figure, so it does not wait for the shop's voice: its words are in the
+      // prerendered home.html and stay there (hydrated, not redrawn) when the script arrives.
+      { index: true, element: page('Pedalboards wired by hand', () => import('src/app/routes/home'), { voice: false }) },
       { path: 'sign-in', element: page('Sign in', () => import('src/app/routes/sign-in')) },
       { path: 'sign-up', element: page('Create your account', () => import('src/app/routes/sign-up')) },
       { path: 'forgot-password', element: page('Forgot your password?', () => import('src/app/routes/forgot-password')) },
@@ -33,7 +35,8 @@ export const routes: RouteObject[] = [
         path: 'configure',
         // The price book is asked for beside the screen's code, not after it has loaded.
         element: page('Configure your board', () => {
-          void queryClient.prefetchQuery(catalogQueryOptions());
+          // Not while the build prerenders the page: there is no API to ask then.
+          if (!import.meta.env.SSR) void queryClient.prefetchQuery(catalogQueryOptions());
           return import('src/app/routes/configure');
         }),
       },
@@ -49,7 +52,8 @@ export const routes: RouteObject[] = [
   },
 ];
 
-function AppRoutes() {
+/** The pages in the layout, under whichever router the caller gives (the browser's, or the prerender's static one). */
+export function AppRoutes() {
   return <RouteErrorBoundary>{useRoutes(routes)}</RouteErrorBoundary>;
 }
 

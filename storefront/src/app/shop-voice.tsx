@@ -4,7 +4,7 @@ import { useShop } from 'src/features/shop/api/get-shop';
 
 /**
  * Waits for the shop's settings (one small request), then speaks in its locale, currency and time
- * zone everywhere below. If the shop cannot be read (the API is down), pages still render in the
+ * zone everywhere below (a page's screen: `Page` puts it there; the layout around it does not wait). If the shop cannot be read (the API is down), pages still render in the
  * default voice and show their own "back shortly" notes.
  */
 export function ShopVoice({ children }: { children: ReactNode }) {
