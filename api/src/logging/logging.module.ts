@@ -2,11 +2,11 @@ import type { IncomingMessage, ServerResponse } from 'node:http';
 import { Global, Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { LoggerModule } from 'nestjs-pino';
-import type { LevelWithSilent, Logger } from 'pino';
+import { stdSerializers, type DestinationStream, type LevelWithSilent, type Logger } from 'pino';
 import { storage, Store } from 'nestjs-pino/storage';
 import { pinoHttp, type HttpLogger } from 'pino-http';
 import type { AppConfig } from '../config/configuration';
-import { redactPaths, REDACTED, requestSerializer, responseSerializer } from './log-redaction';
+import { blankSecretFields, requestSerializer, responseSerializer } from './log-redaction';
 import { requestIdFor } from './request-id';
 
 /** The one pino-http middleware (and its pino logger) of this process; configureApp mounts it first. */
@@ -15,7 +15,11 @@ export const HTTP_LOGGER = Symbol('HTTP_LOGGER');
 /** Probes and scrapes arrive every few seconds; their lines would drown the rest. */
 const quietPaths = /^\/api\/(health(\/(live|ready))?|metrics)(\?|$)/;
 
-export function createHttpLogger(level: string): HttpLogger {
+/** The request line's raw request and answer: their serializers pick its fields, so the secret walk skips them. */
+const serializedKeys = new Set(['req', 'res']);
+
+/** `destination`: stdout unless given (the tests read the lines from a stream of their own). */
+export function createHttpLogger(level: string, destination?: DestinationStream): HttpLogger {
   return pinoHttp<IncomingMessage, ServerResponse, never>({
     level,
     genReqId: requestIdFor,
@@ -23,10 +27,14 @@ export function createHttpLogger(level: string): HttpLogger {
     // Lines logged inside a request carry only its id; the request itself is on the one
     // "request completed" line.
     quietReqLogger: true,
-    redact: { paths: redactPaths, censor: REDACTED },
-    serializers: { req: requestSerializer, res: responseSerializer },
+    // The serializers read the raw request and answer and pick the line's few fields
+    // (log-redaction.ts); pino-http's wrapping would first copy each into pino's standard shape.
+    wrapSerializers: false,
+    serializers: { req: requestSerializer, res: responseSerializer, err: stdSerializers.err },
+    formatters: { log: (object: Record<string, unknown>) => blankSecretFields(object, serializedKeys) },
     autoLogging: { ignore: (req: IncomingMessage) => quietPaths.test(req.url ?? '') },
     customLogLevel: (_req, res, error): LevelWithSilent => (error || res.statusCode >= 500 ? 'error' : 'info'),
+    ...(destination ? { stream: destination } : {}),
   });
 }
 
