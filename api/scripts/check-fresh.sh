@@ -24,7 +24,7 @@ until grep -q 'READY' "$dir/start.log"; do
 done
 fail=0
 curl -fsS "http://localhost:$PORT/api/health" | grep -q '"db":"up"' || { echo "[check:fresh] /api/health is not up"; fail=1; }
-curl -fsS "http://localhost:$PORT/" | grep -q '<div id="root">' || { echo "[check:fresh] the storefront is not served"; fail=1; }
+curl -fsS "http://localhost:$PORT/" | grep -q '<div id="root" data-prerendered="/">' || { echo "[check:fresh] the storefront is not served"; fail=1; }
 curl -fsS "http://localhost:$PORT/backoffice/" | grep -q '<div id="root">' || { echo "[check:fresh] the backoffice is not served"; fail=1; }
 # Ctrl-C, as a person would press it: the whole process group gets SIGINT.
 kill -INT -- "-$starter" 2>/dev/null || true
