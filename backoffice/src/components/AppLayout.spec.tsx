@@ -1,7 +1,7 @@
-import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import { useLocation } from 'react-router';
 import { shopUnavailableMessage } from '@loomwright/shared';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { AppLayout } from './AppLayout';
 import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
@@ -38,11 +38,6 @@ function renderAt(url: string, me: () => Response) {
 }
 
 describe('the backoffice layout lets only staff in', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   it('keeps a builder on the page with "briefly unavailable" while the API answers 503, and lets them in once it is back', async () => {
     let down = true;
     renderAt('/bench', () =>

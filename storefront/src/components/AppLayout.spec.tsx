@@ -1,5 +1,5 @@
-import { cleanup, screen } from '@testing-library/react';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { screen } from '@testing-library/react';
+import { describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { AppLayout } from './AppLayout';
 import { Page } from './Page';
@@ -28,11 +28,6 @@ function renderAt(url: string) {
 }
 
 describe('the browser tab title', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   it('names the page, then the shop from its settings', async () => {
     renderAt('/builds');
     await screen.findAllByText(/Harrow & Pine Boards/);

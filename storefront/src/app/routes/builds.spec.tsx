@@ -1,4 +1,4 @@
-import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import { shopUnavailableMessage } from '@loomwright/shared';
 import { useLocation } from 'react-router';
 import { afterEach, describe, expect, it, vi } from 'vitest';
@@ -30,11 +30,6 @@ function renderAt(url: string, api: (path: string) => Response) {
 }
 
 describe('My builds while the shop is down', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   it('says the shop is briefly unavailable instead of sending the player to sign in, and comes back', async () => {
     let down = true;
     renderAt('/builds', (path) => {
@@ -83,8 +78,6 @@ const booking = {
 
 describe('My builds on a phone', () => {
   afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
     screenWidth = 1280;
   });
   const api = (path: string) =>

@@ -1,6 +1,6 @@
-import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { theme } from 'src/theme';
 import { Component as ResetPasswordPage } from './reset-password';
 
@@ -18,11 +18,6 @@ function submitPassword(password: string, again = password) {
 }
 
 describe('Choose a new password: what the page does with each answer', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   it('two passwords that differ are refused in the shared words and nothing is sent', async () => {
     const fetchMock = renderWithAnswer(json(500, {}));
     submitPassword('a-long-password', 'a-long-passwort');

@@ -1,7 +1,7 @@
-import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
+import { fireEvent, screen, waitFor } from '@testing-library/react';
 import { useLocation } from 'react-router';
 import { json, renderWithProviders, stubFetch } from '@loomwright/shared/ui/testing';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { Component as SignInPage } from './sign-in';
 
@@ -23,11 +23,6 @@ const signInCalls = (fetchMock: ReturnType<typeof vi.fn>) =>
   fetchMock.mock.calls.filter(([input]) => String(input).endsWith('/api/auth/sign-in'));
 
 describe('sign-in page', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   it('refuses empty fields in the shared words and sends nothing', async () => {
     const fetchMock = renderAt('/sign-in', () => json(200, { user: null }));
     fireEvent.click(await screen.findByRole('button', { name: 'Sign in' }));

@@ -1,7 +1,7 @@
-import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import type { BookingDetail, TimeEntriesResponse } from '@loomwright/shared';
 import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { theme } from 'src/theme';
 import { HoursPanel } from './HoursPanel';
 
@@ -16,11 +16,6 @@ function renderPanel(answer: () => Response) {
 }
 
 describe('A build’s hours: the server’s refusal', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   // The body the API's ZodValidationPipe writes (DEVELOPERS.md, "Error answers and their codes").
   it('a validation_failed answer about the hours stands under the Hours field, and no alert repeats it', async () => {
     const words = 'Hours can be at most 24 in one day';

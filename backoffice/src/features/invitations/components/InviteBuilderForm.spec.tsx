@@ -1,6 +1,6 @@
-import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import { json, renderWithProviders, stubFetch } from '@loomwright/shared/ui/testing';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { theme } from 'src/theme';
 import { InviteBuilderForm } from './InviteBuilderForm';
 
@@ -11,11 +11,6 @@ function renderForm(answer: () => Response) {
 }
 
 describe('Invite a builder', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   it('refuses a zero rate and a missing name in the shared words, sending nothing', async () => {
     const fetchMock = renderForm(() => json(500, {}));
     fireEvent.change(screen.getByLabelText('Hourly rate'), { target: { value: '0' } });

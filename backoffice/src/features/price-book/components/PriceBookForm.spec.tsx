@@ -1,6 +1,6 @@
-import { cleanup, fireEvent, screen, within } from '@testing-library/react';
+import { fireEvent, screen, within } from '@testing-library/react';
 import { json, renderWithProviders, stubFetch, wordsUnder } from '@loomwright/shared/ui/testing';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { demoPriceBook } from '../../../../../shared/src/price-book/demo-price-book';
 import { theme } from 'src/theme';
 import { PriceBookForm } from './PriceBookForm';
@@ -21,11 +21,6 @@ const findProblemAlert = async () => {
 
 // The whole book is a long form: jsdom takes seconds to render it on a busy machine.
 describe('Price book: the server’s refusal of a publish', { timeout: 30_000 }, () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   // The body the API's ZodValidationPipe writes for POST /api/price-book's `{ book, notes }`
   // (DEVELOPERS.md, "Error answers and their codes"): each path starts with `book.`.
   it('a validation_failed answer stands under the field of the book it names, and no second alert repeats it', async () => {

@@ -1,5 +1,5 @@
-import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { fireEvent, screen, waitFor } from '@testing-library/react';
+import { describe, expect, it, vi } from 'vitest';
 import { theme } from 'src/theme';
 import { SignOutEverywhere } from './SignOutEverywhere';
 import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
@@ -13,11 +13,6 @@ const session = (id: string, device: string) => ({
 });
 
 describe('sign a person out of every device', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   it('asks first, says how many devices, ends them with DELETE and reports in words', async () => {
     let live = [session('s1', 'phone'), session('s2', 'laptop')];
     const fetchMock = vi.fn(async (input: string | URL | Request, init?: RequestInit) => {

@@ -1,6 +1,6 @@
-import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { theme } from 'src/theme';
 import { ReminderSettingsForm } from './ReminderSettingsForm';
 
@@ -19,11 +19,6 @@ function renderForm(saveAnswer: () => Response) {
 }
 
 describe('Settings → Reminders: the server’s refusal', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   // The body the API's ZodValidationPipe writes (DEVELOPERS.md, "Error answers and their codes").
   it('a validation_failed answer stands under the field it names, and no alert repeats it', async () => {
     const words = 'Days before the ship-by day can be at most 30';

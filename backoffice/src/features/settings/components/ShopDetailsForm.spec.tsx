@@ -1,7 +1,7 @@
-import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import type { ShopSettingsView } from '@loomwright/shared';
 import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { theme } from 'src/theme';
 import { ShopDetailsForm } from './ShopDetailsForm';
 
@@ -24,11 +24,6 @@ function renderForm(answer: () => Response) {
 }
 
 describe('Settings → Shop details: the server’s refusal', { timeout: 30_000 }, () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   // The body the API's ZodValidationPipe writes (DEVELOPERS.md, "Error answers and their codes").
   it('a validation_failed answer about the contact e-mail stands under that field, and no alert repeats it', async () => {
     const words = 'Contact e-mail can be at most 254 characters';

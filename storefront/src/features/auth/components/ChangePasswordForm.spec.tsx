@@ -1,6 +1,6 @@
-import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
+import { fireEvent, screen, waitFor } from '@testing-library/react';
 import { json, renderWithProviders, stubFetch } from '@loomwright/shared/ui/testing';
-import { afterEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { theme } from 'src/theme';
 import { ChangePasswordForm } from './ChangePasswordForm';
 
@@ -19,11 +19,6 @@ function fill(current: string, next: string, again = next) {
 }
 
 describe('Change your password (account page)', () => {
-  afterEach(() => {
-    cleanup();
-    vi.unstubAllGlobals();
-  });
-
   it('refuses a mistyped repeat and an unchanged password in the shared words, and sends nothing', async () => {
     const fetchMock = renderWith(() => json(200, {}));
     fill('old-secret-1', 'new-secret-12', 'new-secret-13');
