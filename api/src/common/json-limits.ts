@@ -14,18 +14,27 @@ export type BodyProblem = 'too-deep' | 'lone-surrogate' | null;
  * Walks a parsed body without recursion (a deep body must not overflow the stack here either):
  * too deep, or any key or text holding a lone surrogate, which UTF-8 cannot encode (RFC 3629 §3)
  * and which would otherwise be stored silently as U+FFFD or throw deep inside a validator.
+ * Runs on every request with a body or a query, so it keeps two flat stacks (values and their
+ * depths) and reads keys with for…in, instead of a [value, depth] pair and an Object.entries
+ * array for every node.
  */
 export function findBodyProblem(body: unknown): BodyProblem {
-  const stack: Array<[unknown, number]> = [[body, 0]];
-  while (stack.length > 0) {
-    const [value, depth] = stack.pop()!;
+  if (body === null || typeof body !== 'object') return typeof body === 'string' && LONE_SURROGATE.test(body) ? 'lone-surrogate' : null;
+  const values: unknown[] = [body];
+  const depths: number[] = [0];
+  while (values.length > 0) {
+    const value = values.pop();
+    const depth = depths.pop()!;
     if (typeof value === 'string') {
       if (LONE_SURROGATE.test(value)) return 'lone-surrogate';
     } else if (value !== null && typeof value === 'object') {
       if (depth >= MAX_BODY_DEPTH) return 'too-deep';
-      for (const [key, child] of Object.entries(value)) {
+      const record = value as Record<string, unknown>;
+      for (const key in record) {
+        if (!Object.prototype.hasOwnProperty.call(record, key)) continue;
         if (LONE_SURROGATE.test(key)) return 'lone-surrogate';
-        stack.push([child, depth + 1]);
+        values.push(record[key]);
+        depths.push(depth + 1);
       }
     }
   }
