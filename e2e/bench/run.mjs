@@ -445,16 +445,24 @@ async function explainCall(admin, call, cookie) {
   };
 }
 
-async function timeCall(call, cookie) {
+/**
+ * Wall-clock times of `repeat` calls one after another (after three to warm up), and the API
+ * process's CPU per call (with `beforeEach`'s own work, if any, on the API's side).
+ */
+async function timeCall(call, cookie, beforeEach) {
   const times = [];
+  let before = null;
   for (let i = 0; i < 3 + repeat; i++) {
+    await beforeEach?.();
+    if (i === 3) before = cpuMicros(apiPid);
     const t0 = performance.now();
     const res = await fetch(`${base}${call}`, { headers: { cookie } });
     await res.arrayBuffer();
     if (!res.ok) throw new Error(`${call}: ${res.status}`);
     if (i >= 3) times.push(performance.now() - t0);
   }
-  return times;
+  const after = cpuMicros(apiPid);
+  return { times, cpu: before !== null && after !== null ? (after - before) / repeat : null };
 }
 
 async function dataSection() {
@@ -520,19 +528,31 @@ async function dataSection() {
     ['Bench: month', `/api/bench?from=${day(monday, 0)}&to=${day(monday, 34)}`, 100],
     ['Accept suggestion', `/api/bench/suggest?bookingId=${waiting?.id}`, 20],
     ['Public lead time', '/api/bench/lead-time?hours=14.00&level=journeyman', 20],
+    // The same two calls each just after the bench changed (every API process drops the bench it
+    // holds in memory and reads it again): what the first caller after an acceptance waits for.
+    ['Accept suggestion, bench just changed', `/api/bench/suggest?bookingId=${waiting?.id}`, 20, 'changed'],
+    ['Public lead time, bench just changed', '/api/bench/lead-time?hours=14.00&level=journeyman', 20, 'changed'],
     ['Booking detail', `/api/bookings/${someBooking?.id}`, ''],
   ];
+  apiPid ??= listenerPid(ports.api);
   const admin = new pg.Client({ host: '127.0.0.1', port: ports.pg, user: 'postgres', database: dbName });
   await admin.connect();
   try {
-    for (const [label, call, target] of calls) {
+    // What any write to the bench tells every API process (the triggers of migration 20261203_0700),
+    // given a moment to arrive.
+    const benchChanged = async () => {
+      await admin.query(`select pg_notify('bench_changed', '')`);
+      await new Promise((r) => setTimeout(r, 20));
+    };
+    for (const [label, call, target, when] of calls) {
       say(`data: ${label}…`);
-      const times = await timeCall(call, cookie);
+      const { times, cpu } = await timeCall(call, cookie, when === 'changed' ? benchChanged : undefined);
+      if (when === 'changed') await benchChanged();
       const { plan, pages, statements } = await explainCall(admin, call, cookie);
       row(
         'data',
-        `${label} p50 · p95`,
-        `${ms(quantile(times, 0.5))} · ${ms(quantile(times, 0.95))}`,
+        `${label} p50 · p95 · API CPU per call`,
+        `${ms(quantile(times, 0.5))} · ${ms(quantile(times, 0.95))}${cpuText({ cpu })}`,
         '',
         '',
         target ? `p95 ≤ ${target} ms` : '',

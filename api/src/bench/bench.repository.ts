@@ -174,18 +174,21 @@ export class BenchRepository {
    * moved), its ends in centihours (slices hold two decimals, so hundredths are whole numbers).
    */
   allocationsFrom(trx: Executor, builderId: string, from: string, exceptBookingId?: string) {
-    return this.allocationsFromEach(trx, [builderId], from, exceptBookingId);
+    let q = this.slicesFrom(trx, from).where('builder_id', '=', builderId);
+    if (exceptBookingId) q = q.where('booking_id', '!=', exceptBookingId);
+    return q.execute();
   }
 
   /**
-   * As allocationsFrom, for several builders in one query (the lead time and the suggestions plan
-   * every eligible builder at once; one query each was most of their time with a year of data).
-   * `day >= from` is served by the exclusion constraint's GiST index when few slices lie ahead; with
-   * a busy bench nearly every slice does, and PostgreSQL reads the table whole (35 pages for a year).
+   * Every slice of every builder from `from` on, for the bench held in memory (BenchCache). With a
+   * busy bench nearly every slice lies ahead, and PostgreSQL reads the table whole (35 pages for a year).
    */
-  allocationsFromEach(trx: Executor, builderIds: readonly string[], from: string, exceptBookingId?: string) {
-    if (builderIds.length === 0) return Promise.resolve([]);
-    let q = trx
+  allocationsFromDay(trx: Executor, from: string) {
+    return this.slicesFrom(trx, from).execute();
+  }
+
+  private slicesFrom(trx: Executor, from: string) {
+    return trx
       .selectFrom('bench_allocations')
       .select([
         'builder_id',
@@ -194,10 +197,7 @@ export class BenchRepository {
         sql<number>`(lower(hours) * 100)::int`.as('from_centihours'),
         sql<number>`(upper(hours) * 100)::int`.as('to_centihours'),
       ])
-      .where('builder_id', 'in', builderIds)
       .where('day', '>=', from);
-    if (exceptBookingId) q = q.where('booking_id', '!=', exceptBookingId);
-    return q.execute();
   }
 
   /** A build's own slices, day by day. */

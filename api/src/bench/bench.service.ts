@@ -19,6 +19,7 @@ import {
 import { Database, type Executor } from '../database/database';
 import { firmQuoteFigures } from '../builds/firm-quote';
 import { formatDay as formatDayWords } from '../mail/templates/format';
+import { BenchCache, type BenchSnapshot, type HeldSlice } from './bench-cache';
 import { BenchRepository } from './bench.repository';
 import { addDays, daysBetween, eachDay, todayIn } from './calendar-days';
 import { publicHolidaysBetween } from './public-holidays';
@@ -26,6 +27,7 @@ import {
   dayCapacity,
   earliestBenchDateFor,
   earliestStart,
+  firstFreeDay,
   planBuild,
   shipByDate,
   toCentihours,
@@ -44,6 +46,9 @@ export const MAX_BENCH_VIEW_DAYS = 93;
  */
 export const ACCEPTANCE_ALLOWANCE_DAYS = 2;
 
+/** Lead-time answers kept per snapshot of the bench (hours and level asked), before they are all forgotten. */
+const LEAD_TIMES_HELD = 1_000;
+
 type BuilderRow = Awaited<ReturnType<BenchRepository['listBuilders']>>[number];
 
 /** What the firm quote and the planner need to know about a booking's estimate. */
@@ -53,6 +58,8 @@ export interface ShopCalendar {
   holidayOn: (d: string) => string | null;
   absences: Map<string, Closure[]>;
   today: string;
+  /** The shop's time zone, which decides what today is. */
+  timezone: string;
   currency: string;
 }
 
@@ -88,6 +95,7 @@ export class BenchService {
   constructor(
     private readonly db: Database,
     private readonly bench: BenchRepository,
+    private readonly cache: BenchCache,
   ) {}
 
   /** Public holidays by day, cached per country and year (the dataset does not change at runtime). */
@@ -120,6 +128,7 @@ export class BenchService {
       closures: closures.map((c) => ({ startsOn: c.starts_on, endsOn: c.ends_on, reason: c.reason })),
       holidayOn: (day: string) => (worked.has(day) ? null : holidayOn(day)),
       today: todayIn(settings?.timezone ?? 'UTC'),
+      timezone: settings?.timezone ?? 'UTC',
       currency: settings?.currency.trim() ?? 'USD',
     };
   }
@@ -205,17 +214,20 @@ export class BenchService {
    * rig's minimum they are left out, and below the chosen level only the owner sees them.
    */
   async suggest(user: AuthUser, bookingId: string, builderId?: string): Promise<BenchSuggestResponse> {
-    const facts = await this.planningFacts(this.db, bookingId);
+    const [facts, bench] = await Promise.all([this.planningFacts(this.db, bookingId), this.heldBench()]);
     const moving = ['scheduled', 'pedals_received'].includes(facts.state);
     if (!['requested', 'deposit_paid'].includes(facts.state) && !moving) {
       throw new ConflictException(
         `Booking ${facts.reference} is ${facts.state.replace(/_/g, ' ')}; only a request waiting for a bench date, or a build not yet on the bench, gets a suggestion.`,
       );
     }
-    const [shop, team] = await Promise.all([this.shopCalendar(), this.bench.listBuilders(this.db, { builderId, activeOnly: !builderId })]);
+    const { shop } = bench;
+    // As listBuilders with { builderId, activeOnly: !builderId }: one builder asked for, or every active one who has joined.
+    const team = bench.team.filter((b) => (builderId ? b.id === builderId : b.active && b.joined));
     const builders = this.orderMeFirst(team, user);
     if (builderId && builders.length === 0) throw new NotFoundException('That builder is not on the team; choose one from the list.');
-    const from = this.earliestAllowedDate(facts.state, shop);
+    // earliestAllowedDate on the held bench: the first shippable day is worked out once per snapshot.
+    const from = AWAITING_PEDALS.includes(facts.state) ? (bench.firstShippable ??= earliestBenchDateFor(shop.today, shop)) : shop.today;
     const suggestions: BenchSuggestion[] = [];
     const ineligible: BenchSuggestResponse['ineligible'] = [];
     // Who is left out by level first, then every other builder planned from one read of the bench;
@@ -229,7 +241,7 @@ export class BenchService {
       return null;
     };
     const planned = builders.filter((b) => levelReason(b) === null);
-    const plans = await this.earliestStarts(this.db, planned, facts.laborHours, shop, from, moving ? bookingId : undefined);
+    const plans = this.earliestStartsOn(bench, planned, facts.laborHours, from, moving ? bookingId : undefined);
     const planOf = new Map(planned.map((b, i) => [b.id, plans[i]!]));
     for (const b of builders) {
       const meets = levelRank(b.level) >= levelRank(facts.minimumLevel);
@@ -253,7 +265,7 @@ export class BenchService {
         builder: this.toBenchBuilder(b, user),
         benchDate: plan.benchDate,
         expectedCompletion: plan.expectedCompletion,
-        shipBy: shipByDate(plan.benchDate, shop),
+        shipBy: this.shipByOn(bench, plan.benchDate),
         plan: plan.days.map((d) => ({ date: d.day, hours: toHours(d.hours) })),
         laborTotal: figures.laborTotal,
         firmTotal: figures.total,
@@ -423,12 +435,26 @@ export class BenchService {
    * date or an earlier one).
    */
   async leadTime(laborHours: string, level: BuilderLevel): Promise<BenchLeadTime> {
-    const [shop, team] = await Promise.all([this.shopCalendar(), this.bench.listBuilders(this.db, { activeOnly: true })]);
+    const bench = await this.heldBench();
+    // The answer depends on nothing else than the bench and the shop's day, which the snapshot is of.
+    const key = `${laborHours} ${level}`;
+    let answer = bench.leadTimes.get(key);
+    if (!answer) {
+      answer = this.leadTimeOn(bench, laborHours, level);
+      if (bench.leadTimes.size >= LEAD_TIMES_HELD) bench.leadTimes.clear();
+      bench.leadTimes.set(key, answer);
+    }
+    return { ...answer };
+  }
+
+  private leadTimeOn(bench: BenchSnapshot, laborHours: string, level: BuilderLevel): BenchLeadTime {
+    const { shop } = bench;
     // The player has yet to pay and a builder to accept, so the ship-by day is counted from a
     // couple of days ahead, never from today.
     const from = earliestBenchDateFor(addDays(shop.today, ACCEPTANCE_ALLOWANCE_DAYS), shop);
-    const builders = team.filter((b) => levelRank(b.level) >= levelRank(level));
-    const plans = await this.earliestStarts(this.db, builders, laborHours, shop, from);
+    // Every active builder who has joined (listBuilders' activeOnly), of the level or above.
+    const builders = bench.team.filter((b) => b.active && b.joined && levelRank(b.level) >= levelRank(level));
+    const plans = this.earliestStartsOn(bench, builders, laborHours, from);
     let best: { benchDate: string; expectedCompletion: string } | null = null;
     for (const plan of plans) {
       if (!plan.ok) continue;
@@ -453,7 +479,7 @@ export class BenchService {
       level,
       earliestBenchDate: best.benchDate,
       expectedCompletion: best.expectedCompletion,
-      shipBy: shipByDate(best.benchDate, shop),
+      shipBy: this.shipByOn(bench, best.benchDate),
     };
   }
 
@@ -476,30 +502,74 @@ export class BenchService {
   }
 
   /**
-   * The earliest start of each builder, from one read of all their slices (planFor asks once per
-   * builder). Answers in the builders' order.
+   * The bench as the lead time and the suggestions read it: from memory while this process hears
+   * every change to it (BenchCache), read again once the shop's day has turned.
    */
-  async earliestStarts(
-    trx: Executor,
+  async heldBench(): Promise<BenchSnapshot> {
+    const held = await this.cache.get(() => this.readBench());
+    if (held.shop.today === todayIn(held.shop.timezone)) return held;
+    this.cache.invalidate();
+    return this.cache.get(() => this.readBench());
+  }
+
+  /**
+   * The calendar, the whole team and every slice from yesterday (UTC) on, in three statements side
+   * by side: the shop's today is yesterday, today or tomorrow in UTC whatever its time zone, so
+   * every slice a plan from the shop's today can meet is there.
+   */
+  private async readBench(): Promise<BenchSnapshot> {
+    const [shop, team, rows] = await Promise.all([
+      this.shopCalendar(),
+      this.bench.listBuilders(this.db),
+      this.bench.allocationsFromDay(this.db, addDays(todayIn('UTC'), -1)),
+    ]);
+    const slices = new Map<string, Map<string, HeldSlice[]>>();
+    for (const r of rows) {
+      let days = slices.get(r.builder_id);
+      if (!days) slices.set(r.builder_id, (days = new Map()));
+      let list = days.get(r.day);
+      if (!list) days.set(r.day, (list = []));
+      list.push({ from: r.from_centihours, to: r.to_centihours, bookingId: r.booking_id });
+    }
+    return { shop, team, slices, leadTimes: new Map(), firstFreeDays: new Map(), shipBy: new Map() };
+  }
+
+  /**
+   * The earliest start of each builder on or after `from` (not before the snapshot's today), on the
+   * bench held in memory; a build being moved leaves its own slices out. Answers in the builders' order.
+   */
+  earliestStartsOn(
+    bench: BenchSnapshot,
     builders: ReadonlyArray<{ id: string; weekly_hours: WeeklyHours }>,
     laborHours: string,
-    shop: Pick<ShopCalendar, 'closures' | 'holidayOn' | 'absences'>,
     from: string,
     exceptBookingId?: string,
-  ): Promise<BuildPlan[]> {
-    const rows = await this.bench.allocationsFromEach(
-      trx,
-      builders.map((b) => b.id),
-      from,
-      exceptBookingId,
-    );
-    const byBuilder = new Map<string, typeof rows>();
-    for (const r of rows) {
-      const list = byBuilder.get(r.builder_id) ?? [];
-      list.push(r);
-      byBuilder.set(r.builder_id, list);
-    }
-    return builders.map((b) => this.planOver(byBuilder.get(b.id) ?? [], b, laborHours, shop, { from }));
+  ): BuildPlan[] {
+    return builders.map((b) => {
+      const days = bench.slices.get(b.id);
+      const taken = (d: string): HourSlice[] => {
+        const list = days?.get(d);
+        if (!list) return [];
+        return exceptBookingId ? list.filter((s) => s.bookingId !== exceptBookingId) : list;
+      };
+      const calendar = this.calendarOf(b, bench.shop);
+      // Most of the work is walking to the builder's first free day (months ahead on a busy bench);
+      // on the whole bench it is the same for every build, so it is worked out once per snapshot.
+      const key = exceptBookingId ? null : `${b.id} ${from}`;
+      let startsOn = key ? bench.firstFreeDays.get(key) : undefined;
+      if (startsOn === undefined) {
+        startsOn = firstFreeDay({ from, calendar, taken });
+        if (key) bench.firstFreeDays.set(key, startsOn);
+      }
+      return earliestStart({ laborHours: toCentihours(laborHours), from, calendar, taken, startsOn });
+    });
+  }
+
+  /** shipByDate on the held bench, worked out once per bench date and snapshot (builders often share one). */
+  private shipByOn(bench: BenchSnapshot, benchDate: string): string {
+    let day = bench.shipBy.get(benchDate);
+    if (!day) bench.shipBy.set(benchDate, (day = shipByDate(benchDate, bench.shop)));
+    return day;
   }
 
   private planOver(

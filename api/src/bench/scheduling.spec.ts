@@ -6,6 +6,7 @@ import {
   dayCapacity,
   earliestBenchDateFor,
   earliestStart,
+  firstFreeDay,
   freeSlices,
   planBuild,
   shipByDate,
@@ -161,6 +162,20 @@ describe('laying a build on the bench', () => {
     // 25 Dec is Christmas, 26–27 the weekend: the build starts Monday 28 Dec and ends Tuesday.
     expect(plan.benchDate).toBe('2026-12-28');
     expect(plan.expectedCompletion).toBe('2026-12-29');
+  });
+
+  it('finds that first free day whatever the build’s hours, so one search serves every build on the same bench', () => {
+    const taken = (d: string) => (d === '2026-12-23' || d === '2026-12-24' ? [{ from: 0, to: 700 }] : []);
+    const startsOn = firstFreeDay({ from: '2026-12-23', calendar: calendar(), taken });
+    expect(startsOn).toBe('2026-12-28');
+    for (const laborHours of [25, 700, 800, 4000]) {
+      const input = { laborHours, from: '2026-12-23', calendar: calendar(), taken };
+      expect(earliestStart({ ...input, startsOn })).toEqual(earliestStart(input));
+    }
+    // No working hours at all: no free day within the horizon, and the same refusal either way.
+    const none = { from: '2026-12-23', calendar: calendar({ weeklyHours: {} }), taken: nothingTaken };
+    expect(firstFreeDay(none)).toBeNull();
+    expect(earliestStart({ ...none, laborHours: 100, startsOn: null })).toEqual(earliestStart({ ...none, laborHours: 100 }));
   });
 });
 

@@ -137,20 +137,39 @@ export function planBuild(input: {
   return { ok: true, days, benchDate, expectedCompletion: days[days.length - 1].day };
 }
 
-/** The earliest day on or after `from` on which the build can start, with its plan. */
+const NO_CAPACITY: BuildPlan = {
+  ok: false,
+  reason: 'no_capacity',
+  message: 'This builder has no bench time in the next two years; check their working hours.',
+};
+
+/**
+ * The first day on or after `from` with some free bench time, or null within the planning horizon.
+ * It does not depend on the build's hours, so one answer serves every build planned on the same bench.
+ */
+export function firstFreeDay(input: { from: string; calendar: BenchCalendar; taken: (day: string) => HourSlice[] }): string | null {
+  for (let i = 0; i < PLANNING_HORIZON_DAYS; i++) {
+    const day = addDays(input.from, i);
+    const { capacity } = dayCapacity(day, input.calendar);
+    if (capacity === 0 || totalOf(freeSlices(capacity, input.taken(day))) === 0) continue;
+    return day;
+  }
+  return null;
+}
+
+/**
+ * The earliest day on or after `from` on which the build can start, with its plan. `startsOn`, when
+ * known, is `firstFreeDay` for the same `from`, calendar and bench.
+ */
 export function earliestStart(input: {
   laborHours: Centihours;
   from: string;
   calendar: BenchCalendar;
   taken: (day: string) => HourSlice[];
+  startsOn?: string | null;
 }): BuildPlan {
-  for (let i = 0; i < PLANNING_HORIZON_DAYS; i++) {
-    const day = addDays(input.from, i);
-    const { capacity } = dayCapacity(day, input.calendar);
-    if (capacity === 0 || totalOf(freeSlices(capacity, input.taken(day))) === 0) continue;
-    return planBuild({ ...input, benchDate: day });
-  }
-  return { ok: false, reason: 'no_capacity', message: 'This builder has no bench time in the next two years; check their working hours.' };
+  const day = input.startsOn === undefined ? firstFreeDay(input) : input.startsOn;
+  return day === null ? NO_CAPACITY : planBuild({ ...input, benchDate: day });
 }
 
 /**

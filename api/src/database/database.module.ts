@@ -3,6 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import type { AppConfig } from '../config/configuration';
 import { Pool } from 'pg';
 import { createPool, databaseOnPool } from './create-database';
+import { DatabaseChanges } from './change-notifications';
 import { Database } from './database';
 import { migrateToLatest } from './migrate';
 import { SeedService } from './seed.service';
@@ -19,10 +20,16 @@ import { SeedService } from './seed.service';
         return createPool(url, poolMax);
       },
     },
-    { provide: Database, inject: [Pool], useFactory: (pool: Pool) => databaseOnPool(pool) },
+    {
+      provide: Database,
+      inject: [Pool, DatabaseChanges],
+      // The in-memory copies drop themselves as soon as this process commits a write they depend on.
+      useFactory: (pool: Pool, changes: DatabaseChanges) => databaseOnPool(pool, (tables) => changes.committedHere(tables)),
+    },
     SeedService,
+    DatabaseChanges,
   ],
-  exports: [Database, Pool],
+  exports: [Database, Pool, DatabaseChanges],
 })
 export class DatabaseModule implements OnModuleInit, OnApplicationShutdown {
   private readonly logger = new Logger('Database');

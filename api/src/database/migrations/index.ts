@@ -21,6 +21,7 @@ import * as buildMessages from './20261202_1101_build_messages';
 import * as reminders from './20261202_1105_reminders';
 import * as bookingDepositStatus from './20261202_1345_booking_deposit_status';
 import * as buildsListOrders from './20261202_1405_builds_list_orders';
+import * as benchNotify from './20261203_0700_bench_notify';
 
 /**
  * Every migration, by its sortable name. Listed statically so the same list runs from the
@@ -49,4 +50,5 @@ export const migrations: Record<string, Migration> = {
   '20261202_1105_reminders': reminders,
   '20261202_1345_booking_deposit_status': bookingDepositStatus,
   '20261202_1405_builds_list_orders': buildsListOrders,
+  '20261203_0700_bench_notify': benchNotify,
 };

@@ -286,6 +286,9 @@ export async function seedYearOfData(
       join users u on u.id = b.customer_id`);
 
     for (const index of secondary.rows) await run(sql.raw(index.definition));
+    // A superuser's seed skipped the triggers that tell each API process the bench changed
+    // (migration 20261203_0700): say it once, delivered when this transaction commits.
+    await run(sql`select pg_notify('bench_changed', '')`);
   });
   await sql`select setval('booking_reference_seq', greatest((select last_value from booking_reference_seq), 1000000))`.execute(db);
   const analyzed = performance.now();
