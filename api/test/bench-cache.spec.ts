@@ -7,7 +7,7 @@ import { DatabaseChanges } from '../src/database/change-notifications';
 import { ACCEPTANCE_ALLOWANCE_DAYS, BenchService } from '../src/bench/bench.service';
 import { addDays, todayIn } from '../src/bench/calendar-days';
 import { createBooking, signIn } from './support/bench-fixtures';
-import { createTestApp, type TestApp } from './support/test-app';
+import { createTwoReplicas, type TestApp } from './support/test-app';
 
 const LEAD = '/api/bench/lead-time?hours=7.00&level=journeyman';
 
@@ -25,12 +25,7 @@ describe('the bench held in memory by every replica', () => {
   const lead = async (t: TestApp, path = LEAD) => (await request(t.app.getHttpServer()).get(path).expect(200)).body as BenchLeadTime;
 
   beforeAll(async () => {
-    first = await createTestApp();
-    databaseUrl = process.env.DATABASE_URL!;
-    second = await createTestApp({ seed: false, databaseUrlOverride: () => databaseUrl });
-    for (let i = 0; i < 50 && !(first.app.get(BenchCache).isListening && second.app.get(BenchCache).isListening); i++) {
-      await new Promise((r) => setTimeout(r, 100));
-    }
+    ({ first, second, databaseUrl } = await createTwoReplicas());
     raw = new Client({ connectionString: databaseUrl });
     await raw.connect();
   }, 60_000);

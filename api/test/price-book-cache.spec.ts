@@ -4,7 +4,7 @@ import { demoPriceBook, type PriceBook } from '@loomwright/shared';
 import { PriceBookCache } from '../src/price-book/price-book-cache';
 import { benchBoard } from '../src/database/seed/year-of-data';
 import { sessionCookieFor } from './support/sessions';
-import { createTestApp, type TestApp } from './support/test-app';
+import { createTwoReplicas, type TestApp } from './support/test-app';
 
 /**
  * Two API processes on one database, each holding the published price book in memory. A new
@@ -22,12 +22,7 @@ describe('the price book held in memory by every replica', () => {
     (await t.http().get('/api/catalog').expect(200)).body.levels.find((l: { code: string }) => l.code === 'journeyman').rateLow as string;
 
   beforeAll(async () => {
-    first = await createTestApp();
-    databaseUrl = process.env.DATABASE_URL!;
-    second = await createTestApp({ seed: false, databaseUrlOverride: () => databaseUrl });
-    for (let i = 0; i < 50 && !(first.app.get(PriceBookCache).isListening && second.app.get(PriceBookCache).isListening); i++) {
-      await new Promise((r) => setTimeout(r, 100));
-    }
+    ({ first, second, databaseUrl } = await createTwoReplicas());
   }, 60_000);
   afterAll(async () => {
     await second?.close();

@@ -92,6 +92,20 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   };
 }
 
+/**
+ * Two apps on one database, as two replicas: the first makes and seeds it, the second only joins.
+ * Resolves once both hear the database's change notifications (`DatabaseChanges`), or after 5 s.
+ */
+export async function createTwoReplicas(): Promise<{ first: TestApp; second: TestApp; databaseUrl: string }> {
+  const first = await createTestApp();
+  const databaseUrl = process.env.DATABASE_URL!;
+  const second = await createTestApp({ seed: false, databaseUrlOverride: () => databaseUrl });
+  const { DatabaseChanges } = await import('../../src/database/change-notifications');
+  const listening = () => first.app.get(DatabaseChanges).isListening && second.app.get(DatabaseChanges).isListening;
+  for (let i = 0; i < 50 && !listening(); i++) await new Promise((r) => setTimeout(r, 100));
+  return { first, second, databaseUrl };
+}
+
 /** Empties the given tables between tests (the migrations table is never touched). */
 export async function clearTables(db: Database, tables: string[]): Promise<void> {
   if (tables.length === 0) return;
