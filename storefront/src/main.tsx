@@ -1,7 +1,7 @@
 import '@fontsource/manrope/latin-400.css';
 import '@fontsource/manrope/latin-600.css';
 import '@fontsource/manrope/latin-700.css';
-import { StrictMode } from 'react';
+import { startTransition, StrictMode } from 'react';
 import { createRoot, hydrateRoot } from 'react-dom/client';
 import { AppProviders } from 'src/app/providers';
 import { AppRouter } from 'src/app/router';
@@ -19,5 +19,7 @@ const app = (
 // marked with its path: React takes that markup over instead of drawing it again. Any other page
 // (index.html, whose prerendered layout has a loading line where the page goes) is drawn afresh over
 // the same-looking markup.
-if (container.dataset.prerendered === window.location.pathname) hydrateRoot(container, app);
+// Hydration in a transition is rendered in slices that yield to the browser (React Router's own
+// client entry hydrates the same way), instead of one long task.
+if (container.dataset.prerendered === window.location.pathname) startTransition(() => void hydrateRoot(container, app));
 else createRoot(container).render(app);
