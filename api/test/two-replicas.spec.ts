@@ -226,4 +226,30 @@ describe('two API replicas on one database', () => {
       }),
     120_000,
   );
+
+  it(
+    'the public lead time each replica holds in memory follows a closure made through the other',
+    () =>
+      withLogs(async () => {
+        const lead = async (base: string) => {
+          const r = await new Visitor(base).call('GET', '/api/bench/lead-time?hours=7.00&level=journeyman');
+          expect(r.status, r.text).toBe(200);
+          return r.body.earliestBenchDate as string;
+        };
+        const day = await lead(a.url);
+        expect(await lead(b.url)).toBe(day);
+        const owner = await signIn(a.url, 'owner@shop.example');
+        const closure = await owner.call('POST', '/api/settings/closures', { startsOn: day, endsOn: day, reason: 'Stocktaking' });
+        expect(closure.status, closure.text).toBe(201);
+        // The replica that wrote: its very next answer; the other: once PostgreSQL's notification arrives.
+        const moved = await lead(a.url);
+        expect(moved > day).toBe(true);
+        await eventually(async () => (await lead(b.url)) === moved, 'replica B moves its lead time past the closure', 5_000);
+        const removed = await onOther(owner, b.url).call('DELETE', `/api/settings/closures/${closure.body.id}`, {});
+        expect(removed.status, removed.text).toBe(204);
+        expect(await lead(b.url)).toBe(day);
+        await eventually(async () => (await lead(a.url)) === day, 'replica A back to the first day', 5_000);
+      }),
+    60_000,
+  );
 });
