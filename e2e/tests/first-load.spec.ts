@@ -29,7 +29,7 @@ test.describe('prerendered first pages', () => {
 
   for (const [url, words] of [
     ['/', 'Start configuring your board'],
-    ['/configure', 'Loading…'],
+    ['/configure', 'Choose the board surface'],
   ] as const) {
     test(`${url} is in its HTML and is taken over, not redrawn`, async ({ page, request }) => {
       const html = await (await request.get(url)).text();
@@ -60,6 +60,78 @@ test.describe('prerendered first pages', () => {
       expect(problems).toEqual([]);
     });
   }
+
+  test("/configure paints the Surface step's heading and words with its HTML, keeps them through hydration, and nothing moves", async ({
+    page,
+    request,
+  }) => {
+    const heading = 'Choose the board surface';
+    const words = 'The surface is the deck your pedals are fixed to.';
+    const html = await (await request.get('/configure')).text();
+    expect(html).toContain(`>${heading}</h2>`);
+    expect(html).toContain(words);
+
+    const problems: string[] = [];
+    page.on('console', (message) => {
+      if (message.type() === 'error' || message.type() === 'warning') problems.push(message.text());
+    });
+    page.on('pageerror', (error) => problems.push(error.message));
+    // A phone's width (Lighthouse's mobile screen), where the cards stack under the words.
+    await page.setViewportSize({ width: 412, height: 823 });
+    await page.addInitScript(() => {
+      const w = window as Window & { shifted?: number; firstStepHeading?: Element | null; firstWords?: Element | null };
+      w.shifted = 0;
+      // Layout Instability API (w3c.github.io/layout-instability): the shifts CLS is made of.
+      new PerformanceObserver((list) => {
+        for (const entry of list.getEntries() as (PerformanceEntry & { value: number; hadRecentInput: boolean })[])
+          if (!entry.hadRecentInput) w.shifted! += entry.value;
+      }).observe({ type: 'layout-shift', buffered: true });
+      document.addEventListener('DOMContentLoaded', () => {
+        w.firstStepHeading = document.querySelector('main h2');
+        w.firstWords = document.querySelector('main h2 + p');
+      });
+    });
+    // The price book is held back until the page has been taken over, so what hydration did can be seen.
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    await page.route('**/api/catalog', async (route) => {
+      await held;
+      await route.continue();
+    });
+
+    const shop = await (await request.get('/api/shop')).json();
+    await page.goto('/configure');
+    await expect(page.getByRole('banner').getByText(shop.name)).toBeAttached();
+    await expect(page.getByRole('heading', { name: heading })).toBeVisible();
+    expect(await page.evaluate(() => (window as Window & { firstWords?: Element | null }).firstWords?.textContent)).toContain(words);
+    expect(
+      await page.evaluate(() => {
+        const w = window as Window & { firstStepHeading?: Element | null; firstWords?: Element | null };
+        return w.firstStepHeading === document.querySelector('main h2') && w.firstWords === document.querySelector('main h2 + p');
+      }),
+    ).toBe(true);
+
+    release();
+    await expect(page.getByRole('radiogroup', { name: 'Board surface' })).toBeVisible();
+    await expect(page.getByRole('heading', { name: heading })).toBeVisible();
+    // Two frames for any late shift to be reported.
+    await page.evaluate(() => new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve))));
+    // Lighthouse's "good" CLS is 0.1 (web.dev/articles/cls); this page's own budget is 0.02.
+    expect(await page.evaluate(() => (window as Window & { shifted?: number }).shifted)).toBeLessThanOrEqual(0.02);
+    expect(problems).toEqual([]);
+  });
+
+  test('/configure with another step in its address is drawn afresh, without a mismatch', async ({ page }) => {
+    const problems: string[] = [];
+    page.on('console', (message) => {
+      if (message.type() === 'error' || message.type() === 'warning') problems.push(message.text());
+    });
+    page.on('pageerror', (error) => problems.push(error.message));
+    await page.goto('/configure?step=builder');
+    await expect(page.getByRole('heading', { name: 'Who builds it' })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Choose the board surface' })).toHaveCount(0);
+    expect(problems).toEqual([]);
+  });
 
   test('any other page gets the layout at once and is drawn by the browser', async ({ page, request }) => {
     const html = await (await request.get('/sign-in')).text();

@@ -21,5 +21,10 @@ const app = (
 // the same-looking markup.
 // Hydration in a transition is rendered in slices that yield to the browser (React Router's own
 // client entry hydrates the same way), instead of one long task.
-if (container.dataset.prerendered === window.location.pathname) startTransition(() => void hydrateRoot(container, app));
+// configure.html holds the Surface step's first screen (where every new board starts): a link to
+// another step (even a misspelt one, which shows the Surface step) is drawn afresh, like any other page.
+const step = new URLSearchParams(window.location.search).get('step');
+const samePage =
+  container.dataset.prerendered === window.location.pathname && (window.location.pathname !== '/configure' || !step || step === 'surface');
+if (samePage) startTransition(() => void hydrateRoot(container, app));
 else createRoot(container).render(app);

@@ -34,11 +34,17 @@ export const routes: RouteObject[] = [
       {
         path: 'configure',
         // The price book is asked for beside the screen's code, not after it has loaded.
-        element: page('Configure your board', () => {
-          // Not while the build prerenders the page: there is no API to ask then.
-          if (!import.meta.env.SSR) void queryClient.prefetchQuery(catalogQueryOptions());
-          return import('src/app/routes/configure');
-        }),
+        element: page(
+          'Configure your board',
+          () => {
+            // Not while the build prerenders the page: there is no API to ask then.
+            if (!import.meta.env.SSR) void queryClient.prefetchQuery(catalogQueryOptions());
+            return import('src/app/routes/configure');
+            // Its first screen (headings, step bar) writes no figure and is prerendered into configure.html;
+            // the screen waits for the shop's voice itself, around the configurator.
+          },
+          { voice: false },
+        ),
       },
       { path: 'request', element: page('Request this build', () => import('src/app/routes/request')) },
       { path: 'configurations', element: page('Saved boards', () => import('src/app/routes/configurations')) },

@@ -7,12 +7,12 @@ import { useShop } from 'src/features/shop/api/get-shop';
  * zone everywhere below (a page's screen: `Page` puts it there; the layout around it does not wait). If the shop cannot be read (the API is down), pages still render in the
  * default voice and show their own "back shortly" notes.
  */
-export function ShopVoice({ children }: { children: ReactNode }) {
+export function ShopVoice({ children, fallback = <PageLoading /> }: { children: ReactNode; fallback?: ReactNode }) {
   const shop = useShop();
   // Only the first answer is awaited: while the API is failing, pages render (and say so) in the default voice.
   // The answer's own render (a query update, which React draws in one blocking task) keeps the loading
   // screen; the whole page is then drawn in a deferred render that yields to the browser every few ms.
   const waiting = useDeferredValue(shop.isPending && shop.failureCount === 0);
-  if (waiting) return <PageLoading />;
+  if (waiting) return fallback;
   return <ShopVoiceProvider profile={shop.data}>{children}</ShopVoiceProvider>;
 }

@@ -1,9 +1,11 @@
 import Button from '@mui/joy/Button';
-import { lazy, useDeferredValue } from 'react';
+import { lazy, useDeferredValue, useSyncExternalStore } from 'react';
+import { useSearchParams } from 'react-router';
+import { ShopVoice } from 'src/app/shop-voice';
 import { LateAlert, preloadLateAlert } from 'src/components/LateAlert';
-import { PageLoading } from 'src/components/PageLoading';
 import { useCatalog } from 'src/features/configurator/api/get-catalog';
-import { Configurator } from 'src/features/configurator/components/Configurator';
+import { Configurator, ConfiguratorFrame } from 'src/features/configurator/components/Configurator';
+import { isStepId } from 'src/features/configurator/lib/steps';
 import { readConfigurationDraft } from 'src/lib/configuration-draft';
 
 // Saving, sharing and e-mailing show on the Review step only, so they load with it, not with the first screen.
@@ -12,12 +14,42 @@ const KeepConfiguration = lazy(() => import('src/features/saved-configurations/c
 // A restored draft is announced in an Alert: fetch it while the price book loads.
 if (readConfigurationDraft()) preloadLateAlert();
 
+const noSubscription = () => () => {};
+
+/**
+ * False while React takes over the prerendered page (and while the build prerenders it), true in
+ * every render after: the data-dependent parts of the page wait for it, so the first render equals
+ * configure.html even when the price book is already in the cache.
+ */
+const useHydrated = () =>
+  useSyncExternalStore(
+    noSubscription,
+    () => true,
+    () => false,
+  );
+
 export function Component() {
   const catalog = useCatalog();
+  const hydrated = useHydrated();
+  const [search, setSearch] = useSearchParams();
+  const stepParam = search.get('step');
+  const frame = (label: string) => (
+    <ConfiguratorFrame
+      step={isStepId(stepParam) ? stepParam : 'surface'}
+      onSelect={(step) =>
+        setSearch((prev) => {
+          const next = new URLSearchParams(prev);
+          next.set('step', step);
+          return next;
+        })
+      }
+      label={label}
+    />
+  );
   // The price book's arrival is drawn in a deferred render (yielding every few ms) instead of in the
   // query update's one blocking task: the configurator's first step is the heaviest render of the page.
   const priceBook = useDeferredValue(catalog.data);
-  if (catalog.isPending || (catalog.isSuccess && !priceBook)) return <PageLoading label="Loading the shop’s price book…" />;
+  if (!hydrated || catalog.isPending || (catalog.isSuccess && !priceBook)) return frame('Loading the shop’s price book…');
   if (catalog.isError)
     return (
       <LateAlert
@@ -33,10 +65,13 @@ export function Component() {
         The price book could not be loaded: {catalog.error.message}
       </LateAlert>
     );
+  // The figures wait for the shop's voice (its currency and locale); the frame stays meanwhile.
   return (
-    <Configurator
-      catalog={priceBook ?? catalog.data}
-      keep={(configuration, ready) => <KeepConfiguration configuration={configuration} ready={ready} />}
-    />
+    <ShopVoice fallback={frame('Loading the shop’s settings…')}>
+      <Configurator
+        catalog={priceBook ?? catalog.data}
+        keep={(configuration, ready) => <KeepConfiguration configuration={configuration} ready={ready} />}
+      />
+    </ShopVoice>
   );
 }

@@ -10,7 +10,7 @@ import { useLiveEstimate } from '../hooks/use-live-estimate';
 import { higherLevel } from '../lib/configuration';
 import { configuratorSteps, type StepId } from '../lib/steps';
 import { EstimatePanel } from './EstimatePanel';
-import SurfaceStep from './steps/SurfaceStep';
+import SurfaceStep, { SurfaceStepHeading } from './steps/SurfaceStep';
 import { StepProgress } from './StepProgress';
 import type { KeepSlot, StepProps } from './steps/step-props';
 import { formatMoment } from 'src/lib/format';
@@ -27,6 +27,46 @@ const stepComponents: Record<StepId, ComponentType<StepProps>> = {
   builder: lazy(() => import('./steps/BuilderStep')),
   review: lazy(() => import('./steps/ReviewStep')),
 };
+
+const layout = {
+  maxWidth: 1280,
+  mx: 'auto',
+  display: 'grid',
+  gap: { xs: 3, md: 4 },
+  gridTemplateColumns: { xs: 'minmax(0, 1fr)', md: 'minmax(0, 1fr) 320px', lg: 'minmax(0, 1fr) 360px' },
+  alignItems: 'start',
+  pb: { xs: 16, md: 0 },
+} as const;
+
+const PageHeading = () => (
+  <Typography level="h1" sx={{ fontSize: { xs: 'xl2', md: 'xl3' }, mb: 2 }}>
+    Configure your board
+  </Typography>
+);
+
+/**
+ * What the configurator shows before the price book is in: the page's heading, the step bar and,
+ * on the Surface step (where every new board starts), the step's heading and opening words, in the
+ * same places the configurator puts them, and a `status` line where the cards will come (the layout's
+ * `main` is a screen tall, so what arrives below grows the page without moving what is drawn). None
+ * of it depends on the shop's data, so the build prerenders it into configure.html and the browser's
+ * first render draws the same: the first paint is then the page's largest text.
+ */
+export function ConfiguratorFrame({ step, onSelect, label }: { step: StepId; onSelect: (step: StepId) => void; label: string }) {
+  const index = configuratorSteps.findIndex((s) => s.id === step);
+  return (
+    <Box sx={layout}>
+      <Box sx={{ minWidth: 0 }}>
+        <PageHeading />
+        <StepProgress current={step} onSelect={onSelect} />
+        <Box component="section" aria-label={`Step ${index + 1}: ${configuratorSteps[index]?.title}`}>
+          {step === 'surface' ? <SurfaceStepHeading /> : null}
+          <PageLoading label={label} />
+        </Box>
+      </Box>
+    </Box>
+  );
+}
 
 export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepSlot }) {
   const { configuration, encoded, update, step, goToStep, restoredFrom, startOver, dismissRestored } = useConfiguration(catalog);
@@ -67,21 +107,9 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
   const Step = stepComponents[step];
 
   return (
-    <Box
-      sx={{
-        maxWidth: 1280,
-        mx: 'auto',
-        display: 'grid',
-        gap: { xs: 3, md: 4 },
-        gridTemplateColumns: { xs: 'minmax(0, 1fr)', md: 'minmax(0, 1fr) 320px', lg: 'minmax(0, 1fr) 360px' },
-        alignItems: 'start',
-        pb: { xs: 16, md: 0 },
-      }}
-    >
+    <Box sx={layout}>
       <Box sx={{ minWidth: 0 }}>
-        <Typography level="h1" sx={{ fontSize: { xs: 'xl2', md: 'xl3' }, mb: 2 }}>
-          Configure your board
-        </Typography>
+        <PageHeading />
         <StepProgress current={step} onSelect={(s) => void leaveTo(s)} />
         {restoredFrom ? (
           <LateAlert

@@ -6,14 +6,21 @@ import type { StepProps } from './step-props';
 
 const inches = (mm: number) => formatQuantity(mm / 25.4, undefined, 1);
 
+/** The step's heading and opening words: they depend on nothing the shop sends, so the page's first paint draws them too. */
+export function SurfaceStepHeading() {
+  return (
+    <StepHeading title="Choose the board surface">
+      The surface is the deck your pedals are fixed to. Sizes are the usable mounting area, width × depth, as you look down at the board
+      from where you stand.
+    </StepHeading>
+  );
+}
+
 export default function SurfaceStep({ catalog, configuration, update }: StepProps) {
   const surfaces = [...catalog.surfaces].sort((a, b) => a.widthMm * a.depthMm - b.widthMm * b.depthMm);
   return (
     <>
-      <StepHeading title="Choose the board surface">
-        The surface is the deck your pedals are fixed to. Sizes are the usable mounting area, width × depth, as you look down at the board
-        from where you stand.
-      </StepHeading>
+      <SurfaceStepHeading />
       <ChoiceCards
         name="surface"
         label="Board surface"
