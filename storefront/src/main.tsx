@@ -3,6 +3,7 @@ import '@fontsource/manrope/latin-600.css';
 import '@fontsource/manrope/latin-700.css';
 import { startTransition, StrictMode } from 'react';
 import { createRoot, hydrateRoot } from 'react-dom/client';
+import { hydration } from 'src/app/hydration';
 import { AppProviders } from 'src/app/providers';
 import { AppRouter } from 'src/app/router';
 
@@ -26,5 +27,7 @@ const app = (
 const step = new URLSearchParams(window.location.search).get('step');
 const samePage =
   container.dataset.prerendered === window.location.pathname && (window.location.pathname !== '/configure' || !step || step === 'surface');
-if (samePage) startTransition(() => void hydrateRoot(container, app));
-else createRoot(container).render(app);
+if (samePage) {
+  hydration.pending = true;
+  startTransition(() => void hydrateRoot(container, app));
+} else createRoot(container).render(app);

@@ -1,6 +1,7 @@
 import Button from '@mui/joy/Button';
-import { lazy, useDeferredValue, useSyncExternalStore } from 'react';
+import { lazy, useDeferredValue } from 'react';
 import { useSearchParams } from 'react-router';
+import { useHydrated } from 'src/app/hydration';
 import { ShopVoice } from 'src/app/shop-voice';
 import { LateAlert, preloadLateAlert } from 'src/components/LateAlert';
 import { useCatalog } from 'src/features/configurator/api/get-catalog';
@@ -13,20 +14,6 @@ const KeepConfiguration = lazy(() => import('src/features/saved-configurations/c
 
 // A restored draft is announced in an Alert: fetch it while the price book loads.
 if (readConfigurationDraft()) preloadLateAlert();
-
-const noSubscription = () => () => {};
-
-/**
- * False while React takes over the prerendered page (and while the build prerenders it), true in
- * every render after: the data-dependent parts of the page wait for it, so the first render equals
- * configure.html even when the price book is already in the cache.
- */
-const useHydrated = () =>
-  useSyncExternalStore(
-    noSubscription,
-    () => true,
-    () => false,
-  );
 
 export function Component() {
   const catalog = useCatalog();
