@@ -85,10 +85,11 @@ export function ReminderSettingsForm({ canEdit, onSaved }: { canEdit: boolean; o
   const form = useForm<ReminderSettingsFormInput, unknown, UpdateReminderSettingsInput>({
     resolver: zodResolver(reminderSettingsFormSchema) as never,
   });
+  // The saved settings fill the form each time they arrive (react-hook-form's reset is stable).
+  const { reset } = form;
   useEffect(() => {
-    if (settings.data) form.reset(asForm(settings.data));
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [settings.data]);
+    if (settings.data) reset(asForm(settings.data));
+  }, [settings.data, reset]);
   if (settings.isPending) return <PageLoading />;
   if (settings.error) return <ErrorNote error={settings.error} />;
   const errors = form.formState.errors as Record<string, Record<string, { message?: string }> | undefined>;
