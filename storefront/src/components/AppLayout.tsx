@@ -3,7 +3,7 @@ import Link from '@mui/joy/Link';
 import Sheet from '@mui/joy/Sheet';
 import Typography from '@mui/joy/Typography';
 import visuallyHidden from '@mui/utils/visuallyHidden';
-import { Suspense } from 'react';
+import { memo, Suspense } from 'react';
 import { Link as RouterLink, Outlet } from 'react-router';
 import { AccountNav } from 'src/features/auth/components/AccountNav';
 import { useHealth } from 'src/features/shop/api/get-health';
@@ -60,9 +60,7 @@ export function AppLayout() {
       </Sheet>
       {/* At least a screen tall, so the footer starts below the fold and is not pushed down as the page fills in. */}
       <Box component="main" id="main" sx={{ flex: 1, minHeight: '100dvh', px: { xs: 2, md: 4 }, py: { xs: 3, md: 5 } }}>
-        <Suspense fallback={<PageLoading />}>
-          <Outlet />
-        </Suspense>
+        <PageSlot />
       </Box>
       <Box component="footer" sx={{ px: { xs: 2, md: 4 }, py: 2, borderTop: '1px solid', borderColor: 'divider' }}>
         <Typography level="body-xs">
@@ -77,6 +75,23 @@ export function AppLayout() {
     </Box>
   );
 }
+
+/**
+ * Where the page goes. On a prerendered page (`/`, `/configure`) the page's chunk may still be on its
+ * way when React takes the HTML over: this boundary then stays as the HTML drew it until the chunk
+ * arrives. React's documentation (react.dev/reference/react/Suspense) says a boundary that has not
+ * hydrated yet and receives an update that is not a transition is drawn again on the client: the
+ * prerendered page would be thrown away and painted afresh. The layout re-renders when the shop's
+ * name and the health check answer, often before the page's chunk is in, so the slot is memoized:
+ * those answers do not reach it, and only the router's own changes (a new page) do.
+ */
+const PageSlot = memo(function PageSlot() {
+  return (
+    <Suspense fallback={<PageLoading />}>
+      <Outlet />
+    </Suspense>
+  );
+});
 
 /** Our mark: a board seen from above with three pedals on it (colours from the theme). */
 function BoardMark() {
