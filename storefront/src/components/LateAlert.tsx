@@ -1,5 +1,5 @@
 import type { AlertProps } from '@mui/joy/Alert';
-import { lazy, Suspense } from 'react';
+import { lazy, Suspense, useEffect, useState } from 'react';
 
 let loaded: typeof import('@mui/joy/Alert') | undefined;
 const loadAlert = () => import('@mui/joy/Alert').then((module) => (loaded = module));
@@ -21,3 +21,23 @@ export function LateAlert(props: AlertProps) {
 }
 
 export const preloadLateAlert = () => void loadAlert();
+
+/**
+ * True once Alert's code is in (at once when `wanted` is false). A screen that will show an Alert on
+ * its first draw waits for this, so the Alert arrives with the screen instead of after it, where it
+ * would push down what was already drawn below it.
+ */
+export function useLateAlertReady(wanted: boolean) {
+  const [ready, setReady] = useState(() => !wanted || loaded !== undefined);
+  useEffect(() => {
+    if (ready) return;
+    let current = true;
+    // A failed fetch does not hold the screen back: LateAlert's own Suspense takes over then.
+    const done = () => current && setReady(true);
+    loadAlert().then(done, done);
+    return () => {
+      current = false;
+    };
+  }, [ready]);
+  return ready;
+}

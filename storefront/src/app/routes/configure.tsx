@@ -3,7 +3,7 @@ import { lazy, useDeferredValue } from 'react';
 import { useSearchParams } from 'react-router';
 import { useHydrated } from 'src/app/hydration';
 import { ShopVoice } from 'src/app/shop-voice';
-import { LateAlert, preloadLateAlert } from 'src/components/LateAlert';
+import { LateAlert, preloadLateAlert, useLateAlertReady } from 'src/components/LateAlert';
 import { useCatalog } from 'src/features/configurator/api/get-catalog';
 import { Configurator, ConfiguratorFrame } from 'src/features/configurator/components/Configurator';
 import { isStepId } from 'src/features/configurator/lib/steps';
@@ -13,11 +13,14 @@ import { readConfigurationDraft } from 'src/lib/configuration-draft';
 const KeepConfiguration = lazy(() => import('src/features/saved-configurations/components/KeepConfiguration'));
 
 // A restored draft is announced in an Alert: fetch it while the price book loads.
-if (readConfigurationDraft()) preloadLateAlert();
+const draftWaiting = readConfigurationDraft() !== undefined;
+if (draftWaiting) preloadLateAlert();
 
 export function Component() {
   const catalog = useCatalog();
   const hydrated = useHydrated();
+  // The notice comes with the configurator's first draw, not after it (where it would move the cards).
+  const alertReady = useLateAlertReady(draftWaiting);
   const [search, setSearch] = useSearchParams();
   const stepParam = search.get('step');
   const frame = (label: string) => (
@@ -36,7 +39,7 @@ export function Component() {
   // The price book's arrival is drawn in a deferred render (yielding every few ms) instead of in the
   // query update's one blocking task: the configurator's first step is the heaviest render of the page.
   const priceBook = useDeferredValue(catalog.data);
-  if (!hydrated || catalog.isPending || (catalog.isSuccess && !priceBook)) return frame('Loading the shop’s price book…');
+  if (!hydrated || !alertReady || catalog.isPending || (catalog.isSuccess && !priceBook)) return frame('Loading the shop’s price book…');
   if (catalog.isError)
     return (
       <LateAlert

@@ -11,6 +11,7 @@ import { higherLevel } from '../lib/configuration';
 import { configuratorSteps, type StepId } from '../lib/steps';
 import { EstimatePanel } from './EstimatePanel';
 import SurfaceStep, { SurfaceStepHeading } from './steps/SurfaceStep';
+import { StepNotice } from './StepHeading';
 import { StepProgress } from './StepProgress';
 import type { KeepSlot, StepProps } from './steps/step-props';
 import { formatMoment } from 'src/lib/format';
@@ -105,43 +106,47 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
     goToStep(target);
   };
   const Step = stepComponents[step];
+  // Told under the step's opening words (StepHeading), so its arrival moves nothing painted above it.
+  const restoredNotice = restoredFrom ? (
+    <LateAlert
+      variant="soft"
+      color="neutral"
+      role="status"
+      sx={{ mt: 2, maxWidth: 640, flexWrap: 'wrap' }}
+      endDecorator={
+        <Box sx={{ display: 'flex', gap: 1 }}>
+          <Button size="sm" variant="plain" onClick={dismissRestored}>
+            Keep it
+          </Button>
+          <Button size="sm" variant="outlined" onClick={startOver}>
+            Start over
+          </Button>
+        </Box>
+      }
+    >
+      We restored the board you were configuring on {formatMoment(restoredFrom)}.
+    </LateAlert>
+  ) : null;
 
   return (
     <Box sx={layout}>
       <Box sx={{ minWidth: 0 }}>
         <PageHeading />
         <StepProgress current={step} onSelect={(s) => void leaveTo(s)} />
-        {restoredFrom ? (
-          <LateAlert
-            variant="soft"
-            color="neutral"
-            sx={{ mb: 3, flexWrap: 'wrap' }}
-            endDecorator={
-              <Box sx={{ display: 'flex', gap: 1 }}>
-                <Button size="sm" variant="plain" onClick={dismissRestored}>
-                  Keep it
-                </Button>
-                <Button size="sm" variant="outlined" onClick={startOver}>
-                  Start over
-                </Button>
-              </Box>
-            }
-          >
-            We restored the board you were configuring on {formatMoment(restoredFrom)}.
-          </LateAlert>
-        ) : null}
         <Box component="section" aria-label={`Step ${index + 1}: ${configuratorSteps[index]?.title}`} ref={headingRef}>
-          <Suspense fallback={<PageLoading label="Loading this step…" />}>
-            <Step
-              catalog={catalog}
-              configuration={configuration}
-              update={update}
-              live={live}
-              goToStep={goToStep}
-              setLeaveGuard={setLeaveGuard}
-              keep={keep}
-            />
-          </Suspense>
+          <StepNotice.Provider value={restoredNotice}>
+            <Suspense fallback={<PageLoading label="Loading this step…" />}>
+              <Step
+                catalog={catalog}
+                configuration={configuration}
+                update={update}
+                live={live}
+                goToStep={goToStep}
+                setLeaveGuard={setLeaveGuard}
+                keep={keep}
+              />
+            </Suspense>
+          </StepNotice.Provider>
         </Box>
         <Box
           component="nav"
