@@ -1,6 +1,7 @@
 import path from 'node:path';
 import { constants } from 'node:zlib';
 import react from '@vitejs/plugin-react';
+import type { Plugin } from 'vite';
 import { compression, defineAlgorithm } from 'vite-plugin-compression2';
 import { defineConfig } from 'vitest/config';
 import { componentTests } from '../shared/src/ui/component-tests.config';
@@ -12,7 +13,30 @@ const apiTarget = process.env.API_URL ?? 'http://localhost:3000';
 // carry the whole engine, zod and decimal.js along with it.
 const sharedIsPure = (id: string) => !id.includes('/shared/src/');
 
+/**
+ * Joy builds a complete default theme when its styles are imported (`extendTheme()` at the top of
+ * @mui/joy/styles/defaultTheme.js: the longest single step of the storefront's start, 20 ms of a
+ * phone's main thread, paid before the page's own theme is built), for components drawn outside a
+ * theme provider. Every page of the built storefront (and its prerender) is drawn inside
+ * CssVarsProvider with the shop's theme (src/app/providers.tsx), where Joy never reads its default,
+ * so the build gives Joy an empty one: only the colour-scheme names its CssVarsProvider checks at
+ * import. Component tests, which may draw outside the provider, keep Joy's own.
+ */
+const joyDefaultThemeUnused = (): Plugin => ({
+  name: 'loomwright:joy-default-theme-unused',
+  apply: 'build',
+  enforce: 'pre',
+  resolveId(source, importer) {
+    if (importer && /[\\/]@mui[\\/]joy[\\/]/.test(importer) && /(^|\/)defaultTheme(\.js)?$/.test(source)) return '\0joy-default-theme';
+    return null;
+  },
+  load(id) {
+    return id === '\0joy-default-theme' ? 'export default { colorSchemes: { light: {}, dark: {} } };' : null;
+  },
+});
+
 const clientPlugins = () => [
+  joyDefaultThemeUnused(),
   react(),
   // `/` and `/configure` (the two first loads the bench measures) name their lazy chunks and the
   // price book up front; every page preloads the three Manrope weights the theme uses.
@@ -45,7 +69,7 @@ const clientPlugins = () => [
 // The second bundles every package (Node cannot import Joy's component folders as they are) and
 // writes no pages, no manifest and no compressed copies.
 export default defineConfig(({ isSsrBuild }) => ({
-  plugins: isSsrBuild ? [react()] : clientPlugins(),
+  plugins: isSsrBuild ? [joyDefaultThemeUnused(), react()] : clientPlugins(),
   base: '/',
   resolve: {
     alias: {

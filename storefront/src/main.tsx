@@ -6,6 +6,7 @@ import { createRoot, hydrateRoot } from 'react-dom/client';
 import { hydration } from 'src/app/hydration';
 import { AppProviders } from 'src/app/providers';
 import { AppRouter } from 'src/app/router';
+import { storefrontTheme } from 'src/theme';
 
 const container = document.getElementById('root')!;
 const app = (
@@ -27,7 +28,15 @@ const app = (
 const step = new URLSearchParams(window.location.search).get('step');
 const samePage =
   container.dataset.prerendered === window.location.pathname && (window.location.pathname !== '/configure' || !step || step === 'surface');
-if (samePage) {
-  hydration.pending = true;
-  startTransition(() => void hydrateRoot(container, app));
-} else createRoot(container).render(app);
+
+// Three tasks, not one: evaluating this script's modules, building the theme, and starting React
+// each hold the main thread for a while on a phone; between them the browser can paint and answer a tap.
+setTimeout(() => {
+  storefrontTheme();
+  setTimeout(() => {
+    if (samePage) {
+      hydration.pending = true;
+      startTransition(() => void hydrateRoot(container, app));
+    } else createRoot(container).render(app);
+  });
+});

@@ -1,6 +1,6 @@
 import { screen } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import { theme } from 'src/theme';
+import { storefrontTheme } from 'src/theme';
 import { AppLayout } from './AppLayout';
 import { Page } from './Page';
 import { json, renderWithProviders } from '@loomwright/shared/ui/testing';
@@ -17,7 +17,7 @@ function renderAt(url: string) {
     }),
   );
   renderWithProviders(<AppLayout />, {
-    theme,
+    theme: storefrontTheme(),
     url,
     path: '/',
     children: [

@@ -2,7 +2,7 @@ import { fireEvent, screen } from '@testing-library/react';
 import { shopUnavailableMessage } from '@loomwright/shared';
 import { useLocation } from 'react-router';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { theme } from 'src/theme';
+import { storefrontTheme } from 'src/theme';
 import { Component as BuildsPage } from './builds';
 import { json, matchMediaWhere, renderWithProviders } from '@loomwright/shared/ui/testing';
 
@@ -26,7 +26,7 @@ function renderAt(url: string, api: (path: string) => Response) {
     'fetch',
     vi.fn(async (input: string | URL | Request) => api(new URL(String(input)).pathname)),
   );
-  renderWithProviders(<Where />, { theme, url, routes: [{ path: '/builds', element: <BuildsPage /> }] });
+  renderWithProviders(<Where />, { theme: storefrontTheme(), url, routes: [{ path: '/builds', element: <BuildsPage /> }] });
 }
 
 describe('My builds while the shop is down', () => {

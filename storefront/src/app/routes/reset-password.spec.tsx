@@ -1,13 +1,13 @@
 import { fireEvent, screen } from '@testing-library/react';
 import { json, renderWithProviders, stubFetch, validationFailed, wordsUnder } from '@loomwright/shared/ui/testing';
 import { describe, expect, it } from 'vitest';
-import { theme } from 'src/theme';
+import { storefrontTheme } from 'src/theme';
 import { Component as ResetPasswordPage } from './reset-password';
 
 /** The reset page at a link's address, with the API's answer to the reset scripted. */
 function renderWithAnswer(answer: Response) {
   const fetchMock = stubFetch(() => answer);
-  renderWithProviders(<ResetPasswordPage />, { theme, url: '/reset-password?token=a-link-token' });
+  renderWithProviders(<ResetPasswordPage />, { theme: storefrontTheme(), url: '/reset-password?token=a-link-token' });
   return fetchMock;
 }
 

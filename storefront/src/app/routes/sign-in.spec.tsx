@@ -2,7 +2,7 @@ import { fireEvent, screen, waitFor } from '@testing-library/react';
 import { useLocation } from 'react-router';
 import { json, renderWithProviders, stubFetch } from '@loomwright/shared/ui/testing';
 import { describe, expect, it, vi } from 'vitest';
-import { theme } from 'src/theme';
+import { storefrontTheme } from 'src/theme';
 import { Component as SignInPage } from './sign-in';
 
 const player = { id: 'u1', email: 'player@mail.example', name: 'Rowan Achterberg', role: 'customer' };
@@ -15,7 +15,7 @@ function Where() {
 /** The sign-in page in a memory router, with a fresh query client (no retries) and a scripted API. */
 function renderAt(url: string, api: (path: string, init?: RequestInit) => Response) {
   const fetchMock = stubFetch(api);
-  renderWithProviders(<Where />, { theme, url, routes: [{ path: '/sign-in', element: <SignInPage /> }] });
+  renderWithProviders(<Where />, { theme: storefrontTheme(), url, routes: [{ path: '/sign-in', element: <SignInPage /> }] });
   return fetchMock;
 }
 

@@ -1,13 +1,13 @@
 import { fireEvent, screen, waitFor } from '@testing-library/react';
 import { json, renderWithProviders, stubFetch } from '@loomwright/shared/ui/testing';
 import { describe, expect, it } from 'vitest';
-import { theme } from 'src/theme';
+import { storefrontTheme } from 'src/theme';
 import { ChangePasswordForm } from './ChangePasswordForm';
 
 /** The form with a scripted API: `answer` gives the reply to POST /api/auth/password. */
 function renderWith(answer: () => Response) {
   const fetchMock = stubFetch(answer);
-  renderWithProviders(<ChangePasswordForm onCancel={() => {}} />, { theme });
+  renderWithProviders(<ChangePasswordForm onCancel={() => {}} />, { theme: storefrontTheme() });
   return fetchMock;
 }
 

@@ -2,7 +2,8 @@ import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
 import Typography from '@mui/joy/Typography';
 import { lazy, Suspense, useCallback, useEffect, useRef, type ComponentType } from 'react';
-import type { Catalog } from '@loomwright/shared';
+import type { Catalog, ShopProfile } from '@loomwright/shared';
+import { ShopVoiceProvider } from '@loomwright/shared/ui';
 import { LateAlert } from 'src/components/LateAlert';
 import { PageLoading } from 'src/components/PageLoading';
 import { useConfiguration } from '../hooks/use-configuration';
@@ -46,32 +47,28 @@ const PageHeading = () => (
 );
 
 /**
- * What the configurator shows before the price book is in: the page's heading, the step bar and,
- * on the Surface step (where every new board starts), the step's heading and opening words, in the
- * same places the configurator puts them, and a `status` line where the cards will come (the layout's
- * `main` is a screen tall, so what arrives below grows the page without moving what is drawn). None
- * of it depends on the shop's data, so the build prerenders it into configure.html and the browser's
- * first render draws the same: the first paint is then the page's largest text.
+ * The configurator. Until `catalog` (the price book, in the shop's voice) is given, it shows its frame:
+ * the page's heading, the step bar and, on the Surface step (where every new board starts), the step's
+ * heading and opening words, and a `status` line (`loadingLabel`) where the cards will come. None of
+ * that depends on the shop's data, so the build prerenders it into configure.html and the browser's
+ * first render draws the same: the first paint is the page's largest text. When the price book arrives
+ * the same elements stay on screen (the step's content, its navigation and the estimate come in beside
+ * them) instead of the page being drawn again.
  */
-export function ConfiguratorFrame({ step, onSelect, label }: { step: StepId; onSelect: (step: StepId) => void; label: string }) {
-  const index = configuratorSteps.findIndex((s) => s.id === step);
-  return (
-    <Box sx={layout}>
-      <Box sx={{ minWidth: 0 }}>
-        <PageHeading />
-        <StepProgress current={step} onSelect={onSelect} />
-        <Box component="section" aria-label={`Step ${index + 1}: ${configuratorSteps[index]?.title}`}>
-          {step === 'surface' ? <SurfaceStepHeading /> : null}
-          <PageLoading label={label} />
-        </Box>
-      </Box>
-    </Box>
-  );
-}
-
-export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepSlot }) {
+export function Configurator({
+  catalog,
+  shop,
+  keep,
+  loadingLabel = 'Loading the shop’s price book…',
+}: {
+  catalog?: Catalog;
+  /** The shop's settings, for the figures' voice (undefined: the default voice). */
+  shop?: ShopProfile;
+  keep?: KeepSlot;
+  loadingLabel?: string;
+}) {
   const { configuration, encoded, update, step, goToStep, restoredFrom, startOver, dismissRestored } = useConfiguration(catalog);
-  const live = useLiveEstimate(encoded, step === 'review' ? 'full' : 'panel');
+  const live = useLiveEstimate(encoded ?? '', step === 'review' ? 'full' : 'panel');
   const guard = useRef<(() => Promise<boolean>) | null>(null);
   const setLeaveGuard = useCallback((g: (() => Promise<boolean>) | null) => {
     guard.current = g;
@@ -80,11 +77,12 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
   // A rig that calls for more experience than the chosen level is priced at the level it needs;
   // the Builder step says why.
   const minimum = live.isCurrent ? live.estimate?.minimumLevel : undefined;
+  const level = configuration?.level;
   useEffect(() => {
-    if (minimum && higherLevel(minimum, configuration.level) !== configuration.level) {
+    if (minimum && level && higherLevel(minimum, level) !== level) {
       update((c) => ({ ...c, level: higherLevel(minimum, c.level) }));
     }
-  }, [minimum, configuration.level, update]);
+  }, [minimum, level, update]);
 
   // Moving to a step puts the keyboard and screen reader at its heading.
   const headingRef = useRef<HTMLDivElement>(null);
@@ -106,27 +104,7 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
     goToStep(target);
   };
   const Step = stepComponents[step];
-  // Told under the step's opening words (StepHeading), so its arrival moves nothing painted above it.
-  const restoredNotice = restoredFrom ? (
-    <LateAlert
-      variant="soft"
-      color="neutral"
-      role="status"
-      sx={{ mt: 2, maxWidth: 640, flexWrap: 'wrap' }}
-      endDecorator={
-        <Box sx={{ display: 'flex', gap: 1 }}>
-          <Button size="sm" variant="plain" onClick={dismissRestored}>
-            Keep it
-          </Button>
-          <Button size="sm" variant="outlined" onClick={startOver}>
-            Start over
-          </Button>
-        </Box>
-      }
-    >
-      We restored the board you were configuring on {formatMoment(restoredFrom)}.
-    </LateAlert>
-  ) : null;
+  const opened = catalog && configuration ? { catalog, configuration } : undefined;
 
   return (
     <Box sx={layout}>
@@ -134,36 +112,78 @@ export function Configurator({ catalog, keep }: { catalog: Catalog; keep?: KeepS
         <PageHeading />
         <StepProgress current={step} onSelect={(s) => void leaveTo(s)} />
         <Box component="section" aria-label={`Step ${index + 1}: ${configuratorSteps[index]?.title}`} ref={headingRef}>
-          <StepNotice.Provider value={restoredNotice}>
-            <Suspense fallback={<PageLoading label="Loading this step…" />}>
-              <Step
-                catalog={catalog}
-                configuration={configuration}
-                update={update}
-                live={live}
-                goToStep={goToStep}
-                setLeaveGuard={setLeaveGuard}
-                keep={keep}
-              />
-            </Suspense>
-          </StepNotice.Provider>
-        </Box>
-        <Box
-          component="nav"
-          aria-label="Step navigation"
-          sx={{ display: 'flex', justifyContent: 'space-between', gap: 2, mt: 5, pt: 3, borderTop: '1px solid', borderColor: 'divider' }}
-        >
-          {previous ? (
-            <Button variant="outlined" color="neutral" onClick={() => void leaveTo(previous.id)}>
-              Back: {previous.title}
-            </Button>
+          {opened ? (
+            <ShopVoiceProvider profile={shop}>
+              {/* Told under the step's opening words (StepHeading), so its arrival moves nothing painted above it. */}
+              <StepNotice.Provider
+                value={restoredFrom ? <RestoredNotice savedAt={restoredFrom} onKeep={dismissRestored} onStartOver={startOver} /> : null}
+              >
+                <Suspense fallback={<PageLoading label="Loading this step…" />}>
+                  <Step
+                    catalog={opened.catalog}
+                    configuration={opened.configuration}
+                    update={update}
+                    live={live}
+                    goToStep={goToStep}
+                    setLeaveGuard={setLeaveGuard}
+                    keep={keep}
+                  />
+                </Suspense>
+              </StepNotice.Provider>
+            </ShopVoiceProvider>
           ) : (
-            <span />
+            <>
+              {step === 'surface' ? <SurfaceStepHeading /> : null}
+              <PageLoading label={loadingLabel} />
+            </>
           )}
-          {next ? <Button onClick={() => void leaveTo(next.id)}>Next: {next.title}</Button> : null}
         </Box>
+        {opened ? (
+          <Box
+            component="nav"
+            aria-label="Step navigation"
+            sx={{ display: 'flex', justifyContent: 'space-between', gap: 2, mt: 5, pt: 3, borderTop: '1px solid', borderColor: 'divider' }}
+          >
+            {previous ? (
+              <Button variant="outlined" color="neutral" onClick={() => void leaveTo(previous.id)}>
+                Back: {previous.title}
+              </Button>
+            ) : (
+              <span />
+            )}
+            {next ? <Button onClick={() => void leaveTo(next.id)}>Next: {next.title}</Button> : null}
+          </Box>
+        ) : null}
       </Box>
-      <EstimatePanel live={live} catalog={catalog} />
+      {opened ? (
+        <ShopVoiceProvider profile={shop}>
+          <EstimatePanel live={live} catalog={opened.catalog} />
+        </ShopVoiceProvider>
+      ) : null}
     </Box>
+  );
+}
+
+/** "We restored the board…": drawn under the shop's voice, which writes the moment it was saved. */
+function RestoredNotice({ savedAt, onKeep, onStartOver }: { savedAt: string; onKeep: () => void; onStartOver: () => void }) {
+  return (
+    <LateAlert
+      variant="soft"
+      color="neutral"
+      role="status"
+      sx={{ mt: 2, maxWidth: 640, flexWrap: 'wrap' }}
+      endDecorator={
+        <Box sx={{ display: 'flex', gap: 1 }}>
+          <Button size="sm" variant="plain" onClick={onKeep}>
+            Keep it
+          </Button>
+          <Button size="sm" variant="outlined" onClick={onStartOver}>
+            Start over
+          </Button>
+        </Box>
+      }
+    >
+      We restored the board you were configuring on {formatMoment(savedAt)}.
+    </LateAlert>
   );
 }

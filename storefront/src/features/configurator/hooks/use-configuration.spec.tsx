@@ -1,4 +1,5 @@
 import { act, cleanup, render } from '@testing-library/react';
+import { useState } from 'react';
 import { createMemoryRouter, RouterProvider } from 'react-router';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { decodeConfiguration, demoPriceBook, encodeConfiguration, type Catalog } from '@loomwright/shared';
@@ -36,6 +37,13 @@ describe('useConfiguration', () => {
     expect(handle.current!.step).toBe('extras');
   });
 
+  it("leaves a fresh board's address bare until something is entered", async () => {
+    const { handle, router, inUrl } = mount('/configure');
+    expect(router.state.location.search).toBe('');
+    await act(async () => handle.current!.update((c) => ({ ...c, pedalCount: 5 })));
+    expect(inUrl()?.pedalCount).toBe(5);
+  });
+
   it("walks back a step with the browser's Back and keeps what was entered on the later step", async () => {
     const { handle, router, inUrl } = mount('/configure?step=case');
     await act(async () => handle.current!.goToStep('pedals'));
@@ -44,13 +52,13 @@ describe('useConfiguration', () => {
       await router.navigate(-1);
     });
     expect(handle.current!.step).toBe('case');
-    expect(handle.current!.configuration.pedalCount).toBe(11);
+    expect(handle.current!.configuration!.pedalCount).toBe(11);
     expect(inUrl()?.pedalCount).toBe(11);
   });
 
   it('takes the configuration of a link followed on the page', async () => {
     const { handle, router } = mount('/configure?step=pedals');
-    const shared = encodeConfiguration({ ...handle.current!.configuration, pedalCount: 4, level: 'journeyman' });
+    const shared = encodeConfiguration({ ...handle.current!.configuration!, pedalCount: 4, level: 'journeyman' });
     await act(async () => {
       await router.navigate(`/configure?step=review&c=${shared}`);
     });
@@ -63,14 +71,40 @@ describe('useConfiguration', () => {
     await act(async () => first.handle.current!.update((c) => ({ ...c, pedalCount: 9 })));
     cleanup();
     const second = mount('/configure');
-    expect(second.handle.current!.configuration.pedalCount).toBe(9);
+    expect(second.handle.current!.configuration!.pedalCount).toBe(9);
     expect(second.handle.current!.restoredFrom).not.toBeNull();
     await act(async () => second.handle.current!.startOver());
     cleanup();
     const third = mount('/configure');
     expect(third.handle.current!.restoredFrom).toBeNull();
     // Start over is a clean sheet: no pedals the player did not enter.
-    expect(third.handle.current!.configuration.pedalCount).toBeUndefined();
-    expect(third.handle.current!.configuration.surfaceId).toBe('');
+    expect(third.handle.current!.configuration!.pedalCount).toBeUndefined();
+    expect(third.handle.current!.configuration!.surfaceId).toBe('');
+  });
+
+  it('shows its frame until the price book arrives, then opens the draft this browser kept', async () => {
+    const first = mount('/configure');
+    await act(async () => first.handle.current!.update((c) => ({ ...c, pedalCount: 7 })));
+    cleanup();
+
+    const handle: { current?: Handle } = {};
+    let priceBookArrives!: (book: Catalog) => void;
+    function Probe() {
+      const [book, setBook] = useState<Catalog>();
+      priceBookArrives = setBook;
+      handle.current = useConfiguration(book);
+      return null;
+    }
+    const router = createMemoryRouter([{ path: '/configure', element: <Probe /> }], { initialEntries: ['/configure'] });
+    render(<RouterProvider router={router} />);
+    expect(handle.current!.configuration).toBeUndefined();
+    // The frame's step bar moves between steps; nothing else is written before there is a board.
+    await act(async () => handle.current!.goToStep('case'));
+    expect(router.state.location.search).toBe('?step=case');
+
+    await act(async () => priceBookArrives(catalog));
+    expect(handle.current!.configuration!.pedalCount).toBe(7);
+    expect(handle.current!.restoredFrom).not.toBeNull();
+    expect(handle.current!.step).toBe('case');
   });
 });

@@ -18,25 +18,36 @@ const isOwnChange = (state: unknown) => typeof state === 'object' && state !== n
  * it, and a local draft keeps it for a closed tab. The step lives in the URL: step changes push a
  * history entry, so the browser's Back walks the steps and keeps what was entered.
  */
-export function useConfiguration(catalog: Catalog) {
+export function useConfiguration(catalog: Catalog | undefined) {
   const [searchParams, setSearchParams] = useSearchParamsInOrder();
   const location = useLocation();
   const navigationType = useNavigationType();
   const encodedInUrl = searchParams.get(CONFIGURATION_PARAM);
 
-  // First visit: the link's configuration, else the draft this browser kept, else the defaults.
-  const [start] = useState(() => {
-    if (encodedInUrl) return { configuration: completeConfiguration(decodeConfiguration(encodedInUrl), catalog), savedAt: null };
+  // First visit: the link's configuration, else the draft this browser kept, else the defaults. Worked
+  // out once the price book is in (the configurator shows its frame until then, in the same places).
+  const open = (book: Catalog) => {
+    if (encodedInUrl) return { configuration: completeConfiguration(decodeConfiguration(encodedInUrl), book), savedAt: null };
     const draft = readConfigurationDraft();
-    return { configuration: completeConfiguration(draft?.configuration, catalog), savedAt: draft?.savedAt ?? null };
-  });
-  const [configuration, setConfiguration] = useState(start.configuration);
-  const [restoredFrom, setRestoredFrom] = useState<string | null>(start.savedAt);
+    return { configuration: completeConfiguration(draft?.configuration, book), savedAt: draft?.savedAt ?? null };
+  };
+  const [start] = useState(() => (catalog ? open(catalog) : undefined));
+  const [configuration, setConfiguration] = useState<RigConfiguration | undefined>(start?.configuration);
+  const [restoredFrom, setRestoredFrom] = useState<string | null>(start?.savedAt ?? null);
   const latest = useRef(configuration);
-  const encoded = useMemo(() => encodeConfiguration(configuration), [configuration]);
-  const untouched = useMemo(() => encodeConfiguration(completeConfiguration(undefined, catalog)), [catalog]);
+  if (catalog && !configuration) {
+    // The price book has just arrived: this render starts over with the board opened (React's
+    // "adjusting state while rendering"; nothing of this pass is committed).
+    const opened = open(catalog);
+    latest.current = opened.configuration;
+    setConfiguration(opened.configuration);
+    setRestoredFrom(opened.savedAt);
+  }
+  const encoded = useMemo(() => (configuration ? encodeConfiguration(configuration) : undefined), [configuration]);
+  const untouched = useMemo(() => (catalog ? encodeConfiguration(completeConfiguration(undefined, catalog)) : undefined), [catalog]);
 
   const update = useCallback((change: ConfigurationUpdate) => {
+    if (!latest.current) return;
     latest.current = change(latest.current);
     setConfiguration(latest.current);
   }, []);
@@ -47,7 +58,10 @@ export function useConfiguration(catalog: Catalog) {
   useEffect(() => {
     const newEntry = seenEntry.current !== location.key;
     seenEntry.current = location.key;
-    if (encodedInUrl === encoded) return;
+    if (!encoded || !catalog || encodedInUrl === encoded) return;
+    // A fresh board (no `?c=`, nothing entered yet) reads the same from a bare /configure: the address
+    // is left as it is, sparing the first screen a navigation and the whole page's redraw.
+    if (!encodedInUrl && encoded === untouched) return;
     if (newEntry && encodedInUrl && navigationType !== 'POP' && !isOwnChange(location.state)) {
       update(() => completeConfiguration(decodeConfiguration(encodedInUrl), catalog));
       setRestoredFrom(null);
@@ -56,16 +70,17 @@ export function useConfiguration(catalog: Catalog) {
     setSearchParams(
       (prev) => {
         const next = new URLSearchParams(prev);
-        next.set(CONFIGURATION_PARAM, encodeConfiguration(latest.current));
+        if (latest.current) next.set(CONFIGURATION_PARAM, encodeConfiguration(latest.current));
         return next;
       },
       { replace: true, state: OWN_CHANGE },
     );
-  }, [encoded, encodedInUrl, location.key, location.state, navigationType, catalog, update, setSearchParams]);
+  }, [encoded, encodedInUrl, untouched, location.key, location.state, navigationType, catalog, update, setSearchParams]);
 
   // An untouched default (a fresh visit, or Start over) is not worth restoring later; anything
   // the player changed is.
   useEffect(() => {
+    if (!configuration) return;
     if (encoded === untouched) clearConfigurationDraft();
     else writeConfigurationDraft(configuration);
   }, [encoded, untouched, configuration]);
@@ -78,7 +93,8 @@ export function useConfiguration(catalog: Catalog) {
         (prev) => {
           const next = new URLSearchParams(prev);
           next.set('step', target);
-          next.set(CONFIGURATION_PARAM, encodeConfiguration(latest.current));
+          // Before the price book is in (the frame's step bar) only the step changes.
+          if (latest.current) next.set(CONFIGURATION_PARAM, encodeConfiguration(latest.current));
           return next;
         },
         { state: OWN_CHANGE },
@@ -87,6 +103,7 @@ export function useConfiguration(catalog: Catalog) {
   );
 
   const startOver = useCallback(() => {
+    if (!catalog) return;
     setRestoredFrom(null);
     update(() => completeConfiguration(undefined, catalog));
     goToStep('surface');

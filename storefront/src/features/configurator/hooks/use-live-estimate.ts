@@ -18,10 +18,16 @@ const DEBOUNCE_MS = 250;
  * says what is still to choose, and no figures are shown for choices they did not make.
  */
 export function useLiveEstimate(encoded: string, view: EstimateView = 'panel') {
-  const settled = useDebouncedValue(encoded, DEBOUNCE_MS, () => {
-    performance.clearMarks(ESTIMATE_REQUESTED_MARK);
-    performance.mark(ESTIMATE_REQUESTED_MARK);
-  });
+  // The first board (the configurator had none while the price book was on its way: '') is asked for at once.
+  const settled = useDebouncedValue(
+    encoded,
+    DEBOUNCE_MS,
+    () => {
+      performance.clearMarks(ESTIMATE_REQUESTED_MARK);
+      performance.mark(ESTIMATE_REQUESTED_MARK);
+    },
+    '',
+  );
   const configuration = useMemo(() => decodeConfiguration(settled) as RigConfiguration | undefined, [settled]);
   const ready = configuration !== undefined && missingChoices(configuration).length === 0;
   const query = useEstimate(settled, ready ? configuration : undefined, view);
