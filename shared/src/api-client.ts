@@ -97,6 +97,10 @@ export function createApiClient(baseUrl = '/api', fetchImpl: typeof fetch = (...
       if (value !== undefined && value !== null && value !== '') url.searchParams.set(key, String(value));
     }
     const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
+    // The request starts in a task of its own: calls are made from React's effects and renders (a
+    // query subscribing, a prefetch), and starting a fetch costs the main thread a few ms each, which
+    // would lengthen the render or commit that asked (on a page's first load, several at once).
+    await new Promise<void>((resolve) => setTimeout(resolve, 0));
     let response: Response;
     try {
       response = await fetchImpl(url.toString(), {

@@ -4,11 +4,14 @@ import { useHydrated } from 'src/app/hydration';
 import { LateAlert, preloadLateAlert, useLateAlertReady } from 'src/components/LateAlert';
 import { useCatalog } from 'src/features/configurator/api/get-catalog';
 import { Configurator } from 'src/features/configurator/components/Configurator';
+import type { KeepSlot } from 'src/features/configurator/components/steps/step-props';
 import { useShop } from 'src/features/shop/api/get-shop';
 import { readConfigurationDraft } from 'src/lib/configuration-draft';
 
 // Saving, sharing and e-mailing show on the Review step only, so they load with it, not with the first screen.
 const KeepConfiguration = lazy(() => import('src/features/saved-configurations/components/KeepConfiguration'));
+
+const keepSlot: KeepSlot = (configuration, ready) => <KeepConfiguration configuration={configuration} ready={ready} />;
 
 // A restored draft is announced in an Alert: fetch it while the price book loads.
 const draftWaiting = readConfigurationDraft() !== undefined;
@@ -47,7 +50,7 @@ export function Component() {
       catalog={ready ? priceBook : undefined}
       shop={shop.data}
       loadingLabel={catalog.isPending || !priceBook || !hydrated ? 'Loading the shop’s price book…' : 'Loading the shop’s settings…'}
-      keep={(configuration, ready) => <KeepConfiguration configuration={configuration} ready={ready} />}
+      keep={keepSlot}
     />
   );
 }

@@ -1,7 +1,7 @@
 import Box from '@mui/joy/Box';
 import Button from '@mui/joy/Button';
 import Typography from '@mui/joy/Typography';
-import { lazy, Suspense, useCallback, useEffect, useRef, type ComponentType } from 'react';
+import { lazy, memo, Suspense, useCallback, useEffect, useRef, type ComponentType } from 'react';
 import type { Catalog, ShopProfile } from '@loomwright/shared';
 import { ShopVoiceProvider } from '@loomwright/shared/ui';
 import { LateAlert } from 'src/components/LateAlert';
@@ -54,8 +54,10 @@ const PageHeading = () => (
  * first render draws the same: the first paint is the page's largest text. When the price book arrives
  * the same elements stay on screen (the step's content, its navigation and the estimate come in beside
  * them) instead of the page being drawn again.
+ * Memoized: the page around it re-renders whenever one of its queries changes state (React draws those
+ * updates in one blocking task), and the configurator need not be drawn again unless its props change.
  */
-export function Configurator({
+export const Configurator = memo(function Configurator({
   catalog,
   shop,
   keep,
@@ -162,7 +164,7 @@ export function Configurator({
       ) : null}
     </Box>
   );
-}
+});
 
 /** "We restored the board…": drawn under the shop's voice, which writes the moment it was saved. */
 function RestoredNotice({ savedAt, onKeep, onStartOver }: { savedAt: string; onKeep: () => void; onStartOver: () => void }) {
