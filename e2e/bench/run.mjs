@@ -7,7 +7,8 @@
 // Sections (BENCH_ONLY=http,engine,bundle,lighthouse,latency,data,mail picks some; default all).
 // Ports (defaults in the 3370-3379 block): BENCH_PORT 3370, BENCH_PG_PORT 3371, BENCH_PAYMENT_PORT 3372,
 // BENCH_SMTP_PORT 3373, BENCH_MAIL_HTTP_PORT 3374, BENCH_OBJECT_STORE_PORT 3375. BENCH_SECONDS (8) per load run, BENCH_REPEAT (30)
-// calls per data figure, BENCH_SKIP_BUILD=true to reuse the last build, BENCH_SCALE=small for a quick try.
+// calls per data figure, BENCH_LIGHTHOUSE_RUNS (3) per page and preset, BENCH_SKIP_BUILD=true to reuse the last build,
+// BENCH_SCALE=small for a quick try.
 import { spawn, spawnSync } from 'node:child_process';
 import { appendFileSync, existsSync, mkdirSync, readdirSync, readFileSync, readlinkSync, statSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
@@ -322,29 +323,39 @@ async function lighthouseSection() {
   const { default: lighthouse } = await import('lighthouse');
   const { default: desktopConfig } = await import('lighthouse/core/config/desktop-config.js');
   const chromeLauncher = await import('chrome-launcher');
+  // Each page and preset is measured `runs` times (a score on a busy 2-core machine moves by several
+  // points from run to run): every run's figures are printed, and the notes say which audits fell short.
+  const runs = Number(env.BENCH_LIGHTHOUSE_RUNS ?? 3);
+  /** One Lighthouse run in a fresh browser; a run whose trace Lighthouse could not record is made again once. */
+  async function lighthouseOnce(route, preset, retried = false) {
+    const chrome = await chromeLauncher.launch(lighthouseChromeOptions);
+    try {
+      const { lhr } = await lighthouse(
+        `${base}${route}`,
+        { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'] },
+        preset === 'desktop' ? desktopConfig : undefined,
+      );
+      if (lhr.runtimeError && !retried) {
+        notes.push(`Lighthouse ${preset} ${route}: ${lhr.runtimeError.code} (${lhr.runtimeError.message}); run again`);
+        return lighthouseOnce(route, preset, true);
+      }
+      return lhr;
+    } finally {
+      await chrome.kill();
+    }
+  }
   for (const route of ['/', '/configure']) {
     for (const preset of ['mobile', 'desktop']) {
-      say(`Lighthouse ${preset} ${route}…`);
-      const chrome = await chromeLauncher.launch(lighthouseChromeOptions);
-      try {
-        const result = await lighthouse(
-          `${base}${route}`,
-          {
-            port: chrome.port,
-            output: 'json',
-            logLevel: 'error',
-            onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'],
-          },
-          preset === 'desktop' ? desktopConfig : undefined,
-        );
-        const { categories, audits, runtimeError } = result.lhr;
+      for (let run = 1; run <= runs; run++) {
+        say(`Lighthouse ${preset} ${route}, run ${run} of ${runs}…`);
+        const { categories, audits, runtimeError } = await lighthouseOnce(route, preset);
         if (runtimeError) notes.push(`Lighthouse ${preset} ${route}: ${runtimeError.code} ${runtimeError.message}`);
         const score = (c) => (categories[c]?.score == null ? '–' : Math.round(categories[c].score * 100));
         const value = (id) => audits[id]?.numericValue;
         const cls = value('cumulative-layout-shift');
         row(
           'Lighthouse',
-          `${route} ${preset}: perf · LCP · TBT · CLS · a11y · best pr. · SEO`,
+          `${route} ${preset} (run ${run}): perf · LCP · TBT · CLS · a11y · best pr. · SEO`,
           `${score('performance')} · ${ms(value('largest-contentful-paint'))} · ${ms(value('total-blocking-time'))} · ${cls === undefined ? '–' : cls.toFixed(3)} · ${score('accessibility')} · ${score('best-practices')} · ${score('seo')}`,
           '',
           '',
@@ -355,15 +366,13 @@ async function lighthouseSection() {
         );
         if (failing.length)
           notes.push(
-            `Lighthouse ${preset} ${route}, audits below 1: ${failing.map((a) => `${a.id}${a.displayValue ? ` (${a.displayValue})` : ''}`).join(', ')}`,
+            `Lighthouse ${preset} ${route} (run ${run}), audits below 1: ${failing.map((a) => `${a.id}${a.displayValue ? ` (${a.displayValue})` : ''}`).join(', ')}`,
           );
         const shifts = audits['layout-shifts']?.details?.items ?? [];
         if (shifts.length)
           notes.push(
-            `Lighthouse ${preset} ${route}, layout shifts: ${shifts.map((i) => `${i.node?.selector ?? i.node?.snippet ?? '?'} ${Number(i.score).toFixed(3)}`).join('; ')}`,
+            `Lighthouse ${preset} ${route} (run ${run}), layout shifts: ${shifts.map((i) => `${i.node?.selector ?? i.node?.snippet ?? '?'} ${Number(i.score).toFixed(3)}`).join('; ')}`,
           );
-      } finally {
-        await chrome.kill();
       }
     }
   }
