@@ -73,6 +73,26 @@ describe('sessions end when asked', () => {
     await me(`lw_session=${aged}`).expect(401);
   });
 
+  // RFC 8725 §2.1 and §3.1: a token's signature is checked with the server's own key and algorithm; one signed
+  // with another secret, or sent unsigned ("alg": "none"), names an open session here and is still refused.
+  it('refuses a token for an open session that the server did not sign', async () => {
+    const player = await t.db
+      .selectFrom('users')
+      .select(['id', 'email', 'name', 'role'])
+      .where('id', '=', playerId)
+      .executeTakeFirstOrThrow();
+    const jwt = t.app.get(JwtService);
+    const claims = { ...jwt.decode<Record<string, unknown>>(await t.app.get(SessionsService).open(player)) };
+    delete claims.exp;
+    const otherSecret = jwt.sign(claims, { secret: 'not-the-shop-secret-'.repeat(3), expiresIn: 1800 });
+    const segment = (value: unknown) => Buffer.from(JSON.stringify(value)).toString('base64url');
+    const unsigned = `${segment({ alg: 'none', typ: 'JWT' })}.${segment({ ...claims, exp: Math.floor(Date.now() / 1000) + 1800 })}.`;
+    await me(`lw_session=${otherSecret}`).expect(401);
+    await me(`lw_session=${unsigned}`).expect(401);
+    // The same claims signed by the shop pass, so the refusals above are the signature's.
+    await me(`lw_session=${jwt.sign(claims, { expiresIn: 1800 })}`).expect(200);
+  });
+
   it('refuses a token that names no session, even with a valid signature', async () => {
     const player = await t.db
       .selectFrom('users')
