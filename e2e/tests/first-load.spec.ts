@@ -187,6 +187,8 @@ test.describe('prerendered first pages', () => {
     await expect(startOver).toBeFocused();
     await page.keyboard.press('Enter');
     await expect(notice).toHaveCount(0);
+    // The button left with the notice; the keyboard goes on from the step's heading (WCAG 2.2 SC 2.4.3, Focus Order).
+    await expect(page.getByRole('heading', { level: 2, name: 'Choose the board surface' })).toBeFocused();
     await expect.poll(() => page.evaluate(() => window.localStorage.getItem('lw-configurator-draft'))).toBeNull();
     expect(problems).toEqual([]);
   });

@@ -106,6 +106,9 @@ export const Configurator = memo(function Configurator({
     goToStep(target);
   };
   const Step = stepComponents[step];
+  // The notice's buttons leave with it: the keyboard and screen reader go on from the step's heading,
+  // not from the top of the page.
+  const focusStepHeading = () => window.setTimeout(() => headingRef.current?.querySelector<HTMLElement>('[data-step-heading]')?.focus(), 0);
   const opened = catalog && configuration ? { catalog, configuration } : undefined;
 
   return (
@@ -118,7 +121,21 @@ export const Configurator = memo(function Configurator({
             <ShopVoiceProvider profile={shop}>
               {/* Told under the step's opening words (StepHeading), so its arrival moves nothing painted above it. */}
               <StepNotice.Provider
-                value={restoredFrom ? <RestoredNotice savedAt={restoredFrom} onKeep={dismissRestored} onStartOver={startOver} /> : null}
+                value={
+                  restoredFrom ? (
+                    <RestoredNotice
+                      savedAt={restoredFrom}
+                      onKeep={() => {
+                        dismissRestored();
+                        focusStepHeading();
+                      }}
+                      onStartOver={() => {
+                        startOver();
+                        focusStepHeading();
+                      }}
+                    />
+                  ) : null
+                }
               >
                 <Suspense fallback={<PageLoading label="Loading this step…" />}>
                   <Step
