@@ -23,6 +23,9 @@ describe('sessions end when asked', () => {
     return asRequestCookie(sessionCookieOf(res)!);
   };
   const me = (cookie: string) => t.http().get('/api/auth/me').set('Cookie', cookie);
+  /** The demo player's row, as a session names them. */
+  const thePlayer = () =>
+    t.db.selectFrom('users').select(['id', 'email', 'name', 'role']).where('id', '=', playerId).executeTakeFirstOrThrow();
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -53,11 +56,7 @@ describe('sessions end when asked', () => {
   });
 
   it('a renewed cookie keeps its session, so signing out ends the old and the new token together', async () => {
-    const player = await t.db
-      .selectFrom('users')
-      .select(['id', 'email', 'name', 'role'])
-      .where('id', '=', playerId)
-      .executeTakeFirstOrThrow();
+    const player = await thePlayer();
     const jwt = t.app.get(JwtService);
     const { sid } = jwt.decode<{ sid: string }>(await t.app.get(SessionsService).open(player));
     // Issued 20 of 30 minutes ago: past half its life, so the next request renews it.
@@ -76,11 +75,7 @@ describe('sessions end when asked', () => {
   // RFC 8725 §2.1 and §3.1: a token's signature is checked with the server's own key and algorithm; one signed
   // with another secret, or sent unsigned ("alg": "none"), names an open session here and is still refused.
   it('refuses a token for an open session that the server did not sign', async () => {
-    const player = await t.db
-      .selectFrom('users')
-      .select(['id', 'email', 'name', 'role'])
-      .where('id', '=', playerId)
-      .executeTakeFirstOrThrow();
+    const player = await thePlayer();
     const jwt = t.app.get(JwtService);
     const claims = { ...jwt.decode<Record<string, unknown>>(await t.app.get(SessionsService).open(player)) };
     delete claims.exp;
@@ -94,11 +89,7 @@ describe('sessions end when asked', () => {
   });
 
   it('refuses a token that names no session, even with a valid signature', async () => {
-    const player = await t.db
-      .selectFrom('users')
-      .select(['id', 'email', 'name', 'role'])
-      .where('id', '=', playerId)
-      .executeTakeFirstOrThrow();
+    const player = await thePlayer();
     const withoutSession = t.app
       .get(JwtService)
       .sign({ sub: player.id, email: player.email, name: player.name, role: player.role }, { expiresIn: 1800 });

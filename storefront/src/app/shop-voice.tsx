@@ -8,11 +8,19 @@ import { useShop } from 'src/features/shop/api/get-shop';
  * default voice and show their own "back shortly" notes.
  */
 export function ShopVoice({ children, fallback = <PageLoading /> }: { children: ReactNode; fallback?: ReactNode }) {
-  const shop = useShop();
-  // Only the first answer is awaited: while the API is failing, pages render (and say so) in the default voice.
-  // The answer's own render (a query update, which React draws in one blocking task) keeps the loading
-  // screen; the whole page is then drawn in a deferred render that yields to the browser every few ms.
-  const waiting = useDeferredValue(shop.isPending && shop.failureCount === 0);
+  const { shop, waiting } = useShopVoiceWaiting();
   if (waiting) return fallback;
   return <ShopVoiceProvider profile={shop.data}>{children}</ShopVoiceProvider>;
+}
+
+/**
+ * The shop's settings, and whether figures must still wait for them. Only the first answer is awaited:
+ * while the API is failing, pages render (and say so) in the default voice. The answer's own render (a
+ * query update, which React draws in one blocking task) keeps the wait; what depends on the voice is then
+ * drawn in a deferred render that yields to the browser every few ms.
+ */
+export function useShopVoiceWaiting() {
+  const shop = useShop();
+  const waiting = useDeferredValue(shop.isPending && shop.failureCount === 0);
+  return { shop, waiting };
 }

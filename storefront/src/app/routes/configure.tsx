@@ -1,11 +1,11 @@
 import Button from '@mui/joy/Button';
 import { lazy, useDeferredValue } from 'react';
 import { useHydrated } from 'src/app/hydration';
+import { useShopVoiceWaiting } from 'src/app/shop-voice';
 import { LateAlert, preloadLateAlert, useLateAlertReady } from 'src/components/LateAlert';
 import { useCatalog } from 'src/features/configurator/api/get-catalog';
 import { Configurator } from 'src/features/configurator/components/Configurator';
 import type { KeepSlot } from 'src/features/configurator/components/steps/step-props';
-import { useShop } from 'src/features/shop/api/get-shop';
 import { readConfigurationDraft } from 'src/lib/configuration-draft';
 
 // Saving, sharing and e-mailing show on the Review step only, so they load with it, not with the first screen.
@@ -19,16 +19,14 @@ if (draftWaiting) preloadLateAlert();
 
 export function Component() {
   const catalog = useCatalog();
-  const shop = useShop();
+  // The figures wait for the shop's voice (its currency and locale), as every page's do.
+  const { shop, waiting: voiceWaiting } = useShopVoiceWaiting();
   const hydrated = useHydrated();
   // The notice comes with the configurator's first draw, not after it (where it would move the cards).
   const alertReady = useLateAlertReady(draftWaiting);
   // The price book's arrival is drawn in a deferred render (yielding every few ms) instead of in the
   // query update's one blocking task: the configurator's first step is the heaviest render of the page.
   const priceBook = useDeferredValue(catalog.data);
-  // The figures wait for the shop's voice (its currency and locale): only its first answer is awaited;
-  // while the API is failing, they are written in the default voice (the page says it is failing).
-  const voiceWaiting = useDeferredValue(shop.isPending && shop.failureCount === 0);
   if (catalog.isError)
     return (
       <LateAlert
